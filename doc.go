@@ -1,0 +1,46 @@
+// Package similis is a library for engineers who plan scale-model tests and
+// write unit-safe engineering code: wind-tunnel, towing-tank,
+// hydraulic-model and pump or fan test teams, and the authors of their
+// data-reduction and design programs. They must turn a problem's variables
+// into a sound set of dimensionless groups, decide which groups a model
+// test can match and what the model's speed, fluid, pressure and
+// temperature must be, and carry every measured model value to full scale.
+// similis makes each of those steps a checked computation.
+//
+// # Packages
+//
+//   - quantity: dimensions (exact rational exponents of the seven SI base
+//     dimensions), the dimension-checked value Quantity, and Series, one
+//     channel of test data.
+//   - units: the unit table, the unit-expression parser, conversion,
+//     printing and physical constants.
+//   - pigroups: Buckingham Pi sets from a chosen repeating set, named
+//     groups, evaluation over data and power-law fitting.
+//   - similarity: scale ratios, test plans and their conflicts, rules of
+//     similitude, extrapolation to full scale, fluid states.
+//   - internal/...: shared machinery such as exact rational linear algebra.
+//   - examples/...: runnable programs on invented data.
+//
+// The layering runs one way: quantity ← units ← pigroups ← similarity.
+//
+// # Error model
+//
+// A dimension mismatch never yields a number. In formulas a programmer
+// wrote, quantity arithmetic panics with a *quantity.DimensionError naming
+// the operation and both sides, so the bug shows on the first run. Values
+// and text that come from input are checked by functions that return
+// errors (Quantity.Check, quantity.Eval, units.Parse); parsing user text
+// never panics. Every error type works with errors.Is and errors.As.
+//
+// # Where to start
+//
+// Run the main demo, go run ./examples/quickstart, then read the package
+// documentation of quantity.
+//
+// # Caution
+//
+// Model-test predictions are estimates subject to scale effects. Hydraulic
+// structures, hulls and pressure vessels are designed to the applicable
+// local codes and checked by licensed engineers; nothing in this library
+// replaces that.
+package similis

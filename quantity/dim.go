@@ -1,0 +1,412 @@
+package quantity
+
+import (
+	"strconv"
+	"strings"
+)
+
+// Base names one of the seven SI base dimensions, in ISO 80000-1 order.
+type Base uint8
+
+// The seven base dimensions of the International System of Quantities,
+// in the order ISO 80000-1 lists them.
+const (
+	BaseL     Base = iota // length, L
+	BaseM                 // mass, M
+	BaseT                 // time, T
+	BaseI                 // electric current, I
+	BaseTheta             // thermodynamic temperature, Θ
+	BaseN                 // amount of substance, N
+	BaseJ                 // luminous intensity, J
+	NumBases  = 7         // number of base dimensions
+)
+
+var baseSymbol = [NumBases]string{"L", "M", "T", "I", "Θ", "N", "J"}
+var baseSymbolASCII = [NumBases]string{"L", "M", "T", "I", "Th", "N", "J"}
+var baseUnit = [NumBases]string{"m", "kg", "s", "A", "K", "mol", "cd"}
+
+// unitOrder is the order in which base units are written in the SI
+// base-unit form: kg first, as in kg·m⁻¹·s⁻².
+var unitOrder = [NumBases]Base{BaseM, BaseL, BaseT, BaseI, BaseTheta, BaseN, BaseJ}
+
+// String returns the ISO 80000 dimension symbol of b ("L", "M", …, "Θ").
+func (b Base) String() string {
+	if b >= NumBases {
+		return "Base(" + strconv.Itoa(int(b)) + ")"
+	}
+	return baseSymbol[b]
+}
+
+// Unit returns the symbol of the SI base unit of b ("m", "kg", …).
+func (b Base) Unit() string {
+	if b >= NumBases {
+		return b.String()
+	}
+	return baseUnit[b]
+}
+
+// ExpDen is the denominator in which Dim stores exponents: every exponent
+// is a whole number of sixths, which holds halves and thirds exactly.
+const ExpDen = 6
+
+// MaxExp and MinExp bound the exponents a Dim can hold, in sixths:
+// from −128/6 = −21⅓ to 127/6 = 21⅙.
+const (
+	MaxExpSixths = 127
+	MinExpSixths = -128
+)
+
+// Dim is a physical dimension: the product of the seven SI base
+// dimensions, each raised to a rational exponent. Exponents are held
+// exactly as whole numbers of sixths (so L^(1/2), T^(1/3) and M^(5/6) are
+// exact), over −21⅓ … 21⅙. An operation whose result would fall outside
+// that range, or whose exponent is not a whole number of sixths, reports
+// a *DimensionError; nothing wraps.
+//
+// Dim is a small comparable value: == compares dimensions and a Dim can be
+// a map key. The zero Dim is dimensionless (dimension one).
+type Dim struct {
+	// bits holds the exponents e₀…e₆ (in sixths, each in −128…127) as the
+	// integer Σ eₖ·2^(9k), modulo 2⁶⁴. The encoding is linear, so the
+	// dimension of a product is the sum of the encodings and of a quotient
+	// their difference; and it is one-to-one, so == compares dimensions.
+	bits uint64
+}
+
+// Dimensionless is the dimension one, the zero Dim.
+var Dimensionless Dim
+
+const (
+	laneBits = 9
+	// laneBias, added to an encoding, makes every in-range lane a
+	// non-negative 8-bit number with bit 8 clear.
+	laneBias = 128 * (1 | 1<<9 | 1<<18 | 1<<27 | 1<<36 | 1<<45 | 1<<54)
+	// laneGuard selects bit 8 of every lane: after adding laneBias it is
+	// set exactly in the lowest lane that left −128…127, so a nonzero
+	// (bits+laneBias)&laneGuard reports an overflow.
+	laneGuard = 256 * (1 | 1<<9 | 1<<18 | 1<<27 | 1<<36 | 1<<45 | 1<<54)
+)
+
+// lanes decodes the seven exponents, in sixths.
+func (d Dim) lanes() (e [NumBases]int8) {
+	u := d.bits + laneBias
+	for k := range e {
+		e[k] = int8(int((u>>(laneBits*k))&0x1ff) - 128)
+	}
+	return e
+}
+
+func encode(e [NumBases]int8) Dim {
+	var x uint64
+	for k, v := range e {
+		x += uint64(int64(v) << (laneBits * k))
+	}
+	return Dim{x}
+}
+
+func (d Dim) lane(b Base) int8 { return d.lanes()[b] }
+
+func (d *Dim) setLane(b Base, v int8) {
+	e := d.lanes()
+	e[b] = v
+	*d = encode(e)
+}
+
+// add returns d+o lane-wise and whether every lane stayed in range.
+func (d Dim) add(o Dim) (Dim, bool) {
+	s := d.bits + o.bits
+	return Dim{s}, (s+laneBias)&laneGuard == 0
+}
+
+// sub returns d−o lane-wise and whether every lane stayed in range.
+func (d Dim) sub(o Dim) (Dim, bool) {
+	s := d.bits - o.bits
+	return Dim{s}, (s+laneBias)&laneGuard == 0
+}
+
+// DimOf returns the dimension of base b raised to num/den.
+func DimOf(b Base, num, den int) (Dim, error) {
+	if b >= NumBases {
+		return Dim{}, &DimensionError{Op: "build a dimension", Detail: "base " + strconv.Itoa(int(b)) + " does not exist"}
+	}
+	s, err := sixths(num, den)
+	if err != nil {
+		return Dim{}, err
+	}
+	var d Dim
+	d.setLane(b, s)
+	return d, nil
+}
+
+// NewDim returns the dimension L^l M^m T^t I^i Θ^th N^n J^j with whole
+// exponents. It reports a *DimensionError if an exponent is out of range.
+func NewDim(l, m, t, i, th, n, j int) (Dim, error) {
+	var d Dim
+	for k, e := range [NumBases]int{l, m, t, i, th, n, j} {
+		s, err := sixths(e, 1)
+		if err != nil {
+			return Dim{}, err
+		}
+		d.setLane(Base(k), s)
+	}
+	return d, nil
+}
+
+// MustDim is like NewDim but panics if the exponents are out of range. It
+// is meant for package-level declarations.
+func MustDim(l, m, t, i, th, n, j int) Dim {
+	d, err := NewDim(l, m, t, i, th, n, j)
+	if err != nil {
+		panic(err)
+	}
+	return d
+}
+
+func sixths(num, den int) (int8, error) {
+	if den == 0 {
+		return 0, &DimensionError{Op: "build a dimension", Detail: "exponent " + strconv.Itoa(num) + "/0 has a zero denominator"}
+	}
+	if (num*ExpDen)%den != 0 || num > 1<<20 || num < -(1<<20) {
+		return 0, &DimensionError{Op: "build a dimension", Detail: "exponent " + ratString(num, den) + " is not a whole number of sixths"}
+	}
+	s := num * ExpDen / den
+	if s > MaxExpSixths || s < MinExpSixths {
+		return 0, &DimensionError{Op: "build a dimension", Detail: "exponent " + ratString(num, den) + " is outside −21⅓ … 21⅙"}
+	}
+	return int8(s), nil
+}
+
+// Exp returns the exponent of base b in d as a reduced fraction num/den
+// with den > 0.
+func (d Dim) Exp(b Base) (num, den int) {
+	if b >= NumBases {
+		return 0, 1
+	}
+	return reduce(int(d.lane(b)), ExpDen)
+}
+
+// Sixths returns the exponent of base b in d in sixths (so L^(1/2) gives 3).
+func (d Dim) Sixths(b Base) int {
+	if b >= NumBases {
+		return 0
+	}
+	return int(d.lane(b))
+}
+
+func reduce(n, d int) (int, int) {
+	g := gcd(n, d)
+	if g == 0 {
+		return 0, 1
+	}
+	n, d = n/g, d/g
+	if d < 0 {
+		n, d = -n, -d
+	}
+	return n, d
+}
+
+func gcd(a, b int) int {
+	if a < 0 {
+		a = -a
+	}
+	if b < 0 {
+		b = -b
+	}
+	for b != 0 {
+		a, b = b, a%b
+	}
+	return a
+}
+
+// IsDimensionless reports whether d is the dimension one.
+func (d Dim) IsDimensionless() bool { return d.bits == 0 }
+
+// Mul returns the dimension of a product d·o.
+func (d Dim) Mul(o Dim) (Dim, error) {
+	r, ok := d.add(o)
+	if !ok {
+		return Dim{}, &DimensionError{Op: "multiply", Left: d, Right: o, Binary: true, Detail: "an exponent overflows"}
+	}
+	return r, nil
+}
+
+// Div returns the dimension of a quotient d/o.
+func (d Dim) Div(o Dim) (Dim, error) {
+	r, ok := d.sub(o)
+	if !ok {
+		return Dim{}, &DimensionError{Op: "divide", Left: d, Right: o, Binary: true, Detail: "an exponent overflows"}
+	}
+	return r, nil
+}
+
+// Inv returns the dimension of 1/d.
+func (d Dim) Inv() (Dim, error) {
+	return Dimensionless.Div(d)
+}
+
+// Pow returns d raised to num/den. It reports a *DimensionError when a
+// resulting exponent is not a whole number of sixths or is out of range.
+func (d Dim) Pow(num, den int) (Dim, error) {
+	if den == 0 {
+		return Dim{}, &DimensionError{Op: "raise %s to a power", Left: d, Detail: "exponent " + strconv.Itoa(num) + "/0 has a zero denominator"}
+	}
+	var r Dim
+	for b := Base(0); b < NumBases; b++ {
+		e := int64(d.lane(b)) * int64(num)
+		if e%int64(den) != 0 {
+			return Dim{}, &DimensionError{Op: "raise %s to the power " + ratString(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " would not be a whole number of sixths"}
+		}
+		e /= int64(den)
+		if e > MaxExpSixths || e < MinExpSixths {
+			return Dim{}, &DimensionError{Op: "raise %s to the power " + ratString(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " overflows"}
+		}
+		r.setLane(b, int8(e))
+	}
+	return r, nil
+}
+
+func ratString(n, d int) string {
+	n, d = reduce(n, d)
+	if d == 1 {
+		return strconv.Itoa(n)
+	}
+	return strconv.Itoa(n) + "/" + strconv.Itoa(d)
+}
+
+var supDigits = [...]string{"⁰", "¹", "²", "³", "⁴", "⁵", "⁶", "⁷", "⁸", "⁹"}
+
+// superscript writes an exponent in Unicode superscripts when it is whole,
+// and as ^(n/d) otherwise.
+func superscript(sb *strings.Builder, n, d int) {
+	if d != 1 {
+		sb.WriteString("^(")
+		sb.WriteString(ratString(n, d))
+		sb.WriteByte(')')
+		return
+	}
+	if n < 0 {
+		sb.WriteString("⁻")
+		n = -n
+	}
+	for _, c := range strconv.Itoa(n) {
+		sb.WriteString(supDigits[c-'0'])
+	}
+}
+
+func caret(sb *strings.Builder, n, d int) {
+	sb.WriteByte('^')
+	if d != 1 {
+		sb.WriteByte('(')
+		sb.WriteString(ratString(n, d))
+		sb.WriteByte(')')
+		return
+	}
+	sb.WriteString(strconv.Itoa(n))
+}
+
+// String returns the ISO 80000 dimension form, base symbols in ISO order
+// separated by spaces with Unicode superscripts: "L⁻¹ M T⁻²". Fractional
+// exponents are written in parentheses, "L^(-1/2) M T⁻²"; the dimension one
+// is "1".
+func (d Dim) String() string {
+	if d.bits == 0 {
+		return "1"
+	}
+	var sb strings.Builder
+	for b := Base(0); b < NumBases; b++ {
+		n, den := d.Exp(b)
+		if n == 0 {
+			continue
+		}
+		if sb.Len() > 0 {
+			sb.WriteByte(' ')
+		}
+		sb.WriteString(baseSymbol[b])
+		if n != 1 || den != 1 {
+			superscript(&sb, n, den)
+		}
+	}
+	return sb.String()
+}
+
+// ASCII returns the ISO dimension form in ASCII: "L^-1 M T^-2", with Θ
+// written "Th".
+func (d Dim) ASCII() string {
+	if d.bits == 0 {
+		return "1"
+	}
+	var sb strings.Builder
+	for b := Base(0); b < NumBases; b++ {
+		n, den := d.Exp(b)
+		if n == 0 {
+			continue
+		}
+		if sb.Len() > 0 {
+			sb.WriteByte(' ')
+		}
+		sb.WriteString(baseSymbolASCII[b])
+		if n != 1 || den != 1 {
+			caret(&sb, n, den)
+		}
+	}
+	return sb.String()
+}
+
+// SIUnit returns d written in SI base units with a middle dot and Unicode
+// superscripts, kg first: "kg·m⁻¹·s⁻²". The dimension one is "1".
+func (d Dim) SIUnit() string {
+	if d.bits == 0 {
+		return "1"
+	}
+	var sb strings.Builder
+	for _, b := range unitOrder {
+		n, den := d.Exp(b)
+		if n == 0 {
+			continue
+		}
+		if sb.Len() > 0 {
+			sb.WriteString("·")
+		}
+		sb.WriteString(baseUnit[b])
+		if n != 1 || den != 1 {
+			superscript(&sb, n, den)
+		}
+	}
+	return sb.String()
+}
+
+// SIUnitASCII returns d in SI base units in ASCII, for logs and CSV
+// headers: "kg m^-1 s^-2".
+func (d Dim) SIUnitASCII() string {
+	if d.bits == 0 {
+		return "1"
+	}
+	var sb strings.Builder
+	for _, b := range unitOrder {
+		n, den := d.Exp(b)
+		if n == 0 {
+			continue
+		}
+		if sb.Len() > 0 {
+			sb.WriteByte(' ')
+		}
+		sb.WriteString(baseUnit[b])
+		if n != 1 || den != 1 {
+			caret(&sb, n, den)
+		}
+	}
+	return sb.String()
+}
+
+// MarshalText encodes d in the ASCII dimension form, which ParseDim reads.
+func (d Dim) MarshalText() ([]byte, error) { return []byte(d.ASCII()), nil }
+
+// UnmarshalText decodes a dimension written in any form ParseDim accepts.
+func (d *Dim) UnmarshalText(b []byte) error {
+	v, err := ParseDim(string(b))
+	if err != nil {
+		return err
+	}
+	*d = v
+	return nil
+}

@@ -1,0 +1,163 @@
+package quantity
+
+import (
+	"errors"
+	"fmt"
+	"strings"
+)
+
+// ErrDimension is matched by every *DimensionError under errors.Is, for
+// callers that only need to know that a dimension check failed.
+var ErrDimension = errors.New("dimension error")
+
+// DimensionError reports a dimension that is wrong for an operation: two
+// sides of a sum that differ, a transcendental function given a
+// dimensional argument, an exponent that overflows or cannot be held, or a
+// value checked against the dimension it should have.
+//
+// Arithmetic on Quantity and Series panics with a *DimensionError; the
+// checking functions (Quantity.Check, Series.Check, Eval, and Dim's own
+// methods) return one.
+type DimensionError struct {
+	// Op is the operation as a verb phrase: "add", "compare",
+	// "take the logarithm of", "check". A "%s" in it marks where the
+	// operand is named: "raise %s to a real power".
+	Op string
+	// Name is the caller's name for the value, if any ("Re", "column 3").
+	Name string
+	// Left is the dimension of the (first) operand, or the dimension found
+	// by a check.
+	Left Dim
+	// Right is the dimension of the second operand, or the expected
+	// dimension for a check; it is meaningful when Binary is true.
+	Right Dim
+	// Binary reports whether the operation had two operands (or an
+	// expected dimension).
+	Binary bool
+	// Detail says why, when the operation alone does not ("the argument
+	// must be dimensionless").
+	Detail string
+}
+
+// Describe names a dimension for a message: its kinds of quantity, if any
+// are known, and its SI base-unit form — "pressure, stress [kg·m⁻¹·s⁻²]".
+func Describe(d Dim) string {
+	if name := KindName(d); name != "" {
+		return name + " [" + d.SIUnit() + "]"
+	}
+	return "[" + d.SIUnit() + "]"
+}
+
+// Error returns the message, naming the operation and both sides with
+// their kinds of quantity:
+//
+//	cannot add pressure, stress [kg·m⁻¹·s⁻²] and velocity [m·s⁻¹]
+func (e *DimensionError) Error() string {
+	var sb strings.Builder
+	if e.Op == "check" {
+		if e.Name != "" {
+			sb.WriteString(e.Name)
+			sb.WriteString(": ")
+		}
+		fmt.Fprintf(&sb, "want %s, got %s", Describe(e.Right), Describe(e.Left))
+		if e.Detail != "" {
+			sb.WriteString(": ")
+			sb.WriteString(e.Detail)
+		}
+		return sb.String()
+	}
+	if e.Name != "" {
+		sb.WriteString(e.Name)
+		sb.WriteString(": ")
+	}
+	sb.WriteString("cannot ")
+	// A product or quotient fails only by overflow, of two operands.
+	binary := e.Binary || e.Op == "multiply" || e.Op == "divide"
+	if before, after, ok := strings.Cut(e.Op, "%s"); ok {
+		// The operand goes inside the phrase: "raise %s to a real power".
+		sb.WriteString(before)
+		sb.WriteString(Describe(e.Left))
+		sb.WriteString(after)
+	} else {
+		sb.WriteString(e.Op)
+		if e.Left != (Dim{}) || binary || e.Detail == "" {
+			sb.WriteByte(' ')
+			sb.WriteString(Describe(e.Left))
+		}
+	}
+	if binary {
+		sb.WriteString(" and ")
+		sb.WriteString(Describe(e.Right))
+	}
+	detail := e.Detail
+	if detail == "" && (e.Op == "multiply" || e.Op == "divide" || e.Op == "invert") {
+		detail = overflows // the only way these fail
+	}
+	if detail != "" {
+		sb.WriteString(": ")
+		sb.WriteString(detail)
+	}
+	return sb.String()
+}
+
+// Is reports whether target is ErrDimension.
+func (e *DimensionError) Is(target error) bool { return target == ErrDimension }
+
+// LengthError reports Series of different lengths combined element-wise.
+type LengthError struct {
+	Op          string // the operation, "add", "multiply", …
+	Left, Right int    // the two lengths
+}
+
+func (e *LengthError) Error() string {
+	return fmt.Sprintf("cannot %s series of lengths %d and %d", e.Op, e.Left, e.Right)
+}
+
+//go:noinline
+func panicBinary(op string, a, b Dim) {
+	panic(&DimensionError{Op: op, Left: a, Right: b, Binary: true})
+}
+
+//go:noinline
+func panicOverflow(op string, a, b Dim) {
+	panic(&DimensionError{Op: op, Left: a, Right: b, Binary: true, Detail: overflows})
+}
+
+//go:noinline
+func panicUnary(op string, a Dim, detail string) {
+	panic(&DimensionError{Op: op, Left: a, Detail: detail})
+}
+
+//go:noinline
+func panicErr(err error) { panic(err) }
+
+//go:noinline
+func panicLength(op string, a, b int) {
+	panic(&LengthError{Op: op, Left: a, Right: b})
+}
+
+const overflows = "an exponent overflows"
+
+const mustBeDimensionless = "the argument must be dimensionless"
+
+// Eval runs a formula and returns its result, turning a panic with a
+// *DimensionError or *LengthError raised inside it into a returned error.
+// Any other panic is passed on. It is meant for programs that evaluate
+// formulas their users supply, where a dimension mismatch is an input
+// error rather than a bug.
+func Eval(formula func() Quantity) (q Quantity, err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			switch e := r.(type) {
+			case *DimensionError:
+				err = e
+			case *LengthError:
+				err = e
+			default:
+				panic(r)
+			}
+			q = Quantity{}
+		}
+	}()
+	return formula(), nil
+}

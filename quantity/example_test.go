@@ -1,0 +1,66 @@
+package quantity_test
+
+import (
+	"errors"
+	"fmt"
+
+	"similis.dev/similis/quantity"
+)
+
+// The error model: a formula bug panics with a *DimensionError at once;
+// values from input are checked first; user formulas run under Eval.
+func Example() {
+	rho := quantity.New(998.2, quantity.Density) // water at 20 °C
+	v := quantity.New(2.0, quantity.Velocity)
+	d := quantity.New(0.05, quantity.Length)
+	mu := quantity.New(1.0016e-3, quantity.DynamicViscosity)
+
+	re := rho.Mul(v).Mul(d).Div(mu)
+	fmt.Printf("Re = %.4g (%s)\n", re.Value(), re.Dim())
+
+	// A viscosity read from a file turns out to be kinematic.
+	fromFile := quantity.New(1.0034e-6, quantity.KinematicViscosity)
+	if err := fromFile.CheckNamed("μ", quantity.DynamicViscosity); err != nil {
+		fmt.Println(err)
+	}
+
+	// A user's formula that adds a pressure to a velocity.
+	_, err := quantity.Eval(func() quantity.Quantity {
+		return quantity.New(101325, quantity.Pressure).Add(v)
+	})
+	var de *quantity.DimensionError
+	fmt.Println(errors.As(err, &de), err)
+	// Output:
+	// Re = 9.966e+04 (1)
+	// μ: want dynamic viscosity [kg·m⁻¹·s⁻¹], got kinematic viscosity, thermal diffusivity, diffusion coefficient [m²·s⁻¹]
+	// true cannot add pressure, stress [kg·m⁻¹·s⁻²] and velocity [m·s⁻¹]
+}
+
+func ExampleDim() {
+	k, _ := quantity.ParseDim("kg m^(-1/2) s^-2") // fracture toughness, MPa·√m
+	fmt.Println(k, "|", k.SIUnit(), "|", quantity.KindName(k))
+	p, _ := quantity.Force.Div(quantity.Area)
+	fmt.Println(p == quantity.Pressure, p.SIUnitASCII())
+	// Output:
+	// L^(-1/2) M T⁻² | kg·m^(-1/2)·s⁻² | stress intensity factor
+	// true kg m^-1 s^-2
+}
+
+func ExampleSeries() {
+	rho := quantity.NewSeries([]float64{998, 997, 996}, quantity.Density)
+	v := quantity.NewSeries([]float64{1, 2, 3}, quantity.Velocity)
+	var q quantity.Series
+	q.Mul(rho, v).Mul(q, v).Scale(q, 0.5) // dynamic pressure, no allocation once q has grown
+	fmt.Printf("%.1f\n", q.Values())
+	fmt.Println(q.Dim().SIUnit(), q.Max())
+	// Output:
+	// [499.0 1994.0 4482.0]
+	// kg·m⁻¹·s⁻² 4482 kg·m⁻¹·s⁻²
+}
+
+func ExampleQuantity_Format() {
+	rho := quantity.New(1.225, quantity.Density)
+	fmt.Printf("%v | %.2g | %#v | %12.3e|\n", rho, rho, rho, rho)
+	// Output:
+	// 1.225 kg·m⁻³ | 1.2 kg·m⁻³ | 1.225 kg m^-3 | 1.225e+00 kg·m⁻³|
+}
