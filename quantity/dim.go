@@ -250,9 +250,13 @@ func (d Dim) Pow(num, den int) (Dim, error) {
 	if den == 0 {
 		return Dim{}, &DimensionError{Op: "raise %s to a power", Left: d, Detail: "exponent " + strconv.Itoa(num) + "/0 has a zero denominator"}
 	}
-	var r Dim
-	for b := Base(0); b < NumBases; b++ {
-		e := int64(d.lane(b)) * int64(num)
+	if num == den {
+		return d, nil
+	}
+	in := d.lanes()
+	var out [NumBases]int8
+	for b, v := range in {
+		e := int64(v) * int64(num)
 		if e%int64(den) != 0 {
 			return Dim{}, &DimensionError{Op: "raise %s to the power " + ratString(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " would not be a whole number of sixths"}
 		}
@@ -260,9 +264,9 @@ func (d Dim) Pow(num, den int) (Dim, error) {
 		if e > MaxExpSixths || e < MinExpSixths {
 			return Dim{}, &DimensionError{Op: "raise %s to the power " + ratString(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " overflows"}
 		}
-		r.setLane(b, int8(e))
+		out[b] = int8(e)
 	}
-	return r, nil
+	return encode(out), nil
 }
 
 func ratString(n, d int) string {

@@ -1,0 +1,282 @@
+package units
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+	"unicode/utf8"
+
+	"similis.dev/similis/quantity"
+)
+
+// Reasons a conversion is refused; a *ConversionError wraps one.
+var (
+	ErrIncompatible = errors.New("incompatible dimensions")
+	ErrAngle        = errors.New("angle mismatch")
+	ErrTemperature  = errors.New("temperature scale and difference mixed")
+)
+
+// ConversionError reports a conversion that cannot be made, naming both
+// units with their kinds of quantity, and how to write what was meant.
+type ConversionError struct {
+	From, To Unit
+	// FromDim is the dimension of the source, for a Quantity read in a
+	// unit (From is then the zero Unit).
+	FromDim quantity.Dim
+	Err     error  // ErrIncompatible, ErrAngle or ErrTemperature
+	Reason  string // what is wrong
+	Hint    string // how to write what was meant, if known
+}
+
+func describeUnit(u Unit) string {
+	return fmt.Sprintf("%s (%s)", u.Format(Unicode), quantity.Describe(u.dim))
+}
+
+func (e *ConversionError) Error() string {
+	from := describeUnit(e.From)
+	if e.From == (Unit{}) {
+		from = "a quantity of " + quantity.Describe(e.FromDim)
+	}
+	s := fmt.Sprintf("units: cannot convert %s to %s", from, describeUnit(e.To))
+	if e.Reason != "" {
+		s += ": " + e.Reason
+	}
+	if e.Hint != "" {
+		s += "; " + e.Hint
+	}
+	return s
+}
+
+// Unwrap returns the class of the problem.
+func (e *ConversionError) Unwrap() error { return e.Err }
+
+func checkConvert(from, to Unit) error {
+	if from.dim != to.dim {
+		return &ConversionError{From: from, To: to, Err: ErrIncompatible, Reason: "the dimensions differ"}
+	}
+	if from.angle != to.angle || from.solid != to.solid {
+		e := &ConversionError{From: from, To: to, Err: ErrAngle}
+		if from.solid != to.solid {
+			e.Reason = "one carries a solid angle (sr) and the other does not"
+			e.Hint = "multiply or divide by sr explicitly if that is meant"
+			return e
+		}
+		e.Reason = fmt.Sprintf("%s carries a plane angle to the power %d and %s to the power %d; a revolution is 2π rad, so converting would silently apply or drop 2π",
+			from.Format(Unicode), from.angle, to.Format(Unicode), to.angle)
+		switch {
+		case from.angle > to.angle:
+			e.Hint = fmt.Sprintf("write the target with its angle (rev/s or rad/s for a rotational speed), or divide the source by the angle unit, as in (%s)/rev, to count revolutions as cycles", from.Format(Unicode))
+		default:
+			e.Hint = fmt.Sprintf("write the source with its angle (rev/s for cycles per second), or divide the target by the angle unit, as in (%s)/rev", to.Format(Unicode))
+		}
+		return e
+	}
+	if from.temp == tempScale && to.temp == tempInterval || from.temp == tempInterval && to.temp == tempScale {
+		return &ConversionError{From: from, To: to, Err: ErrTemperature,
+			Reason: "one is a temperature scale (a level) and the other a temperature difference",
+			Hint:   "write both as differences (Δ°C, Δ°F, K) or both as levels (°C, °F, K)"}
+	}
+	return nil
+}
+
+// ConvertUnits converts v from unit from to unit to. A temperature level
+// on a scale converts affinely (20 °C is 68 °F); everything else, a
+// temperature difference included, scales by the ratio of factors.
+func ConvertUnits(v float64, from, to Unit) (float64, error) {
+	if err := checkConvert(from, to); err != nil {
+		return 0, err
+	}
+	if from.offset == 0 && to.offset == 0 {
+		if from.factor == to.factor {
+			return v, nil
+		}
+		return v * (from.factor / to.factor), nil
+	}
+	return (v*from.factor + from.offset - to.offset) / to.factor, nil
+}
+
+// Convert converts the value v from the unit expression from to the unit
+// expression to, with the built-in table: Convert(14.7, "psi", "kPa").
+func Convert(v float64, from, to string) (float64, error) {
+	fu, err := Parse(from)
+	if err != nil {
+		return 0, err
+	}
+	tu, err := Parse(to)
+	if err != nil {
+		return 0, err
+	}
+	return ConvertUnits(v, fu, tu)
+}
+
+// Value is a number and a unit: a quantity value as written on a data
+// sheet ("12.5 kn"). Its text form is the number, a space and the unit's
+// spelling; it implements encoding.TextMarshaler and TextUnmarshaler
+// (and so JSON through text), and flag.Value.
+type Value struct {
+	Number float64
+	Unit   Unit
+}
+
+// Quantity returns the value as a Quantity in SI.
+func (v Value) Quantity() quantity.Quantity { return v.Unit.Of(v.Number) }
+
+// In converts v to unit u.
+func (v Value) In(u Unit) (Value, error) {
+	x, err := ConvertUnits(v.Number, v.Unit, u)
+	if err != nil {
+		return Value{}, err
+	}
+	return Value{x, u}, nil
+}
+
+// String returns "12.5 kn" in Unicode spelling.
+func (v Value) String() string {
+	n := strconv.FormatFloat(v.Number, 'g', -1, 64)
+	if v.Unit.sym == "" || v.Unit.sym == "1" {
+		return n
+	}
+	return n + " " + v.Unit.Format(Unicode)
+}
+
+// MarshalText encodes v as its number and its ASCII unit spelling.
+func (v Value) MarshalText() ([]byte, error) {
+	if math.IsNaN(v.Number) || math.IsInf(v.Number, 0) {
+		return nil, fmt.Errorf("units: cannot encode the non-finite value %v", v.Number)
+	}
+	n := strconv.FormatFloat(v.Number, 'g', -1, 64)
+	if v.Unit.sym == "" || v.Unit.sym == "1" {
+		return []byte(n), nil
+	}
+	return []byte(n + " " + v.Unit.String()), nil
+}
+
+// UnmarshalText decodes text ParseValue reads.
+func (v *Value) UnmarshalText(b []byte) error {
+	x, err := ParseValue(string(b))
+	if err != nil {
+		return err
+	}
+	*v = x
+	return nil
+}
+
+// Set parses s into v, for flag.Value: -speed 12kn.
+func (v *Value) Set(s string) error { return v.UnmarshalText([]byte(s)) }
+
+// ValueError reports text that is not a number followed by a unit.
+type ValueError struct {
+	Text   string
+	Offset int
+	Reason string
+	Err    error // a *ParseError for the unit part, or nil
+}
+
+func (e *ValueError) Error() string {
+	if e.Err != nil {
+		return fmt.Sprintf("units: value %q: %v", e.Text, e.Err)
+	}
+	return fmt.Sprintf("units: value %q: at offset %d: %s", e.Text, e.Offset, e.Reason)
+}
+
+// Unwrap returns the unit's parse error, if that was the problem.
+func (e *ValueError) Unwrap() error { return e.Err }
+
+// ParseValue reads a number and a unit expression, with or without a
+// space between them: "12.5 kn", "101.325 kPa", "20 °C", "3.2e-3 Pa·s",
+// "12kn". A number alone is dimensionless.
+func ParseValue(s string) (Value, error) { return parseValue(builtinTable{}, s, Parse) }
+
+func parseValue(tab symbolTable, s string, parse func(string) (Unit, error)) (Value, error) {
+	if len(s) > MaxExprLen+maxNumLen {
+		return Value{}, &ValueError{Text: s[:64] + "…", Offset: 0, Reason: "text too long"}
+	}
+	t := strings.TrimSpace(s)
+	lead := strings.Index(s, t)
+	j := 0
+	if j < len(t) && (t[j] == '+' || t[j] == '-') {
+		j++
+	}
+	digits := 0
+	for j < len(t) && (t[j] >= '0' && t[j] <= '9' || t[j] == '.') {
+		if t[j] != '.' {
+			digits++
+		}
+		j++
+	}
+	if digits == 0 {
+		return Value{}, &ValueError{Text: s, Offset: lead, Reason: "expected a number"}
+	}
+	if j < len(t) && (t[j] == 'e' || t[j] == 'E') {
+		k := j + 1
+		if k < len(t) && (t[k] == '+' || t[k] == '-') {
+			k++
+		}
+		if k < len(t) && t[k] >= '0' && t[k] <= '9' {
+			for k < len(t) && t[k] >= '0' && t[k] <= '9' {
+				k++
+			}
+			j = k
+		}
+	}
+	if j > maxNumLen {
+		return Value{}, &ValueError{Text: s, Offset: lead, Reason: "number too long"}
+	}
+	x, err := strconv.ParseFloat(t[:j], 64)
+	if err != nil || math.IsInf(x, 0) {
+		return Value{}, &ValueError{Text: s, Offset: lead, Reason: fmt.Sprintf("%q is not a finite number", t[:j])}
+	}
+	rest := strings.TrimSpace(t[j:])
+	if rest == "" {
+		return Value{Number: x, Unit: One}, nil
+	}
+	if r, _ := utf8.DecodeRuneInString(rest); r == '/' || r == '*' || r == '^' {
+		return Value{}, &ValueError{Text: s, Offset: lead + j, Reason: "a unit must follow the number (write 1/s, not /s)"}
+	}
+	u, err := parse(rest)
+	if err != nil {
+		return Value{}, &ValueError{Text: s, Err: err}
+	}
+	return Value{Number: x, Unit: u}, nil
+}
+
+// ParseQuantity reads a number and a unit, as ParseValue does, and returns
+// the quantity in SI: "20 °C" is 293.15 K.
+func ParseQuantity(s string) (quantity.Quantity, error) {
+	v, err := ParseValue(s)
+	if err != nil {
+		return quantity.Quantity{}, err
+	}
+	return v.Quantity(), nil
+}
+
+// Flag is a flag.Value for a quantity with a required dimension, so a
+// program can accept -speed 12kn and refuse -speed 12kg:
+//
+//	speed := units.NewFlag(quantity.Velocity, units.Value{Number: 10, Unit: units.MustParse("kn")})
+//	flag.Var(speed, "speed", "towing speed")
+type Flag struct {
+	Value
+	dim quantity.Dim
+}
+
+// NewFlag returns a Flag requiring dimension d, holding def.
+func NewFlag(d quantity.Dim, def Value) *Flag { return &Flag{Value: def, dim: d} }
+
+// Set parses s and checks its dimension.
+func (f *Flag) Set(s string) error {
+	v, err := ParseValue(s)
+	if err != nil {
+		return err
+	}
+	if v.Unit.dim != f.dim {
+		return &quantity.DimensionError{Op: "check", Name: s, Left: v.Unit.dim, Right: f.dim, Binary: true}
+	}
+	f.Value = v
+	return nil
+}
+
+// Dim returns the dimension the flag requires.
+func (f *Flag) Dim() quantity.Dim { return f.dim }

@@ -1,0 +1,80 @@
+package units_test
+
+import (
+	"errors"
+	"fmt"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/units"
+)
+
+func ExampleConvert() {
+	kpa, _ := units.Convert(14.7, "psi", "kPa")
+	f, _ := units.Convert(20, "°C", "°F")
+	h, _ := units.Convert(1, "BTU/(h*ft^2*degF)", "W/(m²·K)")
+	fmt.Printf("%.4f kPa, %.1f °F, %.6f W/(m²·K)\n", kpa, f, h)
+	_, err := units.Convert(1500, "rpm", "Hz")
+	fmt.Println(errors.Is(err, units.ErrAngle))
+	// Output:
+	// 101.3529 kPa, 68.0 °F, 5.678263 W/(m²·K)
+	// true
+}
+
+func ExampleParse() {
+	u, err := units.Parse("BTU/(h*ft^2*degF)")
+	if err != nil {
+		panic(err)
+	}
+	fmt.Println(u.Format(units.Unicode), "|", u, "|", quantity.KindName(u.Dim()))
+	_, err = units.Parse("W/m K")
+	fmt.Println(err)
+	_, err = units.Parse("kpa")
+	fmt.Println(err)
+	// Output:
+	// BTU/(h·ft²·°F) | BTU/(h*ft^2*degF) | heat transfer coefficient
+	// units: "W/m K": at offset 4: ambiguous expression: a product after a division: write the denominator in parentheses, as in W/(m·K), or put the factor first, as in K·W/m
+	// units: "kpa": at offset 0: unknown unit symbol: "kpa" (did you mean "kPa", "Da" or "Pa"?)
+}
+
+func ExampleParseQuantity() {
+	v, _ := units.ParseQuantity("12.5 kn")
+	t, _ := units.ParseQuantity("20 °C")
+	fmt.Printf("%.4f %v\n", v.Value(), v.Dim().SIUnit())
+	fmt.Println(t)
+	// Output:
+	// 6.4306 m·s⁻¹
+	// 293.15 K
+}
+
+func ExamplePrinter() {
+	p := units.Printer{Prefix: true, Precision: 4}
+	fmt.Println(p.Format(units.StandardAtmosphere))
+	fmt.Println(p.Format(quantity.New(1.8e-5, quantity.DynamicViscosity)))
+	s, _ := p.FormatIn(quantity.New(745.7, quantity.Power), units.MustParse("hp"))
+	fmt.Println(s)
+	p.Style = units.LaTeX
+	fmt.Println(p.Format(quantity.New(0.6, quantity.ThermalConductivity)))
+	// Output:
+	// 101.3 kPa
+	// 18 µPa·s
+	// 1 hp
+	// 0.6\,\mathrm{W}/(\mathrm{m}\cdot \mathrm{K})
+}
+
+func ExampleTable_Define() {
+	lab := units.NewTable()
+	_ = lab.Define("TR", "12000 BTU/h") // ton of refrigeration
+	kw, _ := lab.Convert(2, "TR", "kW")
+	fmt.Printf("2 TR = %.3f kW\n", kw)
+	// Output:
+	// 2 TR = 7.034 kW
+}
+
+func ExampleNewFlag() {
+	speed := units.NewFlag(quantity.Velocity, units.Value{Number: 10, Unit: units.MustParse("kn")})
+	fmt.Println(speed.Set("12kn"), speed)
+	fmt.Println(speed.Set("12 kg"))
+	// Output:
+	// <nil> 12 kn
+	// 12 kg: want velocity [m·s⁻¹], got mass [kg]
+}

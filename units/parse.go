@@ -1,0 +1,741 @@
+package units
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+	"sync"
+	"sync/atomic"
+	"unicode"
+	"unicode/utf8"
+
+	"similis.dev/similis/quantity"
+)
+
+// Reasons a unit expression is refused; a *ParseError wraps one of them,
+// so errors.Is(err, ErrUnknownSymbol) and the like work.
+var (
+	ErrEmpty         = errors.New("empty expression")
+	ErrSyntax        = errors.New("syntax error")
+	ErrUnknownSymbol = errors.New("unknown unit symbol")
+	ErrDangling      = errors.New("dangling operator")
+	ErrParen         = errors.New("unbalanced parenthesis")
+	ErrExponent      = errors.New("bad exponent")
+	ErrTooDeep       = errors.New("nesting too deep")
+	ErrTooLong       = errors.New("expression too long")
+	ErrAmbiguous     = errors.New("ambiguous expression")
+	ErrNumber        = errors.New("bad number")
+	ErrDimension     = errors.New("dimension out of range")
+)
+
+// Limits that bound the parser's work for any input.
+const (
+	MaxExprLen  = 512 // bytes in an expression
+	MaxDepth    = 16  // nested parentheses
+	MaxExpAbs   = 24  // largest |exponent| numerator
+	MaxExpDen   = 12  // largest exponent denominator
+	maxNumLen   = 40  // bytes in a numeric factor
+	maxCacheLen = 8192
+)
+
+// ParseError reports a unit expression that cannot be read: where, and
+// why. Err is one of the Err… values above.
+type ParseError struct {
+	Expr    string   // the expression given
+	Offset  int      // byte offset of the problem
+	Err     error    // the class of problem, for errors.Is
+	Reason  string   // what exactly is wrong
+	Symbol  string   // the offending symbol, if any
+	Suggest []string // nearest known spellings, for an unknown symbol
+}
+
+func (e *ParseError) Error() string {
+	var sb strings.Builder
+	fmt.Fprintf(&sb, "units: %q: at offset %d: %v", e.Expr, e.Offset, e.Err)
+	if e.Reason != "" {
+		sb.WriteString(": ")
+		sb.WriteString(e.Reason)
+	}
+	if len(e.Suggest) > 0 {
+		sb.WriteString(" (did you mean ")
+		for i, s := range e.Suggest {
+			if i > 0 {
+				if i == len(e.Suggest)-1 {
+					sb.WriteString(" or ")
+				} else {
+					sb.WriteString(", ")
+				}
+			}
+			sb.WriteString(strconv.Quote(s))
+		}
+		sb.WriteString("?)")
+	}
+	return sb.String()
+}
+
+// Unwrap returns the class of the problem.
+func (e *ParseError) Unwrap() error { return e.Err }
+
+// symbolTable resolves unit symbols.
+type symbolTable interface {
+	lookup(sym string) (*entry, bool)
+	spellings() []string
+}
+
+// lookupIn resolves a symbol in the built-in index: an exact spelling,
+// or an SI prefix on a unit that takes one (precomputed at start-up).
+func lookupIn(idx *tableIndex, sym string) (*entry, bool) {
+	if e, ok := idx.bySym[sym]; ok {
+		return e, true
+	}
+	e, ok := idx.prefixed[sym]
+	return e, ok
+}
+
+// prefixedEntry returns the entry for prefix p on base.
+func prefixedEntry(p prefix, base *entry) *entry {
+	e := *base
+	e.u.factor = applyPrefix(base.u.factor, p.exp)
+	e.u.sym = p.ascii + base.u.sym
+	e.uni = p.uni + base.uni
+	if rest, ok := strings.CutPrefix(base.tex, `\mathrm{`); ok && p.ascii != "u" {
+		e.tex = `\mathrm{` + p.ascii + rest
+	} else {
+		e.tex = p.tex + base.tex
+	}
+	e.prefixable = false
+	return &e
+}
+
+// applyPrefix returns f·10^e, dividing by an exact power of ten for
+// negative e so that, for example, centistokes is 1e-6 m²/s to the last
+// bit.
+func applyPrefix(f float64, e int) float64 {
+	if e >= 0 {
+		return f * math.Pow10(e)
+	}
+	if e >= -22 {
+		return f / math.Pow10(-e)
+	}
+	return f / 1e22 / math.Pow10(-e-22)
+}
+
+var prefixSpellingTable = func() map[string][]string {
+	m := make(map[string][]string)
+	for _, p := range prefixes {
+		if p.ascii == "u" {
+			m[p.ascii] = microSpellings
+		} else {
+			m[p.ascii] = []string{p.ascii}
+		}
+	}
+	return m
+}()
+
+func prefixSpellings(p prefix) []string { return prefixSpellingTable[p.ascii] }
+
+type builtinTable struct{}
+
+func (builtinTable) lookup(sym string) (*entry, bool) { return lookupIn(builtinIndex, sym) }
+func (builtinTable) spellings() []string              { return builtinSpellings() }
+
+var builtinSpellings = sync.OnceValue(func() []string {
+	var out []string
+	for s := range builtinIndex.bySym {
+		out = append(out, s)
+	}
+	return out
+})
+
+// term is one factor of a unit's spelling: a symbol (with its prefix) or a
+// numeric literal, raised to num/den.
+type term struct {
+	sym      string
+	num, den int
+	number   bool
+}
+
+type terms []term
+
+// val is a partly parsed expression.
+type val struct {
+	factor       float64
+	dim          quantity.Dim
+	angle, solid int
+	lo, hi       int // this value's terms are p.terms[lo:hi]
+	// single is set when the value is one symbol to the power one; temp
+	// and offset are then that symbol's temperature role and offset.
+	single bool
+	temp   tempRole
+	offset float64
+}
+
+type parser struct {
+	s     string
+	i     int
+	depth int
+	tab   symbolTable
+	// terms holds the spelling terms of every factor read so far, in
+	// order; each val owns a contiguous range of it, so products and
+	// quotients join ranges and powers scale them, without allocating.
+	terms terms
+}
+
+func (p *parser) fail(at int, kind error, reason string) *ParseError {
+	return &ParseError{Expr: p.s, Offset: at, Err: kind, Reason: reason}
+}
+
+// parserPool recycles parsers and their term storage.
+var parserPool = sync.Pool{New: func() any { return &parser{terms: make(terms, 0, 16)} }}
+
+// cache holds parsed expressions of the built-in table.
+var (
+	cache    sync.Map // string → Unit
+	cacheLen atomic.Int64
+)
+
+// Parse reads a unit expression with the built-in table.
+//
+// Grammar: factors are unit symbols (with an SI prefix where the SI allows
+// one), positive numbers, or parenthesised expressions, each optionally
+// raised to a power. A space, '*', '·' or '⋅' is a product; '/' divides by
+// the next factor and applies left to right, so kg/m/s is kg/(m·s). A
+// product written after a division without parentheses (W/m·K) is refused
+// as ambiguous: write W/(m·K). Exponents are integers ("m^2", "s^-1",
+// "m**2"), Unicode superscripts ("m²", "s⁻¹"), fractions in parentheses
+// ("m^(1/2)") or decimals equal to simple fractions ("in^0.5").
+//
+// A temperature scale written alone (°C, degF) is a scale and converts
+// levels affinely; inside a compound unit (W/(m·°C)) it denotes its degree
+// as an interval, as engineering data sheets mean it (common practice).
+// Δ°C, ΔdegF (ASCII delta_degC) spell temperature differences explicitly.
+//
+// Errors are *ParseError values. Parse never panics and its work is
+// bounded by MaxExprLen and MaxDepth. Results are cached, so parsing the
+// same expression again is a map lookup.
+func Parse(expr string) (Unit, error) {
+	if u, ok := cache.Load(expr); ok {
+		return u.(Unit), nil
+	}
+	u, err := parseWith(builtinTable{}, expr)
+	if err != nil {
+		return Unit{}, err
+	}
+	if cacheLen.Load() < maxCacheLen {
+		if _, loaded := cache.LoadOrStore(expr, u); !loaded {
+			cacheLen.Add(1)
+		}
+	}
+	return u, nil
+}
+
+// MustParse is like Parse but panics on error. It is meant for
+// package-level declarations of units written in code.
+func MustParse(expr string) Unit {
+	u, err := Parse(expr)
+	if err != nil {
+		panic(err)
+	}
+	return u
+}
+
+func parseWith(tab symbolTable, expr string) (Unit, error) {
+	if len(expr) > MaxExprLen {
+		return Unit{}, &ParseError{Expr: expr[:MaxExprLen] + "…", Offset: MaxExprLen, Err: ErrTooLong, Reason: fmt.Sprintf("longer than %d bytes", MaxExprLen)}
+	}
+	if !utf8.ValidString(expr) {
+		i := 0
+		for i < len(expr) {
+			r, n := utf8.DecodeRuneInString(expr[i:])
+			if r == utf8.RuneError && n == 1 {
+				break
+			}
+			i += n
+		}
+		return Unit{}, &ParseError{Expr: expr, Offset: i, Err: ErrSyntax, Reason: "invalid UTF-8"}
+	}
+	p := parserPool.Get().(*parser)
+	defer parserPool.Put(p)
+	*p = parser{s: expr, tab: tab, terms: p.terms[:0]}
+	p.skipSpace()
+	if p.i == len(p.s) {
+		return Unit{}, p.fail(0, ErrEmpty, "no unit given (write 1 for a pure number)")
+	}
+	v, err := p.product()
+	if err != nil {
+		return Unit{}, err
+	}
+	p.skipSpace()
+	if p.i < len(p.s) {
+		if p.s[p.i] == ')' {
+			return Unit{}, p.fail(p.i, ErrParen, "')' without a matching '('")
+		}
+		return Unit{}, p.fail(p.i, ErrSyntax, fmt.Sprintf("unexpected %q", p.peekRune()))
+	}
+	return p.unit(v)
+}
+
+func (p *parser) unit(v val) (Unit, error) {
+	t, err := mergeTerms(p.terms[v.lo:v.lo], p.terms[v.lo:v.hi], 1)
+	if err != nil {
+		return Unit{}, p.fail(0, ErrExponent, err.Error())
+	}
+	u := Unit{dim: v.dim, factor: v.factor, angle: int8(v.angle), solid: int8(v.solid), sym: t.spell(styleASCII)}
+	if v.single {
+		u.temp, u.offset = v.temp, v.offset
+	}
+	return u, nil
+}
+
+func (p *parser) peekRune() rune {
+	r, _ := utf8.DecodeRuneInString(p.s[p.i:])
+	return r
+}
+
+func (p *parser) skipSpace() bool {
+	start := p.i
+	for p.i < len(p.s) && (p.s[p.i] == ' ' || p.s[p.i] == '\t') {
+		p.i++
+	}
+	return p.i > start
+}
+
+// mulOp reports a product operator at p.i and its width.
+func (p *parser) mulOp() int {
+	if p.i >= len(p.s) {
+		return 0
+	}
+	if p.s[p.i] == '*' && !strings.HasPrefix(p.s[p.i:], "**") {
+		return 1
+	}
+	for _, op := range []string{"·", "⋅", "×"} {
+		if strings.HasPrefix(p.s[p.i:], op) {
+			return len(op)
+		}
+	}
+	return 0
+}
+
+func (p *parser) product() (val, error) {
+	acc, err := p.factor()
+	if err != nil {
+		return val{}, err
+	}
+	divided := false
+	for {
+		spaced := p.skipSpace()
+		if p.i >= len(p.s) || p.s[p.i] == ')' {
+			return acc, nil
+		}
+		opAt := p.i
+		var next val
+		switch {
+		case p.s[p.i] == '/':
+			p.i++
+			p.skipSpace()
+			if p.i >= len(p.s) {
+				return val{}, p.fail(opAt, ErrDangling, "'/' with nothing after it")
+			}
+			if next, err = p.factor(); err != nil {
+				return val{}, err
+			}
+			if acc, err = combine(p, opAt, acc, next, -1); err != nil {
+				return val{}, err
+			}
+			divided = true
+			continue
+		case p.mulOp() > 0:
+			p.i += p.mulOp()
+			p.skipSpace()
+			if p.i >= len(p.s) || p.s[p.i] == ')' {
+				return val{}, p.fail(opAt, ErrDangling, "product operator with nothing after it")
+			}
+		case spaced:
+			// juxtaposition: a product
+		default:
+			return val{}, p.fail(p.i, ErrSyntax, fmt.Sprintf("unexpected %q (missing operator?)", p.peekRune()))
+		}
+		if divided {
+			return val{}, p.fail(opAt, ErrAmbiguous, "a product after a division: write the denominator in parentheses, as in W/(m·K), or put the factor first, as in K·W/m")
+		}
+		if next, err = p.factor(); err != nil {
+			return val{}, err
+		}
+		if acc, err = combine(p, opAt, acc, next, 1); err != nil {
+			return val{}, err
+		}
+	}
+}
+
+func combine(p *parser, at int, a, b val, sign int) (val, error) {
+	var d quantity.Dim
+	var err error
+	if sign > 0 {
+		d, err = a.dim.Mul(b.dim)
+	} else {
+		d, err = a.dim.Div(b.dim)
+	}
+	if err != nil {
+		return val{}, p.fail(at, ErrDimension, "an exponent of the dimension overflows")
+	}
+	if sign < 0 {
+		for i := b.lo; i < b.hi; i++ {
+			p.terms[i].num = -p.terms[i].num
+		}
+	}
+	f := a.factor * b.factor
+	if sign < 0 {
+		f = a.factor / b.factor
+	}
+	if f == 0 || math.IsInf(f, 0) || math.IsNaN(f) {
+		return val{}, p.fail(at, ErrNumber, "the unit's factor overflows")
+	}
+	return val{factor: f, dim: d, angle: a.angle + sign*b.angle, solid: a.solid + sign*b.solid, lo: a.lo, hi: b.hi}, nil
+}
+
+func (p *parser) factor() (val, error) {
+	start := p.i
+	var v val
+	var err error
+	c := p.s[p.i]
+	switch {
+	case c == '(':
+		if p.depth >= MaxDepth {
+			return val{}, p.fail(p.i, ErrTooDeep, fmt.Sprintf("more than %d nested parentheses", MaxDepth))
+		}
+		p.depth++
+		p.i++
+		p.skipSpace()
+		if p.i >= len(p.s) {
+			return val{}, p.fail(start, ErrParen, "'(' is never closed")
+		}
+		if p.s[p.i] == ')' {
+			return val{}, p.fail(p.i, ErrSyntax, "empty parentheses")
+		}
+		if v, err = p.product(); err != nil {
+			return val{}, err
+		}
+		p.skipSpace()
+		if p.i >= len(p.s) || p.s[p.i] != ')' {
+			return val{}, p.fail(start, ErrParen, "'(' is never closed")
+		}
+		p.i++
+		p.depth--
+	case c >= '0' && c <= '9' || c == '.':
+		if v, err = p.number(); err != nil {
+			return val{}, err
+		}
+	case c == '/' || c == '*' || c == '^' || c == ')':
+		if c == ')' {
+			return val{}, p.fail(p.i, ErrParen, "')' without a matching '('")
+		}
+		return val{}, p.fail(p.i, ErrDangling, fmt.Sprintf("%q with nothing before it", c))
+	default:
+		if p.mulOp() > 0 {
+			return val{}, p.fail(p.i, ErrDangling, "product operator with nothing before it")
+		}
+		if v, err = p.symbol(); err != nil {
+			return val{}, err
+		}
+	}
+	num, den, has, err := p.exponent()
+	if err != nil {
+		return val{}, err
+	}
+	if has {
+		return p.raise(start, v, num, den)
+	}
+	return v, nil
+}
+
+func (p *parser) raise(at int, v val, num, den int) (val, error) {
+	d, err := v.dim.Pow(num, den)
+	if err != nil {
+		return val{}, p.fail(at, ErrExponent, fmt.Sprintf("the dimension %s to the power %s cannot be held (exponents are whole sixths within ±21)", v.dim, ratText(num, den)))
+	}
+	if (v.angle*num)%den != 0 || (v.solid*num)%den != 0 {
+		return val{}, p.fail(at, ErrExponent, "a fractional power of an angle unit")
+	}
+	f := math.Pow(v.factor, float64(num)/float64(den))
+	if f == 0 || math.IsInf(f, 0) || math.IsNaN(f) {
+		return val{}, p.fail(at, ErrNumber, "the unit's factor overflows")
+	}
+	angle, solid := v.angle*num/den, v.solid*num/den
+	if angle > MaxExpAbs || angle < -MaxExpAbs || solid > MaxExpAbs || solid < -MaxExpAbs {
+		return val{}, p.fail(at, ErrExponent, "the exponent of an angle unit is out of range")
+	}
+	for i := v.lo; i < v.hi; i++ {
+		n, d := reduce(p.terms[i].num*num, p.terms[i].den*den)
+		if n > 4*MaxExpAbs*d || n < -4*MaxExpAbs*d || d > MaxExpDen*MaxExpDen {
+			return val{}, p.fail(at, ErrExponent, "an exponent is out of range")
+		}
+		p.terms[i].num, p.terms[i].den = n, d
+	}
+	out := val{factor: f, dim: d, angle: angle, solid: solid, lo: v.lo, hi: v.hi}
+	if num == 1 && den == 1 {
+		out.single, out.temp, out.offset = v.single, v.temp, v.offset
+	}
+	return out, nil
+}
+
+func (p *parser) number() (val, error) {
+	start := p.i
+	j := p.i
+	for j < len(p.s) && (p.s[j] >= '0' && p.s[j] <= '9' || p.s[j] == '.') {
+		j++
+	}
+	if j < len(p.s) && (p.s[j] == 'e' || p.s[j] == 'E') {
+		k := j + 1
+		if k < len(p.s) && (p.s[k] == '+' || p.s[k] == '-') {
+			k++
+		}
+		if k < len(p.s) && p.s[k] >= '0' && p.s[k] <= '9' {
+			for k < len(p.s) && p.s[k] >= '0' && p.s[k] <= '9' {
+				k++
+			}
+			j = k
+		}
+	}
+	text := p.s[start:j]
+	if len(text) > maxNumLen {
+		return val{}, p.fail(start, ErrNumber, "numeric factor too long")
+	}
+	f, err := strconv.ParseFloat(text, 64)
+	if err != nil || f <= 0 || math.IsInf(f, 0) {
+		return val{}, p.fail(start, ErrNumber, fmt.Sprintf("%q is not a positive finite number", text))
+	}
+	p.i = j
+	if j < len(p.s) && isSymbolStart(p.peekRune()) {
+		return val{}, p.fail(j, ErrSyntax, "a number directly followed by a symbol: put a space or '·' between them")
+	}
+	v := val{factor: f, lo: len(p.terms), hi: len(p.terms)}
+	if f != 1 {
+		p.terms = append(p.terms, term{sym: strconv.FormatFloat(f, 'g', -1, 64), num: 1, den: 1, number: true})
+		v.hi++
+	}
+	return v, nil
+}
+
+func isSymbolStart(r rune) bool {
+	return unicode.IsLetter(r) || r == '°' || r == '%' || r == '′' || r == '″' || r == '℃' || r == '℉' || r == '\u2126'
+}
+
+func isSymbolRune(r rune) bool {
+	return unicode.IsLetter(r) || unicode.IsDigit(r) || r == '_' || r == '°' || r == '₂'
+}
+
+func (p *parser) symbol() (val, error) {
+	start := p.i
+	r, n := utf8.DecodeRuneInString(p.s[p.i:])
+	if !isSymbolStart(r) {
+		return val{}, p.fail(p.i, ErrSyntax, fmt.Sprintf("unexpected %q", r))
+	}
+	p.i += n
+	if r != '%' && r != '′' && r != '″' {
+		for p.i < len(p.s) {
+			if c := p.s[p.i]; c < utf8.RuneSelf {
+				if c >= 'a' && c <= 'z' || c >= 'A' && c <= 'Z' || c >= '0' && c <= '9' || c == '_' {
+					p.i++
+					continue
+				}
+				break
+			}
+			r, n := utf8.DecodeRuneInString(p.s[p.i:])
+			if !isSymbolRune(r) {
+				break
+			}
+			p.i += n
+		}
+	}
+	sym := p.s[start:p.i]
+	e, ok := p.tab.lookup(sym)
+	if !ok {
+		return val{}, p.unknown(start, sym)
+	}
+	p.terms = append(p.terms, term{sym: e.u.sym, num: 1, den: 1})
+	v := val{
+		factor: e.u.factor, dim: e.u.dim, angle: int(e.u.angle), solid: int(e.u.solid),
+		lo: len(p.terms) - 1, hi: len(p.terms), single: true,
+	}
+	switch {
+	case e.scaleSym:
+		v.temp, v.offset = tempScale, e.u.offset
+	case e.u.temp == tempInterval:
+		v.temp = tempInterval
+	}
+	return v, nil
+}
+
+var superscripts = map[rune]int{'⁰': 0, '¹': 1, '²': 2, '³': 3, '⁴': 4, '⁵': 5, '⁶': 6, '⁷': 7, '⁸': 8, '⁹': 9}
+
+// exponent reads an optional exponent.
+func (p *parser) exponent() (num, den int, has bool, err error) {
+	if p.i >= len(p.s) {
+		return 1, 1, false, nil
+	}
+	start := p.i
+	r, n := utf8.DecodeRuneInString(p.s[p.i:])
+	if _, ok := superscripts[r]; ok || r == '⁻' || r == '⁺' {
+		neg := r == '⁻'
+		if r == '⁻' || r == '⁺' {
+			p.i += n
+		}
+		v, digits := 0, 0
+		for p.i < len(p.s) {
+			r, n := utf8.DecodeRuneInString(p.s[p.i:])
+			dv, ok := superscripts[r]
+			if !ok {
+				break
+			}
+			if digits >= 3 {
+				return 0, 0, false, p.fail(start, ErrExponent, "exponent too long")
+			}
+			v, digits = v*10+dv, digits+1
+			p.i += n
+		}
+		if digits == 0 {
+			return 0, 0, false, p.fail(start, ErrExponent, "superscript sign without digits")
+		}
+		if neg {
+			v = -v
+		}
+		return p.checkExp(start, v, 1)
+	}
+	switch {
+	case strings.HasPrefix(p.s[p.i:], "**"):
+		p.i += 2
+	case p.s[p.i] == '^':
+		p.i++
+	default:
+		return 1, 1, false, nil
+	}
+	if p.i >= len(p.s) {
+		return 0, 0, false, p.fail(start, ErrDangling, "exponent operator with no exponent")
+	}
+	if p.s[p.i] == '(' {
+		open := p.i
+		p.i++
+		num, den, err = p.rational()
+		if err != nil {
+			return 0, 0, false, err
+		}
+		if p.i < len(p.s) && p.s[p.i] == '/' {
+			p.i++
+			var d2, one int
+			d2, one, err = p.rational()
+			if err != nil {
+				return 0, 0, false, err
+			}
+			if one != 1 || d2 <= 0 {
+				return 0, 0, false, p.fail(open, ErrExponent, "the denominator of an exponent must be a positive integer")
+			}
+			den *= d2
+		}
+		if p.i >= len(p.s) || p.s[p.i] != ')' {
+			return 0, 0, false, p.fail(open, ErrParen, "exponent '(' is never closed")
+		}
+		p.i++
+		return p.checkExp(start, num, den)
+	}
+	num, den, err = p.rational()
+	if err != nil {
+		return 0, 0, false, err
+	}
+	return p.checkExp(start, num, den)
+}
+
+// rational reads a signed integer or decimal and returns it as num/den.
+func (p *parser) rational() (num, den int, err error) {
+	start := p.i
+	neg := false
+	if p.i < len(p.s) && (p.s[p.i] == '-' || p.s[p.i] == '+' || strings.HasPrefix(p.s[p.i:], "−")) {
+		neg = p.s[p.i] != '+'
+		if strings.HasPrefix(p.s[p.i:], "−") {
+			p.i += len("−")
+		} else {
+			p.i++
+		}
+	}
+	intPart, fracPart, digits := 0, 0, 0
+	for p.i < len(p.s) && p.s[p.i] >= '0' && p.s[p.i] <= '9' {
+		if digits >= 3 {
+			return 0, 0, p.fail(start, ErrExponent, "exponent too long")
+		}
+		intPart, digits = intPart*10+int(p.s[p.i]-'0'), digits+1
+		p.i++
+	}
+	den = 1
+	if p.i < len(p.s) && p.s[p.i] == '.' {
+		p.i++
+		fd := 0
+		for p.i < len(p.s) && p.s[p.i] >= '0' && p.s[p.i] <= '9' {
+			if fd >= 4 {
+				return 0, 0, p.fail(start, ErrExponent, "decimal exponent with more than 4 decimals: write a fraction such as ^(1/3)")
+			}
+			fracPart, fd, den = fracPart*10+int(p.s[p.i]-'0'), fd+1, den*10
+			p.i++
+		}
+		if fd == 0 {
+			return 0, 0, p.fail(start, ErrExponent, "a decimal point without decimals")
+		}
+		digits++
+	}
+	if digits == 0 {
+		if p.i >= len(p.s) {
+			return 0, 0, p.fail(start, ErrDangling, "exponent operator with no exponent")
+		}
+		return 0, 0, p.fail(start, ErrExponent, "expected a number as exponent")
+	}
+	num = intPart*den + fracPart
+	if neg {
+		num = -num
+	}
+	num, den = reduce(num, den)
+	return num, den, nil
+}
+
+func (p *parser) checkExp(start, num, den int) (int, int, bool, error) {
+	num, den = reduce(num, den)
+	if den > MaxExpDen {
+		return 0, 0, false, p.fail(start, ErrExponent, fmt.Sprintf("exponent %s is not a simple fraction (denominator above %d)", ratText(num, den), MaxExpDen))
+	}
+	if num > MaxExpAbs*den || num < -MaxExpAbs*den {
+		return 0, 0, false, p.fail(start, ErrExponent, fmt.Sprintf("exponent %s is out of range (±%d)", ratText(num, den), MaxExpAbs))
+	}
+	if num == 0 {
+		return 0, 0, false, p.fail(start, ErrExponent, "exponent zero (write 1 for a pure number)")
+	}
+	return num, den, true, nil
+}
+
+func reduce(n, d int) (int, int) {
+	if d < 0 {
+		n, d = -n, -d
+	}
+	a, b := n, d
+	if a < 0 {
+		a = -a
+	}
+	for b != 0 {
+		a, b = b, a%b
+	}
+	if a == 0 {
+		return 0, 1
+	}
+	return n / a, d / a
+}
+
+func ratText(n, d int) string {
+	n, d = reduce(n, d)
+	if d == 1 {
+		return strconv.Itoa(n)
+	}
+	return strconv.Itoa(n) + "/" + strconv.Itoa(d)
+}
+
+// ParseUncached is Parse without the cache: it always parses expr afresh.
+// It exists for measurement and for callers that parse many distinct
+// one-off expressions and do not want them kept.
+func ParseUncached(expr string) (Unit, error) { return parseWith(builtinTable{}, expr) }

@@ -1,0 +1,250 @@
+package units_test
+
+import (
+	"errors"
+	"strings"
+	"sync"
+	"testing"
+
+	"github.com/google/go-cmp/cmp"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/units"
+)
+
+// TestRequiredSpellings parses every spelling the project promises.
+func TestRequiredSpellings(t *testing.T) {
+	spellings := strings.Fields(`in ft yd mi nmi mil ha acre L gal bbl lb oz slug t lbf kip kgf dyn
+		Pa bar mbar atm Torr mmHg inHg inH2O psi psf ksi J kWh BTU cal kcal erg eV W hp kn mph gpm cfm
+		P cP St cSt K degC degF degR °C °F °R rad deg ° rev rpm sr s min h d % ppm um µm μm
+		m kg g A mol cd Hz N C V F Ω ohm S Wb T H lm lx Bq Gy Sv kat ′ ″ l Da gal_imp cal_IT`)
+	for _, s := range spellings {
+		if _, err := units.Parse(s); err != nil {
+			t.Errorf("Parse(%q): %v", s, err)
+		}
+	}
+	exprs := []string{"kg/(m·s)", "kg m^-1 s^-2", "kg*m**-1*s**-2", "N·m", "W/(m²·K)", "BTU/(h*ft^2*degF)",
+		"ft^3/min", "m/s²", "1/s", "s⁻¹", "MPa·m^(1/2)", "ksi*in^0.5", "L/min", "kg/m/s", "((m))", "m^(-1/2)", "m^-0.5", "J/(kg·K)"}
+	for _, s := range exprs {
+		if _, err := units.Parse(s); err != nil {
+			t.Errorf("Parse(%q): %v", s, err)
+		}
+	}
+	// Equal meanings, different spellings.
+	same := [][]string{
+		{"kg/(m·s)", "kg m^-1 s^-1", "kg*m**-1*s**-1", "kg/m/s", "Pa·s", "Pa*s", "N s/m^2"},
+		{"1/s", "s⁻¹", "s^-1", "Hz"},
+		{"MPa·m^(1/2)", "MPa*m^0.5", "MPa m^(1/2)"},
+		{"W/(m²·K)", "W m^-2 K^-1", "W/m^2/K"},
+	}
+	for _, group := range same {
+		first := units.MustParse(group[0])
+		for _, s := range group[1:] {
+			if u := units.MustParse(s); !u.Equal(first) {
+				t.Errorf("%q (%v) ≠ %q (%v)", s, u.Factor(), group[0], first.Factor())
+			}
+		}
+	}
+	if units.MustParse("kg/(m·s)").Dim() != quantity.DynamicViscosity {
+		t.Error("kg/(m·s) is not a dynamic viscosity")
+	}
+	if d := units.MustParse("MPa·m^(1/2)").Dim(); d != quantity.StressIntensityFactor {
+		t.Errorf("MPa·m^(1/2) has dimension %v", d)
+	}
+}
+
+// TestMalformed checks that bad expressions are refused with the right
+// class of error and offset.
+func TestMalformed(t *testing.T) {
+	cases := []struct {
+		expr   string
+		err    error
+		offset int
+	}{
+		{"", units.ErrEmpty, 0},
+		{"   ", units.ErrEmpty, 0},
+		{"kg/", units.ErrDangling, 2},
+		{"/s", units.ErrDangling, 0},
+		{"*m", units.ErrDangling, 0},
+		{"m*", units.ErrDangling, 1},
+		{"m·", units.ErrDangling, 1},
+		{"·m", units.ErrDangling, 0},
+		{"m^", units.ErrDangling, 1},
+		{"m**", units.ErrDangling, 1},
+		{"m^-", units.ErrDangling, 2},
+		{"m//s", units.ErrDangling, 2},
+		{"m s ^2", units.ErrDangling, 4},
+		{"(m", units.ErrParen, 0},
+		{"m)", units.ErrParen, 1},
+		{"((m)", units.ErrParen, 0},
+		{"m^(1/2", units.ErrParen, 2},
+		{"m^(1/0)", units.ErrExponent, 2},
+		{"m^(a)", units.ErrExponent, 3},
+		{"m^100", units.ErrExponent, 1},
+		{"m^30", units.ErrExponent, 1},
+		{"m^(1/13)", units.ErrExponent, 1},
+		{"m^0.33333", units.ErrExponent, 2},
+		{"m^0", units.ErrExponent, 1},
+		{"m^(1/4)", units.ErrExponent, 0},
+		{"m^22", units.ErrExponent, 0},
+		{"m⁻", units.ErrExponent, 1},
+		{"rad^(1/2)", units.ErrExponent, 0},
+		{"m^20*m^20", units.ErrDimension, 4},
+		{"xyz", units.ErrUnknownSymbol, 0},
+		{"m2", units.ErrUnknownSymbol, 0},
+		{"kpa", units.ErrUnknownSymbol, 0},
+		{"mkg", units.ErrUnknownSymbol, 0},
+		{"kmin", units.ErrUnknownSymbol, 0},
+		{"kft", units.ErrUnknownSymbol, 0},
+		{"k°C", units.ErrUnknownSymbol, 0},
+		{"N/m furlong", units.ErrAmbiguous, 4},
+		{"W/m K", units.ErrAmbiguous, 4},
+		{"W/m*K", units.ErrAmbiguous, 3},
+		{"J/kg·K", units.ErrAmbiguous, 4},
+		{"0 m", units.ErrNumber, 0},
+		{"1e999 m", units.ErrNumber, 0},
+		{"1.2.3 m", units.ErrNumber, 0},
+		{"5m", units.ErrSyntax, 1},
+		{"-1 m", units.ErrSyntax, 0},
+		{"m$", units.ErrSyntax, 1},
+		{"()", units.ErrSyntax, 1},
+		{"m(s)", units.ErrSyntax, 1},
+		{"\xff", units.ErrSyntax, 0},
+		{"m \xffs", units.ErrSyntax, 2},
+		{strings.Repeat("(", 20) + "m" + strings.Repeat(")", 20), units.ErrTooDeep, 16},
+		{strings.Repeat("m*", 300) + "m", units.ErrTooLong, 512},
+		{"m^1.23456", units.ErrExponent, 2},
+	}
+	if len(cases) < 40 {
+		t.Fatalf("%d malformed inputs, want at least 40", len(cases))
+	}
+	for _, c := range cases {
+		_, err := units.Parse(c.expr)
+		var pe *units.ParseError
+		if !errors.As(err, &pe) {
+			t.Errorf("Parse(%q): err = %v, want a *ParseError", c.expr, err)
+			continue
+		}
+		if !errors.Is(err, c.err) || pe.Offset != c.offset {
+			t.Errorf("Parse(%q):\n  got  %v (offset %d)\n  want %v at offset %d", c.expr, err, pe.Offset, c.err, c.offset)
+		}
+	}
+}
+
+func TestUnknownSuggestions(t *testing.T) {
+	cases := map[string][]string{
+		"kpa":    {"kPa"},
+		"m2":     {"m^2"},
+		"psia":   {"psi"},
+		"degc":   {"degC"},
+		"BTUs":   {"BTU"},
+		"inHG":   {"inHg"},
+		"gallon": nil,
+	}
+	for expr, want := range cases {
+		_, err := units.Parse(expr)
+		var pe *units.ParseError
+		if !errors.As(err, &pe) {
+			t.Fatalf("Parse(%q): %v", expr, err)
+		}
+		if len(want) > 0 && (len(pe.Suggest) == 0 || pe.Suggest[0] != want[0]) {
+			t.Errorf("Parse(%q) suggests %q, want %q first", expr, pe.Suggest, want)
+		}
+		if pe.Symbol != expr {
+			t.Errorf("Parse(%q): Symbol = %q", expr, pe.Symbol)
+		}
+	}
+	_, err := units.Parse("mkg")
+	if !strings.Contains(err.Error(), "mass prefixes attach to g") {
+		t.Errorf("mkg: %v", err)
+	}
+}
+
+// TestRoundTrip checks Parse(Format(u)) == u for every unit in the table,
+// in both parseable styles.
+func TestRoundTrip(t *testing.T) {
+	syms := units.Symbols()
+	if len(syms) < 80 {
+		t.Fatalf("%d symbols in the table", len(syms))
+	}
+	var all []string
+	for _, s := range syms {
+		all = append(all, s)
+		if units.Prefixable(s) {
+			for _, p := range []string{"Q", "k", "da", "m", "u", "q"} {
+				all = append(all, p+s)
+			}
+		}
+	}
+	all = append(all, "BTU/(h*ft^2*degF)", "kg m^(-1/2) s^-2", "12000 BTU/h", "(rpm)/rev", "1/(m*s)", "m^(1/3)")
+	for _, s := range all {
+		u, err := units.Parse(s)
+		if err != nil {
+			t.Errorf("Parse(%q): %v", s, err)
+			continue
+		}
+		for _, style := range []units.Style{units.Unicode, units.ASCII} {
+			f := u.Format(style)
+			back, err := units.Parse(f)
+			if err != nil || !back.Equal(u) {
+				t.Errorf("%q: %v spelling %q parses to %v, %v", s, style, f, back, err)
+			}
+		}
+		if u.Format(units.LaTeX) == "" {
+			t.Errorf("%q: empty LaTeX spelling", s)
+		}
+	}
+	want := map[string][3]string{
+		"BTU/(h*ft^2*degF)": {"BTU/(h·ft²·°F)", "BTU/(h*ft^2*degF)", `\mathrm{BTU}/(\mathrm{h}\cdot \mathrm{ft}^{2}\cdot {}^{\circ}\mathrm{F})`},
+		"µm":                {"µm", "um", `\mu\mathrm{m}`},
+		"kPa":               {"kPa", "kPa", `\mathrm{kPa}`},
+		"ohm":               {"Ω", "ohm", `\Omega`},
+	}
+	for expr, w := range want {
+		u := units.MustParse(expr)
+		got := [3]string{u.Format(units.Unicode), u.Format(units.ASCII), u.Format(units.LaTeX)}
+		if diff := cmp.Diff(w, got); diff != "" {
+			t.Errorf("spellings of %q (-want +got):\n%s", expr, diff)
+		}
+	}
+}
+
+func TestPrefixRules(t *testing.T) {
+	// Prefixes only where the SI allows: none on min, h, d, °, kg.
+	for _, s := range []string{"kmin", "kh", "mh", "kd", "k°", "mkg", "kkg", "kft", "kpsi", "krpm"} {
+		if _, err := units.Parse(s); err == nil {
+			t.Errorf("Parse(%q) accepted a prefix the SI does not allow", s)
+		}
+	}
+	// "min" is the minute, not milli-inch; "cd" the candela, not centi-day.
+	if units.MustParse("min").Dim() != quantity.Time || units.MustParse("cd").Dim() != quantity.LuminousIntensity {
+		t.Error("exact symbols must win over prefixed readings")
+	}
+}
+
+func TestConcurrentParse(t *testing.T) {
+	tab := units.NewTable()
+	var wg sync.WaitGroup
+	for g := range 8 {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range 200 {
+				exprs := []string{"BTU/(h*ft^2*degF)", "psi", "kg/(m·s)", "gpm", "W/(m²·K)"}
+				if _, err := units.Parse(exprs[i%len(exprs)]); err != nil {
+					t.Error(err)
+				}
+				if _, err := tab.Parse(exprs[(i+g)%len(exprs)]); err != nil {
+					t.Error(err)
+				}
+				if i == 50 && g < 4 {
+					_ = tab.Define([]string{"TR", "div", "lab_unit", "rig"}[g], "12000 BTU/h")
+				}
+			}
+		}()
+	}
+	wg.Wait()
+	if _, err := tab.Parse("TR"); err != nil {
+		t.Error(err)
+	}
+}

@@ -1,0 +1,371 @@
+package units
+
+import (
+	"fmt"
+	"slices"
+	"strconv"
+	"strings"
+	"unicode/utf8"
+)
+
+// Style selects how units are spelled.
+type Style uint8
+
+// Spelling styles.
+const (
+	Unicode Style = iota // kg·m⁻³, W/(m²·K), °C, µm, Ω
+	ASCII                // kg*m^-3, W/(m^2*K), degC, um, ohm
+	LaTeX                // \mathrm{kg}\cdot\mathrm{m}^{-3}
+)
+
+const styleASCII = ASCII
+
+// String names the style.
+func (s Style) String() string {
+	switch s {
+	case Unicode:
+		return "Unicode"
+	case ASCII:
+		return "ASCII"
+	case LaTeX:
+		return "LaTeX"
+	}
+	return "Style(" + strconv.Itoa(int(s)) + ")"
+}
+
+func (t terms) pow(num, den int) terms {
+	out := make(terms, len(t))
+	for i, x := range t {
+		out[i] = x
+		out[i].num, out[i].den = reduce(x.num*num, x.den*den)
+	}
+	return out
+}
+
+// mergeTerms is combineTerms reusing a's storage; a must not be used
+// afterwards.
+func mergeTerms(a, b terms, sign int) (terms, error) {
+	for _, x := range b {
+		x.num *= sign
+		found := false
+		for i := range a {
+			if a[i].sym == x.sym && a[i].number == x.number {
+				n, d := reduce(a[i].num*x.den+x.num*a[i].den, a[i].den*x.den)
+				if n > 4*MaxExpAbs || n < -4*MaxExpAbs || d > MaxExpDen*MaxExpDen {
+					return nil, fmt.Errorf("exponent of %s out of range", x.sym)
+				}
+				a[i].num, a[i].den = n, d
+				found = true
+				break
+			}
+		}
+		if !found {
+			a = append(a, x)
+		}
+	}
+	return slices.DeleteFunc(a, func(x term) bool { return x.num == 0 }), nil
+}
+
+// combineTerms returns a·b^sign, merging repeated symbols.
+func combineTerms(a, b terms, sign int) (terms, error) {
+	out := make(terms, 0, len(a)+len(b))
+	out = append(out, a...)
+	for _, x := range b {
+		x.num *= sign
+		found := false
+		for i := range out {
+			if out[i].sym == x.sym && out[i].number == x.number {
+				n, d := reduce(out[i].num*x.den+x.num*out[i].den, out[i].den*x.den)
+				if n > 4*MaxExpAbs || n < -4*MaxExpAbs || d > MaxExpDen*MaxExpDen {
+					return nil, fmt.Errorf("exponent of %s out of range", x.sym)
+				}
+				out[i].num, out[i].den = n, d
+				found = true
+				break
+			}
+		}
+		if !found {
+			out = append(out, x)
+		}
+	}
+	return slices.DeleteFunc(out, func(x term) bool { return x.num == 0 }), nil
+}
+
+// termsOf recovers the spelling terms of a unit from its canonical ASCII
+// spelling, which spell wrote.
+func termsOf(u Unit) terms {
+	s := u.String()
+	if s == "1" {
+		return nil
+	}
+	var out terms
+	read := func(part string, sign int) {
+		if strings.HasPrefix(part, "(") && strings.HasSuffix(part, ")") {
+			part = part[1 : len(part)-1]
+		}
+		for _, f := range splitTop(part, '*') {
+			if f == "" || f == "1" {
+				continue
+			}
+			sym, exp, _ := strings.Cut(f, "^")
+			n, d := 1, 1
+			if exp != "" {
+				if strings.HasPrefix(exp, "(") && strings.HasSuffix(exp, ")") {
+					exp = exp[1 : len(exp)-1]
+				}
+				ns, ds, frac := strings.Cut(exp, "/")
+				n, _ = strconv.Atoi(ns)
+				if frac {
+					d, _ = strconv.Atoi(ds)
+				}
+			}
+			isNum := len(sym) > 0 && (sym[0] >= '0' && sym[0] <= '9' || sym[0] == '.')
+			out = append(out, term{sym: sym, num: sign * n, den: d, number: isNum})
+		}
+	}
+	parts := splitTop(s, '/')
+	read(parts[0], 1)
+	if len(parts) > 1 {
+		read(parts[1], -1)
+	}
+	return out
+}
+
+// splitTop splits s at sep outside parentheses.
+func splitTop(s string, sep byte) []string {
+	var out []string
+	depth, last := 0, 0
+	for i := 0; i < len(s); i++ {
+		switch s[i] {
+		case '(':
+			depth++
+		case ')':
+			depth--
+		case sep:
+			if depth == 0 {
+				out = append(out, s[last:i])
+				last = i + 1
+			}
+		}
+	}
+	return append(out, s[last:])
+}
+
+// spell writes terms in a style: numerator factors, then '/' and the
+// denominator, parenthesised when it has more than one factor.
+func (t terms) spell(style Style) string {
+	if len(t) == 0 {
+		if style == LaTeX {
+			return "1"
+		}
+		return "1"
+	}
+	nNum, nDen := 0, 0
+	for _, x := range t {
+		if x.num > 0 {
+			nNum++
+		} else {
+			nDen++
+		}
+	}
+	var sb strings.Builder
+	sb.Grow(32)
+	writeList(&sb, t, style, 1)
+	if nNum == 0 {
+		sb.WriteString("1")
+	}
+	if nDen > 0 {
+		sb.WriteString("/")
+		if nDen > 1 {
+			sb.WriteString("(")
+		}
+		writeList(&sb, t, style, -1)
+		if nDen > 1 {
+			sb.WriteString(")")
+		}
+	}
+	return sb.String()
+}
+
+var supDigit = [...]string{"⁰", "¹", "²", "³", "⁴", "⁵", "⁶", "⁷", "⁸", "⁹"}
+
+// writeList writes the terms whose exponent has the given sign, with the
+// exponent's magnitude.
+func writeList(sb *strings.Builder, t terms, style Style, sign int) {
+	i := 0
+	for _, x := range t {
+		if x.num*sign < 0 {
+			continue
+		}
+		x.num *= sign
+		i++
+		if i > 1 {
+			switch style {
+			case Unicode:
+				sb.WriteString("·")
+			case ASCII:
+				sb.WriteString("*")
+			case LaTeX:
+				sb.WriteString(`\cdot `)
+			}
+		}
+		sb.WriteString(spellSymbol(x, style))
+		if x.num == 1 && x.den == 1 {
+			continue
+		}
+		switch {
+		case style == LaTeX:
+			sb.WriteString("^{" + ratText(x.num, x.den) + "}")
+		case style == Unicode && x.den == 1:
+			n := x.num
+			if n < 0 {
+				sb.WriteString("⁻")
+				n = -n
+			}
+			for _, c := range strconv.Itoa(n) {
+				sb.WriteString(supDigit[c-'0'])
+			}
+		case x.den == 1:
+			sb.WriteString("^" + strconv.Itoa(x.num))
+		default:
+			sb.WriteString("^(" + ratText(x.num, x.den) + ")")
+		}
+	}
+}
+
+// spellSymbol spells one symbol in a style, using the built-in table's
+// spellings; symbols the table does not know (a user's own) are written
+// as given.
+func spellSymbol(x term, style Style) string {
+	if x.number || style == ASCII {
+		if x.number && style == LaTeX {
+			return x.sym
+		}
+		return x.sym
+	}
+	e, ok := lookupIn(builtinIndex, x.sym)
+	if !ok {
+		if style == LaTeX {
+			return `\mathrm{` + x.sym + `}`
+		}
+		return x.sym
+	}
+	if style == LaTeX {
+		return e.tex
+	}
+	return e.uni
+}
+
+// Format spells u in the given style. Parse reads back the Unicode and
+// ASCII forms.
+func (u Unit) Format(style Style) string {
+	if style == ASCII {
+		return u.String()
+	}
+	return termsOf(u).spell(style)
+}
+
+// unknown builds the error for an unknown symbol, with suggestions.
+func (p *parser) unknown(at int, sym string) *ParseError {
+	e := p.fail(at, ErrUnknownSymbol, strconv.Quote(sym))
+	e.Symbol = sym
+	// m2, s2: an exponent written without '^'.
+	stem := strings.TrimRight(sym, "0123456789")
+	if stem != sym && stem != "" {
+		if _, ok := p.tab.lookup(stem); ok {
+			e.Reason += fmt.Sprintf(": write the exponent with '^' or a superscript, as in %s^%s", stem, sym[len(stem):])
+			e.Suggest = []string{stem + "^" + sym[len(stem):]}
+			return e
+		}
+	}
+	for _, pfx := range []string{"k", "m", "M", "G", "c", "u", "n"} {
+		if rest, ok := strings.CutPrefix(sym, pfx); ok {
+			if base, ok := p.tab.lookup(rest); ok && !base.prefixable {
+				e.Reason += fmt.Sprintf(": %s takes no SI prefix", base.u.sym)
+				if base.u.dim == builtinIndex.bySym["kg"].u.dim && rest == "kg" {
+					e.Reason += " (mass prefixes attach to g)"
+				}
+			}
+		}
+	}
+	e.Suggest = nearest(sym, p.tab.spellings(), 3)
+	return e
+}
+
+// nearest returns up to n spellings within edit distance 2 of s, closest
+// first; a case-insensitive match counts as distance 0.
+func nearest(s string, candidates []string, n int) []string {
+	type cand struct {
+		s string
+		d int
+	}
+	var cs []cand
+	ls := strings.ToLower(s)
+	for _, c := range candidates {
+		if utf8.RuneCountInString(c) > 12 {
+			continue
+		}
+		var d int
+		if strings.ToLower(c) == ls {
+			d = 0
+		} else {
+			d = editDistance(s, c)
+		}
+		limit := 2
+		if utf8.RuneCountInString(s) <= 2 {
+			limit = 1
+		}
+		if d <= limit {
+			cs = append(cs, cand{c, d})
+		}
+	}
+	// Prefixed forms of the most used units, for typos like "kpa".
+	for _, base := range []string{"Pa", "W", "J", "N", "m", "g", "L", "bar", "Hz"} {
+		for _, pfx := range []string{"k", "M", "G", "m", "c", "u"} {
+			c := pfx + base
+			if strings.ToLower(c) == ls && c != s {
+				cs = append(cs, cand{c, 0})
+			}
+		}
+	}
+	slices.SortFunc(cs, func(a, b cand) int {
+		if a.d != b.d {
+			return a.d - b.d
+		}
+		return strings.Compare(a.s, b.s)
+	})
+	var out []string
+	for _, c := range cs {
+		if !slices.Contains(out, c.s) {
+			out = append(out, c.s)
+		}
+		if len(out) == n {
+			break
+		}
+	}
+	return out
+}
+
+func editDistance(a, b string) int {
+	ra, rb := []rune(a), []rune(b)
+	if len(ra) > 32 || len(rb) > 32 {
+		return 99
+	}
+	prev := make([]int, len(rb)+1)
+	cur := make([]int, len(rb)+1)
+	for j := range prev {
+		prev[j] = j
+	}
+	for i := 1; i <= len(ra); i++ {
+		cur[0] = i
+		for j := 1; j <= len(rb); j++ {
+			cost := 1
+			if ra[i-1] == rb[j-1] {
+				cost = 0
+			}
+			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+cost)
+		}
+		prev, cur = cur, prev
+	}
+	return prev[len(rb)]
+}

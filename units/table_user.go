@@ -1,0 +1,128 @@
+package units
+
+import (
+	"errors"
+	"fmt"
+	"sync"
+	"unicode/utf8"
+)
+
+// ErrDefine is wrapped by every error Table.Define returns.
+var ErrDefine = errors.New("cannot define unit")
+
+// DefineError reports a user definition that is refused.
+type DefineError struct {
+	Name   string
+	Reason string
+	Err    error // a *ParseError for a defining expression that does not parse
+}
+
+func (e *DefineError) Error() string {
+	if e.Err != nil {
+		return fmt.Sprintf("units: define %q: %v", e.Name, e.Err)
+	}
+	return fmt.Sprintf("units: define %q: %s", e.Name, e.Reason)
+}
+
+// Unwrap returns ErrDefine and the parse error, if any.
+func (e *DefineError) Unwrap() []error {
+	if e.Err != nil {
+		return []error{ErrDefine, e.Err}
+	}
+	return []error{ErrDefine}
+}
+
+// Table is a unit table the caller owns: the built-in units and the
+// caller's own definitions, such as a lab's TR for 12000 BTU/h or a rig's
+// div for 0.25 inH2O. The built-in table itself cannot be changed. A Table
+// is safe for concurrent use; the zero Table is not ready, use NewTable.
+type Table struct {
+	mu    sync.RWMutex
+	defs  map[string]*entry
+	names []string
+	cache sync.Map
+}
+
+// NewTable returns a table holding the built-in units only.
+func NewTable() *Table { return &Table{defs: make(map[string]*entry)} }
+
+func (t *Table) lookup(sym string) (*entry, bool) {
+	t.mu.RLock()
+	e, ok := t.defs[sym]
+	t.mu.RUnlock()
+	if ok {
+		return e, true
+	}
+	return lookupIn(builtinIndex, sym)
+}
+
+func (t *Table) spellings() []string {
+	t.mu.RLock()
+	defer t.mu.RUnlock()
+	return append(builtinSpellings(), t.names...)
+}
+
+// Define adds a unit named name, equal to the unit expression expr, which
+// may use earlier definitions and numbers: Define("TR", "12000 BTU/h").
+// The name must be a single symbol that does not already mean something,
+// with or without an SI prefix. User units take no prefixes.
+func (t *Table) Define(name, expr string) error {
+	if name == "" || len(name) > 32 || !utf8.ValidString(name) {
+		return &DefineError{Name: name, Reason: "a name must be 1 to 32 bytes of valid UTF-8", Err: nil}
+	}
+	for i, r := range name {
+		if i == 0 && !isSymbolStart(r) || i > 0 && !isSymbolRune(r) {
+			return &DefineError{Name: name, Reason: fmt.Sprintf("%q cannot appear in a unit name (letters, digits and _ only, starting with a letter)", r)}
+		}
+	}
+	u, err := parseWith(t, expr)
+	if err != nil {
+		return &DefineError{Name: name, Err: err}
+	}
+	if u.temp == tempScale {
+		return &DefineError{Name: name, Reason: "a temperature scale cannot be redefined; define an interval with Δ°C or K"}
+	}
+	t.mu.Lock()
+	defer t.mu.Unlock()
+	if _, ok := t.defs[name]; ok {
+		return &DefineError{Name: name, Reason: "already defined in this table"}
+	}
+	if _, ok := lookupIn(builtinIndex, name); ok {
+		return &DefineError{Name: name, Reason: "already a built-in unit (or a prefixed one)"}
+	}
+	u.sym = name
+	u.temp = tempNone
+	t.defs[name] = &entry{u: u, uni: name, tex: `\mathrm{` + name + `}`}
+	t.names = append(t.names, name)
+	return nil
+}
+
+// Parse reads a unit expression with this table; see the package-level
+// Parse for the grammar.
+func (t *Table) Parse(expr string) (Unit, error) {
+	if u, ok := t.cache.Load(expr); ok {
+		return u.(Unit), nil
+	}
+	u, err := parseWith(t, expr)
+	if err != nil {
+		return Unit{}, err
+	}
+	t.cache.Store(expr, u)
+	return u, nil
+}
+
+// ParseValue reads a number and a unit with this table.
+func (t *Table) ParseValue(s string) (Value, error) { return parseValue(t, s, t.Parse) }
+
+// Convert converts v between two unit expressions of this table.
+func (t *Table) Convert(v float64, from, to string) (float64, error) {
+	fu, err := t.Parse(from)
+	if err != nil {
+		return 0, err
+	}
+	tu, err := t.Parse(to)
+	if err != nil {
+		return 0, err
+	}
+	return ConvertUnits(v, fu, tu)
+}

@@ -1,0 +1,161 @@
+package units
+
+import (
+	"math"
+
+	"similis.dev/similis/quantity"
+)
+
+// tempRole says how a unit treats temperature.
+type tempRole uint8
+
+const (
+	// tempNone: no special meaning; K and °R are here, since their zero is
+	// absolute zero and a level and an interval read the same.
+	tempNone tempRole = iota
+	// tempScale: a bare temperature scale with a shifted zero (°C, °F),
+	// which converts a level affinely.
+	tempScale
+	// tempInterval: an explicit temperature difference (Δ°C, Δ°F).
+	tempInterval
+)
+
+// Unit is a unit of measurement: its dimension, its factor to the
+// coherent SI unit of that dimension, an offset for a temperature scale,
+// and its spelling. A value x in unit u is the SI value x·factor + offset.
+//
+// Plane and solid angle are dimensionless in the SI, but a Unit keeps
+// their exponents (rad, sr) so that no conversion silently applies or
+// drops a factor 2π: rpm converts to rad/s and rev/s, not to Hz.
+//
+// Unit is comparable; == also compares spellings, Equal does not.
+type Unit struct {
+	dim    quantity.Dim
+	factor float64
+	offset float64
+	angle  int8 // exponent of plane angle
+	solid  int8 // exponent of solid angle
+	temp   tempRole
+	sym    string // canonical ASCII spelling
+}
+
+// One is the unit one, for dimensionless numbers.
+var One = Unit{factor: 1, sym: "1"}
+
+// Dim returns the unit's dimension.
+func (u Unit) Dim() quantity.Dim { return u.dim }
+
+// Factor returns the value in the coherent SI unit of one unit u (for a
+// temperature scale, of one degree of interval).
+func (u Unit) Factor() float64 { return u.factor }
+
+// Offset returns the SI value of the zero of a temperature scale
+// (273.15 for °C); it is 0 for every other unit.
+func (u Unit) Offset() float64 { return u.offset }
+
+// IsScale reports whether u is a temperature scale with a shifted zero
+// (°C, °F) written alone, which converts a temperature level affinely.
+func (u Unit) IsScale() bool { return u.temp == tempScale }
+
+// IsInterval reports whether u is an explicit temperature-difference unit
+// (Δ°C, Δ°F, ΔK).
+func (u Unit) IsInterval() bool { return u.temp == tempInterval }
+
+// Angle returns the exponents of plane angle and of solid angle that u
+// carries (1 and 0 for rad/s, 1 and 0 for rpm, 0 and 1 for sr).
+func (u Unit) Angle() (plane, solid int) { return int(u.angle), int(u.solid) }
+
+// Equal reports whether u and o are the same unit, whatever their
+// spellings: same dimension, angles, factor, offset and temperature role.
+func (u Unit) Equal(o Unit) bool {
+	return u.dim == o.dim && u.angle == o.angle && u.solid == o.solid && u.temp == o.temp &&
+		u.offset == o.offset && sameFactor(u.factor, o.factor)
+}
+
+// sameFactor compares factors to a few units in the last place, since the
+// same unit reached by different products (kW·h, 3.6 MJ) may round
+// differently.
+func sameFactor(a, b float64) bool {
+	return a == b || math.Abs(a-b) <= 4e-16*math.Max(math.Abs(a), math.Abs(b))
+}
+
+// Compatible reports whether values in u convert to values in o.
+func (u Unit) Compatible(o Unit) bool { return checkConvert(u, o) == nil }
+
+// Mul returns the product unit u·o. A temperature scale in a product
+// denotes its interval.
+func (u Unit) Mul(o Unit) (Unit, error) {
+	d, err := u.dim.Mul(o.dim)
+	if err != nil {
+		return Unit{}, err
+	}
+	t, err := combineTerms(termsOf(u), termsOf(o), 1)
+	if err != nil {
+		return Unit{}, err
+	}
+	return Unit{dim: d, factor: u.factor * o.factor, angle: u.angle + o.angle, solid: u.solid + o.solid, sym: t.spell(styleASCII)}, nil
+}
+
+// Div returns the quotient unit u/o.
+func (u Unit) Div(o Unit) (Unit, error) {
+	d, err := u.dim.Div(o.dim)
+	if err != nil {
+		return Unit{}, err
+	}
+	t, err := combineTerms(termsOf(u), termsOf(o), -1)
+	if err != nil {
+		return Unit{}, err
+	}
+	return Unit{dim: d, factor: u.factor / o.factor, angle: u.angle - o.angle, solid: u.solid - o.solid, sym: t.spell(styleASCII)}, nil
+}
+
+// Pow returns u raised to num/den. Angles must keep whole exponents.
+func (u Unit) Pow(num, den int) (Unit, error) {
+	d, err := u.dim.Pow(num, den)
+	if err != nil {
+		return Unit{}, err
+	}
+	a, s := int(u.angle)*num, int(u.solid)*num
+	if a%den != 0 || s%den != 0 {
+		return Unit{}, &ParseError{Expr: u.sym, Reason: "a fractional power of an angle unit", Err: ErrExponent}
+	}
+	t := termsOf(u).pow(num, den)
+	return Unit{dim: d, factor: math.Pow(u.factor, float64(num)/float64(den)), angle: int8(a / den), solid: int8(s / den), sym: t.spell(styleASCII)}, nil
+}
+
+// Of returns the quantity of value v in unit u: v·factor + offset in SI.
+func (u Unit) Of(v float64) quantity.Quantity {
+	return quantity.New(v*u.factor+u.offset, u.dim)
+}
+
+// ValueOf returns q's value in unit u. It reports a *ConversionError if q
+// has another dimension. A Quantity carries no angle: its value is taken in
+// radians (and steradians), as in the SI, so an angular velocity read in
+// rpm is divided by 2π/60.
+func (u Unit) ValueOf(q quantity.Quantity) (float64, error) {
+	if q.Dim() != u.dim {
+		return 0, &ConversionError{FromDim: q.Dim(), To: u, Reason: "dimensions differ"}
+	}
+	return (q.Value() - u.offset) / u.factor, nil
+}
+
+// String returns the unit's spelling in ASCII, which Parse reads back.
+func (u Unit) String() string {
+	if u.sym == "" {
+		return "1"
+	}
+	return u.sym
+}
+
+// MarshalText encodes u as its ASCII spelling.
+func (u Unit) MarshalText() ([]byte, error) { return []byte(u.String()), nil }
+
+// UnmarshalText parses a unit expression with the built-in table.
+func (u *Unit) UnmarshalText(b []byte) error {
+	v, err := Parse(string(b))
+	if err != nil {
+		return err
+	}
+	*u = v
+	return nil
+}

@@ -1,0 +1,298 @@
+package units_test
+
+import (
+	"encoding/json"
+	"errors"
+	"flag"
+	"io"
+	"math"
+	"strings"
+	"testing"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/units"
+)
+
+func TestParseValue(t *testing.T) {
+	cases := []struct {
+		text string
+		si   float64
+		dim  quantity.Dim
+	}{
+		{"12.5 kn", 12.5 * 1852 / 3600, quantity.Velocity},          // exact: nmi/h
+		{"101.325 kPa", 101325, quantity.Pressure},                  // exact
+		{"20 °C", 293.15, quantity.Temperature},                     // exact: scale
+		{"3.2e-3 Pa·s", 3.2e-3, quantity.DynamicViscosity},          // exact
+		{"12kn", 12 * 1852.0 / 3600, quantity.Velocity},             // no space
+		{"  -5 degF ", (-5 + 459.67) * 5 / 9, quantity.Temperature}, // exact by the scale definitions
+		{"1500 rpm", 1500 * 2 * math.Pi / 60, quantity.AngularVelocity},
+		{"0.5", 0.5, quantity.Dimensionless},
+		{"2.5E+3 gpm", 2500 * 231 * 0.0254 * 0.0254 * 0.0254 / 60, quantity.VolumeFlowRate},
+	}
+	for _, c := range cases {
+		q, err := units.ParseQuantity(c.text)
+		if err != nil {
+			t.Errorf("ParseQuantity(%q): %v", c.text, err)
+			continue
+		}
+		if q.Dim() != c.dim || math.Abs(q.Value()-c.si) > 1e-12*math.Abs(c.si) {
+			t.Errorf("ParseQuantity(%q) = %v, want %v %v", c.text, q, c.si, c.dim)
+		}
+	}
+	for _, bad := range []string{"", "kn", "12 knots", "1e400 m", "12 /s", "nan m", "12 kn kn/", "--1 m"} {
+		if _, err := units.ParseValue(bad); err == nil {
+			t.Errorf("ParseValue(%q) accepted", bad)
+		}
+	}
+	_, err := units.ParseValue("12 knots")
+	var pe *units.ParseError
+	if !errors.As(err, &pe) || pe.Symbol != "knots" {
+		t.Errorf("ParseValue(12 knots): %v", err)
+	}
+}
+
+func TestValueText(t *testing.T) {
+	v, err := units.ParseValue("12.5 kn")
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := json.Marshal(struct{ Speed units.Value }{v})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if string(b) != `{"Speed":"12.5 kn"}` {
+		t.Errorf("JSON = %s", b)
+	}
+	var back struct{ Speed units.Value }
+	if err := json.Unmarshal([]byte(`{"Speed":"3.2e-3 Pa·s"}`), &back); err != nil {
+		t.Fatal(err)
+	}
+	if back.Speed.Number != 3.2e-3 || back.Speed.Unit.Dim() != quantity.DynamicViscosity {
+		t.Errorf("unmarshal: %+v", back.Speed)
+	}
+	if err := json.Unmarshal([]byte(`{"Speed":"3 furlong"}`), &back); err == nil {
+		t.Error("unknown unit in JSON accepted")
+	}
+	if got := v.String(); got != "12.5 kn" {
+		t.Errorf("String = %q", got)
+	}
+	kmh, err := v.In(units.MustParse("km/h"))
+	if err != nil || math.Abs(kmh.Number-23.15) > 1e-12 { // 12.5 × 1.852, exact
+		t.Errorf("In(km/h) = %v, %v", kmh, err)
+	}
+	u := units.MustParse("W/(m²·K)")
+	tb, _ := u.MarshalText()
+	var u2 units.Unit
+	if err := u2.UnmarshalText(tb); err != nil || !u2.Equal(u) {
+		t.Errorf("Unit text round trip %s: %v", tb, err)
+	}
+}
+
+func TestFlag(t *testing.T) {
+	fs := flag.NewFlagSet("rig", flag.ContinueOnError)
+	fs.SetOutput(io.Discard)
+	speed := units.NewFlag(quantity.Velocity, units.Value{Number: 10, Unit: units.MustParse("kn")})
+	fs.Var(speed, "speed", "towing speed")
+	if err := fs.Parse([]string{"-speed", "12kn"}); err != nil {
+		t.Fatal(err)
+	}
+	if got := speed.Quantity().Value(); math.Abs(got-12*1852.0/3600) > 1e-12 {
+		t.Errorf("speed = %v", got)
+	}
+	err := fs.Parse([]string{"-speed", "12 kg"})
+	if err == nil || !strings.Contains(err.Error(), "want velocity") {
+		t.Errorf("-speed 12 kg: %v", err)
+	}
+	var raw units.Value
+	fs.Var(&raw, "any", "any value")
+	if err := fs.Parse([]string{"-any", "3 psi"}); err != nil || raw.Unit.Dim() != quantity.Pressure {
+		t.Errorf("-any 3 psi: %v %v", raw, err)
+	}
+}
+
+func TestConversionErrors(t *testing.T) {
+	cases := []struct {
+		from, to string
+		err      error
+		text     string
+	}{
+		{"psi", "m/s", units.ErrIncompatible, "cannot convert psi (pressure, stress [kg·m⁻¹·s⁻²]) to m/s (velocity [m·s⁻¹])"},
+		{"rpm", "Hz", units.ErrAngle, "write the target with its angle (rev/s or rad/s"},
+		{"Hz", "rpm", units.ErrAngle, "write the source with its angle"},
+		{"rad", "1", units.ErrAngle, "plane angle"},
+		{"lm", "cd", units.ErrAngle, "solid angle"},
+		{"degC", "delta_degF", units.ErrTemperature, "temperature scale (a level)"},
+		{"Δ°F", "°C", units.ErrTemperature, "both as differences"},
+		{"kg/m^3", "lb/ft^2", units.ErrIncompatible, "density"},
+	}
+	for _, c := range cases {
+		_, err := units.Convert(1, c.from, c.to)
+		var ce *units.ConversionError
+		if !errors.As(err, &ce) || !errors.Is(err, c.err) || !strings.Contains(err.Error(), c.text) {
+			t.Errorf("Convert(%q, %q): %v\nwant %v containing %q", c.from, c.to, err, c.err, c.text)
+		}
+	}
+	if _, err := units.MustParse("psi").ValueOf(quantity.New(1, quantity.Velocity)); err == nil {
+		t.Error("ValueOf with the wrong dimension accepted")
+	}
+}
+
+func TestUnitAlgebra(t *testing.T) {
+	ft, s := units.MustParse("ft"), units.MustParse("s")
+	lbf := units.MustParse("lbf")
+	p, err := lbf.Mul(ft)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, err = p.Div(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !p.Equal(units.MustParse("ft*lbf/s")) || p.String() != "lbf*ft/s" {
+		t.Errorf("lbf·ft/s = %q, factor %v", p, p.Factor())
+	}
+	a, err := ft.Pow(2, 1)
+	if err != nil || !a.Equal(units.MustParse("ft^2")) {
+		t.Errorf("ft² = %v, %v", a, err)
+	}
+	if _, err := units.MustParse("rad").Pow(1, 2); err == nil {
+		t.Error("√rad accepted")
+	}
+	c := units.MustParse("degC")
+	if !c.IsScale() || c.Offset() != 273.15 {
+		t.Errorf("°C: scale %v offset %v", c.IsScale(), c.Offset())
+	}
+	if units.MustParse("W/(m*degC)").IsScale() || !units.MustParse("Δ°C").IsInterval() {
+		t.Error("scale and interval roles")
+	}
+	cp, _ := c.Mul(units.MustParse("kg"))
+	if cp.IsScale() || cp.Offset() != 0 {
+		t.Error("a scale inside a product must be its interval")
+	}
+	if pl, so := units.MustParse("rpm").Angle(); pl != 1 || so != 0 {
+		t.Errorf("rpm angle = %d, %d", pl, so)
+	}
+	if q := units.MustParse("degF").Of(32); math.Abs(q.Value()-273.15) > 1e-12 {
+		t.Errorf("32 °F = %v", q)
+	}
+	v, err := units.MustParse("degF").ValueOf(quantity.New(373.15, quantity.Temperature))
+	if err != nil || math.Abs(v-212) > 1e-12 {
+		t.Errorf("373.15 K in °F = %v, %v", v, err)
+	}
+	if !units.MustParse("psi").Compatible(units.MustParse("Pa")) || units.MustParse("rpm").Compatible(units.MustParse("Hz")) {
+		t.Error("Compatible")
+	}
+}
+
+func TestUserTable(t *testing.T) {
+	tab := units.NewTable()
+	if err := tab.Define("TR", "12000 BTU/h"); err != nil { // a ton of refrigeration, common practice
+		t.Fatal(err)
+	}
+	if err := tab.Define("div", "0.25 inH2O"); err != nil {
+		t.Fatal(err)
+	}
+	got, err := tab.Convert(1, "TR", "kW")
+	// 12000 × 1055.05585262 / 3600 W = 3.516852842 kW, exact from the IT BTU.
+	if err != nil || math.Abs(got-3.5168528420666667) > 1e-12 {
+		t.Errorf("1 TR = %v kW, %v", got, err)
+	}
+	got, err = tab.Convert(4, "div", "Pa")
+	if err != nil || math.Abs(got-249.08891) > 1e-9 { // 4 × 0.25 × 249.08891 (conventional inH2O)
+		t.Errorf("4 div = %v Pa, %v", got, err)
+	}
+	if v, err := tab.ParseValue("3 TR"); err != nil || v.Unit.String() != "TR" {
+		t.Errorf("ParseValue(3 TR) = %v, %v", v, err)
+	}
+	if err := tab.Define("TR2", "TR*2"); err != nil {
+		t.Errorf("definition from a definition: %v", err)
+	}
+	for _, c := range []struct{ name, expr string }{
+		{"psi", "6895 Pa"}, {"kPa", "1000 Pa"}, {"TR", "1 W"}, {"bad name", "1 W"}, {"", "1 W"},
+		{"x", "furlong"}, {"2x", "1 W"}, {"degX", "degC"},
+	} {
+		err := tab.Define(c.name, c.expr)
+		if !errors.Is(err, units.ErrDefine) {
+			t.Errorf("Define(%q, %q) = %v, want ErrDefine", c.name, c.expr, err)
+		}
+	}
+	if _, err := units.Parse("TR"); err == nil {
+		t.Error("a user definition leaked into the built-in table")
+	}
+}
+
+func TestPrinter(t *testing.T) {
+	atm := units.StandardAtmosphere
+	torque := quantity.New(12.5, quantity.Torque)
+	cases := []struct {
+		p    units.Printer
+		q    quantity.Quantity
+		want string
+	}{
+		{units.Printer{}, atm, "101325 Pa"},
+		{units.Printer{Prefix: true}, atm, "101.325 kPa"},
+		{units.Printer{Prefix: true, Style: units.ASCII}, quantity.New(2.5e-6, quantity.Length), "2.5 um"},
+		{units.Printer{Prefix: true}, quantity.New(2.5e-6, quantity.Length), "2.5 µm"},
+		{units.Printer{}, quantity.New(1.225, quantity.Density), "1.225 kg/m³"},
+		{units.Printer{}, quantity.New(1.8e-5, quantity.DynamicViscosity), "1.8e-05 Pa·s"},
+		{units.Printer{Prefix: true}, quantity.New(1.8e-5, quantity.DynamicViscosity), "18 µPa·s"},
+		{units.Printer{Prefix: true, Precision: 3}, quantity.New(745699.87, quantity.Power), "746 kW"},
+		{units.Printer{}, torque, "12.5 J"},
+		{units.Printer{Prefer: map[quantity.Dim]units.Unit{quantity.Torque: units.MustParse("N·m")}}, torque, "12.5 N·m"},
+		{units.Printer{Style: units.LaTeX}, quantity.New(0.025, quantity.ThermalConductivity), `0.025\,\mathrm{W}/(\mathrm{m}\cdot \mathrm{K})`},
+		{units.Printer{Style: units.LaTeX, Precision: 3}, quantity.New(1.5e-5, quantity.KinematicViscosity), `1.5\times 10^{-5}\,\mathrm{m}^{2}/\mathrm{s}`},
+		{units.Printer{Prefix: true}, quantity.New(1500, quantity.Mass), "1.5 Mg"},
+		{units.Printer{}, quantity.Scalar(0.25), "0.25"},
+	}
+	for _, c := range cases {
+		if got := c.p.Format(c.q); got != c.want {
+			t.Errorf("%+v.Format(%v) = %q, want %q", c.p, c.q, got, c.want)
+		}
+	}
+	s, err := units.Printer{Precision: 5}.FormatIn(atm, units.MustParse("psi"))
+	if err != nil || s != "14.696 psi" {
+		t.Errorf("atm in psi = %q, %v", s, err)
+	}
+	s, err = units.Printer{}.FormatIn(quantity.New(293.15, quantity.Temperature), units.MustParse("°C"))
+	if err != nil || s != "20 °C" {
+		t.Errorf("293.15 K in °C = %q, %v", s, err)
+	}
+	if _, err := (units.Printer{}).FormatIn(atm, units.MustParse("m")); err == nil {
+		t.Error("FormatIn with the wrong dimension accepted")
+	}
+}
+
+// TestConstants checks the derived constants against CODATA 2018 values
+// (exact for R and σ, which follow from the defining constants).
+func TestConstants(t *testing.T) {
+	cases := []struct {
+		name string
+		q    quantity.Quantity
+		want float64
+		unit string
+		rel  float64
+	}{
+		{"R", units.MolarGas, 8.314462618, "J/(mol*K)", 1e-10},            // CODATA 2018: 8.314 462 618… (exact)
+		{"σ", units.StefanBoltzmann, 5.670374419e-8, "W/(m^2*K^4)", 1e-9}, // CODATA 2018: 5.670 374 419… × 10⁻⁸ (exact)
+		{"G", units.Gravitation, 6.67430e-11, "m^3/(kg*s^2)", 1e-15},      // CODATA 2018
+		{"c", units.SpeedOfLight, 299792458, "m/s", 0},
+		{"g_n", units.StandardGravity, 9.80665, "m/s^2", 0},
+		{"atm", units.StandardAtmosphere, 101325, "Pa", 0},
+		{"h", units.Planck, 6.62607015e-34, "J*s", 0},
+		{"e", units.ElementaryCharge, 1.602176634e-19, "C", 0},
+		{"k", units.Boltzmann, 1.380649e-23, "J/K", 0},
+		{"N_A", units.Avogadro, 6.02214076e23, "1/mol", 0},
+		{"K_cd", units.LuminousEfficacy, 683, "cd*sr/W", 0},
+		{"Δν_Cs", units.HyperfineCs, 9192631770, "Hz", 0},
+	}
+	for _, c := range cases {
+		u := units.MustParse(c.unit)
+		if c.q.Dim() != u.Dim() {
+			t.Errorf("%s has dimension %v, want that of %s", c.name, c.q.Dim(), c.unit)
+			continue
+		}
+		if d := math.Abs(c.q.Value()-c.want) / c.want; d > c.rel {
+			t.Errorf("%s = %v, want %v", c.name, c.q.Value(), c.want)
+		}
+	}
+}
