@@ -1,0 +1,251 @@
+// Command pisets prints the Buckingham Pi set of a problem given on its
+// command line, for test harnesses and scripts: the groups with their
+// names, the dimensional matrix and its rank, as text or JSON.
+//
+// Usage:
+//
+//	pisets [flags] symbol=unit[@kind] ...
+//
+// Each variable is a symbol, '=', a unit expression giving its dimension,
+// and optionally '@' and a kind of quantity:
+//
+//	pisets -dep F -repeat rho,V,D 'F=N@force' rho=kg/m^3 V=m/s D=m mu=Pa*s
+//
+// Flags:
+//
+//	-dep SYMBOL        the dependent variable (its group comes first)
+//	-repeat A,B,C      the repeating set; default: the documented rule
+//	-format text|json  output format (default text)
+//	-sets              also list every valid repeating set
+//
+// With no variables it runs on a built-in invented problem (the bench test
+// of a flow restrictor). It exits 0 on success and 2 with a one-line
+// message on standard error for bad input.
+package main
+
+import (
+	"encoding/json"
+	"flag"
+	"fmt"
+	"io"
+	"os"
+	"strings"
+
+	"similis.dev/similis/pigroups"
+	"similis.dev/similis/units"
+)
+
+func main() { os.Exit(run(os.Args[1:], os.Stdout, os.Stderr)) }
+
+// builtin is an invented problem: pressure drop across a flow restrictor.
+var builtin = []string{"dp=kPa@pressure difference", "rho=kg/m^3", "V=m/s", "d=mm", "mu=mPa*s", "L=mm"}
+
+type usageError struct{ msg string }
+
+func (e *usageError) Error() string { return e.msg }
+
+func run(args []string, stdout, stderr io.Writer) int {
+	fs := flag.NewFlagSet("pisets", flag.ContinueOnError)
+	fs.SetOutput(io.Discard)
+	dep := fs.String("dep", "", "the dependent variable")
+	rep := fs.String("repeat", "", "comma-separated repeating set")
+	format := fs.String("format", "text", "text or json")
+	sets := fs.Bool("sets", false, "list every valid repeating set")
+	if err := fs.Parse(args); err != nil {
+		fmt.Fprintln(stderr, "pisets:", err)
+		return 2
+	}
+	vars := fs.Args()
+	demo := false
+	if len(vars) == 0 {
+		vars, demo = builtin, true
+		if *dep == "" {
+			*dep = "dp"
+		}
+	}
+	out, err := build(vars, *dep, *rep, *sets)
+	if err != nil {
+		fmt.Fprintln(stderr, "pisets:", strings.ReplaceAll(err.Error(), "\n", " "))
+		return 2
+	}
+	out.Invented = demo
+	switch *format {
+	case "json":
+		enc := json.NewEncoder(stdout)
+		enc.SetIndent("", "  ")
+		if err := enc.Encode(out); err != nil {
+			fmt.Fprintln(stderr, "pisets:", err)
+			return 1
+		}
+	case "text":
+		writeText(stdout, out)
+	default:
+		fmt.Fprintf(stderr, "pisets: -format %q: want text or json\n", *format)
+		return 2
+	}
+	return 0
+}
+
+// Report is the JSON output.
+type Report struct {
+	Invented      bool          `json:"invented,omitempty"`
+	Variables     []VariableOut `json:"variables"`
+	Bases         []string      `json:"bases"`
+	Matrix        [][]string    `json:"matrix"`
+	Rank          int           `json:"rank"`
+	RankNote      string        `json:"rank_note,omitempty"`
+	Repeating     []string      `json:"repeating"`
+	DefaultChosen bool          `json:"repeating_by_default_rule"`
+	Groups        []GroupOut    `json:"groups"`
+	ValidSets     [][]string    `json:"valid_repeating_sets,omitempty"`
+	table         string        // the text matrix
+	set           *pigroups.Set // for text output
+	problem       *pigroups.Problem
+}
+
+// VariableOut describes one variable.
+type VariableOut struct {
+	Symbol    string   `json:"symbol"`
+	Unit      string   `json:"unit"`
+	Dimension string   `json:"dimension"`
+	Kinds     []string `json:"kinds"`
+	Dependent bool     `json:"dependent,omitempty"`
+}
+
+// GroupOut describes one group.
+type GroupOut struct {
+	Name      string            `json:"name"`
+	Plain     string            `json:"plain"`
+	Unicode   string            `json:"unicode"`
+	LaTeX     string            `json:"latex"`
+	Exponents map[string]string `json:"exponents"`
+	Label     string            `json:"label"`
+	Matches   []MatchOut        `json:"matches,omitempty"`
+}
+
+// MatchOut is one recognition of a group.
+type MatchOut struct {
+	Name    string   `json:"name"`
+	Symbol  string   `json:"symbol"`
+	Power   string   `json:"power"`
+	Assumed []string `json:"assumed,omitempty"`
+}
+
+func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
+	var vars []pigroups.Variable
+	r := &Report{}
+	for _, spec := range specs {
+		sym, rest, ok := strings.Cut(spec, "=")
+		if !ok || sym == "" || rest == "" {
+			return nil, &usageError{fmt.Sprintf("variable %q: want symbol=unit or symbol=unit@kind", spec)}
+		}
+		unit, kind, _ := strings.Cut(rest, "@")
+		u, err := units.Parse(unit)
+		if err != nil {
+			return nil, fmt.Errorf("variable %q: %w", sym, err)
+		}
+		v := pigroups.Variable{Symbol: sym, Dim: u.Dim(), Kind: kind}
+		if sym == dep {
+			v.Role = pigroups.Dependent
+		}
+		vars = append(vars, v)
+		r.Variables = append(r.Variables, VariableOut{Symbol: sym, Unit: u.Format(units.Unicode), Dimension: u.Dim().String(), Dependent: sym == dep})
+	}
+	if dep != "" && !slicesContains(r.Variables, dep) {
+		return nil, &usageError{fmt.Sprintf("-dep %q is not among the variables", dep)}
+	}
+	p, err := pigroups.NewProblem(vars...)
+	if err != nil {
+		return nil, err
+	}
+	for i := range r.Variables {
+		r.Variables[i].Kinds = p.Kinds(i)
+	}
+	for _, b := range p.Bases() {
+		r.Bases = append(r.Bases, b.String())
+	}
+	for _, row := range p.Matrix() {
+		var cells []string
+		for _, x := range row {
+			cells = append(cells, x.String())
+		}
+		r.Matrix = append(r.Matrix, cells)
+	}
+	r.Rank, r.RankNote, r.table, r.problem = p.Rank(), p.RankNote(), p.MatrixTable(), p
+	var repeating []string
+	if rep == "" {
+		if repeating, err = p.DefaultRepeating(); err != nil {
+			return nil, err
+		}
+		r.DefaultChosen = true
+	} else {
+		repeating = strings.Split(rep, ",")
+	}
+	s, err := p.PiSet(repeating...)
+	if err != nil {
+		return nil, err
+	}
+	r.Repeating, r.set = s.Repeating(), s
+	for _, g := range s.Groups() {
+		go_ := GroupOut{Name: g.Name, Plain: g.Format(pigroups.Plain), Unicode: g.Format(pigroups.Unicode),
+			LaTeX: g.Format(pigroups.LaTeX), Label: g.Label(), Exponents: map[string]string{}}
+		for i, e := range g.Exponents() {
+			if !e.IsZero() {
+				go_.Exponents[vars[i].Symbol] = e.String()
+			}
+		}
+		for _, m := range g.Matches {
+			go_.Matches = append(go_.Matches, MatchOut{Name: m.Name, Symbol: m.Symbol, Power: m.Power.String(), Assumed: m.Assumed})
+		}
+		r.Groups = append(r.Groups, go_)
+	}
+	if listSets {
+		r.ValidSets = p.RepeatingSets()
+	}
+	return r, nil
+}
+
+func slicesContains(vs []VariableOut, sym string) bool {
+	for _, v := range vs {
+		if v.Symbol == sym {
+			return true
+		}
+	}
+	return false
+}
+
+func writeText(w io.Writer, r *Report) {
+	if r.Invented {
+		fmt.Fprintln(w, "(no variables given: an invented flow-restrictor problem)")
+	}
+	fmt.Fprintln(w, "variables:")
+	for _, v := range r.Variables {
+		role := ""
+		if v.Dependent {
+			role = "  (dependent)"
+		}
+		fmt.Fprintf(w, "  %-6s %-12s %-14s %s%s\n", v.Symbol, v.Unit, v.Dimension, strings.Join(v.Kinds, " or "), role)
+	}
+	fmt.Fprintln(w, "dimensional matrix:")
+	for _, line := range strings.Split(strings.TrimRight(r.table, "\n"), "\n") {
+		fmt.Fprintln(w, "  "+line)
+	}
+	if r.RankNote != "" {
+		fmt.Fprintln(w, "note:", r.RankNote)
+	}
+	how := "as given"
+	if r.DefaultChosen {
+		how = "by the default rule"
+	}
+	fmt.Fprintf(w, "repeating set (%s): %s\n", how, strings.Join(r.Repeating, ", "))
+	fmt.Fprintln(w, "groups:")
+	for _, line := range strings.Split(strings.TrimRight(r.set.Format(pigroups.Unicode), "\n"), "\n") {
+		fmt.Fprintln(w, "  "+line)
+	}
+	if len(r.ValidSets) > 0 {
+		fmt.Fprintf(w, "valid repeating sets (%d):\n", len(r.ValidSets))
+		for _, s := range r.ValidSets {
+			fmt.Fprintln(w, "  "+strings.Join(s, ", "))
+		}
+	}
+}

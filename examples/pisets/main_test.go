@@ -1,0 +1,63 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"strings"
+	"testing"
+)
+
+func TestDemo(t *testing.T) {
+	var out, errb bytes.Buffer
+	if code := run(nil, &out, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	// By hand: dp, rho, V, d, mu, L over L, M, T has rank 3, so 3 groups:
+	// Δp/(ρV²), μ/(ρVd), L/d.
+	for _, want := range []string{"invented", "rank 3, 6 variables, 3 groups", "Π₁ = dp/(rho·V²)", "Π₂ = mu/(rho·V·d)   1/Re", "Π₃ = L/d"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q:\n%s", want, out.String())
+		}
+	}
+}
+
+func TestJSON(t *testing.T) {
+	var out, errb bytes.Buffer
+	args := []string{"-format", "json", "-dep", "F", "-repeat", "rho,V,D", "-sets", "F=N@force", "rho=kg/m^3", "V=m/s", "D=m", "mu=Pa*s"}
+	if code := run(args, &out, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	var r Report
+	if err := json.Unmarshal(out.Bytes(), &r); err != nil {
+		t.Fatal(err)
+	}
+	if r.Rank != 3 || len(r.Groups) != 2 || r.Groups[0].Label != "C_D" || r.Groups[1].Label != "1/Re" {
+		t.Errorf("report: %+v", r)
+	}
+	if r.Groups[1].Exponents["mu"] != "1" || r.Groups[1].Exponents["rho"] != "-1" {
+		t.Errorf("exponents: %v", r.Groups[1].Exponents)
+	}
+	if len(r.ValidSets) == 0 || r.Invented {
+		t.Errorf("valid sets %v, invented %v", r.ValidSets, r.Invented)
+	}
+}
+
+func TestBadInput(t *testing.T) {
+	cases := [][]string{
+		{"x"},
+		{"x=furlong"},
+		{"-repeat", "a,d", "a=m", "b=s", "d=m"},
+		{"-dep", "z", "a=m", "b=s"},
+		{"-format", "xml", "a=m", "b=s"},
+		{"-nosuchflag"},
+		{"a=m", "a=s"},
+		{"a=m@density"},
+	}
+	for _, args := range cases {
+		var out, errb bytes.Buffer
+		code := run(args, &out, &errb)
+		if code != 2 || !strings.HasPrefix(errb.String(), "pisets: ") || strings.Count(errb.String(), "\n") != 1 {
+			t.Errorf("%v: exit %d, stderr %q", args, code, errb.String())
+		}
+	}
+}

@@ -1,0 +1,34 @@
+// Package pigroups builds Buckingham Pi sets: from a problem's variables,
+// the dimensionless groups formed with the repeating variables the
+// engineer chooses, with exact exponents and the trade's names; and it
+// evaluates the groups over test data and fits power laws to them.
+//
+// # The theorem, exactly
+//
+// A problem of n variables whose dimensional matrix has rank r has n − r
+// independent dimensionless groups (E. Buckingham, Phys. Rev. 4, 345,
+// 1914). The rank is found by exact rational elimination, never by a
+// floating tolerance, and it can be less than the number of base
+// dimensions that appear — Problem.RankNote says why. A repeating set
+// must have r members, exclude the dependent variable, and be
+// independent; CheckRepeating names the dimensionless group the members
+// form when they are not. Each non-repeating variable gives one group,
+// scaled to coprime integer exponents with its own exponent positive.
+//
+// # Names
+//
+// Groups are matched against a catalogue of the trade's named groups by
+// the kinds of quantity of their variables and their exponents, allowing
+// any power: μ/(ρVD) is recognised as 1/Re, V²/(gL) as Fr². A variable
+// without a kind is matched by its dimension, and the match says which
+// kind it assumed; give kinds (VarKind) to narrow the candidates, since a
+// pressure over ρV² may be an Euler number, a pressure coefficient, a
+// loss coefficient or a cavitation number.
+//
+// # Data
+//
+// An Evaluator computes the groups for one row of quantities or for whole
+// Series without allocating; FitPowerLaw fits Π₀ = C·∏ Πₖ^aₖ by least
+// squares on logarithms, with standard errors, confidence and prediction
+// intervals.
+package pigroups

@@ -1,0 +1,227 @@
+package pigroups
+
+import (
+	"fmt"
+	"math"
+
+	"similis.dev/similis/quantity"
+)
+
+// evTerm is one factor of a group in an Evaluator: a variable and its
+// exponent.
+type evTerm struct {
+	v   int
+	exp float64
+	n   int // the exponent as a whole number, when it is one (and small)
+}
+
+// Evaluator computes group values from variable values. It is built once
+// per set and does not allocate when evaluating.
+type Evaluator struct {
+	set      *Set
+	num, den [][]evTerm // per group: factors with positive and negative exponents
+	dims     []quantity.Dim
+	nbuf     [evalBlock]float64
+	dbuf     [evalBlock]float64
+}
+
+const evalBlock = 256
+
+// Evaluator returns an evaluator for the set's groups.
+func (s *Set) Evaluator() *Evaluator {
+	e := &Evaluator{set: s}
+	for _, v := range s.prob.vars {
+		e.dims = append(e.dims, v.Dim)
+	}
+	for _, g := range s.groups {
+		var num, den []evTerm
+		for i, x := range g.exps {
+			if x.IsZero() {
+				continue
+			}
+			t := evTerm{v: i, exp: math.Abs(x.Float())}
+			if x.IsInt() && x.Num >= -8 && x.Num <= 8 {
+				t.n = int(x.Num)
+				if t.n < 0 {
+					t.n = -t.n
+				}
+			}
+			if x.Sign() > 0 {
+				num = append(num, t)
+			} else {
+				den = append(den, t)
+			}
+		}
+		e.num = append(e.num, num)
+		e.den = append(e.den, den)
+	}
+	return e
+}
+
+// EvalError reports values that cannot be evaluated: a wrong count, a
+// wrong dimension, or columns of different lengths.
+type EvalError struct {
+	Symbol string
+	Reason string
+	Err    error // a *quantity.DimensionError for a wrong dimension
+}
+
+func (e *EvalError) Error() string {
+	s := "pigroups: evaluate"
+	if e.Symbol != "" {
+		s += fmt.Sprintf(" %q", e.Symbol)
+	}
+	if e.Err != nil {
+		return s + ": " + e.Err.Error()
+	}
+	return s + ": " + e.Reason
+}
+
+// Unwrap returns the dimension error, if any.
+func (e *EvalError) Unwrap() error { return e.Err }
+
+func powInt(x float64, n int) float64 {
+	switch n {
+	case 1:
+		return x
+	case 2:
+		return x * x
+	case 3:
+		return x * x * x
+	case 4:
+		x2 := x * x
+		return x2 * x2
+	}
+	r := 1.0
+	for range n {
+		r *= x
+	}
+	return r
+}
+
+func factor(x float64, t evTerm) float64 {
+	if t.n > 0 {
+		return powInt(x, t.n)
+	}
+	return math.Pow(x, t.exp)
+}
+
+// Row evaluates every group for one row of values, given in variable
+// order, into dst (which must have room for Len groups) and returns it.
+// Dimensions are checked; nothing is allocated.
+func (e *Evaluator) Row(values []quantity.Quantity, dst []float64) ([]float64, error) {
+	if len(values) != len(e.dims) {
+		return nil, &EvalError{Reason: fmt.Sprintf("%d values for %d variables", len(values), len(e.dims))}
+	}
+	for i, q := range values {
+		if err := q.Check(e.dims[i]); err != nil {
+			return nil, &EvalError{Symbol: e.set.prob.vars[i].Symbol, Err: err}
+		}
+	}
+	if len(dst) < len(e.num) {
+		return nil, &EvalError{Reason: fmt.Sprintf("destination holds %d groups, the set has %d", len(dst), len(e.num))}
+	}
+	for g := range e.num {
+		n, d := 1.0, 1.0
+		for _, t := range e.num[g] {
+			n *= factor(values[t.v].Value(), t)
+		}
+		for _, t := range e.den[g] {
+			d *= factor(values[t.v].Value(), t)
+		}
+		dst[g] = n / d
+	}
+	return dst[:len(e.num)], nil
+}
+
+// Series evaluates every group over whole columns of data, one Series per
+// variable in variable order, writing group g's values into dst[g], which
+// must have the columns' length. Dimensions and lengths are checked once;
+// the work is done in blocks, with no allocation. An Evaluator is not safe
+// for concurrent use by Series; use one per goroutine.
+func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
+	if len(cols) != len(e.dims) {
+		return &EvalError{Reason: fmt.Sprintf("%d columns for %d variables", len(cols), len(e.dims))}
+	}
+	n := -1
+	for i, c := range cols {
+		if err := c.Check(e.dims[i]); err != nil {
+			return &EvalError{Symbol: e.set.prob.vars[i].Symbol, Err: err}
+		}
+		if n >= 0 && c.Len() != n {
+			return &EvalError{Symbol: e.set.prob.vars[i].Symbol, Reason: fmt.Sprintf("column of length %d, others %d", c.Len(), n)}
+		}
+		n = c.Len()
+	}
+	if len(dst) < len(e.num) {
+		return &EvalError{Reason: fmt.Sprintf("%d destinations for %d groups", len(dst), len(e.num))}
+	}
+	for g := range e.num {
+		if len(dst[g]) < n {
+			return &EvalError{Reason: fmt.Sprintf("destination %d holds %d values, the columns %d", g, len(dst[g]), n)}
+		}
+	}
+	for lo := 0; lo < n; lo += evalBlock {
+		hi := min(lo+evalBlock, n)
+		for g := range e.num {
+			out := dst[g][lo:hi]
+			if nt, dt := e.num[g], e.den[g]; len(nt) == 1 && len(dt) == 1 && nt[0].n == 1 && dt[0].n == 1 {
+				// A plain ratio, x/y: one pass.
+				x, y := cols[nt[0].v].Values()[lo:hi], cols[dt[0].v].Values()[lo:hi]
+				for i := range out {
+					out[i] = x[i] / y[i]
+				}
+				continue
+			}
+			num := e.nbuf[:hi-lo]
+			den := e.dbuf[:hi-lo]
+			product(num, cols, e.num[g], lo)
+			if len(e.den[g]) == 0 {
+				copy(out, num)
+				continue
+			}
+			product(den, cols, e.den[g], lo)
+			for i := range out {
+				out[i] = num[i] / den[i]
+			}
+		}
+	}
+	return nil
+}
+
+// product writes ∏ col^exp over the terms into buf, for rows lo…lo+len(buf).
+func product(buf []float64, cols []quantity.Series, terms []evTerm, lo int) {
+	if len(terms) == 0 {
+		for i := range buf {
+			buf[i] = 1
+		}
+		return
+	}
+	for k, t := range terms {
+		x := cols[t.v].Values()[lo : lo+len(buf)]
+		switch {
+		case k == 0 && t.n == 1:
+			copy(buf, x)
+		case k == 0 && t.n == 2:
+			for i, v := range x {
+				buf[i] = v * v
+			}
+		case k == 0:
+			for i, v := range x {
+				buf[i] = factor(v, t)
+			}
+		case t.n == 1:
+			for i, v := range x {
+				buf[i] *= v
+			}
+		case t.n == 2:
+			for i, v := range x {
+				buf[i] *= v * v
+			}
+		default:
+			for i, v := range x {
+				buf[i] *= factor(v, t)
+			}
+		}
+	}
+}

@@ -1,0 +1,222 @@
+package pigroups
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/mat"
+	"gonum.org/v1/gonum/stat/distuv"
+)
+
+// Errors a fit can be refused with; a *FitError wraps one.
+var (
+	ErrTooFewRows  = errors.New("too few rows")
+	ErrNonPositive = errors.New("non-positive value")
+	ErrCollinear   = errors.New("collinear groups")
+	ErrFitShape    = errors.New("inconsistent data")
+)
+
+// FitError reports data a power law cannot be fitted to.
+type FitError struct {
+	Err    error
+	Row    int     // the offending row, or −1
+	Group  int     // the offending group (0 for Π₀), or −1
+	Cond   float64 // the condition number, for collinear groups
+	Reason string
+}
+
+func (e *FitError) Error() string {
+	s := "pigroups: fit: " + e.Err.Error()
+	if e.Row >= 0 {
+		s += fmt.Sprintf(" at row %d", e.Row)
+	}
+	if e.Group >= 0 {
+		s += fmt.Sprintf(" in group %d", e.Group)
+	}
+	if e.Reason != "" {
+		s += ": " + e.Reason
+	}
+	return s
+}
+
+// Unwrap returns the class of the problem.
+func (e *FitError) Unwrap() error { return e.Err }
+
+// FitOptions adjusts a fit. The zero value is an unweighted fit with 95 %
+// intervals.
+type FitOptions struct {
+	// Weights, one per row, positive; nil means equal weights.
+	Weights []float64
+	// Level is the confidence level of the intervals, 0.95 if zero.
+	Level float64
+	// MaxCond is the largest condition number of the design matrix
+	// accepted, 1e10 if zero.
+	MaxCond float64
+}
+
+// PowerLaw is a fitted Π₀ = C·Π₁^a₁·…·Π_k^a_k, from least squares on
+// logarithms: ln Π₀ = ln C + Σ aₖ ln Πₖ.
+type PowerLaw struct {
+	C         float64      // the coefficient
+	CInterval [2]float64   // its confidence interval
+	Exponents []float64    // a₁ … a_k
+	StdErr    []float64    // standard errors of ln C, a₁, …, a_k
+	Intervals [][2]float64 // confidence intervals of a₁ … a_k
+	R2        float64      // coefficient of determination in log space
+	RMS       float64      // residual root mean square in log space
+	N, DoF    int          // rows and residual degrees of freedom
+	Level     float64      // confidence level of the intervals
+	Cond      float64      // condition number of the design matrix
+	tq        float64      // Student t quantile
+	sigma2    float64
+	cov       *mat.SymDense // σ²(XᵀWX)⁻¹
+}
+
+// FitPowerLaw fits Π₀ = C·∏ Πₖ^aₖ to measured rows: y holds Π₀ and x[k]
+// holds Πₖ₊₁, each with one value per row. All values must be positive.
+// Standard errors use the residual variance; intervals use Student's t
+// with N − k − 1 degrees of freedom.
+func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error) {
+	var o FitOptions
+	if opt != nil {
+		o = *opt
+	}
+	if o.Level == 0 {
+		o.Level = 0.95
+	}
+	if o.MaxCond == 0 {
+		o.MaxCond = 1e10
+	}
+	if !(o.Level > 0 && o.Level < 1) {
+		return nil, &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("confidence level %v is not between 0 and 1", o.Level)}
+	}
+	n, k := len(y), len(x)
+	p := k + 1
+	if n <= p {
+		return nil, &FitError{Err: ErrTooFewRows, Row: -1, Group: -1, Reason: fmt.Sprintf("%d rows for %d coefficients; at least %d are needed for intervals", n, p, p+1)}
+	}
+	for j, col := range x {
+		if len(col) != n {
+			return nil, &FitError{Err: ErrFitShape, Row: -1, Group: j + 1, Reason: fmt.Sprintf("%d values, Π₀ has %d", len(col), n)}
+		}
+	}
+	if o.Weights != nil && len(o.Weights) != n {
+		return nil, &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("%d weights for %d rows", len(o.Weights), n)}
+	}
+	X := mat.NewDense(n, p, nil)
+	Y := mat.NewVecDense(n, nil)
+	sw := make([]float64, n)
+	for i := range n {
+		w := 1.0
+		if o.Weights != nil {
+			w = o.Weights[i]
+			if !(w > 0) || math.IsInf(w, 0) {
+				return nil, &FitError{Err: ErrFitShape, Row: i, Group: -1, Reason: fmt.Sprintf("weight %v is not positive and finite", w)}
+			}
+		}
+		sw[i] = math.Sqrt(w)
+		if !(y[i] > 0) || math.IsInf(y[i], 0) {
+			return nil, &FitError{Err: ErrNonPositive, Row: i, Group: 0, Reason: fmt.Sprintf("Π₀ = %v; a power law needs positive values", y[i])}
+		}
+		Y.SetVec(i, sw[i]*math.Log(y[i]))
+		X.Set(i, 0, sw[i])
+		for j := range k {
+			v := x[j][i]
+			if !(v > 0) || math.IsInf(v, 0) {
+				return nil, &FitError{Err: ErrNonPositive, Row: i, Group: j + 1, Reason: fmt.Sprintf("value %v; a power law needs positive values", v)}
+			}
+			X.Set(i, j+1, sw[i]*math.Log(v))
+		}
+	}
+	cond := mat.Cond(X, 2)
+	if math.IsInf(cond, 0) || math.IsNaN(cond) || cond > o.MaxCond {
+		return nil, &FitError{Err: ErrCollinear, Row: -1, Group: -1, Cond: cond, Reason: fmt.Sprintf("condition number %.3g of the log design matrix exceeds %.3g: some groups are (nearly) powers of one another, or constant", cond, o.MaxCond)}
+	}
+	var qr mat.QR
+	qr.Factorize(X)
+	var beta mat.VecDense
+	if err := qr.SolveVecTo(&beta, false, Y); err != nil {
+		return nil, &FitError{Err: ErrCollinear, Row: -1, Group: -1, Cond: cond, Reason: err.Error()}
+	}
+	var fitted mat.VecDense
+	fitted.MulVec(X, &beta)
+	ssRes, ssTot, sumW, meanY := 0.0, 0.0, 0.0, 0.0
+	for i := range n {
+		w := sw[i] * sw[i]
+		sumW += w
+		meanY += w * math.Log(y[i])
+	}
+	meanY /= sumW
+	for i := range n {
+		r := Y.AtVec(i) - fitted.AtVec(i) // already weighted
+		ssRes += r * r
+		d := math.Log(y[i]) - meanY
+		ssTot += sw[i] * sw[i] * d * d
+	}
+	dof := n - p
+	sigma2 := ssRes / float64(dof)
+	var xtx mat.SymDense
+	xtx.SymOuterK(1, X.T())
+	var inv mat.SymDense
+	var chol mat.Cholesky
+	if !chol.Factorize(&xtx) {
+		return nil, &FitError{Err: ErrCollinear, Row: -1, Group: -1, Cond: cond, Reason: "XᵀX is not positive definite"}
+	}
+	if err := chol.InverseTo(&inv); err != nil {
+		return nil, &FitError{Err: ErrCollinear, Row: -1, Group: -1, Cond: cond, Reason: err.Error()}
+	}
+	inv.ScaleSym(sigma2, &inv)
+	tq := distuv.StudentsT{Mu: 0, Sigma: 1, Nu: float64(dof)}.Quantile(1 - (1-o.Level)/2)
+	f := &PowerLaw{N: n, DoF: dof, Level: o.Level, Cond: cond, tq: tq, sigma2: sigma2, cov: &inv}
+	f.StdErr = make([]float64, p)
+	for j := range p {
+		f.StdErr[j] = math.Sqrt(inv.At(j, j))
+	}
+	lnC := beta.AtVec(0)
+	f.C = math.Exp(lnC)
+	f.CInterval = [2]float64{math.Exp(lnC - tq*f.StdErr[0]), math.Exp(lnC + tq*f.StdErr[0])}
+	for j := range k {
+		a := beta.AtVec(j + 1)
+		f.Exponents = append(f.Exponents, a)
+		f.Intervals = append(f.Intervals, [2]float64{a - tq*f.StdErr[j+1], a + tq*f.StdErr[j+1]})
+	}
+	if ssTot > 0 {
+		f.R2 = 1 - ssRes/ssTot
+	}
+	f.RMS = math.Sqrt(ssRes / sumW)
+	return f, nil
+}
+
+// Prediction is the fitted Π₀ at a point, with its confidence interval
+// (for the mean) and prediction interval (for one new measurement), both
+// at the fit's level.
+type Prediction struct {
+	Value      float64
+	Mean       [2]float64
+	Individual [2]float64
+}
+
+// Predict returns the fitted Π₀ for groups Π₁ … Π_k.
+func (f *PowerLaw) Predict(groups ...float64) (Prediction, error) {
+	if len(groups) != len(f.Exponents) {
+		return Prediction{}, &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("%d groups for a fit of %d", len(groups), len(f.Exponents))}
+	}
+	x0 := mat.NewVecDense(len(groups)+1, nil)
+	x0.SetVec(0, 1)
+	lnY := math.Log(f.C)
+	for j, g := range groups {
+		if !(g > 0) {
+			return Prediction{}, &FitError{Err: ErrNonPositive, Row: -1, Group: j + 1, Reason: fmt.Sprintf("value %v", g)}
+		}
+		x0.SetVec(j+1, math.Log(g))
+		lnY += f.Exponents[j] * math.Log(g)
+	}
+	v := mat.Inner(x0, f.cov, x0)
+	se, sp := math.Sqrt(v), math.Sqrt(v+f.sigma2)
+	return Prediction{
+		Value:      math.Exp(lnY),
+		Mean:       [2]float64{math.Exp(lnY - f.tq*se), math.Exp(lnY + f.tq*se)},
+		Individual: [2]float64{math.Exp(lnY - f.tq*sp), math.Exp(lnY + f.tq*sp)},
+	}, nil
+}

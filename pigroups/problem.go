@@ -1,0 +1,547 @@
+package pigroups
+
+import (
+	"errors"
+	"fmt"
+	"slices"
+	"strings"
+
+	"similis.dev/similis/internal/exact"
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/units"
+)
+
+// Role says whether a variable is the one the test measures.
+type Role uint8
+
+// Roles of a variable.
+const (
+	Independent Role = iota // a variable the test sets or the problem depends on
+	Dependent               // the variable measured, at most one per problem
+)
+
+// Variable is one variable of a problem: a symbol, its dimension, an
+// optional kind of quantity and its role.
+type Variable struct {
+	// Symbol is any UTF-8 name: "Δp", "ρ", "μ", "D".
+	Symbol string
+	// Dim is the variable's dimension.
+	Dim quantity.Dim
+	// Kind names the kind of quantity ("density", "dynamic viscosity",
+	// "speed of sound"); see Kinds. Empty means inferred from Dim where
+	// that is unambiguous.
+	Kind string
+	// Role marks the dependent variable.
+	Role Role
+}
+
+// Var returns an independent variable.
+func Var(symbol string, d quantity.Dim) Variable { return Variable{Symbol: symbol, Dim: d} }
+
+// VarKind returns an independent variable of a named kind.
+func VarKind(symbol string, d quantity.Dim, kind string) Variable {
+	return Variable{Symbol: symbol, Dim: d, Kind: kind}
+}
+
+// Dep returns the dependent variable.
+func Dep(symbol string, d quantity.Dim) Variable {
+	return Variable{Symbol: symbol, Dim: d, Role: Dependent}
+}
+
+// VarUnit returns a variable whose dimension is that of a unit expression
+// ("lbf/ft^2"). Angles are dimensionless, as in the SI.
+func VarUnit(symbol, unit string) (Variable, error) {
+	u, err := units.Parse(unit)
+	if err != nil {
+		return Variable{}, fmt.Errorf("pigroups: variable %q: %w", symbol, err)
+	}
+	return Variable{Symbol: symbol, Dim: u.Dim()}, nil
+}
+
+// AsDependent returns v with the dependent role.
+func (v Variable) AsDependent() Variable { v.Role = Dependent; return v }
+
+// WithKind returns v with the named kind.
+func (v Variable) WithKind(kind string) Variable { v.Kind = kind; return v }
+
+// Errors a problem or a repeating set can be refused with; the concrete
+// errors wrap one of them.
+var (
+	ErrNoVariables       = errors.New("no variables")
+	ErrDuplicateSymbol   = errors.New("duplicate symbol")
+	ErrTwoDependent      = errors.New("more than one dependent variable")
+	ErrUnknownKind       = errors.New("unknown kind of quantity")
+	ErrKindDimension     = errors.New("kind does not match the dimension")
+	ErrRepeatingCount    = errors.New("wrong number of repeating variables")
+	ErrRepeatingDep      = errors.New("dependent variable in the repeating set")
+	ErrRepeatingUnknown  = errors.New("unknown repeating variable")
+	ErrRepeatingSingular = errors.New("repeating variables not independent")
+	ErrNoGroups          = errors.New("no dimensionless groups")
+)
+
+// ProblemError reports a list of variables that cannot form a problem.
+type ProblemError struct {
+	Err    error
+	Symbol string
+	Reason string
+}
+
+func (e *ProblemError) Error() string {
+	s := "pigroups: " + e.Err.Error()
+	if e.Symbol != "" {
+		s += fmt.Sprintf(" %q", e.Symbol)
+	}
+	if e.Reason != "" {
+		s += ": " + e.Reason
+	}
+	return s
+}
+
+// Unwrap returns the class of the problem.
+func (e *ProblemError) Unwrap() error { return e.Err }
+
+// RepeatingError reports a repeating set that is refused, and why.
+type RepeatingError struct {
+	Err       error    // one of the ErrRepeating… values
+	Set       []string // the set given
+	Want      int      // the number of repeating variables needed (the rank)
+	Symbol    string   // the offending variable, if one
+	Uncovered []quantity.Base
+	// Combination is the dimensionless product the repeating variables
+	// form among themselves, when they are not independent ("ω·D/V").
+	Combination string
+}
+
+func (e *RepeatingError) Error() string {
+	var sb strings.Builder
+	fmt.Fprintf(&sb, "pigroups: repeating set {%s}: %v", strings.Join(e.Set, ", "), e.Err)
+	switch {
+	case errors.Is(e.Err, ErrRepeatingCount):
+		fmt.Fprintf(&sb, ": %d given, the rank of the dimensional matrix is %d, so %d are needed", len(e.Set), e.Want, e.Want)
+	case e.Symbol != "":
+		fmt.Fprintf(&sb, ": %q", e.Symbol)
+	}
+	if len(e.Uncovered) > 0 {
+		names := make([]string, len(e.Uncovered))
+		for i, b := range e.Uncovered {
+			names[i] = b.String()
+		}
+		fmt.Fprintf(&sb, "; no repeating variable carries %s", strings.Join(names, ", "))
+	}
+	if e.Combination != "" {
+		fmt.Fprintf(&sb, "; they form the dimensionless group %s among themselves", e.Combination)
+	}
+	return sb.String()
+}
+
+// Unwrap returns the class of the problem.
+func (e *RepeatingError) Unwrap() error { return e.Err }
+
+// Problem is a list of variables with its dimensional matrix and rank.
+type Problem struct {
+	vars  []Variable
+	kinds [][]string // candidate kinds of each variable
+	a     exact.Matrix
+	rows  []quantity.Base // base dimensions that appear, in ISO order
+	rank  int
+	dep   int // index of the dependent variable, or −1
+}
+
+// NewProblem checks the variables and builds the dimensional matrix.
+// Symbols must be distinct and non-empty; at most one variable may be
+// dependent; a kind, if given, must be known and match the dimension.
+func NewProblem(vars ...Variable) (*Problem, error) {
+	if len(vars) == 0 {
+		return nil, &ProblemError{Err: ErrNoVariables}
+	}
+	if len(vars) > 64 {
+		return nil, &ProblemError{Err: ErrNoVariables, Reason: "more than 64 variables"}
+	}
+	p := &Problem{vars: slices.Clone(vars), dep: -1}
+	seen := map[string]bool{}
+	for i, v := range vars {
+		if v.Symbol == "" || strings.ContainsAny(v.Symbol, " \t\n*/^()·") {
+			return nil, &ProblemError{Err: ErrDuplicateSymbol, Symbol: v.Symbol, Reason: "a symbol must be non-empty, without spaces or operators"}
+		}
+		if seen[v.Symbol] {
+			return nil, &ProblemError{Err: ErrDuplicateSymbol, Symbol: v.Symbol}
+		}
+		seen[v.Symbol] = true
+		if v.Role == Dependent {
+			if p.dep >= 0 {
+				return nil, &ProblemError{Err: ErrTwoDependent, Symbol: v.Symbol, Reason: fmt.Sprintf("%q is dependent already", vars[p.dep].Symbol)}
+			}
+			p.dep = i
+		}
+		ks, err := candidateKinds(v)
+		if err != nil {
+			return nil, err
+		}
+		p.kinds = append(p.kinds, ks)
+	}
+	for b := quantity.Base(0); b < quantity.NumBases; b++ {
+		for _, v := range vars {
+			if v.Dim.Sixths(b) != 0 {
+				p.rows = append(p.rows, b)
+				break
+			}
+		}
+	}
+	p.a = exact.NewMatrix(len(p.rows), len(vars))
+	for i, b := range p.rows {
+		for j, v := range vars {
+			// Held in sixths, as whole numbers: scaling a matrix changes
+			// neither its rank nor its null space, and integers eliminate
+			// faster. Matrix and MatrixTable divide by six.
+			p.a[i][j] = exact.Int(int64(v.Dim.Sixths(b)))
+		}
+	}
+	r, err := p.a.Rank()
+	if err != nil {
+		return nil, err
+	}
+	p.rank = r
+	return p, nil
+}
+
+// MustProblem is like NewProblem but panics on error; for variables
+// written in code.
+func MustProblem(vars ...Variable) *Problem {
+	p, err := NewProblem(vars...)
+	if err != nil {
+		panic(err)
+	}
+	return p
+}
+
+// Variables returns a copy of the variables.
+func (p *Problem) Variables() []Variable { return slices.Clone(p.vars) }
+
+// Rank returns the rank of the dimensional matrix, found by exact
+// rational elimination: the number of repeating variables a Pi set needs.
+func (p *Problem) Rank() int { return p.rank }
+
+// NumGroups returns n − r, the number of independent dimensionless
+// groups (Buckingham's theorem).
+func (p *Problem) NumGroups() int { return len(p.vars) - p.rank }
+
+// Bases returns the base dimensions that appear among the variables, in
+// ISO order; they are the rows of the dimensional matrix.
+func (p *Problem) Bases() []quantity.Base { return slices.Clone(p.rows) }
+
+// Matrix returns the dimensional matrix: one row per base dimension that
+// appears (Bases), one column per variable, exact exponents.
+func (p *Problem) Matrix() exact.Matrix {
+	m := p.a.Clone()
+	for i := range m {
+		for j := range m[i] {
+			m[i][j] = exact.Frac(m[i][j].Num, quantity.ExpDen)
+		}
+	}
+	return m
+}
+
+// Kinds returns the candidate kinds of quantity of variable i: its own
+// kind if given, or the kinds its dimension can mean.
+func (p *Problem) Kinds(i int) []string { return slices.Clone(p.kinds[i]) }
+
+func (p *Problem) index(sym string) int {
+	for i, v := range p.vars {
+		if v.Symbol == sym {
+			return i
+		}
+	}
+	return -1
+}
+
+// RankNote explains a rank below the number of base dimensions that
+// appear, naming the combination in which the dependent bases always
+// occur; it returns "" when the rank equals that number.
+//
+// For capillary rise with h, σ, ρg and d, M and T occur only as M T⁻², so
+// the rank is 2, not 3, and there are two groups, not one.
+func (p *Problem) RankNote() string {
+	if p.rank == len(p.rows) {
+		return ""
+	}
+	left, err := p.a.Transpose().NullSpace()
+	if err != nil || len(left) == 0 {
+		return ""
+	}
+	names := make([]string, len(p.rows))
+	for i, b := range p.rows {
+		names[i] = b.String()
+	}
+	var parts []string
+	for _, y := range left {
+		var nz []int
+		for i, x := range y {
+			if !x.IsZero() {
+				nz = append(nz, i)
+			}
+		}
+		if len(nz) == 2 {
+			// y₁e₁ + y₂e₂ = 0 for every variable: the bases occur only as
+			// b₁^(y₂) b₂^(−y₁), up to a power.
+			i, j := nz[0], nz[1]
+			comb := exact.Vec{y[j], y[i].Neg()}
+			iv, _, err := exact.Integers(comb)
+			if err != nil {
+				continue
+			}
+			if iv[0].Sign() < 0 {
+				iv[0], iv[1] = iv[0].Neg(), iv[1].Neg()
+			}
+			d := powDim(p.rows[i], iv[0]).mustMul(powDim(p.rows[j], iv[1]))
+			parts = append(parts, fmt.Sprintf("%s and %s occur only as %s", names[i], names[j], d))
+			continue
+		}
+		var terms []string
+		for _, i := range nz {
+			terms = append(terms, y[i].String()+"·"+names[i])
+		}
+		parts = append(parts, "the exponents satisfy "+strings.Join(terms, " + ")+" = 0 for every variable")
+	}
+	return fmt.Sprintf("the rank is %d, less than the %d base dimensions that appear (%s): %s; so there are %d groups, not %d",
+		p.rank, len(p.rows), strings.Join(names, ", "), strings.Join(parts, "; "), p.NumGroups(), len(p.vars)-len(p.rows))
+}
+
+type dimOrZero struct{ d quantity.Dim }
+
+func powDim(b quantity.Base, e exact.Rat) dimOrZero {
+	d, err := quantity.DimOf(b, int(e.Num), int(e.Den))
+	if err != nil {
+		return dimOrZero{}
+	}
+	return dimOrZero{d}
+}
+
+func (a dimOrZero) mustMul(b dimOrZero) quantity.Dim {
+	d, _ := a.d.Mul(b.d)
+	return d
+}
+
+// columns returns the submatrix of the given columns.
+func (p *Problem) columns(idx []int) exact.Matrix {
+	m := exact.NewMatrix(len(p.rows), len(idx))
+	for i := range p.rows {
+		for k, j := range idx {
+			m[i][k] = p.a[i][j]
+		}
+	}
+	return m
+}
+
+// CheckRepeating validates a repeating set: it must have exactly Rank
+// members, all known, none dependent, carrying every base dimension that
+// appears, and independent among themselves. The error is a
+// *RepeatingError; when the members are dependent it names the
+// dimensionless group they form.
+func (p *Problem) CheckRepeating(set ...string) error {
+	_, err := p.repeatingIndex(set)
+	return err
+}
+
+func (p *Problem) repeatingIndex(set []string) ([]int, error) {
+	e := &RepeatingError{Set: slices.Clone(set), Want: p.rank}
+	idx := make([]int, 0, len(set))
+	for _, s := range set {
+		i := p.index(s)
+		if i < 0 {
+			e.Err, e.Symbol = ErrRepeatingUnknown, s
+			return nil, e
+		}
+		if slices.Contains(idx, i) {
+			e.Err, e.Symbol = ErrRepeatingUnknown, s
+			return nil, &RepeatingError{Err: fmt.Errorf("%w: %q given twice", ErrRepeatingCount, s), Set: e.Set, Want: p.rank}
+		}
+		if i == p.dep {
+			e.Err, e.Symbol = ErrRepeatingDep, s
+			return nil, e
+		}
+		idx = append(idx, i)
+	}
+	if len(idx) != p.rank {
+		e.Err = ErrRepeatingCount
+		return nil, e
+	}
+	sub := p.columns(idx)
+	for i, b := range p.rows {
+		covered := false
+		for k := range idx {
+			if !sub[i][k].IsZero() {
+				covered = true
+			}
+		}
+		if !covered {
+			e.Uncovered = append(e.Uncovered, b)
+		}
+	}
+	ns, err := sub.NullSpace()
+	if err != nil {
+		return nil, err
+	}
+	if len(ns) > 0 || len(e.Uncovered) > 0 {
+		e.Err = ErrRepeatingSingular
+		if len(ns) > 0 {
+			iv, _, err := exact.Integers(ns[0])
+			if err == nil {
+				exps := make(map[int]exact.Rat)
+				for k, j := range idx {
+					exps[j] = iv[k]
+				}
+				e.Combination = p.spell(exps, Plain)
+			}
+		}
+		return nil, e
+	}
+	return idx, nil
+}
+
+// RepeatingSets returns every valid repeating set, each in variable
+// order, the sets in lexicographic order of their indices.
+func (p *Problem) RepeatingSets() [][]string {
+	var out [][]string
+	p.eachRepeating(func(idx []int) bool {
+		set := make([]string, len(idx))
+		for k, i := range idx {
+			set[k] = p.vars[i].Symbol
+		}
+		out = append(out, set)
+		return true
+	})
+	return out
+}
+
+// eachRepeating calls f with every valid repeating set until f returns
+// false.
+func (p *Problem) eachRepeating(f func(idx []int) bool) {
+	var cand []int
+	for i := range p.vars {
+		if i != p.dep {
+			cand = append(cand, i)
+		}
+	}
+	r := p.rank
+	if r == 0 || r > len(cand) {
+		return
+	}
+	// Work on the row echelon columns with an incremental rank test:
+	// choose columns one at a time, keeping them independent.
+	sel := make([]int, 0, r)
+	basis := make([]exact.Vec, 0, r) // reduced basis vectors with their pivot rows
+	pivRow := make([]int, 0, r)
+	var rec func(start int) bool
+	rec = func(start int) bool {
+		if len(sel) == r {
+			return f(slices.Clone(sel))
+		}
+		for k := start; k <= len(cand)-(r-len(sel)); k++ {
+			j := cand[k]
+			v := make(exact.Vec, len(p.rows))
+			for i := range p.rows {
+				v[i] = p.a[i][j]
+			}
+			// Reduce v by the current basis.
+			ok := true
+			for b, bv := range basis {
+				c := v[pivRow[b]]
+				if c.IsZero() {
+					continue
+				}
+				for i := range v {
+					t, err := c.Mul(bv[i])
+					if err != nil {
+						ok = false
+						break
+					}
+					if v[i], err = v[i].Sub(t); err != nil {
+						ok = false
+						break
+					}
+				}
+			}
+			if !ok {
+				continue
+			}
+			pr := -1
+			for i := range v {
+				if !v[i].IsZero() {
+					pr = i
+					break
+				}
+			}
+			if pr < 0 {
+				continue // dependent on the chosen ones
+			}
+			inv := v[pr]
+			for i := range v {
+				v[i], _ = v[i].Div(inv)
+			}
+			sel, basis, pivRow = append(sel, j), append(basis, v), append(pivRow, pr)
+			cont := rec(k + 1)
+			sel, basis, pivRow = sel[:len(sel)-1], basis[:len(basis)-1], pivRow[:len(pivRow)-1]
+			if !cont {
+				return false
+			}
+		}
+		return true
+	}
+	rec(0)
+}
+
+// preference ranks kinds for the default repeating set, lower first.
+var preference = map[string]int{
+	"density": 0, "velocity": 1, "length": 2, "angular velocity": 3, "rotational speed": 3,
+	"frequency": 4, "dynamic viscosity": 5, "thermal conductivity": 6, "temperature difference": 7,
+	"acceleration": 8, "gravitational acceleration": 8, "mass": 9, "time": 10,
+}
+
+func (p *Problem) prefRank(i int) int {
+	best := 50
+	for _, k := range p.kinds[i] {
+		if r, ok := preference[k]; ok && r < best {
+			best = r
+		}
+	}
+	return best
+}
+
+// DefaultRepeating returns the repeating set chosen by the documented
+// rule: among all valid sets, the one whose members, sorted by preference,
+// rank best, where the preference follows the fluids trade — a density,
+// then a velocity, then a length, then an angular velocity or frequency,
+// then a dynamic viscosity, a thermal conductivity, a temperature
+// difference, an acceleration, a mass, a time, and anything else last;
+// ties go to the variable listed first. It returns an error only when
+// no valid set exists.
+func (p *Problem) DefaultRepeating() ([]string, error) {
+	var best []int
+	var bestKey []int
+	p.eachRepeating(func(idx []int) bool {
+		key := make([]int, 0, 2*len(idx))
+		sorted := slices.Clone(idx)
+		slices.SortStableFunc(sorted, func(a, b int) int {
+			if d := p.prefRank(a) - p.prefRank(b); d != 0 {
+				return d
+			}
+			return a - b
+		})
+		for _, i := range sorted {
+			key = append(key, p.prefRank(i))
+		}
+		key = append(key, sorted...)
+		if best == nil || slices.Compare(key, bestKey) < 0 {
+			best, bestKey = idx, key
+		}
+		return true
+	})
+	if best == nil {
+		return nil, &RepeatingError{Err: ErrNoGroups, Want: p.rank}
+	}
+	out := make([]string, len(best))
+	for k, i := range best {
+		out[k] = p.vars[i].Symbol
+	}
+	return out, nil
+}

@@ -1,0 +1,509 @@
+package pigroups
+
+import (
+	"fmt"
+	"slices"
+	"strconv"
+	"strings"
+
+	"similis.dev/similis/internal/exact"
+	"similis.dev/similis/quantity"
+)
+
+// Style selects how groups are written.
+type Style uint8
+
+// Rendering styles.
+const (
+	Plain   Style = iota // mu/(rho*V*D), V^2/(g*L)
+	Unicode              // μ/(ρ·V·D), V²/(g·L)
+	LaTeX                // \frac{\mu}{\rho V D}
+)
+
+// Group is one dimensionless group: a product of powers of the problem's
+// variables with exact, coprime integer exponents.
+type Group struct {
+	// Name is Π₁, Π₂, … in the set's order.
+	Name string
+	// Var is the index of the variable the group was built for (the
+	// non-repeating one), whose exponent is positive.
+	Var  int
+	exps []exact.Rat
+	// Matches lists the named groups this one is recognised as, best
+	// first; empty when it has no name.
+	Matches []Match
+	prob    *Problem
+}
+
+// Exponents returns the exponent of each variable, in variable order.
+func (g Group) Exponents() []exact.Rat { return slices.Clone(g.exps) }
+
+// Exponent returns the exponent of the variable with the given symbol.
+func (g Group) Exponent(symbol string) exact.Rat {
+	i := g.prob.index(symbol)
+	if i < 0 {
+		return exact.Int(0)
+	}
+	return g.exps[i]
+}
+
+// Dim returns the group's dimension, computed from its variables; it is
+// dimensionless for every group a Set holds. It reports an error if an
+// intermediate power cannot be held by a quantity.Dim.
+func (g Group) Dim() (quantity.Dim, error) {
+	var d quantity.Dim
+	for i, e := range g.exps {
+		if e.IsZero() {
+			continue
+		}
+		p, err := g.prob.vars[i].Dim.Pow(int(e.Num), int(e.Den))
+		if err != nil {
+			return quantity.Dim{}, err
+		}
+		if d, err = d.Mul(p); err != nil {
+			return quantity.Dim{}, err
+		}
+	}
+	return d, nil
+}
+
+// String writes the group in plain text: "mu/(rho*V*D)".
+func (g Group) String() string { return g.Format(Plain) }
+
+// Format writes the group in a style.
+func (g Group) Format(style Style) string {
+	m := make(map[int]exact.Rat)
+	for i, e := range g.exps {
+		if !e.IsZero() {
+			m[i] = e
+		}
+	}
+	return g.prob.spell(m, style)
+}
+
+// Label returns the group's conventional label: the named group it is,
+// with its power ("Re", "1/Re", "Fr²"), or its Π name.
+func (g Group) Label() string {
+	if len(g.Matches) == 0 {
+		return g.Name
+	}
+	return g.Matches[0].Label()
+}
+
+// spell writes ∏ xᵢ^eᵢ in a style, numerator first, in variable order.
+func (p *Problem) spell(exps map[int]exact.Rat, style Style) string {
+	var num, den []int
+	for i := range p.vars {
+		e, ok := exps[i]
+		if !ok || e.IsZero() {
+			continue
+		}
+		if e.Sign() > 0 {
+			num = append(num, i)
+		} else {
+			den = append(den, i)
+		}
+	}
+	if style == LaTeX {
+		n := p.latexList(num, exps, 1)
+		if len(num) == 0 {
+			n = "1"
+		}
+		if len(den) == 0 {
+			return n
+		}
+		return `\frac{` + n + `}{` + p.latexList(den, exps, -1) + `}`
+	}
+	sep := "*"
+	if style == Unicode {
+		sep = "·"
+	}
+	list := func(idx []int, sign int64) string {
+		parts := make([]string, len(idx))
+		for k, i := range idx {
+			e := exps[i]
+			e.Num *= sign
+			parts[k] = p.vars[i].Symbol + expText(e, style)
+		}
+		return strings.Join(parts, sep)
+	}
+	s := list(num, 1)
+	if len(num) == 0 {
+		s = "1"
+	}
+	if len(den) > 0 {
+		d := list(den, -1)
+		if len(den) > 1 {
+			d = "(" + d + ")"
+		}
+		s += "/" + d
+	}
+	return s
+}
+
+var supDigits = map[rune]string{'0': "⁰", '1': "¹", '2': "²", '3': "³", '4': "⁴", '5': "⁵", '6': "⁶", '7': "⁷", '8': "⁸", '9': "⁹", '-': "⁻"}
+
+func expText(e exact.Rat, style Style) string {
+	if e.Num == 1 && e.Den == 1 {
+		return ""
+	}
+	if style == Unicode && e.IsInt() {
+		var sb strings.Builder
+		for _, c := range strconv.FormatInt(e.Num, 10) {
+			sb.WriteString(supDigits[c])
+		}
+		return sb.String()
+	}
+	if e.IsInt() {
+		return "^" + e.String()
+	}
+	return "^(" + e.String() + ")"
+}
+
+var greekTeX = map[rune]string{
+	'α': `\alpha`, 'β': `\beta`, 'γ': `\gamma`, 'δ': `\delta`, 'ε': `\varepsilon`, 'ζ': `\zeta`, 'η': `\eta`,
+	'θ': `\theta`, 'κ': `\kappa`, 'λ': `\lambda`, 'μ': `\mu`, 'ν': `\nu`, 'ξ': `\xi`, 'π': `\pi`, 'ρ': `\rho`,
+	'σ': `\sigma`, 'τ': `\tau`, 'φ': `\phi`, 'χ': `\chi`, 'ψ': `\psi`, 'ω': `\omega`, 'Δ': `\Delta `,
+	'Γ': `\Gamma`, 'Θ': `\Theta`, 'Λ': `\Lambda`, 'Π': `\Pi`, 'Σ': `\Sigma`, 'Φ': `\Phi`, 'Ψ': `\Psi`, 'Ω': `\Omega`,
+}
+
+// TeXSymbol writes a variable symbol for LaTeX: Greek letters as
+// commands, a trailing part after '_' as a subscript, other multi-letter
+// names upright.
+func TeXSymbol(s string) string {
+	base, sub, hasSub := strings.Cut(s, "_")
+	var sb strings.Builder
+	letters := 0
+	for _, r := range base {
+		if t, ok := greekTeX[r]; ok {
+			sb.WriteString(t)
+		} else {
+			sb.WriteRune(r)
+			letters++
+		}
+	}
+	out := sb.String()
+	if letters > 1 && !strings.ContainsRune(out, '\\') {
+		out = `\mathrm{` + out + `}`
+	}
+	if hasSub {
+		out += `_{` + sub + `}`
+	}
+	return out
+}
+
+func (p *Problem) latexList(idx []int, exps map[int]exact.Rat, sign int64) string {
+	parts := make([]string, len(idx))
+	for k, i := range idx {
+		e := exps[i]
+		e.Num *= sign
+		s := TeXSymbol(p.vars[i].Symbol)
+		if !(e.Num == 1 && e.Den == 1) {
+			s = "{" + s + "}^{" + e.String() + "}"
+		}
+		parts[k] = s
+	}
+	return strings.Join(parts, " ")
+}
+
+// Set is a Buckingham Pi set: n − r dimensionless groups built from a
+// repeating set of r variables, one group per non-repeating variable.
+type Set struct {
+	prob      *Problem
+	repeating []int
+	groups    []Group
+}
+
+var subDigits = []string{"₀", "₁", "₂", "₃", "₄", "₅", "₆", "₇", "₈", "₉"}
+
+func piName(k int) string {
+	var sb strings.Builder
+	sb.WriteString("Π")
+	for _, c := range strconv.Itoa(k) {
+		sb.WriteString(subDigits[c-'0'])
+	}
+	return sb.String()
+}
+
+// PiSet builds the Pi set for a repeating set (validated as
+// CheckRepeating does). Each non-repeating variable xⱼ gives the group
+// xⱼ·∏ xᵢ^cᵢ over the repeating xᵢ, with A_R·c = −A_j solved exactly and
+// scaled to coprime integers with xⱼ's exponent positive. The dependent
+// variable's group comes first, then the others in variable order; each
+// is checked to be dimensionless.
+func (p *Problem) PiSet(repeating ...string) (*Set, error) {
+	idx, err := p.repeatingIndex(repeating)
+	if err != nil {
+		return nil, err
+	}
+	if p.NumGroups() == 0 {
+		return nil, &RepeatingError{Err: ErrNoGroups, Set: repeating, Want: p.rank}
+	}
+	s := &Set{prob: p, repeating: idx}
+	var order []int
+	if p.dep >= 0 {
+		order = append(order, p.dep)
+	}
+	for j := range p.vars {
+		if j != p.dep && !slices.Contains(idx, j) {
+			order = append(order, j)
+		}
+	}
+	// One elimination solves every group: RREF of [A_R | A_others] is
+	// [I | A_R⁻¹·A_others] on the independent rows, so the exponents of
+	// the repeating variables in xⱼ's group are −(A_R⁻¹·A_j).
+	aug := p.columns(append(slices.Clone(idx), order...))
+	pivots, err := aug.RREF()
+	if err != nil {
+		return nil, err
+	}
+	if len(pivots) != len(idx) || pivots[len(pivots)-1] != len(idx)-1 {
+		return nil, fmt.Errorf("pigroups: internal error: repeating set %v is not independent", s.Repeating())
+	}
+	for k, j := range order {
+		v := make(exact.Vec, len(p.vars))
+		for i := range v {
+			v[i] = exact.Int(0)
+		}
+		v[j] = exact.Int(1)
+		for r, i := range idx {
+			v[i] = aug[r][len(idx)+k].Neg()
+		}
+		iv, _, err := exact.Integers(v)
+		if err != nil {
+			return nil, err
+		}
+		g := Group{Name: piName(k + 1), Var: j, exps: iv, prob: p}
+		if d, err := g.Dim(); err == nil && !d.IsDimensionless() || err != nil && !p.dimensionless(iv) {
+			return nil, fmt.Errorf("pigroups: internal error: group %s is not dimensionless", g)
+		}
+		g.Matches = p.recognise(iv)
+		s.groups = append(s.groups, g)
+	}
+	return s, nil
+}
+
+// DefaultSet is PiSet with the DefaultRepeating choice.
+func (p *Problem) DefaultSet() (*Set, error) {
+	r, err := p.DefaultRepeating()
+	if err != nil {
+		return nil, err
+	}
+	return p.PiSet(r...)
+}
+
+// dimensionless reports whether A·v = 0 exactly.
+func (p *Problem) dimensionless(v exact.Vec) bool {
+	for i := range p.rows {
+		sum := exact.Int(0)
+		for j, x := range v {
+			t, err := p.a[i][j].Mul(x)
+			if err != nil {
+				return false
+			}
+			if sum, err = sum.Add(t); err != nil {
+				return false
+			}
+		}
+		if !sum.IsZero() {
+			return false
+		}
+	}
+	return true
+}
+
+// Problem returns the problem the set belongs to.
+func (s *Set) Problem() *Problem { return s.prob }
+
+// Groups returns the groups, the dependent variable's first.
+func (s *Set) Groups() []Group { return slices.Clone(s.groups) }
+
+// Repeating returns the symbols of the repeating set.
+func (s *Set) Repeating() []string {
+	out := make([]string, len(s.repeating))
+	for k, i := range s.repeating {
+		out[k] = s.prob.vars[i].Symbol
+	}
+	return out
+}
+
+// Len returns the number of groups.
+func (s *Set) Len() int { return len(s.groups) }
+
+// Format writes the set one group per line: "Π₁ = μ/(ρ·V·D)   1/Re".
+func (s *Set) Format(style Style) string {
+	var sb strings.Builder
+	for _, g := range s.groups {
+		fmt.Fprintf(&sb, "%s = %s", g.Name, g.Format(style))
+		if len(g.Matches) > 0 {
+			fmt.Fprintf(&sb, "   %s", g.Matches[0].Describe())
+		}
+		sb.WriteByte('\n')
+	}
+	return sb.String()
+}
+
+// String writes the set in Unicode.
+func (s *Set) String() string { return s.Format(Unicode) }
+
+// MatrixTable writes the dimensional matrix as a text table, one column
+// per variable and one row per base dimension that appears, with the rank
+// beneath.
+func (p *Problem) MatrixTable() string {
+	width := make([]int, len(p.vars))
+	cells := make([][]string, len(p.rows))
+	for j, v := range p.vars {
+		width[j] = len([]rune(v.Symbol))
+	}
+	for i := range p.rows {
+		cells[i] = make([]string, len(p.vars))
+		for j := range p.vars {
+			cells[i][j] = exact.Frac(p.a[i][j].Num, quantity.ExpDen).String()
+			width[j] = max(width[j], len(cells[i][j]))
+		}
+	}
+	var sb strings.Builder
+	pad := func(s string, w int) string {
+		if n := w - len([]rune(s)); n > 0 {
+			return strings.Repeat(" ", n) + s
+		}
+		return s
+	}
+	sb.WriteString("  ")
+	for j, v := range p.vars {
+		sb.WriteString("  " + pad(v.Symbol, width[j]))
+	}
+	sb.WriteByte('\n')
+	for i, b := range p.rows {
+		sb.WriteString(pad(b.String(), 2))
+		for j := range p.vars {
+			sb.WriteString("  " + pad(cells[i][j], width[j]))
+		}
+		sb.WriteByte('\n')
+	}
+	fmt.Fprintf(&sb, "rank %d, %d variables, %d groups\n", p.rank, len(p.vars), p.NumGroups())
+	return sb.String()
+}
+
+// Equivalent reports whether two Pi sets of the same problem span the
+// same groups: each group of one is a product of powers of the other's.
+func Equivalent(a, b *Set) (bool, error) {
+	if a.prob != b.prob && !slices.EqualFunc(a.prob.vars, b.prob.vars, func(x, y Variable) bool { return x.Symbol == y.Symbol && x.Dim == y.Dim }) {
+		return false, nil
+	}
+	ra, err := a.matrix().Rank()
+	if err != nil {
+		return false, err
+	}
+	rb, err := b.matrix().Rank()
+	if err != nil {
+		return false, err
+	}
+	both := append(a.matrix(), b.matrix()...)
+	rab, err := both.Rank()
+	if err != nil {
+		return false, err
+	}
+	return ra == rb && rab == ra, nil
+}
+
+func (s *Set) matrix() exact.Matrix {
+	m := make(exact.Matrix, len(s.groups))
+	for i, g := range s.groups {
+		m[i] = slices.Clone(g.exps)
+	}
+	return m
+}
+
+// Express returns the exponents pₖ with target = ∏ Πₖ^pₖ over the set's
+// groups, exactly; ok is false if target is not a product of powers of
+// them. target gives an exponent for each variable, in variable order.
+func (s *Set) Express(target []exact.Rat) (powers []exact.Rat, ok bool, err error) {
+	if len(target) != len(s.prob.vars) {
+		return nil, false, fmt.Errorf("pigroups: %d exponents for %d variables", len(target), len(s.prob.vars))
+	}
+	return exact.Solve(s.matrix().Transpose(), exact.Vec(target))
+}
+
+// Rewrite returns a new set in which group k is replaced by ∏ Πⱼ^pⱼ, the
+// powers given over the current groups — for example, replacing Π₂ by
+// Π₂·Π₁⁻¹ is Rewrite(1, {-1, 1, 0, …}). The power of group k itself must
+// be nonzero, so the new set is still a basis; the result is scaled to
+// coprime integers with a positive exponent for the group's variable.
+func (s *Set) Rewrite(k int, powers []exact.Rat) (*Set, error) {
+	if k < 0 || k >= len(s.groups) || len(powers) != len(s.groups) {
+		return nil, fmt.Errorf("pigroups: rewrite group %d with %d powers of a %d-group set", k, len(powers), len(s.groups))
+	}
+	if powers[k].IsZero() {
+		return nil, fmt.Errorf("pigroups: the power of %s itself must be nonzero, or the set would lose a group", s.groups[k].Name)
+	}
+	v := make(exact.Vec, len(s.prob.vars))
+	for i := range v {
+		v[i] = exact.Int(0)
+	}
+	for j, p := range powers {
+		for i := range v {
+			t, err := p.Mul(s.groups[j].exps[i])
+			if err != nil {
+				return nil, err
+			}
+			if v[i], err = v[i].Add(t); err != nil {
+				return nil, err
+			}
+		}
+	}
+	iv, _, err := exact.Integers(v)
+	if err != nil {
+		return nil, err
+	}
+	g := s.groups[k]
+	if iv[g.Var].Sign() < 0 || iv[g.Var].IsZero() && firstNonzeroSign(iv) < 0 {
+		for i := range iv {
+			iv[i] = iv[i].Neg()
+		}
+	}
+	out := &Set{prob: s.prob, repeating: s.repeating, groups: slices.Clone(s.groups)}
+	out.groups[k] = Group{Name: g.Name, Var: g.Var, exps: iv, prob: s.prob, Matches: s.prob.recognise(iv)}
+	return out, nil
+}
+
+func firstNonzeroSign(v exact.Vec) int {
+	for _, x := range v {
+		if s := x.Sign(); s != 0 {
+			return s
+		}
+	}
+	return 0
+}
+
+// WithConventional returns a copy of the set in which every group that
+// is recognised as a power of a named group is replaced by the named
+// group itself (1/Re becomes Re, Fr² stays Fr² only if the root is not
+// a whole-exponent group).
+func (s *Set) WithConventional() *Set {
+	out := &Set{prob: s.prob, repeating: s.repeating, groups: slices.Clone(s.groups)}
+	for k, g := range out.groups {
+		if len(g.Matches) == 0 {
+			continue
+		}
+		m := g.Matches[0]
+		if m.Power.Num == 1 && m.Power.Den == 1 {
+			continue
+		}
+		conv := make(exact.Vec, len(g.exps))
+		okAll := true
+		for i, e := range g.exps {
+			x, err := e.Div(m.Power)
+			if err != nil || !x.IsInt() {
+				okAll = false
+				break
+			}
+			conv[i] = x
+		}
+		if !okAll {
+			continue
+		}
+		out.groups[k] = Group{Name: g.Name, Var: g.Var, exps: conv, prob: s.prob, Matches: s.prob.recognise(conv)}
+	}
+	return out
+}
