@@ -214,6 +214,9 @@ func MustProblem(vars ...Variable) *Problem {
 	return p
 }
 
+// DependentIndex returns the index of the dependent variable, or −1.
+func (p *Problem) DependentIndex() int { return p.dep }
+
 // Variables returns a copy of the variables.
 func (p *Problem) Variables() []Variable { return slices.Clone(p.vars) }
 

@@ -1,0 +1,35 @@
+// Package similarity plans model tests and carries results between model
+// and prototype.
+//
+// A Plan lists a problem's variables (a pigroups.Problem), the groups to
+// hold equal on both sides, and constraints on the scale ratios
+// λ = model/prototype: fixed ratios (a 1:25 geometric scale), the same
+// fluid (λ_ρ = λ_μ = 1), the same gravity. Solve works exactly, with
+// uᵢ = log λᵢ: each held group is a linear equation a·u = 0, solved over
+// the rationals, so every ratio comes out as a product of rational powers
+// of the free ratios — Froude scaling with the same fluid gives
+// λ_V = λ_L^(1/2), λ_F = λ_L³, λ_P = λ_L^(7/2) — and only then are numbers
+// put in. Requirements that cannot all hold give a *ConflictError with
+// the smallest conflicting set in words and, for each requirement whose
+// removal resolves it, what its ratio would have to be. Compromise holds
+// groups in priority order and reports the rest as floating, with their
+// model values against a threshold.
+//
+// Any quantity's ratio follows from its dimension once the base-dimension
+// ratios are known (DerivedRatio), so measured model quantities and whole
+// Series are carried to full scale and back (ToPrototype, ToModel).
+//
+// The rule library (Froude, Reynolds, Mach, Weber, Euler, Cavitation,
+// Strouhal, AffinityLaws, DistortedFroude, ManningRatio) gives the
+// standard plans ready-made; ExtrapolateHull, Prohaska and MoodyStepUp
+// are the published partial-similarity corrections; FindTunnelCondition
+// and TemperatureFor find the fluid states a plan needs. Package fluids
+// gives water, air and the standard atmosphere.
+//
+// # Caution
+//
+// Model-test predictions are estimates subject to scale effects.
+// Hydraulic structures, hulls and pressure vessels are designed to the
+// applicable local codes and checked by licensed engineers; reports
+// printed by this package say so.
+package similarity

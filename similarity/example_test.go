@@ -1,0 +1,71 @@
+package similarity_test
+
+import (
+	"fmt"
+
+	"similis.dev/similis/pigroups"
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
+)
+
+// Froude scaling of a 1:25 model in the same water: every ratio as an
+// exact law, then its value.
+func ExampleFroude() {
+	s, err := similarity.Froude(1.0/25, 1)
+	if err != nil {
+		panic(err)
+	}
+	for _, d := range []quantity.Dim{quantity.Velocity, quantity.Time, quantity.Force, quantity.Power, quantity.VolumeFlowRate} {
+		r, _ := s.DerivedRatio(d)
+		fmt.Printf("%-16s %s\n", quantity.KindName(d), r)
+	}
+	// Output:
+	// velocity         λ_L^(1/2) = 0.2
+	// time             λ_L^(1/2) = 0.2
+	// force            λ_L³ = 6.4e-05
+	// power            λ_L^(7/2) = 1.28e-05
+	// volume flow rate λ_L^(5/2) = 0.00032
+}
+
+// The Froude and Reynolds numbers cannot both be held with the same water
+// and gravity.
+func ExamplePlan_Solve() {
+	p := pigroups.MustProblem(
+		pigroups.Var("V", quantity.Velocity), pigroups.Var("L", quantity.Length), pigroups.Var("g", quantity.Acceleration),
+		pigroups.Var("rho", quantity.Density), pigroups.Var("mu", quantity.DynamicViscosity))
+	_, err := similarity.NewPlan(p).
+		HoldExps("the Froude number", map[string]int{"V": 2, "g": -1, "L": -1}).
+		HoldExps("the Reynolds number", map[string]int{"rho": 1, "V": 1, "L": 1, "mu": -1}).
+		SameFluid("rho", "mu").SameGravity("g").Fix("L", 1.0/25).
+		Solve()
+	ce := err.(*similarity.ConflictError)
+	fmt.Println(ce.Summary)
+	for _, r := range ce.Remedies {
+		fmt.Printf("without %s: %v\n", r.Drop, r.Needs)
+	}
+	// Output:
+	// holding the Froude number and the Reynolds number with the same fluid and the same gravity forces λ_L to 1, against a length scale of 1:25
+	// without the Froude number: [the Froude number would float, with model/prototype ratio λ_L^(-3)]
+	// without the Reynolds number: [the Reynolds number would float, with model/prototype ratio λ_L^(3/2)]
+	// without the same fluid: [λ_rho = λ_mu·λ_L^(-3/2) λ_mu free ν_m/ν_p = λ_L^(3/2)]
+	// without the same gravity: [λ_g = λ_L^(-3) = 15625]
+	// without a length scale of 1:25: [λ_L to 1]
+}
+
+// Pump affinity laws for a 20 % speed-up and a doubled impeller.
+func ExampleAffinityLaws() {
+	a, _ := similarity.AffinityLaws(1.2, 2, 1)
+	fmt.Printf("flow ×%.2f, head ×%.2f, power ×%.2f\n", a.Flow, a.Head, a.Power)
+	// Output:
+	// flow ×9.60, head ×5.76, power ×55.30
+}
+
+// Carry a measured model force to full scale.
+func ExampleSolution_ToPrototype() {
+	s, _ := similarity.Froude(1.0/30, 1)
+	fm := quantity.New(12.5, quantity.Force) // invented model reading, N
+	fp, _ := s.ToPrototype(fm)
+	fmt.Printf("%.4g N\n", fp.Value())
+	// Output:
+	// 3.375e+05 N
+}

@@ -1,0 +1,258 @@
+package similarity
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/stat"
+
+	"similis.dev/similis/quantity"
+)
+
+// ErrExtrapolation is wrapped by errors from the extrapolation methods.
+var ErrExtrapolation = errors.New("cannot extrapolate")
+
+// ExtrapolationError reports inputs an extrapolation method cannot use.
+type ExtrapolationError struct {
+	Method, Reason string
+}
+
+func (e *ExtrapolationError) Error() string {
+	return fmt.Sprintf("similarity: %s: %s", e.Method, e.Reason)
+}
+
+// Unwrap returns ErrExtrapolation.
+func (e *ExtrapolationError) Unwrap() error { return ErrExtrapolation }
+
+// ITTC1957 returns the ITTC-1957 model–ship correlation line,
+// C_F = 0.075/(log₁₀Re − 2)², for a Reynolds number above 10⁵ (the line
+// is not meant for laminar or transitional flow).
+func ITTC1957(re float64) (float64, error) {
+	if !(re >= 1e5) || math.IsInf(re, 0) {
+		return 0, &ExtrapolationError{Method: "ITTC-1957 line", Reason: fmt.Sprintf("Reynolds number %g is below 10⁵ or not finite", re)}
+	}
+	d := math.Log10(re) - 2
+	return 0.075 / (d * d), nil
+}
+
+// Water gives the density and kinematic viscosity of a tank or the sea.
+type Water struct {
+	Density            quantity.Quantity
+	KinematicViscosity quantity.Quantity
+}
+
+// HullTest is a towing-tank resistance test to extrapolate to full scale
+// by Froude's hypothesis: the total resistance coefficient is a
+// frictional part, from the ITTC-1957 line times a form factor (1 + k),
+// plus a residual part that depends on the Froude number alone and so
+// is the same for model and ship at equal Froude numbers.
+type HullTest struct {
+	// Scale is λ = L_model/L_ship (1/16 for a 1:16 model).
+	Scale float64
+	// ModelLength is the model's length for the Reynolds and Froude
+	// numbers (waterline length, common practice).
+	ModelLength quantity.Quantity
+	// ModelWettedArea is the model's wetted surface S_m.
+	ModelWettedArea quantity.Quantity
+	// Speeds and Resistances are the measured model speeds and total
+	// resistances, one per towed run.
+	Speeds, Resistances []quantity.Quantity
+	// Tank and Sea are the waters of model and ship.
+	Tank, Sea Water
+	// FormFactor is 1 + k; 1 (or zero, meaning 1) gives the original
+	// ITTC-1957 method without a form factor. See Prohaska.
+	FormFactor float64
+	// Allowance is the roughness and correlation allowance C_A added to
+	// the ship's total resistance coefficient (for example 0.0004; the
+	// value is the yard's or basin's own).
+	Allowance float64
+	// Gravity is g for the Froude number; g_n if zero.
+	Gravity quantity.Quantity
+}
+
+// HullPoint is one run carried to full scale.
+type HullPoint struct {
+	ModelSpeed, ModelResistance quantity.Quantity
+	Froude                      float64 // Fn = V/√(gL), equal for model and ship
+	ModelReynolds               float64
+	ModelCT, ModelCF            float64 // total and frictional (ITTC-1957) coefficients
+	Residual                    float64 // C_R = C_Tm − (1 + k)·C_Fm
+	ShipSpeed                   quantity.Quantity
+	ShipReynolds                float64
+	ShipCF, ShipCT              float64 // C_Ts = (1 + k)·C_Fs + C_R + C_A
+	ShipResistance              quantity.Quantity
+	EffectivePower              quantity.Quantity // P_E = R_Ts·V_s
+}
+
+// HullResult is the extrapolation: its inputs, the ship's size, and every
+// run with its intermediate coefficients.
+type HullResult struct {
+	Test                       HullTest
+	FormFactor                 float64
+	ShipLength, ShipWettedArea quantity.Quantity
+	Points                     []HullPoint
+	Caution                    string
+}
+
+// HullCaution is printed with every hull extrapolation.
+const HullCaution = "Full-scale resistance and power from a model test are estimates subject to scale effects; " +
+	"hull powering and propulsion are to be confirmed by the basin's own correlation and by the responsible naval architect."
+
+// ExtrapolateHull carries towed-model resistance to the ship by the
+// ITTC-1957 method (with a form factor if one is given).
+func ExtrapolateHull(t HullTest) (*HullResult, error) {
+	m := func(r string) error { return &ExtrapolationError{Method: "hull extrapolation", Reason: r} }
+	if !(t.Scale > 0 && t.Scale < 1) {
+		return nil, m(fmt.Sprintf("scale %v: want model/ship between 0 and 1", t.Scale))
+	}
+	if len(t.Speeds) == 0 || len(t.Speeds) != len(t.Resistances) {
+		return nil, m(fmt.Sprintf("%d speeds and %d resistances", len(t.Speeds), len(t.Resistances)))
+	}
+	for _, c := range []struct {
+		name string
+		q    quantity.Quantity
+		d    quantity.Dim
+	}{
+		{"model length", t.ModelLength, quantity.Length}, {"model wetted area", t.ModelWettedArea, quantity.Area},
+		{"tank density", t.Tank.Density, quantity.Density}, {"tank viscosity", t.Tank.KinematicViscosity, quantity.KinematicViscosity},
+		{"sea density", t.Sea.Density, quantity.Density}, {"sea viscosity", t.Sea.KinematicViscosity, quantity.KinematicViscosity},
+	} {
+		if err := c.q.CheckNamed(c.name, c.d); err != nil {
+			return nil, err
+		}
+		if !(c.q.Value() > 0) {
+			return nil, m(c.name + " must be positive")
+		}
+	}
+	g := t.Gravity
+	if g == (quantity.Quantity{}) {
+		g = quantity.New(9.80665, quantity.Acceleration)
+	}
+	if err := g.CheckNamed("gravity", quantity.Acceleration); err != nil {
+		return nil, err
+	}
+	k1 := t.FormFactor
+	if k1 == 0 {
+		k1 = 1
+	}
+	if k1 < 1 || k1 > 2 {
+		return nil, m(fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", k1))
+	}
+	res := &HullResult{Test: t, FormFactor: k1, Caution: HullCaution}
+	Lm, Sm := t.ModelLength.Value(), t.ModelWettedArea.Value()
+	Ls, Ss := Lm/t.Scale, Sm/(t.Scale*t.Scale)
+	res.ShipLength, res.ShipWettedArea = quantity.New(Ls, quantity.Length), quantity.New(Ss, quantity.Area)
+	for i, v := range t.Speeds {
+		if err := v.CheckNamed(fmt.Sprintf("speed %d", i), quantity.Velocity); err != nil {
+			return nil, err
+		}
+		r := t.Resistances[i]
+		if err := r.CheckNamed(fmt.Sprintf("resistance %d", i), quantity.Force); err != nil {
+			return nil, err
+		}
+		if !(v.Value() > 0) || !(r.Value() > 0) {
+			return nil, m(fmt.Sprintf("run %d: speed and resistance must be positive", i))
+		}
+		Vm := v.Value()
+		p := HullPoint{ModelSpeed: v, ModelResistance: r}
+		p.Froude = Vm / math.Sqrt(g.Value()*Lm)
+		p.ModelReynolds = Vm * Lm / t.Tank.KinematicViscosity.Value()
+		p.ModelCT = r.Value() / (0.5 * t.Tank.Density.Value() * Vm * Vm * Sm)
+		var err error
+		if p.ModelCF, err = ITTC1957(p.ModelReynolds); err != nil {
+			return nil, fmt.Errorf("run %d: %w", i, err)
+		}
+		p.Residual = p.ModelCT - k1*p.ModelCF
+		Vs := Vm / math.Sqrt(t.Scale)
+		p.ShipSpeed = quantity.New(Vs, quantity.Velocity)
+		p.ShipReynolds = Vs * Ls / t.Sea.KinematicViscosity.Value()
+		if p.ShipCF, err = ITTC1957(p.ShipReynolds); err != nil {
+			return nil, fmt.Errorf("run %d: %w", i, err)
+		}
+		p.ShipCT = k1*p.ShipCF + p.Residual + t.Allowance
+		Rs := p.ShipCT * 0.5 * t.Sea.Density.Value() * Vs * Vs * Ss
+		p.ShipResistance = quantity.New(Rs, quantity.Force)
+		p.EffectivePower = quantity.New(Rs*Vs, quantity.Power)
+		res.Points = append(res.Points, p)
+	}
+	return res, nil
+}
+
+// ProhaskaResult is a form factor found by Prohaska's method.
+type ProhaskaResult struct {
+	FormFactor float64 // 1 + k, the intercept
+	Slope      float64 // m in C_T/C_F = (1 + k) + m·Fn⁴/C_F
+	R2         float64
+	Points     int // runs used (Fn ≤ MaxFroude)
+	MaxFroude  float64
+}
+
+// Prohaska finds the form factor from low-speed runs: a straight line
+// through C_T/C_F against Fn⁴/C_F, whose intercept is 1 + k (C. W.
+// Prohaska, 1966). Only runs with Fn ≤ maxFroude are used (0.2 if zero;
+// ITTC practice is roughly 0.1 … 0.2); at least three are needed.
+func Prohaska(froude, ct, cf []float64, maxFroude float64) (ProhaskaResult, error) {
+	m := func(r string) error { return &ExtrapolationError{Method: "Prohaska", Reason: r} }
+	if maxFroude == 0 {
+		maxFroude = 0.2
+	}
+	if len(froude) != len(ct) || len(ct) != len(cf) {
+		return ProhaskaResult{}, m("Froude numbers, C_T and C_F differ in length")
+	}
+	var x, y []float64
+	for i, fn := range froude {
+		if fn <= maxFroude && fn > 0 && cf[i] > 0 && ct[i] > 0 {
+			x = append(x, fn*fn*fn*fn/cf[i])
+			y = append(y, ct[i]/cf[i])
+		}
+	}
+	if len(x) < 3 {
+		return ProhaskaResult{}, m(fmt.Sprintf("%d runs at Fn ≤ %g; at least 3 are needed", len(x), maxFroude))
+	}
+	a, b := stat.LinearRegression(x, y, nil, false)
+	r2 := stat.RSquared(x, y, nil, a, b)
+	return ProhaskaResult{FormFactor: a, Slope: b, R2: r2, Points: len(x), MaxFroude: maxFroude}, nil
+}
+
+// ProhaskaFromTest applies Prohaska's method to a hull test's runs.
+func ProhaskaFromTest(t HullTest, maxFroude float64) (ProhaskaResult, error) {
+	t.FormFactor = 1
+	r, err := ExtrapolateHull(t)
+	if err != nil {
+		return ProhaskaResult{}, err
+	}
+	var fn, ct, cf []float64
+	for _, p := range r.Points {
+		fn, ct, cf = append(fn, p.Froude), append(ct, p.ModelCT), append(cf, p.ModelCF)
+	}
+	return Prohaska(fn, ct, cf, maxFroude)
+}
+
+// MoodyStepUp carries a model pump or turbine efficiency to the
+// prototype by Moody's formula, η_p = 1 − (1 − η_m)·(D_m/D_p)^n, with
+// n = 1/5 if exponent is zero (L. F. Moody, 1925). It is an estimate;
+// acceptance tests follow the applicable standard (IEC 60193 for
+// hydraulic machines).
+func MoodyStepUp(etaModel float64, dModel, dProto quantity.Quantity, exponent float64) (float64, error) {
+	m := func(r string) error { return &ExtrapolationError{Method: "Moody step-up", Reason: r} }
+	if !(etaModel > 0 && etaModel < 1) {
+		return 0, m(fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))
+	}
+	if err := dModel.CheckNamed("model diameter", quantity.Length); err != nil {
+		return 0, err
+	}
+	if err := dProto.CheckNamed("prototype diameter", quantity.Length); err != nil {
+		return 0, err
+	}
+	if !(dModel.Value() > 0) || !(dProto.Value() > 0) {
+		return 0, m("diameters must be positive")
+	}
+	if exponent == 0 {
+		exponent = 0.2
+	}
+	if exponent < 0 || exponent > 1 {
+		return 0, m(fmt.Sprintf("exponent %v is outside 0 … 1", exponent))
+	}
+	return 1 - (1-etaModel)*math.Pow(dModel.Value()/dProto.Value(), exponent), nil
+}

@@ -1,0 +1,102 @@
+package similarity
+
+import (
+	"math"
+	"strings"
+
+	"similis.dev/similis/internal/exact"
+)
+
+// Law is a scale ratio written exactly as a product of rational powers of
+// free ratios: λ_V = λ_L^(1/2), λ_P = λ_ρ·λ_L^(7/2). The free ratios are
+// named by the symbols of their variables.
+type Law struct {
+	Terms []LawTerm
+}
+
+// LawTerm is one factor of a Law: λ_Symbol^Exp.
+type LawTerm struct {
+	Symbol string
+	Exp    exact.Rat
+}
+
+// IsOne reports whether the law is the ratio 1 whatever the free ratios.
+func (l Law) IsOne() bool { return len(l.Terms) == 0 }
+
+// Exponent returns the exponent of the free ratio λ_symbol in l.
+func (l Law) Exponent(symbol string) exact.Rat {
+	for _, t := range l.Terms {
+		if t.Symbol == symbol {
+			return t.Exp
+		}
+	}
+	return exact.Int(0)
+}
+
+// Eval returns the law's value for the given free ratios; a missing one
+// makes the value NaN.
+func (l Law) Eval(free map[string]float64) float64 {
+	lv := 0.0
+	for _, t := range l.Terms {
+		v, ok := free[t.Symbol]
+		if !ok || !(v > 0) {
+			return math.NaN()
+		}
+		lv += t.Exp.Float() * math.Log(v)
+	}
+	return math.Exp(lv)
+}
+
+// String writes the law with λ for ratios: "λ_L^(1/2)", "λ_ρ·λ_L³", "1".
+func (l Law) String() string {
+	if len(l.Terms) == 0 {
+		return "1"
+	}
+	parts := make([]string, 0, len(l.Terms))
+	for _, t := range l.Terms {
+		s := "λ_" + t.Symbol
+		switch {
+		case t.Exp.Num == 1 && t.Exp.Den == 1:
+		case t.Exp.IsInt() && t.Exp.Num >= 0 && t.Exp.Num <= 9:
+			s += []string{"⁰", "¹", "²", "³", "⁴", "⁵", "⁶", "⁷", "⁸", "⁹"}[t.Exp.Num]
+		default:
+			s += "^(" + t.Exp.String() + ")"
+		}
+		parts = append(parts, s)
+	}
+	return strings.Join(parts, "·")
+}
+
+// lawOf builds a law from a coefficient vector over parameters.
+func lawOf(coef exact.Vec, params []string) Law {
+	var l Law
+	for k, c := range coef {
+		if !c.IsZero() {
+			l.Terms = append(l.Terms, LawTerm{params[k], c})
+		}
+	}
+	return l
+}
+
+// combine returns Σ aᵢ·lawᵢ as coefficient vectors.
+func combine(coefs []exact.Vec, a []exact.Rat, n int) (exact.Vec, error) {
+	out := make(exact.Vec, n)
+	for k := range out {
+		out[k] = exact.Int(0)
+	}
+	for i, c := range coefs {
+		if a[i].IsZero() {
+			continue
+		}
+		for k := range c {
+			t, err := a[i].Mul(c[k])
+			if err != nil {
+				return nil, err
+			}
+			if out[k], err = out[k].Add(t); err != nil {
+				return nil, err
+			}
+		}
+	}
+	return out, nil
+}

@@ -1,0 +1,730 @@
+package similarity
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"slices"
+	"strings"
+
+	"similis.dev/similis/internal/exact"
+	"similis.dev/similis/pigroups"
+	"similis.dev/similis/quantity"
+)
+
+type consKind uint8
+
+const (
+	consHold consKind = iota // a group held equal on both sides
+	consSame                 // ratios fixed at 1
+	consFix                  // a ratio fixed at a value
+)
+
+// constraint is one requirement of a plan.
+type constraint struct {
+	kind  consKind
+	label string
+	rows  []exact.Vec // homogeneous rows over the variables
+	vars  []int       // variables a Same or Fix constrains
+	value float64     // the ratio for Fix
+	exps  exact.Vec   // a held group's exponents
+}
+
+// Plan is a model test plan: the problem's variables, the groups to hold
+// equal between model and prototype, and constraints on the scale ratios
+// λ = model/prototype. Build it with the methods, which record the first
+// mistake and let Solve report it.
+type Plan struct {
+	prob  *pigroups.Problem
+	vars  []pigroups.Variable
+	cons  []constraint
+	basis []string
+	err   error
+}
+
+// NewPlan starts a plan for a problem.
+func NewPlan(p *pigroups.Problem) *Plan {
+	return &Plan{prob: p, vars: p.Variables()}
+}
+
+// PlanError reports a plan built wrongly: an unknown symbol, a ratio that
+// is not positive and finite, a group with exponents of unknown variables.
+type PlanError struct {
+	Reason string
+}
+
+func (e *PlanError) Error() string { return "similarity: " + e.Reason }
+
+func (pl *Plan) index(sym string) int {
+	for i, v := range pl.vars {
+		if v.Symbol == sym {
+			return i
+		}
+	}
+	return -1
+}
+
+func (pl *Plan) fail(format string, a ...any) *Plan {
+	if pl.err == nil {
+		pl.err = &PlanError{Reason: fmt.Sprintf(format, a...)}
+	}
+	return pl
+}
+
+// Hold requires the group to have the same value on model and prototype.
+func (pl *Plan) Hold(g pigroups.Group) *Plan {
+	label := g.String()
+	if len(g.Matches) > 0 {
+		label = "the " + g.Matches[0].Name
+	}
+	return pl.holdExps(label, g.Exponents())
+}
+
+// HoldExps holds the group ∏ xᵢ^eᵢ given as exponents by symbol, with a
+// label for messages ("the Froude number").
+func (pl *Plan) HoldExps(label string, exps map[string]int) *Plan {
+	v := make(exact.Vec, len(pl.vars))
+	for i := range v {
+		v[i] = exact.Int(0)
+	}
+	for s, e := range exps {
+		i := pl.index(s)
+		if i < 0 {
+			return pl.fail("hold %s: unknown variable %q", label, s)
+		}
+		v[i] = exact.Int(int64(e))
+	}
+	return pl.holdExps(label, v)
+}
+
+func (pl *Plan) holdExps(label string, v exact.Vec) *Plan {
+	if len(v) != len(pl.vars) {
+		return pl.fail("hold %s: %d exponents for %d variables", label, len(v), len(pl.vars))
+	}
+	if !pl.dimensionless(v) {
+		return pl.fail("hold %s: the group is not dimensionless", label)
+	}
+	pl.cons = append(pl.cons, constraint{kind: consHold, label: label, rows: []exact.Vec{slices.Clone(v)}, exps: slices.Clone(v)})
+	return pl
+}
+
+func (pl *Plan) dimensionless(v exact.Vec) bool {
+	var d quantity.Dim
+	for i, e := range v {
+		if e.IsZero() {
+			continue
+		}
+		p, err := pl.vars[i].Dim.Pow(int(e.Num), int(e.Den))
+		if err != nil {
+			return false
+		}
+		if d, err = d.Mul(p); err != nil {
+			return false
+		}
+	}
+	return d.IsDimensionless()
+}
+
+// Fix sets the scale ratio of a variable: Fix("L", 1.0/25) for a 1:25
+// model.
+func (pl *Plan) Fix(symbol string, ratio float64) *Plan {
+	i := pl.index(symbol)
+	if i < 0 {
+		return pl.fail("fix: unknown variable %q", symbol)
+	}
+	if !(ratio > 0) || math.IsInf(ratio, 0) {
+		return pl.fail("fix %s: the ratio %v is not positive and finite", symbol, ratio)
+	}
+	label := fmt.Sprintf("λ_%s = %.6g", symbol, ratio)
+	if r := 1 / ratio; ratio < 1 && math.Abs(r-math.Round(r)) < 1e-9*r {
+		label = fmt.Sprintf("a %s scale of 1:%g", pl.kindWord(i), math.Round(r))
+	}
+	pl.cons = append(pl.cons, constraint{kind: consFix, label: label, vars: []int{i}, value: ratio})
+	return pl
+}
+
+func (pl *Plan) kindWord(i int) string {
+	if k := pl.prob.Kinds(i); len(k) > 0 {
+		return k[0]
+	}
+	return pl.vars[i].Symbol
+}
+
+// Same fixes the ratios of the variables at 1, as one requirement with a
+// label ("the same fluid").
+func (pl *Plan) Same(label string, symbols ...string) *Plan {
+	c := constraint{kind: consSame, label: label}
+	for _, s := range symbols {
+		i := pl.index(s)
+		if i < 0 {
+			return pl.fail("%s: unknown variable %q", label, s)
+		}
+		row := make(exact.Vec, len(pl.vars))
+		for k := range row {
+			row[k] = exact.Int(0)
+		}
+		row[i] = exact.Int(1)
+		c.rows = append(c.rows, row)
+		c.vars = append(c.vars, i)
+	}
+	pl.cons = append(pl.cons, c)
+	return pl
+}
+
+// SameFluid requires the same fluid on both sides: λ_ρ = λ_μ = 1.
+func (pl *Plan) SameFluid(density, viscosity string) *Plan {
+	return pl.Same("the same fluid", density, viscosity)
+}
+
+// SameGravity requires λ_g = 1.
+func (pl *Plan) SameGravity(g string) *Plan { return pl.Same("the same gravity", g) }
+
+// Basis names the variables whose ratios fix the base-dimension ratios
+// (λ_L, λ_M, λ_T, …) for DerivedRatio; by default the problem's default
+// repeating set.
+func (pl *Plan) Basis(symbols ...string) *Plan { pl.basis = slices.Clone(symbols); return pl }
+
+// Solution is a solved plan: every variable's ratio as an exact law of the
+// free ratios, and its value where the free ratios are fixed.
+type Solution struct {
+	plan   *Plan
+	params []string    // the free ratios, by variable symbol
+	coef   []exact.Vec // per variable: law coefficients over params
+	values map[string]float64
+	free   []string // free ratios with no value: the plan is underdetermined
+	base   []exact.Vec
+	bases  []quantity.Base
+}
+
+// ErrConflict is wrapped by every *ConflictError.
+var ErrConflict = errors.New("requirements conflict")
+
+// ConflictError reports requirements that cannot all hold.
+type ConflictError struct {
+	// Constraints is the smallest conflicting set, in words.
+	Constraints []string
+	// Summary says what the set forces: "holding the Reynolds number and
+	// the Froude number with the same fluid and the same gravity forces
+	// λ_L to 1, but a length scale of 1:25 requires 0.04".
+	Summary string
+	// Remedies lists, for each requirement whose removal resolves the
+	// conflict, what its ratios would then have to be.
+	Remedies []Remedy
+}
+
+// Remedy is one way out of a conflict.
+type Remedy struct {
+	Drop  string   // the requirement to drop
+	Needs []string // what the ratios would then be: "λ_μ = λ_L^(3/2)"
+}
+
+func (e *ConflictError) Error() string {
+	var sb strings.Builder
+	sb.WriteString("similarity: requirements conflict: ")
+	sb.WriteString(e.Summary)
+	for _, r := range e.Remedies {
+		fmt.Fprintf(&sb, "; without %s: %s", r.Drop, strings.Join(r.Needs, ", "))
+	}
+	return sb.String()
+}
+
+// Unwrap returns ErrConflict.
+func (e *ConflictError) Unwrap() error { return ErrConflict }
+
+// Solve solves the plan exactly. It returns a *ConflictError if the
+// requirements cannot all hold, naming the smallest conflicting set.
+func (pl *Plan) Solve() (*Solution, error) {
+	if pl.err != nil {
+		return nil, pl.err
+	}
+	s, ok, err := pl.solveSubset(allIndices(len(pl.cons)))
+	if err != nil {
+		return nil, err
+	}
+	if ok {
+		if err := s.deriveBase(); err != nil {
+			return nil, err
+		}
+		return s, nil
+	}
+	return nil, pl.conflict()
+}
+
+func allIndices(n int) []int {
+	out := make([]int, n)
+	for i := range out {
+		out[i] = i
+	}
+	return out
+}
+
+// solveSubset solves the plan with only the given constraints.
+func (pl *Plan) solveSubset(use []int) (*Solution, bool, error) {
+	n := len(pl.vars)
+	fixed := make(map[int]float64)
+	var rows []exact.Vec
+	for _, ci := range use {
+		c := pl.cons[ci]
+		switch c.kind {
+		case consFix:
+			if v, ok := fixed[c.vars[0]]; ok && math.Abs(math.Log(v/c.value)) > 1e-12 {
+				return nil, false, nil
+			}
+			fixed[c.vars[0]] = c.value
+		default:
+			rows = append(rows, c.rows...)
+		}
+	}
+	// Column order: variables without a fixed value first, so that they
+	// are solved for and the fixed ones stay free parameters.
+	var order []int
+	for i := range n {
+		if _, ok := fixed[i]; !ok {
+			order = append(order, i)
+		}
+	}
+	for i := range n {
+		if _, ok := fixed[i]; ok {
+			order = append(order, i)
+		}
+	}
+	m := exact.NewMatrix(len(rows), n)
+	for r, row := range rows {
+		for k, i := range order {
+			m[r][k] = row[i]
+		}
+	}
+	pivots, err := m.RREF()
+	if err != nil {
+		return nil, false, err
+	}
+	isPivot := make(map[int]int) // column → row
+	for r, c := range pivots {
+		isPivot[c] = r
+	}
+	s := &Solution{plan: pl, values: make(map[string]float64)}
+	paramIdx := make(map[int]int) // variable → parameter index
+	for k, i := range order {
+		if _, ok := isPivot[k]; !ok {
+			paramIdx[i] = len(s.params)
+			s.params = append(s.params, pl.vars[i].Symbol)
+		}
+	}
+	np := len(s.params)
+	s.coef = make([]exact.Vec, n)
+	for k, i := range order {
+		c := make(exact.Vec, np)
+		for j := range c {
+			c[j] = exact.Int(0)
+		}
+		if r, ok := isPivot[k]; ok {
+			for k2, i2 := range order {
+				if _, piv := isPivot[k2]; piv || m[r][k2].IsZero() {
+					continue
+				}
+				c[paramIdx[i2]] = m[r][k2].Neg()
+			}
+		} else {
+			c[paramIdx[i]] = exact.Int(1)
+		}
+		s.coef[i] = c
+	}
+	for i, v := range fixed {
+		if _, ok := paramIdx[i]; ok {
+			s.values[pl.vars[i].Symbol] = v
+		}
+	}
+	for _, p := range s.params {
+		if _, ok := s.values[p]; !ok {
+			s.free = append(s.free, p)
+		}
+	}
+	// A fixed variable solved for in terms of other parameters must agree
+	// with its own value.
+	for i, v := range fixed {
+		if _, ok := paramIdx[i]; ok {
+			continue
+		}
+		got := lawOf(s.coef[i], s.params).Eval(s.values)
+		if math.IsNaN(got) || math.Abs(math.Log(got/v)) > 1e-9 {
+			return s, false, nil
+		}
+	}
+	return s, true, nil
+}
+
+// conflict finds the smallest conflicting subset and the remedies.
+func (pl *Plan) conflict() error {
+	n := len(pl.cons)
+	var minimal []int
+	for size := 1; size <= n && minimal == nil; size++ {
+		eachSubset(n, size, func(sub []int) bool {
+			if _, ok, err := pl.solveSubset(sub); err == nil && !ok {
+				minimal = slices.Clone(sub)
+				return false
+			}
+			return true
+		})
+	}
+	e := &ConflictError{}
+	if minimal == nil {
+		e.Summary = "the requirements are inconsistent"
+		return e
+	}
+	var held, same, fixes []string
+	var fixIdx []int
+	for _, ci := range minimal {
+		c := pl.cons[ci]
+		e.Constraints = append(e.Constraints, c.label)
+		switch c.kind {
+		case consHold:
+			held = append(held, c.label)
+		case consSame:
+			same = append(same, c.label)
+		case consFix:
+			fixes = append(fixes, c.label)
+			fixIdx = append(fixIdx, ci)
+		}
+	}
+	// What do the other requirements force the fixed ratios to?
+	var rest []int
+	for _, ci := range minimal {
+		if !slices.Contains(fixIdx, ci) {
+			rest = append(rest, ci)
+		}
+	}
+	var forced []string
+	if s, ok, err := pl.solveSubset(rest); err == nil && ok {
+		for _, ci := range fixIdx {
+			i := pl.cons[ci].vars[0]
+			forced = append(forced, s.describe(i))
+		}
+	}
+	var sb strings.Builder
+	if len(held) > 0 {
+		sb.WriteString("holding " + joinAnd(held))
+	}
+	if len(same) > 0 {
+		if sb.Len() > 0 {
+			sb.WriteString(" with ")
+		} else {
+			sb.WriteString("requiring ")
+		}
+		sb.WriteString(joinAnd(same))
+	}
+	if len(forced) > 0 {
+		sb.WriteString(" forces " + joinAnd(forced) + ", against " + joinAnd(fixes))
+	} else {
+		sb.WriteString(" cannot hold with " + joinAnd(fixes))
+	}
+	e.Summary = sb.String()
+	for _, ci := range minimal {
+		without := make([]int, 0, n-1)
+		for k := range n {
+			if k != ci {
+				without = append(without, k)
+			}
+		}
+		s, ok, err := pl.solveSubset(without)
+		if err != nil || !ok {
+			continue
+		}
+		r := Remedy{Drop: pl.cons[ci].label}
+		c := pl.cons[ci]
+		switch c.kind {
+		case consHold:
+			r.Needs = append(r.Needs, fmt.Sprintf("%s would float, with model/prototype ratio %s", c.label, s.groupLaw(c.exps)))
+		default:
+			for _, i := range c.vars {
+				r.Needs = append(r.Needs, s.describe(i))
+			}
+			if c.label == "the same fluid" && len(c.vars) == 2 {
+				// The kinematic viscosity ratio μ/ρ is what a held Reynolds
+				// number fixes.
+				v := make(exact.Vec, len(pl.vars))
+				for k := range v {
+					v[k] = exact.Int(0)
+				}
+				v[c.vars[0]], v[c.vars[1]] = exact.Int(-1), exact.Int(1)
+				r.Needs = append(r.Needs, fmt.Sprintf("ν_m/ν_p = %s", s.groupLaw(v)))
+			}
+		}
+		e.Remedies = append(e.Remedies, r)
+	}
+	return e
+}
+
+func joinAnd(s []string) string {
+	switch len(s) {
+	case 0:
+		return ""
+	case 1:
+		return s[0]
+	}
+	return strings.Join(s[:len(s)-1], ", ") + " and " + s[len(s)-1]
+}
+
+func eachSubset(n, k int, f func([]int) bool) {
+	idx := make([]int, k)
+	var rec func(start, depth int) bool
+	rec = func(start, depth int) bool {
+		if depth == k {
+			return f(idx)
+		}
+		for i := start; i <= n-(k-depth); i++ {
+			idx[depth] = i
+			if !rec(i+1, depth+1) {
+				return false
+			}
+		}
+		return true
+	}
+	rec(0, 0)
+}
+
+// describe writes a variable's ratio: its law, and its value when known.
+func (s *Solution) describe(i int) string {
+	l := lawOf(s.coef[i], s.params)
+	sym := s.plan.vars[i].Symbol
+	v := l.Eval(s.values)
+	isParam := len(l.Terms) == 1 && l.Terms[0].Symbol == sym && l.Terms[0].Exp == exact.Int(1)
+	switch {
+	case l.IsOne():
+		return "λ_" + sym + " to 1"
+	case isParam:
+		return "λ_" + sym + " free"
+	case math.IsNaN(v):
+		return "λ_" + sym + " = " + l.String()
+	}
+	return fmt.Sprintf("λ_%s = %s = %.6g", sym, l.String(), v)
+}
+
+// groupLaw returns the law of the ratio of ∏ xᵢ^eᵢ.
+func (s *Solution) groupLaw(exps exact.Vec) Law {
+	c, err := combine(s.coef, exps, len(s.params))
+	if err != nil {
+		return Law{}
+	}
+	return lawOf(c, s.params)
+}
+
+// Free returns the free ratios that have no value: a plan with any is
+// underdetermined, and its laws are in terms of them.
+func (s *Solution) Free() []string { return slices.Clone(s.free) }
+
+// Params returns every free ratio the laws are written in, with or
+// without a value.
+func (s *Solution) Params() []string { return slices.Clone(s.params) }
+
+// Ratio is a scale ratio λ = model/prototype: its exact law and, when the
+// free ratios it depends on have values, its value (NaN otherwise).
+type Ratio struct {
+	Law   Law
+	Value float64
+}
+
+// String writes "law = value", or "1" for a ratio of one.
+func (r Ratio) String() string {
+	if r.Law.IsOne() {
+		return "1"
+	}
+	if math.IsNaN(r.Value) {
+		return r.Law.String()
+	}
+	return fmt.Sprintf("%s = %.6g", r.Law, r.Value)
+}
+
+// Ratio returns the scale ratio of a variable.
+func (s *Solution) Ratio(symbol string) (Ratio, error) {
+	i := s.plan.index(symbol)
+	if i < 0 {
+		return Ratio{}, &PlanError{Reason: fmt.Sprintf("unknown variable %q", symbol)}
+	}
+	l := lawOf(s.coef[i], s.params)
+	return Ratio{Law: l, Value: l.Eval(s.values)}, nil
+}
+
+// GroupRatio returns the model/prototype ratio of a group: 1 for a held
+// group, a law of the free ratios for one that floats.
+func (s *Solution) GroupRatio(g pigroups.Group) Ratio {
+	l := s.groupLaw(g.Exponents())
+	return Ratio{Law: l, Value: l.Eval(s.values)}
+}
+
+// With returns a copy of the solution with values for free ratios.
+func (s *Solution) With(values map[string]float64) (*Solution, error) {
+	c := *s
+	c.values = make(map[string]float64, len(s.values)+len(values))
+	for k, v := range s.values {
+		c.values[k] = v
+	}
+	c.free = nil
+	for k, v := range values {
+		if !slices.Contains(s.params, k) {
+			return nil, &PlanError{Reason: fmt.Sprintf("%q is not a free ratio of the plan (free: %s)", k, strings.Join(s.params, ", "))}
+		}
+		if !(v > 0) || math.IsInf(v, 0) {
+			return nil, &PlanError{Reason: fmt.Sprintf("ratio %v for %q is not positive and finite", v, k)}
+		}
+		c.values[k] = v
+	}
+	for _, p := range s.params {
+		if _, ok := c.values[p]; !ok {
+			c.free = append(c.free, p)
+		}
+	}
+	return &c, nil
+}
+
+// deriveBase finds the base-dimension ratios from the basis variables.
+func (s *Solution) deriveBase() error {
+	pl := s.plan
+	basis := pl.basis
+	if basis == nil {
+		var err error
+		if basis, err = pl.prob.DefaultRepeating(); err != nil {
+			return nil // no derived ratios for this problem
+		}
+	}
+	if err := pl.prob.CheckRepeating(basis...); err != nil {
+		return &PlanError{Reason: fmt.Sprintf("basis for derived ratios: %v", err)}
+	}
+	s.bases = pl.prob.Bases()
+	r := len(basis)
+	// u_R = A_Rᵀ·w, so w = (A_Rᵀ)⁻¹·u_R, column by column over params.
+	at := exact.NewMatrix(r, len(s.bases))
+	for k, sym := range basis {
+		i := pl.index(sym)
+		for b, base := range s.bases {
+			at[k][b] = exact.Frac(int64(pl.vars[i].Dim.Sixths(base)), quantity.ExpDen)
+		}
+	}
+	np := len(s.params)
+	s.base = make([]exact.Vec, len(s.bases))
+	for b := range s.base {
+		s.base[b] = make(exact.Vec, np)
+	}
+	for p := range np {
+		rhs := make(exact.Vec, r)
+		for k, sym := range basis {
+			rhs[k] = s.coef[pl.index(sym)][p]
+		}
+		w, ok, err := exact.Solve(at, rhs)
+		if err != nil {
+			return err
+		}
+		if !ok {
+			return &PlanError{Reason: "basis does not determine the base-dimension ratios"}
+		}
+		for b := range s.bases {
+			s.base[b][p] = w[b]
+		}
+	}
+	return nil
+}
+
+// DerivedRatio returns the scale ratio of any quantity of dimension d,
+// from the base-dimension ratios the basis variables fix: for power,
+// M L² T⁻³, λ_P = λ_M·λ_L²·λ_T⁻³.
+func (s *Solution) DerivedRatio(d quantity.Dim) (Ratio, error) {
+	if s.base == nil {
+		return Ratio{}, &PlanError{Reason: "no basis for derived ratios"}
+	}
+	exps := make([]exact.Rat, len(s.bases))
+	for b, base := range s.bases {
+		exps[b] = exact.Frac(int64(d.Sixths(base)), quantity.ExpDen)
+	}
+	for base := quantity.Base(0); base < quantity.NumBases; base++ {
+		if d.Sixths(base) != 0 && !slices.Contains(s.bases, base) {
+			return Ratio{}, &PlanError{Reason: fmt.Sprintf("dimension %s carries %s, which no variable of the plan has", d, base)}
+		}
+	}
+	c, err := combine(s.base, exps, len(s.params))
+	if err != nil {
+		return Ratio{}, err
+	}
+	l := lawOf(c, s.params)
+	return Ratio{Law: l, Value: l.Eval(s.values)}, nil
+}
+
+// BaseRatio returns the ratio of a base dimension (λ_L, λ_M, λ_T, …).
+func (s *Solution) BaseRatio(b quantity.Base) (Ratio, error) {
+	d, err := quantity.DimOf(b, 1, 1)
+	if err != nil {
+		return Ratio{}, err
+	}
+	return s.DerivedRatio(d)
+}
+
+// ErrUnknownRatio is returned by transfers whose ratio has no value.
+var ErrUnknownRatio = errors.New("the ratio depends on a free ratio with no value")
+
+func (s *Solution) ratioFor(d quantity.Dim) (float64, error) {
+	r, err := s.DerivedRatio(d)
+	if err != nil {
+		return 0, err
+	}
+	if math.IsNaN(r.Value) {
+		return 0, fmt.Errorf("similarity: %s: %w (%s; free: %s)", quantity.Describe(d), ErrUnknownRatio, r.Law, strings.Join(s.free, ", "))
+	}
+	return r.Value, nil
+}
+
+// ToPrototype carries a measured model quantity to full scale through the
+// ratio its dimension implies: q_p = q_m/λ.
+func (s *Solution) ToPrototype(q quantity.Quantity) (quantity.Quantity, error) {
+	r, err := s.ratioFor(q.Dim())
+	if err != nil {
+		return quantity.Quantity{}, err
+	}
+	return q.Scale(1 / r), nil
+}
+
+// ToModel carries a prototype quantity to the model: q_m = λ·q_p.
+func (s *Solution) ToModel(q quantity.Quantity) (quantity.Quantity, error) {
+	r, err := s.ratioFor(q.Dim())
+	if err != nil {
+		return quantity.Quantity{}, err
+	}
+	return q.Scale(r), nil
+}
+
+// SeriesToPrototype carries a whole measured Series to full scale into
+// dst, with one ratio and no allocation once dst has grown.
+func (s *Solution) SeriesToPrototype(dst *quantity.Series, m quantity.Series) error {
+	r, err := s.ratioFor(m.Dim())
+	if err != nil {
+		return err
+	}
+	dst.Scale(m, 1/r)
+	return nil
+}
+
+// SeriesToModel carries a prototype Series to the model into dst.
+func (s *Solution) SeriesToModel(dst *quantity.Series, p quantity.Series) error {
+	r, err := s.ratioFor(p.Dim())
+	if err != nil {
+		return err
+	}
+	dst.Scale(p, r)
+	return nil
+}
+
+// VariableToPrototype carries a model value of one of the plan's variables
+// through that variable's own ratio, which differs from the ratio of its
+// dimension when the plan scales two variables of one dimension apart (a
+// distorted model's horizontal and vertical lengths).
+func (s *Solution) VariableToPrototype(symbol string, q quantity.Quantity) (quantity.Quantity, error) {
+	i := s.plan.index(symbol)
+	if i < 0 {
+		return quantity.Quantity{}, &PlanError{Reason: fmt.Sprintf("unknown variable %q", symbol)}
+	}
+	if err := q.CheckNamed(symbol, s.plan.vars[i].Dim); err != nil {
+		return quantity.Quantity{}, err
+	}
+	r, _ := s.Ratio(symbol)
+	if math.IsNaN(r.Value) {
+		return quantity.Quantity{}, fmt.Errorf("similarity: λ_%s: %w (%s)", symbol, ErrUnknownRatio, r.Law)
+	}
+	return q.Scale(1 / r.Value), nil
+}

@@ -1,0 +1,260 @@
+package similarity
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"similis.dev/similis/internal/exact"
+	"similis.dev/similis/pigroups"
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/units"
+)
+
+// Caution is printed with every plan report.
+const Caution = "Model-test predictions are estimates subject to scale effects. Hydraulic structures, hulls and " +
+	"pressure vessels are designed to the applicable local codes and checked by licensed engineers."
+
+// ReportOptions says what a plan report shows.
+type ReportOptions struct {
+	Title string
+	// Prototype holds the prototype's values by variable symbol; model
+	// values are these times the ratios.
+	Prototype map[string]quantity.Quantity
+	// Units chooses the unit each variable is printed in, by symbol
+	// ("kn", "kN"); SI otherwise.
+	Units map[string]string
+	// Groups are listed with their prototype and model values and status.
+	Groups []pigroups.Group
+	// Compromise, if any, adds its floating groups' threshold checks.
+	Compromise *Compromise
+	// Conflict, if any, is reported with its remedies.
+	Conflict *ConflictError
+	// Cautions are added to the standard caution.
+	Cautions []string
+}
+
+// Report is a plan laid out for reading.
+type Report struct {
+	title    string
+	groups   [][]string
+	vars     [][]string
+	notes    []string
+	cautions []string
+}
+
+// NewReport lays out a solved plan.
+func NewReport(s *Solution, o ReportOptions) (*Report, error) {
+	r := &Report{title: o.Title}
+	if r.title == "" {
+		r.title = "Model test plan"
+	}
+	var p units.Printer
+	p.Precision = 5
+	for _, g := range o.Groups {
+		label, exps := conventional(g)
+		if len(g.Matches) == 0 {
+			label = g.Name
+		} else {
+			label, _, _ = strings.Cut(label, " (")
+		}
+		ratio := Ratio{Law: s.groupLaw(exps)}
+		ratio.Value = ratio.Law.Eval(s.values)
+		status := "held"
+		if !ratio.Law.IsOne() {
+			status = "floating, ratio " + ratio.String()
+		}
+		if g.Var == s.plan.prob.DependentIndex() && !ratio.Law.IsOne() {
+			status = "measured (equal on both sides when the others are held)"
+		}
+		proto, model := "", ""
+		if v, ok := groupValue(s.plan.vars, exps, o.Prototype); ok {
+			proto = fmt.Sprintf("%.4g", v)
+			if !math.IsNaN(ratio.Value) {
+				model = fmt.Sprintf("%.4g", v*ratio.Value)
+			}
+		}
+		r.groups = append(r.groups, []string{label, spellExps(s.plan.vars, exps), proto, model, status})
+	}
+	dep := s.plan.prob.DependentIndex()
+	for vi, v := range s.plan.vars {
+		ratio, _ := s.Ratio(v.Symbol)
+		if vi == dep && math.IsNaN(ratio.Value) {
+			// The measured variable scales as its dimension implies.
+			if d, err := s.DerivedRatio(v.Dim); err == nil {
+				ratio = d
+			}
+		}
+		proto, model := "", ""
+		if q, ok := o.Prototype[v.Symbol]; ok {
+			if err := q.CheckNamed(v.Symbol, v.Dim); err != nil {
+				return nil, err
+			}
+			u := units.BaseUnit(v.Dim)
+			if du, ok := units.DerivedUnit(v.Dim); ok {
+				u = du
+			}
+			if name, ok := o.Units[v.Symbol]; ok {
+				var err error
+				if u, err = units.Parse(name); err != nil {
+					return nil, fmt.Errorf("similarity: report unit for %s: %w", v.Symbol, err)
+				}
+			}
+			ps, err := p.FormatIn(q, u)
+			if err != nil {
+				return nil, err
+			}
+			proto = ps
+			if !math.IsNaN(ratio.Value) {
+				model, _ = p.FormatIn(q.Scale(ratio.Value), u)
+			}
+		}
+		r.vars = append(r.vars, []string{v.Symbol, proto, model, ratio.String()})
+	}
+	var free []string
+	for _, f := range s.Free() {
+		if dep < 0 || f != s.plan.vars[dep].Symbol {
+			free = append(free, f)
+		}
+	}
+	if len(free) > 0 {
+		r.notes = append(r.notes, "underdetermined: free ratios "+strings.Join(free, ", ")+" have no value")
+	}
+	if o.Compromise != nil {
+		for _, f := range o.Compromise.Floating {
+			if f.MinModel > 0 && !f.Meets {
+				r.notes = append(r.notes, fmt.Sprintf("%s floats to %.4g in the model, below the threshold %.3g: expect scale effects", f.Label, f.Model, f.MinModel))
+			}
+		}
+	}
+	if o.Conflict != nil {
+		r.notes = append(r.notes, "conflict: "+o.Conflict.Summary)
+		for _, rem := range o.Conflict.Remedies {
+			r.notes = append(r.notes, "  without "+rem.Drop+": "+strings.Join(rem.Needs, ", "))
+		}
+	}
+	r.cautions = append([]string{Caution}, o.Cautions...)
+	return r, nil
+}
+
+// spellExps writes ∏ xᵢ^eᵢ as pigroups does, numerator first.
+func spellExps(vars []pigroups.Variable, exps []exact.Rat) string {
+	var num, den []string
+	for i, e := range exps {
+		if e.IsZero() {
+			continue
+		}
+		a := e
+		if a.Sign() < 0 {
+			a = a.Neg()
+		}
+		t := vars[i].Symbol
+		if !(a.Num == 1 && a.Den == 1) {
+			if a.IsInt() && a.Num < 10 {
+				t += []string{"", "", "²", "³", "⁴", "⁵", "⁶", "⁷", "⁸", "⁹"}[a.Num]
+			} else {
+				t += "^(" + a.String() + ")"
+			}
+		}
+		if e.Sign() > 0 {
+			num = append(num, t)
+		} else {
+			den = append(den, t)
+		}
+	}
+	s := strings.Join(num, "·")
+	if s == "" {
+		s = "1"
+	}
+	switch len(den) {
+	case 0:
+		return s
+	case 1:
+		return s + "/" + den[0]
+	}
+	return s + "/(" + strings.Join(den, "·") + ")"
+}
+
+func table(sb *strings.Builder, head []string, rows [][]string, md bool) {
+	w := make([]int, len(head))
+	for i, h := range head {
+		w[i] = len([]rune(h))
+	}
+	for _, row := range rows {
+		for i, c := range row {
+			w[i] = max(w[i], len([]rune(c)))
+		}
+	}
+	line := func(cells []string) {
+		if md {
+			sb.WriteString("| " + strings.Join(cells, " | ") + " |\n")
+			return
+		}
+		for i, c := range cells {
+			if i > 0 {
+				sb.WriteString("  ")
+			}
+			sb.WriteString(c + strings.Repeat(" ", w[i]-len([]rune(c))))
+		}
+		sb.WriteString("\n")
+	}
+	line(head)
+	if md {
+		sep := make([]string, len(head))
+		for i := range sep {
+			sep[i] = "---"
+		}
+		line(sep)
+	}
+	for _, row := range rows {
+		line(row)
+	}
+}
+
+func (r *Report) write(md bool) string {
+	var sb strings.Builder
+	if md {
+		sb.WriteString("## " + r.title + "\n\n")
+	} else {
+		sb.WriteString(r.title + "\n" + strings.Repeat("=", len([]rune(r.title))) + "\n")
+	}
+	if len(r.groups) > 0 {
+		if md {
+			sb.WriteString("### Groups\n\n")
+		} else {
+			sb.WriteString("\nGroups\n")
+		}
+		table(&sb, []string{"group", "definition", "prototype", "model", "status"}, r.groups, md)
+	}
+	if md {
+		sb.WriteString("\n### Variables\n\n")
+	} else {
+		sb.WriteString("\nVariables\n")
+	}
+	table(&sb, []string{"variable", "prototype", "model", "ratio model/prototype"}, r.vars, md)
+	if len(r.notes) > 0 {
+		sb.WriteString("\n")
+		for _, n := range r.notes {
+			if md {
+				sb.WriteString("- " + strings.TrimSpace(n) + "\n")
+			} else {
+				sb.WriteString("note: " + n + "\n")
+			}
+		}
+	}
+	sb.WriteString("\n")
+	for _, c := range r.cautions {
+		if md {
+			sb.WriteString("> **Caution.** " + c + "\n")
+		} else {
+			sb.WriteString("CAUTION: " + c + "\n")
+		}
+	}
+	return sb.String()
+}
+
+// Text returns the report as plain text tables.
+func (r *Report) Text() string { return r.write(false) }
+
+// Markdown returns the report as Markdown.
+func (r *Report) Markdown() string { return r.write(true) }

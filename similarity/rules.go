@@ -1,0 +1,245 @@
+package similarity
+
+import (
+	"fmt"
+	"math"
+
+	"similis.dev/similis/pigroups"
+	"similis.dev/similis/quantity"
+)
+
+// Rules of similitude, ready for other programs: each solves a standard
+// plan exactly and returns the Solution, whose Ratio, DerivedRatio and
+// transfer methods give every scale. Ratios are model/prototype.
+
+// free-surface and fluid-flow variables used by the rules.
+func stdVars() []pigroups.Variable {
+	return []pigroups.Variable{
+		pigroups.VarKind("V", quantity.Velocity, "velocity"),
+		pigroups.VarKind("L", quantity.Length, "length"),
+		pigroups.VarKind("g", quantity.Acceleration, "gravitational acceleration"),
+		pigroups.VarKind("rho", quantity.Density, "density"),
+		pigroups.VarKind("mu", quantity.DynamicViscosity, "dynamic viscosity"),
+	}
+}
+
+func checkRatio(name string, r float64) error {
+	if !(r > 0) || math.IsInf(r, 0) {
+		return &PlanError{Reason: fmt.Sprintf("%s ratio %v is not positive and finite", name, r)}
+	}
+	return nil
+}
+
+// Froude scaling: the Froude number V/√(gL) held, the same gravity, and a
+// density ratio (1 for the same fluid). λ_V = λ_L^(1/2), λ_t = λ_L^(1/2),
+// λ_F = λ_ρ·λ_L³, λ_P = λ_ρ·λ_L^(7/2), λ_Q = λ_L^(5/2). The Reynolds
+// number floats: with the same fluid its ratio is λ_L^(3/2).
+func Froude(lengthRatio, densityRatio float64) (*Solution, error) {
+	if err := checkRatio("length", lengthRatio); err != nil {
+		return nil, err
+	}
+	if err := checkRatio("density", densityRatio); err != nil {
+		return nil, err
+	}
+	p := pigroups.MustProblem(stdVars()...)
+	pl := NewPlan(p).HoldExps("the Froude number", map[string]int{"V": 2, "g": -1, "L": -1}).
+		SameGravity("g").Fix("L", lengthRatio).Basis("V", "L", "rho")
+	if densityRatio == 1 {
+		pl.SameFluid("rho", "mu")
+	} else {
+		pl.Fix("rho", densityRatio)
+	}
+	return pl.Solve()
+}
+
+// Reynolds scaling: the Reynolds number VL/ν held for given length and
+// kinematic-viscosity ratios: λ_V = λ_ν/λ_L, λ_t = λ_L²/λ_ν.
+func Reynolds(lengthRatio, nuRatio, densityRatio float64) (*Solution, error) {
+	for _, c := range []struct {
+		n string
+		v float64
+	}{{"length", lengthRatio}, {"kinematic viscosity", nuRatio}, {"density", densityRatio}} {
+		if err := checkRatio(c.n, c.v); err != nil {
+			return nil, err
+		}
+	}
+	p := pigroups.MustProblem(
+		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("L", quantity.Length, "length"),
+		pigroups.VarKind("rho", quantity.Density, "density"), pigroups.VarKind("nu", quantity.KinematicViscosity, "kinematic viscosity"))
+	return NewPlan(p).HoldExps("the Reynolds number", map[string]int{"V": 1, "L": 1, "nu": -1}).
+		Fix("L", lengthRatio).Fix("nu", nuRatio).Fix("rho", densityRatio).Basis("V", "L", "rho").Solve()
+}
+
+// Mach scaling: the Mach number V/a held: λ_V = λ_a, for given length,
+// speed-of-sound and density ratios.
+func Mach(lengthRatio, soundRatio, densityRatio float64) (*Solution, error) {
+	for _, c := range []struct {
+		n string
+		v float64
+	}{{"length", lengthRatio}, {"speed of sound", soundRatio}, {"density", densityRatio}} {
+		if err := checkRatio(c.n, c.v); err != nil {
+			return nil, err
+		}
+	}
+	p := pigroups.MustProblem(
+		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("a", quantity.Velocity, "speed of sound"),
+		pigroups.VarKind("L", quantity.Length, "length"), pigroups.VarKind("rho", quantity.Density, "density"))
+	return NewPlan(p).HoldExps("the Mach number", map[string]int{"V": 1, "a": -1}).
+		Fix("L", lengthRatio).Fix("a", soundRatio).Fix("rho", densityRatio).Basis("V", "L", "rho").Solve()
+}
+
+// Weber scaling: ρV²L/σ held: λ_V = (λ_σ/(λ_ρ·λ_L))^(1/2).
+func Weber(lengthRatio, densityRatio, tensionRatio float64) (*Solution, error) {
+	for _, c := range []struct {
+		n string
+		v float64
+	}{{"length", lengthRatio}, {"density", densityRatio}, {"surface tension", tensionRatio}} {
+		if err := checkRatio(c.n, c.v); err != nil {
+			return nil, err
+		}
+	}
+	p := pigroups.MustProblem(
+		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("L", quantity.Length, "length"),
+		pigroups.VarKind("rho", quantity.Density, "density"), pigroups.VarKind("sigma", quantity.SurfaceTension, "surface tension"))
+	return NewPlan(p).HoldExps("the Weber number", map[string]int{"rho": 1, "V": 2, "L": 1, "sigma": -1}).
+		Fix("L", lengthRatio).Fix("rho", densityRatio).Fix("sigma", tensionRatio).Basis("V", "L", "rho").Solve()
+}
+
+// Euler scaling: Δp/(ρV²) held (also the cavitation number
+// (p − p_v)/(½ρV²) when p is the pressure above vapour pressure):
+// λ_p = λ_ρ·λ_V².
+func Euler(lengthRatio, densityRatio, velocityRatio float64) (*Solution, error) {
+	for _, c := range []struct {
+		n string
+		v float64
+	}{{"length", lengthRatio}, {"density", densityRatio}, {"velocity", velocityRatio}} {
+		if err := checkRatio(c.n, c.v); err != nil {
+			return nil, err
+		}
+	}
+	p := pigroups.MustProblem(
+		pigroups.VarKind("p", quantity.Pressure, "pressure difference"), pigroups.VarKind("V", quantity.Velocity, "velocity"),
+		pigroups.VarKind("L", quantity.Length, "length"), pigroups.VarKind("rho", quantity.Density, "density"))
+	return NewPlan(p).HoldExps("the Euler number", map[string]int{"p": 1, "rho": -1, "V": -2}).
+		Fix("L", lengthRatio).Fix("rho", densityRatio).Fix("V", velocityRatio).Basis("V", "L", "rho").Solve()
+}
+
+// Cavitation is Euler scaling of the pressure above vapour pressure,
+// p − p_v, so that the cavitation number is held.
+func Cavitation(lengthRatio, densityRatio, velocityRatio float64) (*Solution, error) {
+	return Euler(lengthRatio, densityRatio, velocityRatio)
+}
+
+// Strouhal scaling: fL/V held: λ_f = λ_V/λ_L, for frequencies of vortex
+// shedding and other unsteady flow.
+func Strouhal(lengthRatio, velocityRatio float64) (*Solution, error) {
+	if err := checkRatio("length", lengthRatio); err != nil {
+		return nil, err
+	}
+	if err := checkRatio("velocity", velocityRatio); err != nil {
+		return nil, err
+	}
+	p := pigroups.MustProblem(
+		pigroups.VarKind("f", quantity.Frequency, "frequency"), pigroups.VarKind("V", quantity.Velocity, "velocity"),
+		pigroups.VarKind("L", quantity.Length, "length"))
+	return NewPlan(p).HoldExps("the Strouhal number", map[string]int{"f": 1, "L": 1, "V": -1}).
+		Fix("L", lengthRatio).Fix("V", velocityRatio).Basis("V", "L").Solve()
+}
+
+// Affinity holds the turbomachine flow, head and power coefficients for
+// a change of speed and diameter: Q ∝ N·D³, gH ∝ N²·D², P ∝ ρ·N³·D⁵.
+// The ratios are new/old (model/prototype if old is the prototype).
+type Affinity struct {
+	Speed, Diameter, Density float64 // λ_N, λ_D, λ_ρ
+	Flow, Head, Power        float64 // λ_Q, λ_H (as gH), λ_P
+	Torque                   float64 // λ_T = λ_P/λ_N
+}
+
+// AffinityLaws returns the affinity-law ratios for speed, diameter and
+// density ratios, from the held coefficients solved exactly (Q/(ND³),
+// gH/(N²D²), P/(ρN³D⁵)). Efficiency is taken equal; see MoodyStepUp.
+func AffinityLaws(speedRatio, diameterRatio, densityRatio float64) (Affinity, error) {
+	for _, c := range []struct {
+		n string
+		v float64
+	}{{"speed", speedRatio}, {"diameter", diameterRatio}, {"density", densityRatio}} {
+		if err := checkRatio(c.n, c.v); err != nil {
+			return Affinity{}, err
+		}
+	}
+	p := pigroups.MustProblem(
+		pigroups.VarKind("Q", quantity.VolumeFlowRate, "volume flow rate"), pigroups.VarKind("gH", quantity.SpecificEnergy, "specific energy"),
+		pigroups.VarKind("P", quantity.Power, "power"), pigroups.VarKind("N", quantity.AngularVelocity, "rotational speed"),
+		pigroups.VarKind("D", quantity.Length, "length"), pigroups.VarKind("rho", quantity.Density, "density"))
+	s, err := NewPlan(p).
+		HoldExps("the flow coefficient", map[string]int{"Q": 1, "N": -1, "D": -3}).
+		HoldExps("the head coefficient", map[string]int{"gH": 1, "N": -2, "D": -2}).
+		HoldExps("the power coefficient", map[string]int{"P": 1, "rho": -1, "N": -3, "D": -5}).
+		Fix("N", speedRatio).Fix("D", diameterRatio).Fix("rho", densityRatio).Basis("N", "D", "rho").Solve()
+	if err != nil {
+		return Affinity{}, err
+	}
+	get := func(sym string) float64 { r, _ := s.Ratio(sym); return r.Value }
+	a := Affinity{Speed: speedRatio, Diameter: diameterRatio, Density: densityRatio, Flow: get("Q"), Head: get("gH"), Power: get("P")}
+	a.Torque = a.Power / a.Speed
+	return a, nil
+}
+
+// Distorted is a distorted Froude model of a river or harbour, with a
+// horizontal length ratio and a larger vertical one.
+type Distorted struct {
+	Horizontal, Vertical float64 // λ_x, λ_z
+	Distortion           float64 // λ_z/λ_x, the vertical exaggeration (4 for 1:200 across and 1:50 deep)
+	Velocity             float64 // λ_V = λ_z^(1/2)
+	Time                 float64 // λ_t = λ_x/λ_z^(1/2), along the flow
+	Discharge            float64 // λ_Q = λ_x·λ_z^(3/2)
+	Area                 float64 // plan area λ_x²
+	Slope                float64 // λ_S = λ_z/λ_x
+	Manning              float64 // λ_n = λ_z^(2/3)/λ_x^(1/2)
+	solution             *Solution
+}
+
+// DistortedFroude returns the ratios of a distorted Froude model: the
+// Froude number held on the vertical scale (V²/(g·z)), the same gravity,
+// the horizontal scale fixed separately. Manning's n follows from holding
+// friction slope equal to bed slope: n ∝ z^(2/3)·S^(1/2)/V.
+func DistortedFroude(horizontal, vertical float64) (Distorted, error) {
+	if err := checkRatio("horizontal length", horizontal); err != nil {
+		return Distorted{}, err
+	}
+	if err := checkRatio("vertical length", vertical); err != nil {
+		return Distorted{}, err
+	}
+	p := pigroups.MustProblem(
+		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("x", quantity.Length, "length"),
+		pigroups.VarKind("z", quantity.Length, "length"), pigroups.VarKind("g", quantity.Acceleration, "gravitational acceleration"),
+		pigroups.VarKind("t", quantity.Time, "time"), pigroups.VarKind("Q", quantity.VolumeFlowRate, "volume flow rate"))
+	s, err := NewPlan(p).
+		HoldExps("the Froude number on depth", map[string]int{"V": 2, "g": -1, "z": -1}).
+		HoldExps("the kinematics along the flow", map[string]int{"V": 1, "t": 1, "x": -1}).
+		HoldExps("the discharge through a section", map[string]int{"Q": 1, "V": -1, "x": -1, "z": -1}).
+		SameGravity("g").Fix("x", horizontal).Fix("z", vertical).Basis("V", "x").Solve()
+	if err != nil {
+		return Distorted{}, err
+	}
+	get := func(sym string) float64 { r, _ := s.Ratio(sym); return r.Value }
+	return Distorted{
+		Horizontal: horizontal, Vertical: vertical, Distortion: vertical / horizontal,
+		Velocity: get("V"), Time: get("t"), Discharge: get("Q"), Area: horizontal * horizontal,
+		Slope: vertical / horizontal, Manning: math.Pow(vertical, 2.0/3) / math.Sqrt(horizontal),
+		solution: s,
+	}, nil
+}
+
+// Solution returns the plan behind the distorted model, for its laws.
+func (d Distorted) Solution() *Solution { return d.solution }
+
+// ManningRatio is the ratio of Manning's roughness coefficient in an
+// undistorted Froude model, λ_n = λ_L^(1/6): from V = R^(2/3)·S^(1/2)/n
+// with λ_V = λ_L^(1/2), λ_R = λ_L and λ_S = 1.
+func ManningRatio(lengthRatio float64) (float64, error) {
+	if err := checkRatio("length", lengthRatio); err != nil {
+		return 0, err
+	}
+	return math.Pow(lengthRatio, 1.0/6), nil
+}

@@ -1,0 +1,406 @@
+package similarity_test
+
+import (
+	"errors"
+	"math"
+	"strings"
+	"testing"
+
+	"github.com/google/go-cmp/cmp"
+
+	"similis.dev/similis/internal/exact"
+	"similis.dev/similis/pigroups"
+	q "similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
+	"similis.dev/similis/similarity/fluids"
+)
+
+func lawExp(t *testing.T, r similarity.Ratio, sym string) exact.Rat {
+	t.Helper()
+	return r.Law.Exponent(sym)
+}
+
+// TestFroudeLaws checks Froude scaling with the same fluid against its
+// closed form (common practice): λ_V = λ_t = λ_L^(1/2), λ_F = λ_L³,
+// λ_P = λ_L^(7/2), λ_Q = λ_L^(5/2), λ_p = λ_L.
+func TestFroudeLaws(t *testing.T) {
+	s, err := similarity.Froude(1.0/25, 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cases := []struct {
+		name string
+		d    q.Dim
+		exp  exact.Rat
+	}{
+		{"velocity", q.Velocity, exact.Frac(1, 2)},
+		{"time", q.Time, exact.Frac(1, 2)},
+		{"force", q.Force, exact.Int(3)},
+		{"power", q.Power, exact.Frac(7, 2)},
+		{"discharge", q.VolumeFlowRate, exact.Frac(5, 2)},
+		{"pressure", q.Pressure, exact.Int(1)},
+		{"frequency", q.Frequency, exact.Frac(-1, 2)},
+	}
+	for _, c := range cases {
+		r, err := s.DerivedRatio(c.d)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got := lawExp(t, r, "L"); got != c.exp || len(r.Law.Terms) != 1 {
+			t.Errorf("%s: law %s, want λ_L^(%s)", c.name, r.Law, c.exp)
+		}
+		if want := math.Pow(1.0/25, c.exp.Float()); math.Abs(r.Value/want-1) > 1e-12 {
+			t.Errorf("%s: %v, want %v", c.name, r.Value, want)
+		}
+	}
+	if r, _ := s.Ratio("V"); r.Law.String() != "λ_L^(1/2)" {
+		t.Errorf("λ_V printed %q", r.Law)
+	}
+	// Manning's n in a Froude model: λ_L^(1/6) (common practice).
+	n, _ := similarity.ManningRatio(1.0 / 30)
+	if math.Abs(n-math.Pow(30, -1.0/6)) > 1e-15 {
+		t.Errorf("Manning ratio %v", n)
+	}
+}
+
+// TestReynoldsMachLaws checks the closed forms λ_V = λ_ν/λ_L (Reynolds)
+// and λ_V = λ_a (Mach); common practice.
+func TestReynoldsMachLaws(t *testing.T) {
+	s, err := similarity.Reynolds(0.1, 1, 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, _ := s.Ratio("V")
+	if r.Law.Exponent("L") != exact.Int(-1) || r.Law.Exponent("nu") != exact.Int(1) || math.Abs(r.Value-10) > 1e-12 {
+		t.Errorf("Reynolds λ_V = %s", r)
+	}
+	m, err := similarity.Mach(0.05, 0.9, 3)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, _ = m.Ratio("V")
+	if r.Law.String() != "λ_a" || math.Abs(r.Value-0.9) > 1e-12 {
+		t.Errorf("Mach λ_V = %s", r)
+	}
+	// Force in the Mach model: λ_ρ·λ_V²·λ_L².
+	f, _ := m.DerivedRatio(q.Force)
+	if want := 3 * 0.81 * 0.0025; math.Abs(f.Value/want-1) > 1e-12 {
+		t.Errorf("Mach λ_F = %s, want %v", f, want)
+	}
+	w, _ := similarity.Weber(0.5, 1, 1)
+	r, _ = w.Ratio("V")
+	if math.Abs(r.Value-math.Sqrt(2)) > 1e-12 {
+		t.Errorf("Weber λ_V = %s", r)
+	}
+	st, _ := similarity.Strouhal(0.1, 2)
+	r, _ = st.Ratio("f")
+	if math.Abs(r.Value-20) > 1e-12 {
+		t.Errorf("Strouhal λ_f = %s", r)
+	}
+	e, _ := similarity.Euler(0.2, 1, 0.5)
+	r, _ = e.Ratio("p")
+	if math.Abs(r.Value-0.25) > 1e-12 {
+		t.Errorf("Euler λ_p = %s", r)
+	}
+}
+
+// TestAffinity checks the pump affinity laws Q ∝ N·D³, gH ∝ N²·D²,
+// P ∝ ρ·N³·D⁵ (common practice).
+func TestAffinity(t *testing.T) {
+	a, err := similarity.AffinityLaws(1450.0/1750, 2.5, 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	n, d := 1450.0/1750, 2.5
+	want := []float64{n * d * d * d, n * n * d * d, n * n * n * math.Pow(d, 5), n * n * math.Pow(d, 5)}
+	got := []float64{a.Flow, a.Head, a.Power, a.Torque}
+	for i := range want {
+		if math.Abs(got[i]/want[i]-1) > 1e-12 {
+			t.Errorf("affinity %d: %v, want %v", i, got[i], want[i])
+		}
+	}
+	dd, err := similarity.DistortedFroude(1.0/400, 1.0/80)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// By hand: λ_V = (1/80)^½, λ_Q = (1/400)(1/80)^(3/2), λ_t = (1/400)/(1/80)^½.
+	if math.Abs(dd.Velocity-math.Sqrt(1.0/80)) > 1e-14 || math.Abs(dd.Discharge/(math.Pow(1.0/80, 1.5)/400)-1) > 1e-12 ||
+		math.Abs(dd.Time/((1.0/400)/math.Sqrt(1.0/80))-1) > 1e-12 || dd.Distortion != 5 {
+		t.Errorf("distorted: %+v", dd)
+	}
+}
+
+func froudeReynoldsPlan(t *testing.T) *similarity.Plan {
+	p := pigroups.MustProblem(
+		pigroups.Var("V", q.Velocity), pigroups.Var("L", q.Length), pigroups.Var("g", q.Acceleration),
+		pigroups.Var("rho", q.Density), pigroups.Var("mu", q.DynamicViscosity))
+	return similarity.NewPlan(p).
+		HoldExps("the Froude number", map[string]int{"V": 2, "g": -1, "L": -1}).
+		HoldExps("the Reynolds number", map[string]int{"rho": 1, "V": 1, "L": 1, "mu": -1}).
+		SameFluid("rho", "mu").SameGravity("g").Fix("L", 1.0/25)
+}
+
+// TestFroudeReynoldsConflict: holding both with the same fluid and gravity
+// forces λ_L = 1; dropping the same fluid needs ν_m/ν_p = λ_L^(3/2)
+// (common practice).
+func TestFroudeReynoldsConflict(t *testing.T) {
+	_, err := froudeReynoldsPlan(t).Solve()
+	var ce *similarity.ConflictError
+	if !errors.As(err, &ce) || !errors.Is(err, similarity.ErrConflict) {
+		t.Fatalf("Solve: %v", err)
+	}
+	wantSummary := "holding the Froude number and the Reynolds number with the same fluid and the same gravity forces λ_L to 1, against a length scale of 1:25"
+	if ce.Summary != wantSummary {
+		t.Errorf("summary:\n got %s\nwant %s", ce.Summary, wantSummary)
+	}
+	if len(ce.Constraints) != 5 {
+		t.Errorf("minimal set %v", ce.Constraints)
+	}
+	var fluid *similarity.Remedy
+	for i := range ce.Remedies {
+		if ce.Remedies[i].Drop == "the same fluid" {
+			fluid = &ce.Remedies[i]
+		}
+	}
+	if fluid == nil || !strings.Contains(strings.Join(fluid.Needs, "; "), "ν_m/ν_p = λ_L^(3/2)") {
+		t.Errorf("same-fluid remedy: %+v", fluid)
+	}
+	if !strings.Contains(err.Error(), "without the same gravity: λ_g = λ_L^(-3) = 15625") {
+		t.Errorf("error text: %v", err)
+	}
+}
+
+func TestCompromise(t *testing.T) {
+	p := pigroups.MustProblem(
+		pigroups.Dep("F", q.Force).WithKind("force"), pigroups.VarKind("V", q.Velocity, "velocity"), pigroups.VarKind("L", q.Length, "length"),
+		pigroups.VarKind("g", q.Acceleration, "gravitational acceleration"),
+		pigroups.VarKind("rho", q.Density, "density"), pigroups.VarKind("mu", q.DynamicViscosity, "dynamic viscosity"))
+	set, err := p.PiSet("V", "L", "rho")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var fr, re pigroups.Group
+	for _, g := range set.Groups() {
+		switch g.Label() {
+		case "Fr²", "1/Fr²":
+			fr = g
+		case "1/Re", "Re":
+			re = g
+		}
+	}
+	pl := similarity.NewPlan(p).SameFluid("rho", "mu").SameGravity("g").Fix("L", 1.0/16)
+	proto := map[string]q.Quantity{"V": q.New(7.7, q.Velocity), "L": q.New(32, q.Length), "g": q.New(9.80665, q.Acceleration),
+		"rho": q.New(1025, q.Density), "mu": q.New(1.22e-3, q.DynamicViscosity)}
+	c, err := pl.Compromise(proto, similarity.Priority{Group: fr}, similarity.Priority{Group: re, MinModel: 5e6})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(c.Held) != 1 || len(c.Floating) != 1 {
+		t.Fatalf("compromise: %v", c)
+	}
+	f := c.Floating[0]
+	// Re ratio λ_V·λ_L = λ_L^(3/2) (Froude, same fluid), reported in the
+	// conventional orientation Re = ρVL/μ although the set holds 1/Re.
+	wantRatio := math.Pow(16, -1.5)
+	if math.Abs(f.Ratio.Value/wantRatio-1) > 1e-12 || !strings.HasPrefix(f.Label, "Re ") {
+		t.Errorf("Re ratio %v (%s), want %v", f.Ratio.Value, f.Label, wantRatio)
+	}
+	reProto := 1025 * 7.7 * 32 / 1.22e-3
+	if math.Abs(f.Prototype/reProto-1) > 1e-12 || f.Meets {
+		t.Errorf("prototype Re = %v, want %v; meets %v", f.Prototype, reProto, f.Meets)
+	}
+	v, _ := c.Solution.Ratio("V")
+	if math.Abs(v.Value-0.25) > 1e-12 {
+		t.Errorf("λ_V = %v", v)
+	}
+	r, err := similarity.NewReport(c.Solution, similarity.ReportOptions{Title: "Catamaran 1:16", Prototype: proto,
+		Units: map[string]string{"V": "kn"}, Groups: set.Groups(), Compromise: c})
+	if err != nil {
+		t.Fatal(err)
+	}
+	text, md := r.Text(), r.Markdown()
+	for _, want := range []string{"Catamaran 1:16", "held", "floating, ratio", "14.968 kn", "3.7419 kn", "CAUTION: Model-test predictions"} {
+		if !strings.Contains(text, want) {
+			t.Errorf("text report lacks %q:\n%s", want, text)
+		}
+	}
+	if !strings.Contains(md, "| variable | prototype | model | ratio model/prototype |") || !strings.Contains(md, "> **Caution.**") {
+		t.Errorf("markdown report:\n%s", md)
+	}
+}
+
+func TestTransfer(t *testing.T) {
+	s, _ := similarity.Froude(1.0/30, 1)
+	m := q.NewSeries([]float64{0.1, 0.2, 0.3}, q.VolumeFlowRate)
+	var p q.Series
+	if err := s.SeriesToPrototype(&p, m); err != nil {
+		t.Fatal(err)
+	}
+	want := math.Pow(30, 2.5)
+	for i := range 3 {
+		if math.Abs(p.At(i).Value()/(m.At(i).Value()*want)-1) > 1e-12 {
+			t.Errorf("Q[%d] = %v", i, p.At(i))
+		}
+	}
+	back, _ := s.ToModel(p.At(1))
+	if math.Abs(back.Value()/0.2-1) > 1e-12 {
+		t.Errorf("round trip: %v", back)
+	}
+	// An underdetermined plan lists its free ratios and refuses numbers.
+	pp := pigroups.MustProblem(pigroups.Var("V", q.Velocity), pigroups.Var("L", q.Length), pigroups.Var("g", q.Acceleration))
+	u, err := similarity.NewPlan(pp).HoldExps("Fr", map[string]int{"V": 2, "g": -1, "L": -1}).SameGravity("g").Basis("V", "L").Solve()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if diff := cmp.Diff([]string{"L"}, u.Free()); diff != "" {
+		t.Errorf("free ratios (-want +got):\n%s", diff)
+	}
+	if _, err := u.ToPrototype(q.New(1, q.Velocity)); !errors.Is(err, similarity.ErrUnknownRatio) {
+		t.Errorf("transfer with a free ratio: %v", err)
+	}
+	w, err := u.With(map[string]float64{"L": 0.01})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if v, _ := w.ToPrototype(q.New(1, q.Velocity)); math.Abs(v.Value()-10) > 1e-12 {
+		t.Errorf("with λ_L = 0.01: %v", v)
+	}
+}
+
+func TestPlanErrors(t *testing.T) {
+	p := pigroups.MustProblem(pigroups.Var("V", q.Velocity), pigroups.Var("L", q.Length))
+	for _, pl := range []*similarity.Plan{
+		similarity.NewPlan(p).Fix("x", 1),
+		similarity.NewPlan(p).Fix("L", -1),
+		similarity.NewPlan(p).HoldExps("bad", map[string]int{"V": 1}),
+		similarity.NewPlan(p).Same("s", "nope"),
+	} {
+		if _, err := pl.Solve(); err == nil {
+			t.Error("a plan built wrongly solved")
+		}
+	}
+}
+
+// TestITTC1957 checks the correlation line: Re = 10⁷ gives 0.003 exactly
+// by the formula; the other values are those tabulated for the line in
+// ITTC Recommended Procedure 7.5-02-02-02 to 4 significant figures (from
+// memory).
+func TestITTC1957(t *testing.T) {
+	cases := []struct{ re, cf float64 }{
+		{1e6, 0.004688}, {2e6, 0.004054}, {5e6, 0.003397}, {1e7, 0.003000}, {1e8, 0.002083}, {1e9, 0.001531},
+	}
+	for _, c := range cases {
+		got, err := similarity.ITTC1957(c.re)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if math.Abs(got-c.cf) > 0.6e-6 { // half a unit in the 4th figure, plus rounding
+			t.Errorf("C_F(%g) = %.6f, table %.6f", c.re, got, c.cf)
+		}
+	}
+	if got, _ := similarity.ITTC1957(1e7); math.Abs(got-0.003) > 1e-18 {
+		t.Errorf("C_F(1e7) = %v, want 0.003 exactly", got)
+	}
+	if _, err := similarity.ITTC1957(1e4); !errors.Is(err, similarity.ErrExtrapolation) {
+		t.Errorf("laminar Re accepted: %v", err)
+	}
+}
+
+// TestHullAndProhaska builds invented model data from a known form factor
+// and residual law, then checks that Prohaska's method recovers 1 + k and
+// that the ship values follow the ITTC-1957 steps written out here.
+func TestHullAndProhaska(t *testing.T) {
+	const scale, k1 = 1.0 / 16, 1.12
+	Lm, Sm := 2.5, 1.9
+	tank := similarity.Water{Density: q.New(999.1, q.Density), KinematicViscosity: q.New(1.1386e-6, q.KinematicViscosity)}
+	sea := similarity.Water{Density: q.New(1026.0, q.Density), KinematicViscosity: q.New(1.1892e-6, q.KinematicViscosity)}
+	var speeds, res []q.Quantity
+	for _, fn := range []float64{0.08, 0.10, 0.12, 0.14, 0.16, 0.18, 0.30, 0.40} {
+		v := fn * math.Sqrt(9.80665*Lm)
+		cf, _ := similarity.ITTC1957(v * Lm / 1.1386e-6)
+		ct := k1*cf + 0.0021*math.Pow(fn, 4) // invented wave-resistance law
+		speeds = append(speeds, q.New(v, q.Velocity))
+		res = append(res, q.New(ct*0.5*999.1*v*v*Sm, q.Force))
+	}
+	test := similarity.HullTest{Scale: scale, ModelLength: q.New(Lm, q.Length), ModelWettedArea: q.New(Sm, q.Area),
+		Speeds: speeds, Resistances: res, Tank: tank, Sea: sea, Allowance: 0.0004}
+	pr, err := similarity.ProhaskaFromTest(test, 0.2)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(pr.FormFactor-k1) > 1e-9 || pr.Points != 6 {
+		t.Errorf("Prohaska: %+v, want 1 + k = %v from 6 runs", pr, k1)
+	}
+	test.FormFactor = pr.FormFactor
+	r, err := similarity.ExtrapolateHull(test)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := r.Points[6] // Fn = 0.30
+	Vs := speeds[6].Value() * 4
+	cfs, _ := similarity.ITTC1957(Vs * Lm * 16 / 1.1892e-6)
+	cfm, _ := similarity.ITTC1957(speeds[6].Value() * Lm / 1.1386e-6)
+	ctm := k1*cfm + 0.0021*math.Pow(0.30, 4)
+	cts := k1*cfs + (ctm - k1*cfm) + 0.0004
+	rs := cts * 0.5 * 1026 * Vs * Vs * Sm * 256
+	if math.Abs(p.ShipResistance.Value()/rs-1) > 1e-9 || math.Abs(p.EffectivePower.Value()/(rs*Vs)-1) > 1e-9 {
+		t.Errorf("ship: R = %v, want %v", p.ShipResistance, rs)
+	}
+	if !strings.Contains(r.Caution, "naval architect") {
+		t.Error("hull result lacks its caution")
+	}
+	if _, err := similarity.ExtrapolateHull(similarity.HullTest{Scale: 2}); !errors.Is(err, similarity.ErrExtrapolation) {
+		t.Errorf("scale 2 accepted: %v", err)
+	}
+}
+
+// TestMoody checks η_p = 1 − (1 − η_m)(D_m/D_p)^(1/5) against a value
+// worked by hand: η_m = 0.85, D_m/D_p = 1/4 gives 0.886321.
+func TestMoody(t *testing.T) {
+	eta, err := similarity.MoodyStepUp(0.85, q.New(0.3, q.Length), q.New(1.2, q.Length), 0)
+	if err != nil || math.Abs(eta-0.886321) > 5e-7 {
+		t.Errorf("Moody = %v, %v", eta, err)
+	}
+	if _, err := similarity.MoodyStepUp(1.2, q.New(0.3, q.Length), q.New(1.2, q.Length), 0); err == nil {
+		t.Error("efficiency 1.2 accepted")
+	}
+}
+
+func TestTunnelFinder(t *testing.T) {
+	proto, _ := fluids.StandardAtmosphere(18000)
+	V := q.New(0.6*proto.SpeedOfSound.Value(), q.Velocity)
+	L := q.New(2.0, q.Length)
+	lim := similarity.TunnelLimits{MinTemperature: q.New(100, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(5e5, q.Pressure)}
+	c, err := similarity.FindTunnelCondition(fluids.Air, proto, V, L, 1.0/10, lim)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !c.Achieved || math.Abs(c.ReynoldsRatio-1) > 1e-6 || math.Abs(c.Mach-0.6) > 1e-12 {
+		t.Errorf("condition %+v", c)
+	}
+	// Check it independently: the state at the found T and p.
+	st, _ := fluids.Air.At(c.Temperature, c.Pressure)
+	reM := st.Density.Value() * c.Velocity.Value() * 0.2 / st.DynamicViscosity.Value()
+	reP := proto.Density.Value() * V.Value() * 2 / proto.DynamicViscosity.Value()
+	if math.Abs(reM/reP-1) > 1e-6 || math.Abs(c.Velocity.Value()/st.SpeedOfSound.Value()-0.6) > 1e-12 {
+		t.Errorf("Re_m/Re_p = %v", reM/reP)
+	}
+	// An ordinary atmospheric tunnel cannot: report how close.
+	lim.MaxPressure = q.New(1.1e5, q.Pressure)
+	lim.MinTemperature = q.New(280, q.Temperature)
+	c, err = similarity.FindTunnelCondition(fluids.Air, proto, V, L, 1.0/50, lim)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if c.Achieved || !(c.ReynoldsRatio < 1) || c.Pressure.Value() != 1.1e5 {
+		t.Errorf("limited condition %+v", c)
+	}
+	// TemperatureFor: the fresh-water temperature with ν = 1.0034e-6 m²/s
+	// is about 20 °C (ITTC 7.5-02-01-03 (2011), from memory).
+	T, err := similarity.TemperatureFor(fluids.FreshWater, q.New(101325, q.Pressure),
+		func(s fluids.State) float64 { return s.KinematicViscosity.Value() }, 1.0034e-6, q.New(273.15, q.Temperature), q.New(313.15, q.Temperature))
+	if err != nil || math.Abs(T.Value()-293.15) > 0.1 {
+		t.Errorf("TemperatureFor = %v, %v", T, err)
+	}
+}
