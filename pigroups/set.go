@@ -478,8 +478,9 @@ func firstNonzeroSign(v exact.Vec) int {
 
 // WithConventional returns a copy of the set in which every group that
 // is recognised as a power of a named group is replaced by the named
-// group itself (1/Re becomes Re, Fr² stays Fr² only if the root is not
-// a whole-exponent group).
+// group itself when that has whole exponents (1/Re becomes Re), and
+// otherwise by the positive power with whole exponents (1/Fr² becomes
+// Fr², since Fr itself has the exponent 1/2).
 func (s *Set) WithConventional() *Set {
 	out := &Set{prob: s.prob, repeating: s.repeating, groups: slices.Clone(s.groups)}
 	for k, g := range out.groups {
@@ -501,7 +502,13 @@ func (s *Set) WithConventional() *Set {
 			conv[i] = x
 		}
 		if !okAll {
-			continue
+			if m.Power.Sign() > 0 {
+				continue
+			}
+			// A negative fractional power (1/Fr²): invert to a positive one.
+			for i, e := range g.exps {
+				conv[i] = e.Neg()
+			}
 		}
 		out.groups[k] = Group{Name: g.Name, Var: g.Var, exps: conv, prob: s.prob, Matches: s.prob.recognise(conv)}
 	}

@@ -1,11 +1,16 @@
-// Command quickstart evaluates a pipe-flow correlation with
-// dimension-checked quantities and shows a unit mistake being caught.
+// Command quickstart is similis's main demo. It shows the whole job in
+// one run, on invented data: a unit-safe formula with a unit mistake
+// caught; a ship-resistance problem's variables turned into a Pi set; a
+// test plan whose requirements conflict; the compromise that holds the
+// Froude number; measured model data carried to full scale; and the
+// ITTC-1957 extrapolation that corrects for the Reynolds number that
+// could not be held.
 //
-// The pipe, fluid and flow are invented for the demonstration.
+// Every vessel, pipe and reading is invented for the demonstration.
 //
 // Usage:
 //
-//	go run ./examples/quickstart [-v 2.5] [-d 0.08] [-l 40]
+//	go run ./examples/quickstart [-v 2.5] [-d 0.08] [-l 40] [-scale 16]
 package main
 
 import (
@@ -17,6 +22,8 @@ import (
 
 	q "similis.dev/similis/quantity"
 )
+
+// The whole-job part is in job.go.
 
 func main() {
 	if err := run(os.Stdout, os.Args[1:]); err != nil {
@@ -46,8 +53,12 @@ func run(w io.Writer, args []string) error {
 	v := fs.Float64("v", 2.5, "mean velocity, m/s")
 	d := fs.Float64("d", 0.08, "pipe bore, m")
 	l := fs.Float64("l", 40, "pipe length, m")
+	scale := fs.Float64("scale", 16, "ship length over model length, for the whole-job part")
 	if err := fs.Parse(args); err != nil {
 		return err
+	}
+	if !(*scale > 1) {
+		return fmt.Errorf("-scale %v: want a ship larger than its model", *scale)
 	}
 	if *v <= 0 || *d <= 0 || *l <= 0 || math.IsInf(*v+*d+*l, 0) {
 		return fmt.Errorf("velocity, bore and length must be positive and finite")
@@ -61,7 +72,8 @@ func run(w io.Writer, args []string) error {
 		eps: q.New(4.5e-5, q.Length),
 		l:   q.New(*l, q.Length),
 	}
-	fmt.Fprintln(w, "similis quickstart — pipe pressure drop (invented rig data)")
+	fmt.Fprintln(w, "similis quickstart — all data below are invented for the demonstration")
+	fmt.Fprintln(w, "\n1. A unit-safe formula: pipe pressure drop on a test rig")
 	fmt.Fprintf(w, "  ρ = %v, V = %v, D = %v, μ = %v, ε = %v, L = %v\n", p.rho, p.v, p.d, p.mu, p.eps, p.l)
 	re, f, dp := pressureDrop(p)
 	fmt.Fprintf(w, "  Re = %.5g   f = %.4f   Δp = %.4g\n", re.Value(), f.Value(), dp)
@@ -76,5 +88,6 @@ func run(w io.Writer, args []string) error {
 	if err == nil {
 		return fmt.Errorf("the mismatch was not caught")
 	}
-	return nil
+	_, err = wholeJob(w, *scale)
+	return err
 }

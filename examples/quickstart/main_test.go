@@ -5,6 +5,7 @@ import (
 	"math"
 	"strings"
 	"testing"
+	"time"
 
 	q "similis.dev/similis/quantity"
 )
@@ -14,7 +15,7 @@ func TestRun(t *testing.T) {
 	if err := run(&out, nil); err != nil {
 		t.Fatal(err)
 	}
-	for _, want := range []string{"invented", "Re = 1.9932e+05", "cannot raise density [kg·m⁻³] to a real power"} {
+	for _, want := range []string{"invented", "Re = 1.9932e+05", "cannot raise density [kg·m⁻³] to a real power", "ITTC-1957"} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("output lacks %q:\n%s", want, out.String())
 		}
@@ -50,5 +51,46 @@ func TestRunBadFlags(t *testing.T) {
 	var out bytes.Buffer
 	if err := run(&out, []string{"-v", "-1"}); err == nil {
 		t.Error("negative velocity accepted")
+	}
+}
+
+// TestWholeJob checks the demo's chain against hand calculations.
+func TestWholeJob(t *testing.T) {
+	var out bytes.Buffer
+	r, err := wholeJob(&out, 16)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r.Set.Len() != 3 || r.Conflict == nil || len(r.Compromise.Held) != 1 {
+		t.Fatalf("set %v, conflict %v, compromise %v", r.Set, r.Conflict, r.Compromise)
+	}
+	// Froude scaling of force at 1:16 with the same density: λ_F = 16⁻³,
+	// so 30.9 N → 30.9·4096 N (common practice).
+	if math.Abs(r.NaiveForce.Value()-30.9*4096) > 1e-6 {
+		t.Errorf("naive ship force %v, want %v", r.NaiveForce, 30.9*4096)
+	}
+	// The extrapolated resistance is below the naive one: the ship's
+	// frictional coefficient is smaller at its higher Reynolds number.
+	if !(r.Extrapolate.Points[0].ShipResistance.Value() < r.NaiveForce.Value()) {
+		t.Errorf("extrapolated %v not below naive %v", r.Extrapolate.Points[0].ShipResistance, r.NaiveForce)
+	}
+	// 15 kn at 1:16: V_m = 15·1852/3600/4 m/s (exact).
+	if vm := r.Extrapolate.Points[0].ModelSpeed.Value(); math.Abs(vm-15*1852.0/3600/4) > 1e-12 {
+		t.Errorf("model speed %v", vm)
+	}
+	for _, want := range []string{"forces λ_L to 1", "ν_m/ν_p = λ_L^(3/2)", "CAUTION"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+}
+
+func TestMainDemoIsFast(t *testing.T) {
+	start := time.Now()
+	if err := run(&bytes.Buffer{}, nil); err != nil {
+		t.Fatal(err)
+	}
+	if d := time.Since(start); d > 10*time.Second {
+		t.Errorf("the main demo took %v", d)
 	}
 }

@@ -1,0 +1,47 @@
+package main
+
+import (
+	"bytes"
+	"math"
+	"strings"
+	"testing"
+)
+
+func TestRuns(t *testing.T) {
+	var out bytes.Buffer
+	if err := run(&out, nil); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"invented", "gpm", "kW", "CAUTION"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+	if err := run(&bytes.Buffer{}, []string{"-np", "0"}); err == nil {
+		t.Error("-np 0 accepted")
+	}
+}
+
+// TestByHand carries the 800 gpm point: Q_p = 800·(1180/1750)·2.4³ gpm,
+// H_p = 96·(1180/1750)²·2.4² ft (common practice affinity laws), η_p =
+// 1 − 0.165·(1/2.4)^0.2 (Moody), and shaft power ρgQH/η with 1 gpm =
+// 6.30901964e-5 m³/s and 1 ft = 0.3048 m exactly.
+func TestByHand(t *testing.T) {
+	rows, err := evaluate(&bytes.Buffer{}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r := rows[3]
+	n, d := 1180.0/1750, 2.4
+	qp := 800 * n * d * d * d * 6.30901964e-5
+	hp := 96 * n * n * d * d * 0.3048
+	eta := 1 - 0.165*math.Pow(1/2.4, 0.2)
+	pp := 998.2 * 9.80665 * qp * hp / eta
+	got := []float64{r.ProtoQ.Value(), r.ProtoH.Value(), r.ProtoEta, r.ProtoP.Value()}
+	want := []float64{qp, hp, eta, pp}
+	for i := range got {
+		if math.Abs(got[i]/want[i]-1) > 1e-12 {
+			t.Errorf("quantity %d: %v, by hand %v", i, got[i], want[i])
+		}
+	}
+}

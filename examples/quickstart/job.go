@@ -1,0 +1,118 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"io"
+
+	"similis.dev/similis/pigroups"
+	q "similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
+	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/units"
+)
+
+// JobResult keeps the whole job's key numbers for the test.
+type JobResult struct {
+	Set         *pigroups.Set
+	Conflict    *similarity.ConflictError
+	Compromise  *similarity.Compromise
+	NaiveForce  q.Quantity // model resistance scaled by λ_F alone
+	Extrapolate *similarity.HullResult
+}
+
+// wholeJob runs variables → Pi set → conflicting plan → compromise →
+// transfer → extrapolation for an invented 32 m catamaran.
+func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
+	res := &JobResult{}
+	fmt.Fprintln(w, "\n2. Variables of ship resistance → Pi set")
+	p, err := pigroups.NewProblem(
+		pigroups.Dep("R", q.Force).WithKind("force"),
+		pigroups.VarKind("V", q.Velocity, "velocity"), pigroups.VarKind("L", q.Length, "length"),
+		pigroups.VarKind("g", q.Acceleration, "gravitational acceleration"),
+		pigroups.VarKind("rho", q.Density, "density"), pigroups.VarKind("mu", q.DynamicViscosity, "dynamic viscosity"))
+	if err != nil {
+		return nil, err
+	}
+	set, err := p.PiSet("rho", "V", "L")
+	if err != nil {
+		return nil, err
+	}
+	res.Set = set.WithConventional()
+	fmt.Fprint(w, p.MatrixTable())
+	fmt.Fprint(w, res.Set.Format(pigroups.Unicode))
+
+	var fr, re pigroups.Group
+	for _, g := range set.Groups() {
+		if len(g.Matches) == 0 {
+			continue
+		}
+		switch g.Matches[0].Symbol {
+		case "Fr":
+			fr = g
+		case "Re":
+			re = g
+		}
+	}
+	fmt.Fprintf(w, "\n3. A 1:%g model in the same water and gravity, holding Fr and Re\n", scale)
+	plan := similarity.NewPlan(p).Hold(fr).Hold(re).SameFluid("rho", "mu").SameGravity("g").Fix("L", 1/scale)
+	_, err = plan.Solve()
+	if !errors.As(err, &res.Conflict) {
+		return nil, fmt.Errorf("expected a conflict, got %v", err)
+	}
+	fmt.Fprintln(w, "  conflict:", res.Conflict.Summary)
+	for _, r := range res.Conflict.Remedies {
+		fmt.Fprintf(w, "  - without %s: %v\n", r.Drop, r.Needs)
+	}
+
+	fmt.Fprintln(w, "\n4. The compromise: hold Fr, let Re float (threshold 1e6, a rule of thumb)")
+	sea, _ := fluids.SeaWater.AtCelsius(15)
+	tank, _ := fluids.FreshWater.AtCelsius(15)
+	proto := map[string]q.Quantity{"V": units.MustParse("kn").Of(15), "L": q.New(32, q.Length), "g": units.StandardGravity,
+		"rho": sea.Density, "mu": sea.DynamicViscosity}
+	base := similarity.NewPlan(p).SameFluid("rho", "mu").SameGravity("g").Fix("L", 1/scale).Basis("rho", "V", "L")
+	if res.Compromise, err = base.Compromise(proto, similarity.Priority{Group: fr}, similarity.Priority{Group: re, MinModel: 1e6}); err != nil {
+		return nil, err
+	}
+	rep, err := similarity.NewReport(res.Compromise.Solution, similarity.ReportOptions{
+		Title: "Catamaran model plan", Prototype: proto, Units: map[string]string{"V": "kn", "mu": "mPa*s"},
+		Groups: set.Groups(), Compromise: res.Compromise})
+	if err != nil {
+		return nil, err
+	}
+	fmt.Fprint(w, rep.Text())
+
+	fmt.Fprintln(w, "\n5. A measured model resistance carried to full scale by Froude scaling alone")
+	vm, _ := res.Compromise.Solution.ToModel(proto["V"])
+	rm := q.New(30.9, q.Force) // invented reading at the model speed
+	if res.NaiveForce, err = res.Compromise.Solution.ToPrototype(rm); err != nil {
+		return nil, err
+	}
+	pr := units.Printer{Precision: 4}
+	fmt.Fprintf(w, "  model: V = %s, R = %s → ship %s (λ_F = λ_L³, ignoring the Reynolds number)\n",
+		must(pr.FormatIn(vm, units.MustParse("m/s"))), pr.Format(rm), must(pr.FormatIn(res.NaiveForce, units.MustParse("kN"))))
+
+	fmt.Fprintln(w, "\n6. The same reading extrapolated by the ITTC-1957 line (Froude's hypothesis)")
+	res.Extrapolate, err = similarity.ExtrapolateHull(similarity.HullTest{
+		Scale: 1 / scale, ModelLength: q.New(32/scale, q.Length), ModelWettedArea: q.New(414.7/(scale*scale), q.Area),
+		Speeds: []q.Quantity{vm}, Resistances: []q.Quantity{rm},
+		Tank: similarity.Water{Density: tank.Density, KinematicViscosity: tank.KinematicViscosity},
+		Sea:  similarity.Water{Density: sea.Density, KinematicViscosity: sea.KinematicViscosity}, Allowance: 0.0004})
+	if err != nil {
+		return nil, err
+	}
+	pt := res.Extrapolate.Points[0]
+	fmt.Fprintf(w, "  C_Tm = %.4f, C_Fm = %.4f, C_R = %.4f; ship C_Fs = %.4f, C_Ts = %.4f\n", pt.ModelCT*1e3, pt.ModelCF*1e3, pt.Residual*1e3, pt.ShipCF*1e3, pt.ShipCT*1e3)
+	fmt.Fprintln(w, "  (coefficients × 1000)")
+	fmt.Fprintf(w, "  ship resistance %s, effective power %s — the friction correction the held Froude number cannot give\n",
+		must(pr.FormatIn(pt.ShipResistance, units.MustParse("kN"))), must(pr.FormatIn(pt.EffectivePower, units.MustParse("kW"))))
+	fmt.Fprintln(w, "\nCAUTION:", similarity.HullCaution)
+	return res, nil
+}
+
+func must(s string, err error) string {
+	if err != nil {
+		return "(" + err.Error() + ")"
+	}
+	return s
+}

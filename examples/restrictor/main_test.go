@@ -1,0 +1,54 @@
+package main
+
+import (
+	"bytes"
+	"math"
+	"os"
+	"strings"
+	"testing"
+)
+
+func TestRunsAndPlots(t *testing.T) {
+	dir := t.TempDir()
+	var out bytes.Buffer
+	r, err := evaluate(&out, []string{"-out", dir})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, f := range []string{r.PNG, r.SVG} {
+		st, err := os.Stat(f)
+		if err != nil || st.Size() < 1000 {
+			t.Errorf("plot %s: %v", f, err)
+		}
+	}
+	for _, want := range []string{"invented data", "Π₁ = dp/(rho·V²)", "Π₂ = rho·V·d/mu", "95 % interval", "valid only over the range"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q:\n%s", want, out.String())
+		}
+	}
+	if err := run(&bytes.Buffer{}, []string{"-out", dir, "-repeat", "rho,d,L"}); err == nil {
+		t.Error("a dependent repeating set was accepted")
+	}
+}
+
+// TestByHand checks the groups of the first row: Q = 2 L/min through a
+// 6 mm bore gives V = (2e-3/60)/(π·0.006²/4) = 1.17893 m/s; Eu = Δp/(ρV²)
+// = 3280/(1050·V²); Re = ρVd/μ = 1050·V·0.006/2.2e-3; L/d = 2.
+func TestByHand(t *testing.T) {
+	r, err := evaluate(&bytes.Buffer{}, []string{"-out", t.TempDir()})
+	if err != nil {
+		t.Fatal(err)
+	}
+	v := (2e-3 / 60) / (math.Pi * 0.006 * 0.006 / 4)
+	want := []float64{3280 / (1050 * v * v), 1050 * v * 0.006 / 2.2e-3, 2}
+	for k, w := range want {
+		if math.Abs(r.Groups[0][k]/w-1) > 1e-12 {
+			t.Errorf("group %d = %v, by hand %v", k, r.Groups[0][k], w)
+		}
+	}
+	// The invented readings follow roughly Eu ∝ Re^-0.15·(L/d)^0.25; the
+	// fit should find exponents of that sign and size.
+	if a := r.Fit.Exponents; !(a[0] < 0 && a[0] > -0.5 && a[1] > 0.1 && a[1] < 0.4) {
+		t.Errorf("exponents %v", a)
+	}
+}

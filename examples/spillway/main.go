@@ -1,0 +1,129 @@
+// Command spillway plans a 1:30 Froude model of an invented river-intake
+// spillway: the model discharge, velocity, time and force scales, a
+// measured model time series of pressure on the chute floor carried to
+// prototype as a Series, and a distorted-scale variant for the river
+// reach upstream.
+//
+// The structure, the flows and the measurements are invented.
+//
+// Usage:
+//
+//	go run ./examples/spillway [-scale 30] [-q 450] [-hscale 120] [-vscale 30]
+package main
+
+import (
+	"flag"
+	"fmt"
+	"io"
+	"math"
+	"os"
+
+	q "similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
+	"similis.dev/similis/units"
+)
+
+func main() {
+	if err := run(os.Stdout, os.Args[1:]); err != nil {
+		fmt.Fprintln(os.Stderr, "spillway:", err)
+		os.Exit(2)
+	}
+}
+
+// Caution for hydraulic-structure reports.
+const caution = "A hydraulic model indicates prototype behaviour subject to scale effects (viscosity, surface tension, air entrainment); " +
+	"spillways and intakes are designed to the applicable dam-safety code and approved by licensed engineers."
+
+// Result holds the key numbers, for the test.
+type Result struct {
+	ModelDischarge, VelocityRatio, TimeRatio, ForceRatio float64
+	ProtoTimes, ProtoPressure                            q.Series
+	Distorted                                            similarity.Distorted
+	Manning                                              float64
+}
+
+// Invented model record: pressure on the chute floor (kPa gauge) sampled
+// at 20 Hz in the model.
+var record = []float64{3.10, 3.42, 2.95, 3.88, 4.20, 3.61, 3.05, 3.77, 4.41, 3.98}
+
+func run(w io.Writer, args []string) error { _, err := evaluate(w, args); return err }
+
+func evaluate(w io.Writer, args []string) (*Result, error) {
+	fs := flag.NewFlagSet("spillway", flag.ContinueOnError)
+	fs.SetOutput(w)
+	scale := fs.Float64("scale", 30, "prototype length over model length")
+	qp := fs.Float64("q", 450, "prototype design discharge, m³/s")
+	hs := fs.Float64("hscale", 120, "distorted variant: horizontal scale")
+	vs := fs.Float64("vscale", 30, "distorted variant: vertical scale")
+	if err := fs.Parse(args); err != nil {
+		return nil, err
+	}
+	if !(*scale > 1 && *qp > 0 && *hs > 1 && *vs > 1) {
+		return nil, fmt.Errorf("scales must exceed 1 and the discharge be positive")
+	}
+	s, err := similarity.Froude(1 / *scale, 1)
+	if err != nil {
+		return nil, err
+	}
+	r := &Result{}
+	ratio := func(d q.Dim) (similarity.Ratio, float64) {
+		x, _ := s.DerivedRatio(d)
+		return x, x.Value
+	}
+	fmt.Fprintf(w, "1:%g Froude model of an invented river-intake spillway\n\n", *scale)
+	fmt.Fprintln(w, "scale ratios, model/prototype:")
+	for _, c := range []struct {
+		name string
+		d    q.Dim
+	}{{"length", q.Length}, {"velocity", q.Velocity}, {"time", q.Time}, {"discharge", q.VolumeFlowRate},
+		{"force", q.Force}, {"pressure", q.Pressure}, {"power", q.Power}} {
+		x, _ := ratio(c.d)
+		fmt.Fprintf(w, "  %-10s %-12s 1:%.5g\n", c.name, x.Law, 1/x.Value)
+	}
+	_, qr := ratio(q.VolumeFlowRate)
+	_, r.VelocityRatio = ratio(q.Velocity)
+	_, r.TimeRatio = ratio(q.Time)
+	_, r.ForceRatio = ratio(q.Force)
+	r.ModelDischarge = *qp * qr
+	ls := units.MustParse("L/s")
+	qm, _ := ls.ValueOf(q.New(r.ModelDischarge, q.VolumeFlowRate))
+	fmt.Fprintf(w, "\ndesign discharge %g m³/s → model %.2f L/s\n", *qp, qm)
+
+	// The measured record: times and pressures carried to prototype.
+	dt := 1.0 / 20
+	times := make([]float64, len(record))
+	pa := make([]float64, len(record))
+	for i, v := range record {
+		times[i] = float64(i) * dt
+		pa[i] = v * 1000
+	}
+	if err := s.SeriesToPrototype(&r.ProtoTimes, q.NewSeries(times, q.Time)); err != nil {
+		return nil, err
+	}
+	if err := s.SeriesToPrototype(&r.ProtoPressure, q.NewSeries(pa, q.Pressure)); err != nil {
+		return nil, err
+	}
+	fmt.Fprintln(w, "\nchute-floor pressure record (invented), model → prototype:")
+	fmt.Fprintf(w, "  %8s %10s   %8s %10s\n", "t_m s", "p_m kPa", "t_p s", "p_p kPa")
+	for i := range record {
+		fmt.Fprintf(w, "  %8.3f %10.2f   %8.3f %10.2f\n", times[i], record[i], r.ProtoTimes.At(i).Value(), r.ProtoPressure.At(i).Value()/1000)
+	}
+	fmt.Fprintf(w, "  prototype mean %.1f kPa, peak %.1f kPa\n", r.ProtoPressure.Mean().Value()/1000, r.ProtoPressure.Max().Value()/1000)
+
+	r.Manning, _ = similarity.ManningRatio(1 / *scale)
+	fmt.Fprintf(w, "\nroughness: Manning n ratio λ_L^(1/6) = %.4f (a prototype n of 0.014 needs a model n of %.4f)\n", r.Manning, 0.014*r.Manning)
+
+	if r.Distorted, err = similarity.DistortedFroude(1 / *hs, 1 / *vs); err != nil {
+		return nil, err
+	}
+	d := r.Distorted
+	fmt.Fprintf(w, "\ndistorted variant for the approach reach: horizontal 1:%g, vertical 1:%g (exaggeration %.3g)\n", *hs, *vs, d.Distortion)
+	fmt.Fprintf(w, "  velocity 1:%.4g, time 1:%.4g, discharge 1:%.5g, slope ×%.3g, Manning n ×%.3f\n",
+		1/d.Velocity, 1/d.Time, 1/d.Discharge, d.Slope, d.Manning)
+	fmt.Fprintf(w, "  design discharge in the distorted model: %.2f L/s\n", *qp*d.Discharge*1000)
+	if math.IsNaN(d.Velocity) {
+		return nil, fmt.Errorf("distorted ratios undefined")
+	}
+	fmt.Fprintln(w, "\nCAUTION:", caution)
+	return r, nil
+}

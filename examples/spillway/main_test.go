@@ -1,0 +1,49 @@
+package main
+
+import (
+	"bytes"
+	"math"
+	"strings"
+	"testing"
+)
+
+func TestRuns(t *testing.T) {
+	var out bytes.Buffer
+	if err := run(&out, nil); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"invented", "λ_L^(5/2)", "CAUTION", "distorted"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+	if err := run(&bytes.Buffer{}, []string{"-scale", "1"}); err == nil {
+		t.Error("-scale 1 accepted")
+	}
+}
+
+// TestByHand: Froude scaling at 1:30 (common practice): Q_m = 450/30^2.5
+// m³/s = 91.29 L/s; times ×√30 and pressures ×30 at full scale; the
+// distorted 1:120/1:30 model has λ_V = 30^-½, λ_Q = 1/(120·30^1.5).
+func TestByHand(t *testing.T) {
+	r, err := evaluate(&bytes.Buffer{}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if want := 450 / math.Pow(30, 2.5); math.Abs(r.ModelDischarge/want-1) > 1e-12 {
+		t.Errorf("Q_m = %v, want %v", r.ModelDischarge, want)
+	}
+	if math.Abs(r.ProtoTimes.At(3).Value()-3*0.05*math.Sqrt(30)) > 1e-12 {
+		t.Errorf("t_p[3] = %v", r.ProtoTimes.At(3))
+	}
+	if math.Abs(r.ProtoPressure.At(4).Value()-4200*30) > 1e-8 {
+		t.Errorf("p_p[4] = %v", r.ProtoPressure.At(4))
+	}
+	if math.Abs(r.ForceRatio-math.Pow(30, -3)) > 1e-18 {
+		t.Errorf("λ_F = %v", r.ForceRatio)
+	}
+	d := r.Distorted
+	if math.Abs(d.Velocity-1/math.Sqrt(30)) > 1e-15 || math.Abs(d.Discharge*120*math.Pow(30, 1.5)-1) > 1e-12 {
+		t.Errorf("distorted: %+v", d)
+	}
+}

@@ -1,0 +1,127 @@
+// Command towingtank carries a towing-tank resistance test of a 1:16
+// model of a coastal research catamaran to full scale by the ITTC-1957
+// method, without and with a form factor found by Prohaska's method, and
+// prints full-scale resistance and effective power.
+//
+// The vessel and every measurement are invented for the demonstration.
+//
+// Usage:
+//
+//	go run ./examples/towingtank [-scale 16] [-tank 15] [-sea 15] [-ca 0.0004] [-maxfn 0.2]
+package main
+
+import (
+	"flag"
+	"fmt"
+	"io"
+	"os"
+
+	q "similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
+	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/units"
+)
+
+func main() {
+	if err := run(os.Stdout, os.Args[1:]); err != nil {
+		fmt.Fprintln(os.Stderr, "towingtank:", err)
+		os.Exit(2)
+	}
+}
+
+// Invented model data: a 2.0 m catamaran model (both demi-hulls), wetted
+// surface 1.62 m², towed at eight speeds.
+var (
+	modelLength = 2.0                                                               // m, waterline
+	modelArea   = 1.62                                                              // m², wetted, both hulls
+	speeds      = []float64{0.50, 0.65, 0.80, 1.00, 1.30, 1.60, 2.00, 2.40}         // m/s
+	resistances = []float64{1.105, 1.778, 2.600, 4.055, 7.270, 12.14, 22.30, 38.10} // N
+)
+
+// Outcome holds the two extrapolations, for the test.
+type Outcome struct {
+	Plain, WithForm *similarity.HullResult
+	Form            similarity.ProhaskaResult
+}
+
+func run(w io.Writer, args []string) error {
+	_, err := evaluate(w, args)
+	return err
+}
+
+func evaluate(w io.Writer, args []string) (*Outcome, error) {
+	fs := flag.NewFlagSet("towingtank", flag.ContinueOnError)
+	fs.SetOutput(w)
+	scale := fs.Float64("scale", 16, "ship length over model length")
+	tankT := fs.Float64("tank", 15, "tank water temperature, °C")
+	seaT := fs.Float64("sea", 15, "sea water temperature, °C")
+	ca := fs.Float64("ca", 0.0004, "roughness and correlation allowance C_A")
+	maxFn := fs.Float64("maxfn", 0.2, "highest Froude number used for the form factor")
+	if err := fs.Parse(args); err != nil {
+		return nil, err
+	}
+	if !(*scale > 1) {
+		return nil, fmt.Errorf("-scale %v: want a ship larger than its model", *scale)
+	}
+	tank, err := fluids.FreshWater.AtCelsius(*tankT)
+	if err != nil {
+		return nil, err
+	}
+	sea, err := fluids.SeaWater.AtCelsius(*seaT)
+	if err != nil {
+		return nil, err
+	}
+	test := similarity.HullTest{
+		Scale: 1 / *scale, ModelLength: q.New(modelLength, q.Length), ModelWettedArea: q.New(modelArea, q.Area),
+		Tank:      similarity.Water{Density: tank.Density, KinematicViscosity: tank.KinematicViscosity},
+		Sea:       similarity.Water{Density: sea.Density, KinematicViscosity: sea.KinematicViscosity},
+		Allowance: *ca,
+	}
+	for i := range speeds {
+		test.Speeds = append(test.Speeds, q.New(speeds[i], q.Velocity))
+		test.Resistances = append(test.Resistances, q.New(resistances[i], q.Force))
+	}
+	out := &Outcome{}
+	if out.Plain, err = similarity.ExtrapolateHull(test); err != nil {
+		return nil, err
+	}
+	if out.Form, err = similarity.ProhaskaFromTest(test, *maxFn); err != nil {
+		return nil, err
+	}
+	test.FormFactor = out.Form.FormFactor
+	if out.WithForm, err = similarity.ExtrapolateHull(test); err != nil {
+		return nil, err
+	}
+	kn := units.MustParse("kn")
+	p := units.Printer{Precision: 4}
+	fmt.Fprintf(w, "Towing-tank extrapolation, 1:%g model of a coastal research catamaran (invented data)\n", *scale)
+	fmt.Fprintf(w, "model L = %.3g m, S = %.3g m²; ship L = %.4g m, S = %.4g m²\n", modelLength, modelArea,
+		out.Plain.ShipLength.Value(), out.Plain.ShipWettedArea.Value())
+	fmt.Fprintf(w, "tank: fresh water %g °C, ρ = %.2f kg/m³, ν = %.4e m²/s; sea: %g °C, ρ = %.2f kg/m³, ν = %.4e m²/s\n",
+		*tankT, tank.Density.Value(), tank.KinematicViscosity.Value(), *seaT, sea.Density.Value(), sea.KinematicViscosity.Value())
+	fmt.Fprintf(w, "form factor by Prohaska (%d runs at Fn ≤ %g): 1 + k = %.3f (R² = %.3f); C_A = %g\n\n",
+		out.Form.Points, out.Form.MaxFroude, out.Form.FormFactor, out.Form.R2, *ca)
+	fmt.Fprintf(w, "%6s %6s %8s %9s %9s %8s | %7s %9s %9s | %9s %9s\n", "Vm m/s", "Fn", "Rm N", "C_Tm×1e3", "C_Fm×1e3", "C_R×1e3",
+		"Vs kn", "R_s kN", "P_E kW", "R_s kN", "P_E kW")
+	fmt.Fprintf(w, "%62s %19s   %19s\n", "", "ITTC-1957", "with 1 + k")
+	for i, a := range out.Plain.Points {
+		b := out.WithForm.Points[i]
+		vs, _ := kn.ValueOf(a.ShipSpeed)
+		fmt.Fprintf(w, "%6.2f %6.3f %8.3f %9.3f %9.3f %8.3f | %7.2f %9.2f %9.1f | %9.2f %9.1f\n",
+			speeds[i], a.Froude, resistances[i], a.ModelCT*1e3, a.ModelCF*1e3, a.Residual*1e3,
+			vs, a.ShipResistance.Value()/1e3, a.EffectivePower.Value()/1e3, b.ShipResistance.Value()/1e3, b.EffectivePower.Value()/1e3)
+	}
+	top := out.WithForm.Points[len(out.WithForm.Points)-1]
+	fmt.Fprintf(w, "\nat the top speed, with the form factor: R = %s, P_E = %s\n",
+		mustFormat(p, top.ShipResistance, "kN"), mustFormat(p, top.EffectivePower, "kW"))
+	fmt.Fprintln(w, "\nCAUTION:", similarity.HullCaution)
+	return out, nil
+}
+
+func mustFormat(p units.Printer, v q.Quantity, unit string) string {
+	s, err := p.FormatIn(v, units.MustParse(unit))
+	if err != nil {
+		return v.String()
+	}
+	return s
+}

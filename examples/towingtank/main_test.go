@@ -1,0 +1,59 @@
+package main
+
+import (
+	"bytes"
+	"math"
+	"strings"
+	"testing"
+)
+
+func TestRuns(t *testing.T) {
+	var out bytes.Buffer
+	if err := run(&out, nil); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"invented data", "1 + k =", "CAUTION:", "ITTC-1957"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+	if err := run(&bytes.Buffer{}, []string{"-scale", "0.5"}); err == nil {
+		t.Error("-scale 0.5 accepted")
+	}
+}
+
+// TestByHand repeats the ITTC-1957 steps for the fourth run (1.00 m/s)
+// by hand, with the water properties the example reports.
+func TestByHand(t *testing.T) {
+	o, err := evaluate(&bytes.Buffer{}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := o.Plain.Points[3]
+	nuM := o.Plain.Test.Tank.KinematicViscosity.Value()
+	rhoM := o.Plain.Test.Tank.Density.Value()
+	nuS := o.Plain.Test.Sea.KinematicViscosity.Value()
+	rhoS := o.Plain.Test.Sea.Density.Value()
+	Vm, Lm, Sm, R := 1.00, 2.0, 1.62, 4.055
+	fn := Vm / math.Sqrt(9.80665*Lm)
+	cf := func(re float64) float64 { d := math.Log10(re) - 2; return 0.075 / (d * d) }
+	ctm := R / (0.5 * rhoM * Vm * Vm * Sm)
+	cfm := cf(Vm * Lm / nuM)
+	cr := ctm - cfm
+	Vs := Vm * 4 // √16
+	cfs := cf(Vs * 32 / nuS)
+	cts := cfs + cr + 0.0004
+	Rs := cts * 0.5 * rhoS * Vs * Vs * Sm * 256
+	got := []float64{p.Froude, p.ModelCT, p.ModelCF, p.ShipSpeed.Value(), p.ShipResistance.Value(), p.EffectivePower.Value()}
+	want := []float64{fn, ctm, cfm, Vs, Rs, Rs * Vs}
+	for i := range got {
+		if math.Abs(got[i]/want[i]-1) > 1e-12 {
+			t.Errorf("quantity %d: %v, by hand %v", i, got[i], want[i])
+		}
+	}
+	// With the form factor the ship resistance is lower: (1 + k) > 1 moves
+	// part of C_R to the frictional part, which falls with Re.
+	if !(o.Form.FormFactor > 1 && o.Form.FormFactor < 1.5) || !(o.WithForm.Points[3].ShipResistance.Value() < Rs) {
+		t.Errorf("form factor %v, R with form %v", o.Form.FormFactor, o.WithForm.Points[3].ShipResistance)
+	}
+}

@@ -1,0 +1,137 @@
+// Command tunnel plans wind-tunnel tests of an invented high-altitude
+// survey aircraft cruising at 18 km in the ISO 2533 standard atmosphere:
+// the Mach number held with the Reynolds number left to float in an
+// ordinary tunnel, then the temperature and pressure a pressurised or a
+// cooled tunnel would need to hold both.
+//
+// The aircraft and the tunnels are invented for the demonstration.
+//
+// Usage:
+//
+//	go run ./examples/tunnel [-alt 18000] [-mach 0.62] [-chord 2.4] [-scale 12]
+package main
+
+import (
+	"flag"
+	"fmt"
+	"io"
+	"os"
+
+	"similis.dev/similis/pigroups"
+	q "similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
+	"similis.dev/similis/similarity/fluids"
+)
+
+func main() {
+	if err := run(os.Stdout, os.Args[1:]); err != nil {
+		fmt.Fprintln(os.Stderr, "tunnel:", err)
+		os.Exit(2)
+	}
+}
+
+// Result collects the key numbers, for the test.
+type Result struct {
+	Flight                 fluids.State
+	Speed, Chord           float64
+	ReFlight, ReOrdinary   float64
+	OrdinarySpeed          float64
+	Pressurised, Cryogenic similarity.TunnelCondition
+	Compromise             *similarity.Compromise
+}
+
+func run(w io.Writer, args []string) error { _, err := evaluate(w, args); return err }
+
+func evaluate(w io.Writer, args []string) (*Result, error) {
+	fs := flag.NewFlagSet("tunnel", flag.ContinueOnError)
+	fs.SetOutput(w)
+	alt := fs.Float64("alt", 18000, "cruise altitude, m (geometric)")
+	mach := fs.Float64("mach", 0.62, "cruise Mach number")
+	chord := fs.Float64("chord", 2.4, "mean aerodynamic chord, m")
+	scale := fs.Float64("scale", 12, "aircraft size over model size")
+	if err := fs.Parse(args); err != nil {
+		return nil, err
+	}
+	if !(*scale > 1) || !(*mach > 0 && *mach < 1) || !(*chord > 0) {
+		return nil, fmt.Errorf("want -scale > 1, 0 < -mach < 1 and -chord > 0")
+	}
+	flight, err := fluids.StandardAtmosphere(fluids.Geopotential(*alt))
+	if err != nil {
+		return nil, err
+	}
+	r := &Result{Flight: flight, Chord: *chord}
+	r.Speed = *mach * flight.SpeedOfSound.Value()
+	r.ReFlight = flight.Density.Value() * r.Speed * *chord / flight.DynamicViscosity.Value()
+
+	fmt.Fprintln(w, "Wind-tunnel plan for an invented high-altitude survey aircraft")
+	fmt.Fprintf(w, "cruise: %.0f m (geopotential %.0f m), ISO 2533: T = %.2f K, p = %.0f Pa, ρ = %.5f kg/m³, a = %.2f m/s\n",
+		*alt, fluids.Geopotential(*alt), flight.Temperature.Value(), flight.Pressure.Value(), flight.Density.Value(), flight.SpeedOfSound.Value())
+	fmt.Fprintf(w, "Ma = %.2f, V = %.1f m/s, chord %.2f m: Re = %.3e\n\n", *mach, r.Speed, *chord, r.ReFlight)
+
+	// The plan: V, a, c, ρ, μ with the Mach number first, the Reynolds
+	// number second; an ordinary tunnel at sea-level air fixes a, ρ, μ.
+	p := pigroups.MustProblem(
+		pigroups.Dep("F", q.Force).WithKind("force"),
+		pigroups.VarKind("V", q.Velocity, "velocity"), pigroups.VarKind("a", q.Velocity, "speed of sound"),
+		pigroups.VarKind("c", q.Length, "length"), pigroups.VarKind("rho", q.Density, "density"),
+		pigroups.VarKind("mu", q.DynamicViscosity, "dynamic viscosity"))
+	set, err := p.PiSet("V", "c", "rho")
+	if err != nil {
+		return nil, err
+	}
+	var ma, re pigroups.Group
+	for _, g := range set.Groups() {
+		switch {
+		case len(g.Matches) > 0 && g.Matches[0].Symbol == "Ma":
+			ma = g
+		case len(g.Matches) > 0 && g.Matches[0].Symbol == "Re":
+			re = g
+		}
+	}
+	ground, _ := fluids.Air.At(q.New(288.15, q.Temperature), q.New(101325, q.Pressure))
+	plan := similarity.NewPlan(p).Fix("c", 1 / *scale).
+		Fix("a", ground.SpeedOfSound.Value()/flight.SpeedOfSound.Value()).
+		Fix("rho", ground.Density.Value()/flight.Density.Value()).
+		Fix("mu", ground.DynamicViscosity.Value()/flight.DynamicViscosity.Value()).Basis("V", "c", "rho")
+	proto := map[string]q.Quantity{"V": q.New(r.Speed, q.Velocity), "a": flight.SpeedOfSound, "c": q.New(*chord, q.Length),
+		"rho": flight.Density, "mu": flight.DynamicViscosity}
+	c, err := plan.Compromise(proto, similarity.Priority{Group: ma}, similarity.Priority{Group: re, MinModel: 1e6})
+	if err != nil {
+		return nil, err
+	}
+	r.Compromise = c
+	vr, _ := c.Solution.Ratio("V")
+	r.OrdinarySpeed = r.Speed * vr.Value
+	r.ReOrdinary = c.Floating[0].Model
+	rep, err := similarity.NewReport(c.Solution, similarity.ReportOptions{
+		Title: fmt.Sprintf("1:%g model in an ordinary tunnel (sea-level air)", *scale), Prototype: proto,
+		Units: map[string]string{"V": "m/s", "mu": "uPa*s"}, Groups: set.Groups(), Compromise: c,
+	})
+	if err != nil {
+		return nil, err
+	}
+	fmt.Fprint(w, rep.Text())
+
+	V := q.New(r.Speed, q.Velocity)
+	L := q.New(*chord, q.Length)
+	pressurised := similarity.TunnelLimits{MinTemperature: q.New(280, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(4e5, q.Pressure)}
+	cryo := similarity.TunnelLimits{MinTemperature: q.New(110, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+		MinPressure: q.New(1e5, q.Pressure), MaxPressure: q.New(4.5e5, q.Pressure)}
+	if r.Pressurised, err = similarity.FindTunnelCondition(fluids.Air, flight, V, L, 1 / *scale, pressurised); err != nil {
+		return nil, err
+	}
+	if r.Cryogenic, err = similarity.FindTunnelCondition(fluids.Air, flight, V, L, 1 / *scale, cryo); err != nil {
+		return nil, err
+	}
+	fmt.Fprintln(w, "\nHolding both Mach and Reynolds numbers:")
+	for _, t := range []struct {
+		name string
+		c    similarity.TunnelCondition
+	}{{"pressurised tunnel (280–320 K, ≤ 4 bar)", r.Pressurised}, {"cryogenic tunnel (≥ 110 K, 1–4.5 bar)", r.Cryogenic}} {
+		fmt.Fprintf(w, "  %s: T = %.1f K, p = %.3f bar, V = %.1f m/s, Re_m/Re = %.3f — %s\n", t.name,
+			t.c.Temperature.Value(), t.c.Pressure.Value()/1e5, t.c.Velocity.Value(), t.c.ReynoldsRatio, t.c.Note)
+	}
+	fmt.Fprintln(w, "\nCAUTION:", similarity.TunnelCaution)
+	return r, nil
+}
