@@ -16,8 +16,11 @@
 //     printing and physical constants.
 //   - pigroups: Buckingham Pi sets from a chosen repeating set, named
 //     groups, evaluation over data and power-law fitting.
-//   - similarity: scale ratios, test plans and their conflicts, rules of
-//     similitude, extrapolation to full scale, fluid states.
+//   - similarity: scale ratios, test plans and their conflicts, the
+//     compromise, transfer of model data, rules of similitude,
+//     extrapolation to full scale (ITTC-1957, Prohaska, Moody), condition
+//     finders and reports; similarity/fluids gives water, air and the
+//     ISO 2533 atmosphere.
 //   - internal/...: shared machinery such as exact rational linear algebra.
 //   - examples/...: runnable programs on invented data.
 //
@@ -34,8 +37,11 @@
 //
 // # Where to start
 //
-// Run the main demo, go run ./examples/quickstart, then read the package
-// documentation of quantity.
+// Run the main demo, go run ./examples/quickstart, which walks the whole
+// job from variables to an extrapolated full-scale result. Then read, in
+// order, the package documentation of quantity (the error model), units
+// (the grammar), pigroups and similarity; each has runnable Examples. The
+// other programs in examples/ are scenarios of single tasks.
 //
 // # Caution
 //

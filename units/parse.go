@@ -307,11 +307,18 @@ func (p *parser) mulOp() int {
 	if p.i >= len(p.s) {
 		return 0
 	}
-	if p.s[p.i] == '*' && !strings.HasPrefix(p.s[p.i:], "**") {
+	switch c := p.s[p.i]; {
+	case c == '*':
+		if p.i+1 < len(p.s) && p.s[p.i+1] == '*' {
+			return 0
+		}
 		return 1
+	case c < utf8.RuneSelf:
+		return 0
 	}
-	for _, op := range []string{"·", "⋅", "×"} {
-		if strings.HasPrefix(p.s[p.i:], op) {
+	rest := p.s[p.i:]
+	for _, op := range [...]string{"·", "⋅", "×"} {
+		if strings.HasPrefix(rest, op) {
 			return len(op)
 		}
 	}
@@ -458,7 +465,19 @@ func (p *parser) raise(at int, v val, num, den int) (val, error) {
 	if (v.angle*num)%den != 0 || (v.solid*num)%den != 0 {
 		return val{}, p.fail(at, ErrExponent, "a fractional power of an angle unit")
 	}
-	f := math.Pow(v.factor, float64(num)/float64(den))
+	var f float64
+	switch {
+	case den == 1 && num == 2:
+		f = v.factor * v.factor
+	case den == 1 && num == 3:
+		f = v.factor * v.factor * v.factor
+	case den == 1 && num == -1:
+		f = 1 / v.factor
+	case den == 1 && num == 1:
+		f = v.factor
+	default:
+		f = math.Pow(v.factor, float64(num)/float64(den))
+	}
 	if f == 0 || math.IsInf(f, 0) || math.IsNaN(f) {
 		return val{}, p.fail(at, ErrNumber, "the unit's factor overflows")
 	}

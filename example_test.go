@@ -1,0 +1,67 @@
+package similis_test
+
+// The README's tour, one Example per package, so that every snippet there
+// compiles and its output is checked.
+
+import (
+	"fmt"
+
+	"similis.dev/similis/pigroups"
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
+	"similis.dev/similis/units"
+)
+
+func Example_quantity() {
+	rho := quantity.New(998.2, quantity.Density)
+	v := quantity.New(2.0, quantity.Velocity)
+	d := quantity.New(0.05, quantity.Length)
+	mu := quantity.New(1.0016e-3, quantity.DynamicViscosity)
+	re := rho.Mul(v).Mul(d).Div(mu)
+	fmt.Printf("Re = %.4g, dimensionless: %v\n", re.Value(), re.IsDimensionless())
+
+	nu := quantity.New(1.0034e-6, quantity.KinematicViscosity)
+	_, err := quantity.Eval(func() quantity.Quantity { return quantity.Log10(rho.Mul(v).Mul(d).Div(nu)) })
+	fmt.Println(err)
+	// Output:
+	// Re = 9.966e+04, dimensionless: true
+	// cannot take the logarithm of density [kg·m⁻³]: the argument must be dimensionless
+}
+
+func Example_units() {
+	kpa, _ := units.Convert(14.7, "psi", "kPa")
+	h, _ := units.Convert(1, "BTU/(h*ft^2*degF)", "W/(m²·K)")
+	t, _ := units.ParseQuantity("20 °C")
+	fmt.Printf("%.4f kPa, %.6f W/(m²·K), %v\n", kpa, h, t)
+	_, err := units.Convert(1500, "rpm", "Hz")
+	fmt.Println(err != nil)
+	// Output:
+	// 101.3529 kPa, 5.678263 W/(m²·K), 293.15 K
+	// true
+}
+
+func Example_pigroups() {
+	p := pigroups.MustProblem(
+		pigroups.Dep("Δp", quantity.Pressure).WithKind("pressure difference"),
+		pigroups.Var("ρ", quantity.Density), pigroups.Var("V", quantity.Velocity),
+		pigroups.Var("D", quantity.Length), pigroups.Var("μ", quantity.DynamicViscosity),
+		pigroups.Var("ε", quantity.Length))
+	s, _ := p.PiSet("ρ", "V", "D")
+	fmt.Print(s)
+	// Output:
+	// Π₁ = Δp/(ρ·V²)   Eu (Euler number)
+	// Π₂ = μ/(ρ·V·D)   1/Re (Reynolds number; conventional form Re)
+	// Π₃ = ε/D
+}
+
+func Example_similarity() {
+	s, _ := similarity.Froude(1.0/25, 1) // a 1:25 model in the same water
+	for _, d := range []quantity.Dim{quantity.Velocity, quantity.Force, quantity.Power} {
+		r, _ := s.DerivedRatio(d)
+		fmt.Println(quantity.KindName(d), r)
+	}
+	// Output:
+	// velocity λ_L^(1/2) = 0.2
+	// force λ_L³ = 6.4e-05
+	// power λ_L^(7/2) = 1.28e-05
+}
