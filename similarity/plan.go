@@ -10,6 +10,8 @@ import (
 	"similis.dev/similis/internal/exact"
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/units"
 )
 
 type consKind uint8
@@ -727,4 +729,60 @@ func (s *Solution) VariableToPrototype(symbol string, q quantity.Quantity) (quan
 		return quantity.Quantity{}, fmt.Errorf("similarity: λ_%s: %w (%s)", symbol, ErrUnknownRatio, r.Law)
 	}
 	return q.Scale(1 / r.Value), nil
+}
+
+// FixFluids fixes the fluid-property ratios from actual fluid states on
+// each side: the density ratio, the dynamic-viscosity ratio and, when
+// both states have one and a symbol is given, the speed-of-sound ratio.
+// An empty symbol skips that property.
+func (pl *Plan) FixFluids(model, prototype fluids.State, density, viscosity, sound string) *Plan {
+	ratio := func(m, p quantity.Quantity) float64 { return m.Value() / p.Value() }
+	if density != "" {
+		pl.Fix(density, ratio(model.Density, prototype.Density))
+	}
+	if viscosity != "" {
+		pl.Fix(viscosity, ratio(model.DynamicViscosity, prototype.DynamicViscosity))
+	}
+	if sound != "" {
+		if model.SpeedOfSound.Value() <= 0 || prototype.SpeedOfSound.Value() <= 0 {
+			return pl.fail("fix %s: a fluid state has no speed of sound", sound)
+		}
+		pl.Fix(sound, ratio(model.SpeedOfSound, prototype.SpeedOfSound))
+	}
+	return pl
+}
+
+// SetPoints turns a prototype operating point, given by variable symbol,
+// into model set points in the units chosen by symbol ("kn", "rpm",
+// "L/s"); variables without a unit are given in SI. Every variable of the
+// operating point must have a known ratio.
+func (s *Solution) SetPoints(prototype map[string]quantity.Quantity, unitOf map[string]string) (map[string]units.Value, error) {
+	out := make(map[string]units.Value, len(prototype))
+	for sym, q := range prototype {
+		i := s.plan.index(sym)
+		if i < 0 {
+			return nil, &PlanError{Reason: fmt.Sprintf("set points: unknown variable %q", sym)}
+		}
+		if err := q.CheckNamed(sym, s.plan.vars[i].Dim); err != nil {
+			return nil, err
+		}
+		r, _ := s.Ratio(sym)
+		if math.IsNaN(r.Value) {
+			return nil, fmt.Errorf("similarity: set point for %s: %w (%s)", sym, ErrUnknownRatio, r.Law)
+		}
+		m := q.Scale(r.Value)
+		u := units.BaseUnit(m.Dim())
+		if name, ok := unitOf[sym]; ok {
+			var err error
+			if u, err = units.Parse(name); err != nil {
+				return nil, fmt.Errorf("similarity: set point unit for %s: %w", sym, err)
+			}
+		}
+		v, err := u.ValueOf(m)
+		if err != nil {
+			return nil, err
+		}
+		out[sym] = units.Value{Number: v, Unit: u}
+	}
+	return out, nil
 }

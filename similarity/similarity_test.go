@@ -404,3 +404,30 @@ func TestTunnelFinder(t *testing.T) {
 		t.Errorf("TemperatureFor = %v, %v", T, err)
 	}
 }
+
+// TestFluidStatesAndSetPoints: a Reynolds plan from actual water states
+// (a model in 40 °C water, the prototype in 10 °C water) and model set
+// points in chosen units.
+func TestFluidStatesAndSetPoints(t *testing.T) {
+	warm, _ := fluids.FreshWater.AtCelsius(40)
+	cold, _ := fluids.FreshWater.AtCelsius(10)
+	p := pigroups.MustProblem(pigroups.Var("V", q.Velocity), pigroups.Var("L", q.Length),
+		pigroups.Var("rho", q.Density), pigroups.Var("mu", q.DynamicViscosity))
+	s, err := similarity.NewPlan(p).HoldExps("the Reynolds number", map[string]int{"rho": 1, "V": 1, "L": 1, "mu": -1}).
+		Fix("L", 0.2).FixFluids(warm, cold, "rho", "mu", "").Basis("V", "L", "rho").Solve()
+	if err != nil {
+		t.Fatal(err)
+	}
+	sp, err := s.SetPoints(map[string]q.Quantity{"V": q.New(1.5, q.Velocity), "L": q.New(2, q.Length)}, map[string]string{"V": "m/s", "L": "mm"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	// By hand: V_m = V_p·(ν_m/ν_p)/λ_L.
+	want := 1.5 * (warm.KinematicViscosity.Value() / cold.KinematicViscosity.Value()) / 0.2
+	if math.Abs(sp["V"].Number/want-1) > 1e-12 || math.Abs(sp["L"].Number-400) > 1e-9 || sp["L"].Unit.String() != "mm" {
+		t.Errorf("set points %v, want V = %v m/s", sp, want)
+	}
+	if _, err := s.SetPoints(map[string]q.Quantity{"V": q.New(1.5, q.Length)}, nil); err == nil {
+		t.Error("a set point with the wrong dimension was accepted")
+	}
+}
