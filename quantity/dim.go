@@ -308,99 +308,64 @@ func caret(sb *strings.Builder, n, d int) {
 	sb.WriteString(strconv.Itoa(n))
 }
 
+// spelling is one way of writing a Dim.
+type spelling struct {
+	order   [NumBases]Base
+	symbols *[NumBases]string
+	sep     string
+	sup     bool // Unicode superscripts rather than ^n
+}
+
+var (
+	isoOrder      = [NumBases]Base{BaseL, BaseM, BaseT, BaseI, BaseTheta, BaseN, BaseJ}
+	spellISO      = spelling{isoOrder, &baseSymbol, " ", true}
+	spellISOASCII = spelling{isoOrder, &baseSymbolASCII, " ", false}
+	spellSI       = spelling{unitOrder, &baseUnit, "·", true}
+	spellSIASCII  = spelling{unitOrder, &baseUnit, " ", false}
+)
+
+func (d Dim) spell(sp spelling) string {
+	if d.bits == 0 {
+		return "1"
+	}
+	var sb strings.Builder
+	for _, b := range sp.order {
+		n, den := d.Exp(b)
+		if n == 0 {
+			continue
+		}
+		if sb.Len() > 0 {
+			sb.WriteString(sp.sep)
+		}
+		sb.WriteString(sp.symbols[b])
+		switch {
+		case n == 1 && den == 1:
+		case sp.sup:
+			superscript(&sb, n, den)
+		default:
+			caret(&sb, n, den)
+		}
+	}
+	return sb.String()
+}
+
 // String returns the ISO 80000 dimension form, base symbols in ISO order
 // separated by spaces with Unicode superscripts: "L⁻¹ M T⁻²". Fractional
 // exponents are written in parentheses, "L^(-1/2) M T⁻²"; the dimension one
 // is "1".
-func (d Dim) String() string {
-	if d.bits == 0 {
-		return "1"
-	}
-	var sb strings.Builder
-	for b := Base(0); b < NumBases; b++ {
-		n, den := d.Exp(b)
-		if n == 0 {
-			continue
-		}
-		if sb.Len() > 0 {
-			sb.WriteByte(' ')
-		}
-		sb.WriteString(baseSymbol[b])
-		if n != 1 || den != 1 {
-			superscript(&sb, n, den)
-		}
-	}
-	return sb.String()
-}
+func (d Dim) String() string { return d.spell(spellISO) }
 
 // ASCII returns the ISO dimension form in ASCII: "L^-1 M T^-2", with Θ
 // written "Th".
-func (d Dim) ASCII() string {
-	if d.bits == 0 {
-		return "1"
-	}
-	var sb strings.Builder
-	for b := Base(0); b < NumBases; b++ {
-		n, den := d.Exp(b)
-		if n == 0 {
-			continue
-		}
-		if sb.Len() > 0 {
-			sb.WriteByte(' ')
-		}
-		sb.WriteString(baseSymbolASCII[b])
-		if n != 1 || den != 1 {
-			caret(&sb, n, den)
-		}
-	}
-	return sb.String()
-}
+func (d Dim) ASCII() string { return d.spell(spellISOASCII) }
 
 // SIUnit returns d written in SI base units with a middle dot and Unicode
 // superscripts, kg first: "kg·m⁻¹·s⁻²". The dimension one is "1".
-func (d Dim) SIUnit() string {
-	if d.bits == 0 {
-		return "1"
-	}
-	var sb strings.Builder
-	for _, b := range unitOrder {
-		n, den := d.Exp(b)
-		if n == 0 {
-			continue
-		}
-		if sb.Len() > 0 {
-			sb.WriteString("·")
-		}
-		sb.WriteString(baseUnit[b])
-		if n != 1 || den != 1 {
-			superscript(&sb, n, den)
-		}
-	}
-	return sb.String()
-}
+func (d Dim) SIUnit() string { return d.spell(spellSI) }
 
 // SIUnitASCII returns d in SI base units in ASCII, for logs and CSV
 // headers: "kg m^-1 s^-2".
-func (d Dim) SIUnitASCII() string {
-	if d.bits == 0 {
-		return "1"
-	}
-	var sb strings.Builder
-	for _, b := range unitOrder {
-		n, den := d.Exp(b)
-		if n == 0 {
-			continue
-		}
-		if sb.Len() > 0 {
-			sb.WriteByte(' ')
-		}
-		sb.WriteString(baseUnit[b])
-		if n != 1 || den != 1 {
-			caret(&sb, n, den)
-		}
-	}
-	return sb.String()
-}
+func (d Dim) SIUnitASCII() string { return d.spell(spellSIASCII) }
 
 // MarshalText encodes d in the ASCII dimension form, which ParseDim reads.
 func (d Dim) MarshalText() ([]byte, error) { return []byte(d.ASCII()), nil }

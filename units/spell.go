@@ -66,29 +66,10 @@ func mergeTerms(a, b terms, sign int) (terms, error) {
 	return slices.DeleteFunc(a, func(x term) bool { return x.num == 0 }), nil
 }
 
-// combineTerms returns a·b^sign, merging repeated symbols.
+// combineTerms returns a·b^sign, merging repeated symbols, without
+// changing a.
 func combineTerms(a, b terms, sign int) (terms, error) {
-	out := make(terms, 0, len(a)+len(b))
-	out = append(out, a...)
-	for _, x := range b {
-		x.num *= sign
-		found := false
-		for i := range out {
-			if out[i].sym == x.sym && out[i].number == x.number {
-				n, d := reduce(out[i].num*x.den+x.num*out[i].den, out[i].den*x.den)
-				if n > 4*MaxExpAbs || n < -4*MaxExpAbs || d > MaxExpDen*MaxExpDen {
-					return nil, fmt.Errorf("exponent of %s out of range", x.sym)
-				}
-				out[i].num, out[i].den = n, d
-				found = true
-				break
-			}
-		}
-		if !found {
-			out = append(out, x)
-		}
-	}
-	return slices.DeleteFunc(out, func(x term) bool { return x.num == 0 }), nil
+	return mergeTerms(append(make(terms, 0, len(a)+len(b)), a...), b, sign)
 }
 
 // termsOf recovers the spelling terms of a unit from its canonical ASCII
