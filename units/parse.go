@@ -165,11 +165,6 @@ type val struct {
 	dim          quantity.Dim
 	angle, solid int
 	lo, hi       int // this value's terms are p.terms[lo:hi]
-	// single is set when the value is one symbol to the power one; temp
-	// and offset are then that symbol's temperature role and offset.
-	single bool
-	temp   tempRole
-	offset float64
 }
 
 type parser struct {
@@ -283,8 +278,19 @@ func (p *parser) unit(v val) (Unit, error) {
 		return Unit{}, p.fail(0, ErrExponent, err.Error())
 	}
 	u := Unit{dim: v.dim, factor: v.factor, angle: int8(v.angle), solid: int8(v.solid), sym: t.spell(styleASCII)}
-	if v.single {
-		u.temp, u.offset = v.temp, v.offset
+	// The temperature role follows from the final spelling, so that a unit
+	// and its spelling always agree: one symbol to the power one keeps its
+	// role (a bare °C is a scale, a bare Δ°C an interval); anything else
+	// is an interval.
+	if len(t) == 1 && t[0].num == 1 && t[0].den == 1 && !t[0].number {
+		if e, ok := p.tab.lookup(t[0].sym); ok {
+			switch {
+			case e.scaleSym:
+				u.temp, u.offset = tempScale, e.u.offset
+			case e.u.temp == tempInterval:
+				u.temp = tempInterval
+			}
+		}
 	}
 	return u, nil
 }
@@ -487,15 +493,12 @@ func (p *parser) raise(at int, v val, num, den int) (val, error) {
 	}
 	for i := v.lo; i < v.hi; i++ {
 		n, d := reduce(p.terms[i].num*num, p.terms[i].den*den)
-		if n > 4*MaxExpAbs*d || n < -4*MaxExpAbs*d || d > MaxExpDen*MaxExpDen {
-			return val{}, p.fail(at, ErrExponent, "an exponent is out of range")
+		if !p.terms[i].number && (n > MaxExpAbs*d || n < -MaxExpAbs*d || d > MaxExpDen) {
+			return val{}, p.fail(at, ErrExponent, fmt.Sprintf("the exponent of %s would be %s, outside ±%d with denominator at most %d", p.terms[i].sym, ratText(n, d), MaxExpAbs, MaxExpDen))
 		}
 		p.terms[i].num, p.terms[i].den = n, d
 	}
 	out := val{factor: f, dim: d, angle: angle, solid: solid, lo: v.lo, hi: v.hi}
-	if num == 1 && den == 1 {
-		out.single, out.temp, out.offset = v.single, v.temp, v.offset
-	}
 	return out, nil
 }
 
@@ -576,13 +579,7 @@ func (p *parser) symbol() (val, error) {
 	p.terms = append(p.terms, term{sym: e.u.sym, num: 1, den: 1})
 	v := val{
 		factor: e.u.factor, dim: e.u.dim, angle: int(e.u.angle), solid: int(e.u.solid),
-		lo: len(p.terms) - 1, hi: len(p.terms), single: true,
-	}
-	switch {
-	case e.scaleSym:
-		v.temp, v.offset = tempScale, e.u.offset
-	case e.u.temp == tempInterval:
-		v.temp = tempInterval
+		lo: len(p.terms) - 1, hi: len(p.terms),
 	}
 	return v, nil
 }

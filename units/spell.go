@@ -2,6 +2,7 @@ package units
 
 import (
 	"fmt"
+	"math"
 	"slices"
 	"strconv"
 	"strings"
@@ -51,8 +52,8 @@ func mergeTerms(a, b terms, sign int) (terms, error) {
 		for i := range a {
 			if a[i].sym == x.sym && a[i].number == x.number {
 				n, d := reduce(a[i].num*x.den+x.num*a[i].den, a[i].den*x.den)
-				if n > 4*MaxExpAbs || n < -4*MaxExpAbs || d > MaxExpDen*MaxExpDen {
-					return nil, fmt.Errorf("exponent of %s out of range", x.sym)
+				if !x.number && (n > MaxExpAbs*d || n < -MaxExpAbs*d || d > MaxExpDen) {
+					return nil, fmt.Errorf("the exponent of %s would be %s, outside ±%d with denominator at most %d", x.sym, ratText(n, d), MaxExpAbs, MaxExpDen)
 				}
 				a[i].num, a[i].den = n, d
 				found = true
@@ -63,7 +64,33 @@ func mergeTerms(a, b terms, sign int) (terms, error) {
 			a = append(a, x)
 		}
 	}
-	return slices.DeleteFunc(a, func(x term) bool { return x.num == 0 }), nil
+	return foldNumbers(slices.DeleteFunc(a, func(x term) bool { return x.num == 0 })), nil
+}
+
+// foldNumbers replaces the numeric factors of t by one literal, their
+// product, placed first; a product of 1 is dropped.
+func foldNumbers(t terms) terms {
+	n, v := 0, 1.0
+	for _, x := range t {
+		if x.number {
+			f, _ := strconv.ParseFloat(x.sym, 64)
+			v *= math.Pow(f, float64(x.num)/float64(x.den))
+			n++
+		}
+	}
+	if n == 0 || n == 1 && t[0].number && t[0].num == 1 && t[0].den == 1 {
+		return t
+	}
+	out := make(terms, 0, len(t)-n+1)
+	if v != 1 {
+		out = append(out, term{sym: strconv.FormatFloat(v, 'g', -1, 64), num: 1, den: 1, number: true})
+	}
+	for _, x := range t {
+		if !x.number {
+			out = append(out, x)
+		}
+	}
+	return out
 }
 
 // combineTerms returns a·b^sign, merging repeated symbols, without
