@@ -66,6 +66,7 @@ type EvalError struct {
 	Err    error // a *quantity.DimensionError for a wrong dimension
 }
 
+// Error implements the error interface.
 func (e *EvalError) Error() string {
 	s := "pigroups: evaluate"
 	if e.Symbol != "" {

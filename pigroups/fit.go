@@ -26,6 +26,7 @@ type FitError struct {
 	Reason string
 }
 
+// Error implements the error interface.
 func (e *FitError) Error() string {
 	s := "pigroups: fit: " + e.Err.Error()
 	if e.Row >= 0 {

@@ -86,6 +86,7 @@ type ProblemError struct {
 	Reason string
 }
 
+// Error implements the error interface.
 func (e *ProblemError) Error() string {
 	s := "pigroups: " + e.Err.Error()
 	if e.Symbol != "" {
@@ -112,6 +113,7 @@ type RepeatingError struct {
 	Combination string
 }
 
+// Error implements the error interface.
 func (e *RepeatingError) Error() string {
 	var sb strings.Builder
 	fmt.Fprintf(&sb, "pigroups: repeating set {%s}: %v", strings.Join(e.Set, ", "), e.Err)

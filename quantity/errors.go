@@ -109,6 +109,7 @@ type LengthError struct {
 	Left, Right int    // the two lengths
 }
 
+// Error implements the error interface.
 func (e *LengthError) Error() string {
 	return fmt.Sprintf("cannot %s series of lengths %d and %d", e.Op, e.Left, e.Right)
 }

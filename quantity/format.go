@@ -80,6 +80,7 @@ type ParseError struct {
 	Reason string // what is wrong
 }
 
+// Error implements the error interface.
 func (e *ParseError) Error() string {
 	return fmt.Sprintf("parse %q: at offset %d: %s", e.Input, e.Offset, e.Reason)
 }

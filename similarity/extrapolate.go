@@ -18,6 +18,7 @@ type ExtrapolationError struct {
 	Method, Reason string
 }
 
+// Error implements the error interface.
 func (e *ExtrapolationError) Error() string {
 	return fmt.Sprintf("similarity: %s: %s", e.Method, e.Reason)
 }

@@ -55,6 +55,7 @@ type PlanError struct {
 	Reason string
 }
 
+// Error implements the error interface.
 func (e *PlanError) Error() string { return "similarity: " + e.Reason }
 
 func (pl *Plan) index(sym string) int {
@@ -220,6 +221,7 @@ type Remedy struct {
 	Needs []string // what the ratios would then be: "λ_μ = λ_L^(3/2)"
 }
 
+// Error implements the error interface.
 func (e *ConflictError) Error() string {
 	var sb strings.Builder
 	sb.WriteString("similarity: requirements conflict: ")

@@ -34,6 +34,7 @@ func describeUnit(u Unit) string {
 	return fmt.Sprintf("%s (%s)", u.Format(Unicode), quantity.Describe(u.dim))
 }
 
+// Error implements the error interface.
 func (e *ConversionError) Error() string {
 	from := describeUnit(e.From)
 	if e.From == (Unit{}) {
@@ -174,6 +175,7 @@ type ValueError struct {
 	Err    error // a *ParseError for the unit part, or nil
 }
 
+// Error implements the error interface.
 func (e *ValueError) Error() string {
 	if e.Err != nil {
 		return fmt.Sprintf("units: value %q: %v", e.Text, e.Err)
@@ -240,6 +242,16 @@ func parseValue(tab symbolTable, s string, parse func(string) (Unit, error)) (Va
 		return Value{}, &ValueError{Text: s, Err: err}
 	}
 	return Value{Number: x, Unit: u}, nil
+}
+
+// MustParseValue is like ParseValue but panics on error; for values
+// written in code.
+func MustParseValue(s string) Value {
+	v, err := ParseValue(s)
+	if err != nil {
+		panic(err)
+	}
+	return v
 }
 
 // ParseQuantity reads a number and a unit, as ParseValue does, and returns

@@ -51,6 +51,7 @@ type ParseError struct {
 	Suggest []string // nearest known spellings, for an unknown symbol
 }
 
+// Error implements the error interface.
 func (e *ParseError) Error() string {
 	var sb strings.Builder
 	fmt.Fprintf(&sb, "units: %q: at offset %d: %v", e.Expr, e.Offset, e.Err)

@@ -17,6 +17,7 @@ type DefineError struct {
 	Err    error // a *ParseError for a defining expression that does not parse
 }
 
+// Error implements the error interface.
 func (e *DefineError) Error() string {
 	if e.Err != nil {
 		return fmt.Sprintf("units: define %q: %v", e.Name, e.Err)

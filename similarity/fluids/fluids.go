@@ -55,6 +55,7 @@ type RangeError struct {
 	Lo, Hi      float64
 }
 
+// Error implements the error interface.
 func (e *RangeError) Error() string {
 	return fmt.Sprintf("fluids: %s: %s %g outside %g … %g", e.Fluid, e.What, e.Value, e.Lo, e.Hi)
 }
