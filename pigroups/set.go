@@ -35,6 +35,10 @@ type Group struct {
 	prob    *Problem
 }
 
+// Problem returns the problem whose variables the group's exponents
+// refer to.
+func (g Group) Problem() *Problem { return g.prob }
+
 // Exponents returns the exponent of each variable, in variable order.
 func (g Group) Exponents() []exact.Rat { return slices.Clone(g.exps) }
 
@@ -70,8 +74,11 @@ func (g Group) Dim() (quantity.Dim, error) {
 // String writes the group in plain text: "mu/(rho*V*D)".
 func (g Group) String() string { return g.Format(Plain) }
 
-// Format writes the group in a style.
+// Format writes the group in a style; the zero Group is "(no group)".
 func (g Group) Format(style Style) string {
+	if g.prob == nil {
+		return "(no group)"
+	}
 	m := make(map[int]exact.Rat)
 	for i, e := range g.exps {
 		if !e.IsZero() {

@@ -75,7 +75,16 @@ func (pl *Plan) fail(format string, a ...any) *Plan {
 }
 
 // Hold requires the group to have the same value on model and prototype.
+// The group must come from the plan's problem, or one with the same
+// variables in the same order.
 func (pl *Plan) Hold(g pigroups.Group) *Plan {
+	if gp := g.Problem(); gp != pl.prob {
+		if gp == nil || !slices.EqualFunc(gp.Variables(), pl.vars, func(a, b pigroups.Variable) bool {
+			return a.Symbol == b.Symbol && a.Dim == b.Dim
+		}) {
+			return pl.fail("hold %s: the group belongs to another problem", g)
+		}
+	}
 	label := g.String()
 	if len(g.Matches) > 0 {
 		label = "the " + g.Matches[0].Name

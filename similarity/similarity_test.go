@@ -274,6 +274,7 @@ func TestPlanErrors(t *testing.T) {
 		similarity.NewPlan(p).Fix("L", -1),
 		similarity.NewPlan(p).HoldExps("bad", map[string]int{"V": 1}),
 		similarity.NewPlan(p).Same("s", "nope"),
+		similarity.NewPlan(p).Hold(pigroups.Group{}),
 	} {
 		if _, err := pl.Solve(); err == nil {
 			t.Error("a plan built wrongly solved")
