@@ -44,6 +44,9 @@ func (g Group) Exponents() []exact.Rat { return slices.Clone(g.exps) }
 
 // Exponent returns the exponent of the variable with the given symbol.
 func (g Group) Exponent(symbol string) exact.Rat {
+	if g.prob == nil {
+		return exact.Int(0)
+	}
 	i := g.prob.index(symbol)
 	if i < 0 {
 		return exact.Int(0)
