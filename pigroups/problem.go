@@ -513,39 +513,49 @@ func (p *Problem) prefRank(i int) int {
 }
 
 // DefaultRepeating returns the repeating set chosen by the documented
-// rule: among all valid sets, the one whose members, sorted by preference,
-// rank best, where the preference follows the fluids trade — a density,
-// then a velocity, then a length, then an angular velocity or frequency,
-// then a dynamic viscosity, a thermal conductivity, a temperature
-// difference, an acceleration, a mass, a time, and anything else last;
-// ties go to the variable listed first. It returns an error only when
-// no valid set exists.
+// rule: the variables are ranked by preference, following the fluids
+// trade — a density, then a velocity, then a length, then an angular
+// velocity or frequency, then a dynamic viscosity, a thermal
+// conductivity, a temperature difference, an acceleration, a mass, a
+// time, and anything else last, ties going to the variable listed first —
+// and taken in that order whenever they are independent of those already
+// taken, until there are Rank of them. (The repeating sets are the bases
+// of a matroid, so this greedy choice is the best valid set under the
+// ranking.) The set is returned in variable order. It returns an error
+// only when no valid set exists.
 func (p *Problem) DefaultRepeating() ([]string, error) {
-	var best []int
-	var bestKey []int
-	p.eachRepeating(func(idx []int) bool {
-		key := make([]int, 0, 2*len(idx))
-		sorted := slices.Clone(idx)
-		slices.SortStableFunc(sorted, func(a, b int) int {
-			if d := p.prefRank(a) - p.prefRank(b); d != 0 {
-				return d
-			}
-			return a - b
-		})
-		for _, i := range sorted {
-			key = append(key, p.prefRank(i))
+	var cand []int
+	for i := range p.vars {
+		if i != p.dep {
+			cand = append(cand, i)
 		}
-		key = append(key, sorted...)
-		if best == nil || slices.Compare(key, bestKey) < 0 {
-			best, bestKey = idx, key
+	}
+	slices.SortStableFunc(cand, func(a, b int) int {
+		if d := p.prefRank(a) - p.prefRank(b); d != 0 {
+			return d
 		}
-		return true
+		return a - b
 	})
-	if best == nil {
+	var chosen []int
+	for _, j := range cand {
+		if len(chosen) == p.rank {
+			break
+		}
+		trial := append(slices.Clone(chosen), j)
+		r, err := p.columns(trial).Rank()
+		if err != nil {
+			return nil, err
+		}
+		if r == len(trial) {
+			chosen = trial
+		}
+	}
+	if len(chosen) != p.rank || p.rank == 0 {
 		return nil, &RepeatingError{Err: ErrNoGroups, Want: p.rank}
 	}
-	out := make([]string, len(best))
-	for k, i := range best {
+	slices.Sort(chosen)
+	out := make([]string, len(chosen))
+	for k, i := range chosen {
 		out[k] = p.vars[i].Symbol
 	}
 	return out, nil

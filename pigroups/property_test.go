@@ -227,3 +227,93 @@ func TestEvaluator(t *testing.T) {
 		t.Errorf("Series allocates %v times", allocs)
 	}
 }
+
+// TestDefaultIsBestValidSet checks the greedy default against an
+// exhaustive search over every valid repeating set, ranking each set by
+// its members' preference ranks sorted (then their indices), on random
+// problems with kinds drawn from the preference list.
+func TestDefaultIsBestValidSet(t *testing.T) {
+	kinds := []struct {
+		kind string
+		d    q.Dim
+	}{
+		{"density", q.Density}, {"velocity", q.Velocity}, {"length", q.Length}, {"dynamic viscosity", q.DynamicViscosity},
+		{"mass", q.Mass}, {"time", q.Time}, {"", q.Force}, {"", q.Pressure}, {"", q.Power}, {"", q.Energy},
+	}
+	rank := map[string]int{"density": 0, "velocity": 1, "length": 2, "dynamic viscosity": 5, "mass": 9, "time": 10}
+	rapid.Check(t, func(t *rapid.T) {
+		n := rapid.IntRange(3, 8).Draw(t, "n")
+		var vars []pigroups.Variable
+		var pref []int
+		for i := range n {
+			k := kinds[rapid.IntRange(0, len(kinds)-1).Draw(t, "kind")]
+			v := pigroups.Var(fmt.Sprintf("x%d", i), k.d)
+			r := 50
+			if k.kind != "" {
+				v = v.WithKind(k.kind)
+				r = rank[k.kind]
+			} else if inf := pigroups.InferKinds(k.d); len(inf) > 0 {
+				if rr, ok := rank[inf[0]]; ok {
+					r = rr
+				}
+			}
+			vars = append(vars, v)
+			pref = append(pref, r)
+		}
+		p, err := pigroups.NewProblem(vars...)
+		if err != nil {
+			t.Fatal(err)
+		}
+		sets := p.RepeatingSets()
+		got, err := p.DefaultRepeating()
+		if len(sets) == 0 {
+			if err == nil {
+				t.Fatalf("a default %v with no valid set", got)
+			}
+			return
+		}
+		if err != nil {
+			t.Fatal(err)
+		}
+		key := func(set []string) []int {
+			var idx []int
+			for _, s := range set {
+				var i int
+				fmt.Sscanf(s, "x%d", &i)
+				idx = append(idx, i)
+			}
+			sortByPref(idx, pref)
+			k := make([]int, 0, 2*len(idx))
+			for _, i := range idx {
+				k = append(k, pref[i])
+			}
+			return append(k, idx...)
+		}
+		best := sets[0]
+		for _, s := range sets[1:] {
+			if cmpInts(key(s), key(best)) < 0 {
+				best = s
+			}
+		}
+		if cmpInts(key(got), key(best)) != 0 {
+			t.Fatalf("default %v, exhaustive best %v", got, best)
+		}
+	})
+}
+
+func sortByPref(idx, pref []int) {
+	for i := 1; i < len(idx); i++ {
+		for j := i; j > 0 && (pref[idx[j]] < pref[idx[j-1]] || pref[idx[j]] == pref[idx[j-1]] && idx[j] < idx[j-1]); j-- {
+			idx[j], idx[j-1] = idx[j-1], idx[j]
+		}
+	}
+}
+
+func cmpInts(a, b []int) int {
+	for i := range min(len(a), len(b)) {
+		if a[i] != b[i] {
+			return a[i] - b[i]
+		}
+	}
+	return len(a) - len(b)
+}

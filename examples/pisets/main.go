@@ -200,9 +200,22 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 		r.Groups = append(r.Groups, go_)
 	}
 	if listSets {
+		// Enumeration visits up to C(n, r) subsets; refuse sizes a script
+		// would wait on.
+		if c := binomial(len(vars), p.Rank()); c > 1e6 {
+			return nil, &usageError{fmt.Sprintf("-sets: %d variables of rank %d give up to %.3g candidate sets; too many to list", len(vars), p.Rank(), c)}
+		}
 		r.ValidSets = p.RepeatingSets()
 	}
 	return r, nil
+}
+
+func binomial(n, k int) float64 {
+	c := 1.0
+	for i := range k {
+		c = c * float64(n-i) / float64(i+1)
+	}
+	return c
 }
 
 func slicesContains(vs []VariableOut, sym string) bool {

@@ -61,3 +61,32 @@ func TestBadInput(t *testing.T) {
 		}
 	}
 }
+
+// FuzzRun checks that no command line makes the program panic, and that
+// it always either succeeds or exits 2 with a one-line message.
+func FuzzRun(f *testing.F) {
+	for _, s := range []string{"F=N@force rho=kg/m^3 V=m/s D=m mu=Pa*s", "x", "a=m b=s", "=", "a=m@", "a=(((m"} {
+		f.Add(s, "", "")
+	}
+	f.Add("dp=kPa rho=kg/m^3 V=m/s d=mm", "dp", "rho,V,d")
+	f.Fuzz(func(t *testing.T, vars, dep, rep string) {
+		args := []string{"-format", "json"}
+		if dep != "" {
+			args = append(args, "-dep", dep)
+		}
+		if rep != "" {
+			args = append(args, "-repeat", rep)
+		}
+		args = append(args, strings.Fields(vars)...)
+		var out, errb bytes.Buffer
+		switch code := run(args, &out, &errb); code {
+		case 0:
+		case 2:
+			if strings.Count(errb.String(), "\n") != 1 {
+				t.Fatalf("exit 2 with %q", errb.String())
+			}
+		default:
+			t.Fatalf("exit %d: %s", code, errb.String())
+		}
+	})
+}
