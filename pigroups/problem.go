@@ -404,18 +404,29 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 }
 
 // RepeatingSets returns every valid repeating set, each in variable
-// order, the sets in lexicographic order of their indices.
+// order, the sets in lexicographic order of their indices. Their number
+// grows as C(n, r) — 3750 for 20 variables of rank 4, but millions for 40
+// of rank 6 — so for large problems use EachRepeating, which can stop
+// early, or DefaultRepeating.
 func (p *Problem) RepeatingSets() [][]string {
 	var out [][]string
+	p.EachRepeating(func(set []string) bool {
+		out = append(out, set)
+		return true
+	})
+	return out
+}
+
+// EachRepeating calls f with each valid repeating set, in the order of
+// RepeatingSets, until f returns false.
+func (p *Problem) EachRepeating(f func(set []string) bool) {
 	p.eachRepeating(func(idx []int) bool {
 		set := make([]string, len(idx))
 		for k, i := range idx {
 			set[k] = p.vars[i].Symbol
 		}
-		out = append(out, set)
-		return true
+		return f(set)
 	})
-	return out
 }
 
 // eachRepeating calls f with every valid repeating set until f returns
