@@ -144,6 +144,7 @@ type Problem struct {
 	vars  []Variable
 	kinds [][]string // candidate kinds of each variable
 	a     exact.Matrix
+	ai    exact.IntMatrix // the same, as integers, for fast elimination
 	rows  []quantity.Base // base dimensions that appear, in ISO order
 	rank  int
 	dep   int // index of the dependent variable, or −1
@@ -159,16 +160,16 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 	if len(vars) > 64 {
 		return nil, &ProblemError{Err: ErrNoVariables, Reason: "more than 64 variables"}
 	}
-	p := &Problem{vars: slices.Clone(vars), dep: -1}
-	seen := map[string]bool{}
+	p := &Problem{vars: slices.Clone(vars), dep: -1, kinds: make([][]string, 0, len(vars)), rows: make([]quantity.Base, 0, quantity.NumBases)}
 	for i, v := range vars {
 		if v.Symbol == "" || strings.ContainsAny(v.Symbol, " \t\n*/^()·") {
 			return nil, &ProblemError{Err: ErrDuplicateSymbol, Symbol: v.Symbol, Reason: "a symbol must be non-empty, without spaces or operators"}
 		}
-		if seen[v.Symbol] {
-			return nil, &ProblemError{Err: ErrDuplicateSymbol, Symbol: v.Symbol}
+		for _, w := range vars[:i] {
+			if w.Symbol == v.Symbol {
+				return nil, &ProblemError{Err: ErrDuplicateSymbol, Symbol: v.Symbol}
+			}
 		}
-		seen[v.Symbol] = true
 		if v.Role == Dependent {
 			if p.dep >= 0 {
 				return nil, &ProblemError{Err: ErrTwoDependent, Symbol: v.Symbol, Reason: fmt.Sprintf("%q is dependent already", vars[p.dep].Symbol)}
@@ -190,19 +191,23 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 		}
 	}
 	p.a = exact.NewMatrix(len(p.rows), len(vars))
+	p.ai = make(exact.IntMatrix, len(p.rows))
+	cells := make([]int64, len(p.rows)*len(vars))
 	for i, b := range p.rows {
+		p.ai[i] = cells[i*len(vars) : (i+1)*len(vars) : (i+1)*len(vars)]
 		for j, v := range vars {
+			p.ai[i][j] = int64(v.Dim.Sixths(b))
 			// Held in sixths, as whole numbers: scaling a matrix changes
 			// neither its rank nor its null space, and integers eliminate
 			// faster. Matrix and MatrixTable divide by six.
 			p.a[i][j] = exact.Int(int64(v.Dim.Sixths(b)))
 		}
 	}
-	r, err := p.a.Rank()
+	piv, err := p.ai.Clone().GaussJordan()
 	if err != nil {
 		return nil, err
 	}
-	p.rank = r
+	p.rank = len(piv)
 	return p, nil
 }
 
@@ -326,6 +331,19 @@ func (a dimOrZero) mustMul(b dimOrZero) quantity.Dim {
 	return d
 }
 
+// intColumns returns the integer submatrix of the given columns.
+func (p *Problem) intColumns(idx []int) exact.IntMatrix {
+	m := make(exact.IntMatrix, len(p.rows))
+	cells := make([]int64, len(p.rows)*len(idx))
+	for i := range p.rows {
+		m[i] = cells[i*len(idx) : (i+1)*len(idx) : (i+1)*len(idx)]
+		for k, j := range idx {
+			m[i][k] = p.ai[i][j]
+		}
+	}
+	return m
+}
+
 // columns returns the submatrix of the given columns.
 func (p *Problem) columns(idx []int) exact.Matrix {
 	m := exact.NewMatrix(len(p.rows), len(idx))
@@ -348,33 +366,32 @@ func (p *Problem) CheckRepeating(set ...string) error {
 }
 
 func (p *Problem) repeatingIndex(set []string) ([]int, error) {
-	e := &RepeatingError{Set: slices.Clone(set), Want: p.rank}
+	fail := func(err error, sym string) *RepeatingError {
+		return &RepeatingError{Err: err, Set: slices.Clone(set), Want: p.rank, Symbol: sym}
+	}
 	idx := make([]int, 0, len(set))
 	for _, s := range set {
 		i := p.index(s)
 		if i < 0 {
-			e.Err, e.Symbol = ErrRepeatingUnknown, s
-			return nil, e
+			return nil, fail(ErrRepeatingUnknown, s)
 		}
 		if slices.Contains(idx, i) {
-			e.Err, e.Symbol = ErrRepeatingUnknown, s
-			return nil, &RepeatingError{Err: fmt.Errorf("%w: %q given twice", ErrRepeatingCount, s), Set: e.Set, Want: p.rank}
+			return nil, fail(fmt.Errorf("%w: %q given twice", ErrRepeatingCount, s), "")
 		}
 		if i == p.dep {
-			e.Err, e.Symbol = ErrRepeatingDep, s
-			return nil, e
+			return nil, fail(ErrRepeatingDep, s)
 		}
 		idx = append(idx, i)
 	}
 	if len(idx) != p.rank {
-		e.Err = ErrRepeatingCount
-		return nil, e
+		return nil, fail(ErrRepeatingCount, "")
 	}
-	sub := p.columns(idx)
+	var e RepeatingError
+	isub := p.intColumns(idx)
 	for i, b := range p.rows {
 		covered := false
 		for k := range idx {
-			if !sub[i][k].IsZero() {
+			if isub[i][k] != 0 {
 				covered = true
 			}
 		}
@@ -382,11 +399,16 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 			e.Uncovered = append(e.Uncovered, b)
 		}
 	}
-	ns, err := sub.NullSpace()
+	piv, err := isub.GaussJordan()
 	if err != nil {
 		return nil, err
 	}
-	if len(ns) > 0 || len(e.Uncovered) > 0 {
+	if len(piv) < len(idx) || len(e.Uncovered) > 0 {
+		e.Set, e.Want = slices.Clone(set), p.rank
+		ns, err := p.columns(idx).NullSpace()
+		if err != nil {
+			return nil, err
+		}
 		e.Err = ErrRepeatingSingular
 		if len(ns) > 0 {
 			iv, _, err := exact.Integers(ns[0])
@@ -398,7 +420,7 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 				e.Combination = p.spell(exps, Plain)
 			}
 		}
-		return nil, e
+		return nil, &e
 	}
 	return idx, nil
 }

@@ -262,29 +262,32 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 	// One elimination solves every group: RREF of [A_R | A_others] is
 	// [I | A_R⁻¹·A_others] on the independent rows, so the exponents of
 	// the repeating variables in xⱼ's group are −(A_R⁻¹·A_j).
-	aug := p.columns(append(slices.Clone(idx), order...))
-	pivots, err := aug.RREF()
+	aug := p.intColumns(append(slices.Clone(idx), order...))
+	pivots, err := aug.GaussJordan()
 	if err != nil {
 		return nil, err
 	}
 	if len(pivots) != len(idx) || pivots[len(pivots)-1] != len(idx)-1 {
 		return nil, fmt.Errorf("pigroups: internal error: repeating set %v is not independent", s.Repeating())
 	}
+	n := len(p.vars)
+	cells := make(exact.Vec, n*len(order))
+	s.groups = make([]Group, 0, len(order))
 	for k, j := range order {
-		v := make(exact.Vec, len(p.vars))
+		v := cells[k*n : (k+1)*n : (k+1)*n]
 		for i := range v {
 			v[i] = exact.Int(0)
 		}
 		v[j] = exact.Int(1)
 		for r, i := range idx {
-			v[i] = aug[r][len(idx)+k].Neg()
+			v[i] = exact.Frac(-aug[r][len(idx)+k], aug[r][r])
 		}
-		iv, _, err := exact.Integers(v)
-		if err != nil {
+		if _, err := exact.IntegersTo(v, v); err != nil {
 			return nil, err
 		}
+		iv := v
 		g := Group{Name: piName(k + 1), Var: j, exps: iv, prob: p}
-		if d, err := g.Dim(); err == nil && !d.IsDimensionless() || err != nil && !p.dimensionless(iv) {
+		if !p.dimensionless(iv) {
 			return nil, fmt.Errorf("pigroups: internal error: group %s is not dimensionless", g)
 		}
 		g.Matches = p.recognise(iv)
@@ -304,6 +307,28 @@ func (p *Problem) DefaultSet() (*Set, error) {
 
 // dimensionless reports whether A·v = 0 exactly.
 func (p *Problem) dimensionless(v exact.Vec) bool {
+	whole := true
+	for _, x := range v {
+		if !x.IsInt() {
+			whole = false
+			break
+		}
+	}
+	if whole {
+		// Integer exponents against the integer matrix (sixths): a plain
+		// dot product, exact while it does not overflow, which the small
+		// entries rule out (|aᵢⱼ| ≤ 128, |vⱼ| far below 2⁵⁰).
+		for _, row := range p.ai {
+			var sum int64
+			for j, x := range v {
+				sum += row[j] * x.Num
+			}
+			if sum != 0 {
+				return false
+			}
+		}
+		return true
+	}
 	for i := range p.rows {
 		sum := exact.Int(0)
 		for j, x := range v {

@@ -33,22 +33,41 @@ func Frac(n, d int64) Rat {
 	return norm(n, d)
 }
 
+// gcd is Stein's binary algorithm, which avoids the slow 64-bit
+// division; the small entries of dimensional matrices make it short.
 func gcd(a, b int64) int64 {
+	ua, ub := uabs(a), uabs(b)
+	if ua == 0 {
+		return int64(ub)
+	}
+	if ub == 0 {
+		return int64(ua)
+	}
+	shift := bits.TrailingZeros64(ua | ub)
+	ua >>= bits.TrailingZeros64(ua)
+	for ub != 0 {
+		ub >>= bits.TrailingZeros64(ub)
+		if ua > ub {
+			ua, ub = ub, ua
+		}
+		ub -= ua
+	}
+	return int64(ua << shift)
+}
+
+func uabs(a int64) uint64 {
 	if a < 0 {
-		a = -a
+		return uint64(-a)
 	}
-	if b < 0 {
-		b = -b
-	}
-	for b != 0 {
-		a, b = b, a%b
-	}
-	return a
+	return uint64(a)
 }
 
 func norm(n, d int64) Rat {
 	if n == 0 {
 		return Rat{0, 1}
+	}
+	if d == 1 {
+		return Rat{n, 1}
 	}
 	if d < 0 {
 		n, d = -n, -d
@@ -369,21 +388,29 @@ func Solve(a Matrix, b Vec) (x Vec, ok bool, err error) {
 // Integers scales v by a positive rational so that its entries are
 // coprime integers, and returns the scaled vector and the factor used.
 func Integers(v Vec) (Vec, Rat, error) {
+	out := make(Vec, len(v))
+	f, err := IntegersTo(out, v)
+	return out, f, err
+}
+
+// IntegersTo is Integers writing into dst, which must have v's length
+// and may be v itself.
+func IntegersTo(dst, v Vec) (Rat, error) {
 	l := int64(1)
 	for _, x := range v {
 		d := x.den()
 		g := gcd(l, d)
 		var ok bool
 		if l, ok = mul64(l, d/g); !ok {
-			return nil, Rat{}, ErrOverflow
+			return Rat{}, ErrOverflow
 		}
 	}
-	out := make(Vec, len(v))
+	out := dst
 	g := int64(0)
 	for i, x := range v {
 		n, ok := mul64(x.Num, l/x.den())
 		if !ok {
-			return nil, Rat{}, ErrOverflow
+			return Rat{}, ErrOverflow
 		}
 		out[i] = Int(n)
 		g = gcd(g, n)
@@ -396,5 +423,80 @@ func Integers(v Vec) (Vec, Rat, error) {
 	if g == 0 {
 		g = 1
 	}
-	return out, Frac(l, g), nil
+	return Frac(l, g), nil
+}
+
+// IntMatrix is a dense matrix of int64, for fraction-free elimination of
+// integer matrices (dimensional matrices held in sixths).
+type IntMatrix [][]int64
+
+// GaussJordan reduces m in place, without fractions, to a form in which
+// each pivot column is zero but for its pivot: row i is replaced by
+// p·row_i − f·row_r and divided by the gcd of its entries. It returns the
+// pivot column of each nonzero row in order; their number is the rank.
+// The solution of the system in the pivot variables is then
+// x_c = m[r][j]/m[r][c] for the pivot c of row r.
+func (m IntMatrix) GaussJordan() (pivots []int, err error) {
+	rows := len(m)
+	if rows == 0 {
+		return nil, nil
+	}
+	cols := len(m[0])
+	r := 0
+	for c := 0; c < cols && r < rows; c++ {
+		p := -1
+		for i := r; i < rows; i++ {
+			if m[i][c] != 0 {
+				p = i
+				break
+			}
+		}
+		if p < 0 {
+			continue
+		}
+		m[r], m[p] = m[p], m[r]
+		pv := m[r][c]
+		for i := 0; i < rows; i++ {
+			f := m[i][c]
+			if i == r || f == 0 {
+				continue
+			}
+			g := int64(0)
+			for j := range cols {
+				a, ok1 := mul64(pv, m[i][j])
+				b, ok2 := mul64(f, m[r][j])
+				if !ok1 || !ok2 {
+					return nil, ErrOverflow
+				}
+				d, ok := add64(a, -b)
+				if !ok {
+					return nil, ErrOverflow
+				}
+				m[i][j] = d
+				g = gcd(g, d)
+			}
+			if g > 1 {
+				for j := range cols {
+					m[i][j] /= g
+				}
+			}
+		}
+		pivots = append(pivots, c)
+		r++
+	}
+	return pivots, nil
+}
+
+// Clone returns a deep copy of m.
+func (m IntMatrix) Clone() IntMatrix {
+	c := make(IntMatrix, len(m))
+	if len(m) == 0 {
+		return c
+	}
+	cells := make([]int64, len(m)*len(m[0]))
+	for i := range m {
+		c[i] = cells[i*len(m[0]) : (i+1)*len(m[0]) : (i+1)*len(m[0])]
+		copy(c[i], m[i])
+	}
+	return c
 }

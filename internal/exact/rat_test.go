@@ -87,3 +87,43 @@ func TestNullSpaceAndSolve(t *testing.T) {
 		t.Errorf("Integers = %v, %v, %v", v, f, err)
 	}
 }
+
+// TestGaussJordanAgainstRREF checks the fraction-free elimination against
+// the rational one on random integer matrices.
+func TestGaussJordanAgainstRREF(t *testing.T) {
+	rapid.Check(t, func(t *rapid.T) {
+		rows, cols := rapid.IntRange(1, 5).Draw(t, "rows"), rapid.IntRange(1, 8).Draw(t, "cols")
+		im := make(IntMatrix, rows)
+		rm := NewMatrix(rows, cols)
+		for i := range im {
+			im[i] = make([]int64, cols)
+			for j := range im[i] {
+				v := rapid.Int64Range(-12, 12).Draw(t, "v")
+				im[i][j], rm[i][j] = v, Int(v)
+			}
+		}
+		ip, err := im.GaussJordan()
+		if err != nil {
+			t.Fatal(err)
+		}
+		rp, err := rm.RREF()
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(ip) != len(rp) {
+			t.Fatalf("ranks %d and %d", len(ip), len(rp))
+		}
+		for r, c := range ip {
+			if rp[r] != c {
+				t.Fatalf("pivots %v and %v", ip, rp)
+			}
+			for j := range cols {
+				want := rm[r][j]
+				got := Frac(im[r][j], im[r][c])
+				if got != want {
+					t.Fatalf("row %d col %d: %v, RREF %v", r, j, got, want)
+				}
+			}
+		}
+	})
+}
