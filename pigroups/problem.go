@@ -302,7 +302,12 @@ func (p *Problem) RankNote() string {
 			if iv[0].Sign() < 0 {
 				iv[0], iv[1] = iv[0].Neg(), iv[1].Neg()
 			}
-			d := powDim(p.rows[i], iv[0]).mustMul(powDim(p.rows[j], iv[1]))
+			di, err1 := quantity.DimOf(p.rows[i], int(iv[0].Num), 1)
+			dj, err2 := quantity.DimOf(p.rows[j], int(iv[1].Num), 1)
+			d, err3 := di.Mul(dj)
+			if err1 != nil || err2 != nil || err3 != nil {
+				continue
+			}
 			parts = append(parts, fmt.Sprintf("%s and %s occur only as %s", names[i], names[j], d))
 			continue
 		}
@@ -314,21 +319,6 @@ func (p *Problem) RankNote() string {
 	}
 	return fmt.Sprintf("the rank is %d, less than the %d base dimensions that appear (%s): %s; so there are %d groups, not %d",
 		p.rank, len(p.rows), strings.Join(names, ", "), strings.Join(parts, "; "), p.NumGroups(), len(p.vars)-len(p.rows))
-}
-
-type dimOrZero struct{ d quantity.Dim }
-
-func powDim(b quantity.Base, e exact.Rat) dimOrZero {
-	d, err := quantity.DimOf(b, int(e.Num), int(e.Den))
-	if err != nil {
-		return dimOrZero{}
-	}
-	return dimOrZero{d}
-}
-
-func (a dimOrZero) mustMul(b dimOrZero) quantity.Dim {
-	d, _ := a.d.Mul(b.d)
-	return d
 }
 
 // intColumns returns the integer submatrix of the given columns.

@@ -1,6 +1,7 @@
 package pigroups_test
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"math/rand/v2"
@@ -131,7 +132,7 @@ func TestFitErrors(t *testing.T) {
 	for _, c := range cases {
 		_, err := pigroups.FitPowerLaw(c.y, c.x, nil)
 		var fe *pigroups.FitError
-		if !errorsAs(err, &fe) || !errorsIs(err, c.err) {
+		if !errors.As(err, &fe) || !errors.Is(err, c.err) {
 			t.Errorf("FitPowerLaw(%v, %v) = %v, want %v", c.y, c.x, err, c.err)
 		}
 		if c.err == pigroups.ErrCollinear && fe != nil && fe.Cond < 1e10 {
@@ -191,7 +192,7 @@ func TestEvaluator(t *testing.T) {
 	}
 	bad := append([]q.Quantity(nil), row...)
 	bad[4] = q.New(1e-6, q.KinematicViscosity)
-	if _, err := e.Row(bad, dst); err == nil || !errorsIs(err, q.ErrDimension) {
+	if _, err := e.Row(bad, dst); err == nil || !errors.Is(err, q.ErrDimension) {
 		t.Errorf("a kinematic viscosity for μ: %v", err)
 	}
 	// Series over 600 rows (more than one block) against Row.

@@ -82,13 +82,7 @@ func (g Group) Format(style Style) string {
 	if g.prob == nil {
 		return "(no group)"
 	}
-	m := make(map[int]exact.Rat)
-	for i, e := range g.exps {
-		if !e.IsZero() {
-			m[i] = e
-		}
-	}
-	return g.prob.spell(m, style)
+	return g.prob.FormatProduct(g.exps, style)
 }
 
 // Label returns the group's conventional label: the named group it is,
@@ -98,6 +92,18 @@ func (g Group) Label() string {
 		return g.Name
 	}
 	return g.Matches[0].Label()
+}
+
+// FormatProduct writes the product ∏ xᵢ^eᵢ of the problem's variables, the
+// exponents given in variable order, as Group.Format does.
+func (p *Problem) FormatProduct(exps []exact.Rat, style Style) string {
+	m := make(map[int]exact.Rat)
+	for i, e := range exps {
+		if i < len(p.vars) && !e.IsZero() {
+			m[i] = e
+		}
+	}
+	return p.spell(m, style)
 }
 
 // spell writes ∏ xᵢ^eᵢ in a style, numerator first, in variable order.
@@ -307,17 +313,17 @@ func (p *Problem) DefaultSet() (*Set, error) {
 
 // dimensionless reports whether A·v = 0 exactly.
 func (p *Problem) dimensionless(v exact.Vec) bool {
-	whole := true
+	small := true
 	for _, x := range v {
-		if !x.IsInt() {
-			whole = false
+		if !x.IsInt() || x.Num > 1<<40 || x.Num < -(1<<40) {
+			small = false
 			break
 		}
 	}
-	if whole {
-		// Integer exponents against the integer matrix (sixths): a plain
-		// dot product, exact while it does not overflow, which the small
-		// entries rule out (|aᵢⱼ| ≤ 128, |vⱼ| far below 2⁵⁰).
+	if small {
+		// Small integer exponents against the integer matrix (sixths): a
+		// plain dot product, which cannot overflow (|aᵢⱼ| ≤ 128, at most
+		// 64 terms of at most 2⁴⁰ each).
 		for _, row := range p.ai {
 			var sum int64
 			for j, x := range v {
@@ -511,41 +517,46 @@ func firstNonzeroSign(v exact.Vec) int {
 	return 0
 }
 
-// WithConventional returns a copy of the set in which every group that
-// is recognised as a power of a named group is replaced by the named
-// group itself when that has whole exponents (1/Re becomes Re), and
-// otherwise by the positive power with whole exponents (1/Fr² becomes
-// Fr², since Fr itself has the exponent 1/2).
+// Conventional returns the group in the orientation the trade writes its
+// named group in: the named group itself when that has whole exponents
+// (1/Re becomes Re), and otherwise the positive power with whole
+// exponents (1/Fr² becomes Fr², since Fr itself has the exponent 1/2). A
+// group with no name, or already in that form, is returned unchanged.
+func (g Group) Conventional() Group {
+	if len(g.Matches) == 0 {
+		return g
+	}
+	m := g.Matches[0]
+	if m.Power.Num == 1 && m.Power.Den == 1 {
+		return g
+	}
+	conv := make(exact.Vec, len(g.exps))
+	whole := true
+	for i, e := range g.exps {
+		x, err := e.Div(m.Power)
+		if err != nil || !x.IsInt() {
+			whole = false
+			break
+		}
+		conv[i] = x
+	}
+	if !whole {
+		if m.Power.Sign() > 0 {
+			return g
+		}
+		for i, e := range g.exps {
+			conv[i] = e.Neg()
+		}
+	}
+	return Group{Name: g.Name, Var: g.Var, exps: conv, prob: g.prob, Matches: g.prob.recognise(conv)}
+}
+
+// WithConventional returns a copy of the set with every group in its
+// conventional orientation (see Group.Conventional).
 func (s *Set) WithConventional() *Set {
 	out := &Set{prob: s.prob, repeating: s.repeating, groups: slices.Clone(s.groups)}
 	for k, g := range out.groups {
-		if len(g.Matches) == 0 {
-			continue
-		}
-		m := g.Matches[0]
-		if m.Power.Num == 1 && m.Power.Den == 1 {
-			continue
-		}
-		conv := make(exact.Vec, len(g.exps))
-		okAll := true
-		for i, e := range g.exps {
-			x, err := e.Div(m.Power)
-			if err != nil || !x.IsInt() {
-				okAll = false
-				break
-			}
-			conv[i] = x
-		}
-		if !okAll {
-			if m.Power.Sign() > 0 {
-				continue
-			}
-			// A negative fractional power (1/Fr²): invert to a positive one.
-			for i, e := range g.exps {
-				conv[i] = e.Neg()
-			}
-		}
-		out.groups[k] = Group{Name: g.Name, Var: g.Var, exps: conv, prob: s.prob, Matches: s.prob.recognise(conv)}
+		out.groups[k] = g.Conventional()
 	}
 	return out
 }

@@ -104,12 +104,9 @@ func encode(e [NumBases]int8) Dim {
 	return Dim{x}
 }
 
-func (d Dim) lane(b Base) int8 { return d.lanes()[b] }
-
-func (d *Dim) setLane(b Base, v int8) {
-	e := d.lanes()
-	e[b] = v
-	*d = encode(e)
+// lane decodes the exponent of base b, in sixths.
+func (d Dim) lane(b Base) int8 {
+	return int8(int(((d.bits+laneBias)>>(laneBits*uint(b)))&0x1ff) - 128)
 }
 
 // add returns d+o lane-wise and whether every lane stayed in range.
@@ -133,23 +130,23 @@ func DimOf(b Base, num, den int) (Dim, error) {
 	if err != nil {
 		return Dim{}, err
 	}
-	var d Dim
-	d.setLane(b, s)
-	return d, nil
+	var e [NumBases]int8
+	e[b] = s
+	return encode(e), nil
 }
 
 // NewDim returns the dimension L^l M^m T^t I^i Θ^th N^n J^j with whole
 // exponents. It reports a *DimensionError if an exponent is out of range.
 func NewDim(l, m, t, i, th, n, j int) (Dim, error) {
-	var d Dim
-	for k, e := range [NumBases]int{l, m, t, i, th, n, j} {
-		s, err := sixths(e, 1)
+	var e [NumBases]int8
+	for k, x := range [NumBases]int{l, m, t, i, th, n, j} {
+		s, err := sixths(x, 1)
 		if err != nil {
 			return Dim{}, err
 		}
-		d.setLane(Base(k), s)
+		e[k] = s
 	}
-	return d, nil
+	return encode(e), nil
 }
 
 // MustDim is like NewDim but panics if the exponents are out of range. It

@@ -105,14 +105,14 @@ func ParseDim(s string) (Dim, error) {
 	var d Dim
 	i := 0
 	for i < len(s) {
-		r, n := decodeRune(s[i:])
+		r, n := utf8.DecodeRuneInString(s[i:])
 		if r == ' ' || r == '*' || r == '·' || r == '\t' {
 			i += n
 			continue
 		}
 		start := i
 		for i < len(s) {
-			r, n := decodeRune(s[i:])
+			r, n := utf8.DecodeRuneInString(s[i:])
 			if !isSymbolRune(r) {
 				break
 			}
@@ -177,7 +177,7 @@ var supValue = map[rune]int{'⁰': 0, '¹': 1, '²': 2, '³': 3, '⁴': 4, '⁵'
 // there is none.
 func parseExponent(s string, i int) (num, den, used int, err error) {
 	start := i
-	r, n := decodeRune(s[i:])
+	r, n := utf8.DecodeRuneInString(s[i:])
 	if _, ok := supValue[r]; ok || r == '⁻' {
 		neg := false
 		if r == '⁻' {
@@ -186,7 +186,7 @@ func parseExponent(s string, i int) (num, den, used int, err error) {
 		}
 		v, digits := 0, 0
 		for i < len(s) {
-			r, n := decodeRune(s[i:])
+			r, n := utf8.DecodeRuneInString(s[i:])
 			dv, ok := supValue[r]
 			if !ok {
 				break
@@ -261,5 +261,3 @@ func parseInt(s string, i int) (int, int, error) {
 	}
 	return v, i, nil
 }
-
-func decodeRune(s string) (rune, int) { return utf8.DecodeRuneInString(s) }

@@ -69,28 +69,8 @@ var (
 	AbsorbedDose            = MustDim(2, 0, -2, 0, 0, 0, 0)
 	// StressIntensityFactor is the dimension of fracture toughness,
 	// M L^(-1/2) T⁻² (MPa·√m).
-	StressIntensityFactor = must(mustPow(Length, -1, 2).Mul(Pressure.mulL(1)))
+	StressIntensityFactor = MustParseDim("L^(-1/2) M T^-2")
 )
-
-func (d Dim) mulL(e int) Dim {
-	r, _ := d.Mul(MustDim(e, 0, 0, 0, 0, 0, 0))
-	return r
-}
-
-func mustPow(d Dim, n, den int) Dim {
-	r, err := d.Pow(n, den)
-	if err != nil {
-		panic(err)
-	}
-	return r
-}
-
-func must(d Dim, err error) Dim {
-	if err != nil {
-		panic(err)
-	}
-	return d
-}
 
 // Kind is a named kind of quantity with its dimension.
 type Kind struct {

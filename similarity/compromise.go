@@ -94,24 +94,14 @@ func (pl *Plan) Compromise(prototype map[string]quantity.Quantity, groups ...Pri
 }
 
 // conventional returns a group's label and exponents in the named
-// group's conventional orientation: 1/Re is turned into Re, so that
-// values and thresholds read as the trade writes them.
+// group's conventional orientation (pigroups.Group.Conventional), so that
+// values and thresholds read as the trade writes them: Re, not 1/Re.
 func conventional(g pigroups.Group) (string, exact.Vec) {
-	exps := exact.Vec(g.Exponents())
-	if len(g.Matches) == 0 {
-		return g.String(), exps
+	c := g.Conventional()
+	if len(c.Matches) == 0 {
+		return c.String(), exact.Vec(c.Exponents())
 	}
-	m := g.Matches[0]
-	label := m.Label() + " (" + m.Name + ")"
-	if m.Power.Sign() < 0 {
-		for i := range exps {
-			exps[i] = exps[i].Neg()
-		}
-		inv := m
-		inv.Power = m.Power.Neg()
-		label = inv.Label() + " (" + m.Name + ")"
-	}
-	return label, exps
+	return c.Matches[0].Label() + " (" + c.Matches[0].Name + ")", exact.Vec(c.Exponents())
 }
 
 // groupValue evaluates ∏ xᵢ^eᵢ from values by symbol, checking dimensions.

@@ -5,7 +5,6 @@ import (
 	"math"
 	"strings"
 
-	"similis.dev/similis/internal/exact"
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
@@ -74,7 +73,7 @@ func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 				model = fmt.Sprintf("%.4g", v*ratio.Value)
 			}
 		}
-		r.groups = append(r.groups, []string{label, spellExps(s.plan.vars, exps), proto, model, status})
+		r.groups = append(r.groups, []string{label, s.plan.prob.FormatProduct(exps, pigroups.Unicode), proto, model, status})
 	}
 	dep := s.plan.prob.DependentIndex()
 	for vi, v := range s.plan.vars {
@@ -135,44 +134,6 @@ func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 	}
 	r.cautions = append([]string{Caution}, o.Cautions...)
 	return r, nil
-}
-
-// spellExps writes ∏ xᵢ^eᵢ as pigroups does, numerator first.
-func spellExps(vars []pigroups.Variable, exps []exact.Rat) string {
-	var num, den []string
-	for i, e := range exps {
-		if e.IsZero() {
-			continue
-		}
-		a := e
-		if a.Sign() < 0 {
-			a = a.Neg()
-		}
-		t := vars[i].Symbol
-		if !(a.Num == 1 && a.Den == 1) {
-			if a.IsInt() && a.Num < 10 {
-				t += []string{"", "", "²", "³", "⁴", "⁵", "⁶", "⁷", "⁸", "⁹"}[a.Num]
-			} else {
-				t += "^(" + a.String() + ")"
-			}
-		}
-		if e.Sign() > 0 {
-			num = append(num, t)
-		} else {
-			den = append(den, t)
-		}
-	}
-	s := strings.Join(num, "·")
-	if s == "" {
-		s = "1"
-	}
-	switch len(den) {
-	case 0:
-		return s
-	case 1:
-		return s + "/" + den[0]
-	}
-	return s + "/(" + strings.Join(den, "·") + ")"
 }
 
 func table(sb *strings.Builder, head []string, rows [][]string, md bool) {

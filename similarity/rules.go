@@ -23,6 +23,16 @@ func stdVars() []pigroups.Variable {
 	}
 }
 
+// checkRatios checks name–ratio pairs: checkRatios("length", λL, "density", λρ).
+func checkRatios(pairs ...any) error {
+	for i := 0; i+1 < len(pairs); i += 2 {
+		if err := checkRatio(pairs[i].(string), pairs[i+1].(float64)); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
 func checkRatio(name string, r float64) error {
 	if !(r > 0) || math.IsInf(r, 0) {
 		return &PlanError{Reason: fmt.Sprintf("%s ratio %v is not positive and finite", name, r)}
@@ -35,10 +45,7 @@ func checkRatio(name string, r float64) error {
 // λ_F = λ_ρ·λ_L³, λ_P = λ_ρ·λ_L^(7/2), λ_Q = λ_L^(5/2). The Reynolds
 // number floats: with the same fluid its ratio is λ_L^(3/2).
 func Froude(lengthRatio, densityRatio float64) (*Solution, error) {
-	if err := checkRatio("length", lengthRatio); err != nil {
-		return nil, err
-	}
-	if err := checkRatio("density", densityRatio); err != nil {
+	if err := checkRatios("length", lengthRatio, "density", densityRatio); err != nil {
 		return nil, err
 	}
 	p := pigroups.MustProblem(stdVars()...)
@@ -55,13 +62,8 @@ func Froude(lengthRatio, densityRatio float64) (*Solution, error) {
 // Reynolds scaling: the Reynolds number VL/ν held for given length and
 // kinematic-viscosity ratios: λ_V = λ_ν/λ_L, λ_t = λ_L²/λ_ν.
 func Reynolds(lengthRatio, nuRatio, densityRatio float64) (*Solution, error) {
-	for _, c := range []struct {
-		n string
-		v float64
-	}{{"length", lengthRatio}, {"kinematic viscosity", nuRatio}, {"density", densityRatio}} {
-		if err := checkRatio(c.n, c.v); err != nil {
-			return nil, err
-		}
+	if err := checkRatios("length", lengthRatio, "kinematic viscosity", nuRatio, "density", densityRatio); err != nil {
+		return nil, err
 	}
 	p := pigroups.MustProblem(
 		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("L", quantity.Length, "length"),
@@ -73,13 +75,8 @@ func Reynolds(lengthRatio, nuRatio, densityRatio float64) (*Solution, error) {
 // Mach scaling: the Mach number V/a held: λ_V = λ_a, for given length,
 // speed-of-sound and density ratios.
 func Mach(lengthRatio, soundRatio, densityRatio float64) (*Solution, error) {
-	for _, c := range []struct {
-		n string
-		v float64
-	}{{"length", lengthRatio}, {"speed of sound", soundRatio}, {"density", densityRatio}} {
-		if err := checkRatio(c.n, c.v); err != nil {
-			return nil, err
-		}
+	if err := checkRatios("length", lengthRatio, "speed of sound", soundRatio, "density", densityRatio); err != nil {
+		return nil, err
 	}
 	p := pigroups.MustProblem(
 		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("a", quantity.Velocity, "speed of sound"),
@@ -90,13 +87,8 @@ func Mach(lengthRatio, soundRatio, densityRatio float64) (*Solution, error) {
 
 // Weber scaling: ρV²L/σ held: λ_V = (λ_σ/(λ_ρ·λ_L))^(1/2).
 func Weber(lengthRatio, densityRatio, tensionRatio float64) (*Solution, error) {
-	for _, c := range []struct {
-		n string
-		v float64
-	}{{"length", lengthRatio}, {"density", densityRatio}, {"surface tension", tensionRatio}} {
-		if err := checkRatio(c.n, c.v); err != nil {
-			return nil, err
-		}
+	if err := checkRatios("length", lengthRatio, "density", densityRatio, "surface tension", tensionRatio); err != nil {
+		return nil, err
 	}
 	p := pigroups.MustProblem(
 		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("L", quantity.Length, "length"),
@@ -109,13 +101,8 @@ func Weber(lengthRatio, densityRatio, tensionRatio float64) (*Solution, error) {
 // (p − p_v)/(½ρV²) when p is the pressure above vapour pressure):
 // λ_p = λ_ρ·λ_V².
 func Euler(lengthRatio, densityRatio, velocityRatio float64) (*Solution, error) {
-	for _, c := range []struct {
-		n string
-		v float64
-	}{{"length", lengthRatio}, {"density", densityRatio}, {"velocity", velocityRatio}} {
-		if err := checkRatio(c.n, c.v); err != nil {
-			return nil, err
-		}
+	if err := checkRatios("length", lengthRatio, "density", densityRatio, "velocity", velocityRatio); err != nil {
+		return nil, err
 	}
 	p := pigroups.MustProblem(
 		pigroups.VarKind("p", quantity.Pressure, "pressure difference"), pigroups.VarKind("V", quantity.Velocity, "velocity"),
@@ -133,10 +120,7 @@ func Cavitation(lengthRatio, densityRatio, velocityRatio float64) (*Solution, er
 // Strouhal scaling: fL/V held: λ_f = λ_V/λ_L, for frequencies of vortex
 // shedding and other unsteady flow.
 func Strouhal(lengthRatio, velocityRatio float64) (*Solution, error) {
-	if err := checkRatio("length", lengthRatio); err != nil {
-		return nil, err
-	}
-	if err := checkRatio("velocity", velocityRatio); err != nil {
+	if err := checkRatios("length", lengthRatio, "velocity", velocityRatio); err != nil {
 		return nil, err
 	}
 	p := pigroups.MustProblem(
@@ -159,13 +143,8 @@ type Affinity struct {
 // density ratios, from the held coefficients solved exactly (Q/(ND³),
 // gH/(N²D²), P/(ρN³D⁵)). Efficiency is taken equal; see MoodyStepUp.
 func AffinityLaws(speedRatio, diameterRatio, densityRatio float64) (Affinity, error) {
-	for _, c := range []struct {
-		n string
-		v float64
-	}{{"speed", speedRatio}, {"diameter", diameterRatio}, {"density", densityRatio}} {
-		if err := checkRatio(c.n, c.v); err != nil {
-			return Affinity{}, err
-		}
+	if err := checkRatios("speed", speedRatio, "diameter", diameterRatio, "density", densityRatio); err != nil {
+		return Affinity{}, err
 	}
 	p := pigroups.MustProblem(
 		pigroups.VarKind("Q", quantity.VolumeFlowRate, "volume flow rate"), pigroups.VarKind("gH", quantity.SpecificEnergy, "specific energy"),
@@ -204,10 +183,7 @@ type Distorted struct {
 // the horizontal scale fixed separately. Manning's n follows from holding
 // friction slope equal to bed slope: n ∝ z^(2/3)·S^(1/2)/V.
 func DistortedFroude(horizontal, vertical float64) (Distorted, error) {
-	if err := checkRatio("horizontal length", horizontal); err != nil {
-		return Distorted{}, err
-	}
-	if err := checkRatio("vertical length", vertical); err != nil {
+	if err := checkRatios("horizontal length", horizontal, "vertical length", vertical); err != nil {
 		return Distorted{}, err
 	}
 	p := pigroups.MustProblem(

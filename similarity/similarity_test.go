@@ -189,6 +189,7 @@ func TestCompromise(t *testing.T) {
 		}
 	}
 	pl := similarity.NewPlan(p).SameFluid("rho", "mu").SameGravity("g").Fix("L", 1.0/16)
+	// An invented operating point: 7.7 m/s, 32 m, sea water of about 15 °C.
 	proto := map[string]q.Quantity{"V": q.New(7.7, q.Velocity), "L": q.New(32, q.Length), "g": q.New(9.80665, q.Acceleration),
 		"rho": q.New(1025, q.Density), "mu": q.New(1.22e-3, q.DynamicViscosity)}
 	c, err := pl.Compromise(proto, similarity.Priority{Group: fr}, similarity.Priority{Group: re, MinModel: 5e6})

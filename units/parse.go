@@ -278,7 +278,7 @@ func (p *parser) unit(v val) (Unit, error) {
 	if err != nil {
 		return Unit{}, p.fail(0, ErrExponent, err.Error())
 	}
-	u := Unit{dim: v.dim, factor: v.factor, angle: int8(v.angle), solid: int8(v.solid), sym: t.spell(styleASCII)}
+	u := Unit{dim: v.dim, factor: v.factor, angle: int8(v.angle), solid: int8(v.solid), sym: t.spell(ASCII)}
 	// The temperature role follows from the final spelling, so that a unit
 	// and its spelling always agree: one symbol to the power one keeps its
 	// role (a bare °C is a scale, a bare Δ°C an interval); anything else

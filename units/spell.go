@@ -19,8 +19,6 @@ const (
 	LaTeX                // \mathrm{kg}\cdot\mathrm{m}^{-3}
 )
 
-const styleASCII = ASCII
-
 // String names the style.
 func (s Style) String() string {
 	switch s {
@@ -163,9 +161,6 @@ func splitTop(s string, sep byte) []string {
 // denominator, parenthesised when it has more than one factor.
 func (t terms) spell(style Style) string {
 	if len(t) == 0 {
-		if style == LaTeX {
-			return "1"
-		}
 		return "1"
 	}
 	nNum, nDen := 0, 0
@@ -246,9 +241,6 @@ func writeList(sb *strings.Builder, t terms, style Style, sign int) {
 // as given.
 func spellSymbol(x term, style Style) string {
 	if x.number || style == ASCII {
-		if x.number && style == LaTeX {
-			return x.sym
-		}
 		return x.sym
 	}
 	e, ok := lookupIn(builtinIndex, x.sym)

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"sync"
+	"sync/atomic"
 	"unicode/utf8"
 )
 
@@ -38,10 +39,11 @@ func (e *DefineError) Unwrap() []error {
 // div for 0.25 inH2O. The built-in table itself cannot be changed. A Table
 // is safe for concurrent use; the zero Table is not ready, use NewTable.
 type Table struct {
-	mu    sync.RWMutex
-	defs  map[string]*entry
-	names []string
-	cache sync.Map
+	mu       sync.RWMutex
+	defs     map[string]*entry
+	names    []string
+	cache    sync.Map
+	cacheLen atomic.Int64
 }
 
 // NewTable returns a table holding the built-in units only.
@@ -108,7 +110,11 @@ func (t *Table) Parse(expr string) (Unit, error) {
 	if err != nil {
 		return Unit{}, err
 	}
-	t.cache.Store(expr, u)
+	if t.cacheLen.Load() < maxCacheLen {
+		if _, loaded := t.cache.LoadOrStore(expr, u); !loaded {
+			t.cacheLen.Add(1)
+		}
+	}
 	return u, nil
 }
 

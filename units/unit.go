@@ -93,7 +93,7 @@ func (u Unit) Mul(o Unit) (Unit, error) {
 	if err != nil {
 		return Unit{}, err
 	}
-	return Unit{dim: d, factor: u.factor * o.factor, angle: u.angle + o.angle, solid: u.solid + o.solid, sym: t.spell(styleASCII)}, nil
+	return Unit{dim: d, factor: u.factor * o.factor, angle: u.angle + o.angle, solid: u.solid + o.solid, sym: t.spell(ASCII)}, nil
 }
 
 // Div returns the quotient unit u/o.
@@ -106,7 +106,7 @@ func (u Unit) Div(o Unit) (Unit, error) {
 	if err != nil {
 		return Unit{}, err
 	}
-	return Unit{dim: d, factor: u.factor / o.factor, angle: u.angle - o.angle, solid: u.solid - o.solid, sym: t.spell(styleASCII)}, nil
+	return Unit{dim: d, factor: u.factor / o.factor, angle: u.angle - o.angle, solid: u.solid - o.solid, sym: t.spell(ASCII)}, nil
 }
 
 // Pow returns u raised to num/den. Angles must keep whole exponents.
@@ -120,7 +120,7 @@ func (u Unit) Pow(num, den int) (Unit, error) {
 		return Unit{}, &ParseError{Expr: u.sym, Reason: "a fractional power of an angle unit", Err: ErrExponent}
 	}
 	t := termsOf(u).pow(num, den)
-	return Unit{dim: d, factor: math.Pow(u.factor, float64(num)/float64(den)), angle: int8(a / den), solid: int8(s / den), sym: t.spell(styleASCII)}, nil
+	return Unit{dim: d, factor: math.Pow(u.factor, float64(num)/float64(den)), angle: int8(a / den), solid: int8(s / den), sym: t.spell(ASCII)}, nil
 }
 
 // Of returns the quantity of value v in unit u: v·factor + offset in SI.
