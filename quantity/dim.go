@@ -363,16 +363,3 @@ func (d Dim) SIUnit() string { return d.spell(spellSI) }
 // SIUnitASCII returns d in SI base units in ASCII, for logs and CSV
 // headers: "kg m^-1 s^-2".
 func (d Dim) SIUnitASCII() string { return d.spell(spellSIASCII) }
-
-// MarshalText encodes d in the ASCII dimension form, which ParseDim reads.
-func (d Dim) MarshalText() ([]byte, error) { return []byte(d.ASCII()), nil }
-
-// UnmarshalText decodes a dimension written in any form ParseDim accepts.
-func (d *Dim) UnmarshalText(b []byte) error {
-	v, err := ParseDim(string(b))
-	if err != nil {
-		return err
-	}
-	*d = v
-	return nil
-}

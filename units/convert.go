@@ -142,17 +142,20 @@ func (v Value) String() string {
 	return n + " " + v.Unit.Format(Unicode)
 }
 
-// MarshalText encodes v as its number and its ASCII unit spelling.
-func (v Value) MarshalText() ([]byte, error) {
+// AppendText appends v as String writes it to b: the shortest decimal
+// that reads back to the same float64, a space and the unit's Unicode
+// spelling. A value that is not finite is refused. It implements
+// encoding.TextAppender.
+func (v Value) AppendText(b []byte) ([]byte, error) {
 	if math.IsNaN(v.Number) || math.IsInf(v.Number, 0) {
-		return nil, fmt.Errorf("units: cannot encode the non-finite value %v", v.Number)
+		return b, &ValueError{Text: strconv.FormatFloat(v.Number, 'g', -1, 64), Reason: "a value that is not finite has no text form"}
 	}
-	n := strconv.FormatFloat(v.Number, 'g', -1, 64)
-	if v.Unit.sym == "" || v.Unit.sym == "1" {
-		return []byte(n), nil
-	}
-	return []byte(n + " " + v.Unit.String()), nil
+	return append(b, v.String()...), nil
 }
+
+// MarshalText encodes v as String writes it; ParseValue, and so
+// UnmarshalText, reads it back to the same number and unit.
+func (v Value) MarshalText() ([]byte, error) { return v.AppendText(nil) }
 
 // UnmarshalText decodes text ParseValue reads.
 func (v *Value) UnmarshalText(b []byte) error {
@@ -197,42 +200,26 @@ func parseValue(tab symbolTable, s string, parse func(string) (Unit, error)) (Va
 	}
 	t := strings.TrimSpace(s)
 	lead := strings.Index(s, t)
-	j := 0
-	if j < len(t) && (t[j] == '+' || t[j] == '-') {
-		j++
-	}
-	digits := 0
-	for j < len(t) && (t[j] >= '0' && t[j] <= '9' || t[j] == '.') {
-		if t[j] != '.' {
-			digits++
-		}
-		j++
-	}
-	if digits == 0 {
-		return Value{}, &ValueError{Text: s, Offset: lead, Reason: "expected a number"}
-	}
-	if j < len(t) && (t[j] == 'e' || t[j] == 'E') {
-		k := j + 1
-		if k < len(t) && (t[k] == '+' || t[k] == '-') {
-			k++
-		}
-		if k < len(t) && t[k] >= '0' && t[k] <= '9' {
-			for k < len(t) && t[k] >= '0' && t[k] <= '9' {
-				k++
-			}
-			j = k
-		}
+	text, j, reason := lexNumber(t)
+	if reason != "" {
+		return Value{}, &ValueError{Text: s, Offset: lead + j, Reason: reason}
 	}
 	if j > maxNumLen {
 		return Value{}, &ValueError{Text: s, Offset: lead, Reason: "number too long"}
 	}
-	x, err := strconv.ParseFloat(t[:j], 64)
+	x, err := strconv.ParseFloat(text, 64)
 	if err != nil || math.IsInf(x, 0) {
 		return Value{}, &ValueError{Text: s, Offset: lead, Reason: fmt.Sprintf("%q is not a finite number", t[:j])}
+	}
+	if x == 0 && strings.ContainsAny(strings.SplitN(strings.ToLower(text), "e", 2)[0], "123456789") {
+		return Value{}, &ValueError{Text: s, Offset: lead, Reason: fmt.Sprintf("%q underflows to zero", t[:j])}
 	}
 	rest := strings.TrimSpace(t[j:])
 	if rest == "" {
 		return Value{Number: x, Unit: One}, nil
+	}
+	if c := rest[0]; (c >= '0' && c <= '9' || c == '.') && !reciprocal(rest) {
+		return Value{}, &ValueError{Text: s, Offset: lead + len(t) - len(rest), Reason: "a second number after a space: to group digits write a thin space (U+2009) between groups of three, as in 101\u2009325 Pa, or no space at all"}
 	}
 	if r, _ := utf8.DecodeRuneInString(rest); r == '/' || r == '*' || r == '^' {
 		return Value{}, &ValueError{Text: s, Offset: lead + j, Reason: "a unit must follow the number (write 1/s, not /s)"}
@@ -292,3 +279,94 @@ func (f *Flag) Set(s string) error {
 
 // Dim returns the dimension the flag requires.
 func (f *Flag) Dim() quantity.Dim { return f.dim }
+
+// lexNumber reads the number at the start of t: an optional sign, digits
+// with an optional decimal point, and an optional exponent. Digits may be
+// grouped in threes by a thin space (U+2009) or a narrow no-break space
+// (U+202F), as the SI Brochure (9th ed., 2019, §5.4.4) writes them
+// ("101 325"); the groups are checked and the separators removed. It
+// returns the number's text for strconv, the bytes it used, and a reason
+// when the text is malformed.
+func lexNumber(t string) (num string, end int, reason string) {
+	var sb []byte
+	j := 0
+	if j < len(t) && (t[j] == '+' || t[j] == '-') {
+		sb = append(sb, t[j])
+		j++
+	}
+	group := 0       // digits in the current group
+	grouped := false // a separator was seen in this part
+	frac := false
+	digits := 0
+	for j < len(t) {
+		c := t[j]
+		switch {
+		case c >= '0' && c <= '9':
+			sb = append(sb, c)
+			group++
+			digits++
+			j++
+			continue
+		case c == '.' && !frac:
+			if grouped && group != 3 {
+				return "", j, "digits grouped with a thin space must come in groups of three"
+			}
+			sb = append(sb, c)
+			frac, grouped, group = true, false, 0
+			j++
+			continue
+		}
+		r, n := utf8.DecodeRuneInString(t[j:])
+		if r != '\u2009' && r != '\u202f' {
+			break
+		}
+		k := j + n
+		if group == 0 || k >= len(t) || t[k] < '0' || t[k] > '9' {
+			return "", j, "a thin space must stand between two digits"
+		}
+		// Integer part: the first group has one to three digits, the
+		// others three. Fraction: every group but the last has three.
+		if frac || grouped {
+			if group != 3 {
+				return "", j, "digits grouped with a thin space must come in groups of three"
+			}
+		} else if group > 3 {
+			return "", j, "digits grouped with a thin space must come in groups of three"
+		}
+		grouped, group = true, 0
+		j = k
+	}
+	if grouped && !frac && group != 3 {
+		return "", j, "digits grouped with a thin space must come in groups of three"
+	}
+	if digits == 0 {
+		return "", 0, "expected a number"
+	}
+	if j < len(t) && (t[j] == 'e' || t[j] == 'E') {
+		k := j + 1
+		if k < len(t) && (t[k] == '+' || t[k] == '-') {
+			k++
+		}
+		if k < len(t) && t[k] >= '0' && t[k] <= '9' {
+			for k < len(t) && t[k] >= '0' && t[k] <= '9' {
+				k++
+			}
+			sb = append(sb, t[j:k]...)
+			j = k
+		}
+	}
+	return string(sb), j, ""
+}
+
+// reciprocal reports whether a unit expression starts with a number that
+// divides ("1/s", "1 / min"), which is a unit, not a second number.
+func reciprocal(s string) bool {
+	i := 0
+	for i < len(s) && (s[i] >= '0' && s[i] <= '9' || s[i] == '.') {
+		i++
+	}
+	for i < len(s) && s[i] == ' ' {
+		i++
+	}
+	return i < len(s) && s[i] == '/'
+}

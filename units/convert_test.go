@@ -180,7 +180,7 @@ func TestTemperaturePoints(t *testing.T) {
 		{0, "K", "°F", -459.67},
 		{300, "K", "degC", 26.85},
 		{10, "Δ°C", "Δ°F", 18},
-		{18, "delta_degF", "K", 10},
+		{18, "degF_diff", "K", 10},
 		{10, "K", "ΔdegC", 10},
 		{1, "mK", "K", 1e-3},
 	}

@@ -30,7 +30,7 @@
 // engineering data sheets mean it; this is common practice, and the
 // reason K and °R, whose zeros are absolute, need no distinction.
 // Temperature differences have their own spellings, Δ°C, Δ°F, Δ°R and ΔK
-// (ASCII delta_degC, delta_degF, delta_degR, delta_K). Converting a level
+// (ASCII degC_diff, degF_diff, degR_diff, K_diff). Converting a level
 // on a scale to a difference, or back, is refused as ambiguous.
 //
 // # Angle and rotation

@@ -206,7 +206,7 @@ var (
 // A temperature scale written alone (°C, degF) is a scale and converts
 // levels affinely; inside a compound unit (W/(m·°C)) it denotes its degree
 // as an interval, as engineering data sheets mean it (common practice).
-// Δ°C, ΔdegF (ASCII delta_degC) spell temperature differences explicitly.
+// Δ°C, ΔdegF (ASCII degC_diff) spell temperature differences explicitly.
 //
 // Errors are *ParseError values. Parse never panics and its work is
 // bounded by MaxExprLen and MaxDepth. Results are cached, so parsing the
@@ -367,7 +367,11 @@ func (p *parser) product() (val, error) {
 				return val{}, p.fail(opAt, ErrDangling, "product operator with nothing after it")
 			}
 		case spaced:
-			// juxtaposition: a product
+			// juxtaposition: a product, but not of a number after a unit,
+			// which reads as a second number or a lost exponent.
+			if c := p.s[p.i]; c >= '0' && c <= '9' || c == '.' {
+				return val{}, p.fail(p.i, ErrAmbiguous, "a number after a unit and a space: write an exponent (m^3), a product with the number first (3·m), or a separate value")
+			}
 		default:
 			return val{}, p.fail(p.i, ErrSyntax, fmt.Sprintf("unexpected %q (missing operator?)", p.peekRune()))
 		}
@@ -573,9 +577,21 @@ func (p *parser) symbol() (val, error) {
 		}
 	}
 	sym := p.s[start:p.i]
+	if sym == "°" {
+		k := p.i
+		for k < len(p.s) && (p.s[k] == ' ' || p.s[k] == '\t') {
+			k++
+		}
+		if k > p.i && k < len(p.s) && strings.ContainsRune("CFRK", rune(p.s[k])) {
+			return val{}, p.fail(start, ErrAmbiguous, fmt.Sprintf("a degree sign, a space and %c: write °%c for the temperature, or deg·%c for an angle times the unit", p.s[k], p.s[k], p.s[k]))
+		}
+	}
 	e, ok := p.tab.lookup(sym)
 	if !ok {
 		return val{}, p.unknown(start, sym)
+	}
+	if e.ambiguous != "" {
+		return val{}, &ParseError{Expr: p.s, Offset: start, Err: ErrAmbiguous, Symbol: sym, Reason: fmt.Sprintf("%q reads as %s; define it in a Table to say which is meant", sym, e.ambiguous)}
 	}
 	p.terms = append(p.terms, term{sym: e.u.sym, num: 1, den: 1})
 	v := val{

@@ -52,6 +52,23 @@ type entry struct {
 	uni, tex   string
 	prefixable bool
 	scaleSym   bool // a temperature scale symbol (°C, °F)
+	// ambiguous, for an SI-prefixed form that data sheets use for another
+	// unit, says both readings; such a symbol is refused unless a user
+	// table defines it.
+	ambiguous string
+}
+
+// ambiguousPrefixed are SI-prefixed symbols that collide with a common
+// non-SI symbol of data sheets (common practice); each is refused with
+// both readings rather than read by its prefix.
+var ambiguousPrefixed = map[string]string{
+	"PS": "petasiemens by its SI prefix, but data sheets use PS for the metric horsepower",
+	"kt": "kilotonne by its SI prefix, but ship and tunnel data use kt for the knot (write kn)",
+	"pt": "picotonne by its SI prefix, but pt is usually the pint",
+	"Pt": "petatonne by its SI prefix, but Pt is usually the pint",
+	"mt": "millitonne by its SI prefix, but mt is usually meant as the metric ton (write t)",
+	"ct": "centitonne by its SI prefix, but ct is usually the carat",
+	"at": "attotonne by its SI prefix, but at is usually the technical atmosphere (kgf/cm²)",
 }
 
 // Definitions from which the factors below are derived. Exact values are
@@ -186,10 +203,10 @@ var builtin = []entry{
 	// 811 (2008), App. B.9 and §4.2.1.1).
 	{u: Unit{dim: quantity.Temperature, factor: 5.0 / 9, offset: 459.67 * 5 / 9, temp: tempScale, sym: "degF"}, uni: "°F", tex: `{}^{\circ}\mathrm{F}`, scaleSym: true},
 	{u: Unit{dim: quantity.Temperature, factor: 5.0 / 9, sym: "degR"}, uni: "°R", tex: `{}^{\circ}\mathrm{R}`},
-	{u: Unit{dim: quantity.Temperature, factor: 1, temp: tempInterval, sym: "delta_degC"}, uni: "Δ°C", tex: `\Delta{}^{\circ}\mathrm{C}`},
-	{u: Unit{dim: quantity.Temperature, factor: 5.0 / 9, temp: tempInterval, sym: "delta_degF"}, uni: "Δ°F", tex: `\Delta{}^{\circ}\mathrm{F}`},
-	{u: Unit{dim: quantity.Temperature, factor: 5.0 / 9, temp: tempInterval, sym: "delta_degR"}, uni: "Δ°R", tex: `\Delta{}^{\circ}\mathrm{R}`},
-	{u: Unit{dim: quantity.Temperature, factor: 1, temp: tempInterval, sym: "delta_K"}, uni: "ΔK", tex: `\Delta\mathrm{K}`},
+	{u: Unit{dim: quantity.Temperature, factor: 1, temp: tempInterval, sym: "degC_diff"}, uni: "Δ°C", tex: `\Delta{}^{\circ}\mathrm{C}`},
+	{u: Unit{dim: quantity.Temperature, factor: 5.0 / 9, temp: tempInterval, sym: "degF_diff"}, uni: "Δ°F", tex: `\Delta{}^{\circ}\mathrm{F}`},
+	{u: Unit{dim: quantity.Temperature, factor: 5.0 / 9, temp: tempInterval, sym: "degR_diff"}, uni: "Δ°R", tex: `\Delta{}^{\circ}\mathrm{R}`},
+	{u: Unit{dim: quantity.Temperature, factor: 1, temp: tempInterval, sym: "K_diff"}, uni: "ΔK", tex: `\Delta\mathrm{K}`},
 	// Rotation: a revolution is 2π rad; rpm is rev/min.
 	{u: Unit{dim: dimOne, factor: 2 * math.Pi, angle: 1, sym: "rev"}, uni: "rev", tex: `\mathrm{rev}`},
 	{u: Unit{dim: quantity.Frequency, factor: 2 * math.Pi / 60, angle: 1, sym: "rpm"}, uni: "rpm", tex: `\mathrm{rpm}`},
@@ -211,13 +228,13 @@ var aliases = map[string]string{
 	"°R":      "degR",
 	"℃":       "degC",
 	"℉":       "degF",
-	"Δ°C":     "delta_degC",
-	"ΔdegC":   "delta_degC",
-	"Δ°F":     "delta_degF",
-	"ΔdegF":   "delta_degF",
-	"Δ°R":     "delta_degR",
-	"ΔdegR":   "delta_degR",
-	"ΔK":      "delta_K",
+	"Δ°C":     "degC_diff",
+	"ΔdegC":   "degC_diff",
+	"Δ°F":     "degF_diff",
+	"ΔdegF":   "degF_diff",
+	"Δ°R":     "degR_diff",
+	"ΔdegR":   "degR_diff",
+	"ΔK":      "K_diff",
 	"Btu":     "BTU",
 	"lbm":     "lb",
 	"knot":    "kn",
@@ -263,7 +280,9 @@ var builtinIndex = func() *tableIndex {
 					continue // an exact symbol wins: ft is the foot, not femto-tonne
 				}
 				if _, ok := t.prefixed[name]; !ok {
-					t.prefixed[name] = prefixedEntry(p, base)
+					e := prefixedEntry(p, base)
+					e.ambiguous = ambiguousPrefixed[name]
+					t.prefixed[name] = e
 				}
 			}
 		}

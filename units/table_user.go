@@ -90,7 +90,7 @@ func (t *Table) Define(name, expr string) error {
 	if _, ok := t.defs[name]; ok {
 		return &DefineError{Name: name, Reason: "already defined in this table"}
 	}
-	if _, ok := lookupIn(builtinIndex, name); ok {
+	if e, ok := lookupIn(builtinIndex, name); ok && e.ambiguous == "" {
 		return &DefineError{Name: name, Reason: "already a built-in unit (or a prefixed one)"}
 	}
 	u.sym = name

@@ -147,8 +147,13 @@ func (u Unit) String() string {
 	return u.sym
 }
 
-// MarshalText encodes u as its ASCII spelling.
-func (u Unit) MarshalText() ([]byte, error) { return []byte(u.String()), nil }
+// AppendText appends u's ASCII spelling, as String writes it, to b. It
+// implements encoding.TextAppender.
+func (u Unit) AppendText(b []byte) ([]byte, error) { return append(b, u.String()...), nil }
+
+// MarshalText encodes u as its ASCII spelling, as String writes it; Parse
+// reads it back to the same unit.
+func (u Unit) MarshalText() ([]byte, error) { return u.AppendText(nil) }
 
 // UnmarshalText parses a unit expression with the built-in table.
 func (u *Unit) UnmarshalText(b []byte) error {

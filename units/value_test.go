@@ -121,7 +121,7 @@ func TestConversionErrors(t *testing.T) {
 		{"Hz", "rpm", units.ErrAngle, "write the source with its angle"},
 		{"rad", "1", units.ErrAngle, "plane angle"},
 		{"lm", "cd", units.ErrAngle, "solid angle"},
-		{"degC", "delta_degF", units.ErrTemperature, "temperature scale (a level)"},
+		{"degC", "degF_diff", units.ErrTemperature, "temperature scale (a level)"},
 		{"Δ°F", "°C", units.ErrTemperature, "both as differences"},
 		{"kg/m^3", "lb/ft^2", units.ErrIncompatible, "density"},
 	}

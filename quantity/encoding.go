@@ -1,0 +1,90 @@
+package quantity
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+)
+
+// AppendText appends the text form of d, as String writes it, to b. It
+// implements encoding.TextAppender.
+func (d Dim) AppendText(b []byte) ([]byte, error) { return append(b, d.String()...), nil }
+
+// MarshalText encodes d as String writes it ("L⁻¹ M T⁻²"); ParseDim, and
+// so UnmarshalText, reads it back exactly.
+func (d Dim) MarshalText() ([]byte, error) { return d.AppendText(nil) }
+
+// UnmarshalText decodes a dimension written in any form ParseDim accepts.
+func (d *Dim) UnmarshalText(b []byte) error {
+	v, err := ParseDim(string(b))
+	if err != nil {
+		return err
+	}
+	*d = v
+	return nil
+}
+
+// AppendText appends the text form of q, as String writes it, to b: the
+// shortest decimal that reads back to the same float64, a space, and the
+// SI base-unit form of the dimension ("1.225 kg·m⁻³"). A value that is
+// not finite is refused, since no number written in a data file should
+// read back as NaN or ±Inf. It implements encoding.TextAppender.
+func (q Quantity) AppendText(b []byte) ([]byte, error) {
+	if math.IsNaN(q.v) || math.IsInf(q.v, 0) {
+		return b, &ParseError{Input: q.String(), Reason: "a value that is not finite has no text form"}
+	}
+	b = strconv.AppendFloat(b, q.v, 'g', -1, 64)
+	if q.d.bits != 0 {
+		b = append(b, ' ')
+		b = append(b, q.d.SIUnit()...)
+	}
+	return b, nil
+}
+
+// MarshalText encodes q as String writes it; UnmarshalText reads it back
+// to the same bits. JSON encodes a Quantity through it, as a string.
+func (q Quantity) MarshalText() ([]byte, error) { return q.AppendText(nil) }
+
+// UnmarshalText decodes a number, optionally followed by a space and a
+// dimension in any form ParseDim accepts ("1.225 kg·m⁻³", "1.225 kg
+// m^-3", "2.5"). Units other than the SI base units are the units
+// package's job (units.ParseQuantity).
+func (q *Quantity) UnmarshalText(b []byte) error {
+	v, err := ParseQuantitySI(string(b))
+	if err != nil {
+		return err
+	}
+	*q = v
+	return nil
+}
+
+// ParseQuantitySI reads a quantity written as String and MarshalText
+// write it: a finite number and, after a space, a dimension in SI base
+// units or ISO form. It reports a *ParseError.
+func ParseQuantitySI(s string) (Quantity, error) {
+	if len(s) > maxDimText+64 {
+		return Quantity{}, &ParseError{Input: s[:64] + "…", Offset: 64, Reason: "text too long"}
+	}
+	t := strings.TrimSpace(s)
+	lead := strings.Index(s, t)
+	num, rest, _ := strings.Cut(t, " ")
+	if num == "" {
+		return Quantity{}, &ParseError{Input: s, Offset: lead, Reason: "expected a number"}
+	}
+	v, err := strconv.ParseFloat(num, 64)
+	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+		return Quantity{}, &ParseError{Input: s, Offset: lead, Reason: fmt.Sprintf("%q is not a finite number", num)}
+	}
+	if v == 0 && strings.ContainsAny(strings.SplitN(strings.ToLower(num), "e", 2)[0], "123456789") {
+		return Quantity{}, &ParseError{Input: s, Offset: lead, Reason: fmt.Sprintf("%q underflows to zero", num)}
+	}
+	d, err := ParseDim(rest)
+	if err != nil {
+		if pe, ok := err.(*ParseError); ok {
+			pe.Input, pe.Offset = s, pe.Offset+lead+len(num)+1
+		}
+		return Quantity{}, err
+	}
+	return Quantity{v, d}, nil
+}

@@ -1,0 +1,92 @@
+package quantity_test
+
+import (
+	"encoding"
+	"encoding/json"
+	"math"
+	"testing"
+
+	"github.com/google/go-cmp/cmp"
+	"pgregory.net/rapid"
+
+	q "similis.dev/similis/quantity"
+)
+
+var (
+	_ encoding.TextAppender    = q.Dim{}
+	_ encoding.TextAppender    = q.Quantity{}
+	_ encoding.TextUnmarshaler = (*q.Dim)(nil)
+	_ encoding.TextUnmarshaler = (*q.Quantity)(nil)
+)
+
+// TestQuantityJSON: a Quantity used to encode as {} and lose its value.
+func TestQuantityJSON(t *testing.T) {
+	type row struct {
+		P q.Quantity `json:"p"`
+		D q.Dim      `json:"d"`
+	}
+	in := row{P: q.New(101325, q.Pressure), D: q.DynamicViscosity}
+	b, err := json.Marshal(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if want := `{"p":"101325 kg·m⁻¹·s⁻²","d":"L⁻¹ M T⁻¹"}`; string(b) != want {
+		t.Errorf("json = %s, want %s", b, want)
+	}
+	var out row
+	if err := json.Unmarshal(b, &out); err != nil {
+		t.Fatal(err)
+	}
+	eq := cmp.Options{cmp.Comparer(func(a, b q.Quantity) bool { return a == b }), cmp.Comparer(func(a, b q.Dim) bool { return a == b })}
+	if diff := cmp.Diff(in, out, eq); diff != "" {
+		t.Error(diff)
+	}
+	if _, err := json.Marshal(q.New(math.NaN(), q.Length)); err == nil {
+		t.Error("NaN encoded")
+	}
+}
+
+// TestTextRoundTrip: every Dim and every finite Quantity reads back from
+// its text to the same bits, and the text is String's.
+func TestTextRoundTrip(t *testing.T) {
+	rapid.Check(t, func(t *rapid.T) {
+		d := genDim(t, "d")
+		b, err := d.MarshalText()
+		if err != nil || string(b) != d.String() {
+			t.Fatalf("MarshalText(%v) = %q, %v", d, b, err)
+		}
+		var d2 q.Dim
+		if err := d2.UnmarshalText(b); err != nil || d2 != d {
+			t.Fatalf("%q reads back as %v, %v", b, d2, err)
+		}
+		v := rapid.Float64().Draw(t, "v")
+		if math.IsInf(v, 0) || math.IsNaN(v) {
+			return
+		}
+		x := q.New(v, d)
+		b, err = x.MarshalText()
+		if err != nil || string(b) != x.String() {
+			t.Fatalf("MarshalText(%v) = %q, %v", x, b, err)
+		}
+		var x2 q.Quantity
+		if err := x2.UnmarshalText(b); err != nil || x2 != x || math.Signbit(x2.Value()) != math.Signbit(v) {
+			t.Fatalf("%q reads back as %v, %v", b, x2, err)
+		}
+		b, _ = x.AppendText([]byte("p="))
+		if string(b) != "p="+x.String() {
+			t.Fatalf("AppendText = %q", b)
+		}
+	})
+}
+
+func TestParseQuantitySIErrors(t *testing.T) {
+	for _, s := range []string{"", "kg", "NaN kg", "Inf", "1e-400 m", "1 furlong", "1e999 m"} {
+		if _, err := q.ParseQuantitySI(s); err == nil {
+			t.Errorf("ParseQuantitySI(%q) accepted", s)
+		}
+	}
+	got, err := q.ParseQuantitySI("1.225 kg m^-3")
+	if err != nil || got != q.New(1.225, q.Density) {
+		t.Errorf("ASCII form: %v, %v", got, err)
+	}
+}
