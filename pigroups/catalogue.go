@@ -2,7 +2,9 @@ package pigroups
 
 import (
 	"fmt"
+	"math"
 	"slices"
+	"strconv"
 	"strings"
 	"sync"
 
@@ -53,7 +55,7 @@ var tradeKinds = map[string]quantity.Dim{
 // explicitOnly are kinds a variable must be given explicitly to match:
 // a length is not assumed to be a mean free path, nor a velocity a speed
 // of sound, nor a pressure a bulk modulus.
-var explicitOnly = map[string]bool{"mean free path": true, "speed of sound": true, "bulk modulus": true, "Coriolis parameter": true}
+var explicitOnly = map[string]bool{"mean free path": true, "speed of sound": true, "bulk modulus": true, "Coriolis parameter": true, "buoyancy": true}
 
 // synonyms are kinds of package quantity left out of inference because a
 // preferred name covers them.
@@ -112,15 +114,52 @@ func candidateKinds(v Variable) ([]string, error) {
 }
 
 // Named is a named dimensionless group of the trade, defined by the kinds
-// of quantity it combines and their exponents.
+// of quantity it combines, their exponents, and the numerical factor and
+// conventions of its definition.
 type Named struct {
 	Name     string // "Reynolds number"
 	Symbol   string // "Re"
 	Relation string // how it follows from others, if it does ("Gr·Pr")
+	// Definition is the trade's definition as written, with its
+	// conventions: "C_D = F/(½·ρ·V²·A)", "K_T = T/(ρ·n²·D⁴), n in
+	// revolutions per second".
+	Definition string
+	// Coef is the numerical factor of the definition over the product of
+	// its kinds: 2 for C_D = F/(½ρV²A), 1 for Re.
+	Coef exact.Rat
+	// Revolutions is true when a rotational speed enters the definition
+	// in revolutions per second (K_T, K_Q, J and the turbomachine
+	// coefficients, common practice); otherwise it enters in radians per
+	// second (ωR/V), which is the value a Quantity of angular velocity
+	// holds, since the SI makes the radian the number one. A variable of
+	// the kind "rotational speed" always holds rad/s; the factor 2π per
+	// power is applied where the definition needs revolutions.
+	Revolutions bool
 	// Forms lists the definitions, each a product of kinds to powers; a
 	// group matches a form when its variables' kinds match with all
 	// exponents one common power of the form's.
-	Forms [][]KindPower
+	Forms []Form
+}
+
+// Form is one way of writing a named group as a product of kinds of
+// quantity.
+type Form struct {
+	Factors []KindPower
+	// Proxy, when set, is the factor of this form that stands in for a
+	// reference quantity of the definition (a length squared in place of
+	// the reference area A), so a group of this form is proportional to
+	// the named group, not equal to it.
+	Proxy *Proxy
+}
+
+// Proxy describes a stand-in for a reference quantity: the form's factor
+// Kind^Exp takes the place of the definition's Ref^RefExp.
+type Proxy struct {
+	Kind   string    // "length"
+	Exp    exact.Rat // −2
+	Ref    string    // "A"
+	RefExp exact.Rat // −1
+	What   string    // "the reference area"
 }
 
 // KindPower is one factor of a named group's definition.
@@ -131,134 +170,171 @@ type KindPower struct {
 
 func kp(kind string, n, d int64) KindPower { return KindPower{kind, exact.Frac(n, d)} }
 
+func form(f ...KindPower) Form { return Form{Factors: f} }
+
+// areaProxy is the form with L² standing in for a reference area.
+func areaProxy(f ...KindPower) Form {
+	return Form{Factors: f, Proxy: &Proxy{Kind: "length", Exp: exact.Int(-2), Ref: "A", RefExp: exact.Int(-1), What: "the reference area"}}
+}
+
+var one, two = exact.Int(1), exact.Int(2)
+
 // catalogue of named groups. Definitions are those of ISO 80000-11
-// (characteristic numbers) where it gives one, otherwise common practice;
-// numerical factors (½ in coefficients) do not change the exponents.
+// (characteristic numbers) where it gives one, otherwise common practice,
+// as the Definition of each states; the numerical factor (2 for a
+// coefficient over ½ρV²) and the rotational-speed convention are part of
+// each entry.
 var catalogue = []Named{
-	{Name: "Reynolds number", Symbol: "Re", Forms: [][]KindPower{
-		{kp("density", 1, 1), kp("velocity", 1, 1), kp("length", 1, 1), kp("dynamic viscosity", -1, 1)},
-		{kp("velocity", 1, 1), kp("length", 1, 1), kp("kinematic viscosity", -1, 1)},
+	{Name: "Reynolds number", Symbol: "Re", Coef: one, Definition: "Re = ρ·V·L/μ = V·L/ν (ISO 80000-11)", Forms: []Form{
+		form(kp("density", 1, 1), kp("velocity", 1, 1), kp("length", 1, 1), kp("dynamic viscosity", -1, 1)),
+		form(kp("velocity", 1, 1), kp("length", 1, 1), kp("kinematic viscosity", -1, 1)),
 	}},
-	{Name: "Froude number", Symbol: "Fr", Forms: [][]KindPower{
-		{kp("velocity", 1, 1), kp("gravitational acceleration", -1, 2), kp("length", -1, 2)},
+	{Name: "Froude number", Symbol: "Fr", Coef: one, Definition: "Fr = V/√(g·L) (ISO 80000-11)", Forms: []Form{
+		form(kp("velocity", 1, 1), kp("gravitational acceleration", -1, 2), kp("length", -1, 2)),
 	}},
-	{Name: "Mach number", Symbol: "Ma", Forms: [][]KindPower{
-		{kp("velocity", 1, 1), kp("speed of sound", -1, 1)},
+	{Name: "Mach number", Symbol: "Ma", Coef: one, Definition: "Ma = V/a", Forms: []Form{
+		form(kp("velocity", 1, 1), kp("speed of sound", -1, 1)),
 	}},
-	{Name: "Weber number", Symbol: "We", Forms: [][]KindPower{
-		{kp("density", 1, 1), kp("velocity", 2, 1), kp("length", 1, 1), kp("surface tension", -1, 1)},
+	{Name: "Weber number", Symbol: "We", Coef: one, Definition: "We = ρ·V²·L/σ (ISO 80000-11)", Forms: []Form{
+		form(kp("density", 1, 1), kp("velocity", 2, 1), kp("length", 1, 1), kp("surface tension", -1, 1)),
 	}},
-	{Name: "Euler number", Symbol: "Eu", Forms: [][]KindPower{
-		{kp("pressure difference", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1)},
+	{Name: "Euler number", Symbol: "Eu", Coef: one, Definition: "Eu = Δp/(ρ·V²) (ISO 80000-11)", Forms: []Form{
+		form(kp("pressure difference", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1)),
 	}},
-	{Name: "cavitation number", Symbol: "σ", Forms: [][]KindPower{
-		{kp("vapour pressure", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1)},
-		{kp("pressure", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1)},
+	{Name: "cavitation number", Symbol: "σ", Coef: two, Definition: "σ = (p − p_v)/(½·ρ·V²), p − p_v the pressure above vapour pressure", Forms: []Form{
+		form(kp("vapour pressure", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1)),
+		form(kp("pressure", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1)),
 	}},
-	{Name: "pressure coefficient", Symbol: "C_p", Forms: [][]KindPower{
-		{kp("pressure difference", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1)},
+	{Name: "pressure coefficient", Symbol: "C_p", Coef: two, Definition: "C_p = Δp/(½·ρ·V²)", Forms: []Form{
+		form(kp("pressure difference", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1)),
 	}},
-	{Name: "loss coefficient", Symbol: "K", Forms: [][]KindPower{
-		{kp("pressure difference", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1)},
+	{Name: "loss coefficient", Symbol: "K", Coef: two, Definition: "K = Δp/(½·ρ·V²)", Forms: []Form{
+		form(kp("pressure difference", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1)),
 	}},
-	{Name: "Strouhal number", Symbol: "St", Forms: [][]KindPower{
-		{kp("frequency", 1, 1), kp("length", 1, 1), kp("velocity", -1, 1)},
+	{Name: "Strouhal number", Symbol: "St", Coef: one, Definition: "St = f·L/V, f in cycles per second (ISO 80000-11)", Forms: []Form{
+		form(kp("frequency", 1, 1), kp("length", 1, 1), kp("velocity", -1, 1)),
 	}},
-	{Name: "Cauchy number", Symbol: "Ca", Forms: [][]KindPower{
-		{kp("density", 1, 1), kp("velocity", 2, 1), kp("bulk modulus", -1, 1)},
+	{Name: "Cauchy number", Symbol: "Ca", Coef: one, Definition: "Ca = ρ·V²/K", Forms: []Form{
+		form(kp("density", 1, 1), kp("velocity", 2, 1), kp("bulk modulus", -1, 1)),
 	}},
-	{Name: "Prandtl number", Symbol: "Pr", Forms: [][]KindPower{
-		{kp("dynamic viscosity", 1, 1), kp("specific heat capacity", 1, 1), kp("thermal conductivity", -1, 1)},
-		{kp("kinematic viscosity", 1, 1), kp("thermal diffusivity", -1, 1)},
+	{Name: "Prandtl number", Symbol: "Pr", Coef: one, Definition: "Pr = μ·c_p/k = ν/α (ISO 80000-11)", Forms: []Form{
+		form(kp("dynamic viscosity", 1, 1), kp("specific heat capacity", 1, 1), kp("thermal conductivity", -1, 1)),
+		form(kp("kinematic viscosity", 1, 1), kp("thermal diffusivity", -1, 1)),
 	}},
-	{Name: "Nusselt number", Symbol: "Nu", Forms: [][]KindPower{
-		{kp("heat transfer coefficient", 1, 1), kp("length", 1, 1), kp("thermal conductivity", -1, 1)},
+	{Name: "Nusselt number", Symbol: "Nu", Coef: one, Definition: "Nu = h·L/k, k of the fluid (ISO 80000-11)", Forms: []Form{
+		form(kp("heat transfer coefficient", 1, 1), kp("length", 1, 1), kp("thermal conductivity", -1, 1)),
 	}},
-	{Name: "Biot number", Symbol: "Bi", Forms: [][]KindPower{
-		{kp("heat transfer coefficient", 1, 1), kp("length", 1, 1), kp("thermal conductivity", -1, 1)},
+	{Name: "Biot number", Symbol: "Bi", Coef: one, Definition: "Bi = h·L/k, k of the solid", Forms: []Form{
+		form(kp("heat transfer coefficient", 1, 1), kp("length", 1, 1), kp("thermal conductivity", -1, 1)),
 	}},
-	{Name: "Grashof number", Symbol: "Gr", Forms: [][]KindPower{
-		{kp("gravitational acceleration", 1, 1), kp("cubic expansion coefficient", 1, 1), kp("temperature difference", 1, 1), kp("length", 3, 1), kp("kinematic viscosity", -2, 1)},
-		{kp("gravitational acceleration", 1, 1), kp("cubic expansion coefficient", 1, 1), kp("temperature difference", 1, 1), kp("length", 3, 1), kp("density", 2, 1), kp("dynamic viscosity", -2, 1)},
-		{kp("buoyancy", 1, 1), kp("length", 3, 1), kp("kinematic viscosity", -2, 1)},
-		{kp("buoyancy", 1, 1), kp("length", 3, 1), kp("density", 2, 1), kp("dynamic viscosity", -2, 1)},
+	{Name: "Grashof number", Symbol: "Gr", Coef: one, Definition: "Gr = g·β·ΔT·L³/ν² (ISO 80000-11)", Forms: []Form{
+		form(kp("gravitational acceleration", 1, 1), kp("cubic expansion coefficient", 1, 1), kp("temperature difference", 1, 1), kp("length", 3, 1), kp("kinematic viscosity", -2, 1)),
+		form(kp("gravitational acceleration", 1, 1), kp("cubic expansion coefficient", 1, 1), kp("temperature difference", 1, 1), kp("length", 3, 1), kp("density", 2, 1), kp("dynamic viscosity", -2, 1)),
+		form(kp("buoyancy", 1, 1), kp("length", 3, 1), kp("kinematic viscosity", -2, 1)),
+		form(kp("buoyancy", 1, 1), kp("length", 3, 1), kp("density", 2, 1), kp("dynamic viscosity", -2, 1)),
 	}},
-	{Name: "Rayleigh number", Symbol: "Ra", Relation: "Gr·Pr", Forms: [][]KindPower{
-		{kp("gravitational acceleration", 1, 1), kp("cubic expansion coefficient", 1, 1), kp("temperature difference", 1, 1), kp("length", 3, 1), kp("kinematic viscosity", -1, 1), kp("thermal diffusivity", -1, 1)},
-		{kp("gravitational acceleration", 1, 1), kp("cubic expansion coefficient", 1, 1), kp("temperature difference", 1, 1), kp("length", 3, 1), kp("density", 2, 1), kp("specific heat capacity", 1, 1), kp("dynamic viscosity", -1, 1), kp("thermal conductivity", -1, 1)},
+	{Name: "Galilei number", Symbol: "Ga", Coef: one, Definition: "Ga = g·L³/ν² = g·ρ²·L³/μ²", Forms: []Form{
+		form(kp("gravitational acceleration", 1, 1), kp("length", 3, 1), kp("kinematic viscosity", -2, 1)),
+		form(kp("gravitational acceleration", 1, 1), kp("length", 3, 1), kp("density", 2, 1), kp("dynamic viscosity", -2, 1)),
 	}},
-	{Name: "Péclet number", Symbol: "Pe", Relation: "Re·Pr", Forms: [][]KindPower{
-		{kp("velocity", 1, 1), kp("length", 1, 1), kp("thermal diffusivity", -1, 1)},
-		{kp("density", 1, 1), kp("specific heat capacity", 1, 1), kp("velocity", 1, 1), kp("length", 1, 1), kp("thermal conductivity", -1, 1)},
+	{Name: "Rayleigh number", Symbol: "Ra", Relation: "Gr·Pr", Coef: one, Definition: "Ra = g·β·ΔT·L³/(ν·α) (ISO 80000-11)", Forms: []Form{
+		form(kp("gravitational acceleration", 1, 1), kp("cubic expansion coefficient", 1, 1), kp("temperature difference", 1, 1), kp("length", 3, 1), kp("kinematic viscosity", -1, 1), kp("thermal diffusivity", -1, 1)),
+		form(kp("gravitational acceleration", 1, 1), kp("cubic expansion coefficient", 1, 1), kp("temperature difference", 1, 1), kp("length", 3, 1), kp("density", 2, 1), kp("specific heat capacity", 1, 1), kp("dynamic viscosity", -1, 1), kp("thermal conductivity", -1, 1)),
 	}},
-	{Name: "Schmidt number", Symbol: "Sc", Forms: [][]KindPower{
-		{kp("kinematic viscosity", 1, 1), kp("diffusion coefficient", -1, 1)},
-		{kp("dynamic viscosity", 1, 1), kp("density", -1, 1), kp("diffusion coefficient", -1, 1)},
+	{Name: "Péclet number", Symbol: "Pe", Relation: "Re·Pr", Coef: one, Definition: "Pe = V·L/α (ISO 80000-11)", Forms: []Form{
+		form(kp("velocity", 1, 1), kp("length", 1, 1), kp("thermal diffusivity", -1, 1)),
+		form(kp("density", 1, 1), kp("specific heat capacity", 1, 1), kp("velocity", 1, 1), kp("length", 1, 1), kp("thermal conductivity", -1, 1)),
 	}},
-	{Name: "Sherwood number", Symbol: "Sh", Forms: [][]KindPower{
-		{kp("mass transfer coefficient", 1, 1), kp("length", 1, 1), kp("diffusion coefficient", -1, 1)},
+	{Name: "Schmidt number", Symbol: "Sc", Coef: one, Definition: "Sc = ν/D (ISO 80000-11)", Forms: []Form{
+		form(kp("kinematic viscosity", 1, 1), kp("diffusion coefficient", -1, 1)),
+		form(kp("dynamic viscosity", 1, 1), kp("density", -1, 1), kp("diffusion coefficient", -1, 1)),
 	}},
-	{Name: "Stanton number", Symbol: "St_h", Relation: "Nu/(Re·Pr)", Forms: [][]KindPower{
-		{kp("heat transfer coefficient", 1, 1), kp("density", -1, 1), kp("specific heat capacity", -1, 1), kp("velocity", -1, 1)},
+	{Name: "Sherwood number", Symbol: "Sh", Coef: one, Definition: "Sh = k_c·L/D (ISO 80000-11)", Forms: []Form{
+		form(kp("mass transfer coefficient", 1, 1), kp("length", 1, 1), kp("diffusion coefficient", -1, 1)),
 	}},
-	{Name: "Knudsen number", Symbol: "Kn", Forms: [][]KindPower{
-		{kp("mean free path", 1, 1), kp("length", -1, 1)},
+	{Name: "Stanton number", Symbol: "St_h", Relation: "Nu/(Re·Pr)", Coef: one, Definition: "St = h/(ρ·c_p·V) (ISO 80000-11)", Forms: []Form{
+		form(kp("heat transfer coefficient", 1, 1), kp("density", -1, 1), kp("specific heat capacity", -1, 1), kp("velocity", -1, 1)),
 	}},
-	{Name: "Rossby number", Symbol: "Ro", Forms: [][]KindPower{
-		{kp("velocity", 1, 1), kp("Coriolis parameter", -1, 1), kp("length", -1, 1)},
+	{Name: "Knudsen number", Symbol: "Kn", Coef: one, Definition: "Kn = λ/L (ISO 80000-11)", Forms: []Form{
+		form(kp("mean free path", 1, 1), kp("length", -1, 1)),
 	}},
-	{Name: "Ekman number", Symbol: "Ek", Forms: [][]KindPower{
-		{kp("kinematic viscosity", 1, 1), kp("Coriolis parameter", -1, 1), kp("length", -2, 1)},
+	{Name: "Rossby number", Symbol: "Ro", Coef: one, Definition: "Ro = V/(f·L), f the Coriolis parameter in rad/s", Forms: []Form{
+		form(kp("velocity", 1, 1), kp("Coriolis parameter", -1, 1), kp("length", -1, 1)),
 	}},
-	{Name: "Bond (Eötvös) number", Symbol: "Bo", Forms: [][]KindPower{
-		{kp("density difference", 1, 1), kp("gravitational acceleration", 1, 1), kp("length", 2, 1), kp("surface tension", -1, 1)},
-		{kp("density", 1, 1), kp("gravitational acceleration", 1, 1), kp("length", 2, 1), kp("surface tension", -1, 1)},
-		{kp("specific weight", 1, 1), kp("length", 2, 1), kp("surface tension", -1, 1)},
+	{Name: "Ekman number", Symbol: "Ek", Coef: one, Definition: "Ek = ν/(f·L²), f the Coriolis parameter in rad/s", Forms: []Form{
+		form(kp("kinematic viscosity", 1, 1), kp("Coriolis parameter", -1, 1), kp("length", -2, 1)),
 	}},
-	{Name: "capillary number", Symbol: "Ca_σ", Forms: [][]KindPower{
-		{kp("dynamic viscosity", 1, 1), kp("velocity", 1, 1), kp("surface tension", -1, 1)},
+	{Name: "Bond (Eötvös) number", Symbol: "Bo", Coef: one, Definition: "Bo = Δρ·g·L²/σ", Forms: []Form{
+		form(kp("density difference", 1, 1), kp("gravitational acceleration", 1, 1), kp("length", 2, 1), kp("surface tension", -1, 1)),
+		form(kp("density", 1, 1), kp("gravitational acceleration", 1, 1), kp("length", 2, 1), kp("surface tension", -1, 1)),
+		form(kp("specific weight", 1, 1), kp("length", 2, 1), kp("surface tension", -1, 1)),
 	}},
-	{Name: "Richardson number", Symbol: "Ri", Forms: [][]KindPower{
-		{kp("gravitational acceleration", 1, 1), kp("cubic expansion coefficient", 1, 1), kp("temperature difference", 1, 1), kp("length", 1, 1), kp("velocity", -2, 1)},
+	{Name: "capillary number", Symbol: "Ca_σ", Coef: one, Definition: "Ca = μ·V/σ", Forms: []Form{
+		form(kp("dynamic viscosity", 1, 1), kp("velocity", 1, 1), kp("surface tension", -1, 1)),
 	}},
-	{Name: "drag coefficient", Symbol: "C_D", Forms: [][]KindPower{
-		{kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("area", -1, 1)},
-		{kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)},
+	{Name: "Ohnesorge number", Symbol: "Oh", Coef: one, Definition: "Oh = μ/√(ρ·σ·L)", Forms: []Form{
+		form(kp("dynamic viscosity", 1, 1), kp("density", -1, 2), kp("surface tension", -1, 2), kp("length", -1, 2)),
 	}},
-	{Name: "lift coefficient", Symbol: "C_L", Forms: [][]KindPower{
-		{kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("area", -1, 1)},
-		{kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)},
+	{Name: "Richardson number", Symbol: "Ri", Coef: one, Definition: "Ri = g·β·ΔT·L/V²", Forms: []Form{
+		form(kp("gravitational acceleration", 1, 1), kp("cubic expansion coefficient", 1, 1), kp("temperature difference", 1, 1), kp("length", 1, 1), kp("velocity", -2, 1)),
 	}},
-	{Name: "thrust coefficient", Symbol: "K_T", Forms: [][]KindPower{
-		{kp("force", 1, 1), kp("density", -1, 1), kp("rotational speed", -2, 1), kp("length", -4, 1)},
+	{Name: "drag coefficient", Symbol: "C_D", Coef: two, Definition: "C_D = F/(½·ρ·V²·A), A the reference area", Forms: []Form{
+		form(kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("area", -1, 1)),
+		areaProxy(kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)),
 	}},
-	{Name: "torque coefficient", Symbol: "K_Q", Forms: [][]KindPower{
-		{kp("torque", 1, 1), kp("density", -1, 1), kp("rotational speed", -2, 1), kp("length", -5, 1)},
+	{Name: "lift coefficient", Symbol: "C_L", Coef: two, Definition: "C_L = F/(½·ρ·V²·A), A the reference area", Forms: []Form{
+		form(kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("area", -1, 1)),
+		areaProxy(kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)),
 	}},
-	{Name: "power coefficient", Symbol: "C_P", Forms: [][]KindPower{
-		{kp("power", 1, 1), kp("density", -1, 1), kp("rotational speed", -3, 1), kp("length", -5, 1)},
-		{kp("power", 1, 1), kp("density", -1, 1), kp("velocity", -3, 1), kp("length", -2, 1)},
+	{Name: "advance ratio", Symbol: "J", Coef: one, Revolutions: true, Definition: "J = V/(n·D), n in revolutions per second", Forms: []Form{
+		form(kp("velocity", 1, 1), kp("rotational speed", -1, 1), kp("length", -1, 1)),
 	}},
-	{Name: "flow coefficient", Symbol: "φ", Forms: [][]KindPower{
-		{kp("volume flow rate", 1, 1), kp("rotational speed", -1, 1), kp("length", -3, 1)},
+	{Name: "thrust coefficient", Symbol: "K_T", Coef: one, Revolutions: true, Definition: "K_T = T/(ρ·n²·D⁴), n in revolutions per second", Forms: []Form{
+		form(kp("force", 1, 1), kp("density", -1, 1), kp("rotational speed", -2, 1), kp("length", -4, 1)),
 	}},
-	{Name: "head coefficient", Symbol: "ψ", Forms: [][]KindPower{
-		{kp("specific energy", 1, 1), kp("rotational speed", -2, 1), kp("length", -2, 1)},
-		{kp("gravitational acceleration", 1, 1), kp("length", 1, 1), kp("rotational speed", -2, 1), kp("length", -2, 1)},
+	{Name: "torque coefficient", Symbol: "K_Q", Coef: one, Revolutions: true, Definition: "K_Q = Q/(ρ·n²·D⁵), n in revolutions per second", Forms: []Form{
+		form(kp("torque", 1, 1), kp("density", -1, 1), kp("rotational speed", -2, 1), kp("length", -5, 1)),
 	}},
-	{Name: "specific speed", Symbol: "Ω_s", Relation: "φ^(1/2)/ψ^(3/4)", Forms: [][]KindPower{
-		{kp("rotational speed", 1, 1), kp("volume flow rate", 1, 2), kp("specific energy", -3, 4)},
+	{Name: "power coefficient", Symbol: "C_P", Coef: one, Revolutions: true, Definition: "C_P = P/(ρ·n³·D⁵), n in revolutions per second", Forms: []Form{
+		form(kp("power", 1, 1), kp("density", -1, 1), kp("rotational speed", -3, 1), kp("length", -5, 1)),
+	}},
+	{Name: "rotor power coefficient", Symbol: "C_P,rotor", Coef: two, Definition: "C_P = P/(½·ρ·V³·A), A the swept area", Forms: []Form{
+		form(kp("power", 1, 1), kp("density", -1, 1), kp("velocity", -3, 1), kp("area", -1, 1)),
+		areaProxy(kp("power", 1, 1), kp("density", -1, 1), kp("velocity", -3, 1), kp("length", -2, 1)),
+	}},
+	{Name: "flow coefficient", Symbol: "φ", Coef: one, Revolutions: true, Definition: "φ = Q/(n·D³), n in revolutions per second", Forms: []Form{
+		form(kp("volume flow rate", 1, 1), kp("rotational speed", -1, 1), kp("length", -3, 1)),
+	}},
+	{Name: "head coefficient", Symbol: "ψ", Coef: one, Revolutions: true, Definition: "ψ = g·H/(n²·D²), n in revolutions per second", Forms: []Form{
+		form(kp("specific energy", 1, 1), kp("rotational speed", -2, 1), kp("length", -2, 1)),
+		form(kp("gravitational acceleration", 1, 1), kp("length", 1, 1), kp("rotational speed", -2, 1), kp("length", -2, 1)),
+	}},
+	{Name: "fan pressure coefficient", Symbol: "ψ_p", Coef: one, Revolutions: true, Definition: "ψ_p = Δp/(ρ·n²·D²), n in revolutions per second", Forms: []Form{
+		form(kp("pressure difference", 1, 1), kp("density", -1, 1), kp("rotational speed", -2, 1), kp("length", -2, 1)),
+	}},
+	{Name: "machine Reynolds number", Symbol: "Re_n", Coef: one, Revolutions: true, Definition: "Re_n = ρ·n·D²/μ = n·D²/ν, n in revolutions per second", Forms: []Form{
+		form(kp("density", 1, 1), kp("rotational speed", 1, 1), kp("length", 2, 1), kp("dynamic viscosity", -1, 1)),
+		form(kp("rotational speed", 1, 1), kp("length", 2, 1), kp("kinematic viscosity", -1, 1)),
+	}},
+	{Name: "tip-speed ratio", Symbol: "λ_tip", Coef: one, Definition: "λ = ω·R/V, ω in radians per second", Forms: []Form{
+		form(kp("rotational speed", 1, 1), kp("length", 1, 1), kp("velocity", -1, 1)),
+	}},
+	{Name: "specific speed", Symbol: "Ω_s", Relation: "φ^(1/2)/ψ^(3/4)", Coef: one, Definition: "Ω_s = ω·Q^(1/2)/(g·H)^(3/4), ω in radians per second", Forms: []Form{
+		form(kp("rotational speed", 1, 1), kp("volume flow rate", 1, 2), kp("specific energy", -3, 4)),
 	}},
 }
 
 // compiledForm is a catalogue form with its kinds resolved.
 type compiledForm struct {
 	named *Named
+	form  *Form
 	terms []compiledTerm
 	// sig is the product of the terms' dimensions, each to the power one:
 	// a cheap necessary condition for a match.
 	sig   quantity.Dim
 	sigOK bool
+	proxy int       // index of the proxy term, or −1
+	rot   exact.Rat // the exponent of rotational speed in the form
 }
 
 type compiledTerm struct {
@@ -273,14 +349,21 @@ var compiled = func() []compiledForm {
 	var out []compiledForm
 	for i := range catalogue {
 		n := &catalogue[i]
-		for _, f := range n.Forms {
-			cf := compiledForm{named: n, sigOK: true}
-			for _, t := range f {
+		for j := range n.Forms {
+			f := &n.Forms[j]
+			cf := compiledForm{named: n, form: f, sigOK: true, proxy: -1, rot: exact.Int(0)}
+			for k, t := range f.Factors {
 				d, ok := KindDim(t.Kind)
 				cf.terms = append(cf.terms, compiledTerm{kind: t.Kind, exp: t.Exp, dim: d, known: ok, explicit: explicitOnly[t.Kind]})
 				var err error
 				if cf.sig, err = cf.sig.Mul(d); err != nil {
 					cf.sigOK = false
+				}
+				if f.Proxy != nil && cf.proxy < 0 && t.Kind == f.Proxy.Kind && t.Exp == f.Proxy.Exp {
+					cf.proxy = k
+				}
+				if t.Kind == "rotational speed" {
+					cf.rot, _ = cf.rot.Add(t.Exp)
 				}
 			}
 			out = append(out, cf)
@@ -292,44 +375,211 @@ var compiled = func() []compiledForm {
 // Catalogue returns a copy of the named groups known to recognition.
 func Catalogue() []Named { return slices.Clone(catalogue) }
 
-// Match is a recognition of a group as a power of a named group.
+// Match is a recognition of a group as a power of a named group. The
+// group equals (Named/k)^Power, with k the factor of the named group's
+// definition (Factor), unless Proxy is set, when it is only proportional
+// to that.
 type Match struct {
 	Named
-	// Power is the exponent p with group = Named^p: 1 for the group
+	// Power is the exponent p with group ∝ Named^p: 1 for the group
 	// itself, −1 for its inverse, 2 for its square.
 	Power exact.Rat
 	// Assumed lists the variables whose kind was taken from their
 	// dimension to make the match ("a as speed of sound").
 	Assumed []string
+	// Proxy, when set, is the variable that stands in for a reference
+	// quantity of the definition (L for the area A of C_D): the group is
+	// then only proportional to the named group.
+	Proxy *ProxyUse
+	// rot is the exponent of rotational speed in the named group.
+	rot exact.Rat
 }
 
-// Label writes the match as a power of the symbol: "Re", "1/Re", "Fr²",
-// "Re^(1/2)".
+// ProxyUse is a variable that stands in for a reference quantity in a
+// match.
+type ProxyUse struct {
+	Symbol string // the variable ("L")
+	Proxy         // what it stands in for
+}
+
+// Exact reports whether the group is a power of the named group up to a
+// known numerical factor, with no stand-in for a reference quantity.
+func (m Match) Exact() bool { return m.Proxy == nil }
+
+// TwoPiPower returns m with Factor = Coef·(2π)^m: the power of 2π that
+// turns the radians per second a rotational speed holds into the
+// revolutions per second of the definition (2 for K_T), or 0.
+func (m Match) TwoPiPower() int {
+	if !m.Revolutions || !m.rot.IsInt() {
+		return 0
+	}
+	return int(-m.rot.Num)
+}
+
+// Factor returns k with Named = k·group^(1/Power) for an exact match, the
+// group's variables taking their SI values: 2 for C_D against F/(ρV²A),
+// 4π² for K_T against T/(ρω²D⁴) with ω in rad/s, 1 for Re.
+func (m Match) Factor() float64 {
+	c := m.Coef
+	if c.Den == 0 {
+		c = exact.Int(1)
+	}
+	return c.Float() * math.Pow(2*math.Pi, float64(m.TwoPiPower()))
+}
+
+// FactorText writes Factor exactly: "2", "4π²", "1/(2π)"; "" for 1.
+func (m Match) FactorText() string {
+	c := m.Coef
+	if c.Den == 0 {
+		c = exact.Int(1)
+	}
+	return factorText(c, m.TwoPiPower())
+}
+
+// factorText writes c·(2π)^k exactly: "2", "4π²", "1/(2π)"; "" for 1.
+func factorText(c exact.Rat, k int) string {
+	n, d := c.Num, c.Den
+	piNum, piDen := "", ""
+	piPow := func(a int) string {
+		if a == 1 {
+			return "π"
+		}
+		return "π" + expText(exact.Int(int64(a)), Unicode)
+	}
+	if k > 0 {
+		n <<= k
+		piNum = piPow(k)
+	} else if k < 0 {
+		d <<= -k
+		piDen = piPow(-k)
+	}
+	num := strconv.FormatInt(n, 10) + piNum
+	den := strconv.FormatInt(d, 10) + piDen
+	if den == "1" {
+		if num == "1" {
+			return ""
+		}
+		return num
+	}
+	if piDen != "" {
+		den = "(" + den + ")"
+	}
+	return num + "/" + den
+}
+
+// Label writes what the group is, in terms of the named group: "Re",
+// "1/Re", "Fr²", "C_D/2", "K_T/(4π²)", and "∝C_D" when a stand-in makes
+// it only proportional.
 func (m Match) Label() string {
+	if m.Proxy != nil {
+		return "∝" + m.Symbol
+	}
+	c := m.Coef
+	if c.Den == 0 {
+		c = exact.Int(1)
+	}
+	k := factorText(c, m.TwoPiPower())
+	if k == "" {
+		return powerLabel(m.Symbol, m.Power)
+	}
+	ci, _ := exact.Int(1).Div(c)
+	ki := factorText(ci, -m.TwoPiPower()) // 1/k
+	var first string                      // the group to the power one: Named/k
+	switch {
+	case !strings.Contains(k, "/"):
+		first = m.Symbol + "/" + parenFactor(k)
+	case !strings.Contains(ki, "/"):
+		first = ki + "·" + m.Symbol
+	default:
+		first = ki + "·" + m.Symbol
+	}
 	switch {
 	case m.Power.Num == 1 && m.Power.Den == 1:
-		return m.Symbol
+		return first
 	case m.Power.Num == -1 && m.Power.Den == 1:
-		return "1/" + m.Symbol
-	case m.Power.IsInt() && m.Power.Num > 0:
-		return m.Symbol + expText(m.Power, Unicode)
-	case m.Power.IsInt():
-		return "1/" + m.Symbol + expText(m.Power.Neg(), Unicode)
+		if kn, kd, ok := strings.Cut(k, "/"); ok {
+			return kn + "/(" + strings.Trim(kd, "()") + "·" + m.Symbol + ")"
+		}
+		return k + "/" + m.Symbol
 	}
-	return m.Symbol + "^(" + m.Power.String() + ")"
+	return powerLabel("("+first+")", m.Power)
 }
 
-// Describe writes the match for a report: "1/Re (Reynolds number,
-// inverted; conventional form Re)".
-func (m Match) Describe() string {
+func parenFactor(s string) string {
+	if strings.ContainsAny(s, "/·π") {
+		return "(" + s + ")"
+	}
+	return s
+}
+
+// powerLabel writes sym to an exact power: "Re", "1/Re", "Fr²",
+// "Re^(1/2)".
+func powerLabel(sym string, p exact.Rat) string {
+	switch {
+	case p.Num == 1 && p.Den == 1:
+		return sym
+	case p.Num == -1 && p.Den == 1:
+		return "1/" + sym
+	case p.IsInt() && p.Num > 0:
+		return sym + expText(p, Unicode)
+	case p.IsInt():
+		return "1/" + sym + expText(p.Neg(), Unicode)
+	}
+	return sym + "^(" + p.String() + ")"
+}
+
+// Equation writes the named group in terms of a group called name:
+// "Re = Π₃", "Fr = Π₂^(1/2)", "K_T = 4π²·Π₁", "C_D = 2·Π₁·L²/A".
+func (m Match) Equation(name string) string {
+	inv, err := exact.Int(1).Div(m.Power)
+	if err != nil {
+		inv = exact.Int(1)
+	}
+	g := powerLabel(name, inv)
+	k := m.FactorText()
+	rhs := g
+	if k != "" {
+		if strings.HasPrefix(g, "1/") {
+			rhs = k + g[1:]
+		} else {
+			rhs = k + "·" + g
+		}
+	}
+	if m.Proxy != nil {
+		rhs += "·" + m.Proxy.Symbol + expText(m.Proxy.Exp.Neg(), Unicode)
+		rhs += "/" + m.Proxy.Ref
+		if !(m.Proxy.RefExp.Num == -1 && m.Proxy.RefExp.Den == 1) {
+			rhs += expText(m.Proxy.RefExp.Neg(), Unicode)
+		}
+	}
+	return m.Symbol + " = " + rhs
+}
+
+// Describe writes the match for a report: "1/Re (Reynolds number;
+// conventional form Re)", "K_T/(4π²) (thrust coefficient; K_T =
+// T/(ρ·n²·D⁴), n in revolutions per second: K_T = 4π²·Π)".
+func (m Match) Describe() string { return m.describe("Π") }
+
+func (m Match) describe(name string) string {
 	var sb strings.Builder
 	sb.WriteString(m.Label())
 	sb.WriteString(" (")
+	if m.Proxy != nil {
+		sb.WriteString("proportional to the ")
+	}
 	sb.WriteString(m.Name)
 	if m.Relation != "" {
 		sb.WriteString(" = " + m.Relation)
 	}
-	if !(m.Power.Num == 1 && m.Power.Den == 1) {
+	switch {
+	case m.Proxy != nil:
+		fmt.Fprintf(&sb, "; %s, and %s%s stands in for %s %s: %s", m.Definition, m.Proxy.Symbol, expText(m.Proxy.Exp.Neg(), Unicode), m.Proxy.What, m.Proxy.Ref, m.Equation(name))
+	case m.FactorText() != "":
+		fmt.Fprintf(&sb, "; %s: %s", m.Definition, m.Equation(name))
+		if m.TwoPiPower() != 0 {
+			sb.WriteString(" with the rotational speed's SI value in rad/s")
+		}
+	case !(m.Power.Num == 1 && m.Power.Den == 1):
 		sb.WriteString("; conventional form " + m.Symbol)
 	}
 	if len(m.Assumed) > 0 {
@@ -340,7 +590,8 @@ func (m Match) Describe() string {
 }
 
 // recognise matches a group's exponents against the catalogue, best
-// matches (fewest assumed kinds, lowest power) first.
+// matches (exact before proportional, fewest assumed kinds, lowest
+// power) first.
 func (p *Problem) recognise(exps []exact.Rat) []Match {
 	var termBuf [16]int
 	terms := termBuf[:0]
@@ -348,6 +599,9 @@ func (p *Problem) recognise(exps []exact.Rat) []Match {
 		if !e.IsZero() {
 			terms = append(terms, i)
 		}
+	}
+	if len(terms) > len(termBuf) {
+		return nil // longer than any catalogue form
 	}
 	var sig quantity.Dim
 	sigOK := true
@@ -370,6 +624,12 @@ func (p *Problem) recognise(exps []exact.Rat) []Match {
 		}
 	}
 	slices.SortStableFunc(out, func(a, b Match) int {
+		if a.Exact() != b.Exact() {
+			if a.Exact() {
+				return -1
+			}
+			return 1
+		}
 		if d := len(a.Assumed) - len(b.Assumed); d != 0 {
 			return d
 		}
@@ -411,12 +671,16 @@ func absCmp(a, b exact.Rat) int {
 // factors, with one common power.
 func (p *Problem) matchForm(f *compiledForm, terms []int, exps []exact.Rat) (Match, bool) {
 	var used [16]bool
+	var assign [16]int
 	var best *Match
 	var rec func(k int, power exact.Rat, havePower bool, assumed []string)
 	rec = func(k int, power exact.Rat, havePower bool, assumed []string) {
 		if k == len(terms) {
 			if best == nil || len(assumed) < len(best.Assumed) {
-				best = &Match{Named: *f.named, Power: power, Assumed: slices.Clone(assumed)}
+				best = &Match{Named: *f.named, Power: power, Assumed: slices.Clone(assumed), rot: f.rot}
+				if f.proxy >= 0 {
+					best.Proxy = &ProxyUse{Symbol: p.vars[assign[f.proxy]].Symbol, Proxy: *f.form.Proxy}
+				}
 			}
 			return
 		}
@@ -434,7 +698,7 @@ func (p *Problem) matchForm(f *compiledForm, terms []int, exps []exact.Rat) (Mat
 			if err != nil || havePower && pw != power {
 				continue
 			}
-			used[fi] = true
+			used[fi], assign[fi] = true, i
 			a := assumed
 			if !explicit {
 				a = append(slices.Clone(assumed), v.Symbol+" as "+fp.kind)

@@ -21,13 +21,16 @@ type Evaluator struct {
 	set      *Set
 	num, den [][]evTerm // per group: factors with positive and negative exponents
 	dims     []quantity.Dim
+	factor   []float64 // per group: its numerical factor (Group.Factor)
 	nbuf     [evalBlock]float64
 	dbuf     [evalBlock]float64
 }
 
 const evalBlock = 256
 
-// Evaluator returns an evaluator for the set's groups.
+// Evaluator returns an evaluator for the set's groups, each with its
+// numerical factor (Group.Factor: 1 for a Pi set, the trade's factor for
+// a set WithCoefficients).
 func (s *Set) Evaluator() *Evaluator {
 	e := &Evaluator{set: s}
 	for _, v := range s.prob.vars {
@@ -54,6 +57,7 @@ func (s *Set) Evaluator() *Evaluator {
 		}
 		e.num = append(e.num, num)
 		e.den = append(e.den, den)
+		e.factor = append(e.factor, g.Factor())
 	}
 	return e
 }
@@ -130,7 +134,7 @@ func (e *Evaluator) Row(values []quantity.Quantity, dst []float64) ([]float64, e
 		for _, t := range e.den[g] {
 			d *= factor(values[t.v].Value(), t)
 		}
-		dst[g] = n / d
+		dst[g] = e.factor[g] * n / d
 	}
 	return dst[:len(e.num)], nil
 }
@@ -184,6 +188,14 @@ func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
 			product(den, cols, e.den[g], lo)
 			for i := range out {
 				out[i] = num[i] / den[i]
+			}
+		}
+	}
+	for g, k := range e.factor {
+		if k != 1 {
+			out := dst[g][:n]
+			for i := range out {
+				out[i] *= k
 			}
 		}
 	}

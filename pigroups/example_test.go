@@ -31,7 +31,7 @@ func Example() {
 	//  M   1   1   0  0   1
 	//  T  -2   0  -1  0  -1
 	// rank 3, 5 variables, 2 groups
-	// Π₁ = F/(ρ·V²·D²)   C_D (drag coefficient)
+	// Π₁ = F/(ρ·V²·D²)   ∝C_D (proportional to the drag coefficient; C_D = F/(½·ρ·V²·A), A the reference area, and D² stands in for the reference area A: C_D = 2·Π₁·D²/A)
 	// Π₂ = μ/(ρ·V·D)   1/Re (Reynolds number; conventional form Re)
 }
 

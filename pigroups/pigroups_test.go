@@ -43,7 +43,8 @@ func TestTextbookCases(t *testing.T) {
 			},
 			repeating: []string{"rho", "V", "D"},
 			rank:      3,
-			want:      []string{"F/(rho*V^2*D^2) = C_D", "mu/(rho*V*D) = 1/Re"},
+			// D² stands in for the reference area A of C_D = F/(½ρV²A).
+			want: []string{"F/(rho*V^2*D^2) = ∝C_D", "mu/(rho*V*D) = 1/Re"},
 		},
 		{
 			name: "pipe pressure drop with roughness and length",
@@ -65,7 +66,9 @@ func TestTextbookCases(t *testing.T) {
 			},
 			repeating: []string{"N", "D", "rho"},
 			rank:      3,
-			want:      []string{"gH/(N^2*D^2) = ψ", "Q/(N*D^3) = φ", "mu/(N*D^2*rho) = Π₃", "P/(N^3*D^5*rho) = C_P"},
+			want:      []string{"gH/(N^2*D^2) = ψ/(4π²)", "Q/(N*D^3) = φ/(2π)", "mu/(N*D^2*rho) = 1/(2π·Re_n)", "P/(N^3*D^5*rho) = C_P/(8π³)"},
+			// The turbomachine coefficients take n in rev/s (common practice);
+			// N holds rad/s, n = N/(2π): ψ = gH/(n²D²) = 4π²·gH/(N²D²), and so on.
 		},
 		{
 			name: "forced convection, four base dimensions",
@@ -107,7 +110,7 @@ func TestTextbookCases(t *testing.T) {
 			},
 			repeating: []string{"omega", "D", "rho"},
 			rank:      3,
-			want:      []string{"T/(omega^2*D^5*rho) = K_Q", "mu/(omega*D^2*rho) = Π₂"},
+			want:      []string{"T/(omega^2*D^5*rho) = K_Q/(4π²)", "mu/(omega*D^2*rho) = 1/(2π·Re_n)"},
 		},
 	}
 	for _, c := range cases {

@@ -1,7 +1,9 @@
 package pigroups
 
 import (
+	"errors"
 	"fmt"
+	"math"
 	"slices"
 	"strconv"
 	"strings"
@@ -33,6 +35,80 @@ type Group struct {
 	// first; empty when it has no name.
 	Matches []Match
 	prob    *Problem
+	// coef·(2π)^twoPi is a numerical factor the group carries (a
+	// coefficient's ½ or its rev/s conversion, see Coefficient); the zero
+	// coef means 1, as for every group of a Pi set.
+	coef  exact.Rat
+	twoPi int
+}
+
+// Factor returns the numerical factor the group carries in front of its
+// product of powers: 1 for a Pi set's groups, 2 for a drag coefficient
+// written as C_D = 2·F/(ρ·V²·A), 4π² for K_T with a rotational speed held
+// in rad/s.
+func (g Group) Factor() float64 {
+	if g.coef.Den == 0 {
+		return 1
+	}
+	return g.coef.Float() * math.Pow(2*math.Pi, float64(g.twoPi))
+}
+
+func (g Group) factorText() string {
+	if g.coef.Den == 0 {
+		return ""
+	}
+	return factorText(g.coef, g.twoPi)
+}
+
+// ErrNotExact is wrapped by the error of Coefficient for a group that is
+// not a power of a named group up to a known factor.
+var ErrNotExact = errors.New("not exactly a named group")
+
+// Coefficient returns the named group the group is recognised as, in the
+// trade's own definition, numerical factor and rotational-speed
+// convention included, so that evaluating it gives the number a report
+// labels with the symbol: for T/(ρ·ω²·D⁴) it returns K_T = 4π²·T/(ρ·ω²·D⁴)
+// (n = ω/2π in rev/s), for F/(ρ·V²·A) C_D = 2·F/(ρ·V²·A), and for
+// V²/(g·L) Fr = (V²/(g·L))^(1/2). Its Name is the named group's symbol.
+// A group with no name, or one only proportional to its name (L² in
+// place of a reference area), returns an error wrapping ErrNotExact that
+// says why.
+func (g Group) Coefficient() (Group, error) {
+	if len(g.Matches) == 0 {
+		return Group{}, fmt.Errorf("pigroups: %s = %s: %w: it has no name", g.Name, g, ErrNotExact)
+	}
+	m := g.Matches[0]
+	if !m.Exact() {
+		return Group{}, fmt.Errorf("pigroups: %s = %s: %w: it is %s", g.Name, g, ErrNotExact, m.describe(g.Name))
+	}
+	exps := make(exact.Vec, len(g.exps))
+	for i, e := range g.exps {
+		x, err := e.Div(m.Power)
+		if err != nil {
+			return Group{}, err
+		}
+		exps[i] = x
+	}
+	c := m.Coef
+	if c.Den == 0 {
+		c = exact.Int(1)
+	}
+	out := Group{Name: m.Symbol, Var: g.Var, exps: exps, prob: g.prob, coef: c, twoPi: m.TwoPiPower()}
+	out.Matches = g.prob.recognise(exps)
+	return out, nil
+}
+
+// WithCoefficients returns a copy of the set in which every group that is
+// exactly a named group up to its factor is replaced by its Coefficient;
+// the others are kept as they are.
+func (s *Set) WithCoefficients() *Set {
+	out := &Set{prob: s.prob, repeating: s.repeating, groups: slices.Clone(s.groups)}
+	for k, g := range out.groups {
+		if c, err := g.Coefficient(); err == nil {
+			out.groups[k] = c
+		}
+	}
+	return out
 }
 
 // Problem returns the problem whose variables the group's exponents
@@ -77,21 +153,61 @@ func (g Group) Dim() (quantity.Dim, error) {
 // String writes the group in plain text: "mu/(rho*V*D)".
 func (g Group) String() string { return g.Format(Plain) }
 
-// Format writes the group in a style; the zero Group is "(no group)".
+// Format writes the group in a style, its numerical factor first
+// ("4π²·T/(ρ·n²·D⁴)"); the zero Group is "(no group)".
 func (g Group) Format(style Style) string {
 	if g.prob == nil {
 		return "(no group)"
 	}
-	return g.prob.FormatProduct(g.exps, style)
+	body := g.prob.FormatProduct(g.exps, style)
+	k := g.factorText()
+	if k == "" {
+		return body
+	}
+	if style != Unicode {
+		k = strings.NewReplacer("π", "pi", "²", "^2", "³", "^3").Replace(k)
+	}
+	sep := "*"
+	if style == Unicode {
+		sep = "·"
+	}
+	if style == LaTeX {
+		sep = " "
+		k = strings.ReplaceAll(k, "pi", `\pi`)
+	}
+	if strings.Contains(k, "/") {
+		k = "(" + k + ")"
+	}
+	return k + sep + body
 }
 
-// Label returns the group's conventional label: the named group it is,
-// with its power ("Re", "1/Re", "Fr²"), or its Π name.
+// Label returns what the group's value is, in terms of the named group
+// it is recognised as: "Re", "1/Re", "Fr²", "C_D/2", "K_T/(4π²)", "∝C_D"
+// (see Match.Label), the bare symbol for a Coefficient, or its Π name
+// when it has no name.
 func (g Group) Label() string {
 	if len(g.Matches) == 0 {
 		return g.Name
 	}
-	return g.Matches[0].Label()
+	m := g.Matches[0]
+	if g.coef.Den != 0 && m.Exact() && m.Power.Num == 1 && m.Power.Den == 1 && g.coef == m.Coef && g.twoPi == m.TwoPiPower() {
+		return m.Symbol
+	}
+	return m.Label()
+}
+
+// Describe writes what the group is in terms of its best named match,
+// naming the group in any equation ("∝C_D (proportional to the drag
+// coefficient; …: C_D = 2·Π₁·L²/A)"), or "" when it has no name.
+func (g Group) Describe() string {
+	if len(g.Matches) == 0 {
+		return ""
+	}
+	m := g.Matches[0]
+	if l := g.Label(); g.coef.Den != 0 && l == m.Symbol {
+		return l + " (" + m.Name + "; " + m.Definition + ")"
+	}
+	return m.describe(g.Name)
 }
 
 // FormatProduct writes the product ∏ xᵢ^eᵢ of the problem's variables, the
@@ -376,8 +492,8 @@ func (s *Set) Format(style Style) string {
 	var sb strings.Builder
 	for _, g := range s.groups {
 		fmt.Fprintf(&sb, "%s = %s", g.Name, g.Format(style))
-		if len(g.Matches) > 0 {
-			fmt.Fprintf(&sb, "   %s", g.Matches[0].Describe())
+		if d := g.Describe(); d != "" {
+			fmt.Fprintf(&sb, "   %s", d)
 		}
 		sb.WriteByte('\n')
 	}

@@ -123,12 +123,20 @@ type GroupOut struct {
 	Matches   []MatchOut        `json:"matches,omitempty"`
 }
 
-// MatchOut is one recognition of a group.
+// MatchOut is one recognition of a group: the group is (Symbol/Factor)^Power
+// when Exact, and only proportional to Symbol^Power otherwise; Equation
+// gives the named group in terms of this one, and Definition the trade's
+// definition with its conventions (n in rev/s for K_T).
 type MatchOut struct {
-	Name    string   `json:"name"`
-	Symbol  string   `json:"symbol"`
-	Power   string   `json:"power"`
-	Assumed []string `json:"assumed,omitempty"`
+	Name       string   `json:"name"`
+	Symbol     string   `json:"symbol"`
+	Label      string   `json:"label"`
+	Power      string   `json:"power"`
+	Factor     string   `json:"factor"`
+	Exact      bool     `json:"exact"`
+	Equation   string   `json:"equation"`
+	Definition string   `json:"definition"`
+	Assumed    []string `json:"assumed,omitempty"`
 }
 
 func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
@@ -195,7 +203,12 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 			}
 		}
 		for _, m := range g.Matches {
-			go_.Matches = append(go_.Matches, MatchOut{Name: m.Name, Symbol: m.Symbol, Power: m.Power.String(), Assumed: m.Assumed})
+			f := m.FactorText()
+			if f == "" {
+				f = "1"
+			}
+			go_.Matches = append(go_.Matches, MatchOut{Name: m.Name, Symbol: m.Symbol, Label: m.Label(), Power: m.Power.String(),
+				Factor: f, Exact: m.Exact(), Equation: m.Equation(g.Name), Definition: m.Definition, Assumed: m.Assumed})
 		}
 		r.Groups = append(r.Groups, go_)
 	}

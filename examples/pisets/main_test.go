@@ -31,8 +31,13 @@ func TestJSON(t *testing.T) {
 	if err := json.Unmarshal(out.Bytes(), &r); err != nil {
 		t.Fatal(err)
 	}
-	if r.Rank != 3 || len(r.Groups) != 2 || r.Groups[0].Label != "C_D" || r.Groups[1].Label != "1/Re" {
+	// F/(ρV²D²) is only proportional to C_D = F/(½ρV²A): D² stands in for
+	// the reference area, and the output says so.
+	if r.Rank != 3 || len(r.Groups) != 2 || r.Groups[0].Label != "∝C_D" || r.Groups[1].Label != "1/Re" {
 		t.Errorf("report: %+v", r)
+	}
+	if m := r.Groups[0].Matches[0]; m.Exact || m.Factor != "2" || m.Equation != "C_D = 2·Π₁·D²/A" {
+		t.Errorf("C_D match: %+v", m)
 	}
 	if r.Groups[1].Exponents["mu"] != "1" || r.Groups[1].Exponents["rho"] != "-1" {
 		t.Errorf("exponents: %v", r.Groups[1].Exponents)
