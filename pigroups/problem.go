@@ -77,6 +77,9 @@ var (
 	ErrRepeatingUnknown  = errors.New("unknown repeating variable")
 	ErrRepeatingSingular = errors.New("repeating variables not independent")
 	ErrNoGroups          = errors.New("no dimensionless groups")
+	ErrUnknownVariable   = errors.New("unknown variable")
+	ErrForeignGroup      = errors.New("group of another problem")
+	ErrNotDimensionless  = errors.New("not dimensionless")
 )
 
 // ProblemError reports a list of variables that cannot form a problem.
@@ -252,8 +255,86 @@ func (p *Problem) Matrix() exact.Matrix {
 }
 
 // Kinds returns the candidate kinds of quantity of variable i: its own
-// kind if given, or the kinds its dimension can mean.
-func (p *Problem) Kinds(i int) []string { return slices.Clone(p.kinds[i]) }
+// kind if given, or the kinds its dimension can mean. An index outside
+// the problem is an error wrapping ErrUnknownVariable.
+func (p *Problem) Kinds(i int) ([]string, error) {
+	if i < 0 || i >= len(p.vars) {
+		return nil, &ProblemError{Err: ErrUnknownVariable, Reason: fmt.Sprintf("index %d of a problem of %d variables", i, len(p.vars))}
+	}
+	return slices.Clone(p.kinds[i]), nil
+}
+
+// Index returns the index of the variable with the given symbol, or an
+// error wrapping ErrUnknownVariable that names it.
+func (p *Problem) Index(symbol string) (int, error) {
+	if i := p.index(symbol); i >= 0 {
+		return i, nil
+	}
+	return -1, &ProblemError{Err: ErrUnknownVariable, Symbol: symbol, Reason: "not a variable of the problem (" + p.symbols() + ")"}
+}
+
+func (p *Problem) symbols() string {
+	s := make([]string, len(p.vars))
+	for i, v := range p.vars {
+		s[i] = v.Symbol
+	}
+	return strings.Join(s, ", ")
+}
+
+// Owns reports whether g is a group of this problem: built from it, or
+// from a problem with the same variables (symbols and dimensions) in the
+// same order, so that its exponents mean the same variables.
+func (p *Problem) Owns(g Group) bool {
+	gp := g.Problem()
+	if gp == p {
+		return true
+	}
+	return gp != nil && slices.EqualFunc(gp.vars, p.vars, func(a, b Variable) bool { return a.Symbol == b.Symbol && a.Dim == b.Dim })
+}
+
+// CheckGroup returns nil if p owns g, and otherwise an error wrapping
+// ErrForeignGroup that names the group.
+func (p *Problem) CheckGroup(g Group) error {
+	if p.Owns(g) {
+		return nil
+	}
+	if g.Problem() == nil {
+		return &ProblemError{Err: ErrForeignGroup, Reason: "the zero Group belongs to no problem"}
+	}
+	return &ProblemError{Err: ErrForeignGroup, Symbol: g.Name, Reason: fmt.Sprintf("%s is a group of the variables %s, not of %s", g, g.prob.symbols(), p.symbols())}
+}
+
+// NewGroup returns the group ∏ xᵢ^eᵢ of the problem's variables, the
+// exponents given by symbol, recognised against the catalogue; the
+// symbols must be the problem's and the product dimensionless.
+func (p *Problem) NewGroup(name string, exps map[string]exact.Rat) (Group, error) {
+	v := make(exact.Vec, len(p.vars))
+	for i := range v {
+		v[i] = exact.Int(0)
+	}
+	for sym, e := range exps {
+		i, err := p.Index(sym)
+		if err != nil {
+			return Group{}, err
+		}
+		if e.Den == 0 {
+			e = exact.Int(0)
+		}
+		v[i] = e
+	}
+	if !p.dimensionless(v) {
+		return Group{}, &ProblemError{Err: ErrNotDimensionless, Symbol: name, Reason: p.FormatProduct(v, Unicode) + " has a dimension"}
+	}
+	g := Group{Name: name, Var: -1, exps: v, prob: p}
+	for i, e := range v {
+		if e.Sign() > 0 {
+			g.Var = i
+			break
+		}
+	}
+	g.Matches = p.recognise(v)
+	return g, nil
+}
 
 func (p *Problem) index(sym string) int {
 	for i, v := range p.vars {

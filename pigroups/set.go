@@ -118,16 +118,18 @@ func (g Group) Problem() *Problem { return g.prob }
 // Exponents returns the exponent of each variable, in variable order.
 func (g Group) Exponents() []exact.Rat { return slices.Clone(g.exps) }
 
-// Exponent returns the exponent of the variable with the given symbol.
-func (g Group) Exponent(symbol string) exact.Rat {
+// Exponent returns the exponent of the variable with the given symbol;
+// a symbol that is not a variable of the group's problem (and any symbol
+// for the zero Group) is an error wrapping ErrUnknownVariable.
+func (g Group) Exponent(symbol string) (exact.Rat, error) {
 	if g.prob == nil {
-		return exact.Int(0)
+		return exact.Int(0), &ProblemError{Err: ErrUnknownVariable, Symbol: symbol, Reason: "the zero Group has no variables"}
 	}
-	i := g.prob.index(symbol)
-	if i < 0 {
-		return exact.Int(0)
+	i, err := g.prob.Index(symbol)
+	if err != nil {
+		return exact.Int(0), err
 	}
-	return g.exps[i]
+	return g.exps[i], nil
 }
 
 // Dim returns the group's dimension, computed from its variables; it is
@@ -577,7 +579,7 @@ func (s *Set) matrix() exact.Matrix {
 // them. target gives an exponent for each variable, in variable order.
 func (s *Set) Express(target []exact.Rat) (powers []exact.Rat, ok bool, err error) {
 	if len(target) != len(s.prob.vars) {
-		return nil, false, fmt.Errorf("pigroups: %d exponents for %d variables", len(target), len(s.prob.vars))
+		return nil, false, &ProblemError{Err: ErrUnknownVariable, Reason: fmt.Sprintf("%d exponents for the %d variables %s", len(target), len(s.prob.vars), s.prob.symbols())}
 	}
 	return exact.Solve(s.matrix().Transpose(), exact.Vec(target))
 }
@@ -589,10 +591,10 @@ func (s *Set) Express(target []exact.Rat) (powers []exact.Rat, ok bool, err erro
 // coprime integers with a positive exponent for the group's variable.
 func (s *Set) Rewrite(k int, powers []exact.Rat) (*Set, error) {
 	if k < 0 || k >= len(s.groups) || len(powers) != len(s.groups) {
-		return nil, fmt.Errorf("pigroups: rewrite group %d with %d powers of a %d-group set", k, len(powers), len(s.groups))
+		return nil, &ProblemError{Err: ErrUnknownVariable, Reason: fmt.Sprintf("rewrite group %d with %d powers of a %d-group set", k, len(powers), len(s.groups))}
 	}
 	if powers[k].IsZero() {
-		return nil, fmt.Errorf("pigroups: the power of %s itself must be nonzero, or the set would lose a group", s.groups[k].Name)
+		return nil, &ProblemError{Err: ErrRepeatingSingular, Symbol: s.groups[k].Name, Reason: "the power of the group itself must be nonzero, or the set would lose a group"}
 	}
 	v := make(exact.Vec, len(s.prob.vars))
 	for i := range v {

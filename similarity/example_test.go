@@ -41,15 +41,15 @@ func ExamplePlan_Solve() {
 	ce := err.(*similarity.ConflictError)
 	fmt.Println(ce.Summary)
 	for _, r := range ce.Remedies {
-		fmt.Printf("without %s: %v\n", r.Drop, r.Needs)
+		fmt.Println(r)
 	}
 	// Output:
 	// holding the Froude number and the Reynolds number with the same fluid and the same gravity forces λ_L to 1, against a length scale of 1:25
-	// without the Froude number: [the Froude number would float, with model/prototype ratio λ_L^(-3)]
-	// without the Reynolds number: [the Reynolds number would float, with model/prototype ratio λ_L^(3/2)]
-	// without the same fluid: [λ_rho = λ_mu·λ_L^(-3/2) λ_mu free ν_m/ν_p = λ_L^(3/2)]
-	// without the same gravity: [λ_g = λ_L^(-3) = 15625]
-	// without a length scale of 1:25: [λ_L to 1]
+	// without the Froude number: the Froude number would float, Fr model/prototype = λ_L^(-3/2) = 125 (Fr²: λ_L⁻³ = 15625)
+	// without the Reynolds number: the Reynolds number would float, Re model/prototype = λ_L^(3/2) = 0.008
+	// without the same fluid: λ_rho = λ_mu·λ_L^(-3/2); λ_mu free; ν_m/ν_p = λ_L^(3/2) = 0.008
+	// without the same gravity: λ_g = λ_L⁻³ = 15625
+	// without a length scale of 1:25: λ_L to 1
 }
 
 // Pump affinity laws for a 20 % speed-up and a doubled impeller.

@@ -57,8 +57,10 @@ func (l Law) String() string {
 		s := "λ_" + t.Symbol
 		switch {
 		case t.Exp.Num == 1 && t.Exp.Den == 1:
-		case t.Exp.IsInt() && t.Exp.Num >= 0 && t.Exp.Num <= 9:
-			s += []string{"⁰", "¹", "²", "³", "⁴", "⁵", "⁶", "⁷", "⁸", "⁹"}[t.Exp.Num]
+		case t.Exp.IsInt() && t.Exp.Num >= 0:
+			s += superscript(t.Exp.Num)
+		case t.Exp.IsInt():
+			s += "⁻" + superscript(-t.Exp.Num)
 		default:
 			s += "^(" + t.Exp.String() + ")"
 		}

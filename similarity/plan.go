@@ -30,6 +30,7 @@ type constraint struct {
 	vars  []int       // variables a Same or Fix constrains
 	value float64     // the ratio for Fix
 	exps  exact.Vec   // a held group's exponents
+	group pigroups.Group
 }
 
 // Plan is a model test plan: the problem's variables, the groups to hold
@@ -49,14 +50,42 @@ func NewPlan(p *pigroups.Problem) *Plan {
 	return &Plan{prob: p, vars: p.Variables()}
 }
 
-// PlanError reports a plan built wrongly: an unknown symbol, a ratio that
-// is not positive and finite, a group with exponents of unknown variables.
+// Classes of a *PlanError, for errors.Is.
+var (
+	ErrUnknownVariable  = errors.New("unknown variable")
+	ErrForeignGroup     = errors.New("group of another problem")
+	ErrBadRatio         = errors.New("ratio not positive and finite")
+	ErrNotDimensionless = errors.New("group not dimensionless")
+	ErrPlan             = errors.New("plan cannot be solved as built")
+)
+
+// PlanError reports a plan built or used wrongly: an unknown symbol, a
+// ratio that is not positive and finite, a group of another problem. Err
+// is its class, Symbol the variable or group concerned.
 type PlanError struct {
+	Err    error
+	Symbol string
 	Reason string
 }
 
 // Error implements the error interface.
 func (e *PlanError) Error() string { return "similarity: " + e.Reason }
+
+// Unwrap returns the class of the error, and the cause it wraps if any.
+func (e *PlanError) Unwrap() error {
+	if e.Err == nil {
+		return ErrPlan
+	}
+	return e.Err
+}
+
+func unknownVar(op, sym string, vars []pigroups.Variable) *PlanError {
+	names := make([]string, len(vars))
+	for i, v := range vars {
+		names[i] = v.Symbol
+	}
+	return &PlanError{Err: ErrUnknownVariable, Symbol: sym, Reason: fmt.Sprintf("%s: %q is not a variable of the plan (%s)", op, sym, strings.Join(names, ", "))}
+}
 
 func (pl *Plan) index(sym string) int {
 	for i, v := range pl.vars {
@@ -67,9 +96,16 @@ func (pl *Plan) index(sym string) int {
 	return -1
 }
 
-func (pl *Plan) fail(format string, a ...any) *Plan {
+func (pl *Plan) fail(class error, sym, format string, a ...any) *Plan {
 	if pl.err == nil {
-		pl.err = &PlanError{Reason: fmt.Sprintf(format, a...)}
+		pl.err = &PlanError{Err: class, Symbol: sym, Reason: fmt.Sprintf(format, a...)}
+	}
+	return pl
+}
+
+func (pl *Plan) failErr(e *PlanError) *Plan {
+	if pl.err == nil {
+		pl.err = e
 	}
 	return pl
 }
@@ -78,45 +114,42 @@ func (pl *Plan) fail(format string, a ...any) *Plan {
 // The group must come from the plan's problem, or one with the same
 // variables in the same order.
 func (pl *Plan) Hold(g pigroups.Group) *Plan {
-	if gp := g.Problem(); gp != pl.prob {
-		if gp == nil || !slices.EqualFunc(gp.Variables(), pl.vars, func(a, b pigroups.Variable) bool {
-			return a.Symbol == b.Symbol && a.Dim == b.Dim
-		}) {
-			return pl.fail("hold %s: the group belongs to another problem", g)
-		}
+	if err := pl.prob.CheckGroup(g); err != nil {
+		return pl.fail(ErrForeignGroup, g.Name, "hold %s: %v", g, err)
 	}
 	label := g.String()
 	if len(g.Matches) > 0 {
 		label = "the " + g.Matches[0].Name
 	}
-	return pl.holdExps(label, g.Exponents())
+	return pl.holdGroup(label, g)
 }
 
 // HoldExps holds the group ∏ xᵢ^eᵢ given as exponents by symbol, with a
 // label for messages ("the Froude number").
 func (pl *Plan) HoldExps(label string, exps map[string]int) *Plan {
-	v := make(exact.Vec, len(pl.vars))
-	for i := range v {
-		v[i] = exact.Int(0)
-	}
+	m := make(map[string]exact.Rat, len(exps))
 	for s, e := range exps {
-		i := pl.index(s)
-		if i < 0 {
-			return pl.fail("hold %s: unknown variable %q", label, s)
+		if pl.index(s) < 0 {
+			return pl.failErr(unknownVar("hold "+label, s, pl.vars))
 		}
-		v[i] = exact.Int(int64(e))
+		m[s] = exact.Int(int64(e))
 	}
-	return pl.holdExps(label, v)
+	g, err := pl.prob.NewGroup(label, m)
+	if err != nil {
+		return pl.fail(ErrNotDimensionless, label, "hold %s: %v", label, err)
+	}
+	return pl.holdGroup(label, g)
 }
 
-func (pl *Plan) holdExps(label string, v exact.Vec) *Plan {
+func (pl *Plan) holdGroup(label string, g pigroups.Group) *Plan {
+	v := exact.Vec(g.Exponents())
 	if len(v) != len(pl.vars) {
-		return pl.fail("hold %s: %d exponents for %d variables", label, len(v), len(pl.vars))
+		return pl.fail(ErrForeignGroup, label, "hold %s: %d exponents for %d variables", label, len(v), len(pl.vars))
 	}
 	if !pl.dimensionless(v) {
-		return pl.fail("hold %s: the group is not dimensionless", label)
+		return pl.fail(ErrNotDimensionless, label, "hold %s: the group is not dimensionless", label)
 	}
-	pl.cons = append(pl.cons, constraint{kind: consHold, label: label, rows: []exact.Vec{slices.Clone(v)}, exps: slices.Clone(v)})
+	pl.cons = append(pl.cons, constraint{kind: consHold, label: label, rows: []exact.Vec{slices.Clone(v)}, exps: slices.Clone(v), group: g})
 	return pl
 }
 
@@ -142,10 +175,10 @@ func (pl *Plan) dimensionless(v exact.Vec) bool {
 func (pl *Plan) Fix(symbol string, ratio float64) *Plan {
 	i := pl.index(symbol)
 	if i < 0 {
-		return pl.fail("fix: unknown variable %q", symbol)
+		return pl.failErr(unknownVar("fix", symbol, pl.vars))
 	}
 	if !(ratio > 0) || math.IsInf(ratio, 0) {
-		return pl.fail("fix %s: the ratio %v is not positive and finite", symbol, ratio)
+		return pl.fail(ErrBadRatio, symbol, "fix %s: the ratio %v is not positive and finite", symbol, ratio)
 	}
 	label := fmt.Sprintf("λ_%s = %.6g", symbol, ratio)
 	if r := 1 / ratio; ratio < 1 && math.Abs(r-math.Round(r)) < 1e-9*r {
@@ -156,7 +189,7 @@ func (pl *Plan) Fix(symbol string, ratio float64) *Plan {
 }
 
 func (pl *Plan) kindWord(i int) string {
-	if k := pl.prob.Kinds(i); len(k) > 0 {
+	if k, _ := pl.prob.Kinds(i); len(k) > 0 {
 		return k[0]
 	}
 	return pl.vars[i].Symbol
@@ -169,7 +202,7 @@ func (pl *Plan) Same(label string, symbols ...string) *Plan {
 	for _, s := range symbols {
 		i := pl.index(s)
 		if i < 0 {
-			return pl.fail("%s: unknown variable %q", label, s)
+			return pl.failErr(unknownVar(label, s, pl.vars))
 		}
 		row := make(exact.Vec, len(pl.vars))
 		for k := range row {
@@ -224,10 +257,47 @@ type ConflictError struct {
 	Remedies []Remedy
 }
 
-// Remedy is one way out of a conflict.
+// Remedy is one way out of a conflict: a requirement to drop, and what
+// the ratios then are, as data and as text rendered from it.
 type Remedy struct {
-	Drop  string   // the requirement to drop
-	Needs []string // what the ratios would then be: "λ_μ = λ_L^(3/2)"
+	Drop string // the requirement to drop, in words
+	// Group, when the requirement dropped is a held group, is the
+	// model/prototype ratio that group then floats to, stated for the
+	// group the trade names (Fr, not the L·g/V² that may have been held).
+	Group *GroupRatio
+	// Ratios, when the requirement dropped fixes ratios (the same fluid,
+	// a scale), are those ratios once it is dropped, and any the trade
+	// reads from them (ν_m/ν_p for the same fluid).
+	Ratios []Outcome
+	// Needs is the same in words, one phrase per item, rendered from
+	// Group and Ratios.
+	Needs []string
+}
+
+// String writes the remedy in words: "without the Reynolds number: the
+// Reynolds number would float, Re model/prototype = λ_L^(3/2) = 0.0156".
+func (r Remedy) String() string { return "without " + r.Drop + ": " + strings.Join(r.Needs, "; ") }
+
+// Outcome is the model/prototype ratio of one variable or derived
+// quantity in a remedy.
+type Outcome struct {
+	Label string // "λ_rho", or "ν_m/ν_p" for a derived ratio
+	Ratio Ratio
+	// Free is true when the ratio is left free (a parameter of the
+	// laws), One when the requirements force it to 1.
+	Free, One bool
+}
+
+// String writes the outcome: "λ_rho = λ_mu·λ_L^(-3/2)", "λ_mu free",
+// "λ_L to 1", "λ_g = λ_L⁻³ = 4096".
+func (o Outcome) String() string {
+	switch {
+	case o.One:
+		return o.Label + " to 1"
+	case o.Free:
+		return o.Label + " free"
+	}
+	return o.Label + " = " + o.Ratio.String()
 }
 
 // Error implements the error interface.
@@ -236,7 +306,7 @@ func (e *ConflictError) Error() string {
 	sb.WriteString("similarity: requirements conflict: ")
 	sb.WriteString(e.Summary)
 	for _, r := range e.Remedies {
-		fmt.Fprintf(&sb, "; without %s: %s", r.Drop, strings.Join(r.Needs, ", "))
+		fmt.Fprintf(&sb, "; %s", r)
 	}
 	return sb.String()
 }
@@ -446,10 +516,12 @@ func (pl *Plan) conflict() error {
 		c := pl.cons[ci]
 		switch c.kind {
 		case consHold:
-			r.Needs = append(r.Needs, fmt.Sprintf("%s would float, with model/prototype ratio %s", c.label, s.groupLaw(c.exps)))
+			gr := s.groupRatio(c.group)
+			r.Group = &gr
+			r.Needs = append(r.Needs, c.label+" would float, "+gr.String())
 		default:
 			for _, i := range c.vars {
-				r.Needs = append(r.Needs, s.describe(i))
+				r.Ratios = append(r.Ratios, s.outcome(i))
 			}
 			if c.label == "the same fluid" && len(c.vars) == 2 {
 				// The kinematic viscosity ratio μ/ρ is what a held Reynolds
@@ -459,7 +531,11 @@ func (pl *Plan) conflict() error {
 					v[k] = exact.Int(0)
 				}
 				v[c.vars[0]], v[c.vars[1]] = exact.Int(-1), exact.Int(1)
-				r.Needs = append(r.Needs, fmt.Sprintf("ν_m/ν_p = %s", s.groupLaw(v)))
+				l := s.groupLaw(v)
+				r.Ratios = append(r.Ratios, Outcome{Label: "ν_m/ν_p", Ratio: Ratio{Law: l, Value: l.Eval(s.values)}, One: l.IsOne()})
+			}
+			for _, o := range r.Ratios {
+				r.Needs = append(r.Needs, o.String())
 			}
 		}
 		e.Remedies = append(e.Remedies, r)
@@ -495,25 +571,22 @@ func eachSubset(n, k int, f func([]int) bool) {
 	rec(0, 0)
 }
 
-// describe writes a variable's ratio: its law, and its value when known.
-func (s *Solution) describe(i int) string {
+// outcome returns a variable's ratio: its law, and its value when known.
+func (s *Solution) outcome(i int) Outcome {
 	l := lawOf(s.coef[i], s.params)
 	sym := s.plan.vars[i].Symbol
-	v := l.Eval(s.values)
 	isParam := len(l.Terms) == 1 && l.Terms[0].Symbol == sym && l.Terms[0].Exp == exact.Int(1)
-	switch {
-	case l.IsOne():
-		return "λ_" + sym + " to 1"
-	case isParam:
-		return "λ_" + sym + " free"
-	case math.IsNaN(v):
-		return "λ_" + sym + " = " + l.String()
-	}
-	return fmt.Sprintf("λ_%s = %s = %.6g", sym, l.String(), v)
+	return Outcome{Label: "λ_" + sym, Ratio: Ratio{Law: l, Value: l.Eval(s.values)}, One: l.IsOne(), Free: isParam && math.IsNaN(l.Eval(s.values))}
 }
+
+// describe writes a variable's ratio: its law, and its value when known.
+func (s *Solution) describe(i int) string { return s.outcome(i).String() }
 
 // groupLaw returns the law of the ratio of ∏ xᵢ^eᵢ.
 func (s *Solution) groupLaw(exps exact.Vec) Law {
+	if len(exps) != len(s.coef) {
+		return Law{}
+	}
 	c, err := combine(s.coef, exps, len(s.params))
 	if err != nil {
 		return Law{}
@@ -551,17 +624,34 @@ func (r Ratio) String() string {
 func (s *Solution) Ratio(symbol string) (Ratio, error) {
 	i := s.plan.index(symbol)
 	if i < 0 {
-		return Ratio{}, &PlanError{Reason: fmt.Sprintf("unknown variable %q", symbol)}
+		return Ratio{}, unknownVar("ratio", symbol, s.plan.vars)
 	}
 	l := lawOf(s.coef[i], s.params)
 	return Ratio{Law: l, Value: l.Eval(s.values)}, nil
 }
 
-// GroupRatio returns the model/prototype ratio of a group: 1 for a held
-// group, a law of the free ratios for one that floats.
-func (s *Solution) GroupRatio(g pigroups.Group) Ratio {
+// GroupRatio returns the model/prototype ratio of a group, as oriented
+// (the ratio of L·g/V² for that group, of Re for Re): 1 for a held group,
+// a law of the free ratios for one that floats. A group of another
+// problem is an error wrapping ErrForeignGroup. NamedRatio states the
+// ratio for the named group instead.
+func (s *Solution) GroupRatio(g pigroups.Group) (Ratio, error) {
+	if err := s.plan.prob.CheckGroup(g); err != nil {
+		return Ratio{}, &PlanError{Err: ErrForeignGroup, Symbol: g.Name, Reason: "group ratio: " + err.Error()}
+	}
 	l := s.groupLaw(g.Exponents())
-	return Ratio{Law: l, Value: l.Eval(s.values)}
+	return Ratio{Law: l, Value: l.Eval(s.values)}, nil
+}
+
+// NamedRatio returns the model/prototype ratio of the named group g is
+// recognised as (Fr for V²/(g·L) or L·g/V²), with the whole-exponent
+// power the trade also quotes (Fr²); for a group with no name, the ratio
+// of the group as written.
+func (s *Solution) NamedRatio(g pigroups.Group) (GroupRatio, error) {
+	if err := s.plan.prob.CheckGroup(g); err != nil {
+		return GroupRatio{}, &PlanError{Err: ErrForeignGroup, Symbol: g.Name, Reason: "named ratio: " + err.Error()}
+	}
+	return s.groupRatio(g), nil
 }
 
 // With returns a copy of the solution with values for free ratios.
@@ -574,10 +664,10 @@ func (s *Solution) With(values map[string]float64) (*Solution, error) {
 	c.free = nil
 	for k, v := range values {
 		if !slices.Contains(s.params, k) {
-			return nil, &PlanError{Reason: fmt.Sprintf("%q is not a free ratio of the plan (free: %s)", k, strings.Join(s.params, ", "))}
+			return nil, &PlanError{Err: ErrUnknownVariable, Symbol: k, Reason: fmt.Sprintf("%q is not a free ratio of the plan (free: %s)", k, strings.Join(s.params, ", "))}
 		}
 		if !(v > 0) || math.IsInf(v, 0) {
-			return nil, &PlanError{Reason: fmt.Sprintf("ratio %v for %q is not positive and finite", v, k)}
+			return nil, &PlanError{Err: ErrBadRatio, Symbol: k, Reason: fmt.Sprintf("ratio %v for %q is not positive and finite", v, k)}
 		}
 		c.values[k] = v
 	}
@@ -649,7 +739,7 @@ func (s *Solution) DerivedRatio(d quantity.Dim) (Ratio, error) {
 	}
 	for base := quantity.Base(0); base < quantity.NumBases; base++ {
 		if d.Sixths(base) != 0 && !slices.Contains(s.bases, base) {
-			return Ratio{}, &PlanError{Reason: fmt.Sprintf("dimension %s carries %s, which no variable of the plan has", d, base)}
+			return Ratio{}, &PlanError{Err: ErrUnknownVariable, Reason: fmt.Sprintf("dimension %s carries %s, which no variable of the plan has", d, base)}
 		}
 	}
 	c, err := combine(s.base, exps, len(s.params))
@@ -730,7 +820,7 @@ func (s *Solution) SeriesToModel(dst *quantity.Series, p quantity.Series) error 
 func (s *Solution) VariableToPrototype(symbol string, q quantity.Quantity) (quantity.Quantity, error) {
 	i := s.plan.index(symbol)
 	if i < 0 {
-		return quantity.Quantity{}, &PlanError{Reason: fmt.Sprintf("unknown variable %q", symbol)}
+		return quantity.Quantity{}, unknownVar("to prototype", symbol, s.plan.vars)
 	}
 	if err := q.CheckNamed(symbol, s.plan.vars[i].Dim); err != nil {
 		return quantity.Quantity{}, err
@@ -756,7 +846,7 @@ func (pl *Plan) FixFluids(model, prototype fluids.State, density, viscosity, sou
 	}
 	if sound != "" {
 		if model.SpeedOfSound.Value() <= 0 || prototype.SpeedOfSound.Value() <= 0 {
-			return pl.fail("fix %s: a fluid state has no speed of sound", sound)
+			return pl.fail(ErrBadRatio, sound, "fix %s: a fluid state has no speed of sound", sound)
 		}
 		pl.Fix(sound, ratio(model.SpeedOfSound, prototype.SpeedOfSound))
 	}
@@ -772,7 +862,7 @@ func (s *Solution) SetPoints(prototype map[string]quantity.Quantity, unitOf map[
 	for sym, q := range prototype {
 		i := s.plan.index(sym)
 		if i < 0 {
-			return nil, &PlanError{Reason: fmt.Sprintf("set points: unknown variable %q", sym)}
+			return nil, unknownVar("set points", sym, s.plan.vars)
 		}
 		if err := q.CheckNamed(sym, s.plan.vars[i].Dim); err != nil {
 			return nil, err

@@ -51,6 +51,9 @@ func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 	var p units.Printer
 	p.Precision = 5
 	for _, g := range o.Groups {
+		if err := s.plan.prob.CheckGroup(g); err != nil {
+			return nil, &PlanError{Err: ErrForeignGroup, Symbol: g.Name, Reason: "report: " + err.Error()}
+		}
 		label, exps := conventional(g)
 		if len(g.Matches) == 0 {
 			label = g.Name
@@ -129,7 +132,7 @@ func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 	if o.Conflict != nil {
 		r.notes = append(r.notes, "conflict: "+o.Conflict.Summary)
 		for _, rem := range o.Conflict.Remedies {
-			r.notes = append(r.notes, "  without "+rem.Drop+": "+strings.Join(rem.Needs, ", "))
+			r.notes = append(r.notes, "  "+rem.String())
 		}
 	}
 	r.cautions = append([]string{Caution}, o.Cautions...)

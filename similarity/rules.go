@@ -35,7 +35,7 @@ func checkRatios(pairs ...any) error {
 
 func checkRatio(name string, r float64) error {
 	if !(r > 0) || math.IsInf(r, 0) {
-		return &PlanError{Reason: fmt.Sprintf("%s ratio %v is not positive and finite", name, r)}
+		return &PlanError{Err: ErrBadRatio, Symbol: name, Reason: fmt.Sprintf("%s ratio %v is not positive and finite", name, r)}
 	}
 	return nil
 }

@@ -165,7 +165,7 @@ func TestFroudeReynoldsConflict(t *testing.T) {
 	if fluid == nil || !strings.Contains(strings.Join(fluid.Needs, "; "), "ν_m/ν_p = λ_L^(3/2)") {
 		t.Errorf("same-fluid remedy: %+v", fluid)
 	}
-	if !strings.Contains(err.Error(), "without the same gravity: λ_g = λ_L^(-3) = 15625") {
+	if !strings.Contains(err.Error(), "without the same gravity: λ_g = λ_L⁻³ = 15625") {
 		t.Errorf("error text: %v", err)
 	}
 }

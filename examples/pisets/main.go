@@ -167,7 +167,7 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 		return nil, err
 	}
 	for i := range r.Variables {
-		r.Variables[i].Kinds = p.Kinds(i)
+		r.Variables[i].Kinds, _ = p.Kinds(i)
 	}
 	for _, b := range p.Bases() {
 		r.Bases = append(r.Bases, b.String())

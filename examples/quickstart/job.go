@@ -62,7 +62,7 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	}
 	fmt.Fprintln(w, "  conflict:", res.Conflict.Summary)
 	for _, r := range res.Conflict.Remedies {
-		fmt.Fprintf(w, "  - without %s: %v\n", r.Drop, r.Needs)
+		fmt.Fprintf(w, "  - %s\n", r)
 	}
 
 	fmt.Fprintln(w, "\n4. The compromise: hold Fr, let Re float (threshold 1e6, a rule of thumb)")

@@ -1,0 +1,90 @@
+package similarity
+
+import (
+	"strconv"
+	"strings"
+
+	"similis.dev/similis/internal/exact"
+	"similis.dev/similis/pigroups"
+)
+
+// GroupRatio is the model/prototype ratio of a group, stated for the
+// group the trade names: for a held or floating L·g/V² it is the ratio of
+// Fr, with the ratio of Fr² beside it, since Fr itself has half-integer
+// exponents.
+type GroupRatio struct {
+	// Symbol is the named group's symbol ("Fr", "Re"), or the group
+	// written out when it has no name.
+	Symbol string
+	// Name is the named group's name ("Froude number"); empty when none.
+	Name string
+	// Ratio is the model/prototype ratio of the named group itself.
+	Ratio Ratio
+	// Whole, when the named group has fractional exponents, is the
+	// smallest whole-exponent power of it ("Fr²"), and WholeRatio its
+	// ratio.
+	Whole      string
+	WholeRatio Ratio
+}
+
+// String writes "Fr model/prototype = λ_L^(-3/2) = 64 (Fr²: λ_L⁻³ = 4096)".
+func (r GroupRatio) String() string {
+	s := r.Symbol + " model/prototype = " + r.Ratio.String()
+	if r.Whole != "" {
+		s += " (" + r.Whole + ": " + r.WholeRatio.String() + ")"
+	}
+	return s
+}
+
+// groupRatio states a group's ratio for its named group.
+func (s *Solution) groupRatio(g pigroups.Group) GroupRatio {
+	exps := exact.Vec(g.Exponents())
+	ratio := func(v exact.Vec) Ratio {
+		l := s.groupLaw(v)
+		return Ratio{Law: l, Value: l.Eval(s.values)}
+	}
+	if len(g.Matches) == 0 {
+		return GroupRatio{Symbol: g.Format(pigroups.Unicode), Ratio: ratio(exps)}
+	}
+	m := g.Matches[0]
+	named := make(exact.Vec, len(exps))
+	lcm := int64(1)
+	for i, e := range exps {
+		x, err := e.Div(m.Power)
+		if err != nil {
+			return GroupRatio{Symbol: g.Format(pigroups.Unicode), Ratio: ratio(exps)}
+		}
+		named[i] = x
+		lcm = lcm / gcd(lcm, x.Den) * x.Den
+	}
+	out := GroupRatio{Symbol: m.Symbol, Name: m.Name, Ratio: ratio(named)}
+	if lcm > 1 {
+		whole := make(exact.Vec, len(named))
+		for i, x := range named {
+			whole[i], _ = x.Mul(exact.Int(lcm))
+		}
+		out.Whole = m.Symbol + superscript(lcm)
+		out.WholeRatio = ratio(whole)
+	}
+	return out
+}
+
+func gcd(a, b int64) int64 {
+	for b != 0 {
+		a, b = b, a%b
+	}
+	if a < 0 {
+		return -a
+	}
+	return a
+}
+
+func superscript(n int64) string {
+	const sup = "⁰¹²³⁴⁵⁶⁷⁸⁹"
+	digits := []rune(sup)
+	var sb strings.Builder
+	for _, c := range strconv.FormatInt(n, 10) {
+		sb.WriteRune(digits[c-'0'])
+	}
+	return sb.String()
+}
