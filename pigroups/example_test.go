@@ -53,7 +53,7 @@ func ExampleProblem_CheckRepeating() {
 	// [V D ρ]
 }
 
-// Capillary rise: M and T occur only together, so the rank is 2.
+// Capillary rise: M and T occur only as M T⁻², so the rank is 2.
 func ExampleProblem_RankNote() {
 	p := pigroups.MustProblem(
 		pigroups.Dep("h", quantity.Length),
@@ -63,7 +63,7 @@ func ExampleProblem_RankNote() {
 	)
 	fmt.Println(p.RankNote())
 	// Output:
-	// the rank is 2, less than the 3 base dimensions that appear (L, M, T): M and T occur only as M T⁻²; so there are 2 groups, not 1
+	// the rank is 2, less than the 3 base dimensions that appear (L, M, T): every variable's dimension is a product of powers of L and M T⁻², and only 2 combinations of the base dimensions are independent; so there are 2 groups (4 variables less the rank 2), where counting base dimensions would give 1 group
 }
 
 // Fit a power law to invented bench data.

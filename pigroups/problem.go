@@ -346,60 +346,85 @@ func (p *Problem) index(sym string) int {
 }
 
 // RankNote explains a rank below the number of base dimensions that
-// appear, naming the combination in which the dependent bases always
-// occur; it returns "" when the rank equals that number.
+// appear, naming the combinations of base dimensions the variables'
+// dimensions are made of; it returns "" when the rank equals that number.
 //
-// For capillary rise with h, σ, ρg and d, M and T occur only as M T⁻², so
-// the rank is 2, not 3, and there are two groups, not one.
+// For capillary rise with h, σ, ρg and d, every dimension is a product of
+// powers of L and M T⁻², so the rank is 2, not 3, and there are two
+// groups, not one.
 func (p *Problem) RankNote() string {
 	if p.rank == len(p.rows) {
-		return ""
-	}
-	left, err := p.a.Transpose().NullSpace()
-	if err != nil || len(left) == 0 {
 		return ""
 	}
 	names := make([]string, len(p.rows))
 	for i, b := range p.rows {
 		names[i] = b.String()
 	}
-	var parts []string
-	for _, y := range left {
-		var nz []int
-		for i, x := range y {
-			if !x.IsZero() {
-				nz = append(nz, i)
-			}
-		}
-		if len(nz) == 2 {
-			// y₁e₁ + y₂e₂ = 0 for every variable: the bases occur only as
-			// b₁^(y₂) b₂^(−y₁), up to a power.
-			i, j := nz[0], nz[1]
-			comb := exact.Vec{y[j], y[i].Neg()}
-			iv, _, err := exact.Integers(comb)
-			if err != nil {
-				continue
-			}
-			if iv[0].Sign() < 0 {
-				iv[0], iv[1] = iv[0].Neg(), iv[1].Neg()
-			}
-			di, err1 := quantity.DimOf(p.rows[i], int(iv[0].Num), 1)
-			dj, err2 := quantity.DimOf(p.rows[j], int(iv[1].Num), 1)
-			d, err3 := di.Mul(dj)
-			if err1 != nil || err2 != nil || err3 != nil {
-				continue
-			}
-			parts = append(parts, fmt.Sprintf("%s and %s occur only as %s", names[i], names[j], d))
-			continue
-		}
-		var terms []string
-		for _, i := range nz {
-			terms = append(terms, y[i].String()+"·"+names[i])
-		}
-		parts = append(parts, "the exponents satisfy "+strings.Join(terms, " + ")+" = 0 for every variable")
+	// The nonzero rows of the reduced Aᵀ span the dimensions that occur.
+	at := p.a.Transpose()
+	piv, err := at.RREF()
+	if err != nil {
+		return ""
 	}
-	return fmt.Sprintf("the rank is %d, less than the %d base dimensions that appear (%s): %s; so there are %d groups, not %d",
-		p.rank, len(p.rows), strings.Join(names, ", "), strings.Join(parts, "; "), p.NumGroups(), len(p.vars)-len(p.rows))
+	var combos []string
+	for r := range piv {
+		iv, _, err := exact.Integers(at[r])
+		if err != nil {
+			return ""
+		}
+		d := quantity.Dim{}
+		ok := true
+		for k, x := range iv {
+			if x.IsZero() {
+				continue
+			}
+			e, err := quantity.DimOf(p.rows[k], int(x.Num), 1)
+			if err == nil {
+				d, err = d.Mul(e)
+			}
+			if err != nil {
+				ok = false
+				break
+			}
+		}
+		if !ok {
+			return ""
+		}
+		combos = append(combos, d.String())
+	}
+	made := "a power of " + combos[0]
+	if len(combos) > 1 {
+		made = "a product of powers of " + joinAnd(combos)
+	}
+	counted := len(p.vars) - len(p.rows)
+	countText := "none"
+	if counted > 0 {
+		countText = countNoun(counted, "group", "groups")
+	}
+	return fmt.Sprintf("the rank is %d, less than the %s that appear (%s): every variable's dimension is %s, and only %s of the base dimensions %s independent; so there %s %s (%s less the rank %d), where counting base dimensions would give %s",
+		p.rank, countNoun(len(p.rows), "base dimension", "base dimensions"), strings.Join(names, ", "), made,
+		countNoun(p.rank, "combination", "combinations"), plural(p.rank, "is", "are"),
+		plural(p.NumGroups(), "is", "are"), countNoun(p.NumGroups(), "group", "groups"),
+		countNoun(len(p.vars), "variable", "variables"), p.rank, countText)
+}
+
+func plural(n int, one, many string) string {
+	if n == 1 {
+		return one
+	}
+	return many
+}
+
+func countNoun(n int, one, many string) string { return fmt.Sprintf("%d %s", n, plural(n, one, many)) }
+
+func joinAnd(s []string) string {
+	switch len(s) {
+	case 0:
+		return ""
+	case 1:
+		return s[0]
+	}
+	return strings.Join(s[:len(s)-1], ", ") + " and " + s[len(s)-1]
 }
 
 // intColumns returns the integer submatrix of the given columns.

@@ -544,21 +544,42 @@ func (p *Problem) MatrixTable() string {
 	return sb.String()
 }
 
-// Equivalent reports whether two Pi sets of the same problem span the
-// same groups: each group of one is a product of powers of the other's.
+// Equivalent reports whether two Pi sets span the same groups: each group
+// of one is a product of powers of the other's. The sets may come from
+// different problems with the same variables (symbols and dimensions) in
+// any order; sets over different variables are not equivalent.
 func Equivalent(a, b *Set) (bool, error) {
-	if a.prob != b.prob && !slices.EqualFunc(a.prob.vars, b.prob.vars, func(x, y Variable) bool { return x.Symbol == y.Symbol && x.Dim == y.Dim }) {
-		return false, nil
+	bm := b.matrix()
+	if a.prob != b.prob {
+		if len(a.prob.vars) != len(b.prob.vars) {
+			return false, nil
+		}
+		// Column k of a's order is b's variable perm[k].
+		perm := make([]int, len(a.prob.vars))
+		for k, v := range a.prob.vars {
+			j := b.prob.index(v.Symbol)
+			if j < 0 || b.prob.vars[j].Dim != v.Dim {
+				return false, nil
+			}
+			perm[k] = j
+		}
+		for i, row := range bm {
+			r := make(exact.Vec, len(row))
+			for k, j := range perm {
+				r[k] = row[j]
+			}
+			bm[i] = r
+		}
 	}
 	ra, err := a.matrix().Rank()
 	if err != nil {
 		return false, err
 	}
-	rb, err := b.matrix().Rank()
+	rb, err := bm.Rank()
 	if err != nil {
 		return false, err
 	}
-	both := append(a.matrix(), b.matrix()...)
+	both := append(a.matrix(), bm...)
 	rab, err := both.Rank()
 	if err != nil {
 		return false, err

@@ -50,7 +50,9 @@ func ExampleSeries() {
 	rho := quantity.NewSeries([]float64{998, 997, 996}, quantity.Density)
 	v := quantity.NewSeries([]float64{1, 2, 3}, quantity.Velocity)
 	var q quantity.Series
-	q.Mul(rho, v).Mul(q, v).Scale(q, 0.5) // dynamic pressure, no allocation once q has grown
+	q.Mul(rho, v) // dynamic pressure ½ρV², no allocation once q has grown
+	q.Mul(q, v)
+	q.Scale(q, 0.5)
 	fmt.Printf("%.1f\n", q.Values())
 	fmt.Println(q.Dim().SIUnit(), q.Max())
 	// Output:
@@ -63,4 +65,20 @@ func ExampleQuantity_Format() {
 	fmt.Printf("%v | %.2g | %#v | %12.3e|\n", rho, rho, rho, rho)
 	// Output:
 	// 1.225 kg·m⁻³ | 1.2 kg·m⁻³ | 1.225 kg m^-3 | 1.225e+00 kg·m⁻³|
+}
+
+// The Reynolds number of three pipe-flow readings (invented), as the
+// Series documentation writes it.
+func ExampleSeries_reynolds() {
+	rho := quantity.NewSeries([]float64{998.2, 998.2, 997.0}, quantity.Density)
+	v := quantity.NewSeries([]float64{0.5, 1.0, 2.0}, quantity.Velocity)
+	d := quantity.NewSeries([]float64{0.05, 0.05, 0.05}, quantity.Length)
+	mu := quantity.NewSeries([]float64{1.002e-3, 1.002e-3, 0.890e-3}, quantity.DynamicViscosity)
+	var re quantity.Series
+	re.Mul(rho, v)
+	re.Mul(re, d)
+	re.Div(re, mu) // ρVD/μ
+	fmt.Printf("%.0f %v\n", re.Values(), re.Dim().IsDimensionless())
+	// Output:
+	// [24905 49810 112022] true
 }

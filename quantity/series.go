@@ -12,8 +12,14 @@ import "math"
 // destinations have grown:
 //
 //	var re quantity.Series
-//	re.Mul(rho, v).Mul(&re, d).Div(&re, mu) // ρVD/μ
+//	re.Mul(rho, v)
+//	re.Mul(re, d)
+//	re.Div(re, mu) // ρVD/μ
 //
+// (see the Series_reynolds example). Write one operation per statement
+// when an operand is the destination itself: in a chain such as
+// re.Mul(rho, v).Mul(re, d), Go does not specify whether the second re is
+// read before or after the first call.
 // Destination and operands may be the same Series. The zero Series is an
 // empty dimensionless series.
 type Series struct {
