@@ -6,12 +6,16 @@
 // Water: density of fresh water by the CIPM formula of Tanaka et al.
 // (Metrologia 38, 301, 2001); viscosity of fresh water by the correlation
 // of the CRC Handbook of Chemistry and Physics (Bingham form below 20 °C,
-// Kestin's ratio form above); sea water by the correlations of Sharqawy,
-// Lienhard and Zubair (Desalination and Water Treatment 16, 354, 2010),
-// at a salinity of 35.16504 g/kg by default. These agree with the tables
-// of ITTC Recommended Procedure 7.5-02-01-03 (2011) to better than 0.05 %
-// in density and 0.5 % in kinematic viscosity over 0 … 30 °C; they are
-// not the IAPWS formulations.
+// Kestin's ratio form above). Sea-water density by the one-atmosphere
+// equation of state EOS-80 (Millero and Poisson, 1981; UNESCO Technical
+// Papers in Marine Science 44, 1983) as published, its practical salinity
+// taken from the absolute salinity in g/kg by the TEOS-10 reference ratio
+// 35/35.16504; sea-water viscosity by the salinity factor of Sharqawy,
+// Lienhard and Zubair (Desalination and Water Treatment 16, 354, 2010) on
+// the fresh-water value. Sea water is at 35.16504 g/kg by default. Tests
+// check the densities against IAPWS-08 (sea water) and IAPWS-95 (fresh
+// water) to 0.01 % over 0 … 40 °C, and viscosities to 0.5 %; the
+// formulations themselves are not the IAPWS ones.
 //
 // Values are estimates for planning and data reduction. Where a result
 // feeds the design of hulls, hydraulic structures or pressure vessels,

@@ -103,12 +103,22 @@ func freshViscosity(t float64) float64 {
 	return mu20 * math.Pow(10, (-1.3272*d-0.001053*d*d)/(t+105))
 }
 
-// seaDensity follows Sharqawy et al. (2010), eq. 8, with S in kg/kg,
-// scaled to agree with the CIPM value for fresh water at S = 0.
-func seaDensity(t, s float64) float64 {
-	rw := 9.999e2 + 2.034e-2*t - 6.162e-3*t*t + 2.261e-5*t*t*t - 4.657e-8*t*t*t*t
-	ds := s * (8.020e2 - 2.001*t + 1.677e-2*t*t - 3.060e-5*t*t*t - 1.613e-5*s*t*t)
-	return freshDensity(t) + ds*(freshDensity(t)/rw)
+// seaDensity is the one-atmosphere international equation of state of
+// sea water, EOS-80 (Millero and Poisson, 1981; UNESCO Technical Papers
+// in Marine Science 36 and 44), used as published: its own pure-water
+// (SMOW) term, t on the IPTS-68 scale (t₆₈ = 1.00024·t₉₀) and practical
+// salinity S_P. The Salinity of a Water is an absolute salinity in g/kg,
+// read as practical salinity by the reference-composition ratio of
+// TEOS-10, S_P = S_A·35/35.16504. Checked against IAPWS-08 (TEOS-10) to
+// 0.002 % between 0 and 40 °C and 5 to 40 g/kg (see the tests).
+func seaDensity(t90, sa float64) float64 {
+	t := 1.00024 * t90
+	s := sa * 35 / 35.16504
+	rw := 999.842594 + t*(6.793952e-2+t*(-9.095290e-3+t*(1.001685e-4+t*(-1.120083e-6+t*6.536332e-9))))
+	a := 8.24493e-1 + t*(-4.0899e-3+t*(7.6438e-5+t*(-8.2467e-7+t*5.3875e-9)))
+	b := -5.72466e-3 + t*(1.0227e-4-t*1.6546e-6)
+	const c = 4.8314e-4
+	return rw + a*s + b*s*math.Sqrt(s) + c*s*s
 }
 
 // seaViscosity follows Sharqawy et al. (2010), eq. 22, with S in kg/kg,
@@ -132,10 +142,9 @@ func (w Water) At(T, p quantity.Quantity) (State, error) {
 	if w.Salinity < 0 || w.Salinity > 45 {
 		return State{}, &RangeError{Fluid: w.Name(), What: "salinity (g/kg)", Value: w.Salinity, Lo: 0, Hi: 45}
 	}
-	s := w.Salinity / 1000
 	rho, mu := freshDensity(t), freshViscosity(t)
-	if s > 0 {
-		rho, mu = seaDensity(t, s), seaViscosity(t, s)
+	if w.Salinity > 0 {
+		rho, mu = seaDensity(t, w.Salinity), seaViscosity(t, w.Salinity/1000)
 	}
 	return state(T.Value(), p.Value(), rho, mu, 0), nil
 }
