@@ -4,6 +4,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
+	"strings"
 
 	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/stat/distuv"
@@ -54,6 +56,9 @@ type FitOptions struct {
 	// MaxCond is the largest condition number of the design matrix
 	// accepted, 1e10 if zero.
 	MaxCond float64
+	// Names, if given, name Π₀, Π₁ … Π_k in notes ("Eu", "Re", "L/d");
+	// by default they are Π₀ … Π_k.
+	Names []string
 }
 
 // PowerLaw is a fitted Π₀ = C·Π₁^a₁·…·Π_k^a_k, from least squares on
@@ -67,11 +72,16 @@ type PowerLaw struct {
 	R2        float64      // coefficient of determination in log space
 	RMS       float64      // residual root mean square in log space
 	N, DoF    int          // rows and residual degrees of freedom
-	Level     float64      // confidence level of the intervals
-	Cond      float64      // condition number of the design matrix
-	tq        float64      // Student t quantile
-	sigma2    float64
-	cov       *mat.SymDense // σ²(XᵀWX)⁻¹
+	// Ranges holds the smallest and largest fitted value of each of
+	// Π₁ … Π_k: the correlation's range of validity, outside which
+	// Predict marks its result as an extrapolation.
+	Ranges [][2]float64
+	names  []string
+	Level  float64 // confidence level of the intervals
+	Cond   float64 // condition number of the design matrix
+	tq     float64 // Student t quantile
+	sigma2 float64
+	cov    *mat.SymDense // σ²(XᵀWX)⁻¹
 }
 
 // FitPowerLaw fits Π₀ = C·∏ Πₖ^aₖ to measured rows: y holds Π₀ and x[k]
@@ -170,6 +180,11 @@ func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error)
 	inv.ScaleSym(sigma2, &inv)
 	tq := distuv.StudentsT{Mu: 0, Sigma: 1, Nu: float64(dof)}.Quantile(1 - (1-o.Level)/2)
 	f := &PowerLaw{N: n, DoF: dof, Level: o.Level, Cond: cond, tq: tq, sigma2: sigma2, cov: &inv}
+	f.names = slices.Clone(o.Names)
+	f.Ranges = make([][2]float64, k)
+	for j, col := range x {
+		f.Ranges[j] = [2]float64{slices.Min(col), slices.Max(col)}
+	}
 	f.StdErr = make([]float64, p)
 	for j := range p {
 		f.StdErr[j] = math.Sqrt(inv.At(j, j))
@@ -191,12 +206,22 @@ func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error)
 
 // Prediction is the fitted Π₀ at a point, with its confidence interval
 // (for the mean) and prediction interval (for one new measurement), both
-// at the fit's level.
+// at the fit's level. A point outside the range the law was fitted on is
+// an extrapolation: Extrapolated is set and Outside lists the groups
+// (1 for Π₁, …) that left their range; Note says so in words, and every
+// report that prints the value should print it.
 type Prediction struct {
-	Value      float64
-	Mean       [2]float64
-	Individual [2]float64
+	Value        float64
+	Mean         [2]float64
+	Individual   [2]float64
+	Extrapolated bool
+	Outside      []int
+	note         string
 }
+
+// Note is "" for a prediction within the fitted range, and otherwise
+// "EXTRAPOLATED: Π₁ = 3e+05 outside the fitted 1000 … 2e+05".
+func (p Prediction) Note() string { return p.note }
 
 // Predict returns the fitted Π₀ for groups Π₁ … Π_k.
 func (f *PowerLaw) Predict(groups ...float64) (Prediction, error) {
@@ -215,9 +240,25 @@ func (f *PowerLaw) Predict(groups ...float64) (Prediction, error) {
 	}
 	v := mat.Inner(x0, f.cov, x0)
 	se, sp := math.Sqrt(v), math.Sqrt(v+f.sigma2)
-	return Prediction{
+	pr := Prediction{
 		Value:      math.Exp(lnY),
 		Mean:       [2]float64{math.Exp(lnY - f.tq*se), math.Exp(lnY + f.tq*se)},
 		Individual: [2]float64{math.Exp(lnY - f.tq*sp), math.Exp(lnY + f.tq*sp)},
-	}, nil
+	}
+	var parts []string
+	for j, g := range groups {
+		if j < len(f.Ranges) && (g < f.Ranges[j][0] || g > f.Ranges[j][1]) {
+			pr.Outside = append(pr.Outside, j+1)
+			name := piName(j + 1)
+			if j+1 < len(f.names) {
+				name = f.names[j+1]
+			}
+			parts = append(parts, fmt.Sprintf("%s = %.4g outside the fitted %.4g … %.4g", name, g, f.Ranges[j][0], f.Ranges[j][1]))
+		}
+	}
+	if len(parts) > 0 {
+		pr.Extrapolated = true
+		pr.note = "EXTRAPOLATED: " + strings.Join(parts, "; ")
+	}
+	return pr, nil
 }

@@ -63,15 +63,20 @@ func TemperatureFor(f fluids.Fluid, p quantity.Quantity, property func(fluids.St
 	return quantity.New(T, quantity.Temperature), nil
 }
 
-// TunnelLimits bound a wind tunnel's stagnation-free test-section
-// temperature and pressure.
+// TunnelLimits bound a wind tunnel's total (stagnation) temperature and
+// pressure, the settling-chamber conditions a facility is specified and
+// certified by.
 type TunnelLimits struct {
-	MinTemperature, MaxTemperature quantity.Quantity
-	MinPressure, MaxPressure       quantity.Quantity
+	MinTemperature, MaxTemperature quantity.Quantity // total temperature T₀
+	MinPressure, MaxPressure       quantity.Quantity // total pressure p₀
 }
 
-// TunnelCondition is a test-section condition found for a model.
+// TunnelCondition is a condition found for a model: the total condition
+// the tunnel runs at, and the static state in the test section at the
+// held Mach number.
 type TunnelCondition struct {
+	Total fluids.Total // settling-chamber T₀ and p₀
+	// Temperature and Pressure are the test section's static state.
 	Temperature, Pressure, Velocity quantity.Quantity
 	Mach                            float64 // held equal to the prototype's
 	ModelReynolds, FullReynolds     float64
@@ -87,13 +92,16 @@ type TunnelCondition struct {
 const TunnelCaution = "Pressurised and cryogenic tunnel conditions must stay within the facility's certified operating envelope; " +
 	"pressure vessels are operated to the applicable pressure-equipment code under the facility's responsible engineer."
 
-// FindTunnelCondition finds the test-section temperature and pressure of
-// an ideal-gas tunnel at which a model at lengthRatio holds both the
-// prototype's Mach and Reynolds numbers, within the limits. With the Mach
-// number held, V_m = Ma·a(T), and the pressure needed for the Reynolds
-// number is p(T) = Re·μ(T)·R·T/(V_m·L_m), which rises with T: the lowest
-// allowed temperature needs the least pressure. When no condition within
-// the limits holds both, it returns the one that comes closest in
+// FindTunnelCondition finds the total temperature and pressure of an
+// ideal-gas tunnel at which a model at lengthRatio holds both the
+// prototype's Mach and Reynolds numbers, within the limits, which are
+// total conditions. The test section's static state follows from the
+// total one by the isentropic relations at the held Mach number (see
+// fluids.TotalRatios); both are returned. With the Mach number held,
+// V_m = Ma·a(T), and the static pressure needed for the Reynolds number
+// is p(T) = Re·μ(T)·R·T/(V_m·L_m), which rises with T: the lowest allowed
+// total temperature needs the least total pressure. When no condition
+// within the limits holds both, it returns the one that comes closest in
 // Reynolds number, with Achieved false.
 func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLength quantity.Quantity, lengthRatio float64, lim TunnelLimits) (TunnelCondition, error) {
 	for _, c := range []struct {
@@ -117,29 +125,40 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 		return TunnelCondition{}, &PlanError{Reason: "tunnel limits must be positive with minimum ≤ maximum"}
 	}
 	ma := protoSpeed.Value() / proto.SpeedOfSound.Value()
+	tr, pr, err := fluids.TotalRatios(gas.Gamma, ma)
+	if err != nil {
+		return TunnelCondition{}, err
+	}
 	rep := proto.Density.Value() * protoSpeed.Value() * protoLength.Value() / proto.DynamicViscosity.Value()
 	lm := protoLength.Value() * lengthRatio
 	speed := func(T float64) float64 { return ma * math.Sqrt(gas.Gamma*gas.R*T) }
-	need := func(T float64) float64 { return rep * gas.Viscosity(T) * gas.R * T / (speed(T) * lm) }
+	// need0 is the total pressure that gives the full-scale Reynolds
+	// number at total temperature T0.
+	need0 := func(T0 float64) float64 {
+		T := T0 / tr
+		return pr * rep * gas.Viscosity(T) * gas.R * T / (speed(T) * lm)
+	}
 	c := TunnelCondition{Mach: ma, FullReynolds: rep}
-	T, p := tlo, need(tlo)
+	T0, p0 := tlo, need0(tlo)
 	switch {
-	case p > phi:
-		p = phi
-		c.Note = fmt.Sprintf("the Reynolds number needs %.4g Pa even at the lowest temperature; at the pressure limit it reaches only part of full scale", need(tlo))
-	case p < plo:
+	case p0 > phi:
+		p0 = phi
+		c.Note = fmt.Sprintf("the Reynolds number needs a total pressure of %.4g Pa even at the lowest total temperature; at the pressure limit it reaches only part of full scale", need0(tlo))
+	case p0 < plo:
 		// Warm the gas until the minimum pressure gives the right Re.
-		if need(thi) < plo {
-			T, p = thi, plo
-			c.Note = "even at the highest temperature the minimum pressure overshoots the full-scale Reynolds number"
+		if need0(thi) < plo {
+			T0, p0 = thi, plo
+			c.Note = "even at the highest total temperature the minimum total pressure overshoots the full-scale Reynolds number"
 		} else {
 			var err error
-			if T, err = bisect(func(T float64) float64 { return need(T) - plo }, tlo, thi); err != nil {
+			if T0, err = bisect(func(T0 float64) float64 { return need0(T0) - plo }, tlo, thi); err != nil {
 				return TunnelCondition{}, err
 			}
-			p = plo
+			p0 = plo
 		}
 	}
+	c.Total = fluids.Total{Temperature: quantity.New(T0, quantity.Temperature), Pressure: quantity.New(p0, quantity.Pressure)}
+	T, p := T0/tr, p0/pr
 	rho := p / (gas.R * T)
 	c.Temperature, c.Pressure = quantity.New(T, quantity.Temperature), quantity.New(p, quantity.Pressure)
 	c.Velocity = quantity.New(speed(T), quantity.Velocity)

@@ -180,7 +180,7 @@ func (pl *Plan) Fix(symbol string, ratio float64) *Plan {
 	if !(ratio > 0) || math.IsInf(ratio, 0) {
 		return pl.fail(ErrBadRatio, symbol, "fix %s: the ratio %v is not positive and finite", symbol, ratio)
 	}
-	label := fmt.Sprintf("λ_%s = %.6g", symbol, ratio)
+	label := fmt.Sprintf("a %s ratio λ_%s = %.6g", pl.kindWord(i), symbol, ratio)
 	if r := 1 / ratio; ratio < 1 && math.Abs(r-math.Round(r)) < 1e-9*r {
 		label = fmt.Sprintf("a %s scale of 1:%g", pl.kindWord(i), math.Round(r))
 	}
@@ -479,8 +479,10 @@ func (pl *Plan) conflict() error {
 	var forced []string
 	if s, ok, err := pl.solveSubset(rest); err == nil && ok {
 		for _, ci := range fixIdx {
-			i := pl.cons[ci].vars[0]
-			forced = append(forced, s.describe(i))
+			// A ratio the other requirements leave free is not forced.
+			if o := s.outcome(pl.cons[ci].vars[0]); !o.Free {
+				forced = append(forced, o.String())
+			}
 		}
 	}
 	var sb strings.Builder

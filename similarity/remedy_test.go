@@ -39,7 +39,7 @@ func TestRemedyStatesNamedGroup(t *testing.T) {
 		{"V": exact.Int(1), "g": h.Neg(), "L": h.Neg()},             // Fr
 	}
 	reForms := []map[string]exact.Rat{
-		{"rho": exact.Int(1), "V": exact.Int(1), "L": exact.Int(1), "mu": exact.Int(-1)},  // Re
+		{"rho": exact.Int(1), "V": exact.Int(1), "L": exact.Int(1), "mu": exact.Int(-1)},   // Re
 		{"rho": exact.Int(-1), "V": exact.Int(-1), "L": exact.Int(-1), "mu": exact.Int(1)}, // 1/Re
 	}
 	for k := range frForms {

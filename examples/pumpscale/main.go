@@ -1,7 +1,8 @@
 // Command pumpscale carries an invented model-pump test curve to a
 // prototype at another speed and impeller diameter by the affinity laws,
-// with the efficiency stepped up by Moody's formula, and prints the curve
-// in US customary units (gpm, ft, hp) and in SI.
+// with the efficiency stepped up by Moody's formula at the best-efficiency
+// point and that gain added along the curve (common practice), and prints
+// the curve in US customary units (gpm, ft, hp) and in SI.
 //
 // The pump family and the test curve are invented.
 //
@@ -77,6 +78,20 @@ func evaluate(w io.Writer, args []string) ([]Row, error) {
 	fmt.Fprintln(w, "Pump-family scale-up by the affinity laws (invented model curve)")
 	fmt.Fprintf(w, "model %g in impeller at %g rpm → prototype %g in at %g rpm\n", *dm, *nm, *dp, *np)
 	fmt.Fprintf(w, "ratios prototype/model: flow ×%.4g (N·D³), head ×%.4g (N²·D²), power ×%.4g (ρ·N³·D⁵)\n", aff.Flow, aff.Head, aff.Power)
+	// Efficiencies first: the step-up is taken at the best-efficiency
+	// point and its gain applied along the curve.
+	etas := make([]float64, len(curve))
+	for i, c := range curve {
+		eta, err := units.ParseQuantity(c.eff)
+		if err != nil || !eta.IsDimensionless() {
+			return nil, fmt.Errorf("point %d: efficiency %q: %v", i, c.eff, err)
+		}
+		etas[i] = eta.Value()
+	}
+	step, err := similarity.MoodyCurve(etas, dModel, dProto, *moody, similarity.StepUpAtBEP)
+	if err != nil {
+		return nil, err
+	}
 	var rows []Row
 	fmt.Fprintf(w, "\n%-28s | %-40s | %s\n", "model", "prototype (US customary)", "prototype (SI)")
 	fmt.Fprintf(w, "%7s %6s %6s %6s | %8s %7s %8s %6s | %8s %7s %8s\n", "gpm", "ft", "hp", "η", "gpm", "ft", "hp", "η", "L/s", "m", "kW")
@@ -98,9 +113,7 @@ func evaluate(w io.Writer, args []string) ([]Row, error) {
 		r := Row{ModelQ: Q, ModelH: H, ModelP: P, ModelEta: eta}
 		r.ProtoQ = Q.Scale(aff.Flow)
 		r.ProtoH = H.Scale(aff.Head)
-		if r.ProtoEta, err = similarity.MoodyStepUp(eta.Value(), dModel, dProto, *moody); err != nil {
-			return nil, err
-		}
+		r.ProtoEta = step.Efficiency[i]
 		r.ProtoP = water.Mul(g).Mul(r.ProtoQ).Mul(r.ProtoH).Scale(1 / r.ProtoEta)
 		rows = append(rows, r)
 		v := func(u units.Unit, x q.Quantity) float64 { f, _ := u.ValueOf(x); return f }
@@ -109,7 +122,10 @@ func evaluate(w io.Writer, args []string) ([]Row, error) {
 			v(gpm, r.ProtoQ), v(ft, r.ProtoH), v(hp, r.ProtoP), 100*r.ProtoEta,
 			v(ls, r.ProtoQ), v(m, r.ProtoH), v(kw, r.ProtoP))
 	}
-	fmt.Fprintf(w, "\nefficiency stepped up by Moody's formula, η_p = 1 − (1 − η_m)(D_m/D_p)^%g; power from ρgQH/η_p\n", *moody)
+	fmt.Fprintf(w, "\nefficiency stepped up by Moody's formula, η_p = 1 − (1 − η_m)(D_m/D_p)^%g, at the best-efficiency point\n", *moody)
+	fmt.Fprintf(w, "(%.1f %% → %.1f %%), and its gain of %.2f points added at every point (common practice, as IEC 60193 does);\n",
+		100*etas[step.BEP], 100*(etas[step.BEP]+step.Gain), 100*step.Gain)
+	fmt.Fprintln(w, "power from ρgQH/η_p")
 	fmt.Fprintln(w, "\nCAUTION:", caution)
 	return rows, nil
 }

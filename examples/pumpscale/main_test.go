@@ -24,8 +24,10 @@ func TestRuns(t *testing.T) {
 
 // TestByHand carries the 800 gpm point: Q_p = 800·(1180/1750)·2.4³ gpm,
 // H_p = 96·(1180/1750)²·2.4² ft (common practice affinity laws), η_p =
-// 1 − 0.165·(1/2.4)^0.2 (Moody), and shaft power ρgQH/η with 1 gpm =
-// 6.30901964e-5 m³/s and 1 ft = 0.3048 m exactly.
+// 1 − 0.165·(1/2.4)^0.2 (Moody at the best-efficiency point, 83.5 %), and
+// shaft power ρgQH/η with 1 gpm = 6.30901964e-5 m³/s and 1 ft = 0.3048 m
+// exactly. The 200 gpm part-load point gains the same 2.65 points as the
+// best-efficiency point, not the 7.7 Moody's formula would give it alone.
 func TestByHand(t *testing.T) {
 	rows, err := evaluate(&bytes.Buffer{}, nil)
 	if err != nil {
@@ -42,6 +44,15 @@ func TestByHand(t *testing.T) {
 	for i := range got {
 		if math.Abs(got[i]/want[i]-1) > 1e-12 {
 			t.Errorf("quantity %d: %v, by hand %v", i, got[i], want[i])
+		}
+	}
+	gain := 0.165 * (1 - math.Pow(1/2.4, 0.2)) // 0.0265026
+	if math.Abs(gain-0.0265026) > 1e-6 {
+		t.Fatalf("hand gain %v", gain)
+	}
+	for i, m := range []float64{0.52, 0.71, 0.80, 0.835, 0.81, 0.72} {
+		if math.Abs(rows[i].ProtoEta-(m+gain)) > 1e-12 {
+			t.Errorf("point %d: η_p = %v, want %v + %v", i, rows[i].ProtoEta, m, gain)
 		}
 	}
 }

@@ -54,8 +54,18 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 			re = g
 		}
 	}
-	fmt.Fprintf(w, "\n3. A 1:%g model in the same water and gravity, holding Fr and Re\n", scale)
-	plan := similarity.NewPlan(p).Hold(fr).Hold(re).SameFluid("rho", "mu").SameGravity("g").Fix("L", 1/scale)
+	// One water on each side throughout: the model runs in the tank's
+	// fresh water, the ship in sea water, both at 15 °C.
+	sea, err := fluids.SeaWater.AtCelsius(15)
+	if err != nil {
+		return nil, err
+	}
+	tank, err := fluids.FreshWater.AtCelsius(15)
+	if err != nil {
+		return nil, err
+	}
+	fmt.Fprintf(w, "\n3. A 1:%g model in the tank's fresh water, the ship in sea water (both 15 °C), holding Fr and Re\n", scale)
+	plan := similarity.NewPlan(p).Hold(fr).Hold(re).FixFluids(tank, sea, "rho", "mu", "").SameGravity("g").Fix("L", 1/scale)
 	_, err = plan.Solve()
 	if !errors.As(err, &res.Conflict) {
 		return nil, fmt.Errorf("expected a conflict, got %v", err)
@@ -66,11 +76,9 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	}
 
 	fmt.Fprintln(w, "\n4. The compromise: hold Fr, let Re float (threshold 1e6, a rule of thumb)")
-	sea, _ := fluids.SeaWater.AtCelsius(15)
-	tank, _ := fluids.FreshWater.AtCelsius(15)
 	proto := map[string]q.Quantity{"V": units.MustParse("kn").Of(15), "L": q.New(32, q.Length), "g": units.StandardGravity,
 		"rho": sea.Density, "mu": sea.DynamicViscosity}
-	base := similarity.NewPlan(p).SameFluid("rho", "mu").SameGravity("g").Fix("L", 1/scale).Basis("rho", "V", "L")
+	base := similarity.NewPlan(p).FixFluids(tank, sea, "rho", "mu", "").SameGravity("g").Fix("L", 1/scale).Basis("rho", "V", "L")
 	if res.Compromise, err = base.Compromise(proto, similarity.Priority{Group: fr}, similarity.Priority{Group: re, MinModel: 1e6}); err != nil {
 		return nil, err
 	}
@@ -89,7 +97,7 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 		return nil, err
 	}
 	pr := units.Printer{Precision: 4}
-	fmt.Fprintf(w, "  model: V = %s, R = %s → ship %s (λ_F = λ_L³, ignoring the Reynolds number)\n",
+	fmt.Fprintf(w, "  model: V = %s, R = %s → ship %s (λ_F = λ_ρ·λ_L³, ignoring the Reynolds number)\n",
 		must(pr.FormatIn(vm, units.MustParse("m/s"))), pr.Format(rm), must(pr.FormatIn(res.NaiveForce, units.MustParse("kN"))))
 
 	fmt.Fprintln(w, "\n6. The same reading extrapolated by the ITTC-1957 line (Froude's hypothesis)")

@@ -21,6 +21,8 @@ import (
 	"os"
 
 	q "similis.dev/similis/quantity"
+	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/units"
 )
 
 // The whole-job part is in job.go.
@@ -37,14 +39,42 @@ type pipe struct {
 	rho, v, d, mu, eps, l q.Quantity
 }
 
-// pressureDrop evaluates Darcy–Weisbach with the Swamee–Jain (1976)
-// explicit friction factor, f = 0.25 / [log₁₀(ε/(3.7 D) + 5.74/Re^0.9)]².
-func pressureDrop(p pipe) (re, f, dp q.Quantity) {
+// Flow regimes of a pipe by Reynolds number (common practice): laminar
+// below 2000, turbulent above 4000, transitional between, where neither
+// friction law can be trusted.
+const (
+	laminarBelow   = 2000
+	turbulentAbove = 4000
+)
+
+// pressureDrop evaluates Darcy–Weisbach, Δp = f·(L/D)·ρV²/2, with the
+// friction factor of the flow's regime: 64/Re for laminar flow
+// (Hagen–Poiseuille), the Swamee–Jain (1976) explicit formula
+// f = 0.25 / [log₁₀(ε/(3.7 D) + 5.74/Re^0.9)]² for turbulent flow (fitted
+// for 5000 ≤ Re ≤ 10⁸ and 10⁻⁶ ≤ ε/D ≤ 10⁻², so a result between 4000
+// and 5000 is marked as an extrapolation). Transitional flow is refused.
+func pressureDrop(p pipe) (re, f, dp q.Quantity, regime string, err error) {
 	re = p.rho.Mul(p.v).Mul(p.d).Div(p.mu)
-	lg := q.Log10(p.eps.Div(p.d).Scale(1 / 3.7).Add(q.Powf(re, 0.9).Inv().Scale(5.74)))
-	f = lg.Mul(lg).Inv().Scale(0.25)
+	rel := p.eps.Div(p.d)
+	if err := re.CheckNamed("Reynolds number ρVD/μ", q.Dim{}); err != nil {
+		return re, f, dp, "", err
+	}
+	switch r := re.Value(); {
+	case r < laminarBelow:
+		f = re.Inv().Scale(64)
+		regime = "laminar, f = 64/Re"
+	case r <= turbulentAbove:
+		return re, f, dp, "", fmt.Errorf("Re = %.4g is in the transition range %d–%d, where neither the laminar nor the turbulent friction law holds", r, laminarBelow, turbulentAbove)
+	default:
+		lg := q.Log10(rel.Scale(1 / 3.7).Add(q.Powf(re, 0.9).Inv().Scale(5.74)))
+		f = lg.Mul(lg).Inv().Scale(0.25)
+		regime = "turbulent, Swamee–Jain"
+		if r < 5000 || r > 1e8 || rel.Value() < 1e-6 || rel.Value() > 1e-2 {
+			regime += " (EXTRAPOLATED outside 5000 ≤ Re ≤ 1e8, 1e-6 ≤ ε/D ≤ 1e-2)"
+		}
+	}
 	dp = f.Mul(p.l.Div(p.d)).Mul(p.rho).Mul(p.v).Mul(p.v).Scale(0.5)
-	return re, f, dp
+	return re, f, dp, regime, nil
 }
 
 func run(w io.Writer, args []string) error {
@@ -63,26 +93,37 @@ func run(w io.Writer, args []string) error {
 	if *v <= 0 || *d <= 0 || *l <= 0 || math.IsInf(*v+*d+*l, 0) {
 		return fmt.Errorf("velocity, bore and length must be positive and finite")
 	}
-	// Invented data: a water line in a test rig, commercial steel pipe.
+	// Invented data: a water line in a test rig, commercial steel pipe,
+	// fresh water at 20 °C.
+	water, err := fluids.FreshWater.AtCelsius(20)
+	if err != nil {
+		return err
+	}
 	p := pipe{
-		rho: q.New(998.2, q.Density),
+		rho: water.Density,
 		v:   q.New(*v, q.Velocity),
 		d:   q.New(*d, q.Length),
-		mu:  q.New(1.0016e-3, q.DynamicViscosity),
+		mu:  water.DynamicViscosity,
 		eps: q.New(4.5e-5, q.Length),
 		l:   q.New(*l, q.Length),
 	}
 	fmt.Fprintln(w, "similis quickstart — all data below are invented for the demonstration")
 	fmt.Fprintln(w, "\n1. A unit-safe formula: pipe pressure drop on a test rig")
-	fmt.Fprintf(w, "  ρ = %v, V = %v, D = %v, μ = %v, ε = %v, L = %v\n", p.rho, p.v, p.d, p.mu, p.eps, p.l)
-	re, f, dp := pressureDrop(p)
-	fmt.Fprintf(w, "  Re = %.5g   f = %.4f   Δp = %.4g\n", re.Value(), f.Value(), dp)
+	pr := units.Printer{Precision: 5}
+	fmt.Fprintf(w, "  ρ = %s, V = %s, D = %s, μ = %s, ε = %s, L = %s (fresh water at 20 °C)\n",
+		pr.Format(p.rho), pr.Format(p.v), pr.Format(p.d), pr.Format(p.mu), pr.Format(p.eps), pr.Format(p.l))
+	re, f, dp, regime, err := pressureDrop(p)
+	if err != nil {
+		fmt.Fprintln(w, "  refused:", err)
+	} else {
+		fmt.Fprintf(w, "  Re = %.5g (%s)   f = %.4f   Δp = %s\n", re.Value(), regime, f.Value(), pr.Format(dp))
+	}
 
 	// The classic slip: the data sheet gives ν (m²/s) and it goes in where μ
 	// belongs. The formula refuses it at the first dimensionless-only step.
 	bad := p
 	bad.mu = q.New(1.0034e-6, q.KinematicViscosity)
-	_, err := q.Eval(func() q.Quantity { _, _, dp := pressureDrop(bad); return dp })
+	_, _, _, _, err = pressureDrop(bad)
 	fmt.Fprintln(w, "  with a kinematic viscosity in place of μ:")
 	fmt.Fprintln(w, "   ", err)
 	if err == nil {

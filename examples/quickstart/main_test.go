@@ -15,7 +15,7 @@ func TestRun(t *testing.T) {
 	if err := run(&out, nil); err != nil {
 		t.Fatal(err)
 	}
-	for _, want := range []string{"invented", "Re = 1.9932e+05", "cannot raise density [kg·m⁻³] to a real power", "ITTC-1957"} {
+	for _, want := range []string{"invented", "Re = 1.9925e+05 (turbulent", "want dimensionless [1], got density [kg·m⁻³]", "ITTC-1957"} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("output lacks %q:\n%s", want, out.String())
 		}
@@ -29,10 +29,13 @@ func TestPressureDropByHand(t *testing.T) {
 	re := 998.2 * 2.5 * 0.08 / 1.0016e-3
 	f := 0.25 / math.Pow(math.Log10(4.5e-5/(3.7*0.08)+5.74/math.Pow(re, 0.9)), 2)
 	dp := f * (40 / 0.08) * 998.2 * 2.5 * 2.5 / 2
-	gotRe, gotF, gotDp := pressureDrop(pipe{
+	gotRe, gotF, gotDp, _, err := pressureDrop(pipe{
 		q.New(998.2, q.Density), q.New(2.5, q.Velocity), q.New(0.08, q.Length),
 		q.New(1.0016e-3, q.DynamicViscosity), q.New(4.5e-5, q.Length), q.New(40, q.Length),
 	})
+	if err != nil {
+		t.Fatal(err)
+	}
 	if math.Abs(gotRe.Value()/re-1) > 1e-14 || math.Abs(gotF.Value()/f-1) > 1e-14 || math.Abs(gotDp.Value()/dp-1) > 1e-14 {
 		t.Errorf("got Re %v f %v Δp %v; hand %v %v %v", gotRe, gotF, gotDp, re, f, dp)
 	}
@@ -64,10 +67,14 @@ func TestWholeJob(t *testing.T) {
 	if r.Set.Len() != 3 || r.Conflict == nil || len(r.Compromise.Held) != 1 {
 		t.Fatalf("set %v, conflict %v, compromise %v", r.Set, r.Conflict, r.Compromise)
 	}
-	// Froude scaling of force at 1:16 with the same density: λ_F = 16⁻³,
-	// so 30.9 N → 30.9·4096 N (common practice).
-	if math.Abs(r.NaiveForce.Value()-30.9*4096) > 1e-6 {
-		t.Errorf("naive ship force %v, want %v", r.NaiveForce, 30.9*4096)
+	// Froude scaling of force at 1:16: λ_F = λ_ρ·16⁻³ (common practice),
+	// with fresh water of 999.1026 kg/m³ (IAPWS-95 at 15 °C) in the tank
+	// and sea water of 1025.976 kg/m³ (IAPWS-08 at 15 °C, 35.16504 g/kg)
+	// at sea, both computed with python3-iapws; so 30.9 N → 30.9·4096·
+	// 1025.976/999.1026 N = 129 970 N.
+	want := 30.9 * 4096 * 1025.976 / 999.1026
+	if math.Abs(r.NaiveForce.Value()/want-1) > 1e-5 {
+		t.Errorf("naive ship force %v, want %v", r.NaiveForce, want)
 	}
 	// The extrapolated resistance is below the naive one: the ship's
 	// frictional coefficient is smaller at its higher Reynolds number.
@@ -78,7 +85,10 @@ func TestWholeJob(t *testing.T) {
 	if vm := r.Extrapolate.Points[0].ModelSpeed.Value(); math.Abs(vm-15*1852.0/3600/4) > 1e-12 {
 		t.Errorf("model speed %v", vm)
 	}
-	for _, want := range []string{"forces λ_L to 1", "ν_m/ν_p = λ_L^(3/2)", "CAUTION"} {
+	// Holding Fr and Re with the fluids fixed forces λ_L = (λ_μ/λ_ρ)^(2/3)
+	// (ν ratio = λ_L^(3/2)); dropping the viscosity ratio needs
+	// λ_μ = λ_ρ·λ_L^(3/2) = 0.973811/64 = 0.015216.
+	for _, want := range []string{"forces λ_L = λ_rho^(-2/3)·λ_mu^(2/3)", "λ_mu = λ_L^(3/2)·λ_rho = 0.0152158", "CAUTION"} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("output lacks %q", want)
 		}
@@ -92,5 +102,31 @@ func TestMainDemoIsFast(t *testing.T) {
 	}
 	if d := time.Since(start); d > 10*time.Second {
 		t.Errorf("the main demo took %v", d)
+	}
+}
+
+// TestPressureDropRegimes: at V = 0.01 m/s the flow is laminar,
+// Re = 998.2·0.01·0.08/1.0016e-3 = 797.28, and f = 64/Re = 0.080273
+// (Hagen–Poiseuille); at V = 0.03 m/s, Re = 2392 is transitional and
+// refused; at V = 0.055 m/s, Re = 4385 is turbulent but below the 5000
+// Swamee–Jain was fitted on, and says so.
+func TestPressureDropRegimes(t *testing.T) {
+	mk := func(v float64) pipe {
+		return pipe{q.New(998.2, q.Density), q.New(v, q.Velocity), q.New(0.08, q.Length),
+			q.New(1.0016e-3, q.DynamicViscosity), q.New(4.5e-5, q.Length), q.New(40, q.Length)}
+	}
+	re, f, dp, regime, err := pressureDrop(mk(0.01))
+	wantRe := 998.2 * 0.01 * 0.08 / 1.0016e-3
+	if err != nil || math.Abs(re.Value()/wantRe-1) > 1e-14 || math.Abs(f.Value()-64/wantRe) > 1e-15 || !strings.HasPrefix(regime, "laminar") {
+		t.Errorf("laminar: Re %v f %v (%s), %v", re, f, regime, err)
+	}
+	if want := 64 / wantRe * 500 * 998.2 * 0.01 * 0.01 / 2; math.Abs(dp.Value()/want-1) > 1e-14 {
+		t.Errorf("laminar Δp %v, want %v", dp, want)
+	}
+	if _, _, _, _, err := pressureDrop(mk(0.03)); err == nil || !strings.Contains(err.Error(), "transition") {
+		t.Errorf("transitional flow: %v", err)
+	}
+	if _, _, _, regime, err := pressureDrop(mk(0.055)); err != nil || !strings.Contains(regime, "EXTRAPOLATED") {
+		t.Errorf("Re ≈ 4400: %q, %v", regime, err)
 	}
 }

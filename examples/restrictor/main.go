@@ -128,7 +128,11 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 			xs[k] = append(xs[k], g[k+1])
 		}
 	}
-	fit, err := pigroups.FitPowerLaw(y, xs, nil)
+	names := make([]string, len(set.Groups()))
+	for k, g := range set.Groups() {
+		names[k] = label(g)
+	}
+	fit, err := pigroups.FitPowerLaw(y, xs, &pigroups.FitOptions{Names: names})
 	if err != nil {
 		return nil, err
 	}
@@ -143,11 +147,18 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		fmt.Fprintf(w, "  exponent of %s: %.4f ± %.4f, 95 %% interval [%.4f, %.4f]\n", label(gs[k+1]), a, fit.StdErr[k+1], fit.Intervals[k][0], fit.Intervals[k][1])
 	}
 	fmt.Fprintf(w, "  R² = %.4f, residual RMS in ln = %.4f\n", fit.R2, fit.RMS)
-	mid := []float64{3000, 4}
+	mid := []float64{math.Round(math.Sqrt(fit.Ranges[0][0] * fit.Ranges[0][1])), 4}
 	if len(fit.Exponents) == len(mid) {
 		pr, _ := fit.Predict(mid...)
-		fmt.Fprintf(w, "  at Re = 3000, L/d = 4: %s = %.4f, mean in [%.4f, %.4f], one new reading in [%.4f, %.4f]\n",
-			gs[0].Label(), pr.Value, pr.Mean[0], pr.Mean[1], pr.Individual[0], pr.Individual[1])
+		fmt.Fprintf(w, "  at Re = %.4g, L/d = 4: %s = %.4f, mean in [%.4f, %.4f], one new reading in [%.4f, %.4f]\n",
+			mid[0], gs[0].Label(), pr.Value, pr.Mean[0], pr.Mean[1], pr.Individual[0], pr.Individual[1])
+		if pr.Extrapolated {
+			fmt.Fprintln(w, "  ", pr.Note())
+		}
+		out := []float64{3 * fit.Ranges[0][1], 4}
+		if pr, err := fit.Predict(out...); err == nil {
+			fmt.Fprintf(w, "  at Re = %.4g, L/d = 4: %s = %.4f — %s\n", out[0], gs[0].Label(), pr.Value, pr.Note())
+		}
 	}
 	if res.PNG, res.SVG, err = plotFit(*out, res); err != nil {
 		return nil, err

@@ -1,7 +1,9 @@
 // Command tunnel plans wind-tunnel tests of an invented high-altitude
 // survey aircraft cruising at 18 km in the ISO 2533 standard atmosphere:
 // the Mach number held with the Reynolds number left to float in an
-// ordinary tunnel, then the temperature and pressure a pressurised or a
+// ordinary tunnel drawing atmospheric air (total conditions 288.15 K and
+// 101 325 Pa, the test section's static state from the isentropic
+// relations), then the total temperature and pressure a pressurised or a
 // cooled tunnel would need to hold both.
 //
 // The aircraft and the tunnels are invented for the demonstration.
@@ -36,6 +38,7 @@ type Result struct {
 	Speed, Chord           float64
 	ReFlight, ReOrdinary   float64
 	OrdinarySpeed          float64
+	Ordinary               fluids.State // the ordinary tunnel's static test-section state
 	Pressurised, Cryogenic similarity.TunnelCondition
 	Compromise             *similarity.Compromise
 }
@@ -88,7 +91,17 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 			re = g
 		}
 	}
-	ground, _ := fluids.Air.At(q.New(288.15, q.Temperature), q.New(101325, q.Pressure))
+	// The ordinary tunnel draws atmospheric air: that is its total
+	// condition; the test section runs at the static state the held Mach
+	// number gives.
+	intake := fluids.Total{Temperature: q.New(288.15, q.Temperature), Pressure: q.New(101325, q.Pressure)}
+	ground, err := fluids.Air.StaticAt(intake, *mach)
+	if err != nil {
+		return nil, err
+	}
+	r.Ordinary = ground
+	fmt.Fprintf(w, "ordinary tunnel: total %s; test section at Ma %.2f: static T = %.2f K, p = %.0f Pa, ρ = %.4f kg/m³ (isentropic relations)\n\n",
+		intake, *mach, ground.Temperature.Value(), ground.Pressure.Value(), ground.Density.Value())
 	plan := similarity.NewPlan(p).Fix("c", 1 / *scale).
 		Fix("a", ground.SpeedOfSound.Value()/flight.SpeedOfSound.Value()).
 		Fix("rho", ground.Density.Value()/flight.Density.Value()).
@@ -104,7 +117,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	r.OrdinarySpeed = r.Speed * vr.Value
 	r.ReOrdinary = c.Floating[0].Model
 	rep, err := similarity.NewReport(c.Solution, similarity.ReportOptions{
-		Title: fmt.Sprintf("1:%g model in an ordinary tunnel (sea-level air)", *scale), Prototype: proto,
+		Title: fmt.Sprintf("1:%g model in an ordinary tunnel (atmospheric intake, static state at the held Mach number)", *scale), Prototype: proto,
 		Units: map[string]string{"V": "m/s", "mu": "uPa*s"}, Groups: set.Groups(), Compromise: c,
 	})
 	if err != nil {
@@ -128,10 +141,12 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	for _, t := range []struct {
 		name string
 		c    similarity.TunnelCondition
-	}{{"pressurised tunnel (280–320 K, ≤ 4 bar)", r.Pressurised}, {"cryogenic tunnel (≥ 110 K, 1–4.5 bar)", r.Cryogenic}} {
-		fmt.Fprintf(w, "  %s: T = %.1f K, p = %.3f bar, V = %.1f m/s, Re_m/Re = %.3f — %s\n", t.name,
+	}{{"pressurised tunnel (total 280–320 K, ≤ 4 bar)", r.Pressurised}, {"cryogenic tunnel (total ≥ 110 K, 1–4.5 bar)", r.Cryogenic}} {
+		fmt.Fprintf(w, "  %s:\n    total T₀ = %.1f K, p₀ = %.3f bar; static T = %.1f K, p = %.3f bar; V = %.1f m/s; Re_m/Re = %.3f — %s\n", t.name,
+			t.c.Total.Temperature.Value(), t.c.Total.Pressure.Value()/1e5,
 			t.c.Temperature.Value(), t.c.Pressure.Value()/1e5, t.c.Velocity.Value(), t.c.ReynoldsRatio, t.c.Note)
 	}
+	fmt.Fprintln(w, "  (limits are total conditions; static = total by the isentropic relations of a perfect gas, γ = 1.4)")
 	fmt.Fprintln(w, "\nCAUTION:", similarity.TunnelCaution)
 	return r, nil
 }

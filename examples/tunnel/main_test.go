@@ -22,21 +22,34 @@ func TestRuns(t *testing.T) {
 	}
 }
 
-// TestByHand: in the ordinary tunnel the Mach number is held, so
-// V_m = Ma·a₀ with a₀ = √(1.4·287.05287·288.15) = 340.294 m/s (ISO 2533
-// sea level), and Re_m = ρ₀·V_m·(c/12)/μ₀ with ρ₀ = 1.2250 kg/m³ and
-// μ₀ = 1.7894e-5 Pa·s.
+// TestByHand: the ordinary tunnel draws atmospheric air, total
+// T₀ = 288.15 K and p₀ = 101 325 Pa; at Ma = 0.62 the isentropic
+// relations (common practice) give T = T₀/(1 + 0.2·Ma²) and
+// p = p₀/(1 + 0.2·Ma²)^3.5. The Mach number is held, so V_m = Ma·√(γRT),
+// and Re_m = ρ·V_m·(c/12)/μ with ρ = p/(RT) and Sutherland's μ(T) of
+// ISO 2533 (β = 1.458e-6, S = 110.4 K).
 func TestByHand(t *testing.T) {
 	r, err := evaluate(&bytes.Buffer{}, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
-	vm := 0.62 * 340.294
-	if math.Abs(r.OrdinarySpeed/vm-1) > 1e-5 {
+	const R, gamma = 287.05287, 1.4
+	f := 1 + 0.2*0.62*0.62
+	T := 288.15 / f
+	p := 101325 / math.Pow(f, 3.5)
+	if math.Abs(T-267.579) > 1e-3 || math.Abs(p-78186.4) > 0.1 {
+		t.Fatalf("hand static state T = %v, p = %v", T, p)
+	}
+	if math.Abs(r.Ordinary.Temperature.Value()/T-1) > 1e-12 || math.Abs(r.Ordinary.Pressure.Value()/p-1) > 1e-12 {
+		t.Errorf("static state %v, %v; by hand %v K, %v Pa", r.Ordinary.Temperature, r.Ordinary.Pressure, T, p)
+	}
+	vm := 0.62 * math.Sqrt(gamma*R*T)
+	if math.Abs(r.OrdinarySpeed/vm-1) > 1e-9 {
 		t.Errorf("V_m = %v, by hand %v", r.OrdinarySpeed, vm)
 	}
-	rem := 1.2250 * vm * 0.2 / 1.7894e-5
-	if math.Abs(r.ReOrdinary/rem-1) > 1e-4 {
+	mu := 1.458e-6 * T * math.Sqrt(T) / (T + 110.4)
+	rem := p / (R * T) * vm * 0.2 / mu
+	if math.Abs(r.ReOrdinary/rem-1) > 1e-9 {
 		t.Errorf("Re_m = %v, by hand %v", r.ReOrdinary, rem)
 	}
 	ref := r.Flight.Density.Value() * r.Speed * 2.4 / r.Flight.DynamicViscosity.Value()
@@ -45,5 +58,13 @@ func TestByHand(t *testing.T) {
 	}
 	if !r.Cryogenic.Achieved && !r.Pressurised.Achieved {
 		t.Error("neither tunnel holds both groups")
+	}
+	// Each found condition: static = total by the isentropic relations.
+	for _, c := range []struct {
+		T0, p0, T, p float64
+	}{{r.Cryogenic.Total.Temperature.Value(), r.Cryogenic.Total.Pressure.Value(), r.Cryogenic.Temperature.Value(), r.Cryogenic.Pressure.Value()}} {
+		if math.Abs(c.T0/c.T-f) > 1e-12 || math.Abs(c.p0/c.p-math.Pow(f, 3.5)) > 1e-9 {
+			t.Errorf("total/static: %v", c)
+		}
 	}
 }

@@ -1,0 +1,63 @@
+package fluids
+
+import (
+	"fmt"
+	"math"
+
+	"similis.dev/similis/quantity"
+)
+
+// Total is a stagnation (total) condition: the temperature and pressure
+// the gas would reach brought to rest isentropically. Tunnels are set and
+// limited by their total conditions (settling-chamber temperature and
+// pressure), not by the test section's static state.
+type Total struct {
+	Temperature, Pressure quantity.Quantity
+}
+
+// String writes "T₀ = 288.15 K, p₀ = 101325 Pa".
+func (t Total) String() string {
+	return fmt.Sprintf("T₀ = %.6g K, p₀ = %.6g Pa", t.Temperature.Value(), t.Pressure.Value())
+}
+
+// TotalRatios returns T₀/T and p₀/p for a perfect gas of ratio of
+// specific heats gamma at Mach number ma: T₀/T = 1 + (γ − 1)/2·Ma² and
+// p₀/p = (T₀/T)^(γ/(γ−1)) (the isentropic relations of compressible-flow
+// texts, common practice).
+func TotalRatios(gamma, ma float64) (tr, pr float64, err error) {
+	if !(gamma > 1) || math.IsInf(gamma, 0) {
+		return 0, 0, &RangeError{Fluid: "perfect gas", What: "ratio of specific heats", Value: gamma, Lo: 1, Hi: math.Inf(1)}
+	}
+	if !(ma >= 0) || ma > 50 {
+		return 0, 0, &RangeError{Fluid: "perfect gas", What: "Mach number", Value: ma, Lo: 0, Hi: 50}
+	}
+	tr = 1 + 0.5*(gamma-1)*ma*ma
+	pr = math.Pow(tr, gamma/(gamma-1))
+	return tr, pr, nil
+}
+
+// StaticAt returns the static state of the gas moving at Mach number ma
+// from the total condition tot, by the isentropic relations.
+func (g IdealGas) StaticAt(tot Total, ma float64) (State, error) {
+	if err := check(tot.Temperature, tot.Pressure); err != nil {
+		return State{}, err
+	}
+	tr, pr, err := TotalRatios(g.Gamma, ma)
+	if err != nil {
+		return State{}, err
+	}
+	return g.At(tot.Temperature.Scale(1/tr), tot.Pressure.Scale(1/pr))
+}
+
+// TotalOf returns the total condition of a static state s moving at Mach
+// number ma, by the isentropic relations.
+func (g IdealGas) TotalOf(s State, ma float64) (Total, error) {
+	if err := check(s.Temperature, s.Pressure); err != nil {
+		return Total{}, err
+	}
+	tr, pr, err := TotalRatios(g.Gamma, ma)
+	if err != nil {
+		return Total{}, err
+	}
+	return Total{Temperature: s.Temperature.Scale(tr), Pressure: s.Pressure.Scale(pr)}, nil
+}
