@@ -54,6 +54,23 @@ func Example_pigroups() {
 	// Π₃ = ε/D
 }
 
+func Example_coefficients() {
+	p := pigroups.MustProblem(
+		pigroups.Dep("T", quantity.Force).WithKind("force"),
+		pigroups.VarKind("n", quantity.AngularVelocity, "rotational speed"),
+		pigroups.VarKind("D", quantity.Length, "length"), pigroups.VarKind("ρ", quantity.Density, "density"))
+	s, _ := p.PiSet("n", "D", "ρ")
+	fmt.Println(s.Groups()[0].Label()) // the Pi group, n held in rad/s
+	kt := s.WithCoefficients()         // the trade's K_T, n in rev/s
+	n, _ := units.ParseQuantity("600 rpm")
+	row := []quantity.Quantity{quantity.New(200, quantity.Force), n, quantity.New(0.25, quantity.Length), quantity.New(1000, quantity.Density)}
+	v, _ := kt.Evaluator().Row(row, make([]float64, 1))
+	fmt.Printf("%s = %s = %.4g\n", kt.Groups()[0].Label(), kt.Groups()[0].Format(pigroups.Unicode), v[0])
+	// Output:
+	// K_T/(4π²)
+	// K_T = 4π²·T/(n²·D⁴·ρ) = 0.512
+}
+
 func Example_similarity() {
 	s, _ := similarity.Froude(1.0/25, 1) // a 1:25 model in the same water
 	for _, d := range []quantity.Dim{quantity.Velocity, quantity.Force, quantity.Power} {

@@ -103,12 +103,13 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	if err := s.SeriesToPrototype(&r.ProtoPressure, q.NewSeries(pa, q.Pressure)); err != nil {
 		return nil, err
 	}
-	fmt.Fprintln(w, "\nchute-floor pressure record (invented), model → prototype:")
-	fmt.Fprintf(w, "  %8s %10s   %8s %10s\n", "t_m s", "p_m kPa", "t_p s", "p_p kPa")
+	fmt.Fprintln(w, "\nchute-floor pressure record (invented), gauge pressures (relative to the local atmosphere), model → prototype:")
+	fmt.Fprintf(w, "  %8s %10s   %8s %10s\n", "t_m s", "p_m kPa(g)", "t_p s", "p_p kPa(g)")
 	for i := range record {
 		fmt.Fprintf(w, "  %8.3f %10.2f   %8.3f %10.2f\n", times[i], record[i], r.ProtoTimes.At(i).Value(), r.ProtoPressure.At(i).Value()/1000)
 	}
-	fmt.Fprintf(w, "  prototype mean %.1f kPa, peak %.1f kPa\n", r.ProtoPressure.Mean().Value()/1000, r.ProtoPressure.Max().Value()/1000)
+	fmt.Fprintf(w, "  prototype mean %.1f kPa(g), peak %.1f kPa(g)\n", r.ProtoPressure.Mean().Value()/1000, r.ProtoPressure.Max().Value()/1000)
+	fmt.Fprintln(w, "  (gauge pressures scale by λ_L; the atmosphere does not, so absolute pressures, and cavitation margins, must not be scaled this way)")
 
 	r.Manning, _ = similarity.ManningRatio(1 / *scale)
 	fmt.Fprintf(w, "\nroughness: Manning n ratio λ_L^(1/6) = %.4f (a prototype n of 0.014 needs a model n of %.4f)\n", r.Manning, 0.014*r.Manning)
