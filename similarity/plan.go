@@ -581,8 +581,6 @@ func (s *Solution) outcome(i int) Outcome {
 	return Outcome{Label: "λ_" + sym, Ratio: Ratio{Law: l, Value: l.Eval(s.values)}, One: l.IsOne(), Free: isParam && math.IsNaN(l.Eval(s.values))}
 }
 
-// describe writes a variable's ratio: its law, and its value when known.
-func (s *Solution) describe(i int) string { return s.outcome(i).String() }
 
 // groupLaw returns the law of the ratio of ∏ xᵢ^eᵢ.
 func (s *Solution) groupLaw(exps exact.Vec) Law {

@@ -3,6 +3,7 @@ package units
 import (
 	"errors"
 	"fmt"
+	"slices"
 	"sync"
 	"sync/atomic"
 	"unicode/utf8"
@@ -62,7 +63,8 @@ func (t *Table) lookup(sym string) (*entry, bool) {
 func (t *Table) spellings() []string {
 	t.mu.RLock()
 	defer t.mu.RUnlock()
-	return append(builtinSpellings(), t.names...)
+	// A new slice: the built-in list is shared by every table and goroutine.
+	return slices.Concat(builtinSpellings(), t.names)
 }
 
 // Define adds a unit named name, equal to the unit expression expr, which

@@ -64,7 +64,7 @@ func pressureDrop(p pipe) (re, f, dp q.Quantity, regime string, err error) {
 		f = re.Inv().Scale(64)
 		regime = "laminar, f = 64/Re"
 	case r <= turbulentAbove:
-		return re, f, dp, "", fmt.Errorf("Re = %.4g is in the transition range %d–%d, where neither the laminar nor the turbulent friction law holds", r, laminarBelow, turbulentAbove)
+		return re, f, dp, "", fmt.Errorf("the Reynolds number %.4g is in the transition range %d–%d, where neither the laminar nor the turbulent friction law holds", r, laminarBelow, turbulentAbove)
 	default:
 		lg := q.Log10(rel.Scale(1 / 3.7).Add(q.Powf(re, 0.9).Inv().Scale(5.74)))
 		f = lg.Mul(lg).Inv().Scale(0.25)
