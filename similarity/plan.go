@@ -581,7 +581,6 @@ func (s *Solution) outcome(i int) Outcome {
 	return Outcome{Label: "λ_" + sym, Ratio: Ratio{Law: l, Value: l.Eval(s.values)}, One: l.IsOne(), Free: isParam && math.IsNaN(l.Eval(s.values))}
 }
 
-
 // groupLaw returns the law of the ratio of ∏ xᵢ^eᵢ.
 func (s *Solution) groupLaw(exps exact.Vec) Law {
 	if len(exps) != len(s.coef) {
