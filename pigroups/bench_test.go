@@ -52,7 +52,8 @@ func BenchmarkRepeatingSets(b *testing.B) {
 	b.ReportAllocs()
 	n := 0
 	for b.Loop() {
-		n = len(p.RepeatingSets())
+		sets, _ := p.RepeatingSets()
+		n = len(sets)
 	}
 	b.ReportMetric(float64(n), "sets")
 }

@@ -2,6 +2,7 @@ package pigroups_test
 
 import (
 	"errors"
+	"fmt"
 	"strings"
 	"testing"
 
@@ -191,7 +192,11 @@ func TestProblemErrors(t *testing.T) {
 		{[]pigroups.Variable{pigroups.Dep("a", q.Length), pigroups.Dep("b", q.Time)}, pigroups.ErrTwoDependent},
 		{[]pigroups.Variable{pigroups.VarKind("a", q.Length, "flux capacitance")}, pigroups.ErrUnknownKind},
 		{[]pigroups.Variable{pigroups.VarKind("a", q.Length, "density")}, pigroups.ErrKindDimension},
-		{[]pigroups.Variable{pigroups.Var("a b", q.Length)}, pigroups.ErrDuplicateSymbol},
+		{[]pigroups.Variable{pigroups.Var("a b", q.Length)}, pigroups.ErrBadSymbol},
+		{[]pigroups.Variable{pigroups.Var("", q.Length)}, pigroups.ErrBadSymbol},
+		{[]pigroups.Variable{pigroups.Var("a\x00", q.Length)}, pigroups.ErrBadSymbol},
+		{[]pigroups.Variable{pigroups.Var("\xff", q.Length)}, pigroups.ErrBadSymbol},
+		{manyVars(65), pigroups.ErrTooManyVariables},
 	}
 	for _, c := range cases {
 		if _, err := pigroups.NewProblem(c.vars...); !errors.Is(err, c.err) {
@@ -219,7 +224,7 @@ func TestDefaultAndEnumeration(t *testing.T) {
 	if diff := cmp.Diff([]string{"D", "V", "rho"}, def); diff != "" {
 		t.Errorf("default repeating (-want +got):\n%s", diff)
 	}
-	sets := p.RepeatingSets()
+	sets, _ := p.RepeatingSets()
 	// Counted by hand: of the C(5,3) = 10 triples of mu, D, V, rho, eps,
 	// the three holding both lengths D and eps are dependent; the other
 	// seven span L, M and T (even {mu, V, rho}, whose determinant is 1).
@@ -325,4 +330,12 @@ func TestRendering(t *testing.T) {
 	if table != wantTable {
 		t.Errorf("matrix table:\n%s\nwant:\n%s", table, wantTable)
 	}
+}
+
+func manyVars(n int) []pigroups.Variable {
+	out := make([]pigroups.Variable, n)
+	for i := range out {
+		out[i] = pigroups.Var(fmt.Sprintf("x%d", i), q.Length)
+	}
+	return out
 }

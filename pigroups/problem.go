@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"slices"
 	"strings"
+	"unicode"
+	"unicode/utf8"
 
 	"similis.dev/similis/internal/exact"
 	"similis.dev/similis/quantity"
@@ -78,6 +80,9 @@ var (
 	ErrRepeatingSingular = errors.New("repeating variables not independent")
 	ErrNoGroups          = errors.New("no dimensionless groups")
 	ErrUnknownVariable   = errors.New("unknown variable")
+	ErrTooManyVariables  = errors.New("too many variables")
+	ErrBadSymbol         = errors.New("bad symbol")
+	ErrDependentOnly     = errors.New("a base dimension only the dependent variable carries")
 	ErrForeignGroup      = errors.New("group of another problem")
 	ErrNotDimensionless  = errors.New("not dimensionless")
 )
@@ -114,6 +119,8 @@ type RepeatingError struct {
 	// Combination is the dimensionless product the repeating variables
 	// form among themselves, when they are not independent ("ω·D/V").
 	Combination string
+	// Hint says what to do about it, when there is more to say.
+	Hint string
 }
 
 // Error implements the error interface.
@@ -123,10 +130,10 @@ func (e *RepeatingError) Error() string {
 	switch {
 	case errors.Is(e.Err, ErrRepeatingCount):
 		fmt.Fprintf(&sb, ": %d given, the rank of the dimensional matrix is %d, so %d are needed", len(e.Set), e.Want, e.Want)
-	case e.Symbol != "":
+	case e.Symbol != "" && e.Hint == "":
 		fmt.Fprintf(&sb, ": %q", e.Symbol)
 	}
-	if len(e.Uncovered) > 0 {
+	if len(e.Uncovered) > 0 && e.Hint == "" {
 		names := make([]string, len(e.Uncovered))
 		for i, b := range e.Uncovered {
 			names[i] = b.String()
@@ -135,6 +142,9 @@ func (e *RepeatingError) Error() string {
 	}
 	if e.Combination != "" {
 		fmt.Fprintf(&sb, "; they form the dimensionless group %s among themselves", e.Combination)
+	}
+	if e.Hint != "" {
+		sb.WriteString("; " + e.Hint)
 	}
 	return sb.String()
 }
@@ -153,6 +163,30 @@ type Problem struct {
 	dep   int // index of the dependent variable, or −1
 }
 
+// MaxVariables bounds the variables of a problem.
+const MaxVariables = 64
+
+// maxSymbolLen bounds a variable's symbol, in bytes.
+const maxSymbolLen = 64
+
+// badSymbol says why a symbol cannot name a variable, or "".
+func badSymbol(s string) string {
+	switch {
+	case s == "":
+		return "the symbol is empty"
+	case len(s) > maxSymbolLen:
+		return fmt.Sprintf("the symbol is longer than %d bytes", maxSymbolLen)
+	case !utf8.ValidString(s):
+		return "the symbol is not valid UTF-8"
+	}
+	for _, r := range s {
+		if unicode.IsSpace(r) || unicode.IsControl(r) || strings.ContainsRune("*/^()·=,@", r) {
+			return fmt.Sprintf("the symbol may not contain %q (spaces, control characters and the operators * / ^ ( ) · = , @)", r)
+		}
+	}
+	return ""
+}
+
 // NewProblem checks the variables and builds the dimensional matrix.
 // Symbols must be distinct and non-empty; at most one variable may be
 // dependent; a kind, if given, must be known and match the dimension.
@@ -160,13 +194,13 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 	if len(vars) == 0 {
 		return nil, &ProblemError{Err: ErrNoVariables}
 	}
-	if len(vars) > 64 {
-		return nil, &ProblemError{Err: ErrNoVariables, Reason: "more than 64 variables"}
+	if len(vars) > MaxVariables {
+		return nil, &ProblemError{Err: ErrTooManyVariables, Reason: fmt.Sprintf("%d variables, at most %d", len(vars), MaxVariables)}
 	}
 	p := &Problem{vars: slices.Clone(vars), dep: -1, kinds: make([][]string, 0, len(vars)), rows: make([]quantity.Base, 0, quantity.NumBases)}
 	for i, v := range vars {
-		if v.Symbol == "" || strings.ContainsAny(v.Symbol, " \t\n*/^()·") {
-			return nil, &ProblemError{Err: ErrDuplicateSymbol, Symbol: v.Symbol, Reason: "a symbol must be non-empty, without spaces or operators"}
+		if reason := badSymbol(v.Symbol); reason != "" {
+			return nil, &ProblemError{Err: ErrBadSymbol, Symbol: v.Symbol, Reason: fmt.Sprintf("variable %d: %s", i+1, reason)}
 		}
 		for _, w := range vars[:i] {
 			if w.Symbol == v.Symbol {
@@ -521,18 +555,34 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 	return idx, nil
 }
 
+// MaxRepeatingSets bounds what RepeatingSets returns.
+const MaxRepeatingSets = 100000
+
+// ErrTooManySets is wrapped when a problem has more valid repeating sets
+// than RepeatingSets returns.
+var ErrTooManySets = errors.New("too many repeating sets")
+
 // RepeatingSets returns every valid repeating set, each in variable
 // order, the sets in lexicographic order of their indices. Their number
 // grows as C(n, r) — 3750 for 20 variables of rank 4, but millions for 40
-// of rank 6 — so for large problems use EachRepeating, which can stop
-// early, or DefaultRepeating.
-func (p *Problem) RepeatingSets() [][]string {
+// of rank 6 — so past MaxRepeatingSets it stops with an error wrapping
+// ErrTooManySets; use EachRepeating, which can stop early, or
+// DefaultRepeating for large problems.
+func (p *Problem) RepeatingSets() ([][]string, error) {
 	var out [][]string
+	var err error
 	p.EachRepeating(func(set []string) bool {
+		if len(out) == MaxRepeatingSets {
+			err = &ProblemError{Err: ErrTooManySets, Reason: fmt.Sprintf("more than %d valid repeating sets among %d variables of rank %d; use EachRepeating", MaxRepeatingSets, len(p.vars), p.rank)}
+			return false
+		}
 		out = append(out, set)
 		return true
 	})
-	return out
+	if err != nil {
+		return nil, err
+	}
+	return out, nil
 }
 
 // EachRepeating calls f with each valid repeating set, in the order of
@@ -624,6 +674,28 @@ func (p *Problem) eachRepeating(f func(idx []int) bool) {
 	rec(0)
 }
 
+// dependentOnly reports a base dimension that only the dependent variable
+// carries: no repeating set can then make it dimensionless.
+func (p *Problem) dependentOnly() error {
+	if p.dep < 0 {
+		return nil
+	}
+	for i, b := range p.rows {
+		others := false
+		for j := range p.vars {
+			if j != p.dep && p.ai[i][j] != 0 {
+				others = true
+				break
+			}
+		}
+		if !others {
+			return &RepeatingError{Err: ErrDependentOnly, Want: p.rank, Symbol: p.vars[p.dep].Symbol, Uncovered: []quantity.Base{b},
+				Hint: fmt.Sprintf("only the dependent variable %q carries %s, so it cannot appear in any dimensionless group; add the variable that brings %s into the problem (a density or a mass for M, a temperature for Θ)", p.vars[p.dep].Symbol, b, b)}
+		}
+	}
+	return nil
+}
+
 // preference ranks kinds for the default repeating set, lower first.
 var preference = map[string]int{
 	"density": 0, "velocity": 1, "length": 2, "angular velocity": 3, "rotational speed": 3,
@@ -679,7 +751,13 @@ func (p *Problem) DefaultRepeating() ([]string, error) {
 			chosen = trial
 		}
 	}
-	if len(chosen) != p.rank || p.rank == 0 {
+	if p.rank == 0 {
+		return []string{}, nil // every variable is dimensionless: no repeating set is needed
+	}
+	if len(chosen) != p.rank {
+		if e := p.dependentOnly(); e != nil {
+			return nil, e
+		}
 		return nil, &RepeatingError{Err: ErrNoGroups, Want: p.rank}
 	}
 	slices.Sort(chosen)

@@ -43,7 +43,7 @@ func randomProblem(t *rapid.T) *pigroups.Problem {
 func TestPiSetProperties(t *testing.T) {
 	rapid.Check(t, func(t *rapid.T) {
 		p := randomProblem(t)
-		sets := p.RepeatingSets()
+		sets, _ := p.RepeatingSets()
 		var first *pigroups.Set
 		for k, r := range sets {
 			if k > 6 {
@@ -265,7 +265,7 @@ func TestDefaultIsBestValidSet(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		sets := p.RepeatingSets()
+		sets, _ := p.RepeatingSets()
 		got, err := p.DefaultRepeating()
 		if len(sets) == 0 {
 			if err == nil {

@@ -374,6 +374,10 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		return nil, &RepeatingError{Err: ErrNoGroups, Set: repeating, Want: p.rank}
 	}
 	s := &Set{prob: p, repeating: idx}
+	if len(idx) == 0 {
+		// Rank 0: every variable is dimensionless and is its own group.
+		return p.trivialSet(s), nil
+	}
 	var order []int
 	if p.dep >= 0 {
 		order = append(order, p.dep)
@@ -418,6 +422,29 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		s.groups = append(s.groups, g)
 	}
 	return s, nil
+}
+
+// trivialSet fills s with one group per variable, for a problem of rank
+// 0, the dependent variable's first.
+func (p *Problem) trivialSet(s *Set) *Set {
+	order := make([]int, 0, len(p.vars))
+	if p.dep >= 0 {
+		order = append(order, p.dep)
+	}
+	for j := range p.vars {
+		if j != p.dep {
+			order = append(order, j)
+		}
+	}
+	for k, j := range order {
+		v := make(exact.Vec, len(p.vars))
+		for i := range v {
+			v[i] = exact.Int(0)
+		}
+		v[j] = exact.Int(1)
+		s.groups = append(s.groups, Group{Name: piName(k + 1), Var: j, exps: v, prob: p, Matches: p.recognise(v)})
+	}
+	return s
 }
 
 // DefaultSet is PiSet with the DefaultRepeating choice.

@@ -246,7 +246,8 @@ var ErrConflict = errors.New("requirements conflict")
 
 // ConflictError reports requirements that cannot all hold.
 type ConflictError struct {
-	// Constraints is the smallest conflicting set, in words.
+	// Constraints is an irreducible conflicting set, in words: drop any
+	// one of them and the rest can hold.
 	Constraints []string
 	// Summary says what the set forces: "holding the Reynolds number and
 	// the Froude number with the same fluid and the same gravity forces
@@ -314,11 +315,21 @@ func (e *ConflictError) Error() string {
 // Unwrap returns ErrConflict.
 func (e *ConflictError) Unwrap() error { return ErrConflict }
 
+// MaxRequirements bounds the requirements of a plan (held groups, fixed
+// ratios, same-fluid and same-gravity requirements together).
+const MaxRequirements = 256
+
 // Solve solves the plan exactly. It returns a *ConflictError if the
-// requirements cannot all hold, naming the smallest conflicting set.
+// requirements cannot all hold, naming an irreducible conflicting set:
+// every requirement in it is needed for the conflict. Its work is
+// polynomial: about (k + 2)·k solves of a system of k requirements over
+// the plan's variables, with k at most MaxRequirements.
 func (pl *Plan) Solve() (*Solution, error) {
 	if pl.err != nil {
 		return nil, pl.err
+	}
+	if len(pl.cons) > MaxRequirements {
+		return nil, &PlanError{Err: ErrPlan, Reason: fmt.Sprintf("%d requirements, at most %d", len(pl.cons), MaxRequirements)}
 	}
 	s, ok, err := pl.solveSubset(allIndices(len(pl.cons)))
 	if err != nil {
@@ -439,15 +450,21 @@ func (pl *Plan) solveSubset(use []int) (*Solution, bool, error) {
 // conflict finds the smallest conflicting subset and the remedies.
 func (pl *Plan) conflict() error {
 	n := len(pl.cons)
+	// Deletion filtering: drop each requirement in turn and keep it out
+	// when the rest still conflict. What remains is irreducible — every
+	// member is needed for the conflict — in n + 1 solves of the linear
+	// system, not the 2ⁿ subsets of an exhaustive search.
 	var minimal []int
-	for size := 1; size <= n && minimal == nil; size++ {
-		eachSubset(n, size, func(sub []int) bool {
-			if _, ok, err := pl.solveSubset(sub); err == nil && !ok {
-				minimal = slices.Clone(sub)
-				return false
+	if _, ok, err := pl.solveSubset(allIndices(n)); err == nil && !ok {
+		minimal = allIndices(n)
+		for k := 0; k < len(minimal); {
+			trial := slices.Delete(slices.Clone(minimal), k, k+1)
+			if _, ok, err := pl.solveSubset(trial); err == nil && !ok {
+				minimal = trial
+				continue
 			}
-			return true
-		})
+			k++
+		}
 	}
 	e := &ConflictError{}
 	if minimal == nil {
@@ -553,24 +570,6 @@ func joinAnd(s []string) string {
 		return s[0]
 	}
 	return strings.Join(s[:len(s)-1], ", ") + " and " + s[len(s)-1]
-}
-
-func eachSubset(n, k int, f func([]int) bool) {
-	idx := make([]int, k)
-	var rec func(start, depth int) bool
-	rec = func(start, depth int) bool {
-		if depth == k {
-			return f(idx)
-		}
-		for i := start; i <= n-(k-depth); i++ {
-			idx[depth] = i
-			if !rec(i+1, depth+1) {
-				return false
-			}
-		}
-		return true
-	}
-	rec(0, 0)
 }
 
 // outcome returns a variable's ratio: its law, and its value when known.

@@ -79,6 +79,9 @@ func (t *Table) Define(name, expr string) error {
 		if i == 0 && !isSymbolStart(r) || i > 0 && !isSymbolRune(r) {
 			return &DefineError{Name: name, Reason: fmt.Sprintf("%q cannot appear in a unit name (letters, digits and _ only, starting with a letter)", r)}
 		}
+		if i == 0 && (r == '%' || r == '′' || r == '″') && len(name) > utf8.RuneLen(r) {
+			return &DefineError{Name: name, Reason: fmt.Sprintf("%q stands alone as a symbol, so a name starting with it could never be read back", r)}
+		}
 	}
 	u, err := parseWith(t, expr)
 	if err != nil {

@@ -125,3 +125,23 @@ func TestDegreeSpace(t *testing.T) {
 		t.Error(err)
 	}
 }
+
+// TestDefineReadsBack: every name Define accepts parses back to the
+// unit it defines.
+func TestDefineReadsBack(t *testing.T) {
+	tab := units.NewTable()
+	for _, name := range []string{"%x", "′a", "x y", "", "1a", "a/b"} {
+		if err := tab.Define(name, "m"); err == nil {
+			t.Errorf("Define(%q) accepted", name)
+		}
+	}
+	for _, name := range []string{"TR", "furlong", "Ωx", "rev_s"} {
+		if err := tab.Define(name, "12000 BTU/h"); err != nil {
+			t.Errorf("Define(%q): %v", name, err)
+			continue
+		}
+		if u, err := tab.Parse(name); err != nil || u.String() != name {
+			t.Errorf("Parse(%q) = %v, %v", name, u, err)
+		}
+	}
+}

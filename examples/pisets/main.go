@@ -218,7 +218,9 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 		if c := binomial(len(vars), p.Rank()); c > 1e6 {
 			return nil, &usageError{fmt.Sprintf("-sets: %d variables of rank %d give up to %.3g candidate sets; too many to list", len(vars), p.Rank(), c)}
 		}
-		r.ValidSets = p.RepeatingSets()
+		if r.ValidSets, err = p.RepeatingSets(); err != nil {
+			return nil, err
+		}
 	}
 	return r, nil
 }
