@@ -16,7 +16,24 @@ var (
 	ErrIncompatible = errors.New("incompatible dimensions")
 	ErrAngle        = errors.New("angle mismatch")
 	ErrTemperature  = errors.New("temperature scale and difference mixed")
+	ErrRange        = errors.New("value out of range")
 )
+
+// RangeError reports a number that is not finite, or a result that would
+// not be: a conversion or a unit's factor that overflows or underflows.
+type RangeError struct {
+	Op     string  // "convert", "multiply units", …
+	Value  float64 // the offending input, if one
+	Reason string
+}
+
+// Error implements the error interface.
+func (e *RangeError) Error() string { return "units: " + e.Op + ": " + e.Reason }
+
+// Unwrap returns ErrRange.
+func (e *RangeError) Unwrap() error { return ErrRange }
+
+func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 
 // ConversionError reports a conversion that cannot be made, naming both
 // units with their kinds of quantity, and how to write what was meant.
@@ -85,17 +102,35 @@ func checkConvert(from, to Unit) error {
 // ConvertUnits converts v from unit from to unit to. A temperature level
 // on a scale converts affinely (20 °C is 68 °F); everything else, a
 // temperature difference included, scales by the ratio of factors.
+//
+// A value that is not finite, or a result that would overflow (1e308 km
+// in m) or underflow to zero from a nonzero value, is an error wrapping
+// ErrRange.
 func ConvertUnits(v float64, from, to Unit) (float64, error) {
+	from, to = from.norm(), to.norm()
 	if err := checkConvert(from, to); err != nil {
 		return 0, err
 	}
-	if from.offset == 0 && to.offset == 0 {
-		if from.factor == to.factor {
-			return v, nil
-		}
-		return v * (from.factor / to.factor), nil
+	if !finite(v) {
+		return 0, &RangeError{Op: "convert", Value: v, Reason: fmt.Sprintf("the value %v is not finite", v)}
 	}
-	return (v*from.factor + from.offset - to.offset) / to.factor, nil
+	var x float64
+	switch {
+	case from.offset == 0 && to.offset == 0 && from.factor == to.factor:
+		return v, nil
+	case from.offset == 0 && to.offset == 0:
+		x = v * (from.factor / to.factor)
+		if !finite(x) || x == 0 && v != 0 {
+			// The ratio of factors may overflow where the product does not.
+			x = v * from.factor / to.factor
+		}
+	default:
+		x = (v*from.factor + from.offset - to.offset) / to.factor
+	}
+	if !finite(x) || x == 0 && v != 0 && from.offset == 0 && to.offset == 0 {
+		return 0, &RangeError{Op: "convert", Value: v, Reason: fmt.Sprintf("%g %s in %s is out of the range of a float64", v, from, to)}
+	}
+	return x, nil
 }
 
 // Convert converts the value v from the unit expression from to the unit
@@ -261,7 +296,9 @@ type Flag struct {
 	dim quantity.Dim
 }
 
-// NewFlag returns a Flag requiring dimension d, holding def.
+// NewFlag returns a Flag requiring dimension d, holding def. A
+// temperature flag takes levels (°C, °F, K) unless def is a difference
+// (Δ°C), when it takes differences; the other kind is refused.
 func NewFlag(d quantity.Dim, def Value) *Flag { return &Flag{Value: def, dim: d} }
 
 // Set parses s and checks its dimension.
@@ -272,6 +309,13 @@ func (f *Flag) Set(s string) error {
 	}
 	if v.Unit.dim != f.dim {
 		return &quantity.DimensionError{Op: "check", Name: s, Left: v.Unit.dim, Right: f.dim, Binary: true}
+	}
+	if f.dim == quantity.Temperature && v.Unit.IsInterval() != f.Value.Unit.IsInterval() {
+		what, want := "a temperature difference", "a temperature level (°C, °F, K)"
+		if f.Value.Unit.IsInterval() {
+			what, want = "a temperature level", "a temperature difference (Δ°C, Δ°F, K)"
+		}
+		return &ConversionError{From: v.Unit, To: f.Value.Unit, Err: ErrTemperature, Reason: fmt.Sprintf("%q is %s", s, what), Hint: "the flag takes " + want}
 	}
 	f.Value = v
 	return nil

@@ -275,6 +275,9 @@ func parseWith(tab symbolTable, expr string) (Unit, error) {
 
 func (p *parser) unit(v val) (Unit, error) {
 	t, err := mergeTerms(p.terms[v.lo:v.lo], p.terms[v.lo:v.hi], 1)
+	if err == nil {
+		err = t.holdable(p.tab.lookup)
+	}
 	if err != nil {
 		return Unit{}, p.fail(0, ErrExponent, err.Error())
 	}

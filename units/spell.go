@@ -33,12 +33,14 @@ func (s Style) String() string {
 }
 
 func (t terms) pow(num, den int) terms {
-	out := make(terms, len(t))
-	for i, x := range t {
-		out[i] = x
-		out[i].num, out[i].den = reduce(x.num*num, x.den*den)
+	out := make(terms, 0, len(t))
+	for _, x := range t {
+		x.num, x.den = reduce(x.num*num, x.den*den)
+		if x.num != 0 {
+			out = append(out, x)
+		}
 	}
-	return out
+	return foldNumbers(out)
 }
 
 // mergeTerms is combineTerms reusing a's storage; a must not be used
@@ -258,7 +260,13 @@ func spellSymbol(x term, style Style) string {
 
 // Format spells u in the given style. Parse reads back the Unicode and
 // ASCII forms.
+//
+// A style other than the three defined is taken as Unicode.
 func (u Unit) Format(style Style) string {
+	u = u.norm()
+	if style > LaTeX {
+		style = Unicode
+	}
 	if style == ASCII {
 		return u.String()
 	}
@@ -369,3 +377,27 @@ func editDistance(a, b string) int {
 	}
 	return prev[len(rb)]
 }
+
+// holdable checks that every symbol of t, raised to its exponent, has a
+// dimension a quantity.Dim can hold, as the parser requires of each
+// factor it reads; symbols look cannot resolve are skipped.
+func (t terms) holdable(look func(string) (*entry, bool)) error {
+	for _, x := range t {
+		if x.number {
+			continue
+		}
+		e, ok := look(x.sym)
+		if !ok {
+			continue
+		}
+		if _, err := e.u.dim.Pow(x.num, x.den); err != nil {
+			return fmt.Errorf("%s to the power %s has a dimension out of range (exponents are whole sixths within ±21)", x.sym, ratText(x.num, x.den))
+		}
+		if x.den != 1 && (int(e.u.angle)*x.num%x.den != 0 || int(e.u.solid)*x.num%x.den != 0) {
+			return fmt.Errorf("%s carries an angle, which cannot be raised to the power %s", x.sym, ratText(x.num, x.den))
+		}
+	}
+	return nil
+}
+
+func builtinLookup(sym string) (*entry, bool) { return lookupIn(builtinIndex, sym) }

@@ -99,7 +99,9 @@ func (t *Table) Define(name, expr string) error {
 		return &DefineError{Name: name, Reason: "already a built-in unit (or a prefixed one)"}
 	}
 	u.sym = name
-	u.temp = tempNone
+	if u.temp != tempInterval {
+		u.temp = tempNone // a difference stays a difference; anything else has no role
+	}
 	t.defs[name] = &entry{u: u, uni: name, tex: `\mathrm{` + name + `}`}
 	t.names = append(t.names, name)
 	return nil

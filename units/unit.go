@@ -1,6 +1,7 @@
 package units
 
 import (
+	"fmt"
 	"math"
 
 	"similis.dev/similis/quantity"
@@ -39,15 +40,25 @@ type Unit struct {
 	sym    string // canonical ASCII spelling
 }
 
-// One is the unit one, for dimensionless numbers.
+// One is the unit one, for dimensionless numbers. The zero Unit is the
+// unit one too: every method treats it as One (Equal reports them equal;
+// == does not).
 var One = Unit{factor: 1, sym: "1"}
+
+// norm returns One for the zero Unit.
+func (u Unit) norm() Unit {
+	if u.sym == "" {
+		return One
+	}
+	return u
+}
 
 // Dim returns the unit's dimension.
 func (u Unit) Dim() quantity.Dim { return u.dim }
 
 // Factor returns the value in the coherent SI unit of one unit u (for a
 // temperature scale, of one degree of interval).
-func (u Unit) Factor() float64 { return u.factor }
+func (u Unit) Factor() float64 { return u.norm().factor }
 
 // Offset returns the SI value of the zero of a temperature scale
 // (273.15 for °C); it is 0 for every other unit.
@@ -68,15 +79,17 @@ func (u Unit) Angle() (plane, solid int) { return int(u.angle), int(u.solid) }
 // Equal reports whether u and o are the same unit, whatever their
 // spellings: same dimension, angles, factor, offset and temperature role.
 func (u Unit) Equal(o Unit) bool {
+	u, o = u.norm(), o.norm()
 	return u.dim == o.dim && u.angle == o.angle && u.solid == o.solid && u.temp == o.temp &&
 		u.offset == o.offset && sameFactor(u.factor, o.factor)
 }
 
-// sameFactor compares factors to a few units in the last place, since the
+// sameFactor compares factors to 1e-14 relative (some tens of units in
+// the last place), since the
 // same unit reached by different products (kW·h, 3.6 MJ) may round
 // differently.
 func sameFactor(a, b float64) bool {
-	return a == b || math.Abs(a-b) <= 4e-16*math.Max(math.Abs(a), math.Abs(b))
+	return a == b || math.Abs(a-b) <= 1e-14*math.Max(math.Abs(a), math.Abs(b))
 }
 
 // Compatible reports whether values in u convert to values in o.
@@ -85,32 +98,44 @@ func (u Unit) Compatible(o Unit) bool { return checkConvert(u, o) == nil }
 // Mul returns the product unit u·o. A temperature scale in a product
 // denotes its interval.
 func (u Unit) Mul(o Unit) (Unit, error) {
+	u, o = u.norm(), o.norm()
 	d, err := u.dim.Mul(o.dim)
 	if err != nil {
 		return Unit{}, err
 	}
 	t, err := combineTerms(termsOf(u), termsOf(o), 1)
-	if err != nil {
-		return Unit{}, err
+	if err == nil {
+		err = t.holdable(builtinLookup)
 	}
-	return Unit{dim: d, factor: u.factor * o.factor, angle: u.angle + o.angle, solid: u.solid + o.solid, sym: t.spell(ASCII)}, nil
+	if err != nil {
+		return Unit{}, &RangeError{Op: "multiply units", Reason: err.Error()}
+	}
+	return checkFactor("multiply units", withRole(Unit{dim: d, factor: u.factor * o.factor, angle: u.angle + o.angle, solid: u.solid + o.solid, sym: t.spell(ASCII)}, t, u, o))
 }
 
 // Div returns the quotient unit u/o.
 func (u Unit) Div(o Unit) (Unit, error) {
+	u, o = u.norm(), o.norm()
 	d, err := u.dim.Div(o.dim)
 	if err != nil {
 		return Unit{}, err
 	}
 	t, err := combineTerms(termsOf(u), termsOf(o), -1)
-	if err != nil {
-		return Unit{}, err
+	if err == nil {
+		err = t.holdable(builtinLookup)
 	}
-	return Unit{dim: d, factor: u.factor / o.factor, angle: u.angle - o.angle, solid: u.solid - o.solid, sym: t.spell(ASCII)}, nil
+	if err != nil {
+		return Unit{}, &RangeError{Op: "divide units", Reason: err.Error()}
+	}
+	return checkFactor("divide units", withRole(Unit{dim: d, factor: u.factor / o.factor, angle: u.angle - o.angle, solid: u.solid - o.solid, sym: t.spell(ASCII)}, t, u, o))
 }
 
 // Pow returns u raised to num/den. Angles must keep whole exponents.
 func (u Unit) Pow(num, den int) (Unit, error) {
+	u = u.norm()
+	if den <= 0 {
+		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent %d/%d has a denominator that is not positive", num, den)}
+	}
 	d, err := u.dim.Pow(num, den)
 	if err != nil {
 		return Unit{}, err
@@ -120,11 +145,54 @@ func (u Unit) Pow(num, den int) (Unit, error) {
 		return Unit{}, &ParseError{Expr: u.sym, Reason: "a fractional power of an angle unit", Err: ErrExponent}
 	}
 	t := termsOf(u).pow(num, den)
-	return Unit{dim: d, factor: math.Pow(u.factor, float64(num)/float64(den)), angle: int8(a / den), solid: int8(s / den), sym: t.spell(ASCII)}, nil
+	for _, x := range t {
+		if !x.number && 6%x.den != 0 {
+			return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s; a unit's exponents must be whole sixths, as its dimension's are", x.sym, ratText(x.num, x.den))}
+		}
+	}
+	if err := t.holdable(builtinLookup); err != nil {
+		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: err.Error()}
+	}
+	return checkFactor("raise a unit to a power", withRole(Unit{dim: d, factor: math.Pow(u.factor, float64(num)/float64(den)), angle: int8(a / den), solid: int8(s / den), sym: t.spell(ASCII)}, t, u))
+}
+
+// withRole gives the result r of unit algebra, spelled by terms t, the
+// temperature role its spelling has, as Parse would: a result spelled as
+// one of its operands keeps that operand's role (°C·1 is still the
+// scale °C, a user's interval unit stays an interval); a single
+// temperature symbol of the built-in table has its own role; anything
+// else has none.
+func withRole(r Unit, t terms, operands ...Unit) Unit {
+	for _, o := range operands {
+		if o.sym == r.sym && o.dim == r.dim {
+			r.temp, r.offset = o.temp, o.offset
+			return r
+		}
+	}
+	if len(t) == 1 && t[0].num == 1 && t[0].den == 1 && !t[0].number {
+		if e, ok := lookupIn(builtinIndex, t[0].sym); ok {
+			switch {
+			case e.scaleSym:
+				r.temp, r.offset = tempScale, e.u.offset
+			case e.u.temp == tempInterval:
+				r.temp = tempInterval
+			}
+		}
+	}
+	return r
+}
+
+// checkFactor refuses a unit whose factor overflowed or underflowed.
+func checkFactor(op string, u Unit) (Unit, error) {
+	if !finite(u.factor) || u.factor == 0 {
+		return Unit{}, &RangeError{Op: op, Reason: fmt.Sprintf("the factor of %s to SI is out of the range of a float64", u.sym)}
+	}
+	return u, nil
 }
 
 // Of returns the quantity of value v in unit u: v·factor + offset in SI.
 func (u Unit) Of(v float64) quantity.Quantity {
+	u = u.norm()
 	return quantity.New(v*u.factor+u.offset, u.dim)
 }
 
@@ -133,6 +201,7 @@ func (u Unit) Of(v float64) quantity.Quantity {
 // radians (and steradians), as in the SI, so an angular velocity read in
 // rpm is divided by 2π/60.
 func (u Unit) ValueOf(q quantity.Quantity) (float64, error) {
+	u = u.norm()
 	if q.Dim() != u.dim {
 		return 0, &ConversionError{FromDim: q.Dim(), To: u, Reason: "dimensions differ"}
 	}
