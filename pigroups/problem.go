@@ -83,6 +83,7 @@ var (
 	ErrTooManyVariables  = errors.New("too many variables")
 	ErrBadSymbol         = errors.New("bad symbol")
 	ErrDependentOnly     = errors.New("a base dimension only the dependent variable carries")
+	ErrTooLarge          = errors.New("exponents too large for exact arithmetic")
 	ErrForeignGroup      = errors.New("group of another problem")
 	ErrNotDimensionless  = errors.New("not dimensionless")
 )
@@ -161,6 +162,24 @@ type Problem struct {
 	rows  []quantity.Base // base dimensions that appear, in ISO order
 	rank  int
 	dep   int // index of the dependent variable, or −1
+}
+
+// tooLarge reports an overflow of the exact arithmetic as what the user
+// did: the variables' exponents are too large (or too many) for 64-bit
+// fractions.
+func (p *Problem) tooLarge(err error) error {
+	if !errors.Is(err, exact.ErrOverflow) {
+		return err
+	}
+	var syms []string
+	if p != nil {
+		for _, v := range p.vars {
+			if !v.Dim.IsDimensionless() {
+				syms = append(syms, v.Symbol)
+			}
+		}
+	}
+	return &ProblemError{Err: ErrTooLarge, Reason: fmt.Sprintf("the exponents of the variables %s are too large or too many to eliminate exactly in 64-bit fractions; use fewer variables or smaller exponents", strings.Join(syms, ", "))}
 }
 
 // MaxVariables bounds the variables of a problem.
@@ -242,7 +261,7 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 	}
 	piv, err := p.ai.Clone().GaussJordan()
 	if err != nil {
-		return nil, err
+		return nil, p.tooLarge(err)
 	}
 	p.rank = len(piv)
 	return p, nil
@@ -531,13 +550,13 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 	}
 	piv, err := isub.GaussJordan()
 	if err != nil {
-		return nil, err
+		return nil, p.tooLarge(err)
 	}
 	if len(piv) < len(idx) || len(e.Uncovered) > 0 {
 		e.Set, e.Want = slices.Clone(set), p.rank
 		ns, err := p.columns(idx).NullSpace()
 		if err != nil {
-			return nil, err
+			return nil, p.tooLarge(err)
 		}
 		e.Err = ErrRepeatingSingular
 		if len(ns) > 0 {
@@ -745,7 +764,7 @@ func (p *Problem) DefaultRepeating() ([]string, error) {
 		trial := append(slices.Clone(chosen), j)
 		r, err := p.columns(trial).Rank()
 		if err != nil {
-			return nil, err
+			return nil, p.tooLarge(err)
 		}
 		if r == len(trial) {
 			chosen = trial

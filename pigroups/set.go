@@ -393,7 +393,7 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 	aug := p.intColumns(append(slices.Clone(idx), order...))
 	pivots, err := aug.GaussJordan()
 	if err != nil {
-		return nil, err
+		return nil, p.tooLarge(err)
 	}
 	if len(pivots) != len(idx) || pivots[len(pivots)-1] != len(idx)-1 {
 		return nil, fmt.Errorf("pigroups: internal error: repeating set %v is not independent", s.Repeating())
@@ -411,7 +411,7 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 			v[i] = exact.Frac(-aug[r][len(idx)+k], aug[r][r])
 		}
 		if _, err := exact.IntegersTo(v, v); err != nil {
-			return nil, err
+			return nil, p.tooLarge(err)
 		}
 		iv := v
 		g := Group{Name: piName(k + 1), Var: j, exps: iv, prob: p}
@@ -600,16 +600,16 @@ func Equivalent(a, b *Set) (bool, error) {
 	}
 	ra, err := a.matrix().Rank()
 	if err != nil {
-		return false, err
+		return false, a.prob.tooLarge(err)
 	}
 	rb, err := bm.Rank()
 	if err != nil {
-		return false, err
+		return false, a.prob.tooLarge(err)
 	}
 	both := append(a.matrix(), bm...)
 	rab, err := both.Rank()
 	if err != nil {
-		return false, err
+		return false, a.prob.tooLarge(err)
 	}
 	return ra == rb && rab == ra, nil
 }
@@ -629,7 +629,8 @@ func (s *Set) Express(target []exact.Rat) (powers []exact.Rat, ok bool, err erro
 	if len(target) != len(s.prob.vars) {
 		return nil, false, &ProblemError{Err: ErrUnknownVariable, Reason: fmt.Sprintf("%d exponents for the %d variables %s", len(target), len(s.prob.vars), s.prob.symbols())}
 	}
-	return exact.Solve(s.matrix().Transpose(), exact.Vec(target))
+	powers, ok, err = exact.Solve(s.matrix().Transpose(), exact.Vec(target))
+	return powers, ok, s.prob.tooLarge(err)
 }
 
 // Rewrite returns a new set in which group k is replaced by ∏ Πⱼ^pⱼ, the
@@ -652,16 +653,16 @@ func (s *Set) Rewrite(k int, powers []exact.Rat) (*Set, error) {
 		for i := range v {
 			t, err := p.Mul(s.groups[j].exps[i])
 			if err != nil {
-				return nil, err
+				return nil, s.prob.tooLarge(err)
 			}
 			if v[i], err = v[i].Add(t); err != nil {
-				return nil, err
+				return nil, s.prob.tooLarge(err)
 			}
 		}
 	}
 	iv, _, err := exact.Integers(v)
 	if err != nil {
-		return nil, err
+		return nil, s.prob.tooLarge(err)
 	}
 	g := s.groups[k]
 	if iv[g.Var].Sign() < 0 || iv[g.Var].IsZero() && firstNonzeroSign(iv) < 0 {

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 
 	"gonum.org/v1/gonum/stat"
 
@@ -84,6 +85,11 @@ type HullPoint struct {
 	ShipCF, ShipCT              float64 // C_Ts = (1 + k)·C_Fs + C_R + C_A
 	ShipResistance              quantity.Quantity
 	EffectivePower              quantity.Quantity // P_E = R_Ts·V_s
+	// Warning, when not empty, says why the point is physically
+	// doubtful (a model resistance below the friction line gives a
+	// negative residual and can give a negative ship resistance); every
+	// report that prints the point prints it.
+	Warning string
 }
 
 // HullResult is the extrapolation: its inputs, the ship's size, and every
@@ -122,8 +128,8 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 		if err := c.q.CheckNamed(c.name, c.d); err != nil {
 			return nil, err
 		}
-		if !(c.q.Value() > 0) {
-			return nil, m(c.name + " must be positive")
+		if !(c.q.Value() > 0) || math.IsInf(c.q.Value(), 0) {
+			return nil, m(c.name + " must be positive and finite")
 		}
 	}
 	g := t.Gravity
@@ -133,12 +139,18 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 	if err := g.CheckNamed("gravity", quantity.Acceleration); err != nil {
 		return nil, err
 	}
+	if !(g.Value() > 0) || math.IsInf(g.Value(), 0) {
+		return nil, m(fmt.Sprintf("gravity %v is not positive and finite", g.Value()))
+	}
 	k1 := t.FormFactor
 	if k1 == 0 {
 		k1 = 1
 	}
-	if k1 < 1 || k1 > 2 {
+	if !(k1 >= 1 && k1 <= 2) {
 		return nil, m(fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", k1))
+	}
+	if !(math.Abs(t.Allowance) <= 0.005) {
+		return nil, m(fmt.Sprintf("allowance C_A = %v is not finite or outside ±0.005", t.Allowance))
 	}
 	res := &HullResult{Test: t, FormFactor: k1, Caution: HullCaution}
 	Lm, Sm := t.ModelLength.Value(), t.ModelWettedArea.Value()
@@ -152,8 +164,8 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 		if err := r.CheckNamed(fmt.Sprintf("resistance %d", i), quantity.Force); err != nil {
 			return nil, err
 		}
-		if !(v.Value() > 0) || !(r.Value() > 0) {
-			return nil, m(fmt.Sprintf("run %d: speed and resistance must be positive", i))
+		if !(v.Value() > 0) || !(r.Value() > 0) || math.IsInf(v.Value(), 0) || math.IsInf(r.Value(), 0) {
+			return nil, m(fmt.Sprintf("run %d: speed and resistance must be positive and finite", i))
 		}
 		Vm := v.Value()
 		p := HullPoint{ModelSpeed: v, ModelResistance: r}
@@ -175,6 +187,15 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 		Rs := p.ShipCT * 0.5 * t.Sea.Density.Value() * Vs * Vs * Ss
 		p.ShipResistance = quantity.New(Rs, quantity.Force)
 		p.EffectivePower = quantity.New(Rs*Vs, quantity.Power)
+		if math.IsNaN(Rs) || math.IsInf(Rs, 0) || math.IsInf(Rs*Vs, 0) {
+			return nil, m(fmt.Sprintf("run %d: the ship resistance is not finite", i))
+		}
+		switch {
+		case Rs <= 0:
+			p.Warning = fmt.Sprintf("run %d: the ship resistance comes out %s: the model's C_T is below (1 + k)·C_F, so the measurement, the form factor or the friction line is in doubt; do not use this point", i, fmtCoef(Rs, "N"))
+		case p.Residual < 0:
+			p.Warning = fmt.Sprintf("run %d: the residual coefficient C_R = %.4g is negative (the model's C_T is below (1 + k)·C_F): check the run and the form factor", i, p.Residual)
+		}
 		res.Points = append(res.Points, p)
 	}
 	return res, nil
@@ -211,8 +232,14 @@ func Prohaska(froude, ct, cf []float64, maxFroude float64) (ProhaskaResult, erro
 	if len(x) < 3 {
 		return ProhaskaResult{}, m(fmt.Sprintf("%d runs at Fn ≤ %g; at least 3 are needed", len(x), maxFroude))
 	}
+	if slices.Min(x) == slices.Max(x) {
+		return ProhaskaResult{}, m(fmt.Sprintf("the %d runs at Fn ≤ %g all have the same Fn⁴/C_F, so the line has no slope to fit: use runs at different speeds", len(x), maxFroude))
+	}
 	a, b := stat.LinearRegression(x, y, nil, false)
 	r2 := stat.RSquared(x, y, nil, a, b)
+	if math.IsNaN(a) || math.IsInf(a, 0) || math.IsNaN(b) || math.IsInf(b, 0) {
+		return ProhaskaResult{}, m("the fit is not finite")
+	}
 	return ProhaskaResult{FormFactor: a, Slope: b, R2: r2, Points: len(x), MaxFroude: maxFroude}, nil
 }
 
@@ -246,13 +273,13 @@ func MoodyStepUp(etaModel float64, dModel, dProto quantity.Quantity, exponent fl
 	if err := dProto.CheckNamed("prototype diameter", quantity.Length); err != nil {
 		return 0, err
 	}
-	if !(dModel.Value() > 0) || !(dProto.Value() > 0) {
-		return 0, m("diameters must be positive")
+	if !(dModel.Value() > 0) || !(dProto.Value() > 0) || math.IsInf(dModel.Value()+dProto.Value(), 0) {
+		return 0, m("diameters must be positive and finite")
 	}
 	if exponent == 0 {
 		exponent = 0.2
 	}
-	if exponent < 0 || exponent > 1 {
+	if !(exponent >= 0 && exponent <= 1) {
 		return 0, m(fmt.Sprintf("exponent %v is outside 0 … 1", exponent))
 	}
 	return 1 - (1-etaModel)*math.Pow(dModel.Value()/dProto.Value(), exponent), nil
@@ -331,3 +358,5 @@ func MoodyCurve(etaModel []float64, dModel, dProto quantity.Quantity, exponent f
 	}
 	return out, nil
 }
+
+func fmtCoef(x float64, unit string) string { return fmt.Sprintf("%.4g %s", x, unit) }

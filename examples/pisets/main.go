@@ -25,11 +25,15 @@ package main
 
 import (
 	"encoding/json"
+	"errors"
 	"flag"
 	"fmt"
 	"io"
 	"os"
+	"strconv"
 	"strings"
+	"unicode"
+	"unicode/utf8"
 
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/units"
@@ -52,10 +56,22 @@ func run(args []string, stdout, stderr io.Writer) int {
 	format := fs.String("format", "text", "text or json")
 	sets := fs.Bool("sets", false, "list every valid repeating set")
 	if err := fs.Parse(args); err != nil {
-		fmt.Fprintln(stderr, "pisets:", err)
+		if errors.Is(err, flag.ErrHelp) {
+			fs.SetOutput(stdout)
+			fmt.Fprintln(stdout, "usage: pisets [-dep symbol] [-repeat a,b,c] [-format text|json] [-sets] symbol=unit[@kind] ...")
+			fs.PrintDefaults()
+			return 0
+		}
+		fmt.Fprintln(stderr, "pisets:", clean(err.Error()))
 		return 2
 	}
 	vars := fs.Args()
+	for _, a := range vars {
+		if strings.HasPrefix(a, "-") {
+			fmt.Fprintf(stderr, "pisets: %s after the variables: flags go before the variables (pisets -format json -dep F F=N ...)\n", clean(strconv.Quote(a)))
+			return 2
+		}
+	}
 	demo := false
 	if len(vars) == 0 {
 		vars, demo = builtin, true
@@ -65,7 +81,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 	}
 	out, err := build(vars, *dep, *rep, *sets)
 	if err != nil {
-		fmt.Fprintln(stderr, "pisets:", strings.ReplaceAll(err.Error(), "\n", " "))
+		fmt.Fprintln(stderr, "pisets:", clean(err.Error()))
 		return 2
 	}
 	out.Invented = demo
@@ -84,6 +100,36 @@ func run(args []string, stdout, stderr io.Writer) int {
 		return 2
 	}
 	return 0
+}
+
+// maxMessage bounds a message's length in runes.
+const maxMessage = 600
+
+// clean makes a message safe for a terminal or a log: control characters
+// and invalid bytes escaped, and an overlong message cut with an
+// ellipsis, so a hostile argument cannot flood or drive the screen.
+func clean(msg string) string {
+	var sb strings.Builder
+	n := 0
+	for i, r := range msg {
+		if n == maxMessage {
+			sb.WriteString("…")
+			break
+		}
+		switch {
+		case r == utf8.RuneError && len(msg[i:]) > 0 && !utf8.ValidString(msg[i:min(i+4, len(msg))]):
+			fmt.Fprintf(&sb, `\x%02x`, msg[i])
+		case r == '\n' || r == '\t':
+			sb.WriteByte(' ')
+		case unicode.IsControl(r) || !unicode.IsPrint(r) && r != ' ':
+			q := strconv.QuoteRune(r)
+			sb.WriteString(q[1 : len(q)-1])
+		default:
+			sb.WriteRune(r)
+		}
+		n++
+	}
+	return sb.String()
 }
 
 // Report is the JSON output.

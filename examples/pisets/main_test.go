@@ -5,6 +5,7 @@ import (
 	"encoding/json"
 	"strings"
 	"testing"
+	"unicode/utf8"
 )
 
 func TestDemo(t *testing.T) {
@@ -94,4 +95,34 @@ func FuzzRun(f *testing.F) {
 			t.Fatalf("exit %d: %s", code, errb.String())
 		}
 	})
+}
+
+// TestHostileInput: the harness command answers hostile command lines
+// with a usage error (exit 2) whose message is escaped and bounded, and
+// -h with the usage (exit 0).
+func TestHostileInput(t *testing.T) {
+	var out, errb bytes.Buffer
+	if code := run([]string{"-h"}, &out, &errb); code != 0 || !strings.Contains(out.String(), "usage: pisets") {
+		t.Errorf("-h: exit %d, %q", code, out.String())
+	}
+	cases := []struct {
+		args []string
+		want string
+	}{
+		{[]string{"F=N", "V=m/s", "-format", "json"}, "flags go before the variables"},
+		{[]string{"a\x1b[31m=m", "b=s"}, `\x1b`},
+		{[]string{"\xff=m", "\xfe=m"}, "not valid UTF-8"},
+		{[]string{strings.Repeat("x", 5000) + "=m"}, "…"},
+	}
+	for _, c := range cases {
+		errb.Reset()
+		code := run(c.args, &bytes.Buffer{}, &errb)
+		msg := errb.String()
+		if code != 2 || !strings.Contains(msg, c.want) {
+			t.Errorf("%.40q: exit %d, %q; want 2 and %q", c.args, code, msg, c.want)
+		}
+		if len(msg) > 2000 || strings.ContainsAny(msg, "\x1b\x00") || !utf8.ValidString(msg) {
+			t.Errorf("%.40q: unsafe message %q", c.args, msg)
+		}
+	}
 }

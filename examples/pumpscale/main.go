@@ -12,6 +12,7 @@
 package main
 
 import (
+	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -24,6 +25,9 @@ import (
 
 func main() {
 	if err := run(os.Stdout, os.Args[1:]); err != nil {
+		if errors.Is(err, flag.ErrHelp) {
+			return // -h: the usage is printed
+		}
 		fmt.Fprintln(os.Stderr, "pumpscale:", err)
 		os.Exit(2)
 	}

@@ -110,6 +110,9 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 		return nil, err
 	}
 	pt := res.Extrapolate.Points[0]
+	if pt.Warning != "" {
+		fmt.Fprintln(w, "  WARNING:", pt.Warning)
+	}
 	fmt.Fprintf(w, "  C_Tm = %.4f, C_Fm = %.4f, C_R = %.4f; ship C_Fs = %.4f, C_Ts = %.4f\n", pt.ModelCT*1e3, pt.ModelCF*1e3, pt.Residual*1e3, pt.ShipCF*1e3, pt.ShipCT*1e3)
 	fmt.Fprintln(w, "  (coefficients × 1000)")
 	fmt.Fprintf(w, "  ship resistance %s, effective power %s — the friction correction the held Froude number cannot give\n",

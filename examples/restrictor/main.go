@@ -11,6 +11,7 @@
 package main
 
 import (
+	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -30,6 +31,9 @@ import (
 
 func main() {
 	if err := run(os.Stdout, os.Args[1:]); err != nil {
+		if errors.Is(err, flag.ErrHelp) {
+			return // -h: the usage is printed
+		}
 		fmt.Fprintln(os.Stderr, "restrictor:", err)
 		os.Exit(2)
 	}

@@ -11,6 +11,7 @@
 package main
 
 import (
+	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -24,6 +25,9 @@ import (
 
 func main() {
 	if err := run(os.Stdout, os.Args[1:]); err != nil {
+		if errors.Is(err, flag.ErrHelp) {
+			return // -h: the usage is printed
+		}
 		fmt.Fprintln(os.Stderr, "towingtank:", err)
 		os.Exit(2)
 	}
@@ -110,6 +114,13 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 		fmt.Fprintf(w, "%6.2f %6.3f %8.3f %9.3f %9.3f %8.3f | %7.2f %9.2f %9.1f | %9.2f %9.1f\n",
 			speeds[i], a.Froude, resistances[i], a.ModelCT*1e3, a.ModelCF*1e3, a.Residual*1e3,
 			vs, a.ShipResistance.Value()/1e3, a.EffectivePower.Value()/1e3, b.ShipResistance.Value()/1e3, b.EffectivePower.Value()/1e3)
+	}
+	for _, res := range []*similarity.HullResult{out.Plain, out.WithForm} {
+		for _, pt := range res.Points {
+			if pt.Warning != "" {
+				fmt.Fprintf(w, "WARNING (1 + k = %.3f): %s\n", res.FormFactor, pt.Warning)
+			}
+		}
 	}
 	top := out.WithForm.Points[len(out.WithForm.Points)-1]
 	fmt.Fprintf(w, "\nat the top speed, with the form factor: R = %s, P_E = %s\n",

@@ -14,6 +14,7 @@
 package main
 
 import (
+	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -27,6 +28,9 @@ import (
 
 func main() {
 	if err := run(os.Stdout, os.Args[1:]); err != nil {
+		if errors.Is(err, flag.ErrHelp) {
+			return // -h: the usage is printed
+		}
 		fmt.Fprintln(os.Stderr, "tunnel:", err)
 		os.Exit(2)
 	}
