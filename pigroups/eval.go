@@ -1,6 +1,7 @@
 package pigroups
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
@@ -76,7 +77,7 @@ func (e *EvalError) Error() string {
 	if e.Symbol != "" {
 		s += fmt.Sprintf(" %q", e.Symbol)
 	}
-	if e.Err != nil {
+	if e.Err != nil && e.Reason == "" {
 		return s + ": " + e.Err.Error()
 	}
 	return s + ": " + e.Reason
@@ -113,6 +114,10 @@ func factor(x float64, t evTerm) float64 {
 
 // Row evaluates every group for one row of values, given in variable
 // order, into dst (which must have room for Len groups) and returns it.
+// A numerator and denominator that overflow apart are evaluated again in
+// logarithms; a group value that is still out of range, or a fractional
+// power of a negative value, is an *EvalError wrapping ErrNotFinite. A
+// NaN input gives NaN.
 // Dimensions are checked; nothing is allocated.
 func (e *Evaluator) Row(values []quantity.Quantity, dst []float64) ([]float64, error) {
 	if len(values) != len(e.dims) {
@@ -134,14 +139,23 @@ func (e *Evaluator) Row(values []quantity.Quantity, dst []float64) ([]float64, e
 		for _, t := range e.den[g] {
 			d *= factor(values[t.v].Value(), t)
 		}
-		dst[g] = e.factor[g] * n / d
+		v := e.factor[g] * n / d
+		if !finiteNonzero(v) {
+			var ok bool
+			if v, ok = e.logRow(g, func(i int) float64 { return values[i].Value() }); !ok {
+				return nil, e.rangeError(g, -1)
+			}
+		}
+		dst[g] = v
 	}
 	return dst[:len(e.num)], nil
 }
 
 // Series evaluates every group over whole columns of data, one Series per
 // variable in variable order, writing group g's values into dst[g], which
-// must have the columns' length. Dimensions and lengths are checked once;
+// must have the columns' length. A NaN input (a missing value) gives a
+// NaN group value in its row; a value out of range is an *EvalError
+// naming the group and the row. Dimensions and lengths are checked once;
 // the work is done in blocks, with no allocation. An Evaluator is not safe
 // for concurrent use by Series; use one per goroutine.
 func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
@@ -192,15 +206,97 @@ func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
 		}
 	}
 	for g, k := range e.factor {
-		if k != 1 {
-			out := dst[g][:n]
-			for i := range out {
-				out[i] *= k
+		out := dst[g][:n]
+		bad := false
+		for i := range out {
+			out[i] *= k
+			bad = bad || !finiteNonzero(out[i])
+		}
+		if !bad {
+			continue
+		}
+		// A numerator and a denominator that overflow or underflow apart
+		// although the group is finite: evaluate those rows in logarithms.
+		for i := range out {
+			if finiteNonzero(out[i]) {
+				continue
 			}
+			v, ok := e.logRow(g, func(j int) float64 { return cols[j].Values()[i] })
+			if !ok {
+				return e.rangeError(g, i)
+			}
+			out[i] = v
 		}
 	}
 	return nil
 }
+
+func finiteNonzero(x float64) bool { return x != 0 && !math.IsInf(x, 0) && !math.IsNaN(x) }
+
+// logRow evaluates group g in logarithms, as factor·∏|x|^e with the sign
+// of the product. A NaN input (a missing value) gives NaN, a zero in the
+// numerator gives 0; ok is false when the value is truly out of range, an
+// input is infinite or zero in the denominator, or a negative value is
+// raised to a fractional power.
+func (e *Evaluator) logRow(g int, value func(int) float64) (float64, bool) {
+	lv, neg := math.Log(math.Abs(e.factor[g])), e.factor[g] < 0
+	zero := false
+	add := func(terms []evTerm, sign float64) bool {
+		for _, t := range terms {
+			x := value(t.v)
+			switch {
+			case math.IsNaN(x):
+				lv = math.NaN()
+				continue
+			case math.IsInf(x, 0):
+				return false
+			case x == 0 && sign > 0:
+				zero = true
+				continue
+			case x == 0:
+				return false
+			case x < 0:
+				if t.n == 0 {
+					return false // a fractional power of a negative value
+				}
+				neg = neg != (t.n%2 == 1)
+			}
+			lv += sign * t.exp * math.Log(math.Abs(x))
+		}
+		return true
+	}
+	if !add(e.num[g], 1) || !add(e.den[g], -1) {
+		return 0, false
+	}
+	switch {
+	case math.IsNaN(lv):
+		return math.NaN(), true
+	case zero:
+		return 0, true
+	}
+	v := math.Exp(lv)
+	if !finiteNonzero(v) {
+		return 0, false
+	}
+	if neg {
+		v = -v
+	}
+	return v, true
+}
+
+// rangeError reports a group value that is not finite (row −1 for Row).
+func (e *Evaluator) rangeError(g, row int) error {
+	name := e.set.groups[g].Name
+	where := ""
+	if row >= 0 {
+		where = fmt.Sprintf(" at row %d", row)
+	}
+	return &EvalError{Symbol: name, Err: ErrNotFinite, Reason: fmt.Sprintf("%s%s is zero, not finite, or a fractional power of a negative value", name, where)}
+}
+
+// ErrNotFinite is wrapped by an EvalError for a group value that is not
+// finite and nonzero.
+var ErrNotFinite = errors.New("group value not finite")
 
 // product writes ∏ col^exp over the terms into buf, for rows lo…lo+len(buf).
 func product(buf []float64, cols []quantity.Series, terms []evTerm, lo int) {

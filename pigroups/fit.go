@@ -201,6 +201,9 @@ func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error)
 		f.R2 = 1 - ssRes/ssTot
 	}
 	f.RMS = math.Sqrt(ssRes / sumW)
+	if !finiteFit(f) {
+		return nil, &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: "the fitted coefficient or exponents are not finite (the data's logarithms span too wide a range)"}
+	}
 	return f, nil
 }
 
@@ -232,8 +235,8 @@ func (f *PowerLaw) Predict(groups ...float64) (Prediction, error) {
 	x0.SetVec(0, 1)
 	lnY := math.Log(f.C)
 	for j, g := range groups {
-		if !(g > 0) {
-			return Prediction{}, &FitError{Err: ErrNonPositive, Row: -1, Group: j + 1, Reason: fmt.Sprintf("value %v", g)}
+		if !(g > 0) || math.IsInf(g, 0) {
+			return Prediction{}, &FitError{Err: ErrNonPositive, Row: -1, Group: j + 1, Reason: fmt.Sprintf("value %v is not positive and finite", g)}
 		}
 		x0.SetVec(j+1, math.Log(g))
 		lnY += f.Exponents[j] * math.Log(g)
@@ -244,6 +247,11 @@ func (f *PowerLaw) Predict(groups ...float64) (Prediction, error) {
 		Value:      math.Exp(lnY),
 		Mean:       [2]float64{math.Exp(lnY - f.tq*se), math.Exp(lnY + f.tq*se)},
 		Individual: [2]float64{math.Exp(lnY - f.tq*sp), math.Exp(lnY + f.tq*sp)},
+	}
+	for _, x := range []float64{pr.Value, pr.Mean[0], pr.Mean[1], pr.Individual[0], pr.Individual[1]} {
+		if !(x > 0) || math.IsInf(x, 0) {
+			return Prediction{}, &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("the prediction at %v is out of the range of a float64", groups)}
+		}
 	}
 	var parts []string
 	for j, g := range groups {
@@ -261,4 +269,19 @@ func (f *PowerLaw) Predict(groups ...float64) (Prediction, error) {
 		pr.note = "EXTRAPOLATED: " + strings.Join(parts, "; ")
 	}
 	return pr, nil
+}
+
+// finiteFit reports whether every number a fit returns is finite.
+func finiteFit(f *PowerLaw) bool {
+	xs := append([]float64{f.C, f.CInterval[0], f.CInterval[1], f.R2, f.RMS, f.Cond}, f.Exponents...)
+	xs = append(xs, f.StdErr...)
+	for _, iv := range f.Intervals {
+		xs = append(xs, iv[0], iv[1])
+	}
+	for _, x := range xs {
+		if math.IsNaN(x) || math.IsInf(x, 0) {
+			return false
+		}
+	}
+	return true
 }

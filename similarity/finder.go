@@ -121,8 +121,20 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 		return TunnelCondition{}, err
 	}
 	tlo, thi, plo, phi := lim.MinTemperature.Value(), lim.MaxTemperature.Value(), lim.MinPressure.Value(), lim.MaxPressure.Value()
-	if !(tlo > 0 && thi >= tlo && plo > 0 && phi >= plo) {
-		return TunnelCondition{}, &PlanError{Reason: "tunnel limits must be positive with minimum ≤ maximum"}
+	if !(tlo > 0 && thi >= tlo && plo > 0 && phi >= plo) || math.IsInf(thi+phi, 0) {
+		return TunnelCondition{}, &PlanError{Err: ErrBadRatio, Reason: "tunnel limits must be positive and finite with minimum ≤ maximum"}
+	}
+	for _, c := range []struct {
+		n string
+		v float64
+	}{{"prototype speed", protoSpeed.Value()}, {"prototype length", protoLength.Value()}, {"prototype density", proto.Density.Value()},
+		{"prototype viscosity", proto.DynamicViscosity.Value()}, {"prototype speed of sound", proto.SpeedOfSound.Value()}} {
+		if !(c.v > 0) || math.IsInf(c.v, 0) {
+			return TunnelCondition{}, &PlanError{Err: ErrBadRatio, Symbol: c.n, Reason: fmt.Sprintf("%s %v is not positive and finite (a fluid state without a speed of sound cannot set a Mach number)", c.n, c.v)}
+		}
+	}
+	if _, err := gas.At(quantity.New(tlo, quantity.Temperature), quantity.New(plo, quantity.Pressure)); err != nil {
+		return TunnelCondition{}, err
 	}
 	ma := protoSpeed.Value() / proto.SpeedOfSound.Value()
 	tr, pr, err := fluids.TotalRatios(gas.Gamma, ma)

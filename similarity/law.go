@@ -34,17 +34,50 @@ func (l Law) Exponent(symbol string) exact.Rat {
 }
 
 // Eval returns the law's value for the given free ratios; a missing one
-// makes the value NaN.
+// makes the value NaN. A ratio given as a free ratio comes back as given
+// (λ_L = 0.125 is 0.125, not exp(log 0.125)); whole exponents are
+// evaluated by multiplication, fractional ones by math.Pow, and the
+// product falls back to logarithms only when an intermediate overflows.
+// The result can still overflow or underflow for extreme ratios: callers
+// that return it check it.
 func (l Law) Eval(free map[string]float64) float64 {
-	lv := 0.0
+	v := 1.0
 	for _, t := range l.Terms {
-		v, ok := free[t.Symbol]
-		if !ok || !(v > 0) {
+		x, ok := free[t.Symbol]
+		if !ok || !(x > 0) {
 			return math.NaN()
 		}
-		lv += t.Exp.Float() * math.Log(v)
+		switch {
+		case t.Exp.IsInt():
+			v *= powInt(x, t.Exp.Num)
+		default:
+			v *= math.Pow(x, t.Exp.Float())
+		}
 	}
-	return math.Exp(lv)
+	if v == 0 || math.IsInf(v, 0) || math.IsNaN(v) {
+		lv := 0.0
+		for _, t := range l.Terms {
+			lv += t.Exp.Float() * math.Log(free[t.Symbol])
+		}
+		return math.Exp(lv)
+	}
+	return v
+}
+
+// powInt returns x^n by repeated squaring, exact when the products are.
+func powInt(x float64, n int64) float64 {
+	if n < 0 {
+		return 1 / powInt(x, -n)
+	}
+	r := 1.0
+	for n > 0 {
+		if n&1 == 1 {
+			r *= x
+		}
+		x *= x
+		n >>= 1
+	}
+	return r
 }
 
 // String writes the law with λ for ratios: "λ_L^(1/2)", "λ_ρ·λ_L³", "1".

@@ -625,7 +625,17 @@ func (s *Solution) Ratio(symbol string) (Ratio, error) {
 		return Ratio{}, unknownVar("ratio", symbol, s.plan.vars)
 	}
 	l := lawOf(s.coef[i], s.params)
-	return Ratio{Law: l, Value: l.Eval(s.values)}, nil
+	r := Ratio{Law: l, Value: l.Eval(s.values)}
+	return r, checkRatioValue("λ_"+symbol, r)
+}
+
+// checkRatioValue refuses a ratio whose value overflowed or underflowed
+// (NaN, meaning a free ratio without a value, is left to the caller).
+func checkRatioValue(what string, r Ratio) error {
+	if v := r.Value; v == 0 || math.IsInf(v, 0) {
+		return &PlanError{Err: ErrBadRatio, Symbol: what, Reason: fmt.Sprintf("%s = %s is out of the range of a float64 for these ratios", what, r.Law)}
+	}
+	return nil
 }
 
 // GroupRatio returns the model/prototype ratio of a group, as oriented
@@ -638,7 +648,8 @@ func (s *Solution) GroupRatio(g pigroups.Group) (Ratio, error) {
 		return Ratio{}, &PlanError{Err: ErrForeignGroup, Symbol: g.Name, Reason: "group ratio: " + err.Error()}
 	}
 	l := s.groupLaw(g.Exponents())
-	return Ratio{Law: l, Value: l.Eval(s.values)}, nil
+	r := Ratio{Law: l, Value: l.Eval(s.values)}
+	return r, checkRatioValue("the ratio of "+g.Name, r)
 }
 
 // NamedRatio returns the model/prototype ratio of the named group g is
@@ -745,7 +756,8 @@ func (s *Solution) DerivedRatio(d quantity.Dim) (Ratio, error) {
 		return Ratio{}, err
 	}
 	l := lawOf(c, s.params)
-	return Ratio{Law: l, Value: l.Eval(s.values)}, nil
+	r := Ratio{Law: l, Value: l.Eval(s.values)}
+	return r, checkRatioValue("the ratio of "+quantity.Describe(d), r)
 }
 
 // BaseRatio returns the ratio of a base dimension (λ_L, λ_M, λ_T, …).
@@ -778,7 +790,16 @@ func (s *Solution) ToPrototype(q quantity.Quantity) (quantity.Quantity, error) {
 	if err != nil {
 		return quantity.Quantity{}, err
 	}
-	return q.Scale(1 / r), nil
+	return scaled(q, 1/r)
+}
+
+// scaled returns q·f, refusing a result that is not finite.
+func scaled(q quantity.Quantity, f float64) (quantity.Quantity, error) {
+	out := q.Scale(f)
+	if v := out.Value(); math.IsNaN(v) || math.IsInf(v, 0) {
+		return quantity.Quantity{}, &PlanError{Err: ErrBadRatio, Reason: fmt.Sprintf("%v scaled by %g is not finite", q, f)}
+	}
+	return out, nil
 }
 
 // ToModel carries a prototype quantity to the model: q_m = λ·q_p.
@@ -787,7 +808,7 @@ func (s *Solution) ToModel(q quantity.Quantity) (quantity.Quantity, error) {
 	if err != nil {
 		return quantity.Quantity{}, err
 	}
-	return q.Scale(r), nil
+	return scaled(q, r)
 }
 
 // SeriesToPrototype carries a whole measured Series to full scale into
@@ -823,11 +844,14 @@ func (s *Solution) VariableToPrototype(symbol string, q quantity.Quantity) (quan
 	if err := q.CheckNamed(symbol, s.plan.vars[i].Dim); err != nil {
 		return quantity.Quantity{}, err
 	}
-	r, _ := s.Ratio(symbol)
+	r, err := s.Ratio(symbol)
+	if err != nil {
+		return quantity.Quantity{}, err
+	}
 	if math.IsNaN(r.Value) {
 		return quantity.Quantity{}, fmt.Errorf("similarity: λ_%s: %w (%s)", symbol, ErrUnknownRatio, r.Law)
 	}
-	return q.Scale(1 / r.Value), nil
+	return scaled(q, 1/r.Value)
 }
 
 // FixFluids fixes the fluid-property ratios from actual fluid states on
@@ -865,11 +889,17 @@ func (s *Solution) SetPoints(prototype map[string]quantity.Quantity, unitOf map[
 		if err := q.CheckNamed(sym, s.plan.vars[i].Dim); err != nil {
 			return nil, err
 		}
-		r, _ := s.Ratio(sym)
+		r, err := s.Ratio(sym)
+		if err != nil {
+			return nil, err
+		}
 		if math.IsNaN(r.Value) {
 			return nil, fmt.Errorf("similarity: set point for %s: %w (%s)", sym, ErrUnknownRatio, r.Law)
 		}
-		m := q.Scale(r.Value)
+		m, err := scaled(q, r.Value)
+		if err != nil {
+			return nil, err
+		}
 		u := units.BaseUnit(m.Dim())
 		if name, ok := unitOf[sym]; ok {
 			var err error

@@ -158,9 +158,22 @@ func AffinityLaws(speedRatio, diameterRatio, densityRatio float64) (Affinity, er
 	if err != nil {
 		return Affinity{}, err
 	}
-	get := func(sym string) float64 { r, _ := s.Ratio(sym); return r.Value }
+	var gerr error
+	get := func(sym string) float64 {
+		r, err := s.Ratio(sym)
+		if err != nil && gerr == nil {
+			gerr = err
+		}
+		return r.Value
+	}
 	a := Affinity{Speed: speedRatio, Diameter: diameterRatio, Density: densityRatio, Flow: get("Q"), Head: get("gH"), Power: get("P")}
 	a.Torque = a.Power / a.Speed
+	if gerr != nil {
+		return Affinity{}, gerr
+	}
+	if err := finiteRatios("torque", a.Torque); err != nil {
+		return Affinity{}, err
+	}
 	return a, nil
 }
 
@@ -198,13 +211,38 @@ func DistortedFroude(horizontal, vertical float64) (Distorted, error) {
 	if err != nil {
 		return Distorted{}, err
 	}
-	get := func(sym string) float64 { r, _ := s.Ratio(sym); return r.Value }
-	return Distorted{
+	var gerr error
+	get := func(sym string) float64 {
+		r, err := s.Ratio(sym)
+		if err != nil && gerr == nil {
+			gerr = err
+		}
+		return r.Value
+	}
+	d := Distorted{
 		Horizontal: horizontal, Vertical: vertical, Distortion: vertical / horizontal,
 		Velocity: get("V"), Time: get("t"), Discharge: get("Q"), Area: horizontal * horizontal,
 		Slope: vertical / horizontal, Manning: math.Pow(vertical, 2.0/3) / math.Sqrt(horizontal),
 		solution: s,
-	}, nil
+	}
+	if gerr != nil {
+		return Distorted{}, gerr
+	}
+	if err := finiteRatios("area", d.Area, "slope", d.Slope, "Manning's n", d.Manning, "distortion", d.Distortion); err != nil {
+		return Distorted{}, err
+	}
+	return d, nil
+}
+
+// finiteRatios checks name–value pairs of derived ratios: each must be
+// positive and finite.
+func finiteRatios(pairs ...any) error {
+	for i := 0; i+1 < len(pairs); i += 2 {
+		if v := pairs[i+1].(float64); !(v > 0) || math.IsInf(v, 0) {
+			return &PlanError{Err: ErrBadRatio, Symbol: pairs[i].(string), Reason: fmt.Sprintf("the %s ratio is out of the range of a float64 for these ratios", pairs[i])}
+		}
+	}
+	return nil
 }
 
 // Solution returns the plan behind the distorted model, for its laws.
@@ -217,5 +255,6 @@ func ManningRatio(lengthRatio float64) (float64, error) {
 	if err := checkRatio("length", lengthRatio); err != nil {
 		return 0, err
 	}
-	return math.Pow(lengthRatio, 1.0/6), nil
+	r := math.Pow(lengthRatio, 1.0/6)
+	return r, finiteRatios("Manning's n", r)
 }

@@ -59,6 +59,5 @@ func StandardAtmosphere(H float64) (State, error) {
 			break
 		}
 	}
-	s, _ := Air.At(quantity.New(T, quantity.Temperature), quantity.New(p, quantity.Pressure))
-	return s, nil
+	return isoAir.At(quantity.New(T, quantity.Temperature), quantity.New(p, quantity.Pressure))
 }

@@ -49,7 +49,24 @@ func check(T, p quantity.Quantity) error {
 	if err := T.CheckNamed("temperature", quantity.Temperature); err != nil {
 		return err
 	}
-	return p.CheckNamed("pressure", quantity.Pressure)
+	if err := p.CheckNamed("pressure", quantity.Pressure); err != nil {
+		return err
+	}
+	if t := T.Value(); !(t > 0) || math.IsInf(t, 0) {
+		return &RangeError{Fluid: "state", What: "thermodynamic temperature (K)", Value: t, Lo: 0, Hi: math.Inf(1)}
+	}
+	if pr := p.Value(); !(pr > 0) || math.IsInf(pr, 0) {
+		return &RangeError{Fluid: "state", What: "absolute pressure (Pa)", Value: pr, Lo: 0, Hi: math.Inf(1)}
+	}
+	return nil
+}
+
+// positive checks that a fluid's parameter is positive and finite.
+func positive(fluid, what string, x float64) error {
+	if !(x > 0) || math.IsInf(x, 0) {
+		return &RangeError{Fluid: fluid, What: what, Value: x, Lo: 0, Hi: math.Inf(1)}
+	}
+	return nil
 }
 
 func state(T, p, rho, mu, a float64) State {
@@ -136,10 +153,10 @@ func (w Water) At(T, p quantity.Quantity) (State, error) {
 		return State{}, err
 	}
 	t := T.Value() - 273.15
-	if t < 0 || t > 40 {
+	if !(t >= 0 && t <= 40) {
 		return State{}, &RangeError{Fluid: w.Name(), What: "temperature (°C)", Value: t, Lo: 0, Hi: 40}
 	}
-	if w.Salinity < 0 || w.Salinity > 45 {
+	if !(w.Salinity >= 0 && w.Salinity <= 45) {
 		return State{}, &RangeError{Fluid: w.Name(), What: "salinity (g/kg)", Value: w.Salinity, Lo: 0, Hi: 45}
 	}
 	rho, mu := freshDensity(t), freshViscosity(t)
@@ -167,7 +184,11 @@ type IdealGas struct {
 
 // Air is dry air with the constants of ISO 2533:1975: R = 287.052 87
 // J/(kg·K), γ = 1.4, β = 1.458 × 10⁻⁶ kg/(m·s·K^(1/2)), S = 110.4 K.
-var Air = IdealGas{GasName: "air", R: 287.05287, Gamma: 1.4, Beta: 1.458e-6, S: 110.4}
+var Air = isoAir
+
+// isoAir is the air of ISO 2533, kept private so that the standard
+// atmosphere cannot be changed by a caller changing Air.
+var isoAir = IdealGas{GasName: "air", R: 287.05287, Gamma: 1.4, Beta: 1.458e-6, S: 110.4}
 
 // Name implements Fluid.
 func (g IdealGas) Name() string { return g.GasName }
@@ -178,10 +199,27 @@ func (g IdealGas) At(T, p quantity.Quantity) (State, error) {
 		return State{}, err
 	}
 	t, pr := T.Value(), p.Value()
-	if !(t > 0) || !(pr > 0) || math.IsInf(t+pr, 0) {
-		return State{}, &RangeError{Fluid: g.GasName, What: "temperature (K) and pressure (Pa)", Value: math.Min(t, pr), Lo: 0, Hi: math.Inf(1)}
+	if err := g.check(); err != nil {
+		return State{}, err
 	}
 	return state(t, pr, pr/(g.R*t), g.Viscosity(t), math.Sqrt(g.Gamma*g.R*t)), nil
+}
+
+// check refuses constants that give no physical gas.
+func (g IdealGas) check() error {
+	if err := positive(g.GasName, "specific gas constant R (J/(kg·K))", g.R); err != nil {
+		return err
+	}
+	if !(g.Gamma > 1) || math.IsInf(g.Gamma, 0) {
+		return &RangeError{Fluid: g.GasName, What: "ratio of specific heats γ", Value: g.Gamma, Lo: 1, Hi: math.Inf(1)}
+	}
+	if err := positive(g.GasName, "Sutherland's constant β", g.Beta); err != nil {
+		return err
+	}
+	if !(g.S >= 0) || math.IsInf(g.S, 0) {
+		return &RangeError{Fluid: g.GasName, What: "Sutherland's temperature S (K)", Value: g.S, Lo: 0, Hi: math.Inf(1)}
+	}
+	return nil
 }
 
 // Viscosity returns Sutherland's μ(T) in Pa·s for T in K.
@@ -210,12 +248,21 @@ func (c Constant) At(T, p quantity.Quantity) (State, error) {
 	if err := c.Viscosity.CheckNamed(c.FluidName+" viscosity", quantity.DynamicViscosity); err != nil {
 		return State{}, err
 	}
+	if err := positive(c.FluidName, "density (kg/m³)", c.Density.Value()); err != nil {
+		return State{}, err
+	}
+	if err := positive(c.FluidName, "dynamic viscosity (Pa·s)", c.Viscosity.Value()); err != nil {
+		return State{}, err
+	}
 	a := 0.0
 	if c.Sound != (quantity.Quantity{}) {
 		if err := c.Sound.CheckNamed(c.FluidName+" speed of sound", quantity.Velocity); err != nil {
 			return State{}, err
 		}
 		a = c.Sound.Value()
+		if err := positive(c.FluidName, "speed of sound (m/s)", a); err != nil {
+			return State{}, err
+		}
 	}
 	return state(T.Value(), p.Value(), c.Density.Value(), c.Viscosity.Value(), a), nil
 }
