@@ -90,3 +90,32 @@ func TestParseQuantitySIErrors(t *testing.T) {
 		t.Errorf("ASCII form: %v, %v", got, err)
 	}
 }
+
+// FuzzQuantityText checks that decoding a Quantity or a Dim never panics
+// and that what is accepted encodes back to the same bits.
+func FuzzQuantityText(f *testing.F) {
+	for _, s := range []string{"1.225 kg·m⁻³", "1.225 kg m^-3", "2.5", "101325 L^-1 M T^-2", "NaN", "1e-400 m", "-0 m", "3 m^(1/2)", ""} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		var x q.Quantity
+		if err := x.UnmarshalText([]byte(s)); err == nil {
+			if math.IsNaN(x.Value()) || math.IsInf(x.Value(), 0) {
+				t.Fatalf("%q decoded to %v", s, x)
+			}
+			b, err := x.MarshalText()
+			var back q.Quantity
+			if err != nil || back.UnmarshalText(b) != nil || back != x || math.Signbit(back.Value()) != math.Signbit(x.Value()) {
+				t.Fatalf("%q → %q → %v", s, b, back)
+			}
+		}
+		var d q.Dim
+		if err := d.UnmarshalText([]byte(s)); err == nil {
+			b, _ := d.MarshalText()
+			var back q.Dim
+			if back.UnmarshalText(b) != nil || back != d {
+				t.Fatalf("dim %q → %q → %v", s, b, back)
+			}
+		}
+	})
+}

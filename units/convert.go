@@ -174,7 +174,11 @@ func (v Value) String() string {
 	if v.Unit.sym == "" || v.Unit.sym == "1" {
 		return n
 	}
-	return n + " " + v.Unit.Format(Unicode)
+	u := v.Unit.Format(Unicode)
+	if c := u[0]; c >= '0' && c <= '9' || c == '.' {
+		u = "(" + u + ")" // a scaled unit, as in 3 (0.5·s): not a second number
+	}
+	return n + " " + u
 }
 
 // AppendText appends v as String writes it to b: the shortest decimal
@@ -254,6 +258,7 @@ func parseValue(tab symbolTable, s string, parse func(string) (Unit, error)) (Va
 		return Value{Number: x, Unit: One}, nil
 	}
 	if c := rest[0]; (c >= '0' && c <= '9' || c == '.') && !reciprocal(rest) {
+		// 101 325 Pa: a second number, not a unit.
 		return Value{}, &ValueError{Text: s, Offset: lead + len(t) - len(rest), Reason: "a second number after a space: to group digits write a thin space (U+2009) between groups of three, as in 101\u2009325 Pa, or no space at all"}
 	}
 	if r, _ := utf8.DecodeRuneInString(rest); r == '/' || r == '*' || r == '^' {
@@ -262,6 +267,9 @@ func parseValue(tab symbolTable, s string, parse func(string) (Unit, error)) (Va
 	u, err := parse(rest)
 	if err != nil {
 		return Value{}, &ValueError{Text: s, Err: err}
+	}
+	if pureNumber(u) {
+		return Value{}, &ValueError{Text: s, Offset: lead + len(t) - len(rest), Reason: fmt.Sprintf("the unit %q is a pure number: write the value as one number", rest)}
 	}
 	return Value{Number: x, Unit: u}, nil
 }
@@ -413,4 +421,16 @@ func reciprocal(s string) bool {
 		i++
 	}
 	return i < len(s) && s[i] == '/'
+}
+
+// pureNumber reports whether u is a number with no unit symbol (1000,
+// 100/1), which a value's text could not tell from a second number.
+func pureNumber(u Unit) bool {
+	t := termsOf(u)
+	for _, x := range t {
+		if !x.number {
+			return false
+		}
+	}
+	return len(t) > 0
 }

@@ -1,8 +1,11 @@
 package units_test
 
 import (
+	"encoding/json"
+	"math"
 	"testing"
 
+	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
 )
 
@@ -50,6 +53,83 @@ func FuzzParseValue(f *testing.F) {
 		var back units.Value
 		if err := back.UnmarshalText(b); err != nil || back.Number != v.Number || !back.Unit.Equal(v.Unit) {
 			t.Fatalf("ParseValue(%q) = %v; text %q reparses to %v, %v", s, v, b, back, err)
+		}
+	})
+}
+
+// FuzzDefine checks that a user table never panics and that a name Define
+// accepts parses back to the unit it was defined as.
+func FuzzDefine(f *testing.F) {
+	for _, c := range [][2]string{{"TR", "12000 BTU/h"}, {"%x", "m"}, {"dTC", "Δ°C"}, {"PS", "75 kgf*m/s"}, {"", "m"}, {"a b", "s"}, {"ft", "m"}, {"x", "x"}} {
+		f.Add(c[0], c[1])
+	}
+	f.Fuzz(func(t *testing.T, name, expr string) {
+		tab := units.NewTable()
+		if err := tab.Define(name, expr); err != nil {
+			return
+		}
+		u, err := tab.Parse(name)
+		if err != nil {
+			t.Fatalf("Define(%q, %q) accepted but Parse(%q): %v", name, expr, name, err)
+		}
+		want, err := tab.Parse(expr)
+		if err != nil {
+			t.Fatalf("Define(%q, %q) accepted but the expression does not parse: %v", name, expr, err)
+		}
+		if !u.Equal(want) {
+			t.Fatalf("%q = %v, defined as %q = %v", name, u, expr, want)
+		}
+		if _, err := tab.Parse(name + "/" + name); err != nil {
+			t.Fatalf("%q/%q: %v", name, name, err)
+		}
+	})
+}
+
+// FuzzUnmarshal checks that Unit and Value text and JSON decoding never
+// panic and that what they accept encodes back to what decodes the same.
+func FuzzUnmarshal(f *testing.F) {
+	for _, s := range append(seedExprs, "12.5 kn", "101\u2009325 Pa", "101 325 Pa", `"m"`, "1e-400 m", "NaN m") {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		var u units.Unit
+		if err := u.UnmarshalText([]byte(s)); err == nil {
+			b, err := u.MarshalText()
+			var back units.Unit
+			if err != nil || back.UnmarshalText(b) != nil || !back.Equal(u) {
+				t.Fatalf("unit %q → %q → %v", s, b, back)
+			}
+		}
+		var v units.Value
+		if err := v.UnmarshalText([]byte(s)); err == nil {
+			if math.IsNaN(v.Number) || math.IsInf(v.Number, 0) {
+				t.Fatalf("value %q decoded to %v", s, v.Number)
+			}
+			b, err := v.MarshalText()
+			var back units.Value
+			if err != nil || back.UnmarshalText(b) != nil || back.Number != v.Number || !back.Unit.Equal(v.Unit) {
+				t.Fatalf("value %q → %q → %v", s, b, back)
+			}
+		}
+		var j units.Value
+		_ = json.Unmarshal([]byte(s), &j)
+	})
+}
+
+// FuzzFlag checks that flags never panic and hold only values of their
+// dimension and temperature role.
+func FuzzFlag(f *testing.F) {
+	for _, s := range []string{"12 kn", "20 °C", "20 Δ°C", "293.15 K", "3 m", "", "-h", "1e999 kn"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		speed := units.NewFlag(quantity.Velocity, units.MustParseValue("10 kn"))
+		if speed.Set(s) == nil && speed.Value.Unit.Dim() != quantity.Velocity {
+			t.Fatalf("speed flag took %q", s)
+		}
+		temp := units.NewFlag(quantity.Temperature, units.MustParseValue("15 °C"))
+		if temp.Set(s) == nil && (temp.Value.Unit.Dim() != quantity.Temperature || temp.Value.Unit.IsInterval()) {
+			t.Fatalf("temperature flag took %q", s)
 		}
 	})
 }
