@@ -282,7 +282,11 @@ func MoodyStepUp(etaModel float64, dModel, dProto quantity.Quantity, exponent fl
 	if !(exponent >= 0 && exponent <= 1) {
 		return 0, m(fmt.Sprintf("exponent %v is outside 0 … 1", exponent))
 	}
-	return 1 - (1-etaModel)*math.Pow(dModel.Value()/dProto.Value(), exponent), nil
+	eta := 1 - (1-etaModel)*math.Pow(dModel.Value()/dProto.Value(), exponent)
+	if !(eta > 0 && eta < 1) {
+		return 0, m(fmt.Sprintf("the stepped efficiency %.4g is outside 0 … 1 (a prototype %.4g times smaller than the model)", eta, dModel.Value()/dProto.Value()))
+	}
+	return eta, nil
 }
 
 // StepUpMethod says how an efficiency step-up is applied along a

@@ -61,6 +61,20 @@ func check(T, p quantity.Quantity) error {
 	return nil
 }
 
+// finiteState refuses a state whose properties overflowed or underflowed
+// (an ideal gas at 1e-300 K).
+func finiteState(fluid string, s State) (State, error) {
+	for _, x := range []quantity.Quantity{s.Density, s.DynamicViscosity, s.KinematicViscosity} {
+		if v := x.Value(); !(v > 0) || math.IsInf(v, 0) {
+			return State{}, &RangeError{Fluid: fluid, What: "state (temperature, pressure) giving " + quantity.Describe(x.Dim()), Value: v, Lo: 0, Hi: math.Inf(1)}
+		}
+	}
+	if v := s.SpeedOfSound.Value(); !(v >= 0) || math.IsInf(v, 0) {
+		return State{}, &RangeError{Fluid: fluid, What: "state giving a speed of sound", Value: v, Lo: 0, Hi: math.Inf(1)}
+	}
+	return s, nil
+}
+
 // positive checks that a fluid's parameter is positive and finite.
 func positive(fluid, what string, x float64) error {
 	if !(x > 0) || math.IsInf(x, 0) {
@@ -202,7 +216,7 @@ func (g IdealGas) At(T, p quantity.Quantity) (State, error) {
 	if err := g.check(); err != nil {
 		return State{}, err
 	}
-	return state(t, pr, pr/(g.R*t), g.Viscosity(t), math.Sqrt(g.Gamma*g.R*t)), nil
+	return finiteState(g.GasName, state(t, pr, pr/(g.R*t), g.Viscosity(t), math.Sqrt(g.Gamma*g.R*t)))
 }
 
 // check refuses constants that give no physical gas.
@@ -264,5 +278,5 @@ func (c Constant) At(T, p quantity.Quantity) (State, error) {
 			return State{}, err
 		}
 	}
-	return state(T.Value(), p.Value(), c.Density.Value(), c.Viscosity.Value(), a), nil
+	return finiteState(c.FluidName, state(T.Value(), p.Value(), c.Density.Value(), c.Viscosity.Value(), a))
 }

@@ -33,6 +33,9 @@ func TotalRatios(gamma, ma float64) (tr, pr float64, err error) {
 	}
 	tr = 1 + 0.5*(gamma-1)*ma*ma
 	pr = math.Pow(tr, gamma/(gamma-1))
+	if math.IsInf(pr, 0) || math.IsNaN(pr) {
+		return 0, 0, &RangeError{Fluid: "perfect gas", What: "total-to-static pressure ratio at this γ and Mach number", Value: pr, Lo: 1, Hi: math.MaxFloat64}
+	}
 	return tr, pr, nil
 }
 
