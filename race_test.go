@@ -86,4 +86,3 @@ func TestConcurrentUse(t *testing.T) {
 		t.Error(err)
 	}
 }
-
