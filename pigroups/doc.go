@@ -19,7 +19,12 @@
 //
 // Groups are matched against a catalogue of the trade's named groups by
 // the kinds of quantity of their variables and their exponents, allowing
-// any power: μ/(ρVD) is recognised as 1/Re, V²/(gL) as Fr². A variable
+// any power: μ/(ρVD) is recognised as 1/Re, V²/(gL) as Fr². Each named
+// group carries the numerical factor and conventions of its definition
+// (C_D over ½ρV²A, K_T with n in revolutions per second), and a label
+// says what a group's value is in those terms (C_D/2, K_T/(4π²), or ∝C_D
+// where a length squared stands in for the reference area);
+// Set.WithCoefficients evaluates the definitions themselves. A variable
 // without a kind is matched by its dimension, and the match says which
 // kind it assumed; give kinds (VarKind) to narrow the candidates, since a
 // pressure over ρV² may be an Euler number, a pressure coefficient, a
@@ -30,5 +35,19 @@
 // An Evaluator computes the groups for one row of quantities or for whole
 // Series without allocating; FitPowerLaw fits Π₀ = C·∏ Πₖ^aₖ by least
 // squares on logarithms, with standard errors, confidence and prediction
-// intervals.
+// intervals, and marks a prediction outside the fitted range as an
+// extrapolation.
+//
+// # Bounds
+//
+// Work is bounded for any input: a problem has at most MaxVariables (64)
+// variables with symbols of at most 64 bytes; rank, Pi sets and the
+// default repeating set are exact eliminations on a matrix of at most
+// 7 × 64 small integers (an overflow of the 64-bit fractions is an error
+// wrapping ErrTooLarge, never a wrong answer); recognition tries the
+// catalogue's forms of at most eight factors; RepeatingSets stops with
+// ErrTooManySets past MaxRepeatingSets, and EachRepeating visits at most
+// C(n, r) sets and stops when its callback says so; FitPowerLaw is one
+// QR factorisation of its rows. Evaluation is linear in the rows. Every
+// number returned is finite, or the call returns a typed error.
 package pigroups

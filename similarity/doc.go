@@ -10,8 +10,10 @@
 // of the free ratios — Froude scaling with the same fluid gives
 // λ_V = λ_L^(1/2), λ_F = λ_L³, λ_P = λ_L^(7/2) — and only then are numbers
 // put in. Requirements that cannot all hold give a *ConflictError with
-// the smallest conflicting set in words and, for each requirement whose
-// removal resolves it, what its ratio would have to be. Compromise holds
+// an irreducible conflicting set in words (every requirement in it is
+// needed for the conflict) and, for each requirement whose removal
+// resolves it, what its ratios would then be — for a held group, the
+// ratio of the named group itself (Fr, with Fr² beside it). Compromise holds
 // groups in priority order and reports the rest as floating, with their
 // model values against a threshold.
 //
@@ -25,6 +27,14 @@
 // are the published partial-similarity corrections; FindTunnelCondition
 // and TemperatureFor find the fluid states a plan needs. Package fluids
 // gives water, air and the standard atmosphere.
+//
+// # Bounds
+//
+// A plan has at most MaxRequirements (256) requirements; Solve is one
+// exact elimination, and a conflict is isolated by deletion filtering in
+// at most k + 1 further solves, with k the number of requirements.
+// Fluid-property searches bisect at most 200 times. Every ratio and
+// transferred value is finite, or the call returns a typed error.
 //
 // # Caution
 //

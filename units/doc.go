@@ -46,6 +46,13 @@
 //
 // # Tables
 //
+// # Bounds
+//
+// Parsing reads at most MaxExprLen (512) bytes and MaxDepth (16) nested
+// parentheses, in one pass; the caches hold at most 8192 expressions
+// each. Conversions and unit algebra return a finite result or an error
+// wrapping ErrRange.
+//
 // The built-in table is fixed and safe for concurrent readers. A Table
 // the caller owns adds definitions at run time (Define("TR",
 // "12000 BTU/h")) and is safe for concurrent use.

@@ -2,6 +2,8 @@ package main
 
 import (
 	"bytes"
+	"errors"
+	"flag"
 	"math"
 	"strings"
 	"testing"
@@ -54,5 +56,14 @@ func TestByHand(t *testing.T) {
 		if math.Abs(rows[i].ProtoEta-(m+gain)) > 1e-12 {
 			t.Errorf("point %d: η_p = %v, want %v + %v", i, rows[i].ProtoEta, m, gain)
 		}
+	}
+}
+
+// TestHelp: -h prints the usage and is not an error for main.
+func TestHelp(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, []string{"-h"})
+	if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), "Usage") {
+		t.Errorf("-h: %v, %q", err, out.String())
 	}
 }

@@ -2,6 +2,8 @@ package main
 
 import (
 	"bytes"
+	"errors"
+	"flag"
 	"math"
 	"strings"
 	"testing"
@@ -128,5 +130,14 @@ func TestPressureDropRegimes(t *testing.T) {
 	}
 	if _, _, _, regime, err := pressureDrop(mk(0.055)); err != nil || !strings.Contains(regime, "EXTRAPOLATED") {
 		t.Errorf("Re ≈ 4400: %q, %v", regime, err)
+	}
+}
+
+// TestHelp: -h prints the usage and is not an error for main.
+func TestHelp(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, []string{"-h"})
+	if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), "Usage") {
+		t.Errorf("-h: %v, %q", err, out.String())
 	}
 }

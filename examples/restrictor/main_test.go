@@ -2,6 +2,8 @@ package main
 
 import (
 	"bytes"
+	"errors"
+	"flag"
 	"math"
 	"os"
 	"strings"
@@ -50,5 +52,14 @@ func TestByHand(t *testing.T) {
 	// fit should find exponents of that sign and size.
 	if a := r.Fit.Exponents; !(a[0] < 0 && a[0] > -0.5 && a[1] > 0.1 && a[1] < 0.4) {
 		t.Errorf("exponents %v", a)
+	}
+}
+
+// TestHelp: -h prints the usage and is not an error for main.
+func TestHelp(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, []string{"-h"})
+	if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), "Usage") {
+		t.Errorf("-h: %v, %q", err, out.String())
 	}
 }

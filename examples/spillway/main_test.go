@@ -2,6 +2,8 @@ package main
 
 import (
 	"bytes"
+	"errors"
+	"flag"
 	"math"
 	"strings"
 	"testing"
@@ -45,5 +47,14 @@ func TestByHand(t *testing.T) {
 	d := r.Distorted
 	if math.Abs(d.Velocity-1/math.Sqrt(30)) > 1e-15 || math.Abs(d.Discharge*120*math.Pow(30, 1.5)-1) > 1e-12 {
 		t.Errorf("distorted: %+v", d)
+	}
+}
+
+// TestHelp: -h prints the usage and is not an error for main.
+func TestHelp(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, []string{"-h"})
+	if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), "Usage") {
+		t.Errorf("-h: %v, %q", err, out.String())
 	}
 }

@@ -2,6 +2,8 @@ package main
 
 import (
 	"bytes"
+	"errors"
+	"flag"
 	"math"
 	"strings"
 	"testing"
@@ -55,5 +57,14 @@ func TestByHand(t *testing.T) {
 	// part of C_R to the frictional part, which falls with Re.
 	if !(o.Form.FormFactor > 1 && o.Form.FormFactor < 1.5) || !(o.WithForm.Points[3].ShipResistance.Value() < Rs) {
 		t.Errorf("form factor %v, R with form %v", o.Form.FormFactor, o.WithForm.Points[3].ShipResistance)
+	}
+}
+
+// TestHelp: -h prints the usage and is not an error for main.
+func TestHelp(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, []string{"-h"})
+	if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), "Usage") {
+		t.Errorf("-h: %v, %q", err, out.String())
 	}
 }

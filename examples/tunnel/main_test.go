@@ -2,6 +2,8 @@ package main
 
 import (
 	"bytes"
+	"errors"
+	"flag"
 	"math"
 	"strings"
 	"testing"
@@ -66,5 +68,14 @@ func TestByHand(t *testing.T) {
 		if math.Abs(c.T0/c.T-f) > 1e-12 || math.Abs(c.p0/c.p-math.Pow(f, 3.5)) > 1e-9 {
 			t.Errorf("total/static: %v", c)
 		}
+	}
+}
+
+// TestHelp: -h prints the usage and is not an error for main.
+func TestHelp(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, []string{"-h"})
+	if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), "Usage") {
+		t.Errorf("-h: %v, %q", err, out.String())
 	}
 }
