@@ -31,6 +31,8 @@ var tradeKinds = map[string]quantity.Dim{
 	"density difference":          quantity.Density,
 	"specific energy":             quantity.SpecificEnergy,
 	"force":                       quantity.Force,
+	"resistance":                  quantity.Force, // a hull's or body's total resistance (drag) in the towing-tank sense
+	"wetted surface":              quantity.Area,
 	"torque":                      quantity.Torque,
 	"power":                       quantity.Power,
 	"volume flow rate":            quantity.VolumeFlowRate,
@@ -55,7 +57,8 @@ var tradeKinds = map[string]quantity.Dim{
 // explicitOnly are kinds a variable must be given explicitly to match:
 // a length is not assumed to be a mean free path, nor a velocity a speed
 // of sound, nor a pressure a bulk modulus.
-var explicitOnly = map[string]bool{"mean free path": true, "speed of sound": true, "bulk modulus": true, "Coriolis parameter": true, "buoyancy": true}
+var explicitOnly = map[string]bool{"mean free path": true, "speed of sound": true, "bulk modulus": true, "Coriolis parameter": true, "buoyancy": true,
+	"resistance": true, "wetted surface": true}
 
 // synonyms are kinds of package quantity left out of inference because a
 // preferred name covers them.
@@ -281,6 +284,11 @@ var catalogue = []Named{
 	{Name: "drag coefficient", Symbol: "C_D", Coef: two, Definition: "C_D = F/(½·ρ·V²·A), A the reference area", Forms: []Form{
 		form(kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("area", -1, 1)),
 		areaProxy(kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)),
+	}},
+	{Name: "total resistance coefficient", Symbol: "C_T", Coef: two, Definition: "C_T = R/(½·ρ·V²·S), S the wetted surface (ITTC)", Forms: []Form{
+		form(kp("resistance", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("wetted surface", -1, 1)),
+		{Factors: []KindPower{kp("resistance", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)},
+			Proxy: &Proxy{Kind: "length", Exp: exact.Int(-2), Ref: "S", RefExp: exact.Int(-1), What: "the wetted surface"}},
 	}},
 	{Name: "lift coefficient", Symbol: "C_L", Coef: two, Definition: "C_L = F/(½·ρ·V²·A), A the reference area", Forms: []Form{
 		form(kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("area", -1, 1)),

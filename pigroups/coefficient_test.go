@@ -278,3 +278,27 @@ func TestCoefficientSeries(t *testing.T) {
 		}
 	}
 }
+
+// TestTotalResistanceCoefficient: a hull's resistance over ρV²S is
+// C_T/2, and its Coefficient is the towing tank's C_T = R/(½ρV²S)
+// (ITTC). By hand for the quickstart's invented catamaran model: R =
+// 30.9 N at 3.75 kn (1.929 167 m/s) in water of 999.1026 kg/m³ with S =
+// 414.7/16² m²: C_T = 2·30.9/(999.1026·1.929167²·1.619922) = 0.0102599.
+func TestTotalResistanceCoefficient(t *testing.T) {
+	p := pigroups.MustProblem(pigroups.Dep("R", q.Force).WithKind("resistance"), pigroups.VarKind("ρ", q.Density, "density"),
+		pigroups.VarKind("V", q.Velocity, "velocity"), pigroups.VarKind("S", q.Area, "wetted surface"))
+	s, err := p.PiSet("ρ", "V", "S")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if l := s.Groups()[0].Label(); l != "C_T/2" {
+		t.Errorf("label %q", l)
+	}
+	v := 15 * 1852.0 / 3600 / 4
+	row := []q.Quantity{q.New(30.9, q.Force), q.New(999.1026, q.Density), q.New(v, q.Velocity), q.New(414.7/256, q.Area)}
+	got, err := s.WithCoefficients().Evaluator().Row(row, make([]float64, 1))
+	want := 2 * 30.9 / (999.1026 * v * v * 414.7 / 256)
+	if err != nil || math.Abs(got[0]-want) > 1e-15 || math.Abs(want-0.0102599) > 5e-8 {
+		t.Errorf("C_T = %v, want %v (0.0102599), %v", got, want, err)
+	}
+}

@@ -2,6 +2,7 @@ package units_test
 
 import (
 	"errors"
+	"flag"
 	"fmt"
 
 	"similis.dev/similis/quantity"
@@ -72,7 +73,9 @@ func ExampleTable_Define() {
 
 func ExampleNewFlag() {
 	speed := units.NewFlag(quantity.Velocity, units.Value{Number: 10, Unit: units.MustParse("kn")})
-	fmt.Println(speed.Set("12kn"), speed)
+	fs := flag.NewFlagSet("towing", flag.ContinueOnError)
+	fs.Var(speed, "speed", "towing speed")
+	fmt.Println(fs.Parse([]string{"-speed", "12kn"}), speed)
 	fmt.Println(speed.Set("12 kg"))
 	// Output:
 	// <nil> 12 kn

@@ -27,7 +27,7 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	res := &JobResult{}
 	fmt.Fprintln(w, "\n2. Variables of ship resistance → Pi set")
 	p, err := pigroups.NewProblem(
-		pigroups.Dep("R", q.Force).WithKind("force"),
+		pigroups.Dep("R", q.Force).WithKind("resistance"),
 		pigroups.VarKind("V", q.Velocity, "velocity"), pigroups.VarKind("L", q.Length, "length"),
 		pigroups.VarKind("g", q.Acceleration, "gravitational acceleration"),
 		pigroups.VarKind("rho", q.Density, "density"), pigroups.VarKind("mu", q.DynamicViscosity, "dynamic viscosity"))
