@@ -8,7 +8,6 @@ import (
 	"strings"
 	"sync"
 
-	"similis.dev/similis/internal/exact"
 	"similis.dev/similis/quantity"
 )
 
@@ -129,7 +128,7 @@ type Named struct {
 	Definition string
 	// Coef is the numerical factor of the definition over the product of
 	// its kinds: 2 for C_D = F/(½ρV²A), 1 for Re.
-	Coef exact.Rat
+	Coef quantity.Rat
 	// Revolutions is true when a rotational speed enters the definition
 	// in revolutions per second (K_T, K_Q, J and the turbomachine
 	// coefficients, common practice); otherwise it enters in radians per
@@ -158,29 +157,29 @@ type Form struct {
 // Proxy describes a stand-in for a reference quantity: the form's factor
 // Kind^Exp takes the place of the definition's Ref^RefExp.
 type Proxy struct {
-	Kind   string    // "length"
-	Exp    exact.Rat // −2
-	Ref    string    // "A"
-	RefExp exact.Rat // −1
-	What   string    // "the reference area"
+	Kind   string       // "length"
+	Exp    quantity.Rat // −2
+	Ref    string       // "A"
+	RefExp quantity.Rat // −1
+	What   string       // "the reference area"
 }
 
 // KindPower is one factor of a named group's definition.
 type KindPower struct {
 	Kind string
-	Exp  exact.Rat
+	Exp  quantity.Rat
 }
 
-func kp(kind string, n, d int64) KindPower { return KindPower{kind, exact.Frac(n, d)} }
+func kp(kind string, n, d int64) KindPower { return KindPower{kind, quantity.MustRat(n, d)} }
 
 func form(f ...KindPower) Form { return Form{Factors: f} }
 
 // areaProxy is the form with L² standing in for a reference area.
 func areaProxy(f ...KindPower) Form {
-	return Form{Factors: f, Proxy: &Proxy{Kind: "length", Exp: exact.Int(-2), Ref: "A", RefExp: exact.Int(-1), What: "the reference area"}}
+	return Form{Factors: f, Proxy: &Proxy{Kind: "length", Exp: quantity.RatInt(-2), Ref: "A", RefExp: quantity.RatInt(-1), What: "the reference area"}}
 }
 
-var one, two = exact.Int(1), exact.Int(2)
+var one, two = quantity.RatInt(1), quantity.RatInt(2)
 
 // catalogue of named groups. Definitions are those of ISO 80000-11
 // (characteristic numbers) where it gives one, otherwise common practice,
@@ -288,7 +287,7 @@ var catalogue = []Named{
 	{Name: "total resistance coefficient", Symbol: "C_T", Coef: two, Definition: "C_T = R/(½·ρ·V²·S), S the wetted surface (ITTC)", Forms: []Form{
 		form(kp("resistance", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("wetted surface", -1, 1)),
 		{Factors: []KindPower{kp("resistance", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)},
-			Proxy: &Proxy{Kind: "length", Exp: exact.Int(-2), Ref: "S", RefExp: exact.Int(-1), What: "the wetted surface"}},
+			Proxy: &Proxy{Kind: "length", Exp: quantity.RatInt(-2), Ref: "S", RefExp: quantity.RatInt(-1), What: "the wetted surface"}},
 	}},
 	{Name: "lift coefficient", Symbol: "C_L", Coef: two, Definition: "C_L = F/(½·ρ·V²·A), A the reference area", Forms: []Form{
 		form(kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("area", -1, 1)),
@@ -341,13 +340,13 @@ type compiledForm struct {
 	// a cheap necessary condition for a match.
 	sig   quantity.Dim
 	sigOK bool
-	proxy int       // index of the proxy term, or −1
-	rot   exact.Rat // the exponent of rotational speed in the form
+	proxy int          // index of the proxy term, or −1
+	rot   quantity.Rat // the exponent of rotational speed in the form
 }
 
 type compiledTerm struct {
 	kind     string
-	exp      exact.Rat
+	exp      quantity.Rat
 	dim      quantity.Dim
 	known    bool
 	explicit bool // must be given explicitly
@@ -359,7 +358,7 @@ var compiled = func() []compiledForm {
 		n := &catalogue[i]
 		for j := range n.Forms {
 			f := &n.Forms[j]
-			cf := compiledForm{named: n, form: f, sigOK: true, proxy: -1, rot: exact.Int(0)}
+			cf := compiledForm{named: n, form: f, sigOK: true, proxy: -1, rot: quantity.RatInt(0)}
 			for k, t := range f.Factors {
 				d, ok := KindDim(t.Kind)
 				cf.terms = append(cf.terms, compiledTerm{kind: t.Kind, exp: t.Exp, dim: d, known: ok, explicit: explicitOnly[t.Kind]})
@@ -391,7 +390,7 @@ type Match struct {
 	Named
 	// Power is the exponent p with group ∝ Named^p: 1 for the group
 	// itself, −1 for its inverse, 2 for its square.
-	Power exact.Rat
+	Power quantity.Rat
 	// Assumed lists the variables whose kind was taken from their
 	// dimension to make the match ("a as speed of sound").
 	Assumed []string
@@ -400,7 +399,7 @@ type Match struct {
 	// then only proportional to the named group.
 	Proxy *ProxyUse
 	// rot is the exponent of rotational speed in the named group.
-	rot exact.Rat
+	rot quantity.Rat
 }
 
 // ProxyUse is a variable that stands in for a reference quantity in a
@@ -421,7 +420,7 @@ func (m Match) TwoPiPower() int {
 	if !m.Revolutions || !m.rot.IsInt() {
 		return 0
 	}
-	return int(-m.rot.Num)
+	return int(-m.rot.Num())
 }
 
 // Factor returns k with Named = k·group^(1/Power) for an exact match, the
@@ -429,8 +428,8 @@ func (m Match) TwoPiPower() int {
 // 4π² for K_T against T/(ρω²D⁴) with ω in rad/s, 1 for Re.
 func (m Match) Factor() float64 {
 	c := m.Coef
-	if c.Den == 0 {
-		c = exact.Int(1)
+	if c.IsZero() {
+		c = quantity.RatInt(1)
 	}
 	return c.Float() * math.Pow(2*math.Pi, float64(m.TwoPiPower()))
 }
@@ -438,21 +437,21 @@ func (m Match) Factor() float64 {
 // FactorText writes Factor exactly: "2", "4π²", "1/(2π)"; "" for 1.
 func (m Match) FactorText() string {
 	c := m.Coef
-	if c.Den == 0 {
-		c = exact.Int(1)
+	if c.IsZero() {
+		c = quantity.RatInt(1)
 	}
 	return factorText(c, m.TwoPiPower())
 }
 
 // factorText writes c·(2π)^k exactly: "2", "4π²", "1/(2π)"; "" for 1.
-func factorText(c exact.Rat, k int) string {
-	n, d := c.Num, c.Den
+func factorText(c quantity.Rat, k int) string {
+	n, d := c.Num(), c.Den()
 	piNum, piDen := "", ""
 	piPow := func(a int) string {
 		if a == 1 {
 			return "π"
 		}
-		return "π" + expText(exact.Int(int64(a)), Unicode)
+		return "π" + expText(quantity.RatInt(int64(a)), Unicode)
 	}
 	if k > 0 {
 		n <<= k
@@ -483,14 +482,14 @@ func (m Match) Label() string {
 		return "∝" + m.Symbol
 	}
 	c := m.Coef
-	if c.Den == 0 {
-		c = exact.Int(1)
+	if c.IsZero() {
+		c = quantity.RatInt(1)
 	}
 	k := factorText(c, m.TwoPiPower())
 	if k == "" {
 		return powerLabel(m.Symbol, m.Power)
 	}
-	ci, _ := exact.Int(1).Div(c)
+	ci, _ := quantity.RatInt(1).Div(c)
 	ki := factorText(ci, -m.TwoPiPower()) // 1/k
 	var first string                      // the group to the power one: Named/k
 	switch {
@@ -502,9 +501,9 @@ func (m Match) Label() string {
 		first = ki + "·" + m.Symbol
 	}
 	switch {
-	case m.Power.Num == 1 && m.Power.Den == 1:
+	case m.Power.Num() == 1 && m.Power.Den() == 1:
 		return first
-	case m.Power.Num == -1 && m.Power.Den == 1:
+	case m.Power.Num() == -1 && m.Power.Den() == 1:
 		if kn, kd, ok := strings.Cut(k, "/"); ok {
 			return kn + "/(" + strings.Trim(kd, "()") + "·" + m.Symbol + ")"
 		}
@@ -522,13 +521,13 @@ func parenFactor(s string) string {
 
 // powerLabel writes sym to an exact power: "Re", "1/Re", "Fr²",
 // "Re^(1/2)".
-func powerLabel(sym string, p exact.Rat) string {
+func powerLabel(sym string, p quantity.Rat) string {
 	switch {
-	case p.Num == 1 && p.Den == 1:
+	case p.Num() == 1 && p.Den() == 1:
 		return sym
-	case p.Num == -1 && p.Den == 1:
+	case p.Num() == -1 && p.Den() == 1:
 		return "1/" + sym
-	case p.IsInt() && p.Num > 0:
+	case p.IsInt() && p.Num() > 0:
 		return sym + expText(p, Unicode)
 	case p.IsInt():
 		return "1/" + sym + expText(p.Neg(), Unicode)
@@ -539,9 +538,9 @@ func powerLabel(sym string, p exact.Rat) string {
 // Equation writes the named group in terms of a group called name:
 // "Re = Π₃", "Fr = Π₂^(1/2)", "K_T = 4π²·Π₁", "C_D = 2·Π₁·L²/A".
 func (m Match) Equation(name string) string {
-	inv, err := exact.Int(1).Div(m.Power)
+	inv, err := quantity.RatInt(1).Div(m.Power)
 	if err != nil {
-		inv = exact.Int(1)
+		inv = quantity.RatInt(1)
 	}
 	g := powerLabel(name, inv)
 	k := m.FactorText()
@@ -556,7 +555,7 @@ func (m Match) Equation(name string) string {
 	if m.Proxy != nil {
 		rhs += "·" + m.Proxy.Symbol + expText(m.Proxy.Exp.Neg(), Unicode)
 		rhs += "/" + m.Proxy.Ref
-		if !(m.Proxy.RefExp.Num == -1 && m.Proxy.RefExp.Den == 1) {
+		if !(m.Proxy.RefExp.Num() == -1 && m.Proxy.RefExp.Den() == 1) {
 			rhs += expText(m.Proxy.RefExp.Neg(), Unicode)
 		}
 	}
@@ -587,7 +586,7 @@ func (m Match) describe(name string) string {
 		if m.TwoPiPower() != 0 {
 			sb.WriteString(" with the rotational speed's SI value in rad/s")
 		}
-	case !(m.Power.Num == 1 && m.Power.Den == 1):
+	case !(m.Power.Num() == 1 && m.Power.Den() == 1):
 		sb.WriteString("; conventional form " + m.Symbol)
 	}
 	if len(m.Assumed) > 0 {
@@ -600,7 +599,7 @@ func (m Match) describe(name string) string {
 // recognise matches a group's exponents against the catalogue, best
 // matches (exact before proportional, fewest assumed kinds, lowest
 // power) first.
-func (p *Problem) recognise(exps []exact.Rat) []Match {
+func (p *Problem) recognise(exps []quantity.Rat) []Match {
 	var termBuf [16]int
 	terms := termBuf[:0]
 	for i, e := range exps {
@@ -665,7 +664,7 @@ func (p *Problem) sameDims(f *compiledForm, terms []int) bool {
 	return true
 }
 
-func absCmp(a, b exact.Rat) int {
+func absCmp(a, b quantity.Rat) int {
 	if a.Sign() < 0 {
 		a = a.Neg()
 	}
@@ -677,12 +676,12 @@ func absCmp(a, b exact.Rat) int {
 
 // matchForm tries every assignment of the group's variables to the form's
 // factors, with one common power.
-func (p *Problem) matchForm(f *compiledForm, terms []int, exps []exact.Rat) (Match, bool) {
+func (p *Problem) matchForm(f *compiledForm, terms []int, exps []quantity.Rat) (Match, bool) {
 	var used [16]bool
 	var assign [16]int
 	var best *Match
-	var rec func(k int, power exact.Rat, havePower bool, assumed []string)
-	rec = func(k int, power exact.Rat, havePower bool, assumed []string) {
+	var rec func(k int, power quantity.Rat, havePower bool, assumed []string)
+	rec = func(k int, power quantity.Rat, havePower bool, assumed []string) {
 		if k == len(terms) {
 			if best == nil || len(assumed) < len(best.Assumed) {
 				best = &Match{Named: *f.named, Power: power, Assumed: slices.Clone(assumed), rot: f.rot}
@@ -715,7 +714,7 @@ func (p *Problem) matchForm(f *compiledForm, terms []int, exps []exact.Rat) (Mat
 			used[fi] = false
 		}
 	}
-	rec(0, exact.Rat{}, false, nil)
+	rec(0, quantity.Rat{}, false, nil)
 	if best == nil {
 		return Match{}, false
 	}

@@ -44,8 +44,8 @@ func (s *Set) Evaluator() *Evaluator {
 				continue
 			}
 			t := evTerm{v: i, exp: math.Abs(x.Float())}
-			if x.IsInt() && x.Num >= -8 && x.Num <= 8 {
-				t.n = int(x.Num)
+			if x.IsInt() && x.Num() >= -8 && x.Num() <= 8 {
+				t.n = int(x.Num())
 				if t.n < 0 {
 					t.n = -t.n
 				}

@@ -8,7 +8,6 @@ import (
 
 	"github.com/google/go-cmp/cmp"
 
-	"similis.dev/similis/internal/exact"
 	"similis.dev/similis/pigroups"
 	q "similis.dev/similis/quantity"
 )
@@ -287,7 +286,7 @@ func TestConventionalAndRewrite(t *testing.T) {
 		t.Errorf("conventional Re = %s", got)
 	}
 	// Replace Π₁ by Π₁·Π₂⁻¹ (= F/(μVD)); the set stays equivalent.
-	r, err := s.Rewrite(0, []exact.Rat{exact.Int(1), exact.Int(-1)})
+	r, err := s.Rewrite(0, []q.Rat{q.RatInt(1), q.RatInt(-1)})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -299,10 +298,10 @@ func TestConventionalAndRewrite(t *testing.T) {
 		t.Errorf("rewritten set not equivalent: %v", err)
 	}
 	pw, ok, err := s.Express(r.Groups()[0].Exponents())
-	if err != nil || !ok || pw[0] != exact.Int(1) || pw[1] != exact.Int(-1) {
+	if err != nil || !ok || pw[0] != q.RatInt(1) || pw[1] != q.RatInt(-1) {
 		t.Errorf("Express = %v, %v, %v", pw, ok, err)
 	}
-	if _, err := s.Rewrite(0, []exact.Rat{exact.Int(0), exact.Int(1)}); err == nil {
+	if _, err := s.Rewrite(0, []q.Rat{q.RatInt(0), q.RatInt(1)}); err == nil {
 		t.Error("a rewrite dropping the group itself was accepted")
 	}
 	other, _ := p.PiSet("mu", "V", "D")

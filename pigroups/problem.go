@@ -157,7 +157,7 @@ func (e *RepeatingError) Unwrap() error { return e.Err }
 type Problem struct {
 	vars  []Variable
 	kinds [][]string // candidate kinds of each variable
-	a     exact.Matrix
+	a     exact.Matrix[quantity.Rat]
 	ai    exact.IntMatrix // the same, as integers, for fast elimination
 	rows  []quantity.Base // base dimensions that appear, in ISO order
 	rank  int
@@ -168,7 +168,7 @@ type Problem struct {
 // did: the variables' exponents are too large (or too many) for 64-bit
 // fractions.
 func (p *Problem) tooLarge(err error) error {
-	if !errors.Is(err, exact.ErrOverflow) {
+	if !errors.Is(err, exact.ErrOverflow) && !errors.Is(err, quantity.ErrRange) {
 		return err
 	}
 	var syms []string
@@ -246,7 +246,7 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 			}
 		}
 	}
-	p.a = exact.NewMatrix(len(p.rows), len(vars))
+	p.a = exact.NewMatrix[quantity.Rat](len(p.rows), len(vars))
 	p.ai = make(exact.IntMatrix, len(p.rows))
 	cells := make([]int64, len(p.rows)*len(vars))
 	for i, b := range p.rows {
@@ -256,7 +256,7 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 			// Held in sixths, as whole numbers: scaling a matrix changes
 			// neither its rank nor its null space, and integers eliminate
 			// faster. Matrix and MatrixTable divide by six.
-			p.a[i][j] = exact.Int(int64(v.Dim.Sixths(b)))
+			p.a[i][j] = quantity.RatInt(int64(v.Dim.Sixths(b)))
 		}
 	}
 	piv, err := p.ai.Clone().GaussJordan()
@@ -297,11 +297,12 @@ func (p *Problem) Bases() []quantity.Base { return slices.Clone(p.rows) }
 
 // Matrix returns the dimensional matrix: one row per base dimension that
 // appears (Bases), one column per variable, exact exponents.
-func (p *Problem) Matrix() exact.Matrix {
-	m := p.a.Clone()
-	for i := range m {
-		for j := range m[i] {
-			m[i][j] = exact.Frac(m[i][j].Num, quantity.ExpDen)
+func (p *Problem) Matrix() [][]quantity.Rat {
+	m := make([][]quantity.Rat, len(p.rows))
+	for i, b := range p.rows {
+		m[i] = make([]quantity.Rat, len(p.vars))
+		for j, v := range p.vars {
+			m[i][j] = v.Dim.Exponent(b)
 		}
 	}
 	return m
@@ -360,18 +361,15 @@ func (p *Problem) CheckGroup(g Group) error {
 // NewGroup returns the group ∏ xᵢ^eᵢ of the problem's variables, the
 // exponents given by symbol, recognised against the catalogue; the
 // symbols must be the problem's and the product dimensionless.
-func (p *Problem) NewGroup(name string, exps map[string]exact.Rat) (Group, error) {
-	v := make(exact.Vec, len(p.vars))
+func (p *Problem) NewGroup(name string, exps map[string]quantity.Rat) (Group, error) {
+	v := make([]quantity.Rat, len(p.vars))
 	for i := range v {
-		v[i] = exact.Int(0)
+		v[i] = quantity.RatInt(0)
 	}
 	for sym, e := range exps {
 		i, err := p.Index(sym)
 		if err != nil {
 			return Group{}, err
-		}
-		if e.Den == 0 {
-			e = exact.Int(0)
 		}
 		v[i] = e
 	}
@@ -421,7 +419,7 @@ func (p *Problem) RankNote() string {
 	}
 	var combos []string
 	for r := range piv {
-		iv, _, err := exact.Integers(at[r])
+		iv, _, err := integers(at[r])
 		if err != nil {
 			return ""
 		}
@@ -431,7 +429,7 @@ func (p *Problem) RankNote() string {
 			if x.IsZero() {
 				continue
 			}
-			e, err := quantity.DimOf(p.rows[k], int(x.Num), 1)
+			e, err := quantity.DimOf(p.rows[k], int(x.Num()), 1)
 			if err == nil {
 				d, err = d.Mul(e)
 			}
@@ -494,8 +492,8 @@ func (p *Problem) intColumns(idx []int) exact.IntMatrix {
 }
 
 // columns returns the submatrix of the given columns.
-func (p *Problem) columns(idx []int) exact.Matrix {
-	m := exact.NewMatrix(len(p.rows), len(idx))
+func (p *Problem) columns(idx []int) exact.Matrix[quantity.Rat] {
+	m := exact.NewMatrix[quantity.Rat](len(p.rows), len(idx))
 	for i := range p.rows {
 		for k, j := range idx {
 			m[i][k] = p.a[i][j]
@@ -554,15 +552,15 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 	}
 	if len(piv) < len(idx) || len(e.Uncovered) > 0 {
 		e.Set, e.Want = slices.Clone(set), p.rank
-		ns, err := p.columns(idx).NullSpace()
+		ns, err := p.columns(idx).NullSpace(quantity.RatInt(1))
 		if err != nil {
 			return nil, p.tooLarge(err)
 		}
 		e.Err = ErrRepeatingSingular
 		if len(ns) > 0 {
-			iv, _, err := exact.Integers(ns[0])
+			iv, _, err := integers(ns[0])
 			if err == nil {
-				exps := make(map[int]exact.Rat)
+				exps := make(map[int]quantity.Rat)
 				for k, j := range idx {
 					exps[j] = iv[k]
 				}
@@ -632,7 +630,7 @@ func (p *Problem) eachRepeating(f func(idx []int) bool) {
 	// Work on the row echelon columns with an incremental rank test:
 	// choose columns one at a time, keeping them independent.
 	sel := make([]int, 0, r)
-	basis := make([]exact.Vec, 0, r) // reduced basis vectors with their pivot rows
+	basis := make([][]quantity.Rat, 0, r) // reduced basis vectors with their pivot rows
 	pivRow := make([]int, 0, r)
 	var rec func(start int) bool
 	rec = func(start int) bool {
@@ -641,7 +639,7 @@ func (p *Problem) eachRepeating(f func(idx []int) bool) {
 		}
 		for k := start; k <= len(cand)-(r-len(sel)); k++ {
 			j := cand[k]
-			v := make(exact.Vec, len(p.rows))
+			v := make([]quantity.Rat, len(p.rows))
 			for i := range p.rows {
 				v[i] = p.a[i][j]
 			}

@@ -30,7 +30,7 @@ type Group struct {
 	// Var is the index of the variable the group was built for (the
 	// non-repeating one), whose exponent is positive.
 	Var  int
-	exps []exact.Rat
+	exps []quantity.Rat
 	// Matches lists the named groups this one is recognised as, best
 	// first; empty when it has no name.
 	Matches []Match
@@ -38,7 +38,7 @@ type Group struct {
 	// coef·(2π)^twoPi is a numerical factor the group carries (a
 	// coefficient's ½ or its rev/s conversion, see Coefficient); the zero
 	// coef means 1, as for every group of a Pi set.
-	coef  exact.Rat
+	coef  quantity.Rat
 	twoPi int
 }
 
@@ -47,14 +47,14 @@ type Group struct {
 // written as C_D = 2·F/(ρ·V²·A), 4π² for K_T with a rotational speed held
 // in rad/s.
 func (g Group) Factor() float64 {
-	if g.coef.Den == 0 {
+	if g.coef.IsZero() {
 		return 1
 	}
 	return g.coef.Float() * math.Pow(2*math.Pi, float64(g.twoPi))
 }
 
 func (g Group) factorText() string {
-	if g.coef.Den == 0 {
+	if g.coef.IsZero() {
 		return ""
 	}
 	return factorText(g.coef, g.twoPi)
@@ -81,7 +81,7 @@ func (g Group) Coefficient() (Group, error) {
 	if !m.Exact() {
 		return Group{}, fmt.Errorf("pigroups: %s = %s: %w: it is %s", g.Name, g, ErrNotExact, m.describe(g.Name))
 	}
-	exps := make(exact.Vec, len(g.exps))
+	exps := make([]quantity.Rat, len(g.exps))
 	for i, e := range g.exps {
 		x, err := e.Div(m.Power)
 		if err != nil {
@@ -90,8 +90,8 @@ func (g Group) Coefficient() (Group, error) {
 		exps[i] = x
 	}
 	c := m.Coef
-	if c.Den == 0 {
-		c = exact.Int(1)
+	if c.IsZero() {
+		c = quantity.RatInt(1)
 	}
 	out := Group{Name: m.Symbol, Var: g.Var, exps: exps, prob: g.prob, coef: c, twoPi: m.TwoPiPower()}
 	out.Matches = g.prob.recognise(exps)
@@ -116,18 +116,18 @@ func (s *Set) WithCoefficients() *Set {
 func (g Group) Problem() *Problem { return g.prob }
 
 // Exponents returns the exponent of each variable, in variable order.
-func (g Group) Exponents() []exact.Rat { return slices.Clone(g.exps) }
+func (g Group) Exponents() []quantity.Rat { return slices.Clone(g.exps) }
 
 // Exponent returns the exponent of the variable with the given symbol;
 // a symbol that is not a variable of the group's problem (and any symbol
 // for the zero Group) is an error wrapping ErrUnknownVariable.
-func (g Group) Exponent(symbol string) (exact.Rat, error) {
+func (g Group) Exponent(symbol string) (quantity.Rat, error) {
 	if g.prob == nil {
-		return exact.Int(0), &ProblemError{Err: ErrUnknownVariable, Symbol: symbol, Reason: "the zero Group has no variables"}
+		return quantity.RatInt(0), &ProblemError{Err: ErrUnknownVariable, Symbol: symbol, Reason: "the zero Group has no variables"}
 	}
 	i, err := g.prob.Index(symbol)
 	if err != nil {
-		return exact.Int(0), err
+		return quantity.RatInt(0), err
 	}
 	return g.exps[i], nil
 }
@@ -141,7 +141,7 @@ func (g Group) Dim() (quantity.Dim, error) {
 		if e.IsZero() {
 			continue
 		}
-		p, err := g.prob.vars[i].Dim.Pow(int(e.Num), int(e.Den))
+		p, err := g.prob.vars[i].Dim.Pow(int(e.Num()), int(e.Den()))
 		if err != nil {
 			return quantity.Dim{}, err
 		}
@@ -192,7 +192,7 @@ func (g Group) Label() string {
 		return g.Name
 	}
 	m := g.Matches[0]
-	if g.coef.Den != 0 && m.Exact() && m.Power.Num == 1 && m.Power.Den == 1 && g.coef == m.Coef && g.twoPi == m.TwoPiPower() {
+	if !g.coef.IsZero() && m.Exact() && m.Power.Num() == 1 && m.Power.Den() == 1 && g.coef == m.Coef && g.twoPi == m.TwoPiPower() {
 		return m.Symbol
 	}
 	return m.Label()
@@ -206,7 +206,7 @@ func (g Group) Describe() string {
 		return ""
 	}
 	m := g.Matches[0]
-	if l := g.Label(); g.coef.Den != 0 && l == m.Symbol {
+	if l := g.Label(); !g.coef.IsZero() && l == m.Symbol {
 		return l + " (" + m.Name + "; " + m.Definition + ")"
 	}
 	return m.describe(g.Name)
@@ -214,8 +214,8 @@ func (g Group) Describe() string {
 
 // FormatProduct writes the product ∏ xᵢ^eᵢ of the problem's variables, the
 // exponents given in variable order, as Group.Format does.
-func (p *Problem) FormatProduct(exps []exact.Rat, style Style) string {
-	m := make(map[int]exact.Rat)
+func (p *Problem) FormatProduct(exps []quantity.Rat, style Style) string {
+	m := make(map[int]quantity.Rat)
 	for i, e := range exps {
 		if i < len(p.vars) && !e.IsZero() {
 			m[i] = e
@@ -225,7 +225,7 @@ func (p *Problem) FormatProduct(exps []exact.Rat, style Style) string {
 }
 
 // spell writes ∏ xᵢ^eᵢ in a style, numerator first, in variable order.
-func (p *Problem) spell(exps map[int]exact.Rat, style Style) string {
+func (p *Problem) spell(exps map[int]quantity.Rat, style Style) string {
 	var num, den []int
 	for i := range p.vars {
 		e, ok := exps[i]
@@ -256,7 +256,9 @@ func (p *Problem) spell(exps map[int]exact.Rat, style Style) string {
 		parts := make([]string, len(idx))
 		for k, i := range idx {
 			e := exps[i]
-			e.Num *= sign
+			if sign < 0 {
+				e = e.Neg()
+			}
 			parts[k] = p.vars[i].Symbol + expText(e, style)
 		}
 		return strings.Join(parts, sep)
@@ -277,13 +279,13 @@ func (p *Problem) spell(exps map[int]exact.Rat, style Style) string {
 
 var supDigits = map[rune]string{'0': "⁰", '1': "¹", '2': "²", '3': "³", '4': "⁴", '5': "⁵", '6': "⁶", '7': "⁷", '8': "⁸", '9': "⁹", '-': "⁻"}
 
-func expText(e exact.Rat, style Style) string {
-	if e.Num == 1 && e.Den == 1 {
+func expText(e quantity.Rat, style Style) string {
+	if e.Num() == 1 && e.Den() == 1 {
 		return ""
 	}
 	if style == Unicode && e.IsInt() {
 		var sb strings.Builder
-		for _, c := range strconv.FormatInt(e.Num, 10) {
+		for _, c := range strconv.FormatInt(e.Num(), 10) {
 			sb.WriteString(supDigits[c])
 		}
 		return sb.String()
@@ -326,13 +328,15 @@ func TeXSymbol(s string) string {
 	return out
 }
 
-func (p *Problem) latexList(idx []int, exps map[int]exact.Rat, sign int64) string {
+func (p *Problem) latexList(idx []int, exps map[int]quantity.Rat, sign int64) string {
 	parts := make([]string, len(idx))
 	for k, i := range idx {
 		e := exps[i]
-		e.Num *= sign
+		if sign < 0 {
+			e = e.Neg()
+		}
 		s := TeXSymbol(p.vars[i].Symbol)
-		if !(e.Num == 1 && e.Den == 1) {
+		if !(e.Num() == 1 && e.Den() == 1) {
 			s = "{" + s + "}^{" + e.String() + "}"
 		}
 		parts[k] = s
@@ -399,18 +403,18 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		return nil, fmt.Errorf("pigroups: internal error: repeating set %v is not independent", s.Repeating())
 	}
 	n := len(p.vars)
-	cells := make(exact.Vec, n*len(order))
+	cells := make([]quantity.Rat, n*len(order))
 	s.groups = make([]Group, 0, len(order))
 	for k, j := range order {
 		v := cells[k*n : (k+1)*n : (k+1)*n]
 		for i := range v {
-			v[i] = exact.Int(0)
+			v[i] = quantity.RatInt(0)
 		}
-		v[j] = exact.Int(1)
+		v[j] = quantity.RatInt(1)
 		for r, i := range idx {
-			v[i] = exact.Frac(-aug[r][len(idx)+k], aug[r][r])
+			v[i] = quantity.MustRat(-aug[r][len(idx)+k], aug[r][r])
 		}
-		if _, err := exact.IntegersTo(v, v); err != nil {
+		if _, err := quantity.Coprime(v, v); err != nil {
 			return nil, p.tooLarge(err)
 		}
 		iv := v
@@ -437,11 +441,11 @@ func (p *Problem) trivialSet(s *Set) *Set {
 		}
 	}
 	for k, j := range order {
-		v := make(exact.Vec, len(p.vars))
+		v := make([]quantity.Rat, len(p.vars))
 		for i := range v {
-			v[i] = exact.Int(0)
+			v[i] = quantity.RatInt(0)
 		}
-		v[j] = exact.Int(1)
+		v[j] = quantity.RatInt(1)
 		s.groups = append(s.groups, Group{Name: piName(k + 1), Var: j, exps: v, prob: p, Matches: p.recognise(v)})
 	}
 	return s
@@ -457,10 +461,10 @@ func (p *Problem) DefaultSet() (*Set, error) {
 }
 
 // dimensionless reports whether A·v = 0 exactly.
-func (p *Problem) dimensionless(v exact.Vec) bool {
+func (p *Problem) dimensionless(v []quantity.Rat) bool {
 	small := true
 	for _, x := range v {
-		if !x.IsInt() || x.Num > 1<<40 || x.Num < -(1<<40) {
+		if !x.IsInt() || x.Num() > 1<<40 || x.Num() < -(1<<40) {
 			small = false
 			break
 		}
@@ -472,7 +476,7 @@ func (p *Problem) dimensionless(v exact.Vec) bool {
 		for _, row := range p.ai {
 			var sum int64
 			for j, x := range v {
-				sum += row[j] * x.Num
+				sum += row[j] * x.Num()
 			}
 			if sum != 0 {
 				return false
@@ -481,7 +485,7 @@ func (p *Problem) dimensionless(v exact.Vec) bool {
 		return true
 	}
 	for i := range p.rows {
-		sum := exact.Int(0)
+		sum := quantity.RatInt(0)
 		for j, x := range v {
 			t, err := p.a[i][j].Mul(x)
 			if err != nil {
@@ -544,7 +548,7 @@ func (p *Problem) MatrixTable() string {
 	for i := range p.rows {
 		cells[i] = make([]string, len(p.vars))
 		for j := range p.vars {
-			cells[i][j] = exact.Frac(p.a[i][j].Num, quantity.ExpDen).String()
+			cells[i][j] = quantity.MustRat(p.a[i][j].Num(), quantity.ExpDen).String()
 			width[j] = max(width[j], len(cells[i][j]))
 		}
 	}
@@ -591,7 +595,7 @@ func Equivalent(a, b *Set) (bool, error) {
 			perm[k] = j
 		}
 		for i, row := range bm {
-			r := make(exact.Vec, len(row))
+			r := make([]quantity.Rat, len(row))
 			for k, j := range perm {
 				r[k] = row[j]
 			}
@@ -614,8 +618,8 @@ func Equivalent(a, b *Set) (bool, error) {
 	return ra == rb && rab == ra, nil
 }
 
-func (s *Set) matrix() exact.Matrix {
-	m := make(exact.Matrix, len(s.groups))
+func (s *Set) matrix() exact.Matrix[quantity.Rat] {
+	m := make(exact.Matrix[quantity.Rat], len(s.groups))
 	for i, g := range s.groups {
 		m[i] = slices.Clone(g.exps)
 	}
@@ -625,11 +629,11 @@ func (s *Set) matrix() exact.Matrix {
 // Express returns the exponents pₖ with target = ∏ Πₖ^pₖ over the set's
 // groups, exactly; ok is false if target is not a product of powers of
 // them. target gives an exponent for each variable, in variable order.
-func (s *Set) Express(target []exact.Rat) (powers []exact.Rat, ok bool, err error) {
+func (s *Set) Express(target []quantity.Rat) (powers []quantity.Rat, ok bool, err error) {
 	if len(target) != len(s.prob.vars) {
 		return nil, false, &ProblemError{Err: ErrUnknownVariable, Reason: fmt.Sprintf("%d exponents for the %d variables %s", len(target), len(s.prob.vars), s.prob.symbols())}
 	}
-	powers, ok, err = exact.Solve(s.matrix().Transpose(), exact.Vec(target))
+	powers, ok, err = exact.Solve(s.matrix().Transpose(), []quantity.Rat(target))
 	return powers, ok, s.prob.tooLarge(err)
 }
 
@@ -638,16 +642,16 @@ func (s *Set) Express(target []exact.Rat) (powers []exact.Rat, ok bool, err erro
 // Π₂·Π₁⁻¹ is Rewrite(1, {-1, 1, 0, …}). The power of group k itself must
 // be nonzero, so the new set is still a basis; the result is scaled to
 // coprime integers with a positive exponent for the group's variable.
-func (s *Set) Rewrite(k int, powers []exact.Rat) (*Set, error) {
+func (s *Set) Rewrite(k int, powers []quantity.Rat) (*Set, error) {
 	if k < 0 || k >= len(s.groups) || len(powers) != len(s.groups) {
 		return nil, &ProblemError{Err: ErrUnknownVariable, Reason: fmt.Sprintf("rewrite group %d with %d powers of a %d-group set", k, len(powers), len(s.groups))}
 	}
 	if powers[k].IsZero() {
 		return nil, &ProblemError{Err: ErrRepeatingSingular, Symbol: s.groups[k].Name, Reason: "the power of the group itself must be nonzero, or the set would lose a group"}
 	}
-	v := make(exact.Vec, len(s.prob.vars))
+	v := make([]quantity.Rat, len(s.prob.vars))
 	for i := range v {
-		v[i] = exact.Int(0)
+		v[i] = quantity.RatInt(0)
 	}
 	for j, p := range powers {
 		for i := range v {
@@ -660,7 +664,7 @@ func (s *Set) Rewrite(k int, powers []exact.Rat) (*Set, error) {
 			}
 		}
 	}
-	iv, _, err := exact.Integers(v)
+	iv, _, err := integers(v)
 	if err != nil {
 		return nil, s.prob.tooLarge(err)
 	}
@@ -675,7 +679,7 @@ func (s *Set) Rewrite(k int, powers []exact.Rat) (*Set, error) {
 	return out, nil
 }
 
-func firstNonzeroSign(v exact.Vec) int {
+func firstNonzeroSign(v []quantity.Rat) int {
 	for _, x := range v {
 		if s := x.Sign(); s != 0 {
 			return s
@@ -694,10 +698,10 @@ func (g Group) Conventional() Group {
 		return g
 	}
 	m := g.Matches[0]
-	if m.Power.Num == 1 && m.Power.Den == 1 {
+	if m.Power.Num() == 1 && m.Power.Den() == 1 {
 		return g
 	}
-	conv := make(exact.Vec, len(g.exps))
+	conv := make([]quantity.Rat, len(g.exps))
 	whole := true
 	for i, e := range g.exps {
 		x, err := e.Div(m.Power)
@@ -726,4 +730,12 @@ func (s *Set) WithConventional() *Set {
 		out.groups[k] = g.Conventional()
 	}
 	return out
+}
+
+// integers scales v to coprime integers (quantity.Coprime) into a new
+// vector, with the factor used.
+func integers(v []quantity.Rat) ([]quantity.Rat, quantity.Rat, error) {
+	out := make([]quantity.Rat, len(v))
+	f, err := quantity.Coprime(out, v)
+	return out, f, err
 }

@@ -173,15 +173,6 @@ func sixths(num, den int) (int8, error) {
 	return int8(s), nil
 }
 
-// Exp returns the exponent of base b in d as a reduced fraction num/den
-// with den > 0.
-func (d Dim) Exp(b Base) (num, den int) {
-	if b >= NumBases {
-		return 0, 1
-	}
-	return reduce(int(d.lane(b)), ExpDen)
-}
-
 // Sixths returns the exponent of base b in d in sixths (so L^(1/2) gives 3).
 func (d Dim) Sixths(b Base) int {
 	if b >= NumBases {
@@ -191,28 +182,8 @@ func (d Dim) Sixths(b Base) int {
 }
 
 func reduce(n, d int) (int, int) {
-	g := gcd(n, d)
-	if g == 0 {
-		return 0, 1
-	}
-	n, d = n/g, d/g
-	if d < 0 {
-		n, d = -n, -d
-	}
-	return n, d
-}
-
-func gcd(a, b int) int {
-	if a < 0 {
-		a = -a
-	}
-	if b < 0 {
-		b = -b
-	}
-	for b != 0 {
-		a, b = b, a%b
-	}
-	return a
+	r := norm(int64(n), int64(d))
+	return int(r.Num()), int(r.Den())
 }
 
 // IsDimensionless reports whether d is the dimension one.
@@ -327,7 +298,8 @@ func (d Dim) spell(sp spelling) string {
 	}
 	var sb strings.Builder
 	for _, b := range sp.order {
-		n, den := d.Exp(b)
+		e := d.Exponent(b)
+		n, den := int(e.Num()), int(e.Den())
 		if n == 0 {
 			continue
 		}

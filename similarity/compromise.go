@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"math"
 
-	"similis.dev/similis/internal/exact"
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 )
@@ -96,16 +95,16 @@ func (pl *Plan) Compromise(prototype map[string]quantity.Quantity, groups ...Pri
 // conventional returns a group's label and exponents in the named
 // group's conventional orientation (pigroups.Group.Conventional), so that
 // values and thresholds read as the trade writes them: Re, not 1/Re.
-func conventional(g pigroups.Group) (string, exact.Vec) {
+func conventional(g pigroups.Group) (string, []quantity.Rat) {
 	c := g.Conventional()
 	if len(c.Matches) == 0 {
-		return c.String(), exact.Vec(c.Exponents())
+		return c.String(), []quantity.Rat(c.Exponents())
 	}
-	return c.Matches[0].Label() + " (" + c.Matches[0].Name + ")", exact.Vec(c.Exponents())
+	return c.Matches[0].Label() + " (" + c.Matches[0].Name + ")", []quantity.Rat(c.Exponents())
 }
 
 // groupValue evaluates ∏ xᵢ^eᵢ from values by symbol, checking dimensions.
-func groupValue(vars []pigroups.Variable, exps []exact.Rat, values map[string]quantity.Quantity) (float64, bool) {
+func groupValue(vars []pigroups.Variable, exps []quantity.Rat, values map[string]quantity.Quantity) (float64, bool) {
 	lv := 0.0
 	for i, e := range exps {
 		if e.IsZero() {

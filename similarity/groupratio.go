@@ -4,8 +4,8 @@ import (
 	"strconv"
 	"strings"
 
-	"similis.dev/similis/internal/exact"
 	"similis.dev/similis/pigroups"
+	"similis.dev/similis/quantity"
 )
 
 // GroupRatio is the model/prototype ratio of a group, stated for the
@@ -38,8 +38,8 @@ func (r GroupRatio) String() string {
 
 // groupRatio states a group's ratio for its named group.
 func (s *Solution) groupRatio(g pigroups.Group) GroupRatio {
-	exps := exact.Vec(g.Exponents())
-	ratio := func(v exact.Vec) Ratio {
+	exps := []quantity.Rat(g.Exponents())
+	ratio := func(v []quantity.Rat) Ratio {
 		l := s.groupLaw(v)
 		return Ratio{Law: l, Value: l.Eval(s.values)}
 	}
@@ -47,7 +47,7 @@ func (s *Solution) groupRatio(g pigroups.Group) GroupRatio {
 		return GroupRatio{Symbol: g.Format(pigroups.Unicode), Ratio: ratio(exps)}
 	}
 	m := g.Matches[0]
-	named := make(exact.Vec, len(exps))
+	named := make([]quantity.Rat, len(exps))
 	lcm := int64(1)
 	for i, e := range exps {
 		x, err := e.Div(m.Power)
@@ -55,13 +55,13 @@ func (s *Solution) groupRatio(g pigroups.Group) GroupRatio {
 			return GroupRatio{Symbol: g.Format(pigroups.Unicode), Ratio: ratio(exps)}
 		}
 		named[i] = x
-		lcm = lcm / gcd(lcm, x.Den) * x.Den
+		lcm = lcm / gcd(lcm, x.Den()) * x.Den()
 	}
 	out := GroupRatio{Symbol: m.Symbol, Name: m.Name, Ratio: ratio(named)}
 	if lcm > 1 {
-		whole := make(exact.Vec, len(named))
+		whole := make([]quantity.Rat, len(named))
 		for i, x := range named {
-			whole[i], _ = x.Mul(exact.Int(lcm))
+			whole[i], _ = x.Mul(quantity.RatInt(lcm))
 		}
 		out.Whole = m.Symbol + superscript(lcm)
 		out.WholeRatio = ratio(whole)

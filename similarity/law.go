@@ -4,7 +4,7 @@ import (
 	"math"
 	"strings"
 
-	"similis.dev/similis/internal/exact"
+	"similis.dev/similis/quantity"
 )
 
 // Law is a scale ratio written exactly as a product of rational powers of
@@ -17,20 +17,20 @@ type Law struct {
 // LawTerm is one factor of a Law: λ_Symbol^Exp.
 type LawTerm struct {
 	Symbol string
-	Exp    exact.Rat
+	Exp    quantity.Rat
 }
 
 // IsOne reports whether the law is the ratio 1 whatever the free ratios.
 func (l Law) IsOne() bool { return len(l.Terms) == 0 }
 
 // Exponent returns the exponent of the free ratio λ_symbol in l.
-func (l Law) Exponent(symbol string) exact.Rat {
+func (l Law) Exponent(symbol string) quantity.Rat {
 	for _, t := range l.Terms {
 		if t.Symbol == symbol {
 			return t.Exp
 		}
 	}
-	return exact.Int(0)
+	return quantity.RatInt(0)
 }
 
 // Eval returns the law's value for the given free ratios; a missing one
@@ -49,7 +49,7 @@ func (l Law) Eval(free map[string]float64) float64 {
 		}
 		switch {
 		case t.Exp.IsInt():
-			v *= powInt(x, t.Exp.Num)
+			v *= powInt(x, t.Exp.Num())
 		default:
 			v *= math.Pow(x, t.Exp.Float())
 		}
@@ -89,11 +89,11 @@ func (l Law) String() string {
 	for _, t := range l.Terms {
 		s := "λ_" + t.Symbol
 		switch {
-		case t.Exp.Num == 1 && t.Exp.Den == 1:
-		case t.Exp.IsInt() && t.Exp.Num >= 0:
-			s += superscript(t.Exp.Num)
+		case t.Exp.Num() == 1 && t.Exp.Den() == 1:
+		case t.Exp.IsInt() && t.Exp.Num() >= 0:
+			s += superscript(t.Exp.Num())
 		case t.Exp.IsInt():
-			s += "⁻" + superscript(-t.Exp.Num)
+			s += "⁻" + superscript(-t.Exp.Num())
 		default:
 			s += "^(" + t.Exp.String() + ")"
 		}
@@ -103,7 +103,7 @@ func (l Law) String() string {
 }
 
 // lawOf builds a law from a coefficient vector over parameters.
-func lawOf(coef exact.Vec, params []string) Law {
+func lawOf(coef []quantity.Rat, params []string) Law {
 	var l Law
 	for k, c := range coef {
 		if !c.IsZero() {
@@ -114,10 +114,10 @@ func lawOf(coef exact.Vec, params []string) Law {
 }
 
 // combine returns Σ aᵢ·lawᵢ as coefficient vectors.
-func combine(coefs []exact.Vec, a []exact.Rat, n int) (exact.Vec, error) {
-	out := make(exact.Vec, n)
+func combine(coefs [][]quantity.Rat, a []quantity.Rat, n int) ([]quantity.Rat, error) {
+	out := make([]quantity.Rat, n)
 	for k := range out {
-		out[k] = exact.Int(0)
+		out[k] = quantity.RatInt(0)
 	}
 	for i, c := range coefs {
 		if a[i].IsZero() {

@@ -26,10 +26,10 @@ const (
 type constraint struct {
 	kind  consKind
 	label string
-	rows  []exact.Vec // homogeneous rows over the variables
-	vars  []int       // variables a Same or Fix constrains
-	value float64     // the ratio for Fix
-	exps  exact.Vec   // a held group's exponents
+	rows  [][]quantity.Rat // homogeneous rows over the variables
+	vars  []int            // variables a Same or Fix constrains
+	value float64          // the ratio for Fix
+	exps  []quantity.Rat   // a held group's exponents
 	group pigroups.Group
 }
 
@@ -127,12 +127,12 @@ func (pl *Plan) Hold(g pigroups.Group) *Plan {
 // HoldExps holds the group ∏ xᵢ^eᵢ given as exponents by symbol, with a
 // label for messages ("the Froude number").
 func (pl *Plan) HoldExps(label string, exps map[string]int) *Plan {
-	m := make(map[string]exact.Rat, len(exps))
+	m := make(map[string]quantity.Rat, len(exps))
 	for s, e := range exps {
 		if pl.index(s) < 0 {
 			return pl.failErr(unknownVar("hold "+label, s, pl.vars))
 		}
-		m[s] = exact.Int(int64(e))
+		m[s] = quantity.RatInt(int64(e))
 	}
 	g, err := pl.prob.NewGroup(label, m)
 	if err != nil {
@@ -142,24 +142,24 @@ func (pl *Plan) HoldExps(label string, exps map[string]int) *Plan {
 }
 
 func (pl *Plan) holdGroup(label string, g pigroups.Group) *Plan {
-	v := exact.Vec(g.Exponents())
+	v := []quantity.Rat(g.Exponents())
 	if len(v) != len(pl.vars) {
 		return pl.fail(ErrForeignGroup, label, "hold %s: %d exponents for %d variables", label, len(v), len(pl.vars))
 	}
 	if !pl.dimensionless(v) {
 		return pl.fail(ErrNotDimensionless, label, "hold %s: the group is not dimensionless", label)
 	}
-	pl.cons = append(pl.cons, constraint{kind: consHold, label: label, rows: []exact.Vec{slices.Clone(v)}, exps: slices.Clone(v), group: g})
+	pl.cons = append(pl.cons, constraint{kind: consHold, label: label, rows: [][]quantity.Rat{slices.Clone(v)}, exps: slices.Clone(v), group: g})
 	return pl
 }
 
-func (pl *Plan) dimensionless(v exact.Vec) bool {
+func (pl *Plan) dimensionless(v []quantity.Rat) bool {
 	var d quantity.Dim
 	for i, e := range v {
 		if e.IsZero() {
 			continue
 		}
-		p, err := pl.vars[i].Dim.Pow(int(e.Num), int(e.Den))
+		p, err := pl.vars[i].Dim.Pow(int(e.Num()), int(e.Den()))
 		if err != nil {
 			return false
 		}
@@ -204,11 +204,11 @@ func (pl *Plan) Same(label string, symbols ...string) *Plan {
 		if i < 0 {
 			return pl.failErr(unknownVar(label, s, pl.vars))
 		}
-		row := make(exact.Vec, len(pl.vars))
+		row := make([]quantity.Rat, len(pl.vars))
 		for k := range row {
-			row[k] = exact.Int(0)
+			row[k] = quantity.RatInt(0)
 		}
-		row[i] = exact.Int(1)
+		row[i] = quantity.RatInt(1)
 		c.rows = append(c.rows, row)
 		c.vars = append(c.vars, i)
 	}
@@ -233,11 +233,11 @@ func (pl *Plan) Basis(symbols ...string) *Plan { pl.basis = slices.Clone(symbols
 // free ratios, and its value where the free ratios are fixed.
 type Solution struct {
 	plan   *Plan
-	params []string    // the free ratios, by variable symbol
-	coef   []exact.Vec // per variable: law coefficients over params
+	params []string         // the free ratios, by variable symbol
+	coef   [][]quantity.Rat // per variable: law coefficients over params
 	values map[string]float64
 	free   []string // free ratios with no value: the plan is underdetermined
-	base   []exact.Vec
+	base   [][]quantity.Rat
 	bases  []quantity.Base
 }
 
@@ -356,7 +356,7 @@ func allIndices(n int) []int {
 func (pl *Plan) solveSubset(use []int) (*Solution, bool, error) {
 	n := len(pl.vars)
 	fixed := make(map[int]float64)
-	var rows []exact.Vec
+	var rows [][]quantity.Rat
 	for _, ci := range use {
 		c := pl.cons[ci]
 		switch c.kind {
@@ -382,7 +382,7 @@ func (pl *Plan) solveSubset(use []int) (*Solution, bool, error) {
 			order = append(order, i)
 		}
 	}
-	m := exact.NewMatrix(len(rows), n)
+	m := exact.NewMatrix[quantity.Rat](len(rows), n)
 	for r, row := range rows {
 		for k, i := range order {
 			m[r][k] = row[i]
@@ -405,11 +405,11 @@ func (pl *Plan) solveSubset(use []int) (*Solution, bool, error) {
 		}
 	}
 	np := len(s.params)
-	s.coef = make([]exact.Vec, n)
+	s.coef = make([][]quantity.Rat, n)
 	for k, i := range order {
-		c := make(exact.Vec, np)
+		c := make([]quantity.Rat, np)
 		for j := range c {
-			c[j] = exact.Int(0)
+			c[j] = quantity.RatInt(0)
 		}
 		if r, ok := isPivot[k]; ok {
 			for k2, i2 := range order {
@@ -419,7 +419,7 @@ func (pl *Plan) solveSubset(use []int) (*Solution, bool, error) {
 				c[paramIdx[i2]] = m[r][k2].Neg()
 			}
 		} else {
-			c[paramIdx[i]] = exact.Int(1)
+			c[paramIdx[i]] = quantity.RatInt(1)
 		}
 		s.coef[i] = c
 	}
@@ -545,11 +545,11 @@ func (pl *Plan) conflict() error {
 			if c.label == "the same fluid" && len(c.vars) == 2 {
 				// The kinematic viscosity ratio μ/ρ is what a held Reynolds
 				// number fixes.
-				v := make(exact.Vec, len(pl.vars))
+				v := make([]quantity.Rat, len(pl.vars))
 				for k := range v {
-					v[k] = exact.Int(0)
+					v[k] = quantity.RatInt(0)
 				}
-				v[c.vars[0]], v[c.vars[1]] = exact.Int(-1), exact.Int(1)
+				v[c.vars[0]], v[c.vars[1]] = quantity.RatInt(-1), quantity.RatInt(1)
 				l := s.groupLaw(v)
 				r.Ratios = append(r.Ratios, Outcome{Label: "ν_m/ν_p", Ratio: Ratio{Law: l, Value: l.Eval(s.values)}, One: l.IsOne()})
 			}
@@ -576,12 +576,12 @@ func joinAnd(s []string) string {
 func (s *Solution) outcome(i int) Outcome {
 	l := lawOf(s.coef[i], s.params)
 	sym := s.plan.vars[i].Symbol
-	isParam := len(l.Terms) == 1 && l.Terms[0].Symbol == sym && l.Terms[0].Exp == exact.Int(1)
+	isParam := len(l.Terms) == 1 && l.Terms[0].Symbol == sym && l.Terms[0].Exp == quantity.RatInt(1)
 	return Outcome{Label: "λ_" + sym, Ratio: Ratio{Law: l, Value: l.Eval(s.values)}, One: l.IsOne(), Free: isParam && math.IsNaN(l.Eval(s.values))}
 }
 
 // groupLaw returns the law of the ratio of ∏ xᵢ^eᵢ.
-func (s *Solution) groupLaw(exps exact.Vec) Law {
+func (s *Solution) groupLaw(exps []quantity.Rat) Law {
 	if len(exps) != len(s.coef) {
 		return Law{}
 	}
@@ -704,20 +704,20 @@ func (s *Solution) deriveBase() error {
 	s.bases = pl.prob.Bases()
 	r := len(basis)
 	// u_R = A_Rᵀ·w, so w = (A_Rᵀ)⁻¹·u_R, column by column over params.
-	at := exact.NewMatrix(r, len(s.bases))
+	at := exact.NewMatrix[quantity.Rat](r, len(s.bases))
 	for k, sym := range basis {
 		i := pl.index(sym)
 		for b, base := range s.bases {
-			at[k][b] = exact.Frac(int64(pl.vars[i].Dim.Sixths(base)), quantity.ExpDen)
+			at[k][b] = quantity.MustRat(int64(pl.vars[i].Dim.Sixths(base)), quantity.ExpDen)
 		}
 	}
 	np := len(s.params)
-	s.base = make([]exact.Vec, len(s.bases))
+	s.base = make([][]quantity.Rat, len(s.bases))
 	for b := range s.base {
-		s.base[b] = make(exact.Vec, np)
+		s.base[b] = make([]quantity.Rat, np)
 	}
 	for p := range np {
-		rhs := make(exact.Vec, r)
+		rhs := make([]quantity.Rat, r)
 		for k, sym := range basis {
 			rhs[k] = s.coef[pl.index(sym)][p]
 		}
@@ -742,9 +742,9 @@ func (s *Solution) DerivedRatio(d quantity.Dim) (Ratio, error) {
 	if s.base == nil {
 		return Ratio{}, &PlanError{Reason: "no basis for derived ratios"}
 	}
-	exps := make([]exact.Rat, len(s.bases))
+	exps := make([]quantity.Rat, len(s.bases))
 	for b, base := range s.bases {
-		exps[b] = exact.Frac(int64(d.Sixths(base)), quantity.ExpDen)
+		exps[b] = quantity.MustRat(int64(d.Sixths(base)), quantity.ExpDen)
 	}
 	for base := quantity.Base(0); base < quantity.NumBases; base++ {
 		if d.Sixths(base) != 0 && !slices.Contains(s.bases, base) {

@@ -8,7 +8,6 @@ import (
 
 	"github.com/google/go-cmp/cmp"
 
-	"similis.dev/similis/internal/exact"
 	"similis.dev/similis/pigroups"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
@@ -32,15 +31,15 @@ func shipProblem() *pigroups.Problem {
 //     1/64.
 func TestRemedyStatesNamedGroup(t *testing.T) {
 	p := shipProblem()
-	h := exact.Frac(1, 2)
-	frForms := []map[string]exact.Rat{
-		{"V": exact.Int(2), "g": exact.Int(-1), "L": exact.Int(-1)}, // Fr²
-		{"V": exact.Int(-2), "g": exact.Int(1), "L": exact.Int(1)},  // L·g/V² = 1/Fr²
-		{"V": exact.Int(1), "g": h.Neg(), "L": h.Neg()},             // Fr
+	h := q.MustRat(1, 2)
+	frForms := []map[string]q.Rat{
+		{"V": q.RatInt(2), "g": q.RatInt(-1), "L": q.RatInt(-1)}, // Fr²
+		{"V": q.RatInt(-2), "g": q.RatInt(1), "L": q.RatInt(1)},  // L·g/V² = 1/Fr²
+		{"V": q.RatInt(1), "g": h.Neg(), "L": h.Neg()},           // Fr
 	}
-	reForms := []map[string]exact.Rat{
-		{"rho": exact.Int(1), "V": exact.Int(1), "L": exact.Int(1), "mu": exact.Int(-1)},   // Re
-		{"rho": exact.Int(-1), "V": exact.Int(-1), "L": exact.Int(-1), "mu": exact.Int(1)}, // 1/Re
+	reForms := []map[string]q.Rat{
+		{"rho": q.RatInt(1), "V": q.RatInt(1), "L": q.RatInt(1), "mu": q.RatInt(-1)},   // Re
+		{"rho": q.RatInt(-1), "V": q.RatInt(-1), "L": q.RatInt(-1), "mu": q.RatInt(1)}, // 1/Re
 	}
 	for k := range frForms {
 		fr, err := p.NewGroup("Πa", frForms[k])
@@ -67,11 +66,11 @@ func TestRemedyStatesNamedGroup(t *testing.T) {
 			}
 		}
 		frR, reR := got["Fr"], got["Re"]
-		if frR.Ratio.Law.Exponent("L") != exact.Frac(-3, 2) || math.Abs(frR.Ratio.Value-64) > 1e-9 ||
-			frR.Whole != "Fr²" || frR.WholeRatio.Law.Exponent("L") != exact.Int(-3) || math.Abs(frR.WholeRatio.Value-4096) > 1e-6 {
+		if frR.Ratio.Law.Exponent("L") != q.MustRat(-3, 2) || math.Abs(frR.Ratio.Value-64) > 1e-9 ||
+			frR.Whole != "Fr²" || frR.WholeRatio.Law.Exponent("L") != q.RatInt(-3) || math.Abs(frR.WholeRatio.Value-4096) > 1e-6 {
 			t.Errorf("repeating %v (held %s): Fr remedy %+v", rep, fr, frR)
 		}
-		if reR.Ratio.Law.Exponent("L") != exact.Frac(3, 2) || math.Abs(reR.Ratio.Value-1.0/64) > 1e-12 || reR.Whole != "" {
+		if reR.Ratio.Law.Exponent("L") != q.MustRat(3, 2) || math.Abs(reR.Ratio.Value-1.0/64) > 1e-12 || reR.Whole != "" {
 			t.Errorf("repeating %v (held %s): Re remedy %+v", rep, re, reR)
 		}
 	}
@@ -123,7 +122,7 @@ func TestForeignGroupRefused(t *testing.T) {
 
 func mustGroup(t *testing.T, p *pigroups.Problem, v, g, l string) pigroups.Group {
 	t.Helper()
-	gr, err := p.NewGroup("Fr²", map[string]exact.Rat{v: exact.Int(2), g: exact.Int(-1), l: exact.Int(-1)})
+	gr, err := p.NewGroup("Fr²", map[string]q.Rat{v: q.RatInt(2), g: q.RatInt(-1), l: q.RatInt(-1)})
 	if err != nil {
 		t.Fatal(err)
 	}

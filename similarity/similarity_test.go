@@ -8,14 +8,13 @@ import (
 
 	"github.com/google/go-cmp/cmp"
 
-	"similis.dev/similis/internal/exact"
 	"similis.dev/similis/pigroups"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
 )
 
-func lawExp(t *testing.T, r similarity.Ratio, sym string) exact.Rat {
+func lawExp(t *testing.T, r similarity.Ratio, sym string) q.Rat {
 	t.Helper()
 	return r.Law.Exponent(sym)
 }
@@ -31,15 +30,15 @@ func TestFroudeLaws(t *testing.T) {
 	cases := []struct {
 		name string
 		d    q.Dim
-		exp  exact.Rat
+		exp  q.Rat
 	}{
-		{"velocity", q.Velocity, exact.Frac(1, 2)},
-		{"time", q.Time, exact.Frac(1, 2)},
-		{"force", q.Force, exact.Int(3)},
-		{"power", q.Power, exact.Frac(7, 2)},
-		{"discharge", q.VolumeFlowRate, exact.Frac(5, 2)},
-		{"pressure", q.Pressure, exact.Int(1)},
-		{"frequency", q.Frequency, exact.Frac(-1, 2)},
+		{"velocity", q.Velocity, q.MustRat(1, 2)},
+		{"time", q.Time, q.MustRat(1, 2)},
+		{"force", q.Force, q.RatInt(3)},
+		{"power", q.Power, q.MustRat(7, 2)},
+		{"discharge", q.VolumeFlowRate, q.MustRat(5, 2)},
+		{"pressure", q.Pressure, q.RatInt(1)},
+		{"frequency", q.Frequency, q.MustRat(-1, 2)},
 	}
 	for _, c := range cases {
 		r, err := s.DerivedRatio(c.d)
@@ -71,7 +70,7 @@ func TestReynoldsMachLaws(t *testing.T) {
 		t.Fatal(err)
 	}
 	r, _ := s.Ratio("V")
-	if r.Law.Exponent("L") != exact.Int(-1) || r.Law.Exponent("nu") != exact.Int(1) || math.Abs(r.Value-10) > 1e-12 {
+	if r.Law.Exponent("L") != q.RatInt(-1) || r.Law.Exponent("nu") != q.RatInt(1) || math.Abs(r.Value-10) > 1e-12 {
 		t.Errorf("Reynolds λ_V = %s", r)
 	}
 	m, err := similarity.Mach(0.05, 0.9, 3)

@@ -1,6 +1,9 @@
-// Package exact provides the exact rational arithmetic and linear algebra
-// shared by pigroups and similarity: small matrices of fractions with
-// int64 numerators and denominators, eliminated without any floating
-// tolerance. Every operation checks for overflow and reports it as
-// ErrOverflow, so a result is either exact or refused.
+// Package exact holds the exact algorithms shared by pigroups and
+// similarity: elimination, rank, null space and solution of small
+// matrices over an exact number type (quantity.Rat, through the Field
+// constraint), and fraction-free Gauss–Jordan elimination of int64
+// matrices, with the overflow-checked int64 arithmetic they rest on. No
+// floating tolerance is used; an overflow is an error, so a result is
+// either exact or refused. It holds algorithms only: its types never
+// appear in an exported signature of the module.
 package exact

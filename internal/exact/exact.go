@@ -4,29 +4,32 @@ import (
 	"errors"
 	"math"
 	"math/bits"
-	"strconv"
 )
 
-// ErrOverflow reports a numerator or denominator that would not fit in
-// an int64.
-var ErrOverflow = errors.New("exact: rational overflow")
+// ErrOverflow reports an integer elimination whose entries would not fit
+// in an int64.
+var ErrOverflow = errors.New("exact: integer overflow")
 
-// Rat is a fraction Num/Den in lowest terms with Den > 0. The zero value
-// is 0.
-type Rat struct {
-	Num, Den int64
+// Field is what the rational algorithms need of an exact number type:
+// its zero value is zero, and arithmetic reports overflow as an error.
+type Field[T any] interface {
+	Add(T) (T, error)
+	Sub(T) (T, error)
+	Mul(T) (T, error)
+	Div(T) (T, error)
+	Neg() T
+	IsZero() bool
 }
 
-// Int returns the rational n/1.
-func Int(n int64) Rat { return Rat{n, 1} }
+// GCD returns the greatest common divisor of |a| and |b| (0 for two
+// zeros).
+func GCD(a, b int64) int64 { return gcd(a, b) }
 
-// Frac returns n/d in lowest terms. It panics if d is 0.
-func Frac(n, d int64) Rat {
-	if d == 0 {
-		panic("exact: zero denominator")
-	}
-	return norm(n, d)
-}
+// Mul64 returns a·b and whether it fits in an int64.
+func Mul64(a, b int64) (int64, bool) { return mul64(a, b) }
+
+// Add64 returns a+b and whether it fits in an int64.
+func Add64(a, b int64) (int64, bool) { return add64(a, b) }
 
 // gcd is Stein's binary algorithm, which avoids the slow 64-bit
 // division; the small entries of dimensional matrices make it short.
@@ -55,27 +58,6 @@ func uabs(a int64) uint64 {
 		return uint64(-a)
 	}
 	return uint64(a)
-}
-
-func norm(n, d int64) Rat {
-	if n == 0 {
-		return Rat{0, 1}
-	}
-	if d == 1 {
-		return Rat{n, 1}
-	}
-	if d < 0 {
-		n, d = -n, -d
-	}
-	g := gcd(n, d)
-	return Rat{n / g, d / g}
-}
-
-func (r Rat) den() int64 {
-	if r.Den == 0 {
-		return 1
-	}
-	return r.Den
 }
 
 func mul64(a, b int64) (int64, bool) {
@@ -108,143 +90,25 @@ func add64(a, b int64) (int64, bool) {
 	return s, true
 }
 
-// Add returns r+s.
-func (r Rat) Add(s Rat) (Rat, error) {
-	rd, sd := r.den(), s.den()
-	if rd == 1 && sd == 1 {
-		n, ok := add64(r.Num, s.Num)
-		if !ok {
-			return Rat{}, ErrOverflow
-		}
-		return Rat{n, 1}, nil
-	}
-	g := gcd(rd, sd)
-	a, ok1 := mul64(r.Num, sd/g)
-	b, ok2 := mul64(s.Num, rd/g)
-	d, ok3 := mul64(rd, sd/g)
-	if !ok1 || !ok2 || !ok3 {
-		return Rat{}, ErrOverflow
-	}
-	n, ok := add64(a, b)
-	if !ok {
-		return Rat{}, ErrOverflow
-	}
-	return norm(n, d), nil
-}
-
-// Sub returns r−s.
-func (r Rat) Sub(s Rat) (Rat, error) { return r.Add(s.Neg()) }
-
-// Mul returns r·s.
-func (r Rat) Mul(s Rat) (Rat, error) {
-	if r.Num == 0 || s.Num == 0 {
-		return Rat{0, 1}, nil
-	}
-	if r.den() == 1 && s.den() == 1 {
-		n, ok := mul64(r.Num, s.Num)
-		if !ok {
-			return Rat{}, ErrOverflow
-		}
-		return Rat{n, 1}, nil
-	}
-	g1, g2 := gcd(r.Num, s.den()), gcd(s.Num, r.den())
-	if g1 == 0 {
-		g1 = 1
-	}
-	if g2 == 0 {
-		g2 = 1
-	}
-	n, ok1 := mul64(r.Num/g1, s.Num/g2)
-	d, ok2 := mul64(r.den()/g2, s.den()/g1)
-	if !ok1 || !ok2 {
-		return Rat{}, ErrOverflow
-	}
-	return norm(n, d), nil
-}
-
-// Div returns r/s. It panics if s is zero.
-func (r Rat) Div(s Rat) (Rat, error) {
-	if s.Num == 0 {
-		panic("exact: division by zero")
-	}
-	return r.Mul(Rat{s.den(), s.Num}.normed())
-}
-
-func (r Rat) normed() Rat { return norm(r.Num, r.Den) }
-
-// Neg returns −r.
-func (r Rat) Neg() Rat { return Rat{-r.Num, r.den()} }
-
-// IsZero reports whether r is 0.
-func (r Rat) IsZero() bool { return r.Num == 0 }
-
-// IsInt reports whether r is a whole number.
-func (r Rat) IsInt() bool { return r.den() == 1 }
-
-// Sign returns −1, 0 or +1.
-func (r Rat) Sign() int {
-	switch {
-	case r.Num < 0:
-		return -1
-	case r.Num > 0:
-		return 1
-	}
-	return 0
-}
-
-// Cmp compares r and s.
-func (r Rat) Cmp(s Rat) int {
-	d, err := r.Sub(s)
-	if err != nil {
-		// Fall back to floating comparison; exact enough for ordering.
-		a, b := r.Float(), s.Float()
-		switch {
-		case a < b:
-			return -1
-		case a > b:
-			return 1
-		}
-		return 0
-	}
-	return d.Sign()
-}
-
-// Float returns r as the nearest float64.
-func (r Rat) Float() float64 { return float64(r.Num) / float64(r.den()) }
-
-// String returns "n" or "n/d".
-func (r Rat) String() string {
-	if r.den() == 1 {
-		return strconv.FormatInt(r.Num, 10)
-	}
-	return strconv.FormatInt(r.Num, 10) + "/" + strconv.FormatInt(r.den(), 10)
-}
-
-// Vec is a vector of rationals.
-type Vec []Rat
-
-// Matrix is a dense matrix of rationals, stored by rows.
-type Matrix [][]Rat
+// Matrix is a dense matrix of exact numbers, stored by rows.
+type Matrix[T Field[T]] [][]T
 
 // NewMatrix returns a rows×cols zero matrix.
-func NewMatrix(rows, cols int) Matrix {
-	m := make(Matrix, rows)
-	cells := make([]Rat, rows*cols)
+func NewMatrix[T Field[T]](rows, cols int) Matrix[T] {
+	m := make(Matrix[T], rows)
+	cells := make([]T, rows*cols)
 	for i := range m {
 		m[i] = cells[i*cols : (i+1)*cols : (i+1)*cols]
-		for j := range m[i] {
-			m[i][j] = Rat{0, 1}
-		}
 	}
 	return m
 }
 
 // Clone returns a deep copy of m.
-func (m Matrix) Clone() Matrix {
+func (m Matrix[T]) Clone() Matrix[T] {
 	if len(m) == 0 {
-		return Matrix{}
+		return Matrix[T]{}
 	}
-	c := NewMatrix(len(m), len(m[0]))
+	c := NewMatrix[T](len(m), len(m[0]))
 	for i := range m {
 		copy(c[i], m[i])
 	}
@@ -252,7 +116,7 @@ func (m Matrix) Clone() Matrix {
 }
 
 // Cols returns the number of columns.
-func (m Matrix) Cols() int {
+func (m Matrix[T]) Cols() int {
 	if len(m) == 0 {
 		return 0
 	}
@@ -261,7 +125,7 @@ func (m Matrix) Cols() int {
 
 // RREF reduces m in place to reduced row echelon form and returns the
 // pivot column of each nonzero row, in order; their number is the rank.
-func (m Matrix) RREF() (pivots []int, err error) {
+func (m Matrix[T]) RREF() (pivots []int, err error) {
 	rows, cols := len(m), m.Cols()
 	r := 0
 	for c := 0; c < cols && r < rows; c++ {
@@ -304,14 +168,14 @@ func (m Matrix) RREF() (pivots []int, err error) {
 }
 
 // Rank returns the rank of m, leaving m unchanged.
-func (m Matrix) Rank() (int, error) {
+func (m Matrix[T]) Rank() (int, error) {
 	p, err := m.Clone().RREF()
 	return len(p), err
 }
 
 // NullSpace returns a basis of the right null space of m, one vector per
-// free column, each with a 1 in its free column.
-func (m Matrix) NullSpace() ([]Vec, error) {
+// free column, each with one (the value given) in its free column.
+func (m Matrix[T]) NullSpace(one T) ([][]T, error) {
 	r := m.Clone()
 	pivots, err := r.RREF()
 	if err != nil {
@@ -322,16 +186,13 @@ func (m Matrix) NullSpace() ([]Vec, error) {
 	for _, c := range pivots {
 		isPivot[c] = true
 	}
-	var basis []Vec
+	var basis [][]T
 	for f := 0; f < cols; f++ {
 		if isPivot[f] {
 			continue
 		}
-		v := make(Vec, cols)
-		for j := range v {
-			v[j] = Rat{0, 1}
-		}
-		v[f] = Int(1)
+		v := make([]T, cols)
+		v[f] = one
 		for i, c := range pivots {
 			v[c] = r[i][f].Neg()
 		}
@@ -341,8 +202,8 @@ func (m Matrix) NullSpace() ([]Vec, error) {
 }
 
 // Transpose returns mᵀ.
-func (m Matrix) Transpose() Matrix {
-	t := NewMatrix(m.Cols(), len(m))
+func (m Matrix[T]) Transpose() Matrix[T] {
+	t := NewMatrix[T](m.Cols(), len(m))
 	for i := range m {
 		for j := range m[i] {
 			t[j][i] = m[i][j]
@@ -354,9 +215,9 @@ func (m Matrix) Transpose() Matrix {
 // Solve returns x with A·x = b when the system is consistent; the
 // solution sets free variables to zero. It reports ok = false for an
 // inconsistent system.
-func Solve(a Matrix, b Vec) (x Vec, ok bool, err error) {
+func Solve[T Field[T]](a Matrix[T], b []T) (x []T, ok bool, err error) {
 	rows, cols := len(a), a.Cols()
-	aug := NewMatrix(rows, cols+1)
+	aug := NewMatrix[T](rows, cols+1)
 	for i := range a {
 		copy(aug[i], a[i])
 		aug[i][cols] = b[i]
@@ -370,55 +231,11 @@ func Solve(a Matrix, b Vec) (x Vec, ok bool, err error) {
 			return nil, false, nil
 		}
 	}
-	x = make(Vec, cols)
-	for j := range x {
-		x[j] = Rat{0, 1}
-	}
+	x = make([]T, cols)
 	for i, c := range pivots {
 		x[c] = aug[i][cols]
 	}
 	return x, true, nil
-}
-
-// Integers scales v by a positive rational so that its entries are
-// coprime integers, and returns the scaled vector and the factor used.
-func Integers(v Vec) (Vec, Rat, error) {
-	out := make(Vec, len(v))
-	f, err := IntegersTo(out, v)
-	return out, f, err
-}
-
-// IntegersTo is Integers writing into dst, which must have v's length
-// and may be v itself.
-func IntegersTo(dst, v Vec) (Rat, error) {
-	l := int64(1)
-	for _, x := range v {
-		d := x.den()
-		g := gcd(l, d)
-		var ok bool
-		if l, ok = mul64(l, d/g); !ok {
-			return Rat{}, ErrOverflow
-		}
-	}
-	out := dst
-	g := int64(0)
-	for i, x := range v {
-		n, ok := mul64(x.Num, l/x.den())
-		if !ok {
-			return Rat{}, ErrOverflow
-		}
-		out[i] = Int(n)
-		g = gcd(g, n)
-	}
-	if g > 1 {
-		for i := range out {
-			out[i] = Int(out[i].Num / g)
-		}
-	}
-	if g == 0 {
-		g = 1
-	}
-	return Frac(l, g), nil
 }
 
 // IntMatrix is a dense matrix of int64, for fraction-free elimination of
