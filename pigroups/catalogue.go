@@ -626,6 +626,9 @@ func (p *Problem) recognise(exps []quantity.Rat) []Match {
 			continue
 		}
 		if m, ok := p.matchForm(f, terms, exps); ok {
+			if out == nil {
+				out = make([]Match, 0, 2)
+			}
 			out = append(out, m)
 			last = f.named // one match per named group
 		}
@@ -675,20 +678,25 @@ func absCmp(a, b quantity.Rat) int {
 }
 
 // matchForm tries every assignment of the group's variables to the form's
-// factors, with one common power.
+// factors, with one common power, and keeps the one that assumes the
+// fewest kinds. The search works on fixed arrays and builds the Match
+// once, at the end.
 func (p *Problem) matchForm(f *compiledForm, terms []int, exps []quantity.Rat) (Match, bool) {
-	var used [16]bool
-	var assign [16]int
-	var best *Match
-	var rec func(k int, power quantity.Rat, havePower bool, assumed []string)
-	rec = func(k int, power quantity.Rat, havePower bool, assumed []string) {
+	var (
+		used, assumed, bestAssumed [16]bool
+		assign, bestAssign         [16]int // form term → variable
+		termOf, bestTermOf         [16]int // group variable k → form term
+		bestPower                  quantity.Rat
+		bestN                      = -1
+	)
+	var rec func(k int, power quantity.Rat, havePower bool, nAssumed int)
+	rec = func(k int, power quantity.Rat, havePower bool, nAssumed int) {
+		if bestN >= 0 && nAssumed >= bestN {
+			return // cannot improve
+		}
 		if k == len(terms) {
-			if best == nil || len(assumed) < len(best.Assumed) {
-				best = &Match{Named: *f.named, Power: power, Assumed: slices.Clone(assumed), rot: f.rot}
-				if f.proxy >= 0 {
-					best.Proxy = &ProxyUse{Symbol: p.vars[assign[f.proxy]].Symbol, Proxy: *f.form.Proxy}
-				}
-			}
+			bestN, bestPower = nAssumed, power
+			bestAssign, bestAssumed, bestTermOf = assign, assumed, termOf
 			return
 		}
 		i := terms[k]
@@ -705,18 +713,30 @@ func (p *Problem) matchForm(f *compiledForm, terms []int, exps []quantity.Rat) (
 			if err != nil || havePower && pw != power {
 				continue
 			}
-			used[fi], assign[fi] = true, i
-			a := assumed
+			used[fi], assign[fi], termOf[k], assumed[k] = true, i, fi, !explicit
+			n := nAssumed
 			if !explicit {
-				a = append(slices.Clone(assumed), v.Symbol+" as "+fp.kind)
+				n++
 			}
-			rec(k+1, pw, true, a)
+			rec(k+1, pw, true, n)
 			used[fi] = false
 		}
 	}
-	rec(0, quantity.Rat{}, false, nil)
-	if best == nil {
+	rec(0, quantity.Rat{}, false, 0)
+	if bestN < 0 {
 		return Match{}, false
 	}
-	return *best, true
+	m := Match{Named: *f.named, Power: bestPower, rot: f.rot}
+	if bestN > 0 {
+		m.Assumed = make([]string, 0, bestN)
+	}
+	for k, i := range terms {
+		if bestAssumed[k] {
+			m.Assumed = append(m.Assumed, p.vars[i].Symbol+" as "+f.terms[bestTermOf[k]].kind)
+		}
+	}
+	if f.proxy >= 0 {
+		m.Proxy = &ProxyUse{Symbol: p.vars[bestAssign[f.proxy]].Symbol, Proxy: *f.form.Proxy}
+	}
+	return m, true
 }
