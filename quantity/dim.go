@@ -45,15 +45,15 @@ func (b Base) Unit() string {
 	return baseUnit[b]
 }
 
-// ExpDen is the denominator in which Dim stores exponents: every exponent
+// expDen is the denominator in which Dim stores exponents: every exponent
 // is a whole number of sixths, which holds halves and thirds exactly.
-const ExpDen = 6
+const expDen = 6
 
 // MaxExp and MinExp bound the exponents a Dim can hold, in sixths:
 // from −128/6 = −21⅓ to 127/6 = 21⅙.
 const (
-	MaxExpSixths = 127
-	MinExpSixths = -128
+	maxExpSixths = 127
+	minExpSixths = -128
 )
 
 // Dim is a physical dimension: the product of the seven SI base
@@ -163,11 +163,11 @@ func sixths(num, den int) (int8, error) {
 	if den == 0 {
 		return 0, &DimensionError{Op: "build a dimension", Detail: "exponent " + strconv.Itoa(num) + "/0 has a zero denominator"}
 	}
-	if (num*ExpDen)%den != 0 || num > 1<<20 || num < -(1<<20) {
+	if (num*expDen)%den != 0 || num > 1<<20 || num < -(1<<20) {
 		return 0, &DimensionError{Op: "build a dimension", Detail: "exponent " + ratString(num, den) + " is not a whole number of sixths"}
 	}
-	s := num * ExpDen / den
-	if s > MaxExpSixths || s < MinExpSixths {
+	s := num * expDen / den
+	if s > maxExpSixths || s < minExpSixths {
 		return 0, &DimensionError{Op: "build a dimension", Detail: "exponent " + ratString(num, den) + " is outside −21⅓ … 21⅙"}
 	}
 	return int8(s), nil
@@ -229,7 +229,7 @@ func (d Dim) Pow(num, den int) (Dim, error) {
 			return Dim{}, &DimensionError{Op: "raise %s to the power " + ratString(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " would not be a whole number of sixths"}
 		}
 		e /= int64(den)
-		if e > MaxExpSixths || e < MinExpSixths {
+		if e > maxExpSixths || e < minExpSixths {
 			return Dim{}, &DimensionError{Op: "raise %s to the power " + ratString(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " overflows"}
 		}
 		out[b] = int8(e)

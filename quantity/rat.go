@@ -294,7 +294,7 @@ func (d Dim) Exponent(b Base) Rat {
 	if b >= NumBases {
 		return Rat{}
 	}
-	return norm(int64(d.lane(b)), ExpDen)
+	return norm(int64(d.lane(b)), expDen)
 }
 
 // Coprime scales the exponent vector v by a positive rational so that its

@@ -1,141 +1,22 @@
 package units
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"strconv"
 	"strings"
 	"sync"
-	"sync/atomic"
 	"unicode"
 	"unicode/utf8"
 
 	"similis.dev/similis/quantity"
 )
 
-// Reasons a unit expression is refused; a *ParseError wraps one of them,
-// so errors.Is(err, ErrUnknownSymbol) and the like work.
-var (
-	ErrEmpty         = errors.New("empty expression")
-	ErrSyntax        = errors.New("syntax error")
-	ErrUnknownSymbol = errors.New("unknown unit symbol")
-	ErrDangling      = errors.New("dangling operator")
-	ErrParen         = errors.New("unbalanced parenthesis")
-	ErrExponent      = errors.New("bad exponent")
-	ErrTooDeep       = errors.New("nesting too deep")
-	ErrTooLong       = errors.New("expression too long")
-	ErrAmbiguous     = errors.New("ambiguous expression")
-	ErrNumber        = errors.New("bad number")
-	ErrDimension     = errors.New("dimension out of range")
-)
-
-// Limits that bound the parser's work for any input.
-const (
-	MaxExprLen  = 512 // bytes in an expression
-	MaxDepth    = 16  // nested parentheses
-	MaxExpAbs   = 24  // largest |exponent| numerator
-	MaxExpDen   = 12  // largest exponent denominator
-	maxNumLen   = 40  // bytes in a numeric factor
-	maxCacheLen = 8192
-)
-
-// ParseError reports a unit expression that cannot be read: where, and
-// why. Err is one of the Err… values above.
-type ParseError struct {
-	Expr    string   // the expression given
-	Offset  int      // byte offset of the problem
-	Err     error    // the class of problem, for errors.Is
-	Reason  string   // what exactly is wrong
-	Symbol  string   // the offending symbol, if any
-	Suggest []string // nearest known spellings, for an unknown symbol
-}
-
-// Error implements the error interface.
-func (e *ParseError) Error() string {
-	var sb strings.Builder
-	fmt.Fprintf(&sb, "units: %q: at offset %d: %v", e.Expr, e.Offset, e.Err)
-	if e.Reason != "" {
-		sb.WriteString(": ")
-		sb.WriteString(e.Reason)
-	}
-	if len(e.Suggest) > 0 {
-		sb.WriteString(" (did you mean ")
-		for i, s := range e.Suggest {
-			if i > 0 {
-				if i == len(e.Suggest)-1 {
-					sb.WriteString(" or ")
-				} else {
-					sb.WriteString(", ")
-				}
-			}
-			sb.WriteString(strconv.Quote(s))
-		}
-		sb.WriteString("?)")
-	}
-	return sb.String()
-}
-
-// Unwrap returns the class of the problem.
-func (e *ParseError) Unwrap() error { return e.Err }
-
 // symbolTable resolves unit symbols.
 type symbolTable interface {
 	lookup(sym string) (*entry, bool)
 	spellings() []string
 }
-
-// lookupIn resolves a symbol in the built-in index: an exact spelling,
-// or an SI prefix on a unit that takes one (precomputed at start-up).
-func lookupIn(idx *tableIndex, sym string) (*entry, bool) {
-	if e, ok := idx.bySym[sym]; ok {
-		return e, true
-	}
-	e, ok := idx.prefixed[sym]
-	return e, ok
-}
-
-// prefixedEntry returns the entry for prefix p on base.
-func prefixedEntry(p prefix, base *entry) *entry {
-	e := *base
-	e.u.factor = applyPrefix(base.u.factor, p.exp)
-	e.u.sym = p.ascii + base.u.sym
-	e.uni = p.uni + base.uni
-	if rest, ok := strings.CutPrefix(base.tex, `\mathrm{`); ok && p.ascii != "u" {
-		e.tex = `\mathrm{` + p.ascii + rest
-	} else {
-		e.tex = p.tex + base.tex
-	}
-	e.prefixable = false
-	return &e
-}
-
-// applyPrefix returns f·10^e, dividing by an exact power of ten for
-// negative e so that, for example, centistokes is 1e-6 m²/s to the last
-// bit.
-func applyPrefix(f float64, e int) float64 {
-	if e >= 0 {
-		return f * math.Pow10(e)
-	}
-	if e >= -22 {
-		return f / math.Pow10(-e)
-	}
-	return f / 1e22 / math.Pow10(-e-22)
-}
-
-var prefixSpellingTable = func() map[string][]string {
-	m := make(map[string][]string)
-	for _, p := range prefixes {
-		if p.ascii == "u" {
-			m[p.ascii] = microSpellings
-		} else {
-			m[p.ascii] = []string{p.ascii}
-		}
-	}
-	return m
-}()
-
-func prefixSpellings(p prefix) []string { return prefixSpellingTable[p.ascii] }
 
 type builtinTable struct{}
 
@@ -185,57 +66,6 @@ func (p *parser) fail(at int, kind error, reason string) *ParseError {
 
 // parserPool recycles parsers and their term storage.
 var parserPool = sync.Pool{New: func() any { return &parser{terms: make(terms, 0, 16)} }}
-
-// cache holds parsed expressions of the built-in table.
-var (
-	cache    sync.Map // string → Unit
-	cacheLen atomic.Int64
-)
-
-// Parse reads a unit expression with the built-in table.
-//
-// Grammar: factors are unit symbols (with an SI prefix where the SI allows
-// one), positive numbers, or parenthesised expressions, each optionally
-// raised to a power. A space, '*', '·' or '⋅' is a product; '/' divides by
-// the next factor and applies left to right, so kg/m/s is kg/(m·s). A
-// product written after a division without parentheses (W/m·K) is refused
-// as ambiguous: write W/(m·K). Exponents are integers ("m^2", "s^-1",
-// "m**2"), Unicode superscripts ("m²", "s⁻¹"), fractions in parentheses
-// ("m^(1/2)") or decimals equal to simple fractions ("in^0.5").
-//
-// A temperature scale written alone (°C, degF) is a scale and converts
-// levels affinely; inside a compound unit (W/(m·°C)) it denotes its degree
-// as an interval, as engineering data sheets mean it (common practice).
-// Δ°C, ΔdegF (ASCII degC_diff) spell temperature differences explicitly.
-//
-// Errors are *ParseError values. Parse never panics and its work is
-// bounded by MaxExprLen and MaxDepth. Results are cached, so parsing the
-// same expression again is a map lookup.
-func Parse(expr string) (Unit, error) {
-	if u, ok := cache.Load(expr); ok {
-		return u.(Unit), nil
-	}
-	u, err := parseWith(builtinTable{}, expr)
-	if err != nil {
-		return Unit{}, err
-	}
-	if cacheLen.Load() < maxCacheLen {
-		if _, loaded := cache.LoadOrStore(expr, u); !loaded {
-			cacheLen.Add(1)
-		}
-	}
-	return u, nil
-}
-
-// MustParse is like Parse but panics on error. It is meant for
-// package-level declarations of units written in code.
-func MustParse(expr string) Unit {
-	u, err := Parse(expr)
-	if err != nil {
-		panic(err)
-	}
-	return u
-}
 
 func parseWith(tab symbolTable, expr string) (Unit, error) {
 	if len(expr) > MaxExprLen {
@@ -770,8 +600,3 @@ func ratText(n, d int) string {
 	}
 	return strconv.Itoa(n) + "/" + strconv.Itoa(d)
 }
-
-// ParseUncached is Parse without the cache: it always parses expr afresh.
-// It exists for measurement and for callers that parse many distinct
-// one-off expressions and do not want them kept.
-func ParseUncached(expr string) (Unit, error) { return parseWith(builtinTable{}, expr) }

@@ -1,0 +1,222 @@
+package pigroups
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"slices"
+	"strings"
+
+	"similis.dev/similis/quantity"
+)
+
+// Group is one dimensionless group: a product of powers of the problem's
+// variables with exact, coprime integer exponents.
+type Group struct {
+	// Name is Π₁, Π₂, … in the set's order.
+	Name string
+	// Var is the index of the variable the group was built for (the
+	// non-repeating one), whose exponent is positive.
+	Var  int
+	exps []quantity.Rat
+	// Matches lists the named groups this one is recognised as, best
+	// first; empty when it has no name.
+	Matches []Match
+	prob    *Problem
+	// coef·(2π)^twoPi is a numerical factor the group carries (a
+	// coefficient's ½ or its rev/s conversion, see Coefficient); the zero
+	// coef means 1, as for every group of a Pi set.
+	coef  quantity.Rat
+	twoPi int
+}
+
+// Factor returns the numerical factor the group carries in front of its
+// product of powers: 1 for a Pi set's groups, 2 for a drag coefficient
+// written as C_D = 2·F/(ρ·V²·A), 4π² for K_T with a rotational speed held
+// in rad/s.
+func (g Group) Factor() float64 {
+	if g.coef.IsZero() {
+		return 1
+	}
+	return g.coef.Float() * math.Pow(2*math.Pi, float64(g.twoPi))
+}
+
+func (g Group) factorText() string {
+	if g.coef.IsZero() {
+		return ""
+	}
+	return factorText(g.coef, g.twoPi)
+}
+
+// ErrNotExact is wrapped by the error of Coefficient for a group that is
+// not a power of a named group up to a known factor.
+var ErrNotExact = errors.New("not exactly a named group")
+
+// Coefficient returns the named group the group is recognised as, in the
+// trade's own definition, numerical factor and rotational-speed
+// convention included, so that evaluating it gives the number a report
+// labels with the symbol: for T/(ρ·ω²·D⁴) it returns K_T = 4π²·T/(ρ·ω²·D⁴)
+// (n = ω/2π in rev/s), for F/(ρ·V²·A) C_D = 2·F/(ρ·V²·A), and for
+// V²/(g·L) Fr = (V²/(g·L))^(1/2). Its Name is the named group's symbol.
+// A group with no name, or one only proportional to its name (L² in
+// place of a reference area), returns an error wrapping ErrNotExact that
+// says why.
+func (g Group) Coefficient() (Group, error) {
+	if len(g.Matches) == 0 {
+		return Group{}, fmt.Errorf("pigroups: %s = %s: %w: it has no name", g.Name, g, ErrNotExact)
+	}
+	m := g.Matches[0]
+	if !m.Exact() {
+		return Group{}, fmt.Errorf("pigroups: %s = %s: %w: it is %s", g.Name, g, ErrNotExact, m.describe(g.Name))
+	}
+	exps := make([]quantity.Rat, len(g.exps))
+	for i, e := range g.exps {
+		x, err := e.Div(m.Power)
+		if err != nil {
+			return Group{}, err
+		}
+		exps[i] = x
+	}
+	c := m.Coef
+	if c.IsZero() {
+		c = quantity.RatInt(1)
+	}
+	out := Group{Name: m.Symbol, Var: g.Var, exps: exps, prob: g.prob, coef: c, twoPi: m.TwoPiPower()}
+	out.Matches = g.prob.recognise(exps)
+	return out, nil
+}
+
+// Problem returns the problem whose variables the group's exponents
+// refer to.
+func (g Group) Problem() *Problem { return g.prob }
+
+// Exponents returns the exponent of each variable, in variable order.
+func (g Group) Exponents() []quantity.Rat { return slices.Clone(g.exps) }
+
+// Exponent returns the exponent of the variable with the given symbol;
+// a symbol that is not a variable of the group's problem (and any symbol
+// for the zero Group) is an error wrapping ErrUnknownVariable.
+func (g Group) Exponent(symbol string) (quantity.Rat, error) {
+	if g.prob == nil {
+		return quantity.RatInt(0), &ProblemError{Err: ErrUnknownVariable, Symbol: symbol, Reason: "the zero Group has no variables"}
+	}
+	i, err := g.prob.Index(symbol)
+	if err != nil {
+		return quantity.RatInt(0), err
+	}
+	return g.exps[i], nil
+}
+
+// Dim returns the group's dimension, computed from its variables; it is
+// dimensionless for every group a Set holds. It reports an error if an
+// intermediate power cannot be held by a quantity.Dim.
+func (g Group) Dim() (quantity.Dim, error) {
+	var d quantity.Dim
+	for i, e := range g.exps {
+		if e.IsZero() {
+			continue
+		}
+		p, err := g.prob.vars[i].Dim.Pow(int(e.Num()), int(e.Den()))
+		if err != nil {
+			return quantity.Dim{}, err
+		}
+		if d, err = d.Mul(p); err != nil {
+			return quantity.Dim{}, err
+		}
+	}
+	return d, nil
+}
+
+// String writes the group in plain text: "mu/(rho*V*D)".
+func (g Group) String() string { return g.Format(Plain) }
+
+// Format writes the group in a style, its numerical factor first
+// ("4π²·T/(ρ·n²·D⁴)"); the zero Group is "(no group)".
+func (g Group) Format(style Style) string {
+	if g.prob == nil {
+		return "(no group)"
+	}
+	body := g.prob.FormatProduct(g.exps, style)
+	k := g.factorText()
+	if k == "" {
+		return body
+	}
+	if style != Unicode {
+		k = strings.NewReplacer("π", "pi", "²", "^2", "³", "^3").Replace(k)
+	}
+	sep := "*"
+	if style == Unicode {
+		sep = "·"
+	}
+	if style == LaTeX {
+		sep = " "
+		k = strings.ReplaceAll(k, "pi", `\pi`)
+	}
+	if strings.Contains(k, "/") {
+		k = "(" + k + ")"
+	}
+	return k + sep + body
+}
+
+// Label returns what the group's value is, in terms of the named group
+// it is recognised as: "Re", "1/Re", "Fr²", "C_D/2", "K_T/(4π²)", "∝C_D"
+// (see Match.Label), the bare symbol for a Coefficient, or its Π name
+// when it has no name.
+func (g Group) Label() string {
+	if len(g.Matches) == 0 {
+		return g.Name
+	}
+	m := g.Matches[0]
+	if !g.coef.IsZero() && m.Exact() && m.Power.Num() == 1 && m.Power.Den() == 1 && g.coef == m.Coef && g.twoPi == m.TwoPiPower() {
+		return m.Symbol
+	}
+	return m.Label()
+}
+
+// Describe writes what the group is in terms of its best named match,
+// naming the group in any equation ("∝C_D (proportional to the drag
+// coefficient; …: C_D = 2·Π₁·L²/A)"), or "" when it has no name.
+func (g Group) Describe() string {
+	if len(g.Matches) == 0 {
+		return ""
+	}
+	m := g.Matches[0]
+	if l := g.Label(); !g.coef.IsZero() && l == m.Symbol {
+		return l + " (" + m.Name + "; " + m.Definition + ")"
+	}
+	return m.describe(g.Name)
+}
+
+// Conventional returns the group in the orientation the trade writes its
+// named group in: the named group itself when that has whole exponents
+// (1/Re becomes Re), and otherwise the positive power with whole
+// exponents (1/Fr² becomes Fr², since Fr itself has the exponent 1/2). A
+// group with no name, or already in that form, is returned unchanged.
+func (g Group) Conventional() Group {
+	if len(g.Matches) == 0 {
+		return g
+	}
+	m := g.Matches[0]
+	if m.Power.Num() == 1 && m.Power.Den() == 1 {
+		return g
+	}
+	conv := make([]quantity.Rat, len(g.exps))
+	whole := true
+	for i, e := range g.exps {
+		x, err := e.Div(m.Power)
+		if err != nil || !x.IsInt() {
+			whole = false
+			break
+		}
+		conv[i] = x
+	}
+	if !whole {
+		if m.Power.Sign() > 0 {
+			return g
+		}
+		for i, e := range g.exps {
+			conv[i] = e.Neg()
+		}
+	}
+	return Group{Name: g.Name, Var: g.Var, exps: conv, prob: g.prob, Matches: g.prob.recognise(conv)}
+}

@@ -1,0 +1,137 @@
+package similarity
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strings"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/units"
+)
+
+// ErrUnknownRatio is returned by transfers whose ratio has no value.
+var ErrUnknownRatio = errors.New("the ratio depends on a free ratio with no value")
+
+func (s *Solution) ratioFor(d quantity.Dim) (float64, error) {
+	r, err := s.DerivedRatio(d)
+	if err != nil {
+		return 0, err
+	}
+	if math.IsNaN(r.Value) {
+		return 0, fmt.Errorf("similarity: %s: %w (%s; free: %s)", quantity.Describe(d), ErrUnknownRatio, r.Law, strings.Join(s.free, ", "))
+	}
+	return r.Value, nil
+}
+
+// ToPrototype carries a measured model quantity to full scale through the
+// ratio its dimension implies: q_p = q_m/λ.
+func (s *Solution) ToPrototype(q quantity.Quantity) (quantity.Quantity, error) {
+	r, err := s.ratioFor(q.Dim())
+	if err != nil {
+		return quantity.Quantity{}, err
+	}
+	return scaled(q, 1/r)
+}
+
+// scaled returns q·f, refusing a result that is not finite.
+func scaled(q quantity.Quantity, f float64) (quantity.Quantity, error) {
+	out := q.Scale(f)
+	if v := out.Value(); math.IsNaN(v) || math.IsInf(v, 0) {
+		return quantity.Quantity{}, &PlanError{Err: ErrBadRatio, Reason: fmt.Sprintf("%v scaled by %g is not finite", q, f)}
+	}
+	return out, nil
+}
+
+// ToModel carries a prototype quantity to the model: q_m = λ·q_p.
+func (s *Solution) ToModel(q quantity.Quantity) (quantity.Quantity, error) {
+	r, err := s.ratioFor(q.Dim())
+	if err != nil {
+		return quantity.Quantity{}, err
+	}
+	return scaled(q, r)
+}
+
+// SeriesToPrototype carries a whole measured Series to full scale into
+// dst, with one ratio and no allocation once dst has grown.
+func (s *Solution) SeriesToPrototype(dst *quantity.Series, m quantity.Series) error {
+	r, err := s.ratioFor(m.Dim())
+	if err != nil {
+		return err
+	}
+	dst.Scale(m, 1/r)
+	return nil
+}
+
+// SeriesToModel carries a prototype Series to the model into dst.
+func (s *Solution) SeriesToModel(dst *quantity.Series, p quantity.Series) error {
+	r, err := s.ratioFor(p.Dim())
+	if err != nil {
+		return err
+	}
+	dst.Scale(p, r)
+	return nil
+}
+
+// VariableToPrototype carries a model value of one of the plan's variables
+// through that variable's own ratio, which differs from the ratio of its
+// dimension when the plan scales two variables of one dimension apart (a
+// distorted model's horizontal and vertical lengths).
+func (s *Solution) VariableToPrototype(symbol string, q quantity.Quantity) (quantity.Quantity, error) {
+	i := s.plan.index(symbol)
+	if i < 0 {
+		return quantity.Quantity{}, unknownVar("to prototype", symbol, s.plan.vars)
+	}
+	if err := q.CheckNamed(symbol, s.plan.vars[i].Dim); err != nil {
+		return quantity.Quantity{}, err
+	}
+	r, err := s.Ratio(symbol)
+	if err != nil {
+		return quantity.Quantity{}, err
+	}
+	if math.IsNaN(r.Value) {
+		return quantity.Quantity{}, fmt.Errorf("similarity: λ_%s: %w (%s)", symbol, ErrUnknownRatio, r.Law)
+	}
+	return scaled(q, 1/r.Value)
+}
+
+// SetPoints turns a prototype operating point, given by variable symbol,
+// into model set points in the units chosen by symbol ("kn", "rpm",
+// "L/s"); variables without a unit are given in SI. Every variable of the
+// operating point must have a known ratio.
+func (s *Solution) SetPoints(prototype map[string]quantity.Quantity, unitOf map[string]string) (map[string]units.Value, error) {
+	out := make(map[string]units.Value, len(prototype))
+	for sym, q := range prototype {
+		i := s.plan.index(sym)
+		if i < 0 {
+			return nil, unknownVar("set points", sym, s.plan.vars)
+		}
+		if err := q.CheckNamed(sym, s.plan.vars[i].Dim); err != nil {
+			return nil, err
+		}
+		r, err := s.Ratio(sym)
+		if err != nil {
+			return nil, err
+		}
+		if math.IsNaN(r.Value) {
+			return nil, fmt.Errorf("similarity: set point for %s: %w (%s)", sym, ErrUnknownRatio, r.Law)
+		}
+		m, err := scaled(q, r.Value)
+		if err != nil {
+			return nil, err
+		}
+		u := units.BaseUnit(m.Dim())
+		if name, ok := unitOf[sym]; ok {
+			var err error
+			if u, err = units.Parse(name); err != nil {
+				return nil, fmt.Errorf("similarity: set point unit for %s: %w", sym, err)
+			}
+		}
+		v, err := u.ValueOf(m)
+		if err != nil {
+			return nil, err
+		}
+		out[sym] = units.Value{Number: v, Unit: u}
+	}
+	return out, nil
+}
