@@ -21,10 +21,29 @@
 //     extrapolation to full scale (ITTC-1957, Prohaska, Moody), condition
 //     finders and reports; similarity/fluids gives water, air and the
 //     ISO 2533 atmosphere.
-//   - internal/...: shared machinery such as exact rational linear algebra.
+//   - internal/exact: algorithms only — exact elimination, rank, null
+//     space, fraction-free integer elimination; no type of it appears in
+//     an exported signature.
 //   - examples/...: runnable programs on invented data.
 //
-// The layering runs one way: quantity ← units ← pigroups ← similarity.
+// # Layers and the one algebra
+//
+// Imports run one way, and a test (arch_test.go) fails on any other:
+//
+//	examples ──► similarity ──► pigroups ──► units ──► quantity
+//	                 │              │          │           │
+//	                 └──────────────┴──────────┴───────────┴──► internal/exact
+//	             (similarity/fluids sits beside similarity)
+//
+// One idea runs through all of them: a product of named factors raised
+// to exact rational powers. Its exponent is quantity.Rat, defined once in
+// the lowest layer. A dimension (quantity.Dim) is such a product over the
+// seven base dimensions; a unit (units.Unit) over unit symbols; a Pi
+// group (pigroups.Group) over a problem's variables, its exponents a null
+// vector of the dimensional matrix; a scale law (similarity.Law) over the
+// free scale ratios, solved from the held groups as linear equations in
+// log λ. The eliminations on those exponents are internal/exact's, done
+// once; floats carry measured values only.
 //
 // # Error model
 //

@@ -32,6 +32,11 @@
 //
 // # Data
 //
+// FitPowerLaw lives here, not in a general statistics layer, because what
+// it fits is the law between Pi groups, Π₀ = C·∏ Πₖ^aₖ, and what it
+// returns (exponents on groups, a range of validity in groups) is read
+// against a Set.
+//
 // An Evaluator computes the groups for one row of quantities or for whole
 // Series without allocating; FitPowerLaw fits Π₀ = C·∏ Πₖ^aₖ by least
 // squares on logarithms, with standard errors, confidence and prediction
