@@ -118,10 +118,10 @@ func (g Group) Dim() (quantity.Dim, error) {
 		}
 		p, err := g.prob.vars[i].Dim.Pow(int(e.Num()), int(e.Den()))
 		if err != nil {
-			return quantity.Dim{}, err
+			return quantity.Dimensionless, err
 		}
 		if d, err = d.Mul(p); err != nil {
-			return quantity.Dim{}, err
+			return quantity.Dimensionless, err
 		}
 	}
 	return d, nil

@@ -423,7 +423,7 @@ func (p *Problem) RankNote() string {
 		if err != nil {
 			return ""
 		}
-		d := quantity.Dim{}
+		d := quantity.Dimensionless
 		ok := true
 		for k, x := range iv {
 			if x.IsZero() {

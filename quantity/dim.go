@@ -65,16 +65,17 @@ const (
 //
 // Dim is a small comparable value: == compares dimensions and a Dim can be
 // a map key. The zero Dim is dimensionless (dimension one).
-type Dim struct {
-	// bits holds the exponents e₀…e₆ (in sixths, each in −128…127) as the
-	// integer Σ eₖ·2^(9k), modulo 2⁶⁴. The encoding is linear, so the
-	// dimension of a product is the sum of the encodings and of a quotient
-	// their difference; and it is one-to-one, so == compares dimensions.
-	bits uint64
-}
+//
+// The integer holds the exponents e₀…e₆ (in sixths, each in −128…127) as
+// Σ eₖ·2^(9k), modulo 2⁶⁴. The encoding is linear, so the dimension of a
+// product is the sum of the encodings and of a quotient their difference;
+// and it is one-to-one, so == compares dimensions. Build dimensions with
+// the kinds (Length, Pressure, …), NewDim, DimOf, ParseDim and the
+// methods; converting an arbitrary integer to a Dim is not meaningful.
+type Dim uint64
 
 // Dimensionless is the dimension one, the zero Dim.
-var Dimensionless Dim
+const Dimensionless Dim = 0
 
 const (
 	laneBits = 9
@@ -89,7 +90,7 @@ const (
 
 // lanes decodes the seven exponents, in sixths.
 func (d Dim) lanes() (e [NumBases]int8) {
-	u := d.bits + laneBias
+	u := uint64(d) + laneBias
 	for k := range e {
 		e[k] = int8(int((u>>(laneBits*k))&0x1ff) - 128)
 	}
@@ -101,34 +102,34 @@ func encode(e [NumBases]int8) Dim {
 	for k, v := range e {
 		x += uint64(int64(v) << (laneBits * k))
 	}
-	return Dim{x}
+	return Dim(x)
 }
 
 // lane decodes the exponent of base b, in sixths.
 func (d Dim) lane(b Base) int8 {
-	return int8(int(((d.bits+laneBias)>>(laneBits*uint(b)))&0x1ff) - 128)
+	return int8(int(((uint64(d)+laneBias)>>(laneBits*uint(b)))&0x1ff) - 128)
 }
 
 // add returns d+o lane-wise and whether every lane stayed in range.
 func (d Dim) add(o Dim) (Dim, bool) {
-	s := d.bits + o.bits
-	return Dim{s}, (s+laneBias)&laneGuard == 0
+	s := uint64(d) + uint64(o)
+	return Dim(s), (s+laneBias)&laneGuard == 0
 }
 
 // sub returns d−o lane-wise and whether every lane stayed in range.
 func (d Dim) sub(o Dim) (Dim, bool) {
-	s := d.bits - o.bits
-	return Dim{s}, (s+laneBias)&laneGuard == 0
+	s := uint64(d) - uint64(o)
+	return Dim(s), (s+laneBias)&laneGuard == 0
 }
 
 // DimOf returns the dimension of base b raised to num/den.
 func DimOf(b Base, num, den int) (Dim, error) {
 	if b >= NumBases {
-		return Dim{}, &DimensionError{Op: "build a dimension", Detail: "base " + strconv.Itoa(int(b)) + " does not exist"}
+		return Dim(0), &DimensionError{Op: "build a dimension", Detail: "base " + strconv.Itoa(int(b)) + " does not exist"}
 	}
 	s, err := sixths(num, den)
 	if err != nil {
-		return Dim{}, err
+		return Dim(0), err
 	}
 	var e [NumBases]int8
 	e[b] = s
@@ -142,7 +143,7 @@ func NewDim(l, m, t, i, th, n, j int) (Dim, error) {
 	for k, x := range [NumBases]int{l, m, t, i, th, n, j} {
 		s, err := sixths(x, 1)
 		if err != nil {
-			return Dim{}, err
+			return Dim(0), err
 		}
 		e[k] = s
 	}
@@ -187,13 +188,13 @@ func reduce(n, d int) (int, int) {
 }
 
 // IsDimensionless reports whether d is the dimension one.
-func (d Dim) IsDimensionless() bool { return d.bits == 0 }
+func (d Dim) IsDimensionless() bool { return d == 0 }
 
 // Mul returns the dimension of a product d·o.
 func (d Dim) Mul(o Dim) (Dim, error) {
 	r, ok := d.add(o)
 	if !ok {
-		return Dim{}, &DimensionError{Op: "multiply", Left: d, Right: o, Binary: true, Detail: "an exponent overflows"}
+		return Dim(0), &DimensionError{Op: "multiply", Left: d, Right: o, Binary: true, Detail: "an exponent overflows"}
 	}
 	return r, nil
 }
@@ -202,7 +203,7 @@ func (d Dim) Mul(o Dim) (Dim, error) {
 func (d Dim) Div(o Dim) (Dim, error) {
 	r, ok := d.sub(o)
 	if !ok {
-		return Dim{}, &DimensionError{Op: "divide", Left: d, Right: o, Binary: true, Detail: "an exponent overflows"}
+		return Dim(0), &DimensionError{Op: "divide", Left: d, Right: o, Binary: true, Detail: "an exponent overflows"}
 	}
 	return r, nil
 }
@@ -216,7 +217,7 @@ func (d Dim) Inv() (Dim, error) {
 // resulting exponent is not a whole number of sixths or is out of range.
 func (d Dim) Pow(num, den int) (Dim, error) {
 	if den == 0 {
-		return Dim{}, &DimensionError{Op: "raise %s to a power", Left: d, Detail: "exponent " + strconv.Itoa(num) + "/0 has a zero denominator"}
+		return Dim(0), &DimensionError{Op: "raise %s to a power", Left: d, Detail: "exponent " + strconv.Itoa(num) + "/0 has a zero denominator"}
 	}
 	if num == den {
 		return d, nil
@@ -226,11 +227,11 @@ func (d Dim) Pow(num, den int) (Dim, error) {
 	for b, v := range in {
 		e := int64(v) * int64(num)
 		if e%int64(den) != 0 {
-			return Dim{}, &DimensionError{Op: "raise %s to the power " + ratString(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " would not be a whole number of sixths"}
+			return Dim(0), &DimensionError{Op: "raise %s to the power " + ratString(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " would not be a whole number of sixths"}
 		}
 		e /= int64(den)
 		if e > maxExpSixths || e < minExpSixths {
-			return Dim{}, &DimensionError{Op: "raise %s to the power " + ratString(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " overflows"}
+			return Dim(0), &DimensionError{Op: "raise %s to the power " + ratString(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " overflows"}
 		}
 		out[b] = int8(e)
 	}
@@ -293,7 +294,7 @@ var (
 )
 
 func (d Dim) spell(sp spelling) string {
-	if d.bits == 0 {
+	if d == 0 {
 		return "1"
 	}
 	var sb strings.Builder

@@ -35,7 +35,7 @@ func (q Quantity) AppendText(b []byte) ([]byte, error) {
 		return b, &ParseError{Input: q.String(), Reason: "a value that is not finite has no text form"}
 	}
 	b = strconv.AppendFloat(b, q.v, 'g', -1, 64)
-	if q.d.bits != 0 {
+	if uint64(q.d) != 0 {
 		b = append(b, ' ')
 		b = append(b, q.d.SIUnit()...)
 	}

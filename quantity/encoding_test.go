@@ -13,7 +13,7 @@ import (
 )
 
 var (
-	_ encoding.TextAppender    = q.Dim{}
+	_ encoding.TextAppender    = q.Dimensionless
 	_ encoding.TextAppender    = q.Quantity{}
 	_ encoding.TextUnmarshaler = (*q.Dim)(nil)
 	_ encoding.TextUnmarshaler = (*q.Quantity)(nil)

@@ -80,7 +80,7 @@ func (e *DimensionError) Error() string {
 		sb.WriteString(after)
 	} else {
 		sb.WriteString(e.Op)
-		if e.Left != (Dim{}) || binary || e.Detail == "" {
+		if e.Left != Dim(0) || binary || e.Detail == "" {
 			sb.WriteByte(' ')
 			sb.WriteString(Describe(e.Left))
 		}

@@ -22,7 +22,7 @@ func (q Quantity) ASCII() string {
 
 func (q Quantity) text(unit string, verb byte, prec int) string {
 	s := strconv.FormatFloat(q.v, verb, prec, 64)
-	if q.d.bits == 0 {
+	if uint64(q.d) == 0 {
 		return s
 	}
 	return s + " " + unit
@@ -96,11 +96,11 @@ const maxDimText = 256
 // dimension one. Repeated factors multiply. It reports a *ParseError.
 func ParseDim(s string) (Dim, error) {
 	if len(s) > maxDimText {
-		return Dim{}, &ParseError{s, maxDimText, "text longer than 256 bytes"}
+		return Dim(0), &ParseError{s, maxDimText, "text longer than 256 bytes"}
 	}
 	t := strings.TrimSpace(s)
 	if t == "" || t == "1" {
-		return Dim{}, nil
+		return Dim(0), nil
 	}
 	var d Dim
 	i := 0
@@ -119,12 +119,12 @@ func ParseDim(s string) (Dim, error) {
 			i += n
 		}
 		if i == start {
-			return Dim{}, &ParseError{s, i, fmt.Sprintf("unexpected %q", r)}
+			return Dim(0), &ParseError{s, i, fmt.Sprintf("unexpected %q", r)}
 		}
 		sym := s[start:i]
 		b, ok := lookupBase(sym)
 		if !ok {
-			return Dim{}, &ParseError{s, start, fmt.Sprintf("unknown base symbol %q (want one of L M T I Θ N J or m kg s A K mol cd)", sym)}
+			return Dim(0), &ParseError{s, start, fmt.Sprintf("unknown base symbol %q (want one of L M T I Θ N J or m kg s A K mol cd)", sym)}
 		}
 		num, den := 1, 1
 		if i < len(s) {
@@ -132,16 +132,16 @@ func ParseDim(s string) (Dim, error) {
 			var used int
 			num, den, used, err = parseExponent(s, i)
 			if err != nil {
-				return Dim{}, err
+				return Dim(0), err
 			}
 			i += used
 		}
 		e, err := DimOf(b, num, den)
 		if err != nil {
-			return Dim{}, &ParseError{s, start, err.(*DimensionError).Detail}
+			return Dim(0), &ParseError{s, start, err.(*DimensionError).Detail}
 		}
 		if d, err = d.Mul(e); err != nil {
-			return Dim{}, &ParseError{s, start, "exponent of " + b.String() + " overflows"}
+			return Dim(0), &ParseError{s, start, "exponent of " + b.String() + " overflows"}
 		}
 	}
 	return d, nil

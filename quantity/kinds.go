@@ -5,71 +5,86 @@ import (
 	"sync"
 )
 
+// The kinds are constants: the encoding of Dim (see Dim) is linear, so a
+// dimension is the sum of its base dimensions' encodings times their
+// exponents, modulo 2⁶⁴ (wrap adds 2⁶⁴ to a negative sum).
+const (
+	dimL  = 6 << (9 * iota) // L, in sixths
+	dimM                    // M
+	dimT                    // T
+	dimI                    // I
+	dimTh                   // Θ
+	dimN                    // N
+	dimJ                    // J
+	wrap  = 1 << 64
+)
+
 // Dimensions of kinds of quantity met in fluids and heat-transfer work,
 // named as in ISO 80000-3 (space and time), -4 (mechanics), -5
 // (thermodynamics) and -6 (electromagnetism). Several kinds share a
 // dimension (energy and torque, frequency and angular velocity); the
 // dimension alone cannot tell them apart.
-var (
-	Length            = MustDim(1, 0, 0, 0, 0, 0, 0)
-	Mass              = MustDim(0, 1, 0, 0, 0, 0, 0)
-	Time              = MustDim(0, 0, 1, 0, 0, 0, 0)
-	Current           = MustDim(0, 0, 0, 1, 0, 0, 0)
-	Temperature       = MustDim(0, 0, 0, 0, 1, 0, 0)
-	Amount            = MustDim(0, 0, 0, 0, 0, 1, 0)
-	LuminousIntensity = MustDim(0, 0, 0, 0, 0, 0, 1)
+// They are constants, so no caller can change another's.
+const (
+	Length            Dim = dimL
+	Mass              Dim = dimM
+	Time              Dim = dimT
+	Current           Dim = dimI
+	Temperature       Dim = dimTh
+	Amount            Dim = dimN
+	LuminousIntensity Dim = dimJ
 
-	Area                    = MustDim(2, 0, 0, 0, 0, 0, 0)
-	Volume                  = MustDim(3, 0, 0, 0, 0, 0, 0)
-	Wavenumber              = MustDim(-1, 0, 0, 0, 0, 0, 0)
-	Velocity                = MustDim(1, 0, -1, 0, 0, 0, 0)
-	Acceleration            = MustDim(1, 0, -2, 0, 0, 0, 0)
-	Frequency               = MustDim(0, 0, -1, 0, 0, 0, 0)
-	AngularVelocity         = Frequency
-	AngularAcceleration     = MustDim(0, 0, -2, 0, 0, 0, 0)
-	Force                   = MustDim(1, 1, -2, 0, 0, 0, 0)
-	Pressure                = MustDim(-1, 1, -2, 0, 0, 0, 0)
-	Energy                  = MustDim(2, 1, -2, 0, 0, 0, 0)
-	Torque                  = Energy
-	Power                   = MustDim(2, 1, -3, 0, 0, 0, 0)
-	Momentum                = MustDim(1, 1, -1, 0, 0, 0, 0)
-	AngularMomentum         = MustDim(2, 1, -1, 0, 0, 0, 0)
-	MomentOfInertia         = MustDim(2, 1, 0, 0, 0, 0, 0)
-	Density                 = MustDim(-3, 1, 0, 0, 0, 0, 0)
-	SpecificVolume          = MustDim(3, -1, 0, 0, 0, 0, 0)
-	SpecificWeight          = MustDim(-2, 1, -2, 0, 0, 0, 0)
-	DynamicViscosity        = MustDim(-1, 1, -1, 0, 0, 0, 0)
-	KinematicViscosity      = MustDim(2, 0, -1, 0, 0, 0, 0)
-	ThermalDiffusivity      = KinematicViscosity
-	SurfaceTension          = MustDim(0, 1, -2, 0, 0, 0, 0)
-	MassFlowRate            = MustDim(0, 1, -1, 0, 0, 0, 0)
-	VolumeFlowRate          = MustDim(3, 0, -1, 0, 0, 0, 0)
-	MassFlux                = MustDim(-2, 1, -1, 0, 0, 0, 0)
-	Compressibility         = MustDim(1, -1, 2, 0, 0, 0, 0)
-	HeatFluxDensity         = MustDim(0, 1, -3, 0, 0, 0, 0)
-	ThermalConductivity     = MustDim(1, 1, -3, 0, -1, 0, 0)
-	HeatTransferCoefficient = MustDim(0, 1, -3, 0, -1, 0, 0)
-	HeatCapacity            = MustDim(2, 1, -2, 0, -1, 0, 0)
-	SpecificHeatCapacity    = MustDim(2, 0, -2, 0, -1, 0, 0)
-	SpecificEnergy          = MustDim(2, 0, -2, 0, 0, 0, 0)
-	ThermalExpansion        = MustDim(0, 0, 0, 0, -1, 0, 0)
-	TemperatureGradient     = MustDim(-1, 0, 0, 0, 1, 0, 0)
-	MolarMass               = MustDim(0, 1, 0, 0, 0, -1, 0)
-	Concentration           = MustDim(-3, 0, 0, 0, 0, 1, 0)
-	Charge                  = MustDim(0, 0, 1, 1, 0, 0, 0)
-	Voltage                 = MustDim(2, 1, -3, -1, 0, 0, 0)
-	Resistance              = MustDim(2, 1, -3, -2, 0, 0, 0)
-	Conductance             = MustDim(-2, -1, 3, 2, 0, 0, 0)
-	Capacitance             = MustDim(-2, -1, 4, 2, 0, 0, 0)
-	Inductance              = MustDim(2, 1, -2, -2, 0, 0, 0)
-	MagneticFlux            = MustDim(2, 1, -2, -1, 0, 0, 0)
-	MagneticFluxDensity     = MustDim(0, 1, -2, -1, 0, 0, 0)
-	CatalyticActivity       = MustDim(0, 0, -1, 0, 0, 1, 0)
-	Illuminance             = MustDim(-2, 0, 0, 0, 0, 0, 1)
-	AbsorbedDose            = MustDim(2, 0, -2, 0, 0, 0, 0)
+	Area                    Dim = 2 * dimL
+	Volume                  Dim = 3 * dimL
+	Wavenumber              Dim = wrap - dimL
+	Velocity                Dim = wrap + dimL - dimT
+	Acceleration            Dim = wrap + dimL - 2*dimT
+	Frequency               Dim = wrap - dimT
+	AngularVelocity         Dim = Frequency
+	AngularAcceleration     Dim = wrap - 2*dimT
+	Force                   Dim = wrap + dimL + dimM - 2*dimT
+	Pressure                Dim = wrap - dimL + dimM - 2*dimT
+	Energy                  Dim = wrap + 2*dimL + dimM - 2*dimT
+	Torque                  Dim = Energy
+	Power                   Dim = wrap + 2*dimL + dimM - 3*dimT
+	Momentum                Dim = wrap + dimL + dimM - dimT
+	AngularMomentum         Dim = wrap + 2*dimL + dimM - dimT
+	MomentOfInertia         Dim = 2*dimL + dimM
+	Density                 Dim = -3*dimL + dimM
+	SpecificVolume          Dim = wrap + 3*dimL - dimM
+	SpecificWeight          Dim = wrap - 2*dimL + dimM - 2*dimT
+	DynamicViscosity        Dim = wrap - dimL + dimM - dimT
+	KinematicViscosity      Dim = wrap + 2*dimL - dimT
+	ThermalDiffusivity      Dim = KinematicViscosity
+	SurfaceTension          Dim = wrap + dimM - 2*dimT
+	MassFlowRate            Dim = wrap + dimM - dimT
+	VolumeFlowRate          Dim = wrap + 3*dimL - dimT
+	MassFlux                Dim = wrap - 2*dimL + dimM - dimT
+	Compressibility         Dim = dimL - dimM + 2*dimT
+	HeatFluxDensity         Dim = wrap + dimM - 3*dimT
+	ThermalConductivity     Dim = wrap + dimL + dimM - 3*dimT - dimTh
+	HeatTransferCoefficient Dim = wrap + dimM - 3*dimT - dimTh
+	HeatCapacity            Dim = wrap + 2*dimL + dimM - 2*dimT - dimTh
+	SpecificHeatCapacity    Dim = wrap + 2*dimL - 2*dimT - dimTh
+	SpecificEnergy          Dim = wrap + 2*dimL - 2*dimT
+	ThermalExpansion        Dim = wrap - dimTh
+	TemperatureGradient     Dim = -dimL + dimTh
+	MolarMass               Dim = wrap + dimM - dimN
+	Concentration           Dim = -3*dimL + dimN
+	Charge                  Dim = dimT + dimI
+	Voltage                 Dim = wrap + 2*dimL + dimM - 3*dimT - dimI
+	Resistance              Dim = wrap + 2*dimL + dimM - 3*dimT - 2*dimI
+	Conductance             Dim = -2*dimL - dimM + 3*dimT + 2*dimI
+	Capacitance             Dim = -2*dimL - dimM + 4*dimT + 2*dimI
+	Inductance              Dim = wrap + 2*dimL + dimM - 2*dimT - 2*dimI
+	MagneticFlux            Dim = wrap + 2*dimL + dimM - 2*dimT - dimI
+	MagneticFluxDensity     Dim = wrap + dimM - 2*dimT - dimI
+	CatalyticActivity       Dim = -dimT + dimN
+	Illuminance             Dim = -2*dimL + dimJ
+	AbsorbedDose            Dim = wrap + 2*dimL - 2*dimT
 	// StressIntensityFactor is the dimension of fracture toughness,
 	// M L^(-1/2) T⁻² (MPa·√m).
-	StressIntensityFactor = MustParseDim("L^(-1/2) M T^-2")
+	StressIntensityFactor Dim = wrap - dimL/2 + dimM - 2*dimT
 )
 
 // Kind is a named kind of quantity with its dimension.

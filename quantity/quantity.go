@@ -30,7 +30,7 @@ func (q Quantity) Value() float64 { return q.v }
 func (q Quantity) Dim() Dim { return q.d }
 
 // IsDimensionless reports whether q is of dimension one.
-func (q Quantity) IsDimensionless() bool { return q.d.bits == 0 }
+func (q Quantity) IsDimensionless() bool { return uint64(q.d) == 0 }
 
 // Check returns nil if q has dimension want, and otherwise a
 // *DimensionError naming both. It is the way to check a value whose
@@ -169,7 +169,7 @@ func (q Quantity) ApproxEqual(o Quantity, rel float64) bool {
 }
 
 func needDimensionless(op string, q Quantity) {
-	if q.d.bits != 0 {
+	if uint64(q.d) != 0 {
 		panicUnary(op, q.d, mustBeDimensionless)
 	}
 }

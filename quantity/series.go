@@ -288,7 +288,7 @@ func (z *Series) Pow(x Series, num, den int) *Series {
 func (z *Series) Sqrt(x Series) *Series { return z.Pow(x, 1, 2) }
 
 func (z *Series) unary(op string, x Series, f func(float64) float64) *Series {
-	if x.d.bits != 0 {
+	if uint64(x.d) != 0 {
 		panicUnary(op, x.d, mustBeDimensionless)
 	}
 	v := z.grow(len(x.v))
@@ -301,7 +301,7 @@ func (z *Series) unary(op string, x Series, f func(float64) float64) *Series {
 
 // Powf sets z = x^p element-wise for a dimensionless x and returns z.
 func (z *Series) Powf(x Series, p float64) *Series {
-	if x.d.bits != 0 {
+	if uint64(x.d) != 0 {
 		panicUnary("raise %s to a real power", x.d, mustBeDimensionless)
 	}
 	v := z.grow(len(x.v))

@@ -60,7 +60,7 @@ const (
 func pressureDrop(p pipe) (re, f, dp q.Quantity, regime string, err error) {
 	re = p.rho.Mul(p.v).Mul(p.d).Div(p.mu)
 	rel := p.eps.Div(p.d)
-	if err := re.CheckNamed("Reynolds number ρVD/μ", q.Dim{}); err != nil {
+	if err := re.CheckNamed("Reynolds number ρVD/μ", q.Dimensionless); err != nil {
 		return re, f, dp, "", err
 	}
 	switch r := re.Value(); {
