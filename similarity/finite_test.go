@@ -15,8 +15,8 @@ var nan = math.NaN()
 // TestFiniteOrError: every entry point returns a finite result or an
 // error for the inputs a fuzzing review found giving NaN or ±Inf.
 func TestFiniteOrError(t *testing.T) {
-	sea, _ := fluids.SeaWater.AtCelsius(15)
-	tank, _ := fluids.FreshWater.AtCelsius(15)
+	sea, _ := fluids.SeaWater().AtCelsius(15)
+	tank, _ := fluids.FreshWater().AtCelsius(15)
 	hull := func(mod func(*similarity.HullTest)) error {
 		h := similarity.HullTest{Scale: 1.0 / 16, ModelLength: q.New(2, q.Length), ModelWettedArea: q.New(1.6, q.Area),
 			Speeds: []q.Quantity{q.New(1.5, q.Velocity)}, Resistances: []q.Quantity{q.New(10, q.Force)},
@@ -32,7 +32,7 @@ func TestFiniteOrError(t *testing.T) {
 	lim := similarity.TunnelLimits{MinTemperature: q.New(100, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(5e5, q.Pressure)}
 	tunnel := func(st fluids.State, v float64) error {
-		_, err := similarity.FindTunnelCondition(fluids.Air, st, q.New(v, q.Velocity), q.New(2, q.Length), 0.1, lim)
+		_, err := similarity.FindTunnelCondition(fluids.Air(), st, q.New(v, q.Velocity), q.New(2, q.Length), 0.1, lim)
 		return err
 	}
 	derived := func(l float64) error {
@@ -47,11 +47,11 @@ func TestFiniteOrError(t *testing.T) {
 		name string
 		err  error
 	}{
-		{"water at NaN °C", func() error { _, err := fluids.FreshWater.AtCelsius(nan); return err }()},
+		{"water at NaN °C", func() error { _, err := fluids.FreshWater().AtCelsius(nan); return err }()},
 		{"water of NaN salinity", func() error { _, err := fluids.Water{Salinity: nan}.AtCelsius(15); return err }()},
-		{"air at NaN pressure", func() error { _, err := fluids.Air.At(q.New(288, q.Temperature), q.New(nan, q.Pressure)); return err }()},
+		{"air at NaN pressure", func() error { _, err := fluids.Air().At(q.New(288, q.Temperature), q.New(nan, q.Pressure)); return err }()},
 		{"water at negative pressure", func() error {
-			_, err := fluids.FreshWater.At(q.New(288, q.Temperature), q.New(-1, q.Pressure))
+			_, err := fluids.FreshWater().At(q.New(288, q.Temperature), q.New(-1, q.Pressure))
 			return err
 		}()},
 		{"gas with R = 0", func() error {

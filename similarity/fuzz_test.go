@@ -115,7 +115,7 @@ func FuzzRules(f *testing.F) {
 		if cf, err := similarity.ITTC1957(a); err == nil {
 			finite("ITTC1957", cf)
 		}
-		for _, fl := range []fluids.Fluid{fluids.FreshWater, fluids.SeaWater, fluids.Water{Salinity: c}, fluids.Air,
+		for _, fl := range []fluids.Fluid{fluids.FreshWater(), fluids.SeaWater(), fluids.Water{Salinity: c}, fluids.Air(),
 			fluids.Constant{FluidName: "oil", Density: q.New(c, q.Density), Viscosity: q.New(b, q.DynamicViscosity)}} {
 			st, err := fl.At(q.New(a, q.Temperature), q.New(b, q.Pressure))
 			if err != nil {

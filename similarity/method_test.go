@@ -60,11 +60,11 @@ func TestIsentropic(t *testing.T) {
 		}
 	}
 	tot := fluids.Total{Temperature: q.New(300, q.Temperature), Pressure: q.New(2e5, q.Pressure)}
-	s, err := fluids.Air.StaticAt(tot, 0.8)
+	s, err := fluids.Air().StaticAt(tot, 0.8)
 	if err != nil {
 		t.Fatal(err)
 	}
-	back, err := fluids.Air.TotalOf(s, 0.8)
+	back, err := fluids.Air().TotalOf(s, 0.8)
 	if err != nil || math.Abs(back.Temperature.Value()-300) > 1e-9 || math.Abs(back.Pressure.Value()-2e5) > 1e-6 {
 		t.Errorf("round trip %v, %v", back, err)
 	}

@@ -373,7 +373,7 @@ func TestTunnelFinder(t *testing.T) {
 	L := q.New(2.0, q.Length)
 	lim := similarity.TunnelLimits{MinTemperature: q.New(100, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(5e5, q.Pressure)}
-	c, err := similarity.FindTunnelCondition(fluids.Air, proto, V, L, 1.0/10, lim)
+	c, err := similarity.FindTunnelCondition(fluids.Air(), proto, V, L, 1.0/10, lim)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -381,7 +381,7 @@ func TestTunnelFinder(t *testing.T) {
 		t.Errorf("condition %+v", c)
 	}
 	// Check it independently: the state at the found T and p.
-	st, _ := fluids.Air.At(c.Temperature, c.Pressure)
+	st, _ := fluids.Air().At(c.Temperature, c.Pressure)
 	reM := st.Density.Value() * c.Velocity.Value() * 0.2 / st.DynamicViscosity.Value()
 	reP := proto.Density.Value() * V.Value() * 2 / proto.DynamicViscosity.Value()
 	if math.Abs(reM/reP-1) > 1e-6 || math.Abs(c.Velocity.Value()/st.SpeedOfSound.Value()-0.6) > 1e-12 {
@@ -390,7 +390,7 @@ func TestTunnelFinder(t *testing.T) {
 	// An ordinary atmospheric tunnel cannot: report how close.
 	lim.MaxPressure = q.New(1.1e5, q.Pressure)
 	lim.MinTemperature = q.New(280, q.Temperature)
-	c, err = similarity.FindTunnelCondition(fluids.Air, proto, V, L, 1.0/50, lim)
+	c, err = similarity.FindTunnelCondition(fluids.Air(), proto, V, L, 1.0/50, lim)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -403,7 +403,7 @@ func TestTunnelFinder(t *testing.T) {
 	}
 	// TemperatureFor: the fresh-water temperature with ν = 1.0034e-6 m²/s
 	// is about 20 °C (ITTC 7.5-02-01-03 (2011), from memory).
-	T, err := similarity.TemperatureFor(fluids.FreshWater, q.New(101325, q.Pressure),
+	T, err := similarity.TemperatureFor(fluids.FreshWater(), q.New(101325, q.Pressure),
 		func(s fluids.State) float64 { return s.KinematicViscosity.Value() }, 1.0034e-6, q.New(273.15, q.Temperature), q.New(313.15, q.Temperature))
 	if err != nil || math.Abs(T.Value()-293.15) > 0.1 {
 		t.Errorf("TemperatureFor = %v, %v", T, err)
@@ -414,8 +414,8 @@ func TestTunnelFinder(t *testing.T) {
 // (a model in 40 °C water, the prototype in 10 °C water) and model set
 // points in chosen units.
 func TestFluidStatesAndSetPoints(t *testing.T) {
-	warm, _ := fluids.FreshWater.AtCelsius(40)
-	cold, _ := fluids.FreshWater.AtCelsius(10)
+	warm, _ := fluids.FreshWater().AtCelsius(40)
+	cold, _ := fluids.FreshWater().AtCelsius(10)
 	p := pigroups.MustProblem(pigroups.Var("V", q.Velocity), pigroups.Var("L", q.Length),
 		pigroups.Var("rho", q.Density), pigroups.Var("mu", q.DynamicViscosity))
 	s, err := similarity.NewPlan(p).HoldExps("the Reynolds number", map[string]int{"rho": 1, "V": 1, "L": 1, "mu": -1}).

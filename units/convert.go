@@ -255,7 +255,7 @@ func parseValue(tab symbolTable, s string, parse func(string) (Unit, error)) (Va
 	}
 	rest := strings.TrimSpace(t[j:])
 	if rest == "" {
-		return Value{Number: x, Unit: One}, nil
+		return Value{Number: x, Unit: one}, nil
 	}
 	if c := rest[0]; (c >= '0' && c <= '9' || c == '.') && !reciprocal(rest) {
 		// 101 325 Pa: a second number, not a unit.

@@ -23,7 +23,7 @@ var (
 func genUnit(t *rapid.T) units.Unit {
 	syms := units.Symbols()
 	n := rapid.IntRange(1, 3).Draw(t, "n")
-	u := units.One
+	u := units.One()
 	for range n {
 		s := rapid.SampledFrom(syms).Draw(t, "sym")
 		if units.Prefixable(s) && rapid.Bool().Draw(t, "prefixed") {

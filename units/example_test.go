@@ -49,7 +49,7 @@ func ExampleParseQuantity() {
 
 func ExamplePrinter() {
 	p := units.Printer{Prefix: true, Precision: 4}
-	fmt.Println(p.Format(units.StandardAtmosphere))
+	fmt.Println(p.Format(units.StandardAtmosphere()))
 	fmt.Println(p.Format(quantity.New(1.8e-5, quantity.DynamicViscosity)))
 	s, _ := p.FormatIn(quantity.New(745.7, quantity.Power), units.MustParse("hp"))
 	fmt.Println(s)

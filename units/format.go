@@ -37,7 +37,7 @@ func DerivedUnit(d quantity.Dim) (Unit, bool) {
 // (kg·m⁻³ for density).
 func BaseUnit(d quantity.Dim) Unit {
 	if d.IsDimensionless() {
-		return One
+		return one
 	}
 	u, err := Parse(d.SIUnitASCII())
 	if err != nil {

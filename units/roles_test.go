@@ -25,7 +25,7 @@ func TestRolesSurvive(t *testing.T) {
 		t.Errorf("10 dTC = %v Δ°F, %v", x, err)
 	}
 	degC := units.MustParse("°C")
-	same, err := degC.Mul(units.One)
+	same, err := degC.Mul(units.One())
 	if err != nil || !same.IsScale() || same.String() != "degC" {
 		t.Fatalf("°C·1 = %v (scale %v), %v", same, same.IsScale(), err)
 	}
@@ -53,10 +53,10 @@ func TestRolesSurvive(t *testing.T) {
 		t.Errorf("an undefined style writes %q", s)
 	}
 	var zero units.Unit
-	if !zero.Equal(units.One) || zero.Factor() != 1 {
+	if !zero.Equal(units.One()) || zero.Factor() != 1 {
 		t.Errorf("the zero Unit: factor %v", zero.Factor())
 	}
-	if x, err := units.ConvertUnits(3, zero, units.One); err != nil || x != 3 {
+	if x, err := units.ConvertUnits(3, zero, units.One()); err != nil || x != 3 {
 		t.Errorf("3 in the zero Unit = %v, %v", x, err)
 	}
 }

@@ -40,15 +40,18 @@ type Unit struct {
 	sym    string // canonical ASCII spelling
 }
 
-// One is the unit one, for dimensionless numbers. The zero Unit is the
-// unit one too: every method treats it as One (Equal reports them equal;
-// == does not).
-var One = Unit{factor: 1, sym: "1"}
+// one is the unit one, for dimensionless numbers.
+var one = Unit{factor: 1, sym: "1"}
+
+// One returns the unit one, for dimensionless numbers. The zero Unit is
+// the unit one too: every method treats it as One (Equal reports them
+// equal; == does not).
+func One() Unit { return one }
 
 // norm returns One for the zero Unit.
 func (u Unit) norm() Unit {
 	if u.sym == "" {
-		return One
+		return one
 	}
 	return u
 }

@@ -222,7 +222,7 @@ func TestUserTable(t *testing.T) {
 }
 
 func TestPrinter(t *testing.T) {
-	atm := units.StandardAtmosphere
+	atm := units.StandardAtmosphere()
 	torque := quantity.New(12.5, quantity.Torque)
 	cases := []struct {
 		p    units.Printer
@@ -272,18 +272,18 @@ func TestConstants(t *testing.T) {
 		unit string
 		rel  float64
 	}{
-		{"R", units.MolarGas, 8.314462618, "J/(mol*K)", 1e-10},            // CODATA 2018: 8.314 462 618… (exact)
-		{"σ", units.StefanBoltzmann, 5.670374419e-8, "W/(m^2*K^4)", 1e-9}, // CODATA 2018: 5.670 374 419… × 10⁻⁸ (exact)
-		{"G", units.Gravitation, 6.67430e-11, "m^3/(kg*s^2)", 1e-15},      // CODATA 2018
-		{"c", units.SpeedOfLight, 299792458, "m/s", 0},
-		{"g_n", units.StandardGravity, 9.80665, "m/s^2", 0},
-		{"atm", units.StandardAtmosphere, 101325, "Pa", 0},
-		{"h", units.Planck, 6.62607015e-34, "J*s", 0},
-		{"e", units.ElementaryCharge, 1.602176634e-19, "C", 0},
-		{"k", units.Boltzmann, 1.380649e-23, "J/K", 0},
-		{"N_A", units.Avogadro, 6.02214076e23, "1/mol", 0},
-		{"K_cd", units.LuminousEfficacy, 683, "cd*sr/W", 0},
-		{"Δν_Cs", units.HyperfineCs, 9192631770, "Hz", 0},
+		{"R", units.MolarGas(), 8.314462618, "J/(mol*K)", 1e-10},            // CODATA 2018: 8.314 462 618… (exact)
+		{"σ", units.StefanBoltzmann(), 5.670374419e-8, "W/(m^2*K^4)", 1e-9}, // CODATA 2018: 5.670 374 419… × 10⁻⁸ (exact)
+		{"G", units.Gravitation(), 6.67430e-11, "m^3/(kg*s^2)", 1e-15},      // CODATA 2018
+		{"c", units.SpeedOfLight(), 299792458, "m/s", 0},
+		{"g_n", units.StandardGravity(), 9.80665, "m/s^2", 0},
+		{"atm", units.StandardAtmosphere(), 101325, "Pa", 0},
+		{"h", units.Planck(), 6.62607015e-34, "J*s", 0},
+		{"e", units.ElementaryCharge(), 1.602176634e-19, "C", 0},
+		{"k", units.Boltzmann(), 1.380649e-23, "J/K", 0},
+		{"N_A", units.Avogadro(), 6.02214076e23, "1/mol", 0},
+		{"K_cd", units.LuminousEfficacy(), 683, "cd*sr/W", 0},
+		{"Δν_Cs", units.HyperfineCs(), 9192631770, "Hz", 0},
 	}
 	for _, c := range cases {
 		u := units.MustParse(c.unit)

@@ -76,7 +76,7 @@ func evaluate(w io.Writer, args []string) ([]Row, error) {
 	in := units.MustParse("in")
 	dModel, dProto := in.Of(*dm), in.Of(*dp)
 	water := q.New(998.2, q.Density) // cold water, 20 °C (ITTC 7.5-02-01-03, from memory)
-	g := units.StandardGravity
+	g := units.StandardGravity()
 	gpm, ft, hp := units.MustParse("gpm"), units.MustParse("ft"), units.MustParse("hp")
 	ls, m, kw := units.MustParse("L/s"), units.MustParse("m"), units.MustParse("kW")
 	fmt.Fprintln(w, "Pump-family scale-up by the affinity laws (invented model curve)")

@@ -56,11 +56,11 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	}
 	// One water on each side throughout: the model runs in the tank's
 	// fresh water, the ship in sea water, both at 15 °C.
-	sea, err := fluids.SeaWater.AtCelsius(15)
+	sea, err := fluids.SeaWater().AtCelsius(15)
 	if err != nil {
 		return nil, err
 	}
-	tank, err := fluids.FreshWater.AtCelsius(15)
+	tank, err := fluids.FreshWater().AtCelsius(15)
 	if err != nil {
 		return nil, err
 	}
@@ -76,7 +76,7 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	}
 
 	fmt.Fprintln(w, "\n4. The compromise: hold Fr, let Re float (threshold 1e6, a rule of thumb)")
-	proto := map[string]q.Quantity{"V": units.MustParse("kn").Of(15), "L": q.New(32, q.Length), "g": units.StandardGravity,
+	proto := map[string]q.Quantity{"V": units.MustParse("kn").Of(15), "L": q.New(32, q.Length), "g": units.StandardGravity(),
 		"rho": sea.Density, "mu": sea.DynamicViscosity}
 	base := similarity.NewPlan(p).FixFluids(tank, sea, "rho", "mu", "").SameGravity("g").Fix("L", 1/scale).Basis("rho", "V", "L")
 	if res.Compromise, err = base.Compromise(proto, similarity.Priority{Group: fr}, similarity.Priority{Group: re, MinModel: 1e6}); err != nil {

@@ -99,7 +99,7 @@ func run(w io.Writer, args []string) error {
 	}
 	// Invented data: a water line in a test rig, commercial steel pipe,
 	// fresh water at 20 °C.
-	water, err := fluids.FreshWater.AtCelsius(20)
+	water, err := fluids.FreshWater().AtCelsius(20)
 	if err != nil {
 		return err
 	}

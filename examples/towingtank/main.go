@@ -67,11 +67,11 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	if !(*scale > 1) {
 		return nil, fmt.Errorf("-scale %v: want a ship larger than its model", *scale)
 	}
-	tank, err := fluids.FreshWater.AtCelsius(*tankT)
+	tank, err := fluids.FreshWater().AtCelsius(*tankT)
 	if err != nil {
 		return nil, err
 	}
-	sea, err := fluids.SeaWater.AtCelsius(*seaT)
+	sea, err := fluids.SeaWater().AtCelsius(*seaT)
 	if err != nil {
 		return nil, err
 	}

@@ -99,7 +99,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	// condition; the test section runs at the static state the held Mach
 	// number gives.
 	intake := fluids.Total{Temperature: q.New(288.15, q.Temperature), Pressure: q.New(101325, q.Pressure)}
-	ground, err := fluids.Air.StaticAt(intake, *mach)
+	ground, err := fluids.Air().StaticAt(intake, *mach)
 	if err != nil {
 		return nil, err
 	}
@@ -135,10 +135,10 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(4e5, q.Pressure)}
 	cryo := similarity.TunnelLimits{MinTemperature: q.New(110, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(1e5, q.Pressure), MaxPressure: q.New(4.5e5, q.Pressure)}
-	if r.Pressurised, err = similarity.FindTunnelCondition(fluids.Air, flight, V, L, 1 / *scale, pressurised); err != nil {
+	if r.Pressurised, err = similarity.FindTunnelCondition(fluids.Air(), flight, V, L, 1 / *scale, pressurised); err != nil {
 		return nil, err
 	}
-	if r.Cryogenic, err = similarity.FindTunnelCondition(fluids.Air, flight, V, L, 1 / *scale, cryo); err != nil {
+	if r.Cryogenic, err = similarity.FindTunnelCondition(fluids.Air(), flight, V, L, 1 / *scale, cryo); err != nil {
 		return nil, err
 	}
 	fmt.Fprintln(w, "\nHolding both Mach and Reynolds numbers:")

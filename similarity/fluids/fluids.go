@@ -101,12 +101,12 @@ type Water struct {
 	Salinity float64
 }
 
-// FreshWater and SeaWater are the waters of towing tanks and the sea;
-// sea water at the reference salinity 35.16504 g/kg (TEOS-10).
-var (
-	FreshWater = Water{}
-	SeaWater   = Water{Salinity: 35.16504}
-)
+// FreshWater returns the fresh water of a towing tank (salinity 0).
+func FreshWater() Water { return Water{} }
+
+// SeaWater returns sea water at the reference salinity 35.16504 g/kg
+// (TEOS-10).
+func SeaWater() Water { return Water{Salinity: 35.16504} }
 
 // Name implements Fluid.
 func (w Water) Name() string {
@@ -196,12 +196,12 @@ type IdealGas struct {
 	S       float64 // Sutherland's temperature, K
 }
 
-// Air is dry air with the constants of ISO 2533:1975: R = 287.052 87
-// J/(kg·K), γ = 1.4, β = 1.458 × 10⁻⁶ kg/(m·s·K^(1/2)), S = 110.4 K.
-var Air = isoAir
+// Air returns dry air with the constants of ISO 2533:1975: R = 287.052 87
+// J/(kg·K), γ = 1.4, β = 1.458 × 10⁻⁶ kg/(m·s·K^(1/2)), S = 110.4 K. It
+// is a function, so no caller can change the air (or the standard
+// atmosphere) for another.
+func Air() IdealGas { return isoAir }
 
-// isoAir is the air of ISO 2533, kept private so that the standard
-// atmosphere cannot be changed by a caller changing Air.
 var isoAir = IdealGas{GasName: "air", R: 287.05287, Gamma: 1.4, Beta: 1.458e-6, S: 110.4}
 
 // Name implements Fluid.

@@ -20,13 +20,13 @@ func TestWaterAgainstITTC(t *testing.T) {
 		t       float64
 		rho, nu float64
 	}{
-		{fluids.FreshWater, 10, 999.7026, 1.3063e-6},
-		{fluids.FreshWater, 15, 999.1026, 1.1386e-6},
-		{fluids.FreshWater, 20, 998.2071, 1.0034e-6},
-		{fluids.FreshWater, 25, 997.0479, 0.8926e-6},
-		{fluids.SeaWater, 10, 1026.9, 1.3604e-6},
-		{fluids.SeaWater, 15, 1026.0, 1.1892e-6},
-		{fluids.SeaWater, 20, 1024.8, 1.0508e-6},
+		{fluids.FreshWater(), 10, 999.7026, 1.3063e-6},
+		{fluids.FreshWater(), 15, 999.1026, 1.1386e-6},
+		{fluids.FreshWater(), 20, 998.2071, 1.0034e-6},
+		{fluids.FreshWater(), 25, 997.0479, 0.8926e-6},
+		{fluids.SeaWater(), 10, 1026.9, 1.3604e-6},
+		{fluids.SeaWater(), 15, 1026.0, 1.1892e-6},
+		{fluids.SeaWater(), 20, 1024.8, 1.0508e-6},
 	}
 	for _, c := range cases {
 		s, err := c.water.AtCelsius(c.t)
@@ -42,14 +42,14 @@ func TestWaterAgainstITTC(t *testing.T) {
 	}
 	// The CIPM formula itself reproduces its own anchor: maximum density
 	// 999.974950 kg/m³ at 3.983035 °C (Tanaka et al., 2001).
-	s, _ := fluids.FreshWater.AtCelsius(3.983035)
+	s, _ := fluids.FreshWater().AtCelsius(3.983035)
 	if math.Abs(s.Density.Value()-999.97495) > 1e-9 {
 		t.Errorf("ρ_max = %v", s.Density.Value())
 	}
-	if _, err := fluids.FreshWater.AtCelsius(60); !errors.Is(err, fluids.ErrRange) {
+	if _, err := fluids.FreshWater().AtCelsius(60); !errors.Is(err, fluids.ErrRange) {
 		t.Errorf("60 °C: %v", err)
 	}
-	if _, err := fluids.FreshWater.At(q.New(300, q.Pressure), q.New(1e5, q.Pressure)); !errors.Is(err, q.ErrDimension) {
+	if _, err := fluids.FreshWater().At(q.New(300, q.Pressure), q.New(1e5, q.Pressure)); !errors.Is(err, q.ErrDimension) {
 		t.Errorf("a pressure given as temperature: %v", err)
 	}
 }
@@ -100,11 +100,11 @@ func TestSutherland(t *testing.T) {
 		{250, 159.6e-7}, {300, 184.6e-7}, {350, 208.2e-7}, {400, 230.1e-7},
 	}
 	for _, c := range cases {
-		if got := fluids.Air.Viscosity(c.T); math.Abs(got/c.mu-1) > 0.01 {
+		if got := fluids.Air().Viscosity(c.T); math.Abs(got/c.mu-1) > 0.01 {
 			t.Errorf("μ(%g K) = %.4g, table %.4g", c.T, got, c.mu)
 		}
 	}
-	s, err := fluids.Air.At(q.New(288.15, q.Temperature), q.New(101325, q.Pressure))
+	s, err := fluids.Air().At(q.New(288.15, q.Temperature), q.New(101325, q.Pressure))
 	if err != nil || math.Abs(s.SpeedOfSound.Value()-340.294) > 1e-3 {
 		t.Errorf("a(288.15 K) = %v, %v", s.SpeedOfSound, err)
 	}

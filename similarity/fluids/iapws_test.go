@@ -59,7 +59,7 @@ func TestFreshWaterAgainstIAPWS95(t *testing.T) {
 		{40, 992.2164, 6.527287e-04},
 	}
 	for _, c := range cases {
-		s, err := fluids.FreshWater.AtCelsius(c.t)
+		s, err := fluids.FreshWater().AtCelsius(c.t)
 		if err != nil {
 			t.Fatal(err)
 		}
