@@ -11,7 +11,7 @@ import (
 // Froude scaling of a 1:25 model in the same water: every ratio as an
 // exact law, then its value.
 func ExampleFroude() {
-	s, err := similarity.Froude(1.0/25, 1)
+	s, err := similarity.Froude(similarity.Scales{Length: 1.0/25, Density: 1})
 	if err != nil {
 		panic(err)
 	}
@@ -54,7 +54,7 @@ func ExamplePlan_Solve() {
 
 // Pump affinity laws for a 20 % speed-up and a doubled impeller.
 func ExampleAffinityLaws() {
-	a, _ := similarity.AffinityLaws(1.2, 2, 1)
+	a, _ := similarity.AffinityLaws(similarity.Scales{Speed: 1.2, Diameter: 2, Density: 1})
 	fmt.Printf("flow ×%.2f, head ×%.2f, power ×%.2f\n", a.Flow, a.Head, a.Power)
 	// Output:
 	// flow ×9.60, head ×5.76, power ×55.30
@@ -62,7 +62,7 @@ func ExampleAffinityLaws() {
 
 // Carry a measured model force to full scale.
 func ExampleSolution_ToPrototype() {
-	s, _ := similarity.Froude(1.0/30, 1)
+	s, _ := similarity.Froude(similarity.Scales{Length: 1.0/30, Density: 1})
 	fm := quantity.New(12.5, quantity.Force) // invented model reading, N
 	fp, _ := s.ToPrototype(fm)
 	fmt.Printf("%.4g N\n", fp.Value())

@@ -9,6 +9,7 @@ import (
 	"gonum.org/v1/gonum/stat"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity/fluids"
 )
 
 // ErrExtrapolation is wrapped by errors from the extrapolation methods.
@@ -38,12 +39,6 @@ func ITTC1957(re float64) (float64, error) {
 	return 0.075 / (d * d), nil
 }
 
-// Water gives the density and kinematic viscosity of a tank or the sea.
-type Water struct {
-	Density            quantity.Quantity
-	KinematicViscosity quantity.Quantity
-}
-
 // HullTest is a towing-tank resistance test to extrapolate to full scale
 // by Froude's hypothesis: the total resistance coefficient is a
 // frictional part, from the ITTC-1957 line times a form factor (1 + k),
@@ -60,8 +55,10 @@ type HullTest struct {
 	// Speeds and Resistances are the measured model speeds and total
 	// resistances, one per towed run.
 	Speeds, Resistances []quantity.Quantity
-	// Tank and Sea are the waters of model and ship.
-	Tank, Sea Water
+	// Tank and Sea are the states of the waters of model and ship (from
+	// package fluids, or a fluids.State of the caller's own); their
+	// density and kinematic viscosity are used.
+	Tank, Sea fluids.State
 	// FormFactor is 1 + k; 1 (or zero, meaning 1) gives the original
 	// ITTC-1957 method without a form factor. See Prohaska.
 	FormFactor float64

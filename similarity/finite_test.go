@@ -1,6 +1,7 @@
 package similarity_test
 
 import (
+	"errors"
 	"math"
 	"testing"
 
@@ -20,13 +21,13 @@ func TestFiniteOrError(t *testing.T) {
 	hull := func(mod func(*similarity.HullTest)) error {
 		h := similarity.HullTest{Scale: 1.0 / 16, ModelLength: q.New(2, q.Length), ModelWettedArea: q.New(1.6, q.Area),
 			Speeds: []q.Quantity{q.New(1.5, q.Velocity)}, Resistances: []q.Quantity{q.New(10, q.Force)},
-			Tank: similarity.Water{Density: tank.Density, KinematicViscosity: tank.KinematicViscosity},
-			Sea:  similarity.Water{Density: sea.Density, KinematicViscosity: sea.KinematicViscosity}}
+			Tank: tank,
+			Sea:  sea}
 		mod(&h)
 		_, err := similarity.ExtrapolateHull(h)
 		return err
 	}
-	std, _ := fluids.StandardAtmosphere(0)
+	std, _ := fluids.StandardAtmosphere(q.New(0, q.Length), fluids.Geometric)
 	noSound := std
 	noSound.SpeedOfSound = q.Quantity{}
 	lim := similarity.TunnelLimits{MinTemperature: q.New(100, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
@@ -36,7 +37,7 @@ func TestFiniteOrError(t *testing.T) {
 		return err
 	}
 	derived := func(l float64) error {
-		s, err := similarity.Froude(l, 1)
+		s, err := similarity.Froude(similarity.Scales{Length: l, Density: 1})
 		if err != nil {
 			return err
 		}
@@ -67,7 +68,7 @@ func TestFiniteOrError(t *testing.T) {
 			return err
 		}()},
 		{"Froude power ratio at 1e-300", derived(1e-300)},
-		{"affinity laws at 1e200", func() error { _, err := similarity.AffinityLaws(1e200, 1e200, 1); return err }()},
+		{"affinity laws at 1e200", func() error { _, err := similarity.AffinityLaws(similarity.Scales{Speed: 1e200, Diameter: 1e200, Density: 1}); return err }()},
 		{"hull with NaN form factor", hull(func(h *similarity.HullTest) { h.FormFactor = nan })},
 		{"hull with NaN allowance", hull(func(h *similarity.HullTest) { h.Allowance = nan })},
 		{"hull with NaN gravity", hull(func(h *similarity.HullTest) { h.Gravity = q.New(nan, q.Acceleration) })},
@@ -115,5 +116,27 @@ func TestFixedRatioExact(t *testing.T) {
 	}
 	if bad > 0 {
 		t.Errorf("%d of 999 scales not returned exactly", bad)
+	}
+}
+
+// TestScalesNamed: a rule takes its ratios by name; a missing one and one
+// it does not use are refused with the field named, so swapped ratios
+// cannot pass silently.
+func TestScalesNamed(t *testing.T) {
+	var pe *similarity.PlanError
+	if _, err := similarity.Froude(similarity.Scales{Length: 0.04}); !errors.As(err, &pe) || pe.Symbol != "Density" {
+		t.Errorf("missing density: %v", err)
+	}
+	if _, err := similarity.Froude(similarity.Scales{Length: 0.04, Density: 1, Velocity: 0.2}); !errors.As(err, &pe) || pe.Symbol != "Velocity" {
+		t.Errorf("unused velocity: %v", err)
+	}
+	if _, err := similarity.AffinityLaws(similarity.Scales{Length: 0.5, Diameter: 0.5, Density: 1}); !errors.As(err, &pe) || pe.Symbol != "Length" && pe.Symbol != "Speed" {
+		t.Errorf("a length for a speed: %v", err)
+	}
+	// Model/prototype everywhere: a model at 2× the speed and 1/2 the
+	// diameter has λ_Q = 2·(1/2)³ = 1/4 (affinity laws, common practice).
+	a, err := similarity.AffinityLaws(similarity.Scales{Speed: 2, Diameter: 0.5, Density: 1})
+	if err != nil || math.Abs(a.Flow-0.25) > 1e-15 || math.Abs(a.Head-1) > 1e-15 || math.Abs(a.Power-2*2*2/32.0) > 1e-15 {
+		t.Errorf("affinity %+v, %v", a, err)
 	}
 }

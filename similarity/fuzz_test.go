@@ -88,22 +88,22 @@ func FuzzRules(f *testing.F) {
 				}
 			}
 		}
-		s, err := similarity.Froude(a, b)
+		s, err := similarity.Froude(similarity.Scales{Length: a, Density: b})
 		solved("Froude", s, err)
-		s, err = similarity.Reynolds(a, b, c)
+		s, err = similarity.Reynolds(similarity.Scales{Length: a, KinematicViscosity: b, Density: c})
 		solved("Reynolds", s, err)
-		s, err = similarity.Mach(a, b, c)
+		s, err = similarity.Mach(similarity.Scales{Length: a, SpeedOfSound: b, Density: c})
 		solved("Mach", s, err)
-		s, err = similarity.Weber(a, b, c)
+		s, err = similarity.Weber(similarity.Scales{Length: a, Density: b, SurfaceTension: c})
 		solved("Weber", s, err)
-		s, err = similarity.Euler(a, b, c)
+		s, err = similarity.Euler(similarity.Scales{Length: a, Density: b, Velocity: c})
 		solved("Euler", s, err)
-		s, err = similarity.Strouhal(a, b)
+		s, err = similarity.Strouhal(similarity.Scales{Length: a, Velocity: b})
 		solved("Strouhal", s, err)
-		if af, err := similarity.AffinityLaws(a, b, c); err == nil {
+		if af, err := similarity.AffinityLaws(similarity.Scales{Speed: a, Diameter: b, Density: c}); err == nil {
 			finite("AffinityLaws", af.Flow, af.Head, af.Power, af.Torque)
 		}
-		if d, err := similarity.DistortedFroude(a, b); err == nil {
+		if d, err := similarity.DistortedFroude(similarity.Scales{Horizontal: a, Vertical: b}); err == nil {
 			finite("DistortedFroude", d.Velocity, d.Time, d.Discharge, d.Area, d.Slope, d.Manning)
 		}
 		if m, err := similarity.ManningRatio(a); err == nil {
@@ -123,7 +123,7 @@ func FuzzRules(f *testing.F) {
 			}
 			finite(fl.Name(), st.Density.Value(), st.DynamicViscosity.Value(), st.KinematicViscosity.Value())
 		}
-		if st, err := fluids.StandardAtmosphere(a); err == nil {
+		if st, err := fluids.StandardAtmosphere(q.New(a, q.Length), fluids.GeopotentialAlt); err == nil {
 			finite("StandardAtmosphere", st.Density.Value(), st.Pressure.Value(), st.Temperature.Value(), st.SpeedOfSound.Value())
 		}
 		if tr, pr, err := fluids.TotalRatios(b, a); err == nil {

@@ -133,7 +133,7 @@ func TestReportRefusesForeignGroup(t *testing.T) {
 	p := shipProblem()
 	other := pigroups.MustProblem(pigroups.Var("a", q.Length), pigroups.Var("b", q.Length))
 	og, _ := other.PiSet("a")
-	s, err := similarity.Froude(0.1, 1)
+	s, err := similarity.Froude(similarity.Scales{Length: 0.1, Density: 1})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -1,6 +1,8 @@
 package similarity
 
 import (
+	"strings"
+	"slices"
 	"fmt"
 	"math"
 
@@ -21,6 +23,49 @@ func stdVars() []pigroups.Variable {
 		pigroups.VarKind("rho", quantity.Density, "density"),
 		pigroups.VarKind("mu", quantity.DynamicViscosity, "dynamic viscosity"),
 	}
+}
+
+// Scales are model/prototype ratios given by name, so that a rule cannot
+// take one for another: Froude(Scales{Length: 1.0 / 25, Density: 1}).
+// Each rule says which it needs; a needed ratio that is zero, negative or
+// not finite is an error naming it, and so is a ratio the rule does not
+// use (it would otherwise be silently ignored).
+type Scales struct {
+	Length             float64 // λ_L
+	Density            float64 // λ_ρ: 1 for the same fluid
+	KinematicViscosity float64 // λ_ν
+	SpeedOfSound       float64 // λ_a
+	SurfaceTension     float64 // λ_σ
+	Velocity           float64 // λ_V
+	Speed              float64 // λ_N, a rotational speed
+	Diameter           float64 // λ_D, an impeller or rotor diameter
+	Horizontal         float64 // λ_x of a distorted model
+	Vertical           float64 // λ_z of a distorted model
+}
+
+// need checks that s gives exactly the named ratios, each positive and
+// finite, for the rule named.
+func (s Scales) need(rule string, names ...string) error {
+	all := []struct {
+		name string
+		v    float64
+	}{{"Length", s.Length}, {"Density", s.Density}, {"KinematicViscosity", s.KinematicViscosity}, {"SpeedOfSound", s.SpeedOfSound},
+		{"SurfaceTension", s.SurfaceTension}, {"Velocity", s.Velocity}, {"Speed", s.Speed}, {"Diameter", s.Diameter},
+		{"Horizontal", s.Horizontal}, {"Vertical", s.Vertical}}
+	for _, f := range all {
+		needed := slices.Contains(names, f.name)
+		switch {
+		case needed && (!(f.v > 0) || math.IsInf(f.v, 0)):
+			hint := ""
+			if f.name == "Density" {
+				hint = " (1 for the same fluid)"
+			}
+			return &PlanError{Err: ErrBadRatio, Symbol: f.name, Reason: fmt.Sprintf("%s needs Scales.%s%s, a positive and finite model/prototype ratio; got %v", rule, f.name, hint, f.v)}
+		case !needed && f.v != 0:
+			return &PlanError{Err: ErrBadRatio, Symbol: f.name, Reason: fmt.Sprintf("%s does not use Scales.%s (it takes %s)", rule, f.name, strings.Join(names, ", "))}
+		}
+	}
+	return nil
 }
 
 // checkRatios checks name–ratio pairs: checkRatios("length", λL, "density", λρ).
@@ -44,10 +89,13 @@ func checkRatio(name string, r float64) error {
 // density ratio (1 for the same fluid). λ_V = λ_L^(1/2), λ_t = λ_L^(1/2),
 // λ_F = λ_ρ·λ_L³, λ_P = λ_ρ·λ_L^(7/2), λ_Q = λ_L^(5/2). The Reynolds
 // number floats: with the same fluid its ratio is λ_L^(3/2).
-func Froude(lengthRatio, densityRatio float64) (*Solution, error) {
-	if err := checkRatios("length", lengthRatio, "density", densityRatio); err != nil {
+//
+// It takes Scales.Length and Scales.Density.
+func Froude(s Scales) (*Solution, error) {
+	if err := s.need("Froude", "Length", "Density"); err != nil {
 		return nil, err
 	}
+	lengthRatio, densityRatio := s.Length, s.Density
 	p := pigroups.MustProblem(stdVars()...)
 	pl := NewPlan(p).HoldExps("the Froude number", map[string]int{"V": 2, "g": -1, "L": -1}).
 		SameGravity("g").Fix("L", lengthRatio).Basis("V", "L", "rho")
@@ -61,10 +109,12 @@ func Froude(lengthRatio, densityRatio float64) (*Solution, error) {
 
 // Reynolds scaling: the Reynolds number VL/ν held for given length and
 // kinematic-viscosity ratios: λ_V = λ_ν/λ_L, λ_t = λ_L²/λ_ν.
-func Reynolds(lengthRatio, nuRatio, densityRatio float64) (*Solution, error) {
-	if err := checkRatios("length", lengthRatio, "kinematic viscosity", nuRatio, "density", densityRatio); err != nil {
+// It takes Scales.Length, Scales.KinematicViscosity and Scales.Density.
+func Reynolds(s Scales) (*Solution, error) {
+	if err := s.need("Reynolds", "Length", "Density", "KinematicViscosity"); err != nil {
 		return nil, err
 	}
+	lengthRatio, nuRatio, densityRatio := s.Length, s.KinematicViscosity, s.Density
 	p := pigroups.MustProblem(
 		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("L", quantity.Length, "length"),
 		pigroups.VarKind("rho", quantity.Density, "density"), pigroups.VarKind("nu", quantity.KinematicViscosity, "kinematic viscosity"))
@@ -74,10 +124,12 @@ func Reynolds(lengthRatio, nuRatio, densityRatio float64) (*Solution, error) {
 
 // Mach scaling: the Mach number V/a held: λ_V = λ_a, for given length,
 // speed-of-sound and density ratios.
-func Mach(lengthRatio, soundRatio, densityRatio float64) (*Solution, error) {
-	if err := checkRatios("length", lengthRatio, "speed of sound", soundRatio, "density", densityRatio); err != nil {
+// It takes Scales.Length, Scales.SpeedOfSound and Scales.Density.
+func Mach(s Scales) (*Solution, error) {
+	if err := s.need("Mach", "Length", "Density", "SpeedOfSound"); err != nil {
 		return nil, err
 	}
+	lengthRatio, soundRatio, densityRatio := s.Length, s.SpeedOfSound, s.Density
 	p := pigroups.MustProblem(
 		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("a", quantity.Velocity, "speed of sound"),
 		pigroups.VarKind("L", quantity.Length, "length"), pigroups.VarKind("rho", quantity.Density, "density"))
@@ -86,10 +138,12 @@ func Mach(lengthRatio, soundRatio, densityRatio float64) (*Solution, error) {
 }
 
 // Weber scaling: ρV²L/σ held: λ_V = (λ_σ/(λ_ρ·λ_L))^(1/2).
-func Weber(lengthRatio, densityRatio, tensionRatio float64) (*Solution, error) {
-	if err := checkRatios("length", lengthRatio, "density", densityRatio, "surface tension", tensionRatio); err != nil {
+// It takes Scales.Length, Scales.Density and Scales.SurfaceTension.
+func Weber(s Scales) (*Solution, error) {
+	if err := s.need("Weber", "Length", "Density", "SurfaceTension"); err != nil {
 		return nil, err
 	}
+	lengthRatio, densityRatio, tensionRatio := s.Length, s.Density, s.SurfaceTension
 	p := pigroups.MustProblem(
 		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("L", quantity.Length, "length"),
 		pigroups.VarKind("rho", quantity.Density, "density"), pigroups.VarKind("sigma", quantity.SurfaceTension, "surface tension"))
@@ -100,10 +154,12 @@ func Weber(lengthRatio, densityRatio, tensionRatio float64) (*Solution, error) {
 // Euler scaling: Δp/(ρV²) held (also the cavitation number
 // (p − p_v)/(½ρV²) when p is the pressure above vapour pressure):
 // λ_p = λ_ρ·λ_V².
-func Euler(lengthRatio, densityRatio, velocityRatio float64) (*Solution, error) {
-	if err := checkRatios("length", lengthRatio, "density", densityRatio, "velocity", velocityRatio); err != nil {
+// It takes Scales.Length, Scales.Density and Scales.Velocity.
+func Euler(s Scales) (*Solution, error) {
+	if err := s.need("Euler", "Length", "Density", "Velocity"); err != nil {
 		return nil, err
 	}
+	lengthRatio, densityRatio, velocityRatio := s.Length, s.Density, s.Velocity
 	p := pigroups.MustProblem(
 		pigroups.VarKind("p", quantity.Pressure, "pressure difference"), pigroups.VarKind("V", quantity.Velocity, "velocity"),
 		pigroups.VarKind("L", quantity.Length, "length"), pigroups.VarKind("rho", quantity.Density, "density"))
@@ -113,16 +169,16 @@ func Euler(lengthRatio, densityRatio, velocityRatio float64) (*Solution, error) 
 
 // Cavitation is Euler scaling of the pressure above vapour pressure,
 // p − p_v, so that the cavitation number is held.
-func Cavitation(lengthRatio, densityRatio, velocityRatio float64) (*Solution, error) {
-	return Euler(lengthRatio, densityRatio, velocityRatio)
-}
+func Cavitation(s Scales) (*Solution, error) { return Euler(s) }
 
 // Strouhal scaling: fL/V held: λ_f = λ_V/λ_L, for frequencies of vortex
 // shedding and other unsteady flow.
-func Strouhal(lengthRatio, velocityRatio float64) (*Solution, error) {
-	if err := checkRatios("length", lengthRatio, "velocity", velocityRatio); err != nil {
+// It takes Scales.Length and Scales.Velocity.
+func Strouhal(s Scales) (*Solution, error) {
+	if err := s.need("Strouhal", "Length", "Velocity"); err != nil {
 		return nil, err
 	}
+	lengthRatio, velocityRatio := s.Length, s.Velocity
 	p := pigroups.MustProblem(
 		pigroups.VarKind("f", quantity.Frequency, "frequency"), pigroups.VarKind("V", quantity.Velocity, "velocity"),
 		pigroups.VarKind("L", quantity.Length, "length"))
@@ -132,20 +188,23 @@ func Strouhal(lengthRatio, velocityRatio float64) (*Solution, error) {
 
 // Affinity holds the turbomachine flow, head and power coefficients for
 // a change of speed and diameter: Q ∝ N·D³, gH ∝ N²·D², P ∝ ρ·N³·D⁵.
-// The ratios are new/old (model/prototype if old is the prototype).
+// Every ratio is model/prototype, as everywhere in this package; divide a
+// model value by it for the prototype.
 type Affinity struct {
 	Speed, Diameter, Density float64 // λ_N, λ_D, λ_ρ
 	Flow, Head, Power        float64 // λ_Q, λ_H (as gH), λ_P
 	Torque                   float64 // λ_T = λ_P/λ_N
 }
 
-// AffinityLaws returns the affinity-law ratios for speed, diameter and
-// density ratios, from the held coefficients solved exactly (Q/(ND³),
+// AffinityLaws returns the affinity-law ratios, model/prototype, for the
+// speed, diameter and density ratios Scales.Speed, Scales.Diameter and
+// Scales.Density, from the held coefficients solved exactly (Q/(ND³),
 // gH/(N²D²), P/(ρN³D⁵)). Efficiency is taken equal; see MoodyStepUp.
-func AffinityLaws(speedRatio, diameterRatio, densityRatio float64) (Affinity, error) {
-	if err := checkRatios("speed", speedRatio, "diameter", diameterRatio, "density", densityRatio); err != nil {
+func AffinityLaws(sc Scales) (Affinity, error) {
+	if err := sc.need("AffinityLaws", "Speed", "Diameter", "Density"); err != nil {
 		return Affinity{}, err
 	}
+	speedRatio, diameterRatio, densityRatio := sc.Speed, sc.Diameter, sc.Density
 	p := pigroups.MustProblem(
 		pigroups.VarKind("Q", quantity.VolumeFlowRate, "volume flow rate"), pigroups.VarKind("gH", quantity.SpecificEnergy, "specific energy"),
 		pigroups.VarKind("P", quantity.Power, "power"), pigroups.VarKind("N", quantity.AngularVelocity, "rotational speed"),
@@ -195,10 +254,13 @@ type Distorted struct {
 // Froude number held on the vertical scale (V²/(g·z)), the same gravity,
 // the horizontal scale fixed separately. Manning's n follows from holding
 // friction slope equal to bed slope: n ∝ z^(2/3)·S^(1/2)/V.
-func DistortedFroude(horizontal, vertical float64) (Distorted, error) {
-	if err := checkRatios("horizontal length", horizontal, "vertical length", vertical); err != nil {
+//
+// It takes Scales.Horizontal and Scales.Vertical.
+func DistortedFroude(sc Scales) (Distorted, error) {
+	if err := sc.need("DistortedFroude", "Horizontal", "Vertical"); err != nil {
 		return Distorted{}, err
 	}
+	horizontal, vertical := sc.Horizontal, sc.Vertical
 	p := pigroups.MustProblem(
 		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("x", quantity.Length, "length"),
 		pigroups.VarKind("z", quantity.Length, "length"), pigroups.VarKind("g", quantity.Acceleration, "gravitational acceleration"),

@@ -23,7 +23,7 @@ func lawExp(t *testing.T, r similarity.Ratio, sym string) q.Rat {
 // closed form (common practice): λ_V = λ_t = λ_L^(1/2), λ_F = λ_L³,
 // λ_P = λ_L^(7/2), λ_Q = λ_L^(5/2), λ_p = λ_L.
 func TestFroudeLaws(t *testing.T) {
-	s, err := similarity.Froude(1.0/25, 1)
+	s, err := similarity.Froude(similarity.Scales{Length: 1.0/25, Density: 1})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -65,7 +65,7 @@ func TestFroudeLaws(t *testing.T) {
 // TestReynoldsMachLaws checks the closed forms λ_V = λ_ν/λ_L (Reynolds)
 // and λ_V = λ_a (Mach); common practice.
 func TestReynoldsMachLaws(t *testing.T) {
-	s, err := similarity.Reynolds(0.1, 1, 1)
+	s, err := similarity.Reynolds(similarity.Scales{Length: 0.1, KinematicViscosity: 1, Density: 1})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -73,7 +73,7 @@ func TestReynoldsMachLaws(t *testing.T) {
 	if r.Law.Exponent("L") != q.RatInt(-1) || r.Law.Exponent("nu") != q.RatInt(1) || math.Abs(r.Value-10) > 1e-12 {
 		t.Errorf("Reynolds λ_V = %s", r)
 	}
-	m, err := similarity.Mach(0.05, 0.9, 3)
+	m, err := similarity.Mach(similarity.Scales{Length: 0.05, SpeedOfSound: 0.9, Density: 3})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -86,17 +86,17 @@ func TestReynoldsMachLaws(t *testing.T) {
 	if want := 3 * 0.81 * 0.0025; math.Abs(f.Value/want-1) > 1e-12 {
 		t.Errorf("Mach λ_F = %s, want %v", f, want)
 	}
-	w, _ := similarity.Weber(0.5, 1, 1)
+	w, _ := similarity.Weber(similarity.Scales{Length: 0.5, Density: 1, SurfaceTension: 1})
 	r, _ = w.Ratio("V")
 	if math.Abs(r.Value-math.Sqrt(2)) > 1e-12 {
 		t.Errorf("Weber λ_V = %s", r)
 	}
-	st, _ := similarity.Strouhal(0.1, 2)
+	st, _ := similarity.Strouhal(similarity.Scales{Length: 0.1, Velocity: 2})
 	r, _ = st.Ratio("f")
 	if math.Abs(r.Value-20) > 1e-12 {
 		t.Errorf("Strouhal λ_f = %s", r)
 	}
-	e, _ := similarity.Euler(0.2, 1, 0.5)
+	e, _ := similarity.Euler(similarity.Scales{Length: 0.2, Density: 1, Velocity: 0.5})
 	r, _ = e.Ratio("p")
 	if math.Abs(r.Value-0.25) > 1e-12 {
 		t.Errorf("Euler λ_p = %s", r)
@@ -106,7 +106,7 @@ func TestReynoldsMachLaws(t *testing.T) {
 // TestAffinity checks the pump affinity laws Q ∝ N·D³, gH ∝ N²·D²,
 // P ∝ ρ·N³·D⁵ (common practice).
 func TestAffinity(t *testing.T) {
-	a, err := similarity.AffinityLaws(1450.0/1750, 2.5, 1)
+	a, err := similarity.AffinityLaws(similarity.Scales{Speed: 1450.0/1750, Diameter: 2.5, Density: 1})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -118,7 +118,7 @@ func TestAffinity(t *testing.T) {
 			t.Errorf("affinity %d: %v, want %v", i, got[i], want[i])
 		}
 	}
-	dd, err := similarity.DistortedFroude(1.0/400, 1.0/80)
+	dd, err := similarity.DistortedFroude(similarity.Scales{Horizontal: 1.0/400, Vertical: 1.0/80})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -230,7 +230,7 @@ func TestCompromise(t *testing.T) {
 }
 
 func TestTransfer(t *testing.T) {
-	s, _ := similarity.Froude(1.0/30, 1)
+	s, _ := similarity.Froude(similarity.Scales{Length: 1.0/30, Density: 1})
 	m := q.NewSeries([]float64{0.1, 0.2, 0.3}, q.VolumeFlowRate)
 	var p q.Series
 	if err := s.SeriesToPrototype(&p, m); err != nil {
@@ -313,8 +313,8 @@ func TestITTC1957(t *testing.T) {
 func TestHullAndProhaska(t *testing.T) {
 	const scale, k1 = 1.0 / 16, 1.12
 	Lm, Sm := 2.5, 1.9
-	tank := similarity.Water{Density: q.New(999.1, q.Density), KinematicViscosity: q.New(1.1386e-6, q.KinematicViscosity)}
-	sea := similarity.Water{Density: q.New(1026.0, q.Density), KinematicViscosity: q.New(1.1892e-6, q.KinematicViscosity)}
+	tank := fluids.State{Density: q.New(999.1, q.Density), KinematicViscosity: q.New(1.1386e-6, q.KinematicViscosity)}
+	sea := fluids.State{Density: q.New(1026.0, q.Density), KinematicViscosity: q.New(1.1892e-6, q.KinematicViscosity)}
 	var speeds, res []q.Quantity
 	for _, fn := range []float64{0.08, 0.10, 0.12, 0.14, 0.16, 0.18, 0.30, 0.40} {
 		v := fn * math.Sqrt(9.80665*Lm)
@@ -368,7 +368,7 @@ func TestMoody(t *testing.T) {
 }
 
 func TestTunnelFinder(t *testing.T) {
-	proto, _ := fluids.StandardAtmosphere(18000)
+	proto, _ := fluids.StandardAtmosphere(q.New(18000, q.Length), fluids.GeopotentialAlt)
 	V := q.New(0.6*proto.SpeedOfSound.Value(), q.Velocity)
 	L := q.New(2.0, q.Length)
 	lim := similarity.TunnelLimits{MinTemperature: q.New(100, q.Temperature), MaxTemperature: q.New(320, q.Temperature),

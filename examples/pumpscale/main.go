@@ -69,7 +69,8 @@ func evaluate(w io.Writer, args []string) ([]Row, error) {
 		return nil, fmt.Errorf("speeds and diameters must be positive")
 	}
 	// Ratios prototype/model: the affinity laws run either way.
-	aff, err := similarity.AffinityLaws(*np / *nm, *dp / *dm, 1)
+	// Ratios are model/prototype, as everywhere in similis.
+	aff, err := similarity.AffinityLaws(similarity.Scales{Speed: *nm / *np, Diameter: *dm / *dp, Density: 1})
 	if err != nil {
 		return nil, err
 	}
@@ -81,7 +82,7 @@ func evaluate(w io.Writer, args []string) ([]Row, error) {
 	ls, m, kw := units.MustParse("L/s"), units.MustParse("m"), units.MustParse("kW")
 	fmt.Fprintln(w, "Pump-family scale-up by the affinity laws (invented model curve)")
 	fmt.Fprintf(w, "model %g in impeller at %g rpm → prototype %g in at %g rpm\n", *dm, *nm, *dp, *np)
-	fmt.Fprintf(w, "ratios prototype/model: flow ×%.4g (N·D³), head ×%.4g (N²·D²), power ×%.4g (ρ·N³·D⁵)\n", aff.Flow, aff.Head, aff.Power)
+	fmt.Fprintf(w, "ratios model/prototype: flow %.4g (N·D³), head %.4g (N²·D²), power %.4g (ρ·N³·D⁵); the prototype is the model divided by them\n", aff.Flow, aff.Head, aff.Power)
 	// Efficiencies first: the step-up is taken at the best-efficiency
 	// point and its gain applied along the curve.
 	etas := make([]float64, len(curve))
@@ -115,8 +116,8 @@ func evaluate(w io.Writer, args []string) ([]Row, error) {
 		// Shaft power from the hydraulic power and the efficiency.
 		P := water.Mul(g).Mul(Q).Mul(H).Div(eta)
 		r := Row{ModelQ: Q, ModelH: H, ModelP: P, ModelEta: eta}
-		r.ProtoQ = Q.Scale(aff.Flow)
-		r.ProtoH = H.Scale(aff.Head)
+		r.ProtoQ = Q.Scale(1 / aff.Flow)
+		r.ProtoH = H.Scale(1 / aff.Head)
 		r.ProtoEta = step.Efficiency[i]
 		r.ProtoP = water.Mul(g).Mul(r.ProtoQ).Mul(r.ProtoH).Scale(1 / r.ProtoEta)
 		rows = append(rows, r)

@@ -104,8 +104,8 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	res.Extrapolate, err = similarity.ExtrapolateHull(similarity.HullTest{
 		Scale: 1 / scale, ModelLength: q.New(32/scale, q.Length), ModelWettedArea: q.New(414.7/(scale*scale), q.Area),
 		Speeds: []q.Quantity{vm}, Resistances: []q.Quantity{rm},
-		Tank: similarity.Water{Density: tank.Density, KinematicViscosity: tank.KinematicViscosity},
-		Sea:  similarity.Water{Density: sea.Density, KinematicViscosity: sea.KinematicViscosity}, Allowance: 0.0004})
+		Tank: tank,
+		Sea:  sea, Allowance: 0.0004})
 	if err != nil {
 		return nil, err
 	}

@@ -65,7 +65,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	if !(*scale > 1 && *qp > 0 && *hs > 1 && *vs > 1) {
 		return nil, fmt.Errorf("scales must exceed 1 and the discharge be positive")
 	}
-	s, err := similarity.Froude(1 / *scale, 1)
+	s, err := similarity.Froude(similarity.Scales{Length: 1 / *scale, Density: 1})
 	if err != nil {
 		return nil, err
 	}
@@ -118,7 +118,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	r.Manning, _ = similarity.ManningRatio(1 / *scale)
 	fmt.Fprintf(w, "\nroughness: Manning n ratio λ_L^(1/6) = %.4f (a prototype n of 0.014 needs a model n of %.4f)\n", r.Manning, 0.014*r.Manning)
 
-	if r.Distorted, err = similarity.DistortedFroude(1 / *hs, 1 / *vs); err != nil {
+	if r.Distorted, err = similarity.DistortedFroude(similarity.Scales{Horizontal: 1 / *hs, Vertical: 1 / *vs}); err != nil {
 		return nil, err
 	}
 	d := r.Distorted

@@ -77,8 +77,8 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	}
 	test := similarity.HullTest{
 		Scale: 1 / *scale, ModelLength: q.New(modelLength, q.Length), ModelWettedArea: q.New(modelArea, q.Area),
-		Tank:      similarity.Water{Density: tank.Density, KinematicViscosity: tank.KinematicViscosity},
-		Sea:       similarity.Water{Density: sea.Density, KinematicViscosity: sea.KinematicViscosity},
+		Tank:      tank,
+		Sea:       sea,
 		Allowance: *ca,
 	}
 	for i := range speeds {

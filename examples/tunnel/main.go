@@ -62,17 +62,18 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	if !(*scale > 1) || !(*mach > 0 && *mach < 1) || !(*chord > 0) {
 		return nil, fmt.Errorf("want -scale > 1, 0 < -mach < 1 and -chord > 0")
 	}
-	flight, err := fluids.StandardAtmosphere(fluids.Geopotential(*alt))
+	flight, err := fluids.StandardAtmosphere(q.New(*alt, q.Length), fluids.Geometric)
 	if err != nil {
 		return nil, err
 	}
+	gp, _ := fluids.Geopotential(q.New(*alt, q.Length))
 	r := &Result{Flight: flight, Chord: *chord}
 	r.Speed = *mach * flight.SpeedOfSound.Value()
 	r.ReFlight = flight.Density.Value() * r.Speed * *chord / flight.DynamicViscosity.Value()
 
 	fmt.Fprintln(w, "Wind-tunnel plan for an invented high-altitude survey aircraft")
 	fmt.Fprintf(w, "cruise: %.0f m (geopotential %.0f m), ISO 2533: T = %.2f K, p = %.0f Pa, ρ = %.5f kg/m³, a = %.2f m/s\n",
-		*alt, fluids.Geopotential(*alt), flight.Temperature.Value(), flight.Pressure.Value(), flight.Density.Value(), flight.SpeedOfSound.Value())
+		*alt, gp.Value(), flight.Temperature.Value(), flight.Pressure.Value(), flight.Density.Value(), flight.SpeedOfSound.Value())
 	fmt.Fprintf(w, "Ma = %.2f, V = %.1f m/s, chord %.2f m: Re = %.3e\n\n", *mach, r.Speed, *chord, r.ReFlight)
 
 	// The plan: V, a, c, ρ, μ with the Mach number first, the Reynolds

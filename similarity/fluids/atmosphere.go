@@ -1,6 +1,7 @@
 package fluids
 
 import (
+	"fmt"
 	"math"
 
 	"similis.dev/similis/quantity"
@@ -24,15 +25,69 @@ var layers = []struct{ h, t, beta float64 }{
 	{20000, 216.65, 0.001},
 }
 
+// Altitude says how an altitude is measured.
+type Altitude uint8
+
+// Kinds of altitude.
+const (
+	// Geometric is the height above mean sea level, as a map or a GPS
+	// gives it.
+	Geometric Altitude = iota + 1
+	// GeopotentialAlt is the geopotential altitude H = r·z/(r + z),
+	// r = 6 356 766 m, the argument of the ISO 2533 tables.
+	GeopotentialAlt
+)
+
+// String names the kind of altitude.
+func (a Altitude) String() string {
+	switch a {
+	case Geometric:
+		return "geometric"
+	case GeopotentialAlt:
+		return "geopotential"
+	}
+	return fmt.Sprintf("Altitude(%d)", uint8(a))
+}
+
 // Geopotential returns the geopotential altitude for a geometric altitude
-// z (m): H = r·z/(r + z), r = 6 356 766 m.
-func Geopotential(z float64) float64 { return earthR * z / (earthR + z) }
+// z: H = r·z/(r + z), r = 6 356 766 m.
+func Geopotential(z quantity.Quantity) (quantity.Quantity, error) {
+	if err := z.CheckNamed("geometric altitude", quantity.Length); err != nil {
+		return quantity.Quantity{}, err
+	}
+	if v := z.Value(); !(v > -earthR/2 && v < 10*earthR) {
+		return quantity.Quantity{}, &RangeError{Fluid: "ISO 2533 atmosphere", What: "geometric altitude (m)", Value: v, Lo: -earthR / 2, Hi: 10 * earthR}
+	}
+	return quantity.New(geopotential(z.Value()), quantity.Length), nil
+}
+
+func geopotential(z float64) float64 { return earthR * z / (earthR + z) }
 
 // StandardAtmosphere returns the state of the ISO 2533 standard
-// atmosphere at geopotential altitude H (m), from −2 km to 32 km:
-// temperature, pressure, density, speed of sound, dynamic and kinematic
-// viscosity (Sutherland's law).
-func StandardAtmosphere(H float64) (State, error) {
+// atmosphere at an altitude h of the kind given, from −2 km to 32 km
+// geopotential: temperature, pressure, density, speed of sound, dynamic
+// and kinematic viscosity (Sutherland's law).
+func StandardAtmosphere(h quantity.Quantity, kind Altitude) (State, error) {
+	if err := h.CheckNamed("altitude", quantity.Length); err != nil {
+		return State{}, err
+	}
+	var H float64
+	switch kind {
+	case Geometric:
+		gp, err := Geopotential(h)
+		if err != nil {
+			return State{}, err
+		}
+		H = gp.Value()
+	case GeopotentialAlt:
+		H = h.Value()
+	default:
+		return State{}, &RangeError{Fluid: "ISO 2533 atmosphere", What: "kind of altitude (Geometric or GeopotentialAlt)", Value: float64(kind), Lo: 1, Hi: 2}
+	}
+	return standardAtmosphere(H)
+}
+
+func standardAtmosphere(H float64) (State, error) {
 	if !(H >= -2000 && H <= maxAltGP) {
 		return State{}, &RangeError{Fluid: "ISO 2533 atmosphere", What: "geopotential altitude (m)", Value: H, Lo: -2000, Hi: maxAltGP}
 	}

@@ -66,7 +66,7 @@ func TestStandardAtmosphere(t *testing.T) {
 		{20000, 216.65, 5474.9, 0.088035, 295.07},
 	}
 	for _, c := range cases {
-		s, err := fluids.StandardAtmosphere(c.H)
+		s, err := fluids.StandardAtmosphere(q.New(c.H, q.Length), fluids.GeopotentialAlt)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -79,15 +79,15 @@ func TestStandardAtmosphere(t *testing.T) {
 			}
 		}
 	}
-	s, _ := fluids.StandardAtmosphere(0)
+	s, _ := fluids.StandardAtmosphere(q.New(0, q.Length), fluids.Geometric)
 	// ISO 2533 sea level: μ = 1.7894e-5 Pa·s, ν = 1.4607e-5 m²/s.
 	if math.Abs(s.DynamicViscosity.Value()/1.7894e-5-1) > 5e-5 || math.Abs(s.KinematicViscosity.Value()/1.4607e-5-1) > 5e-5 {
 		t.Errorf("sea-level viscosity %v, %v", s.DynamicViscosity, s.KinematicViscosity)
 	}
-	if _, err := fluids.StandardAtmosphere(40000); !errors.Is(err, fluids.ErrRange) {
+	if _, err := fluids.StandardAtmosphere(q.New(40000, q.Length), fluids.GeopotentialAlt); !errors.Is(err, fluids.ErrRange) {
 		t.Errorf("40 km: %v", err)
 	}
-	if h := fluids.Geopotential(18000); math.Abs(h-17949.2) > 0.1 { // r·z/(r+z), worked by hand
+	if h, _ := fluids.Geopotential(q.New(18000, q.Length)); math.Abs(h.Value()-17949.2) > 0.1 { // r·z/(r+z), worked by hand
 		t.Errorf("geopotential of 18 km = %v", h)
 	}
 }
