@@ -72,7 +72,7 @@ func Example_coefficients() {
 }
 
 func Example_similarity() {
-	s, _ := similarity.Froude(similarity.Scales{Length: 1.0/25, Density: 1}) // a 1:25 model in the same water
+	s, _ := similarity.Froude(similarity.Scales{Length: 1.0 / 25, Density: 1}) // a 1:25 model in the same water
 	for _, d := range []quantity.Dim{quantity.Velocity, quantity.Force, quantity.Power} {
 		r, _ := s.DerivedRatio(d)
 		fmt.Println(quantity.KindName(d), r)

@@ -69,7 +69,7 @@ func TestExponentsFromOutside(t *testing.T) {
 		t.Errorf("Rewrite: %v, %v", e, err)
 	}
 
-	sol, err := similarity.Froude(similarity.Scales{Length: 1.0/25, Density: 1})
+	sol, err := similarity.Froude(similarity.Scales{Length: 1.0 / 25, Density: 1})
 	if err != nil {
 		t.Fatal(err)
 	}

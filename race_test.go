@@ -67,7 +67,7 @@ func TestConcurrentUse(t *testing.T) {
 						return
 					}
 				case 4:
-					if _, err := similarity.Froude(similarity.Scales{Length: 1.0/float64(2+i%50), Density: 1}); err != nil {
+					if _, err := similarity.Froude(similarity.Scales{Length: 1.0 / float64(2+i%50), Density: 1}); err != nil {
 						errs <- err
 						return
 					}

@@ -34,7 +34,7 @@ func BenchmarkPlan(b *testing.B) {
 // BenchmarkTransfer carries 10⁶ model values to full scale, against a
 // plain float64 loop multiplying by the same factor.
 func BenchmarkTransfer(b *testing.B) {
-	s, _ := similarity.Froude(similarity.Scales{Length: 1.0/30, Density: 1})
+	s, _ := similarity.Froude(similarity.Scales{Length: 1.0 / 30, Density: 1})
 	r := rand.New(rand.NewPCG(1, 1))
 	v := make([]float64, 1_000_000)
 	for i := range v {

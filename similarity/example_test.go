@@ -11,7 +11,7 @@ import (
 // Froude scaling of a 1:25 model in the same water: every ratio as an
 // exact law, then its value.
 func ExampleFroude() {
-	s, err := similarity.Froude(similarity.Scales{Length: 1.0/25, Density: 1})
+	s, err := similarity.Froude(similarity.Scales{Length: 1.0 / 25, Density: 1})
 	if err != nil {
 		panic(err)
 	}
@@ -62,7 +62,7 @@ func ExampleAffinityLaws() {
 
 // Carry a measured model force to full scale.
 func ExampleSolution_ToPrototype() {
-	s, _ := similarity.Froude(similarity.Scales{Length: 1.0/30, Density: 1})
+	s, _ := similarity.Froude(similarity.Scales{Length: 1.0 / 30, Density: 1})
 	fm := quantity.New(12.5, quantity.Force) // invented model reading, N
 	fp, _ := s.ToPrototype(fm)
 	fmt.Printf("%.4g N\n", fp.Value())

@@ -68,7 +68,10 @@ func TestFiniteOrError(t *testing.T) {
 			return err
 		}()},
 		{"Froude power ratio at 1e-300", derived(1e-300)},
-		{"affinity laws at 1e200", func() error { _, err := similarity.AffinityLaws(similarity.Scales{Speed: 1e200, Diameter: 1e200, Density: 1}); return err }()},
+		{"affinity laws at 1e200", func() error {
+			_, err := similarity.AffinityLaws(similarity.Scales{Speed: 1e200, Diameter: 1e200, Density: 1})
+			return err
+		}()},
 		{"hull with NaN form factor", hull(func(h *similarity.HullTest) { h.FormFactor = nan })},
 		{"hull with NaN allowance", hull(func(h *similarity.HullTest) { h.Allowance = nan })},
 		{"hull with NaN gravity", hull(func(h *similarity.HullTest) { h.Gravity = q.New(nan, q.Acceleration) })},

@@ -1,10 +1,10 @@
 package similarity
 
 import (
-	"strings"
-	"slices"
 	"fmt"
 	"math"
+	"slices"
+	"strings"
 
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"

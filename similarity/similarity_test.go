@@ -23,7 +23,7 @@ func lawExp(t *testing.T, r similarity.Ratio, sym string) q.Rat {
 // closed form (common practice): λ_V = λ_t = λ_L^(1/2), λ_F = λ_L³,
 // λ_P = λ_L^(7/2), λ_Q = λ_L^(5/2), λ_p = λ_L.
 func TestFroudeLaws(t *testing.T) {
-	s, err := similarity.Froude(similarity.Scales{Length: 1.0/25, Density: 1})
+	s, err := similarity.Froude(similarity.Scales{Length: 1.0 / 25, Density: 1})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -106,7 +106,7 @@ func TestReynoldsMachLaws(t *testing.T) {
 // TestAffinity checks the pump affinity laws Q ∝ N·D³, gH ∝ N²·D²,
 // P ∝ ρ·N³·D⁵ (common practice).
 func TestAffinity(t *testing.T) {
-	a, err := similarity.AffinityLaws(similarity.Scales{Speed: 1450.0/1750, Diameter: 2.5, Density: 1})
+	a, err := similarity.AffinityLaws(similarity.Scales{Speed: 1450.0 / 1750, Diameter: 2.5, Density: 1})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -118,7 +118,7 @@ func TestAffinity(t *testing.T) {
 			t.Errorf("affinity %d: %v, want %v", i, got[i], want[i])
 		}
 	}
-	dd, err := similarity.DistortedFroude(similarity.Scales{Horizontal: 1.0/400, Vertical: 1.0/80})
+	dd, err := similarity.DistortedFroude(similarity.Scales{Horizontal: 1.0 / 400, Vertical: 1.0 / 80})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -230,7 +230,7 @@ func TestCompromise(t *testing.T) {
 }
 
 func TestTransfer(t *testing.T) {
-	s, _ := similarity.Froude(similarity.Scales{Length: 1.0/30, Density: 1})
+	s, _ := similarity.Froude(similarity.Scales{Length: 1.0 / 30, Density: 1})
 	m := q.NewSeries([]float64{0.1, 0.2, 0.3}, q.VolumeFlowRate)
 	var p q.Series
 	if err := s.SeriesToPrototype(&p, m); err != nil {
