@@ -83,8 +83,23 @@ func (e *EvalError) Error() string {
 	return s + ": " + e.Reason
 }
 
-// Unwrap returns the dimension error, if any.
+// Unwrap returns the dimension error or ErrNotFinite, if either was the
+// problem.
 func (e *EvalError) Unwrap() error { return e.Err }
+
+// Is reports whether target is the error's class: quantity.ErrRange for a
+// value out of range, quantity.ErrInvalid for values that do not fit the
+// set (a wrong count or length); a wrong dimension is matched through
+// Unwrap as quantity.ErrDimension.
+func (e *EvalError) Is(target error) bool {
+	switch e.Err {
+	case nil:
+		return target == quantity.ErrInvalid
+	case ErrNotFinite:
+		return target == quantity.ErrRange
+	}
+	return false
+}
 
 func powInt(x float64, n int) float64 {
 	switch n {

@@ -9,6 +9,7 @@ import (
 
 	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/stat/distuv"
+	"similis.dev/similis/quantity"
 )
 
 // Errors a fit can be refused with; a *FitError wraps one.
@@ -43,8 +44,12 @@ func (e *FitError) Error() string {
 	return s
 }
 
-// Unwrap returns the class of the problem.
+// Unwrap returns the kind of problem (one of the Err… values above).
 func (e *FitError) Unwrap() error { return e.Err }
+
+// Is reports whether target is quantity.ErrInvalid, the class of a
+// *FitError.
+func (e *FitError) Is(target error) bool { return target == quantity.ErrInvalid }
 
 // FitOptions adjusts a fit. The zero value is an unweighted fit with 95 %
 // intervals.

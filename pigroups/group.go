@@ -63,11 +63,11 @@ var ErrNotExact = errors.New("not exactly a named group")
 // says why.
 func (g Group) Coefficient() (Group, error) {
 	if len(g.Matches) == 0 {
-		return Group{}, fmt.Errorf("pigroups: %s = %s: %w: it has no name", g.Name, g, ErrNotExact)
+		return Group{}, &ProblemError{Err: ErrNotExact, Symbol: g.Name, Reason: fmt.Sprintf("%s has no name", g)}
 	}
 	m := g.Matches[0]
 	if !m.Exact() {
-		return Group{}, fmt.Errorf("pigroups: %s = %s: %w: it is %s", g.Name, g, ErrNotExact, m.describe(g.Name))
+		return Group{}, &ProblemError{Err: ErrNotExact, Symbol: g.Name, Reason: fmt.Sprintf("%s is %s", g, m.describe(g.Name))}
 	}
 	exps := make([]quantity.Rat, len(g.exps))
 	for i, e := range g.exps {

@@ -55,7 +55,7 @@ func Dep(symbol string, d quantity.Dim) Variable {
 func VarUnit(symbol, unit string) (Variable, error) {
 	u, err := units.Parse(unit)
 	if err != nil {
-		return Variable{}, fmt.Errorf("pigroups: variable %q: %w", symbol, err)
+		return Variable{}, &ProblemError{Err: err, Symbol: symbol, Reason: "its unit does not parse"}
 	}
 	return Variable{Symbol: symbol, Dim: u.Dim()}, nil
 }
@@ -107,8 +107,34 @@ func (e *ProblemError) Error() string {
 	return s
 }
 
-// Unwrap returns the class of the problem.
+// Unwrap returns the kind of problem (one of the Err… values), or the
+// error of the unit or exponent that caused it.
 func (e *ProblemError) Unwrap() error { return e.Err }
+
+// Is reports whether target is the error's class among quantity's
+// (ErrUnknown, ErrRange, ErrDimension, ErrInvalid); an error caused by
+// another (a unit that does not parse) has that error's class.
+func (e *ProblemError) Is(target error) bool { return classOf(e.Err) == target }
+
+// classOf maps the package's kinds of problem to the module's classes.
+func classOf(err error) error {
+	switch err {
+	case ErrUnknownVariable, ErrRepeatingUnknown, ErrUnknownKind:
+		return quantity.ErrUnknown
+	case ErrTooLarge, ErrNotFinite:
+		return quantity.ErrRange
+	case ErrKindDimension, ErrNotDimensionless:
+		return quantity.ErrDimension
+	case ErrNoVariables, ErrDuplicateSymbol, ErrTwoDependent, ErrRepeatingCount, ErrRepeatingDep, ErrRepeatingSingular,
+		ErrNoGroups, ErrTooManyVariables, ErrBadSymbol, ErrDependentOnly, ErrForeignGroup, ErrTooManySets, ErrNotExact,
+		ErrTooFewRows, ErrNonPositive, ErrCollinear, ErrFitShape, errInternal:
+		return quantity.ErrInvalid
+	}
+	return nil
+}
+
+// errInternal marks a failed internal consistency check, which is a bug.
+var errInternal = errors.New("internal error")
 
 // RepeatingError reports a repeating set that is refused, and why.
 type RepeatingError struct {
@@ -150,8 +176,12 @@ func (e *RepeatingError) Error() string {
 	return sb.String()
 }
 
-// Unwrap returns the class of the problem.
+// Unwrap returns the kind of problem (one of the ErrRepeating… values).
 func (e *RepeatingError) Unwrap() error { return e.Err }
+
+// Is reports whether target is the error's class: quantity.ErrUnknown for
+// an unknown member, quantity.ErrInvalid otherwise.
+func (e *RepeatingError) Is(target error) bool { return classOf(e.Err) == target }
 
 // Problem is a list of variables with its dimensional matrix and rank.
 type Problem struct {
@@ -523,7 +553,9 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 			return nil, fail(ErrRepeatingUnknown, s)
 		}
 		if slices.Contains(idx, i) {
-			return nil, fail(fmt.Errorf("%w: %q given twice", ErrRepeatingCount, s), "")
+			e := fail(ErrRepeatingCount, s)
+			e.Hint = fmt.Sprintf("%q is given twice", s)
+			return nil, e
 		}
 		if i == p.dep {
 			return nil, fail(ErrRepeatingDep, s)

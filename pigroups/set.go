@@ -67,7 +67,7 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		return nil, p.tooLarge(err)
 	}
 	if len(pivots) != len(idx) || pivots[len(pivots)-1] != len(idx)-1 {
-		return nil, fmt.Errorf("pigroups: internal error: repeating set %v is not independent", s.Repeating())
+		return nil, &ProblemError{Err: errInternal, Reason: fmt.Sprintf("repeating set %v is not independent", s.Repeating())}
 	}
 	n := len(p.vars)
 	cells := make([]quantity.Rat, n*len(order))
@@ -87,7 +87,7 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		iv := v
 		g := Group{Name: piName(k + 1), Var: j, exps: iv, prob: p}
 		if !p.dimensionless(iv) {
-			return nil, fmt.Errorf("pigroups: internal error: group %s is not dimensionless", g)
+			return nil, &ProblemError{Err: errInternal, Reason: fmt.Sprintf("group %s is not dimensionless", g)}
 		}
 		g.Matches = p.recognise(iv)
 		s.groups = append(s.groups, g)

@@ -6,9 +6,30 @@ import (
 	"strings"
 )
 
-// ErrDimension is matched by every *DimensionError under errors.Is, for
-// callers that only need to know that a dimension check failed.
-var ErrDimension = errors.New("dimension error")
+// The classes of error of the whole module. Every error similis returns
+// matches exactly one of them, or ErrConflict of package similarity,
+// under errors.Is, and its concrete type (a *…Error of the package that
+// returned it) under errors.As; the concrete types name the input, the
+// offset where there is one, and the reason.
+var (
+	// ErrDimension: a dimension that is wrong for an operation, or two
+	// that differ where they must agree. Every *DimensionError matches it.
+	ErrDimension = errors.New("dimension error")
+	// ErrRange: a number out of range — not finite, an overflow or an
+	// underflow, an exponent or a fraction too large, a value outside
+	// the range of a correlation.
+	ErrRange = errors.New("out of range")
+	// ErrParse: text that cannot be read (a unit, a value, a dimension, an
+	// exponent).
+	ErrParse = errors.New("cannot parse")
+	// ErrUnknown: a name that is not known (a unit symbol, a variable, a
+	// kind of quantity).
+	ErrUnknown = errors.New("unknown name")
+	// ErrInvalid: an argument or a combination of arguments a function
+	// cannot take (a repeating set of the wrong size, a group of another
+	// problem, series of different lengths, a plan built wrongly).
+	ErrInvalid = errors.New("invalid argument")
+)
 
 // DimensionError reports a dimension that is wrong for an operation: two
 // sides of a sum that differ, a transcendental function given a
@@ -108,6 +129,9 @@ type LengthError struct {
 	Op          string // the operation, "add", "multiply", …
 	Left, Right int    // the two lengths
 }
+
+// Is reports whether target is ErrInvalid, the class of a *LengthError.
+func (e *LengthError) Is(target error) bool { return target == ErrInvalid }
 
 // Error implements the error interface.
 func (e *LengthError) Error() string {

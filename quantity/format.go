@@ -80,6 +80,9 @@ type ParseError struct {
 	Reason string // what is wrong
 }
 
+// Is reports whether target is ErrParse, the class of a *ParseError.
+func (e *ParseError) Is(target error) bool { return target == ErrParse }
+
 // Error implements the error interface.
 func (e *ParseError) Error() string {
 	return fmt.Sprintf("parse %q: at offset %d: %s", e.Input, e.Offset, e.Reason)

@@ -1,7 +1,6 @@
 package quantity
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"math/bits"
@@ -11,12 +10,8 @@ import (
 	"similis.dev/similis/internal/exact"
 )
 
-// ErrRange is wrapped by errors for numbers out of range: an exact
-// rational whose numerator or denominator would not fit in an int64, a
-// zero denominator.
-var ErrRange = errors.New("out of range")
-
-// RatError reports an exact rational operation that cannot be done.
+// RatError reports an exact rational operation that cannot be done, or
+// text ParseRat cannot read.
 type RatError struct {
 	Op     string // "add", "divide", "parse", …
 	Input  string // the operands or the text
@@ -28,8 +23,14 @@ func (e *RatError) Error() string {
 	return fmt.Sprintf("quantity: %s %s: %s", e.Op, e.Input, e.Reason)
 }
 
-// Unwrap returns ErrRange.
-func (e *RatError) Unwrap() error { return ErrRange }
+// Is reports whether target is the error's class: ErrParse for text
+// ParseRat cannot read, ErrRange otherwise.
+func (e *RatError) Is(target error) bool {
+	if e.Op == "parse" {
+		return target == ErrParse
+	}
+	return target == ErrRange
+}
 
 // Rat is an exact rational number n/d in lowest terms with d > 0: the
 // exponent of a dimension, a Pi group's variable or a scale law's free

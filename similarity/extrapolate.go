@@ -28,6 +28,10 @@ func (e *ExtrapolationError) Error() string {
 // Unwrap returns ErrExtrapolation.
 func (e *ExtrapolationError) Unwrap() error { return ErrExtrapolation }
 
+// Is reports whether target is quantity.ErrInvalid, the class of an
+// *ExtrapolationError (inputs the method cannot use).
+func (e *ExtrapolationError) Is(target error) bool { return target == quantity.ErrInvalid }
+
 // ITTC1957 returns the ITTC-1957 model–ship correlation line,
 // C_F = 0.075/(log₁₀Re − 2)², for a Reynolds number above 10⁵ (the line
 // is not meant for laminar or transitional flow).
@@ -171,14 +175,14 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 		p.ModelCT = r.Value() / (0.5 * t.Tank.Density.Value() * Vm * Vm * Sm)
 		var err error
 		if p.ModelCF, err = ITTC1957(p.ModelReynolds); err != nil {
-			return nil, fmt.Errorf("run %d: %w", i, err)
+			return nil, &ExtrapolationError{Method: "hull extrapolation", Reason: fmt.Sprintf("run %d, model: %v", i, err)}
 		}
 		p.Residual = p.ModelCT - k1*p.ModelCF
 		Vs := Vm / math.Sqrt(t.Scale)
 		p.ShipSpeed = quantity.New(Vs, quantity.Velocity)
 		p.ShipReynolds = Vs * Ls / t.Sea.KinematicViscosity.Value()
 		if p.ShipCF, err = ITTC1957(p.ShipReynolds); err != nil {
-			return nil, fmt.Errorf("run %d: %w", i, err)
+			return nil, &ExtrapolationError{Method: "hull extrapolation", Reason: fmt.Sprintf("run %d, ship: %v", i, err)}
 		}
 		p.ShipCT = k1*p.ShipCF + p.Residual + t.Allowance
 		Rs := p.ShipCT * 0.5 * t.Sea.Density.Value() * Vs * Vs * Ss

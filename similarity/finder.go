@@ -58,7 +58,7 @@ func TemperatureFor(f fluids.Fluid, p quantity.Quantity, property func(fluids.St
 	}
 	T, err := bisect(g, lo.Value(), hi.Value())
 	if err != nil {
-		return quantity.Quantity{}, fmt.Errorf("similarity: %s: no temperature in %g … %g K gives %g: %w", f.Name(), lo.Value(), hi.Value(), target, err)
+		return quantity.Quantity{}, &PlanError{Err: ErrNoRoot, Reason: fmt.Sprintf("%s: no temperature in %g … %g K gives %g", f.Name(), lo.Value(), hi.Value(), target)}
 	}
 	return quantity.New(T, quantity.Temperature), nil
 }
@@ -164,7 +164,7 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 		} else {
 			var err error
 			if T0, err = bisect(func(T0 float64) float64 { return need0(T0) - plo }, tlo, thi); err != nil {
-				return TunnelCondition{}, err
+				return TunnelCondition{}, &PlanError{Err: ErrNoRoot, Reason: "no total temperature within the limits gives the Reynolds number at the minimum pressure"}
 			}
 			p0 = plo
 		}

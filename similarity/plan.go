@@ -69,12 +69,31 @@ type PlanError struct {
 // Error implements the error interface.
 func (e *PlanError) Error() string { return "similarity: " + e.Reason }
 
-// Unwrap returns the class of the error, and the cause it wraps if any.
+// Unwrap returns the kind of problem (one of the Err… values), or the
+// error that caused it.
 func (e *PlanError) Unwrap() error {
 	if e.Err == nil {
 		return ErrPlan
 	}
 	return e.Err
+}
+
+// Is reports whether target is the error's class among quantity's:
+// ErrUnknown for an unknown variable, ErrRange for a ratio out of range,
+// ErrDimension for a group that is not dimensionless, ErrInvalid for the
+// rest; an error caused by another has that error's class.
+func (e *PlanError) Is(target error) bool {
+	switch e.Err {
+	case ErrUnknownVariable:
+		return target == quantity.ErrUnknown
+	case ErrBadRatio:
+		return target == quantity.ErrRange
+	case ErrNotDimensionless:
+		return target == quantity.ErrDimension
+	case nil, ErrPlan, ErrForeignGroup, ErrUnknownRatio, ErrNoRoot:
+		return target == quantity.ErrInvalid
+	}
+	return false
 }
 
 func unknownVar(op, sym string, vars []pigroups.Variable) *PlanError {

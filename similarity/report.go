@@ -99,7 +99,7 @@ func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 			if name, ok := o.Units[v.Symbol]; ok {
 				var err error
 				if u, err = units.Parse(name); err != nil {
-					return nil, fmt.Errorf("similarity: report unit for %s: %w", v.Symbol, err)
+					return nil, &PlanError{Err: err, Symbol: v.Symbol, Reason: fmt.Sprintf("report unit for %s: %v", v.Symbol, err)}
 				}
 			}
 			ps, err := p.FormatIn(q, u)

@@ -19,7 +19,7 @@ func (s *Solution) ratioFor(d quantity.Dim) (float64, error) {
 		return 0, err
 	}
 	if math.IsNaN(r.Value) {
-		return 0, fmt.Errorf("similarity: %s: %w (%s; free: %s)", quantity.Describe(d), ErrUnknownRatio, r.Law, strings.Join(s.free, ", "))
+		return 0, &PlanError{Err: ErrUnknownRatio, Reason: fmt.Sprintf("%s: the ratio %s depends on free ratios with no value (%s)", quantity.Describe(d), r.Law, strings.Join(s.free, ", "))}
 	}
 	return r.Value, nil
 }
@@ -90,7 +90,7 @@ func (s *Solution) VariableToPrototype(symbol string, q quantity.Quantity) (quan
 		return quantity.Quantity{}, err
 	}
 	if math.IsNaN(r.Value) {
-		return quantity.Quantity{}, fmt.Errorf("similarity: λ_%s: %w (%s)", symbol, ErrUnknownRatio, r.Law)
+		return quantity.Quantity{}, &PlanError{Err: ErrUnknownRatio, Symbol: symbol, Reason: fmt.Sprintf("λ_%s = %s depends on a free ratio with no value", symbol, r.Law)}
 	}
 	return scaled(q, 1/r.Value)
 }
@@ -114,7 +114,7 @@ func (s *Solution) SetPoints(prototype map[string]quantity.Quantity, unitOf map[
 			return nil, err
 		}
 		if math.IsNaN(r.Value) {
-			return nil, fmt.Errorf("similarity: set point for %s: %w (%s)", sym, ErrUnknownRatio, r.Law)
+			return nil, &PlanError{Err: ErrUnknownRatio, Symbol: sym, Reason: fmt.Sprintf("set point for %s: λ_%s = %s depends on a free ratio with no value", sym, sym, r.Law)}
 		}
 		m, err := scaled(q, r.Value)
 		if err != nil {
@@ -124,7 +124,7 @@ func (s *Solution) SetPoints(prototype map[string]quantity.Quantity, unitOf map[
 		if name, ok := unitOf[sym]; ok {
 			var err error
 			if u, err = units.Parse(name); err != nil {
-				return nil, fmt.Errorf("similarity: set point unit for %s: %w", sym, err)
+				return nil, &PlanError{Err: err, Symbol: sym, Reason: fmt.Sprintf("set point unit for %s: %v", sym, err)}
 			}
 		}
 		v, err := u.ValueOf(m)

@@ -16,7 +16,9 @@ var (
 	ErrIncompatible = errors.New("incompatible dimensions")
 	ErrAngle        = errors.New("angle mismatch")
 	ErrTemperature  = errors.New("temperature scale and difference mixed")
-	ErrRange        = errors.New("value out of range")
+	// ErrRange is quantity.ErrRange, the module's class for numbers out of
+	// range.
+	ErrRange = quantity.ErrRange
 )
 
 // RangeError reports a number that is not finite, or a result that would
@@ -30,8 +32,9 @@ type RangeError struct {
 // Error implements the error interface.
 func (e *RangeError) Error() string { return "units: " + e.Op + ": " + e.Reason }
 
-// Unwrap returns ErrRange.
-func (e *RangeError) Unwrap() error { return ErrRange }
+// Is reports whether target is quantity.ErrRange, the class of a
+// *RangeError.
+func (e *RangeError) Is(target error) bool { return target == quantity.ErrRange }
 
 func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 
@@ -67,8 +70,19 @@ func (e *ConversionError) Error() string {
 	return s
 }
 
-// Unwrap returns the class of the problem.
+// Unwrap returns the kind of problem (ErrIncompatible, ErrAngle or
+// ErrTemperature).
 func (e *ConversionError) Unwrap() error { return e.Err }
+
+// Is reports whether target is the error's class: quantity.ErrDimension
+// for dimensions that differ, quantity.ErrInvalid for an angle or a
+// temperature role that does not match.
+func (e *ConversionError) Is(target error) bool {
+	if e.Err == ErrIncompatible {
+		return target == quantity.ErrDimension
+	}
+	return target == quantity.ErrInvalid
+}
 
 func checkConvert(from, to Unit) error {
 	if from.dim != to.dim {
@@ -187,7 +201,7 @@ func (v Value) String() string {
 // encoding.TextAppender.
 func (v Value) AppendText(b []byte) ([]byte, error) {
 	if math.IsNaN(v.Number) || math.IsInf(v.Number, 0) {
-		return b, &ValueError{Text: strconv.FormatFloat(v.Number, 'g', -1, 64), Reason: "a value that is not finite has no text form"}
+		return b, &ValueError{Input: strconv.FormatFloat(v.Number, 'g', -1, 64), Reason: "a value that is not finite has no text form"}
 	}
 	return append(b, v.String()...), nil
 }
@@ -211,7 +225,7 @@ func (v *Value) Set(s string) error { return v.UnmarshalText([]byte(s)) }
 
 // ValueError reports text that is not a number followed by a unit.
 type ValueError struct {
-	Text   string
+	Input  string
 	Offset int
 	Reason string
 	Err    error // a *ParseError for the unit part, or nil
@@ -220,13 +234,17 @@ type ValueError struct {
 // Error implements the error interface.
 func (e *ValueError) Error() string {
 	if e.Err != nil {
-		return fmt.Sprintf("units: value %q: %v", e.Text, e.Err)
+		return fmt.Sprintf("units: value %q: %v", e.Input, e.Err)
 	}
-	return fmt.Sprintf("units: value %q: at offset %d: %s", e.Text, e.Offset, e.Reason)
+	return fmt.Sprintf("units: value %q: at offset %d: %s", e.Input, e.Offset, e.Reason)
 }
 
 // Unwrap returns the unit's parse error, if that was the problem.
 func (e *ValueError) Unwrap() error { return e.Err }
+
+// Is reports whether target is quantity.ErrParse, the class of a
+// *ValueError.
+func (e *ValueError) Is(target error) bool { return target == quantity.ErrParse }
 
 // ParseValue reads a number and a unit expression, with or without a
 // space between them: "12.5 kn", "101.325 kPa", "20 °C", "3.2e-3 Pa·s",
@@ -235,23 +253,23 @@ func ParseValue(s string) (Value, error) { return parseValue(builtinTable{}, s, 
 
 func parseValue(tab symbolTable, s string, parse func(string) (Unit, error)) (Value, error) {
 	if len(s) > MaxExprLen+maxNumLen {
-		return Value{}, &ValueError{Text: s[:64] + "…", Offset: 0, Reason: "text too long"}
+		return Value{}, &ValueError{Input: s[:64] + "…", Offset: 0, Reason: "text too long"}
 	}
 	t := strings.TrimSpace(s)
 	lead := strings.Index(s, t)
 	text, j, reason := lexNumber(t)
 	if reason != "" {
-		return Value{}, &ValueError{Text: s, Offset: lead + j, Reason: reason}
+		return Value{}, &ValueError{Input: s, Offset: lead + j, Reason: reason}
 	}
 	if j > maxNumLen {
-		return Value{}, &ValueError{Text: s, Offset: lead, Reason: "number too long"}
+		return Value{}, &ValueError{Input: s, Offset: lead, Reason: "number too long"}
 	}
 	x, err := strconv.ParseFloat(text, 64)
 	if err != nil || math.IsInf(x, 0) {
-		return Value{}, &ValueError{Text: s, Offset: lead, Reason: fmt.Sprintf("%q is not a finite number", t[:j])}
+		return Value{}, &ValueError{Input: s, Offset: lead, Reason: fmt.Sprintf("%q is not a finite number", t[:j])}
 	}
 	if x == 0 && strings.ContainsAny(strings.SplitN(strings.ToLower(text), "e", 2)[0], "123456789") {
-		return Value{}, &ValueError{Text: s, Offset: lead, Reason: fmt.Sprintf("%q underflows to zero", t[:j])}
+		return Value{}, &ValueError{Input: s, Offset: lead, Reason: fmt.Sprintf("%q underflows to zero", t[:j])}
 	}
 	rest := strings.TrimSpace(t[j:])
 	if rest == "" {
@@ -259,17 +277,17 @@ func parseValue(tab symbolTable, s string, parse func(string) (Unit, error)) (Va
 	}
 	if c := rest[0]; (c >= '0' && c <= '9' || c == '.') && !reciprocal(rest) {
 		// 101 325 Pa: a second number, not a unit.
-		return Value{}, &ValueError{Text: s, Offset: lead + len(t) - len(rest), Reason: "a second number after a space: to group digits write a thin space (U+2009) between groups of three, as in 101\u2009325 Pa, or no space at all"}
+		return Value{}, &ValueError{Input: s, Offset: lead + len(t) - len(rest), Reason: "a second number after a space: to group digits write a thin space (U+2009) between groups of three, as in 101\u2009325 Pa, or no space at all"}
 	}
 	if r, _ := utf8.DecodeRuneInString(rest); r == '/' || r == '*' || r == '^' {
-		return Value{}, &ValueError{Text: s, Offset: lead + j, Reason: "a unit must follow the number (write 1/s, not /s)"}
+		return Value{}, &ValueError{Input: s, Offset: lead + j, Reason: "a unit must follow the number (write 1/s, not /s)"}
 	}
 	u, err := parse(rest)
 	if err != nil {
-		return Value{}, &ValueError{Text: s, Err: err}
+		return Value{}, &ValueError{Input: s, Err: err}
 	}
 	if pureNumber(u) {
-		return Value{}, &ValueError{Text: s, Offset: lead + len(t) - len(rest), Reason: fmt.Sprintf("the unit %q is a pure number: write the value as one number", rest)}
+		return Value{}, &ValueError{Input: s, Offset: lead + len(t) - len(rest), Reason: fmt.Sprintf("the unit %q is a pure number: write the value as one number", rest)}
 	}
 	return Value{Number: x, Unit: u}, nil
 }

@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"strconv"
 	"strings"
+
+	"similis.dev/similis/quantity"
 )
 
 // Reasons a unit expression is refused; a *ParseError wraps one of them,
@@ -20,7 +22,6 @@ var (
 	ErrTooLong       = errors.New("expression too long")
 	ErrAmbiguous     = errors.New("ambiguous expression")
 	ErrNumber        = errors.New("bad number")
-	ErrDimension     = errors.New("dimension out of range")
 )
 
 // Limits that bound the parser's work for any input.
@@ -36,7 +37,7 @@ const (
 // ParseError reports a unit expression that cannot be read: where, and
 // why. Err is one of the Err… values above.
 type ParseError struct {
-	Expr    string   // the expression given
+	Input   string   // the expression given
 	Offset  int      // byte offset of the problem
 	Err     error    // the class of problem, for errors.Is
 	Reason  string   // what exactly is wrong
@@ -47,7 +48,7 @@ type ParseError struct {
 // Error implements the error interface.
 func (e *ParseError) Error() string {
 	var sb strings.Builder
-	fmt.Fprintf(&sb, "units: %q: at offset %d: %v", e.Expr, e.Offset, e.Err)
+	fmt.Fprintf(&sb, "units: %q: at offset %d: %v", e.Input, e.Offset, e.Err)
 	if e.Reason != "" {
 		sb.WriteString(": ")
 		sb.WriteString(e.Reason)
@@ -69,5 +70,14 @@ func (e *ParseError) Error() string {
 	return sb.String()
 }
 
-// Unwrap returns the class of the problem.
+// Unwrap returns the kind of problem (ErrSyntax, ErrUnknownSymbol, …).
 func (e *ParseError) Unwrap() error { return e.Err }
+
+// Is reports whether target is the error's class: quantity.ErrUnknown
+// for an unknown symbol, quantity.ErrParse otherwise.
+func (e *ParseError) Is(target error) bool {
+	if e.Err == ErrUnknownSymbol {
+		return target == quantity.ErrUnknown
+	}
+	return target == quantity.ErrParse
+}

@@ -61,7 +61,7 @@ type parser struct {
 }
 
 func (p *parser) fail(at int, kind error, reason string) *ParseError {
-	return &ParseError{Expr: p.s, Offset: at, Err: kind, Reason: reason}
+	return &ParseError{Input: p.s, Offset: at, Err: kind, Reason: reason}
 }
 
 // parserPool recycles parsers and their term storage.
@@ -69,7 +69,7 @@ var parserPool = sync.Pool{New: func() any { return &parser{terms: make(terms, 0
 
 func parseWith(tab symbolTable, expr string) (Unit, error) {
 	if len(expr) > MaxExprLen {
-		return Unit{}, &ParseError{Expr: expr[:MaxExprLen] + "…", Offset: MaxExprLen, Err: ErrTooLong, Reason: fmt.Sprintf("longer than %d bytes", MaxExprLen)}
+		return Unit{}, &ParseError{Input: expr[:MaxExprLen] + "…", Offset: MaxExprLen, Err: ErrTooLong, Reason: fmt.Sprintf("longer than %d bytes", MaxExprLen)}
 	}
 	if !utf8.ValidString(expr) {
 		i := 0
@@ -80,7 +80,7 @@ func parseWith(tab symbolTable, expr string) (Unit, error) {
 			}
 			i += n
 		}
-		return Unit{}, &ParseError{Expr: expr, Offset: i, Err: ErrSyntax, Reason: "invalid UTF-8"}
+		return Unit{}, &ParseError{Input: expr, Offset: i, Err: ErrSyntax, Reason: "invalid UTF-8"}
 	}
 	p := parserPool.Get().(*parser)
 	defer parserPool.Put(p)
@@ -229,7 +229,7 @@ func combine(p *parser, at int, a, b val, sign int) (val, error) {
 		d, err = a.dim.Div(b.dim)
 	}
 	if err != nil {
-		return val{}, p.fail(at, ErrDimension, "an exponent of the dimension overflows")
+		return val{}, p.fail(at, ErrExponent, "an exponent of the dimension overflows")
 	}
 	if sign < 0 {
 		for i := b.lo; i < b.hi; i++ {
@@ -424,7 +424,7 @@ func (p *parser) symbol() (val, error) {
 		return val{}, p.unknown(start, sym)
 	}
 	if e.ambiguous != "" {
-		return val{}, &ParseError{Expr: p.s, Offset: start, Err: ErrAmbiguous, Symbol: sym, Reason: fmt.Sprintf("%q reads as %s; define it in a Table to say which is meant", sym, e.ambiguous)}
+		return val{}, &ParseError{Input: p.s, Offset: start, Err: ErrAmbiguous, Symbol: sym, Reason: fmt.Sprintf("%q reads as %s; define it in a Table to say which is meant", sym, e.ambiguous)}
 	}
 	p.terms = append(p.terms, term{sym: e.u.sym, num: 1, den: 1})
 	v := val{

@@ -89,7 +89,7 @@ func TestMalformed(t *testing.T) {
 		{"m^22", units.ErrExponent, 0},
 		{"m⁻", units.ErrExponent, 1},
 		{"rad^(1/2)", units.ErrExponent, 0},
-		{"m^20*m^20", units.ErrDimension, 4},
+		{"m^20*m^20", units.ErrExponent, 4},
 		{"xyz", units.ErrUnknownSymbol, 0},
 		{"m2", units.ErrUnknownSymbol, 0},
 		{"kpa", units.ErrUnknownSymbol, 0},

@@ -7,6 +7,8 @@ import (
 	"sync"
 	"sync/atomic"
 	"unicode/utf8"
+
+	"similis.dev/similis/quantity"
 )
 
 // ErrDefine is wrapped by every error Table.Define returns.
@@ -26,6 +28,10 @@ func (e *DefineError) Error() string {
 	}
 	return fmt.Sprintf("units: define %q: %s", e.Name, e.Reason)
 }
+
+// Is reports whether target is quantity.ErrInvalid, the class of a
+// *DefineError (its parse error, if any, is matched through Unwrap).
+func (e *DefineError) Is(target error) bool { return target == quantity.ErrInvalid }
 
 // Unwrap returns ErrDefine and the parse error, if any.
 func (e *DefineError) Unwrap() []error {

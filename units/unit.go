@@ -145,7 +145,7 @@ func (u Unit) Pow(num, den int) (Unit, error) {
 	}
 	a, s := int(u.angle)*num, int(u.solid)*num
 	if a%den != 0 || s%den != 0 {
-		return Unit{}, &ParseError{Expr: u.sym, Reason: "a fractional power of an angle unit", Err: ErrExponent}
+		return Unit{}, &ParseError{Input: u.sym, Reason: "a fractional power of an angle unit", Err: ErrExponent}
 	}
 	t := termsOf(u).pow(num, den)
 	for _, x := range t {

@@ -1,7 +1,6 @@
 package fluids
 
 import (
-	"errors"
 	"fmt"
 	"math"
 
@@ -27,8 +26,9 @@ type Fluid interface {
 	At(T, p quantity.Quantity) (State, error)
 }
 
-// ErrRange is wrapped by errors for states outside a correlation's range.
-var ErrRange = errors.New("outside the range of the correlation")
+// ErrRange is quantity.ErrRange, the module's class for numbers out of
+// range; every *RangeError matches it.
+var ErrRange = quantity.ErrRange
 
 // RangeError reports a temperature, pressure or altitude out of range.
 type RangeError struct {
@@ -42,8 +42,9 @@ func (e *RangeError) Error() string {
 	return fmt.Sprintf("fluids: %s: %s %g outside %g … %g", e.Fluid, e.What, e.Value, e.Lo, e.Hi)
 }
 
-// Unwrap returns ErrRange.
-func (e *RangeError) Unwrap() error { return ErrRange }
+// Is reports whether target is quantity.ErrRange, the class of a
+// *RangeError.
+func (e *RangeError) Is(target error) bool { return target == quantity.ErrRange }
 
 func check(T, p quantity.Quantity) error {
 	if err := T.CheckNamed("temperature", quantity.Temperature); err != nil {
