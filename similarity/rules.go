@@ -68,16 +68,6 @@ func (s Scales) need(rule string, names ...string) error {
 	return nil
 }
 
-// checkRatios checks name–ratio pairs: checkRatios("length", λL, "density", λρ).
-func checkRatios(pairs ...any) error {
-	for i := 0; i+1 < len(pairs); i += 2 {
-		if err := checkRatio(pairs[i].(string), pairs[i+1].(float64)); err != nil {
-			return err
-		}
-	}
-	return nil
-}
-
 func checkRatio(name string, r float64) error {
 	if !(r > 0) || math.IsInf(r, 0) {
 		return &PlanError{Err: ErrBadRatio, Symbol: name, Reason: fmt.Sprintf("%s ratio %v is not positive and finite", name, r)}
