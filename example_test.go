@@ -65,7 +65,7 @@ func Example_coefficients() {
 	n, _ := units.ParseQuantity("600 rpm")
 	row := []quantity.Quantity{quantity.New(200, quantity.Force), n, quantity.New(0.25, quantity.Length), quantity.New(1000, quantity.Density)}
 	v, _ := kt.Evaluator().Row(row, make([]float64, 1))
-	fmt.Printf("%s = %s = %.4g\n", kt.Groups()[0].Label(), kt.Groups()[0].Format(pigroups.Unicode), v[0])
+	fmt.Printf("%s = %s = %.4g\n", kt.Groups()[0].Label(), kt.Groups()[0].Format(quantity.Unicode), v[0])
 	// Output:
 	// K_T/(4π²)
 	// K_T = 4π²·T/(n²·D⁴·ρ) = 0.512

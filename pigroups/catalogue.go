@@ -451,7 +451,7 @@ func factorText(c quantity.Rat, k int) string {
 		if a == 1 {
 			return "π"
 		}
-		return "π" + expText(quantity.RatInt(int64(a)), Unicode)
+		return "π" + expText(quantity.RatInt(int64(a)), quantity.Unicode)
 	}
 	if k > 0 {
 		n <<= k
@@ -528,9 +528,9 @@ func powerLabel(sym string, p quantity.Rat) string {
 	case p.Num() == -1 && p.Den() == 1:
 		return "1/" + sym
 	case p.IsInt() && p.Num() > 0:
-		return sym + expText(p, Unicode)
+		return sym + expText(p, quantity.Unicode)
 	case p.IsInt():
-		return "1/" + sym + expText(p.Neg(), Unicode)
+		return "1/" + sym + expText(p.Neg(), quantity.Unicode)
 	}
 	return sym + "^(" + p.String() + ")"
 }
@@ -553,10 +553,10 @@ func (m Match) Equation(name string) string {
 		}
 	}
 	if m.Proxy != nil {
-		rhs += "·" + m.Proxy.Symbol + expText(m.Proxy.Exp.Neg(), Unicode)
+		rhs += "·" + m.Proxy.Symbol + expText(m.Proxy.Exp.Neg(), quantity.Unicode)
 		rhs += "/" + m.Proxy.Ref
 		if !(m.Proxy.RefExp.Num() == -1 && m.Proxy.RefExp.Den() == 1) {
-			rhs += expText(m.Proxy.RefExp.Neg(), Unicode)
+			rhs += expText(m.Proxy.RefExp.Neg(), quantity.Unicode)
 		}
 	}
 	return m.Symbol + " = " + rhs
@@ -580,7 +580,7 @@ func (m Match) describe(name string) string {
 	}
 	switch {
 	case m.Proxy != nil:
-		fmt.Fprintf(&sb, "; %s, and %s%s stands in for %s %s: %s", m.Definition, m.Proxy.Symbol, expText(m.Proxy.Exp.Neg(), Unicode), m.Proxy.What, m.Proxy.Ref, m.Equation(name))
+		fmt.Fprintf(&sb, "; %s, and %s%s stands in for %s %s: %s", m.Definition, m.Proxy.Symbol, expText(m.Proxy.Exp.Neg(), quantity.Unicode), m.Proxy.What, m.Proxy.Ref, m.Equation(name))
 	case m.FactorText() != "":
 		fmt.Fprintf(&sb, "; %s: %s", m.Definition, m.Equation(name))
 		if m.TwoPiPower() != 0 {

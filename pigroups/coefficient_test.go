@@ -83,7 +83,7 @@ func TestOpenWaterCoefficients(t *testing.T) {
 	if diff := cmp.Diff([]float64{0.512 / (4 * math.Pi * math.Pi), 0.08192 / (4 * math.Pi * math.Pi), 0.8 / (2 * math.Pi)}, raw, cmpopts.EquateApprox(1e-12, 0)); diff != "" {
 		t.Errorf("raw groups (-want +got):\n%s", diff)
 	}
-	if f := c.Groups()[0].Format(pigroups.Unicode); f != "4π²·T/(n²·D⁴·ρ)" {
+	if f := c.Groups()[0].Format(q.Unicode); f != "4π²·T/(n²·D⁴·ρ)" {
 		t.Errorf("K_T written %q", f)
 	}
 }
@@ -133,8 +133,8 @@ func TestCoefficientFactor(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if cd.Label() != "C_D" || cd.Format(pigroups.Unicode) != "2·F/(ρ·V²·A)" {
-		t.Errorf("coefficient %s = %s", cd.Label(), cd.Format(pigroups.Unicode))
+	if cd.Label() != "C_D" || cd.Format(q.Unicode) != "2·F/(ρ·V²·A)" {
+		t.Errorf("coefficient %s = %s", cd.Label(), cd.Format(q.Unicode))
 	}
 	set := s.WithCoefficients()
 	row := []q.Quantity{q.New(0.5, q.Force), q.New(1.2, q.Density), q.New(10, q.Velocity), q.New(math.Pi*0.05*0.05, q.Area), q.New(1.8e-5, q.DynamicViscosity)}

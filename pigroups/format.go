@@ -8,98 +8,42 @@ import (
 	"similis.dev/similis/quantity"
 )
 
-// Style selects how groups are written.
-type Style uint8
-
-// Rendering styles.
-const (
-	Plain   Style = iota // mu/(rho*V*D), V^2/(g*L)
-	Unicode              // μ/(ρ·V·D), V²/(g·L)
-	LaTeX                // \frac{\mu}{\rho V D}
-)
-
 // FormatProduct writes the product ∏ xᵢ^eᵢ of the problem's variables, the
-// exponents given in variable order, as Group.Format does.
-func (p *Problem) FormatProduct(exps []quantity.Rat, style Style) string {
-	m := make(map[int]quantity.Rat)
+// exponents given in variable order, as Group.Format does: numerator over
+// denominator in variable order ("μ/(ρ·V·D)"), a \frac in quantity.LaTeX, with
+// Greek symbols as quantity.LaTeX commands. Exponents beyond the variables are
+// ignored.
+func (p *Problem) FormatProduct(exps []quantity.Rat, style quantity.Style) string {
+	prod := make(quantity.Product, 0, len(exps))
 	for i, e := range exps {
 		if i < len(p.vars) && !e.IsZero() {
-			m[i] = e
-		}
-	}
-	return p.spell(m, style)
-}
-
-// spell writes ∏ xᵢ^eᵢ in a style, numerator first, in variable order.
-func (p *Problem) spell(exps map[int]quantity.Rat, style Style) string {
-	var num, den []int
-	for i := range p.vars {
-		e, ok := exps[i]
-		if !ok || e.IsZero() {
-			continue
-		}
-		if e.Sign() > 0 {
-			num = append(num, i)
-		} else {
-			den = append(den, i)
-		}
-	}
-	if style == LaTeX {
-		n := p.latexList(num, exps, 1)
-		if len(num) == 0 {
-			n = "1"
-		}
-		if len(den) == 0 {
-			return n
-		}
-		return `\frac{` + n + `}{` + p.latexList(den, exps, -1) + `}`
-	}
-	sep := "*"
-	if style == Unicode {
-		sep = "·"
-	}
-	list := func(idx []int, sign int64) string {
-		parts := make([]string, len(idx))
-		for k, i := range idx {
-			e := exps[i]
-			if sign < 0 {
-				e = e.Neg()
+			name := p.vars[i].Symbol
+			if style == quantity.LaTeX {
+				name = TeXSymbol(name)
 			}
-			parts[k] = p.vars[i].Symbol + expText(e, style)
+			prod = append(prod, quantity.Factor{Name: name, Exp: e})
 		}
-		return strings.Join(parts, sep)
 	}
-	s := list(num, 1)
-	if len(num) == 0 {
-		s = "1"
-	}
-	if len(den) > 0 {
-		d := list(den, -1)
-		if len(den) > 1 {
-			d = "(" + d + ")"
-		}
-		s += "/" + d
-	}
-	return s
+	return prod.Format(style, quantity.Fraction, "")
 }
 
-var supDigits = map[rune]string{'0': "⁰", '1': "¹", '2': "²", '3': "³", '4': "⁴", '5': "⁵", '6': "⁶", '7': "⁷", '8': "⁸", '9': "⁹", '-': "⁻"}
+// spell writes ∏ xᵢ^eᵢ given by variable index, as FormatProduct does.
+func (p *Problem) spell(exps map[int]quantity.Rat, style quantity.Style) string {
+	v := make([]quantity.Rat, len(p.vars))
+	for i, e := range exps {
+		if i >= 0 && i < len(v) {
+			v[i] = e
+		}
+	}
+	return p.FormatProduct(v, style)
+}
 
-func expText(e quantity.Rat, style Style) string {
-	if e.Num() == 1 && e.Den() == 1 {
+// expText writes an exponent after a symbol, "" for 1.
+func expText(e quantity.Rat, style quantity.Style) string {
+	if e.IsOne() {
 		return ""
 	}
-	if style == Unicode && e.IsInt() {
-		var sb strings.Builder
-		for _, c := range strconv.FormatInt(e.Num(), 10) {
-			sb.WriteString(supDigits[c])
-		}
-		return sb.String()
-	}
-	if e.IsInt() {
-		return "^" + e.String()
-	}
-	return "^(" + e.String() + ")"
+	return string(quantity.AppendExponent(nil, e, style))
 }
 
 var greekTeX = map[rune]string{
@@ -109,7 +53,7 @@ var greekTeX = map[rune]string{
 	'Γ': `\Gamma`, 'Θ': `\Theta`, 'Λ': `\Lambda`, 'Π': `\Pi`, 'Σ': `\Sigma`, 'Φ': `\Phi`, 'Ψ': `\Psi`, 'Ω': `\Omega`,
 }
 
-// TeXSymbol writes a variable symbol for LaTeX: Greek letters as
+// TeXSymbol writes a variable symbol for quantity.LaTeX: Greek letters as
 // commands, a trailing part after '_' as a subscript, other multi-letter
 // names upright.
 func TeXSymbol(s string) string {
@@ -132,22 +76,6 @@ func TeXSymbol(s string) string {
 		out += `_{` + sub + `}`
 	}
 	return out
-}
-
-func (p *Problem) latexList(idx []int, exps map[int]quantity.Rat, sign int64) string {
-	parts := make([]string, len(idx))
-	for k, i := range idx {
-		e := exps[i]
-		if sign < 0 {
-			e = e.Neg()
-		}
-		s := TeXSymbol(p.vars[i].Symbol)
-		if !(e.Num() == 1 && e.Den() == 1) {
-			s = "{" + s + "}^{" + e.String() + "}"
-		}
-		parts[k] = s
-	}
-	return strings.Join(parts, " ")
 }
 
 var subDigits = []string{"₀", "₁", "₂", "₃", "₄", "₅", "₆", "₇", "₈", "₉"}

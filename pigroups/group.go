@@ -128,11 +128,11 @@ func (g Group) Dim() (quantity.Dim, error) {
 }
 
 // String writes the group in plain text: "mu/(rho*V*D)".
-func (g Group) String() string { return g.Format(Plain) }
+func (g Group) String() string { return g.Format(quantity.ASCII) }
 
 // Format writes the group in a style, its numerical factor first
 // ("4π²·T/(ρ·n²·D⁴)"); the zero Group is "(no group)".
-func (g Group) Format(style Style) string {
+func (g Group) Format(style quantity.Style) string {
 	if g.prob == nil {
 		return "(no group)"
 	}
@@ -141,14 +141,14 @@ func (g Group) Format(style Style) string {
 	if k == "" {
 		return body
 	}
-	if style != Unicode {
+	if style != quantity.Unicode {
 		k = strings.NewReplacer("π", "pi", "²", "^2", "³", "^3").Replace(k)
 	}
 	sep := "*"
-	if style == Unicode {
+	if style == quantity.Unicode {
 		sep = "·"
 	}
-	if style == LaTeX {
+	if style == quantity.LaTeX {
 		sep = " "
 		k = strings.ReplaceAll(k, "pi", `\pi`)
 	}

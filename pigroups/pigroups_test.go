@@ -20,7 +20,7 @@ var (
 func labels(s *pigroups.Set) []string {
 	var out []string
 	for _, g := range s.Groups() {
-		out = append(out, g.Format(pigroups.Plain)+" = "+g.Label())
+		out = append(out, g.Format(q.ASCII)+" = "+g.Label())
 	}
 	return out
 }
@@ -244,8 +244,8 @@ func TestRecognitionPowersAndCandidates(t *testing.T) {
 		t.Fatal(err)
 	}
 	g := s.Groups()[0]
-	if g.Format(pigroups.Unicode) != "V²/(g·L)" || g.Label() != "Fr²" {
-		t.Errorf("Froude group: %s, %s", g.Format(pigroups.Unicode), g.Label())
+	if g.Format(q.Unicode) != "V²/(g·L)" || g.Label() != "Fr²" {
+		t.Errorf("Froude group: %s, %s", g.Format(q.Unicode), g.Label())
 	}
 	m := g.Matches[0]
 	if !strings.Contains(m.Describe(), "taking g as gravitational acceleration") {
@@ -282,7 +282,7 @@ func TestConventionalAndRewrite(t *testing.T) {
 	)
 	s, _ := p.PiSet("rho", "V", "D")
 	conv := s.WithConventional()
-	if got := conv.Groups()[1].Format(pigroups.Plain); got != "rho*V*D/mu" {
+	if got := conv.Groups()[1].Format(q.ASCII); got != "rho*V*D/mu" {
 		t.Errorf("conventional Re = %s", got)
 	}
 	// Replace Π₁ by Π₁·Π₂⁻¹ (= F/(μVD)); the set stays equivalent.
@@ -290,7 +290,7 @@ func TestConventionalAndRewrite(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if got := r.Groups()[0].Format(pigroups.Plain); got != "F/(V*D*mu)" {
+	if got := r.Groups()[0].Format(q.ASCII); got != "F/(V*D*mu)" {
 		t.Errorf("rewritten Π₁ = %s", got)
 	}
 	eq, err := pigroups.Equivalent(s, r)
@@ -315,8 +315,8 @@ func TestRendering(t *testing.T) {
 		pigroups.Var("D", q.Length), pigroups.Var("μ", q.DynamicViscosity))
 	s, _ := p.PiSet("ρ", "V", "D")
 	g := s.Groups()
-	got := []string{g[0].Format(pigroups.Plain), g[0].Format(pigroups.Unicode), g[0].Format(pigroups.LaTeX), g[1].Format(pigroups.LaTeX)}
-	want := []string{"Δp/(ρ*V^2)", "Δp/(ρ·V²)", `\frac{\Delta p}{\rho {V}^{2}}`, `\frac{\mu}{\rho V D}`}
+	got := []string{g[0].Format(q.ASCII), g[0].Format(q.Unicode), g[0].Format(q.LaTeX), g[1].Format(q.LaTeX)}
+	want := []string{"Δp/(ρ*V^2)", "Δp/(ρ·V²)", `\frac{\Delta p}{\rho\cdot V^{2}}`, `\frac{\mu}{\rho\cdot V\cdot D}`}
 	if diff := cmp.Diff(want, got); diff != "" {
 		t.Errorf("rendering (-want +got):\n%s", diff)
 	}

@@ -404,7 +404,7 @@ func (p *Problem) NewGroup(name string, exps map[string]quantity.Rat) (Group, er
 		v[i] = e
 	}
 	if !p.dimensionless(v) {
-		return Group{}, &ProblemError{Err: ErrNotDimensionless, Symbol: name, Reason: p.FormatProduct(v, Unicode) + " has a dimension"}
+		return Group{}, &ProblemError{Err: ErrNotDimensionless, Symbol: name, Reason: p.FormatProduct(v, quantity.Unicode) + " has a dimension"}
 	}
 	g := Group{Name: name, Var: -1, exps: v, prob: p}
 	for i, e := range v {
@@ -596,7 +596,7 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 				for k, j := range idx {
 					exps[j] = iv[k]
 				}
-				e.Combination = p.spell(exps, Plain)
+				e.Combination = p.spell(exps, quantity.ASCII)
 			}
 		}
 		return nil, &e

@@ -188,7 +188,7 @@ func (s *Set) Repeating() []string {
 func (s *Set) Len() int { return len(s.groups) }
 
 // Format writes the set one group per line: "Π₁ = μ/(ρ·V·D)   1/Re".
-func (s *Set) Format(style Style) string {
+func (s *Set) Format(style quantity.Style) string {
 	var sb strings.Builder
 	for _, g := range s.groups {
 		fmt.Fprintf(&sb, "%s = %s", g.Name, g.Format(style))
@@ -201,7 +201,7 @@ func (s *Set) Format(style Style) string {
 }
 
 // String writes the set in Unicode.
-func (s *Set) String() string { return s.Format(Unicode) }
+func (s *Set) String() string { return s.Format(quantity.Unicode) }
 
 // Equivalent reports whether two Pi sets span the same groups: each group
 // of one is a product of powers of the other's. The sets may come from

@@ -2,7 +2,6 @@ package quantity
 
 import (
 	"strconv"
-	"strings"
 )
 
 // Base names one of the seven SI base dimensions, in ISO 80000-1 order.
@@ -165,11 +164,11 @@ func sixths(num, den int) (int8, error) {
 		return 0, &DimensionError{Op: "build a dimension", Detail: "exponent " + strconv.Itoa(num) + "/0 has a zero denominator"}
 	}
 	if (num*expDen)%den != 0 || num > 1<<20 || num < -(1<<20) {
-		return 0, &DimensionError{Op: "build a dimension", Detail: "exponent " + ratString(num, den) + " is not a whole number of sixths"}
+		return 0, &DimensionError{Op: "build a dimension", Detail: "exponent " + ratText(num, den) + " is not a whole number of sixths"}
 	}
 	s := num * expDen / den
 	if s > maxExpSixths || s < minExpSixths {
-		return 0, &DimensionError{Op: "build a dimension", Detail: "exponent " + ratString(num, den) + " is outside −21⅓ … 21⅙"}
+		return 0, &DimensionError{Op: "build a dimension", Detail: "exponent " + ratText(num, den) + " is outside −21⅓ … 21⅙"}
 	}
 	return int8(s), nil
 }
@@ -180,11 +179,6 @@ func (d Dim) Sixths(b Base) int {
 		return 0
 	}
 	return int(d.lane(b))
-}
-
-func reduce(n, d int) (int, int) {
-	r := norm(int64(n), int64(d))
-	return int(r.Num()), int(r.Den())
 }
 
 // IsDimensionless reports whether d is the dimension one.
@@ -227,54 +221,15 @@ func (d Dim) Pow(num, den int) (Dim, error) {
 	for b, v := range in {
 		e := int64(v) * int64(num)
 		if e%int64(den) != 0 {
-			return Dim(0), &DimensionError{Op: "raise %s to the power " + ratString(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " would not be a whole number of sixths"}
+			return Dim(0), &DimensionError{Op: "raise %s to the power " + ratText(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " would not be a whole number of sixths"}
 		}
 		e /= int64(den)
 		if e > maxExpSixths || e < minExpSixths {
-			return Dim(0), &DimensionError{Op: "raise %s to the power " + ratString(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " overflows"}
+			return Dim(0), &DimensionError{Op: "raise %s to the power " + ratText(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " overflows"}
 		}
 		out[b] = int8(e)
 	}
 	return encode(out), nil
-}
-
-func ratString(n, d int) string {
-	n, d = reduce(n, d)
-	if d == 1 {
-		return strconv.Itoa(n)
-	}
-	return strconv.Itoa(n) + "/" + strconv.Itoa(d)
-}
-
-var supDigits = [...]string{"⁰", "¹", "²", "³", "⁴", "⁵", "⁶", "⁷", "⁸", "⁹"}
-
-// superscript writes an exponent in Unicode superscripts when it is whole,
-// and as ^(n/d) otherwise.
-func superscript(sb *strings.Builder, n, d int) {
-	if d != 1 {
-		sb.WriteString("^(")
-		sb.WriteString(ratString(n, d))
-		sb.WriteByte(')')
-		return
-	}
-	if n < 0 {
-		sb.WriteString("⁻")
-		n = -n
-	}
-	for _, c := range strconv.Itoa(n) {
-		sb.WriteString(supDigits[c-'0'])
-	}
-}
-
-func caret(sb *strings.Builder, n, d int) {
-	sb.WriteByte('^')
-	if d != 1 {
-		sb.WriteByte('(')
-		sb.WriteString(ratString(n, d))
-		sb.WriteByte(')')
-		return
-	}
-	sb.WriteString(strconv.Itoa(n))
 }
 
 // spelling is one way of writing a Dim.
@@ -294,29 +249,18 @@ var (
 )
 
 func (d Dim) spell(sp spelling) string {
-	if d == 0 {
-		return "1"
-	}
-	var sb strings.Builder
+	var buf [NumBases]Factor
+	p := Product(buf[:0])
 	for _, b := range sp.order {
-		e := d.Exponent(b)
-		n, den := int(e.Num()), int(e.Den())
-		if n == 0 {
-			continue
-		}
-		if sb.Len() > 0 {
-			sb.WriteString(sp.sep)
-		}
-		sb.WriteString(sp.symbols[b])
-		switch {
-		case n == 1 && den == 1:
-		case sp.sup:
-			superscript(&sb, n, den)
-		default:
-			caret(&sb, n, den)
+		if e := d.Exponent(b); !e.IsZero() {
+			p = append(p, Factor{sp.symbols[b], e})
 		}
 	}
-	return sb.String()
+	style := ASCII
+	if sp.sup {
+		style = Unicode
+	}
+	return p.Format(style, Inline, sp.sep)
 }
 
 // String returns the ISO 80000 dimension form, base symbols in ISO order
@@ -336,3 +280,11 @@ func (d Dim) SIUnit() string { return d.spell(spellSI) }
 // SIUnitASCII returns d in SI base units in ASCII, for logs and CSV
 // headers: "kg m^-1 s^-2".
 func (d Dim) SIUnitASCII() string { return d.spell(spellSIASCII) }
+
+// ratText writes num/den in lowest terms, as Rat writes it.
+func ratText(num, den int) string {
+	if den == 0 {
+		return strconv.Itoa(num) + "/0"
+	}
+	return norm(int64(num), int64(den)).String()
+}

@@ -1,9 +1,6 @@
 package similarity
 
 import (
-	"strconv"
-	"strings"
-
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 )
@@ -44,7 +41,7 @@ func (s *Solution) groupRatio(g pigroups.Group) GroupRatio {
 		return Ratio{Law: l, Value: l.Eval(s.values)}
 	}
 	if len(g.Matches) == 0 {
-		return GroupRatio{Symbol: g.Format(pigroups.Unicode), Ratio: ratio(exps)}
+		return GroupRatio{Symbol: g.Format(quantity.Unicode), Ratio: ratio(exps)}
 	}
 	m := g.Matches[0]
 	named := make([]quantity.Rat, len(exps))
@@ -52,7 +49,7 @@ func (s *Solution) groupRatio(g pigroups.Group) GroupRatio {
 	for i, e := range exps {
 		x, err := e.Div(m.Power)
 		if err != nil {
-			return GroupRatio{Symbol: g.Format(pigroups.Unicode), Ratio: ratio(exps)}
+			return GroupRatio{Symbol: g.Format(quantity.Unicode), Ratio: ratio(exps)}
 		}
 		named[i] = x
 		lcm = lcm / gcd(lcm, x.Den()) * x.Den()
@@ -63,7 +60,7 @@ func (s *Solution) groupRatio(g pigroups.Group) GroupRatio {
 		for i, x := range named {
 			whole[i], _ = x.Mul(quantity.RatInt(lcm))
 		}
-		out.Whole = m.Symbol + superscript(lcm)
+		out.Whole = m.Symbol + string(quantity.AppendExponent(nil, quantity.RatInt(lcm), quantity.Unicode))
 		out.WholeRatio = ratio(whole)
 	}
 	return out
@@ -77,14 +74,4 @@ func gcd(a, b int64) int64 {
 		return -a
 	}
 	return a
-}
-
-func superscript(n int64) string {
-	const sup = "⁰¹²³⁴⁵⁶⁷⁸⁹"
-	digits := []rune(sup)
-	var sb strings.Builder
-	for _, c := range strconv.FormatInt(n, 10) {
-		sb.WriteRune(digits[c-'0'])
-	}
-	return sb.String()
 }

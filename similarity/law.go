@@ -2,8 +2,8 @@ package similarity
 
 import (
 	"math"
-	"strings"
 
+	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 )
 
@@ -81,25 +81,25 @@ func powInt(x float64, n int64) float64 {
 }
 
 // String writes the law with λ for ratios: "λ_L^(1/2)", "λ_ρ·λ_L³", "1".
-func (l Law) String() string {
-	if len(l.Terms) == 0 {
-		return "1"
-	}
-	parts := make([]string, 0, len(l.Terms))
-	for _, t := range l.Terms {
-		s := "λ_" + t.Symbol
-		switch {
-		case t.Exp.Num() == 1 && t.Exp.Den() == 1:
-		case t.Exp.IsInt() && t.Exp.Num() >= 0:
-			s += superscript(t.Exp.Num())
-		case t.Exp.IsInt():
-			s += "⁻" + superscript(-t.Exp.Num())
+func (l Law) String() string { return l.Format(quantity.Unicode) }
+
+// Format writes the law in a style: λ_L^(1/2) in Unicode and Markdown,
+// lambda_L^(1/2) in ASCII, \lambda_{L}^{1/2} in LaTeX.
+func (l Law) Format(style quantity.Style) string {
+	p := make(quantity.Product, len(l.Terms))
+	for i, t := range l.Terms {
+		var name string
+		switch style {
+		case quantity.ASCII:
+			name = "lambda_" + t.Symbol
+		case quantity.LaTeX:
+			name = `\lambda_{` + pigroups.TeXSymbol(t.Symbol) + `}`
 		default:
-			s += "^(" + t.Exp.String() + ")"
+			name = "λ_" + t.Symbol
 		}
-		parts = append(parts, s)
+		p[i] = quantity.Factor{Name: name, Exp: t.Exp}
 	}
-	return strings.Join(parts, "·")
+	return p.Format(style, quantity.Inline, "")
 }
 
 // lawOf builds a law from a coefficient vector over parameters.

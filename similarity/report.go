@@ -76,7 +76,7 @@ func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 				model = fmt.Sprintf("%.4g", v*ratio.Value)
 			}
 		}
-		r.groups = append(r.groups, []string{label, s.plan.prob.FormatProduct(exps, pigroups.Unicode), proto, model, status})
+		r.groups = append(r.groups, []string{label, s.plan.prob.FormatProduct(exps, quantity.Unicode), proto, model, status})
 	}
 	dep := s.plan.prob.DependentIndex()
 	for vi, v := range s.plan.vars {

@@ -51,7 +51,7 @@ type ConversionError struct {
 }
 
 func describeUnit(u Unit) string {
-	return fmt.Sprintf("%s (%s)", u.Format(Unicode), quantity.Describe(u.dim))
+	return fmt.Sprintf("%s (%s)", u.Format(quantity.Unicode), quantity.Describe(u.dim))
 }
 
 // Error implements the error interface.
@@ -96,12 +96,12 @@ func checkConvert(from, to Unit) error {
 			return e
 		}
 		e.Reason = fmt.Sprintf("%s carries a plane angle to the power %d and %s to the power %d; a revolution is 2π rad, so converting would silently apply or drop 2π",
-			from.Format(Unicode), from.angle, to.Format(Unicode), to.angle)
+			from.Format(quantity.Unicode), from.angle, to.Format(quantity.Unicode), to.angle)
 		switch {
 		case from.angle > to.angle:
-			e.Hint = fmt.Sprintf("write the target with its angle (rev/s or rad/s for a rotational speed), or divide the source by the angle unit, as in (%s)/rev, to count revolutions as cycles", from.Format(Unicode))
+			e.Hint = fmt.Sprintf("write the target with its angle (rev/s or rad/s for a rotational speed), or divide the source by the angle unit, as in (%s)/rev, to count revolutions as cycles", from.Format(quantity.Unicode))
 		default:
-			e.Hint = fmt.Sprintf("write the source with its angle (rev/s for cycles per second), or divide the target by the angle unit, as in (%s)/rev", to.Format(Unicode))
+			e.Hint = fmt.Sprintf("write the source with its angle (rev/s for cycles per second), or divide the target by the angle unit, as in (%s)/rev", to.Format(quantity.Unicode))
 		}
 		return e
 	}
@@ -188,7 +188,7 @@ func (v Value) String() string {
 	if v.Unit.sym == "" || v.Unit.sym == "1" {
 		return n
 	}
-	u := v.Unit.Format(Unicode)
+	u := v.Unit.Format(quantity.Unicode)
 	if c := u[0]; c >= '0' && c <= '9' || c == '.' {
 		u = "(" + u + ")" // a scaled unit, as in 3 (0.5·s): not a second number
 	}

@@ -26,7 +26,7 @@ func ExampleParse() {
 	if err != nil {
 		panic(err)
 	}
-	fmt.Println(u.Format(units.Unicode), "|", u, "|", quantity.KindName(u.Dim()))
+	fmt.Println(u.Format(quantity.Unicode), "|", u, "|", quantity.KindName(u.Dim()))
 	_, err = units.Parse("W/m K")
 	fmt.Println(err)
 	_, err = units.Parse("kpa")
@@ -53,7 +53,7 @@ func ExamplePrinter() {
 	fmt.Println(p.Format(quantity.New(1.8e-5, quantity.DynamicViscosity)))
 	s, _ := p.FormatIn(quantity.New(745.7, quantity.Power), units.MustParse("hp"))
 	fmt.Println(s)
-	p.Style = units.LaTeX
+	p.Style = quantity.LaTeX
 	fmt.Println(p.Format(quantity.New(0.6, quantity.ThermalConductivity)))
 	// Output:
 	// 101.3 kPa

@@ -51,7 +51,7 @@ func BaseUnit(d quantity.Dim) Unit {
 type Printer struct {
 	// Style is the spelling of units: Unicode (the zero value), ASCII or
 	// LaTeX.
-	Style Style
+	Style quantity.Style
 	// Prefix chooses an SI prefix, with an exponent that is a multiple of
 	// three, so that the number lies in [1, 1000): 101325 Pa prints as
 	// 101.325 kPa. A unit whose leading symbol takes no prefix is left as
@@ -93,7 +93,7 @@ func (p Printer) FormatIn(q quantity.Quantity, u Unit) (string, error) {
 		prec = p.Precision
 	}
 	num := strconv.FormatFloat(v, 'g', prec, 64)
-	if p.Style == LaTeX {
+	if p.Style == quantity.LaTeX {
 		if m, e, ok := strings.Cut(num, "e"); ok {
 			exp, _ := strconv.Atoi(e)
 			num = m + `\times 10^{` + strconv.Itoa(exp) + `}`
@@ -103,7 +103,7 @@ func (p Printer) FormatIn(q quantity.Quantity, u Unit) (string, error) {
 		return num, nil
 	}
 	sep := " "
-	if p.Style == LaTeX {
+	if p.Style == quantity.LaTeX {
 		sep = `\,`
 	}
 	return num + sep + u.Format(p.Style), nil
@@ -158,7 +158,7 @@ func withPrefix(v float64, u Unit) (float64, Unit) {
 	t[0].sym = sym
 	nu := u
 	nu.factor = applyPrefix(u.factor/scale, exp)
-	nu.sym = t.spell(ASCII)
+	nu.sym = t.spell(quantity.ASCII)
 	// Scale by an exact power of ten, multiplying for small values so
 	// that 2.5e-6 m prints as 2.5 µm rather than 2.5000000000000004 µm.
 	if exp < 0 {

@@ -31,7 +31,7 @@ func FuzzParse(f *testing.F) {
 		if err != nil {
 			return
 		}
-		for _, style := range []units.Style{units.ASCII, units.Unicode} {
+		for _, style := range []quantity.Style{quantity.ASCII, quantity.Unicode} {
 			back, err := units.Parse(u.Format(style))
 			if err != nil || !back.Equal(u) {
 				t.Fatalf("Parse(%q) = %v; its %v spelling %q reparses to %v, %v", s, u, style, u.Format(style), back, err)

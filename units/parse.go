@@ -111,7 +111,7 @@ func (p *parser) unit(v val) (Unit, error) {
 	if err != nil {
 		return Unit{}, p.fail(0, ErrExponent, err.Error())
 	}
-	u := Unit{dim: v.dim, factor: v.factor, angle: int8(v.angle), solid: int8(v.solid), sym: t.spell(ASCII)}
+	u := Unit{dim: v.dim, factor: v.factor, angle: int8(v.angle), solid: int8(v.solid), sym: t.spell(quantity.ASCII)}
 	// The temperature role follows from the final spelling, so that a unit
 	// and its spelling always agree: one symbol to the power one keeps its
 	// role (a bare °C is a scale, a bare Δ°C an interval); anything else
@@ -576,27 +576,19 @@ func (p *parser) checkExp(start, num, den int) (int, int, bool, error) {
 	return num, den, true, nil
 }
 
+// reduce writes n/d in lowest terms with d > 0, by quantity.Rat.
 func reduce(n, d int) (int, int) {
-	if d < 0 {
-		n, d = -n, -d
+	if d == 0 {
+		return n, d
 	}
-	a, b := n, d
-	if a < 0 {
-		a = -a
-	}
-	for b != 0 {
-		a, b = b, a%b
-	}
-	if a == 0 {
-		return 0, 1
-	}
-	return n / a, d / a
+	r := quantity.MustRat(int64(n), int64(d))
+	return int(r.Num()), int(r.Den())
 }
 
+// ratText writes n/d as quantity.Rat does: "3/2", "-1".
 func ratText(n, d int) string {
-	n, d = reduce(n, d)
-	if d == 1 {
-		return strconv.Itoa(n)
+	if d == 0 {
+		return strconv.Itoa(n) + "/0"
 	}
-	return strconv.Itoa(n) + "/" + strconv.Itoa(d)
+	return quantity.MustRat(int64(n), int64(d)).String()
 }

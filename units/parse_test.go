@@ -186,14 +186,14 @@ func TestRoundTrip(t *testing.T) {
 			t.Errorf("Parse(%q): %v", s, err)
 			continue
 		}
-		for _, style := range []units.Style{units.Unicode, units.ASCII} {
+		for _, style := range []quantity.Style{quantity.Unicode, quantity.ASCII} {
 			f := u.Format(style)
 			back, err := units.Parse(f)
 			if err != nil || !back.Equal(u) {
 				t.Errorf("%q: %v spelling %q parses to %v, %v", s, style, f, back, err)
 			}
 		}
-		if u.Format(units.LaTeX) == "" {
+		if u.Format(quantity.LaTeX) == "" {
 			t.Errorf("%q: empty LaTeX spelling", s)
 		}
 	}
@@ -205,7 +205,7 @@ func TestRoundTrip(t *testing.T) {
 	}
 	for expr, w := range want {
 		u := units.MustParse(expr)
-		got := [3]string{u.Format(units.Unicode), u.Format(units.ASCII), u.Format(units.LaTeX)}
+		got := [3]string{u.Format(quantity.Unicode), u.Format(quantity.ASCII), u.Format(quantity.LaTeX)}
 		if diff := cmp.Diff(w, got); diff != "" {
 			t.Errorf("spellings of %q (-want +got):\n%s", expr, diff)
 		}

@@ -46,10 +46,10 @@ func TestRolesSurvive(t *testing.T) {
 		t.Errorf("a difference flag took a level: %v", err)
 	}
 	m := units.MustParse("m")
-	if z, err := m.Pow(0, 1); err != nil || z.String() != "1" || z.Format(units.Unicode) != "1" {
-		t.Errorf("m^0 = %q / %q, %v", z.String(), z.Format(units.Unicode), err)
+	if z, err := m.Pow(0, 1); err != nil || z.String() != "1" || z.Format(quantity.Unicode) != "1" {
+		t.Errorf("m^0 = %q / %q, %v", z.String(), z.Format(quantity.Unicode), err)
 	}
-	if s := units.MustParse("m*s").Format(units.Style(9)); s != "m·s" {
+	if s := units.MustParse("m*s").Format(quantity.Style(9)); s != "m·s" {
 		t.Errorf("an undefined style writes %q", s)
 	}
 	var zero units.Unit
@@ -85,7 +85,7 @@ func TestAlgebraSpellingsParse(t *testing.T) {
 				return // refused with an error: fine
 			}
 		}
-		for _, style := range []units.Style{units.ASCII, units.Unicode} {
+		for _, style := range []quantity.Style{quantity.ASCII, quantity.Unicode} {
 			s := u.Format(style)
 			back, err := units.Parse(s)
 			if err != nil || !back.Equal(u) {

@@ -7,30 +7,9 @@ import (
 	"strconv"
 	"strings"
 	"unicode/utf8"
+
+	"similis.dev/similis/quantity"
 )
-
-// Style selects how units are spelled.
-type Style uint8
-
-// Spelling styles.
-const (
-	Unicode Style = iota // kg·m⁻³, W/(m²·K), °C, µm, Ω
-	ASCII                // kg*m^-3, W/(m^2*K), degC, um, ohm
-	LaTeX                // \mathrm{kg}\cdot\mathrm{m}^{-3}
-)
-
-// String names the style.
-func (s Style) String() string {
-	switch s {
-	case Unicode:
-		return "Unicode"
-	case ASCII:
-		return "ASCII"
-	case LaTeX:
-		return "LaTeX"
-	}
-	return "Style(" + strconv.Itoa(int(s)) + ")"
-}
 
 func (t terms) pow(num, den int) terms {
 	out := make(terms, 0, len(t))
@@ -160,99 +139,32 @@ func splitTop(s string, sep byte) []string {
 }
 
 // spell writes terms in a style: numerator factors, then '/' and the
-// denominator, parenthesised when it has more than one factor.
-func (t terms) spell(style Style) string {
-	if len(t) == 0 {
-		return "1"
-	}
-	nNum, nDen := 0, 0
+// denominator, parenthesised when it has more than one factor, through
+// the module's one product formatter.
+func (t terms) spell(style quantity.Style) string {
+	var buf [8]quantity.Factor
+	p := quantity.Product(buf[:0])
 	for _, x := range t {
-		if x.num > 0 {
-			nNum++
-		} else {
-			nDen++
-		}
+		p = append(p, quantity.Factor{Name: spellSymbol(x, style), Exp: quantity.MustRat(int64(x.num), int64(x.den))})
 	}
-	var sb strings.Builder
-	sb.Grow(32)
-	writeList(&sb, t, style, 1)
-	if nNum == 0 {
-		sb.WriteString("1")
-	}
-	if nDen > 0 {
-		sb.WriteString("/")
-		if nDen > 1 {
-			sb.WriteString("(")
-		}
-		writeList(&sb, t, style, -1)
-		if nDen > 1 {
-			sb.WriteString(")")
-		}
-	}
-	return sb.String()
-}
-
-var supDigit = [...]string{"⁰", "¹", "²", "³", "⁴", "⁵", "⁶", "⁷", "⁸", "⁹"}
-
-// writeList writes the terms whose exponent has the given sign, with the
-// exponent's magnitude.
-func writeList(sb *strings.Builder, t terms, style Style, sign int) {
-	i := 0
-	for _, x := range t {
-		if x.num*sign < 0 {
-			continue
-		}
-		x.num *= sign
-		i++
-		if i > 1 {
-			switch style {
-			case Unicode:
-				sb.WriteString("·")
-			case ASCII:
-				sb.WriteString("*")
-			case LaTeX:
-				sb.WriteString(`\cdot `)
-			}
-		}
-		sb.WriteString(spellSymbol(x, style))
-		if x.num == 1 && x.den == 1 {
-			continue
-		}
-		switch {
-		case style == LaTeX:
-			sb.WriteString("^{" + ratText(x.num, x.den) + "}")
-		case style == Unicode && x.den == 1:
-			n := x.num
-			if n < 0 {
-				sb.WriteString("⁻")
-				n = -n
-			}
-			for _, c := range strconv.Itoa(n) {
-				sb.WriteString(supDigit[c-'0'])
-			}
-		case x.den == 1:
-			sb.WriteString("^" + strconv.Itoa(x.num))
-		default:
-			sb.WriteString("^(" + ratText(x.num, x.den) + ")")
-		}
-	}
+	return p.Format(style, quantity.Solidus, "")
 }
 
 // spellSymbol spells one symbol in a style, using the built-in table's
 // spellings; symbols the table does not know (a user's own) are written
 // as given.
-func spellSymbol(x term, style Style) string {
-	if x.number || style == ASCII {
+func spellSymbol(x term, style quantity.Style) string {
+	if x.number || style == quantity.ASCII {
 		return x.sym
 	}
 	e, ok := lookupIn(builtinIndex, x.sym)
 	if !ok {
-		if style == LaTeX {
+		if style == quantity.LaTeX {
 			return `\mathrm{` + x.sym + `}`
 		}
 		return x.sym
 	}
-	if style == LaTeX {
+	if style == quantity.LaTeX {
 		return e.tex
 	}
 	return e.uni
@@ -262,12 +174,12 @@ func spellSymbol(x term, style Style) string {
 // ASCII forms.
 //
 // A style other than the three defined is taken as Unicode.
-func (u Unit) Format(style Style) string {
+func (u Unit) Format(style quantity.Style) string {
 	u = u.norm()
-	if style > LaTeX {
-		style = Unicode
+	if style > quantity.Markdown {
+		style = quantity.Unicode
 	}
-	if style == ASCII {
+	if style == quantity.ASCII {
 		return u.String()
 	}
 	return termsOf(u).spell(style)

@@ -113,7 +113,7 @@ func (u Unit) Mul(o Unit) (Unit, error) {
 	if err != nil {
 		return Unit{}, &RangeError{Op: "multiply units", Reason: err.Error()}
 	}
-	return checkFactor("multiply units", withRole(Unit{dim: d, factor: u.factor * o.factor, angle: u.angle + o.angle, solid: u.solid + o.solid, sym: t.spell(ASCII)}, t, u, o))
+	return checkFactor("multiply units", withRole(Unit{dim: d, factor: u.factor * o.factor, angle: u.angle + o.angle, solid: u.solid + o.solid, sym: t.spell(quantity.ASCII)}, t, u, o))
 }
 
 // Div returns the quotient unit u/o.
@@ -130,7 +130,7 @@ func (u Unit) Div(o Unit) (Unit, error) {
 	if err != nil {
 		return Unit{}, &RangeError{Op: "divide units", Reason: err.Error()}
 	}
-	return checkFactor("divide units", withRole(Unit{dim: d, factor: u.factor / o.factor, angle: u.angle - o.angle, solid: u.solid - o.solid, sym: t.spell(ASCII)}, t, u, o))
+	return checkFactor("divide units", withRole(Unit{dim: d, factor: u.factor / o.factor, angle: u.angle - o.angle, solid: u.solid - o.solid, sym: t.spell(quantity.ASCII)}, t, u, o))
 }
 
 // Pow returns u raised to num/den. Angles must keep whole exponents.
@@ -156,7 +156,7 @@ func (u Unit) Pow(num, den int) (Unit, error) {
 	if err := t.holdable(builtinLookup); err != nil {
 		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: err.Error()}
 	}
-	return checkFactor("raise a unit to a power", withRole(Unit{dim: d, factor: math.Pow(u.factor, float64(num)/float64(den)), angle: int8(a / den), solid: int8(s / den), sym: t.spell(ASCII)}, t, u))
+	return checkFactor("raise a unit to a power", withRole(Unit{dim: d, factor: math.Pow(u.factor, float64(num)/float64(den)), angle: int8(a / den), solid: int8(s / den), sym: t.spell(quantity.ASCII)}, t, u))
 }
 
 // withRole gives the result r of unit algebra, spelled by terms t, the

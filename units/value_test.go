@@ -231,7 +231,7 @@ func TestPrinter(t *testing.T) {
 	}{
 		{units.Printer{}, atm, "101325 Pa"},
 		{units.Printer{Prefix: true}, atm, "101.325 kPa"},
-		{units.Printer{Prefix: true, Style: units.ASCII}, quantity.New(2.5e-6, quantity.Length), "2.5 um"},
+		{units.Printer{Prefix: true, Style: quantity.ASCII}, quantity.New(2.5e-6, quantity.Length), "2.5 um"},
 		{units.Printer{Prefix: true}, quantity.New(2.5e-6, quantity.Length), "2.5 µm"},
 		{units.Printer{}, quantity.New(1.225, quantity.Density), "1.225 kg/m³"},
 		{units.Printer{}, quantity.New(1.8e-5, quantity.DynamicViscosity), "1.8e-05 Pa·s"},
@@ -239,8 +239,8 @@ func TestPrinter(t *testing.T) {
 		{units.Printer{Prefix: true, Precision: 3}, quantity.New(745699.87, quantity.Power), "746 kW"},
 		{units.Printer{}, torque, "12.5 J"},
 		{units.Printer{Prefer: map[quantity.Dim]units.Unit{quantity.Torque: units.MustParse("N·m")}}, torque, "12.5 N·m"},
-		{units.Printer{Style: units.LaTeX}, quantity.New(0.025, quantity.ThermalConductivity), `0.025\,\mathrm{W}/(\mathrm{m}\cdot \mathrm{K})`},
-		{units.Printer{Style: units.LaTeX, Precision: 3}, quantity.New(1.5e-5, quantity.KinematicViscosity), `1.5\times 10^{-5}\,\mathrm{m}^{2}/\mathrm{s}`},
+		{units.Printer{Style: quantity.LaTeX}, quantity.New(0.025, quantity.ThermalConductivity), `0.025\,\mathrm{W}/(\mathrm{m}\cdot \mathrm{K})`},
+		{units.Printer{Style: quantity.LaTeX, Precision: 3}, quantity.New(1.5e-5, quantity.KinematicViscosity), `1.5\times 10^{-5}\,\mathrm{m}^{2}/\mathrm{s}`},
 		{units.Printer{Prefix: true}, quantity.New(1500, quantity.Mass), "1.5 Mg"},
 		{units.Printer{}, quantity.Scalar(0.25), "0.25"},
 	}

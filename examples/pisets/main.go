@@ -36,6 +36,7 @@ import (
 	"unicode/utf8"
 
 	"similis.dev/similis/pigroups"
+	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
 )
 
@@ -203,7 +204,7 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 			v.Role = pigroups.Dependent
 		}
 		vars = append(vars, v)
-		r.Variables = append(r.Variables, VariableOut{Symbol: sym, Unit: u.Format(units.Unicode), Dimension: u.Dim().String(), Dependent: sym == dep})
+		r.Variables = append(r.Variables, VariableOut{Symbol: sym, Unit: u.Format(quantity.Unicode), Dimension: u.Dim().String(), Dependent: sym == dep})
 	}
 	if dep != "" && !slicesContains(r.Variables, dep) {
 		return nil, &usageError{fmt.Sprintf("-dep %q is not among the variables", dep)}
@@ -241,8 +242,8 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 	}
 	r.Repeating, r.set = s.Repeating(), s
 	for _, g := range s.Groups() {
-		go_ := GroupOut{Name: g.Name, Plain: g.Format(pigroups.Plain), Unicode: g.Format(pigroups.Unicode),
-			LaTeX: g.Format(pigroups.LaTeX), Label: g.Label(), Exponents: map[string]string{}}
+		go_ := GroupOut{Name: g.Name, Plain: g.Format(quantity.ASCII), Unicode: g.Format(quantity.Unicode),
+			LaTeX: g.Format(quantity.LaTeX), Label: g.Label(), Exponents: map[string]string{}}
 		for i, e := range g.Exponents() {
 			if !e.IsZero() {
 				go_.Exponents[vars[i].Symbol] = e.String()
@@ -313,7 +314,7 @@ func writeText(w io.Writer, r *Report) {
 	}
 	fmt.Fprintf(w, "repeating set (%s): %s\n", how, strings.Join(r.Repeating, ", "))
 	fmt.Fprintln(w, "groups:")
-	for _, line := range strings.Split(strings.TrimRight(r.set.Format(pigroups.Unicode), "\n"), "\n") {
+	for _, line := range strings.Split(strings.TrimRight(r.set.Format(quantity.Unicode), "\n"), "\n") {
 		fmt.Fprintln(w, "  "+line)
 	}
 	if len(r.ValidSets) > 0 {

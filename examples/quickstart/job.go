@@ -40,7 +40,7 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	}
 	res.Set = set.WithConventional()
 	fmt.Fprint(w, p.MatrixTable())
-	fmt.Fprint(w, res.Set.Format(pigroups.Unicode))
+	fmt.Fprint(w, res.Set.Format(q.Unicode))
 
 	var fr, re pigroups.Group
 	for _, g := range set.Groups() {

@@ -96,7 +96,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	fmt.Fprintln(w, "Bench test of a flow restrictor in a coolant loop (invented data)")
 	fmt.Fprint(w, p.MatrixTable())
 	fmt.Fprintf(w, "repeating set: %s\n", strings.Join(set.Repeating(), ", "))
-	fmt.Fprint(w, set.Format(pigroups.Unicode))
+	fmt.Fprint(w, set.Format(q.Unicode))
 
 	rho, _ := units.ParseQuantity(density)
 	mu, _ := units.ParseQuantity(viscosity)
@@ -177,7 +177,7 @@ func label(g pigroups.Group) string {
 	if len(g.Matches) > 0 {
 		return g.Label()
 	}
-	return g.Format(pigroups.Unicode)
+	return g.Format(q.Unicode)
 }
 
 // plotFit draws measured Eu against Re for each L/d with the fitted
