@@ -84,7 +84,8 @@ func (s Style) Sep() string {
 // Format writes p in a style and layout, with sep between factors ("" for
 // the style's product sign). The empty product is "1".
 func (p Product) Format(style Style, layout Layout, sep string) string {
-	return string(p.AppendFormat(make([]byte, 0, 16*len(p)+4), style, layout, sep))
+	var buf [64]byte // most spellings fit: one allocation, the string
+	return string(p.AppendFormat(buf[:0], style, layout, sep))
 }
 
 // AppendFormat appends p as Format writes it.

@@ -121,11 +121,18 @@ func checkConvert(from, to Unit) error {
 // in m) or underflow to zero from a nonzero value, is an error wrapping
 // ErrRange.
 func ConvertUnits(v float64, from, to Unit) (float64, error) {
-	from, to = from.norm(), to.norm()
-	if err := checkConvert(from, to); err != nil {
-		return 0, err
+	if from.sym == "" {
+		from = one
 	}
-	if !finite(v) {
+	if to.sym == "" {
+		to = one
+	}
+	if from.dim != to.dim || from.angle != to.angle || from.solid != to.solid || from.temp != to.temp && (from.temp == tempInterval || to.temp == tempInterval) {
+		if err := checkConvert(from, to); err != nil {
+			return 0, err
+		}
+	}
+	if v-v != 0 { // NaN or ±Inf
 		return 0, &RangeError{Op: "convert", Value: v, Reason: fmt.Sprintf("the value %v is not finite", v)}
 	}
 	var x float64
@@ -134,10 +141,11 @@ func ConvertUnits(v float64, from, to Unit) (float64, error) {
 		return v, nil
 	case from.offset == 0 && to.offset == 0:
 		x = v * (from.factor / to.factor)
-		if !finite(x) || x == 0 && v != 0 {
-			// The ratio of factors may overflow where the product does not.
-			x = v * from.factor / to.factor
+		if x-x == 0 && (x != 0 || v == 0) {
+			return x, nil
 		}
+		// The ratio of factors may overflow where the product does not.
+		x = v * from.factor / to.factor
 	default:
 		x = (v*from.factor + from.offset - to.offset) / to.factor
 	}
