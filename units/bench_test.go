@@ -3,6 +3,7 @@ package units_test
 import (
 	"testing"
 
+	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
 )
 
@@ -53,3 +54,24 @@ func BenchmarkConvert(b *testing.B) {
 		}
 	})
 }
+
+// BenchmarkUnitAlgebra measures Unit.Div and Unit.Format, which work on
+// the unit's own terms: each allocates at most its result's spelling.
+func BenchmarkUnitAlgebra(b *testing.B) {
+	w, mk := units.MustParse("W"), units.MustParse("m*K")
+	b.Run("Div", func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			sinkUnit, _ = w.Div(mk)
+		}
+	})
+	u := units.MustParse("BTU/(h*ft^2*degF)")
+	b.Run("Format", func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			sinkString = u.Format(quantity.Unicode)
+		}
+	})
+}
+
+var sinkString string

@@ -121,10 +121,10 @@ func checkConvert(from, to Unit) error {
 // in m) or underflow to zero from a nonzero value, is an error wrapping
 // ErrRange.
 func ConvertUnits(v float64, from, to Unit) (float64, error) {
-	if from.sym == "" {
+	if from.sp == nil {
 		from = one
 	}
-	if to.sym == "" {
+	if to.sp == nil {
 		to = one
 	}
 	if from.dim != to.dim || from.angle != to.angle || from.solid != to.solid || from.temp != to.temp && (from.temp == tempInterval || to.temp == tempInterval) {
@@ -193,7 +193,7 @@ func (v Value) In(u Unit) (Value, error) {
 // String returns "12.5 kn" in Unicode spelling.
 func (v Value) String() string {
 	n := strconv.FormatFloat(v.Number, 'g', -1, 64)
-	if v.Unit.sym == "" || v.Unit.sym == "1" {
+	if u := v.Unit.String(); u == "1" {
 		return n
 	}
 	u := v.Unit.Format(quantity.Unicode)

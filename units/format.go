@@ -99,7 +99,7 @@ func (p Printer) FormatIn(q quantity.Quantity, u Unit) (string, error) {
 			num = m + `\times 10^{` + strconv.Itoa(exp) + `}`
 		}
 	}
-	if u.sym == "1" || u.sym == "" {
+	if u.String() == "1" {
 		return num, nil
 	}
 	sep := " "
@@ -145,7 +145,7 @@ func withPrefix(v float64, u Unit) (float64, Unit) {
 		base, scale = "g", 1000
 	}
 	e, ok := builtinIndex.bySym[base]
-	if !ok || !e.prefixable || e.u.sym != base {
+	if !ok || !e.prefixable || e.u.String() != base {
 		return v, u
 	}
 	vv := v * scale
@@ -158,7 +158,9 @@ func withPrefix(v float64, u Unit) (float64, Unit) {
 	t[0].sym = sym
 	nu := u
 	nu.factor = applyPrefix(u.factor/scale, exp)
-	nu.sym = t.spell(quantity.ASCII)
+	if err := nu.setTerms(t); err != nil {
+		return v, u
+	}
 	// Scale by an exact power of ten, multiplying for small values so
 	// that 2.5e-6 m prints as 2.5 µm rather than 2.5000000000000004 µm.
 	if exp < 0 {

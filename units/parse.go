@@ -111,7 +111,10 @@ func (p *parser) unit(v val) (Unit, error) {
 	if err != nil {
 		return Unit{}, p.fail(0, ErrExponent, err.Error())
 	}
-	u := Unit{dim: v.dim, factor: v.factor, angle: int8(v.angle), solid: int8(v.solid), sym: t.spell(quantity.ASCII)}
+	u := Unit{dim: v.dim, factor: v.factor, angle: int8(v.angle), solid: int8(v.solid)}
+	if err := u.setTerms(t); err != nil {
+		return Unit{}, p.fail(0, ErrTooLong, err.Error())
+	}
 	// The temperature role follows from the final spelling, so that a unit
 	// and its spelling always agree: one symbol to the power one keeps its
 	// role (a bare °C is a scale, a bare Δ°C an interval); anything else
@@ -426,7 +429,7 @@ func (p *parser) symbol() (val, error) {
 	if e.ambiguous != "" {
 		return val{}, &ParseError{Input: p.s, Offset: start, Err: ErrAmbiguous, Symbol: sym, Reason: fmt.Sprintf("%q reads as %s; define it in a Table to say which is meant", sym, e.ambiguous)}
 	}
-	p.terms = append(p.terms, term{sym: e.u.sym, num: 1, den: 1})
+	p.terms = append(p.terms, term{sym: e.sym, num: 1, den: 1})
 	v := val{
 		factor: e.u.factor, dim: e.u.dim, angle: int(e.u.angle), solid: int(e.u.solid),
 		lo: len(p.terms) - 1, hi: len(p.terms),

@@ -19,7 +19,8 @@ func lookupIn(idx *tableIndex, sym string) (*entry, bool) {
 func prefixedEntry(p prefix, base *entry) *entry {
 	e := *base
 	e.u.factor = applyPrefix(base.u.factor, p.exp)
-	e.u.sym = p.ascii + base.u.sym
+	e.sym = p.ascii + base.sym
+	e.u = symbolUnit(e.u, e.sym)
 	e.uni = p.uni + base.uni
 	if rest, ok := strings.CutPrefix(base.tex, `\mathrm{`); ok && p.ascii != "u" {
 		e.tex = `\mathrm{` + p.ascii + rest

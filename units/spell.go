@@ -72,70 +72,9 @@ func foldNumbers(t terms) terms {
 	return out
 }
 
-// combineTerms returns a·b^sign, merging repeated symbols, without
-// changing a.
-func combineTerms(a, b terms, sign int) (terms, error) {
-	return mergeTerms(append(make(terms, 0, len(a)+len(b)), a...), b, sign)
-}
-
-// termsOf recovers the spelling terms of a unit from its canonical ASCII
-// spelling, which spell wrote.
+// termsOf returns a copy of u's terms.
 func termsOf(u Unit) terms {
-	s := u.String()
-	if s == "1" {
-		return nil
-	}
-	var out terms
-	read := func(part string, sign int) {
-		if strings.HasPrefix(part, "(") && strings.HasSuffix(part, ")") {
-			part = part[1 : len(part)-1]
-		}
-		for _, f := range splitTop(part, '*') {
-			if f == "" || f == "1" {
-				continue
-			}
-			sym, exp, _ := strings.Cut(f, "^")
-			n, d := 1, 1
-			if exp != "" {
-				if strings.HasPrefix(exp, "(") && strings.HasSuffix(exp, ")") {
-					exp = exp[1 : len(exp)-1]
-				}
-				ns, ds, frac := strings.Cut(exp, "/")
-				n, _ = strconv.Atoi(ns)
-				if frac {
-					d, _ = strconv.Atoi(ds)
-				}
-			}
-			isNum := len(sym) > 0 && (sym[0] >= '0' && sym[0] <= '9' || sym[0] == '.')
-			out = append(out, term{sym: sym, num: sign * n, den: d, number: isNum})
-		}
-	}
-	parts := splitTop(s, '/')
-	read(parts[0], 1)
-	if len(parts) > 1 {
-		read(parts[1], -1)
-	}
-	return out
-}
-
-// splitTop splits s at sep outside parentheses.
-func splitTop(s string, sep byte) []string {
-	var out []string
-	depth, last := 0, 0
-	for i := 0; i < len(s); i++ {
-		switch s[i] {
-		case '(':
-			depth++
-		case ')':
-			depth--
-		case sep:
-			if depth == 0 {
-				out = append(out, s[last:i])
-				last = i + 1
-			}
-		}
-	}
-	return append(out, s[last:])
+	return slices.Clone(u.terms())
 }
 
 // spell writes terms in a style: numerator factors, then '/' and the
@@ -182,7 +121,10 @@ func (u Unit) Format(style quantity.Style) string {
 	if style == quantity.ASCII {
 		return u.String()
 	}
-	return termsOf(u).spell(style)
+	if style == quantity.Unicode {
+		return u.sp.unicode()
+	}
+	return u.terms().spell(style)
 }
 
 // unknown builds the error for an unknown symbol, with suggestions.
@@ -201,7 +143,7 @@ func (p *parser) unknown(at int, sym string) *ParseError {
 	for _, pfx := range []string{"k", "m", "M", "G", "c", "u", "n"} {
 		if rest, ok := strings.CutPrefix(sym, pfx); ok {
 			if base, ok := p.tab.lookup(rest); ok && !base.prefixable {
-				e.Reason += fmt.Sprintf(": %s takes no SI prefix", base.u.sym)
+				e.Reason += fmt.Sprintf(": %s takes no SI prefix", base.u)
 				if base.u.dim == builtinIndex.bySym["kg"].u.dim && rest == "kg" {
 					e.Reason += " (mass prefixes attach to g)"
 				}

@@ -104,11 +104,11 @@ func (t *Table) Define(name, expr string) error {
 	if e, ok := lookupIn(builtinIndex, name); ok && e.ambiguous == "" {
 		return &DefineError{Name: name, Reason: "already a built-in unit (or a prefixed one)"}
 	}
-	u.sym = name
+	u = symbolUnit(u, name)
 	if u.temp != tempInterval {
 		u.temp = tempNone // a difference stays a difference; anything else has no role
 	}
-	t.defs[name] = &entry{u: u, uni: name, tex: `\mathrm{` + name + `}`}
+	t.defs[name] = &entry{u: u, sym: name, uni: name, tex: `\mathrm{` + name + `}`}
 	t.names = append(t.names, name)
 	return nil
 }

@@ -3,6 +3,8 @@ package units
 import (
 	"fmt"
 	"math"
+	"sync"
+	"sync/atomic"
 
 	"similis.dev/similis/quantity"
 )
@@ -29,6 +31,11 @@ const (
 // their exponents (rad, sr) so that no conversion silently applies or
 // drops a factor 2π: rpm converts to rad/s and rev/s, not to Hz.
 //
+// A Unit holds its spelling as terms — symbols (with their prefixes) and
+// numbers, each to an exact power — in an interned, immutable record, so
+// that unit algebra and printing work on the terms directly, never
+// re-reading text, and two units with the same spelling share one record.
+//
 // Unit is comparable; == also compares spellings, Equal does not.
 type Unit struct {
 	dim    quantity.Dim
@@ -37,11 +44,94 @@ type Unit struct {
 	angle  int8 // exponent of plane angle
 	solid  int8 // exponent of solid angle
 	temp   tempRole
-	sym    string // canonical ASCII spelling
+	sp     *spelling // nil for the zero Unit, which is One
+}
+
+// spelling is a unit's spelling: its terms and their ASCII form, with the
+// Unicode form written once, when first asked for. Spellings are interned
+// by their ASCII form, so == on Units compares spellings.
+type spelling struct {
+	t     terms
+	ascii string
+	uni   atomic.Pointer[string]
+}
+
+// maxSpellings bounds the interned spellings; past it, new spellings are
+// refused with a RangeError (a harness meets a few hundred).
+const maxSpellings = 1 << 20
+
+var (
+	spellings    sync.Map // ASCII spelling → *spelling
+	spellingsLen atomic.Int64
+)
+
+// internSpelling returns the record of the spelling of t.
+func internSpelling(t terms) (*spelling, error) {
+	return internAs(t.spell(quantity.ASCII), t)
+}
+
+// internAs returns the record of the spelling ascii of t.
+func internAs(ascii string, t terms) (*spelling, error) {
+	if sp, ok := spellings.Load(ascii); ok {
+		return sp.(*spelling), nil
+	}
+	if spellingsLen.Load() >= maxSpellings {
+		return nil, &RangeError{Op: "spell a unit", Reason: fmt.Sprintf("more than %d distinct unit spellings in use", maxSpellings)}
+	}
+	sp := &spelling{t: append(terms(nil), t...), ascii: ascii}
+	if old, loaded := spellings.LoadOrStore(ascii, sp); loaded {
+		return old.(*spelling), nil
+	}
+	spellingsLen.Add(1)
+	return sp, nil
+}
+
+// unicode returns the Unicode spelling, writing it the first time.
+func (sp *spelling) unicode() string {
+	if s := sp.uni.Load(); s != nil {
+		return *s
+	}
+	s := sp.t.spell(quantity.Unicode)
+	sp.uni.Store(&s)
+	return s
+}
+
+// setTerms gives u the spelling of t.
+func (u *Unit) setTerms(t terms) error {
+	sp, err := internSpelling(t)
+	if err != nil {
+		return err
+	}
+	u.sp = sp
+	return nil
+}
+
+// terms returns u's terms; the caller must not change them.
+func (u Unit) terms() terms {
+	if u.sp == nil {
+		return nil
+	}
+	return u.sp.t
+}
+
+// symbolUnit returns u with the single symbol sym as its spelling.
+func symbolUnit(u Unit, sym string) Unit {
+	sp, err := internAs(sym, terms{{sym: sym, num: 1, den: 1}})
+	if err != nil {
+		panic(err) // the built-in table and user tables are bounded far below
+	}
+	u.sp = sp
+	return u
 }
 
 // one is the unit one, for dimensionless numbers.
-var one = Unit{factor: 1, sym: "1"}
+var one = func() Unit {
+	sp, err := internAs("1", nil)
+	if err != nil {
+		panic(err)
+	}
+	return Unit{factor: 1, sp: sp}
+}()
 
 // One returns the unit one, for dimensionless numbers. The zero Unit is
 // the unit one too: every method treats it as One (Equal reports them
@@ -50,7 +140,7 @@ func One() Unit { return one }
 
 // norm returns One for the zero Unit.
 func (u Unit) norm() Unit {
-	if u.sym == "" {
+	if u.sp == nil {
 		return one
 	}
 	return u
@@ -106,14 +196,15 @@ func (u Unit) Mul(o Unit) (Unit, error) {
 	if err != nil {
 		return Unit{}, err
 	}
-	t, err := combineTerms(termsOf(u), termsOf(o), 1)
+	var bt [16]term
+	t, err := mergeTerms(append(bt[:0], u.terms()...), o.terms(), 1)
 	if err == nil {
 		err = t.holdable(builtinLookup)
 	}
 	if err != nil {
 		return Unit{}, &RangeError{Op: "multiply units", Reason: err.Error()}
 	}
-	return checkFactor("multiply units", withRole(Unit{dim: d, factor: u.factor * o.factor, angle: u.angle + o.angle, solid: u.solid + o.solid, sym: t.spell(quantity.ASCII)}, t, u, o))
+	return newUnit("multiply units", Unit{dim: d, factor: u.factor * o.factor, angle: u.angle + o.angle, solid: u.solid + o.solid}, t, u, o)
 }
 
 // Div returns the quotient unit u/o.
@@ -123,14 +214,15 @@ func (u Unit) Div(o Unit) (Unit, error) {
 	if err != nil {
 		return Unit{}, err
 	}
-	t, err := combineTerms(termsOf(u), termsOf(o), -1)
+	var bt [16]term
+	t, err := mergeTerms(append(bt[:0], u.terms()...), o.terms(), -1)
 	if err == nil {
 		err = t.holdable(builtinLookup)
 	}
 	if err != nil {
 		return Unit{}, &RangeError{Op: "divide units", Reason: err.Error()}
 	}
-	return checkFactor("divide units", withRole(Unit{dim: d, factor: u.factor / o.factor, angle: u.angle - o.angle, solid: u.solid - o.solid, sym: t.spell(quantity.ASCII)}, t, u, o))
+	return newUnit("divide units", Unit{dim: d, factor: u.factor / o.factor, angle: u.angle - o.angle, solid: u.solid - o.solid}, t, u, o)
 }
 
 // Pow returns u raised to num/den. Angles must keep whole exponents.
@@ -145,9 +237,9 @@ func (u Unit) Pow(num, den int) (Unit, error) {
 	}
 	a, s := int(u.angle)*num, int(u.solid)*num
 	if a%den != 0 || s%den != 0 {
-		return Unit{}, &ParseError{Input: u.sym, Reason: "a fractional power of an angle unit", Err: ErrExponent}
+		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("%s carries an angle, which cannot be raised to the power %s", u, ratText(num, den))}
 	}
-	t := termsOf(u).pow(num, den)
+	t := u.terms().pow(num, den)
 	for _, x := range t {
 		if !x.number && 6%x.den != 0 {
 			return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s; a unit's exponents must be whole sixths, as its dimension's are", x.sym, ratText(x.num, x.den))}
@@ -156,7 +248,16 @@ func (u Unit) Pow(num, den int) (Unit, error) {
 	if err := t.holdable(builtinLookup); err != nil {
 		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: err.Error()}
 	}
-	return checkFactor("raise a unit to a power", withRole(Unit{dim: d, factor: math.Pow(u.factor, float64(num)/float64(den)), angle: int8(a / den), solid: int8(s / den), sym: t.spell(quantity.ASCII)}, t, u))
+	return newUnit("raise a unit to a power", Unit{dim: d, factor: math.Pow(u.factor, float64(num)/float64(den)), angle: int8(a / den), solid: int8(s / den)}, t, u)
+}
+
+// newUnit completes r, the result of unit algebra, with its terms t, its
+// spelling and temperature role, and checks its factor.
+func newUnit(op string, r Unit, t terms, operands ...Unit) (Unit, error) {
+	if err := r.setTerms(t); err != nil {
+		return Unit{}, err
+	}
+	return checkFactor(op, withRole(r, t, operands...))
 }
 
 // withRole gives the result r of unit algebra, spelled by terms t, the
@@ -167,7 +268,7 @@ func (u Unit) Pow(num, den int) (Unit, error) {
 // else has none.
 func withRole(r Unit, t terms, operands ...Unit) Unit {
 	for _, o := range operands {
-		if o.sym == r.sym && o.dim == r.dim {
+		if o.sp == r.sp && o.dim == r.dim {
 			r.temp, r.offset = o.temp, o.offset
 			return r
 		}
@@ -188,7 +289,7 @@ func withRole(r Unit, t terms, operands ...Unit) Unit {
 // checkFactor refuses a unit whose factor overflowed or underflowed.
 func checkFactor(op string, u Unit) (Unit, error) {
 	if !finite(u.factor) || u.factor == 0 {
-		return Unit{}, &RangeError{Op: op, Reason: fmt.Sprintf("the factor of %s to SI is out of the range of a float64", u.sym)}
+		return Unit{}, &RangeError{Op: op, Reason: fmt.Sprintf("the factor of %s to SI is out of the range of a float64", u)}
 	}
 	return u, nil
 }
@@ -213,10 +314,10 @@ func (u Unit) ValueOf(q quantity.Quantity) (float64, error) {
 
 // String returns the unit's spelling in ASCII, which Parse reads back.
 func (u Unit) String() string {
-	if u.sym == "" {
+	if u.sp == nil {
 		return "1"
 	}
-	return u.sym
+	return u.sp.ascii
 }
 
 // AppendText appends u's ASCII spelling, as String writes it, to b. It
