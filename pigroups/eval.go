@@ -195,6 +195,7 @@ func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
 			return &EvalError{Reason: fmt.Sprintf("destination %d holds %d values, the columns %d", g, len(dst[g]), n)}
 		}
 	}
+	bad := false // a group value out of range somewhere: checked per block, redone after
 	for lo := 0; lo < n; lo += evalBlock {
 		hi := min(lo+evalBlock, n)
 		for g := range e.num {
@@ -205,35 +206,46 @@ func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
 				for i := range out {
 					out[i] = x[i] / y[i]
 				}
-				continue
+			} else {
+				num := e.nbuf[:hi-lo]
+				den := e.dbuf[:hi-lo]
+				product(num, cols, e.num[g], lo)
+				if len(e.den[g]) == 0 {
+					copy(out, num)
+				} else {
+					product(den, cols, e.den[g], lo)
+					for i := range out {
+						out[i] = num[i] / den[i]
+					}
+				}
 			}
-			num := e.nbuf[:hi-lo]
-			den := e.dbuf[:hi-lo]
-			product(num, cols, e.num[g], lo)
-			if len(e.den[g]) == 0 {
-				copy(out, num)
-				continue
+			// The factor and the range check, while the block is in cache.
+			if k := e.factor[g]; k != 1 {
+				for i := range out {
+					out[i] *= k
+				}
 			}
-			product(den, cols, e.den[g], lo)
-			for i := range out {
-				out[i] = num[i] / den[i]
+			acc, zero := 0.0, false // x·0 is 0 for a finite x, NaN otherwise
+			for _, x := range out {
+				acc += x * 0
+				if x == 0 {
+					zero = true
+				}
 			}
+			bad = bad || zero || acc != 0
 		}
 	}
-	for g, k := range e.factor {
+	if !bad {
+		return nil
+	}
+	// A numerator and a denominator that overflow or underflow apart
+	// although the group is finite: evaluate those rows in logarithms. A
+	// zero or a NaN that the inputs explain (a zero reading, a missing
+	// value) is kept.
+	for g := range e.num {
 		out := dst[g][:n]
-		bad := false
 		for i := range out {
-			out[i] *= k
-			bad = bad || !finiteNonzero(out[i])
-		}
-		if !bad {
-			continue
-		}
-		// A numerator and a denominator that overflow or underflow apart
-		// although the group is finite: evaluate those rows in logarithms.
-		for i := range out {
-			if finiteNonzero(out[i]) {
+			if x := out[i]; x-x == 0 && x != 0 {
 				continue
 			}
 			v, ok := e.logRow(g, func(j int) float64 { return cols[j].Values()[i] })

@@ -31,6 +31,22 @@
 // Every *DimensionError matches ErrDimension under errors.Is, and
 // errors.As recovers its fields.
 //
+// # The exponent algebra and the error classes
+//
+// Rat is the module's exact exponent (zero value 0, comparable, with text
+// encoding); a Dim reports its exponents as Rats (Dim.Exponent), and the
+// other packages use Rat for Pi-group exponents and scale laws. Product
+// is the one product-of-powers formatter: dimensions, units, Pi groups
+// and scale laws are all written through it, in the Unicode, ASCII,
+// LaTeX or Markdown Style. ErrDimension, ErrRange, ErrParse, ErrUnknown
+// and ErrInvalid are the error classes of the whole module.
+//
+// # Bounds
+//
+// ParseDim and ParseQuantitySI read at most 256 bytes (320 for a
+// quantity) in one pass; ParseRat reads at most 41. Rat arithmetic
+// reports an overflow of its int64 numerator or denominator as an error.
+//
 // Quantity arithmetic does not allocate; a Quantity is 16 bytes with no
 // pointer, so formulas written with it cost close to plain float64 code.
 // See the README for measured figures.
