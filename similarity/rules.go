@@ -207,19 +207,12 @@ func AffinityLaws(sc Scales) (Affinity, error) {
 	if err != nil {
 		return Affinity{}, err
 	}
-	var gerr error
-	get := func(sym string) float64 {
-		r, err := s.Ratio(sym)
-		if err != nil && gerr == nil {
-			gerr = err
-		}
-		return r.Value
+	v, err := ratioValues(s, "Q", "gH", "P")
+	if err != nil {
+		return Affinity{}, err
 	}
-	a := Affinity{Speed: speedRatio, Diameter: diameterRatio, Density: densityRatio, Flow: get("Q"), Head: get("gH"), Power: get("P")}
+	a := Affinity{Speed: speedRatio, Diameter: diameterRatio, Density: densityRatio, Flow: v[0], Head: v[1], Power: v[2]}
 	a.Torque = a.Power / a.Speed
-	if gerr != nil {
-		return Affinity{}, gerr
-	}
 	if err := finiteRatios("torque", a.Torque); err != nil {
 		return Affinity{}, err
 	}
@@ -263,27 +256,33 @@ func DistortedFroude(sc Scales) (Distorted, error) {
 	if err != nil {
 		return Distorted{}, err
 	}
-	var gerr error
-	get := func(sym string) float64 {
-		r, err := s.Ratio(sym)
-		if err != nil && gerr == nil {
-			gerr = err
-		}
-		return r.Value
+	v, err := ratioValues(s, "V", "t", "Q")
+	if err != nil {
+		return Distorted{}, err
 	}
 	d := Distorted{
 		Horizontal: horizontal, Vertical: vertical, Distortion: vertical / horizontal,
-		Velocity: get("V"), Time: get("t"), Discharge: get("Q"), Area: horizontal * horizontal,
+		Velocity: v[0], Time: v[1], Discharge: v[2], Area: horizontal * horizontal,
 		Slope: vertical / horizontal, Manning: math.Pow(vertical, 2.0/3) / math.Sqrt(horizontal),
 		solution: s,
-	}
-	if gerr != nil {
-		return Distorted{}, gerr
 	}
 	if err := finiteRatios("area", d.Area, "slope", d.Slope, "Manning's n", d.Manning, "distortion", d.Distortion); err != nil {
 		return Distorted{}, err
 	}
 	return d, nil
+}
+
+// ratioValues returns the values of the ratios of the given variables.
+func ratioValues(s *Solution, syms ...string) ([]float64, error) {
+	out := make([]float64, len(syms))
+	for i, sym := range syms {
+		r, err := s.Ratio(sym)
+		if err != nil {
+			return nil, err
+		}
+		out[i] = r.Value
+	}
+	return out, nil
 }
 
 // finiteRatios checks name–value pairs of derived ratios: each must be
