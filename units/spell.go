@@ -237,8 +237,8 @@ func editDistance(a, b string) int {
 // factor it reads; symbols look cannot resolve are skipped.
 func (t terms) holdable(look func(string) (*entry, bool)) error {
 	for _, x := range t {
-		if x.number {
-			continue
+		if x.number || (x.num == 1 || x.num == -1) && x.den == 1 {
+			continue // a symbol's own dimension, or its inverse, is always held
 		}
 		e, ok := look(x.sym)
 		if !ok {
