@@ -65,6 +65,12 @@ func BenchmarkUnitAlgebra(b *testing.B) {
 			sinkUnit, _ = w.Div(mk)
 		}
 	})
+	b.Run("Pow", func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			sinkUnit, _ = mk.Pow(2, 1)
+		}
+	})
 	u := units.MustParse("BTU/(h*ft^2*degF)")
 	b.Run("Format", func(b *testing.B) {
 		b.ReportAllocs()

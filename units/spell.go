@@ -11,8 +11,10 @@ import (
 	"similis.dev/similis/quantity"
 )
 
-func (t terms) pow(num, den int) terms {
-	out := make(terms, 0, len(t))
+
+// powTo is pow writing into dst, which may be a caller's stack buffer.
+func (t terms) powTo(dst terms, num, den int) terms {
+	out := dst[:0]
 	for _, x := range t {
 		x.num, x.den = reduce(x.num*num, x.den*den)
 		if x.num != 0 {

@@ -239,7 +239,8 @@ func (u Unit) Pow(num, den int) (Unit, error) {
 	if a%den != 0 || s%den != 0 {
 		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("%s carries an angle, which cannot be raised to the power %s", u, ratText(num, den))}
 	}
-	t := u.terms().pow(num, den)
+	var bt [16]term
+	t := u.terms().powTo(bt[:0], num, den)
 	for _, x := range t {
 		if !x.number && 6%x.den != 0 {
 			return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s; a unit's exponents must be whole sixths, as its dimension's are", x.sym, ratText(x.num, x.den))}
