@@ -11,7 +11,6 @@ import (
 	"similis.dev/similis/quantity"
 )
 
-
 // powTo is pow writing into dst, which may be a caller's stack buffer.
 func (t terms) powTo(dst terms, num, den int) terms {
 	out := dst[:0]
