@@ -1,0 +1,355 @@
+package formula
+
+import (
+	"fmt"
+	"math"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/units"
+)
+
+// Input names a variable of a formula and gives its dimension.
+type Input struct {
+	Name string
+	Dim  quantity.Dim
+}
+
+type opcode uint8
+
+const (
+	opConst opcode = iota
+	opNeg
+	opAdd
+	opSub
+	opMul
+	opDiv
+	opPowInt
+	opPow // math.Pow with a constant exponent
+	opPowX
+	opSqrt
+	opCbrt
+	opExp
+	opLn
+	opLog10
+	opAbs
+	opMin
+	opMax
+	opHypot
+	opSin
+	opCos
+	opTan
+	opAsin
+	opAcos
+	opAtan
+	opAtan2
+	opLT
+	opLE
+	opGT
+	opGE
+	opEQ
+	opNE
+	opAnd
+	opOr
+	opIf
+)
+
+// op computes slot dst from slots a, b, c.
+type op struct {
+	code    opcode
+	dst     int
+	a, b, c int
+	k       float64 // constant, or exponent
+	n       int     // integer exponent
+}
+
+// Program is a compiled formula text. It is immutable and safe for
+// concurrent use; evaluate it with an Evaluator.
+type Program struct {
+	src     string
+	inputs  []Input
+	ops     []op
+	slots   int
+	outputs []output
+}
+
+type output struct {
+	name string // "" for the bare result
+	slot int
+	dim  quantity.Dim
+}
+
+// Compile reads a formula text and checks it against the dimensions of
+// its inputs. Every name a statement uses must be an input or assigned
+// by an earlier statement; an input may not be assigned.
+func Compile(src string, inputs ...Input) (*Program, error) {
+	stmts, err := parseText(src)
+	if err != nil {
+		return nil, err
+	}
+	c := &compiler{p: &Program{src: src, inputs: append([]Input(nil), inputs...)}, names: map[string]int{}, dims: map[int]quantity.Dim{}}
+	for i, in := range inputs {
+		if _, dup := c.names[in.Name]; dup {
+			return nil, &Error{Input: src, Reason: fmt.Sprintf("input %q is given twice", in.Name)}
+		}
+		c.names[in.Name] = i
+		c.dims[i] = in.Dim
+	}
+	c.p.slots = len(inputs)
+	for _, st := range stmts {
+		slot, d, err := c.expr(st.e)
+		if err != nil {
+			return nil, err
+		}
+		if d.cond {
+			return nil, c.dimErr(st.e.pos, "a comparison is not a quantity: use it in if(…)")
+		}
+		if st.name != "" {
+			if _, exists := c.names[st.name]; exists {
+				return nil, &Error{Input: src, Offset: st.pos, Reason: fmt.Sprintf("%q is already defined", st.name)}
+			}
+			c.names[st.name] = slot
+		}
+		c.p.outputs = append(c.p.outputs, output{name: st.name, slot: slot, dim: d.dim})
+	}
+	return c.p, nil
+}
+
+type compiler struct {
+	p     *Program
+	names map[string]int // name → slot
+	dims  map[int]quantity.Dim
+}
+
+// typ is a node's type: a quantity of a dimension, or a condition.
+type typ struct {
+	dim  quantity.Dim
+	cond bool
+}
+
+func (c *compiler) dimErr(at int, format string, a ...any) error {
+	return &Error{Input: c.p.src, Offset: at, Reason: fmt.Sprintf(format, a...), Dimension: true}
+}
+
+// describe names a dimension with its kind and a unit: "pressure [Pa]".
+func describe(d quantity.Dim) string {
+	u := units.BaseUnit(d)
+	if du, ok := units.DerivedUnit(d); ok {
+		u = du
+	}
+	kind := quantity.KindName(d)
+	if d.IsDimensionless() {
+		kind = "a number"
+	}
+	if kind == "" {
+		return "[" + u.Format(quantity.Unicode) + "]"
+	}
+	if d.IsDimensionless() {
+		return kind
+	}
+	return kind + " [" + u.Format(quantity.Unicode) + "]"
+}
+
+func (c *compiler) emit(o op) int {
+	o.dst = c.p.slots
+	c.p.slots++
+	c.p.ops = append(c.p.ops, o)
+	return o.dst
+}
+
+func (c *compiler) expr(n *node) (int, typ, error) {
+	switch n.k {
+	case kNum:
+		return c.emit(op{code: opConst, k: n.val}), typ{dim: n.dim}, nil
+	case kRef:
+		slot, ok := c.names[n.name]
+		if !ok {
+			return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("unknown name %q: not an input and not assigned before", n.name)}
+		}
+		return slot, typ{dim: c.slotDim(slot)}, nil
+	}
+	var slots [3]int
+	var types [3]typ
+	if n.k != kCall {
+		for i, a := range n.args {
+			s, t, err := c.expr(a)
+			if err != nil {
+				return 0, typ{}, err
+			}
+			if t.cond && n.k != kAnd && n.k != kOr {
+				return 0, typ{}, c.dimErr(a.pos, "a comparison is not a quantity: use it in if(…)")
+			}
+			slots[i], types[i] = s, t
+		}
+	}
+	a, b := slots[0], slots[1]
+	ta, tb := types[0].dim, types[1].dim
+	switch n.k {
+	case kNeg:
+		return c.out(op{code: opNeg, a: a}, ta)
+	case kAdd, kSub:
+		if ta != tb {
+			verb := "add"
+			if n.k == kSub {
+				verb = "subtract"
+			}
+			return 0, typ{}, c.dimErr(n.pos, "cannot %s %s and %s", verb, describe(ta), describe(tb))
+		}
+		code := opAdd
+		if n.k == kSub {
+			code = opSub
+		}
+		return c.out(op{code: code, a: a, b: b}, ta)
+	case kMul, kDiv:
+		var d quantity.Dim
+		var err error
+		code := opMul
+		if n.k == kMul {
+			d, err = ta.Mul(tb)
+		} else {
+			code = opDiv
+			d, err = ta.Div(tb)
+		}
+		if err != nil {
+			return 0, typ{}, c.dimErr(n.pos, "%v", err)
+		}
+		return c.out(op{code: code, a: a, b: b}, d)
+	case kPow:
+		e := n.exp
+		d, err := ta.Pow(int(e.Num()), int(e.Den()))
+		if err != nil || e.Num() > math.MaxInt32 || e.Num() < math.MinInt32 {
+			return 0, typ{}, c.dimErr(n.pos, "cannot raise %s to the power %s: the dimension cannot hold it", describe(ta), e)
+		}
+		if e.IsInt() && e.Num() >= -16 && e.Num() <= 16 {
+			return c.out(op{code: opPowInt, a: a, n: int(e.Num())}, d)
+		}
+		return c.out(op{code: opPow, a: a, k: e.Float()}, d)
+	case kPowX:
+		if !ta.IsDimensionless() || !tb.IsDimensionless() {
+			return 0, typ{}, c.dimErr(n.pos, "a power with a computed exponent needs a dimensionless base and exponent, not %s to the power %s (write an exact exponent: x^2, x^(1/3))", describe(ta), describe(tb))
+		}
+		return c.out(op{code: opPowX, a: a, b: b}, ta)
+	case kCmp:
+		if ta != tb {
+			return 0, typ{}, c.dimErr(n.pos, "cannot compare %s and %s", describe(ta), describe(tb))
+		}
+		code := map[string]opcode{"<": opLT, "<=": opLE, ">": opGT, ">=": opGE, "==": opEQ, "!=": opNE}[n.name]
+		s := c.emit(op{code: code, a: a, b: b})
+		return s, typ{cond: true}, nil
+	case kAnd, kOr:
+		if !types[0].cond || !types[1].cond {
+			return 0, typ{}, c.dimErr(n.pos, "'and' and 'or' join comparisons")
+		}
+		code := opAnd
+		if n.k == kOr {
+			code = opOr
+		}
+		return c.emit(op{code: code, a: a, b: b}), typ{cond: true}, nil
+	case kCall:
+		return c.call(n)
+	}
+	return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: "unknown construct"}
+}
+
+func (c *compiler) slotDim(slot int) quantity.Dim {
+	if slot < len(c.p.inputs) {
+		return c.p.inputs[slot].Dim
+	}
+	return c.dims[slot]
+}
+
+func (c *compiler) out(o op, d quantity.Dim) (int, typ, error) {
+	s := c.emit(o)
+	c.dims[s] = d
+	return s, typ{dim: d}, nil
+}
+
+var unary = map[string]opcode{"sqrt": opSqrt, "cbrt": opCbrt, "exp": opExp, "ln": opLn, "log": opLn, "log10": opLog10, "abs": opAbs,
+	"sin": opSin, "cos": opCos, "tan": opTan, "asin": opAsin, "acos": opAcos, "atan": opAtan}
+
+func (c *compiler) call(n *node) (int, typ, error) {
+	want := map[string]int{"min": 2, "max": 2, "hypot": 2, "atan2": 2, "if": 3}[n.name]
+	code, isUnary := unary[n.name]
+	if isUnary {
+		want = 1
+	}
+	if want == 0 {
+		return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("unknown function %q", n.name)}
+	}
+	if len(n.args) != want {
+		return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("%s takes %d arguments, not %d", n.name, want, len(n.args))}
+	}
+	var slots [3]int
+	var types [3]typ
+	for i, a := range n.args {
+		s, t, err := c.expr(a)
+		if err != nil {
+			return 0, typ{}, err
+		}
+		if t.cond != (n.name == "if" && i == 0) {
+			if t.cond {
+				return 0, typ{}, c.dimErr(a.pos, "a comparison is not a quantity: use it as the first argument of if(…)")
+			}
+			return 0, typ{}, c.dimErr(a.pos, "the first argument of if must be a comparison")
+		}
+		slots[i], types[i] = s, t
+	}
+	ta := types[0].dim
+	switch {
+	case isUnary:
+		switch code {
+		case opSqrt, opCbrt:
+			den := 2
+			if code == opCbrt {
+				den = 3
+			}
+			d, err := ta.Pow(1, den)
+			if err != nil {
+				return 0, typ{}, c.dimErr(n.pos, "cannot take the %s of %s: the dimension cannot hold it", n.name, describe(ta))
+			}
+			return c.out(op{code: code, a: slots[0]}, d)
+		case opAbs:
+			return c.out(op{code: code, a: slots[0]}, ta)
+		}
+		if !ta.IsDimensionless() {
+			return 0, typ{}, c.dimErr(n.args[0].pos, "cannot take %s of %s: the argument must be dimensionless", n.name, describe(ta))
+		}
+		return c.out(op{code: code, a: slots[0]}, ta)
+	case n.name == "if":
+		if types[1].dim != types[2].dim {
+			return 0, typ{}, c.dimErr(n.pos, "the branches of if differ: %s and %s", describe(types[1].dim), describe(types[2].dim))
+		}
+		return c.out(op{code: opIf, a: slots[0], b: slots[1], c: slots[2]}, types[1].dim)
+	}
+	tb := types[1].dim
+	if ta != tb {
+		return 0, typ{}, c.dimErr(n.pos, "%s needs arguments of one dimension, not %s and %s", n.name, describe(ta), describe(tb))
+	}
+	switch n.name {
+	case "min":
+		return c.out(op{code: opMin, a: slots[0], b: slots[1]}, ta)
+	case "max":
+		return c.out(op{code: opMax, a: slots[0], b: slots[1]}, ta)
+	case "hypot":
+		return c.out(op{code: opHypot, a: slots[0], b: slots[1]}, ta)
+	}
+	return c.out(op{code: opAtan2, a: slots[0], b: slots[1]}, quantity.Dimensionless)
+}
+
+// Outputs returns the names of the program's results in order: each
+// assigned name, and "" for a bare expression.
+func (p *Program) Outputs() []string {
+	out := make([]string, len(p.outputs))
+	for i, o := range p.outputs {
+		out[i] = o.name
+	}
+	return out
+}
+
+// Dim returns the dimension of result i (in the order of Outputs).
+func (p *Program) Dim(i int) quantity.Dim { return p.outputs[i].dim }
+
+// Inputs returns the inputs the program was compiled for.
+func (p *Program) Inputs() []Input { return append([]Input(nil), p.inputs...) }
+
+// String returns the formula text.
+func (p *Program) String() string { return p.src }

@@ -1,0 +1,45 @@
+// Package formula reads correlations and data-reduction formulas written
+// as text, checks their dimensions once, when they are compiled against
+// the dimensions of their inputs, and then evaluates them over rows or
+// whole columns with no dimension work and no allocation per row.
+//
+// # The language
+//
+// A text is a sequence of statements separated by newlines or ';'. A
+// statement is an assignment, name = expression, which defines a derived
+// quantity that later statements may use, or a bare expression, the
+// result. '#' starts a comment that runs to the end of the line.
+//
+//	# Darcy–Weisbach with the Swamee–Jain friction factor
+//	Re = rho*V*D/mu
+//	f  = 0.25 / log10(eps/(3.7*D) + 5.74/Re^0.9)^2
+//	dp = f * L/D * rho*V^2/2
+//
+// Expressions use + − * / (also × · ÷), unary minus, parentheses, and
+// powers with '^' (or '**'). An exponent is an exact number — 2, -1,
+// 0.5, (1/3) — and may be any dimensionless expression when the base is
+// dimensionless (Re^n). A number may carry a unit in square brackets,
+// read by package units with its temperature rules: 9.80665 [m/s^2],
+// 20 [°C], 101.325 [kPa]. The value is held in SI.
+//
+// Names are UTF-8 words of letters, digits and '_' starting with a
+// letter: rho, ρ, Δp, T_in. The functions are sqrt, cbrt, exp, ln (log),
+// log10, abs, min, max, hypot, sin, cos, tan, asin, acos, atan, atan2 and
+// if(condition, then, else), where the condition compares two quantities
+// of one dimension with <, <=, >, >=, == or != and may combine such
+// comparisons with 'and' and 'or': f = if(Re < 2000, 64/Re, 0.316/Re^0.25).
+//
+// # Checked once, then fast
+//
+// Compile checks every operation against the dimensions of the inputs and
+// refuses, with the offset of the mistake and the dimensions involved, a
+// sum of a pressure and a velocity, the logarithm of a dimensional
+// quantity, a fractional power that a dimension cannot hold. The compiled
+// Program evaluates one row of SI values or whole columns in blocks,
+// without allocating.
+//
+// # Bounds
+//
+// A text is at most MaxLen bytes with at most MaxNodes operations and
+// parentheses nested at most MaxDepth deep; parsing never panics.
+package formula

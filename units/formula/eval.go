@@ -1,0 +1,347 @@
+package formula
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"similis.dev/similis/quantity"
+)
+
+// EvalError reports values that do not fit a program: a wrong count, a
+// column of another length or dimension. It matches quantity.ErrInvalid,
+// or through Unwrap the dimension error that caused it.
+type EvalError struct {
+	Reason string
+	Err    error
+}
+
+// Error implements the error interface.
+func (e *EvalError) Error() string { return "formula: " + e.Reason }
+
+// Unwrap returns the dimension error, if that was the problem.
+func (e *EvalError) Unwrap() error { return e.Err }
+
+// Is reports whether target is quantity.ErrInvalid (for a wrong count or
+// length; a wrong dimension matches quantity.ErrDimension through Unwrap).
+func (e *EvalError) Is(target error) bool { return e.Err == nil && target == quantity.ErrInvalid }
+
+func evalErr(format string, a ...any) error {
+	var cause error
+	for _, x := range a {
+		if err, ok := x.(error); ok {
+			cause = err
+		}
+	}
+	return &EvalError{Reason: fmt.Sprintf(strings.ReplaceAll(format, "%w", "%v"), a...), Err: cause}
+}
+
+// block is the number of rows an Evaluator works on at a time.
+const block = 256
+
+// Evaluator evaluates a Program. It holds the working storage, so it does
+// not allocate when evaluating; it is not safe for concurrent use (make
+// one per goroutine).
+type Evaluator struct {
+	p    *Program
+	regs []float64   // one value per slot, for Row
+	buf  []float64   // block storage for computed slots
+	view [][]float64 // per slot, the block being worked on
+}
+
+// Evaluator returns an evaluator for the program.
+func (p *Program) Evaluator() *Evaluator {
+	e := &Evaluator{p: p, regs: make([]float64, p.slots), view: make([][]float64, p.slots)}
+	e.buf = make([]float64, (p.slots-len(p.inputs))*block)
+	for s := len(p.inputs); s < p.slots; s++ {
+		k := s - len(p.inputs)
+		e.view[s] = e.buf[k*block : (k+1)*block : (k+1)*block]
+	}
+	// Constants fill their blocks once.
+	for _, o := range p.ops {
+		if o.code == opConst {
+			v := e.view[o.dst]
+			for i := range v {
+				v[i] = o.k
+			}
+		}
+	}
+	return e
+}
+
+// Row evaluates the program for one row of input values, given in SI in
+// the order of the inputs, and writes the results, in the order of
+// Outputs, into out, which it returns.
+func (e *Evaluator) Row(in []float64, out []float64) ([]float64, error) {
+	p := e.p
+	if len(in) != len(p.inputs) {
+		return nil, evalErr("%d values for %d inputs", len(in), len(p.inputs))
+	}
+	if len(out) < len(p.outputs) {
+		return nil, evalErr("room for %d results, the program has %d", len(out), len(p.outputs))
+	}
+	r := e.regs
+	copy(r, in)
+	for _, o := range p.ops {
+		r[o.dst] = scalar(o, r)
+	}
+	for i, o := range p.outputs {
+		out[i] = r[o.slot]
+	}
+	return out[:len(p.outputs)], nil
+}
+
+// RowQ is Row for quantities: each input's dimension is checked.
+func (e *Evaluator) RowQ(in []quantity.Quantity, out []quantity.Quantity) ([]quantity.Quantity, error) {
+	p := e.p
+	if len(in) != len(p.inputs) || len(out) < len(p.outputs) {
+		return nil, evalErr("%d quantities for %d inputs, room for %d of %d results", len(in), len(p.inputs), len(out), len(p.outputs))
+	}
+	r := e.regs
+	for i, q := range in {
+		if err := q.CheckNamed(p.inputs[i].Name, p.inputs[i].Dim); err != nil {
+			return nil, err
+		}
+		r[i] = q.Value()
+	}
+	for _, o := range p.ops {
+		r[o.dst] = scalar(o, r)
+	}
+	for i, o := range p.outputs {
+		out[i] = quantity.New(r[o.slot], o.dim)
+	}
+	return out[:len(p.outputs)], nil
+}
+
+func b2f(b bool) float64 {
+	if b {
+		return 1
+	}
+	return 0
+}
+
+// scalar computes one operation on registers.
+func scalar(o op, r []float64) float64 {
+	a, b := r[o.a], r[o.b]
+	switch o.code {
+	case opConst:
+		return o.k
+	case opNeg:
+		return -a
+	case opAdd:
+		return a + b
+	case opSub:
+		return a - b
+	case opMul:
+		return a * b
+	case opDiv:
+		return a / b
+	case opPowInt:
+		return powInt(a, o.n)
+	case opPow:
+		return math.Pow(a, o.k)
+	case opPowX:
+		return math.Pow(a, b)
+	case opSqrt:
+		return math.Sqrt(a)
+	case opCbrt:
+		return math.Cbrt(a)
+	case opExp:
+		return math.Exp(a)
+	case opLn:
+		return math.Log(a)
+	case opLog10:
+		return math.Log10(a)
+	case opAbs:
+		return math.Abs(a)
+	case opMin:
+		return math.Min(a, b)
+	case opMax:
+		return math.Max(a, b)
+	case opHypot:
+		return math.Hypot(a, b)
+	case opSin:
+		return math.Sin(a)
+	case opCos:
+		return math.Cos(a)
+	case opTan:
+		return math.Tan(a)
+	case opAsin:
+		return math.Asin(a)
+	case opAcos:
+		return math.Acos(a)
+	case opAtan:
+		return math.Atan(a)
+	case opAtan2:
+		return math.Atan2(a, b)
+	case opLT:
+		return b2f(a < b)
+	case opLE:
+		return b2f(a <= b)
+	case opGT:
+		return b2f(a > b)
+	case opGE:
+		return b2f(a >= b)
+	case opEQ:
+		return b2f(a == b)
+	case opNE:
+		return b2f(a != b)
+	case opAnd:
+		return b2f(a != 0 && b != 0)
+	case opOr:
+		return b2f(a != 0 || b != 0)
+	case opIf:
+		if a != 0 {
+			return b
+		}
+		return r[o.c]
+	}
+	return math.NaN()
+}
+
+func powInt(x float64, n int) float64 {
+	if n < 0 {
+		return 1 / powInt(x, -n)
+	}
+	r := 1.0
+	for n > 0 {
+		if n&1 == 1 {
+			r *= x
+		}
+		x *= x
+		n >>= 1
+	}
+	return r
+}
+
+// Series evaluates the program over whole columns, one Series per input
+// in the order of the inputs, writing result i (in the order of Outputs)
+// into dst[i], which must have the columns' length. Dimensions and
+// lengths are checked once; the work is done in blocks of rows, without
+// allocating.
+func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
+	p := e.p
+	if len(cols) != len(p.inputs) {
+		return evalErr("%d columns for %d inputs", len(cols), len(p.inputs))
+	}
+	n := -1
+	for i, c := range cols {
+		if err := c.Check(p.inputs[i].Dim); err != nil {
+			return evalErr("column %q: %w", p.inputs[i].Name, err)
+		}
+		if n >= 0 && c.Len() != n {
+			return evalErr("column %q has %d values, the others %d", p.inputs[i].Name, c.Len(), n)
+		}
+		n = c.Len()
+	}
+	if len(dst) < len(p.outputs) {
+		return evalErr("%d destinations for %d results", len(dst), len(p.outputs))
+	}
+	for i := range p.outputs {
+		if len(dst[i]) < n {
+			return evalErr("destination %d holds %d values, the columns %d", i, len(dst[i]), n)
+		}
+	}
+	if n < 0 {
+		n = 0
+	}
+	for lo := 0; lo < n; lo += block {
+		hi := min(lo+block, n)
+		m := hi - lo
+		for i, c := range cols {
+			e.view[i] = c.Values()[lo:hi]
+		}
+		for _, o := range p.ops {
+			if o.code != opConst {
+				vector(o, e.view, m)
+			}
+		}
+		for i, o := range p.outputs {
+			copy(dst[i][lo:hi], e.view[o.slot][:m])
+		}
+	}
+	for i := range cols {
+		e.view[i] = nil
+	}
+	return nil
+}
+
+// vector computes one operation over m rows of the slot views.
+func vector(o op, v [][]float64, m int) {
+	d := v[o.dst][:m]
+	a := v[o.a][:m]
+	switch o.code {
+	case opNeg:
+		for i, x := range a {
+			d[i] = -x
+		}
+	case opAdd:
+		b := v[o.b][:m]
+		for i := range d {
+			d[i] = a[i] + b[i]
+		}
+	case opSub:
+		b := v[o.b][:m]
+		for i := range d {
+			d[i] = a[i] - b[i]
+		}
+	case opMul:
+		b := v[o.b][:m]
+		for i := range d {
+			d[i] = a[i] * b[i]
+		}
+	case opDiv:
+		b := v[o.b][:m]
+		for i := range d {
+			d[i] = a[i] / b[i]
+		}
+	case opPowInt:
+		switch o.n {
+		case 2:
+			for i, x := range a {
+				d[i] = x * x
+			}
+		case -1:
+			for i, x := range a {
+				d[i] = 1 / x
+			}
+		default:
+			for i, x := range a {
+				d[i] = powInt(x, o.n)
+			}
+		}
+	case opPow:
+		for i, x := range a {
+			d[i] = math.Pow(x, o.k)
+		}
+	case opSqrt:
+		for i, x := range a {
+			d[i] = math.Sqrt(x)
+		}
+	case opLog10:
+		for i, x := range a {
+			d[i] = math.Log10(x)
+		}
+	case opLn:
+		for i, x := range a {
+			d[i] = math.Log(x)
+		}
+	case opExp:
+		for i, x := range a {
+			d[i] = math.Exp(x)
+		}
+	default:
+		// The rest, one row at a time through the scalar form.
+		var r [4]float64
+		for i := range d {
+			r[1] = a[i]
+			if o.code == opPowX || o.code >= opMin && o.code <= opHypot || o.code >= opAtan2 {
+				r[2] = v[o.b][i]
+			}
+			if o.code == opIf {
+				r[3] = v[o.c][i]
+			}
+			d[i] = scalar(op{code: o.code, a: 1, b: 2, c: 3, k: o.k, n: o.n}, r[:])
+		}
+	}
+}

@@ -1,0 +1,256 @@
+package formula_test
+
+import (
+	"errors"
+	"math"
+	"math/rand/v2"
+	"strings"
+	"testing"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/units/formula"
+)
+
+func in(name string, d quantity.Dim) formula.Input { return formula.Input{Name: name, Dim: d} }
+
+// trade formulas written as text, checked against the same formula written
+// in Go over random data, to 1e-12 relative.
+func TestTradeFormulas(t *testing.T) {
+	r := rand.New(rand.NewPCG(1, 2))
+	u := func(lo, hi float64) float64 { return lo + (hi-lo)*r.Float64() }
+	cases := []struct {
+		name   string
+		src    string
+		inputs []formula.Input
+		draw   func() []float64
+		want   func(x []float64) float64
+		dim    quantity.Dim
+	}{
+		{
+			// Swamee and Jain (1976), explicit Darcy friction factor, and
+			// Darcy–Weisbach.
+			"Swamee–Jain and Darcy–Weisbach",
+			"Re = rho*V*D/mu\nf = 0.25 / log10(eps/(3.7*D) + 5.74/Re^0.9)^2\ndp = f * L/D * rho*V^2/2",
+			[]formula.Input{in("rho", quantity.Density), in("V", quantity.Velocity), in("D", quantity.Length),
+				in("mu", quantity.DynamicViscosity), in("eps", quantity.Length), in("L", quantity.Length)},
+			func() []float64 {
+				return []float64{u(990, 1000), u(0.5, 5), u(0.02, 0.5), u(8e-4, 1.2e-3), u(1e-6, 1e-4), u(1, 100)}
+			},
+			func(x []float64) float64 {
+				re := x[0] * x[1] * x[2] / x[3]
+				lg := math.Log10(x[4]/(3.7*x[2]) + 5.74/math.Pow(re, 0.9))
+				f := 0.25 / (lg * lg)
+				return f * x[5] / x[2] * x[0] * x[1] * x[1] / 2
+			},
+			quantity.Pressure,
+		},
+		{
+			// Dittus–Boelter, heating: Nu = 0.023 Re^0.8 Pr^0.4.
+			"Dittus–Boelter", "Nu = 0.023 * Re^0.8 * Pr^0.4",
+			[]formula.Input{in("Re", quantity.Dimensionless), in("Pr", quantity.Dimensionless)},
+			func() []float64 { return []float64{u(1e4, 1e6), u(0.7, 100)} },
+			func(x []float64) float64 { return 0.023 * math.Pow(x[0], 0.8) * math.Pow(x[1], 0.4) },
+			quantity.Dimensionless,
+		},
+		{
+			// Churchill and Bernstein (1977), cross-flow over a cylinder.
+			"Churchill–Bernstein",
+			"Nu = 0.3 + 0.62*Re^(1/2)*Pr^(1/3) / (1 + (0.4/Pr)^(2/3))^(1/4) * (1 + (Re/282000)^(5/8))^(4/5)",
+			[]formula.Input{in("Re", quantity.Dimensionless), in("Pr", quantity.Dimensionless)},
+			func() []float64 { return []float64{u(100, 1e7), u(0.7, 10)} },
+			func(x []float64) float64 {
+				re, pr := x[0], x[1]
+				return 0.3 + 0.62*math.Sqrt(re)*math.Cbrt(pr)/math.Pow(1+math.Pow(0.4/pr, 2.0/3), 0.25)*math.Pow(1+math.Pow(re/282000, 5.0/8), 0.8)
+			},
+			quantity.Dimensionless,
+		},
+		{
+			// The ITTC-1957 model–ship correlation line.
+			"ITTC-1957", "C_F = 0.075 / (log10(V*L/nu) - 2)^2",
+			[]formula.Input{in("V", quantity.Velocity), in("L", quantity.Length), in("nu", quantity.KinematicViscosity)},
+			func() []float64 { return []float64{u(0.5, 10), u(2, 300), u(0.9e-6, 1.5e-6)} },
+			func(x []float64) float64 { d := math.Log10(x[0]*x[1]/x[2]) - 2; return 0.075 / (d * d) },
+			quantity.Dimensionless,
+		},
+		{
+			// ISO 2533 troposphere: T = T₀ − 0.0065 K/m·H, p = p₀(T/T₀)^(g₀/(βR)).
+			"ISO 2533 troposphere",
+			"T = 288.15 [K] - 0.0065 [K/m] * H\np = 101325 [Pa] * (T/(288.15 [K]))^(9.80665/(0.0065*287.05287))",
+			[]formula.Input{in("H", quantity.Length)},
+			func() []float64 { return []float64{u(0, 11000)} },
+			func(x []float64) float64 {
+				T := 288.15 - 0.0065*x[0]
+				return 101325 * math.Pow(T/288.15, 9.80665/(0.0065*287.05287))
+			},
+			quantity.Pressure,
+		},
+		{
+			// Laminar or turbulent: 64/Re below 2000, Blasius above.
+			"laminar and turbulent", "f = if(Re < 2000, 64/Re, 0.316/Re^0.25)",
+			[]formula.Input{in("Re", quantity.Dimensionless)},
+			func() []float64 { return []float64{u(100, 1e5)} },
+			func(x []float64) float64 {
+				if x[0] < 2000 {
+					return 64 / x[0]
+				}
+				return 0.316 / math.Pow(x[0], 0.25)
+			},
+			quantity.Dimensionless,
+		},
+	}
+	for _, c := range cases {
+		p, err := formula.Compile(c.src, c.inputs...)
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		last := len(p.Outputs()) - 1
+		if p.Dim(last) != c.dim {
+			t.Errorf("%s: result dimension %v, want %v", c.name, p.Dim(last), c.dim)
+		}
+		ev := p.Evaluator()
+		const rows = 700
+		cols := make([][]float64, len(c.inputs))
+		for i := range cols {
+			cols[i] = make([]float64, rows)
+		}
+		want := make([]float64, rows)
+		for k := range rows {
+			x := c.draw()
+			for i := range x {
+				cols[i][k] = x[i]
+			}
+			want[k] = c.want(x)
+			got, err := ev.Row(x, make([]float64, len(p.Outputs())))
+			if err != nil || math.Abs(got[last]-want[k]) > 1e-12*math.Abs(want[k]) {
+				t.Fatalf("%s: row %v: %v, want %v (%v)", c.name, x, got, want[k], err)
+			}
+		}
+		series := make([]quantity.Series, len(c.inputs))
+		for i := range series {
+			series[i] = quantity.NewSeries(cols[i], c.inputs[i].Dim)
+		}
+		dst := make([][]float64, len(p.Outputs()))
+		for i := range dst {
+			dst[i] = make([]float64, rows)
+		}
+		if err := ev.Series(series, dst); err != nil {
+			t.Fatal(err)
+		}
+		for k := range rows {
+			if math.Abs(dst[last][k]-want[k]) > 1e-12*math.Abs(want[k]) {
+				t.Fatalf("%s: series row %d: %v, want %v", c.name, k, dst[last][k], want[k])
+			}
+		}
+	}
+}
+
+// TestMalformed: formulas that are malformed or dimensionally wrong are
+// refused with the offset of the mistake and their class.
+func TestMalformed(t *testing.T) {
+	ins := []formula.Input{in("p", quantity.Pressure), in("V", quantity.Velocity), in("rho", quantity.Density),
+		in("D", quantity.Length), in("Re", quantity.Dimensionless), in("T", quantity.Temperature)}
+	cases := []struct {
+		src    string
+		offset int
+		dim    bool
+		want   string
+	}{
+		{"p + V", 2, true, "cannot add pressure, stress [Pa] and velocity [m/s]"},
+		{"x = p - rho", 6, true, "cannot subtract"},
+		{"log10(p)", 6, true, "argument must be dimensionless"},
+		{"exp(V)", 4, true, "dimensionless"},
+		{"sin(D)", 4, true, "dimensionless"},
+		{"D^(1/4)", 1, true, "cannot raise"},
+		{"sqrt(sqrt(D))", 0, true, "cannot take the sqrt"},
+		{"D^Re", 1, true, "dimensionless base"},
+		{"Re^D", 2, true, "dimensionless base"},
+		{"if(p < V, 1, 2)", 5, true, "cannot compare"},
+		{"if(Re < 2000, p, V)", 0, true, "branches of if differ"},
+		{"if(Re, 1, 2)", 3, true, "must be a comparison"},
+		{"Re < 2", 3, true, "not a quantity"},
+		{"min(p, V)", 0, true, "one dimension"},
+		{"p + 1", 2, true, "cannot add"},
+		{"T + 20 [degC]", 2, false, ""}, // a temperature level in K plus a level: same dimension, allowed
+		{"p + 3 [m/s]", 2, true, "cannot add"},
+		{"", 0, false, "no statement"},
+		{"p +", 3, false, "operand is missing"},
+		{"(p", 0, false, "never closed"},
+		{"p)", 1, false, "unexpected"},
+		{"q", 0, false, "unknown name"},
+		{"foo(p)", 0, false, "unknown function"},
+		{"sqrt(p, V)", 0, false, "takes 1 arguments"},
+		{"min(p)", 0, false, "takes 2 arguments"},
+		{"p = V", 0, false, "already defined"},
+		{"x = p\nx = V", 6, false, "already defined"},
+		{"2 [furlong]", 0, false, "unknown unit"},
+		{"2 [m", 2, false, "never closed"},
+		{"p $ V", 2, false, "unexpected"},
+		{"1e999", 0, false, "not a number"},
+		{"\xff", 0, false, "UTF-8"},
+		{"x = ", 4, false, "operand is missing"},
+		{"p ^", 3, false, "operand is missing"},
+		{"max(p,", 6, false, "operand is missing"},
+		{"a and", 5, false, "operand is missing"},
+		{"Re < 2 and V", 7, true, "join comparisons"},
+		{"-", 1, false, "operand is missing"},
+		{"* p", 0, false, "unexpected"},
+		{"p p", 2, false, "statement ends"},
+		{"p\n+", 3, false, "operand is missing"},
+		{strings.Repeat("(", 100) + "1" + strings.Repeat(")", 100), 64, false, "nested more than"},
+		{strings.Repeat("1+", 5000) + "1", 4095, false, "more than 4096 operations"},
+		{"D*D*D*D*D*D*D*D*D*D*D*D*D*D*D*D*D*D*D*D*D*D", 41, true, "overflows"},
+		{"atan2(p, V)", 0, true, "one dimension"},
+		{"hypot(D, V)", 0, true, "one dimension"},
+		{"abs(p) + V", 7, true, "cannot add"},
+		{"y = p/V; y + D", 11, true, "cannot add"},
+		{"if(Re < 1 or p, 1, 2)", 10, true, "join comparisons"},
+		{"V^2 + p", 4, true, "cannot add"},
+		{"rho*V^2 + V", 8, true, "cannot add"},
+		{"ln(Re) + ln(D)", 12, true, "dimensionless"},
+		{"-p + V", 3, true, "cannot add"},
+		{"Re ** D", 3, true, "dimensionless base"},
+		{"2 [°C] * 2", 0, false, ""}, // a scale read as a level, then doubled: allowed, in K
+		{"101 325 [Pa]", 4, false, "statement ends"},
+		{"sqrt(cbrt(sqrt(D)))", 0, true, "cannot take the sqrt"},
+		{"max(p, p) + D", 10, true, "cannot add"},
+		{"1/0 + p", 4, true, "cannot add"},
+		{"tan(p)", 4, true, "dimensionless"},
+		{"asin(V)", 5, true, "dimensionless"},
+		{"acos(D) * 2", 5, true, "dimensionless"},
+		{"atan(rho)", 5, true, "dimensionless"},
+		{"log(p/rho)", 5, true, "dimensionless"},
+		{"sqrt()", 0, false, "takes 1 arguments"},
+		{"if(Re < 1, 2)", 0, false, "takes 3 arguments"},
+		{"x = 2 [m] ; x + V", 14, true, "cannot add"},
+		{"p == V", 2, true, "cannot compare"},
+		{"2 [°C] + 3 [m]", 8, true, "cannot add"},
+		{"Re^(1/2) + D", 9, true, "cannot add"},
+		{"1 +* 2", 3, false, "unexpected"},
+		{"x == 1", 0, false, "unknown name"},
+		{"[m]", 0, false, "unexpected"},
+	}
+	for _, c := range cases {
+		_, err := formula.Compile(c.src, ins...)
+		if c.want == "" {
+			if err != nil {
+				t.Errorf("%q: %v", c.src, err)
+			}
+			continue
+		}
+		var fe *formula.Error
+		if !errors.As(err, &fe) {
+			t.Errorf("%q: %v, want a *formula.Error", c.src, err)
+			continue
+		}
+		if !strings.Contains(fe.Reason, c.want) || fe.Offset != c.offset {
+			t.Errorf("%q: offset %d, %q; want offset %d and %q", c.src, fe.Offset, fe.Reason, c.offset, c.want)
+		}
+		class := quantity.ErrParse
+		if c.dim {
+			class = quantity.ErrDimension
+		}
+		if !errors.Is(err, class) {
+			t.Errorf("%q: %v is not of class %v", c.src, err, class)
+		}
+	}
+}

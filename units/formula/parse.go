@@ -1,0 +1,590 @@
+package formula
+
+import (
+	"fmt"
+	"math"
+	"math/big"
+	"strings"
+	"unicode"
+	"unicode/utf8"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/units"
+)
+
+// Limits that bound the work of parsing any text.
+const (
+	MaxLen   = 1 << 16 // bytes of text
+	MaxNodes = 4096    // operations, numbers and names
+	MaxDepth = 64      // nesting of parentheses and calls
+)
+
+// Error reports a formula that cannot be read or whose dimensions do not
+// agree: the text, the byte offset of the mistake and the reason. It
+// matches quantity.ErrParse or, for a dimension mistake,
+// quantity.ErrDimension under errors.Is.
+type Error struct {
+	Input     string
+	Offset    int
+	Reason    string
+	Dimension bool // a dimension mistake rather than a syntax one
+}
+
+// Error implements the error interface.
+func (e *Error) Error() string {
+	in := e.Input
+	if len(in) > 80 {
+		in = in[:80] + "…"
+	}
+	return fmt.Sprintf("formula %q: at %d: %s", in, e.Offset, e.Reason)
+}
+
+// Is reports whether target is the error's class.
+func (e *Error) Is(target error) bool {
+	if e.Dimension {
+		return target == quantity.ErrDimension
+	}
+	return target == quantity.ErrParse
+}
+
+type kind uint8
+
+const (
+	kNum kind = iota
+	kRef
+	kNeg
+	kAdd
+	kSub
+	kMul
+	kDiv
+	kPow  // exact exponent
+	kPowX // exponent an expression
+	kCall
+	kCmp
+	kAnd
+	kOr
+)
+
+type node struct {
+	k    kind
+	pos  int
+	val  float64      // kNum, in SI
+	dim  quantity.Dim // kNum's unit
+	name string       // kRef, kCall, kCmp's operator
+	args []*node
+	exp  quantity.Rat // kPow
+}
+
+type stmt struct {
+	name string // "" for a bare expression
+	pos  int
+	e    *node
+}
+
+type parser struct {
+	src   string
+	i     int
+	depth int
+	nodes int
+}
+
+func (p *parser) fail(at int, format string, a ...any) error {
+	return &Error{Input: p.src, Offset: at, Reason: fmt.Sprintf(format, a...)}
+}
+
+// parseText reads the statements of a formula text.
+func parseText(src string) ([]stmt, error) {
+	if len(src) > MaxLen {
+		return nil, &Error{Input: src[:64], Offset: MaxLen, Reason: fmt.Sprintf("the text is longer than %d bytes", MaxLen)}
+	}
+	if !utf8.ValidString(src) {
+		return nil, &Error{Input: strings.ToValidUTF8(src, "\uFFFD"), Offset: 0, Reason: "the text is not valid UTF-8"}
+	}
+	p := &parser{src: src}
+	var out []stmt
+	for {
+		p.skipBlank(true)
+		if p.i >= len(p.src) {
+			break
+		}
+		st := stmt{pos: p.i}
+		save := p.i
+		if name, ok := p.name(); ok {
+			p.skipBlank(false)
+			if p.peek("=") && !p.peek("==") {
+				p.i++
+				st.name = name
+			} else {
+				p.i = save
+			}
+		}
+		e, err := p.expr()
+		if err != nil {
+			return nil, err
+		}
+		st.e = e
+		out = append(out, st)
+		p.skipBlank(false)
+		switch {
+		case p.i >= len(p.src):
+		case p.src[p.i] == '\n' || p.src[p.i] == ';':
+			p.i++
+		default:
+			return nil, p.fail(p.i, "unexpected %q: a statement ends at a new line or ';'", p.rune())
+		}
+	}
+	if len(out) == 0 {
+		return nil, p.fail(0, "no statement")
+	}
+	return out, nil
+}
+
+func (p *parser) rune() rune { r, _ := utf8.DecodeRuneInString(p.src[p.i:]); return r }
+
+func (p *parser) peek(s string) bool { return strings.HasPrefix(p.src[p.i:], s) }
+
+// skipBlank skips spaces and comments, and new lines when lines is true.
+func (p *parser) skipBlank(lines bool) {
+	for p.i < len(p.src) {
+		r, n := utf8.DecodeRuneInString(p.src[p.i:])
+		switch {
+		case r == '#':
+			for p.i < len(p.src) && p.src[p.i] != '\n' {
+				p.i++
+			}
+		case r == '\n' && !lines:
+			return
+		case r == ';' && lines:
+			p.i += n
+		case unicode.IsSpace(r):
+			p.i += n
+		default:
+			return
+		}
+	}
+}
+
+func isNameStart(r rune) bool { return unicode.IsLetter(r) || r == '_' }
+func isNameRune(r rune) bool  { return unicode.IsLetter(r) || unicode.IsDigit(r) || r == '_' }
+
+// name reads a name at p.i.
+func (p *parser) name() (string, bool) {
+	start := p.i
+	r, n := utf8.DecodeRuneInString(p.src[p.i:])
+	if !isNameStart(r) {
+		return "", false
+	}
+	p.i += n
+	for p.i < len(p.src) {
+		r, n := utf8.DecodeRuneInString(p.src[p.i:])
+		if !isNameRune(r) {
+			break
+		}
+		p.i += n
+	}
+	return p.src[start:p.i], true
+}
+
+func (p *parser) newNode(k kind, pos int, args ...*node) (*node, error) {
+	p.nodes++
+	if p.nodes > MaxNodes {
+		return nil, p.fail(pos, "more than %d operations", MaxNodes)
+	}
+	return &node{k: k, pos: pos, args: args}, nil
+}
+
+func (p *parser) enter(at int) error {
+	p.depth++
+	if p.depth > MaxDepth {
+		return p.fail(at, "nested more than %d deep", MaxDepth)
+	}
+	return nil
+}
+
+// op reads one of the operators at p.i and returns it, or "".
+func (p *parser) op(ops ...string) string {
+	p.skipBlank(false)
+	for _, o := range ops {
+		if p.peek(o) {
+			p.i += len(o)
+			return o
+		}
+	}
+	return ""
+}
+
+func (p *parser) expr() (*node, error) { return p.or() }
+
+func (p *parser) or() (*node, error) {
+	a, err := p.and()
+	if err != nil {
+		return nil, err
+	}
+	for {
+		p.skipBlank(false)
+		at := p.i
+		if !p.keyword("or") {
+			return a, nil
+		}
+		b, err := p.and()
+		if err != nil {
+			return nil, err
+		}
+		if a, err = p.newNode(kOr, at, a, b); err != nil {
+			return nil, err
+		}
+	}
+}
+
+func (p *parser) and() (*node, error) {
+	a, err := p.cmp()
+	if err != nil {
+		return nil, err
+	}
+	for {
+		p.skipBlank(false)
+		at := p.i
+		if !p.keyword("and") {
+			return a, nil
+		}
+		b, err := p.cmp()
+		if err != nil {
+			return nil, err
+		}
+		if a, err = p.newNode(kAnd, at, a, b); err != nil {
+			return nil, err
+		}
+	}
+}
+
+// keyword reads the word w if it stands alone at p.i.
+func (p *parser) keyword(w string) bool {
+	if !p.peek(w) {
+		return false
+	}
+	if r, _ := utf8.DecodeRuneInString(p.src[p.i+len(w):]); p.i+len(w) < len(p.src) && isNameRune(r) {
+		return false
+	}
+	p.i += len(w)
+	return true
+}
+
+func (p *parser) cmp() (*node, error) {
+	a, err := p.sum()
+	if err != nil {
+		return nil, err
+	}
+	at := p.i
+	o := p.op("<=", ">=", "==", "!=", "<", ">", "≤", "≥", "≠")
+	if o == "" {
+		return a, nil
+	}
+	b, err := p.sum()
+	if err != nil {
+		return nil, err
+	}
+	n, err := p.newNode(kCmp, at, a, b)
+	if err != nil {
+		return nil, err
+	}
+	n.name = map[string]string{"≤": "<=", "≥": ">=", "≠": "!="}[o]
+	if n.name == "" {
+		n.name = o
+	}
+	return n, nil
+}
+
+func (p *parser) sum() (*node, error) {
+	a, err := p.product()
+	if err != nil {
+		return nil, err
+	}
+	for {
+		at := p.i
+		o := p.op("+", "-", "−")
+		if o == "" {
+			return a, nil
+		}
+		b, err := p.product()
+		if err != nil {
+			return nil, err
+		}
+		k := kAdd
+		if o != "+" {
+			k = kSub
+		}
+		if a, err = p.newNode(k, at, a, b); err != nil {
+			return nil, err
+		}
+	}
+}
+
+func (p *parser) product() (*node, error) {
+	a, err := p.unary()
+	if err != nil {
+		return nil, err
+	}
+	for {
+		p.skipBlank(false)
+		if p.peek("**") {
+			return a, nil
+		}
+		at := p.i
+		o := p.op("*", "/", "×", "·", "÷")
+		if o == "" {
+			return a, nil
+		}
+		b, err := p.unary()
+		if err != nil {
+			return nil, err
+		}
+		k := kMul
+		if o == "/" || o == "÷" {
+			k = kDiv
+		}
+		if a, err = p.newNode(k, at, a, b); err != nil {
+			return nil, err
+		}
+	}
+}
+
+func (p *parser) unary() (*node, error) {
+	at := p.i
+	switch p.op("-", "−", "+") {
+	case "-", "−":
+		if err := p.enter(at); err != nil {
+			return nil, err
+		}
+		a, err := p.unary()
+		p.depth--
+		if err != nil {
+			return nil, err
+		}
+		return p.newNode(kNeg, at, a)
+	case "+":
+		return p.unary()
+	}
+	return p.power()
+}
+
+func (p *parser) power() (*node, error) {
+	base, err := p.primary()
+	if err != nil {
+		return nil, err
+	}
+	p.skipBlank(false)
+	at := p.i
+	if o := p.op("^", "**"); o == "" {
+		return base, nil
+	}
+	p.skipBlank(false)
+	// An exact exponent: a number, a signed number, or (n/d).
+	if r, ok := p.exactExponent(); ok {
+		n, err := p.newNode(kPow, at, base)
+		if err != nil {
+			return nil, err
+		}
+		n.exp = r
+		return n, nil
+	}
+	if err := p.enter(at); err != nil {
+		return nil, err
+	}
+	e, err := p.unary()
+	p.depth--
+	if err != nil {
+		return nil, err
+	}
+	return p.newNode(kPowX, at, base, e)
+}
+
+// exactExponent reads an exact exponent at p.i if there is one: 2, -1,
+// 0.8, (1/3), (-3/2), (0.5).
+func (p *parser) exactExponent() (quantity.Rat, bool) {
+	save := p.i
+	paren := p.op("(") != ""
+	neg := false
+	if o := p.op("-", "−", "+"); o == "-" || o == "−" {
+		neg = true
+	}
+	p.skipBlank(false)
+	num, ok := p.decimal()
+	if !ok {
+		p.i = save
+		return quantity.Rat{}, false
+	}
+	if paren {
+		if p.op("/") != "" {
+			p.skipBlank(false)
+			den, ok := p.decimal()
+			if !ok || den.IsZero() {
+				p.i = save
+				return quantity.Rat{}, false
+			}
+			var err error
+			if num, err = num.Div(den); err != nil {
+				p.i = save
+				return quantity.Rat{}, false
+			}
+		}
+		if p.op(")") == "" {
+			p.i = save
+			return quantity.Rat{}, false
+		}
+	} else {
+		// A bare number followed by another operand is not an exponent.
+		p.skipBlank(false)
+		if p.i < len(p.src) && (p.src[p.i] == '[' || p.src[p.i] == '(') {
+			p.i = save
+			return quantity.Rat{}, false
+		}
+	}
+	if neg {
+		num = num.Neg()
+	}
+	return num, true
+}
+
+// decimal reads an unsigned decimal number as an exact rational.
+func (p *parser) decimal() (quantity.Rat, bool) {
+	start := p.i
+	for p.i < len(p.src) && (p.src[p.i] >= '0' && p.src[p.i] <= '9' || p.src[p.i] == '.') {
+		p.i++
+	}
+	text := p.src[start:p.i]
+	if text == "" || text == "." || strings.Count(text, ".") > 1 || len(text) > 18 {
+		p.i = start
+		return quantity.Rat{}, false
+	}
+	r, ok := new(big.Rat).SetString(text)
+	if !ok || !r.Num().IsInt64() || !r.Denom().IsInt64() {
+		p.i = start
+		return quantity.Rat{}, false
+	}
+	q, err := quantity.NewRat(r.Num().Int64(), r.Denom().Int64())
+	if err != nil {
+		p.i = start
+		return quantity.Rat{}, false
+	}
+	return q, true
+}
+
+func (p *parser) primary() (*node, error) {
+	p.skipBlank(false)
+	at := p.i
+	if p.i >= len(p.src) || p.src[p.i] == '\n' || p.src[p.i] == ';' {
+		return nil, p.fail(at, "an operand is missing")
+	}
+	c := p.src[p.i]
+	switch {
+	case c == '(':
+		if err := p.enter(at); err != nil {
+			return nil, err
+		}
+		p.i++
+		e, err := p.expr()
+		if err != nil {
+			return nil, err
+		}
+		if p.op(")") == "" {
+			return nil, p.fail(at, "'(' is never closed")
+		}
+		p.depth--
+		return e, nil
+	case c >= '0' && c <= '9' || c == '.':
+		return p.number()
+	}
+	name, ok := p.name()
+	if !ok {
+		return nil, p.fail(at, "unexpected %q", p.rune())
+	}
+	p.skipBlank(false)
+	if !p.peek("(") {
+		n, err := p.newNode(kRef, at)
+		if err != nil {
+			return nil, err
+		}
+		n.name = name
+		return n, nil
+	}
+	if err := p.enter(at); err != nil {
+		return nil, err
+	}
+	p.i++
+	n, err := p.newNode(kCall, at)
+	if err != nil {
+		return nil, err
+	}
+	n.name = name
+	p.skipBlank(false)
+	if p.op(")") == "" {
+		for {
+			a, err := p.expr()
+			if err != nil {
+				return nil, err
+			}
+			n.args = append(n.args, a)
+			if p.op(",") != "" {
+				continue
+			}
+			if p.op(")") != "" {
+				break
+			}
+			return nil, p.fail(p.i, "expected ',' or ')' in the arguments of %s", name)
+		}
+	}
+	p.depth--
+	return n, nil
+}
+
+// number reads a number and an optional unit in square brackets.
+func (p *parser) number() (*node, error) {
+	at := p.i
+	j := p.i
+	for j < len(p.src) && (p.src[j] >= '0' && p.src[j] <= '9' || p.src[j] == '.') {
+		j++
+	}
+	if j < len(p.src) && (p.src[j] == 'e' || p.src[j] == 'E') {
+		k := j + 1
+		if k < len(p.src) && (p.src[k] == '+' || p.src[k] == '-') {
+			k++
+		}
+		if k < len(p.src) && p.src[k] >= '0' && p.src[k] <= '9' {
+			for k < len(p.src) && p.src[k] >= '0' && p.src[k] <= '9' {
+				k++
+			}
+			j = k
+		}
+	}
+	text := p.src[at:j]
+	p.i = j
+	n, err := p.newNode(kNum, at)
+	if err != nil {
+		return nil, err
+	}
+	p.skipBlank(false)
+	if p.peek("[") {
+		end := strings.IndexByte(p.src[p.i:], ']')
+		if end < 0 {
+			return nil, p.fail(p.i, "'[' is never closed")
+		}
+		unitText := p.src[p.i+1 : p.i+end]
+		v, err := units.ParseValue(text + " " + unitText)
+		if err != nil {
+			return nil, p.fail(at, "%v", err)
+		}
+		q := v.Quantity()
+		n.val, n.dim = q.Value(), q.Dim()
+		p.i += end + 1
+	} else {
+		v, err := units.ParseValue(text)
+		if err != nil {
+			return nil, p.fail(at, "%q is not a number", text)
+		}
+		n.val = v.Number
+	}
+	if math.IsNaN(n.val) || math.IsInf(n.val, 0) {
+		return nil, p.fail(at, "%q is not a finite number", text)
+	}
+	return n, nil
+}
