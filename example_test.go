@@ -10,6 +10,7 @@ import (
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
 	"similis.dev/similis/units"
+	"similis.dev/similis/units/formula"
 )
 
 func Example_quantity() {
@@ -81,4 +82,31 @@ func Example_similarity() {
 	// velocity λ_L^(1/2) = 0.2
 	// force λ_L³ = 6.4e-05
 	// power λ_L^(7/2) = 1.28e-05
+}
+
+func Example_formula() {
+	p, err := formula.Compile(`Re = rho*V*D/mu
+f  = if(Re < 2000, 64/Re, 0.25 / log10(eps/(3.7*D) + 5.74/Re^0.9)^2)
+dp = f * L/D * rho*V^2/2`,
+		formula.Input{Name: "rho", Dim: quantity.Density}, formula.Input{Name: "V", Dim: quantity.Velocity},
+		formula.Input{Name: "D", Dim: quantity.Length}, formula.Input{Name: "mu", Dim: quantity.DynamicViscosity},
+		formula.Input{Name: "eps", Dim: quantity.Length}, formula.Input{Name: "L", Dim: quantity.Length})
+	if err != nil {
+		panic(err)
+	}
+	col := func(d quantity.Dim, v ...float64) quantity.Series { return quantity.NewSeries(v, d) }
+	cols := []quantity.Series{col(quantity.Density, 998.2, 998.2), col(quantity.Velocity, 0.01, 2.5), col(quantity.Length, 0.08, 0.08),
+		col(quantity.DynamicViscosity, 1.0016e-3, 1.0016e-3), col(quantity.Length, 4.5e-5, 4.5e-5), col(quantity.Length, 40, 40)}
+	out := [][]float64{make([]float64, 2), make([]float64, 2), make([]float64, 2)}
+	if err := p.Evaluator().Series(cols, out); err != nil {
+		panic(err)
+	}
+	fmt.Printf("Re %.0f, f %.4f, Δp %.1f Pa\n", out[0][0], out[1][0], out[2][0])
+	fmt.Printf("Re %.0f, f %.4f, Δp %.0f Pa\n", out[0][1], out[1][1], out[2][1])
+	_, err = formula.Compile("dp = p1 - V", formula.Input{Name: "p1", Dim: quantity.Pressure}, formula.Input{Name: "V", Dim: quantity.Velocity})
+	fmt.Println(err)
+	// Output:
+	// Re 797, f 0.0803, Δp 2.0 Pa
+	// Re 199321, f 0.0193, Δp 30040 Pa
+	// formula "dp = p1 - V": at 8: cannot subtract pressure, stress [Pa] and velocity [m/s]
 }

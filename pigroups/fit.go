@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 
 	"gonum.org/v1/gonum/mat"
@@ -289,4 +290,25 @@ func finiteFit(f *PowerLaw) bool {
 		}
 	}
 	return true
+}
+
+// Formula writes the fitted law as formula text for package
+// units/formula: "Eu = 4.176 * (rho*V*d/mu)^(-0.0977) * (L/d)^(0.2525)",
+// with y naming the fitted group and groups the Pi groups Π₁ … Π_k the
+// law was fitted on, written in their variables. The coefficient and the
+// exponents are written with the shortest decimals that read back to the
+// same float64s, so a harness can keep its reduction as text and compile
+// it against the variables' dimensions.
+func (f *PowerLaw) Formula(y string, groups ...Group) (string, error) {
+	if len(groups) != len(f.Exponents) {
+		return "", &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("%d groups for a fit of %d", len(groups), len(f.Exponents))}
+	}
+	var sb strings.Builder
+	sb.WriteString(y)
+	sb.WriteString(" = ")
+	sb.WriteString(strconv.FormatFloat(f.C, 'g', -1, 64))
+	for k, g := range groups {
+		fmt.Fprintf(&sb, " * (%s)^(%s)", g.Format(quantity.ASCII), strconv.FormatFloat(f.Exponents[k], 'g', -1, 64))
+	}
+	return sb.String(), nil
 }

@@ -1,6 +1,7 @@
 package formula
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
@@ -13,6 +14,8 @@ type Input struct {
 	Name string
 	Dim  quantity.Dim
 }
+
+var errTooBig = errors.New("exponent too large")
 
 type opcode uint8
 
@@ -66,6 +69,7 @@ type op struct {
 // concurrent use; evaluate it with an Evaluator.
 type Program struct {
 	src     string
+	stmts   []stmt
 	inputs  []Input
 	ops     []op
 	slots   int
@@ -86,7 +90,7 @@ func Compile(src string, inputs ...Input) (*Program, error) {
 	if err != nil {
 		return nil, err
 	}
-	c := &compiler{p: &Program{src: src, inputs: append([]Input(nil), inputs...)}, names: map[string]int{}, dims: map[int]quantity.Dim{}}
+	c := &compiler{p: &Program{src: src, stmts: stmts, inputs: append([]Input(nil), inputs...)}, names: map[string]int{}, dims: map[int]quantity.Dim{}}
 	for i, in := range inputs {
 		if _, dup := c.names[in.Name]; dup {
 			return nil, &Error{Input: src, Reason: fmt.Sprintf("input %q is given twice", in.Name)}
@@ -215,14 +219,22 @@ func (c *compiler) expr(n *node) (int, typ, error) {
 		return c.out(op{code: code, a: a, b: b}, d)
 	case kPow:
 		e := n.exp
-		d, err := ta.Pow(int(e.Num()), int(e.Den()))
-		if err != nil || e.Num() > math.MaxInt32 || e.Num() < math.MinInt32 {
-			return 0, typ{}, c.dimErr(n.pos, "cannot raise %s to the power %s: the dimension cannot hold it", describe(ta), e)
+		d := ta
+		if !ta.IsDimensionless() {
+			var err error
+			if e.Num() > math.MaxInt32 || e.Num() < math.MinInt32 || e.Den() > math.MaxInt32 {
+				err = errTooBig
+			} else {
+				d, err = ta.Pow(int(e.Num()), int(e.Den()))
+			}
+			if err != nil {
+				return 0, typ{}, c.dimErr(n.pos, "cannot raise %s to the power %s: the dimension cannot hold it", describe(ta), e)
+			}
 		}
 		if e.IsInt() && e.Num() >= -16 && e.Num() <= 16 {
 			return c.out(op{code: opPowInt, a: a, n: int(e.Num())}, d)
 		}
-		return c.out(op{code: opPow, a: a, k: e.Float()}, d)
+		return c.out(op{code: opPow, a: a, k: n.expF}, d)
 	case kPowX:
 		if !ta.IsDimensionless() || !tb.IsDimensionless() {
 			return 0, typ{}, c.dimErr(n.pos, "a power with a computed exponent needs a dimensionless base and exponent, not %s to the power %s (write an exact exponent: x^2, x^(1/3))", describe(ta), describe(tb))

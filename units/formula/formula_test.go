@@ -4,8 +4,11 @@ import (
 	"errors"
 	"math"
 	"math/rand/v2"
+	"strconv"
 	"strings"
 	"testing"
+
+	"pgregory.net/rapid"
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units/formula"
@@ -253,4 +256,70 @@ func TestMalformed(t *testing.T) {
 			t.Errorf("%q: %v is not of class %v", c.src, err, class)
 		}
 	}
+}
+
+// genExpr draws a random formula over the inputs x (dimensionless), y
+// (length) and the functions, written with redundant or missing
+// parentheses and spacing.
+func genExpr(t *rapid.T, depth int) string {
+	if depth > 3 || rapid.IntRange(0, 3).Draw(t, "leaf") == 0 {
+		switch rapid.IntRange(0, 3).Draw(t, "kind") {
+		case 0:
+			return "x"
+		case 1:
+			return "(y/(2 [m]))"
+		case 2:
+			return strconv.FormatFloat(rapid.Float64Range(0.1, 10).Draw(t, "c"), 'g', -1, 64)
+		}
+		return "1.5e-1"
+	}
+	a, b := genExpr(t, depth+1), genExpr(t, depth+1)
+	switch rapid.IntRange(0, 8).Draw(t, "op") {
+	case 0:
+		return a + " + " + b
+	case 1:
+		return a + "-" + b
+	case 2:
+		return a + "*" + b
+	case 3:
+		return "(" + a + ")/(" + b + ")"
+	case 4:
+		return "(" + a + ")^" + []string{"2", "-1", "(1/3)", "0.5"}[rapid.IntRange(0, 3).Draw(t, "e")]
+	case 5:
+		return "-" + a
+	case 6:
+		return "exp(-abs(" + a + "))"
+	case 7:
+		return "max(" + a + ", " + b + ")"
+	}
+	return "if(" + a + " < " + b + ", " + a + ", " + b + ")"
+}
+
+// TestTextRoundTrip: printing a program and compiling the text again
+// gives a program that computes the same bits.
+func TestTextRoundTrip(t *testing.T) {
+	ins := []formula.Input{in("x", quantity.Dimensionless), in("y", quantity.Length)}
+	rapid.Check(t, func(t *rapid.T) {
+		src := "z = " + genExpr(t, 0) + "\n" + genExpr(t, 0) + " + z"
+		p, err := formula.Compile(src, ins...)
+		if err != nil {
+			t.Fatalf("%q: %v", src, err)
+		}
+		text := p.Text()
+		q, err := formula.Compile(text, ins...)
+		if err != nil {
+			t.Fatalf("%q printed as %q: %v", src, text, err)
+		}
+		if q.Text() != text {
+			t.Fatalf("printing is not stable: %q then %q", text, q.Text())
+		}
+		x := []float64{rapid.Float64Range(0.1, 5).Draw(t, "x"), rapid.Float64Range(0.1, 5).Draw(t, "y")}
+		a, _ := p.Evaluator().Row(x, make([]float64, 2))
+		b, _ := q.Evaluator().Row(x, make([]float64, 2))
+		for i := range a {
+			if math.Float64bits(a[i]) != math.Float64bits(b[i]) && !(math.IsNaN(a[i]) && math.IsNaN(b[i])) {
+				t.Fatalf("%q and %q differ: %v, %v", src, text, a, b)
+			}
+		}
+	})
 }

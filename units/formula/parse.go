@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"strconv"
 	"strings"
 	"unicode"
 	"unicode/utf8"
@@ -73,6 +74,7 @@ type node struct {
 	name string       // kRef, kCall, kCmp's operator
 	args []*node
 	exp  quantity.Rat // kPow
+	expF float64      // kPow: the exponent as the float64 its text reads as
 }
 
 type stmt struct {
@@ -379,12 +381,12 @@ func (p *parser) power() (*node, error) {
 	}
 	p.skipBlank(false)
 	// An exact exponent: a number, a signed number, or (n/d).
-	if r, ok := p.exactExponent(); ok {
+	if r, f, ok := p.exactExponent(); ok {
 		n, err := p.newNode(kPow, at, base)
 		if err != nil {
 			return nil, err
 		}
-		n.exp = r
+		n.exp, n.expF = r, f
 		return n, nil
 	}
 	if err := p.enter(at); err != nil {
@@ -399,8 +401,10 @@ func (p *parser) power() (*node, error) {
 }
 
 // exactExponent reads an exact exponent at p.i if there is one: 2, -1,
-// 0.8, (1/3), (-3/2), (0.5).
-func (p *parser) exactExponent() (quantity.Rat, bool) {
+// 0.8, (1/3), (-3/2), (0.5). It also returns the float64 the exponent's
+// text reads as, so that a decimal exponent evaluates to the very number
+// written.
+func (p *parser) exactExponent() (quantity.Rat, float64, bool) {
 	save := p.i
 	paren := p.op("(") != ""
 	neg := false
@@ -408,41 +412,44 @@ func (p *parser) exactExponent() (quantity.Rat, bool) {
 		neg = true
 	}
 	p.skipBlank(false)
+	start := p.i
 	num, ok := p.decimal()
 	if !ok {
 		p.i = save
-		return quantity.Rat{}, false
+		return quantity.Rat{}, 0, false
 	}
+	f, _ := strconv.ParseFloat(p.src[start:p.i], 64)
 	if paren {
 		if p.op("/") != "" {
 			p.skipBlank(false)
 			den, ok := p.decimal()
 			if !ok || den.IsZero() {
 				p.i = save
-				return quantity.Rat{}, false
+				return quantity.Rat{}, 0, false
 			}
 			var err error
 			if num, err = num.Div(den); err != nil {
 				p.i = save
-				return quantity.Rat{}, false
+				return quantity.Rat{}, 0, false
 			}
+			f = num.Float()
 		}
 		if p.op(")") == "" {
 			p.i = save
-			return quantity.Rat{}, false
+			return quantity.Rat{}, 0, false
 		}
 	} else {
 		// A bare number followed by another operand is not an exponent.
 		p.skipBlank(false)
 		if p.i < len(p.src) && (p.src[p.i] == '[' || p.src[p.i] == '(') {
 			p.i = save
-			return quantity.Rat{}, false
+			return quantity.Rat{}, 0, false
 		}
 	}
 	if neg {
-		num = num.Neg()
+		num, f = num.Neg(), -f
 	}
-	return num, true
+	return num, f, true
 }
 
 // decimal reads an unsigned decimal number as an exact rational.
@@ -452,7 +459,7 @@ func (p *parser) decimal() (quantity.Rat, bool) {
 		p.i++
 	}
 	text := p.src[start:p.i]
-	if text == "" || text == "." || strings.Count(text, ".") > 1 || len(text) > 18 {
+	if text == "" || text == "." || strings.Count(text, ".") > 1 || len(text) > 24 {
 		p.i = start
 		return quantity.Rat{}, false
 	}
