@@ -43,10 +43,11 @@ const block = 256
 // not allocate when evaluating; it is not safe for concurrent use (make
 // one per goroutine).
 type Evaluator struct {
-	p    *Program
-	regs []float64   // one value per slot, for Row
-	buf  []float64   // block storage for computed slots
-	view [][]float64 // per slot, the block being worked on
+	p     *Program
+	regs  []float64   // one value per slot, for Row
+	buf   []float64   // block storage for computed slots
+	view  [][]float64 // per slot, the block being worked on
+	dregs []float64   // per slot, the derivatives with respect to the inputs (Gradient)
 }
 
 // Evaluator returns an evaluator for the program.
