@@ -54,3 +54,41 @@ func TestFitAsFormula(t *testing.T) {
 		t.Errorf("%q gives %v, Predict %v (%v)", text, got[0], pr.Value, err)
 	}
 }
+
+// TestGroupsAsFormula: every group of a Pi set, written in ASCII, is
+// formula text that compiles against the variables to a dimensionless
+// result and computes the group's value.
+func TestGroupsAsFormula(t *testing.T) {
+	p := pigroups.MustProblem(pigroups.Dep("T", q.Force).WithKind("force"), pigroups.VarKind("rho", q.Density, "density"),
+		pigroups.VarKind("n", q.AngularVelocity, "rotational speed"), pigroups.VarKind("D", q.Length, "length"),
+		pigroups.VarKind("V", q.Velocity, "velocity"), pigroups.VarKind("mu", q.DynamicViscosity, "dynamic viscosity"),
+		pigroups.VarKind("g", q.Acceleration, "gravitational acceleration"))
+	s, err := p.PiSet("rho", "n", "D")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var inputs []formula.Input
+	row := []float64{150, 1000, 62.8, 0.25, 2.1, 1.1e-3, 9.81}
+	qs := make([]q.Quantity, len(row))
+	for i, v := range p.Variables() {
+		inputs = append(inputs, formula.Input{Name: v.Symbol, Dim: v.Dim})
+		qs[i] = q.New(row[i], v.Dim)
+	}
+	for _, set := range []*pigroups.Set{s, s.WithCoefficients()} {
+		want, err := set.Evaluator().Row(qs, make([]float64, set.Len()))
+		if err != nil {
+			t.Fatal(err)
+		}
+		for k, g := range set.Groups() {
+			text := g.Format(q.ASCII)
+			prog, err := formula.Compile(text, inputs...)
+			if err != nil {
+				t.Fatalf("%s = %q: %v", g.Name, text, err)
+			}
+			got, _ := prog.Evaluator().Row(row, make([]float64, 1))
+			if !prog.Dim(0).IsDimensionless() || math.Abs(got[0]/want[k]-1) > 1e-12 {
+				t.Errorf("%q = %v (%v), the evaluator %v", text, got[0], prog.Dim(0), want[k])
+			}
+		}
+	}
+}

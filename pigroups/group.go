@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"regexp"
 	"slices"
 	"strings"
 
@@ -141,22 +142,26 @@ func (g Group) Format(style quantity.Style) string {
 	if k == "" {
 		return body
 	}
-	if style != quantity.Unicode {
+	sep := "·"
+	switch style {
+	case quantity.ASCII:
+		// Formula text: 4*pi^2, (1/(2*pi)).
+		k = digitPi.ReplaceAllString(k, "$1*π")
 		k = strings.NewReplacer("π", "pi", "²", "^2", "³", "^3").Replace(k)
-	}
-	sep := "*"
-	if style == quantity.Unicode {
-		sep = "·"
-	}
-	if style == quantity.LaTeX {
+		sep = "*"
+	case quantity.LaTeX:
+		k = strings.NewReplacer("π", `\pi`, "²", "^{2}", "³", "^{3}").Replace(k)
 		sep = " "
-		k = strings.ReplaceAll(k, "pi", `\pi`)
 	}
 	if strings.Contains(k, "/") {
 		k = "(" + k + ")"
 	}
 	return k + sep + body
 }
+
+// digitPi finds a number written against π, which formula text writes
+// with a product sign.
+var digitPi = regexp.MustCompile(`(\d)π`)
 
 // Label returns what the group's value is, in terms of the named group
 // it is recognised as: "Re", "1/Re", "Fr²", "C_D/2", "K_T/(4π²)", "∝C_D"

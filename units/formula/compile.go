@@ -166,6 +166,9 @@ func (c *compiler) expr(n *node) (int, typ, error) {
 		return c.emit(op{code: opConst, k: n.val}), typ{dim: n.dim}, nil
 	case kRef:
 		slot, ok := c.names[n.name]
+		if !ok && (n.name == "pi" || n.name == "π") {
+			return c.emit(op{code: opConst, k: math.Pi}), typ{}, nil
+		}
 		if !ok {
 			return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("unknown name %q: not an input and not assigned before", n.name)}
 		}

@@ -23,7 +23,8 @@
 // 20 [°C], 101.325 [kPa]. The value is held in SI.
 //
 // Names are UTF-8 words of letters, digits and '_' starting with a
-// letter: rho, ρ, Δp, T_in. The functions are sqrt, cbrt, exp, ln (log),
+// letter: rho, ρ, Δp, T_in; pi (or π), unless an input or a statement
+// defines it, is the number π. The functions are sqrt, cbrt, exp, ln (log),
 // log10, abs, min, max, hypot, sin, cos, tan, asin, acos, atan, atan2 and
 // if(condition, then, else), where the condition compares two quantities
 // of one dimension with <, <=, >, >=, == or != and may combine such
