@@ -57,6 +57,16 @@
 // the caller owns adds definitions at run time (Define("TR",
 // "12000 BTU/h")) and is safe for concurrent use.
 //
+// # Data-sheet spellings
+//
+// Parse is strict and stays so. ParseDialect is the opt-in reader for
+// channel headers and data sheets: hr, sec, mins, m3, ft3, kg/m3, m3/h,
+// Pa.s, N.m, ft-lbf, in-lb, GPM, bhp, BTU/hr-ft2-F. It returns, with the
+// unit, a Reading for each lenient step (what was read as what), so that
+// a reduced data set can record its interpretation. Spellings with more
+// than one meaning (ton, PS) or that need a reference (psig, barg, SCFM)
+// are refused with the candidates or with how to supply the reference.
+//
 // # Sources
 //
 // Each table entry's source is given in the code: the SI Brochure, 9th
@@ -64,7 +74,7 @@
 // 811 (2008), Appendix B, for customary units; exact definitions (the
 // international inch and pound of 1959, g_n, the International Table BTU)
 // from which factors are derived in code rather than typed as rounded
-// decimals. Manometer units (mmHg, inHg, inH2O) are the conventional ones,
+// decimals. Manometer units (mmHg, inHg, inH2O, ftH2O, mH2O) are the conventional ones,
 // defined from mercury at 13 595.1 kg/m³ and water at 1000 kg/m³ under
 // standard gravity.
 package units

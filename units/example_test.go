@@ -81,3 +81,27 @@ func ExampleNewFlag() {
 	// <nil> 12 kn
 	// 12 kg: want velocity [m·s⁻¹], got mass [kg]
 }
+
+// A channel header written by an acquisition system is read with the
+// data-sheet dialect, and each lenient reading is reported.
+func ExampleParseDialect() {
+	u, readings, err := units.ParseDialect("BTU/hr-ft2-F")
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Println(u)
+	for _, r := range readings {
+		fmt.Println(" ", r)
+	}
+	_, _, err = units.ParseDialect("psig")
+	fmt.Println(err)
+	// Output:
+	// BTU/(h*ft^2*degF)
+	//   hr read as h (hour)
+	//   - read as * (a hyphen between symbols read as a product)
+	//   ft2 read as ft^2 (a trailing digit read as a power)
+	//   - read as * (a hyphen between symbols read as a product)
+	//   F read as degF (degree Fahrenheit, as an interval inside a compound unit)
+	// units: "psig": at offset 0: ambiguous expression: "psig" is a gauge pressure; it is never read as absolute — give the channel in psi together with the reference (barometer) pressure
+}

@@ -181,6 +181,8 @@ var builtin = []entry{
 	{u: Unit{dim: quantity.Pressure, factor: rhoHgConv * 1e-3 * gn}, sym: "mmHg", uni: "mmHg", tex: `\mathrm{mmHg}`},           // conventional
 	{u: Unit{dim: quantity.Pressure, factor: rhoHgConv * inch * gn}, sym: "inHg", uni: "inHg", tex: `\mathrm{inHg}`},           // conventional
 	{u: Unit{dim: quantity.Pressure, factor: rhoH2OConv * inch * gn}, sym: "inH2O", uni: "inH2O", tex: `\mathrm{inH_2O}`},      // conventional
+	{u: Unit{dim: quantity.Pressure, factor: rhoH2OConv * foot * gn}, sym: "ftH2O", uni: "ftH2O", tex: `\mathrm{ftH_2O}`},      // conventional
+	{u: Unit{dim: quantity.Pressure, factor: rhoH2OConv * gn}, sym: "mH2O", uni: "mH2O", tex: `\mathrm{mH_2O}`},                // conventional
 	{u: Unit{dim: quantity.Pressure, factor: lbf / (inch * inch)}, sym: "psi", uni: "psi", tex: `\mathrm{psi}`},
 	{u: Unit{dim: quantity.Pressure, factor: lbf / (foot * foot)}, sym: "psf", uni: "psf", tex: `\mathrm{psf}`},
 	{u: Unit{dim: quantity.Pressure, factor: 1000 * lbf / (inch * inch)}, sym: "ksi", uni: "ksi", tex: `\mathrm{ksi}`},

@@ -1,0 +1,173 @@
+package units
+
+import (
+	"fmt"
+	"strings"
+	"unicode"
+	"unicode/utf8"
+)
+
+// Reading records how a data-sheet spelling was read: the text as
+// written, what it was read as, and why.
+type Reading struct {
+	From, To string
+	Note     string
+}
+
+// String writes "GPM read as gal/min (US gallons per minute)".
+func (r Reading) String() string {
+	s := fmt.Sprintf("%s read as %s", r.From, r.To)
+	if r.Note != "" {
+		s += " (" + r.Note + ")"
+	}
+	return s
+}
+
+// dialectWords are the data-sheet spellings the dialect reads, with the
+// strict spelling and a note (common practice of acquisition systems and
+// pump, fan and tank data sheets).
+var dialectWords = map[string]Reading{
+	"hr":   {To: "h", Note: "hour"},
+	"hrs":  {To: "h", Note: "hour"},
+	"sec":  {To: "s", Note: "second"},
+	"secs": {To: "s", Note: "second"},
+	"mins": {To: "min", Note: "minute"},
+	"GPM":  {To: "gal/min", Note: "US gallons per minute"},
+	"gpm":  {To: "gal/min", Note: "US gallons per minute"},
+	"bhp":  {To: "hp", Note: "brake horsepower, the mechanical horsepower of 550 ft·lbf/s"},
+	"F":    {To: "degF", Note: "degree Fahrenheit, as an interval inside a compound unit"},
+	"C":    {To: "degC", Note: "degree Celsius, as an interval inside a compound unit"},
+}
+
+// torqueWords are the torque spellings in which lb is the pound-force.
+var torqueWords = map[string]string{
+	"in-lb": "in*lbf", "lb-in": "lbf*in", "ft-lb": "ft*lbf", "lb-ft": "lbf*ft",
+	"in.lb": "in*lbf", "lb.in": "lbf*in", "ft.lb": "ft*lbf", "lb.ft": "lbf*ft",
+	"in-lbs": "in*lbf", "ft-lbs": "ft*lbf", "in lb": "in*lbf", "ft lb": "ft*lbf",
+}
+
+// dialectRefused are data-sheet spellings too ambiguous to read, with the
+// candidates.
+var dialectRefused = map[string]string{
+	"ton":  "could be a short ton (2000 lb), a long ton (2240 lb), a metric ton (write t) or a ton of refrigeration (write 12000 BTU/h)",
+	"tons": "could be a short ton (2000 lb), a long ton (2240 lb), a metric ton (write t) or a ton of refrigeration (write 12000 BTU/h)",
+	"PS":   "could be the metric horsepower (75 kgf·m/s) or the petasiemens",
+	"psig": "is a gauge pressure; it is never read as absolute — give the channel in psi together with the reference (barometer) pressure",
+	"barg": "is a gauge pressure; it is never read as absolute — give the channel in bar together with the reference (barometer) pressure",
+	"SCFM": "is a volume flow at standard reference conditions that differ between standards; convert with the stated reference conditions and give ft^3/min",
+	"scfm": "is a volume flow at standard reference conditions that differ between standards; convert with the stated reference conditions and give ft^3/min",
+}
+
+// ParseDialect reads a unit as an acquisition system or a data sheet
+// writes it, as well as everything Parse reads: hr, sec, mins, m3, ft3,
+// kg/m3, m3/h, Pa.s, N.m, ft-lbf, lbf-ft, in-lb, GPM, bhp, ftH2O, mH2O,
+// BTU/hr-ft2-F. Every lenient reading is reported, so that a reduced data
+// set can record its interpretation; a spelling with more than one
+// meaning (ton, PS) or one that needs a reference (psig, SCFM) is
+// refused with the candidates. The dialect is for data files, never the
+// default: Parse stays strict.
+func ParseDialect(text string) (Unit, []Reading, error) {
+	if u, err := Parse(text); err == nil {
+		return u, nil, nil
+	}
+	if len(text) > MaxExprLen {
+		return Unit{}, nil, &ParseError{Input: text[:MaxExprLen] + "…", Offset: MaxExprLen, Err: ErrTooLong, Reason: fmt.Sprintf("longer than %d bytes", MaxExprLen)}
+	}
+	if !utf8.ValidString(text) {
+		return Unit{}, nil, &ParseError{Input: text, Err: ErrSyntax, Reason: "invalid UTF-8"}
+	}
+	// A pound in a torque (in-lb, lb-ft) is the pound-force; elsewhere
+	// (lb/hr) it stays the pound of mass.
+	if to, ok := torqueWords[text]; ok {
+		u, err := Parse(to)
+		if err != nil {
+			return Unit{}, nil, err
+		}
+		return u, []Reading{{From: text, To: to, Note: "a torque: the pound is the pound-force"}}, nil
+	}
+	var readings []Reading
+	var sb strings.Builder
+	// A hyphenated denominator after '/' (BTU/hr-ft2-F) is one group.
+	slash := strings.IndexByte(text, '/')
+	denGroup := slash >= 0 && strings.Contains(text[slash+1:], "-") && !strings.ContainsAny(text[slash+1:], "()")
+	i := 0
+	for i < len(text) {
+		r, n := utf8.DecodeRuneInString(text[i:])
+		switch {
+		case unicode.IsLetter(r):
+			j := i
+			for j < len(text) {
+				r2, n2 := utf8.DecodeRuneInString(text[j:])
+				if !(unicode.IsLetter(r2) || unicode.IsDigit(r2) && !endsWithPower(text[i:j], text[j:]) || r2 == '_') {
+					break
+				}
+				j += n2
+			}
+			word := text[i:j]
+			// Trailing digits that are a power: m3, ft2 (but not H2O).
+			k := j
+			for k < len(text) && text[k] >= '2' && text[k] <= '3' && (k+1 == len(text) || !isNameByte(text[k+1])) {
+				k++
+			}
+			if why, bad := dialectRefused[word]; bad {
+				return Unit{}, readings, &ParseError{Input: text, Offset: i, Err: ErrAmbiguous, Symbol: word, Reason: fmt.Sprintf("%q %s", word, why)}
+			}
+			to := word
+			if rd, ok := dialectWords[word]; ok {
+				// F and C are farad and coulomb except in a hyphenated
+				// denominator (BTU/hr-ft2-F), where they are the degree.
+				inDen := denGroup && i > slash
+				if _, known := builtinIndex.bySym[word]; !known || (word == "F" || word == "C") && inDen {
+					to = rd.To
+					readings = append(readings, Reading{From: word, To: to, Note: rd.Note})
+				}
+			}
+			if strings.Contains(to, "/") {
+				to = "(" + to + ")"
+			}
+			sb.WriteString(to)
+			if k > j {
+				sb.WriteString("^" + text[j:k])
+				readings = append(readings, Reading{From: text[i:k], To: to + "^" + text[j:k], Note: "a trailing digit read as a power"})
+			}
+			i = k
+		case r == '.' && i > 0 && i+1 < len(text) && isNameByte(text[i-1]) && isLetterByte(text[i+1]):
+			sb.WriteByte('*')
+			readings = append(readings, Reading{From: ".", To: "*", Note: "a dot between symbols read as a product"})
+			i++
+		case r == '-' && i > 0 && i+1 < len(text) && isNameByte(text[i-1]) && isLetterByte(text[i+1]):
+			sb.WriteByte('*')
+			readings = append(readings, Reading{From: "-", To: "*", Note: "a hyphen between symbols read as a product"})
+			i++
+		case r == '/' && denGroup && i == slash:
+			sb.WriteString("/(")
+			i++
+		default:
+			sb.WriteString(text[i : i+n])
+			i += n
+		}
+	}
+	if denGroup {
+		sb.WriteByte(')')
+	}
+	strict := sb.String()
+	u, err := Parse(strict)
+	if err != nil {
+		return Unit{}, readings, &ParseError{Input: text, Err: ErrUnknownSymbol, Reason: fmt.Sprintf("not a unit even as a data sheet writes it (read as %q: %v)", strict, err)}
+	}
+	return u, readings, nil
+}
+
+func isNameByte(c byte) bool {
+	return c >= 'a' && c <= 'z' || c >= 'A' && c <= 'Z' || c >= '0' && c <= '9' || c == '_'
+}
+func isLetterByte(c byte) bool { return c >= 'a' && c <= 'z' || c >= 'A' && c <= 'Z' }
+
+// endsWithPower reports whether the digits at rest end a symbol as a
+// power (m3, ft2) rather than belong to it (H2O).
+func endsWithPower(word, rest string) bool {
+	if rest == "" || rest[0] < '2' || rest[0] > '3' {
+		return false
+	}
+	return len(rest) == 1 || !isNameByte(rest[1])
+}
