@@ -290,6 +290,11 @@ func parseValue(tab symbolTable, s string, parse func(string) (Unit, error)) (Va
 	if r, _ := utf8.DecodeRuneInString(rest); r == '/' || r == '*' || r == '^' {
 		return Value{}, &ValueError{Input: s, Offset: lead + j, Reason: "a unit must follow the number (write 1/s, not /s)"}
 	}
+	if _, gauge := gaugeSuffix(rest); gauge {
+		// 40 kPa(g), 12 psig: a gauge level is not an absolute pressure,
+		// and "kPa (g)" is not kilopascal-gram.
+		return Value{}, &ValueError{Input: s, Err: &ParseError{Input: rest, Err: ErrGauge, Reason: gaugeHelp}}
+	}
 	u, err := parse(rest)
 	if err != nil {
 		return Value{}, &ValueError{Input: s, Err: err}

@@ -52,8 +52,6 @@ var dialectRefused = map[string]string{
 	"ton":  "could be a short ton (2000 lb), a long ton (2240 lb), a metric ton (write t) or a ton of refrigeration (write 12000 BTU/h)",
 	"tons": "could be a short ton (2000 lb), a long ton (2240 lb), a metric ton (write t) or a ton of refrigeration (write 12000 BTU/h)",
 	"PS":   "could be the metric horsepower (75 kgf·m/s) or the petasiemens",
-	"psig": "is a gauge pressure; it is never read as absolute — give the channel in psi together with the reference (barometer) pressure",
-	"barg": "is a gauge pressure; it is never read as absolute — give the channel in bar together with the reference (barometer) pressure",
 	"SCFM": "is a volume flow at standard reference conditions that differ between standards; convert with the stated reference conditions and give ft^3/min",
 	"scfm": "is a volume flow at standard reference conditions that differ between standards; convert with the stated reference conditions and give ft^3/min",
 }
@@ -63,10 +61,14 @@ var dialectRefused = map[string]string{
 // kg/m3, m3/h, Pa.s, N.m, ft-lbf, lbf-ft, in-lb, GPM, bhp, ftH2O, mH2O,
 // BTU/hr-ft2-F. Every lenient reading is reported, so that a reduced data
 // set can record its interpretation; a spelling with more than one
-// meaning (ton, PS) or one that needs a reference (psig, SCFM) is
-// refused with the candidates. The dialect is for data files, never the
+// meaning (ton, PS) or one that needs a reference (SCFM) is refused with
+// the candidates, and a gauge pressure (psig, barg, kPa(g)) with an
+// error matching ErrGauge that says how to read it (ParseGauge) and make it absolute. The dialect is for data files, never the
 // default: Parse stays strict.
 func ParseDialect(text string) (Unit, []Reading, error) {
+	if _, gauge := gaugeSuffix(text); gauge {
+		return Unit{}, nil, &ParseError{Input: text, Err: ErrGauge, Reason: gaugeHelp}
+	}
 	if u, err := Parse(text); err == nil {
 		return u, nil, nil
 	}

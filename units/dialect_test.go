@@ -97,8 +97,10 @@ func TestDialectRefuses(t *testing.T) {
 		{"ton", units.ErrAmbiguous, "ton of refrigeration"},
 		{"tons", units.ErrAmbiguous, "long ton"},
 		{"PS", units.ErrAmbiguous, "metric horsepower"},
-		{"psig", units.ErrAmbiguous, "gauge"},
-		{"barg", units.ErrAmbiguous, "reference"},
+		{"psig", units.ErrGauge, "ParseGauge"},
+		{"barg", units.ErrGauge, "barometer"},
+		{"kPa(g)", units.ErrGauge, "Gauge.Absolute"},
+		{"kPa (g)", units.ErrGauge, "relative to the ambient"}, // not kilopascal-gram
 		{"SCFM", units.ErrAmbiguous, "reference conditions"},
 		{"kW/ton", units.ErrAmbiguous, "short ton"},
 		{"Torque", units.ErrUnknownSymbol, "not a unit"},
@@ -113,7 +115,8 @@ func TestDialectRefuses(t *testing.T) {
 			continue
 		}
 		var pe *units.ParseError
-		if !errors.As(err, &pe) || !strings.Contains(err.Error(), tc.says) {
+		var ge *units.GaugeError
+		if !(errors.As(err, &pe) || errors.As(err, &ge)) || !strings.Contains(err.Error(), tc.says) {
 			t.Errorf("ParseDialect(%.20q) error %q does not say %q", tc.text, err, tc.says)
 		}
 	}

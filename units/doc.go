@@ -67,6 +67,15 @@
 // than one meaning (ton, PS) or that need a reference (psig, barg, SCFM)
 // are refused with the candidates or with how to supply the reference.
 //
+// # Gauge pressure
+//
+// A gauge level (40 kPa(g), 12.5 psig, 0.8 barg) is a Gauge, not a
+// Quantity, so it cannot reach a computation that needs an absolute
+// pressure; ParseValue refuses it with ErrGauge. Gauge.Absolute makes it
+// absolute with a reference given explicitly — the day's barometer
+// reading, or StandardReference as a stated choice — and Gauge.Sub gives
+// the pressure difference of two levels read on one ambient.
+//
 // # Sources
 //
 // Each table entry's source is given in the code: the SI Brochure, 9th

@@ -103,5 +103,23 @@ func ExampleParseDialect() {
 	//   ft2 read as ft^2 (a trailing digit read as a power)
 	//   - read as * (a hyphen between symbols read as a product)
 	//   F read as degF (degree Fahrenheit, as an interval inside a compound unit)
-	// units: "psig": at offset 0: ambiguous expression: "psig" is a gauge pressure; it is never read as absolute — give the channel in psi together with the reference (barometer) pressure
+	// units: "psig": at offset 0: gauge pressure needs a reference pressure: a gauge level is relative to the ambient pressure: read it with ParseGauge and make it absolute with Gauge.Absolute and a barometer reading (or StandardReference, chosen explicitly)
+}
+
+// A transducer vented to atmosphere reads a gauge level; the absolute
+// pressure a cavitation number needs takes the day's barometer reading.
+func ExampleGauge_Absolute() {
+	g := units.MustParseGauge("12.5 psig")
+	baro := units.MustParseValue("1002 hPa") // invented barometer reading
+	p, err := g.Absolute(baro.Quantity())
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("%v + %v = %.1f kPa absolute\n", g, baro, p.Value()/1000)
+	_, err = units.ParseValue("12.5 psig")
+	fmt.Println(errors.Is(err, units.ErrGauge))
+	// Output:
+	// 12.5 psi(g) + 1002 hPa = 186.4 kPa absolute
+	// true
 }
