@@ -1,0 +1,311 @@
+package chanfile_test
+
+import (
+	"bytes"
+	"errors"
+	"io"
+	"math"
+	"strings"
+	"testing"
+
+	"github.com/google/go-cmp/cmp"
+	"pgregory.net/rapid"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/units"
+	"similis.dev/similis/units/chanfile"
+)
+
+func TestParseHeaderField(t *testing.T) {
+	tests := []struct {
+		field, name, unit string
+		dim               quantity.Dim
+		gauge             bool
+		readings          int
+	}{
+		{"V [kn]", "V", "kn", quantity.Velocity, false, 0},
+		{"Torque (in-lb)", "Torque", "in-lb", quantity.Torque, false, 1},
+		{"P1 psig", "P1", "psig", quantity.Pressure, true, 0},
+		{"P2 kPa(g)", "P2", "kPa(g)", quantity.Pressure, true, 0},
+		{"T_in °F", "T_in", "°F", quantity.Temperature, false, 0},
+		{"Q m3/h", "Q", "m3/h", quantity.VolumeFlowRate, false, 1},
+		{"mu Pa.s", "mu", "Pa.s", quantity.DynamicViscosity, false, 1},
+		{"Re [1]", "Re", "1", 0, false, 0},
+		{"Cp [-]", "Cp", "-", 0, false, 0},
+		{"Inlet pressure (kPa)", "Inlet pressure", "kPa", quantity.Pressure, false, 0},
+		{"Δp [kPa]", "Δp", "kPa", quantity.Pressure, false, 0},
+		{"\ufeffTime s", "Time", "s", quantity.Time, false, 0},
+		{"q (W/(m^2*K))", "q", "W/(m^2*K)", quantity.HeatTransferCoefficient, false, 0},
+	}
+	for _, tc := range tests {
+		c, err := chanfile.ParseHeaderField(tc.field)
+		if err != nil {
+			t.Errorf("ParseHeaderField(%q): %v", tc.field, err)
+			continue
+		}
+		got := []any{c.Name, c.Text, c.Unit.Dim(), c.Gauge, len(c.Readings)}
+		want := []any{tc.name, tc.unit, tc.dim, tc.gauge, tc.readings}
+		if d := cmp.Diff(want, got); d != "" {
+			t.Errorf("ParseHeaderField(%q) (-want +got):\n%s", tc.field, d)
+		}
+	}
+	for _, bad := range []struct{ field, says string }{
+		{"V", `write "V [1]"`},
+		{"[kn]", "no channel name"},
+		{"W ton", "short ton"},
+		{"x (kPa", "not a unit"},
+		{"n [rpm", "not a unit"},
+		{"x [furlong]", "not a unit"},
+		{"V []", "no unit"},
+	} {
+		_, err := chanfile.ParseHeaderField(bad.field)
+		if !errors.Is(err, quantity.ErrParse) || !strings.Contains(err.Error(), bad.says) {
+			t.Errorf("ParseHeaderField(%q) error %v, want one saying %q", bad.field, err, bad.says)
+		}
+	}
+}
+
+// The invented log of a pump-loop run: BOM, a comment, CRLF line ends, a
+// quoted header field, a missing value and a gauge channel.
+const pumpLog = "\ufeff# pump loop, invented data\r\n" +
+	"t [s],\"Q, flow (m3/h)\",P1 psig,T_in °F,Torque (in-lb),n [rpm]\r\n" +
+	"0,41.2,12.5,68,84.1,1450\r\n" +
+	"0.5,,12.4,68.2,NA,1450\r\n" +
+	"1.0,41.0,12.6,68.4,84.3,1451\r\n"
+
+func TestReadByHand(t *testing.T) {
+	baro := units.MustParseValue("1002 hPa").Quantity() // invented barometer reading
+	r, err := chanfile.NewReader(strings.NewReader(pumpLog), "loop.csv", chanfile.Options{Reference: baro})
+	if err != nil {
+		t.Fatal(err)
+	}
+	s, n, err := r.Read(nil, 0)
+	if err != nil || n != 3 {
+		t.Fatalf("Read: %d rows, %v", n, err)
+	}
+	const psi = 4.4482216152605 / (0.0254 * 0.0254) // NIST SP 811: 6.894757 kPa
+	nan := math.NaN()
+	want := [][]float64{
+		{0, 0.5, 1},
+		{41.2 / 3600, nan, 41.0 / 3600}, // m3/h → m³/s
+		{12.5*psi + 100200, 12.4*psi + 100200, 12.6*psi + 100200},                   // gauge + barometer
+		{293.15, (68.2-32)*5/9 + 273.15, (68.4-32)*5/9 + 273.15},                    // °F → K (68 °F = 20 °C)
+		{84.1 * 0.0254 * 4.4482216152605, nan, 84.3 * 0.0254 * 4.4482216152605},     // lbf·in → N·m
+		{1450 * 2 * math.Pi / 60, 1450 * 2 * math.Pi / 60, 1451 * 2 * math.Pi / 60}, // rpm → rad/s
+	}
+	for j := range want {
+		if d := cmp.Diff(want[j], s[j].Values(), cmp.Comparer(func(a, b float64) bool {
+			return math.IsNaN(a) && math.IsNaN(b) || math.Abs(a-b) <= 1e-12*math.Abs(a)
+		})); d != "" {
+			t.Errorf("column %d (%s) (-want +got):\n%s", j+1, r.Columns()[j].Name, d)
+		}
+	}
+	cols := r.Columns()
+	if cols[1].Name != "Q, flow" || cols[1].Missing != 1 || cols[4].Missing != 1 || cols[0].Missing != 0 {
+		t.Errorf("columns %+v", cols)
+	}
+	if !cols[2].Gauge || cols[2].Unit.String() != "Pa" {
+		t.Errorf("gauge column %+v", cols[2])
+	}
+	if _, n, err := r.Read(s, 0); err != io.EOF || n != 0 {
+		t.Errorf("Read at end: %d, %v; want io.EOF", n, err)
+	}
+}
+
+func TestReadChunks(t *testing.T) {
+	var sb strings.Builder
+	sb.WriteString("x [m]\ty [s]\n")
+	for i := range 10 {
+		sb.WriteString(strings.Repeat("1", 1) + "\t" + string(rune('0'+i)) + "\n")
+	}
+	r, err := chanfile.NewReader(strings.NewReader(sb.String()), "t.tsv", chanfile.Options{Comma: '\t'})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var got []int
+	var ys []float64
+	var s []quantity.Series
+	for {
+		var n int
+		s, n, err = r.Read(s, 3)
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			t.Fatal(err)
+		}
+		got = append(got, n)
+		ys = append(ys, s[1].Values()...)
+	}
+	if d := cmp.Diff([]int{3, 3, 3, 1}, got); d != "" {
+		t.Errorf("chunks (-want +got):\n%s", d)
+	}
+	if d := cmp.Diff([]float64{0, 1, 2, 3, 4, 5, 6, 7, 8, 9}, ys); d != "" {
+		t.Errorf("values (-want +got):\n%s", d)
+	}
+}
+
+// TestMalformed: each malformed file gives an error at the line and
+// column expected.
+func TestMalformed(t *testing.T) {
+	tests := []struct {
+		name, text   string
+		opt          chanfile.Options
+		line, column int
+		says         string
+		is           error
+	}{
+		{"empty", "", chanfile.Options{}, 1, 0, "no header", quantity.ErrParse},
+		{"comments only", "# a\n# b\n", chanfile.Options{}, 1, 0, "no header", quantity.ErrParse},
+		{"ragged", "a [m],b [m]\n1,2\n3\n", chanfile.Options{}, 3, 1, "number of fields", quantity.ErrParse},
+		{"unit in data", "V [kn]\n12 kn\n", chanfile.Options{}, 2, 1, "unit belongs in the header", quantity.ErrParse},
+		{"text in data", "V [kn]\n1\nabc\n", chanfile.Options{}, 3, 1, "not a finite number", quantity.ErrParse},
+		{"infinite", "V [kn]\n1e999\n", chanfile.Options{}, 2, 1, "not a finite number", quantity.ErrParse},
+		{"non-UTF-8 data", "V [kn]\n1\xff\n", chanfile.Options{}, 2, 1, "not a finite number", quantity.ErrParse},
+		{"non-UTF-8 header", "V [kn],\xff [m]\n1,2\n", chanfile.Options{}, 1, 2, "UTF-8", quantity.ErrParse},
+		{"bad quote", "a [m],b [m]\n1,\"2\n", chanfile.Options{}, 2, 0, "", quantity.ErrParse},
+		{"gauge without reference", "P1 psig\n12\n", chanfile.Options{}, 1, 1, "Options.Reference", units.ErrGauge},
+		{"duplicate", "V [kn],V [m/s]\n1,2\n", chanfile.Options{}, 1, 2, "also column 1", quantity.ErrParse},
+		{"no unit", "V,t [s]\n1,2\n", chanfile.Options{}, 1, 1, "dimensionless", quantity.ErrParse},
+		{"ambiguous unit", "W ton\n1\n", chanfile.Options{}, 1, 1, "refrigeration", quantity.ErrParse},
+	}
+	for _, tc := range tests {
+		r, err := chanfile.NewReader(strings.NewReader(tc.text), tc.name, tc.opt)
+		if err == nil {
+			_, _, err = r.Read(nil, 0)
+			for err == nil {
+				_, _, err = r.Read(nil, 0)
+			}
+		}
+		var fe *chanfile.Error
+		if !errors.As(err, &fe) || !errors.Is(err, tc.is) || !strings.Contains(err.Error(), tc.says) {
+			t.Errorf("%s: error %v, want a *chanfile.Error saying %q", tc.name, err, tc.says)
+			continue
+		}
+		if fe.File != tc.name || fe.Line != tc.line || (tc.column != 0 && fe.Column != tc.column) {
+			t.Errorf("%s: error at %s:%d:%d, want %s:%d:%d", tc.name, fe.File, fe.Line, fe.Column, tc.name, tc.line, tc.column)
+		}
+	}
+}
+
+// TestRoundTrip: Series written in chosen units read back to the same
+// numbers in those units (rapid): exactly in SI units, and to the unit
+// conversion's rounding otherwise.
+func TestRoundTrip(t *testing.T) {
+	rapid.Check(t, func(t *rapid.T) {
+		cols := []chanfile.Column{
+			{Name: "V", Unit: units.MustParse("m/s")},
+			{Name: "V_kn", Unit: units.MustParse("kn")},
+			{Name: "Re", Unit: units.One()},
+			{Name: "T", Unit: units.MustParse("degC")},
+		}
+		n := rapid.IntRange(0, 20).Draw(t, "n")
+		s := make([]quantity.Series, len(cols))
+		for j, c := range cols {
+			v := make([]float64, n)
+			for i := range v {
+				if rapid.IntRange(0, 9).Draw(t, "missing") == 0 {
+					v[i] = math.NaN()
+				} else {
+					v[i] = rapid.Float64Range(1, 1e6).Draw(t, "v")
+					if c.Name == "T" {
+						v[i] = rapid.Float64Range(200, 2000).Draw(t, "T") // K
+					}
+				}
+			}
+			s[j] = quantity.NewSeries(v, c.Unit.Dim())
+		}
+		var buf bytes.Buffer
+		w, err := chanfile.NewWriter(&buf, cols, chanfile.Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := w.Write(s); err != nil {
+			t.Fatal(err)
+		}
+		if err := w.Flush(); err != nil {
+			t.Fatal(err)
+		}
+		r, err := chanfile.NewReader(&buf, "rt.csv", chanfile.Options{})
+		if err != nil {
+			t.Fatalf("%v\n%s", err, buf.String())
+		}
+		back, m, err := r.Read(nil, 0)
+		if n == 0 {
+			if err != io.EOF {
+				t.Fatalf("empty file: %v", err)
+			}
+			return
+		}
+		if err != nil || m != n {
+			t.Fatalf("read %d of %d rows: %v", m, n, err)
+		}
+		for j, c := range r.Columns() {
+			if c.Name != cols[j].Name || !c.Unit.Equal(cols[j].Unit) {
+				t.Fatalf("column %d read back as %+v", j, c)
+			}
+			for i, x := range s[j].Values() {
+				y := back[j].Values()[i]
+				tol := 0.0
+				if j%2 == 1 {
+					tol = 2e-15 * math.Abs(x) // kn and °C: one conversion each way
+				}
+				if math.IsNaN(x) != math.IsNaN(y) || math.Abs(x-y) > tol {
+					t.Fatalf("column %d row %d: %v read back as %v", j, i, x, y)
+				}
+			}
+		}
+	})
+}
+
+func FuzzHeaderField(f *testing.F) {
+	for _, s := range []string{"V [kn]", "Torque (in-lb)", "P1 psig", "T_in °F", "Q m3/h", "mu Pa.s", "Re [1]", "x ((", "[", "(g)", "a (g)", "\xff"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		c, err := chanfile.ParseHeaderField(s)
+		if err != nil {
+			if !errors.Is(err, quantity.ErrParse) {
+				t.Fatalf("ParseHeaderField(%q): %v is not a parse error", s, err)
+			}
+			return
+		}
+		if c.Name == "" || c.Text == "" {
+			t.Fatalf("ParseHeaderField(%q) = %+v", s, c)
+		}
+	})
+}
+
+func FuzzReader(f *testing.F) {
+	f.Add(pumpLog)
+	f.Add("a [m],b [m]\n1,2\n3\n")
+	f.Add("V [kn]\n12 kn\n")
+	f.Add("x [m]\n\"1\"\n,\n")
+	f.Fuzz(func(t *testing.T, s string) {
+		r, err := chanfile.NewReader(strings.NewReader(s), "f.csv", chanfile.Options{Reference: units.StandardReference()})
+		if err != nil {
+			return
+		}
+		var dst []quantity.Series
+		rows := 0
+		for range 1 << 20 {
+			var n int
+			dst, n, err = r.Read(dst, 7)
+			rows += n
+			if err != nil {
+				break
+			}
+			for j, c := range r.Columns() {
+				if dst[j].Len() != n || dst[j].Dim() != c.Unit.Dim() {
+					t.Fatalf("column %d: %d values of %v for %d rows", j, dst[j].Len(), dst[j].Dim(), n)
+				}
+			}
+		}
+		if err != io.EOF && !errors.Is(err, quantity.ErrParse) {
+			t.Fatalf("error %v is neither io.EOF nor a parse error", err)
+		}
+		if rows > len(s) {
+			t.Fatalf("%d rows from %d bytes", rows, len(s))
+		}
+	})
+}

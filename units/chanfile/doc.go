@@ -1,0 +1,28 @@
+// Package chanfile reads and writes delimited text files of logged test
+// channels (CSV or TSV) whose header row carries each channel's name and
+// unit, as an acquisition system writes them:
+//
+//	# pump loop, run 12 (comment lines start with #)
+//	t [s], Q m3/h, P1 (kPa), T_in °F, Torque (in-lb), n [rpm]
+//	0.0, 41.2, 212.5, 68.0, 84.1, 1450
+//
+// A header field is a name followed by a unit in brackets ("V [kn]"), in
+// parentheses ("Torque (in-lb)"), or after the last space ("Q m3/h").
+// Units are read with the data-sheet dialect of package units
+// (units.ParseDialect), and every lenient reading is kept on the Column so
+// a reduced data set records its interpretation. A dimensionless channel
+// is written "Re [1]" or "Re [-]"; a name with no unit is refused rather
+// than taken as dimensionless. A gauge pressure channel (psig, barg,
+// kPa(g)) is refused unless a reference pressure is given in Options, in
+// which case it is read as absolute and the column says so.
+//
+// Values are read into quantity.Series in SI, chunk by chunk, so a file of
+// any length reduces in bounded memory. An empty field, NA, NaN or the
+// Options' missing marker is a missing value: it is held as NaN and
+// counted per column, never dropped. Every other field that is not a
+// finite number is an error that names the file, line and column.
+//
+// Writer writes Series back in chosen units with a header Reader reads
+// back, and numbers in the shortest form that reads back to the same
+// float64.
+package chanfile

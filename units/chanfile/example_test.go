@@ -1,0 +1,61 @@
+package chanfile_test
+
+import (
+	"fmt"
+	"os"
+	"strings"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/units"
+	"similis.dev/similis/units/chanfile"
+)
+
+// A towing-tank log (invented data) is read in SI with every lenient
+// reading of its header reported, and written back in chosen units.
+func Example() {
+	const log = `# towing tank, run 7 (invented data)
+t [s], V [kn], R_T (N), T_w °C, Torque (in-lb)
+0.0, 4.0, 41.8, 15.2, 12
+0.5, 4.1, , 15.2, 12.5
+`
+	r, err := chanfile.NewReader(strings.NewReader(log), "run7.csv", chanfile.Options{})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	s, n, err := r.Read(nil, 0)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	for j, c := range r.Columns() {
+		fmt.Printf("%-7s %-6s → SI %.6g, missing %d", c.Name, c.Text, s[j].Values(), c.Missing)
+		for _, rd := range c.Readings {
+			fmt.Printf("; %v", rd)
+		}
+		fmt.Println()
+	}
+	w, err := chanfile.NewWriter(os.Stdout, []chanfile.Column{
+		{Name: "V", Unit: units.MustParse("m/s")},
+		{Name: "R_T", Unit: units.MustParse("N")},
+	}, chanfile.Options{})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	if err := w.Write([]quantity.Series{s[1], s[2]}); err != nil {
+		fmt.Println(err)
+	}
+	w.Flush()
+	fmt.Println(n, "rows")
+	// Output:
+	// t       s      → SI [0 0.5], missing 0
+	// V       kn     → SI [2.05778 2.10922], missing 0
+	// R_T     N      → SI [41.8 NaN], missing 1
+	// T_w     °C     → SI [288.35 288.35], missing 0
+	// Torque  in-lb  → SI [1.35582 1.41231], missing 0; in-lb read as in*lbf (a torque: the pound is the pound-force)
+	// V [m/s],R_T [N]
+	// 2.057777777777778,41.8
+	// 2.1092222222222223,
+	// 2 rows
+}
