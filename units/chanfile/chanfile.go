@@ -3,8 +3,6 @@ package chanfile
 import (
 	"bufio"
 	"bytes"
-	"encoding/csv"
-	"errors"
 	"fmt"
 	"io"
 	"math"
@@ -160,14 +158,27 @@ func matchingOpen(s string) int {
 	return -1
 }
 
-// Reader reads a channel file chunk by chunk.
+// MaxLineLen bounds the length of one line in bytes.
+const MaxLineLen = 1 << 16
+
+// Reader reads a channel file chunk by chunk. Lines are split at the
+// delimiter; a field may be quoted ("Q, flow (m3/h)", with "" for a quote
+// inside), but a quoted field may not span lines. Lines starting with '#'
+// and blank lines are skipped; CR LF line ends and a UTF-8 byte-order
+// mark are accepted.
 type Reader struct {
 	name    string
 	opt     Options
-	cr      *csv.Reader
+	br      *bufio.Reader
+	comma   byte
 	cols    []Column
-	conv    []func(float64) float64
-	line    int // line of the last record read
+	mul     []float64 // SI = x·mul + add
+	add     []float64
+	missNum []byte      // Options.Missing when it reads as a number (-999)
+	line    int         // the last line read
+	fields  [][]byte    // reused
+	unq     []byte      // reused storage for unquoted fields
+	vals    [][]float64 // reused
 	missing map[string]bool
 	done    bool
 }
@@ -175,34 +186,39 @@ type Reader struct {
 // NewReader reads the comment lines and the header row of r; name is the
 // file's name for messages.
 func NewReader(r io.Reader, name string, opt Options) (*Reader, error) {
-	br := bufio.NewReaderSize(r, 1<<16)
+	br := bufio.NewReaderSize(r, MaxLineLen)
 	if b, err := br.Peek(3); err == nil && bytes.Equal(b, []byte("\xef\xbb\xbf")) {
 		br.Discard(3) // a UTF-8 byte-order mark
 	}
-	cr := csv.NewReader(br)
-	cr.Comment = '#'
-	cr.ReuseRecord = true
-	cr.TrimLeadingSpace = true
+	comma := byte(',')
 	if opt.Comma != 0 {
-		cr.Comma = opt.Comma
+		if opt.Comma >= 0x80 || opt.Comma == '"' || opt.Comma == '\n' || opt.Comma == '\r' || opt.Comma == '#' {
+			return nil, &Error{File: name, Reason: fmt.Sprintf("delimiter %q is not a single ASCII byte other than a quote, # or newline", opt.Comma)}
+		}
+		comma = byte(opt.Comma)
 	}
-	rd := &Reader{name: name, opt: opt, cr: cr, missing: map[string]bool{"": true, "NA": true, "NaN": true, "nan": true}}
+	rd := &Reader{name: name, opt: opt, br: br, comma: comma, missing: map[string]bool{"": true, "NA": true, "NaN": true, "nan": true}}
 	if opt.Missing != "" {
 		rd.missing[opt.Missing] = true
-	}
-	head, err := cr.Read()
-	if err != nil {
-		if err == io.EOF {
-			return nil, &Error{File: name, Line: 1, Reason: "no header row"}
+		if numStart(opt.Missing[0]) {
+			rd.missNum = []byte(opt.Missing)
 		}
-		return nil, rd.csvError(err)
 	}
-	line, _ := cr.FieldPos(0)
+	ok, err := rd.next()
+	if err != nil {
+		return nil, err
+	}
+	if !ok {
+		return nil, &Error{File: name, Line: max(rd.line, 1), Reason: "no header row"}
+	}
+	head := rd.fields
+	line := rd.line
 	if len(head) > MaxColumns {
 		return nil, &Error{File: name, Line: line, Reason: fmt.Sprintf("%d columns, more than %d", len(head), MaxColumns)}
 	}
 	seen := map[string]int{}
-	for i, f := range head {
+	for i, fb := range head {
+		f := string(fb)
 		c, err := ParseHeaderField(f)
 		if err != nil {
 			e := err.(*Error)
@@ -213,23 +229,113 @@ func NewReader(r io.Reader, name string, opt Options) (*Reader, error) {
 			return nil, &Error{File: name, Line: line, Column: i + 1, Field: f, Reason: fmt.Sprintf("channel %q is also column %d", c.Name, j+1)}
 		}
 		seen[c.Name] = i
-		u := c.Unit
-		conv := func(x float64) float64 { return u.Of(x).Value() }
+		// Unit.Of is x·factor + offset; the reader applies the same.
+		mul, add := c.Unit.Factor(), c.Unit.Offset()
 		if c.Gauge {
 			ref := opt.Reference
 			if ref.Dim() != quantity.Pressure || !(ref.Value() > 0) || math.IsInf(ref.Value(), 0) {
 				return nil, &Error{File: name, Line: line, Column: i + 1, Field: f, Reason: "a gauge pressure channel needs the absolute ambient pressure it was read against: set Options.Reference to the barometer reading (or units.StandardReference(), chosen explicitly)", Err: units.ErrGauge}
 			}
-			pa := ref.Value()
-			conv = func(x float64) float64 { return u.Of(x).Value() + pa }
+			add += ref.Value()
 			c.Unit = units.MustParse("Pa")
 		}
 		rd.cols = append(rd.cols, c)
-		rd.conv = append(rd.conv, conv)
+		rd.mul = append(rd.mul, mul)
+		rd.add = append(rd.add, add)
 	}
-	cr.FieldsPerRecord = len(head)
-	rd.line = line
 	return rd, nil
+}
+
+// next reads the next record into r.fields, skipping comments and blank
+// lines. It returns false at the end of the input.
+func (r *Reader) next() (bool, error) {
+	for {
+		b, err := r.br.ReadSlice('\n')
+		if err == bufio.ErrBufferFull {
+			r.line++
+			return false, &Error{File: r.name, Line: r.line, Reason: fmt.Sprintf("a line longer than %d bytes", MaxLineLen)}
+		}
+		if err != nil && err != io.EOF {
+			return false, &Error{File: r.name, Line: r.line + 1, Reason: "read failed", Err: err}
+		}
+		if len(b) == 0 && err == io.EOF {
+			return false, nil
+		}
+		r.line++
+		b = bytes.TrimSuffix(b, []byte{'\n'})
+		b = bytes.TrimSuffix(b, []byte{'\r'})
+		if len(b) == 0 || b[0] == '#' {
+			if err == io.EOF {
+				return false, nil
+			}
+			continue
+		}
+		return true, r.split(b)
+	}
+}
+
+// split splits one line into r.fields.
+func (r *Reader) split(b []byte) error {
+	r.fields = r.fields[:0]
+	if bytes.IndexByte(b, '"') < 0 {
+		for {
+			i := bytes.IndexByte(b, r.comma)
+			if i < 0 {
+				r.fields = append(r.fields, bytes.TrimSpace(b))
+				return nil
+			}
+			r.fields = append(r.fields, bytes.TrimSpace(b[:i]))
+			b = b[i+1:]
+		}
+	}
+	// Quoted fields: the slow path, with its own storage.
+	r.unq = r.unq[:0]
+	var ends []int
+	for {
+		b = bytes.TrimLeft(b, " \t")
+		if len(b) > 0 && b[0] == '"' {
+			i := 1
+			for {
+				j := bytes.IndexByte(b[i:], '"')
+				if j < 0 {
+					return &Error{File: r.name, Line: r.line, Column: len(ends) + 1, Reason: "a quoted field without its closing quote (a quoted field may not span lines)"}
+				}
+				r.unq = append(r.unq, b[i:i+j]...)
+				i += j + 1
+				if i < len(b) && b[i] == '"' {
+					r.unq = append(r.unq, '"')
+					i++
+					continue
+				}
+				break
+			}
+			rest := bytes.TrimLeft(b[i:], " \t")
+			if len(rest) > 0 && rest[0] != r.comma {
+				return &Error{File: r.name, Line: r.line, Column: len(ends) + 1, Reason: "text after the closing quote of a field"}
+			}
+			ends = append(ends, len(r.unq))
+			if len(rest) == 0 {
+				break
+			}
+			b = rest[1:]
+			continue
+		}
+		i := bytes.IndexByte(b, r.comma)
+		if i < 0 {
+			r.unq = append(r.unq, bytes.TrimSpace(b)...)
+			ends = append(ends, len(r.unq))
+			break
+		}
+		r.unq = append(r.unq, bytes.TrimSpace(b[:i])...)
+		ends = append(ends, len(r.unq))
+		b = b[i+1:]
+	}
+	start := 0
+	for _, e := range ends {
+		r.fields = append(r.fields, r.unq[start:e])
+		start = e
+	}
+	return nil
 }
 
 // Columns returns the channels of the file; their Missing counts grow as
@@ -248,44 +354,63 @@ func (r *Reader) Read(dst []quantity.Series, max int) ([]quantity.Series, int, e
 		dst = append(dst, quantity.Series{})
 	}
 	dst = dst[:len(r.cols)]
-	vals := make([][]float64, len(r.cols))
-	for j := range r.cols {
-		vals[j] = dst[j].Values()[:0]
+	if r.vals == nil {
+		r.vals = make([][]float64, len(r.cols))
 	}
+	for j := range r.cols {
+		r.vals[j] = dst[j].Values()[:0]
+	}
+	vals := r.vals
 	n := 0
+	var err error
 	for n < max && !r.done {
-		rec, err := r.cr.Read()
-		if err == io.EOF {
+		var ok bool
+		ok, err = r.next()
+		if err != nil || !ok {
 			r.done = true
 			break
 		}
-		if err != nil {
-			return dst, n, r.csvError(err)
+		if len(r.fields) != len(r.cols) {
+			err = &Error{File: r.name, Line: r.line, Reason: fmt.Sprintf("a row of %d fields, not the header's %d", len(r.fields), len(r.cols))}
+			r.done = true
+			break
 		}
-		line, _ := r.cr.FieldPos(0)
-		for j, f := range rec {
-			if len(f) > MaxFieldLen {
-				return dst, n, &Error{File: r.name, Line: line, Column: j + 1, Field: f[:32] + "…", Reason: "field too long"}
-			}
-			if r.missing[f] {
+		for j, f := range r.fields {
+			if len(f) == 0 || !numStart(f[0]) && r.missing[string(f)] || r.missNum != nil && bytes.Equal(f, r.missNum) {
 				vals[j] = append(vals[j], math.NaN())
 				r.cols[j].Missing++
 				continue
 			}
-			x, err := strconv.ParseFloat(f, 64)
-			if err != nil || math.IsInf(x, 0) || math.IsNaN(x) {
+			x, perr := strconv.ParseFloat(string(f), 64)
+			if perr != nil || math.IsInf(x, 0) || math.IsNaN(x) {
 				reason := "not a finite number"
-				if _, verr := units.ParseValue(f); verr == nil {
+				if _, verr := units.ParseValue(string(f)); verr == nil {
 					reason = "a value with a unit in a data row: the unit belongs in the header"
 				}
-				return dst, n, &Error{File: r.name, Line: line, Column: j + 1, Field: f, Reason: reason}
+				field := string(f)
+				if len(field) > 64 {
+					field = field[:64] + "…"
+				}
+				err = &Error{File: r.name, Line: r.line, Column: j + 1, Field: field, Reason: reason}
+				r.done = true
+				break
 			}
-			vals[j] = append(vals[j], r.conv[j](x))
+			vals[j] = append(vals[j], x*r.mul[j]+r.add[j])
+		}
+		if err != nil {
+			// The row in error is not part of the chunk.
+			for j := range vals {
+				vals[j] = vals[j][:min(len(vals[j]), n)]
+			}
+			break
 		}
 		n++
 	}
 	for j, c := range r.cols {
 		dst[j] = quantity.NewSeries(vals[j], c.Unit.Dim())
+	}
+	if err != nil {
+		return dst, n, err
 	}
 	if n == 0 && r.done {
 		return dst, 0, io.EOF
@@ -293,14 +418,6 @@ func (r *Reader) Read(dst []quantity.Series, max int) ([]quantity.Series, int, e
 	return dst, n, nil
 }
 
-func (r *Reader) csvError(err error) error {
-	var pe *csv.ParseError
-	if errors.As(err, &pe) {
-		reason := pe.Err.Error()
-		if errors.Is(pe.Err, csv.ErrFieldCount) {
-			reason = fmt.Sprintf("a row of a different number of fields than the header's %d", len(r.cols))
-		}
-		return &Error{File: r.name, Line: pe.Line, Column: pe.Column, Reason: reason}
-	}
-	return &Error{File: r.name, Line: r.line, Reason: "read failed", Err: err}
-}
+// numStart reports whether c can start a number; a missing marker that
+// does not (NA, NaN) is looked up only for fields that do not.
+func numStart(c byte) bool { return c >= '0' && c <= '9' || c == '-' || c == '+' || c == '.' }

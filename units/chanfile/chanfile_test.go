@@ -112,6 +112,35 @@ func TestReadByHand(t *testing.T) {
 	}
 }
 
+func TestMissingMarkers(t *testing.T) {
+	for _, tc := range []struct {
+		marker, text string
+		missing      int
+	}{
+		{"-999", "x [m]\n1\n-999\n-999.5\nNA\n\n", 2},
+		{"-", "x [m]\n1\n-\n-1\nnan\n", 2},
+		{"", "x [m]\n1\n NaN \n,\n", 0}, // the blank line is skipped; ",," is ragged
+	} {
+		r, err := chanfile.NewReader(strings.NewReader(tc.text), "m.csv", chanfile.Options{Missing: tc.marker})
+		if err != nil {
+			t.Fatal(err)
+		}
+		s, _, err := r.Read(nil, 0)
+		if tc.marker == "" {
+			if err == nil || !strings.Contains(err.Error(), "a row of 2 fields") {
+				t.Errorf("marker %q: %v, want a ragged-row error", tc.marker, err)
+			}
+			continue
+		}
+		if err != nil {
+			t.Fatalf("marker %q: %v", tc.marker, err)
+		}
+		if got := r.Columns()[0].Missing; got != tc.missing {
+			t.Errorf("marker %q: %d missing, want %d (%v)", tc.marker, got, tc.missing, s[0].Values())
+		}
+	}
+}
+
 func TestReadChunks(t *testing.T) {
 	var sb strings.Builder
 	sb.WriteString("x [m]\ty [s]\n")
@@ -156,14 +185,18 @@ func TestMalformed(t *testing.T) {
 		is           error
 	}{
 		{"empty", "", chanfile.Options{}, 1, 0, "no header", quantity.ErrParse},
-		{"comments only", "# a\n# b\n", chanfile.Options{}, 1, 0, "no header", quantity.ErrParse},
-		{"ragged", "a [m],b [m]\n1,2\n3\n", chanfile.Options{}, 3, 1, "number of fields", quantity.ErrParse},
+		{"comments only", "# a\n# b\n", chanfile.Options{}, 2, 0, "no header", quantity.ErrParse},
+		{"ragged", "a [m],b [m]\n1,2\n3\n", chanfile.Options{}, 3, 0, "a row of 1 fields, not the header's 2", quantity.ErrParse},
+		{"crlf ragged", "a [m],b [m]\r\n1,2\r\n3,4,5\r\n", chanfile.Options{}, 3, 0, "a row of 3 fields", quantity.ErrParse},
+		{"text after quote", "a [m],b [m]\n\"1\"x,2\n", chanfile.Options{}, 2, 1, "after the closing quote", quantity.ErrParse},
+		{"long line", "a [m]\n" + strings.Repeat("1", 1<<17) + "\n", chanfile.Options{}, 2, 0, "longer than", quantity.ErrParse},
+		{"bad delimiter", "a [m]\n1\n", chanfile.Options{Comma: '"'}, 0, 0, "delimiter", quantity.ErrParse},
 		{"unit in data", "V [kn]\n12 kn\n", chanfile.Options{}, 2, 1, "unit belongs in the header", quantity.ErrParse},
 		{"text in data", "V [kn]\n1\nabc\n", chanfile.Options{}, 3, 1, "not a finite number", quantity.ErrParse},
 		{"infinite", "V [kn]\n1e999\n", chanfile.Options{}, 2, 1, "not a finite number", quantity.ErrParse},
 		{"non-UTF-8 data", "V [kn]\n1\xff\n", chanfile.Options{}, 2, 1, "not a finite number", quantity.ErrParse},
 		{"non-UTF-8 header", "V [kn],\xff [m]\n1,2\n", chanfile.Options{}, 1, 2, "UTF-8", quantity.ErrParse},
-		{"bad quote", "a [m],b [m]\n1,\"2\n", chanfile.Options{}, 2, 0, "", quantity.ErrParse},
+		{"bad quote", "a [m],b [m]\n1,\"2\n", chanfile.Options{}, 2, 2, "may not span lines", quantity.ErrParse},
 		{"gauge without reference", "P1 psig\n12\n", chanfile.Options{}, 1, 1, "Options.Reference", units.ErrGauge},
 		{"duplicate", "V [kn],V [m/s]\n1,2\n", chanfile.Options{}, 1, 2, "also column 1", quantity.ErrParse},
 		{"no unit", "V,t [s]\n1,2\n", chanfile.Options{}, 1, 1, "dimensionless", quantity.ErrParse},
