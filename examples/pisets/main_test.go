@@ -83,6 +83,11 @@ func FuzzRun(f *testing.F) {
 		if rep != "" {
 			args = append(args, "-repeat", rep)
 		}
+		for _, a := range strings.Fields(vars) {
+			if strings.HasPrefix(a, "-data") || strings.HasPrefix(a, "-out") || strings.HasPrefix(a, "--data") || strings.HasPrefix(a, "--out") {
+				t.Skip("file flags are tested by TestReduceExitCodes; the fuzzer must not write files")
+			}
+		}
 		args = append(args, strings.Fields(vars)...)
 		var out, errb bytes.Buffer
 		switch code := run(args, &out, &errb); code {

@@ -384,7 +384,7 @@ func (r *Reader) Read(dst []quantity.Series, max int) ([]quantity.Series, int, e
 			x, perr := strconv.ParseFloat(string(f), 64)
 			if perr != nil || math.IsInf(x, 0) || math.IsNaN(x) {
 				reason := "not a finite number"
-				if _, verr := units.ParseValue(string(f)); verr == nil {
+				if withUnit(string(f)) {
 					reason = "a value with a unit in a data row: the unit belongs in the header"
 				}
 				field := string(f)
@@ -421,3 +421,20 @@ func (r *Reader) Read(dst []quantity.Series, max int) ([]quantity.Series, int, e
 // numStart reports whether c can start a number; a missing marker that
 // does not (NA, NaN) is looked up only for fields that do not.
 func numStart(c byte) bool { return c >= '0' && c <= '9' || c == '-' || c == '+' || c == '.' }
+
+// withUnit reports whether a field is a number and a unit (12 kn, 160
+// m3/h, 12kn), strict or as a data sheet writes it.
+func withUnit(f string) bool {
+	if _, err := units.ParseValue(f); err == nil {
+		return true
+	}
+	num, unit, ok := strings.Cut(strings.TrimSpace(f), " ")
+	if !ok {
+		return false
+	}
+	if _, err := strconv.ParseFloat(num, 64); err != nil {
+		return false
+	}
+	_, _, err := units.ParseDialect(strings.TrimSpace(unit))
+	return err == nil
+}

@@ -192,6 +192,7 @@ func TestMalformed(t *testing.T) {
 		{"long line", "a [m]\n" + strings.Repeat("1", 1<<17) + "\n", chanfile.Options{}, 2, 0, "longer than", quantity.ErrParse},
 		{"bad delimiter", "a [m]\n1\n", chanfile.Options{Comma: '"'}, 0, 0, "delimiter", quantity.ErrParse},
 		{"unit in data", "V [kn]\n12 kn\n", chanfile.Options{}, 2, 1, "unit belongs in the header", quantity.ErrParse},
+		{"dialect unit in data", "Q m3/h\n160 m3/h\n", chanfile.Options{}, 2, 1, "unit belongs in the header", quantity.ErrParse},
 		{"text in data", "V [kn]\n1\nabc\n", chanfile.Options{}, 3, 1, "not a finite number", quantity.ErrParse},
 		{"infinite", "V [kn]\n1e999\n", chanfile.Options{}, 2, 1, "not a finite number", quantity.ErrParse},
 		{"non-UTF-8 data", "V [kn]\n1\xff\n", chanfile.Options{}, 2, 1, "not a finite number", quantity.ErrParse},

@@ -1,0 +1,229 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"strings"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/units"
+	"similis.dev/similis/units/chanfile"
+	"similis.dev/similis/units/formula"
+)
+
+// dataError is a problem in the data file (exit 1), as opposed to a
+// usage error (exit 2).
+type dataError struct{ err error }
+
+func (e *dataError) Error() string { return e.err.Error() }
+func (e *dataError) Unwrap() error { return e.err }
+
+// reduceOptions are the flags of the data mode.
+type reduceOptions struct {
+	data, derive, baro string
+	stdAtm             bool
+}
+
+// reduce evaluates the Pi set of r over every row of the channel file:
+// each variable is the channel of its symbol's name or a derived channel
+// defined by the -derive formula text over the channels. The groups are
+// written to out as a channel file; a summary goes to log.
+func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
+	f, err := os.Open(opt.data)
+	if err != nil {
+		return &usageError{fmt.Sprintf("-data: %v", err)}
+	}
+	defer f.Close()
+	var ro chanfile.Options
+	if strings.HasSuffix(strings.ToLower(opt.data), ".tsv") {
+		ro.Comma = '\t'
+	}
+	switch {
+	case opt.baro != "" && opt.stdAtm:
+		return &usageError{"-baro and -std-atm: give one reference pressure"}
+	case opt.baro != "":
+		q, err := units.ParseQuantity(opt.baro)
+		if err != nil || q.Dim() != quantity.Pressure {
+			return &usageError{fmt.Sprintf("-baro %q: want an absolute pressure such as 1002hPa", opt.baro)}
+		}
+		ro.Reference = q
+	case opt.stdAtm:
+		ro.Reference = units.StandardReference()
+	}
+	rd, err := chanfile.NewReader(f, opt.data, ro)
+	var fe *chanfile.Error
+	if errors.Is(err, units.ErrGauge) && errors.As(err, &fe) {
+		return &usageError{fmt.Sprintf("%s:%d:%d: %q is a gauge pressure: give -baro with the barometer reading (as -baro 1002hPa), or -std-atm to use 101325 Pa as an explicit choice", fe.File, fe.Line, fe.Column, fe.Field)}
+	}
+	if err != nil {
+		return &dataError{err}
+	}
+	cols := rd.Columns()
+	byName := map[string]int{}
+	var inputs []formula.Input
+	for i, c := range cols {
+		byName[c.Name] = i
+		inputs = append(inputs, formula.Input{Name: c.Name, Dim: c.Unit.Dim()})
+	}
+	var prog *formula.Program
+	var ev *formula.Evaluator
+	derived := map[string]int{}
+	if opt.derive != "" {
+		if prog, err = formula.Compile(opt.derive, inputs...); err != nil {
+			return &usageError{fmt.Sprintf("-derive: %v", err)}
+		}
+		ev = prog.Evaluator()
+		for i, name := range prog.Outputs() {
+			derived[name] = i
+		}
+	}
+	// Where each variable comes from, with its dimension checked.
+	type source struct {
+		col, out int // a channel, or a derived output (col < 0)
+	}
+	vars := r.problem.Variables()
+	srcs := make([]source, len(vars))
+	for i, v := range vars {
+		if j, ok := byName[v.Symbol]; ok {
+			if d := cols[j].Unit.Dim(); d != v.Dim {
+				return &usageError{fmt.Sprintf("variable %s is %s, but channel %q of %s is %s", v.Symbol, quantity.Describe(v.Dim), v.Symbol, opt.data, quantity.Describe(d))}
+			}
+			srcs[i] = source{col: j}
+			continue
+		}
+		if k, ok := derived[v.Symbol]; ok {
+			if d := prog.Dim(k); d != v.Dim {
+				return &usageError{fmt.Sprintf("variable %s is %s, but -derive gives %s", v.Symbol, quantity.Describe(v.Dim), quantity.Describe(d))}
+			}
+			srcs[i] = source{col: -1, out: k}
+			continue
+		}
+		return &usageError{fmt.Sprintf("variable %s is neither a channel of %s nor defined by -derive (channels: %s)", v.Symbol, opt.data, channelNames(cols))}
+	}
+	set := r.set
+	gev := set.Evaluator()
+	groups := set.Groups()
+	outCols := make([]chanfile.Column, len(groups))
+	for g, gr := range groups {
+		outCols[g] = chanfile.Column{Name: gr.Name, Unit: units.One()}
+	}
+	w, err := chanfile.NewWriter(out, outCols, chanfile.Options{})
+	if err != nil {
+		return err
+	}
+	var (
+		chunk   []quantity.Series
+		progIn  []quantity.Series
+		progOut [][]float64
+		varCols = make([]quantity.Series, len(vars))
+		gbuf    = make([][]float64, len(groups))
+		gser    = make([]quantity.Series, len(groups))
+		rows    int
+	)
+	for {
+		var n int
+		chunk, n, err = rd.Read(chunk, 4096)
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			return &dataError{err}
+		}
+		if prog != nil {
+			progIn = progIn[:0]
+			for _, in := range prog.Inputs() {
+				progIn = append(progIn, chunk[byName[in.Name]])
+			}
+			if len(progOut) != len(prog.Outputs()) {
+				progOut = make([][]float64, len(prog.Outputs()))
+			}
+			for k := range progOut {
+				progOut[k] = grow(progOut[k], n)
+			}
+			if err := ev.Series(progIn, progOut); err != nil {
+				return &dataError{fmt.Errorf("%s: rows %d to %d: -derive: %w", opt.data, rows+1, rows+n, err)}
+			}
+		}
+		for i, s := range srcs {
+			if s.col >= 0 {
+				varCols[i] = chunk[s.col]
+			} else {
+				varCols[i] = quantity.NewSeries(progOut[s.out], prog.Dim(s.out))
+			}
+		}
+		for g := range gbuf {
+			gbuf[g] = grow(gbuf[g], n)
+		}
+		if err := gev.Series(varCols, gbuf); err != nil {
+			return &dataError{fmt.Errorf("%s: rows %d to %d: %w", opt.data, rows+1, rows+n, err)}
+		}
+		for g := range gbuf {
+			gser[g] = quantity.NewSeries(gbuf[g], 0)
+		}
+		if err := w.Write(gser); err != nil {
+			return err
+		}
+		rows += n
+	}
+	if err := w.Flush(); err != nil {
+		return err
+	}
+	if len(opt.derive) > 0 {
+		for _, line := range strings.Split(strings.TrimSpace(prog.Text()), "\n") {
+			fmt.Fprintf(log, "pisets: derived: %s\n", line)
+		}
+	}
+	fmt.Fprintf(log, "pisets: reduced %d rows of %s to %d groups:\n", rows, opt.data, len(groups))
+	for _, g := range groups {
+		fmt.Fprintf(log, "pisets:   %s = %s  (%s)\n", g.Name, g.Format(quantity.Unicode), g.Label())
+	}
+	for _, c := range cols {
+		for _, rdg := range c.Readings {
+			fmt.Fprintf(log, "pisets: channel %s: %v\n", c.Name, rdg)
+		}
+		if c.Gauge {
+			fmt.Fprintf(log, "pisets: channel %s: gauge (%s) read as absolute with the reference %g Pa\n", c.Name, c.Text, ro.Reference.Value())
+		}
+		if c.Missing > 0 {
+			fmt.Fprintf(log, "pisets: channel %s: %d missing %s (empty group fields in those rows)\n", c.Name, c.Missing, plural(c.Missing, "value", "values"))
+		}
+	}
+	fmt.Fprintln(log, "pisets: reduced test data only; a rating, an acceptance test or a design follows its standard and the engineer responsible")
+	return nil
+}
+
+func plural(n int, one, many string) string {
+	if n == 1 {
+		return one
+	}
+	return many
+}
+
+func grow(v []float64, n int) []float64 {
+	if cap(v) < n {
+		return make([]float64, n)
+	}
+	return v[:n]
+}
+
+func channelNames(cols []chanfile.Column) string {
+	s := ""
+	for i, c := range cols {
+		if i > 0 {
+			s += ", "
+		}
+		s += c.Name
+	}
+	return s
+}
+
+// exitCode maps an error of the data mode to the command's exit code.
+func exitCode(err error) int {
+	var de *dataError
+	if errors.As(err, &de) {
+		return 1
+	}
+	return 2
+}

@@ -1,0 +1,96 @@
+package main
+
+import (
+	"bytes"
+	"math"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+)
+
+var pumpArgs = []string{"-data", "testdata/pumploop.csv", "-baro", "1002hPa",
+	"-derive", "dp = P2 - P1; D = 0.25 [m]; rho = 998.2 [kg/m^3]",
+	"-dep", "dp", "-repeat", "n,D,rho", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}
+
+// TestReducePumpLoop reduces the invented pump-loop log and checks every
+// group value by hand: Π₁ = Δp/(ρn²D²) and Π₂ = Q/(nD³) with n in rad/s
+// (1 psi = 6894.757 Pa, NIST SP 811; 1 rpm = 2π/60 rad/s).
+func TestReducePumpLoop(t *testing.T) {
+	var out, errb bytes.Buffer
+	if code := run(pumpArgs, &out, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	const psi = 4.4482216152605 / (0.0254 * 0.0254)
+	rows := []struct{ q, p1, p2, rpm float64 }{
+		{180, 2.0, 38.0, 1450}, {160, 2.4, 41.5, 1450}, {140, 2.8, 44.1, 1451},
+		{120, 3.1, math.NaN(), 1450}, {100, 3.4, 47.6, 1449}, {80, 3.6, 48.9, 1450},
+	}
+	lines := strings.Split(strings.TrimSpace(out.String()), "\n")
+	if lines[0] != "Π₁ [1],Π₂ [1]" || len(lines) != len(rows)+1 {
+		t.Fatalf("output:\n%s", out.String())
+	}
+	for i, r := range rows {
+		n := r.rpm * 2 * math.Pi / 60
+		const d, rho = 0.25, 998.2
+		pi1 := (r.p2 - r.p1) * psi / (rho * n * n * d * d) // the barometer reading cancels
+		pi2 := r.q / 3600 / (n * d * d * d)
+		f := strings.Split(lines[i+1], ",")
+		if math.IsNaN(pi1) {
+			if f[0] != "" {
+				t.Errorf("row %d: Π₁ %q, want empty (P2 missing)", i+1, f[0])
+			}
+		} else if got, _ := strconv.ParseFloat(f[0], 64); math.Abs(got-pi1) > 1e-9*pi1 {
+			t.Errorf("row %d: Π₁ = %v, want %v", i+1, got, pi1)
+		}
+		if got, _ := strconv.ParseFloat(f[1], 64); math.Abs(got-pi2) > 1e-12*pi2 {
+			t.Errorf("row %d: Π₂ = %v, want %v", i+1, got, pi2)
+		}
+	}
+	for _, want := range []string{"reduced 6 rows", "Π₁ = dp/(n²·D²·rho)  (ψ_p/(4π²))", "Π₂ = Q/(n·D³)  (φ/(2π))",
+		"m3 read as m^3", "P1: gauge (psig) read as absolute with the reference 100200 Pa", "P2: 1 missing value ", "engineer responsible"} {
+		if !strings.Contains(errb.String(), want) {
+			t.Errorf("summary lacks %q:\n%s", want, errb.String())
+		}
+	}
+}
+
+// TestReduceExitCodes: 0 on success, 1 for bad data with the file, line
+// and column, 2 for bad usage.
+func TestReduceExitCodes(t *testing.T) {
+	dir := t.TempDir()
+	bad := filepath.Join(dir, "bad.csv")
+	if err := os.WriteFile(bad, []byte("Q m3/h,n [rpm]\n180,1450\n160 m3/h,1450\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	outFile := filepath.Join(dir, "groups.csv")
+	tests := []struct {
+		args []string
+		code int
+		says string
+	}{
+		{append([]string{"-out", outFile}, pumpArgs...), 0, ""},
+		{[]string{"-data", bad, "Q=m^3/s", "n=rad/s", "D=m"}, 2, "variable D is neither a channel"},
+		{[]string{"-data", bad, "-derive", "D = 0.25 [m]", "Q=m^3/s", "n=rad/s", "D=m"}, 1, "bad.csv:3:1: \"160 m3/h\": a value with a unit in a data row"},
+		{[]string{"-data", "testdata/pumploop.csv", "-derive", "dp = P2 - P1", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "give -baro"},
+		{[]string{"-data", "testdata/pumploop.csv", "-std-atm", "-derive", "dp = P2 - P1 + Q", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "cannot add pressure"},
+		{[]string{"-data", "testdata/pumploop.csv", "-std-atm", "-derive", "dp = P2; D = 0.25 [m]; rho = 998 [kg/m^3]", "dp=Pa*s", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "variable dp is dynamic viscosity"},
+		{[]string{"-data", "testdata/pumploop.csv", "-baro", "12kn", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "want an absolute pressure"},
+		{[]string{"-data", "testdata/pumploop.csv", "-baro", "1bar", "-std-atm", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "give one reference"},
+		{[]string{"-data", filepath.Join(dir, "none.csv"), "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "-data"},
+		{[]string{"-derive", "dp = P2 - P1", "Q=m^3/s"}, 2, "go with -data"},
+		{[]string{"-data", "testdata/pumploop.csv"}, 2, "needs the variables"},
+	}
+	for _, tc := range tests {
+		var out, errb bytes.Buffer
+		code := run(tc.args, &out, &errb)
+		if code != tc.code || !strings.Contains(errb.String(), tc.says) {
+			t.Errorf("pisets %s: exit %d, %q; want exit %d saying %q", strings.Join(tc.args, " "), code, errb.String(), tc.code, tc.says)
+		}
+	}
+	b, err := os.ReadFile(outFile)
+	if err != nil || !strings.HasPrefix(string(b), "Π₁ [1],Π₂ [1]\n") || strings.Count(string(b), "\n") != 7 {
+		t.Errorf("-out file: %q, %v", b, err)
+	}
+}
