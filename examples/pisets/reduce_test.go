@@ -94,3 +94,31 @@ func TestReduceExitCodes(t *testing.T) {
 		t.Errorf("-out file: %q, %v", b, err)
 	}
 }
+
+// TestReduceTankRun reduces the invented towing-tank log; by hand for the
+// 2.0 m/s row: R/(ρV²L²) = 47.9/(999.1·4·16) = 7.4911e-4, ν/(VL) =
+// 1.1385e-6/8 and gL/V² = 9.80665·4/4.
+func TestReduceTankRun(t *testing.T) {
+	var out, errb bytes.Buffer
+	args := []string{"-data", "testdata/tankrun.csv",
+		"-derive", "R = R_T; L = 4.0 [m]; rho = 999.1 [kg/m^3]; nu = 1.1385e-6 [m^2/s]; g = 9.80665 [m/s^2]",
+		"-dep", "R", "-repeat", "rho,V,L", "R=N@resistance", "V=m/s", "L=m", "rho=kg/m^3", "nu=m^2/s", "g=m/s^2"}
+	if code := run(args, &out, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	lines := strings.Split(strings.TrimSpace(out.String()), "\n")
+	if len(lines) != 6 || lines[0] != "Π₁ [1],Π₂ [1],Π₃ [1]" {
+		t.Fatalf("output:\n%s", out.String())
+	}
+	want := []float64{47.9 / (999.1 * 4 * 16), 1.1385e-6 / 8, 9.80665 * 4 / 4}
+	for k, f := range strings.Split(lines[3], ",") {
+		if got, _ := strconv.ParseFloat(f, 64); math.Abs(got-want[k]) > 1e-12*want[k] {
+			t.Errorf("row 3 group %d = %v, want %v", k+1, got, want[k])
+		}
+	}
+	for _, s := range []string{"(1/Re)", "(1/Fr²)", "reduced 5 rows"} {
+		if !strings.Contains(errb.String(), s) {
+			t.Errorf("summary lacks %q:\n%s", s, errb.String())
+		}
+	}
+}
