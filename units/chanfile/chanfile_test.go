@@ -292,6 +292,30 @@ func TestRoundTrip(t *testing.T) {
 	})
 }
 
+func TestWriterRefuses(t *testing.T) {
+	pa := units.MustParse("Pa")
+	for _, tc := range []struct {
+		cols []chanfile.Column
+		s    []quantity.Series
+		says string
+	}{
+		{[]chanfile.Column{{Name: "P1", Unit: pa, Gauge: true}}, nil, "gauge column"},
+		{[]chanfile.Column{{Unit: pa}}, nil, "without a name"},
+		{[]chanfile.Column{{Name: "P1", Unit: pa}}, []quantity.Series{quantity.NewSeries([]float64{1}, quantity.Velocity)}, "velocity"},
+		{[]chanfile.Column{{Name: "P1", Unit: pa}, {Name: "P2", Unit: pa}}, []quantity.Series{quantity.NewSeries([]float64{1}, quantity.Pressure), quantity.NewSeries([]float64{1, 2}, quantity.Pressure)}, "2 values"},
+		{[]chanfile.Column{{Name: "P1", Unit: pa}}, []quantity.Series{}, "0 series for 1 columns"},
+	} {
+		var buf bytes.Buffer
+		w, err := chanfile.NewWriter(&buf, tc.cols, chanfile.Options{})
+		if err == nil {
+			err = w.Write(tc.s)
+		}
+		if err == nil || !strings.Contains(err.Error(), tc.says) {
+			t.Errorf("%+v: error %v, want one saying %q", tc.cols, err, tc.says)
+		}
+	}
+}
+
 func FuzzHeaderField(f *testing.F) {
 	for _, s := range []string{"V [kn]", "Torque (in-lb)", "P1 psig", "T_in °F", "Q m3/h", "mu Pa.s", "Re [1]", "x ((", "[", "(g)", "a (g)", "\xff"} {
 		f.Add(s)

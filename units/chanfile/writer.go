@@ -40,6 +40,9 @@ func NewWriter(w io.Writer, cols []Column, opt Options) (*Writer, error) {
 		if c.Name == "" {
 			return nil, &Error{Column: i + 1, Reason: "a column without a name"}
 		}
+		if c.Gauge {
+			return nil, &Error{Column: i + 1, Field: c.Name, Reason: "a gauge column: the reader made it absolute; write it with Gauge false and its pressure unit"}
+		}
 		u := c.Unit.String()
 		if c.Unit.Equal(units.One()) {
 			u = "1"
