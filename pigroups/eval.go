@@ -225,14 +225,7 @@ func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
 					out[i] *= k
 				}
 			}
-			acc, zero := 0.0, false // x·0 is 0 for a finite x, NaN otherwise
-			for _, x := range out {
-				acc += x * 0
-				if x == 0 {
-					zero = true
-				}
-			}
-			bad = bad || zero || acc != 0
+			bad = bad || !allFiniteNonzero(out)
 		}
 	}
 	if !bad {
@@ -360,4 +353,25 @@ func product(buf []float64, cols []quantity.Series, terms []evTerm, lo int) {
 			}
 		}
 	}
+}
+
+// allFiniteNonzero reports whether every value of v is finite and not zero.
+// On the bits of |x|, a zero is 0 and a value that is not finite is at
+// least 0x7FF0…0, so |x|−1 wraps or reaches 0x7FEF…F exactly for those;
+// four running maxima keep the loop free of branches and of a long
+// dependency chain.
+func allFiniteNonzero(v []float64) bool {
+	const abs = 1<<63 - 1
+	var m0, m1, m2, m3 uint64
+	i := 0
+	for ; i+4 <= len(v); i += 4 {
+		m0 = max(m0, math.Float64bits(v[i])&abs-1)
+		m1 = max(m1, math.Float64bits(v[i+1])&abs-1)
+		m2 = max(m2, math.Float64bits(v[i+2])&abs-1)
+		m3 = max(m3, math.Float64bits(v[i+3])&abs-1)
+	}
+	for ; i < len(v); i++ {
+		m0 = max(m0, math.Float64bits(v[i])&abs-1)
+	}
+	return max(m0, m1, m2, m3) < 0x7FEFFFFFFFFFFFFF
 }
