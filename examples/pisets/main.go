@@ -33,6 +33,8 @@
 //	-baro P            the ambient pressure gauge channels were read against
 //	-std-atm           use 101325 Pa for it, an explicit choice
 //	-out FILE          write the groups there instead of standard output
+//	-format csv|jsonl  the groups as CSV (the default) or JSON lines,
+//	                   {"row":1,"Π₁":0.17,"Π₂":0.021}, null when missing
 //
 // With no variables it runs on a built-in invented problem (the bench test
 // of a flow restrictor). It exits 0 on success, 1 with the file, line and
@@ -119,6 +121,14 @@ func run(args []string, stdout, stderr io.Writer) int {
 	}
 	out.Invented = demo
 	if ro.data != "" {
+		switch *format {
+		case "text", "csv":
+		case "json", "jsonl":
+			ro.jsonl = true
+		default:
+			fmt.Fprintf(stderr, "pisets: -format %q with -data: want csv or jsonl\n", clean(*format))
+			return 2
+		}
 		w := stdout
 		if _, err := os.Stat(ro.data); err != nil {
 			fmt.Fprintln(stderr, "pisets: -data:", clean(err.Error()))

@@ -1,10 +1,14 @@
 package main
 
 import (
+	"bufio"
+	"encoding/json"
 	"errors"
 	"fmt"
 	"io"
+	"math"
 	"os"
+	"strconv"
 	"strings"
 
 	"similis.dev/similis/quantity"
@@ -24,7 +28,60 @@ func (e *dataError) Unwrap() error { return e.err }
 type reduceOptions struct {
 	data, derive, baro string
 	stdAtm             bool
+	jsonl              bool // JSON lines instead of CSV
 }
+
+// groupSink writes the groups of each chunk.
+type groupSink interface {
+	Write([]quantity.Series) error
+	Flush() error
+}
+
+// jsonLines writes one JSON object per row: {"row":1,"Π₁":0.17,...},
+// with null for a missing value.
+type jsonLines struct {
+	w    *bufio.Writer
+	keys [][]byte // `,"Π₁":`
+	row  int
+	line []byte
+}
+
+func newJSONLines(out io.Writer, names []string) *jsonLines {
+	j := &jsonLines{w: bufio.NewWriterSize(out, 1<<16)}
+	for _, n := range names {
+		k, _ := json.Marshal(n)
+		j.keys = append(j.keys, append(append([]byte{','}, k...), ':'))
+	}
+	return j
+}
+
+func (j *jsonLines) Write(s []quantity.Series) error {
+	n := 0
+	if len(s) > 0 {
+		n = s[0].Len()
+	}
+	for i := 0; i < n; i++ {
+		j.row++
+		b := append(j.line[:0], `{"row":`...)
+		b = strconv.AppendInt(b, int64(j.row), 10)
+		for g, k := range j.keys {
+			b = append(b, k...)
+			if x := s[g].Values()[i]; math.IsNaN(x) || math.IsInf(x, 0) {
+				b = append(b, "null"...)
+			} else {
+				b = strconv.AppendFloat(b, x, 'g', -1, 64)
+			}
+		}
+		b = append(b, "}\n"...)
+		j.line = b
+		if _, err := j.w.Write(b); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+func (j *jsonLines) Flush() error { return j.w.Flush() }
 
 // reduce evaluates the Pi set of r over every row of the channel file:
 // each variable is the channel of its symbol's name or a derived channel
@@ -109,8 +166,14 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	for g, gr := range groups {
 		outCols[g] = chanfile.Column{Name: gr.Name, Unit: units.One()}
 	}
-	w, err := chanfile.NewWriter(out, outCols, chanfile.Options{})
-	if err != nil {
+	var w groupSink
+	if opt.jsonl {
+		names := make([]string, len(groups))
+		for g, gr := range groups {
+			names[g] = gr.Name
+		}
+		w = newJSONLines(out, names)
+	} else if w, err = chanfile.NewWriter(out, outCols, chanfile.Options{}); err != nil {
 		return err
 	}
 	var (

@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"encoding/json"
 	"math"
 	"os"
 	"path/filepath"
@@ -120,5 +121,46 @@ func TestReduceTankRun(t *testing.T) {
 		if !strings.Contains(errb.String(), s) {
 			t.Errorf("summary lacks %q:\n%s", s, errb.String())
 		}
+	}
+}
+
+// TestReduceJSONLines: -format jsonl writes the same numbers as the CSV,
+// one object per row, null where a value is missing.
+func TestReduceJSONLines(t *testing.T) {
+	var csvOut, jsonOut, errb bytes.Buffer
+	if code := run(pumpArgs, &csvOut, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	if code := run(append([]string{"-format", "jsonl"}, pumpArgs...), &jsonOut, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	csvLines := strings.Split(strings.TrimSpace(csvOut.String()), "\n")[1:]
+	jsonLines := strings.Split(strings.TrimSpace(jsonOut.String()), "\n")
+	if len(jsonLines) != len(csvLines) {
+		t.Fatalf("%d JSON lines, %d CSV rows", len(jsonLines), len(csvLines))
+	}
+	for i, l := range jsonLines {
+		var row map[string]*float64
+		if err := json.Unmarshal([]byte(l), &row); err != nil {
+			t.Fatalf("line %d %q: %v", i+1, l, err)
+		}
+		if r := row["row"]; r == nil || *r != float64(i+1) {
+			t.Errorf("line %d: row %v", i+1, r)
+		}
+		for k, f := range strings.Split(csvLines[i], ",") {
+			v := row[[]string{"Π₁", "Π₂"}[k]]
+			if f == "" {
+				if v != nil {
+					t.Errorf("line %d group %d: %v, want null", i+1, k+1, *v)
+				}
+				continue
+			}
+			if want, _ := strconv.ParseFloat(f, 64); v == nil || *v != want {
+				t.Errorf("line %d group %d: %v, want %v", i+1, k+1, v, want)
+			}
+		}
+	}
+	if code := run(append([]string{"-format", "xml"}, pumpArgs...), &jsonOut, &errb); code != 2 || !strings.Contains(errb.String(), "want csv or jsonl") {
+		t.Errorf("-format xml: exit %d, %s", code, errb.String())
 	}
 }
