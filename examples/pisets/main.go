@@ -33,6 +33,9 @@
 //	-baro P            the ambient pressure gauge channels were read against
 //	-std-atm           use 101325 Pa for it, an explicit choice
 //	-out FILE          write the groups there instead of standard output
+//	-fit               fit the dependent group as a power law of the others
+//	                   (intervals, R², range of validity, on standard error)
+//	-plot FILE         with -fit and two groups: a .png or .svg of rows and fit
 //	-format csv|jsonl  the groups as CSV (the default) or JSON lines,
 //	                   {"row":1,"Π₁":0.17,"Π₂":0.021}, null when missing
 //
@@ -49,6 +52,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"path/filepath"
 	"strconv"
 	"strings"
 	"unicode"
@@ -80,6 +84,8 @@ func run(args []string, stdout, stderr io.Writer) int {
 	fs.StringVar(&ro.derive, "derive", "", "formula text defining derived channels, as 'dp = P1 - P2; D = 0.25 [m]'")
 	fs.StringVar(&ro.baro, "baro", "", "the absolute ambient pressure gauge channels were read against, as 1002hPa")
 	fs.BoolVar(&ro.stdAtm, "std-atm", false, "read gauge channels against the standard atmosphere (101325 Pa), an explicit choice")
+	fs.BoolVar(&ro.fit, "fit", false, "with -data: fit the dependent group as a power law of the others, with 95 % intervals")
+	fs.StringVar(&ro.plot, "plot", "", "with -data -fit and two groups: draw the rows and the fit to a .png or .svg file")
 	outPath := fs.String("out", "", "with -data: write the groups to this file instead of standard output")
 	if err := fs.Parse(args); err != nil {
 		if errors.Is(err, flag.ErrHelp) {
@@ -104,9 +110,19 @@ func run(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, "pisets: -data needs the variables of the problem (pisets -data loop.csv -dep dp dp=Pa Q=m^3/s ...)")
 		return 2
 	}
-	if ro.data == "" && (ro.derive != "" || ro.baro != "" || ro.stdAtm || *outPath != "") {
-		fmt.Fprintln(stderr, "pisets: -derive, -baro, -std-atm and -out go with -data")
+	if ro.data == "" && (ro.derive != "" || ro.baro != "" || ro.stdAtm || *outPath != "" || ro.fit || ro.plot != "") {
+		fmt.Fprintln(stderr, "pisets: -derive, -baro, -std-atm, -out, -fit and -plot go with -data")
 		return 2
+	}
+	if ro.plot != "" {
+		if !ro.fit {
+			fmt.Fprintln(stderr, "pisets: -plot draws the fit: give -fit too")
+			return 2
+		}
+		if ext := strings.ToLower(filepath.Ext(ro.plot)); ext != ".png" && ext != ".svg" {
+			fmt.Fprintf(stderr, "pisets: -plot %s: want a .png or .svg file\n", clean(strconv.Quote(ro.plot)))
+			return 2
+		}
 	}
 	if len(vars) == 0 {
 		vars, demo = builtin, true

@@ -28,7 +28,9 @@ func (e *dataError) Unwrap() error { return e.err }
 type reduceOptions struct {
 	data, derive, baro string
 	stdAtm             bool
-	jsonl              bool // JSON lines instead of CSV
+	jsonl              bool   // JSON lines instead of CSV
+	fit                bool   // fit the first group as a power law of the others
+	plot               string // a .png or .svg file for the fit
 }
 
 // groupSink writes the groups of each chunk.
@@ -166,6 +168,16 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	for g, gr := range groups {
 		outCols[g] = chanfile.Column{Name: gr.Name, Unit: units.One()}
 	}
+	var fits *fitRows
+	if opt.fit {
+		if len(groups) < 2 {
+			return &usageError{"-fit needs at least two groups"}
+		}
+		fits = &fitRows{}
+	}
+	if opt.plot != "" && len(groups) != 2 {
+		return &usageError{fmt.Sprintf("-plot draws one group against one other; this set has %d groups", len(groups))}
+	}
 	var w groupSink
 	if opt.jsonl {
 		names := make([]string, len(groups))
@@ -228,6 +240,11 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 		if err := w.Write(gser); err != nil {
 			return err
 		}
+		if fits != nil {
+			if err := fits.add(gbuf, n); err != nil {
+				return err
+			}
+		}
 		rows += n
 	}
 	if err := w.Flush(); err != nil {
@@ -251,6 +268,18 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 		}
 		if c.Missing > 0 {
 			fmt.Fprintf(log, "pisets: channel %s: %d missing %s (empty group fields in those rows)\n", c.Name, c.Missing, plural(c.Missing, "value", "values"))
+		}
+	}
+	if fits != nil {
+		law, err := reportFit(fits, groups, log)
+		if err != nil {
+			return err
+		}
+		if opt.plot != "" {
+			if err := plotFit(opt.plot, fits, law, groups, opt.data); err != nil {
+				return &usageError{fmt.Sprintf("-plot: %v", err)}
+			}
+			fmt.Fprintf(log, "pisets: plot written to %s\n", opt.plot)
 		}
 	}
 	fmt.Fprintln(log, "pisets: reduced test data only; a rating, an acceptance test or a design follows its standard and the engineer responsible")

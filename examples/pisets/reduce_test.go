@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"fmt"
 	"math"
 	"os"
 	"path/filepath"
@@ -162,5 +163,62 @@ func TestReduceJSONLines(t *testing.T) {
 	}
 	if code := run(append([]string{"-format", "xml"}, pumpArgs...), &jsonOut, &errb); code != 2 || !strings.Contains(errb.String(), "want csv or jsonl") {
 		t.Errorf("-format xml: exit %d, %s", code, errb.String())
+	}
+}
+
+// TestReduceFitAndPlot: -fit reports the power law that a simple
+// least-squares line through (ln Π₂, ln Π₁) of the hand-computed rows
+// gives (the row with P2 missing excluded and counted), and -plot writes
+// a PNG and an SVG.
+func TestReduceFitAndPlot(t *testing.T) {
+	const psi = 4.4482216152605 / (0.0254 * 0.0254)
+	rows := []struct{ q, p1, p2, rpm float64 }{
+		{180, 2.0, 38.0, 1450}, {160, 2.4, 41.5, 1450}, {140, 2.8, 44.1, 1451},
+		{100, 3.4, 47.6, 1449}, {80, 3.6, 48.9, 1450},
+	}
+	var sx, sy, sxx, sxy float64
+	for _, r := range rows {
+		n := r.rpm * 2 * math.Pi / 60
+		x := math.Log(r.q / 3600 / (n * 0.25 * 0.25 * 0.25))
+		y := math.Log((r.p2 - r.p1) * psi / (998.2 * n * n * 0.25 * 0.25))
+		sx, sy, sxx, sxy = sx+x, sy+y, sxx+x*x, sxy+x*y
+	}
+	k := float64(len(rows))
+	a := (k*sxy - sx*sy) / (k*sxx - sx*sx)
+	c := math.Exp((sy - a*sx) / k)
+	dir := t.TempDir()
+	for _, ext := range []string{".png", ".svg"} {
+		path := filepath.Join(dir, "fit"+ext)
+		var out, errb bytes.Buffer
+		if code := run(append([]string{"-fit", "-plot", path}, pumpArgs...), &out, &errb); code != 0 {
+			t.Fatalf("exit %d: %s", code, errb.String())
+		}
+		want := fmt.Sprintf("5 rows, 1 excluded as not positive or missing): Π₁ = %.6g·Π₂^%.4g", c, a)
+		if !strings.Contains(errb.String(), want) || !strings.Contains(errb.String(), "at 95 %") {
+			t.Errorf("summary lacks %q:\n%s", want, errb.String())
+		}
+		b, err := os.ReadFile(path)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if ext == ".png" && !bytes.HasPrefix(b, []byte("\x89PNG")) || ext == ".svg" && !bytes.Contains(b[:min(len(b), 512)], []byte("<svg")) {
+			t.Errorf("%s is not a %s file: %q", path, ext, b[:min(len(b), 16)])
+		}
+	}
+	for _, tc := range []struct {
+		args []string
+		says string
+	}{
+		{append([]string{"-plot", filepath.Join(dir, "x.png")}, pumpArgs...), "give -fit too"},
+		{append([]string{"-fit", "-plot", filepath.Join(dir, "x.jpg")}, pumpArgs...), "want a .png or .svg"},
+		{[]string{"-fit", "Q=m^3/s", "n=rad/s", "D=m"}, "go with -data"},
+		{[]string{"-fit", "-plot", filepath.Join(dir, "t.png"), "-data", "testdata/tankrun.csv",
+			"-derive", "R = R_T; L = 4.0 [m]; rho = 999.1 [kg/m^3]; nu = 1.1385e-6 [m^2/s]; g = 9.80665 [m/s^2]",
+			"-dep", "R", "-repeat", "rho,V,L", "R=N", "V=m/s", "L=m", "rho=kg/m^3", "nu=m^2/s", "g=m/s^2"}, "this set has 3 groups"},
+	} {
+		var out, errb bytes.Buffer
+		if code := run(tc.args, &out, &errb); code != 2 || !strings.Contains(errb.String(), tc.says) {
+			t.Errorf("pisets %s: exit %d, %q; want 2 saying %q", strings.Join(tc.args, " "), code, errb.String(), tc.says)
+		}
 	}
 }
