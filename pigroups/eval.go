@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 
+	"similis.dev/similis/internal/exact"
 	"similis.dev/similis/quantity"
 )
 
@@ -101,28 +102,9 @@ func (e *EvalError) Is(target error) bool {
 	return false
 }
 
-func powInt(x float64, n int) float64 {
-	switch n {
-	case 1:
-		return x
-	case 2:
-		return x * x
-	case 3:
-		return x * x * x
-	case 4:
-		x2 := x * x
-		return x2 * x2
-	}
-	r := 1.0
-	for range n {
-		r *= x
-	}
-	return r
-}
-
 func factor(x float64, t evTerm) float64 {
 	if t.n > 0 {
-		return powInt(x, t.n)
+		return exact.PowNat(x, t.n)
 	}
 	return math.Pow(x, t.exp)
 }

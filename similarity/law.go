@@ -3,6 +3,7 @@ package similarity
 import (
 	"math"
 
+	"similis.dev/similis/internal/exact"
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 )
@@ -49,7 +50,7 @@ func (l Law) Eval(free map[string]float64) float64 {
 		}
 		switch {
 		case t.Exp.IsInt():
-			v *= powInt(x, t.Exp.Num())
+			v *= exact.PowInt(x, int(t.Exp.Num()))
 		default:
 			v *= math.Pow(x, t.Exp.Float())
 		}
@@ -62,22 +63,6 @@ func (l Law) Eval(free map[string]float64) float64 {
 		return math.Exp(lv)
 	}
 	return v
-}
-
-// powInt returns x^n by repeated squaring, exact when the products are.
-func powInt(x float64, n int64) float64 {
-	if n < 0 {
-		return 1 / powInt(x, -n)
-	}
-	r := 1.0
-	for n > 0 {
-		if n&1 == 1 {
-			r *= x
-		}
-		x *= x
-		n >>= 1
-	}
-	return r
 }
 
 // String writes the law with λ for ratios: "λ_L^(1/2)", "λ_ρ·λ_L³", "1".

@@ -1,6 +1,10 @@
 package formula
 
-import "math"
+import (
+	"math"
+
+	"similis.dev/similis/internal/exact"
+)
 
 // Gradient evaluates the program for one row of input values, in SI in
 // the order of the inputs, writes the results into out, and writes into
@@ -80,7 +84,7 @@ func derivative(o op, a, b, v, da float64, dbs []float64, k int, r, dregs []floa
 		if o.n == 0 {
 			return 0
 		}
-		return float64(o.n) * powInt(a, o.n-1) * da
+		return float64(o.n) * exact.PowInt(a, o.n-1) * da
 	case opPow:
 		return o.k * math.Pow(a, o.k-1) * da
 	case opPowX:

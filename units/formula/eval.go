@@ -5,6 +5,7 @@ import (
 	"math"
 	"strings"
 
+	"similis.dev/similis/internal/exact"
 	"similis.dev/similis/quantity"
 )
 
@@ -138,7 +139,7 @@ func scalar(o op, r []float64) float64 {
 	case opDiv:
 		return a / b
 	case opPowInt:
-		return powInt(a, o.n)
+		return exact.PowInt(a, o.n)
 	case opPow:
 		return math.Pow(a, o.k)
 	case opPowX:
@@ -198,21 +199,6 @@ func scalar(o op, r []float64) float64 {
 		return r[o.c]
 	}
 	return math.NaN()
-}
-
-func powInt(x float64, n int) float64 {
-	if n < 0 {
-		return 1 / powInt(x, -n)
-	}
-	r := 1.0
-	for n > 0 {
-		if n&1 == 1 {
-			r *= x
-		}
-		x *= x
-		n >>= 1
-	}
-	return r
 }
 
 // Series evaluates the program over whole columns, one Series per input
@@ -308,7 +294,7 @@ func vector(o op, v [][]float64, m int) {
 			}
 		default:
 			for i, x := range a {
-				d[i] = powInt(x, o.n)
+				d[i] = exact.PowInt(x, o.n)
 			}
 		}
 	case opPow:
