@@ -152,6 +152,9 @@ func (g Gauge) check() error {
 	if g.Unit.Dim() != quantity.Pressure {
 		return &GaugeError{Input: g.String(), Reason: fmt.Sprintf("the unit of a gauge level must be a pressure, not %s", quantity.Describe(g.Unit.Dim()))}
 	}
+	if math.IsNaN(g.Number) || math.IsInf(g.Number, 0) {
+		return &GaugeError{Input: g.String(), Reason: "the gauge level is not a finite number"}
+	}
 	return nil
 }
 
@@ -179,12 +182,17 @@ func (g Gauge) Absolute(reference quantity.Quantity) (quantity.Quantity, error) 
 
 // GaugeOf returns the gauge level of the absolute pressure p against the
 // reference, in unit u: the reading a gauge vented to that ambient gives.
+// p must be finite and not below vacuum, the reference finite and
+// positive.
 func GaugeOf(p, reference quantity.Quantity, u Unit) (Gauge, error) {
 	if p.Dim() != quantity.Pressure || reference.Dim() != quantity.Pressure || u.Dim() != quantity.Pressure {
 		return Gauge{}, &GaugeError{Input: fmt.Sprint(p), Reason: "the absolute pressure, the reference and the unit must all be pressures"}
 	}
 	if r := reference.Value(); !(r > 0) || math.IsInf(r, 0) {
 		return Gauge{}, &GaugeError{Input: fmt.Sprint(p), Reason: fmt.Sprintf("the reference %g Pa is not a finite positive absolute pressure", r)}
+	}
+	if v := p.Value(); !(v >= 0) || math.IsInf(v, 0) {
+		return Gauge{}, &GaugeError{Input: fmt.Sprint(p), Reason: fmt.Sprintf("the absolute pressure %g Pa is not finite and at or above vacuum", v)}
 	}
 	x, err := u.ValueOf(quantity.New(p.Value()-reference.Value(), quantity.Pressure))
 	if err != nil {

@@ -89,6 +89,11 @@ func TestGaugeAbsolute(t *testing.T) {
 	if _, err := (units.Gauge{Number: 1, Unit: units.MustParse("m")}).Sub(g); !errors.Is(err, units.ErrGauge) {
 		t.Errorf("Sub of a gauge level in metres: %v, want ErrGauge", err)
 	}
+	for _, p := range []float64{math.Inf(1), math.NaN(), -1} {
+		if _, err := units.GaugeOf(quantity.New(p, quantity.Pressure), units.StandardReference(), units.MustParse("kPa")); !errors.Is(err, units.ErrGauge) {
+			t.Errorf("GaugeOf(%v Pa): %v, want ErrGauge", p, err)
+		}
+	}
 	if std := units.StandardReference(); std.Value() != 101325 || std.Dim() != quantity.Pressure {
 		t.Errorf("StandardReference = %v, want 101325 Pa (ISO 2533)", std)
 	}
@@ -110,11 +115,15 @@ func TestGaugeAbsolute(t *testing.T) {
 		{"12.5 psig", quantity.New(math.NaN(), quantity.Pressure), "not a finite positive"},
 		{"-120 kPa(g)", units.StandardReference(), "below vacuum"},
 		{"", units.StandardReference(), "must be a pressure"}, // a Gauge built by hand in metres
+		{"NaN", units.StandardReference(), "not a finite number"},
 	} {
 		var err error
-		if tc.g == "" {
+		switch tc.g {
+		case "":
 			_, err = units.Gauge{Number: 3, Unit: units.MustParse("m")}.Absolute(tc.ref)
-		} else {
+		case "NaN":
+			_, err = units.Gauge{Number: math.NaN(), Unit: units.MustParse("kPa")}.Absolute(tc.ref)
+		default:
 			_, err = units.MustParseGauge(tc.g).Absolute(tc.ref)
 		}
 		if !errors.Is(err, units.ErrGauge) || !errors.Is(err, quantity.ErrInvalid) || !strings.Contains(err.Error(), tc.say) {

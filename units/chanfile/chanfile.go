@@ -342,13 +342,13 @@ func (r *Reader) split(b []byte) error {
 // chunks are read.
 func (r *Reader) Columns() []Column { return r.cols }
 
-// Read reads up to max rows into dst, one Series per column in SI (dst is
-// grown to the number of columns and its storage reused), and returns the
-// number of rows read. It returns io.EOF with 0 rows at the end of the
+// Read reads up to rows rows (4096 if rows is not positive) into dst,
+// one Series per column in SI (dst is grown to the number of columns and
+// its storage reused), and returns the number of rows read. It returns io.EOF with 0 rows at the end of the
 // file. A gauge column is absolute: its level plus Options.Reference.
-func (r *Reader) Read(dst []quantity.Series, max int) ([]quantity.Series, int, error) {
-	if max <= 0 {
-		max = 4096
+func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, error) {
+	if rows <= 0 {
+		rows = 4096
 	}
 	for len(dst) < len(r.cols) {
 		dst = append(dst, quantity.Series{})
@@ -363,7 +363,7 @@ func (r *Reader) Read(dst []quantity.Series, max int) ([]quantity.Series, int, e
 	vals := r.vals
 	n := 0
 	var err error
-	for n < max && !r.done {
+	for n < rows && !r.done {
 		var ok bool
 		ok, err = r.next()
 		if err != nil || !ok {

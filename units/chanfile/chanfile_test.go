@@ -304,6 +304,7 @@ func TestWriterRefuses(t *testing.T) {
 		{[]chanfile.Column{{Name: "P1", Unit: pa}}, []quantity.Series{quantity.NewSeries([]float64{1}, quantity.Velocity)}, "velocity"},
 		{[]chanfile.Column{{Name: "P1", Unit: pa}, {Name: "P2", Unit: pa}}, []quantity.Series{quantity.NewSeries([]float64{1}, quantity.Pressure), quantity.NewSeries([]float64{1, 2}, quantity.Pressure)}, "2 values"},
 		{[]chanfile.Column{{Name: "P1", Unit: pa}}, []quantity.Series{}, "0 series for 1 columns"},
+		{[]chanfile.Column{{Name: "P1", Unit: pa}}, []quantity.Series{quantity.NewSeries([]float64{1, math.Inf(1)}, quantity.Pressure)}, "an infinite value"},
 	} {
 		var buf bytes.Buffer
 		w, err := chanfile.NewWriter(&buf, tc.cols, chanfile.Options{})

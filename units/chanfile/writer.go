@@ -30,8 +30,8 @@ type Writer struct {
 func NewWriter(w io.Writer, cols []Column, opt Options) (*Writer, error) {
 	comma := byte(',')
 	if opt.Comma != 0 {
-		if opt.Comma >= 0x80 || opt.Comma == '"' || opt.Comma == '\n' || opt.Comma == '\r' {
-			return nil, &Error{Reason: fmt.Sprintf("delimiter %q is not a single ASCII byte other than a quote or newline", opt.Comma)}
+		if opt.Comma >= 0x80 || opt.Comma == '"' || opt.Comma == '\n' || opt.Comma == '\r' || opt.Comma == '#' {
+			return nil, &Error{Reason: fmt.Sprintf("delimiter %q is not a single ASCII byte other than a quote, # or newline", opt.Comma)}
 		}
 		comma = byte(opt.Comma)
 	}
@@ -92,6 +92,9 @@ func (w *Writer) Write(s []quantity.Series) error {
 			q := s[j].At(i)
 			if math.IsNaN(q.Value()) {
 				continue
+			}
+			if math.IsInf(q.Value(), 0) {
+				return &Error{Line: w.line + 1, Column: j + 1, Reason: fmt.Sprintf("an infinite value in column %q: a file holds finite numbers or missing ones", c.Name)}
 			}
 			x, err := c.Unit.ValueOf(q)
 			if err != nil {
