@@ -28,7 +28,8 @@
 //	    -derive 'dp = P2 - P1; D = 0.25 [m]; rho = 998.2 [kg/m^3]' \
 //	    -dep dp -repeat n,D,rho dp=Pa Q=m^3/s n=rad/s D=m rho=kg/m^3
 //
-//	-data FILE         a channel file to reduce (CSV; TSV if it ends in .tsv)
+//	-data FILE         a channel file to reduce (CSV; TSV if it ends in .tsv;
+//	                   Parquet, units in its metadata, if it ends in .parquet)
 //	-derive TEXT       derived channels, as 'dp = P2 - P1'
 //	-baro P            the ambient pressure gauge channels were read against
 //	-std-atm           use 101325 Pa for it, an explicit choice
@@ -36,8 +37,13 @@
 //	-fit               fit the dependent group as a power law of the others
 //	                   (intervals, R², range of validity, on standard error)
 //	-plot FILE         with -fit and two groups: a .png or .svg of rows and fit
-//	-format csv|jsonl  the groups as CSV (the default) or JSON lines,
-//	                   {"row":1,"Π₁":0.17,"Π₂":0.021}, null when missing
+//	-format csv|jsonl|parquet
+//	                   the groups as CSV (the default), JSON lines
+//	                   ({"row":1,"Π₁":0.17,"Π₂":0.021}, null when missing)
+//	                   or Parquet (with -out; implied by -out x.parquet)
+//
+// On a terminal, a long file (over 4 MiB of text or 10⁵ Parquet rows)
+// shows a progress bar on standard error, cleared when the file is done.
 //
 // With no variables it runs on a built-in invented problem (the bench test
 // of a flow restrictor). It exits 0 on success, 1 with the file, line and
@@ -137,12 +143,21 @@ func run(args []string, stdout, stderr io.Writer) int {
 	}
 	out.Invented = demo
 	if ro.data != "" {
+		toParquet := strings.EqualFold(filepath.Ext(*outPath), ".parquet")
 		switch *format {
-		case "text", "csv":
+		case "text":
+			ro.parquet = toParquet
+		case "csv":
 		case "json", "jsonl":
 			ro.jsonl = true
+		case "parquet":
+			ro.parquet = true
 		default:
-			fmt.Fprintf(stderr, "pisets: -format %q with -data: want csv or jsonl\n", clean(*format))
+			fmt.Fprintf(stderr, "pisets: -format %q with -data: want csv, jsonl or parquet\n", clean(*format))
+			return 2
+		}
+		if ro.parquet && *outPath == "" {
+			fmt.Fprintln(stderr, "pisets: -format parquet writes a file: give -out groups.parquet")
 			return 2
 		}
 		w := stdout

@@ -10,10 +10,15 @@ import (
 	"os"
 	"strconv"
 	"strings"
+	"time"
+
+	"github.com/schollz/progressbar/v3"
+	"golang.org/x/term"
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
 	"similis.dev/similis/units/chanfile"
+	"similis.dev/similis/units/chanfile/parquetfile"
 	"similis.dev/similis/units/formula"
 )
 
@@ -29,6 +34,7 @@ type reduceOptions struct {
 	data, derive, baro string
 	stdAtm             bool
 	jsonl              bool   // JSON lines instead of CSV
+	parquet            bool   // Parquet instead of CSV
 	fit                bool   // fit the first group as a power law of the others
 	plot               string // a .png or .svg file for the fit
 }
@@ -37,6 +43,67 @@ type reduceOptions struct {
 type groupSink interface {
 	Write([]quantity.Series) error
 	Flush() error
+}
+
+// channelSource is a channel file being read: CSV/TSV or Parquet.
+type channelSource interface {
+	Columns() []chanfile.Column
+	Read(dst []quantity.Series, rows int) ([]quantity.Series, int, error)
+}
+
+// parquetSink writes the groups as a Parquet file; Flush closes it.
+type parquetSink struct{ *parquetfile.Writer }
+
+func (p parquetSink) Flush() error { return p.Close() }
+
+// isTerminal reports whether w is a terminal, where a progress bar is
+// drawn. Tests leave it as it is: their writers are buffers.
+var isTerminal = func(w io.Writer) bool {
+	f, ok := w.(*os.File)
+	return ok && term.IsTerminal(int(f.Fd()))
+}
+
+// progress draws a bar on standard error for a long file when standard
+// error is a terminal; for a short file, or not a terminal, it does nothing.
+type progress struct {
+	bar *progressbar.ProgressBar
+}
+
+// Long files: a bar is worth drawing beyond these.
+const (
+	progressBytes = 4 << 20
+	progressRows  = 100_000
+)
+
+func newProgress(log io.Writer, total int64, bytes bool) progress {
+	if !isTerminal(log) || bytes && total < progressBytes || !bytes && total < progressRows {
+		return progress{}
+	}
+	opts := []progressbar.Option{
+		progressbar.OptionSetWriter(log),
+		progressbar.OptionSetDescription("pisets: reducing"),
+		progressbar.OptionThrottle(100 * time.Millisecond),
+		progressbar.OptionClearOnFinish(),
+		progressbar.OptionSetPredictTime(true),
+	}
+	if bytes {
+		opts = append(opts, progressbar.OptionShowBytes(true))
+	} else {
+		opts = append(opts, progressbar.OptionShowCount(), progressbar.OptionSetItsString("rows"))
+	}
+	return progress{progressbar.NewOptions64(total, opts...)}
+}
+
+func (p progress) set(n int64) {
+	if p.bar != nil {
+		p.bar.Set64(n)
+	}
+}
+
+func (p progress) finish() {
+	if p.bar != nil {
+		p.bar.Finish()
+	}
 }
 
 // jsonLines writes one JSON object per row: {"row":1,"Π₁":0.17,...},
@@ -111,13 +178,40 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	case opt.stdAtm:
 		ro.Reference = units.StandardReference()
 	}
-	rd, err := chanfile.NewReader(f, opt.data, ro)
-	var fe *chanfile.Error
-	if errors.Is(err, units.ErrGauge) && errors.As(err, &fe) {
-		return &usageError{fmt.Sprintf("%s:%d:%d: %q is a gauge pressure: give -baro with the barometer reading (as -baro 1002hPa), or -std-atm to use 101325 Pa as an explicit choice", fe.File, fe.Line, fe.Column, fe.Field)}
-	}
-	if err != nil {
-		return &dataError{err}
+	var rd channelSource
+	var bar progress
+	var done func(rows int) int64 // rows or bytes read so far
+	const gaugeHelp = "is a gauge pressure: give -baro with the barometer reading (as -baro 1002hPa), or -std-atm to use 101325 Pa as an explicit choice"
+	if strings.HasSuffix(strings.ToLower(opt.data), ".parquet") {
+		st, err := f.Stat()
+		if err != nil {
+			return &usageError{fmt.Sprintf("-data: %v", err)}
+		}
+		pr, err := parquetfile.NewReader(f, st.Size(), opt.data, parquetfile.Options{Reference: ro.Reference})
+		var pe *parquetfile.Error
+		if errors.Is(err, units.ErrGauge) && errors.As(err, &pe) {
+			return &usageError{fmt.Sprintf("%s: column %d %q %s", pe.File, pe.Column, pe.Field, gaugeHelp)}
+		}
+		if err != nil {
+			return &dataError{err}
+		}
+		rd = pr
+		bar = newProgress(log, pr.NumRows(), false)
+		done = func(rows int) int64 { return int64(rows) }
+	} else {
+		cr, err := chanfile.NewReader(f, opt.data, ro)
+		var fe *chanfile.Error
+		if errors.Is(err, units.ErrGauge) && errors.As(err, &fe) {
+			return &usageError{fmt.Sprintf("%s:%d:%d: %q %s", fe.File, fe.Line, fe.Column, fe.Field, gaugeHelp)}
+		}
+		if err != nil {
+			return &dataError{err}
+		}
+		rd = cr
+		if st, err := f.Stat(); err == nil {
+			bar = newProgress(log, st.Size(), true)
+		}
+		done = func(int) int64 { return cr.Offset() }
 	}
 	cols := rd.Columns()
 	byName := map[string]int{}
@@ -185,6 +279,12 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 			names[g] = gr.Name
 		}
 		w = newJSONLines(out, names)
+	} else if opt.parquet {
+		pw, err := parquetfile.NewWriter(out, outCols, parquetfile.Options{})
+		if err != nil {
+			return err
+		}
+		w = parquetSink{pw}
 	} else if w, err = chanfile.NewWriter(out, outCols, chanfile.Options{}); err != nil {
 		return err
 	}
@@ -246,7 +346,9 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 			}
 		}
 		rows += n
+		bar.set(done(rows))
 	}
+	bar.finish()
 	if err := w.Flush(); err != nil {
 		return err
 	}

@@ -4,12 +4,18 @@ import (
 	"bytes"
 	"encoding/json"
 	"fmt"
+	"io"
 	"math"
 	"os"
 	"path/filepath"
 	"strconv"
 	"strings"
 	"testing"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/units"
+	"similis.dev/similis/units/chanfile"
+	"similis.dev/similis/units/chanfile/parquetfile"
 )
 
 var pumpArgs = []string{"-data", "testdata/pumploop.csv", "-baro", "1002hPa",
@@ -161,7 +167,7 @@ func TestReduceJSONLines(t *testing.T) {
 			}
 		}
 	}
-	if code := run(append([]string{"-format", "xml"}, pumpArgs...), &jsonOut, &errb); code != 2 || !strings.Contains(errb.String(), "want csv or jsonl") {
+	if code := run(append([]string{"-format", "xml"}, pumpArgs...), &jsonOut, &errb); code != 2 || !strings.Contains(errb.String(), "want csv, jsonl or parquet") {
 		t.Errorf("-format xml: exit %d, %s", code, errb.String())
 	}
 }
@@ -220,5 +226,172 @@ func TestReduceFitAndPlot(t *testing.T) {
 		if code := run(tc.args, &out, &errb); code != 2 || !strings.Contains(errb.String(), tc.says) {
 			t.Errorf("pisets %s: exit %d, %q; want 2 saying %q", strings.Join(tc.args, " "), code, errb.String(), tc.says)
 		}
+	}
+}
+
+// TestReduceParquet: the groups written as Parquet carry their unit in
+// the file and hold the same numbers as the CSV output; a Parquet log
+// (the tank run, converted here) reduces to the same groups as the CSV
+// log; Parquet output needs -out.
+func TestReduceParquet(t *testing.T) {
+	dir := t.TempDir()
+	var csvOut, errb bytes.Buffer
+	if code := run(pumpArgs, &csvOut, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	pq := filepath.Join(dir, "groups.parquet")
+	if code := run(append([]string{"-out", pq}, pumpArgs...), io.Discard, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	cols, vals := readParquet(t, pq)
+	if len(cols) != 2 || cols[0].Name != "Π₁" || !cols[0].Unit.Equal(units.One()) || cols[1].Missing != 0 || cols[0].Missing != 1 {
+		t.Fatalf("columns %+v", cols)
+	}
+	lines := strings.Split(strings.TrimSpace(csvOut.String()), "\n")[1:]
+	for i, line := range lines {
+		for g, f := range strings.Split(line, ",") {
+			want := math.NaN()
+			if f != "" {
+				want, _ = strconv.ParseFloat(f, 64)
+			}
+			if got := vals[g][i]; got != want && !(math.IsNaN(got) && math.IsNaN(want)) {
+				t.Errorf("row %d group %d: Parquet %v, CSV %v", i+1, g+1, got, want)
+			}
+		}
+	}
+
+	// The tank log as Parquet: units from the CSV header, in the metadata.
+	src, err := os.Open("testdata/tankrun.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer src.Close()
+	cr, err := chanfile.NewReader(src, "tankrun.csv", chanfile.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	log := filepath.Join(dir, "tankrun.parquet")
+	lf, err := os.Create(log)
+	if err != nil {
+		t.Fatal(err)
+	}
+	pw, err := parquetfile.NewWriter(lf, cr.Columns(), parquetfile.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for chunk := []quantity.Series(nil); ; {
+		var n int
+		if chunk, n, err = cr.Read(chunk, 2); err == io.EOF {
+			break
+		} else if err != nil {
+			t.Fatal(err)
+		}
+		if err := pw.Write(chunk); err != nil || n == 0 {
+			t.Fatal(err)
+		}
+	}
+	if err := pw.Close(); err != nil {
+		t.Fatal(err)
+	}
+	lf.Close()
+	tank := []string{"-derive", "R = R_T; L = 4.0 [m]; rho = 999.1 [kg/m^3]; nu = 1.1385e-6 [m^2/s]; g = 9.80665 [m/s^2]",
+		"-dep", "R", "-repeat", "rho,V,L", "R=N@resistance", "V=m/s", "L=m", "rho=kg/m^3", "nu=m^2/s", "g=m/s^2"}
+	var fromCSV, fromPQ bytes.Buffer
+	if code := run(append([]string{"-data", "testdata/tankrun.csv"}, tank...), &fromCSV, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	if code := run(append([]string{"-data", log}, tank...), &fromPQ, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	// The knots of the log are stored as knots: a value may move by an ulp
+	// through the unit and back, so compare to 1e-15.
+	a := strings.Split(strings.TrimSpace(fromCSV.String()), "\n")
+	b := strings.Split(strings.TrimSpace(fromPQ.String()), "\n")
+	if len(a) != len(b) || a[0] != b[0] {
+		t.Fatalf("CSV log gives\n%s\nParquet log gives\n%s", fromCSV.String(), fromPQ.String())
+	}
+	for i := 1; i < len(a); i++ {
+		fa, fb := strings.Split(a[i], ","), strings.Split(b[i], ",")
+		for k := range fa {
+			x, _ := strconv.ParseFloat(fa[k], 64)
+			y, _ := strconv.ParseFloat(fb[k], 64)
+			if math.Abs(x-y) > 1e-15*math.Abs(x) {
+				t.Errorf("row %d group %d: CSV log %v, Parquet log %v", i, k+1, x, y)
+			}
+		}
+	}
+
+	for _, tc := range []struct {
+		args []string
+		says string
+	}{
+		{append([]string{"-format", "parquet"}, pumpArgs...), "give -out"},
+	} {
+		errb.Reset()
+		code := run(tc.args, io.Discard, &errb)
+		if code != 2 || !strings.Contains(errb.String(), tc.says) {
+			t.Errorf("pisets %v: exit %d %q, want 2 saying %q", tc.args, code, errb.String(), tc.says)
+		}
+	}
+	bad := filepath.Join(dir, "bad.parquet")
+	os.WriteFile(bad, []byte("PAR1 not really"), 0o644)
+	errb.Reset()
+	if code := run(append([]string{"-data", bad}, tank[4:]...), io.Discard, &errb); code != 1 || !strings.Contains(errb.String(), "not a readable Parquet file") {
+		t.Errorf("a damaged Parquet log: exit %d %q, want 1", code, errb.String())
+	}
+}
+
+func readParquet(t *testing.T, name string) ([]chanfile.Column, [][]float64) {
+	t.Helper()
+	f, err := os.Open(name)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	st, _ := f.Stat()
+	r, err := parquetfile.NewReader(f, st.Size(), name, parquetfile.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var dst []quantity.Series
+	var out [][]float64
+	for {
+		var n int
+		dst, n, err = r.Read(dst, 0)
+		if err == io.EOF {
+			break
+		} else if err != nil {
+			t.Fatal(err)
+		}
+		if out == nil {
+			out = make([][]float64, len(dst))
+		}
+		for j := range dst {
+			out[j] = append(out[j], dst[j].Values()[:n]...)
+		}
+	}
+	return r.Columns(), out
+}
+
+// TestProgress: a bar is drawn only on a terminal and for a long file,
+// and cleared at the end.
+func TestProgress(t *testing.T) {
+	defer func(f func(io.Writer) bool) { isTerminal = f }(isTerminal)
+	var buf bytes.Buffer
+	if p := newProgress(&buf, 1<<30, true); p.bar != nil {
+		t.Errorf("a bar on a buffer that is not a terminal")
+	}
+	isTerminal = func(io.Writer) bool { return true }
+	if p := newProgress(&buf, progressRows-1, false); p.bar != nil {
+		t.Errorf("a bar for a short file")
+	}
+	p := newProgress(&buf, 2*progressRows, false)
+	if p.bar == nil {
+		t.Fatal("no bar for a long file on a terminal")
+	}
+	p.set(progressRows)
+	p.finish()
+	if !strings.Contains(buf.String(), "pisets: reducing") || !strings.Contains(buf.String(), "50%") {
+		t.Errorf("bar drawn as %q", buf.String())
 	}
 }

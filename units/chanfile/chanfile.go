@@ -181,6 +181,7 @@ type Reader struct {
 	vals    [][]float64 // reused
 	missing map[string]bool
 	done    bool
+	off     int64 // bytes of lines read, after a byte-order mark
 }
 
 // NewReader reads the comment lines and the header row of r; name is the
@@ -262,6 +263,7 @@ func (r *Reader) next() (bool, error) {
 			return false, nil
 		}
 		r.line++
+		r.off += int64(len(b))
 		b = bytes.TrimSuffix(b, []byte{'\n'})
 		b = bytes.TrimSuffix(b, []byte{'\r'})
 		if len(b) == 0 || b[0] == '#' {
@@ -337,6 +339,10 @@ func (r *Reader) split(b []byte) error {
 	}
 	return nil
 }
+
+// Offset returns the number of bytes of the file read so far, after a
+// byte-order mark, for a progress display against the file's size.
+func (r *Reader) Offset() int64 { return r.off }
 
 // Columns returns the channels of the file; their Missing counts grow as
 // chunks are read.

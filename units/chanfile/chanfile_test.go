@@ -154,6 +154,9 @@ func TestReadChunks(t *testing.T) {
 	var got []int
 	var ys []float64
 	var s []quantity.Series
+	if r.Offset() != 12 { // the header line, "x [m]\ty [s]\n"
+		t.Errorf("Offset after the header = %d, want 12", r.Offset())
+	}
 	for {
 		var n int
 		s, n, err = r.Read(s, 3)
@@ -165,6 +168,9 @@ func TestReadChunks(t *testing.T) {
 		}
 		got = append(got, n)
 		ys = append(ys, s[1].Values()...)
+	}
+	if r.Offset() != int64(sb.Len()) {
+		t.Errorf("Offset at the end = %d, want the file's %d bytes", r.Offset(), sb.Len())
 	}
 	if d := cmp.Diff([]int{3, 3, 3, 1}, got); d != "" {
 		t.Errorf("chunks (-want +got):\n%s", d)

@@ -1,0 +1,279 @@
+package parquetfile
+
+import (
+	"bufio"
+	"encoding/binary"
+	"fmt"
+	"io"
+
+	"github.com/parquet-go/parquet-go"
+	"github.com/parquet-go/parquet-go/encoding/thrift"
+	"github.com/parquet-go/parquet-go/format"
+)
+
+// MaxPageBytes bounds the size of one page of a file read, compressed or
+// not, and MaxFooterBytes the size of its footer. A file is checked
+// against them before a page is decoded, so a damaged or hostile file
+// cannot make the reader allocate without bound.
+const (
+	MaxPageBytes   = 64 << 20
+	MaxFooterBytes = 16 << 20
+	maxPageValues  = 1 << 24
+)
+
+// readable lists the compressions read: the ones whose output size the
+// pre-scan can bound before the decoder runs.
+var readable = map[format.CompressionCodec]bool{
+	format.Uncompressed: true,
+	format.Snappy:       true,
+	format.Zstd:         true,
+}
+
+// checkFooter checks the file's trailer before the footer is decoded.
+func checkFooter(r io.ReaderAt, size int64) error {
+	if size < 12 {
+		return fmt.Errorf("%d bytes, too short for a Parquet file", size)
+	}
+	var b [8]byte
+	if _, err := r.ReadAt(b[:4], 0); err != nil {
+		return err
+	}
+	if string(b[:4]) != "PAR1" {
+		return fmt.Errorf("no Parquet magic number at the start (an encrypted file, PARE, is not read)")
+	}
+	if _, err := r.ReadAt(b[:], size-8); err != nil {
+		return err
+	}
+	if string(b[4:]) != "PAR1" {
+		return fmt.Errorf("no Parquet magic number at the end: a truncated file")
+	}
+	n := int64(binary.LittleEndian.Uint32(b[:4]))
+	if n > size-12 || n > MaxFooterBytes {
+		return fmt.Errorf("a footer of %d bytes in a file of %d (at most %d read)", n, size, int64(MaxFooterBytes))
+	}
+	return nil
+}
+
+// countReader counts the bytes read through it.
+type countReader struct {
+	r *bufio.Reader
+	n int64
+}
+
+func (c *countReader) Read(p []byte) (int, error) {
+	n, err := c.r.Read(p)
+	c.n += int64(n)
+	return n, err
+}
+
+func (c *countReader) ReadByte() (byte, error) {
+	b, err := c.r.ReadByte()
+	if err == nil {
+		c.n++
+	}
+	return b, err
+}
+
+// checkPages walks the page headers of every column chunk of f and checks
+// that each page fits in its chunk, the chunk in the file, and that no
+// page decodes to more than MaxPageBytes; it reads headers and the first
+// bytes of compressed data, never decompressing.
+func checkPages(r io.ReaderAt, size int64, f *parquet.File) error {
+	md := f.Metadata()
+	if md.EncryptionAlgorithm.Value != nil {
+		return fmt.Errorf("an encrypted file")
+	}
+	for g, rg := range md.RowGroups {
+		for c, cc := range rg.Columns {
+			where := fmt.Sprintf("row group %d, column %d", g+1, c+1)
+			m := cc.MetaData
+			if cc.FilePath != "" {
+				return fmt.Errorf("%s: data in another file (%q)", where, cc.FilePath)
+			}
+			if cc.CryptoMetadata.Value != nil || len(cc.EncryptedColumnMetadata) > 0 {
+				return fmt.Errorf("%s: an encrypted column", where)
+			}
+			if !readable[m.Codec] {
+				return fmt.Errorf("%s: compression %v is not read (write the file with ZSTD, SNAPPY or none)", where, m.Codec)
+			}
+			start := m.DataPageOffset
+			if m.DictionaryPageOffset > 0 && m.DictionaryPageOffset < start {
+				start = m.DictionaryPageOffset
+			}
+			end := start + m.TotalCompressedSize
+			if start < 4 || m.TotalCompressedSize <= 0 || end < start || end > size-8 {
+				return fmt.Errorf("%s: a chunk of %d bytes at offset %d, outside the file", where, m.TotalCompressedSize, start)
+			}
+			if err := checkChunk(io.NewSectionReader(r, start, end-start), m.Codec); err != nil {
+				return fmt.Errorf("%s: %w", where, err)
+			}
+		}
+	}
+	return nil
+}
+
+// checkChunk walks the pages of one column chunk.
+func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) error {
+	size := sr.Size()
+	cr := &countReader{r: bufio.NewReaderSize(sr, 4096)}
+	var proto thrift.CompactProtocol
+	for page := 1; cr.n < size; page++ {
+		var h format.PageHeader
+		if err := thrift.NewDecoder(proto.NewReader(io.LimitReader(cr, 1<<16))).Decode(&h); err != nil {
+			return fmt.Errorf("page %d: a damaged page header: %v", page, err)
+		}
+		comp, unc := int64(h.CompressedPageSize), int64(h.UncompressedPageSize)
+		if comp < 0 || unc < 0 || comp > MaxPageBytes || unc > MaxPageBytes {
+			return fmt.Errorf("page %d: %d bytes compressed, %d uncompressed (at most %d read)", page, comp, unc, int64(MaxPageBytes))
+		}
+		body := cr.n
+		if body+comp > size {
+			return fmt.Errorf("page %d: %d bytes that run past the chunk's end", page, comp)
+		}
+		var values int64
+		data := body // where the compressed data start
+		compressed := codec != format.Uncompressed
+		switch {
+		case h.DataPageHeader.Valid:
+			values = int64(h.DataPageHeader.V.NumValues)
+		case h.DictionaryPageHeader.Valid:
+			values = int64(h.DictionaryPageHeader.V.NumValues)
+		case h.DataPageHeaderV2.Valid:
+			v := h.DataPageHeaderV2.V
+			values = int64(v.NumValues)
+			lv := int64(v.DefinitionLevelsByteLength) + int64(v.RepetitionLevelsByteLength)
+			if v.DefinitionLevelsByteLength < 0 || v.RepetitionLevelsByteLength < 0 || lv > comp {
+				return fmt.Errorf("page %d: level lengths outside the page", page)
+			}
+			data += lv
+			if v.IsCompressed.Valid && !v.IsCompressed.V {
+				compressed = false
+			}
+		}
+		if values < 0 || values > maxPageValues {
+			return fmt.Errorf("page %d: %d values (at most %d read)", page, values, maxPageValues)
+		}
+		if compressed && data < body+comp {
+			n := body + comp - data
+			head := make([]byte, min(n, 1<<16))
+			if _, err := sr.ReadAt(head, data); err != nil {
+				return fmt.Errorf("page %d: %v", page, err)
+			}
+			var out int64
+			var err error
+			switch codec {
+			case format.Snappy:
+				u, k := binary.Uvarint(head)
+				if k <= 0 {
+					return fmt.Errorf("page %d: a damaged snappy block", page)
+				}
+				out = int64(min(u, 1<<62))
+			case format.Zstd:
+				out, err = zstdBound(io.NewSectionReader(sr, data, n), n)
+			}
+			if err != nil {
+				return fmt.Errorf("page %d: %v", page, err)
+			}
+			if out > MaxPageBytes {
+				return fmt.Errorf("page %d: decompresses to as much as %d bytes (at most %d read)", page, out, int64(MaxPageBytes))
+			}
+		}
+		if _, err := cr.r.Discard(int(comp)); err != nil {
+			return fmt.Errorf("page %d: %v", page, err)
+		}
+		cr.n += comp
+	}
+	return nil
+}
+
+// zstdBound returns an upper bound on the bytes that the zstd frames in r
+// (n bytes) decode to, from the frame and block headers (RFC 8878 §3.1):
+// a raw or RLE block gives its size, a compressed block at most 128 KiB.
+func zstdBound(r *io.SectionReader, n int64) (int64, error) {
+	var out, pos int64
+	var b [18]byte
+	read := func(k int) ([]byte, error) {
+		if pos+int64(k) > n {
+			return nil, fmt.Errorf("a truncated zstd frame")
+		}
+		if _, err := r.ReadAt(b[:k], pos); err != nil {
+			return nil, err
+		}
+		pos += int64(k)
+		return b[:k], nil
+	}
+	for frames := 0; pos < n; frames++ {
+		if frames > 1<<16 {
+			return 0, fmt.Errorf("too many zstd frames")
+		}
+		m, err := read(4)
+		if err != nil {
+			return 0, err
+		}
+		magic := binary.LittleEndian.Uint32(m)
+		if magic&0xFFFFFFF0 == 0x184D2A50 { // a skippable frame
+			s, err := read(4)
+			if err != nil {
+				return 0, err
+			}
+			pos += int64(binary.LittleEndian.Uint32(s))
+			continue
+		}
+		if magic != 0xFD2FB528 {
+			return 0, fmt.Errorf("not a zstd frame")
+		}
+		d, err := read(1)
+		if err != nil {
+			return 0, err
+		}
+		fd := d[0]
+		single := fd&0x20 != 0
+		checksum := fd&0x04 != 0
+		skip := int64([]int{0, 1, 2, 4}[fd&3]) // dictionary ID
+		if !single {
+			skip++ // window descriptor
+		}
+		switch fd >> 6 { // frame content size
+		case 0:
+			if single {
+				skip++
+			}
+		case 1:
+			skip += 2
+		case 2:
+			skip += 4
+		case 3:
+			skip += 8
+		}
+		pos += skip
+		for last := false; !last; {
+			h, err := read(3)
+			if err != nil {
+				return 0, err
+			}
+			v := uint32(h[0]) | uint32(h[1])<<8 | uint32(h[2])<<16
+			last = v&1 != 0
+			size := int64(v >> 3)
+			switch (v >> 1) & 3 {
+			case 0: // raw
+				out += size
+				pos += size
+			case 1: // RLE
+				out += size
+				pos++
+			case 2: // compressed
+				out += 128 << 10
+				pos += size
+			default:
+				return 0, fmt.Errorf("a reserved zstd block type")
+			}
+			if out > MaxPageBytes {
+				return out, nil
+			}
+		}
+		if checksum {
+			pos += 4
+		}
+	}
+	return out, nil
+}

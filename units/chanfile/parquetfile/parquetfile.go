@@ -1,0 +1,505 @@
+package parquetfile
+
+import (
+	"fmt"
+	"io"
+	"math"
+	"slices"
+	"strings"
+
+	"github.com/parquet-go/parquet-go"
+	"github.com/parquet-go/parquet-go/format"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/units"
+	"similis.dev/similis/units/chanfile"
+)
+
+// UnitKey is the prefix of the key-value metadata entry that holds a
+// column's unit: UnitKey + name.
+const UnitKey = "similis.unit."
+
+// MaxColumns bounds the number of columns of a file, as in chanfile.
+const MaxColumns = chanfile.MaxColumns
+
+// Error reports a problem in a Parquet file: the row (from 1; 0 when the
+// schema or the footer is concerned) and the column (from 1; 0 when the
+// whole file or row is concerned). It matches quantity.ErrParse, and its
+// Err under errors.Is.
+type Error struct {
+	File   string
+	Row    int64
+	Column int
+	Field  string // the column's name, if any
+	Reason string
+	Err    error // an underlying error, or nil
+}
+
+// Error implements the error interface: "run.parquet: row 14, column 3 "V": …".
+func (e *Error) Error() string {
+	var sb strings.Builder
+	sb.WriteString("parquetfile: ")
+	if e.File != "" {
+		sb.WriteString(e.File)
+		sb.WriteString(": ")
+	}
+	if e.Row > 0 {
+		fmt.Fprintf(&sb, "row %d: ", e.Row)
+	}
+	if e.Column > 0 {
+		fmt.Fprintf(&sb, "column %d ", e.Column)
+	}
+	if e.Field != "" {
+		fmt.Fprintf(&sb, "%q", e.Field)
+	}
+	if e.Column > 0 || e.Field != "" {
+		sb.WriteString(": ")
+	}
+	sb.WriteString(e.Reason)
+	if e.Err != nil {
+		sb.WriteString(": ")
+		sb.WriteString(e.Err.Error())
+	}
+	return sb.String()
+}
+
+// Unwrap returns the underlying error.
+func (e *Error) Unwrap() error { return e.Err }
+
+// Is reports whether target is quantity.ErrParse, the class of an *Error.
+func (e *Error) Is(target error) bool { return target == quantity.ErrParse }
+
+// Options adjust how a file is read and written. The zero value reads
+// units from the metadata or the column names and refuses gauge columns.
+type Options struct {
+	// Units gives the unit text of columns that have no unit metadata,
+	// by column name ("V": "kn"). An entry for a column that has
+	// metadata is an error, so that two statements cannot disagree.
+	Units map[string]string
+	// Reference, if set, is the absolute ambient pressure that gauge
+	// columns (a unit "kPa(g)", "psig") are read against, as in chanfile.
+	Reference quantity.Quantity
+	// RowGroupRows is the number of rows per row group when writing;
+	// 0 means 1<<17.
+	RowGroupRows int
+}
+
+// kind is how a column's values are stored.
+type kind uint8
+
+const (
+	kDouble kind = iota
+	kFloat
+	kInt32
+	kUint32
+	kInt64
+	kUint64
+)
+
+// Reader reads a Parquet channel file chunk by chunk.
+type Reader struct {
+	name  string
+	file  *parquet.File
+	pr    *parquet.GenericReader[any]
+	cols  []chanfile.Column
+	kinds []kind
+	mul   []float64 // SI = x·mul + add
+	add   []float64
+	rows  []parquet.Row // reused
+	vals  [][]float64   // reused
+	row   int64         // rows read so far
+	done  bool
+}
+
+// guard turns a panic of the Parquet decoder on a damaged file into an
+// error, so that reading a file never crashes the caller.
+func guard(name string, err *error) {
+	if p := recover(); p != nil {
+		*err = &Error{File: name, Reason: fmt.Sprintf("not a readable Parquet file (the decoder failed: %v)", p)}
+	}
+}
+
+// NewReader reads the footer and schema of the Parquet file r of size
+// bytes; name is the file's name for messages.
+func NewReader(r io.ReaderAt, size int64, name string, opt Options) (rd *Reader, err error) {
+	defer guard(name, &err)
+	if err := checkFooter(r, size); err != nil {
+		return nil, &Error{File: name, Reason: "not a readable Parquet file", Err: err}
+	}
+	f, err := parquet.OpenFile(r, size, parquet.SkipBloomFilters(true), parquet.SkipPageIndex(true), parquet.ReadBufferSize(1<<16))
+	if err != nil {
+		return nil, &Error{File: name, Reason: "not a readable Parquet file", Err: err}
+	}
+	if err := checkPages(r, size, f); err != nil {
+		return nil, &Error{File: name, Reason: "not a readable Parquet file", Err: err}
+	}
+	rd = &Reader{name: name, file: f}
+	fields := f.Schema().Fields()
+	if len(fields) > MaxColumns {
+		return nil, &Error{File: name, Reason: fmt.Sprintf("%d columns, more than %d", len(fields), MaxColumns)}
+	}
+	if len(fields) == 0 {
+		return nil, &Error{File: name, Reason: "no columns"}
+	}
+	seen := map[string]bool{}
+	for i, fd := range fields {
+		col, k, err := column(f, fd, opt)
+		if err != nil {
+			e := err.(*Error)
+			e.File, e.Column = name, i+1
+			if e.Field == "" {
+				e.Field = fd.Name()
+			}
+			return nil, e
+		}
+		seen[fd.Name()] = true
+		mul, add := col.Unit.Factor(), col.Unit.Offset()
+		if col.Gauge {
+			ref := opt.Reference
+			if ref.Dim() != quantity.Pressure || !(ref.Value() > 0) || math.IsInf(ref.Value(), 0) {
+				return nil, &Error{File: name, Column: i + 1, Field: fd.Name(), Reason: "a gauge pressure column needs the absolute ambient pressure it was read against: set Options.Reference to the barometer reading (or units.StandardReference(), chosen explicitly)", Err: units.ErrGauge}
+			}
+			add += ref.Value()
+			col.Unit = units.MustParse("Pa")
+		}
+		rd.cols = append(rd.cols, col)
+		rd.kinds = append(rd.kinds, k)
+		rd.mul = append(rd.mul, mul)
+		rd.add = append(rd.add, add)
+	}
+	for n := range opt.Units {
+		if !seen[n] {
+			return nil, &Error{File: name, Field: n, Reason: "Options.Units names a column the file does not have"}
+		}
+	}
+	rd.pr = parquet.NewGenericReader[any](f)
+	return rd, nil
+}
+
+// column reads the unit and storage of one top-level field.
+func column(f *parquet.File, fd parquet.Field, opt Options) (chanfile.Column, kind, error) {
+	name := fd.Name()
+	if !fd.Leaf() {
+		return chanfile.Column{}, 0, &Error{Reason: "a nested group: a channel file holds flat numeric columns"}
+	}
+	if fd.Repeated() {
+		return chanfile.Column{}, 0, &Error{Reason: "a repeated column: a channel file holds one value per row"}
+	}
+	t := fd.Type()
+	var k kind
+	switch t.Kind() {
+	case parquet.Double:
+		k = kDouble
+	case parquet.Float:
+		k = kFloat
+	case parquet.Int32:
+		k = kInt32
+	case parquet.Int64:
+		k = kInt64
+	default:
+		return chanfile.Column{}, 0, &Error{Reason: fmt.Sprintf("a column of physical type %v: a channel file holds numbers (DOUBLE, FLOAT, INT32, INT64)", t.Kind())}
+	}
+	if lt := t.LogicalType(); lt != nil && lt.Value != nil {
+		it, ok := lt.Value.(*format.IntType)
+		if !ok {
+			return chanfile.Column{}, 0, &Error{Reason: fmt.Sprintf("a column of logical type %v: the stored number is not the value in its unit; store it as DOUBLE", lt)}
+		}
+		if !it.IsSigned {
+			switch k {
+			case kInt32:
+				k = kUint32
+			case kInt64:
+				k = kUint64
+			}
+		}
+	} else if ct := t.ConvertedType(); ct != nil {
+		return chanfile.Column{}, 0, &Error{Reason: fmt.Sprintf("a column of converted type %v: the stored number is not the value in its unit; store it as DOUBLE", *ct)}
+	}
+	meta, hasMeta := f.Lookup(UnitKey + name)
+	given, hasGiven := opt.Units[name]
+	var text string
+	switch {
+	case hasMeta && hasGiven:
+		return chanfile.Column{}, 0, &Error{Reason: fmt.Sprintf("the file gives the unit %q and Options.Units gives %q: give one", meta, given)}
+	case hasMeta:
+		text = meta
+	case hasGiven:
+		text = given
+	}
+	var col chanfile.Column
+	var err error
+	if text != "" {
+		if strings.ContainsAny(text, "[]") {
+			return chanfile.Column{}, 0, &Error{Reason: fmt.Sprintf("unit %q: brackets are not part of a unit", text)}
+		}
+		col, err = chanfile.ParseHeaderField("x [" + text + "]")
+		col.Name = name
+	} else if hasMeta || hasGiven {
+		err = &chanfile.Error{Reason: "an empty unit: write \"1\" for a dimensionless column"}
+	} else {
+		col, err = chanfile.ParseHeaderField(name)
+		if err != nil {
+			return chanfile.Column{}, 0, &Error{Reason: fmt.Sprintf("no unit for the column: the file has no %q entry and the name carries no unit; give one in Options.Units", UnitKey+name), Err: err}
+		}
+	}
+	if err != nil {
+		return chanfile.Column{}, 0, &Error{Reason: "not a unit", Err: err}
+	}
+	return col, k, nil
+}
+
+// Columns returns the channels of the file; their Missing counts grow as
+// chunks are read.
+func (r *Reader) Columns() []chanfile.Column { return r.cols }
+
+// NumRows returns the number of rows the file's footer declares.
+func (r *Reader) NumRows() int64 { return r.file.NumRows() }
+
+// Read reads up to rows rows (4096 if rows is not positive) into dst,
+// one Series per column in SI (dst is grown to the number of columns and
+// its storage reused), and returns the number of rows read. It returns
+// io.EOF with 0 rows at the end of the file. A gauge column is absolute:
+// its level plus Options.Reference.
+func (r *Reader) Read(dst []quantity.Series, rows int) (out []quantity.Series, n int, err error) {
+	if rows <= 0 {
+		rows = 4096
+	}
+	for len(dst) < len(r.cols) {
+		dst = append(dst, quantity.Series{})
+	}
+	dst = dst[:len(r.cols)]
+	if r.vals == nil {
+		r.vals = make([][]float64, len(r.cols))
+	}
+	for j := range r.cols {
+		r.vals[j] = dst[j].Values()[:0]
+	}
+	defer func() {
+		if p := recover(); p != nil {
+			r.done = true
+			out, n, err = dst, 0, &Error{File: r.name, Row: r.row + 1, Reason: fmt.Sprintf("a damaged Parquet file (the decoder failed: %v)", p)}
+		}
+	}()
+	if cap(r.rows) < rows {
+		r.rows = make([]parquet.Row, rows)
+	}
+	buf := r.rows[:rows]
+	vals := r.vals
+	if !r.done {
+		var m int
+		m, err = r.pr.ReadRows(buf)
+		if err == io.EOF {
+			err = nil
+			r.done = true
+		} else if err != nil {
+			r.done = true
+			err = &Error{File: r.name, Row: r.row + int64(m) + 1, Reason: "read failed", Err: err}
+		}
+		for i := 0; i < m && err == nil; i++ {
+			row := buf[i]
+			if len(row) != len(r.cols) {
+				err = &Error{File: r.name, Row: r.row + 1, Reason: fmt.Sprintf("a row of %d values, not the schema's %d", len(row), len(r.cols))}
+				break
+			}
+			for _, v := range row {
+				c := v.Column()
+				if c < 0 || c >= len(r.cols) {
+					err = &Error{File: r.name, Row: r.row + 1, Reason: fmt.Sprintf("a value of column index %d", c)}
+					break
+				}
+				if v.IsNull() {
+					vals[c] = append(vals[c], math.NaN())
+					r.cols[c].Missing++
+					continue
+				}
+				var x float64
+				switch r.kinds[c] {
+				case kDouble:
+					x = v.Double()
+				case kFloat:
+					x = float64(v.Float())
+				case kInt32:
+					x = float64(v.Int32())
+				case kUint32:
+					x = float64(uint32(v.Int32()))
+				case kInt64:
+					i := v.Int64()
+					x = float64(i)
+					if i > 1<<53 || i < -(1<<53) {
+						err = &Error{File: r.name, Row: r.row + 1, Column: c + 1, Field: r.cols[c].Name, Reason: fmt.Sprintf("the integer %d is not exact as a float64", i)}
+					}
+				case kUint64:
+					u := uint64(v.Int64())
+					x = float64(u)
+					if u > 1<<53 {
+						err = &Error{File: r.name, Row: r.row + 1, Column: c + 1, Field: r.cols[c].Name, Reason: fmt.Sprintf("the integer %d is not exact as a float64", u)}
+					}
+				}
+				if err != nil {
+					break
+				}
+				if math.IsNaN(x) {
+					vals[c] = append(vals[c], math.NaN())
+					r.cols[c].Missing++
+					continue
+				}
+				if math.IsInf(x, 0) {
+					err = &Error{File: r.name, Row: r.row + 1, Column: c + 1, Field: r.cols[c].Name, Reason: "an infinite value: a channel file holds finite numbers or missing ones"}
+					break
+				}
+				vals[c] = append(vals[c], x*r.mul[c]+r.add[c])
+			}
+			if err != nil {
+				r.done = true
+				for j := range vals {
+					vals[j] = vals[j][:min(len(vals[j]), n)]
+				}
+				break
+			}
+			n++
+			r.row++
+		}
+	}
+	for j, c := range r.cols {
+		dst[j] = quantity.NewSeries(vals[j], c.Unit.Dim())
+	}
+	if err != nil {
+		return dst, n, err
+	}
+	if n == 0 && r.done {
+		return dst, 0, io.EOF
+	}
+	return dst, n, nil
+}
+
+// Close releases the reader's buffers.
+func (r *Reader) Close() error { return r.pr.Close() }
+
+// orderedGroup is a schema group whose columns keep the order given,
+// where a plain group sorts them by name.
+type orderedGroup struct {
+	parquet.Group
+	order []string
+}
+
+// Fields returns the group's fields in the order given.
+func (g orderedGroup) Fields() []parquet.Field {
+	f := g.Group.Fields()
+	slices.SortStableFunc(f, func(a, b parquet.Field) int {
+		return slices.Index(g.order, a.Name()) - slices.Index(g.order, b.Name())
+	})
+	return f
+}
+
+// Writer writes Series as a Parquet channel file.
+type Writer struct {
+	pw   *parquet.GenericWriter[any]
+	cols []chanfile.Column
+	rows []parquet.Row // reused
+	row  int64
+}
+
+// NewWriter starts a Parquet file on w with one optional DOUBLE column
+// per entry of cols, in that order, each holding values in the column's
+// Unit. A column must have a name, a unit, and not be a gauge column.
+func NewWriter(w io.Writer, cols []chanfile.Column, opt Options) (*Writer, error) {
+	if len(cols) == 0 {
+		return nil, &Error{Reason: "no columns"}
+	}
+	if len(cols) > MaxColumns {
+		return nil, &Error{Reason: fmt.Sprintf("%d columns, more than %d", len(cols), MaxColumns)}
+	}
+	g := parquet.Group{}
+	order := make([]string, len(cols))
+	opts := []parquet.WriterOption{parquet.Compression(&parquet.Zstd)}
+	for i, c := range cols {
+		if c.Name == "" {
+			return nil, &Error{Column: i + 1, Reason: "a column without a name"}
+		}
+		if _, dup := g[c.Name]; dup {
+			return nil, &Error{Column: i + 1, Field: c.Name, Reason: "a second column of this name"}
+		}
+		if c.Gauge {
+			return nil, &Error{Column: i + 1, Field: c.Name, Reason: "a gauge column: the reader made it absolute; write it with Gauge false and its pressure unit"}
+		}
+		u := c.Unit.String()
+		if c.Unit.Equal(units.One()) {
+			u = "1"
+		}
+		if back, err := chanfile.ParseHeaderField("x [" + u + "]"); err != nil || !back.Unit.Equal(c.Unit) {
+			return nil, &Error{Column: i + 1, Field: c.Name, Reason: fmt.Sprintf("the unit %q would not read back", u), Err: err}
+		}
+		g[c.Name] = parquet.Optional(parquet.Leaf(parquet.DoubleType))
+		order[i] = c.Name
+		opts = append(opts, parquet.KeyValueMetadata(UnitKey+c.Name, u))
+	}
+	n := opt.RowGroupRows
+	if n <= 0 {
+		n = 1 << 17
+	}
+	opts = append(opts, parquet.MaxRowsPerRowGroup(int64(n)), parquet.CreatedBy("similis", "", ""))
+	schema := parquet.NewSchema("channels", orderedGroup{Group: g, order: order})
+	opts = append(opts, schema)
+	cfg, err := parquet.NewWriterConfig(opts...)
+	if err != nil {
+		return nil, &Error{Reason: "writer configuration", Err: err}
+	}
+	return &Writer{pw: parquet.NewGenericWriter[any](w, cfg), cols: cols}, nil
+}
+
+// Write writes the rows of s, one Series per column in the column's
+// order, converted from SI to each column's unit. The Series must have the
+// columns' dimensions and one length. A NaN is written as a null.
+func (w *Writer) Write(s []quantity.Series) error {
+	if len(s) != len(w.cols) {
+		return &Error{Reason: fmt.Sprintf("%d series for %d columns", len(s), len(w.cols))}
+	}
+	n := 0
+	for j, c := range w.cols {
+		if s[j].Dim() != c.Unit.Dim() {
+			return &Error{Column: j + 1, Field: c.Name, Reason: fmt.Sprintf("series of %s for a column in %v", quantity.Describe(s[j].Dim()), c.Unit), Err: quantity.ErrDimension}
+		}
+		if j == 0 {
+			n = s[j].Len()
+		} else if s[j].Len() != n {
+			return &Error{Column: j + 1, Field: c.Name, Reason: fmt.Sprintf("series of %d values, column 1 has %d", s[j].Len(), n)}
+		}
+	}
+	const chunk = 1024
+	if w.rows == nil {
+		w.rows = make([]parquet.Row, chunk)
+	}
+	for start := 0; start < n; start += chunk {
+		m := min(chunk, n-start)
+		for i := 0; i < m; i++ {
+			row := w.rows[i][:0]
+			for j, c := range w.cols {
+				x := s[j].Values()[start+i]
+				if math.IsNaN(x) {
+					row = append(row, parquet.NullValue().Level(0, 0, j))
+					continue
+				}
+				if math.IsInf(x, 0) {
+					return &Error{Row: w.row + int64(i) + 1, Column: j + 1, Field: c.Name, Reason: "an infinite value: a file holds finite numbers or missing ones"}
+				}
+				v := (x - c.Unit.Offset()) / c.Unit.Factor()
+				row = append(row, parquet.DoubleValue(v).Level(0, 1, j))
+			}
+			w.rows[i] = row
+		}
+		if _, err := w.pw.WriteRows(w.rows[:m]); err != nil {
+			return &Error{Row: w.row + 1, Reason: "write failed", Err: err}
+		}
+		w.row += int64(m)
+	}
+	return nil
+}
+
+// Close writes the last row group and the footer. The file is not valid
+// until Close returns nil.
+func (w *Writer) Close() error {
+	if err := w.pw.Close(); err != nil {
+		return &Error{Reason: "closing the file", Err: err}
+	}
+	return nil
+}
