@@ -1,0 +1,212 @@
+package uncertain
+
+import (
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+
+	"gonum.org/v1/gonum/stat/distuv"
+
+	"similis.dev/similis/quantity"
+)
+
+// Line is one source's line in a budget.
+type Line struct {
+	ID     ID
+	Source Source
+	// Sensitivity is the sensitivity coefficient c = ∂y/∂x for the
+	// source's error, in the units of y per unit of the source's U (per
+	// 1 for a relative source).
+	Sensitivity quantity.Quantity
+	// Contribution is |c|·u(δ), in the units of y.
+	Contribution quantity.Quantity
+	// Percent is the share of u_c² that the source's own variance
+	// makes, 100·(c·u)²/u_c²; with correlations the shares need not sum
+	// to 100.
+	Percent float64
+}
+
+// Budget is the uncertainty statement of one value.
+type Budget struct {
+	Name  string // what the value is, for the report
+	Value quantity.Quantity
+	// U is the combined standard uncertainty u_c, correlations included.
+	U quantity.Quantity
+	// Systematic and Random are the parts of u_c from the sources of
+	// each effect, each with the correlations within it.
+	Systematic, Random quantity.Quantity
+	// DoF is the effective degrees of freedom by the Welch–Satterthwaite
+	// formula (GUM eq. G.2b); +Inf when every source has infinite
+	// degrees of freedom.
+	DoF float64
+	// Coverage is the coverage probability p, K the coverage factor
+	// (the Student t quantile for DoF), Expanded = K·U.
+	Coverage, K float64
+	Expanded    quantity.Quantity
+	// Correlated reports that correlations between distinct sources
+	// entered u_c; the Welch–Satterthwaite formula then holds only
+	// approximately (GUM G.4.1 assumes independent inputs).
+	Correlated bool
+	Lines      []Line // largest contribution first
+}
+
+// Budget returns the uncertainty budget of m at coverage probability p
+// (0.95 for the usual 95 % statement). Name labels the report.
+func (m Measured) Budget(name string, p float64) (Budget, error) {
+	if !(p > 0 && p < 1) {
+		return Budget{}, &Error{Reason: fmt.Sprintf("coverage probability %v: want 0 < p < 1", p)}
+	}
+	d := m.q.Dim()
+	uc2 := m.variance(-1)
+	b := Budget{
+		Name: name, Value: m.q, Coverage: p,
+		U:          quantity.New(math.Sqrt(uc2), d),
+		Systematic: quantity.New(math.Sqrt(m.variance(int(Systematic))), d),
+		Random:     quantity.New(math.Sqrt(m.variance(int(Random))), d),
+	}
+	var ws float64
+	for i := 0; i < int(m.n); i++ {
+		src := m.set.src[m.id[i]]
+		ci := m.d[i]
+		var c quantity.Quantity
+		if src.Relative {
+			c = quantity.New(ci/src.U.Value(), d)
+		} else {
+			c = quantity.New(ci, d).Div(src.U)
+		}
+		if src.U.Value() == 0 {
+			c = quantity.New(math.NaN(), c.Dim())
+		}
+		pct := 0.0
+		if uc2 > 0 {
+			pct = 100 * ci * ci / uc2
+		}
+		b.Lines = append(b.Lines, Line{ID: m.id[i], Source: src, Sensitivity: c, Contribution: quantity.New(math.Abs(ci), d), Percent: pct})
+		if src.DoF > 0 && !math.IsInf(src.DoF, 0) {
+			ws += ci * ci * ci * ci / src.DoF
+		}
+		for j := i + 1; j < int(m.n) && m.set.corr != nil; j++ {
+			if m.set.r(m.id[i], m.id[j]) != 0 {
+				b.Correlated = true
+			}
+		}
+	}
+	sort.SliceStable(b.Lines, func(i, j int) bool {
+		return b.Lines[i].Contribution.Value() > b.Lines[j].Contribution.Value()
+	})
+	b.DoF = math.Inf(1)
+	if ws > 0 {
+		b.DoF = uc2 * uc2 / ws
+	}
+	b.K = CoverageFactor(p, b.DoF)
+	b.Expanded = b.U.Scale(b.K)
+	return b, nil
+}
+
+// CoverageFactor returns the coverage factor for coverage probability p
+// and nu degrees of freedom: the (1+p)/2 quantile of Student's t
+// distribution (GUM G.3.4, Table G.2), or of the normal distribution for
+// infinite nu. A fractional nu is used as it is (GUM G.4.1 truncates it;
+// the difference is small and on the safe side only when truncated).
+func CoverageFactor(p, nu float64) float64 {
+	q := (1 + p) / 2
+	if math.IsInf(nu, 1) || nu > 1e7 {
+		return distuv.UnitNormal.Quantile(q)
+	}
+	return distuv.StudentsT{Mu: 0, Sigma: 1, Nu: nu}.Quantile(q)
+}
+
+// String returns the budget as a plain-text table.
+func (b Budget) String() string { return b.format(false) }
+
+// Markdown returns the budget as a Markdown table with its statement.
+func (b Budget) Markdown() string { return b.format(true) }
+
+func (b Budget) format(md bool) string {
+	var sb strings.Builder
+	name := b.Name
+	if name == "" {
+		name = "y"
+	}
+	dof := "∞"
+	if !math.IsInf(b.DoF, 1) {
+		dof = fmt.Sprintf("%.1f", b.DoF)
+	}
+	fmt.Fprintf(&sb, "%s = %.6g, u_c = %.3g (%.3g %%), ν_eff = %s, k = %.3f, U(%.0f %%) = %.3g  [SI: %s]\n",
+		name, b.Value.Value(), b.U.Value(), 100*b.U.Value()/math.Abs(b.Value.Value()), dof, b.K, 100*b.Coverage, b.Expanded.Value(), unitText(b.Value.Dim()))
+	fmt.Fprintf(&sb, "systematic part %.3g, random part %.3g\n", b.Systematic.Value(), b.Random.Value())
+	head := []string{"source", "type", "distribution", "effect", "u(source)", "c", "contribution", "% of u_c²"}
+	rows := [][]string{}
+	for _, l := range b.Lines {
+		u := fmt.Sprintf("%.3g %s", l.Source.U.Value(), unitText(l.Source.U.Dim()))
+		if l.Source.Relative {
+			u = fmt.Sprintf("%.3g %% of value", 100*l.Source.U.Value())
+		}
+		typ := l.Source.Type.String()
+		if l.Source.Type == TypeA {
+			typ = fmt.Sprintf("A (ν = %g)", l.Source.DoF)
+		}
+		dist := l.Source.Dist.String()
+		if l.Source.Type == TypeA {
+			dist = "t"
+		}
+		rows = append(rows, []string{l.Source.Name, typ, dist, l.Source.Effect.String(), u,
+			strings.TrimSuffix(fmt.Sprintf("%.4g %s", l.Sensitivity.Value(), unitText(l.Sensitivity.Dim())), " 1"),
+			fmt.Sprintf("%.3g", l.Contribution.Value()), fmt.Sprintf("%.1f", l.Percent)})
+	}
+	if md {
+		sb.WriteString("\n| " + strings.Join(head, " | ") + " |\n|")
+		for i := range head {
+			if i >= 4 {
+				sb.WriteString("---:|")
+			} else {
+				sb.WriteString("---|")
+			}
+		}
+		sb.WriteString("\n")
+		for _, r := range rows {
+			sb.WriteString("| " + strings.Join(r, " | ") + " |\n")
+		}
+	} else {
+		w := make([]int, len(head))
+		for i, h := range head {
+			w[i] = len([]rune(h))
+		}
+		for _, r := range rows {
+			for i, c := range r {
+				w[i] = max(w[i], len([]rune(c)))
+			}
+		}
+		line := func(r []string) {
+			for i, c := range r {
+				pad := strings.Repeat(" ", w[i]-len([]rune(c)))
+				if i >= 4 {
+					sb.WriteString(pad + c)
+				} else {
+					sb.WriteString(c + pad)
+				}
+				if i < len(r)-1 {
+					sb.WriteString("  ")
+				}
+			}
+			sb.WriteString("\n")
+		}
+		line(head)
+		for _, r := range rows {
+			line(r)
+		}
+	}
+	if b.Correlated {
+		sb.WriteString("correlated sources: u_c includes their covariance; ν_eff is approximate\n")
+	}
+	return sb.String()
+}
+
+// unitText writes a dimension in SI base units, "1" when dimensionless.
+func unitText(d quantity.Dim) string {
+	if d == 0 {
+		return "1"
+	}
+	return quantity.New(1, d).String()[2:]
+}

@@ -1,0 +1,46 @@
+// Package uncertain carries a measured Quantity together with its
+// standard uncertainty, propagated to first order through arithmetic and
+// the quantity functions as in JCGM 100:2008 (the GUM), §5.1 and §5.2.
+//
+// Every uncertainty comes from a named Source, registered in a Set: a
+// calibration, a repeatability, a resolution, a fluid-property
+// correlation. Each Source records what an uncertainty budget needs: its
+// standard uncertainty, whether it is a Type A evaluation (with its
+// degrees of freedom) or Type B (with the distribution assumed), and
+// whether it is a systematic or a random effect, as test-uncertainty
+// practice separates them.
+//
+// A Measured value holds its estimate and, for each source it depends on,
+// the derivative of the value with respect to that source's error (the
+// sensitivity coefficient times the source's standard uncertainty). The
+// derivatives are exact, carried forward through each operation by the
+// chain rule (forward-mode differentiation), not by finite differences.
+// Since each source keeps its identity, two inputs that share a source (two
+// transducers calibrated against one standard) are correlated
+// automatically: the standard's error enters both, and cancels in their
+// difference. Correlation between distinct sources is given with
+// Set.Correlate. The combined standard uncertainty is GUM eq. (13):
+//
+//	u_c²(y) = Σ_k d_k² + 2 Σ_{k<l} r_kl d_k d_l,   d_k = ∂y/∂δ_k · u(δ_k)
+//
+// Budget reports it with the effective degrees of freedom
+// (Welch–Satterthwaite, GUM eq. G.2b), the expanded uncertainty at a
+// chosen coverage probability with the Student t coverage factor, and a
+// table of contributions by source with the systematic and random parts
+// apart, as text or Markdown. MonteCarlo propagates the same model by
+// sampling, as in JCGM 101:2008, and Validate applies its §8 test to say
+// whether the first-order result holds for the model.
+//
+// Dimensions are checked exactly as for Quantity: adding a pressure to a
+// velocity panics with a *quantity.DimensionError, and Eval turns the
+// panic into an error. A value depends on at most MaxTerms sources; an
+// operation that would exceed it panics with a *TermsError, which Eval
+// also returns. Operations do not allocate.
+//
+// First-order propagation is exact for a model linear in its inputs and
+// an approximation otherwise; where the model is strongly nonlinear
+// within the inputs' uncertainty, check it with MonteCarlo. An
+// uncertainty statement for a rating, an acceptance test or a design
+// follows the procedure its standard prescribes and the judgment of the
+// engineer responsible.
+package uncertain

@@ -1,0 +1,220 @@
+package uncertain
+
+import (
+	"fmt"
+	"math"
+	"math/rand/v2"
+	"slices"
+
+	"gonum.org/v1/gonum/mat"
+	"gonum.org/v1/gonum/stat/distuv"
+
+	"similis.dev/similis/quantity"
+)
+
+// MonteCarloResult is the outcome of propagating distributions by
+// sampling (JCGM 101:2008, §7).
+type MonteCarloResult struct {
+	Trials int
+	Mean   quantity.Quantity // the estimate, the mean of the trials
+	U      quantity.Quantity // the standard deviation of the trials
+	// Low and High bound the probabilistically symmetric coverage
+	// interval at probability Coverage (JCGM 101 §7.7).
+	Low, High quantity.Quantity
+	Coverage  float64
+}
+
+// String formats the result as "y = …, u = …, 95 % interval [lo, hi]".
+func (r MonteCarloResult) String() string {
+	return fmt.Sprintf("Monte Carlo, %d trials: y = %.6g, u = %.3g, %.0f %% interval [%.6g, %.6g]  [SI]",
+		r.Trials, r.Mean.Value(), r.U.Value(), 100*r.Coverage, r.Low.Value(), r.High.Value())
+}
+
+// MonteCarlo propagates the distributions of the sources through model
+// by sampling. Each trial draws every source's error from its
+// distribution (Type A: a scaled and shifted t with its degrees of
+// freedom, JCGM 101 §6.4.9; Type B: the stated distribution with the
+// stated standard uncertainty; correlated sources: a correlated normal
+// draw), forms each input as its estimate plus its sources' errors, and
+// evaluates model on those inputs as exact values. The inputs are values
+// from Set.Measure (a derived value would be sampled by its linearization).
+// The generator is seeded by seed, so a run repeats exactly.
+func MonteCarlo(inputs []Measured, model func(x []Measured) Measured, trials int, p float64, seed uint64) (MonteCarloResult, error) {
+	if trials < 1000 {
+		return MonteCarloResult{}, &Error{Reason: fmt.Sprintf("%d trials: use at least 1000 (JCGM 101 §7.2.1 suggests 10⁶ for a 95 %% interval)", trials)}
+	}
+	if !(p > 0 && p < 1) {
+		return MonteCarloResult{}, &Error{Reason: fmt.Sprintf("coverage probability %v", p)}
+	}
+	var set *Set
+	for _, in := range inputs {
+		if in.set != nil {
+			if set != nil && in.set != set {
+				return MonteCarloResult{}, &Error{Reason: ErrSets.Error()}
+			}
+			set = in.set
+		}
+	}
+	// The sources used, and how to draw each one's standardized error.
+	var used []ID
+	for _, in := range inputs {
+		for i := 0; i < int(in.n); i++ {
+			if !slices.Contains(used, in.id[i]) {
+				used = append(used, in.id[i])
+			}
+		}
+	}
+	slices.Sort(used)
+	pos := map[ID]int{}
+	for i, id := range used {
+		pos[id] = i
+	}
+	// Correlated sources are drawn jointly normal by a Cholesky factor.
+	var chol *mat.Cholesky
+	var lower *mat.TriDense
+	correlated := false
+	if set != nil && set.corr != nil {
+		c := mat.NewSymDense(len(used), nil)
+		for i, a := range used {
+			for j, b := range used {
+				c.SetSym(i, j, set.r(a, b))
+				if i != j && set.r(a, b) != 0 {
+					correlated = true
+					if set.src[a].Dist != Normal || set.src[a].Type == TypeA {
+						return MonteCarloResult{}, &Error{Source: set.src[a].Name, Reason: "a correlated source is drawn jointly normal: give it Type B and a normal distribution"}
+					}
+				}
+			}
+		}
+		if correlated {
+			chol = new(mat.Cholesky)
+			if !chol.Factorize(c) {
+				return MonteCarloResult{}, &Error{Reason: "the correlation matrix is not positive definite"}
+			}
+			lower = mat.NewTriDense(len(used), mat.Lower, nil)
+			chol.LTo(lower)
+		}
+	}
+	rng := rand.New(rand.NewPCG(seed, seed^0x9e3779b97f4a7c15))
+	eps := make([]float64, len(used))
+	z := make([]float64, len(used))
+	x := make([]Measured, len(inputs))
+	ys := make([]float64, trials)
+	var dim quantity.Dim
+	for t := range trials {
+		for i, id := range used {
+			src := set.src[id]
+			switch {
+			case src.Type == TypeA:
+				nu := src.DoF
+				// A t variable scaled to the source's standard uncertainty:
+				// the t with ν has variance ν/(ν−2) (ν > 2).
+				tv := distuv.StudentsT{Mu: 0, Sigma: 1, Nu: nu, Src: rng}.Rand()
+				if nu > 2 {
+					tv *= math.Sqrt((nu - 2) / nu)
+				}
+				eps[i] = tv
+			case src.Dist == Normal:
+				eps[i] = rng.NormFloat64()
+			case src.Dist == Rectangular:
+				eps[i] = math.Sqrt(3) * (2*rng.Float64() - 1)
+			case src.Dist == Triangular:
+				eps[i] = math.Sqrt(6) * (rng.Float64() - rng.Float64())
+			case src.Dist == Arcsine:
+				eps[i] = math.Sqrt2 * math.Sin(2*math.Pi*rng.Float64())
+			}
+		}
+		if correlated {
+			// Replace the normal draws by correlated ones: ε = L·z.
+			for i, id := range used {
+				if set.src[id].Dist == Normal && set.src[id].Type == TypeB {
+					z[i] = eps[i]
+				} else {
+					z[i] = 0
+				}
+			}
+			for i := range used {
+				if set.src[used[i]].Dist != Normal || set.src[used[i]].Type == TypeA {
+					continue
+				}
+				var s float64
+				for j := 0; j <= i; j++ {
+					s += lower.At(i, j) * z[j]
+				}
+				eps[i] = s
+			}
+		}
+		for k, in := range inputs {
+			v := in.q.Value()
+			for i := 0; i < int(in.n); i++ {
+				v += in.d[i] * eps[pos[in.id[i]]]
+			}
+			x[k] = Exact(quantity.New(v, in.q.Dim()))
+		}
+		y, err := Eval(func() Measured { return model(x) })
+		if err != nil {
+			return MonteCarloResult{}, err
+		}
+		if t == 0 {
+			dim = y.Dim()
+		}
+		ys[t] = y.Value()
+	}
+	var mean float64
+	for _, y := range ys {
+		mean += y
+	}
+	mean /= float64(trials)
+	var ss float64
+	for _, y := range ys {
+		ss += (y - mean) * (y - mean)
+	}
+	slices.Sort(ys)
+	// Probabilistically symmetric interval: the (1−p)/2 and (1+p)/2
+	// quantiles of the sorted trials (JCGM 101 §7.7.1).
+	q := int(math.Round(p * float64(trials)))
+	r := int(math.Round(float64(trials-q) / 2))
+	lo, hi := ys[max(r-1, 0)], ys[min(r+q-1, trials-1)]
+	return MonteCarloResult{
+		Trials: trials, Coverage: p,
+		Mean: quantity.New(mean, dim), U: quantity.New(math.Sqrt(ss/float64(trials-1)), dim),
+		Low: quantity.New(lo, dim), High: quantity.New(hi, dim),
+	}, nil
+}
+
+// Validation is the comparison of a first-order budget with a Monte
+// Carlo result (JCGM 101 §8).
+type Validation struct {
+	Tolerance         float64 // δ, in SI
+	DLow, DHigh       float64 // |y − U_p − y_low|, |y + U_p − y_high|
+	Validated         bool
+	SignificantDigits int
+}
+
+// String says whether the first-order result is validated.
+func (v Validation) String() string {
+	verdict := "validated"
+	if !v.Validated {
+		verdict = "not validated: use the Monte Carlo interval"
+	}
+	return fmt.Sprintf("first order vs Monte Carlo (JCGM 101 §8, %d significant digits, δ = %.3g): d_low = %.3g, d_high = %.3g: %s",
+		v.SignificantDigits, v.Tolerance, v.DLow, v.DHigh, verdict)
+}
+
+// Validate compares the budget's interval y ± U_p with the Monte Carlo
+// coverage interval. The tolerance δ is half a unit in the last of ndig
+// significant digits of u_c (JCGM 101 §7.9.2, §8.2): u_c = c·10^l with c
+// an ndig-digit integer, δ = ½·10^l. Both ends must agree within δ.
+func (b Budget) Validate(mc MonteCarloResult, ndig int) Validation {
+	if ndig < 1 {
+		ndig = 2
+	}
+	u := b.U.Value()
+	l := math.Floor(math.Log10(u)) - float64(ndig-1)
+	delta := 0.5 * math.Pow(10, l)
+	y, up := b.Value.Value(), b.Expanded.Value()
+	v := Validation{Tolerance: delta, SignificantDigits: ndig,
+		DLow: math.Abs(y - up - mc.Low.Value()), DHigh: math.Abs(y + up - mc.High.Value())}
+	v.Validated = v.DLow <= delta && v.DHigh <= delta
+	return v
+}

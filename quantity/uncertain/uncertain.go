@@ -1,0 +1,493 @@
+package uncertain
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strings"
+
+	"similis.dev/similis/quantity"
+)
+
+// MaxTerms is the number of sources one Measured value can depend on.
+const MaxTerms = 16
+
+// Type is how a source's standard uncertainty was evaluated (GUM §4.2,
+// §4.3).
+type Type uint8
+
+const (
+	// TypeB is an evaluation by other means than statistics of repeated
+	// observations: a calibration certificate, a resolution, a
+	// specification, a handbook value.
+	TypeB Type = iota
+	// TypeA is a statistical evaluation of repeated observations, with
+	// its degrees of freedom.
+	TypeA
+)
+
+// String returns "A" or "B".
+func (t Type) String() string {
+	if t == TypeA {
+		return "A"
+	}
+	return "B"
+}
+
+// Distribution is the probability distribution assumed for a Type B
+// source (GUM §4.3.7–4.3.9; JCGM 101 §6.4). Its standard uncertainty is
+// given in the Source either way: for a rectangular distribution of
+// half-width a it is a/√3.
+type Distribution uint8
+
+const (
+	Normal      Distribution = iota // Gaussian
+	Rectangular                     // uniform over ±a, u = a/√3
+	Triangular                      // symmetric triangular over ±a, u = a/√6
+	Arcsine                         // U-shaped over ±a, u = a/√2
+)
+
+var distNames = [...]string{"normal", "rectangular", "triangular", "arcsine"}
+
+// String returns the distribution's name.
+func (d Distribution) String() string {
+	if int(d) < len(distNames) {
+		return distNames[d]
+	}
+	return fmt.Sprintf("Distribution(%d)", d)
+}
+
+// Effect says whether a source's error is the same in every repetition of
+// the test (systematic, such as a calibration) or varies between them
+// (random, such as a repeatability).
+type Effect uint8
+
+const (
+	Random Effect = iota
+	Systematic
+)
+
+// String returns "random" or "systematic".
+func (e Effect) String() string {
+	if e == Systematic {
+		return "systematic"
+	}
+	return "random"
+}
+
+// Source is one origin of uncertainty. U is its standard uncertainty: a
+// Quantity in the dimension of the values it is attached to, or, when
+// Relative is set, a dimensionless fraction of the value (0.001 for
+// 0.1 % of reading).
+type Source struct {
+	Name     string
+	U        quantity.Quantity
+	Relative bool
+	Type     Type
+	// DoF is the degrees of freedom: n−1 for a Type A mean of n
+	// readings. 0 means infinite, the usual choice for Type B.
+	DoF    float64
+	Dist   Distribution
+	Effect Effect
+}
+
+// ID identifies a source within its Set.
+type ID uint16
+
+// Set holds the sources of one uncertainty analysis and the correlations
+// between them. Values from different sets cannot be combined.
+type Set struct {
+	src  []Source
+	corr map[[2]ID]float64
+}
+
+// NewSet returns an empty set.
+func NewSet() *Set { return &Set{} }
+
+// Error reports a source or a measurement given wrongly. It matches
+// quantity.ErrInvalid under errors.Is.
+type Error struct {
+	Source string // the source's name, if any
+	Reason string
+}
+
+func (e *Error) Error() string {
+	if e.Source != "" {
+		return fmt.Sprintf("uncertain: source %q: %s", e.Source, e.Reason)
+	}
+	return "uncertain: " + e.Reason
+}
+
+// Is reports whether target is quantity.ErrInvalid.
+func (e *Error) Is(target error) bool { return target == quantity.ErrInvalid }
+
+// Add registers a source and returns its ID. A name may be used once.
+func (s *Set) Add(src Source) (ID, error) {
+	switch {
+	case strings.TrimSpace(src.Name) == "":
+		return 0, &Error{Reason: "a source without a name"}
+	case !(src.U.Value() >= 0) || math.IsInf(src.U.Value(), 0):
+		return 0, &Error{Source: src.Name, Reason: fmt.Sprintf("standard uncertainty %v: want a finite value ≥ 0", src.U)}
+	case src.Relative && !src.U.IsDimensionless():
+		return 0, &Error{Source: src.Name, Reason: fmt.Sprintf("a relative uncertainty is a fraction of the value, not %v", src.U)}
+	case src.DoF < 0 || math.IsNaN(src.DoF):
+		return 0, &Error{Source: src.Name, Reason: fmt.Sprintf("degrees of freedom %v", src.DoF)}
+	case src.Type == TypeA && (src.DoF == 0 || math.IsInf(src.DoF, 0)):
+		return 0, &Error{Source: src.Name, Reason: "a Type A evaluation needs its degrees of freedom (n−1 for the mean of n readings)"}
+	case src.Type == TypeA && src.Dist != Normal:
+		return 0, &Error{Source: src.Name, Reason: "a Type A evaluation has no assumed distribution: leave Dist as Normal"}
+	case int(src.Dist) >= len(distNames) || src.Type > TypeA || src.Effect > Systematic:
+		return 0, &Error{Source: src.Name, Reason: "unknown type, distribution or effect"}
+	case len(s.src) >= math.MaxUint16:
+		return 0, &Error{Source: src.Name, Reason: "too many sources in one set"}
+	}
+	for _, o := range s.src {
+		if o.Name == src.Name {
+			return 0, &Error{Source: src.Name, Reason: "a second source of this name: attach the same ID to share a source"}
+		}
+	}
+	s.src = append(s.src, src)
+	return ID(len(s.src) - 1), nil
+}
+
+// MustAdd is Add that panics on an error, for sources written in code.
+func (s *Set) MustAdd(src Source) ID {
+	id, err := s.Add(src)
+	if err != nil {
+		panic(err)
+	}
+	return id
+}
+
+// Source returns the source of id.
+func (s *Set) Source(id ID) Source { return s.src[id] }
+
+// Len returns the number of sources.
+func (s *Set) Len() int { return len(s.src) }
+
+// Correlate sets the correlation coefficient r (−1 ≤ r ≤ 1) between the
+// errors of two distinct sources (GUM §5.2.2).
+func (s *Set) Correlate(a, b ID, r float64) error {
+	if int(a) >= len(s.src) || int(b) >= len(s.src) {
+		return &Error{Reason: "a source not in this set"}
+	}
+	if a == b {
+		return &Error{Source: s.src[a].Name, Reason: "a source is fully correlated with itself already"}
+	}
+	if !(r >= -1 && r <= 1) {
+		return &Error{Source: s.src[a].Name, Reason: fmt.Sprintf("correlation %v with %q: want −1 ≤ r ≤ 1", r, s.src[b].Name)}
+	}
+	if a > b {
+		a, b = b, a
+	}
+	if s.corr == nil {
+		s.corr = map[[2]ID]float64{}
+	}
+	s.corr[[2]ID{a, b}] = r
+	return nil
+}
+
+// r returns the correlation coefficient of two sources.
+func (s *Set) r(a, b ID) float64 {
+	if a == b {
+		return 1
+	}
+	if a > b {
+		a, b = b, a
+	}
+	return s.corr[[2]ID{a, b}]
+}
+
+// Measure returns the measured value x with the sources ids attached: the
+// value is x plus each source's error (x times it, for a relative
+// source). Each absolute source must have x's dimension.
+func (s *Set) Measure(x quantity.Quantity, ids ...ID) (Measured, error) {
+	m := Measured{q: x, set: s}
+	if math.IsNaN(x.Value()) || math.IsInf(x.Value(), 0) {
+		return Measured{}, &Error{Reason: fmt.Sprintf("value %v: want a finite value", x)}
+	}
+	if len(ids) > MaxTerms {
+		return Measured{}, &TermsError{N: len(ids)}
+	}
+	for _, id := range ids {
+		if int(id) >= len(s.src) {
+			return Measured{}, &Error{Reason: fmt.Sprintf("source ID %d not in this set", id)}
+		}
+		src := s.src[id]
+		var d float64
+		if src.Relative {
+			d = x.Value() * src.U.Value()
+		} else {
+			if src.U.Dim() != x.Dim() {
+				return Measured{}, &Error{Source: src.Name, Reason: fmt.Sprintf("an uncertainty of %s attached to a value of %s", quantity.Describe(src.U.Dim()), quantity.Describe(x.Dim()))}
+			}
+			d = src.U.Value()
+		}
+		// Insert in order of ID; attaching a source twice adds its effect.
+		i := 0
+		for i < int(m.n) && m.id[i] < id {
+			i++
+		}
+		if i < int(m.n) && m.id[i] == id {
+			m.d[i] += d
+			continue
+		}
+		copy(m.id[i+1:m.n+1], m.id[i:m.n])
+		copy(m.d[i+1:m.n+1], m.d[i:m.n])
+		m.id[i], m.d[i] = id, d
+		m.n++
+	}
+	return m, nil
+}
+
+// MustMeasure is Measure that panics on an error.
+func (s *Set) MustMeasure(x quantity.Quantity, ids ...ID) Measured {
+	m, err := s.Measure(x, ids...)
+	if err != nil {
+		panic(err)
+	}
+	return m
+}
+
+// TermsError reports a value that would depend on more than MaxTerms
+// sources.
+type TermsError struct{ N int }
+
+func (e *TermsError) Error() string {
+	return fmt.Sprintf("uncertain: a value depending on %d or more sources, more than %d", e.N, MaxTerms)
+}
+
+// Is reports whether target is quantity.ErrInvalid.
+func (e *TermsError) Is(target error) bool { return target == quantity.ErrInvalid }
+
+// ErrSets is the error of combining values from two different Sets.
+var ErrSets = errors.New("uncertain: values from two different sets")
+
+// Measured is a Quantity with the derivatives of its value with respect
+// to the errors of its sources, scaled by their standard uncertainties.
+// It is a small comparable value; the zero Measured is an exact
+// dimensionless 0.
+type Measured struct {
+	q   quantity.Quantity
+	set *Set
+	n   uint8
+	id  [MaxTerms]ID
+	d   [MaxTerms]float64
+}
+
+// Exact returns q with no uncertainty: a defined constant, or a value
+// whose uncertainty is negligible by choice.
+func Exact(q quantity.Quantity) Measured { return Measured{q: q} }
+
+// Quantity returns the estimate.
+func (m Measured) Quantity() quantity.Quantity { return m.q }
+
+// Value returns the estimate in SI.
+func (m Measured) Value() float64 { return m.q.Value() }
+
+// Dim returns the dimension.
+func (m Measured) Dim() quantity.Dim { return m.q.Dim() }
+
+// Set returns the set of the value's sources, or nil for an exact value.
+func (m Measured) Set() *Set { return m.set }
+
+// Terms returns the number of sources the value depends on.
+func (m Measured) Terms() int { return int(m.n) }
+
+// Term returns the i-th source and the derivative of the value with
+// respect to its error, times its standard uncertainty, in SI: the
+// source's signed contribution c·u to the value's uncertainty.
+func (m Measured) Term(i int) (ID, float64) { return m.id[i], m.d[i] }
+
+// U returns the combined standard uncertainty (GUM eq. 13), correlations
+// included.
+func (m Measured) U() quantity.Quantity {
+	return quantity.New(math.Sqrt(m.variance(-1)), m.q.Dim())
+}
+
+// Rel returns the relative standard uncertainty u/|y|.
+func (m Measured) Rel() float64 { return math.Sqrt(m.variance(-1)) / math.Abs(m.q.Value()) }
+
+// variance returns Σ r_kl d_k d_l over all terms, or over the terms of
+// one Effect when e ≥ 0.
+func (m Measured) variance(e int) float64 {
+	var v float64
+	for i := 0; i < int(m.n); i++ {
+		if e >= 0 && int(m.set.src[m.id[i]].Effect) != e {
+			continue
+		}
+		v += m.d[i] * m.d[i]
+		if m.set.corr == nil {
+			continue
+		}
+		for j := i + 1; j < int(m.n); j++ {
+			if e >= 0 && int(m.set.src[m.id[j]].Effect) != e {
+				continue
+			}
+			if r := m.set.r(m.id[i], m.id[j]); r != 0 {
+				v += 2 * r * m.d[i] * m.d[j]
+			}
+		}
+	}
+	return max(v, 0)
+}
+
+// String formats the value as "1.234 m/s ± 0.012 m/s" (standard
+// uncertainty, SI).
+func (m Measured) String() string {
+	return fmt.Sprintf("%v ± %v", m.q, m.U())
+}
+
+// combine returns the terms of a·x + b·y: the chain rule for a result
+// whose partial derivatives are a with respect to x and b to y.
+func combine(v quantity.Quantity, a float64, x Measured, b float64, y Measured) Measured {
+	z := Measured{q: v, set: x.set}
+	if z.set == nil {
+		z.set = y.set
+	} else if y.set != nil && y.set != x.set {
+		panic(&setsError{})
+	}
+	i, j, k := 0, 0, 0
+	for i < int(x.n) || j < int(y.n) {
+		if k == MaxTerms {
+			panic(&TermsError{N: MaxTerms + 1})
+		}
+		switch {
+		case j == int(y.n) || i < int(x.n) && x.id[i] < y.id[j]:
+			z.id[k], z.d[k] = x.id[i], a*x.d[i]
+			i++
+		case i == int(x.n) || y.id[j] < x.id[i]:
+			z.id[k], z.d[k] = y.id[j], b*y.d[j]
+			j++
+		default:
+			z.id[k], z.d[k] = x.id[i], a*x.d[i]+b*y.d[j]
+			i++
+			j++
+		}
+		k++
+	}
+	z.n = uint8(k)
+	return z
+}
+
+// scale returns the terms of a·x with the value v.
+func scale(v quantity.Quantity, a float64, x Measured) Measured {
+	z := x
+	z.q = v
+	for i := 0; i < int(x.n); i++ {
+		z.d[i] = a * x.d[i]
+	}
+	return z
+}
+
+// setsError is the panic value for values of two sets; Eval returns it
+// as an error matching ErrSets.
+type setsError struct{}
+
+func (*setsError) Error() string        { return ErrSets.Error() }
+func (*setsError) Is(target error) bool { return target == ErrSets }
+
+// Add returns m + o; the dimensions must agree.
+func (m Measured) Add(o Measured) Measured { return combine(m.q.Add(o.q), 1, m, 1, o) }
+
+// Sub returns m − o; a source shared by both cancels as far as its
+// effect on them is equal.
+func (m Measured) Sub(o Measured) Measured { return combine(m.q.Sub(o.q), 1, m, -1, o) }
+
+// Mul returns m·o.
+func (m Measured) Mul(o Measured) Measured {
+	return combine(m.q.Mul(o.q), o.q.Value(), m, m.q.Value(), o)
+}
+
+// Div returns m/o.
+func (m Measured) Div(o Measured) Measured {
+	y := o.q.Value()
+	return combine(m.q.Div(o.q), 1/y, m, -m.q.Value()/(y*y), o)
+}
+
+// MulQ returns m·q for an exact q.
+func (m Measured) MulQ(q quantity.Quantity) Measured { return scale(m.q.Mul(q), q.Value(), m) }
+
+// DivQ returns m/q for an exact q.
+func (m Measured) DivQ(q quantity.Quantity) Measured { return scale(m.q.Div(q), 1/q.Value(), m) }
+
+// Scale returns f·m for an exact number f.
+func (m Measured) Scale(f float64) Measured { return scale(m.q.Scale(f), f, m) }
+
+// Neg returns −m.
+func (m Measured) Neg() Measured { return scale(m.q.Neg(), -1, m) }
+
+// Inv returns 1/m.
+func (m Measured) Inv() Measured {
+	x := m.q.Value()
+	return scale(m.q.Inv(), -1/(x*x), m)
+}
+
+// Pow returns m^(num/den), the exponent exact as for Quantity.Pow.
+func (m Measured) Pow(num, den int) Measured {
+	v := m.q.Pow(num, den)
+	x := m.q.Value()
+	return scale(v, float64(num)/float64(den)*v.Value()/x, m)
+}
+
+// Powf returns m^p for a dimensionless m, or for any m as
+// quantity.Powf allows.
+func (m Measured) Powf(p float64) Measured {
+	v := quantity.Powf(m.q, p)
+	return scale(v, p*v.Value()/m.q.Value(), m)
+}
+
+// Sqrt returns √m.
+func (m Measured) Sqrt() Measured {
+	v := m.q.Sqrt()
+	return scale(v, 0.5/v.Value(), m)
+}
+
+// Abs returns |m|.
+func (m Measured) Abs() Measured {
+	if m.q.Value() < 0 {
+		return m.Neg()
+	}
+	return m
+}
+
+// Log returns the natural logarithm of a dimensionless m.
+func Log(m Measured) Measured { return scale(quantity.Log(m.q), 1/m.q.Value(), m) }
+
+// Log10 returns the base-10 logarithm of a dimensionless m.
+func Log10(m Measured) Measured {
+	return scale(quantity.Log10(m.q), 1/(m.q.Value()*math.Ln10), m)
+}
+
+// Exp returns e^m for a dimensionless m.
+func Exp(m Measured) Measured {
+	v := quantity.Exp(m.q)
+	return scale(v, v.Value(), m)
+}
+
+// Sin returns sin m for an angle or dimensionless m.
+func Sin(m Measured) Measured { return scale(quantity.Sin(m.q), math.Cos(m.q.Value()), m) }
+
+// Cos returns cos m for an angle or dimensionless m.
+func Cos(m Measured) Measured { return scale(quantity.Cos(m.q), -math.Sin(m.q.Value()), m) }
+
+// Eval runs a formula on Measured values and returns a dimension error,
+// a *TermsError, or ErrSets as an error instead of a panic.
+func Eval(formula func() Measured) (m Measured, err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			switch e := r.(type) {
+			case *quantity.DimensionError:
+				err = e
+			case *TermsError:
+				err = e
+			case *setsError:
+				err = e
+			default:
+				panic(r)
+			}
+			m = Measured{}
+		}
+	}()
+	return formula(), nil
+}
