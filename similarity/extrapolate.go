@@ -205,10 +205,14 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 // ProhaskaResult is a form factor found by Prohaska's method.
 type ProhaskaResult struct {
 	FormFactor float64 // 1 + k, the intercept
-	Slope      float64 // m in C_T/C_F = (1 + k) + m·Fn⁴/C_F
-	R2         float64
-	Points     int // runs used (Fn ≤ MaxFroude)
-	MaxFroude  float64
+	// FormFactorStdErr is the standard error of the intercept from the
+	// regression (n − 2 degrees of freedom): the Type A part of the form
+	// factor's standard uncertainty.
+	FormFactorStdErr float64
+	Slope            float64 // m in C_T/C_F = (1 + k) + m·Fn⁴/C_F
+	R2               float64
+	Points           int // runs used (Fn ≤ MaxFroude)
+	MaxFroude        float64
 }
 
 // Prohaska finds the form factor from low-speed runs: a straight line
@@ -241,7 +245,17 @@ func Prohaska(froude, ct, cf []float64, maxFroude float64) (ProhaskaResult, erro
 	if math.IsNaN(a) || math.IsInf(a, 0) || math.IsNaN(b) || math.IsInf(b, 0) {
 		return ProhaskaResult{}, m("the fit is not finite")
 	}
-	return ProhaskaResult{FormFactor: a, Slope: b, R2: r2, Points: len(x), MaxFroude: maxFroude}, nil
+	// Standard error of the intercept: s·√(1/n + x̄²/Sxx), s² = Σe²/(n − 2).
+	n := float64(len(x))
+	xm := stat.Mean(x, nil)
+	var sxx, sse float64
+	for i := range x {
+		sxx += (x[i] - xm) * (x[i] - xm)
+		e := y[i] - a - b*x[i]
+		sse += e * e
+	}
+	se := math.Sqrt(sse/(n-2)) * math.Sqrt(1/n+xm*xm/sxx)
+	return ProhaskaResult{FormFactor: a, FormFactorStdErr: se, Slope: b, R2: r2, Points: len(x), MaxFroude: maxFroude}, nil
 }
 
 // ProhaskaFromTest applies Prohaska's method to a hull test's runs.

@@ -491,3 +491,16 @@ func Eval(formula func() Measured) (m Measured, err error) {
 	}()
 	return formula(), nil
 }
+
+// Apply returns y = f(m) for a function evaluated elsewhere — a property
+// correlation, a calibration curve — given its value y at m's estimate
+// and its derivative dydx there: the chain rule applied to each of m's
+// sources. The dimensions must agree: y's is dydx's times m's. It panics
+// with a *quantity.DimensionError if they do not, as arithmetic does.
+func Apply(m Measured, y, dydx quantity.Quantity) Measured {
+	want := dydx.Mul(m.q) // panics on an overflow of exponents
+	if want.Dim() != y.Dim() {
+		panic(&quantity.DimensionError{Op: "check", Name: "Apply: the function's value", Left: y.Dim(), Right: want.Dim(), Binary: true, Detail: "a value y = f(x) has the dimension of dy/dx times x"})
+	}
+	return scale(y, dydx.Value(), m)
+}

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"similis.dev/similis/internal/dual"
 	"similis.dev/similis/quantity"
 )
 
@@ -117,22 +118,25 @@ func (w Water) Name() string {
 	return fmt.Sprintf("sea water (S = %g g/kg)", w.Salinity)
 }
 
+// The water correlations are written once over dual numbers, so that
+// Slopes has their exact temperature derivatives.
+
 // freshDensity is the CIPM formula (Tanaka et al., 2001), kg/m³, t in °C.
-func freshDensity(t float64) float64 {
+func freshDensity(t dual.Num) dual.Num {
 	const a1, a2, a3, a4, a5 = -3.983035, 301.797, 522528.9, 69.34881, 999.974950
-	return a5 * (1 - (t+a1)*(t+a1)*(t+a2)/(a3*(t+a4)))
+	u := t.AddC(a1)
+	return dual.Const(1).Sub(u.Mul(u).Mul(t.AddC(a2)).Div(t.AddC(a4).Scale(a3))).Scale(a5)
 }
 
 // freshViscosity is the CRC Handbook correlation, Pa·s, t in °C.
-func freshViscosity(t float64) float64 {
-	if t <= 20 {
-		d := t - 20
-		lg := 1301/(998.333+8.1855*d+0.00585*d*d) - 3.30233 // log₁₀ of μ in poise
-		return 0.1 * math.Pow(10, lg)
+func freshViscosity(t dual.Num) dual.Num {
+	d := t.AddC(-20)
+	if t.V <= 20 {
+		lg := dual.Const(1301).Div(d.Poly(998.333, 8.1855, 0.00585)).AddC(-3.30233) // log₁₀ of μ in poise
+		return lg.Exp10().Scale(0.1)
 	}
 	const mu20 = 1.0016e-3
-	d := t - 20
-	return mu20 * math.Pow(10, (-1.3272*d-0.001053*d*d)/(t+105))
+	return d.Poly(0, -1.3272, -0.001053).Div(t.AddC(105)).Exp10().Scale(mu20)
 }
 
 // seaDensity is the one-atmosphere international equation of state of
@@ -143,22 +147,47 @@ func freshViscosity(t float64) float64 {
 // read as practical salinity by the reference-composition ratio of
 // TEOS-10, S_P = S_A·35/35.16504. Checked against IAPWS-08 (TEOS-10) to
 // 0.002 % between 0 and 40 °C and 5 to 40 g/kg (see the tests).
-func seaDensity(t90, sa float64) float64 {
-	t := 1.00024 * t90
+func seaDensity(t90 dual.Num, sa float64) dual.Num {
+	t := t90.Scale(1.00024)
 	s := sa * 35 / 35.16504
-	rw := 999.842594 + t*(6.793952e-2+t*(-9.095290e-3+t*(1.001685e-4+t*(-1.120083e-6+t*6.536332e-9))))
-	a := 8.24493e-1 + t*(-4.0899e-3+t*(7.6438e-5+t*(-8.2467e-7+t*5.3875e-9)))
-	b := -5.72466e-3 + t*(1.0227e-4-t*1.6546e-6)
+	rw := t.Poly(999.842594, 6.793952e-2, -9.095290e-3, 1.001685e-4, -1.120083e-6, 6.536332e-9)
+	a := t.Poly(8.24493e-1, -4.0899e-3, 7.6438e-5, -8.2467e-7, 5.3875e-9)
+	b := t.Poly(-5.72466e-3, 1.0227e-4, -1.6546e-6)
 	const c = 4.8314e-4
-	return rw + a*s + b*s*math.Sqrt(s) + c*s*s
+	return rw.Add(a.Scale(s)).Add(b.Scale(s * math.Sqrt(s))).AddC(c * s * s)
 }
 
 // seaViscosity follows Sharqawy et al. (2010), eq. 22, with S in kg/kg,
 // applied to the fresh-water viscosity above.
-func seaViscosity(t, s float64) float64 {
-	A := 1.541 + 1.998e-2*t - 9.52e-5*t*t
-	B := 7.974 - 7.561e-2*t + 4.724e-4*t*t
-	return freshViscosity(t) * (1 + A*s + B*s*s)
+func seaViscosity(t dual.Num, s float64) dual.Num {
+	A := t.Poly(1.541, 1.998e-2, -9.52e-5)
+	B := t.Poly(7.974, -7.561e-2, 4.724e-4)
+	return freshViscosity(t).Mul(A.Scale(s).Add(B.Scale(s * s)).AddC(1))
+}
+
+// properties returns ρ and μ of the water at t °C with their derivatives
+// with respect to t.
+func (w Water) properties(t float64) (rho, mu dual.Num) {
+	x := dual.Var(t)
+	if w.Salinity > 0 {
+		return seaDensity(x, w.Salinity), seaViscosity(x, w.Salinity/1000)
+	}
+	return freshDensity(x), freshViscosity(x)
+}
+
+// Slopes returns the derivatives with respect to temperature of the
+// water's density and kinematic viscosity at T, exact derivatives of the
+// correlations At uses: the sensitivity coefficients that carry a
+// temperature's uncertainty into ρ and ν (package quantity/uncertain).
+// T must be in At's range.
+func (w Water) Slopes(T quantity.Quantity) (dRho, dNu quantity.Quantity, err error) {
+	if _, err := w.At(T, quantity.New(101325, quantity.Pressure)); err != nil {
+		return quantity.Quantity{}, quantity.Quantity{}, err
+	}
+	rho, mu := w.properties(T.Value() - 273.15)
+	nu := mu.Div(rho)
+	perK := quantity.New(1, quantity.Temperature)
+	return quantity.New(rho.D, quantity.Density).Div(perK), quantity.New(nu.D, quantity.KinematicViscosity).Div(perK), nil
 }
 
 // At implements Fluid. Pressure is checked for its dimension but its
@@ -174,11 +203,8 @@ func (w Water) At(T, p quantity.Quantity) (State, error) {
 	if !(w.Salinity >= 0 && w.Salinity <= 45) {
 		return State{}, &RangeError{Fluid: w.Name(), What: "salinity (g/kg)", Value: w.Salinity, Lo: 0, Hi: 45}
 	}
-	rho, mu := freshDensity(t), freshViscosity(t)
-	if w.Salinity > 0 {
-		rho, mu = seaDensity(t, w.Salinity), seaViscosity(t, w.Salinity/1000)
-	}
-	return state(T.Value(), p.Value(), rho, mu, 0), nil
+	rho, mu := w.properties(t)
+	return state(T.Value(), p.Value(), rho.V, mu.V, 0), nil
 }
 
 // AtCelsius is At for a temperature in °C at standard atmospheric

@@ -116,3 +116,40 @@ func TestSutherland(t *testing.T) {
 	var f fluids.Fluid = c
 	_ = f
 }
+
+// TestSlopes: the exact temperature derivatives of the water correlations
+// agree with central differences of At, and the fresh-water density slope
+// at 20 °C is −β·ρ with the volumetric expansion coefficient
+// β = 2.07×10⁻⁴ K⁻¹ (handbook value, from memory).
+func TestSlopes(t *testing.T) {
+	for _, w := range []fluids.Water{fluids.FreshWater(), fluids.SeaWater()} {
+		for _, c := range []float64{2, 15, 19.9, 20.1, 30} {
+			T := q.New(c+273.15, q.Temperature)
+			dRho, dNu, err := w.Slopes(T)
+			if err != nil {
+				t.Fatal(err)
+			}
+			const h = 1e-4
+			lo, _ := w.AtCelsius(c - h)
+			hi, _ := w.AtCelsius(c + h)
+			fdRho := (hi.Density.Value() - lo.Density.Value()) / (2 * h)
+			fdNu := (hi.KinematicViscosity.Value() - lo.KinematicViscosity.Value()) / (2 * h)
+			if math.Abs(dRho.Value()-fdRho) > 1e-5*math.Abs(fdRho) || math.Abs(dNu.Value()-fdNu) > 1e-5*math.Abs(fdNu) {
+				t.Errorf("%s at %g °C: dρ/dT %v, dν/dT %v; differences give %v, %v", w.Name(), c, dRho, dNu, fdRho, fdNu)
+			}
+			wantRho, _ := q.Density.Div(q.Temperature)
+			wantNu, _ := q.KinematicViscosity.Div(q.Temperature)
+			if dRho.Dim() != wantRho || dNu.Dim() != wantNu {
+				t.Errorf("slopes of dimensions %v, %v", dRho.Dim(), dNu.Dim())
+			}
+		}
+	}
+	dRho, _, _ := fluids.FreshWater().Slopes(q.New(293.15, q.Temperature))
+	s, _ := fluids.FreshWater().AtCelsius(20)
+	if beta := -dRho.Value() / s.Density.Value(); math.Abs(beta-2.07e-4) > 0.01e-4 {
+		t.Errorf("β at 20 °C = %.4g K⁻¹, want 2.07e-4", beta)
+	}
+	if _, _, err := fluids.FreshWater().Slopes(q.New(350, q.Temperature)); err == nil {
+		t.Errorf("a slope outside the range: no error")
+	}
+}

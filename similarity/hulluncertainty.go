@@ -1,0 +1,166 @@
+package similarity
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/quantity/uncertain"
+	"similis.dev/similis/similarity/fluids"
+)
+
+// HullRun is one towed run with the uncertainty of every input, for
+// carrying the run to full scale with its uncertainty budget. The tank
+// and sea water properties follow from the measured temperatures through
+// the water correlations of package fluids, so a thermometer's
+// uncertainty reaches the result through density and viscosity, with the
+// correlations' exact temperature slopes (fluids.Water.Slopes).
+type HullRun struct {
+	// Scale is λ = L_model/L_ship, exact.
+	Scale float64
+	// ModelLength and ModelWettedArea are the model's waterline length
+	// and wetted surface.
+	ModelLength, ModelWettedArea uncertain.Measured
+	// ModelSpeed and ModelResistance are the run's measured speed and
+	// total resistance.
+	ModelSpeed, ModelResistance uncertain.Measured
+	// TankTemperature and SeaTemperature are thermodynamic temperatures
+	// (kelvin) of the tank water and the sea.
+	TankTemperature, SeaTemperature uncertain.Measured
+	// Tank and Sea are the waters (fluids.FreshWater(), fluids.SeaWater()).
+	Tank, Sea fluids.Water
+	// FormFactor is 1 + k (dimensionless), Allowance is C_A.
+	FormFactor, Allowance uncertain.Measured
+	// Gravity is g; g_n if zero.
+	Gravity quantity.Quantity
+}
+
+// HullRunResult is a run carried to full scale, each value with the
+// derivatives with respect to every source of the run, so that
+// ShipResistance.Budget and EffectivePower.Budget say which measurement
+// dominates.
+type HullRunResult struct {
+	Froude                      uncertain.Measured
+	ModelCT, ModelCF            uncertain.Measured
+	Residual                    uncertain.Measured // C_R = C_Tm − (1 + k)·C_Fm
+	ShipSpeed                   uncertain.Measured
+	ShipCF, ShipCT              uncertain.Measured
+	ShipResistance              uncertain.Measured
+	EffectivePower              uncertain.Measured
+	TankDensity, SeaDensity     uncertain.Measured
+	TankViscosity, SeaViscosity uncertain.Measured // kinematic viscosities
+	Caution                     string
+}
+
+// ittc1957 is the ITTC-1957 line on a Measured Reynolds number.
+func ittc1957(re uncertain.Measured) uncertain.Measured {
+	d := uncertain.Log10(re).Sub(uncertain.Exact(quantity.Scalar(2)))
+	return d.Mul(d).Inv().Scale(0.075)
+}
+
+// water returns ρ and ν of w at the measured temperature T.
+func water(w fluids.Water, T uncertain.Measured) (rho, nu uncertain.Measured, err error) {
+	s, err := w.At(T.Quantity(), quantity.New(101325, quantity.Pressure))
+	if err != nil {
+		return rho, nu, err
+	}
+	dRho, dNu, err := w.Slopes(T.Quantity())
+	if err != nil {
+		return rho, nu, err
+	}
+	return uncertain.Apply(T, s.Density, dRho), uncertain.Apply(T, s.KinematicViscosity, dNu), nil
+}
+
+// ExtrapolateHullRun carries one run to full scale by the same method as
+// ExtrapolateHull (ITTC-1957 line, form factor, allowance; Froude
+// similarity), propagating the inputs' uncertainties to first order. The
+// form factor's own uncertainty, if it comes from a Prohaska fit of the
+// same runs, shares their sources only approximately: give it as a
+// separate source (ProhaskaResult.FormFactorStdErr is its Type A part).
+func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
+	m := func(s string) error {
+		return &ExtrapolationError{Method: "hull extrapolation with uncertainty", Reason: s}
+	}
+	if !(r.Scale > 0 && r.Scale < 1) {
+		return HullRunResult{}, m(fmt.Sprintf("scale %v: want model/ship between 0 and 1", r.Scale))
+	}
+	for _, c := range []struct {
+		name string
+		v    uncertain.Measured
+		d    quantity.Dim
+	}{
+		{"model length", r.ModelLength, quantity.Length}, {"model wetted area", r.ModelWettedArea, quantity.Area},
+		{"model speed", r.ModelSpeed, quantity.Velocity}, {"model resistance", r.ModelResistance, quantity.Force},
+		{"tank temperature", r.TankTemperature, quantity.Temperature}, {"sea temperature", r.SeaTemperature, quantity.Temperature},
+		{"form factor", r.FormFactor, quantity.Dimensionless}, {"allowance", r.Allowance, quantity.Dimensionless},
+	} {
+		if err := c.v.Quantity().CheckNamed(c.name, c.d); err != nil {
+			return HullRunResult{}, err
+		}
+		if c.d != quantity.Dimensionless && !(c.v.Value() > 0) {
+			return HullRunResult{}, m(c.name + " must be positive")
+		}
+	}
+	if k := r.FormFactor.Value(); !(k >= 1 && k <= 2) {
+		return HullRunResult{}, m(fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", k))
+	}
+	g := r.Gravity
+	if g == (quantity.Quantity{}) {
+		g = quantity.New(9.80665, quantity.Acceleration)
+	}
+	if err := g.CheckNamed("gravity", quantity.Acceleration); err != nil {
+		return HullRunResult{}, err
+	}
+	var res HullRunResult
+	var err error
+	if res.TankDensity, res.TankViscosity, err = water(r.Tank, r.TankTemperature); err != nil {
+		return HullRunResult{}, m("tank water: " + err.Error())
+	}
+	if res.SeaDensity, res.SeaViscosity, err = water(r.Sea, r.SeaTemperature); err != nil {
+		return HullRunResult{}, m("sea water: " + err.Error())
+	}
+	res, err = hullRun(r, g, res)
+	if err != nil {
+		return HullRunResult{}, err
+	}
+	res.Caution = HullCaution
+	return res, nil
+}
+
+func hullRun(r HullRun, g quantity.Quantity, res HullRunResult) (HullRunResult, error) {
+	var reM, reS float64
+	_, err := uncertain.Eval(func() uncertain.Measured {
+		vm, lm, sm := r.ModelSpeed, r.ModelLength, r.ModelWettedArea
+		half := uncertain.Exact(quantity.Scalar(0.5))
+		res.Froude = vm.Div(lm.MulQ(g).Sqrt())
+		re := vm.Mul(lm).Div(res.TankViscosity)
+		reM = re.Value()
+		res.ModelCF = ittc1957(re)
+		res.ModelCT = r.ModelResistance.Div(half.Mul(res.TankDensity).Mul(vm).Mul(vm).Mul(sm))
+		res.Residual = res.ModelCT.Sub(r.FormFactor.Mul(res.ModelCF))
+		inv := 1 / r.Scale
+		res.ShipSpeed = vm.Scale(1 / math.Sqrt(r.Scale))
+		ls, ss := lm.Scale(inv), sm.Scale(inv*inv)
+		reShip := res.ShipSpeed.Mul(ls).Div(res.SeaViscosity)
+		reS = reShip.Value()
+		res.ShipCF = ittc1957(reShip)
+		res.ShipCT = r.FormFactor.Mul(res.ShipCF).Add(res.Residual).Add(r.Allowance)
+		res.ShipResistance = res.ShipCT.Mul(half.Mul(res.SeaDensity).Mul(res.ShipSpeed).Mul(res.ShipSpeed).Mul(ss))
+		res.EffectivePower = res.ShipResistance.Mul(res.ShipSpeed)
+		return res.EffectivePower
+	})
+	if err != nil {
+		var te *uncertain.TermsError
+		if errors.As(err, &te) {
+			return HullRunResult{}, &ExtrapolationError{Method: "hull extrapolation with uncertainty", Reason: fmt.Sprintf("more than %d sources for one run: combine some before the extrapolation", uncertain.MaxTerms)}
+		}
+		return HullRunResult{}, err
+	}
+	for _, re := range []float64{reM, reS} {
+		if !(re >= 1e5) {
+			return HullRunResult{}, &ExtrapolationError{Method: "ITTC-1957 line", Reason: fmt.Sprintf("Reynolds number %g is below 10⁵ or not finite", re)}
+		}
+	}
+	return res, nil
+}
