@@ -18,6 +18,7 @@ import (
 	"os"
 
 	q "similis.dev/similis/quantity"
+	"similis.dev/similis/quantity/uncertain"
 	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
 	"similis.dev/similis/units"
@@ -42,10 +43,59 @@ var (
 	resistances = []float64{1.105, 1.778, 2.600, 4.055, 7.270, 12.14, 22.30, 38.10} // N
 )
 
-// Outcome holds the two extrapolations, for the test.
+// Outcome holds the two extrapolations and the top-speed budget, for the
+// test.
 type Outcome struct {
 	Plain, WithForm *similarity.HullResult
 	Form            similarity.ProhaskaResult
+	Budget          Budgets
+}
+
+// Budgets are the uncertainty budgets of the top-speed run at full scale.
+type Budgets struct {
+	Run               similarity.HullRun
+	Result            similarity.HullRunResult
+	Resistance, Power uncertain.Budget
+}
+
+// topBudget carries the top-speed run to full scale with the invented
+// uncertainties of its measurements.
+func topBudget(scale, tankT, seaT, ca float64, form similarity.ProhaskaResult) (Budgets, error) {
+	set := uncertain.NewSet()
+	src := func(s uncertain.Source) uncertain.ID { return set.MustAdd(s) }
+	sys, rnd := uncertain.Systematic, uncertain.Random
+	speed := src(uncertain.Source{Name: "carriage speed", U: q.Scalar(0.001), Relative: true, Dist: uncertain.Rectangular, Effect: sys})
+	dyn := src(uncertain.Source{Name: "dynamometer calibration", U: q.New(0.05, q.Force), Effect: sys})
+	rep := src(uncertain.Source{Name: "resistance repeatability", U: q.New(0.06, q.Force), Type: uncertain.TypeA, DoF: 4, Effect: rnd})
+	therm := src(uncertain.Source{Name: "tank thermometer", U: q.New(0.2, q.Temperature), Effect: sys})
+	area := src(uncertain.Source{Name: "wetted area", U: q.Scalar(0.005), Relative: true, Effect: sys})
+	length := src(uncertain.Source{Name: "model length", U: q.New(0.001, q.Length), Effect: sys})
+	k := src(uncertain.Source{Name: "form factor (Prohaska fit)", U: q.Scalar(form.FormFactorStdErr), Type: uncertain.TypeA, DoF: float64(form.Points - 2), Effect: sys})
+	last := len(speeds) - 1
+	run := similarity.HullRun{
+		Scale:           1 / scale,
+		ModelLength:     set.MustMeasure(q.New(modelLength, q.Length), length),
+		ModelWettedArea: set.MustMeasure(q.New(modelArea, q.Area), area),
+		ModelSpeed:      set.MustMeasure(q.New(speeds[last], q.Velocity), speed),
+		ModelResistance: set.MustMeasure(q.New(resistances[last], q.Force), dyn, rep),
+		TankTemperature: set.MustMeasure(q.New(tankT+273.15, q.Temperature), therm),
+		SeaTemperature:  uncertain.Exact(q.New(seaT+273.15, q.Temperature)),
+		Tank:            fluids.FreshWater(), Sea: fluids.SeaWater(),
+		FormFactor: set.MustMeasure(q.Scalar(form.FormFactor), k),
+		Allowance:  uncertain.Exact(q.Scalar(ca)),
+	}
+	res, err := similarity.ExtrapolateHullRun(run)
+	if err != nil {
+		return Budgets{}, err
+	}
+	b := Budgets{Run: run, Result: res}
+	if b.Resistance, err = res.ShipResistance.Budget("R_s", 0.95); err != nil {
+		return Budgets{}, err
+	}
+	if b.Power, err = res.EffectivePower.Budget("P_E", 0.95); err != nil {
+		return Budgets{}, err
+	}
+	return b, nil
 }
 
 func run(w io.Writer, args []string) error {
@@ -125,6 +175,16 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	top := out.WithForm.Points[len(out.WithForm.Points)-1]
 	fmt.Fprintf(w, "\nat the top speed, with the form factor: R = %s, P_E = %s\n",
 		mustFormat(p, top.ShipResistance, "kN"), mustFormat(p, top.EffectivePower, "kW"))
+	if out.Budget, err = topBudget(*scale, *tankT, *seaT, *ca, out.Form); err != nil {
+		return nil, err
+	}
+	fmt.Fprintf(w, "\nUncertainty at the top speed (invented instrument figures; standard uncertainties, first order, GUM):\n")
+	fmt.Fprintf(w, "speed 0.1 %% (rectangular), dynamometer 0.05 N, repeatability 0.06 N (5 repeat runs), tank thermometer 0.2 K,\n")
+	fmt.Fprintf(w, "wetted area 0.5 %%, length 1 mm, 1 + k ± %.3f (Prohaska fit, ν = %d); C_A and the sea temperature taken as exact\n\n",
+		out.Form.FormFactorStdErr, out.Form.Points-2)
+	fmt.Fprint(w, out.Budget.Resistance.In("kN", 1e3))
+	fmt.Fprintln(w)
+	fmt.Fprint(w, out.Budget.Power.In("kW", 1e3))
 	fmt.Fprintln(w, "\nCAUTION:", similarity.HullCaution)
 	return out, nil
 }

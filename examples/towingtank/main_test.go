@@ -68,3 +68,53 @@ func TestHelp(t *testing.T) {
 		t.Errorf("-h: %v, %q", err, out.String())
 	}
 }
+
+// TestBudgetByHand checks the top-speed budget: R_s is the table's value;
+// the resistance measurement reaches R_s with the sensitivity
+// c = (ρ_s/ρ_m)·λ⁻³ (C_R carried at equal Fn; V_s²S_s/(V_m²S_m) = 16·256),
+// so its repeatability contributes c·0.06 N; the wetted area, as a relative
+// source, contributes |∂R_s/∂S_m|·0.005·S_m; the shares of u_c² add to
+// 100 % (no correlated sources); and P_E = R_s·V_s carries the same
+// relative parts plus the speed's own.
+func TestBudgetByHand(t *testing.T) {
+	var out bytes.Buffer
+	o, err := evaluate(&out, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b := o.Budget
+	top := o.WithForm.Points[len(o.WithForm.Points)-1]
+	if r := b.Result.ShipResistance.Value(); math.Abs(r/top.ShipResistance.Value()-1) > 1e-12 {
+		t.Errorf("budget R_s %v, table %v", r, top.ShipResistance)
+	}
+	rhoS, rhoM := o.WithForm.Test.Sea.Density.Value(), o.WithForm.Test.Tank.Density.Value()
+	c := rhoS / rhoM * 4096
+	var sum float64
+	for _, l := range b.Resistance.Lines {
+		sum += l.Percent
+		if l.Source.Name == "resistance repeatability" {
+			if math.Abs(l.Contribution.Value()-c*0.06) > 1e-9*c {
+				t.Errorf("repeatability contributes %v N, by hand %v N", l.Contribution.Value(), c*0.06)
+			}
+			if math.Abs(l.Sensitivity.Value()-c) > 1e-9*c {
+				t.Errorf("c = %v, by hand %v", l.Sensitivity.Value(), c)
+			}
+		}
+	}
+	if math.Abs(sum-100) > 1e-9 {
+		t.Errorf("shares add to %v %%", sum)
+	}
+	// u_c by hand as the root-sum-square of the lines.
+	var ss float64
+	for _, l := range b.Resistance.Lines {
+		ss += l.Contribution.Value() * l.Contribution.Value()
+	}
+	if math.Abs(math.Sqrt(ss)/b.Resistance.U.Value()-1) > 1e-12 {
+		t.Errorf("u_c %v, root-sum-square %v", b.Resistance.U.Value(), math.Sqrt(ss))
+	}
+	for _, want := range []string{"R_s = 130.797", "[kN]", "P_E = 1255.65", "[kW]", "tank thermometer", "form factor (Prohaska fit)", "invented instrument figures"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+}

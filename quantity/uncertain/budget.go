@@ -49,6 +49,19 @@ type Budget struct {
 	// approximately (GUM G.4.1 assumes independent inputs).
 	Correlated bool
 	Lines      []Line // largest contribution first
+	// Unit and Factor, if set by In, are the unit the report shows the
+	// value, its uncertainties and the contributions in (value in Unit =
+	// SI value / Factor). Sources and sensitivities stay in SI.
+	Unit   string
+	Factor float64
+}
+
+// In returns the budget reported in a unit of the caller's choice: unit
+// is its symbol and factor its size in SI (In("kN", 1000)). The figures
+// themselves are unchanged.
+func (b Budget) In(unit string, factor float64) Budget {
+	b.Unit, b.Factor = unit, factor
+	return b
 }
 
 // Budget returns the uncertainty budget of m at coverage probability p
@@ -133,13 +146,17 @@ func (b Budget) format(md bool) string {
 	if !math.IsInf(b.DoF, 1) {
 		dof = fmt.Sprintf("%.1f", b.DoF)
 	}
-	fmt.Fprintf(&sb, "%s = %.6g, u_c = %.3g (%.3g %%), ν_eff = %s, k = %.3f, U(%.0f %%) = %.3g  [SI: %s]\n",
-		name, b.Value.Value(), b.U.Value(), 100*b.U.Value()/math.Abs(b.Value.Value()), dof, b.K, 100*b.Coverage, b.Expanded.Value(), unitText(b.Value.Dim()))
-	fmt.Fprintf(&sb, "systematic part %.3g, random part %.3g\n", b.Systematic.Value(), b.Random.Value())
+	f, unit := 1.0, "SI: "+unitText(b.Value.Dim())
+	if b.Factor > 0 && b.Unit != "" {
+		f, unit = b.Factor, b.Unit
+	}
+	fmt.Fprintf(&sb, "%s = %.6g, u_c = %.3g (%.3g %%), ν_eff = %s, k = %.3f, U(%.0f %%) = %.3g  [%s]\n",
+		name, b.Value.Value()/f, b.U.Value()/f, 100*b.U.Value()/math.Abs(b.Value.Value()), dof, b.K, 100*b.Coverage, b.Expanded.Value()/f, unit)
+	fmt.Fprintf(&sb, "systematic part %.3g, random part %.3g [%s]; contributions in the same unit\n", b.Systematic.Value()/f, b.Random.Value()/f, unit)
 	head := []string{"source", "type", "distribution", "effect", "u(source)", "c", "contribution", "% of u_c²"}
 	rows := [][]string{}
 	for _, l := range b.Lines {
-		u := fmt.Sprintf("%.3g %s", l.Source.U.Value(), unitText(l.Source.U.Dim()))
+		u := strings.TrimSuffix(fmt.Sprintf("%.3g %s", l.Source.U.Value(), unitText(l.Source.U.Dim())), " 1")
 		if l.Source.Relative {
 			u = fmt.Sprintf("%.3g %% of value", 100*l.Source.U.Value())
 		}
@@ -153,7 +170,7 @@ func (b Budget) format(md bool) string {
 		}
 		rows = append(rows, []string{l.Source.Name, typ, dist, l.Source.Effect.String(), u,
 			strings.TrimSuffix(fmt.Sprintf("%.4g %s", l.Sensitivity.Value(), unitText(l.Sensitivity.Dim())), " 1"),
-			fmt.Sprintf("%.3g", l.Contribution.Value()), fmt.Sprintf("%.1f", l.Percent)})
+			fmt.Sprintf("%.3g", l.Contribution.Value()/f), fmt.Sprintf("%.1f", l.Percent)})
 	}
 	if md {
 		sb.WriteString("\n| " + strings.Join(head, " | ") + " |\n|")

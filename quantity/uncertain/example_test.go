@@ -53,7 +53,7 @@ func ExampleMeasured_Budget() {
 	fmt.Print(b)
 	// Output:
 	// C_T = 0.00459013, u_c = 1.9e-05 (0.414 %), ν_eff = 61.3, k = 1.999, U(95 %) = 3.8e-05  [SI: 1]
-	// systematic part 1.49e-05, random part 1.18e-05
+	// systematic part 1.49e-05, random part 1.18e-05 [SI: 1]; contributions in the same unit
 	// source                    type       distribution  effect           u(source)                      c  contribution  % of u_c²
 	// resistance repeatability  A (ν = 9)  t             random       0.08 kg·m·s⁻²  0.0001471 kg⁻¹·m⁻¹·s²      1.18e-05       38.3
 	// carriage speed            B          rectangular   systematic  0.1 % of value               -0.00918      9.18e-06       23.3
