@@ -26,6 +26,14 @@ type Evaluator struct {
 	factor   []float64 // per group: its numerical factor (Group.Factor)
 	nbuf     [evalBlock]float64
 	dbuf     [evalBlock]float64
+	// buffers of RowMeasured
+	qbuf       []quantity.Quantity
+	cbuf, gbuf []float64
+	// buffers of SeriesU
+	rbuf, shbuf []float64
+	colbuf      []quantity.Series
+	dstbuf      [][]float64
+	uterms      [][]uTerm
 }
 
 const evalBlock = 256

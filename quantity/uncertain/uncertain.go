@@ -504,3 +504,19 @@ func Apply(m Measured, y, dydx quantity.Quantity) Measured {
 	}
 	return scale(y, dydx.Value(), m)
 }
+
+// Linear returns a value y with the derivatives of Σ c_i·x_i: the chain
+// rule for y = f(x₁, …, x_n) evaluated elsewhere, given its partial
+// derivatives c_i = ∂f/∂x_i in SI at the estimates. Used where a
+// function is cheaper to evaluate on plain numbers, such as a product of
+// powers. The caller is responsible for the dimensions of c_i; y's is
+// taken as given.
+func Linear(y quantity.Quantity, c []float64, x []Measured) Measured {
+	z := Measured{q: y}
+	for i := range x {
+		if x[i].n > 0 {
+			z = combine(y, 1, z, c[i], x[i])
+		}
+	}
+	return z
+}
