@@ -71,6 +71,25 @@ func kernelM(p *rowsU) (uncertain.Measured, float64) {
 	return sum, su
 }
 
+// kernelP is kernelM written with the in-place forms.
+func kernelP(p *rowsU) (uncertain.Measured, float64) {
+	var sum, re, t, u, lg, f, dp uncertain.Measured
+	sum = uncertain.Exact(quantity.New(0, quantity.Pressure))
+	var su float64
+	rho, v, d, mu, eps, l := p.m[0], p.m[1], p.m[2], p.m[3], p.m[4], p.m[5]
+	for i := range rho {
+		re.SetMul(&rho[i], &v[i]).SetMul(&re, &d[i]).SetDiv(&re, &mu[i])
+		t.SetDiv(&eps[i], &d[i]).SetScale(&t, 1/3.7)
+		u.SetPowf(&re, 0.9).SetInv(&u).SetScale(&u, 5.74)
+		lg.SetAdd(&t, &u).SetLog10(&lg)
+		f.SetMul(&lg, &lg).SetInv(&f).SetScale(&f, 0.25)
+		dp.SetDiv(&l[i], &d[i]).SetMul(&dp, &f).SetMul(&dp, &rho[i]).SetMul(&dp, &v[i]).SetMul(&dp, &v[i]).SetScale(&dp, 0.5)
+		su += dp.U().Value()
+		sum.SetAdd(&sum, &dp)
+	}
+	return sum, su
+}
+
 var (
 	sinkQU quantity.Quantity
 	sinkMU uncertain.Measured
@@ -93,6 +112,12 @@ func BenchmarkKernelU(b *testing.B) {
 			sinkMU, sinkFU = kernelM(&p)
 		}
 	})
+	b.Run("inplace", func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			sinkMU, sinkFU = kernelP(&p)
+		}
+	})
 }
 
 // TestKernelU: the Measured kernel's values are the Quantity kernel's,
@@ -102,10 +127,14 @@ func BenchmarkKernelU(b *testing.B) {
 // Δp each).
 func TestKernelU(t *testing.T) {
 	p := makeRowsU()
-	m, _ := kernelM(&p)
+	m, su := kernelM(&p)
 	q := kernelQ(&p)
 	if m.Quantity() != q {
 		t.Errorf("Measured Σ Δp %v, Quantity %v", m.Quantity(), q)
+	}
+	mp, sup := kernelP(&p)
+	if mp != m || sup != su {
+		t.Errorf("in-place forms give %v (Σu %v), value forms %v (Σu %v)", mp, sup, m, su)
 	}
 	one := rowsU{}
 	for k := range 6 {

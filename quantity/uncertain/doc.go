@@ -35,7 +35,10 @@
 // velocity panics with a *quantity.DimensionError, and Eval turns the
 // panic into an error. A value depends on at most MaxTerms sources; an
 // operation that would exceed it panics with a *TermsError, which Eval
-// also returns. Operations do not allocate.
+// also returns. Operations do not allocate. A Measured is a value of
+// about 200 bytes; in a loop over many rows the in-place forms
+// (z.SetMul(x, y), z.SetAdd(x, y), …) write into a destination through
+// pointers and copy nothing, with results identical to the value forms.
 //
 // First-order propagation is exact for a model linear in its inputs and
 // an approximation otherwise; where the model is strongly nonlinear

@@ -340,40 +340,91 @@ func (m Measured) String() string {
 
 // combine returns the terms of a·x + b·y: the chain rule for a result
 // whose partial derivatives are a with respect to x and b to y.
-func combine(v quantity.Quantity, a float64, x Measured, b float64, y Measured) Measured {
-	z := Measured{q: v, set: x.set}
-	if z.set == nil {
-		z.set = y.set
-	} else if y.set != nil && y.set != x.set {
+func combine(v quantity.Quantity, a float64, x *Measured, b float64, y *Measured) (z Measured) {
+	mergeInto(&z, v, a, x, b, y)
+	return z
+}
+
+// mergeInto sets *z to combine's result; z must not be x or y.
+func mergeInto(z *Measured, v quantity.Quantity, a float64, x *Measured, b float64, y *Measured) {
+	old := z.n
+	mergeTerms(z, v, a, x, b, y)
+	z.clearFrom(old) // a reused z: no stale terms past the new n
+}
+
+// mergeTerms writes the terms of a·x + b·y into z.
+func mergeTerms(z *Measured, v quantity.Quantity, a float64, x *Measured, b float64, y *Measured) {
+	z.q = v
+	switch {
+	case y.n == 0:
+		z.set, z.n, z.id = x.set, x.n, x.id
+		for i := 0; i < int(x.n); i++ {
+			z.d[i] = a * x.d[i]
+		}
+		return
+	case x.n == 0:
+		z.set, z.n, z.id = y.set, y.n, y.id
+		for i := 0; i < int(y.n); i++ {
+			z.d[i] = b * y.d[i]
+		}
+		return
+	case x.set != y.set:
 		panic(&setsError{})
+	case x.n == y.n && x.id == y.id:
+		// The same sources, the common case along a chain of operations.
+		z.set, z.n, z.id = x.set, x.n, x.id
+		for i := 0; i < int(x.n); i++ {
+			z.d[i] = a*x.d[i] + b*y.d[i]
+		}
+		return
 	}
+	z.set = x.set
 	i, j, k := 0, 0, 0
-	for i < int(x.n) || j < int(y.n) {
+	xn, yn := int(x.n), int(y.n)
+	for i < xn && j < yn {
 		if k == MaxTerms {
 			panic(&TermsError{N: MaxTerms + 1})
 		}
+		xi, yj := x.id[i], y.id[j]
 		switch {
-		case j == int(y.n) || i < int(x.n) && x.id[i] < y.id[j]:
-			z.id[k], z.d[k] = x.id[i], a*x.d[i]
+		case xi < yj:
+			z.id[k], z.d[k] = xi, a*x.d[i]
 			i++
-		case i == int(x.n) || y.id[j] < x.id[i]:
-			z.id[k], z.d[k] = y.id[j], b*y.d[j]
+		case yj < xi:
+			z.id[k], z.d[k] = yj, b*y.d[j]
 			j++
 		default:
-			z.id[k], z.d[k] = x.id[i], a*x.d[i]+b*y.d[j]
+			z.id[k], z.d[k] = xi, a*x.d[i]+b*y.d[j]
 			i++
 			j++
 		}
 		k++
 	}
+	if k+(xn-i)+(yn-j) > MaxTerms {
+		panic(&TermsError{N: k + (xn - i) + (yn - j)})
+	}
+	for ; i < xn; i++ {
+		z.id[k], z.d[k] = x.id[i], a*x.d[i]
+		k++
+	}
+	for ; j < yn; j++ {
+		z.id[k], z.d[k] = y.id[j], b*y.d[j]
+		k++
+	}
 	z.n = uint8(k)
-	return z
+}
+
+// clearFrom zeroes the terms from z.n up to old, so that a reused
+// Measured compares equal to a fresh one with the same terms.
+func (z *Measured) clearFrom(old uint8) {
+	for i := z.n; i < old; i++ {
+		z.id[i], z.d[i] = 0, 0
+	}
 }
 
 // scale returns the terms of a·x with the value v.
-func scale(v quantity.Quantity, a float64, x Measured) Measured {
-	z := x
-	z.q = v
+func scale(v quantity.Quantity, a float64, x *Measured) (z Measured) {
+	z.q, z.set, z.n, z.id = v, x.set, x.n, x.id
 	for i := 0; i < int(x.n); i++ {
 		z.d[i] = a * x.d[i]
 	}
@@ -388,59 +439,59 @@ func (*setsError) Error() string        { return ErrSets.Error() }
 func (*setsError) Is(target error) bool { return target == ErrSets }
 
 // Add returns m + o; the dimensions must agree.
-func (m Measured) Add(o Measured) Measured { return combine(m.q.Add(o.q), 1, m, 1, o) }
+func (m Measured) Add(o Measured) Measured { return combine(m.q.Add(o.q), 1, &m, 1, &o) }
 
 // Sub returns m − o; a source shared by both cancels as far as its
 // effect on them is equal.
-func (m Measured) Sub(o Measured) Measured { return combine(m.q.Sub(o.q), 1, m, -1, o) }
+func (m Measured) Sub(o Measured) Measured { return combine(m.q.Sub(o.q), 1, &m, -1, &o) }
 
 // Mul returns m·o.
 func (m Measured) Mul(o Measured) Measured {
-	return combine(m.q.Mul(o.q), o.q.Value(), m, m.q.Value(), o)
+	return combine(m.q.Mul(o.q), o.q.Value(), &m, m.q.Value(), &o)
 }
 
 // Div returns m/o.
 func (m Measured) Div(o Measured) Measured {
 	y := o.q.Value()
-	return combine(m.q.Div(o.q), 1/y, m, -m.q.Value()/(y*y), o)
+	return combine(m.q.Div(o.q), 1/y, &m, -m.q.Value()/(y*y), &o)
 }
 
 // MulQ returns m·q for an exact q.
-func (m Measured) MulQ(q quantity.Quantity) Measured { return scale(m.q.Mul(q), q.Value(), m) }
+func (m Measured) MulQ(q quantity.Quantity) Measured { return scale(m.q.Mul(q), q.Value(), &m) }
 
 // DivQ returns m/q for an exact q.
-func (m Measured) DivQ(q quantity.Quantity) Measured { return scale(m.q.Div(q), 1/q.Value(), m) }
+func (m Measured) DivQ(q quantity.Quantity) Measured { return scale(m.q.Div(q), 1/q.Value(), &m) }
 
 // Scale returns f·m for an exact number f.
-func (m Measured) Scale(f float64) Measured { return scale(m.q.Scale(f), f, m) }
+func (m Measured) Scale(f float64) Measured { return scale(m.q.Scale(f), f, &m) }
 
 // Neg returns −m.
-func (m Measured) Neg() Measured { return scale(m.q.Neg(), -1, m) }
+func (m Measured) Neg() Measured { return scale(m.q.Neg(), -1, &m) }
 
 // Inv returns 1/m.
 func (m Measured) Inv() Measured {
 	x := m.q.Value()
-	return scale(m.q.Inv(), -1/(x*x), m)
+	return scale(m.q.Inv(), -1/(x*x), &m)
 }
 
 // Pow returns m^(num/den), the exponent exact as for Quantity.Pow.
 func (m Measured) Pow(num, den int) Measured {
 	v := m.q.Pow(num, den)
 	x := m.q.Value()
-	return scale(v, float64(num)/float64(den)*v.Value()/x, m)
+	return scale(v, float64(num)/float64(den)*v.Value()/x, &m)
 }
 
 // Powf returns m^p for a dimensionless m, or for any m as
 // quantity.Powf allows.
 func (m Measured) Powf(p float64) Measured {
 	v := quantity.Powf(m.q, p)
-	return scale(v, p*v.Value()/m.q.Value(), m)
+	return scale(v, p*v.Value()/m.q.Value(), &m)
 }
 
 // Sqrt returns √m.
 func (m Measured) Sqrt() Measured {
 	v := m.q.Sqrt()
-	return scale(v, 0.5/v.Value(), m)
+	return scale(v, 0.5/v.Value(), &m)
 }
 
 // Abs returns |m|.
@@ -452,24 +503,24 @@ func (m Measured) Abs() Measured {
 }
 
 // Log returns the natural logarithm of a dimensionless m.
-func Log(m Measured) Measured { return scale(quantity.Log(m.q), 1/m.q.Value(), m) }
+func Log(m Measured) Measured { return scale(quantity.Log(m.q), 1/m.q.Value(), &m) }
 
 // Log10 returns the base-10 logarithm of a dimensionless m.
 func Log10(m Measured) Measured {
-	return scale(quantity.Log10(m.q), 1/(m.q.Value()*math.Ln10), m)
+	return scale(quantity.Log10(m.q), 1/(m.q.Value()*math.Ln10), &m)
 }
 
 // Exp returns e^m for a dimensionless m.
 func Exp(m Measured) Measured {
 	v := quantity.Exp(m.q)
-	return scale(v, v.Value(), m)
+	return scale(v, v.Value(), &m)
 }
 
 // Sin returns sin m for an angle or dimensionless m.
-func Sin(m Measured) Measured { return scale(quantity.Sin(m.q), math.Cos(m.q.Value()), m) }
+func Sin(m Measured) Measured { return scale(quantity.Sin(m.q), math.Cos(m.q.Value()), &m) }
 
 // Cos returns cos m for an angle or dimensionless m.
-func Cos(m Measured) Measured { return scale(quantity.Cos(m.q), -math.Sin(m.q.Value()), m) }
+func Cos(m Measured) Measured { return scale(quantity.Cos(m.q), -math.Sin(m.q.Value()), &m) }
 
 // Eval runs a formula on Measured values and returns a dimension error,
 // a *TermsError, or ErrSets as an error instead of a panic.
@@ -502,7 +553,7 @@ func Apply(m Measured, y, dydx quantity.Quantity) Measured {
 	if want.Dim() != y.Dim() {
 		panic(&quantity.DimensionError{Op: "check", Name: "Apply: the function's value", Left: y.Dim(), Right: want.Dim(), Binary: true, Detail: "a value y = f(x) has the dimension of dy/dx times x"})
 	}
-	return scale(y, dydx.Value(), m)
+	return scale(y, dydx.Value(), &m)
 }
 
 // Linear returns a value y with the derivatives of Σ c_i·x_i: the chain
@@ -515,8 +566,102 @@ func Linear(y quantity.Quantity, c []float64, x []Measured) Measured {
 	z := Measured{q: y}
 	for i := range x {
 		if x[i].n > 0 {
-			z = combine(y, 1, z, c[i], x[i])
+			z = combine(y, 1, &z, c[i], &x[i])
 		}
 	}
 	return z
+}
+
+// In-place forms, for loops over many rows: the receiver z is the
+// destination, set and returned, and the operands are read through
+// pointers, so no value is copied; z may be one of the operands. They
+// panic as the value forms do.
+
+// into sets *z to a·x + b·y with the value v, as combine, writing in
+// place unless z is an operand.
+func (z *Measured) into(v quantity.Quantity, a float64, x *Measured, b float64, y *Measured) *Measured {
+	if z == x || z == y {
+		*z = combine(v, a, x, b, y)
+		return z
+	}
+	if x.n != 0 && y.n != 0 && (x.set != y.set || x.n != y.n || x.id != y.id) {
+		mergeInto(z, v, a, x, b, y)
+		return z
+	}
+	// No merge: one operand exact, or both on the same sources.
+	old := z.n
+	src := x
+	if x.n == 0 {
+		src = y
+	}
+	z.q, z.set, z.n, z.id = v, src.set, src.n, src.id
+	switch {
+	case y.n == 0:
+		for i := 0; i < int(x.n); i++ {
+			z.d[i] = a * x.d[i]
+		}
+	case x.n == 0:
+		for i := 0; i < int(y.n); i++ {
+			z.d[i] = b * y.d[i]
+		}
+	default:
+		for i := 0; i < int(x.n); i++ {
+			z.d[i] = a*x.d[i] + b*y.d[i]
+		}
+	}
+	z.clearFrom(old)
+	return z
+}
+
+// scaleInto sets *z to a·x with the value v; z may be x.
+func (z *Measured) scaleInto(v quantity.Quantity, a float64, x *Measured) *Measured {
+	old := z.n
+	z.q, z.set, z.n = v, x.set, x.n
+	if z != x {
+		z.id = x.id
+	}
+	for i := 0; i < int(x.n); i++ {
+		z.d[i] = a * x.d[i]
+	}
+	z.clearFrom(old)
+	return z
+}
+
+// SetAdd sets z to x + y and returns z.
+func (z *Measured) SetAdd(x, y *Measured) *Measured { return z.into(x.q.Add(y.q), 1, x, 1, y) }
+
+// SetSub sets z to x − y and returns z.
+func (z *Measured) SetSub(x, y *Measured) *Measured { return z.into(x.q.Sub(y.q), 1, x, -1, y) }
+
+// SetMul sets z to x·y and returns z.
+func (z *Measured) SetMul(x, y *Measured) *Measured {
+	return z.into(x.q.Mul(y.q), y.q.Value(), x, x.q.Value(), y)
+}
+
+// SetDiv sets z to x/y and returns z.
+func (z *Measured) SetDiv(x, y *Measured) *Measured {
+	w := y.q.Value()
+	return z.into(x.q.Div(y.q), 1/w, x, -x.q.Value()/(w*w), y)
+}
+
+// SetScale sets z to f·x and returns z.
+func (z *Measured) SetScale(x *Measured, f float64) *Measured {
+	return z.scaleInto(x.q.Scale(f), f, x)
+}
+
+// SetInv sets z to 1/x and returns z.
+func (z *Measured) SetInv(x *Measured) *Measured {
+	w := x.q.Value()
+	return z.scaleInto(x.q.Inv(), -1/(w*w), x)
+}
+
+// SetPowf sets z to x^p for a dimensionless x and returns z.
+func (z *Measured) SetPowf(x *Measured, p float64) *Measured {
+	v := quantity.Powf(x.q, p)
+	return z.scaleInto(v, p*v.Value()/x.q.Value(), x)
+}
+
+// SetLog10 sets z to log₁₀ x for a dimensionless x and returns z.
+func (z *Measured) SetLog10(x *Measured) *Measured {
+	return z.scaleInto(quantity.Log10(x.q), 1/(x.q.Value()*math.Ln10), x)
 }

@@ -313,3 +313,56 @@ func contribution(x, y, u float64) float64 {
 	_, d := z.Term(0)
 	return math.Abs(d)
 }
+
+// TestInPlace: the in-place forms give the value forms' results bit for
+// bit, whatever the aliasing, and a reused destination compares equal to
+// a fresh value (no stale terms).
+func TestInPlace(t *testing.T) {
+	rapid.Check(t, func(t *rapid.T) {
+		set := uncertain.NewSet()
+		var xs []uncertain.Measured
+		for k := range 4 {
+			var ids []uncertain.ID
+			for j := range rapid.IntRange(0, 3).Draw(t, "sources") {
+				ids = append(ids, set.MustAdd(uncertain.Source{Name: string(rune('a'+k)) + string(rune('0'+j)), U: quantity.Scalar(0.01), Relative: true}))
+			}
+			xs = append(xs, set.MustMeasure(quantity.Scalar(rapid.Float64Range(0.5, 2).Draw(t, "x")), ids...))
+		}
+		z := xs[0] // value form
+		var w uncertain.Measured
+		w = xs[0] // in-place form, reused throughout
+		for range rapid.IntRange(1, 12).Draw(t, "ops") {
+			o := rapid.IntRange(0, 7).Draw(t, "op")
+			k := rapid.IntRange(0, 3).Draw(t, "operand")
+			y := xs[k]
+			switch o {
+			case 0:
+				z, _ = z.Add(y), w.SetAdd(&w, &y)
+			case 1:
+				z, _ = z.Sub(y), w.SetSub(&w, &y)
+			case 2:
+				z, _ = z.Mul(y), w.SetMul(&w, &y)
+			case 3:
+				z, _ = z.Div(y), w.SetDiv(&w, &y)
+			case 4:
+				z, _ = y.Mul(z), w.SetMul(&y, &w)
+			case 5:
+				z, _ = z.Scale(1.5).Inv(), w.SetScale(&w, 1.5).SetInv(&w)
+			case 6:
+				if z.Value() > 0 {
+					z, _ = z.Powf(0.9), w.SetPowf(&w, 0.9)
+				}
+			case 7:
+				var fresh uncertain.Measured
+				fresh.SetAdd(&y, &y)
+				z, w = y.Add(y), fresh
+			}
+			if math.IsInf(z.Value(), 0) || math.IsNaN(z.Value()) {
+				return // a division by zero; NaN terms do not compare
+			}
+			if z != w {
+				t.Fatalf("op %d: value form %v, in place %v", o, z, w)
+			}
+		}
+	})
+}
