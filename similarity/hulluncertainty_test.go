@@ -135,3 +135,34 @@ func TestProhaskaStdErr(t *testing.T) {
 		t.Errorf("1 + k = %v ± %v, want −0.6667 ± 0.62361", r.FormFactor, r.FormFactorStdErr)
 	}
 }
+
+// TestMeasuredToPrototype: Froude scaling of a model force at 1:25 in the
+// same water, F_p = F_m·λ_L⁻³; with the length scale itself uncertain
+// (u_rel 0.2 %) the force carries 3 × 0.2 % from it, root-sum-square with
+// the force's own 0.5 % (GUM eq. 12, exponent-weighted).
+func TestMeasuredToPrototype(t *testing.T) {
+	s, err := similarity.Froude(similarity.Scales{Length: 1.0 / 25, Density: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	set := uncertain.NewSet()
+	f := set.MustMeasure(quantity.New(12.5, quantity.Force), set.MustAdd(uncertain.Source{Name: "force", U: quantity.Scalar(0.005), Relative: true}))
+	exact, err := s.MeasuredToPrototype(f, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(exact.Value()-12.5*15625) > 1e-9 || math.Abs(exact.Rel()-0.005) > 1e-15 {
+		t.Errorf("F_p = %v, want 195312.5 N ± 0.5 %%", exact)
+	}
+	lam := set.MustMeasure(quantity.Scalar(1.0/25), set.MustAdd(uncertain.Source{Name: "length scale", U: quantity.Scalar(0.002), Relative: true}))
+	got, err := s.MeasuredToPrototype(f, map[string]uncertain.Measured{"L": lam})
+	if err != nil {
+		t.Fatalf("parameters %v: %v", s.Params(), err)
+	}
+	if _, err := s.MeasuredToPrototype(f, map[string]uncertain.Measured{"X": lam}); err == nil {
+		t.Errorf("a ratio that is not a parameter accepted")
+	}
+	if want := math.Hypot(0.005, 3*0.002); math.Abs(got.Rel()-want) > 1e-12 {
+		t.Errorf("u_rel = %v, want %v", got.Rel(), want)
+	}
+}
