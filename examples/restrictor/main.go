@@ -26,6 +26,7 @@ import (
 
 	"similis.dev/similis/pigroups"
 	q "similis.dev/similis/quantity"
+	"similis.dev/similis/quantity/uncertain"
 	"similis.dev/similis/units"
 )
 
@@ -68,6 +69,93 @@ type Result struct {
 	Fit      *pigroups.PowerLaw
 	Groups   [][]float64 // per row: Eu, Re, L/d in the set's orientation
 	PNG, SVG string
+	Budget   RowBudget
+}
+
+// RowBudget is the uncertainty of one bench row, for the test.
+type RowBudget struct {
+	DP, DPIndependent uncertain.Measured // Δp with one standard for both transducers, and with two
+	Eu, Re, LD        uncertain.Measured
+	EuFit, Deviation  uncertain.Measured // the fit at the row, and measured − fitted
+	Budget            uncertain.Budget   // of Eu
+}
+
+// rowBudget works out the uncertainty of the row at 6.0 L/min through the
+// 12 mm restrictor. Δp is the difference of two absolute transducers,
+// P1 = 226.6 kPa and P2 = 200.0 kPa, both calibrated against the same
+// dead-weight tester, whose error therefore enters both alike and nearly
+// cancels in Δp. Every instrument figure is invented.
+func rowBudget(w io.Writer, set *pigroups.Set, fit *pigroups.PowerLaw) (RowBudget, error) {
+	src := uncertain.NewSet()
+	add := src.MustAdd
+	pa := q.New(1, q.Pressure)
+	sys, rnd := uncertain.Systematic, uncertain.Random
+	std := add(uncertain.Source{Name: "dead-weight tester (both)", U: q.Scalar(0.0005), Relative: true, Effect: sys})
+	res1 := add(uncertain.Source{Name: "P1 calibration residual", U: pa.Scale(50), Effect: sys})
+	res2 := add(uncertain.Source{Name: "P2 calibration residual", U: pa.Scale(50), Effect: sys})
+	rep1 := add(uncertain.Source{Name: "P1 repeatability", U: pa.Scale(30), Type: uncertain.TypeA, DoF: 9, Effect: rnd})
+	rep2 := add(uncertain.Source{Name: "P2 repeatability", U: pa.Scale(30), Type: uncertain.TypeA, DoF: 9, Effect: rnd})
+	flow := add(uncertain.Source{Name: "flow meter", U: q.Scalar(0.005), Relative: true, Effect: sys})
+	bore := add(uncertain.Source{Name: "bore (gauge pin)", U: q.New(0.01e-3, q.Length), Effect: sys})
+	length := add(uncertain.Source{Name: "length (caliper)", U: q.New(0.05e-3, q.Length), Dist: uncertain.Rectangular, Effect: sys})
+	dens := add(uncertain.Source{Name: "density (coolant data)", U: q.Scalar(0.002), Relative: true, Effect: sys})
+	visc := add(uncertain.Source{Name: "viscosity (coolant data)", U: q.Scalar(0.02), Relative: true, Effect: sys})
+
+	p1 := src.MustMeasure(pa.Scale(226.6e3), std, res1, rep1)
+	p2 := src.MustMeasure(pa.Scale(200.0e3), std, res2, rep2)
+	var rb RowBudget
+	rb.DP = p1.Sub(p2)
+	// The same readings had each transducer been calibrated against a
+	// standard of its own: the standards' errors no longer cancel.
+	alone := uncertain.NewSet()
+	s1 := alone.MustAdd(uncertain.Source{Name: "standard 1", U: q.Scalar(0.0005), Relative: true})
+	s2 := alone.MustAdd(uncertain.Source{Name: "standard 2", U: q.Scalar(0.0005), Relative: true})
+	o := alone.MustAdd(uncertain.Source{Name: "the rest", U: pa.Scale(math.Sqrt(2*50*50 + 2*30*30))})
+	rb.DPIndependent = alone.MustMeasure(pa.Scale(226.6e3), s1, o).Sub(alone.MustMeasure(pa.Scale(200.0e3), s2))
+
+	rho := src.MustMeasure(q.New(1050, q.Density), dens)
+	mu := src.MustMeasure(q.New(2.2e-3, q.DynamicViscosity), visc)
+	d := src.MustMeasure(q.New(6e-3, q.Length), bore)
+	l := src.MustMeasure(q.New(12e-3, q.Length), length)
+	qv := src.MustMeasure(q.New(6.0e-3/60, q.VolumeFlowRate), flow)
+	v := qv.Div(d.Mul(d).Scale(math.Pi / 4))
+	g := make([]uncertain.Measured, set.Len())
+	if _, err := set.Evaluator().RowMeasured([]uncertain.Measured{rb.DP, rho, v, d, mu, l}, g); err != nil {
+		return RowBudget{}, err
+	}
+	rb.Eu, rb.Re, rb.LD = g[0], g[1], g[2]
+	law, err := fit.Measured(src, "restrictor fit")
+	if err != nil {
+		return RowBudget{}, err
+	}
+	pr := pigroups.Prediction{}
+	if rb.EuFit, pr, err = law.Predict(rb.Re, rb.LD); err != nil {
+		return RowBudget{}, err
+	}
+	rb.Deviation = rb.Eu.Sub(rb.EuFit)
+	if rb.Budget, err = rb.Eu.Budget("Eu", 0.95); err != nil {
+		return RowBudget{}, err
+	}
+	dev, err := rb.Deviation.Budget("Eu − Eu_fit", 0.95)
+	if err != nil {
+		return RowBudget{}, err
+	}
+	fmt.Fprintf(w, "\nUncertainty of the row at 6.0 L/min, L = 12 mm (invented instrument figures; standard uncertainties, GUM):\n")
+	fmt.Fprintf(w, "Δp = P1 − P2 = %.1f kPa, u = %.3f kPa with both transducers calibrated on one dead-weight tester\n",
+		rb.DP.Value()/1e3, rb.DP.U().Value()/1e3)
+	fmt.Fprintf(w, "  (%.3f kPa had each its own standard of the same quality: the shared error cancels in the difference)\n", rb.DPIndependent.U().Value()/1e3)
+	fmt.Fprintf(w, "Re = %.0f ± %.0f, L/d = %.3f ± %.3f\n", rb.Re.Value(), rb.Re.U().Value(), rb.LD.Value(), rb.LD.U().Value())
+	fmt.Fprint(w, rb.Budget)
+	fmt.Fprintf(w, "the fit at this row: Eu = %.4f ± %.4f (fit and inputs)%s\n", rb.EuFit.Value(), rb.EuFit.U().Value(), note(pr))
+	fmt.Fprintf(w, "measured − fitted = %.4f, U(95 %%) = %.4f (the shared ρ, V, d cancel in part)\n", dev.Value.Value(), dev.Expanded.Value())
+	return rb, nil
+}
+
+func note(p pigroups.Prediction) string {
+	if p.Extrapolated {
+		return "; " + p.Note()
+	}
+	return ""
 }
 
 func run(w io.Writer, args []string) error { _, err := evaluate(w, args); return err }
@@ -163,6 +251,9 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		if pr, err := fit.Predict(out...); err == nil {
 			fmt.Fprintf(w, "  at Re = %.4g, L/d = 4: %s = %.4f — %s\n", out[0], gs[0].Label(), pr.Value, pr.Note())
 		}
+	}
+	if res.Budget, err = rowBudget(w, set, fit); err != nil {
+		return nil, err
 	}
 	if res.PNG, res.SVG, err = plotFit(*out, res); err != nil {
 		return nil, err

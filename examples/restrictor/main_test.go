@@ -63,3 +63,42 @@ func TestHelp(t *testing.T) {
 		t.Errorf("-h: %v, %q", err, out.String())
 	}
 }
+
+// TestRowBudgetByHand checks the row budget: u(Δp) with the shared
+// tester is √((0.0005·26.6 kPa)² + 2·(50 Pa)² + 2·(30 Pa)²) = 83.53 Pa, and
+// with two standards √((0.0005·226.6 kPa)² + (0.0005·200 kPa)² + 6800 Pa²)
+// = 172.2 Pa; Eu = Δp/(ρV²) with V = 4Q/(πd²) has the relative
+// uncertainty √((83.53/26600)² + 0.002² + 4·(0.005² + (2·0.01/6)²)) =
+// 1.258 % (GUM eq. 12, exponents exact); and the deviation from the fit
+// is the difference of two correlated values, not a root-sum-square.
+func TestRowBudgetByHand(t *testing.T) {
+	var out bytes.Buffer
+	r, err := evaluate(&out, []string{"-out", t.TempDir()})
+	if err != nil {
+		t.Fatal(err)
+	}
+	b := r.Budget
+	for _, c := range []struct {
+		name      string
+		got, want float64
+		tol       float64
+	}{
+		{"u(Δp), one tester", b.DP.U().Value(), math.Sqrt(math.Pow(0.0005*26600, 2) + 2*50*50 + 2*30*30), 1e-9},
+		{"u(Δp), two standards", b.DPIndependent.U().Value(), math.Sqrt(math.Pow(0.0005*226600, 2) + math.Pow(0.0005*200000, 2) + 6800), 1e-9},
+		{"u_rel(Eu)", b.Eu.Rel(), math.Sqrt(math.Pow(math.Sqrt(math.Pow(0.0005*26600, 2)+6800)/26600, 2) + 0.002*0.002 + 4*(0.005*0.005+math.Pow(2*0.01/6, 2))), 1e-12},
+		{"Eu", b.Eu.Value(), 26600 / (1050 * math.Pow(6.0e-3/60/(math.Pi/4*36e-6), 2)), 1e-12},
+	} {
+		if math.Abs(c.got-c.want) > c.tol*math.Abs(c.want) {
+			t.Errorf("%s = %.6g, by hand %.6g", c.name, c.got, c.want)
+		}
+	}
+	indep := math.Hypot(b.Eu.U().Value(), b.EuFit.U().Value())
+	if !(b.Deviation.U().Value() < indep) {
+		t.Errorf("u(Eu − Eu_fit) = %v, not below the independent %v: the shared sources should cancel in part", b.Deviation.U().Value(), indep)
+	}
+	for _, want := range []string{"flow meter", "dead-weight tester (both)", "invented instrument figures", "the shared error cancels"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+}

@@ -45,8 +45,10 @@ type Budget struct {
 	Coverage, K float64
 	Expanded    quantity.Quantity
 	// Correlated reports that correlations between distinct sources
-	// entered u_c; the Welch–Satterthwaite formula then holds only
-	// approximately (GUM G.4.1 assumes independent inputs).
+	// entered u_c. The Welch–Satterthwaite formula assumes independent
+	// terms (GUM G.4.1): correlated sources are then taken together, as
+	// one term with their joint variance and the smallest of their
+	// degrees of freedom, and DoF is an approximation.
 	Correlated bool
 	Lines      []Line // largest contribution first
 	// Unit and Factor, if set by In, are the unit the report shows the
@@ -96,13 +98,51 @@ func (m Measured) Budget(name string, p float64) (Budget, error) {
 			pct = 100 * ci * ci / uc2
 		}
 		b.Lines = append(b.Lines, Line{ID: m.id[i], Source: src, Sensitivity: c, Contribution: quantity.New(math.Abs(ci), d), Percent: pct})
-		if src.DoF > 0 && !math.IsInf(src.DoF, 0) {
-			ws += ci * ci * ci * ci / src.DoF
+	}
+	// Welch–Satterthwaite over groups of correlated sources: each group
+	// enters with its own variance (covariances included) and the
+	// smallest degrees of freedom among its sources; an uncorrelated
+	// source is a group of one, as in GUM eq. G.2b.
+	var group [MaxTerms]int
+	for i := range int(m.n) {
+		group[i] = i
+	}
+	var find func(i int) int
+	find = func(i int) int {
+		for group[i] != i {
+			i = group[i]
 		}
-		for j := i + 1; j < int(m.n) && m.set.corr != nil; j++ {
+		return i
+	}
+	for i := 0; i < int(m.n) && m.set.corr != nil; i++ {
+		for j := i + 1; j < int(m.n); j++ {
 			if m.set.r(m.id[i], m.id[j]) != 0 {
 				b.Correlated = true
+				group[find(j)] = find(i)
 			}
+		}
+	}
+	for g := range int(m.n) {
+		if find(g) != g {
+			continue
+		}
+		var v float64
+		nu := math.Inf(1)
+		for i := range int(m.n) {
+			if find(i) != g {
+				continue
+			}
+			if dof := m.set.src[m.id[i]].DoF; dof > 0 {
+				nu = min(nu, dof)
+			}
+			for j := range int(m.n) {
+				if find(j) == g {
+					v += m.set.r(m.id[i], m.id[j]) * m.d[i] * m.d[j]
+				}
+			}
+		}
+		if !math.IsInf(nu, 1) {
+			ws += v * v / nu
 		}
 	}
 	sort.SliceStable(b.Lines, func(i, j int) bool {
@@ -215,15 +255,30 @@ func (b Budget) format(md bool) string {
 		}
 	}
 	if b.Correlated {
-		sb.WriteString("correlated sources: u_c includes their covariance; ν_eff is approximate\n")
+		sb.WriteString("correlated sources: u_c includes their covariance; ν_eff takes each correlated group as one term with its smallest ν (approximate)\n")
 	}
 	return sb.String()
 }
 
-// unitText writes a dimension in SI base units, "1" when dimensionless.
+// derived names the SI derived units a budget shows by name (SI
+// Brochure, Table 4); other dimensions are written in base units.
+var derived = map[quantity.Dim]string{
+	quantity.Force: "N", quantity.Pressure: "Pa", quantity.Energy: "J", quantity.Power: "W",
+	quantity.DynamicViscosity: "Pa·s",
+}
+
+// unitText writes a dimension in SI units, "1" when dimensionless.
 func unitText(d quantity.Dim) string {
 	if d == 0 {
 		return "1"
+	}
+	if s, ok := derived[d]; ok {
+		return s
+	}
+	if inv, err := d.Inv(); err == nil {
+		if s, ok := derived[inv]; ok && !strings.Contains(s, "·") {
+			return s + "⁻¹"
+		}
 	}
 	return quantity.New(1, d).String()[2:]
 }

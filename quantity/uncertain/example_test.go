@@ -54,12 +54,12 @@ func ExampleMeasured_Budget() {
 	// Output:
 	// C_T = 0.00459013, u_c = 1.9e-05 (0.414 %), ν_eff = 61.3, k = 1.999, U(95 %) = 3.8e-05  [SI: 1]
 	// systematic part 1.49e-05, random part 1.18e-05 [SI: 1]; contributions in the same unit
-	// source                    type       distribution  effect           u(source)                      c  contribution  % of u_c²
-	// resistance repeatability  A (ν = 9)  t             random       0.08 kg·m·s⁻²  0.0001471 kg⁻¹·m⁻¹·s²      1.18e-05       38.3
-	// carriage speed            B          rectangular   systematic  0.1 % of value               -0.00918      9.18e-06       23.3
-	// wetted area               B          normal        systematic  0.2 % of value               -0.00459      9.18e-06       23.3
-	// dynamometer calibration   B          normal        systematic   0.05 kg·m·s⁻²  0.0001471 kg⁻¹·m⁻¹·s²      7.36e-06       15.0
-	// density (temperature)     B          normal        systematic      0.1 kg·m⁻³     -4.595e-06 kg⁻¹·m³      4.59e-07        0.1
+	// source                    type       distribution  effect           u(source)                   c  contribution  % of u_c²
+	// resistance repeatability  A (ν = 9)  t             random              0.08 N       0.0001471 N⁻¹      1.18e-05       38.3
+	// carriage speed            B          rectangular   systematic  0.1 % of value            -0.00918      9.18e-06       23.3
+	// wetted area               B          normal        systematic  0.2 % of value            -0.00459      9.18e-06       23.3
+	// dynamometer calibration   B          normal        systematic          0.05 N       0.0001471 N⁻¹      7.36e-06       15.0
+	// density (temperature)     B          normal        systematic      0.1 kg·m⁻³  -4.595e-06 kg⁻¹·m³      4.59e-07        0.1
 }
 
 // A Monte Carlo check of a first-order result (JCGM 101:2008): the

@@ -565,7 +565,7 @@ func Apply(m Measured, y, dydx quantity.Quantity) Measured {
 func Linear(y quantity.Quantity, c []float64, x []Measured) Measured {
 	z := Measured{q: y}
 	for i := range x {
-		if x[i].n > 0 {
+		if x[i].n > 0 && c[i] != 0 {
 			z = combine(y, 1, &z, c[i], &x[i])
 		}
 	}

@@ -366,3 +366,27 @@ func TestInPlace(t *testing.T) {
 		}
 	})
 }
+
+// TestDoFCorrelated: fully correlated sources of ν = 5 and ν = 10 enter
+// Welch–Satterthwaite as one term with ν = 5; with an independent Type B
+// term of equal size, ν_eff = (2v)²/(v²/5) = 20 (GUM eq. G.2b with the
+// group as one input).
+func TestDoFCorrelated(t *testing.T) {
+	set := uncertain.NewSet()
+	a := set.MustAdd(uncertain.Source{Name: "a", U: quantity.Scalar(0.5), Type: uncertain.TypeA, DoF: 5})
+	b := set.MustAdd(uncertain.Source{Name: "b", U: quantity.Scalar(0.5), Type: uncertain.TypeA, DoF: 10})
+	c := set.MustAdd(uncertain.Source{Name: "c", U: quantity.Scalar(1)})
+	if err := set.Correlate(a, b, 1); err != nil {
+		t.Fatal(err)
+	}
+	x := set.MustMeasure(quantity.Scalar(3), a, b, c) // the a–b group has u = 1
+	bd, err := x.Budget("x", 0.95)
+	if err != nil {
+		t.Fatal(err)
+	}
+	near(t, "u_c", bd.U.Value(), math.Sqrt2, 1e-12)
+	near(t, "ν_eff", bd.DoF, 20, 1e-9)
+	if !bd.Correlated || !strings.Contains(bd.String(), "correlated group") {
+		t.Errorf("budget does not say how ν_eff treats the correlated sources:\n%s", bd)
+	}
+}
