@@ -31,8 +31,6 @@ type Evaluator struct {
 	cbuf, gbuf []float64
 	// buffers of SeriesU
 	rbuf, shbuf []float64
-	colbuf      []quantity.Series
-	dstbuf      [][]float64
 	uterms      [][]uTerm
 }
 
