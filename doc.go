@@ -11,9 +11,13 @@
 //
 //   - quantity: dimensions (exact rational exponents of the seven SI base
 //     dimensions), the dimension-checked value Quantity, and Series, one
-//     channel of test data.
+//     channel of test data; quantity/uncertain carries a measured value
+//     with its named uncertainty sources (GUM first order with exact
+//     derivatives, budgets, a JCGM 101 Monte Carlo check).
 //   - units: the unit table, the unit-expression parser, conversion,
-//     printing and physical constants.
+//     printing and physical constants; units/formula, correlations as
+//     text; units/chanfile and units/chanfile/parquetfile, logged test
+//     channels in CSV/TSV and Parquet files with their units.
 //   - pigroups: Buckingham Pi sets from a chosen repeating set, named
 //     groups, evaluation over data and power-law fitting.
 //   - similarity: scale ratios, test plans and their conflicts, the
@@ -22,8 +26,9 @@
 //     finders and reports; similarity/fluids gives water, air and the
 //     ISO 2533 atmosphere.
 //   - internal/exact: algorithms only — exact elimination, rank, null
-//     space, fraction-free integer elimination; no type of it appears in
-//     an exported signature.
+//     space, fraction-free integer elimination; internal/dual, dual
+//     numbers for the exact slopes of the fluid correlations; no type of
+//     either appears in an exported signature.
 //   - examples/...: runnable programs on invented data.
 //
 // # Layers and the one algebra
