@@ -31,6 +31,8 @@ type Evaluator struct {
 	cbuf, gbuf []float64
 	// buffers of SeriesU
 	rbuf, shbuf []float64
+	colbuf      []quantity.Series
+	dstbuf      [][]float64
 	uterms      [][]uTerm
 }
 
@@ -154,14 +156,8 @@ func (e *Evaluator) Row(values []quantity.Quantity, dst []float64) ([]float64, e
 	return dst[:len(e.num)], nil
 }
 
-// Series evaluates every group over whole columns of data, one Series per
-// variable in variable order, writing group g's values into dst[g], which
-// must have the columns' length. A NaN input (a missing value) gives a
-// NaN group value in its row; a value out of range is an *EvalError
-// naming the group and the row. Dimensions and lengths are checked once;
-// the work is done in blocks, with no allocation. An Evaluator is not safe
-// for concurrent use by Series; use one per goroutine.
-func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
+// checkSeries checks the columns and destinations of Series once.
+func (e *Evaluator) checkSeries(cols []quantity.Series, dst [][]float64) error {
 	if len(cols) != len(e.dims) {
 		return &EvalError{Reason: fmt.Sprintf("%d columns for %d variables", len(cols), len(e.dims))}
 	}
@@ -182,6 +178,24 @@ func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
 		if len(dst[g]) < n {
 			return &EvalError{Reason: fmt.Sprintf("destination %d holds %d values, the columns %d", g, len(dst[g]), n)}
 		}
+	}
+	return nil
+}
+
+// Series evaluates every group over whole columns of data, one Series per
+// variable in variable order, writing group g's values into dst[g], which
+// must have the columns' length. A NaN input (a missing value) gives a
+// NaN group value in its row; a value out of range is an *EvalError
+// naming the group and the row. Dimensions and lengths are checked once;
+// the work is done in blocks, with no allocation. An Evaluator is not safe
+// for concurrent use by Series; use one per goroutine.
+func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
+	if err := e.checkSeries(cols, dst); err != nil {
+		return err
+	}
+	n := 0
+	if len(cols) > 0 {
+		n = cols[0].Len()
 	}
 	bad := false // a group value out of range somewhere: checked per block, redone after
 	for lo := 0; lo < n; lo += evalBlock {

@@ -68,7 +68,7 @@ type SharedSource struct {
 // Dimensions and lengths are checked once; no allocation once the
 // evaluator has run.
 func (e *Evaluator) SeriesU(cols, u []quantity.Series, shared []SharedSource, dst, udst [][]float64) error {
-	if err := e.Series(cols, dst); err != nil {
+	if err := e.checkSeries(cols, dst); err != nil {
 		return err
 	}
 	if len(u) != len(e.dims) {
@@ -131,8 +131,22 @@ func (e *Evaluator) SeriesU(cols, u []quantity.Series, shared []SharedSource, ds
 	if len(e.rbuf) < nv*uBlock {
 		e.rbuf = make([]float64, nv*uBlock)
 	}
+	if len(e.colbuf) < nv {
+		e.colbuf = make([]quantity.Series, nv)
+		e.dstbuf = make([][]float64, len(e.num))
+	}
 	for lo := 0; lo < n; lo += uBlock {
 		m := min(uBlock, n-lo)
+		// The values of this block, while its data are in cache.
+		for i := range nv {
+			e.colbuf[i] = quantity.NewSeries(cols[i].Values()[lo:lo+m], cols[i].Dim())
+		}
+		for g := range e.num {
+			e.dstbuf[g] = dst[g][lo : lo+m]
+		}
+		if err := e.Series(e.colbuf[:nv], e.dstbuf[:len(e.num)]); err != nil {
+			return e.Series(cols, dst) // the error, with its row in the whole data
+		}
 		for i := range nv {
 			rel := e.rbuf[i*uBlock : i*uBlock+m]
 			uv := u[i].Values()
@@ -322,4 +336,4 @@ func (m *MeasuredLaw) Predict(groups ...uncertain.Measured) (uncertain.Measured,
 
 // uBlock is the number of rows SeriesU works on at a time: its data
 // stay in cache between the values and the uncertainties.
-const uBlock = evalBlock
+const uBlock = 2048

@@ -107,8 +107,7 @@ func (m Measured) Budget(name string, p float64) (Budget, error) {
 	for i := range int(m.n) {
 		group[i] = i
 	}
-	var find func(i int) int
-	find = func(i int) int {
+	find := func(i int) int {
 		for group[i] != i {
 			i = group[i]
 		}
