@@ -4,9 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"slices"
-
-	"gonum.org/v1/gonum/stat"
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/fluids"
@@ -35,13 +32,7 @@ func (e *ExtrapolationError) Is(target error) bool { return target == quantity.E
 // ITTC1957 returns the ITTC-1957 model–ship correlation line,
 // C_F = 0.075/(log₁₀Re − 2)², for a Reynolds number above 10⁵ (the line
 // is not meant for laminar or transitional flow).
-func ITTC1957(re float64) (float64, error) {
-	if !(re >= 1e5) || math.IsInf(re, 0) {
-		return 0, &ExtrapolationError{Method: "ITTC-1957 line", Reason: fmt.Sprintf("Reynolds number %g is below 10⁵ or not finite", re)}
-	}
-	d := math.Log10(re) - 2
-	return 0.075 / (d * d), nil
-}
+func ITTC1957(re float64) (float64, error) { return LineITTC1957.CF(re) }
 
 // HullTest is a towing-tank resistance test to extrapolate to full scale
 // by Froude's hypothesis: the total resistance coefficient is a
@@ -72,6 +63,9 @@ type HullTest struct {
 	Allowance float64
 	// Gravity is g for the Froude number; g_n if zero.
 	Gravity quantity.Quantity
+	// Line is the friction line for C_F of model and ship; the zero
+	// value is the ITTC-1957 line, which the method is defined with.
+	Line FrictionLine
 }
 
 // HullPoint is one run carried to full scale.
@@ -174,14 +168,14 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 		p.ModelReynolds = Vm * Lm / t.Tank.KinematicViscosity.Value()
 		p.ModelCT = r.Value() / (0.5 * t.Tank.Density.Value() * Vm * Vm * Sm)
 		var err error
-		if p.ModelCF, err = ITTC1957(p.ModelReynolds); err != nil {
+		if p.ModelCF, err = t.Line.CF(p.ModelReynolds); err != nil {
 			return nil, &ExtrapolationError{Method: "hull extrapolation", Reason: fmt.Sprintf("run %d, model: %v", i, err)}
 		}
 		p.Residual = p.ModelCT - k1*p.ModelCF
 		Vs := Vm / math.Sqrt(t.Scale)
 		p.ShipSpeed = quantity.New(Vs, quantity.Velocity)
 		p.ShipReynolds = Vs * Ls / t.Sea.KinematicViscosity.Value()
-		if p.ShipCF, err = ITTC1957(p.ShipReynolds); err != nil {
+		if p.ShipCF, err = t.Line.CF(p.ShipReynolds); err != nil {
 			return nil, &ExtrapolationError{Method: "hull extrapolation", Reason: fmt.Sprintf("run %d, ship: %v", i, err)}
 		}
 		p.ShipCT = k1*p.ShipCF + p.Residual + t.Allowance
@@ -200,76 +194,6 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 		res.Points = append(res.Points, p)
 	}
 	return res, nil
-}
-
-// ProhaskaResult is a form factor found by Prohaska's method.
-type ProhaskaResult struct {
-	FormFactor float64 // 1 + k, the intercept
-	// FormFactorStdErr is the standard error of the intercept from the
-	// regression (n − 2 degrees of freedom): the Type A part of the form
-	// factor's standard uncertainty.
-	FormFactorStdErr float64
-	Slope            float64 // m in C_T/C_F = (1 + k) + m·Fn⁴/C_F
-	R2               float64
-	Points           int // runs used (Fn ≤ MaxFroude)
-	MaxFroude        float64
-}
-
-// Prohaska finds the form factor from low-speed runs: a straight line
-// through C_T/C_F against Fn⁴/C_F, whose intercept is 1 + k (C. W.
-// Prohaska, 1966). Only runs with Fn ≤ maxFroude are used (0.2 if zero;
-// ITTC practice is roughly 0.1 … 0.2); at least three are needed.
-func Prohaska(froude, ct, cf []float64, maxFroude float64) (ProhaskaResult, error) {
-	m := func(r string) error { return &ExtrapolationError{Method: "Prohaska", Reason: r} }
-	if maxFroude == 0 {
-		maxFroude = 0.2
-	}
-	if len(froude) != len(ct) || len(ct) != len(cf) {
-		return ProhaskaResult{}, m("Froude numbers, C_T and C_F differ in length")
-	}
-	var x, y []float64
-	for i, fn := range froude {
-		if fn <= maxFroude && fn > 0 && cf[i] > 0 && ct[i] > 0 {
-			x = append(x, fn*fn*fn*fn/cf[i])
-			y = append(y, ct[i]/cf[i])
-		}
-	}
-	if len(x) < 3 {
-		return ProhaskaResult{}, m(fmt.Sprintf("%d runs at Fn ≤ %g; at least 3 are needed", len(x), maxFroude))
-	}
-	if slices.Min(x) == slices.Max(x) {
-		return ProhaskaResult{}, m(fmt.Sprintf("the %d runs at Fn ≤ %g all have the same Fn⁴/C_F, so the line has no slope to fit: use runs at different speeds", len(x), maxFroude))
-	}
-	a, b := stat.LinearRegression(x, y, nil, false)
-	r2 := stat.RSquared(x, y, nil, a, b)
-	if math.IsNaN(a) || math.IsInf(a, 0) || math.IsNaN(b) || math.IsInf(b, 0) {
-		return ProhaskaResult{}, m("the fit is not finite")
-	}
-	// Standard error of the intercept: s·√(1/n + x̄²/Sxx), s² = Σe²/(n − 2).
-	n := float64(len(x))
-	xm := stat.Mean(x, nil)
-	var sxx, sse float64
-	for i := range x {
-		sxx += (x[i] - xm) * (x[i] - xm)
-		e := y[i] - a - b*x[i]
-		sse += e * e
-	}
-	se := math.Sqrt(sse/(n-2)) * math.Sqrt(1/n+xm*xm/sxx)
-	return ProhaskaResult{FormFactor: a, FormFactorStdErr: se, Slope: b, R2: r2, Points: len(x), MaxFroude: maxFroude}, nil
-}
-
-// ProhaskaFromTest applies Prohaska's method to a hull test's runs.
-func ProhaskaFromTest(t HullTest, maxFroude float64) (ProhaskaResult, error) {
-	t.FormFactor = 1
-	r, err := ExtrapolateHull(t)
-	if err != nil {
-		return ProhaskaResult{}, err
-	}
-	var fn, ct, cf []float64
-	for _, p := range r.Points {
-		fn, ct, cf = append(fn, p.Froude), append(ct, p.ModelCT), append(cf, p.ModelCF)
-	}
-	return Prohaska(fn, ct, cf, maxFroude)
 }
 
 // MoodyStepUp carries a model pump or turbine efficiency to the

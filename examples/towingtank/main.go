@@ -153,8 +153,12 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 		out.Plain.ShipLength.Value(), out.Plain.ShipWettedArea.Value())
 	fmt.Fprintf(w, "tank: fresh water %g °C, ρ = %.2f kg/m³, ν = %.4e m²/s; sea: %g °C, ρ = %.2f kg/m³, ν = %.4e m²/s\n",
 		*tankT, tank.Density.Value(), tank.KinematicViscosity.Value(), *seaT, sea.Density.Value(), sea.KinematicViscosity.Value())
-	fmt.Fprintf(w, "form factor by Prohaska (%d runs at Fn ≤ %g): 1 + k = %.3f (R² = %.3f); C_A = %g\n\n",
+	fmt.Fprintf(w, "form factor by Prohaska (%d runs at Fn ≤ %g): 1 + k = %.3f (R² = %.3f); C_A = %g\n",
 		out.Form.Points, out.Form.MaxFroude, out.Form.FormFactor, out.Form.R2, *ca)
+	if out.Form.Warning != "" {
+		fmt.Fprintf(w, "WARNING (form factor): %s\n", out.Form.Warning)
+	}
+	fmt.Fprintln(w)
 	fmt.Fprintf(w, "%6s %6s %8s %9s %9s %8s | %7s %9s %9s | %9s %9s\n", "Vm m/s", "Fn", "Rm N", "C_Tm×1e3", "C_Fm×1e3", "C_R×1e3",
 		"Vs kn", "R_s kN", "P_E kW", "R_s kN", "P_E kW")
 	fmt.Fprintf(w, "%62s %19s   %19s\n", "", "ITTC-1957", "with 1 + k")
