@@ -1,0 +1,327 @@
+package similarity
+
+import (
+	"fmt"
+	"math"
+	"slices"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity/fluids"
+)
+
+// OpenWaterPoint is one point of a propeller's open-water curve: the
+// advance ratio J = V_A/(nD), the thrust coefficient K_T = T/(ρn²D⁴) and
+// the torque coefficient K_Q = Q/(ρn²D⁵), with n in revolutions per
+// second (ITTC 7.5-02-03-02.1). K_Q is the coefficient itself, not 10K_Q.
+type OpenWaterPoint struct{ J, KT, KQ float64 }
+
+// PropellerGeometry is what the ITTC-1978 scale correction of the
+// propeller characteristics needs, at 0.75 of the radius.
+type PropellerGeometry struct {
+	Diameter       quantity.Quantity // the ship propeller's D
+	Blades         int               // Z
+	PitchRatio     float64           // P/D at 0.75R
+	Chord          quantity.Quantity // c at 0.75R, ship scale
+	ThicknessRatio float64           // t/c at 0.75R
+	// Roughness is the ship propeller's blade roughness k_P; 30 µm if
+	// zero (the procedure's standard value).
+	Roughness quantity.Quantity
+	// ModelReynolds is the model propeller's Reynolds number at 0.75R in
+	// the open-water test, Re_co = c·√(V_A² + (0.75πnD)²)/ν (model scale).
+	ModelReynolds float64
+}
+
+// PoweringInput is one speed of a ship's resistance, self-propulsion and
+// open-water tests, for the ITTC-1978 performance prediction.
+type PoweringInput struct {
+	// Scale is λ = L_model/L_ship.
+	Scale float64
+	// ModelLength (waterline), ModelWettedArea, ModelSpeed and
+	// ModelResistance are the resistance test's at this speed.
+	ModelLength, ModelWettedArea, ModelSpeed, ModelResistance quantity.Quantity
+	// Tank and Sea are the waters' states (density, kinematic viscosity).
+	Tank, Sea fluids.State
+	// FormFactor is 1 + k.
+	FormFactor float64
+	// HullRoughness is k_S; 150 µm if zero (the procedure's standard).
+	HullRoughness quantity.Quantity
+	// CorrelationAllowance is C_A, the basin's own.
+	CorrelationAllowance float64
+	// TransverseArea is the ship's projected area above water, A_VS,
+	// for the air resistance (zero: no air resistance); AirDensity is
+	// ρ_A (1.225 kg/m³ if zero) and AirDrag C_DA (0.8 if zero).
+	TransverseArea, AirDensity quantity.Quantity
+	AirDrag                    float64
+	// ModelWake (Taylor wake fraction w_TM from thrust identity),
+	// ThrustDeduction t and RelativeRotative η_R are the self-propulsion
+	// test's.
+	ModelWake, ThrustDeduction, RelativeRotative float64
+	// Propeller and OpenWater (the model's curve, at least three points
+	// in increasing J) describe the propeller.
+	Propeller PropellerGeometry
+	OpenWater []OpenWaterPoint
+	// Propellers is the number of propellers: 1 (single screw) or 2.
+	// With two, each carries half the thrust, and the wake is not scaled
+	// (w_TS = w_TM, the procedure's treatment of twin screws with open
+	// shafts).
+	Propellers int
+	// CP and CN are the correlation factors on delivered power and
+	// revolutions; 1 if zero.
+	CP, CN float64
+	// Gravity is g for the Froude number; g_n if zero.
+	Gravity quantity.Quantity
+}
+
+// PoweringResult is the full-scale prediction at one speed, with every
+// intermediate coefficient of the method.
+type PoweringResult struct {
+	Froude                      float64
+	ModelReynolds, ShipReynolds float64
+	ModelCT, ModelCF, Residual  float64 // C_TM, C_FM, C_R = C_TM − (1 + k)C_FM
+	ShipCF                      float64 // C_FS
+	RoughnessAllowance          float64 // ΔC_F
+	AirResistance               float64 // C_AAS
+	ShipCT                      float64 // C_TS
+	ShipSpeed, ShipResistance   quantity.Quantity
+	EffectivePower              quantity.Quantity // P_E = R_TS·V_S
+	ShipWake                    float64           // w_TS
+	DeltaCD, DeltaKT, DeltaKQ   float64           // propeller scale correction
+	Load                        float64           // K_T/J² of the ship's propeller
+	J, KT, KQ                   float64           // full-scale operating point (KQ without η_R)
+	Eta0, EtaH, EtaR, EtaD      float64           // open-water, hull, relative rotative, propulsive
+	// RevsPerSecond and RPM are the propeller's rate of revolution after
+	// C_N; PropellerSpeed is the same as an angular velocity (2πn).
+	RevsPerSecond, RPM float64
+	PropellerSpeed     quantity.Quantity
+	Thrust, Torque     quantity.Quantity // per propeller
+	// DeliveredPower is P_D of all propellers after C_P.
+	DeliveredPower quantity.Quantity
+	Caution        string
+}
+
+// PoweringCaution is printed with every powering prediction.
+const PoweringCaution = "Delivered power and propeller revolutions predicted from model tests by the ITTC-1978 method are estimates; " +
+	"the correlation factors are the basin's own, and machinery selection and trials follow the responsible naval architect and the applicable rules."
+
+// ITTC1978 predicts the ship's resistance, delivered power and propeller
+// revolutions at one speed by the ITTC-1978 performance prediction method
+// (ITTC Recommended Procedure 7.5-02-03-01.4; the formulas below are as
+// that procedure gives them, quoted from memory):
+//
+//	C_TS = (1 + k)C_FS + ΔC_F + C_A + C_R + C_AAS, C_F from the ITTC-1957 line
+//	ΔC_F = 0.044[(k_S/L_WL)^(1/3) − 10·Re_S^(−1/3)] + 0.000125
+//	C_AAS = C_DA·ρ_A·A_VS/(ρ_S·S_S)
+//	w_TS = (t + 0.04) + (w_TM − t − 0.04)·((1 + k)C_FS + ΔC_F)/((1 + k)C_FM)
+//	ΔC_D = C_DM − C_DS,  C_DM = 2(1 + 2t/c)[0.044/Re_co^(1/6) − 5/Re_co^(2/3)],
+//	                      C_DS = 2(1 + 2t/c)(1.89 + 1.62·log₁₀(c/k_P))^(−2.5)
+//	ΔK_T = −ΔC_D·0.3·(P/D)·(c·Z/D),  ΔK_Q = ΔC_D·0.25·(c·Z/D)
+//	K_T/J² = S·C_TS/(2N·D²(1 − t)(1 − w_TS)²)  → J_TS on the corrected curve
+//	n_S = (1 − w_TS)V_S/(J_TS·D),  P_DS = 2πρ_S·n_S³·D⁵·K_QTS/η_R per propeller
+//
+// The open-water curve is interpolated linearly between measured points;
+// a load outside the curve is an error, not an extrapolation.
+func ITTC1978(in PoweringInput) (PoweringResult, error) {
+	m := func(r string) error { return &ExtrapolationError{Method: "ITTC-1978 prediction", Reason: r} }
+	if !(in.Scale > 0 && in.Scale < 1) {
+		return PoweringResult{}, m(fmt.Sprintf("scale %v: want model/ship between 0 and 1", in.Scale))
+	}
+	for _, c := range []struct {
+		name string
+		q    quantity.Quantity
+		d    quantity.Dim
+	}{
+		{"model length", in.ModelLength, quantity.Length}, {"model wetted area", in.ModelWettedArea, quantity.Area},
+		{"model speed", in.ModelSpeed, quantity.Velocity}, {"model resistance", in.ModelResistance, quantity.Force},
+		{"tank density", in.Tank.Density, quantity.Density}, {"tank viscosity", in.Tank.KinematicViscosity, quantity.KinematicViscosity},
+		{"sea density", in.Sea.Density, quantity.Density}, {"sea viscosity", in.Sea.KinematicViscosity, quantity.KinematicViscosity},
+		{"propeller diameter", in.Propeller.Diameter, quantity.Length}, {"propeller chord", in.Propeller.Chord, quantity.Length},
+	} {
+		if err := c.q.CheckNamed(c.name, c.d); err != nil {
+			return PoweringResult{}, err
+		}
+		if !(c.q.Value() > 0) || math.IsInf(c.q.Value(), 0) {
+			return PoweringResult{}, m(c.name + " must be positive and finite")
+		}
+	}
+	ks, err := orDefault(in.HullRoughness, 150e-6, quantity.Length, "hull roughness")
+	if err != nil {
+		return PoweringResult{}, err
+	}
+	kp, err := orDefault(in.Propeller.Roughness, 30e-6, quantity.Length, "propeller roughness")
+	if err != nil {
+		return PoweringResult{}, err
+	}
+	rhoA, err := orDefault(in.AirDensity, 1.225, quantity.Density, "air density")
+	if err != nil {
+		return PoweringResult{}, err
+	}
+	g, err := orDefault(in.Gravity, 9.80665, quantity.Acceleration, "gravity")
+	if err != nil {
+		return PoweringResult{}, err
+	}
+	avs := 0.0
+	if in.TransverseArea != (quantity.Quantity{}) {
+		if err := in.TransverseArea.CheckNamed("transverse area", quantity.Area); err != nil {
+			return PoweringResult{}, err
+		}
+		avs = in.TransverseArea.Value()
+	}
+	cda := in.AirDrag
+	if cda == 0 {
+		cda = 0.8
+	}
+	k1 := in.FormFactor
+	if !(k1 >= 1 && k1 <= 2) {
+		return PoweringResult{}, m(fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", k1))
+	}
+	np := in.Propellers
+	if np == 0 {
+		np = 1
+	}
+	if np != 1 && np != 2 {
+		return PoweringResult{}, m(fmt.Sprintf("%d propellers: the method covers single and twin screws", np))
+	}
+	t, wm, etaR := in.ThrustDeduction, in.ModelWake, in.RelativeRotative
+	if !(t >= 0 && t < 1) || !(wm >= 0 && wm < 1) || !(etaR > 0.5 && etaR < 1.5) {
+		return PoweringResult{}, m(fmt.Sprintf("t = %v, w_TM = %v, η_R = %v: want 0 ≤ t, w < 1 and η_R near 1", t, wm, etaR))
+	}
+	pr := in.Propeller
+	if pr.Blades < 2 || !(pr.PitchRatio > 0) || !(pr.ThicknessRatio > 0 && pr.ThicknessRatio < 0.5) || !(pr.ModelReynolds >= 1e4) {
+		return PoweringResult{}, m("propeller geometry: want at least 2 blades, P/D > 0, 0 < t/c < 0.5 and the model propeller's Re_co ≥ 10⁴")
+	}
+	ow := in.OpenWater
+	if len(ow) < 3 || !slices.IsSortedFunc(ow, func(a, b OpenWaterPoint) int { return cmpF(a.J, b.J) }) {
+		return PoweringResult{}, m("the open-water curve needs at least three points in increasing J")
+	}
+	for i := 1; i < len(ow); i++ {
+		if ow[i].J == ow[i-1].J {
+			return PoweringResult{}, m(fmt.Sprintf("two open-water points at J = %v", ow[i].J))
+		}
+	}
+	cp, cn := in.CP, in.CN
+	if cp == 0 {
+		cp = 1
+	}
+	if cn == 0 {
+		cn = 1
+	}
+
+	var r PoweringResult
+	lm, sm, vm := in.ModelLength.Value(), in.ModelWettedArea.Value(), in.ModelSpeed.Value()
+	ls, ss := lm/in.Scale, sm/(in.Scale*in.Scale)
+	vs := vm / math.Sqrt(in.Scale)
+	rhoM, rhoS := in.Tank.Density.Value(), in.Sea.Density.Value()
+	r.Froude = vm / math.Sqrt(g*lm)
+	r.ModelReynolds = vm * lm / in.Tank.KinematicViscosity.Value()
+	r.ShipReynolds = vs * ls / in.Sea.KinematicViscosity.Value()
+	if r.ModelCF, err = LineITTC1957.CF(r.ModelReynolds); err != nil {
+		return PoweringResult{}, err
+	}
+	if r.ShipCF, err = LineITTC1957.CF(r.ShipReynolds); err != nil {
+		return PoweringResult{}, err
+	}
+	r.ModelCT = in.ModelResistance.Value() / (0.5 * rhoM * vm * vm * sm)
+	r.Residual = r.ModelCT - k1*r.ModelCF
+	r.RoughnessAllowance = 0.044*(math.Cbrt(ks/ls)-10*math.Pow(r.ShipReynolds, -1.0/3)) + 0.000125
+	r.AirResistance = cda * rhoA * avs / (rhoS * ss)
+	r.ShipCT = k1*r.ShipCF + r.RoughnessAllowance + in.CorrelationAllowance + r.Residual + r.AirResistance
+	rts := r.ShipCT * 0.5 * rhoS * vs * vs * ss
+	r.ShipSpeed = quantity.New(vs, quantity.Velocity)
+	r.ShipResistance = quantity.New(rts, quantity.Force)
+	r.EffectivePower = quantity.New(rts*vs, quantity.Power)
+
+	if np == 1 {
+		r.ShipWake = (t + 0.04) + (wm-t-0.04)*(k1*r.ShipCF+r.RoughnessAllowance)/(k1*r.ModelCF)
+	} else {
+		r.ShipWake = wm
+	}
+	if !(r.ShipWake > -0.5 && r.ShipWake < 1) {
+		return PoweringResult{}, m(fmt.Sprintf("the full-scale wake w_TS = %.4f is not physical", r.ShipWake))
+	}
+	d := pr.Diameter.Value()
+	c := pr.Chord.Value()
+	tc := pr.ThicknessRatio
+	cdm := 2 * (1 + 2*tc) * (0.044/math.Pow(pr.ModelReynolds, 1.0/6) - 5/math.Pow(pr.ModelReynolds, 2.0/3))
+	cds := 2 * (1 + 2*tc) * math.Pow(1.89+1.62*math.Log10(c/kp), -2.5)
+	r.DeltaCD = cdm - cds
+	czd := c * float64(pr.Blades) / d
+	r.DeltaKT = -r.DeltaCD * 0.3 * pr.PitchRatio * czd
+	r.DeltaKQ = r.DeltaCD * 0.25 * czd
+	r.Load = ss * r.ShipCT / (2 * float64(np) * d * d * (1 - t) * (1 - r.ShipWake) * (1 - r.ShipWake))
+
+	kt := func(j float64) float64 {
+		return interp(ow, j, func(p OpenWaterPoint) float64 { return p.KT }) - r.DeltaKT
+	}
+	kq := func(j float64) float64 {
+		return interp(ow, j, func(p OpenWaterPoint) float64 { return p.KQ }) - r.DeltaKQ
+	}
+	f := func(j float64) float64 { return kt(j) - r.Load*j*j }
+	lo, hi := ow[0].J, ow[len(ow)-1].J
+	if f(lo) < 0 || f(hi) > 0 {
+		return PoweringResult{}, m(fmt.Sprintf("the load K_T/J² = %.4f meets the open-water curve outside its measured J = %g … %g", r.Load, lo, hi))
+	}
+	for range 200 {
+		mid := (lo + hi) / 2
+		if f(mid) > 0 {
+			lo = mid
+		} else {
+			hi = mid
+		}
+		if hi-lo < 1e-14 {
+			break
+		}
+	}
+	r.J = (lo + hi) / 2
+	r.KT, r.KQ = kt(r.J), kq(r.J)
+	r.Eta0 = r.J * r.KT / (2 * math.Pi * r.KQ)
+	r.EtaH = (1 - t) / (1 - r.ShipWake)
+	r.EtaR = etaR
+	r.EtaD = r.Eta0 * r.EtaH * r.EtaR
+	n := (1 - r.ShipWake) * vs / (r.J * d)
+	pd := 2 * math.Pi * rhoS * n * n * n * math.Pow(d, 5) * r.KQ / etaR * float64(np)
+	r.Thrust = quantity.New(r.KT*rhoS*n*n*math.Pow(d, 4), quantity.Force)
+	r.Torque = quantity.New(r.KQ*rhoS*n*n*math.Pow(d, 5)/etaR, quantity.Torque)
+	r.RevsPerSecond = cn * n
+	r.RPM = 60 * r.RevsPerSecond
+	r.PropellerSpeed = quantity.New(2*math.Pi*r.RevsPerSecond, quantity.AngularVelocity)
+	r.DeliveredPower = quantity.New(cp*pd, quantity.Power)
+	r.Caution = PoweringCaution
+	return r, nil
+}
+
+// orDefault returns q's value, or def when q is zero, checking the
+// dimension.
+func orDefault(q quantity.Quantity, def float64, d quantity.Dim, name string) (float64, error) {
+	if q == (quantity.Quantity{}) {
+		return def, nil
+	}
+	if err := q.CheckNamed(name, d); err != nil {
+		return 0, err
+	}
+	if !(q.Value() > 0) || math.IsInf(q.Value(), 0) {
+		return 0, &ExtrapolationError{Method: "ITTC-1978 prediction", Reason: name + " must be positive and finite"}
+	}
+	return q.Value(), nil
+}
+
+func cmpF(a, b float64) int {
+	switch {
+	case a < b:
+		return -1
+	case a > b:
+		return 1
+	}
+	return 0
+}
+
+// interp interpolates a coefficient of the open-water curve linearly in
+// J, within the measured points.
+func interp(ow []OpenWaterPoint, j float64, y func(OpenWaterPoint) float64) float64 {
+	i := 1
+	for i < len(ow)-1 && ow[i].J < j {
+		i++
+	}
+	a, b := ow[i-1], ow[i]
+	s := (j - a.J) / (b.J - a.J)
+	return y(a) + s*(y(b)-y(a))
+}
