@@ -6,7 +6,9 @@ import (
 	"strings"
 	"testing"
 
+	"similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
+	"similis.dev/similis/similarity/fluids"
 )
 
 // TestDoubleBody: C_V/C_F per run, its mean, standard error and spread by
@@ -113,4 +115,31 @@ func ExampleFormFactorDoubleBody() {
 	// Re = 3.0e+06: C_W = 2.37e-04
 	// Re = 4.5e+06: C_W = 3.42e-04
 	// Re = 6.0e+06: C_W = 5.61e-04
+}
+
+// TestHullTable: the resistance table carries each run's figures, the
+// line, the warnings and the caution.
+func TestHullTable(t *testing.T) {
+	tank, _ := fluids.FreshWater().AtCelsius(15)
+	sea, _ := fluids.SeaWater().AtCelsius(15)
+	res, err := similarity.ExtrapolateHull(similarity.HullTest{
+		Scale: 1.0 / 16, ModelLength: quantity.New(2, quantity.Length), ModelWettedArea: quantity.New(1.62, quantity.Area),
+		Speeds:      []quantity.Quantity{quantity.New(1.0, quantity.Velocity), quantity.New(2.4, quantity.Velocity)},
+		Resistances: []quantity.Quantity{quantity.New(4.055, quantity.Force), quantity.New(38.1, quantity.Force)},
+		Tank:        tank, Sea: sea, Allowance: 0.0004, Line: similarity.LineSchoenherr,
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := res.Points[1]
+	txt, md := res.Table(false), res.Table(true)
+	for _, want := range []string{"Schoenherr", fmt.Sprintf("%.3f", p.ModelCT*1e3), fmt.Sprintf("%.2f", p.ShipResistance.Value()/1e3), "CAUTION:"} {
+		if !strings.Contains(txt, want) || !strings.Contains(md, want) {
+			t.Errorf("table lacks %q:\n%s", want, txt)
+		}
+	}
+	// On the Schoenherr line C_FM at Re = 2.4·2/1.1395e-6 is the line's own.
+	if cf, _ := similarity.LineSchoenherr.CF(p.ModelReynolds); cf != p.ModelCF {
+		t.Errorf("C_FM %v, Schoenherr line %v", p.ModelCF, cf)
+	}
 }

@@ -3,6 +3,7 @@ package similarity_test
 import (
 	"fmt"
 	"math"
+	"strings"
 	"testing"
 
 	"similis.dev/similis/quantity"
@@ -146,4 +147,23 @@ func ExampleITTC1978() {
 	// V_S = 16.66 kn, C_TS = 2.222×10⁻³, R_TS = 391 kN, P_E = 3351 kW
 	// w_TS = 0.283, J = 0.603, K_T = 0.1192, K_Q = 0.01805, η_0 = 0.633, η_H = 1.117, η_D = 0.714
 	// n = 98.6 rpm, P_D = 4691 kW
+}
+
+// TestPoweringTable: the table carries the figures of the result and the
+// caution, as text and as Markdown.
+func TestPoweringTable(t *testing.T) {
+	r, err := similarity.ITTC1978(poweringInput())
+	if err != nil {
+		t.Fatal(err)
+	}
+	txt := similarity.PoweringTable([]similarity.PoweringResult{r}, false)
+	md := similarity.PoweringTable([]similarity.PoweringResult{r}, true)
+	for _, want := range []string{"16.66", "390.9", "3351", "0.283", "0.603", "98.6", "4691", "CAUTION:", "n in rev/s"} {
+		if !strings.Contains(txt, want) || !strings.Contains(md, want) {
+			t.Errorf("table lacks %q:\n%s\n%s", want, txt, md)
+		}
+	}
+	if !strings.Contains(md, "| V_S kn | Fn |") {
+		t.Errorf("Markdown header:\n%s", md)
+	}
 }

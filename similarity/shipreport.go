@@ -1,0 +1,100 @@
+package similarity
+
+import (
+	"fmt"
+	"strings"
+)
+
+// tradeTable writes rows under a header as aligned text or a Markdown table;
+// columns after the first are right-aligned.
+func tradeTable(md bool, head []string, rows [][]string) string {
+	var sb strings.Builder
+	if md {
+		sb.WriteString("| " + strings.Join(head, " | ") + " |\n|")
+		for range head {
+			sb.WriteString("---:|")
+		}
+		sb.WriteString("\n")
+		for _, r := range rows {
+			sb.WriteString("| " + strings.Join(r, " | ") + " |\n")
+		}
+		return sb.String()
+	}
+	w := make([]int, len(head))
+	for i, h := range head {
+		w[i] = len([]rune(h))
+	}
+	for _, r := range rows {
+		for i, c := range r {
+			w[i] = max(w[i], len([]rune(c)))
+		}
+	}
+	line := func(r []string) {
+		for i, c := range r {
+			if i > 0 {
+				sb.WriteString("  ")
+			}
+			sb.WriteString(strings.Repeat(" ", w[i]-len([]rune(c))) + c)
+		}
+		sb.WriteString("\n")
+	}
+	line(head)
+	for _, r := range rows {
+		line(r)
+	}
+	return sb.String()
+}
+
+// Table writes the extrapolation as the trade presents it, one row per
+// run: model speed, Fn, C_TM, C_FM and C_R (×10³), ship speed in knots,
+// ship resistance in kN and effective power in kW; then every warning and
+// the caution. Markdown if md is set.
+func (r *HullResult) Table(md bool) string {
+	head := []string{"V_m m/s", "Fn", "C_TM×10³", "C_FM×10³", "C_R×10³", "V_s kn", "R_TS kN", "P_E kW"}
+	var rows [][]string
+	var warn []string
+	for _, p := range r.Points {
+		rows = append(rows, []string{
+			fmt.Sprintf("%.3f", p.ModelSpeed.Value()), fmt.Sprintf("%.3f", p.Froude),
+			fmt.Sprintf("%.3f", p.ModelCT*1e3), fmt.Sprintf("%.3f", p.ModelCF*1e3), fmt.Sprintf("%.3f", p.Residual*1e3),
+			fmt.Sprintf("%.2f", p.ShipSpeed.Value()*3600/1852), fmt.Sprintf("%.2f", p.ShipResistance.Value()/1e3),
+			fmt.Sprintf("%.1f", p.EffectivePower.Value()/1e3),
+		})
+		if p.Warning != "" {
+			warn = append(warn, "WARNING: "+p.Warning)
+		}
+	}
+	line := r.Test.Line
+	s := fmt.Sprintf("Hull extrapolation: %v line, 1 + k = %.3f, C_A = %g, λ = 1:%.4g\n", line, r.FormFactor, r.Test.Allowance, 1/r.Test.Scale)
+	if md {
+		s += "\n"
+	}
+	s += tradeTable(md, head, rows)
+	for _, w := range warn {
+		s += w + "\n"
+	}
+	return s + "CAUTION: " + r.Caution + "\n"
+}
+
+// PoweringTable writes ITTC-1978 predictions as the trade presents them,
+// one row per speed: V_S (kn), Fn, C_TS (×10³), R_TS (kN), P_E (kW), w_TS,
+// J, K_T, K_Q, η_O, η_H, η_R, η_D, n (rpm) and P_D (kW), K_T and K_Q with n
+// in revolutions per second; then the caution. Markdown if md is set.
+func PoweringTable(rs []PoweringResult, md bool) string {
+	head := []string{"V_S kn", "Fn", "C_TS×10³", "R_TS kN", "P_E kW", "w_TS", "J", "K_T", "K_Q", "η_O", "η_H", "η_R", "η_D", "n rpm", "P_D kW"}
+	var rows [][]string
+	for _, r := range rs {
+		rows = append(rows, []string{
+			fmt.Sprintf("%.2f", r.ShipSpeed.Value()*3600/1852), fmt.Sprintf("%.3f", r.Froude), fmt.Sprintf("%.3f", r.ShipCT*1e3),
+			fmt.Sprintf("%.1f", r.ShipResistance.Value()/1e3), fmt.Sprintf("%.0f", r.EffectivePower.Value()/1e3),
+			fmt.Sprintf("%.3f", r.ShipWake), fmt.Sprintf("%.3f", r.J), fmt.Sprintf("%.4f", r.KT), fmt.Sprintf("%.5f", r.KQ),
+			fmt.Sprintf("%.3f", r.Eta0), fmt.Sprintf("%.3f", r.EtaH), fmt.Sprintf("%.3f", r.EtaR), fmt.Sprintf("%.3f", r.EtaD),
+			fmt.Sprintf("%.1f", r.RPM), fmt.Sprintf("%.0f", r.DeliveredPower.Value()/1e3),
+		})
+	}
+	s := "ITTC-1978 performance prediction (K_T, K_Q with n in rev/s)\n"
+	if md {
+		s += "\n"
+	}
+	return s + tradeTable(md, head, rows) + "CAUTION: " + PoweringCaution + "\n"
+}
