@@ -1,13 +1,17 @@
-// Command towingtank carries a towing-tank resistance test of a 1:16
-// model of a coastal research catamaran to full scale by the ITTC-1957
-// method, without and with a form factor found by Prohaska's method, and
-// prints full-scale resistance and effective power.
+// Command towingtank does a towing tank's whole job for a 1:16 model of a
+// coastal research catamaran: it carries the resistance test to full
+// scale by the ITTC-1957 method, without and with a form factor found by
+// Prohaska's method, with the uncertainty budget of the top speed; finds
+// the form factor again from a double-body test and compares the two;
+// and predicts delivered power and propeller revolutions at every speed
+// by the ITTC-1978 method from the self-propulsion and open-water tests,
+// with a plot of the resistance coefficients against the friction lines.
 //
 // The vessel and every measurement are invented for the demonstration.
 //
 // Usage:
 //
-//	go run ./examples/towingtank [-scale 16] [-tank 15] [-sea 15] [-ca 0.0004] [-maxfn 0.2]
+//	go run ./examples/towingtank [-scale 16] [-tank 15] [-sea 15] [-ca 0.0004] [-maxfn 0.2] [-out DIR]
 package main
 
 import (
@@ -49,6 +53,7 @@ type Outcome struct {
 	Plain, WithForm *similarity.HullResult
 	Form            similarity.ProhaskaResult
 	Budget          Budgets
+	Powering        *Powering
 }
 
 // Budgets are the uncertainty budgets of the top-speed run at full scale.
@@ -111,6 +116,7 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	seaT := fs.Float64("sea", 15, "sea water temperature, °C")
 	ca := fs.Float64("ca", 0.0004, "roughness and correlation allowance C_A")
 	maxFn := fs.Float64("maxfn", 0.2, "highest Froude number used for the form factor")
+	dir := fs.String("out", os.TempDir(), "directory for towingtank-coefficients.png and .svg")
 	if err := fs.Parse(args); err != nil {
 		return nil, err
 	}
@@ -189,6 +195,9 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	fmt.Fprint(w, out.Budget.Resistance.In("kN", 1e3))
 	fmt.Fprintln(w)
 	fmt.Fprint(w, out.Budget.Power.In("kW", 1e3))
+	if out.Powering, err = powering(w, test, out.Form, *dir); err != nil {
+		return nil, err
+	}
 	fmt.Fprintln(w, "\nCAUTION:", similarity.HullCaution)
 	return out, nil
 }

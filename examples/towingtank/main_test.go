@@ -5,13 +5,14 @@ import (
 	"errors"
 	"flag"
 	"math"
+	"os"
 	"strings"
 	"testing"
 )
 
 func TestRuns(t *testing.T) {
 	var out bytes.Buffer
-	if err := run(&out, nil); err != nil {
+	if err := run(&out, []string{"-out", t.TempDir()}); err != nil {
 		t.Fatal(err)
 	}
 	for _, want := range []string{"invented data", "1 + k =", "CAUTION:", "ITTC-1957"} {
@@ -27,7 +28,7 @@ func TestRuns(t *testing.T) {
 // TestByHand repeats the ITTC-1957 steps for the fourth run (1.00 m/s)
 // by hand, with the water properties the example reports.
 func TestByHand(t *testing.T) {
-	o, err := evaluate(&bytes.Buffer{}, nil)
+	o, err := evaluate(&bytes.Buffer{}, []string{"-out", t.TempDir()})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -78,7 +79,7 @@ func TestHelp(t *testing.T) {
 // relative parts plus the speed's own.
 func TestBudgetByHand(t *testing.T) {
 	var out bytes.Buffer
-	o, err := evaluate(&out, nil)
+	o, err := evaluate(&out, []string{"-out", t.TempDir()})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -115,6 +116,54 @@ func TestBudgetByHand(t *testing.T) {
 	for _, want := range []string{"R_s = 130.797", "[kN]", "P_E = 1255.65", "[kW]", "tank thermometer", "form factor (Prohaska fit)", "invented instrument figures"} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("output lacks %q", want)
+		}
+	}
+}
+
+// TestPoweringByHand checks the second half of the job: the double-body
+// form factor as the mean of C_V/C_F with C_V = R_V/(½ρV²·2S) and the
+// ITTC-1957 C_F; and at the top speed the propeller load
+// K_T/J² = S_s·C_TS/(2·N·D²(1 − t)(1 − w)²) with N = 2 and the model wake
+// (twin screws), the operating point on that load, n = (1 − w)V_s/(J·D),
+// and P_D = P_E/η_D; the plots are written.
+func TestPoweringByHand(t *testing.T) {
+	dir := t.TempDir()
+	o, err := evaluate(&bytes.Buffer{}, []string{"-out", dir})
+	if err != nil {
+		t.Fatal(err)
+	}
+	pw := o.Powering
+	tank := o.Plain.Test.Tank
+	nu, rho := tank.KinematicViscosity.Value(), tank.Density.Value()
+	var sum float64
+	for i, v := range dbSpeeds {
+		cv := dbResistances[i] / (0.5 * rho * v * v * 2 * 1.62)
+		d := math.Log10(v*2.0/nu) - 2
+		sum += cv / (0.075 / (d * d))
+	}
+	if k := sum / 4; math.Abs(pw.DoubleBody.FormFactor-k) > 1e-12 {
+		t.Errorf("double-body 1 + k = %v, by hand %v", pw.DoubleBody.FormFactor, k)
+	}
+	top := pw.Points[len(pw.Points)-1]
+	last := len(speeds) - 1
+	w, th := spWake[last], spT[last]
+	ss, vs, d := 1.62*256, 2.4*4, 1.35
+	load := ss * top.ShipCT / (2 * 2 * d * d * (1 - th) * (1 - w) * (1 - w))
+	if top.ShipWake != w || math.Abs(top.Load-load) > 1e-12*load {
+		t.Errorf("w_TS = %v (want the model's %v), load %v (by hand %v)", top.ShipWake, w, top.Load, load)
+	}
+	if math.Abs(top.KT-load*top.J*top.J) > 1e-9 {
+		t.Errorf("K_T = %v is not the load's %v at J = %v", top.KT, load*top.J*top.J, top.J)
+	}
+	if n := (1 - w) * vs / (top.J * d); math.Abs(top.RevsPerSecond-n) > 1e-12*n {
+		t.Errorf("n = %v rev/s, by hand %v", top.RevsPerSecond, n)
+	}
+	if pe := top.EffectivePower.Value(); math.Abs(top.DeliveredPower.Value()-pe/top.EtaD) > 1e-9*pe {
+		t.Errorf("P_D = %v, P_E/η_D = %v", top.DeliveredPower.Value(), pe/top.EtaD)
+	}
+	for _, f := range []string{pw.PNG, pw.SVG} {
+		if st, err := os.Stat(f); err != nil || st.Size() < 1000 {
+			t.Errorf("plot %s: %v", f, err)
 		}
 	}
 }
