@@ -71,7 +71,7 @@ func powering(w io.Writer, test similarity.HullTest, form similarity.ProhaskaRes
 		return nil, err
 	}
 	db := out.DoubleBody
-	fmt.Fprintf(w, "\nform factor two ways: double body 1 + k = %.3f ± %.3f (spread %.3f, %d runs); Prohaska 1 + k = %.3f ± %.3f; difference %.3f\n",
+	fmt.Fprintf(w, "\nform factor two ways: double body 1 + k = %.3f ± %.3f (spread %.3f, %d runs); Prohaska 1 + k = %.3f ± %.3f; Prohaska − double body = %+.3f\n",
 		db.FormFactor, db.StdErr, db.Spread, len(db.PerRun), form.FormFactor, form.FormFactorStdErr, form.FormFactor-db.FormFactor)
 	var rem, ctm []float64
 	for i, v := range speeds {
