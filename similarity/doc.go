@@ -24,7 +24,13 @@
 // The rule library (Froude, Reynolds, Mach, Weber, Euler, Cavitation,
 // Strouhal, AffinityLaws, DistortedFroude, ManningRatio) gives the
 // standard plans ready-made; ExtrapolateHull, Prohaska and MoodyStepUp
-// are the published partial-similarity corrections; FindTunnelCondition
+// are the published partial-similarity corrections. For ships, the
+// friction lines (FrictionLine: ITTC-1957, Schoenherr, Hughes, Katsui),
+// the form factor from a double-body test (FormFactorDoubleBody) or by
+// Prohaska with a chosen or fitted exponent (ProhaskaWith), the wave
+// resistance, the temperature correction, the ITTC-1978 performance
+// prediction (ITTC1978) with its tables, and ExtrapolateHullRun, a run
+// carried to full scale with its uncertainty budget; FindTunnelCondition
 // and TemperatureFor find the fluid states a plan needs. Package fluids
 // gives water, air and the standard atmosphere.
 //
