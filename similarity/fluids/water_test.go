@@ -1,0 +1,56 @@
+package fluids_test
+
+import (
+	"errors"
+	"math"
+	"testing"
+
+	q "similis.dev/similis/quantity"
+	"similis.dev/similis/similarity/fluids"
+)
+
+// TestVapourPressureAndSurfaceTension against values computed once with
+// the IAPWS reference implementation in Debian's python3-iapws 1.5.2
+// (iapws97._PSat_T, the IF97 saturation equation, and _iapws._Tension,
+// the IAPWS 2014 surface tension release).
+func TestVapourPressureAndSurfaceTension(t *testing.T) {
+	for _, c := range []struct {
+		T, pv, sigma float64
+	}{
+		{273.16, 611.6570000106653, 0.07564627110368254},
+		{283.15, 1228.1838693402237, 0.07422104407784691},
+		{288.15, 1705.7448743923737, 0.0734858035333309},
+		{293.15, 2339.214766776897, 0.07273614042160757},
+		{313.15, 7384.42748706953, 0.06959631235370246},
+		{373.15, 101417.97792131013, 0.058911868587664076},
+		{473.15, 1554671.8682698254, 0.03767451239928297},
+		{647.0, 22038291.942536045, 3.661503828708931e-06},
+	} {
+		T := q.New(c.T, q.Temperature)
+		pv, err := fluids.VapourPressure(T)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if math.Abs(pv.Value()-c.pv) > 1e-12*c.pv || pv.Dim() != q.Pressure {
+			t.Errorf("p_v(%g K) = %.15g, IAPWS-IF97 %.15g", c.T, pv.Value(), c.pv)
+		}
+		s, err := fluids.SurfaceTension(T)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if math.Abs(s.Value()-c.sigma) > 1e-12*c.sigma || s.Dim() != q.SurfaceTension {
+			t.Errorf("σ(%g K) = %.15g, IAPWS %.15g", c.T, s.Value(), c.sigma)
+		}
+	}
+	for _, T := range []float64{270, 700, math.NaN()} {
+		if _, err := fluids.VapourPressure(q.New(T, q.Temperature)); !errors.Is(err, q.ErrRange) {
+			t.Errorf("p_v at %g K: %v", T, err)
+		}
+		if _, err := fluids.SurfaceTension(q.New(T, q.Temperature)); !errors.Is(err, q.ErrRange) {
+			t.Errorf("σ at %g K: %v", T, err)
+		}
+	}
+	if _, err := fluids.VapourPressure(q.New(20, q.Pressure)); !errors.Is(err, q.ErrDimension) {
+		t.Errorf("a pressure for a temperature: %v", err)
+	}
+}
