@@ -1,0 +1,225 @@
+package similarity
+
+import (
+	"fmt"
+	"math"
+
+	"similis.dev/similis/quantity"
+)
+
+// IEC 60193 reference values for the scalable-loss step-up of reaction
+// machines (Francis and pump-turbines, pumps): the reference Reynolds
+// number and the scalable part of the losses at it.
+const (
+	IECReferenceReynolds = 7e6
+	IECScalableLoss      = 0.7
+)
+
+// IECStepUp steps up a hydraulic efficiency from model to prototype by
+// the scalable-loss formula of IEC 60193 (hydraulic turbines, storage
+// pumps and pump-turbines, model acceptance tests), quoted from memory:
+//
+//	δ_ref = (1 − η_M,opt)/((Re_ref/Re_M,opt)^0.16 + (1 − V_ref)/V_ref)
+//	Δη = δ_ref·((Re_ref/Re_M)^0.16 − (Re_ref/Re_P)^0.16)
+//
+// with Re_ref = 7×10⁶ and V_ref = 0.7. The Reynolds numbers are the
+// machines' own as the standard defines them (Re = D·u/ν with u the
+// peripheral speed at the reference diameter D); reM is the model's at
+// its test point, reP the prototype's. It returns the prototype
+// efficiency η_M + Δη, and Δη.
+func IECStepUp(etaModel, reM, reP float64) (etaProto, gain float64, err error) {
+	m := func(r string) error { return &ExtrapolationError{Method: "IEC 60193 step-up", Reason: r} }
+	if !(etaModel > 0 && etaModel < 1) {
+		return 0, 0, m(fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))
+	}
+	if !(reM >= 1e5 && reP >= reM) || math.IsInf(reP, 0) {
+		return 0, 0, m(fmt.Sprintf("Reynolds numbers %g (model) and %g (prototype): want 10⁵ ≤ Re_M ≤ Re_P, finite", reM, reP))
+	}
+	const v = IECScalableLoss
+	r := func(re float64) float64 { return math.Pow(IECReferenceReynolds/re, 0.16) }
+	dref := (1 - etaModel) / (r(reM) + (1-v)/v)
+	gain = dref * (r(reM) - r(reP))
+	return etaModel + gain, gain, nil
+}
+
+// AckeretStepUp steps up an efficiency by Ackeret's formula (1930),
+// 1 − η_P = (1 − η_M)·(0.5 + 0.5·(Re_M/Re_P)^0.2): half the losses taken
+// as scaling with the Reynolds number to the power −0.2.
+func AckeretStepUp(etaModel, reM, reP float64) (float64, error) {
+	if !(etaModel > 0 && etaModel < 1) {
+		return 0, &ExtrapolationError{Method: "Ackeret step-up", Reason: fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel)}
+	}
+	if !(reM > 0 && reP >= reM) || math.IsInf(reP, 0) {
+		return 0, &ExtrapolationError{Method: "Ackeret step-up", Reason: fmt.Sprintf("Reynolds numbers %g (model) and %g (prototype): want 0 < Re_M ≤ Re_P, finite", reM, reP)}
+	}
+	return 1 - (1-etaModel)*(0.5+0.5*math.Pow(reM/reP, 0.2)), nil
+}
+
+// IECCurve steps up a model efficiency curve by IECStepUp with the gain
+// at the best-efficiency point added at every point, as the standard does;
+// reM and reP are the model's and prototype's Reynolds numbers.
+func IECCurve(etaModel []float64, reM, reP float64) (StepUp, error) {
+	if len(etaModel) == 0 {
+		return StepUp{}, &ExtrapolationError{Method: "IEC 60193 step-up", Reason: "no efficiency points"}
+	}
+	out := StepUp{Method: StepUpAtBEP, Efficiency: make([]float64, len(etaModel))}
+	for i, e := range etaModel {
+		if !(e > 0 && e < 1) {
+			return StepUp{}, &ExtrapolationError{Method: "IEC 60193 step-up", Reason: fmt.Sprintf("point %d: model efficiency %v is not between 0 and 1", i, e)}
+		}
+		if e > etaModel[out.BEP] {
+			out.BEP = i
+		}
+	}
+	_, gain, err := IECStepUp(etaModel[out.BEP], reM, reP)
+	if err != nil {
+		return StepUp{}, err
+	}
+	out.Gain = gain
+	for i, e := range etaModel {
+		out.Efficiency[i] = e + gain
+	}
+	return out, nil
+}
+
+// NPSHInput is the state at a pump's (or turbine's) low-pressure
+// reference section.
+type NPSHInput struct {
+	// Pressure is the absolute static pressure at the section (a gauge
+	// reading must first be made absolute with the day's barometer).
+	Pressure quantity.Quantity
+	// VapourPressure is the liquid's at its temperature
+	// (fluids.VapourPressure for water).
+	VapourPressure quantity.Quantity
+	Density        quantity.Quantity
+	// Velocity is the mean velocity at the section, for its velocity head.
+	Velocity quantity.Quantity
+	// Gravity is g; g_n if zero.
+	Gravity quantity.Quantity
+}
+
+// NPSH returns the net positive suction head (energy) at the section,
+// NPSH = (p − p_v)/(ρg) + V²/(2g), as a length: the head above vapour
+// pressure (ISO 9906, IEC 60193).
+func NPSH(in NPSHInput) (quantity.Quantity, error) {
+	m := func(r string) error { return &ExtrapolationError{Method: "NPSH", Reason: r} }
+	for _, c := range []struct {
+		name string
+		q    quantity.Quantity
+		d    quantity.Dim
+	}{{"pressure", in.Pressure, quantity.Pressure}, {"vapour pressure", in.VapourPressure, quantity.Pressure},
+		{"density", in.Density, quantity.Density}, {"velocity", in.Velocity, quantity.Velocity}} {
+		if err := c.q.CheckNamed(c.name, c.d); err != nil {
+			return quantity.Quantity{}, err
+		}
+	}
+	g, err := orDefault(in.Gravity, 9.80665, quantity.Acceleration, "gravity")
+	if err != nil {
+		return quantity.Quantity{}, err
+	}
+	p, pv, rho, v := in.Pressure.Value(), in.VapourPressure.Value(), in.Density.Value(), in.Velocity.Value()
+	if !(p > 0) || !(pv > 0) || !(rho > 0) || math.IsInf(p+pv+rho+v, 0) || math.IsNaN(v) {
+		return quantity.Quantity{}, m("pressure, vapour pressure and density must be positive (absolute) and finite")
+	}
+	return quantity.New((p-pv)/(rho*g)+v*v/(2*g), quantity.Length), nil
+}
+
+// Thoma returns the Thoma cavitation number σ = NPSH/H: equal for model
+// and prototype at similar operating points (IEC 60193), so the
+// prototype's NPSH is σ·H_P.
+func Thoma(npsh, head quantity.Quantity) (float64, error) {
+	if err := npsh.CheckNamed("NPSH", quantity.Length); err != nil {
+		return 0, err
+	}
+	if err := head.CheckNamed("head", quantity.Length); err != nil {
+		return 0, err
+	}
+	if !(head.Value() > 0) || math.IsInf(head.Value(), 0) || math.IsNaN(npsh.Value()) {
+		return 0, &ExtrapolationError{Method: "Thoma number", Reason: fmt.Sprintf("head %v: want a positive length", head)}
+	}
+	return npsh.Value() / head.Value(), nil
+}
+
+// SuctionPressureFor returns the absolute static pressure the prototype
+// needs at its low-pressure section to run at the model's Thoma number σ
+// with head H: p = p_v + ρg(σH − V²/(2g)), with the vapour pressure at the
+// prototype's own water temperature.
+func SuctionPressureFor(sigma float64, head quantity.Quantity, vapour, density, velocity, gravity quantity.Quantity) (quantity.Quantity, error) {
+	if err := head.CheckNamed("head", quantity.Length); err != nil {
+		return quantity.Quantity{}, err
+	}
+	for _, c := range []struct {
+		name string
+		q    quantity.Quantity
+		d    quantity.Dim
+	}{{"vapour pressure", vapour, quantity.Pressure}, {"density", density, quantity.Density}, {"velocity", velocity, quantity.Velocity}} {
+		if err := c.q.CheckNamed(c.name, c.d); err != nil {
+			return quantity.Quantity{}, err
+		}
+	}
+	g, err := orDefault(gravity, 9.80665, quantity.Acceleration, "gravity")
+	if err != nil {
+		return quantity.Quantity{}, err
+	}
+	if !(sigma >= 0) || math.IsInf(sigma, 0) {
+		return quantity.Quantity{}, &ExtrapolationError{Method: "suction pressure", Reason: fmt.Sprintf("Thoma number %v", sigma)}
+	}
+	v := velocity.Value()
+	p := vapour.Value() + density.Value()*g*(sigma*head.Value()-v*v/(2*g))
+	if !(p > 0) {
+		return quantity.Quantity{}, &ExtrapolationError{Method: "suction pressure", Reason: fmt.Sprintf("the required absolute pressure %.4g Pa is not positive", p)}
+	}
+	return quantity.New(p, quantity.Pressure), nil
+}
+
+// SpecificSpeeds is a machine's specific speed in the three conventions
+// in use, all at the same point (the best-efficiency point, per stage and
+// per eye): the dimensionless Ω_s = ω·Q^½/(gH)^¾ with ω in rad/s, the
+// metric n_q = n·Q^½/H^¾ with n in rpm, Q in m³/s and H in m, and the US
+// N_s = n·Q^½/H^¾ with n in rpm, Q in US gallons per minute and H in feet.
+type SpecificSpeeds struct {
+	Dimensionless, Metric, US float64
+}
+
+// Exact factors between the conventions: 1 US gallon = 3.785411784 L,
+// 1 ft = 0.3048 m (NIST SP 811), g_n = 9.80665 m/s².
+var (
+	usPerMetric            = math.Sqrt(60/3.785411784e-3) * math.Pow(0.3048, 0.75)
+	dimensionlessPerMetric = (2 * math.Pi / 60) / math.Pow(9.80665, 0.75)
+)
+
+// SpecificSpeedOf returns the specific speeds of a machine turning at
+// the angular velocity omega, with flow Q and head H, for standard
+// gravity. Give omega through its unit, units.MustParse("rpm").Of(1450):
+// a rotational speed and a frequency share a dimension, so a bare
+// quantity.New(1450/60, …) in rev/s would be read as rad/s, 2π too small.
+func SpecificSpeedOf(omega, flow, head quantity.Quantity) (SpecificSpeeds, error) {
+	if err := omega.CheckNamed("rotational speed", quantity.AngularVelocity); err != nil {
+		return SpecificSpeeds{}, err
+	}
+	if err := flow.CheckNamed("flow", quantity.VolumeFlowRate); err != nil {
+		return SpecificSpeeds{}, err
+	}
+	if err := head.CheckNamed("head", quantity.Length); err != nil {
+		return SpecificSpeeds{}, err
+	}
+	w, qv, h := omega.Value(), flow.Value(), head.Value()
+	if !(w > 0 && qv > 0 && h > 0) || math.IsInf(w+qv+h, 0) {
+		return SpecificSpeeds{}, &ExtrapolationError{Method: "specific speed", Reason: "speed, flow and head must be positive and finite"}
+	}
+	return SpecificSpeedMetric(w * 60 / (2 * math.Pi) * math.Sqrt(qv) / math.Pow(h, 0.75)), nil
+}
+
+// SpecificSpeedMetric converts n_q (rpm, m³/s, m) to all three forms.
+func SpecificSpeedMetric(nq float64) SpecificSpeeds {
+	return SpecificSpeeds{Dimensionless: nq * dimensionlessPerMetric, Metric: nq, US: nq * usPerMetric}
+}
+
+// SpecificSpeedUS converts N_s (rpm, US gpm, ft) to all three forms.
+func SpecificSpeedUS(ns float64) SpecificSpeeds { return SpecificSpeedMetric(ns / usPerMetric) }
+
+// SpecificSpeedDimensionless converts Ω_s (rad/s, m³/s, m, g_n) to all
+// three forms.
+func SpecificSpeedDimensionless(omega float64) SpecificSpeeds {
+	return SpecificSpeedMetric(omega / dimensionlessPerMetric)
+}
