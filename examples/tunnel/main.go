@@ -45,7 +45,22 @@ type Result struct {
 	Ordinary               fluids.State // the ordinary tunnel's static test-section state
 	Pressurised, Cryogenic similarity.TunnelCondition
 	Compromise             *similarity.Compromise
+	Loads                  []Load
 }
+
+// Load is a model's dynamic pressure and lift in one tunnel.
+type Load struct {
+	Name    string
+	Q, Lift float64 // Pa, N
+}
+
+// Invented model data: the aircraft's wing area, the cruise lift
+// coefficient and the balance's normal-force limit.
+const (
+	wingArea     = 38.0   // m², full scale
+	cruiseCL     = 0.6    // lift coefficient C_L = L/(q·S)
+	balanceLimit = 4000.0 // N
+)
 
 func run(w io.Writer, args []string) error { _, err := evaluate(w, args); return err }
 
@@ -152,6 +167,29 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 			t.c.Temperature.Value(), t.c.Pressure.Value()/1e5, t.c.Velocity.Value(), t.c.ReynoldsRatio, t.c.Note)
 	}
 	fmt.Fprintln(w, "  (limits are total conditions; static = total by the isentropic relations of a perfect gas, γ = 1.4)")
+
+	// Loads on the model: q = (γ/2)·p·Ma² at each test section's static
+	// pressure, times C_L and the model's wing area.
+	area := wingArea / (*scale * *scale)
+	fmt.Fprintf(w, "\nModel loads at C_L = %.1f (wing %.0f m² full scale, %.4f m² model; balance normal-force limit %.1f kN, invented):\n",
+		cruiseCL, wingArea, area, balanceLimit/1e3)
+	r.Loads = nil
+	for _, t := range []struct {
+		name string
+		p    q.Quantity
+	}{{"ordinary tunnel", ground.Pressure}, {"pressurised tunnel", r.Pressurised.Pressure}, {"cryogenic tunnel", r.Cryogenic.Pressure}} {
+		dq, err := fluids.Air().DynamicPressure(t.p, *mach)
+		if err != nil {
+			return nil, err
+		}
+		lift := cruiseCL * dq.Value() * area
+		verdict := "within the balance limit"
+		if lift > balanceLimit {
+			verdict = fmt.Sprintf("EXCEEDS the balance limit by %.0f %%", 100*(lift/balanceLimit-1))
+		}
+		r.Loads = append(r.Loads, Load{Name: t.name, Q: dq.Value(), Lift: lift})
+		fmt.Fprintf(w, "  %-20s q = %6.2f kPa, lift = %5.2f kN — %s\n", t.name+":", dq.Value()/1e3, lift/1e3, verdict)
+	}
 	fmt.Fprintln(w, "\nCAUTION:", similarity.TunnelCaution)
 	return r, nil
 }

@@ -79,3 +79,26 @@ func TestHelp(t *testing.T) {
 		t.Errorf("-h: %v, %q", err, out.String())
 	}
 }
+
+// TestLoadsByHand: q = (γ/2)·p·Ma² with γ = 1.4 at each test section's
+// static pressure, lift = C_L·q·S_m with S_m = 38 m²/12², and the
+// pressurised tunnel (higher pressure for the same Reynolds number) is
+// the one that overloads the 4 kN balance.
+func TestLoadsByHand(t *testing.T) {
+	var out bytes.Buffer
+	r, err := evaluate(&out, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ps := []float64{r.Ordinary.Pressure.Value(), r.Pressurised.Pressure.Value(), r.Cryogenic.Pressure.Value()}
+	for i, l := range r.Loads {
+		qd := 0.7 * ps[i] * 0.62 * 0.62
+		lift := 0.6 * qd * 38 / 144
+		if math.Abs(l.Q-qd) > 1e-9*qd || math.Abs(l.Lift-lift) > 1e-9*lift {
+			t.Errorf("%s: q = %v, lift = %v; by hand %v, %v", l.Name, l.Q, l.Lift, qd, lift)
+		}
+	}
+	if !(r.Loads[1].Lift > 4000 && r.Loads[0].Lift < 4000 && r.Loads[2].Lift < 4000) || !strings.Contains(out.String(), "EXCEEDS the balance limit") {
+		t.Errorf("loads %+v", r.Loads)
+	}
+}

@@ -64,3 +64,23 @@ func (g IdealGas) TotalOf(s State, ma float64) (Total, error) {
 	}
 	return Total{Temperature: s.Temperature.Scale(tr), Pressure: s.Pressure.Scale(pr)}, nil
 }
+
+// DynamicPressure returns q = ½ρV² of a perfect gas at static pressure p
+// moving at Mach number ma, written q = (γ/2)·p·Ma² (the same quantity,
+// since a² = γp/ρ): the load a balance and a model see per unit of force
+// coefficient and reference area. p must be absolute.
+func (g IdealGas) DynamicPressure(p quantity.Quantity, ma float64) (quantity.Quantity, error) {
+	if err := p.CheckNamed("static pressure", quantity.Pressure); err != nil {
+		return quantity.Quantity{}, err
+	}
+	if v := p.Value(); !(v > 0) || math.IsInf(v, 0) {
+		return quantity.Quantity{}, &RangeError{Fluid: g.Name(), What: "absolute static pressure (Pa)", Value: v, Lo: 0, Hi: math.Inf(1)}
+	}
+	if !(g.Gamma > 1) || math.IsInf(g.Gamma, 0) {
+		return quantity.Quantity{}, &RangeError{Fluid: g.Name(), What: "ratio of specific heats", Value: g.Gamma, Lo: 1, Hi: math.Inf(1)}
+	}
+	if !(ma >= 0) || ma > 50 {
+		return quantity.Quantity{}, &RangeError{Fluid: g.Name(), What: "Mach number", Value: ma, Lo: 0, Hi: 50}
+	}
+	return p.Scale(0.5 * g.Gamma * ma * ma), nil
+}

@@ -2,6 +2,7 @@ package fluids_test
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"testing"
 
@@ -53,4 +54,39 @@ func TestVapourPressureAndSurfaceTension(t *testing.T) {
 	if _, err := fluids.VapourPressure(q.New(20, q.Pressure)); !errors.Is(err, q.ErrDimension) {
 		t.Errorf("a pressure for a temperature: %v", err)
 	}
+}
+
+// TestDynamicPressure: (γ/2)·p·Ma² equals ½ρV² for air (γ = 1.4) at
+// 101 325 Pa and 288.15 K moving at Ma 0.5, with ρ = p/(RT) and
+// V = Ma·√(γRT) worked by hand (R = 287.05287 J/(kg·K), ISO 2533):
+// 0.7·101325·0.25 = 17731.875 Pa.
+func TestDynamicPressure(t *testing.T) {
+	air := fluids.Air()
+	got, err := air.DynamicPressure(q.New(101325, q.Pressure), 0.5)
+	if err != nil {
+		t.Fatal(err)
+	}
+	const R, T, p = 287.05287, 288.15, 101325.0
+	rho := p / (R * T)
+	v := 0.5 * math.Sqrt(1.4*R*T)
+	if want := 0.5 * rho * v * v; math.Abs(got.Value()-want) > 1e-9*want || math.Abs(want-17731.875) > 1e-6 {
+		t.Errorf("q = %v, ½ρV² = %v", got, want)
+	}
+	if _, err := air.DynamicPressure(q.New(-1, q.Pressure), 0.5); !errors.Is(err, q.ErrRange) {
+		t.Errorf("a negative pressure: %v", err)
+	}
+}
+
+// The vapour pressure and surface tension of a model basin's water at
+// 15 °C and a prototype's at 28 °C (IAPWS-IF97, IAPWS 2014).
+func ExampleVapourPressure() {
+	for _, c := range []float64{15, 28} {
+		T := q.New(c+273.15, q.Temperature)
+		pv, _ := fluids.VapourPressure(T)
+		s, _ := fluids.SurfaceTension(T)
+		fmt.Printf("%g °C: p_v = %.1f Pa, σ = %.5f N/m\n", c, pv.Value(), s.Value())
+	}
+	// Output:
+	// 15 °C: p_v = 1705.7 Pa, σ = 0.07349 N/m
+	// 28 °C: p_v = 3782.8 Pa, σ = 0.07151 N/m
 }
