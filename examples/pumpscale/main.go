@@ -2,7 +2,10 @@
 // prototype at another speed and impeller diameter by the affinity laws,
 // with the efficiency stepped up by Moody's formula at the best-efficiency
 // point and that gain added along the curve (common practice), and prints
-// the curve in US customary units (gpm, ft, hp) and in SI.
+// the curve in US customary units (gpm, ft, hp) and in SI; then it
+// compares the step-up with IEC 60193's and Ackeret's, gives the specific
+// speed in its three conventions, and carries the model's NPSH3 to the
+// prototype at its own water temperature through the Thoma number.
 //
 // The pump family and the test curve are invented.
 //
@@ -16,10 +19,12 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"math"
 	"os"
 
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
+	"similis.dev/similis/similarity/fluids"
 	"similis.dev/similis/units"
 )
 
@@ -55,6 +60,12 @@ type Row struct {
 func run(w io.Writer, args []string) error { _, err := evaluate(w, args); return err }
 
 func evaluate(w io.Writer, args []string) ([]Row, error) {
+	rows, _, err := evaluateAll(w, args)
+	return rows, err
+}
+
+// evaluateAll carries the curve and the suction performance.
+func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 	fs := flag.NewFlagSet("pumpscale", flag.ContinueOnError)
 	fs.SetOutput(w)
 	nm := fs.Float64("nm", 1750, "model speed, rpm")
@@ -63,16 +74,16 @@ func evaluate(w io.Writer, args []string) ([]Row, error) {
 	dp := fs.Float64("dp", 24, "prototype impeller diameter, in")
 	moody := fs.Float64("moody", 0.2, "Moody exponent")
 	if err := fs.Parse(args); err != nil {
-		return nil, err
+		return nil, Suction{}, err
 	}
 	if !(*nm > 0 && *dm > 0 && *np > 0 && *dp > 0) {
-		return nil, fmt.Errorf("speeds and diameters must be positive")
+		return nil, Suction{}, fmt.Errorf("speeds and diameters must be positive")
 	}
 	// Ratios prototype/model: the affinity laws run either way.
 	// Ratios are model/prototype, as everywhere in similis.
 	aff, err := similarity.AffinityLaws(similarity.Scales{Speed: *nm / *np, Diameter: *dm / *dp, Density: 1})
 	if err != nil {
-		return nil, err
+		return nil, Suction{}, err
 	}
 	in := units.MustParse("in")
 	dModel, dProto := in.Of(*dm), in.Of(*dp)
@@ -89,13 +100,13 @@ func evaluate(w io.Writer, args []string) ([]Row, error) {
 	for i, c := range curve {
 		eta, err := units.ParseQuantity(c.eff)
 		if err != nil || !eta.IsDimensionless() {
-			return nil, fmt.Errorf("point %d: efficiency %q: %v", i, c.eff, err)
+			return nil, Suction{}, fmt.Errorf("point %d: efficiency %q: %v", i, c.eff, err)
 		}
 		etas[i] = eta.Value()
 	}
 	step, err := similarity.MoodyCurve(etas, dModel, dProto, *moody, similarity.StepUpAtBEP)
 	if err != nil {
-		return nil, err
+		return nil, Suction{}, err
 	}
 	var rows []Row
 	fmt.Fprintf(w, "\n%-28s | %-40s | %s\n", "model", "prototype (US customary)", "prototype (SI)")
@@ -103,15 +114,15 @@ func evaluate(w io.Writer, args []string) ([]Row, error) {
 	for i, c := range curve {
 		Q, err := units.ParseQuantity(c.flow)
 		if err != nil {
-			return nil, fmt.Errorf("point %d: %w", i, err)
+			return nil, Suction{}, fmt.Errorf("point %d: %w", i, err)
 		}
 		H, err := units.ParseQuantity(c.head)
 		if err != nil {
-			return nil, fmt.Errorf("point %d: %w", i, err)
+			return nil, Suction{}, fmt.Errorf("point %d: %w", i, err)
 		}
 		eta, err := units.ParseQuantity(c.eff)
 		if err != nil || !eta.IsDimensionless() {
-			return nil, fmt.Errorf("point %d: efficiency %q: %v", i, c.eff, err)
+			return nil, Suction{}, fmt.Errorf("point %d: efficiency %q: %v", i, c.eff, err)
 		}
 		// Shaft power from the hydraulic power and the efficiency.
 		P := water.Mul(g).Mul(Q).Mul(H).Div(eta)
@@ -131,6 +142,88 @@ func evaluate(w io.Writer, args []string) ([]Row, error) {
 	fmt.Fprintf(w, "(%.1f %% → %.1f %%), and its gain of %.2f points added at every point (common practice, as IEC 60193 does);\n",
 		100*etas[step.BEP], 100*(etas[step.BEP]+step.Gain), 100*step.Gain)
 	fmt.Fprintln(w, "power from ρgQH/η_p")
+	suc, err := suction(w, step, etas, rows, *nm, *np, dModel, dProto)
+	if err != nil {
+		return nil, Suction{}, err
+	}
 	fmt.Fprintln(w, "\nCAUTION:", caution)
-	return rows, nil
+	return rows, suc, nil
+}
+
+// Invented suction test of the model at its best-efficiency point: the
+// NPSH at 3 % head drop, and the water temperatures of the model loop and
+// of the prototype's service.
+const (
+	modelNPSH3   = 12.0 // ft
+	modelWaterC  = 20.0 // °C
+	protoWaterC  = 30.0 // °C
+	protoInletMS = 3.2  // m/s, mean velocity at the prototype's suction flange
+)
+
+// Suction is the cavitation scaling, for the test.
+type Suction struct {
+	Sigma                 float64
+	ProtoNPSH3            q.Quantity
+	ProtoSuction          q.Quantity // absolute pressure needed at the flange
+	ReModel, ReProto      float64
+	IEC, IECGain, Ackeret float64
+	SpecificSpeed         similarity.SpecificSpeeds
+}
+
+// suction compares the step-up methods at the best-efficiency point and
+// carries the model's NPSH3 to the prototype at its own water
+// temperature through the Thoma number.
+func suction(w io.Writer, step similarity.StepUp, etas []float64, rows []Row, nm, np float64, dModel, dProto q.Quantity) (Suction, error) {
+	var s Suction
+	bep := rows[step.BEP]
+	rpm := units.MustParse("rpm")
+	var err error
+	if s.SpecificSpeed, err = similarity.SpecificSpeedOf(rpm.Of(nm), bep.ModelQ, bep.ModelH); err != nil {
+		return Suction{}, err
+	}
+	// Machine Reynolds numbers Re = D·u/ν, u = πDn the peripheral speed
+	// at the impeller's outlet diameter.
+	mw, err := fluids.FreshWater().AtCelsius(modelWaterC)
+	if err != nil {
+		return Suction{}, err
+	}
+	pw, err := fluids.FreshWater().AtCelsius(protoWaterC)
+	if err != nil {
+		return Suction{}, err
+	}
+	re := func(d q.Quantity, n float64, st fluids.State) float64 {
+		u := math.Pi * d.Value() * n / 60
+		return d.Value() * u / st.KinematicViscosity.Value()
+	}
+	s.ReModel, s.ReProto = re(dModel, nm, mw), re(dProto, np, pw)
+	if s.IEC, s.IECGain, err = similarity.IECStepUp(etas[step.BEP], s.ReModel, s.ReProto); err != nil {
+		return Suction{}, err
+	}
+	if s.Ackeret, err = similarity.AckeretStepUp(etas[step.BEP], s.ReModel, s.ReProto); err != nil {
+		return Suction{}, err
+	}
+	ft := units.MustParse("ft")
+	if s.Sigma, err = similarity.Thoma(ft.Of(modelNPSH3), bep.ModelH); err != nil {
+		return Suction{}, err
+	}
+	s.ProtoNPSH3 = bep.ProtoH.Scale(s.Sigma)
+	pv, err := fluids.VapourPressure(q.New(protoWaterC+273.15, q.Temperature))
+	if err != nil {
+		return Suction{}, err
+	}
+	if s.ProtoSuction, err = similarity.SuctionPressureFor(s.Sigma, bep.ProtoH, pv, pw.Density, q.New(protoInletMS, q.Velocity), q.Quantity{}); err != nil {
+		return Suction{}, err
+	}
+	fmt.Fprintf(w, "\nAt the best-efficiency point: specific speed N_s = %.0f (rpm, gpm, ft) = n_q %.1f (rpm, m³/s, m) = Ω_s %.3f (rad/s, dimensionless)\n",
+		s.SpecificSpeed.US, s.SpecificSpeed.Metric, s.SpecificSpeed.Dimensionless)
+	fmt.Fprintf(w, "step-up compared, Re = D·πDn/ν: model %.3g (%g °C), prototype %.3g (%g °C):\n", s.ReModel, modelWaterC, s.ReProto, protoWaterC)
+	fmt.Fprintf(w, "  Moody (D^%s) %.1f %%; IEC 60193 scalable losses %.1f %% (Δη %.2f points); Ackeret %.1f %%\n",
+		"0.2", 100*(etas[step.BEP]+step.Gain), 100*s.IEC, 100*s.IECGain, 100*s.Ackeret)
+	fmt.Fprintf(w, "cavitation (invented model NPSH3 = %.1f ft at the BEP): Thoma σ = NPSH3/H = %.4f held at the prototype:\n", modelNPSH3, s.Sigma)
+	fmt.Fprintf(w, "  prototype NPSH3 = σ·H_p = %.1f ft (%.2f m); at %g °C (p_v = %.0f Pa, IAPWS-IF97) and %.1f m/s at the flange\n",
+		s.ProtoNPSH3.Value()/0.3048, s.ProtoNPSH3.Value(), protoWaterC, pv.Value(), protoInletMS)
+	fmt.Fprintf(w, "  at %.1f kPa absolute at the flange the prototype runs at NPSH3 (3 %% head drop); the available NPSH must exceed it\n",
+		s.ProtoSuction.Value()/1e3)
+	fmt.Fprintln(w, "  by the margin the applicable standard or the purchaser requires")
+	return s, nil
 }

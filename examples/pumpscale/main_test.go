@@ -7,6 +7,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"similis.dev/similis/similarity/fluids"
 )
 
 func TestRuns(t *testing.T) {
@@ -65,5 +67,44 @@ func TestHelp(t *testing.T) {
 	err := run(&out, []string{"-h"})
 	if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), "Usage") {
 		t.Errorf("-h: %v, %q", err, out.String())
+	}
+}
+
+// TestSuctionByHand: at the BEP (800 gpm, 96 ft, 1750 rpm) N_s =
+// 1750·√800/96^0.75 = 1614; Re = D·(πDn/60)/ν for 10 in at 1750 rpm in
+// water at 20 °C and 24 in at 1180 rpm at 30 °C, with the package's own
+// water viscosities; σ = 12/96 = 0.125; prototype NPSH3 = 0.125·H_p with
+// H_p = 96 ft/(N²D² ratio); and p = p_v(30 °C) + ρg(NPSH3 − V²/(2g)) with
+// V = 3.2 m/s (p_v from IAPWS-IF97: 4246.69 Pa, python3-iapws).
+func TestSuctionByHand(t *testing.T) {
+	_, s, err := evaluateAll(&bytes.Buffer{}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if ns := 1750 * math.Sqrt(800) / math.Pow(96, 0.75); math.Abs(s.SpecificSpeed.US-ns) > 1e-6*ns {
+		t.Errorf("N_s = %v, by hand %v", s.SpecificSpeed.US, ns)
+	}
+	w20, _ := fluids.FreshWater().AtCelsius(20)
+	w30, _ := fluids.FreshWater().AtCelsius(30)
+	dm, dp := 10*0.0254, 24*0.0254
+	rem := dm * (math.Pi * dm * 1750 / 60) / w20.KinematicViscosity.Value()
+	rep := dp * (math.Pi * dp * 1180 / 60) / w30.KinematicViscosity.Value()
+	if math.Abs(s.ReModel-rem) > 1e-9*rem || math.Abs(s.ReProto-rep) > 1e-9*rep {
+		t.Errorf("Re %v, %v; by hand %v, %v", s.ReModel, s.ReProto, rem, rep)
+	}
+	if s.Sigma != 0.125 {
+		t.Errorf("σ = %v, want 12/96", s.Sigma)
+	}
+	hp := 96 * 0.3048 / math.Pow(1750.0/1180, 2) / math.Pow(10.0/24, 2)
+	npsh := 0.125 * hp
+	if math.Abs(s.ProtoNPSH3.Value()-npsh) > 1e-9*npsh {
+		t.Errorf("prototype NPSH3 %v m, by hand %v", s.ProtoNPSH3.Value(), npsh)
+	}
+	p := 4246.69 + w30.Density.Value()*9.80665*(npsh-3.2*3.2/(2*9.80665))
+	if math.Abs(s.ProtoSuction.Value()-p) > 0.01 {
+		t.Errorf("suction pressure %v Pa, by hand %v", s.ProtoSuction.Value(), p)
+	}
+	if !(s.IECGain > 0 && s.Ackeret > 0.835 && s.IEC > 0.835) {
+		t.Errorf("step-ups %+v", s)
 	}
 }
