@@ -1,8 +1,10 @@
 // Command spillway plans a 1:30 Froude model of an invented river-intake
 // spillway: the model discharge, velocity, time and force scales, a
 // measured model time series of pressure on the chute floor carried to
-// prototype as a Series, and a distorted-scale variant for the river
-// reach upstream.
+// prototype as a Series, a distorted-scale variant for the river reach
+// upstream with the grain size a movable bed would need, and the
+// scale-effect checks (Reynolds and Weber numbers, head) at the crest at
+// the design discharge and at a low flow.
 //
 // The structure, the flows and the measurements are invented.
 //
@@ -21,6 +23,7 @@ import (
 
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
+	"similis.dev/similis/similarity/fluids"
 	"similis.dev/similis/units"
 )
 
@@ -44,7 +47,18 @@ type Result struct {
 	ProtoTimes, ProtoPressure                            q.Series
 	Distorted                                            similarity.Distorted
 	Manning                                              float64
+	Checks                                               [][]similarity.ScaleCheck // design and low flow
+	Sediment                                             similarity.SedimentScales
 }
+
+// Invented crest hydraulics of the prototype: the head over the crest at
+// the design discharge, and a low flow at a tenth of it; the head scales
+// with Q^(2/3) over the free crest.
+const (
+	designHead   = 4.2 // m
+	lowFlowShare = 0.1
+	modelWaterC  = 15.0 // °C
+)
 
 // Invented model record: pressure on the chute floor (kPa gauge) sampled
 // at 20 Hz in the model.
@@ -128,6 +142,43 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	fmt.Fprintf(w, "  design discharge in the distorted model: %.2f L/s\n", *qp*d.Discharge*1000)
 	if math.IsNaN(d.Velocity) {
 		return nil, fmt.Errorf("distorted ratios undefined")
+	}
+	if r.Sediment, err = similarity.SedimentFor(1 / *hs, 1 / *vs, 1, 1); err != nil {
+		return nil, err
+	}
+	fmt.Fprintf(w, "  movable bed (Shields similarity, the same water): bed shear u*² ratio %.4g; with the prototype's sand the grains\n", r.Sediment.Shear)
+	fmt.Fprintf(w, "  must be %.3g of the prototype's size (a lighter material allows larger ones), and Re* falls to %.3g of the prototype's\n",
+		r.Sediment.Grain, r.Sediment.ReStar)
+
+	// Scale effects at the crest: critical depth 2/3 of the head and the
+	// critical velocity √(g·y_c), in the model's water.
+	wat, err := fluids.FreshWater().AtCelsius(modelWaterC)
+	if err != nil {
+		return nil, err
+	}
+	sigma, err := fluids.SurfaceTension(wat.Temperature)
+	if err != nil {
+		return nil, err
+	}
+	lim := similarity.DefaultFreeSurfaceLimits()
+	fmt.Fprintf(w, "\nscale-effect checks at the crest, model water %g °C (common-practice limits: Re ≥ %g, We ≥ %g, head ≥ %g m):\n",
+		modelWaterC, lim.MinReynolds, lim.MinWeber, lim.MinHead.Value())
+	for _, c := range []struct {
+		name  string
+		share float64
+	}{{"design discharge", 1}, {"low flow, a tenth of it", lowFlowShare}} {
+		h := designHead * math.Pow(c.share, 2.0/3) / *scale
+		yc := 2 * h / 3
+		v := math.Sqrt(9.80665 * yc)
+		cs, err := similarity.FreeSurfaceChecks(q.New(v, q.Velocity), q.New(h, q.Length), wat.KinematicViscosity, wat.Density, sigma, lim)
+		if err != nil {
+			return nil, err
+		}
+		r.Checks = append(r.Checks, cs)
+		fmt.Fprintf(w, "  %s: model head %.3f m, V = %.3f m/s\n", c.name, h, v)
+		for _, ck := range cs {
+			fmt.Fprintf(w, "    %v\n", ck)
+		}
 	}
 	fmt.Fprintln(w, "\nCAUTION:", caution)
 	return r, nil

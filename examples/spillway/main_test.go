@@ -7,6 +7,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"similis.dev/similis/similarity/fluids"
 )
 
 func TestRuns(t *testing.T) {
@@ -56,5 +58,36 @@ func TestHelp(t *testing.T) {
 	err := run(&out, []string{"-h"})
 	if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), "Usage") {
 		t.Errorf("-h: %v, %q", err, out.String())
+	}
+}
+
+// TestScaleChecksByHand: at the design discharge the model head is
+// 4.2/30 = 0.14 m, the critical velocity √(g·⅔h); at a tenth of the
+// discharge the head is 4.2·0.1^(2/3)/30 = 0.0302 m, which fails the
+// 5 cm head and, with σ at 15 °C from IAPWS, the Weber limit. The
+// distorted reach needs grains of (1/30)²/(1/120) = 0.1333 of the
+// prototype's.
+func TestScaleChecksByHand(t *testing.T) {
+	r, err := evaluate(&bytes.Buffer{}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	wat, _ := fluids.FreshWater().AtCelsius(15)
+	sig, _ := fluids.SurfaceTension(wat.Temperature)
+	for i, share := range []float64{1, 0.1} {
+		h := 4.2 * math.Pow(share, 2.0/3) / 30
+		v := math.Sqrt(9.80665 * 2 * h / 3)
+		re := v * h / wat.KinematicViscosity.Value()
+		we := wat.Density.Value() * v * v * h / sig.Value()
+		c := r.Checks[i]
+		if math.Abs(c[0].Value-re) > 1e-9*re || math.Abs(c[1].Value-we) > 1e-9*we || math.Abs(c[2].Value-h) > 1e-15 {
+			t.Errorf("case %d: %v; by hand Re %v, We %v, h %v", i, c, re, we, h)
+		}
+	}
+	if !r.Checks[0][1].Pass || r.Checks[1][1].Pass || r.Checks[1][2].Pass {
+		t.Errorf("verdicts %v", r.Checks)
+	}
+	if math.Abs(r.Sediment.Grain-120.0/900) > 1e-15 {
+		t.Errorf("grain ratio %v", r.Sediment.Grain)
 	}
 }

@@ -1,0 +1,130 @@
+package similarity
+
+import (
+	"fmt"
+	"math"
+
+	"similis.dev/similis/quantity"
+)
+
+// FreeSurfaceLimits are the smallest Reynolds and Weber numbers and the
+// smallest head a free-surface Froude model should keep so that viscosity
+// and surface tension stay negligible. The defaults are common-practice
+// figures (Re = V·h/ν ≥ 10⁴ for fully turbulent flow, We = ρV²h/σ ≥ 100
+// for negligible surface tension, and a head of at least 5 cm over a
+// crest); a laboratory or guideline that names other criteria sets them
+// here, and a report states which were used.
+type FreeSurfaceLimits struct {
+	MinReynolds, MinWeber float64
+	MinHead               quantity.Quantity
+}
+
+// DefaultFreeSurfaceLimits returns the common-practice limits.
+func DefaultFreeSurfaceLimits() FreeSurfaceLimits {
+	return FreeSurfaceLimits{MinReynolds: 1e4, MinWeber: 100, MinHead: quantity.New(0.05, quantity.Length)}
+}
+
+// ScaleCheck is one scale-effect check of a model: a value, its limit and
+// whether it passes.
+type ScaleCheck struct {
+	Name         string
+	Value, Limit float64
+	Unit         string // of Value and Limit, "1" for a number
+	Pass         bool
+}
+
+// String writes "Re = V·h/ν = 4.2e+04 ≥ 1e+04: passes" or "… FAILS".
+func (c ScaleCheck) String() string {
+	verdict := "passes"
+	if !c.Pass {
+		verdict = "FAILS: scale effects likely"
+	}
+	unit := ""
+	if c.Unit != "1" && c.Unit != "" {
+		unit = " " + c.Unit
+	}
+	return fmt.Sprintf("%s = %.3g%s (limit ≥ %.3g%s): %s", c.Name, c.Value, unit, c.Limit, unit, verdict)
+}
+
+// FreeSurfaceChecks checks a free-surface model at a characteristic
+// velocity V and depth or head h in water of kinematic viscosity nu,
+// density rho and surface tension sigma against the limits.
+func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLimits) ([]ScaleCheck, error) {
+	for _, c := range []struct {
+		name string
+		q    quantity.Quantity
+		d    quantity.Dim
+	}{{"velocity", v, quantity.Velocity}, {"head", h, quantity.Length}, {"kinematic viscosity", nu, quantity.KinematicViscosity},
+		{"density", rho, quantity.Density}, {"surface tension", sigma, quantity.SurfaceTension}, {"minimum head", lim.MinHead, quantity.Length}} {
+		if err := c.q.CheckNamed(c.name, c.d); err != nil {
+			return nil, err
+		}
+		if !(c.q.Value() > 0) || math.IsInf(c.q.Value(), 0) {
+			return nil, &ExtrapolationError{Method: "scale-effect check", Reason: c.name + " must be positive and finite"}
+		}
+	}
+	re := v.Value() * h.Value() / nu.Value()
+	we := rho.Value() * v.Value() * v.Value() * h.Value() / sigma.Value()
+	return []ScaleCheck{
+		{Name: "Re = V·h/ν", Value: re, Limit: lim.MinReynolds, Unit: "1", Pass: re >= lim.MinReynolds},
+		{Name: "We = ρV²h/σ", Value: we, Limit: lim.MinWeber, Unit: "1", Pass: we >= lim.MinWeber},
+		{Name: "head h", Value: h.Value(), Limit: lim.MinHead.Value(), Unit: "m", Pass: h.Value() >= lim.MinHead.Value()},
+	}, nil
+}
+
+// Shields returns the Shields parameter θ = τ_b/((ρ_s − ρ)·g·d) and the
+// particle (shear) Reynolds number Re* = u*·d/ν, u* = √(τ_b/ρ), of grains
+// of diameter d and density rhoS under the bed shear stress tau in water
+// of density rho and kinematic viscosity nu: the two groups that govern
+// the start of sediment motion (Shields, 1936).
+func Shields(tau, rhoS, rho, d, nu, g quantity.Quantity) (theta, reStar float64, err error) {
+	for _, c := range []struct {
+		name string
+		q    quantity.Quantity
+		dim  quantity.Dim
+	}{{"bed shear stress", tau, quantity.Pressure}, {"grain density", rhoS, quantity.Density}, {"water density", rho, quantity.Density},
+		{"grain diameter", d, quantity.Length}, {"kinematic viscosity", nu, quantity.KinematicViscosity}, {"gravity", g, quantity.Acceleration}} {
+		if err := c.q.CheckNamed(c.name, c.dim); err != nil {
+			return 0, 0, err
+		}
+		if !(c.q.Value() > 0) || math.IsInf(c.q.Value(), 0) {
+			return 0, 0, &ExtrapolationError{Method: "Shields parameter", Reason: c.name + " must be positive and finite"}
+		}
+	}
+	if !(rhoS.Value() > rho.Value()) {
+		return 0, 0, &ExtrapolationError{Method: "Shields parameter", Reason: "grains no denser than the water do not settle"}
+	}
+	theta = tau.Value() / ((rhoS.Value() - rho.Value()) * g.Value() * d.Value())
+	reStar = math.Sqrt(tau.Value()/rho.Value()) * d.Value() / nu.Value()
+	return theta, reStar, nil
+}
+
+// SedimentScales are the consequences of Shields similarity in a Froude
+// model of a movable bed, as ratios model/prototype.
+type SedimentScales struct {
+	Shear       float64 // bed shear stress over water density, u*²: λ_h²/λ_L
+	Grain       float64 // the grain diameter that keeps θ: λ_h²/(λ_L·λ_Δ)
+	ReStar      float64 // the particle Reynolds number that follows: √(λ_h²/λ_L)·λ_d/λ_ν
+	Exaggerated bool    // a distorted model (λ_h ≠ λ_L)
+}
+
+// SedimentFor returns the sediment scales of a Froude model with
+// horizontal length ratio lengthH and vertical ratio lengthV (equal for an
+// undistorted model), for a submerged relative density ratio deltaRatio
+// (λ_Δ, Δ = (ρ_s − ρ)/ρ: 1 for the prototype's sand, about 0.16/1.65 for
+// a light plastic) and viscosity ratio nuRatio (1 in the same water). The
+// bed shear follows from τ = ρgRS with the depth scaled by λ_h and the
+// slope by λ_h/λ_L; Shields similarity (λ_θ = 1) then fixes the grain.
+func SedimentFor(lengthH, lengthV, deltaRatio, nuRatio float64) (SedimentScales, error) {
+	for _, r := range []float64{lengthH, lengthV, deltaRatio, nuRatio} {
+		if !(r > 0) || math.IsInf(r, 0) {
+			return SedimentScales{}, &ExtrapolationError{Method: "sediment scales", Reason: fmt.Sprintf("ratio %v is not positive and finite", r)}
+		}
+	}
+	var s SedimentScales
+	s.Shear = lengthV * lengthV / lengthH
+	s.Grain = s.Shear / deltaRatio
+	s.ReStar = math.Sqrt(s.Shear) * s.Grain / nuRatio
+	s.Exaggerated = lengthH != lengthV
+	return s, nil
+}
