@@ -128,3 +128,37 @@ func TestHumidAir(t *testing.T) {
 		}
 	}
 }
+
+// TestNitrogen: the saturation equation passes the normal boiling point
+// (77.355 K at 101 325 Pa) and the triple point (63.151 K, 12.52 kPa)
+// (Span et al., 2000, values from memory), and inverts; the ideal gas's
+// viscosity at 273 K is Sutherland's μ₀; a cryogenic test section at
+// 110 K and 1.5 bar keeps 110 K − T_sat(1.5 bar) above condensation, with
+// T_sat between the normal boiling point and 85 K.
+func TestNitrogen(t *testing.T) {
+	p, err := fluids.NitrogenSaturationPressure(q.New(77.355, q.Temperature))
+	if err != nil || math.Abs(p.Value()/101325-1) > 2e-3 {
+		t.Errorf("p_sat(77.355 K) = %v, %v; want 101325 Pa", p, err)
+	}
+	pt, _ := fluids.NitrogenSaturationPressure(q.New(63.151, q.Temperature))
+	if math.Abs(pt.Value()/12520-1) > 5e-3 {
+		t.Errorf("p_sat at the triple point = %v, want 12.52 kPa", pt)
+	}
+	ts, err := fluids.NitrogenSaturationTemperature(q.New(101325, q.Pressure))
+	back, _ := fluids.NitrogenSaturationPressure(ts)
+	if err != nil || math.Abs(back.Value()-101325) > 1e-6 {
+		t.Errorf("inversion: %v → %v (%v)", ts, back, err)
+	}
+	s, _ := fluids.Nitrogen().At(q.New(273, q.Temperature), q.New(101325, q.Pressure))
+	if math.Abs(s.DynamicViscosity.Value()-1.663e-5) > 1e-12 {
+		t.Errorf("μ(273 K) = %v", s.DynamicViscosity)
+	}
+	m, err := fluids.CondensationMargin(q.New(110, q.Temperature), q.New(1.5e5, q.Pressure))
+	t15, _ := fluids.NitrogenSaturationTemperature(q.New(1.5e5, q.Pressure))
+	if err != nil || m.Value() != 110-t15.Value() || !(t15.Value() > 77.355 && t15.Value() < 85) {
+		t.Errorf("margin %v (T_sat %v), %v", m, t15, err)
+	}
+	if _, err := fluids.NitrogenSaturationPressure(q.New(200, q.Temperature)); !errors.Is(err, q.ErrRange) {
+		t.Errorf("above the critical point: %v", err)
+	}
+}
