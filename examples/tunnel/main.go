@@ -46,6 +46,7 @@ type Result struct {
 	Pressurised, Cryogenic similarity.TunnelCondition
 	Compromise             *similarity.Compromise
 	Loads                  []Load
+	Margin                 q.Quantity // the cryogenic test section's margin to nitrogen condensation
 }
 
 // Load is a model's dynamic pressure and lift in one tunnel.
@@ -167,6 +168,11 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 			t.c.Temperature.Value(), t.c.Pressure.Value()/1e5, t.c.Velocity.Value(), t.c.ReynoldsRatio, t.c.Note)
 	}
 	fmt.Fprintln(w, "  (limits are total conditions; static = total by the isentropic relations of a perfect gas, γ = 1.4)")
+	if r.Margin, err = fluids.CondensationMargin(r.Cryogenic.Temperature, r.Cryogenic.Pressure); err != nil {
+		return nil, err
+	}
+	fmt.Fprintf(w, "  condensation: a cryogenic tunnel runs in nitrogen; at the static %.1f K and %.3f bar it stays %.0f K above saturation (Span et al.)\n",
+		r.Cryogenic.Temperature.Value(), r.Cryogenic.Pressure.Value()/1e5, r.Margin.Value())
 
 	// Loads on the model: q = (γ/2)·p·Ma² at each test section's static
 	// pressure, times C_L and the model's wing area.

@@ -7,6 +7,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"similis.dev/similis/similarity/fluids"
 )
 
 func TestRuns(t *testing.T) {
@@ -100,5 +102,21 @@ func TestLoadsByHand(t *testing.T) {
 	}
 	if !(r.Loads[1].Lift > 4000 && r.Loads[0].Lift < 4000 && r.Loads[2].Lift < 4000) || !strings.Contains(out.String(), "EXCEEDS the balance limit") {
 		t.Errorf("loads %+v", r.Loads)
+	}
+}
+
+// TestCondensationMargin: the margin is the static temperature less the
+// nitrogen saturation temperature at the static pressure.
+func TestCondensationMargin(t *testing.T) {
+	r, err := evaluate(&bytes.Buffer{}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ts, err := fluids.NitrogenSaturationTemperature(r.Cryogenic.Pressure)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if m := r.Cryogenic.Temperature.Value() - ts.Value(); math.Abs(r.Margin.Value()-m) > 1e-12 || !(m > 50) {
+		t.Errorf("margin %v, by hand %v", r.Margin, m)
 	}
 }
