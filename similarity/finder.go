@@ -69,6 +69,13 @@ func TemperatureFor(f fluids.Fluid, p quantity.Quantity, property func(fluids.St
 type TunnelLimits struct {
 	MinTemperature, MaxTemperature quantity.Quantity // total temperature T₀
 	MinPressure, MaxPressure       quantity.Quantity // total pressure p₀
+	// MaxDynamicPressure, if set, is the largest q = (γ/2)·p·Ma² the
+	// balance and the model may see in the test section.
+	MaxDynamicPressure quantity.Quantity
+	// CondensationMargin, if set, is how far (in kelvin) the static
+	// temperature must stay above the gas's saturation temperature at the
+	// static pressure; it applies to nitrogen (fluids.Nitrogen).
+	CondensationMargin quantity.Quantity
 }
 
 // TunnelCondition is a condition found for a model: the total condition
@@ -85,6 +92,12 @@ type TunnelCondition struct {
 	ReynoldsRatio float64
 	Achieved      bool
 	Note          string
+	// Binding names the limits that set the condition ("maximum total
+	// pressure", "maximum dynamic pressure", "condensation margin",
+	// "minimum total temperature", …), and Q is the dynamic pressure in
+	// the test section.
+	Binding []string
+	Q       quantity.Quantity
 }
 
 // TunnelCaution accompanies every pressurised or cryogenic tunnel
@@ -151,15 +164,58 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 		return pr * rep * gas.Viscosity(T) * gas.R * T / (speed(T) * lm)
 	}
 	c := TunnelCondition{Mach: ma, FullReynolds: rep}
+	pmaxName := "maximum total pressure"
+	if q := lim.MaxDynamicPressure; q != (quantity.Quantity{}) {
+		if err := q.CheckNamed("maximum dynamic pressure", quantity.Pressure); err != nil {
+			return TunnelCondition{}, err
+		}
+		if !(q.Value() > 0) || math.IsInf(q.Value(), 0) {
+			return TunnelCondition{}, &PlanError{Err: ErrBadRatio, Reason: "the maximum dynamic pressure must be positive and finite"}
+		}
+		if pq := pr * 2 * q.Value() / (gas.Gamma * ma * ma); pq < phi {
+			phi, pmaxName = pq, "maximum dynamic pressure"
+		}
+	}
+	tminName := "minimum total temperature"
+	if mg := lim.CondensationMargin; mg != (quantity.Quantity{}) {
+		if err := mg.CheckNamed("condensation margin", quantity.Temperature); err != nil {
+			return TunnelCondition{}, err
+		}
+		if gas.GasName != fluids.Nitrogen().GasName {
+			return TunnelCondition{}, &PlanError{Err: ErrBadRatio, Reason: "a condensation margin is checked for nitrogen; " + gas.GasName + " has no saturation curve here"}
+		}
+		// The margin at total temperature T0, with the pressure the
+		// Reynolds number needs (capped at the limit).
+		margin := func(T0 float64) float64 {
+			p := min(max(need0(T0), plo), phi) / pr
+			ts, err := fluids.NitrogenSaturationTemperature(quantity.New(p, quantity.Pressure))
+			if err != nil {
+				return math.Inf(1) // above the critical pressure: no condensation
+			}
+			return T0/tr - ts.Value() - mg.Value()
+		}
+		if margin(tlo) < 0 {
+			if margin(thi) < 0 {
+				return TunnelCondition{}, &PlanError{Err: ErrNoRoot, Reason: fmt.Sprintf("no total temperature up to %.4g K keeps the static temperature %.3g K above nitrogen saturation", thi, mg.Value())}
+			}
+			t0, err := bisect(margin, tlo, thi)
+			if err != nil {
+				return TunnelCondition{}, &PlanError{Err: ErrNoRoot, Reason: "the condensation margin could not be located"}
+			}
+			tlo, tminName = t0, "condensation margin"
+		}
+	}
 	T0, p0 := tlo, need0(tlo)
 	switch {
 	case p0 > phi:
 		p0 = phi
-		c.Note = fmt.Sprintf("the Reynolds number needs a total pressure of %.4g Pa even at the lowest total temperature; at the pressure limit it reaches only part of full scale", need0(tlo))
+		c.Binding = append(c.Binding, pmaxName, tminName)
+		c.Note = fmt.Sprintf("the Reynolds number needs a total pressure of %.4g Pa even at the lowest allowed total temperature; at the %s it reaches only part of full scale", need0(tlo), pmaxName)
 	case p0 < plo:
 		// Warm the gas until the minimum pressure gives the right Re.
 		if need0(thi) < plo {
 			T0, p0 = thi, plo
+			c.Binding = append(c.Binding, "minimum total pressure", "maximum total temperature")
 			c.Note = "even at the highest total temperature the minimum total pressure overshoots the full-scale Reynolds number"
 		} else {
 			var err error
@@ -167,7 +223,10 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 				return TunnelCondition{}, &PlanError{Err: ErrNoRoot, Reason: "no total temperature within the limits gives the Reynolds number at the minimum pressure"}
 			}
 			p0 = plo
+			c.Binding = append(c.Binding, "minimum total pressure")
 		}
+	default:
+		c.Binding = append(c.Binding, tminName)
 	}
 	c.Total = fluids.Total{Temperature: quantity.New(T0, quantity.Temperature), Pressure: quantity.New(p0, quantity.Pressure)}
 	T, p := T0/tr, p0/pr
@@ -176,6 +235,7 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 	c.Velocity = quantity.New(speed(T), quantity.Velocity)
 	c.ModelReynolds = rho * speed(T) * lm / gas.Viscosity(T)
 	c.ReynoldsRatio = c.ModelReynolds / rep
+	c.Q = quantity.New(0.5*gas.Gamma*p*ma*ma, quantity.Pressure)
 	c.Achieved = math.Abs(c.ReynoldsRatio-1) < 1e-6
 	if c.Achieved {
 		c.Note = "Mach and Reynolds numbers both held"
