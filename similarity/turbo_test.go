@@ -161,3 +161,37 @@ func TestTunnelFinderLimits(t *testing.T) {
 		t.Errorf("a condensation margin for air accepted")
 	}
 }
+
+// TestCorrectWalls2D works the corrections out by hand for a 0.3 m chord
+// in a 0.9 m high section, Λ = 0.25, C_lu = 0.82, C_du = 0.0125,
+// C_m¼u = −0.08 at 6°: σ = (π²/48)/9 = 0.022846, ε_sb = 0.0057115,
+// ε_wb = 0.3/3.6·0.0125 = 0.0010417, ε = 0.0067532.
+func TestCorrectWalls2D(t *testing.T) {
+	r, err := similarity.CorrectWalls2D(similarity.Section2D{Chord: quantity.New(0.3, quantity.Length), Height: quantity.New(0.9, quantity.Length),
+		ShapeFactor: 0.25, Alpha: 6, CL: 0.82, CD: 0.0125, CM: -0.08})
+	if err != nil {
+		t.Fatal(err)
+	}
+	sig := math.Pi * math.Pi / 48 / 9
+	esb, ewb := 0.25*sig, 0.3/3.6*0.0125
+	e := esb + ewb
+	cl := 0.82 * (1 - sig - 2*e)
+	for _, c := range []struct {
+		name      string
+		got, want float64
+	}{
+		{"σ", r.Sigma, sig}, {"ε_sb", r.SolidBlock, esb}, {"ε_wb", r.WakeBlock, ewb}, {"q/q_u", r.DynPressFac, 1 + 2*e},
+		{"α", r.Alpha, 6 + 57.3*sig/(2*math.Pi)*(0.82-0.32)}, {"C_l", r.CL, cl},
+		{"C_m", r.CM, -0.08*(1-2*e) + sig*cl/4}, {"C_d", r.CD, 0.0125 * (1 - 3*esb - 2*ewb)},
+	} {
+		if math.Abs(c.got-c.want) > 1e-15 {
+			t.Errorf("%s = %v, by hand %v", c.name, c.got, c.want)
+		}
+	}
+	if math.Abs(sig-0.022846) > 5e-7 {
+		t.Errorf("σ = %v", sig)
+	}
+	if _, err := similarity.CorrectWalls2D(similarity.Section2D{Chord: quantity.New(0.5, quantity.Length), Height: quantity.New(0.9, quantity.Length)}); err == nil {
+		t.Errorf("c/h = 0.56 accepted")
+	}
+}

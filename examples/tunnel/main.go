@@ -47,6 +47,7 @@ type Result struct {
 	Compromise             *similarity.Compromise
 	Loads                  []Load
 	Margin                 q.Quantity // the cryogenic test section's margin to nitrogen condensation
+	Section                similarity.Corrected2D
 }
 
 // Load is a model's dynamic pressure and lift in one tunnel.
@@ -196,6 +197,18 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		r.Loads = append(r.Loads, Load{Name: t.name, Q: dq.Value(), Lift: lift})
 		fmt.Fprintf(w, "  %-20s q = %6.2f kPa, lift = %5.2f kN — %s\n", t.name+":", dq.Value()/1e3, lift/1e3, verdict)
 	}
+	// A two-dimensional test of the wing's section (invented readings).
+	sec := similarity.Section2D{Chord: q.New(0.30, q.Length), Height: q.New(0.90, q.Length), ShapeFactor: 0.25,
+		Alpha: 6, CL: 0.82, CD: 0.0125, CM: -0.080}
+	if r.Section, err = similarity.CorrectWalls2D(sec); err != nil {
+		return nil, err
+	}
+	cs := r.Section
+	fmt.Fprintf(w, "\nSection test, chord 0.30 m wall to wall in a 0.90 m high closed test section (invented readings), wall corrections:\n")
+	fmt.Fprintf(w, "  σ = %.5f, ε_sb = %.5f (Λ = %.2f), ε_wb = %.5f; q = %.4f·q_u, V and Re = %.4f × uncorrected\n",
+		cs.Sigma, cs.SolidBlock, sec.ShapeFactor, cs.WakeBlock, cs.DynPressFac, cs.VelocityFac)
+	fmt.Fprintf(w, "  α %.2f° → %.3f°, C_l %.4f → %.4f, C_d %.5f → %.5f, C_m¼ %.4f → %.4f\n",
+		sec.Alpha, cs.Alpha, sec.CL, cs.CL, sec.CD, cs.CD, sec.CM, cs.CM)
 	fmt.Fprintln(w, "\nCAUTION:", similarity.TunnelCaution)
 	return r, nil
 }

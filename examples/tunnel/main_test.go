@@ -120,3 +120,17 @@ func TestCondensationMargin(t *testing.T) {
 		t.Errorf("margin %v, by hand %v", r.Margin, m)
 	}
 }
+
+// TestSectionByHand: σ = (π²/48)(0.3/0.9)², ε_sb = 0.25σ,
+// ε_wb = (0.3/(4·0.9))·0.0125, C_l = 0.82(1 − σ − 2ε).
+func TestSectionByHand(t *testing.T) {
+	r, err := evaluate(&bytes.Buffer{}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sig := math.Pi * math.Pi / 48 / 9
+	e := 0.25*sig + 0.3/3.6*0.0125
+	if math.Abs(r.Section.CL-0.82*(1-sig-2*e)) > 1e-15 || math.Abs(r.Section.Sigma-sig) > 1e-15 {
+		t.Errorf("section %+v", r.Section)
+	}
+}

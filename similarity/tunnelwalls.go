@@ -1,0 +1,82 @@
+package similarity
+
+import (
+	"fmt"
+	"math"
+
+	"similis.dev/similis/quantity"
+)
+
+// Section2D is a two-dimensional (wall-to-wall) airfoil test in a closed
+// test section: the measured, uncorrected coefficients and the geometry.
+type Section2D struct {
+	Chord, Height quantity.Quantity // model chord c, test-section height h
+	// ShapeFactor is the body-shape factor Λ of the section for solid
+	// blockage (from the section's thickness distribution; about 0.2 to
+	// 0.3 for common 12 % sections).
+	ShapeFactor float64
+	// Alpha is the geometric angle of attack in degrees; CL, CD and CM
+	// (about the quarter chord) the measured coefficients on the
+	// uncorrected dynamic pressure.
+	Alpha, CL, CD, CM float64
+}
+
+// Corrected2D is a two-dimensional test corrected for the tunnel walls,
+// with every term.
+type Corrected2D struct {
+	Sigma        float64 // streamline curvature σ = (π²/48)(c/h)²
+	SolidBlock   float64 // ε_sb = Λσ
+	WakeBlock    float64 // ε_wb = (c/4h)·C_du
+	Blockage     float64 // ε = ε_sb + ε_wb
+	VelocityFac  float64 // V/V_u = 1 + ε (Re/Re_u the same)
+	DynPressFac  float64 // q/q_u = 1 + 2ε
+	Alpha        float64 // α = α_u + (57.3σ/2π)(C_lu + 4C_m¼u), degrees
+	CL, CD, CM   float64 // corrected coefficients
+	DeltaAlpha   float64 // α − α_u, degrees
+	RelativeSize float64 // c/h
+}
+
+// CorrectWalls2D applies the classical closed-test-section corrections
+// for a two-dimensional airfoil test (solid and wake blockage,
+// streamline curvature), as the standard compendium of low-speed tunnel
+// testing gives them (Barlow, Rae and Pope, Low-Speed Wind Tunnel Testing,
+// 3rd ed., ch. 9; formulas quoted from memory):
+//
+//	C_l = C_lu(1 − σ − 2ε),  C_m¼ = C_m¼u(1 − 2ε) + σC_l/4,
+//	C_d = C_du(1 − 3ε_sb − 2ε_wb),  α = α_u + (57.3σ/2π)(C_lu + 4C_m¼u).
+//
+// The corrections are small-perturbation results: a chord above about
+// 0.4 of the height is refused, since they no longer hold.
+func CorrectWalls2D(s Section2D) (Corrected2D, error) {
+	m := func(r string) error { return &ExtrapolationError{Method: "2-D wall correction", Reason: r} }
+	if err := s.Chord.CheckNamed("chord", quantity.Length); err != nil {
+		return Corrected2D{}, err
+	}
+	if err := s.Height.CheckNamed("test-section height", quantity.Length); err != nil {
+		return Corrected2D{}, err
+	}
+	c, h := s.Chord.Value(), s.Height.Value()
+	if !(c > 0 && h > 0) || math.IsInf(c+h, 0) {
+		return Corrected2D{}, m("chord and height must be positive and finite")
+	}
+	if c/h > 0.4 {
+		return Corrected2D{}, m(fmt.Sprintf("c/h = %.3g: above 0.4 the classical corrections do not hold; use a smaller model or a wall-pressure method", c/h))
+	}
+	if !(s.ShapeFactor >= 0 && s.ShapeFactor < 2) || math.IsNaN(s.Alpha+s.CL+s.CD+s.CM) || math.IsInf(s.Alpha+s.CL+s.CD+s.CM, 0) {
+		return Corrected2D{}, m("the shape factor must lie in 0 … 2 and the coefficients be finite")
+	}
+	var r Corrected2D
+	r.RelativeSize = c / h
+	r.Sigma = math.Pi * math.Pi / 48 * (c / h) * (c / h)
+	r.SolidBlock = s.ShapeFactor * r.Sigma
+	r.WakeBlock = c / (4 * h) * s.CD
+	r.Blockage = r.SolidBlock + r.WakeBlock
+	r.VelocityFac = 1 + r.Blockage
+	r.DynPressFac = 1 + 2*r.Blockage
+	r.DeltaAlpha = 57.3 * r.Sigma / (2 * math.Pi) * (s.CL + 4*s.CM)
+	r.Alpha = s.Alpha + r.DeltaAlpha
+	r.CL = s.CL * (1 - r.Sigma - 2*r.Blockage)
+	r.CM = s.CM*(1-2*r.Blockage) + r.Sigma*r.CL/4
+	r.CD = s.CD * (1 - 3*r.SolidBlock - 2*r.WakeBlock)
+	return r, nil
+}
