@@ -4,7 +4,10 @@
 // ordinary tunnel drawing atmospheric air (total conditions 288.15 K and
 // 101 325 Pa, the test section's static state from the isentropic
 // relations), then the total temperature and pressure a pressurised or a
-// cooled tunnel would need to hold both.
+// cooled tunnel would need to hold both, the model's dynamic pressure and
+// lift in each against the balance limit, the cryogenic test section's
+// margin to nitrogen condensation, and the wall corrections of a
+// two-dimensional section test.
 //
 // The aircraft and the tunnels are invented for the demonstration.
 //
