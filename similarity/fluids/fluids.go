@@ -221,6 +221,10 @@ type IdealGas struct {
 	Gamma   float64 // ratio of specific heats
 	Beta    float64 // Sutherland's constant β, kg/(m·s·K^(1/2))
 	S       float64 // Sutherland's temperature, K
+	// KRef, KTemp and KS are Sutherland's law for the thermal
+	// conductivity, k = KRef·(T/KTemp)^(3/2)·(KTemp + KS)/(T + KS), in
+	// W/(m·K), K and K; zero when not modelled.
+	KRef, KTemp, KS float64
 }
 
 // Air returns dry air with the constants of ISO 2533:1975: R = 287.052 87
@@ -229,7 +233,7 @@ type IdealGas struct {
 // atmosphere) for another.
 func Air() IdealGas { return isoAir }
 
-var isoAir = IdealGas{GasName: "air", R: 287.05287, Gamma: 1.4, Beta: 1.458e-6, S: 110.4}
+var isoAir = IdealGas{GasName: "air", R: 287.05287, Gamma: 1.4, Beta: 1.458e-6, S: 110.4, KRef: 0.0241, KTemp: 273, KS: 194}
 
 // Name implements Fluid.
 func (g IdealGas) Name() string { return g.GasName }

@@ -162,3 +162,57 @@ func TestNitrogen(t *testing.T) {
 		t.Errorf("above the critical point: %v", err)
 	}
 }
+
+// TestThermalProperties against reference values computed once with
+// python3-iapws 1.5.2 at 101.325 kPa: fresh water from IAPWS-95 (c_p),
+// IAPWS 2011 (k) and IAPWS 2008 (μ, through Pr); dry air from the Lemmon
+// et al. (2000, 2004) equations (iapws.humidAir.Air). The tolerances are
+// the simpler formulations' own accuracy.
+func TestThermalProperties(t *testing.T) {
+	w := fluids.FreshWater()
+	for _, c := range []struct{ T, cp, k, pr float64 }{
+		{280.65, 4199.63013779429, 0.5734165107210468, 10.294641268542206},
+		{291.15, 4185.584368002716, 0.5944181978816595, 7.412385431355108},
+		{305.65, 4179.437459736626, 0.6181141336667222, 5.115444132658593},
+	} {
+		T := q.New(c.T, q.Temperature)
+		cp, err := w.SpecificHeat(T)
+		if err != nil || math.Abs(cp.Value()/c.cp-1) > 1e-4 {
+			t.Errorf("water c_p(%g K) = %v, IAPWS-95 %v (%v)", c.T, cp, c.cp, err)
+		}
+		k, err := w.ThermalConductivity(T)
+		if err != nil || math.Abs(k.Value()/c.k-1) > 3e-3 {
+			t.Errorf("water k(%g K) = %v, IAPWS 2011 %v (%v)", c.T, k, c.k, err)
+		}
+		pr, err := w.Prandtl(T)
+		if err != nil || math.Abs(pr/c.pr-1) > 1e-2 {
+			t.Errorf("water Pr(%g K) = %v, IAPWS %v (%v)", c.T, pr, c.pr, err)
+		}
+	}
+	air := fluids.Air()
+	for _, c := range []struct{ T, k, cp, pr float64 }{
+		{250, 0.02256441192777562, 1005.54192113014, 0.7147110730836492},
+		{300, 0.026384473239079283, 1006.3739076641025, 0.7070635473841832},
+		{350, 0.03000328649564614, 1009.2105936892406, 0.7019014896520507},
+	} {
+		T := q.New(c.T, q.Temperature)
+		k, err := air.ThermalConductivity(T)
+		if err != nil || math.Abs(k.Value()/c.k-1) > 2e-2 {
+			t.Errorf("air k(%g K) = %v, reference %v (%v)", c.T, k, c.k, err)
+		}
+		cp, _ := air.SpecificHeat()
+		if math.Abs(cp.Value()/c.cp-1) > 5e-3 {
+			t.Errorf("air c_p = %v, reference %v at %g K", cp, c.cp, c.T)
+		}
+		pr, err := air.Prandtl(T)
+		if err != nil || math.Abs(pr/c.pr-1) > 2e-2 {
+			t.Errorf("air Pr(%g K) = %v, reference %v (%v)", c.T, pr, c.pr, err)
+		}
+	}
+	if _, err := fluids.SeaWater().ThermalConductivity(q.New(290, q.Temperature)); !errors.Is(err, q.ErrRange) {
+		t.Errorf("sea water k: %v", err)
+	}
+	if _, err := w.SpecificHeat(q.New(380, q.Temperature)); !errors.Is(err, q.ErrRange) {
+		t.Errorf("c_p above the table: %v", err)
+	}
+}
