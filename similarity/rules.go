@@ -184,6 +184,10 @@ type Affinity struct {
 	Speed, Diameter, Density float64 // λ_N, λ_D, λ_ρ
 	Flow, Head, Power        float64 // λ_Q, λ_H (as gH), λ_P
 	Torque                   float64 // λ_T = λ_P/λ_N
+	// Pressure is the ratio of a fan's (or pump's) pressure rise,
+	// λ_Δp = λ_ρ·λ_H: the fan laws with the density of each side, as
+	// the fan pressure coefficient ψ_p = Δp/(ρn²D²) held equal gives.
+	Pressure float64
 }
 
 // AffinityLaws returns the affinity-law ratios, model/prototype, for the
@@ -213,7 +217,8 @@ func AffinityLaws(sc Scales) (Affinity, error) {
 	}
 	a := Affinity{Speed: speedRatio, Diameter: diameterRatio, Density: densityRatio, Flow: v[0], Head: v[1], Power: v[2]}
 	a.Torque = a.Power / a.Speed
-	if err := finiteRatios("torque", a.Torque); err != nil {
+	a.Pressure = a.Density * a.Head
+	if err := finiteRatios("torque", a.Torque, "pressure", a.Pressure); err != nil {
 		return Affinity{}, err
 	}
 	return a, nil

@@ -195,3 +195,20 @@ func TestCorrectWalls2D(t *testing.T) {
 		t.Errorf("c/h = 0.56 accepted")
 	}
 }
+
+// TestFanLawsWithDensity: a fan model at 2900 rpm and 0.4 m in air of
+// 1.20 kg/m³ for a prototype at 960 rpm and 1.6 m in air of 0.95 kg/m³
+// (a hot duct): the pressure ratio is λ_ρ·λ_N²·λ_D² by the fan laws
+// (ψ_p held), the flow ratio λ_N·λ_D³, the power ratio λ_ρ·λ_N³·λ_D⁵ and
+// the power is the pressure times the flow.
+func TestFanLawsWithDensity(t *testing.T) {
+	ln, ld, lr := 2900.0/960, 0.4/1.6, 1.20/0.95
+	a, err := similarity.AffinityLaws(similarity.Scales{Speed: ln, Diameter: ld, Density: lr})
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := lr * ln * ln * ld * ld
+	if math.Abs(a.Pressure-want) > 1e-12*want || math.Abs(a.Flow-ln*ld*ld*ld) > 1e-12 || math.Abs(a.Power-a.Pressure*a.Flow) > 1e-12*a.Power {
+		t.Errorf("%+v; pressure by hand %v", a, want)
+	}
+}
