@@ -24,8 +24,17 @@
 // in the unit). A null, or a NaN, is a missing value, held as NaN and
 // counted on the column; an infinite value is an error with the row and
 // column. Values are read chunk by chunk, so a file of any length reduces
-// in bounded memory. A file that is not valid Parquet gives an *Error; the
-// decoder is guarded so that a damaged file cannot crash the caller.
+// in bounded memory. A file that is not valid Parquet gives an *Error.
+//
+// Before anything is decoded, the footer (at most MaxFooterBytes) and
+// every page header are checked: a page may hold at most MaxPageBytes,
+// compressed or not, and its decompressed size is bounded from its own
+// headers. Pages compressed with ZSTD or SNAPPY, or not compressed, are
+// read; GZIP, LZ4 and BROTLI pages are refused with a message, since
+// their decoders' memory cannot be bounded in advance (a damaged LZ4 block
+// makes the decoder grow its buffer without end). Encrypted files and
+// data in other files are refused. A panic left in the decoder becomes an
+// *Error, so a damaged file cannot crash the caller.
 //
 // Writer writes Series in chosen units as optional DOUBLE columns in the
 // order given (a NaN becomes a null), with zstd compression, row groups of
