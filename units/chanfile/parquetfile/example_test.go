@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"fmt"
 	"io"
+	"math"
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units/chanfile"
@@ -22,10 +23,9 @@ func ExampleNewWriter() {
 		fmt.Println(err)
 		return
 	}
-	nan := quantity.NewSeries(nil, 0).Mean().Value() // NaN: an empty mean
 	w.Write([]quantity.Series{
 		quantity.NewSeries([]float64{1.0288888888888889, 1.5433333333333332}, quantity.Velocity),
-		quantity.NewSeries([]float64{21.4, nan}, quantity.Force),
+		quantity.NewSeries([]float64{21.4, math.NaN()}, quantity.Force), // the second run's reading lost
 	})
 	if err := w.Close(); err != nil {
 		fmt.Println(err)
