@@ -80,3 +80,85 @@ func CorrectWalls2D(s Section2D) (Corrected2D, error) {
 	r.CD = s.CD * (1 - 3*r.SolidBlock - 2*r.WakeBlock)
 	return r, nil
 }
+
+// Model3D is a three-dimensional (complete or half) model on a balance in
+// a closed test section: the uncorrected coefficients on the uncorrected
+// dynamic pressure and the factors the corrections need, read by the
+// engineer from the compendium's charts for this tunnel and model.
+type Model3D struct {
+	WingArea    quantity.Quantity // S, the reference area of the coefficients
+	TunnelArea  quantity.Quantity // C, the test section's cross-section
+	ModelVolume quantity.Quantity // the model's volume, for solid blockage
+	// ShapeFactor is K·τ₁ of the solid-blockage formula (body-shape factor
+	// times tunnel-shape factor; about 0.8 … 0.9 for a wing-body in a
+	// rectangular section).
+	ShapeFactor float64
+	// Delta is the boundary-correction factor δ of the downwash correction
+	// (0.125 for a small wing in a closed circular section; from the
+	// charts for the section's shape and the span ratio).
+	Delta float64
+	// Alpha (degrees), CL and CD are the measured, uncorrected values.
+	Alpha, CL, CD float64
+}
+
+// Corrected3D is a three-dimensional test corrected for the tunnel walls,
+// with every term.
+type Corrected3D struct {
+	SolidBlock  float64 // ε_sb = K·τ₁·V/C^(3/2)
+	WakeBlock   float64 // ε_wb = (S/4C)·C_Du
+	Blockage    float64 // ε = ε_sb + ε_wb
+	DynPressFac float64 // q/q_u = (1 + ε)²
+	DeltaAlpha  float64 // 57.3·δ·(S/C)·C_L, degrees (upwash-free angle)
+	DeltaCD     float64 // δ·(S/C)·C_L², the induced-drag correction
+	Alpha       float64 // α = α_u + Δα
+	CL, CD      float64 // on the corrected dynamic pressure, C_D with ΔC_D
+}
+
+// CorrectWalls3D applies the classical closed-test-section corrections to
+// a three-dimensional model: solid blockage (a Thom-type
+// ε_sb = K·τ₁·V/C^(3/2)), wake blockage ε_wb = (S/4C)·C_Du, the
+// coefficients referred to the corrected dynamic pressure
+// q = q_u(1 + ε)², and Glauert's boundary (downwash) correction of angle
+// and drag with the factor δ: Δα = 57.3·δ·(S/C)·C_L,
+// ΔC_D = δ·(S/C)·C_L² (Barlow, Rae and Pope, Low-Speed Wind Tunnel
+// Testing, 3rd ed., ch. 10; formulas quoted from memory). The tail's
+// streamline-curvature correction, which needs the tail's geometry, is
+// not included. A model whose reference area exceeds a fifth of the
+// test section's is refused.
+func CorrectWalls3D(m Model3D) (Corrected3D, error) {
+	e := func(r string) error { return &ExtrapolationError{Method: "3-D wall correction", Reason: r} }
+	for _, c := range []struct {
+		name string
+		q    quantity.Quantity
+		d    quantity.Dim
+	}{{"wing area", m.WingArea, quantity.Area}, {"tunnel area", m.TunnelArea, quantity.Area}, {"model volume", m.ModelVolume, quantity.Volume}} {
+		if err := c.q.CheckNamed(c.name, c.d); err != nil {
+			return Corrected3D{}, err
+		}
+		if !(c.q.Value() >= 0) || math.IsInf(c.q.Value(), 0) {
+			return Corrected3D{}, e(c.name + " must be finite and not negative")
+		}
+	}
+	s, c, v := m.WingArea.Value(), m.TunnelArea.Value(), m.ModelVolume.Value()
+	if !(s > 0 && c > 0) {
+		return Corrected3D{}, e("the wing and tunnel areas must be positive")
+	}
+	if s/c > 0.2 {
+		return Corrected3D{}, e(fmt.Sprintf("S/C = %.3g: above 0.2 the classical corrections do not hold", s/c))
+	}
+	if !(m.ShapeFactor >= 0 && m.ShapeFactor < 2) || !(m.Delta >= 0 && m.Delta < 1) || math.IsNaN(m.Alpha+m.CL+m.CD) || math.IsInf(m.Alpha+m.CL+m.CD, 0) {
+		return Corrected3D{}, e("the factors must lie in their ranges (K·τ₁ 0 … 2, δ 0 … 1) and the coefficients be finite")
+	}
+	var r Corrected3D
+	r.SolidBlock = m.ShapeFactor * v / math.Pow(c, 1.5)
+	r.WakeBlock = s / (4 * c) * m.CD
+	r.Blockage = r.SolidBlock + r.WakeBlock
+	r.DynPressFac = (1 + r.Blockage) * (1 + r.Blockage)
+	clq := m.CL / r.DynPressFac // on the corrected q
+	r.DeltaAlpha = 57.3 * m.Delta * s / c * clq
+	r.DeltaCD = m.Delta * s / c * clq * clq
+	r.Alpha = m.Alpha + r.DeltaAlpha
+	r.CL = clq
+	r.CD = m.CD/r.DynPressFac + r.DeltaCD
+	return r, nil
+}

@@ -212,3 +212,37 @@ func TestFanLawsWithDensity(t *testing.T) {
 		t.Errorf("%+v; pressure by hand %v", a, want)
 	}
 }
+
+// TestCorrectWalls3D by hand: S = 0.30 m², C = 3.0 m², V = 0.012 m³,
+// K·τ₁ = 0.86, δ = 0.125, C_Lu = 0.75, C_Du = 0.040 at 4°:
+// ε_sb = 0.86·0.012/3^1.5 = 0.0019861, ε_wb = 0.3/12·0.04 = 0.001,
+// q/q_u = (1 + ε)², C_L = 0.75/(1 + ε)², Δα = 57.3·0.125·0.1·C_L,
+// C_D = 0.04/(1 + ε)² + 0.125·0.1·C_L².
+func TestCorrectWalls3D(t *testing.T) {
+	r, err := similarity.CorrectWalls3D(similarity.Model3D{WingArea: quantity.New(0.3, quantity.Area), TunnelArea: quantity.New(3, quantity.Area),
+		ModelVolume: quantity.New(0.012, quantity.Volume), ShapeFactor: 0.86, Delta: 0.125, Alpha: 4, CL: 0.75, CD: 0.04})
+	if err != nil {
+		t.Fatal(err)
+	}
+	esb := 0.86 * 0.012 / math.Pow(3, 1.5)
+	eps := esb + 0.001
+	f := (1 + eps) * (1 + eps)
+	cl := 0.75 / f
+	for _, c := range []struct {
+		name      string
+		got, want float64
+	}{
+		{"ε_sb", r.SolidBlock, esb}, {"q/q_u", r.DynPressFac, f}, {"C_L", r.CL, cl},
+		{"α", r.Alpha, 4 + 57.3*0.125*0.1*cl}, {"C_D", r.CD, 0.04/f + 0.125*0.1*cl*cl},
+	} {
+		if math.Abs(c.got-c.want) > 1e-15 {
+			t.Errorf("%s = %v, by hand %v", c.name, c.got, c.want)
+		}
+	}
+	if math.Abs(esb-0.0019861) > 5e-8 {
+		t.Errorf("ε_sb = %v", esb)
+	}
+	if _, err := similarity.CorrectWalls3D(similarity.Model3D{WingArea: quantity.New(1, quantity.Area), TunnelArea: quantity.New(3, quantity.Area), ModelVolume: quantity.New(0.01, quantity.Volume)}); err == nil {
+		t.Errorf("S/C = 0.33 accepted")
+	}
+}

@@ -7,7 +7,7 @@
 // cooled tunnel would need to hold both, the model's dynamic pressure and
 // lift in each against the balance limit, the cryogenic test section's
 // margin to nitrogen condensation, and the wall corrections of a
-// two-dimensional section test.
+// two-dimensional section test and of the complete model.
 //
 // The aircraft and the tunnels are invented for the demonstration.
 //
@@ -51,6 +51,7 @@ type Result struct {
 	Loads                  []Load
 	Margin                 q.Quantity // the cryogenic test section's margin to nitrogen condensation
 	Section                similarity.Corrected2D
+	Model                  similarity.Corrected3D
 }
 
 // Load is a model's dynamic pressure and lift in one tunnel.
@@ -212,6 +213,17 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		cs.Sigma, cs.SolidBlock, sec.ShapeFactor, cs.WakeBlock, cs.DynPressFac, cs.VelocityFac)
 	fmt.Fprintf(w, "  α %.2f° → %.3f°, C_l %.4f → %.4f, C_d %.5f → %.5f, C_m¼ %.4f → %.4f\n",
 		sec.Alpha, cs.Alpha, sec.CL, cs.CL, sec.CD, cs.CD, sec.CM, cs.CM)
+	// The complete model in the ordinary tunnel's closed 2.0 × 1.5 m
+	// section (invented readings and chart factors).
+	m3 := similarity.Model3D{WingArea: q.New(area, q.Area), TunnelArea: q.New(3.0, q.Area), ModelVolume: q.New(0.010, q.Volume),
+		ShapeFactor: 0.86, Delta: 0.12, Alpha: 3.0, CL: cruiseCL, CD: 0.035}
+	if r.Model, err = similarity.CorrectWalls3D(m3); err != nil {
+		return nil, err
+	}
+	c3 := r.Model
+	fmt.Fprintf(w, "\nComplete model in a closed 2.0 × 1.5 m section (invented readings; K·τ₁ = %.2f, δ = %.2f from the charts):\n", m3.ShapeFactor, m3.Delta)
+	fmt.Fprintf(w, "  ε_sb = %.5f, ε_wb = %.5f; q = %.4f·q_u; α %.2f° → %.3f°, C_L %.4f → %.4f, C_D %.5f → %.5f (ΔC_D,i = %.5f)\n",
+		c3.SolidBlock, c3.WakeBlock, c3.DynPressFac, m3.Alpha, c3.Alpha, m3.CL, c3.CL, m3.CD, c3.CD, c3.DeltaCD)
 	fmt.Fprintln(w, "\nCAUTION:", similarity.TunnelCaution)
 	return r, nil
 }

@@ -134,3 +134,18 @@ func TestSectionByHand(t *testing.T) {
 		t.Errorf("section %+v", r.Section)
 	}
 }
+
+// TestModelCorrectionsByHand: ε_sb = 0.86·0.010/3^1.5, ε_wb =
+// S_m/(4·3)·0.035, C_L = 0.6/(1 + ε)², Δα = 57.3·0.12·(S_m/3)·C_L.
+func TestModelCorrectionsByHand(t *testing.T) {
+	r, err := evaluate(&bytes.Buffer{}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sm := 38.0 / 144
+	eps := 0.86*0.010/math.Pow(3, 1.5) + sm/12*0.035
+	cl := 0.6 / ((1 + eps) * (1 + eps))
+	if math.Abs(r.Model.CL-cl) > 1e-15 || math.Abs(r.Model.Alpha-(3+57.3*0.12*sm/3*cl)) > 1e-13 {
+		t.Errorf("model %+v; by hand C_L %v", r.Model, cl)
+	}
+}
