@@ -36,6 +36,11 @@ func (e *Evaluator) RowMeasured(values []uncertain.Measured, dst []uncertain.Mea
 	if err != nil {
 		return nil, err
 	}
+	for i, x := range q {
+		if x.Value() == 0 {
+			return nil, &EvalError{Symbol: e.set.prob.vars[i].Symbol, Reason: "a measured value of zero: the sensitivity of a product of powers is not defined there"}
+		}
+	}
 	c := e.cbuf[:len(values)]
 	for k := range e.num {
 		clear(c)
@@ -66,7 +71,9 @@ type SharedSource struct {
 // shared lists sources common to all rows. For group g = F·Π x_i^a_i the
 // relative uncertainty is √(Σ_i (a_i·u_i/x_i)² + Σ_s (Σ_i a_i·Rel_s,i)²).
 // Dimensions and lengths are checked once; no allocation once the
-// evaluator has run.
+// evaluator has run. A row where a variable is zero, or missing (NaN),
+// gets a NaN uncertainty for the groups it enters: the relative form is
+// not defined there.
 func (e *Evaluator) SeriesU(cols, u []quantity.Series, shared []SharedSource, dst, udst [][]float64) error {
 	if err := e.checkSeries(cols, dst); err != nil {
 		return err

@@ -143,3 +143,17 @@ func TestMeasuredLaw(t *testing.T) {
 		t.Errorf("value %v, Predict %v", p1.Value(), pr.Value)
 	}
 }
+
+// TestRowMeasuredZero: at a zero value the sensitivity Π·a/x of a
+// product of powers is not defined, and RowMeasured says so rather than
+// return a NaN derivative.
+func TestRowMeasuredZero(t *testing.T) {
+	e := reynolds(t)
+	set := uncertain.NewSet()
+	id := set.MustAdd(uncertain.Source{Name: "V", U: q.New(0.01, q.Velocity)})
+	in := []uncertain.Measured{uncertain.Exact(q.New(998, q.Density)), set.MustMeasure(q.New(0, q.Velocity), id),
+		uncertain.Exact(q.New(0.05, q.Length)), uncertain.Exact(q.New(1e-3, q.DynamicViscosity))}
+	if _, err := e.RowMeasured(in, make([]uncertain.Measured, 1)); err == nil {
+		t.Errorf("a zero velocity accepted")
+	}
+}

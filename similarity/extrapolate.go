@@ -111,21 +111,12 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 	if len(t.Speeds) == 0 || len(t.Speeds) != len(t.Resistances) {
 		return nil, m(fmt.Sprintf("%d speeds and %d resistances", len(t.Speeds), len(t.Resistances)))
 	}
-	for _, c := range []struct {
-		name string
-		q    quantity.Quantity
-		d    quantity.Dim
-	}{
-		{"model length", t.ModelLength, quantity.Length}, {"model wetted area", t.ModelWettedArea, quantity.Area},
-		{"tank density", t.Tank.Density, quantity.Density}, {"tank viscosity", t.Tank.KinematicViscosity, quantity.KinematicViscosity},
-		{"sea density", t.Sea.Density, quantity.Density}, {"sea viscosity", t.Sea.KinematicViscosity, quantity.KinematicViscosity},
-	} {
-		if err := c.q.CheckNamed(c.name, c.d); err != nil {
-			return nil, err
-		}
-		if !(c.q.Value() > 0) || math.IsInf(c.q.Value(), 0) {
-			return nil, m(c.name + " must be positive and finite")
-		}
+	if err := checkInputs("hull extrapolation", true,
+		input{"model length", t.ModelLength, quantity.Length}, input{"model wetted area", t.ModelWettedArea, quantity.Area},
+		input{"tank density", t.Tank.Density, quantity.Density}, input{"tank viscosity", t.Tank.KinematicViscosity, quantity.KinematicViscosity},
+		input{"sea density", t.Sea.Density, quantity.Density}, input{"sea viscosity", t.Sea.KinematicViscosity, quantity.KinematicViscosity},
+	); err != nil {
+		return nil, err
 	}
 	g := t.Gravity
 	if g == (quantity.Quantity{}) {
@@ -270,17 +261,9 @@ type StepUp struct {
 // MoodyStepUp) with the chosen method; the result says which. The
 // efficiencies must lie strictly between 0 and 1.
 func MoodyCurve(etaModel []float64, dModel, dProto quantity.Quantity, exponent float64, method StepUpMethod) (StepUp, error) {
-	if len(etaModel) == 0 {
-		return StepUp{}, &ExtrapolationError{Method: "Moody step-up", Reason: "no efficiency points"}
-	}
-	out := StepUp{Method: method, Efficiency: make([]float64, len(etaModel))}
-	for i, e := range etaModel {
-		if !(e > 0 && e < 1) {
-			return StepUp{}, &ExtrapolationError{Method: "Moody step-up", Reason: fmt.Sprintf("point %d: model efficiency %v is not between 0 and 1", i, e)}
-		}
-		if e > etaModel[out.BEP] {
-			out.BEP = i
-		}
+	out, err := newStepUp("Moody step-up", etaModel, method)
+	if err != nil {
+		return StepUp{}, err
 	}
 	bep, err := MoodyStepUp(etaModel[out.BEP], dModel, dProto, exponent)
 	if err != nil {
@@ -297,6 +280,24 @@ func MoodyCurve(etaModel []float64, dModel, dProto quantity.Quantity, exponent f
 			}
 		default:
 			return StepUp{}, &ExtrapolationError{Method: "Moody step-up", Reason: "unknown " + method.String()}
+		}
+	}
+	return out, nil
+}
+
+// newStepUp checks a model efficiency curve (points strictly between 0
+// and 1) and returns its StepUp with the best-efficiency point found.
+func newStepUp(method string, etaModel []float64, m StepUpMethod) (StepUp, error) {
+	if len(etaModel) == 0 {
+		return StepUp{}, &ExtrapolationError{Method: method, Reason: "no efficiency points"}
+	}
+	out := StepUp{Method: m, Efficiency: make([]float64, len(etaModel))}
+	for i, e := range etaModel {
+		if !(e > 0 && e < 1) {
+			return StepUp{}, &ExtrapolationError{Method: method, Reason: fmt.Sprintf("point %d: model efficiency %v is not between 0 and 1", i, e)}
+		}
+		if e > etaModel[out.BEP] {
+			out.BEP = i
 		}
 	}
 	return out, nil

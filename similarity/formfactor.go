@@ -104,13 +104,16 @@ func ProhaskaWith(froude, ct, cf []float64, o ProhaskaOptions) (ProhaskaResult, 
 		lo, hi := 2.0, 8.0
 		g := (math.Sqrt(5) - 1) / 2
 		c, d := hi-g*(hi-lo), lo+g*(hi-lo)
+		fc, fd := sse(c), sse(d)
 		for hi-lo > 1e-6 {
-			if sse(c) < sse(d) {
-				hi, d = d, c
+			if fc < fd {
+				hi, d, fd = d, c, fc
 				c = hi - g*(hi-lo)
+				fc = sse(c)
 			} else {
-				lo, c = c, d
+				lo, c, fc = c, d, fd
 				d = lo + g*(hi-lo)
+				fd = sse(d)
 			}
 		}
 		n = (lo + hi) / 2
@@ -220,11 +223,17 @@ func WaveResistance(re, ct []float64, formFactor float64, line FrictionLine) ([]
 	if len(re) != len(ct) {
 		return nil, &ExtrapolationError{Method: "wave resistance", Reason: fmt.Sprintf("%d Reynolds numbers and %d coefficients", len(re), len(ct))}
 	}
+	if !(formFactor >= 1 && formFactor <= 2) {
+		return nil, &ExtrapolationError{Method: "wave resistance", Reason: fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", formFactor)}
+	}
 	out := make([]float64, len(re))
 	for i := range re {
 		cf, err := line.CF(re[i])
 		if err != nil {
 			return nil, &ExtrapolationError{Method: "wave resistance", Reason: fmt.Sprintf("run %d: %v", i+1, err)}
+		}
+		if math.IsNaN(ct[i]) || math.IsInf(ct[i], 0) {
+			return nil, &ExtrapolationError{Method: "wave resistance", Reason: fmt.Sprintf("run %d: C_T = %v is not finite", i+1, ct[i])}
 		}
 		out[i] = ct[i] - formFactor*cf
 	}
@@ -237,6 +246,9 @@ func WaveResistance(re, ct []float64, formFactor float64, line FrictionLine) ([]
 // speed: C_T(15) = C_T(t) + (1 + k)·(C_F(Re₁₅) − C_F(Re_t)), the wave part
 // being unchanged. The resistance at 15 °C is C_T(15)·½ρ₁₅V²S.
 func TemperatureCorrection(ct, reTest, reStd, formFactor float64, line FrictionLine) (float64, error) {
+	if !(formFactor >= 1 && formFactor <= 2) || math.IsNaN(ct) || math.IsInf(ct, 0) {
+		return 0, &ExtrapolationError{Method: "temperature correction", Reason: fmt.Sprintf("C_T = %v and 1 + k = %v: want a finite C_T and 1 ≤ 1 + k ≤ 2", ct, formFactor)}
+	}
 	cft, err := line.CF(reTest)
 	if err != nil {
 		return 0, err

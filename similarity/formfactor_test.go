@@ -143,3 +143,17 @@ func TestHullTable(t *testing.T) {
 		t.Errorf("C_FM %v, Schoenherr line %v", p.ModelCF, cf)
 	}
 }
+
+// TestWaveResistanceRefuses: a C_T that is not finite, or a form factor
+// outside 1 … 2, is an error with the run.
+func TestWaveResistanceRefuses(t *testing.T) {
+	if _, err := similarity.WaveResistance([]float64{2e6}, []float64{math.NaN()}, 1.1, similarity.LineITTC1957); err == nil {
+		t.Errorf("a NaN C_T accepted")
+	}
+	if _, err := similarity.WaveResistance([]float64{2e6}, []float64{4e-3}, 0.9, similarity.LineITTC1957); err == nil {
+		t.Errorf("1 + k = 0.9 accepted")
+	}
+	if _, err := similarity.TemperatureCorrection(math.Inf(1), 2e6, 1.8e6, 1.1, similarity.LineITTC1957); err == nil {
+		t.Errorf("an infinite C_T accepted")
+	}
+}

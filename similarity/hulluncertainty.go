@@ -87,22 +87,18 @@ func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
 	if !(r.Scale > 0 && r.Scale < 1) {
 		return HullRunResult{}, m(fmt.Sprintf("scale %v: want model/ship between 0 and 1", r.Scale))
 	}
-	for _, c := range []struct {
-		name string
-		v    uncertain.Measured
-		d    quantity.Dim
-	}{
-		{"model length", r.ModelLength, quantity.Length}, {"model wetted area", r.ModelWettedArea, quantity.Area},
-		{"model speed", r.ModelSpeed, quantity.Velocity}, {"model resistance", r.ModelResistance, quantity.Force},
-		{"tank temperature", r.TankTemperature, quantity.Temperature}, {"sea temperature", r.SeaTemperature, quantity.Temperature},
-		{"form factor", r.FormFactor, quantity.Dimensionless}, {"allowance", r.Allowance, quantity.Dimensionless},
-	} {
-		if err := c.v.Quantity().CheckNamed(c.name, c.d); err != nil {
-			return HullRunResult{}, err
-		}
-		if c.d != quantity.Dimensionless && !(c.v.Value() > 0) {
-			return HullRunResult{}, m(c.name + " must be positive")
-		}
+	const method = "hull extrapolation with uncertainty"
+	if err := checkInputs(method, true,
+		input{"model length", r.ModelLength.Quantity(), quantity.Length}, input{"model wetted area", r.ModelWettedArea.Quantity(), quantity.Area},
+		input{"model speed", r.ModelSpeed.Quantity(), quantity.Velocity}, input{"model resistance", r.ModelResistance.Quantity(), quantity.Force},
+		input{"tank temperature", r.TankTemperature.Quantity(), quantity.Temperature}, input{"sea temperature", r.SeaTemperature.Quantity(), quantity.Temperature},
+	); err != nil {
+		return HullRunResult{}, err
+	}
+	if err := checkInputs(method, false,
+		input{"form factor", r.FormFactor.Quantity(), quantity.Dimensionless}, input{"allowance", r.Allowance.Quantity(), quantity.Dimensionless},
+	); err != nil {
+		return HullRunResult{}, err
 	}
 	if k := r.FormFactor.Value(); !(k >= 1 && k <= 2) {
 		return HullRunResult{}, m(fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", k))

@@ -50,18 +50,11 @@ func (c ScaleCheck) String() string {
 // velocity V and depth or head h in water of kinematic viscosity nu,
 // density rho and surface tension sigma against the limits.
 func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLimits) ([]ScaleCheck, error) {
-	for _, c := range []struct {
-		name string
-		q    quantity.Quantity
-		d    quantity.Dim
-	}{{"velocity", v, quantity.Velocity}, {"head", h, quantity.Length}, {"kinematic viscosity", nu, quantity.KinematicViscosity},
-		{"density", rho, quantity.Density}, {"surface tension", sigma, quantity.SurfaceTension}, {"minimum head", lim.MinHead, quantity.Length}} {
-		if err := c.q.CheckNamed(c.name, c.d); err != nil {
-			return nil, err
-		}
-		if !(c.q.Value() > 0) || math.IsInf(c.q.Value(), 0) {
-			return nil, &ExtrapolationError{Method: "scale-effect check", Reason: c.name + " must be positive and finite"}
-		}
+	if err := checkInputs("scale-effect check", true,
+		input{"velocity", v, quantity.Velocity}, input{"head", h, quantity.Length}, input{"kinematic viscosity", nu, quantity.KinematicViscosity},
+		input{"density", rho, quantity.Density}, input{"surface tension", sigma, quantity.SurfaceTension}, input{"minimum head", lim.MinHead, quantity.Length},
+	); err != nil {
+		return nil, err
 	}
 	re := v.Value() * h.Value() / nu.Value()
 	we := rho.Value() * v.Value() * v.Value() * h.Value() / sigma.Value()
@@ -78,18 +71,11 @@ func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLi
 // of density rho and kinematic viscosity nu: the two groups that govern
 // the start of sediment motion (Shields, 1936).
 func Shields(tau, rhoS, rho, d, nu, g quantity.Quantity) (theta, reStar float64, err error) {
-	for _, c := range []struct {
-		name string
-		q    quantity.Quantity
-		dim  quantity.Dim
-	}{{"bed shear stress", tau, quantity.Pressure}, {"grain density", rhoS, quantity.Density}, {"water density", rho, quantity.Density},
-		{"grain diameter", d, quantity.Length}, {"kinematic viscosity", nu, quantity.KinematicViscosity}, {"gravity", g, quantity.Acceleration}} {
-		if err := c.q.CheckNamed(c.name, c.dim); err != nil {
-			return 0, 0, err
-		}
-		if !(c.q.Value() > 0) || math.IsInf(c.q.Value(), 0) {
-			return 0, 0, &ExtrapolationError{Method: "Shields parameter", Reason: c.name + " must be positive and finite"}
-		}
+	if err := checkInputs("Shields parameter", true,
+		input{"bed shear stress", tau, quantity.Pressure}, input{"grain density", rhoS, quantity.Density}, input{"water density", rho, quantity.Density},
+		input{"grain diameter", d, quantity.Length}, input{"kinematic viscosity", nu, quantity.KinematicViscosity}, input{"gravity", g, quantity.Acceleration},
+	); err != nil {
+		return 0, 0, err
 	}
 	if !(rhoS.Value() > rho.Value()) {
 		return 0, 0, &ExtrapolationError{Method: "Shields parameter", Reason: "grains no denser than the water do not settle"}

@@ -1,6 +1,7 @@
 package similarity
 
 import (
+	"cmp"
 	"fmt"
 	"math"
 	"slices"
@@ -125,23 +126,14 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	if !(in.Scale > 0 && in.Scale < 1) {
 		return PoweringResult{}, m(fmt.Sprintf("scale %v: want model/ship between 0 and 1", in.Scale))
 	}
-	for _, c := range []struct {
-		name string
-		q    quantity.Quantity
-		d    quantity.Dim
-	}{
-		{"model length", in.ModelLength, quantity.Length}, {"model wetted area", in.ModelWettedArea, quantity.Area},
-		{"model speed", in.ModelSpeed, quantity.Velocity}, {"model resistance", in.ModelResistance, quantity.Force},
-		{"tank density", in.Tank.Density, quantity.Density}, {"tank viscosity", in.Tank.KinematicViscosity, quantity.KinematicViscosity},
-		{"sea density", in.Sea.Density, quantity.Density}, {"sea viscosity", in.Sea.KinematicViscosity, quantity.KinematicViscosity},
-		{"propeller diameter", in.Propeller.Diameter, quantity.Length}, {"propeller chord", in.Propeller.Chord, quantity.Length},
-	} {
-		if err := c.q.CheckNamed(c.name, c.d); err != nil {
-			return PoweringResult{}, err
-		}
-		if !(c.q.Value() > 0) || math.IsInf(c.q.Value(), 0) {
-			return PoweringResult{}, m(c.name + " must be positive and finite")
-		}
+	if err := checkInputs("ITTC-1978 prediction", true,
+		input{"model length", in.ModelLength, quantity.Length}, input{"model wetted area", in.ModelWettedArea, quantity.Area},
+		input{"model speed", in.ModelSpeed, quantity.Velocity}, input{"model resistance", in.ModelResistance, quantity.Force},
+		input{"tank density", in.Tank.Density, quantity.Density}, input{"tank viscosity", in.Tank.KinematicViscosity, quantity.KinematicViscosity},
+		input{"sea density", in.Sea.Density, quantity.Density}, input{"sea viscosity", in.Sea.KinematicViscosity, quantity.KinematicViscosity},
+		input{"propeller diameter", in.Propeller.Diameter, quantity.Length}, input{"propeller chord", in.Propeller.Chord, quantity.Length},
+	); err != nil {
+		return PoweringResult{}, err
 	}
 	ks, err := orDefault(in.HullRoughness, 150e-6, quantity.Length, "hull roughness")
 	if err != nil {
@@ -190,7 +182,7 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 		return PoweringResult{}, m("propeller geometry: want at least 2 blades, P/D > 0, 0 < t/c < 0.5 and the model propeller's Re_co ≥ 10⁴")
 	}
 	ow := in.OpenWater
-	if len(ow) < 3 || !slices.IsSortedFunc(ow, func(a, b OpenWaterPoint) int { return cmpF(a.J, b.J) }) {
+	if len(ow) < 3 || !slices.IsSortedFunc(ow, func(a, b OpenWaterPoint) int { return cmp.Compare(a.J, b.J) }) {
 		return PoweringResult{}, m("the open-water curve needs at least three points in increasing J")
 	}
 	for i := 1; i < len(ow); i++ {
@@ -260,18 +252,9 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	if f(lo) < 0 || f(hi) > 0 {
 		return PoweringResult{}, m(fmt.Sprintf("the load K_T/J² = %.4f meets the open-water curve outside its measured J = %g … %g", r.Load, lo, hi))
 	}
-	for range 200 {
-		mid := (lo + hi) / 2
-		if f(mid) > 0 {
-			lo = mid
-		} else {
-			hi = mid
-		}
-		if hi-lo < 1e-14 {
-			break
-		}
+	if r.J, err = bisect(f, lo, hi); err != nil {
+		return PoweringResult{}, m("no operating point on the open-water curve")
 	}
-	r.J = (lo + hi) / 2
 	r.KT, r.KQ = kt(r.J), kq(r.J)
 	r.Eta0 = r.J * r.KT / (2 * math.Pi * r.KQ)
 	r.EtaH = (1 - t) / (1 - r.ShipWake)
@@ -302,16 +285,6 @@ func orDefault(q quantity.Quantity, def float64, d quantity.Dim, name string) (f
 		return 0, &ExtrapolationError{Method: "ITTC-1978 prediction", Reason: name + " must be positive and finite"}
 	}
 	return q.Value(), nil
-}
-
-func cmpF(a, b float64) int {
-	switch {
-	case a < b:
-		return -1
-	case a > b:
-		return 1
-	}
-	return 0
 }
 
 // interp interpolates a coefficient of the open-water curve linearly in

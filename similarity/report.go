@@ -139,7 +139,10 @@ func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 	return r, nil
 }
 
-func table(sb *strings.Builder, head []string, rows [][]string, md bool) {
+// table writes rows under a header as aligned text, or as a Markdown
+// table when md is set. With numeric set, every column holds numbers and
+// is right-aligned; otherwise columns are left-aligned.
+func table(sb *strings.Builder, head []string, rows [][]string, md, numeric bool) {
 	w := make([]int, len(head))
 	for i, h := range head {
 		w[i] = len([]rune(h))
@@ -155,10 +158,15 @@ func table(sb *strings.Builder, head []string, rows [][]string, md bool) {
 			return
 		}
 		for i, c := range cells {
+			pad := strings.Repeat(" ", w[i]-len([]rune(c)))
 			if i > 0 {
 				sb.WriteString("  ")
 			}
-			sb.WriteString(c + strings.Repeat(" ", w[i]-len([]rune(c))))
+			if numeric {
+				sb.WriteString(pad + c)
+			} else {
+				sb.WriteString(c + pad)
+			}
 		}
 		sb.WriteString("\n")
 	}
@@ -167,6 +175,9 @@ func table(sb *strings.Builder, head []string, rows [][]string, md bool) {
 		sep := make([]string, len(head))
 		for i := range sep {
 			sep[i] = "---"
+			if numeric {
+				sep[i] = "---:"
+			}
 		}
 		line(sep)
 	}
@@ -188,14 +199,14 @@ func (r *Report) write(md bool) string {
 		} else {
 			sb.WriteString("\nGroups\n")
 		}
-		table(&sb, []string{"group", "definition", "prototype", "model", "status"}, r.groups, md)
+		table(&sb, []string{"group", "definition", "prototype", "model", "status"}, r.groups, md, false)
 	}
 	if md {
 		sb.WriteString("\n### Variables\n\n")
 	} else {
 		sb.WriteString("\nVariables\n")
 	}
-	table(&sb, []string{"variable", "prototype", "model", "ratio model/prototype"}, r.vars, md)
+	table(&sb, []string{"variable", "prototype", "model", "ratio model/prototype"}, r.vars, md, false)
 	if len(r.notes) > 0 {
 		sb.WriteString("\n")
 		for _, n := range r.notes {

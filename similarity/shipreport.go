@@ -5,46 +5,6 @@ import (
 	"strings"
 )
 
-// tradeTable writes rows under a header as aligned text or a Markdown table;
-// columns after the first are right-aligned.
-func tradeTable(md bool, head []string, rows [][]string) string {
-	var sb strings.Builder
-	if md {
-		sb.WriteString("| " + strings.Join(head, " | ") + " |\n|")
-		for range head {
-			sb.WriteString("---:|")
-		}
-		sb.WriteString("\n")
-		for _, r := range rows {
-			sb.WriteString("| " + strings.Join(r, " | ") + " |\n")
-		}
-		return sb.String()
-	}
-	w := make([]int, len(head))
-	for i, h := range head {
-		w[i] = len([]rune(h))
-	}
-	for _, r := range rows {
-		for i, c := range r {
-			w[i] = max(w[i], len([]rune(c)))
-		}
-	}
-	line := func(r []string) {
-		for i, c := range r {
-			if i > 0 {
-				sb.WriteString("  ")
-			}
-			sb.WriteString(strings.Repeat(" ", w[i]-len([]rune(c))) + c)
-		}
-		sb.WriteString("\n")
-	}
-	line(head)
-	for _, r := range rows {
-		line(r)
-	}
-	return sb.String()
-}
-
 // Table writes the extrapolation as the trade presents it, one row per
 // run: model speed, Fn, C_TM, C_FM and C_R (×10³), ship speed in knots,
 // ship resistance in kN and effective power in kW; then every warning and
@@ -65,15 +25,17 @@ func (r *HullResult) Table(md bool) string {
 		}
 	}
 	line := r.Test.Line
-	s := fmt.Sprintf("Hull extrapolation: %v line, 1 + k = %.3f, C_A = %g, λ = 1:%.4g\n", line, r.FormFactor, r.Test.Allowance, 1/r.Test.Scale)
+	var sb strings.Builder
+	fmt.Fprintf(&sb, "Hull extrapolation: %v line, 1 + k = %.3f, C_A = %g, λ = 1:%.4g\n", line, r.FormFactor, r.Test.Allowance, 1/r.Test.Scale)
 	if md {
-		s += "\n"
+		sb.WriteString("\n")
 	}
-	s += tradeTable(md, head, rows)
+	table(&sb, head, rows, md, true)
 	for _, w := range warn {
-		s += w + "\n"
+		sb.WriteString(w + "\n")
 	}
-	return s + "CAUTION: " + r.Caution + "\n"
+	sb.WriteString("CAUTION: " + r.Caution + "\n")
+	return sb.String()
 }
 
 // PoweringTable writes ITTC-1978 predictions as the trade presents them,
@@ -92,9 +54,12 @@ func PoweringTable(rs []PoweringResult, md bool) string {
 			fmt.Sprintf("%.1f", r.RPM), fmt.Sprintf("%.0f", r.DeliveredPower.Value()/1e3),
 		})
 	}
-	s := "ITTC-1978 performance prediction (K_T, K_Q with n in rev/s)\n"
+	var sb strings.Builder
+	sb.WriteString("ITTC-1978 performance prediction (K_T, K_Q with n in rev/s)\n")
 	if md {
-		s += "\n"
+		sb.WriteString("\n")
 	}
-	return s + tradeTable(md, head, rows) + "CAUTION: " + PoweringCaution + "\n"
+	table(&sb, head, rows, md, true)
+	sb.WriteString("CAUTION: " + PoweringCaution + "\n")
+	return sb.String()
 }

@@ -24,16 +24,16 @@ type Section2D struct {
 // Corrected2D is a two-dimensional test corrected for the tunnel walls,
 // with every term.
 type Corrected2D struct {
-	Sigma        float64 // streamline curvature σ = (π²/48)(c/h)²
-	SolidBlock   float64 // ε_sb = Λσ
-	WakeBlock    float64 // ε_wb = (c/4h)·C_du
-	Blockage     float64 // ε = ε_sb + ε_wb
-	VelocityFac  float64 // V/V_u = 1 + ε (Re/Re_u the same)
-	DynPressFac  float64 // q/q_u = 1 + 2ε
-	Alpha        float64 // α = α_u + (57.3σ/2π)(C_lu + 4C_m¼u), degrees
-	CL, CD, CM   float64 // corrected coefficients
-	DeltaAlpha   float64 // α − α_u, degrees
-	RelativeSize float64 // c/h
+	Sigma                 float64 // streamline curvature σ = (π²/48)(c/h)²
+	SolidBlock            float64 // ε_sb = Λσ
+	WakeBlock             float64 // ε_wb = (c/4h)·C_du
+	Blockage              float64 // ε = ε_sb + ε_wb
+	VelocityFactor        float64 // V/V_u = 1 + ε (Re/Re_u the same)
+	DynamicPressureFactor float64 // q/q_u = 1 + 2ε
+	Alpha                 float64 // α = α_u + (57.3σ/2π)(C_lu + 4C_m¼u), degrees
+	CL, CD, CM            float64 // corrected coefficients
+	DeltaAlpha            float64 // α − α_u, degrees
+	ChordToHeight         float64 // c/h
 }
 
 // CorrectWalls2D applies the classical closed-test-section corrections
@@ -66,13 +66,13 @@ func CorrectWalls2D(s Section2D) (Corrected2D, error) {
 		return Corrected2D{}, m("the shape factor must lie in 0 … 2 and the coefficients be finite")
 	}
 	var r Corrected2D
-	r.RelativeSize = c / h
+	r.ChordToHeight = c / h
 	r.Sigma = math.Pi * math.Pi / 48 * (c / h) * (c / h)
 	r.SolidBlock = s.ShapeFactor * r.Sigma
 	r.WakeBlock = c / (4 * h) * s.CD
 	r.Blockage = r.SolidBlock + r.WakeBlock
-	r.VelocityFac = 1 + r.Blockage
-	r.DynPressFac = 1 + 2*r.Blockage
+	r.VelocityFactor = 1 + r.Blockage
+	r.DynamicPressureFactor = 1 + 2*r.Blockage
 	r.DeltaAlpha = 57.3 * r.Sigma / (2 * math.Pi) * (s.CL + 4*s.CM)
 	r.Alpha = s.Alpha + r.DeltaAlpha
 	r.CL = s.CL * (1 - r.Sigma - 2*r.Blockage)
@@ -104,14 +104,14 @@ type Model3D struct {
 // Corrected3D is a three-dimensional test corrected for the tunnel walls,
 // with every term.
 type Corrected3D struct {
-	SolidBlock  float64 // ε_sb = K·τ₁·V/C^(3/2)
-	WakeBlock   float64 // ε_wb = (S/4C)·C_Du
-	Blockage    float64 // ε = ε_sb + ε_wb
-	DynPressFac float64 // q/q_u = (1 + ε)²
-	DeltaAlpha  float64 // 57.3·δ·(S/C)·C_L, degrees (upwash-free angle)
-	DeltaCD     float64 // δ·(S/C)·C_L², the induced-drag correction
-	Alpha       float64 // α = α_u + Δα
-	CL, CD      float64 // on the corrected dynamic pressure, C_D with ΔC_D
+	SolidBlock            float64 // ε_sb = K·τ₁·V/C^(3/2)
+	WakeBlock             float64 // ε_wb = (S/4C)·C_Du
+	Blockage              float64 // ε = ε_sb + ε_wb
+	DynamicPressureFactor float64 // q/q_u = (1 + ε)²
+	DeltaAlpha            float64 // 57.3·δ·(S/C)·C_L, degrees (upwash-free angle)
+	DeltaCD               float64 // δ·(S/C)·C_L², the induced-drag correction
+	Alpha                 float64 // α = α_u + Δα
+	CL, CD                float64 // on the corrected dynamic pressure, C_D with ΔC_D
 }
 
 // CorrectWalls3D applies the classical closed-test-section corrections to
@@ -153,12 +153,12 @@ func CorrectWalls3D(m Model3D) (Corrected3D, error) {
 	r.SolidBlock = m.ShapeFactor * v / math.Pow(c, 1.5)
 	r.WakeBlock = s / (4 * c) * m.CD
 	r.Blockage = r.SolidBlock + r.WakeBlock
-	r.DynPressFac = (1 + r.Blockage) * (1 + r.Blockage)
-	clq := m.CL / r.DynPressFac // on the corrected q
+	r.DynamicPressureFactor = (1 + r.Blockage) * (1 + r.Blockage)
+	clq := m.CL / r.DynamicPressureFactor // on the corrected q
 	r.DeltaAlpha = 57.3 * m.Delta * s / c * clq
 	r.DeltaCD = m.Delta * s / c * clq * clq
 	r.Alpha = m.Alpha + r.DeltaAlpha
 	r.CL = clq
-	r.CD = m.CD/r.DynPressFac + r.DeltaCD
+	r.CD = m.CD/r.DynamicPressureFactor + r.DeltaCD
 	return r, nil
 }

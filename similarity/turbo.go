@@ -59,17 +59,9 @@ func AckeretStepUp(etaModel, reM, reP float64) (float64, error) {
 // at the best-efficiency point added at every point, as the standard does;
 // reM and reP are the model's and prototype's Reynolds numbers.
 func IECCurve(etaModel []float64, reM, reP float64) (StepUp, error) {
-	if len(etaModel) == 0 {
-		return StepUp{}, &ExtrapolationError{Method: "IEC 60193 step-up", Reason: "no efficiency points"}
-	}
-	out := StepUp{Method: StepUpAtBEP, Efficiency: make([]float64, len(etaModel))}
-	for i, e := range etaModel {
-		if !(e > 0 && e < 1) {
-			return StepUp{}, &ExtrapolationError{Method: "IEC 60193 step-up", Reason: fmt.Sprintf("point %d: model efficiency %v is not between 0 and 1", i, e)}
-		}
-		if e > etaModel[out.BEP] {
-			out.BEP = i
-		}
+	out, err := newStepUp("IEC 60193 step-up", etaModel, StepUpAtBEP)
+	if err != nil {
+		return StepUp{}, err
 	}
 	_, gain, err := IECStepUp(etaModel[out.BEP], reM, reP)
 	if err != nil {
@@ -103,15 +95,11 @@ type NPSHInput struct {
 // pressure (ISO 9906, IEC 60193).
 func NPSH(in NPSHInput) (quantity.Quantity, error) {
 	m := func(r string) error { return &ExtrapolationError{Method: "NPSH", Reason: r} }
-	for _, c := range []struct {
-		name string
-		q    quantity.Quantity
-		d    quantity.Dim
-	}{{"pressure", in.Pressure, quantity.Pressure}, {"vapour pressure", in.VapourPressure, quantity.Pressure},
-		{"density", in.Density, quantity.Density}, {"velocity", in.Velocity, quantity.Velocity}} {
-		if err := c.q.CheckNamed(c.name, c.d); err != nil {
-			return quantity.Quantity{}, err
-		}
+	if err := checkInputs("NPSH", false,
+		input{"pressure", in.Pressure, quantity.Pressure}, input{"vapour pressure", in.VapourPressure, quantity.Pressure},
+		input{"density", in.Density, quantity.Density}, input{"velocity", in.Velocity, quantity.Velocity},
+	); err != nil {
+		return quantity.Quantity{}, err
 	}
 	g, err := orDefault(in.Gravity, 9.80665, quantity.Acceleration, "gravity")
 	if err != nil {
@@ -134,7 +122,7 @@ func Thoma(npsh, head quantity.Quantity) (float64, error) {
 	if err := head.CheckNamed("head", quantity.Length); err != nil {
 		return 0, err
 	}
-	if !(head.Value() > 0) || math.IsInf(head.Value(), 0) || math.IsNaN(npsh.Value()) {
+	if !(head.Value() > 0) || math.IsInf(head.Value(), 0) || math.IsNaN(npsh.Value()) || math.IsInf(npsh.Value(), 0) {
 		return 0, &ExtrapolationError{Method: "Thoma number", Reason: fmt.Sprintf("head %v: want a positive length", head)}
 	}
 	return npsh.Value() / head.Value(), nil
@@ -145,17 +133,11 @@ func Thoma(npsh, head quantity.Quantity) (float64, error) {
 // with head H: p = p_v + ρg(σH − V²/(2g)), with the vapour pressure at the
 // prototype's own water temperature.
 func SuctionPressureFor(sigma float64, head quantity.Quantity, vapour, density, velocity, gravity quantity.Quantity) (quantity.Quantity, error) {
-	if err := head.CheckNamed("head", quantity.Length); err != nil {
+	if err := checkInputs("suction pressure", false,
+		input{"head", head, quantity.Length}, input{"vapour pressure", vapour, quantity.Pressure},
+		input{"density", density, quantity.Density}, input{"velocity", velocity, quantity.Velocity},
+	); err != nil {
 		return quantity.Quantity{}, err
-	}
-	for _, c := range []struct {
-		name string
-		q    quantity.Quantity
-		d    quantity.Dim
-	}{{"vapour pressure", vapour, quantity.Pressure}, {"density", density, quantity.Density}, {"velocity", velocity, quantity.Velocity}} {
-		if err := c.q.CheckNamed(c.name, c.d); err != nil {
-			return quantity.Quantity{}, err
-		}
 	}
 	g, err := orDefault(gravity, 9.80665, quantity.Acceleration, "gravity")
 	if err != nil {

@@ -180,7 +180,7 @@ func TestCorrectWalls2D(t *testing.T) {
 		name      string
 		got, want float64
 	}{
-		{"σ", r.Sigma, sig}, {"ε_sb", r.SolidBlock, esb}, {"ε_wb", r.WakeBlock, ewb}, {"q/q_u", r.DynPressFac, 1 + 2*e},
+		{"σ", r.Sigma, sig}, {"ε_sb", r.SolidBlock, esb}, {"ε_wb", r.WakeBlock, ewb}, {"q/q_u", r.DynamicPressureFactor, 1 + 2*e},
 		{"α", r.Alpha, 6 + 57.3*sig/(2*math.Pi)*(0.82-0.32)}, {"C_l", r.CL, cl},
 		{"C_m", r.CM, -0.08*(1-2*e) + sig*cl/4}, {"C_d", r.CD, 0.0125 * (1 - 3*esb - 2*ewb)},
 	} {
@@ -232,7 +232,7 @@ func TestCorrectWalls3D(t *testing.T) {
 		name      string
 		got, want float64
 	}{
-		{"ε_sb", r.SolidBlock, esb}, {"q/q_u", r.DynPressFac, f}, {"C_L", r.CL, cl},
+		{"ε_sb", r.SolidBlock, esb}, {"q/q_u", r.DynamicPressureFactor, f}, {"C_L", r.CL, cl},
 		{"α", r.Alpha, 4 + 57.3*0.125*0.1*cl}, {"C_D", r.CD, 0.04/f + 0.125*0.1*cl*cl},
 	} {
 		if math.Abs(c.got-c.want) > 1e-15 {

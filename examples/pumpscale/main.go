@@ -216,7 +216,7 @@ func suction(w io.Writer, step similarity.StepUp, etas []float64, rows []Row, nm
 	}
 	fmt.Fprintf(w, "\nAt the best-efficiency point: specific speed N_s = %.0f (rpm, gpm, ft) = n_q %.1f (rpm, m³/s, m) = Ω_s %.3f (rad/s, dimensionless)\n",
 		s.SpecificSpeed.US, s.SpecificSpeed.Metric, s.SpecificSpeed.Dimensionless)
-	fmt.Fprintf(w, "step-up compared, Re = D·πDn/ν: model %.3g (%g °C), prototype %.3g (%g °C):\n", s.ReModel, modelWaterC, s.ReProto, protoWaterC)
+	fmt.Fprintf(w, "step-up compared, Re = D·u/ν with u = πDn (n in rev/s): model %.3g (%g °C), prototype %.3g (%g °C):\n", s.ReModel, modelWaterC, s.ReProto, protoWaterC)
 	fmt.Fprintf(w, "  Moody (D^%s) %.1f %%; IEC 60193 scalable losses %.1f %% (Δη %.2f points); Ackeret %.1f %%\n",
 		"0.2", 100*(etas[step.BEP]+step.Gain), 100*s.IEC, 100*s.IECGain, 100*s.Ackeret)
 	fmt.Fprintf(w, "cavitation (invented model NPSH3 = %.1f ft at the BEP): Thoma σ = NPSH3/H = %.4f held at the prototype:\n", modelNPSH3, s.Sigma)

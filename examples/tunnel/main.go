@@ -210,7 +210,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	cs := r.Section
 	fmt.Fprintf(w, "\nSection test, chord 0.30 m wall to wall in a 0.90 m high closed test section (invented readings), wall corrections:\n")
 	fmt.Fprintf(w, "  σ = %.5f, ε_sb = %.5f (Λ = %.2f), ε_wb = %.5f; q = %.4f·q_u, V and Re = %.4f × uncorrected\n",
-		cs.Sigma, cs.SolidBlock, sec.ShapeFactor, cs.WakeBlock, cs.DynPressFac, cs.VelocityFac)
+		cs.Sigma, cs.SolidBlock, sec.ShapeFactor, cs.WakeBlock, cs.DynamicPressureFactor, cs.VelocityFactor)
 	fmt.Fprintf(w, "  α %.2f° → %.3f°, C_l %.4f → %.4f, C_d %.5f → %.5f, C_m¼ %.4f → %.4f\n",
 		sec.Alpha, cs.Alpha, sec.CL, cs.CL, sec.CD, cs.CD, sec.CM, cs.CM)
 	// The complete model in the ordinary tunnel's closed 2.0 × 1.5 m
@@ -223,7 +223,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	c3 := r.Model
 	fmt.Fprintf(w, "\nComplete model in a closed 2.0 × 1.5 m section (invented readings; K·τ₁ = %.2f, δ = %.2f from the charts):\n", m3.ShapeFactor, m3.Delta)
 	fmt.Fprintf(w, "  ε_sb = %.5f, ε_wb = %.5f; q = %.4f·q_u; α %.2f° → %.3f°, C_L %.4f → %.4f, C_D %.5f → %.5f (ΔC_D,i = %.5f)\n",
-		c3.SolidBlock, c3.WakeBlock, c3.DynPressFac, m3.Alpha, c3.Alpha, m3.CL, c3.CL, m3.CD, c3.CD, c3.DeltaCD)
+		c3.SolidBlock, c3.WakeBlock, c3.DynamicPressureFactor, m3.Alpha, c3.Alpha, m3.CL, c3.CL, m3.CD, c3.CD, c3.DeltaCD)
 	fmt.Fprintln(w, "\nCAUTION:", similarity.TunnelCaution)
 	return r, nil
 }

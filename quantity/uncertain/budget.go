@@ -159,8 +159,10 @@ func (m Measured) Budget(name string, p float64) (Budget, error) {
 // CoverageFactor returns the coverage factor for coverage probability p
 // and nu degrees of freedom: the (1+p)/2 quantile of Student's t
 // distribution (GUM G.3.4, Table G.2), or of the normal distribution for
-// infinite nu. A fractional nu is used as it is (GUM G.4.1 truncates it;
-// the difference is small and on the safe side only when truncated).
+// infinite nu; p must lie strictly between 0 and 1 and nu be positive,
+// or the result is NaN (Budget checks p). A fractional nu is used as it
+// is (GUM G.4.1 truncates it; the difference is small and on the safe
+// side only when truncated).
 func CoverageFactor(p, nu float64) float64 {
 	q := (1 + p) / 2
 	if math.IsInf(nu, 1) || nu > 1e7 {
@@ -189,8 +191,12 @@ func (b Budget) format(md bool) string {
 	if b.Factor > 0 && b.Unit != "" {
 		f, unit = b.Factor, b.Unit
 	}
-	fmt.Fprintf(&sb, "%s = %.6g, u_c = %.3g (%.3g %%), ν_eff = %s, k = %.3f, U(%.0f %%) = %.3g  [%s]\n",
-		name, b.Value.Value()/f, b.U.Value()/f, 100*b.U.Value()/math.Abs(b.Value.Value()), dof, b.K, 100*b.Coverage, b.Expanded.Value()/f, unit)
+	rel := "relative u undefined at a zero value"
+	if v := b.Value.Value(); v != 0 {
+		rel = fmt.Sprintf("%.3g %%", 100*b.U.Value()/math.Abs(v))
+	}
+	fmt.Fprintf(&sb, "%s = %.6g, u_c = %.3g (%s), ν_eff = %s, k = %.3f, U(%.0f %%) = %.3g  [%s]\n",
+		name, b.Value.Value()/f, b.U.Value()/f, rel, dof, b.K, 100*b.Coverage, b.Expanded.Value()/f, unit)
 	fmt.Fprintf(&sb, "systematic part %.3g, random part %.3g [%s]; contributions in the same unit\n", b.Systematic.Value()/f, b.Random.Value()/f, unit)
 	head := []string{"source", "type", "distribution", "effect", "u(source)", "c", "contribution", "% of u_c²"}
 	rows := [][]string{}

@@ -158,6 +158,9 @@ func MonteCarlo(inputs []Measured, model func(x []Measured) Measured, trials int
 		if t == 0 {
 			dim = y.Dim()
 		}
+		if v := y.Value(); math.IsNaN(v) || math.IsInf(v, 0) {
+			return MonteCarloResult{}, &Error{Reason: fmt.Sprintf("trial %d: the model gives %v: it is not defined over the inputs' distributions", t+1, v)}
+		}
 		ys[t] = y.Value()
 	}
 	var mean float64

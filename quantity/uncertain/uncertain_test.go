@@ -390,3 +390,16 @@ func TestDoFCorrelated(t *testing.T) {
 		t.Errorf("budget does not say how ν_eff treats the correlated sources:\n%s", bd)
 	}
 }
+
+// TestMonteCarloUndefined: a model that is not defined over the inputs'
+// distributions (a logarithm of a value that can go negative) is an
+// error, not NaN quantiles.
+func TestMonteCarloUndefined(t *testing.T) {
+	set := uncertain.NewSet()
+	id := set.MustAdd(uncertain.Source{Name: "x", U: quantity.Scalar(1)})
+	in := []uncertain.Measured{set.MustMeasure(quantity.Scalar(0.5), id)}
+	model := func(x []uncertain.Measured) uncertain.Measured { return uncertain.Log(x[0]) }
+	if _, err := uncertain.MonteCarlo(in, model, 1000, 0.95, 1); err == nil {
+		t.Errorf("NaN trials accepted")
+	}
+}

@@ -13,9 +13,9 @@ import (
 // memory). The ideal-gas state is a fair approximation of a cryogenic
 // tunnel's gas only well above saturation; CondensationMargin says how
 // far above it is.
-func Nitrogen() IdealGas { return n2 }
+func Nitrogen() IdealGas { return nitrogenGas }
 
-var n2 = IdealGas{GasName: "nitrogen", R: 8.314462618 / 0.0280134, Gamma: 1.4,
+var nitrogenGas = IdealGas{GasName: "nitrogen", R: 8.314462618 / 0.0280134, Gamma: 1.4,
 	Beta: 1.663e-5 * (273 + 107) / math.Pow(273, 1.5), S: 107, KRef: 0.0242, KTemp: 273, KS: 150}
 
 // Nitrogen's critical and triple points (Span et al., 2000).

@@ -155,15 +155,16 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) error {
 		}
 		if compressed && data < body+comp {
 			n := body + comp - data
-			head := make([]byte, min(n, 1<<16))
-			if _, err := sr.ReadAt(head, data); err != nil {
-				return fmt.Errorf("page %d: %v", page, err)
-			}
 			var out int64
 			var err error
 			switch codec {
 			case format.Snappy:
-				u, k := binary.Uvarint(head)
+				// The block starts with its decoded length, a varint.
+				var head [binary.MaxVarintLen64]byte
+				if _, err := sr.ReadAt(head[:min(n, int64(len(head)))], data); err != nil {
+					return fmt.Errorf("page %d: %v", page, err)
+				}
+				u, k := binary.Uvarint(head[:min(n, int64(len(head)))])
 				if k <= 0 {
 					return fmt.Errorf("page %d: a damaged snappy block", page)
 				}

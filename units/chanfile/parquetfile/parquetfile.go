@@ -379,15 +379,13 @@ func (r *Reader) Close() error { return r.pr.Close() }
 // where a plain group sorts them by name.
 type orderedGroup struct {
 	parquet.Group
-	order []string
+	rank map[string]int // a column's place in the order given
 }
 
 // Fields returns the group's fields in the order given.
 func (g orderedGroup) Fields() []parquet.Field {
 	f := g.Group.Fields()
-	slices.SortStableFunc(f, func(a, b parquet.Field) int {
-		return slices.Index(g.order, a.Name()) - slices.Index(g.order, b.Name())
-	})
+	slices.SortFunc(f, func(a, b parquet.Field) int { return g.rank[a.Name()] - g.rank[b.Name()] })
 	return f
 }
 
@@ -410,7 +408,7 @@ func NewWriter(w io.Writer, cols []chanfile.Column, opt Options) (*Writer, error
 		return nil, &Error{Reason: fmt.Sprintf("%d columns, more than %d", len(cols), MaxColumns)}
 	}
 	g := parquet.Group{}
-	order := make([]string, len(cols))
+	rank := make(map[string]int, len(cols))
 	opts := []parquet.WriterOption{parquet.Compression(&parquet.Zstd)}
 	for i, c := range cols {
 		if c.Name == "" {
@@ -430,7 +428,7 @@ func NewWriter(w io.Writer, cols []chanfile.Column, opt Options) (*Writer, error
 			return nil, &Error{Column: i + 1, Field: c.Name, Reason: fmt.Sprintf("the unit %q would not read back", u), Err: err}
 		}
 		g[c.Name] = parquet.Optional(parquet.Leaf(parquet.DoubleType))
-		order[i] = c.Name
+		rank[c.Name] = i
 		opts = append(opts, parquet.KeyValueMetadata(UnitKey+c.Name, u))
 	}
 	n := opt.RowGroupRows
@@ -438,7 +436,7 @@ func NewWriter(w io.Writer, cols []chanfile.Column, opt Options) (*Writer, error
 		n = 1 << 17
 	}
 	opts = append(opts, parquet.MaxRowsPerRowGroup(int64(n)), parquet.CreatedBy("similis", "", ""))
-	schema := parquet.NewSchema("channels", orderedGroup{Group: g, order: order})
+	schema := parquet.NewSchema("channels", orderedGroup{Group: g, rank: rank})
 	opts = append(opts, schema)
 	cfg, err := parquet.NewWriterConfig(opts...)
 	if err != nil {
