@@ -11,7 +11,7 @@
 //
 // Usage:
 //
-//	go run ./examples/towingtank [-scale 16] [-tank 15] [-sea 15] [-ca 0.0004] [-maxfn 0.2] [-out DIR]
+//	go run ./examples/towingtank [-scale 16] [-tank 15] [-sea 15] [-ca 0.0004] [-maxfn 0.2] [-width 4] [-depth 2] [-out DIR]
 package main
 
 import (
@@ -45,6 +45,9 @@ var (
 	modelArea   = 1.62                                                              // m², wetted, both hulls
 	speeds      = []float64{0.50, 0.65, 0.80, 1.00, 1.30, 1.60, 2.00, 2.40}         // m/s
 	resistances = []float64{1.105, 1.778, 2.600, 4.055, 7.270, 12.14, 22.30, 38.10} // N
+	// modelSection is the largest underwater cross-section of the two
+	// demi-hulls together, for the tank's blockage.
+	modelSection = 0.030 // m²
 )
 
 // Outcome holds the two extrapolations and the top-speed budget, for the
@@ -54,6 +57,11 @@ type Outcome struct {
 	Form            similarity.ProhaskaResult
 	Budget          Budgets
 	Powering        *Powering
+	// Blockage is the tank's mean-flow correction of every run, and
+	// Blocked the extrapolation with the form factor on the corrected
+	// speeds.
+	Blockage []similarity.BlockageCorrection
+	Blocked  *similarity.HullResult
 }
 
 // Budgets are the uncertainty budgets of the top-speed run at full scale.
@@ -117,6 +125,8 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	ca := fs.Float64("ca", 0.0004, "roughness and correlation allowance C_A")
 	maxFn := fs.Float64("maxfn", 0.2, "highest Froude number used for the form factor")
 	dir := fs.String("out", os.TempDir(), "directory for towingtank-coefficients.png and .svg")
+	width := fs.Float64("width", 4, "towing tank width, m")
+	depth := fs.Float64("depth", 2, "towing tank water depth, m")
 	if err := fs.Parse(args); err != nil {
 		return nil, err
 	}
@@ -185,6 +195,9 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	top := out.WithForm.Points[len(out.WithForm.Points)-1]
 	fmt.Fprintf(w, "\nat the top speed, with the form factor: R = %s, P_E = %s\n",
 		mustFormat(p, top.ShipResistance, "kN"), mustFormat(p, top.EffectivePower, "kW"))
+	if err := blockage(w, out, test, *width, *depth); err != nil {
+		return nil, err
+	}
 	if out.Budget, err = topBudget(*scale, *tankT, *seaT, *ca, out.Form); err != nil {
 		return nil, err
 	}
@@ -200,6 +213,35 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	}
 	fmt.Fprintln(w, "\nCAUTION:", similarity.HullCaution)
 	return out, nil
+}
+
+// blockage prints the tank's mean-flow blockage correction of every run
+// and what it does to the ship's resistance with the form factor. The
+// tables above are on the measured speeds; the basin decides whether to
+// apply the correction, and says so in its report.
+func blockage(w io.Writer, out *Outcome, test similarity.HullTest, width, depth float64) error {
+	sec := similarity.TankSection{Width: q.New(width, q.Length), Depth: q.New(depth, q.Length)}
+	blocked, corr, err := test.WithBlockage(sec, q.New(modelSection, q.Area))
+	if err != nil {
+		return err
+	}
+	if out.Blocked, err = similarity.ExtrapolateHull(blocked); err != nil {
+		return err
+	}
+	out.Blockage = corr
+	fmt.Fprintf(w, "\nTank blockage, one-dimensional mean flow (tank %g m × %g m, model A_x = %g m², m = %.4f; choking at %.2f m/s);\n",
+		width, depth, modelSection, corr[0].Blockage, corr[0].ChokingSpeed.Value())
+	fmt.Fprintf(w, "not applied in the tables above; with it, each resistance belongs to the corrected speed V' = V·(1 + ΔV/V):\n")
+	fmt.Fprintf(w, "%6s %6s %9s %9s %8s %8s | %7s %9s %9s\n", "Vm m/s", "Fh", "ΔV/V %", "linear %", "V' m/s", "Δh mm", "Vs kn", "R_s kN", "P_E kW")
+	kn := units.MustParse("kn")
+	for i, c := range corr {
+		b := out.Blocked.Points[i]
+		vs, _ := kn.ValueOf(b.ShipSpeed)
+		fmt.Fprintf(w, "%6.2f %6.3f %9.3f %9.3f %8.4f %8.2f | %7.2f %9.2f %9.1f\n", speeds[i], c.DepthFroude, 100*c.SpeedRatio, 100*c.Linear,
+			c.Speed.Value(), 1e3*c.SurfaceDrop.Value(), vs, b.ShipResistance.Value()/1e3, b.EffectivePower.Value()/1e3)
+	}
+	fmt.Fprintf(w, "(the ship speed follows V' at equal Froude number; ITTC 7.5-02-02-01 names the published methods that add wave terms to this mean-flow term)\n")
+	return nil
 }
 
 func mustFormat(p units.Printer, v q.Quantity, unit string) string {
