@@ -55,6 +55,56 @@ func AckeretStepUp(etaModel, reM, reP float64) (float64, error) {
 	return 1 - (1-etaModel)*(0.5+0.5*math.Pow(reM/reP, 0.2)), nil
 }
 
+// FanStepUp converts a fan's efficiency near its best-efficiency point
+// from the tested size or speed (Reynolds number reM) to another (reP) of
+// the same geometrically similar range, by Ackeret's formula applied as
+// fan test standards advise: because larger fans of a range perform
+// better but the formula's gain is uncertain, only half the predicted
+// increase is taken for a larger Reynolds number, and the full predicted
+// decrease for a smaller one. (The rule is the fan standards' clause on
+// the efficiency of other sizes, which admits it by agreement between
+// purchaser and manufacturer and only near the best efficiency; the
+// standards prefer testing enough sizes of the series that no fan's
+// performance is derived from a larger one.) The Reynolds
+// numbers must be on one definition, for example the impeller's tip
+// speed times its diameter over ν. It returns the converted efficiency
+// and the change applied.
+func FanStepUp(etaModel, reM, reP float64) (eta, change float64, err error) {
+	m := func(r string) error { return &ExtrapolationError{Method: "fan efficiency conversion", Reason: r} }
+	if !(etaModel > 0 && etaModel < 1) {
+		return 0, 0, m(fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))
+	}
+	if !(reM > 0 && reP > 0) || math.IsInf(reM, 0) || math.IsInf(reP, 0) {
+		return 0, 0, m(fmt.Sprintf("Reynolds numbers %g and %g: want positive and finite", reM, reP))
+	}
+	full := (1 - etaModel) * (0.5 - 0.5*math.Pow(reM/reP, 0.2)) // Ackeret's change, η_P − η_M
+	change = full
+	if full > 0 {
+		change = full / 2
+	}
+	return etaModel + change, change, nil
+}
+
+// FanCurve converts a fan's efficiency curve by FanStepUp with the change
+// found at the best-efficiency point added at every point (common
+// practice; the formula holds only near that point).
+func FanCurve(etaModel []float64, reM, reP float64) (StepUp, error) {
+	out, err := newStepUp("fan efficiency conversion", etaModel, StepUpAtBEP)
+	if err != nil {
+		return StepUp{}, err
+	}
+	if _, out.Gain, err = FanStepUp(etaModel[out.BEP], reM, reP); err != nil {
+		return StepUp{}, err
+	}
+	for i, e := range etaModel {
+		out.Efficiency[i] = e + out.Gain
+		if !(out.Efficiency[i] > 0 && out.Efficiency[i] < 1) {
+			return StepUp{}, &ExtrapolationError{Method: "fan efficiency conversion", Reason: fmt.Sprintf("point %d: converted efficiency %v is not between 0 and 1", i, out.Efficiency[i])}
+		}
+	}
+	return out, nil
+}
+
 // IECCurve steps up a model efficiency curve by IECStepUp with the gain
 // at the best-efficiency point added at every point, as the standard does;
 // reM and reP are the model's and prototype's Reynolds numbers.

@@ -6,6 +6,8 @@ import (
 	"math"
 	"testing"
 
+	"pgregory.net/rapid"
+
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
@@ -245,4 +247,68 @@ func TestCorrectWalls3D(t *testing.T) {
 	if _, err := similarity.CorrectWalls3D(similarity.Model3D{WingArea: quantity.New(1, quantity.Area), TunnelArea: quantity.New(3, quantity.Area), ModelVolume: quantity.New(0.01, quantity.Volume)}); err == nil {
 		t.Errorf("S/C = 0.33 accepted")
 	}
+}
+
+// TestFanStepUp checks the fan conversion by hand. η_M = 0.80:
+// to a ten times larger Reynolds number Ackeret gives
+// 0.2·(0.5 − 0.5·10^−0.2) = 0.2·0.1845213 = 0.0369043, of which half is
+// taken: η = 0.8184521; to a ten times smaller one the full decrease,
+// 0.2·(0.5 − 0.5·10^0.2) = −0.0584893: η = 0.7415107.
+func TestFanStepUp(t *testing.T) {
+	for _, c := range []struct {
+		name           string
+		eta, reM, reP  float64
+		want, wantDiff float64
+	}{
+		{"larger: half the gain", 0.80, 1e6, 1e7, 0.8184521, 0.0184521},
+		{"smaller: the full loss", 0.80, 1e7, 1e6, 0.7415107, -0.0584893},
+		{"same Reynolds number", 0.80, 1e6, 1e6, 0.80, 0},
+	} {
+		eta, d, err := similarity.FanStepUp(c.eta, c.reM, c.reP)
+		if err != nil || math.Abs(eta-c.want) > 5e-8 || math.Abs(d-c.wantDiff) > 5e-8 {
+			t.Errorf("%s: η = %.7f, Δ = %.7f, %v; want %.7f, %.7f", c.name, eta, d, err, c.want, c.wantDiff)
+		}
+	}
+	// The increase is half of AckeretStepUp's.
+	ack, _ := similarity.AckeretStepUp(0.80, 1e6, 1e7)
+	if _, d, _ := similarity.FanStepUp(0.80, 1e6, 1e7); math.Abs(d-(ack-0.80)/2) > 1e-15 {
+		t.Errorf("half of Ackeret: %v, want %v", d, (ack-0.80)/2)
+	}
+	for _, bad := range [][3]float64{{1, 1e6, 1e7}, {0.8, 0, 1e7}, {0.8, 1e6, math.Inf(1)}, {math.NaN(), 1e6, 1e7}} {
+		if _, _, err := similarity.FanStepUp(bad[0], bad[1], bad[2]); !errors.Is(err, similarity.ErrExtrapolation) {
+			t.Errorf("FanStepUp%v: %v", bad, err)
+		}
+	}
+	// Up then down never gains: the rule is conservative both ways.
+	rapid.Check(t, func(rt *rapid.T) {
+		eta := rapid.Float64Range(0.3, 0.95).Draw(rt, "η")
+		re := rapid.Float64Range(1e5, 1e7).Draw(rt, "Re")
+		k := rapid.Float64Range(1, 100).Draw(rt, "ratio")
+		up, _, err := similarity.FanStepUp(eta, re, re*k)
+		if err != nil {
+			rt.Fatal(err)
+		}
+		back, _, err := similarity.FanStepUp(up, re*k, re)
+		if err != nil {
+			rt.Fatal(err)
+		}
+		if back > eta+1e-15 {
+			rt.Errorf("η %v → %v → %v: the round trip gained", eta, up, back)
+		}
+	})
+	c, err := similarity.FanCurve([]float64{0.70, 0.80, 0.76}, 1e6, 1e7)
+	if err != nil || c.BEP != 1 || math.Abs(c.Efficiency[0]-(0.70+0.0184521)) > 5e-8 || math.Abs(c.Gain-0.0184521) > 5e-8 {
+		t.Errorf("FanCurve: %+v, %v", c, err)
+	}
+}
+
+// A fan tested at a tip Reynolds number of 1.2×10⁶ converted to the
+// site fan at 8×10⁶ (half Ackeret's gain) and to a smaller fan of the
+// range at 5×10⁵ (the full loss).
+func ExampleFanStepUp() {
+	up, gain, _ := similarity.FanStepUp(0.82, 1.2e6, 8e6)
+	down, loss, _ := similarity.FanStepUp(0.82, 1.2e6, 5e5)
+	fmt.Printf("larger: η = %.4f (%+.4f); smaller: η = %.4f (%+.4f)\n", up, gain, down, loss)
+	// Output:
+	// larger: η = 0.8342 (+0.0142); smaller: η = 0.8028 (-0.0172)
 }
