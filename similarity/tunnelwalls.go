@@ -97,8 +97,20 @@ type Model3D struct {
 	// (0.125 for a small wing in a closed circular section; from the
 	// charts for the section's shape and the span ratio).
 	Delta float64
-	// Alpha (degrees), CL and CD are the measured, uncorrected values.
-	Alpha, CL, CD float64
+	// Alpha (degrees), CL, CD and CM (pitching moment about the
+	// moment reference) are the measured, uncorrected values.
+	Alpha, CL, CD, CM float64
+	// CurvatureFactor is τ₂ of the wing's streamline-curvature
+	// correction, read from the compendium's chart at a distance of a
+	// quarter of the mean chord behind the quarter-chord point; zero
+	// leaves the curvature correction out. LiftSlope is the wing's
+	// dC_L/dα per degree, which the lift correction needs.
+	CurvatureFactor, LiftSlope float64
+	// TailCurvatureFactor is τ₂ at the tail's distance behind the wing
+	// and TailMomentSlope the pitching-moment slope per degree of tail
+	// angle, ∂C_m/∂α_t (from tail-on and tail-off runs); zero
+	// TailMomentSlope leaves the tail correction out.
+	TailCurvatureFactor, TailMomentSlope float64
 }
 
 // Corrected3D is a three-dimensional test corrected for the tunnel walls,
@@ -110,8 +122,17 @@ type Corrected3D struct {
 	DynamicPressureFactor float64 // q/q_u = (1 + ε)²
 	DeltaAlpha            float64 // 57.3·δ·(S/C)·C_L, degrees (upwash-free angle)
 	DeltaCD               float64 // δ·(S/C)·C_L², the induced-drag correction
-	Alpha                 float64 // α = α_u + Δα
-	CL, CD                float64 // on the corrected dynamic pressure, C_D with ΔC_D
+	// DeltaAlphaCurvature is the wing's streamline-curvature angle
+	// correction τ₂·δ·(S/C)·C_L·57.3 (degrees), DeltaCLCurvature the lift
+	// correction −Δα_sc·a and DeltaCMCurvature the quarter-chord moment
+	// correction −0.25·ΔC_L,sc.
+	DeltaAlphaCurvature, DeltaCLCurvature, DeltaCMCurvature float64
+	// TailAngle is the extra angle the tail meets in the tunnel,
+	// τ₂,t·δ·(S/C)·C_L·57.3 (degrees), and DeltaCMTail the moment
+	// correction −(∂C_m/∂α_t)·TailAngle.
+	TailAngle, DeltaCMTail float64
+	Alpha                  float64 // α = α_u + Δα + Δα_sc
+	CL, CD, CM             float64 // on the corrected dynamic pressure, with the curvature, drag and tail terms
 }
 
 // CorrectWalls3D applies the classical closed-test-section corrections to
@@ -121,10 +142,19 @@ type Corrected3D struct {
 // q = q_u(1 + ε)², and Glauert's boundary (downwash) correction of angle
 // and drag with the factor δ: Δα = 57.3·δ·(S/C)·C_L,
 // ΔC_D = δ·(S/C)·C_L² (Barlow, Rae and Pope, Low-Speed Wind Tunnel
-// Testing, 3rd ed., ch. 10; formulas quoted from memory). The tail's
-// streamline-curvature correction, which needs the tail's geometry, is
-// not included. A model whose reference area exceeds a fifth of the
-// test section's is refused.
+// Testing, 3rd ed., ch. 10; formulas quoted from memory).
+//
+// With the factors given, it adds the streamline-curvature corrections
+// of the same compendium (quoted from memory): the walls' upwash grows
+// along the chord, so the wing meets a curved stream, which adds an angle
+// Δα_sc = τ₂·δ·(S/C)·C_L·57.3 and a camber-like lift −ΔC_L,sc
+// (ΔC_L,sc = −Δα_sc·a) acting at mid-chord (ΔC_m¼ = −0.25·ΔC_L,sc); and
+// behind the wing the upwash has grown further, so the tail meets an
+// angle τ₂,t·δ·(S/C)·C_L·57.3 larger than the corrected α implies and
+// its moment is corrected by −(∂C_m/∂α_t) times that angle. The factors
+// δ, τ₂ and τ₂,t are read from the compendium's charts for the section
+// and the model; the results are only as good as those readings. A model
+// whose reference area exceeds a fifth of the test section's is refused.
 func CorrectWalls3D(m Model3D) (Corrected3D, error) {
 	e := func(r string) error { return &ExtrapolationError{Method: "3-D wall correction", Reason: r} }
 	for _, c := range []struct {
@@ -146,8 +176,15 @@ func CorrectWalls3D(m Model3D) (Corrected3D, error) {
 	if s/c > 0.2 {
 		return Corrected3D{}, e(fmt.Sprintf("S/C = %.3g: above 0.2 the classical corrections do not hold", s/c))
 	}
-	if !(m.ShapeFactor >= 0 && m.ShapeFactor < 2) || !(m.Delta >= 0 && m.Delta < 1) || math.IsNaN(m.Alpha+m.CL+m.CD) || math.IsInf(m.Alpha+m.CL+m.CD, 0) {
-		return Corrected3D{}, e("the factors must lie in their ranges (K·τ₁ 0 … 2, δ 0 … 1) and the coefficients be finite")
+	if !(m.ShapeFactor >= 0 && m.ShapeFactor < 2) || !(m.Delta >= 0 && m.Delta < 1) || !(m.CurvatureFactor >= 0 && m.CurvatureFactor < 2) ||
+		!(m.TailCurvatureFactor >= 0 && m.TailCurvatureFactor < 2) {
+		return Corrected3D{}, e("the factors must lie in their ranges (K·τ₁ 0 … 2, δ 0 … 1, τ₂ 0 … 2)")
+	}
+	if sum := m.Alpha + m.CL + m.CD + m.CM + m.LiftSlope + m.TailMomentSlope; math.IsNaN(sum) || math.IsInf(sum, 0) {
+		return Corrected3D{}, e("the coefficients and slopes must be finite")
+	}
+	if m.CurvatureFactor > 0 && !(m.LiftSlope > 0 && m.LiftSlope < 0.2) {
+		return Corrected3D{}, e(fmt.Sprintf("lift slope %v per degree: the curvature correction needs the wing's dC_L/dα, between 0 and 0.2 per degree", m.LiftSlope))
 	}
 	var r Corrected3D
 	r.SolidBlock = m.ShapeFactor * v / math.Pow(c, 1.5)
@@ -157,8 +194,14 @@ func CorrectWalls3D(m Model3D) (Corrected3D, error) {
 	clq := m.CL / r.DynamicPressureFactor // on the corrected q
 	r.DeltaAlpha = 57.3 * m.Delta * s / c * clq
 	r.DeltaCD = m.Delta * s / c * clq * clq
-	r.Alpha = m.Alpha + r.DeltaAlpha
-	r.CL = clq
+	r.DeltaAlphaCurvature = m.CurvatureFactor * r.DeltaAlpha
+	r.DeltaCLCurvature = -r.DeltaAlphaCurvature * m.LiftSlope
+	r.DeltaCMCurvature = -0.25 * r.DeltaCLCurvature
+	r.TailAngle = m.TailCurvatureFactor * r.DeltaAlpha
+	r.DeltaCMTail = -m.TailMomentSlope * r.TailAngle
+	r.Alpha = m.Alpha + r.DeltaAlpha + r.DeltaAlphaCurvature
+	r.CL = clq + r.DeltaCLCurvature
 	r.CD = m.CD/r.DynamicPressureFactor + r.DeltaCD
+	r.CM = m.CM/r.DynamicPressureFactor + r.DeltaCMCurvature + r.DeltaCMTail
 	return r, nil
 }

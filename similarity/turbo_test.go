@@ -249,6 +249,54 @@ func TestCorrectWalls3D(t *testing.T) {
 	}
 }
 
+// TestCorrectWalls3DCurvature: the same model with the curvature factors
+// τ₂ = 0.15 (wing), τ₂,t = 0.6 (tail), a = 0.08 per degree,
+// ∂C_m/∂α_t = −0.02 per degree and C_mu = −0.05, by hand (a Python
+// one-liner of the same formulas): Δα = 0.5339936°, Δα_sc = 0.15·Δα
+// = 0.0800990°, ΔC_L,sc = −0.08·Δα_sc = −0.0064079, ΔC_m¼ = 0.0016020,
+// tail angle 0.6·Δα = 0.3203962°, ΔC_m,t = 0.02·0.3203962 = 0.0064079;
+// α = 4.6140927°, C_L = 0.7391329, C_m = −0.05/1.0059811 + 0.0016020
+// + 0.0064079 = −0.0416928.
+func TestCorrectWalls3DCurvature(t *testing.T) {
+	m := similarity.Model3D{WingArea: quantity.New(0.3, quantity.Area), TunnelArea: quantity.New(3, quantity.Area),
+		ModelVolume: quantity.New(0.012, quantity.Volume), ShapeFactor: 0.86, Delta: 0.125, Alpha: 4, CL: 0.75, CD: 0.04, CM: -0.05,
+		CurvatureFactor: 0.15, LiftSlope: 0.08, TailCurvatureFactor: 0.6, TailMomentSlope: -0.02}
+	r, err := similarity.CorrectWalls3D(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		name      string
+		got, want float64
+	}{
+		{"Δα", r.DeltaAlpha, 0.5339936}, {"Δα_sc", r.DeltaAlphaCurvature, 0.0800990}, {"ΔC_L,sc", r.DeltaCLCurvature, -0.0064079},
+		{"ΔC_m¼", r.DeltaCMCurvature, 0.0016020}, {"tail angle", r.TailAngle, 0.3203962}, {"ΔC_m,t", r.DeltaCMTail, 0.0064079},
+		{"α", r.Alpha, 4.6140927}, {"C_L", r.CL, 0.7391329}, {"C_m", r.CM, -0.0416928},
+	} {
+		if math.Abs(c.got-c.want) > 5e-8 {
+			t.Errorf("%s = %.8f, by hand %.7f", c.name, c.got, c.want)
+		}
+	}
+	// Without the factors the curvature and tail terms vanish and C_m is
+	// only referred to the corrected q.
+	m.CurvatureFactor, m.TailMomentSlope = 0, 0
+	if r, _ = similarity.CorrectWalls3D(m); r.DeltaCLCurvature != 0 || r.DeltaCMTail != 0 || r.CM != -0.05/r.DynamicPressureFactor {
+		t.Errorf("without factors: %+v", r)
+	}
+	for _, bad := range []func(*similarity.Model3D){
+		func(m *similarity.Model3D) { m.CurvatureFactor, m.LiftSlope = 0.15, 0 },
+		func(m *similarity.Model3D) { m.CurvatureFactor, m.LiftSlope = 0.15, 5.7 }, // per radian given as per degree
+		func(m *similarity.Model3D) { m.TailCurvatureFactor = -1 },
+		func(m *similarity.Model3D) { m.CM = math.NaN() },
+	} {
+		b := m
+		bad(&b)
+		if _, err := similarity.CorrectWalls3D(b); !errors.Is(err, similarity.ErrExtrapolation) {
+			t.Errorf("%+v: %v", b, err)
+		}
+	}
+}
+
 // TestFanStepUp checks the fan conversion by hand. η_M = 0.80:
 // to a ten times larger Reynolds number Ackeret gives
 // 0.2·(0.5 − 0.5·10^−0.2) = 0.2·0.1845213 = 0.0369043, of which half is

@@ -216,7 +216,8 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	// The complete model in the ordinary tunnel's closed 2.0 × 1.5 m
 	// section (invented readings and chart factors).
 	m3 := similarity.Model3D{WingArea: q.New(area, q.Area), TunnelArea: q.New(3.0, q.Area), ModelVolume: q.New(0.010, q.Volume),
-		ShapeFactor: 0.86, Delta: 0.12, Alpha: 3.0, CL: cruiseCL, CD: 0.035}
+		ShapeFactor: 0.86, Delta: 0.12, Alpha: 3.0, CL: cruiseCL, CD: 0.035, CM: -0.030,
+		CurvatureFactor: 0.12, LiftSlope: 0.085, TailCurvatureFactor: 0.55, TailMomentSlope: -0.025}
 	if r.Model, err = similarity.CorrectWalls3D(m3); err != nil {
 		return nil, err
 	}
@@ -224,6 +225,10 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	fmt.Fprintf(w, "\nComplete model in a closed 2.0 × 1.5 m section (invented readings; K·τ₁ = %.2f, δ = %.2f from the charts):\n", m3.ShapeFactor, m3.Delta)
 	fmt.Fprintf(w, "  ε_sb = %.5f, ε_wb = %.5f; q = %.4f·q_u; α %.2f° → %.3f°, C_L %.4f → %.4f, C_D %.5f → %.5f (ΔC_D,i = %.5f)\n",
 		c3.SolidBlock, c3.WakeBlock, c3.DynamicPressureFactor, m3.Alpha, c3.Alpha, m3.CL, c3.CL, m3.CD, c3.CD, c3.DeltaCD)
+	fmt.Fprintf(w, "  of which streamline curvature (τ₂ = %.2f, a = %.3f/°): Δα_sc = %.4f°, ΔC_L = %.5f, ΔC_m¼ = %.5f;\n",
+		m3.CurvatureFactor, m3.LiftSlope, c3.DeltaAlphaCurvature, c3.DeltaCLCurvature, c3.DeltaCMCurvature)
+	fmt.Fprintf(w, "  tail (τ₂,t = %.2f, ∂C_m/∂α_t = %.3f/°): %.4f° more angle than free air, ΔC_m = %.5f; C_m %.4f → %.4f\n",
+		m3.TailCurvatureFactor, m3.TailMomentSlope, c3.TailAngle, c3.DeltaCMTail, m3.CM, c3.CM)
 	fmt.Fprintln(w, "\nCAUTION:", similarity.TunnelCaution)
 	return r, nil
 }

@@ -136,7 +136,10 @@ func TestSectionByHand(t *testing.T) {
 }
 
 // TestModelCorrectionsByHand: ε_sb = 0.86·0.010/3^1.5, ε_wb =
-// S_m/(4·3)·0.035, C_L = 0.6/(1 + ε)², Δα = 57.3·0.12·(S_m/3)·C_L.
+// S_m/(4·3)·0.035, C_L on the corrected q = 0.6/(1 + ε)²,
+// Δα = 57.3·0.12·(S_m/3)·C_L; streamline curvature τ₂ = 0.12:
+// Δα_sc = 0.12·Δα, ΔC_L = −0.085·Δα_sc, ΔC_m¼ = −0.25·ΔC_L; the tail
+// (τ₂,t = 0.55) meets 0.55·Δα more, ΔC_m,t = 0.025·0.55·Δα.
 func TestModelCorrectionsByHand(t *testing.T) {
 	r, err := evaluate(&bytes.Buffer{}, nil)
 	if err != nil {
@@ -144,8 +147,12 @@ func TestModelCorrectionsByHand(t *testing.T) {
 	}
 	sm := 38.0 / 144
 	eps := 0.86*0.010/math.Pow(3, 1.5) + sm/12*0.035
-	cl := 0.6 / ((1 + eps) * (1 + eps))
-	if math.Abs(r.Model.CL-cl) > 1e-15 || math.Abs(r.Model.Alpha-(3+57.3*0.12*sm/3*cl)) > 1e-13 {
-		t.Errorf("model %+v; by hand C_L %v", r.Model, cl)
+	f := (1 + eps) * (1 + eps)
+	clq := 0.6 / f
+	da := 57.3 * 0.12 * sm / 3 * clq
+	dcl := -0.085 * 0.12 * da
+	cm := -0.030/f - 0.25*dcl + 0.025*0.55*da
+	if math.Abs(r.Model.CL-(clq+dcl)) > 1e-15 || math.Abs(r.Model.Alpha-(3+da*1.12)) > 1e-13 || math.Abs(r.Model.CM-cm) > 1e-15 {
+		t.Errorf("model %+v; by hand C_L %v, α %v, C_m %v", r.Model, clq+dcl, 3+da*1.12, cm)
 	}
 }
