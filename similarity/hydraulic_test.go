@@ -3,6 +3,7 @@ package similarity_test
 import (
 	"fmt"
 	"math"
+	"strings"
 	"testing"
 
 	"similis.dev/similis/quantity"
@@ -23,6 +24,57 @@ func TestFreeSurfaceChecks(t *testing.T) {
 	re, we := 0.4*0.03/1.0035e-6, 998.2*0.16*0.03/0.0727
 	if math.Abs(cs[0].Value-re) > 1e-9*re || !cs[0].Pass || math.Abs(cs[1].Value-we) > 1e-9*we || cs[1].Pass || cs[2].Pass {
 		t.Errorf("checks %v; by hand Re %v, We %v", cs, re, we)
+	}
+}
+
+// TestWeirLimits: the weir limits take the published head (0.07 m, the
+// upper end of 0.02–0.07 m summarised by Erpicum et al. 2016) and crest
+// radius (0.01 m, Castro-Orgaz and Hager 2014), name their bases in
+// every check, and keep the common-practice Re and We limits. A head of
+// 6 cm passes the default 5 cm and fails the published 7 cm.
+func TestWeirLimits(t *testing.T) {
+	lim := similarity.WeirLimits()
+	def := similarity.DefaultFreeSurfaceLimits()
+	if lim.MinHead.Value() != 0.07 || lim.MinCrestRadius.Value() != 0.01 || lim.MinReynolds != def.MinReynolds || lim.MinWeber != def.MinWeber {
+		t.Errorf("weir limits %+v", lim)
+	}
+	args := func(l similarity.FreeSurfaceLimits) ([]similarity.ScaleCheck, error) {
+		return similarity.FreeSurfaceChecks(quantity.New(0.6, quantity.Velocity), quantity.New(0.06, quantity.Length),
+			quantity.New(1.0035e-6, quantity.KinematicViscosity), quantity.New(998.2, quantity.Density), quantity.New(0.0727, quantity.SurfaceTension), l)
+	}
+	dc, err := args(def)
+	if err != nil {
+		t.Fatal(err)
+	}
+	wc, err := args(lim)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !dc[2].Pass || wc[2].Pass {
+		t.Errorf("6 cm head: default %v, weir %v", dc[2], wc[2])
+	}
+	for _, want := range []string{"Erpicum et al. 2016", "limit ≥ 0.07 m", "FAILS"} {
+		if !strings.Contains(wc[2].String(), want) {
+			t.Errorf("%q lacks %q", wc[2].String(), want)
+		}
+	}
+	if !strings.Contains(wc[0].String(), "common practice") {
+		t.Errorf("%q does not name its basis", wc[0].String())
+	}
+	for _, c := range []struct {
+		r    float64
+		pass bool
+	}{{0.02, true}, {0.01, true}, {0.006, false}} {
+		ck, err := similarity.CrestRadiusCheck(quantity.New(c.r, quantity.Length), lim)
+		if err != nil || ck.Pass != c.pass || !strings.Contains(ck.String(), "Castro-Orgaz") {
+			t.Errorf("R = %v m: %v, %v", c.r, ck, err)
+		}
+	}
+	if ck, err := similarity.CrestRadiusCheck(quantity.New(0.001, quantity.Length), def); err != nil || !ck.Pass {
+		t.Errorf("no radius limit: %v, %v", ck, err)
+	}
+	if _, err := similarity.CrestRadiusCheck(quantity.New(0.01, quantity.Area), lim); err == nil {
+		t.Error("a radius given as an area was accepted")
 	}
 }
 

@@ -3,8 +3,9 @@
 // measured model time series of pressure on the chute floor carried to
 // prototype as a Series, a distorted-scale variant for the river reach
 // upstream with the grain size a movable bed would need, and the
-// scale-effect checks (Reynolds and Weber numbers, head) at the crest at
-// the design discharge and at a low flow.
+// scale-effect checks at the crest (its radius, and the Reynolds and
+// Weber numbers and the head at the design discharge and at a low flow),
+// each limit printed with the publication or practice it rests on.
 //
 // The structure, the flows and the measurements are invented.
 //
@@ -48,6 +49,7 @@ type Result struct {
 	Distorted                                            similarity.Distorted
 	Manning                                              float64
 	Checks                                               [][]similarity.ScaleCheck // design and low flow
+	CrestRadius                                          similarity.ScaleCheck
 	Sediment                                             similarity.SedimentScales
 }
 
@@ -58,6 +60,8 @@ const (
 	designHead   = 4.2 // m
 	lowFlowShare = 0.1
 	modelWaterC  = 15.0 // °C
+	// crestRadius is the prototype's radius of curvature at the crest.
+	crestRadius = 0.9 // m
 )
 
 // Invented model record: pressure on the chute floor (kPa gauge) sampled
@@ -160,9 +164,14 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
-	lim := similarity.DefaultFreeSurfaceLimits()
-	fmt.Fprintf(w, "\nscale-effect checks at the crest, model water %g °C (common-practice limits: Re ≥ %g, We ≥ %g, head ≥ %g m):\n",
-		modelWaterC, lim.MinReynolds, lim.MinWeber, lim.MinHead.Value())
+	lim := similarity.WeirLimits()
+	fmt.Fprintf(w, "\nscale-effect checks at the crest, model water %g °C (each limit with its basis):\n", modelWaterC)
+	rc, err := similarity.CrestRadiusCheck(q.New(crestRadius / *scale, q.Length), lim)
+	if err != nil {
+		return nil, err
+	}
+	r.CrestRadius = rc
+	fmt.Fprintf(w, "  crest: prototype radius %g m\n    %v\n", crestRadius, rc)
 	for _, c := range []struct {
 		name  string
 		share float64

@@ -64,7 +64,8 @@ func TestHelp(t *testing.T) {
 // TestScaleChecksByHand: at the design discharge the model head is
 // 4.2/30 = 0.14 m, the critical velocity √(g·⅔h); at a tenth of the
 // discharge the head is 4.2·0.1^(2/3)/30 = 0.0302 m, which fails the
-// 5 cm head and, with σ at 15 °C from IAPWS, the Weber limit. The
+// published 7 cm head and, with σ at 15 °C from IAPWS, the Weber limit.
+// The crest radius is 0.9/30 = 0.03 m, above the published 0.01 m. The
 // distorted reach needs grains of (1/30)²/(1/120) = 0.1333 of the
 // prototype's.
 func TestScaleChecksByHand(t *testing.T) {
@@ -86,6 +87,9 @@ func TestScaleChecksByHand(t *testing.T) {
 	}
 	if !r.Checks[0][1].Pass || r.Checks[1][1].Pass || r.Checks[1][2].Pass {
 		t.Errorf("verdicts %v", r.Checks)
+	}
+	if rc := r.CrestRadius; math.Abs(rc.Value-0.03) > 1e-15 || rc.Limit != 0.01 || !rc.Pass {
+		t.Errorf("crest radius check %v", rc)
 	}
 	if math.Abs(r.Sediment.Grain-120.0/900) > 1e-15 {
 		t.Errorf("grain ratio %v", r.Sediment.Grain)
