@@ -115,3 +115,26 @@ func ExampleSedimentFor() {
 	// same sand: grain ratio 0.0250, Re* ratio 0.0040
 	// light plastic: grain ratio 0.825, Re* ratio 0.130
 }
+
+// A 1:25 model of a weir: the crest checks against the published weir
+// criteria, each printed with its basis.
+func ExampleWeirLimits() {
+	lim := similarity.WeirLimits()
+	cs, err := similarity.FreeSurfaceChecks(quantity.New(0.55, quantity.Velocity), quantity.New(0.045, quantity.Length),
+		quantity.New(1.14e-6, quantity.KinematicViscosity), quantity.New(999.1, quantity.Density), quantity.New(0.0735, quantity.SurfaceTension), lim)
+	if err != nil {
+		panic(err)
+	}
+	r, err := similarity.CrestRadiusCheck(quantity.New(0.5/25, quantity.Length), lim)
+	if err != nil {
+		panic(err)
+	}
+	for _, c := range append(cs, r) {
+		fmt.Println(c)
+	}
+	// Output:
+	// Re = V·h/ν = 2.17e+04 (limit ≥ 1e+04, common practice): passes
+	// We = ρV²h/σ = 185 (limit ≥ 100, common practice): passes
+	// head h = 0.045 m (limit ≥ 0.07 m, Erpicum et al. 2016: published criteria for linear weirs ask 0.02–0.07 m; the upper value): FAILS: scale effects likely
+	// crest radius R = 0.02 m (limit ≥ 0.01 m, Castro-Orgaz and Hager 2014, round crests): passes
+}
