@@ -11,7 +11,7 @@
 //
 // Usage:
 //
-//	go run ./examples/towingtank [-scale 16] [-tank 15] [-sea 15] [-ca 0.0004] [-maxfn 0.2] [-width 4] [-depth 2] [-out DIR]
+//	go run ./examples/towingtank [-scale 16] [-tank 15] [-sea 15] [-ca 0.0004] [-maxfn 0.2] [-width 4.5] [-depth 2.2] [-out DIR]
 package main
 
 import (
@@ -125,8 +125,8 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	ca := fs.Float64("ca", 0.0004, "roughness and correlation allowance C_A")
 	maxFn := fs.Float64("maxfn", 0.2, "highest Froude number used for the form factor")
 	dir := fs.String("out", os.TempDir(), "directory for towingtank-coefficients.png and .svg")
-	width := fs.Float64("width", 4, "towing tank width, m")
-	depth := fs.Float64("depth", 2, "towing tank water depth, m")
+	width := fs.Float64("width", 4.5, "towing tank width, m")
+	depth := fs.Float64("depth", 2.2, "towing tank water depth, m")
 	if err := fs.Parse(args); err != nil {
 		return nil, err
 	}
@@ -229,7 +229,7 @@ func blockage(w io.Writer, out *Outcome, test similarity.HullTest, width, depth 
 		return err
 	}
 	out.Blockage = corr
-	fmt.Fprintf(w, "\nTank blockage, one-dimensional mean flow (tank %g m × %g m, model A_x = %g m², m = %.4f; choking at %.2f m/s);\n",
+	fmt.Fprintf(w, "\nTank blockage, one-dimensional mean flow (tank %g m × %g m, model A_x = %g m², m = %.4g; choking at %.2f m/s);\n",
 		width, depth, modelSection, corr[0].Blockage, corr[0].ChokingSpeed.Value())
 	fmt.Fprintf(w, "not applied in the tables above; with it, each resistance belongs to the corrected speed V' = V·(1 + ΔV/V):\n")
 	fmt.Fprintf(w, "%6s %6s %9s %9s %8s %8s | %7s %9s %9s\n", "Vm m/s", "Fh", "ΔV/V %", "linear %", "V' m/s", "Δh mm", "Vs kn", "R_s kN", "P_E kW")

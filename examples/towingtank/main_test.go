@@ -168,24 +168,25 @@ func TestPoweringByHand(t *testing.T) {
 	}
 }
 
-// TestBlockageByHand: the top run in the 4 m × 2 m tank: m = 0.030/8
-// = 0.00375, Fh² = 2.4²/(9.80665·2) = 0.2936783, linearised
-// ΔV/V = 0.00375/(1 − 0.00375 − 0.2936783) = 0.0053375; the full
-// correction satisfies continuity, V·b·h = (V + ΔV)·(b·(h − Δh) − A_x),
-// and the extrapolation on V' uses C_T = R/(½ρV'²S).
+// TestBlockageByHand: the top run in the 4.5 m × 2.2 m tank:
+// m = 0.030/9.9 = 0.0030303, Fh² = 2.4²/(9.80665·2.2) = 0.2669802,
+// linearised ΔV/V = 0.0030303/(1 − 0.0030303 − 0.2669802) = 0.0041512;
+// the full correction satisfies continuity,
+// V·b·h = (V + ΔV)·(b·(h − Δh) − A_x), and the extrapolation on V' uses
+// C_T = R/(½ρV'²S).
 func TestBlockageByHand(t *testing.T) {
 	o, err := evaluate(&bytes.Buffer{}, []string{"-out", t.TempDir()})
 	if err != nil {
 		t.Fatal(err)
 	}
 	c := o.Blockage[len(o.Blockage)-1]
-	fh2 := 2.4 * 2.4 / (9.80665 * 2)
-	if math.Abs(c.Blockage-0.00375) > 1e-15 || math.Abs(c.Linear-0.00375/(1-0.00375-fh2)) > 1e-14 || math.Abs(c.Linear-0.0053375) > 5e-8 {
-		t.Errorf("m = %v, linear ΔV/V = %v; by hand 0.00375, 0.0053375", c.Blockage, c.Linear)
+	m, fh2 := 0.030/9.9, 2.4*2.4/(9.80665*2.2)
+	if math.Abs(c.Blockage-m) > 1e-15 || math.Abs(c.Linear-m/(1-m-fh2)) > 1e-14 || math.Abs(c.Linear-0.0041512) > 5e-8 {
+		t.Errorf("m = %v, linear ΔV/V = %v; by hand 0.0030303, 0.0041512", c.Blockage, c.Linear)
 	}
 	dv, dh := 2.4*c.SpeedRatio, c.SurfaceDrop.Value()
-	if got := (2.4 + dv) * (4*(2-dh) - 0.030); math.Abs(got-2.4*8) > 1e-9 {
-		t.Errorf("continuity %v, want %v", got, 2.4*8)
+	if got := (2.4 + dv) * (4.5*(2.2-dh) - 0.030); math.Abs(got-2.4*9.9) > 1e-9 {
+		t.Errorf("continuity %v, want %v", got, 2.4*9.9)
 	}
 	p := o.Blocked.Points[len(o.Blocked.Points)-1]
 	rho := o.Plain.Test.Tank.Density.Value()
