@@ -1,8 +1,9 @@
 // Command towingtank does a towing tank's whole job for a 1:16 model of a
 // coastal research catamaran: it carries the resistance test to full
 // scale by the ITTC-1957 method, without and with a form factor found by
-// Prohaska's method, with the uncertainty budget of the top speed; finds
-// the form factor again from a double-body test and compares the two;
+// Prohaska's method, with the uncertainty budget of the top speed; shows
+// the tank's mean-flow blockage correction of every run; finds the form
+// factor again from a double-body test and compares the two;
 // and predicts delivered power and propeller revolutions at every speed
 // by the ITTC-1978 method from the self-propulsion and open-water tests,
 // with a plot of the resistance coefficients against the friction lines.

@@ -7,7 +7,8 @@
 // cooled tunnel would need to hold both, the model's dynamic pressure and
 // lift in each against the balance limit, the cryogenic test section's
 // margin to nitrogen condensation, and the wall corrections of a
-// two-dimensional section test and of the complete model.
+// two-dimensional section test and of the complete model (blockage,
+// downwash, and the wing's and tail's streamline curvature).
 //
 // The aircraft and the tunnels are invented for the demonstration.
 //
