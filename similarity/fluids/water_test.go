@@ -216,3 +216,40 @@ func TestThermalProperties(t *testing.T) {
 		t.Errorf("c_p above the table: %v", err)
 	}
 }
+
+// TestVapourPressureSlope: the exact derivative of the IF97 equation
+// agrees with a central difference of VapourPressure (step 1 mK) to 1e-6,
+// its value is VapourPressure's, and out of range it is refused. At
+// 100 °C the slope is about 3.62 kPa/K (steam tables, from memory: the
+// Clausius–Clapeyron slope h_fg/(T·Δv) = 2257 kJ/kg/(373.15 K·1.672 m³/kg)
+// = 3.617 kPa/K).
+func TestVapourPressureSlope(t *testing.T) {
+	for _, c := range []float64{273.16, 283.15, 293.15, 303.15, 373.15, 500, 640} {
+		T := q.New(c, q.Temperature)
+		pv, s, err := fluids.VapourPressureSlope(T)
+		if err != nil {
+			t.Fatal(err)
+		}
+		want, _ := fluids.VapourPressure(T)
+		if math.Abs(pv.Value()/want.Value()-1) > 1e-14 {
+			t.Errorf("%v K: p_v %v, VapourPressure %v", c, pv, want)
+		}
+		const h = 1e-3
+		lo, _ := fluids.VapourPressure(q.New(c-h, q.Temperature))
+		hi, _ := fluids.VapourPressure(q.New(c+h, q.Temperature))
+		fd := (hi.Value() - lo.Value()) / (2 * h)
+		if math.Abs(s.Value()/fd-1) > 1e-6 {
+			t.Errorf("%v K: slope %v, central difference %v", c, s.Value(), fd)
+		}
+		if d, _ := q.Pressure.Div(q.Temperature); s.Dim() != d {
+			t.Errorf("slope dimension %v", s.Dim())
+		}
+	}
+	_, s, _ := fluids.VapourPressureSlope(q.New(373.15, q.Temperature))
+	if math.Abs(s.Value()-3617) > 10 {
+		t.Errorf("slope at 100 °C %v Pa/K, want about 3617", s.Value())
+	}
+	if _, _, err := fluids.VapourPressureSlope(q.New(700, q.Temperature)); !errors.Is(err, q.ErrRange) {
+		t.Errorf("700 K: %v", err)
+	}
+}
