@@ -5,7 +5,8 @@
 // the curve in US customary units (gpm, ft, hp) and in SI; then it
 // compares the step-up with IEC 60193's and Ackeret's, gives the specific
 // speed in its three conventions, and carries the model's NPSH3 to the
-// prototype at its own water temperature through the Thoma number.
+// prototype at its own water temperature through the Thoma number, with
+// the uncertainty budget of the NPSH3 found from the suction readings.
 //
 // The pump family and the test curve are invented.
 //
@@ -168,6 +169,7 @@ type Suction struct {
 	ReModel, ReProto      float64
 	IEC, IECGain, Ackeret float64
 	SpecificSpeed         similarity.SpecificSpeeds
+	NPSH                  NPSHBudget
 }
 
 // suction compares the step-up methods at the best-efficiency point and
@@ -225,5 +227,8 @@ func suction(w io.Writer, step similarity.StepUp, etas []float64, rows []Row, nm
 	fmt.Fprintf(w, "  at %.1f kPa absolute at the flange the prototype runs at NPSH3 (3 %% head drop); the available NPSH must exceed it\n",
 		s.ProtoSuction.Value()/1e3)
 	fmt.Fprintln(w, "  by the margin the applicable standard or the purchaser requires")
+	if s.NPSH, err = npshBudget(w, bep.ModelQ, bep.ModelH.Value()/bep.ProtoH.Value()); err != nil {
+		return Suction{}, err
+	}
 	return s, nil
 }

@@ -8,6 +8,7 @@ import (
 	"strings"
 	"testing"
 
+	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -106,5 +107,52 @@ func TestSuctionByHand(t *testing.T) {
 	}
 	if !(s.IECGain > 0 && s.Ackeret > 0.835 && s.IEC > 0.835) {
 		t.Errorf("step-ups %+v", s)
+	}
+}
+
+// TestNPSHBudgetByHand: the model's NPSH3 from the invented readings,
+// (−66 680 + 101 000 − p_v)/(ρg) + V²/(2g), V = 800 gpm/(π/4·0.1524²),
+// with p_v(20 °C) = 2339.21 Pa (IAPWS-IF97, python3-iapws) and ρ the
+// package's fresh water at 20 °C; u_c by hand as the root sum of squares
+// of 150 Pa/(ρg), 50 Pa/(ρg), 2·(V²/2g)·0.5 %, 0.04 m and the
+// thermometer's 0.2 K through central differences of p_v and ρ; the
+// prototype's NPSH3 and u_c are the model's times H_p/H_m.
+func TestNPSHBudgetByHand(t *testing.T) {
+	_, s, err := evaluateAll(&bytes.Buffer{}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	const g = 9.80665
+	w20, _ := fluids.FreshWater().AtCelsius(20)
+	rho := w20.Density.Value()
+	p := -66680.0 + 101000 - 2339.21
+	v := 800 * 3.785411784e-3 / 60 / (math.Pi / 4 * 0.1524 * 0.1524)
+	hv := v * v / (2 * g)
+	npsh := p/(rho*g) + hv
+	if math.Abs(s.NPSH.Model.Value()-npsh) > 1e-5 || math.Abs(npsh/0.3048-12.0) > 0.005 {
+		t.Errorf("model NPSH3 %v m, by hand %v m (%v ft)", s.NPSH.Model.Value(), npsh, npsh/0.3048)
+	}
+	const h = 1e-3
+	pvLo, _ := fluids.VapourPressure(q.New(293.15-h, q.Temperature))
+	pvHi, _ := fluids.VapourPressure(q.New(293.15+h, q.Temperature))
+	wLo, _ := fluids.FreshWater().AtCelsius(20 - h)
+	wHi, _ := fluids.FreshWater().AtCelsius(20 + h)
+	dpv := (pvHi.Value() - pvLo.Value()) / (2 * h)
+	drho := (wHi.Density.Value() - wLo.Density.Value()) / (2 * h)
+	cT := -dpv/(rho*g) - p/(rho*rho*g)*drho
+	terms := []float64{150 / (rho * g), 50 / (rho * g), 2 * hv * 0.005, 0.04, cT * 0.2}
+	var ss float64
+	for _, x := range terms {
+		ss += x * x
+	}
+	ratio := s.ProtoNPSH3.Value() / (12 * 0.3048) // H_p/H_m, as the Thoma scaling above
+	if got, want := s.NPSH.Budget.U.Value(), math.Sqrt(ss)*ratio; math.Abs(got/want-1) > 1e-6 {
+		t.Errorf("u_c(NPSH3_p) = %v m, by hand %v m", got, want)
+	}
+	if got := s.NPSH.Proto.Value(); math.Abs(got/(s.NPSH.Model.Value()*ratio)-1) > 1e-12 {
+		t.Errorf("prototype NPSH3 %v, want model × %v", got, ratio)
+	}
+	if s.NPSH.Budget.Lines[0].Source.Name != "3 % drop point (6 curves)" {
+		t.Errorf("largest contribution %q", s.NPSH.Budget.Lines[0].Source.Name)
 	}
 }
