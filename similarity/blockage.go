@@ -133,22 +133,13 @@ func meanFlowRoot(m, fh2 float64) (float64, error) {
 
 // chokingFroude returns the depth Froude number at which the mean-flow
 // cubic's minimum touches zero: the flow past a body of blockage m
-// becomes critical. Eliminating s* gives the closed condition
-// 1 − m + Fh²/2 = (3/2)·Fh^(2/3), the one-dimensional limiting speed.
+// becomes critical. Eliminating s* gives 1 − m + Fh²/2 = (3/2)·Fh^(2/3),
+// the one-dimensional limiting speed; with x = Fh^(2/3) it is the cubic
+// x³ − 3x + 2(1 − m) = 0, whose root in (0, 1) is, by the trigonometric
+// solution, x = 2·cos((arccos(m − 1) − 2π)/3).
 func chokingFroude(m float64) float64 {
-	// The cubic's minimum, 1 − (2/3)·(1 − m + Fh²/2)·s*, tends to −∞ as
-	// Fh → 0 and is 1 − (1 − 2m/3)^(3/2) > 0 at Fh = 1 for m > 0, rising
-	// with Fh in between: bisect on Fh.
-	minAt := func(fh float64) float64 {
-		fh2 := fh * fh
-		sStar := math.Sqrt((2*(1-m) + fh2) / (3 * fh2))
-		return meanFlowCubic(sStar, m, fh2)
-	}
-	f, err := bisect(minAt, 1e-6, 1)
-	if err != nil {
-		return 0
-	}
-	return f
+	x := 2 * math.Cos((math.Acos(m-1)-2*math.Pi)/3)
+	return x * math.Sqrt(x)
 }
 
 // WithBlockage returns a copy of the test whose run speeds are corrected
