@@ -56,9 +56,10 @@ type BlockageCorrection struct {
 // 1 is the subcritical solution; its linearisation is
 // ΔV/V = m/(1 − m − Fh²). This is the one-dimensional theory of a body in
 // a channel (as in Schijf's canal theory; from memory), and the same
-// mean-flow term leads the trade's published tank-blockage methods, which
-// add wave and shape terms that this function does not: the ITTC
-// Recommended Procedure 7.5-02-02-01 lists the methods a basin may use.
+// mean-flow term leads the trade's published tank-blockage methods
+// (Schuster's, from memory), which add wave and shape terms that this function does not: the ITTC
+// Recommended Procedure 7.5-02-02-01 (Resistance Test, §3.6.3) treats
+// the blockage and finite-depth corrections and defines m = A_x/A as here.
 // The correction is refused (an *ExtrapolationError) when the speed is
 // at or above the choking speed, where the model would ride a critical
 // flow and no correction holds, or when m exceeds 0.1.

@@ -241,7 +241,7 @@ func blockage(w io.Writer, out *Outcome, test similarity.HullTest, width, depth 
 		fmt.Fprintf(w, "%6.2f %6.3f %9.3f %9.3f %8.4f %8.2f | %7.2f %9.2f %9.1f\n", speeds[i], c.DepthFroude, 100*c.SpeedRatio, 100*c.Linear,
 			c.Speed.Value(), 1e3*c.SurfaceDrop.Value(), vs, b.ShipResistance.Value()/1e3, b.EffectivePower.Value()/1e3)
 	}
-	fmt.Fprintf(w, "(the ship speed follows V' at equal Froude number; ITTC 7.5-02-02-01 names the published methods that add wave terms to this mean-flow term)\n")
+	fmt.Fprintf(w, "(the ship speed follows V' at equal Froude number; published methods (ITTC 7.5-02-02-01 §3.6.3) add wave terms to this mean-flow term)\n")
 	return nil
 }
 
