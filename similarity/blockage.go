@@ -57,9 +57,10 @@ type BlockageCorrection struct {
 // ΔV/V = m/(1 − m − Fh²). This is the one-dimensional theory of a body in
 // a channel (as in Schijf's canal theory; from memory), and the same
 // mean-flow term leads the trade's published tank-blockage methods
-// (Schuster's, from memory), which add wave and shape terms that this function does not: the ITTC
-// Recommended Procedure 7.5-02-02-01 (Resistance Test, §3.6.3) treats
-// the blockage and finite-depth corrections and defines m = A_x/A as here.
+// (Schuster's, from memory), which add wave and shape terms that this
+// function does not. The ITTC Recommended Procedure 7.5-02-02-01
+// (Resistance Test, §3.6.3) treats the blockage and finite-depth
+// corrections and defines m = A_x/A as here.
 // The correction is refused (an *ExtrapolationError) when the speed is
 // at or above the choking speed, where the model would ride a critical
 // flow and no correction holds, or when m exceeds 0.1.
@@ -111,9 +112,9 @@ func meanFlowCubic(s, m, fh2 float64) float64 {
 
 // meanFlowRoot returns the subcritical root s of the mean-flow cubic
 // f(s). f is convex for s > 0, is (Fh²/2)·(s₀³ − s₀) ≥ 0 at
-// s₀ = 1/(1 − m) (the root without a free surface), and falls to its minimum at
-// s* = √((2(1 − m) + Fh²)/(3·Fh²)), negative below the choking Froude
-// number; Newton's method from s₀ therefore climbs to the root from the
+// s₀ = 1/(1 − m) (the root without a free surface), and falls to its
+// minimum at s* = √((2(1 − m) + Fh²)/(3·Fh²)), negative below the
+// choking Froude number; Newton's method from s₀ therefore climbs to the root from the
 // left without overshooting.
 func meanFlowRoot(m, fh2 float64) (float64, error) {
 	s := 1 / (1 - m)
