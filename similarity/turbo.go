@@ -82,7 +82,10 @@ func FanStepUp(etaModel, reM, reP float64) (eta, change float64, err error) {
 	if full > 0 {
 		change = full / 2
 	}
-	return etaModel + change, change, nil
+	if eta = etaModel + change; !(eta > 0) {
+		return 0, 0, m(fmt.Sprintf("converted efficiency %.4g from η = %v at Re %g → %g: the Reynolds numbers are too far apart for the formula", eta, etaModel, reM, reP))
+	}
+	return eta, change, nil
 }
 
 // FanCurve converts a fan's efficiency curve by FanStepUp with the change
