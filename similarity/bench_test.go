@@ -91,7 +91,7 @@ func BenchmarkTankBlockage(b *testing.B) {
 			if err != nil {
 				b.Fatal(err)
 			}
-			sink += c.SpeedRatio
+			sink += c.SpeedCorrection
 		}
 	})
 	_ = sink

@@ -23,12 +23,13 @@ type BlockageCorrection struct {
 	Blockage float64
 	// DepthFroude is Fh = V/√(g·h) at the measured speed.
 	DepthFroude float64
-	// Linear is ΔV/V = m/(1 − m − Fh²), the linearised mean-flow
-	// correction.
-	Linear float64
-	// SpeedRatio is ΔV/V from the full one-dimensional equations (see
-	// TankBlockage); the correction applied.
-	SpeedRatio float64
+	// LinearCorrection is the linearised speed correction
+	// ΔV/V = m/(1 − m − Fh²).
+	LinearCorrection float64
+	// SpeedCorrection is the speed correction ΔV/V (ITTC's "speed
+	// correction due to blockage") from the full one-dimensional
+	// equations (see TankBlockage); the correction applied.
+	SpeedCorrection float64
 	// Speed is the corrected speed V·(1 + ΔV/V): the speed in unbounded
 	// water at which the model would meet the measured resistance.
 	Speed quantity.Quantity
@@ -69,12 +70,13 @@ type BlockageCorrection struct {
 // corrected speed; HullTest.WithBlockage does so for every run.
 func TankBlockage(tank TankSection, ax, v, g quantity.Quantity) (BlockageCorrection, error) {
 	const method = "tank blockage correction"
-	if g == (quantity.Quantity{}) {
-		g = quantity.New(9.80665, quantity.Acceleration)
+	g, err := gravityOr(method, g)
+	if err != nil {
+		return BlockageCorrection{}, err
 	}
 	if err := checkInputs(method, true,
 		input{"tank width", tank.Width, quantity.Length}, input{"tank depth", tank.Depth, quantity.Length},
-		input{"model section", ax, quantity.Area}, input{"speed", v, quantity.Velocity}, input{"gravity", g, quantity.Acceleration},
+		input{"model section", ax, quantity.Area}, input{"speed", v, quantity.Velocity},
 	); err != nil {
 		return BlockageCorrection{}, err
 	}
@@ -91,14 +93,14 @@ func TankBlockage(tank TankSection, ax, v, g quantity.Quantity) (BlockageCorrect
 	if !(r.DepthFroude < fhc) {
 		return r, &ExtrapolationError{Method: method, Reason: fmt.Sprintf("depth Froude number %.4g at or above the choking value %.4g (m = %.4g): no steady mean flow past the model", r.DepthFroude, fhc, m)}
 	}
-	r.Linear = m / (1 - m - fh2)
+	r.LinearCorrection = m / (1 - m - fh2)
 	s, err := meanFlowRoot(m, fh2)
 	if err != nil {
 		return r, &ExtrapolationError{Method: method, Reason: err.Error()}
 	}
-	r.SpeedRatio = s - 1
+	r.SpeedCorrection = s - 1
 	r.Speed = quantity.New(v.Value()*s, quantity.Velocity)
-	du := v.Value() * r.SpeedRatio
+	du := v.Value() * r.SpeedCorrection
 	r.SurfaceDrop = quantity.New((v.Value()*du+du*du/2)/g.Value(), quantity.Length)
 	r.CTFactor = 1 / (s * s)
 	return r, nil

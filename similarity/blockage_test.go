@@ -39,8 +39,8 @@ func TestTankBlockageHand(t *testing.T) {
 	}{
 		{"m", c.Blockage, 0.01, 1e-15},
 		{"Fh", c.DepthFroude, math.Sqrt(4 / 19.6133), 1e-15},
-		{"linear ΔV/V", c.Linear, 0.012721727668903112, 1e-14},
-		{"ΔV/V", c.SpeedRatio, 0.012785618291129675, 1e-11},
+		{"linear ΔV/V", c.LinearCorrection, 0.012721727668903112, 1e-14},
+		{"ΔV/V", c.SpeedCorrection, 0.012785618291129675, 1e-11},
 		{"V'", c.Speed.Value(), 2 * 1.012785618291129675, 1e-11},
 		{"Δh", c.SurfaceDrop.Value(), 0.005248419922674067, 1e-12},
 		{"C_T factor", c.CTFactor, 1 / (1.012785618291129675 * 1.012785618291129675), 1e-11},
@@ -51,7 +51,7 @@ func TestTankBlockageHand(t *testing.T) {
 		}
 	}
 	// Continuity and Bernoulli hold at the solution.
-	v, dv, dh := 2.0, 2*c.SpeedRatio, c.SurfaceDrop.Value()
+	v, dv, dh := 2.0, 2*c.SpeedCorrection, c.SurfaceDrop.Value()
 	if got := (v + dv) * (4*(2-dh) - 0.08); math.Abs(got-16) > 1e-9 {
 		t.Errorf("continuity: (V+ΔV)·(b(h−Δh) − A_x) = %v, want V·b·h = 16", got)
 	}
@@ -112,10 +112,10 @@ func TestTankBlockageProperties(t *testing.T) {
 		if err != nil {
 			rt.Fatal(err)
 		}
-		if c.SpeedRatio < c.Linear*(1-1e-9) {
-			rt.Errorf("full ΔV/V %v below the linearised %v", c.SpeedRatio, c.Linear)
+		if c.SpeedCorrection < c.LinearCorrection*(1-1e-9) {
+			rt.Errorf("full ΔV/V %v below the linearised %v", c.SpeedCorrection, c.LinearCorrection)
 		}
-		s, fh2 := 1+c.SpeedRatio, c.DepthFroude*c.DepthFroude
+		s, fh2 := 1+c.SpeedCorrection, c.DepthFroude*c.DepthFroude
 		if r := fh2/2*s*s*s - (1-m+fh2/2)*s + 1; math.Abs(r) > 1e-9 {
 			rt.Errorf("cubic residual %v at s = %v", r, s)
 		}
@@ -127,8 +127,8 @@ func TestTankBlockageProperties(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if want := 1e-6 / 0.8; math.Abs(c.SpeedRatio/want-1) > 1e-5 {
-		t.Errorf("small-m limit %v, want %v", c.SpeedRatio, want)
+	if want := 1e-6 / 0.8; math.Abs(c.SpeedCorrection/want-1) > 1e-5 {
+		t.Errorf("small-m limit %v, want %v", c.SpeedCorrection, want)
 	}
 }
 
@@ -199,7 +199,7 @@ func ExampleTankBlockage() {
 	}
 	fmt.Printf("m = %.4f, Fh = %.3f\n", c.Blockage, c.DepthFroude)
 	fmt.Printf("ΔV/V = %.3f %% (linearised %.3f %%), V' = %.4f m/s, surface drop %.2f mm\n",
-		100*c.SpeedRatio, 100*c.Linear, c.Speed.Value(), 1e3*c.SurfaceDrop.Value())
+		100*c.SpeedCorrection, 100*c.LinearCorrection, c.Speed.Value(), 1e3*c.SurfaceDrop.Value())
 	fmt.Printf("C_T factor %.5f; the flow chokes at %.2f m/s\n", c.CTFactor, c.ChokingSpeed.Value())
 	// Output:
 	// m = 0.0100, Fh = 0.452

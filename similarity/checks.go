@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/units"
 )
 
 // input is one quantity a method takes: its name for messages and the
@@ -27,4 +28,23 @@ func checkInputs(method string, positive bool, in ...input) error {
 		}
 	}
 	return nil
+}
+
+// orDefault returns q, or def when q is the zero Quantity (the field left
+// unset); a given q must have def's dimension and be positive and finite,
+// or an error names it and the method.
+func orDefault(method, name string, q, def quantity.Quantity) (quantity.Quantity, error) {
+	if q == (quantity.Quantity{}) {
+		return def, nil
+	}
+	if err := checkInputs(method, true, input{name, q, def.Dim()}); err != nil {
+		return quantity.Quantity{}, err
+	}
+	return q, nil
+}
+
+// gravityOr returns g, or the standard acceleration of gravity g_n when g
+// is unset, checked as orDefault does.
+func gravityOr(method string, g quantity.Quantity) (quantity.Quantity, error) {
+	return orDefault(method, "gravity", g, units.StandardGravity())
 }

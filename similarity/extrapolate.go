@@ -118,15 +118,9 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 	); err != nil {
 		return nil, err
 	}
-	g := t.Gravity
-	if g == (quantity.Quantity{}) {
-		g = quantity.New(9.80665, quantity.Acceleration)
-	}
-	if err := g.CheckNamed("gravity", quantity.Acceleration); err != nil {
+	g, err := gravityOr("hull extrapolation", t.Gravity)
+	if err != nil {
 		return nil, err
-	}
-	if !(g.Value() > 0) || math.IsInf(g.Value(), 0) {
-		return nil, m(fmt.Sprintf("gravity %v is not positive and finite", g.Value()))
 	}
 	k1 := t.FormFactor
 	if k1 == 0 {

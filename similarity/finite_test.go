@@ -143,3 +143,41 @@ func TestScalesNamed(t *testing.T) {
 		t.Errorf("affinity %+v, %v", a, err)
 	}
 }
+
+// TestGravityChecked: every method with an optional gravity takes g_n
+// when it is unset and refuses a given one that is negative or not an
+// acceleration, naming itself (the NPSH used to be reported as the
+// ITTC-1978 prediction, and a hull run took a negative g).
+func TestGravityChecked(t *testing.T) {
+	neg := q.New(-9.81, q.Acceleration)
+	npsh := func(g q.Quantity) error {
+		_, err := similarity.NPSH(similarity.NPSHInput{Pressure: q.New(1e5, q.Pressure), VapourPressure: q.New(2339, q.Pressure),
+			Density: q.New(998, q.Density), Velocity: q.New(3, q.Velocity), Gravity: g})
+		return err
+	}
+	suction := func(g q.Quantity) error {
+		_, err := similarity.SuctionPressureFor(0.1, q.New(30, q.Length), q.New(2339, q.Pressure), q.New(998, q.Density), q.New(3, q.Velocity), g)
+		return err
+	}
+	blockage := func(g q.Quantity) error {
+		_, err := similarity.TankBlockage(similarity.TankSection{Width: q.New(4, q.Length), Depth: q.New(2, q.Length)},
+			q.New(0.05, q.Area), q.New(1, q.Velocity), g)
+		return err
+	}
+	for _, c := range []struct {
+		name string
+		f    func(q.Quantity) error
+	}{{"NPSH", npsh}, {"suction pressure", suction}, {"tank blockage correction", blockage}} {
+		if err := c.f(q.Quantity{}); err != nil {
+			t.Errorf("%s with g unset: %v", c.name, err)
+		}
+		err := c.f(neg)
+		var ee *similarity.ExtrapolationError
+		if !errors.As(err, &ee) || ee.Method != c.name {
+			t.Errorf("%s with g < 0: %v", c.name, err)
+		}
+		if err := c.f(q.New(9.81, q.Velocity)); !errors.Is(err, q.ErrDimension) {
+			t.Errorf("%s with g as a velocity: %v", c.name, err)
+		}
+	}
+}

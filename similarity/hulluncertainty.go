@@ -103,15 +103,11 @@ func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
 	if k := r.FormFactor.Value(); !(k >= 1 && k <= 2) {
 		return HullRunResult{}, m(fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", k))
 	}
-	g := r.Gravity
-	if g == (quantity.Quantity{}) {
-		g = quantity.New(9.80665, quantity.Acceleration)
-	}
-	if err := g.CheckNamed("gravity", quantity.Acceleration); err != nil {
+	g, err := gravityOr("hull run", r.Gravity)
+	if err != nil {
 		return HullRunResult{}, err
 	}
 	var res HullRunResult
-	var err error
 	if res.TankDensity, res.TankViscosity, err = water(r.Tank, r.TankTemperature); err != nil {
 		return HullRunResult{}, m("tank water: " + err.Error())
 	}

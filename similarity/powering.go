@@ -8,6 +8,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/units"
 )
 
 // OpenWaterPoint is one point of a propeller's open-water curve: the
@@ -135,21 +136,23 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	); err != nil {
 		return PoweringResult{}, err
 	}
-	ks, err := orDefault(in.HullRoughness, 150e-6, quantity.Length, "hull roughness")
-	if err != nil {
-		return PoweringResult{}, err
-	}
-	kp, err := orDefault(in.Propeller.Roughness, 30e-6, quantity.Length, "propeller roughness")
-	if err != nil {
-		return PoweringResult{}, err
-	}
-	rhoA, err := orDefault(in.AirDensity, 1.225, quantity.Density, "air density")
-	if err != nil {
-		return PoweringResult{}, err
-	}
-	g, err := orDefault(in.Gravity, 9.80665, quantity.Acceleration, "gravity")
-	if err != nil {
-		return PoweringResult{}, err
+	const method = "ITTC-1978 prediction"
+	var ks, kp, rhoA, g float64
+	for _, d := range []struct {
+		dst        *float64
+		name       string
+		given, def quantity.Quantity
+	}{
+		{&ks, "hull roughness", in.HullRoughness, quantity.New(150e-6, quantity.Length)},
+		{&kp, "propeller roughness", in.Propeller.Roughness, quantity.New(30e-6, quantity.Length)},
+		{&rhoA, "air density", in.AirDensity, quantity.New(1.225, quantity.Density)},
+		{&g, "gravity", in.Gravity, units.StandardGravity()},
+	} {
+		v, err := orDefault(method, d.name, d.given, d.def)
+		if err != nil {
+			return PoweringResult{}, err
+		}
+		*d.dst = v.Value()
 	}
 	avs := 0.0
 	if in.TransverseArea != (quantity.Quantity{}) {
@@ -199,6 +202,7 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	}
 
 	var r PoweringResult
+	var err error
 	lm, sm, vm := in.ModelLength.Value(), in.ModelWettedArea.Value(), in.ModelSpeed.Value()
 	ls, ss := lm/in.Scale, sm/(in.Scale*in.Scale)
 	vs := vm / math.Sqrt(in.Scale)
@@ -270,21 +274,6 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	r.DeliveredPower = quantity.New(cp*pd, quantity.Power)
 	r.Caution = PoweringCaution
 	return r, nil
-}
-
-// orDefault returns q's value, or def when q is zero, checking the
-// dimension.
-func orDefault(q quantity.Quantity, def float64, d quantity.Dim, name string) (float64, error) {
-	if q == (quantity.Quantity{}) {
-		return def, nil
-	}
-	if err := q.CheckNamed(name, d); err != nil {
-		return 0, err
-	}
-	if !(q.Value() > 0) || math.IsInf(q.Value(), 0) {
-		return 0, &ExtrapolationError{Method: "ITTC-1978 prediction", Reason: name + " must be positive and finite"}
-	}
-	return q.Value(), nil
 }
 
 // interp interpolates a coefficient of the open-water curve linearly in

@@ -97,8 +97,10 @@ type Model3D struct {
 	// (0.125 for a small wing in a closed circular section; from the
 	// charts for the section's shape and the span ratio).
 	Delta float64
-	// Alpha (degrees), CL, CD and CM (pitching moment about the
-	// moment reference) are the measured, uncorrected values.
+	// Alpha (degrees), CL, CD and CM are the measured, uncorrected
+	// values, CM about the quarter point of the mean aerodynamic chord:
+	// the curvature correction's moment term is about that point, so a
+	// balance moment about another reference is transferred there first.
 	Alpha, CL, CD, CM float64
 	// CurvatureFactor is τ₂ of the wing's streamline-curvature
 	// correction, read from the compendium's chart at a distance of a
@@ -132,7 +134,7 @@ type Corrected3D struct {
 	// correction −(∂C_m/∂α_t)·TailAngle.
 	TailAngle, DeltaCMTail float64
 	Alpha                  float64 // α = α_u + Δα + Δα_sc
-	CL, CD, CM             float64 // on the corrected dynamic pressure, with the curvature, drag and tail terms
+	CL, CD, CM             float64 // on the corrected dynamic pressure, with the curvature, drag and tail terms; CM about the quarter chord
 }
 
 // CorrectWalls3D applies the classical closed-test-section corrections to

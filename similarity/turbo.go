@@ -154,10 +154,11 @@ func NPSH(in NPSHInput) (quantity.Quantity, error) {
 	); err != nil {
 		return quantity.Quantity{}, err
 	}
-	g, err := orDefault(in.Gravity, 9.80665, quantity.Acceleration, "gravity")
+	gq, err := gravityOr("NPSH", in.Gravity)
 	if err != nil {
 		return quantity.Quantity{}, err
 	}
+	g := gq.Value()
 	p, pv, rho, v := in.Pressure.Value(), in.VapourPressure.Value(), in.Density.Value(), in.Velocity.Value()
 	if !(p > 0) || !(pv > 0) || !(rho > 0) || math.IsInf(p+pv+rho+v, 0) || math.IsNaN(v) {
 		return quantity.Quantity{}, m("pressure, vapour pressure and density must be positive (absolute) and finite")
@@ -192,10 +193,11 @@ func SuctionPressureFor(sigma float64, head quantity.Quantity, vapour, density, 
 	); err != nil {
 		return quantity.Quantity{}, err
 	}
-	g, err := orDefault(gravity, 9.80665, quantity.Acceleration, "gravity")
+	gq, err := gravityOr("suction pressure", gravity)
 	if err != nil {
 		return quantity.Quantity{}, err
 	}
+	g := gq.Value()
 	if !(sigma >= 0) || math.IsInf(sigma, 0) {
 		return quantity.Quantity{}, &ExtrapolationError{Method: "suction pressure", Reason: fmt.Sprintf("Thoma number %v", sigma)}
 	}

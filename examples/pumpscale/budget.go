@@ -15,17 +15,16 @@ import (
 // head drop at the best-efficiency flow), and the invented uncertainties
 // of the loop's instruments.
 const (
-	suctionGauge   = -66.68e3 // Pa, gauge: the suction transducer reads against the room
-	barometer      = 101.0e3  // Pa, absolute, the day's barometer
-	suctionPipeD   = 0.1524   // m, the model's suction pipe (6 in)
-	uGauge         = 150.0    // Pa, suction transducer calibration
-	uBarometer     = 50.0     // Pa, barometer calibration
-	uThermometer   = 0.2      // K, loop thermometer
-	uFlow          = 0.005    // relative, flowmeter
-	uNPSH3Pick     = 0.04     // m, repeatability of the 3 % drop point (Type A)
-	dofNPSH3Pick   = 5        // six suction curves
-	coverage95     = 0.95
-	standardGravit = 9.80665
+	suctionGauge = -66.68e3 // Pa, gauge: the suction transducer reads against the room
+	barometer    = 101.0e3  // Pa, absolute, the day's barometer
+	suctionPipeD = 0.1524   // m, the model's suction pipe (6 in)
+	uGauge       = 150.0    // Pa, suction transducer calibration
+	uBarometer   = 50.0     // Pa, barometer calibration
+	uThermometer = 0.2      // K, loop thermometer
+	uFlow        = 0.005    // relative, flowmeter
+	uNPSH3Pick   = 0.04     // m, repeatability of the 3 % drop point (Type A)
+	dofNPSH3Pick = 5        // six suction curves
+	coverage95   = 0.95
 )
 
 // gpmOf returns a flow in US gallons per minute, for the report.
@@ -70,7 +69,7 @@ func npshBudget(w io.Writer, bepFlow q.Quantity, headRatio float64) (NPSHBudget,
 	if err != nil {
 		return NPSHBudget{}, err
 	}
-	g := q.New(standardGravit, q.Acceleration)
+	g := units.StandardGravity()
 	area := q.New(math.Pi/4*suctionPipeD*suctionPipeD, q.Area)
 	var out NPSHBudget
 	out.Model, err = uncertain.Eval(func() uncertain.Measured {

@@ -232,13 +232,13 @@ func blockage(w io.Writer, out *Outcome, test similarity.HullTest, width, depth 
 	out.Blockage = corr
 	fmt.Fprintf(w, "\nTank blockage, one-dimensional mean flow (tank %g m × %g m, model A_x = %g m², m = %.4g; choking at %.2f m/s);\n",
 		width, depth, modelSection, corr[0].Blockage, corr[0].ChokingSpeed.Value())
-	fmt.Fprintf(w, "not applied in the tables above; with it, each resistance belongs to the corrected speed V' = V·(1 + ΔV/V):\n")
+	fmt.Fprintf(w, "not applied in the tables above; with it, each resistance belongs to the corrected speed V' = V·(1 + ΔV/V) (ship figures with 1 + k):\n")
 	fmt.Fprintf(w, "%6s %6s %9s %9s %8s %8s | %7s %9s %9s\n", "Vm m/s", "Fh", "ΔV/V %", "linear %", "V' m/s", "Δh mm", "Vs kn", "R_s kN", "P_E kW")
 	kn := units.MustParse("kn")
 	for i, c := range corr {
 		b := out.Blocked.Points[i]
 		vs, _ := kn.ValueOf(b.ShipSpeed)
-		fmt.Fprintf(w, "%6.2f %6.3f %9.3f %9.3f %8.4f %8.2f | %7.2f %9.2f %9.1f\n", speeds[i], c.DepthFroude, 100*c.SpeedRatio, 100*c.Linear,
+		fmt.Fprintf(w, "%6.2f %6.3f %9.3f %9.3f %8.4f %8.2f | %7.2f %9.2f %9.1f\n", speeds[i], c.DepthFroude, 100*c.SpeedCorrection, 100*c.LinearCorrection,
 			c.Speed.Value(), 1e3*c.SurfaceDrop.Value(), vs, b.ShipResistance.Value()/1e3, b.EffectivePower.Value()/1e3)
 	}
 	fmt.Fprintf(w, "(the ship speed follows V' at equal Froude number; published methods (ITTC 7.5-02-02-01 §3.6.3) add wave terms to this mean-flow term)\n")

@@ -181,16 +181,16 @@ func TestBlockageByHand(t *testing.T) {
 	}
 	c := o.Blockage[len(o.Blockage)-1]
 	m, fh2 := 0.030/9.9, 2.4*2.4/(9.80665*2.2)
-	if math.Abs(c.Blockage-m) > 1e-15 || math.Abs(c.Linear-m/(1-m-fh2)) > 1e-14 || math.Abs(c.Linear-0.0041512) > 5e-8 {
-		t.Errorf("m = %v, linear ΔV/V = %v; by hand 0.0030303, 0.0041512", c.Blockage, c.Linear)
+	if math.Abs(c.Blockage-m) > 1e-15 || math.Abs(c.LinearCorrection-m/(1-m-fh2)) > 1e-14 || math.Abs(c.LinearCorrection-0.0041512) > 5e-8 {
+		t.Errorf("m = %v, linear ΔV/V = %v; by hand 0.0030303, 0.0041512", c.Blockage, c.LinearCorrection)
 	}
-	dv, dh := 2.4*c.SpeedRatio, c.SurfaceDrop.Value()
+	dv, dh := 2.4*c.SpeedCorrection, c.SurfaceDrop.Value()
 	if got := (2.4 + dv) * (4.5*(2.2-dh) - 0.030); math.Abs(got-2.4*9.9) > 1e-9 {
 		t.Errorf("continuity %v, want %v", got, 2.4*9.9)
 	}
 	p := o.Blocked.Points[len(o.Blocked.Points)-1]
 	rho := o.Plain.Test.Tank.Density.Value()
-	vp := 2.4 * (1 + c.SpeedRatio)
+	vp := 2.4 * (1 + c.SpeedCorrection)
 	if want := 38.10 / (0.5 * rho * vp * vp * 1.62); math.Abs(p.ModelCT/want-1) > 1e-12 {
 		t.Errorf("C_T on V' = %v, by hand %v", p.ModelCT, want)
 	}

@@ -228,7 +228,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		c3.SolidBlock, c3.WakeBlock, c3.DynamicPressureFactor, m3.Alpha, c3.Alpha, m3.CL, c3.CL, m3.CD, c3.CD, c3.DeltaCD)
 	fmt.Fprintf(w, "  of which streamline curvature (τ₂ = %.2f, a = %.3f/°): Δα_sc = %.4f°, ΔC_L = %.5f, ΔC_m¼ = %.5f;\n",
 		m3.CurvatureFactor, m3.LiftSlope, c3.DeltaAlphaCurvature, c3.DeltaCLCurvature, c3.DeltaCMCurvature)
-	fmt.Fprintf(w, "  tail (τ₂,t = %.2f, ∂C_m/∂α_t = %.3f/°): %.4f° more angle than free air, ΔC_m = %.5f; C_m %.4f → %.4f\n",
+	fmt.Fprintf(w, "  tail (τ₂,t = %.2f, ∂C_m/∂α_t = %.3f/°): %.4f° more angle than free air, ΔC_m = %.5f; C_m¼ %.4f → %.4f\n",
 		m3.TailCurvatureFactor, m3.TailMomentSlope, c3.TailAngle, c3.DeltaCMTail, m3.CM, c3.CM)
 	fmt.Fprintln(w, "\nCAUTION:", similarity.TunnelCaution)
 	return r, nil
