@@ -1,0 +1,142 @@
+// Package cli holds what every example command does with its flags: a
+// numeric flag that refuses NaN, ±Inf and values outside the range that
+// the program can use, naming the flag, and an echo of user text that is
+// truncated and has its control bytes escaped, so a pasted megabyte or a
+// terminal escape sequence never comes back whole or raw.
+package cli
+
+import (
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+	"unicode/utf8"
+)
+
+// MaxEcho is the most runes of user text an error message repeats.
+const MaxEcho = 64
+
+// Quote returns s as a Go-quoted string with control bytes and invalid
+// UTF-8 escaped, cut to MaxEcho runes with "…" and the full length
+// appended when it is longer.
+func Quote(s string) string {
+	if utf8.RuneCountInString(s) <= MaxEcho {
+		return strconv.Quote(s)
+	}
+	n, i := 0, 0
+	for i = range s {
+		if n == MaxEcho {
+			break
+		}
+		n++
+	}
+	return strconv.Quote(s[:i]) + fmt.Sprintf("… (%d bytes)", len(s))
+}
+
+// Float is a float64 flag with a closed range [Min, Max]; Set refuses a
+// value that does not parse, is NaN or ±Inf, or falls outside the range.
+type Float struct {
+	V        float64
+	Min, Max float64
+	Unit     string // how the value is read, for messages ("m/s", "°C")
+}
+
+// String returns the value as the flag package prints a default.
+func (f *Float) String() string {
+	if f == nil {
+		return "0"
+	}
+	return strconv.FormatFloat(f.V, 'g', -1, 64)
+}
+
+// Set parses s and checks it.
+func (f *Float) Set(s string) error {
+	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
+	if err != nil {
+		var ne *strconv.NumError
+		if errors.As(err, &ne) && errors.Is(ne.Err, strconv.ErrRange) {
+			return fmt.Errorf("out of range: the value overflows a float64")
+		}
+		return fmt.Errorf("not a number")
+	}
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return fmt.Errorf("not a finite number")
+	}
+	if v < f.Min || v > f.Max {
+		return fmt.Errorf("outside %s", f.rangeText())
+	}
+	f.V = v
+	return nil
+}
+
+func (f *Float) rangeText() string {
+	u := ""
+	if f.Unit != "" {
+		u = " " + f.Unit
+	}
+	return fmt.Sprintf("%g … %g%s", f.Min, f.Max, u)
+}
+
+// FloatVar defines a checked float flag on fs and returns its value's
+// address. The usage text gets the accepted range appended.
+func FloatVar(fs *flag.FlagSet, name string, def, min, max float64, unit, usage string) *float64 {
+	f := &Float{V: def, Min: min, Max: max, Unit: unit}
+	fs.Var(f, name, fmt.Sprintf("%s (%s)", usage, f.rangeText()))
+	return &f.V
+}
+
+// Parse parses args with fs, which must use flag.ContinueOnError. Usage
+// (for -h) goes to w; an error comes back with every piece of user text
+// in it quoted by Quote, and the flag package's own echo suppressed.
+// flag.ErrHelp is returned as it is.
+func Parse(fs *flag.FlagSet, w io.Writer, args []string) error {
+	fs.SetOutput(io.Discard)
+	err := fs.Parse(args)
+	if err == nil || errors.Is(err, flag.ErrHelp) {
+		if err != nil {
+			fs.SetOutput(w)
+			fs.Usage()
+		}
+		fs.SetOutput(w)
+		return err
+	}
+	fs.SetOutput(w)
+	return &Error{Program: fs.Name(), Msg: sanitize(err.Error())}
+}
+
+// Error is a command-line error: a usage mistake (exit status 2).
+type Error struct {
+	Program string
+	Msg     string
+}
+
+func (e *Error) Error() string { return e.Msg }
+
+// Sanitize escapes control bytes and truncates any over-long message
+// built from user text; it is used for messages that quote a value
+// without Quote.
+func sanitize(s string) string {
+	var b strings.Builder
+	n := 0
+	for _, r := range s {
+		if n >= 4*MaxEcho {
+			fmt.Fprintf(&b, "… (%d bytes)", len(s))
+			break
+		}
+		if r < 0x20 || r == 0x7f || (r >= 0x80 && r < 0xa0) || r == utf8.RuneError {
+			q := strconv.QuoteRune(r)
+			b.WriteString(q[1 : len(q)-1])
+		} else {
+			b.WriteRune(r)
+		}
+		n++
+	}
+	return b.String()
+}
+
+// Sanitize returns s with control bytes escaped and cut to a bounded
+// length, for a message that must repeat user text.
+func Sanitize(s string) string { return sanitize(s) }

@@ -1,0 +1,73 @@
+package cli
+
+import (
+	"errors"
+	"flag"
+	"io"
+	"math"
+	"strings"
+	"testing"
+)
+
+func TestFloatRefuses(t *testing.T) {
+	for _, tc := range []struct{ in, want string }{
+		{"NaN", "not a finite number"},
+		{"+Inf", "not a finite number"},
+		{"-inf", "not a finite number"},
+		{"1e400", "overflows"},
+		{"abc", "not a number"},
+		{"-1", "outside"},
+		{"1e9", "outside"},
+	} {
+		fs := flag.NewFlagSet("t", flag.ContinueOnError)
+		FloatVar(fs, "v", 1, 0, 100, "m/s", "speed")
+		err := Parse(fs, io.Discard, []string{"-v", tc.in})
+		if err == nil || !strings.Contains(err.Error(), tc.want) || !strings.Contains(err.Error(), "-v") {
+			t.Errorf("-v %s: got %v, want an error naming -v with %q", tc.in, err, tc.want)
+		}
+	}
+}
+
+func TestFloatAccepts(t *testing.T) {
+	fs := flag.NewFlagSet("t", flag.ContinueOnError)
+	v := FloatVar(fs, "v", 1, 0, 100, "m/s", "speed")
+	if err := Parse(fs, io.Discard, []string{"-v", "2.5"}); err != nil || *v != 2.5 {
+		t.Fatalf("got %v, %v", *v, err)
+	}
+	if math.IsNaN(*v) {
+		t.Fatal("NaN")
+	}
+}
+
+func TestEchoBounded(t *testing.T) {
+	fs := flag.NewFlagSet("t", flag.ContinueOnError)
+	fs.String("format", "text", "")
+	long := strings.Repeat("x", 100_000)
+	err := Parse(fs, io.Discard, []string{"-" + long})
+	if err == nil || len(err.Error()) > 600 {
+		t.Fatalf("message of %d bytes", len(err.Error()))
+	}
+	err = Parse(flag.NewFlagSet("t", flag.ContinueOnError), io.Discard, []string{"-\x1b[2J"})
+	if err == nil || strings.ContainsRune(err.Error(), 0x1b) {
+		t.Fatalf("raw escape echoed: %q", err)
+	}
+	var ce *Error
+	if !errors.As(err, &ce) {
+		t.Fatalf("not a *cli.Error: %T", err)
+	}
+	if got := Quote(long); len(got) > 200 || !strings.Contains(got, "100000 bytes") {
+		t.Fatalf("Quote: %q", got[:80])
+	}
+	if got := Quote("a\x1bb"); got != `"a\x1bb"` {
+		t.Fatalf("Quote: %s", got)
+	}
+}
+
+func TestHelp(t *testing.T) {
+	fs := flag.NewFlagSet("t", flag.ContinueOnError)
+	var b strings.Builder
+	FloatVar(fs, "v", 1, 0, 100, "m/s", "speed")
+	if err := Parse(fs, &b, []string{"-h"}); !errors.Is(err, flag.ErrHelp) || !strings.Contains(b.String(), "speed (0 … 100 m/s)") {
+		t.Fatalf("help: %v\n%s", err, b.String())
+	}
+}
