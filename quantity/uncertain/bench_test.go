@@ -146,7 +146,10 @@ func TestKernelU(t *testing.T) {
 	}
 	for i := range dp.Terms() {
 		id, d := dp.Term(i)
-		src := dp.Set().Source(id)
+		src, err := dp.Set().Source(id)
+		if err != nil {
+			t.Fatal(err)
+		}
 		if src.Name == "L" {
 			// Δp ∝ L exactly: contribution = 0.1 % of Δp.
 			near(t, "L's contribution / Δp", d/dp.Value(), 0.001, 1e-12)

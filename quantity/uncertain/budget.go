@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"sort"
+	"strconv"
 	"strings"
 
 	"gonum.org/v1/gonum/stat/distuv"
@@ -19,6 +20,11 @@ type Line struct {
 	// source's error, in the units of y per unit of the source's U (per
 	// 1 for a relative source).
 	Sensitivity quantity.Quantity
+	// SensitivityUnknown reports a source whose standard uncertainty is
+	// zero: a value carries c·u for each source, so c cannot be
+	// recovered from it; Sensitivity is then zero and the report shows
+	// "–". The contribution is zero either way.
+	SensitivityUnknown bool
 	// Contribution is |c|·u(δ), in the units of y.
 	Contribution quantity.Quantity
 	// Percent is the share of u_c² that the source's own variance
@@ -53,14 +59,18 @@ type Budget struct {
 	Lines      []Line // largest contribution first
 	// Unit and Factor, if set by In, are the unit the report shows the
 	// value, its uncertainties and the contributions in (value in Unit =
-	// SI value / Factor). Sources and sensitivities stay in SI.
+	// SI value / Factor), and the numerator of the sensitivities' units
+	// (kN/K). Without them the report chooses the SI unit, named where
+	// the dimension has a name and with a decimal prefix where the value
+	// is large or small (kN, mPa·s). Sources stay in SI.
 	Unit   string
 	Factor float64
 }
 
 // In returns the budget reported in a unit of the caller's choice: unit
 // is its symbol and factor its size in SI (In("kN", 1000)). The figures
-// themselves are unchanged.
+// themselves are unchanged; a factor that is not a positive finite
+// number leaves the report's own choice.
 func (b Budget) In(unit string, factor float64) Budget {
 	b.Unit, b.Factor = unit, factor
 	return b
@@ -72,8 +82,14 @@ func (m Measured) Budget(name string, p float64) (Budget, error) {
 	if !(p > 0 && p < 1) {
 		return Budget{}, &Error{Reason: fmt.Sprintf("coverage probability %v: want 0 < p < 1", p)}
 	}
+	if !m.finite() {
+		return Budget{}, rangeError("budget %q: the value %v or a sensitivity is not a finite number", name, m.q)
+	}
 	d := m.q.Dim()
 	uc2 := m.variance(-1)
+	if !finite(uc2) {
+		return Budget{}, rangeError("budget %q: the combined variance overflows", name)
+	}
 	b := Budget{
 		Name: name, Value: m.q, Coverage: p,
 		U:          quantity.New(math.Sqrt(uc2), d),
@@ -90,14 +106,18 @@ func (m Measured) Budget(name string, p float64) (Budget, error) {
 		} else {
 			c = quantity.New(ci, d).Div(src.U)
 		}
-		if src.U.Value() == 0 {
-			c = quantity.New(math.NaN(), c.Dim())
+		unknown := src.U.Value() == 0
+		if unknown || !finite(c.Value()) {
+			// No derivative is carried for a zero u (c·u = 0); a u so
+			// small that c overflows is reported the same way.
+			c, unknown = quantity.New(0, c.Dim()), true
 		}
 		pct := 0.0
 		if uc2 > 0 {
 			pct = 100 * ci * ci / uc2
 		}
-		b.Lines = append(b.Lines, Line{ID: m.id[i], Source: src, Sensitivity: c, Contribution: quantity.New(math.Abs(ci), d), Percent: pct})
+		b.Lines = append(b.Lines, Line{ID: m.id[i], Source: src, Sensitivity: c, SensitivityUnknown: unknown,
+			Contribution: quantity.New(math.Abs(ci), d), Percent: pct})
 	}
 	// Welch–Satterthwaite over groups of correlated sources: each group
 	// enters with its own variance (covariances included) and the
@@ -151,24 +171,48 @@ func (m Measured) Budget(name string, p float64) (Budget, error) {
 	if ws > 0 {
 		b.DoF = uc2 * uc2 / ws
 	}
-	b.K = CoverageFactor(p, b.DoF)
+	if !(b.DoF > 0) {
+		// ws overflowed or uc2² did: no usable ν_eff.
+		return Budget{}, rangeError("budget %q: the effective degrees of freedom are not a positive number", name)
+	}
+	var err error
+	if b.K, err = CoverageFactor(p, b.DoF); err != nil {
+		return Budget{}, &Error{Reason: fmt.Sprintf("budget %q", name), Err: err}
+	}
 	b.Expanded = b.U.Scale(b.K)
+	if !finite(b.Expanded.Value()) {
+		return Budget{}, rangeError("budget %q: the expanded uncertainty overflows", name)
+	}
 	return b, nil
 }
 
 // CoverageFactor returns the coverage factor for coverage probability p
 // and nu degrees of freedom: the (1+p)/2 quantile of Student's t
 // distribution (GUM G.3.4, Table G.2), or of the normal distribution for
-// infinite nu; p must lie strictly between 0 and 1 and nu be positive,
-// or the result is NaN (Budget checks p). A fractional nu is used as it
-// is (GUM G.4.1 truncates it; the difference is small and on the safe
-// side only when truncated).
-func CoverageFactor(p, nu float64) float64 {
-	q := (1 + p) / 2
-	if math.IsInf(nu, 1) || nu > 1e7 {
-		return distuv.UnitNormal.Quantile(q)
+// infinite nu. As for a Source, nu = 0 means infinite (the normal
+// quantile), as does +Inf. A fractional nu is used as it is (GUM G.4.1
+// truncates it; the difference is small and on the safe side only when
+// truncated).
+//
+// A p outside 0 < p < 1 or a negative or NaN nu is an *Error of class
+// quantity.ErrInvalid; a nu so small that the quantile is not a finite
+// number (ν = 10⁻³⁰⁰) is one of class quantity.ErrRange.
+func CoverageFactor(p, nu float64) (float64, error) {
+	if !(p > 0 && p < 1) {
+		return 0, &Error{Reason: fmt.Sprintf("coverage probability %v: want 0 < p < 1", p)}
 	}
-	return distuv.StudentsT{Mu: 0, Sigma: 1, Nu: nu}.Quantile(q)
+	if !(nu >= 0) {
+		return 0, &Error{Reason: fmt.Sprintf("degrees of freedom %v: want ν > 0, or 0 for infinite", nu)}
+	}
+	q := (1 + p) / 2
+	if nu == 0 || math.IsInf(nu, 1) || nu > 1e7 {
+		return distuv.UnitNormal.Quantile(q), nil
+	}
+	k := distuv.StudentsT{Mu: 0, Sigma: 1, Nu: nu}.Quantile(q)
+	if !finite(k) || k <= 0 {
+		return 0, rangeError("coverage factor for ν = %v at p = %v is not a finite number: too few degrees of freedom", nu, p)
+	}
+	return k, nil
 }
 
 // String returns the budget as a plain-text table.
@@ -187,23 +231,31 @@ func (b Budget) format(md bool) string {
 	if !math.IsInf(b.DoF, 1) {
 		dof = fmt.Sprintf("%.1f", b.DoF)
 	}
-	f, unit := 1.0, "SI: "+unitText(b.Value.Dim())
-	if b.Factor > 0 && b.Unit != "" {
-		f, unit = b.Factor, b.Unit
+	unit, f := displayUnit(b.Value.Dim(), math.Max(math.Abs(b.Value.Value()), b.U.Value()))
+	if b.Factor > 0 && finite(b.Factor) && b.Unit != "" {
+		unit, f = b.Unit, b.Factor
 	}
 	rel := "relative u undefined at a zero value"
 	if v := b.Value.Value(); v != 0 {
-		rel = fmt.Sprintf("%.3g %%", 100*b.U.Value()/math.Abs(v))
+		rel = sig(100*b.U.Value()/math.Abs(v), 2) + " %"
 	}
-	fmt.Fprintf(&sb, "%s = %.6g, u_c = %.3g (%s), ν_eff = %s, k = %.3f, U(%.0f %%) = %.3g  [%s]\n",
-		name, b.Value.Value()/f, b.U.Value()/f, rel, dof, b.K, 100*b.Coverage, b.Expanded.Value()/f, unit)
-	fmt.Fprintf(&sb, "systematic part %.3g, random part %.3g [%s]; contributions in the same unit\n", b.Systematic.Value()/f, b.Random.Value()/f, unit)
-	head := []string{"source", "type", "distribution", "effect", "u(source)", "c", "contribution", "% of u_c²"}
+	y, u := roundPair(b.Value.Value()/f, b.U.Value()/f)
+	_, bigU := roundPair(0, b.Expanded.Value()/f)
+	fmt.Fprintf(&sb, "%s = %s, u_c = %s (%s), ν_eff = %s, k = %.2f, U(%s %%) = %s\n",
+		name, withUnit(y, unit), withUnit(u, unit), rel, dof, b.K, strconv.FormatFloat(100*b.Coverage, 'g', 4, 64), withUnit(bigU, unit))
+	_, sys := roundPair(0, b.Systematic.Value()/f)
+	_, rnd := roundPair(0, b.Random.Value()/f)
+	fmt.Fprintf(&sb, "systematic part %s, random part %s\n", withUnit(sys, unit), withUnit(rnd, unit))
+	contrib := "contribution"
+	if unit != "" {
+		contrib += " (" + unit + ")"
+	}
+	head := []string{"source", "type", "distribution", "effect", "u(source)", "c", contrib, "% of u_c²"}
 	rows := [][]string{}
 	for _, l := range b.Lines {
-		u := strings.TrimSuffix(fmt.Sprintf("%.3g %s", l.Source.U.Value(), unitText(l.Source.U.Dim())), " 1")
+		u := withUnit(sig(l.Source.U.Value(), 2), unitName(l.Source.U.Dim()))
 		if l.Source.Relative {
-			u = fmt.Sprintf("%.3g %% of value", 100*l.Source.U.Value())
+			u = sig(100*l.Source.U.Value(), 2) + " % of value"
 		}
 		typ := l.Source.Type.String()
 		if l.Source.Type == TypeA {
@@ -213,9 +265,13 @@ func (b Budget) format(md bool) string {
 		if l.Source.Type == TypeA {
 			dist = "t"
 		}
-		rows = append(rows, []string{l.Source.Name, typ, dist, l.Source.Effect.String(), u,
-			strings.TrimSuffix(fmt.Sprintf("%.4g %s", l.Sensitivity.Value(), unitText(l.Sensitivity.Dim())), " 1"),
-			fmt.Sprintf("%.3g", l.Contribution.Value()/f), fmt.Sprintf("%.1f", l.Percent)})
+		c := "–"
+		if !l.SensitivityUnknown {
+			xd := l.Source.U.Dim()
+			c = withUnit(sigFrom(l.Sensitivity.Value()/f, 3, -4), sensitivityUnit(unit, b.Value.Dim(), f, xd))
+		}
+		rows = append(rows, []string{l.Source.Name, typ, dist, l.Source.Effect.String(), u, c,
+			sig(l.Contribution.Value()/f, 2), fmt.Sprintf("%.1f", l.Percent)})
 	}
 	if md {
 		sb.WriteString("\n| " + strings.Join(head, " | ") + " |\n|")
@@ -263,27 +319,4 @@ func (b Budget) format(md bool) string {
 		sb.WriteString("correlated sources: u_c includes their covariance; ν_eff takes each correlated group as one term with its smallest ν (approximate)\n")
 	}
 	return sb.String()
-}
-
-// derived names the SI derived units a budget shows by name (SI
-// Brochure, Table 4); other dimensions are written in base units.
-var derived = map[quantity.Dim]string{
-	quantity.Force: "N", quantity.Pressure: "Pa", quantity.Energy: "J", quantity.Power: "W",
-	quantity.DynamicViscosity: "Pa·s",
-}
-
-// unitText writes a dimension in SI units, "1" when dimensionless.
-func unitText(d quantity.Dim) string {
-	if d == 0 {
-		return "1"
-	}
-	if s, ok := derived[d]; ok {
-		return s
-	}
-	if inv, err := d.Inv(); err == nil {
-		if s, ok := derived[inv]; ok && !strings.Contains(s, "·") {
-			return s + "⁻¹"
-		}
-	}
-	return quantity.New(1, d).String()[2:]
 }

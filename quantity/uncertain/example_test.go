@@ -52,14 +52,14 @@ func ExampleMeasured_Budget() {
 	b, _ := ct.Budget("C_T", 0.95)
 	fmt.Print(b)
 	// Output:
-	// C_T = 0.00459013, u_c = 1.9e-05 (0.414 %), ν_eff = 61.3, k = 1.999, U(95 %) = 3.8e-05  [SI: 1]
-	// systematic part 1.49e-05, random part 1.18e-05 [SI: 1]; contributions in the same unit
-	// source                    type       distribution  effect           u(source)                   c  contribution  % of u_c²
-	// resistance repeatability  A (ν = 9)  t             random              0.08 N       0.0001471 N⁻¹      1.18e-05       38.3
-	// carriage speed            B          rectangular   systematic  0.1 % of value            -0.00918      9.18e-06       23.3
-	// wetted area               B          normal        systematic  0.2 % of value            -0.00459      9.18e-06       23.3
-	// dynamometer calibration   B          normal        systematic          0.05 N       0.0001471 N⁻¹      7.36e-06       15.0
-	// density (temperature)     B          normal        systematic      0.1 kg·m⁻³  -4.595e-06 kg⁻¹·m³      4.59e-07        0.1
+	// C_T = 0.004590, u_c = 0.000019 (0.41 %), ν_eff = 61.3, k = 2.00, U(95 %) = 0.000038
+	// systematic part 0.000015, random part 0.000012
+	// source                    type       distribution  effect            u(source)                c  contribution  % of u_c²
+	// resistance repeatability  A (ν = 9)  t             random              0.080 N     0.000147 N⁻¹      0.000012       38.3
+	// carriage speed            B          rectangular   systematic  0.10 % of value         -0.00918     0.0000092       23.3
+	// wetted area               B          normal        systematic  0.20 % of value         -0.00459     0.0000092       23.3
+	// dynamometer calibration   B          normal        systematic          0.050 N     0.000147 N⁻¹     0.0000074       15.0
+	// density (temperature)     B          normal        systematic       0.10 kg/m³  -4.59e-06 m³/kg    0.00000046        0.1
 }
 
 // A Monte Carlo check of a first-order result (JCGM 101:2008): the

@@ -5,6 +5,7 @@ import (
 	"math"
 	"math/rand/v2"
 	"slices"
+	"strconv"
 
 	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/stat/distuv"
@@ -24,11 +25,25 @@ type MonteCarloResult struct {
 	Coverage  float64
 }
 
-// String formats the result as "y = …, u = …, 95 % interval [lo, hi]".
+// String formats the result as "Monte Carlo, 200000 trials: y = 1.153 m/s,
+// u = 0.013 m/s, 95 % interval [1.128, 1.177] m/s": u to two significant
+// digits and the estimate and the interval's ends to the same decimal
+// place (GUM §7.2.6), in SI units named as Measured.String names them.
 func (r MonteCarloResult) String() string {
-	return fmt.Sprintf("Monte Carlo, %d trials: y = %.6g, u = %.3g, %.0f %% interval [%.6g, %.6g]  [SI]",
-		r.Trials, r.Mean.Value(), r.U.Value(), 100*r.Coverage, r.Low.Value(), r.High.Value())
+	unit, f := displayUnit(r.Mean.Dim(), math.Max(math.Abs(r.Mean.Value()), r.U.Value()))
+	y, u := roundPair(r.Mean.Value()/f, r.U.Value()/f)
+	lo, _ := roundPair(r.Low.Value()/f, r.U.Value()/f)
+	hi, _ := roundPair(r.High.Value()/f, r.U.Value()/f)
+	return fmt.Sprintf("Monte Carlo, %d trials: y = %s, u = %s, %s %% interval %s",
+		r.Trials, withUnit(y, unit), withUnit(u, unit), strconv.FormatFloat(100*r.Coverage, 'g', 4, 64), withUnit("["+lo+", "+hi+"]", unit))
 }
+
+// MaxTrials is the largest number of trials MonteCarlo runs. The
+// coverage interval needs every trial's output, sorted, so memory grows
+// with the trials: 8 bytes each, 80 MB at the maximum. JCGM 101 §7.2.1
+// suggests 10⁶ trials for a 95 % interval; more are refused rather than
+// allowed to exhaust memory.
+const MaxTrials = 10_000_000
 
 // MonteCarlo propagates the distributions of the sources through model
 // by sampling. Each trial draws every source's error from its
@@ -39,20 +54,32 @@ func (r MonteCarloResult) String() string {
 // evaluates model on those inputs as exact values. The inputs are values
 // from Set.Measure (a derived value would be sampled by its linearization).
 // The generator is seeded by seed, so a run repeats exactly.
+//
+// Trials must lie between 1000 and MaxTrials: fewer is an *Error of class
+// quantity.ErrInvalid, more one of class quantity.ErrRange, refused before
+// anything is allocated. A model that fails on a trial (a dimension
+// error, a division by zero, a value that is not finite) ends the run
+// with an *Error naming the trial and wrapping the cause.
 func MonteCarlo(inputs []Measured, model func(x []Measured) Measured, trials int, p float64, seed uint64) (MonteCarloResult, error) {
 	if trials < 1000 {
 		return MonteCarloResult{}, &Error{Reason: fmt.Sprintf("%d trials: use at least 1000 (JCGM 101 §7.2.1 suggests 10⁶ for a 95 %% interval)", trials)}
 	}
+	if trials > MaxTrials {
+		return MonteCarloResult{}, rangeError("%d trials: the most MonteCarlo runs is MaxTrials = %d (every trial's output is kept for the coverage interval)", trials, MaxTrials)
+	}
 	if !(p > 0 && p < 1) {
-		return MonteCarloResult{}, &Error{Reason: fmt.Sprintf("coverage probability %v", p)}
+		return MonteCarloResult{}, &Error{Reason: fmt.Sprintf("coverage probability %v: want 0 < p < 1", p)}
 	}
 	var set *Set
-	for _, in := range inputs {
+	for k, in := range inputs {
 		if in.set != nil {
 			if set != nil && in.set != set {
-				return MonteCarloResult{}, &Error{Reason: ErrSets.Error()}
+				return MonteCarloResult{}, &Error{Reason: fmt.Sprintf("MonteCarlo input %d", k+1), Err: ErrSets}
 			}
 			set = in.set
+		}
+		if !in.finite() {
+			return MonteCarloResult{}, rangeError("MonteCarlo input %d: %v is not a finite number, or its uncertainty is not", k+1, in.q)
 		}
 	}
 	// The sources used, and how to draw each one's standardized error.
@@ -101,19 +128,18 @@ func MonteCarlo(inputs []Measured, model func(x []Measured) Measured, trials int
 	x := make([]Measured, len(inputs))
 	ys := make([]float64, trials)
 	var dim quantity.Dim
+	var mean, ss float64 // running mean and sum of squared deviations (Welford)
 	for t := range trials {
 		for i, id := range used {
 			src := set.src[id]
 			switch {
 			case src.Type == TypeA:
-				nu := src.DoF
-				// A t variable scaled to the source's standard uncertainty:
-				// the t with ν has variance ν/(ν−2) (ν > 2).
-				tv := distuv.StudentsT{Mu: 0, Sigma: 1, Nu: nu, Src: rng}.Rand()
-				if nu > 2 {
-					tv *= math.Sqrt((nu - 2) / nu)
-				}
-				eps[i] = tv
+				// JCGM 101 §6.4.9: the mean of n readings, with s its
+				// standard deviation, is drawn as x̄ + (s/√n)·t_ν, ν = n−1:
+				// a t variable with scale u = s/√n, not rescaled to a
+				// standard deviation of u (which is u·√(ν/(ν−2)), and
+				// infinite for ν ≤ 2).
+				eps[i] = distuv.StudentsT{Mu: 0, Sigma: 1, Nu: src.DoF, Src: rng}.Rand()
 			case src.Dist == Normal:
 				eps[i] = rng.NormFloat64()
 			case src.Dist == Rectangular:
@@ -149,28 +175,30 @@ func MonteCarlo(inputs []Measured, model func(x []Measured) Measured, trials int
 			for i := 0; i < int(in.n); i++ {
 				v += in.d[i] * eps[pos[in.id[i]]]
 			}
+			if !finite(v) {
+				return MonteCarloResult{}, rangeError("trial %d: input %d drawn as %v: a source's distribution reaches beyond the floating-point range (a Type A source with very few degrees of freedom?)", t+1, k+1, v)
+			}
 			x[k] = Exact(quantity.New(v, in.q.Dim()))
 		}
 		y, err := Eval(func() Measured { return model(x) })
 		if err != nil {
-			return MonteCarloResult{}, err
+			return MonteCarloResult{}, &Error{Reason: fmt.Sprintf("trial %d: the model is not defined over the inputs' distributions", t+1), Err: err}
 		}
 		if t == 0 {
 			dim = y.Dim()
+		} else if y.Dim() != dim {
+			return MonteCarloResult{}, &Error{Reason: fmt.Sprintf("trial %d: the model gives %s, trial 1 gave %s", t+1, quantity.Describe(y.Dim()), quantity.Describe(dim)),
+				Err: &quantity.DimensionError{Op: "check", Name: "MonteCarlo: the model's value", Left: y.Dim(), Right: dim, Binary: true}}
 		}
-		if v := y.Value(); math.IsNaN(v) || math.IsInf(v, 0) {
-			return MonteCarloResult{}, &Error{Reason: fmt.Sprintf("trial %d: the model gives %v: it is not defined over the inputs' distributions", t+1, v)}
-		}
-		ys[t] = y.Value()
+		v := y.Value()
+		ys[t] = v
+		dv := v - mean
+		mean += dv / float64(t+1)
+		ss += dv * (v - mean)
 	}
-	var mean float64
-	for _, y := range ys {
-		mean += y
-	}
-	mean /= float64(trials)
-	var ss float64
-	for _, y := range ys {
-		ss += (y - mean) * (y - mean)
+	u := math.Sqrt(ss / float64(trials-1))
+	if !finite(mean) || !finite(u) {
+		return MonteCarloResult{}, rangeError("the trials' mean or standard deviation overflows")
 	}
 	slices.Sort(ys)
 	// Probabilistically symmetric interval: the (1−p)/2 and (1+p)/2
@@ -180,7 +208,7 @@ func MonteCarlo(inputs []Measured, model func(x []Measured) Measured, trials int
 	lo, hi := ys[max(r-1, 0)], ys[min(r+q-1, trials-1)]
 	return MonteCarloResult{
 		Trials: trials, Coverage: p,
-		Mean: quantity.New(mean, dim), U: quantity.New(math.Sqrt(ss/float64(trials-1)), dim),
+		Mean: quantity.New(mean, dim), U: quantity.New(u, dim),
 		Low: quantity.New(lo, dim), High: quantity.New(hi, dim),
 	}, nil
 }

@@ -1,7 +1,6 @@
 package uncertain
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -104,22 +103,45 @@ type Set struct {
 // NewSet returns an empty set.
 func NewSet() *Set { return &Set{} }
 
-// Error reports a source or a measurement given wrongly. It matches
-// quantity.ErrInvalid under errors.Is.
+// Error reports a source, a measurement or an argument given wrongly, or
+// a result that would not be a finite number. Its class under errors.Is is
+// that of Err when Err is set — quantity.ErrRange for a number out of
+// range, or the class of the cause it wraps — and quantity.ErrInvalid
+// otherwise: every Error matches exactly one class.
 type Error struct {
 	Source string // the source's name, if any
 	Reason string
+	Err    error // the cause, or the class quantity.ErrRange; nil for ErrInvalid
 }
 
 func (e *Error) Error() string {
+	var sb strings.Builder
+	sb.WriteString("uncertain: ")
 	if e.Source != "" {
-		return fmt.Sprintf("uncertain: source %q: %s", e.Source, e.Reason)
+		fmt.Fprintf(&sb, "source %q: ", e.Source)
 	}
-	return "uncertain: " + e.Reason
+	sb.WriteString(e.Reason)
+	if e.Err != nil && e.Err != quantity.ErrRange {
+		sb.WriteString(": ")
+		sb.WriteString(strings.TrimPrefix(e.Err.Error(), "uncertain: "))
+	}
+	return sb.String()
 }
 
-// Is reports whether target is quantity.ErrInvalid.
-func (e *Error) Is(target error) bool { return target == quantity.ErrInvalid }
+// Is reports whether target is quantity.ErrInvalid, the class of an Error
+// without a cause.
+func (e *Error) Is(target error) bool { return e.Err == nil && target == quantity.ErrInvalid }
+
+// Unwrap returns the cause, or nil.
+func (e *Error) Unwrap() error { return e.Err }
+
+// rangeError is an Error of class quantity.ErrRange.
+func rangeError(format string, args ...any) *Error {
+	return &Error{Reason: fmt.Sprintf(format, args...), Err: quantity.ErrRange}
+}
+
+// finite reports whether x is neither NaN nor ±Inf.
+func finite(x float64) bool { return x-x == 0 }
 
 // Add registers a source and returns its ID. A name may be used once.
 func (s *Set) Add(src Source) (ID, error) {
@@ -159,8 +181,15 @@ func (s *Set) MustAdd(src Source) ID {
 	return id
 }
 
-// Source returns the source of id.
-func (s *Set) Source(id ID) Source { return s.src[id] }
+// Source returns the source of id. An ID is the number of a source
+// within its set: an ID beyond this set's sources is an error (an ID of
+// another set that is in range names this set's source of that number).
+func (s *Set) Source(id ID) (Source, error) {
+	if int(id) >= len(s.src) {
+		return Source{}, &Error{Reason: fmt.Sprintf("source ID %d not in this set of %d sources", id, len(s.src))}
+	}
+	return s.src[id], nil
+}
 
 // Len returns the number of sources.
 func (s *Set) Len() int { return len(s.src) }
@@ -260,8 +289,10 @@ func (e *TermsError) Error() string {
 // Is reports whether target is quantity.ErrInvalid.
 func (e *TermsError) Is(target error) bool { return target == quantity.ErrInvalid }
 
-// ErrSets is the error of combining values from two different Sets.
-var ErrSets = errors.New("uncertain: values from two different sets")
+// ErrSets is the error of combining values from two different Sets. It
+// is an *Error, of class quantity.ErrInvalid; errors that report two sets
+// wrap it.
+var ErrSets error = &Error{Reason: "values from two different sets"}
 
 // Measured is a Quantity with the derivatives of its value with respect
 // to the errors of its sources, scaled by their standard uncertainties.
@@ -305,8 +336,16 @@ func (m Measured) U() quantity.Quantity {
 	return quantity.New(math.Sqrt(m.variance(-1)), m.q.Dim())
 }
 
-// Rel returns the relative standard uncertainty u/|y|.
-func (m Measured) Rel() float64 { return math.Sqrt(m.variance(-1)) / math.Abs(m.q.Value()) }
+// Rel returns the relative standard uncertainty u/|y|: 0 when u is 0,
+// and +Inf for a zero value with an uncertainty (a relative uncertainty
+// is not defined there).
+func (m Measured) Rel() float64 {
+	u := math.Sqrt(m.variance(-1))
+	if u == 0 {
+		return 0
+	}
+	return u / math.Abs(m.q.Value())
+}
 
 // variance returns Σ r_kl d_k d_l over all terms, or over the terms of
 // one Effect when e ≥ 0.
@@ -332,10 +371,19 @@ func (m Measured) variance(e int) float64 {
 	return max(v, 0)
 }
 
-// String formats the value as "1.234 m/s ± 0.012 m/s" (standard
-// uncertainty, SI).
+// String formats the value as "1.234 m/s ± 0.012 m/s": the standard
+// uncertainty to two significant digits and the estimate to the same
+// decimal place (GUM §7.2.6), in SI units with the derived unit's name
+// where the dimension has one (N, Pa, W, Pa·s; N·m for energy and torque
+// alike), and a decimal prefix on a named unit for a large or small value
+// (138.43 kN). An exact value is written in full: "9.80665 m/s² ± 0".
 func (m Measured) String() string {
-	return fmt.Sprintf("%v ± %v", m.q, m.U())
+	unit, f := displayUnit(m.q.Dim(), math.Max(math.Abs(m.q.Value()), m.U().Value()))
+	y, u := roundPair(m.q.Value()/f, m.U().Value()/f)
+	if u == "0" {
+		return withUnit(y, unit) + " ± 0"
+	}
+	return withUnit(y, unit) + " ± " + withUnit(u, unit)
 }
 
 // combine returns the terms of a·x + b·y: the chain rule for a result
@@ -432,66 +480,161 @@ func scale(v quantity.Quantity, a float64, x *Measured) (z Measured) {
 }
 
 // setsError is the panic value for values of two sets; Eval returns it
-// as an error matching ErrSets.
+// as an error wrapping ErrSets.
 type setsError struct{}
 
-func (*setsError) Error() string        { return ErrSets.Error() }
-func (*setsError) Is(target error) bool { return target == ErrSets }
+func (*setsError) Error() string { return ErrSets.Error() }
+func (*setsError) Unwrap() error { return ErrSets }
+
+// Domain errors. An operation whose result, or whose derivative with
+// respect to an uncertain operand, is not a finite number at the estimate
+// (a division by zero, the logarithm of a value ≤ 0, the square root of
+// 0 with an uncertainty, an overflow) panics with an *Error of class
+// quantity.ErrRange naming the operation and the operand, as a dimension
+// mismatch panics with a *quantity.DimensionError; Eval returns either as
+// an error. First-order propagation does not hold at such a point: check
+// the model there with MonteCarlo, whose trials are exact values.
+
+//go:noinline
+func panicDomain(op string, x float64) {
+	panic(rangeError("%s %v: the result or its derivative there is not a finite number", op, x))
+}
+
+// ok1 reports whether the result v and its derivative a on x are finite;
+// a matters only when x carries uncertainty.
+func ok1(v, a float64, x *Measured) bool { return finite(v) && (x.n == 0 || finite(a)) }
+
+// ok2 is ok1 for a result of two operands.
+func ok2(v, a float64, x *Measured, b float64, y *Measured) bool {
+	return finite(v) && (x.n == 0 || finite(a)) && (y.n == 0 || finite(b))
+}
+
+// powDeriv returns d(x^p)/dx = p·x^(p−1) given v = x^p; at x = 0 it is 0
+// for p > 1 or p = 0, 1 for p = 1, and infinite otherwise.
+func powDeriv(p, x, v float64) float64 {
+	if x != 0 {
+		return p * v / x
+	}
+	switch {
+	case p == 1:
+		return 1
+	case p > 1 || p == 0:
+		return 0
+	}
+	return math.Inf(1)
+}
 
 // Add returns m + o; the dimensions must agree.
-func (m Measured) Add(o Measured) Measured { return combine(m.q.Add(o.q), 1, &m, 1, &o) }
+func (m Measured) Add(o Measured) Measured {
+	v := m.q.Add(o.q)
+	if !finite(v.Value()) {
+		panicDomain("sum with", o.q.Value())
+	}
+	return combine(v, 1, &m, 1, &o)
+}
 
 // Sub returns m − o; a source shared by both cancels as far as its
 // effect on them is equal.
-func (m Measured) Sub(o Measured) Measured { return combine(m.q.Sub(o.q), 1, &m, -1, &o) }
+func (m Measured) Sub(o Measured) Measured {
+	v := m.q.Sub(o.q)
+	if !finite(v.Value()) {
+		panicDomain("difference with", o.q.Value())
+	}
+	return combine(v, 1, &m, -1, &o)
+}
 
 // Mul returns m·o.
 func (m Measured) Mul(o Measured) Measured {
-	return combine(m.q.Mul(o.q), o.q.Value(), &m, m.q.Value(), &o)
+	v := m.q.Mul(o.q)
+	if !finite(v.Value()) {
+		panicDomain("product with", o.q.Value())
+	}
+	return combine(v, o.q.Value(), &m, m.q.Value(), &o)
 }
 
-// Div returns m/o.
+// Div returns m/o; o must not be 0.
 func (m Measured) Div(o Measured) Measured {
 	y := o.q.Value()
-	return combine(m.q.Div(o.q), 1/y, &m, -m.q.Value()/(y*y), &o)
+	v := m.q.Div(o.q)
+	a, b := 1/y, -m.q.Value()/(y*y)
+	if y == 0 || !ok2(v.Value(), a, &m, b, &o) {
+		panicDomain("quotient by", y)
+	}
+	return combine(v, a, &m, b, &o)
 }
 
 // MulQ returns m·q for an exact q.
-func (m Measured) MulQ(q quantity.Quantity) Measured { return scale(m.q.Mul(q), q.Value(), &m) }
+func (m Measured) MulQ(q quantity.Quantity) Measured {
+	v := m.q.Mul(q)
+	if !ok1(v.Value(), q.Value(), &m) {
+		panicDomain("product with", q.Value())
+	}
+	return scale(v, q.Value(), &m)
+}
 
-// DivQ returns m/q for an exact q.
-func (m Measured) DivQ(q quantity.Quantity) Measured { return scale(m.q.Div(q), 1/q.Value(), &m) }
+// DivQ returns m/q for an exact q other than 0.
+func (m Measured) DivQ(q quantity.Quantity) Measured {
+	v := m.q.Div(q)
+	if q.Value() == 0 || !ok1(v.Value(), 1/q.Value(), &m) {
+		panicDomain("quotient by", q.Value())
+	}
+	return scale(v, 1/q.Value(), &m)
+}
 
 // Scale returns f·m for an exact number f.
-func (m Measured) Scale(f float64) Measured { return scale(m.q.Scale(f), f, &m) }
+func (m Measured) Scale(f float64) Measured {
+	v := m.q.Scale(f)
+	if !ok1(v.Value(), f, &m) {
+		panicDomain("product with", f)
+	}
+	return scale(v, f, &m)
+}
 
 // Neg returns −m.
 func (m Measured) Neg() Measured { return scale(m.q.Neg(), -1, &m) }
 
-// Inv returns 1/m.
+// Inv returns 1/m; m must not be 0.
 func (m Measured) Inv() Measured {
 	x := m.q.Value()
-	return scale(m.q.Inv(), -1/(x*x), &m)
+	v := m.q.Inv()
+	if x == 0 || !ok1(v.Value(), -1/(x*x), &m) {
+		panicDomain("inverse of", x)
+	}
+	return scale(v, -1/(x*x), &m)
 }
 
-// Pow returns m^(num/den), the exponent exact as for Quantity.Pow.
+// Pow returns m^(num/den), the exponent exact as for Quantity.Pow. At
+// m = 0 a power below 1 has no finite derivative, and a negative power
+// no finite value.
 func (m Measured) Pow(num, den int) Measured {
 	v := m.q.Pow(num, den)
 	x := m.q.Value()
-	return scale(v, float64(num)/float64(den)*v.Value()/x, &m)
+	a := powDeriv(float64(num)/float64(den), x, v.Value())
+	if !ok1(v.Value(), a, &m) {
+		panicDomain(fmt.Sprintf("power %d/%d of", num, den), x)
+	}
+	return scale(v, a, &m)
 }
 
 // Powf returns m^p for a dimensionless m, or for any m as
-// quantity.Powf allows.
+// quantity.Powf allows; at m = 0 as Pow.
 func (m Measured) Powf(p float64) Measured {
 	v := quantity.Powf(m.q, p)
-	return scale(v, p*v.Value()/m.q.Value(), &m)
+	a := powDeriv(p, m.q.Value(), v.Value())
+	if !ok1(v.Value(), a, &m) {
+		panicDomain(fmt.Sprintf("power %v of", p), m.q.Value())
+	}
+	return scale(v, a, &m)
 }
 
-// Sqrt returns √m.
+// Sqrt returns √m; m must be positive, or 0 when exact.
 func (m Measured) Sqrt() Measured {
 	v := m.q.Sqrt()
-	return scale(v, 0.5/v.Value(), &m)
+	a := 0.5 / v.Value()
+	if !ok1(v.Value(), a, &m) {
+		panicDomain("square root of", m.q.Value())
+	}
+	return scale(v, a, &m)
 }
 
 // Abs returns |m|.
@@ -502,17 +645,31 @@ func (m Measured) Abs() Measured {
 	return m
 }
 
-// Log returns the natural logarithm of a dimensionless m.
-func Log(m Measured) Measured { return scale(quantity.Log(m.q), 1/m.q.Value(), &m) }
+// Log returns the natural logarithm of a dimensionless m > 0.
+func Log(m Measured) Measured {
+	v := quantity.Log(m.q)
+	if !ok1(v.Value(), 1/m.q.Value(), &m) {
+		panicDomain("logarithm of", m.q.Value())
+	}
+	return scale(v, 1/m.q.Value(), &m)
+}
 
-// Log10 returns the base-10 logarithm of a dimensionless m.
+// Log10 returns the base-10 logarithm of a dimensionless m > 0.
 func Log10(m Measured) Measured {
-	return scale(quantity.Log10(m.q), 1/(m.q.Value()*math.Ln10), &m)
+	v := quantity.Log10(m.q)
+	a := 1 / (m.q.Value() * math.Ln10)
+	if !ok1(v.Value(), a, &m) {
+		panicDomain("logarithm of", m.q.Value())
+	}
+	return scale(v, a, &m)
 }
 
 // Exp returns e^m for a dimensionless m.
 func Exp(m Measured) Measured {
 	v := quantity.Exp(m.q)
+	if !finite(v.Value()) {
+		panicDomain("exponential of", m.q.Value())
+	}
 	return scale(v, v.Value(), &m)
 }
 
@@ -523,7 +680,11 @@ func Sin(m Measured) Measured { return scale(quantity.Sin(m.q), math.Cos(m.q.Val
 func Cos(m Measured) Measured { return scale(quantity.Cos(m.q), -math.Sin(m.q.Value()), &m) }
 
 // Eval runs a formula on Measured values and returns a dimension error,
-// a *TermsError, or ErrSets as an error instead of a panic.
+// a *TermsError, an error wrapping ErrSets, or an *Error of class
+// quantity.ErrRange (a result or a derivative that is not a finite
+// number) as an error instead of a panic. A result whose value or
+// uncertainty terms are not finite (an overflow along the way) is such
+// an *Error too.
 func Eval(formula func() Measured) (m Measured, err error) {
 	defer func() {
 		if r := recover(); r != nil {
@@ -534,24 +695,44 @@ func Eval(formula func() Measured) (m Measured, err error) {
 				err = e
 			case *setsError:
 				err = e
+			case *Error:
+				err = e
 			default:
 				panic(r)
 			}
 			m = Measured{}
 		}
 	}()
-	return formula(), nil
+	m = formula()
+	if !m.finite() {
+		return Measured{}, rangeError("the result %v is not a finite number, or its uncertainty is not (an overflow)", m.q)
+	}
+	return m, nil
+}
+
+// finite reports whether the value and every term are finite numbers.
+func (m *Measured) finite() bool {
+	s := m.q.Value() * 0
+	for i := 0; i < int(m.n); i++ {
+		s += m.d[i] * 0
+	}
+	return s == 0
 }
 
 // Apply returns y = f(m) for a function evaluated elsewhere — a property
 // correlation, a calibration curve — given its value y at m's estimate
 // and its derivative dydx there: the chain rule applied to each of m's
 // sources. The dimensions must agree: y's is dydx's times m's. It panics
-// with a *quantity.DimensionError if they do not, as arithmetic does.
+// with a *quantity.DimensionError if they do not, as arithmetic does, and
+// with an *Error of class quantity.ErrRange if y, or dydx where m is
+// uncertain, is not a finite number.
 func Apply(m Measured, y, dydx quantity.Quantity) Measured {
 	want := dydx.Mul(m.q) // panics on an overflow of exponents
 	if want.Dim() != y.Dim() {
 		panic(&quantity.DimensionError{Op: "check", Name: "Apply: the function's value", Left: y.Dim(), Right: want.Dim(), Binary: true, Detail: "a value y = f(x) has the dimension of dy/dx times x"})
+	}
+	if !ok1(y.Value(), dydx.Value(), &m) {
+		panicDomain("Apply: a function value or derivative not finite, at", m.q.Value())
 	}
 	return scale(y, dydx.Value(), &m)
 }
@@ -561,10 +742,20 @@ func Apply(m Measured, y, dydx quantity.Quantity) Measured {
 // derivatives c_i = ∂f/∂x_i in SI at the estimates. Used where a
 // function is cheaper to evaluate on plain numbers, such as a product of
 // powers. The caller is responsible for the dimensions of c_i; y's is
-// taken as given.
+// taken as given. It panics with an *Error (which Eval returns) if c and
+// x differ in length, or if y or a c_i of an uncertain x_i is not finite.
 func Linear(y quantity.Quantity, c []float64, x []Measured) Measured {
+	if len(c) != len(x) {
+		panic(&Error{Reason: fmt.Sprintf("Linear: %d derivatives for %d values", len(c), len(x))})
+	}
+	if !finite(y.Value()) {
+		panicDomain("Linear: the value", y.Value())
+	}
 	z := Measured{q: y}
 	for i := range x {
+		if x[i].n > 0 && !finite(c[i]) {
+			panicDomain(fmt.Sprintf("Linear: derivative %d is", i+1), c[i])
+		}
 		if x[i].n > 0 && c[i] != 0 {
 			z = combine(y, 1, &z, c[i], &x[i])
 		}
@@ -628,40 +819,78 @@ func (z *Measured) scaleInto(v quantity.Quantity, a float64, x *Measured) *Measu
 }
 
 // SetAdd sets z to x + y and returns z.
-func (z *Measured) SetAdd(x, y *Measured) *Measured { return z.into(x.q.Add(y.q), 1, x, 1, y) }
+func (z *Measured) SetAdd(x, y *Measured) *Measured {
+	v := x.q.Add(y.q)
+	if !finite(v.Value()) {
+		panicDomain("sum with", y.q.Value())
+	}
+	return z.into(v, 1, x, 1, y)
+}
 
 // SetSub sets z to x − y and returns z.
-func (z *Measured) SetSub(x, y *Measured) *Measured { return z.into(x.q.Sub(y.q), 1, x, -1, y) }
+func (z *Measured) SetSub(x, y *Measured) *Measured {
+	v := x.q.Sub(y.q)
+	if !finite(v.Value()) {
+		panicDomain("difference with", y.q.Value())
+	}
+	return z.into(v, 1, x, -1, y)
+}
 
 // SetMul sets z to x·y and returns z.
 func (z *Measured) SetMul(x, y *Measured) *Measured {
-	return z.into(x.q.Mul(y.q), y.q.Value(), x, x.q.Value(), y)
+	v := x.q.Mul(y.q)
+	if !finite(v.Value()) {
+		panicDomain("product with", y.q.Value())
+	}
+	return z.into(v, y.q.Value(), x, x.q.Value(), y)
 }
 
 // SetDiv sets z to x/y and returns z.
 func (z *Measured) SetDiv(x, y *Measured) *Measured {
 	w := y.q.Value()
-	return z.into(x.q.Div(y.q), 1/w, x, -x.q.Value()/(w*w), y)
+	v := x.q.Div(y.q)
+	a, b := 1/w, -x.q.Value()/(w*w)
+	if w == 0 || !ok2(v.Value(), a, x, b, y) {
+		panicDomain("quotient by", w)
+	}
+	return z.into(v, a, x, b, y)
 }
 
 // SetScale sets z to f·x and returns z.
 func (z *Measured) SetScale(x *Measured, f float64) *Measured {
-	return z.scaleInto(x.q.Scale(f), f, x)
+	v := x.q.Scale(f)
+	if !ok1(v.Value(), f, x) {
+		panicDomain("product with", f)
+	}
+	return z.scaleInto(v, f, x)
 }
 
 // SetInv sets z to 1/x and returns z.
 func (z *Measured) SetInv(x *Measured) *Measured {
 	w := x.q.Value()
-	return z.scaleInto(x.q.Inv(), -1/(w*w), x)
+	v := x.q.Inv()
+	if w == 0 || !ok1(v.Value(), -1/(w*w), x) {
+		panicDomain("inverse of", w)
+	}
+	return z.scaleInto(v, -1/(w*w), x)
 }
 
 // SetPowf sets z to x^p for a dimensionless x and returns z.
 func (z *Measured) SetPowf(x *Measured, p float64) *Measured {
 	v := quantity.Powf(x.q, p)
-	return z.scaleInto(v, p*v.Value()/x.q.Value(), x)
+	a := powDeriv(p, x.q.Value(), v.Value())
+	if !ok1(v.Value(), a, x) {
+		panicDomain(fmt.Sprintf("power %v of", p), x.q.Value())
+	}
+	return z.scaleInto(v, a, x)
 }
 
-// SetLog10 sets z to log₁₀ x for a dimensionless x and returns z.
+// SetLog10 sets z to log₁₀ x for a dimensionless x > 0 and returns z.
 func (z *Measured) SetLog10(x *Measured) *Measured {
-	return z.scaleInto(quantity.Log10(x.q), 1/(x.q.Value()*math.Ln10), x)
+	v := quantity.Log10(x.q)
+	a := 1 / (x.q.Value() * math.Ln10)
+	if !ok1(v.Value(), a, x) {
+		panicDomain("logarithm of", x.q.Value())
+	}
+	return z.scaleInto(v, a, x)
 }

@@ -153,9 +153,9 @@ func TestBudget(t *testing.T) {
 	if b.Lines[0].Sensitivity.Dim() != quantity.Pressure {
 		t.Errorf("c has dimension %v, want pressure (Pa² per Pa)", b.Lines[0].Sensitivity.Dim())
 	}
-	near(t, "t(0.975, 9)", uncertain.CoverageFactor(0.95, 9), 2.262, 1e-3)
-	near(t, "t(0.975, ∞)", uncertain.CoverageFactor(0.95, math.Inf(1)), 1.960, 1e-3)
-	near(t, "t(0.995, 4)", uncertain.CoverageFactor(0.99, 4), 4.604, 1e-3) // GUM Table G.2
+	near(t, "t(0.975, 9)", coverage(t, 0.95, 9), 2.262, 1e-3)
+	near(t, "t(0.975, ∞)", coverage(t, 0.95, math.Inf(1)), 1.960, 1e-3)
+	near(t, "t(0.995, 4)", coverage(t, 0.99, 4), 4.604, 1e-3) // GUM Table G.2
 	for _, s := range []string{"calibration", "A (ν = 9)", "systematic", "80.0", "ν_eff = 225.0"} {
 		if !strings.Contains(b.String(), s) || !strings.Contains(b.Markdown(), s) {
 			t.Errorf("budget text lacks %q:\n%s\n%s", s, b.String(), b.Markdown())
@@ -305,6 +305,29 @@ func TestProperties(t *testing.T) {
 	})
 }
 
+// panics reports whether f panics with an error of this package's classes.
+func panics(f func()) (p bool) {
+	defer func() {
+		if r := recover(); r != nil {
+			if _, ok := r.(error); !ok {
+				panic(r)
+			}
+			p = true
+		}
+	}()
+	f()
+	return false
+}
+
+func coverage(t *testing.T, p, nu float64) float64 {
+	t.Helper()
+	k, err := uncertain.CoverageFactor(p, nu)
+	if err != nil {
+		t.Fatalf("CoverageFactor(%v, %v): %v", p, nu, err)
+	}
+	return k
+}
+
 func contribution(x, y, u float64) float64 {
 	set := uncertain.NewSet()
 	id := set.MustAdd(uncertain.Source{Name: "x", U: quantity.New(u, quantity.Length)})
@@ -335,30 +358,56 @@ func TestInPlace(t *testing.T) {
 			o := rapid.IntRange(0, 7).Draw(t, "op")
 			k := rapid.IntRange(0, 3).Draw(t, "operand")
 			y := xs[k]
-			switch o {
-			case 0:
-				z, _ = z.Add(y), w.SetAdd(&w, &y)
-			case 1:
-				z, _ = z.Sub(y), w.SetSub(&w, &y)
-			case 2:
-				z, _ = z.Mul(y), w.SetMul(&w, &y)
-			case 3:
-				z, _ = z.Div(y), w.SetDiv(&w, &y)
-			case 4:
-				z, _ = y.Mul(z), w.SetMul(&y, &w)
-			case 5:
-				z, _ = z.Scale(1.5).Inv(), w.SetScale(&w, 1.5).SetInv(&w)
-			case 6:
-				if z.Value() > 0 {
-					z, _ = z.Powf(0.9), w.SetPowf(&w, 0.9)
+			zp, wp := panics(func() {
+				switch o {
+				case 0:
+					z = z.Add(y)
+				case 1:
+					z = z.Sub(y)
+				case 2:
+					z = z.Mul(y)
+				case 3:
+					z = z.Div(y)
+				case 4:
+					z = y.Mul(z)
+				case 5:
+					z = z.Scale(1.5).Inv()
+				case 6:
+					if z.Value() > 0 {
+						z = z.Powf(0.9)
+					}
+				case 7:
+					z = y.Add(y)
 				}
-			case 7:
-				var fresh uncertain.Measured
-				fresh.SetAdd(&y, &y)
-				z, w = y.Add(y), fresh
+			}), panics(func() {
+				switch o {
+				case 0:
+					w.SetAdd(&w, &y)
+				case 1:
+					w.SetSub(&w, &y)
+				case 2:
+					w.SetMul(&w, &y)
+				case 3:
+					w.SetDiv(&w, &y)
+				case 4:
+					w.SetMul(&y, &w)
+				case 5:
+					w.SetScale(&w, 1.5).SetInv(&w)
+				case 6:
+					if w.Value() > 0 {
+						w.SetPowf(&w, 0.9)
+					}
+				case 7:
+					var fresh uncertain.Measured
+					fresh.SetAdd(&y, &y)
+					w = fresh
+				}
+			})
+			if zp != wp {
+				t.Fatalf("op %d: value form panics: %v, in place: %v", o, zp, wp)
 			}
-			if math.IsInf(z.Value(), 0) || math.IsNaN(z.Value()) {
-				return // a division by zero; NaN terms do not compare
+			if zp {
+				return // a division by zero, refused alike
 			}
 			if z != w {
 				t.Fatalf("op %d: value form %v, in place %v", o, z, w)
