@@ -1,6 +1,7 @@
 package main
 
 import (
+	"fmt"
 	"bytes"
 	"errors"
 	"flag"
@@ -113,7 +114,9 @@ func TestBudgetByHand(t *testing.T) {
 	if math.Abs(math.Sqrt(ss)/b.Resistance.U.Value()-1) > 1e-12 {
 		t.Errorf("u_c %v, root-sum-square %v", b.Resistance.U.Value(), math.Sqrt(ss))
 	}
-	for _, want := range []string{"R_s = 130.797", "[kN]", "P_E = 1255.65", "[kW]", "tank thermometer", "form factor (Prohaska fit)", "invented instrument figures"} {
+	// The report: R_s to the decimal place of u_c (GUM 7.2.6), and the
+	// repeatability's c by hand in kN per newton of R_m.
+	for _, want := range []string{"R_s = 130.80 kN", "u_c = 0.38 kN", "P_E = 1255.6 kW", fmt.Sprintf("%.3g kN/N", c/1e3), "tank thermometer", "form factor (Prohaska fit)", "invented instrument figures"} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("output lacks %q", want)
 		}

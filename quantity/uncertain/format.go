@@ -171,7 +171,7 @@ func sensitivityUnit(yUnit string, yd quantity.Dim, yf float64, xd quantity.Dim)
 			if strings.ContainsAny(xUnit, "·/") {
 				return "1/(" + xUnit + ")"
 			}
-			return xUnit + "⁻¹"
+			return "1/" + xUnit
 		}
 		inv, err := xd.Inv()
 		if err != nil {
