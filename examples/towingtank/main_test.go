@@ -1,10 +1,10 @@
 package main
 
 import (
-	"fmt"
 	"bytes"
 	"errors"
 	"flag"
+	"fmt"
 	"math"
 	"os"
 	"strings"
