@@ -160,8 +160,11 @@ func (m Measured) Budget(name string, p float64) (Budget, error) {
 				}
 			}
 		}
-		if !math.IsInf(nu, 1) {
-			ws += v * v / nu
+		if !math.IsInf(nu, 1) && uc2 > 0 {
+			// Each group's share of u_c², squared: ν_eff = 1/Σ (v_g/u_c²)²/ν_g,
+			// GUM eq. G.2b divided through by u_c⁴ so that no power of a
+			// large variance overflows.
+			ws += (v / uc2) * (v / uc2) / nu
 		}
 	}
 	sort.SliceStable(b.Lines, func(i, j int) bool {
@@ -169,10 +172,10 @@ func (m Measured) Budget(name string, p float64) (Budget, error) {
 	})
 	b.DoF = math.Inf(1)
 	if ws > 0 {
-		b.DoF = uc2 * uc2 / ws
+		b.DoF = 1 / ws
 	}
 	if !(b.DoF > 0) {
-		// ws overflowed or uc2² did: no usable ν_eff.
+		// A share overflowed (degrees of freedom near zero): no usable ν_eff.
 		return Budget{}, rangeError("budget %q: the effective degrees of freedom are not a positive number", name)
 	}
 	var err error
@@ -209,7 +212,7 @@ func CoverageFactor(p, nu float64) (float64, error) {
 		return distuv.UnitNormal.Quantile(q), nil
 	}
 	k := distuv.StudentsT{Mu: 0, Sigma: 1, Nu: nu}.Quantile(q)
-	if !finite(k) || k <= 0 {
+	if !finite(k) {
 		return 0, rangeError("coverage factor for ν = %v at p = %v is not a finite number: too few degrees of freedom", nu, p)
 	}
 	return k, nil

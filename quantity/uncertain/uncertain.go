@@ -252,6 +252,9 @@ func (s *Set) Measure(x quantity.Quantity, ids ...ID) (Measured, error) {
 			}
 			d = src.U.Value()
 		}
+		if !finite(d) {
+			return Measured{}, &Error{Source: src.Name, Reason: fmt.Sprintf("value %v times the relative uncertainty %v overflows", x, src.U.Value()), Err: quantity.ErrRange}
+		}
 		// Insert in order of ID; attaching a source twice adds its effect.
 		i := 0
 		for i < int(m.n) && m.id[i] < id {
@@ -259,6 +262,9 @@ func (s *Set) Measure(x quantity.Quantity, ids ...ID) (Measured, error) {
 		}
 		if i < int(m.n) && m.id[i] == id {
 			m.d[i] += d
+			if !finite(m.d[i]) {
+				return Measured{}, &Error{Source: src.Name, Reason: "attached again, its effect overflows", Err: quantity.ErrRange}
+			}
 			continue
 		}
 		copy(m.id[i+1:m.n+1], m.id[i:m.n])
