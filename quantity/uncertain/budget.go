@@ -114,7 +114,11 @@ func (m Measured) Budget(name string, p float64) (Budget, error) {
 		}
 		pct := 0.0
 		if uc2 > 0 {
-			pct = 100 * ci * ci / uc2
+			r := ci / math.Sqrt(uc2)
+			pct = 100 * r * r
+			if !finite(pct) {
+				return Budget{}, rangeError("budget %q: source %q's share of u_c² overflows (correlated contributions cancel almost exactly)", name, src.Name)
+			}
 		}
 		b.Lines = append(b.Lines, Line{ID: m.id[i], Source: src, Sensitivity: c, SensitivityUnknown: unknown,
 			Contribution: quantity.New(math.Abs(ci), d), Percent: pct})

@@ -157,8 +157,9 @@ func sigFrom(x float64, n, minExp int) string {
 // sensitivityUnit writes the unit of a sensitivity coefficient c = ∂y/∂x
 // for a report that shows y in yUnit (of dimension yd, size yf in SI) and
 // the source in SI units of dimension xd: "N/K", "kN/K", "m/Pa",
-// "N/(kg/m³)"; a base-unit fraction when neither side has a named unit
-// ("1/s" for (m/s)/m); "" for a dimensionless coefficient.
+// "N/(kg/m³)"; c's own unit where that is one symbol ("m" for (N·m)/N,
+// "N" for W/(m/s)); a base-unit fraction when neither side has a named
+// unit ("1/s" for (m/s)/m); "" for a dimensionless coefficient.
 func sensitivityUnit(yUnit string, yd quantity.Dim, yf float64, xd quantity.Dim) string {
 	xUnit := unitName(xd)
 	switch {
@@ -181,6 +182,18 @@ func sensitivityUnit(yUnit string, yd quantity.Dim, yf float64, xd quantity.Dim)
 	}
 	_, yNamed := derived[yd]
 	_, xNamed := derived[xd]
+	if yf == 1 {
+		// c itself a named unit of one symbol, or one base unit: (N·m)/N
+		// is m, W/(m/s) is N.
+		if cd, err := yd.Div(xd); err == nil {
+			if n, ok := derived[cd]; ok && !strings.ContainsAny(n, "·/") {
+				return n
+			}
+			if n := baseFraction(cd); n != "" && !strings.ContainsAny(n, "·/⁻¹²³⁴⁵⁶⁷⁸⁹()^") {
+				return n
+			}
+		}
+	}
 	if !yNamed && !xNamed && yf == 1 {
 		if c, err := yd.Div(xd); err == nil {
 			return baseFraction(c)

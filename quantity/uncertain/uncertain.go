@@ -710,7 +710,7 @@ func Eval(formula func() Measured) (m Measured, err error) {
 		}
 	}()
 	m = formula()
-	if !m.finite() {
+	if !m.finite() || !finite(m.variance(-1)) {
 		return Measured{}, rangeError("the result %v is not a finite number, or its uncertainty is not (an overflow)", m.q)
 	}
 	return m, nil
