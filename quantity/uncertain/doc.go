@@ -28,14 +28,32 @@
 // chosen coverage probability with the Student t coverage factor, and a
 // table of contributions by source with the systematic and random parts
 // apart, as text or Markdown. MonteCarlo propagates the same model by
-// sampling, as in JCGM 101:2008, and Validate applies its §8 test to say
-// whether the first-order result holds for the model.
+// sampling, as in JCGM 101:2008 (a Type A source drawn as a t variable
+// scaled by its standard uncertainty, §6.4.9), with at most MaxTrials
+// trials so that its memory is bounded, and Validate applies its §8 test
+// to say whether the first-order result holds for the model.
+//
+// Reports read as the trade writes them: a standard uncertainty to two
+// significant digits and the estimate to the same decimal place (GUM
+// §7.2.6), in SI units with a derived unit's name where the dimension has
+// one (N, Pa, W, Pa·s; N·m for energy and torque alike) and a decimal
+// prefix for a large or small value (138.43 kN ± 0.83 kN); sensitivity
+// coefficients in the unit of the result per unit of the source (N/K,
+// m/Pa).
 //
 // Dimensions are checked exactly as for Quantity: adding a pressure to a
 // velocity panics with a *quantity.DimensionError, and Eval turns the
 // panic into an error. A value depends on at most MaxTerms sources; an
 // operation that would exceed it panics with a *TermsError, which Eval
-// also returns. Operations do not allocate. A Measured is a value of
+// also returns. An operation whose result, or whose derivative with
+// respect to an uncertain operand, is not a finite number — 1/0, the
+// logarithm of 0, √0 with an uncertainty, an overflow — panics with an
+// *Error of class quantity.ErrRange, which Eval returns too; no NaN or
+// infinite value comes out of Eval, Budget or MonteCarlo with a nil
+// error. Every error of the package matches exactly one of the module's
+// classes under errors.Is (quantity.ErrDimension, ErrRange or
+// ErrInvalid), with its cause kept for errors.As. Operations do not
+// allocate. A Measured is a value of
 // about 200 bytes; in a loop over many rows the in-place forms
 // (z.SetMul(x, y), z.SetAdd(x, y), …) write into a destination through
 // pointers and copy nothing, with results identical to the value forms.

@@ -83,3 +83,20 @@ func ExampleMonteCarlo() {
 	// Monte Carlo: [1.1281, 1.1770] m/s
 	// validated: true
 }
+
+// A measured value prints with its standard uncertainty to two
+// significant digits and the estimate to the same decimal place (GUM
+// §7.2.6), in the derived unit's name with a prefix where the value is
+// large. An invented model resistance of 138 434.1 N with u = 832.6 N:
+// u rounds to 0.83 kN, so the value is stated to 0.01 kN.
+func ExampleMeasured_String() {
+	set := uncertain.NewSet()
+	cal := set.MustAdd(uncertain.Source{Name: "dynamometer", U: quantity.New(832.6328569252115, quantity.Force)})
+	r := set.MustMeasure(quantity.New(138434.1051208327, quantity.Force), cal)
+	fmt.Println(r)
+	v := set.MustMeasure(quantity.New(1.23412, quantity.Velocity), set.MustAdd(uncertain.Source{Name: "carriage", U: quantity.New(0.01234, quantity.Velocity)}))
+	fmt.Println(v)
+	// Output:
+	// 138.43 kN ± 0.83 kN
+	// 1.234 m/s ± 0.012 m/s
+}
