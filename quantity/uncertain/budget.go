@@ -114,8 +114,11 @@ func (m Measured) Budget(name string, p float64) (Budget, error) {
 		}
 		pct := 0.0
 		if uc2 > 0 {
-			r := ci / math.Sqrt(uc2)
-			pct = 100 * r * r
+			pct = 100 * ci * ci / uc2
+			if !finite(pct) {
+				r := ci / math.Sqrt(uc2) // ci² overflowed, u_c² did not
+				pct = 100 * r * r
+			}
 			if !finite(pct) {
 				return Budget{}, rangeError("budget %q: source %q's share of u_c² overflows (correlated contributions cancel almost exactly)", name, src.Name)
 			}

@@ -333,8 +333,14 @@ func (m Measured) Terms() int { return int(m.n) }
 
 // Term returns the i-th source and the derivative of the value with
 // respect to its error, times its standard uncertainty, in SI: the
-// source's signed contribution c·u to the value's uncertainty.
-func (m Measured) Term(i int) (ID, float64) { return m.id[i], m.d[i] }
+// source's signed contribution c·u to the value's uncertainty. i must
+// lie in 0 ≤ i < Terms(); beyond that, as a slice index, it panics.
+func (m Measured) Term(i int) (ID, float64) {
+	if i < 0 || i >= int(m.n) {
+		panic(&Error{Reason: fmt.Sprintf("Term(%d) of a value with %d terms", i, m.n)})
+	}
+	return m.id[i], m.d[i]
+}
 
 // U returns the combined standard uncertainty (GUM eq. 13), correlations
 // included.
