@@ -381,7 +381,7 @@ func (c *TunnelCondition) caution(gas fluids.IdealGas, lim TunnelLimits) error {
 		if l, r := c.Load.Value(), rated.Value(); l > r {
 			c.Overloaded = true
 			c.Cautions = append(c.Cautions, fmt.Sprintf("OVERLOAD: the load C·S·q = %.4g N at q = %.4g Pa exceeds the rated %.4g N of the balance, sting or model by %.0f %%; "+
-				"do not run this condition: lower the total pressure (set MaxDynamicPressure) or use a stronger balance, as the responsible engineer decides.", l, c.Q.Value(), r, 100*(l/r-1)))
+				"do not run this condition: lower the total pressure (a dynamic-pressure limit) or use a stronger balance, as the responsible engineer decides.", l, c.Q.Value(), r, 100*(l/r-1)))
 		} else {
 			c.Cautions = append(c.Cautions, fmt.Sprintf("load: C·S·q = %.4g N at q = %.4g Pa is %.0f %% of the rated %.4g N; gusts, starting loads and stall buffet add to it.", l, c.Q.Value(), 100*l/r, r))
 		}

@@ -164,8 +164,11 @@ func CorrectWalls2D(s Section2D) (Corrected2D, error) {
 		return Corrected2D{}, m("chord and height must be positive and finite")
 	}
 	ch := c / h
-	if !(ch > 0) || ch > 0.4 {
-		return Corrected2D{}, m(fmt.Sprintf("c/h = %.3g: above 0.4 the classical corrections do not hold, and a ratio that underflows to 0 is no model; use a smaller model or a wall-pressure method", ch))
+	if ch > 0.4 {
+		return Corrected2D{}, m(fmt.Sprintf("c/h = %.3g: above 0.4 the classical corrections do not hold; use a smaller model or a wall-pressure method", ch))
+	}
+	if !(ch > 0) {
+		return Corrected2D{}, m(fmt.Sprintf("c/h = %g: a chord that small against the height is no model", ch))
 	}
 	if !(s.ShapeFactor >= 0 && s.ShapeFactor < 2) {
 		return Corrected2D{}, m("the shape factor must lie in 0 … 2 and the coefficients be finite")
@@ -320,8 +323,11 @@ func CorrectWalls3D(m Model3D) (Corrected3D, error) {
 		return Corrected3D{}, e("the wing and tunnel areas must be positive")
 	}
 	sc := s / c
-	if !(sc > 0) || sc > 0.2 {
-		return Corrected3D{}, e(fmt.Sprintf("S/C = %.3g: above 0.2 the classical corrections do not hold, and a ratio that underflows to 0 is no model", sc))
+	if sc > 0.2 {
+		return Corrected3D{}, e(fmt.Sprintf("S/C = %.3g: above 0.2 the classical corrections do not hold; use a smaller model", sc))
+	}
+	if !(sc > 0) {
+		return Corrected3D{}, e(fmt.Sprintf("S/C = %g: a wing that small against the section is no model", sc))
 	}
 	if !(m.ShapeFactor >= 0 && m.ShapeFactor < 2) || !(m.Delta >= 0 && m.Delta < 1) || !(m.CurvatureFactor >= 0 && m.CurvatureFactor < 2) ||
 		!(m.TailCurvatureFactor >= 0 && m.TailCurvatureFactor < 2) {
