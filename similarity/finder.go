@@ -241,6 +241,9 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 		if pq := pr * 2 * q.Value() / (gas.Gamma * ma * ma); pq < phi {
 			phi, pmaxName = pq, "maximum dynamic pressure"
 		}
+		if phi < plo {
+			return TunnelCondition{}, &PlanError{Err: ErrBadRatio, Reason: fmt.Sprintf("the maximum dynamic pressure %.4g Pa allows a total pressure of only %.4g Pa at Mach %.3g, below the minimum total pressure %.4g Pa", q.Value(), phi, ma, plo)}
+		}
 	}
 	if mg := lim.CondensationMargin; mg != (quantity.Quantity{}) || gas.Saturation != fluids.NoSaturation {
 		given := mg != (quantity.Quantity{})

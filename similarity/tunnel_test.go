@@ -300,3 +300,16 @@ func allFinite(xs ...float64) bool {
 	}
 	return true
 }
+
+// TestTunnelFinderQLimitBelowMinimum: a dynamic-pressure limit that
+// allows less than the minimum total pressure is refused (the finder
+// used to return a total pressure below the tunnel's minimum).
+func TestTunnelFinderQLimitBelowMinimum(t *testing.T) {
+	proto, V, L := cryoCase()
+	lim := similarity.TunnelLimits{MinTemperature: q.New(280, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+		MinPressure: q.New(1e5, q.Pressure), MaxPressure: q.New(5e5, q.Pressure), MaxDynamicPressure: q.New(1e3, q.Pressure)}
+	c, err := similarity.FindTunnelCondition(fluids.Air(), proto, V, L, 1.0/12, lim)
+	if !errors.Is(err, q.ErrRange) {
+		t.Errorf("q ≤ 1 kPa with p₀ ≥ 1 bar: %v, total %v", err, c.Total)
+	}
+}
