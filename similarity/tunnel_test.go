@@ -19,8 +19,9 @@ import (
 // C_m¼u = −0.08) at Ma = 0.62, β = √(1 − 0.3844). The wanted values are
 // the documented formulas evaluated once in Python 3 (plain float
 // arithmetic): ε_sb = Λσ/β³, ε_wb = (c/4h)C_du(1 + 0.4Ma²)/β²,
-// q/q_u = 1 + (2 − Ma²)ε, C_l = C_lu[1 − σ/β² − (2 − Ma²)ε], … The old
-// corrections ignored the Mach number and gave the Ma = 0 values.
+// q/q_u = 1 + (2 − Ma²)ε, C_l = C_lu[1 − σ/β² − (2 − Ma²)ε], … (the
+// compressibility factors quoted from memory, as the method's doc says).
+// The old corrections ignored the Mach number and gave the Ma = 0 values.
 func TestWallCorrections2DCompressible(t *testing.T) {
 	r, err := similarity.CorrectWalls2D(similarity.Section2D{Chord: q.New(0.3, q.Length), Height: q.New(0.9, q.Length),
 		ShapeFactor: 0.25, Alpha: 6, CL: 0.82, CD: 0.0125, CM: -0.08, Mach: 0.62})
@@ -46,7 +47,8 @@ func TestWallCorrections2DCompressible(t *testing.T) {
 // (S = 0.3 m², C = 3 m², V = 0.012 m³, K·τ₁ = 0.86, δ = 0.125,
 // C_Lu = 0.75, C_Du = 0.04, α = 4°) at Ma = 0.62, the documented
 // formulas evaluated once in Python 3: ε_sb = K·τ₁·V/(C^1.5·β³),
-// ε_wb = (S/4C)·C_Du·(1 + 0.4Ma²)/β², q/q_u = (1 + ε)²(1 − Ma²ε).
+// ε_wb = (S/4C)·C_Du·(1 + 0.4Ma²)/β² (factors from memory),
+// q/q_u = (1 + ε)²(1 − Ma²ε).
 func TestWallCorrections3DCompressible(t *testing.T) {
 	r, err := similarity.CorrectWalls3D(similarity.Model3D{WingArea: q.New(0.3, q.Area), TunnelArea: q.New(3, q.Area),
 		ModelVolume: q.New(0.012, q.Volume), ShapeFactor: 0.86, Delta: 0.125, Alpha: 4, CL: 0.75, CD: 0.04, Mach: 0.62})

@@ -130,7 +130,8 @@ func TestCondensationMargin(t *testing.T) {
 	}
 }
 
-// TestSectionByHand: at the default Ma = 0.62, β² = 1 − 0.62²;
+// TestSectionByHand: at the default Ma = 0.62, β² = 1 − 0.62² (the
+// compressibility factors of the classical corrections, from memory);
 // σ = (π²/48)(0.3/0.9)², ε_sb = 0.25σ/β³,
 // ε_wb = (0.3/(4·0.9))·0.0125·(1 + 0.4·0.62²)/β², ε = ε_sb + ε_wb,
 // C_l = 0.82[1 − σ/β² − (2 − 0.62²)ε], q/q_u = 1 + (2 − 0.62²)ε.
