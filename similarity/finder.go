@@ -72,10 +72,19 @@ type TunnelLimits struct {
 	// MaxDynamicPressure, if set, is the largest q = (γ/2)·p·Ma² the
 	// balance and the model may see in the test section.
 	MaxDynamicPressure quantity.Quantity
-	// CondensationMargin, if set, is how far (in kelvin) the static
-	// temperature must stay above the gas's saturation temperature at the
-	// static pressure; it applies to nitrogen (fluids.Nitrogen).
+	// CondensationMargin is how far (in kelvin) the static temperature
+	// must stay above the gas's condensation temperature at the static
+	// pressure (fluids.IdealGas.LowestTemperature). It applies to a gas
+	// with a saturation curve (fluids.Nitrogen); unset, it is zero there:
+	// the test section is kept a gas, but with no margin.
 	CondensationMargin quantity.Quantity
+	// RatedLoad, if set, is the rated load of the weakest member of the
+	// model's load path (balance, sting, model or support), and LoadArea
+	// the model's largest force coefficient times its reference area
+	// (C·S, m²), so that C·S·q is the largest load at the found dynamic
+	// pressure. The finder compares the two and says so in Cautions; it
+	// does not lower q for it (MaxDynamicPressure does).
+	RatedLoad, LoadArea quantity.Quantity
 }
 
 // TunnelCondition is a condition found for a model: the total condition
@@ -98,12 +107,33 @@ type TunnelCondition struct {
 	// the test section.
 	Binding []string
 	Q       quantity.Quantity
+	// Gas is the test gas's name, as the condition was computed for it.
+	Gas string
+	// Load is LoadArea·Q, the largest load on the model's load path at
+	// this condition (zero when no LoadArea was given); Overloaded is
+	// set when it exceeds the RatedLoad.
+	Load       quantity.Quantity
+	Overloaded bool
+	// Cautions are the safety notes for running this condition: always
+	// TunnelCaution, the asphyxiation and cold hazards of a test gas
+	// other than air or below 0 °C, and the load against its rating.
+	Cautions []string
 }
 
 // TunnelCaution accompanies every pressurised or cryogenic tunnel
 // condition.
 const TunnelCaution = "Pressurised and cryogenic tunnel conditions must stay within the facility's certified operating envelope; " +
-	"pressure vessels are operated to the applicable pressure-equipment code under the facility's responsible engineer."
+	"pressure vessels are operated to the applicable pressure-equipment code, and every run follows the facility's safety rules " +
+	"under its responsible engineer, whose word overrides any figure computed here."
+
+// AsphyxiantCaution is added for a test gas other than air.
+const AsphyxiantCaution = "The test gas is not air: nitrogen or any inert gas vented or leaking into the test hall lowers the oxygen content " +
+	"without warning and can kill by asphyxiation; enter enclosed spaces only under the facility's oxygen-monitoring, ventilation and " +
+	"entry procedures."
+
+// ColdCaution is added for a total temperature below 0 °C.
+const ColdCaution = "Cryogenic gas, liquid nitrogen and cold model, sting and tunnel surfaces cause cold burns and embrittle materials; " +
+	"handle the model only after warm-up or with the protective equipment the facility's rules require, and use materials rated for the temperature."
 
 // FindTunnelCondition finds the total temperature and pressure of an
 // ideal-gas tunnel at which a model at lengthRatio holds both the
@@ -116,6 +146,14 @@ const TunnelCaution = "Pressurised and cryogenic tunnel conditions must stay wit
 // total temperature needs the least total pressure. When no condition
 // within the limits holds both, it returns the one that comes closest in
 // Reynolds number, with Achieved false.
+//
+// The gas's own range narrows the limits: the static temperature is kept
+// at or above the gas's lowest temperature and above its condensation
+// temperature at the static pressure plus the CondensationMargin (zero
+// when unset), and the total temperature at or below the gas's highest;
+// a found state the gas model refuses is never returned. The returned
+// condition carries its safety Cautions, which defer to the facility's
+// safety rules and its responsible engineer.
 func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLength quantity.Quantity, lengthRatio float64, lim TunnelLimits) (TunnelCondition, error) {
 	for _, c := range []struct {
 		n string
@@ -146,8 +184,8 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 			return TunnelCondition{}, &PlanError{Err: ErrBadRatio, Symbol: c.n, Reason: fmt.Sprintf("%s %v is not positive and finite (a fluid state without a speed of sound cannot set a Mach number)", c.n, c.v)}
 		}
 	}
-	if _, err := gas.At(quantity.New(tlo, quantity.Temperature), quantity.New(plo, quantity.Pressure)); err != nil {
-		return TunnelCondition{}, err
+	if _, err := gas.LowestTemperature(lim.MinPressure); err != nil {
+		return TunnelCondition{}, err // the gas's constants
 	}
 	ma := protoSpeed.Value() / proto.SpeedOfSound.Value()
 	tr, pr, err := fluids.TotalRatios(gas.Gamma, ma)
@@ -156,14 +194,42 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 	}
 	rep := proto.Density.Value() * protoSpeed.Value() * protoLength.Value() / proto.DynamicViscosity.Value()
 	lm := protoLength.Value() * lengthRatio
+	if !(rep > 0) || math.IsInf(rep, 0) || !(lm > 0) || math.IsInf(lm, 0) {
+		return TunnelCondition{}, &PlanError{Err: ErrBadRatio, Reason: fmt.Sprintf("the full-scale Reynolds number %g and the model length %g m must be positive and finite", rep, lm)}
+	}
+	tminName, tmaxName := "minimum total temperature", "maximum total temperature"
+	// The gas's own range: the static temperature T₀/tr at or above its
+	// lowest, the total temperature at or below its highest.
+	if g := gas.MinTemperature * tr; g > tlo {
+		tlo, tminName = g, "lowest temperature of the "+gas.GasName+" model"
+		for i := 0; i < 8 && tlo/tr < gas.MinTemperature; i++ {
+			tlo = math.Nextafter(tlo, math.Inf(1)) // T₀/tr rounded below the bound
+		}
+	}
+	if gas.MaxTemperature > 0 && gas.MaxTemperature < thi {
+		thi, tmaxName = gas.MaxTemperature, "highest temperature of the "+gas.GasName+" model"
+	}
+	if !(tlo <= thi) {
+		return TunnelCondition{}, &fluids.RangeError{Fluid: gas.GasName, What: fmt.Sprintf("total temperature (K) of the tunnel limits at Mach %.3g (the gas model holds for static temperatures %g … %g K)", ma, gas.MinTemperature, gas.MaxTemperature),
+			Value: lim.MaxTemperature.Value(), Lo: tlo, Hi: thi}
+	}
+	// mu is Sutherland's law, NaN outside the gas's range (which the
+	// searches below read as no root).
+	mu := func(T float64) float64 {
+		v, err := gas.Viscosity(T)
+		if err != nil {
+			return math.NaN()
+		}
+		return v
+	}
 	speed := func(T float64) float64 { return ma * math.Sqrt(gas.Gamma*gas.R*T) }
 	// need0 is the total pressure that gives the full-scale Reynolds
 	// number at total temperature T0.
 	need0 := func(T0 float64) float64 {
 		T := T0 / tr
-		return pr * rep * gas.Viscosity(T) * gas.R * T / (speed(T) * lm)
+		return pr * rep * mu(T) * gas.R * T / (speed(T) * lm)
 	}
-	c := TunnelCondition{Mach: ma, FullReynolds: rep}
+	c := TunnelCondition{Mach: ma, FullReynolds: rep, Gas: gas.GasName}
 	pmaxName := "maximum total pressure"
 	if q := lim.MaxDynamicPressure; q != (quantity.Quantity{}) {
 		if err := q.CheckNamed("maximum dynamic pressure", quantity.Pressure); err != nil {
@@ -175,38 +241,64 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 		if pq := pr * 2 * q.Value() / (gas.Gamma * ma * ma); pq < phi {
 			phi, pmaxName = pq, "maximum dynamic pressure"
 		}
-	}
-	tminName := "minimum total temperature"
-	if mg := lim.CondensationMargin; mg != (quantity.Quantity{}) {
-		if err := mg.CheckNamed("condensation margin", quantity.Temperature); err != nil {
-			return TunnelCondition{}, err
+		if phi < plo {
+			return TunnelCondition{}, &PlanError{Err: ErrBadRatio, Reason: fmt.Sprintf("the maximum dynamic pressure %.4g Pa allows a total pressure of only %.4g Pa at Mach %.3g, below the minimum total pressure %.4g Pa", q.Value(), phi, ma, plo)}
 		}
-		if gas.GasName != fluids.Nitrogen().GasName {
-			return TunnelCondition{}, &PlanError{Err: ErrBadRatio, Reason: "a condensation margin is checked for nitrogen; " + gas.GasName + " has no saturation curve here"}
+	}
+	if mg := lim.CondensationMargin; mg != (quantity.Quantity{}) || gas.Saturation != fluids.NoSaturation {
+		given := mg != (quantity.Quantity{})
+		if given {
+			if err := mg.CheckNamed("condensation margin", quantity.Temperature); err != nil {
+				return TunnelCondition{}, err
+			}
+		}
+		if gas.Saturation == fluids.NoSaturation {
+			return TunnelCondition{}, &PlanError{Err: ErrBadRatio, Reason: "a condensation margin is checked for a gas with a saturation curve (nitrogen); " + gas.GasName + " has none here"}
+		}
+		m := mg.Value()
+		if !(m >= 0) || math.IsInf(m, 0) {
+			return TunnelCondition{}, &PlanError{Err: ErrBadRatio, Reason: fmt.Sprintf("the condensation margin %v K must be finite and not negative", m)}
+		}
+		name := "condensation margin"
+		if !given {
+			name = "saturation temperature (no margin given)"
 		}
 		// The margin at total temperature T0, with the pressure the
-		// Reynolds number needs (capped at the limit).
+		// Reynolds number needs (capped at the limits).
 		margin := func(T0 float64) float64 {
 			p := min(max(need0(T0), plo), phi) / pr
-			ts, err := fluids.NitrogenSaturationTemperature(quantity.New(p, quantity.Pressure))
+			lo, err := gas.LowestTemperature(quantity.New(p, quantity.Pressure))
 			if err != nil {
-				return math.Inf(1) // above the critical pressure: no condensation
+				return math.NaN()
 			}
-			return T0/tr - ts.Value() - mg.Value()
+			return T0/tr - lo.Value() - m
 		}
-		if margin(tlo) < 0 {
-			if margin(thi) < 0 {
-				return TunnelCondition{}, &PlanError{Err: ErrNoRoot, Reason: fmt.Sprintf("no total temperature up to %.4g K keeps the static temperature %.3g K above nitrogen saturation", thi, mg.Value())}
+		// The static state must lie strictly above the condensation
+		// temperature, so the search keeps the side where the margin is
+		// positive.
+		if !(margin(tlo) > 0) {
+			if !(margin(thi) > 0) {
+				return TunnelCondition{}, &PlanError{Err: ErrNoRoot, Reason: fmt.Sprintf("no total temperature up to %.4g K keeps the static %s gas %.3g K above its condensation temperature", thi, gas.GasName, m)}
 			}
-			t0, err := bisect(margin, tlo, thi)
-			if err != nil {
-				return TunnelCondition{}, &PlanError{Err: ErrNoRoot, Reason: "the condensation margin could not be located"}
+			lo, hi := tlo, thi
+			for range 200 {
+				mid := 0.5 * (lo + hi)
+				if margin(mid) > 0 {
+					hi = mid
+				} else {
+					lo = mid
+				}
+				if hi-lo <= 1e-12*hi {
+					break
+				}
 			}
-			tlo, tminName = t0, "condensation margin"
+			tlo, tminName = hi, name
 		}
 	}
 	T0, p0 := tlo, need0(tlo)
 	switch {
+	case math.IsNaN(p0):
+		return TunnelCondition{}, &PlanError{Err: ErrNoRoot, Reason: "no total pressure gives the Reynolds number at the lowest allowed total temperature"}
 	case p0 > phi:
 		p0 = phi
 		c.Binding = append(c.Binding, pmaxName, tminName)
@@ -215,7 +307,7 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 		// Warm the gas until the minimum pressure gives the right Re.
 		if need0(thi) < plo {
 			T0, p0 = thi, plo
-			c.Binding = append(c.Binding, "minimum total pressure", "maximum total temperature")
+			c.Binding = append(c.Binding, "minimum total pressure", tmaxName)
 			c.Note = "even at the highest total temperature the minimum total pressure overshoots the full-scale Reynolds number"
 		} else {
 			var err error
@@ -230,15 +322,74 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 	}
 	c.Total = fluids.Total{Temperature: quantity.New(T0, quantity.Temperature), Pressure: quantity.New(p0, quantity.Pressure)}
 	T, p := T0/tr, p0/pr
-	rho := p / (gas.R * T)
-	c.Temperature, c.Pressure = quantity.New(T, quantity.Temperature), quantity.New(p, quantity.Pressure)
+	st, err := gas.At(quantity.New(T, quantity.Temperature), quantity.New(p, quantity.Pressure))
+	if err != nil {
+		return TunnelCondition{}, err // never a state the gas model refuses
+	}
+	c.Temperature, c.Pressure = st.Temperature, st.Pressure
 	c.Velocity = quantity.New(speed(T), quantity.Velocity)
-	c.ModelReynolds = rho * speed(T) * lm / gas.Viscosity(T)
+	c.ModelReynolds = st.Density.Value() * speed(T) * lm / st.DynamicViscosity.Value()
 	c.ReynoldsRatio = c.ModelReynolds / rep
 	c.Q = quantity.New(0.5*gas.Gamma*p*ma*ma, quantity.Pressure)
+	if !tunnelFinite(T0, p0, c.Velocity.Value(), c.ModelReynolds, c.ReynoldsRatio, c.Q.Value()) {
+		return TunnelCondition{}, &PlanError{Err: ErrBadRatio, Reason: fmt.Sprintf("the condition is not finite (T₀ = %g K, p₀ = %g Pa, Re_m = %g): the inputs are outside any tunnel's range", T0, p0, c.ModelReynolds)}
+	}
 	c.Achieved = math.Abs(c.ReynoldsRatio-1) < 1e-6
 	if c.Achieved {
 		c.Note = "Mach and Reynolds numbers both held"
 	}
+	if err := c.caution(gas, lim); err != nil {
+		return TunnelCondition{}, err
+	}
 	return c, nil
+}
+
+// tunnelFinite reports whether every value is a finite number.
+func tunnelFinite(xs ...float64) bool {
+	for _, x := range xs {
+		if math.IsNaN(x) || math.IsInf(x, 0) {
+			return false
+		}
+	}
+	return true
+}
+
+// caution fills the condition's load and safety notes.
+func (c *TunnelCondition) caution(gas fluids.IdealGas, lim TunnelLimits) error {
+	c.Cautions = []string{TunnelCaution}
+	if gas.GasName != fluids.Air().GasName {
+		c.Cautions = append(c.Cautions, AsphyxiantCaution)
+	}
+	if c.Total.Temperature.Value() < 273.15 {
+		c.Cautions = append(c.Cautions, ColdCaution)
+	}
+	rated, area := lim.RatedLoad, lim.LoadArea
+	if area != (quantity.Quantity{}) {
+		if err := checkInputs("tunnel condition finder", true, input{"load area C·S", area, quantity.Area}); err != nil {
+			return err
+		}
+		c.Load = c.Q.Mul(area)
+		if math.IsInf(c.Load.Value(), 0) {
+			return &PlanError{Err: ErrBadRatio, Reason: "the load C·S·q is not finite"}
+		}
+	}
+	switch {
+	case rated != (quantity.Quantity{}):
+		if err := checkInputs("tunnel condition finder", true, input{"rated load", rated, quantity.Force}); err != nil {
+			return err
+		}
+		if area == (quantity.Quantity{}) {
+			return &PlanError{Err: ErrPlan, Reason: "a rated load needs the load area C·S (the largest force coefficient times the reference area) to compare with"}
+		}
+		if l, r := c.Load.Value(), rated.Value(); l > r {
+			c.Overloaded = true
+			c.Cautions = append(c.Cautions, fmt.Sprintf("OVERLOAD: the load C·S·q = %.4g N at q = %.4g Pa exceeds the rated %.4g N of the balance, sting or model by %.0f %%; "+
+				"do not run this condition: lower the total pressure (a dynamic-pressure limit) or use a stronger balance, as the responsible engineer decides.", l, c.Q.Value(), r, 100*(l/r-1)))
+		} else {
+			c.Cautions = append(c.Cautions, fmt.Sprintf("load: C·S·q = %.4g N at q = %.4g Pa is %.0f %% of the rated %.4g N; gusts, starting loads and stall buffet add to it.", l, c.Q.Value(), 100*l/r, r))
+		}
+	default:
+		c.Cautions = append(c.Cautions, fmt.Sprintf("load: no rated load given — check the model, sting and balance against their ratings at q = %.4g Pa before running.", c.Q.Value()))
+	}
+	return nil
 }

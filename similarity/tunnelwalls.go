@@ -7,6 +7,88 @@ import (
 	"similis.dev/similis/quantity"
 )
 
+// MaxWallCorrectionMach is the highest test-section Mach number at which
+// CorrectWalls2D and CorrectWalls3D apply their compressible
+// (Prandtl–Glauert-type) corrections. The corrections are linear
+// (subsonic small-perturbation) theory: as Ma nears 1 the factors
+// 1/(1 − Ma²)^(3/2) grow without bound and the flow over a model turns
+// locally supersonic, where no linear correction holds. 0.8 is the bound
+// commonly used for them (common practice); at it the solid blockage is
+// already 4.6 times its incompressible value. Above it, a
+// *CorrectionRangeError: use ventilated walls and a wall-pressure
+// (measured-boundary) method.
+const MaxWallCorrectionMach = 0.8
+
+// MaxBlockage is the largest total blockage ε (after the compressibility
+// factors) the first-order corrections accept: at ε = 0.1 the neglected
+// second-order terms are about ε² = 1 % of the dynamic pressure, as
+// large as the effects being corrected are small.
+const MaxBlockage = 0.1
+
+// CorrectionRangeError reports an input of a wall correction outside the
+// range in which the correction holds (a Mach number above
+// MaxWallCorrectionMach, a blockage above MaxBlockage, a coefficient no
+// model shows). It wraps ErrExtrapolation and is of class
+// quantity.ErrRange.
+type CorrectionRangeError struct {
+	Method, What string
+	Value        float64
+	Lo, Hi       float64
+	Reason       string // what to do instead, if anything
+}
+
+// Error implements the error interface.
+func (e *CorrectionRangeError) Error() string {
+	s := fmt.Sprintf("similarity: %s: %s %g outside %g … %g", e.Method, e.What, e.Value, e.Lo, e.Hi)
+	if e.Reason != "" {
+		s += ": " + e.Reason
+	}
+	return s
+}
+
+// Unwrap returns ErrExtrapolation.
+func (e *CorrectionRangeError) Unwrap() error { return ErrExtrapolation }
+
+// Is reports whether target is quantity.ErrRange, the class of a
+// *CorrectionRangeError.
+func (e *CorrectionRangeError) Is(target error) bool { return target == quantity.ErrRange }
+
+// Bounds on the measured values the corrections take: no force or
+// moment coefficient of a model in a closed test section reaches 10, and
+// an angle of attack beyond ±90° is not one.
+const (
+	maxCoefficient = 10.0
+	maxAlphaDeg    = 90.0
+	maxSlope       = 1.0 // per degree, for ∂C_m/∂α_t
+)
+
+// checkCoefficients refuses a measured value outside its bound (and
+// NaN), naming it.
+func checkCoefficients(method string, vals ...bound) error {
+	for _, c := range vals {
+		if !(c.v >= c.lo && c.v <= c.hi) {
+			return &CorrectionRangeError{Method: method, What: c.name, Value: c.v, Lo: c.lo, Hi: c.hi}
+		}
+	}
+	return nil
+}
+
+// bound is a named value and its closed range.
+type bound struct {
+	name      string
+	v, lo, hi float64
+}
+
+// compressibility returns β = √(1 − Ma²) for a test-section Mach number
+// in 0 … MaxWallCorrectionMach.
+func compressibility(method string, ma float64) (float64, error) {
+	if !(ma >= 0 && ma <= MaxWallCorrectionMach) {
+		return 0, &CorrectionRangeError{Method: method, What: "test-section Mach number", Value: ma, Lo: 0, Hi: MaxWallCorrectionMach,
+			Reason: "the linear compressible corrections do not hold there; use ventilated walls and a wall-pressure method"}
+	}
+	return math.Sqrt(1 - ma*ma), nil
+}
+
 // Section2D is a two-dimensional (wall-to-wall) airfoil test in a closed
 // test section: the measured, uncorrected coefficients and the geometry.
 type Section2D struct {
@@ -19,36 +101,58 @@ type Section2D struct {
 	// (about the quarter chord) the measured coefficients on the
 	// uncorrected dynamic pressure.
 	Alpha, CL, CD, CM float64
+	// Mach is the test section's uncorrected Mach number, 0 …
+	// MaxWallCorrectionMach; 0 gives the incompressible corrections.
+	Mach float64
 }
 
 // Corrected2D is a two-dimensional test corrected for the tunnel walls,
 // with every term.
 type Corrected2D struct {
-	Sigma                 float64 // streamline curvature σ = (π²/48)(c/h)²
-	SolidBlock            float64 // ε_sb = Λσ
-	WakeBlock             float64 // ε_wb = (c/4h)·C_du
-	Blockage              float64 // ε = ε_sb + ε_wb
-	VelocityFactor        float64 // V/V_u = 1 + ε (Re/Re_u the same)
-	DynamicPressureFactor float64 // q/q_u = 1 + 2ε
-	Alpha                 float64 // α = α_u + (57.3σ/2π)(C_lu + 4C_m¼u), degrees
-	CL, CD, CM            float64 // corrected coefficients
-	DeltaAlpha            float64 // α − α_u, degrees
-	ChordToHeight         float64 // c/h
+	Sigma      float64 // streamline curvature σ = (π²/48)(c/h)²
+	Beta       float64 // β = √(1 − Ma²), 1 in incompressible flow
+	SolidBlock float64 // ε_sb = Λσ/β³
+	WakeBlock  float64 // ε_wb = (c/4h)·C_du·(1 + 0.4Ma²)/β²
+	Blockage   float64 // ε = ε_sb + ε_wb
+	// VelocityFactor is V/V_u = 1 + ε; MachFactor Ma/Ma_u = 1 + (1 + 0.2Ma²)ε,
+	// ReynoldsFactor Re/Re_u = 1 + (1 − 0.7Ma²)ε (both γ = 1.4; all three
+	// equal 1 + ε at Ma = 0).
+	VelocityFactor, MachFactor, ReynoldsFactor float64
+	DynamicPressureFactor                      float64 // q/q_u = 1 + (2 − Ma²)ε
+	Alpha                                      float64 // α = α_u + (57.3σ/(2πβ))(C_lu + 4C_m¼u), degrees
+	CL, CD, CM                                 float64 // corrected coefficients
+	DeltaAlpha                                 float64 // α − α_u, degrees
+	ChordToHeight                              float64 // c/h
 }
 
 // CorrectWalls2D applies the classical closed-test-section corrections
 // for a two-dimensional airfoil test (solid and wake blockage,
 // streamline curvature), as the standard compendium of low-speed tunnel
 // testing gives them (Barlow, Rae and Pope, Low-Speed Wind Tunnel Testing,
-// 3rd ed., ch. 9; formulas quoted from memory):
+// 3rd ed., ch. 9; formulas quoted from memory), with β = √(1 − Ma²) at
+// the test section's Mach number:
 //
-//	C_l = C_lu(1 − σ − 2ε),  C_m¼ = C_m¼u(1 − 2ε) + σC_l/4,
-//	C_d = C_du(1 − 3ε_sb − 2ε_wb),  α = α_u + (57.3σ/2π)(C_lu + 4C_m¼u).
+//	ε_sb = Λσ/β³,  ε_wb = (c/4h)·C_du·(1 + 0.4Ma²)/β²,  ε = ε_sb + ε_wb,
+//	q = q_u[1 + (2 − Ma²)ε],
+//	C_l = C_lu[1 − σ/β² − (2 − Ma²)ε],  C_m¼ = C_m¼u[1 − (2 − Ma²)ε] + σC_l/(4β²),
+//	C_d = C_du[1 − (3 − Ma²)ε_sb − (2 − Ma²)ε_wb],  α = α_u + (57.3σ/(2πβ))(C_lu + 4C_m¼u).
 //
-// The corrections are small-perturbation results: a chord above about
-// 0.4 of the height is refused, since they no longer hold.
+// The blockage factors 1/β³ and (1 + 0.4Ma²)/β² and the curvature
+// factors are the Prandtl–Glauert-type results of linear compressible
+// theory that the compendium quotes (from memory). The dynamic-pressure,
+// Mach and Reynolds factors follow to first order in ε from the
+// isentropic relations (dρ/ρ = −Ma²·dV/V, dT/T = −0.4Ma²·dV/V for
+// γ = 1.4, μ ∝ T^0.75), q = ρV²/2 giving 1 + (2 − Ma²)ε; the drag keeps
+// the incompressible horizontal-buoyancy term ε_sb·C_du. At Ma = 0 all
+// reduce to the incompressible corrections.
+//
+// The corrections are small-perturbation results: a chord above 0.4 of
+// the height, a Mach number above MaxWallCorrectionMach, a blockage above
+// MaxBlockage, a coefficient beyond ±10 or an angle beyond ±90° are
+// refused.
 func CorrectWalls2D(s Section2D) (Corrected2D, error) {
-	m := func(r string) error { return &ExtrapolationError{Method: "2-D wall correction", Reason: r} }
+	const method = "2-D wall correction"
+	m := func(r string) error { return &ExtrapolationError{Method: method, Reason: r} }
 	if err := s.Chord.CheckNamed("chord", quantity.Length); err != nil {
 		return Corrected2D{}, err
 	}
@@ -56,28 +160,49 @@ func CorrectWalls2D(s Section2D) (Corrected2D, error) {
 		return Corrected2D{}, err
 	}
 	c, h := s.Chord.Value(), s.Height.Value()
-	if !(c > 0 && h > 0) || math.IsInf(c+h, 0) {
+	if !(c > 0 && h > 0) || math.IsInf(c, 0) || math.IsInf(h, 0) {
 		return Corrected2D{}, m("chord and height must be positive and finite")
 	}
-	if c/h > 0.4 {
-		return Corrected2D{}, m(fmt.Sprintf("c/h = %.3g: above 0.4 the classical corrections do not hold; use a smaller model or a wall-pressure method", c/h))
+	ch := c / h
+	if ch > 0.4 {
+		return Corrected2D{}, m(fmt.Sprintf("c/h = %.3g: above 0.4 the classical corrections do not hold; use a smaller model or a wall-pressure method", ch))
 	}
-	if !(s.ShapeFactor >= 0 && s.ShapeFactor < 2) || math.IsNaN(s.Alpha+s.CL+s.CD+s.CM) || math.IsInf(s.Alpha+s.CL+s.CD+s.CM, 0) {
+	if !(ch > 0) {
+		return Corrected2D{}, m(fmt.Sprintf("c/h = %g: a chord that small against the height is no model", ch))
+	}
+	if !(s.ShapeFactor >= 0 && s.ShapeFactor < 2) {
 		return Corrected2D{}, m("the shape factor must lie in 0 … 2 and the coefficients be finite")
 	}
+	if err := checkCoefficients(method, bound{"angle of attack (°)", s.Alpha, -maxAlphaDeg, maxAlphaDeg},
+		bound{"C_l", s.CL, -maxCoefficient, maxCoefficient}, bound{"C_d", s.CD, -maxCoefficient, maxCoefficient},
+		bound{"C_m¼", s.CM, -maxCoefficient, maxCoefficient}); err != nil {
+		return Corrected2D{}, err
+	}
+	beta, err := compressibility(method, s.Mach)
+	if err != nil {
+		return Corrected2D{}, err
+	}
+	m2, b2 := s.Mach*s.Mach, beta*beta
 	var r Corrected2D
-	r.ChordToHeight = c / h
-	r.Sigma = math.Pi * math.Pi / 48 * (c / h) * (c / h)
-	r.SolidBlock = s.ShapeFactor * r.Sigma
-	r.WakeBlock = c / (4 * h) * s.CD
+	r.ChordToHeight = ch
+	r.Beta = beta
+	r.Sigma = math.Pi * math.Pi / 48 * ch * ch
+	r.SolidBlock = s.ShapeFactor * r.Sigma / (b2 * beta)
+	r.WakeBlock = c / (4 * h) * s.CD * (1 + 0.4*m2) / b2
 	r.Blockage = r.SolidBlock + r.WakeBlock
+	if !(math.Abs(r.Blockage) <= MaxBlockage) {
+		return Corrected2D{}, &CorrectionRangeError{Method: method, What: "blockage ε", Value: r.Blockage, Lo: -MaxBlockage, Hi: MaxBlockage,
+			Reason: "beyond first-order corrections; use a smaller model or a wall-pressure method"}
+	}
 	r.VelocityFactor = 1 + r.Blockage
-	r.DynamicPressureFactor = 1 + 2*r.Blockage
-	r.DeltaAlpha = 57.3 * r.Sigma / (2 * math.Pi) * (s.CL + 4*s.CM)
+	r.MachFactor = 1 + (1+0.2*m2)*r.Blockage
+	r.ReynoldsFactor = 1 + (1-0.7*m2)*r.Blockage
+	r.DynamicPressureFactor = 1 + (2-m2)*r.Blockage
+	r.DeltaAlpha = 57.3 * r.Sigma / (2 * math.Pi * beta) * (s.CL + 4*s.CM)
 	r.Alpha = s.Alpha + r.DeltaAlpha
-	r.CL = s.CL * (1 - r.Sigma - 2*r.Blockage)
-	r.CM = s.CM*(1-2*r.Blockage) + r.Sigma*r.CL/4
-	r.CD = s.CD * (1 - 3*r.SolidBlock - 2*r.WakeBlock)
+	r.CL = s.CL * (1 - r.Sigma/b2 - (2-m2)*r.Blockage)
+	r.CM = s.CM*(1-(2-m2)*r.Blockage) + r.Sigma*r.CL/(4*b2)
+	r.CD = s.CD * (1 - (3-m2)*r.SolidBlock - (2-m2)*r.WakeBlock)
 	return r, nil
 }
 
@@ -113,15 +238,22 @@ type Model3D struct {
 	// angle, ∂C_m/∂α_t (from tail-on and tail-off runs); zero
 	// TailMomentSlope leaves the tail correction out.
 	TailCurvatureFactor, TailMomentSlope float64
+	// Mach is the test section's uncorrected Mach number, 0 …
+	// MaxWallCorrectionMach; 0 gives the incompressible corrections. In
+	// compressible flow τ₂ and τ₂,t are read from the charts at the
+	// streamwise distances divided by β = √(1 − Ma²); they are used as
+	// given.
+	Mach float64
 }
 
 // Corrected3D is a three-dimensional test corrected for the tunnel walls,
 // with every term.
 type Corrected3D struct {
-	SolidBlock            float64 // ε_sb = K·τ₁·V/C^(3/2)
-	WakeBlock             float64 // ε_wb = (S/4C)·C_Du
+	Beta                  float64 // β = √(1 − Ma²), 1 in incompressible flow
+	SolidBlock            float64 // ε_sb = K·τ₁·V/(C^(3/2)·β³)
+	WakeBlock             float64 // ε_wb = (S/4C)·C_Du·(1 + 0.4Ma²)/β²
 	Blockage              float64 // ε = ε_sb + ε_wb
-	DynamicPressureFactor float64 // q/q_u = (1 + ε)²
+	DynamicPressureFactor float64 // q/q_u = (1 + ε)²(1 − Ma²ε)
 	DeltaAlpha            float64 // 57.3·δ·(S/C)·C_L, degrees (upwash-free angle)
 	DeltaCD               float64 // δ·(S/C)·C_L², the induced-drag correction
 	// DeltaAlphaCurvature is the wing's streamline-curvature angle
@@ -146,6 +278,18 @@ type Corrected3D struct {
 // ΔC_D = δ·(S/C)·C_L² (Barlow, Rae and Pope, Low-Speed Wind Tunnel
 // Testing, 3rd ed., ch. 10; formulas quoted from memory).
 //
+// At a test-section Mach number Ma the blockages take the linear
+// compressible factors of the same compendium (from memory): ε_sb is
+// divided by β³ and ε_wb multiplied by (1 + 0.4Ma²)/β², β = √(1 − Ma²);
+// the dynamic pressure is q = q_u(1 + ε)²(1 − Ma²ε), the density falling
+// by Ma²ε as the velocity rises by ε (isentropic flow), which is the
+// first-order q_u[1 + (2 − Ma²)ε] and exactly the incompressible
+// (1 + ε)² at Ma = 0. The downwash factor δ is taken as independent of
+// the Mach number (the wall upwash at the wing is set by the trailing
+// vortices far downstream, which the Prandtl–Glauert stretch along the
+// stream leaves alone; from memory); the curvature factors are read at
+// stretched distances (see Model3D.Mach).
+//
 // With the factors given, it adds the streamline-curvature corrections
 // of the same compendium (quoted from memory): the walls' upwash grows
 // along the chord, so the wing meets a curved stream, which adds an angle
@@ -156,9 +300,12 @@ type Corrected3D struct {
 // its moment is corrected by −(∂C_m/∂α_t) times that angle. The factors
 // δ, τ₂ and τ₂,t are read from the compendium's charts for the section
 // and the model; the results are only as good as those readings. A model
-// whose reference area exceeds a fifth of the test section's is refused.
+// whose reference area exceeds a fifth of the test section's, a Mach
+// number above MaxWallCorrectionMach, a blockage above MaxBlockage, a
+// coefficient beyond ±10 or an angle beyond ±90° is refused.
 func CorrectWalls3D(m Model3D) (Corrected3D, error) {
-	e := func(r string) error { return &ExtrapolationError{Method: "3-D wall correction", Reason: r} }
+	const method = "3-D wall correction"
+	e := func(r string) error { return &ExtrapolationError{Method: method, Reason: r} }
 	for _, c := range []struct {
 		name string
 		q    quantity.Quantity
@@ -175,24 +322,41 @@ func CorrectWalls3D(m Model3D) (Corrected3D, error) {
 	if !(s > 0 && c > 0) {
 		return Corrected3D{}, e("the wing and tunnel areas must be positive")
 	}
-	if s/c > 0.2 {
-		return Corrected3D{}, e(fmt.Sprintf("S/C = %.3g: above 0.2 the classical corrections do not hold", s/c))
+	sc := s / c
+	if sc > 0.2 {
+		return Corrected3D{}, e(fmt.Sprintf("S/C = %.3g: above 0.2 the classical corrections do not hold; use a smaller model", sc))
+	}
+	if !(sc > 0) {
+		return Corrected3D{}, e(fmt.Sprintf("S/C = %g: a wing that small against the section is no model", sc))
 	}
 	if !(m.ShapeFactor >= 0 && m.ShapeFactor < 2) || !(m.Delta >= 0 && m.Delta < 1) || !(m.CurvatureFactor >= 0 && m.CurvatureFactor < 2) ||
 		!(m.TailCurvatureFactor >= 0 && m.TailCurvatureFactor < 2) {
 		return Corrected3D{}, e("the factors must lie in their ranges (K·τ₁ 0 … 2, δ 0 … 1, τ₂ 0 … 2)")
 	}
-	if sum := m.Alpha + m.CL + m.CD + m.CM + m.LiftSlope + m.TailMomentSlope; math.IsNaN(sum) || math.IsInf(sum, 0) {
-		return Corrected3D{}, e("the coefficients and slopes must be finite")
+	if err := checkCoefficients(method, bound{"angle of attack (°)", m.Alpha, -maxAlphaDeg, maxAlphaDeg},
+		bound{"C_L", m.CL, -maxCoefficient, maxCoefficient}, bound{"C_D", m.CD, -maxCoefficient, maxCoefficient},
+		bound{"C_m¼", m.CM, -maxCoefficient, maxCoefficient}, bound{"tail moment slope ∂C_m/∂α_t (per degree)", m.TailMomentSlope, -maxSlope, maxSlope},
+		bound{"lift slope dC_L/dα (per degree)", m.LiftSlope, -maxSlope, maxSlope}); err != nil {
+		return Corrected3D{}, err
 	}
 	if m.CurvatureFactor > 0 && !(m.LiftSlope > 0 && m.LiftSlope < 0.2) {
 		return Corrected3D{}, e(fmt.Sprintf("lift slope %v per degree: the curvature correction needs the wing's dC_L/dα, between 0 and 0.2 per degree", m.LiftSlope))
 	}
+	beta, err := compressibility(method, m.Mach)
+	if err != nil {
+		return Corrected3D{}, err
+	}
+	m2, b2 := m.Mach*m.Mach, beta*beta
 	var r Corrected3D
-	r.SolidBlock = m.ShapeFactor * v / math.Pow(c, 1.5)
-	r.WakeBlock = s / (4 * c) * m.CD
+	r.Beta = beta
+	r.SolidBlock = m.ShapeFactor * v / math.Pow(c, 1.5) / (b2 * beta)
+	r.WakeBlock = s / (4 * c) * m.CD * (1 + 0.4*m2) / b2
 	r.Blockage = r.SolidBlock + r.WakeBlock
-	r.DynamicPressureFactor = (1 + r.Blockage) * (1 + r.Blockage)
+	if !(math.Abs(r.Blockage) <= MaxBlockage) {
+		return Corrected3D{}, &CorrectionRangeError{Method: method, What: "blockage ε", Value: r.Blockage, Lo: -MaxBlockage, Hi: MaxBlockage,
+			Reason: "beyond first-order corrections; use a smaller model or a wall-pressure method"}
+	}
+	r.DynamicPressureFactor = (1 + r.Blockage) * (1 + r.Blockage) * (1 - m2*r.Blockage)
 	clq := m.CL / r.DynamicPressureFactor // on the corrected q
 	r.DeltaAlpha = 57.3 * m.Delta * s / c * clq
 	r.DeltaCD = m.Delta * s / c * clq * clq

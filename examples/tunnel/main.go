@@ -3,14 +3,19 @@
 // the Mach number held with the Reynolds number left to float in an
 // ordinary tunnel drawing atmospheric air (total conditions 288.15 K and
 // 101 325 Pa, the test section's static state from the isentropic
-// relations), then the total temperature and pressure a pressurised or a
-// cooled tunnel would need to hold both, the model's dynamic pressure and
-// lift in each against the balance limit, the cryogenic test section's
-// margin to nitrogen condensation, and the wall corrections of a
-// two-dimensional section test and of the complete model (blockage,
-// downwash, and the wing's and tail's streamline curvature).
+// relations), then the total temperature and pressure a pressurised air
+// tunnel or a cryogenic nitrogen tunnel would need to hold both, the
+// model's dynamic pressure and lift in each against the balance's rated
+// load, the cryogenic test section's margin to nitrogen condensation,
+// the wall corrections of a two-dimensional section test and of the
+// complete model at the test Mach number (blockage with its
+// compressibility factors, downwash, and the wing's and tail's
+// streamline curvature), and the safety cautions of each tunnel.
 //
-// The aircraft and the tunnels are invented for the demonstration.
+// The aircraft, the tunnels and the readings are invented for the
+// demonstration. Running a pressurised or cryogenic tunnel is governed by
+// the facility's safety rules and its responsible engineer; nothing
+// printed here replaces them.
 //
 // Usage:
 //
@@ -23,7 +28,10 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"slices"
+	"strings"
 
+	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/pigroups"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
@@ -31,13 +39,22 @@ import (
 )
 
 func main() {
-	if err := run(os.Stdout, os.Args[1:]); err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return // -h: the usage is printed
-		}
-		fmt.Fprintln(os.Stderr, "tunnel:", err)
-		os.Exit(2)
+	os.Exit(exitCode(run(os.Stdout, os.Args[1:]), os.Stderr))
+}
+
+// exitCode reports err on stderr and returns the exit status: 0 for none
+// or -h, 2 for a usage error, 1 for a plan that cannot be made.
+func exitCode(err error, stderr io.Writer) int {
+	switch {
+	case err == nil || errors.Is(err, flag.ErrHelp):
+		return 0
 	}
+	fmt.Fprintln(stderr, "tunnel:", err)
+	var ce *cli.Error
+	if errors.As(err, &ce) {
+		return 2
+	}
+	return 1
 }
 
 // Result collects the key numbers, for the test.
@@ -53,6 +70,9 @@ type Result struct {
 	Margin                 q.Quantity // the cryogenic test section's margin to nitrogen condensation
 	Section                similarity.Corrected2D
 	Model                  similarity.Corrected3D
+	// SectionErr and ModelErr are the corrections' refusals (above
+	// Ma 0.8, or a model too large for the section), printed instead.
+	SectionErr, ModelErr error
 }
 
 // Load is a model's dynamic pressure and lift in one tunnel.
@@ -62,27 +82,55 @@ type Load struct {
 }
 
 // Invented model data: the aircraft's wing area, the cruise lift
-// coefficient and the balance's normal-force limit.
+// coefficient and the balance's rated normal force.
 const (
 	wingArea     = 38.0   // m², full scale
 	cruiseCL     = 0.6    // lift coefficient C_L = L/(q·S)
 	balanceLimit = 4000.0 // N
 )
 
+const about = `Usage: go run ./examples/tunnel [flags]
+
+tunnel plans wind-tunnel tests of an invented high-altitude survey aircraft.
+
+For the cruise condition (ISO 2533 atmosphere at the altitude -alt, Mach
+number -mach, chord -chord) and a model -scale times smaller it prints:
+  - the flight state and full-scale Reynolds number Re = ρVc/μ;
+  - an ordinary tunnel at atmospheric intake with the Mach number held:
+    its static test-section state and the model Reynolds number it reaches;
+  - the total temperature T₀ and pressure p₀ a pressurised air tunnel and a
+    cryogenic nitrogen tunnel need to hold both Mach and Reynolds numbers
+    (limits are total conditions; static = total by the isentropic
+    relations), Re_m/Re (1 when both hold), and the gas each is computed for;
+  - the nitrogen test section's margin above condensation (kelvin);
+  - the model's dynamic pressure q = (γ/2)·p·Ma² and lift C_L·q·S_m in each
+    tunnel against the balance's rated load;
+  - wall corrections of a section test and of the complete model at the
+    test Mach number (ε = blockage; q/q_u and the corrected coefficients),
+    or why they are refused (above Ma 0.8 they are not applied);
+  - the safety cautions of each tunnel. The aircraft, tunnels and readings
+    are invented; the facility's safety rules and responsible engineer
+    govern any real run.
+
+Exit status 2 for a bad flag, 1 when the plan cannot be made.
+
+Flags:
+`
+
 func run(w io.Writer, args []string) error { _, err := evaluate(w, args); return err }
 
 func evaluate(w io.Writer, args []string) (*Result, error) {
 	fs := flag.NewFlagSet("tunnel", flag.ContinueOnError)
-	fs.SetOutput(w)
-	alt := fs.Float64("alt", 18000, "cruise altitude, m (geometric)")
-	mach := fs.Float64("mach", 0.62, "cruise Mach number")
-	chord := fs.Float64("chord", 2.4, "mean aerodynamic chord, m")
-	scale := fs.Float64("scale", 12, "aircraft size over model size")
-	if err := fs.Parse(args); err != nil {
-		return nil, err
+	alt := cli.FloatVar(fs, "alt", 18000, 0, 32000, "m", "cruise altitude, geometric")
+	mach := cli.FloatVar(fs, "mach", 0.62, 0.1, 0.95, "", "cruise Mach number (wall corrections are refused above 0.8)")
+	chord := cli.FloatVar(fs, "chord", 2.4, 0.1, 20, "m", "mean aerodynamic chord")
+	scale := cli.FloatVar(fs, "scale", 12, 2, 200, "", "aircraft size over model size")
+	fs.Usage = func() {
+		fmt.Fprint(fs.Output(), about)
+		fs.PrintDefaults()
 	}
-	if !(*scale > 1) || !(*mach > 0 && *mach < 1) || !(*chord > 0) {
-		return nil, fmt.Errorf("want -scale > 1, 0 < -mach < 1 and -chord > 0")
+	if err := cli.Parse(fs, w, args); err != nil {
+		return nil, err
 	}
 	flight, err := fluids.StandardAtmosphere(q.New(*alt, q.Length), fluids.Geometric)
 	if err != nil {
@@ -154,82 +202,119 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 
 	V := q.New(r.Speed, q.Velocity)
 	L := q.New(*chord, q.Length)
+	// The model's load path: the balance's rated normal force against
+	// C_L·S_m·q at each found condition.
+	area := wingArea / (*scale * *scale)
+	rated, loadArea := q.New(balanceLimit, q.Force), q.New(cruiseCL*area, q.Area)
 	pressurised := similarity.TunnelLimits{MinTemperature: q.New(280, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
-		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(4e5, q.Pressure)}
+		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(4e5, q.Pressure), RatedLoad: rated, LoadArea: loadArea}
 	cryo := similarity.TunnelLimits{MinTemperature: q.New(110, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
-		MinPressure: q.New(1e5, q.Pressure), MaxPressure: q.New(4.5e5, q.Pressure)}
-	if r.Pressurised, err = similarity.FindTunnelCondition(fluids.Air(), flight, V, L, 1 / *scale, pressurised); err != nil {
+		MinPressure: q.New(1e5, q.Pressure), MaxPressure: q.New(4.5e5, q.Pressure), RatedLoad: rated, LoadArea: loadArea}
+	air, n2 := fluids.Air(), fluids.Nitrogen()
+	if r.Pressurised, err = similarity.FindTunnelCondition(air, flight, V, L, 1 / *scale, pressurised); err != nil {
 		return nil, err
 	}
-	if r.Cryogenic, err = similarity.FindTunnelCondition(fluids.Air(), flight, V, L, 1 / *scale, cryo); err != nil {
+	if r.Cryogenic, err = similarity.FindTunnelCondition(n2, flight, V, L, 1 / *scale, cryo); err != nil {
 		return nil, err
 	}
 	fmt.Fprintln(w, "\nHolding both Mach and Reynolds numbers:")
-	for _, t := range []struct {
+	tunnels := []struct {
 		name string
+		gas  fluids.IdealGas
 		c    similarity.TunnelCondition
-	}{{"pressurised tunnel (total 280–320 K, ≤ 4 bar)", r.Pressurised}, {"cryogenic tunnel (total ≥ 110 K, 1–4.5 bar)", r.Cryogenic}} {
-		fmt.Fprintf(w, "  %s:\n    total T₀ = %.1f K, p₀ = %.3f bar; static T = %.1f K, p = %.3f bar; V = %.1f m/s; Re_m/Re = %.3f — %s\n", t.name,
+	}{{"pressurised tunnel (total 280–320 K, ≤ 4 bar)", air, r.Pressurised}, {"cryogenic tunnel (total ≥ 110 K, 1–4.5 bar)", n2, r.Cryogenic}}
+	for _, t := range tunnels {
+		fmt.Fprintf(w, "  %s, gas: %s (ideal gas, R = %.2f J/(kg·K), γ = %.1f, Sutherland viscosity):\n", t.name, t.c.Gas, t.gas.R, t.gas.Gamma)
+		fmt.Fprintf(w, "    total T₀ = %.1f K, p₀ = %.3f bar; static T = %.1f K, p = %.3f bar; V = %.1f m/s; Re_m/Re = %.3f — %s (set by: %s)\n",
 			t.c.Total.Temperature.Value(), t.c.Total.Pressure.Value()/1e5,
-			t.c.Temperature.Value(), t.c.Pressure.Value()/1e5, t.c.Velocity.Value(), t.c.ReynoldsRatio, t.c.Note)
+			t.c.Temperature.Value(), t.c.Pressure.Value()/1e5, t.c.Velocity.Value(), t.c.ReynoldsRatio, t.c.Note, strings.Join(t.c.Binding, ", "))
 	}
 	fmt.Fprintln(w, "  (limits are total conditions; static = total by the isentropic relations of a perfect gas, γ = 1.4)")
 	if r.Margin, err = fluids.CondensationMargin(r.Cryogenic.Temperature, r.Cryogenic.Pressure); err != nil {
 		return nil, err
 	}
-	fmt.Fprintf(w, "  condensation: a cryogenic tunnel runs in nitrogen; at the static %.1f K and %.3f bar it stays %.0f K above saturation (Span et al.)\n",
+	fmt.Fprintf(w, "  condensation: the cryogenic tunnel runs in nitrogen; at the static %.1f K and %.3f bar it stays %.0f K above saturation (Span et al.)\n",
 		r.Cryogenic.Temperature.Value(), r.Cryogenic.Pressure.Value()/1e5, r.Margin.Value())
 
 	// Loads on the model: q = (γ/2)·p·Ma² at each test section's static
 	// pressure, times C_L and the model's wing area.
-	area := wingArea / (*scale * *scale)
-	fmt.Fprintf(w, "\nModel loads at C_L = %.1f (wing %.0f m² full scale, %.4f m² model; balance normal-force limit %.1f kN, invented):\n",
+	fmt.Fprintf(w, "\nModel loads at C_L = %.1f (wing %.0f m² full scale, %.4f m² model; balance rated normal force %.1f kN, invented):\n",
 		cruiseCL, wingArea, area, balanceLimit/1e3)
 	r.Loads = nil
 	for _, t := range []struct {
 		name string
+		gas  fluids.IdealGas
 		p    q.Quantity
-	}{{"ordinary tunnel", ground.Pressure}, {"pressurised tunnel", r.Pressurised.Pressure}, {"cryogenic tunnel", r.Cryogenic.Pressure}} {
-		dq, err := fluids.Air().DynamicPressure(t.p, *mach)
+	}{{"ordinary tunnel", air, ground.Pressure}, {"pressurised tunnel", air, r.Pressurised.Pressure}, {"cryogenic tunnel", n2, r.Cryogenic.Pressure}} {
+		dq, err := t.gas.DynamicPressure(t.p, *mach)
 		if err != nil {
 			return nil, err
 		}
 		lift := cruiseCL * dq.Value() * area
-		verdict := "within the balance limit"
+		verdict := fmt.Sprintf("%.0f %% of the balance's rating", 100*lift/balanceLimit)
 		if lift > balanceLimit {
-			verdict = fmt.Sprintf("EXCEEDS the balance limit by %.0f %%", 100*(lift/balanceLimit-1))
+			verdict = fmt.Sprintf("EXCEEDS the balance's rating by %.0f %%: do not run", 100*(lift/balanceLimit-1))
 		}
 		r.Loads = append(r.Loads, Load{Name: t.name, Q: dq.Value(), Lift: lift})
 		fmt.Fprintf(w, "  %-20s q = %6.2f kPa, lift = %5.2f kN — %s\n", t.name+":", dq.Value()/1e3, lift/1e3, verdict)
 	}
-	// A two-dimensional test of the wing's section (invented readings).
+	// A two-dimensional test of the wing's section at the test Mach
+	// number (invented readings).
 	sec := similarity.Section2D{Chord: q.New(0.30, q.Length), Height: q.New(0.90, q.Length), ShapeFactor: 0.25,
-		Alpha: 6, CL: 0.82, CD: 0.0125, CM: -0.080}
-	if r.Section, err = similarity.CorrectWalls2D(sec); err != nil {
-		return nil, err
+		Alpha: 6, CL: 0.82, CD: 0.0125, CM: -0.080, Mach: *mach}
+	fmt.Fprintf(w, "\nSection test at Ma %.2f, chord 0.30 m wall to wall in a 0.90 m high closed test section (invented readings), wall corrections:\n", *mach)
+	if r.Section, r.SectionErr = similarity.CorrectWalls2D(sec); r.SectionErr != nil {
+		fmt.Fprintf(w, "  not applied: %v\n", r.SectionErr)
+	} else {
+		cs := r.Section
+		fmt.Fprintf(w, "  σ = %.5f, β = √(1 − Ma²) = %.4f; ε_sb = Λσ/β³ = %.5f (Λ = %.2f), ε_wb = %.5f (×(1 + 0.4Ma²)/β²)\n",
+			cs.Sigma, cs.Beta, cs.SolidBlock, sec.ShapeFactor, cs.WakeBlock)
+		fmt.Fprintf(w, "  q = %.4f·q_u (1 + (2 − Ma²)ε), V = %.4f·V_u, Ma = %.4f·Ma_u, Re = %.4f·Re_u\n",
+			cs.DynamicPressureFactor, cs.VelocityFactor, cs.MachFactor, cs.ReynoldsFactor)
+		fmt.Fprintf(w, "  α %.2f° → %.3f°, C_l %.4f → %.4f, C_d %.5f → %.5f, C_m¼ %.4f → %.4f\n",
+			sec.Alpha, cs.Alpha, sec.CL, cs.CL, sec.CD, cs.CD, sec.CM, cs.CM)
 	}
-	cs := r.Section
-	fmt.Fprintf(w, "\nSection test, chord 0.30 m wall to wall in a 0.90 m high closed test section (invented readings), wall corrections:\n")
-	fmt.Fprintf(w, "  σ = %.5f, ε_sb = %.5f (Λ = %.2f), ε_wb = %.5f; q = %.4f·q_u, V and Re = %.4f × uncorrected\n",
-		cs.Sigma, cs.SolidBlock, sec.ShapeFactor, cs.WakeBlock, cs.DynamicPressureFactor, cs.VelocityFactor)
-	fmt.Fprintf(w, "  α %.2f° → %.3f°, C_l %.4f → %.4f, C_d %.5f → %.5f, C_m¼ %.4f → %.4f\n",
-		sec.Alpha, cs.Alpha, sec.CL, cs.CL, sec.CD, cs.CD, sec.CM, cs.CM)
 	// The complete model in the ordinary tunnel's closed 2.0 × 1.5 m
-	// section (invented readings and chart factors).
-	m3 := similarity.Model3D{WingArea: q.New(area, q.Area), TunnelArea: q.New(3.0, q.Area), ModelVolume: q.New(0.010, q.Volume),
+	// section (invented readings and chart factors); its volume is
+	// 0.010 m³ at 1:12 and scales with the cube of the model's size.
+	vol := 0.010 * (12 / *scale) * (12 / *scale) * (12 / *scale)
+	m3 := similarity.Model3D{WingArea: q.New(area, q.Area), TunnelArea: q.New(3.0, q.Area), ModelVolume: q.New(vol, q.Volume),
 		ShapeFactor: 0.86, Delta: 0.12, Alpha: 3.0, CL: cruiseCL, CD: 0.035, CM: -0.030,
-		CurvatureFactor: 0.12, LiftSlope: 0.085, TailCurvatureFactor: 0.55, TailMomentSlope: -0.025}
-	if r.Model, err = similarity.CorrectWalls3D(m3); err != nil {
-		return nil, err
+		CurvatureFactor: 0.12, LiftSlope: 0.085, TailCurvatureFactor: 0.55, TailMomentSlope: -0.025, Mach: *mach}
+	fmt.Fprintf(w, "\nComplete model at Ma %.2f in a closed 2.0 × 1.5 m section (invented readings; K·τ₁ = %.2f, δ = %.2f, τ₂ read from the charts):\n",
+		*mach, m3.ShapeFactor, m3.Delta)
+	if r.Model, r.ModelErr = similarity.CorrectWalls3D(m3); r.ModelErr != nil {
+		fmt.Fprintf(w, "  not applied: %v\n", r.ModelErr)
+	} else {
+		c3 := r.Model
+		fmt.Fprintf(w, "  ε_sb = %.5f, ε_wb = %.5f (β = %.4f); q = %.4f·q_u; α %.2f° → %.3f°, C_L %.4f → %.4f, C_D %.5f → %.5f (ΔC_D,i = %.5f)\n",
+			c3.SolidBlock, c3.WakeBlock, c3.Beta, c3.DynamicPressureFactor, m3.Alpha, c3.Alpha, m3.CL, c3.CL, m3.CD, c3.CD, c3.DeltaCD)
+		fmt.Fprintf(w, "  of which streamline curvature (τ₂ = %.2f, a = %.3f/°): Δα_sc = %.4f°, ΔC_L = %.5f, ΔC_m¼ = %.5f;\n",
+			m3.CurvatureFactor, m3.LiftSlope, c3.DeltaAlphaCurvature, c3.DeltaCLCurvature, c3.DeltaCMCurvature)
+		fmt.Fprintf(w, "  tail (τ₂,t = %.2f, ∂C_m/∂α_t = %.3f/°): %.4f° more angle than free air, ΔC_m = %.5f; C_m¼ %.4f → %.4f\n",
+			m3.TailCurvatureFactor, m3.TailMomentSlope, c3.TailAngle, c3.DeltaCMTail, m3.CM, c3.CM)
 	}
-	c3 := r.Model
-	fmt.Fprintf(w, "\nComplete model in a closed 2.0 × 1.5 m section (invented readings; K·τ₁ = %.2f, δ = %.2f from the charts):\n", m3.ShapeFactor, m3.Delta)
-	fmt.Fprintf(w, "  ε_sb = %.5f, ε_wb = %.5f; q = %.4f·q_u; α %.2f° → %.3f°, C_L %.4f → %.4f, C_D %.5f → %.5f (ΔC_D,i = %.5f)\n",
-		c3.SolidBlock, c3.WakeBlock, c3.DynamicPressureFactor, m3.Alpha, c3.Alpha, m3.CL, c3.CL, m3.CD, c3.CD, c3.DeltaCD)
-	fmt.Fprintf(w, "  of which streamline curvature (τ₂ = %.2f, a = %.3f/°): Δα_sc = %.4f°, ΔC_L = %.5f, ΔC_m¼ = %.5f;\n",
-		m3.CurvatureFactor, m3.LiftSlope, c3.DeltaAlphaCurvature, c3.DeltaCLCurvature, c3.DeltaCMCurvature)
-	fmt.Fprintf(w, "  tail (τ₂,t = %.2f, ∂C_m/∂α_t = %.3f/°): %.4f° more angle than free air, ΔC_m = %.5f; C_m¼ %.4f → %.4f\n",
-		m3.TailCurvatureFactor, m3.TailMomentSlope, c3.TailAngle, c3.DeltaCMTail, m3.CM, c3.CM)
-	fmt.Fprintln(w, "\nCAUTION:", similarity.TunnelCaution)
+	fmt.Fprintln(w, "\nSAFETY (each tunnel's cautions; the facility's safety rules and its responsible engineer govern every run):")
+	var seen []string
+	for _, t := range tunnels {
+		fmt.Fprintf(w, "  %s:\n", t.name)
+		for _, c := range t.c.Cautions {
+			if slices.Contains(seen, c) {
+				fmt.Fprintln(w, "    - (as above)", firstWords(c))
+				continue
+			}
+			seen = append(seen, c)
+			fmt.Fprintln(w, "    -", c)
+		}
+	}
 	return r, nil
+}
+
+// firstWords returns the start of a caution already printed in full.
+func firstWords(s string) string {
+	r := []rune(s)
+	if len(r) > 60 {
+		return string(r[:60]) + "…"
+	}
+	return s
 }

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"flag"
+	"io"
 	"math"
 	"strings"
 	"testing"
@@ -80,6 +81,14 @@ func TestHelp(t *testing.T) {
 	if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), "Usage") {
 		t.Errorf("-h: %v, %q", err, out.String())
 	}
+	// It says what the program does and what its output means, and
+	// lists every flag with its range.
+	for _, want := range []string{"plans wind-tunnel tests", "invented", "Re_m/Re (1 when both hold)", "ε = blockage", "safety cautions",
+		"Exit status 2", "-alt", "-mach", "-chord", "-scale", "0.1 … 0.95"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("-h lacks %q", want)
+		}
+	}
 }
 
 // TestLoadsByHand: q = (γ/2)·p·Ma² with γ = 1.4 at each test section's
@@ -100,7 +109,7 @@ func TestLoadsByHand(t *testing.T) {
 			t.Errorf("%s: q = %v, lift = %v; by hand %v, %v", l.Name, l.Q, l.Lift, qd, lift)
 		}
 	}
-	if !(r.Loads[1].Lift > 4000 && r.Loads[0].Lift < 4000 && r.Loads[2].Lift < 4000) || !strings.Contains(out.String(), "EXCEEDS the balance limit") {
+	if !(r.Loads[1].Lift > 4000 && r.Loads[0].Lift < 4000 && r.Loads[2].Lift < 4000) || !strings.Contains(out.String(), "EXCEEDS the balance's rating") {
 		t.Errorf("loads %+v", r.Loads)
 	}
 }
@@ -121,22 +130,30 @@ func TestCondensationMargin(t *testing.T) {
 	}
 }
 
-// TestSectionByHand: σ = (π²/48)(0.3/0.9)², ε_sb = 0.25σ,
-// ε_wb = (0.3/(4·0.9))·0.0125, C_l = 0.82(1 − σ − 2ε).
+// TestSectionByHand: at the default Ma = 0.62, β² = 1 − 0.62² (the
+// compressibility factors of the classical corrections, from memory);
+// σ = (π²/48)(0.3/0.9)², ε_sb = 0.25σ/β³,
+// ε_wb = (0.3/(4·0.9))·0.0125·(1 + 0.4·0.62²)/β², ε = ε_sb + ε_wb,
+// C_l = 0.82[1 − σ/β² − (2 − 0.62²)ε], q/q_u = 1 + (2 − 0.62²)ε.
 func TestSectionByHand(t *testing.T) {
 	r, err := evaluate(&bytes.Buffer{}, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
+	m2 := 0.62 * 0.62
+	b2 := 1 - m2
 	sig := math.Pi * math.Pi / 48 / 9
-	e := 0.25*sig + 0.3/3.6*0.0125
-	if math.Abs(r.Section.CL-0.82*(1-sig-2*e)) > 1e-15 || math.Abs(r.Section.Sigma-sig) > 1e-15 {
+	esb := 0.25 * sig / (b2 * math.Sqrt(b2))
+	e := esb + 0.3/3.6*0.0125*(1+0.4*m2)/b2
+	if math.Abs(r.Section.CL-0.82*(1-sig/b2-(2-m2)*e)) > 1e-15 || math.Abs(r.Section.Sigma-sig) > 1e-15 ||
+		math.Abs(r.Section.SolidBlock-esb) > 1e-15 || math.Abs(r.Section.DynamicPressureFactor-(1+(2-m2)*e)) > 1e-15 {
 		t.Errorf("section %+v", r.Section)
 	}
 }
 
-// TestModelCorrectionsByHand: ε_sb = 0.86·0.010/3^1.5, ε_wb =
-// S_m/(4·3)·0.035, C_L on the corrected q = 0.6/(1 + ε)²,
+// TestModelCorrectionsByHand: at Ma = 0.62, β² = 1 − 0.62²:
+// ε_sb = 0.86·0.010/(3^1.5·β³), ε_wb = S_m/(4·3)·0.035·(1 + 0.4·0.62²)/β²,
+// q/q_u = (1 + ε)²(1 − 0.62²ε), C_L on the corrected q = 0.6/(q/q_u),
 // Δα = 57.3·0.12·(S_m/3)·C_L; streamline curvature τ₂ = 0.12:
 // Δα_sc = 0.12·Δα, ΔC_L = −0.085·Δα_sc, ΔC_m¼ = −0.25·ΔC_L; the tail
 // (τ₂,t = 0.55) meets 0.55·Δα more, ΔC_m,t = 0.025·0.55·Δα.
@@ -145,14 +162,121 @@ func TestModelCorrectionsByHand(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	m2 := 0.62 * 0.62
+	b2 := 1 - m2
 	sm := 38.0 / 144
-	eps := 0.86*0.010/math.Pow(3, 1.5) + sm/12*0.035
-	f := (1 + eps) * (1 + eps)
+	eps := 0.86*0.010/math.Pow(3, 1.5)/(b2*math.Sqrt(b2)) + sm/12*0.035*(1+0.4*m2)/b2
+	f := (1 + eps) * (1 + eps) * (1 - m2*eps)
 	clq := 0.6 / f
 	da := 57.3 * 0.12 * sm / 3 * clq
 	dcl := -0.085 * 0.12 * da
 	cm := -0.030/f - 0.25*dcl + 0.025*0.55*da
-	if math.Abs(r.Model.CL-(clq+dcl)) > 1e-15 || math.Abs(r.Model.Alpha-(3+da*1.12)) > 1e-13 || math.Abs(r.Model.CM-cm) > 1e-15 {
+	if math.Abs(r.Model.CL-(clq+dcl)) > 1e-14 || math.Abs(r.Model.Alpha-(3+da*1.12)) > 1e-13 || math.Abs(r.Model.CM-cm) > 1e-14 {
 		t.Errorf("model %+v; by hand C_L %v, α %v, C_m %v", r.Model, clq+dcl, 3+da*1.12, cm)
 	}
+}
+
+// TestCorrectionsFollowMach: the printed blockage changes with the Mach
+// number as 1/β³ (the example used to print the same corrections at
+// Ma 0.62 and 0.85), and at 0.85, above 0.8, the corrections are
+// refused and say so instead of printing numbers.
+func TestCorrectionsFollowMach(t *testing.T) {
+	at := func(ma string) (*Result, string) {
+		var out bytes.Buffer
+		r, err := evaluate(&out, []string{"-mach", ma})
+		if err != nil {
+			t.Fatal(err)
+		}
+		return r, out.String()
+	}
+	r5, _ := at("0.5")
+	r7, _ := at("0.7")
+	b5, b7 := math.Sqrt(1-0.25), math.Sqrt(1-0.49)
+	if want := math.Pow(b5/b7, 3); math.Abs(r7.Section.SolidBlock/r5.Section.SolidBlock-want) > 1e-12 {
+		t.Errorf("ε_sb(0.7)/ε_sb(0.5) = %v, by hand (β₀.₅/β₀.₇)³ = %v", r7.Section.SolidBlock/r5.Section.SolidBlock, want)
+	}
+	r85, out := at("0.85")
+	if r85.SectionErr == nil || r85.ModelErr == nil || strings.Count(out, "not applied") != 2 || !strings.Contains(out, "0 … 0.8") {
+		t.Errorf("at Ma 0.85: %v, %v\n%s", r85.SectionErr, r85.ModelErr, out)
+	}
+}
+
+// TestCryogenicIsNitrogen: the tunnel described as nitrogen is computed
+// for nitrogen and says so; by hand with nitrogen's constants
+// (R = 8.314462618/0.0280134 J/(kg·K), Sutherland μ₀ = 1.663e-5 Pa·s at
+// 273 K, S = 107 K), ρ = p/(RT), V = 0.62·√(1.4RT) and
+// Re_m = ρV(2.4/12)/μ equals the flight Reynolds number.
+func TestCryogenicIsNitrogen(t *testing.T) {
+	var out bytes.Buffer
+	r, err := evaluate(&out, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	c := r.Cryogenic
+	if c.Gas != "nitrogen" || !strings.Contains(out.String(), "gas: nitrogen") || !strings.Contains(out.String(), "gas: air") {
+		t.Errorf("gas %q; output:\n%s", c.Gas, out.String())
+	}
+	R := 8.314462618 / 0.0280134
+	T, p := c.Temperature.Value(), c.Pressure.Value()
+	mu := 1.663e-5 * math.Pow(T/273, 1.5) * (273 + 107) / (T + 107)
+	V := 0.62 * math.Sqrt(1.4*R*T)
+	if re := p / (R * T) * V * 0.2 / mu; math.Abs(re/r.ReFlight-1) > 1e-6 || math.Abs(c.Velocity.Value()/V-1) > 1e-12 {
+		t.Errorf("Re_m by hand %v, flight %v; V %v by hand %v", re, r.ReFlight, c.Velocity, V)
+	}
+}
+
+// TestSafetyPrinted: the nitrogen tunnel's asphyxiation and cold-burn
+// cautions, the overload of the balance in the pressurised tunnel and
+// the deferral to the facility's safety rules and responsible engineer
+// are printed.
+func TestSafetyPrinted(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, nil); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"asphyxiation", "cold burns", "OVERLOAD", "pressure-equipment code", "safety rules", "responsible engineer"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+}
+
+// TestFlagErrors: every numeric flag refuses NaN, ±Inf, text and values
+// outside its range with the flag named, and the program exits 2.
+func TestFlagErrors(t *testing.T) {
+	for _, f := range []string{"alt", "mach", "chord", "scale"} {
+		for _, v := range []string{"NaN", "Inf", "-Inf", "x", "1e400", "-1e9", "1e9"} {
+			err := run(io.Discard, []string{"-" + f, v})
+			if err == nil || !strings.Contains(err.Error(), "-"+f) {
+				t.Errorf("-%s %s: %v", f, v, err)
+				continue
+			}
+			if code := exitCode(err, io.Discard); code != 2 {
+				t.Errorf("-%s %s: exit %d, want 2", f, v, code)
+			}
+		}
+	}
+	if code := exitCode(run(io.Discard, []string{"-h"}), io.Discard); code != 0 {
+		t.Errorf("-h: exit %d", code)
+	}
+}
+
+// FuzzFlags: any value of any flag ends in a plan or an error, never a
+// panic, and a plan prints no NaN or Inf.
+func FuzzFlags(f *testing.F) {
+	f.Add(uint8(0), "18000")
+	f.Add(uint8(1), "0.8")
+	f.Add(uint8(2), "1e-300")
+	f.Add(uint8(3), "\x1b[2J")
+	names := []string{"-alt", "-mach", "-chord", "-scale", "-h", "-bogus"}
+	f.Fuzz(func(t *testing.T, which uint8, v string) {
+		var out bytes.Buffer
+		err := run(&out, []string{names[int(which)%len(names)], v})
+		if code := exitCode(err, io.Discard); err != nil && code == 0 && !errors.Is(err, flag.ErrHelp) {
+			t.Errorf("error %v with exit 0", err)
+		}
+		if err == nil && (strings.Contains(out.String(), "NaN") || strings.Contains(out.String(), "Inf")) {
+			t.Errorf("non-finite number printed:\n%s", out.String())
+		}
+	})
 }

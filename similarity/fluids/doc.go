@@ -17,7 +17,17 @@
 // water) to 0.01 % over 0 … 40 °C, and viscosities to 0.5 %; the
 // formulations themselves are not the IAPWS ones.
 //
+// Gases: air and nitrogen are ideal gases with Sutherland's viscosity law,
+// each with a stated temperature range (IdealGas.MinTemperature,
+// MaxTemperature); nitrogen is checked against its saturation curve (Span
+// et al., 2000), so a state at or below the condensation temperature at
+// its pressure, below the triple point, or above the range, is a
+// *RangeError rather than a density (IdealGas.LowestTemperature).
+//
 // Values are estimates for planning and data reduction. Where a result
 // feeds the design of hulls, hydraulic structures or pressure vessels,
-// use the properties the applicable code prescribes.
+// use the properties the applicable code prescribes. A cryogenic
+// nitrogen tunnel is a pressure vessel full of an asphyxiant at
+// cold-burn temperatures: its operation is governed by the facility's
+// safety rules and its responsible engineer, not by these figures.
 package fluids

@@ -215,6 +215,13 @@ func (w Water) AtCelsius(t float64) (State, error) {
 
 // IdealGas is a gas with ρ = p/(R·T), Sutherland's viscosity law
 // μ = β·T^(3/2)/(T + S) and speed of sound a = √(γ·R·T).
+//
+// The model holds only for a gas: At and Viscosity refuse, with a
+// *RangeError, a temperature below MinTemperature or above
+// MaxTemperature, and At refuses a state at or below the condensation
+// temperature the gas's saturation curve gives at its pressure (see
+// LowestTemperature). A zero bound, or NoSaturation, is not checked: a
+// caller's own gas states its own range.
 type IdealGas struct {
 	GasName string
 	R       float64 // specific gas constant, J/(kg·K)
@@ -225,20 +232,63 @@ type IdealGas struct {
 	// conductivity, k = KRef·(T/KTemp)^(3/2)·(KTemp + KS)/(T + KS), in
 	// W/(m·K), K and K; zero when not modelled.
 	KRef, KTemp, KS float64
+	// MinTemperature and MaxTemperature (K) bound the temperatures at
+	// which the constants are stated; zero leaves a bound unchecked.
+	MinTemperature, MaxTemperature float64
+	// Saturation is the gas's vapour-pressure curve, checked by At.
+	Saturation SaturationCurve
+}
+
+// SaturationCurve names the vapour-pressure curve of a gas that can
+// condense at the temperatures of a test.
+type SaturationCurve uint8
+
+// Saturation curves.
+const (
+	// NoSaturation: no curve is modelled; MinTemperature alone bounds
+	// the gas from below.
+	NoSaturation SaturationCurve = iota
+	// NitrogenSaturation is nitrogen's curve (NitrogenSaturationPressure)
+	// from the triple point to the critical point.
+	NitrogenSaturation
+)
+
+// String names the curve.
+func (c SaturationCurve) String() string {
+	switch c {
+	case NoSaturation:
+		return "none"
+	case NitrogenSaturation:
+		return "nitrogen (Span et al., 2000)"
+	}
+	return fmt.Sprintf("SaturationCurve(%d)", uint8(c))
 }
 
 // Air returns dry air with the constants of ISO 2533:1975: R = 287.052 87
 // J/(kg·K), γ = 1.4, β = 1.458 × 10⁻⁶ kg/(m·s·K^(1/2)), S = 110.4 K. It
 // is a function, so no caller can change the air (or the standard
 // atmosphere) for another.
+//
+// Its range is 132.6 … 600 K. Air is a mixture with no single saturation
+// curve; 132.6 K is its maxcondentherm, the highest temperature at which
+// it can condense at any pressure (Lemmon, Jacobsen, Penoncello and
+// Friend, J. Phys. Chem. Ref. Data 29 (2000) 331, quoted from memory), so
+// above it no state is liquid, and below it the dew point, which depends
+// on the pressure, is not modelled. Above 600 K the constant γ = 1.4 no
+// longer holds: c_p of air rises from 1.007 kJ/(kg·K) at 300 K to
+// 1.051 at 600 K (Incropera and DeWitt, Table A.4, from memory), γ
+// falls to about 1.376, and the speed of sound is about 1 % high.
 func Air() IdealGas { return isoAir }
 
-var isoAir = IdealGas{GasName: "air", R: 287.05287, Gamma: 1.4, Beta: 1.458e-6, S: 110.4, KRef: 0.0241, KTemp: 273, KS: 194}
+var isoAir = IdealGas{GasName: "air", R: 287.05287, Gamma: 1.4, Beta: 1.458e-6, S: 110.4, KRef: 0.0241, KTemp: 273, KS: 194,
+	MinTemperature: 132.6, MaxTemperature: 600}
 
 // Name implements Fluid.
 func (g IdealGas) Name() string { return g.GasName }
 
-// At implements Fluid.
+// At implements Fluid. A state outside the gas's temperature range, or
+// at or below its condensation temperature at p (LowestTemperature), is
+// a *RangeError: no density is given for a liquid or a solid.
 func (g IdealGas) At(T, p quantity.Quantity) (State, error) {
 	if err := check(T, p); err != nil {
 		return State{}, err
@@ -247,7 +297,72 @@ func (g IdealGas) At(T, p quantity.Quantity) (State, error) {
 	if err := g.check(); err != nil {
 		return State{}, err
 	}
-	return finiteState(g.GasName, state(t, pr, pr/(g.R*t), g.Viscosity(t), math.Sqrt(g.Gamma*g.R*t)))
+	if err := g.inRange(t); err != nil {
+		return State{}, err
+	}
+	if lo := g.condensation(pr); g.Saturation != NoSaturation && !(t > lo) {
+		return State{}, &RangeError{Fluid: g.GasName, What: fmt.Sprintf("temperature (K) at %.6g Pa: at or below the condensation temperature (%s) — not a gas", pr, g.Saturation),
+			Value: t, Lo: lo, Hi: g.hi()}
+	}
+	mu, err := g.Viscosity(t)
+	if err != nil {
+		return State{}, err
+	}
+	return finiteState(g.GasName, state(t, pr, pr/(g.R*t), mu, math.Sqrt(g.Gamma*g.R*t)))
+}
+
+// LowestTemperature returns the lowest temperature at which the gas is
+// a gas at pressure p in this model, the larger of MinTemperature and
+// the condensation temperature at p: for nitrogen the saturation
+// temperature between the triple-point and the critical pressures, the
+// triple-point temperature below (where the solid forms) and the
+// critical temperature above (a dense fluid that an ideal gas does not
+// describe). At refuses a temperature at or below it.
+func (g IdealGas) LowestTemperature(p quantity.Quantity) (quantity.Quantity, error) {
+	if err := p.CheckNamed("pressure", quantity.Pressure); err != nil {
+		return quantity.Quantity{}, err
+	}
+	if pr := p.Value(); !(pr > 0) || math.IsInf(pr, 0) {
+		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "absolute pressure (Pa)", Value: pr, Lo: 0, Hi: math.Inf(1)}
+	}
+	if err := g.check(); err != nil {
+		return quantity.Quantity{}, err
+	}
+	return quantity.New(g.condensation(p.Value()), quantity.Temperature), nil
+}
+
+// condensation is LowestTemperature for a checked gas and pressure.
+func (g IdealGas) condensation(p float64) float64 {
+	t := g.MinTemperature
+	if g.Saturation == NitrogenSaturation {
+		var ts float64
+		switch {
+		case p < n2SatP(n2Tt):
+			ts = n2Tt
+		case p > n2Pc:
+			ts = n2Tc
+		default:
+			ts = n2SatT(p)
+		}
+		t = max(t, ts)
+	}
+	return t
+}
+
+// hi is the upper temperature bound, +Inf when not stated.
+func (g IdealGas) hi() float64 {
+	if g.MaxTemperature > 0 {
+		return g.MaxTemperature
+	}
+	return math.Inf(1)
+}
+
+// inRange refuses a temperature outside the gas's stated range.
+func (g IdealGas) inRange(t float64) error {
+	if !(t > 0) || math.IsInf(t, 0) || t < g.MinTemperature || t > g.hi() {
+		return &RangeError{Fluid: g.GasName, What: "temperature (K) for the gas's constants", Value: t, Lo: g.MinTemperature, Hi: g.hi()}
+	}
+	return nil
 }
 
 // check refuses constants that give no physical gas.
@@ -264,11 +379,36 @@ func (g IdealGas) check() error {
 	if !(g.S >= 0) || math.IsInf(g.S, 0) {
 		return &RangeError{Fluid: g.GasName, What: "Sutherland's temperature S (K)", Value: g.S, Lo: 0, Hi: math.Inf(1)}
 	}
+	if !(g.MinTemperature >= 0) || math.IsInf(g.MinTemperature, 0) {
+		return &RangeError{Fluid: g.GasName, What: "lowest temperature of the constants (K)", Value: g.MinTemperature, Lo: 0, Hi: math.Inf(1)}
+	}
+	if !(g.MaxTemperature >= 0) || math.IsInf(g.MaxTemperature, 0) || (g.MaxTemperature > 0 && g.MaxTemperature <= g.MinTemperature) {
+		return &RangeError{Fluid: g.GasName, What: "highest temperature of the constants (K)", Value: g.MaxTemperature, Lo: g.MinTemperature, Hi: math.Inf(1)}
+	}
+	if g.Saturation > NitrogenSaturation {
+		return &RangeError{Fluid: g.GasName, What: "saturation curve", Value: float64(g.Saturation), Lo: 0, Hi: float64(NitrogenSaturation)}
+	}
 	return nil
 }
 
-// Viscosity returns Sutherland's μ(T) in Pa·s for T in K.
-func (g IdealGas) Viscosity(T float64) float64 { return g.Beta * T * math.Sqrt(T) / (T + g.S) }
+// Viscosity returns Sutherland's μ(T) in Pa·s for T in K. A temperature
+// outside the gas's range (MinTemperature … MaxTemperature), not
+// positive and finite, or constants that give no finite viscosity, is a
+// *RangeError. It does not know the pressure, so it cannot check for
+// condensation: At does.
+func (g IdealGas) Viscosity(T float64) (float64, error) {
+	if err := g.check(); err != nil {
+		return 0, err
+	}
+	if err := g.inRange(T); err != nil {
+		return 0, err
+	}
+	mu := g.Beta * T * math.Sqrt(T) / (T + g.S)
+	if !(mu > 0) || math.IsInf(mu, 0) {
+		return 0, &RangeError{Fluid: g.GasName, What: "temperature (K) giving a finite, positive Sutherland viscosity", Value: T, Lo: 0, Hi: math.Inf(1)}
+	}
+	return mu, nil
+}
 
 // Constant is a fluid with fixed properties, for a caller's own liquid or
 // a test where properties were measured.

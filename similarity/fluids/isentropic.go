@@ -62,6 +62,10 @@ func (g IdealGas) TotalOf(s State, ma float64) (Total, error) {
 	if err != nil {
 		return Total{}, err
 	}
+	t0, p0 := s.Temperature.Value()*tr, s.Pressure.Value()*pr
+	if math.IsInf(t0, 0) || math.IsInf(p0, 0) {
+		return Total{}, &RangeError{Fluid: g.Name(), What: "static state giving a finite total condition (temperature, K)", Value: s.Temperature.Value(), Lo: 0, Hi: math.MaxFloat64 / tr}
+	}
 	return Total{Temperature: s.Temperature.Scale(tr), Pressure: s.Pressure.Scale(pr)}, nil
 }
 
@@ -82,5 +86,9 @@ func (g IdealGas) DynamicPressure(p quantity.Quantity, ma float64) (quantity.Qua
 	if !(ma >= 0) || ma > 50 {
 		return quantity.Quantity{}, &RangeError{Fluid: g.Name(), What: "Mach number", Value: ma, Lo: 0, Hi: 50}
 	}
-	return p.Scale(0.5 * g.Gamma * ma * ma), nil
+	q := p.Scale(0.5 * g.Gamma * ma * ma)
+	if math.IsInf(q.Value(), 0) {
+		return quantity.Quantity{}, &RangeError{Fluid: g.Name(), What: "static pressure giving a finite dynamic pressure (Pa)", Value: p.Value(), Lo: 0, Hi: math.MaxFloat64 / (0.5 * g.Gamma * ma * ma)}
+	}
+	return q, nil
 }

@@ -10,13 +10,22 @@ import (
 // J/(kg·K) (CODATA 2018 molar gas constant; molar mass 28.0134 g/mol),
 // γ = 1.4, and Sutherland's law with μ₀ = 1.663×10⁻⁵ Pa·s at 273 K and
 // S = 107 K (F. M. White, Viscous Fluid Flow, Table 1-2, quoted from
-// memory). The ideal-gas state is a fair approximation of a cryogenic
-// tunnel's gas only well above saturation; CondensationMargin says how
-// far above it is.
+// memory; the law is stated there to about 2 % from 100 to 1500 K).
+//
+// At refuses a state at or below the saturation temperature at its
+// pressure (NitrogenSaturation; below the triple point, and below the
+// critical temperature above the critical pressure), and above 600 K,
+// where γ = 1.4 no longer holds (c_p of nitrogen rises from 1.041 to
+// 1.075 kJ/(kg·K) between 300 and 600 K, Incropera and DeWitt, Table A.4,
+// from memory). The ideal-gas state is a fair approximation of a
+// cryogenic tunnel's gas only well above saturation — near it the real
+// gas's compressibility factor departs from 1 by a few per cent —
+// and CondensationMargin says how far above it is.
 func Nitrogen() IdealGas { return nitrogenGas }
 
 var nitrogenGas = IdealGas{GasName: "nitrogen", R: 8.314462618 / 0.0280134, Gamma: 1.4,
-	Beta: 1.663e-5 * (273 + 107) / math.Pow(273, 1.5), S: 107, KRef: 0.0242, KTemp: 273, KS: 150}
+	Beta: 1.663e-5 * (273 + 107) / math.Pow(273, 1.5), S: 107, KRef: 0.0242, KTemp: 273, KS: 150,
+	MinTemperature: n2Tt, MaxTemperature: 600, Saturation: NitrogenSaturation}
 
 // Nitrogen's critical and triple points (Span et al., 2000).
 const (
@@ -54,10 +63,16 @@ func NitrogenSaturationTemperature(p quantity.Quantity) (quantity.Quantity, erro
 		return quantity.Quantity{}, err
 	}
 	pr := p.Value()
-	lo, hi := n2Tt, n2Tc
-	if !(pr >= n2SatP(lo) && pr <= n2SatP(hi)) {
-		return quantity.Quantity{}, &RangeError{Fluid: "nitrogen (saturation)", What: "pressure (Pa)", Value: pr, Lo: n2SatP(lo), Hi: n2SatP(hi)}
+	if !(pr >= n2SatP(n2Tt) && pr <= n2SatP(n2Tc)) {
+		return quantity.Quantity{}, &RangeError{Fluid: "nitrogen (saturation)", What: "pressure (Pa)", Value: pr, Lo: n2SatP(n2Tt), Hi: n2SatP(n2Tc)}
 	}
+	return quantity.New(n2SatT(pr), quantity.Temperature), nil
+}
+
+// n2SatT inverts n2SatP by bisection for a pressure between the
+// triple-point and critical pressures; 200 halvings at most.
+func n2SatT(pr float64) float64 {
+	lo, hi := n2Tt, n2Tc
 	for range 200 {
 		mid := (lo + hi) / 2
 		if n2SatP(mid) < pr {
@@ -69,7 +84,7 @@ func NitrogenSaturationTemperature(p quantity.Quantity) (quantity.Quantity, erro
 			break
 		}
 	}
-	return quantity.New((lo+hi)/2, quantity.Temperature), nil
+	return (lo + hi) / 2
 }
 
 // CondensationMargin returns how far the static temperature T of

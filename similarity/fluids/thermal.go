@@ -18,7 +18,11 @@ func (g IdealGas) SpecificHeat() (quantity.Quantity, error) {
 	if err := g.check(); err != nil {
 		return quantity.Quantity{}, err
 	}
-	return quantity.New(g.Gamma*g.R/(g.Gamma-1), quantity.SpecificHeatCapacity), nil
+	cp := g.Gamma * g.R / (g.Gamma - 1)
+	if math.IsInf(cp, 0) {
+		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "constants (R, γ) giving a finite specific heat γR/(γ − 1)", Value: cp, Lo: 0, Hi: math.MaxFloat64}
+	}
+	return quantity.New(cp, quantity.SpecificHeatCapacity), nil
 }
 
 // ThermalConductivity returns the gas's thermal conductivity at T by
@@ -39,6 +43,9 @@ func (g IdealGas) ThermalConductivity(T quantity.Quantity) (quantity.Quantity, e
 		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "temperature for the conductivity law (K)", Value: t, Lo: 160, Hi: 2000}
 	}
 	k := g.KRef * math.Pow(t/g.KTemp, 1.5) * (g.KTemp + g.KS) / (t + g.KS)
+	if !(k > 0) || math.IsInf(k, 0) {
+		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "conductivity constants giving a finite conductivity at this temperature (K)", Value: t, Lo: 160, Hi: 2000}
+	}
 	return quantity.New(k, quantity.ThermalConductivity), nil
 }
 
@@ -52,7 +59,15 @@ func (g IdealGas) Prandtl(T quantity.Quantity) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return g.Viscosity(T.Value()) * cp.Value() / k.Value(), nil
+	mu, err := g.Viscosity(T.Value())
+	if err != nil {
+		return 0, err
+	}
+	pr := mu * cp.Value() / k.Value()
+	if !(pr > 0) || math.IsInf(pr, 0) {
+		return 0, &RangeError{Fluid: g.GasName, What: "constants giving a finite Prandtl number at this temperature (K)", Value: T.Value(), Lo: 0, Hi: math.Inf(1)}
+	}
+	return pr, nil
 }
 
 // ThermalConductivity returns the thermal conductivity of fresh water at
