@@ -18,9 +18,13 @@
 // Expressions use + − * / (also × · ÷), unary minus, parentheses, and
 // powers with '^' (or '**'). An exponent is an exact number — 2, -1,
 // 0.5, (1/3) — and may be any dimensionless expression when the base is
-// dimensionless (Re^n). A number may carry a unit in square brackets,
-// read by package units with its temperature rules: 9.80665 [m/s^2],
-// 20 [°C], 101.325 [kPa]. The value is held in SI.
+// dimensionless (Re^n). A number may carry a unit in braces, with or
+// without a space before them, read by package units with its temperature
+// rules: 9.80665 {m/s^2}, 20{°C}, 101.325 {kPa}. The value is held in SI,
+// and a name assigned such a number has its dimension wherever it is used:
+// after g = 9.80665 {m/s^2}, g*L is an area per second squared. Square
+// brackets are refused in a formula (they name units in the headers of
+// channel files, not in formulas).
 //
 // Names are UTF-8 words of letters, digits and '_' starting with a
 // letter: rho, ρ, Δp, T_in; pi (or π), unless an input or a statement

@@ -37,7 +37,7 @@ func ExampleCompile() {
 
 // Derived channels in order, and a number with a unit.
 func ExampleProgram_Outputs() {
-	p, err := formula.Compile("dp = P1 - P2\nh = dp / (rho * 9.80665 [m/s^2])",
+	p, err := formula.Compile("dp = P1 - P2\nh = dp / (rho * 9.80665 {m/s^2})",
 		formula.Input{Name: "P1", Dim: quantity.Pressure}, formula.Input{Name: "P2", Dim: quantity.Pressure},
 		formula.Input{Name: "rho", Dim: quantity.Density})
 	if err != nil {

@@ -12,7 +12,7 @@ import (
 // work is bounded, and that a compiled program evaluates a row without
 // panicking.
 func FuzzCompile(f *testing.F) {
-	for _, s := range []string{swameeJain, "Nu = 0.023 * Re^0.8 * Pr^0.4", "if(Re < 2000, 64/Re, 0.316/Re^0.25)", "p + V", "(((", "2 [m/s^2] * D",
+	for _, s := range []string{swameeJain, "Nu = 0.023 * Re^0.8 * Pr^0.4", "if(Re < 2000, 64/Re, 0.316/Re^0.25)", "p + V", "(((", "2 {m/s^2} * D", "20{°C} - 1 {K}", "9.80665 [m/s^2]", "2 {furlong}", "x = 2 {m}; x + D",
 		"x = 1; y = x^(1/3); y", "# only a comment", "a ** -2", "hypot(D, D) / D", "\xff"} {
 		f.Add(s)
 	}
