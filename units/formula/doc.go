@@ -43,6 +43,24 @@
 // Program evaluates one row of SI values or whole columns in blocks,
 // without allocating.
 //
+// # Results that are not finite
+//
+// A float64 operation gives ±Inf or NaN where the mathematics has no
+// finite value — a division by zero, the logarithm of zero or of a
+// negative number, the square root of a negative number, asin or acos
+// outside [−1, 1], a fractional power of a negative number — or where the
+// value is beyond the range of float64 (D*D*D at D = 1e200 m, exp(1000)).
+// Such a result is never a number with a nil error: by default an
+// Evaluator stops with a *RangeError (class quantity.ErrRange) naming the
+// first row and, in it, the first statement whose result is not finite,
+// and the operation that gave it. By the explicit option MarkMissing it
+// instead sets the result to NaN, the mark of a missing value, and counts
+// it; only the option Unchecked gives the float64 results as they are, for
+// a caller that checks them itself. A NaN in an input is a missing value:
+// the results that use it are NaN, with no error. What is checked is each
+// statement's result, as later statements see it, so an operation on a
+// branch of if that is not taken does not count.
+//
 // # Bounds
 //
 // A text is at most MaxLen bytes with at most MaxNodes operations and
