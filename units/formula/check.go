@@ -64,7 +64,8 @@ type RangeError struct {
 	Reason    string  // what that operation did: "division by zero", "logarithm of a negative number", …
 }
 
-// Error implements the error interface.
+// Error implements the error interface. It counts rows and statements
+// from 1, as a reader does; the fields count from 0.
 func (e *RangeError) Error() string {
 	in := e.Input
 	if len(in) > 80 {
@@ -72,7 +73,7 @@ func (e *RangeError) Error() string {
 	}
 	where := ""
 	if e.Row >= 0 {
-		where = fmt.Sprintf("row %d (from 0), ", e.Row)
+		where = fmt.Sprintf("row %d, ", e.Row+1)
 	}
 	what := "result"
 	if e.Name != "" {
@@ -81,7 +82,7 @@ func (e *RangeError) Error() string {
 	if e.Wrt != "" {
 		what = fmt.Sprintf("∂%s/∂%s", what, e.Wrt)
 	}
-	return fmt.Sprintf("formula %q: %sstatement %d: %s is %v, not finite: at %d: %s", in, where, e.Statement+1, what, e.Value, e.Offset, e.Reason)
+	return fmt.Sprintf("formula %q: %sstatement %d (counting from 1): %s is %v, not finite: at %d: %s", in, where, e.Statement+1, what, e.Value, e.Offset, e.Reason)
 }
 
 // Is reports whether target is quantity.ErrRange, the class of a
