@@ -53,10 +53,10 @@
 // Such a result is never a number with a nil error: by default an
 // Evaluator stops with a *RangeError (class quantity.ErrRange) naming the
 // first row and, in it, the first statement whose result is not finite,
-// and the operation that gave it. By the explicit option MarkMissing it
-// instead sets the result to NaN, the mark of a missing value, and counts
-// it; only the option Unchecked gives the float64 results as they are, for
-// a caller that checks them itself. A NaN in an input is a missing value:
+// and the operation that gave it. By the explicit option MarkMissing
+// (Evaluator.SetCheck) it instead sets the result to NaN, the mark of a
+// missing value, and counts it; only the option Unchecked gives the
+// float64 results as they are, for a caller that checks them itself. A NaN in an input is a missing value:
 // the results that use it are NaN, with no error. What is checked is each
 // statement's result, as later statements see it, so an operation on a
 // branch of if that is not taken does not count.
