@@ -94,7 +94,7 @@ func BenchmarkReduce(b *testing.B) {
 		}
 	})
 	b.Run("pisets", func(b *testing.B) {
-		args := []string{"-data", path, "-derive", "dp = P2 - P1; D = 0.25 [m]; rho = 998.2 [kg/m^3]",
+		args := []string{"-data", path, "-derive", "dp = P2 - P1; D = 0.25 {m}; rho = 998.2 {kg/m^3}",
 			"-dep", "dp", "-repeat", "n,D,rho", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3", "mu=Pa*s", "Tq=N*m"}
 		st, _ := os.Stat(path)
 		b.SetBytes(st.Size())

@@ -25,7 +25,7 @@
 // reading on standard error:
 //
 //	pisets -data pumploop.csv -baro 1002hPa \
-//	    -derive 'dp = P2 - P1; D = 0.25 [m]; rho = 998.2 [kg/m^3]' \
+//	    -derive 'dp = P2 - P1; D = 0.25 {m}; rho = 998.2 {kg/m^3}' \
 //	    -dep dp -repeat n,D,rho dp=Pa Q=m^3/s n=rad/s D=m rho=kg/m^3
 //
 //	-data FILE         a channel file to reduce (CSV; TSV if it ends in .tsv;
@@ -87,7 +87,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 	sets := fs.Bool("sets", false, "list every valid repeating set")
 	var ro reduceOptions
 	fs.StringVar(&ro.data, "data", "", "a channel file (CSV/TSV) to reduce: write the groups of every row as CSV")
-	fs.StringVar(&ro.derive, "derive", "", "formula text defining derived channels, as 'dp = P1 - P2; D = 0.25 [m]'")
+	fs.StringVar(&ro.derive, "derive", "", "formula text defining derived channels, as 'dp = P1 - P2; D = 0.25 {m}'")
 	fs.StringVar(&ro.baro, "baro", "", "the absolute ambient pressure gauge channels were read against, as 1002hPa")
 	fs.BoolVar(&ro.stdAtm, "std-atm", false, "read gauge channels against the standard atmosphere (101325 Pa), an explicit choice")
 	fs.BoolVar(&ro.fit, "fit", false, "with -data: fit the dependent group as a power law of the others, with 95 % intervals")

@@ -19,7 +19,7 @@ import (
 )
 
 var pumpArgs = []string{"-data", "testdata/pumploop.csv", "-baro", "1002hPa",
-	"-derive", "dp = P2 - P1; D = 0.25 [m]; rho = 998.2 [kg/m^3]",
+	"-derive", "dp = P2 - P1; D = 0.25 {m}; rho = 998.2 {kg/m^3}",
 	"-dep", "dp", "-repeat", "n,D,rho", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}
 
 // TestReducePumpLoop reduces the invented pump-loop log and checks every
@@ -80,10 +80,10 @@ func TestReduceExitCodes(t *testing.T) {
 	}{
 		{append([]string{"-out", outFile}, pumpArgs...), 0, ""},
 		{[]string{"-data", bad, "Q=m^3/s", "n=rad/s", "D=m"}, 2, "variable D is neither a channel"},
-		{[]string{"-data", bad, "-derive", "D = 0.25 [m]", "Q=m^3/s", "n=rad/s", "D=m"}, 1, "bad.csv:3:1: \"160 m3/h\": a value with a unit in a data row"},
+		{[]string{"-data", bad, "-derive", "D = 0.25 {m}", "Q=m^3/s", "n=rad/s", "D=m"}, 1, "bad.csv:3:1: \"160 m3/h\": a value with a unit in a data row"},
 		{[]string{"-data", "testdata/pumploop.csv", "-derive", "dp = P2 - P1", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "give -baro"},
 		{[]string{"-data", "testdata/pumploop.csv", "-std-atm", "-derive", "dp = P2 - P1 + Q", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "cannot add pressure"},
-		{[]string{"-data", "testdata/pumploop.csv", "-std-atm", "-derive", "dp = P2; D = 0.25 [m]; rho = 998 [kg/m^3]", "dp=Pa*s", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "variable dp is dynamic viscosity"},
+		{[]string{"-data", "testdata/pumploop.csv", "-std-atm", "-derive", "dp = P2; D = 0.25 {m}; rho = 998 {kg/m^3}", "dp=Pa*s", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "variable dp is dynamic viscosity"},
 		{[]string{"-data", "testdata/pumploop.csv", "-baro", "12kn", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "want an absolute pressure"},
 		{[]string{"-data", "testdata/pumploop.csv", "-baro", "1bar", "-std-atm", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "give one reference"},
 		{[]string{"-data", filepath.Join(dir, "none.csv"), "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "-data"},
@@ -109,7 +109,7 @@ func TestReduceExitCodes(t *testing.T) {
 func TestReduceTankRun(t *testing.T) {
 	var out, errb bytes.Buffer
 	args := []string{"-data", "testdata/tankrun.csv",
-		"-derive", "R = R_T; L = 4.0 [m]; rho = 999.1 [kg/m^3]; nu = 1.1385e-6 [m^2/s]; g = 9.80665 [m/s^2]",
+		"-derive", "R = R_T; L = 4.0 {m}; rho = 999.1 {kg/m^3}; nu = 1.1385e-6 {m^2/s}; g = 9.80665 {m/s^2}",
 		"-dep", "R", "-repeat", "rho,V,L", "R=N@resistance", "V=m/s", "L=m", "rho=kg/m^3", "nu=m^2/s", "g=m/s^2"}
 	if code := run(args, &out, &errb); code != 0 {
 		t.Fatalf("exit %d: %s", code, errb.String())
@@ -219,7 +219,7 @@ func TestReduceFitAndPlot(t *testing.T) {
 		{append([]string{"-fit", "-plot", filepath.Join(dir, "x.jpg")}, pumpArgs...), "want a .png or .svg"},
 		{[]string{"-fit", "Q=m^3/s", "n=rad/s", "D=m"}, "go with -data"},
 		{[]string{"-fit", "-plot", filepath.Join(dir, "t.png"), "-data", "testdata/tankrun.csv",
-			"-derive", "R = R_T; L = 4.0 [m]; rho = 999.1 [kg/m^3]; nu = 1.1385e-6 [m^2/s]; g = 9.80665 [m/s^2]",
+			"-derive", "R = R_T; L = 4.0 {m}; rho = 999.1 {kg/m^3}; nu = 1.1385e-6 {m^2/s}; g = 9.80665 {m/s^2}",
 			"-dep", "R", "-repeat", "rho,V,L", "R=N", "V=m/s", "L=m", "rho=kg/m^3", "nu=m^2/s", "g=m/s^2"}, "this set has 3 groups"},
 	} {
 		var out, errb bytes.Buffer
@@ -294,7 +294,7 @@ func TestReduceParquet(t *testing.T) {
 		t.Fatal(err)
 	}
 	lf.Close()
-	tank := []string{"-derive", "R = R_T; L = 4.0 [m]; rho = 999.1 [kg/m^3]; nu = 1.1385e-6 [m^2/s]; g = 9.80665 [m/s^2]",
+	tank := []string{"-derive", "R = R_T; L = 4.0 {m}; rho = 999.1 {kg/m^3}; nu = 1.1385e-6 {m^2/s}; g = 9.80665 {m/s^2}",
 		"-dep", "R", "-repeat", "rho,V,L", "R=N@resistance", "V=m/s", "L=m", "rho=kg/m^3", "nu=m^2/s", "g=m/s^2"}
 	var fromCSV, fromPQ bytes.Buffer
 	if code := run(append([]string{"-data", "testdata/tankrun.csv"}, tank...), &fromCSV, &errb); code != 0 {

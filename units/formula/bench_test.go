@@ -53,12 +53,23 @@ func BenchmarkFormulaKernel(b *testing.B) {
 			sink = sum
 		}
 	})
-	b.Run("formula", func(b *testing.B) {
+	for _, check := range []formula.Check{formula.CheckFinite, formula.Unchecked} {
+		name := "formula" // checked, the default
+		if check == formula.Unchecked {
+			name = "formula_unchecked"
+		}
+		b.Run(name, func(b *testing.B) { benchFormula(b, cols, check) })
+	}
+}
+
+func benchFormula(b *testing.B, cols [][]float64, check formula.Check) {
+	{
 		p, err := formula.Compile(swameeJain, pipeInputs...)
 		if err != nil {
 			b.Fatal(err)
 		}
 		ev := p.Evaluator()
+		ev.SetCheck(check)
 		series := make([]quantity.Series, len(cols))
 		for i := range cols {
 			series[i] = quantity.NewSeries(cols[i], pipeInputs[i].Dim)
@@ -75,7 +86,7 @@ func BenchmarkFormulaKernel(b *testing.B) {
 			}
 			sink = sum
 		}
-	})
+	}
 }
 
 // TestKernelAgrees: the formula's ΣΔp is the hand-written loop's.

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
@@ -72,14 +73,18 @@ type Program struct {
 	stmts   []stmt
 	inputs  []Input
 	ops     []op
+	opPos   []int // per operation, the byte offset of its operator in the text
 	slots   int
 	outputs []output
 }
 
 type output struct {
-	name string // "" for the bare result
-	slot int
-	dim  quantity.Dim
+	name   string // "" for the bare result
+	slot   int
+	dim    quantity.Dim
+	pos    int   // byte offset of the statement
+	lo, hi int   // the statement's operations, ops[lo:hi]
+	refs   []int // the slots of the inputs and earlier results it names
 }
 
 // Compile reads a formula text and checks it against the dimensions of
@@ -93,13 +98,15 @@ func Compile(src string, inputs ...Input) (*Program, error) {
 	c := &compiler{p: &Program{src: src, stmts: stmts, inputs: append([]Input(nil), inputs...)}, names: map[string]int{}, dims: map[int]quantity.Dim{}}
 	for i, in := range inputs {
 		if _, dup := c.names[in.Name]; dup {
-			return nil, &Error{Input: src, Reason: fmt.Sprintf("input %q is given twice", in.Name)}
+			return nil, &Error{Input: src, Reason: fmt.Sprintf("input %q is given twice", in.Name), cls: quantity.ErrInvalid}
 		}
 		c.names[in.Name] = i
 		c.dims[i] = in.Dim
 	}
 	c.p.slots = len(inputs)
 	for _, st := range stmts {
+		lo := len(c.p.ops)
+		c.refs = nil
 		slot, d, err := c.expr(st.e)
 		if err != nil {
 			return nil, err
@@ -109,11 +116,12 @@ func Compile(src string, inputs ...Input) (*Program, error) {
 		}
 		if st.name != "" {
 			if _, exists := c.names[st.name]; exists {
-				return nil, &Error{Input: src, Offset: st.pos, Reason: fmt.Sprintf("%q is already defined", st.name)}
+				return nil, &Error{Input: src, Offset: st.pos, Reason: fmt.Sprintf("%q is already defined", st.name), cls: quantity.ErrInvalid}
 			}
 			c.names[st.name] = slot
 		}
-		c.p.outputs = append(c.p.outputs, output{name: st.name, slot: slot, dim: d.dim})
+		c.dims[slot] = d.dim
+		c.p.outputs = append(c.p.outputs, output{name: st.name, slot: slot, dim: d.dim, pos: st.pos, lo: lo, hi: len(c.p.ops), refs: c.refs})
 	}
 	return c.p, nil
 }
@@ -122,6 +130,8 @@ type compiler struct {
 	p     *Program
 	names map[string]int // name → slot
 	dims  map[int]quantity.Dim
+	refs  []int // the slots the statement being compiled names
+	pos   int   // the offset of the operator being compiled
 }
 
 // typ is a node's type: a quantity of a dimension, or a condition.
@@ -157,20 +167,28 @@ func (c *compiler) emit(o op) int {
 	o.dst = c.p.slots
 	c.p.slots++
 	c.p.ops = append(c.p.ops, o)
+	c.p.opPos = append(c.p.opPos, c.pos)
 	return o.dst
 }
 
 func (c *compiler) expr(n *node) (int, typ, error) {
 	switch n.k {
 	case kNum:
-		return c.emit(op{code: opConst, k: n.val}), typ{dim: n.dim}, nil
+		// A number's unit is its dimension wherever its slot is used,
+		// also through a name it is assigned to.
+		c.pos = n.pos
+		return c.out(op{code: opConst, k: n.val}, n.dim)
 	case kRef:
 		slot, ok := c.names[n.name]
 		if !ok && (n.name == "pi" || n.name == "π") {
-			return c.emit(op{code: opConst, k: math.Pi}), typ{}, nil
+			c.pos = n.pos
+			return c.out(op{code: opConst, k: math.Pi}, quantity.Dimensionless)
 		}
 		if !ok {
-			return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("unknown name %q: not an input and not assigned before", n.name)}
+			return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("unknown name %q: not an input and not assigned before", n.name), cls: quantity.ErrUnknown}
+		}
+		if !slices.Contains(c.refs, slot) {
+			c.refs = append(c.refs, slot)
 		}
 		return slot, typ{dim: c.slotDim(slot)}, nil
 	}
@@ -190,6 +208,7 @@ func (c *compiler) expr(n *node) (int, typ, error) {
 	}
 	a, b := slots[0], slots[1]
 	ta, tb := types[0].dim, types[1].dim
+	c.pos = n.pos
 	switch n.k {
 	case kNeg:
 		return c.out(op{code: opNeg, a: a}, ta)
@@ -217,7 +236,9 @@ func (c *compiler) expr(n *node) (int, typ, error) {
 			d, err = ta.Div(tb)
 		}
 		if err != nil {
-			return 0, typ{}, c.dimErr(n.pos, "%v", err)
+			e := c.dimErr(n.pos, "%v", err).(*Error)
+			e.Err = err
+			return 0, typ{}, e
 		}
 		return c.out(op{code: code, a: a, b: b}, d)
 	case kPow:
@@ -262,7 +283,7 @@ func (c *compiler) expr(n *node) (int, typ, error) {
 	case kCall:
 		return c.call(n)
 	}
-	return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: "unknown construct"}
+	return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: "unknown construct", cls: quantity.ErrInvalid}
 }
 
 func (c *compiler) slotDim(slot int) quantity.Dim {
@@ -288,7 +309,7 @@ func (c *compiler) call(n *node) (int, typ, error) {
 		want = 1
 	}
 	if want == 0 {
-		return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("unknown function %q", n.name)}
+		return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("unknown function %q", n.name), cls: quantity.ErrUnknown}
 	}
 	if len(n.args) != want {
 		return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("%s takes %d arguments, not %d", n.name, want, len(n.args))}
@@ -309,6 +330,7 @@ func (c *compiler) call(n *node) (int, typ, error) {
 		slots[i], types[i] = s, t
 	}
 	ta := types[0].dim
+	c.pos = n.pos
 	switch {
 	case isUnary:
 		switch code {

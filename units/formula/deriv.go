@@ -14,7 +14,9 @@ import (
 // operation, not finite differences: the sensitivity coefficients an
 // uncertainty budget needs. At a point where an operation is not
 // differentiable (abs at 0, min or max at a tie, a branch of if) the
-// derivative of the branch taken is used.
+// derivative of the branch taken is used. A value or a derivative that is
+// not finite is a *RangeError, or marked missing, as the evaluator's Check
+// says; the derivatives of a missing value are not checked.
 func (e *Evaluator) Gradient(in, out []float64, grad [][]float64) error {
 	p := e.p
 	nIn := len(p.inputs)
@@ -55,7 +57,22 @@ func (e *Evaluator) Gradient(in, out []float64, grad [][]float64) error {
 		}
 	}
 	for i, o := range p.outputs {
-		copy(grad[i][:nIn], d(o.slot))
+		g := grad[i][:nIn]
+		copy(g, d(o.slot))
+		if e.check == Unchecked || math.IsNaN(out[i]) || p.missing(i, r) {
+			continue
+		}
+		for j, x := range g {
+			if finite(x) {
+				continue
+			}
+			if e.check != MarkMissing {
+				return &RangeError{Input: p.src, Row: -1, Statement: i, Name: o.name, Value: x, Wrt: p.inputs[j].Name, Offset: o.pos,
+					Reason: "the derivative is not finite (a square root, a cube root or a fractional power at zero, asin or acos at ±1, or an overflow)"}
+			}
+			g[j] = math.NaN()
+			e.marked[i]++
+		}
 	}
 	return nil
 }

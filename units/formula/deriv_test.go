@@ -1,6 +1,7 @@
 package formula_test
 
 import (
+	"errors"
 	"math"
 	"testing"
 
@@ -54,7 +55,9 @@ func TestGradientAgainstDifferences(t *testing.T) {
 		ev := p.Evaluator()
 		x := []float64{rapid.Float64Range(0.5, 3).Draw(t, "x"), rapid.Float64Range(0.5, 3).Draw(t, "y")}
 		out, grad := make([]float64, 1), [][]float64{make([]float64, 2)}
-		if err := ev.Gradient(x, out, grad); err != nil {
+		if err := ev.Gradient(x, out, grad); errors.Is(err, quantity.ErrRange) {
+			return // a value or a derivative that is not finite, refused
+		} else if err != nil {
 			t.Fatal(err)
 		}
 		if math.IsNaN(out[0]) || math.IsInf(out[0], 0) || math.Abs(out[0]) > 1e6 {

@@ -18,9 +18,13 @@
 // Expressions use + − * / (also × · ÷), unary minus, parentheses, and
 // powers with '^' (or '**'). An exponent is an exact number — 2, -1,
 // 0.5, (1/3) — and may be any dimensionless expression when the base is
-// dimensionless (Re^n). A number may carry a unit in square brackets,
-// read by package units with its temperature rules: 9.80665 [m/s^2],
-// 20 [°C], 101.325 [kPa]. The value is held in SI.
+// dimensionless (Re^n). A number may carry a unit in braces, with or
+// without a space before them, read by package units with its temperature
+// rules: 9.80665 {m/s^2}, 20{°C}, 101.325 {kPa}. The value is held in SI,
+// and a name assigned such a number has its dimension wherever it is used:
+// after g = 9.80665 {m/s^2}, g*L is an area per second squared. Square
+// brackets are refused in a formula (they name units in the headers of
+// channel files, not in formulas).
 //
 // Names are UTF-8 words of letters, digits and '_' starting with a
 // letter: rho, ρ, Δp, T_in; pi (or π), unless an input or a statement
@@ -38,6 +42,24 @@
 // quantity, a fractional power that a dimension cannot hold. The compiled
 // Program evaluates one row of SI values or whole columns in blocks,
 // without allocating.
+//
+// # Results that are not finite
+//
+// A float64 operation gives ±Inf or NaN where the mathematics has no
+// finite value — a division by zero, the logarithm of zero or of a
+// negative number, the square root of a negative number, asin or acos
+// outside [−1, 1], a fractional power of a negative number — or where the
+// value is beyond the range of float64 (D*D*D at D = 1e200 m, exp(1000)).
+// Such a result is never a number with a nil error: by default an
+// Evaluator stops with a *RangeError (class quantity.ErrRange) naming the
+// first row and, in it, the first statement whose result is not finite,
+// and the operation that gave it. By the explicit option MarkMissing
+// (Evaluator.SetCheck) it instead sets the result to NaN, the mark of a
+// missing value, and counts it; only the option Unchecked gives the
+// float64 results as they are, for a caller that checks them itself. A NaN in an input is a missing value:
+// the results that use it are NaN, with no error. What is checked is each
+// statement's result, as later statements see it, so an operation on a
+// branch of if that is not taken does not count.
 //
 // # Bounds
 //

@@ -44,16 +44,22 @@ const block = 256
 // not allocate when evaluating; it is not safe for concurrent use (make
 // one per goroutine).
 type Evaluator struct {
-	p     *Program
-	regs  []float64   // one value per slot, for Row
-	buf   []float64   // block storage for computed slots
-	view  [][]float64 // per slot, the block being worked on
-	dregs []float64   // per slot, the derivatives with respect to the inputs (Gradient)
+	p      *Program
+	check  Check
+	regs   []float64   // one value per slot, for Row
+	buf    []float64   // block storage for computed slots
+	view   [][]float64 // per slot, the block being worked on
+	dregs  []float64   // per slot, the derivatives with respect to the inputs (Gradient)
+	res    []float64   // per statement, a row's results (RowQ, checked rows of Series)
+	in     []float64   // per input, a row's values (RowQ, checked rows of Series)
+	marked []int       // per statement, the results MarkMissing set to NaN
 }
 
-// Evaluator returns an evaluator for the program.
+// Evaluator returns an evaluator for the program. It checks that every
+// result is finite (CheckFinite); SetCheck chooses otherwise.
 func (p *Program) Evaluator() *Evaluator {
-	e := &Evaluator{p: p, regs: make([]float64, p.slots), view: make([][]float64, p.slots)}
+	e := &Evaluator{p: p, regs: make([]float64, p.slots), view: make([][]float64, p.slots),
+		res: make([]float64, len(p.outputs)), in: make([]float64, len(p.inputs)), marked: make([]int, len(p.outputs))}
 	e.buf = make([]float64, (p.slots-len(p.inputs))*block)
 	for s := len(p.inputs); s < p.slots; s++ {
 		k := s - len(p.inputs)
@@ -73,7 +79,9 @@ func (p *Program) Evaluator() *Evaluator {
 
 // Row evaluates the program for one row of input values, given in SI in
 // the order of the inputs, and writes the results, in the order of
-// Outputs, into out, which it returns.
+// Outputs, into out, which it returns. A result that is not finite is
+// a *RangeError, or marked missing, as the evaluator's Check says; a NaN
+// input is a missing value.
 func (e *Evaluator) Row(in []float64, out []float64) ([]float64, error) {
 	p := e.p
 	if len(in) != len(p.inputs) {
@@ -82,35 +90,53 @@ func (e *Evaluator) Row(in []float64, out []float64) ([]float64, error) {
 	if len(out) < len(p.outputs) {
 		return nil, evalErr("room for %d results, the program has %d", len(out), len(p.outputs))
 	}
+	if err := e.row(in, out); err != nil {
+		return nil, err
+	}
+	return out[:len(p.outputs)], nil
+}
+
+// row evaluates one row into out, checked as the evaluator's Check says.
+func (e *Evaluator) row(in []float64, out []float64) error {
+	p := e.p
 	r := e.regs
 	copy(r, in)
 	for _, o := range p.ops {
 		r[o.dst] = scalar(o, r)
 	}
+	ok := true
 	for i, o := range p.outputs {
 		out[i] = r[o.slot]
+		ok = ok && finite(out[i])
 	}
-	return out[:len(p.outputs)], nil
+	if ok || e.check == Unchecked {
+		return nil
+	}
+	// Again, statement by statement.
+	copy(r, in)
+	return e.rowChecked(-1, out)
 }
 
-// RowQ is Row for quantities: each input's dimension is checked.
+// RowQ is Row for quantities: each input's dimension is checked (a
+// wrong one is an *EvalError wrapping the *quantity.DimensionError), and
+// results that are not finite are treated as the evaluator's Check says.
 func (e *Evaluator) RowQ(in []quantity.Quantity, out []quantity.Quantity) ([]quantity.Quantity, error) {
 	p := e.p
 	if len(in) != len(p.inputs) || len(out) < len(p.outputs) {
 		return nil, evalErr("%d quantities for %d inputs, room for %d of %d results", len(in), len(p.inputs), len(out), len(p.outputs))
 	}
-	r := e.regs
+	vals := e.in
 	for i, q := range in {
 		if err := q.CheckNamed(p.inputs[i].Name, p.inputs[i].Dim); err != nil {
-			return nil, err
+			return nil, &EvalError{Reason: fmt.Sprintf("input %q: %v", p.inputs[i].Name, err), Err: err}
 		}
-		r[i] = q.Value()
+		vals[i] = q.Value()
 	}
-	for _, o := range p.ops {
-		r[o.dst] = scalar(o, r)
+	if err := e.row(vals, e.res); err != nil {
+		return nil, err
 	}
 	for i, o := range p.outputs {
-		out[i] = quantity.New(r[o.slot], o.dim)
+		out[i] = quantity.New(e.res[i], o.dim)
 	}
 	return out[:len(p.outputs)], nil
 }
@@ -205,7 +231,11 @@ func scalar(o op, r []float64) float64 {
 // in the order of the inputs, writing result i (in the order of Outputs)
 // into dst[i], which must have the columns' length. Dimensions and
 // lengths are checked once; the work is done in blocks of rows, without
-// allocating.
+// allocating. A NaN in a column is a missing value: the results that use
+// it are NaN. Any other result that is not finite is a *RangeError naming
+// the first such row and statement, or is marked missing, as the
+// evaluator's Check says; after an error, dst holds the results of the
+// rows before that row.
 func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
 	p := e.p
 	if len(cols) != len(p.inputs) {
@@ -243,12 +273,70 @@ func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
 				vector(o, e.view, m)
 			}
 		}
+		bad := false
 		for i, o := range p.outputs {
-			copy(dst[i][lo:hi], e.view[o.slot][:m])
+			d := dst[i][lo:hi]
+			copy(d, e.view[o.slot][:m])
+			if e.check != Unchecked {
+				bad = bad || !allFinite(d)
+			}
+		}
+		if bad {
+			if err := e.checkRows(cols, dst, lo, hi); err != nil {
+				e.clearViews(len(cols))
+				return err
+			}
 		}
 	}
-	for i := range cols {
+	e.clearViews(len(cols))
+	return nil
+}
+
+func (e *Evaluator) clearViews(n int) {
+	for i := range n {
 		e.view[i] = nil
+	}
+}
+
+// allFinite reports whether every value of x is finite.
+func allFinite(x []float64) bool {
+	// v*0 is NaN for ±Inf and NaN, 0 otherwise; four sums run in parallel.
+	var a0, a1, a2, a3 float64
+	i := 0
+	for ; i+4 <= len(x); i += 4 {
+		a0 += x[i] * 0
+		a1 += x[i+1] * 0
+		a2 += x[i+2] * 0
+		a3 += x[i+3] * 0
+	}
+	for ; i < len(x); i++ {
+		a0 += x[i] * 0
+	}
+	return a0+a1+a2+a3 == 0
+}
+
+// checkRows evaluates again, statement by statement, the rows lo…hi−1
+// that have a result that is not finite, and reports the first (or marks
+// them missing).
+func (e *Evaluator) checkRows(cols []quantity.Series, dst [][]float64, lo, hi int) error {
+	p := e.p
+	for k := lo; k < hi; k++ {
+		ok := true
+		for i := range p.outputs {
+			ok = ok && finite(dst[i][k])
+		}
+		if ok {
+			continue
+		}
+		for j, c := range cols {
+			e.regs[j] = c.Values()[k]
+		}
+		if err := e.rowChecked(k, e.res); err != nil {
+			return err
+		}
+		for i := range p.outputs {
+			dst[i][k] = e.res[i]
+		}
 	}
 	return nil
 }

@@ -37,7 +37,7 @@ func ExampleCompile() {
 
 // Derived channels in order, and a number with a unit.
 func ExampleProgram_Outputs() {
-	p, err := formula.Compile("dp = P1 - P2\nh = dp / (rho * 9.80665 [m/s^2])",
+	p, err := formula.Compile("dp = P1 - P2\nh = dp / (rho * 9.80665 {m/s^2})",
 		formula.Input{Name: "P1", Dim: quantity.Pressure}, formula.Input{Name: "P2", Dim: quantity.Pressure},
 		formula.Input{Name: "rho", Dim: quantity.Density})
 	if err != nil {
@@ -49,4 +49,29 @@ func ExampleProgram_Outputs() {
 	// Output:
 	// [dp h] length
 	// dp = 50675 Pa, h = 5.177 m
+}
+
+// A result that is not finite is refused, with the row and the statement
+// it appears in: here a depth of zero in a Froude number (invented
+// open-channel readings). By the explicit option MarkMissing the result
+// is NaN, the mark of a missing value, and counted instead.
+func ExampleEvaluator_SetCheck() {
+	p, err := formula.Compile("g = 9.80665 {m/s^2}\nFr = V/sqrt(g*h)",
+		formula.Input{Name: "V", Dim: quantity.Velocity}, formula.Input{Name: "h", Dim: quantity.Length})
+	if err != nil {
+		panic(err)
+	}
+	cols := []quantity.Series{quantity.NewSeries([]float64{1.2, 1.5, 1.1}, quantity.Velocity),
+		quantity.NewSeries([]float64{0.30, 0, 0.25}, quantity.Length)}
+	out := [][]float64{make([]float64, 3), make([]float64, 3)}
+	ev := p.Evaluator()
+	fmt.Println(ev.Series(cols, out))
+	ev.SetCheck(formula.MarkMissing)
+	if err := ev.Series(cols, out); err != nil {
+		panic(err)
+	}
+	fmt.Printf("Fr = %.3f, %d marked missing\n", out[1], ev.Marked(1))
+	// Output:
+	// formula "g = 9.80665 {m/s^2}\nFr = V/sqrt(g*h)": row 2, statement 2 (counting from 1): Fr is +Inf, not finite: at 26: division by zero
+	// Fr = [0.700 NaN 0.703], 1 marked missing
 }

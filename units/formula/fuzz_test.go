@@ -1,6 +1,7 @@
 package formula_test
 
 import (
+	"errors"
 	"math"
 	"testing"
 
@@ -8,25 +9,93 @@ import (
 	"similis.dev/similis/units/formula"
 )
 
-// FuzzCompile checks that parsing and compiling never panic, that their
-// work is bounded, and that a compiled program evaluates a row without
-// panicking.
+// FuzzCompile checks that parsing and compiling never panic and that
+// their work is bounded; that a refused text has an error of exactly one
+// class; that a compiled program prints as text that compiles again; and
+// that checked evaluation — Row, Series and Gradient on finite inputs,
+// including zeros, negative and huge values — never gives a result that
+// is not finite with a nil error, while MarkMissing gives finite values or
+// NaN, never ±Inf and never an error.
 func FuzzCompile(f *testing.F) {
-	for _, s := range []string{swameeJain, "Nu = 0.023 * Re^0.8 * Pr^0.4", "if(Re < 2000, 64/Re, 0.316/Re^0.25)", "p + V", "(((", "2 [m/s^2] * D",
-		"x = 1; y = x^(1/3); y", "# only a comment", "a ** -2", "hypot(D, D) / D", "\xff"} {
+	for _, s := range []string{swameeJain, "Nu = 0.023 * Re^0.8 * Pr^0.4", "if(Re < 2000, 64/Re, 0.316/Re^0.25)", "p + V", "(((", "2 {m/s^2} * D",
+		"20{°C} - 1 {K}", "9.80665 [m/s^2]", "2 {furlong}", "x = 2 {m}; x + D", "g = 9.80665 {m/s^2}; Fr = V/sqrt(g*D)",
+		"1/a", "ln(a - 0.5)", "sqrt(-a)", "asin(2*a)", "D*D*D", "exp(Re*1e300)", "a = 1/(Re - 1e5); b = a + 1",
+		"x = 1; y = x^(1/3); y", "# only a comment", "a ** -2", "hypot(D, D) / D", "\xff", "2 {", "{m}", "2 {}"} {
 		f.Add(s)
 	}
 	ins := []formula.Input{{Name: "Re", Dim: quantity.Dimensionless}, {Name: "Pr", Dim: quantity.Dimensionless},
 		{Name: "D", Dim: quantity.Length}, {Name: "p", Dim: quantity.Pressure}, {Name: "V", Dim: quantity.Velocity}, {Name: "a", Dim: quantity.Dimensionless}}
+	rows := [][]float64{{1e5, 7, 0.1, 2e5, 3, 0.5}, {0, 0, 0, 0, 0, 0}, {-1, -2, -0.5, -1e5, -3, -1}, {1e200, 1e-200, 1e150, 1e300, 1e-300, 2}}
 	f.Fuzz(func(t *testing.T, src string) {
 		p, err := formula.Compile(src, ins...)
 		if err != nil {
+			if cl := classesOf(err); len(cl) != 1 {
+				t.Fatalf("%q: %v matches %d classes", src, err, len(cl))
+			}
 			return
 		}
-		out := make([]float64, len(p.Outputs()))
-		if _, err := p.Evaluator().Row([]float64{1e5, 7, 0.1, 2e5, 3, 0.5}, out); err != nil {
-			t.Fatalf("%q: %v", src, err)
+		if _, err := formula.Compile(p.Text(), ins...); err != nil {
+			t.Fatalf("%q prints as %q, which does not compile: %v", src, p.Text(), err)
 		}
-		_ = math.IsNaN(out[0])
+		n := len(p.Outputs())
+		ev := p.Evaluator()
+		cols := make([]quantity.Series, len(ins))
+		for j := range ins {
+			col := make([]float64, len(rows))
+			for i := range rows {
+				col[i] = rows[i][j]
+			}
+			cols[j] = quantity.NewSeries(col, ins[j].Dim)
+		}
+		dst := make([][]float64, n)
+		for i := range dst {
+			dst[i] = make([]float64, len(rows))
+		}
+		allFinite := func(what string, x []float64) {
+			for _, v := range x {
+				if math.IsNaN(v) || math.IsInf(v, 0) {
+					t.Fatalf("%q: %s: %v with a nil error", src, what, x)
+				}
+			}
+		}
+		for _, row := range rows {
+			out, err := ev.Row(row, make([]float64, n))
+			if err == nil {
+				allFinite("Row", out)
+			} else if !errors.Is(err, quantity.ErrRange) {
+				t.Fatalf("%q: Row: %v", src, err)
+			}
+			grad := make([][]float64, n)
+			for i := range grad {
+				grad[i] = make([]float64, len(ins))
+			}
+			gout := make([]float64, n)
+			if err := ev.Gradient(row, gout, grad); err == nil {
+				allFinite("Gradient", gout)
+				for _, g := range grad {
+					allFinite("Gradient", g)
+				}
+			} else if !errors.Is(err, quantity.ErrRange) {
+				t.Fatalf("%q: Gradient: %v", src, err)
+			}
+		}
+		if err := ev.Series(cols, dst); err == nil {
+			for _, d := range dst {
+				allFinite("Series", d)
+			}
+		} else if !errors.Is(err, quantity.ErrRange) {
+			t.Fatalf("%q: Series: %v", src, err)
+		}
+		ev.SetCheck(formula.MarkMissing)
+		if err := ev.Series(cols, dst); err != nil {
+			t.Fatalf("%q: MarkMissing: %v", src, err)
+		}
+		for _, d := range dst {
+			for _, v := range d {
+				if math.IsInf(v, 0) {
+					t.Fatalf("%q: MarkMissing leaves %v", src, d)
+				}
+			}
+		}
 	})
 }

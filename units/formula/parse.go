@@ -1,6 +1,7 @@
 package formula
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"math/big"
@@ -20,15 +21,24 @@ const (
 	MaxDepth = 64      // nesting of parentheses and calls
 )
 
-// Error reports a formula that cannot be read or whose dimensions do not
-// agree: the text, the byte offset of the mistake and the reason. It
-// matches quantity.ErrParse or, for a dimension mistake,
-// quantity.ErrDimension under errors.Is.
+// Error reports a formula that cannot be read or does not compile: the
+// text, the byte offset of the mistake and the reason. It matches exactly
+// one class under errors.Is: quantity.ErrDimension for a dimension
+// mistake, quantity.ErrUnknown for a name or function that is not known,
+// quantity.ErrRange for a text beyond the limits (MaxLen, MaxNodes,
+// MaxDepth) or a number that is not finite, quantity.ErrInvalid for a name
+// defined twice, and quantity.ErrParse for text that cannot be read. When
+// another package's error caused it (a unit that cannot be read, an
+// exponent of a dimension that overflows), Err holds that error, Unwrap
+// returns it and the class is the cause's.
 type Error struct {
 	Input     string
 	Offset    int
 	Reason    string
-	Dimension bool // a dimension mistake rather than a syntax one
+	Dimension bool  // a dimension mistake rather than a syntax one
+	Err       error // the cause, when another package reported it
+
+	cls error // the class, when not ErrParse or ErrDimension
 }
 
 // Error implements the error interface.
@@ -40,12 +50,32 @@ func (e *Error) Error() string {
 	return fmt.Sprintf("formula %q: at %d: %s", in, e.Offset, e.Reason)
 }
 
+// Unwrap returns the cause, if another package reported it.
+func (e *Error) Unwrap() error { return e.Err }
+
 // Is reports whether target is the error's class.
-func (e *Error) Is(target error) bool {
-	if e.Dimension {
-		return target == quantity.ErrDimension
+func (e *Error) Is(target error) bool { return target == e.class() }
+
+// class returns the error's class: one of quantity.ErrDimension,
+// ErrUnknown, ErrRange, ErrInvalid and ErrParse.
+func (e *Error) class() error {
+	switch {
+	case e.cls != nil:
+		return e.cls
+	case e.Dimension:
+		return quantity.ErrDimension
 	}
-	return target == quantity.ErrParse
+	return quantity.ErrParse
+}
+
+// classOf returns the one class of a cause from another package.
+func classOf(err error) error {
+	for _, c := range []error{quantity.ErrDimension, quantity.ErrUnknown, quantity.ErrRange, quantity.ErrInvalid} {
+		if errors.Is(err, c) {
+			return c
+		}
+	}
+	return quantity.ErrParse
 }
 
 type kind uint8
@@ -94,10 +124,15 @@ func (p *parser) fail(at int, format string, a ...any) error {
 	return &Error{Input: p.src, Offset: at, Reason: fmt.Sprintf(format, a...)}
 }
 
+// failRange reports text beyond a limit, or a number out of range.
+func (p *parser) failRange(at int, format string, a ...any) error {
+	return &Error{Input: p.src, Offset: at, Reason: fmt.Sprintf(format, a...), cls: quantity.ErrRange}
+}
+
 // parseText reads the statements of a formula text.
 func parseText(src string) ([]stmt, error) {
 	if len(src) > MaxLen {
-		return nil, &Error{Input: src[:64], Offset: MaxLen, Reason: fmt.Sprintf("the text is longer than %d bytes", MaxLen)}
+		return nil, &Error{Input: src[:64], Offset: MaxLen, Reason: fmt.Sprintf("the text is longer than %d bytes", MaxLen), cls: quantity.ErrRange}
 	}
 	if !utf8.ValidString(src) {
 		return nil, &Error{Input: strings.ToValidUTF8(src, "\uFFFD"), Offset: 0, Reason: "the text is not valid UTF-8"}
@@ -190,7 +225,7 @@ func (p *parser) name() (string, bool) {
 func (p *parser) newNode(k kind, pos int, args ...*node) (*node, error) {
 	p.nodes++
 	if p.nodes > MaxNodes {
-		return nil, p.fail(pos, "more than %d operations", MaxNodes)
+		return nil, p.failRange(pos, "more than %d operations", MaxNodes)
 	}
 	return &node{k: k, pos: pos, args: args}, nil
 }
@@ -198,7 +233,7 @@ func (p *parser) newNode(k kind, pos int, args ...*node) (*node, error) {
 func (p *parser) enter(at int) error {
 	p.depth++
 	if p.depth > MaxDepth {
-		return p.fail(at, "nested more than %d deep", MaxDepth)
+		return p.failRange(at, "nested more than %d deep", MaxDepth)
 	}
 	return nil
 }
@@ -441,7 +476,7 @@ func (p *parser) exactExponent() (quantity.Rat, float64, bool) {
 	} else {
 		// A bare number followed by another operand is not an exponent.
 		p.skipBlank(false)
-		if p.i < len(p.src) && (p.src[p.i] == '[' || p.src[p.i] == '(') {
+		if p.i < len(p.src) && (p.src[p.i] == '{' || p.src[p.i] == '[' || p.src[p.i] == '(') {
 			p.i = save
 			return quantity.Rat{}, 0, false
 		}
@@ -500,12 +535,19 @@ func (p *parser) primary() (*node, error) {
 		return e, nil
 	case c >= '0' && c <= '9' || c == '.':
 		return p.number()
+	case c == '[' || c == ']':
+		return nil, p.fail(at, bracketHelp)
+	case c == '{':
+		return nil, p.fail(at, "a unit in braces follows a number: 9.80665 {m/s^2}")
 	}
 	name, ok := p.name()
 	if !ok {
 		return nil, p.fail(at, "unexpected %q", p.rune())
 	}
 	p.skipBlank(false)
+	if p.peek("{") || p.peek("[") {
+		return nil, p.fail(p.i, "a unit in braces follows a number, not a name: write 9.80665 {m/s^2}, or give the name's unit with its input")
+	}
 	if !p.peek("(") {
 		n, err := p.newNode(kRef, at)
 		if err != nil {
@@ -544,7 +586,10 @@ func (p *parser) primary() (*node, error) {
 	return n, nil
 }
 
-// number reads a number and an optional unit in square brackets.
+// bracketHelp is the reason given for a square bracket in a formula.
+const bracketHelp = "a unit in a formula is written in braces: 9.80665 {m/s^2}, 20{°C}"
+
+// number reads a number and an optional unit in braces: 9.80665 {m/s^2}.
 func (p *parser) number() (*node, error) {
 	at := p.i
 	j := p.i
@@ -569,29 +614,48 @@ func (p *parser) number() (*node, error) {
 	if err != nil {
 		return nil, err
 	}
+	x, err := strconv.ParseFloat(text, 64)
+	switch {
+	case errors.Is(err, strconv.ErrRange):
+		return nil, p.failRange(at, "%q is beyond the range of float64: it overflows or underflows", text)
+	case err != nil:
+		return nil, p.fail(at, "%q is not a number", text)
+	case x == 0 && strings.ContainsAny(strings.SplitN(strings.ToLower(text), "e", 2)[0], "123456789"):
+		return nil, p.failRange(at, "%q is beyond the range of float64: it underflows to zero", text)
+	}
+	n.val = x
 	p.skipBlank(false)
-	if p.peek("[") {
-		end := strings.IndexByte(p.src[p.i:], ']')
-		if end < 0 {
-			return nil, p.fail(p.i, "'[' is never closed")
+	switch {
+	case p.peek("["):
+		return nil, p.fail(p.i, bracketHelp)
+	case p.peek("{"):
+		end := strings.IndexAny(p.src[p.i:], "}\n;")
+		if end < 0 || p.src[p.i+end] != '}' {
+			return nil, p.fail(p.i, "'{' is never closed: a unit in braces ends with '}' on the same line")
 		}
 		unitText := p.src[p.i+1 : p.i+end]
+		ut := strings.TrimSpace(unitText)
+		if ut == "" {
+			return nil, p.fail(p.i, "empty braces: a unit goes between them, as in 9.80665 {m/s^2}")
+		}
+		if c := ut[0]; (c >= '0' && c <= '9' || c == '.') && !strings.HasPrefix(ut, "1/") {
+			return nil, p.fail(p.i+1, "{%s} is a number, not a unit: write the value as one number", ut)
+		}
 		v, err := units.ParseValue(text + " " + unitText)
 		if err != nil {
-			return nil, p.fail(at, "%v", err)
+			// The unit's own error, so that the error has one class.
+			var ve *units.ValueError
+			if errors.As(err, &ve) && ve.Err != nil {
+				err = ve.Err
+			}
+			return nil, &Error{Input: p.src, Offset: p.i + 1, Reason: fmt.Sprintf("the unit {%s}: %v", unitText, err), Err: err, cls: classOf(err)}
 		}
 		q := v.Quantity()
 		n.val, n.dim = q.Value(), q.Dim()
 		p.i += end + 1
-	} else {
-		v, err := units.ParseValue(text)
-		if err != nil {
-			return nil, p.fail(at, "%q is not a number", text)
+		if math.IsNaN(n.val) || math.IsInf(n.val, 0) {
+			return nil, p.failRange(at, "%s {%s} is not finite in SI", text, unitText)
 		}
-		n.val = v.Number
-	}
-	if math.IsNaN(n.val) || math.IsInf(n.val, 0) {
-		return nil, p.fail(at, "%q is not a finite number", text)
 	}
 	return n, nil
 }

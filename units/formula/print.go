@@ -56,9 +56,9 @@ func writeNode(sb *strings.Builder, n *node, outer int) {
 	case kNum:
 		sb.WriteString(strconv.FormatFloat(n.val, 'g', -1, 64))
 		if !n.dim.IsDimensionless() {
-			sb.WriteString(" [")
+			sb.WriteString(" {")
 			sb.WriteString(n.dim.SIUnitASCII())
-			sb.WriteByte(']')
+			sb.WriteByte('}')
 		}
 	case kRef:
 		sb.WriteString(n.name)

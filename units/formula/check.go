@@ -1,0 +1,247 @@
+package formula
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+
+	"similis.dev/similis/quantity"
+)
+
+// Check says what an Evaluator does with a result that is not finite:
+// ±Inf or NaN from a division by zero, a logarithm of zero or of a
+// negative number, a square root of a negative number, asin or acos of a
+// number outside [−1, 1], a fractional power of a negative number, or an
+// overflow beyond the range of float64.
+//
+// A result is checked as later statements see it, so an operation on a
+// branch of if that is not taken does not count: if(x > 0, ln(x), 0) is
+// 0 at x = 0. A missing value — NaN in an input column, or a result
+// already marked missing — makes missing (NaN) the results of the
+// statements that name it; that is neither an error nor counted.
+type Check uint8
+
+const (
+	// CheckFinite, the default, refuses a result that is not finite: the
+	// evaluation stops with a *RangeError naming the first row and, in
+	// that row, the first statement whose result is not finite, and the
+	// operation that first gave a value that is not finite.
+	CheckFinite Check = iota
+	// MarkMissing sets a result that is not finite to NaN, the mark of a
+	// missing value, and counts it (Evaluator.Marked); later statements
+	// see it as missing. The evaluation goes on.
+	MarkMissing
+	// Unchecked leaves results as the float64 arithmetic gives them, ±Inf
+	// and NaN included, and never reports them: the fastest way, for a
+	// caller that checks the results itself.
+	Unchecked
+)
+
+// String returns the constant's name.
+func (c Check) String() string {
+	switch c {
+	case CheckFinite:
+		return "CheckFinite"
+	case MarkMissing:
+		return "MarkMissing"
+	case Unchecked:
+		return "Unchecked"
+	}
+	return "Check(" + strconv.Itoa(int(c)) + ")"
+}
+
+// RangeError reports a result that is not finite, where an Evaluator
+// checks them (CheckFinite). It matches quantity.ErrRange under
+// errors.Is.
+type RangeError struct {
+	Input     string  // the formula text
+	Row       int     // the row of the columns given to Series, from 0; −1 for Row, RowQ and Gradient
+	Statement int     // the statement, as an index of Outputs
+	Name      string  // the statement's name, "" for a bare expression
+	Value     float64 // the statement's result: +Inf, −Inf or NaN
+	Wrt       string  // for a derivative from Gradient, the input it is taken with respect to
+	Offset    int     // byte offset in Input of the operation that first gave a value that is not finite
+	Reason    string  // what that operation did: "division by zero", "logarithm of a negative number", …
+}
+
+// Error implements the error interface. It counts rows and statements
+// from 1, as a reader does; the fields count from 0.
+func (e *RangeError) Error() string {
+	in := e.Input
+	if len(in) > 80 {
+		in = in[:80] + "…"
+	}
+	where := ""
+	if e.Row >= 0 {
+		where = fmt.Sprintf("row %d, ", e.Row+1)
+	}
+	what := "result"
+	if e.Name != "" {
+		what = e.Name
+	}
+	if e.Wrt != "" {
+		what = fmt.Sprintf("∂%s/∂%s", what, e.Wrt)
+	}
+	return fmt.Sprintf("formula %q: %sstatement %d (counting from 1): %s is %v, not finite: at %d: %s", in, where, e.Statement+1, what, e.Value, e.Offset, e.Reason)
+}
+
+// Is reports whether target is quantity.ErrRange, the class of a
+// *RangeError.
+func (e *RangeError) Is(target error) bool { return target == quantity.ErrRange }
+
+// SetCheck sets what the evaluator does with a result that is not finite;
+// an Evaluator starts with CheckFinite.
+func (e *Evaluator) SetCheck(c Check) { e.check = c }
+
+// Marked returns how many results of statement i (an index of Outputs)
+// MarkMissing has set to NaN since the evaluator was made or ResetMarked
+// was called; missing inputs that made results missing are not counted.
+func (e *Evaluator) Marked(i int) int { return e.marked[i] }
+
+// ResetMarked sets the counts of Marked to zero.
+func (e *Evaluator) ResetMarked() { clear(e.marked) }
+
+func finite(x float64) bool { return x-x == 0 }
+
+// missing reports whether a name that statement i uses holds a missing
+// value (NaN) in the registers r.
+func (p *Program) missing(i int, r []float64) bool {
+	for _, s := range p.outputs[i].refs {
+		if math.IsNaN(r[s]) {
+			return true
+		}
+	}
+	return false
+}
+
+// rowChecked evaluates one row, whose inputs are in e.regs, statement by
+// statement, writing the results into res; a statement whose result is
+// not finite, and not made missing by a missing value it uses, is
+// reported (CheckFinite) or set to NaN and counted (MarkMissing). row is
+// the row's index for an error, −1 for Row.
+func (e *Evaluator) rowChecked(row int, res []float64) error {
+	p := e.p
+	r := e.regs
+	for i, o := range p.outputs {
+		for _, op := range p.ops[o.lo:o.hi] {
+			r[op.dst] = scalar(op, r)
+		}
+		v := r[o.slot]
+		if !finite(v) && !p.missing(i, r) {
+			if e.check != MarkMissing {
+				return p.rangeError(row, i, r)
+			}
+			e.marked[i]++
+			v = math.NaN()
+			if o.slot >= len(p.inputs) {
+				r[o.slot] = v // later statements see it missing
+			}
+		}
+		res[i] = v
+	}
+	return nil
+}
+
+// rangeError describes statement i's result that is not finite, with the
+// registers r holding the row's values: it finds the first operation the
+// result depends on (taking the branch of if that was taken) that gave a
+// value that is not finite from operands that are.
+func (p *Program) rangeError(row, i int, r []float64) *RangeError {
+	o := p.outputs[i]
+	e := &RangeError{Input: p.src, Row: row, Statement: i, Name: o.name, Value: r[o.slot], Offset: o.pos}
+	nIn := len(p.inputs)
+	if o.slot < nIn {
+		e.Reason = fmt.Sprintf("input %s is %v", p.inputs[o.slot].Name, r[o.slot])
+		return e
+	}
+	live := make(map[int]bool) // an error's cold path
+	live[o.slot] = true
+	ops := p.ops[o.lo:o.hi]
+	for k := len(ops) - 1; k >= 0; k-- {
+		op := ops[k]
+		if !live[op.dst] {
+			continue
+		}
+		for _, s := range operands(op, r) {
+			live[s] = true
+		}
+	}
+	for k, op := range ops {
+		if !live[op.dst] || finite(r[op.dst]) {
+			continue
+		}
+		e.Offset = p.opPos[o.lo+k]
+		for _, s := range operands(op, r) {
+			if s < nIn && !finite(r[s]) {
+				e.Reason = fmt.Sprintf("input %s is %v", p.inputs[s].Name, r[s])
+				return e
+			}
+		}
+		e.Reason = why(op, r)
+		return e
+	}
+	e.Reason = "the result is not finite"
+	return e
+}
+
+// operands returns the slots op reads, only the branch taken for if.
+func operands(op op, r []float64) []int {
+	switch op.code {
+	case opConst:
+		return nil
+	case opAdd, opSub, opMul, opDiv, opPowX, opMin, opMax, opHypot, opAtan2, opLT, opLE, opGT, opGE, opEQ, opNE, opAnd, opOr:
+		return []int{op.a, op.b}
+	case opIf:
+		if r[op.a] != 0 {
+			return []int{op.a, op.b}
+		}
+		return []int{op.a, op.c}
+	}
+	return []int{op.a}
+}
+
+// why says what an operation with finite operands did to give a value
+// that is not finite.
+func why(op op, r []float64) string {
+	a, b := r[op.a], r[op.b]
+	const overflow = "an overflow: the value is beyond the range of float64"
+	switch op.code {
+	case opDiv:
+		if b == 0 {
+			return "division by zero"
+		}
+		return overflow + " (a division)"
+	case opPowInt, opPow, opPowX:
+		e := float64(op.n)
+		if op.code == opPow {
+			e = op.k
+		} else if op.code == opPowX {
+			e = b
+		}
+		switch {
+		case a == 0 && e < 0:
+			return "zero raised to a negative power"
+		case a < 0 && e != math.Trunc(e):
+			return "a fractional power of a negative number"
+		}
+		return overflow + " (a power)"
+	case opSqrt:
+		return "square root of a negative number"
+	case opLn, opLog10:
+		if a == 0 {
+			return "logarithm of zero"
+		}
+		return "logarithm of a negative number"
+	case opAsin:
+		return "asin of a number outside [−1, 1]"
+	case opAcos:
+		return "acos of a number outside [−1, 1]"
+	case opExp:
+		return overflow + " (exp)"
+	case opMul:
+		return overflow + " (a product)"
+	case opAdd, opSub:
+		return overflow + " (a sum)"
+	}
+	return overflow
+}
