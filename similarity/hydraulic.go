@@ -224,7 +224,7 @@ func ParticleReynoldsCheck(reStar float64) (ScaleCheck, error) {
 	}
 	c := ScaleCheck{Name: "model grain Re* = u*·d/ν", Value: reStar, Limit: ViscousParticleReynolds, Unit: "1",
 		Pass:  reStar >= ViscousParticleReynolds,
-		Basis: "below it the grain is within the viscous sublayer (hydraulically smooth, k_s·u*/ν < 5; from memory)"}
+		Basis: "hydraulically smooth below it, the grain within the viscous sublayer; from memory"}
 	if !c.Pass {
 		c.Warning = "the grain is in the viscous range; its threshold of motion departs from the prototype's (a coarser, lighter grain raises Re*)"
 	}
@@ -258,7 +258,7 @@ func ModelManningCheck(protoN, nRatio float64) (ScaleCheck, error) {
 	}
 	c := ScaleCheck{Name: "model Manning n", Value: n, Limit: SmoothestModelManning, Unit: "s·m^(−1/3)",
 		Pass:  n >= SmoothestModelManning,
-		Basis: "about the smoothest plastic or glass (published Manning tables; 0.009 plastic, 0.010 glass)"}
+		Basis: "the smoothest model materials in published Manning tables: plastic 0.009, glass 0.010"}
 	if !c.Pass {
 		c.Warning = "no model material is this smooth, so the model's friction will be too large (common remedies: tilt the model, or distort it)"
 	}

@@ -105,8 +105,8 @@ func TestTurboHydraulicNoSilentInf(t *testing.T) {
 	}
 }
 
-// TestModelManningCheck: by hand, a prototype n of 0.014 (finished
-// concrete, common practice) in a 1:30 Froude model needs
+// TestModelManningCheck: by hand, a prototype n of 0.014 (concrete
+// cast in forms, common practice) in a 1:30 Froude model needs
 // 0.014·30^(−1/6) = 0.014·0.567301 = 0.0079422 s·m^(−1/3), below the
 // 0.009 of smooth plastic, and fails with its warning; a natural channel's
 // 0.030 needs 0.017019 and passes; the distorted 1:120 × 1:30 model's
