@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"math"
+	"os"
 	"regexp"
 	"strconv"
 	"strings"
@@ -152,4 +153,42 @@ func FuzzPumpscaleFlags(f *testing.F) {
 			t.Fatalf("%q printed a non-finite number:\n%s", args, s)
 		}
 	})
+}
+
+// TestMoodyNamedAsEfficiencyFormula: wherever this program and the
+// overviews (README, the module's doc.go) name Moody, the words that
+// follow say it is his efficiency step-up, not his friction diagram; the
+// README's sentence on pumps names it.
+func TestMoodyNamedAsEfficiencyFormula(t *testing.T) {
+	readme, err := os.ReadFile("../../README.md")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(string(readme), "Moody's efficiency step-up") {
+		t.Error("README's overview does not name Moody's efficiency step-up")
+	}
+	for _, name := range []string{"../../README.md", "../../doc.go", "main.go"} {
+		b, err := os.ReadFile(name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		s := string(b)
+		for i := strings.Index(s, "Moody"); i >= 0; {
+			rest := s[i+len("Moody"):]
+			if !strings.HasPrefix(rest, "StepUp") && !strings.HasPrefix(rest, "Curve") {
+				w := rest
+				if len(w) > 32 {
+					w = w[:32]
+				}
+				if !strings.Contains(w, "efficiency") && !strings.Contains(w, "step-up") {
+					t.Errorf("%s: %q does not say which Moody", name, "Moody"+w)
+				}
+			}
+			j := strings.Index(rest, "Moody")
+			if j < 0 {
+				break
+			}
+			i += len("Moody") + j
+		}
+	}
 }

@@ -1,14 +1,14 @@
 // Command pumpscale carries an invented model-pump test curve to a
-// prototype at another speed and impeller diameter by the affinity laws,
-// with the efficiency stepped up by Moody's efficiency step-up formula
-// (L. F. Moody, 1925: η_p = 1 − (1 − η_m)(D_m/D_p)^n; not his friction
-// diagram) at the best-efficiency point and that gain added along the
-// curve (common practice), and prints the curve in US customary units
-// (gpm, ft, shaft hp) and in SI; then it
-// compares the step-up with IEC 60193's and Ackeret's, gives the specific
-// speed in its three conventions, and carries the model's NPSH3 to the
-// prototype at its own water temperature through the Thoma number, with
-// the uncertainty budget of the NPSH3 found from the suction readings.
+// larger prototype at another speed by the affinity laws, with the
+// efficiency stepped up by Moody's efficiency step-up formula (1925:
+// η_p = 1 − (1 − η_m)(D_m/D_p)^n; not his friction diagram) at the
+// best-efficiency point and that gain added along the curve (common
+// practice), and prints the curve in US customary units (gpm, ft, shaft
+// hp) and in SI; then it compares the step-up with IEC 60193's and
+// Ackeret's, gives the specific speed in its three conventions, and
+// carries the model's NPSH3 to the prototype at its own water
+// temperature through the Thoma number, with the uncertainty budget of
+// the NPSH3 found from the suction readings.
 //
 // The pump family and the test curve are invented.
 //
