@@ -192,3 +192,21 @@ func TestMoodyNamedAsEfficiencyFormula(t *testing.T) {
 		}
 	}
 }
+
+// TestPumpscaleSmallModelComparison: a 2 in model at 100 rpm has Re =
+// 0.0508·(π·0.0508·100/60)/1.0034e-6 = 1.35×10⁴, below the 10⁵ the IEC
+// formula accepts here; the report says the comparison was not applied
+// and why, and keeps Moody's and Ackeret's (it ended with an error).
+func TestPumpscaleSmallModelComparison(t *testing.T) {
+	var out bytes.Buffer
+	_, s, err := evaluateAll(&out, []string{"-nm", "100", "-dm", "2"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if re := 0.0508 * (math.Pi * 0.0508 * 100 / 60) / 1.0034e-6; math.Abs(s.ReModel/re-1) > 2e-3 {
+		t.Errorf("Re_M = %v, by hand %v", s.ReModel, re)
+	}
+	if s.IECRefused == "" || s.AckeretRefused != "" || !strings.Contains(out.String(), "IEC 60193 not applied") {
+		t.Errorf("IEC %q, Ackeret %q:\n%s", s.IECRefused, s.AckeretRefused, out.String())
+	}
+}

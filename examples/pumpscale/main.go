@@ -217,8 +217,11 @@ type Suction struct {
 	ProtoSuction          q.Quantity // absolute pressure needed at the flange
 	ReModel, ReProto      float64
 	IEC, IECGain, Ackeret float64
-	SpecificSpeed         similarity.SpecificSpeeds
-	NPSH                  NPSHBudget
+	// IECRefused and AckeretRefused say why a comparison was not made
+	// (a Reynolds number outside the formula's range); empty when it was.
+	IECRefused, AckeretRefused string
+	SpecificSpeed              similarity.SpecificSpeeds
+	NPSH                       NPSHBudget
 }
 
 // suction compares the step-up methods at the best-efficiency point and
@@ -247,11 +250,13 @@ func suction(w io.Writer, step similarity.StepUp, etas []float64, rows []Row, nm
 		return d.Value() * u / st.KinematicViscosity.Value()
 	}
 	s.ReModel, s.ReProto = re(dModel, nm, mw), re(dProto, np, pw)
+	// A comparison the formulas refuse (a model Reynolds number below
+	// their range) is reported, not fatal: Moody's step-up stands alone.
 	if s.IEC, s.IECGain, err = similarity.IECStepUp(etas[step.BEP], s.ReModel, s.ReProto); err != nil {
-		return Suction{}, err
+		s.IECRefused = err.Error()
 	}
 	if s.Ackeret, err = similarity.AckeretStepUp(etas[step.BEP], s.ReModel, s.ReProto); err != nil {
-		return Suction{}, err
+		s.AckeretRefused = err.Error()
 	}
 	ft := units.MustParse("ft")
 	if s.Sigma, err = similarity.Thoma(ft.Of(modelNPSH3), bep.ModelH); err != nil {
@@ -268,8 +273,20 @@ func suction(w io.Writer, step similarity.StepUp, etas []float64, rows []Row, nm
 	fmt.Fprintf(w, "\nAt the best-efficiency point: specific speed N_s = %.0f (rpm, gpm, ft) = n_q %.1f (rpm, m³/s, m) = Ω_s %.3f (rad/s, dimensionless)\n",
 		s.SpecificSpeed.US, s.SpecificSpeed.Metric, s.SpecificSpeed.Dimensionless)
 	fmt.Fprintf(w, "step-up compared, Re = D·u/ν with u = πDn (n in rev/s): model %.3g (%g °C), prototype %.3g (%g °C):\n", s.ReModel, modelWaterC, s.ReProto, protoWaterC)
-	fmt.Fprintf(w, "  Moody's step-up (D^%g) %.1f %%; IEC 60193 scalable losses %.1f %% (Δη %.2f points); Ackeret %.1f %%\n",
-		moody, 100*(etas[step.BEP]+step.Gain), 100*s.IEC, 100*s.IECGain, 100*s.Ackeret)
+	iec := fmt.Sprintf("IEC 60193 scalable losses %.1f %% (Δη %.2f points)", 100*s.IEC, 100*s.IECGain)
+	if s.IECRefused != "" {
+		iec = "IEC 60193 not applied"
+	}
+	ack := fmt.Sprintf("Ackeret %.1f %%", 100*s.Ackeret)
+	if s.AckeretRefused != "" {
+		ack = "Ackeret not applied"
+	}
+	fmt.Fprintf(w, "  Moody's step-up (D^%g) %.1f %%; %s; %s\n", moody, 100*(etas[step.BEP]+step.Gain), iec, ack)
+	for _, r := range []string{s.IECRefused, s.AckeretRefused} {
+		if r != "" {
+			fmt.Fprintf(w, "  (%s)\n", r)
+		}
+	}
 	fmt.Fprintf(w, "cavitation (invented model NPSH3 = %.1f ft at the BEP): Thoma σ = NPSH3/H = %.4f held at the prototype:\n", modelNPSH3, s.Sigma)
 	fmt.Fprintf(w, "  prototype NPSH3 = σ·H_p = %.1f ft (%.2f m); at %g °C (p_v = %.0f Pa, IAPWS-IF97) and %.1f m/s at the flange\n",
 		s.ProtoNPSH3.Value()/0.3048, s.ProtoNPSH3.Value(), protoWaterC, pv.Value(), protoInletMS)
