@@ -22,8 +22,9 @@
 //     groups, evaluation over data and power-law fitting.
 //   - similarity: scale ratios, test plans and their conflicts, the
 //     compromise, transfer of model data, rules of similitude,
-//     extrapolation to full scale (ITTC-1957, Prohaska, Moody), condition
-//     finders and reports; similarity/fluids gives water, air and the
+//     extrapolation to full scale (ITTC-1957, Prohaska, Moody's
+//     efficiency step-up for pumps and turbines), condition finders and
+//     reports; similarity/fluids gives water, air and the
 //     ISO 2533 atmosphere.
 //   - internal/exact: algorithms only — exact elimination, rank, null
 //     space, fraction-free integer elimination; internal/dual, dual

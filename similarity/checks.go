@@ -2,6 +2,7 @@ package similarity
 
 import (
 	"math"
+	"strconv"
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
@@ -47,4 +48,41 @@ func orDefault(method, name string, q, def quantity.Quantity) (quantity.Quantity
 // is unset, checked as orDefault does.
 func gravityOr(method string, g quantity.Quantity) (quantity.Quantity, error) {
 	return orDefault(method, "gravity", g, units.StandardGravity())
+}
+
+// ResultRangeError reports a result that falls out of the range of a
+// float64 — an overflow to ±Inf, a NaN, or an underflow to zero where the
+// inputs make the result positive — although each input was accepted.
+// It matches quantity.ErrRange.
+type ResultRangeError struct {
+	Method string // the computation, "NPSH"
+	Result string // the result that overflowed, "specific speed n_q"
+	Value  float64
+}
+
+// Error implements the error interface.
+func (e *ResultRangeError) Error() string {
+	return "similarity: " + e.Method + ": the " + e.Result + " (" + strconv.FormatFloat(e.Value, 'g', 4, 64) +
+		") is out of the range of a float64 for these inputs"
+}
+
+// Is reports whether target is quantity.ErrRange, the class of a
+// *ResultRangeError.
+func (e *ResultRangeError) Is(target error) bool { return target == quantity.ErrRange }
+
+// result is one computed value a method returns, with its name.
+type result struct {
+	name string
+	v    float64
+}
+
+// checkResults returns a *ResultRangeError for the first result that is
+// not finite or, when positive is set, not above zero.
+func checkResults(method string, positive bool, rs ...result) error {
+	for _, r := range rs {
+		if math.IsNaN(r.v) || math.IsInf(r.v, 0) || (positive && !(r.v > 0)) {
+			return &ResultRangeError{Method: method, Result: r.name, Value: r.v}
+		}
+	}
+	return nil
 }

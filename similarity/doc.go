@@ -47,5 +47,6 @@
 // Model-test predictions are estimates subject to scale effects.
 // Hydraulic structures, hulls and pressure vessels are designed to the
 // applicable local codes and checked by licensed engineers; reports
-// printed by this package say so.
+// printed by this package say so, and PumpCaution and
+// HydraulicStructureCaution go with pump and hydraulic-model results.
 package similarity

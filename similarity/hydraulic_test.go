@@ -138,3 +138,31 @@ func ExampleWeirLimits() {
 	// head h = 0.045 m (limit ≥ 0.07 m, Erpicum et al. 2016: published criteria for linear weirs ask 0.02–0.07 m; the upper value): FAILS: scale effects likely
 	// crest radius R = 0.02 m (limit ≥ 0.01 m, Castro-Orgaz and Hager 2014, round crests): passes
 }
+
+// A 1:30 model of a concrete chute (prototype n = 0.014) would need a
+// model n of 0.0079, smoother than plastic; the river's n = 0.030 is
+// within reach.
+func ExampleModelManningCheck() {
+	r, _ := similarity.ManningRatio(1.0 / 30)
+	for _, n := range []float64{0.014, 0.030} {
+		c, err := similarity.ModelManningCheck(n, r)
+		if err != nil {
+			fmt.Println(err)
+			return
+		}
+		fmt.Printf("prototype n %.3f → model n %.4f, passes: %v\n", n, c.Value, c.Pass)
+	}
+	// Output:
+	// prototype n 0.014 → model n 0.0079, passes: false
+	// prototype n 0.030 → model n 0.0170, passes: true
+}
+
+// A model grain at Re* = 4.2 lies in the viscous range.
+func ExampleParticleReynoldsCheck() {
+	c, _ := similarity.ParticleReynoldsCheck(4.2)
+	fmt.Println(c.Pass, c.Limit)
+	fmt.Println(c.Warning)
+	// Output:
+	// false 5
+	// the grain is in the viscous range; its threshold of motion departs from the prototype's (a coarser, lighter grain raises Re*)
+}

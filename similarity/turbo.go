@@ -7,6 +7,13 @@ import (
 	"similis.dev/similis/quantity"
 )
 
+// PumpCaution accompanies every pump or turbine result carried from a
+// model to a prototype (step-ups, NPSH and Thoma number, specific speed):
+// print it with them.
+const PumpCaution = "Pump and turbine performance scaled from a model test is an estimate subject to scale effects; " +
+	"guaranteed performance comes from the acceptance test to the applicable standard (ISO 9906, IEC 60193), and the " +
+	"installation, its suction conditions and its pressure parts are designed to the applicable local codes and checked by licensed engineers."
+
 // IEC 60193 reference values for the scalable-loss step-up of reaction
 // machines (Francis and pump-turbines, pumps): the reference Reynolds
 // number and the scalable part of the losses at it.
@@ -145,7 +152,8 @@ type NPSHInput struct {
 
 // NPSH returns the net positive suction head (energy) at the section,
 // NPSH = (p − p_v)/(ρg) + V²/(2g), as a length: the head above vapour
-// pressure (ISO 9906, IEC 60193).
+// pressure (ISO 9906, IEC 60193). A result out of the range of a float64
+// is a *ResultRangeError. See PumpCaution.
 func NPSH(in NPSHInput) (quantity.Quantity, error) {
 	m := func(r string) error { return &ExtrapolationError{Method: "NPSH", Reason: r} }
 	if err := checkInputs("NPSH", false,
@@ -163,7 +171,11 @@ func NPSH(in NPSHInput) (quantity.Quantity, error) {
 	if !(p > 0) || !(pv > 0) || !(rho > 0) || math.IsInf(p+pv+rho+v, 0) || math.IsNaN(v) {
 		return quantity.Quantity{}, m("pressure, vapour pressure and density must be positive (absolute) and finite")
 	}
-	return quantity.New((p-pv)/(rho*g)+v*v/(2*g), quantity.Length), nil
+	n := (p-pv)/(rho*g) + v*v/(2*g)
+	if err := checkResults("NPSH", false, result{"NPSH", n}); err != nil {
+		return quantity.Quantity{}, err
+	}
+	return quantity.New(n, quantity.Length), nil
 }
 
 // Thoma returns the Thoma cavitation number σ = NPSH/H: equal for model
@@ -177,21 +189,29 @@ func Thoma(npsh, head quantity.Quantity) (float64, error) {
 		return 0, err
 	}
 	if !(head.Value() > 0) || math.IsInf(head.Value(), 0) || math.IsNaN(npsh.Value()) || math.IsInf(npsh.Value(), 0) {
-		return 0, &ExtrapolationError{Method: "Thoma number", Reason: fmt.Sprintf("head %v: want a positive length", head)}
+		return 0, &ExtrapolationError{Method: "Thoma number", Reason: fmt.Sprintf("NPSH %v and head %v: want a finite NPSH and a positive, finite head", npsh, head)}
 	}
-	return npsh.Value() / head.Value(), nil
+	sigma := npsh.Value() / head.Value()
+	return sigma, checkResults("Thoma number", false, result{"Thoma number σ", sigma})
 }
 
 // SuctionPressureFor returns the absolute static pressure the prototype
 // needs at its low-pressure section to run at the model's Thoma number σ
 // with head H: p = p_v + ρg(σH − V²/(2g)), with the vapour pressure at the
-// prototype's own water temperature.
+// prototype's own water temperature. Head, vapour pressure and density
+// must be positive and finite, the velocity finite. See PumpCaution.
 func SuctionPressureFor(sigma float64, head quantity.Quantity, vapour, density, velocity, gravity quantity.Quantity) (quantity.Quantity, error) {
-	if err := checkInputs("suction pressure", false,
+	if err := checkInputs("suction pressure", true,
 		input{"head", head, quantity.Length}, input{"vapour pressure", vapour, quantity.Pressure},
-		input{"density", density, quantity.Density}, input{"velocity", velocity, quantity.Velocity},
+		input{"density", density, quantity.Density},
 	); err != nil {
 		return quantity.Quantity{}, err
+	}
+	if err := checkInputs("suction pressure", false, input{"velocity", velocity, quantity.Velocity}); err != nil {
+		return quantity.Quantity{}, err
+	}
+	if v := velocity.Value(); math.IsNaN(v) || math.IsInf(v, 0) {
+		return quantity.Quantity{}, &ExtrapolationError{Method: "suction pressure", Reason: "velocity must be finite"}
 	}
 	gq, err := gravityOr("suction pressure", gravity)
 	if err != nil {
@@ -203,6 +223,9 @@ func SuctionPressureFor(sigma float64, head quantity.Quantity, vapour, density, 
 	}
 	v := velocity.Value()
 	p := vapour.Value() + density.Value()*g*(sigma*head.Value()-v*v/(2*g))
+	if err := checkResults("suction pressure", false, result{"required absolute pressure", p}); err != nil {
+		return quantity.Quantity{}, err
+	}
 	if !(p > 0) {
 		return quantity.Quantity{}, &ExtrapolationError{Method: "suction pressure", Reason: fmt.Sprintf("the required absolute pressure %.4g Pa is not positive", p)}
 	}
@@ -244,19 +267,53 @@ func SpecificSpeedOf(omega, flow, head quantity.Quantity) (SpecificSpeeds, error
 	if !(w > 0 && qv > 0 && h > 0) || math.IsInf(w+qv+h, 0) {
 		return SpecificSpeeds{}, &ExtrapolationError{Method: "specific speed", Reason: "speed, flow and head must be positive and finite"}
 	}
-	return SpecificSpeedMetric(w * 60 / (2 * math.Pi) * math.Sqrt(qv) / math.Pow(h, 0.75)), nil
+	return specificSpeeds(w * 60 / (2 * math.Pi) * math.Sqrt(qv) / math.Pow(h, 0.75))
 }
 
-// SpecificSpeedMetric converts n_q (rpm, m³/s, m) to all three forms.
-func SpecificSpeedMetric(nq float64) SpecificSpeeds {
-	return SpecificSpeeds{Dimensionless: nq * dimensionlessPerMetric, Metric: nq, US: nq * usPerMetric}
+// SpecificSpeedMetric converts n_q (rpm, m³/s, m) to all three forms. A
+// specific speed that is not positive and finite is an
+// *ExtrapolationError; one whose other forms overflow a float64 is a
+// *ResultRangeError.
+func SpecificSpeedMetric(nq float64) (SpecificSpeeds, error) {
+	if err := specificSpeedIn("n_q", nq); err != nil {
+		return SpecificSpeeds{}, err
+	}
+	return specificSpeeds(nq)
 }
 
-// SpecificSpeedUS converts N_s (rpm, US gpm, ft) to all three forms.
-func SpecificSpeedUS(ns float64) SpecificSpeeds { return SpecificSpeedMetric(ns / usPerMetric) }
+// SpecificSpeedUS converts N_s (rpm, US gpm, ft) to all three forms,
+// with the errors of SpecificSpeedMetric.
+func SpecificSpeedUS(ns float64) (SpecificSpeeds, error) {
+	if err := specificSpeedIn("N_s", ns); err != nil {
+		return SpecificSpeeds{}, err
+	}
+	return specificSpeeds(ns / usPerMetric)
+}
 
 // SpecificSpeedDimensionless converts Ω_s (rad/s, m³/s, m, g_n) to all
-// three forms.
-func SpecificSpeedDimensionless(omega float64) SpecificSpeeds {
-	return SpecificSpeedMetric(omega / dimensionlessPerMetric)
+// three forms, with the errors of SpecificSpeedMetric.
+func SpecificSpeedDimensionless(omega float64) (SpecificSpeeds, error) {
+	if err := specificSpeedIn("Ω_s", omega); err != nil {
+		return SpecificSpeeds{}, err
+	}
+	return specificSpeeds(omega / dimensionlessPerMetric)
+}
+
+// specificSpeedIn checks a specific speed given in one form.
+func specificSpeedIn(form string, v float64) error {
+	if !(v > 0) || math.IsInf(v, 0) {
+		return &ExtrapolationError{Method: "specific speed", Reason: fmt.Sprintf("%s = %v: want a positive, finite specific speed", form, v)}
+	}
+	return nil
+}
+
+// specificSpeeds returns the three forms from n_q, each checked.
+func specificSpeeds(nq float64) (SpecificSpeeds, error) {
+	s := SpecificSpeeds{Dimensionless: nq * dimensionlessPerMetric, Metric: nq, US: nq * usPerMetric}
+	if err := checkResults("specific speed", true,
+		result{"specific speed n_q", s.Metric}, result{"specific speed N_s", s.US}, result{"specific speed Ω_s", s.Dimensionless},
+	); err != nil {
+		return SpecificSpeeds{}, err
+	}
+	return s, nil
 }

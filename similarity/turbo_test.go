@@ -108,7 +108,12 @@ func TestSpecificSpeed(t *testing.T) {
 	if om := 1450 * 2 * math.Pi / 60 * math.Sqrt(0.1) / math.Pow(9.80665*30, 0.75); math.Abs(s.Dimensionless-om) > 1e-12*om {
 		t.Errorf("Ω_s = %v, by definition %v", s.Dimensionless, om)
 	}
-	for _, back := range []similarity.SpecificSpeeds{similarity.SpecificSpeedUS(s.US), similarity.SpecificSpeedDimensionless(s.Dimensionless)} {
+	us, errUS := similarity.SpecificSpeedUS(s.US)
+	dl, errDL := similarity.SpecificSpeedDimensionless(s.Dimensionless)
+	if errUS != nil || errDL != nil {
+		t.Fatalf("round trip: %v, %v", errUS, errDL)
+	}
+	for _, back := range []similarity.SpecificSpeeds{us, dl} {
 		if math.Abs(back.Metric-s.Metric) > 1e-12*s.Metric {
 			t.Errorf("round trip %+v, want %+v", back, s)
 		}

@@ -1,18 +1,22 @@
 // Command pumpscale carries an invented model-pump test curve to a
-// prototype at another speed and impeller diameter by the affinity laws,
-// with the efficiency stepped up by Moody's formula at the best-efficiency
-// point and that gain added along the curve (common practice), and prints
-// the curve in US customary units (gpm, ft, hp) and in SI; then it
-// compares the step-up with IEC 60193's and Ackeret's, gives the specific
-// speed in its three conventions, and carries the model's NPSH3 to the
-// prototype at its own water temperature through the Thoma number, with
-// the uncertainty budget of the NPSH3 found from the suction readings.
+// larger prototype at another speed by the affinity laws, with the
+// efficiency stepped up by Moody's efficiency step-up formula (1925:
+// η_p = 1 − (1 − η_m)(D_m/D_p)^n; not his friction diagram) at the
+// best-efficiency point and that gain added along the curve (common
+// practice), and prints the curve in US customary units (gpm, ft, shaft
+// hp) and in SI; then it compares the step-up with IEC 60193's and
+// Ackeret's, gives the specific speed in its three conventions, and
+// carries the model's NPSH3 to the prototype at its own water
+// temperature through the Thoma number, with the uncertainty budget of
+// the NPSH3 found from the suction readings.
 //
 // The pump family and the test curve are invented.
 //
 // Usage:
 //
 //	go run ./examples/pumpscale [-nm 1750] [-dm 10] [-np 1180] [-dp 24] [-moody 0.2]
+//
+// A bad flag value exits with status 2, naming the flag.
 package main
 
 import (
@@ -23,6 +27,7 @@ import (
 	"math"
 	"os"
 
+	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
@@ -35,9 +40,39 @@ func main() {
 			return // -h: the usage is printed
 		}
 		fmt.Fprintln(os.Stderr, "pumpscale:", err)
-		os.Exit(2)
+		var ce *cli.Error
+		if errors.As(err, &ce) {
+			os.Exit(2) // a usage mistake
+		}
+		os.Exit(1)
 	}
 }
+
+// about is the head of the -h text: what the program does and what its
+// output means.
+const about = `Usage: pumpscale [flags]
+
+Carries an invented model-pump test curve (taken on the model that -dm
+and -nm describe, by default a 10 in impeller at 1750 rpm) to a
+geometrically similar, larger prototype at another speed by the affinity
+laws, and prints: the model/prototype ratios of flow (N·D³) and
+head (N²·D²); a table of each test point, model and prototype, in US
+customary units (gpm, ft, shaft horsepower of 550 ft·lbf/s) and in SI
+(L/s, m, kW), where power is shaft power ρgQH/η with each machine's own
+efficiency, the prototype's stepped up by Moody's efficiency formula
+(1925, the diameter step-up, not the friction diagram) at the
+best-efficiency point with that gain added at every point; that step-up
+compared with IEC 60193's and Ackeret's; the specific speed in its three
+conventions; the prototype's NPSH3 and suction pressure from the model's
+through the Thoma number; and the NPSH3 uncertainty budget. All data are
+invented; the output ends with the caution that governs any use of it.
+
+Flags:
+`
+
+// maxTipSpeed bounds the impeller peripheral speed πDn of model and
+// prototype, m/s: a pair of flags beyond it describes no pump.
+const maxTipSpeed = 150.0
 
 // point is one invented model test point, as the rig's sheet gives it.
 type point struct{ flow, head, eff string }
@@ -47,9 +82,6 @@ var curve = []point{
 	{"200 gpm", "118 ft", "52 %"}, {"400 gpm", "114 ft", "71 %"}, {"600 gpm", "107 ft", "80 %"},
 	{"800 gpm", "96 ft", "83.5 %"}, {"1000 gpm", "81 ft", "81 %"}, {"1200 gpm", "61 ft", "72 %"},
 }
-
-const caution = "Scaled pump curves are estimates; guaranteed performance comes from the manufacturer's acceptance test " +
-	"to the applicable standard, and system design remains with the responsible engineer."
 
 // Row is one carried point, in SI, for the test.
 type Row struct {
@@ -68,17 +100,32 @@ func evaluate(w io.Writer, args []string) ([]Row, error) {
 // evaluateAll carries the curve and the suction performance.
 func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 	fs := flag.NewFlagSet("pumpscale", flag.ContinueOnError)
-	fs.SetOutput(w)
-	nm := fs.Float64("nm", 1750, "model speed, rpm")
-	dm := fs.Float64("dm", 10, "model impeller diameter, in")
-	np := fs.Float64("np", 1180, "prototype speed, rpm")
-	dp := fs.Float64("dp", 24, "prototype impeller diameter, in")
-	moody := fs.Float64("moody", 0.2, "Moody exponent")
-	if err := fs.Parse(args); err != nil {
+	fs.Usage = func() { fmt.Fprint(fs.Output(), about); fs.PrintDefaults() }
+	nm := cli.FloatVar(fs, "nm", 1750, 100, 10000, "rpm", "model speed")
+	dm := cli.FloatVar(fs, "dm", 10, 2, 60, "in", "model impeller diameter")
+	np := cli.FloatVar(fs, "np", 1180, 50, 10000, "rpm", "prototype speed")
+	dp := cli.FloatVar(fs, "dp", 24, 2, 240, "in", "prototype impeller diameter")
+	moody := cli.FloatVar(fs, "moody", 0.2, 0.1, 0.3, "", "exponent n of Moody's efficiency step-up, η_p = 1 − (1 − η_m)(D_m/D_p)^n (1/5 or 1/4 in use, common practice)")
+	if err := cli.Parse(fs, w, args); err != nil {
 		return nil, Suction{}, err
 	}
-	if !(*nm > 0 && *dm > 0 && *np > 0 && *dp > 0) {
-		return nil, Suction{}, fmt.Errorf("speeds and diameters must be positive")
+	// The efficiency step-ups hold from a model to a larger machine at a
+	// higher Reynolds number: n·D² at least the model's (the prototype's
+	// warmer water only raises its Re further).
+	if *dp < *dm || *np**dp**dp < *nm**dm**dm {
+		return nil, Suction{}, &cli.Error{Program: "pumpscale", Msg: fmt.Sprintf(
+			"-dp %g in at -np %g rpm against -dm %g in at -nm %g rpm: the prototype must be at least the model's size and its n·D² at least the model's, since the efficiency is stepped up from model to prototype",
+			*dp, *np, *dm, *nm)}
+	}
+	for _, m := range []struct {
+		d, n   float64
+		df, nf string
+	}{{*dm, *nm, "-dm", "-nm"}, {*dp, *np, "-dp", "-np"}} {
+		if u := math.Pi * m.d * 0.0254 * m.n / 60; u > maxTipSpeed {
+			return nil, Suction{}, &cli.Error{Program: "pumpscale", Msg: fmt.Sprintf(
+				"%s %g in at %s %g rpm: an impeller tip speed of %.0f m/s, above the %g m/s this program accepts (centrifugal pump impellers run well below it; from memory)",
+				m.df, m.d, m.nf, m.n, u, maxTipSpeed)}
+		}
 	}
 	// Ratios prototype/model: the affinity laws run either way.
 	// Ratios are model/prototype, as everywhere in similis.
@@ -94,7 +141,9 @@ func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 	ls, m, kw := units.MustParse("L/s"), units.MustParse("m"), units.MustParse("kW")
 	fmt.Fprintln(w, "Pump-family scale-up by the affinity laws (invented model curve)")
 	fmt.Fprintf(w, "model %g in impeller at %g rpm → prototype %g in at %g rpm\n", *dm, *nm, *dp, *np)
-	fmt.Fprintf(w, "ratios model/prototype: flow %.4g (N·D³), head %.4g (N²·D²), power %.4g (ρ·N³·D⁵); the prototype is the model divided by them\n", aff.Flow, aff.Head, aff.Power)
+	fmt.Fprintf(w, "ratios model/prototype: flow %.4g (N·D³), head %.4g (N²·D²); the prototype's flow and head are the model's divided by them\n", aff.Flow, aff.Head)
+	fmt.Fprintf(w, "power columns: shaft power ρgQH/η, each machine at its own efficiency, the prototype's stepped up (hp = 550 ft·lbf/s);\n")
+	fmt.Fprintf(w, "  the affinity power ratio %.4g (ρ·N³·D⁵) holds only at equal efficiencies, so the prototype's power is not the model's divided by it\n", aff.Power)
 	// Efficiencies first: the step-up is taken at the best-efficiency
 	// point and its gain applied along the curve.
 	etas := make([]float64, len(curve))
@@ -110,8 +159,8 @@ func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 		return nil, Suction{}, err
 	}
 	var rows []Row
-	fmt.Fprintf(w, "\n%-28s | %-40s | %s\n", "model", "prototype (US customary)", "prototype (SI)")
-	fmt.Fprintf(w, "%7s %6s %6s %6s | %8s %7s %8s %6s | %8s %7s %8s\n", "gpm", "ft", "hp", "η", "gpm", "ft", "hp", "η", "L/s", "m", "kW")
+	fmt.Fprintf(w, "\n%-28s | %-40s | %s\n", "model (US customary)", "prototype (US customary)", "prototype (SI)")
+	fmt.Fprintf(w, "%7s %6s %6s %6s | %8s %7s %8s %6s | %8s %7s %8s\n", "Q gpm", "H ft", "P hp", "η", "Q gpm", "H ft", "P hp", "η", "Q L/s", "H m", "P kW")
 	for i, c := range curve {
 		Q, err := units.ParseQuantity(c.flow)
 		if err != nil {
@@ -139,15 +188,15 @@ func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 			v(gpm, r.ProtoQ), v(ft, r.ProtoH), v(hp, r.ProtoP), 100*r.ProtoEta,
 			v(ls, r.ProtoQ), v(m, r.ProtoH), v(kw, r.ProtoP))
 	}
-	fmt.Fprintf(w, "\nefficiency stepped up by Moody's formula, η_p = 1 − (1 − η_m)(D_m/D_p)^%g, at the best-efficiency point\n", *moody)
+	fmt.Fprintf(w, "\nefficiency stepped up by Moody's efficiency formula (1925), η_p = 1 − (1 − η_m)(D_m/D_p)^%g, at the best-efficiency point\n", *moody)
 	fmt.Fprintf(w, "(%.1f %% → %.1f %%), and its gain of %.2f points added at every point (common practice, as IEC 60193 does);\n",
 		100*etas[step.BEP], 100*(etas[step.BEP]+step.Gain), 100*step.Gain)
 	fmt.Fprintln(w, "power from ρgQH/η_p")
-	suc, err := suction(w, step, etas, rows, *nm, *np, dModel, dProto)
+	suc, err := suction(w, step, etas, rows, *nm, *np, *moody, dModel, dProto)
 	if err != nil {
 		return nil, Suction{}, err
 	}
-	fmt.Fprintln(w, "\nCAUTION:", caution)
+	fmt.Fprintln(w, "\nCAUTION:", similarity.PumpCaution)
 	return rows, suc, nil
 }
 
@@ -168,14 +217,17 @@ type Suction struct {
 	ProtoSuction          q.Quantity // absolute pressure needed at the flange
 	ReModel, ReProto      float64
 	IEC, IECGain, Ackeret float64
-	SpecificSpeed         similarity.SpecificSpeeds
-	NPSH                  NPSHBudget
+	// IECRefused and AckeretRefused say why a comparison was not made
+	// (a Reynolds number outside the formula's range); empty when it was.
+	IECRefused, AckeretRefused string
+	SpecificSpeed              similarity.SpecificSpeeds
+	NPSH                       NPSHBudget
 }
 
 // suction compares the step-up methods at the best-efficiency point and
 // carries the model's NPSH3 to the prototype at its own water
 // temperature through the Thoma number.
-func suction(w io.Writer, step similarity.StepUp, etas []float64, rows []Row, nm, np float64, dModel, dProto q.Quantity) (Suction, error) {
+func suction(w io.Writer, step similarity.StepUp, etas []float64, rows []Row, nm, np, moody float64, dModel, dProto q.Quantity) (Suction, error) {
 	var s Suction
 	bep := rows[step.BEP]
 	rpm := units.MustParse("rpm")
@@ -198,11 +250,13 @@ func suction(w io.Writer, step similarity.StepUp, etas []float64, rows []Row, nm
 		return d.Value() * u / st.KinematicViscosity.Value()
 	}
 	s.ReModel, s.ReProto = re(dModel, nm, mw), re(dProto, np, pw)
+	// A comparison the formulas refuse (a model Reynolds number below
+	// their range) is reported, not fatal: Moody's step-up stands alone.
 	if s.IEC, s.IECGain, err = similarity.IECStepUp(etas[step.BEP], s.ReModel, s.ReProto); err != nil {
-		return Suction{}, err
+		s.IECRefused = err.Error()
 	}
 	if s.Ackeret, err = similarity.AckeretStepUp(etas[step.BEP], s.ReModel, s.ReProto); err != nil {
-		return Suction{}, err
+		s.AckeretRefused = err.Error()
 	}
 	ft := units.MustParse("ft")
 	if s.Sigma, err = similarity.Thoma(ft.Of(modelNPSH3), bep.ModelH); err != nil {
@@ -219,8 +273,20 @@ func suction(w io.Writer, step similarity.StepUp, etas []float64, rows []Row, nm
 	fmt.Fprintf(w, "\nAt the best-efficiency point: specific speed N_s = %.0f (rpm, gpm, ft) = n_q %.1f (rpm, m³/s, m) = Ω_s %.3f (rad/s, dimensionless)\n",
 		s.SpecificSpeed.US, s.SpecificSpeed.Metric, s.SpecificSpeed.Dimensionless)
 	fmt.Fprintf(w, "step-up compared, Re = D·u/ν with u = πDn (n in rev/s): model %.3g (%g °C), prototype %.3g (%g °C):\n", s.ReModel, modelWaterC, s.ReProto, protoWaterC)
-	fmt.Fprintf(w, "  Moody (D^%s) %.1f %%; IEC 60193 scalable losses %.1f %% (Δη %.2f points); Ackeret %.1f %%\n",
-		"0.2", 100*(etas[step.BEP]+step.Gain), 100*s.IEC, 100*s.IECGain, 100*s.Ackeret)
+	iec := fmt.Sprintf("IEC 60193 scalable losses %.1f %% (Δη %.2f points)", 100*s.IEC, 100*s.IECGain)
+	if s.IECRefused != "" {
+		iec = "IEC 60193 not applied"
+	}
+	ack := fmt.Sprintf("Ackeret %.1f %%", 100*s.Ackeret)
+	if s.AckeretRefused != "" {
+		ack = "Ackeret not applied"
+	}
+	fmt.Fprintf(w, "  Moody's step-up (D^%g) %.1f %%; %s; %s\n", moody, 100*(etas[step.BEP]+step.Gain), iec, ack)
+	for _, r := range []string{s.IECRefused, s.AckeretRefused} {
+		if r != "" {
+			fmt.Fprintf(w, "  (%s)\n", r)
+		}
+	}
 	fmt.Fprintf(w, "cavitation (invented model NPSH3 = %.1f ft at the BEP): Thoma σ = NPSH3/H = %.4f held at the prototype:\n", modelNPSH3, s.Sigma)
 	fmt.Fprintf(w, "  prototype NPSH3 = σ·H_p = %.1f ft (%.2f m); at %g °C (p_v = %.0f Pa, IAPWS-IF97) and %.1f m/s at the flange\n",
 		s.ProtoNPSH3.Value()/0.3048, s.ProtoNPSH3.Value(), protoWaterC, pv.Value(), protoInletMS)

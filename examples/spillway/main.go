@@ -5,13 +5,18 @@
 // upstream with the grain size a movable bed would need, and the
 // scale-effect checks at the crest (its radius, and the Reynolds and
 // Weber numbers and the head at the design discharge and at a low flow),
-// each limit printed with the publication or practice it rests on.
+// each limit printed with the publication or practice it rests on. It
+// flags a model Manning n smoother than model materials reach and a
+// movable-bed grain whose particle Reynolds number falls into the viscous
+// range.
 //
 // The structure, the flows and the measurements are invented.
 //
 // Usage:
 //
-//	go run ./examples/spillway [-scale 30] [-q 450] [-hscale 120] [-vscale 30]
+//	go run ./examples/spillway [-scale 30] [-q 450] [-hscale 120] [-vscale 30] [-n 0.014] [-d50 1]
+//
+// A bad flag value exits with status 2, naming the flag.
 package main
 
 import (
@@ -22,6 +27,7 @@ import (
 	"math"
 	"os"
 
+	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
@@ -34,13 +40,35 @@ func main() {
 			return // -h: the usage is printed
 		}
 		fmt.Fprintln(os.Stderr, "spillway:", err)
-		os.Exit(2)
+		var ce *cli.Error
+		if errors.As(err, &ce) {
+			os.Exit(2) // a usage mistake
+		}
+		os.Exit(1)
 	}
 }
 
-// Caution for hydraulic-structure reports.
-const caution = "A hydraulic model indicates prototype behaviour subject to scale effects (viscosity, surface tension, air entrainment); " +
-	"spillways and intakes are designed to the applicable dam-safety code and approved by licensed engineers."
+// about is the head of the -h text: what the program does and what its
+// output means.
+const about = `Usage: spillway [flags]
+
+Plans a Froude-scale model of an invented river-intake spillway and
+prints, in order: the model/prototype scale ratios (1:x means the model's
+value is the prototype's divided by x); the model discharge for the
+design discharge; an invented model record of chute-floor gauge pressure
+carried to the prototype; the Manning n the model needs, checked against
+the smoothest model materials; a distorted variant of the approach reach
+with the movable-bed grain that keeps Shields similarity and its particle
+Reynolds number checked against the viscous range; and the scale-effect
+checks at the crest (crest radius, Reynolds and Weber numbers, head),
+each with its limit, the limit's basis and a verdict. The crest velocity
+V is the critical velocity √(g·y_c) where the flow passes critical depth
+y_c = ⅔h over the crest, h the head over the crest; Re and We are both
+formed with V and h. All data are invented; the output ends with the
+caution that governs any use of such a model.
+
+Flags:
+`
 
 // Result holds the key numbers, for the test.
 type Result struct {
@@ -48,20 +76,29 @@ type Result struct {
 	ProtoTimes, ProtoPressure                            q.Series
 	Distorted                                            similarity.Distorted
 	Manning                                              float64
+	ManningCheck                                         similarity.ScaleCheck     // the model n against the smoothest materials
 	Checks                                               [][]similarity.ScaleCheck // design and low flow
 	CrestRadius                                          similarity.ScaleCheck
 	Sediment                                             similarity.SedimentScales
+	ProtoShearVelocity, ProtoReStar, ModelGrain          float64               // m/s, 1, m
+	ReStarCheck                                          similarity.ScaleCheck // the model grain's Re*
 }
 
 // Invented crest hydraulics of the prototype: the head over the crest at
-// the design discharge, and a low flow at a tenth of it; the head scales
-// with Q^(2/3) over the free crest.
+// the reference discharge, and a low flow at a tenth of the design
+// discharge; the head scales with Q^(2/3) over the free crest.
 const (
-	designHead   = 4.2 // m
+	refHead      = 4.2   // m, head over the crest at refDischarge
+	refDischarge = 450.0 // m³/s
 	lowFlowShare = 0.1
-	modelWaterC  = 15.0 // °C
+	modelWaterC  = 15.0 // °C, the model's water, and the river's (so λ_ν = 1)
 	// crestRadius is the prototype's radius of curvature at the crest.
 	crestRadius = 0.9 // m
+	// The approach reach of the river (invented): flow depth and bed slope
+	// at the design discharge, for the bed shear velocity u* = √(g·h·S)
+	// (wide channel, hydraulic radius ≈ depth).
+	reachDepth = 5.0  // m
+	reachSlope = 2e-4 // 1
 )
 
 // Invented model record: pressure on the chute floor (kPa gauge) sampled
@@ -72,16 +109,18 @@ func run(w io.Writer, args []string) error { _, err := evaluate(w, args); return
 
 func evaluate(w io.Writer, args []string) (*Result, error) {
 	fs := flag.NewFlagSet("spillway", flag.ContinueOnError)
-	fs.SetOutput(w)
-	scale := fs.Float64("scale", 30, "prototype length over model length")
-	qp := fs.Float64("q", 450, "prototype design discharge, m³/s")
-	hs := fs.Float64("hscale", 120, "distorted variant: horizontal scale")
-	vs := fs.Float64("vscale", 30, "distorted variant: vertical scale")
-	if err := fs.Parse(args); err != nil {
+	fs.Usage = func() { fmt.Fprint(fs.Output(), about); fs.PrintDefaults() }
+	scale := cli.FloatVar(fs, "scale", 30, 2, 500, "", "length scale x of the 1:x Froude model (prototype length over model length)")
+	qp := cli.FloatVar(fs, "q", 450, 0.1, 1e5, "m³/s", "prototype design discharge")
+	hs := cli.FloatVar(fs, "hscale", 120, 2, 5000, "", "distorted variant of the approach reach: horizontal scale x of 1:x")
+	vs := cli.FloatVar(fs, "vscale", 30, 2, 500, "", "distorted variant: vertical scale x of 1:x, at most -hscale")
+	protoN := cli.FloatVar(fs, "n", 0.014, 0.008, 0.2, "s·m^(−1/3)", "prototype Manning n of the chute (0.014: concrete cast in forms, common practice)")
+	d50 := cli.FloatVar(fs, "d50", 1, 0.0625, 100, "mm", "median grain size of the approach reach's bed (sand to gravel; finer grains are silt, which can be cohesive)")
+	if err := cli.Parse(fs, w, args); err != nil {
 		return nil, err
 	}
-	if !(*scale > 1 && *qp > 0 && *hs > 1 && *vs > 1) {
-		return nil, fmt.Errorf("scales must exceed 1 and the discharge be positive")
+	if *vs > *hs {
+		return nil, &cli.Error{Program: "spillway", Msg: fmt.Sprintf("-vscale %g exceeds -hscale %g: a distorted model exaggerates the vertical, so its vertical scale must not be the larger", *vs, *hs)}
 	}
 	s, err := similarity.Froude(similarity.Scales{Length: 1 / *scale, Density: 1})
 	if err != nil {
@@ -133,8 +172,14 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	fmt.Fprintf(w, "  prototype mean %.1f kPa(g), peak %.1f kPa(g)\n", r.ProtoPressure.Mean().Value()/1000, r.ProtoPressure.Max().Value()/1000)
 	fmt.Fprintln(w, "  (gauge pressures scale by λ_L; the atmosphere does not, so absolute pressures, and cavitation margins, must not be scaled this way)")
 
-	r.Manning, _ = similarity.ManningRatio(1 / *scale)
-	fmt.Fprintf(w, "\nroughness: Manning n ratio λ_L^(1/6) = %.4f (a prototype n of 0.014 needs a model n of %.4f)\n", r.Manning, 0.014*r.Manning)
+	if r.Manning, err = similarity.ManningRatio(1 / *scale); err != nil {
+		return nil, err
+	}
+	if r.ManningCheck, err = similarity.ModelManningCheck(*protoN, r.Manning); err != nil {
+		return nil, err
+	}
+	fmt.Fprintf(w, "\nroughness: Manning n ratio λ_L^(1/6) = %.4f (a prototype n of %g s·m^(−1/3) needs a model n of %.4f)\n", r.Manning, *protoN, r.ManningCheck.Value)
+	fmt.Fprintf(w, "  %v\n", r.ManningCheck)
 
 	if r.Distorted, err = similarity.DistortedFroude(similarity.Scales{Horizontal: 1 / *hs, Vertical: 1 / *vs}); err != nil {
 		return nil, err
@@ -153,6 +198,19 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	fmt.Fprintf(w, "  movable bed (Shields similarity, the same water): bed shear u*² ratio %.4g; with the prototype's sand the grains\n", r.Sediment.Shear)
 	fmt.Fprintf(w, "  must be %.3g of the prototype's size (a lighter material allows larger ones), and Re* falls to %.3g of the prototype's\n",
 		r.Sediment.Grain, r.Sediment.ReStar)
+	river, err := fluids.FreshWater().AtCelsius(modelWaterC)
+	if err != nil {
+		return nil, err
+	}
+	r.ProtoShearVelocity = math.Sqrt(9.80665 * reachDepth * reachSlope)
+	r.ProtoReStar = r.ProtoShearVelocity * *d50 / 1000 / river.KinematicViscosity.Value()
+	r.ModelGrain = *d50 / 1000 * r.Sediment.Grain
+	if r.ReStarCheck, err = similarity.ParticleReynoldsCheck(r.ProtoReStar * r.Sediment.ReStar); err != nil {
+		return nil, err
+	}
+	fmt.Fprintf(w, "  prototype (invented reach: depth %g m, slope %g): u* = √(g·h·S) = %.4f m/s, d50 = %g mm, Re* = u*·d/ν = %.3g\n",
+		reachDepth, reachSlope, r.ProtoShearVelocity, *d50, r.ProtoReStar)
+	fmt.Fprintf(w, "  model sand d50 = %.3g mm\n    %v\n", r.ModelGrain*1000, r.ReStarCheck)
 
 	// Scale effects at the crest: critical depth 2/3 of the head and the
 	// critical velocity √(g·y_c), in the model's water.
@@ -166,6 +224,8 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	}
 	lim := similarity.WeirLimits()
 	fmt.Fprintf(w, "\nscale-effect checks at the crest, model water %g °C (each limit with its basis):\n", modelWaterC)
+	fmt.Fprintln(w, "  h is the head over the crest (upstream water level above crest level); V = √(g·y_c) is the critical velocity at the")
+	fmt.Fprintln(w, "  crest, where the depth is critical, y_c = ⅔h; Re = V·h/ν and We = ρV²h/σ are both formed with this V and the length h")
 	rc, err := similarity.CrestRadiusCheck(q.New(crestRadius / *scale, q.Length), lim)
 	if err != nil {
 		return nil, err
@@ -176,7 +236,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		name  string
 		share float64
 	}{{"design discharge", 1}, {"low flow, a tenth of it", lowFlowShare}} {
-		h := designHead * math.Pow(c.share, 2.0/3) / *scale
+		h := refHead * math.Pow(*qp*c.share/refDischarge, 2.0/3) / *scale
 		yc := 2 * h / 3
 		v := math.Sqrt(9.80665 * yc)
 		cs, err := similarity.FreeSurfaceChecks(q.New(v, q.Velocity), q.New(h, q.Length), wat.KinematicViscosity, wat.Density, sigma, lim)
@@ -184,11 +244,11 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 			return nil, err
 		}
 		r.Checks = append(r.Checks, cs)
-		fmt.Fprintf(w, "  %s: model head %.3f m, V = %.3f m/s\n", c.name, h, v)
+		fmt.Fprintf(w, "  %s: model head h = %.3f m, y_c = %.3f m, critical velocity V = %.3f m/s\n", c.name, h, yc, v)
 		for _, ck := range cs {
 			fmt.Fprintf(w, "    %v\n", ck)
 		}
 	}
-	fmt.Fprintln(w, "\nCAUTION:", caution)
+	fmt.Fprintln(w, "\nCAUTION:", similarity.HydraulicStructureCaution)
 	return r, nil
 }

@@ -104,7 +104,33 @@ func Parse(fs *flag.FlagSet, w io.Writer, args []string) error {
 		return err
 	}
 	fs.SetOutput(w)
-	return &Error{Program: fs.Name(), Msg: sanitize(err.Error())}
+	return &Error{Program: fs.Name(), Msg: sanitize(flagFirst(fs, err.Error()))}
+}
+
+// flagFirst rewrites the flag package's `invalid value "v" for flag -x:
+// reason` as `flag -x: invalid value "v": reason` with v through Quote, so
+// that the flag's name survives however long the value is.
+func flagFirst(fs *flag.FlagSet, msg string) string {
+	const pre = "invalid value "
+	if !strings.HasPrefix(msg, pre) {
+		return msg
+	}
+	out := msg
+	at := -1
+	fs.VisitAll(func(f *flag.Flag) {
+		marker := " for flag -" + f.Name + ": "
+		i := strings.LastIndex(msg, marker)
+		if i < len(pre) || i <= at {
+			return
+		}
+		v, err := strconv.Unquote(msg[len(pre):i])
+		if err != nil {
+			return
+		}
+		at = i
+		out = "flag -" + f.Name + ": invalid value " + Quote(v) + ": " + msg[i+len(marker):]
+	})
+	return out
 }
 
 // Error is a command-line error: a usage mistake (exit status 2).
