@@ -32,7 +32,9 @@ type HullRun struct {
 	TankTemperature, SeaTemperature uncertain.Measured
 	// Tank and Sea are the waters (fluids.FreshWater(), fluids.SeaWater()).
 	Tank, Sea fluids.Water
-	// FormFactor is 1 + k (dimensionless), Allowance is C_A.
+	// FormFactor is 1 + k (dimensionless); zero (the zero Measured, or an
+	// exact zero) means no form factor, 1 + k = 1, exactly as HullTest
+	// treats it. Allowance is C_A (zero: none).
 	FormFactor, Allowance uncertain.Measured
 	// Gravity is g; g_n if zero.
 	Gravity quantity.Quantity
@@ -52,7 +54,13 @@ type HullRunResult struct {
 	EffectivePower              uncertain.Measured
 	TankDensity, SeaDensity     uncertain.Measured
 	TankViscosity, SeaViscosity uncertain.Measured // kinematic viscosities
-	Caution                     string
+	// FormFactor is the 1 + k used (1 when the run gave zero).
+	FormFactor uncertain.Measured
+	// Warning, when not empty, says why the run is doubtful (a model
+	// Reynolds number below LaminarReynolds, a negative C_R, a C_TM above
+	// MaxPlausibleCT), as HullPoint.Warning does.
+	Warning string
+	Caution string
 }
 
 // ittc1957 is the ITTC-1957 line on a Measured Reynolds number.
@@ -100,6 +108,9 @@ func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
 	); err != nil {
 		return HullRunResult{}, err
 	}
+	if r.FormFactor.Value() == 0 && r.FormFactor.Set() == nil {
+		r.FormFactor = uncertain.Exact(quantity.Scalar(1))
+	}
 	if k := r.FormFactor.Value(); !(k >= 1 && k <= 2) {
 		return HullRunResult{}, m(fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", k))
 	}
@@ -118,7 +129,19 @@ func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
 	if err != nil {
 		return HullRunResult{}, err
 	}
+	res.FormFactor = r.FormFactor
 	res.Caution = HullCaution
+	var warn []string
+	if re := r.ModelSpeed.Value() * r.ModelLength.Value() / res.TankViscosity.Value(); re < LaminarReynolds {
+		warn = append(warn, laminarWarning(re))
+	}
+	if res.Residual.Value() < 0 {
+		warn = append(warn, fmt.Sprintf("the residual coefficient C_R = %.4g is negative (the model's C_T is below (1 + k)·C_F): check the run and the form factor", res.Residual.Value()))
+	}
+	if res.ModelCT.Value() > MaxPlausibleCT {
+		warn = append(warn, implausibleCT(res.ModelCT.Value()))
+	}
+	res.Warning = strings.Join(warn, "; ")
 	return res, nil
 }
 
@@ -152,8 +175,8 @@ func hullRun(r HullRun, g quantity.Quantity, res HullRunResult) (HullRunResult, 
 		return HullRunResult{}, err
 	}
 	for _, re := range []float64{reM, reS} {
-		if !(re >= 1e5) {
-			return HullRunResult{}, &ExtrapolationError{Method: "ITTC-1957 line", Reason: fmt.Sprintf("Reynolds number %g is below 10⁵ or not finite", re)}
+		if !(re >= minLineRe && re <= maxLineRe) {
+			return HullRunResult{}, &ExtrapolationError{Method: "ITTC-1957 line", Reason: fmt.Sprintf("Reynolds number %g is outside 10⁵ … 10¹⁰ or not finite", re)}
 		}
 	}
 	return res, nil
