@@ -14,13 +14,13 @@ import (
 
 // JobResult keeps the whole job's key numbers for the test.
 type JobResult struct {
-	Set         *pigroups.Set
-	Conflict    *similarity.ConflictError
-	Compromise  *similarity.Compromise
-	NaiveForce  q.Quantity // model resistance scaled by λ_F alone
+	Set        *pigroups.Set
+	Conflict   *similarity.ConflictError
+	Compromise *similarity.Compromise
+	NaiveForce q.Quantity // model resistance scaled by λ_F alone
 	// ModelResistance is the invented model reading, from inventedCT.
 	ModelResistance q.Quantity
-	Extrapolate *similarity.HullResult
+	Extrapolate     *similarity.HullResult
 }
 
 // The invented 32 m catamaran and its invented model data.
