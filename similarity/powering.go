@@ -411,8 +411,8 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 		warn = append(warn, fmt.Sprintf("the residuary coefficient C_R = %.3f×10⁻³ is negative (the model's C_TM is below (1 + k)·C_FM): check the run and the form factor", r.Residual*1e3))
 	}
 	if r.RoughnessAllowance < 0 {
-		warn = append(warn, fmt.Sprintf("the roughness allowance ΔC_F = %.3f×10⁻³ is negative (%.0f %% of C_TS): its formula is outside its range for a hull this short or this slow (L = %.3g m, Re_S = %.3g); the basin's own allowance should replace it",
-			r.RoughnessAllowance*1e3, 100*r.RoughnessAllowance/r.ShipCT, ls, r.ShipReynolds))
+		warn = append(warn, fmt.Sprintf("the roughness allowance ΔC_F = %.3f×10⁻³ is negative and lowers C_TS by %.0f %%: its formula is outside its range for a hull this short or this slow (L = %.3g m, Re_S = %.3g); the basin's own allowance should replace it",
+			r.RoughnessAllowance*1e3, -100*r.RoughnessAllowance/r.ShipCT, ls, r.ShipReynolds))
 	}
 	if r.ModelCT > MaxPlausibleCT {
 		warn = append(warn, implausibleCT(r.ModelCT))
