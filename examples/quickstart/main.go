@@ -124,6 +124,9 @@ func run(w io.Writer, args []string) error {
 	if err := cli.Parse(fs, w, args); err != nil {
 		return err
 	}
+	if fs.NArg() > 0 {
+		return &cli.Error{Program: fs.Name(), Msg: "unexpected argument " + cli.Quote(fs.Arg(0)) + ": the program takes flags only"}
+	}
 	// Invented data: a water line in a test rig, commercial steel pipe,
 	// fresh water at 20 °C.
 	water, err := fluids.FreshWater().AtCelsius(20)

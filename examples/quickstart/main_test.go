@@ -65,6 +65,10 @@ func TestRunBadFlags(t *testing.T) {
 			}
 		}
 	}
+	var ce *cli.Error
+	if err := run(&bytes.Buffer{}, []string{"stray"}); !errors.As(err, &ce) || !strings.Contains(err.Error(), `"stray"`) {
+		t.Errorf("a stray argument: %v", err)
+	}
 }
 
 // TestScaleFollowsReading: at 1:60 the invented reading is the held C_TM

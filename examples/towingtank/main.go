@@ -156,10 +156,14 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	plotW := cli.FloatVar(fs, "plotw", 7, 3, 30, "in", "plot width")
 	plotH := cli.FloatVar(fs, "ploth", 4.5, 2, 30, "in", "plot height")
 	dpi := cli.FloatVar(fs, "dpi", 96, 50, 600, "dots per inch", "PNG resolution")
+	drawPlot := fs.Bool("plot", true, "write the PNG and SVG plots to -out")
 	if err := cli.Parse(fs, w, args); err != nil {
 		return nil, err
 	}
-	size := plotSize{W: *plotW, H: *plotH, DPI: int(*dpi)}
+	if fs.NArg() > 0 {
+		return nil, &cli.Error{Program: fs.Name(), Msg: "unexpected argument " + cli.Quote(fs.Arg(0)) + ": the program takes flags only"}
+	}
+	size := plotSize{W: *plotW, H: *plotH, DPI: int(*dpi), Skip: !*drawPlot}
 	tank, err := fluids.FreshWater().AtCelsius(*tankT)
 	if err != nil {
 		return nil, err

@@ -92,6 +92,10 @@ func TestBadFlags(t *testing.T) {
 			}
 		}
 	}
+	var ce *cli.Error
+	if err := run(io.Discard, []string{"stray"}); !errors.As(err, &ce) || !strings.Contains(err.Error(), `"stray"`) {
+		t.Errorf("a stray argument: %v", err)
+	}
 }
 
 // TestPrintedStatements: the output says what each number includes.

@@ -111,6 +111,10 @@ func powering(w io.Writer, test similarity.HullTest, db similarity.DoubleBodyRes
 	fmt.Fprintf(w, "propeller D = %g m, Z = %d, P/D = %g, model Re_co = %.3g; C_DM = %.5f, C_DS = %.5f, scale correction ΔK_T = %.4f, ΔK_Q = %.5f\n",
 		propeller.Diameter.Value(), propeller.Blades, propeller.PitchRatio, propeller.ModelReynolds, top.ModelBladeDrag, top.ShipBladeDrag, top.DeltaKT, top.DeltaKQ)
 	fmt.Fprint(w, similarity.PoweringTable(out.Points, false))
+	if size.Skip {
+		fmt.Fprintln(w, "plots: not written (-plot=false)")
+		return out, nil
+	}
 	if out.PNG, out.SVG, err = plotCoefficients(dir, db.FormFactor, out.Points, size); err != nil {
 		return nil, err
 	}
@@ -118,10 +122,12 @@ func powering(w io.Writer, test similarity.HullTest, db similarity.DoubleBodyRes
 	return out, nil
 }
 
-// plotSize is the plot's size in inches and the PNG's resolution.
+// plotSize is the plot's size in inches and the PNG's resolution; Skip
+// writes no plot.
 type plotSize struct {
 	W, H float64
 	DPI  int
+	Skip bool
 }
 
 // plotCoefficients draws the model's and the ship's total resistance
