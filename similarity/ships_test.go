@@ -2,6 +2,7 @@ package similarity_test
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"strings"
 	"testing"
@@ -270,5 +271,25 @@ func TestHullZeroFormFactorAlike(t *testing.T) {
 	}
 	if a.FormFactor != 1 || b.FormFactor.Value() != 1 || math.Abs(b.ShipResistance.Value()/a.Points[0].ShipResistance.Value()-1) > 1e-12 {
 		t.Errorf("1 + k: %v vs %v; R_S %v vs %v", a.FormFactor, b.FormFactor.Value(), a.Points[0].ShipResistance, b.ShipResistance.Value())
+	}
+}
+
+// TestHullTableStatesWhatCTSIncludes: the extrapolation table prints
+// C_FS and C_TS per run and says that C_TS includes C_A, with both
+// wetted surfaces (1.62 m² and 1.62·256 = 414.72 m²).
+func TestHullTableStatesWhatCTSIncludes(t *testing.T) {
+	h := laminarTest()
+	h.Scale, h.ModelLength, h.ModelWettedArea = 1.0/16, quantity.New(2, quantity.Length), quantity.New(1.62, quantity.Area)
+	h.Speeds[0], h.Resistances[0], h.Allowance = quantity.New(2, quantity.Velocity), quantity.New(22.3, quantity.Force), 0.0004
+	r, err := similarity.ExtrapolateHull(h)
+	if err != nil {
+		t.Fatal(err)
+	}
+	tab := r.Table(false)
+	for _, want := range []string{"C_TS = (1 + k)·C_FS + C_R + C_A", "model 1.62 m², ship 414.7 m²", "C_FS×10³", "C_TS×10³",
+		fmt.Sprintf("%.3f", r.Points[0].ShipCT*1e3)} {
+		if !strings.Contains(tab, want) {
+			t.Errorf("table lacks %q:\n%s", want, tab)
+		}
 	}
 }
