@@ -4,9 +4,9 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"strings"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/quantity/uncertain"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -166,43 +166,32 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 		if !(v.Value() > 0) || !(r.Value() > 0) || math.IsInf(v.Value(), 0) || math.IsInf(r.Value(), 0) {
 			return nil, m(fmt.Sprintf("run %d: speed and resistance must be positive and finite", i))
 		}
-		Vm := v.Value()
-		p := HullPoint{ModelSpeed: v, ModelResistance: r}
-		p.Froude = Vm / math.Sqrt(g.Value()*Lm)
-		p.ModelReynolds = Vm * Lm / t.Tank.KinematicViscosity.Value()
-		p.ModelCT = r.Value() / (0.5 * t.Tank.Density.Value() * Vm * Vm * Sm)
-		var err error
-		if p.ModelCF, err = t.Line.CF(p.ModelReynolds); err != nil {
-			return nil, &ExtrapolationError{Method: "hull extrapolation", Reason: fmt.Sprintf("run %d, model: %v", i, err)}
+		x := uncertain.Exact
+		hv, err := hullMethod(hullCase{
+			scale: t.Scale, vm: x(v), rm: x(r), lm: x(t.ModelLength), sm: x(t.ModelWettedArea),
+			rhoM: x(t.Tank.Density), nuM: x(t.Tank.KinematicViscosity), rhoS: x(t.Sea.Density), nuS: x(t.Sea.KinematicViscosity),
+			formFactor: x(quantity.Scalar(k1)), allowance: x(quantity.Scalar(t.Allowance)), g: g, line: t.Line,
+		})
+		if err != nil {
+			var side *hullSide
+			if errors.As(err, &side) {
+				where := "model"
+				if side.ship {
+					where = "ship"
+				}
+				return nil, &ExtrapolationError{Method: "hull extrapolation", Reason: fmt.Sprintf("run %d, %s: %v", i, where, side.err)}
+			}
+			return nil, err
 		}
-		p.Residual = p.ModelCT - k1*p.ModelCF
-		Vs := Vm / math.Sqrt(t.Scale)
-		p.ShipSpeed = quantity.New(Vs, quantity.Velocity)
-		p.ShipReynolds = Vs * Ls / t.Sea.KinematicViscosity.Value()
-		if p.ShipCF, err = t.Line.CF(p.ShipReynolds); err != nil {
-			return nil, &ExtrapolationError{Method: "hull extrapolation", Reason: fmt.Sprintf("run %d, ship: %v", i, err)}
-		}
-		p.ShipCT = k1*p.ShipCF + p.Residual + t.Allowance
-		Rs := p.ShipCT * 0.5 * t.Sea.Density.Value() * Vs * Vs * Ss
-		p.ShipResistance = quantity.New(Rs, quantity.Force)
-		p.EffectivePower = quantity.New(Rs*Vs, quantity.Power)
-		if math.IsNaN(Rs) || math.IsInf(Rs, 0) || math.IsInf(Rs*Vs, 0) {
+		p := HullPoint{ModelSpeed: v, ModelResistance: r,
+			Froude: hv.froude.Value(), ModelReynolds: hv.reM.Value(), ModelCT: hv.ctM.Value(), ModelCF: hv.cfM.Value(),
+			Residual: hv.residual.Value(), ShipSpeed: hv.vs.Quantity(), ShipReynolds: hv.reS.Value(),
+			ShipCF: hv.cfS.Value(), ShipCT: hv.ctS.Value(), ShipResistance: hv.rs.Quantity(), EffectivePower: hv.pe.Quantity()}
+		Rs := p.ShipResistance.Value()
+		if !allFinite(Rs, p.EffectivePower.Value(), p.Froude, p.ModelCT) {
 			return nil, m(fmt.Sprintf("run %d: the ship resistance is not finite", i))
 		}
-		var warn []string
-		switch {
-		case Rs <= 0:
-			warn = append(warn, fmt.Sprintf("run %d: the ship resistance comes out %s: the model's C_T is below (1 + k)·C_F, so the measurement, the form factor or the friction line is in doubt; do not use this point", i, fmtCoef(Rs, "N")))
-		case p.Residual < 0:
-			warn = append(warn, fmt.Sprintf("run %d: the residual coefficient C_R = %.4g is negative (the model's C_T is below (1 + k)·C_F): check the run and the form factor", i, p.Residual))
-		}
-		if p.ModelReynolds < LaminarReynolds {
-			warn = append(warn, fmt.Sprintf("run %d: %s", i, laminarWarning(p.ModelReynolds)))
-		}
-		if p.ModelCT > MaxPlausibleCT {
-			warn = append(warn, fmt.Sprintf("run %d: %s", i, implausibleCT(p.ModelCT)))
-		}
-		p.Warning = strings.Join(warn, "; ")
+		p.Warning = hullWarning(fmt.Sprintf("run %d: ", i), p.ModelReynolds, p.ModelCT, p.Residual, Rs)
 		res.Points = append(res.Points, p)
 	}
 	return res, nil
