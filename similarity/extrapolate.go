@@ -191,7 +191,7 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 		if !allFinite(Rs, p.EffectivePower.Value(), p.Froude, p.ModelCT) {
 			return nil, m(fmt.Sprintf("run %d: the ship resistance is not finite", i))
 		}
-		p.Warning = hullWarning(fmt.Sprintf("run %d: ", i), p.ModelReynolds, p.ModelCT, p.Residual, Rs)
+		p.Warning = hullWarning(fmt.Sprintf("run %d (from 0; V_m = %.4g m/s): ", i, v.Value()), p.ModelReynolds, p.ModelCT, p.Residual, Rs)
 		res.Points = append(res.Points, p)
 	}
 	return res, nil

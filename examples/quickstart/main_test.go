@@ -97,7 +97,7 @@ func TestScaleFollowsReading(t *testing.T) {
 		t.Errorf("naive ship force 1:60 %v, 1:16 %v", r60.NaiveForce, r16.NaiveForce)
 	}
 	p := r60.Extrapolate.Points[0]
-	if math.Abs(p.ModelReynolds/(vm*32/60/1.1395e-6)-1) > 1e-4 || !strings.Contains(out.String(), "WARNING: run 0: the model Reynolds number 4.66e+05 is below 1e+06") {
+	if math.Abs(p.ModelReynolds/(vm*32/60/1.1395e-6)-1) > 1e-4 || !strings.Contains(out.String(), "WARNING: run 0 (from 0; V_m = 0.9962 m/s): the model Reynolds number 4.66e+05 is below 1e+06") {
 		t.Errorf("Re_m = %v; output:\n%s", p.ModelReynolds, out.String())
 	}
 }
