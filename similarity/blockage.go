@@ -85,11 +85,15 @@ func TankBlockage(tank TankSection, ax, v, g quantity.Quantity) (BlockageCorrect
 	if !(m <= 0.1) {
 		return BlockageCorrection{}, &ExtrapolationError{Method: method, Reason: fmt.Sprintf("blockage m = A_x/(b·h) = %.4g: above 0.1 a mean-flow correction is not meaningful; use a larger tank or a smaller model", m)}
 	}
-	fh2 := v.Value() * v.Value() / (g.Value() * h)
+	// √g·√h rather than √(g·h), and Fh before its square, so that
+	// extreme finite inputs do not overflow an intermediate product.
+	celerity := math.Sqrt(g.Value()) * math.Sqrt(h)
+	fh := v.Value() / celerity
+	fh2 := fh * fh
 	var r BlockageCorrection
-	r.Blockage, r.DepthFroude = m, math.Sqrt(fh2)
+	r.Blockage, r.DepthFroude = m, fh
 	fhc := chokingFroude(m)
-	r.ChokingSpeed = quantity.New(fhc*math.Sqrt(g.Value()*h), quantity.Velocity)
+	r.ChokingSpeed = quantity.New(fhc*celerity, quantity.Velocity)
 	if !(r.DepthFroude < fhc) {
 		return r, &ExtrapolationError{Method: method, Reason: fmt.Sprintf("depth Froude number %.4g at or above the choking value %.4g (m = %.4g): no steady mean flow past the model", r.DepthFroude, fhc, m)}
 	}
@@ -103,6 +107,11 @@ func TankBlockage(tank TankSection, ax, v, g quantity.Quantity) (BlockageCorrect
 	du := v.Value() * r.SpeedCorrection
 	r.SurfaceDrop = quantity.New((v.Value()*du+du*du/2)/g.Value(), quantity.Length)
 	r.CTFactor = 1 / (s * s)
+	if !allFinite(r.Blockage, r.DepthFroude, r.LinearCorrection, r.SpeedCorrection, r.Speed.Value(), r.SurfaceDrop.Value(),
+		r.CTFactor, r.ChokingSpeed.Value()) || !(celerity > 0) {
+		return BlockageCorrection{}, &ExtrapolationError{Method: method, Reason: fmt.Sprintf("the correction is not finite for tank %v × %v, section %v, speed %v, g = %v (inputs beyond any tank)",
+			tank.Width, tank.Depth, ax, v, g)}
+	}
 	return r, nil
 }
 

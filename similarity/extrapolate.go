@@ -6,6 +6,7 @@ import (
 	"math"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/quantity/uncertain"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -54,8 +55,9 @@ type HullTest struct {
 	// package fluids, or a fluids.State of the caller's own); their
 	// density and kinematic viscosity are used.
 	Tank, Sea fluids.State
-	// FormFactor is 1 + k; 1 (or zero, meaning 1) gives the original
-	// ITTC-1957 method without a form factor. See Prohaska.
+	// FormFactor is 1 + k. Zero means no form factor, 1 + k = 1 (the
+	// original ITTC-1957 method), exactly as HullRun treats it. See
+	// Prohaska.
 	FormFactor float64
 	// Allowance is the roughness and correlation allowance C_A added to
 	// the ship's total resistance coefficient (for example 0.0004; the
@@ -82,9 +84,26 @@ type HullPoint struct {
 	EffectivePower              quantity.Quantity // P_E = R_Ts·V_s
 	// Warning, when not empty, says why the point is physically
 	// doubtful (a model resistance below the friction line gives a
-	// negative residual and can give a negative ship resistance); every
-	// report that prints the point prints it.
+	// negative residual and can give a negative ship resistance; a model
+	// Reynolds number below LaminarReynolds; a C_TM above
+	// MaxPlausibleCT); every report that prints the point prints it.
 	Warning string
+}
+
+// MaxPlausibleCT is the highest model total resistance coefficient C_TM
+// taken as plausible for a towed hull; a larger one is flagged, since it
+// usually means a wrong wetted surface, speed or force unit, or a reading
+// that belongs to another model (common practice; the figure is a rough
+// bound, from memory, above what displacement and planing hull models
+// show at their resistance hump).
+const MaxPlausibleCT = 0.02
+
+func laminarWarning(re float64) string {
+	return fmt.Sprintf("the model Reynolds number %.3g is below %.0g: the flow over the model may be partly laminar even with turbulence stimulation (common practice, after the ITTC recommendations), which lowers C_TM and makes the friction-line extrapolation doubtful", re, LaminarReynolds)
+}
+
+func implausibleCT(ct float64) string {
+	return fmt.Sprintf("the model's C_TM = %.3g×10⁻³ is above %.0f×10⁻³, beyond any towed hull's (common practice): check the wetted surface, the speed and the force unit", ct*1e3, MaxPlausibleCT*1e3)
 }
 
 // HullResult is the extrapolation: its inputs, the ship's size, and every
@@ -147,35 +166,32 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 		if !(v.Value() > 0) || !(r.Value() > 0) || math.IsInf(v.Value(), 0) || math.IsInf(r.Value(), 0) {
 			return nil, m(fmt.Sprintf("run %d: speed and resistance must be positive and finite", i))
 		}
-		Vm := v.Value()
-		p := HullPoint{ModelSpeed: v, ModelResistance: r}
-		p.Froude = Vm / math.Sqrt(g.Value()*Lm)
-		p.ModelReynolds = Vm * Lm / t.Tank.KinematicViscosity.Value()
-		p.ModelCT = r.Value() / (0.5 * t.Tank.Density.Value() * Vm * Vm * Sm)
-		var err error
-		if p.ModelCF, err = t.Line.CF(p.ModelReynolds); err != nil {
-			return nil, &ExtrapolationError{Method: "hull extrapolation", Reason: fmt.Sprintf("run %d, model: %v", i, err)}
+		x := uncertain.Exact
+		hv, err := hullMethod(hullCase{
+			scale: t.Scale, vm: x(v), rm: x(r), lm: x(t.ModelLength), sm: x(t.ModelWettedArea),
+			rhoM: x(t.Tank.Density), nuM: x(t.Tank.KinematicViscosity), rhoS: x(t.Sea.Density), nuS: x(t.Sea.KinematicViscosity),
+			formFactor: x(quantity.Scalar(k1)), allowance: x(quantity.Scalar(t.Allowance)), g: g, line: t.Line,
+		})
+		if err != nil {
+			var side *hullSide
+			if errors.As(err, &side) {
+				where := "model"
+				if side.ship {
+					where = "ship"
+				}
+				return nil, &ExtrapolationError{Method: "hull extrapolation", Reason: fmt.Sprintf("run %d, %s: %v", i, where, side.err)}
+			}
+			return nil, err
 		}
-		p.Residual = p.ModelCT - k1*p.ModelCF
-		Vs := Vm / math.Sqrt(t.Scale)
-		p.ShipSpeed = quantity.New(Vs, quantity.Velocity)
-		p.ShipReynolds = Vs * Ls / t.Sea.KinematicViscosity.Value()
-		if p.ShipCF, err = t.Line.CF(p.ShipReynolds); err != nil {
-			return nil, &ExtrapolationError{Method: "hull extrapolation", Reason: fmt.Sprintf("run %d, ship: %v", i, err)}
-		}
-		p.ShipCT = k1*p.ShipCF + p.Residual + t.Allowance
-		Rs := p.ShipCT * 0.5 * t.Sea.Density.Value() * Vs * Vs * Ss
-		p.ShipResistance = quantity.New(Rs, quantity.Force)
-		p.EffectivePower = quantity.New(Rs*Vs, quantity.Power)
-		if math.IsNaN(Rs) || math.IsInf(Rs, 0) || math.IsInf(Rs*Vs, 0) {
+		p := HullPoint{ModelSpeed: v, ModelResistance: r,
+			Froude: hv.froude.Value(), ModelReynolds: hv.reM.Value(), ModelCT: hv.ctM.Value(), ModelCF: hv.cfM.Value(),
+			Residual: hv.residual.Value(), ShipSpeed: hv.vs.Quantity(), ShipReynolds: hv.reS.Value(),
+			ShipCF: hv.cfS.Value(), ShipCT: hv.ctS.Value(), ShipResistance: hv.rs.Quantity(), EffectivePower: hv.pe.Quantity()}
+		Rs := p.ShipResistance.Value()
+		if !allFinite(Rs, p.EffectivePower.Value(), p.Froude, p.ModelCT) {
 			return nil, m(fmt.Sprintf("run %d: the ship resistance is not finite", i))
 		}
-		switch {
-		case Rs <= 0:
-			p.Warning = fmt.Sprintf("run %d: the ship resistance comes out %s: the model's C_T is below (1 + k)·C_F, so the measurement, the form factor or the friction line is in doubt; do not use this point", i, fmtCoef(Rs, "N"))
-		case p.Residual < 0:
-			p.Warning = fmt.Sprintf("run %d: the residual coefficient C_R = %.4g is negative (the model's C_T is below (1 + k)·C_F): check the run and the form factor", i, p.Residual)
-		}
+		p.Warning = hullWarning(fmt.Sprintf("run %d (from 0; V_m = %.4g m/s): ", i, v.Value()), p.ModelReynolds, p.ModelCT, p.Residual, Rs)
 		res.Points = append(res.Points, p)
 	}
 	return res, nil

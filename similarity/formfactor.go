@@ -43,9 +43,14 @@ type ProhaskaOptions struct {
 	Reynolds []float64
 }
 
-// LaminarReynolds is the model Reynolds number below which a run is
-// flagged as possibly laminar or transitional over part of the hull
-// (common practice; turbulence stimulation is assumed above it).
+// LaminarReynolds is the model Reynolds number (on waterline length)
+// below which a run is flagged as possibly laminar or transitional over
+// part of the hull even with turbulence stimulators: common practice
+// following the ITTC's recommendations on ship models and turbulence
+// stimulation (ITTC 7.5-01-01-01; the figure 10⁶ is from memory, and
+// basins set their own, often higher). Every hull extrapolation path
+// (ExtrapolateHull, ExtrapolateHullRun, ITTC1978, Prohaska) warns below
+// it.
 const LaminarReynolds = 1e6
 
 // Prohaska finds the form factor from low-speed runs: a straight line

@@ -70,6 +70,29 @@ func (l FrictionLine) CF(re float64) (float64, error) {
 	return 0, &ExtrapolationError{Method: "friction line", Reason: fmt.Sprintf("unknown line %d", uint8(l))}
 }
 
+// slope returns dC_F/dRe of the line at re, where its value is cf (as
+// CF returned it): for the explicit lines by differentiating their
+// formulas, for Schoenherr's implicit line by differentiating
+// 0.242/√C_F = log₁₀Re + log₁₀C_F.
+func (l FrictionLine) slope(re, cf float64) float64 {
+	lg := math.Log10(re)
+	dlg := 1 / (re * math.Ln10) // d log₁₀Re / dRe
+	switch l {
+	case LineITTC1957:
+		return -2 * cf / (lg - 2) * dlg
+	case LineHughes:
+		return -2 * cf / (lg - 2.03) * dlg
+	case LineSchoenherr:
+		// −0.121·C^(−3/2)·dC = (dRe/Re + dC/C)/ln 10
+		return -(1 / (re * math.Ln10)) / (0.121*math.Pow(cf, -1.5) + 1/(cf*math.Ln10))
+	case LineKatsui:
+		a := 0.042612*lg + 0.56725
+		dlnC := -0.042612*math.Log(lg-4.3762) - a/(lg-4.3762) // d ln C_F / d log₁₀Re
+		return cf * dlnC * dlg
+	}
+	return 0
+}
+
 // schoenherr solves 0.242/√C_F = log₁₀Re + log₁₀C_F by Newton's method in
 // x = 1/√C_F: f(x) = 0.242·x + 2·log₁₀x − log₁₀Re.
 func schoenherr(lg float64) float64 {

@@ -32,10 +32,15 @@ type HullRun struct {
 	TankTemperature, SeaTemperature uncertain.Measured
 	// Tank and Sea are the waters (fluids.FreshWater(), fluids.SeaWater()).
 	Tank, Sea fluids.Water
-	// FormFactor is 1 + k (dimensionless), Allowance is C_A.
+	// FormFactor is 1 + k (dimensionless); zero (the zero Measured, or an
+	// exact zero) means no form factor, 1 + k = 1, exactly as HullTest
+	// treats it. Allowance is C_A (zero: none).
 	FormFactor, Allowance uncertain.Measured
 	// Gravity is g; g_n if zero.
 	Gravity quantity.Quantity
+	// Line is the friction line for C_F of model and ship; the zero
+	// value is the ITTC-1957 line, as for HullTest.
+	Line FrictionLine
 }
 
 // HullRunResult is a run carried to full scale, each value with the
@@ -52,13 +57,114 @@ type HullRunResult struct {
 	EffectivePower              uncertain.Measured
 	TankDensity, SeaDensity     uncertain.Measured
 	TankViscosity, SeaViscosity uncertain.Measured // kinematic viscosities
-	Caution                     string
+	// FormFactor is the 1 + k used (1 when the run gave zero).
+	FormFactor uncertain.Measured
+	// Warning, when not empty, says why the run is doubtful (a model
+	// Reynolds number below LaminarReynolds, a negative C_R, a C_TM above
+	// MaxPlausibleCT), as HullPoint.Warning does.
+	Warning string
+	Caution string
 }
 
-// ittc1957 is the ITTC-1957 line on a Measured Reynolds number.
-func ittc1957(re uncertain.Measured) uncertain.Measured {
-	d := uncertain.Log10(re).Sub(uncertain.Exact(quantity.Scalar(2)))
-	return d.Mul(d).Inv().Scale(0.075)
+// lineCF is the friction line's C_F at a Measured Reynolds number: the
+// value exactly as FrictionLine.CF gives it, with its derivative.
+func lineCF(l FrictionLine, re uncertain.Measured) (uncertain.Measured, error) {
+	cf, err := l.CF(re.Value())
+	if err != nil {
+		return uncertain.Measured{}, err
+	}
+	return uncertain.Apply(re, quantity.Scalar(cf), quantity.Scalar(l.slope(re.Value(), cf))), nil
+}
+
+// hullCase is one run of the hull method with every input Measured:
+// exact values for ExtrapolateHull, measured ones for ExtrapolateHullRun.
+type hullCase struct {
+	scale                 float64
+	vm, rm, lm, sm        uncertain.Measured
+	rhoM, nuM, rhoS, nuS  uncertain.Measured
+	formFactor, allowance uncertain.Measured
+	g                     quantity.Quantity
+	line                  FrictionLine
+}
+
+// hullValues are one run's results.
+type hullValues struct {
+	froude, reM, ctM, cfM, residual uncertain.Measured
+	vs, reS, cfS, ctS, rs, pe       uncertain.Measured
+}
+
+// hullSide says which friction coefficient failed.
+type hullSide struct {
+	ship bool
+	err  error
+}
+
+func (e *hullSide) Error() string { return e.err.Error() }
+func (e *hullSide) Unwrap() error { return e.err }
+
+// hullMethod is the ITTC-1957 hull method (Froude's hypothesis with a
+// form factor and an allowance), written once for both extrapolations:
+//
+//	Fn = V_m/√(g·L_m), Re_m = V_m·L_m/ν_m, C_Tm = R_m/(½ρ_m·V_m²·S_m)
+//	C_R = C_Tm − (1 + k)·C_F(Re_m)
+//	V_s = V_m/√λ, L_s = L_m/λ, S_s = S_m/λ², Re_s = V_s·L_s/ν_s
+//	C_Ts = (1 + k)·C_F(Re_s) + C_R + C_A, R_s = C_Ts·½ρ_s·V_s²·S_s, P_E = R_s·V_s
+//
+// The operations are ordered as plain float arithmetic would order
+// them, so exact inputs give the plain method's numbers. An error from a
+// friction line is a *hullSide saying model or ship.
+func hullMethod(c hullCase) (v hullValues, err error) {
+	var cfErr error
+	_, err = uncertain.Eval(func() uncertain.Measured {
+		half := 0.5
+		v.froude = c.vm.Div(c.lm.MulQ(c.g).Sqrt())
+		v.reM = c.vm.Mul(c.lm).Div(c.nuM)
+		v.ctM = c.rm.Div(c.rhoM.Scale(half).Mul(c.vm).Mul(c.vm).Mul(c.sm))
+		if v.cfM, cfErr = lineCF(c.line, v.reM); cfErr != nil {
+			cfErr = &hullSide{false, cfErr}
+			return uncertain.Measured{}
+		}
+		v.residual = v.ctM.Sub(c.formFactor.Mul(v.cfM))
+		v.vs = c.vm.DivQ(quantity.Scalar(math.Sqrt(c.scale)))
+		ls, ss := c.lm.DivQ(quantity.Scalar(c.scale)), c.sm.DivQ(quantity.Scalar(c.scale*c.scale))
+		v.reS = v.vs.Mul(ls).Div(c.nuS)
+		if v.cfS, cfErr = lineCF(c.line, v.reS); cfErr != nil {
+			cfErr = &hullSide{true, cfErr}
+			return uncertain.Measured{}
+		}
+		v.ctS = c.formFactor.Mul(v.cfS).Add(v.residual).Add(c.allowance)
+		v.rs = v.ctS.Scale(half).Mul(c.rhoS).Mul(v.vs).Mul(v.vs).Mul(ss)
+		v.pe = v.rs.Mul(v.vs)
+		return v.pe
+	})
+	if err == nil {
+		err = cfErr
+	}
+	return v, err
+}
+
+// hullWarning says why a run is physically doubtful, or returns "": a
+// ship resistance at or below zero, a negative C_R, a model Reynolds
+// number below LaminarReynolds, a C_TM above MaxPlausibleCT. Both hull
+// extrapolations use it.
+func hullWarning(prefix string, reM, ctM, residual, rs float64) string {
+	var warn []string
+	switch {
+	case rs <= 0:
+		warn = append(warn, fmt.Sprintf("the ship resistance comes out %s: the model's C_T is below (1 + k)·C_F, so the measurement, the form factor or the friction line is in doubt; do not use this point", fmtCoef(rs, "N")))
+	case residual < 0:
+		warn = append(warn, fmt.Sprintf("the residual coefficient C_R = %.4g is negative (the model's C_T is below (1 + k)·C_F): check the run and the form factor", residual))
+	}
+	if reM < LaminarReynolds {
+		warn = append(warn, laminarWarning(reM))
+	}
+	if ctM > MaxPlausibleCT {
+		warn = append(warn, implausibleCT(ctM))
+	}
+	for i := range warn {
+		warn[i] = prefix + warn[i]
+	}
+	return strings.Join(warn, "; ")
 }
 
 // water returns ρ and ν of w at the measured temperature T.
@@ -100,6 +206,9 @@ func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
 	); err != nil {
 		return HullRunResult{}, err
 	}
+	if r.FormFactor.Value() == 0 && r.FormFactor.Set() == nil {
+		r.FormFactor = uncertain.Exact(quantity.Scalar(1))
+	}
 	if k := r.FormFactor.Value(); !(k >= 1 && k <= 2) {
 		return HullRunResult{}, m(fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", k))
 	}
@@ -118,44 +227,34 @@ func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
 	if err != nil {
 		return HullRunResult{}, err
 	}
+	res.FormFactor = r.FormFactor
 	res.Caution = HullCaution
 	return res, nil
 }
 
 func hullRun(r HullRun, g quantity.Quantity, res HullRunResult) (HullRunResult, error) {
-	var reM, reS float64
-	_, err := uncertain.Eval(func() uncertain.Measured {
-		vm, lm, sm := r.ModelSpeed, r.ModelLength, r.ModelWettedArea
-		half := uncertain.Exact(quantity.Scalar(0.5))
-		res.Froude = vm.Div(lm.MulQ(g).Sqrt())
-		re := vm.Mul(lm).Div(res.TankViscosity)
-		reM = re.Value()
-		res.ModelCF = ittc1957(re)
-		res.ModelCT = r.ModelResistance.Div(half.Mul(res.TankDensity).Mul(vm).Mul(vm).Mul(sm))
-		res.Residual = res.ModelCT.Sub(r.FormFactor.Mul(res.ModelCF))
-		inv := 1 / r.Scale
-		res.ShipSpeed = vm.Scale(1 / math.Sqrt(r.Scale))
-		ls, ss := lm.Scale(inv), sm.Scale(inv*inv)
-		reShip := res.ShipSpeed.Mul(ls).Div(res.SeaViscosity)
-		reS = reShip.Value()
-		res.ShipCF = ittc1957(reShip)
-		res.ShipCT = r.FormFactor.Mul(res.ShipCF).Add(res.Residual).Add(r.Allowance)
-		res.ShipResistance = res.ShipCT.Mul(half.Mul(res.SeaDensity).Mul(res.ShipSpeed).Mul(res.ShipSpeed).Mul(ss))
-		res.EffectivePower = res.ShipResistance.Mul(res.ShipSpeed)
-		return res.EffectivePower
+	v, err := hullMethod(hullCase{
+		scale: r.Scale, vm: r.ModelSpeed, rm: r.ModelResistance, lm: r.ModelLength, sm: r.ModelWettedArea,
+		rhoM: res.TankDensity, nuM: res.TankViscosity, rhoS: res.SeaDensity, nuS: res.SeaViscosity,
+		formFactor: r.FormFactor, allowance: r.Allowance, g: g, line: r.Line,
 	})
 	if err != nil {
 		var te *uncertain.TermsError
 		if errors.As(err, &te) {
 			return HullRunResult{}, &ExtrapolationError{Method: "hull extrapolation with uncertainty", Reason: fmt.Sprintf("more than %d sources for one run: combine some before the extrapolation", uncertain.MaxTerms)}
 		}
+		var side *hullSide
+		if errors.As(err, &side) {
+			return HullRunResult{}, side.err
+		}
 		return HullRunResult{}, err
 	}
-	for _, re := range []float64{reM, reS} {
-		if !(re >= 1e5) {
-			return HullRunResult{}, &ExtrapolationError{Method: "ITTC-1957 line", Reason: fmt.Sprintf("Reynolds number %g is below 10⁵ or not finite", re)}
-		}
+	res.Froude, res.ModelCT, res.ModelCF, res.Residual = v.froude, v.ctM, v.cfM, v.residual
+	res.ShipSpeed, res.ShipCF, res.ShipCT, res.ShipResistance, res.EffectivePower = v.vs, v.cfS, v.ctS, v.rs, v.pe
+	if !allFinite(res.ShipResistance.Value(), res.EffectivePower.Value(), res.ShipResistance.U().Value(), res.EffectivePower.U().Value()) {
+		return HullRunResult{}, &ExtrapolationError{Method: "hull extrapolation with uncertainty", Reason: "the ship resistance or its uncertainty is not finite"}
 	}
+	res.Warning = hullWarning("", v.reM.Value(), v.ctM.Value(), v.residual.Value(), v.rs.Value())
 	return res, nil
 }
 

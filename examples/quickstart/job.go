@@ -14,12 +14,22 @@ import (
 
 // JobResult keeps the whole job's key numbers for the test.
 type JobResult struct {
-	Set         *pigroups.Set
-	Conflict    *similarity.ConflictError
-	Compromise  *similarity.Compromise
-	NaiveForce  q.Quantity // model resistance scaled by λ_F alone
-	Extrapolate *similarity.HullResult
+	Set        *pigroups.Set
+	Conflict   *similarity.ConflictError
+	Compromise *similarity.Compromise
+	NaiveForce q.Quantity // model resistance scaled by λ_F alone
+	// ModelResistance is the invented model reading, from inventedCT.
+	ModelResistance q.Quantity
+	Extrapolate     *similarity.HullResult
 }
+
+// The invented 32 m catamaran and its invented model data.
+const (
+	shipLength     = 32.0    // m, waterline
+	shipWettedArea = 414.7   // m²
+	inventedCT     = 10.3e-3 // the model's total resistance coefficient at 15 kn Froude-scaled (invented)
+	allowance      = 0.0004  // C_A (invented, the basin's own in practice)
+)
 
 // wholeJob runs variables → Pi set → conflicting plan → compromise →
 // transfer → extrapolation for an invented 32 m catamaran.
@@ -76,7 +86,7 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	}
 
 	fmt.Fprintln(w, "\n4. The compromise: hold Fr, let Re float (threshold 1e6, a rule of thumb)")
-	proto := map[string]q.Quantity{"V": units.MustParse("kn").Of(15), "L": q.New(32, q.Length), "g": units.StandardGravity(),
+	proto := map[string]q.Quantity{"V": units.MustParse("kn").Of(15), "L": q.New(shipLength, q.Length), "g": units.StandardGravity(),
 		"rho": sea.Density, "mu": sea.DynamicViscosity}
 	base := similarity.NewPlan(p).FixFluids(tank, sea, "rho", "mu", "").SameGravity("g").Fix("L", 1/scale).Basis("rho", "V", "L")
 	if res.Compromise, err = base.Compromise(proto, similarity.Priority{Group: fr}, similarity.Priority{Group: re, MinModel: 1e6}); err != nil {
@@ -90,31 +100,41 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	}
 	fmt.Fprint(w, rep.Text())
 
-	fmt.Fprintln(w, "\n5. A measured model resistance carried to full scale by Froude scaling alone")
-	vm, _ := res.Compromise.Solution.ToModel(proto["V"])
-	rm := q.New(30.9, q.Force) // invented reading at the model speed
+	fmt.Fprintln(w, "\n5. An invented model resistance carried to full scale by Froude scaling alone")
+	vm, err := res.Compromise.Solution.ToModel(proto["V"])
+	if err != nil {
+		return nil, err
+	}
+	// The invented reading follows the model's size and speed: an
+	// invented C_TM held at the Froude-scaled speed,
+	// R_m = C_TM·½·ρ_tank·V_m²·S_m.
+	lm, sm := shipLength/scale, shipWettedArea/(scale*scale)
+	rm := q.New(inventedCT*0.5*tank.Density.Value()*vm.Value()*vm.Value()*sm, q.Force)
+	res.ModelResistance = rm
 	if res.NaiveForce, err = res.Compromise.Solution.ToPrototype(rm); err != nil {
 		return nil, err
 	}
 	pr := units.Printer{Precision: 4}
-	fmt.Fprintf(w, "  model: V = %s, R = %s → ship %s (λ_F = λ_ρ·λ_L³, ignoring the Reynolds number)\n",
-		must(pr.FormatIn(vm, units.MustParse("m/s"))), pr.Format(rm), must(pr.FormatIn(res.NaiveForce, units.MustParse("kN"))))
+	fmt.Fprintf(w, "  model: L = %s, S = %s, V = %s, R = %s (invented: C_TM = %g×10⁻³ held at the Froude-scaled speed)\n",
+		pr.Format(q.New(lm, q.Length)), pr.Format(q.New(sm, q.Area)), must(pr.FormatIn(vm, units.MustParse("m/s"))), pr.Format(rm), inventedCT*1e3)
+	fmt.Fprintf(w, "  → ship %s (λ_F = λ_ρ·λ_L³, ignoring the Reynolds number)\n", must(pr.FormatIn(res.NaiveForce, units.MustParse("kN"))))
 
 	fmt.Fprintln(w, "\n6. The same reading extrapolated by the ITTC-1957 line (Froude's hypothesis)")
 	res.Extrapolate, err = similarity.ExtrapolateHull(similarity.HullTest{
-		Scale: 1 / scale, ModelLength: q.New(32/scale, q.Length), ModelWettedArea: q.New(414.7/(scale*scale), q.Area),
+		Scale: 1 / scale, ModelLength: q.New(lm, q.Length), ModelWettedArea: q.New(sm, q.Area),
 		Speeds: []q.Quantity{vm}, Resistances: []q.Quantity{rm},
 		Tank: tank,
-		Sea:  sea, Allowance: 0.0004})
+		Sea:  sea, Allowance: allowance})
 	if err != nil {
 		return nil, err
 	}
 	pt := res.Extrapolate.Points[0]
+	fmt.Fprintf(w, "  model Re = %.3g, ship Re = %.3g; no form factor (1 + k = 1), C_A = %g (invented)\n", pt.ModelReynolds, pt.ShipReynolds, allowance)
+	fmt.Fprintf(w, "  C_Tm = %.4f, C_Fm = %.4f, C_R = C_Tm − C_Fm = %.4f; ship C_Fs = %.4f, C_Ts = C_Fs + C_R + C_A = %.4f\n", pt.ModelCT*1e3, pt.ModelCF*1e3, pt.Residual*1e3, pt.ShipCF*1e3, pt.ShipCT*1e3)
+	fmt.Fprintln(w, "  (coefficients × 1000)")
 	if pt.Warning != "" {
 		fmt.Fprintln(w, "  WARNING:", pt.Warning)
 	}
-	fmt.Fprintf(w, "  C_Tm = %.4f, C_Fm = %.4f, C_R = %.4f; ship C_Fs = %.4f, C_Ts = %.4f\n", pt.ModelCT*1e3, pt.ModelCF*1e3, pt.Residual*1e3, pt.ShipCF*1e3, pt.ShipCT*1e3)
-	fmt.Fprintln(w, "  (coefficients × 1000)")
 	fmt.Fprintf(w, "  ship resistance %s, effective power %s — the friction correction the held Froude number cannot give\n",
 		must(pr.FormatIn(pt.ShipResistance, units.MustParse("kN"))), must(pr.FormatIn(pt.EffectivePower, units.MustParse("kW"))))
 	fmt.Fprintln(w, "\nCAUTION:", similarity.HullCaution)

@@ -11,6 +11,9 @@
 // Usage:
 //
 //	go run ./examples/quickstart [-v 2.5] [-d 0.08] [-l 40] [-scale 16]
+//
+// Exit status 2 for a usage error (a flag named with what was wrong), 1
+// for a failure of the demonstration itself.
 package main
 
 import (
@@ -18,9 +21,9 @@ import (
 	"flag"
 	"fmt"
 	"io"
-	"math"
 	"os"
 
+	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/fluids"
 	"similis.dev/similis/units"
@@ -34,7 +37,11 @@ func main() {
 			return // -h: the usage is printed
 		}
 		fmt.Fprintln(os.Stderr, "quickstart:", err)
-		os.Exit(2)
+		var ce *cli.Error
+		if errors.As(err, &ce) {
+			os.Exit(2)
+		}
+		os.Exit(1)
 	}
 }
 
@@ -81,21 +88,44 @@ func pressureDrop(p pipe) (re, f, dp q.Quantity, regime string, err error) {
 	return re, f, dp, regime, nil
 }
 
+const usageText = `Usage: quickstart [flags]
+
+similis's main demonstration on invented data. It prints, in order:
+ 1. a pipe pressure drop by Darcy–Weisbach (Re, the friction factor and
+    its regime, Δp) and the dimension error caught when a kinematic
+    viscosity is given where a dynamic one belongs;
+ 2. the variables of ship resistance and the Pi set found from them;
+ 3. a plan holding both the Froude and the Reynolds numbers for a
+    1:scale model of a 32 m catamaran, and why it conflicts;
+ 4. the compromise that holds the Froude number, as a model plan;
+ 5. an invented model resistance (from an invented C_TM held at the
+    Froude-scaled speed, so it follows the model's size) carried to full
+    scale by Froude scaling alone;
+ 6. the same reading extrapolated by the ITTC-1957 line, with its
+    coefficients (×10³), the ship resistance and effective power, and a
+    warning where the model's Reynolds number suggests laminar flow.
+Full-scale figures are estimates for illustration, not a design:
+hull powering is for the responsible naval architect.
+
+Flags:
+`
+
 func run(w io.Writer, args []string) error {
 	fs := flag.NewFlagSet("quickstart", flag.ContinueOnError)
-	fs.SetOutput(w)
-	v := fs.Float64("v", 2.5, "mean velocity, m/s")
-	d := fs.Float64("d", 0.08, "pipe bore, m")
-	l := fs.Float64("l", 40, "pipe length, m")
-	scale := fs.Float64("scale", 16, "ship length over model length, for the whole-job part")
-	if err := fs.Parse(args); err != nil {
+	fs.Usage = func() {
+		o := fs.Output()
+		fmt.Fprint(o, usageText)
+		fs.PrintDefaults()
+	}
+	v := cli.FloatVar(fs, "v", 2.5, 1e-3, 50, "m/s", "mean water velocity in the rig's pipe")
+	d := cli.FloatVar(fs, "d", 0.08, 1e-3, 5, "m", "pipe bore")
+	l := cli.FloatVar(fs, "l", 40, 0.01, 1e4, "m", "pipe length")
+	scale := cli.FloatVar(fs, "scale", 16, 2, 100, "", "ship length over model length (λ⁻¹) for the 32 m catamaran of parts 3–6")
+	if err := cli.Parse(fs, w, args); err != nil {
 		return err
 	}
-	if !(*scale > 1) {
-		return fmt.Errorf("-scale %v: want a ship larger than its model", *scale)
-	}
-	if *v <= 0 || *d <= 0 || *l <= 0 || math.IsInf(*v+*d+*l, 0) {
-		return fmt.Errorf("velocity, bore and length must be positive and finite")
+	if fs.NArg() > 0 {
+		return &cli.Error{Program: fs.Name(), Msg: "unexpected argument " + cli.Quote(fs.Arg(0)) + ": the program takes flags only"}
 	}
 	// Invented data: a water line in a test rig, commercial steel pipe,
 	// fresh water at 20 °C.

@@ -12,7 +12,11 @@
 //
 // Usage:
 //
-//	go run ./examples/towingtank [-scale 16] [-tank 15] [-sea 15] [-ca 0.0004] [-maxfn 0.2] [-width 4.5] [-depth 2.2] [-out DIR]
+//	go run ./examples/towingtank [-scale 16] [-tank 15] [-sea 15] [-ca 0.0004] [-maxfn 0.2] [-width 4.5] [-depth 2.2]
+//	    [-out DIR] [-plotw 7] [-ploth 4.5] [-dpi 96]
+//
+// Exit status 2 for a usage error (a flag named with what was wrong), 1
+// for a failure of the job itself.
 package main
 
 import (
@@ -20,8 +24,10 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"math"
 	"os"
 
+	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/uncertain"
 	"similis.dev/similis/similarity"
@@ -35,7 +41,11 @@ func main() {
 			return // -h: the usage is printed
 		}
 		fmt.Fprintln(os.Stderr, "towingtank:", err)
-		os.Exit(2)
+		var ce *cli.Error
+		if errors.As(err, &ce) {
+			os.Exit(2)
+		}
+		os.Exit(1)
 	}
 }
 
@@ -63,6 +73,10 @@ type Outcome struct {
 	// speeds.
 	Blockage []similarity.BlockageCorrection
 	Blocked  *similarity.HullResult
+	// DoubleBody is the double-body form factor; MethodDiff its
+	// difference from Prohaska's when that is flagged (else zero).
+	DoubleBody similarity.DoubleBodyResult
+	MethodDiff float64
 }
 
 // Budgets are the uncertainty budgets of the top-speed run at full scale.
@@ -74,7 +88,11 @@ type Budgets struct {
 
 // topBudget carries the top-speed run to full scale with the invented
 // uncertainties of its measurements.
-func topBudget(scale, tankT, seaT, ca float64, form similarity.ProhaskaResult) (Budgets, error) {
+// methodDiff, when not zero, is the difference between the double-body
+// and the Prohaska form factors, added as a source: rectangular, with
+// half-width |Δ| about the Prohaska value, so that the other method's
+// value lies at its edge.
+func topBudget(scale, tankT, seaT, ca float64, form similarity.ProhaskaResult, methodDiff float64) (Budgets, error) {
 	set := uncertain.NewSet()
 	src := func(s uncertain.Source) uncertain.ID { return set.MustAdd(s) }
 	sys, rnd := uncertain.Systematic, uncertain.Random
@@ -85,6 +103,10 @@ func topBudget(scale, tankT, seaT, ca float64, form similarity.ProhaskaResult) (
 	area := src(uncertain.Source{Name: "wetted area", U: q.Scalar(0.005), Relative: true, Effect: sys})
 	length := src(uncertain.Source{Name: "model length", U: q.New(0.001, q.Length), Effect: sys})
 	k := src(uncertain.Source{Name: "form factor (Prohaska fit)", U: q.Scalar(form.FormFactorStdErr), Type: uncertain.TypeA, DoF: float64(form.Points - 2), Effect: sys})
+	kIDs := []uncertain.ID{k}
+	if methodDiff != 0 {
+		kIDs = append(kIDs, src(uncertain.Source{Name: "form factor method (double body vs Prohaska)", U: q.Scalar(math.Abs(methodDiff) / math.Sqrt(3)), Dist: uncertain.Rectangular, Effect: sys}))
+	}
 	last := len(speeds) - 1
 	run := similarity.HullRun{
 		Scale:           1 / scale,
@@ -95,7 +117,7 @@ func topBudget(scale, tankT, seaT, ca float64, form similarity.ProhaskaResult) (
 		TankTemperature: set.MustMeasure(q.New(tankT+273.15, q.Temperature), therm),
 		SeaTemperature:  uncertain.Exact(q.New(seaT+273.15, q.Temperature)),
 		Tank:            fluids.FreshWater(), Sea: fluids.SeaWater(),
-		FormFactor: set.MustMeasure(q.Scalar(form.FormFactor), k),
+		FormFactor: set.MustMeasure(q.Scalar(form.FormFactor), kIDs...),
 		Allowance:  uncertain.Exact(q.Scalar(ca)),
 	}
 	res, err := similarity.ExtrapolateHullRun(run)
@@ -119,21 +141,29 @@ func run(w io.Writer, args []string) error {
 
 func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	fs := flag.NewFlagSet("towingtank", flag.ContinueOnError)
-	fs.SetOutput(w)
-	scale := fs.Float64("scale", 16, "ship length over model length")
-	tankT := fs.Float64("tank", 15, "tank water temperature, °C")
-	seaT := fs.Float64("sea", 15, "sea water temperature, °C")
-	ca := fs.Float64("ca", 0.0004, "roughness and correlation allowance C_A")
-	maxFn := fs.Float64("maxfn", 0.2, "highest Froude number used for the form factor")
+	fs.Usage = func() {
+		fmt.Fprint(fs.Output(), usageText)
+		fs.PrintDefaults()
+	}
+	scale := cli.FloatVar(fs, "scale", 16, 2, 100, "", "ship length over model length (the model is 2 m)")
+	tankT := cli.FloatVar(fs, "tank", 15, 1, 35, "°C", "tank (fresh) water temperature")
+	seaT := cli.FloatVar(fs, "sea", 15, 0, 35, "°C", "sea water temperature")
+	ca := cli.FloatVar(fs, "ca", 0.0004, -0.001, 0.002, "", "roughness and correlation allowance C_A of the ITTC-1957 extrapolation")
+	maxFn := cli.FloatVar(fs, "maxfn", 0.2, 0.1, 0.3, "", "highest Froude number used for Prohaska's form factor")
 	dir := fs.String("out", os.TempDir(), "directory for towingtank-coefficients.png and .svg")
-	width := fs.Float64("width", 4.5, "towing tank width, m")
-	depth := fs.Float64("depth", 2.2, "towing tank water depth, m")
-	if err := fs.Parse(args); err != nil {
+	width := cli.FloatVar(fs, "width", 4.5, 1, 30, "m", "towing tank width")
+	depth := cli.FloatVar(fs, "depth", 2.2, 0.5, 15, "m", "towing tank water depth")
+	plotW := cli.FloatVar(fs, "plotw", 7, 3, 30, "in", "plot width")
+	plotH := cli.FloatVar(fs, "ploth", 4.5, 2, 30, "in", "plot height")
+	dpi := cli.FloatVar(fs, "dpi", 96, 50, 600, "dots per inch", "PNG resolution")
+	drawPlot := fs.Bool("plot", true, "write the PNG and SVG plots to -out")
+	if err := cli.Parse(fs, w, args); err != nil {
 		return nil, err
 	}
-	if !(*scale > 1) {
-		return nil, fmt.Errorf("-scale %v: want a ship larger than its model", *scale)
+	if fs.NArg() > 0 {
+		return nil, &cli.Error{Program: fs.Name(), Msg: "unexpected argument " + cli.Quote(fs.Arg(0)) + ": the program takes flags only"}
 	}
+	size := plotSize{W: *plotW, H: *plotH, DPI: int(*dpi), Skip: !*drawPlot}
 	tank, err := fluids.FreshWater().AtCelsius(*tankT)
 	if err != nil {
 		return nil, err
@@ -163,29 +193,50 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	if out.WithForm, err = similarity.ExtrapolateHull(test); err != nil {
 		return nil, err
 	}
+	if out.DoubleBody, err = doubleBody(test); err != nil {
+		return nil, err
+	}
 	kn := units.MustParse("kn")
 	p := units.Printer{Precision: 4}
 	fmt.Fprintf(w, "Towing-tank extrapolation, 1:%g model of a coastal research catamaran (invented data)\n", *scale)
-	fmt.Fprintf(w, "model L = %.3g m, S = %.3g m²; ship L = %.4g m, S = %.4g m²\n", modelLength, modelArea,
+	fmt.Fprintf(w, "model L = %.3g m, S = %.3g m² (wetted, both hulls); ship L = %.4g m, S = %.4g m²\n", modelLength, modelArea,
 		out.Plain.ShipLength.Value(), out.Plain.ShipWettedArea.Value())
 	fmt.Fprintf(w, "tank: fresh water %g °C, ρ = %.2f kg/m³, ν = %.4e m²/s; sea: %g °C, ρ = %.2f kg/m³, ν = %.4e m²/s\n",
 		*tankT, tank.Density.Value(), tank.KinematicViscosity.Value(), *seaT, sea.Density.Value(), sea.KinematicViscosity.Value())
-	fmt.Fprintf(w, "form factor by Prohaska (%d runs at Fn ≤ %g): 1 + k = %.3f (R² = %.3f); C_A = %g\n",
-		out.Form.Points, out.Form.MaxFroude, out.Form.FormFactor, out.Form.R2, *ca)
-	if out.Form.Warning != "" {
-		fmt.Fprintf(w, "WARNING (form factor): %s\n", out.Form.Warning)
+	fp, db := out.Form, out.DoubleBody
+	fmt.Fprintf(w, "form factor by Prohaska (%d runs at Fn ≤ %g): 1 + k = %.3f, u = %.3f (standard uncertainty of the intercept, Type A, ν = %d), R² = %.3f\n",
+		fp.Points, fp.MaxFroude, fp.FormFactor, fp.FormFactorStdErr, fp.Points-2, fp.R2)
+	if fp.Warning != "" {
+		fmt.Fprintf(w, "WARNING (form factor): %s\n", fp.Warning)
+	}
+	fmt.Fprintf(w, "form factor by the double-body test (%d runs): 1 + k = %.3f, u = %.3f (standard uncertainty of the mean, Type A, ν = %d), spread %.3f\n",
+		len(db.PerRun), db.FormFactor, db.StdErr, len(db.PerRun)-1, db.Spread)
+	diff := db.FormFactor - fp.FormFactor
+	uc := math.Hypot(db.StdErr, fp.FormFactorStdErr)
+	out.MethodDiff = 0
+	if math.Abs(diff) > 2*uc {
+		out.MethodDiff = diff
+		fmt.Fprintf(w, "WARNING (form factor): double body − Prohaska = %+.3f, %.1f times their combined standard uncertainty %.3f (flagged above 2):\n"+
+			"  the methods disagree beyond their scatter; the difference enters the budget below as a source (rectangular, half-width %.3f, u = %.4f)\n",
+			diff, math.Abs(diff)/uc, uc, math.Abs(diff), math.Abs(diff)/math.Sqrt(3))
+	} else {
+		fmt.Fprintf(w, "double body − Prohaska = %+.3f, within twice their combined standard uncertainty %.3f\n", diff, uc)
 	}
 	fmt.Fprintln(w)
-	fmt.Fprintf(w, "%6s %6s %8s %9s %9s %8s | %7s %9s %9s | %9s %9s\n", "Vm m/s", "Fn", "Rm N", "C_Tm×1e3", "C_Fm×1e3", "C_R×1e3",
-		"Vs kn", "R_s kN", "P_E kW", "R_s kN", "P_E kW")
-	fmt.Fprintf(w, "%62s %19s   %19s\n", "", "ITTC-1957", "with 1 + k")
+	fmt.Fprintf(w, "ship figures: C_Ts = (1 + k)·C_Fs + C_R + C_A with C_A = %g (the basin's allowance for roughness and correlation), on S_ship = %.4g m²\n",
+		*ca, out.Plain.ShipWettedArea.Value())
+	fmt.Fprintf(w, "%6s %6s %8s %9s %9s %8s | %7s %9s %9s %9s | %9s %9s %9s\n", "Vm m/s", "Fn", "Rm N", "C_Tm×1e3", "C_Fm×1e3", "C_R×1e3",
+		"Vs kn", "C_Ts×1e3", "R_s kN", "P_E kW", "C_Ts×1e3", "R_s kN", "P_E kW")
+	fmt.Fprintf(w, "%62s %29s   %29s\n", "", "ITTC-1957, 1 + k = 1", fmt.Sprintf("with 1 + k = %.3f (Prohaska)", fp.FormFactor))
 	for i, a := range out.Plain.Points {
 		b := out.WithForm.Points[i]
 		vs, _ := kn.ValueOf(a.ShipSpeed)
-		fmt.Fprintf(w, "%6.2f %6.3f %8.3f %9.3f %9.3f %8.3f | %7.2f %9.2f %9.1f | %9.2f %9.1f\n",
+		fmt.Fprintf(w, "%6.2f %6.3f %8.3f %9.3f %9.3f %8.3f | %7.2f %9.3f %9.2f %9.1f | %9.3f %9.2f %9.1f\n",
 			speeds[i], a.Froude, resistances[i], a.ModelCT*1e3, a.ModelCF*1e3, a.Residual*1e3,
-			vs, a.ShipResistance.Value()/1e3, a.EffectivePower.Value()/1e3, b.ShipResistance.Value()/1e3, b.EffectivePower.Value()/1e3)
+			vs, a.ShipCT*1e3, a.ShipResistance.Value()/1e3, a.EffectivePower.Value()/1e3,
+			b.ShipCT*1e3, b.ShipResistance.Value()/1e3, b.EffectivePower.Value()/1e3)
 	}
+	fmt.Fprintf(w, "(C_R is the ITTC-1957 one, C_Tm − C_Fm; with the form factor C_R = C_Tm − (1 + k)·C_Fm)\n")
 	for _, res := range []*similarity.HullResult{out.Plain, out.WithForm} {
 		for _, pt := range res.Points {
 			if pt.Warning != "" {
@@ -199,22 +250,52 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	if err := blockage(w, out, test, *width, *depth); err != nil {
 		return nil, err
 	}
-	if out.Budget, err = topBudget(*scale, *tankT, *seaT, *ca, out.Form); err != nil {
+	if out.Budget, err = topBudget(*scale, *tankT, *seaT, *ca, out.Form, out.MethodDiff); err != nil {
 		return nil, err
 	}
 	fmt.Fprintf(w, "\nUncertainty at the top speed (invented instrument figures; standard uncertainties, first order, GUM):\n")
 	fmt.Fprintf(w, "speed 0.1 %% (rectangular), dynamometer 0.05 N, repeatability 0.06 N (5 repeat runs), tank thermometer 0.2 K,\n")
-	fmt.Fprintf(w, "wetted area 0.5 %%, length 1 mm, 1 + k ± %.3f (Prohaska fit, ν = %d); C_A and the sea temperature taken as exact\n\n",
-		out.Form.FormFactorStdErr, out.Form.Points-2)
+	fmt.Fprintf(w, "wetted area 0.5 %%, length 1 mm, u(1 + k) = %.3f (Prohaska fit, ν = %d)", out.Form.FormFactorStdErr, out.Form.Points-2)
+	if out.MethodDiff != 0 {
+		fmt.Fprintf(w, ", the form-factor methods' difference (rectangular, half-width %.3f, u = %.4f)", math.Abs(out.MethodDiff), math.Abs(out.MethodDiff)/math.Sqrt(3))
+	}
+	fmt.Fprintf(w, "; C_A and the sea temperature taken as exact\n\n")
 	fmt.Fprint(w, out.Budget.Resistance.In("kN", 1e3))
 	fmt.Fprintln(w)
 	fmt.Fprint(w, out.Budget.Power.In("kW", 1e3))
-	if out.Powering, err = powering(w, test, out.Form, *dir); err != nil {
+	if out.Powering, err = powering(w, test, db, size, *dir); err != nil {
 		return nil, err
 	}
 	fmt.Fprintln(w, "\nCAUTION:", similarity.HullCaution)
 	return out, nil
 }
+
+const usageText = `Usage: towingtank [flags]
+
+A towing tank's whole job on invented data for a 2 m model of a 32 m
+(at 1:16) coastal research catamaran. It prints:
+  - the resistance test carried to full scale by the ITTC-1957 method,
+    without and with a form factor 1 + k from Prohaska's method: per run
+    the model's Fn, resistance and coefficients C_Tm, C_Fm, C_R (×10³),
+    and the ship's speed, C_Ts (including the allowance C_A), resistance
+    R_s and effective power P_E;
+  - the form factor again from a double-body test, each with its standard
+    uncertainty and degrees of freedom, and a warning when the two differ
+    by more than twice their combined standard uncertainty;
+  - the tank's one-dimensional blockage correction of every run;
+  - the uncertainty budget of the top speed's R_s and P_E (GUM, first
+    order; invented instrument figures);
+  - delivered power P_D (all shafts) and propeller revolutions by the
+    ITTC-1978 method from invented self-propulsion and open-water tests,
+    with every allowance (ΔC_F, C_A, C_AAS) on every row;
+  - a PNG and an SVG plot of the model's and ship's C_T against the
+    Reynolds number with the friction lines, in -out.
+The figures are estimates for illustration: hull powering and machinery
+selection are for the responsible naval architect and the basin's own
+correlation.
+
+Flags:
+`
 
 // blockage prints the tank's mean-flow blockage correction of every run
 // and what it does to the ship's resistance with the form factor. The
@@ -234,6 +315,9 @@ func blockage(w io.Writer, out *Outcome, test similarity.HullTest, width, depth 
 		width, depth, modelSection, corr[0].Blockage, corr[0].ChokingSpeed.Value())
 	fmt.Fprintf(w, "not applied in the tables above; with it, each resistance belongs to the corrected speed V' = V·(1 + ΔV/V) (ship figures with 1 + k):\n")
 	fmt.Fprintf(w, "%6s %6s %9s %9s %8s %8s | %7s %9s %9s\n", "Vm m/s", "Fh", "ΔV/V %", "linear %", "V' m/s", "Δh mm", "Vs kn", "R_s kN", "P_E kW")
+	legend := fmt.Sprintf("columns: Vm the carriage speed; Fh = Vm/√(g·h) the depth Froude number; ΔV/V the speed correction from the full\n" +
+		"one-dimensional equations (the one applied); linear its linearisation m/(1 − m − Fh²); V' = Vm·(1 + ΔV/V); Δh the mean fall\n" +
+		"of the free surface beside the model; Vs, R_s, P_E the ship's speed, resistance and effective power at V' with 1 + k and C_A\n")
 	kn := units.MustParse("kn")
 	for i, c := range corr {
 		b := out.Blocked.Points[i]
@@ -242,6 +326,7 @@ func blockage(w io.Writer, out *Outcome, test similarity.HullTest, width, depth 
 			c.Speed.Value(), 1e3*c.SurfaceDrop.Value(), vs, b.ShipResistance.Value()/1e3, b.EffectivePower.Value()/1e3)
 	}
 	fmt.Fprintf(w, "(the ship speed follows V' at equal Froude number; published methods (ITTC 7.5-02-02-01 §3.6.3) add wave terms to this mean-flow term)\n")
+	fmt.Fprint(w, legend)
 	return nil
 }
 

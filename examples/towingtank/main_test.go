@@ -5,10 +5,16 @@ import (
 	"errors"
 	"flag"
 	"fmt"
+	"image/png"
+	"io"
 	"math"
 	"os"
 	"strings"
 	"testing"
+
+	"github.com/google/go-cmp/cmp"
+
+	"similis.dev/similis/examples/internal/cli"
 )
 
 func TestRuns(t *testing.T) {
@@ -66,8 +72,139 @@ func TestByHand(t *testing.T) {
 func TestHelp(t *testing.T) {
 	var out bytes.Buffer
 	err := run(&out, []string{"-h"})
-	if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), "Usage") {
-		t.Errorf("-h: %v, %q", err, out.String())
+	for _, want := range []string{"Usage", "It prints:", "C_Ts (including the allowance C_A)", "P_D (all shafts)", "naval architect", "-dpi", "-plotw"} {
+		if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), want) {
+			t.Errorf("-h: %v, lacks %q", err, want)
+		}
+	}
+}
+
+// TestBadFlags: every numeric flag refuses NaN, ±Inf, values outside its
+// range and text with a *cli.Error (exit status 2) naming the flag; a
+// tank so deep that the old code printed "choking at +Inf m/s" is out of
+// range.
+func TestBadFlags(t *testing.T) {
+	for _, name := range []string{"scale", "tank", "sea", "ca", "maxfn", "width", "depth", "plotw", "ploth", "dpi"} {
+		for _, val := range []string{"NaN", "Inf", "-Inf", "1e308", "-1e308", "x"} {
+			err := run(io.Discard, []string{"-out", t.TempDir(), "-" + name, val})
+			var ce *cli.Error
+			if !errors.As(err, &ce) || !strings.Contains(err.Error(), "-"+name) {
+				t.Errorf("-%s %s: %v", name, val, err)
+			}
+		}
+	}
+	var ce *cli.Error
+	if err := run(io.Discard, []string{"stray"}); !errors.As(err, &ce) || !strings.Contains(err.Error(), `"stray"`) {
+		t.Errorf("a stray argument: %v", err)
+	}
+}
+
+// TestPrintedStatements: the output says what each number includes.
+func TestPrintedStatements(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, []string{"-out", t.TempDir()}); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{
+		"ship figures: C_Ts = (1 + k)·C_Fs + C_R + C_A with C_A = 0.0004",
+		"S = 1.62 m² (wetted, both hulls); ship L = 32 m, S = 414.7 m²",
+		"1 + k = 1.131, u = 0.002 (standard uncertainty of the intercept, Type A, ν = 1)",
+		"1 + k = 1.141, u = 0.002 (standard uncertainty of the mean, Type A, ν = 3)",
+		"WARNING (form factor): double body − Prohaska = +0.010",
+		"form factor method (double body vs Prohaska)",
+		"twin screws on open shafts: the wake is not scaled, w_TS = w_TM",
+		"P_D the sum over both shafts",
+		"ΔC_F×10³  C_A×10³",
+		"C_A from the procedure's formula",
+		"ΔC_F = -0.304×10⁻³ is negative",
+		"columns: Vm the carriage speed; Fh = Vm/√(g·h) the depth Froude number",
+	} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+}
+
+// TestFormFactorDisagreementByHand: the double-body and Prohaska values
+// differ by Δ; with u_c = √(u_DB² + u_P²) the difference is flagged when
+// |Δ| > 2u_c and then enters the budget as a rectangular source of
+// standard uncertainty |Δ|/√3, contributing |∂R_s/∂(1 + k)|·|Δ|/√3.
+func TestFormFactorDisagreementByHand(t *testing.T) {
+	o, err := evaluate(io.Discard, []string{"-out", t.TempDir()})
+	if err != nil {
+		t.Fatal(err)
+	}
+	d := o.DoubleBody.FormFactor - o.Form.FormFactor
+	uc := math.Sqrt(o.DoubleBody.StdErr*o.DoubleBody.StdErr + o.Form.FormFactorStdErr*o.Form.FormFactorStdErr)
+	if !(math.Abs(d) > 2*uc) || o.MethodDiff != d {
+		t.Fatalf("Δ = %v, u_c = %v, flagged %v", d, uc, o.MethodDiff)
+	}
+	var kSens, got float64
+	for _, l := range o.Budget.Resistance.Lines {
+		switch l.Source.Name {
+		case "form factor (Prohaska fit)":
+			kSens = l.Sensitivity.Value()
+		case "form factor method (double body vs Prohaska)":
+			got = l.Contribution.Value()
+		}
+	}
+	if want := math.Abs(kSens) * math.Abs(d) / math.Sqrt(3); kSens == 0 || math.Abs(got-want) > 1e-9*want {
+		t.Errorf("method source contributes %v N, by hand %v N", got, want)
+	}
+}
+
+// TestCorrelationAllowanceByHand: the ITTC-1978 rows use the procedure's
+// C_A = (5.68 − 0.6·log₁₀Re_S)·10⁻³ at Re_S = V_S·L_S/ν_S, and C_TS adds
+// it to the rest.
+func TestCorrelationAllowanceByHand(t *testing.T) {
+	o, err := evaluate(io.Discard, []string{"-out", t.TempDir()})
+	if err != nil {
+		t.Fatal(err)
+	}
+	nuS := o.Plain.Test.Sea.KinematicViscosity.Value()
+	for i, p := range o.Powering.Points {
+		re := speeds[i] * 4 * 32 / nuS
+		ca := (5.68 - 0.6*math.Log10(re)) * 1e-3
+		k := o.DoubleBody.FormFactor
+		cts := k*p.ShipCF + p.RoughnessAllowance + ca + p.Residual + p.AirResistance
+		if math.Abs(p.CorrelationAllowance-ca) > 1e-15 || !p.CorrelationFromFormula || math.Abs(p.ShipCT-cts) > 1e-15 {
+			t.Errorf("speed %d: C_A %v (by hand %v), C_TS %v (by hand %v)", i, p.CorrelationAllowance, ca, p.ShipCT, cts)
+		}
+	}
+}
+
+// TestPlotSize: -plotw 5 -ploth 3 -dpi 200 gives a 1000 × 600 pixel PNG.
+func TestPlotSize(t *testing.T) {
+	dir := t.TempDir()
+	o, err := evaluate(io.Discard, []string{"-out", dir, "-plotw", "5", "-ploth", "3", "-dpi", "200"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	f, err := os.Open(o.Powering.PNG)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	cfg, err := png.DecodeConfig(f)
+	if err != nil || cfg.Width != 1000 || cfg.Height != 600 {
+		t.Errorf("PNG %d × %d, %v; want 1000 × 600", cfg.Width, cfg.Height, err)
+	}
+}
+
+// TestSubscriptSegments: "_{…}" becomes a subscript run, the rest plain.
+func TestSubscriptSegments(t *testing.T) {
+	for _, c := range []struct {
+		in   string
+		want []segment
+	}{
+		{"model C_{TM} (measured)", []segment{{"model C", false}, {"TM", true}, {" (measured)", false}}},
+		{"C_{TS}", []segment{{"C", false}, {"TS", true}}},
+		{"Re_x no brace", []segment{{"Re_x no brace", false}}},
+		{"open _{ brace", []segment{{"open _{ brace", false}}},
+	} {
+		if got := segments(c.in); !cmp.Equal(got, c.want, cmp.AllowUnexported(segment{})) {
+			t.Errorf("segments(%q) = %v, want %v", c.in, got, c.want)
+		}
 	}
 }
 
@@ -116,7 +253,7 @@ func TestBudgetByHand(t *testing.T) {
 	}
 	// The report: R_s to the decimal place of u_c (GUM 7.2.6), and the
 	// repeatability's c by hand in kN per newton of R_m.
-	for _, want := range []string{"R_s = 130.80 kN", "u_c = 0.38 kN", "P_E = 1255.6 kW", fmt.Sprintf("%.3g kN/N", c/1e3), "tank thermometer", "form factor (Prohaska fit)", "invented instrument figures"} {
+	for _, want := range []string{"R_s = 130.80 kN", fmt.Sprintf("u_c = %.2f kN", math.Sqrt(ss)/1e3), "P_E = 1255.6 kW", fmt.Sprintf("%.3g kN/N", c/1e3), "tank thermometer", "form factor (Prohaska fit)", "invented instrument figures"} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("output lacks %q", want)
 		}
