@@ -240,6 +240,7 @@ type Report struct {
 	Groups        []GroupOut    `json:"groups"`
 	ValidSets     [][]string    `json:"valid_repeating_sets,omitempty"`
 	table         string        // the text matrix
+	units         []units.Unit  // each variable's declared unit
 	set           *pigroups.Set // for text output
 	problem       *pigroups.Problem
 }
@@ -293,7 +294,12 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 		if err != nil {
 			return nil, fmt.Errorf("variable %q: %w", sym, err)
 		}
-		v := pigroups.Variable{Symbol: sym, Dim: u.Dim(), Kind: kind}
+		am, err := angleMeasure(u)
+		if err != nil {
+			return nil, &usageError{fmt.Sprintf("variable %s=%s: %v", sym, unit, err)}
+		}
+		v := pigroups.Variable{Symbol: sym, Dim: u.Dim(), Kind: kind, Angle: am}
+		r.units = append(r.units, u)
 		if sym == dep {
 			v.Role = pigroups.Dependent
 		}
@@ -364,6 +370,41 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 		}
 	}
 	return r, nil
+}
+
+// angleMeasure says how a variable declared in u counts a plane angle: a
+// unit spelled with rev or rpm counts revolutions, one spelled with rad
+// radians, and a rotational frequency with no angle (Hz, 1/s) counts
+// cycles, that is revolutions, as ISO 80000-3 writes a rotational
+// frequency n. Degrees are refused: no named group takes them.
+func angleMeasure(u units.Unit) (pigroups.AngleMeasure, error) {
+	plane, _ := u.Angle()
+	if plane == 0 {
+		if u.Dim() == quantity.Frequency {
+			return pigroups.Revolutions, nil
+		}
+		return pigroups.Radians, nil
+	}
+	rev, rad, other := false, false, false
+	for _, tok := range strings.FieldsFunc(u.Format(quantity.ASCII), func(r rune) bool {
+		return !unicode.IsLetter(r)
+	}) {
+		switch tok {
+		case "rev", "rpm":
+			rev = true
+		case "rad", "mrad", "urad":
+			rad = true
+		case "deg", "arcmin", "arcsec":
+			other = true
+		}
+	}
+	switch {
+	case rev && !rad && !other:
+		return pigroups.Revolutions, nil
+	case rad && !rev && !other:
+		return pigroups.Radians, nil
+	}
+	return 0, fmt.Errorf("its angle is neither in radians nor in revolutions alone; declare a rotational speed in rad/s or rev/s")
 }
 
 func binomial(n, k int) float64 {

@@ -15,6 +15,7 @@ import (
 	"github.com/schollz/progressbar/v3"
 	"golang.org/x/term"
 
+	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
 	"similis.dev/similis/units/chanfile"
@@ -234,23 +235,38 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	}
 	// Where each variable comes from, with its dimension checked.
 	type source struct {
-		col, out int // a channel, or a derived output (col < 0)
+		col, out int     // a channel, or a derived output (col < 0)
+		scale    float64 // 1, or 1/(2π)^k for a variable held in revolutions
 	}
 	vars := r.problem.Variables()
 	srcs := make([]source, len(vars))
 	for i, v := range vars {
+		vu := r.units[i]
+		plane, _ := vu.Angle()
+		// A channel's SI values hold angles in radians; a variable held in
+		// revolutions takes them divided by (2π)^plane.
+		scale := 1.0
+		if v.Angle == pigroups.Revolutions && plane != 0 {
+			scale = math.Pow(2*math.Pi, -float64(plane))
+		}
 		if j, ok := byName[v.Symbol]; ok {
 			if d := cols[j].Unit.Dim(); d != v.Dim {
 				return &usageError{fmt.Sprintf("variable %s is %s, but channel %q of %s is %s", v.Symbol, quantity.Describe(v.Dim), v.Symbol, opt.data, quantity.Describe(d))}
 			}
-			srcs[i] = source{col: j}
+			if _, err := units.ConvertUnits(1, cols[j].Unit, vu); err != nil {
+				return &usageError{bindError(v.Symbol, vu, cols[j], opt.data, err)}
+			}
+			srcs[i] = source{col: j, scale: scale}
 			continue
 		}
 		if k, ok := derived[v.Symbol]; ok {
 			if d := prog.Dim(k); d != v.Dim {
 				return &usageError{fmt.Sprintf("variable %s is %s, but -derive gives %s", v.Symbol, quantity.Describe(v.Dim), quantity.Describe(d))}
 			}
-			srcs[i] = source{col: -1, out: k}
+			if plane == 0 && v.Angle == pigroups.Revolutions {
+				return &usageError{fmt.Sprintf("variable %s is declared %s, which counts cycles, but -derive gives values in SI, where a rotational speed is in rad/s: declare %s in rad/s or rev/s", v.Symbol, vu.Format(quantity.Unicode), v.Symbol)}
+			}
+			srcs[i] = source{col: -1, out: k, scale: scale}
 			continue
 		}
 		return &usageError{fmt.Sprintf("variable %s is neither a channel of %s nor defined by -derive (channels: %s)", v.Symbol, opt.data, channelNames(cols))}
@@ -293,6 +309,7 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 		progIn  []quantity.Series
 		progOut [][]float64
 		varCols = make([]quantity.Series, len(vars))
+		scaled  = make([][]float64, len(vars))
 		gbuf    = make([][]float64, len(groups))
 		gser    = make([]quantity.Series, len(groups))
 		rows    int
@@ -322,11 +339,20 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 			}
 		}
 		for i, s := range srcs {
+			var vals []float64
 			if s.col >= 0 {
-				varCols[i] = chunk[s.col]
+				vals = chunk[s.col].Values()
 			} else {
-				varCols[i] = quantity.NewSeries(progOut[s.out], prog.Dim(s.out))
+				vals = progOut[s.out]
 			}
+			if s.scale != 1 {
+				scaled[i] = grow(scaled[i], n)
+				for k, x := range vals[:n] {
+					scaled[i][k] = x * s.scale
+				}
+				vals = scaled[i]
+			}
+			varCols[i] = quantity.NewSeries(vals[:n], vars[i].Dim)
 		}
 		for g := range gbuf {
 			gbuf[g] = grow(gbuf[g], n)
@@ -386,6 +412,26 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	}
 	fmt.Fprintln(log, "pisets: reduced test data only; a rating, an acceptance test or a design follows its standard and the engineer responsible")
 	return nil
+}
+
+// bindError explains why channel c cannot be read as variable sym
+// declared in vu: the same angle rule as units.ConvertUnits, with the
+// fix named.
+func bindError(sym string, vu units.Unit, c chanfile.Column, file string, err error) string {
+	cu := c.Unit.Format(quantity.Unicode)
+	vs := vu.Format(quantity.Unicode)
+	msg := fmt.Sprintf("variable %s is declared %s, but channel %q of %s is in %s: %v", sym, vs, c.Name, file, cu, err)
+	cp, _ := c.Unit.Angle()
+	vp, _ := vu.Angle()
+	if errors.Is(err, units.ErrAngle) {
+		switch {
+		case vp > cp:
+			msg += fmt.Sprintf("; if the channel counts revolutions, write its unit in the header as (%s)*rev; or declare the variable in %s (%s=%s)", cu, cu, sym, cu)
+		case vp < cp:
+			msg += fmt.Sprintf("; declare the variable with the channel's angle (%s=%s, or rad/s)", sym, cu)
+		}
+	}
+	return msg
 }
 
 func plural(n int, one, many string) string {
