@@ -2,6 +2,7 @@ package main
 
 import (
 	"bufio"
+	"bytes"
 	"encoding/json"
 	"errors"
 	"fmt"
@@ -38,6 +39,8 @@ type reduceOptions struct {
 	parquet            bool   // Parquet instead of CSV
 	fit                bool   // fit the first group as a power law of the others
 	plot               string // a .png or .svg file for the fit
+	nonfiniteMissing   bool   // a non-finite derived value is a counted missing value, not an error
+	plotW, plotH, dpi  *float64
 }
 
 // groupSink writes the groups of each chunk.
@@ -183,7 +186,8 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	var bar progress
 	var done func(rows int) int64 // rows or bytes read so far
 	const gaugeHelp = "is a gauge pressure: give -baro with the barometer reading (as -baro 1002hPa), or -std-atm to use 101325 Pa as an explicit choice"
-	if strings.HasSuffix(strings.ToLower(opt.data), ".parquet") {
+	parquet := strings.HasSuffix(strings.ToLower(opt.data), ".parquet")
+	if parquet {
 		st, err := f.Stat()
 		if err != nil {
 			return &usageError{fmt.Sprintf("-data: %v", err)}
@@ -313,6 +317,9 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 		gbuf    = make([][]float64, len(groups))
 		gser    = make([]quantity.Series, len(groups))
 		rows    int
+		// non-finite derived values counted as missing, by variable
+		nonfinite      = map[string]int{}
+		nonfiniteOrder []string
 	)
 	for {
 		var n int
@@ -337,6 +344,28 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 			if err := ev.Series(progIn, progOut); err != nil {
 				return &dataError{fmt.Errorf("%s: rows %d to %d: -derive: %w", opt.data, rows+1, rows+n, err)}
 			}
+			// A derived value that is not finite although every channel
+			// of its row is present was produced by the formula (0/0, an
+			// overflow): an error, or with -nonfinite=missing a counted
+			// missing value. A missing channel's NaN is already counted.
+			for i, s := range srcs {
+				if s.col >= 0 {
+					continue
+				}
+				for k, x := range progOut[s.out][:n] {
+					if !math.IsNaN(x) && !math.IsInf(x, 0) || anyNaN(progIn, k) {
+						continue
+					}
+					if !opt.nonfiniteMissing {
+						return &dataError{fmt.Errorf("%s: -derive gives %s = %v from a row with every channel present (a 0/0, an overflow or a function outside its domain); use -nonfinite=missing to count such values as missing", where(opt.data, rows+k+1, parquet), vars[i].Symbol, x)}
+					}
+					progOut[s.out][k] = math.NaN()
+					if nonfinite[vars[i].Symbol] == 0 {
+						nonfiniteOrder = append(nonfiniteOrder, vars[i].Symbol)
+					}
+					nonfinite[vars[i].Symbol]++
+				}
+			}
 		}
 		for i, s := range srcs {
 			var vals []float64
@@ -358,7 +387,11 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 			gbuf[g] = grow(gbuf[g], n)
 		}
 		if err := gev.Series(varCols, gbuf); err != nil {
-			return &dataError{fmt.Errorf("%s: rows %d to %d: %w", opt.data, rows+1, rows+n, err)}
+			k, rerr := failingRow(gev, varCols, n)
+			if rerr == nil {
+				return &dataError{fmt.Errorf("%s: rows %d to %d: %w", opt.data, rows+1, rows+n, err)}
+			}
+			return &dataError{fmt.Errorf("%s: %w", where(opt.data, rows+k+1, parquet), rerr)}
 		}
 		for g := range gbuf {
 			gser[g] = quantity.NewSeries(gbuf[g], 0)
@@ -398,6 +431,10 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 			fmt.Fprintf(log, "pisets: channel %s: %d missing %s (empty group fields in those rows)\n", c.Name, c.Missing, plural(c.Missing, "value", "values"))
 		}
 	}
+	for _, v := range nonfiniteOrder {
+		c := nonfinite[v]
+		fmt.Fprintf(log, "pisets: derived %s: %d non-finite %s counted as missing (-nonfinite=missing; empty group fields in those rows)\n", v, c, plural(c, "value", "values"))
+	}
 	if fits != nil {
 		law, err := reportFit(fits, groups, log)
 		if err != nil {
@@ -432,6 +469,80 @@ func bindError(sym string, vu units.Unit, c chanfile.Column, file string, err er
 		}
 	}
 	return msg
+}
+
+// anyNaN reports whether any input column is missing (NaN) at row k.
+func anyNaN(in []quantity.Series, k int) bool {
+	for _, s := range in {
+		if math.IsNaN(s.Values()[k]) {
+			return true
+		}
+	}
+	return false
+}
+
+// failingRow finds the first row of the chunk whose groups cannot be
+// evaluated, and the error without a row index of its own.
+func failingRow(gev *pigroups.Evaluator, cols []quantity.Series, n int) (int, error) {
+	q := make([]quantity.Quantity, len(cols))
+	dst := make([]float64, 0, 8)
+rows:
+	for k := range n {
+		for i, c := range cols {
+			if q[i] = c.At(k); math.IsNaN(q[i].Value()) {
+				continue rows // a missing value: an empty group, not an error
+			}
+		}
+		if _, err := gev.Row(q, dst); err != nil {
+			return k, err
+		}
+	}
+	return 0, nil
+}
+
+// where names a data row for a message: the file's line for a text file
+// (comments, blank lines and the header counted), the row for Parquet.
+func where(file string, row int, parquet bool) string {
+	if parquet {
+		return fmt.Sprintf("%s: row %d", file, row)
+	}
+	if line := lineOfRow(file, row); line > 0 {
+		return fmt.Sprintf("%s:%d", file, line)
+	}
+	return fmt.Sprintf("%s: data row %d", file, row)
+}
+
+// lineOfRow returns the line of a text channel file that holds data row
+// row (1-based), reading the file again as the channel reader does:
+// blank lines and lines starting with '#' skipped, the first other line
+// the header; 0 if the file cannot be read or is shorter.
+func lineOfRow(file string, row int) int {
+	f, err := os.Open(file)
+	if err != nil {
+		return 0
+	}
+	defer f.Close()
+	br := bufio.NewReaderSize(f, chanfile.MaxLineLen)
+	if b, err := br.Peek(3); err == nil && string(b) == "\xef\xbb\xbf" {
+		br.Discard(3)
+	}
+	line, data := 0, -1 // data: rows seen, −1 before the header
+	for {
+		b, err := br.ReadSlice('\n')
+		if len(b) == 0 && err != nil {
+			return 0
+		}
+		line++
+		b = bytes.TrimSuffix(bytes.TrimSuffix(b, []byte{'\n'}), []byte{'\r'})
+		if len(b) > 0 && b[0] != '#' {
+			if data++; data == row {
+				return line
+			}
+		}
+		if err != nil && err != bufio.ErrBufferFull {
+			return 0
+		}
+	}
 }
 
 func plural(n int, one, many string) string {
