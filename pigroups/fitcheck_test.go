@@ -127,3 +127,19 @@ func TestFitWarnsSharedVariables(t *testing.T) {
 		t.Errorf("warnings %q", f.Warnings)
 	}
 }
+
+// TestMissingBeatsZero: a row with a missing value (NaN) and a zero in a
+// denominator is a missing group value, not a range error: the missing
+// reading explains it.
+func TestMissingBeatsZero(t *testing.T) {
+	p := pigroups.MustProblem(pigroups.Dep("x", q.Length), pigroups.Var("b", q.Length))
+	s, err := p.PiSet("b")
+	if err != nil {
+		t.Fatal(err)
+	}
+	dst := [][]float64{make([]float64, 2)}
+	cols := []q.Series{q.NewSeries([]float64{math.NaN(), 1}, q.Length), q.NewSeries([]float64{0, 2}, q.Length)}
+	if err := s.Evaluator().Series(cols, dst); err != nil || !math.IsNaN(dst[0][0]) || dst[0][1] != 0.5 {
+		t.Errorf("x/b over (NaN/0, 1/2): %v, %v; want NaN and 0.5", dst[0], err)
+	}
+}

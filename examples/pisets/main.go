@@ -120,8 +120,9 @@ Output with -data (formats), one line or record per data row, groups in order:
 Standard error gets every reading of the header, each group's definition and
 name, the missing values of each channel, and with -fit the power law
 Π₁ = C·Π₂^a·… fitted by least squares on logarithms, with 95 % intervals that
-allow for correlated rows (effective sample size from the lag-1 autocorrelation
-of the residuals), a runs test for lack of fit, and a warning when Π₁ and another
+allow for correlated rows (effective rows n_eff = n(1 − r₁)/(1 + r₁), r₁ the
+lag-1 autocorrelation of the residuals, common practice), a runs test on the
+residuals' signs for lack of fit, and a warning when Π₁ and another
 group share a variable.
 
 Exit status: 0 done; 1 bad data (file:line, or file: row for Parquet); 2 usage.

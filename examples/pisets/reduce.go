@@ -43,6 +43,16 @@ type reduceOptions struct {
 	plotW, plotH, dpi  *float64
 }
 
+// size returns the plot's size and resolution, the defaults when the
+// flags were not defined (a test calling reduce directly).
+func (o reduceOptions) size() plotSize {
+	s := plotSize{6, 4, 150}
+	if o.plotW != nil {
+		s = plotSize{*o.plotW, *o.plotH, *o.dpi}
+	}
+	return s
+}
+
 // groupSink writes the groups of each chunk.
 type groupSink interface {
 	Write([]quantity.Series) error
@@ -387,7 +397,7 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 			gbuf[g] = grow(gbuf[g], n)
 		}
 		if err := gev.Series(varCols, gbuf); err != nil {
-			k, rerr := failingRow(gev, varCols, n)
+			k, rerr := failingRow(gev, varCols, n, len(groups))
 			if rerr == nil {
 				return &dataError{fmt.Errorf("%s: rows %d to %d: %w", opt.data, rows+1, rows+n, err)}
 			}
@@ -441,7 +451,7 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 			return err
 		}
 		if opt.plot != "" {
-			if err := plotFit(opt.plot, fits, law, groups, opt.data); err != nil {
+			if err := plotFit(opt.plot, fits, law, groups, opt.data, opt.size()); err != nil {
 				return &usageError{fmt.Sprintf("-plot: %v", err)}
 			}
 			fmt.Fprintf(log, "pisets: plot written to %s\n", opt.plot)
@@ -483,9 +493,9 @@ func anyNaN(in []quantity.Series, k int) bool {
 
 // failingRow finds the first row of the chunk whose groups cannot be
 // evaluated, and the error without a row index of its own.
-func failingRow(gev *pigroups.Evaluator, cols []quantity.Series, n int) (int, error) {
+func failingRow(gev *pigroups.Evaluator, cols []quantity.Series, n, groups int) (int, error) {
 	q := make([]quantity.Quantity, len(cols))
-	dst := make([]float64, 0, 8)
+	dst := make([]float64, groups)
 rows:
 	for k := range n {
 		for i, c := range cols {

@@ -168,7 +168,7 @@ func TestReduceJSONLines(t *testing.T) {
 			}
 		}
 	}
-	if code := run(append([]string{"-format", "xml"}, pumpArgs...), &jsonOut, &errb); code != 2 || !strings.Contains(errb.String(), "want csv, jsonl or parquet") {
+	if code := run(append([]string{"-format", "xml"}, pumpArgs...), &jsonOut, &errb); code != 2 || !strings.Contains(errb.String(), "want csv, jsonl, json, text or parquet") {
 		t.Errorf("-format xml: exit %d, %s", code, errb.String())
 	}
 }
