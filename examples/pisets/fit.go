@@ -139,6 +139,8 @@ func buildPlot(f *fitRows, law *pigroups.PowerLaw, groups []pigroups.Group, data
 		xs, ys = append(xs, p.X), append(ys, p.Y)
 	}
 	styleAxes(pl, xs, ys)
+	// Room above the data for the legend, so it covers no marker.
+	pl.Y.Max *= math.Pow(pl.Y.Max/pl.Y.Min, 0.3)
 	return pl, nil
 }
 
