@@ -37,18 +37,32 @@
 //	-fit               fit the dependent group as a power law of the others
 //	                   (intervals, R², range of validity, on standard error)
 //	-plot FILE         with -fit and two groups: a .png or .svg of rows and fit
-//	-format csv|jsonl|parquet
-//	                   the groups as CSV (the default), JSON lines
-//	                   ({"row":1,"Π₁":0.17,"Π₂":0.021}, null when missing)
-//	                   or Parquet (with -out; implied by -out x.parquet)
+//	-plot-width, -plot-height IN, -dpi N
+//	                   the plot's size in inches and a PNG's resolution
+//	-nonfinite error|missing
+//	                   a derived value that is not finite (0/0) where every
+//	                   channel is present: an error with its line (the
+//	                   default), or a missing value counted on standard error
+//	-format csv|jsonl|json|text|parquet
+//	                   the groups as CSV (the default; text is the same), JSON
+//	                   lines ({"row":1,"Π₁":0.17,"Π₂":0.021}, null when
+//	                   missing; json is the same) or Parquet (with -out;
+//	                   implied by -out x.parquet)
+//
+// A channel binds to a variable only when its unit converts to the
+// variable's by the rules of units.ConvertUnits: rpm into rad/s or rev/s,
+// never Hz into rad/s (write the channel as (Hz)*rev, or declare the
+// variable in Hz). A variable declared in rev/s, rpm or Hz holds
+// revolutions, and its groups are labelled accordingly (K_T, not
+// K_T/(4π²)).
 //
 // On a terminal, a long file (over 4 MiB of text or 10⁵ Parquet rows)
 // shows a progress bar on standard error, cleared when the file is done.
 //
 // With no variables it runs on a built-in invented problem (the bench test
-// of a flow restrictor). It exits 0 on success, 1 with the file, line and
-// column for bad data, and 2 with a one-line message on standard error for
-// bad usage.
+// of a flow restrictor). It exits 0 on success, 1 with the file and line
+// (the row for Parquet) for bad data, and 2 with a one-line message on
+// standard error for bad usage.
 package main
 
 import (
