@@ -320,6 +320,9 @@ type VariableOut struct {
 	Dimension string   `json:"dimension"`
 	Kinds     []string `json:"kinds"`
 	Dependent bool     `json:"dependent,omitempty"`
+	// Angle is "rev" for a variable that holds a rotational speed in
+	// revolutions (declared in rev/s, rpm or Hz); empty for radians.
+	Angle string `json:"angle,omitempty"`
 }
 
 // GroupOut describes one group.
@@ -372,7 +375,11 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 			v.Role = pigroups.Dependent
 		}
 		vars = append(vars, v)
-		r.Variables = append(r.Variables, VariableOut{Symbol: sym, Unit: u.Format(quantity.Unicode), Dimension: u.Dim().String(), Dependent: sym == dep})
+		vo := VariableOut{Symbol: sym, Unit: u.Format(quantity.Unicode), Dimension: u.Dim().String(), Dependent: sym == dep}
+		if am == pigroups.Revolutions && (u.Dim() == quantity.Frequency) {
+			vo.Angle = am.String()
+		}
+		r.Variables = append(r.Variables, vo)
 	}
 	if dep != "" && !slicesContains(r.Variables, dep) {
 		return nil, &usageError{fmt.Sprintf("-dep %s is not among the variables", cli.Quote(dep))}

@@ -16,6 +16,7 @@ import (
 	"github.com/schollz/progressbar/v3"
 	"golang.org/x/term"
 
+	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
@@ -186,7 +187,7 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	case opt.baro != "":
 		q, err := units.ParseQuantity(opt.baro)
 		if err != nil || q.Dim() != quantity.Pressure {
-			return &usageError{fmt.Sprintf("-baro %q: want an absolute pressure such as 1002hPa", opt.baro)}
+			return &usageError{fmt.Sprintf("-baro %s: want an absolute pressure such as 1002hPa", cli.Quote(opt.baro))}
 		}
 		ro.Reference = q
 	case opt.stdAtm:
