@@ -340,8 +340,7 @@ type compiledForm struct {
 	// a cheap necessary condition for a match.
 	sig   quantity.Dim
 	sigOK bool
-	proxy int          // index of the proxy term, or −1
-	rot   quantity.Rat // the exponent of rotational speed in the form
+	proxy int // index of the proxy term, or −1
 }
 
 type compiledTerm struct {
@@ -358,7 +357,7 @@ var compiled = func() []compiledForm {
 		n := &catalogue[i]
 		for j := range n.Forms {
 			f := &n.Forms[j]
-			cf := compiledForm{named: n, form: f, sigOK: true, proxy: -1, rot: quantity.RatInt(0)}
+			cf := compiledForm{named: n, form: f, sigOK: true, proxy: -1}
 			for k, t := range f.Factors {
 				d, ok := KindDim(t.Kind)
 				cf.terms = append(cf.terms, compiledTerm{kind: t.Kind, exp: t.Exp, dim: d, known: ok, explicit: explicitOnly[t.Kind]})
@@ -368,9 +367,6 @@ var compiled = func() []compiledForm {
 				}
 				if f.Proxy != nil && cf.proxy < 0 && t.Kind == f.Proxy.Kind && t.Exp == f.Proxy.Exp {
 					cf.proxy = k
-				}
-				if t.Kind == "rotational speed" {
-					cf.rot, _ = cf.rot.Add(t.Exp)
 				}
 			}
 			out = append(out, cf)
@@ -398,8 +394,9 @@ type Match struct {
 	// quantity of the definition (L for the area A of C_D): the group is
 	// then only proportional to the named group.
 	Proxy *ProxyUse
-	// rot is the exponent of rotational speed in the named group.
-	rot quantity.Rat
+	// twoPi is the power of 2π between the definition's measure of a
+	// rotational speed and the measure its variables hold (see Angle).
+	twoPi int
 }
 
 // ProxyUse is a variable that stands in for a reference quantity in a
@@ -414,14 +411,11 @@ type ProxyUse struct {
 func (m Match) Exact() bool { return m.Proxy == nil }
 
 // TwoPiPower returns m with Factor = Coef·(2π)^m: the power of 2π that
-// turns the radians per second a rotational speed holds into the
-// revolutions per second of the definition (2 for K_T), or 0.
-func (m Match) TwoPiPower() int {
-	if !m.Revolutions || !m.rot.IsInt() {
-		return 0
-	}
-	return int(-m.rot.Num())
-}
+// turns the measure the group's rotational speeds are held in (each
+// variable's Angle) into the measure of the definition: 2 for K_T against
+// a speed in rad/s, 0 for K_T against one in rev/s, −1 for a tip-speed
+// ratio ω·R/V against one in rev/s.
+func (m Match) TwoPiPower() int { return m.twoPi }
 
 // Factor returns k with Named = k·group^(1/Power) for an exact match, the
 // group's variables taking their SI values: 2 for C_D against F/(ρV²A),
@@ -584,7 +578,11 @@ func (m Match) describe(name string) string {
 	case m.FactorText() != "":
 		fmt.Fprintf(&sb, "; %s: %s", m.Definition, m.Equation(name))
 		if m.TwoPiPower() != 0 {
-			sb.WriteString(" with the rotational speed's SI value in rad/s")
+			if m.Revolutions {
+				sb.WriteString(" with the rotational speed held in rad/s")
+			} else {
+				sb.WriteString(" with the rotational speed held in rev/s")
+			}
 		}
 	case !(m.Power.Num() == 1 && m.Power.Den() == 1):
 		sb.WriteString("; conventional form " + m.Symbol)
@@ -726,7 +724,22 @@ func (p *Problem) matchForm(f *compiledForm, terms []int, exps []quantity.Rat) (
 	if bestN < 0 {
 		return Match{}, false
 	}
-	m := Match{Named: *f.named, Power: bestPower, rot: f.rot}
+	m := Match{Named: *f.named, Power: bestPower}
+	for fi, t := range f.terms {
+		if t.kind != "rotational speed" || !t.exp.IsInt() {
+			continue
+		}
+		// The definition's speed is 2π times a speed held in rev/s when it
+		// takes rad/s, and 1/(2π) times one held in rad/s when it takes
+		// rev/s.
+		held := p.vars[bestAssign[fi]].Angle == Revolutions
+		switch {
+		case f.named.Revolutions && !held:
+			m.twoPi -= int(t.exp.Num())
+		case !f.named.Revolutions && held:
+			m.twoPi += int(t.exp.Num())
+		}
+	}
 	if bestN > 0 {
 		m.Assumed = make([]string, 0, bestN)
 	}

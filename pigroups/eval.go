@@ -256,11 +256,21 @@ func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
 func finiteNonzero(x float64) bool { return x != 0 && !math.IsInf(x, 0) && !math.IsNaN(x) }
 
 // logRow evaluates group g in logarithms, as factor·∏|x|^e with the sign
-// of the product. A NaN input (a missing value) gives NaN, a zero in the
+// of the product. A NaN input (a missing value) gives NaN, whatever the
+// other inputs; a zero in the
 // numerator gives 0; ok is false when the value is truly out of range, an
 // input is infinite or zero in the denominator, or a negative value is
 // raised to a fractional power.
 func (e *Evaluator) logRow(g int, value func(int) float64) (float64, bool) {
+	// A missing value makes the group missing, whatever the other inputs
+	// of its row (a zero elsewhere in the denominator included).
+	for _, terms := range [2][]evTerm{e.num[g], e.den[g]} {
+		for _, t := range terms {
+			if math.IsNaN(value(t.v)) {
+				return math.NaN(), true
+			}
+		}
+	}
 	lv, neg := math.Log(math.Abs(e.factor[g])), e.factor[g] < 0
 	zero := false
 	add := func(terms []evTerm, sign float64) bool {

@@ -65,6 +65,34 @@ type FitOptions struct {
 	// Names, if given, name Π₀, Π₁ … Π_k in notes ("Eu", "Re", "L/d");
 	// by default they are Π₀ … Π_k.
 	Names []string
+	// Correlated marks rows logged in sequence, whose errors may be
+	// correlated: the intervals then use an effective number of rows
+	// n_eff = n·(1 − r₁)/(1 + r₁), r₁ the lag-1 autocorrelation of the
+	// residuals in row order (common practice for serially correlated
+	// samples; n_eff = n when r₁ ≤ 0), with the covariance scaled by
+	// n/n_eff and Student's t on n_eff − k − 1 degrees of freedom.
+	Correlated bool
+	// Groups, if given, are the groups Π₀ … Π_k the values were
+	// evaluated from; the fit then warns (Warnings) when Π₀ shares a
+	// variable with another group, which correlates them whatever the
+	// physics and inflates R² (spurious correlation).
+	Groups []Group
+}
+
+// SharedVariables returns the symbols of the variables a and b both
+// contain, in variable order; nil when they share none or belong to
+// different problems.
+func SharedVariables(a, b Group) []string {
+	if a.prob == nil || a.prob != b.prob {
+		return nil
+	}
+	var out []string
+	for i, e := range a.exps {
+		if !e.IsZero() && !b.exps[i].IsZero() {
+			out = append(out, a.prob.vars[i].Symbol)
+		}
+	}
+	return out
 }
 
 // PowerLaw is a fitted Π₀ = C·Π₁^a₁·…·Π_k^a_k, from least squares on
@@ -77,7 +105,19 @@ type PowerLaw struct {
 	Intervals [][2]float64 // confidence intervals of a₁ … a_k
 	R2        float64      // coefficient of determination in log space
 	RMS       float64      // residual root mean square in log space
-	N, DoF    int          // rows and residual degrees of freedom
+	N, DoF    int          // rows and residual degrees of freedom (n_eff − k − 1 when Correlated)
+	// R1 is the lag-1 autocorrelation of the residuals in row order, and
+	// NEff the effective number of rows the intervals use: N unless
+	// FitOptions.Correlated, then N·(1 − R1)/(1 + R1) for R1 > 0.
+	R1, NEff float64
+	// Runs is a lack-of-fit check: the Wald–Wolfowitz runs test on the
+	// signs of the residuals ordered by the fitted value. Too few runs
+	// mean residuals of one sign in stretches, a curve the law does not
+	// follow.
+	Runs RunsTest
+	// Warnings lists what the intervals and R² do not show: groups that
+	// share variables with Π₀ (see FitOptions.Groups).
+	Warnings []string
 	// Ranges holds the smallest and largest fitted value of each of
 	// Π₁ … Π_k: the correlation's range of validity, outside which
 	// Predict marks its result as an extrapolation.
@@ -171,7 +211,19 @@ func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error)
 		d := math.Log(y[i]) - meanY
 		ssTot += sw[i] * sw[i] * d * d
 	}
+	resid := make([]float64, n)
+	for i := range n {
+		resid[i] = (Y.AtVec(i) - fitted.AtVec(i)) / sw[i]
+	}
+	r1 := lag1(resid)
+	nEff := float64(n)
+	if o.Correlated && r1 > 0 {
+		nEff = float64(n) * (1 - r1) / (1 + r1)
+	}
 	dof := n - p
+	if nEff-float64(p) < 1 {
+		return nil, &FitError{Err: ErrTooFewRows, Row: -1, Group: -1, Reason: fmt.Sprintf("the residuals' lag-1 autocorrelation %.3f leaves an effective %.1f rows for %d coefficients: no interval can be quoted; log more widely spaced rows", r1, nEff, p)}
+	}
 	sigma2 := ssRes / float64(dof)
 	var xtx mat.SymDense
 	xtx.SymOuterK(1, X.T())
@@ -183,9 +235,24 @@ func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error)
 	if err := chol.InverseTo(&inv); err != nil {
 		return nil, &FitError{Err: ErrCollinear, Row: -1, Group: -1, Cond: cond, Reason: err.Error()}
 	}
-	inv.ScaleSym(sigma2, &inv)
-	tq := distuv.StudentsT{Mu: 0, Sigma: 1, Nu: float64(dof)}.Quantile(1 - (1-o.Level)/2)
-	f := &PowerLaw{N: n, DoF: dof, Level: o.Level, Cond: cond, tq: tq, sigma2: sigma2, cov: &inv}
+	inflate := float64(n) / nEff // 1 unless correlated
+	inv.ScaleSym(sigma2*inflate, &inv)
+	tDoF := float64(dof)
+	if nEff < float64(n) {
+		tDoF = nEff - float64(p)
+		dof = int(math.Floor(tDoF))
+	}
+	tq := distuv.StudentsT{Mu: 0, Sigma: 1, Nu: tDoF}.Quantile(1 - (1-o.Level)/2)
+	f := &PowerLaw{N: n, DoF: dof, Level: o.Level, Cond: cond, tq: tq, sigma2: sigma2 * inflate, cov: &inv, R1: r1, NEff: nEff}
+	f.Runs = runsTest(resid, &fitted, sw)
+	if len(o.Groups) == p {
+		for j := 1; j < p; j++ {
+			if sh := SharedVariables(o.Groups[0], o.Groups[j]); len(sh) > 0 {
+				a, b := fitName(o.Names, 0), fitName(o.Names, j)
+				f.Warnings = append(f.Warnings, fmt.Sprintf("%s and %s share %s: the fit correlates them through those variables whatever the physics (spurious correlation), so R² and the exponent of %s overstate the evidence; check the law on a set where the shared variables are held or on a group that leaves them out", a, b, strings.Join(sh, ", "), b))
+			}
+		}
+	}
 	f.names = slices.Clone(o.Names)
 	f.Ranges = make([][2]float64, k)
 	for j, col := range x {
@@ -211,6 +278,107 @@ func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error)
 		return nil, &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: "the fitted coefficient or exponents are not finite (the data's logarithms span too wide a range)"}
 	}
 	return f, nil
+}
+
+func fitName(names []string, j int) string {
+	if j < len(names) && names[j] != "" {
+		return names[j]
+	}
+	return piName(j)
+}
+
+// lag1 returns the lag-1 autocorrelation Σ eᵢ·eᵢ₊₁ / Σ eᵢ² of residuals
+// e, 0 when they are all zero.
+func lag1(e []float64) float64 {
+	num, den := 0.0, 0.0
+	for i, x := range e {
+		den += x * x
+		if i > 0 {
+			num += e[i-1] * x
+		}
+	}
+	if den == 0 {
+		return 0
+	}
+	return num / den
+}
+
+// RunsTest is the Wald–Wolfowitz runs test on the signs of a fit's
+// residuals ordered by the fitted value, with the normal approximation:
+// mean μ = 2·n₊·n₋/n + 1 and variance (μ − 1)(μ − 2)/(n − 1) runs.
+// LackOfFit is set when Z < −1.645 (fewer runs than chance gives, one-sided
+// at 5 %). With fewer than 10 residuals of either sign the approximation
+// is rough, and Approximate says so.
+type RunsTest struct {
+	Runs, Plus, Minus int
+	Expected, Z       float64
+	LackOfFit         bool
+	Approximate       bool
+}
+
+// String writes the test for a report.
+func (r RunsTest) String() string {
+	s := fmt.Sprintf("runs test on the residuals' signs ordered by the fitted value: %d runs, %.1f expected, z = %.2f", r.Runs, r.Expected, r.Z)
+	if r.LackOfFit {
+		s += ": LACK OF FIT (too few runs, one-sided 5 %): the law misses a trend in the data"
+	} else {
+		s += ": no lack of fit shown (one-sided 5 %)"
+	}
+	if r.Approximate {
+		s += " (fewer than 10 residuals of one sign: the normal approximation is rough)"
+	}
+	return s
+}
+
+func runsTest(resid []float64, fitted *mat.VecDense, sw []float64) RunsTest {
+	idx := make([]int, len(resid))
+	for i := range idx {
+		idx[i] = i
+	}
+	slices.SortStableFunc(idx, func(a, b int) int {
+		return cmpFloat(fitted.AtVec(a)/sw[a], fitted.AtVec(b)/sw[b])
+	})
+	var r RunsTest
+	last := 0
+	for _, i := range idx {
+		sg := 0
+		switch {
+		case resid[i] > 0:
+			sg, r.Plus = 1, r.Plus+1
+		case resid[i] < 0:
+			sg, r.Minus = -1, r.Minus+1
+		default:
+			continue
+		}
+		if sg != last {
+			r.Runs++
+			last = sg
+		}
+	}
+	n := float64(r.Plus + r.Minus)
+	r.Approximate = r.Plus < 10 || r.Minus < 10
+	if r.Plus == 0 || r.Minus == 0 {
+		r.LackOfFit = n > 2 // every residual of one sign
+		r.Expected, r.Z = 1, 0
+		return r
+	}
+	r.Expected = 2*float64(r.Plus)*float64(r.Minus)/n + 1
+	v := (r.Expected - 1) * (r.Expected - 2) / (n - 1)
+	if v > 0 {
+		r.Z = (float64(r.Runs) - r.Expected) / math.Sqrt(v)
+	}
+	r.LackOfFit = r.Z < -1.645
+	return r
+}
+
+func cmpFloat(a, b float64) int {
+	switch {
+	case a < b:
+		return -1
+	case a > b:
+		return 1
+	}
+	return 0
 }
 
 // Prediction is the fitted Π₀ at a point, with its confidence interval

@@ -35,7 +35,38 @@ type Variable struct {
 	Kind string
 	// Role marks the dependent variable.
 	Role Role
+	// Angle is the measure in which the variable's values count a plane
+	// angle, for a rotational speed: Radians (the SI value, rad/s; the
+	// zero value) or Revolutions (rev/s, or the cycles per second of a
+	// value in Hz, as ISO 80000-3 writes a rotational frequency). It
+	// decides the factor 2π between a group and a named group whose
+	// definition takes the other measure (K_T = 4π²·T/(ρ·ω²·D⁴) with ω in
+	// rad/s, K_T = T/(ρ·n²·D⁴) with n in rev/s).
+	Angle AngleMeasure
 }
+
+// AngleMeasure says how a variable's values count a plane angle.
+type AngleMeasure uint8
+
+// Angle measures.
+const (
+	Radians     AngleMeasure = iota // rad, the SI value (rad = 1)
+	Revolutions                     // rev (1 rev = 2π rad), or cycles
+)
+
+// String returns "rad" or "rev".
+func (a AngleMeasure) String() string {
+	switch a {
+	case Radians:
+		return "rad"
+	case Revolutions:
+		return "rev"
+	}
+	return fmt.Sprintf("AngleMeasure(%d)", uint8(a))
+}
+
+// InRevolutions returns v holding its values in revolutions (rev/s).
+func (v Variable) InRevolutions() Variable { v.Angle = Revolutions; return v }
 
 // Var returns an independent variable.
 func Var(symbol string, d quantity.Dim) Variable { return Variable{Symbol: symbol, Dim: d} }
@@ -86,6 +117,7 @@ var (
 	ErrTooLarge          = errors.New("exponents too large for exact arithmetic")
 	ErrForeignGroup      = errors.New("group of another problem")
 	ErrNotDimensionless  = errors.New("not dimensionless")
+	ErrBadAngle          = errors.New("unknown angle measure")
 )
 
 // ProblemError reports a list of variables that cannot form a problem.
@@ -126,7 +158,7 @@ func classOf(err error) error {
 	case ErrKindDimension, ErrNotDimensionless:
 		return quantity.ErrDimension
 	case ErrNoVariables, ErrDuplicateSymbol, ErrTwoDependent, ErrRepeatingCount, ErrRepeatingDep, ErrRepeatingSingular,
-		ErrNoGroups, ErrTooManyVariables, ErrBadSymbol, ErrDependentOnly, ErrForeignGroup, ErrTooManySets, ErrNotExact,
+		ErrNoGroups, ErrTooManyVariables, ErrBadSymbol, ErrDependentOnly, ErrForeignGroup, ErrTooManySets, ErrNotExact, ErrBadAngle,
 		ErrTooFewRows, ErrNonPositive, ErrCollinear, ErrFitShape, errInternal:
 		return quantity.ErrInvalid
 	}
@@ -255,6 +287,9 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 			if w.Symbol == v.Symbol {
 				return nil, &ProblemError{Err: ErrDuplicateSymbol, Symbol: v.Symbol}
 			}
+		}
+		if v.Angle > Revolutions {
+			return nil, &ProblemError{Err: ErrBadAngle, Symbol: v.Symbol, Reason: fmt.Sprintf("angle measure %v: want Radians or Revolutions", v.Angle)}
 		}
 		if v.Role == Dependent {
 			if p.dep >= 0 {
@@ -532,7 +567,9 @@ func (p *Problem) columns(idx []int) exact.Matrix[quantity.Rat] {
 	return m
 }
 
-// CheckRepeating validates a repeating set: it must have exactly Rank
+// CheckRepeating validates a repeating set, exactly as PiSet does: it
+// must leave at least one group (a problem of rank equal to its number of
+// variables has none, and no set is valid), and it must have exactly Rank
 // members, all known, none dependent, carrying every base dimension that
 // appears, and independent among themselves. The error is a
 // *RepeatingError; when the members are dependent it names the
@@ -564,6 +601,11 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 	}
 	if len(idx) != p.rank {
 		return nil, fail(ErrRepeatingCount, "")
+	}
+	if p.NumGroups() == 0 {
+		e := fail(ErrNoGroups, "")
+		e.Hint = fmt.Sprintf("the rank equals the %d variables, so every variable repeats and no group is left", len(p.vars))
+		return nil, e
 	}
 	var e RepeatingError
 	isub := p.intColumns(idx)
@@ -635,7 +677,10 @@ func (p *Problem) RepeatingSets() ([][]string, error) {
 }
 
 // EachRepeating calls f with each valid repeating set, in the order of
-// RepeatingSets, until f returns false.
+// RepeatingSets, until f returns false. The valid sets are those
+// CheckRepeating accepts and PiSet builds a set from: for a problem of
+// rank 0 (every variable dimensionless) the one empty set, and for a
+// problem with no groups none.
 func (p *Problem) EachRepeating(f func(set []string) bool) {
 	p.eachRepeating(func(idx []int) bool {
 		set := make([]string, len(idx))
@@ -656,7 +701,11 @@ func (p *Problem) eachRepeating(f func(idx []int) bool) {
 		}
 	}
 	r := p.rank
-	if r == 0 || r > len(cand) {
+	if r > len(cand) || p.NumGroups() == 0 {
+		return
+	}
+	if r == 0 {
+		f([]int{}) // every variable dimensionless: the empty set repeats
 		return
 	}
 	// Work on the row echelon columns with an incremental rank test:
@@ -808,6 +857,9 @@ func (p *Problem) DefaultRepeating() ([]string, error) {
 			return nil, e
 		}
 		return nil, &RepeatingError{Err: ErrNoGroups, Want: p.rank}
+	}
+	if p.NumGroups() == 0 {
+		return nil, &RepeatingError{Err: ErrNoGroups, Want: p.rank, Hint: "the rank equals the number of variables, so no group is left"}
 	}
 	slices.Sort(chosen)
 	out := make([]string, len(chosen))

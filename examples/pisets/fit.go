@@ -9,7 +9,6 @@ import (
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
-	"gonum.org/v1/plot/vg"
 
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
@@ -51,13 +50,15 @@ rows:
 }
 
 // reportFit fits the first group (the dependent one) as a power law of
-// the others and writes the law with its intervals to log.
+// the others and writes the law with its intervals to log. Logged rows
+// are treated as correlated: the intervals use the effective number of
+// rows from the residuals' lag-1 autocorrelation.
 func reportFit(f *fitRows, groups []pigroups.Group, log io.Writer) (*pigroups.PowerLaw, error) {
 	names := make([]string, len(groups))
 	for g, gr := range groups {
 		names[g] = gr.Name
 	}
-	law, err := pigroups.FitPowerLaw(f.y, f.x, &pigroups.FitOptions{Names: names})
+	law, err := pigroups.FitPowerLaw(f.y, f.x, &pigroups.FitOptions{Names: names, Correlated: true, Groups: groups})
 	if err != nil {
 		return nil, &dataError{fmt.Errorf("-fit: %w", err)}
 	}
@@ -67,6 +68,7 @@ func reportFit(f *fitRows, groups []pigroups.Group, log io.Writer) (*pigroups.Po
 		fmt.Fprintf(&sb, "·%s^%.4g", names[k+1], a)
 	}
 	fmt.Fprintf(log, "pisets: fit (least squares on logarithms, %d rows, %d excluded as not positive or missing): %s\n", law.N, f.excluded, sb.String())
+	fmt.Fprintf(log, "pisets: fit: rows taken as correlated: residual lag-1 autocorrelation r₁ = %.3f, effective rows n_eff = n(1 − r₁)/(1 + r₁) = %.1f of %d (n when r₁ ≤ 0)\n", law.R1, law.NEff, law.N)
 	fmt.Fprintf(log, "pisets: fit: C in [%.6g, %.6g] at %g %%", law.CInterval[0], law.CInterval[1], 100*law.Level)
 	for k, iv := range law.Intervals {
 		fmt.Fprintf(log, "; exponent of %s in [%.4g, %.4g]", names[k+1], iv[0], iv[1])
@@ -76,18 +78,34 @@ func reportFit(f *fitRows, groups []pigroups.Group, log io.Writer) (*pigroups.Po
 		fmt.Fprintf(log, " %.4g ≤ %s ≤ %.4g", r[0], names[k+1], r[1])
 	}
 	fmt.Fprintln(log)
+	fmt.Fprintf(log, "pisets: fit: %s\n", law.Runs)
+	for _, w := range law.Warnings {
+		fmt.Fprintf(log, "pisets: fit: WARNING: %s\n", w)
+	}
 	return law, nil
 }
 
-// plotFit draws the dependent group against the one other group, log–log,
-// with the fitted law over the fitted range, to a .png or .svg file.
-func plotFit(path string, f *fitRows, law *pigroups.PowerLaw, groups []pigroups.Group, data string) error {
+// plotSize is the figure's size in inches and a PNG's resolution.
+type plotSize struct{ w, h, dpi float64 }
+
+// groupLabel writes a group for an axis: its definition and, when it is
+// recognised, what it is ("Π₁ = dp/(n²·D²·rho), ψ_p/(4π²)").
+func groupLabel(g pigroups.Group) string {
+	s := g.Name + " = " + g.Format(quantity.Unicode)
+	if len(g.Matches) > 0 {
+		s += ", " + g.Label()
+	}
+	return s
+}
+
+// buildPlot draws the dependent group against the one other group,
+// log–log, the reduced rows as markers and the fitted law over the
+// fitted range as a line.
+func buildPlot(f *fitRows, law *pigroups.PowerLaw, groups []pigroups.Group, data string) (*plot.Plot, error) {
 	pl := plot.New()
 	pl.Title.Text = "Reduced " + filepath.Base(data) + " and the fitted power law"
-	pl.X.Label.Text = groups[1].Name + " = " + groups[1].Format(quantity.Unicode) + " (log scale)"
-	pl.Y.Label.Text = groups[0].Name + " = " + groups[0].Format(quantity.Unicode) + " (log scale)"
-	pl.X.Scale, pl.Y.Scale = plot.LogScale{}, plot.LogScale{}
-	pl.X.Tick.Marker, pl.Y.Tick.Marker = plot.DefaultTicks{}, plot.DefaultTicks{}
+	pl.X.Label.Text = groupLabel(groups[1]) + " (log scale)"
+	pl.Y.Label.Text = groupLabel(groups[0]) + " (log scale)"
 	pl.Legend.Top = true
 	pts := make(plotter.XYs, len(f.y))
 	for i := range f.y {
@@ -95,25 +113,42 @@ func plotFit(path string, f *fitRows, law *pigroups.PowerLaw, groups []pigroups.
 	}
 	sc, err := plotter.NewScatter(pts)
 	if err != nil {
-		return err
+		return nil, err
 	}
-	sc.GlyphStyle.Radius = vg.Points(2)
+	sc.GlyphStyle = marker(0)
 	lo, hi := law.Ranges[0][0], law.Ranges[0][1]
 	var line plotter.XYs
 	for i := 0; i <= 40; i++ {
 		x := lo * math.Pow(hi/lo, float64(i)/40)
 		pr, err := law.Predict(x)
 		if err != nil {
-			return err
+			return nil, err
 		}
 		line = append(line, plotter.XY{X: x, Y: pr.Value})
 	}
 	ln, err := plotter.NewLine(line)
 	if err != nil {
-		return err
+		return nil, err
 	}
+	ln.Color = seriesColor(1)
 	pl.Add(sc, ln)
 	pl.Legend.Add("reduced rows", sc)
 	pl.Legend.Add("fit", ln)
-	return pl.Save(6*vg.Inch, 4*vg.Inch, path)
+	xs, ys := append([]float64(nil), f.x[0]...), append([]float64(nil), f.y...)
+	for _, p := range line {
+		xs, ys = append(xs, p.X), append(ys, p.Y)
+	}
+	styleAxes(pl, xs, ys)
+	// Room above the data for the legend, so it covers no marker.
+	pl.Y.Max *= math.Pow(pl.Y.Max/pl.Y.Min, 0.3)
+	return pl, nil
+}
+
+// plotFit draws the plot of buildPlot to a .png or .svg file.
+func plotFit(path string, f *fitRows, law *pigroups.PowerLaw, groups []pigroups.Group, data string, size plotSize) error {
+	pl, err := buildPlot(f, law, groups, data)
+	if err != nil {
+		return err
+	}
+	return savePlot(pl, path, size.w, size.h, size.dpi)
 }

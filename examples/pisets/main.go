@@ -37,18 +37,32 @@
 //	-fit               fit the dependent group as a power law of the others
 //	                   (intervals, R², range of validity, on standard error)
 //	-plot FILE         with -fit and two groups: a .png or .svg of rows and fit
-//	-format csv|jsonl|parquet
-//	                   the groups as CSV (the default), JSON lines
-//	                   ({"row":1,"Π₁":0.17,"Π₂":0.021}, null when missing)
-//	                   or Parquet (with -out; implied by -out x.parquet)
+//	-plot-width, -plot-height IN, -dpi N
+//	                   the plot's size in inches and a PNG's resolution
+//	-nonfinite error|missing
+//	                   a derived value that is not finite (0/0) where every
+//	                   channel is present: an error with its line (the
+//	                   default), or a missing value counted on standard error
+//	-format csv|jsonl|json|text|parquet
+//	                   the groups as CSV (the default; text is the same), JSON
+//	                   lines ({"row":1,"Π₁":0.17,"Π₂":0.021}, null when
+//	                   missing; json is the same) or Parquet (with -out;
+//	                   implied by -out x.parquet)
+//
+// A channel binds to a variable only when its unit converts to the
+// variable's by the rules of units.ConvertUnits: rpm into rad/s or rev/s,
+// never Hz into rad/s (write the channel as (Hz)*rev, or declare the
+// variable in Hz). A variable declared in rev/s, rpm or Hz holds
+// revolutions, and its groups are labelled accordingly (K_T, not
+// K_T/(4π²)).
 //
 // On a terminal, a long file (over 4 MiB of text or 10⁵ Parquet rows)
 // shows a progress bar on standard error, cleared when the file is done.
 //
 // With no variables it runs on a built-in invented problem (the bench test
-// of a flow restrictor). It exits 0 on success, 1 with the file, line and
-// column for bad data, and 2 with a one-line message on standard error for
-// bad usage.
+// of a flow restrictor). It exits 0 on success, 1 with the file and line
+// (the row for Parquet) for bad data, and 2 with a one-line message on
+// standard error for bad usage.
 package main
 
 import (
@@ -64,6 +78,7 @@ import (
 	"unicode"
 	"unicode/utf8"
 
+	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
@@ -78,56 +93,115 @@ type usageError struct{ msg string }
 
 func (e *usageError) Error() string { return e.msg }
 
+// usageText is what -h prints before the flags.
+const usageText = `pisets finds the Buckingham Pi groups of a problem, or reduces a logged
+channel file to those groups row by row.
+
+usage: pisets [-dep symbol] [-repeat a,b,c] [-format text|json] [-sets] symbol=unit[@kind] ...
+       pisets -data file [-derive text] [-baro p | -std-atm] [-out file] [-format csv|jsonl|json|parquet]
+              [-fit [-plot fit.png]] [-dep symbol] [-repeat a,b,c] symbol=unit ...
+
+Each variable is symbol=unit, with an optional @kind ("dp=kPa@pressure difference");
+the unit gives its dimension. A rotational speed declared in rad/s is held in
+radians; one in rev/s or rpm, or a rotational frequency in Hz or 1/s (ISO 80000-3),
+is held in revolutions, and a group's label says which: with n in rad/s
+T/(ρ·n²·D⁴) is K_T/(4π²), with n in rev/s it is K_T itself.
+
+Output without -data:
+  text  the variables, the dimensional matrix and its rank, the repeating set,
+        and each group Π₁, Π₂, … with what it is (Re, 1/Re, K_T/(4π²), ∝C_D:
+        only proportional, a length standing in for a reference area)
+  json  the same as one JSON object (exponents exact, as fractions)
+
+With -data (input kinds):
+  CSV       a channel file, units in the header ("Q m3/h", "P1 psig", "n [rpm]")
+  TSV       the same, tab-separated, when the name ends in .tsv
+  Parquet   when the name ends in .parquet, each column's unit in the file's metadata
+  derived   channels defined by -derive in the formula language, as
+            'dp = P2 - P1; D = 0.25 {m}' (values in SI, angles in radians)
+Each variable is the channel of its name or a derived channel. A channel binds to
+a variable only when its unit converts to the variable's unit: rpm to rad/s or
+rev/s is read, Hz to rad/s is refused (write the channel as (Hz)*rev, or declare
+the variable in Hz).
+
+Output with -data (formats), one line or record per data row, groups in order:
+  csv      (the default) a header Π₁ [1],Π₂ [1],… then the values; an empty field
+           where a value is missing
+  jsonl    one JSON object per row, {"row":1,"Π₁":0.17,"Π₂":0.021}, null when missing
+  json     the same as jsonl
+  text     the same as csv (or Parquet with -out x.parquet)
+  parquet  an Apache Parquet file (needs -out), unit 1 on every column
+Standard error gets every reading of the header, each group's definition and
+name, the missing values of each channel, and with -fit the power law
+Π₁ = C·Π₂^a·… fitted by least squares on logarithms, with 95 % intervals that
+allow for correlated rows (effective rows n_eff = n(1 − r₁)/(1 + r₁), r₁ the
+lag-1 autocorrelation of the residuals, common practice), a runs test on the
+residuals' signs for lack of fit, and a warning when Π₁ and another
+group share a variable.
+
+Exit status: 0 done; 1 bad data (file:line, or file: row for Parquet); 2 usage.
+
+Flags:
+`
+
 func run(args []string, stdout, stderr io.Writer) int {
 	fs := flag.NewFlagSet("pisets", flag.ContinueOnError)
-	fs.SetOutput(io.Discard)
-	dep := fs.String("dep", "", "the dependent variable")
-	rep := fs.String("repeat", "", "comma-separated repeating set")
-	format := fs.String("format", "text", "text or json")
+	dep := fs.String("dep", "", "the dependent variable (its group comes first)")
+	rep := fs.String("repeat", "", "comma-separated repeating set; default: the documented rule")
+	format := fs.String("format", "text", "output: text or json; with -data csv, jsonl, json or parquet")
 	sets := fs.Bool("sets", false, "list every valid repeating set")
 	var ro reduceOptions
-	fs.StringVar(&ro.data, "data", "", "a channel file (CSV/TSV) to reduce: write the groups of every row as CSV")
+	fs.StringVar(&ro.data, "data", "", "a channel file to reduce (CSV; TSV if .tsv; Parquet if .parquet)")
 	fs.StringVar(&ro.derive, "derive", "", "formula text defining derived channels, as 'dp = P1 - P2; D = 0.25 {m}'")
 	fs.StringVar(&ro.baro, "baro", "", "the absolute ambient pressure gauge channels were read against, as 1002hPa")
 	fs.BoolVar(&ro.stdAtm, "std-atm", false, "read gauge channels against the standard atmosphere (101325 Pa), an explicit choice")
 	fs.BoolVar(&ro.fit, "fit", false, "with -data: fit the dependent group as a power law of the others, with 95 % intervals")
 	fs.StringVar(&ro.plot, "plot", "", "with -data -fit and two groups: draw the rows and the fit to a .png or .svg file")
+	nonfinite := fs.String("nonfinite", "error", "with -data: a derived value that is not finite (0/0) is an error, or with 'missing' a counted missing value")
+	ro.plotW = cli.FloatVar(fs, "plot-width", 6, 2, 40, "in", "-plot width")
+	ro.plotH = cli.FloatVar(fs, "plot-height", 4, 2, 40, "in", "-plot height")
+	ro.dpi = cli.FloatVar(fs, "dpi", 150, 36, 1200, "dots per inch", "-plot resolution of a .png")
 	outPath := fs.String("out", "", "with -data: write the groups to this file instead of standard output")
-	if err := fs.Parse(args); err != nil {
+	fs.Usage = func() {
+		fmt.Fprint(fs.Output(), usageText)
+		fs.PrintDefaults()
+	}
+	usage := func(msg string) int {
+		fmt.Fprintln(stderr, "pisets:", clean(msg))
+		return 2
+	}
+	if err := cli.Parse(fs, stdout, args); err != nil {
 		if errors.Is(err, flag.ErrHelp) {
-			fs.SetOutput(stdout)
-			fmt.Fprintln(stdout, "usage: pisets [-dep symbol] [-repeat a,b,c] [-format text|json] [-sets] symbol=unit[@kind] ...")
-			fmt.Fprintln(stdout, "       pisets -data file.csv [-derive text] [-baro p | -std-atm] [-out groups.csv] [-dep symbol] [-repeat a,b,c] symbol=unit ...")
-			fs.PrintDefaults()
 			return 0
 		}
-		fmt.Fprintln(stderr, "pisets:", clean(err.Error()))
-		return 2
+		return usage(err.Error())
 	}
 	vars := fs.Args()
 	for _, a := range vars {
 		if strings.HasPrefix(a, "-") {
-			fmt.Fprintf(stderr, "pisets: %s after the variables: flags go before the variables (pisets -format json -dep F F=N ...)\n", clean(strconv.Quote(a)))
-			return 2
+			return usage(fmt.Sprintf("%s after the variables: flags go before the variables (pisets -format json -dep F F=N ...)", cli.Quote(a)))
 		}
 	}
 	demo := false
 	if len(vars) == 0 && ro.data != "" {
-		fmt.Fprintln(stderr, "pisets: -data needs the variables of the problem (pisets -data loop.csv -dep dp dp=Pa Q=m^3/s ...)")
-		return 2
+		return usage("-data needs the variables of the problem (pisets -data loop.csv -dep dp dp=Pa Q=m^3/s ...)")
 	}
-	if ro.data == "" && (ro.derive != "" || ro.baro != "" || ro.stdAtm || *outPath != "" || ro.fit || ro.plot != "") {
-		fmt.Fprintln(stderr, "pisets: -derive, -baro, -std-atm, -out, -fit and -plot go with -data")
-		return 2
+	switch *nonfinite {
+	case "error":
+	case "missing":
+		ro.nonfiniteMissing = true
+	default:
+		return usage(fmt.Sprintf("-nonfinite %s: want error or missing", cli.Quote(*nonfinite)))
+	}
+	if ro.data == "" && (ro.derive != "" || ro.baro != "" || ro.stdAtm || *outPath != "" || ro.fit || ro.plot != "" || ro.nonfiniteMissing) {
+		return usage("-derive, -baro, -std-atm, -out, -fit, -plot and -nonfinite go with -data")
 	}
 	if ro.plot != "" {
 		if !ro.fit {
-			fmt.Fprintln(stderr, "pisets: -plot draws the fit: give -fit too")
-			return 2
+			return usage("-plot draws the fit: give -fit too")
 		}
 		if ext := strings.ToLower(filepath.Ext(ro.plot)); ext != ".png" && ext != ".svg" {
-			fmt.Fprintf(stderr, "pisets: -plot %s: want a .png or .svg file\n", clean(strconv.Quote(ro.plot)))
-			return 2
+			return usage(fmt.Sprintf("-plot %s: want a .png or .svg file", cli.Quote(ro.plot)))
 		}
 	}
 	if len(vars) == 0 {
@@ -138,8 +212,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 	}
 	out, err := build(vars, *dep, *rep, *sets)
 	if err != nil {
-		fmt.Fprintln(stderr, "pisets:", clean(err.Error()))
-		return 2
+		return usage(err.Error())
 	}
 	out.Invented = demo
 	if ro.data != "" {
@@ -153,23 +226,19 @@ func run(args []string, stdout, stderr io.Writer) int {
 		case "parquet":
 			ro.parquet = true
 		default:
-			fmt.Fprintf(stderr, "pisets: -format %q with -data: want csv, jsonl or parquet\n", clean(*format))
-			return 2
+			return usage(fmt.Sprintf("-format %s with -data: want csv, jsonl, json, text or parquet", cli.Quote(*format)))
 		}
 		if ro.parquet && *outPath == "" {
-			fmt.Fprintln(stderr, "pisets: -format parquet writes a file: give -out groups.parquet")
-			return 2
+			return usage("-format parquet writes a file: give -out groups.parquet")
 		}
 		w := stdout
 		if _, err := os.Stat(ro.data); err != nil {
-			fmt.Fprintln(stderr, "pisets: -data:", clean(err.Error()))
-			return 2
+			return usage(fmt.Sprintf("-data %s: %v", cli.Quote(ro.data), errors.Unwrap(err)))
 		}
 		if *outPath != "" {
 			f, err := os.Create(*outPath)
 			if err != nil {
-				fmt.Fprintln(stderr, "pisets:", clean(err.Error()))
-				return 2
+				return usage(fmt.Sprintf("-out %s: %v", cli.Quote(*outPath), errors.Unwrap(err)))
 			}
 			defer f.Close()
 			w = f
@@ -191,8 +260,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 	case "text":
 		writeText(stdout, out)
 	default:
-		fmt.Fprintf(stderr, "pisets: -format %q: want text or json\n", *format)
-		return 2
+		return usage(fmt.Sprintf("-format %s: want text or json (csv, jsonl and parquet go with -data)", cli.Quote(*format)))
 	}
 	return 0
 }
@@ -240,6 +308,7 @@ type Report struct {
 	Groups        []GroupOut    `json:"groups"`
 	ValidSets     [][]string    `json:"valid_repeating_sets,omitempty"`
 	table         string        // the text matrix
+	units         []units.Unit  // each variable's declared unit
 	set           *pigroups.Set // for text output
 	problem       *pigroups.Problem
 }
@@ -251,6 +320,9 @@ type VariableOut struct {
 	Dimension string   `json:"dimension"`
 	Kinds     []string `json:"kinds"`
 	Dependent bool     `json:"dependent,omitempty"`
+	// Angle is "rev" for a variable that holds a rotational speed in
+	// revolutions (declared in rev/s, rpm or Hz); empty for radians.
+	Angle string `json:"angle,omitempty"`
 }
 
 // GroupOut describes one group.
@@ -286,22 +358,31 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 	for _, spec := range specs {
 		sym, rest, ok := strings.Cut(spec, "=")
 		if !ok || sym == "" || rest == "" {
-			return nil, &usageError{fmt.Sprintf("variable %q: want symbol=unit or symbol=unit@kind", spec)}
+			return nil, &usageError{fmt.Sprintf("variable %s: want symbol=unit or symbol=unit@kind", cli.Quote(spec))}
 		}
 		unit, kind, _ := strings.Cut(rest, "@")
 		u, err := units.Parse(unit)
 		if err != nil {
-			return nil, fmt.Errorf("variable %q: %w", sym, err)
+			return nil, fmt.Errorf("variable %s: %w", cli.Quote(sym), err)
 		}
-		v := pigroups.Variable{Symbol: sym, Dim: u.Dim(), Kind: kind}
+		am, err := angleMeasure(u)
+		if err != nil {
+			return nil, &usageError{fmt.Sprintf("variable %s: %v", cli.Quote(spec), err)}
+		}
+		v := pigroups.Variable{Symbol: sym, Dim: u.Dim(), Kind: kind, Angle: am}
+		r.units = append(r.units, u)
 		if sym == dep {
 			v.Role = pigroups.Dependent
 		}
 		vars = append(vars, v)
-		r.Variables = append(r.Variables, VariableOut{Symbol: sym, Unit: u.Format(quantity.Unicode), Dimension: u.Dim().String(), Dependent: sym == dep})
+		vo := VariableOut{Symbol: sym, Unit: u.Format(quantity.Unicode), Dimension: u.Dim().String(), Dependent: sym == dep}
+		if am == pigroups.Revolutions && (u.Dim() == quantity.Frequency) {
+			vo.Angle = am.String()
+		}
+		r.Variables = append(r.Variables, vo)
 	}
 	if dep != "" && !slicesContains(r.Variables, dep) {
-		return nil, &usageError{fmt.Sprintf("-dep %q is not among the variables", dep)}
+		return nil, &usageError{fmt.Sprintf("-dep %s is not among the variables", cli.Quote(dep))}
 	}
 	p, err := pigroups.NewProblem(vars...)
 	if err != nil {
@@ -364,6 +445,41 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 		}
 	}
 	return r, nil
+}
+
+// angleMeasure says how a variable declared in u counts a plane angle: a
+// unit spelled with rev or rpm counts revolutions, one spelled with rad
+// radians, and a rotational frequency with no angle (Hz, 1/s) counts
+// cycles, that is revolutions, as ISO 80000-3 writes a rotational
+// frequency n. Degrees are refused: no named group takes them.
+func angleMeasure(u units.Unit) (pigroups.AngleMeasure, error) {
+	plane, _ := u.Angle()
+	if plane == 0 {
+		if u.Dim() == quantity.Frequency {
+			return pigroups.Revolutions, nil
+		}
+		return pigroups.Radians, nil
+	}
+	rev, rad, other := false, false, false
+	for _, tok := range strings.FieldsFunc(u.Format(quantity.ASCII), func(r rune) bool {
+		return !unicode.IsLetter(r)
+	}) {
+		switch tok {
+		case "rev", "rpm":
+			rev = true
+		case "rad", "mrad", "urad":
+			rad = true
+		case "deg", "arcmin", "arcsec":
+			other = true
+		}
+	}
+	switch {
+	case rev && !rad && !other:
+		return pigroups.Revolutions, nil
+	case rad && !rev && !other:
+		return pigroups.Radians, nil
+	}
+	return 0, fmt.Errorf("its angle is neither in radians nor in revolutions alone; declare a rotational speed in rad/s or rev/s")
 }
 
 func binomial(n, k int) float64 {

@@ -2,6 +2,7 @@ package main
 
 import (
 	"bufio"
+	"bytes"
 	"encoding/json"
 	"errors"
 	"fmt"
@@ -15,6 +16,8 @@ import (
 	"github.com/schollz/progressbar/v3"
 	"golang.org/x/term"
 
+	"similis.dev/similis/examples/internal/cli"
+	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
 	"similis.dev/similis/units/chanfile"
@@ -37,6 +40,18 @@ type reduceOptions struct {
 	parquet            bool   // Parquet instead of CSV
 	fit                bool   // fit the first group as a power law of the others
 	plot               string // a .png or .svg file for the fit
+	nonfiniteMissing   bool   // a non-finite derived value is a counted missing value, not an error
+	plotW, plotH, dpi  *float64
+}
+
+// size returns the plot's size and resolution, the defaults when the
+// flags were not defined (a test calling reduce directly).
+func (o reduceOptions) size() plotSize {
+	s := plotSize{6, 4, 150}
+	if o.plotW != nil {
+		s = plotSize{*o.plotW, *o.plotH, *o.dpi}
+	}
+	return s
 }
 
 // groupSink writes the groups of each chunk.
@@ -172,7 +187,7 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	case opt.baro != "":
 		q, err := units.ParseQuantity(opt.baro)
 		if err != nil || q.Dim() != quantity.Pressure {
-			return &usageError{fmt.Sprintf("-baro %q: want an absolute pressure such as 1002hPa", opt.baro)}
+			return &usageError{fmt.Sprintf("-baro %s: want an absolute pressure such as 1002hPa", cli.Quote(opt.baro))}
 		}
 		ro.Reference = q
 	case opt.stdAtm:
@@ -182,7 +197,8 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	var bar progress
 	var done func(rows int) int64 // rows or bytes read so far
 	const gaugeHelp = "is a gauge pressure: give -baro with the barometer reading (as -baro 1002hPa), or -std-atm to use 101325 Pa as an explicit choice"
-	if strings.HasSuffix(strings.ToLower(opt.data), ".parquet") {
+	parquet := strings.HasSuffix(strings.ToLower(opt.data), ".parquet")
+	if parquet {
 		st, err := f.Stat()
 		if err != nil {
 			return &usageError{fmt.Sprintf("-data: %v", err)}
@@ -228,29 +244,49 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 			return &usageError{fmt.Sprintf("-derive: %v", err)}
 		}
 		ev = prog.Evaluator()
+		if opt.nonfiniteMissing {
+			// The loop below marks and counts each non-finite derived
+			// value, by variable, after the evaluation.
+			ev.SetCheck(formula.Unchecked)
+		}
 		for i, name := range prog.Outputs() {
 			derived[name] = i
 		}
 	}
 	// Where each variable comes from, with its dimension checked.
 	type source struct {
-		col, out int // a channel, or a derived output (col < 0)
+		col, out int     // a channel, or a derived output (col < 0)
+		scale    float64 // 1, or 1/(2π)^k for a variable held in revolutions
 	}
 	vars := r.problem.Variables()
 	srcs := make([]source, len(vars))
 	for i, v := range vars {
+		vu := r.units[i]
+		plane, _ := vu.Angle()
+		// A channel's SI values hold angles in radians; a variable held in
+		// revolutions takes them divided by (2π)^plane.
+		scale := 1.0
+		if v.Angle == pigroups.Revolutions && plane != 0 {
+			scale = math.Pow(2*math.Pi, -float64(plane))
+		}
 		if j, ok := byName[v.Symbol]; ok {
 			if d := cols[j].Unit.Dim(); d != v.Dim {
 				return &usageError{fmt.Sprintf("variable %s is %s, but channel %q of %s is %s", v.Symbol, quantity.Describe(v.Dim), v.Symbol, opt.data, quantity.Describe(d))}
 			}
-			srcs[i] = source{col: j}
+			if _, err := units.ConvertUnits(1, cols[j].Unit, vu); err != nil {
+				return &usageError{bindError(v.Symbol, vu, cols[j], opt.data, err)}
+			}
+			srcs[i] = source{col: j, scale: scale}
 			continue
 		}
 		if k, ok := derived[v.Symbol]; ok {
 			if d := prog.Dim(k); d != v.Dim {
 				return &usageError{fmt.Sprintf("variable %s is %s, but -derive gives %s", v.Symbol, quantity.Describe(v.Dim), quantity.Describe(d))}
 			}
-			srcs[i] = source{col: -1, out: k}
+			if plane == 0 && v.Angle == pigroups.Revolutions {
+				return &usageError{fmt.Sprintf("variable %s is declared %s, which counts cycles, but -derive gives values in SI, where a rotational speed is in rad/s: declare %s in rad/s or rev/s", v.Symbol, vu.Format(quantity.Unicode), v.Symbol)}
+			}
+			srcs[i] = source{col: -1, out: k, scale: scale}
 			continue
 		}
 		return &usageError{fmt.Sprintf("variable %s is neither a channel of %s nor defined by -derive (channels: %s)", v.Symbol, opt.data, channelNames(cols))}
@@ -293,9 +329,13 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 		progIn  []quantity.Series
 		progOut [][]float64
 		varCols = make([]quantity.Series, len(vars))
+		scaled  = make([][]float64, len(vars))
 		gbuf    = make([][]float64, len(groups))
 		gser    = make([]quantity.Series, len(groups))
 		rows    int
+		// non-finite derived values counted as missing, by variable
+		nonfinite      = map[string]int{}
+		nonfiniteOrder []string
 	)
 	for {
 		var n int
@@ -318,21 +358,60 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 				progOut[k] = grow(progOut[k], n)
 			}
 			if err := ev.Series(progIn, progOut); err != nil {
+				var re *formula.RangeError
+				if errors.As(err, &re) && re.Row >= 0 {
+					return &dataError{fmt.Errorf("%s: -derive: %w; use -nonfinite=missing to count such values as missing", where(opt.data, rows+re.Row+1, parquet), err)}
+				}
 				return &dataError{fmt.Errorf("%s: rows %d to %d: -derive: %w", opt.data, rows+1, rows+n, err)}
+			}
+			// A derived value that is not finite although every channel
+			// of its row is present was produced by the formula (0/0, an
+			// overflow): an error, or with -nonfinite=missing a counted
+			// missing value. A missing channel's NaN is already counted.
+			for i, s := range srcs {
+				if s.col >= 0 {
+					continue
+				}
+				for k, x := range progOut[s.out][:n] {
+					if !math.IsNaN(x) && !math.IsInf(x, 0) || anyNaN(progIn, k) {
+						continue
+					}
+					if !opt.nonfiniteMissing {
+						return &dataError{fmt.Errorf("%s: -derive gives %s = %v from a row with every channel present (a 0/0, an overflow or a function outside its domain); use -nonfinite=missing to count such values as missing", where(opt.data, rows+k+1, parquet), vars[i].Symbol, x)}
+					}
+					progOut[s.out][k] = math.NaN()
+					if nonfinite[vars[i].Symbol] == 0 {
+						nonfiniteOrder = append(nonfiniteOrder, vars[i].Symbol)
+					}
+					nonfinite[vars[i].Symbol]++
+				}
 			}
 		}
 		for i, s := range srcs {
+			var vals []float64
 			if s.col >= 0 {
-				varCols[i] = chunk[s.col]
+				vals = chunk[s.col].Values()
 			} else {
-				varCols[i] = quantity.NewSeries(progOut[s.out], prog.Dim(s.out))
+				vals = progOut[s.out]
 			}
+			if s.scale != 1 {
+				scaled[i] = grow(scaled[i], n)
+				for k, x := range vals[:n] {
+					scaled[i][k] = x * s.scale
+				}
+				vals = scaled[i]
+			}
+			varCols[i] = quantity.NewSeries(vals[:n], vars[i].Dim)
 		}
 		for g := range gbuf {
 			gbuf[g] = grow(gbuf[g], n)
 		}
 		if err := gev.Series(varCols, gbuf); err != nil {
-			return &dataError{fmt.Errorf("%s: rows %d to %d: %w", opt.data, rows+1, rows+n, err)}
+			k, rerr := failingRow(gev, varCols, n, len(groups))
+			if rerr == nil {
+				return &dataError{fmt.Errorf("%s: rows %d to %d: %w", opt.data, rows+1, rows+n, err)}
+			}
+			return &dataError{fmt.Errorf("%s: %w", where(opt.data, rows+k+1, parquet), rerr)}
 		}
 		for g := range gbuf {
 			gser[g] = quantity.NewSeries(gbuf[g], 0)
@@ -372,13 +451,17 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 			fmt.Fprintf(log, "pisets: channel %s: %d missing %s (empty group fields in those rows)\n", c.Name, c.Missing, plural(c.Missing, "value", "values"))
 		}
 	}
+	for _, v := range nonfiniteOrder {
+		c := nonfinite[v]
+		fmt.Fprintf(log, "pisets: derived %s: %d non-finite %s counted as missing (-nonfinite=missing; empty group fields in those rows)\n", v, c, plural(c, "value", "values"))
+	}
 	if fits != nil {
 		law, err := reportFit(fits, groups, log)
 		if err != nil {
 			return err
 		}
 		if opt.plot != "" {
-			if err := plotFit(opt.plot, fits, law, groups, opt.data); err != nil {
+			if err := plotFit(opt.plot, fits, law, groups, opt.data, opt.size()); err != nil {
 				return &usageError{fmt.Sprintf("-plot: %v", err)}
 			}
 			fmt.Fprintf(log, "pisets: plot written to %s\n", opt.plot)
@@ -386,6 +469,100 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	}
 	fmt.Fprintln(log, "pisets: reduced test data only; a rating, an acceptance test or a design follows its standard and the engineer responsible")
 	return nil
+}
+
+// bindError explains why channel c cannot be read as variable sym
+// declared in vu: the same angle rule as units.ConvertUnits, with the
+// fix named.
+func bindError(sym string, vu units.Unit, c chanfile.Column, file string, err error) string {
+	cu := c.Unit.Format(quantity.Unicode)
+	vs := vu.Format(quantity.Unicode)
+	msg := fmt.Sprintf("variable %s is declared %s, but channel %q of %s is in %s: %v", sym, vs, c.Name, file, cu, err)
+	cp, _ := c.Unit.Angle()
+	vp, _ := vu.Angle()
+	if errors.Is(err, units.ErrAngle) {
+		switch {
+		case vp > cp:
+			msg += fmt.Sprintf("; if the channel counts revolutions, write its unit in the header as (%s)*rev; or declare the variable in %s (%s=%s)", cu, cu, sym, cu)
+		case vp < cp:
+			msg += fmt.Sprintf("; declare the variable with the channel's angle (%s=%s, or rad/s)", sym, cu)
+		}
+	}
+	return msg
+}
+
+// anyNaN reports whether any input column is missing (NaN) at row k.
+func anyNaN(in []quantity.Series, k int) bool {
+	for _, s := range in {
+		if math.IsNaN(s.Values()[k]) {
+			return true
+		}
+	}
+	return false
+}
+
+// failingRow finds the first row of the chunk whose groups cannot be
+// evaluated, and the error without a row index of its own.
+func failingRow(gev *pigroups.Evaluator, cols []quantity.Series, n, groups int) (int, error) {
+	q := make([]quantity.Quantity, len(cols))
+	dst := make([]float64, groups)
+rows:
+	for k := range n {
+		for i, c := range cols {
+			if q[i] = c.At(k); math.IsNaN(q[i].Value()) {
+				continue rows // a missing value: an empty group, not an error
+			}
+		}
+		if _, err := gev.Row(q, dst); err != nil {
+			return k, err
+		}
+	}
+	return 0, nil
+}
+
+// where names a data row for a message: the file's line for a text file
+// (comments, blank lines and the header counted), the row for Parquet.
+func where(file string, row int, parquet bool) string {
+	if parquet {
+		return fmt.Sprintf("%s: row %d", file, row)
+	}
+	if line := lineOfRow(file, row); line > 0 {
+		return fmt.Sprintf("%s:%d", file, line)
+	}
+	return fmt.Sprintf("%s: data row %d", file, row)
+}
+
+// lineOfRow returns the line of a text channel file that holds data row
+// row (1-based), reading the file again as the channel reader does:
+// blank lines and lines starting with '#' skipped, the first other line
+// the header; 0 if the file cannot be read or is shorter.
+func lineOfRow(file string, row int) int {
+	f, err := os.Open(file)
+	if err != nil {
+		return 0
+	}
+	defer f.Close()
+	br := bufio.NewReaderSize(f, chanfile.MaxLineLen)
+	if b, err := br.Peek(3); err == nil && string(b) == "\xef\xbb\xbf" {
+		br.Discard(3)
+	}
+	line, data := 0, -1 // data: rows seen, −1 before the header
+	for {
+		b, err := br.ReadSlice('\n')
+		if len(b) == 0 && err != nil {
+			return 0
+		}
+		line++
+		b = bytes.TrimSuffix(bytes.TrimSuffix(b, []byte{'\n'}), []byte{'\r'})
+		if len(b) > 0 && b[0] != '#' {
+			if data++; data == row {
+				return line
+			}
+		}
+		if err != nil && err != bufio.ErrBufferFull {
+			return 0
+		}
+	}
 }
 
 func plural(n int, one, many string) string {

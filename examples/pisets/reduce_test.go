@@ -8,6 +8,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -167,7 +168,7 @@ func TestReduceJSONLines(t *testing.T) {
 			}
 		}
 	}
-	if code := run(append([]string{"-format", "xml"}, pumpArgs...), &jsonOut, &errb); code != 2 || !strings.Contains(errb.String(), "want csv, jsonl or parquet") {
+	if code := run(append([]string{"-format", "xml"}, pumpArgs...), &jsonOut, &errb); code != 2 || !strings.Contains(errb.String(), "want csv, jsonl, json, text or parquet") {
 		t.Errorf("-format xml: exit %d, %s", code, errb.String())
 	}
 }
@@ -393,5 +394,73 @@ func TestProgress(t *testing.T) {
 	p.finish()
 	if !strings.Contains(buf.String(), "pisets: reducing") || !strings.Contains(buf.String(), "50%") {
 		t.Errorf("bar drawn as %q", buf.String())
+	}
+}
+
+// TestReduceAngleOfChannel: binding a channel to a variable applies the
+// angle rule of units.ConvertUnits. A speed logged in Hz is refused for a
+// variable declared rad/s, with the fixes named; the same speed logged
+// as (Hz)*rev is read; and a variable declared rev/s takes the rpm
+// channel's value in revolutions, so its groups are ψ_p and φ themselves.
+// By hand for the first pump-loop row: n = 1450 rpm = 24.1667 rev/s,
+// ψ_p = Δp/(ρ·n²·D²) = 36·6894.757/(998.2·24.1667²·0.25²) = 6.8115, and
+// φ = Q/(n·D³) = (180/3600)/(24.1667·0.25³) = 0.13241
+// (1 psi = 6894.757 Pa, NIST SP 811).
+func TestReduceAngleOfChannel(t *testing.T) {
+	dir := t.TempDir()
+	hz := filepath.Join(dir, "hz.csv")
+	if err := os.WriteFile(hz, []byte("Q [m3/s],n [Hz],D [m]\n0.05,24,0.25\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	revHz := filepath.Join(dir, "revhz.csv")
+	if err := os.WriteFile(revHz, []byte("Q [m3/s],n [(Hz)*rev],D [m]\n0.05,24,0.25\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	var out, errb bytes.Buffer
+	code := run([]string{"-data", hz, "Q=m^3/s", "n=rad/s", "D=m"}, &out, &errb)
+	if code != 2 || !strings.Contains(errb.String(), "(Hz)*rev") || !strings.Contains(errb.String(), "n=Hz") {
+		t.Errorf("Hz channel into a rad/s variable: exit %d, %q; want 2 naming (Hz)*rev and n=Hz", code, errb.String())
+	}
+	for _, c := range []struct {
+		file, unit string
+		want       float64 // Q/(n·D³) with n in the variable's measure
+	}{
+		{revHz, "rad/s", 0.05 / (24 * 2 * math.Pi * 0.25 * 0.25 * 0.25)},
+		{hz, "Hz", 0.05 / (24 * 0.25 * 0.25 * 0.25)},
+	} {
+		out.Reset()
+		errb.Reset()
+		if code := run([]string{"-data", c.file, "Q=m^3/s", "n=" + c.unit, "D=m"}, &out, &errb); code != 0 {
+			t.Fatalf("%s as %s: exit %d: %s", c.file, c.unit, code, errb.String())
+		}
+		lines := strings.Split(strings.TrimSpace(out.String()), "\n")
+		if got, _ := strconv.ParseFloat(lines[1], 64); math.Abs(got/c.want-1) > 1e-12 {
+			t.Errorf("%s as %s: Q/(n·D³) = %v, want %v", c.file, c.unit, got, c.want)
+		}
+	}
+	args := slices.Clone(pumpArgs)
+	args[slices.Index(args, "n=rad/s")] = "n=rev/s"
+	out.Reset()
+	errb.Reset()
+	if code := run(args, &out, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	for _, want := range []string{"(ψ_p)", "(φ)"} {
+		if !strings.Contains(errb.String(), want) {
+			t.Errorf("n in rev/s: summary lacks %q:\n%s", want, errb.String())
+		}
+	}
+	if strings.Contains(errb.String(), "4π²") || strings.Contains(errb.String(), "2π)") {
+		t.Errorf("n in rev/s: a 2π factor in the labels:\n%s", errb.String())
+	}
+	f := strings.Split(strings.Split(out.String(), "\n")[1], ",")
+	n := 1450.0 / 60
+	psi, _ := strconv.ParseFloat(f[0], 64)
+	phi, _ := strconv.ParseFloat(f[1], 64)
+	if want := 36 * 6894.757293168361 / (998.2 * n * n * 0.0625); math.Abs(psi/want-1) > 1e-9 {
+		t.Errorf("ψ_p = %v, want %v", psi, want)
+	}
+	if want := 0.05 / (n * 0.015625); math.Abs(phi/want-1) > 1e-12 {
+		t.Errorf("φ = %v, want %v", phi, want)
 	}
 }

@@ -7,7 +7,7 @@
 //
 // Usage:
 //
-//	go run ./examples/restrictor [-out DIR] [-repeat rho,V,d]
+//	go run ./examples/restrictor [-out DIR] [-repeat rho,V,d] [-width IN] [-height IN] [-dpi N]
 package main
 
 import (
@@ -18,12 +18,14 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"slices"
 	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 
+	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/pigroups"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/uncertain"
@@ -35,10 +37,48 @@ func main() {
 		if errors.Is(err, flag.ErrHelp) {
 			return // -h: the usage is printed
 		}
-		fmt.Fprintln(os.Stderr, "restrictor:", err)
-		os.Exit(2)
+		fmt.Fprintln(os.Stderr, "restrictor:", cli.Sanitize(err.Error()))
+		os.Exit(exitCode(err))
 	}
 }
+
+// usageError is a command-line mistake (exit status 2).
+type usageError struct{ msg string }
+
+func (e *usageError) Error() string { return e.msg }
+
+// exitCode is 2 for a usage mistake, 1 for anything else.
+func exitCode(err error) int {
+	var ce *cli.Error
+	var ue *usageError
+	if errors.As(err, &ce) || errors.As(err, &ue) {
+		return 2
+	}
+	return 1
+}
+
+const usageText = `restrictor reduces an invented bench test of a flow restrictor (a 6 mm bore,
+12, 24 and 48 mm long, in a glycol coolant): it prints the dimensional matrix,
+the Pi groups of the chosen repeating set, the fifteen rows reduced to
+Eu = Δp/(ρ·V²) (Euler number, V the mean velocity in the bore), Re = ρ·V·d/μ
+(Reynolds number on the bore) and L/d, and the power law Eu = C·Re^a·(L/d)^b
+fitted by least squares on logarithms, with:
+  - 95 % intervals of C and the exponents, the rows taken as a correlated
+    sequence (effective rows n_eff = n(1 − r₁)/(1 + r₁) from the residuals'
+    lag-1 autocorrelation r₁, common practice);
+  - a runs test on the residuals' signs (lack of fit) and a warning that Eu
+    and Re share ρ and V (spurious correlation inflates R²);
+  - a prediction at a mid-range point, its apparent Darcy friction factor
+    f_D = 2·Eu/(L/d) (Darcy–Weisbach; the Fanning factor is f_D/4), and an
+    extrapolated point marked as such;
+  - the uncertainty budget of one row (GUM), and
+  - a log–log plot of Eu against Re, one marker shape per L/d with its fitted
+    line, written as restrictor-fit.png and restrictor-fit.svg in -out.
+The repeating set must give Eu, Re and L/d (rho,V,d does); another set is
+refused with the sets that do. Exit status: 0 done, 1 failure, 2 usage.
+
+Flags:
+`
 
 // reading is one invented bench row, in the units of the rig's sheet.
 type reading struct {
@@ -67,9 +107,10 @@ const (
 type Result struct {
 	Set      *pigroups.Set
 	Fit      *pigroups.PowerLaw
-	Groups   [][]float64 // per row: Eu, Re, L/d in the set's orientation
+	Groups   [][]float64 // per row: Eu, Re, L/d, whatever the order of the set
 	PNG, SVG string
 	Budget   RowBudget
+	DarcyMid float64 // the apparent Darcy friction factor at the mid-range point
 }
 
 // RowBudget is the uncertainty of one bench row, for the test.
@@ -85,7 +126,7 @@ type RowBudget struct {
 // P1 = 226.6 kPa and P2 = 200.0 kPa, both calibrated against the same
 // dead-weight tester, whose error therefore enters both alike and nearly
 // cancels in Δp. Every instrument figure is invented.
-func rowBudget(w io.Writer, set *pigroups.Set, fit *pigroups.PowerLaw) (RowBudget, error) {
+func rowBudget(w io.Writer, set *pigroups.Set, fit *pigroups.PowerLaw, idx [3]int) (RowBudget, error) {
 	src := uncertain.NewSet()
 	add := src.MustAdd
 	pa := q.New(1, q.Pressure)
@@ -123,7 +164,7 @@ func rowBudget(w io.Writer, set *pigroups.Set, fit *pigroups.PowerLaw) (RowBudge
 	if _, err := set.Evaluator().RowMeasured([]uncertain.Measured{rb.DP, rho, v, d, mu, l}, g); err != nil {
 		return RowBudget{}, err
 	}
-	rb.Eu, rb.Re, rb.LD = g[0], g[1], g[2]
+	rb.Eu, rb.Re, rb.LD = g[idx[0]], g[idx[1]], g[idx[2]]
 	law, err := fit.Measured(src, "restrictor fit")
 	if err != nil {
 		return RowBudget{}, err
@@ -160,13 +201,74 @@ func note(p pigroups.Prediction) string {
 
 func run(w io.Writer, args []string) error { _, err := evaluate(w, args); return err }
 
+// Exponent vectors (dp, rho, V, d, mu, L) of the three groups the report
+// names: Eu = Δp/(ρV²), Re = ρVd/μ, L/d.
+var (
+	euExps = []int64{1, -1, -2, 0, 0, 0}
+	reExps = []int64{0, 1, 1, 1, -1, 0}
+	ldExps = []int64{0, 0, 0, -1, 0, 1}
+)
+
+// named finds the groups Eu, Re and L/d of set by their exponents, and
+// their indices in the set; ok is false when the set lacks one.
+func named(set *pigroups.Set) (eu, re, ld int, ok bool) {
+	eu, re, ld = -1, -1, -1
+	for k, g := range set.Groups() {
+		e := g.Exponents()
+		is := func(want []int64) bool {
+			for i, x := range e {
+				if x != q.RatInt(want[i]) {
+					return false
+				}
+			}
+			return true
+		}
+		switch {
+		case is(euExps):
+			eu = k
+		case is(reExps):
+			re = k
+		case is(ldExps):
+			ld = k
+		}
+	}
+	return eu, re, ld, eu >= 0 && re >= 0 && ld >= 0
+}
+
+// labelledSets lists the repeating sets whose groups the report can
+// label.
+func labelledSets(p *pigroups.Problem) []string {
+	var out []string
+	p.EachRepeating(func(set []string) bool {
+		if s, err := p.PiSet(set...); err == nil {
+			if _, _, _, ok := named(s.WithConventional()); ok {
+				out = append(out, strings.Join(set, ","))
+			}
+		}
+		return true
+	})
+	return out
+}
+
 func evaluate(w io.Writer, args []string) (*Result, error) {
 	fs := flag.NewFlagSet("restrictor", flag.ContinueOnError)
-	fs.SetOutput(w)
 	out := fs.String("out", os.TempDir(), "directory for restrictor-fit.png and restrictor-fit.svg")
-	rep := fs.String("repeat", "rho,V,d", "repeating set")
-	if err := fs.Parse(args); err != nil {
+	rep := fs.String("repeat", "rho,V,d", "repeating set; it must give Eu, Re and L/d")
+	width := cli.FloatVar(fs, "width", 6, 2, 40, "in", "plot width")
+	height := cli.FloatVar(fs, "height", 4, 2, 40, "in", "plot height")
+	dpi := cli.FloatVar(fs, "dpi", 150, 36, 1200, "dots per inch", "PNG resolution")
+	fs.Usage = func() {
+		fmt.Fprint(fs.Output(), usageText)
+		fs.PrintDefaults()
+	}
+	if err := cli.Parse(fs, w, args); err != nil {
 		return nil, err
+	}
+	if fs.NArg() > 0 {
+		return nil, &usageError{fmt.Sprintf("unexpected argument %s: restrictor takes flags only", cli.Quote(fs.Arg(0)))}
+	}
+	if st, err := os.Stat(*out); err != nil || !st.IsDir() {
+		return nil, &usageError{fmt.Sprintf("-out %s: not a directory", cli.Quote(*out))}
 	}
 	p, err := pigroups.NewProblem(
 		pigroups.Dep("dp", q.Pressure).WithKind("pressure difference"),
@@ -178,9 +280,18 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	}
 	set, err := p.PiSet(strings.Split(*rep, ",")...)
 	if err != nil {
-		return nil, err
+		return nil, &usageError{fmt.Sprintf("-repeat %s: %s; sets the report can label: %s", cli.Quote(*rep), cli.Sanitize(err.Error()), strings.Join(labelledSets(p), "; "))}
 	}
 	set = set.WithConventional()
+	iEu, iRe, iLD, ok := named(set)
+	if !ok {
+		var gs []string
+		for _, g := range set.Groups() {
+			gs = append(gs, g.Format(q.Unicode))
+		}
+		return nil, &usageError{fmt.Sprintf("-repeat %s gives %s: the report labels Eu = Δp/(ρ·V²), Re = ρ·V·d/μ and L/d, which this set does not give; sets that do: %s",
+			cli.Quote(*rep), strings.Join(gs, ", "), strings.Join(labelledSets(p), "; "))}
+	}
 	fmt.Fprintln(w, "Bench test of a flow restrictor in a coolant loop (invented data)")
 	fmt.Fprint(w, p.MatrixTable())
 	fmt.Fprintf(w, "repeating set: %s\n", strings.Join(set.Repeating(), ", "))
@@ -193,7 +304,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	ev := set.Evaluator()
 	res := &Result{Set: set}
 	var y []float64
-	xs := make([][]float64, set.Len()-1)
+	xs := make([][]float64, 2)
 	row := make([]float64, set.Len())
 	for i, r := range readings {
 		flow, err := units.ParseQuantity(r.flow)
@@ -214,74 +325,65 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		if err != nil {
 			return nil, fmt.Errorf("row %d: %w", i, err)
 		}
-		res.Groups = append(res.Groups, append([]float64(nil), g...))
-		y = append(y, g[0])
-		for k := range xs {
-			xs[k] = append(xs[k], g[k+1])
-		}
+		res.Groups = append(res.Groups, []float64{g[iEu], g[iRe], g[iLD]})
+		y = append(y, g[iEu])
+		xs[0] = append(xs[0], g[iRe])
+		xs[1] = append(xs[1], g[iLD])
 	}
-	names := make([]string, len(set.Groups()))
-	for k, g := range set.Groups() {
-		names[k] = label(g)
-	}
-	fit, err := pigroups.FitPowerLaw(y, xs, &pigroups.FitOptions{Names: names})
+	gs := set.Groups()
+	ordered := []pigroups.Group{gs[iEu], gs[iRe], gs[iLD]}
+	names := []string{"Eu", "Re", "L/d"}
+	fit, err := pigroups.FitPowerLaw(y, xs, &pigroups.FitOptions{Names: names, Correlated: true, Groups: ordered})
 	if err != nil {
 		return nil, err
 	}
 	res.Fit = fit
-	gs := set.Groups()
-	fmt.Fprintf(w, "\nfit over %d rows: %s = %.4g", fit.N, label(gs[0]), fit.C)
+	fmt.Fprintf(w, "\nfit over %d rows: Eu = %.4g · Re^%.4f · (L/d)^%.4f\n", fit.N, fit.C, fit.Exponents[0], fit.Exponents[1])
+	fmt.Fprintf(w, "  rows taken as a correlated sequence: residual lag-1 autocorrelation r₁ = %.3f, n_eff = n(1 − r₁)/(1 + r₁) = %.1f of %d (n when r₁ ≤ 0)\n", fit.R1, fit.NEff, fit.N)
+	fmt.Fprintf(w, "  C in [%.4g, %.4g] (95 %%)\n", fit.CInterval[0], fit.CInterval[1])
 	for k, a := range fit.Exponents {
-		fmt.Fprintf(w, " · (%s)^%.4f", label(gs[k+1]), a)
-	}
-	fmt.Fprintf(w, "\n  C in [%.4g, %.4g] (95 %%)\n", fit.CInterval[0], fit.CInterval[1])
-	for k, a := range fit.Exponents {
-		fmt.Fprintf(w, "  exponent of %s: %.4f ± %.4f, 95 %% interval [%.4f, %.4f]\n", label(gs[k+1]), a, fit.StdErr[k+1], fit.Intervals[k][0], fit.Intervals[k][1])
+		fmt.Fprintf(w, "  exponent of %s: %.4f ± %.4f, 95 %% interval [%.4f, %.4f]\n", names[k+1], a, fit.StdErr[k+1], fit.Intervals[k][0], fit.Intervals[k][1])
 	}
 	fmt.Fprintf(w, "  R² = %.4f, residual RMS in ln = %.4f\n", fit.R2, fit.RMS)
+	fmt.Fprintf(w, "  %s\n", fit.Runs)
+	for _, m := range fit.Warnings {
+		fmt.Fprintf(w, "  WARNING: %s\n", m)
+	}
 	mid := []float64{math.Round(math.Sqrt(fit.Ranges[0][0] * fit.Ranges[0][1])), 4}
-	if len(fit.Exponents) == len(mid) {
-		pr, _ := fit.Predict(mid...)
-		fmt.Fprintf(w, "  at Re = %.4g, L/d = 4: %s = %.4f, mean in [%.4f, %.4f], one new reading in [%.4f, %.4f]\n",
-			mid[0], gs[0].Label(), pr.Value, pr.Mean[0], pr.Mean[1], pr.Individual[0], pr.Individual[1])
-		if pr.Extrapolated {
-			fmt.Fprintln(w, "  ", pr.Note())
-		}
-		out := []float64{3 * fit.Ranges[0][1], 4}
-		if pr, err := fit.Predict(out...); err == nil {
-			fmt.Fprintf(w, "  at Re = %.4g, L/d = 4: %s = %.4f — %s\n", out[0], gs[0].Label(), pr.Value, pr.Note())
-		}
-	}
-	if res.Budget, err = rowBudget(w, set, fit); err != nil {
+	pr, err := fit.Predict(mid...)
+	if err != nil {
 		return nil, err
 	}
-	if res.PNG, res.SVG, err = plotFit(*out, res); err != nil {
+	fmt.Fprintf(w, "  at Re = %.4g, L/d = 4: Eu = %.4f, mean in [%.4f, %.4f], one new reading in [%.4f, %.4f]\n",
+		mid[0], pr.Value, pr.Mean[0], pr.Mean[1], pr.Individual[0], pr.Individual[1])
+	res.DarcyMid = 2 * pr.Value / mid[1]
+	fmt.Fprintf(w, "  apparent Darcy friction factor there f_D = 2·Eu/(L/d) = %.4f (Darcy–Weisbach Δp = f_D·(L/d)·ρV²/2, entry and exit losses included; the Fanning factor is f_D/4 = %.4f)\n", res.DarcyMid, res.DarcyMid/4)
+	if pr.Extrapolated {
+		fmt.Fprintln(w, "  ", pr.Note())
+	}
+	far := []float64{3 * fit.Ranges[0][1], 4}
+	if pr, err := fit.Predict(far...); err == nil {
+		fmt.Fprintf(w, "  at Re = %.4g, L/d = 4: Eu = %.4f — %s\n", far[0], pr.Value, pr.Note())
+	}
+	if res.Budget, err = rowBudget(w, set, fit, [3]int{iEu, iRe, iLD}); err != nil {
 		return nil, err
 	}
-	fmt.Fprintf(w, "\nplots: %s, %s\n", res.PNG, res.SVG)
+	if res.PNG, res.SVG, err = plotFit(*out, res, *width, *height, *dpi); err != nil {
+		return nil, err
+	}
+	fmt.Fprintf(w, "\nplots (Eu against Re, log–log, one marker per L/d with its fitted line): %s, %s\n", res.PNG, res.SVG)
 	fmt.Fprintln(w, "\nNote: a correlation is valid only over the range of the data it was fitted to.")
 	return res, nil
 }
 
-// label names a group by its conventional symbol, or writes it out.
-func label(g pigroups.Group) string {
-	if len(g.Matches) > 0 {
-		return g.Label()
-	}
-	return g.Format(q.Unicode)
-}
-
-// plotFit draws measured Eu against Re for each L/d with the fitted
-// curves, log–log.
-func plotFit(dir string, r *Result) (string, string, error) {
+// buildPlot draws measured Eu against Re for each L/d with the fitted
+// curves, log–log: one marker shape and colour per L/d, its fitted line
+// in the same colour.
+func buildPlot(r *Result) (*plot.Plot, []*plotter.Scatter, error) {
 	pl := plot.New()
 	pl.Title.Text = "Flow restrictor (invented data): measured and fitted"
-	gs := r.Set.Groups()
-	pl.X.Label.Text = label(gs[1]) + " (log scale)"
-	pl.Y.Label.Text = label(gs[0]) + " (log scale)"
-	pl.X.Scale, pl.Y.Scale = plot.LogScale{}, plot.LogScale{}
-	pl.X.Tick.Marker = plot.LogTicks{Prec: -1}
-	pl.Y.Tick.Marker = plot.DefaultTicks{}
+	pl.X.Label.Text = "Re = ρ·V·d/μ (log scale)"
+	pl.Y.Label.Text = "Eu = Δp/(ρ·V²) (log scale)"
 	pl.Legend.Top = true
 	byLD := map[float64]plotter.XYs{}
 	var lds []float64
@@ -292,39 +394,68 @@ func plotFit(dir string, r *Result) (string, string, error) {
 		}
 		byLD[ld] = append(byLD[ld], plotter.XY{X: g[1], Y: g[0]})
 	}
+	var xs, ys []float64
+	var scs []*plotter.Scatter
 	for k, ld := range lds {
 		pts := byLD[ld]
 		sc, err := plotter.NewScatter(pts)
 		if err != nil {
-			return "", "", err
+			return nil, nil, err
 		}
-		sc.GlyphStyle.Color = plotter.DefaultLineStyle.Color
-		sc.GlyphStyle.Shape = plotter.DefaultGlyphStyle.Shape
-		sc.GlyphStyle.Radius = vg.Points(3)
-		lo, hi := pts[0].X, pts[len(pts)-1].X
+		sc.GlyphStyle = marker(k)
+		scs = append(scs, sc)
+		lo := slices.MinFunc(pts, func(a, b plotter.XY) int { return cmpF(a.X, b.X) }).X
+		hi := slices.MaxFunc(pts, func(a, b plotter.XY) int { return cmpF(a.X, b.X) }).X
 		var line plotter.XYs
 		for i := 0; i <= 20; i++ {
 			re := lo * math.Pow(hi/lo, float64(i)/20)
 			pr, err := r.Fit.Predict(re, ld)
 			if err != nil {
-				return "", "", err
+				return nil, nil, err
 			}
 			line = append(line, plotter.XY{X: re, Y: pr.Value})
 		}
 		ln, err := plotter.NewLine(line)
 		if err != nil {
-			return "", "", err
+			return nil, nil, err
 		}
+		ln.Color = sc.GlyphStyle.Color
 		ln.Dashes = [][]vg.Length{nil, {vg.Points(4), vg.Points(2)}, {vg.Points(1), vg.Points(2)}}[k%3]
 		pl.Add(sc, ln)
 		pl.Legend.Add(fmt.Sprintf("L/d = %g", ld), sc, ln)
+		for _, p := range append(pts, line...) {
+			xs, ys = append(xs, p.X), append(ys, p.Y)
+		}
+	}
+	styleAxes(pl, xs, ys)
+	// Room above the data for the legend, so it covers no marker.
+	pl.Y.Max *= math.Pow(pl.Y.Max/pl.Y.Min, 0.3)
+	return pl, scs, nil
+}
+
+func cmpF(a, b float64) int {
+	switch {
+	case a < b:
+		return -1
+	case a > b:
+		return 1
+	}
+	return 0
+}
+
+// plotFit writes the plot as restrictor-fit.png (at dpi) and
+// restrictor-fit.svg in dir, w × h inches.
+func plotFit(dir string, r *Result, w, h, dpi float64) (string, string, error) {
+	pl, _, err := buildPlot(r)
+	if err != nil {
+		return "", "", err
 	}
 	png := filepath.Join(dir, "restrictor-fit.png")
 	svg := filepath.Join(dir, "restrictor-fit.svg")
-	if err := pl.Save(6*vg.Inch, 4*vg.Inch, png); err != nil {
+	if err := savePlot(pl, png, w, h, dpi); err != nil {
 		return "", "", err
 	}
-	if err := pl.Save(6*vg.Inch, 4*vg.Inch, svg); err != nil {
+	if err := savePlot(pl, svg, w, h, dpi); err != nil {
 		return "", "", err
 	}
 	return png, svg, nil

@@ -59,7 +59,7 @@ func TestByHand(t *testing.T) {
 func TestHelp(t *testing.T) {
 	var out bytes.Buffer
 	err := run(&out, []string{"-h"})
-	if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), "Usage") {
+	if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), "restrictor reduces an invented bench test") {
 		t.Errorf("-h: %v, %q", err, out.String())
 	}
 }
