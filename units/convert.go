@@ -251,8 +251,11 @@ func (e *ValueError) Error() string {
 func (e *ValueError) Unwrap() error { return e.Err }
 
 // Is reports whether target is quantity.ErrParse, the class of a
-// *ValueError.
-func (e *ValueError) Is(target error) bool { return target == quantity.ErrParse }
+// *ValueError whose number or layout is wrong. When the unit is what is
+// wrong (Err is set), the class is the unit's parse error's, matched
+// through Unwrap: ErrUnknown for an unknown symbol, ErrParse otherwise;
+// so every ValueError matches exactly one class.
+func (e *ValueError) Is(target error) bool { return e.Err == nil && target == quantity.ErrParse }
 
 // ParseValue reads a number and a unit expression, with or without a
 // space between them: "12.5 kn", "101.325 kPa", "20 °C", "3.2e-3 Pa·s",
@@ -359,6 +362,14 @@ func (f *Flag) Set(s string) error {
 	f.Value = v
 	return nil
 }
+
+// UnmarshalText parses text and checks it as Set does, so that a Flag
+// filled from JSON, a configuration file or any other text is checked
+// exactly as one set on the command line: {"flow": "1.2 m/s"} into a
+// volume-flow Flag is refused, and so is "20 Δ°C" where a temperature
+// level is asked. (Without it, the UnmarshalText of the embedded Value
+// would fill the Flag unchecked.)
+func (f *Flag) UnmarshalText(b []byte) error { return f.Set(string(b)) }
 
 // Dim returns the dimension the flag requires.
 func (f *Flag) Dim() quantity.Dim { return f.dim }

@@ -225,12 +225,25 @@ func (u Unit) Div(o Unit) (Unit, error) {
 	return newUnit("divide units", Unit{dim: d, factor: u.factor / o.factor, angle: u.angle - o.angle, solid: u.solid - o.solid}, t, u, o)
 }
 
-// Pow returns u raised to num/den. Angles must keep whole exponents.
+// maxPowArg bounds the exponent Pow takes, so that its arithmetic cannot
+// overflow; any larger exponent would take every symbol outside
+// ±MaxExpAbs anyway.
+const maxPowArg = 1 << 24
+
+// Pow returns u raised to num/den. Angles must keep whole exponents. The
+// result is one Parse reads back from its String: a power that takes a
+// symbol's exponent outside what Parse accepts (±MaxExpAbs, denominator at
+// most MaxExpDen) is refused with a *RangeError, as Parse refuses
+// "%^62".
 func (u Unit) Pow(num, den int) (Unit, error) {
 	u = u.norm()
 	if den <= 0 {
 		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent %d/%d has a denominator that is not positive", num, den)}
 	}
+	if num > maxPowArg || num < -maxPowArg || den > maxPowArg {
+		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent %d/%d is out of range (a unit's exponents lie within ±%d)", num, den, MaxExpAbs)}
+	}
+	num, den = reduce(num, den)
 	d, err := u.dim.Pow(num, den)
 	if err != nil {
 		return Unit{}, err
@@ -242,6 +255,9 @@ func (u Unit) Pow(num, den int) (Unit, error) {
 	var bt [16]term
 	t := u.terms().powTo(bt[:0], num, den)
 	for _, x := range t {
+		if !x.number && (x.num > MaxExpAbs*x.den || x.num < -MaxExpAbs*x.den || x.den > MaxExpDen) {
+			return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s, outside ±%d with denominator at most %d", x.sym, ratText(x.num, x.den), MaxExpAbs, MaxExpDen)}
+		}
 		if !x.number && 6%x.den != 0 {
 			return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s; a unit's exponents must be whole sixths, as its dimension's are", x.sym, ratText(x.num, x.den))}
 		}
