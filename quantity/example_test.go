@@ -57,7 +57,7 @@ func ExampleSeries() {
 	fmt.Println(q.Dim().SIUnit(), q.Max())
 	// Output:
 	// [499.0 1994.0 4482.0]
-	// kg·m⁻¹·s⁻² 4482 kg·m⁻¹·s⁻²
+	// kg·m⁻¹·s⁻² 4482 Pa
 }
 
 func ExampleQuantity_Format() {
