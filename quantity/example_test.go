@@ -33,7 +33,7 @@ func Example() {
 	// Output:
 	// Re = 9.966e+04 (1)
 	// μ: want dynamic viscosity [kg·m⁻¹·s⁻¹], got kinematic viscosity, thermal diffusivity, diffusion coefficient [m²·s⁻¹]
-	// true cannot add pressure, stress [kg·m⁻¹·s⁻²] and velocity [m·s⁻¹]
+	// true cannot add pressure, stress [Pa] and velocity [m·s⁻¹]
 }
 
 func ExampleDim() {

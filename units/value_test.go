@@ -118,7 +118,7 @@ func TestConversionErrors(t *testing.T) {
 		err      error
 		text     string
 	}{
-		{"psi", "m/s", units.ErrIncompatible, "cannot convert psi (pressure, stress [kg·m⁻¹·s⁻²]) to m/s (velocity [m·s⁻¹])"},
+		{"psi", "m/s", units.ErrIncompatible, "cannot convert psi (pressure, stress [Pa]) to m/s (velocity [m·s⁻¹])"},
 		{"rpm", "Hz", units.ErrAngle, "write the target with its angle (rev/s or rad/s"},
 		{"Hz", "rpm", units.ErrAngle, "write the source with its angle"},
 		{"rad", "1", units.ErrAngle, "plane angle"},
