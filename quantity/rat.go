@@ -315,8 +315,12 @@ func (d Dim) Exponent(b Base) Rat {
 // entries are coprime integers, writes the result to dst (which must have
 // v's length and may be v itself) and returns the factor used: {1/2,
 // −1/3, 0} becomes {3, −2, 0} with factor 6. It reports an error wrapping
-// ErrRange if the result does not fit in int64 fractions.
+// ErrRange if the result does not fit in int64 fractions, and a
+// *LengthError (ErrInvalid) if dst is shorter than v.
 func Coprime(dst, v []Rat) (Rat, error) {
+	if len(dst) < len(v) {
+		return Rat{}, &LengthError{Op: "scale to integers into", Left: len(dst), Right: len(v)}
+	}
 	l := int64(1)
 	for _, x := range v {
 		d := x.Den()

@@ -158,3 +158,16 @@ func TestRatIntMinInt64(t *testing.T) {
 		t.Errorf("ParseRat(MinInt64): %v", err)
 	}
 }
+
+// TestCoprimeShortDestination: a destination shorter than the vector is
+// an ErrInvalid error, not a panic.
+func TestCoprimeShortDestination(t *testing.T) {
+	v := []q.Rat{q.MustRat(1, 2), q.MustRat(-1, 3)}
+	if _, err := q.Coprime(make([]q.Rat, 1), v); !errors.Is(err, q.ErrInvalid) {
+		t.Errorf("Coprime into a short dst: %v", err)
+	}
+	dst := make([]q.Rat, 2)
+	if f, err := q.Coprime(dst, v); err != nil || f != q.RatInt(6) || dst[0] != q.RatInt(3) || dst[1] != q.RatInt(-2) {
+		t.Errorf("Coprime(1/2, -1/3) = %v, %v, %v", dst, f, err)
+	}
+}

@@ -248,8 +248,10 @@ const (
 	// and Physics).
 	densestLiquid = 13546.0
 	// lowestPracticalNu: practical test liquids reach down to a few
-	// ×10⁻⁷ m²/s (water at 80 °C has about 3.6e-7 m²/s, IAPWS 2008); a
-	// model fluid needing less has none to use (common practice).
+	// ×10⁻⁷ m²/s (common practice); a model fluid needing less has none
+	// to use. Water at 80 °C and 101.325 kPa has 3.64e-7 m²/s (IAPWS-95
+	// density, IAPWS 2008 viscosity, computed with Debian's
+	// python3-iapws).
 	lowestPracticalNu = 2e-7
 )
 

@@ -255,8 +255,9 @@ func TestRemedyFacilityNotes(t *testing.T) {
 			t.Errorf("the remedy without %s changes no fluid but notes %q", k, v)
 		}
 	}
-	// ITTC 7.5-02-01-03 (2011), fresh water at 20 °C: ν = 1.0034e-6 m²/s
-	// (from memory); printed as 1.00e-06.
+	// Fresh water at 20 °C and 101.325 kPa: ν = 1.0034e-6 m²/s (IAPWS-95
+	// density, IAPWS 2008 viscosity, computed with Debian's
+	// python3-iapws); printed as 1.00e-06.
 	if !strings.Contains(all, "water at 20 °C has 1.00e-06 m²/s") {
 		t.Errorf("no comparison with water at 20 °C: %q", notes)
 	}

@@ -333,6 +333,10 @@ func ParseQuantity(s string) (quantity.Quantity, error) {
 //
 //	speed := units.NewFlag(quantity.Velocity, units.Value{Number: 10, Unit: units.MustParse("kn")})
 //	flag.Var(speed, "speed", "towing speed")
+//
+// A Flag is checked however it is filled: Set (the flag package) and
+// UnmarshalText (JSON, configuration files) alike. The zero Flag requires
+// a dimensionless value; make one with NewFlag.
 type Flag struct {
 	Value
 	dim quantity.Dim
