@@ -319,7 +319,12 @@ func MustParseValue(s string) Value {
 }
 
 // ParseQuantity reads a number and a unit, as ParseValue does, and returns
-// the quantity in SI: "20 °C" is 293.15 K.
+// the quantity in SI: "20 °C" is 293.15 K. A temperature difference
+// ("20 Δ°C") comes back as 20 K, and a Quantity keeps no mark of being a
+// difference: where a temperature level (or a difference) is asked, read
+// the text into a Flag made by NewFlag, which checks the dimension and
+// refuses the other kind of temperature, or check ParseValue's unit with
+// Unit.IsInterval.
 func ParseQuantity(s string) (quantity.Quantity, error) {
 	v, err := ParseValue(s)
 	if err != nil {
