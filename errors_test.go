@@ -104,6 +104,12 @@ func TestErrorVocabularyWrapped(t *testing.T) {
 		t.Fatal(err)
 	}
 	proto := map[string]quantity.Quantity{"V": quantity.New(5, quantity.Velocity)}
+	other := pigroups.MustProblem(pigroups.Var("a", quantity.Length), pigroups.Var("b", quantity.Length))
+	oset, err := other.PiSet("a")
+	if err != nil {
+		t.Fatal(err)
+	}
+	foreign := oset.Groups()
 	var (
 		parseErr   *units.ParseError
 		dimErr     *quantity.DimensionError
@@ -145,6 +151,19 @@ func TestErrorVocabularyWrapped(t *testing.T) {
 		{"HoldExps MinInt64", one(similarity.NewPlan(p).HoldExps("x", map[string]int{"V": math.MinInt64}).Solve()), "range", &ratErr},
 		{"Plan conflict", one(similarity.NewPlan(p).HoldExps("Fr", map[string]int{"V": 2, "g": -1, "L": -1}).
 			SameGravity("g").Fix("L", 0.04).Fix("V", 0.5).Solve()), "conflict", &conflictEr},
+		{"Table.Parse unknown", one(units.NewTable().Parse("div/s")), "unknown", &parseErr},
+		{"Table.ParseValue unit", one(units.NewTable().ParseValue("3 m^")), "parse", &parseErr},
+		{"ParseGauge unknown unit", one(units.ParseGauge("40 furlong(g)")), "unknown", &parseErr},
+		{"ParseGauge number", one(units.ParseGauge("4..0 kPa(g)")), "parse", &valueErr},
+		{"Printer.FormatIn", one(units.Printer{}.FormatIn(quantity.New(1, quantity.Force), units.MustParse("Pa"))), "dimension", &convErr},
+		{"Unit.Mul exponent", one(units.MustParse("%^20").Mul(units.MustParse("%^20"))), "range", &rangeErr},
+		{"Unit.Mul dimension", one(units.MustParse("m^20").Mul(units.MustParse("m^20"))), "dimension", &dimErr},
+		{"With unknown", one(sol.With(map[string]float64{"nope": 1})), "unknown", &planErr},
+		{"With bad ratio", one(fr.With(map[string]float64{"L": -1})), "range", &planErr},
+		{"VariableToPrototype dimension", one(sol.VariableToPrototype("V", quantity.New(1, quantity.Force))), "dimension", &dimErr},
+		{"DerivedRatio current", one(sol.DerivedRatio(quantity.Current)), "unknown", &planErr},
+		{"NewReport foreign group", one(similarity.NewReport(sol, similarity.ReportOptions{Groups: foreign})), "invalid", &planErr},
+		{"Compromise foreign group", one(similarity.NewPlan(p).Fix("L", 0.04).Compromise(nil, similarity.Priority{Group: foreign[0]})), "invalid", &planErr},
 	}
 	for _, c := range cases {
 		if c.err == nil {

@@ -336,7 +336,7 @@ func (u Unit) Of(v float64) quantity.Quantity {
 func (u Unit) ValueOf(q quantity.Quantity) (float64, error) {
 	u = u.norm()
 	if q.Dim() != u.dim {
-		return 0, &ConversionError{FromDim: q.Dim(), To: u, Reason: "dimensions differ"}
+		return 0, &ConversionError{FromDim: q.Dim(), To: u, Err: ErrIncompatible, Reason: "the dimensions differ"}
 	}
 	return (q.Value() - u.offset) / u.factor, nil
 }
