@@ -366,7 +366,72 @@ func (r Remedy) fluidNotes(prototype map[string]quantity.Quantity) []string {
 	if r.sol == nil || !r.fluid || r.sol.plan.fluid != (protoFluid{}) {
 		return nil
 	}
-	pl := r.sol.plan
+	pf := r.sol.plan.prototypeFluid(prototype)
+	return r.sol.fluidNotes(pf)
+}
+
+// holdNotes says, for each floating group that the fluid enters only
+// through its kinematic viscosity (Re, with ρ/μ or 1/ν), which model
+// kinematic viscosity would hold it at the plan's scale and speed, beside
+// water's and the lowest of practical test liquids; pf is the prototype
+// fluid.
+func (s *Solution) holdNotes(pf protoFluid) []string {
+	if pf.nu <= 0 {
+		return nil
+	}
+	set, err := s.plan.prob.DefaultSet()
+	if err != nil {
+		return nil
+	}
+	pl := s.plan
+	ir, im, in := pl.varOfDim(quantity.Density), pl.varOfDim(quantity.DynamicViscosity), pl.varOfDim(quantity.KinematicViscosity)
+	nuLaw, ok := s.nuLaw()
+	if !ok {
+		return nil
+	}
+	lambdaNu := nuLaw.Eval(s.values)
+	dep := pl.prob.DependentIndex()
+	var notes []string
+	for _, g := range set.Groups() {
+		g = g.Conventional()
+		exps := g.Exponents()
+		if dep >= 0 && !exps[dep].IsZero() {
+			continue
+		}
+		// a is the group's exponent of ν: the fluid must enter through ν
+		// alone.
+		var a quantity.Rat
+		switch {
+		case in >= 0 && (ir < 0 || exps[ir].IsZero()) && (im < 0 || exps[im].IsZero()):
+			a = exps[in]
+		case in < 0 && ir >= 0 && im >= 0 && exps[im] == exps[ir].Neg():
+			a = exps[im]
+		}
+		l := s.groupLaw(exps)
+		r := l.Eval(s.values)
+		if a.IsZero() || l.IsOne() || math.IsNaN(r) || math.IsNaN(lambdaNu) {
+			continue
+		}
+		nu := pf.nu * lambdaNu * math.Pow(r, -1/a.Float())
+		if !(nu > 0) || math.IsInf(nu, 0) {
+			continue
+		}
+		name := s.groupRatio(g).Symbol
+		n := fmt.Sprintf("to hold %s as well at this scale and speed, the model fluid would need a kinematic viscosity of %.2e m²/s (it has %.2e m²/s; water at 20 °C has %.2e m²/s)", name, nu, pf.nu*lambdaNu, water20Nu())
+		if nu < lowestPracticalNu {
+			n += ": below every practical test liquid, which reach down to a few ×10⁻⁷ m²/s (common practice)"
+		}
+		notes = append(notes, n)
+	}
+	return notes
+}
+
+// prototypeFluid returns the prototype fluid from values by symbol, or
+// the plan's own from FixFluids.
+func (pl *Plan) prototypeFluid(prototype map[string]quantity.Quantity) protoFluid {
+	if pl.fluid != (protoFluid{}) {
+		return pl.fluid
+	}
 	var pf protoFluid
 	val := func(d quantity.Dim) float64 {
 		if i := pl.varOfDim(d); i >= 0 {
@@ -382,5 +447,5 @@ func (r Remedy) fluidNotes(prototype map[string]quantity.Quantity) []string {
 			pf.nu = mu / pf.rho
 		}
 	}
-	return r.sol.fluidNotes(pf)
+	return pf
 }

@@ -299,6 +299,13 @@ func TestReportNoRatioWhileGroupFloats(t *testing.T) {
 	if !strings.Contains(text, "not equal on both sides while Re floats") {
 		t.Errorf("the measured group's status does not name Re:\n%s", text)
 	}
+	// By hand: the same sea water on both sides, ν = 1.22e-3/1025 =
+	// 1.190e-6 m²/s; Re's ratio is λ_L^(3/2) = 1/64, so holding it needs
+	// ν_m = 1.190e-6/64 = 1.86e-8 m²/s, below any practical test liquid.
+	if !strings.Contains(text, "to hold Re as well at this scale and speed, the model fluid would need a kinematic viscosity of 1.86e-08 m²/s (it has 1.19e-06 m²/s") ||
+		!strings.Contains(text, "below every practical test liquid") {
+		t.Errorf("the report does not say which model viscosity would hold Re:\n%s", text)
+	}
 
 	both, err := similarity.NewPlan(p).HoldExps("the Froude number", map[string]int{"V": 2, "g": -1, "L": -1}).
 		HoldExps("the Reynolds number", map[string]int{"rho": 1, "V": 1, "L": 1, "mu": -1}).

@@ -51,7 +51,11 @@ type Report struct {
 //
 // The measured (dependent) variable's ratio is printed only when every
 // group of the other variables is held; while one floats, the report
-// names it instead (see Solution.FloatingGroups).
+// names it instead (see Solution.FloatingGroups), and for a floating group
+// the fluid enters through its kinematic viscosity alone (Re) it notes the
+// model kinematic viscosity that would hold it, beside water's, when the
+// prototype fluid is known (Prototype values of ρ and μ or ν, or the
+// plan's FixFluids).
 func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 	r := &Report{title: o.Title}
 	if r.title == "" {
@@ -167,6 +171,7 @@ func (r *Report) solution(s *Solution, o ReportOptions) error {
 	if len(free) > 0 {
 		r.notes = append(r.notes, "underdetermined: free ratios "+strings.Join(free, ", ")+" have no value")
 	}
+	r.notes = append(r.notes, s.holdNotes(s.plan.prototypeFluid(o.Prototype))...)
 	if o.Compromise != nil {
 		for _, f := range o.Compromise.Floating {
 			if f.MinModel > 0 && !f.Meets {
