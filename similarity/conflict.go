@@ -266,6 +266,22 @@ var water20Nu = sync.OnceValue(func() float64 {
 	return w.DynamicViscosity.Value() / w.Density.Value()
 })
 
+// air20Nu is the kinematic viscosity of dry air at 20 °C and 101.325 kPa,
+// from the fluids package (ideal gas, Sutherland viscosity): about
+// 1.5e-5 m²/s.
+var air20Nu = sync.OnceValue(func() float64 {
+	a, err := fluids.Air().At(quantity.New(293.15, quantity.Temperature), quantity.New(101325, quantity.Pressure))
+	if err != nil {
+		return math.NaN()
+	}
+	return a.DynamicViscosity.Value() / a.Density.Value()
+})
+
+// realFluids compares a kinematic viscosity with water's and air's.
+func realFluids() string {
+	return fmt.Sprintf("water at 20 °C has %.2e m²/s, air at 20 °C and 101.325 kPa %.2e m²/s", water20Nu(), air20Nu())
+}
+
 // fixesFluid reports whether constraint c fixes a fluid property: the
 // ratio of a density or a viscosity.
 func (pl *Plan) fixesFluid(c constraint) bool {
@@ -350,7 +366,7 @@ func (s *Solution) fluidNotes(pf protoFluid) []string {
 	if l, ok := s.nuLaw(); ok && pf.nu > 0 && !l.IsOne() {
 		if v := l.Eval(s.values); !math.IsNaN(v) {
 			nu := v * pf.nu
-			n := fmt.Sprintf("the model fluid would need a kinematic viscosity of %.2e m²/s (ν_m/ν_p = %.4g, prototype %.2e m²/s; water at 20 °C has %.2e m²/s)", nu, v, pf.nu, water20Nu())
+			n := fmt.Sprintf("the model fluid would need a kinematic viscosity of %.2e m²/s (ν_m/ν_p = %.4g, prototype %.2e m²/s; %s)", nu, v, pf.nu, realFluids())
 			if nu < lowestPracticalNu {
 				n += ": below every practical test liquid, which reach down to a few ×10⁻⁷ m²/s (common practice)"
 			}
@@ -417,7 +433,7 @@ func (s *Solution) holdNotes(pf protoFluid) []string {
 			continue
 		}
 		name := s.groupRatio(g).Symbol
-		n := fmt.Sprintf("to hold %s as well at this scale and speed, the model fluid would need a kinematic viscosity of %.2e m²/s (it has %.2e m²/s; water at 20 °C has %.2e m²/s)", name, nu, pf.nu*lambdaNu, water20Nu())
+		n := fmt.Sprintf("to hold %s as well at this scale and speed, the model fluid would need a kinematic viscosity of %.2e m²/s (it has %.2e m²/s; %s)", name, nu, pf.nu*lambdaNu, realFluids())
 		if nu < lowestPracticalNu {
 			n += ": below every practical test liquid, which reach down to a few ×10⁻⁷ m²/s (common practice)"
 		}

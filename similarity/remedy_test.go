@@ -258,6 +258,11 @@ func TestRemedyFacilityNotes(t *testing.T) {
 	// Fresh water at 20 °C and 101.325 kPa: ν = 1.0034e-6 m²/s (IAPWS-95
 	// density, IAPWS 2008 viscosity, computed with Debian's
 	// python3-iapws); printed as 1.00e-06.
+	// Dry air at 20 °C and 101.325 kPa: ν ≈ 1.516e-5 m²/s (handbook
+	// value, from memory); printed as 1.51e-05 or 1.52e-05.
+	if !strings.Contains(all, "air at 20 °C and 101.325 kPa 1.51e-05 m²/s") && !strings.Contains(all, "air at 20 °C and 101.325 kPa 1.52e-05 m²/s") {
+		t.Errorf("no comparison with air at 20 °C: %q", all)
+	}
 	if !strings.Contains(all, "water at 20 °C has 1.00e-06 m²/s") {
 		t.Errorf("no comparison with water at 20 °C: %q", notes)
 	}
