@@ -50,8 +50,12 @@ type Plan struct {
 // protoFluid is the prototype fluid of a plan, in SI; zero when unknown.
 type protoFluid struct{ rho, nu float64 }
 
-// NewPlan starts a plan for a problem.
+// NewPlan starts a plan for a problem. A nil problem makes Solve report
+// an error matching quantity.ErrInvalid.
 func NewPlan(p *pigroups.Problem) *Plan {
+	if p == nil {
+		return &Plan{err: &PlanError{Err: ErrPlan, Reason: "plan: no problem (nil *pigroups.Problem)"}}
+	}
 	return &Plan{prob: p, vars: p.Variables()}
 }
 
@@ -138,6 +142,9 @@ func (pl *Plan) failErr(e *PlanError) *Plan {
 // The group must come from the plan's problem, or one with the same
 // variables in the same order.
 func (pl *Plan) Hold(g pigroups.Group) *Plan {
+	if pl.err != nil {
+		return pl // Solve reports the first mistake
+	}
 	if err := pl.prob.CheckGroup(g); err != nil {
 		return pl.fail(ErrForeignGroup, g.Name, "hold %s: %v", g, err)
 	}
@@ -152,6 +159,9 @@ func (pl *Plan) Hold(g pigroups.Group) *Plan {
 // label for messages ("the Froude number"). An exponent a Rat cannot hold
 // (math.MinInt64) makes Solve report an error matching quantity.ErrRange.
 func (pl *Plan) HoldExps(label string, exps map[string]int) *Plan {
+	if pl.err != nil {
+		return pl // Solve reports the first mistake
+	}
 	m := make(map[string]quantity.Rat, len(exps))
 	for s, e := range exps {
 		if pl.index(s) < 0 {

@@ -361,6 +361,9 @@ func TestNoPanicOnBadArguments(t *testing.T) {
 			t.Errorf("HoldExps with exponent %d: no error", e)
 		}
 	}
+	if _, err := similarity.NewPlan(nil).HoldExps("x", nil).Hold(pigroups.Group{}).Fix("L", 1).Solve(); !errors.Is(err, q.ErrInvalid) {
+		t.Errorf("a plan of a nil problem: %v, want an ErrInvalid error", err)
+	}
 	_, err = similarity.NewPlan(shipProblem()).HoldExps("x", map[string]int{"V": math.MinInt64}).Solve()
 	if !errors.Is(err, q.ErrRange) {
 		t.Errorf("HoldExps with exponent MinInt64: %v, want an ErrRange error", err)
