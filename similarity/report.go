@@ -106,7 +106,7 @@ func (r *Report) solution(s *Solution, o ReportOptions) error {
 		}
 		measured := dep >= 0 && !exps[dep].IsZero()
 		if measured && !ratio.Law.IsOne() {
-			status = "measured (equal on both sides when the others are held)"
+			status = "measured (equal on both sides: every other group is held)"
 			if len(floating) > 0 {
 				status = "measured; not equal on both sides while " + floatingNames(floating) + " floats"
 			}
