@@ -344,13 +344,17 @@ func ParseQuantity(s string) (quantity.Quantity, error) {
 // a dimensionless value; make one with NewFlag.
 type Flag struct {
 	Value
-	dim quantity.Dim
+	dim  quantity.Dim
+	diff bool // a temperature flag that takes differences
 }
 
 // NewFlag returns a Flag requiring dimension d, holding def. A
 // temperature flag takes levels (°C, °F, K) unless def is a difference
-// (Δ°C), when it takes differences; the other kind is refused.
-func NewFlag(d quantity.Dim, def Value) *Flag { return &Flag{Value: def, dim: d} }
+// (Δ°C), when it takes differences (Δ°C, Δ°F, K); the other kind is
+// refused. Kelvins, whose zero is absolute zero, serve both.
+func NewFlag(d quantity.Dim, def Value) *Flag {
+	return &Flag{Value: def, dim: d, diff: d == quantity.Temperature && def.Unit.IsInterval()}
+}
 
 // Set parses s and checks its dimension.
 func (f *Flag) Set(s string) error {
@@ -361,9 +365,9 @@ func (f *Flag) Set(s string) error {
 	if v.Unit.dim != f.dim {
 		return &quantity.DimensionError{Op: "check", Name: s, Left: v.Unit.dim, Right: f.dim, Binary: true}
 	}
-	if f.dim == quantity.Temperature && v.Unit.IsInterval() != f.Value.Unit.IsInterval() {
+	if f.dim == quantity.Temperature && (!f.diff && v.Unit.IsInterval() || f.diff && v.Unit.IsScale()) {
 		what, want := "a temperature difference", "a temperature level (°C, °F, K)"
-		if f.Value.Unit.IsInterval() {
+		if f.diff {
 			what, want = "a temperature level", "a temperature difference (Δ°C, Δ°F, K)"
 		}
 		return &ConversionError{From: v.Unit, To: f.Value.Unit, Err: ErrTemperature, Reason: fmt.Sprintf("%q is %s", s, what), Hint: "the flag takes " + want}

@@ -345,10 +345,20 @@ func TestFlagCheckedFromText(t *testing.T) {
 			t.Errorf("20 Δ°C for a level: %v; flag now %v", err, tin.Value)
 		}
 	}
-	// A flag that takes differences refuses a level.
+	// A flag that takes differences refuses a level, and takes kelvins
+	// (whose zero is absolute zero) without turning into a level flag.
 	dt := units.NewFlag(quantity.Temperature, units.MustParseValue("5 Δ°C"))
 	if err := dt.UnmarshalText([]byte("20 °C")); !errors.Is(err, quantity.ErrInvalid) {
 		t.Errorf("20 °C for a difference: %v", err)
+	}
+	if err := dt.Set("3 K"); err != nil {
+		t.Errorf("3 K for a difference: %v", err)
+	}
+	if err := dt.Set("20 °F"); !errors.Is(err, quantity.ErrInvalid) {
+		t.Errorf("20 °F for a difference after 3 K: %v", err)
+	}
+	if err := dt.Set("4 Δ°F"); err != nil {
+		t.Errorf("4 Δ°F for a difference after 3 K: %v", err)
 	}
 }
 
@@ -379,6 +389,18 @@ func TestPowRoundTrip(t *testing.T) {
 		}
 		if !back.Equal(p) || back.String() != p.String() {
 			t.Fatalf("(%v).Pow(%d, %d) = %q (factor %v), reads back as %q (factor %v)", u, num, den, p, p.Factor(), back, back.Factor())
+		}
+		// Products and quotients with another unit read back too.
+		o := units.MustParse(rapid.SampledFrom(spellings).Draw(t, "other"))
+		for _, op := range []func(units.Unit) (units.Unit, error){p.Mul, p.Div} {
+			r, err := op(o)
+			if err != nil {
+				continue
+			}
+			back, err := units.Parse(r.String())
+			if err != nil || !back.Equal(r) || back.String() != r.String() {
+				t.Fatalf("%q with %q gives %q, which reads back as %v, %v", p, o, r, back, err)
+			}
 		}
 	})
 }
