@@ -247,6 +247,9 @@ const (
 	// liquid at room temperature (from memory; CRC Handbook of Chemistry
 	// and Physics).
 	densestLiquid = 13546.0
+	// waterDensity: fresh water at 20 °C, 998.2 kg/m³ (IAPWS-95, computed
+	// with Debian's python3-iapws: 998.207).
+	waterDensity = 998.2
 	// lowestPracticalNu: practical test liquids reach down to a few
 	// ×10⁻⁷ m²/s (common practice); a model fluid needing less has none
 	// to use. Water at 80 °C and 101.325 kPa has 3.64e-7 m²/s (IAPWS-95
@@ -357,10 +360,22 @@ func (s *Solution) nuLaw() (Law, bool) {
 // the lowest of practical test liquids.
 func (s *Solution) fluidNotes(pf protoFluid) []string {
 	var notes []string
-	if i := s.plan.varOfDim(quantity.Density); i >= 0 && pf.rho > 0 {
+	if i := s.plan.varOfDim(quantity.Density); i >= 0 {
 		l := lawOf(s.coef[i], s.params)
-		if v := l.Eval(s.values); !l.IsOne() && v*pf.rho > densestLiquid {
+		v := l.Eval(s.values)
+		switch {
+		case l.IsOne() || math.IsNaN(v):
+		case pf.rho > 0 && v*pf.rho > densestLiquid:
 			notes = append(notes, fmt.Sprintf("the model fluid would need a density of %.0f kg/m³, %.3g times the prototype's: no liquid is that dense (mercury, the densest at room temperature, has about 13 546 kg/m³)", v*pf.rho, v))
+		case pf.rho == 0 && v*waterDensity > densestLiquid:
+			notes = append(notes, fmt.Sprintf("the model fluid would need %.3g times the prototype's density: with a prototype in water no liquid meets it (mercury, the densest at room temperature, is about %.1f times as dense as water)", v, densestLiquid/waterDensity))
+		}
+	}
+	if l, ok := s.nuLaw(); ok && pf.nu == 0 && !l.IsOne() {
+		// The prototype fluid is unknown: say what a prototype in water
+		// would ask, the common case of tanks and flumes.
+		if v := l.Eval(s.values); !math.IsNaN(v) && v*water20Nu() < lowestPracticalNu {
+			notes = append(notes, fmt.Sprintf("ν_m/ν_p = %.4g: with a prototype in water at 20 °C (%.2e m²/s) the model fluid would need %.2e m²/s, below every practical test liquid, which reach down to a few ×10⁻⁷ m²/s (common practice)", v, water20Nu(), v*water20Nu()))
 		}
 	}
 	if l, ok := s.nuLaw(); ok && pf.nu > 0 && !l.IsOne() {

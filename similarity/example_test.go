@@ -47,7 +47,7 @@ func ExamplePlan_Solve() {
 	// holding the Froude number and the Reynolds number with the same fluid and the same gravity forces λ_L to 1, against a length scale of 1:25
 	// without the Froude number: the Froude number would float, Fr model/prototype = λ_L^(-3/2) = 125 (Fr²: λ_L⁻³ = 15625)
 	// without the Reynolds number: the Reynolds number would float, Re model/prototype = λ_L^(3/2) = 0.008
-	// without the same fluid: λ_rho = λ_mu·λ_L^(-3/2); λ_mu free; ν_m/ν_p = λ_L^(3/2) = 0.008
+	// without the same fluid: λ_rho = λ_mu·λ_L^(-3/2); λ_mu free; ν_m/ν_p = λ_L^(3/2) = 0.008 — ν_m/ν_p = 0.008: with a prototype in water at 20 °C (1.00e-06 m²/s) the model fluid would need 8.03e-09 m²/s, below every practical test liquid, which reach down to a few ×10⁻⁷ m²/s (common practice)
 	// without the same gravity: λ_g = λ_L⁻³ = 15625 — λ_g ≠ 1 cannot be met: no tank, flume or tunnel changes gravity (common practice; only a centrifuge raises it)
 	// without a length scale of 1:25: λ_L to 1
 }

@@ -178,7 +178,7 @@ func TestReportConflictWithoutSolution(t *testing.T) {
 	text := r.Text()
 	want := []string{"Hull 1:16", "note: conflict: " + ce.Summary, "CAUTION: Model-test predictions"}
 	for _, rem := range ce.Remedies {
-		want = append(want, rem.String())
+		want = append(want, "without "+rem.Drop+": "+strings.Join(rem.Needs, "; "))
 	}
 	// By hand: without the same fluid, ν_m/ν_p = λ_L^(3/2) = 1/64, and
 	// the sea water's ν_p = 1.22e-3/1025 = 1.190e-6 m²/s, so the model
@@ -188,6 +188,9 @@ func TestReportConflictWithoutSolution(t *testing.T) {
 		if !strings.Contains(text, w) {
 			t.Errorf("conflict report lacks %q:\n%s", w, text)
 		}
+	}
+	if strings.Contains(text, "with a prototype in water") {
+		t.Errorf("the report assumes a prototype in water though the prototype's fluid is given:\n%s", text)
 	}
 	if strings.Contains(text, "Variables") {
 		t.Errorf("a conflict report without a solution prints a variables table:\n%s", text)

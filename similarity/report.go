@@ -72,8 +72,14 @@ func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 	if o.Conflict != nil {
 		r.notes = append(r.notes, "conflict: "+o.Conflict.Summary)
 		for _, rem := range o.Conflict.Remedies {
+			extra := rem.fluidNotes(o.Prototype)
+			if len(extra) > 0 {
+				// The prototype's fluid is known: its notes replace those
+				// that assumed water.
+				rem.Notes = rem.sol.gravityNotes()
+			}
 			r.notes = append(r.notes, "  "+rem.String())
-			for _, n := range rem.fluidNotes(o.Prototype) {
+			for _, n := range extra {
 				r.notes = append(r.notes, "    "+n)
 			}
 		}
