@@ -216,6 +216,25 @@ func TestRemedyFacilityNotes(t *testing.T) {
 		t.Errorf("the same-gravity remedy does not say gravity cannot change: %v", gravity)
 	}
 
+	// The prototype fluid unknown, ratios fixed at 1: dropping the density
+	// ratio needs λ_ρ = λ_L^(-3/2) = 64 (by hand, 1:16), which no liquid
+	// gives a prototype in water (mercury/water ≈ 13 546/998.2 = 13.6).
+	_, err := similarity.NewPlan(shipProblem()).HoldExps("the Froude number", map[string]int{"V": 2, "g": -1, "L": -1}).
+		HoldExps("the Reynolds number", map[string]int{"rho": 1, "V": 1, "L": 1, "mu": -1}).
+		Fix("rho", 1).Fix("mu", 1).SameGravity("g").Fix("L", 1.0/16).Solve()
+	if !errors.As(err, &ce) {
+		t.Fatalf("no conflict: %v", err)
+	}
+	found := false
+	for _, r := range ce.Remedies {
+		if strings.HasPrefix(r.Drop, "a density ratio") {
+			found = strings.Contains(r.String(), "64 times the prototype's density: with a prototype in water no liquid meets it (mercury, the densest at room temperature, is about 13.6 times as dense as water)")
+		}
+	}
+	if !found {
+		t.Errorf("the density remedy does not say no liquid meets it: %v", ce)
+	}
+
 	p := shipProblem()
 	sea, err := fluids.SeaWater().AtCelsius(15)
 	if err != nil {
