@@ -2,6 +2,7 @@ package similis_test
 
 import (
 	"errors"
+	"math"
 	"reflect"
 	"strings"
 	"testing"
@@ -76,6 +77,110 @@ func TestErrorVocabulary(t *testing.T) {
 		}
 		if len(matched) != 1 || matched[0] != c.class {
 			t.Errorf("%s: %v (%s) matches %v, want only %s", c.name, c.err, tn, matched, c.class)
+		}
+	}
+}
+
+// TestErrorVocabularyWrapped: errors that wrap another (a value whose unit
+// does not parse, a definition whose expression does not, a data-sheet
+// reading, a flag's check, a plan's report unit) match exactly one class,
+// and errors.As reaches the typed error inside.
+func TestErrorVocabularyWrapped(t *testing.T) {
+	classes := map[string]error{
+		"dimension": quantity.ErrDimension, "range": quantity.ErrRange, "parse": quantity.ErrParse,
+		"unknown": quantity.ErrUnknown, "invalid": quantity.ErrInvalid, "conflict": similarity.ErrConflict,
+	}
+	one := func(_ any, err error) error { return err }
+	two := func(_, _ any, err error) error { return err }
+	flow := units.NewFlag(quantity.VolumeFlowRate, units.MustParseValue("1 L/s"))
+	level := units.NewFlag(quantity.Temperature, units.MustParseValue("20 °C"))
+	fr, _ := similarity.Froude(similarity.Scales{Length: 1.0 / 25, Density: 1})
+	var dst quantity.Series
+	p := pigroups.MustProblem(pigroups.Dep("R", quantity.Force), pigroups.Var("V", quantity.Velocity),
+		pigroups.Var("L", quantity.Length), pigroups.Var("g", quantity.Acceleration), pigroups.Var("rho", quantity.Density))
+	sol, err := similarity.NewPlan(p).HoldExps("Fr", map[string]int{"V": 2, "g": -1, "L": -1}).
+		SameGravity("g").Fix("L", 0.04).Same("the same fluid", "rho").Basis("V", "L", "rho").Solve()
+	if err != nil {
+		t.Fatal(err)
+	}
+	proto := map[string]quantity.Quantity{"V": quantity.New(5, quantity.Velocity)}
+	other := pigroups.MustProblem(pigroups.Var("a", quantity.Length), pigroups.Var("b", quantity.Length))
+	oset, err := other.PiSet("a")
+	if err != nil {
+		t.Fatal(err)
+	}
+	foreign := oset.Groups()
+	var (
+		parseErr   *units.ParseError
+		dimErr     *quantity.DimensionError
+		convErr    *units.ConversionError
+		planErr    *similarity.PlanError
+		rangeErr   *units.RangeError
+		ratErr     *quantity.RatError
+		defineErr  *units.DefineError
+		valueErr   *units.ValueError
+		conflictEr *similarity.ConflictError
+	)
+	cases := []struct {
+		name  string
+		err   error
+		class string
+		inner any // a pointer to the typed error errors.As must reach
+	}{
+		{"ParseValue unknown unit", one(units.ParseValue("3 furlongs")), "unknown", &parseErr},
+		{"ParseValue bad unit", one(units.ParseValue("3 m^")), "parse", &parseErr},
+		{"ParseValue number", one(units.ParseValue("3..2 m")), "parse", &valueErr},
+		{"ParseDialect syntax", two(units.ParseDialect("m^^2")), "parse", &parseErr},
+		{"ParseDialect exponent", two(units.ParseDialect("hr^99")), "parse", &parseErr},
+		{"ParseDialect unknown", two(units.ParseDialect("furlongs/hr")), "unknown", &parseErr},
+		{"Define unparsable", units.NewTable().Define("div", "0.25 inH2O^"), "parse", &parseErr},
+		{"Define unknown", units.NewTable().Define("div", "0.25 furlongs"), "unknown", &parseErr},
+		{"Define taken", units.NewTable().Define("m", "s"), "invalid", &defineErr},
+		{"Flag dimension", flow.Set("1.2 m/s"), "dimension", &dimErr},
+		{"Flag text dimension", flow.UnmarshalText([]byte("1.2 m/s")), "dimension", &dimErr},
+		{"Flag text unknown", flow.UnmarshalText([]byte("1.2 furlongs")), "unknown", &parseErr},
+		{"Flag temperature difference", level.UnmarshalText([]byte("20 Δ°C")), "invalid", &convErr},
+		{"Unit.Pow exponent", one(units.MustParse("%").Pow(62, 1)), "range", &rangeErr},
+		{"Rat MinInt64", one(quantity.RatInt(-1 << 62).Add(quantity.RatInt(-1 << 62))), "range", &ratErr},
+		{"Ratio unknown", one(fr.Ratio("nope")), "unknown", &planErr},
+		{"SetPoints unit", one(sol.SetPoints(proto, map[string]string{"V": "furlongs"})), "unknown", &parseErr},
+		{"SetPoints dimension", one(sol.SetPoints(map[string]quantity.Quantity{"V": quantity.New(5, quantity.Length)}, nil)), "dimension", &dimErr},
+		{"SeriesToPrototype nil", sol.SeriesToPrototype(nil, dst), "invalid", &planErr},
+		{"NewReport nothing", one(similarity.NewReport(nil, similarity.ReportOptions{})), "invalid", &planErr},
+		{"NewReport unit", one(similarity.NewReport(sol, similarity.ReportOptions{Prototype: proto, Units: map[string]string{"V": "kn^"}})), "parse", &parseErr},
+		{"HoldExps MinInt64", one(similarity.NewPlan(p).HoldExps("x", map[string]int{"V": math.MinInt64}).Solve()), "range", &ratErr},
+		{"Plan conflict", one(similarity.NewPlan(p).HoldExps("Fr", map[string]int{"V": 2, "g": -1, "L": -1}).
+			SameGravity("g").Fix("L", 0.04).Fix("V", 0.5).Solve()), "conflict", &conflictEr},
+		{"Table.Parse unknown", one(units.NewTable().Parse("div/s")), "unknown", &parseErr},
+		{"Table.ParseValue unit", one(units.NewTable().ParseValue("3 m^")), "parse", &parseErr},
+		{"ParseGauge unknown unit", one(units.ParseGauge("40 furlong(g)")), "unknown", &parseErr},
+		{"ParseGauge number", one(units.ParseGauge("4..0 kPa(g)")), "parse", &valueErr},
+		{"Printer.FormatIn", one(units.Printer{}.FormatIn(quantity.New(1, quantity.Force), units.MustParse("Pa"))), "dimension", &convErr},
+		{"Unit.Mul exponent", one(units.MustParse("%^20").Mul(units.MustParse("%^20"))), "range", &rangeErr},
+		{"Unit.Mul dimension", one(units.MustParse("m^20").Mul(units.MustParse("m^20"))), "dimension", &dimErr},
+		{"With unknown", one(sol.With(map[string]float64{"nope": 1})), "unknown", &planErr},
+		{"With bad ratio", one(fr.With(map[string]float64{"L": -1})), "range", &planErr},
+		{"VariableToPrototype dimension", one(sol.VariableToPrototype("V", quantity.New(1, quantity.Force))), "dimension", &dimErr},
+		{"DerivedRatio current", one(sol.DerivedRatio(quantity.Current)), "unknown", &planErr},
+		{"NewReport foreign group", one(similarity.NewReport(sol, similarity.ReportOptions{Groups: foreign})), "invalid", &planErr},
+		{"Compromise foreign group", one(similarity.NewPlan(p).Fix("L", 0.04).Compromise(nil, similarity.Priority{Group: foreign[0]})), "invalid", &planErr},
+	}
+	for _, c := range cases {
+		if c.err == nil {
+			t.Errorf("%s: no error", c.name)
+			continue
+		}
+		var matched []string
+		for name, cl := range classes {
+			if errors.Is(c.err, cl) {
+				matched = append(matched, name)
+			}
+		}
+		if len(matched) != 1 || matched[0] != c.class {
+			t.Errorf("%s: %v (%T) matches %v, want only %s", c.name, c.err, c.err, matched, c.class)
+		}
+		if !errors.As(c.err, c.inner) {
+			t.Errorf("%s: errors.As does not reach %T in %v (%T)", c.name, c.inner, c.err, c.err)
 		}
 	}
 }

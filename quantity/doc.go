@@ -12,6 +12,16 @@
 // (kg·m⁻¹·s⁻²). Named kinds of quantity (Pressure, DynamicViscosity, …)
 // are exported as Dims, and KindName names a Dim in messages.
 //
+// # Text
+//
+// A Quantity prints (String, %v, MarshalText) its value and its coherent SI
+// unit: N, Pa or W where the dimension is exactly that of the newton, the
+// pascal or the watt, the SI base-unit form otherwise ("138434.1 N",
+// "1.225 kg·m⁻³"); ParseQuantitySI reads every such text back to the same
+// bits. Energy keeps base units, since torque shares its dimension. To
+// print in any other unit, with prefixes or a chosen precision, use the
+// units package's Printer.
+//
 // # Error model
 //
 // A dimension mismatch never yields a number. There are two ways it is
@@ -20,7 +30,7 @@
 //   - In code a programmer wrote, a mismatch is a bug. Quantity and Series
 //     arithmetic panics with a *DimensionError whose message names the
 //     operation and both sides with their kinds —
-//     "cannot add pressure, stress [kg·m⁻¹·s⁻²] and velocity [m·s⁻¹]" —
+//     "cannot add pressure, stress [Pa] and velocity [m·s⁻¹]" —
 //     so the bug surfaces on the formula's first run, with a stack trace.
 //   - For values whose dimensions come from input (a file, a user), check
 //     them first with Quantity.Check or Series.Check, which return the

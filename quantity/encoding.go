@@ -27,7 +27,8 @@ func (d *Dim) UnmarshalText(b []byte) error {
 
 // AppendText appends the text form of q, as String writes it, to b: the
 // shortest decimal that reads back to the same float64, a space, and the
-// SI base-unit form of the dimension ("1.225 kg·m⁻³"). A value that is
+// unit (N, Pa or W where the dimension is exactly theirs, else the SI
+// base-unit form: "101325 Pa", "1.225 kg·m⁻³"). A value that is
 // not finite is refused, since no number written in a data file should
 // read back as NaN or ±Inf. It implements encoding.TextAppender.
 func (q Quantity) AppendText(b []byte) ([]byte, error) {
@@ -37,7 +38,7 @@ func (q Quantity) AppendText(b []byte) ([]byte, error) {
 	b = strconv.AppendFloat(b, q.v, 'g', -1, 64)
 	if uint64(q.d) != 0 {
 		b = append(b, ' ')
-		b = append(b, q.d.SIUnit()...)
+		b = append(b, q.d.unitText(false)...)
 	}
 	return b, nil
 }
@@ -48,8 +49,8 @@ func (q Quantity) MarshalText() ([]byte, error) { return q.AppendText(nil) }
 
 // UnmarshalText decodes a number, optionally followed by a space and a
 // dimension in any form ParseDim accepts ("1.225 kg·m⁻³", "1.225 kg
-// m^-3", "2.5"). Units other than the SI base units are the units
-// package's job (units.ParseQuantity).
+// m^-3", "2.5"), or one of the unit names String writes ("101325 Pa").
+// Other units are the units package's job (units.ParseQuantity).
 func (q *Quantity) UnmarshalText(b []byte) error {
 	v, err := ParseQuantitySI(string(b))
 	if err != nil {
@@ -61,7 +62,10 @@ func (q *Quantity) UnmarshalText(b []byte) error {
 
 // ParseQuantitySI reads a quantity written as String and MarshalText
 // write it: a finite number and, after a space, a dimension in SI base
-// units or ISO form. It reports a *ParseError.
+// units or ISO form, or alone one of the special names String writes —
+// N (newton), Pa (pascal), W (watt). A unit text of "N" alone is so the
+// newton, not the ISO symbol of amount of substance (write mol). It
+// reports a *ParseError.
 func ParseQuantitySI(s string) (Quantity, error) {
 	if len(s) > maxDimText+64 {
 		return Quantity{}, &ParseError{Input: s[:64] + "…", Offset: 64, Reason: "text too long"}
@@ -78,6 +82,9 @@ func ParseQuantitySI(s string) (Quantity, error) {
 	}
 	if v == 0 && strings.ContainsAny(strings.SplitN(strings.ToLower(num), "e", 2)[0], "123456789") {
 		return Quantity{}, &ParseError{Input: s, Offset: lead, Reason: fmt.Sprintf("%q underflows to zero", num)}
+	}
+	if d, ok := namedDim(rest); ok {
+		return Quantity{v, d}, nil
 	}
 	d, err := ParseDim(rest)
 	if err != nil {

@@ -3,6 +3,7 @@ package quantity_test
 import (
 	"encoding"
 	"encoding/json"
+	"fmt"
 	"math"
 	"testing"
 
@@ -30,7 +31,7 @@ func TestQuantityJSON(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if want := `{"p":"101325 kg·m⁻¹·s⁻²","d":"L⁻¹ M T⁻¹"}`; string(b) != want {
+	if want := `{"p":"101325 Pa","d":"L⁻¹ M T⁻¹"}`; string(b) != want {
 		t.Errorf("json = %s, want %s", b, want)
 	}
 	var out row
@@ -94,7 +95,7 @@ func TestParseQuantitySIErrors(t *testing.T) {
 // FuzzQuantityText checks that decoding a Quantity, a Dim or a Rat never panics
 // and that what is accepted encodes back to the same bits.
 func FuzzQuantityText(f *testing.F) {
-	for _, s := range []string{"1.225 kg·m⁻³", "1.225 kg m^-3", "2.5", "101325 L^-1 M T^-2", "NaN", "1e-400 m", "-0 m", "3 m^(1/2)", "", "-6/4", "1/0", "9223372036854775807/-1"} {
+	for _, s := range []string{"1.225 kg·m⁻³", "1.225 kg m^-3", "2.5", "101325 L^-1 M T^-2", "NaN", "1e-400 m", "-0 m", "3 m^(1/2)", "", "-6/4", "1/0", "9223372036854775807/-1", "138434.1 N", "101325 Pa", "2 W", "3 mol"} {
 		f.Add(s)
 	}
 	f.Fuzz(func(t *testing.T, s string) {
@@ -126,4 +127,43 @@ func FuzzQuantityText(f *testing.F) {
 			}
 		}
 	})
+}
+
+// TestNamedUnitText checks that a force, a pressure and a power print
+// with the SI special names N, Pa and W (SI Brochure, 9th ed. (2019),
+// Table 4), in String, ASCII, %v, %#v and MarshalText, that each reads
+// back to the same bits, that energy keeps its base units (torque shares
+// its dimension, and its unit is N·m, not J), and that the dimensions
+// whose ISO symbols are N and J still print as mol and cd.
+func TestNamedUnitText(t *testing.T) {
+	cases := []struct {
+		q    q.Quantity
+		want string
+	}{
+		{q.New(138434.1, q.Force), "138434.1 N"},
+		{q.New(101325, q.Pressure), "101325 Pa"},
+		{q.New(-2.5e6, q.Power), "-2.5e+06 W"},
+		{q.New(12, q.Energy), "12 kg·m²·s⁻²"},
+		{q.New(3, q.Amount), "3 mol"},
+		{q.New(3, q.LuminousIntensity), "3 cd"},
+		{q.New(1.225, q.Density), "1.225 kg·m⁻³"},
+	}
+	for _, c := range cases {
+		texts := []string{c.q.String(), c.q.ASCII(), fmt.Sprintf("%v", c.q), fmt.Sprintf("%#v", c.q)}
+		if b, err := c.q.MarshalText(); err == nil {
+			texts = append(texts, string(b))
+		}
+		if texts[0] != c.want {
+			t.Errorf("String = %q, want %q", texts[0], c.want)
+		}
+		for _, s := range texts {
+			back, err := q.ParseQuantitySI(s)
+			if err != nil || back != c.q {
+				t.Errorf("%q reads back as %v, %v; want %v", s, back, err, c.q)
+			}
+		}
+	}
+	if got := fmt.Sprintf("%.4g", q.New(138434.1, q.Force)); got != "1.384e+05 N" {
+		t.Errorf("%%.4g of a force = %q", got)
+	}
 }

@@ -61,18 +61,20 @@ type DimensionError struct {
 }
 
 // Describe names a dimension for a message: its kinds of quantity, if any
-// are known, and its SI base-unit form — "pressure, stress [kg·m⁻¹·s⁻²]".
+// are known, and its coherent SI unit as a Quantity's String writes it —
+// the special name N, Pa or W where the dimension is exactly theirs, the
+// base-unit form otherwise: "pressure, stress [Pa]", "density [kg·m⁻³]".
 func Describe(d Dim) string {
 	if name := KindName(d); name != "" {
-		return name + " [" + d.SIUnit() + "]"
+		return name + " [" + d.unitText(false) + "]"
 	}
-	return "[" + d.SIUnit() + "]"
+	return "[" + d.unitText(false) + "]"
 }
 
 // Error returns the message, naming the operation and both sides with
 // their kinds of quantity:
 //
-//	cannot add pressure, stress [kg·m⁻¹·s⁻²] and velocity [m·s⁻¹]
+//	cannot add pressure, stress [Pa] and velocity [m·s⁻¹]
 func (e *DimensionError) Error() string {
 	var sb strings.Builder
 	if e.Op == "check" {

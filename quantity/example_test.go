@@ -33,7 +33,7 @@ func Example() {
 	// Output:
 	// Re = 9.966e+04 (1)
 	// μ: want dynamic viscosity [kg·m⁻¹·s⁻¹], got kinematic viscosity, thermal diffusivity, diffusion coefficient [m²·s⁻¹]
-	// true cannot add pressure, stress [kg·m⁻¹·s⁻²] and velocity [m·s⁻¹]
+	// true cannot add pressure, stress [Pa] and velocity [m·s⁻¹]
 }
 
 func ExampleDim() {
@@ -57,7 +57,7 @@ func ExampleSeries() {
 	fmt.Println(q.Dim().SIUnit(), q.Max())
 	// Output:
 	// [499.0 1994.0 4482.0]
-	// kg·m⁻¹·s⁻² 4482 kg·m⁻¹·s⁻²
+	// kg·m⁻¹·s⁻² 4482 Pa
 }
 
 func ExampleQuantity_Format() {
@@ -65,6 +65,20 @@ func ExampleQuantity_Format() {
 	fmt.Printf("%v | %.2g | %#v | %12.3e|\n", rho, rho, rho, rho)
 	// Output:
 	// 1.225 kg·m⁻³ | 1.2 kg·m⁻³ | 1.225 kg m^-3 | 1.225e+00 kg·m⁻³|
+}
+
+// A force, a pressure and a power print with the SI special names N, Pa
+// and W, and read back to the same bits; energy keeps base units, since
+// torque shares its dimension. For other units, see the units package's
+// Printer.
+func ExampleQuantity_String() {
+	r := quantity.New(138434.1, quantity.Force)
+	fmt.Println(r, quantity.New(101325, quantity.Pressure), quantity.New(2.5e6, quantity.Power), quantity.New(12, quantity.Energy))
+	back, err := quantity.ParseQuantitySI(r.String())
+	fmt.Println(back == r, err)
+	// Output:
+	// 138434.1 N 101325 Pa 2.5e+06 W 12 kg·m²·s⁻²
+	// true <nil>
 }
 
 // The Reynolds number of three pipe-flow readings (invented), as the

@@ -7,17 +7,57 @@ import (
 	"unicode/utf8"
 )
 
-// String returns the value and the SI base-unit form of the dimension:
-// "1.225 kg·m⁻³". A dimensionless quantity is its number alone. Names of
-// derived units (Pa, N, W) are the units package's job.
+// String returns the value and its coherent SI unit: the special name
+// where the dimension is exactly that of one without ambiguity — N for a
+// force, Pa for a pressure or stress, W for a power ("138434.1 N",
+// "101325 Pa") — and the SI base-unit form otherwise ("1.225 kg·m⁻³").
+// A dimensionless quantity is its number alone. ParseQuantitySI, and so
+// UnmarshalText, reads every form String writes back to the same bits.
+// Other units, prefixes and the joule are the units package's job
+// (units.Printer).
 func (q Quantity) String() string {
-	return q.text(q.d.SIUnit(), 'g', -1)
+	return q.text(q.d.unitText(false), 'g', -1)
 }
 
-// ASCII returns the value and the ASCII base-unit form, for logs and CSV:
-// "1.225 kg m^-3".
+// ASCII returns the value and its unit in ASCII, for logs and CSV:
+// "1.225 kg m^-3", "101325 Pa".
 func (q Quantity) ASCII() string {
-	return q.text(q.d.SIUnitASCII(), 'g', -1)
+	return q.text(q.d.unitText(true), 'g', -1)
+}
+
+// namedUnits are the SI coherent units with special names that a
+// Quantity's text uses for exactly their dimension (SI Brochure, 9th ed.
+// (2019), Table 4): the newton, the pascal and the watt. The joule is
+// left out on purpose: energy shares its dimension with torque, whose
+// unit is the newton metre and never the joule (SI Brochure, 9th ed.,
+// Table 4, note on the unit of torque), so "12 J" could misname a torque.
+var namedUnits = [...]struct {
+	name string
+	d    Dim
+}{{"N", Force}, {"Pa", Pressure}, {"W", Power}}
+
+// unitText returns the unit a Quantity of dimension d is written in: a
+// special name from namedUnits, or the SI base-unit form.
+func (d Dim) unitText(ascii bool) string {
+	for _, n := range namedUnits {
+		if n.d == d {
+			return n.name
+		}
+	}
+	if ascii {
+		return d.SIUnitASCII()
+	}
+	return d.SIUnit()
+}
+
+// namedDim returns the dimension of a special unit name String writes.
+func namedDim(s string) (Dim, bool) {
+	for _, n := range namedUnits {
+		if n.name == s {
+			return n.d, true
+		}
+	}
+	return 0, false
 }
 
 func (q Quantity) text(unit string, verb byte, prec int) string {
@@ -30,7 +70,7 @@ func (q Quantity) text(unit string, verb byte, prec int) string {
 
 // Format implements fmt.Formatter. The verbs %v, %s, %g, %G, %e, %E and %f
 // format the number as strconv does, honouring precision (%.4g), followed
-// by the SI base-unit form; width pads the whole text, to the left unless
+// by the unit String writes (N, Pa, W, or the SI base-unit form); width pads the whole text, to the left unless
 // the '-' flag is given; the '#' flag selects the ASCII unit form and '+'
 // forces a sign. %v and %s without precision equal String.
 func (q Quantity) Format(f fmt.State, verb rune) {
@@ -51,10 +91,7 @@ func (q Quantity) Format(f fmt.State, verb rune) {
 			prec = 6
 		}
 	}
-	unit := q.d.SIUnit()
-	if f.Flag('#') {
-		unit = q.d.SIUnitASCII()
-	}
+	unit := q.d.unitText(f.Flag('#'))
 	s := q.text(unit, b, prec)
 	if f.Flag('+') && q.v >= 0 {
 		s = "+" + s

@@ -204,9 +204,9 @@ func AppendExponent(b []byte, e Rat, style Style) []byte {
 			n := e.Num()
 			if n < 0 {
 				b = append(b, "⁻"...)
-				n = -n
 			}
-			for _, c := range strconv.FormatInt(n, 10) {
+			// The magnitude as unsigned, exact for every int64.
+			for _, c := range strconv.FormatUint(uabs(n), 10) {
 				b = append(b, supDigits[c-'0']...)
 			}
 			return b

@@ -48,9 +48,9 @@ func TestMismatchMessages(t *testing.T) {
 		f    func()
 		want string
 	}{
-		{"add", func() { p.Add(v) }, "cannot add pressure, stress [kg·m⁻¹·s⁻²] and velocity [m·s⁻¹]"},
+		{"add", func() { p.Add(v) }, "cannot add pressure, stress [Pa] and velocity [m·s⁻¹]"},
 		{"sub", func() { v.Sub(L) }, "cannot subtract velocity [m·s⁻¹] and length [m]"},
-		{"cmp", func() { v.Cmp(p) }, "cannot compare velocity [m·s⁻¹] and pressure, stress [kg·m⁻¹·s⁻²]"},
+		{"cmp", func() { v.Cmp(p) }, "cannot compare velocity [m·s⁻¹] and pressure, stress [Pa]"},
 		{"exp", func() { q.Exp(L) }, "cannot take the exponential of length [m]: the argument must be dimensionless"},
 		{"log", func() { q.Log10(nu) }, "cannot take the logarithm of kinematic viscosity, thermal diffusivity, diffusion coefficient [m²·s⁻¹]: the argument must be dimensionless"},
 		{"sin", func() { q.Sin(L) }, "cannot take the sine of length [m]: the argument must be dimensionless"},

@@ -37,12 +37,24 @@ func (e *RatError) Is(target error) bool {
 // ratio (3/2 in λ_L^(3/2)). Its zero value is 0. It is comparable: two
 // Rats are equal exactly when == says so, since every Rat is kept in
 // lowest terms.
+//
+// A Rat's numerator and denominator lie within ±(2⁶³−1): math.MinInt64,
+// whose negation an int64 cannot hold, is never stored, so Neg and the
+// printers are exact for every Rat. Arithmetic whose result would need it
+// reports an error wrapping ErrRange.
 type Rat struct {
 	n, d int64 // d == 0 stands for 1, so that the zero value is 0
 }
 
-// RatInt returns the whole number n as a Rat.
-func RatInt(n int64) Rat { return Rat{n: n, d: 1}.canon() }
+// RatInt returns the whole number n as a Rat. The one int64 a Rat cannot
+// hold, math.MinInt64, comes back as −(2⁶³−1), the nearest Rat; code that
+// takes exponents from outside checks them with NewRat, which refuses it.
+func RatInt(n int64) Rat {
+	if n == math.MinInt64 {
+		n = -math.MaxInt64
+	}
+	return Rat{n: n, d: 1}.canon()
+}
 
 // NewRat returns n/d in lowest terms; a zero denominator is an error
 // wrapping ErrRange.
@@ -120,10 +132,10 @@ func (r Rat) Add(s Rat) (Rat, error) {
 	rd, sd := r.Den(), s.Den()
 	if rd == 1 && sd == 1 {
 		n, ok := exact.Add64(r.n, s.n)
-		if !ok {
+		if !ok || n == math.MinInt64 {
 			return Rat{}, overflow("add", r, s)
 		}
-		return Rat{n: n}, nil
+		return Rat{n: n}.canon(), nil
 	}
 	g := gcd(rd, sd)
 	a, ok1 := exact.Mul64(r.n, sd/g)
@@ -133,7 +145,7 @@ func (r Rat) Add(s Rat) (Rat, error) {
 		return Rat{}, overflow("add", r, s)
 	}
 	n, ok := exact.Add64(a, b)
-	if !ok {
+	if !ok || n == math.MinInt64 {
 		return Rat{}, overflow("add", r, s)
 	}
 	return norm(n, d), nil
@@ -149,7 +161,7 @@ func (r Rat) Mul(s Rat) (Rat, error) {
 	}
 	if r.Den() == 1 && s.Den() == 1 {
 		n, ok := exact.Mul64(r.n, s.n)
-		if !ok {
+		if !ok || n == math.MinInt64 {
 			return Rat{}, overflow("multiply", r, s)
 		}
 		return Rat{n: n}, nil
@@ -157,7 +169,7 @@ func (r Rat) Mul(s Rat) (Rat, error) {
 	g1, g2 := gcd(r.n, s.Den()), gcd(s.n, r.Den())
 	n, ok1 := exact.Mul64(r.n/g1, s.n/g2)
 	d, ok2 := exact.Mul64(r.Den()/g2, s.Den()/g1)
-	if !ok1 || !ok2 {
+	if !ok1 || !ok2 || n == math.MinInt64 || d == math.MinInt64 {
 		return Rat{}, overflow("multiply", r, s)
 	}
 	return norm(n, d), nil
@@ -172,7 +184,8 @@ func (r Rat) Div(s Rat) (Rat, error) {
 	return r.Mul(norm(s.Den(), s.n))
 }
 
-// Neg returns −r.
+// Neg returns −r. It is exact for every Rat, since no Rat holds
+// math.MinInt64.
 func (r Rat) Neg() Rat { return Rat{-r.n, r.d} }
 
 // IsZero reports whether r is 0.
@@ -302,8 +315,12 @@ func (d Dim) Exponent(b Base) Rat {
 // entries are coprime integers, writes the result to dst (which must have
 // v's length and may be v itself) and returns the factor used: {1/2,
 // −1/3, 0} becomes {3, −2, 0} with factor 6. It reports an error wrapping
-// ErrRange if the result does not fit in int64 fractions.
+// ErrRange if the result does not fit in int64 fractions, and a
+// *LengthError (ErrInvalid) if dst is shorter than v.
 func Coprime(dst, v []Rat) (Rat, error) {
+	if len(dst) < len(v) {
+		return Rat{}, &LengthError{Op: "scale to integers into", Left: len(dst), Right: len(v)}
+	}
 	l := int64(1)
 	for _, x := range v {
 		d := x.Den()
@@ -315,7 +332,7 @@ func Coprime(dst, v []Rat) (Rat, error) {
 	g := int64(0)
 	for i, x := range v {
 		n, ok := exact.Mul64(x.n, l/x.Den())
-		if !ok {
+		if !ok || n == math.MinInt64 {
 			return Rat{}, &RatError{Op: "scale to integers", Input: fmt.Sprint(v), Reason: "a scaled exponent does not fit in an int64"}
 		}
 		dst[i] = Rat{n: n}

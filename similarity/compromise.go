@@ -49,7 +49,7 @@ func (pl *Plan) Compromise(prototype map[string]quantity.Quantity, groups ...Pri
 	if pl.err != nil {
 		return nil, pl.err
 	}
-	work := &Plan{prob: pl.prob, vars: pl.vars, cons: append([]constraint(nil), pl.cons...), basis: pl.basis}
+	work := &Plan{prob: pl.prob, vars: pl.vars, cons: append([]constraint(nil), pl.cons...), basis: pl.basis, fluid: pl.fluid}
 	if _, ok, err := work.solveSubset(allIndices(len(work.cons))); err != nil {
 		return nil, err
 	} else if !ok {
@@ -58,7 +58,7 @@ func (pl *Plan) Compromise(prototype map[string]quantity.Quantity, groups ...Pri
 	c := &Compromise{}
 	var floating []Priority
 	for _, g := range groups {
-		try := &Plan{prob: work.prob, vars: work.vars, cons: append([]constraint(nil), work.cons...), basis: work.basis}
+		try := &Plan{prob: work.prob, vars: work.vars, cons: append([]constraint(nil), work.cons...), basis: work.basis, fluid: work.fluid}
 		try.Hold(g.Group)
 		if try.err != nil {
 			return nil, try.err

@@ -75,3 +75,44 @@ func gcd(a, b int64) int64 {
 	}
 	return a
 }
+
+// FloatingGroups returns the groups of the problem's default Pi set that
+// do not hold the measured (dependent) variable and that the solution does
+// not hold, each with its model/prototype ratio stated for the group the
+// trade names (Re, not 1/Re). Whichever Pi set is taken, the list is empty
+// exactly when every dimensionless group of the other variables is held.
+//
+// The ratio of the measured variable — DerivedRatio of its dimension, as
+// ToPrototype and ToModel use it — carries a reading faithfully only when
+// the list is empty: only then is the measured group equal on model and
+// prototype. With a group floating (Re in a Froude-scaled tank test) the
+// reading carries a scale effect the ratio does not include, and a report
+// prints no ratio for it. A problem without groups returns nil.
+func (s *Solution) FloatingGroups() []GroupRatio {
+	set, err := s.plan.prob.DefaultSet()
+	if err != nil {
+		return nil
+	}
+	dep := s.plan.prob.DependentIndex()
+	var out []GroupRatio
+	for _, g := range set.Groups() {
+		exps := g.Exponents()
+		if dep >= 0 && !exps[dep].IsZero() {
+			continue
+		}
+		if s.groupLaw(exps).IsOne() {
+			continue
+		}
+		out = append(out, s.groupRatio(g.Conventional()))
+	}
+	return out
+}
+
+// floatingNames returns "Re", "Re and We" for the floating groups.
+func floatingNames(fl []GroupRatio) string {
+	names := make([]string, len(fl))
+	for i, f := range fl {
+		names[i] = f.Symbol
+	}
+	return joinAnd(names)
+}

@@ -41,10 +41,21 @@ type Plan struct {
 	cons  []constraint
 	basis []string
 	err   error
+	// fluid holds the prototype's density and kinematic viscosity when
+	// FixFluids gave them, so that a conflict's remedies can say what
+	// they would ask of the model fluid.
+	fluid protoFluid
 }
 
-// NewPlan starts a plan for a problem.
+// protoFluid is the prototype fluid of a plan, in SI; zero when unknown.
+type protoFluid struct{ rho, nu float64 }
+
+// NewPlan starts a plan for a problem. A nil problem makes Solve report
+// an error matching quantity.ErrInvalid.
 func NewPlan(p *pigroups.Problem) *Plan {
+	if p == nil {
+		return &Plan{err: &PlanError{Err: ErrPlan, Reason: "plan: no problem (nil *pigroups.Problem)"}}
+	}
 	return &Plan{prob: p, vars: p.Variables()}
 }
 
@@ -131,6 +142,9 @@ func (pl *Plan) failErr(e *PlanError) *Plan {
 // The group must come from the plan's problem, or one with the same
 // variables in the same order.
 func (pl *Plan) Hold(g pigroups.Group) *Plan {
+	if pl.err != nil {
+		return pl // Solve reports the first mistake
+	}
 	if err := pl.prob.CheckGroup(g); err != nil {
 		return pl.fail(ErrForeignGroup, g.Name, "hold %s: %v", g, err)
 	}
@@ -142,14 +156,22 @@ func (pl *Plan) Hold(g pigroups.Group) *Plan {
 }
 
 // HoldExps holds the group ∏ xᵢ^eᵢ given as exponents by symbol, with a
-// label for messages ("the Froude number").
+// label for messages ("the Froude number"). An exponent a Rat cannot hold
+// (math.MinInt64) makes Solve report an error matching quantity.ErrRange.
 func (pl *Plan) HoldExps(label string, exps map[string]int) *Plan {
+	if pl.err != nil {
+		return pl // Solve reports the first mistake
+	}
 	m := make(map[string]quantity.Rat, len(exps))
 	for s, e := range exps {
 		if pl.index(s) < 0 {
 			return pl.failErr(unknownVar("hold "+label, s, pl.vars))
 		}
-		m[s] = quantity.RatInt(int64(e))
+		r, err := quantity.NewRat(int64(e), 1)
+		if err != nil {
+			return pl.failErr(&PlanError{Err: err, Symbol: label, Reason: fmt.Sprintf("hold %s: the exponent of %s: %v", label, s, err)})
+		}
+		m[s] = r
 	}
 	g, err := pl.prob.NewGroup(label, m)
 	if err != nil {
@@ -252,6 +274,9 @@ func (pl *Plan) Basis(symbols ...string) *Plan { pl.basis = slices.Clone(symbols
 // An empty symbol skips that property.
 func (pl *Plan) FixFluids(model, prototype fluids.State, density, viscosity, sound string) *Plan {
 	ratio := func(m, p quantity.Quantity) float64 { return m.Value() / p.Value() }
+	if rho, mu := prototype.Density.Value(), prototype.DynamicViscosity.Value(); rho > 0 && mu > 0 && !math.IsInf(rho, 0) && !math.IsInf(mu, 0) {
+		pl.fluid = protoFluid{rho: rho, nu: mu / rho}
+	}
 	if density != "" {
 		pl.Fix(density, ratio(model.Density, prototype.Density))
 	}

@@ -42,17 +42,61 @@ type Report struct {
 	cautions []string
 }
 
-// NewReport lays out a solved plan.
+// NewReport lays out a solved plan, or a conflict. After a conflict
+// there is no solution: NewReport(nil, ReportOptions{Conflict: ce}) lays
+// out the conflict, its remedies and the cautions, and with the
+// prototype's values in Prototype it says what each remedy would ask of
+// the model fluid. A nil solution with no conflict to report is an error
+// matching quantity.ErrInvalid.
+//
+// The measured (dependent) variable's ratio is printed only when every
+// group of the other variables is held; while one floats, the report
+// names it instead (see Solution.FloatingGroups), and for a floating group
+// the fluid enters through its kinematic viscosity alone (Re) it notes the
+// model kinematic viscosity that would hold it, beside water's, when the
+// prototype fluid is known (Prototype values of ρ and μ or ν, or the
+// plan's FixFluids).
 func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 	r := &Report{title: o.Title}
 	if r.title == "" {
 		r.title = "Model test plan"
 	}
+	if s == nil && o.Conflict == nil {
+		return nil, &PlanError{Err: ErrPlan, Reason: "report: no solution and no conflict to report"}
+	}
+	if s != nil {
+		if err := r.solution(s, o); err != nil {
+			return nil, err
+		}
+	}
+	if o.Conflict != nil {
+		r.notes = append(r.notes, "conflict: "+o.Conflict.Summary)
+		for _, rem := range o.Conflict.Remedies {
+			extra := rem.fluidNotes(o.Prototype)
+			if len(extra) > 0 {
+				// The prototype's fluid is known: its notes replace those
+				// that assumed water.
+				rem.Notes = rem.sol.gravityNotes()
+			}
+			r.notes = append(r.notes, "  "+rem.String())
+			for _, n := range extra {
+				r.notes = append(r.notes, "    "+n)
+			}
+		}
+	}
+	r.cautions = append([]string{Caution}, o.Cautions...)
+	return r, nil
+}
+
+// solution lays out the groups and variables of a solved plan.
+func (r *Report) solution(s *Solution, o ReportOptions) error {
 	var p units.Printer
 	p.Precision = 5
+	floating := s.FloatingGroups()
+	dep := s.plan.prob.DependentIndex()
 	for _, g := range o.Groups {
 		if err := s.plan.prob.CheckGroup(g); err != nil {
-			return nil, &PlanError{Err: ErrForeignGroup, Symbol: g.Name, Reason: "report: " + err.Error()}
+			return &PlanError{Err: ErrForeignGroup, Symbol: g.Name, Reason: "report: " + err.Error()}
 		}
 		label, exps := conventional(g)
 		if len(g.Matches) == 0 {
@@ -66,31 +110,42 @@ func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 		if !ratio.Law.IsOne() {
 			status = "floating, ratio " + ratio.String()
 		}
-		if g.Var == s.plan.prob.DependentIndex() && !ratio.Law.IsOne() {
-			status = "measured (equal on both sides when the others are held)"
+		measured := dep >= 0 && !exps[dep].IsZero()
+		if measured && !ratio.Law.IsOne() {
+			status = "measured (equal on both sides: every other group is held)"
+			if len(floating) > 0 {
+				status = "measured; not equal on both sides while " + floatingNames(floating) + " floats"
+			}
 		}
 		proto, model := "", ""
 		if v, ok := groupValue(s.plan.vars, exps, o.Prototype); ok {
 			proto = fmt.Sprintf("%.4g", v)
-			if !math.IsNaN(ratio.Value) {
+			if !math.IsNaN(ratio.Value) && !(measured && len(floating) > 0) {
 				model = fmt.Sprintf("%.4g", v*ratio.Value)
 			}
 		}
 		r.groups = append(r.groups, []string{label, s.plan.prob.FormatProduct(exps, quantity.Unicode), proto, model, status})
 	}
-	dep := s.plan.prob.DependentIndex()
 	for vi, v := range s.plan.vars {
-		ratio, _ := s.Ratio(v.Symbol)
+		ratio, err := s.Ratio(v.Symbol)
+		ratioText := ratio.String()
+		if err != nil {
+			ratioText = "out of the range of a float64"
+			ratio.Value = math.NaN()
+		}
 		if vi == dep && math.IsNaN(ratio.Value) {
-			// The measured variable scales as its dimension implies.
-			if d, err := s.DerivedRatio(v.Dim); err == nil {
-				ratio = d
+			// The measured variable scales as its dimension implies, but
+			// only when every other group is held.
+			if len(floating) > 0 {
+				ratioText = "none while " + floatingNames(floating) + " floats"
+			} else if d, err := s.DerivedRatio(v.Dim); err == nil {
+				ratio, ratioText = d, d.String()
 			}
 		}
 		proto, model := "", ""
 		if q, ok := o.Prototype[v.Symbol]; ok {
 			if err := q.CheckNamed(v.Symbol, v.Dim); err != nil {
-				return nil, err
+				return err
 			}
 			u := units.BaseUnit(v.Dim)
 			if du, ok := units.DerivedUnit(v.Dim); ok {
@@ -99,19 +154,19 @@ func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 			if name, ok := o.Units[v.Symbol]; ok {
 				var err error
 				if u, err = units.Parse(name); err != nil {
-					return nil, &PlanError{Err: err, Symbol: v.Symbol, Reason: fmt.Sprintf("report unit for %s: %v", v.Symbol, err)}
+					return &PlanError{Err: err, Symbol: v.Symbol, Reason: fmt.Sprintf("report unit for %s: %v", v.Symbol, err)}
 				}
 			}
 			ps, err := p.FormatIn(q, u)
 			if err != nil {
-				return nil, err
+				return err
 			}
 			proto = ps
 			if !math.IsNaN(ratio.Value) {
 				model, _ = p.FormatIn(q.Scale(ratio.Value), u)
 			}
 		}
-		r.vars = append(r.vars, []string{v.Symbol, proto, model, ratio.String()})
+		r.vars = append(r.vars, []string{v.Symbol, proto, model, ratioText})
 	}
 	var free []string
 	for _, f := range s.Free() {
@@ -122,6 +177,7 @@ func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 	if len(free) > 0 {
 		r.notes = append(r.notes, "underdetermined: free ratios "+strings.Join(free, ", ")+" have no value")
 	}
+	r.notes = append(r.notes, s.holdNotes(s.plan.prototypeFluid(o.Prototype))...)
 	if o.Compromise != nil {
 		for _, f := range o.Compromise.Floating {
 			if f.MinModel > 0 && !f.Meets {
@@ -129,14 +185,7 @@ func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 			}
 		}
 	}
-	if o.Conflict != nil {
-		r.notes = append(r.notes, "conflict: "+o.Conflict.Summary)
-		for _, rem := range o.Conflict.Remedies {
-			r.notes = append(r.notes, "  "+rem.String())
-		}
-	}
-	r.cautions = append([]string{Caution}, o.Cautions...)
-	return r, nil
+	return nil
 }
 
 // table writes rows under a header as aligned text, or as a Markdown
@@ -201,12 +250,14 @@ func (r *Report) write(md bool) string {
 		}
 		table(&sb, []string{"group", "definition", "prototype", "model", "status"}, r.groups, md, false)
 	}
-	if md {
-		sb.WriteString("\n### Variables\n\n")
-	} else {
-		sb.WriteString("\nVariables\n")
+	if len(r.vars) > 0 {
+		if md {
+			sb.WriteString("\n### Variables\n\n")
+		} else {
+			sb.WriteString("\nVariables\n")
+		}
+		table(&sb, []string{"variable", "prototype", "model", "ratio model/prototype"}, r.vars, md, false)
 	}
-	table(&sb, []string{"variable", "prototype", "model", "ratio model/prototype"}, r.vars, md, false)
 	if len(r.notes) > 0 {
 		sb.WriteString("\n")
 		for _, n := range r.notes {

@@ -80,7 +80,10 @@ func checkRatio(name string, r float64) error {
 // λ_F = λ_ρ·λ_L³, λ_P = λ_ρ·λ_L^(7/2), λ_Q = λ_L^(5/2). The Reynolds
 // number floats: with the same fluid its ratio is λ_L^(3/2).
 //
-// It takes Scales.Length and Scales.Density.
+// It takes Scales.Length and Scales.Density. The Solution's variables,
+// the symbols its Ratio takes, are V (velocity), L (length), g
+// (gravitational acceleration), rho (density) and mu (dynamic viscosity);
+// the basis of DerivedRatio is V, L, rho.
 func Froude(s Scales) (*Solution, error) {
 	if err := s.need("Froude", "Length", "Density"); err != nil {
 		return nil, err
@@ -100,6 +103,9 @@ func Froude(s Scales) (*Solution, error) {
 // Reynolds scaling: the Reynolds number VL/ν held for given length and
 // kinematic-viscosity ratios: λ_V = λ_ν/λ_L, λ_t = λ_L²/λ_ν.
 // It takes Scales.Length, Scales.KinematicViscosity and Scales.Density.
+// The Solution's variables, the symbols its Ratio takes, are V
+// (velocity), L (length), rho (density) and nu (kinematic viscosity); the
+// basis of DerivedRatio is V, L, rho.
 func Reynolds(s Scales) (*Solution, error) {
 	if err := s.need("Reynolds", "Length", "Density", "KinematicViscosity"); err != nil {
 		return nil, err
@@ -114,7 +120,10 @@ func Reynolds(s Scales) (*Solution, error) {
 
 // Mach scaling: the Mach number V/a held: λ_V = λ_a, for given length,
 // speed-of-sound and density ratios.
-// It takes Scales.Length, Scales.SpeedOfSound and Scales.Density.
+// It takes Scales.Length, Scales.SpeedOfSound and Scales.Density. The
+// Solution's variables, the symbols its Ratio takes, are V (velocity), a
+// (speed of sound), L (length) and rho (density); the basis of
+// DerivedRatio is V, L, rho.
 func Mach(s Scales) (*Solution, error) {
 	if err := s.need("Mach", "Length", "Density", "SpeedOfSound"); err != nil {
 		return nil, err
@@ -128,7 +137,10 @@ func Mach(s Scales) (*Solution, error) {
 }
 
 // Weber scaling: ρV²L/σ held: λ_V = (λ_σ/(λ_ρ·λ_L))^(1/2).
-// It takes Scales.Length, Scales.Density and Scales.SurfaceTension.
+// It takes Scales.Length, Scales.Density and Scales.SurfaceTension. The
+// Solution's variables, the symbols its Ratio takes, are V (velocity), L
+// (length), rho (density) and sigma (surface tension); the basis of
+// DerivedRatio is V, L, rho.
 func Weber(s Scales) (*Solution, error) {
 	if err := s.need("Weber", "Length", "Density", "SurfaceTension"); err != nil {
 		return nil, err
@@ -144,7 +156,10 @@ func Weber(s Scales) (*Solution, error) {
 // Euler scaling: Δp/(ρV²) held (also the cavitation number
 // (p − p_v)/(½ρV²) when p is the pressure above vapour pressure):
 // λ_p = λ_ρ·λ_V².
-// It takes Scales.Length, Scales.Density and Scales.Velocity.
+// It takes Scales.Length, Scales.Density and Scales.Velocity. The
+// Solution's variables, the symbols its Ratio takes, are p (the pressure
+// difference), V (velocity), L (length) and rho (density); the basis of
+// DerivedRatio is V, L, rho.
 func Euler(s Scales) (*Solution, error) {
 	if err := s.need("Euler", "Length", "Density", "Velocity"); err != nil {
 		return nil, err
@@ -158,12 +173,16 @@ func Euler(s Scales) (*Solution, error) {
 }
 
 // Cavitation is Euler scaling of the pressure above vapour pressure,
-// p − p_v, so that the cavitation number is held.
+// p − p_v, so that the cavitation number is held. It takes the Scales
+// Euler takes, and its Solution has Euler's variables: p (here p − p_v),
+// V, L and rho.
 func Cavitation(s Scales) (*Solution, error) { return Euler(s) }
 
 // Strouhal scaling: fL/V held: λ_f = λ_V/λ_L, for frequencies of vortex
 // shedding and other unsteady flow.
-// It takes Scales.Length and Scales.Velocity.
+// It takes Scales.Length and Scales.Velocity. The Solution's variables,
+// the symbols its Ratio takes, are f (frequency), V (velocity) and L
+// (length); the basis of DerivedRatio is V, L.
 func Strouhal(s Scales) (*Solution, error) {
 	if err := s.need("Strouhal", "Length", "Velocity"); err != nil {
 		return nil, err
@@ -193,7 +212,9 @@ type Affinity struct {
 // AffinityLaws returns the affinity-law ratios, model/prototype, for the
 // speed, diameter and density ratios Scales.Speed, Scales.Diameter and
 // Scales.Density, from the held coefficients solved exactly (Q/(ND³),
-// gH/(N²D²), P/(ρN³D⁵)). Efficiency is taken equal; see MoodyStepUp.
+// gH/(N²D²), P/(ρN³D⁵)), over the variables Q (volume flow rate), gH
+// (specific energy), P (power), N (rotational speed), D (diameter) and
+// rho (density). Efficiency is taken equal; see MoodyStepUp.
 func AffinityLaws(sc Scales) (Affinity, error) {
 	if err := sc.need("AffinityLaws", "Speed", "Diameter", "Density"); err != nil {
 		return Affinity{}, err
@@ -243,7 +264,10 @@ type Distorted struct {
 // the horizontal scale fixed separately. Manning's n follows from holding
 // friction slope equal to bed slope: n ∝ z^(2/3)·S^(1/2)/V.
 //
-// It takes Scales.Horizontal and Scales.Vertical.
+// It takes Scales.Horizontal and Scales.Vertical. The plan behind it
+// (Distorted.Solution) has the variables V (velocity), x (horizontal
+// length), z (vertical length), g (gravitational acceleration), t (time)
+// and Q (volume flow rate); the basis of DerivedRatio is V, x.
 func DistortedFroude(sc Scales) (Distorted, error) {
 	if err := sc.need("DistortedFroude", "Horizontal", "Vertical"); err != nil {
 		return Distorted{}, err

@@ -2,9 +2,14 @@ package similarity_test
 
 import (
 	"errors"
+	"go/ast"
+	"go/parser"
+	"go/token"
 	"math"
+	"slices"
 	"strings"
 	"testing"
+	"unicode"
 
 	"github.com/google/go-cmp/cmp"
 
@@ -434,5 +439,92 @@ func TestFluidStatesAndSetPoints(t *testing.T) {
 	}
 	if _, err := s.SetPoints(map[string]q.Quantity{"V": q.New(1.5, q.Length)}, nil); err == nil {
 		t.Error("a set point with the wrong dimension was accepted")
+	}
+}
+
+// TestRulesDocumentVariables checks that each rule of similitude names, in
+// its doc comment, every variable its Solution has, that Ratio reads each
+// of them, and that Ratio of a name that is not a variable returns the
+// zero Ratio beside an error matching quantity.ErrUnknown.
+func TestRulesDocumentVariables(t *testing.T) {
+	fset := token.NewFileSet()
+	f, err := parser.ParseFile(fset, "rules.go", nil, parser.ParseComments)
+	if err != nil {
+		t.Fatal(err)
+	}
+	docs := map[string]string{}
+	for _, d := range f.Decls {
+		if fd, ok := d.(*ast.FuncDecl); ok && fd.Recv == nil && fd.Doc != nil {
+			docs[fd.Name.Name] = fd.Doc.Text()
+		}
+	}
+	dist := func(sc similarity.Scales) (*similarity.Solution, error) {
+		d, err := similarity.DistortedFroude(sc)
+		return d.Solution(), err
+	}
+	cases := []struct {
+		rule  string
+		solve func(similarity.Scales) (*similarity.Solution, error)
+		sc    similarity.Scales
+		vars  []string
+	}{
+		{"Froude", similarity.Froude, similarity.Scales{Length: 0.04, Density: 1}, []string{"V", "L", "g", "rho", "mu"}},
+		{"Reynolds", similarity.Reynolds, similarity.Scales{Length: 0.04, Density: 1, KinematicViscosity: 1}, []string{"V", "L", "rho", "nu"}},
+		{"Mach", similarity.Mach, similarity.Scales{Length: 0.04, Density: 1, SpeedOfSound: 1}, []string{"V", "a", "L", "rho"}},
+		{"Weber", similarity.Weber, similarity.Scales{Length: 0.04, Density: 1, SurfaceTension: 1}, []string{"V", "L", "rho", "sigma"}},
+		{"Euler", similarity.Euler, similarity.Scales{Length: 0.04, Density: 1, Velocity: 0.2}, []string{"p", "V", "L", "rho"}},
+		{"Cavitation", similarity.Cavitation, similarity.Scales{Length: 0.04, Density: 1, Velocity: 0.2}, []string{"p", "V", "L", "rho"}},
+		{"Strouhal", similarity.Strouhal, similarity.Scales{Length: 0.04, Velocity: 0.2}, []string{"f", "V", "L"}},
+		{"DistortedFroude", dist, similarity.Scales{Horizontal: 0.005, Vertical: 0.02}, []string{"V", "x", "z", "g", "t", "Q"}},
+	}
+	for _, c := range cases {
+		t.Run(c.rule, func(t *testing.T) {
+			doc := strings.Join(strings.Fields(docs[c.rule]), " ")
+			s, err := c.solve(c.sc)
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, v := range c.vars {
+				_, list, _ := strings.Cut(doc, "variables")
+				words := strings.FieldsFunc(list, func(r rune) bool { return !unicode.IsLetter(r) && !unicode.IsDigit(r) && r != '_' })
+				if !slices.Contains(words, v) {
+					t.Errorf("the doc comment of %s does not name the variable %s: %q", c.rule, v, doc)
+				}
+				if r, err := s.Ratio(v); err != nil || r.Value <= 0 {
+					t.Errorf("%s: Ratio(%q) = %v, %v", c.rule, v, r, err)
+				}
+			}
+			r, err := s.Ratio("nope")
+			if !errors.Is(err, q.ErrUnknown) {
+				t.Errorf("%s: Ratio(\"nope\") error %v, want one matching ErrUnknown", c.rule, err)
+			}
+			if !cmp.Equal(r, similarity.Ratio{}) {
+				t.Errorf("%s: Ratio(\"nope\") = %+v beside its error, want the zero Ratio", c.rule, r)
+			}
+		})
+	}
+}
+
+// TestRatioOutOfRangeIsZero checks that a ratio whose value overflows is
+// returned as the zero Ratio beside its error, never as a value to use.
+func TestRatioOutOfRangeIsZero(t *testing.T) {
+	s, err := similarity.Froude(similarity.Scales{Length: 1e-300, Density: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, get := range []func() (similarity.Ratio, error){
+		func() (similarity.Ratio, error) { return s.Ratio("L") },
+		func() (similarity.Ratio, error) { return s.DerivedRatio(q.Power) },
+	} {
+		r, err := get()
+		if err == nil {
+			continue
+		}
+		if !errors.Is(err, q.ErrRange) || !cmp.Equal(r, similarity.Ratio{}) {
+			t.Errorf("got %+v, %v; want the zero Ratio and an ErrRange error", r, err)
+		}
+	}
+	if _, err := s.DerivedRatio(q.Power); err == nil {
+		t.Errorf("λ_P = λ_L^(7/2) for λ_L = 1e-300 did not overflow")
 	}
 }

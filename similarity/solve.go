@@ -193,15 +193,29 @@ func (r Ratio) String() string {
 	return fmt.Sprintf("%s = %.6g", r.Law, r.Value)
 }
 
-// Ratio returns the scale ratio of a variable.
+// Ratio returns the scale ratio of a variable, named by its symbol in the
+// plan's problem (the rules of similitude document theirs). A symbol that
+// is not a variable of the plan (an error matching quantity.ErrUnknown),
+// or a ratio whose value overflows or underflows a float64 (ErrRange),
+// returns the zero Ratio beside the error, never a ratio to use. A value
+// of NaN, with a nil error, means the ratio depends on free ratios with
+// no value (see Free).
 func (s *Solution) Ratio(symbol string) (Ratio, error) {
 	i := s.plan.index(symbol)
 	if i < 0 {
 		return Ratio{}, unknownVar("ratio", symbol, s.plan.vars)
 	}
 	l := lawOf(s.coef[i], s.params)
-	r := Ratio{Law: l, Value: l.Eval(s.values)}
-	return r, checkRatioValue("λ_"+symbol, r)
+	return checked("λ_"+symbol, Ratio{Law: l, Value: l.Eval(s.values)})
+}
+
+// checked returns r, or the zero Ratio and an error when its value
+// overflowed or underflowed.
+func checked(what string, r Ratio) (Ratio, error) {
+	if err := checkRatioValue(what, r); err != nil {
+		return Ratio{}, err
+	}
+	return r, nil
 }
 
 // checkRatioValue refuses a ratio whose value overflowed or underflowed
@@ -216,15 +230,15 @@ func checkRatioValue(what string, r Ratio) error {
 // GroupRatio returns the model/prototype ratio of a group, as oriented
 // (the ratio of L·g/V² for that group, of Re for Re): 1 for a held group,
 // a law of the free ratios for one that floats. A group of another
-// problem is an error wrapping ErrForeignGroup. NamedRatio states the
+// problem is an error wrapping ErrForeignGroup; on any error the Ratio is
+// the zero value. NamedRatio states the
 // ratio for the named group instead.
 func (s *Solution) GroupRatio(g pigroups.Group) (Ratio, error) {
 	if err := s.plan.prob.CheckGroup(g); err != nil {
 		return Ratio{}, &PlanError{Err: ErrForeignGroup, Symbol: g.Name, Reason: "group ratio: " + err.Error()}
 	}
 	l := s.groupLaw(g.Exponents())
-	r := Ratio{Law: l, Value: l.Eval(s.values)}
-	return r, checkRatioValue("the ratio of "+g.Name, r)
+	return checked("the ratio of "+g.Name, Ratio{Law: l, Value: l.Eval(s.values)})
 }
 
 // NamedRatio returns the model/prototype ratio of the named group g is
@@ -312,7 +326,7 @@ func (s *Solution) deriveBase() error {
 
 // DerivedRatio returns the scale ratio of any quantity of dimension d,
 // from the base-dimension ratios the basis variables fix: for power,
-// M L² T⁻³, λ_P = λ_M·λ_L²·λ_T⁻³.
+// M L² T⁻³, λ_P = λ_M·λ_L²·λ_T⁻³. On error the Ratio is the zero value.
 func (s *Solution) DerivedRatio(d quantity.Dim) (Ratio, error) {
 	if s.base == nil {
 		return Ratio{}, &PlanError{Reason: "no basis for derived ratios"}
@@ -331,8 +345,7 @@ func (s *Solution) DerivedRatio(d quantity.Dim) (Ratio, error) {
 		return Ratio{}, err
 	}
 	l := lawOf(c, s.params)
-	r := Ratio{Law: l, Value: l.Eval(s.values)}
-	return r, checkRatioValue("the ratio of "+quantity.Describe(d), r)
+	return checked("the ratio of "+quantity.Describe(d), Ratio{Law: l, Value: l.Eval(s.values)})
 }
 
 // BaseRatio returns the ratio of a base dimension (λ_L, λ_M, λ_T, …).

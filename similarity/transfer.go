@@ -25,7 +25,11 @@ func (s *Solution) ratioFor(d quantity.Dim) (float64, error) {
 }
 
 // ToPrototype carries a measured model quantity to full scale through the
-// ratio its dimension implies: q_p = q_m/λ.
+// ratio its dimension implies: q_p = q_m/λ. That is the whole answer only
+// when every group of the other variables is held; while one floats
+// (FloatingGroups is not empty) the result is the ratio's share alone,
+// without the scale effect of the floating group, and a caller that
+// prints it should say so.
 func (s *Solution) ToPrototype(q quantity.Quantity) (quantity.Quantity, error) {
 	r, err := s.ratioFor(q.Dim())
 	if err != nil {
@@ -52,9 +56,18 @@ func (s *Solution) ToModel(q quantity.Quantity) (quantity.Quantity, error) {
 	return scaled(q, r)
 }
 
+// nilDst is the error for a nil destination Series.
+func nilDst(op string) error {
+	return &PlanError{Err: ErrPlan, Reason: op + ": the destination Series is nil"}
+}
+
 // SeriesToPrototype carries a whole measured Series to full scale into
-// dst, with one ratio and no allocation once dst has grown.
+// dst, with one ratio and no allocation once dst has grown. A nil dst is
+// an error matching quantity.ErrInvalid.
 func (s *Solution) SeriesToPrototype(dst *quantity.Series, m quantity.Series) error {
+	if dst == nil {
+		return nilDst("series to prototype")
+	}
 	r, err := s.ratioFor(m.Dim())
 	if err != nil {
 		return err
@@ -63,8 +76,12 @@ func (s *Solution) SeriesToPrototype(dst *quantity.Series, m quantity.Series) er
 	return nil
 }
 
-// SeriesToModel carries a prototype Series to the model into dst.
+// SeriesToModel carries a prototype Series to the model into dst. A nil
+// dst is an error matching quantity.ErrInvalid.
 func (s *Solution) SeriesToModel(dst *quantity.Series, p quantity.Series) error {
+	if dst == nil {
+		return nilDst("series to model")
+	}
 	r, err := s.ratioFor(p.Dim())
 	if err != nil {
 		return err

@@ -251,8 +251,11 @@ func (e *ValueError) Error() string {
 func (e *ValueError) Unwrap() error { return e.Err }
 
 // Is reports whether target is quantity.ErrParse, the class of a
-// *ValueError.
-func (e *ValueError) Is(target error) bool { return target == quantity.ErrParse }
+// *ValueError whose number or layout is wrong. When the unit is what is
+// wrong (Err is set), the class is the unit's parse error's, matched
+// through Unwrap: ErrUnknown for an unknown symbol, ErrParse otherwise;
+// so every ValueError matches exactly one class.
+func (e *ValueError) Is(target error) bool { return e.Err == nil && target == quantity.ErrParse }
 
 // ParseValue reads a number and a unit expression, with or without a
 // space between them: "12.5 kn", "101.325 kPa", "20 °C", "3.2e-3 Pa·s",
@@ -316,7 +319,12 @@ func MustParseValue(s string) Value {
 }
 
 // ParseQuantity reads a number and a unit, as ParseValue does, and returns
-// the quantity in SI: "20 °C" is 293.15 K.
+// the quantity in SI: "20 °C" is 293.15 K. A temperature difference
+// ("20 Δ°C") comes back as 20 K, and a Quantity keeps no mark of being a
+// difference: where a temperature level (or a difference) is asked, read
+// the text into a Flag made by NewFlag, which checks the dimension and
+// refuses the other kind of temperature, or check ParseValue's unit with
+// Unit.IsInterval.
 func ParseQuantity(s string) (quantity.Quantity, error) {
 	v, err := ParseValue(s)
 	if err != nil {
@@ -330,15 +338,23 @@ func ParseQuantity(s string) (quantity.Quantity, error) {
 //
 //	speed := units.NewFlag(quantity.Velocity, units.Value{Number: 10, Unit: units.MustParse("kn")})
 //	flag.Var(speed, "speed", "towing speed")
+//
+// A Flag is checked however it is filled: Set (the flag package) and
+// UnmarshalText (JSON, configuration files) alike. The zero Flag requires
+// a dimensionless value; make one with NewFlag.
 type Flag struct {
 	Value
-	dim quantity.Dim
+	dim  quantity.Dim
+	diff bool // a temperature flag that takes differences
 }
 
 // NewFlag returns a Flag requiring dimension d, holding def. A
 // temperature flag takes levels (°C, °F, K) unless def is a difference
-// (Δ°C), when it takes differences; the other kind is refused.
-func NewFlag(d quantity.Dim, def Value) *Flag { return &Flag{Value: def, dim: d} }
+// (Δ°C), when it takes differences (Δ°C, Δ°F, K); the other kind is
+// refused. Kelvins, whose zero is absolute zero, serve both.
+func NewFlag(d quantity.Dim, def Value) *Flag {
+	return &Flag{Value: def, dim: d, diff: d == quantity.Temperature && def.Unit.IsInterval()}
+}
 
 // Set parses s and checks its dimension.
 func (f *Flag) Set(s string) error {
@@ -349,9 +365,9 @@ func (f *Flag) Set(s string) error {
 	if v.Unit.dim != f.dim {
 		return &quantity.DimensionError{Op: "check", Name: s, Left: v.Unit.dim, Right: f.dim, Binary: true}
 	}
-	if f.dim == quantity.Temperature && v.Unit.IsInterval() != f.Value.Unit.IsInterval() {
+	if f.dim == quantity.Temperature && (!f.diff && v.Unit.IsInterval() || f.diff && v.Unit.IsScale()) {
 		what, want := "a temperature difference", "a temperature level (°C, °F, K)"
-		if f.Value.Unit.IsInterval() {
+		if f.diff {
 			what, want = "a temperature level", "a temperature difference (Δ°C, Δ°F, K)"
 		}
 		return &ConversionError{From: v.Unit, To: f.Value.Unit, Err: ErrTemperature, Reason: fmt.Sprintf("%q is %s", s, what), Hint: "the flag takes " + want}
@@ -359,6 +375,14 @@ func (f *Flag) Set(s string) error {
 	f.Value = v
 	return nil
 }
+
+// UnmarshalText parses text and checks it as Set does, so that a Flag
+// filled from JSON, a configuration file or any other text is checked
+// exactly as one set on the command line: {"flow": "1.2 m/s"} into a
+// volume-flow Flag is refused, and so is "20 Δ°C" where a temperature
+// level is asked. (Without it, the UnmarshalText of the embedded Value
+// would fill the Flag unchecked.)
+func (f *Flag) UnmarshalText(b []byte) error { return f.Set(string(b)) }
 
 // Dim returns the dimension the flag requires.
 func (f *Flag) Dim() quantity.Dim { return f.dim }

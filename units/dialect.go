@@ -1,6 +1,7 @@
 package units
 
 import (
+	"errors"
 	"fmt"
 	"strings"
 	"unicode"
@@ -155,7 +156,15 @@ func ParseDialect(text string) (Unit, []Reading, error) {
 	strict := sb.String()
 	u, err := Parse(strict)
 	if err != nil {
-		return Unit{}, readings, &ParseError{Input: text, Err: ErrUnknownSymbol, Reason: fmt.Sprintf("not a unit even as a data sheet writes it (read as %q: %v)", strict, err)}
+		// The reading keeps the class of what is wrong with it: an
+		// unknown symbol stays unknown, a syntax or exponent error stays
+		// one (ErrParse), so a caller can tell them apart.
+		kind := ErrSyntax
+		var pe *ParseError
+		if errors.As(err, &pe) {
+			kind = pe.Err
+		}
+		return Unit{}, readings, &ParseError{Input: text, Err: kind, Reason: fmt.Sprintf("not a unit even as a data sheet writes it (read as %q: %v)", strict, err)}
 	}
 	return u, readings, nil
 }

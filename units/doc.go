@@ -50,8 +50,11 @@
 //
 // Parsing reads at most MaxExprLen (512) bytes and MaxDepth (16) nested
 // parentheses, in one pass; the caches hold at most 8192 expressions
-// each. Conversions and unit algebra return a finite result or an error
-// wrapping ErrRange.
+// each (past that, Parse still parses, without caching). Units of one
+// spelling share one interned record, held only while some unit uses it,
+// so a long-running program that reads ever new spellings keeps only
+// those in use and never meets a limit. Conversions and unit algebra
+// return a finite result or an error wrapping ErrRange.
 //
 // The built-in table is fixed and safe for concurrent readers. A Table
 // the caller owns adds definitions at run time (Define("TR",

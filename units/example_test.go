@@ -1,6 +1,7 @@
 package units_test
 
 import (
+	"encoding/json"
 	"errors"
 	"flag"
 	"fmt"
@@ -80,6 +81,26 @@ func ExampleNewFlag() {
 	// Output:
 	// <nil> 12 kn
 	// 12 kg: want velocity [m·s⁻¹], got mass [kg]
+}
+
+// A Flag in a configuration read from JSON is checked as on the command
+// line: a speed given for a flow, or a temperature difference given for
+// a level, is refused.
+func ExampleFlag_UnmarshalText() {
+	cfg := struct {
+		Flow *units.Flag `json:"flow"`
+		Tin  *units.Flag `json:"t_in"`
+	}{
+		Flow: units.NewFlag(quantity.VolumeFlowRate, units.MustParseValue("1 L/s")),
+		Tin:  units.NewFlag(quantity.Temperature, units.MustParseValue("20 °C")),
+	}
+	fmt.Println(json.Unmarshal([]byte(`{"flow": "1.2 m/s"}`), &cfg))
+	fmt.Println(json.Unmarshal([]byte(`{"t_in": "20 Δ°C"}`), &cfg))
+	fmt.Println(json.Unmarshal([]byte(`{"flow": "90 L/min", "t_in": "68 °F"}`), &cfg), cfg.Flow, cfg.Tin)
+	// Output:
+	// 1.2 m/s: want volume flow rate [m³·s⁻¹], got velocity [m·s⁻¹]
+	// units: cannot convert Δ°C (thermodynamic temperature [K]) to °C (thermodynamic temperature [K]): "20 Δ°C" is a temperature difference; the flag takes a temperature level (°C, °F, K)
+	// <nil> 90 L/min 68 °F
 }
 
 // A channel header written by an acquisition system is read with the

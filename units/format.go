@@ -158,9 +158,7 @@ func withPrefix(v float64, u Unit) (float64, Unit) {
 	t[0].sym = sym
 	nu := u
 	nu.factor = applyPrefix(u.factor/scale, exp)
-	if err := nu.setTerms(t); err != nil {
-		return v, u
-	}
+	nu.setTerms(t)
 	// Scale by an exact power of ten, multiplying for small values so
 	// that 2.5e-6 m prints as 2.5 µm rather than 2.5000000000000004 µm.
 	if exp < 0 {

@@ -136,5 +136,15 @@ func FuzzFlag(f *testing.F) {
 		if temp.Set(s) == nil && (temp.Value.Unit.Dim() != quantity.Temperature || temp.Value.Unit.IsInterval()) {
 			t.Fatalf("temperature flag took %q", s)
 		}
+		// Filled from text or JSON, the same checks hold.
+		flow := units.NewFlag(quantity.VolumeFlowRate, units.MustParseValue("1 L/s"))
+		if flow.UnmarshalText([]byte(s)) == nil && flow.Value.Unit.Dim() != quantity.VolumeFlowRate {
+			t.Fatalf("flow flag took %q from text", s)
+		}
+		js, _ := json.Marshal(s)
+		temp = units.NewFlag(quantity.Temperature, units.MustParseValue("15 °C"))
+		if json.Unmarshal(js, temp) == nil && (temp.Value.Unit.Dim() != quantity.Temperature || temp.Value.Unit.IsInterval()) {
+			t.Fatalf("temperature flag took %q from JSON", s)
+		}
 	})
 }

@@ -112,9 +112,7 @@ func (p *parser) unit(v val) (Unit, error) {
 		return Unit{}, p.fail(0, ErrExponent, err.Error())
 	}
 	u := Unit{dim: v.dim, factor: v.factor, angle: int8(v.angle), solid: int8(v.solid)}
-	if err := u.setTerms(t); err != nil {
-		return Unit{}, p.fail(0, ErrTooLong, err.Error())
-	}
+	u.setTerms(t)
 	// The temperature role follows from the final spelling, so that a unit
 	// and its spelling always agree: one symbol to the power one keeps its
 	// role (a bare °C is a scale, a bare Δ°C an interval); anything else

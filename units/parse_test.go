@@ -2,6 +2,8 @@ package units_test
 
 import (
 	"errors"
+	"fmt"
+	"runtime"
 	"strings"
 	"sync"
 	"testing"
@@ -249,5 +251,46 @@ func TestConcurrentParse(t *testing.T) {
 	wg.Wait()
 	if _, err := tab.Parse("TR"); err != nil {
 		t.Error(err)
+	}
+}
+
+// TestSpellingsDoNotAccumulate: a long-running program that reads ever
+// new unit spellings must not degrade. The spelling table holds only the
+// spellings of live units: after 20 000 distinct spellings are dropped,
+// collection takes the table back near where it was, so no cap is ever
+// reached and Parse keeps working. The wait for collection is bounded by
+// a count of collections, not by time.
+func TestSpellingsDoNotAccumulate(t *testing.T) {
+	const n = 20000
+	runtime.GC()
+	base := units.SpellingsInUse()
+	keep := make([]units.Unit, 0, n)
+	for i := range n {
+		u, err := units.ParseUncached(fmt.Sprintf("%d*m/s", i+2))
+		if err != nil {
+			t.Fatal(err)
+		}
+		keep = append(keep, u)
+	}
+	if got := units.SpellingsInUse(); got < n {
+		t.Fatalf("%d spellings in use with %d distinct live units (base %d)", got, n, base)
+	}
+	// Units of one spelling still share it, so == compares spellings.
+	again, err := units.ParseUncached("2*m/s")
+	if err != nil || again != keep[0] {
+		t.Errorf("two parses of 2*m/s differ under ==: %v, %v", again, keep[0])
+	}
+	keep, again = nil, units.Unit{}
+	got := units.SpellingsInUse()
+	for i := 0; i < 200 && got > base+n/10; i++ {
+		runtime.GC()
+		runtime.Gosched()
+		got = units.SpellingsInUse()
+	}
+	if got > base+n/10 {
+		t.Errorf("%d spellings still interned after their units were dropped (base %d): the table only grows", got, base)
+	}
+	if u, err := units.Parse("kg/s"); err != nil || u.Dim() != quantity.MassFlowRate {
+		t.Errorf("Parse(kg/s) after many spellings: %v, %v", u, err)
 	}
 }

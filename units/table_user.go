@@ -30,8 +30,12 @@ func (e *DefineError) Error() string {
 }
 
 // Is reports whether target is quantity.ErrInvalid, the class of a
-// *DefineError (its parse error, if any, is matched through Unwrap).
-func (e *DefineError) Is(target error) bool { return target == quantity.ErrInvalid }
+// *DefineError refused for its name or its meaning. A definition whose
+// expression does not parse has the class of its parse error instead
+// (quantity.ErrParse, or quantity.ErrUnknown for an unknown symbol),
+// matched through Unwrap, so that every DefineError matches exactly one
+// class.
+func (e *DefineError) Is(target error) bool { return e.Err == nil && target == quantity.ErrInvalid }
 
 // Unwrap returns ErrDefine and the parse error, if any.
 func (e *DefineError) Unwrap() []error {

@@ -3,8 +3,10 @@ package units
 import (
 	"fmt"
 	"math"
+	"runtime"
 	"sync"
 	"sync/atomic"
+	"weak"
 
 	"similis.dev/similis/quantity"
 )
@@ -56,34 +58,61 @@ type spelling struct {
 	uni   atomic.Pointer[string]
 }
 
-// maxSpellings bounds the interned spellings; past it, new spellings are
-// refused with a RangeError (a harness meets a few hundred).
-const maxSpellings = 1 << 20
-
+// spellings interns spelling records by their ASCII form, weakly: an
+// entry lives as long as some Unit (or the parse cache) holds its record,
+// and is removed once the record is collected. So == compares the
+// spellings of any two live Units, the table holds only the spellings in
+// use, and a long-running program that reads ever new spellings neither
+// grows without bound nor meets a cap that would make Parse fail.
 var (
-	spellings    sync.Map // ASCII spelling → *spelling
+	spellings    sync.Map // ASCII spelling → weak.Pointer[spelling]
 	spellingsLen atomic.Int64
 )
 
 // internSpelling returns the record of the spelling of t.
-func internSpelling(t terms) (*spelling, error) {
+func internSpelling(t terms) *spelling {
 	return internAs(t.spell(quantity.ASCII), t)
 }
 
-// internAs returns the record of the spelling ascii of t.
-func internAs(ascii string, t terms) (*spelling, error) {
-	if sp, ok := spellings.Load(ascii); ok {
-		return sp.(*spelling), nil
+// internAs returns the record of the spelling ascii of t, the one every
+// live Unit of that spelling shares.
+func internAs(ascii string, t terms) *spelling {
+	for {
+		old, ok := spellings.Load(ascii)
+		if ok {
+			if sp := old.(weak.Pointer[spelling]).Value(); sp != nil {
+				return sp
+			}
+		}
+		sp := &spelling{t: append(terms(nil), t...), ascii: ascii}
+		wp := weak.Make(sp)
+		if ok {
+			// The record was collected but its entry not yet removed.
+			if !spellings.CompareAndSwap(ascii, old, wp) {
+				continue
+			}
+		} else if _, loaded := spellings.LoadOrStore(ascii, wp); loaded {
+			continue
+		} else {
+			spellingsLen.Add(1)
+		}
+		runtime.AddCleanup(sp, forgetSpelling, spellingKey{ascii, wp})
+		return sp
 	}
-	if spellingsLen.Load() >= maxSpellings {
-		return nil, &RangeError{Op: "spell a unit", Reason: fmt.Sprintf("more than %d distinct unit spellings in use", maxSpellings)}
+}
+
+// spellingKey names an entry of spellings for its cleanup.
+type spellingKey struct {
+	ascii string
+	wp    weak.Pointer[spelling]
+}
+
+// forgetSpelling removes the entry of a collected record, unless a new
+// record has taken its place.
+func forgetSpelling(k spellingKey) {
+	if spellings.CompareAndDelete(k.ascii, k.wp) {
+		spellingsLen.Add(-1)
 	}
-	sp := &spelling{t: append(terms(nil), t...), ascii: ascii}
-	if old, loaded := spellings.LoadOrStore(ascii, sp); loaded {
-		return old.(*spelling), nil
-	}
-	spellingsLen.Add(1)
-	return sp, nil
 }
 
 // unicode returns the Unicode spelling, writing it the first time.
@@ -97,14 +126,7 @@ func (sp *spelling) unicode() string {
 }
 
 // setTerms gives u the spelling of t.
-func (u *Unit) setTerms(t terms) error {
-	sp, err := internSpelling(t)
-	if err != nil {
-		return err
-	}
-	u.sp = sp
-	return nil
-}
+func (u *Unit) setTerms(t terms) { u.sp = internSpelling(t) }
 
 // terms returns u's terms; the caller must not change them.
 func (u Unit) terms() terms {
@@ -116,21 +138,13 @@ func (u Unit) terms() terms {
 
 // symbolUnit returns u with the single symbol sym as its spelling.
 func symbolUnit(u Unit, sym string) Unit {
-	sp, err := internAs(sym, terms{{sym: sym, num: 1, den: 1}})
-	if err != nil {
-		panic(err) // the built-in table and user tables are bounded far below
-	}
-	u.sp = sp
+	u.sp = internAs(sym, terms{{sym: sym, num: 1, den: 1}})
 	return u
 }
 
 // one is the unit one, for dimensionless numbers.
 var one = func() Unit {
-	sp, err := internAs("1", nil)
-	if err != nil {
-		panic(err)
-	}
-	return Unit{factor: 1, sp: sp}
+	return Unit{factor: 1, sp: internAs("1", nil)}
 }()
 
 // One returns the unit one, for dimensionless numbers. The zero Unit is
@@ -225,12 +239,25 @@ func (u Unit) Div(o Unit) (Unit, error) {
 	return newUnit("divide units", Unit{dim: d, factor: u.factor / o.factor, angle: u.angle - o.angle, solid: u.solid - o.solid}, t, u, o)
 }
 
-// Pow returns u raised to num/den. Angles must keep whole exponents.
+// maxPowArg bounds the exponent Pow takes, so that its arithmetic cannot
+// overflow; any larger exponent would take every symbol outside
+// ±MaxExpAbs anyway.
+const maxPowArg = 1 << 24
+
+// Pow returns u raised to num/den. Angles must keep whole exponents. The
+// result is one Parse reads back from its String: a power that takes a
+// symbol's exponent outside what Parse accepts (±MaxExpAbs, denominator at
+// most MaxExpDen) is refused with a *RangeError, as Parse refuses
+// "%^62".
 func (u Unit) Pow(num, den int) (Unit, error) {
 	u = u.norm()
 	if den <= 0 {
 		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent %d/%d has a denominator that is not positive", num, den)}
 	}
+	if num > maxPowArg || num < -maxPowArg || den > maxPowArg {
+		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent %d/%d is out of range (a unit's exponents lie within ±%d)", num, den, MaxExpAbs)}
+	}
+	num, den = reduce(num, den)
 	d, err := u.dim.Pow(num, den)
 	if err != nil {
 		return Unit{}, err
@@ -242,6 +269,9 @@ func (u Unit) Pow(num, den int) (Unit, error) {
 	var bt [16]term
 	t := u.terms().powTo(bt[:0], num, den)
 	for _, x := range t {
+		if !x.number && (x.num > MaxExpAbs*x.den || x.num < -MaxExpAbs*x.den || x.den > MaxExpDen) {
+			return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s, outside ±%d with denominator at most %d", x.sym, ratText(x.num, x.den), MaxExpAbs, MaxExpDen)}
+		}
 		if !x.number && 6%x.den != 0 {
 			return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s; a unit's exponents must be whole sixths, as its dimension's are", x.sym, ratText(x.num, x.den))}
 		}
@@ -255,9 +285,7 @@ func (u Unit) Pow(num, den int) (Unit, error) {
 // newUnit completes r, the result of unit algebra, with its terms t, its
 // spelling and temperature role, and checks its factor.
 func newUnit(op string, r Unit, t terms, operands ...Unit) (Unit, error) {
-	if err := r.setTerms(t); err != nil {
-		return Unit{}, err
-	}
+	r.setTerms(t)
 	return checkFactor(op, withRole(r, t, operands...))
 }
 
@@ -308,7 +336,7 @@ func (u Unit) Of(v float64) quantity.Quantity {
 func (u Unit) ValueOf(q quantity.Quantity) (float64, error) {
 	u = u.norm()
 	if q.Dim() != u.dim {
-		return 0, &ConversionError{FromDim: q.Dim(), To: u, Reason: "dimensions differ"}
+		return 0, &ConversionError{FromDim: q.Dim(), To: u, Err: ErrIncompatible, Reason: "the dimensions differ"}
 	}
 	return (q.Value() - u.offset) / u.factor, nil
 }

@@ -9,6 +9,8 @@ import (
 	"strings"
 	"testing"
 
+	"pgregory.net/rapid"
+
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
 )
@@ -116,7 +118,7 @@ func TestConversionErrors(t *testing.T) {
 		err      error
 		text     string
 	}{
-		{"psi", "m/s", units.ErrIncompatible, "cannot convert psi (pressure, stress [kg·m⁻¹·s⁻²]) to m/s (velocity [m·s⁻¹])"},
+		{"psi", "m/s", units.ErrIncompatible, "cannot convert psi (pressure, stress [Pa]) to m/s (velocity [m·s⁻¹])"},
 		{"rpm", "Hz", units.ErrAngle, "write the target with its angle (rev/s or rad/s"},
 		{"Hz", "rpm", units.ErrAngle, "write the source with its angle"},
 		{"rad", "1", units.ErrAngle, "plane angle"},
@@ -293,6 +295,141 @@ func TestConstants(t *testing.T) {
 		}
 		if d := math.Abs(c.q.Value()-c.want) / c.want; d > c.rel {
 			t.Errorf("%s = %v, want %v", c.name, c.q.Value(), c.want)
+		}
+	}
+}
+
+// TestFlagCheckedFromText checks that a Flag is checked however it is
+// filled — flag.Set, UnmarshalText, JSON — against its dimension, and
+// that a temperature difference given where a level is asked is refused
+// rather than read as kelvins, keeping the value it held.
+func TestFlagCheckedFromText(t *testing.T) {
+	type config struct {
+		Flow *units.Flag `json:"flow"`
+		Tin  *units.Flag `json:"t_in"`
+	}
+	newConfig := func() config {
+		return config{
+			Flow: units.NewFlag(quantity.VolumeFlowRate, units.MustParseValue("1 L/s")),
+			Tin:  units.NewFlag(quantity.Temperature, units.MustParseValue("20 °C")),
+		}
+	}
+	cases := []struct {
+		name, json string
+		class      error // nil: accepted
+	}{
+		{"flow in m/s", `{"flow": "1.2 m/s"}`, quantity.ErrDimension},
+		{"flow unknown unit", `{"flow": "1.2 furlongs"}`, quantity.ErrUnknown},
+		{"flow in L/min", `{"flow": "90 L/min"}`, nil},
+		{"temperature difference for a level", `{"t_in": "20 Δ°C"}`, quantity.ErrInvalid},
+		{"temperature level", `{"t_in": "68 °F"}`, nil},
+		{"temperature in kelvin", `{"t_in": "293.15 K"}`, nil},
+	}
+	for _, c := range cases {
+		cfg := newConfig()
+		before := *cfg.Flow
+		err := json.Unmarshal([]byte(c.json), &cfg)
+		switch {
+		case c.class == nil && err != nil:
+			t.Errorf("%s: refused: %v", c.name, err)
+		case c.class != nil && !errors.Is(err, c.class):
+			t.Errorf("%s: error %v, want one matching %v (flow now %v, t_in %v)", c.name, err, c.class, cfg.Flow.Value, cfg.Tin.Value)
+		case c.class != nil && cfg.Flow.Value != before.Value:
+			t.Errorf("%s: the refused text changed the flag to %v", c.name, cfg.Flow.Value)
+		}
+	}
+	// The same through UnmarshalText and Set directly.
+	tin := units.NewFlag(quantity.Temperature, units.MustParseValue("20 °C"))
+	for _, fill := range []func(string) error{tin.Set, func(s string) error { return tin.UnmarshalText([]byte(s)) }} {
+		if err := fill("20 Δ°C"); !errors.Is(err, quantity.ErrInvalid) || tin.Quantity().Value() != 293.15 {
+			t.Errorf("20 Δ°C for a level: %v; flag now %v", err, tin.Value)
+		}
+	}
+	// A flag that takes differences refuses a level, and takes kelvins
+	// (whose zero is absolute zero) without turning into a level flag.
+	dt := units.NewFlag(quantity.Temperature, units.MustParseValue("5 Δ°C"))
+	if err := dt.UnmarshalText([]byte("20 °C")); !errors.Is(err, quantity.ErrInvalid) {
+		t.Errorf("20 °C for a difference: %v", err)
+	}
+	if err := dt.Set("3 K"); err != nil {
+		t.Errorf("3 K for a difference: %v", err)
+	}
+	if err := dt.Set("20 °F"); !errors.Is(err, quantity.ErrInvalid) {
+		t.Errorf("20 °F for a difference after 3 K: %v", err)
+	}
+	if err := dt.Set("4 Δ°F"); err != nil {
+		t.Errorf("4 Δ°F for a difference after 3 K: %v", err)
+	}
+}
+
+// TestPowRoundTrip checks that whatever Unit.Pow returns, Parse reads its
+// String back to the same unit and spelling, and that a power Parse would
+// refuse ("%^62") is refused by Pow, as a RangeError.
+func TestPowRoundTrip(t *testing.T) {
+	if u, err := units.MustParse("%").Pow(62, 1); !errors.Is(err, quantity.ErrRange) {
+		t.Errorf("%%.Pow(62) = %v, %v; want an ErrRange error (Parse refuses %%^62)", u, err)
+	}
+	for _, c := range []struct{ num, den int }{{math.MinInt, 1}, {math.MaxInt, 1}, {1, math.MaxInt}, {-1 << 40, 3}} {
+		if u, err := units.MustParse("m").Pow(c.num, c.den); err == nil {
+			t.Errorf("m.Pow(%d, %d) = %v", c.num, c.den, u)
+		}
+	}
+	spellings := []string{"%", "m", "kg/m^3", "rpm", "Pa*s", "W/(m*K)", "m^(1/2)", "in^(1/3)", "degC", "ΔdegC", "ppm", "N*m", "km/h", "1000*m", "s^-1", "ft^(1/6)"}
+	rapid.Check(t, func(t *rapid.T) {
+		u := units.MustParse(rapid.SampledFrom(spellings).Draw(t, "unit"))
+		num := rapid.IntRange(-400, 400).Draw(t, "num")
+		den := rapid.IntRange(1, 30).Draw(t, "den")
+		p, err := u.Pow(num, den)
+		if err != nil {
+			return
+		}
+		back, err := units.Parse(p.String())
+		if err != nil {
+			t.Fatalf("(%v).Pow(%d, %d) = %q, which Parse refuses: %v", u, num, den, p, err)
+		}
+		if !back.Equal(p) || back.String() != p.String() {
+			t.Fatalf("(%v).Pow(%d, %d) = %q (factor %v), reads back as %q (factor %v)", u, num, den, p, p.Factor(), back, back.Factor())
+		}
+		// Products and quotients with another unit read back too.
+		o := units.MustParse(rapid.SampledFrom(spellings).Draw(t, "other"))
+		for _, op := range []func(units.Unit) (units.Unit, error){p.Mul, p.Div} {
+			r, err := op(o)
+			if err != nil {
+				continue
+			}
+			back, err := units.Parse(r.String())
+			if err != nil || !back.Equal(r) || back.String() != r.String() {
+				t.Fatalf("%q with %q gives %q, which reads back as %v, %v", p, o, r, back, err)
+			}
+		}
+	})
+}
+
+// TestParseDialectErrorClass checks that a data-sheet reading that fails
+// keeps the class of what is wrong: a syntax or exponent error is
+// ErrParse, an unknown symbol ErrUnknown, never both.
+func TestParseDialectErrorClass(t *testing.T) {
+	cases := []struct {
+		text  string
+		class error
+	}{
+		{"m^^2", quantity.ErrParse},
+		{"hr^99", quantity.ErrParse},
+		{"ft3/(hr", quantity.ErrParse},
+		{"furlongs/hr", quantity.ErrUnknown},
+		{"GPM*", quantity.ErrParse},
+	}
+	for _, c := range cases {
+		_, _, err := units.ParseDialect(c.text)
+		var pe *units.ParseError
+		if !errors.Is(err, c.class) || !errors.As(err, &pe) {
+			t.Errorf("ParseDialect(%q): %v, want a *ParseError matching %v", c.text, err, c.class)
+			continue
+		}
+		for _, other := range []error{quantity.ErrParse, quantity.ErrUnknown, quantity.ErrRange, quantity.ErrInvalid, quantity.ErrDimension} {
+			if other != c.class && errors.Is(err, other) {
+				t.Errorf("ParseDialect(%q): %v also matches %v", c.text, err, other)
+			}
 		}
 	}
 }
