@@ -81,7 +81,11 @@ func TestGradientAgainstDifferences(t *testing.T) {
 				av := a[0]
 				b, _ := ev.Row(xm, make([]float64, 1))
 				fd2 := (av - b[0]) / (h / 5)
-				if math.Abs(fd2-grad[0][j]) > 1e-4*(1+math.Abs(fd2)) && math.Abs(fd2-fd) < 1e-6*(1+math.Abs(fd)) {
+				// A point exactly on a kink: the one-sided differences
+				// disagree, and the central one is their mean.
+				fwd, bwd := (fpv-out[0])/h, (out[0]-fm[0])/h
+				onKink := math.Abs(fwd-bwd) > 1e-4*(1+math.Abs(fwd))
+				if !onKink && math.Abs(fd2-grad[0][j]) > 1e-4*(1+math.Abs(fd2)) && math.Abs(fd2-fd) < 1e-6*(1+math.Abs(fd)) {
 					t.Fatalf("%q at %v: ∂/∂x%d = %v, central difference %v", src, x, j, grad[0][j], fd)
 				}
 			}
