@@ -1,6 +1,7 @@
 package similis_test
 
 import (
+	"fmt"
 	"go/ast"
 	"go/parser"
 	"go/token"
@@ -16,21 +17,41 @@ const module = "similis.dev/similis"
 
 // layer gives each package directory its place: a package may import
 // only packages of a lower layer (or its own subpackages' layer), and
-// internal/ packages import none of the module.
+// internal/ packages import none of the module. Within similarity, the
+// fluids package lies below the similitude core, and the trade packages
+// (trades) above it, side by side: a trade imports the core and fluids,
+// never another trade, and the core imports no trade.
 func layer(dir string) int {
 	switch {
 	case dir == "internal" || strings.HasPrefix(dir, "internal/"):
 		return 0
 	case dir == "quantity" || strings.HasPrefix(dir, "quantity/"):
-		return 1
+		return 10
 	case dir == "units" || strings.HasPrefix(dir, "units/"):
-		return 2
+		return 20
 	case dir == "pigroups" || strings.HasPrefix(dir, "pigroups/"):
-		return 3
-	case dir == "similarity" || strings.HasPrefix(dir, "similarity/"):
-		return 4
+		return 30
+	case dir == "similarity/fluids" || strings.HasPrefix(dir, "similarity/fluids/"):
+		return 40
+	case dir == "similarity":
+		return 41
+	case tradeOf(dir) != "":
+		return 42
 	}
-	return 5 // examples and the root package
+	return 50 // examples and the root package
+}
+
+// trades are the trade packages over the similitude core.
+var trades = []string{"similarity/ship", "similarity/tunnel", "similarity/turbo", "similarity/hydraulic"}
+
+// tradeOf returns the trade package dir lies in, or "".
+func tradeOf(dir string) string {
+	for _, t := range trades {
+		if dir == t || strings.HasPrefix(dir, t+"/") {
+			return t
+		}
+	}
+	return ""
 }
 
 // examplesShared reports whether dir is an example command importing the
@@ -88,6 +109,37 @@ func TestLayering(t *testing.T) {
 	}
 }
 
+// TestTradesIndependent fails if a trade package (its code or its tests)
+// imports another trade, or the similitude core (code or tests) imports a
+// trade: each trade stands on the core and fluids alone.
+func TestTradesIndependent(t *testing.T) {
+	fset := token.NewFileSet()
+	err := filepath.WalkDir("similarity", func(path string, d fs.DirEntry, err error) error {
+		if err != nil || d.IsDir() || !strings.HasSuffix(path, ".go") {
+			return err
+		}
+		dir := filepath.ToSlash(filepath.Dir(path))
+		f, err := parser.ParseFile(fset, path, nil, parser.ImportsOnly)
+		if err != nil {
+			return err
+		}
+		for _, imp := range f.Imports {
+			ip, _ := strconv.Unquote(imp.Path.Value)
+			target := tradeOf(strings.TrimPrefix(ip, module+"/"))
+			if !strings.HasPrefix(ip, module+"/") || target == "" {
+				continue
+			}
+			if own := tradeOf(dir); own == "" && !strings.HasPrefix(dir, "similarity/fluids") || own != "" && own != target {
+				t.Errorf("%s imports %s: a trade package is imported only from outside the similarity tree", path, ip)
+			}
+		}
+		return nil
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+}
+
 // TestNoInternalTypesExported fails if a type of an internal package
 // appears in an exported declaration outside internal/: an importer could
 // not name it.
@@ -102,73 +154,128 @@ func TestNoInternalTypesExported(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			var internal []string // local names of internal imports
-			for _, imp := range f.Imports {
-				ip, _ := strconv.Unquote(imp.Path.Value)
-				if strings.Contains(ip, "/internal/") {
-					name := ip[strings.LastIndex(ip, "/")+1:]
-					if imp.Name != nil {
-						name = imp.Name.Name
-					}
-					internal = append(internal, name)
+			for _, e := range internalExposed(fset, f) {
+				t.Error(e)
+			}
+		}
+	}
+}
+
+// TestInternalExposedCatches checks the checker itself on declarations
+// that expose an internal type: a function result, a struct field (also
+// of a nested struct), a typed and an untyped exported variable, and an
+// exported constant; and that unexported ones pass.
+func TestInternalExposedCatches(t *testing.T) {
+	const src = `package p
+import "similis.dev/similis/internal/dual"
+func F() dual.Number { return dual.Number{} }
+type T struct{ A dual.Number; B struct{ C dual.Number } }
+var V dual.Number
+var W = dual.Number{}
+var X, Y = 1, dual.Number{}
+const K = dual.Max
+type u struct{ A dual.Number }
+var w = dual.Number{}
+func g() dual.Number { return dual.Number{} }
+`
+	fset := token.NewFileSet()
+	f, err := parser.ParseFile(fset, "p.go", src, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := internalExposed(fset, f)
+	var names []string
+	for _, e := range got {
+		names = append(names, strings.Fields(e)[1])
+	}
+	want := []string{"F", "T.A", "T.B", "V", "W", "Y", "K"}
+	if !slices.Equal(names, want) {
+		t.Errorf("caught %q, want %q:\n%s", names, want, strings.Join(got, "\n"))
+	}
+}
+
+// internalExposed returns, for each exported declaration of f that uses a
+// type or value of an internal package, a line naming it: exported
+// functions and methods of exported types (parameters and results),
+// exported types and their exported fields, and exported variables and
+// constants, by their type or, when it is not written, their value.
+func internalExposed(fset *token.FileSet, f *ast.File) []string {
+	var internal []string // local names of internal imports
+	for _, imp := range f.Imports {
+		ip, _ := strconv.Unquote(imp.Path.Value)
+		if strings.Contains(ip, "/internal/") {
+			name := ip[strings.LastIndex(ip, "/")+1:]
+			if imp.Name != nil {
+				name = imp.Name.Name
+			}
+			internal = append(internal, name)
+		}
+	}
+	if len(internal) == 0 {
+		return nil
+	}
+	var out []string
+	check := func(what string, n ast.Node) {
+		if n == nil {
+			return
+		}
+		found := ""
+		ast.Inspect(n, func(x ast.Node) bool {
+			if sel, ok := x.(*ast.SelectorExpr); ok && found == "" {
+				if id, ok := sel.X.(*ast.Ident); ok && slices.Contains(internal, id.Name) {
+					found = fmt.Sprintf("%s: %s uses the internal %s.%s", fset.Position(sel.Pos()), what, id.Name, sel.Sel.Name)
 				}
 			}
-			if len(internal) == 0 {
+			return found == ""
+		})
+		if found != "" {
+			out = append(out, found)
+		}
+	}
+	for _, decl := range f.Decls {
+		switch d := decl.(type) {
+		case *ast.FuncDecl:
+			if !d.Name.IsExported() || d.Recv != nil && !exportedRecv(d.Recv) {
 				continue
 			}
-			check := func(what string, n ast.Node) {
-				if n == nil {
-					return
-				}
-				ast.Inspect(n, func(x ast.Node) bool {
-					if sel, ok := x.(*ast.SelectorExpr); ok {
-						if id, ok := sel.X.(*ast.Ident); ok && slices.Contains(internal, id.Name) {
-							t.Errorf("%s: %s uses the internal type %s.%s", fset.Position(sel.Pos()), what, id.Name, sel.Sel.Name)
-						}
-					}
-					return true
-				})
-			}
-			for _, decl := range f.Decls {
-				switch d := decl.(type) {
-				case *ast.FuncDecl:
-					if !d.Name.IsExported() || d.Recv != nil && !exportedRecv(d.Recv) {
+			check(d.Name.Name, d.Type)
+		case *ast.GenDecl:
+			for _, spec := range d.Specs {
+				switch s := spec.(type) {
+				case *ast.TypeSpec:
+					if !s.Name.IsExported() {
 						continue
 					}
-					check(d.Name.Name, d.Type)
-				case *ast.GenDecl:
-					for _, spec := range d.Specs {
-						switch s := spec.(type) {
-						case *ast.TypeSpec:
-							if !s.Name.IsExported() {
-								continue
-							}
-							if st, ok := s.Type.(*ast.StructType); ok {
-								for _, fld := range st.Fields.List {
-									for _, n := range fld.Names {
-										if n.IsExported() {
-											check(s.Name.Name+"."+n.Name, fld.Type)
-										}
-									}
-									if len(fld.Names) == 0 {
-										check(s.Name.Name+" (embedded)", fld.Type)
-									}
-								}
-								continue
-							}
-							check(s.Name.Name, s.Type)
-						case *ast.ValueSpec:
-							for _, n := range s.Names {
+					if st, ok := s.Type.(*ast.StructType); ok {
+						for _, fld := range st.Fields.List {
+							for _, n := range fld.Names {
 								if n.IsExported() {
-									check(n.Name, s.Type)
+									check(s.Name.Name+"."+n.Name, fld.Type)
 								}
 							}
+							if len(fld.Names) == 0 {
+								check(s.Name.Name+"(embedded)", fld.Type)
+							}
+						}
+						continue
+					}
+					check(s.Name.Name, s.Type)
+				case *ast.ValueSpec:
+					for i, n := range s.Names {
+						if !n.IsExported() {
+							continue
+						}
+						if s.Type != nil {
+							check(n.Name, s.Type)
+						} else if i < len(s.Values) {
+							check(n.Name, s.Values[i])
 						}
 					}
 				}
 			}
 		}
 	}
+	return out
 }
 
 func exportedRecv(fl *ast.FieldList) bool {

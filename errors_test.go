@@ -11,6 +11,7 @@ import (
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/similarity/ship"
 	"similis.dev/similis/units"
 )
 
@@ -56,7 +57,7 @@ func TestErrorVocabulary(t *testing.T) {
 		{"Plan unknown", one(similarity.NewPlan(p).Fix("L", 0.1).Solve()), "unknown"},
 		{"Plan conflict", one(similarity.NewPlan(p).HoldExps("Re", map[string]int{"ρ": 1, "V": 1, "D": 1, "μ": -1}).
 			Same("the same fluid", "ρ", "μ").Fix("V", 0.5).Fix("D", 0.5).Solve()), "conflict"},
-		{"ExtrapolateHull", one(similarity.ExtrapolateHull(similarity.HullTest{})), "invalid"},
+		{"ExtrapolateHull", one(ship.ExtrapolateHull(ship.HullTest{})), "invalid"},
 		{"Water", one(fluids.FreshWater().AtCelsius(99)), "range"},
 		{"StandardAtmosphere", one(fluids.StandardAtmosphere(quantity.New(1, quantity.Time), fluids.Geometric)), "dimension"},
 	}

@@ -52,14 +52,6 @@ func ExamplePlan_Solve() {
 	// without a length scale of 1:25: λ_L to 1
 }
 
-// Pump affinity laws for a 20 % speed-up and a doubled impeller.
-func ExampleAffinityLaws() {
-	a, _ := similarity.AffinityLaws(similarity.Scales{Speed: 1.2, Diameter: 2, Density: 1})
-	fmt.Printf("flow ×%.2f, head ×%.2f, power ×%.2f\n", a.Flow, a.Head, a.Power)
-	// Output:
-	// flow ×9.60, head ×5.76, power ×55.30
-}
-
 // Carry a measured model force to full scale.
 func ExampleSolution_ToPrototype() {
 	s, _ := similarity.Froude(similarity.Scales{Length: 1.0 / 30, Density: 1})

@@ -100,21 +100,6 @@ func FuzzRules(f *testing.F) {
 		solved("Euler", s, err)
 		s, err = similarity.Strouhal(similarity.Scales{Length: a, Velocity: b})
 		solved("Strouhal", s, err)
-		if af, err := similarity.AffinityLaws(similarity.Scales{Speed: a, Diameter: b, Density: c}); err == nil {
-			finite("AffinityLaws", af.Flow, af.Head, af.Power, af.Torque)
-		}
-		if d, err := similarity.DistortedFroude(similarity.Scales{Horizontal: a, Vertical: b}); err == nil {
-			finite("DistortedFroude", d.Velocity, d.Time, d.Discharge, d.Area, d.Slope, d.Manning)
-		}
-		if m, err := similarity.ManningRatio(a); err == nil {
-			finite("ManningRatio", m)
-		}
-		if eta, err := similarity.MoodyStepUp(a, q.New(b, q.Length), q.New(c, q.Length), 0.2); err == nil {
-			finite("MoodyStepUp", eta)
-		}
-		if cf, err := similarity.ITTC1957(a); err == nil {
-			finite("ITTC1957", cf)
-		}
 		for _, fl := range []fluids.Fluid{fluids.FreshWater(), fluids.SeaWater(), fluids.Water{Salinity: c}, fluids.Air(),
 			fluids.Constant{FluidName: "oil", Density: q.New(c, q.Density), Viscosity: q.New(b, q.DynamicViscosity)}} {
 			st, err := fl.At(q.New(a, q.Temperature), q.New(b, q.Pressure))

@@ -7,6 +7,7 @@ import (
 	"slices"
 	"strings"
 
+	"similis.dev/similis/internal/roots"
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/fluids"
@@ -101,7 +102,7 @@ func (e *PlanError) Is(target error) bool {
 		return target == quantity.ErrRange
 	case ErrNotDimensionless:
 		return target == quantity.ErrDimension
-	case nil, ErrPlan, ErrForeignGroup, ErrUnknownRatio, ErrNoRoot:
+	case nil, ErrPlan, ErrForeignGroup, ErrUnknownRatio, roots.ErrNoBracket:
 		return target == quantity.ErrInvalid
 	}
 	return false

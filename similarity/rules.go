@@ -37,10 +37,6 @@ type Scales struct {
 	SpeedOfSound       float64 // λ_a
 	SurfaceTension     float64 // λ_σ
 	Velocity           float64 // λ_V
-	Speed              float64 // λ_N, a rotational speed
-	Diameter           float64 // λ_D, an impeller or rotor diameter
-	Horizontal         float64 // λ_x of a distorted model
-	Vertical           float64 // λ_z of a distorted model
 }
 
 // need checks that s gives exactly the named ratios, each positive and
@@ -50,8 +46,7 @@ func (s Scales) need(rule string, names ...string) error {
 		name string
 		v    float64
 	}{{"Length", s.Length}, {"Density", s.Density}, {"KinematicViscosity", s.KinematicViscosity}, {"SpeedOfSound", s.SpeedOfSound},
-		{"SurfaceTension", s.SurfaceTension}, {"Velocity", s.Velocity}, {"Speed", s.Speed}, {"Diameter", s.Diameter},
-		{"Horizontal", s.Horizontal}, {"Vertical", s.Vertical}}
+		{"SurfaceTension", s.SurfaceTension}, {"Velocity", s.Velocity}}
 	for _, f := range all {
 		needed := slices.Contains(names, f.name)
 		switch {
@@ -64,13 +59,6 @@ func (s Scales) need(rule string, names ...string) error {
 		case !needed && f.v != 0:
 			return &PlanError{Err: ErrBadRatio, Symbol: f.name, Reason: fmt.Sprintf("%s does not use Scales.%s (it takes %s)", rule, f.name, strings.Join(names, ", "))}
 		}
-	}
-	return nil
-}
-
-func checkRatio(name string, r float64) error {
-	if !(r > 0) || math.IsInf(r, 0) {
-		return &PlanError{Err: ErrBadRatio, Symbol: name, Reason: fmt.Sprintf("%s ratio %v is not positive and finite", name, r)}
 	}
 	return nil
 }
@@ -172,12 +160,6 @@ func Euler(s Scales) (*Solution, error) {
 		Fix("L", lengthRatio).Fix("rho", densityRatio).Fix("V", velocityRatio).Basis("V", "L", "rho").Solve()
 }
 
-// Cavitation is Euler scaling of the pressure above vapour pressure,
-// p − p_v, so that the cavitation number is held. It takes the Scales
-// Euler takes, and its Solution has Euler's variables: p (here p − p_v),
-// V, L and rho.
-func Cavitation(s Scales) (*Solution, error) { return Euler(s) }
-
 // Strouhal scaling: fL/V held: λ_f = λ_V/λ_L, for frequencies of vortex
 // shedding and other unsteady flow.
 // It takes Scales.Length and Scales.Velocity. The Solution's variables,
@@ -193,148 +175,4 @@ func Strouhal(s Scales) (*Solution, error) {
 		pigroups.VarKind("L", quantity.Length, "length"))
 	return NewPlan(p).HoldExps("the Strouhal number", map[string]int{"f": 1, "L": 1, "V": -1}).
 		Fix("L", lengthRatio).Fix("V", velocityRatio).Basis("V", "L").Solve()
-}
-
-// Affinity holds the turbomachine flow, head and power coefficients for
-// a change of speed and diameter: Q ∝ N·D³, gH ∝ N²·D², P ∝ ρ·N³·D⁵.
-// Every ratio is model/prototype, as everywhere in this package; divide a
-// model value by it for the prototype.
-type Affinity struct {
-	Speed, Diameter, Density float64 // λ_N, λ_D, λ_ρ
-	Flow, Head, Power        float64 // λ_Q, λ_H (as gH), λ_P
-	Torque                   float64 // λ_T = λ_P/λ_N
-	// Pressure is the ratio of a fan's (or pump's) pressure rise,
-	// λ_Δp = λ_ρ·λ_H: the fan laws with the density of each side, as
-	// the fan pressure coefficient ψ_p = Δp/(ρn²D²) held equal gives.
-	Pressure float64
-}
-
-// AffinityLaws returns the affinity-law ratios, model/prototype, for the
-// speed, diameter and density ratios Scales.Speed, Scales.Diameter and
-// Scales.Density, from the held coefficients solved exactly (Q/(ND³),
-// gH/(N²D²), P/(ρN³D⁵)), over the variables Q (volume flow rate), gH
-// (specific energy), P (power), N (rotational speed), D (diameter) and
-// rho (density). Efficiency is taken equal; see MoodyStepUp.
-func AffinityLaws(sc Scales) (Affinity, error) {
-	if err := sc.need("AffinityLaws", "Speed", "Diameter", "Density"); err != nil {
-		return Affinity{}, err
-	}
-	speedRatio, diameterRatio, densityRatio := sc.Speed, sc.Diameter, sc.Density
-	p := pigroups.MustProblem(
-		pigroups.VarKind("Q", quantity.VolumeFlowRate, "volume flow rate"), pigroups.VarKind("gH", quantity.SpecificEnergy, "specific energy"),
-		pigroups.VarKind("P", quantity.Power, "power"), pigroups.VarKind("N", quantity.AngularVelocity, "rotational speed"),
-		pigroups.VarKind("D", quantity.Length, "length"), pigroups.VarKind("rho", quantity.Density, "density"))
-	s, err := NewPlan(p).
-		HoldExps("the flow coefficient", map[string]int{"Q": 1, "N": -1, "D": -3}).
-		HoldExps("the head coefficient", map[string]int{"gH": 1, "N": -2, "D": -2}).
-		HoldExps("the power coefficient", map[string]int{"P": 1, "rho": -1, "N": -3, "D": -5}).
-		Fix("N", speedRatio).Fix("D", diameterRatio).Fix("rho", densityRatio).Basis("N", "D", "rho").Solve()
-	if err != nil {
-		return Affinity{}, err
-	}
-	v, err := ratioValues(s, "Q", "gH", "P")
-	if err != nil {
-		return Affinity{}, err
-	}
-	a := Affinity{Speed: speedRatio, Diameter: diameterRatio, Density: densityRatio, Flow: v[0], Head: v[1], Power: v[2]}
-	a.Torque = a.Power / a.Speed
-	a.Pressure = a.Density * a.Head
-	if err := finiteRatios("torque", a.Torque, "pressure", a.Pressure); err != nil {
-		return Affinity{}, err
-	}
-	return a, nil
-}
-
-// Distorted is a distorted Froude model of a river or harbour, with a
-// horizontal length ratio and a larger vertical one.
-type Distorted struct {
-	Horizontal, Vertical float64 // λ_x, λ_z
-	Distortion           float64 // λ_z/λ_x, the vertical exaggeration (4 for 1:200 across and 1:50 deep)
-	Velocity             float64 // λ_V = λ_z^(1/2)
-	Time                 float64 // λ_t = λ_x/λ_z^(1/2), along the flow
-	Discharge            float64 // λ_Q = λ_x·λ_z^(3/2)
-	Area                 float64 // plan area λ_x²
-	Slope                float64 // λ_S = λ_z/λ_x
-	Manning              float64 // λ_n = λ_z^(2/3)/λ_x^(1/2)
-	solution             *Solution
-}
-
-// DistortedFroude returns the ratios of a distorted Froude model: the
-// Froude number held on the vertical scale (V²/(g·z)), the same gravity,
-// the horizontal scale fixed separately. Manning's n follows from holding
-// friction slope equal to bed slope: n ∝ z^(2/3)·S^(1/2)/V.
-//
-// It takes Scales.Horizontal and Scales.Vertical. The plan behind it
-// (Distorted.Solution) has the variables V (velocity), x (horizontal
-// length), z (vertical length), g (gravitational acceleration), t (time)
-// and Q (volume flow rate); the basis of DerivedRatio is V, x.
-func DistortedFroude(sc Scales) (Distorted, error) {
-	if err := sc.need("DistortedFroude", "Horizontal", "Vertical"); err != nil {
-		return Distorted{}, err
-	}
-	horizontal, vertical := sc.Horizontal, sc.Vertical
-	p := pigroups.MustProblem(
-		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("x", quantity.Length, "length"),
-		pigroups.VarKind("z", quantity.Length, "length"), pigroups.VarKind("g", quantity.Acceleration, "gravitational acceleration"),
-		pigroups.VarKind("t", quantity.Time, "time"), pigroups.VarKind("Q", quantity.VolumeFlowRate, "volume flow rate"))
-	s, err := NewPlan(p).
-		HoldExps("the Froude number on depth", map[string]int{"V": 2, "g": -1, "z": -1}).
-		HoldExps("the kinematics along the flow", map[string]int{"V": 1, "t": 1, "x": -1}).
-		HoldExps("the discharge through a section", map[string]int{"Q": 1, "V": -1, "x": -1, "z": -1}).
-		SameGravity("g").Fix("x", horizontal).Fix("z", vertical).Basis("V", "x").Solve()
-	if err != nil {
-		return Distorted{}, err
-	}
-	v, err := ratioValues(s, "V", "t", "Q")
-	if err != nil {
-		return Distorted{}, err
-	}
-	d := Distorted{
-		Horizontal: horizontal, Vertical: vertical, Distortion: vertical / horizontal,
-		Velocity: v[0], Time: v[1], Discharge: v[2], Area: horizontal * horizontal,
-		Slope: vertical / horizontal, Manning: math.Pow(vertical, 2.0/3) / math.Sqrt(horizontal),
-		solution: s,
-	}
-	if err := finiteRatios("area", d.Area, "slope", d.Slope, "Manning's n", d.Manning, "distortion", d.Distortion); err != nil {
-		return Distorted{}, err
-	}
-	return d, nil
-}
-
-// ratioValues returns the values of the ratios of the given variables.
-func ratioValues(s *Solution, syms ...string) ([]float64, error) {
-	out := make([]float64, len(syms))
-	for i, sym := range syms {
-		r, err := s.Ratio(sym)
-		if err != nil {
-			return nil, err
-		}
-		out[i] = r.Value
-	}
-	return out, nil
-}
-
-// finiteRatios checks name–value pairs of derived ratios: each must be
-// positive and finite.
-func finiteRatios(pairs ...any) error {
-	for i := 0; i+1 < len(pairs); i += 2 {
-		if v := pairs[i+1].(float64); !(v > 0) || math.IsInf(v, 0) {
-			return &PlanError{Err: ErrBadRatio, Symbol: pairs[i].(string), Reason: fmt.Sprintf("the %s ratio is out of the range of a float64 for these ratios", pairs[i])}
-		}
-	}
-	return nil
-}
-
-// Solution returns the plan behind the distorted model, for its laws.
-func (d Distorted) Solution() *Solution { return d.solution }
-
-// ManningRatio is the ratio of Manning's roughness coefficient in an
-// undistorted Froude model, λ_n = λ_L^(1/6): from V = R^(2/3)·S^(1/2)/n
-// with λ_V = λ_L^(1/2), λ_R = λ_L and λ_S = 1.
-func ManningRatio(lengthRatio float64) (float64, error) {
-	if err := checkRatio("length", lengthRatio); err != nil {
-		return 0, err
-	}
-	r := math.Pow(lengthRatio, 1.0/6)
-	return r, finiteRatios("Manning's n", r)
 }

@@ -29,8 +29,8 @@ import (
 
 	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
-	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/similarity/turbo"
 	"similis.dev/similis/units"
 )
 
@@ -129,7 +129,7 @@ func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 	}
 	// Ratios prototype/model: the affinity laws run either way.
 	// Ratios are model/prototype, as everywhere in similis.
-	aff, err := similarity.AffinityLaws(similarity.Scales{Speed: *nm / *np, Diameter: *dm / *dp, Density: 1})
+	aff, err := turbo.AffinityLaws(turbo.AffinityScales{RotationalSpeed: *nm / *np, Diameter: *dm / *dp, Density: 1})
 	if err != nil {
 		return nil, Suction{}, err
 	}
@@ -154,7 +154,7 @@ func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 		}
 		etas[i] = eta.Value()
 	}
-	step, err := similarity.MoodyCurve(etas, dModel, dProto, *moody, similarity.StepUpAtBEP)
+	step, err := turbo.MoodyCurve(etas, dModel, dProto, *moody, turbo.StepUpAtBEP)
 	if err != nil {
 		return nil, Suction{}, err
 	}
@@ -196,7 +196,7 @@ func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 	if err != nil {
 		return nil, Suction{}, err
 	}
-	fmt.Fprintln(w, "\nCAUTION:", similarity.PumpCaution)
+	fmt.Fprintln(w, "\nCAUTION:", turbo.PumpCaution)
 	return rows, suc, nil
 }
 
@@ -220,19 +220,19 @@ type Suction struct {
 	// IECRefused and AckeretRefused say why a comparison was not made
 	// (a Reynolds number outside the formula's range); empty when it was.
 	IECRefused, AckeretRefused string
-	SpecificSpeed              similarity.SpecificSpeeds
+	SpecificSpeed              turbo.SpecificSpeeds
 	NPSH                       NPSHBudget
 }
 
 // suction compares the step-up methods at the best-efficiency point and
 // carries the model's NPSH3 to the prototype at its own water
 // temperature through the Thoma number.
-func suction(w io.Writer, step similarity.StepUp, etas []float64, rows []Row, nm, np, moody float64, dModel, dProto q.Quantity) (Suction, error) {
+func suction(w io.Writer, step turbo.StepUp, etas []float64, rows []Row, nm, np, moody float64, dModel, dProto q.Quantity) (Suction, error) {
 	var s Suction
 	bep := rows[step.BEP]
 	rpm := units.MustParse("rpm")
 	var err error
-	if s.SpecificSpeed, err = similarity.SpecificSpeedOf(rpm.Of(nm), bep.ModelQ, bep.ModelH); err != nil {
+	if s.SpecificSpeed, err = turbo.SpecificSpeedOf(rpm.Of(nm), bep.ModelQ, bep.ModelH); err != nil {
 		return Suction{}, err
 	}
 	// Machine Reynolds numbers Re = D·u/ν, u = πDn the peripheral speed
@@ -252,14 +252,14 @@ func suction(w io.Writer, step similarity.StepUp, etas []float64, rows []Row, nm
 	s.ReModel, s.ReProto = re(dModel, nm, mw), re(dProto, np, pw)
 	// A comparison the formulas refuse (a model Reynolds number below
 	// their range) is reported, not fatal: Moody's step-up stands alone.
-	if s.IEC, s.IECGain, err = similarity.IECStepUp(etas[step.BEP], s.ReModel, s.ReProto); err != nil {
+	if s.IEC, s.IECGain, err = turbo.IECStepUp(etas[step.BEP], s.ReModel, s.ReProto); err != nil {
 		s.IECRefused = err.Error()
 	}
-	if s.Ackeret, err = similarity.AckeretStepUp(etas[step.BEP], s.ReModel, s.ReProto); err != nil {
+	if s.Ackeret, err = turbo.AckeretStepUp(etas[step.BEP], s.ReModel, s.ReProto); err != nil {
 		s.AckeretRefused = err.Error()
 	}
 	ft := units.MustParse("ft")
-	if s.Sigma, err = similarity.Thoma(ft.Of(modelNPSH3), bep.ModelH); err != nil {
+	if s.Sigma, err = turbo.Thoma(ft.Of(modelNPSH3), bep.ModelH); err != nil {
 		return Suction{}, err
 	}
 	s.ProtoNPSH3 = bep.ProtoH.Scale(s.Sigma)
@@ -267,7 +267,7 @@ func suction(w io.Writer, step similarity.StepUp, etas []float64, rows []Row, nm
 	if err != nil {
 		return Suction{}, err
 	}
-	if s.ProtoSuction, err = similarity.SuctionPressureFor(s.Sigma, bep.ProtoH, pv, pw.Density, q.New(protoInletMS, q.Velocity), q.Quantity{}); err != nil {
+	if s.ProtoSuction, err = turbo.SuctionPressureFor(s.Sigma, bep.ProtoH, pv, pw.Density, q.New(protoInletMS, q.Velocity), q.Quantity{}); err != nil {
 		return Suction{}, err
 	}
 	fmt.Fprintf(w, "\nAt the best-efficiency point: specific speed N_s = %.0f (rpm, gpm, ft) = n_q %.1f (rpm, m³/s, m) = Ω_s %.3f (rad/s, dimensionless)\n",

@@ -9,6 +9,7 @@ import (
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/similarity/ship"
 	"similis.dev/similis/units"
 )
 
@@ -20,7 +21,7 @@ type JobResult struct {
 	NaiveForce q.Quantity // model resistance scaled by λ_F alone
 	// ModelResistance is the invented model reading, from inventedCT.
 	ModelResistance q.Quantity
-	Extrapolate     *similarity.HullResult
+	Extrapolate     *ship.HullResult
 }
 
 // The invented 32 m catamaran and its invented model data.
@@ -120,7 +121,7 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	fmt.Fprintf(w, "  → ship %s (λ_F = λ_ρ·λ_L³, ignoring the Reynolds number)\n", must(pr.FormatIn(res.NaiveForce, units.MustParse("kN"))))
 
 	fmt.Fprintln(w, "\n6. The same reading extrapolated by the ITTC-1957 line (Froude's hypothesis)")
-	res.Extrapolate, err = similarity.ExtrapolateHull(similarity.HullTest{
+	res.Extrapolate, err = ship.ExtrapolateHull(ship.HullTest{
 		Scale: 1 / scale, ModelLength: q.New(lm, q.Length), ModelWettedArea: q.New(sm, q.Area),
 		Speeds: []q.Quantity{vm}, Resistances: []q.Quantity{rm},
 		Tank: tank,
@@ -137,7 +138,7 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	}
 	fmt.Fprintf(w, "  ship resistance %s, effective power %s — the friction correction the held Froude number cannot give\n",
 		must(pr.FormatIn(pt.ShipResistance, units.MustParse("kN"))), must(pr.FormatIn(pt.EffectivePower, units.MustParse("kW"))))
-	fmt.Fprintln(w, "\nCAUTION:", similarity.HullCaution)
+	fmt.Fprintln(w, "\nCAUTION:", ship.HullCaution)
 	return res, nil
 }
 

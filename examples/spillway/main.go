@@ -31,6 +31,7 @@ import (
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/similarity/hydraulic"
 	"similis.dev/similis/units"
 )
 
@@ -74,14 +75,14 @@ Flags:
 type Result struct {
 	ModelDischarge, VelocityRatio, TimeRatio, ForceRatio float64
 	ProtoTimes, ProtoPressure                            q.Series
-	Distorted                                            similarity.Distorted
+	Distorted                                            hydraulic.Distorted
 	Manning                                              float64
-	ManningCheck                                         similarity.ScaleCheck     // the model n against the smoothest materials
-	Checks                                               [][]similarity.ScaleCheck // design and low flow
-	CrestRadius                                          similarity.ScaleCheck
-	Sediment                                             similarity.SedimentScales
-	ProtoShearVelocity, ProtoReStar, ModelGrain          float64               // m/s, 1, m
-	ReStarCheck                                          similarity.ScaleCheck // the model grain's Re*
+	ManningCheck                                         hydraulic.ScaleCheck     // the model n against the smoothest materials
+	Checks                                               [][]hydraulic.ScaleCheck // design and low flow
+	CrestRadius                                          hydraulic.ScaleCheck
+	Sediment                                             hydraulic.SedimentScales
+	ProtoShearVelocity, ProtoReStar, ModelGrain          float64              // m/s, 1, m
+	ReStarCheck                                          hydraulic.ScaleCheck // the model grain's Re*
 }
 
 // Invented crest hydraulics of the prototype: the head over the crest at
@@ -172,16 +173,16 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	fmt.Fprintf(w, "  prototype mean %.1f kPa(g), peak %.1f kPa(g)\n", r.ProtoPressure.Mean().Value()/1000, r.ProtoPressure.Max().Value()/1000)
 	fmt.Fprintln(w, "  (gauge pressures scale by λ_L; the atmosphere does not, so absolute pressures, and cavitation margins, must not be scaled this way)")
 
-	if r.Manning, err = similarity.ManningRatio(1 / *scale); err != nil {
+	if r.Manning, err = hydraulic.ManningRatio(1 / *scale); err != nil {
 		return nil, err
 	}
-	if r.ManningCheck, err = similarity.ModelManningCheck(*protoN, r.Manning); err != nil {
+	if r.ManningCheck, err = hydraulic.ModelManningCheck(*protoN, r.Manning); err != nil {
 		return nil, err
 	}
 	fmt.Fprintf(w, "\nroughness: Manning n ratio λ_L^(1/6) = %.4f (a prototype n of %g s·m^(−1/3) needs a model n of %.4f)\n", r.Manning, *protoN, r.ManningCheck.Value)
 	fmt.Fprintf(w, "  %v\n", r.ManningCheck)
 
-	if r.Distorted, err = similarity.DistortedFroude(similarity.Scales{Horizontal: 1 / *hs, Vertical: 1 / *vs}); err != nil {
+	if r.Distorted, err = hydraulic.DistortedFroude(hydraulic.DistortedScales{Horizontal: 1 / *hs, Vertical: 1 / *vs}); err != nil {
 		return nil, err
 	}
 	d := r.Distorted
@@ -192,7 +193,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	if math.IsNaN(d.Velocity) {
 		return nil, fmt.Errorf("distorted ratios undefined")
 	}
-	if r.Sediment, err = similarity.SedimentFor(1 / *hs, 1 / *vs, 1, 1); err != nil {
+	if r.Sediment, err = hydraulic.SedimentFor(1 / *hs, 1 / *vs, 1, 1); err != nil {
 		return nil, err
 	}
 	fmt.Fprintf(w, "  movable bed (Shields similarity, the same water): bed shear u*² ratio %.4g; with the prototype's sand the grains\n", r.Sediment.Shear)
@@ -205,7 +206,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	r.ProtoShearVelocity = math.Sqrt(9.80665 * reachDepth * reachSlope)
 	r.ProtoReStar = r.ProtoShearVelocity * *d50 / 1000 / river.KinematicViscosity.Value()
 	r.ModelGrain = *d50 / 1000 * r.Sediment.Grain
-	if r.ReStarCheck, err = similarity.ParticleReynoldsCheck(r.ProtoReStar * r.Sediment.ReStar); err != nil {
+	if r.ReStarCheck, err = hydraulic.ParticleReynoldsCheck(r.ProtoReStar * r.Sediment.ReStar); err != nil {
 		return nil, err
 	}
 	fmt.Fprintf(w, "  prototype (invented reach: depth %g m, slope %g): u* = √(g·h·S) = %.4f m/s, d50 = %g mm, Re* = u*·d/ν = %.3g\n",
@@ -222,11 +223,11 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
-	lim := similarity.WeirLimits()
+	lim := hydraulic.WeirLimits()
 	fmt.Fprintf(w, "\nscale-effect checks at the crest, model water %g °C (each limit with its basis):\n", modelWaterC)
 	fmt.Fprintln(w, "  h is the head over the crest (upstream water level above crest level); V = √(g·y_c) is the critical velocity at the")
 	fmt.Fprintln(w, "  crest, where the depth is critical, y_c = ⅔h; Re = V·h/ν and We = ρV²h/σ are both formed with this V and the length h")
-	rc, err := similarity.CrestRadiusCheck(q.New(crestRadius / *scale, q.Length), lim)
+	rc, err := hydraulic.CrestRadiusCheck(q.New(crestRadius / *scale, q.Length), lim)
 	if err != nil {
 		return nil, err
 	}
@@ -239,7 +240,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		h := refHead * math.Pow(*qp*c.share/refDischarge, 2.0/3) / *scale
 		yc := 2 * h / 3
 		v := math.Sqrt(9.80665 * yc)
-		cs, err := similarity.FreeSurfaceChecks(q.New(v, q.Velocity), q.New(h, q.Length), wat.KinematicViscosity, wat.Density, sigma, lim)
+		cs, err := hydraulic.FreeSurfaceChecks(q.New(v, q.Velocity), q.New(h, q.Length), wat.KinematicViscosity, wat.Density, sigma, lim)
 		if err != nil {
 			return nil, err
 		}
@@ -249,6 +250,6 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 			fmt.Fprintf(w, "    %v\n", ck)
 		}
 	}
-	fmt.Fprintln(w, "\nCAUTION:", similarity.HydraulicStructureCaution)
+	fmt.Fprintln(w, "\nCAUTION:", hydraulic.HydraulicStructureCaution)
 	return r, nil
 }

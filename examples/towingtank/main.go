@@ -30,8 +30,8 @@ import (
 	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/uncertain"
-	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/similarity/ship"
 	"similis.dev/similis/units"
 )
 
@@ -64,25 +64,25 @@ var (
 // Outcome holds the two extrapolations and the top-speed budget, for the
 // test.
 type Outcome struct {
-	Plain, WithForm *similarity.HullResult
-	Form            similarity.ProhaskaResult
+	Plain, WithForm *ship.HullResult
+	Form            ship.ProhaskaResult
 	Budget          Budgets
 	Powering        *Powering
 	// Blockage is the tank's mean-flow correction of every run, and
 	// Blocked the extrapolation with the form factor on the corrected
 	// speeds.
-	Blockage []similarity.BlockageCorrection
-	Blocked  *similarity.HullResult
+	Blockage []ship.BlockageCorrection
+	Blocked  *ship.HullResult
 	// DoubleBody is the double-body form factor; MethodDiff its
 	// difference from Prohaska's when that is flagged (else zero).
-	DoubleBody similarity.DoubleBodyResult
+	DoubleBody ship.DoubleBodyResult
 	MethodDiff float64
 }
 
 // Budgets are the uncertainty budgets of the top-speed run at full scale.
 type Budgets struct {
-	Run               similarity.HullRun
-	Result            similarity.HullRunResult
+	Run               ship.HullRun
+	Result            ship.HullRunResult
 	Resistance, Power uncertain.Budget
 }
 
@@ -92,7 +92,7 @@ type Budgets struct {
 // and the Prohaska form factors, added as a source: rectangular, with
 // half-width |Δ| about the Prohaska value, so that the other method's
 // value lies at its edge.
-func topBudget(scale, tankT, seaT, ca float64, form similarity.ProhaskaResult, methodDiff float64) (Budgets, error) {
+func topBudget(scale, tankT, seaT, ca float64, form ship.ProhaskaResult, methodDiff float64) (Budgets, error) {
 	set := uncertain.NewSet()
 	src := func(s uncertain.Source) uncertain.ID { return set.MustAdd(s) }
 	sys, rnd := uncertain.Systematic, uncertain.Random
@@ -108,7 +108,7 @@ func topBudget(scale, tankT, seaT, ca float64, form similarity.ProhaskaResult, m
 		kIDs = append(kIDs, src(uncertain.Source{Name: "form factor method (double body vs Prohaska)", U: q.Scalar(math.Abs(methodDiff) / math.Sqrt(3)), Dist: uncertain.Rectangular, Effect: sys}))
 	}
 	last := len(speeds) - 1
-	run := similarity.HullRun{
+	run := ship.HullRun{
 		Scale:           1 / scale,
 		ModelLength:     set.MustMeasure(q.New(modelLength, q.Length), length),
 		ModelWettedArea: set.MustMeasure(q.New(modelArea, q.Area), area),
@@ -120,7 +120,7 @@ func topBudget(scale, tankT, seaT, ca float64, form similarity.ProhaskaResult, m
 		FormFactor: set.MustMeasure(q.Scalar(form.FormFactor), kIDs...),
 		Allowance:  uncertain.Exact(q.Scalar(ca)),
 	}
-	res, err := similarity.ExtrapolateHullRun(run)
+	res, err := ship.ExtrapolateHullRun(run)
 	if err != nil {
 		return Budgets{}, err
 	}
@@ -172,7 +172,7 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	if err != nil {
 		return nil, err
 	}
-	test := similarity.HullTest{
+	test := ship.HullTest{
 		Scale: 1 / *scale, ModelLength: q.New(modelLength, q.Length), ModelWettedArea: q.New(modelArea, q.Area),
 		Tank:      tank,
 		Sea:       sea,
@@ -183,14 +183,14 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 		test.Resistances = append(test.Resistances, q.New(resistances[i], q.Force))
 	}
 	out := &Outcome{}
-	if out.Plain, err = similarity.ExtrapolateHull(test); err != nil {
+	if out.Plain, err = ship.ExtrapolateHull(test); err != nil {
 		return nil, err
 	}
-	if out.Form, err = similarity.ProhaskaFromTest(test, *maxFn); err != nil {
+	if out.Form, err = ship.ProhaskaFromTest(test, *maxFn); err != nil {
 		return nil, err
 	}
 	test.FormFactor = out.Form.FormFactor
-	if out.WithForm, err = similarity.ExtrapolateHull(test); err != nil {
+	if out.WithForm, err = ship.ExtrapolateHull(test); err != nil {
 		return nil, err
 	}
 	if out.DoubleBody, err = doubleBody(test); err != nil {
@@ -237,7 +237,7 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 			b.ShipCT*1e3, b.ShipResistance.Value()/1e3, b.EffectivePower.Value()/1e3)
 	}
 	fmt.Fprintf(w, "(C_R is the ITTC-1957 one, C_Tm − C_Fm; with the form factor C_R = C_Tm − (1 + k)·C_Fm)\n")
-	for _, res := range []*similarity.HullResult{out.Plain, out.WithForm} {
+	for _, res := range []*ship.HullResult{out.Plain, out.WithForm} {
 		for _, pt := range res.Points {
 			if pt.Warning != "" {
 				fmt.Fprintf(w, "WARNING (1 + k = %.3f): %s\n", res.FormFactor, pt.Warning)
@@ -266,7 +266,7 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	if out.Powering, err = powering(w, test, db, size, *dir); err != nil {
 		return nil, err
 	}
-	fmt.Fprintln(w, "\nCAUTION:", similarity.HullCaution)
+	fmt.Fprintln(w, "\nCAUTION:", ship.HullCaution)
 	return out, nil
 }
 
@@ -301,13 +301,13 @@ Flags:
 // and what it does to the ship's resistance with the form factor. The
 // tables above are on the measured speeds; the basin decides whether to
 // apply the correction, and says so in its report.
-func blockage(w io.Writer, out *Outcome, test similarity.HullTest, width, depth float64) error {
-	sec := similarity.TankSection{Width: q.New(width, q.Length), Depth: q.New(depth, q.Length)}
+func blockage(w io.Writer, out *Outcome, test ship.HullTest, width, depth float64) error {
+	sec := ship.TankSection{Width: q.New(width, q.Length), Depth: q.New(depth, q.Length)}
 	blocked, corr, err := test.WithBlockage(sec, q.New(modelSection, q.Area))
 	if err != nil {
 		return err
 	}
-	if out.Blocked, err = similarity.ExtrapolateHull(blocked); err != nil {
+	if out.Blocked, err = ship.ExtrapolateHull(blocked); err != nil {
 		return err
 	}
 	out.Blockage = corr

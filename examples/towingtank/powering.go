@@ -17,7 +17,7 @@ import (
 	"gonum.org/v1/plot/vg/vgimg"
 
 	q "similis.dev/similis/quantity"
-	"similis.dev/similis/similarity"
+	"similis.dev/similis/similarity/ship"
 )
 
 // Invented double-body test: the underwater hulls and their mirror images
@@ -41,11 +41,11 @@ var (
 // Invented open-water curve of the model propeller (K_T, K_Q with n in
 // rev/s) and the ship propeller's geometry.
 var (
-	openWater = []similarity.OpenWaterPoint{
+	openWater = []ship.OpenWaterPoint{
 		{J: 0.2, KT: 0.352, KQ: 0.0520}, {J: 0.4, KT: 0.285, KQ: 0.0455}, {J: 0.6, KT: 0.212, KQ: 0.0380},
 		{J: 0.8, KT: 0.135, KQ: 0.0295}, {J: 1.0, KT: 0.052, KQ: 0.0195},
 	}
-	propeller = similarity.PropellerGeometry{
+	propeller = ship.PropellerGeometry{
 		Diameter: q.New(1.35, q.Length), Blades: 4, PitchRatio: 0.90,
 		Chord: q.New(0.37, q.Length), ThicknessRatio: 0.04, ModelReynolds: 2.0e5,
 	}
@@ -54,27 +54,27 @@ var (
 
 // Powering holds the second half of the job, for the test.
 type Powering struct {
-	DoubleBody similarity.DoubleBodyResult
+	DoubleBody ship.DoubleBodyResult
 	Wave       []float64 // C_W of the resistance runs with the double-body 1 + k
-	Points     []similarity.PoweringResult
+	Points     []ship.PoweringResult
 	PNG, SVG   string
 }
 
 // doubleBody finds the form factor from the double-body test.
-func doubleBody(test similarity.HullTest) (similarity.DoubleBodyResult, error) {
+func doubleBody(test ship.HullTest) (ship.DoubleBodyResult, error) {
 	nu, rho := test.Tank.KinematicViscosity.Value(), test.Tank.Density.Value()
 	var re, cv []float64
 	for i, v := range dbSpeeds {
 		re = append(re, v*modelLength/nu)
 		cv = append(cv, dbResistances[i]/(0.5*rho*v*v*2*modelArea))
 	}
-	return similarity.FormFactorDoubleBody(re, cv, similarity.LineITTC1957)
+	return ship.FormFactorDoubleBody(re, cv, ship.LineITTC1957)
 }
 
 // powering predicts delivered power and revolutions at every speed by
 // the ITTC-1978 method with the double-body form factor, and plots the
 // coefficients.
-func powering(w io.Writer, test similarity.HullTest, db similarity.DoubleBodyResult, size plotSize, dir string) (*Powering, error) {
+func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size plotSize, dir string) (*Powering, error) {
 	tank := test.Tank
 	nu, rho := tank.KinematicViscosity.Value(), tank.Density.Value()
 	out := &Powering{DoubleBody: db}
@@ -84,11 +84,11 @@ func powering(w io.Writer, test similarity.HullTest, db similarity.DoubleBodyRes
 		rem = append(rem, v*modelLength/nu)
 		ctm = append(ctm, resistances[i]/(0.5*rho*v*v*modelArea))
 	}
-	if out.Wave, err = similarity.WaveResistance(rem, ctm, db.FormFactor, similarity.LineITTC1957); err != nil {
+	if out.Wave, err = ship.WaveResistance(rem, ctm, db.FormFactor, ship.LineITTC1957); err != nil {
 		return nil, err
 	}
 	for i := range speeds {
-		in := similarity.PoweringInput{
+		in := ship.PoweringInput{
 			Scale: test.Scale, ModelLength: test.ModelLength, ModelWettedArea: test.ModelWettedArea,
 			ModelSpeed: test.Speeds[i], ModelResistance: test.Resistances[i],
 			Tank: test.Tank, Sea: test.Sea, FormFactor: db.FormFactor,
@@ -96,7 +96,7 @@ func powering(w io.Writer, test similarity.HullTest, db similarity.DoubleBodyRes
 			ModelWake:      spWake[i], ThrustDeduction: spT[i], RelativeRotative: spEtaR[i],
 			Propeller: propeller, OpenWater: openWater, Propellers: 2,
 		}
-		p, err := similarity.ITTC1978(in)
+		p, err := ship.ITTC1978(in)
 		if err != nil {
 			return nil, fmt.Errorf("speed %d: %w", i+1, err)
 		}
@@ -110,7 +110,7 @@ func powering(w io.Writer, test similarity.HullTest, db similarity.DoubleBodyRes
 	fmt.Fprintf(w, "twin screws on open shafts: the wake is not scaled, w_TS = w_TM (ITTC-1978); each carries half the thrust in K_T/J²; n is each propeller's rate, P_D the sum over both shafts;\n")
 	fmt.Fprintf(w, "propeller D = %g m, Z = %d, P/D = %g, model Re_co = %.3g; C_DM = %.5f, C_DS = %.5f, scale correction ΔK_T = %.4f, ΔK_Q = %.5f\n",
 		propeller.Diameter.Value(), propeller.Blades, propeller.PitchRatio, propeller.ModelReynolds, top.ModelBladeDrag, top.ShipBladeDrag, top.DeltaKT, top.DeltaKQ)
-	fmt.Fprint(w, similarity.PoweringTable(out.Points, false))
+	fmt.Fprint(w, ship.PoweringTable(out.Points, false))
 	if size.Skip {
 		fmt.Fprintln(w, "plots: not written (-plot=false)")
 		return out, nil
@@ -135,7 +135,7 @@ type plotSize struct {
 // the form-factor line, log scale in Re; every series has its own marker
 // and colour, the axes are padded so no point is clipped, and subscripts
 // are set as subscripts.
-func plotCoefficients(dir string, k1 float64, pts []similarity.PoweringResult, size plotSize) (string, string, error) {
+func plotCoefficients(dir string, k1 float64, pts []ship.PoweringResult, size plotSize) (string, string, error) {
 	pl := plot.New()
 	// The legend sets "_{…}" as a subscript (C_TM, C_TS).
 	pl.Legend.TextStyle.Handler = subText{text.Plain{Fonts: font.DefaultCache}}
@@ -145,20 +145,20 @@ func plotCoefficients(dir string, k1 float64, pts []similarity.PoweringResult, s
 	pl.X.Scale = plot.LogScale{}
 	pl.X.Tick.Marker = plot.LogTicks{Prec: -1}
 	pl.Legend.Top = true
-	var model, ship plotter.XYs
+	var model, full plotter.XYs
 	for _, p := range pts {
 		model = append(model, plotter.XY{X: p.ModelReynolds, Y: p.ModelCT * 1e3})
-		ship = append(ship, plotter.XY{X: p.ShipReynolds, Y: p.ShipCT * 1e3})
+		full = append(full, plotter.XY{X: p.ShipReynolds, Y: p.ShipCT * 1e3})
 	}
 	lo, hi := 5e5, 1e9
 	ymax := 0.0
 	lines := []struct {
 		name string
-		line similarity.FrictionLine
+		line ship.FrictionLine
 		f    float64
 	}{
-		{"ITTC-1957", similarity.LineITTC1957, 1}, {fmt.Sprintf("(1 + k)·ITTC-1957, 1 + k = %.3f", k1), similarity.LineITTC1957, k1},
-		{"Schoenherr", similarity.LineSchoenherr, 1}, {"Hughes", similarity.LineHughes, 1},
+		{"ITTC-1957", ship.LineITTC1957, 1}, {fmt.Sprintf("(1 + k)·ITTC-1957, 1 + k = %.3f", k1), ship.LineITTC1957, k1},
+		{"Schoenherr", ship.LineSchoenherr, 1}, {"Hughes", ship.LineHughes, 1},
 	}
 	glyphs := []draw.GlyphDrawer{draw.BoxGlyph{}, draw.CrossGlyph{}, draw.PlusGlyph{}, draw.SquareGlyph{}, draw.RingGlyph{}, draw.PyramidGlyph{}}
 	for k, l := range lines {
@@ -192,7 +192,7 @@ func plotCoefficients(dir string, k1 float64, pts []similarity.PoweringResult, s
 	for k, s := range []struct {
 		name string
 		xy   plotter.XYs
-	}{{"model C_{TM} (measured)", model}, {"ship C_{TS} (ITTC-1978)", ship}} {
+	}{{"model C_{TM} (measured)", model}, {"ship C_{TS} (ITTC-1978)", full}} {
 		sc, err := plotter.NewScatter(s.xy)
 		if err != nil {
 			return "", "", err
@@ -208,7 +208,7 @@ func plotCoefficients(dir string, k1 float64, pts []similarity.PoweringResult, s
 	// x range spans the lines and every point with a margin, the y range
 	// starts at zero and leaves the top third for the legend.
 	xmin, xmax := lo, hi
-	for _, p := range append(append(plotter.XYs{}, model...), ship...) {
+	for _, p := range append(append(plotter.XYs{}, model...), full...) {
 		xmin, xmax = math.Min(xmin, p.X), math.Max(xmax, p.X)
 	}
 	pl.X.Min, pl.X.Max = xmin/1.5, xmax*1.5

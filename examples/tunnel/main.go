@@ -36,6 +36,7 @@ import (
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/similarity/tunnel"
 )
 
 func main() {
@@ -64,12 +65,12 @@ type Result struct {
 	ReFlight, ReOrdinary   float64
 	OrdinarySpeed          float64
 	Ordinary               fluids.State // the ordinary tunnel's static test-section state
-	Pressurised, Cryogenic similarity.TunnelCondition
+	Pressurised, Cryogenic tunnel.TunnelCondition
 	Compromise             *similarity.Compromise
 	Loads                  []Load
 	Margin                 q.Quantity // the cryogenic test section's margin to nitrogen condensation
-	Section                similarity.Corrected2D
-	Model                  similarity.Corrected3D
+	Section                tunnel.Corrected2D
+	Model                  tunnel.Corrected3D
 	// SectionErr and ModelErr are the corrections' refusals (above
 	// Ma 0.8, or a model too large for the section), printed instead.
 	SectionErr, ModelErr error
@@ -206,22 +207,22 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	// C_L·S_m·q at each found condition.
 	area := wingArea / (*scale * *scale)
 	rated, loadArea := q.New(balanceLimit, q.Force), q.New(cruiseCL*area, q.Area)
-	pressurised := similarity.TunnelLimits{MinTemperature: q.New(280, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+	pressurised := tunnel.TunnelLimits{MinTemperature: q.New(280, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(4e5, q.Pressure), RatedLoad: rated, LoadArea: loadArea}
-	cryo := similarity.TunnelLimits{MinTemperature: q.New(110, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+	cryo := tunnel.TunnelLimits{MinTemperature: q.New(110, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(1e5, q.Pressure), MaxPressure: q.New(4.5e5, q.Pressure), RatedLoad: rated, LoadArea: loadArea}
 	air, n2 := fluids.Air(), fluids.Nitrogen()
-	if r.Pressurised, err = similarity.FindTunnelCondition(air, flight, V, L, 1 / *scale, pressurised); err != nil {
+	if r.Pressurised, err = tunnel.FindTunnelCondition(air, flight, V, L, 1 / *scale, pressurised); err != nil {
 		return nil, err
 	}
-	if r.Cryogenic, err = similarity.FindTunnelCondition(n2, flight, V, L, 1 / *scale, cryo); err != nil {
+	if r.Cryogenic, err = tunnel.FindTunnelCondition(n2, flight, V, L, 1 / *scale, cryo); err != nil {
 		return nil, err
 	}
 	fmt.Fprintln(w, "\nHolding both Mach and Reynolds numbers:")
 	tunnels := []struct {
 		name string
 		gas  fluids.IdealGas
-		c    similarity.TunnelCondition
+		c    tunnel.TunnelCondition
 	}{{"pressurised tunnel (total 280–320 K, ≤ 4 bar)", air, r.Pressurised}, {"cryogenic tunnel (total ≥ 110 K, 1–4.5 bar)", n2, r.Cryogenic}}
 	for _, t := range tunnels {
 		fmt.Fprintf(w, "  %s, gas: %s (ideal gas, R = %.2f J/(kg·K), γ = %.1f, Sutherland viscosity):\n", t.name, t.c.Gas, t.gas.R, t.gas.Gamma)
@@ -260,10 +261,10 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	}
 	// A two-dimensional test of the wing's section at the test Mach
 	// number (invented readings).
-	sec := similarity.Section2D{Chord: q.New(0.30, q.Length), Height: q.New(0.90, q.Length), ShapeFactor: 0.25,
+	sec := tunnel.Section2D{Chord: q.New(0.30, q.Length), Height: q.New(0.90, q.Length), ShapeFactor: 0.25,
 		Alpha: 6, CL: 0.82, CD: 0.0125, CM: -0.080, Mach: *mach}
 	fmt.Fprintf(w, "\nSection test at Ma %.2f, chord 0.30 m wall to wall in a 0.90 m high closed test section (invented readings), wall corrections:\n", *mach)
-	if r.Section, r.SectionErr = similarity.CorrectWalls2D(sec); r.SectionErr != nil {
+	if r.Section, r.SectionErr = tunnel.CorrectWalls2D(sec); r.SectionErr != nil {
 		fmt.Fprintf(w, "  not applied: %v\n", r.SectionErr)
 	} else {
 		cs := r.Section
@@ -278,12 +279,12 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	// section (invented readings and chart factors); its volume is
 	// 0.010 m³ at 1:12 and scales with the cube of the model's size.
 	vol := 0.010 * (12 / *scale) * (12 / *scale) * (12 / *scale)
-	m3 := similarity.Model3D{WingArea: q.New(area, q.Area), TunnelArea: q.New(3.0, q.Area), ModelVolume: q.New(vol, q.Volume),
+	m3 := tunnel.Model3D{WingArea: q.New(area, q.Area), TunnelArea: q.New(3.0, q.Area), ModelVolume: q.New(vol, q.Volume),
 		ShapeFactor: 0.86, Delta: 0.12, Alpha: 3.0, CL: cruiseCL, CD: 0.035, CM: -0.030,
 		CurvatureFactor: 0.12, LiftSlope: 0.085, TailCurvatureFactor: 0.55, TailMomentSlope: -0.025, Mach: *mach}
 	fmt.Fprintf(w, "\nComplete model at Ma %.2f in a closed 2.0 × 1.5 m section (invented readings; K·τ₁ = %.2f, δ = %.2f, τ₂ read from the charts):\n",
 		*mach, m3.ShapeFactor, m3.Delta)
-	if r.Model, r.ModelErr = similarity.CorrectWalls3D(m3); r.ModelErr != nil {
+	if r.Model, r.ModelErr = tunnel.CorrectWalls3D(m3); r.ModelErr != nil {
 		fmt.Fprintf(w, "  not applied: %v\n", r.ModelErr)
 	} else {
 		c3 := r.Model

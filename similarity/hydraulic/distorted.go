@@ -1,0 +1,113 @@
+package hydraulic
+
+import (
+	"fmt"
+	"math"
+
+	"similis.dev/similis/pigroups"
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
+)
+
+// Distorted is a distorted Froude model of a river or harbour, with a
+// horizontal length ratio and a larger vertical one.
+type Distorted struct {
+	Horizontal, Vertical float64 // λ_x, λ_z
+	Distortion           float64 // λ_z/λ_x, the vertical exaggeration (4 for 1:200 across and 1:50 deep)
+	Velocity             float64 // λ_V = λ_z^(1/2)
+	Time                 float64 // λ_t = λ_x/λ_z^(1/2), along the flow
+	Discharge            float64 // λ_Q = λ_x·λ_z^(3/2)
+	Area                 float64 // plan area λ_x²
+	Slope                float64 // λ_S = λ_z/λ_x
+	Manning              float64 // λ_n = λ_z^(2/3)/λ_x^(1/2)
+	solution             *similarity.Solution
+}
+
+// DistortedScales are the two length ratios of a distorted model,
+// model/prototype, by name so that one cannot be given for the other.
+// Each must be positive and finite.
+type DistortedScales struct {
+	Horizontal float64 // λ_x, along and across the flow (1/200 for 1:200)
+	Vertical   float64 // λ_z, depths and heights (1/50 for 1:50)
+}
+
+// DistortedFroude returns the ratios of a distorted Froude model: the
+// Froude number held on the vertical scale (V²/(g·z)), the same gravity,
+// the horizontal scale fixed separately. Manning's n follows from holding
+// friction slope equal to bed slope: n ∝ z^(2/3)·S^(1/2)/V.
+//
+// It takes DistortedScales.Horizontal and DistortedScales.Vertical. The plan behind it
+// (Distorted.Solution) has the variables V (velocity), x (horizontal
+// length), z (vertical length), g (gravitational acceleration), t (time)
+// and Q (volume flow rate); the basis of DerivedRatio is V, x.
+func DistortedFroude(sc DistortedScales) (Distorted, error) {
+	if err := checkRatios("DistortedFroude", "horizontal length", sc.Horizontal, "vertical length", sc.Vertical); err != nil {
+		return Distorted{}, err
+	}
+	horizontal, vertical := sc.Horizontal, sc.Vertical
+	p := pigroups.MustProblem(
+		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("x", quantity.Length, "length"),
+		pigroups.VarKind("z", quantity.Length, "length"), pigroups.VarKind("g", quantity.Acceleration, "gravitational acceleration"),
+		pigroups.VarKind("t", quantity.Time, "time"), pigroups.VarKind("Q", quantity.VolumeFlowRate, "volume flow rate"))
+	s, err := similarity.NewPlan(p).
+		HoldExps("the Froude number on depth", map[string]int{"V": 2, "g": -1, "z": -1}).
+		HoldExps("the kinematics along the flow", map[string]int{"V": 1, "t": 1, "x": -1}).
+		HoldExps("the discharge through a section", map[string]int{"Q": 1, "V": -1, "x": -1, "z": -1}).
+		SameGravity("g").Fix("x", horizontal).Fix("z", vertical).Basis("V", "x").Solve()
+	if err != nil {
+		return Distorted{}, err
+	}
+	v, err := ratioValues(s, "V", "t", "Q")
+	if err != nil {
+		return Distorted{}, err
+	}
+	d := Distorted{
+		Horizontal: horizontal, Vertical: vertical, Distortion: vertical / horizontal,
+		Velocity: v[0], Time: v[1], Discharge: v[2], Area: horizontal * horizontal,
+		Slope: vertical / horizontal, Manning: math.Pow(vertical, 2.0/3) / math.Sqrt(horizontal),
+		solution: s,
+	}
+	if err := checkRatios("DistortedFroude", "area", d.Area, "slope", d.Slope, "Manning's n", d.Manning, "distortion", d.Distortion); err != nil {
+		return Distorted{}, err
+	}
+	return d, nil
+}
+
+// Solution returns the plan behind the distorted model, for its laws.
+func (d Distorted) Solution() *similarity.Solution { return d.solution }
+
+// ManningRatio is the ratio of Manning's roughness coefficient in an
+// undistorted Froude model, λ_n = λ_L^(1/6): from V = R^(2/3)·S^(1/2)/n
+// with λ_V = λ_L^(1/2), λ_R = λ_L and λ_S = 1.
+func ManningRatio(lengthRatio float64) (float64, error) {
+	if err := checkRatios("ManningRatio", "length", lengthRatio); err != nil {
+		return 0, err
+	}
+	r := math.Pow(lengthRatio, 1.0/6)
+	return r, checkRatios("ManningRatio", "Manning's n", r)
+}
+
+// ratioValues returns the values of the ratios of the given variables.
+func ratioValues(s *similarity.Solution, syms ...string) ([]float64, error) {
+	out := make([]float64, len(syms))
+	for i, sym := range syms {
+		r, err := s.Ratio(sym)
+		if err != nil {
+			return nil, err
+		}
+		out[i] = r.Value
+	}
+	return out, nil
+}
+
+// checkRatios checks name–value pairs of model/prototype ratios for the
+// rule op: each must be positive and finite, or an *Error of class
+// quantity.ErrRange names it.
+func checkRatios(op string, pairs ...any) error {
+	for i := 0; i+1 < len(pairs); i += 2 {
+		if v := pairs[i+1].(float64); !(v > 0) || math.IsInf(v, 0) {
+			return outOfRange(op, pairs[i].(string), fmt.Sprintf("the %s ratio %v is not positive and finite (a model/prototype ratio)", pairs[i], v))
+		}
+	}
+	return nil
+}

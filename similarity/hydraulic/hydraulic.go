@@ -1,0 +1,268 @@
+package hydraulic
+
+import (
+	"fmt"
+	"math"
+
+	"similis.dev/similis/quantity"
+)
+
+// HydraulicStructureCaution accompanies every scale-effect check, roughness
+// and sediment scale of a hydraulic model: print it with them.
+const HydraulicStructureCaution = "A hydraulic model indicates prototype behaviour subject to scale effects (viscosity, surface tension, " +
+	"air entrainment, roughness, sediment); spillways, intakes and other hydraulic structures are designed to the applicable " +
+	"local codes and dam-safety regulations and checked and approved by licensed engineers."
+
+// FreeSurfaceLimits are the smallest Reynolds and Weber numbers and the
+// smallest head a free-surface Froude model should keep so that viscosity
+// and surface tension stay negligible, each with the basis it rests on,
+// which its check prints. A laboratory or guideline that names other
+// criteria sets them here.
+type FreeSurfaceLimits struct {
+	MinReynolds, MinWeber float64
+	MinHead               quantity.Quantity
+	// MinCrestRadius is the smallest radius of a round crest, for
+	// CrestRadiusCheck; zero leaves the check unlimited.
+	MinCrestRadius quantity.Quantity
+	// The bases of the limits, printed with each check.
+	ReynoldsBasis, WeberBasis, HeadBasis, CrestRadiusBasis string
+}
+
+// CommonPractice is the basis of limits that are the trade's rules of
+// thumb rather than one publication's criterion.
+const CommonPractice = "common practice"
+
+// DefaultFreeSurfaceLimits returns common-practice limits: Re = V·h/ν ≥
+// 10⁴ for fully turbulent flow, We = ρV²h/σ ≥ 100 for negligible surface
+// tension, and a head of at least 5 cm over a crest.
+func DefaultFreeSurfaceLimits() FreeSurfaceLimits {
+	return FreeSurfaceLimits{MinReynolds: 1e4, MinWeber: 100, MinHead: quantity.New(0.05, quantity.Length),
+		ReynoldsBasis: CommonPractice, WeberBasis: CommonPractice, HeadBasis: CommonPractice}
+}
+
+// WeirLimits returns limits for free flow over a weir or spillway crest
+// that rest on published criteria where a criterion was found: a head of
+// at least 0.07 m, the upper end of the 0.02–0.07 m that published
+// criteria for free flow over linear weirs ask independently of the
+// model's size, as summarised by Erpicum et al. (2016, Scale effects in
+// physical piano key weirs models, J. Hydraulic Research 54(6)); and a
+// round crest's radius of at least 0.01 m (Castro-Orgaz and Hager, 2014,
+// Scale effects of round-crested weir flow, J. Hydraulic Research
+// 52(5)). The Reynolds and Weber limits stay the common-practice ones of
+// DefaultFreeSurfaceLimits.
+func WeirLimits() FreeSurfaceLimits {
+	l := DefaultFreeSurfaceLimits()
+	l.MinHead = quantity.New(0.07, quantity.Length)
+	l.HeadBasis = "Erpicum et al. 2016: published criteria for linear weirs ask 0.02–0.07 m; the upper value"
+	l.MinCrestRadius = quantity.New(0.01, quantity.Length)
+	l.CrestRadiusBasis = "Castro-Orgaz and Hager 2014, round crests"
+	return l
+}
+
+// ScaleCheck is one scale-effect check of a model: a value, its limit,
+// whether it passes, and the limit's basis.
+type ScaleCheck struct {
+	Name         string
+	Value, Limit float64
+	Unit         string // of Value and Limit, "1" for a number
+	Pass         bool
+	Basis        string // where the limit comes from
+	// Warning says what a failed check means for the model; empty for a
+	// check that passes, or when the general "scale effects likely" says it.
+	Warning string
+}
+
+// String writes "Re = V·h/ν = 4.2e+04 (limit ≥ 1e+04, common practice):
+// passes" or "… FAILS: scale effects likely" (or the check's Warning).
+func (c ScaleCheck) String() string {
+	verdict := "passes"
+	if !c.Pass {
+		verdict = "FAILS: scale effects likely"
+		if c.Warning != "" {
+			verdict = "FAILS: " + c.Warning
+		}
+	}
+	unit := ""
+	if c.Unit != "1" && c.Unit != "" {
+		unit = " " + c.Unit
+	}
+	basis := ""
+	if c.Basis != "" {
+		basis = ", " + c.Basis
+	}
+	return fmt.Sprintf("%s = %.3g%s (limit ≥ %.3g%s%s): %s", c.Name, c.Value, unit, c.Limit, unit, basis, verdict)
+}
+
+// FreeSurfaceChecks checks a free-surface model at a characteristic
+// velocity V and depth or head h in water of kinematic viscosity nu,
+// density rho and surface tension sigma against the limits. Both groups
+// are formed with the same V and h: Re = V·h/ν and We = ρV²h/σ. The
+// limits' MinReynolds and MinWeber must be finite and not negative; a
+// group out of the range of a float64 is a *ResultRangeError. See
+// HydraulicStructureCaution.
+func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLimits) ([]ScaleCheck, error) {
+	if err := checkInputs("scale-effect check", true,
+		input{"velocity", v, quantity.Velocity}, input{"head", h, quantity.Length}, input{"kinematic viscosity", nu, quantity.KinematicViscosity},
+		input{"density", rho, quantity.Density}, input{"surface tension", sigma, quantity.SurfaceTension}, input{"minimum head", lim.MinHead, quantity.Length},
+	); err != nil {
+		return nil, err
+	}
+	for _, l := range []struct {
+		name string
+		v    float64
+	}{{"minimum Reynolds number", lim.MinReynolds}, {"minimum Weber number", lim.MinWeber}} {
+		if !(l.v >= 0) || math.IsInf(l.v, 0) {
+			return nil, &Error{Class: quantity.ErrInvalid, Op: "scale-effect check", Reason: fmt.Sprintf("%s %v: want finite and not negative", l.name, l.v)}
+		}
+	}
+	re := v.Value() * h.Value() / nu.Value()
+	we := rho.Value() * v.Value() * v.Value() * h.Value() / sigma.Value()
+	if err := checkResults("scale-effect check", true, result{"Reynolds number V·h/ν", re}, result{"Weber number ρV²h/σ", we}); err != nil {
+		return nil, err
+	}
+	return []ScaleCheck{
+		{Name: "Re = V·h/ν", Value: re, Limit: lim.MinReynolds, Unit: "1", Pass: re >= lim.MinReynolds, Basis: lim.ReynoldsBasis},
+		{Name: "We = ρV²h/σ", Value: we, Limit: lim.MinWeber, Unit: "1", Pass: we >= lim.MinWeber, Basis: lim.WeberBasis},
+		{Name: "head h", Value: h.Value(), Limit: lim.MinHead.Value(), Unit: "m", Pass: h.Value() >= lim.MinHead.Value(), Basis: lim.HeadBasis},
+	}, nil
+}
+
+// CrestRadiusCheck checks a model's round-crest radius against the
+// limits' MinCrestRadius (zero: any positive radius passes).
+func CrestRadiusCheck(radius quantity.Quantity, lim FreeSurfaceLimits) (ScaleCheck, error) {
+	if err := checkInputs("crest radius check", true, input{"crest radius", radius, quantity.Length}); err != nil {
+		return ScaleCheck{}, err
+	}
+	lo := 0.0
+	if lim.MinCrestRadius != (quantity.Quantity{}) {
+		if err := checkInputs("crest radius check", false, input{"minimum crest radius", lim.MinCrestRadius, quantity.Length}); err != nil {
+			return ScaleCheck{}, err
+		}
+		lo = lim.MinCrestRadius.Value()
+	}
+	return ScaleCheck{Name: "crest radius R", Value: radius.Value(), Limit: lo, Unit: "m", Pass: radius.Value() >= lo, Basis: lim.CrestRadiusBasis}, nil
+}
+
+// Shields returns the Shields parameter θ = τ_b/((ρ_s − ρ)·g·d) and the
+// particle (shear) Reynolds number Re* = u*·d/ν, u* = √(τ_b/ρ), of grains
+// of diameter d and density rhoS under the bed shear stress tau in water
+// of density rho and kinematic viscosity nu: the two groups that govern
+// the start of sediment motion (Shields, 1936). A group out of the range
+// of a float64 is a *ResultRangeError; ParticleReynoldsCheck says whether
+// a model grain's Re* is in the viscous range.
+func Shields(tau, rhoS, rho, d, nu, g quantity.Quantity) (theta, reStar float64, err error) {
+	if err := checkInputs("Shields parameter", true,
+		input{"bed shear stress", tau, quantity.Pressure}, input{"grain density", rhoS, quantity.Density}, input{"water density", rho, quantity.Density},
+		input{"grain diameter", d, quantity.Length}, input{"kinematic viscosity", nu, quantity.KinematicViscosity}, input{"gravity", g, quantity.Acceleration},
+	); err != nil {
+		return 0, 0, err
+	}
+	if !(rhoS.Value() > rho.Value()) {
+		return 0, 0, &Error{Class: quantity.ErrInvalid, Op: "Shields parameter", Reason: "grains no denser than the water do not settle"}
+	}
+	theta = tau.Value() / ((rhoS.Value() - rho.Value()) * g.Value() * d.Value())
+	reStar = math.Sqrt(tau.Value()/rho.Value()) * d.Value() / nu.Value()
+	if err := checkResults("Shields parameter", true, result{"Shields parameter θ", theta}, result{"particle Reynolds number Re*", reStar}); err != nil {
+		return 0, 0, err
+	}
+	return theta, reStar, nil
+}
+
+// SedimentScales are the consequences of Shields similarity in a Froude
+// model of a movable bed, as ratios model/prototype.
+type SedimentScales struct {
+	Shear       float64 // bed shear stress over water density, u*²: λ_h²/λ_L
+	Grain       float64 // the grain diameter that keeps θ: λ_h²/(λ_L·λ_Δ)
+	ReStar      float64 // the particle Reynolds number that follows: √(λ_h²/λ_L)·λ_d/λ_ν
+	Exaggerated bool    // a distorted model (λ_h ≠ λ_L)
+}
+
+// SedimentFor returns the sediment scales of a Froude model with
+// horizontal length ratio lengthH and vertical ratio lengthV (equal for an
+// undistorted model), for a submerged relative density ratio deltaRatio
+// (λ_Δ, Δ = (ρ_s − ρ)/ρ: 1 for the prototype's sand, about 0.16/1.65 for
+// a light plastic) and viscosity ratio nuRatio (1 in the same water). The
+// bed shear follows from τ = ρgRS with the depth scaled by λ_h and the
+// slope by λ_h/λ_L; Shields similarity (λ_θ = 1) then fixes the grain.
+// A scale out of the range of a float64 is a *ResultRangeError. The
+// model grain's own Re* (the prototype's times ReStar) should be checked
+// with ParticleReynoldsCheck.
+func SedimentFor(lengthH, lengthV, deltaRatio, nuRatio float64) (SedimentScales, error) {
+	for _, r := range []float64{lengthH, lengthV, deltaRatio, nuRatio} {
+		if !(r > 0) || math.IsInf(r, 0) {
+			return SedimentScales{}, &Error{Class: quantity.ErrInvalid, Op: "sediment scales", Reason: fmt.Sprintf("ratio %v is not positive and finite", r)}
+		}
+	}
+	var s SedimentScales
+	s.Shear = lengthV * lengthV / lengthH
+	s.Grain = s.Shear / deltaRatio
+	s.ReStar = math.Sqrt(s.Shear) * s.Grain / nuRatio
+	s.Exaggerated = lengthH != lengthV
+	if err := checkResults("sediment scales", true, result{"bed shear ratio", s.Shear}, result{"grain ratio", s.Grain}, result{"particle Reynolds ratio", s.ReStar}); err != nil {
+		return SedimentScales{}, err
+	}
+	return s, nil
+}
+
+// ViscousParticleReynolds is the particle Reynolds number Re* = u*·d/ν
+// below which a grain lies within the viscous sublayer of the bed: the
+// hydraulically smooth regime, k_s·u*/ν < 5 for sand roughness k_s
+// (Nikuradse's pipe experiments as the open-channel texts quote them;
+// from memory). There the critical Shields parameter depends on Re* and
+// rises as Re* falls, where the prototype's sand is in the transitional
+// or rough regime, so a model grain below it no longer starts moving at
+// the prototype's θ.
+const ViscousParticleReynolds = 5.0
+
+// ParticleReynoldsCheck checks a movable-bed model grain's particle
+// Reynolds number reStar (u*·d/ν, from Shields, or the prototype's times
+// SedimentScales.ReStar) against ViscousParticleReynolds. A failing check
+// carries the warning that the grain is in the viscous range.
+func ParticleReynoldsCheck(reStar float64) (ScaleCheck, error) {
+	if !(reStar > 0) || math.IsInf(reStar, 0) {
+		return ScaleCheck{}, &Error{Class: quantity.ErrInvalid, Op: "particle Reynolds check", Reason: fmt.Sprintf("Re* = %v: want positive and finite", reStar)}
+	}
+	c := ScaleCheck{Name: "model grain Re* = u*·d/ν", Value: reStar, Limit: ViscousParticleReynolds, Unit: "1",
+		Pass:  reStar >= ViscousParticleReynolds,
+		Basis: "hydraulically smooth below it, the grain within the viscous sublayer; from memory"}
+	if !c.Pass {
+		c.Warning = "the grain is in the viscous range; its threshold of motion departs from the prototype's (a coarser, lighter grain raises Re*)"
+	}
+	return c, nil
+}
+
+// SmoothestModelManning is about the smallest Manning n, in s·m^(−1/3),
+// that the smooth materials of hydraulic models reach: 0.009 for plastic
+// (a published table of Manning coefficients, space4water.org, gives
+// plastic 0.009, PVC with smooth inner walls 0.009–0.011 and glass 0.010;
+// Chow's Open-Channel Hydraulics, 1959, Table 5-6, gives normal values of
+// 0.009 for lucite and 0.010 for glass, from memory).
+const SmoothestModelManning = 0.009
+
+// ModelManningCheck returns the Manning n a model needs, the prototype's
+// protoN (s·m^(−1/3)) times the roughness ratio nRatio (ManningRatio, or
+// Distorted.Manning), checked against SmoothestModelManning: a model that
+// needs a smoother surface than model materials reach fails, with a
+// warning that its friction will be too large.
+func ModelManningCheck(protoN, nRatio float64) (ScaleCheck, error) {
+	m := func(r string) error {
+		return &Error{Class: quantity.ErrInvalid, Op: "model roughness check", Reason: r}
+	}
+	if !(protoN > 0) || math.IsInf(protoN, 0) {
+		return ScaleCheck{}, m(fmt.Sprintf("prototype Manning n %v: want positive and finite", protoN))
+	}
+	if !(nRatio > 0) || math.IsInf(nRatio, 0) {
+		return ScaleCheck{}, m(fmt.Sprintf("Manning ratio %v: want positive and finite", nRatio))
+	}
+	n := protoN * nRatio
+	if err := checkResults("model roughness check", true, result{"model Manning n", n}); err != nil {
+		return ScaleCheck{}, err
+	}
+	c := ScaleCheck{Name: "model Manning n", Value: n, Limit: SmoothestModelManning, Unit: "s·m^(−1/3)",
+		Pass:  n >= SmoothestModelManning,
+		Basis: "the smoothest model materials in published Manning tables: plastic 0.009, glass 0.010"}
+	if !c.Pass {
+		c.Warning = "no model material is this smooth, so the model's friction will be too large (common remedies: tilt the model, or distort it)"
+	}
+	return c, nil
+}

@@ -1,0 +1,134 @@
+package ship
+
+import (
+	"fmt"
+	"strings"
+)
+
+// Table writes the extrapolation as the trade presents it, one row per
+// run: model speed, Fn, C_TM, C_FM and C_R (×10³), ship speed in knots,
+// C_FS and C_TS (×10³; C_TS includes C_A), ship resistance in kN and
+// effective power in kW; then the wetted surfaces, every warning and the
+// caution. Markdown if md is set.
+func (r *HullResult) Table(md bool) string {
+	head := []string{"V_m m/s", "Fn", "C_TM×10³", "C_FM×10³", "C_R×10³", "V_s kn", "C_FS×10³", "C_TS×10³", "R_TS kN", "P_E kW"}
+	var rows [][]string
+	var warn []string
+	for _, p := range r.Points {
+		rows = append(rows, []string{
+			fmt.Sprintf("%.3f", p.ModelSpeed.Value()), fmt.Sprintf("%.3f", p.Froude),
+			fmt.Sprintf("%.3f", p.ModelCT*1e3), fmt.Sprintf("%.3f", p.ModelCF*1e3), fmt.Sprintf("%.3f", p.Residual*1e3),
+			fmt.Sprintf("%.2f", p.ShipSpeed.Value()*3600/1852), fmt.Sprintf("%.3f", p.ShipCF*1e3), fmt.Sprintf("%.3f", p.ShipCT*1e3),
+			fmt.Sprintf("%.2f", p.ShipResistance.Value()/1e3),
+			fmt.Sprintf("%.1f", p.EffectivePower.Value()/1e3),
+		})
+		if p.Warning != "" {
+			warn = append(warn, "WARNING: "+p.Warning)
+		}
+	}
+	line := r.Test.Line
+	var sb strings.Builder
+	fmt.Fprintf(&sb, "Hull extrapolation: %v line, 1 + k = %.3f, C_A = %g, λ = 1:%.4g\n", line, r.FormFactor, r.Test.Allowance, 1/r.Test.Scale)
+	fmt.Fprintf(&sb, "C_TS = (1 + k)·C_FS + C_R + C_A; wetted surface model %.4g m², ship %.4g m²\n", r.Test.ModelWettedArea.Value(), r.ShipWettedArea.Value())
+	if md {
+		sb.WriteString("\n")
+	}
+	table(&sb, head, rows, md, true)
+	for _, w := range warn {
+		sb.WriteString(w + "\n")
+	}
+	sb.WriteString("CAUTION: " + r.Caution + "\n")
+	return sb.String()
+}
+
+// PoweringTable writes ITTC-1978 predictions as the trade presents them,
+// one row per speed: V_S (kn), Fn, C_R, ΔC_F, C_A and C_TS (×10³; C_TS
+// includes ΔC_F, C_A and C_AAS), R_TS (kN), P_E (kW), w_TS, J, K_T, K_Q,
+// η_O, η_H, η_R, η_D, n (rpm) and P_D (kW, all shafts), K_T and K_Q with
+// n in revolutions per second; then the source of C_A, every warning and
+// the caution. Markdown if md is set.
+func PoweringTable(rs []PoweringResult, md bool) string {
+	head := []string{"V_S kn", "Fn", "C_R×10³", "ΔC_F×10³", "C_A×10³", "C_TS×10³", "R_TS kN", "P_E kW", "w_TS", "J", "K_T", "K_Q", "η_O", "η_H", "η_R", "η_D", "n rpm", "P_D kW"}
+	var rows [][]string
+	var warn []string
+	formula := false
+	for _, r := range rs {
+		formula = formula || r.CorrelationFromFormula
+		if r.Warning != "" {
+			warn = append(warn, fmt.Sprintf("WARNING (%.2f kn): %s", r.ShipSpeed.Value()*3600/1852, r.Warning))
+		}
+		rows = append(rows, []string{
+			fmt.Sprintf("%.2f", r.ShipSpeed.Value()*3600/1852), fmt.Sprintf("%.3f", r.Froude),
+			fmt.Sprintf("%.3f", r.Residual*1e3), fmt.Sprintf("%.3f", r.RoughnessAllowance*1e3), fmt.Sprintf("%.3f", r.CorrelationAllowance*1e3),
+			fmt.Sprintf("%.3f", r.ShipCT*1e3),
+			fmt.Sprintf("%.1f", r.ShipResistance.Value()/1e3), fmt.Sprintf("%.0f", r.EffectivePower.Value()/1e3),
+			fmt.Sprintf("%.3f", r.ShipWake), fmt.Sprintf("%.3f", r.J), fmt.Sprintf("%.4f", r.KT), fmt.Sprintf("%.5f", r.KQ),
+			fmt.Sprintf("%.3f", r.Eta0), fmt.Sprintf("%.3f", r.EtaH), fmt.Sprintf("%.3f", r.EtaR), fmt.Sprintf("%.3f", r.EtaD),
+			fmt.Sprintf("%.1f", r.RPM), fmt.Sprintf("%.0f", r.DeliveredPower.Value()/1e3),
+		})
+	}
+	var sb strings.Builder
+	sb.WriteString("ITTC-1978 performance prediction (K_T, K_Q with n in rev/s; C_TS = (1 + k)C_FS + ΔC_F + C_A + C_R + C_AAS; P_D of all shafts)\n")
+	if md {
+		sb.WriteString("\n")
+	}
+	table(&sb, head, rows, md, true)
+	if formula {
+		sb.WriteString("C_A from the procedure's formula (5.68 − 0.6·log₁₀Re_S)·10⁻³ where the basin gave none\n")
+	}
+	for _, w := range warn {
+		sb.WriteString(w + "\n")
+	}
+	sb.WriteString("CAUTION: " + PoweringCaution + "\n")
+	return sb.String()
+}
+
+// table writes rows under a header as aligned text, or as a Markdown
+// table when md is set. With numeric set, every column holds numbers and
+// is right-aligned; otherwise columns are left-aligned.
+func table(sb *strings.Builder, head []string, rows [][]string, md, numeric bool) {
+	w := make([]int, len(head))
+	for i, h := range head {
+		w[i] = len([]rune(h))
+	}
+	for _, row := range rows {
+		for i, c := range row {
+			w[i] = max(w[i], len([]rune(c)))
+		}
+	}
+	line := func(cells []string) {
+		if md {
+			sb.WriteString("| " + strings.Join(cells, " | ") + " |\n")
+			return
+		}
+		for i, c := range cells {
+			pad := strings.Repeat(" ", w[i]-len([]rune(c)))
+			if i > 0 {
+				sb.WriteString("  ")
+			}
+			if numeric {
+				sb.WriteString(pad + c)
+			} else {
+				sb.WriteString(c + pad)
+			}
+		}
+		sb.WriteString("\n")
+	}
+	line(head)
+	if md {
+		sep := make([]string, len(head))
+		for i := range sep {
+			sep[i] = "---"
+			if numeric {
+				sep[i] = "---:"
+			}
+		}
+		line(sep)
+	}
+	for _, row := range rows {
+		line(row)
+	}
+}
+
+// fmtCoef formats a coefficient to four significant digits with its unit.
+func fmtCoef(x float64, unit string) string { return fmt.Sprintf("%.4g %s", x, unit) }

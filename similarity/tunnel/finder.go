@@ -1,0 +1,341 @@
+package tunnel
+
+import (
+	"fmt"
+	"math"
+
+	"similis.dev/similis/internal/roots"
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity/fluids"
+)
+
+// TunnelLimits bound a wind tunnel's total (stagnation) temperature and
+// pressure, the settling-chamber conditions a facility is specified and
+// certified by.
+type TunnelLimits struct {
+	MinTemperature, MaxTemperature quantity.Quantity // total temperature T₀
+	MinPressure, MaxPressure       quantity.Quantity // total pressure p₀
+	// MaxDynamicPressure, if set, is the largest q = (γ/2)·p·Ma² the
+	// balance and the model may see in the test section.
+	MaxDynamicPressure quantity.Quantity
+	// CondensationMargin is how far (in kelvin) the static temperature
+	// must stay above the gas's condensation temperature at the static
+	// pressure (fluids.IdealGas.LowestTemperature). It applies to a gas
+	// with a saturation curve (fluids.Nitrogen); unset, it is zero there:
+	// the test section is kept a gas, but with no margin.
+	CondensationMargin quantity.Quantity
+	// RatedLoad, if set, is the rated load of the weakest member of the
+	// model's load path (balance, sting, model or support), and LoadArea
+	// the model's largest force coefficient times its reference area
+	// (C·S, m²), so that C·S·q is the largest load at the found dynamic
+	// pressure. The finder compares the two and says so in Cautions; it
+	// does not lower q for it (MaxDynamicPressure does).
+	RatedLoad, LoadArea quantity.Quantity
+}
+
+// TunnelCondition is a condition found for a model: the total condition
+// the tunnel runs at, and the static state in the test section at the
+// held Mach number.
+type TunnelCondition struct {
+	Total fluids.Total // settling-chamber T₀ and p₀
+	// Temperature and Pressure are the test section's static state.
+	Temperature, Pressure, Velocity quantity.Quantity
+	Mach                            float64 // held equal to the prototype's
+	ModelReynolds, FullReynolds     float64
+	// ReynoldsRatio is Re_model/Re_prototype: 1 when both groups hold,
+	// less when the limits allow only part of the way.
+	ReynoldsRatio float64
+	Achieved      bool
+	Note          string
+	// Binding names the limits that set the condition ("maximum total
+	// pressure", "maximum dynamic pressure", "condensation margin",
+	// "minimum total temperature", …), and Q is the dynamic pressure in
+	// the test section.
+	Binding []string
+	Q       quantity.Quantity
+	// Gas is the test gas's name, as the condition was computed for it.
+	Gas string
+	// Load is LoadArea·Q, the largest load on the model's load path at
+	// this condition (zero when no LoadArea was given); Overloaded is
+	// set when it exceeds the RatedLoad.
+	Load       quantity.Quantity
+	Overloaded bool
+	// Cautions are the safety notes for running this condition: always
+	// TunnelCaution, the asphyxiation and cold hazards of a test gas
+	// other than air or below 0 °C, and the load against its rating.
+	Cautions []string
+}
+
+// TunnelCaution accompanies every pressurised or cryogenic tunnel
+// condition.
+const TunnelCaution = "Pressurised and cryogenic tunnel conditions must stay within the facility's certified operating envelope; " +
+	"pressure vessels are operated to the applicable pressure-equipment code, and every run follows the facility's safety rules " +
+	"under its responsible engineer, whose word overrides any figure computed here."
+
+// AsphyxiantCaution is added for a test gas other than air.
+const AsphyxiantCaution = "The test gas is not air: nitrogen or any inert gas vented or leaking into the test hall lowers the oxygen content " +
+	"without warning and can kill by asphyxiation; enter enclosed spaces only under the facility's oxygen-monitoring, ventilation and " +
+	"entry procedures."
+
+// ColdCaution is added for a total temperature below 0 °C.
+const ColdCaution = "Cryogenic gas, liquid nitrogen and cold model, sting and tunnel surfaces cause cold burns and embrittle materials; " +
+	"handle the model only after warm-up or with the protective equipment the facility's rules require, and use materials rated for the temperature."
+
+// FindTunnelCondition finds the total temperature and pressure of an
+// ideal-gas tunnel at which a model at lengthRatio holds both the
+// prototype's Mach and Reynolds numbers, within the limits, which are
+// total conditions. The test section's static state follows from the
+// total one by the isentropic relations at the held Mach number (see
+// fluids.TotalRatios); both are returned. With the Mach number held,
+// V_m = Ma·a(T), and the static pressure needed for the Reynolds number
+// is p(T) = Re·μ(T)·R·T/(V_m·L_m), which rises with T: the lowest allowed
+// total temperature needs the least total pressure. When no condition
+// within the limits holds both, it returns the one that comes closest in
+// Reynolds number, with Achieved false.
+//
+// The gas's own range narrows the limits: the static temperature is kept
+// at or above the gas's lowest temperature and above its condensation
+// temperature at the static pressure plus the CondensationMargin (zero
+// when unset), and the total temperature at or below the gas's highest;
+// a found state the gas model refuses is never returned. The returned
+// condition carries its safety Cautions, which defer to the facility's
+// safety rules and its responsible engineer.
+func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLength quantity.Quantity, lengthRatio float64, lim TunnelLimits) (TunnelCondition, error) {
+	for _, c := range []struct {
+		n string
+		q quantity.Quantity
+		d quantity.Dim
+	}{
+		{"prototype speed", protoSpeed, quantity.Velocity}, {"prototype length", protoLength, quantity.Length},
+		{"minimum temperature", lim.MinTemperature, quantity.Temperature}, {"maximum temperature", lim.MaxTemperature, quantity.Temperature},
+		{"minimum pressure", lim.MinPressure, quantity.Pressure}, {"maximum pressure", lim.MaxPressure, quantity.Pressure},
+	} {
+		if err := c.q.CheckNamed(c.n, c.d); err != nil {
+			return TunnelCondition{}, err
+		}
+	}
+	if !(lengthRatio > 0) || math.IsInf(lengthRatio, 0) {
+		return TunnelCondition{}, outOfRange("FindTunnelCondition", "length ratio", fmt.Sprintf("length ratio %v is not positive and finite", lengthRatio))
+	}
+	tlo, thi, plo, phi := lim.MinTemperature.Value(), lim.MaxTemperature.Value(), lim.MinPressure.Value(), lim.MaxPressure.Value()
+	if !(tlo > 0 && thi >= tlo && plo > 0 && phi >= plo) || math.IsInf(thi+phi, 0) {
+		return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: "tunnel limits must be positive and finite with minimum ≤ maximum"}
+	}
+	for _, c := range []struct {
+		n string
+		v float64
+	}{{"prototype speed", protoSpeed.Value()}, {"prototype length", protoLength.Value()}, {"prototype density", proto.Density.Value()},
+		{"prototype viscosity", proto.DynamicViscosity.Value()}, {"prototype speed of sound", proto.SpeedOfSound.Value()}} {
+		if !(c.v > 0) || math.IsInf(c.v, 0) {
+			return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Input: c.n, Class: quantity.ErrRange, Reason: fmt.Sprintf("%s %v is not positive and finite (a fluid state without a speed of sound cannot set a Mach number)", c.n, c.v)}
+		}
+	}
+	if _, err := gas.LowestTemperature(lim.MinPressure); err != nil {
+		return TunnelCondition{}, err // the gas's constants
+	}
+	ma := protoSpeed.Value() / proto.SpeedOfSound.Value()
+	tr, pr, err := fluids.TotalRatios(gas.Gamma, ma)
+	if err != nil {
+		return TunnelCondition{}, err
+	}
+	rep := proto.Density.Value() * protoSpeed.Value() * protoLength.Value() / proto.DynamicViscosity.Value()
+	lm := protoLength.Value() * lengthRatio
+	if !(rep > 0) || math.IsInf(rep, 0) || !(lm > 0) || math.IsInf(lm, 0) {
+		return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the full-scale Reynolds number %g and the model length %g m must be positive and finite", rep, lm)}
+	}
+	tminName, tmaxName := "minimum total temperature", "maximum total temperature"
+	// The gas's own range: the static temperature T₀/tr at or above its
+	// lowest, the total temperature at or below its highest.
+	if g := gas.MinTemperature * tr; g > tlo {
+		tlo, tminName = g, "lowest temperature of the "+gas.GasName+" model"
+		for i := 0; i < 8 && tlo/tr < gas.MinTemperature; i++ {
+			tlo = math.Nextafter(tlo, math.Inf(1)) // T₀/tr rounded below the bound
+		}
+	}
+	if gas.MaxTemperature > 0 && gas.MaxTemperature < thi {
+		thi, tmaxName = gas.MaxTemperature, "highest temperature of the "+gas.GasName+" model"
+	}
+	if !(tlo <= thi) {
+		return TunnelCondition{}, &fluids.RangeError{Fluid: gas.GasName, What: fmt.Sprintf("total temperature (K) of the tunnel limits at Mach %.3g (the gas model holds for static temperatures %g … %g K)", ma, gas.MinTemperature, gas.MaxTemperature),
+			Value: lim.MaxTemperature.Value(), Lo: tlo, Hi: thi}
+	}
+	// mu is Sutherland's law, NaN outside the gas's range (which the
+	// searches below read as no root).
+	mu := func(T float64) float64 {
+		v, err := gas.Viscosity(T)
+		if err != nil {
+			return math.NaN()
+		}
+		return v
+	}
+	speed := func(T float64) float64 { return ma * math.Sqrt(gas.Gamma*gas.R*T) }
+	// need0 is the total pressure that gives the full-scale Reynolds
+	// number at total temperature T0.
+	need0 := func(T0 float64) float64 {
+		T := T0 / tr
+		return pr * rep * mu(T) * gas.R * T / (speed(T) * lm)
+	}
+	c := TunnelCondition{Mach: ma, FullReynolds: rep, Gas: gas.GasName}
+	pmaxName := "maximum total pressure"
+	if q := lim.MaxDynamicPressure; q != (quantity.Quantity{}) {
+		if err := q.CheckNamed("maximum dynamic pressure", quantity.Pressure); err != nil {
+			return TunnelCondition{}, err
+		}
+		if !(q.Value() > 0) || math.IsInf(q.Value(), 0) {
+			return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: "the maximum dynamic pressure must be positive and finite"}
+		}
+		if pq := pr * 2 * q.Value() / (gas.Gamma * ma * ma); pq < phi {
+			phi, pmaxName = pq, "maximum dynamic pressure"
+		}
+		if phi < plo {
+			return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the maximum dynamic pressure %.4g Pa allows a total pressure of only %.4g Pa at Mach %.3g, below the minimum total pressure %.4g Pa", q.Value(), phi, ma, plo)}
+		}
+	}
+	if mg := lim.CondensationMargin; mg != (quantity.Quantity{}) || gas.Saturation != fluids.NoSaturation {
+		given := mg != (quantity.Quantity{})
+		if given {
+			if err := mg.CheckNamed("condensation margin", quantity.Temperature); err != nil {
+				return TunnelCondition{}, err
+			}
+		}
+		if gas.Saturation == fluids.NoSaturation {
+			return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: "a condensation margin is checked for a gas with a saturation curve (nitrogen); " + gas.GasName + " has none here"}
+		}
+		m := mg.Value()
+		if !(m >= 0) || math.IsInf(m, 0) {
+			return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the condensation margin %v K must be finite and not negative", m)}
+		}
+		name := "condensation margin"
+		if !given {
+			name = "saturation temperature (no margin given)"
+		}
+		// The margin at total temperature T0, with the pressure the
+		// Reynolds number needs (capped at the limits).
+		margin := func(T0 float64) float64 {
+			p := min(max(need0(T0), plo), phi) / pr
+			lo, err := gas.LowestTemperature(quantity.New(p, quantity.Pressure))
+			if err != nil {
+				return math.NaN()
+			}
+			return T0/tr - lo.Value() - m
+		}
+		// The static state must lie strictly above the condensation
+		// temperature, so the search keeps the side where the margin is
+		// positive.
+		if !(margin(tlo) > 0) {
+			if !(margin(thi) > 0) {
+				return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrInvalid, Reason: fmt.Sprintf("no total temperature up to %.4g K keeps the static %s gas %.3g K above its condensation temperature", thi, gas.GasName, m)}
+			}
+			lo, hi := tlo, thi
+			for range 200 {
+				mid := 0.5 * (lo + hi)
+				if margin(mid) > 0 {
+					hi = mid
+				} else {
+					lo = mid
+				}
+				if hi-lo <= 1e-12*hi {
+					break
+				}
+			}
+			tlo, tminName = hi, name
+		}
+	}
+	T0, p0 := tlo, need0(tlo)
+	switch {
+	case math.IsNaN(p0):
+		return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrInvalid, Reason: "no total pressure gives the Reynolds number at the lowest allowed total temperature"}
+	case p0 > phi:
+		p0 = phi
+		c.Binding = append(c.Binding, pmaxName, tminName)
+		c.Note = fmt.Sprintf("the Reynolds number needs a total pressure of %.4g Pa even at the lowest allowed total temperature; at the %s it reaches only part of full scale", need0(tlo), pmaxName)
+	case p0 < plo:
+		// Warm the gas until the minimum pressure gives the right Re.
+		if need0(thi) < plo {
+			T0, p0 = thi, plo
+			c.Binding = append(c.Binding, "minimum total pressure", tmaxName)
+			c.Note = "even at the highest total temperature the minimum total pressure overshoots the full-scale Reynolds number"
+		} else {
+			var err error
+			if T0, err = roots.Bisect(func(T0 float64) float64 { return need0(T0) - plo }, tlo, thi); err != nil {
+				return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrInvalid, Err: err, Reason: "no total temperature within the limits gives the Reynolds number at the minimum pressure"}
+			}
+			p0 = plo
+			c.Binding = append(c.Binding, "minimum total pressure")
+		}
+	default:
+		c.Binding = append(c.Binding, tminName)
+	}
+	c.Total = fluids.Total{Temperature: quantity.New(T0, quantity.Temperature), Pressure: quantity.New(p0, quantity.Pressure)}
+	T, p := T0/tr, p0/pr
+	st, err := gas.At(quantity.New(T, quantity.Temperature), quantity.New(p, quantity.Pressure))
+	if err != nil {
+		return TunnelCondition{}, err // never a state the gas model refuses
+	}
+	c.Temperature, c.Pressure = st.Temperature, st.Pressure
+	c.Velocity = quantity.New(speed(T), quantity.Velocity)
+	c.ModelReynolds = st.Density.Value() * speed(T) * lm / st.DynamicViscosity.Value()
+	c.ReynoldsRatio = c.ModelReynolds / rep
+	c.Q = quantity.New(0.5*gas.Gamma*p*ma*ma, quantity.Pressure)
+	if !tunnelFinite(T0, p0, c.Velocity.Value(), c.ModelReynolds, c.ReynoldsRatio, c.Q.Value()) {
+		return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the condition is not finite (T₀ = %g K, p₀ = %g Pa, Re_m = %g): the inputs are outside any tunnel's range", T0, p0, c.ModelReynolds)}
+	}
+	c.Achieved = math.Abs(c.ReynoldsRatio-1) < 1e-6
+	if c.Achieved {
+		c.Note = "Mach and Reynolds numbers both held"
+	}
+	if err := c.caution(gas, lim); err != nil {
+		return TunnelCondition{}, err
+	}
+	return c, nil
+}
+
+// tunnelFinite reports whether every value is a finite number.
+func tunnelFinite(xs ...float64) bool {
+	for _, x := range xs {
+		if math.IsNaN(x) || math.IsInf(x, 0) {
+			return false
+		}
+	}
+	return true
+}
+
+// caution fills the condition's load and safety notes.
+func (c *TunnelCondition) caution(gas fluids.IdealGas, lim TunnelLimits) error {
+	c.Cautions = []string{TunnelCaution}
+	if gas.GasName != fluids.Air().GasName {
+		c.Cautions = append(c.Cautions, AsphyxiantCaution)
+	}
+	if c.Total.Temperature.Value() < 273.15 {
+		c.Cautions = append(c.Cautions, ColdCaution)
+	}
+	rated, area := lim.RatedLoad, lim.LoadArea
+	if area != (quantity.Quantity{}) {
+		if err := checkInputs("tunnel condition finder", true, input{"load area C·S", area, quantity.Area}); err != nil {
+			return err
+		}
+		c.Load = c.Q.Mul(area)
+		if math.IsInf(c.Load.Value(), 0) {
+			return &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: "the load C·S·q is not finite"}
+		}
+	}
+	switch {
+	case rated != (quantity.Quantity{}):
+		if err := checkInputs("tunnel condition finder", true, input{"rated load", rated, quantity.Force}); err != nil {
+			return err
+		}
+		if area == (quantity.Quantity{}) {
+			return &Error{Op: "FindTunnelCondition", Class: quantity.ErrInvalid, Reason: "a rated load needs the load area C·S (the largest force coefficient times the reference area) to compare with"}
+		}
+		if l, r := c.Load.Value(), rated.Value(); l > r {
+			c.Overloaded = true
+			c.Cautions = append(c.Cautions, fmt.Sprintf("OVERLOAD: the load C·S·q = %.4g N at q = %.4g Pa exceeds the rated %.4g N of the balance, sting or model by %.0f %%; "+
+				"do not run this condition: lower the total pressure (a dynamic-pressure limit) or use a stronger balance, as the responsible engineer decides.", l, c.Q.Value(), r, 100*(l/r-1)))
+		} else {
+			c.Cautions = append(c.Cautions, fmt.Sprintf("load: C·S·q = %.4g N at q = %.4g Pa is %.0f %% of the rated %.4g N; gusts, starting loads and stall buffet add to it.", l, c.Q.Value(), 100*l/r, r))
+		}
+	default:
+		c.Cautions = append(c.Cautions, fmt.Sprintf("load: no rated load given — check the model, sting and balance against their ratings at q = %.4g Pa before running.", c.Q.Value()))
+	}
+	return nil
+}

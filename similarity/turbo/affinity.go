@@ -1,0 +1,93 @@
+package turbo
+
+import (
+	"fmt"
+	"math"
+
+	"similis.dev/similis/pigroups"
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
+)
+
+// Affinity holds the turbomachine flow, head and power coefficients for
+// a change of speed and diameter: Q ∝ N·D³, gH ∝ N²·D², P ∝ ρ·N³·D⁵.
+// Every ratio is model/prototype, as everywhere in this package; divide a
+// model value by it for the prototype.
+type Affinity struct {
+	RotationalSpeed, Diameter, Density float64 // λ_N, λ_D, λ_ρ
+	Flow, Head, Power                  float64 // λ_Q, λ_H (as gH), λ_P
+	Torque                             float64 // λ_T = λ_P/λ_N
+	// Pressure is the ratio of a fan's (or pump's) pressure rise,
+	// λ_Δp = λ_ρ·λ_H: the fan laws with the density of each side, as
+	// the fan pressure coefficient ψ_p = Δp/(ρn²D²) held equal gives.
+	Pressure float64
+}
+
+// AffinityScales are the model/prototype ratios the affinity laws take,
+// by name so that one cannot be given for another. Each must be positive
+// and finite; Density is 1 for the same fluid.
+type AffinityScales struct {
+	RotationalSpeed float64 // λ_N, the ratio of shaft speeds
+	Diameter        float64 // λ_D, the ratio of impeller or rotor diameters
+	Density         float64 // λ_ρ
+}
+
+// AffinityLaws returns the affinity-law ratios, model/prototype, for the
+// rotational speed, diameter and density ratios of sc, from the held coefficients solved exactly (Q/(ND³),
+// gH/(N²D²), P/(ρN³D⁵)), over the variables Q (volume flow rate), gH
+// (specific energy), P (power), N (rotational speed), D (diameter) and
+// rho (density). Efficiency is taken equal; see MoodyStepUp.
+func AffinityLaws(sc AffinityScales) (Affinity, error) {
+	if err := checkRatios("AffinityLaws", "rotational speed", sc.RotationalSpeed, "diameter", sc.Diameter, "density", sc.Density); err != nil {
+		return Affinity{}, err
+	}
+	speedRatio, diameterRatio, densityRatio := sc.RotationalSpeed, sc.Diameter, sc.Density
+	p := pigroups.MustProblem(
+		pigroups.VarKind("Q", quantity.VolumeFlowRate, "volume flow rate"), pigroups.VarKind("gH", quantity.SpecificEnergy, "specific energy"),
+		pigroups.VarKind("P", quantity.Power, "power"), pigroups.VarKind("N", quantity.AngularVelocity, "rotational speed"),
+		pigroups.VarKind("D", quantity.Length, "length"), pigroups.VarKind("rho", quantity.Density, "density"))
+	s, err := similarity.NewPlan(p).
+		HoldExps("the flow coefficient", map[string]int{"Q": 1, "N": -1, "D": -3}).
+		HoldExps("the head coefficient", map[string]int{"gH": 1, "N": -2, "D": -2}).
+		HoldExps("the power coefficient", map[string]int{"P": 1, "rho": -1, "N": -3, "D": -5}).
+		Fix("N", speedRatio).Fix("D", diameterRatio).Fix("rho", densityRatio).Basis("N", "D", "rho").Solve()
+	if err != nil {
+		return Affinity{}, err
+	}
+	v, err := ratioValues(s, "Q", "gH", "P")
+	if err != nil {
+		return Affinity{}, err
+	}
+	a := Affinity{RotationalSpeed: speedRatio, Diameter: diameterRatio, Density: densityRatio, Flow: v[0], Head: v[1], Power: v[2]}
+	a.Torque = a.Power / a.RotationalSpeed
+	a.Pressure = a.Density * a.Head
+	if err := checkRatios("AffinityLaws", "torque", a.Torque, "pressure", a.Pressure); err != nil {
+		return Affinity{}, err
+	}
+	return a, nil
+}
+
+// ratioValues returns the values of the ratios of the given variables.
+func ratioValues(s *similarity.Solution, syms ...string) ([]float64, error) {
+	out := make([]float64, len(syms))
+	for i, sym := range syms {
+		r, err := s.Ratio(sym)
+		if err != nil {
+			return nil, err
+		}
+		out[i] = r.Value
+	}
+	return out, nil
+}
+
+// checkRatios checks name–value pairs of model/prototype ratios for the
+// rule op: each must be positive and finite, or an *Error of class
+// quantity.ErrRange names it.
+func checkRatios(op string, pairs ...any) error {
+	for i := 0; i+1 < len(pairs); i += 2 {
+		if v := pairs[i+1].(float64); !(v > 0) || math.IsInf(v, 0) {
+			return outOfRange(op, pairs[i].(string), fmt.Sprintf("the %s ratio %v is not positive and finite (a model/prototype ratio)", pairs[i], v))
+		}
+	}
+	return nil
+}

@@ -1,0 +1,321 @@
+package turbo
+
+import (
+	"fmt"
+	"math"
+
+	"similis.dev/similis/quantity"
+)
+
+// PumpCaution accompanies every pump or turbine result carried from a
+// model to a prototype (step-ups, NPSH and Thoma number, specific speed):
+// print it with them.
+const PumpCaution = "Pump and turbine performance scaled from a model test is an estimate subject to scale effects; " +
+	"guaranteed performance comes from the acceptance test to the applicable standard (ISO 9906, IEC 60193), and the " +
+	"installation, its suction conditions and its pressure parts are designed to the applicable local codes and checked by licensed engineers."
+
+// IEC 60193 reference values for the scalable-loss step-up of reaction
+// machines (Francis and pump-turbines, pumps): the reference Reynolds
+// number and the scalable part of the losses at it.
+const (
+	IECReferenceReynolds = 7e6
+	IECScalableLoss      = 0.7
+)
+
+// IECStepUp steps up a hydraulic efficiency from model to prototype by
+// the scalable-loss formula of IEC 60193 (hydraulic turbines, storage
+// pumps and pump-turbines, model acceptance tests), quoted from memory:
+//
+//	δ_ref = (1 − η_M,opt)/((Re_ref/Re_M,opt)^0.16 + (1 − V_ref)/V_ref)
+//	Δη = δ_ref·((Re_ref/Re_M)^0.16 − (Re_ref/Re_P)^0.16)
+//
+// with Re_ref = 7×10⁶ and V_ref = 0.7. The Reynolds numbers are the
+// machines' own as the standard defines them (Re = D·u/ν with u the
+// peripheral speed at the reference diameter D); reM is the model's at
+// its test point, reP the prototype's. It returns the prototype
+// efficiency η_M + Δη, and Δη.
+func IECStepUp(etaModel, reM, reP float64) (etaProto, gain float64, err error) {
+	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: "IEC 60193 step-up", Reason: r} }
+	if !(etaModel > 0 && etaModel < 1) {
+		return 0, 0, m(fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))
+	}
+	if !(reM >= 1e5 && reP >= reM) || math.IsInf(reP, 0) {
+		return 0, 0, m(fmt.Sprintf("Reynolds numbers %g (model) and %g (prototype): want 10⁵ ≤ Re_M ≤ Re_P, finite", reM, reP))
+	}
+	const v = IECScalableLoss
+	r := func(re float64) float64 { return math.Pow(IECReferenceReynolds/re, 0.16) }
+	dref := (1 - etaModel) / (r(reM) + (1-v)/v)
+	gain = dref * (r(reM) - r(reP))
+	return etaModel + gain, gain, nil
+}
+
+// AckeretStepUp steps up an efficiency by Ackeret's formula (1930),
+// 1 − η_P = (1 − η_M)·(0.5 + 0.5·(Re_M/Re_P)^0.2): half the losses taken
+// as scaling with the Reynolds number to the power −0.2.
+func AckeretStepUp(etaModel, reM, reP float64) (float64, error) {
+	if !(etaModel > 0 && etaModel < 1) {
+		return 0, &Error{Class: quantity.ErrInvalid, Op: "Ackeret step-up", Reason: fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel)}
+	}
+	if !(reM > 0 && reP >= reM) || math.IsInf(reP, 0) {
+		return 0, &Error{Class: quantity.ErrInvalid, Op: "Ackeret step-up", Reason: fmt.Sprintf("Reynolds numbers %g (model) and %g (prototype): want 0 < Re_M ≤ Re_P, finite", reM, reP)}
+	}
+	return 1 - (1-etaModel)*(0.5+0.5*math.Pow(reM/reP, 0.2)), nil
+}
+
+// FanStepUp converts a fan's efficiency near its best-efficiency point
+// from the tested size or speed (Reynolds number reM) to another (reP) of
+// the same geometrically similar range, by Ackeret's formula applied as
+// fan test standards advise: because larger fans of a range perform
+// better but the formula's gain is uncertain, only half the predicted
+// increase is taken for a larger Reynolds number, and the full predicted
+// decrease for a smaller one. (The rule is the fan standards' clause on
+// the efficiency of other sizes, which admits it by agreement between
+// purchaser and manufacturer and only near the best efficiency; the
+// standards prefer testing enough sizes of the series that no fan's
+// performance is derived from a larger one.) The Reynolds
+// numbers must be on one definition, for example the impeller's tip
+// speed times its diameter over ν. It returns the converted efficiency
+// and the change applied.
+func FanStepUp(etaModel, reM, reP float64) (eta, change float64, err error) {
+	m := func(r string) error {
+		return &Error{Class: quantity.ErrInvalid, Op: "fan efficiency conversion", Reason: r}
+	}
+	if !(etaModel > 0 && etaModel < 1) {
+		return 0, 0, m(fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))
+	}
+	if !(reM > 0 && reP > 0) || math.IsInf(reM, 0) || math.IsInf(reP, 0) {
+		return 0, 0, m(fmt.Sprintf("Reynolds numbers %g and %g: want positive and finite", reM, reP))
+	}
+	full := (1 - etaModel) * (0.5 - 0.5*math.Pow(reM/reP, 0.2)) // Ackeret's change, η_P − η_M
+	change = full
+	if full > 0 {
+		change = full / 2
+	}
+	if eta = etaModel + change; !(eta > 0) {
+		return 0, 0, m(fmt.Sprintf("converted efficiency %.4g from η = %v at Re %g → %g: the Reynolds numbers are too far apart for the formula", eta, etaModel, reM, reP))
+	}
+	return eta, change, nil
+}
+
+// FanCurve converts a fan's efficiency curve by FanStepUp with the change
+// found at the best-efficiency point added at every point (common
+// practice; the formula holds only near that point).
+func FanCurve(etaModel []float64, reM, reP float64) (StepUp, error) {
+	out, err := newStepUp("fan efficiency conversion", etaModel, StepUpAtBEP)
+	if err != nil {
+		return StepUp{}, err
+	}
+	if _, out.Gain, err = FanStepUp(etaModel[out.BEP], reM, reP); err != nil {
+		return StepUp{}, err
+	}
+	for i, e := range etaModel {
+		out.Efficiency[i] = e + out.Gain
+		if !(out.Efficiency[i] > 0 && out.Efficiency[i] < 1) {
+			return StepUp{}, &Error{Class: quantity.ErrInvalid, Op: "fan efficiency conversion", Reason: fmt.Sprintf("point %d: converted efficiency %v is not between 0 and 1", i, out.Efficiency[i])}
+		}
+	}
+	return out, nil
+}
+
+// IECCurve steps up a model efficiency curve by IECStepUp with the gain
+// at the best-efficiency point added at every point, as the standard does;
+// reM and reP are the model's and prototype's Reynolds numbers.
+func IECCurve(etaModel []float64, reM, reP float64) (StepUp, error) {
+	out, err := newStepUp("IEC 60193 step-up", etaModel, StepUpAtBEP)
+	if err != nil {
+		return StepUp{}, err
+	}
+	_, gain, err := IECStepUp(etaModel[out.BEP], reM, reP)
+	if err != nil {
+		return StepUp{}, err
+	}
+	out.Gain = gain
+	for i, e := range etaModel {
+		out.Efficiency[i] = e + gain
+	}
+	return out, nil
+}
+
+// NPSHInput is the state at a pump's (or turbine's) low-pressure
+// reference section.
+type NPSHInput struct {
+	// Pressure is the absolute static pressure at the section (a gauge
+	// reading must first be made absolute with the day's barometer).
+	Pressure quantity.Quantity
+	// VapourPressure is the liquid's at its temperature
+	// (fluids.VapourPressure for water).
+	VapourPressure quantity.Quantity
+	Density        quantity.Quantity
+	// Velocity is the mean velocity at the section, for its velocity head.
+	Velocity quantity.Quantity
+	// Gravity is g; g_n if zero.
+	Gravity quantity.Quantity
+}
+
+// NPSH returns the net positive suction head (energy) at the section,
+// NPSH = (p − p_v)/(ρg) + V²/(2g), as a length: the head above vapour
+// pressure (ISO 9906, IEC 60193). A result out of the range of a float64
+// is a *ResultRangeError. See PumpCaution.
+func NPSH(in NPSHInput) (quantity.Quantity, error) {
+	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: "NPSH", Reason: r} }
+	if err := checkInputs("NPSH", false,
+		input{"pressure", in.Pressure, quantity.Pressure}, input{"vapour pressure", in.VapourPressure, quantity.Pressure},
+		input{"density", in.Density, quantity.Density}, input{"velocity", in.Velocity, quantity.Velocity},
+	); err != nil {
+		return quantity.Quantity{}, err
+	}
+	gq, err := gravityOr("NPSH", in.Gravity)
+	if err != nil {
+		return quantity.Quantity{}, err
+	}
+	g := gq.Value()
+	p, pv, rho, v := in.Pressure.Value(), in.VapourPressure.Value(), in.Density.Value(), in.Velocity.Value()
+	if !(p > 0) || !(pv > 0) || !(rho > 0) || math.IsInf(p+pv+rho+v, 0) || math.IsNaN(v) {
+		return quantity.Quantity{}, m("pressure, vapour pressure and density must be positive (absolute) and finite")
+	}
+	n := (p-pv)/(rho*g) + v*v/(2*g)
+	if err := checkResults("NPSH", false, result{"NPSH", n}); err != nil {
+		return quantity.Quantity{}, err
+	}
+	return quantity.New(n, quantity.Length), nil
+}
+
+// Thoma returns the Thoma cavitation number σ = NPSH/H: equal for model
+// and prototype at similar operating points (IEC 60193), so the
+// prototype's NPSH is σ·H_P.
+func Thoma(npsh, head quantity.Quantity) (float64, error) {
+	if err := npsh.CheckNamed("NPSH", quantity.Length); err != nil {
+		return 0, err
+	}
+	if err := head.CheckNamed("head", quantity.Length); err != nil {
+		return 0, err
+	}
+	if !(head.Value() > 0) || math.IsInf(head.Value(), 0) || math.IsNaN(npsh.Value()) || math.IsInf(npsh.Value(), 0) {
+		return 0, &Error{Class: quantity.ErrInvalid, Op: "Thoma number", Reason: fmt.Sprintf("NPSH %v and head %v: want a finite NPSH and a positive, finite head", npsh, head)}
+	}
+	sigma := npsh.Value() / head.Value()
+	return sigma, checkResults("Thoma number", false, result{"Thoma number σ", sigma})
+}
+
+// SuctionPressureFor returns the absolute static pressure the prototype
+// needs at its low-pressure section to run at the model's Thoma number σ
+// with head H: p = p_v + ρg(σH − V²/(2g)), with the vapour pressure at the
+// prototype's own water temperature. Head, vapour pressure and density
+// must be positive and finite, the velocity finite. See PumpCaution.
+func SuctionPressureFor(sigma float64, head quantity.Quantity, vapour, density, velocity, gravity quantity.Quantity) (quantity.Quantity, error) {
+	if err := checkInputs("suction pressure", true,
+		input{"head", head, quantity.Length}, input{"vapour pressure", vapour, quantity.Pressure},
+		input{"density", density, quantity.Density},
+	); err != nil {
+		return quantity.Quantity{}, err
+	}
+	if err := checkInputs("suction pressure", false, input{"velocity", velocity, quantity.Velocity}); err != nil {
+		return quantity.Quantity{}, err
+	}
+	if v := velocity.Value(); math.IsNaN(v) || math.IsInf(v, 0) {
+		return quantity.Quantity{}, &Error{Class: quantity.ErrInvalid, Op: "suction pressure", Reason: "velocity must be finite"}
+	}
+	gq, err := gravityOr("suction pressure", gravity)
+	if err != nil {
+		return quantity.Quantity{}, err
+	}
+	g := gq.Value()
+	if !(sigma >= 0) || math.IsInf(sigma, 0) {
+		return quantity.Quantity{}, &Error{Class: quantity.ErrInvalid, Op: "suction pressure", Reason: fmt.Sprintf("Thoma number %v", sigma)}
+	}
+	v := velocity.Value()
+	p := vapour.Value() + density.Value()*g*(sigma*head.Value()-v*v/(2*g))
+	if err := checkResults("suction pressure", false, result{"required absolute pressure", p}); err != nil {
+		return quantity.Quantity{}, err
+	}
+	if !(p > 0) {
+		return quantity.Quantity{}, &Error{Class: quantity.ErrInvalid, Op: "suction pressure", Reason: fmt.Sprintf("the required absolute pressure %.4g Pa is not positive", p)}
+	}
+	return quantity.New(p, quantity.Pressure), nil
+}
+
+// SpecificSpeeds is a machine's specific speed in the three conventions
+// in use, all at the same point (the best-efficiency point, per stage and
+// per eye): the dimensionless Ω_s = ω·Q^½/(gH)^¾ with ω in rad/s, the
+// metric n_q = n·Q^½/H^¾ with n in rpm, Q in m³/s and H in m, and the US
+// N_s = n·Q^½/H^¾ with n in rpm, Q in US gallons per minute and H in feet.
+type SpecificSpeeds struct {
+	Dimensionless, Metric, US float64
+}
+
+// Exact factors between the conventions: 1 US gallon = 3.785411784 L,
+// 1 ft = 0.3048 m (NIST SP 811), g_n = 9.80665 m/s².
+var (
+	usPerMetric            = math.Sqrt(60/3.785411784e-3) * math.Pow(0.3048, 0.75)
+	dimensionlessPerMetric = (2 * math.Pi / 60) / math.Pow(9.80665, 0.75)
+)
+
+// SpecificSpeedOf returns the specific speeds of a machine turning at
+// the angular velocity omega, with flow Q and head H, for standard
+// gravity. Give omega through its unit, units.MustParse("rpm").Of(1450):
+// a rotational speed and a frequency share a dimension, so a bare
+// quantity.New(1450/60, …) in rev/s would be read as rad/s, 2π too small.
+func SpecificSpeedOf(omega, flow, head quantity.Quantity) (SpecificSpeeds, error) {
+	if err := omega.CheckNamed("rotational speed", quantity.AngularVelocity); err != nil {
+		return SpecificSpeeds{}, err
+	}
+	if err := flow.CheckNamed("flow", quantity.VolumeFlowRate); err != nil {
+		return SpecificSpeeds{}, err
+	}
+	if err := head.CheckNamed("head", quantity.Length); err != nil {
+		return SpecificSpeeds{}, err
+	}
+	w, qv, h := omega.Value(), flow.Value(), head.Value()
+	if !(w > 0 && qv > 0 && h > 0) || math.IsInf(w+qv+h, 0) {
+		return SpecificSpeeds{}, &Error{Class: quantity.ErrInvalid, Op: "specific speed", Reason: "speed, flow and head must be positive and finite"}
+	}
+	return specificSpeeds(w * 60 / (2 * math.Pi) * math.Sqrt(qv) / math.Pow(h, 0.75))
+}
+
+// SpecificSpeedMetric converts n_q (rpm, m³/s, m) to all three forms. A
+// specific speed that is not positive and finite is an
+// *ExtrapolationError; one whose other forms overflow a float64 is a
+// *ResultRangeError.
+func SpecificSpeedMetric(nq float64) (SpecificSpeeds, error) {
+	if err := specificSpeedIn("n_q", nq); err != nil {
+		return SpecificSpeeds{}, err
+	}
+	return specificSpeeds(nq)
+}
+
+// SpecificSpeedUS converts N_s (rpm, US gpm, ft) to all three forms,
+// with the errors of SpecificSpeedMetric.
+func SpecificSpeedUS(ns float64) (SpecificSpeeds, error) {
+	if err := specificSpeedIn("N_s", ns); err != nil {
+		return SpecificSpeeds{}, err
+	}
+	return specificSpeeds(ns / usPerMetric)
+}
+
+// SpecificSpeedDimensionless converts Ω_s (rad/s, m³/s, m, g_n) to all
+// three forms, with the errors of SpecificSpeedMetric.
+func SpecificSpeedDimensionless(omega float64) (SpecificSpeeds, error) {
+	if err := specificSpeedIn("Ω_s", omega); err != nil {
+		return SpecificSpeeds{}, err
+	}
+	return specificSpeeds(omega / dimensionlessPerMetric)
+}
+
+// specificSpeedIn checks a specific speed given in one form.
+func specificSpeedIn(form string, v float64) error {
+	if !(v > 0) || math.IsInf(v, 0) {
+		return &Error{Class: quantity.ErrInvalid, Op: "specific speed", Reason: fmt.Sprintf("%s = %v: want a positive, finite specific speed", form, v)}
+	}
+	return nil
+}
+
+// specificSpeeds returns the three forms from n_q, each checked.
+func specificSpeeds(nq float64) (SpecificSpeeds, error) {
+	s := SpecificSpeeds{Dimensionless: nq * dimensionlessPerMetric, Metric: nq, US: nq * usPerMetric}
+	if err := checkResults("specific speed", true,
+		result{"specific speed n_q", s.Metric}, result{"specific speed N_s", s.US}, result{"specific speed Ω_s", s.Dimensionless},
+	); err != nil {
+		return SpecificSpeeds{}, err
+	}
+	return s, nil
+}
