@@ -154,7 +154,7 @@ func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 		}
 		etas[i] = eta.Value()
 	}
-	step, err := turbo.MoodyCurve(etas, dModel, dProto, *moody, turbo.StepUpAtBEP)
+	step, err := turbo.MoodyCurve(etas, turbo.Diameters{Model: dModel, Prototype: dProto}, *moody, turbo.StepUpAtBEP)
 	if err != nil {
 		return nil, Suction{}, err
 	}
@@ -252,10 +252,10 @@ func suction(w io.Writer, step turbo.StepUp, etas []float64, rows []Row, nm, np,
 	s.ReModel, s.ReProto = re(dModel, nm, mw), re(dProto, np, pw)
 	// A comparison the formulas refuse (a model Reynolds number below
 	// their range) is reported, not fatal: Moody's step-up stands alone.
-	if s.IEC, s.IECGain, err = turbo.IECStepUp(etas[step.BEP], s.ReModel, s.ReProto); err != nil {
+	if s.IEC, s.IECGain, err = turbo.IECStepUp(etas[step.BEP], turbo.ReynoldsNumbers{Model: s.ReModel, Prototype: s.ReProto}); err != nil {
 		s.IECRefused = err.Error()
 	}
-	if s.Ackeret, err = turbo.AckeretStepUp(etas[step.BEP], s.ReModel, s.ReProto); err != nil {
+	if s.Ackeret, err = turbo.AckeretStepUp(etas[step.BEP], turbo.ReynoldsNumbers{Model: s.ReModel, Prototype: s.ReProto}); err != nil {
 		s.AckeretRefused = err.Error()
 	}
 	ft := units.MustParse("ft")

@@ -193,7 +193,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	if math.IsNaN(d.Velocity) {
 		return nil, fmt.Errorf("distorted ratios undefined")
 	}
-	if r.Sediment, err = hydraulic.SedimentFor(1 / *hs, 1 / *vs, 1, 1); err != nil {
+	if r.Sediment, err = hydraulic.SedimentFor(hydraulic.SedimentRatios{Horizontal: 1 / *hs, Vertical: 1 / *vs, RelativeDensity: 1, Viscosity: 1}); err != nil {
 		return nil, err
 	}
 	fmt.Fprintf(w, "  movable bed (Shields similarity, the same water): bed shear u*² ratio %.4g; with the prototype's sand the grains\n", r.Sediment.Shear)

@@ -143,14 +143,29 @@ func CrestRadiusCheck(radius quantity.Quantity, lim FreeSurfaceLimits) (ScaleChe
 	return ScaleCheck{Name: "crest radius R", Value: radius.Value(), Limit: lo, Unit: "m", Pass: radius.Value() >= lo, Basis: lim.CrestRadiusBasis}, nil
 }
 
+// ShieldsInput is a bed of grains under flowing water, each value named so
+// that the two densities cannot be swapped.
+type ShieldsInput struct {
+	BedShearStress     quantity.Quantity // τ_b
+	GrainDensity       quantity.Quantity // ρ_s
+	WaterDensity       quantity.Quantity // ρ
+	GrainDiameter      quantity.Quantity // d
+	KinematicViscosity quantity.Quantity // ν of the water
+	Gravity            quantity.Quantity // g; g_n when unset
+}
+
 // Shields returns the Shields parameter θ = τ_b/((ρ_s − ρ)·g·d) and the
-// particle (shear) Reynolds number Re* = u*·d/ν, u* = √(τ_b/ρ), of grains
-// of diameter d and density rhoS under the bed shear stress tau in water
-// of density rho and kinematic viscosity nu: the two groups that govern
+// particle (shear) Reynolds number Re* = u*·d/ν, u* = √(τ_b/ρ), of the
+// grains of in under its bed shear stress: the two groups that govern
 // the start of sediment motion (Shields, 1936). A group out of the range
 // of a float64 is a *ResultRangeError; ParticleReynoldsCheck says whether
 // a model grain's Re* is in the viscous range.
-func Shields(tau, rhoS, rho, d, nu, g quantity.Quantity) (theta, reStar float64, err error) {
+func Shields(in ShieldsInput) (theta, reStar float64, err error) {
+	tau, rhoS, rho, d, nu := in.BedShearStress, in.GrainDensity, in.WaterDensity, in.GrainDiameter, in.KinematicViscosity
+	g, err := gravityOr("Shields parameter", in.Gravity)
+	if err != nil {
+		return 0, 0, err
+	}
 	if err := checkInputs("Shields parameter", true,
 		input{"bed shear stress", tau, quantity.Pressure}, input{"grain density", rhoS, quantity.Density}, input{"water density", rho, quantity.Density},
 		input{"grain diameter", d, quantity.Length}, input{"kinematic viscosity", nu, quantity.KinematicViscosity}, input{"gravity", g, quantity.Acceleration},
@@ -177,20 +192,30 @@ type SedimentScales struct {
 	Exaggerated bool    // a distorted model (λ_h ≠ λ_L)
 }
 
-// SedimentFor returns the sediment scales of a Froude model with
-// horizontal length ratio lengthH and vertical ratio lengthV (equal for an
-// undistorted model), for a submerged relative density ratio deltaRatio
-// (λ_Δ, Δ = (ρ_s − ρ)/ρ: 1 for the prototype's sand, about 0.16/1.65 for
-// a light plastic) and viscosity ratio nuRatio (1 in the same water). The
+// SedimentRatios are the model/prototype ratios a movable-bed Froude
+// model is built to, named so that none can be given for another.
+type SedimentRatios struct {
+	Horizontal      float64 // λ_L, lengths in plan
+	Vertical        float64 // λ_h, depths (equal to Horizontal for an undistorted model)
+	RelativeDensity float64 // λ_Δ, Δ = (ρ_s − ρ)/ρ: 1 for the prototype's sand, about 0.16/1.65 for a light plastic
+	Viscosity       float64 // λ_ν, 1 in the same water
+}
+
+// SedimentFor returns the sediment scales of a Froude model built to the
+// ratios r. The
 // bed shear follows from τ = ρgRS with the depth scaled by λ_h and the
 // slope by λ_h/λ_L; Shields similarity (λ_θ = 1) then fixes the grain.
 // A scale out of the range of a float64 is a *ResultRangeError. The
 // model grain's own Re* (the prototype's times ReStar) should be checked
 // with ParticleReynoldsCheck.
-func SedimentFor(lengthH, lengthV, deltaRatio, nuRatio float64) (SedimentScales, error) {
-	for _, r := range []float64{lengthH, lengthV, deltaRatio, nuRatio} {
-		if !(r > 0) || math.IsInf(r, 0) {
-			return SedimentScales{}, &Error{Class: quantity.ErrInvalid, Op: "sediment scales", Reason: fmt.Sprintf("ratio %v is not positive and finite", r)}
+func SedimentFor(r SedimentRatios) (SedimentScales, error) {
+	lengthH, lengthV, deltaRatio, nuRatio := r.Horizontal, r.Vertical, r.RelativeDensity, r.Viscosity
+	for _, c := range []struct {
+		name string
+		v    float64
+	}{{"Horizontal", lengthH}, {"Vertical", lengthV}, {"RelativeDensity", deltaRatio}, {"Viscosity", nuRatio}} {
+		if !(c.v > 0) || math.IsInf(c.v, 0) {
+			return SedimentScales{}, invalid("sediment scales", c.name, fmt.Sprintf("SedimentRatios.%s = %v is not positive and finite", c.name, c.v))
 		}
 	}
 	var s SedimentScales

@@ -84,8 +84,7 @@ func TestWeirLimits(t *testing.T) {
 // model with vertical 1:5 in the same water with the same sand needs
 // grains of λ_h²/λ_L = (1/25)/(1/20) = 0.8 of the prototype's.
 func TestShields(t *testing.T) {
-	th, rs, err := hydraulic.Shields(quantity.New(0.5, quantity.Pressure), quantity.New(2650, quantity.Density), quantity.New(998.2, quantity.Density),
-		quantity.New(0.001, quantity.Length), quantity.New(1.0035e-6, quantity.KinematicViscosity), quantity.New(9.80665, quantity.Acceleration))
+	th, rs, err := hydraulic.Shields(hydraulic.ShieldsInput{BedShearStress: quantity.New(0.5, quantity.Pressure), GrainDensity: quantity.New(2650, quantity.Density), WaterDensity: quantity.New(998.2, quantity.Density), GrainDiameter: quantity.New(0.001, quantity.Length), KinematicViscosity: quantity.New(1.0035e-6, quantity.KinematicViscosity), Gravity: quantity.New(9.80665, quantity.Acceleration)})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -94,7 +93,7 @@ func TestShields(t *testing.T) {
 	if math.Abs(th-wth) > 1e-12 || math.Abs(rs-wrs) > 1e-9 {
 		t.Errorf("θ = %v, Re* = %v; by hand %v, %v", th, rs, wth, wrs)
 	}
-	s, err := hydraulic.SedimentFor(1.0/20, 1.0/5, 1, 1)
+	s, err := hydraulic.SedimentFor(hydraulic.SedimentRatios{Horizontal: 1.0 / 20, Vertical: 1.0 / 5, RelativeDensity: 1, Viscosity: 1})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -107,8 +106,8 @@ func TestShields(t *testing.T) {
 // grains would have to be 40 times smaller (silt, cohesive); with a light
 // plastic of Δ = 0.05 against sand's 1.65 they can be larger.
 func ExampleSedimentFor() {
-	sand, _ := hydraulic.SedimentFor(1.0/40, 1.0/40, 1, 1)
-	plastic, _ := hydraulic.SedimentFor(1.0/40, 1.0/40, 0.05/1.65, 1)
+	sand, _ := hydraulic.SedimentFor(hydraulic.SedimentRatios{Horizontal: 1.0 / 40, Vertical: 1.0 / 40, RelativeDensity: 1, Viscosity: 1})
+	plastic, _ := hydraulic.SedimentFor(hydraulic.SedimentRatios{Horizontal: 1.0 / 40, Vertical: 1.0 / 40, RelativeDensity: 0.05 / 1.65, Viscosity: 1})
 	fmt.Printf("same sand: grain ratio %.4f, Re* ratio %.4f\n", sand.Grain, sand.ReStar)
 	fmt.Printf("light plastic: grain ratio %.3f, Re* ratio %.3f\n", plastic.Grain, plastic.ReStar)
 	// Output:

@@ -35,9 +35,9 @@ func FuzzHydraulic(f *testing.F) {
 		}
 		rc, err := hydraulic.CrestRadiusCheck(q.New(h, q.Length), lim)
 		finite("CrestRadiusCheck", err, rc.Value, rc.Limit)
-		theta, reStar, err := hydraulic.Shields(q.New(d, q.Pressure), q.New(b, q.Density), q.New(k, q.Density), q.New(h, q.Length), q.New(c, q.KinematicViscosity), q.New(e, q.Acceleration))
+		theta, reStar, err := hydraulic.Shields(hydraulic.ShieldsInput{BedShearStress: q.New(d, q.Pressure), GrainDensity: q.New(b, q.Density), WaterDensity: q.New(k, q.Density), GrainDiameter: q.New(h, q.Length), KinematicViscosity: q.New(c, q.KinematicViscosity), Gravity: q.New(e, q.Acceleration)})
 		finite("Shields", err, theta, reStar)
-		sd, err := hydraulic.SedimentFor(a, b, c, d)
+		sd, err := hydraulic.SedimentFor(hydraulic.SedimentRatios{Horizontal: a, Vertical: b, RelativeDensity: c, Viscosity: d})
 		finite("SedimentFor", err, sd.Shear, sd.Grain, sd.ReStar)
 		pc, err := hydraulic.ParticleReynoldsCheck(e)
 		finite("ParticleReynoldsCheck", err, pc.Value, pc.Limit)

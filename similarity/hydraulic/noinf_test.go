@@ -43,10 +43,13 @@ func TestHydraulicNoSilentInf(t *testing.T) {
 	m := func(v float64) q.Quantity { return q.New(v, q.Length) }
 	nu, sig := q.New(1e-6, q.KinematicViscosity), q.New(0.073, q.SurfaceTension)
 	shields := func(tau, d, grav float64) error {
-		_, _, err := hydraulic.Shields(pa(tau), rho(2650), rho(1000), m(d), nu, q.New(grav, q.Acceleration))
+		_, _, err := hydraulic.Shields(hydraulic.ShieldsInput{BedShearStress: pa(tau), GrainDensity: rho(2650), WaterDensity: rho(1000), GrainDiameter: m(d), KinematicViscosity: nu, Gravity: q.New(grav, q.Acceleration)})
 		return err
 	}
-	sediment := func(h, v, delta, n float64) error { _, err := hydraulic.SedimentFor(h, v, delta, n); return err }
+	sediment := func(h, v, delta, n float64) error {
+		_, err := hydraulic.SedimentFor(hydraulic.SedimentRatios{Horizontal: h, Vertical: v, RelativeDensity: delta, Viscosity: n})
+		return err
+	}
 	free := func(v, h float64, lim hydraulic.FreeSurfaceLimits) error {
 		_, err := hydraulic.FreeSurfaceChecks(vel(v), m(h), nu, rho(1000), sig, lim)
 		return err

@@ -248,12 +248,23 @@ func WaveResistance(re, ct []float64, formFactor float64, line FrictionLine) ([]
 	return out, nil
 }
 
+// TemperatureInput is one run for TemperatureCorrection, its values named
+// so that the two Reynolds numbers cannot be swapped.
+type TemperatureInput struct {
+	CT               float64      // the model's total resistance coefficient at the test temperature
+	TestReynolds     float64      // Re = VL/ν at the test temperature
+	StandardReynolds float64      // Re at the same speed in water at the standard temperature (15 °C)
+	FormFactor       float64      // 1 + k, within 1 … 2
+	Line             FrictionLine // the friction line of the extrapolation
+}
+
 // TemperatureCorrection corrects a model's total resistance coefficient
 // measured in water at one temperature to another (the standard 15 °C),
 // through the friction line at the two Reynolds numbers of the same
 // speed: C_T(15) = C_T(t) + (1 + k)·(C_F(Re₁₅) − C_F(Re_t)), the wave part
 // being unchanged. The resistance at 15 °C is C_T(15)·½ρ₁₅V²S.
-func TemperatureCorrection(ct, reTest, reStd, formFactor float64, line FrictionLine) (float64, error) {
+func TemperatureCorrection(in TemperatureInput) (float64, error) {
+	ct, reTest, reStd, formFactor, line := in.CT, in.TestReynolds, in.StandardReynolds, in.FormFactor, in.Line
 	if !(formFactor >= 1 && formFactor <= 2) || math.IsNaN(ct) || math.IsInf(ct, 0) {
 		return 0, &Error{Class: quantity.ErrInvalid, Op: "temperature correction", Reason: fmt.Sprintf("C_T = %v and 1 + k = %v: want a finite C_T and 1 ≤ 1 + k ≤ 2", ct, formFactor)}
 	}

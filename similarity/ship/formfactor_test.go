@@ -85,7 +85,7 @@ func TestProhaskaExponent(t *testing.T) {
 func TestTemperatureCorrection(t *testing.T) {
 	ret, res := 2*4/1.0035e-6, 2*4/1.1386e-6
 	cf := func(r float64) float64 { d := math.Log10(r) - 2; return 0.075 / (d * d) }
-	got, err := ship.TemperatureCorrection(4.5e-3, ret, res, 1.1, ship.LineITTC1957)
+	got, err := ship.TemperatureCorrection(ship.TemperatureInput{CT: 4.5e-3, TestReynolds: ret, StandardReynolds: res, FormFactor: 1.1, Line: ship.LineITTC1957})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -153,7 +153,7 @@ func TestWaveResistanceRefuses(t *testing.T) {
 	if _, err := ship.WaveResistance([]float64{2e6}, []float64{4e-3}, 0.9, ship.LineITTC1957); err == nil {
 		t.Errorf("1 + k = 0.9 accepted")
 	}
-	if _, err := ship.TemperatureCorrection(math.Inf(1), 2e6, 1.8e6, 1.1, ship.LineITTC1957); err == nil {
+	if _, err := ship.TemperatureCorrection(ship.TemperatureInput{CT: math.Inf(1), TestReynolds: 2e6, StandardReynolds: 1.8e6, FormFactor: 1.1, Line: ship.LineITTC1957}); err == nil {
 		t.Errorf("an infinite C_T accepted")
 	}
 }

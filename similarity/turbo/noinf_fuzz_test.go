@@ -27,17 +27,17 @@ func FuzzTurbo(f *testing.F) {
 				}
 			}
 		}
-		eta, gain, err := turbo.IECStepUp(a, b, c)
+		eta, gain, err := turbo.IECStepUp(a, turbo.ReynoldsNumbers{Model: b, Prototype: c})
 		finite("IECStepUp", err, eta, gain)
-		eta, err = turbo.AckeretStepUp(a, b, c)
+		eta, err = turbo.AckeretStepUp(a, turbo.ReynoldsNumbers{Model: b, Prototype: c})
 		finite("AckeretStepUp", err, eta)
-		eta, gain, err = turbo.FanStepUp(a, b, c)
+		eta, gain, err = turbo.FanStepUp(a, turbo.ReynoldsNumbers{Model: b, Prototype: c})
 		finite("FanStepUp", err, eta, gain)
 		curve := []float64{a, a * 0.9, math.Abs(k)}
-		if st, err := turbo.FanCurve(curve, b, c); err == nil {
+		if st, err := turbo.FanCurve(curve, turbo.ReynoldsNumbers{Model: b, Prototype: c}); err == nil {
 			finite("FanCurve", nil, append(st.Efficiency, st.Gain)...)
 		}
-		if st, err := turbo.IECCurve(curve, b, c); err == nil {
+		if st, err := turbo.IECCurve(curve, turbo.ReynoldsNumbers{Model: b, Prototype: c}); err == nil {
 			finite("IECCurve", nil, append(st.Efficiency, st.Gain)...)
 		}
 		n, err := turbo.NPSH(turbo.NPSHInput{Pressure: q.New(d, q.Pressure), VapourPressure: q.New(e, q.Pressure),

@@ -28,11 +28,11 @@ func TestAffinity(t *testing.T) {
 // TestMoody checks η_p = 1 − (1 − η_m)(D_m/D_p)^(1/5) against a value
 // worked by hand: η_m = 0.85, D_m/D_p = 1/4 gives 0.886321.
 func TestMoody(t *testing.T) {
-	eta, err := turbo.MoodyStepUp(0.85, q.New(0.3, q.Length), q.New(1.2, q.Length), 0)
+	eta, err := turbo.MoodyStepUp(0.85, turbo.Diameters{Model: q.New(0.3, q.Length), Prototype: q.New(1.2, q.Length)}, 0)
 	if err != nil || math.Abs(eta-0.886321) > 5e-7 {
 		t.Errorf("Moody = %v, %v", eta, err)
 	}
-	if _, err := turbo.MoodyStepUp(1.2, q.New(0.3, q.Length), q.New(1.2, q.Length), 0); err == nil {
+	if _, err := turbo.MoodyStepUp(1.2, turbo.Diameters{Model: q.New(0.3, q.Length), Prototype: q.New(1.2, q.Length)}, 0); err == nil {
 		t.Error("efficiency 1.2 accepted")
 	}
 }

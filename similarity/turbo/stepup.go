@@ -7,12 +7,20 @@ import (
 	"similis.dev/similis/quantity"
 )
 
+// Diameters are a model's and a prototype's impeller or runner diameters
+// (at the same reference point of the two machines), named so that one
+// cannot be given for the other.
+type Diameters struct {
+	Model, Prototype quantity.Quantity // D_m, D_p
+}
+
 // MoodyStepUp carries a model pump or turbine efficiency to the
 // prototype by Moody's formula, η_p = 1 − (1 − η_m)·(D_m/D_p)^n, with
 // n = 1/5 if exponent is zero (L. F. Moody, 1925). It is an estimate;
 // acceptance tests follow the applicable standard (IEC 60193 for
 // hydraulic machines).
-func MoodyStepUp(etaModel float64, dModel, dProto quantity.Quantity, exponent float64) (float64, error) {
+func MoodyStepUp(etaModel float64, d Diameters, exponent float64) (float64, error) {
+	dModel, dProto := d.Model, d.Prototype
 	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: "Moody step-up", Reason: r} }
 	if !(etaModel > 0 && etaModel < 1) {
 		return 0, m(fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))
@@ -80,12 +88,12 @@ type StepUp struct {
 // MoodyCurve steps up a model efficiency curve by Moody's formula (see
 // MoodyStepUp) with the chosen method; the result says which. The
 // efficiencies must lie strictly between 0 and 1.
-func MoodyCurve(etaModel []float64, dModel, dProto quantity.Quantity, exponent float64, method StepUpMethod) (StepUp, error) {
+func MoodyCurve(etaModel []float64, d Diameters, exponent float64, method StepUpMethod) (StepUp, error) {
 	out, err := newStepUp("Moody step-up", etaModel, method)
 	if err != nil {
 		return StepUp{}, err
 	}
-	bep, err := MoodyStepUp(etaModel[out.BEP], dModel, dProto, exponent)
+	bep, err := MoodyStepUp(etaModel[out.BEP], d, exponent)
 	if err != nil {
 		return StepUp{}, err
 	}
@@ -95,7 +103,7 @@ func MoodyCurve(etaModel []float64, dModel, dProto quantity.Quantity, exponent f
 		case StepUpAtBEP:
 			out.Efficiency[i] = e + out.Gain
 		case StepUpEachPoint:
-			if out.Efficiency[i], err = MoodyStepUp(e, dModel, dProto, exponent); err != nil {
+			if out.Efficiency[i], err = MoodyStepUp(e, d, exponent); err != nil {
 				return StepUp{}, err
 			}
 		default:

@@ -22,6 +22,12 @@ const (
 	IECScalableLoss      = 0.7
 )
 
+// ReynoldsNumbers are a model's and a prototype's Reynolds numbers on one
+// definition, named so that one cannot be given for the other.
+type ReynoldsNumbers struct {
+	Model, Prototype float64 // Re_M, Re_P
+}
+
 // IECStepUp steps up a hydraulic efficiency from model to prototype by
 // the scalable-loss formula of IEC 60193 (hydraulic turbines, storage
 // pumps and pump-turbines, model acceptance tests), quoted from memory:
@@ -31,10 +37,11 @@ const (
 //
 // with Re_ref = 7×10⁶ and V_ref = 0.7. The Reynolds numbers are the
 // machines' own as the standard defines them (Re = D·u/ν with u the
-// peripheral speed at the reference diameter D); reM is the model's at
-// its test point, reP the prototype's. It returns the prototype
+// peripheral speed at the reference diameter D); re.Model is the model's
+// at its test point, re.Prototype the prototype's. It returns the prototype
 // efficiency η_M + Δη, and Δη.
-func IECStepUp(etaModel, reM, reP float64) (etaProto, gain float64, err error) {
+func IECStepUp(etaModel float64, re ReynoldsNumbers) (etaProto, gain float64, err error) {
+	reM, reP := re.Model, re.Prototype
 	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: "IEC 60193 step-up", Reason: r} }
 	if !(etaModel > 0 && etaModel < 1) {
 		return 0, 0, m(fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))
@@ -52,7 +59,8 @@ func IECStepUp(etaModel, reM, reP float64) (etaProto, gain float64, err error) {
 // AckeretStepUp steps up an efficiency by Ackeret's formula (1930),
 // 1 − η_P = (1 − η_M)·(0.5 + 0.5·(Re_M/Re_P)^0.2): half the losses taken
 // as scaling with the Reynolds number to the power −0.2.
-func AckeretStepUp(etaModel, reM, reP float64) (float64, error) {
+func AckeretStepUp(etaModel float64, re ReynoldsNumbers) (float64, error) {
+	reM, reP := re.Model, re.Prototype
 	if !(etaModel > 0 && etaModel < 1) {
 		return 0, &Error{Class: quantity.ErrInvalid, Op: "Ackeret step-up", Reason: fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel)}
 	}
@@ -63,7 +71,8 @@ func AckeretStepUp(etaModel, reM, reP float64) (float64, error) {
 }
 
 // FanStepUp converts a fan's efficiency near its best-efficiency point
-// from the tested size or speed (Reynolds number reM) to another (reP) of
+// from the tested size or speed (Reynolds number re.Model) to another
+// (re.Prototype) of
 // the same geometrically similar range, by Ackeret's formula applied as
 // fan test standards advise: because larger fans of a range perform
 // better but the formula's gain is uncertain, only half the predicted
@@ -76,7 +85,8 @@ func AckeretStepUp(etaModel, reM, reP float64) (float64, error) {
 // numbers must be on one definition, for example the impeller's tip
 // speed times its diameter over ν. It returns the converted efficiency
 // and the change applied.
-func FanStepUp(etaModel, reM, reP float64) (eta, change float64, err error) {
+func FanStepUp(etaModel float64, re ReynoldsNumbers) (eta, change float64, err error) {
+	reM, reP := re.Model, re.Prototype
 	m := func(r string) error {
 		return &Error{Class: quantity.ErrInvalid, Op: "fan efficiency conversion", Reason: r}
 	}
@@ -100,12 +110,12 @@ func FanStepUp(etaModel, reM, reP float64) (eta, change float64, err error) {
 // FanCurve converts a fan's efficiency curve by FanStepUp with the change
 // found at the best-efficiency point added at every point (common
 // practice; the formula holds only near that point).
-func FanCurve(etaModel []float64, reM, reP float64) (StepUp, error) {
+func FanCurve(etaModel []float64, re ReynoldsNumbers) (StepUp, error) {
 	out, err := newStepUp("fan efficiency conversion", etaModel, StepUpAtBEP)
 	if err != nil {
 		return StepUp{}, err
 	}
-	if _, out.Gain, err = FanStepUp(etaModel[out.BEP], reM, reP); err != nil {
+	if _, out.Gain, err = FanStepUp(etaModel[out.BEP], re); err != nil {
 		return StepUp{}, err
 	}
 	for i, e := range etaModel {
@@ -119,13 +129,13 @@ func FanCurve(etaModel []float64, reM, reP float64) (StepUp, error) {
 
 // IECCurve steps up a model efficiency curve by IECStepUp with the gain
 // at the best-efficiency point added at every point, as the standard does;
-// reM and reP are the model's and prototype's Reynolds numbers.
-func IECCurve(etaModel []float64, reM, reP float64) (StepUp, error) {
+// re holds the model's and prototype's Reynolds numbers.
+func IECCurve(etaModel []float64, re ReynoldsNumbers) (StepUp, error) {
 	out, err := newStepUp("IEC 60193 step-up", etaModel, StepUpAtBEP)
 	if err != nil {
 		return StepUp{}, err
 	}
-	_, gain, err := IECStepUp(etaModel[out.BEP], reM, reP)
+	_, gain, err := IECStepUp(etaModel[out.BEP], re)
 	if err != nil {
 		return StepUp{}, err
 	}

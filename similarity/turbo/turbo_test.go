@@ -22,7 +22,7 @@ func TestIECStepUp(t *testing.T) {
 	rm, rp := math.Pow(1.4, 0.16), math.Pow(7.0/80, 0.16)
 	dref := 0.08 / (rm + 0.3/0.7)
 	want := dref * (rm - rp)
-	eta, gain, err := turbo.IECStepUp(0.92, 5e6, 8e7)
+	eta, gain, err := turbo.IECStepUp(0.92, turbo.ReynoldsNumbers{Model: 5e6, Prototype: 8e7})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -30,10 +30,10 @@ func TestIECStepUp(t *testing.T) {
 		t.Errorf("Δη = %v (η_P %v), by hand %v", gain, eta, want)
 	}
 	// Equal Reynolds numbers: no step-up.
-	if _, g, _ := turbo.IECStepUp(0.9, 6e6, 6e6); g != 0 {
+	if _, g, _ := turbo.IECStepUp(0.9, turbo.ReynoldsNumbers{Model: 6e6, Prototype: 6e6}); g != 0 {
 		t.Errorf("equal Re: gain %v", g)
 	}
-	curve, err := turbo.IECCurve([]float64{0.80, 0.88, 0.92, 0.90}, 5e6, 8e7)
+	curve, err := turbo.IECCurve([]float64{0.80, 0.88, 0.92, 0.90}, turbo.ReynoldsNumbers{Model: 5e6, Prototype: 8e7})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -41,12 +41,12 @@ func TestIECStepUp(t *testing.T) {
 		t.Errorf("curve %+v", curve)
 	}
 	for _, c := range [][3]float64{{1.1, 5e6, 8e7}, {0.9, 5e6, 1e6}, {0.9, 1e4, 1e6}} {
-		if _, _, err := turbo.IECStepUp(c[0], c[1], c[2]); !errors.Is(err, quantity.ErrInvalid) {
+		if _, _, err := turbo.IECStepUp(c[0], turbo.ReynoldsNumbers{Model: c[1], Prototype: c[2]}); !errors.Is(err, quantity.ErrInvalid) {
 			t.Errorf("IECStepUp%v: %v", c, err)
 		}
 	}
 	// Ackeret by hand: 1 − η_P = 0.15·(0.5 + 0.5·0.01^0.2) = 0.104858.
-	a, err := turbo.AckeretStepUp(0.85, 1e6, 1e8)
+	a, err := turbo.AckeretStepUp(0.85, turbo.ReynoldsNumbers{Model: 1e6, Prototype: 1e8})
 	if err != nil || math.Abs(a-(1-0.15*(0.5+0.5*math.Pow(0.01, 0.2)))) > 1e-15 || math.Abs(a-0.895142) > 1e-6 {
 		t.Errorf("Ackeret: %v, %v", a, err)
 	}
@@ -123,12 +123,12 @@ func TestSpecificSpeed(t *testing.T) {
 // Stepping a model turbine's efficiency up to the prototype by IEC
 // 60193 and by Ackeret, at the same Reynolds numbers.
 func ExampleIECStepUp() {
-	eta, gain, err := turbo.IECStepUp(0.925, 6.5e6, 9.0e7)
+	eta, gain, err := turbo.IECStepUp(0.925, turbo.ReynoldsNumbers{Model: 6.5e6, Prototype: 9.0e7})
 	if err != nil {
 		fmt.Println(err)
 		return
 	}
-	ack, _ := turbo.AckeretStepUp(0.925, 6.5e6, 9.0e7)
+	ack, _ := turbo.AckeretStepUp(0.925, turbo.ReynoldsNumbers{Model: 6.5e6, Prototype: 9.0e7})
 	fmt.Printf("IEC 60193: η_P = %.4f (Δη = %.4f); Ackeret: η_P = %.4f\n", eta, gain, ack)
 	// Output:
 	// IEC 60193: η_P = 0.9431 (Δη = 0.0181); Ackeret: η_P = 0.9403
@@ -166,19 +166,19 @@ func TestFanStepUp(t *testing.T) {
 		{"smaller: the full loss", 0.80, 1e7, 1e6, 0.7415107, -0.0584893},
 		{"same Reynolds number", 0.80, 1e6, 1e6, 0.80, 0},
 	} {
-		eta, d, err := turbo.FanStepUp(c.eta, c.reM, c.reP)
+		eta, d, err := turbo.FanStepUp(c.eta, turbo.ReynoldsNumbers{Model: c.reM, Prototype: c.reP})
 		if err != nil || math.Abs(eta-c.want) > 5e-8 || math.Abs(d-c.wantDiff) > 5e-8 {
 			t.Errorf("%s: η = %.7f, Δ = %.7f, %v; want %.7f, %.7f", c.name, eta, d, err, c.want, c.wantDiff)
 		}
 	}
 	// The increase is half of AckeretStepUp's.
-	ack, _ := turbo.AckeretStepUp(0.80, 1e6, 1e7)
-	if _, d, _ := turbo.FanStepUp(0.80, 1e6, 1e7); math.Abs(d-(ack-0.80)/2) > 1e-15 {
+	ack, _ := turbo.AckeretStepUp(0.80, turbo.ReynoldsNumbers{Model: 1e6, Prototype: 1e7})
+	if _, d, _ := turbo.FanStepUp(0.80, turbo.ReynoldsNumbers{Model: 1e6, Prototype: 1e7}); math.Abs(d-(ack-0.80)/2) > 1e-15 {
 		t.Errorf("half of Ackeret: %v, want %v", d, (ack-0.80)/2)
 	}
 	// 0.5·(1e6)^0.2 = 7.92: the loss would take η below zero.
 	for _, bad := range [][3]float64{{1, 1e6, 1e7}, {0.8, 0, 1e7}, {0.8, 1e6, math.Inf(1)}, {math.NaN(), 1e6, 1e7}, {0.8, 1e9, 1e3}} {
-		if _, _, err := turbo.FanStepUp(bad[0], bad[1], bad[2]); !errors.As(err, new(*turbo.Error)) {
+		if _, _, err := turbo.FanStepUp(bad[0], turbo.ReynoldsNumbers{Model: bad[1], Prototype: bad[2]}); !errors.As(err, new(*turbo.Error)) {
 			t.Errorf("FanStepUp%v: %v", bad, err)
 		}
 	}
@@ -187,11 +187,11 @@ func TestFanStepUp(t *testing.T) {
 		eta := rapid.Float64Range(0.6, 0.95).Draw(rt, "η")
 		re := rapid.Float64Range(1e5, 1e7).Draw(rt, "Re")
 		k := rapid.Float64Range(1, 30).Draw(rt, "ratio")
-		up, _, err := turbo.FanStepUp(eta, re, re*k)
+		up, _, err := turbo.FanStepUp(eta, turbo.ReynoldsNumbers{Model: re, Prototype: re * k})
 		if err != nil {
 			rt.Fatal(err)
 		}
-		back, _, err := turbo.FanStepUp(up, re*k, re)
+		back, _, err := turbo.FanStepUp(up, turbo.ReynoldsNumbers{Model: re * k, Prototype: re})
 		if err != nil {
 			rt.Fatal(err)
 		}
@@ -199,7 +199,7 @@ func TestFanStepUp(t *testing.T) {
 			rt.Errorf("η %v → %v → %v: the round trip gained", eta, up, back)
 		}
 	})
-	c, err := turbo.FanCurve([]float64{0.70, 0.80, 0.76}, 1e6, 1e7)
+	c, err := turbo.FanCurve([]float64{0.70, 0.80, 0.76}, turbo.ReynoldsNumbers{Model: 1e6, Prototype: 1e7})
 	if err != nil || c.BEP != 1 || math.Abs(c.Efficiency[0]-(0.70+0.0184521)) > 5e-8 || math.Abs(c.Gain-0.0184521) > 5e-8 {
 		t.Errorf("FanCurve: %+v, %v", c, err)
 	}
@@ -209,8 +209,8 @@ func TestFanStepUp(t *testing.T) {
 // site fan at 8×10⁶ (half Ackeret's gain) and to a smaller fan of the
 // range at 5×10⁵ (the full loss).
 func ExampleFanStepUp() {
-	up, gain, _ := turbo.FanStepUp(0.82, 1.2e6, 8e6)
-	down, loss, _ := turbo.FanStepUp(0.82, 1.2e6, 5e5)
+	up, gain, _ := turbo.FanStepUp(0.82, turbo.ReynoldsNumbers{Model: 1.2e6, Prototype: 8e6})
+	down, loss, _ := turbo.FanStepUp(0.82, turbo.ReynoldsNumbers{Model: 1.2e6, Prototype: 5e5})
 	fmt.Printf("larger: η = %.4f (%+.4f); smaller: η = %.4f (%+.4f)\n", up, gain, down, loss)
 	// Output:
 	// larger: η = 0.8342 (+0.0142); smaller: η = 0.8028 (-0.0172)
