@@ -237,7 +237,7 @@ func joinAnd(s []string) string {
 func (s *Solution) outcome(i int) Outcome {
 	l := lawOf(s.coef[i], s.params)
 	sym := s.plan.vars[i].Symbol
-	isParam := len(l.Terms) == 1 && l.Terms[0].Symbol == sym && l.Terms[0].Exp == quantity.RatInt(1)
+	isParam := len(l.Terms) == 1 && l.Terms[0].Name == sym && l.Terms[0].Exp == quantity.RatInt(1)
 	return Outcome{Label: "λ_" + sym, Ratio: Ratio{Law: l, Value: l.Eval(s.values)}, One: l.IsOne(), Free: isParam && math.IsNaN(l.Eval(s.values))}
 }
 

@@ -9,16 +9,12 @@ import (
 )
 
 // Law is a scale ratio written exactly as a product of rational powers of
-// free ratios: λ_V = λ_L^(1/2), λ_P = λ_ρ·λ_L^(7/2). The free ratios are
-// named by the symbols of their variables.
+// free ratios: λ_V = λ_L^(1/2), λ_P = λ_ρ·λ_L^(7/2). Terms is that
+// product, each factor named by the symbol of its free ratio's variable
+// ({{"L", 1/2}} for λ_L^(1/2)); no factor has a zero exponent, and the
+// empty product is the ratio 1.
 type Law struct {
-	Terms []LawTerm
-}
-
-// LawTerm is one factor of a Law: λ_Symbol^Exp.
-type LawTerm struct {
-	Symbol string
-	Exp    quantity.Rat
+	Terms quantity.Product
 }
 
 // IsOne reports whether the law is the ratio 1 whatever the free ratios.
@@ -27,7 +23,7 @@ func (l Law) IsOne() bool { return len(l.Terms) == 0 }
 // Exponent returns the exponent of the free ratio λ_symbol in l.
 func (l Law) Exponent(symbol string) quantity.Rat {
 	for _, t := range l.Terms {
-		if t.Symbol == symbol {
+		if t.Name == symbol {
 			return t.Exp
 		}
 	}
@@ -44,7 +40,7 @@ func (l Law) Exponent(symbol string) quantity.Rat {
 func (l Law) Eval(free map[string]float64) float64 {
 	v := 1.0
 	for _, t := range l.Terms {
-		x, ok := free[t.Symbol]
+		x, ok := free[t.Name]
 		if !ok || !(x > 0) {
 			return math.NaN()
 		}
@@ -58,7 +54,7 @@ func (l Law) Eval(free map[string]float64) float64 {
 	if v == 0 || math.IsInf(v, 0) || math.IsNaN(v) {
 		lv := 0.0
 		for _, t := range l.Terms {
-			lv += t.Exp.Float() * math.Log(free[t.Symbol])
+			lv += t.Exp.Float() * math.Log(free[t.Name])
 		}
 		return math.Exp(lv)
 	}
@@ -76,11 +72,11 @@ func (l Law) Format(style quantity.Style) string {
 		var name string
 		switch style {
 		case quantity.ASCII:
-			name = "lambda_" + t.Symbol
+			name = "lambda_" + t.Name
 		case quantity.LaTeX:
-			name = `\lambda_{` + pigroups.TeXSymbol(t.Symbol) + `}`
+			name = `\lambda_{` + pigroups.TeXSymbol(t.Name) + `}`
 		default:
-			name = "λ_" + t.Symbol
+			name = "λ_" + t.Name
 		}
 		p[i] = quantity.Factor{Name: name, Exp: t.Exp}
 	}
@@ -92,7 +88,7 @@ func lawOf(coef []quantity.Rat, params []string) Law {
 	var l Law
 	for k, c := range coef {
 		if !c.IsZero() {
-			l.Terms = append(l.Terms, LawTerm{params[k], c})
+			l.Terms = append(l.Terms, quantity.Factor{Name: params[k], Exp: c})
 		}
 	}
 	return l

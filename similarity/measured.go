@@ -27,16 +27,16 @@ func (s *Solution) MeasuredRatio(d quantity.Dim, free map[string]uncertain.Measu
 	}
 	out := uncertain.Exact(quantity.Scalar(1))
 	for _, t := range r.Law.Terms {
-		x, ok := free[t.Symbol]
+		x, ok := free[t.Name]
 		if !ok {
-			fixed, ferr := s.Ratio(t.Symbol)
+			fixed, ferr := s.Ratio(t.Name)
 			if ferr != nil || math.IsNaN(fixed.Value) {
-				return uncertain.Measured{}, &PlanError{Err: ErrUnknownRatio, Reason: fmt.Sprintf("%s: the free ratio λ_%s has no value; give it in free", quantity.Describe(d), t.Symbol)}
+				return uncertain.Measured{}, &PlanError{Err: ErrUnknownRatio, Reason: fmt.Sprintf("%s: the free ratio λ_%s has no value; give it in free", quantity.Describe(d), t.Name)}
 			}
 			x = uncertain.Exact(quantity.Scalar(fixed.Value))
 		}
 		if !x.Quantity().IsDimensionless() || !(x.Value() > 0) || math.IsInf(x.Value(), 0) {
-			return uncertain.Measured{}, &PlanError{Err: ErrBadRatio, Reason: fmt.Sprintf("free ratio λ_%s = %v: want a positive number", t.Symbol, x.Quantity())}
+			return uncertain.Measured{}, &PlanError{Err: ErrBadRatio, Reason: fmt.Sprintf("free ratio λ_%s = %v: want a positive number", t.Name, x.Quantity())}
 		}
 		if out, err = uncertain.Eval(func() uncertain.Measured {
 			return out.Mul(x.Pow(int(t.Exp.Num()), int(t.Exp.Den())))

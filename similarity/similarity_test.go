@@ -12,6 +12,7 @@ import (
 	"unicode"
 
 	"github.com/google/go-cmp/cmp"
+	"github.com/google/go-cmp/cmp/cmpopts"
 
 	"similis.dev/similis/pigroups"
 	q "similis.dev/similis/quantity"
@@ -361,5 +362,27 @@ func TestRatioOutOfRangeIsZero(t *testing.T) {
 	}
 	if _, err := s.DerivedRatio(q.Power); err == nil {
 		t.Errorf("λ_P = λ_L^(7/2) for λ_L = 1e-300 did not overflow")
+	}
+}
+
+// TestLawIsProduct: a law's terms are the module's one product of powers,
+// quantity.Product, named by the free ratios' symbols: λ_P = λ_L^(7/2)
+// for Froude scaling with the same fluid, and it reads back through
+// Product's own formatting.
+func TestLawIsProduct(t *testing.T) {
+	s, err := similarity.Froude(similarity.Scales{Length: 1.0 / 25, Density: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	pr, err := s.DerivedRatio(q.Power)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := q.Product{{Name: "L", Exp: q.MustRat(7, 2)}}
+	if diff := cmp.Diff(want, pr.Law.Terms, cmpopts.EquateComparable(q.Rat{})); diff != "" {
+		t.Errorf("λ_P terms (-want +got):\n%s", diff)
+	}
+	if got := pr.Law.Terms.Format(q.Unicode, q.Inline, ""); got != "L^(7/2)" {
+		t.Errorf("λ_P terms formatted %q, want L^(7/2)", got)
 	}
 }
