@@ -292,3 +292,45 @@ func exportedRecv(fl *ast.FieldList) bool {
 	id, ok := typ.(*ast.Ident)
 	return ok && id.IsExported()
 }
+
+// TestSentinelsUnique fails if two packages declare an exported sentinel
+// error of the same name with different values (each its own
+// errors.New): errors.Is against one would miss the other. A package that
+// shares another's sentinel assigns that value instead.
+func TestSentinelsUnique(t *testing.T) {
+	fset := token.NewFileSet()
+	seen := map[string]string{} // name → directory that made it with errors.New
+	for dir, files := range goFiles(t) {
+		for _, path := range files {
+			f, err := parser.ParseFile(fset, path, nil, 0)
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, decl := range f.Decls {
+				g, ok := decl.(*ast.GenDecl)
+				if !ok || g.Tok != token.VAR {
+					continue
+				}
+				for _, spec := range g.Specs {
+					vs := spec.(*ast.ValueSpec)
+					for i, n := range vs.Names {
+						if !n.IsExported() || !strings.HasPrefix(n.Name, "Err") || i >= len(vs.Values) {
+							continue
+						}
+						call, ok := vs.Values[i].(*ast.CallExpr)
+						if !ok {
+							continue
+						}
+						if sel, ok := call.Fun.(*ast.SelectorExpr); !ok || sel.Sel.Name != "New" {
+							continue
+						}
+						if other, ok := seen[n.Name]; ok && other != dir {
+							t.Errorf("%s and %s both make a sentinel %s of their own", other, dir, n.Name)
+						}
+						seen[n.Name] = dir
+					}
+				}
+			}
+		}
+	}
+}

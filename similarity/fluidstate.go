@@ -27,7 +27,7 @@ func TemperatureFor(f fluids.Fluid, p quantity.Quantity, property func(fluids.St
 	}
 	T, err := roots.Bisect(g, lo.Value(), hi.Value())
 	if err != nil {
-		return quantity.Quantity{}, &PlanError{Err: err, Reason: fmt.Sprintf("TemperatureFor: %s: no temperature in %g … %g K gives %g", f.Name(), lo.Value(), hi.Value(), target)}
+		return quantity.Quantity{}, planError("TemperatureFor", "", err, fmt.Sprintf("TemperatureFor: %s: no temperature in %g … %g K gives %g", f.Name(), lo.Value(), hi.Value(), target))
 	}
 	return quantity.New(T, quantity.Temperature), nil
 }

@@ -22,7 +22,7 @@ func (s *Solution) MeasuredRatio(d quantity.Dim, free map[string]uncertain.Measu
 	}
 	for sym := range free {
 		if !slices.Contains(s.Params(), sym) {
-			return uncertain.Measured{}, &PlanError{Err: ErrBadRatio, Reason: fmt.Sprintf("λ_%s is not a parameter of this plan (%s)", sym, strings.Join(s.Params(), ", "))}
+			return uncertain.Measured{}, planError("MeasuredRatio", "", ErrBadRatio, fmt.Sprintf("λ_%s is not a parameter of this plan (%s)", sym, strings.Join(s.Params(), ", ")))
 		}
 	}
 	out := uncertain.Exact(quantity.Scalar(1))
@@ -31,12 +31,12 @@ func (s *Solution) MeasuredRatio(d quantity.Dim, free map[string]uncertain.Measu
 		if !ok {
 			fixed, ferr := s.Ratio(t.Name)
 			if ferr != nil || math.IsNaN(fixed.Value) {
-				return uncertain.Measured{}, &PlanError{Err: ErrUnknownRatio, Reason: fmt.Sprintf("%s: the free ratio λ_%s has no value; give it in free", quantity.Describe(d), t.Name)}
+				return uncertain.Measured{}, planError("MeasuredRatio", "", ErrUnknownRatio, fmt.Sprintf("%s: the free ratio λ_%s has no value; give it in free", quantity.Describe(d), t.Name))
 			}
 			x = uncertain.Exact(quantity.Scalar(fixed.Value))
 		}
 		if !x.Quantity().IsDimensionless() || !(x.Value() > 0) || math.IsInf(x.Value(), 0) {
-			return uncertain.Measured{}, &PlanError{Err: ErrBadRatio, Reason: fmt.Sprintf("free ratio λ_%s = %v: want a positive number", t.Name, x.Quantity())}
+			return uncertain.Measured{}, planError("MeasuredRatio", "", ErrBadRatio, fmt.Sprintf("free ratio λ_%s = %v: want a positive number", t.Name, x.Quantity()))
 		}
 		if out, err = uncertain.Eval(func() uncertain.Measured {
 			return out.Mul(x.Pow(int(t.Exp.Num()), int(t.Exp.Den())))

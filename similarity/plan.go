@@ -7,7 +7,6 @@ import (
 	"slices"
 	"strings"
 
-	"similis.dev/similis/internal/roots"
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/fluids"
@@ -55,57 +54,88 @@ type protoFluid struct{ rho, nu float64 }
 // an error matching quantity.ErrInvalid.
 func NewPlan(p *pigroups.Problem) *Plan {
 	if p == nil {
-		return &Plan{err: &PlanError{Err: ErrPlan, Reason: "plan: no problem (nil *pigroups.Problem)"}}
+		return &Plan{err: planError("NewPlan", "", ErrPlan, "plan: no problem (nil *pigroups.Problem)")}
 	}
 	return &Plan{prob: p, vars: p.Variables()}
 }
 
-// Classes of a *PlanError, for errors.Is.
+// Kinds of plan error, each the cause (Unwrap) of the *PlanError that
+// reports it; errors.Is matches them. The three a plan shares with its
+// problem are pigroups' own values.
 var (
-	ErrUnknownVariable  = errors.New("unknown variable")
-	ErrForeignGroup     = errors.New("group of another problem")
+	ErrUnknownVariable  = pigroups.ErrUnknownVariable  // a symbol that is not a variable of the plan
+	ErrForeignGroup     = pigroups.ErrForeignGroup     // a group of another problem
+	ErrNotDimensionless = pigroups.ErrNotDimensionless // a held group that is not dimensionless
 	ErrBadRatio         = errors.New("ratio not positive and finite")
-	ErrNotDimensionless = errors.New("group not dimensionless")
 	ErrPlan             = errors.New("plan cannot be solved as built")
 )
 
 // PlanError reports a plan built or used wrongly: an unknown symbol, a
-// ratio that is not positive and finite, a group of another problem. Err
-// is its class, Symbol the variable or group concerned.
+// ratio that is not positive and finite, a group of another problem. It
+// is the core's one error type besides *ConflictError.
 type PlanError struct {
-	Err    error
-	Symbol string
-	Reason string
+	Op     string // the method or step, "Ratio", "Hold", "report"
+	Symbol string // the variable or group concerned (the input), if one is
+	Class  error  // quantity.ErrUnknown, ErrRange, ErrDimension or ErrInvalid
+	Reason string // what was wrong, in words
+	Err    error  // the cause: one of the Err… kinds above, or another package's error
 }
 
 // Error implements the error interface.
-func (e *PlanError) Error() string { return "similarity: " + e.Reason }
-
-// Unwrap returns the kind of problem (one of the Err… values), or the
-// error that caused it.
-func (e *PlanError) Unwrap() error {
-	if e.Err == nil {
-		return ErrPlan
+func (e *PlanError) Error() string {
+	s := "similarity: " + e.Reason
+	if e.Err != nil && !isKind(e.Err) {
+		s += ": " + e.Err.Error()
 	}
-	return e.Err
+	return s
 }
 
-// Is reports whether target is the error's class among quantity's:
-// ErrUnknown for an unknown variable, ErrRange for a ratio out of range,
-// ErrDimension for a group that is not dimensionless, ErrInvalid for the
-// rest; an error caused by another has that error's class.
-func (e *PlanError) Is(target error) bool {
-	switch e.Err {
-	case ErrUnknownVariable:
-		return target == quantity.ErrUnknown
-	case ErrBadRatio:
-		return target == quantity.ErrRange
-	case ErrNotDimensionless:
-		return target == quantity.ErrDimension
-	case nil, ErrPlan, ErrForeignGroup, ErrUnknownRatio, roots.ErrNoBracket:
-		return target == quantity.ErrInvalid
+// Unwrap returns the cause: the kind of problem (one of the Err… values),
+// or the error that caused it.
+func (e *PlanError) Unwrap() error { return e.Err }
+
+// Is reports whether target is the error's class.
+func (e *PlanError) Is(target error) bool { return target != nil && target == e.Class }
+
+// isKind reports whether err is one of the package's kinds of plan error,
+// whose text the message already says.
+func isKind(err error) bool {
+	switch err {
+	case ErrUnknownVariable, ErrForeignGroup, ErrNotDimensionless, ErrBadRatio, ErrPlan, ErrUnknownRatio:
+		return true
 	}
 	return false
+}
+
+// planError returns a *PlanError for op, of the class its cause gives:
+// ErrUnknown for an unknown variable, ErrRange for a ratio out of range,
+// ErrDimension for a group that is not dimensionless, ErrInvalid for the
+// other kinds; an error of another package keeps its own class (among
+// quantity's), or ErrInvalid if it has none.
+func planError(op, sym string, cause error, reason string) *PlanError {
+	if cause == nil {
+		cause = ErrPlan
+	}
+	var class error
+	switch cause {
+	case ErrUnknownVariable:
+		class = quantity.ErrUnknown
+	case ErrBadRatio:
+		class = quantity.ErrRange
+	case ErrNotDimensionless:
+		class = quantity.ErrDimension
+	case ErrPlan, ErrForeignGroup, ErrUnknownRatio:
+		class = quantity.ErrInvalid
+	default:
+		class = quantity.ErrInvalid
+		for _, c := range []error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid} {
+			if errors.Is(cause, c) {
+				class = c
+				break
+			}
+		}
+	}
+	return &PlanError{Op: op, Symbol: sym, Class: class, Reason: reason, Err: cause}
 }
 
 func unknownVar(op, sym string, vars []pigroups.Variable) *PlanError {
@@ -113,7 +143,7 @@ func unknownVar(op, sym string, vars []pigroups.Variable) *PlanError {
 	for i, v := range vars {
 		names[i] = v.Symbol
 	}
-	return &PlanError{Err: ErrUnknownVariable, Symbol: sym, Reason: fmt.Sprintf("%s: %q is not a variable of the plan (%s)", op, sym, strings.Join(names, ", "))}
+	return planError(op, sym, ErrUnknownVariable, fmt.Sprintf("%s: %q is not a variable of the plan (%s)", op, sym, strings.Join(names, ", ")))
 }
 
 func (pl *Plan) index(sym string) int {
@@ -127,7 +157,7 @@ func (pl *Plan) index(sym string) int {
 
 func (pl *Plan) fail(class error, sym, format string, a ...any) *Plan {
 	if pl.err == nil {
-		pl.err = &PlanError{Err: class, Symbol: sym, Reason: fmt.Sprintf(format, a...)}
+		pl.err = planError("plan", sym, class, fmt.Sprintf(format, a...))
 	}
 	return pl
 }
@@ -170,7 +200,7 @@ func (pl *Plan) HoldExps(label string, exps map[string]int) *Plan {
 		}
 		r, err := quantity.NewRat(int64(e), 1)
 		if err != nil {
-			return pl.failErr(&PlanError{Err: err, Symbol: label, Reason: fmt.Sprintf("hold %s: the exponent of %s: %v", label, s, err)})
+			return pl.failErr(planError("HoldExps", label, err, fmt.Sprintf("hold %s: the exponent of %s", label, s)))
 		}
 		m[s] = r
 	}

@@ -62,7 +62,7 @@ func NewReport(s *Solution, o ReportOptions) (*Report, error) {
 		r.title = "Model test plan"
 	}
 	if s == nil && o.Conflict == nil {
-		return nil, &PlanError{Err: ErrPlan, Reason: "report: no solution and no conflict to report"}
+		return nil, planError("NewReport", "", ErrPlan, "report: no solution and no conflict to report")
 	}
 	if s != nil {
 		if err := r.solution(s, o); err != nil {
@@ -96,7 +96,7 @@ func (r *Report) solution(s *Solution, o ReportOptions) error {
 	dep := s.plan.prob.DependentIndex()
 	for _, g := range o.Groups {
 		if err := s.plan.prob.CheckGroup(g); err != nil {
-			return &PlanError{Err: ErrForeignGroup, Symbol: g.Name, Reason: "report: " + err.Error()}
+			return planError("NewReport", g.Name, err, "report")
 		}
 		label, exps := conventional(g)
 		if len(g.Matches) == 0 {
@@ -154,7 +154,7 @@ func (r *Report) solution(s *Solution, o ReportOptions) error {
 			if name, ok := o.Units[v.Symbol]; ok {
 				var err error
 				if u, err = units.Parse(name); err != nil {
-					return &PlanError{Err: err, Symbol: v.Symbol, Reason: fmt.Sprintf("report unit for %s: %v", v.Symbol, err)}
+					return planError("NewReport", v.Symbol, err, fmt.Sprintf("report unit for %s", v.Symbol))
 				}
 			}
 			ps, err := p.FormatIn(q, u)

@@ -55,9 +55,9 @@ func (s Scales) need(rule string, names ...string) error {
 			if f.name == "Density" {
 				hint = " (1 for the same fluid)"
 			}
-			return &PlanError{Err: ErrBadRatio, Symbol: f.name, Reason: fmt.Sprintf("%s needs Scales.%s%s, a positive and finite model/prototype ratio; got %v", rule, f.name, hint, f.v)}
+			return planError(rule, f.name, ErrBadRatio, fmt.Sprintf("%s needs Scales.%s%s, a positive and finite model/prototype ratio; got %v", rule, f.name, hint, f.v))
 		case !needed && f.v != 0:
-			return &PlanError{Err: ErrBadRatio, Symbol: f.name, Reason: fmt.Sprintf("%s does not use Scales.%s (it takes %s)", rule, f.name, strings.Join(names, ", "))}
+			return planError(rule, f.name, ErrBadRatio, fmt.Sprintf("%s does not use Scales.%s (it takes %s)", rule, f.name, strings.Join(names, ", ")))
 		}
 	}
 	return nil

@@ -386,3 +386,30 @@ func TestLawIsProduct(t *testing.T) {
 		t.Errorf("λ_P terms formatted %q, want L^(7/2)", got)
 	}
 }
+
+// TestPlanErrorShape: a *PlanError carries the operation, the input, its
+// class and its cause; Is compares the class and Unwrap returns the
+// cause, kept as an error (a foreign group's *pigroups.ProblemError is
+// reachable with errors.As, not turned into text).
+func TestPlanErrorShape(t *testing.T) {
+	s, err := similarity.Froude(similarity.Scales{Length: 0.04, Density: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	_, err = s.Ratio("nope")
+	var pe *similarity.PlanError
+	if !errors.As(err, &pe) || pe.Symbol != "nope" || pe.Op != "ratio" || pe.Class != q.ErrUnknown ||
+		errors.Unwrap(err) != similarity.ErrUnknownVariable || !errors.Is(err, pigroups.ErrUnknownVariable) {
+		t.Errorf("Ratio(\"nope\"): %#v", pe)
+	}
+	other := pigroups.MustProblem(pigroups.Var("a", q.Length), pigroups.Var("b", q.Length))
+	set, err := other.PiSet("a")
+	if err != nil {
+		t.Fatal(err)
+	}
+	_, err = s.GroupRatio(set.Groups()[0])
+	var prob *pigroups.ProblemError
+	if !errors.As(err, &pe) || pe.Op != "GroupRatio" || !errors.As(err, &prob) || !errors.Is(err, similarity.ErrForeignGroup) || !errors.Is(err, q.ErrInvalid) {
+		t.Errorf("GroupRatio of a foreign group: %v", err)
+	}
+}

@@ -37,7 +37,7 @@ func (pl *Plan) Solve() (*Solution, error) {
 		return nil, pl.err
 	}
 	if len(pl.cons) > MaxRequirements {
-		return nil, &PlanError{Err: ErrPlan, Reason: fmt.Sprintf("%d requirements, at most %d", len(pl.cons), MaxRequirements)}
+		return nil, planError("Solve", "", ErrPlan, fmt.Sprintf("%d requirements, at most %d", len(pl.cons), MaxRequirements))
 	}
 	s, ok, err := pl.solveSubset(allIndices(len(pl.cons)))
 	if err != nil {
@@ -222,7 +222,7 @@ func checked(what string, r Ratio) (Ratio, error) {
 // (NaN, meaning a free ratio without a value, is left to the caller).
 func checkRatioValue(what string, r Ratio) error {
 	if v := r.Value; v == 0 || math.IsInf(v, 0) {
-		return &PlanError{Err: ErrBadRatio, Symbol: what, Reason: fmt.Sprintf("%s = %s is out of the range of a float64 for these ratios", what, r.Law)}
+		return planError("Ratio", what, ErrBadRatio, fmt.Sprintf("%s = %s is out of the range of a float64 for these ratios", what, r.Law))
 	}
 	return nil
 }
@@ -235,7 +235,7 @@ func checkRatioValue(what string, r Ratio) error {
 // ratio for the named group instead.
 func (s *Solution) GroupRatio(g pigroups.Group) (Ratio, error) {
 	if err := s.plan.prob.CheckGroup(g); err != nil {
-		return Ratio{}, &PlanError{Err: ErrForeignGroup, Symbol: g.Name, Reason: "group ratio: " + err.Error()}
+		return Ratio{}, planError("GroupRatio", g.Name, err, "group ratio")
 	}
 	l := s.groupLaw(g.Exponents())
 	return checked("the ratio of "+g.Name, Ratio{Law: l, Value: l.Eval(s.values)})
@@ -247,7 +247,7 @@ func (s *Solution) GroupRatio(g pigroups.Group) (Ratio, error) {
 // of the group as written.
 func (s *Solution) NamedRatio(g pigroups.Group) (GroupRatio, error) {
 	if err := s.plan.prob.CheckGroup(g); err != nil {
-		return GroupRatio{}, &PlanError{Err: ErrForeignGroup, Symbol: g.Name, Reason: "named ratio: " + err.Error()}
+		return GroupRatio{}, planError("NamedRatio", g.Name, err, "named ratio")
 	}
 	return s.groupRatio(g), nil
 }
@@ -262,10 +262,10 @@ func (s *Solution) With(values map[string]float64) (*Solution, error) {
 	c.free = nil
 	for k, v := range values {
 		if !slices.Contains(s.params, k) {
-			return nil, &PlanError{Err: ErrUnknownVariable, Symbol: k, Reason: fmt.Sprintf("%q is not a free ratio of the plan (free: %s)", k, strings.Join(s.params, ", "))}
+			return nil, planError("With", k, ErrUnknownVariable, fmt.Sprintf("%q is not a free ratio of the plan (free: %s)", k, strings.Join(s.params, ", ")))
 		}
 		if !(v > 0) || math.IsInf(v, 0) {
-			return nil, &PlanError{Err: ErrBadRatio, Symbol: k, Reason: fmt.Sprintf("ratio %v for %q is not positive and finite", v, k)}
+			return nil, planError("With", k, ErrBadRatio, fmt.Sprintf("ratio %v for %q is not positive and finite", v, k))
 		}
 		c.values[k] = v
 	}
@@ -288,7 +288,7 @@ func (s *Solution) deriveBase() error {
 		}
 	}
 	if err := pl.prob.CheckRepeating(basis...); err != nil {
-		return &PlanError{Reason: fmt.Sprintf("basis for derived ratios: %v", err)}
+		return planError("DerivedRatio", "", err, "basis for derived ratios")
 	}
 	s.bases = pl.prob.Bases()
 	r := len(basis)
@@ -315,7 +315,7 @@ func (s *Solution) deriveBase() error {
 			return err
 		}
 		if !ok {
-			return &PlanError{Reason: "basis does not determine the base-dimension ratios"}
+			return planError("DerivedRatio", "", nil, "basis does not determine the base-dimension ratios")
 		}
 		for b := range s.bases {
 			s.base[b][p] = w[b]
@@ -329,7 +329,7 @@ func (s *Solution) deriveBase() error {
 // M L² T⁻³, λ_P = λ_M·λ_L²·λ_T⁻³. On error the Ratio is the zero value.
 func (s *Solution) DerivedRatio(d quantity.Dim) (Ratio, error) {
 	if s.base == nil {
-		return Ratio{}, &PlanError{Reason: "no basis for derived ratios"}
+		return Ratio{}, planError("DerivedRatio", "", nil, "no basis for derived ratios")
 	}
 	exps := make([]quantity.Rat, len(s.bases))
 	for b, base := range s.bases {
@@ -337,7 +337,7 @@ func (s *Solution) DerivedRatio(d quantity.Dim) (Ratio, error) {
 	}
 	for base := quantity.Base(0); base < quantity.NumBases; base++ {
 		if d.Sixths(base) != 0 && !slices.Contains(s.bases, base) {
-			return Ratio{}, &PlanError{Err: ErrUnknownVariable, Reason: fmt.Sprintf("dimension %s carries %s, which no variable of the plan has", d, base)}
+			return Ratio{}, planError("DerivedRatio", "", ErrUnknownVariable, fmt.Sprintf("dimension %s carries %s, which no variable of the plan has", d, base))
 		}
 	}
 	c, err := combine(s.base, exps, len(s.params))

@@ -19,7 +19,7 @@ func (s *Solution) ratioFor(d quantity.Dim) (float64, error) {
 		return 0, err
 	}
 	if math.IsNaN(r.Value) {
-		return 0, &PlanError{Err: ErrUnknownRatio, Reason: fmt.Sprintf("%s: the ratio %s depends on free ratios with no value (%s)", quantity.Describe(d), r.Law, strings.Join(s.free, ", "))}
+		return 0, planError("transfer", "", ErrUnknownRatio, fmt.Sprintf("%s: the ratio %s depends on free ratios with no value (%s)", quantity.Describe(d), r.Law, strings.Join(s.free, ", ")))
 	}
 	return r.Value, nil
 }
@@ -42,7 +42,7 @@ func (s *Solution) ToPrototype(q quantity.Quantity) (quantity.Quantity, error) {
 func scaled(q quantity.Quantity, f float64) (quantity.Quantity, error) {
 	out := q.Scale(f)
 	if v := out.Value(); math.IsNaN(v) || math.IsInf(v, 0) {
-		return quantity.Quantity{}, &PlanError{Err: ErrBadRatio, Reason: fmt.Sprintf("%v scaled by %g is not finite", q, f)}
+		return quantity.Quantity{}, planError("transfer", "", ErrBadRatio, fmt.Sprintf("%v scaled by %g is not finite", q, f))
 	}
 	return out, nil
 }
@@ -58,7 +58,7 @@ func (s *Solution) ToModel(q quantity.Quantity) (quantity.Quantity, error) {
 
 // nilDst is the error for a nil destination Series.
 func nilDst(op string) error {
-	return &PlanError{Err: ErrPlan, Reason: op + ": the destination Series is nil"}
+	return planError(op, "", ErrPlan, op+": the destination Series is nil")
 }
 
 // SeriesToPrototype carries a whole measured Series to full scale into
@@ -107,7 +107,7 @@ func (s *Solution) VariableToPrototype(symbol string, q quantity.Quantity) (quan
 		return quantity.Quantity{}, err
 	}
 	if math.IsNaN(r.Value) {
-		return quantity.Quantity{}, &PlanError{Err: ErrUnknownRatio, Symbol: symbol, Reason: fmt.Sprintf("λ_%s = %s depends on a free ratio with no value", symbol, r.Law)}
+		return quantity.Quantity{}, planError("VariableToPrototype", symbol, ErrUnknownRatio, fmt.Sprintf("λ_%s = %s depends on a free ratio with no value", symbol, r.Law))
 	}
 	return scaled(q, 1/r.Value)
 }
@@ -131,7 +131,7 @@ func (s *Solution) SetPoints(prototype map[string]quantity.Quantity, unitOf map[
 			return nil, err
 		}
 		if math.IsNaN(r.Value) {
-			return nil, &PlanError{Err: ErrUnknownRatio, Symbol: sym, Reason: fmt.Sprintf("set point for %s: λ_%s = %s depends on a free ratio with no value", sym, sym, r.Law)}
+			return nil, planError("SetPoints", sym, ErrUnknownRatio, fmt.Sprintf("set point for %s: λ_%s = %s depends on a free ratio with no value", sym, sym, r.Law))
 		}
 		m, err := scaled(q, r.Value)
 		if err != nil {
@@ -141,7 +141,7 @@ func (s *Solution) SetPoints(prototype map[string]quantity.Quantity, unitOf map[
 		if name, ok := unitOf[sym]; ok {
 			var err error
 			if u, err = units.Parse(name); err != nil {
-				return nil, &PlanError{Err: err, Symbol: sym, Reason: fmt.Sprintf("set point unit for %s: %v", sym, err)}
+				return nil, planError("SetPoints", sym, err, fmt.Sprintf("set point unit for %s", sym))
 			}
 		}
 		v, err := u.ValueOf(m)

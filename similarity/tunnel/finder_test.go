@@ -1,6 +1,7 @@
 package tunnel_test
 
 import (
+	"errors"
 	"math"
 	"testing"
 
@@ -50,5 +51,19 @@ func TestTunnelFinder(t *testing.T) {
 		func(s fluids.State) float64 { return s.KinematicViscosity.Value() }, 1.0034e-6, q.New(273.15, q.Temperature), q.New(313.15, q.Temperature))
 	if err != nil || math.Abs(T.Value()-293.15) > 0.1 {
 		t.Errorf("TemperatureFor = %v, %v", T, err)
+	}
+}
+
+// TestFinderErrorIsTunnels: the condition finder reports with the
+// tunnel's own error, naming itself, never with the core's plan error.
+func TestFinderErrorIsTunnels(t *testing.T) {
+	std, _ := fluids.StandardAtmosphere(q.New(0, q.Length), fluids.Geometric)
+	lim := tunnel.TunnelLimits{MinTemperature: q.New(100, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(5e5, q.Pressure)}
+	_, err := tunnel.FindTunnelCondition(fluids.Air(), std, q.New(100, q.Velocity), q.New(2, q.Length), -0.1, lim)
+	var te *tunnel.Error
+	var pe *similarity.PlanError
+	if !errors.As(err, &te) || errors.As(err, &pe) || te.Op != "FindTunnelCondition" || te.Input != "length ratio" || !errors.Is(err, q.ErrRange) {
+		t.Errorf("negative length ratio: %v", err)
 	}
 }
