@@ -20,33 +20,40 @@
 //     channels in CSV/TSV and Parquet files with their units.
 //   - pigroups: Buckingham Pi sets from a chosen repeating set, named
 //     groups, evaluation over data and power-law fitting.
-//   - similarity: scale ratios, test plans and their conflicts, the
-//     compromise, transfer of model data, rules of similitude,
-//     extrapolation to full scale (ITTC-1957, Prohaska, Moody's
-//     efficiency step-up for pumps and turbines), condition finders and
-//     reports; similarity/fluids gives water, air and the
+//   - similarity: the similitude core — scale ratios, test plans and
+//     their conflicts, the compromise, transfer of model data, rules of
+//     similitude and reports; similarity/fluids gives water, air and the
 //     ISO 2533 atmosphere.
+//   - the trades, each over the core and fluids, none importing another:
+//     similarity/ship (towing tank: friction lines, form factor, hull
+//     extrapolation and its uncertainty, blockage, ITTC-1978 powering),
+//     similarity/tunnel (wall corrections, the condition finder),
+//     similarity/turbo (affinity laws, Moody, IEC 60193, Ackeret and fan
+//     step-ups, specific speed, NPSH) and similarity/hydraulic
+//     (distorted Froude, Manning, free-surface limits, sediment).
 //   - internal/exact: algorithms only — exact elimination, rank, null
 //     space, fraction-free integer elimination; internal/dual, dual
-//     numbers for the exact slopes of the fluid correlations; no type of
-//     either appears in an exported signature.
+//     numbers for the exact slopes of the fluid correlations;
+//     internal/roots, root bracketing; no type of any appears in an
+//     exported signature.
 //   - examples/...: runnable programs on invented data.
 //
 // # Layers and the one algebra
 //
 // Imports run one way, and a test (arch_test.go) fails on any other:
 //
-//	examples ──► similarity ──► pigroups ──► units ──► quantity
-//	                 │              │          │           │
-//	                 └──────────────┴──────────┴───────────┴──► internal/exact
-//	             (similarity/fluids sits beside similarity)
+//	examples ──► ship, tunnel, turbo, hydraulic ──► similarity ──► pigroups ──► units ──► quantity
+//	                        │                         │             │          │           │
+//	                        └─────────────────────────┴─────────────┴──────────┴───────────┴──► internal/...
+//	             (similarity/fluids sits below similarity; the trades import it too)
 //
 // One idea runs through all of them: a product of named factors raised
 // to exact rational powers. Its exponent is quantity.Rat, defined once in
 // the lowest layer. A dimension (quantity.Dim) is such a product over the
 // seven base dimensions; a unit (units.Unit) over unit symbols; a Pi
 // group (pigroups.Group) over a problem's variables, its exponents a null
-// vector of the dimensional matrix; a scale law (similarity.Law) over the
+// vector of the dimensional matrix; a scale law (similarity.Law, whose
+// terms are a quantity.Product) over the
 // free scale ratios, solved from the held groups as linear equations in
 // log λ. The eliminations on those exponents are internal/exact's, done
 // once; floats carry measured values only.

@@ -98,7 +98,7 @@ func (c ScaleCheck) String() string {
 // density rho and surface tension sigma against the limits. Both groups
 // are formed with the same V and h: Re = V·h/ν and We = ρV²h/σ. The
 // limits' MinReynolds and MinWeber must be finite and not negative; a
-// group out of the range of a float64 is a *ResultRangeError. See
+// group out of the range of a float64 is a *Error of class quantity.ErrRange. See
 // HydraulicStructureCaution.
 func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLimits) ([]ScaleCheck, error) {
 	if err := checkInputs("scale-effect check", true,
@@ -158,7 +158,7 @@ type ShieldsInput struct {
 // particle (shear) Reynolds number Re* = u*·d/ν, u* = √(τ_b/ρ), of the
 // grains of in under its bed shear stress: the two groups that govern
 // the start of sediment motion (Shields, 1936). A group out of the range
-// of a float64 is a *ResultRangeError; ParticleReynoldsCheck says whether
+// of a float64 is a *Error of class quantity.ErrRange; ParticleReynoldsCheck says whether
 // a model grain's Re* is in the viscous range.
 func Shields(in ShieldsInput) (theta, reStar float64, err error) {
 	tau, rhoS, rho, d, nu := in.BedShearStress, in.GrainDensity, in.WaterDensity, in.GrainDiameter, in.KinematicViscosity
@@ -205,7 +205,7 @@ type SedimentRatios struct {
 // ratios r. The
 // bed shear follows from τ = ρgRS with the depth scaled by λ_h and the
 // slope by λ_h/λ_L; Shields similarity (λ_θ = 1) then fixes the grain.
-// A scale out of the range of a float64 is a *ResultRangeError. The
+// A scale out of the range of a float64 is a *Error of class quantity.ErrRange. The
 // model grain's own Re* (the prototype's times ReStar) should be checked
 // with ParticleReynoldsCheck.
 func SedimentFor(r SedimentRatios) (SedimentScales, error) {

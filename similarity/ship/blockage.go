@@ -62,7 +62,7 @@ type BlockageCorrection struct {
 // function does not. The ITTC Recommended Procedure 7.5-02-02-01
 // (Resistance Test, §3.6.3) treats the blockage and finite-depth
 // corrections and defines m = A_x/A as here.
-// The correction is refused (an *ExtrapolationError) when the speed is
+// The correction is refused (an *Error) when the speed is
 // at or above the choking speed, where the model would ride a critical
 // flow and no correction holds, or when m exceeds 0.1.
 //

@@ -165,7 +165,7 @@ type NPSHInput struct {
 // NPSH returns the net positive suction head (energy) at the section,
 // NPSH = (p − p_v)/(ρg) + V²/(2g), as a length: the head above vapour
 // pressure (ISO 9906, IEC 60193). A result out of the range of a float64
-// is a *ResultRangeError. See PumpCaution.
+// is a *Error of class quantity.ErrRange. See PumpCaution.
 func NPSH(in NPSHInput) (quantity.Quantity, error) {
 	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: "NPSH", Reason: r} }
 	if err := checkInputs("NPSH", false,
@@ -284,8 +284,8 @@ func SpecificSpeedOf(omega, flow, head quantity.Quantity) (SpecificSpeeds, error
 
 // SpecificSpeedMetric converts n_q (rpm, m³/s, m) to all three forms. A
 // specific speed that is not positive and finite is an
-// *ExtrapolationError; one whose other forms overflow a float64 is a
-// *ResultRangeError.
+// *Error; one whose other forms overflow a float64 is a
+// *Error of class quantity.ErrRange.
 func SpecificSpeedMetric(nq float64) (SpecificSpeeds, error) {
 	if err := specificSpeedIn("n_q", nq); err != nil {
 		return SpecificSpeeds{}, err
