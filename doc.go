@@ -28,8 +28,8 @@
 //     similarity/ship (towing tank: friction lines, form factor, hull
 //     extrapolation and its uncertainty, blockage, ITTC-1978 powering),
 //     similarity/tunnel (wall corrections, the condition finder),
-//     similarity/turbo (affinity laws, Moody, IEC 60193, Ackeret and fan
-//     step-ups, specific speed, NPSH) and similarity/hydraulic
+//     similarity/turbo (affinity laws, the Moody efficiency step-up, the
+//     IEC 60193, Ackeret and fan step-ups, specific speed, NPSH) and similarity/hydraulic
 //     (distorted Froude, Manning, free-surface limits, sediment).
 //   - internal/exact: algorithms only — exact elimination, rank, null
 //     space, fraction-free integer elimination; internal/dual, dual
