@@ -36,10 +36,11 @@ type DistortedScales struct {
 // the horizontal scale fixed separately. Manning's n follows from holding
 // friction slope equal to bed slope: n ∝ z^(2/3)·S^(1/2)/V.
 //
-// It takes DistortedScales.Horizontal and DistortedScales.Vertical. The plan behind it
-// (Distorted.Solution) has the variables V (velocity), x (horizontal
-// length), z (vertical length), g (gravitational acceleration), t (time)
-// and Q (volume flow rate); the basis of DerivedRatio is V, x.
+// It takes DistortedScales.Horizontal and DistortedScales.Vertical. The
+// plan behind it (Distorted.Solution) has the variables V (velocity), x
+// (horizontal length), z (vertical length), g (gravitational
+// acceleration), t (time) and Q (volume flow rate); the basis of
+// DerivedRatio is V, x.
 func DistortedFroude(sc DistortedScales) (Distorted, error) {
 	if err := checkRatios("DistortedFroude", "horizontal length", sc.Horizontal, "vertical length", sc.Vertical); err != nil {
 		return Distorted{}, err
