@@ -207,7 +207,7 @@ func FormFactorDoubleBody(re, cv []float64, line FrictionLine) (DoubleBodyResult
 	for i := range re {
 		cf, err := line.CF(re[i])
 		if err != nil {
-			return DoubleBodyResult{}, m(fmt.Sprintf("run %d: %v", i+1, err))
+			return DoubleBodyResult{}, wrap("double-body form factor", "Reynolds number", fmt.Sprintf("run %d", i+1), err)
 		}
 		if !(cv[i] > 0) || math.IsInf(cv[i], 0) {
 			return DoubleBodyResult{}, m(fmt.Sprintf("run %d: C_V = %v is not positive and finite", i+1, cv[i]))

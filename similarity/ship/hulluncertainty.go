@@ -217,10 +217,10 @@ func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
 	}
 	var res HullRunResult
 	if res.TankDensity, res.TankViscosity, err = water(r.Tank, r.TankTemperature); err != nil {
-		return HullRunResult{}, m("tank water: " + err.Error())
+		return HullRunResult{}, wrap(method, "tank temperature", "tank water", err)
 	}
 	if res.SeaDensity, res.SeaViscosity, err = water(r.Sea, r.SeaTemperature); err != nil {
-		return HullRunResult{}, m("sea water: " + err.Error())
+		return HullRunResult{}, wrap(method, "sea temperature", "sea water", err)
 	}
 	res, err = hullRun(r, g, res)
 	if err != nil {
