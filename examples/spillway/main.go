@@ -250,6 +250,6 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 			fmt.Fprintf(w, "    %v\n", ck)
 		}
 	}
-	fmt.Fprintln(w, "\nCAUTION:", hydraulic.HydraulicStructureCaution)
+	fmt.Fprintln(w, "\nCAUTION:", hydraulic.StructureCaution)
 	return r, nil
 }

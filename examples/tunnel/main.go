@@ -65,7 +65,7 @@ type Result struct {
 	ReFlight, ReOrdinary   float64
 	OrdinarySpeed          float64
 	Ordinary               fluids.State // the ordinary tunnel's static test-section state
-	Pressurised, Cryogenic tunnel.TunnelCondition
+	Pressurised, Cryogenic tunnel.Condition
 	Compromise             *similarity.Compromise
 	Loads                  []Load
 	Margin                 q.Quantity // the cryogenic test section's margin to nitrogen condensation
@@ -207,22 +207,22 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	// C_L·S_m·q at each found condition.
 	area := wingArea / (*scale * *scale)
 	rated, loadArea := q.New(balanceLimit, q.Force), q.New(cruiseCL*area, q.Area)
-	pressurised := tunnel.TunnelLimits{MinTemperature: q.New(280, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+	pressurised := tunnel.Limits{MinTemperature: q.New(280, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(4e5, q.Pressure), RatedLoad: rated, LoadArea: loadArea}
-	cryo := tunnel.TunnelLimits{MinTemperature: q.New(110, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+	cryo := tunnel.Limits{MinTemperature: q.New(110, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(1e5, q.Pressure), MaxPressure: q.New(4.5e5, q.Pressure), RatedLoad: rated, LoadArea: loadArea}
 	air, n2 := fluids.Air(), fluids.Nitrogen()
-	if r.Pressurised, err = tunnel.FindTunnelCondition(air, flight, V, L, 1 / *scale, pressurised); err != nil {
+	if r.Pressurised, err = tunnel.FindCondition(air, flight, V, L, 1 / *scale, pressurised); err != nil {
 		return nil, err
 	}
-	if r.Cryogenic, err = tunnel.FindTunnelCondition(n2, flight, V, L, 1 / *scale, cryo); err != nil {
+	if r.Cryogenic, err = tunnel.FindCondition(n2, flight, V, L, 1 / *scale, cryo); err != nil {
 		return nil, err
 	}
 	fmt.Fprintln(w, "\nHolding both Mach and Reynolds numbers:")
 	tunnels := []struct {
 		name string
 		gas  fluids.IdealGas
-		c    tunnel.TunnelCondition
+		c    tunnel.Condition
 	}{{"pressurised tunnel (total 280–320 K, ≤ 4 bar)", air, r.Pressurised}, {"cryogenic tunnel (total ≥ 110 K, 1–4.5 bar)", n2, r.Cryogenic}}
 	for _, t := range tunnels {
 		fmt.Fprintf(w, "  %s, gas: %s (ideal gas, R = %.2f J/(kg·K), γ = %.1f, Sutherland viscosity):\n", t.name, t.c.Gas, t.gas.R, t.gas.Gamma)

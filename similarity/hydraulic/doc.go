@@ -1,6 +1,6 @@
 // Package hydraulic plans and checks Froude models of rivers, harbours
 // and hydraulic structures, in the order of the procedure. Every ratio is
-// model/prototype; every result carries HydraulicStructureCaution: a
+// model/prototype; every result carries StructureCaution: a
 // model indicates prototype behaviour subject to scale effects, and the
 // structure is designed to the applicable local codes and checked by
 // licensed engineers.

@@ -7,9 +7,9 @@ import (
 	"similis.dev/similis/quantity"
 )
 
-// HydraulicStructureCaution accompanies every scale-effect check, roughness
+// StructureCaution accompanies every scale-effect check, roughness
 // and sediment scale of a hydraulic model: print it with them.
-const HydraulicStructureCaution = "A hydraulic model indicates prototype behaviour subject to scale effects (viscosity, surface tension, " +
+const StructureCaution = "A hydraulic model indicates prototype behaviour subject to scale effects (viscosity, surface tension, " +
 	"air entrainment, roughness, sediment); spillways, intakes and other hydraulic structures are designed to the applicable " +
 	"local codes and dam-safety regulations and checked and approved by licensed engineers."
 
@@ -99,7 +99,7 @@ func (c ScaleCheck) String() string {
 // are formed with the same V and h: Re = V·h/ν and We = ρV²h/σ. The
 // limits' MinReynolds and MinWeber must be finite and not negative; a
 // group out of the range of a float64 is a *Error of class quantity.ErrRange. See
-// HydraulicStructureCaution.
+// StructureCaution.
 func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLimits) ([]ScaleCheck, error) {
 	if err := checkInputs("scale-effect check", true,
 		input{"velocity", v, quantity.Velocity}, input{"head", h, quantity.Length}, input{"kinematic viscosity", nu, quantity.KinematicViscosity},

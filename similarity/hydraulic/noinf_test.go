@@ -134,7 +134,7 @@ func TestParticleReynoldsCheck(t *testing.T) {
 // TestHydraulicStructureCaution: the hydraulic-structure caution
 // defers to local codes and licensed engineers.
 func TestHydraulicStructureCaution(t *testing.T) {
-	for name, c := range map[string]string{"hydraulic structure": hydraulic.HydraulicStructureCaution} {
+	for name, c := range map[string]string{"hydraulic structure": hydraulic.StructureCaution} {
 		for _, want := range []string{"local codes", "licensed engineers", "scale effects"} {
 			if !strings.Contains(c, want) {
 				t.Errorf("%s caution lacks %q: %s", name, want, c)

@@ -1,14 +1,14 @@
 // Package tunnel corrects wind-tunnel measurements and finds the tunnel
 // condition a test needs, in the order of the test: set the condition,
 // then correct what was measured. Every result that prints carries
-// TunnelCaution, and AsphyxiantCaution and ColdCaution where they apply:
+// Caution, and AsphyxiantCaution and ColdCaution where they apply:
 // the facility's certified envelope, its safety rules and its responsible
 // engineer govern a pressurised, cryogenic or inert-gas tunnel.
 //
-//  1. Condition. FindTunnelCondition finds the total temperature and
+//  1. Condition. FindCondition finds the total temperature and
 //     pressure of an ideal-gas tunnel that hold the prototype's Mach and
 //     Reynolds numbers for a model at a length ratio, within the
-//     facility's TunnelLimits (total temperature and pressure, the largest
+//     facility's Limits (total temperature and pressure, the largest
 //     dynamic pressure and rated load, a condensation margin for
 //     nitrogen). It returns the test section's static state by the
 //     isentropic relations, the dynamic pressure q and the load it

@@ -9,10 +9,10 @@ import (
 	"similis.dev/similis/similarity/fluids"
 )
 
-// TunnelLimits bound a wind tunnel's total (stagnation) temperature and
+// Limits bound a wind tunnel's total (stagnation) temperature and
 // pressure, the settling-chamber conditions a facility is specified and
 // certified by.
-type TunnelLimits struct {
+type Limits struct {
 	MinTemperature, MaxTemperature quantity.Quantity // total temperature T₀
 	MinPressure, MaxPressure       quantity.Quantity // total pressure p₀
 	// MaxDynamicPressure, if set, is the largest q = (γ/2)·p·Ma² the
@@ -33,10 +33,10 @@ type TunnelLimits struct {
 	RatedLoad, LoadArea quantity.Quantity
 }
 
-// TunnelCondition is a condition found for a model: the total condition
+// Condition is a condition found for a model: the total condition
 // the tunnel runs at, and the static state in the test section at the
 // held Mach number.
-type TunnelCondition struct {
+type Condition struct {
 	Total fluids.Total // settling-chamber T₀ and p₀
 	// Temperature and Pressure are the test section's static state.
 	Temperature, Pressure, Velocity quantity.Quantity
@@ -61,14 +61,14 @@ type TunnelCondition struct {
 	Load       quantity.Quantity
 	Overloaded bool
 	// Cautions are the safety notes for running this condition: always
-	// TunnelCaution, the asphyxiation and cold hazards of a test gas
+	// Caution, the asphyxiation and cold hazards of a test gas
 	// other than air or below 0 °C, and the load against its rating.
 	Cautions []string
 }
 
-// TunnelCaution accompanies every pressurised or cryogenic tunnel
+// Caution accompanies every pressurised or cryogenic tunnel
 // condition.
-const TunnelCaution = "Pressurised and cryogenic tunnel conditions must stay within the facility's certified operating envelope; " +
+const Caution = "Pressurised and cryogenic tunnel conditions must stay within the facility's certified operating envelope; " +
 	"pressure vessels are operated to the applicable pressure-equipment code, and every run follows the facility's safety rules " +
 	"under its responsible engineer, whose word overrides any figure computed here."
 
@@ -81,7 +81,7 @@ const AsphyxiantCaution = "The test gas is not air: nitrogen or any inert gas ve
 const ColdCaution = "Cryogenic gas, liquid nitrogen and cold model, sting and tunnel surfaces cause cold burns and embrittle materials; " +
 	"handle the model only after warm-up or with the protective equipment the facility's rules require, and use materials rated for the temperature."
 
-// FindTunnelCondition finds the total temperature and pressure of an
+// FindCondition finds the total temperature and pressure of an
 // ideal-gas tunnel at which a model at lengthRatio holds both the
 // prototype's Mach and Reynolds numbers, within the limits, which are
 // total conditions. The test section's static state follows from the
@@ -100,7 +100,7 @@ const ColdCaution = "Cryogenic gas, liquid nitrogen and cold model, sting and tu
 // a found state the gas model refuses is never returned. The returned
 // condition carries its safety Cautions, which defer to the facility's
 // safety rules and its responsible engineer.
-func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLength quantity.Quantity, lengthRatio float64, lim TunnelLimits) (TunnelCondition, error) {
+func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLength quantity.Quantity, lengthRatio float64, lim Limits) (Condition, error) {
 	for _, c := range []struct {
 		n string
 		q quantity.Quantity
@@ -111,15 +111,15 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 		{"minimum pressure", lim.MinPressure, quantity.Pressure}, {"maximum pressure", lim.MaxPressure, quantity.Pressure},
 	} {
 		if err := c.q.CheckNamed(c.n, c.d); err != nil {
-			return TunnelCondition{}, err
+			return Condition{}, err
 		}
 	}
 	if !(lengthRatio > 0) || math.IsInf(lengthRatio, 0) {
-		return TunnelCondition{}, outOfRange("FindTunnelCondition", "length ratio", fmt.Sprintf("length ratio %v is not positive and finite", lengthRatio))
+		return Condition{}, outOfRange("FindCondition", "length ratio", fmt.Sprintf("length ratio %v is not positive and finite", lengthRatio))
 	}
 	tlo, thi, plo, phi := lim.MinTemperature.Value(), lim.MaxTemperature.Value(), lim.MinPressure.Value(), lim.MaxPressure.Value()
 	if !(tlo > 0 && thi >= tlo && plo > 0 && phi >= plo) || math.IsInf(thi+phi, 0) {
-		return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: "tunnel limits must be positive and finite with minimum ≤ maximum"}
+		return Condition{}, &Error{Op: "FindCondition", Class: quantity.ErrRange, Reason: "tunnel limits must be positive and finite with minimum ≤ maximum"}
 	}
 	for _, c := range []struct {
 		n string
@@ -127,21 +127,21 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 	}{{"prototype speed", protoSpeed.Value()}, {"prototype length", protoLength.Value()}, {"prototype density", proto.Density.Value()},
 		{"prototype viscosity", proto.DynamicViscosity.Value()}, {"prototype speed of sound", proto.SpeedOfSound.Value()}} {
 		if !(c.v > 0) || math.IsInf(c.v, 0) {
-			return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Input: c.n, Class: quantity.ErrRange, Reason: fmt.Sprintf("%s %v is not positive and finite (a fluid state without a speed of sound cannot set a Mach number)", c.n, c.v)}
+			return Condition{}, &Error{Op: "FindCondition", Input: c.n, Class: quantity.ErrRange, Reason: fmt.Sprintf("%s %v is not positive and finite (a fluid state without a speed of sound cannot set a Mach number)", c.n, c.v)}
 		}
 	}
 	if _, err := gas.LowestTemperature(lim.MinPressure); err != nil {
-		return TunnelCondition{}, err // the gas's constants
+		return Condition{}, err // the gas's constants
 	}
 	ma := protoSpeed.Value() / proto.SpeedOfSound.Value()
 	tr, pr, err := fluids.TotalRatios(gas.Gamma, ma)
 	if err != nil {
-		return TunnelCondition{}, err
+		return Condition{}, err
 	}
 	rep := proto.Density.Value() * protoSpeed.Value() * protoLength.Value() / proto.DynamicViscosity.Value()
 	lm := protoLength.Value() * lengthRatio
 	if !(rep > 0) || math.IsInf(rep, 0) || !(lm > 0) || math.IsInf(lm, 0) {
-		return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the full-scale Reynolds number %g and the model length %g m must be positive and finite", rep, lm)}
+		return Condition{}, &Error{Op: "FindCondition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the full-scale Reynolds number %g and the model length %g m must be positive and finite", rep, lm)}
 	}
 	tminName, tmaxName := "minimum total temperature", "maximum total temperature"
 	// The gas's own range: the static temperature T₀/tr at or above its
@@ -156,7 +156,7 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 		thi, tmaxName = gas.MaxTemperature, "highest temperature of the "+gas.GasName+" model"
 	}
 	if !(tlo <= thi) {
-		return TunnelCondition{}, &fluids.RangeError{Fluid: gas.GasName, What: fmt.Sprintf("total temperature (K) of the tunnel limits at Mach %.3g (the gas model holds for static temperatures %g … %g K)", ma, gas.MinTemperature, gas.MaxTemperature),
+		return Condition{}, &fluids.RangeError{Fluid: gas.GasName, What: fmt.Sprintf("total temperature (K) of the tunnel limits at Mach %.3g (the gas model holds for static temperatures %g … %g K)", ma, gas.MinTemperature, gas.MaxTemperature),
 			Value: lim.MaxTemperature.Value(), Lo: tlo, Hi: thi}
 	}
 	// mu is Sutherland's law, NaN outside the gas's range (which the
@@ -175,35 +175,35 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 		T := T0 / tr
 		return pr * rep * mu(T) * gas.R * T / (speed(T) * lm)
 	}
-	c := TunnelCondition{Mach: ma, FullReynolds: rep, Gas: gas.GasName}
+	c := Condition{Mach: ma, FullReynolds: rep, Gas: gas.GasName}
 	pmaxName := "maximum total pressure"
 	if q := lim.MaxDynamicPressure; q != (quantity.Quantity{}) {
 		if err := q.CheckNamed("maximum dynamic pressure", quantity.Pressure); err != nil {
-			return TunnelCondition{}, err
+			return Condition{}, err
 		}
 		if !(q.Value() > 0) || math.IsInf(q.Value(), 0) {
-			return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: "the maximum dynamic pressure must be positive and finite"}
+			return Condition{}, &Error{Op: "FindCondition", Class: quantity.ErrRange, Reason: "the maximum dynamic pressure must be positive and finite"}
 		}
 		if pq := pr * 2 * q.Value() / (gas.Gamma * ma * ma); pq < phi {
 			phi, pmaxName = pq, "maximum dynamic pressure"
 		}
 		if phi < plo {
-			return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the maximum dynamic pressure %.4g Pa allows a total pressure of only %.4g Pa at Mach %.3g, below the minimum total pressure %.4g Pa", q.Value(), phi, ma, plo)}
+			return Condition{}, &Error{Op: "FindCondition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the maximum dynamic pressure %.4g Pa allows a total pressure of only %.4g Pa at Mach %.3g, below the minimum total pressure %.4g Pa", q.Value(), phi, ma, plo)}
 		}
 	}
 	if mg := lim.CondensationMargin; mg != (quantity.Quantity{}) || gas.Saturation != fluids.NoSaturation {
 		given := mg != (quantity.Quantity{})
 		if given {
 			if err := mg.CheckNamed("condensation margin", quantity.Temperature); err != nil {
-				return TunnelCondition{}, err
+				return Condition{}, err
 			}
 		}
 		if gas.Saturation == fluids.NoSaturation {
-			return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: "a condensation margin is checked for a gas with a saturation curve (nitrogen); " + gas.GasName + " has none here"}
+			return Condition{}, &Error{Op: "FindCondition", Class: quantity.ErrRange, Reason: "a condensation margin is checked for a gas with a saturation curve (nitrogen); " + gas.GasName + " has none here"}
 		}
 		m := mg.Value()
 		if !(m >= 0) || math.IsInf(m, 0) {
-			return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the condensation margin %v K must be finite and not negative", m)}
+			return Condition{}, &Error{Op: "FindCondition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the condensation margin %v K must be finite and not negative", m)}
 		}
 		name := "condensation margin"
 		if !given {
@@ -224,7 +224,7 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 		// positive.
 		if !(margin(tlo) > 0) {
 			if !(margin(thi) > 0) {
-				return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrInvalid, Reason: fmt.Sprintf("no total temperature up to %.4g K keeps the static %s gas %.3g K above its condensation temperature", thi, gas.GasName, m)}
+				return Condition{}, &Error{Op: "FindCondition", Class: quantity.ErrInvalid, Reason: fmt.Sprintf("no total temperature up to %.4g K keeps the static %s gas %.3g K above its condensation temperature", thi, gas.GasName, m)}
 			}
 			lo, hi := tlo, thi
 			for range 200 {
@@ -244,7 +244,7 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 	T0, p0 := tlo, need0(tlo)
 	switch {
 	case math.IsNaN(p0):
-		return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrInvalid, Reason: "no total pressure gives the Reynolds number at the lowest allowed total temperature"}
+		return Condition{}, &Error{Op: "FindCondition", Class: quantity.ErrInvalid, Reason: "no total pressure gives the Reynolds number at the lowest allowed total temperature"}
 	case p0 > phi:
 		p0 = phi
 		c.Binding = append(c.Binding, pmaxName, tminName)
@@ -258,7 +258,7 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 		} else {
 			var err error
 			if T0, err = roots.Bisect(func(T0 float64) float64 { return need0(T0) - plo }, tlo, thi); err != nil {
-				return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrInvalid, Err: err, Reason: "no total temperature within the limits gives the Reynolds number at the minimum pressure"}
+				return Condition{}, &Error{Op: "FindCondition", Class: quantity.ErrInvalid, Err: err, Reason: "no total temperature within the limits gives the Reynolds number at the minimum pressure"}
 			}
 			p0 = plo
 			c.Binding = append(c.Binding, "minimum total pressure")
@@ -270,7 +270,7 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 	T, p := T0/tr, p0/pr
 	st, err := gas.At(quantity.New(T, quantity.Temperature), quantity.New(p, quantity.Pressure))
 	if err != nil {
-		return TunnelCondition{}, err // never a state the gas model refuses
+		return Condition{}, err // never a state the gas model refuses
 	}
 	c.Temperature, c.Pressure = st.Temperature, st.Pressure
 	c.Velocity = quantity.New(speed(T), quantity.Velocity)
@@ -278,14 +278,14 @@ func FindTunnelCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, pr
 	c.ReynoldsRatio = c.ModelReynolds / rep
 	c.Q = quantity.New(0.5*gas.Gamma*p*ma*ma, quantity.Pressure)
 	if !tunnelFinite(T0, p0, c.Velocity.Value(), c.ModelReynolds, c.ReynoldsRatio, c.Q.Value()) {
-		return TunnelCondition{}, &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the condition is not finite (T₀ = %g K, p₀ = %g Pa, Re_m = %g): the inputs are outside any tunnel's range", T0, p0, c.ModelReynolds)}
+		return Condition{}, &Error{Op: "FindCondition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the condition is not finite (T₀ = %g K, p₀ = %g Pa, Re_m = %g): the inputs are outside any tunnel's range", T0, p0, c.ModelReynolds)}
 	}
 	c.Achieved = math.Abs(c.ReynoldsRatio-1) < 1e-6
 	if c.Achieved {
 		c.Note = "Mach and Reynolds numbers both held"
 	}
 	if err := c.caution(gas, lim); err != nil {
-		return TunnelCondition{}, err
+		return Condition{}, err
 	}
 	return c, nil
 }
@@ -301,8 +301,8 @@ func tunnelFinite(xs ...float64) bool {
 }
 
 // caution fills the condition's load and safety notes.
-func (c *TunnelCondition) caution(gas fluids.IdealGas, lim TunnelLimits) error {
-	c.Cautions = []string{TunnelCaution}
+func (c *Condition) caution(gas fluids.IdealGas, lim Limits) error {
+	c.Cautions = []string{Caution}
 	if gas.GasName != fluids.Air().GasName {
 		c.Cautions = append(c.Cautions, AsphyxiantCaution)
 	}
@@ -316,7 +316,7 @@ func (c *TunnelCondition) caution(gas fluids.IdealGas, lim TunnelLimits) error {
 		}
 		c.Load = c.Q.Mul(area)
 		if math.IsInf(c.Load.Value(), 0) {
-			return &Error{Op: "FindTunnelCondition", Class: quantity.ErrRange, Reason: "the load C·S·q is not finite"}
+			return &Error{Op: "FindCondition", Class: quantity.ErrRange, Reason: "the load C·S·q is not finite"}
 		}
 	}
 	switch {
@@ -325,7 +325,7 @@ func (c *TunnelCondition) caution(gas fluids.IdealGas, lim TunnelLimits) error {
 			return err
 		}
 		if area == (quantity.Quantity{}) {
-			return &Error{Op: "FindTunnelCondition", Class: quantity.ErrInvalid, Reason: "a rated load needs the load area C·S (the largest force coefficient times the reference area) to compare with"}
+			return &Error{Op: "FindCondition", Class: quantity.ErrInvalid, Reason: "a rated load needs the load area C·S (the largest force coefficient times the reference area) to compare with"}
 		}
 		if l, r := c.Load.Value(), rated.Value(); l > r {
 			c.Overloaded = true

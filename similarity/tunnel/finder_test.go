@@ -15,9 +15,9 @@ func TestTunnelFinder(t *testing.T) {
 	proto, _ := fluids.StandardAtmosphere(q.New(18000, q.Length), fluids.GeopotentialAlt)
 	V := q.New(0.6*proto.SpeedOfSound.Value(), q.Velocity)
 	L := q.New(2.0, q.Length)
-	lim := tunnel.TunnelLimits{MinTemperature: q.New(100, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+	lim := tunnel.Limits{MinTemperature: q.New(100, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(5e5, q.Pressure)}
-	c, err := tunnel.FindTunnelCondition(fluids.Air(), proto, V, L, 1.0/10, lim)
+	c, err := tunnel.FindCondition(fluids.Air(), proto, V, L, 1.0/10, lim)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -34,7 +34,7 @@ func TestTunnelFinder(t *testing.T) {
 	// An ordinary atmospheric tunnel cannot: report how close.
 	lim.MaxPressure = q.New(1.1e5, q.Pressure)
 	lim.MinTemperature = q.New(280, q.Temperature)
-	c, err = tunnel.FindTunnelCondition(fluids.Air(), proto, V, L, 1.0/50, lim)
+	c, err = tunnel.FindCondition(fluids.Air(), proto, V, L, 1.0/50, lim)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -58,12 +58,12 @@ func TestTunnelFinder(t *testing.T) {
 // tunnel's own error, naming itself, never with the core's plan error.
 func TestFinderErrorIsTunnels(t *testing.T) {
 	std, _ := fluids.StandardAtmosphere(q.New(0, q.Length), fluids.Geometric)
-	lim := tunnel.TunnelLimits{MinTemperature: q.New(100, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+	lim := tunnel.Limits{MinTemperature: q.New(100, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(5e5, q.Pressure)}
-	_, err := tunnel.FindTunnelCondition(fluids.Air(), std, q.New(100, q.Velocity), q.New(2, q.Length), -0.1, lim)
+	_, err := tunnel.FindCondition(fluids.Air(), std, q.New(100, q.Velocity), q.New(2, q.Length), -0.1, lim)
 	var te *tunnel.Error
 	var pe *similarity.PlanError
-	if !errors.As(err, &te) || errors.As(err, &pe) || te.Op != "FindTunnelCondition" || te.Input != "length ratio" || !errors.Is(err, q.ErrRange) {
+	if !errors.As(err, &te) || errors.As(err, &pe) || te.Op != "FindCondition" || te.Input != "length ratio" || !errors.Is(err, q.ErrRange) {
 		t.Errorf("negative length ratio: %v", err)
 	}
 }

@@ -17,10 +17,10 @@ func TestFiniteOrError(t *testing.T) {
 	std, _ := fluids.StandardAtmosphere(q.New(0, q.Length), fluids.Geometric)
 	noSound := std
 	noSound.SpeedOfSound = q.Quantity{}
-	lim := tunnel.TunnelLimits{MinTemperature: q.New(100, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+	lim := tunnel.Limits{MinTemperature: q.New(100, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(5e5, q.Pressure)}
 	tunnel := func(st fluids.State, v float64) error {
-		_, err := tunnel.FindTunnelCondition(fluids.Air(), st, q.New(v, q.Velocity), q.New(2, q.Length), 0.1, lim)
+		_, err := tunnel.FindCondition(fluids.Air(), st, q.New(v, q.Velocity), q.New(2, q.Length), 0.1, lim)
 		return err
 	}
 	cases := []struct {

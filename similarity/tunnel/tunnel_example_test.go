@@ -12,13 +12,13 @@ import (
 // and Ma 0.6 (invented): the finder keeps the static test section above
 // nitrogen's saturation and returns the safety cautions with the load
 // against the balance's rating.
-func ExampleFindTunnelCondition() {
+func ExampleFindCondition() {
 	proto, _ := fluids.StandardAtmosphere(q.New(18000, q.Length), fluids.GeopotentialAlt)
 	V := q.New(0.6*proto.SpeedOfSound.Value(), q.Velocity)
-	lim := tunnel.TunnelLimits{MinTemperature: q.New(110, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+	lim := tunnel.Limits{MinTemperature: q.New(110, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(1e4, q.Pressure), MaxPressure: q.New(4.5e5, q.Pressure),
 		CondensationMargin: q.New(5, q.Temperature), RatedLoad: q.New(150, q.Force), LoadArea: q.New(0.012, q.Area)}
-	c, err := tunnel.FindTunnelCondition(fluids.Nitrogen(), proto, V, q.New(2, q.Length), 1.0/40, lim)
+	c, err := tunnel.FindCondition(fluids.Nitrogen(), proto, V, q.New(2, q.Length), 1.0/40, lim)
 	if err != nil {
 		fmt.Println(err)
 		return

@@ -22,7 +22,7 @@ func FuzzTunnel(f *testing.F) {
 			t.Fatal(err)
 		}
 		gas := fluids.Air()
-		lim := tunnel.TunnelLimits{MinTemperature: q.New(tlo, q.Temperature), MaxTemperature: q.New(thi, q.Temperature),
+		lim := tunnel.Limits{MinTemperature: q.New(tlo, q.Temperature), MaxTemperature: q.New(thi, q.Temperature),
 			MinPressure: q.New(plo, q.Pressure), MaxPressure: q.New(phi, q.Pressure)}
 		if which%2 == 1 {
 			gas = fluids.Nitrogen()
@@ -30,7 +30,7 @@ func FuzzTunnel(f *testing.F) {
 			lim.RatedLoad, lim.LoadArea = q.New(vol, q.Force), q.New(c, q.Area)
 			lim.MaxDynamicPressure = q.New(coef, q.Pressure)
 		}
-		if r, err := tunnel.FindTunnelCondition(gas, proto, q.New(v, q.Velocity), q.New(l, q.Length), ratio, lim); err == nil {
+		if r, err := tunnel.FindCondition(gas, proto, q.New(v, q.Velocity), q.New(l, q.Length), ratio, lim); err == nil {
 			if !allFinite(r.FullReynolds, r.ModelReynolds, r.ReynoldsRatio, r.Mach, r.Total.Pressure.Value(), r.Total.Temperature.Value(),
 				r.Pressure.Value(), r.Temperature.Value(), r.Velocity.Value(), r.Q.Value(), r.Load.Value()) {
 				t.Errorf("finder: %+v", r)

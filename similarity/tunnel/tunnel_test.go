@@ -197,9 +197,9 @@ func cryoCase() (fluids.State, q.Quantity, q.Quantity) {
 // as achieved); the saturation binds and is named.
 func TestTunnelFinderKeepsNitrogenGas(t *testing.T) {
 	proto, V, L := cryoCase()
-	lim := tunnel.TunnelLimits{MinTemperature: q.New(70, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+	lim := tunnel.Limits{MinTemperature: q.New(70, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(1e4, q.Pressure), MaxPressure: q.New(4.5e5, q.Pressure)}
-	c, err := tunnel.FindTunnelCondition(fluids.Nitrogen(), proto, V, L, 1.0/40, lim)
+	c, err := tunnel.FindCondition(fluids.Nitrogen(), proto, V, L, 1.0/40, lim)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -218,7 +218,7 @@ func TestTunnelFinderKeepsNitrogenGas(t *testing.T) {
 	}
 	// Limits that lie wholly below air's range are a range error.
 	lim.MaxTemperature = q.New(120, q.Temperature)
-	if _, err := tunnel.FindTunnelCondition(fluids.Air(), proto, V, L, 1.0/40, lim); !errors.Is(err, q.ErrRange) {
+	if _, err := tunnel.FindCondition(fluids.Air(), proto, V, L, 1.0/40, lim); !errors.Is(err, q.ErrRange) {
 		t.Errorf("air at 70 … 120 K: %v", err)
 	}
 }
@@ -230,14 +230,14 @@ func TestTunnelFinderKeepsNitrogenGas(t *testing.T) {
 // says that no rating was given.
 func TestTunnelFinderCautions(t *testing.T) {
 	proto, V, L := cryoCase()
-	lim := tunnel.TunnelLimits{MinTemperature: q.New(110, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+	lim := tunnel.Limits{MinTemperature: q.New(110, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(1e5, q.Pressure), MaxPressure: q.New(4.5e5, q.Pressure),
 		RatedLoad: q.New(500, q.Force), LoadArea: q.New(0.6*0.02, q.Area)}
-	c, err := tunnel.FindTunnelCondition(fluids.Nitrogen(), proto, V, L, 1.0/40, lim)
+	c, err := tunnel.FindCondition(fluids.Nitrogen(), proto, V, L, 1.0/40, lim)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if !slices.Contains(c.Cautions, tunnel.TunnelCaution) || !slices.Contains(c.Cautions, tunnel.AsphyxiantCaution) ||
+	if !slices.Contains(c.Cautions, tunnel.Caution) || !slices.Contains(c.Cautions, tunnel.AsphyxiantCaution) ||
 		!slices.Contains(c.Cautions, tunnel.ColdCaution) {
 		t.Errorf("cautions %q", c.Cautions)
 	}
@@ -246,13 +246,13 @@ func TestTunnelFinderCautions(t *testing.T) {
 		t.Errorf("load %v, overloaded %v; by hand %v N", c.Load, c.Overloaded, load)
 	}
 	lim.RatedLoad = q.New(load/2, q.Force)
-	c, err = tunnel.FindTunnelCondition(fluids.Nitrogen(), proto, V, L, 1.0/40, lim)
+	c, err = tunnel.FindCondition(fluids.Nitrogen(), proto, V, L, 1.0/40, lim)
 	if err != nil || !c.Overloaded || !strings.Contains(strings.Join(c.Cautions, "\n"), "OVERLOAD") {
 		t.Errorf("a load of twice the rating: %v, %+v", err, c)
 	}
-	warm := tunnel.TunnelLimits{MinTemperature: q.New(280, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+	warm := tunnel.Limits{MinTemperature: q.New(280, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(5e5, q.Pressure)}
-	c, err = tunnel.FindTunnelCondition(fluids.Air(), proto, V, L, 1.0/12, warm)
+	c, err = tunnel.FindCondition(fluids.Air(), proto, V, L, 1.0/12, warm)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -262,7 +262,7 @@ func TestTunnelFinderCautions(t *testing.T) {
 		t.Errorf("warm air cautions %q", c.Cautions)
 	}
 	lim.LoadArea = q.Quantity{}
-	if _, err := tunnel.FindTunnelCondition(fluids.Nitrogen(), proto, V, L, 1.0/40, lim); !errors.Is(err, q.ErrInvalid) {
+	if _, err := tunnel.FindCondition(fluids.Nitrogen(), proto, V, L, 1.0/40, lim); !errors.Is(err, q.ErrInvalid) {
 		t.Errorf("a rated load without a load area: %v", err)
 	}
 }
@@ -272,7 +272,7 @@ func TestTunnelFinderCautions(t *testing.T) {
 // finite inputs are refused or give finite numbers.
 func TestTunnelFinderExtremeFinite(t *testing.T) {
 	proto, V, _ := cryoCase()
-	lim := tunnel.TunnelLimits{MinTemperature: q.New(280, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+	lim := tunnel.Limits{MinTemperature: q.New(280, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(5e5, q.Pressure)}
 	for _, c := range []struct {
 		name  string
@@ -283,13 +283,13 @@ func TestTunnelFinderExtremeFinite(t *testing.T) {
 		{"length MaxFloat64", math.MaxFloat64, 0.1, V}, {"length 1e300", 1e300, 0.1, V}, {"length 1e300, ratio 1e300", 1e300, 1e300, V},
 		{"speed 1e300", 2, 0.1, q.New(1e300, q.Velocity)}, {"length 1e-300", 1e-300, 1e-300, V},
 	} {
-		r, err := tunnel.FindTunnelCondition(fluids.Air(), proto, c.V, q.New(c.L, q.Length), c.ratio, lim)
+		r, err := tunnel.FindCondition(fluids.Air(), proto, c.V, q.New(c.L, q.Length), c.ratio, lim)
 		if err == nil && !allFinite(r.FullReynolds, r.ModelReynolds, r.ReynoldsRatio, r.Total.Pressure.Value(), r.Total.Temperature.Value(),
 			r.Pressure.Value(), r.Temperature.Value(), r.Velocity.Value(), r.Q.Value()) {
 			t.Errorf("%s: %+v with a nil error", c.name, r)
 		}
 	}
-	if _, err := tunnel.FindTunnelCondition(fluids.Air(), proto, V, q.New(math.MaxFloat64, q.Length), 0.1, lim); err == nil {
+	if _, err := tunnel.FindCondition(fluids.Air(), proto, V, q.New(math.MaxFloat64, q.Length), 0.1, lim); err == nil {
 		t.Errorf("length MaxFloat64 accepted")
 	}
 }
@@ -309,9 +309,9 @@ func allFinite(xs ...float64) bool {
 // used to return a total pressure below the tunnel's minimum).
 func TestTunnelFinderQLimitBelowMinimum(t *testing.T) {
 	proto, V, L := cryoCase()
-	lim := tunnel.TunnelLimits{MinTemperature: q.New(280, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
+	lim := tunnel.Limits{MinTemperature: q.New(280, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(1e5, q.Pressure), MaxPressure: q.New(5e5, q.Pressure), MaxDynamicPressure: q.New(1e3, q.Pressure)}
-	c, err := tunnel.FindTunnelCondition(fluids.Air(), proto, V, L, 1.0/12, lim)
+	c, err := tunnel.FindCondition(fluids.Air(), proto, V, L, 1.0/12, lim)
 	if !errors.Is(err, q.ErrRange) {
 		t.Errorf("q ≤ 1 kPa with p₀ ≥ 1 bar: %v, total %v", err, c.Total)
 	}

@@ -19,20 +19,20 @@ func TestTunnelFinderLimits(t *testing.T) {
 	proto, _ := fluids.StandardAtmosphere(quantity.New(18000, quantity.Length), fluids.GeopotentialAlt)
 	V := quantity.New(0.6*proto.SpeedOfSound.Value(), quantity.Velocity)
 	L := quantity.New(2.0, quantity.Length)
-	lim := tunnel.TunnelLimits{MinTemperature: quantity.New(280, quantity.Temperature), MaxTemperature: quantity.New(320, quantity.Temperature),
+	lim := tunnel.Limits{MinTemperature: quantity.New(280, quantity.Temperature), MaxTemperature: quantity.New(320, quantity.Temperature),
 		MinPressure: quantity.New(2e4, quantity.Pressure), MaxPressure: quantity.New(5e5, quantity.Pressure),
 		MaxDynamicPressure: quantity.New(15e3, quantity.Pressure)}
-	c, err := tunnel.FindTunnelCondition(fluids.Air(), proto, V, L, 1.0/12, lim)
+	c, err := tunnel.FindCondition(fluids.Air(), proto, V, L, 1.0/12, lim)
 	if err != nil {
 		t.Fatal(err)
 	}
 	if c.Achieved || math.Abs(c.Q.Value()-15e3) > 1e-6 || math.Abs(c.Pressure.Value()-2*15e3/(1.4*0.36)) > 1e-6 || c.Binding[0] != "maximum dynamic pressure" {
 		t.Errorf("q-limited condition %+v", c)
 	}
-	cryo := tunnel.TunnelLimits{MinTemperature: quantity.New(90, quantity.Temperature), MaxTemperature: quantity.New(320, quantity.Temperature),
+	cryo := tunnel.Limits{MinTemperature: quantity.New(90, quantity.Temperature), MaxTemperature: quantity.New(320, quantity.Temperature),
 		MinPressure: quantity.New(1e5, quantity.Pressure), MaxPressure: quantity.New(4.5e5, quantity.Pressure),
 		CondensationMargin: quantity.New(20, quantity.Temperature)}
-	c, err = tunnel.FindTunnelCondition(fluids.Nitrogen(), proto, V, L, 1.0/40, cryo)
+	c, err = tunnel.FindCondition(fluids.Nitrogen(), proto, V, L, 1.0/40, cryo)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -40,7 +40,7 @@ func TestTunnelFinderLimits(t *testing.T) {
 	if m := c.Temperature.Value() - ts.Value(); math.Abs(m-20) > 1e-6 || len(c.Binding) == 0 || c.Binding[0] != "condensation margin" {
 		t.Errorf("margin %v K, binding %v, condition %+v", m, c.Binding, c)
 	}
-	if _, err := tunnel.FindTunnelCondition(fluids.Air(), proto, V, L, 1.0/40, cryo); err == nil {
+	if _, err := tunnel.FindCondition(fluids.Air(), proto, V, L, 1.0/40, cryo); err == nil {
 		t.Errorf("a condensation margin for air accepted")
 	}
 }
