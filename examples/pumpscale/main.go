@@ -259,7 +259,7 @@ func suction(w io.Writer, step turbo.StepUp, etas []float64, rows []Row, nm, np,
 		s.AckeretRefused = err.Error()
 	}
 	ft := units.MustParse("ft")
-	if s.Sigma, err = turbo.Thoma(ft.Of(modelNPSH3), bep.ModelH); err != nil {
+	if s.Sigma, err = turbo.Thoma(turbo.Heads{NPSH: ft.Of(modelNPSH3), Head: bep.ModelH}); err != nil {
 		return Suction{}, err
 	}
 	s.ProtoNPSH3 = bep.ProtoH.Scale(s.Sigma)

@@ -24,7 +24,7 @@
 //     SpecificSpeedMetric, SpecificSpeedUS and SpecificSpeedDimensionless
 //     convert between them.
 //  4. Cavitation. NPSH gives the net positive suction head at a section
-//     (ISO 9906, IEC 60193), Thoma the cavitation number σ = NPSH/H that
+//     (ISO 9906, IEC 60193), Thoma the cavitation number σ = NPSH/H (Heads) that
 //     model and prototype share at similar points, and SuctionPressureFor
 //     the suction pressure a prototype needs for a σ.
 //

@@ -43,7 +43,7 @@ func FuzzTurbo(f *testing.F) {
 		n, err := turbo.NPSH(turbo.NPSHInput{Pressure: q.New(d, q.Pressure), VapourPressure: q.New(e, q.Pressure),
 			Density: q.New(k, q.Density), Velocity: q.New(v, q.Velocity), Gravity: q.New(h, q.Acceleration)})
 		finite("NPSH", err, n.Value())
-		sigma, err := turbo.Thoma(q.New(d, q.Length), q.New(h, q.Length))
+		sigma, err := turbo.Thoma(turbo.Heads{NPSH: q.New(d, q.Length), Head: q.New(h, q.Length)})
 		finite("Thoma", err, sigma)
 		p, err := turbo.SuctionPressureFor(a, q.New(h, q.Length), q.New(e, q.Pressure), q.New(k, q.Density), q.New(v, q.Velocity), q.New(b, q.Acceleration))
 		finite("SuctionPressureFor", err, p.Value())

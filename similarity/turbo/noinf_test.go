@@ -50,7 +50,7 @@ func TestTurboNoSilentInf(t *testing.T) {
 		{"NPSH, 1e300 Pa over 1e-300 kg/m³", npsh(turbo.NPSHInput{Pressure: pa(big), VapourPressure: pa(1), Density: rho(tiny), Velocity: vel(1)}), q.ErrRange},
 		{"NPSH, 1e300 m/s", npsh(turbo.NPSHInput{Pressure: pa(2), VapourPressure: pa(1), Density: rho(1), Velocity: vel(big)}), q.ErrRange},
 		{"NPSH, g = 1e-300", npsh(turbo.NPSHInput{Pressure: pa(big), VapourPressure: pa(1), Density: rho(1), Velocity: vel(1), Gravity: q.New(tiny, q.Acceleration)}), q.ErrRange},
-		{"Thoma, 1e300 m over 1e-300 m", func() error { _, err := turbo.Thoma(m(big), m(tiny)); return err }(), q.ErrRange},
+		{"Thoma, 1e300 m over 1e-300 m", func() error { _, err := turbo.Thoma(turbo.Heads{NPSH: m(big), Head: m(tiny)}); return err }(), q.ErrRange},
 		{"suction pressure, σ = 1e300", func() error {
 			_, err := turbo.SuctionPressureFor(big, m(big), pa(1), rho(1), vel(1), q.Quantity{})
 			return err

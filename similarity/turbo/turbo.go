@@ -190,10 +190,18 @@ func NPSH(in NPSHInput) (quantity.Quantity, error) {
 	return quantity.New(n, quantity.Length), nil
 }
 
-// Thoma returns the Thoma cavitation number σ = NPSH/H: equal for model
-// and prototype at similar operating points (IEC 60193), so the
+// Heads are a machine's NPSH and its head at one operating point, both
+// lengths, named so that one cannot be given for the other.
+type Heads struct {
+	NPSH quantity.Quantity // the net positive suction head (NPSH3 at the cavitation limit)
+	Head quantity.Quantity // the machine's head H at the same point
+}
+
+// Thoma returns the Thoma cavitation number σ = NPSH/H of h: equal for
+// model and prototype at similar operating points (IEC 60193), so the
 // prototype's NPSH is σ·H_P.
-func Thoma(npsh, head quantity.Quantity) (float64, error) {
+func Thoma(h Heads) (float64, error) {
+	npsh, head := h.NPSH, h.Head
 	if err := npsh.CheckNamed("NPSH", quantity.Length); err != nil {
 		return 0, err
 	}

@@ -70,7 +70,7 @@ func TestNPSH(t *testing.T) {
 	if math.Abs(n.Value()-want) > 1e-12 || math.Abs(want-15.5432) > 5e-5 || n.Dim() != quantity.Length {
 		t.Errorf("NPSH = %v, by hand %v", n, want)
 	}
-	sigma, err := turbo.Thoma(n, quantity.New(40, quantity.Length))
+	sigma, err := turbo.Thoma(turbo.Heads{NPSH: n, Head: quantity.New(40, quantity.Length)})
 	if err != nil {
 		t.Fatal(err)
 	}
