@@ -83,7 +83,12 @@ func checkPages(r io.ReaderAt, size int64, f *parquet.File) error {
 	if md.EncryptionAlgorithm.Value != nil {
 		return fmt.Errorf("an encrypted file")
 	}
+	var rows int64
 	for g, rg := range md.RowGroups {
+		if rg.NumRows < 0 || rows+rg.NumRows < rows {
+			return fmt.Errorf("row group %d: %d rows", g+1, rg.NumRows)
+		}
+		rows += rg.NumRows
 		for c, cc := range rg.Columns {
 			where := fmt.Sprintf("row group %d, column %d", g+1, c+1)
 			m := cc.MetaData
@@ -104,31 +109,41 @@ func checkPages(r io.ReaderAt, size int64, f *parquet.File) error {
 			if start < 4 || m.TotalCompressedSize <= 0 || end < start || end > size-8 {
 				return fmt.Errorf("%s: a chunk of %d bytes at offset %d, outside the file", where, m.TotalCompressedSize, start)
 			}
-			if err := checkChunk(io.NewSectionReader(r, start, end-start), m.Codec); err != nil {
+			values, err := checkChunk(io.NewSectionReader(r, start, end-start), m.Codec)
+			if err != nil {
 				return fmt.Errorf("%s: %w", where, err)
 			}
+			// Every row has at least one entry in every column.
+			if values < rg.NumRows {
+				return fmt.Errorf("%s: %d rows declared, %d values in the pages", where, rg.NumRows, values)
+			}
 		}
+	}
+	if md.NumRows != rows {
+		return fmt.Errorf("the footer declares %d rows, its row groups %d", md.NumRows, rows)
 	}
 	return nil
 }
 
-// checkChunk walks the pages of one column chunk.
-func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) error {
+// checkChunk walks the pages of one column chunk and returns the number
+// of values its data pages declare.
+func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) (int64, error) {
 	size := sr.Size()
 	cr := &countReader{r: bufio.NewReaderSize(sr, 4096)}
 	var proto thrift.CompactProtocol
+	var total int64
 	for page := 1; cr.n < size; page++ {
 		var h format.PageHeader
 		if err := thrift.NewDecoder(proto.NewReader(io.LimitReader(cr, 1<<16))).Decode(&h); err != nil {
-			return fmt.Errorf("page %d: a damaged page header: %v", page, err)
+			return 0, fmt.Errorf("page %d: a damaged page header: %v", page, err)
 		}
 		comp, unc := int64(h.CompressedPageSize), int64(h.UncompressedPageSize)
 		if comp < 0 || unc < 0 || comp > MaxPageBytes || unc > MaxPageBytes {
-			return fmt.Errorf("page %d: %d bytes compressed, %d uncompressed (at most %d read)", page, comp, unc, int64(MaxPageBytes))
+			return 0, fmt.Errorf("page %d: %d bytes compressed, %d uncompressed (at most %d read)", page, comp, unc, int64(MaxPageBytes))
 		}
 		body := cr.n
 		if body+comp > size {
-			return fmt.Errorf("page %d: %d bytes that run past the chunk's end", page, comp)
+			return 0, fmt.Errorf("page %d: %d bytes that run past the chunk's end", page, comp)
 		}
 		var values int64
 		data := body // where the compressed data start
@@ -136,14 +151,16 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) error {
 		switch {
 		case h.DataPageHeader.Valid:
 			values = int64(h.DataPageHeader.V.NumValues)
+			total += max(values, 0)
 		case h.DictionaryPageHeader.Valid:
 			values = int64(h.DictionaryPageHeader.V.NumValues)
 		case h.DataPageHeaderV2.Valid:
 			v := h.DataPageHeaderV2.V
 			values = int64(v.NumValues)
+			total += max(values, 0)
 			lv := int64(v.DefinitionLevelsByteLength) + int64(v.RepetitionLevelsByteLength)
 			if v.DefinitionLevelsByteLength < 0 || v.RepetitionLevelsByteLength < 0 || lv > comp {
-				return fmt.Errorf("page %d: level lengths outside the page", page)
+				return 0, fmt.Errorf("page %d: level lengths outside the page", page)
 			}
 			data += lv
 			if v.IsCompressed.Valid && !v.IsCompressed.V {
@@ -151,7 +168,7 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) error {
 			}
 		}
 		if values < 0 || values > maxPageValues {
-			return fmt.Errorf("page %d: %d values (at most %d read)", page, values, maxPageValues)
+			return 0, fmt.Errorf("page %d: %d values (at most %d read)", page, values, maxPageValues)
 		}
 		if compressed && data < body+comp {
 			n := body + comp - data
@@ -162,36 +179,46 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) error {
 				// The block starts with its decoded length, a varint.
 				var head [binary.MaxVarintLen64]byte
 				if _, err := sr.ReadAt(head[:min(n, int64(len(head)))], data); err != nil {
-					return fmt.Errorf("page %d: %v", page, err)
+					return 0, fmt.Errorf("page %d: %v", page, err)
 				}
 				u, k := binary.Uvarint(head[:min(n, int64(len(head)))])
 				if k <= 0 {
-					return fmt.Errorf("page %d: a damaged snappy block", page)
+					return 0, fmt.Errorf("page %d: a damaged snappy block", page)
 				}
 				out = int64(min(u, 1<<62))
+				if out > unc {
+					return 0, fmt.Errorf("page %d: a snappy block that declares %d bytes, in a page of %d uncompressed", page, out, unc)
+				}
 			case format.Zstd:
-				out, err = zstdBound(io.NewSectionReader(sr, data, n), n)
+				var declared int64
+				out, declared, err = zstdBound(io.NewSectionReader(sr, data, n), n)
+				if err == nil && declared > unc {
+					return 0, fmt.Errorf("page %d: zstd frames that declare %d bytes, in a page of %d uncompressed", page, declared, unc)
+				}
 			}
 			if err != nil {
-				return fmt.Errorf("page %d: %v", page, err)
+				return 0, fmt.Errorf("page %d: %v", page, err)
 			}
 			if out > MaxPageBytes {
-				return fmt.Errorf("page %d: decompresses to as much as %d bytes (at most %d read)", page, out, int64(MaxPageBytes))
+				return 0, fmt.Errorf("page %d: decompresses to as much as %d bytes (at most %d read)", page, out, int64(MaxPageBytes))
 			}
 		}
 		if _, err := cr.r.Discard(int(comp)); err != nil {
-			return fmt.Errorf("page %d: %v", page, err)
+			return 0, fmt.Errorf("page %d: %v", page, err)
 		}
 		cr.n += comp
 	}
-	return nil
+	return total, nil
 }
 
 // zstdBound returns an upper bound on the bytes that the zstd frames in r
 // (n bytes) decode to, from the frame and block headers (RFC 8878 §3.1):
 // a raw or RLE block gives its size, a compressed block at most 128 KiB.
-func zstdBound(r *io.SectionReader, n int64) (int64, error) {
-	var out, pos int64
+// It also returns the content size the frame headers declare, which the
+// decoder allocates at once, and refuses a frame whose declared content
+// or window is larger than MaxPageBytes, or that needs a dictionary.
+func zstdBound(r *io.SectionReader, n int64) (out, declared int64, err error) {
+	var pos int64
 	var b [18]byte
 	read := func(k int) ([]byte, error) {
 		if pos+int64(k) > n {
@@ -205,52 +232,82 @@ func zstdBound(r *io.SectionReader, n int64) (int64, error) {
 	}
 	for frames := 0; pos < n; frames++ {
 		if frames > 1<<16 {
-			return 0, fmt.Errorf("too many zstd frames")
+			return 0, 0, fmt.Errorf("too many zstd frames")
 		}
 		m, err := read(4)
 		if err != nil {
-			return 0, err
+			return 0, 0, err
 		}
 		magic := binary.LittleEndian.Uint32(m)
 		if magic&0xFFFFFFF0 == 0x184D2A50 { // a skippable frame
 			s, err := read(4)
 			if err != nil {
-				return 0, err
+				return 0, 0, err
 			}
 			pos += int64(binary.LittleEndian.Uint32(s))
 			continue
 		}
 		if magic != 0xFD2FB528 {
-			return 0, fmt.Errorf("not a zstd frame")
+			return 0, 0, fmt.Errorf("not a zstd frame")
 		}
 		d, err := read(1)
 		if err != nil {
-			return 0, err
+			return 0, 0, err
 		}
 		fd := d[0]
 		single := fd&0x20 != 0
 		checksum := fd&0x04 != 0
-		skip := int64([]int{0, 1, 2, 4}[fd&3]) // dictionary ID
-		if !single {
-			skip++ // window descriptor
+		if fd&3 != 0 {
+			return 0, 0, fmt.Errorf("a zstd frame that needs a dictionary")
 		}
-		switch fd >> 6 { // frame content size
+		if !single {
+			w, err := read(1)
+			if err != nil {
+				return 0, 0, err
+			}
+			// Window_Descriptor: 2^(10+exponent) plus mantissa eighths.
+			base := int64(1) << (10 + w[0]>>3)
+			if window := base + base/8*int64(w[0]&7); window > MaxPageBytes {
+				return 0, 0, fmt.Errorf("a zstd window of %d bytes (at most %d read)", window, int64(MaxPageBytes))
+			}
+		}
+		var fcs uint64
+		switch fd >> 6 { // Frame_Content_Size
 		case 0:
 			if single {
-				skip++
+				c, err := read(1)
+				if err != nil {
+					return 0, 0, err
+				}
+				fcs = uint64(c[0])
 			}
 		case 1:
-			skip += 2
+			c, err := read(2)
+			if err != nil {
+				return 0, 0, err
+			}
+			fcs = uint64(binary.LittleEndian.Uint16(c)) + 256
 		case 2:
-			skip += 4
+			c, err := read(4)
+			if err != nil {
+				return 0, 0, err
+			}
+			fcs = uint64(binary.LittleEndian.Uint32(c))
 		case 3:
-			skip += 8
+			c, err := read(8)
+			if err != nil {
+				return 0, 0, err
+			}
+			fcs = binary.LittleEndian.Uint64(c)
 		}
-		pos += skip
+		if fcs > MaxPageBytes || declared+int64(fcs) > MaxPageBytes {
+			return 0, 0, fmt.Errorf("a zstd frame that declares %d bytes of content (at most %d read)", fcs, int64(MaxPageBytes))
+		}
+		declared += int64(fcs)
 		for last := false; !last; {
 			h, err := read(3)
 			if err != nil {
-				return 0, err
+				return 0, 0, err
 			}
 			v := uint32(h[0]) | uint32(h[1])<<8 | uint32(h[2])<<16
 			last = v&1 != 0
@@ -266,15 +323,15 @@ func zstdBound(r *io.SectionReader, n int64) (int64, error) {
 				out += 128 << 10
 				pos += size
 			default:
-				return 0, fmt.Errorf("a reserved zstd block type")
+				return 0, 0, fmt.Errorf("a reserved zstd block type")
 			}
 			if out > MaxPageBytes {
-				return out, nil
+				return out, declared, nil
 			}
 		}
 		if checksum {
 			pos += 4
 		}
 	}
-	return out, nil
+	return out, declared, nil
 }

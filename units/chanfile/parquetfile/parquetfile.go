@@ -284,7 +284,8 @@ func column(f *parquet.File, fd parquet.Field, opt Options) (chanfile.Column, ki
 // chunks are read.
 func (r *Reader) Columns() []chanfile.Column { return r.cols }
 
-// NumRows returns the number of rows the file's footer declares.
+// NumRows returns the number of rows the file's footer declares, which
+// NewReader checked against the row groups and the values of their pages.
 func (r *Reader) NumRows() int64 { return r.file.NumRows() }
 
 // batch is the most rows Read decodes at a time, whatever it is asked
