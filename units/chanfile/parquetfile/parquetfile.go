@@ -132,7 +132,13 @@ const (
 type Reader struct {
 	name  string
 	file  *parquet.File
-	pr    *parquet.GenericReader[any]
+	// The row groups are read one at a time, each to the rows it
+	// declares, so that a column short of values in one group cannot
+	// borrow the next group's and shift against the other columns.
+	groups  []parquet.RowGroup
+	group   int          // the row group being read
+	cur     parquet.Rows // its rows, or nil before it is opened
+	inGroup int64        // rows read of it
 	cols  []chanfile.Column
 	kinds []kind
 	mul   []float64 // SI = x·mul + add
@@ -204,7 +210,7 @@ func NewReader(r io.ReaderAt, size int64, name string, opt Options) (rd *Reader,
 			return nil, &Error{File: name, Field: n, Reason: "Options.Units names a column the file does not have", class: quantity.ErrInvalid}
 		}
 	}
-	rd.pr = parquet.NewGenericReader[any](f)
+	rd.groups = f.RowGroups()
 	return rd, nil
 }
 
@@ -347,10 +353,21 @@ func (r *Reader) Read(dst []quantity.Series, rows int) (out []quantity.Series, n
 // rows of this call to Read; it returns the rows read.
 func (r *Reader) readBatch(buf []parquet.Row, n int) (read int, err error) {
 	vals := r.vals
-	m, err := r.pr.ReadRows(buf)
+	if r.cur == nil {
+		if r.group >= len(r.groups) {
+			r.done = true
+			if r.row != r.file.NumRows() {
+				return 0, &Error{File: r.name, Row: r.row + 1, Reason: fmt.Sprintf("the file declares %d rows, its pages hold %d: a damaged file", r.file.NumRows(), r.row)}
+			}
+			return 0, nil
+		}
+		r.cur, r.inGroup = r.groups[r.group].Rows(), 0
+	}
+	declared := r.groups[r.group].NumRows()
+	m, err := r.cur.ReadRows(buf[:min(int64(len(buf)), max(declared-r.inGroup, 1))])
+	end := err == io.EOF || m == 0 && err == nil // the end of the row group
 	if err == io.EOF {
 		err = nil
-		r.done = true
 	} else if err != nil {
 		r.done = true
 		err = &Error{File: r.name, Row: r.row + int64(m) + 1, Reason: "read failed", Err: err}
@@ -436,6 +453,25 @@ func (r *Reader) readBatch(buf []parquet.Row, n int) (read int, err error) {
 		read++
 		r.row++
 	}
+	if err == nil {
+		r.inGroup += int64(read)
+		switch {
+		case r.inGroup > declared:
+			err = &Error{File: r.name, Row: r.row, Reason: fmt.Sprintf("row group %d declares %d rows, its pages hold more: a damaged file", r.group+1, declared)}
+		case end && r.inGroup < declared:
+			err = &Error{File: r.name, Row: r.row + 1, Reason: fmt.Sprintf("row group %d declares %d rows, its pages hold %d: a damaged file", r.group+1, declared, r.inGroup)}
+		case end:
+			err = r.cur.Close()
+			r.cur = nil
+			r.group++
+			if err != nil {
+				err = &Error{File: r.name, Row: r.row + 1, Reason: "read failed", Err: err}
+			}
+		}
+		if err != nil {
+			r.done = true
+		}
+	}
 	if err != nil {
 		// The row in error is not part of the chunk.
 		for j := range vals {
@@ -446,7 +482,14 @@ func (r *Reader) readBatch(buf []parquet.Row, n int) (read int, err error) {
 }
 
 // Close releases the reader's buffers.
-func (r *Reader) Close() error { return r.pr.Close() }
+func (r *Reader) Close() error {
+	if r.cur == nil {
+		return nil
+	}
+	err := r.cur.Close()
+	r.cur = nil
+	return err
+}
 
 // orderedGroup is a schema group whose columns keep the order given,
 // where a plain group sorts them by name.
