@@ -139,7 +139,7 @@ func FuzzPages(f *testing.F) {
 		var rows int64
 		for range 1000 {
 			var n int
-			dst, n, err = r.Read(dst, 16)
+			dst, n, err = r.Read(dst, 64)
 			rows += int64(n)
 			for j := range dst {
 				for _, x := range dst[j].Values()[:n] {
