@@ -19,6 +19,7 @@ const (
 	MaxPageBytes   = 64 << 20
 	MaxFooterBytes = 16 << 20
 	maxPageValues  = 1 << 24
+	maxPageHeader  = 1 << 16
 )
 
 // readable lists the compressions read: the ones whose output size the
@@ -50,6 +51,15 @@ func checkFooter(r io.ReaderAt, size int64) error {
 	n := int64(binary.LittleEndian.Uint32(b[:4]))
 	if n > size-12 || n > MaxFooterBytes {
 		return fmt.Errorf("a footer of %d bytes in a file of %d (at most %d read)", n, size, int64(MaxFooterBytes))
+	}
+	footer := make([]byte, n)
+	if _, err := r.ReadAt(footer, size-8-n); err != nil {
+		return err
+	}
+	if k, err := thriftCheck(footer, maxDecodedFooter); err != nil {
+		return fmt.Errorf("the footer: %v", err)
+	} else if k != len(footer) {
+		return fmt.Errorf("the footer: %d bytes after its end", len(footer)-k)
 	}
 	return nil
 }
@@ -129,12 +139,18 @@ func checkPages(r io.ReaderAt, size int64, f *parquet.File) error {
 // of values its data pages declare.
 func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) (int64, error) {
 	size := sr.Size()
-	cr := &countReader{r: bufio.NewReaderSize(sr, 4096)}
+	cr := &countReader{r: bufio.NewReaderSize(sr, maxPageHeader)}
 	var proto thrift.CompactProtocol
 	var total int64
 	for page := 1; cr.n < size; page++ {
+		// The header is walked before it is decoded: at most 64 KiB,
+		// no string or list longer than that.
+		peek, _ := cr.r.Peek(int(min(size-cr.n, maxPageHeader)))
+		if _, err := thriftCheck(peek, 1<<20); err != nil {
+			return 0, fmt.Errorf("page %d: a damaged page header: %v", page, err)
+		}
 		var h format.PageHeader
-		if err := thrift.NewDecoder(proto.NewReader(io.LimitReader(cr, 1<<16))).Decode(&h); err != nil {
+		if err := thrift.NewDecoder(proto.NewReader(io.LimitReader(cr, maxPageHeader))).Decode(&h); err != nil {
 			return 0, fmt.Errorf("page %d: a damaged page header: %v", page, err)
 		}
 		comp, unc := int64(h.CompressedPageSize), int64(h.UncompressedPageSize)
@@ -334,4 +350,172 @@ func zstdBound(r *io.SectionReader, n int64) (out, declared int64, err error) {
 		}
 	}
 	return out, declared, nil
+}
+
+// maxDecodedFooter bounds what the footer may decode to, counting every
+// element of a list at the size of the largest footer structure
+// (structCost): about 250 000 column chunks.
+const (
+	maxDecodedFooter = 256 << 20
+	structCost       = 1024 // the bytes a decoded struct may take (a column chunk takes 560)
+	maxThriftDepth   = 32
+)
+
+// thriftCheck walks one Thrift compact-protocol struct at the start of b
+// (the Apache Thrift compact protocol) without decoding it, and returns its length in bytes. It refuses a string,
+// list, set or map that declares more elements or bytes than b has left
+// (each element takes at least one byte), nesting deeper than
+// maxThriftDepth, and lists whose elements, each counted at structCost
+// bytes for a struct and 24 otherwise, come to more than budget bytes:
+// the decoder allocates what a header declares before it reads it.
+func thriftCheck(b []byte, budget int64) (int, error) {
+	w := thriftWalker{b: b, budget: budget}
+	if err := w.value(12, 0); err != nil {
+		return 0, err
+	}
+	return w.pos, nil
+}
+
+type thriftWalker struct {
+	b      []byte
+	pos    int
+	budget int64
+}
+
+func (w *thriftWalker) byte() (byte, error) {
+	if w.pos >= len(w.b) {
+		return 0, fmt.Errorf("a truncated Thrift structure")
+	}
+	c := w.b[w.pos]
+	w.pos++
+	return c, nil
+}
+
+func (w *thriftWalker) uvarint() (uint64, error) {
+	v, k := binary.Uvarint(w.b[w.pos:])
+	if k <= 0 {
+		return 0, fmt.Errorf("a damaged Thrift varint")
+	}
+	w.pos += k
+	return v, nil
+}
+
+func (w *thriftWalker) skip(n uint64, what string) error {
+	if n > uint64(len(w.b)-w.pos) {
+		return fmt.Errorf("a %s of %d bytes, where %d are left", what, n, len(w.b)-w.pos)
+	}
+	w.pos += int(n)
+	return nil
+}
+
+// elements checks a container of n elements of type t.
+func (w *thriftWalker) elements(n uint64, t byte) error {
+	if n > uint64(len(w.b)-w.pos) {
+		return fmt.Errorf("a list of %d elements, where %d bytes are left", n, len(w.b)-w.pos)
+	}
+	cost := int64(24)
+	if t == 12 {
+		cost = structCost
+	}
+	w.budget -= int64(n) * cost
+	if w.budget < 0 {
+		return fmt.Errorf("lists of more elements than %d bytes decode", int64(maxDecodedFooter))
+	}
+	return nil
+}
+
+// value walks one value of compact type t (a boolean element of a
+// container, which takes a byte, is walked by the caller).
+func (w *thriftWalker) value(t byte, depth int) error {
+	if depth > maxThriftDepth {
+		return fmt.Errorf("Thrift structures nested deeper than %d", maxThriftDepth)
+	}
+	switch t {
+	case 1, 2: // a boolean field: the value is in the type
+		return nil
+	case 3: // byte
+		return w.skip(1, "byte")
+	case 4, 5, 6: // i16, i32, i64: zigzag varints
+		_, err := w.uvarint()
+		return err
+	case 7: // double
+		return w.skip(8, "double")
+	case 8: // binary
+		n, err := w.uvarint()
+		if err != nil {
+			return err
+		}
+		return w.skip(n, "string")
+	case 9, 10: // list, set
+		h, err := w.byte()
+		if err != nil {
+			return err
+		}
+		n, et := uint64(h>>4), h&0x0f
+		if n == 15 {
+			if n, err = w.uvarint(); err != nil {
+				return err
+			}
+		}
+		if err := w.elements(n, et); err != nil {
+			return err
+		}
+		for range n {
+			if et == 1 || et == 2 { // a boolean element takes a byte
+				if err := w.skip(1, "boolean"); err != nil {
+					return err
+				}
+				continue
+			}
+			if err := w.value(et, depth+1); err != nil {
+				return err
+			}
+		}
+		return nil
+	case 11: // map
+		n, err := w.uvarint()
+		if err != nil || n == 0 {
+			return err
+		}
+		kv, err := w.byte()
+		if err != nil {
+			return err
+		}
+		if err := w.elements(2*n, 12); err != nil {
+			return err
+		}
+		for range n {
+			for _, et := range []byte{kv >> 4, kv & 0x0f} {
+				if et == 1 || et == 2 {
+					if err := w.skip(1, "boolean"); err != nil {
+						return err
+					}
+					continue
+				}
+				if err := w.value(et, depth+1); err != nil {
+					return err
+				}
+			}
+		}
+		return nil
+	case 12: // struct: fields to a stop byte
+		for {
+			h, err := w.byte()
+			if err != nil {
+				return err
+			}
+			if h == 0 {
+				return nil
+			}
+			if h>>4 == 0 { // a long-form field id follows
+				if _, err := w.uvarint(); err != nil {
+					return err
+				}
+			}
+			if err := w.value(h&0x0f, depth+1); err != nil {
+				return err
+			}
+		}
+	}
+	return fmt.Errorf("a Thrift value of unknown type %d", t)
 }

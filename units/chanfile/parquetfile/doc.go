@@ -28,7 +28,9 @@
 // in bounded memory. A file that is not valid Parquet gives an *Error.
 //
 // Before anything is decoded, the footer (at most MaxFooterBytes) and
-// every page header are checked: a page may hold at most MaxPageBytes,
+// every page header are checked. Their Thrift structure is walked first:
+// no string or list may declare more than the bytes that hold it, and the
+// footer's lists may not decode to more than 256 MiB. A page may hold at most MaxPageBytes,
 // compressed or not, and its decompressed size is bounded from its own
 // headers. What a compressed frame declares is checked too, since a
 // decoder allocates it at once: a zstd frame's content size and window, a

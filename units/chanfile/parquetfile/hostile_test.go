@@ -29,7 +29,18 @@ const (
 	fileSnappy      = "snappy-declares-3GiB.parquet"     // a snappy block declaring 3 GiB
 	fileFooterRows  = "footer-declares-2e40rows.parquet" // a footer declaring 2⁴⁰ rows
 	fileGroupRows   = "group-declares-2e40rows.parquet"  // a row group (and footer) declaring 2⁴⁰ rows
+	fileFooterList  = "footer-list-2e31.parquet"         // a footer whose list of row groups declares 2³¹−1 of them
+	fileFooterBytes = "footer-string-2GiB.parquet"       // a footer whose key-value string declares 2 GiB
+	filePageBytes   = "page-header-string-2GiB.parquet"  // a page header whose statistics string declares 2 GiB
 )
+
+// bareFooter returns a file of nothing but the footer given (Thrift
+// compact protocol bytes).
+func bareFooter(footer []byte) []byte {
+	b := append([]byte("PAR1"), footer...)
+	b = binary.LittleEndian.AppendUint32(b, uint32(len(footer)))
+	return append(b, "PAR1"...)
+}
 
 // validFile is the file the crafted ones start from: one column of four
 // velocities, written by Writer.
@@ -113,6 +124,24 @@ func hostileFiles(t *testing.T) map[string][]byte {
 			}
 		}
 	})
+	// Field 4 of FileMetaData, row_groups, a list (0x49); a list of
+	// structs whose size follows as a varint (0xFC): 2³¹−1; no elements.
+	files[fileFooterList] = bareFooter([]byte{0x49, 0xFC, 0xff, 0xff, 0xff, 0xff, 0x07})
+	// Field 5, key_value_metadata, a list (0x59) of one struct (0x1C)
+	// whose field 1, key, a binary (0x18), declares 2³¹−1 bytes.
+	files[fileFooterBytes] = bareFooter([]byte{0x59, 0x1C, 0x18, 0xff, 0xff, 0xff, 0xff, 0x07})
+	add(filePageBytes, func(p *page) []byte {
+		h := &p.header
+		if p.index == 0 && h.DataPageHeaderV2.Valid {
+			// A marker string in the statistics, whose length (a
+			// varint 8) becomes 2³¹−1.
+			h.DataPageHeaderV2.V.Statistics.MaxValue = []byte("ZZZZZZZZ")
+			p.patch = func(hb []byte) []byte {
+				return bytes.Replace(hb, []byte("\x08ZZZZZZZZ"), []byte("\xff\xff\xff\xff\x07ZZZZZZZZ"), 1)
+			}
+		}
+		return p.body
+	}, nil)
 	add(fileFooterRows, nil, func(md *format.FileMetaData) { md.NumRows = 1 << 40 })
 	add(fileGroupRows, nil, func(md *format.FileMetaData) {
 		md.NumRows = 1 << 40
@@ -131,7 +160,7 @@ func TestHostileFilesAreAsStated(t *testing.T) {
 			}
 		}
 	}
-	for _, name := range []string{fileZstdContent, fileZstdWindow, fileSnappy, fileFooterRows, fileGroupRows} {
+	for _, name := range []string{fileZstdContent, fileZstdWindow, fileSnappy, fileFooterRows, fileGroupRows, fileFooterList, fileFooterBytes, filePageBytes} {
 		b, err := os.ReadFile(filepath.Join("testdata", name))
 		if err != nil {
 			t.Fatal(err)
@@ -149,6 +178,10 @@ func TestHostileFilesAreAsStated(t *testing.T) {
 		case fileZstdWindow:
 			if wd := b[bytes.Index(b, []byte{0x28, 0xB5, 0x2F, 0xFD})+5]; wd>>3 != 19 {
 				t.Errorf("%s: window descriptor %#x", name, wd)
+			}
+		case filePageBytes, fileFooterBytes, fileFooterList:
+			if !bytes.Contains(b, []byte{0xff, 0xff, 0xff, 0xff, 0x07}) {
+				t.Errorf("%s: no length 2³¹−1", name)
 			}
 		case fileSnappy:
 			if !bytes.Contains(b, binary.AppendUvarint(nil, 3<<30)) {
@@ -239,6 +272,30 @@ func TestRefusesFooterDeclaringMoreRows(t *testing.T) {
 	if inChild(t) {
 		refused(t, fileFooterRows, "the footer declares 1099511627776 rows, its row groups 4")
 		refused(t, fileGroupRows, "1099511627776 rows declared, 4 values in the pages")
+	}
+}
+
+// TestRefusesFooterDeclaringHugeList: a footer whose list of row groups
+// declares 2³¹−1 of them is refused before it is decoded.
+func TestRefusesFooterDeclaringHugeList(t *testing.T) {
+	if inChild(t) {
+		refused(t, fileFooterList, "a list of 2147483647 elements")
+	}
+}
+
+// TestRefusesFooterDeclaringHugeString: a footer whose key-value string
+// declares 2 GiB is refused before it is decoded.
+func TestRefusesFooterDeclaringHugeString(t *testing.T) {
+	if inChild(t) {
+		refused(t, fileFooterBytes, "a string of 2147483647 bytes")
+	}
+}
+
+// TestRefusesPageHeaderDeclaringHugeString: a page header whose
+// statistics string declares 2 GiB is refused before it is decoded.
+func TestRefusesPageHeaderDeclaringHugeString(t *testing.T) {
+	if inChild(t) {
+		refused(t, filePageBytes, "a string of 2147483647 bytes")
 	}
 }
 

@@ -130,8 +130,8 @@ const (
 
 // Reader reads a Parquet channel file chunk by chunk.
 type Reader struct {
-	name  string
-	file  *parquet.File
+	name string
+	file *parquet.File
 	// The row groups are read one at a time, each to the rows it
 	// declares, so that a column short of values in one group cannot
 	// borrow the next group's and shift against the other columns.
@@ -139,14 +139,14 @@ type Reader struct {
 	group   int          // the row group being read
 	cur     parquet.Rows // its rows, or nil before it is opened
 	inGroup int64        // rows read of it
-	cols  []chanfile.Column
-	kinds []kind
-	mul   []float64 // SI = x·mul + add
-	add   []float64
-	rows  []parquet.Row // reused
-	vals  [][]float64   // reused
-	row   int64         // rows read so far
-	done  bool
+	cols    []chanfile.Column
+	kinds   []kind
+	mul     []float64 // SI = x·mul + add
+	add     []float64
+	rows    []parquet.Row // reused
+	vals    [][]float64   // reused
+	row     int64         // rows read so far
+	done    bool
 }
 
 // guard turns a panic of the Parquet decoder on a damaged file into an

@@ -16,6 +16,9 @@ type page struct {
 	codec                format.CompressionCodec
 	header               format.PageHeader
 	body                 []byte // as stored (compressed)
+	// patch, if an edit sets it, changes the page header's bytes after
+	// they are encoded.
+	patch func(header []byte) []byte
 }
 
 // rewrite rebuilds the Parquet file b page by page: edit may change each
@@ -67,6 +70,9 @@ func rewrite(b []byte, edit func(p *page) []byte, meta func(md *format.FileMetaD
 				hb, err := thrift.Marshal(&proto, &h)
 				if err != nil {
 					return nil, err
+				}
+				if p.patch != nil {
+					hb = p.patch(hb)
 				}
 				pos := int64(len(out))
 				if h.DictionaryPageHeader.Valid {
