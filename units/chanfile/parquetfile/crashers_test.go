@@ -87,3 +87,39 @@ func TestColumnShortOfValuesInARowGroupIsRefused(t *testing.T) {
 		}
 	}
 }
+
+// TestRowGroupHoldingMoreRowsThanDeclaredIsRefused: the saved FuzzPages
+// input 1c971a4d8bb8a8d6 sets the value count of the only data page of a
+// four-row file to 25 and changes its first level byte, so its pages hold
+// more rows than its row group declares. The reader counted the fifth row
+// before it refused the group. The property: Read never returns more rows
+// than the file declares, refuses the group with an *Error, and the rows
+// it returned are the four written.
+func TestRowGroupHoldingMoreRowsThanDeclaredIsRefused(t *testing.T) {
+	a := corpusArgs(t, filepath.Join("testdata", "fuzz", "FuzzPages", "1c971a4d8bb8a8d6"))
+	bases := pageBases(t)
+	b := mutate(bases[int(a[0].(int64))%len(bases)], uint16(a[1].(int64)), uint16(a[2].(int64)), a[3].([]byte), uint8(a[4].(int64)), int32(a[5].(int64)))
+	r, err := NewReader(bytes.NewReader(b), int64(len(b)), "f.parquet", Options{})
+	if err != nil {
+		t.Fatalf("the file is refused at once (%v); this test is about Read", err)
+	}
+	var dst []quantity.Series
+	var got []float64
+	for range 100 {
+		var n int
+		dst, n, err = r.Read(dst, 3)
+		got = append(got, dst[0].Values()[:n]...)
+		if err != nil {
+			break
+		}
+	}
+	var pe *Error
+	if int64(len(got)) > r.NumRows() || !errors.As(err, &pe) || classCount(err) != 1 || !strings.Contains(err.Error(), "holds more") && !strings.Contains(err.Error(), "hold more") {
+		t.Fatalf("%d rows of %d declared, then %v; want at most %d and an *Error", len(got), r.NumRows(), err, r.NumRows())
+	}
+	for i, v := range got {
+		if v != float64(i+1) {
+			t.Errorf("row %d: %v, want %v", i+1, v, i+1)
+		}
+	}
+}

@@ -364,13 +364,18 @@ func (r *Reader) readBatch(buf []parquet.Row, n int) (read int, err error) {
 		r.cur, r.inGroup = r.groups[r.group].Rows(), 0
 	}
 	declared := r.groups[r.group].NumRows()
-	m, err := r.cur.ReadRows(buf[:min(int64(len(buf)), max(declared-r.inGroup, 1))])
+	want := declared - r.inGroup // rows of the group still to read
+	m, err := r.cur.ReadRows(buf[:min(int64(len(buf)), max(want, 1))])
 	end := err == io.EOF || m == 0 && err == nil // the end of the row group
 	if err == io.EOF {
 		err = nil
 	} else if err != nil {
 		r.done = true
 		err = &Error{File: r.name, Row: r.row + int64(m) + 1, Reason: "read failed", Err: err}
+	}
+	if err == nil && want == 0 && m > 0 {
+		r.done = true
+		err = &Error{File: r.name, Row: r.row + 1, Reason: fmt.Sprintf("row group %d declares %d rows, its pages hold more: a damaged file", r.group+1, declared)}
 	}
 	for i := 0; i < m && err == nil; i++ {
 		row := buf[i]
@@ -456,8 +461,6 @@ func (r *Reader) readBatch(buf []parquet.Row, n int) (read int, err error) {
 	if err == nil {
 		r.inGroup += int64(read)
 		switch {
-		case r.inGroup > declared:
-			err = &Error{File: r.name, Row: r.row, Reason: fmt.Sprintf("row group %d declares %d rows, its pages hold more: a damaged file", r.group+1, declared)}
 		case end && r.inGroup < declared:
 			err = &Error{File: r.name, Row: r.row + 1, Reason: fmt.Sprintf("row group %d declares %d rows, its pages hold %d: a damaged file", r.group+1, declared, r.inGroup)}
 		case end:
