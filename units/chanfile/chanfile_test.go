@@ -317,6 +317,15 @@ func TestWriterRefuses(t *testing.T) {
 		{[]chanfile.Column{{Name: "P1", Unit: pa}, {Name: "P2", Unit: pa}}, []quantity.Series{quantity.NewSeries([]float64{1}, quantity.Pressure), quantity.NewSeries([]float64{1, 2}, quantity.Pressure)}, "2 values"},
 		{[]chanfile.Column{{Name: "P1", Unit: pa}}, []quantity.Series{}, "0 series for 1 columns"},
 		{[]chanfile.Column{{Name: "P1", Unit: pa}}, []quantity.Series{quantity.NewSeries([]float64{1, math.Inf(1)}, quantity.Pressure)}, "an infinite value"},
+		// 1e308 m is 1e311 mm, beyond float64: it would be written +Inf.
+		{[]chanfile.Column{{Name: "L", Unit: units.MustParse("mm")}}, []quantity.Series{quantity.NewSeries([]float64{1, 1e308}, quantity.Length)}, "t.csv:3:1: \"L\": 1e+308 in SI is beyond the range of float64 in mm"},
+		// 5e-324 m, the least subnormal, is 0 in km.
+		{[]chanfile.Column{{Name: "L", Unit: units.MustParse("km")}}, []quantity.Series{quantity.NewSeries([]float64{5e-324}, quantity.Length)}, "beyond the range of float64 in km"},
+		{[]chanfile.Column{{Name: "a\nb", Unit: pa}}, nil, "would not read back"},
+		{[]chanfile.Column{{Name: "#P", Unit: pa}}, nil, "would not read back (no header row)"},
+		{[]chanfile.Column{{Name: " P", Unit: pa}}, nil, "would not read back"},
+		{[]chanfile.Column{{Name: "P", Unit: pa}, {Name: "P", Unit: pa}}, nil, "also column 1"},
+		{[]chanfile.Column{{Name: "P\xff", Unit: pa}}, nil, "UTF-8"},
 	} {
 		var buf bytes.Buffer
 		w, err := chanfile.NewWriter(&buf, "t.csv", tc.cols, chanfile.Options{})
@@ -352,6 +361,7 @@ func FuzzReader(f *testing.F) {
 	f.Add("a [m],b [m]\n1,2\n3\n")
 	f.Add("V [kn]\n12 kn\n")
 	f.Add("x [m]\n\"1\"\n,\n")
+	f.Add("L [km]\n1e308\n1e-400\n")
 	f.Fuzz(func(t *testing.T, s string) {
 		r, err := chanfile.NewReader(strings.NewReader(s), "f.csv", chanfile.Options{Reference: units.StandardReference()})
 		if err != nil {
@@ -369,6 +379,11 @@ func FuzzReader(f *testing.F) {
 			for j, c := range r.Columns() {
 				if dst[j].Len() != n || dst[j].Dim() != c.Unit.Dim() {
 					t.Fatalf("column %d: %d values of %v for %d rows", j, dst[j].Len(), dst[j].Dim(), n)
+				}
+				for _, x := range dst[j].Values() {
+					if math.IsInf(x, 0) {
+						t.Fatalf("column %d: %v with a nil error", j, x)
+					}
 				}
 			}
 		}

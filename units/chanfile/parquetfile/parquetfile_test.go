@@ -306,8 +306,20 @@ func TestWriterRefuses(t *testing.T) {
 	if err := w.Write([]quantity.Series{quantity.NewSeries([]float64{1}, quantity.Length)}); !errors.Is(err, quantity.ErrDimension) {
 		t.Errorf("length for velocity: err = %v", err)
 	}
-	if err := w.Write([]quantity.Series{quantity.NewSeries([]float64{math.Inf(1)}, quantity.Velocity)}); err == nil || !strings.Contains(err.Error(), "row 1") {
+	if err := w.Write([]quantity.Series{quantity.NewSeries([]float64{math.Inf(1)}, quantity.Velocity)}); err == nil || !strings.Contains(err.Error(), "row 1") || !errors.Is(err, quantity.ErrRange) {
 		t.Errorf("infinite value: err = %v", err)
+	}
+	// 1e308 m is 1e311 mm, beyond float64: it would be stored +Inf.
+	w, err = NewWriter(&buf, "t.parquet", []chanfile.Column{col("V", "m/s"), col("L", "mm")}, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	err = w.Write([]quantity.Series{quantity.NewSeries([]float64{1, 2}, quantity.Velocity), quantity.NewSeries([]float64{1, 1e308}, quantity.Length)})
+	if !errors.Is(err, quantity.ErrRange) || !strings.Contains(err.Error(), `t.parquet: row 2: column 2 "L": 1e+308 in SI is beyond the range of float64 in mm`) {
+		t.Errorf("overflow in the column's unit: err = %v", err)
+	}
+	if _, err := NewWriter(&buf, "t.parquet", []chanfile.Column{{Name: "V\xff", Unit: units.MustParse("m")}}, Options{}); !errors.Is(err, quantity.ErrInvalid) {
+		t.Errorf("a name not valid UTF-8: err = %v", err)
 	}
 }
 
