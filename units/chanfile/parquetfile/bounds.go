@@ -419,7 +419,7 @@ func (w *thriftWalker) elements(n uint64, t byte) error {
 	}
 	w.budget -= int64(n) * cost
 	if w.budget < 0 {
-		return fmt.Errorf("lists of more elements than %d bytes decode", int64(maxDecodedFooter))
+		return fmt.Errorf("lists whose elements would decode to more than %d bytes", int64(maxDecodedFooter))
 	}
 	return nil
 }
@@ -428,7 +428,7 @@ func (w *thriftWalker) elements(n uint64, t byte) error {
 // container, which takes a byte, is walked by the caller).
 func (w *thriftWalker) value(t byte, depth int) error {
 	if depth > maxThriftDepth {
-		return fmt.Errorf("Thrift structures nested deeper than %d", maxThriftDepth)
+		return fmt.Errorf("structures nested deeper than %d in Thrift", maxThriftDepth)
 	}
 	switch t {
 	case 1, 2: // a boolean field: the value is in the type
