@@ -369,7 +369,7 @@ const (
 // bytes for a struct and 24 otherwise, come to more than budget bytes:
 // the decoder allocates what a header declares before it reads it.
 func thriftCheck(b []byte, budget int64) (int, error) {
-	w := thriftWalker{b: b, budget: budget}
+	w := thriftWalker{b: b, budget: budget, limit: budget}
 	if err := w.value(12, 0); err != nil {
 		return 0, err
 	}
@@ -379,7 +379,8 @@ func thriftCheck(b []byte, budget int64) (int, error) {
 type thriftWalker struct {
 	b      []byte
 	pos    int
-	budget int64
+	budget int64 // bytes left to decode to
+	limit  int64 // the budget at the start
 }
 
 func (w *thriftWalker) byte() (byte, error) {
@@ -419,7 +420,7 @@ func (w *thriftWalker) elements(n uint64, t byte) error {
 	}
 	w.budget -= int64(n) * cost
 	if w.budget < 0 {
-		return fmt.Errorf("lists whose elements would decode to more than %d bytes", int64(maxDecodedFooter))
+		return fmt.Errorf("lists whose elements would decode to more than %d bytes", w.limit)
 	}
 	return nil
 }
