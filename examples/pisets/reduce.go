@@ -316,12 +316,12 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 		}
 		w = newJSONLines(out, names)
 	} else if opt.parquet {
-		pw, err := parquetfile.NewWriter(out, outCols, parquetfile.Options{})
+		pw, err := parquetfile.NewWriter(out, "standard output", outCols, parquetfile.Options{})
 		if err != nil {
 			return err
 		}
 		w = parquetSink{pw}
-	} else if w, err = chanfile.NewWriter(out, outCols, chanfile.Options{}); err != nil {
+	} else if w, err = chanfile.NewWriter(out, "standard output", outCols, chanfile.Options{}); err != nil {
 		return err
 	}
 	var (
