@@ -87,9 +87,9 @@ type output struct {
 	name   string // "" for the bare result
 	slot   int
 	dim    quantity.Dim
-	pos    int   // byte offset of the statement
-	lo, hi int   // the statement's operations, ops[lo:hi]
-	refs   []int // the slots of the inputs and earlier results it names
+	pos    int     // byte offset of the statement
+	lo, hi int     // the statement's operations, ops[lo:hi]
+	refs   []int   // the slots of the inputs and earlier results it names
 	konst  bool    // its value is known at compile time
 	val    float64 // that value
 }
