@@ -89,6 +89,9 @@ func (e *RangeError) Error() string {
 	if e.Wrt != "" {
 		what = fmt.Sprintf("∂%s/∂%s", what, e.Wrt)
 	}
+	if e.Err != nil {
+		return fmt.Sprintf("formula %q: %sstatement %d (counting from 1): %s: at %d: %s", in, where, e.Statement+1, what, e.Offset, e.Reason)
+	}
 	return fmt.Sprintf("formula %q: %sstatement %d (counting from 1): %s is %v, not finite: at %d: %s", in, where, e.Statement+1, what, e.Value, e.Offset, e.Reason)
 }
 
