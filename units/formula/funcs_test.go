@@ -329,3 +329,41 @@ func TestConstantsProperty(t *testing.T) {
 		}
 	})
 }
+
+// TestSolveSeriesBlocks: a solve over more rows than one block, with a
+// function of the library in its equation, gives each row's root
+// (x = √a, from sq(x·1 m) = a·1 m²), a missing row stays missing, and
+// nothing is allocated.
+func TestSolveSeriesBlocks(t *testing.T) {
+	p, err := withFuncs.Compile("x = solve(x, sq(x*1 {m}) = a*1 {m^2}, 0, 10); y = 2*x", in("a", quantity.Dimensionless))
+	if err != nil {
+		t.Fatal(err)
+	}
+	const n = 1000
+	a := make([]float64, n)
+	for i := range a {
+		a[i] = float64(i) / 10
+	}
+	a[700] = math.NaN()
+	dst := [][]float64{make([]float64, n), make([]float64, n)}
+	ev := p.Evaluator()
+	cols := []quantity.Series{quantity.NewSeries(a, quantity.Dimensionless)}
+	if err := ev.Series(cols, dst); err != nil {
+		t.Fatal(err)
+	}
+	if allocs := testing.AllocsPerRun(3, func() { _ = ev.Series(cols, dst) }); allocs != 0 {
+		t.Errorf("Series with a solve and a call: %v allocations", allocs)
+	}
+	for i, v := range a {
+		want := math.Sqrt(v)
+		if i == 700 {
+			if !math.IsNaN(dst[0][i]) || !math.IsNaN(dst[1][i]) {
+				t.Errorf("row %d: %v %v, want missing", i, dst[0][i], dst[1][i])
+			}
+			continue
+		}
+		if math.Abs(dst[0][i]-want) > 4e-16*want || dst[1][i] != 2*dst[0][i] {
+			t.Fatalf("row %d: %v %v, want %v", i, dst[0][i], dst[1][i], want)
+		}
+	}
+}
