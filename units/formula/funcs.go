@@ -22,6 +22,9 @@ import (
 // Evaluator reports with the row and the statement (see RangeError); such
 // an error should match quantity.ErrRange under errors.Is. A function is
 // never called with a missing (NaN) argument: its result is then missing.
+// An error, or a result that is not finite, is treated as any result that
+// is not finite (see Check): reported by default, marked missing under
+// MarkMissing, and NaN under Unchecked.
 //
 // Deriv, if not nil, writes into grad the partial derivative of the result
 // with respect to each argument, ∂f/∂argⱼ in SI, at args; Gradient needs it

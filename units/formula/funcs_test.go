@@ -119,6 +119,17 @@ func TestFuncOutOfRangeRow(t *testing.T) {
 	if _, err := ev.Row([]float64{6}, make([]float64, 2)); !errors.As(err, &re) || re.Row != -1 {
 		t.Errorf("Row: %v", err)
 	}
+	// A function's error of another class keeps that one class.
+	bad := formula.Options{Funcs: []formula.Func{{Name: "g", Args: []quantity.Dim{quantity.Length}, Result: quantity.Length,
+		Eval: func(a []float64) (float64, error) { return 0, fmt.Errorf("g: %w", quantity.ErrInvalid) }}}}
+	pg, err := bad.Compile("g(D)", in("D", quantity.Length))
+	if err != nil {
+		t.Fatal(err)
+	}
+	_, err = pg.Evaluator().Row([]float64{1}, make([]float64, 1))
+	if cl := classesOf(err); !errors.As(err, &re) || len(cl) != 1 || cl[0] != quantity.ErrInvalid {
+		t.Errorf("g: %v: classes %v", err, cl)
+	}
 	ev.SetCheck(formula.MarkMissing)
 	if err := ev.Series([]quantity.Series{col}, dst); err != nil || !math.IsNaN(dst[1][2]) || dst[1][3] != 36 || ev.Marked(1) != 1 {
 		t.Errorf("MarkMissing: %v %v marked %d", err, dst, ev.Marked(1))
