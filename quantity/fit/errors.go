@@ -2,7 +2,6 @@ package fit
 
 import (
 	"fmt"
-	"math"
 
 	"similis.dev/similis/quantity"
 )
@@ -58,4 +57,3 @@ func allFinite(v ...float64) bool {
 	return true
 }
 
-var _ = math.Inf
