@@ -56,4 +56,3 @@ func allFinite(v ...float64) bool {
 	}
 	return true
 }
-

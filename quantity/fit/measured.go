@@ -117,4 +117,3 @@ func (m *MeasuredPoly) predict(op string, x uncertain.Measured, outside bool) (u
 	}
 	return z, pr, nil
 }
-
