@@ -132,7 +132,8 @@ func (f *Fairing) At(x float64) (float64, error) {
 // in which sense: it finds the real roots of dy/dx (the eigenvalues of
 // its companion matrix, in t) and checks the sign of dy/dx between
 // consecutive roots in the range. A derivative that touches 0 without
-// changing sign keeps the polynomial monotone. It returns an *Error of
+// changing sign keeps the polynomial monotone. A slope within 10⁻⁹ of the
+// largest slope found in the range counts as 0 (rounding about a root). It returns an *Error of
 // class quantity.ErrInvalid naming an x where the slope changes sign when
 // the polynomial is not monotone there, and refuses a range that is not
 // within the fitted range (class quantity.ErrRange).
@@ -171,17 +172,31 @@ func (f *Poly) Monotone(lo, hi float64) (increasing bool, err error) {
 		}
 	}
 	slices.Sort(pts)
-	pos, neg := false, false
-	var negAt, posAt float64
-	for i := range len(pts) - 1 {
-		tm := pts[i]/2 + pts[i+1]/2
+	// Slopes at the ends and between consecutive roots; a slope within
+	// 10⁻⁹ of the largest found is rounding about a root, not a sign.
+	xs, ss := make([]float64, 0, 2*len(pts)), make([]float64, 0, 2*len(pts))
+	smax := 0.0
+	add := func(tm float64) {
 		xm := f.Center + f.Scale*tm
 		s := f.Slope(xm)
+		xs, ss = append(xs, xm), append(ss, s)
+		smax = max(smax, math.Abs(s))
+	}
+	add(tl)
+	add(th)
+	for i := range len(pts) - 1 {
+		if pts[i+1]-pts[i] > 1e-9*(th-tl) {
+			add(pts[i]/2 + pts[i+1]/2)
+		}
+	}
+	pos, neg := false, false
+	var negAt, posAt float64
+	for i, s := range ss {
 		switch {
-		case s > 0:
-			pos, posAt = true, xm
-		case s < 0:
-			neg, negAt = true, xm
+		case s > 1e-9*smax:
+			pos, posAt = true, xs[i]
+		case s < -1e-9*smax:
+			neg, negAt = true, xs[i]
 		}
 	}
 	switch {
