@@ -286,7 +286,10 @@ func TestErrors(t *testing.T) {
 		{"order", func() error { _, err := FitPoly(x4, x4, MaxOrder+1, nil); return err }, quantity.ErrInvalid},
 		{"negative order", func() error { _, err := FitPoly(x4, x4, -1, nil); return err }, quantity.ErrInvalid},
 		{"too few rows", func() error { _, err := FitPoly(x4, x4, 3, nil); return err }, quantity.ErrInvalid},
-		{"too few distinct", func() error { _, err := FitPoly([]float64{1, 1, 2, 2, 2}, []float64{1, 2, 3, 4, 5}, 2, nil); return err }, quantity.ErrInvalid},
+		{"too few distinct", func() error {
+			_, err := FitPoly([]float64{1, 1, 2, 2, 2}, []float64{1, 2, 3, 4, 5}, 2, nil)
+			return err
+		}, quantity.ErrInvalid},
 		{"weight", func() error {
 			_, err := FitPoly(x4, x4, 1, &Options{Weights: []float64{1, -1, 1, 1}})
 			return err
