@@ -175,7 +175,7 @@ func TestRoundTrip(t *testing.T) {
 func TestSelectPoly(t *testing.T) {
 	a := []float64{1, 0.2, -0.3, 0.05} // a cubic
 	x, y := synth(a, 30, -3, 4, 0.01, 7)
-	for _, c := range []Criterion{NextTerm, AICc} {
+	for _, c := range []Criterion{NextTerm, TopTerm, AICc} {
 		f, err := SelectPoly(x, y, 7, c, nil)
 		if err != nil {
 			t.Fatal(err)
@@ -185,6 +185,16 @@ func TestSelectPoly(t *testing.T) {
 		}
 		if len(f.Selection) != 8 {
 			t.Errorf("%v compared %d orders, want 8", c, len(f.Selection))
+		}
+	}
+	// Nearly symmetric about the middle: NextTerm stops at the line,
+	// TopTerm finds the cubic (invented data).
+	xs := []float64{0, 0.5, 1, 1.5, 2, 2.5, 3, 3.5, 4, 4.5, 5, 5.5, 6}
+	ys := []float64{1.02, 1.31, 1.49, 1.52, 1.52, 1.44, 1.29, 1.17, 1.03, 0.95, 0.92, 0.98, 1.10}
+	for c, want := range map[Criterion]int{NextTerm: 1, TopTerm: 3} {
+		f, err := SelectPoly(xs, ys, 6, c, nil)
+		if err != nil || f.Order != want {
+			t.Errorf("%v: order %v, %v; want %d", c, f, err, want)
 		}
 	}
 	// A straight line with noise: the quadratic term is not significant.

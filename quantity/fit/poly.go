@@ -199,8 +199,9 @@ type Candidate struct {
 	AICc float64
 	// PNext is the two-sided p-value of the t test of the highest
 	// coefficient of the fit of order Order+1 (1 where that fit is not
-	// made).
-	PNext float64
+	// made), and PTop that of this order's own highest coefficient (1
+	// for order 0).
+	PNext, PTop float64
 }
 
 // Prediction is a fitted value with its intervals.

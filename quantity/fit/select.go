@@ -20,6 +20,12 @@ const (
 	// when the even and odd terms alternate in importance; compare the
 	// Candidates when the choice matters.
 	NextTerm Criterion = iota
+	// TopTerm chooses the highest order whose own highest coefficient is
+	// significant (two-sided t test, p ≤ 0.05), eliminating backwards
+	// from the highest order compared; order 0 if none is. It does not
+	// stop early where a term of odd or even order alone is small (a
+	// curve symmetric about the middle of the range).
+	TopTerm
 	// AICc chooses the order of least corrected Akaike information
 	// criterion, AICc = N·ln(SSE/N) + 2k + 2k(k+1)/(N − k − 1) with
 	// k = order + 2 (Hurvich and Tsai, Biometrika 76 (1989) 297–307), the
@@ -35,6 +41,8 @@ func (c Criterion) String() string {
 	switch c {
 	case NextTerm:
 		return "next term not significant at 5 %"
+	case TopTerm:
+		return "highest order with a significant top coefficient at 5 %"
 	case AICc:
 		return "least AICc"
 	}
@@ -81,21 +89,12 @@ func SelectPoly(x, y []float64, maxOrder int, c Criterion, opt *Options) (*Poly,
 	n := float64(len(x))
 	cands := make([]Candidate, len(fits))
 	for m, f := range fits {
-		cd := Candidate{Order: m, SSE: f.SSE, PNext: 1}
+		cd := Candidate{Order: m, SSE: f.SSE, PNext: 1, PTop: topP(f)}
 		if k := float64(m + 2); n-k-1 > 0 && f.SSE > 0 {
 			cd.AICc = n*math.Log(f.SSE/n) + 2*k + 2*k*(k+1)/(n-k-1)
 		}
 		if m+1 < len(fits) {
-			g := fits[m+1]
-			tv := g.B[m+1] / g.StdErr[m+1]
-			switch {
-			case g.StdErr[m+1] == 0 && g.B[m+1] == 0:
-				cd.PNext = 1
-			case g.StdErr[m+1] == 0:
-				cd.PNext = 0
-			default:
-				cd.PNext = 2 * distuv.StudentsT{Mu: 0, Sigma: 1, Nu: float64(g.DoF)}.Survival(math.Abs(tv))
-			}
+			cd.PNext = topP(fits[m+1])
 		}
 		cands[m] = cd
 	}
@@ -113,6 +112,17 @@ func SelectPoly(x, y []float64, maxOrder int, c Criterion, opt *Options) (*Poly,
 		if best < 0 {
 			best = len(fits) - 1
 			note = fmt.Sprintf("every term up to order %d is significant at 5 %%: the relation may need a higher order than was compared", best)
+		}
+	case TopTerm:
+		best = 0
+		for m := len(fits) - 1; m > 0; m-- {
+			if cands[m].PTop <= SignificanceLevel {
+				best = m
+				break
+			}
+		}
+		if best == len(fits)-1 && best > 0 {
+			note = fmt.Sprintf("the top coefficient of the highest order compared, %d, is significant at 5 %%: the relation may need a higher order", best)
 		}
 	case AICc:
 		best = -1
@@ -139,4 +149,21 @@ func SelectPoly(x, y []float64, maxOrder int, c Criterion, opt *Options) (*Poly,
 		f.Notes = append(f.Notes, note)
 	}
 	return f, nil
+}
+
+// topP returns the two-sided p-value of the t test of f's highest
+// coefficient (1 for order 0, whose only coefficient is not tested).
+func topP(f *Poly) float64 {
+	m := f.Order
+	if m == 0 {
+		return 1
+	}
+	b, se := f.B[m], f.StdErr[m]
+	switch {
+	case se == 0 && b == 0:
+		return 1
+	case se == 0:
+		return 0
+	}
+	return 2 * distuv.StudentsT{Mu: 0, Sigma: 1, Nu: float64(f.DoF)}.Survival(math.Abs(b/se))
 }
