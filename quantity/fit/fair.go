@@ -61,8 +61,12 @@ func Fair(x, y []float64) (*Fairing, error) {
 	f := &Fairing{x: slices.Clone(x), y: slices.Clone(y), d: make([]float64, n), Increasing: up}
 	delta := make([]float64, n-1)
 	for i := range n - 1 {
-		delta[i] = (y[i+1] - y[i]) / (x[i+1] - x[i])
-		if !finite(delta[i]) {
+		h := x[i+1] - x[i]
+		if !finite(h) {
+			return nil, outOfRange(op, i+1, "the step in x from row %d is out of the range of a float64", i)
+		}
+		delta[i] = (y[i+1] - y[i]) / h
+		if !finite(delta[i]) || !finite(delta[i]*h) {
 			return nil, outOfRange(op, i, "the slope from row %d to %d is out of the range of a float64", i, i+1)
 		}
 	}
@@ -123,6 +127,9 @@ func (f *Fairing) At(x float64) (float64, error) {
 	s2, s3 := s*s, s*s*s
 	h00, h10, h01, h11 := 2*s3-3*s2+1, s3-2*s2+s, -2*s3+3*s2, s3-s2
 	y := h00*f.y[i] + h10*h*f.d[i] + h01*f.y[i+1] + h11*h*f.d[i+1]
+	if !finite(y) {
+		return 0, outOfRange("Fairing.At", -1, "the faired value at x = %v is out of the range of a float64", x)
+	}
 	// Rounding cannot take y outside the interval's end values.
 	a, b := min(f.y[i], f.y[i+1]), max(f.y[i], f.y[i+1])
 	return min(max(y, a), b), nil
