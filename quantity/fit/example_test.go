@@ -27,7 +27,11 @@ func ExampleFitPoly() {
 		fmt.Println(err)
 		return
 	}
-	a, se := f.Power()
+	a, se, err := f.Power()
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
 	for k := range a {
 		fmt.Printf("a%d = %.9e ± %.3e\n", k, a[k], se[k])
 	}

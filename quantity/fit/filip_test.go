@@ -53,7 +53,10 @@ func TestNISTFilip(t *testing.T) {
 	if relErr(f.S, 0.334801051324544e-02) > 1e-7 {
 		t.Errorf("S = %.15g, certified 0.334801051324544E-02", f.S)
 	}
-	a, se := f.Power()
+	a, se, err := f.Power()
+	if err != nil {
+		t.Fatal(err)
+	}
 	for k := range a {
 		// In the scaled variable the fit is well conditioned; the
 		// expansion into powers of x (|Center/Scale| ≈ 2.1, order 10)

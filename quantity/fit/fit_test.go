@@ -96,7 +96,10 @@ func TestWeighted(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	a, se := f.Power()
+	a, se, err := f.Power()
+	if err != nil {
+		t.Fatal(err)
+	}
 	wantB := []float64{0.000584740513178821, 0.732240460844448, -0.0032217472220473}
 	wantSE := []float64{7.08089313973e-05, 0.000160370215536, 6.16709750366e-05}
 	for k := range 3 {
@@ -139,7 +142,10 @@ func TestRoundTrip(t *testing.T) {
 			t.Fatal(err)
 		}
 		// Intervals of the x-power coefficients from Power's standard errors.
-		got, se := f.Power()
+		got, se, err := f.Power()
+		if err != nil {
+			t.Fatal(err)
+		}
 		for k := range 3 {
 			if math.Abs(got[k]-a[k]) <= f.tq*se[k] {
 				cover[k]++

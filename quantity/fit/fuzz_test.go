@@ -59,8 +59,9 @@ func FuzzFitPoly(f *testing.F) {
 					t.Fatalf("prediction %+v", pr)
 				}
 			}
-			a, se := p.Power()
-			_, _ = a, se // may overflow for a wide range; documented, not checked
+			if a, se, err := p.Power(); err == nil && (!allFinite(a...) || !allFinite(se...)) {
+				t.Fatalf("Power: %v ± %v with a nil error", a, se)
+			}
 			_, _ = p.Monotone(p.XMin, p.XMax)
 		}
 		if p, err := FitPoly(x, y, int(order%8), opt); err == nil {

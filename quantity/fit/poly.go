@@ -505,8 +505,11 @@ func quad(c *mat.SymDense, v []float64) float64 {
 // with their standard errors, from B by the binomial expansion of
 // ((x − Center)/Scale)^k and the covariance by the same linear map. The
 // expansion loses precision when |Center/Scale| is large and the order
-// high: predict with Eval or Predict, which work in t.
-func (f *Poly) Power() (a, se []float64) {
+// high: predict with Eval or Predict, which work in t. It returns an
+// *Error of class quantity.ErrRange if a coefficient or its standard
+// error is out of the range of a float64 (a range far from 0 and a high
+// order).
+func (f *Poly) Power() (a, se []float64, err error) {
 	p := f.Order + 1
 	// T[j][k]: the coefficient of x^j in t^k = Σ_j C(k,j) x^j (−c)^(k−j) / s^k.
 	tm := mat.NewDense(p, p, nil)
@@ -535,8 +538,11 @@ func (f *Poly) Power() (a, se []float64) {
 			}
 		}
 		se[j] = math.Sqrt(max(0, v))
+		if !finite(a[j]) || !finite(se[j]) {
+			return nil, nil, outOfRange("Power", -1, "the coefficient of x^%d is out of the range of a float64: use the coefficients in t", j)
+		}
 	}
-	return a, se
+	return a, se, nil
 }
 
 // String summarises the fit in one line.

@@ -38,8 +38,14 @@ func TestPropertyAddPower(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		a, _ := f.Power()
-		b, _ := g.Power()
+		a, _, err := f.Power()
+		if err != nil {
+			t.Fatal(err)
+		}
+		b, _, err := g.Power()
+		if err != nil {
+			t.Fatal(err)
+		}
 		for j := range a {
 			want := a[j]
 			if j == k {
