@@ -29,6 +29,12 @@ type Curve struct {
 	S, SSE     float64      // residual standard deviation (per unit weight) and Σ wᵢ eᵢ²
 	XMin, XMax float64
 	Level      float64
+	// Rows, Outliers and Influential are as for Poly, with the leverages
+	// of the linearised model (the hat matrix of √W·J).
+	Rows                  []Row
+	Outliers, Influential []int
+	// Notes says what the numbers above do not.
+	Notes []string
 	// Evaluations is the number of steps the minimiser took, at most
 	// MaxIterations.
 	Evaluations int
@@ -139,6 +145,15 @@ func FitCurve(f Model, x, y, p0 []float64, opt *Options) (*Curve, error) {
 	if !allFinite(c.StdErr...) || !finite(c.SSE) {
 		return nil, outOfRange(op, -1, "the standard errors are not finite numbers")
 	}
+	res := make([]float64, n)
+	for i := range n {
+		res[i] = y[i] - f(x[i], c.P)
+	}
+	var note string
+	c.Rows, c.Outliers, c.Influential, note = diagnostics(x, y, res, r.h, o, c.SSE, c.S, c.DoF, np)
+	if note != "" {
+		c.Notes = append(c.Notes, note)
+	}
 	return c, nil
 }
 
@@ -153,18 +168,8 @@ func (c *Curve) Predict(x float64) (Prediction, error) {
 	if !finite(x) || x < c.XMin || x > c.XMax {
 		return Prediction{}, outOfRange("Curve.Predict", -1, "x = %v is outside the fitted range [%v, %v]: an extrapolation", x, c.XMin, c.XMax)
 	}
-	np := len(c.P)
-	g := make([]float64, np)
-	pt := slices.Clone(c.P)
-	for j := range np {
-		h := 1e-6 * max(math.Abs(c.P[j]), 1e-6)
-		pt[j] = c.P[j] + h
-		a := c.f(x, pt)
-		pt[j] = c.P[j] - h
-		b := c.f(x, pt)
-		pt[j] = c.P[j]
-		g[j] = (a - b) / (2 * h)
-	}
+	var gbuf [MaxParams]float64
+	g := c.grad(x, gbuf[:len(c.P)])
 	y := c.f(x, c.P)
 	pr := Prediction{X: x, Y: y, SE: math.Sqrt(max(0, quad(c.cov, g))), Level: c.Level}
 	hw, hn := c.tq*pr.SE, c.tq*math.Sqrt(c.S*c.S+pr.SE*pr.SE)
@@ -256,4 +261,37 @@ func levenbergMarquardt(op string, sse func([]float64) float64, jacobian func([]
 		}
 	}
 	return nil, MaxIterations, invalid(op, -1, "no convergence in %d steps; try a better starting point", MaxIterations)
+}
+
+// grad fills g with ∂f/∂p_j at x by central differences and returns it.
+func (c *Curve) grad(x float64, g []float64) []float64 {
+	var pbuf [MaxParams]float64
+	pt := pbuf[:len(c.P)]
+	copy(pt, c.P)
+	for j := range c.P {
+		h := 1e-6 * max(math.Abs(c.P[j]), 1e-6)
+		pt[j] = c.P[j] + h
+		a := c.f(x, pt)
+		pt[j] = c.P[j] - h
+		b := c.f(x, pt)
+		pt[j] = c.P[j]
+		g[j] = (a - b) / (2 * h)
+	}
+	return g
+}
+
+// slopeX returns ∂f/∂x at x by central differences, or one-sided ones
+// where the model is not finite on one side (x at the edge of its
+// domain).
+func (c *Curve) slopeX(x float64) float64 {
+	h := 1e-6 * max(math.Abs(x), 1e-9)
+	a, b, y := c.f(x+h, c.P), c.f(x-h, c.P), c.f(x, c.P)
+	switch {
+	case finite(a) && finite(b):
+		return (a - b) / (2 * h)
+	case finite(a):
+		return (a - y) / h
+	default:
+		return (y - b) / h
+	}
 }

@@ -87,7 +87,9 @@
 // (Marquardt, J. SIAM 11 (1963) 431–441), each step solved by QR, with
 // the covariance S²·(JᵀWJ)⁻¹ from the Jacobian at the solution (central
 // differences): first-order intervals, exact only for a model linear in
-// p. It is written here rather than taken from gonum's optimize package,
+// p. Its rows carry the same residual, leverage and outlier flags as a
+// polynomial's, and Curve.Measured makes its parameters correlated
+// sources as Poly.Measured does. It is written here rather than taken from gonum's optimize package,
 // whose general minimisers neither use the least-squares structure nor
 // come without a further module dependency.
 //

@@ -170,7 +170,11 @@ func ExampleFitCurve() {
 	fmt.Printf("C = %.4f ± %.4f, n = %.4f ± %.4f\n", c.P[0], c.StdErr[0], c.P[1], c.StdErr[1])
 	p, _ := c.Predict(0.22)
 	fmt.Printf("Q(0.22 m) = %.4f m³/s, 95 %% for a new reading [%.4f, %.4f]\n", p.Y, p.New[0], p.New[1])
+	for _, i := range c.Outliers {
+		fmt.Printf("row %d (h = %.2f m) flagged: t = %.1f\n", i, c.Rows[i].X, c.Rows[i].Studentized)
+	}
 	// Output:
 	// C = 1.7580 ± 0.0026, n = 1.4970 ± 0.0011
 	// Q(0.22 m) = 0.1822 m³/s, 95 % for a new reading [0.1818, 0.1827]
+	// row 5 (h = 0.18 m) flagged: t = 5.7
 }

@@ -504,4 +504,34 @@ func TestFitCurve(t *testing.T) {
 	if err != nil || !(pr.Mean[0] < pr.Y && pr.Y < pr.Mean[1] && pr.New[0] < pr.Mean[0]) {
 		t.Errorf("Predict(0.2) = %+v, %v", pr, err)
 	}
+	// The invented reading at h = 0.18 m sits high: its externally
+	// studentised residual of the linearised model is 5.7297 (numpy
+	// 1.24.2: hat matrix of J = [h^n, C·h^n·ln h] at scipy's solution).
+	if !cmp.Equal(c.Outliers, []int{5}) || math.Abs(c.Rows[5].Studentized-5.7297) > 1e-3 {
+		t.Errorf("outliers %v, t₅ = %.4f; want [5], 5.7297", c.Outliers, c.Rows[5].Studentized)
+	}
+	// With uncertainty: a head measured to ±1 mm. First order,
+	// u² = SE² + (∂Q/∂h·u_h)², ∂Q/∂h = C·n·h^(n−1) by hand.
+	set := uncertain.NewSet()
+	m, err := c.Measured(set, "rating", quantity.Length, quantity.VolumeFlowRate)
+	if err != nil {
+		t.Fatal(err)
+	}
+	uh := set.MustAdd(uncertain.Source{Name: "head gauge", U: quantity.New(0.001, quantity.Length)})
+	q2, pr2, err := m.Predict(set.MustMeasure(quantity.New(0.2, quantity.Length), uh))
+	if err != nil {
+		t.Fatal(err)
+	}
+	dqdh := c.P[0] * c.P[1] * math.Pow(0.2, c.P[1]-1)
+	if want := math.Hypot(pr2.SE, dqdh*0.001); relErr(q2.U().Value(), want) > 1e-6 {
+		t.Errorf("u(Q) = %v, want %v", q2.U().Value(), want)
+	}
+	if q2.Dim() != quantity.VolumeFlowRate {
+		t.Errorf("Q has dimension %v", q2.Dim())
+	}
+	// The fit's part alone equals the delta-method standard error.
+	q3, _, err := m.Predict(uncertain.Exact(quantity.New(0.2, quantity.Length)))
+	if err != nil || relErr(q3.U().Value(), pr2.SE) > 1e-9 {
+		t.Errorf("fit alone: u = %v, %v; want SE %v", q3.U().Value(), err, pr2.SE)
+	}
 }

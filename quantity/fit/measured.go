@@ -117,3 +117,85 @@ func (m *MeasuredPoly) predict(op string, x uncertain.Measured, outside bool) (u
 	}
 	return z, pr, nil
 }
+
+// MeasuredCurve is a fitted Curve whose parameters are sources of
+// uncertainty in a set, as MeasuredPoly's coefficients are: Type A with
+// the fit's residual degrees of freedom, systematic, correlated as the
+// fit's covariance says. The parameters are the plain numbers the model
+// takes (in SI where they have units), so their sources are
+// dimensionless numbers: a fitted exponent would give its coefficient a
+// dimension no Dim can hold.
+type MeasuredCurve struct {
+	Curve      *Curve
+	XDim, YDim quantity.Dim
+	params     []uncertain.Measured
+}
+
+// Measured registers the fit's parameters in set as sources named
+// "name: p0", "name: p1", … and returns the curve for predictions with
+// uncertainty, x and y having the dimensions xd and yd.
+func (c *Curve) Measured(set *uncertain.Set, name string, xd, yd quantity.Dim) (*MeasuredCurve, error) {
+	m := &MeasuredCurve{Curve: c, XDim: xd, YDim: yd}
+	ids := make([]uncertain.ID, len(c.P))
+	for k := range c.P {
+		id, err := set.Add(uncertain.Source{Name: fmt.Sprintf("%s: p%d", name, k), U: quantity.Scalar(c.StdErr[k]),
+			Type: uncertain.TypeA, DoF: float64(c.DoF), Effect: uncertain.Systematic})
+		if err != nil {
+			return nil, &Error{Op: "Curve.Measured", Row: -1, Reason: "registering the parameters", Err: err}
+		}
+		ids[k] = id
+		v, err := set.Measure(quantity.Scalar(c.P[k]), id)
+		if err != nil {
+			return nil, &Error{Op: "Curve.Measured", Row: -1, Reason: "registering the parameters", Err: err}
+		}
+		m.params = append(m.params, v)
+	}
+	for i := range c.P {
+		for j := i + 1; j < len(c.P); j++ {
+			d := c.StdErr[i] * c.StdErr[j]
+			if d == 0 {
+				continue
+			}
+			r := c.cov.At(i, j) / d
+			if r != 0 && finite(r) {
+				if err := set.Correlate(ids[i], ids[j], max(-1, min(1, r))); err != nil {
+					return nil, &Error{Op: "Curve.Measured", Row: -1, Reason: "correlating the parameters", Err: err}
+				}
+			}
+		}
+	}
+	return m, nil
+}
+
+// Predict returns y = f(x; P) at a measured x with the derivatives with
+// respect to the parameters' sources (∂f/∂p_j) and x's own sources
+// (∂f/∂x), both by central differences, and the plain Prediction. x must
+// have the dimension XDim and lie in the fitted range.
+func (m *MeasuredCurve) Predict(x uncertain.Measured) (uncertain.Measured, Prediction, error) {
+	const op = "Curve.Predict"
+	c := m.Curve
+	if err := x.Quantity().CheckNamed("x", m.XDim); err != nil {
+		return uncertain.Measured{}, Prediction{}, &Error{Op: op, Row: -1, Reason: "the input", Err: err}
+	}
+	pr, err := c.Predict(x.Value())
+	if err != nil {
+		return uncertain.Measured{}, Prediction{}, err
+	}
+	np := len(c.P)
+	var cbuf [MaxParams + 1]float64
+	var xbuf [MaxParams + 1]uncertain.Measured
+	g := c.grad(x.Value(), cbuf[:np])
+	xs := append(xbuf[:0], m.params...)
+	coef := append(g, c.slopeX(x.Value()))
+	xs = append(xs, x)
+	if !allFinite(coef...) {
+		return uncertain.Measured{}, Prediction{}, outOfRange(op, -1, "the model's derivatives at x = %v are not finite", x.Value())
+	}
+	z, err := uncertain.Eval(func() uncertain.Measured {
+		return uncertain.Linear(quantity.New(pr.Y, m.YDim), coef, xs)
+	})
+	if err != nil {
+		return uncertain.Measured{}, Prediction{}, &Error{Op: op, Row: -1, Reason: "propagating the uncertainty", Err: err}
+	}
+	return z, pr, nil
+}

@@ -325,23 +325,34 @@ func distinct(x []float64) int {
 
 // diagnose fills Rows, Outliers and Influential.
 func (f *Poly) diagnose(x, y []float64, r *lsq, o Options) {
-	n, p := f.N, f.Order+1
-	f.Rows = make([]Row, n)
-	canT := f.DoF >= 2
+	var note string
+	f.Rows, f.Outliers, f.Influential, note = diagnostics(x, y, r.e, r.h, o, r.sse, f.S, f.DoF, f.Order+1)
+	if note != "" {
+		f.Notes = append(f.Notes, note)
+	}
+}
+
+// diagnostics returns each row's residual, leverage, externally
+// studentised residual and Cook's distance, the rows flagged as outliers
+// and as influential, and a note when residuals cannot be studentised.
+func diagnostics(x, y, res, lev []float64, o Options, sse, s float64, dof, p int) (rows []Row, outliers, influential []int, note string) {
+	n := len(x)
+	rows = make([]Row, n)
+	canT := dof >= 2
 	if !canT {
-		f.Notes = append(f.Notes, "one residual degree of freedom: residuals are not studentised and no row is flagged as an outlier")
+		note = "one residual degree of freedom: residuals are not studentised and no row is flagged as an outlier"
 	}
 	for i := range n {
-		e, h, w := r.e[i], r.h[i], weight(o.Weights, i)
+		e, h, w := res[i], lev[i], weight(o.Weights, i)
 		row := Row{X: x[i], Y: y[i], Fit: y[i] - e, Residual: e, Leverage: h}
 		we := math.Sqrt(w) * e
 		if h < 1-1e-12 {
-			if f.S > 0 {
-				ri := we / (f.S * math.Sqrt(1-h))
+			if s > 0 {
+				ri := we / (s * math.Sqrt(1-h))
 				row.Cook = ri * ri / float64(p) * h / (1 - h)
 			}
 			if canT {
-				sd2 := (r.sse - we*we/(1-h)) / float64(f.DoF-1)
+				sd2 := (sse - we*we/(1-h)) / float64(dof-1)
 				switch {
 				case sd2 > 0:
 					row.Studentized = we / math.Sqrt(sd2*(1-h))
@@ -356,14 +367,15 @@ func (f *Poly) diagnose(x, y []float64, r *lsq, o Options) {
 		if !finite(row.Cook) {
 			row.Cook = math.MaxFloat64
 		}
-		f.Rows[i] = row
+		rows[i] = row
 		if math.Abs(row.Studentized) > o.OutlierT {
-			f.Outliers = append(f.Outliers, i)
+			outliers = append(outliers, i)
 		}
 		if row.Cook > 4/float64(n) {
-			f.Influential = append(f.Influential, i)
+			influential = append(influential, i)
 		}
 	}
+	return rows, outliers, influential, note
 }
 
 // lackOfFit splits sse into pure error and lack of fit over the groups of
