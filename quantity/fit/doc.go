@@ -105,6 +105,9 @@
 // that is NaN or infinite comes with a nil error. Work is bounded:
 // MaxRows rows, MaxOrder, MaxParams, MaxIterations.
 //
+// A fitted Poly, Curve or Fairing, and their Measured forms, are not
+// changed by their methods and may be used from several goroutines.
+//
 // A fit describes the data it was made from. A correlation used for a
 // hydraulic structure, a hull's powering, a pump's rating or a pressurised
 // facility goes through the checks its standard or code requires and the
