@@ -12,8 +12,9 @@ import (
 // MaxOrder is the highest polynomial order FitPoly and SelectPoly take.
 const MaxOrder = 12
 
-// MaxRows is the most rows a fit takes, which bounds its work and memory.
-const MaxRows = 1 << 20
+// MaxRows is the most rows a fit takes (131072), which bounds its work
+// and memory.
+const MaxRows = 1 << 17
 
 // DefaultOutlierT is the threshold on the externally studentised residual
 // |tᵢ| above which a row is flagged as an outlier when Options.OutlierT is
