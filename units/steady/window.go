@@ -136,10 +136,13 @@ type Criterion struct {
 // with s the window's sample standard deviation (n − 1 in the
 // denominator) and x̄₁, x̄₂ the means of its h samples before and h
 // samples after i. A steady point is a maximal run of consecutive steady
-// samples at least MinLen long; the h samples at each end of a run of
-// constant level, whose windows reach past it, are left out, so a point
-// never takes in a transition. Detect works in O(n) per channel with
-// running sums.
+// samples at least MinLen long. A sample whose window reaches into a
+// change of level is steady only if the window still meets every
+// tolerance, so a point starts up to h samples after a change ends and
+// ends up to h samples before the next begins; the tolerances decide how
+// close to a change a point may reach, and the samples at the record's
+// first and last h rows are never steady. Detect works in O(n) per
+// channel with running sums; it allocates three arrays of n + 1.
 func Detect(c Criterion) ([]Window, error) {
 	const op = "detect"
 	if c.Half < 1 || c.MinLen < 1 {
@@ -154,9 +157,12 @@ func Detect(c Criterion) ([]Window, error) {
 		switch {
 		case ch.Data.Len() != n:
 			return nil, invalid(op, ch.Name, -1, "%d samples, the first channel %d", ch.Data.Len(), n)
-		case ch.SD.Dim() != d || ch.Change.Dim() != d:
-			return nil, &Error{Op: op, Channel: ch.Name, Row: -1, Reason: "tolerances",
-				Err: &quantity.DimensionError{Op: "check", Name: ch.Name, Left: ch.SD.Dim(), Right: d, Binary: true}}
+		case ch.SD.Dim() != d:
+			return nil, &Error{Op: op, Channel: ch.Name, Row: -1, Reason: "the SD tolerance",
+				Err: &quantity.DimensionError{Op: "check", Name: ch.Name + " SD tolerance", Left: ch.SD.Dim(), Right: d, Binary: true}}
+		case ch.Change.Dim() != d:
+			return nil, &Error{Op: op, Channel: ch.Name, Row: -1, Reason: "the change tolerance",
+				Err: &quantity.DimensionError{Op: "check", Name: ch.Name + " change tolerance", Left: ch.Change.Dim(), Right: d, Binary: true}}
 		case !(ch.SD.Value() > 0) || !(ch.Change.Value() > 0) || !finite(ch.SD.Value()) || !finite(ch.Change.Value()):
 			return nil, invalid(op, ch.Name, -1, "tolerances %v and %v: want finite values > 0", ch.SD, ch.Change)
 		}
