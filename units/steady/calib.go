@@ -86,7 +86,11 @@ func (c *Calibration) Eval(raw quantity.Quantity) (eng, slope quantity.Quantity,
 		return eng, slope, c.rangeErr("", -1, quantity.Series{}, x)
 	}
 	y, d := c.eval(x)
-	return c.Eng.Of(y), c.slope(d), nil
+	eng, slope = c.Eng.Of(y), c.slope(d)
+	if !finite(eng.Value()) || !finite(slope.Value()) {
+		return quantity.Quantity{}, quantity.Quantity{}, outOfRange("calibrate", c.Name, -1, "at raw %g the value %g or the slope %g is out of the range of a float64 in SI", x, y, d)
+	}
+	return eng, slope, nil
 }
 
 // slope is dy/dx in SI from its value in the file's units.
@@ -298,8 +302,9 @@ func ParseCalibration(r io.Reader, file string) (*Calibration, error) {
 		key := f[0]
 		if prev, dup := seen[key]; dup && key != "point" {
 			return nil, fail(key, "given again (first on line %d)", prev)
+		} else if !dup {
+			seen[key] = ln // the first line of each keyword
 		}
-		seen[key] = ln
 		rest := strings.TrimSpace(strings.TrimPrefix(strings.TrimSpace(s), key))
 		switch {
 		case key == "name":
@@ -412,6 +417,15 @@ func ParseCalibration(r io.Reader, file string) (*Calibration, error) {
 			if c.y[i] == c.y[i-1] || (c.y[i] > c.y[i-1]) != up {
 				return nil, &ParseError{File: file, Reason: fmt.Sprintf("table row %d: engineering %g after %g: want strictly monotone", i+1, c.y[i], c.y[i-1])}
 			}
+			dx, dy := c.x[i]-c.x[i-1], c.y[i]-c.y[i-1]
+			if sl := dy / dx; !finite(dx) || !finite(dy) || sl == 0 || !finite(sl*c.Eng.Factor()/c.Raw.Factor()) {
+				return nil, &ParseError{File: file, Reason: fmt.Sprintf("table row %d: the step from the row before is out of the range of a float64", i+1), Err: quantity.ErrRange}
+			}
+		}
+		for i, y := range c.y {
+			if !finite(y*c.Eng.Factor() + c.Eng.Offset()) {
+				return nil, &ParseError{File: file, Reason: fmt.Sprintf("table row %d: engineering %g overflows in SI", i+1, y), Err: quantity.ErrRange}
+			}
 		}
 		c.Lo, c.Hi = c.x[0], c.x[len(c.x)-1]
 	default:
@@ -438,7 +452,7 @@ func (c *Calibration) checkMonotone() error {
 	for i := 0; i <= steps; i++ {
 		x := c.Lo + (c.Hi-c.Lo)*float64(i)/steps
 		y, d := c.eval(x)
-		if !finite(y) || !finite(d) || !finite(y*c.Eng.Factor()+c.Eng.Offset()) {
+		if !finite(y) || !finite(d) || !finite(y*c.Eng.Factor()+c.Eng.Offset()) || !finite(d*c.Eng.Factor()/c.Raw.Factor()) {
 			return fmt.Errorf("the polynomial is not finite at raw %g", x)
 		}
 		s := math.Copysign(1, d)

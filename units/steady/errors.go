@@ -1,6 +1,7 @@
 package steady
 
 import (
+	"errors"
 	"fmt"
 	"strings"
 
@@ -57,9 +58,11 @@ func outOfRange(op, channel string, row int, format string, args ...any) *Error 
 }
 
 // ParseError reports a calibration file that cannot be read, with the
-// line (from 1; 0 when the whole file is concerned). Its class is
-// quantity.ErrParse, or that of Err when Err is set (a unit that is not
-// known is quantity.ErrUnknown), so that it matches exactly one class.
+// line (from 1; 0 when the whole file is concerned). Its class is that
+// of Err when Err has one (a unit that is not known is
+// quantity.ErrUnknown, a coefficient's unit of the wrong dimension
+// quantity.ErrDimension) and quantity.ErrParse otherwise, so that it
+// matches exactly one class.
 type ParseError struct {
 	File   string
 	Line   int
@@ -85,8 +88,22 @@ func (e *ParseError) Error() string {
 }
 
 // Is reports whether target is quantity.ErrParse, the class of a
-// ParseError without a cause.
-func (e *ParseError) Is(target error) bool { return e.Err == nil && target == quantity.ErrParse }
+// ParseError without a cause or whose cause has no class of the module
+// (a failing reader's I/O error).
+func (e *ParseError) Is(target error) bool { return target == quantity.ErrParse && !classed(e.Err) }
+
+// classed reports whether err matches one of the module's classes.
+func classed(err error) bool {
+	if err == nil {
+		return false
+	}
+	for _, c := range []error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid} {
+		if errors.Is(err, c) {
+			return true
+		}
+	}
+	return false
+}
 
 // Unwrap returns the underlying error, or nil.
 func (e *ParseError) Unwrap() error { return e.Err }
