@@ -111,7 +111,9 @@ func (c *Calibration) rangeErr(channel string, row int, t quantity.Series, x flo
 // sample (NaN) stays missing. A sample outside the calibrated range is
 // refused with a *RangeError naming the channel, the row and, when t
 // (the history's time channel, or an empty Series) holds it, its time;
-// dst is then left as it was. raw must have the dimension of Raw. dst's
+// dst is then left as it was. raw must have the dimension of Raw. The
+// calibration's uncertainty is attached to each point's mean afterwards,
+// with AddSource. dst's
 // storage is reused when it is large enough, and dst may be raw itself.
 func (c *Calibration) Apply(dst *quantity.Series, raw quantity.Series, channel string, t quantity.Series) error {
 	if dst == nil {
@@ -237,6 +239,49 @@ func (c *Calibration) Calibrate(set *uncertain.Set, p Point, channel string) (Po
 		return out, nil
 	}
 	return Point{}, invalid("calibrate", channel, -1, "point %q has no such channel", p.Tag)
+}
+
+// AddSource returns p with the calibration's systematic source added to
+// the mean of channel, a channel already in engineering units (carried
+// through the calibration sample by sample with Apply): the value is
+// unchanged, its uncertainty gains the calibration's (see Source). The
+// channel must have the dimension of Eng.
+func (c *Calibration) AddSource(set *uncertain.Set, p Point, channel string) (Point, error) {
+	const op = "calibration source"
+	if set == nil {
+		return Point{}, invalid(op, channel, -1, "no uncertainty set")
+	}
+	for i, v := range p.Values {
+		if v.Name != channel {
+			continue
+		}
+		if v.Mean.Dim() != c.Eng.Dim() {
+			return Point{}, &Error{Op: op, Channel: channel, Row: -1, Reason: "calibration " + strconv.Quote(c.Name),
+				Err: &quantity.DimensionError{Op: "check", Name: channel, Left: v.Mean.Dim(), Right: c.Eng.Dim(), Binary: true}}
+		}
+		id, err := c.sourceIn(set)
+		if err != nil {
+			return Point{}, &Error{Op: op, Channel: channel, Row: -1, Reason: "registering the calibration's source", Err: err}
+		}
+		for k := range v.Mean.Terms() {
+			if tid, _ := v.Mean.Term(k); tid == id && v.Mean.Set() == set {
+				return Point{}, invalid(op, channel, -1, "point %q carries the source %q already", p.Tag, c.Source().Name)
+			}
+		}
+		cal, err := set.Measure(quantity.New(0, c.Eng.Dim()), id)
+		if err != nil {
+			return Point{}, &Error{Op: op, Channel: channel, Row: -1, Reason: "the calibration's source", Err: err}
+		}
+		m, err := uncertain.Eval(func() uncertain.Measured { return v.Mean.Add(cal) })
+		if err != nil {
+			return Point{}, &Error{Op: op, Channel: channel, Row: -1, Reason: "adding the calibration's source", Err: err}
+		}
+		out := p
+		out.Values = append([]Value(nil), p.Values...)
+		out.Values[i].Mean = m
+		return out, nil
+	}
+	return Point{}, invalid(op, channel, -1, "point %q has no such channel", p.Tag)
 }
 
 // ParseCalibration reads a calibration file (file names it in errors).

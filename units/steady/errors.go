@@ -124,18 +124,22 @@ type RangeError struct {
 
 // Error returns "steady: calibration "drag" on channel "Fx": row 812
 // (t = 4.06 s): reading 2.31 mV/V outside the calibrated range
-// [-2, 2] mV/V".
+// [-2, 2] mV/V"; a mean is named "mean" in place of the row.
 func (e *RangeError) Error() string {
 	var sb strings.Builder
-	fmt.Fprintf(&sb, "steady: calibration %q on channel %q: ", e.Calibration, e.Channel)
+	fmt.Fprintf(&sb, "steady: calibration %q", e.Calibration)
+	if e.Channel != "" {
+		fmt.Fprintf(&sb, " on channel %q", e.Channel)
+	}
 	switch {
 	case e.Row >= 0 && e.HasTime:
-		fmt.Fprintf(&sb, "row %d (t = %.6g s): ", e.Row, e.Time.Value())
+		fmt.Fprintf(&sb, ": row %d (t = %.6g s)", e.Row, e.Time.Value())
 	case e.Row >= 0:
-		fmt.Fprintf(&sb, "row %d: ", e.Row)
-	default:
-		sb.WriteString("mean: ")
+		fmt.Fprintf(&sb, ": row %d", e.Row)
+	case e.Channel != "":
+		sb.WriteString(": mean")
 	}
+	sb.WriteString(": ")
 	fmt.Fprintf(&sb, "reading %.6g %s outside the calibrated range [%.6g, %.6g] %s", e.Value, e.Unit, e.Lo, e.Hi, e.Unit)
 	return sb.String()
 }

@@ -3,6 +3,7 @@ package steady_test
 import (
 	"math"
 	"math/rand/v2"
+	"os"
 
 	"similis.dev/similis/quantity"
 )
@@ -90,4 +91,9 @@ func carriage(seed uint64) carriageLog {
 		tacho: quantity.NewSeries(tacho, quantity.Voltage),
 		drag:  quantity.NewSeries(drag, quantity.Dimensionless),
 	}
+}
+
+func testdataFile(name string) (string, error) {
+	b, err := os.ReadFile("testdata/" + name)
+	return string(b), err
 }

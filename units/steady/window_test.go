@@ -330,3 +330,35 @@ func TestReduceErrors(t *testing.T) {
 	_, err := steady.Reduce(set, "p", chs, w)
 	oneClass(t, err, quantity.ErrInvalid)
 }
+
+// TestAddSource: a channel calibrated sample by sample gains the
+// calibration's systematic source, once per set and once per value, its
+// value unchanged.
+func TestAddSource(t *testing.T) {
+	c := readCal(t, "speed.cal")
+	set := uncertain.NewSet()
+	v := quantity.NewSeries([]float64{1, 1.1, 0.9, 1, 1.05, 0.95}, quantity.Velocity)
+	p, err := steady.Reduce(set, "p", []steady.Channel{{Name: "V", Data: v, DriftLimit: quantity.New(1, quantity.Velocity)}}, steady.Window{Start: 0, End: 6})
+	if err != nil {
+		t.Fatal(err)
+	}
+	q, err := c.AddSource(set, p, "V")
+	if err != nil {
+		t.Fatal(err)
+	}
+	a, b := p.Values[0].Mean, q.Values[0].Mean
+	// u² = u_A² + 0.002² (m/s).
+	if b.Value() != a.Value() || math.Abs(b.U().Value()-math.Hypot(a.U().Value(), 0.002)) > 1e-15 {
+		t.Errorf("%v from %v", b, a)
+	}
+	// Added twice to one value: refused (it would double the effect).
+	_, err = c.AddSource(set, q, "V")
+	oneClass(t, err, quantity.ErrInvalid)
+	if n := countSources(set, "calibration speed"); n != 1 {
+		t.Errorf("%d sources", n)
+	}
+	_, err = c.AddSource(set, p, "W")
+	oneClass(t, err, quantity.ErrInvalid)
+	_, err = readCal(t, "drag.cal").AddSource(set, p, "V")
+	oneClass(t, err, quantity.ErrDimension)
+}
