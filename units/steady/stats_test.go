@@ -286,3 +286,51 @@ func TestTareProperty(t *testing.T) {
 		}
 	})
 }
+
+// FuzzSummarize: any samples give finite statistics with 2 ≤ n_eff ≤ n,
+// or an error of exactly one class; Detect on them never panics.
+func FuzzSummarize(f *testing.F) {
+	f.Add([]byte{0, 0, 0, 0, 0, 0, 240, 63, 0, 0, 0, 0, 0, 0, 0, 64, 0, 0, 0, 0, 0, 0, 8, 64}, uint8(1), uint8(2))
+	f.Add(make([]byte, 8*40), uint8(3), uint8(5))
+	f.Fuzz(func(t *testing.T, b []byte, half, minLen uint8) {
+		n := min(len(b)/8, 512)
+		v := make([]float64, n)
+		for i := range v {
+			var u uint64
+			for j := range 8 {
+				u |= uint64(b[8*i+j]) << (8 * j)
+			}
+			v[i] = math.Float64frombits(u)
+		}
+		x := quantity.NewSeries(v, quantity.Force)
+		st, err := steady.Summarize(x, steady.Window{Start: 0, End: n})
+		if err != nil {
+			oneClass(t, err, errClass(err))
+		} else {
+			for _, q := range []float64{st.Mean.Value(), st.SD.Value(), st.Drift.Value(), st.UMean.Value(), st.NEff} {
+				if math.IsNaN(q) || math.IsInf(q, 0) {
+					t.Fatalf("%+v", st)
+				}
+			}
+			if st.NEff < 2 || st.NEff > float64(n) {
+				t.Fatalf("n_eff %v of %d", st.NEff, n)
+			}
+		}
+		_, err = steady.Detect(steady.Criterion{Half: int(half), MinLen: int(minLen), Channels: []steady.Tolerance{
+			{Name: "x", Data: x, SD: quantity.New(1, quantity.Force), Change: quantity.New(1, quantity.Force)}}})
+		if err != nil {
+			oneClass(t, err, errClass(err))
+		}
+	})
+}
+
+// errClass returns the first class err matches, for oneClass to check
+// that it is the only one.
+func errClass(err error) error {
+	for _, c := range classes {
+		if errors.Is(err, c) {
+			return c
+		}
+	}
+	return nil
+}
