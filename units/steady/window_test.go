@@ -362,3 +362,34 @@ func TestAddSource(t *testing.T) {
 	_, err = readCal(t, "drag.cal").AddSource(set, p, "V")
 	oneClass(t, err, quantity.ErrDimension)
 }
+
+// TestZeroFile: a zero taken from a separate zero file (here a separate
+// invented history, still from 0 to 3 s) tares like a zero window.
+func TestZeroFile(t *testing.T) {
+	zlog := carriage(9)
+	zdrag := quantity.NewSeries(zlog.drag.Values()[:600], quantity.Dimensionless)
+	log := carriage(1)
+	lim := quantity.New(0.005e-3, quantity.Dimensionless)
+	set := uncertain.NewSet()
+	zero, err := steady.Reduce(set, "zero file", []steady.Channel{{Name: "drag", Data: zdrag, DriftLimit: lim}}, steady.Window{Start: 0, End: 600})
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, err := steady.Reduce(set, "point 1", []steady.Channel{{Name: "drag", Data: log.drag, DriftLimit: lim}}, steady.Window{Start: 1000, End: 1800})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if p, err = steady.Tare(p, zero); err != nil {
+		t.Fatal(err)
+	}
+	// The net level 0.20 mV/V; u² = 0.002²·4/800 + 0.002²·4/600 (the
+	// AR(1) closed form for the point and for the zero):
+	// (1.414e-4)² + (1.633e-4)² = (2.160e-4 mV/V)².
+	v, _ := p.Value("drag")
+	if u := v.Mean.U().Value(); math.Abs(u-0.000216e-3) > 0.25*0.000216e-3 {
+		t.Errorf("u = %.4g, want 2.16e-7 within 25 %%", u)
+	}
+	if math.Abs(v.Mean.Value()-0.20e-3) > 4*v.Mean.U().Value() {
+		t.Errorf("tared mean %.6g, want 2e-4 within 4u", v.Mean.Value())
+	}
+}
