@@ -75,7 +75,11 @@ type ParseError struct {
 func (e *ParseError) Error() string {
 	var sb strings.Builder
 	sb.WriteString("steady: ")
-	fmt.Fprintf(&sb, "%s:%d: ", e.File, e.Line)
+	sb.WriteString(e.File)
+	if e.Line > 0 {
+		fmt.Fprintf(&sb, ":%d", e.Line)
+	}
+	sb.WriteString(": ")
 	if e.Text != "" {
 		fmt.Fprintf(&sb, "%q: ", e.Text)
 	}

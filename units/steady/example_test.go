@@ -123,3 +123,38 @@ func mustCal(name string) *steady.Calibration {
 	}
 	return c
 }
+
+// Detect finds the steady stretches of a channel by its moving-window
+// criterion: here a level of 1 for 60 samples, a ramp of 20, and a level
+// of 3 for 60, with a small alternating ripple.
+func ExampleDetect() {
+	v := make([]float64, 140)
+	for i := range v {
+		switch {
+		case i < 60:
+			v[i] = 1
+		case i < 80:
+			v[i] = 1 + 2*float64(i-59)/21
+		default:
+			v[i] = 3
+		}
+		v[i] += 0.01 * float64(1-2*(i%2))
+	}
+	ws, err := steady.Detect(steady.Criterion{Half: 5, MinLen: 20, Channels: []steady.Tolerance{{
+		Name: "x", Data: quantity.NewSeries(v, quantity.Pressure),
+		SD: quantity.New(0.05, quantity.Pressure), Change: quantity.New(0.02, quantity.Pressure),
+	}}})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	for _, w := range ws {
+		fmt.Printf("rows %d to %d\n", w.Start, w.End-1)
+	}
+	// Rows 0–4 and 135–139 have no full window. Row 55's window reaches
+	// the ramp's first row (1.095 Pa): its halves differ by 0.095/5 =
+	// 0.019 Pa, within 0.02 Pa, so it is steady; row 56's differ by 0.038.
+	// Output:
+	// rows 5 to 55
+	// rows 84 to 134
+}
