@@ -153,8 +153,8 @@ func ExampleDetect() {
 	}
 	// Rows 0–4 and 135–139 have no full window. Row 55's window reaches
 	// the ramp's first row (1.095 Pa): its halves differ by 0.095/5 =
-	// 0.019 Pa, within 0.02 Pa, so it is steady; row 56's differ by (0.095 + 0.190)/5
-	// = 0.057 Pa.
+	// 0.019 Pa, within 0.02 Pa, so it is steady; row 56's differ by
+	// (0.095 + 0.190)/5 = 0.057 Pa.
 	// Output:
 	// rows 5 to 55
 	// rows 84 to 134
