@@ -43,7 +43,7 @@ func TestDataErrorNamesFileLine(t *testing.T) {
 // TestNonFiniteDerivedValue: x = a·a/b is 0/0 in a row where both
 // channels are present (line 5: comment, header, two rows before it);
 // it is an error naming that line, or with -nonfinite=missing a counted
-// missing value and an empty group field. A missing channel value is not
+// missing value and a NaN group field. A missing channel value is not
 // such a row.
 func TestNonFiniteDerivedValue(t *testing.T) {
 	dir := t.TempDir()
@@ -62,7 +62,7 @@ func TestNonFiniteDerivedValue(t *testing.T) {
 		t.Fatalf("-nonfinite=missing: exit %d: %s", code, errb.String())
 	}
 	// x/b by hand: 1·1/2/2 = 0.25; missing; 0/0 missing; 3·3/4/4 = 0.5625.
-	if got := out.String(); got != "Π₁ [1]\n0.25\n\n\n0.5625\n" {
+	if got := out.String(); got != "Π₁ [1]\n0.25\nNaN\nNaN\n0.5625\n" {
 		t.Errorf("groups %q", got)
 	}
 	if !strings.Contains(errb.String(), "derived x: 1 non-finite value counted as missing") {

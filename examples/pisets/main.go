@@ -125,8 +125,8 @@ rev/s is read, Hz to rad/s is refused (write the channel as (Hz)*rev, or declare
 the variable in Hz).
 
 Output with -data (formats), one line or record per data row, groups in order:
-  csv      (the default) a header Π₁ [1],Π₂ [1],… then the values; an empty field
-           where a value is missing
+  csv      (the default) a header Π₁ [1],Π₂ [1],… then the values; NaN
+           where a value is missing (the channel files' missing marker)
   jsonl    one JSON object per row, {"row":1,"Π₁":0.17,"Π₂":0.021}, null when missing
   json     the same as jsonl
   text     the same as csv (or Parquet with -out x.parquet)

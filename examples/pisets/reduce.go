@@ -316,12 +316,12 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 		}
 		w = newJSONLines(out, names)
 	} else if opt.parquet {
-		pw, err := parquetfile.NewWriter(out, outCols, parquetfile.Options{})
+		pw, err := parquetfile.NewWriter(out, "standard output", outCols, parquetfile.Options{})
 		if err != nil {
 			return err
 		}
 		w = parquetSink{pw}
-	} else if w, err = chanfile.NewWriter(out, outCols, chanfile.Options{}); err != nil {
+	} else if w, err = chanfile.NewWriter(out, "standard output", outCols, chanfile.Options{}); err != nil {
 		return err
 	}
 	var (
@@ -448,12 +448,12 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 			fmt.Fprintf(log, "pisets: channel %s: gauge (%s) read as absolute with the reference %g Pa\n", c.Name, c.Text, ro.Reference.Value())
 		}
 		if c.Missing > 0 {
-			fmt.Fprintf(log, "pisets: channel %s: %d missing %s (empty group fields in those rows)\n", c.Name, c.Missing, plural(c.Missing, "value", "values"))
+			fmt.Fprintf(log, "pisets: channel %s: %d missing %s (NaN group fields in those rows)\n", c.Name, c.Missing, plural(c.Missing, "value", "values"))
 		}
 	}
 	for _, v := range nonfiniteOrder {
 		c := nonfinite[v]
-		fmt.Fprintf(log, "pisets: derived %s: %d non-finite %s counted as missing (-nonfinite=missing; empty group fields in those rows)\n", v, c, plural(c, "value", "values"))
+		fmt.Fprintf(log, "pisets: derived %s: %d non-finite %s counted as missing (-nonfinite=missing; NaN group fields in those rows)\n", v, c, plural(c, "value", "values"))
 	}
 	if fits != nil {
 		law, err := reportFit(fits, groups, log)

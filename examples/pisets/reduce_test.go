@@ -47,8 +47,8 @@ func TestReducePumpLoop(t *testing.T) {
 		pi2 := r.q / 3600 / (n * d * d * d)
 		f := strings.Split(lines[i+1], ",")
 		if math.IsNaN(pi1) {
-			if f[0] != "" {
-				t.Errorf("row %d: Π₁ %q, want empty (P2 missing)", i+1, f[0])
+			if f[0] != chanfile.MissingText {
+				t.Errorf("row %d: Π₁ %q, want %q (P2 missing)", i+1, f[0], chanfile.MissingText)
 			}
 		} else if got, _ := strconv.ParseFloat(f[0], 64); math.Abs(got-pi1) > 1e-9*pi1 {
 			t.Errorf("row %d: Π₁ = %v, want %v", i+1, got, pi1)
@@ -157,7 +157,7 @@ func TestReduceJSONLines(t *testing.T) {
 		}
 		for k, f := range strings.Split(csvLines[i], ",") {
 			v := row[[]string{"Π₁", "Π₂"}[k]]
-			if f == "" {
+			if f == chanfile.MissingText {
 				if v != nil {
 					t.Errorf("line %d group %d: %v, want null", i+1, k+1, *v)
 				}
@@ -276,7 +276,7 @@ func TestReduceParquet(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	pw, err := parquetfile.NewWriter(lf, cr.Columns(), parquetfile.Options{})
+	pw, err := parquetfile.NewWriter(lf, log, cr.Columns(), parquetfile.Options{})
 	if err != nil {
 		t.Fatal(err)
 	}

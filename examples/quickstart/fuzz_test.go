@@ -24,7 +24,7 @@ func FuzzFlags(f *testing.F) {
 	f.Add(2.5, 0.08, 40.0, 16.0, "-h")
 	f.Add(50.0, 1e-3, 1e4, 100.0, "-v NaN")
 	f.Add(1e-3, 5.0, 0.01, 2.0, "stray")
-	f.Add(math.MaxFloat64, -0.0, 5e-324, 1e308, "-scale 60 -l")
+	f.Add(math.MaxFloat64, math.Copysign(0, -1), 5e-324, 1e308, "-scale 60 -l")
 	f.Fuzz(func(t *testing.T, v, d, l, scale float64, free string) {
 		vals := []float64{v, d, l, scale}
 		var args []string

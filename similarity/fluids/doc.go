@@ -24,6 +24,12 @@
 // its pressure, below the triple point, or above the range, is a
 // *RangeError rather than a density (IdealGas.LowestTemperature).
 //
+// Formulas: FormulaFuncs gives the water, sea-water, air and humid-air
+// properties as functions for package formula (nu_water(T),
+// rho_sea(T, S), rho_air(T, p), …), with their ranges and exact
+// derivatives, so that a derived channel of a data reduction reads
+// nu = nu_water(T_w); the caller passes them to formula.Options.
+//
 // Values are estimates for planning and data reduction. Where a result
 // feeds the design of hulls, hydraulic structures or pressure vessels,
 // use the properties the applicable code prescribes. A cryogenic

@@ -148,21 +148,52 @@ func freshViscosity(t dual.Num) dual.Num {
 // TEOS-10, S_P = S_A·35/35.16504. Checked against IAPWS-08 (TEOS-10) to
 // 0.002 % between 0 and 40 °C and 5 to 40 g/kg (see the tests).
 func seaDensity(t90 dual.Num, sa float64) dual.Num {
+	rw, a, b := seaDensityTerms(t90)
+	s := sa * spPerSA
+	return rw.Add(a.Scale(s)).Add(b.Scale(s * math.Sqrt(s))).AddC(seaC * s * s)
+}
+
+// spPerSA reads an absolute salinity as practical salinity (TEOS-10
+// reference composition), and seaC is EOS-80's coefficient of S_P².
+const (
+	spPerSA = 35 / 35.16504
+	seaC    = 4.8314e-4
+)
+
+// seaDensityTerms are EOS-80's pure-water term and the coefficients of
+// S_P and S_P^(3/2) at t₉₀ °C.
+func seaDensityTerms(t90 dual.Num) (rw, a, b dual.Num) {
 	t := t90.Scale(1.00024)
-	s := sa * 35 / 35.16504
-	rw := t.Poly(999.842594, 6.793952e-2, -9.095290e-3, 1.001685e-4, -1.120083e-6, 6.536332e-9)
-	a := t.Poly(8.24493e-1, -4.0899e-3, 7.6438e-5, -8.2467e-7, 5.3875e-9)
-	b := t.Poly(-5.72466e-3, 1.0227e-4, -1.6546e-6)
-	const c = 4.8314e-4
-	return rw.Add(a.Scale(s)).Add(b.Scale(s * math.Sqrt(s))).AddC(c * s * s)
+	rw = t.Poly(999.842594, 6.793952e-2, -9.095290e-3, 1.001685e-4, -1.120083e-6, 6.536332e-9)
+	a = t.Poly(8.24493e-1, -4.0899e-3, 7.6438e-5, -8.2467e-7, 5.3875e-9)
+	b = t.Poly(-5.72466e-3, 1.0227e-4, -1.6546e-6)
+	return rw, a, b
+}
+
+// seaDensitySlope is ∂ρ/∂S_A of seaDensity at t₉₀ °C, in kg/m³ per g/kg.
+func seaDensitySlope(t90, sa float64) float64 {
+	_, a, b := seaDensityTerms(dual.Const(t90))
+	s := sa * spPerSA
+	return (a.V + 1.5*b.V*math.Sqrt(s) + 2*seaC*s) * spPerSA
 }
 
 // seaViscosity follows Sharqawy et al. (2010), eq. 22, with S in kg/kg,
 // applied to the fresh-water viscosity above.
 func seaViscosity(t dual.Num, s float64) dual.Num {
-	A := t.Poly(1.541, 1.998e-2, -9.52e-5)
-	B := t.Poly(7.974, -7.561e-2, 4.724e-4)
+	A, B := seaViscosityTerms(t)
 	return freshViscosity(t).Mul(A.Scale(s).Add(B.Scale(s * s)).AddC(1))
+}
+
+// seaViscosityTerms are the coefficients of S and S² of Sharqawy et al.
+func seaViscosityTerms(t dual.Num) (A, B dual.Num) {
+	return t.Poly(1.541, 1.998e-2, -9.52e-5), t.Poly(7.974, -7.561e-2, 4.724e-4)
+}
+
+// seaViscositySlope is ∂μ/∂S of seaViscosity at t °C, S in kg/kg, in Pa·s
+// per kg/kg.
+func seaViscositySlope(t, s float64) float64 {
+	A, B := seaViscosityTerms(dual.Const(t))
+	return freshViscosity(dual.Const(t)).V * (A.V + 2*B.V*s)
 }
 
 // properties returns ρ and μ of the water at t °C with their derivatives

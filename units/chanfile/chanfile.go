@@ -3,6 +3,7 @@ package chanfile
 import (
 	"bufio"
 	"bytes"
+	"errors"
 	"fmt"
 	"io"
 	"math"
@@ -35,15 +36,22 @@ type Column struct {
 }
 
 // Error reports a problem in a file, with the line and column (both from
-// 1; column 0 when the whole line is concerned). It matches
-// quantity.ErrParse, and its Err under errors.Is.
+// 1; column 0 when the whole line is concerned). It matches exactly one
+// class of package quantity under errors.Is: the class of Err when Err
+// has one (an unknown unit in a header is quantity.ErrUnknown, with the
+// *units.ParseError reachable by errors.As); otherwise quantity.ErrRange
+// for a number outside float64 (a value that overflows or underflows),
+// quantity.ErrInvalid for a bad argument (an option, a series, a column
+// that cannot be written) or a failed read or write of the underlying
+// file, and quantity.ErrParse for malformed text.
 type Error struct {
 	File   string
 	Line   int
 	Column int
 	Field  string // the text of the field, if any
 	Reason string
-	Err    error // an underlying error (a units parse error), or nil
+	Err    error // an underlying error (a units parse error, an I/O error), or nil
+	class  error // the class when Err has none; nil means quantity.ErrParse
 }
 
 // Error implements the error interface: "loop.csv:14:3: …".
@@ -71,8 +79,32 @@ func (e *Error) Error() string {
 // Unwrap returns the underlying error.
 func (e *Error) Unwrap() error { return e.Err }
 
-// Is reports whether target is quantity.ErrParse, the class of an *Error.
-func (e *Error) Is(target error) bool { return target == quantity.ErrParse }
+// Is reports whether target is the error's class (see Error), when Err
+// has no class of its own; otherwise errors.Is finds the class on Err.
+func (e *Error) Is(target error) bool {
+	if e.Err != nil && classOf(e.Err) != nil {
+		return false
+	}
+	if e.class == nil {
+		return target == quantity.ErrParse
+	}
+	return target == e.class
+}
+
+// classes are the error classes of package quantity.
+var classes = [...]error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid}
+
+// classOf returns the class of package quantity that err matches under
+// errors.Is (ErrDimension, ErrRange, ErrParse, ErrUnknown or ErrInvalid),
+// or nil if it matches none. An error of this package matches exactly one.
+func classOf(err error) error {
+	for _, c := range classes {
+		if errors.Is(err, c) {
+			return c
+		}
+	}
+	return nil
+}
 
 // Options adjust how a file is read. The zero value reads CSV with '#'
 // comments and refuses gauge channels.
@@ -194,7 +226,7 @@ func NewReader(r io.Reader, name string, opt Options) (*Reader, error) {
 	comma := byte(',')
 	if opt.Comma != 0 {
 		if opt.Comma >= 0x80 || opt.Comma == '"' || opt.Comma == '\n' || opt.Comma == '\r' || opt.Comma == '#' {
-			return nil, &Error{File: name, Reason: fmt.Sprintf("delimiter %q is not a single ASCII byte other than a quote, # or newline", opt.Comma)}
+			return nil, &Error{File: name, Reason: fmt.Sprintf("delimiter %q is not a single ASCII byte other than a quote, # or newline", opt.Comma), class: quantity.ErrInvalid}
 		}
 		comma = byte(opt.Comma)
 	}
@@ -235,7 +267,7 @@ func NewReader(r io.Reader, name string, opt Options) (*Reader, error) {
 		if c.Gauge {
 			ref := opt.Reference
 			if ref.Dim() != quantity.Pressure || !(ref.Value() > 0) || math.IsInf(ref.Value(), 0) {
-				return nil, &Error{File: name, Line: line, Column: i + 1, Field: f, Reason: "a gauge pressure channel needs the absolute ambient pressure it was read against: set Options.Reference to the barometer reading (or units.StandardReference(), chosen explicitly)", Err: units.ErrGauge}
+				return nil, &Error{File: name, Line: line, Column: i + 1, Field: f, Reason: "a gauge pressure channel needs the absolute ambient pressure it was read against: set Options.Reference to the barometer reading (or units.StandardReference(), chosen explicitly)", Err: units.ErrGauge, class: quantity.ErrInvalid}
 			}
 			add += ref.Value()
 			c.Unit = units.MustParse("Pa")
@@ -257,7 +289,7 @@ func (r *Reader) next() (bool, error) {
 			return false, &Error{File: r.name, Line: r.line, Reason: fmt.Sprintf("a line longer than %d bytes", MaxLineLen)}
 		}
 		if err != nil && err != io.EOF {
-			return false, &Error{File: r.name, Line: r.line + 1, Reason: "read failed", Err: err}
+			return false, &Error{File: r.name, Line: r.line + 1, Reason: "read failed", Err: err, class: quantity.ErrInvalid}
 		}
 		if len(b) == 0 && err == io.EOF {
 			return false, nil
@@ -389,19 +421,28 @@ func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, 
 			}
 			x, perr := strconv.ParseFloat(string(f), 64)
 			if perr != nil || math.IsInf(x, 0) || math.IsNaN(x) {
-				reason := "not a finite number"
-				if withUnit(string(f)) {
+				reason, class := "not a finite number", error(nil)
+				if errors.Is(perr, strconv.ErrRange) {
+					reason, class = "a number beyond the range of float64", quantity.ErrRange
+				} else if withUnit(string(f)) {
 					reason = "a value with a unit in a data row: the unit belongs in the header"
 				}
-				field := string(f)
-				if len(field) > 64 {
-					field = field[:64] + "…"
-				}
-				err = &Error{File: r.name, Line: r.line, Column: j + 1, Field: field, Reason: reason}
+				err = &Error{File: r.name, Line: r.line, Column: j + 1, Field: short(f), Reason: reason, class: class}
 				r.done = true
 				break
 			}
-			vals[j] = append(vals[j], x*r.mul[j]+r.add[j])
+			if x == 0 && nonzero(f) {
+				err = &Error{File: r.name, Line: r.line, Column: j + 1, Field: short(f), Reason: "a nonzero number too small for float64 (it would read as 0)", class: quantity.ErrRange}
+				r.done = true
+				break
+			}
+			si := x*r.mul[j] + r.add[j]
+			if math.IsInf(si, 0) || math.IsNaN(si) || x != 0 && x*r.mul[j] == 0 {
+				err = &Error{File: r.name, Line: r.line, Column: j + 1, Field: short(f), Reason: fmt.Sprintf("the value in %s is beyond the range of float64 in SI units", r.cols[j].Text), class: quantity.ErrRange}
+				r.done = true
+				break
+			}
+			vals[j] = append(vals[j], si)
 		}
 		if err != nil {
 			// The row in error is not part of the chunk.
@@ -422,6 +463,37 @@ func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, 
 		return dst, 0, io.EOF
 	}
 	return dst, n, nil
+}
+
+// short returns a field for a message, cut at 64 bytes.
+func short(f []byte) string {
+	if len(f) > 64 {
+		return string(f[:64]) + "…"
+	}
+	return string(f)
+}
+
+// nonzero reports whether the number f, which strconv.ParseFloat read,
+// has a nonzero digit before its exponent.
+func nonzero(f []byte) bool {
+	hex := false
+	if len(f) > 0 && (f[0] == '+' || f[0] == '-') {
+		f = f[1:]
+	}
+	if len(f) > 1 && f[0] == '0' && (f[1] == 'x' || f[1] == 'X') {
+		hex, f = true, f[2:]
+	}
+	for _, c := range f {
+		switch {
+		case c >= '1' && c <= '9':
+			return true
+		case hex && (c >= 'a' && c <= 'f' || c >= 'A' && c <= 'F'):
+			return true
+		case !hex && (c == 'e' || c == 'E'), hex && (c == 'p' || c == 'P'):
+			return false
+		}
+	}
+	return false
 }
 
 // numStart reports whether c can start a number; a missing marker that

@@ -59,7 +59,7 @@ func TestParseHeaderField(t *testing.T) {
 		{"V []", "no unit"},
 	} {
 		_, err := chanfile.ParseHeaderField(bad.field)
-		if !errors.Is(err, quantity.ErrParse) || !strings.Contains(err.Error(), bad.says) {
+		if classes(err) != 1 || !strings.Contains(err.Error(), bad.says) {
 			t.Errorf("ParseHeaderField(%q) error %v, want one saying %q", bad.field, err, bad.says)
 		}
 	}
@@ -196,15 +196,21 @@ func TestMalformed(t *testing.T) {
 		{"crlf ragged", "a [m],b [m]\r\n1,2\r\n3,4,5\r\n", chanfile.Options{}, 3, 0, "a row of 3 fields", quantity.ErrParse},
 		{"text after quote", "a [m],b [m]\n\"1\"x,2\n", chanfile.Options{}, 2, 1, "after the closing quote", quantity.ErrParse},
 		{"long line", "a [m]\n" + strings.Repeat("1", 1<<17) + "\n", chanfile.Options{}, 2, 0, "longer than", quantity.ErrParse},
-		{"bad delimiter", "a [m]\n1\n", chanfile.Options{Comma: '"'}, 0, 0, "delimiter", quantity.ErrParse},
+		{"bad delimiter", "a [m]\n1\n", chanfile.Options{Comma: '"'}, 0, 0, "delimiter", quantity.ErrInvalid},
 		{"unit in data", "V [kn]\n12 kn\n", chanfile.Options{}, 2, 1, "unit belongs in the header", quantity.ErrParse},
 		{"dialect unit in data", "Q m3/h\n160 m3/h\n", chanfile.Options{}, 2, 1, "unit belongs in the header", quantity.ErrParse},
 		{"text in data", "V [kn]\n1\nabc\n", chanfile.Options{}, 3, 1, "not a finite number", quantity.ErrParse},
-		{"infinite", "V [kn]\n1e999\n", chanfile.Options{}, 2, 1, "not a finite number", quantity.ErrParse},
+		{"infinite", "V [kn]\n1e999\n", chanfile.Options{}, 2, 1, "beyond the range of float64", quantity.ErrRange},
+		{"overflow in SI", "L [km]\n1e308\n", chanfile.Options{}, 2, 1, "beyond the range of float64 in SI", quantity.ErrRange},
+		{"negative overflow in SI", "t [s],L [km]\n0,-1e308\n", chanfile.Options{}, 2, 2, "beyond the range of float64 in SI", quantity.ErrRange},
+		{"underflow", "V [kn]\n1\n1e-400\n", chanfile.Options{}, 3, 1, "too small for float64", quantity.ErrRange},
+		{"hex underflow", "V [kn]\n0x1p-2000\n", chanfile.Options{}, 2, 1, "too small for float64", quantity.ErrRange},
+		{"underflow in SI", "d [nm]\n1e-320\n", chanfile.Options{}, 2, 1, "beyond the range of float64 in SI", quantity.ErrRange},
+		{"unknown unit", "V [furlongs]\n1\n", chanfile.Options{}, 1, 1, "not a unit", quantity.ErrUnknown},
 		{"non-UTF-8 data", "V [kn]\n1\xff\n", chanfile.Options{}, 2, 1, "not a finite number", quantity.ErrParse},
 		{"non-UTF-8 header", "V [kn],\xff [m]\n1,2\n", chanfile.Options{}, 1, 2, "UTF-8", quantity.ErrParse},
 		{"bad quote", "a [m],b [m]\n1,\"2\n", chanfile.Options{}, 2, 2, "may not span lines", quantity.ErrParse},
-		{"gauge without reference", "P1 psig\n12\n", chanfile.Options{}, 1, 1, "Options.Reference", units.ErrGauge},
+		{"gauge without reference", "P1 psig\n12\n", chanfile.Options{}, 1, 1, "Options.Reference", quantity.ErrInvalid},
 		{"duplicate", "V [kn],V [m/s]\n1,2\n", chanfile.Options{}, 1, 2, "also column 1", quantity.ErrParse},
 		{"no unit", "V,t [s]\n1,2\n", chanfile.Options{}, 1, 1, "dimensionless", quantity.ErrParse},
 		{"ambiguous unit", "W ton\n1\n", chanfile.Options{}, 1, 1, "refrigeration", quantity.ErrParse},
@@ -218,7 +224,7 @@ func TestMalformed(t *testing.T) {
 			}
 		}
 		var fe *chanfile.Error
-		if !errors.As(err, &fe) || !errors.Is(err, tc.is) || !strings.Contains(err.Error(), tc.says) {
+		if !errors.As(err, &fe) || !errors.Is(err, tc.is) || classes(err) != 1 || !strings.Contains(err.Error(), tc.says) {
 			t.Errorf("%s: error %v, want a *chanfile.Error saying %q", tc.name, err, tc.says)
 			continue
 		}
@@ -256,7 +262,7 @@ func TestRoundTrip(t *testing.T) {
 			s[j] = quantity.NewSeries(v, c.Unit.Dim())
 		}
 		var buf bytes.Buffer
-		w, err := chanfile.NewWriter(&buf, cols, chanfile.Options{})
+		w, err := chanfile.NewWriter(&buf, "t.csv", cols, chanfile.Options{})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -311,9 +317,18 @@ func TestWriterRefuses(t *testing.T) {
 		{[]chanfile.Column{{Name: "P1", Unit: pa}, {Name: "P2", Unit: pa}}, []quantity.Series{quantity.NewSeries([]float64{1}, quantity.Pressure), quantity.NewSeries([]float64{1, 2}, quantity.Pressure)}, "2 values"},
 		{[]chanfile.Column{{Name: "P1", Unit: pa}}, []quantity.Series{}, "0 series for 1 columns"},
 		{[]chanfile.Column{{Name: "P1", Unit: pa}}, []quantity.Series{quantity.NewSeries([]float64{1, math.Inf(1)}, quantity.Pressure)}, "an infinite value"},
+		// 1e308 m is 1e311 mm, beyond float64: it would be written +Inf.
+		{[]chanfile.Column{{Name: "L", Unit: units.MustParse("mm")}}, []quantity.Series{quantity.NewSeries([]float64{1, 1e308}, quantity.Length)}, "t.csv:3:1: \"L\": 1e+308 in SI is beyond the range of float64 in mm"},
+		// 5e-324 m, the least subnormal, is 0 in km.
+		{[]chanfile.Column{{Name: "L", Unit: units.MustParse("km")}}, []quantity.Series{quantity.NewSeries([]float64{5e-324}, quantity.Length)}, "beyond the range of float64 in km"},
+		{[]chanfile.Column{{Name: "a\nb", Unit: pa}}, nil, "would not read back"},
+		{[]chanfile.Column{{Name: "#P", Unit: pa}}, nil, "would not read back (no header row)"},
+		{[]chanfile.Column{{Name: " P", Unit: pa}}, nil, "would not read back"},
+		{[]chanfile.Column{{Name: "P", Unit: pa}, {Name: "P", Unit: pa}}, nil, "also column 1"},
+		{[]chanfile.Column{{Name: "P\xff", Unit: pa}}, nil, "UTF-8"},
 	} {
 		var buf bytes.Buffer
-		w, err := chanfile.NewWriter(&buf, tc.cols, chanfile.Options{})
+		w, err := chanfile.NewWriter(&buf, "t.csv", tc.cols, chanfile.Options{})
 		if err == nil {
 			err = w.Write(tc.s)
 		}
@@ -330,8 +345,8 @@ func FuzzHeaderField(f *testing.F) {
 	f.Fuzz(func(t *testing.T, s string) {
 		c, err := chanfile.ParseHeaderField(s)
 		if err != nil {
-			if !errors.Is(err, quantity.ErrParse) {
-				t.Fatalf("ParseHeaderField(%q): %v is not a parse error", s, err)
+			if classes(err) != 1 {
+				t.Fatalf("ParseHeaderField(%q): %v matches %d error classes, not one", s, err, classes(err))
 			}
 			return
 		}
@@ -346,6 +361,7 @@ func FuzzReader(f *testing.F) {
 	f.Add("a [m],b [m]\n1,2\n3\n")
 	f.Add("V [kn]\n12 kn\n")
 	f.Add("x [m]\n\"1\"\n,\n")
+	f.Add("L [km]\n1e308\n1e-400\n")
 	f.Fuzz(func(t *testing.T, s string) {
 		r, err := chanfile.NewReader(strings.NewReader(s), "f.csv", chanfile.Options{Reference: units.StandardReference()})
 		if err != nil {
@@ -364,10 +380,15 @@ func FuzzReader(f *testing.F) {
 				if dst[j].Len() != n || dst[j].Dim() != c.Unit.Dim() {
 					t.Fatalf("column %d: %d values of %v for %d rows", j, dst[j].Len(), dst[j].Dim(), n)
 				}
+				for _, x := range dst[j].Values() {
+					if math.IsInf(x, 0) {
+						t.Fatalf("column %d: %v with a nil error", j, x)
+					}
+				}
 			}
 		}
-		if err != io.EOF && !errors.Is(err, quantity.ErrParse) {
-			t.Fatalf("error %v is neither io.EOF nor a parse error", err)
+		if err != io.EOF && classes(err) != 1 {
+			t.Fatalf("error %v is neither io.EOF nor of one error class", err)
 		}
 		if rows > len(s) {
 			t.Fatalf("%d rows from %d bytes", rows, len(s))

@@ -35,7 +35,7 @@ t [s], V [kn], R_T (N), T_w °C, Torque (in-lb)
 		}
 		fmt.Println()
 	}
-	w, err := chanfile.NewWriter(os.Stdout, []chanfile.Column{
+	w, err := chanfile.NewWriter(os.Stdout, "stdout", []chanfile.Column{
 		{Name: "V", Unit: units.MustParse("m/s")},
 		{Name: "R_T", Unit: units.MustParse("N")},
 	}, chanfile.Options{})
@@ -56,6 +56,6 @@ t [s], V [kn], R_T (N), T_w °C, Torque (in-lb)
 	// Torque  in-lb  → SI [1.35582 1.41231], missing 0; in-lb read as in*lbf (a torque: the pound is the pound-force)
 	// V [m/s],R_T [N]
 	// 2.057777777777778,41.8
-	// 2.1092222222222223,
+	// 2.1092222222222223,NaN
 	// 2 rows
 }

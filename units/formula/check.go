@@ -51,18 +51,25 @@ func (c Check) String() string {
 }
 
 // RangeError reports a result that is not finite, where an Evaluator
-// checks them (CheckFinite). It matches quantity.ErrRange under
-// errors.Is.
+// checks them (CheckFinite): also the error of a function of the library
+// (Options.Funcs) at a row, such as a temperature outside a correlation's
+// range, and a solve whose bracket holds no root. It matches
+// quantity.ErrRange under errors.Is; when a function's error, in Err,
+// has a class of its own, it matches that class instead, through Unwrap.
 type RangeError struct {
 	Input     string  // the formula text
 	Row       int     // the row of the columns given to Series, from 0; −1 for Row, RowQ and Gradient
-	Statement int     // the statement, as an index of Outputs
+	Statement int     // the statement, counting the statements of the text from 0 (the index of Outputs unless Options.Keep chose them)
 	Name      string  // the statement's name, "" for a bare expression
 	Value     float64 // the statement's result: +Inf, −Inf or NaN
 	Wrt       string  // for a derivative from Gradient, the input it is taken with respect to
 	Offset    int     // byte offset in Input of the operation that first gave a value that is not finite
 	Reason    string  // what that operation did: "division by zero", "logarithm of a negative number", …
+	Err       error   // the error of the function that failed, if one did
 }
+
+// Unwrap returns the error of the function that failed, if one did.
+func (e *RangeError) Unwrap() error { return e.Err }
 
 // Error implements the error interface. It counts rows and statements
 // from 1, as a reader does; the fields count from 0.
@@ -82,21 +89,26 @@ func (e *RangeError) Error() string {
 	if e.Wrt != "" {
 		what = fmt.Sprintf("∂%s/∂%s", what, e.Wrt)
 	}
+	if e.Err != nil {
+		return fmt.Sprintf("formula %q: %sstatement %d (counting from 1): %s: at %d: %s", in, where, e.Statement+1, what, e.Offset, e.Reason)
+	}
 	return fmt.Sprintf("formula %q: %sstatement %d (counting from 1): %s is %v, not finite: at %d: %s", in, where, e.Statement+1, what, e.Value, e.Offset, e.Reason)
 }
 
 // Is reports whether target is quantity.ErrRange, the class of a
-// *RangeError.
-func (e *RangeError) Is(target error) bool { return target == quantity.ErrRange }
+// *RangeError whose cause has no class of its own.
+func (e *RangeError) Is(target error) bool {
+	return target == quantity.ErrRange && (e.Err == nil || !ownClass(e.Err))
+}
 
 // SetCheck sets what the evaluator does with a result that is not finite;
 // an Evaluator starts with CheckFinite.
 func (e *Evaluator) SetCheck(c Check) { e.check = c }
 
-// Marked returns how many results of statement i (an index of Outputs)
+// Marked returns how many results of result i (an index of Outputs)
 // MarkMissing has set to NaN since the evaluator was made or ResetMarked
 // was called; missing inputs that made results missing are not counted.
-func (e *Evaluator) Marked(i int) int { return e.marked[i] }
+func (e *Evaluator) Marked(i int) int { return e.marked[e.p.kept[i]] }
 
 // ResetMarked sets the counts of Marked to zero.
 func (e *Evaluator) ResetMarked() { clear(e.marked) }
@@ -115,7 +127,7 @@ func (p *Program) missing(i int, r []float64) bool {
 }
 
 // rowChecked evaluates one row, whose inputs are in e.regs, statement by
-// statement, writing the results into res; a statement whose result is
+// statement, writing the results of every statement into res; a statement whose result is
 // not finite, and not made missing by a missing value it uses, is
 // reported (CheckFinite) or set to NaN and counted (MarkMissing). row is
 // the row's index for an error, −1 for Row.
@@ -124,7 +136,7 @@ func (e *Evaluator) rowChecked(row int, res []float64) error {
 	r := e.regs
 	for i, o := range p.outputs {
 		for _, op := range p.ops[o.lo:o.hi] {
-			r[op.dst] = scalar(op, r)
+			r[op.dst] = p.scalar(op, r, e.fargs)
 		}
 		v := r[o.slot]
 		if !finite(v) && !p.missing(i, r) {
@@ -162,7 +174,7 @@ func (p *Program) rangeError(row, i int, r []float64) *RangeError {
 		if !live[op.dst] {
 			continue
 		}
-		for _, s := range operands(op, r) {
+		for _, s := range p.operands(op, r) {
 			live[s] = true
 		}
 	}
@@ -171,11 +183,15 @@ func (p *Program) rangeError(row, i int, r []float64) *RangeError {
 			continue
 		}
 		e.Offset = p.opPos[o.lo+k]
-		for _, s := range operands(op, r) {
+		for _, s := range p.operands(op, r) {
 			if s < nIn && !finite(r[s]) {
 				e.Reason = fmt.Sprintf("input %s is %v", p.inputs[s].Name, r[s])
 				return e
 			}
+		}
+		if op.code >= opFunc {
+			e.Reason, e.Err = p.whyCall(op, r)
+			return e
 		}
 		e.Reason = why(op, r)
 		return e
@@ -185,8 +201,10 @@ func (p *Program) rangeError(row, i int, r []float64) *RangeError {
 }
 
 // operands returns the slots op reads, only the branch taken for if.
-func operands(op op, r []float64) []int {
+func (p *Program) operands(op op, r []float64) []int {
 	switch op.code {
+	case opFunc, opSolve:
+		return p.calls[op.n].reads
 	case opConst:
 		return nil
 	case opAdd, opSub, opMul, opDiv, opPowX, opMin, opMax, opHypot, opAtan2, opLT, opLE, opGT, opGE, opEQ, opNE, opAnd, opOr:

@@ -55,6 +55,8 @@ const (
 	opAnd
 	opOr
 	opIf
+	opFunc  // a function of a library: calls[n]
+	opSolve // a root of an equation: calls[n]
 )
 
 // op computes slot dst from slots a, b, c.
@@ -75,27 +77,45 @@ type Program struct {
 	ops     []op
 	opPos   []int // per operation, the byte offset of its operator in the text
 	slots   int
-	outputs []output
+	outputs []output // every statement, in the order of the text
+	kept    []int    // the statements that are results, in the order of Outputs
+	calls   []call   // the function calls and solve expressions, by op.n
+	fargs   int      // the most arguments of a function call
 }
 
 type output struct {
 	name   string // "" for the bare result
 	slot   int
 	dim    quantity.Dim
-	pos    int   // byte offset of the statement
-	lo, hi int   // the statement's operations, ops[lo:hi]
-	refs   []int // the slots of the inputs and earlier results it names
+	pos    int     // byte offset of the statement
+	lo, hi int     // the statement's operations, ops[lo:hi]
+	refs   []int   // the slots of the inputs and earlier results it names
+	konst  bool    // its value is known at compile time
+	val    float64 // that value
 }
 
 // Compile reads a formula text and checks it against the dimensions of
 // its inputs. Every name a statement uses must be an input or assigned
-// by an earlier statement; an input may not be assigned.
+// by an earlier statement; an input may not be assigned. It is
+// Options{}.Compile: the built-in functions only, and every statement a
+// result.
 func Compile(src string, inputs ...Input) (*Program, error) {
+	return Options{}.Compile(src, inputs...)
+}
+
+// Compile reads a formula text and checks it against the dimensions of
+// its inputs, as the package function Compile does, with the functions of
+// o.Funcs callable and only the statements o.Keep names as results.
+func (o Options) Compile(src string, inputs ...Input) (*Program, error) {
 	stmts, err := parseText(src)
 	if err != nil {
 		return nil, err
 	}
-	c := &compiler{p: &Program{src: src, stmts: stmts, inputs: append([]Input(nil), inputs...)}, names: map[string]int{}, dims: map[int]quantity.Dim{}}
+	c := &compiler{p: &Program{src: src, stmts: stmts, inputs: append([]Input(nil), inputs...)}, names: map[string]int{}, dims: map[int]quantity.Dim{},
+		funcs: map[string]*Func{}, konst: map[int]bool{}}
+	if err := c.library(o.Funcs); err != nil {
+		return nil, err
+	}
 	for i, in := range inputs {
 		if _, dup := c.names[in.Name]; dup {
 			return nil, &Error{Input: src, Reason: fmt.Sprintf("input %q is given twice", in.Name), cls: quantity.ErrInvalid}
@@ -104,6 +124,7 @@ func Compile(src string, inputs ...Input) (*Program, error) {
 		c.dims[i] = in.Dim
 	}
 	c.p.slots = len(inputs)
+	c.vals = make([]float64, c.p.slots)
 	for _, st := range stmts {
 		lo := len(c.p.ops)
 		c.refs = nil
@@ -121,7 +142,10 @@ func Compile(src string, inputs ...Input) (*Program, error) {
 			c.names[st.name] = slot
 		}
 		c.dims[slot] = d.dim
-		c.p.outputs = append(c.p.outputs, output{name: st.name, slot: slot, dim: d.dim, pos: st.pos, lo: lo, hi: len(c.p.ops), refs: c.refs})
+		c.p.outputs = append(c.p.outputs, output{name: st.name, slot: slot, dim: d.dim, pos: st.pos, lo: lo, hi: len(c.p.ops), refs: c.refs, konst: c.konst[slot], val: c.vals[slot]})
+	}
+	if err := c.keep(o.Keep); err != nil {
+		return nil, err
 	}
 	return c.p, nil
 }
@@ -132,6 +156,10 @@ type compiler struct {
 	dims  map[int]quantity.Dim
 	refs  []int // the slots the statement being compiled names
 	pos   int   // the offset of the operator being compiled
+	funcs map[string]*Func
+	konst map[int]bool // the slots whose value is known at compile time
+	vals  []float64    // per slot, the value of a known one
+	solve bool         // compiling the equation of a solve
 }
 
 // typ is a node's type: a quantity of a dimension, or a condition.
@@ -166,9 +194,44 @@ func describe(d quantity.Dim) string {
 func (c *compiler) emit(o op) int {
 	o.dst = c.p.slots
 	c.p.slots++
+	c.vals = append(c.vals, 0)
+	if o.code == opConst {
+		c.konst[o.dst], c.vals[o.dst] = true, o.k
+	} else if o.code < opFunc && c.known(o) {
+		// Bound now: every operand is known. A value that is not finite
+		// stays an operation, so that evaluation reports it as before.
+		if v := scalar(o, c.vals); finite(v) {
+			o = op{code: opConst, dst: o.dst, k: v}
+			c.konst[o.dst], c.vals[o.dst] = true, v
+		}
+	}
 	c.p.ops = append(c.p.ops, o)
 	c.p.opPos = append(c.p.opPos, c.pos)
 	return o.dst
+}
+
+// known reports whether every slot op o reads has a value known at
+// compile time.
+func (c *compiler) known(o op) bool {
+	for _, s := range reads(o) {
+		if !c.konst[s] {
+			return false
+		}
+	}
+	return true
+}
+
+// reads returns the slots a built-in operation reads.
+func reads(o op) []int {
+	switch o.code {
+	case opConst:
+		return nil
+	case opAdd, opSub, opMul, opDiv, opPowX, opMin, opMax, opHypot, opAtan2, opLT, opLE, opGT, opGE, opEQ, opNE, opAnd, opOr:
+		return []int{o.a, o.b}
+	case opIf:
+		return []int{o.a, o.b, o.c}
+	}
+	return []int{o.a}
 }
 
 func (c *compiler) expr(n *node) (int, typ, error) {
@@ -191,6 +254,10 @@ func (c *compiler) expr(n *node) (int, typ, error) {
 			c.refs = append(c.refs, slot)
 		}
 		return slot, typ{dim: c.slotDim(slot)}, nil
+	}
+	if n.k == kSolve {
+		c.pos = n.pos
+		return c.solveExpr(n)
 	}
 	var slots [3]int
 	var types [3]typ
@@ -303,6 +370,9 @@ var unary = map[string]opcode{"sqrt": opSqrt, "cbrt": opCbrt, "exp": opExp, "ln"
 	"sin": opSin, "cos": opCos, "tan": opTan, "asin": opAsin, "acos": opAcos, "atan": opAtan}
 
 func (c *compiler) call(n *node) (int, typ, error) {
+	if f, ok := c.funcs[n.name]; ok {
+		return c.callFunc(n, f)
+	}
 	want := map[string]int{"min": 2, "max": 2, "hypot": 2, "atan2": 2, "if": 3}[n.name]
 	code, isUnary := unary[n.name]
 	if isUnary {
@@ -373,17 +443,29 @@ func (c *compiler) call(n *node) (int, typ, error) {
 }
 
 // Outputs returns the names of the program's results in order: each
-// assigned name, and "" for a bare expression.
+// assigned name, and "" for a bare expression; with Options.Keep, the
+// names it lists, in its order.
 func (p *Program) Outputs() []string {
-	out := make([]string, len(p.outputs))
-	for i, o := range p.outputs {
-		out[i] = o.name
+	out := make([]string, len(p.kept))
+	for i, k := range p.kept {
+		out[i] = p.outputs[k].name
 	}
 	return out
 }
 
 // Dim returns the dimension of result i (in the order of Outputs).
-func (p *Program) Dim(i int) quantity.Dim { return p.outputs[i].dim }
+func (p *Program) Dim(i int) quantity.Dim { return p.outputs[p.kept[i]].dim }
+
+// Constant reports whether result i (in the order of Outputs) depends on
+// no input, and its value if so: such a statement is computed once, when
+// the text is compiled, and costs no work per row.
+func (p *Program) Constant(i int) (float64, bool) {
+	o := p.outputs[p.kept[i]]
+	if !o.konst {
+		return 0, false
+	}
+	return o.val, true
+}
 
 // Inputs returns the inputs the program was compiled for.
 func (p *Program) Inputs() []Input { return append([]Input(nil), p.inputs...) }

@@ -20,12 +20,17 @@ import (
 func (e *Evaluator) Gradient(in, out []float64, grad [][]float64) error {
 	p := e.p
 	nIn := len(p.inputs)
-	if len(grad) < len(p.outputs) {
-		return evalErr("room for the gradients of %d results, the program has %d", len(grad), len(p.outputs))
+	if len(grad) < len(p.kept) {
+		return evalErr("room for the gradients of %d results, the program has %d", len(grad), len(p.kept))
 	}
-	for i := range p.outputs {
+	for i := range p.kept {
 		if len(grad[i]) < nIn {
 			return evalErr("gradient %d holds %d derivatives, the program has %d inputs", i, len(grad[i]), nIn)
+		}
+	}
+	for _, c := range p.calls {
+		if c.fn != nil && c.fn.Deriv == nil {
+			return evalErr("function %s gives no derivative (its Deriv is nil): the program has no gradient", c.fn.Name)
 		}
 	}
 	if _, err := e.Row(in, out); err != nil {
@@ -33,6 +38,9 @@ func (e *Evaluator) Gradient(in, out []float64, grad [][]float64) error {
 	}
 	if len(e.dregs) < p.slots*nIn {
 		e.dregs = make([]float64, p.slots*nIn) // once per evaluator
+	}
+	if len(p.calls) > 0 && len(e.dx) < p.slots {
+		e.dx = make([]float64, p.slots)
 	}
 	d := func(s int) []float64 { return e.dregs[s*nIn : (s+1)*nIn : (s+1)*nIn] }
 	for j := range nIn {
@@ -42,24 +50,13 @@ func (e *Evaluator) Gradient(in, out []float64, grad [][]float64) error {
 		}
 		dj[j] = 1
 	}
+	e.derivOps(p.ops, e.dregs, nIn)
 	r := e.regs
-	for _, o := range p.ops {
-		dst, da := d(o.dst), d(o.a)
-		a := r[o.a]
-		var db []float64
-		var b float64
-		if o.b < p.slots {
-			db, b = d(o.b), r[o.b]
-		}
-		v := r[o.dst]
-		for k := range dst {
-			dst[k] = derivative(o, a, b, v, da[k], db, k, r, e.dregs, nIn)
-		}
-	}
-	for i, o := range p.outputs {
+	for i, s := range p.kept {
+		o := p.outputs[s]
 		g := grad[i][:nIn]
 		copy(g, d(o.slot))
-		if e.check == Unchecked || math.IsNaN(out[i]) || p.missing(i, r) {
+		if e.check == Unchecked || math.IsNaN(out[i]) || p.missing(s, r) {
 			continue
 		}
 		for j, x := range g {
@@ -67,14 +64,88 @@ func (e *Evaluator) Gradient(in, out []float64, grad [][]float64) error {
 				continue
 			}
 			if e.check != MarkMissing {
-				return &RangeError{Input: p.src, Row: -1, Statement: i, Name: o.name, Value: x, Wrt: p.inputs[j].Name, Offset: o.pos,
-					Reason: "the derivative is not finite (a square root, a cube root or a fractional power at zero, asin or acos at ±1, or an overflow)"}
+				return &RangeError{Input: p.src, Row: -1, Statement: s, Name: o.name, Value: x, Wrt: p.inputs[j].Name, Offset: o.pos,
+					Reason: "the derivative is not finite (a square root, a cube root or a fractional power at zero, asin or acos at ±1, a solve whose equation is flat at its root, or an overflow)"}
 			}
 			g[j] = math.NaN()
-			e.marked[i]++
+			e.marked[s]++
 		}
 	}
 	return nil
+}
+
+// derivOps computes the derivatives of the results of ops, nIn of them
+// per slot in dregs, from those of their operands.
+func (e *Evaluator) derivOps(ops []op, dregs []float64, nIn int) {
+	p := e.p
+	r := e.regs
+	d := func(s int) []float64 { return dregs[s*nIn : (s+1)*nIn : (s+1)*nIn] }
+	for _, o := range ops {
+		dst := d(o.dst)
+		switch o.code {
+		case opFunc:
+			c := &p.calls[o.n]
+			args, gf := e.fargs[:len(c.args)], e.fgrad[:len(c.args)]
+			for j, s := range c.args {
+				args[j] = r[s]
+			}
+			if err := c.fn.Deriv(args, gf); err != nil {
+				for k := range dst {
+					dst[k] = math.NaN()
+				}
+				continue
+			}
+			for k := range dst {
+				sum := 0.0
+				for j, s := range c.args {
+					sum += gf[j] * dregs[s*nIn+k]
+				}
+				dst[k] = sum
+			}
+		case opSolve:
+			e.derivSolve(o, dregs, nIn)
+		default:
+			da := d(o.a)
+			a := r[o.a]
+			var db []float64
+			var b float64
+			if o.b < p.slots {
+				db, b = d(o.b), r[o.b]
+			}
+			v := r[o.dst]
+			for k := range dst {
+				dst[k] = derivative(o, a, b, v, da[k], db, k, r, dregs, nIn)
+			}
+		}
+	}
+}
+
+// derivSolve computes the derivatives of a solve's root x of g(x, θ) = 0
+// by the implicit function theorem: dx/dθ = −(∂g/∂θ)/(∂g/∂x).
+func (e *Evaluator) derivSolve(o op, dregs []float64, nIn int) {
+	p := e.p
+	c := &p.calls[o.n]
+	r := e.regs
+	dst := dregs[o.dst*nIn : (o.dst+1)*nIn]
+	x := r[o.dst]
+	if !finite(x) {
+		for k := range dst {
+			dst[k] = math.NaN()
+		}
+		return
+	}
+	p.equation(c, x, r, e.fargs) // the equation's registers at the root
+	clear(dregs[c.x*nIn : (c.x+1)*nIn])
+	e.derivOps(c.body, dregs, nIn) // ∂g/∂θ, x held
+	dx := e.dx
+	clear(dx)
+	dx[c.x] = 1
+	e.derivOps(c.body, dx, 1) // ∂g/∂x
+	gx := dx[c.g]
+	for k := range dst {
+		dst[k] = -dregs[c.g*nIn+k] / gx
+	}
+	r[o.dst] = x
 }
 
 // derivative is the derivative of operation o's result v with respect to

@@ -28,11 +28,53 @@
 //
 // Names are UTF-8 words of letters, digits and '_' starting with a
 // letter: rho, ρ, Δp, T_in; pi (or π), unless an input or a statement
-// defines it, is the number π. The functions are sqrt, cbrt, exp, ln (log),
+// defines it, is the number π. The built-in functions are sqrt, cbrt, exp, ln (log),
 // log10, abs, min, max, hypot, sin, cos, tan, asin, acos, atan, atan2 and
 // if(condition, then, else), where the condition compares two quantities
 // of one dimension with <, <=, >, >=, == or != and may combine such
 // comparisons with 'and' and 'or': f = if(Re < 2000, 64/Re, 0.316/Re^0.25).
+// solve(…) is the root of an equation (see Solving an equation), and a
+// library may add functions (see Functions of a library).
+//
+// # Functions of a library
+//
+// A caller may give functions of its own, each a Func with the
+// dimensions of its arguments and result declared, to Options.Compile:
+//
+//	formula.Options{Funcs: fluids.FormulaFuncs()}.Compile("nu = nu_water(T_w)\nRe = V*L/nu", inputs...)
+//
+// A call is checked against those dimensions when the text is compiled.
+// At a row where the function fails (a temperature outside a
+// correlation's range) the Evaluator reports a *RangeError naming the row
+// and the statement, with the function's error in its Err field. The
+// package keeps no registry of functions: the caller chooses them, and
+// package fluids supplies the fluid properties in this form.
+//
+// # Solving an equation
+//
+// solve(x, lhs = rhs, lo, hi) is the root x of an equation between lo and
+// hi, which must be of one dimension, the unknown's; the two sides of the
+// equation must be of one dimension too (solve(x, g, lo, hi) solves
+// g = 0). The unknown's name is local to the equation. The Colebrook–White
+// friction factor, as published:
+//
+//	f = solve(f, 1/sqrt(f) = -2*log10(eps/(3.7*D) + 2.51/(Re*sqrt(f))), 0.005, 0.1)
+//
+// The root is found by Brent's method, in at most 200 evaluations of the
+// equation, to a few units in the last place. A bracket whose ends give
+// the equation one sign, an equation that is not finite in the bracket, or
+// ends that are not in order, is a *RangeError for that row. A solve may
+// not hold another solve. Gradient differentiates the root exactly, by the
+// implicit function theorem.
+//
+// # Constants and results
+//
+// An operation whose operands depend on no input is computed once, when
+// the text is compiled, a call of a library's function included: after
+// rho0 = rho_water(20{°C}), rho0 is a number (Program.Constant), and a
+// call's error is then the compile error. Options.Keep names the
+// statements that are the program's results; the others are intermediate
+// values, checked but given no output column.
 //
 // # Checked once, then fast
 //

@@ -53,13 +53,18 @@ type Evaluator struct {
 	res    []float64   // per statement, a row's results (RowQ, checked rows of Series)
 	in     []float64   // per input, a row's values (RowQ, checked rows of Series)
 	marked []int       // per statement, the results MarkMissing set to NaN
+	qres   []float64   // per result, a row's results (RowQ)
+	fargs  []float64   // the arguments of a function call
+	fgrad  []float64   // the derivatives of a function call (Gradient)
+	dx     []float64   // per slot, the derivatives with respect to a solve's unknown (Gradient)
 }
 
 // Evaluator returns an evaluator for the program. It checks that every
 // result is finite (CheckFinite); SetCheck chooses otherwise.
 func (p *Program) Evaluator() *Evaluator {
 	e := &Evaluator{p: p, regs: make([]float64, p.slots), view: make([][]float64, p.slots),
-		res: make([]float64, len(p.outputs)), in: make([]float64, len(p.inputs)), marked: make([]int, len(p.outputs))}
+		res: make([]float64, len(p.outputs)), in: make([]float64, len(p.inputs)), marked: make([]int, len(p.outputs)),
+		qres: make([]float64, len(p.kept)), fargs: make([]float64, p.fargs), fgrad: make([]float64, p.fargs)}
 	e.buf = make([]float64, (p.slots-len(p.inputs))*block)
 	for s := len(p.inputs); s < p.slots; s++ {
 		k := s - len(p.inputs)
@@ -87,13 +92,13 @@ func (e *Evaluator) Row(in []float64, out []float64) ([]float64, error) {
 	if len(in) != len(p.inputs) {
 		return nil, evalErr("%d values for %d inputs", len(in), len(p.inputs))
 	}
-	if len(out) < len(p.outputs) {
-		return nil, evalErr("room for %d results, the program has %d", len(out), len(p.outputs))
+	if len(out) < len(p.kept) {
+		return nil, evalErr("room for %d results, the program has %d", len(out), len(p.kept))
 	}
 	if err := e.row(in, out); err != nil {
 		return nil, err
 	}
-	return out[:len(p.outputs)], nil
+	return out[:len(p.kept)], nil
 }
 
 // row evaluates one row into out, checked as the evaluator's Check says.
@@ -102,19 +107,27 @@ func (e *Evaluator) row(in []float64, out []float64) error {
 	r := e.regs
 	copy(r, in)
 	for _, o := range p.ops {
-		r[o.dst] = scalar(o, r)
+		r[o.dst] = p.scalar(o, r, e.fargs)
 	}
 	ok := true
-	for i, o := range p.outputs {
-		out[i] = r[o.slot]
-		ok = ok && finite(out[i])
+	for _, o := range p.outputs {
+		ok = ok && finite(r[o.slot])
 	}
-	if ok || e.check == Unchecked {
+	if !ok && e.check != Unchecked {
+		// Again, statement by statement.
+		copy(r, in)
+		if err := e.rowChecked(-1, e.res); err != nil {
+			return err
+		}
+		for i, k := range p.kept {
+			out[i] = e.res[k]
+		}
 		return nil
 	}
-	// Again, statement by statement.
-	copy(r, in)
-	return e.rowChecked(-1, out)
+	for i, k := range p.kept {
+		out[i] = r[p.outputs[k].slot]
+	}
+	return nil
 }
 
 // RowQ is Row for quantities: each input's dimension is checked (a
@@ -122,8 +135,8 @@ func (e *Evaluator) row(in []float64, out []float64) error {
 // results that are not finite are treated as the evaluator's Check says.
 func (e *Evaluator) RowQ(in []quantity.Quantity, out []quantity.Quantity) ([]quantity.Quantity, error) {
 	p := e.p
-	if len(in) != len(p.inputs) || len(out) < len(p.outputs) {
-		return nil, evalErr("%d quantities for %d inputs, room for %d of %d results", len(in), len(p.inputs), len(out), len(p.outputs))
+	if len(in) != len(p.inputs) || len(out) < len(p.kept) {
+		return nil, evalErr("%d quantities for %d inputs, room for %d of %d results", len(in), len(p.inputs), len(out), len(p.kept))
 	}
 	vals := e.in
 	for i, q := range in {
@@ -132,13 +145,13 @@ func (e *Evaluator) RowQ(in []quantity.Quantity, out []quantity.Quantity) ([]qua
 		}
 		vals[i] = q.Value()
 	}
-	if err := e.row(vals, e.res); err != nil {
+	if err := e.row(vals, e.qres); err != nil {
 		return nil, err
 	}
-	for i, o := range p.outputs {
-		out[i] = quantity.New(e.res[i], o.dim)
+	for i, k := range p.kept {
+		out[i] = quantity.New(e.qres[i], p.outputs[k].dim)
 	}
-	return out[:len(p.outputs)], nil
+	return out[:len(p.kept)], nil
 }
 
 func b2f(b bool) float64 {
@@ -251,10 +264,10 @@ func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
 		}
 		n = c.Len()
 	}
-	if len(dst) < len(p.outputs) {
-		return evalErr("%d destinations for %d results", len(dst), len(p.outputs))
+	if len(dst) < len(p.kept) {
+		return evalErr("%d destinations for %d results", len(dst), len(p.kept))
 	}
-	for i := range p.outputs {
+	for i := range p.kept {
 		if len(dst[i]) < n {
 			return evalErr("destination %d holds %d values, the columns %d", i, len(dst[i]), n)
 		}
@@ -269,17 +282,22 @@ func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
 			e.view[i] = c.Values()[lo:hi]
 		}
 		for _, o := range p.ops {
-			if o.code != opConst {
+			switch {
+			case o.code == opConst:
+			case o.code >= opFunc:
+				e.vectorCall(o, m)
+			default:
 				vector(o, e.view, m)
 			}
 		}
 		bad := false
-		for i, o := range p.outputs {
-			d := dst[i][lo:hi]
-			copy(d, e.view[o.slot][:m])
-			if e.check != Unchecked {
-				bad = bad || !allFinite(d)
+		if e.check != Unchecked {
+			for _, o := range p.outputs {
+				bad = bad || !o.konst && !allFinite(e.view[o.slot][:m])
 			}
+		}
+		for i, k := range p.kept {
+			copy(dst[i][lo:hi], e.view[p.outputs[k].slot][:m])
 		}
 		if bad {
 			if err := e.checkRows(cols, dst, lo, hi); err != nil {
@@ -322,8 +340,8 @@ func (e *Evaluator) checkRows(cols []quantity.Series, dst [][]float64, lo, hi in
 	p := e.p
 	for k := lo; k < hi; k++ {
 		ok := true
-		for i := range p.outputs {
-			ok = ok && finite(dst[i][k])
+		for _, o := range p.outputs {
+			ok = ok && finite(e.view[o.slot][k-lo])
 		}
 		if ok {
 			continue
@@ -334,11 +352,30 @@ func (e *Evaluator) checkRows(cols []quantity.Series, dst [][]float64, lo, hi in
 		if err := e.rowChecked(k, e.res); err != nil {
 			return err
 		}
-		for i := range p.outputs {
-			dst[i][k] = e.res[i]
+		for i, s := range p.kept {
+			dst[i][k] = e.res[s]
 		}
 	}
 	return nil
+}
+
+// vectorCall computes a function call or a solve over m rows of the slot
+// views, one row at a time in the registers.
+func (e *Evaluator) vectorCall(o op, m int) {
+	p := e.p
+	c := &p.calls[o.n]
+	d := e.view[o.dst][:m]
+	r := e.regs
+	for i := range d {
+		for _, s := range c.reads {
+			r[s] = e.view[s][i]
+		}
+		if o.code == opFunc {
+			d[i], _ = p.call(o, r, e.fargs)
+		} else {
+			d[i], _ = p.root(c, r, e.fargs)
+		}
+	}
 }
 
 // vector computes one operation over m rows of the slot views.

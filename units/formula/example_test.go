@@ -75,3 +75,18 @@ func ExampleEvaluator_SetCheck() {
 	// formula "g = 9.80665 {m/s^2}\nFr = V/sqrt(g*h)": row 2, statement 2 (counting from 1): Fr is +Inf, not finite: at 26: division by zero
 	// Fr = [0.700 NaN 0.703], 1 marked missing
 }
+
+// Example_solve solves the Colebrook–White equation, written as
+// published, for the Darcy friction factor of a pipe at Re = 10⁵ and
+// ε/D = 10⁻⁴ (scipy's brentq gives 0.0185139 for the same equation).
+func Example_solve() {
+	p, err := formula.Compile("f = solve(f, 1/sqrt(f) = -2*log10(eps/(3.7*D) + 2.51/(Re*sqrt(f))), 0.005, 0.1)",
+		formula.Input{Name: "Re", Dim: quantity.Dimensionless}, formula.Input{Name: "eps", Dim: quantity.Length}, formula.Input{Name: "D", Dim: quantity.Length})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	out, err := p.Evaluator().Row([]float64{1e5, 10e-6, 0.1}, make([]float64, 1))
+	fmt.Printf("f = %.6f %v\n", out[0], err)
+	// Output: f = 0.018514 <nil>
+}

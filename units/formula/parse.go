@@ -94,6 +94,7 @@ const (
 	kCmp
 	kAnd
 	kOr
+	kSolve // solve(name, lhs = rhs, lo, hi): args lhs, [rhs,] lo, hi
 )
 
 type node struct {
@@ -548,6 +549,9 @@ func (p *parser) primary() (*node, error) {
 	if p.peek("{") || p.peek("[") {
 		return nil, p.fail(p.i, "a unit in braces follows a number, not a name: write 9.80665 {m/s^2}, or give the name's unit with its input")
 	}
+	if name == "solve" && p.peek("(") {
+		return p.solve(at)
+	}
 	if !p.peek("(") {
 		n, err := p.newNode(kRef, at)
 		if err != nil {
@@ -581,6 +585,53 @@ func (p *parser) primary() (*node, error) {
 			}
 			return nil, p.fail(p.i, "expected ',' or ')' in the arguments of %s", name)
 		}
+	}
+	p.depth--
+	return n, nil
+}
+
+// solve reads solve(x, lhs = rhs, lo, hi) or solve(x, g, lo, hi) at the
+// '(' after the word solve.
+func (p *parser) solve(at int) (*node, error) {
+	const form = "solve(x, lhs = rhs, lo, hi): the unknown, the equation, and the two ends of a bracket around the root"
+	if err := p.enter(at); err != nil {
+		return nil, err
+	}
+	p.i++
+	n, err := p.newNode(kSolve, at)
+	if err != nil {
+		return nil, err
+	}
+	p.skipBlank(false)
+	x, ok := p.name()
+	if !ok || p.op(",") == "" {
+		return nil, p.fail(p.i, "%s", form)
+	}
+	n.name = x
+	lhs, err := p.expr()
+	if err != nil {
+		return nil, err
+	}
+	n.args = append(n.args, lhs)
+	if p.op("=") != "" {
+		rhs, err := p.expr()
+		if err != nil {
+			return nil, err
+		}
+		n.args = append(n.args, rhs)
+	}
+	for range 2 {
+		if p.op(",") == "" {
+			return nil, p.fail(p.i, "%s", form)
+		}
+		e, err := p.expr()
+		if err != nil {
+			return nil, err
+		}
+		n.args = append(n.args, e)
+	}
+	if p.op(")") == "" {
+		return nil, p.fail(p.i, "%s", form)
 	}
 	p.depth--
 	return n, nil

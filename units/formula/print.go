@@ -89,6 +89,20 @@ func writeNode(sb *strings.Builder, n *node, outer int) {
 		sb.WriteString("^(")
 		writeNode(sb, n.args[1], 0)
 		sb.WriteByte(')')
+	case kSolve:
+		sb.WriteString("solve(")
+		sb.WriteString(n.name)
+		sb.WriteString(", ")
+		writeNode(sb, n.args[0], 0)
+		if len(n.args) == 4 {
+			sb.WriteString(" = ")
+			writeNode(sb, n.args[1], 0)
+		}
+		for _, a := range n.args[len(n.args)-2:] {
+			sb.WriteString(", ")
+			writeNode(sb, a, 0)
+		}
+		sb.WriteByte(')')
 	case kCall:
 		sb.WriteString(n.name)
 		sb.WriteByte('(')

@@ -32,7 +32,7 @@ func benchFile(b *testing.B) []byte {
 		series[j] = quantity.NewSeries(v, c.Unit.Dim())
 	}
 	var buf bytes.Buffer
-	w, err := NewWriter(&buf, cols, Options{})
+	w, err := NewWriter(&buf, "t.parquet", cols, Options{})
 	if err != nil {
 		b.Fatal(err)
 	}

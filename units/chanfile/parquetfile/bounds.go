@@ -19,6 +19,7 @@ const (
 	MaxPageBytes   = 64 << 20
 	MaxFooterBytes = 16 << 20
 	maxPageValues  = 1 << 24
+	maxPageHeader  = 1 << 16
 )
 
 // readable lists the compressions read: the ones whose output size the
@@ -50,6 +51,15 @@ func checkFooter(r io.ReaderAt, size int64) error {
 	n := int64(binary.LittleEndian.Uint32(b[:4]))
 	if n > size-12 || n > MaxFooterBytes {
 		return fmt.Errorf("a footer of %d bytes in a file of %d (at most %d read)", n, size, int64(MaxFooterBytes))
+	}
+	footer := make([]byte, n)
+	if _, err := r.ReadAt(footer, size-8-n); err != nil {
+		return err
+	}
+	if k, err := thriftCheck(footer, maxDecodedFooter); err != nil {
+		return fmt.Errorf("the footer: %v", err)
+	} else if k != len(footer) {
+		return fmt.Errorf("the footer: %d bytes after its end", len(footer)-k)
 	}
 	return nil
 }
@@ -83,7 +93,12 @@ func checkPages(r io.ReaderAt, size int64, f *parquet.File) error {
 	if md.EncryptionAlgorithm.Value != nil {
 		return fmt.Errorf("an encrypted file")
 	}
+	var rows int64
 	for g, rg := range md.RowGroups {
+		if rg.NumRows < 0 || rows+rg.NumRows < rows {
+			return fmt.Errorf("row group %d: %d rows", g+1, rg.NumRows)
+		}
+		rows += rg.NumRows
 		for c, cc := range rg.Columns {
 			where := fmt.Sprintf("row group %d, column %d", g+1, c+1)
 			m := cc.MetaData
@@ -104,31 +119,47 @@ func checkPages(r io.ReaderAt, size int64, f *parquet.File) error {
 			if start < 4 || m.TotalCompressedSize <= 0 || end < start || end > size-8 {
 				return fmt.Errorf("%s: a chunk of %d bytes at offset %d, outside the file", where, m.TotalCompressedSize, start)
 			}
-			if err := checkChunk(io.NewSectionReader(r, start, end-start), m.Codec); err != nil {
+			values, err := checkChunk(io.NewSectionReader(r, start, end-start), m.Codec)
+			if err != nil {
 				return fmt.Errorf("%s: %w", where, err)
 			}
+			// Every row has at least one entry in every column.
+			if values < rg.NumRows {
+				return fmt.Errorf("%s: %d rows declared, %d values in the pages", where, rg.NumRows, values)
+			}
 		}
+	}
+	if md.NumRows != rows {
+		return fmt.Errorf("the footer declares %d rows, its row groups %d", md.NumRows, rows)
 	}
 	return nil
 }
 
-// checkChunk walks the pages of one column chunk.
-func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) error {
+// checkChunk walks the pages of one column chunk and returns the number
+// of values its data pages declare.
+func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) (int64, error) {
 	size := sr.Size()
-	cr := &countReader{r: bufio.NewReaderSize(sr, 4096)}
+	cr := &countReader{r: bufio.NewReaderSize(sr, maxPageHeader)}
 	var proto thrift.CompactProtocol
+	var total int64
 	for page := 1; cr.n < size; page++ {
+		// The header is walked before it is decoded: at most 64 KiB,
+		// no string or list longer than that.
+		peek, _ := cr.r.Peek(int(min(size-cr.n, maxPageHeader)))
+		if _, err := thriftCheck(peek, 1<<20); err != nil {
+			return 0, fmt.Errorf("page %d: a damaged page header: %v", page, err)
+		}
 		var h format.PageHeader
-		if err := thrift.NewDecoder(proto.NewReader(io.LimitReader(cr, 1<<16))).Decode(&h); err != nil {
-			return fmt.Errorf("page %d: a damaged page header: %v", page, err)
+		if err := thrift.NewDecoder(proto.NewReader(io.LimitReader(cr, maxPageHeader))).Decode(&h); err != nil {
+			return 0, fmt.Errorf("page %d: a damaged page header: %v", page, err)
 		}
 		comp, unc := int64(h.CompressedPageSize), int64(h.UncompressedPageSize)
 		if comp < 0 || unc < 0 || comp > MaxPageBytes || unc > MaxPageBytes {
-			return fmt.Errorf("page %d: %d bytes compressed, %d uncompressed (at most %d read)", page, comp, unc, int64(MaxPageBytes))
+			return 0, fmt.Errorf("page %d: %d bytes compressed, %d uncompressed (at most %d read)", page, comp, unc, int64(MaxPageBytes))
 		}
 		body := cr.n
 		if body+comp > size {
-			return fmt.Errorf("page %d: %d bytes that run past the chunk's end", page, comp)
+			return 0, fmt.Errorf("page %d: %d bytes that run past the chunk's end", page, comp)
 		}
 		var values int64
 		data := body // where the compressed data start
@@ -136,14 +167,16 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) error {
 		switch {
 		case h.DataPageHeader.Valid:
 			values = int64(h.DataPageHeader.V.NumValues)
+			total += max(values, 0)
 		case h.DictionaryPageHeader.Valid:
 			values = int64(h.DictionaryPageHeader.V.NumValues)
 		case h.DataPageHeaderV2.Valid:
 			v := h.DataPageHeaderV2.V
 			values = int64(v.NumValues)
+			total += max(values, 0)
 			lv := int64(v.DefinitionLevelsByteLength) + int64(v.RepetitionLevelsByteLength)
 			if v.DefinitionLevelsByteLength < 0 || v.RepetitionLevelsByteLength < 0 || lv > comp {
-				return fmt.Errorf("page %d: level lengths outside the page", page)
+				return 0, fmt.Errorf("page %d: level lengths outside the page", page)
 			}
 			data += lv
 			if v.IsCompressed.Valid && !v.IsCompressed.V {
@@ -151,7 +184,7 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) error {
 			}
 		}
 		if values < 0 || values > maxPageValues {
-			return fmt.Errorf("page %d: %d values (at most %d read)", page, values, maxPageValues)
+			return 0, fmt.Errorf("page %d: %d values (at most %d read)", page, values, maxPageValues)
 		}
 		if compressed && data < body+comp {
 			n := body + comp - data
@@ -162,36 +195,46 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) error {
 				// The block starts with its decoded length, a varint.
 				var head [binary.MaxVarintLen64]byte
 				if _, err := sr.ReadAt(head[:min(n, int64(len(head)))], data); err != nil {
-					return fmt.Errorf("page %d: %v", page, err)
+					return 0, fmt.Errorf("page %d: %v", page, err)
 				}
 				u, k := binary.Uvarint(head[:min(n, int64(len(head)))])
 				if k <= 0 {
-					return fmt.Errorf("page %d: a damaged snappy block", page)
+					return 0, fmt.Errorf("page %d: a damaged snappy block", page)
 				}
 				out = int64(min(u, 1<<62))
+				if out > unc {
+					return 0, fmt.Errorf("page %d: a snappy block that declares %d bytes, in a page of %d uncompressed", page, out, unc)
+				}
 			case format.Zstd:
-				out, err = zstdBound(io.NewSectionReader(sr, data, n), n)
+				var declared int64
+				out, declared, err = zstdBound(io.NewSectionReader(sr, data, n), n)
+				if err == nil && declared > unc {
+					return 0, fmt.Errorf("page %d: zstd frames that declare %d bytes, in a page of %d uncompressed", page, declared, unc)
+				}
 			}
 			if err != nil {
-				return fmt.Errorf("page %d: %v", page, err)
+				return 0, fmt.Errorf("page %d: %v", page, err)
 			}
 			if out > MaxPageBytes {
-				return fmt.Errorf("page %d: decompresses to as much as %d bytes (at most %d read)", page, out, int64(MaxPageBytes))
+				return 0, fmt.Errorf("page %d: decompresses to as much as %d bytes (at most %d read)", page, out, int64(MaxPageBytes))
 			}
 		}
 		if _, err := cr.r.Discard(int(comp)); err != nil {
-			return fmt.Errorf("page %d: %v", page, err)
+			return 0, fmt.Errorf("page %d: %v", page, err)
 		}
 		cr.n += comp
 	}
-	return nil
+	return total, nil
 }
 
 // zstdBound returns an upper bound on the bytes that the zstd frames in r
 // (n bytes) decode to, from the frame and block headers (RFC 8878 §3.1):
 // a raw or RLE block gives its size, a compressed block at most 128 KiB.
-func zstdBound(r *io.SectionReader, n int64) (int64, error) {
-	var out, pos int64
+// It also returns the content size the frame headers declare, which the
+// decoder allocates at once, and refuses a frame whose declared content
+// or window is larger than MaxPageBytes, or that needs a dictionary.
+func zstdBound(r *io.SectionReader, n int64) (out, declared int64, err error) {
+	var pos int64
 	var b [18]byte
 	read := func(k int) ([]byte, error) {
 		if pos+int64(k) > n {
@@ -205,52 +248,82 @@ func zstdBound(r *io.SectionReader, n int64) (int64, error) {
 	}
 	for frames := 0; pos < n; frames++ {
 		if frames > 1<<16 {
-			return 0, fmt.Errorf("too many zstd frames")
+			return 0, 0, fmt.Errorf("too many zstd frames")
 		}
 		m, err := read(4)
 		if err != nil {
-			return 0, err
+			return 0, 0, err
 		}
 		magic := binary.LittleEndian.Uint32(m)
 		if magic&0xFFFFFFF0 == 0x184D2A50 { // a skippable frame
 			s, err := read(4)
 			if err != nil {
-				return 0, err
+				return 0, 0, err
 			}
 			pos += int64(binary.LittleEndian.Uint32(s))
 			continue
 		}
 		if magic != 0xFD2FB528 {
-			return 0, fmt.Errorf("not a zstd frame")
+			return 0, 0, fmt.Errorf("not a zstd frame")
 		}
 		d, err := read(1)
 		if err != nil {
-			return 0, err
+			return 0, 0, err
 		}
 		fd := d[0]
 		single := fd&0x20 != 0
 		checksum := fd&0x04 != 0
-		skip := int64([]int{0, 1, 2, 4}[fd&3]) // dictionary ID
-		if !single {
-			skip++ // window descriptor
+		if fd&3 != 0 {
+			return 0, 0, fmt.Errorf("a zstd frame that needs a dictionary")
 		}
-		switch fd >> 6 { // frame content size
+		if !single {
+			w, err := read(1)
+			if err != nil {
+				return 0, 0, err
+			}
+			// Window_Descriptor: 2^(10+exponent) plus mantissa eighths.
+			base := int64(1) << (10 + w[0]>>3)
+			if window := base + base/8*int64(w[0]&7); window > MaxPageBytes {
+				return 0, 0, fmt.Errorf("a zstd window of %d bytes (at most %d read)", window, int64(MaxPageBytes))
+			}
+		}
+		var fcs uint64
+		switch fd >> 6 { // Frame_Content_Size
 		case 0:
 			if single {
-				skip++
+				c, err := read(1)
+				if err != nil {
+					return 0, 0, err
+				}
+				fcs = uint64(c[0])
 			}
 		case 1:
-			skip += 2
+			c, err := read(2)
+			if err != nil {
+				return 0, 0, err
+			}
+			fcs = uint64(binary.LittleEndian.Uint16(c)) + 256
 		case 2:
-			skip += 4
+			c, err := read(4)
+			if err != nil {
+				return 0, 0, err
+			}
+			fcs = uint64(binary.LittleEndian.Uint32(c))
 		case 3:
-			skip += 8
+			c, err := read(8)
+			if err != nil {
+				return 0, 0, err
+			}
+			fcs = binary.LittleEndian.Uint64(c)
 		}
-		pos += skip
+		if fcs > MaxPageBytes || declared+int64(fcs) > MaxPageBytes {
+			return 0, 0, fmt.Errorf("a zstd frame that declares %d bytes of content (at most %d read)", fcs, int64(MaxPageBytes))
+		}
+		declared += int64(fcs)
 		for last := false; !last; {
 			h, err := read(3)
 			if err != nil {
-				return 0, err
+				return 0, 0, err
 			}
 			v := uint32(h[0]) | uint32(h[1])<<8 | uint32(h[2])<<16
 			last = v&1 != 0
@@ -266,15 +339,184 @@ func zstdBound(r *io.SectionReader, n int64) (int64, error) {
 				out += 128 << 10
 				pos += size
 			default:
-				return 0, fmt.Errorf("a reserved zstd block type")
+				return 0, 0, fmt.Errorf("a reserved zstd block type")
 			}
 			if out > MaxPageBytes {
-				return out, nil
+				return out, declared, nil
 			}
 		}
 		if checksum {
 			pos += 4
 		}
 	}
-	return out, nil
+	return out, declared, nil
+}
+
+// maxDecodedFooter bounds what the footer may decode to, counting every
+// element of a list at the size of the largest footer structure
+// (structCost): about 250 000 column chunks.
+const (
+	maxDecodedFooter = 256 << 20
+	structCost       = 1024 // the bytes a decoded struct may take (a column chunk takes 560)
+	maxThriftDepth   = 32
+)
+
+// thriftCheck walks one Thrift compact-protocol struct at the start of b
+// (the Apache Thrift compact protocol) without decoding it, and returns its length in bytes. It refuses a string,
+// list, set or map that declares more elements or bytes than b has left
+// (each element takes at least one byte), nesting deeper than
+// maxThriftDepth, and lists whose elements, each counted at structCost
+// bytes for a struct and 24 otherwise, come to more than budget bytes:
+// the decoder allocates what a header declares before it reads it.
+func thriftCheck(b []byte, budget int64) (int, error) {
+	w := thriftWalker{b: b, budget: budget, limit: budget}
+	if err := w.value(12, 0); err != nil {
+		return 0, err
+	}
+	return w.pos, nil
+}
+
+type thriftWalker struct {
+	b      []byte
+	pos    int
+	budget int64 // bytes left to decode to
+	limit  int64 // the budget at the start
+}
+
+func (w *thriftWalker) byte() (byte, error) {
+	if w.pos >= len(w.b) {
+		return 0, fmt.Errorf("a truncated Thrift structure")
+	}
+	c := w.b[w.pos]
+	w.pos++
+	return c, nil
+}
+
+func (w *thriftWalker) uvarint() (uint64, error) {
+	v, k := binary.Uvarint(w.b[w.pos:])
+	if k <= 0 {
+		return 0, fmt.Errorf("a damaged Thrift varint")
+	}
+	w.pos += k
+	return v, nil
+}
+
+func (w *thriftWalker) skip(n uint64, what string) error {
+	if n > uint64(len(w.b)-w.pos) {
+		return fmt.Errorf("a %s of %d bytes, where %d are left", what, n, len(w.b)-w.pos)
+	}
+	w.pos += int(n)
+	return nil
+}
+
+// elements checks a container of n elements of type t.
+func (w *thriftWalker) elements(n uint64, t byte) error {
+	if n > uint64(len(w.b)-w.pos) {
+		return fmt.Errorf("a list of %d elements, where %d bytes are left", n, len(w.b)-w.pos)
+	}
+	cost := int64(24)
+	if t == 12 {
+		cost = structCost
+	}
+	w.budget -= int64(n) * cost
+	if w.budget < 0 {
+		return fmt.Errorf("lists whose elements would decode to more than %d bytes", w.limit)
+	}
+	return nil
+}
+
+// value walks one value of compact type t (a boolean element of a
+// container, which takes a byte, is walked by the caller).
+func (w *thriftWalker) value(t byte, depth int) error {
+	if depth > maxThriftDepth {
+		return fmt.Errorf("structures nested deeper than %d in Thrift", maxThriftDepth)
+	}
+	switch t {
+	case 1, 2: // a boolean field: the value is in the type
+		return nil
+	case 3: // byte
+		return w.skip(1, "byte")
+	case 4, 5, 6: // i16, i32, i64: zigzag varints
+		_, err := w.uvarint()
+		return err
+	case 7: // double
+		return w.skip(8, "double")
+	case 8: // binary
+		n, err := w.uvarint()
+		if err != nil {
+			return err
+		}
+		return w.skip(n, "string")
+	case 9, 10: // list, set
+		h, err := w.byte()
+		if err != nil {
+			return err
+		}
+		n, et := uint64(h>>4), h&0x0f
+		if n == 15 {
+			if n, err = w.uvarint(); err != nil {
+				return err
+			}
+		}
+		if err := w.elements(n, et); err != nil {
+			return err
+		}
+		for range n {
+			if et == 1 || et == 2 { // a boolean element takes a byte
+				if err := w.skip(1, "boolean"); err != nil {
+					return err
+				}
+				continue
+			}
+			if err := w.value(et, depth+1); err != nil {
+				return err
+			}
+		}
+		return nil
+	case 11: // map
+		n, err := w.uvarint()
+		if err != nil || n == 0 {
+			return err
+		}
+		kv, err := w.byte()
+		if err != nil {
+			return err
+		}
+		if err := w.elements(2*n, 12); err != nil {
+			return err
+		}
+		for range n {
+			for _, et := range []byte{kv >> 4, kv & 0x0f} {
+				if et == 1 || et == 2 {
+					if err := w.skip(1, "boolean"); err != nil {
+						return err
+					}
+					continue
+				}
+				if err := w.value(et, depth+1); err != nil {
+					return err
+				}
+			}
+		}
+		return nil
+	case 12: // struct: fields to a stop byte
+		for {
+			h, err := w.byte()
+			if err != nil {
+				return err
+			}
+			if h == 0 {
+				return nil
+			}
+			if h>>4 == 0 { // a long-form field id follows
+				if _, err := w.uvarint(); err != nil {
+					return err
+				}
+			}
+			if err := w.value(h&0x0f, depth+1); err != nil {
+				return err
+			}
+		}
+	}
+	return fmt.Errorf("a Thrift value of unknown type %d", t)
 }

@@ -18,7 +18,7 @@ func ExampleNewWriter() {
 	v, _ := chanfile.ParseHeaderField("V [kn]")
 	r, _ := chanfile.ParseHeaderField("R_T [N]")
 	var file bytes.Buffer
-	w, err := parquetfile.NewWriter(&file, []chanfile.Column{v, r}, parquetfile.Options{})
+	w, err := parquetfile.NewWriter(&file, "run.parquet", []chanfile.Column{v, r}, parquetfile.Options{})
 	if err != nil {
 		fmt.Println(err)
 		return

@@ -62,7 +62,7 @@ func readAll(t tb, b []byte, opt Options) ([]chanfile.Column, [][]float64, error
 func write(t tb, cols []chanfile.Column, opt Options, s ...quantity.Series) []byte {
 	t.Helper()
 	var buf bytes.Buffer
-	w, err := NewWriter(&buf, cols, opt)
+	w, err := NewWriter(&buf, "t.parquet", cols, opt)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -242,21 +242,24 @@ func TestForeignFiles(t *testing.T) {
 		R []float64 `parquet:"R [m]"`
 	}
 	for _, c := range []struct {
-		name string
-		b    []byte
-		want string
+		name  string
+		b     []byte
+		want  string
+		class error
 	}{
-		{"string", foreign(t, []text{{"a"}}), "physical type"},
-		{"decimal", foreign(t, []dec{{12}}), "not the value in its unit"},
-		{"timestamp", foreign(t, []ts{{12}}), "not the value in its unit"},
-		{"repeated", foreign(t, []rep{{[]float64{1}}}), "repeated"},
-		{"bad unit", foreign(t, []bare{{1}}, UnitKey+"V", "furlongs"), "not a unit"},
-		{"bracket unit", foreign(t, []bare{{1}}, UnitKey+"V", "m] [s"), "brackets"},
-		{"infinite", foreign(t, []bare{{math.Inf(1)}}, UnitKey+"V", "m"), "infinite"},
+		{"string", foreign(t, []text{{"a"}}), "physical type", quantity.ErrParse},
+		{"decimal", foreign(t, []dec{{12}}), "not the value in its unit", quantity.ErrParse},
+		{"timestamp", foreign(t, []ts{{12}}), "not the value in its unit", quantity.ErrParse},
+		{"repeated", foreign(t, []rep{{[]float64{1}}}), "repeated", quantity.ErrParse},
+		{"bad unit", foreign(t, []bare{{1}}, UnitKey+"V", "furlongs"), "not a unit", quantity.ErrUnknown},
+		{"bracket unit", foreign(t, []bare{{1}}, UnitKey+"V", "m] [s"), "brackets", quantity.ErrParse},
+		{"infinite", foreign(t, []bare{{math.Inf(1)}}, UnitKey+"V", "m"), "infinite", quantity.ErrRange},
+		{"overflow in SI", foreign(t, []bare{{1e308}}, UnitKey+"V", "km"), "beyond the range of float64 in SI", quantity.ErrRange},
+		{"underflow in SI", foreign(t, []bare{{1e-320}}, UnitKey+"V", "nm"), "beyond the range of float64 in SI", quantity.ErrRange},
 	} {
 		_, _, err := readAll(t, c.b, Options{})
 		var pe *Error
-		if !errors.As(err, &pe) || !errors.Is(err, quantity.ErrParse) || !strings.Contains(err.Error(), c.want) || pe.Column != 1 {
+		if !errors.As(err, &pe) || !errors.Is(err, c.class) || classCount(err) != 1 || !strings.Contains(err.Error(), c.want) || pe.Column != 1 {
 			t.Errorf("%s: err = %v, want an *Error on column 1 saying %q", c.name, err, c.want)
 		}
 	}
@@ -287,24 +290,36 @@ func TestDamaged(t *testing.T) {
 func TestWriterRefuses(t *testing.T) {
 	var buf bytes.Buffer
 	g := col("P", "psig")
-	if _, err := NewWriter(&buf, []chanfile.Column{g}, Options{}); err == nil {
+	if _, err := NewWriter(&buf, "t.parquet", []chanfile.Column{g}, Options{}); err == nil {
 		t.Errorf("gauge column accepted")
 	}
-	if _, err := NewWriter(&buf, []chanfile.Column{col("V", "m/s"), col("V", "kn")}, Options{}); err == nil {
+	if _, err := NewWriter(&buf, "t.parquet", []chanfile.Column{col("V", "m/s"), col("V", "kn")}, Options{}); err == nil {
 		t.Errorf("duplicate column accepted")
 	}
-	if _, err := NewWriter(&buf, nil, Options{}); err == nil {
+	if _, err := NewWriter(&buf, "t.parquet", nil, Options{}); err == nil {
 		t.Errorf("no columns accepted")
 	}
-	w, err := NewWriter(&buf, []chanfile.Column{col("V", "m/s")}, Options{})
+	w, err := NewWriter(&buf, "t.parquet", []chanfile.Column{col("V", "m/s")}, Options{})
 	if err != nil {
 		t.Fatal(err)
 	}
 	if err := w.Write([]quantity.Series{quantity.NewSeries([]float64{1}, quantity.Length)}); !errors.Is(err, quantity.ErrDimension) {
 		t.Errorf("length for velocity: err = %v", err)
 	}
-	if err := w.Write([]quantity.Series{quantity.NewSeries([]float64{math.Inf(1)}, quantity.Velocity)}); err == nil || !strings.Contains(err.Error(), "row 1") {
+	if err := w.Write([]quantity.Series{quantity.NewSeries([]float64{math.Inf(1)}, quantity.Velocity)}); err == nil || !strings.Contains(err.Error(), "row 1") || !errors.Is(err, quantity.ErrRange) {
 		t.Errorf("infinite value: err = %v", err)
+	}
+	// 1e308 m is 1e311 mm, beyond float64: it would be stored +Inf.
+	w, err = NewWriter(&buf, "t.parquet", []chanfile.Column{col("V", "m/s"), col("L", "mm")}, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	err = w.Write([]quantity.Series{quantity.NewSeries([]float64{1, 2}, quantity.Velocity), quantity.NewSeries([]float64{1, 1e308}, quantity.Length)})
+	if !errors.Is(err, quantity.ErrRange) || !strings.Contains(err.Error(), `t.parquet: row 2: column 2 "L": 1e+308 in SI is beyond the range of float64 in mm`) {
+		t.Errorf("overflow in the column's unit: err = %v", err)
+	}
+	if _, err := NewWriter(&buf, "t.parquet", []chanfile.Column{{Name: "V\xff", Unit: units.MustParse("m")}}, Options{}); !errors.Is(err, quantity.ErrInvalid) {
+		t.Errorf("a name not valid UTF-8: err = %v", err)
 	}
 }
 
@@ -312,7 +327,7 @@ func TestWriterRefuses(t *testing.T) {
 func FuzzReader(f *testing.F) {
 	c := col("V", "kn")
 	var buf bytes.Buffer
-	w, _ := NewWriter(&buf, []chanfile.Column{c, col("Re", "1")}, Options{RowGroupRows: 2})
+	w, _ := NewWriter(&buf, "t.parquet", []chanfile.Column{c, col("Re", "1")}, Options{RowGroupRows: 2})
 	w.Write([]quantity.Series{quantity.NewSeries([]float64{1, 2, math.NaN()}, quantity.Velocity), quantity.NewSeries([]float64{1, 2, 3}, quantity.Dimensionless)})
 	w.Close()
 	f.Add(buf.Bytes())

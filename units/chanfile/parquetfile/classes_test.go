@@ -1,0 +1,18 @@
+package parquetfile
+
+import (
+	"errors"
+
+	"similis.dev/similis/quantity"
+)
+
+// classCount counts the error classes of package quantity that err matches.
+func classCount(err error) int {
+	n := 0
+	for _, c := range []error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid} {
+		if errors.Is(err, c) {
+			n++
+		}
+	}
+	return n
+}

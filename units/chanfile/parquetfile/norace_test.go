@@ -1,0 +1,4 @@
+package parquetfile
+
+// raceEnabled reports a build with the race detector.
+var raceEnabled bool

@@ -1,0 +1,5 @@
+//go:build race
+
+package parquetfile
+
+func init() { raceEnabled = true }
