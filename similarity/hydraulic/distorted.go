@@ -42,7 +42,7 @@ type DistortedScales struct {
 // acceleration), t (time) and Q (volume flow rate); the basis of
 // DerivedRatio is V, x.
 func DistortedFroude(sc DistortedScales) (Distorted, error) {
-	if err := checkRatios("DistortedFroude", "horizontal length", sc.Horizontal, "vertical length", sc.Vertical); err != nil {
+	if err := checkRatios("distorted Froude scales", "horizontal length", sc.Horizontal, "vertical length", sc.Vertical); err != nil {
 		return Distorted{}, err
 	}
 	horizontal, vertical := sc.Horizontal, sc.Vertical
@@ -68,7 +68,7 @@ func DistortedFroude(sc DistortedScales) (Distorted, error) {
 		Slope: vertical / horizontal, Manning: math.Pow(vertical, 2.0/3) / math.Sqrt(horizontal),
 		solution: s,
 	}
-	if err := checkRatios("DistortedFroude", "area", d.Area, "slope", d.Slope, "Manning's n", d.Manning, "distortion", d.Distortion); err != nil {
+	if err := checkRatios("distorted Froude scales", "area", d.Area, "slope", d.Slope, "Manning's n", d.Manning, "distortion", d.Distortion); err != nil {
 		return Distorted{}, err
 	}
 	return d, nil
@@ -81,11 +81,11 @@ func (d Distorted) Solution() *similarity.Solution { return d.solution }
 // undistorted Froude model, λ_n = λ_L^(1/6): from V = R^(2/3)·S^(1/2)/n
 // with λ_V = λ_L^(1/2), λ_R = λ_L and λ_S = 1.
 func ManningRatio(lengthRatio float64) (float64, error) {
-	if err := checkRatios("ManningRatio", "length", lengthRatio); err != nil {
+	if err := checkRatios("Manning ratio", "length", lengthRatio); err != nil {
 		return 0, err
 	}
 	r := math.Pow(lengthRatio, 1.0/6)
-	return r, checkRatios("ManningRatio", "Manning's n", r)
+	return r, checkRatios("Manning ratio", "Manning's n", r)
 }
 
 // ratioValues returns the values of the ratios of the given variables.

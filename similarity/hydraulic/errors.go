@@ -13,7 +13,7 @@ import (
 // it cannot use, a value outside the range of the procedure, or a result
 // out of the range of a float64. It is the package's one error type.
 type Error struct {
-	Op     string // the procedure, named as in its function
+	Op     string // the procedure, in words: "Shields parameter"
 	Input  string // the input or result concerned, if one is
 	Class  error  // one of quantity.ErrDimension, ErrRange, ErrParse, ErrUnknown, ErrInvalid
 	Reason string // what was wrong, in words

@@ -63,7 +63,7 @@ func TestFinderErrorIsTunnels(t *testing.T) {
 	_, err := tunnel.FindCondition(fluids.Air(), std, q.New(100, q.Velocity), q.New(2, q.Length), -0.1, lim)
 	var te *tunnel.Error
 	var pe *similarity.PlanError
-	if !errors.As(err, &te) || errors.As(err, &pe) || te.Op != "FindCondition" || te.Input != "length ratio" || !errors.Is(err, q.ErrRange) {
+	if !errors.As(err, &te) || errors.As(err, &pe) || te.Op != "tunnel condition" || te.Input != "length ratio" || !errors.Is(err, q.ErrRange) {
 		t.Errorf("negative length ratio: %v", err)
 	}
 }

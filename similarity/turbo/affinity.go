@@ -38,7 +38,7 @@ type AffinityScales struct {
 // (specific energy), P (power), N (rotational speed), D (diameter) and
 // rho (density). Efficiency is taken equal; see MoodyStepUp.
 func AffinityLaws(sc AffinityScales) (Affinity, error) {
-	if err := checkRatios("AffinityLaws", "rotational speed", sc.RotationalSpeed, "diameter", sc.Diameter, "density", sc.Density); err != nil {
+	if err := checkRatios("affinity laws", "rotational speed", sc.RotationalSpeed, "diameter", sc.Diameter, "density", sc.Density); err != nil {
 		return Affinity{}, err
 	}
 	speedRatio, diameterRatio, densityRatio := sc.RotationalSpeed, sc.Diameter, sc.Density
@@ -61,7 +61,7 @@ func AffinityLaws(sc AffinityScales) (Affinity, error) {
 	a := Affinity{RotationalSpeed: speedRatio, Diameter: diameterRatio, Density: densityRatio, Flow: v[0], Head: v[1], Power: v[2]}
 	a.Torque = a.Power / a.RotationalSpeed
 	a.Pressure = a.Density * a.Head
-	if err := checkRatios("AffinityLaws", "torque", a.Torque, "pressure", a.Pressure); err != nil {
+	if err := checkRatios("affinity laws", "torque", a.Torque, "pressure", a.Pressure); err != nil {
 		return Affinity{}, err
 	}
 	return a, nil
