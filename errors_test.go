@@ -112,15 +112,14 @@ func TestErrorVocabularyWrapped(t *testing.T) {
 	}
 	foreign := oset.Groups()
 	var (
-		parseErr   *units.ParseError
-		dimErr     *quantity.DimensionError
-		convErr    *units.ConversionError
-		planErr    *similarity.PlanError
-		rangeErr   *units.RangeError
-		ratErr     *quantity.RatError
-		defineErr  *units.DefineError
-		valueErr   *units.ValueError
-		conflictEr *similarity.ConflictError
+		parseErr  *units.ParseError
+		dimErr    *quantity.DimensionError
+		convErr   *units.ConversionError
+		planErr   *similarity.PlanError
+		rangeErr  *units.RangeError
+		ratErr    *quantity.RatError
+		defineErr *units.DefineError
+		valueErr  *units.ValueError
 	)
 	cases := []struct {
 		name  string
@@ -151,7 +150,7 @@ func TestErrorVocabularyWrapped(t *testing.T) {
 		{"NewReport unit", one(similarity.NewReport(sol, similarity.ReportOptions{Prototype: proto, Units: map[string]string{"V": "kn^"}})), "parse", &parseErr},
 		{"HoldExps MinInt64", one(similarity.NewPlan(p).HoldExps("x", map[string]int{"V": math.MinInt64}).Solve()), "range", &ratErr},
 		{"Plan conflict", one(similarity.NewPlan(p).HoldExps("Fr", map[string]int{"V": 2, "g": -1, "L": -1}).
-			SameGravity("g").Fix("L", 0.04).Fix("V", 0.5).Solve()), "conflict", &conflictEr},
+			SameGravity("g").Fix("L", 0.04).Fix("V", 0.5).Solve()), "conflict", &planErr},
 		{"Table.Parse unknown", one(units.NewTable().Parse("div/s")), "unknown", &parseErr},
 		{"Table.ParseValue unit", one(units.NewTable().ParseValue("3 m^")), "parse", &parseErr},
 		{"ParseGauge unknown unit", one(units.ParseGauge("40 furlong(g)")), "unknown", &parseErr},

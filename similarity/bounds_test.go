@@ -35,8 +35,8 @@ func TestConflictBounded(t *testing.T) {
 	start := time.Now()
 	_, err := pl.Solve()
 	elapsed := time.Since(start)
-	var ce *similarity.ConflictError
-	if !errors.As(err, &ce) {
+	ce := similarity.ConflictOf(err)
+	if ce == nil {
 		t.Fatalf("Solve: %v", err)
 	}
 	if len(ce.Constraints) != 5 {

@@ -12,11 +12,14 @@ import (
 	"similis.dev/similis/similarity/fluids"
 )
 
-// ErrConflict is wrapped by every *ConflictError.
+// ErrConflict is the class of a *PlanError reporting requirements that
+// cannot all hold; its Conflict says which and how to resolve it.
 var ErrConflict = errors.New("requirements conflict")
 
-// ConflictError reports requirements that cannot all hold.
-type ConflictError struct {
+// Conflict is a set of requirements that cannot all hold, as the
+// *PlanError of class ErrConflict that Solve returns carries it; ConflictOf
+// gets it from an error.
+type Conflict struct {
 	// Constraints is an irreducible conflicting set, in words: drop any
 	// one of them and the rest can hold.
 	Constraints []string
@@ -89,19 +92,31 @@ func (o Outcome) String() string {
 	return o.Label + " = " + o.Ratio.String()
 }
 
-// Error implements the error interface.
-func (e *ConflictError) Error() string {
+// String says what the conflict forces and, for each remedy, what
+// dropping its requirement gives.
+func (c *Conflict) String() string {
 	var sb strings.Builder
-	sb.WriteString("similarity: requirements conflict: ")
-	sb.WriteString(e.Summary)
-	for _, r := range e.Remedies {
+	sb.WriteString(c.Summary)
+	for _, r := range c.Remedies {
 		fmt.Fprintf(&sb, "; %s", r)
 	}
 	return sb.String()
 }
 
-// Unwrap returns ErrConflict.
-func (e *ConflictError) Unwrap() error { return ErrConflict }
+// ConflictOf returns the Conflict an error reports, or nil when it
+// reports none.
+func ConflictOf(err error) *Conflict {
+	var pe *PlanError
+	if errors.As(err, &pe) {
+		return pe.Conflict
+	}
+	return nil
+}
+
+// conflictError returns the *PlanError of class ErrConflict reporting c.
+func conflictError(c *Conflict) *PlanError {
+	return &PlanError{Op: "Solve", Class: ErrConflict, Reason: "requirements conflict: " + c.String(), Conflict: c}
+}
 
 // conflict finds the smallest conflicting subset and the remedies.
 func (pl *Plan) conflict() error {
@@ -122,10 +137,10 @@ func (pl *Plan) conflict() error {
 			k++
 		}
 	}
-	e := &ConflictError{}
+	e := &Conflict{}
 	if minimal == nil {
 		e.Summary = "the requirements are inconsistent"
-		return e
+		return conflictError(e)
 	}
 	var held, same, fixes []string
 	var fixIdx []int
@@ -220,7 +235,7 @@ func (pl *Plan) conflict() error {
 		}
 		e.Remedies = append(e.Remedies, r)
 	}
-	return e
+	return conflictError(e)
 }
 
 func joinAnd(s []string) string {

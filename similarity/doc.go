@@ -8,8 +8,8 @@
 // ratio is a Law, a product of rational powers of the free ratios
 // (Froude scaling in the same fluid gives λ_V = λ_L^(1/2), λ_P =
 // λ_L^(7/2)), and only then are numbers put in. Requirements that cannot
-// all hold give a *ConflictError with an irreducible conflicting set and
-// the remedies; Compromise holds groups in priority order and reports the
+// all hold give an error of class ErrConflict whose Conflict (ConflictOf)
+// is an irreducible conflicting set with the remedies; Compromise holds groups in priority order and reports the
 // rest as floating. DerivedRatio gives any quantity's ratio from its
 // dimension; ToPrototype, ToModel and the Series forms carry measured
 // values across; NewReport prints a plan. The rules of similitude
@@ -29,9 +29,8 @@
 //   - similarity/hydraulic: hydraulic models — distorted Froude models,
 //     Manning's n, free-surface scale-effect limits, sediment.
 //
-// Errors are a *PlanError (class quantity.ErrUnknown, ErrRange,
-// ErrDimension or ErrInvalid, with its cause) or a *ConflictError (class
-// ErrConflict). A plan has at most MaxRequirements requirements; a
+// Every error is a *PlanError: its operation, input, class (quantity.ErrUnknown,
+// ErrRange, ErrDimension, ErrInvalid, or ErrConflict) and cause. A plan has at most MaxRequirements requirements; a
 // conflict is isolated in at most k + 1 further solves. Every ratio and
 // transferred value is finite, or the call returns an error.
 //

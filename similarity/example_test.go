@@ -38,7 +38,7 @@ func ExamplePlan_Solve() {
 		HoldExps("the Reynolds number", map[string]int{"rho": 1, "V": 1, "L": 1, "mu": -1}).
 		SameFluid("rho", "mu").SameGravity("g").Fix("L", 1.0/25).
 		Solve()
-	ce := err.(*similarity.ConflictError)
+	ce := similarity.ConflictOf(err)
 	fmt.Println(ce.Summary)
 	for _, r := range ce.Remedies {
 		fmt.Println(r)
@@ -74,7 +74,7 @@ func ExampleNewReport_conflict() {
 		HoldExps("the Reynolds number", map[string]int{"rho": 1, "V": 1, "L": 1, "mu": -1}).
 		SameFluid("rho", "mu").SameGravity("g").Fix("L", 1.0/25).
 		Solve()
-	ce := err.(*similarity.ConflictError)
+	ce := similarity.ConflictOf(err)
 	r, err := similarity.NewReport(nil, similarity.ReportOptions{Title: "Hull 1:25", Conflict: ce,
 		Prototype: map[string]quantity.Quantity{"rho": quantity.New(1025, quantity.Density), "mu": quantity.New(1.22e-3, quantity.DynamicViscosity)}})
 	if err != nil {

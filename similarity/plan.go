@@ -70,15 +70,18 @@ var (
 	ErrPlan             = errors.New("plan cannot be solved as built")
 )
 
-// PlanError reports a plan built or used wrongly: an unknown symbol, a
-// ratio that is not positive and finite, a group of another problem. It
-// is the core's one error type besides *ConflictError.
+// PlanError reports a plan built or used wrongly — an unknown symbol, a
+// ratio that is not positive and finite, a group of another problem — or
+// requirements that cannot all hold. It is the core's one error type.
 type PlanError struct {
 	Op     string // the method or step, "Ratio", "Hold", "report"
 	Symbol string // the variable or group concerned (the input), if one is
-	Class  error  // quantity.ErrUnknown, ErrRange, ErrDimension or ErrInvalid
+	Class  error  // quantity.ErrUnknown, ErrRange, ErrDimension, ErrInvalid, or ErrConflict
 	Reason string // what was wrong, in words
 	Err    error  // the cause: one of the Err… kinds above, or another package's error
+	// Conflict is the irreducible conflicting set and its remedies when
+	// Class is ErrConflict, and nil otherwise.
+	Conflict *Conflict
 }
 
 // Error implements the error interface.

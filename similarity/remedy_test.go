@@ -54,8 +54,8 @@ func TestRemedyStatesNamedGroup(t *testing.T) {
 		}
 		rep := fr.String() + ", " + re.String()
 		_, err = similarity.NewPlan(p).Hold(fr).Hold(re).SameFluid("rho", "mu").SameGravity("g").Fix("L", 1.0/16).Solve()
-		var ce *similarity.ConflictError
-		if !errors.As(err, &ce) {
+		ce := similarity.ConflictOf(err)
+		if ce == nil {
 			t.Fatalf("no conflict: %v", err)
 		}
 		got := map[string]similarity.GroupRatio{}
@@ -147,14 +147,14 @@ func TestReportRefusesForeignGroup(t *testing.T) {
 
 // conflictShip is the classic conflict: Fr and Re held for a 1:16 model in
 // the same water and gravity (common practice).
-func conflictShip(t *testing.T) (*pigroups.Problem, *similarity.ConflictError) {
+func conflictShip(t *testing.T) (*pigroups.Problem, *similarity.Conflict) {
 	t.Helper()
 	p := shipProblem()
 	_, err := similarity.NewPlan(p).HoldExps("the Froude number", map[string]int{"V": 2, "g": -1, "L": -1}).
 		HoldExps("the Reynolds number", map[string]int{"rho": 1, "V": 1, "L": 1, "mu": -1}).
 		SameFluid("rho", "mu").SameGravity("g").Fix("L", 1.0/16).Solve()
-	var ce *similarity.ConflictError
-	if !errors.As(err, &ce) {
+	ce := similarity.ConflictOf(err)
+	if ce == nil {
 		t.Fatalf("no conflict: %v", err)
 	}
 	return p, ce
@@ -222,7 +222,7 @@ func TestRemedyFacilityNotes(t *testing.T) {
 	_, err := similarity.NewPlan(shipProblem()).HoldExps("the Froude number", map[string]int{"V": 2, "g": -1, "L": -1}).
 		HoldExps("the Reynolds number", map[string]int{"rho": 1, "V": 1, "L": 1, "mu": -1}).
 		Fix("rho", 1).Fix("mu", 1).SameGravity("g").Fix("L", 1.0/16).Solve()
-	if !errors.As(err, &ce) {
+	if ce = similarity.ConflictOf(err); ce == nil {
 		t.Fatalf("no conflict: %v", err)
 	}
 	found := false
@@ -247,7 +247,7 @@ func TestRemedyFacilityNotes(t *testing.T) {
 	_, err = similarity.NewPlan(p).HoldExps("the Froude number", map[string]int{"V": 2, "g": -1, "L": -1}).
 		HoldExps("the Reynolds number", map[string]int{"rho": 1, "V": 1, "L": 1, "mu": -1}).
 		FixFluids(tank, sea, "rho", "mu", "").SameGravity("g").Fix("L", 1.0/16).Solve()
-	if !errors.As(err, &ce) {
+	if ce = similarity.ConflictOf(err); ce == nil {
 		t.Fatalf("no conflict: %v", err)
 	}
 	nuSea := sea.DynamicViscosity.Value() / sea.Density.Value()

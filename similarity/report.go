@@ -28,7 +28,7 @@ type ReportOptions struct {
 	// Compromise, if any, adds its floating groups' threshold checks.
 	Compromise *Compromise
 	// Conflict, if any, is reported with its remedies.
-	Conflict *ConflictError
+	Conflict *Conflict
 	// Cautions are added to the standard caution.
 	Cautions []string
 }

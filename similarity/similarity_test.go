@@ -119,8 +119,8 @@ func froudeReynoldsPlan(t *testing.T) *similarity.Plan {
 // (common practice).
 func TestFroudeReynoldsConflict(t *testing.T) {
 	_, err := froudeReynoldsPlan(t).Solve()
-	var ce *similarity.ConflictError
-	if !errors.As(err, &ce) || !errors.Is(err, similarity.ErrConflict) {
+	ce := similarity.ConflictOf(err)
+	if ce == nil || !errors.Is(err, similarity.ErrConflict) {
 		t.Fatalf("Solve: %v", err)
 	}
 	wantSummary := "holding the Froude number and the Reynolds number with the same fluid and the same gravity forces λ_L to 1, against a length scale of 1:25"

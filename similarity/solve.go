@@ -27,7 +27,7 @@ type Solution struct {
 // ratios, same-fluid and same-gravity requirements together).
 const MaxRequirements = 256
 
-// Solve solves the plan exactly. It returns a *ConflictError if the
+// Solve solves the plan exactly. It returns a *PlanError of class ErrConflict, with its Conflict, if the
 // requirements cannot all hold, naming an irreducible conflicting set:
 // every requirement in it is needed for the conflict. Its work is
 // polynomial: about (k + 2)·k solves of a system of k requirements over

@@ -1,7 +1,6 @@
 package main
 
 import (
-	"errors"
 	"fmt"
 	"io"
 
@@ -16,7 +15,7 @@ import (
 // JobResult keeps the whole job's key numbers for the test.
 type JobResult struct {
 	Set        *pigroups.Set
-	Conflict   *similarity.ConflictError
+	Conflict   *similarity.Conflict
 	Compromise *similarity.Compromise
 	NaiveForce q.Quantity // model resistance scaled by λ_F alone
 	// ModelResistance is the invented model reading, from inventedCT.
@@ -78,7 +77,7 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	fmt.Fprintf(w, "\n3. A 1:%g model in the tank's fresh water, the ship in sea water (both 15 °C), holding Fr and Re\n", scale)
 	plan := similarity.NewPlan(p).Hold(fr).Hold(re).FixFluids(tank, sea, "rho", "mu", "").SameGravity("g").Fix("L", 1/scale)
 	_, err = plan.Solve()
-	if !errors.As(err, &res.Conflict) {
+	if res.Conflict = similarity.ConflictOf(err); res.Conflict == nil {
 		return nil, fmt.Errorf("expected a conflict, got %v", err)
 	}
 	fmt.Fprintln(w, "  conflict:", res.Conflict.Summary)
