@@ -18,7 +18,8 @@
 //     describes. WaveResistance gives C_W = C_T − (1 + k)C_F.
 //  3. Temperature. TemperatureCorrection brings a run's C_T from the
 //     tank's water to the standard 15 °C through the friction line, the
-//     wave part unchanged (7.5-02-02-01); 1 ≤ 1 + k ≤ 2.
+//     wave part unchanged (as 7.5-02-02-01 does; from memory);
+//     1 ≤ 1 + k ≤ 2.
 //  4. Blockage. TankBlockage corrects the speed for the tank's section by
 //     the one-dimensional mean-flow theory, m = A_x/(b·h) ≤ 0.1 and below
 //     the choking speed, which it returns; HullTest.WithBlockage applies
@@ -29,7 +30,8 @@
 //     LaminarReynolds or a C_T above MaxPlausibleCT; HullResult.Table
 //     prints it. ExtrapolateHullRun carries one run with the uncertainty
 //     of every input (GUM first order, exact slopes), the budget that
-//     7.5-02-02-02 (uncertainty analysis of the resistance test) asks.
+//     the ITTC's uncertainty analysis of the resistance test
+//     (7.5-02-02-02; from memory) asks.
 //  6. Powering. ITTC1978 predicts the ship's delivered power and
 //     revolutions from the resistance, the open-water curve and the
 //     self-propulsion factors by the ITTC-1978 performance prediction
