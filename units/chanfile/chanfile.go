@@ -512,7 +512,7 @@ func (r *Reader) sniff() ([][]byte, error) {
 			break
 		}
 		b = bytes.TrimSuffix(b, []byte{'\r'})
-		if len(b) == 0 || b[0] == '#' {
+		if len(b) == 0 || r.comment(b) {
 			continue
 		}
 		lines = append(lines, bytes.Clone(b))
@@ -995,6 +995,22 @@ func (r *Reader) number(f []byte) (float64, error) {
 
 var errDecimalPoint = errors.New("a '.' in a number of a file whose decimal mark is ','")
 
+// comment reports whether a line is a comment: it starts with '#',
+// but not with a missing marker such as #N/A followed by a delimiter.
+func (r *Reader) comment(b []byte) bool {
+	if len(b) == 0 || b[0] != '#' {
+		return false
+	}
+	for m := range r.missing {
+		if len(m) > 0 && m[0] == '#' && bytes.HasPrefix(b, []byte(m)) {
+			if len(b) == len(m) || strings.IndexByte(",;\t ", b[len(m)]) >= 0 || b[len(m)] == r.comma {
+				return false
+			}
+		}
+	}
+	return true
+}
+
 // isMissing reports whether f is a missing marker.
 func (r *Reader) isMissing(f []byte) bool {
 	if len(f) > 0 && numStart(f[0]) {
@@ -1034,7 +1050,7 @@ func (r *Reader) next() (bool, error) {
 		r.off += int64(len(b))
 		b = bytes.TrimSuffix(b, []byte{'\n'})
 		b = bytes.TrimSuffix(b, []byte{'\r'})
-		if len(b) == 0 || b[0] == '#' {
+		if len(b) == 0 || r.comment(b) {
 			if err == io.EOF {
 				return false, nil
 			}
