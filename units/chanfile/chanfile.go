@@ -247,9 +247,17 @@ func splitHeader(field string) (name, unit string, err error) {
 			return "", "", &Error{Field: f, Reason: "unbalanced parentheses"}
 		}
 		name, unit = f[:i], f[i+1:len(f)-1]
+		if n := strings.TrimSpace(name); strings.HasSuffix(n, "/") && !strings.ContainsAny(n, " \t") {
+			name = n[:len(n)-1] // Q/(m3/h), quantity/unit
+		}
 	default:
 		i := strings.LastIndexAny(f, " \t")
 		if i < 0 {
+			if j := strings.IndexByte(f, '/'); j > 0 && j < len(f)-1 {
+				// The heading quantity/unit of ISO 80000-1: "V/kn",
+				// "Q/(m3/h)"; the caller checks that the unit is one.
+				return f[:j], unitCell(f[j+1:]), nil
+			}
 			return f, "", nil
 		}
 		name, unit = f[:i], f[i+1:]
@@ -259,6 +267,12 @@ func splitHeader(field string) (name, unit string, err error) {
 		return "", "", &Error{Field: f, Reason: "no channel name before the unit"}
 	}
 	return name, unit, nil
+}
+
+// slashed reports whether a header field was split at a slash
+// (quantity/unit) rather than at brackets or a space.
+func slashed(f string) bool {
+	return !strings.ContainsAny(f, " \t") && !strings.HasSuffix(f, "]") && !strings.HasSuffix(f, ")")
 }
 
 // parseUnit reads c.Text into c.Unit, c.Readings and c.Gauge.
@@ -816,8 +830,21 @@ func (r *Reader) columns(head []string, line int, unitRow []string, sample [][]b
 		if c.Text != "" {
 			unitErr = parseUnit(&c)
 		}
+		if unitErr != nil && unitRow == nil && slashed(s.field) {
+			// "dp/dx": a name with a slash, not quantity/unit.
+			c.Text, unitErr = "", nil
+			if _, aliased := r.opt.Aliases[s.name]; !aliased {
+				c.Name = s.field
+			}
+			if a, ok := r.opt.Aliases[s.field]; ok {
+				c.Name = a
+			}
+		}
 		physical := c.Text != "" && unitErr == nil && c.Unit.Dim() != units.One().Dim()
 		kind, layout := r.kind(s.name, physical, samples[k])
+		if kind == Timestamp && layout < 0 && c.Text != "" && !(unitErr == nil && c.Unit.Dim() == quantity.Time && c.Unit.Factor() == 1 && !c.Gauge) {
+			kind, layout = Number, -2 // an epoch in ms or days: a number in its unit
+		}
 		c.Kind = kind
 		if c.Kind != Number && unitErr != nil {
 			// "Run tag": no unit, the whole field is the name.

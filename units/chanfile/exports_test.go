@@ -258,13 +258,16 @@ func TestExportForms(t *testing.T) {
 	}{
 		{"units in brackets", "V [kn],t [s]\n1,2\n", chanfile.Options{}, [][]float64{{kn}, {2}}, ""},
 		{"units in parentheses", "V (kn);t (s)\n1,5;2\n", chanfile.Options{}, [][]float64{{1.5 * kn}, {2}}, ""},
-		{"units after a slash", "V/kn\n3\n", chanfile.Options{}, nil, "no unit"},
+		{"units after a slash", "V/kn,Q/(m3/h)\n3,36\n", chanfile.Options{}, [][]float64{{3 * kn}, {0.01}}, ""},
+		{"a name with a slash", "dp/dx,t [s]\n3,1\n", chanfile.Options{}, nil, `"dp/dx [1]"`},
+		{"a label with a slash", "Op/Shift,t [s]\nA,1\n", chanfile.Options{}, [][]float64{nil, {1}}, ""},
 		{"units row, tabs", "V\tt\nkn\ts\n1\t2\n", chanfile.Options{}, [][]float64{{kn}, {2}}, ""},
 		{"whitespace", "t[s]  V[kn]\n0   1.5\n1   2.5\n", chanfile.Options{}, [][]float64{{0, 1}, {1.5 * kn, 2.5 * kn}}, ""},
 		{"decimal comma forced", "V [kn];t [s]\n1,5;2\n", chanfile.Options{Decimal: ','}, [][]float64{{1.5 * kn}, {2}}, ""},
 		{"a point in a comma file", "V [kn];t [s]\n1,5;2\n1.5;3\n", chanfile.Options{Decimal: ','}, nil, "Options.Decimal"},
 		{"mixed marks", "V [kn];t [s]\n1,5;2.5\n", chanfile.Options{}, nil, "Options.Decimal"},
 		{"epoch seconds", "Unix time [s],V [kn]\n1700000000,1\n1700000000.5,2\n", chanfile.Options{}, [][]float64{{0, 0.5}, {kn, 2 * kn}}, ""},
+		{"epoch in ms", "Unix time [ms],V [kn]\n1700000000000,1\n", chanfile.Options{}, [][]float64{{1700000000}, {kn}}, ""},
 		{"ISO with zone", "Time,V [kn]\n2026-03-04T23:59:59+01:00,1\n2026-03-04T23:00:01Z,2\n", chanfile.Options{}, [][]float64{{0, 2}, {kn, 2 * kn}}, ""}, // 23:59:59+01:00 is 22:59:59Z
 		{"dotted date", "Datum Zeit;V [kn]\n04.03.2026 10:00:00;1\n05.03.2026 10:00:00;2\n", chanfile.Options{}, [][]float64{{0, 86400}, {kn, 2 * kn}}, ""},
 		{"clock back", "Time,V [kn]\n23:59:59,1\n00:00:01,2\n", chanfile.Options{}, nil, "log the date"},
