@@ -662,9 +662,14 @@ func sniffComma(lines [][]byte) (c byte, blanks bool, how string) {
 	}
 	any := false
 	for _, l := range lines {
-		if bytes.ContainsAny(l, "\t;,") {
+		if bytes.ContainsAny(l, "\t;") {
 			any = true
 			break
+		}
+		for _, f := range bytes.Fields(l) {
+			if bytes.IndexByte(f, ',') >= 0 && !commaNumber(f) {
+				any = true // a comma that is not a decimal comma
+			}
 		}
 	}
 	if !any && len(lines) > 1 {
