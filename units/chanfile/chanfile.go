@@ -758,6 +758,7 @@ func (r *Reader) columns(head []string, line int, unitRow []string, sample [][]b
 	type spec struct {
 		field, name, unit string
 		err               error
+		aliased           bool
 	}
 	specs := make([]spec, len(head))
 	for i, h := range head {
@@ -772,9 +773,9 @@ func (r *Reader) columns(head []string, line int, unitRow []string, sample [][]b
 			s.name, s.unit, s.err = splitHeader(f)
 		}
 		if a, ok := r.opt.Aliases[f]; ok {
-			s.name = a
+			s.name, s.aliased = a, true
 		} else if a, ok := r.opt.Aliases[s.name]; ok && s.err == nil {
-			s.name = a
+			s.name, s.aliased = a, true
 		}
 		specs[i] = s
 	}
@@ -838,11 +839,8 @@ func (r *Reader) columns(head []string, line int, unitRow []string, sample [][]b
 		if unitErr != nil && unitRow == nil && slashed(s.field) {
 			// "dp/dx": a name with a slash, not quantity/unit.
 			c.Text, unitErr = "", nil
-			if _, aliased := r.opt.Aliases[s.name]; !aliased {
+			if !s.aliased {
 				c.Name = s.field
-			}
-			if a, ok := r.opt.Aliases[s.field]; ok {
-				c.Name = a
 			}
 		}
 		physical := c.Text != "" && unitErr == nil && c.Unit.Dim() != units.One().Dim()
@@ -854,10 +852,8 @@ func (r *Reader) columns(head []string, line int, unitRow []string, sample [][]b
 		if c.Kind != Number && unitErr != nil {
 			// "Run tag": no unit, the whole field is the name.
 			c.Unit, c.Readings, c.Gauge = units.One(), nil, false
-			if unitRow == nil && c.Name != "" && r.opt.Aliases[s.name] == "" {
-				if _, aliased := r.opt.Aliases[s.field]; !aliased {
-					c.Name = s.field
-				}
+			if unitRow == nil && !s.aliased && !strings.HasSuffix(s.field, "]") && !strings.HasSuffix(s.field, ")") {
+				c.Name = s.field
 			}
 		}
 		mul, add := 1.0, 0.0

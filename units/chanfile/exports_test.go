@@ -260,6 +260,7 @@ func TestExportForms(t *testing.T) {
 		{"units in parentheses", "V (kn);t (s)\n1,5;2\n", chanfile.Options{}, [][]float64{{1.5 * kn}, {2}}, ""},
 		{"units after a slash", "V/kn,Q/(m3/h)\n3,36\n", chanfile.Options{}, [][]float64{{3 * kn}, {0.01}}, ""},
 		{"a name with a slash", "dp/dx,t [s]\n3,1\n", chanfile.Options{}, nil, `"dp/dx [1]"`},
+		{"label names", "Run tag,Op [who],Time [hh:mm:ss],Shift crew,t [s]\nA,B,10:00:00,C,1\n", chanfile.Options{Aliases: map[string]string{"Shift": "crew"}, Columns: []string{"Run tag", "Op", "Time", "crew", "t"}}, [][]float64{nil, nil, {0}, nil, {1}}, ""},
 		{"a label with a slash", "Op/Shift,t [s]\nA,1\n", chanfile.Options{}, [][]float64{nil, {1}}, ""},
 		{"units row, tabs", "V\tt\nkn\ts\n1\t2\n", chanfile.Options{}, [][]float64{{kn}, {2}}, ""},
 		{"whitespace", "t[s]  V[kn]\n0   1.5\n1   2.5\n", chanfile.Options{}, [][]float64{{0, 1}, {1.5 * kn, 2.5 * kn}}, ""},
@@ -450,4 +451,27 @@ func FuzzDecode(f *testing.F) {
 			}
 		}
 	})
+}
+
+// TestColumnNames checks the names and kinds given to columns that are
+// not numbers: a text field split at a space is named whole, a bracketed
+// one keeps its name, and an alias always wins.
+func TestColumnNames(t *testing.T) {
+	const text = "Run tag,Op [who],Time [hh:mm:ss],Shift crew,t [s]\nA,B,10:00:00,C,1\n"
+	r, err := chanfile.NewReader(strings.NewReader(text), "n.csv", chanfile.Options{Aliases: map[string]string{"Shift": "crew"}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	type nk struct {
+		Name string
+		Kind chanfile.Kind
+	}
+	var got []nk
+	for _, c := range r.Columns() {
+		got = append(got, nk{c.Name, c.Kind})
+	}
+	want := []nk{{"Run tag", chanfile.Label}, {"Op", chanfile.Label}, {"Time", chanfile.Timestamp}, {"crew", chanfile.Label}, {"t", chanfile.Number}}
+	if d := cmp.Diff(want, got); d != "" {
+		t.Errorf("columns (-want +got):\n%s", d)
+	}
 }
