@@ -414,6 +414,7 @@ func NewReader(r io.Reader, name string, opt Options) (*Reader, error) {
 			}
 			skip = 2
 			rd.format.UnitsRow = true
+			rd.format.Readings = append(rd.format.Readings, units.Reading{From: fmt.Sprintf("line %d", rd.line), To: "the units of the columns", Note: "no field is a number or a time and some are units"})
 		} else {
 			rd.pend = append(rd.pend[:0], rd.raw...)
 			rd.hasPend = true
@@ -880,6 +881,9 @@ func (r *Reader) columns(head []string, line int, unitRow []string, sample [][]b
 			c.Readings = []units.Reading{r.timeReading(layout, samples[k][0])}
 		case Label:
 			c.Unit = units.One()
+			if len(samples[k]) > 0 {
+				c.Readings = append(c.Readings, units.Reading{From: samples[k][0], To: "a label", Note: "the column's first values are text, neither numbers nor times"})
+			}
 		}
 		if j, dup := seen[c.Name]; dup {
 			return &Error{File: r.name, Line: line, Column: i + 1, Field: s.field, Reason: fmt.Sprintf("channel %q is also column %d", c.Name, j+1)}

@@ -100,6 +100,7 @@ Zeit;Pump speed;Q;Tag;Comment
 	// Output:
 	// delimiter read as ';' (5 fields on each line in the first 4 lines; set Options.Comma to choose)
 	// decimal mark read as ',' (2 numbers of the first lines written with a decimal comma; set Options.Decimal to choose)
+	// line 3 read as the units of the columns (no field is a number or a time and some are units)
 	// Zeit timestamp from 2026-03-04 10:15:30: [0 0.5] s
 	// n    number in U/min: SI [151.844 152.053]
 	// Q    number in m3/h: SI [0.0114444 0.0115]

@@ -80,7 +80,7 @@ func TestSemicolonExport(t *testing.T) {
 	for _, rd := range fm.Readings {
 		from = append(from, rd.From)
 	}
-	if d := cmp.Diff([]string{"delimiter", "decimal mark"}, from); d != "" {
+	if d := cmp.Diff([]string{"delimiter", "decimal mark", "line 3"}, from); d != "" {
 		t.Errorf("Format readings (-want +got):\n%s", d)
 	}
 	cols := r.Columns()
@@ -474,4 +474,31 @@ func TestColumnNames(t *testing.T) {
 	if d := cmp.Diff(want, got); d != "" {
 		t.Errorf("columns (-want +got):\n%s", d)
 	}
+}
+
+// FuzzSniff checks what detection makes of any first lines: a delimiter
+// and a decimal mark of the documented set that differ, and a reading
+// for each detected choice.
+func FuzzSniff(f *testing.F) {
+	for _, s := range []string{"a;b\n1,5;2\n", "a b\n1 2\n", "a\tb\n1\t2\n", "a,b\n1.5,2\n", "t V\ns kn\n0 1,5\n", "x;y\n1,5;2.5\n", "", "#\n"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		r, err := chanfile.NewReader(strings.NewReader(s), "s.csv", chanfile.Options{})
+		if err != nil {
+			if classes(err) != 1 {
+				t.Fatalf("NewReader(%q): error %v of %d classes", s, err, classes(err))
+			}
+			return
+		}
+		fm := r.Format()
+		if !strings.ContainsRune(",;\t ", fm.Comma) || (fm.Decimal != '.' && fm.Decimal != ',') || rune(fm.Decimal) == fm.Comma {
+			t.Fatalf("NewReader(%q): Format %+v", s, fm)
+		}
+		for _, rd := range fm.Readings {
+			if rd.From == "" || rd.To == "" {
+				t.Fatalf("NewReader(%q): reading %+v", s, rd)
+			}
+		}
+	})
 }
