@@ -9,6 +9,7 @@ import (
 	"strings"
 	"testing"
 	"time"
+	_ "time/tzdata" // the zone database, wherever the tests run
 	"unicode/utf16"
 	"unicode/utf8"
 
@@ -501,4 +502,40 @@ func FuzzSniff(f *testing.F) {
 			}
 		}
 	})
+}
+
+// TestLocation reads clock times written without a zone in the zone
+// given: across the start of summer time in Berlin (2026-03-29, 02:00 CET
+// becomes 03:00 CEST, EU rule: last Sunday of March) 01:30 to 03:30 on
+// the wall clock is one hour, 00:30Z to 01:30Z.
+func TestLocation(t *testing.T) {
+	berlin, err := time.LoadLocation("Europe/Berlin")
+	if err != nil {
+		t.Fatal(err)
+	}
+	const text = "Time,V [kn]\n2026-03-29 01:30:00,1\n2026-03-29 03:30:00,2\n"
+	for _, tc := range []struct {
+		loc  *time.Location
+		want float64
+		note string
+	}{
+		{nil, 7200, "read in UTC"},
+		{berlin, 3600, "read in Europe/Berlin"},
+	} {
+		r, err := chanfile.NewReader(strings.NewReader(text), "z.csv", chanfile.Options{Location: tc.loc})
+		if err != nil {
+			t.Fatal(err)
+		}
+		s, _, err := r.Read(nil, 0)
+		if err != nil {
+			t.Fatal(err)
+		}
+		c := r.Columns()[0]
+		if got := s[0].Values()[1]; got != tc.want {
+			t.Errorf("%v: %v s, want %v", tc.loc, got, tc.want)
+		}
+		if len(c.Readings) != 1 || !strings.Contains(c.Readings[0].Note, tc.note) {
+			t.Errorf("%v: readings %v, want one saying %q", tc.loc, c.Readings, tc.note)
+		}
+	}
 }
