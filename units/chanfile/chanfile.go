@@ -159,6 +159,9 @@ type Options struct {
 	// Location is the time zone of timestamps written without one; nil
 	// means UTC.
 	Location *time.Location
+	// SlashDates is the order of day and month in dates written with
+	// slashes (03/04/2026); the zero value refuses a column of them.
+	SlashDates DateOrder
 }
 
 // SniffBytes bounds the bytes a Reader looks at to detect the delimiter,
@@ -739,7 +742,7 @@ func (r *Reader) isUnitsRow() bool {
 		if _, err := r.number(f); err == nil {
 			return false
 		}
-		if timeLayout(string(f)) >= 0 {
+		if timeLayout(string(f), r.opt.SlashDates) >= 0 || slashDate(string(f)) {
 			return false
 		}
 		if numStart(f[0]) && string(f) != "-" && string(f) != "1" {
@@ -849,6 +852,13 @@ func (r *Reader) columns(head []string, line int, unitRow []string, sample [][]b
 		if kind == Timestamp && layout < 0 && c.Text != "" && !(unitErr == nil && c.Unit.Dim() == quantity.Time && c.Unit.Factor() == 1 && !c.Gauge) {
 			kind, layout = Number, -2 // an epoch in ms or days: a number in its unit
 		}
+		if layout == slashUnread {
+			reason := fmt.Sprintf("dates such as %q may be day/month or month/day: set Options.SlashDates to chanfile.DayFirst or chanfile.MonthFirst (or name the columns to read in Options.Columns)", short([]byte(samples[k][0])))
+			if r.opt.SlashDates != SlashRefused {
+				reason = fmt.Sprintf("dates such as %q are not all in one form read with Options.SlashDates (a four-digit year, then an optional clock time hh:mm or hh:mm:ss)", short([]byte(samples[k][0])))
+			}
+			return &Error{File: r.name, Line: line, Column: i + 1, Field: s.field, Reason: reason, class: quantity.ErrInvalid}
+		}
 		c.Kind = kind
 		if c.Kind != Number && unitErr != nil {
 			// "Run tag": no unit, the whole field is the name.
@@ -929,7 +939,7 @@ func (r *Reader) kind(name string, physical bool, sample []string) (Kind, int) {
 	if nums > 0 {
 		return Number, -2
 	}
-	l := timeLayout(sample[0])
+	l := timeLayout(sample[0], r.opt.SlashDates)
 	if l >= 0 {
 		for _, s := range sample[1:] {
 			if _, err := time.Parse(timeLayouts[l].layout, s); err != nil {
@@ -941,12 +951,18 @@ func (r *Reader) kind(name string, physical bool, sample []string) (Kind, int) {
 	if l >= 0 {
 		return Timestamp, l
 	}
+	if slashDate(sample[0]) {
+		return Timestamp, slashUnread
+	}
 	if physical {
 		// A channel with a unit: its text is a bad value, named on reading.
 		return Number, -2
 	}
 	return Label, -2
 }
+
+// slashUnread marks a column of dates with slashes and no order given.
+const slashUnread = -3
 
 // timeReading says how a Timestamp column is read.
 func (r *Reader) timeReading(layout int, first string) units.Reading {

@@ -275,6 +275,11 @@ func TestExportForms(t *testing.T) {
 		{"epoch in ms", "Unix time [ms],V [kn]\n1700000000000,1\n", chanfile.Options{}, [][]float64{{1700000000}, {kn}}, ""},
 		{"ISO with zone", "Time,V [kn]\n2026-03-04T23:59:59+01:00,1\n2026-03-04T23:00:01Z,2\n", chanfile.Options{}, [][]float64{{0, 2}, {kn, 2 * kn}}, ""}, // 23:59:59+01:00 is 22:59:59Z
 		{"dotted date", "Datum Zeit;V [kn]\n04.03.2026 10:00:00;1\n05.03.2026 10:00:00;2\n", chanfile.Options{}, [][]float64{{0, 86400}, {kn, 2 * kn}}, ""},
+		{"slash dates", "Date,V [kn]\n03/04/2026 10:00,1\n", chanfile.Options{}, nil, "Options.SlashDates"},
+		{"slash dates, day first", "Date,V [kn]\n03/04/2026 10:00,1\n4/4/2026 10:00,2\n", chanfile.Options{SlashDates: chanfile.DayFirst}, [][]float64{{0, 86400}, {kn, 2 * kn}}, ""},          // 3 April to 4 April
+		{"slash dates, month first", "Date,V [kn]\n03/04/2026 10:00,1\n4/4/2026 10:00,2\n", chanfile.Options{SlashDates: chanfile.MonthFirst}, [][]float64{{0, 31 * 86400}, {kn, 2 * kn}}, ""}, // 4 March to 4 April: 31 days
+		{"slash dates, two-digit year", "Date,V [kn]\n03/04/26,1\n", chanfile.Options{SlashDates: chanfile.DayFirst}, nil, "four-digit year"},
+		{"dotted date, one digit", "Date;V [kn]\n4.3.2026;1\n5.3.2026;2\n", chanfile.Options{}, [][]float64{{0, 86400}, {kn, 2 * kn}}, ""},
 		{"clock back", "Time,V [kn]\n23:59:59,1\n00:00:01,2\n", chanfile.Options{}, nil, "log the date"},
 		{"missing markers", "V [kn],t [s]\n---,1\n-9999,2\n,3\n", chanfile.Options{MissingValues: []string{"---", "-9999"}}, nil, "not a finite number"},
 		{"missing markers and empty", "V [kn],t [s]\n---,1\n-9999,2\n,3\n", chanfile.Options{MissingValues: []string{"---", "-9999", ""}}, [][]float64{{math.NaN(), math.NaN(), math.NaN()}, {1, 2, 3}}, ""},
