@@ -329,9 +329,10 @@ const MaxLineLen = 1 << 16
 
 // Reader reads a channel file chunk by chunk. Lines are split at the
 // delimiter; a field may be quoted ("Q, flow (m3/h)", with "" for a quote
-// inside), but a quoted field may not span lines. Lines starting with '#'
-// and blank lines are skipped; CR LF line ends and a byte-order mark are
-// accepted.
+// inside), but a quoted field may not span lines (with runs of blanks as
+// the delimiter, quotes are not read). Lines starting with '#' and blank
+// lines are skipped, except a row that starts with a missing marker such
+// as #N/A; CR LF line ends and a byte-order mark are accepted.
 type Reader struct {
 	name    string
 	opt     Options
