@@ -182,8 +182,8 @@ func ParseDialect(text string) (Unit, []Reading, error) {
 					readings = append(readings, Reading{From: word, To: to, Note: rd.Note})
 				}
 			}
-			if strings.Contains(to, "/") {
-				to = "(" + to + ")"
+			if strings.ContainsAny(to, "/*") {
+				to = "(" + to + ")" // kg/Nm is kg/(N*m)
 			}
 			sb.WriteString(to)
 			if k > j {

@@ -57,6 +57,7 @@ func TestDialect(t *testing.T) {
 		{"lb/hr", 0.45359237 / 3600, 1.259979e-4, quantity.MassFlowRate, []string{"hr"}}, // a pound of mass, not a force
 		{"kg/s", 1, 0, quantity.MassFlowRate, nil},                                       // strict spellings need no reading
 		{"Nm", 1, 0, quantity.Energy, []string{"Nm"}},
+		{"kW/Nm", 1000, 0, quantity.Frequency, []string{"Nm"}}, // power over torque: kW/(N·m), not (kW/N)·m
 		{"RPM", 2 * math.Pi / 60, 0, quantity.Frequency, []string{"RPM"}},
 		{"U/min", 2 * math.Pi / 60, 0, quantity.Frequency, []string{"U/min"}},
 		{"mWC", 1000 * gn, 0, quantity.Pressure, []string{"mWC"}}, // conventional water column, common practice
