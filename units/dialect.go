@@ -55,6 +55,7 @@ var dialectWords = map[string]Reading{
 // dialectWhole are data-sheet spellings read only as a whole unit.
 var dialectWhole = map[string]Reading{
 	"U/min": {To: "rev/min", Note: "revolutions per minute, the German Umdrehungen pro Minute"},
+	"r/min": {To: "rev/min", Note: "revolutions per minute, as a motor nameplate writes it"},
 }
 
 // absoluteMarks are the marks of an absolute pressure after its unit:
@@ -82,7 +83,7 @@ var dialectRefused = map[string]string{
 // ParseDialect reads a unit as an acquisition system or a data sheet
 // writes it, as well as everything Parse reads: hr, sec, mins, m3, ft3,
 // kg/m3, m3/h, Pa.s, N.m, ft-lbf, lbf-ft, in-lb, GPM, bhp, ftH2O, mH2O,
-// BTU/hr-ft2-F, Nm, RPM, U/min, mWC, inWC, kts, knots, CFM, and the
+// BTU/hr-ft2-F, Nm, RPM, U/min, r/min, mWC, inWC, kts, knots, CFM, and the
 // absolute pressures psia, bara, bar(a), kPa(a). A bare C, the coulomb in
 // SI, is refused: in a data file it almost always means °C, so the fix
 // (°C, degC, or A*s for a charge) is named. Nm3 (the normal cubic metre)

@@ -60,6 +60,7 @@ func TestDialect(t *testing.T) {
 		{"kW/Nm", 1000, 0, quantity.Frequency, []string{"Nm"}}, // power over torque: kW/(N·m), not (kW/N)·m
 		{"RPM", 2 * math.Pi / 60, 0, quantity.Frequency, []string{"RPM"}},
 		{"U/min", 2 * math.Pi / 60, 0, quantity.Frequency, []string{"U/min"}},
+		{"r/min", 2 * math.Pi / 60, 0, quantity.Frequency, []string{"r/min"}},
 		{"mWC", 1000 * gn, 0, quantity.Pressure, []string{"mWC"}}, // conventional water column, common practice
 		{"inWC", 1000 * gn * inch, 2.490889e2, quantity.Pressure, []string{"inWC"}},
 		{"kts", 1852.0 / 3600, 5.144444e-1, quantity.Velocity, []string{"kts"}},
