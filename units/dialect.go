@@ -6,6 +6,8 @@ import (
 	"strings"
 	"unicode"
 	"unicode/utf8"
+
+	"similis.dev/similis/quantity"
 )
 
 // Reading records how a data-sheet spelling was read: the text as
@@ -28,17 +30,37 @@ func (r Reading) String() string {
 // strict spelling and a note (common practice of acquisition systems and
 // pump, fan and tank data sheets).
 var dialectWords = map[string]Reading{
-	"hr":   {To: "h", Note: "hour"},
-	"hrs":  {To: "h", Note: "hour"},
-	"sec":  {To: "s", Note: "second"},
-	"secs": {To: "s", Note: "second"},
-	"mins": {To: "min", Note: "minute"},
-	"GPM":  {To: "gal/min", Note: "US gallons per minute"},
-	"gpm":  {To: "gal/min", Note: "US gallons per minute"},
-	"bhp":  {To: "hp", Note: "brake horsepower, the mechanical horsepower of 550 ft·lbf/s"},
-	"F":    {To: "degF", Note: "degree Fahrenheit, as an interval inside a compound unit"},
-	"C":    {To: "degC", Note: "degree Celsius, as an interval inside a compound unit"},
+	"hr":    {To: "h", Note: "hour"},
+	"hrs":   {To: "h", Note: "hour"},
+	"sec":   {To: "s", Note: "second"},
+	"secs":  {To: "s", Note: "second"},
+	"mins":  {To: "min", Note: "minute"},
+	"GPM":   {To: "gal/min", Note: "US gallons per minute"},
+	"gpm":   {To: "gal/min", Note: "US gallons per minute"},
+	"bhp":   {To: "hp", Note: "brake horsepower, the mechanical horsepower of 550 ft·lbf/s"},
+	"F":     {To: "degF", Note: "degree Fahrenheit, as an interval inside a compound unit"},
+	"C":     {To: "degC", Note: "degree Celsius, as an interval inside a compound unit"},
+	"Nm":    {To: "N*m", Note: "newton metre"},
+	"RPM":   {To: "rpm", Note: "revolutions per minute"},
+	"kts":   {To: "kn", Note: "knot, one nautical mile per hour"},
+	"knots": {To: "kn", Note: "knot, one nautical mile per hour"},
+	"CFM":   {To: "cfm", Note: "cubic feet per minute"},
+	"mWC":   {To: "mH2O", Note: "metre of water column, conventional: 1000 kg/m³ and standard gravity"},
+	"mmWC":  {To: "mmH2O", Note: "millimetre of water column, conventional: 1000 kg/m³ and standard gravity"},
+	"inWC":  {To: "inH2O", Note: "inch of water column, conventional: 1000 kg/m³ and standard gravity"},
+	"psia":  {To: "psi", Note: "pounds per square inch, absolute"},
+	"bara":  {To: "bar", Note: "bar, absolute"},
 }
+
+// dialectWhole are data-sheet spellings read only as a whole unit.
+var dialectWhole = map[string]Reading{
+	"U/min": {To: "rev/min", Note: "revolutions per minute, the German Umdrehungen pro Minute"},
+	"r/min": {To: "rev/min", Note: "revolutions per minute, as a motor nameplate writes it"},
+}
+
+// absoluteMarks are the marks of an absolute pressure after its unit:
+// "bar(a)", "kPa(a)", "kPa (abs)".
+var absoluteMarks = []string{"(a)", "(abs)", " abs"}
 
 // torqueWords are the torque spellings in which lb is the pound-force.
 var torqueWords = map[string]string{
@@ -54,13 +76,18 @@ var dialectRefused = map[string]string{
 	"tons": "could be a short ton (2000 lb), a long ton (2240 lb), a metric ton (write t) or a ton of refrigeration (write 12000 BTU/h)",
 	"PS":   "could be the metric horsepower (75 kgf·m/s) or the petasiemens",
 	"SCFM": "is a volume flow at standard reference conditions that differ between standards; convert with the stated reference conditions and give ft^3/min",
+	"Nm3":  "is the normal cubic metre, a volume at reference conditions that differ between standards; convert with the stated reference conditions and give m^3",
 	"scfm": "is a volume flow at standard reference conditions that differ between standards; convert with the stated reference conditions and give ft^3/min",
 }
 
 // ParseDialect reads a unit as an acquisition system or a data sheet
 // writes it, as well as everything Parse reads: hr, sec, mins, m3, ft3,
 // kg/m3, m3/h, Pa.s, N.m, ft-lbf, lbf-ft, in-lb, GPM, bhp, ftH2O, mH2O,
-// BTU/hr-ft2-F. Every lenient reading is reported, so that a reduced data
+// BTU/hr-ft2-F, Nm, RPM, U/min, r/min, mWC, inWC, kts, knots, CFM, and the
+// absolute pressures psia, bara, bar(a), kPa(a). A bare C, the coulomb in
+// SI, is refused: in a data file it almost always means °C, so the fix
+// (°C, degC, or A*s for a charge) is named. Nm3 (the normal cubic metre)
+// is refused, since its reference conditions differ. Every lenient reading is reported, so that a reduced data
 // set can record its interpretation; a spelling with more than one
 // meaning (ton, PS) or one that needs a reference (SCFM) is refused with
 // the candidates, and a gauge pressure (psig, barg, kPa(g)) with an
@@ -70,6 +97,11 @@ func ParseDialect(text string) (Unit, []Reading, error) {
 	if _, gauge := gaugeSuffix(text); gauge {
 		return Unit{}, nil, &ParseError{Input: text, Err: ErrGauge, Reason: gaugeHelp}
 	}
+	if text == "C" {
+		// A channel header's [C] is almost always a temperature; the
+		// coulomb is read only when spelled so that it cannot be mistaken.
+		return Unit{}, nil, &ParseError{Input: text, Err: ErrAmbiguous, Symbol: "C", Reason: "a bare C is the coulomb in SI but usually means the degree Celsius in a data file: write °C or degC for a temperature, or A*s for a charge"}
+	}
 	if u, err := Parse(text); err == nil {
 		return u, nil, nil
 	}
@@ -78,6 +110,29 @@ func ParseDialect(text string) (Unit, []Reading, error) {
 	}
 	if !utf8.ValidString(text) {
 		return Unit{}, nil, &ParseError{Input: text, Err: ErrSyntax, Reason: "invalid UTF-8"}
+	}
+	if rd, ok := dialectWhole[text]; ok {
+		u, err := Parse(rd.To)
+		if err != nil {
+			return Unit{}, nil, err
+		}
+		rd.From = text
+		return u, []Reading{rd}, nil
+	}
+	for _, mark := range absoluteMarks {
+		base, ok := strings.CutSuffix(text, mark)
+		if !ok || strings.TrimSpace(base) == "" {
+			continue
+		}
+		base = strings.TrimSpace(base)
+		u, rd, err := ParseDialect(base)
+		if err != nil {
+			return Unit{}, nil, err
+		}
+		if u.Dim() != quantity.Pressure {
+			return Unit{}, nil, &ParseError{Input: text, Err: ErrSyntax, Reason: fmt.Sprintf("%q marks an absolute pressure, but %s is not a pressure unit", mark, base)}
+		}
+		return u, append(rd, Reading{From: text, To: base, Note: "an absolute pressure"}), nil
 	}
 	// A pound in a torque (in-lb, lb-ft) is the pound-force; elsewhere
 	// (lb/hr) it stays the pound of mass.
@@ -112,6 +167,9 @@ func ParseDialect(text string) (Unit, []Reading, error) {
 			for k < len(text) && text[k] >= '2' && text[k] <= '3' && (k+1 == len(text) || !isNameByte(text[k+1])) {
 				k++
 			}
+			if word == "Nm" && k > j {
+				word = "Nm" + text[j:k]
+			}
 			if why, bad := dialectRefused[word]; bad {
 				return Unit{}, readings, &ParseError{Input: text, Offset: i, Err: ErrAmbiguous, Symbol: word, Reason: fmt.Sprintf("%q %s", word, why)}
 			}
@@ -125,8 +183,8 @@ func ParseDialect(text string) (Unit, []Reading, error) {
 					readings = append(readings, Reading{From: word, To: to, Note: rd.Note})
 				}
 			}
-			if strings.Contains(to, "/") {
-				to = "(" + to + ")"
+			if strings.ContainsAny(to, "/*") {
+				to = "(" + to + ")" // kg/Nm is kg/(N*m)
 			}
 			sb.WriteString(to)
 			if k > j {
@@ -167,6 +225,26 @@ func ParseDialect(text string) (Unit, []Reading, error) {
 		return Unit{}, readings, &ParseError{Input: text, Err: kind, Reason: fmt.Sprintf("not a unit even as a data sheet writes it (read as %q: %v)", strict, err)}
 	}
 	return u, readings, nil
+}
+
+// ParseValueDialect reads a number and a unit as a data sheet or a
+// configuration file writes it ("12 m3/h", "3 bara", "1450 RPM"): the
+// number as ParseValue reads it, the unit as ParseDialect does, with the
+// lenient readings returned. It is opt-in, for configuration files whose
+// authors write units as their instruments do; ParseValue stays strict.
+// A gauge pressure ("2 kPag") is refused with an error matching ErrGauge,
+// as in ParseValue.
+func ParseValueDialect(s string) (Value, []Reading, error) {
+	var readings []Reading
+	v, err := parseValue(builtinTable{}, s, func(text string) (Unit, error) {
+		u, rd, err := ParseDialect(text)
+		readings = rd
+		return u, err
+	})
+	if err != nil {
+		return Value{}, nil, err
+	}
+	return v, readings, nil
 }
 
 func isNameByte(c byte) bool {

@@ -56,6 +56,22 @@ func TestDialect(t *testing.T) {
 		{"W/m2-K", 1, 0, quantity.HeatTransferCoefficient, []string{"m2", "-"}},
 		{"lb/hr", 0.45359237 / 3600, 1.259979e-4, quantity.MassFlowRate, []string{"hr"}}, // a pound of mass, not a force
 		{"kg/s", 1, 0, quantity.MassFlowRate, nil},                                       // strict spellings need no reading
+		{"Nm", 1, 0, quantity.Energy, []string{"Nm"}},
+		{"kW/Nm", 1000, 0, quantity.Frequency, []string{"Nm"}}, // power over torque: kW/(N·m), not (kW/N)·m
+		{"RPM", 2 * math.Pi / 60, 0, quantity.Frequency, []string{"RPM"}},
+		{"U/min", 2 * math.Pi / 60, 0, quantity.Frequency, []string{"U/min"}},
+		{"r/min", 2 * math.Pi / 60, 0, quantity.Frequency, []string{"r/min"}},
+		{"mWC", 1000 * gn, 0, quantity.Pressure, []string{"mWC"}}, // conventional water column, common practice
+		{"inWC", 1000 * gn * inch, 2.490889e2, quantity.Pressure, []string{"inWC"}},
+		{"kts", 1852.0 / 3600, 5.144444e-1, quantity.Velocity, []string{"kts"}},
+		{"knots", 1852.0 / 3600, 5.144444e-1, quantity.Velocity, []string{"knots"}},
+		{"CFM", foot * foot * foot / 60, 4.719474e-4, quantity.VolumeFlowRate, []string{"CFM"}},
+		{"psia", lbf / (inch * inch), 6.894757e3, quantity.Pressure, []string{"psia"}},
+		{"bara", 1e5, 1e5, quantity.Pressure, []string{"bara"}},
+		{"bar(a)", 1e5, 1e5, quantity.Pressure, []string{"bar(a)"}},
+		{"kPa(a)", 1e3, 0, quantity.Pressure, []string{"kPa(a)"}},
+		{"kPa (abs)", 1e3, 0, quantity.Pressure, []string{"kPa (abs)"}},
+		{"N.m", 1, 0, quantity.Energy, []string{"."}},
 	}
 	for _, tc := range tests {
 		u, rd, err := units.ParseDialect(tc.text)
@@ -102,6 +118,11 @@ func TestDialectRefuses(t *testing.T) {
 		{"kPa(g)", units.ErrGauge, "Gauge.Absolute"},
 		{"kPa (g)", units.ErrGauge, "relative to the ambient"}, // not kilopascal-gram
 		{"SCFM", units.ErrAmbiguous, "reference conditions"},
+		{"kPag", units.ErrGauge, "ParseGauge"},
+		{"C", units.ErrAmbiguous, "write °C or degC"},
+		{"Nm3/h", units.ErrAmbiguous, "normal cubic metre"},
+		{"kg(a)", units.ErrSyntax, "not a pressure unit"},
+		{"U/s", units.ErrUnknownSymbol, "not a unit"},
 		{"kW/ton", units.ErrAmbiguous, "short ton"},
 		{"Torque", units.ErrUnknownSymbol, "not a unit"},
 		{"H2O", units.ErrUnknownSymbol, "not a unit"},
@@ -120,7 +141,7 @@ func TestDialectRefuses(t *testing.T) {
 			t.Errorf("ParseDialect(%.20q) error %q does not say %q", tc.text, err, tc.says)
 		}
 	}
-	for _, s := range []string{"hr", "sec", "mins", "m3", "ft3", "ft-lbf", "in-lb", "Pa.s", "kg/m3", "m3/h", "GPM", "bhp", "BTU/hr-ft2-F", "psig"} {
+	for _, s := range []string{"hr", "sec", "mins", "m3", "ft3", "ft-lbf", "in-lb", "Pa.s", "kg/m3", "m3/h", "GPM", "bhp", "BTU/hr-ft2-F", "psig", "Nm", "RPM", "U/min", "mWC", "kts", "knots", "CFM", "psia", "bara", "bar(a)", "kPa(a)", "kPag"} {
 		if _, err := units.Parse(s); err == nil {
 			t.Errorf("strict Parse(%q) accepted a data-sheet spelling", s)
 		}
@@ -131,7 +152,7 @@ func TestDialectRefuses(t *testing.T) {
 // has a finite positive factor, and that every spelling strict Parse
 // reads is read the same with no reading reported.
 func FuzzDialect(f *testing.F) {
-	for _, s := range append(seedExprs, "BTU/hr-ft2-F", "in-lb", "kg/m3", "m3/hr", "Pa.s", "ton", "psig", "ft3/min", "W/m2-K", "-", "/-", "a-", ".m") {
+	for _, s := range append(seedExprs, "BTU/hr-ft2-F", "in-lb", "kg/m3", "m3/hr", "Pa.s", "ton", "psig", "ft3/min", "W/m2-K", "-", "/-", "a-", ".m", "bar(a)", "kPa (abs)", "U/min", "Nm3", "C", "kPag") {
 		f.Add(s)
 	}
 	f.Fuzz(func(t *testing.T, s string) {
@@ -142,8 +163,76 @@ func FuzzDialect(f *testing.F) {
 		if f := u.Factor(); !(f > 0) || math.IsInf(f, 0) {
 			t.Fatalf("ParseDialect(%q) factor %v", s, f)
 		}
-		if strict, err := units.Parse(s); err == nil && (!strict.Equal(u) || len(rd) != 0) {
+		if strict, err := units.Parse(s); err == nil && s != "C" && (!strict.Equal(u) || len(rd) != 0) {
 			t.Fatalf("ParseDialect(%q) = %v %v, strict Parse gives %v", s, u, rd, strict)
+		}
+	})
+}
+
+// TestParseValueDialect reads a value with its unit as a configuration
+// file writes it, and checks the SI value by hand and the readings.
+func TestParseValueDialect(t *testing.T) {
+	tests := []struct {
+		text  string
+		si    float64 // by hand
+		reads []string
+	}{
+		{"12 m3/h", 12.0 / 3600, []string{"m3"}},
+		{"3 bara", 3e5, []string{"bara"}},
+		{"1450 RPM", 1450 * 2 * math.Pi / 60, []string{"RPM"}},
+		{"20 kts", 20 * 1852.0 / 3600, []string{"kts"}},
+		{"5 kn", 5 * 1852.0 / 3600, nil},
+	}
+	for _, tc := range tests {
+		v, rd, err := units.ParseValueDialect(tc.text)
+		if err != nil {
+			t.Errorf("ParseValueDialect(%q): %v", tc.text, err)
+			continue
+		}
+		if got := v.Quantity().Value(); math.Abs(got-tc.si) > 1e-12*tc.si {
+			t.Errorf("ParseValueDialect(%q) = %v, want %v", tc.text, got, tc.si)
+		}
+		var from []string
+		for _, r := range rd {
+			from = append(from, r.From)
+		}
+		if d := cmp.Diff(tc.reads, from); d != "" {
+			t.Errorf("ParseValueDialect(%q) readings (-want +got):\n%s", tc.text, d)
+		}
+	}
+	for _, s := range []string{"2 kPag", "20 C", "12 ton", "x m3/h", "12 m3/h m"} {
+		if _, _, err := units.ParseValueDialect(s); err == nil {
+			t.Errorf("ParseValueDialect(%q) accepted", s)
+		}
+	}
+	if _, err := units.ParseValue("12 m3/h"); err == nil {
+		t.Error("strict ParseValue accepted a data-sheet spelling")
+	}
+}
+
+// FuzzParseValueDialect checks that ParseValueDialect never panics and
+// that what it accepts is finite.
+func FuzzParseValueDialect(f *testing.F) {
+	for _, s := range []string{"12 m3/h", "3 bara", "2 kPag", "1450 RPM", "1e999 m", "20 C"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		v, _, err := units.ParseValueDialect(s)
+		if err != nil {
+			if c := 0; true {
+				for _, k := range []error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid} {
+					if errors.Is(err, k) {
+						c++
+					}
+				}
+				if c != 1 {
+					t.Fatalf("ParseValueDialect(%q) error %v matches %d classes", s, err, c)
+				}
+			}
+			return
+		}
+		if q := v.Quantity().Value(); math.IsInf(q, 0) || math.IsNaN(q) {
+			t.Fatalf("ParseValueDialect(%q) = %v", s, q)
 		}
 	})
 }

@@ -59,6 +59,8 @@ func gaugeSuffix(u string) (string, bool) {
 		return "psi", true
 	case u == "barg":
 		return "bar", true
+	case u == "kPag":
+		return "kPa", true
 	case strings.HasSuffix(u, "(g)"):
 		return strings.TrimSpace(strings.TrimSuffix(u, "(g)")), true
 	}

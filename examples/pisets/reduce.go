@@ -233,6 +233,9 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	byName := map[string]int{}
 	var inputs []formula.Input
 	for i, c := range cols {
+		if c.Kind == chanfile.Label {
+			continue // text (a run tag): no variable
+		}
 		byName[c.Name] = i
 		inputs = append(inputs, formula.Input{Name: c.Name, Dim: c.Unit.Dim()})
 	}

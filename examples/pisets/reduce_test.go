@@ -464,3 +464,23 @@ func TestReduceAngleOfChannel(t *testing.T) {
 		t.Errorf("φ = %v, want %v", phi, want)
 	}
 }
+
+// TestReduceExport reduces an invented export as a data system writes it
+// (';' delimiter, decimal commas, a units row, timestamps, a run tag):
+// the text column is no variable and does not stop the reduction.
+// By hand: Q/(n·D³) = 0.05/(24·0.25³) = 0.05/0.375 = 0.133333.
+func TestReduceExport(t *testing.T) {
+	path := filepath.Join(t.TempDir(), "export.csv")
+	const export = "# invented data\nZeit;Q;n;Run tag\n;[m3/s];[Hz];\n2026-03-04 10:00:00;0,05;24;run 1\n"
+	if err := os.WriteFile(path, []byte(export), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	var out, errb bytes.Buffer
+	if code := run([]string{"-data", path, "-derive", "D = 0.25 {m}", "Q=m^3/s", "n=Hz", "D=m"}, &out, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	lines := strings.Split(strings.TrimSpace(out.String()), "\n")
+	if got, _ := strconv.ParseFloat(lines[1], 64); math.Abs(got/(0.05/0.375)-1) > 1e-12 {
+		t.Errorf("Q/(n·D³) = %v (%q), want 0.133333", got, lines[1])
+	}
+}

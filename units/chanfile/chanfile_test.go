@@ -207,8 +207,9 @@ func TestMalformed(t *testing.T) {
 		{"hex underflow", "V [kn]\n0x1p-2000\n", chanfile.Options{}, 2, 1, "too small for float64", quantity.ErrRange},
 		{"underflow in SI", "d [nm]\n1e-320\n", chanfile.Options{}, 2, 1, "beyond the range of float64 in SI", quantity.ErrRange},
 		{"unknown unit", "V [furlongs]\n1\n", chanfile.Options{}, 1, 1, "not a unit", quantity.ErrUnknown},
-		{"non-UTF-8 data", "V [kn]\n1\xff\n", chanfile.Options{}, 2, 1, "not a finite number", quantity.ErrParse},
-		{"non-UTF-8 header", "V [kn],\xff [m]\n1,2\n", chanfile.Options{}, 1, 2, "UTF-8", quantity.ErrParse},
+		{"non-UTF-8 data", "V [kn]\n1\xff\n", chanfile.Options{}, 2, 0, "Options.Encoding = chanfile.Windows1252", quantity.ErrParse},
+		{"non-UTF-8 header", "V [kn],\xff [m]\n1,2\n", chanfile.Options{}, 1, 0, "Options.Encoding = chanfile.Windows1252", quantity.ErrParse},
+		{"non-UTF-8 header, UTF-8 asked", "V [kn],\xff [m]\n1,2\n", chanfile.Options{Encoding: chanfile.UTF8}, 1, 0, "Options.Encoding = chanfile.Windows1252", quantity.ErrParse},
 		{"bad quote", "a [m],b [m]\n1,\"2\n", chanfile.Options{}, 2, 2, "may not span lines", quantity.ErrParse},
 		{"gauge without reference", "P1 psig\n12\n", chanfile.Options{}, 1, 1, "Options.Reference", quantity.ErrInvalid},
 		{"duplicate", "V [kn],V [m/s]\n1,2\n", chanfile.Options{}, 1, 2, "also column 1", quantity.ErrParse},
@@ -357,14 +358,30 @@ func FuzzHeaderField(f *testing.F) {
 }
 
 func FuzzReader(f *testing.F) {
-	f.Add(pumpLog)
-	f.Add("a [m],b [m]\n1,2\n3\n")
-	f.Add("V [kn]\n12 kn\n")
-	f.Add("x [m]\n\"1\"\n,\n")
-	f.Add("L [km]\n1e308\n1e-400\n")
-	f.Fuzz(func(t *testing.T, s string) {
-		r, err := chanfile.NewReader(strings.NewReader(s), "f.csv", chanfile.Options{Reference: units.StandardReference()})
+	f.Add(pumpLog, uint8(0))
+	f.Add("a [m],b [m]\n1,2\n3\n", uint8(0))
+	f.Add("V [kn]\n12 kn\n", uint8(0))
+	f.Add("x [m]\n\"1\"\n,\n", uint8(0))
+	f.Add("L [km]\n1e308\n1e-400\n", uint8(0))
+	f.Add("Zeit;V\n;[kn]\n2026-03-04 10:00:00,5;1,5\n", uint8(0))
+	f.Add("t[s] V[kn]\n0 1\n", uint8(0))
+	f.Add("Time\tTag\n10:00\tA\n09:00\tB\n", uint8(0))
+	f.Add("T [\xb0C]\n1\n", uint8(4))
+	f.Add("\xff\xfeV\x00 \x00[\x00m\x00]\x00\n\x001\x00", uint8(0))
+	f.Add("\x00V\x00 \x00[\x00m\x00]\x00\n\x001", uint8(3))
+	f.Fuzz(func(t *testing.T, s string, o uint8) {
+		// o picks the encoding (low 3 bits), the delimiter and the decimal mark.
+		opt := chanfile.Options{Reference: units.StandardReference(), Encoding: chanfile.Encoding(o % 6)}
+		opt.Comma = []rune{0, ',', ';', ' '}[o>>3%4]
+		opt.Decimal = []byte{0, '.', ',', 0}[o>>5%4]
+		if o>>7 == 1 {
+			opt.Columns = []string{"V", "t"}
+		}
+		r, err := chanfile.NewReader(strings.NewReader(s), "f.csv", opt)
 		if err != nil {
+			if classes(err) != 1 {
+				t.Fatalf("NewReader: error %v of %d classes", err, classes(err))
+			}
 			return
 		}
 		var dst []quantity.Series
@@ -377,6 +394,12 @@ func FuzzReader(f *testing.F) {
 				break
 			}
 			for j, c := range r.Columns() {
+				if c.Kind == chanfile.Label {
+					if dst[j].Len() != 0 || len(r.Labels(j)) != n {
+						t.Fatalf("label column %d: %d values, %d labels for %d rows", j, dst[j].Len(), len(r.Labels(j)), n)
+					}
+					continue
+				}
 				if dst[j].Len() != n || dst[j].Dim() != c.Unit.Dim() {
 					t.Fatalf("column %d: %d values of %v for %d rows", j, dst[j].Len(), dst[j].Dim(), n)
 				}

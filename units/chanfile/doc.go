@@ -16,9 +16,31 @@
 // kPa(g)) is refused unless a reference pressure is given in Options, in
 // which case it is read as absolute and the column says so.
 //
+// A file is read as a data system exports it. With no options the
+// Reader looks at the first lines (at most SniffLines lines in SniffBytes
+// bytes) and detects the delimiter (tab, ';', ',' or runs of blanks) and
+// the decimal mark ('.' or ','), and reports each choice as a Reading of
+// Reader.Format; an option overrides it. The units may follow each name
+// ("V [kn]", "V (kn)", "Q m3/h", or the quantity/unit heading "V/kn" of
+// ISO 80000-1) or stand in a row under the names ("[kn]", "kn", "-"). The
+// file may be UTF-8, with or without a byte-order mark, or UTF-16 with
+// one; a file in an 8-bit code page (0xB0 for °) is refused with the
+// option that reads it (Options.Encoding = Windows1252 or Latin1).
+//
+// A column is a Number, a Timestamp or a Label, told from its first
+// values. Timestamps (ISO 8601 date and time, a dotted day.month.year
+// date, a clock time alone, or seconds since 1970 in a column named
+// epoch, unix or posix) are read as seconds from the first sample, the
+// absolute start kept in Column.Start; text (a run tag) is kept as labels
+// (Reader.Labels). Options.Columns names the columns wanted: the others
+// are skipped without parsing, so a bad cell or an unknown unit there
+// cannot fail the file. Options.Aliases renames a column ("Pump speed" to
+// n), and Options.MissingValues sets the missing markers (#N/A, -9999,
+// ---, the empty field).
+//
 // Values are read into quantity.Series in SI, chunk by chunk, so a file of
-// any length reduces in bounded memory. An empty field, NA, NaN or the
-// Options' missing marker is a missing value: it is held as NaN and
+// any length reduces in bounded memory. An empty field, NA, NaN, #N/A or the
+// Options' missing markers is a missing value: it is held as NaN and
 // counted per column, never dropped. Every other field that is not a
 // finite number is an error that names the file, line and column. A
 // number read is the number written: one beyond the range of float64

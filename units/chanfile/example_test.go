@@ -59,3 +59,50 @@ t [s], V [kn], R_T (N), T_w °C, Torque (in-lb)
 	// 2.1092222222222223,NaN
 	// 2 rows
 }
+
+// An export as a European data system writes it (invented data): ';'
+// between fields, decimal commas, units in a row under the names, ISO
+// 8601 timestamps and a run tag. The Reader detects the format and says
+// so; only the columns asked for are read, one of them renamed.
+func ExampleReader_export() {
+	const export = `# invented data
+Zeit;Pump speed;Q;Tag;Comment
+;[U/min];[m3/h];;
+2026-03-04 10:15:30,0;1450;41,2;run 12;ok
+2026-03-04 10:15:30,5;1452;41,4;run 12;pump warm?!
+`
+	r, err := chanfile.NewReader(strings.NewReader(export), "loop.csv", chanfile.Options{
+		Columns: []string{"Zeit", "n", "Q", "Tag"},
+		Aliases: map[string]string{"Pump speed": "n"},
+	})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	for _, rd := range r.Format().Readings {
+		fmt.Println(rd)
+	}
+	s, _, err := r.Read(nil, 0)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	for j, c := range r.Columns() {
+		switch c.Kind {
+		case chanfile.Label:
+			fmt.Printf("%-4s %v %q\n", c.Name, c.Kind, r.Labels(j))
+		case chanfile.Timestamp:
+			fmt.Printf("%-4s %v from %s: %.6g s\n", c.Name, c.Kind, c.Start.Format("2006-01-02 15:04:05"), s[j].Values())
+		default:
+			fmt.Printf("%-4s %v in %s: SI %.6g\n", c.Name, c.Kind, c.Text, s[j].Values())
+		}
+	}
+	// Output:
+	// delimiter read as ';' (5 fields on each line in the first 4 lines; set Options.Comma to choose)
+	// decimal mark read as ',' (2 numbers of the first lines written with a decimal comma; set Options.Decimal to choose)
+	// line 3 read as the units of the columns (no field is a number or a time and some are units)
+	// Zeit timestamp from 2026-03-04 10:15:30: [0 0.5] s
+	// n    number in U/min: SI [151.844 152.053]
+	// Q    number in m3/h: SI [0.0114444 0.0115]
+	// Tag  label ["run 12" "run 12"]
+}
