@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 
+	"github.com/klauspost/compress/gzip"
 	"github.com/parquet-go/parquet-go"
 	"github.com/parquet-go/parquet-go/encoding/thrift"
 	"github.com/parquet-go/parquet-go/format"
@@ -28,6 +29,7 @@ var readable = map[format.CompressionCodec]bool{
 	format.Uncompressed: true,
 	format.Snappy:       true,
 	format.Zstd:         true,
+	format.Gzip:         true,
 }
 
 // checkFooter checks the file's trailer before the footer is decoded.
@@ -109,7 +111,7 @@ func checkPages(r io.ReaderAt, size int64, f *parquet.File) error {
 				return fmt.Errorf("%s: an encrypted column", where)
 			}
 			if !readable[m.Codec] {
-				return fmt.Errorf("%s: compression %v is not read (write the file with ZSTD, SNAPPY or none)", where, m.Codec)
+				return fmt.Errorf("%s: compression %v is not read (write the file with ZSTD, SNAPPY, GZIP or none)", where, m.Codec)
 			}
 			start := m.DataPageOffset
 			if m.DictionaryPageOffset > 0 && m.DictionaryPageOffset < start {
@@ -205,6 +207,19 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) (int64, err
 				if out > unc {
 					return 0, fmt.Errorf("page %d: a snappy block that declares %d bytes, in a page of %d uncompressed", page, out, unc)
 				}
+			case format.Gzip:
+				// A gzip stream declares no size before its end: it is
+				// inflated here, into nothing, to the page's declared
+				// size and one byte more, and refused if it reaches it.
+				// The decoder then inflates the same stream to no more.
+				limit := unc - (data - body)
+				if limit < 0 {
+					return 0, fmt.Errorf("page %d: levels longer than the page's %d uncompressed bytes", page, unc)
+				}
+				out, err = gzipSize(io.NewSectionReader(sr, data, n), limit)
+				if err == nil && out > limit {
+					return 0, fmt.Errorf("page %d: a gzip stream that inflates to more than the %d bytes the page declares", page, limit)
+				}
 			case format.Zstd:
 				var declared int64
 				out, declared, err = zstdBound(io.NewSectionReader(sr, data, n), n)
@@ -225,6 +240,21 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) (int64, err
 		cr.n += comp
 	}
 	return total, nil
+}
+
+// gzipSize inflates the gzip stream of r (all its members, as the
+// decoder does) into nothing and returns the bytes it inflates to, at
+// most limit+1: memory stays that of one inflater, whatever the stream.
+func gzipSize(r io.Reader, limit int64) (int64, error) {
+	z, err := gzip.NewReader(r)
+	if err != nil {
+		return 0, fmt.Errorf("a damaged gzip stream: %v", err)
+	}
+	n, err := io.Copy(io.Discard, io.LimitReader(z, limit+1))
+	if err != nil {
+		return n, fmt.Errorf("a damaged gzip stream: %v", err)
+	}
+	return n, nil
 }
 
 // zstdBound returns an upper bound on the bytes that the zstd frames in r

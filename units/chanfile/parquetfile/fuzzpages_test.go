@@ -48,7 +48,11 @@ func pageBases(t tb) [][]byte {
 	if err != nil {
 		t.Fatal(err)
 	}
-	return [][]byte{b, raw, snappy, validFile(t)}
+	gz, err := rewrite(b, func(p *page) []byte { return recompress(p, gzipPage) }, toGzip)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return [][]byte{b, raw, snappy, validFile(t), gz}
 }
 
 // mutate rewrites base with the bytes of data written over the body of
@@ -120,6 +124,8 @@ func FuzzPages(f *testing.F) {
 	f.Add(uint8(0), uint16(3), uint16(0), []byte{}, uint8(2), int32(1<<24))
 	f.Add(uint8(3), uint16(1), uint16(0), []byte{}, uint8(3), int32(-1))
 	f.Add(uint8(2), uint16(4), uint16(9), []byte{1, 2, 3}, uint8(5), int32(8))
+	f.Add(uint8(4), uint16(1), uint16(0), []byte{}, uint8(1), int32(4))                  // a gzip page declaring less than it inflates to
+	f.Add(uint8(4), uint16(2), uint16(12), []byte{0xff, 0x00, 0x13}, uint8(0), int32(0)) // a damaged deflate stream
 	f.Fuzz(func(t *testing.T, which uint8, sel, off uint16, data []byte, field uint8, val int32) {
 		if len(data) > 64 {
 			data = data[:64]
