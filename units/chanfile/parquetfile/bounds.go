@@ -86,11 +86,12 @@ func (c *countReader) ReadByte() (byte, error) {
 	return b, err
 }
 
-// checkPages walks the page headers of every column chunk of f and checks
+// checkPages walks the page headers of the column chunks of f that use
+// marks (by their index in a row group) and checks
 // that each page fits in its chunk, the chunk in the file, and that no
 // page decodes to more than MaxPageBytes; it reads headers and the first
 // bytes of compressed data, never decompressing.
-func checkPages(r io.ReaderAt, size int64, f *parquet.File) error {
+func checkPages(r io.ReaderAt, size int64, f *parquet.File, use []bool) error {
 	md := f.Metadata()
 	if md.EncryptionAlgorithm.Value != nil {
 		return fmt.Errorf("an encrypted file")
@@ -101,7 +102,13 @@ func checkPages(r io.ReaderAt, size int64, f *parquet.File) error {
 			return fmt.Errorf("row group %d: %d rows", g+1, rg.NumRows)
 		}
 		rows += rg.NumRows
+		if len(rg.Columns) != len(use) {
+			return fmt.Errorf("row group %d: %d column chunks, the schema has %d columns", g+1, len(rg.Columns), len(use))
+		}
 		for c, cc := range rg.Columns {
+			if !use[c] {
+				continue // never read: not looked at
+			}
 			where := fmt.Sprintf("row group %d, column %d", g+1, c+1)
 			m := cc.MetaData
 			if cc.FilePath != "" {

@@ -53,7 +53,9 @@ func readAll(t tb, b []byte, opt Options) ([]chanfile.Column, [][]float64, error
 			out = make([][]float64, len(dst))
 		}
 		for j := range dst {
-			out[j] = append(out[j], dst[j].Values()[:n]...)
+			if r.Kind(j) != Label {
+				out[j] = append(out[j], dst[j].Values()[:n]...)
+			}
 		}
 	}
 	return r.Columns(), out, nil
@@ -229,14 +231,14 @@ func TestForeignFiles(t *testing.T) {
 		t.Errorf("metadata and Options.Units both: err = %v", err)
 	}
 
-	type text struct {
-		S string `parquet:"S [m]"`
+	type blob struct {
+		S []byte `parquet:"S [m]"`
 	}
-	type dec struct {
-		D int64 `parquet:"D [m],decimal(2:10)"`
+	type flag struct {
+		B bool `parquet:"B [1]"`
 	}
-	type ts struct {
-		T int64 `parquet:"T [s],timestamp"`
+	type js struct {
+		J string `parquet:"J [1],json"`
 	}
 	type rep struct {
 		R []float64 `parquet:"R [m]"`
@@ -247,9 +249,9 @@ func TestForeignFiles(t *testing.T) {
 		want  string
 		class error
 	}{
-		{"string", foreign(t, []text{{"a"}}), "physical type", quantity.ErrParse},
-		{"decimal", foreign(t, []dec{{12}}), "not the value in its unit", quantity.ErrParse},
-		{"timestamp", foreign(t, []ts{{12}}), "not the value in its unit", quantity.ErrParse},
+		{"bytes", foreign(t, []blob{{[]byte("a")}}), "physical type BYTE_ARRAY with no logical type", quantity.ErrParse},
+		{"boolean", foreign(t, []flag{{true}}), "physical type BOOLEAN", quantity.ErrParse},
+		{"json", foreign(t, []js{{"{}"}}), "logical type JSON stored as BYTE_ARRAY: not read", quantity.ErrParse},
 		{"repeated", foreign(t, []rep{{[]float64{1}}}), "repeated", quantity.ErrParse},
 		{"bad unit", foreign(t, []bare{{1}}, UnitKey+"V", "furlongs"), "not a unit", quantity.ErrUnknown},
 		{"bracket unit", foreign(t, []bare{{1}}, UnitKey+"V", "m] [s"), "brackets", quantity.ErrParse},
