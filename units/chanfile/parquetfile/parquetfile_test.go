@@ -335,6 +335,12 @@ func FuzzReader(f *testing.F) {
 	f.Add(buf.Bytes())
 	f.Add(buf.Bytes()[:buf.Len()/2])
 	f.Add([]byte("PAR1PAR1"))
+	// Files of every kind read, from another program: DECIMAL, TIMESTAMP,
+	// DATE, STRING, GZIP and ZSTD pages.
+	for _, b := range [][]byte{typedFile(f, parquet.Compression(&parquet.Gzip)), typedFile(f, parquet.Compression(&parquet.Zstd))} {
+		f.Add(b)
+		f.Add(b[:len(b)*2/3])
+	}
 	f.Fuzz(func(t *testing.T, b []byte) {
 		r, err := NewReader(bytes.NewReader(b), int64(len(b)), "f", Options{})
 		if err != nil {

@@ -220,7 +220,7 @@ func NewReader(r io.ReaderAt, size int64, name string, opt Options) (rd *Reader,
 	if len(pick) > MaxColumns {
 		return nil, &Error{File: name, Reason: fmt.Sprintf("%d columns, more than %d", len(pick), MaxColumns)}
 	}
-	use := make([]bool, leaves)
+	use, optional := make([]bool, leaves), make([]bool, leaves)
 	rd = &Reader{name: name, file: f}
 	for _, i := range pick {
 		fd := fields[i]
@@ -248,6 +248,7 @@ func NewReader(r io.ReaderAt, size int64, name string, opt Options) (rd *Reader,
 			col.Unit = units.MustParse("Pa")
 		}
 		use[c.leaf] = true
+		optional[c.leaf] = fd.el.RepetitionType.Valid && fd.el.RepetitionType.V == format.Optional
 		rd.cols = append(rd.cols, col)
 		rd.rc = append(rd.rc, c)
 	}
@@ -260,7 +261,7 @@ func NewReader(r io.ReaderAt, size int64, name string, opt Options) (rd *Reader,
 			return nil, &Error{File: name, Field: n, Reason: "Options.Units names a column the file does not have", class: quantity.ErrInvalid}
 		}
 	}
-	if err := checkPages(r, size, f, use); err != nil {
+	if err := checkPages(r, size, f, use, optional); err != nil {
 		return nil, &Error{File: name, Reason: "not a readable Parquet file", Err: err}
 	}
 	rd.groups = f.RowGroups()

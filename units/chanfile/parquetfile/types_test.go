@@ -2,16 +2,19 @@ package parquetfile
 
 import (
 	"bytes"
+	"encoding/binary"
 	"errors"
 	"io"
 	"math"
 	"math/big"
+	"path/filepath"
 	"strings"
 	"testing"
 	"time"
 
 	"github.com/google/go-cmp/cmp"
 	"github.com/parquet-go/parquet-go"
+	"github.com/parquet-go/parquet-go/format"
 	"pgregory.net/rapid"
 
 	"similis.dev/similis/quantity"
@@ -374,5 +377,174 @@ func TestGzipFilesRead(t *testing.T) {
 	}
 	if d := cmp.Diff(want, vals[0]); d != "" {
 		t.Errorf("(-want +got):\n%s", d)
+	}
+}
+
+// typedFile is a file of every kind read, as another program writes it:
+// a DECIMAL of each physical type, timestamps, a date, labels and a
+// double, 40 rows in row groups of 16, with the codec given.
+func typedFile(t tb, codec parquet.WriterOption) []byte {
+	const n = 40
+	var d32, d64, dfx, ts, day, lab, v []parquet.Value
+	for i := range n {
+		d32 = append(d32, parquet.Int32Value(int32(i*1234-9000)))
+		d64 = append(d64, parquet.Int64Value(int64(i)*123456789012345))
+		dfx = append(dfx, fixed(big.NewInt(int64(i-20)*1e15), 16))
+		ts = append(ts, parquet.Int64Value(1_700_000_000_000+int64(i)*250))
+		day = append(day, parquet.Int32Value(int32(19675+i)))
+		lab = append(lab, parquet.ByteArrayValue([]byte{'r', byte('a' + i%26)}))
+		if i%7 == 3 {
+			lab[i] = parquet.NullValue()
+		}
+		v = append(v, parquet.DoubleValue(float64(i)/3))
+	}
+	return schemaFile(t, []pcol{
+		{"F [N]", parquet.Decimal(3, 9, parquet.Int32Type), d32},
+		{"L [m]", parquet.Decimal(6, 18, parquet.Int64Type), d64},
+		{"Q [m3/s]", parquet.Decimal(10, 38, parquet.FixedLenByteArrayType(16)), dfx},
+		{"t", parquet.Timestamp(parquet.Millisecond), ts},
+		{"day", parquet.Date(), day},
+		{"run", parquet.Optional(parquet.String()), lab},
+		{"V [kn]", parquet.Leaf(parquet.DoubleType), v},
+	}, codec, parquet.MaxRowsPerRowGroup(16))
+}
+
+// encodedFile is a file of three columns as other programs write them
+// (an optional dictionary-encoded double, a DELTA_BINARY_PACKED integer,
+// an optional string), 100 rows, data pages of the version given,
+// uncompressed so that a test can edit the encoded values.
+func encodedFile(t tb, version int) []byte {
+	var d, c, s []parquet.Value
+	for i := range 100 {
+		d = append(d, parquet.DoubleValue(float64(i%3)/4))
+		c = append(c, parquet.Int64Value(int64(i*i)))
+		s = append(s, parquet.ByteArrayValue([]byte{'a' + byte(i%5)}))
+		if i%10 == 9 {
+			d[i], s[i] = parquet.NullValue(), parquet.NullValue()
+		}
+	}
+	return schemaFile(t, []pcol{
+		{"D [m]", parquet.Optional(parquet.Encoded(parquet.Leaf(parquet.DoubleType), &parquet.RLEDictionary)), d},
+		{"count [1]", parquet.Encoded(parquet.Int(64), &parquet.DeltaBinaryPacked), c},
+		{"run", parquet.Optional(parquet.Encoded(parquet.String(), &parquet.DeltaLengthByteArray)), s},
+	}, parquet.Compression(&parquet.Uncompressed), parquet.DataPageVersion(version))
+}
+
+// TestEncodedFilesRead: dictionary, delta and optional columns, in data
+// pages of version 1 (levels inside the page) and 2, read back; the
+// pre-check that walks their levels and indices accepts them.
+func TestEncodedFilesRead(t *testing.T) {
+	for _, version := range []int{1, 2} {
+		b := encodedFile(t, version)
+		r, err := NewReader(bytes.NewReader(b), int64(len(b)), "t.parquet", Options{})
+		if err != nil {
+			t.Fatalf("version %d: %v", version, err)
+		}
+		dst, n, err := r.Read(nil, 200)
+		if err != nil || n != 100 {
+			t.Fatalf("version %d: %d rows, %v", version, n, err)
+		}
+		for i := range 100 {
+			d, c, s := dst[0].Values()[i], dst[1].Values()[i], r.Labels(2)[i]
+			wd, ws := float64(i%3)/4, string(rune('a'+i%5))
+			if i%10 == 9 {
+				wd, ws = math.NaN(), ""
+			}
+			if !(d == wd || math.IsNaN(d) && math.IsNaN(wd)) || c != float64(i*i) || s != ws {
+				t.Fatalf("version %d row %d: %v %v %q, want %v %v %q", version, i+1, d, c, s, wd, i*i, ws)
+			}
+		}
+		// The encodings are the ones named.
+		seen := map[string]bool{}
+		rewrite(b, func(p *page) []byte {
+			if h := p.header.DataPageHeader; h.Valid {
+				seen[h.V.Encoding.String()] = true
+			} else if h := p.header.DataPageHeaderV2; h.Valid {
+				seen[h.V.Encoding.String()] = true
+			}
+			return p.body
+		}, nil)
+		for _, e := range []string{"RLE_DICTIONARY", "DELTA_BINARY_PACKED", "DELTA_LENGTH_BYTE_ARRAY"} {
+			if !seen[e] {
+				t.Errorf("version %d: no page of %s in %v", version, e, seen)
+			}
+		}
+	}
+}
+
+// TestRefusesRunsDeclaringMoreValues: a few bytes of a page can declare
+// 2³¹ values, which the decoder allocates at once: a run of dictionary
+// indices, a run of definition levels, a DELTA_BINARY_PACKED header, a
+// run of RLE-encoded numbers. Each is refused before the decoder runs;
+// the child process, limited to 1 GiB more than it holds, shows nothing
+// of them is allocated.
+func TestRefusesRunsDeclaringMoreValues(t *testing.T) {
+	if !inChild(t) {
+		return
+	}
+	huge := binary.AppendUvarint(nil, (1<<31-1)<<1) // an RLE run of 2³¹−1 repeats
+	for _, tc := range []struct {
+		name    string
+		version int
+		column  int
+		edit    func(p *page, values []byte) []byte // the new values
+		levels  func(levels []byte) []byte          // the new definition levels (version 2)
+		says    string
+	}{
+		{"dictionary indices", 2, 0, func(p *page, v []byte) []byte { return append([]byte{0}, huge...) }, nil, "dictionary indices whose runs declare more than the page's 100 values"},
+		{"definition levels", 2, 0, nil, func(l []byte) []byte { return append(huge, 1) }, "definition levels whose runs declare more"},
+		{"delta header", 2, 1, func(p *page, v []byte) []byte {
+			b := binary.AppendUvarint(nil, 128)
+			b = binary.AppendUvarint(b, 4)
+			b = binary.AppendUvarint(b, 1<<31-1)
+			return append(b, 0)
+		}, nil, "a delta-encoded header declaring 2147483647 values"},
+		{"RLE numbers", 2, 1, func(p *page, v []byte) []byte {
+			p.header.DataPageHeaderV2.V.Encoding = format.RLE
+			return huge
+		}, nil, "values of encoding RLE are not read"},
+		{"definition levels, version 1", 1, 0, func(p *page, v []byte) []byte { return v }, nil, "definition levels whose runs declare more"},
+	} {
+		b, err := rewrite(encodedFile(t, tc.version), func(p *page) []byte {
+			if p.column != tc.column || p.header.DictionaryPageHeader.Valid {
+				return p.body
+			}
+			body := p.body
+			if v := p.header.DataPageHeaderV2; v.Valid {
+				lv := int(v.V.RepetitionLevelsByteLength + v.V.DefinitionLevelsByteLength)
+				levels, values := body[:lv], body[lv:]
+				if tc.levels != nil {
+					levels = tc.levels(levels)
+					p.header.DataPageHeaderV2.V.DefinitionLevelsByteLength = int32(len(levels))
+				}
+				if tc.edit != nil {
+					values = tc.edit(p, values)
+				}
+				body = append(append([]byte{}, levels...), values...)
+			} else {
+				// Version 1: the levels, after their 4-byte length, become
+				// one huge run; the values follow unchanged.
+				n := int(binary.LittleEndian.Uint32(body))
+				values := body[4+n:]
+				body = binary.LittleEndian.AppendUint32(nil, uint32(len(huge)+1))
+				body = append(append(append(body, huge...), 1), values...)
+			}
+			p.header.UncompressedPageSize = int32(len(body))
+			return body
+		}, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		_, _, err = readAll(t, b, Options{})
+		var pe *Error
+		if !errors.As(err, &pe) || classCount(err) != 1 || !strings.Contains(err.Error(), tc.says) {
+			t.Errorf("%s: %v, want an *Error saying %q", tc.name, err, tc.says)
+		}
+	}
+	// The input FuzzPages found: a DATE page's encoding set to RLE.
+	a := corpusArgs(t, filepath.Join("testdata", "fuzz", "FuzzPages", "e6455657736ba30f"))
+	b := mutate(pageBases(t)[int(a[0].(int64))%7], uint16(a[1].(int64)), uint16(a[2].(int64)), a[3].([]byte), uint8(a[4].(int64)), int32(a[5].(int64)))
+	if _, _, err := readAll(t, b, Options{}); err == nil || !strings.Contains(err.Error(), "values of encoding RLE are not read") {
+		t.Errorf("saved input e6455657736ba30f: %v", err)
 	}
 }
