@@ -24,7 +24,8 @@ const UnitKey = "similis.unit."
 const MaxColumns = chanfile.MaxColumns
 
 // Error reports a problem in a Parquet file: the row (from 1; 0 when the
-// schema or the footer is concerned) and the column (from 1; 0 when the
+// schema or the footer is concerned) and the column (from 1, its place
+// among the file's top-level columns, whichever are read; 0 when the
 // whole file or row is concerned). It matches exactly one class of
 // package quantity under errors.Is: the class of Err when Err has one (an
 // unknown unit is quantity.ErrUnknown, with the *units.ParseError
