@@ -106,7 +106,9 @@ func classOf(err error) error {
 type Options struct {
 	// Units gives the unit text of columns that have no unit metadata,
 	// by column name ("V": "kn"). An entry for a column that has
-	// metadata is an error, so that two statements cannot disagree.
+	// metadata is an error, so that two statements cannot disagree, and
+	// so is an entry for a column the file does not have; an entry for a
+	// column of the file that Columns leaves out is not used.
 	Units map[string]string
 	// Reference, if set, is the absolute ambient pressure that gauge
 	// columns (a unit "kPa(g)", "psig") are read against, as in chanfile.

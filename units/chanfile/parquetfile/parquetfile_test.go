@@ -298,6 +298,14 @@ func TestWriterRefuses(t *testing.T) {
 	if _, err := NewWriter(&buf, "t.parquet", []chanfile.Column{col("V", "m/s"), col("V", "kn")}, Options{}); err == nil {
 		t.Errorf("duplicate column accepted")
 	}
+	// A name that carries a unit other than the column's would be
+	// refused on reading.
+	if _, err := NewWriter(&buf, "t.parquet", []chanfile.Column{{Name: "V [kn]", Unit: units.MustParse("m/s")}}, Options{}); !errors.Is(err, quantity.ErrInvalid) || !strings.Contains(err.Error(), `the name carries the unit "kn"`) {
+		t.Errorf("name V [kn] for a column in m/s: err = %v", err)
+	}
+	if _, err := NewWriter(&buf, "t.parquet", []chanfile.Column{{Name: "V [kn]", Unit: units.MustParse("kn")}}, Options{}); err != nil {
+		t.Errorf("name V [kn] for a column in kn: err = %v", err)
+	}
 	if _, err := NewWriter(&buf, "t.parquet", nil, Options{}); err == nil {
 		t.Errorf("no columns accepted")
 	}

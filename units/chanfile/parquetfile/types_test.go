@@ -121,6 +121,9 @@ func TestDecimalColumnsReadExactly(t *testing.T) {
 	b := schemaFile(t, []pcol{
 		{"F [N]", parquet.Optional(parquet.Decimal(3, 9, parquet.Int32Type)), append(i32s(12345, -1, 0), parquet.NullValue())},
 		{"L [m]", parquet.Decimal(6, 18, parquet.Int64Type), i64s(123456789012345678, -5, 7, 1)},
+		{"h [mm]", parquet.Decimal(2, 9, parquet.FixedLenByteArrayType(4)), []parquet.Value{
+			fixed(big.NewInt(-12345), 4), fixed(big.NewInt(1), 4), fixed(big.NewInt(2147483647), 4), fixed(big.NewInt(-2147483648), 4),
+		}},
 		{"Q [m3/s]", parquet.Decimal(10, 38, parquet.FixedLenByteArrayType(16)), []parquet.Value{
 			fixed(bigInt("-123456789012345678901234567890"), 16),
 			fixed(big.NewInt(5), 16),
@@ -135,12 +138,13 @@ func TestDecimalColumnsReadExactly(t *testing.T) {
 	want := [][]float64{
 		{12.345, -0.001, 0, math.NaN()},
 		{123456789012.345678, -0.000005, 0.000007, 0.000001},
+		{-0.12345, 0.00001, 21474.83647, -21474.83648}, // in m: the mm are ×0.001
 		{-12345678901234567890.1234567890, 0.0000000005, -0.0000000001, 9999999999999999999999999999.9999999999},
 	}
 	if d := cmp.Diff(want, vals, sameFloats); d != "" {
 		t.Errorf("values (-want +got):\n%s", d)
 	}
-	if cols[0].Missing != 1 || cols[0].Unit.String() != "N" || cols[2].Unit.String() != "m^3/s" {
+	if cols[0].Missing != 1 || cols[0].Unit.String() != "N" || cols[3].Unit.String() != "m^3/s" {
 		t.Errorf("columns %v", cols)
 	}
 	// 12.345 exactly: the float64 nearest 12.345 is the one ParseFloat gives.
