@@ -667,36 +667,40 @@ func (r *Reader) readBatch(k, n int) (read int, err error) {
 		return 0, nil
 	}
 	m := int(min(int64(k), want))
-	good := m // the rows every column holds, without an error
-	var first error
-	firstRow := m
+	// Each column's values first, then row by row, so that the rows
+	// before an error are whole and nothing after it is converted.
+	good := m // the rows every column holds
+	var short error
 	for j := range r.rc {
 		c := &r.rc[j]
 		if cap(c.buf) < batch {
 			c.buf = make([]parquet.Value, batch)
 		}
 		got, ferr := fill(c, c.buf[:m])
-		limit := got
-		var e error
-		if ferr != nil {
-			e = r.colError(j, r.row+int64(got)+1, "read failed", ferr)
-		} else if got < m {
-			e = &Error{File: r.name, Row: r.row + int64(got) + 1, Column: c.at, Field: r.cols[j].Name, Reason: fmt.Sprintf("row group %d declares %d rows, its pages hold %d: a damaged file", r.group+1, declared, r.inGroup+int64(got))}
+		if got < good {
+			good = got
+			switch {
+			case ferr != nil:
+				short = r.colError(j, r.row+int64(got)+1, "read failed", ferr)
+			default:
+				short = &Error{File: r.name, Row: r.row + int64(got) + 1, Column: c.at, Field: r.cols[j].Name, Reason: fmt.Sprintf("row group %d declares %d rows, its pages hold %d: a damaged file", r.group+1, declared, r.inGroup+int64(got))}
+			}
+		} else if ferr != nil && short == nil {
+			short = r.colError(j, r.row+int64(got)+1, "read failed", ferr)
 		}
-		for i := 0; i < got && i < good; i++ {
-			if cerr := r.convert(j, c.buf[i], r.row+int64(i)+1); cerr != nil {
-				limit, e = i, cerr
-				break
+	}
+	first := short
+rows:
+	for i := range good {
+		for j := range r.rc {
+			if err := r.convert(j, r.rc[j].buf[i], r.row+int64(i)+1); err != nil {
+				first, good = err, i
+				break rows
 			}
 		}
-		if e != nil && limit < firstRow {
-			first, firstRow = e, limit
-		}
-		good = min(good, limit)
 	}
 	if first != nil {
 		r.done = true
-		good = firstRow
 	}
 	for j := range r.vals {
 		r.vals[j] = r.vals[j][:min(len(r.vals[j]), n+good)]
