@@ -117,10 +117,11 @@ type Options struct {
 	// 0 means 1<<17.
 	RowGroupRows int
 	// Columns names the columns to read, in the order Read returns
-	// them; nil reads every column in the file's order. A column not
-	// named is never decoded: its type, its compression and its values
-	// cannot fail the file (only its page headers' place in the file is
-	// known, from the footer).
+	// them; nil reads every column in the file's order. An empty list,
+	// a name twice or a name the file lacks is an error
+	// (quantity.ErrInvalid). A column not named is never decoded, nor
+	// are its pages checked: its type, its compression and its values
+	// cannot fail the file.
 	Columns []string
 }
 
