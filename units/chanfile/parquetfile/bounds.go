@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 
+	"github.com/klauspost/compress/gzip"
 	"github.com/parquet-go/parquet-go"
 	"github.com/parquet-go/parquet-go/encoding/thrift"
 	"github.com/parquet-go/parquet-go/format"
@@ -28,6 +29,7 @@ var readable = map[format.CompressionCodec]bool{
 	format.Uncompressed: true,
 	format.Snappy:       true,
 	format.Zstd:         true,
+	format.Gzip:         true,
 }
 
 // checkFooter checks the file's trailer before the footer is decoded.
@@ -84,11 +86,12 @@ func (c *countReader) ReadByte() (byte, error) {
 	return b, err
 }
 
-// checkPages walks the page headers of every column chunk of f and checks
+// checkPages walks the page headers of the column chunks of f that use
+// marks (by their index in a row group) and checks
 // that each page fits in its chunk, the chunk in the file, and that no
 // page decodes to more than MaxPageBytes; it reads headers and the first
 // bytes of compressed data, never decompressing.
-func checkPages(r io.ReaderAt, size int64, f *parquet.File) error {
+func checkPages(r io.ReaderAt, size int64, f *parquet.File, use, optional []bool) error {
 	md := f.Metadata()
 	if md.EncryptionAlgorithm.Value != nil {
 		return fmt.Errorf("an encrypted file")
@@ -99,7 +102,13 @@ func checkPages(r io.ReaderAt, size int64, f *parquet.File) error {
 			return fmt.Errorf("row group %d: %d rows", g+1, rg.NumRows)
 		}
 		rows += rg.NumRows
+		if len(rg.Columns) != len(use) {
+			return fmt.Errorf("row group %d: %d column chunks, the schema has %d columns", g+1, len(rg.Columns), len(use))
+		}
 		for c, cc := range rg.Columns {
+			if !use[c] {
+				continue // never read: not looked at
+			}
 			where := fmt.Sprintf("row group %d, column %d", g+1, c+1)
 			m := cc.MetaData
 			if cc.FilePath != "" {
@@ -109,7 +118,7 @@ func checkPages(r io.ReaderAt, size int64, f *parquet.File) error {
 				return fmt.Errorf("%s: an encrypted column", where)
 			}
 			if !readable[m.Codec] {
-				return fmt.Errorf("%s: compression %v is not read (write the file with ZSTD, SNAPPY or none)", where, m.Codec)
+				return fmt.Errorf("%s: compression %v is not read (write the file with ZSTD, SNAPPY, GZIP or none)", where, m.Codec)
 			}
 			start := m.DataPageOffset
 			if m.DictionaryPageOffset > 0 && m.DictionaryPageOffset < start {
@@ -119,7 +128,7 @@ func checkPages(r io.ReaderAt, size int64, f *parquet.File) error {
 			if start < 4 || m.TotalCompressedSize <= 0 || end < start || end > size-8 {
 				return fmt.Errorf("%s: a chunk of %d bytes at offset %d, outside the file", where, m.TotalCompressedSize, start)
 			}
-			values, err := checkChunk(io.NewSectionReader(r, start, end-start), m.Codec)
+			values, err := checkChunk(io.NewSectionReader(r, start, end-start), m.Codec, optional[c])
 			if err != nil {
 				return fmt.Errorf("%s: %w", where, err)
 			}
@@ -135,9 +144,10 @@ func checkPages(r io.ReaderAt, size int64, f *parquet.File) error {
 	return nil
 }
 
-// checkChunk walks the pages of one column chunk and returns the number
-// of values its data pages declare.
-func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) (int64, error) {
+// checkChunk walks the pages of one column chunk (of a flat column,
+// optional or not) and returns the number of values its data pages
+// declare.
+func checkChunk(sr *io.SectionReader, codec format.CompressionCodec, optional bool) (int64, error) {
 	size := sr.Size()
 	cr := &countReader{r: bufio.NewReaderSize(sr, maxPageHeader)}
 	var proto thrift.CompactProtocol
@@ -205,6 +215,19 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) (int64, err
 				if out > unc {
 					return 0, fmt.Errorf("page %d: a snappy block that declares %d bytes, in a page of %d uncompressed", page, out, unc)
 				}
+			case format.Gzip:
+				// A gzip stream declares no size before its end: it is
+				// inflated here, into nothing, to the page's declared
+				// size and one byte more, and refused if it reaches it.
+				// The decoder then inflates the same stream to no more.
+				limit := unc - (data - body)
+				if limit < 0 {
+					return 0, fmt.Errorf("page %d: levels longer than the page's %d uncompressed bytes", page, unc)
+				}
+				out, err = gzipSize(io.NewSectionReader(sr, data, n), limit)
+				if err == nil && out > limit {
+					return 0, fmt.Errorf("page %d: a gzip stream that inflates to more than the %d bytes the page declares", page, limit)
+				}
 			case format.Zstd:
 				var declared int64
 				out, declared, err = zstdBound(io.NewSectionReader(sr, data, n), n)
@@ -219,12 +242,169 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec) (int64, err
 				return 0, fmt.Errorf("page %d: decompresses to as much as %d bytes (at most %d read)", page, out, int64(MaxPageBytes))
 			}
 		}
+		if err := checkEncoded(sr, &h, codec, body, comp, values, optional); err != nil {
+			return 0, fmt.Errorf("page %d: %v", page, err)
+		}
 		if _, err := cr.r.Discard(int(comp)); err != nil {
 			return 0, fmt.Errorf("page %d: %v", page, err)
 		}
 		cr.n += comp
 	}
 	return total, nil
+}
+
+// checkEncoded checks what the decoder would allocate from the counts
+// inside a page, once its size is known to be bounded: the runs of the
+// definition levels and of dictionary indices (the RLE/bit-packed hybrid
+// of the Parquet format), and the value count of a DELTA_BINARY_PACKED
+// header, may not declare more than the page's values, so that a few
+// bytes cannot declare 2³¹ values. Value encodings whose decoded size the
+// page does not bound (RLE and BIT_PACKED for numbers, DELTA_BYTE_ARRAY)
+// are refused. The page is decompressed here only when it holds such
+// counts (levels, dictionary indices, delta encodings).
+func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.CompressionCodec, body, comp, values int64, optional bool) error {
+	var enc format.Encoding
+	switch {
+	case h.DictionaryPageHeader.Valid:
+		if e := h.DictionaryPageHeader.V.Encoding; e != format.Plain && e != format.PlainDictionary {
+			return fmt.Errorf("a dictionary page of encoding %v", e)
+		}
+		return nil
+	case h.DataPageHeader.Valid:
+		enc = h.DataPageHeader.V.Encoding
+	case h.DataPageHeaderV2.Valid:
+		enc = h.DataPageHeaderV2.V.Encoding
+	default:
+		return nil
+	}
+	switch enc {
+	case format.Plain, format.ByteStreamSplit:
+	case format.PlainDictionary, format.RLEDictionary, format.DeltaBinaryPacked, format.DeltaLengthByteArray:
+	default:
+		return fmt.Errorf("values of encoding %v are not read (PLAIN, dictionary, DELTA_BINARY_PACKED, DELTA_LENGTH_BYTE_ARRAY and BYTE_STREAM_SPLIT are)", enc)
+	}
+	counted := enc != format.Plain && enc != format.ByteStreamSplit
+	if !counted && !optional {
+		return nil
+	}
+	limit := values + 64 // a last bit-packed group is padded to 8
+	raw := make([]byte, comp)
+	if _, err := sr.ReadAt(raw, body); err != nil {
+		return err
+	}
+	decode := func(b []byte) ([]byte, error) {
+		if codec == format.Uncompressed {
+			return b, nil
+		}
+		return parquet.LookupCompressionCodec(codec).Decode(nil, b)
+	}
+	var data []byte
+	if h.DataPageHeader.Valid {
+		d, err := decode(raw)
+		if err != nil {
+			return fmt.Errorf("a damaged compressed page: %v", err)
+		}
+		if optional {
+			if e := h.DataPageHeader.V.DefinitionLevelEncoding; e != format.RLE {
+				return fmt.Errorf("definition levels of encoding %v (RLE is read)", e)
+			}
+			if len(d) < 4 {
+				return fmt.Errorf("definition levels cut short")
+			}
+			n := int64(binary.LittleEndian.Uint32(d))
+			if n > int64(len(d)-4) {
+				return fmt.Errorf("definition levels of %d bytes in a page of %d", n, len(d))
+			}
+			if err := hybridRuns(d[4:4+n], 1, limit, "definition levels"); err != nil {
+				return err
+			}
+			d = d[4+n:]
+		}
+		data = d
+	} else {
+		v := h.DataPageHeaderV2.V
+		rl, dl := int64(v.RepetitionLevelsByteLength), int64(v.DefinitionLevelsByteLength)
+		if optional {
+			if err := hybridRuns(raw[rl:rl+dl], 1, limit, "definition levels"); err != nil {
+				return err
+			}
+		}
+		if !counted {
+			return nil
+		}
+		data = raw[rl+dl:]
+		if !v.IsCompressed.Valid || v.IsCompressed.V {
+			d, err := decode(data)
+			if err != nil {
+				return fmt.Errorf("a damaged compressed page: %v", err)
+			}
+			data = d
+		}
+	}
+	switch enc {
+	case format.PlainDictionary, format.RLEDictionary:
+		if len(data) == 0 {
+			return nil
+		}
+		if data[0] > 32 {
+			return fmt.Errorf("dictionary indices of %d bits", data[0])
+		}
+		return hybridRuns(data[1:], int64(data[0]), limit, "dictionary indices")
+	case format.DeltaBinaryPacked, format.DeltaLengthByteArray:
+		// Block size, miniblocks per block, then the value count.
+		p := data
+		for range 2 {
+			if _, k := binary.Uvarint(p); k > 0 {
+				p = p[k:]
+			} else {
+				return nil // the decoder refuses it
+			}
+		}
+		if n, k := binary.Uvarint(p); k > 0 && n > uint64(limit) {
+			return fmt.Errorf("a delta-encoded header declaring %d values in a page of %d", n, values)
+		}
+	}
+	return nil
+}
+
+// hybridRuns walks the runs of an RLE/bit-packed hybrid stream of
+// width-bit values and refuses it if they declare more than limit values.
+func hybridRuns(b []byte, width, limit int64, what string) error {
+	var total int64
+	for i := 0; i < len(b); {
+		u, k := binary.Uvarint(b[i:])
+		if k <= 0 {
+			return nil // the decoder refuses it
+		}
+		i += k
+		n := int64(min(u>>1, 1<<40))
+		if u&1 != 0 { // n groups of 8 bit-packed values
+			total += 8 * n
+			i += int(min(n*width, int64(len(b))))
+		} else { // n repeats of one value
+			total += n
+			i += int((width + 7) / 8)
+		}
+		if total > limit {
+			return fmt.Errorf("%s whose runs declare more than the page's %d values", what, limit-64)
+		}
+	}
+	return nil
+}
+
+// gzipSize inflates the gzip stream of r (all its members, as the
+// decoder does) into nothing and returns the bytes it inflates to, at
+// most limit+1: memory stays that of one inflater, whatever the stream.
+func gzipSize(r io.Reader, limit int64) (int64, error) {
+	z, err := gzip.NewReader(r)
+	if err != nil {
+		return 0, fmt.Errorf("a damaged gzip stream: %v", err)
+	}
+	n, err := io.Copy(io.Discard, io.LimitReader(z, limit+1))
+	if err != nil {
+		return n, fmt.Errorf("a damaged gzip stream: %v", err)
+	}
+	return n, nil
 }
 
 // zstdBound returns an upper bound on the bytes that the zstd frames in r

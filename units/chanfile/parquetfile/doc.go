@@ -18,32 +18,82 @@
 // package units, and the readings are kept on the Column, as in package
 // chanfile.
 //
-// Readable columns are flat, not repeated, of physical type DOUBLE, FLOAT,
-// INT32 or INT64 (a plain integer logical type is accepted; a DECIMAL, a
-// timestamp or a date is refused, since the integer stored is not the value
-// in the unit). A null, or a NaN, is a missing value, held as NaN and
+// # What is read
+//
+// A caller may name the columns it wants (Options.Columns); the others
+// are never decoded, nor their pages checked, so a column of a type or a
+// compression not read, or a damaged one, does not fail the file unless
+// it is asked for. With no names, every column is read.
+//
+// A column read is flat, not repeated, and one of three kinds (Kind):
+//
+//   - Number: DOUBLE, FLOAT, INT32 or INT64, with a plain integer
+//     logical or converted type or none, or a DECIMAL stored as INT32,
+//     INT64, FIXED_LEN_BYTE_ARRAY or BYTE_ARRAY (at most 16 bytes, 38
+//     digits). A DECIMAL is unscaled × 10^−scale, converted to float64
+//     once: the float64 nearest the exact decimal (a DECIMAL(9,3) 12345 is
+//     12.345 as the literal 12.345 is), then to SI by its unit, which
+//     comes from the metadata, Options.Units or the name as for any
+//     number. An integer beyond ±2⁵³ is refused, since it would not be
+//     exact; a DECIMAL is rounded as said.
+//   - Time: a TIMESTAMP (MILLIS, MICROS or NANOS; adjusted to UTC or
+//     not) or a DATE, read as seconds (unit s) from the column's first
+//     sample, exact to one rounding of the tick count; Reader.Origin
+//     keeps that sample's instant and says whether the file stores it in
+//     UTC or as a wall-clock reading of no stated zone. Instants more
+//     than 2⁵³ ticks from the first are refused (ErrRange). A unit given
+//     to a time column is refused, not applied.
+//   - Label: a STRING, UTF8 or ENUM, read as text by Reader.Labels, one
+//     string a row; the column's Series from Read is empty. A label that
+//     is not valid UTF-8 is refused.
+//
+// Refused, with the column named: BOOLEAN, INT96, a BYTE_ARRAY or
+// FIXED_LEN_BYTE_ARRAY with no logical type, JSON, BSON, UUID, TIME,
+// INTERVAL and the other logical types, nested groups and repeated
+// columns: their stored bytes are not a value in a unit.
+//
+// A unit stated twice must agree: a unit in the metadata, or in
+// Options.Units, that differs from the unit the column's name carries
+// ("V [kn]" with "m/s") is refused with both named; the metadata and
+// Options.Units together are refused in any case.
+//
+// A null, or a NaN, is a missing value, held as NaN (an empty label) and
 // counted on the column; an infinite value is an error with the row and
 // column; a value that overflows float64 in SI, or a nonzero one that
-// underflows to 0, is an error matching quantity.ErrRange. Values are read chunk by chunk, so a file of any length reduces
-// in bounded memory. A file that is not valid Parquet gives an *Error.
+// underflows to 0, is an error matching quantity.ErrRange. Values are
+// read chunk by chunk, so a file of any length reduces in bounded memory.
+// A file that is not valid Parquet gives an *Error.
+//
+// # Bounded reading
 //
 // Before anything is decoded, the footer (at most MaxFooterBytes) and
-// every page header are checked. Their Thrift structure is walked first:
-// no string or list may declare more than the bytes that hold it, and the
-// footer's lists may not decode to more than 256 MiB. A page may hold at most MaxPageBytes,
-// compressed or not, and its decompressed size is bounded from its own
-// headers. What a compressed frame declares is checked too, since a
-// decoder allocates it at once: a zstd frame's content size and window, a
-// snappy block's length, none may exceed MaxPageBytes or the page's
-// uncompressed size. The rows the footer and the row groups declare must
-// agree with each other and with the values of the pages, so NumRows is
-// no larger than what the pages hold; and Read takes memory for the rows
-// it reads, never for the rows it is asked for. Pages compressed with ZSTD or SNAPPY, or not compressed, are
-// read; GZIP, LZ4 and BROTLI pages are refused with a message, since
-// their decoders' memory cannot be bounded in advance (a damaged LZ4 block
-// makes the decoder grow its buffer without end). Encrypted files and
-// data in other files are refused. A panic left in the decoder becomes an
-// *Error, so a damaged file cannot crash the caller.
+// every page header of the columns read are checked. Their Thrift
+// structure is walked first: no string or list may declare more than the
+// bytes that hold it, and the footer's lists may not decode to more than
+// 256 MiB. A page may hold at most MaxPageBytes, compressed or not, and
+// its decompressed size is bounded from its own headers. What a
+// compressed frame declares is checked too, since a decoder allocates it
+// at once: a zstd frame's content size and window, a snappy block's
+// length, none may exceed MaxPageBytes or the page's uncompressed size. A
+// gzip stream declares no size: it is inflated in the check, into
+// nothing, to the page's declared uncompressed size and one byte more, and
+// refused if it reaches it, so a small page that inflates far beyond its
+// size is never held. Counts inside a page are checked as well, since the
+// decoder allocates what they declare: the runs of definition levels and
+// of dictionary indices, and the value count of a DELTA_BINARY_PACKED or
+// DELTA_LENGTH_BYTE_ARRAY header, may not declare more values than the
+// page; numbers encoded RLE or BIT_PACKED (defined for booleans only) and
+// DELTA_BYTE_ARRAY, whose decoded size the page does not bound, are
+// refused. The rows the footer and the row groups declare must agree with
+// each other and with the values of the pages, so NumRows is no larger
+// than what the pages hold; and Read takes memory for the rows it reads,
+// never for the rows it is asked for. Pages compressed with ZSTD, SNAPPY
+// or GZIP, or not compressed, are read; LZ4 and BROTLI pages are refused
+// with a message, since their decoders' memory cannot be bounded in
+// advance (a damaged LZ4 block makes the decoder grow its buffer without
+// end). Encrypted files and data in other files are refused. A panic left
+// in the decoder becomes an *Error, so a damaged file cannot crash the
+// caller.
 //
 // Writer writes Series in chosen units as optional DOUBLE columns in the
 // order given (a NaN becomes a null), with zstd compression, row groups of

@@ -48,7 +48,11 @@ func pageBases(t tb) [][]byte {
 	if err != nil {
 		t.Fatal(err)
 	}
-	return [][]byte{b, raw, snappy, validFile(t)}
+	gz, err := rewrite(b, func(p *page) []byte { return recompress(p, gzipPage) }, toGzip)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return [][]byte{b, raw, snappy, validFile(t), gz, typedFile(t, parquet.Compression(&parquet.Gzip)), typedFile(t, parquet.Compression(&parquet.Zstd))}
 }
 
 // mutate rewrites base with the bytes of data written over the body of
@@ -120,6 +124,12 @@ func FuzzPages(f *testing.F) {
 	f.Add(uint8(0), uint16(3), uint16(0), []byte{}, uint8(2), int32(1<<24))
 	f.Add(uint8(3), uint16(1), uint16(0), []byte{}, uint8(3), int32(-1))
 	f.Add(uint8(2), uint16(4), uint16(9), []byte{1, 2, 3}, uint8(5), int32(8))
+	f.Add(uint8(4), uint16(1), uint16(0), []byte{}, uint8(1), int32(4))                  // a gzip page declaring less than it inflates to
+	f.Add(uint8(4), uint16(2), uint16(12), []byte{0xff, 0x00, 0x13}, uint8(0), int32(0)) // a damaged deflate stream
+	f.Add(uint8(5), uint16(5), uint16(30), []byte{0x7f, 0xff}, uint8(0), int32(0))       // a DECIMAL page (gzip)
+	f.Add(uint8(6), uint16(9), uint16(20), []byte{0x80}, uint8(0), int32(0))             // a timestamp page (zstd)
+	f.Add(uint8(6), uint16(17), uint16(8), []byte{0xff, 0xfe}, uint8(2), int32(3))       // a label page
+	f.Add(uint8(5), uint16(3), uint16(0), []byte{}, uint8(1), int32(2))                  // a gzip page declaring less
 	f.Fuzz(func(t *testing.T, which uint8, sel, off uint16, data []byte, field uint8, val int32) {
 		if len(data) > 64 {
 			data = data[:64]
@@ -142,6 +152,15 @@ func FuzzPages(f *testing.F) {
 			dst, n, err = r.Read(dst, 64)
 			rows += int64(n)
 			for j := range dst {
+				if r.Kind(j) == Label {
+					if len(r.Labels(j)) != n || dst[j].Len() != 0 {
+						t.Fatalf("label column %d: %d labels and %d values for %d rows", j+1, len(r.Labels(j)), dst[j].Len(), n)
+					}
+					continue
+				}
+				if dst[j].Len() != n {
+					t.Fatalf("column %d: %d values for %d rows", j+1, dst[j].Len(), n)
+				}
 				for _, x := range dst[j].Values()[:n] {
 					if math.IsInf(x, 0) {
 						t.Fatalf("column %d: %v with a nil error", j+1, x)

@@ -2,6 +2,7 @@ package parquetfile
 
 import (
 	"bytes"
+	"compress/gzip"
 	"encoding/binary"
 	"errors"
 	"flag"
@@ -32,7 +33,40 @@ const (
 	fileFooterList  = "footer-list-2e31.parquet"         // a footer whose list of row groups declares 2³¹−1 of them
 	fileFooterBytes = "footer-string-2GiB.parquet"       // a footer whose key-value string declares 2 GiB
 	filePageBytes   = "page-header-string-2GiB.parquet"  // a page header whose statistics string declares 2 GiB
+	fileGzipBomb    = "gzip-inflates-1MiB.parquet"       // a gzip page declaring its true size whose stream inflates to 1 MiB more
 )
+
+// toGzip marks every column chunk of a file GZIP-compressed.
+func toGzip(md *format.FileMetaData) {
+	for g := range md.RowGroups {
+		for c := range md.RowGroups[g].Columns {
+			md.RowGroups[g].Columns[c].MetaData.Codec = format.Gzip
+		}
+	}
+}
+
+// gzipPage returns d as one gzip member (parquet-go's codec).
+func gzipPage(d []byte) []byte {
+	g, err := parquet.Gzip.Encode(nil, d)
+	if err != nil {
+		panic(err)
+	}
+	return g
+}
+
+// gzipBomb returns d as one gzip member followed by members that each
+// inflate to 1 MiB of zeros (about 1 KiB each), n of them.
+func gzipBomb(d []byte, n int) []byte {
+	out := gzipPage(d)
+	var buf bytes.Buffer
+	z, _ := gzip.NewWriterLevel(&buf, gzip.BestCompression)
+	z.Write(make([]byte, 1<<20))
+	z.Close()
+	for range n {
+		out = append(out, buf.Bytes()...)
+	}
+	return out
+}
 
 // bareFooter returns a file of nothing but the footer given (Thrift
 // compact protocol bytes).
@@ -142,6 +176,9 @@ func hostileFiles(t *testing.T) map[string][]byte {
 		}
 		return p.body
 	}, nil)
+	add(fileGzipBomb, func(p *page) []byte {
+		return recompress(p, func(d []byte) []byte { return gzipBomb(d, 1) })
+	}, toGzip)
 	add(fileFooterRows, nil, func(md *format.FileMetaData) { md.NumRows = 1 << 40 })
 	add(fileGroupRows, nil, func(md *format.FileMetaData) {
 		md.NumRows = 1 << 40
@@ -160,7 +197,7 @@ func TestHostileFilesAreAsStated(t *testing.T) {
 			}
 		}
 	}
-	for _, name := range []string{fileZstdContent, fileZstdWindow, fileSnappy, fileFooterRows, fileGroupRows, fileFooterList, fileFooterBytes, filePageBytes} {
+	for _, name := range []string{fileZstdContent, fileZstdWindow, fileSnappy, fileFooterRows, fileGroupRows, fileFooterList, fileFooterBytes, filePageBytes, fileGzipBomb} {
 		b, err := os.ReadFile(filepath.Join("testdata", name))
 		if err != nil {
 			t.Fatal(err)
@@ -182,6 +219,14 @@ func TestHostileFilesAreAsStated(t *testing.T) {
 		case filePageBytes, fileFooterBytes, fileFooterList:
 			if !bytes.Contains(b, []byte{0xff, 0xff, 0xff, 0xff, 0x07}) {
 				t.Errorf("%s: no length 2³¹−1", name)
+			}
+		case fileGzipBomb:
+			z, err := gzip.NewReader(bytes.NewReader(b[bytes.Index(b, []byte{0x1f, 0x8b}):]))
+			if err != nil {
+				t.Fatal(err)
+			}
+			if n, _ := io.Copy(io.Discard, z); n < 1<<20 {
+				t.Errorf("%s: the gzip stream inflates to %d bytes", name, n)
 			}
 		case fileSnappy:
 			if !bytes.Contains(b, binary.AppendUvarint(nil, 3<<30)) {
@@ -266,6 +311,32 @@ func TestRefusesSnappyBlockDeclaringHugeContent(t *testing.T) {
 	}
 }
 
+// TestRefusesGzipStreamInflatingPastItsPage: a gzip page whose stream
+// inflates beyond the size its header declares is refused, from the small
+// committed file (1 MiB more) to a generated one whose stream inflates to
+// 4 GiB: the pre-check inflates into nothing, to the declared size and
+// one byte more, so the child process, limited to 1 GiB more than it
+// holds, never holds what the stream would inflate to.
+func TestRefusesGzipStreamInflatingPastItsPage(t *testing.T) {
+	if !inChild(t) {
+		return
+	}
+	refused(t, fileGzipBomb, "a gzip stream that inflates to more than the")
+	bomb, err := rewrite(validFile(t), func(p *page) []byte {
+		return recompress(p, func(d []byte) []byte { return gzipBomb(d, 4096) })
+	}, toGzip)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(bomb) > 8<<20 {
+		t.Fatalf("the generated file has %d bytes", len(bomb))
+	}
+	_, _, err = readAll(t, bomb, Options{})
+	if err == nil || !strings.Contains(err.Error(), "a gzip stream that inflates to more than the") || classCount(err) != 1 {
+		t.Fatalf("a page inflating to 4 GiB: %v", err)
+	}
+}
+
 // TestRefusesFooterDeclaringMoreRows: a footer declaring 2⁴⁰ rows, read
 // with Read(dst, int(r.NumRows())), is refused, never allocated.
 func TestRefusesFooterDeclaringMoreRows(t *testing.T) {
@@ -344,6 +415,7 @@ func TestRewriteControl(t *testing.T) {
 		{"snappy", func(p *page) []byte {
 			return recompress(p, func(d []byte) []byte { s, _ := parquet.Snappy.Encode(nil, d); return s })
 		}, snappy},
+		{"gzip", func(p *page) []byte { return recompress(p, gzipPage) }, toGzip},
 	} {
 		out, err := rewrite(b, tc.edit, tc.meta)
 		if err != nil {

@@ -53,7 +53,9 @@ func readAll(t tb, b []byte, opt Options) ([]chanfile.Column, [][]float64, error
 			out = make([][]float64, len(dst))
 		}
 		for j := range dst {
-			out[j] = append(out[j], dst[j].Values()[:n]...)
+			if r.Kind(j) != Label {
+				out[j] = append(out[j], dst[j].Values()[:n]...)
+			}
 		}
 	}
 	return r.Columns(), out, nil
@@ -229,14 +231,14 @@ func TestForeignFiles(t *testing.T) {
 		t.Errorf("metadata and Options.Units both: err = %v", err)
 	}
 
-	type text struct {
-		S string `parquet:"S [m]"`
+	type blob struct {
+		S []byte `parquet:"S [m]"`
 	}
-	type dec struct {
-		D int64 `parquet:"D [m],decimal(2:10)"`
+	type flag struct {
+		B bool `parquet:"B [1]"`
 	}
-	type ts struct {
-		T int64 `parquet:"T [s],timestamp"`
+	type js struct {
+		J string `parquet:"J [1],json"`
 	}
 	type rep struct {
 		R []float64 `parquet:"R [m]"`
@@ -247,9 +249,9 @@ func TestForeignFiles(t *testing.T) {
 		want  string
 		class error
 	}{
-		{"string", foreign(t, []text{{"a"}}), "physical type", quantity.ErrParse},
-		{"decimal", foreign(t, []dec{{12}}), "not the value in its unit", quantity.ErrParse},
-		{"timestamp", foreign(t, []ts{{12}}), "not the value in its unit", quantity.ErrParse},
+		{"bytes", foreign(t, []blob{{[]byte("a")}}), "physical type BYTE_ARRAY with no logical type", quantity.ErrParse},
+		{"boolean", foreign(t, []flag{{true}}), "physical type BOOLEAN", quantity.ErrParse},
+		{"json", foreign(t, []js{{"{}"}}), "logical type JSON stored as BYTE_ARRAY: not read", quantity.ErrParse},
 		{"repeated", foreign(t, []rep{{[]float64{1}}}), "repeated", quantity.ErrParse},
 		{"bad unit", foreign(t, []bare{{1}}, UnitKey+"V", "furlongs"), "not a unit", quantity.ErrUnknown},
 		{"bracket unit", foreign(t, []bare{{1}}, UnitKey+"V", "m] [s"), "brackets", quantity.ErrParse},
@@ -296,6 +298,14 @@ func TestWriterRefuses(t *testing.T) {
 	if _, err := NewWriter(&buf, "t.parquet", []chanfile.Column{col("V", "m/s"), col("V", "kn")}, Options{}); err == nil {
 		t.Errorf("duplicate column accepted")
 	}
+	// A name that carries a unit other than the column's would be
+	// refused on reading.
+	if _, err := NewWriter(&buf, "t.parquet", []chanfile.Column{{Name: "V [kn]", Unit: units.MustParse("m/s")}}, Options{}); !errors.Is(err, quantity.ErrInvalid) || !strings.Contains(err.Error(), `the name carries the unit "kn"`) {
+		t.Errorf("name V [kn] for a column in m/s: err = %v", err)
+	}
+	if _, err := NewWriter(&buf, "t.parquet", []chanfile.Column{{Name: "V [kn]", Unit: units.MustParse("kn")}}, Options{}); err != nil {
+		t.Errorf("name V [kn] for a column in kn: err = %v", err)
+	}
 	if _, err := NewWriter(&buf, "t.parquet", nil, Options{}); err == nil {
 		t.Errorf("no columns accepted")
 	}
@@ -333,6 +343,12 @@ func FuzzReader(f *testing.F) {
 	f.Add(buf.Bytes())
 	f.Add(buf.Bytes()[:buf.Len()/2])
 	f.Add([]byte("PAR1PAR1"))
+	// Files of every kind read, from another program: DECIMAL, TIMESTAMP,
+	// DATE, STRING, GZIP and ZSTD pages.
+	for _, b := range [][]byte{typedFile(f, parquet.Compression(&parquet.Gzip)), typedFile(f, parquet.Compression(&parquet.Zstd))} {
+		f.Add(b)
+		f.Add(b[:len(b)*2/3])
+	}
 	f.Fuzz(func(t *testing.T, b []byte) {
 		r, err := NewReader(bytes.NewReader(b), int64(len(b)), "f", Options{})
 		if err != nil {
