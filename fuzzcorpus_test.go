@@ -30,6 +30,7 @@ var savedInputs = map[string]string{
 	"similarity/turbo/testdata/fuzz/FuzzRules/5836e5544a6fd379":            "a rule's derived ratios are finite and positive, or the rule refuses",
 	"units/chanfile/parquetfile/testdata/fuzz/FuzzPages/1c971a4d8bb8a8d6":  "a row group whose pages hold more rows than it declares is refused before the extra row is counted",
 	"units/chanfile/parquetfile/testdata/fuzz/FuzzPages/ac975b373eb98d2a":  "a column short of values in a row group is refused, never shifted against the other columns",
+	"units/chanfile/parquetfile/testdata/fuzz/FuzzPages/e6455657736ba30f":  "a run of levels, dictionary indices or delta-encoded values declaring more values than its page holds is refused before it is allocated",
 	"units/testdata/fuzz/FuzzParse/20e65aa6af615f41":                       "an accepted unit's ASCII and Unicode spellings parse back to the same unit",
 	"units/testdata/fuzz/FuzzParse/8ab0bf988a76eea9":                       "an accepted unit's ASCII and Unicode spellings parse back to the same unit",
 	"units/testdata/fuzz/FuzzUnmarshal/aa3c35cd2dfa17d6":                   "a unit or value decoded from text encodes to text that decodes back to the same unit and number",
