@@ -1,6 +1,7 @@
 package reduction
 
 import (
+	"cmp"
 	"errors"
 	"fmt"
 	"io"
@@ -474,6 +475,14 @@ func (r *run) derive(chunk []quantity.Series, out [][]float64, n, base int) erro
 	}
 	names := r.prog.Outputs()
 	for o := range out {
+		// A result that depends on no input (D = 0.25 {m}) is computed
+		// once; with no input column Series has no rows to fill.
+		if c, ok := r.prog.Constant(o); ok {
+			for k := range out[o][:n] {
+				out[o][k] = c
+			}
+			continue
+		}
 		for k, x := range out[o][:n] {
 			if !math.IsNaN(x) && !math.IsInf(x, 0) || anyNaN(in, k) {
 				continue
@@ -724,14 +733,12 @@ func (r *run) points() error {
 			}
 		}
 		gs := make([]uncertain.Measured, s.Set.Len())
+		var gerr error
 		if _, err := uncertain.Eval(func() uncertain.Measured {
-			_, err := gev.RowMeasured(vals, gs)
-			if err != nil {
-				panic(err)
-			}
+			_, gerr = gev.RowMeasured(vals, gs)
 			return uncertain.Measured{}
-		}); err != nil {
-			return r.fail(0, &Error{Point: w.tag, Reason: "groups", Err: err})
+		}); err != nil || gerr != nil {
+			return r.fail(0, &Error{Point: w.tag, Reason: "groups", Err: cmp.Or(gerr, err)})
 		}
 		r.res.Points = append(r.res.Points, Point{Tag: w.tag, Window: w.Window, Label: w.label, HasLabel: w.hasLabel, Channels: p.Values, Groups: gs})
 	}
@@ -813,4 +820,14 @@ func (r *run) zero(series map[string]quantity.Series, out **steady.Point) error 
 	}
 	*out = &p
 	return nil
+}
+
+// Value returns the result of the channel name at the point.
+func (p Point) Value(name string) (steady.Value, bool) {
+	for _, v := range p.Channels {
+		if v.Name == name {
+			return v, true
+		}
+	}
+	return steady.Value{}, false
 }
