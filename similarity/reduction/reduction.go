@@ -393,17 +393,23 @@ func (r *run) bind(cols []chanfile.Column, byName map[string]int) error {
 		}
 		r.binds[i] = b
 	}
-	groups := r.spec.Set.Groups()
+	r.res.Groups = groupsOf(r.spec.Set)
+	return nil
+}
+
+// groupsOf names the groups of a set for the results.
+func groupsOf(set *pigroups.Set) []Group {
+	var out []Group
 	seen := map[string]bool{}
-	for _, g := range groups {
+	for _, g := range set.Groups() {
 		col := symbol(g)
 		if col == "" || seen[col] {
 			col = g.Name
 		}
 		seen[col] = true
-		r.res.Groups = append(r.res.Groups, Group{Column: col, Name: g.Name, Definition: g.Name + " = " + g.Format(quantity.Unicode), Label: g.Label()})
+		out = append(out, Group{Column: col, Name: g.Name, Definition: g.Name + " = " + g.Format(quantity.Unicode), Label: g.Label()})
 	}
-	return nil
+	return out
 }
 
 // symbol returns the trade's symbol of a group that is exactly a named
