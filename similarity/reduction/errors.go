@@ -22,12 +22,18 @@ type Error struct {
 	Channel string // the channel, variable or group concerned, if any
 	Reason  string
 	Err     error // the cause, or nil
+
+	located bool // the cause's message names the file and line itself
 }
 
 // Error returns "reduction: carriage.csv:812: run 2: channel "drag": …".
 func (e *Error) Error() string {
 	var sb strings.Builder
 	sb.WriteString("reduction: ")
+	if e.located && e.Point == "" && e.Channel == "" && e.Reason == "" {
+		sb.WriteString(e.Err.Error())
+		return sb.String()
+	}
 	if e.File != "" {
 		sb.WriteString(e.File)
 		switch {

@@ -15,6 +15,7 @@ import (
 	"similis.dev/similis/similarity/fluids"
 	"similis.dev/similis/units"
 	"similis.dev/similis/units/chanfile"
+	"similis.dev/similis/units/chanfile/parquetfile"
 	"similis.dev/similis/units/formula"
 	"similis.dev/similis/units/steady"
 )
@@ -224,6 +225,8 @@ func (r *run) fail(row int, e *Error) error {
 	return e
 }
 
+// wrap makes err an *Error of file, with the line or row of a reader's
+// error.
 func wrap(file string, err error) error {
 	var e *Error
 	if errors.As(err, &e) {
@@ -232,7 +235,16 @@ func wrap(file string, err error) error {
 		}
 		return e
 	}
-	return &Error{File: file, Err: err}
+	e = &Error{File: file, Err: err}
+	var ce *chanfile.Error
+	var pe *parquetfile.Error
+	switch {
+	case errors.As(err, &ce):
+		e.Line, e.located = ce.Line, ce.File != ""
+	case errors.As(err, &pe):
+		e.Row, e.located = int(pe.Row), pe.File != ""
+	}
+	return e
 }
 
 // plan finds the columns needed, compiles the derived channels, binds
