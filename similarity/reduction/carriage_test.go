@@ -223,6 +223,7 @@ func TestAllRows(t *testing.T) {
 		t.Errorf("row %d: Re %g gives ν = %g", k, re, nu)
 	}
 }
+
 // TestSaveRoundTrip writes the points as CSV with a byte-order mark and
 // reads them back: the columns with chanfile, the group definitions
 // with ReadDefinitions.
