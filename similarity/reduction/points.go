@@ -130,11 +130,19 @@ func (p Points) windows(get func(string) (quantity.Series, bool)) ([]window, err
 		if err != nil {
 			return nil, err
 		}
+		seen := map[float64]int{}
 		for _, r := range steady.Runs(lab) {
 			if slices.Contains(p.except, r.Label) || p.only != nil && !slices.Contains(p.only, r.Label) || r.Len() < max(p.minLen, steady.MinSamples) {
 				continue
 			}
-			out = append(out, window{Window: r.Window, tag: "run " + strconv.FormatFloat(r.Label, 'g', -1, 64), label: r.Label, hasLabel: true})
+			// A label logged again later is a second run of that label:
+			// "run 1", then "run 1 (2)".
+			seen[r.Label]++
+			tag := "run " + strconv.FormatFloat(r.Label, 'g', -1, 64)
+			if k := seen[r.Label]; k > 1 {
+				tag += " (" + strconv.Itoa(k) + ")"
+			}
+			out = append(out, window{Window: r.Window, tag: tag, label: r.Label, hasLabel: true})
 		}
 	case timeSpans:
 		t, err := need(p.channel)
