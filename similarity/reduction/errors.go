@@ -15,6 +15,12 @@ import (
 // *formula.RangeError, an *uncertain.Error, …) when the cause has one,
 // and quantity.ErrInvalid otherwise, so it matches exactly one class.
 type Error struct {
+	// Op is the step that failed: "plan" when the spec does not fit the
+	// file's columns (a variable with no channel, a formula that does not
+	// compile, a unit that does not convert) — a mistake of the caller,
+	// not of the data — or "read", "derive", "calibrate", "points",
+	// "reduce", "groups", "write".
+	Op      string
 	File    string
 	Line    int    // the line of a text file, from 1; 0 if unknown
 	Row     int    // the data row, from 1; 0 if none

@@ -30,7 +30,8 @@ type WriteOptions struct {
 // WriteFile writes a file as a whole or not at all: write fills a
 // temporary file in path's directory, which is synced and renamed to
 // path only when write returns nil. On any failure the temporary file is
-// removed and a file already at path is left untouched.
+// removed and a file already at path is left untouched; write's own error
+// is returned as it is, the others as an *Error.
 func WriteFile(path string, write func(io.Writer) error) (err error) {
 	f, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".*.tmp")
 	if err != nil {
@@ -44,7 +45,7 @@ func WriteFile(path string, write func(io.Writer) error) (err error) {
 		}
 	}()
 	if err = write(f); err != nil {
-		return wrap(path, err)
+		return err // as write gave it
 	}
 	if err = f.Sync(); err != nil {
 		return &Error{File: path, Reason: "sync", Err: err}

@@ -140,6 +140,9 @@ type Result struct {
 	Groups  []Group
 	Columns []chanfile.Column // the channels read, with their missing counts
 	Derived []string          // the derived channels' names
+	// DerivedText is the derived channels' formula text as compiled, one
+	// statement a line.
+	DerivedText string
 	Set     *uncertain.Set    // the sources of every uncertainty
 	// Rows is the number of rows read; in the all-rows mode RowGroups
 	// holds the groups of every row unless Input.Rows took them.
@@ -174,7 +177,7 @@ func (s *Spec) Reduce(in Input) (res *Result, err error) {
 	}
 	r := &run{spec: s, in: in, res: &Result{File: in.Name, Set: uncertain.NewSet(), Nonfinite: map[string]int{}}}
 	if err := r.plan(src); err != nil {
-		return nil, err
+		return nil, setOp(err, "plan")
 	}
 	if s.Points.kind == allRows {
 		err = r.rows()
@@ -185,7 +188,19 @@ func (s *Spec) Reduce(in Input) (res *Result, err error) {
 		return nil, err
 	}
 	r.res.Columns = slices.Clone(r.sel.Columns())
+	if r.prog != nil {
+		r.res.DerivedText = r.prog.Text()
+	}
 	return r.res, nil
+}
+
+// setOp sets the Op of an *Error that has none.
+func setOp(err error, op string) error {
+	var e *Error
+	if errors.As(err, &e) && e.Op == "" {
+		e.Op = op
+	}
+	return err
 }
 
 // binding says where a variable's values come from.
@@ -364,7 +379,7 @@ func (r *run) bind(cols []chanfile.Column, byName map[string]int) error {
 	r.binds = make([]binding, len(r.vars))
 	for i, v := range r.vars {
 		fail := func(reason string, err error) error {
-			return r.fail(0, &Error{Channel: v.Symbol, Reason: reason, Err: err})
+			return r.fail(0, &Error{Reason: reason, Err: err})
 		}
 		var unit units.Unit // the channel's unit, when read
 		var dim quantity.Dim
@@ -379,10 +394,10 @@ func (r *run) bind(cols []chanfile.Column, byName map[string]int) error {
 			b.out = slices.Index(r.prog.Outputs(), v.Symbol)
 			dim = r.prog.Dim(b.out)
 		} else {
-			return fail("variable is neither a channel nor a derived channel", nil)
+			return fail(fmt.Sprintf("variable %s is neither a channel of %s nor a derived channel (channels: %s)", v.Symbol, r.in.Name, names(cols)), nil)
 		}
 		if dim != v.Dim {
-			return fail(fmt.Sprintf("variable is %s, but its channel is %s", quantity.Describe(v.Dim), quantity.Describe(dim)), quantity.ErrDimension)
+			return fail(fmt.Sprintf("variable %s is %s, but its channel is %s", v.Symbol, quantity.Describe(v.Dim), quantity.Describe(dim)), quantity.ErrDimension)
 		}
 		declared := unit
 		if r.spec.Units != nil {
@@ -470,7 +485,7 @@ func (r *run) calibrate(chunk []quantity.Series, t quantity.Series, base int) er
 			if errors.As(err, &re) && re.Row >= 0 {
 				row = base + re.Row + 1
 			}
-			return r.fail(row, &Error{Channel: name, Err: err})
+			return r.fail(row, &Error{Op: "calibrate", Channel: name, Err: err})
 		}
 		chunk[k] = *buf
 	}
@@ -487,9 +502,9 @@ func (r *run) derive(chunk []quantity.Series, out [][]float64, n, base int) erro
 	if err := r.ev.Series(in, out); err != nil {
 		var re *formula.RangeError
 		if errors.As(err, &re) && re.Row >= 0 {
-			return r.fail(base+re.Row+1, &Error{Channel: re.Name, Reason: "derived channel", Err: err})
+			return r.fail(base+re.Row+1, &Error{Op: "derive", Channel: re.Name, Reason: "derived channel", Err: err})
 		}
-		return r.fail(0, &Error{Reason: "derived channels", Err: err})
+		return r.fail(0, &Error{Op: "derive", Reason: "derived channels", Err: err})
 	}
 	names := r.prog.Outputs()
 	for o := range out {
@@ -506,7 +521,7 @@ func (r *run) derive(chunk []quantity.Series, out [][]float64, n, base int) erro
 				continue
 			}
 			if !r.spec.NonfiniteMissing {
-				return r.fail(base+k+1, &Error{Channel: names[o], Reason: fmt.Sprintf("derived value %v from a row with every channel present (a 0/0, an overflow or a function outside its domain)", x), Err: quantity.ErrRange})
+				return r.fail(base+k+1, &Error{Op: "derive", Channel: names[o], Reason: fmt.Sprintf("derived value %v from a row with every channel present (a 0/0, an overflow or a function outside its domain)", x), Err: quantity.ErrRange})
 			}
 			out[o][k] = math.NaN()
 			r.res.Nonfinite[names[o]]++
@@ -554,7 +569,7 @@ func (r *run) rows() error {
 			return nil
 		}
 		if err != nil {
-			return wrap(r.in.Name, err)
+			return setOp(wrap(r.in.Name, err), "read")
 		}
 		if err := r.calibrate(chunk, quantity.Series{}, r.res.Rows); err != nil {
 			return err
@@ -594,16 +609,16 @@ func (r *run) rows() error {
 		if err := gev.Series(vcols, gbuf); err != nil {
 			k, rerr := failingRow(gev, vcols, n, ng)
 			if rerr == nil {
-				return r.fail(0, &Error{Reason: fmt.Sprintf("rows %d to %d: groups", r.res.Rows+1, r.res.Rows+n), Err: err})
+				return r.fail(0, &Error{Op: "groups", Reason: fmt.Sprintf("rows %d to %d: groups", r.res.Rows+1, r.res.Rows+n), Err: err})
 			}
-			return r.fail(r.res.Rows+k+1, &Error{Reason: "groups", Err: rerr})
+			return r.fail(r.res.Rows+k+1, &Error{Op: "groups", Reason: "groups", Err: rerr})
 		}
 		for g := range gbuf {
 			gser[g] = quantity.NewSeries(gbuf[g], 0)
 		}
 		if sink != nil {
 			if err := sink.Write(gser); err != nil {
-				return r.fail(0, &Error{Reason: "writing the groups", Err: err})
+				return r.fail(0, &Error{Op: "write", Reason: "writing the groups", Err: err})
 			}
 		} else {
 			if r.res.RowGroups == nil {
@@ -651,7 +666,7 @@ func (r *run) points() error {
 			break
 		}
 		if err != nil {
-			return wrap(r.in.Name, err)
+			return setOp(wrap(r.in.Name, err), "read")
 		}
 		if err := r.calibrate(chunk, t, r.res.Rows); err != nil {
 			return err
@@ -685,10 +700,10 @@ func (r *run) points() error {
 	get := func(n string) (quantity.Series, bool) { x, ok := series[n]; return x, ok }
 	ws, err := s.Points.windows(get)
 	if err != nil {
-		return r.fail(0, err.(*Error))
+		return setOp(r.fail(0, err.(*Error)), "points")
 	}
 	if len(ws) == 0 {
-		return r.fail(0, &Error{Reason: "no points found (" + s.Points.String() + ")", Err: quantity.ErrRange})
+		return r.fail(0, &Error{Op: "points", Reason: "no points found (" + s.Points.String() + ")", Err: quantity.ErrRange})
 	}
 	// The channels reduced at each point: the variables', the derived
 	// ones, the tared and calibrated ones and Also, each once.
@@ -756,7 +771,7 @@ func (r *run) points() error {
 			_, gerr = gev.RowMeasured(vals, gs)
 			return uncertain.Measured{}
 		}); err != nil || gerr != nil {
-			return r.fail(0, &Error{Point: w.tag, Reason: "groups", Err: cmp.Or(gerr, err)})
+			return r.fail(0, &Error{Op: "groups", Point: w.tag, Reason: "groups", Err: cmp.Or(gerr, err)})
 		}
 		r.res.Points = append(r.res.Points, Point{Tag: w.tag, Window: w.Window, Label: w.label, HasLabel: w.hasLabel, Channels: p.Values, Groups: gs})
 	}
@@ -770,7 +785,7 @@ func (r *run) stepErr(tag string, err error) error {
 	if errors.As(err, &se) && se.Row >= 0 {
 		row = se.Row + 1
 	}
-	return r.fail(row, &Error{Point: tag, Err: err})
+	return r.fail(row, &Error{Op: "reduce", Point: tag, Err: err})
 }
 
 // zero reduces the zero: a window of the history or a zero file.
