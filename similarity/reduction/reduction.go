@@ -143,7 +143,7 @@ type Result struct {
 	// DerivedText is the derived channels' formula text as compiled, one
 	// statement a line.
 	DerivedText string
-	Set     *uncertain.Set    // the sources of every uncertainty
+	Set         *uncertain.Set // the sources of every uncertainty
 	// Rows is the number of rows read; in the all-rows mode RowGroups
 	// holds the groups of every row unless Input.Rows took them.
 	Rows      int
