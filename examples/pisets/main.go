@@ -89,8 +89,8 @@ import (
 
 	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/pigroups"
-	"similis.dev/similis/similarity/reduction"
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity/reduction"
 	"similis.dev/similis/units"
 )
 

@@ -18,11 +18,11 @@ import (
 
 	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity/reduction"
 	"similis.dev/similis/units"
 	"similis.dev/similis/units/chanfile"
 	"similis.dev/similis/units/chanfile/parquetfile"
 	"similis.dev/similis/units/steady"
-	"similis.dev/similis/similarity/reduction"
 )
 
 // dataError is a problem in the data file (exit 1), as opposed to a
@@ -369,8 +369,6 @@ func bindError(sym string, vu units.Unit, c chanfile.Column, file string, err er
 	}
 	return msg
 }
-
-
 
 // where names a data row for a message: the file's line for a text file
 // (comments, blank lines and the header counted), the row for Parquet.
