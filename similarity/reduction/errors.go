@@ -19,7 +19,7 @@ type Error struct {
 	// file's columns (a variable with no channel, a formula that does not
 	// compile, a unit that does not convert) — a mistake of the caller,
 	// not of the data — or "read", "derive", "calibrate", "points",
-	// "reduce", "groups", "write".
+	// "zero", "reduce", "groups", "write".
 	Op      string
 	File    string
 	Line    int    // the line of a text file, from 1; 0 if unknown

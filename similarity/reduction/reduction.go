@@ -162,7 +162,7 @@ func (s *Spec) Reduce(in Input) (res *Result, err error) {
 			return nil, &Error{File: in.Name, Reason: "input has no source"}
 		}
 		if src, err = in.Open(); err != nil {
-			return nil, wrap(in.Name, err)
+			return nil, setOp(wrap(in.Name, err), "read")
 		}
 		if c, ok := src.(io.Closer); ok {
 			defer func() {
@@ -733,7 +733,7 @@ func (r *run) points() error {
 	}
 	var zero *steady.Point
 	if err := r.zero(series, &zero); err != nil {
-		return err
+		return setOp(err, "zero")
 	}
 	r.res.Zero = zero
 	gev := s.Set.Evaluator()
