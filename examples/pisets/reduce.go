@@ -18,6 +18,7 @@ import (
 
 	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity/fluids"
 	"similis.dev/similis/similarity/reduction"
 	"similis.dev/similis/units"
 	"similis.dev/similis/units/chanfile"
@@ -259,10 +260,12 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	}
 	spec := &reduction.Spec{
 		Derive:           opt.derive,
-		Fluids:           opt.fluids,
 		NonfiniteMissing: opt.nonfiniteMissing,
 		Set:              r.set,
 		Units:            r.units,
+	}
+	if opt.fluids {
+		spec.Funcs = fluids.FormulaFuncs()
 	}
 	if opt.points != nil {
 		return reducePoints(spec, opt, rd, parquet, out, log)

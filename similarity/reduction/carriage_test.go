@@ -15,6 +15,7 @@ import (
 	"github.com/google/go-cmp/cmp"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity/fluids"
 	"similis.dev/similis/similarity/reduction"
 	"similis.dev/similis/units/chanfile"
 	"similis.dev/similis/units/steady"
@@ -23,7 +24,7 @@ import (
 func carriageSpec(t testing.TB) *reduction.Spec {
 	return &reduction.Spec{
 		Derive: "rho = rho_water(T_w); nu = nu_water(T_w); L = 2 {m}",
-		Fluids: true,
+		Funcs:  fluids.FormulaFuncs(),
 		Points: reduction.Runs("run", 200, 0),
 		Zero:   ptr(reduction.Spans("t", steady.Span{From: quantity.New(0.5, quantity.Time), To: quantity.New(2.0, quantity.Time)})),
 		Tare:   []string{"F"},

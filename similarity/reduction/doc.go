@@ -22,9 +22,10 @@
 // range with its row: a calibration is never extrapolated.
 //
 // 3. Derive channels. Spec.Derive is formula text evaluated row by row
-// over the channels ("rho = rho_water(T_w); L = 2 {m}"); Spec.Funcs, or
-// Spec.Fluids for the functions of package fluids, supply the functions
-// it may call, each with its declared dimensions. A value that is not
+// over the channels ("rho = rho_water(T_w); L = 2 {m}"); Spec.Funcs
+// supplies the functions it may call, each with its declared dimensions,
+// wired in by the caller (fluids.FormulaFuncs() for the fluid
+// properties). A value that is not
 // finite where every channel is present is an error naming the row (and
 // the line of a text file), or with NonfiniteMissing a counted missing
 // value.

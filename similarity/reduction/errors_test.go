@@ -30,7 +30,7 @@ func TestErrorClasses(t *testing.T) {
 	}{
 		{"no channel", func(s *reduction.Spec) { s.Also = []string{"G"} }, file, quantity.ErrInvalid, "plan", "no such channel"},
 		{"formula", func(s *reduction.Spec) { s.Derive = "rho = T_w + V" }, file, quantity.ErrDimension, "plan", "derived channels"},
-		{"unknown func", func(s *reduction.Spec) { s.Fluids = false }, file, quantity.ErrUnknown, "plan", "rho_water"},
+		{"unknown func", func(s *reduction.Spec) { s.Funcs = nil }, file, quantity.ErrUnknown, "plan", "rho_water"},
 		{"zero twice", func(s *reduction.Spec) {
 			s.Zero = ptr(reduction.Run("run", 3, 1, 2))
 		}, file, quantity.ErrInvalid, "zero", "want 1"},

@@ -6,6 +6,7 @@ import (
 
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity/fluids"
 	"similis.dev/similis/similarity/reduction"
 	"similis.dev/similis/units/chanfile"
 )
@@ -46,7 +47,7 @@ run [1],V [m/s],F [N],T_w [°C]
 	zero := reduction.Run("run", 4, 9)
 	spec := &reduction.Spec{
 		Derive: "rho = rho_water(T_w); nu = nu_water(T_w); L = 2 {m}",
-		Fluids: true,
+		Funcs:  fluids.FormulaFuncs(),
 		Points: reduction.Runs("run", 4, 9),
 		Zero:   &zero,
 		Tare:   []string{"F"},

@@ -12,7 +12,6 @@ import (
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/uncertain"
-	"similis.dev/similis/similarity/fluids"
 	"similis.dev/similis/units"
 	"similis.dev/similis/units/chanfile"
 	"similis.dev/similis/units/chanfile/parquetfile"
@@ -37,10 +36,10 @@ type Spec struct {
 	// package formula ("dp = P2 - P1; D = 0.25 {m}"), evaluated sample
 	// by sample over the channels read (after any sample calibration).
 	Derive string
-	// Funcs are functions the formula text may call (formula.Options);
-	// Fluids adds those of package fluids (nu_water(T), rho_sea(T, S), …).
-	Funcs  []formula.Func
-	Fluids bool
+	// Funcs are functions the formula text may call (formula.Options),
+	// wired in by the caller: fluids.FormulaFuncs() for nu_water(T),
+	// rho_sea(T, S), … (package similarity/fluids).
+	Funcs []formula.Func
 	// Keep names the derived statements kept as channels (nil: all).
 	Keep []string
 	// NonfiniteMissing makes a derived value that is not finite where
@@ -291,9 +290,6 @@ func (r *run) plan(src chanfile.Source) error {
 			}
 		}
 		opt := formula.Options{Funcs: s.Funcs, Keep: s.Keep}
-		if s.Fluids {
-			opt.Funcs = append(slices.Clone(s.Funcs), fluids.FormulaFuncs()...)
-		}
 		prog, err := opt.Compile(s.Derive, inputs...)
 		if err != nil {
 			return r.fail(0, &Error{Reason: "derived channels", Err: err})
