@@ -547,7 +547,7 @@ func reducePoints(spec *reduction.Spec, opt reduceOptions, rd chanfile.Source, p
 	for _, g := range res.Groups {
 		fmt.Fprintf(log, "pisets:   %s  (%s)\n", g.Definition, g.Label)
 	}
-	fmt.Fprintln(log, "pisets: ± is the standard uncertainty (k = 1): the points' repeatability from s/√n_eff, n_eff from the samples' autocorrelation, and the zero's")
+	fmt.Fprintln(log, "pisets: ± is the standard uncertainty (k = 1): the points' repeatability from s/√n_eff, n_eff from the samples' autocorrelation, and the zero's; a fluid property's own correlation uncertainty is not included")
 	fmt.Fprintln(log, "pisets: reduced test data only; a rating, an acceptance test or a design follows its standard and the engineer responsible")
 	return nil
 }
