@@ -134,3 +134,25 @@ func FuzzReadDefinitions(f *testing.F) {
 		}
 	})
 }
+
+// TestAllRowsRefusesZero: a zero, a tare or a calibration of the mean
+// has no meaning row by row, and is refused rather than ignored.
+func TestAllRowsRefusesZero(t *testing.T) {
+	spec := carriageSpec(t)
+	spec.Points = reduction.AllRows()
+	_, err := spec.Reduce(reduction.File("testdata/carriage.csv", reduction.FileOptions{}))
+	var re *reduction.Error
+	if !errors.As(err, &re) || re.Op != "plan" || !errors.Is(err, quantity.ErrInvalid) {
+		t.Errorf("AllRows with a zero: %v", err)
+	}
+}
+
+// TestDeriveInputsByWord: a tared channel F is not taken for an input
+// of a formula that only contains the letter F inside another word.
+func TestDeriveInputsByWord(t *testing.T) {
+	spec := carriageSpec(t)
+	spec.Derive += "; Fn = V / sqrt(9.80665 {m/s^2} * L)"
+	if _, err := spec.Reduce(reduction.File("testdata/carriage.csv", reduction.FileOptions{})); err != nil {
+		t.Error(err)
+	}
+}

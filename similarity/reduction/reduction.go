@@ -8,6 +8,7 @@ import (
 	"math"
 	"slices"
 	"strings"
+	"unicode"
 
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
@@ -280,12 +281,25 @@ func (r *run) plan(src chanfile.Source) error {
 		}
 		r.cals[c.Channel] = c
 	}
+	if s.Points.kind == allRows {
+		// Row by row there is no point to tare or mean to calibrate:
+		// refuse rather than ignore.
+		if s.Zero != nil || len(s.Tare) > 0 || r.in.Zero != nil {
+			return r.fail(0, &Error{Reason: "a zero or Tare with AllRows: each row is its own result, with no point to tare; choose Runs, Spans or Detected"})
+		}
+		for _, c := range s.Calibrations {
+			if !c.Samples {
+				return r.fail(0, &Error{Channel: c.Channel, Reason: "a calibration of the mean with AllRows: calibrate the channel sample by sample (Samples)"})
+			}
+		}
+	}
 	want := map[string]bool{}
 	// Derived channels: the columns the text names are its inputs.
 	var inputs []formula.Input
 	if s.Derive != "" {
+		idents := identifiers(s.Derive)
 		for _, c := range cols {
-			if strings.Contains(s.Derive, c.Name) {
+			if idents[c.Name] || !isIdentifier(c.Name) && strings.Contains(s.Derive, c.Name) {
 				inputs = append(inputs, formula.Input{Name: c.Name, Dim: r.dimOf(c)})
 			}
 		}
@@ -859,4 +873,27 @@ func (p Point) Value(name string) (steady.Value, bool) {
 		}
 	}
 	return steady.Value{}, false
+}
+
+// identifiers returns the words of a formula text that could name a
+// channel: runs of letters, digits and underscores.
+func identifiers(text string) map[string]bool {
+	out := map[string]bool{}
+	for _, w := range strings.FieldsFunc(text, func(r rune) bool { return !isIdentRune(r) }) {
+		out[w] = true
+	}
+	return out
+}
+
+func isIdentRune(r rune) bool { return r == '_' || unicode.IsLetter(r) || unicode.IsDigit(r) }
+
+// isIdentifier reports whether a channel's name is one word of
+// identifier characters; a name that is not is looked for as it is.
+func isIdentifier(name string) bool {
+	for _, r := range name {
+		if !isIdentRune(r) {
+			return false
+		}
+	}
+	return name != ""
 }
