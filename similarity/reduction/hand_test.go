@@ -1,7 +1,9 @@
 package reduction_test
 
 import (
+	"errors"
 	"math"
+	"strings"
 	"testing"
 
 	"similis.dev/similis/pigroups"
@@ -130,3 +132,67 @@ func TestHandCase(t *testing.T) {
 func ptr[T any](x T) *T { return &x }
 
 func pointValue(p reduction.Point, name string) (steady.Value, bool) { return p.Value(name) }
+
+// TestHandCalibrations: the hand case with the dynamometer calibrated at
+// the tared mean (F_eng = 2·F, u_cal 0.1 N) and the speed sample by
+// sample (V_eng = V + 0.1 m/s, u_cal 0.01 m/s), both by hand:
+//
+//	run 1: F = 2·9.9 = 19.8 N, u = √((2·0.081650)² + 0.1²) = 0.19149 N
+//	       V = 2.0 + 0.1 = 2.1 m/s, u = √(0.057735² + 0.01²) = 0.058595 m/s
+func TestHandCalibrations(t *testing.T) {
+	parse := func(text string) *steady.Calibration {
+		c, err := steady.ParseCalibration(strings.NewReader(text), "hand.cal")
+		if err != nil {
+			t.Fatal(err)
+		}
+		return c
+	}
+	fcal := parse("name dyn\nraw N\nengineering N\nrange -100 100\nuncertainty 0.1\nc0 0\nc1 2\n")
+	vcal := parse("name speed\nraw m/s\nengineering m/s\nrange -10 10\nuncertainty 0.01\nc0 0.1\nc1 1\n")
+	run := []float64{9, 9, 9, 9, 0, 1, 1, 1, 1}
+	V := []float64{0, 0, 0, 0, 1, 1.9, 2.1, 1.9, 2.1}
+	F := []float64{0.5, 0.7, 0.5, 0.7, 3, 10.6, 10.4, 10.6, 10.4}
+	src, err := chanfile.NewSeriesSource([]chanfile.Column{
+		{Name: "run", Unit: units.One()}, {Name: "V", Unit: mustUnit(t, "m/s")}, {Name: "F", Unit: mustUnit(t, "N")}},
+		[]quantity.Series{quantity.NewSeries(run, 0), quantity.NewSeries(V, quantity.Velocity), quantity.NewSeries(F, quantity.Force)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	spec := &reduction.Spec{
+		Derive:       "rho = 1000 {kg/m^3}; L = 2 {m}; nu = 1e-6 {m^2/s}",
+		Points:       reduction.Runs("run", 4, 0, 9),
+		Zero:         ptr(reduction.Run("run", 4, 9)),
+		Tare:         []string{"F"},
+		Calibrations: []reduction.Calibration{{Channel: "F", Cal: fcal}, {Channel: "V", Cal: vcal, Samples: true}},
+		Set:          dragSet(t),
+	}
+	res, err := spec.Reduce(reduction.Input{Name: "hand", Source: src})
+	if err != nil {
+		t.Fatal(err)
+	}
+	f, _ := res.Points[0].Value("F")
+	v, _ := res.Points[0].Value("V")
+	for _, c := range []struct {
+		what      string
+		got, want float64
+	}{
+		{"F", f.Mean.Value(), 19.8}, {"u(F)", f.Mean.U().Value(), 0.19149},
+		{"V", v.Mean.Value(), 2.1}, {"u(V)", v.Mean.U().Value(), 0.058595},
+	} {
+		if math.Abs(c.got-c.want) > 1e-4*c.want {
+			t.Errorf("%s = %.6g, want %.6g", c.what, c.got, c.want)
+		}
+	}
+	if V[5] != 1.9 {
+		t.Error("the sample calibration changed the caller's series")
+	}
+	// A reading outside the calibrated range is refused with its row.
+	vcal = parse("name speed\nraw m/s\nengineering m/s\nrange 0.5 10\nuncertainty 0.01\nc0 0.1\nc1 1\n")
+	spec.Calibrations[1].Cal = vcal
+	src.Rewind()
+	_, err = spec.Reduce(reduction.Input{Name: "hand", Source: src})
+	var re *reduction.Error
+	if !errors.As(err, &re) || re.Row != 1 || re.Op != "calibrate" || !errors.Is(err, quantity.ErrRange) {
+		t.Errorf("V = 0 outside [0.5, 10]: %v", err)
+	}
+}
