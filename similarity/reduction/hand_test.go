@@ -196,3 +196,28 @@ func TestHandCalibrations(t *testing.T) {
 		t.Errorf("V = 0 outside [0.5, 10]: %v", err)
 	}
 }
+
+// TestHandZeroFile: the zero read from a file of its own gives the same
+// tared means and uncertainties as the zero window of the hand case.
+func TestHandZeroFile(t *testing.T) {
+	cols := []chanfile.Column{{Name: "run", Unit: units.One()}, {Name: "V", Unit: mustUnit(t, "m/s")}, {Name: "F", Unit: mustUnit(t, "N")}}
+	src, _ := chanfile.NewSeriesSource(cols, []quantity.Series{
+		quantity.NewSeries([]float64{1, 1, 1, 1}, 0), quantity.NewSeries([]float64{1.9, 2.1, 1.9, 2.1}, quantity.Velocity),
+		quantity.NewSeries([]float64{10.6, 10.4, 10.6, 10.4}, quantity.Force)})
+	zero, _ := chanfile.NewSeriesSource(cols[2:], []quantity.Series{quantity.NewSeries([]float64{0.5, 0.7, 0.5, 0.7}, quantity.Force)})
+	spec := &reduction.Spec{
+		Derive: "rho = 1000 {kg/m^3}; L = 2 {m}; nu = 1e-6 {m^2/s}",
+		Points: reduction.Runs("run", 4),
+		Tare:   []string{"F"},
+		Set:    dragSet(t),
+	}
+	res, err := spec.Reduce(reduction.Input{Name: "hand", Source: src, Zero: zero})
+	if err != nil {
+		t.Fatal(err)
+	}
+	f, _ := res.Points[0].Value("F")
+	// 10.5 − 0.6 = 9.9 N, u = √2·0.057735 = 0.081650 N (TestHandCase).
+	if math.Abs(f.Mean.Value()-9.9) > 1e-12 || math.Abs(f.Mean.U().Value()-0.081650) > 1e-5 || !f.Tared {
+		t.Errorf("F = %v (tared %v), want 9.900 N ± 0.082 N", f.Mean, f.Tared)
+	}
+}

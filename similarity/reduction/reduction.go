@@ -85,7 +85,10 @@ type Input struct {
 	// (and is then closed after the reduction, if it is an io.Closer).
 	Source chanfile.Source
 	Open   func() (chanfile.Source, error)
-	// Zero, if set, is a zero file reduced whole as the zero.
+	// Zero, if set, is a zero file reduced whole as the zero: its
+	// channels of Spec.Tare, as read (no sample calibration), in the
+	// same unit as the file's. It is read once, by this input's
+	// reduction, so each input of a campaign needs its own.
 	Zero chanfile.Source
 	// LineOf, if set, gives the line of a text file holding data row row
 	// (from 1), for messages.
