@@ -43,6 +43,15 @@
 //	                   a derived value that is not finite (0/0) where every
 //	                   channel is present: an error with its line (the
 //	                   default), or a missing value counted on standard error
+//	-fluids            -derive may call nu_water(T), rho_water(T), … of
+//	                   package fluids
+//	-runs LABEL        steady points instead of rows: each run of the label
+//	                   channel (0 is no run), reduced to each channel's mean
+//	                   with the standard uncertainty of the mean (s/√n_eff)
+//	                   and each group with its uncertainty; -min-run N
+//	-zero FROM,TO      with -runs: the zero window on the time channel
+//	                   (-time, default t), subtracted from the channels of
+//	-tare A,B          (the dynamometer's)
 //	-format csv|jsonl|json|text|parquet
 //	                   the groups as CSV (the default; text is the same), JSON
 //	                   lines ({"row":1,"Π₁":0.17,"Π₂":0.021}, null when
@@ -81,6 +90,7 @@ import (
 	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity/reduction"
 	"similis.dev/similis/units"
 )
 
@@ -139,6 +149,14 @@ lag-1 autocorrelation of the residuals, common practice), a runs test on the
 residuals' signs for lack of fit, and a warning when Π₁ and another
 group share a variable.
 
+With -runs LABEL (steady points), one row per run of the label channel:
+  point, label, first row, last row, drifting, then for each channel its mean,
+  u(name), the standard uncertainty of the mean (s/√n_eff, n_eff from the
+  samples' autocorrelation, plus the zero's with -zero/-tare), n_eff(name), then
+  each group (Re, Fr, … where a group is exactly one) and u(group), all k = 1;
+  comment lines (#) carry each point's rows and each group's definition.
+-out writes its file whole or not at all (a temporary file renamed at the end).
+
 Exit status: 0 done; 1 bad data (file:line, or file: row for Parquet); 2 usage.
 
 Flags:
@@ -157,6 +175,12 @@ func run(args []string, stdout, stderr io.Writer) int {
 	fs.BoolVar(&ro.stdAtm, "std-atm", false, "read gauge channels against the standard atmosphere (101325 Pa), an explicit choice")
 	fs.BoolVar(&ro.fit, "fit", false, "with -data: fit the dependent group as a power law of the others, with 95 % intervals")
 	fs.StringVar(&ro.plot, "plot", "", "with -data -fit and two groups: draw the rows and the fit to a .png or .svg file")
+	fs.BoolVar(&ro.fluids, "fluids", false, "with -data: -derive may call the fluid properties, as nu = nu_water(T_w) (T in K or a channel in °C)")
+	runs := fs.String("runs", "", "with -data: steady points are the runs of this label channel (label 0 is no run), each channel's mean with its uncertainty")
+	minRun := cli.FloatVar(fs, "min-run", 100, 3, 1e9, "samples", "with -runs: the fewest samples of a run")
+	zero := fs.String("zero", "", "with -runs: the zero window FROM,TO on the time channel, as 0.5s,2s")
+	timeCh := fs.String("time", "t", "with -zero: the time channel")
+	tare := fs.String("tare", "", "with -zero: comma-separated channels the zero is subtracted from")
 	nonfinite := fs.String("nonfinite", "error", "with -data: a derived value that is not finite (0/0) is an error, or with 'missing' a counted missing value")
 	ro.plotW = cli.FloatVar(fs, "plot-width", 6, 2, 40, "in", "-plot width")
 	ro.plotH = cli.FloatVar(fs, "plot-height", 4, 2, 40, "in", "-plot height")
@@ -193,8 +217,33 @@ func run(args []string, stdout, stderr io.Writer) int {
 	default:
 		return usage(fmt.Sprintf("-nonfinite %s: want error or missing", cli.Quote(*nonfinite)))
 	}
-	if ro.data == "" && (ro.derive != "" || ro.baro != "" || ro.stdAtm || *outPath != "" || ro.fit || ro.plot != "" || ro.nonfiniteMissing) {
-		return usage("-derive, -baro, -std-atm, -out, -fit, -plot and -nonfinite go with -data")
+	if *runs != "" {
+		p := reduction.Runs(*runs, int(*minRun), 0)
+		ro.points = &p
+		if ro.jsonl || *format == "json" || *format == "jsonl" {
+			return usage("-runs writes a channel file (csv or parquet), not JSON")
+		}
+		if ro.fit || ro.plot != "" {
+			return usage("-fit and -plot go with the row-by-row reduction, not -runs")
+		}
+	}
+	if (*zero != "" || *tare != "") && *runs == "" {
+		return usage("-zero and -tare go with -runs")
+	}
+	if (*zero == "") != (*tare == "") {
+		return usage("-zero and -tare go together: the window and the channels it is subtracted from")
+	}
+	if *zero != "" {
+		sp, err := parseSpan(*zero)
+		if err != nil {
+			return usage("-zero: " + err.Error())
+		}
+		z := reduction.Spans(*timeCh, sp)
+		ro.zero = &z
+		ro.tare = strings.Split(*tare, ",")
+	}
+	if ro.data == "" && (*runs != "" || ro.fluids || ro.derive != "" || ro.baro != "" || ro.stdAtm || *outPath != "" || ro.fit || ro.plot != "" || ro.nonfiniteMissing) {
+		return usage("-derive, -baro, -std-atm, -out, -fit, -plot, -nonfinite, -fluids and -runs go with -data")
 	}
 	if ro.plot != "" {
 		if !ro.fit {
@@ -231,19 +280,22 @@ func run(args []string, stdout, stderr io.Writer) int {
 		if ro.parquet && *outPath == "" {
 			return usage("-format parquet writes a file: give -out groups.parquet")
 		}
-		w := stdout
 		if _, err := os.Stat(ro.data); err != nil {
 			return usage(fmt.Sprintf("-data %s: %v", cli.Quote(ro.data), errors.Unwrap(err)))
 		}
+		var err error
 		if *outPath != "" {
-			f, err := os.Create(*outPath)
-			if err != nil {
-				return usage(fmt.Sprintf("-out %s: %v", cli.Quote(*outPath), errors.Unwrap(err)))
-			}
-			defer f.Close()
-			w = f
+			// Whole or not at all: a failure leaves no partial output and
+			// a file already there untouched.
+			err = reduction.WriteFile(*outPath, func(w io.Writer) error { return reduce(out, ro, w, stderr) })
+		} else {
+			err = reduce(out, ro, stdout, stderr)
 		}
-		if err := reduce(out, ro, w, stderr); err != nil {
+		if err != nil {
+			var re *reduction.Error
+			if errors.As(err, &re) && re.Op == "" && re.File == *outPath {
+				return usage(fmt.Sprintf("-out %s: %v", cli.Quote(*outPath), err))
+			}
 			fmt.Fprintln(stderr, "pisets:", clean(err.Error()))
 			return exitCode(err)
 		}

@@ -17,12 +17,13 @@ import (
 	"golang.org/x/term"
 
 	"similis.dev/similis/examples/internal/cli"
-	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/similarity/reduction"
 	"similis.dev/similis/units"
 	"similis.dev/similis/units/chanfile"
 	"similis.dev/similis/units/chanfile/parquetfile"
-	"similis.dev/similis/units/formula"
+	"similis.dev/similis/units/steady"
 )
 
 // dataError is a problem in the data file (exit 1), as opposed to a
@@ -41,6 +42,10 @@ type reduceOptions struct {
 	fit                bool   // fit the first group as a power law of the others
 	plot               string // a .png or .svg file for the fit
 	nonfiniteMissing   bool   // a non-finite derived value is a counted missing value, not an error
+	fluids             bool   // the formula may call the fluid properties (nu_water(T), …)
+	points             *reduction.Points
+	zero               *reduction.Points
+	tare               []string
 	plotW, plotH, dpi  *float64
 }
 
@@ -230,212 +235,85 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 		done = func(int) int64 { return cr.Offset() }
 	}
 	cols := rd.Columns()
-	byName := map[string]int{}
-	var inputs []formula.Input
-	for i, c := range cols {
-		if c.Kind == chanfile.Label {
-			continue // text (a run tag): no variable
-		}
-		byName[c.Name] = i
-		inputs = append(inputs, formula.Input{Name: c.Name, Dim: c.Unit.Dim()})
-	}
-	var prog *formula.Program
-	var ev *formula.Evaluator
-	derived := map[string]int{}
-	if opt.derive != "" {
-		if prog, err = formula.Compile(opt.derive, inputs...); err != nil {
-			return &usageError{fmt.Sprintf("-derive: %v", err)}
-		}
-		ev = prog.Evaluator()
-		if opt.nonfiniteMissing {
-			// The loop below marks and counts each non-finite derived
-			// value, by variable, after the evaluation.
-			ev.SetCheck(formula.Unchecked)
-		}
-		for i, name := range prog.Outputs() {
-			derived[name] = i
-		}
-	}
-	// Where each variable comes from, with its dimension checked.
-	type source struct {
-		col, out int     // a channel, or a derived output (col < 0)
-		scale    float64 // 1, or 1/(2π)^k for a variable held in revolutions
-	}
+	// A channel bound to a variable must convert to the variable's unit;
+	// the message names the fix. The reduction checks the rest.
 	vars := r.problem.Variables()
-	srcs := make([]source, len(vars))
 	for i, v := range vars {
-		vu := r.units[i]
-		plane, _ := vu.Angle()
-		// A channel's SI values hold angles in radians; a variable held in
-		// revolutions takes them divided by (2π)^plane.
-		scale := 1.0
-		if v.Angle == pigroups.Revolutions && plane != 0 {
-			scale = math.Pow(2*math.Pi, -float64(plane))
-		}
-		if j, ok := byName[v.Symbol]; ok {
-			if d := cols[j].Unit.Dim(); d != v.Dim {
+		for _, c := range cols {
+			if c.Name != v.Symbol {
+				continue
+			}
+			if d := c.Unit.Dim(); d != v.Dim {
 				return &usageError{fmt.Sprintf("variable %s is %s, but channel %q of %s is %s", v.Symbol, quantity.Describe(v.Dim), v.Symbol, opt.data, quantity.Describe(d))}
 			}
-			if _, err := units.ConvertUnits(1, cols[j].Unit, vu); err != nil {
-				return &usageError{bindError(v.Symbol, vu, cols[j], opt.data, err)}
+			if _, err := units.ConvertUnits(1, c.Unit, r.units[i]); err != nil {
+				return &usageError{bindError(v.Symbol, r.units[i], c, opt.data, err)}
 			}
-			srcs[i] = source{col: j, scale: scale}
-			continue
 		}
-		if k, ok := derived[v.Symbol]; ok {
-			if d := prog.Dim(k); d != v.Dim {
-				return &usageError{fmt.Sprintf("variable %s is %s, but -derive gives %s", v.Symbol, quantity.Describe(v.Dim), quantity.Describe(d))}
-			}
-			if plane == 0 && v.Angle == pigroups.Revolutions {
-				return &usageError{fmt.Sprintf("variable %s is declared %s, which counts cycles, but -derive gives values in SI, where a rotational speed is in rad/s: declare %s in rad/s or rev/s", v.Symbol, vu.Format(quantity.Unicode), v.Symbol)}
-			}
-			srcs[i] = source{col: -1, out: k, scale: scale}
-			continue
-		}
-		return &usageError{fmt.Sprintf("variable %s is neither a channel of %s nor defined by -derive (channels: %s)", v.Symbol, opt.data, channelNames(cols))}
 	}
-	set := r.set
-	gev := set.Evaluator()
-	groups := set.Groups()
-	outCols := make([]chanfile.Column, len(groups))
-	for g, gr := range groups {
-		outCols[g] = chanfile.Column{Name: gr.Name, Unit: units.One()}
-	}
-	var fits *fitRows
-	if opt.fit {
-		if len(groups) < 2 {
-			return &usageError{"-fit needs at least two groups"}
-		}
-		fits = &fitRows{}
+	groups := r.set.Groups()
+	if opt.fit && len(groups) < 2 {
+		return &usageError{"-fit needs at least two groups"}
 	}
 	if opt.plot != "" && len(groups) != 2 {
 		return &usageError{fmt.Sprintf("-plot draws one group against one other; this set has %d groups", len(groups))}
 	}
+	spec := &reduction.Spec{
+		Derive:           opt.derive,
+		NonfiniteMissing: opt.nonfiniteMissing,
+		Set:              r.set,
+		Units:            r.units,
+	}
+	if opt.fluids {
+		spec.Funcs = fluids.FormulaFuncs()
+	}
+	if opt.points != nil {
+		return reducePoints(spec, opt, rd, parquet, out, log)
+	}
+	outCols := make([]chanfile.Column, len(groups))
+	names := make([]string, len(groups))
+	for g, gr := range groups {
+		outCols[g] = chanfile.Column{Name: gr.Name, Unit: units.One()}
+		names[g] = gr.Name
+	}
 	var w groupSink
-	if opt.jsonl {
-		names := make([]string, len(groups))
-		for g, gr := range groups {
-			names[g] = gr.Name
-		}
+	var err2 error
+	switch {
+	case opt.jsonl:
 		w = newJSONLines(out, names)
-	} else if opt.parquet {
+	case opt.parquet:
 		pw, err := parquetfile.NewWriter(out, "standard output", outCols, parquetfile.Options{})
 		if err != nil {
 			return err
 		}
 		w = parquetSink{pw}
-	} else if w, err = chanfile.NewWriter(out, "standard output", outCols, chanfile.Options{}); err != nil {
-		return err
+	default:
+		if w, err2 = chanfile.NewWriter(out, "standard output", outCols, chanfile.Options{}); err2 != nil {
+			return err2
+		}
 	}
-	var (
-		chunk   []quantity.Series
-		progIn  []quantity.Series
-		progOut [][]float64
-		varCols = make([]quantity.Series, len(vars))
-		scaled  = make([][]float64, len(vars))
-		gbuf    = make([][]float64, len(groups))
-		gser    = make([]quantity.Series, len(groups))
-		rows    int
-		// non-finite derived values counted as missing, by variable
-		nonfinite      = map[string]int{}
-		nonfiniteOrder []string
-	)
-	for {
-		var n int
-		chunk, n, err = rd.Read(chunk, 4096)
-		if err == io.EOF {
-			break
+	sink := &rowSink{w: w, bar: bar, done: done}
+	if opt.fit {
+		sink.fits = &fitRows{}
+	}
+	in := reduction.Input{Name: opt.data, Source: rd, Rows: sink}
+	if !parquet {
+		in.LineOf = func(row int) int { return lineOfRow(opt.data, row) }
+	}
+	res, err := spec.Reduce(in)
+	if err != nil {
+		if sink.err != nil {
+			return sink.err
 		}
-		if err != nil {
-			return &dataError{err}
-		}
-		if prog != nil {
-			progIn = progIn[:0]
-			for _, in := range prog.Inputs() {
-				progIn = append(progIn, chunk[byName[in.Name]])
-			}
-			if len(progOut) != len(prog.Outputs()) {
-				progOut = make([][]float64, len(prog.Outputs()))
-			}
-			for k := range progOut {
-				progOut[k] = grow(progOut[k], n)
-			}
-			if err := ev.Series(progIn, progOut); err != nil {
-				var re *formula.RangeError
-				if errors.As(err, &re) && re.Row >= 0 {
-					return &dataError{fmt.Errorf("%s: -derive: %w; use -nonfinite=missing to count such values as missing", where(opt.data, rows+re.Row+1, parquet), err)}
-				}
-				return &dataError{fmt.Errorf("%s: rows %d to %d: -derive: %w", opt.data, rows+1, rows+n, err)}
-			}
-			// A derived value that is not finite although every channel
-			// of its row is present was produced by the formula (0/0, an
-			// overflow): an error, or with -nonfinite=missing a counted
-			// missing value. A missing channel's NaN is already counted.
-			for i, s := range srcs {
-				if s.col >= 0 {
-					continue
-				}
-				for k, x := range progOut[s.out][:n] {
-					if !math.IsNaN(x) && !math.IsInf(x, 0) || anyNaN(progIn, k) {
-						continue
-					}
-					if !opt.nonfiniteMissing {
-						return &dataError{fmt.Errorf("%s: -derive gives %s = %v from a row with every channel present (a 0/0, an overflow or a function outside its domain); use -nonfinite=missing to count such values as missing", where(opt.data, rows+k+1, parquet), vars[i].Symbol, x)}
-					}
-					progOut[s.out][k] = math.NaN()
-					if nonfinite[vars[i].Symbol] == 0 {
-						nonfiniteOrder = append(nonfiniteOrder, vars[i].Symbol)
-					}
-					nonfinite[vars[i].Symbol]++
-				}
-			}
-		}
-		for i, s := range srcs {
-			var vals []float64
-			if s.col >= 0 {
-				vals = chunk[s.col].Values()
-			} else {
-				vals = progOut[s.out]
-			}
-			if s.scale != 1 {
-				scaled[i] = grow(scaled[i], n)
-				for k, x := range vals[:n] {
-					scaled[i][k] = x * s.scale
-				}
-				vals = scaled[i]
-			}
-			varCols[i] = quantity.NewSeries(vals[:n], vars[i].Dim)
-		}
-		for g := range gbuf {
-			gbuf[g] = grow(gbuf[g], n)
-		}
-		if err := gev.Series(varCols, gbuf); err != nil {
-			k, rerr := failingRow(gev, varCols, n, len(groups))
-			if rerr == nil {
-				return &dataError{fmt.Errorf("%s: rows %d to %d: %w", opt.data, rows+1, rows+n, err)}
-			}
-			return &dataError{fmt.Errorf("%s: %w", where(opt.data, rows+k+1, parquet), rerr)}
-		}
-		for g := range gbuf {
-			gser[g] = quantity.NewSeries(gbuf[g], 0)
-		}
-		if err := w.Write(gser); err != nil {
-			return err
-		}
-		if fits != nil {
-			if err := fits.add(gbuf, n); err != nil {
-				return err
-			}
-		}
-		rows += n
-		bar.set(done(rows))
+		return libError(err)
 	}
 	bar.finish()
 	if err := w.Flush(); err != nil {
 		return err
 	}
-	if len(opt.derive) > 0 {
-		for _, line := range strings.Split(strings.TrimSpace(prog.Text()), "\n") {
+	rows, fits := res.Rows, sink.fits
+	if res.DerivedText != "" {
+		for _, line := range strings.Split(strings.TrimSpace(res.DerivedText), "\n") {
 			fmt.Fprintf(log, "pisets: derived: %s\n", line)
 		}
 	}
@@ -454,9 +332,10 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 			fmt.Fprintf(log, "pisets: channel %s: %d missing %s (NaN group fields in those rows)\n", c.Name, c.Missing, plural(c.Missing, "value", "values"))
 		}
 	}
-	for _, v := range nonfiniteOrder {
-		c := nonfinite[v]
-		fmt.Fprintf(log, "pisets: derived %s: %d non-finite %s counted as missing (-nonfinite=missing; NaN group fields in those rows)\n", v, c, plural(c, "value", "values"))
+	for _, v := range res.Derived {
+		if c := res.Nonfinite[v]; c > 0 {
+			fmt.Fprintf(log, "pisets: derived %s: %d non-finite %s counted as missing (-nonfinite=missing; NaN group fields in those rows)\n", v, c, plural(c, "value", "values"))
+		}
 	}
 	if fits != nil {
 		law, err := reportFit(fits, groups, log)
@@ -492,35 +371,6 @@ func bindError(sym string, vu units.Unit, c chanfile.Column, file string, err er
 		}
 	}
 	return msg
-}
-
-// anyNaN reports whether any input column is missing (NaN) at row k.
-func anyNaN(in []quantity.Series, k int) bool {
-	for _, s := range in {
-		if math.IsNaN(s.Values()[k]) {
-			return true
-		}
-	}
-	return false
-}
-
-// failingRow finds the first row of the chunk whose groups cannot be
-// evaluated, and the error without a row index of its own.
-func failingRow(gev *pigroups.Evaluator, cols []quantity.Series, n, groups int) (int, error) {
-	q := make([]quantity.Quantity, len(cols))
-	dst := make([]float64, groups)
-rows:
-	for k := range n {
-		for i, c := range cols {
-			if q[i] = c.At(k); math.IsNaN(q[i].Value()) {
-				continue rows // a missing value: an empty group, not an error
-			}
-		}
-		if _, err := gev.Row(q, dst); err != nil {
-			return k, err
-		}
-	}
-	return 0, nil
 }
 
 // where names a data row for a message: the file's line for a text file
@@ -600,4 +450,121 @@ func exitCode(err error) int {
 		return 1
 	}
 	return 2
+}
+
+// rowSink takes the groups of each chunk from the reduction: it writes
+// them, keeps them for the fit and moves the progress bar.
+type rowSink struct {
+	w    groupSink
+	fits *fitRows
+	bar  progress
+	done func(rows int) int64
+	rows int
+	err  error // the sink's own error, which is not the data's
+}
+
+func (s *rowSink) Write(g []quantity.Series) error {
+	if err := s.w.Write(g); err != nil {
+		s.err = err
+		return err
+	}
+	n := 0
+	if len(g) > 0 {
+		n = g[0].Len()
+	}
+	if s.fits != nil {
+		vals := make([][]float64, len(g))
+		for i := range g {
+			vals[i] = g[i].Values()
+		}
+		if err := s.fits.add(vals, n); err != nil {
+			s.err = err
+			return err
+		}
+	}
+	s.rows += n
+	s.bar.set(s.done(s.rows))
+	return nil
+}
+
+// libError sorts an error of the reduction: a spec that does not fit the
+// file is a usage error (exit 2), anything else bad data (exit 1); a
+// derived value that is not finite names the flag that counts it.
+func libError(err error) error {
+	var re *reduction.Error
+	if errors.As(err, &re) {
+		if re.Op == "plan" {
+			return &usageError{strings.TrimPrefix(err.Error(), "reduction: ")}
+		}
+		if re.Op == "derive" && errors.Is(err, quantity.ErrRange) {
+			return &dataError{fmt.Errorf("%w; use -nonfinite=missing to count such values as missing", err)}
+		}
+	}
+	return &dataError{err}
+}
+
+// reducePoints reduces the file to steady points: the runs of a label
+// channel, tared by a zero window, each channel's mean with the standard
+// uncertainty of the mean and each group with its uncertainty, written
+// as a channel file whose comment lines carry the groups' definitions.
+func reducePoints(spec *reduction.Spec, opt reduceOptions, rd chanfile.Source, parquet bool, out, log io.Writer) error {
+	spec.Points, spec.Zero, spec.Tare = *opt.points, opt.zero, opt.tare
+	in := reduction.Input{Name: opt.data, Source: rd}
+	if !parquet {
+		in.LineOf = func(row int) int { return lineOfRow(opt.data, row) }
+	}
+	res, err := spec.Reduce(in)
+	if err != nil {
+		return libError(err)
+	}
+	if opt.parquet {
+		err = reduction.WritePointsParquet(out, res)
+	} else {
+		err = reduction.WritePoints(out, res, reduction.WriteOptions{})
+	}
+	if err != nil {
+		return err
+	}
+	if res.DerivedText != "" {
+		for _, line := range strings.Split(strings.TrimSpace(res.DerivedText), "\n") {
+			fmt.Fprintf(log, "pisets: derived: %s\n", line)
+		}
+	}
+	fmt.Fprintf(log, "pisets: reduced %d rows of %s to %d steady points (%s):\n", res.Rows, opt.data, len(res.Points), spec.Points)
+	if z := res.Zero; z != nil {
+		fmt.Fprintf(log, "pisets:   zero: rows %d to %d, subtracted from %s\n", z.Window.Start+1, z.Window.End, strings.Join(opt.tare, ", "))
+	}
+	for _, p := range res.Points {
+		line := fmt.Sprintf("pisets:   %s: rows %d to %d", p.Tag, p.Window.Start+1, p.Window.End)
+		for g, gr := range res.Groups {
+			line += fmt.Sprintf(", %s = %.5g ± %.2g", gr.Column, p.Groups[g].Value(), p.Groups[g].U().Value())
+		}
+		if p.Drifting() {
+			line += " (drifting)"
+		}
+		fmt.Fprintln(log, line)
+	}
+	for _, g := range res.Groups {
+		fmt.Fprintf(log, "pisets:   %s  (%s)\n", g.Definition, g.Label)
+	}
+	fmt.Fprintln(log, "pisets: ± is the standard uncertainty (k = 1): the points' repeatability from s/√n_eff, n_eff from the samples' autocorrelation, and the zero's; a fluid property's own correlation uncertainty is not included")
+	fmt.Fprintln(log, "pisets: reduced test data only; a rating, an acceptance test or a design follows its standard and the engineer responsible")
+	return nil
+}
+
+// parseSpan reads a zero span "FROM,TO" of times with units ("0.5s,2s").
+func parseSpan(text string) (steady.Span, error) {
+	a, b, ok := strings.Cut(text, ",")
+	if !ok {
+		return steady.Span{}, fmt.Errorf("want FROM,TO as 0.5s,2s")
+	}
+	from, err := units.ParseQuantity(strings.TrimSpace(a))
+	if err != nil || from.Dim() != quantity.Time {
+		return steady.Span{}, fmt.Errorf("%s is not a time", cli.Quote(a))
+	}
+	to, err := units.ParseQuantity(strings.TrimSpace(b))
+	if err != nil || to.Dim() != quantity.Time {
+		return steady.Span{}, fmt.Errorf("%s is not a time", cli.Quote(b))
+	}
+	return steady.Span{From: from, To: to}, nil
 }

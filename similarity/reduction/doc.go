@@ -1,0 +1,89 @@
+// Package reduction turns a lab's raw export — channels logged at a
+// fixed rate — into steady points and their dimensionless groups, each
+// with its uncertainty: the data-reduction pipeline of a test, as a
+// library. A harness command, an example program or an outside
+// data-parallel engine calls it; it reads through the chanfile.Source of
+// the channel-file layer and reduces with packages steady, formula and
+// pigroups, knowing no file format of its own.
+//
+// The procedure, in order, as Spec.Reduce runs it on one file:
+//
+// 1. Read the channels. An Input gives a chanfile.Source: a CSV or TSV
+// file (chanfile.Reader), a Parquet file (parquetfile.Reader) — File
+// opens either by its name — or Series held in memory
+// (chanfile.NewSeriesSource). Only the columns the spec needs are asked
+// for (chanfile.Select): the variables', the derived channels' inputs,
+// the label or time channel of the points, the tared, calibrated and
+// Also channels. Values arrive in SI, chunk by chunk.
+//
+// 2. Calibrate samples. A Calibration with Samples set carries its
+// channel sample by sample from the raw reading to the engineering value
+// (steady.Calibration.Apply), refusing a reading outside the calibrated
+// range with its row: a calibration is never extrapolated.
+//
+// 3. Derive channels. Spec.Derive is formula text evaluated row by row
+// over the channels ("rho = rho_water(T_w); L = 2 {m}"); Spec.Funcs
+// supplies the functions it may call, each with its declared dimensions,
+// wired in by the caller (fluids.FormulaFuncs() for the fluid
+// properties). A value that is not
+// finite where every channel is present is an error naming the row (and
+// the line of a text file), or with NonfiniteMissing a counted missing
+// value.
+//
+// 4. Find the points. Spec.Points chooses the spans: AllRows (each row
+// its own result, the row-by-row reduction), Runs of a label channel
+// (the run number a carriage logs), Spans of a time channel, or Detected
+// steady windows by a stated moving-window criterion (steady.Detect).
+// Every mode but AllRows holds the file's needed columns in memory
+// (8 bytes a value); AllRows streams in bounded memory.
+//
+// 5. Reduce each point. Each channel's mean gets its standard
+// uncertainty of the mean, s/√n_eff with n_eff from the window's
+// autocorrelation (steady.Summarize): samples at 200 Hz are not
+// independent readings. The mean is registered in the result's
+// uncertain.Set as a Type A source with n_eff − 1 degrees of freedom.
+// A channel drifting more than its Spec.Drift limit across the point is
+// flagged.
+//
+// 6. Subtract the zero. Spec.Zero (a window of the same history) or
+// Input.Zero (a zero file, reduced whole) is reduced the same way and
+// its mean subtracted from each channel of Spec.Tare, its uncertainty
+// combined with the point's.
+//
+// 7. Calibrate the means. A Calibration without Samples carries the
+// tared mean through the calibration with its slope; either kind adds
+// the calibration's standard uncertainty as one systematic Type B source
+// shared by every point, so its errors stay correlated between points.
+//
+// 8. Evaluate the groups. Each variable of the Pi set (Spec.Set) is the
+// channel, or derived channel, of its symbol's name; a variable held in
+// revolutions takes a channel's rad/s divided by 2π (Spec.Units). The
+// groups of each point are uncertain.Measured values carrying every
+// source above to first order (pigroups.Evaluator.RowMeasured); in the
+// AllRows mode each row's groups are plain numbers, streamed to
+// Input.Rows or kept in Result.RowGroups.
+//
+// 9. Write the results. SavePoints writes a file whole or not at all
+// (WriteFile: a temporary file in the destination's directory, renamed
+// on success), as CSV, TSV or Parquet; a text file's comment lines carry
+// each point's span and each group's definition, which ReadDefinitions
+// reads back, and the columns carry the trade's symbol where a group is
+// exactly a named one (Re, Fr, K_T). WriteOptions.BOM makes a file a
+// spreadsheet reads as UTF-8. A RowsWriter writes the AllRows groups.
+//
+// One file's reduction is a pure function of its spec and its input, so
+// Spec.Campaign runs many files on every core, one file per worker, with
+// the outcomes in input order.
+//
+// Every error is an *Error naming the file and, where there is one, the
+// line of a text file (or the row of a Parquet file), the point and the
+// channel; it keeps its cause and matches exactly one class of package
+// quantity under errors.Is, the cause's class or quantity.ErrInvalid.
+//
+// A steady point's uncertainty as computed here is the statistical part
+// of a test's uncertainty and the calibrations' stated part; an
+// uncertainty statement for an acceptance, a powering prediction or a
+// design follows the procedure of the facility and of the standard it
+// works to (ITTC's recommended procedures for towing tanks, for one),
+// under the judgment of the engineer responsible.
+package reduction
