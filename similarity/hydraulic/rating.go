@@ -344,6 +344,11 @@ func (r *Rating) at(op string, h quantity.Quantity, lambdaL, lambdaQ float64, ou
 	if err := checkResults(op, true, result{"model head", hm}); err != nil {
 		return RatingValue{}, err
 	}
+	if !outside && (hm < r.HeadMin*(1-1e-12) || hm > r.HeadMax*(1+1e-12)) {
+		return RatingValue{}, &Error{Op: op, Input: "head", Class: quantity.ErrRange,
+			Reason: fmt.Sprintf("head %.4g m is outside the range of validity %.4g … %.4g m: an extrapolation (use Extrapolate to make one deliberately)",
+				h.Value(), r.HeadMin/lambdaL, r.HeadMax/lambdaL)}
+	}
 	// A head at an end of the range, up to rounding in h·λ_L, is the end.
 	x := math.Log(hm)
 	if math.Abs(hm/r.HeadMin-1) < 1e-12 {
@@ -359,11 +364,6 @@ func (r *Rating) at(op string, h quantity.Quantity, lambdaL, lambdaQ float64, ou
 		pr, err = r.fit.Predict(x)
 	}
 	if err != nil {
-		if !outside {
-			return RatingValue{}, &Error{Op: op, Input: "head", Class: quantity.ErrRange,
-				Reason: fmt.Sprintf("head %.4g m is outside the range of validity %.4g … %.4g m: an extrapolation (use Extrapolate to make one deliberately)",
-					h.Value(), r.HeadMin/lambdaL, r.HeadMax/lambdaL), Err: err}
-		}
 		return RatingValue{}, wrap(op, "head", "the rating at this head", err)
 	}
 	qv := func(lnq float64) float64 { return math.Exp(lnq) / lambdaQ }

@@ -90,8 +90,8 @@ func TestRatingFroudeByHand(t *testing.T) {
 // TestRatingBandByHand: the band of a straight-line fit at x₀ = ln h is
 // ŷ ± t·S·√(1/N + (x₀ − x̄)²/Sxx) (Draper and Smith, Applied Regression
 // Analysis, 3rd ed. (1998), §3.1, from memory), exponentiated, with
-// t(0.975, 6) = 2.446912 (Student t table; scipy.stats.t.ppf(0.975, 6)
-// = 2.4469118511449692).
+// t(0.975, 6) = 2.446912 (Student t tables give 2.447;
+// python3-scipy 1.10.1, scipy.stats.t.ppf(0.975, 6) = 2.4469118487916806).
 func TestRatingBandByHand(t *testing.T) {
 	q := powerData(1.9, 1.5, 0.015, testHeads)
 	r, err := hydraulic.FitRating(ratingInput(testHeads, q, 0.8, 1.0/30))
