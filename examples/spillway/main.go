@@ -79,7 +79,8 @@ prototype rating (h_p = x·h_m, Q_p = x^(5/2)·Q_m) as a table of
 discharges with the band of the fit's uncertainty (scale effects are
 not in the band), heads outside the range marked EXTRAPOLATED. The
 rating curve is drawn as spillway-rating.png and spillway-rating.svg in
--out (log–log; no plot when -out is empty). All data are invented; the
+-out (log–log, with a lower panel of each point and the band as a
+deviation from the fitted curve in per cent; no plot when -out is empty). All data are invented; the
 output ends with the caution that governs any use of such a model.
 
 Flags:
@@ -136,7 +137,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	d50 := cli.FloatVar(fs, "d50", 1, 0.0625, 100, "mm", "median grain size of the approach reach's bed (sand to gravel; finer grains are silt, which can be cohesive)")
 	out := fs.String("out", os.TempDir(), "directory for spillway-rating.png and spillway-rating.svg; empty: no plot")
 	width := cli.FloatVar(fs, "width", 6, 2, 40, "in", "plot width")
-	height := cli.FloatVar(fs, "height", 4.5, 2, 40, "in", "plot height")
+	height := cli.FloatVar(fs, "height", 7, 2, 40, "in", "plot height (two panels)")
 	dpi := cli.FloatVar(fs, "dpi", 150, 36, 1200, "dots per inch", "PNG resolution")
 	if err := cli.Parse(fs, w, args); err != nil {
 		return nil, err

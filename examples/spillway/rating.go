@@ -8,13 +8,19 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"os"
 	"path/filepath"
+	"strconv"
 	"strings"
 
 	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/font"
 	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
+	"gonum.org/v1/plot/vg/vgimg"
+	"gonum.org/v1/plot/vg/vgsvg"
 
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/hydraulic"
@@ -118,7 +124,7 @@ func rateWeir(w io.Writer, res *Result, scale float64, nu, rho, sigma q.Quantity
 		return err
 	}
 	res.PNG, res.SVG = png, svg
-	fmt.Fprintf(w, "  plot (prototype rating, log–log: the points carried from the model, the fitted curve and its band): %s, %s\n", png, svg)
+	fmt.Fprintf(w, "  plot (prototype rating, log–log, above; below, each point and the band as a deviation from the fitted curve in %%): %s, %s\n", png, svg)
 	return nil
 }
 
@@ -241,13 +247,156 @@ func plotRating(dir string, r *hydraulic.Rating, table []hydraulic.RatingValue, 
 	}
 	styleAxes(pl, xs, ys)
 	pl.Y.Max *= math.Pow(pl.Y.Max/pl.Y.Min, 0.35) // room for the legend above the curve
+	dev, err := deviationPlot(r, scale, t0, t1)
+	if err != nil {
+		return "", "", err
+	}
+	dev.X.Min, dev.X.Max = pl.X.Min, pl.X.Max
 	png := filepath.Join(dir, "spillway-rating.png")
 	svg := filepath.Join(dir, "spillway-rating.svg")
-	if err := savePlot(pl, png, width, height, dpi); err != nil {
-		return "", "", err
-	}
-	if err := savePlot(pl, svg, width, height, dpi); err != nil {
-		return "", "", err
+	for _, path := range []string{png, svg} {
+		if err := saveStacked([]*plot.Plot{pl, dev}, path, width, height, dpi); err != nil {
+			return "", "", err
+		}
 	}
 	return png, svg, nil
+}
+
+// deviationPlot is the lower panel: each model point's discharge and the
+// band as a deviation from the fitted rating, in per cent, against the
+// prototype head, so that the band, a fraction of a per cent, can be
+// seen, and the excluded points' departure from the curve with it.
+func deviationPlot(r *hydraulic.Rating, scale, t0, t1 float64) (*plot.Plot, error) {
+	pl := plot.New()
+	pl.X.Label.Text = "h_p (m, log scale)"
+	pl.Y.Label.Text = "Q/Q_fit − 1 (%)"
+	h := subscripts{text.Plain{Fonts: font.DefaultCache}}
+	pl.X.Label.TextStyle.Handler, pl.Y.Label.TextStyle.Handler = h, h
+	pl.X.Tick.Label.Handler, pl.Y.Tick.Label.Handler = h, h
+	pl.X.Scale, pl.X.Tick.Marker = plot.LogScale{}, logTicks{}
+	pl.Y.Tick.Marker = labelledTicks{}
+	lo, hi := r.ProtoHeadRange()
+	var ys []float64
+	band := func(a, b float64, dashes []vg.Length, c int) error {
+		var lower, upper plotter.XYs
+		for i := 0; i <= 24; i++ {
+			x := a * math.Pow(b/a, float64(i)/24)
+			v, err := r.Extrapolate(q.New(x, q.Length))
+			if err != nil {
+				return err
+			}
+			l, u := 100*(v.Band[0].Value()/v.Discharge.Value()-1), 100*(v.Band[1].Value()/v.Discharge.Value()-1)
+			lower, upper = append(lower, plotter.XY{X: x, Y: l}), append(upper, plotter.XY{X: x, Y: u})
+			ys = append(ys, l, u)
+		}
+		for _, pts := range []plotter.XYs{lower, upper} {
+			ln, err := plotter.NewLine(pts)
+			if err != nil {
+				return err
+			}
+			ln.Color, ln.Dashes = seriesColor(c), dashes
+			pl.Add(ln)
+		}
+		return nil
+	}
+	zero, err := plotter.NewLine(plotter.XYs{{X: t0, Y: 0}, {X: t1, Y: 0}})
+	if err != nil {
+		return nil, err
+	}
+	zero.Color = seriesColor(1)
+	pl.Add(zero)
+	dotted := []vg.Length{vg.Points(1), vg.Points(2)}
+	for _, seg := range []struct {
+		a, b   float64
+		dashes []vg.Length
+		c      int
+	}{{t0, lo, dotted, 2}, {lo, hi, []vg.Length{vg.Points(4), vg.Points(2)}, 1}, {hi, t1, dotted, 2}} {
+		if err := band(seg.a, seg.b, seg.dashes, seg.c); err != nil {
+			return nil, err
+		}
+	}
+	var used, excl plotter.XYs
+	for _, p := range r.Points {
+		v, err := r.Extrapolate(q.New(p.Head*scale, q.Length))
+		if err != nil {
+			return nil, err
+		}
+		pt := plotter.XY{X: p.Head * scale, Y: 100 * (p.Discharge/r.DischargeRatio/v.Discharge.Value() - 1)}
+		ys = append(ys, pt.Y)
+		if p.Excluded {
+			excl = append(excl, pt)
+		} else {
+			used = append(used, pt)
+		}
+	}
+	for k, pts := range []plotter.XYs{used, excl} {
+		if len(pts) == 0 {
+			continue
+		}
+		sc, err := plotter.NewScatter(pts)
+		if err != nil {
+			return nil, err
+		}
+		sc.GlyphStyle = marker(0)
+		if k == 1 {
+			sc.GlyphStyle.Color, sc.GlyphStyle.Shape = seriesColor(2), draw.CrossGlyph{}
+		}
+		pl.Add(sc)
+	}
+	ylo, yhi := 0.0, 0.0
+	for _, y := range ys {
+		ylo, yhi = min(ylo, y), max(yhi, y)
+	}
+	pad := 0.08 * (yhi - ylo)
+	pl.Y.Min, pl.Y.Max = ylo-pad, yhi+pad
+	return pl, nil
+}
+
+// saveStacked writes the two plots one above the other, their data areas
+// aligned, as a .png (at dpi) or .svg file of the given size in inches.
+func saveStacked(pls []*plot.Plot, path string, wIn, hIn, dpi float64) error {
+	w, h := vg.Length(wIn)*vg.Inch, vg.Length(hIn)*vg.Inch
+	var c vg.CanvasWriterTo
+	if strings.ToLower(filepath.Ext(path)) == ".png" {
+		c = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(int(math.Round(dpi))))}
+	} else {
+		c = vgsvg.New(w, h)
+	}
+	cs := plot.Align([][]*plot.Plot{{pls[0]}, {pls[1]}}, draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Points(4), PadTop: vg.Points(4), PadBottom: vg.Points(4)}, draw.New(c))
+	pls[0].Draw(cs[0][0])
+	pls[1].Draw(cs[1][0])
+	f, err := os.Create(path)
+	if err != nil {
+		return err
+	}
+	if _, err := c.WriteTo(f); err != nil {
+		f.Close()
+		return err
+	}
+	return f.Close()
+}
+
+// labelledTicks labels every tick of a linear axis, at a step of 1, 2 or
+// 5 times a power of ten that gives at most eight of them.
+type labelledTicks struct{}
+
+// Ticks implements plot.Ticker.
+func (labelledTicks) Ticks(lo, hi float64) []plot.Tick {
+	if !(hi > lo) || math.IsInf(hi-lo, 0) {
+		return plot.DefaultTicks{}.Ticks(lo, hi)
+	}
+	p := math.Pow(10, math.Floor(math.Log10((hi-lo)/8)))
+	step := 10 * p
+	for _, m := range []float64{1, 2, 5} {
+		if (hi-lo)/(m*p) <= 8 {
+			step = m * p
+			break
+		}
+	}
+	var ticks []plot.Tick
+	for v := math.Ceil(lo/step) * step; v <= hi && len(ticks) < 20; v += step {
+		x := math.Round(v/step) * step
+		ticks = append(ticks, plot.Tick{Value: x, Label: strconv.FormatFloat(x, 'g', 4, 64)})
+	}
+	return ticks
 }
