@@ -80,8 +80,9 @@ discharges with the band of the fit's uncertainty (scale effects are
 not in the band), heads outside the range marked EXTRAPOLATED. The
 rating curve is drawn as spillway-rating.png and spillway-rating.svg in
 -out (log–log, with a lower panel of each point and the band as a
-deviation from the fitted curve in per cent; no plot when -out is empty). All data are invented; the
-output ends with the caution that governs any use of such a model.
+deviation from the fitted curve in per cent; no plot when -out is
+empty). All data are invented; the output ends with the caution that
+governs any use of such a model.
 
 Flags:
 `
