@@ -148,8 +148,10 @@ const BandNote = "the band is the fit's uncertainty alone (the confidence interv
 // Every error is a *Error: of class quantity.ErrDimension for a value of
 // the wrong dimension, quantity.ErrInvalid for data it cannot take (a
 // head or discharge that is not positive and finite, rows of different
-// lengths, too few included points), quantity.ErrRange for a result out
-// of the range of a float64. See StructureCaution.
+// lengths, too few included points), quantity.ErrRange for a length
+// ratio that is not positive and finite (as for the package's other
+// ratios) or a result out of the range of a float64. See
+// StructureCaution.
 func FitRating(in RatingInput) (*Rating, error) {
 	const op = "weir rating"
 	if err := in.Head.Check(quantity.Length); err != nil {
