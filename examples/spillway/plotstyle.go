@@ -1,16 +1,15 @@
 package main
 
-// The plot style shared by the example commands' figures (the same file
-// is in examples/pisets and examples/restrictor): subscripts drawn as
-// subscripts, tick labels on logarithmic axes of any span, axes padded so
-// no marker is cut, and a chosen size and resolution.
+// The plot style shared by the example commands' figures (as in
+// examples/pisets and examples/restrictor, less the one-panel save:
+// saveStacked in rating.go writes this figure's two panels): subscripts
+// drawn as subscripts, tick labels on logarithmic axes of any span, and
+// axes padded so no marker is cut.
 
 import (
 	"fmt"
 	"image/color"
 	"math"
-	"os"
-	"path/filepath"
 	"strings"
 	"unicode"
 
@@ -20,7 +19,6 @@ import (
 	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
-	"gonum.org/v1/plot/vg/vgimg"
 )
 
 // subscripts is a text handler that draws "K_T" as K with a lowered,
@@ -214,26 +212,6 @@ func marker(k int) draw.GlyphStyle {
 	colors.Color = seriesColor(k)
 	colors.Radius = vg.Points(3)
 	return colors
-}
-
-// savePlot writes pl to a .png (at dpi) or .svg file of the given size in
-// inches.
-func savePlot(pl *plot.Plot, path string, wIn, hIn, dpi float64) error {
-	w, h := vg.Length(wIn)*vg.Inch, vg.Length(hIn)*vg.Inch
-	if strings.ToLower(filepath.Ext(path)) != ".png" {
-		return pl.Save(w, h, path)
-	}
-	c := vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(int(math.Round(dpi))))
-	pl.Draw(draw.New(c))
-	f, err := os.Create(path)
-	if err != nil {
-		return err
-	}
-	if _, err := (vgimg.PngCanvas{Canvas: c}).WriteTo(f); err != nil {
-		f.Close()
-		return err
-	}
-	return f.Close()
 }
 
 // seriesColor is a palette readable in grey print.
