@@ -51,7 +51,8 @@ func TestSpillwayHelp(t *testing.T) {
 		t.Fatal("-h: no ErrHelp")
 	}
 	for _, want := range []string{"Plans a Froude-scale model", "1:x means", "critical velocity", "invented", "caution",
-		"-scale", "(2 … 500)", "-q", "-hscale", "-vscale", "-n", "-d50"} {
+		"-scale", "(2 … 500)", "-q", "-hscale", "-vscale", "-n", "-d50",
+		"EXCLUDED from the rating", "EXTRAPOLATED", "scale effects are\nnot in the band", "-out", "-width", "-height", "-dpi"} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("-h lacks %q:\n%s", want, out.String())
 		}
@@ -64,7 +65,7 @@ func TestSpillwayHelp(t *testing.T) {
 // engineers.
 func TestSpillwayLabels(t *testing.T) {
 	var out bytes.Buffer
-	if err := run(&out, nil); err != nil {
+	if err := run(&out, noPlot); err != nil {
 		t.Fatal(err)
 	}
 	for _, want := range []string{
@@ -91,7 +92,7 @@ func TestSpillwayLabels(t *testing.T) {
 // Re* = 4.234, in the viscous range below 5, and the report flags it.
 func TestSpillwayRoughnessAndGrainByHand(t *testing.T) {
 	var out bytes.Buffer
-	r, err := evaluate(&out, nil)
+	r, err := evaluate(&out, noPlot)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -125,7 +126,7 @@ func TestSpillwayRoughnessAndGrainByHand(t *testing.T) {
 	}
 	// A coarser prototype bed (4 mm) keeps the model grain out of the
 	// viscous range: Re* = 4·4.234.
-	r, err = evaluate(&bytes.Buffer{}, []string{"-d50", "4"})
+	r, err = evaluate(&bytes.Buffer{}, []string{"-d50", "4", "-out", ""})
 	if err != nil || !r.ReStarCheck.Pass {
 		t.Errorf("-d50 4: %+v, %v", r.ReStarCheck, err)
 	}
@@ -139,9 +140,9 @@ func FuzzSpillwayFlags(f *testing.F) {
 	f.Add(uint8(2), "1e-300", uint8(3), "5e-324")
 	f.Add(uint8(0), "500", uint8(1), "1e5")
 	f.Add(uint8(4), "0.2", uint8(5), "100")
-	names := []string{"-scale", "-q", "-hscale", "-vscale", "-n", "-d50"}
+	names := []string{"-scale", "-q", "-hscale", "-vscale", "-n", "-d50", "-width", "-height", "-dpi"}
 	f.Fuzz(func(t *testing.T, i uint8, a string, j uint8, b string) {
-		args := []string{names[int(i)%len(names)], a, names[int(j)%len(names)], b}
+		args := []string{names[int(i)%len(names)], a, names[int(j)%len(names)], b, "-out", ""}
 		var out bytes.Buffer
 		err := run(&out, args)
 		if err != nil {

@@ -8,13 +8,17 @@
 // each limit printed with the publication or practice it rests on. It
 // flags a model Manning n smoother than model materials reach and a
 // movable-bed grain whose particle Reynolds number falls into the viscous
-// range.
+// range. Last it rates the weir: invented model measurements of head and
+// discharge, each checked for scale effects (a failing point excluded by
+// a stated rule), the rating Q = C·h^n and the weir coefficient fitted
+// with their intervals, and the prototype rating by Froude similarity
+// with the fit's band, drawn as a rating-curve plot.
 //
 // The structure, the flows and the measurements are invented.
 //
 // Usage:
 //
-//	go run ./examples/spillway [-scale 30] [-q 450] [-hscale 120] [-vscale 30] [-n 0.014] [-d50 1]
+//	go run ./examples/spillway [-scale 30] [-q 450] [-hscale 120] [-vscale 30] [-n 0.014] [-d50 1] [-out DIR] [-width IN] [-height IN] [-dpi N]
 //
 // A bad flag value exits with status 2, naming the flag.
 package main
@@ -65,8 +69,20 @@ checks at the crest (crest radius, Reynolds and Weber numbers, head),
 each with its limit, the limit's basis and a verdict. The crest velocity
 V is the critical velocity √(g·y_c) where the flow passes critical depth
 y_c = ⅔h over the crest, h the head over the crest; Re and We are both
-formed with V and h. All data are invented; the output ends with the
-caution that governs any use of such a model.
+formed with V and h. Then the weir's rating: the invented model
+measurements of head h and discharge Q, each point's weir coefficient
+C_d = Q/((2/3)·√(2g)·b·h^(3/2)) and scale-effect check (a point failing a
+limit is EXCLUDED from the rating, by the rule printed with it); the
+model rating Q = C·h^n fitted in logarithms with its confidence
+intervals, outliers flagged, and its range of validity; and the
+prototype rating (h_p = x·h_m, Q_p = x^(5/2)·Q_m) as a table of
+discharges with the band of the fit's uncertainty (scale effects are
+not in the band), heads outside the range marked EXTRAPOLATED. The
+rating curve is drawn as spillway-rating.png and spillway-rating.svg in
+-out (log–log, with a lower panel of each point and the band as a
+deviation from the fitted curve in per cent; no plot when -out is
+empty). All data are invented; the output ends with the caution that
+governs any use of such a model.
 
 Flags:
 `
@@ -83,6 +99,9 @@ type Result struct {
 	Sediment                                             hydraulic.SedimentScales
 	ProtoShearVelocity, ProtoReStar, ModelGrain          float64              // m/s, 1, m
 	ReStarCheck                                          hydraulic.ScaleCheck // the model grain's Re*
+	Rating                                               *hydraulic.Rating
+	Table                                                []hydraulic.RatingValue // the prototype rating table
+	PNG, SVG                                             string                  // the plot's files, empty when not drawn
 }
 
 // Invented crest hydraulics of the prototype: the head over the crest at
@@ -117,8 +136,20 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	vs := cli.FloatVar(fs, "vscale", 30, 2, 500, "", "distorted variant: vertical scale x of 1:x, at most -hscale")
 	protoN := cli.FloatVar(fs, "n", 0.014, 0.008, 0.2, "s·m^(−1/3)", "prototype Manning n of the chute (0.014: concrete cast in forms, common practice)")
 	d50 := cli.FloatVar(fs, "d50", 1, 0.0625, 100, "mm", "median grain size of the approach reach's bed (sand to gravel; finer grains are silt, which can be cohesive)")
+	out := fs.String("out", os.TempDir(), "directory for spillway-rating.png and spillway-rating.svg; empty: no plot")
+	width := cli.FloatVar(fs, "width", 6, 2, 40, "in", "plot width")
+	height := cli.FloatVar(fs, "height", 7, 2, 40, "in", "plot height (two panels)")
+	dpi := cli.FloatVar(fs, "dpi", 150, 36, 1200, "dots per inch", "PNG resolution")
 	if err := cli.Parse(fs, w, args); err != nil {
 		return nil, err
+	}
+	if fs.NArg() > 0 {
+		return nil, &cli.Error{Program: "spillway", Msg: fmt.Sprintf("unexpected argument %s: spillway takes flags only", cli.Quote(fs.Arg(0)))}
+	}
+	if *out != "" {
+		if st, err := os.Stat(*out); err != nil || !st.IsDir() {
+			return nil, &cli.Error{Program: "spillway", Msg: fmt.Sprintf("-out %s: not a directory", cli.Quote(*out))}
+		}
 	}
 	if *vs > *hs {
 		return nil, &cli.Error{Program: "spillway", Msg: fmt.Sprintf("-vscale %g exceeds -hscale %g: a distorted model exaggerates the vertical, so its vertical scale must not be the larger", *vs, *hs)}
@@ -249,6 +280,9 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		for _, ck := range cs {
 			fmt.Fprintf(w, "    %v\n", ck)
 		}
+	}
+	if err := rateWeir(w, r, *scale, wat.KinematicViscosity, wat.Density, sigma, *out, *width, *height, *dpi); err != nil {
+		return nil, err
 	}
 	fmt.Fprintln(w, "\nCAUTION:", hydraulic.StructureCaution)
 	return r, nil

@@ -13,7 +13,7 @@ import (
 
 func TestRuns(t *testing.T) {
 	var out bytes.Buffer
-	if err := run(&out, nil); err != nil {
+	if err := run(&out, noPlot); err != nil {
 		t.Fatal(err)
 	}
 	for _, want := range []string{"invented", "λ_L^(5/2)", "CAUTION", "distorted"} {
@@ -30,7 +30,7 @@ func TestRuns(t *testing.T) {
 // m³/s = 91.29 L/s; times ×√30 and pressures ×30 at full scale; the
 // distorted 1:120/1:30 model has λ_V = 30^-½, λ_Q = 1/(120·30^1.5).
 func TestByHand(t *testing.T) {
-	r, err := evaluate(&bytes.Buffer{}, nil)
+	r, err := evaluate(&bytes.Buffer{}, noPlot)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -69,7 +69,7 @@ func TestHelp(t *testing.T) {
 // distorted reach needs grains of (1/30)²/(1/120) = 0.1333 of the
 // prototype's.
 func TestScaleChecksByHand(t *testing.T) {
-	r, err := evaluate(&bytes.Buffer{}, nil)
+	r, err := evaluate(&bytes.Buffer{}, noPlot)
 	if err != nil {
 		t.Fatal(err)
 	}
