@@ -37,6 +37,8 @@ func layer(dir string) int {
 		return 41
 	case tradeOf(dir) != "":
 		return 42
+	case dir == "similarity/reduction" || strings.HasPrefix(dir, "similarity/reduction/"):
+		return 43 // the data-reduction pipeline: may call the core, fluids and the trades
 	}
 	return 50 // examples and the root package
 }
