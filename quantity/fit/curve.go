@@ -39,10 +39,9 @@ type Curve struct {
 	// MaxIterations.
 	Evaluations int
 
-	f    Model
-	cov  *mat.SymDense
-	tq   float64
-	step []float64
+	f   Model
+	cov *mat.SymDense
+	tq  float64
 }
 
 // MaxIterations bounds the Levenberg–Marquardt steps of one FitCurve.

@@ -81,8 +81,7 @@ func SelectPoly(x, y []float64, maxOrder int, c Criterion, opt *Options) (*Poly,
 			if m == 0 {
 				return nil, err
 			}
-			top = m - 1 // ill-conditioned beyond here
-			break
+			break // ill-conditioned from this order on: the lower orders are the candidates
 		}
 		fits = append(fits, f)
 	}

@@ -266,6 +266,7 @@ func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.Compr
 	var enc format.Encoding
 	switch {
 	case h.DictionaryPageHeader.Valid:
+		//lint:ignore SA1019 files written by older writers still use the deprecated PLAIN_DICTIONARY code, and are read
 		if e := h.DictionaryPageHeader.V.Encoding; e != format.Plain && e != format.PlainDictionary {
 			return fmt.Errorf("a dictionary page of encoding %v", e)
 		}
@@ -279,6 +280,7 @@ func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.Compr
 	}
 	switch enc {
 	case format.Plain, format.ByteStreamSplit:
+	//lint:ignore SA1019 files written by older writers still use the deprecated PLAIN_DICTIONARY code, and are read
 	case format.PlainDictionary, format.RLEDictionary, format.DeltaBinaryPacked, format.DeltaLengthByteArray:
 	default:
 		return fmt.Errorf("values of encoding %v are not read (PLAIN, dictionary, DELTA_BINARY_PACKED, DELTA_LENGTH_BYTE_ARRAY and BYTE_STREAM_SPLIT are)", enc)
@@ -342,6 +344,7 @@ func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.Compr
 		}
 	}
 	switch enc {
+	//lint:ignore SA1019 files written by older writers still use the deprecated PLAIN_DICTIONARY code, and are read
 	case format.PlainDictionary, format.RLEDictionary:
 		if len(data) == 0 {
 			return nil
