@@ -358,6 +358,9 @@ func FitWeightTare(points []TarePoint, comps []Component) (WeightTare, error) {
 		}
 		t.MomentRMS = math.Sqrt(mss / float64(len(rows)))
 	}
+	if !allFinite(t.ForceRMS, t.MomentRMS) {
+		return WeightTare{}, outOfRange(op, "residuals", "the residuals of the fit are out of the range of a float64")
+	}
 	return t, nil
 }
 
