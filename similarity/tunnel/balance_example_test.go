@@ -88,3 +88,34 @@ func ExampleFitPolar() {
 	// Output:
 	// 8 points: dC_L/dα = 0.0900 /°, α₀ = -1.80°, C_D0 = 0.0210, K = 0.0550
 }
+
+// One point of an invented run through the whole reduction: a
+// three-component balance in the direct form, a 20 N model, the moments
+// moved 50 mm forward, wind axes at 4°, coefficients on q_u and the wall
+// corrections of a closed 6 m² section (the numbers of TestReduceByHand).
+func ExampleReduction_Reduce() {
+	cal, err := tunnel.NewCalibration("invented", tunnel.LoadsFromReadings, "mV/V",
+		[]tunnel.ComponentRange{{tunnel.NormalForce, -1000, 1000}, {tunnel.AxialForce, -100, 100}, {tunnel.PitchingMoment, -50, 50}},
+		[][]float64{{1000, 0, 0}, {0, 100, 0}, {0, 0, 10}}, nil)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	r := tunnel.Reduction{
+		Calibration: cal,
+		Tare:        tunnel.WeightTare{Weight: 20},
+		Offset:      tunnel.Offset{X: q.New(0.05, q.Length)},
+		Reference:   tunnel.Reference{Area: q.New(0.5, q.Area), Span: q.New(2, q.Length), Chord: q.New(0.2, q.Length)},
+		Walls:       tunnel.Model3D{TunnelArea: q.New(6, q.Area), ModelVolume: q.New(0.01, q.Volume), ShapeFactor: 0.9, Delta: 0.12},
+	}
+	p, err := r.Reduce(tunnel.Point{Readings: []float64{0.3, 0.02, 0.05}, Attitude: tunnel.Attitude{Pitch: 4}, DynamicPressure: q.New(1000, q.Pressure)})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("L = %.2f N, D = %.2f N; uncorrected C_L = %.4f, C_D = %.4f\n", p.Wind.Lift, p.Wind.Drag, p.Uncorrected.CL, p.Uncorrected.CD)
+	fmt.Printf("corrected: α = %.3f°, C_L = %.4f, C_D = %.4f, C_m = %.4f\n", p.Corrected.Alpha, p.Corrected.CL, p.Corrected.CD, p.Corrected.CM)
+	// Output:
+	// L = 319.13 N, D = 22.92 N; uncorrected C_L = 0.6383, C_D = 0.0458
+	// corrected: α = 4.365°, C_L = 0.6363, C_D = 0.0497, C_m = -0.1545
+}
