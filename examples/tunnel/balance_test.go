@@ -106,7 +106,7 @@ func TestReductionByHand(t *testing.T) {
 			t.Errorf("%s = %.10g, by hand %.10g", c.name, c.got, c.want)
 		}
 	}
-	// The printed row at 4°: NF 304.91 N, C_L,u 0.4808, α 4.32°, C_L 0.4755.
+	// The printed row at 4°: NF 304.91 N, C_L,u 0.4808, α 4.324°, C_L 0.4756.
 	if !strings.Contains(out.String(), "    4.0   304.91") || !strings.Contains(out.String(), "0.4808") {
 		t.Errorf("the 4° row is not printed as expected:\n%s", out.String())
 	}
