@@ -10,9 +10,11 @@
 // the wall corrections of a two-dimensional section test and of the
 // complete model at the test Mach number (blockage with its
 // compressibility factors, downwash, and the wing's and tail's
-// streamline curvature), and the safety cautions of each tunnel.
+// streamline curvature), the reduction of an invented polar run from a
+// six-component balance's readings to corrected coefficients and the
+// fitted polar (with plots), and the safety cautions of each tunnel.
 //
-// The aircraft, the tunnels and the readings are invented for the
+// The aircraft, the tunnels, the balance and the readings are invented for the
 // demonstration. Running a pressurised or cryogenic tunnel is governed by
 // the facility's safety rules and its responsible engineer; nothing
 // printed here replaces them.
@@ -20,6 +22,7 @@
 // Usage:
 //
 //	go run ./examples/tunnel [-alt 18000] [-mach 0.62] [-chord 2.4] [-scale 12]
+//	    [-amin -5] [-amax 11] [-out DIR] [-width IN] [-height IN] [-dpi N]
 package main
 
 import (
@@ -74,6 +77,8 @@ type Result struct {
 	// SectionErr and ModelErr are the corrections' refusals (above
 	// Ma 0.8, or a model too large for the section), printed instead.
 	SectionErr, ModelErr error
+	// Run is the reduced polar run.
+	Run *Run
 }
 
 // Load is a model's dynamic pressure and lift in one tunnel.
@@ -109,11 +114,23 @@ number -mach, chord -chord) and a model -scale times smaller it prints:
   - wall corrections of a section test and of the complete model at the
     test Mach number (ε = blockage; q/q_u and the corrected coefficients),
     or why they are refused (above Ma 0.8 they are not applied);
-  - the safety cautions of each tunnel. The aircraft, tunnels and readings
-    are invented; the facility's safety rules and responsible engineer
-    govern any real run.
+  - the reduction of a polar run on the 1:12 model at q_u = 2750 Pa from a
+    six-component internal balance: the calibration (readings from loads,
+    first- and second-order terms, inverted by iteration), the weight tare
+    from wind-off attitudes (W and CG), the moments moved to the quarter
+    chord, the loads in wind axes (body axes x forward, z down; NF up, AF
+    aft), the coefficients on q_u and corrected for the walls on q, and the
+    largest load against the balance's calibrated range;
+  - the polar fitted over the linear range -amin … -amax (corrected α, in
+    degrees): lift slope dC_L/dα and zero-lift angle α₀, C_D0 and K of
+    C_D = C_D0 + K·C_L², each with its 95 % interval; plots of C_L against
+    α and of C_D against C_L written to -out as PNG and SVG;
+  - the safety cautions of each tunnel. The aircraft, tunnels, balance and
+    readings are invented; the facility's safety rules, the balance's rated
+    loads and the responsible engineer govern any real run.
 
-Exit status 2 for a bad flag, 1 when the plan cannot be made.
+Exit status 2 for a bad flag or -out that is not a directory, 1 when the
+plan cannot be made.
 
 Flags:
 `
@@ -126,12 +143,27 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	mach := cli.FloatVar(fs, "mach", 0.62, 0.1, 0.95, "", "cruise Mach number (wall corrections are refused above 0.8)")
 	chord := cli.FloatVar(fs, "chord", 2.4, 0.1, 20, "m", "mean aerodynamic chord")
 	scale := cli.FloatVar(fs, "scale", 12, 2, 200, "", "aircraft size over model size")
+	alo := cli.FloatVar(fs, "amin", -5, -30, 30, "°", "lowest corrected α of the polar's linear range")
+	ahi := cli.FloatVar(fs, "amax", 11, -30, 30, "°", "highest corrected α of the polar's linear range")
+	out := fs.String("out", os.TempDir(), "directory for tunnel-lift and tunnel-polar .png and .svg")
+	width := cli.FloatVar(fs, "width", 6, 2, 40, "in", "plot width")
+	height := cli.FloatVar(fs, "height", 4, 2, 40, "in", "plot height")
+	dpi := cli.FloatVar(fs, "dpi", 150, 36, 1200, "dots per inch", "PNG resolution")
 	fs.Usage = func() {
 		fmt.Fprint(fs.Output(), about)
 		fs.PrintDefaults()
 	}
 	if err := cli.Parse(fs, w, args); err != nil {
 		return nil, err
+	}
+	if fs.NArg() > 0 {
+		return nil, &cli.Error{Msg: fmt.Sprintf("unexpected argument %s: tunnel takes flags only", cli.Quote(fs.Arg(0)))}
+	}
+	if st, err := os.Stat(*out); err != nil || !st.IsDir() {
+		return nil, &cli.Error{Msg: fmt.Sprintf("-out %s: not a directory", cli.Quote(*out))}
+	}
+	if !(*alo < *ahi) {
+		return nil, &cli.Error{Msg: fmt.Sprintf("-amin %g must be below -amax %g", *alo, *ahi)}
 	}
 	flight, err := fluids.StandardAtmosphere(q.New(*alt, q.Length), fluids.Geometric)
 	if err != nil {
@@ -294,6 +326,9 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 			m3.CurvatureFactor, m3.LiftSlope, c3.DeltaAlphaCurvature, c3.DeltaCLCurvature, c3.DeltaCMCurvature)
 		fmt.Fprintf(w, "  tail (τ₂,t = %.2f, ∂C_m/∂α_t = %.3f/°): %.4f° more angle than free air, ΔC_m = %.5f; C_m¼ %.4f → %.4f\n",
 			m3.TailCurvatureFactor, m3.TailMomentSlope, c3.TailAngle, c3.DeltaCMTail, m3.CM, c3.CM)
+	}
+	if r.Run, err = reduceRun(w, *out, *alo, *ahi, *width, *height, *dpi); err != nil {
+		return nil, err
 	}
 	fmt.Fprintln(w, "\nSAFETY (each tunnel's cautions; the facility's safety rules and its responsible engineer govern every run):")
 	var seen []string

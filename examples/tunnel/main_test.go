@@ -12,9 +12,15 @@ import (
 	"similis.dev/similis/similarity/fluids"
 )
 
+// outDir returns the arguments with -out set to a fresh temporary
+// directory, so that no test writes its plots anywhere else.
+func outDir(t testing.TB, args ...string) []string {
+	return append([]string{"-out", t.TempDir()}, args...)
+}
+
 func TestRuns(t *testing.T) {
 	var out bytes.Buffer
-	if err := run(&out, nil); err != nil {
+	if err := run(&out, outDir(t)); err != nil {
 		t.Fatal(err)
 	}
 	for _, want := range []string{"invented", "ordinary tunnel", "cryogenic", "CAUTION"} {
@@ -22,7 +28,7 @@ func TestRuns(t *testing.T) {
 			t.Errorf("output lacks %q:\n%s", want, out.String())
 		}
 	}
-	if err := run(&bytes.Buffer{}, []string{"-mach", "1.5"}); err == nil {
+	if err := run(&bytes.Buffer{}, outDir(t, "-mach", "1.5")); err == nil {
 		t.Error("-mach 1.5 accepted")
 	}
 }
@@ -34,7 +40,7 @@ func TestRuns(t *testing.T) {
 // and Re_m = ρ·V_m·(c/12)/μ with ρ = p/(RT) and Sutherland's μ(T) of
 // ISO 2533 (β = 1.458e-6, S = 110.4 K).
 func TestByHand(t *testing.T) {
-	r, err := evaluate(&bytes.Buffer{}, nil)
+	r, err := evaluate(&bytes.Buffer{}, outDir(t))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -84,7 +90,8 @@ func TestHelp(t *testing.T) {
 	// It says what the program does and what its output means, and
 	// lists every flag with its range.
 	for _, want := range []string{"plans wind-tunnel tests", "invented", "Re_m/Re (1 when both hold)", "ε = blockage", "safety cautions",
-		"Exit status 2", "-alt", "-mach", "-chord", "-scale", "0.1 … 0.95"} {
+		"Exit status 2", "-alt", "-mach", "-chord", "-scale", "0.1 … 0.95",
+		"six-component internal balance", "weight tare", "C_D = C_D0 + K·C_L²", "-amin", "-amax", "-out", "-dpi", "rated"} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("-h lacks %q", want)
 		}
@@ -97,7 +104,7 @@ func TestHelp(t *testing.T) {
 // the one that overloads the 4 kN balance.
 func TestLoadsByHand(t *testing.T) {
 	var out bytes.Buffer
-	r, err := evaluate(&out, nil)
+	r, err := evaluate(&out, outDir(t))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -117,7 +124,7 @@ func TestLoadsByHand(t *testing.T) {
 // TestCondensationMargin: the margin is the static temperature less the
 // nitrogen saturation temperature at the static pressure.
 func TestCondensationMargin(t *testing.T) {
-	r, err := evaluate(&bytes.Buffer{}, nil)
+	r, err := evaluate(&bytes.Buffer{}, outDir(t))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -136,7 +143,7 @@ func TestCondensationMargin(t *testing.T) {
 // ε_wb = (0.3/(4·0.9))·0.0125·(1 + 0.4·0.62²)/β², ε = ε_sb + ε_wb,
 // C_l = 0.82[1 − σ/β² − (2 − 0.62²)ε], q/q_u = 1 + (2 − 0.62²)ε.
 func TestSectionByHand(t *testing.T) {
-	r, err := evaluate(&bytes.Buffer{}, nil)
+	r, err := evaluate(&bytes.Buffer{}, outDir(t))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -158,7 +165,7 @@ func TestSectionByHand(t *testing.T) {
 // Δα_sc = 0.12·Δα, ΔC_L = −0.085·Δα_sc, ΔC_m¼ = −0.25·ΔC_L; the tail
 // (τ₂,t = 0.55) meets 0.55·Δα more, ΔC_m,t = 0.025·0.55·Δα.
 func TestModelCorrectionsByHand(t *testing.T) {
-	r, err := evaluate(&bytes.Buffer{}, nil)
+	r, err := evaluate(&bytes.Buffer{}, outDir(t))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -183,7 +190,7 @@ func TestModelCorrectionsByHand(t *testing.T) {
 func TestCorrectionsFollowMach(t *testing.T) {
 	at := func(ma string) (*Result, string) {
 		var out bytes.Buffer
-		r, err := evaluate(&out, []string{"-mach", ma})
+		r, err := evaluate(&out, outDir(t, "-mach", ma))
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -208,7 +215,7 @@ func TestCorrectionsFollowMach(t *testing.T) {
 // Re_m = ρV(2.4/12)/μ equals the flight Reynolds number.
 func TestCryogenicIsNitrogen(t *testing.T) {
 	var out bytes.Buffer
-	r, err := evaluate(&out, nil)
+	r, err := evaluate(&out, outDir(t))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -231,7 +238,7 @@ func TestCryogenicIsNitrogen(t *testing.T) {
 // are printed.
 func TestSafetyPrinted(t *testing.T) {
 	var out bytes.Buffer
-	if _, err := evaluate(&out, nil); err != nil {
+	if _, err := evaluate(&out, outDir(t)); err != nil {
 		t.Fatal(err)
 	}
 	for _, want := range []string{"asphyxiation", "cold burns", "OVERLOAD", "pressure-equipment code", "safety rules", "responsible engineer"} {
@@ -244,9 +251,9 @@ func TestSafetyPrinted(t *testing.T) {
 // TestFlagErrors: every numeric flag refuses NaN, ±Inf, text and values
 // outside its range with the flag named, and the program exits 2.
 func TestFlagErrors(t *testing.T) {
-	for _, f := range []string{"alt", "mach", "chord", "scale"} {
+	for _, f := range []string{"alt", "mach", "chord", "scale", "amin", "amax", "width", "height", "dpi"} {
 		for _, v := range []string{"NaN", "Inf", "-Inf", "x", "1e400", "-1e9", "1e9"} {
-			err := run(io.Discard, []string{"-" + f, v})
+			err := run(io.Discard, outDir(t, "-"+f, v))
 			if err == nil || !strings.Contains(err.Error(), "-"+f) {
 				t.Errorf("-%s %s: %v", f, v, err)
 				continue
@@ -268,10 +275,11 @@ func FuzzFlags(f *testing.F) {
 	f.Add(uint8(1), "0.8")
 	f.Add(uint8(2), "1e-300")
 	f.Add(uint8(3), "\x1b[2J")
-	names := []string{"-alt", "-mach", "-chord", "-scale", "-h", "-bogus"}
+	names := []string{"-alt", "-mach", "-chord", "-scale", "-amin", "-amax", "-width", "-height", "-dpi", "-h", "-bogus"}
+	dir := f.TempDir()
 	f.Fuzz(func(t *testing.T, which uint8, v string) {
 		var out bytes.Buffer
-		err := run(&out, []string{names[int(which)%len(names)], v})
+		err := run(&out, []string{"-out", dir, names[int(which)%len(names)], v})
 		if code := exitCode(err, io.Discard); err != nil && code == 0 && !errors.Is(err, flag.ErrHelp) {
 			t.Errorf("error %v with exit 0", err)
 		}

@@ -18,11 +18,18 @@ type Error struct {
 	Class  error  // one of quantity.ErrDimension, ErrRange, ErrParse, ErrUnknown, ErrInvalid
 	Reason string // what was wrong, in words
 	Err    error  // the error that caused this one, or nil
+	// Line is the line of a balance-calibration file the error is on,
+	// from 1; 0 when the error is not about a file.
+	Line int
 }
 
 // Error implements the error interface.
 func (e *Error) Error() string {
-	s := "tunnel: " + e.Op + ": " + e.Reason
+	s := "tunnel: " + e.Op + ": "
+	if e.Line > 0 {
+		s += "line " + strconv.Itoa(e.Line) + ": "
+	}
+	s += e.Reason
 	if e.Err != nil {
 		s += ": " + e.Err.Error()
 	}

@@ -1,0 +1,282 @@
+package main
+
+// The balance reduction of an invented polar run on the 1:12 model in
+// the ordinary tunnel's closed 2.0 × 1.5 m section: readings → loads by
+// the calibration → weight tare → moment reference point → wind axes →
+// coefficients on q_u → wall corrections → the fitted polar and its
+// plots.
+
+import (
+	"fmt"
+	"io"
+	"math"
+	"path/filepath"
+	"strings"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/vg"
+
+	q "similis.dev/similis/quantity"
+	"similis.dev/similis/similarity/tunnel"
+)
+
+// calibrationFile is the invented six-component balance's calibration,
+// in the tunnel package's text format.
+const calibrationFile = `similis-balance 1
+name      SB-6, six-component internal balance, 4 kN (invented)
+form      readings-from-loads
+readings  mV/V
+# component, load unit, calibrated range
+component NF N    -4000 4000
+component AF N    -400  400
+component PM N*m  -300  300
+component SF N    -1500 1500
+component YM N*m  -150  150
+component RM N*m  -150  150
+# first-order terms, mV/V per unit load; columns NF AF PM SF YM RM
+linear NF  2.5e-4   1.2e-5  -8.0e-6  0       0        2.0e-6
+linear AF  -3.0e-6  2.5e-3   4.0e-6  0       0        0
+linear PM  1.5e-6   0        3.3e-3  0       1.0e-5   0
+linear SF  0        0        0       6.7e-4  -9.0e-6  1.2e-5
+linear YM  0        0        2.0e-6  4.0e-6  6.7e-3   0
+linear RM  1.0e-6   0        0       5.0e-6  0        6.7e-3
+# second-order terms, pairs (NF,NF) (NF,AF) (NF,PM) … (RM,RM)
+quadratic NF 1.2e-11 0 2.0e-10 0 0 0  0 0 0 0 0  0 0 0 0  0 0 0  0 0  0
+quadratic AF 3.0e-10 0 0 0 0 0  0 0 0 0 0  0 0 0 0  0 0 0  0 0  0
+quadratic PM -5.0e-12 0 8.0e-10 0 0 0  0 0 0 0 0  1.0e-9 0 0 0  0 0 0  0 0  0
+`
+
+// reading is one invented data point: the model's pitch (degrees, roll
+// 0) and the six readings in mV/V in the calibration's order (NF, AF,
+// PM, SF, YM, RM), from the balance's unloaded zero.
+type reading struct {
+	pitch float64
+	r     [6]float64
+}
+
+// windOff are the invented wind-off readings at six attitudes.
+var windOff = []reading{
+	{-4, [6]float64{-0.01125, -0.00772, -0.00456, 0.00002, 0, -0.00004}},
+	{0, [6]float64{-0.01124, 0.00013, -0.00452, -0.00003, 0, -0.00005}},
+	{4, [6]float64{-0.01117, 0.00798, -0.00446, 0.00001, 0, -0.00004}},
+	{8, [6]float64{-0.01105, 0.01579, -0.00438, 0.00003, 0, -0.00004}},
+	{12, [6]float64{-0.01088, 0.02352, -0.00427, -0.00001, 0, -0.00004}},
+	{16, [6]float64{-0.01066, 0.03113, -0.00414, -0.00003, 0, -0.00004}},
+}
+
+// windOn are the invented wind-on readings of the polar run, all at
+// q_u = 2750 Pa and Ma 0.20.
+var windOn = []reading{
+	{-4, [6]float64{-0.04848, 0.01152, -0.04229, -0.00020, -0.00013, -0.00013}},
+	{-2, [6]float64{-0.01775, 0.03604, -0.02956, 0.00004, -0.00023, 0.00023}},
+	{0, [6]float64{0.01403, 0.04322, -0.01546, 0.00018, 0.00013, -0.00008}},
+	{2, [6]float64{0.04555, 0.03331, 0.00020, -0.00008, 0.00003, -0.00009}},
+	{4, [6]float64{0.07624, 0.00796, 0.01387, -0.00016, -0.00015, 0.00047}},
+	{6, [6]float64{0.10704, -0.03570, 0.02734, 0.00010, 0.00028, 0.00046}},
+	{8, [6]float64{0.13821, -0.09534, 0.04320, 0.00002, -0.00005, 0.00035}},
+	{10, [6]float64{0.16844, -0.17242, 0.05587, -0.00012, 0.00014, 0.00101}},
+	{12, [6]float64{0.18500, -0.21419, 0.06419, 0.00020, -0.00020, 0.00065}},
+	{14, [6]float64{0.19204, -0.25436, 0.06625, -0.00006, 0.00012, 0.00091}},
+	{16, [6]float64{0.18301, -0.27032, 0.06335, 0.00008, -0.00002, 0.00044}},
+}
+
+// The run's invented conditions and the model's geometry (the 1:12
+// model: wing 38 m²/144, mean chord 2.4 m/12, span 18.6 m/12).
+const (
+	runQ         = 2750.0 // Pa, uncorrected dynamic pressure
+	runMach      = 0.20
+	modelChord   = 0.2  // m
+	modelSpan    = 1.55 // m
+	mrcAhead     = 0.04 // m: the quarter point of the mean chord ahead of the balance centre
+	assumedSlope = 0.080
+)
+
+// Run is the reduced polar run, for the test.
+type Run struct {
+	Calibration *tunnel.Calibration
+	Tare        tunnel.WeightTare
+	Points      []tunnel.Reduced
+	Polar       tunnel.Polar
+	// MaxShare is the largest load of the run as a fraction of its
+	// component's calibrated range, and MaxComponent that component.
+	MaxShare     float64
+	MaxComponent tunnel.Component
+	PNG, SVG     [2]string // the lift curve's and the polar's files
+}
+
+// reduceRun reduces the invented run, prints its tables and the fitted
+// polar, and writes the plots into dir.
+func reduceRun(w io.Writer, dir string, alo, ahi, width, height, dpi float64) (*Run, error) {
+	cal, err := tunnel.ParseCalibration(strings.NewReader(calibrationFile))
+	if err != nil {
+		return nil, err
+	}
+	run := &Run{Calibration: cal}
+	comps := cal.Components()
+	var measured []tunnel.Component
+	for _, c := range comps {
+		measured = append(measured, c.Component)
+	}
+	fmt.Fprintln(w, "\nBalance reduction of a polar run on the 1:12 model (the readings, the balance and its calibration are invented):")
+	fmt.Fprintf(w, "  balance: %v\n", cal)
+	fmt.Fprintln(w, "  the calibration gives readings from loads with first- and second-order terms; the loads are recovered by iteration")
+	fmt.Fprintln(w, "  body axes: x forward, y to starboard, z down; NF positive up, AF positive aft, PM positive nose up; readings from the unloaded zero")
+
+	var pts []tunnel.TarePoint
+	for _, r := range windOff {
+		l, err := cal.Loads(r.r[:])
+		if err != nil {
+			return nil, err
+		}
+		pts = append(pts, tunnel.TarePoint{Attitude: tunnel.Attitude{Pitch: r.pitch}, Loads: l})
+	}
+	if run.Tare, err = tunnel.FitWeightTare(pts, measured); err != nil {
+		return nil, err
+	}
+	t := run.Tare
+	fmt.Fprintf(w, "  weight tare from %d wind-off attitudes (pitch %g° … %g°): W = %.2f N, CG from the balance centre x = %.1f mm, y = %.1f mm, z = %.1f mm (body axes)",
+		t.Points, windOff[0].pitch, windOff[len(windOff)-1].pitch, t.Weight, 1e3*t.CG[0], 1e3*t.CG[1], 1e3*t.CG[2])
+	if len(t.Unresolved) > 0 {
+		fmt.Fprintf(w, " (%s not resolved by these attitudes, taken as 0)", strings.Join(t.Unresolved, ", "))
+	}
+	fmt.Fprintf(w, "; rms residual %.3f N, %.4f N·m\n", t.ForceRMS, t.MomentRMS)
+
+	area := 38.0 / 144
+	red := tunnel.Reduction{
+		Calibration: cal, Tare: run.Tare,
+		Offset:    tunnel.Offset{X: q.New(mrcAhead, q.Length)},
+		Reference: tunnel.Reference{Area: q.New(area, q.Area), Span: q.New(modelSpan, q.Length), Chord: q.New(modelChord, q.Length)},
+		Walls: tunnel.Model3D{TunnelArea: q.New(3.0, q.Area), ModelVolume: q.New(0.010, q.Volume), ShapeFactor: 0.86, Delta: 0.12,
+			CurvatureFactor: 0.12, LiftSlope: assumedSlope, TailCurvatureFactor: 0.55, TailMomentSlope: -0.025},
+	}
+	fmt.Fprintf(w, "  moments to the quarter point of the mean chord, %.0f mm ahead of the balance centre; S = %.4f m², c̄ = %.2f m, b = %.2f m\n",
+		1e3*mrcAhead, area, modelChord, modelSpan)
+	fmt.Fprintf(w, "  run at q_u = %.0f Pa, Ma %.2f; walls: closed 2.0 × 1.5 m, K·τ₁ = 0.86, δ = 0.12, τ₂ = 0.12 (with a = %.3f/° assumed), τ₂,t = 0.55\n",
+		runQ, runMach, assumedSlope)
+	fmt.Fprintln(w, "\n  pitch     NF       AF       PM   |        uncorrected, q_u         |   corrected for the walls, q")
+	fmt.Fprintln(w, "   (°)     (N)      (N)    (N·m)  |   α (°)    C_L     C_D      C_m  |   α (°)    C_L     C_D     C_m¼")
+	var al, cl, cd []float64
+	for _, r := range windOn {
+		p, err := red.Reduce(tunnel.Point{Readings: r.r[:], Attitude: tunnel.Attitude{Pitch: r.pitch}, DynamicPressure: q.New(runQ, q.Pressure), Mach: runMach})
+		if err != nil {
+			return nil, fmt.Errorf("point at %g°: %w", r.pitch, err)
+		}
+		run.Points = append(run.Points, p)
+		for _, c := range comps {
+			span := math.Max(-c.Min, c.Max)
+			if s := math.Abs(p.Balance[c.Component]) / span; s > run.MaxShare {
+				run.MaxShare, run.MaxComponent = s, c.Component
+			}
+		}
+		u, c := p.Uncorrected, p.Corrected
+		fmt.Fprintf(w, "  %5.1f %8.2f %8.2f %8.3f  | %6.2f %8.4f %7.4f %8.4f | %6.3f %8.4f %7.4f %8.4f\n",
+			r.pitch, p.Balance[tunnel.NormalForce], p.Balance[tunnel.AxialForce], p.Balance[tunnel.PitchingMoment],
+			p.Alpha, u.CL, u.CD, u.Cm, c.Alpha, c.CL, c.CD, c.CM)
+		al, cl, cd = append(al, c.Alpha), append(cl, c.CL), append(cd, c.CD)
+	}
+	fmt.Fprintln(w, "  (NF, AF, PM: balance loads at its centre, weight included; α from the pitch, β = 0; C_m about the quarter chord)")
+	fmt.Fprintf(w, "  largest load of the run: %v at %.0f %% of its calibrated range — the balance's rated loads and the facility's rules govern every run\n",
+		run.MaxComponent, 100*run.MaxShare)
+
+	if run.Polar, err = tunnel.FitPolar(al, cl, cd, alo, ahi, 0.95); err != nil {
+		return nil, err
+	}
+	p := run.Polar
+	aspect := modelSpan * modelSpan / area
+	fmt.Fprintf(w, "\nPolar fitted to the %d corrected points with %g° ≤ α ≤ %g° (the linear range; 95 %% intervals):\n", p.N, alo, ahi)
+	fmt.Fprintf(w, "  lift slope dC_L/dα = %.4f /° (%.4f … %.4f), zero-lift angle α₀ = %.2f° (%.2f … %.2f)\n",
+		p.LiftSlope.Value, p.LiftSlope.Interval[0], p.LiftSlope.Interval[1], p.ZeroLiftAlpha.Value, p.ZeroLiftAlpha.Interval[0], p.ZeroLiftAlpha.Interval[1])
+	fmt.Fprintf(w, "  parabolic polar C_D = C_D0 + K·C_L²: C_D0 = %.5f (%.5f … %.5f), K = %.4f (%.4f … %.4f); Oswald factor e = 1/(π·A·K) = %.2f at A = b²/S = %.2f\n",
+		p.CD0.Value, p.CD0.Interval[0], p.CD0.Interval[1], p.K.Value, p.K.Interval[0], p.K.Interval[1], 1/(math.Pi*aspect*p.K.Value), aspect)
+	if d := p.LiftSlope.Value - assumedSlope; math.Abs(d) > 0.05*assumedSlope {
+		fmt.Fprintf(w, "  the curvature correction assumed a = %.3f/°; the fitted slope differs by %.0f %%: rerun with it\n", assumedSlope, 100*d/assumedSlope)
+	}
+	if run.PNG, run.SVG, err = plotPolar(dir, run, width, height, dpi); err != nil {
+		return nil, err
+	}
+	fmt.Fprintf(w, "  plots (C_L against α, and C_D against C_L; filled circles fitted, open triangles outside the linear range; lines the fits):\n    %s, %s\n    %s, %s\n",
+		run.PNG[0], run.SVG[0], run.PNG[1], run.SVG[1])
+	return run, nil
+}
+
+// plotPolar writes the lift curve and the drag polar as PNG and SVG.
+func plotPolar(dir string, r *Run, width, height, dpi float64) (png, svg [2]string, err error) {
+	p := r.Polar
+	var in, out [2]plotter.XYs
+	for _, pt := range r.Points {
+		c := pt.Corrected
+		xy := [2]plotter.XY{{X: c.Alpha, Y: c.CL}, {X: c.CL, Y: c.CD}}
+		for k := range 2 {
+			if c.Alpha >= p.AlphaRange[0] && c.Alpha <= p.AlphaRange[1] {
+				in[k] = append(in[k], xy[k])
+			} else {
+				out[k] = append(out[k], xy[k])
+			}
+		}
+	}
+	// The fitted lines over the fitted range.
+	var line [2]plotter.XYs
+	lo, hi := p.Lift.XMin, p.Lift.XMax
+	for i := 0; i <= 40; i++ {
+		a := lo + (hi-lo)*float64(i)/40
+		line[0] = append(line[0], plotter.XY{X: a, Y: p.Lift.Eval(a)})
+	}
+	clmax := math.Sqrt(p.Drag.XMax)
+	for i := 0; i <= 40; i++ {
+		l := -clmax + 2*clmax*float64(i)/40
+		line[1] = append(line[1], plotter.XY{X: l, Y: p.CD0.Value + p.K.Value*l*l})
+	}
+	titles := [2]string{"Lift curve, 1:12 model (invented run), corrected", "Drag polar, 1:12 model (invented run), corrected"}
+	xl := [2]string{"α (degrees, corrected)", "C_L"}
+	yl := [2]string{"C_L", "C_D"}
+	fits := [2]string{fmt.Sprintf("fit: dC_L/dα = %.4f /°", p.LiftSlope.Value), fmt.Sprintf("fit: C_{D0} = %.4f, K = %.4f", p.CD0.Value, p.K.Value)}
+	names := [2]string{"tunnel-lift", "tunnel-polar"}
+	for k := range 2 {
+		pl := plot.New()
+		pl.Title.Text = titles[k]
+		pl.X.Label.Text, pl.Y.Label.Text = xl[k], yl[k]
+		pl.Legend.Top, pl.Legend.Left = true, true
+		var xs, ys []float64
+		for j, set := range []plotter.XYs{in[k], out[k]} {
+			if len(set) == 0 {
+				continue
+			}
+			sc, err := plotter.NewScatter(set)
+			if err != nil {
+				return png, svg, err
+			}
+			sc.GlyphStyle = marker([]int{0, 2}[j]) // a filled circle, an open triangle
+			pl.Add(sc)
+			pl.Legend.Add([]string{"in the linear range", "outside it (not fitted)"}[j], sc)
+			for _, p := range set {
+				xs, ys = append(xs, p.X), append(ys, p.Y)
+			}
+		}
+		ln, err := plotter.NewLine(line[k])
+		if err != nil {
+			return png, svg, err
+		}
+		ln.Color = seriesColor(1)
+		ln.Dashes = []vg.Length{vg.Points(4), vg.Points(2)}
+		pl.Add(ln)
+		pl.Legend.Add(fits[k], ln)
+		if k == 0 {
+			for _, p := range line[k] {
+				xs, ys = append(xs, p.X), append(ys, p.Y)
+			}
+		}
+		styleAxes(pl, xs, ys)
+		// Room above the data for the legend.
+		pl.Y.Max += 0.3 * (pl.Y.Max - pl.Y.Min)
+		png[k] = filepath.Join(dir, names[k]+".png")
+		svg[k] = filepath.Join(dir, names[k]+".svg")
+		if err := savePlot(pl, png[k], width, height, dpi); err != nil {
+			return png, svg, err
+		}
+		if err := savePlot(pl, svg[k], width, height, dpi); err != nil {
+			return png, svg, err
+		}
+	}
+	return png, svg, nil
+}

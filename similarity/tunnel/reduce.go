@@ -1,0 +1,252 @@
+package tunnel
+
+import (
+	"fmt"
+	"math"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/quantity/fit"
+)
+
+// Reference is the model's reference geometry for its coefficients: the
+// area S, the span b (for the rolling and yawing moments) and the mean
+// aerodynamic chord c̄ (for the pitching moment).
+type Reference struct {
+	Area, Span, Chord quantity.Quantity
+}
+
+// Coefficients are force and moment coefficients in wind axes:
+// C_D = D/(qS), C_Y = Y_w/(qS), C_L = L/(qS), C_l = l/(qSb),
+// C_m = m/(qSc̄), C_n = n/(qSb), on the dynamic pressure q they were
+// formed with.
+type Coefficients struct {
+	CD, CY, CL, Cl, Cm, Cn float64
+}
+
+// Coefficients returns the loads' coefficients on the dynamic pressure q
+// and the reference geometry.
+func (a AxisLoads) Coefficients(q quantity.Quantity, ref Reference) (Coefficients, error) {
+	const op = "coefficients"
+	if err := checkInputs(op, true, input{"dynamic pressure", q, quantity.Pressure}, input{"reference area", ref.Area, quantity.Area},
+		input{"span", ref.Span, quantity.Length}, input{"mean aerodynamic chord", ref.Chord, quantity.Length}); err != nil {
+		return Coefficients{}, err
+	}
+	qs := q.Value() * ref.Area.Value()
+	c := Coefficients{CD: a.Drag / qs, CY: a.Side / qs, CL: a.Lift / qs,
+		Cl: a.Roll / (qs * ref.Span.Value()), Cm: a.Pitch / (qs * ref.Chord.Value()), Cn: a.Yaw / (qs * ref.Span.Value())}
+	if err := checkResults(op, false, result{"C_D", c.CD}, result{"C_Y", c.CY}, result{"C_L", c.CL},
+		result{"C_l", c.Cl}, result{"C_m", c.Cm}, result{"C_n", c.Cn}); err != nil {
+		return Coefficients{}, err
+	}
+	return c, nil
+}
+
+// Reduction is the data reduction of one balance on one model in one
+// closed test section, in the order of the procedure: the balance's
+// calibration gives the loads at its moment centre; the weight tare at
+// the point's attitude is subtracted; the moments are transferred to the
+// model's moment reference point; the loads are resolved in wind axes at
+// the point's α and β; the coefficients are formed on the uncorrected
+// dynamic pressure; and CorrectWalls3D corrects them for the walls onto
+// the corrected dynamic pressure.
+type Reduction struct {
+	Calibration *Calibration
+	// Tare is the weight tare; a zero Weight subtracts nothing (readings
+	// whose zero was taken with the model on at the same attitude).
+	Tare WeightTare
+	// Offset is the moment reference point from the balance's moment
+	// centre. For the wall corrections' moment terms it is the quarter
+	// point of the mean aerodynamic chord.
+	Offset    Offset
+	Reference Reference
+	// Walls holds the tunnel's and model's geometry and chart factors for
+	// CorrectWalls3D (TunnelArea, ModelVolume, ShapeFactor, Delta, the
+	// curvature factors and LiftSlope); its WingArea is taken from
+	// Reference.Area and its Alpha, CL, CD, CM and Mach from each point.
+	Walls Model3D
+}
+
+// Point is one wind-on data point: the balance's readings (in the
+// calibration's order and unit, from its unloaded zero), the model's
+// attitude, the uncorrected dynamic pressure q_u and the test section's
+// uncorrected Mach number.
+type Point struct {
+	Readings        []float64
+	Attitude        Attitude
+	DynamicPressure quantity.Quantity
+	Mach            float64
+}
+
+// Reduced is one point through every step of the reduction.
+type Reduced struct {
+	Alpha, Beta float64 // from the attitude (degrees), before the wall correction
+	Balance     Loads   // from the calibration, at the balance's moment centre
+	Tare        Loads   // the weight's loads at the point's attitude
+	Aero        Loads   // Balance − Tare, about the moment reference point
+	Wind        AxisLoads
+	Uncorrected Coefficients // on the uncorrected dynamic pressure
+	Corrected   Corrected3D  // corrected for the walls: α, C_L, C_D, C_m on the corrected q
+}
+
+// Reduce takes one point through the reduction. Each step's error names
+// its step: a reading beyond the calibration, an attitude beyond ±180°,
+// a coefficient or a blockage out of the wall corrections' range.
+func (r *Reduction) Reduce(p Point) (Reduced, error) {
+	const op = "reduction"
+	if r.Calibration == nil {
+		return Reduced{}, invalid(op, "calibration", "no balance calibration")
+	}
+	var out Reduced
+	var err error
+	if out.Alpha, out.Beta, err = p.Attitude.Angles(); err != nil {
+		return Reduced{}, err
+	}
+	if out.Balance, err = r.Calibration.Loads(p.Readings); err != nil {
+		return Reduced{}, err
+	}
+	out.Tare = r.Tare.Loads(p.Attitude)
+	if !out.Tare.finite() {
+		return Reduced{}, outOfRange(op, "weight tare", "the weight tare is not finite")
+	}
+	if out.Aero, err = out.Balance.Sub(out.Tare).About(r.Offset); err != nil {
+		return Reduced{}, err
+	}
+	if out.Wind, err = out.Aero.ToWind(out.Alpha, out.Beta); err != nil {
+		return Reduced{}, err
+	}
+	if out.Uncorrected, err = out.Wind.Coefficients(p.DynamicPressure, r.Reference); err != nil {
+		return Reduced{}, err
+	}
+	m := r.Walls
+	m.WingArea = r.Reference.Area
+	m.Alpha, m.CL, m.CD, m.CM, m.Mach = out.Alpha, out.Uncorrected.CL, out.Uncorrected.CD, out.Uncorrected.Cm, p.Mach
+	if out.Corrected, err = CorrectWalls3D(m); err != nil {
+		return Reduced{}, err
+	}
+	return out, nil
+}
+
+// Estimate is a fitted value with its confidence interval.
+type Estimate struct {
+	Value    float64
+	Interval [2]float64
+}
+
+// Polar is a model's lift curve and drag polar fitted to corrected
+// coefficients: C_L = a·(α − α₀) over the linear range of the lift curve,
+// and the parabolic polar C_D = C_D0 + K·C_L² over the same points.
+type Polar struct {
+	// AlphaRange is the range of α (degrees) taken as linear; N the
+	// number of points in it.
+	AlphaRange [2]float64
+	N          int
+	// LiftSlope is dC_L/dα per degree and ZeroLiftAlpha α₀ in degrees,
+	// from a straight line C_L = a₀ + a·α; the interval of α₀ = −a₀/a is
+	// first-order (delta method with the covariance of a₀ and a).
+	LiftSlope, ZeroLiftAlpha Estimate
+	// CD0 and K are the polar's C_D at zero lift and its induced-drag
+	// factor, from a straight line of C_D against C_L².
+	CD0, K Estimate
+	// Lift and Drag are the two straight-line fits, with their rows,
+	// outlier flags and notes.
+	Lift, Drag *fit.Poly
+	// Level is the intervals' confidence level.
+	Level float64
+}
+
+// FitPolar fits the lift curve and the parabolic drag polar to corrected
+// points (α in degrees, C_L, C_D), using the points whose α lies in
+// [alphaLo, alphaHi], the range the engineer judges linear (below the
+// stall, above any negative stall), with intervals at the confidence
+// level (0.95 if zero). Both fits are straight lines by quantity/fit's
+// FitPoly. The parabolic polar is symmetric about C_L = 0; a cambered
+// wing whose least drag lies at C_L ≠ 0 is fitted only approximately by
+// it (compare the Drag fit's residuals). It needs at least three points
+// in the range with distinct α and distinct C_L².
+func FitPolar(alpha, cl, cd []float64, alphaLo, alphaHi, level float64) (Polar, error) {
+	const op = "polar fit"
+	if len(alpha) != len(cl) || len(alpha) != len(cd) {
+		return Polar{}, invalid(op, "points", fmt.Sprintf("%d angles, %d lift and %d drag coefficients: want one of each per point", len(alpha), len(cl), len(cd)))
+	}
+	if !(alphaLo < alphaHi) || math.Abs(alphaLo) > maxAngleDeg || math.Abs(alphaHi) > maxAngleDeg {
+		return Polar{}, invalid(op, "alpha range", fmt.Sprintf("the linear range %g … %g° must be finite and increasing", alphaLo, alphaHi))
+	}
+	if level == 0 {
+		level = 0.95
+	}
+	if !(level > 0 && level < 1) {
+		return Polar{}, invalid(op, "level", fmt.Sprintf("confidence level %g: want 0 < level < 1", level))
+	}
+	var a, l, l2, d []float64
+	for i := range alpha {
+		if math.IsNaN(alpha[i]) || math.IsInf(alpha[i], 0) || !(math.Abs(cl[i]) <= maxCoefficient) || !(math.Abs(cd[i]) <= maxCoefficient) {
+			return Polar{}, outOfRange(op, fmt.Sprintf("point %d", i+1), fmt.Sprintf("point %d: α, C_L and C_D must be finite and the coefficients within ±%g", i+1, maxCoefficient))
+		}
+		if alpha[i] >= alphaLo && alpha[i] <= alphaHi {
+			a, l, l2, d = append(a, alpha[i]), append(l, cl[i]), append(l2, cl[i]*cl[i]), append(d, cd[i])
+		}
+	}
+	if len(a) < 3 {
+		return Polar{}, invalid(op, "points", fmt.Sprintf("%d points in the linear range %g … %g°: want at least 3", len(a), alphaLo, alphaHi))
+	}
+	opt := &fit.Options{Level: level}
+	p := Polar{AlphaRange: [2]float64{alphaLo, alphaHi}, N: len(a), Level: level}
+	var err error
+	if p.Lift, err = fit.FitPoly(a, l, 1, opt); err != nil {
+		return Polar{}, wrap(op, "lift curve", "the lift curve cannot be fitted", err)
+	}
+	if p.Drag, err = fit.FitPoly(l2, d, 1, opt); err != nil {
+		return Polar{}, wrap(op, "drag polar", "the drag polar cannot be fitted", err)
+	}
+	// Coefficients of the powers of x with their standard errors; the
+	// t quantile is the fits' own (interval half-width over SE).
+	la, lse, err := p.Lift.Power()
+	if err != nil {
+		return Polar{}, wrap(op, "lift curve", "the lift curve's coefficients", err)
+	}
+	da, dse, err := p.Drag.Power()
+	if err != nil {
+		return Polar{}, wrap(op, "drag polar", "the drag polar's coefficients", err)
+	}
+	tq := tQuantile(p.Lift)
+	p.LiftSlope = estimate(la[1], tq*lse[1])
+	td := tQuantile(p.Drag)
+	p.CD0, p.K = estimate(da[0], td*dse[0]), estimate(da[1], td*dse[1])
+	if !(la[1] != 0) {
+		return Polar{}, invalid(op, "lift curve", "the lift curve has no slope: no zero-lift angle")
+	}
+	// α₀ = −a₀/a₁; in the fit's scaled variable t = (α − c)/s,
+	// C_L = B₀ + B₁t, so α₀ = c − s·B₀/B₁, and to first order
+	// var α₀ = s²·(var B₀/B₁² + B₀²·var B₁/B₁⁴ − 2·B₀·cov/B₁³).
+	b0, b1, s := p.Lift.B[0], p.Lift.B[1], p.Lift.Scale
+	a0 := p.Lift.Center - s*b0/b1
+	v := s * s * (p.Lift.Cov(0, 0)/(b1*b1) + b0*b0*p.Lift.Cov(1, 1)/(b1*b1*b1*b1) - 2*b0*p.Lift.Cov(0, 1)/(b1*b1*b1))
+	p.ZeroLiftAlpha = estimate(a0, tq*math.Sqrt(math.Max(v, 0)))
+	for _, e := range []Estimate{p.LiftSlope, p.ZeroLiftAlpha, p.CD0, p.K} {
+		if !allFinite(e.Value, e.Interval[0], e.Interval[1]) {
+			return Polar{}, outOfRange(op, "polar", "a fitted value or interval is out of the range of a float64")
+		}
+	}
+	return p, nil
+}
+
+// tQuantile returns the Student t factor of the fit's intervals.
+func tQuantile(f *fit.Poly) float64 {
+	if f.StdErr[1] > 0 {
+		return (f.Intervals[1][1] - f.B[1]) / f.StdErr[1]
+	}
+	return 0
+}
+
+func estimate(v, half float64) Estimate {
+	return Estimate{Value: v, Interval: [2]float64{v - half, v + half}}
+}
+
+func allFinite(v ...float64) bool {
+	for _, x := range v {
+		if math.IsNaN(x) || math.IsInf(x, 0) {
+			return false
+		}
+	}
+	return true
+}
