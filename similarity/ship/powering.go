@@ -408,7 +408,9 @@ func interp(ow []OpenWaterPoint, j float64, y func(OpenWaterPoint) float64) floa
 // their J range: the faired polynomials, or the table checked and
 // interpolated linearly.
 func openWaterCurve(in PoweringInput) (kt, kq func(float64) float64, lo, hi float64, err error) {
-	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: "ITTC-1978 prediction", Input: "open-water curve", Reason: r} }
+	m := func(r string) error {
+		return &Error{Class: quantity.ErrInvalid, Op: "ITTC-1978 prediction", Input: "open-water curve", Reason: r}
+	}
 	if f := in.Faired; f != nil {
 		if len(in.OpenWater) > 0 {
 			return nil, nil, 0, 0, m("both a faired open-water curve and a table are given: pass one")
