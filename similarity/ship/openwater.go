@@ -223,9 +223,7 @@ func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 		name string
 		p    *fit.Poly
 	}{{"K_T", f.KT}, {"K_Q", f.KQ}} {
-		for _, i := range c.p.Outliers {
-			warn = append(warn, fmt.Sprintf("the run at J = %.4g lies %.1f standard deviations from the faired %s (an outlier; not dropped)", js[i], c.p.Rows[i].Studentized, c.name))
-		}
+		warn = append(warn, outlierNotes(c.p, "J", c.name)...)
 	}
 	f.Warning = joinWarnings(warn)
 	return f, nil
@@ -306,6 +304,24 @@ func (f *OpenWaterFit) perturbed(which, k int, h float64) *OpenWaterFit {
 		g.KQ = &p
 	}
 	return &g
+}
+
+// outlierNotes describes the rows a fit flags as outliers, unless the
+// fit is exact to rounding (its residuals then studentise to noise).
+func outlierNotes(p *fit.Poly, x, y string) []string {
+	ymax := 0.0
+	for _, r := range p.Rows {
+		ymax = max(ymax, math.Abs(r.Y))
+	}
+	if p.S <= 1e-9*ymax {
+		return nil
+	}
+	var out []string
+	for _, i := range p.Outliers {
+		r := p.Rows[i]
+		out = append(out, fmt.Sprintf("the run at %s = %.4g lies %.3g residual standard deviations from the faired %s (an outlier; not dropped)", x, r.X, math.Abs(r.Studentized), y))
+	}
+	return out
 }
 
 // joinWarnings joins warnings with "; ".

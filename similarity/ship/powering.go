@@ -111,6 +111,9 @@ type PoweringResult struct {
 	ShipSpeed, ShipResistance quantity.Quantity
 	EffectivePower            quantity.Quantity // P_E = R_TS·V_S
 	ShipWake                  float64           // w_TS
+	// ModelWake and ThrustDeduction are the w_TM and t the prediction
+	// used.
+	ModelWake, ThrustDeduction float64
 	// ModelBladeDrag and ShipBladeDrag are C_DM and C_DS, the blade
 	// section drag coefficients of model and ship propeller at 0.75R;
 	// DeltaCD = C_DM − C_DS.
@@ -344,6 +347,7 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	}
 	r.KT, r.KQ = kt(r.J), kq(r.J)
 	r.Eta0 = r.J * r.KT / (2 * math.Pi * r.KQ)
+	r.ModelWake, r.ThrustDeduction = wm, t
 	r.EtaH = (1 - t) / (1 - r.ShipWake)
 	r.EtaR = etaR
 	r.EtaD = r.Eta0 * r.EtaH * r.EtaR
