@@ -246,7 +246,10 @@ func synSelfPropulsion(t *testing.T, ow *ship.OpenWaterFit, res *ship.Resistance
 			t.Fatal(err)
 		}
 		need := (rq.Value() - synFD) / (1 - synT)
-		thrust := func(n float64) float64 { j := (1 - synW) * v / (n * d); return quadratic(synKT, j) * rho * n * n * math.Pow(d, 4) }
+		thrust := func(n float64) float64 {
+			j := (1 - synW) * v / (n * d)
+			return quadratic(synKT, j) * rho * n * n * math.Pow(d, 4)
+		}
 		lo, hi := (1-synW)*v/(0.85*d), (1-synW)*v/(0.15*d)
 		for range 200 {
 			m := (lo + hi) / 2
