@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"math/rand/v2"
 	"testing"
 
 	"similis.dev/similis/quantity"
@@ -216,7 +217,7 @@ func TestSkinFrictionByHand(t *testing.T) {
 	if math.Abs(s.Force.Value()/fd-1) > 1e-12 {
 		t.Errorf("F_D = %v, by hand %v", s.Force, fd)
 	}
-	// About 21 N: C_FM ≈ 3.00×10⁻³, C_FS ≈ 1.47×10⁻³ at these Re.
+	// About 18.5 N: C_FM ≈ 2.96×10⁻³, C_FS ≈ 1.50×10⁻³ at these Re.
 	if !(s.Force.Value() > 15 && s.Force.Value() < 25) {
 		t.Errorf("F_D = %v N, want about 20 N", s.Force.Value())
 	}
@@ -465,4 +466,114 @@ func ExampleReduceOpenWater() {
 	// J = 0.5: K_T = 0.1800 (95 % mean 0.1773 … 0.1826), 10K_Q = 0.2599, η₀ = 0.551
 	// J = 0.8: K_T = 0.0658 (95 % mean 0.0631 … 0.0686), 10K_Q = 0.1602, η₀ = 0.523
 	// Re_0.7 = 6.24e+05 … 6.74e+05
+}
+
+// TestSpeedPowerBandCoverage repeats the whole job 300 times with fresh
+// random noise (standard deviation 0.002 on K_T, 0.0002 on K_Q, normal,
+// fixed seed) in the open-water runs: the scatter of the predicted P_D
+// over the repetitions is what the band's standard uncertainty claims,
+// within 20 %, and the 95 % band holds the noise-free P_D in about 95 %
+// of the repetitions.
+func TestSpeedPowerBandCoverage(t *testing.T) {
+	if testing.Short() {
+		t.Skip("300 repetitions of the job")
+	}
+	exact, err := ship.PredictSpeedPower(speedPowerInput(t, 0))
+	if err != nil {
+		t.Fatal(err)
+	}
+	truth := exact.Points[1].DeliveredPower.Value()
+	rng := rand.New(rand.NewPCG(1, 2))
+	const trials = 300
+	var sum, sum2, usum float64
+	inside := 0
+	base := speedPowerInput(t, 0)
+	for range trials {
+		ot := synOpenWater(0)
+		for i := range ot.Runs {
+			r := &ot.Runs[i]
+			j := r.Speed.Value() / (r.RevsPerSecond * synD)
+			n2 := 999.1 * r.RevsPerSecond * r.RevsPerSecond
+			r.Thrust = quantity.New((quadratic(synKT, j)+0.002*rng.NormFloat64())*n2*math.Pow(synD, 4), quantity.Force)
+			r.Torque = quantity.New((quadratic(synKQ, j)+0.0002*rng.NormFloat64())*n2*math.Pow(synD, 5), quantity.Torque)
+		}
+		ow, err := ship.ReduceOpenWater(ot)
+		if err != nil {
+			t.Fatal(err)
+		}
+		in := base
+		in.SelfPropulsion.OpenWater = ow
+		r, err := ship.PredictSpeedPower(in)
+		if err != nil {
+			t.Fatal(err)
+		}
+		p := r.Points[1]
+		pd := p.DeliveredPower.Value()
+		sum += pd
+		sum2 += pd * pd
+		usum += p.PowerU
+		if truth >= p.Power[0] && truth <= p.Power[1] {
+			inside++
+		}
+	}
+	mean := sum / trials
+	sd := math.Sqrt((sum2 - trials*mean*mean) / (trials - 1))
+	u := usum / trials
+	if r := u / sd; r < 0.8 || r > 1.2 {
+		t.Errorf("claimed u(P_D) %.4g W, scatter over the repetitions %.4g W (ratio %.3f)", u, sd, r)
+	}
+	if c := float64(inside) / trials; c < 0.9 || c > 0.99 {
+		t.Errorf("the 95 %% band held the noise-free P_D in %.1f %% of the repetitions", 100*c)
+	}
+	t.Logf("u %.4g W, scatter %.4g W, coverage %d/%d", u, sd, inside, trials)
+}
+
+// One self-propulsion run analysed by thrust identity, on an invented
+// open-water curve K_T = 0.4 − 0.4J, K_Q = 0.05 − 0.04J (model propeller
+// D = 0.2 m, runs at n = 15 rev/s in water of ρ = 1000 kg/m³).
+func ExampleAnalyseSelfPropulsion() {
+	water := fluids.State{Density: quantity.New(1000, quantity.Density), KinematicViscosity: quantity.New(1.14e-6, quantity.KinematicViscosity)}
+	d := quantity.New(0.2, quantity.Length)
+	ot := ship.OpenWaterTest{Diameter: d, Chord: quantity.New(0.06, quantity.Length), Water: water, Order: 1}
+	for _, j := range []float64{0.1, 0.3, 0.5, 0.7, 0.9} {
+		ot.Runs = append(ot.Runs, ship.OpenWaterRun{Speed: quantity.New(3*j, quantity.Velocity), RevsPerSecond: 15,
+			Thrust: quantity.New(360*(0.4-0.4*j), quantity.Force), Torque: quantity.New(72*(0.05-0.04*j), quantity.Torque)})
+	}
+	ow, err := ship.ReduceOpenWater(ot)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	pts, err := ship.AnalyseSelfPropulsion(ship.SelfPropulsionTest{Diameter: d, Water: water, OpenWater: ow,
+		Runs: []ship.SelfPropulsionRun{{ModelSpeed: quantity.New(1.2, quantity.Velocity), RevsPerSecond: 10,
+			Thrust: quantity.New(32, quantity.Force), Torque: quantity.New(0.96, quantity.Torque),
+			TowingForce: quantity.New(4, quantity.Force), Resistance: quantity.New(30, quantity.Force)}}})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	p := pts[0]
+	fmt.Printf("K_TM = %.3f → J_TM = %.3f; w_TM = %.4f, t = %.4f, η_R = %.3f\n", p.KT, p.J, p.Wake, p.ThrustDeduction, p.RelativeRotative)
+	fmt.Printf("η_H = %.3f, η_O = %.4f, η_D = %.4f\n", p.EtaH, p.Eta0, p.EtaD)
+	// Output:
+	// K_TM = 0.200 → J_TM = 0.500; w_TM = 0.1667, t = 0.1875, η_R = 1.000
+	// η_H = 0.975, η_O = 0.5305, η_D = 0.5173
+}
+
+// The towing force of a self-propulsion test at the ship's
+// self-propulsion point, for an invented 7 m model of a 168 m ship.
+func ExampleSkinFrictionCorrection() {
+	tank := fluids.State{Density: quantity.New(999.1, quantity.Density), KinematicViscosity: quantity.New(1.1386e-6, quantity.KinematicViscosity)}
+	sea := fluids.State{Density: quantity.New(1026.0, quantity.Density), KinematicViscosity: quantity.New(1.1892e-6, quantity.KinematicViscosity)}
+	s, err := ship.SkinFrictionCorrection(ship.PoweringInput{Scale: 1.0 / 24,
+		ModelLength: quantity.New(7.0, quantity.Length), ModelWettedArea: quantity.New(8.1, quantity.Area),
+		ModelSpeed: quantity.New(1.75, quantity.Velocity), Tank: tank, Sea: sea, FormFactor: 1.18, CorrelationAllowance: 0.0001})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("C_FM = %.3f×10⁻³, C_FS = %.3f×10⁻³, ΔC_F = %.3f×10⁻³, C_A = %.3f×10⁻³: F_D = %.2f N\n",
+		1e3*s.ModelCF, 1e3*s.ShipCF, 1e3*s.RoughnessAllowance, 1e3*s.CorrelationAllowance, s.Force.Value())
+	// Output:
+	// C_FM = 2.962×10⁻³, C_FS = 1.495×10⁻³, ΔC_F = 0.136×10⁻³, C_A = 0.100×10⁻³: F_D = 18.53 N
 }
