@@ -211,11 +211,11 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	fmt.Fprintf(w, "\nSelf-propulsion test (invented runs), two propellers, analysed by thrust identity (ITTC 7.5-02-03-01.1 and 01.4):\n")
 	fmt.Fprintf(w, "K_TM → J_TM on the faired K_T; w_TM = 1 − J_TM·nD/V_M; t = (2T + F_D − R_TM)/(2T); η_R = K_Q0/K_QM; η_H = (1 − t)/(1 − w_TM); η_D = η_H·η₀·η_R\n")
 	fmt.Fprintf(w, "F_D = ½ρV_M²S_M[(1 + k)(C_FM − C_FS) − ΔC_F − C_A] with 1 + k = %.3f and C_A from the procedure's formula; R_TM from the faired resistance curve\n", db.FormFactor)
-	fmt.Fprintf(w, "%7s %6s %7s %8s %7s %7s %7s | %6s %6s %6s %7s %6s %6s %6s %6s\n", "V_M m/s", "n r/s", "T N", "Q N·m", "F_D N", "F_D calc", "R_TM N",
+	fmt.Fprintf(w, "%7s %7s %7s %8s %7s %8s %7s | %6s %6s %6s %7s %6s %6s %6s %6s\n", "V_M m/s", "n rev/s", "T N", "Q N·m", "F_D N", "F_D calc", "R_TM N",
 		"K_TM", "10K_QM", "J_TM", "w_TM", "t", "η_R", "η_H", "η_D")
 	for i, p := range sp.Factors {
 		r := spRuns[i]
-		fmt.Fprintf(w, "%7.2f %6.2f %7.3f %8.5f %7.2f %8.2f %7.3f | %6.4f %6.4f %6.4f %7.4f %6.4f %6.4f %6.4f %6.4f\n", r[0], r[1], r[2], r[3], r[4],
+		fmt.Fprintf(w, "%7.2f %7.2f %7.3f %8.5f %7.2f %8.2f %7.3f | %6.4f %6.4f %6.4f %7.4f %6.4f %6.4f %6.4f %6.4f\n", r[0], r[1], r[2], r[3], r[4],
 			out.SkinFriction[i].Force.Value(), p.Resistance, p.KT, 10*p.KQ, p.J, p.Wake, p.ThrustDeduction, p.RelativeRotative, p.EtaH, p.EtaD)
 	}
 	for _, c := range []struct {

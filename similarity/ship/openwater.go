@@ -286,7 +286,7 @@ func (f *OpenWaterFit) Table(n int) ([]OpenWaterPoint, error) {
 	return out, nil
 }
 
-// withKT returns a copy of f whose K_T (which = 0) or K_Q (which = 1)
+// perturbed returns a copy of f whose K_T (which = 0) or K_Q (which = 1)
 // coefficient k is moved by h: for the sensitivities of a prediction to
 // the fit.
 func (f *OpenWaterFit) perturbed(which, k int, h float64) *OpenWaterFit {
