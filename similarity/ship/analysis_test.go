@@ -577,3 +577,32 @@ func ExampleSkinFrictionCorrection() {
 	// Output:
 	// C_FM = 2.962×10⁻³, C_FS = 1.495×10⁻³, ΔC_F = 0.136×10⁻³, C_A = 0.100×10⁻³: F_D = 18.53 N
 }
+
+// TestResistanceFairingNoisy: with noise on C_TM the true coefficients of
+// the quadratic lie within 2.5 standard errors of the fitted ones, and
+// the 95 % interval of the mean holds the true C_TM at 1.75 m/s.
+func TestResistanceFairingNoisy(t *testing.T) {
+	h := synResistance()
+	pattern := []float64{0.7, -1.2, 0.4, 1.0, -0.3, -0.9, 0.5}
+	for i := range h.Resistances {
+		v := h.Speeds[i].Value()
+		h.Resistances[i] = quantity.New(h.Resistances[i].Value()+0.02e-3*pattern[i]*0.5*999.1*v*v*8.1, quantity.Force)
+	}
+	r, err := ship.FairResistance(h, 2)
+	if err != nil {
+		t.Fatal(err)
+	}
+	a, se, err := r.CT.Power()
+	if err != nil {
+		t.Fatal(err)
+	}
+	for k, want := range []float64{4.2e-3, -0.4e-3, 0.1e-3} {
+		if !(math.Abs(a[k]-want) <= 2.5*se[k]) {
+			t.Errorf("a%d = %v ± %v, true %v", k, a[k], se[k], want)
+		}
+	}
+	_, pr, err := r.At(quantity.New(1.75, quantity.Velocity))
+	if err != nil || !(pr.Mean[0] < 3.80625e-3 && 3.80625e-3 < pr.Mean[1]) {
+		t.Errorf("C_TM(1.75): %+v, %v; true 3.80625e-3", pr, err)
+	}
+}
