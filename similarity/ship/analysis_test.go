@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"math/rand/v2"
+	"strings"
 	"testing"
 
 	"similis.dev/similis/quantity"
@@ -604,5 +605,22 @@ func TestResistanceFairingNoisy(t *testing.T) {
 	_, pr, err := r.At(quantity.New(1.75, quantity.Velocity))
 	if err != nil || !(pr.Mean[0] < 3.80625e-3 && 3.80625e-3 < pr.Mean[1]) {
 		t.Errorf("C_TM(1.75): %+v, %v; true 3.80625e-3", pr, err)
+	}
+}
+
+// TestWarningsCarried: the open-water curve's warning reaches every
+// ITTC-1978 result made from it.
+func TestWarningsCarried(t *testing.T) {
+	low := synOpenWater(0)
+	low.Chord = quantity.New(0.01, quantity.Length)
+	ow, err := ship.ReduceOpenWater(low)
+	if err != nil {
+		t.Fatal(err)
+	}
+	in := poweringInput()
+	in.OpenWater, in.Faired = nil, ow
+	r, err := ship.ITTC1978(in)
+	if err != nil || !strings.Contains(r.Warning, "open-water curve: the test's Reynolds number Re_0.7 falls to") {
+		t.Errorf("warning %q, %v", r.Warning, err)
 	}
 }

@@ -382,6 +382,9 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	if pr.ModelReynolds < UsualBladeReynolds {
 		warn = append(warn, fmt.Sprintf("the model propeller's Re_co = %.3g is below %.0g, where the open-water test's blade flow may be partly laminar (ITTC 7.5-02-03-02.1; from memory)", pr.ModelReynolds, UsualBladeReynolds))
 	}
+	if in.Faired != nil && in.Faired.Warning != "" {
+		warn = append(warn, "open-water curve: "+in.Faired.Warning)
+	}
 	r.Warning = strings.Join(warn, "; ")
 	return r, nil
 }

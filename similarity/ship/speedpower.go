@@ -56,6 +56,10 @@ type SpeedPower struct {
 	Factors            []SelfPropulsionPoint
 	Wake, Thrust, EtaR *fit.Poly
 	Level              float64
+	// Warning, when not empty, names what the fits flag: outlying
+	// runs of the resistance test or of the factors against speed (the
+	// open-water curve's own warning is in every point's Warning).
+	Warning string
 	// Method states how the band was found, for the report.
 	Method string
 }
@@ -102,6 +106,14 @@ func PredictSpeedPower(in SpeedPowerInput) (*SpeedPower, error) {
 		return nil, err
 	}
 	out := &SpeedPower{Factors: pts, Wake: facs[0], Thrust: facs[1], EtaR: facs[2], Level: level, Method: SpeedPowerMethod}
+	var warn []string
+	if sp.Resistance.Warning != "" {
+		warn = append(warn, "resistance curve: "+sp.Resistance.Warning)
+	}
+	for k, name := range []string{"w_TM", "t", "η_R"} {
+		warn = append(warn, outlierNotes(facs[k], "V_M (m/s)", name)...)
+	}
+	out.Warning = joinWarnings(warn)
 	vms := make([]float64, len(in.ShipSpeeds))
 	for i, v := range in.ShipSpeeds {
 		name := fmt.Sprintf("ship speed %d", i)
@@ -307,6 +319,9 @@ func (s *SpeedPower) Table(md bool) string {
 	}
 	table(&sb, head, rows, md, true)
 	sb.WriteString("band: " + s.Method + "\n")
+	if s.Warning != "" {
+		sb.WriteString("WARNING (fits): " + s.Warning + "\n")
+	}
 	for _, w := range warn {
 		sb.WriteString(w + "\n")
 	}
