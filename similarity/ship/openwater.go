@@ -223,7 +223,7 @@ func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 		name string
 		p    *fit.Poly
 	}{{"K_T", f.KT}, {"K_Q", f.KQ}} {
-		warn = append(warn, outlierNotes(c.p, "J", c.name)...)
+		warn = append(warn, outlierNotes(c.p, "J", "", c.name)...)
 	}
 	f.Warning = joinWarnings(warn)
 	return f, nil
@@ -308,7 +308,7 @@ func (f *OpenWaterFit) perturbed(which, k int, h float64) *OpenWaterFit {
 
 // outlierNotes describes the rows a fit flags as outliers, unless the
 // fit is exact to rounding (its residuals then studentise to noise).
-func outlierNotes(p *fit.Poly, x, y string) []string {
+func outlierNotes(p *fit.Poly, x, unit, y string) []string {
 	ymax := 0.0
 	for _, r := range p.Rows {
 		ymax = max(ymax, math.Abs(r.Y))
@@ -319,7 +319,7 @@ func outlierNotes(p *fit.Poly, x, y string) []string {
 	var out []string
 	for _, i := range p.Outliers {
 		r := p.Rows[i]
-		out = append(out, fmt.Sprintf("the run at %s = %.4g lies %.3g residual standard deviations from the faired %s (an outlier; not dropped)", x, r.X, math.Abs(r.Studentized), y))
+		out = append(out, fmt.Sprintf("the run at %s = %.4g%s lies %.3g residual standard deviations from the faired %s (an outlier; not dropped)", x, r.X, unit, math.Abs(r.Studentized), y))
 	}
 	return out
 }

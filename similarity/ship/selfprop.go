@@ -67,7 +67,7 @@ func FairResistance(test HullTest, order int) (*ResistanceFit, error) {
 	if err != nil {
 		return nil, wrap(op, "C_TM", "fairing C_TM against the model speed", err)
 	}
-	r.Warning = joinWarnings(outlierNotes(r.CT, "V_M (m/s)", "C_TM"))
+	r.Warning = joinWarnings(outlierNotes(r.CT, "V_M", " m/s", "C_TM"))
 	return r, nil
 }
 

@@ -111,7 +111,7 @@ func PredictSpeedPower(in SpeedPowerInput) (*SpeedPower, error) {
 		warn = append(warn, "resistance curve: "+sp.Resistance.Warning)
 	}
 	for k, name := range []string{"w_TM", "t", "η_R"} {
-		warn = append(warn, outlierNotes(facs[k], "V_M (m/s)", name)...)
+		warn = append(warn, outlierNotes(facs[k], "V_M", " m/s", name)...)
 	}
 	out.Warning = joinWarnings(warn)
 	vms := make([]float64, len(in.ShipSpeeds))
