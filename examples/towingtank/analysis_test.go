@@ -133,7 +133,7 @@ func TestSpeedPowerBand(t *testing.T) {
 		}
 		prev = pd
 	}
-	for _, want := range []string{"Speed–power prediction, ITTC-1978", "P_D 95 % kW", "band from the fits alone", "18.00    1161"} {
+	for _, want := range []string{"Speed–power prediction, ITTC-1978", "P_D 95 % kW", "band from the fits alone", "18.00    1161", "WARNING (fits): the run at V_M = 1.3 m/s lies"} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("output lacks %q", want)
 		}
