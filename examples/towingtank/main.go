@@ -4,9 +4,12 @@
 // Prohaska's method, with the uncertainty budget of the top speed; shows
 // the tank's mean-flow blockage correction of every run; finds the form
 // factor again from a double-body test and compares the two;
-// and predicts delivered power and propeller revolutions at every speed
-// by the ITTC-1978 method from the self-propulsion and open-water tests,
-// with a plot of the resistance coefficients against the friction lines.
+// reduces the open-water test of the model propeller and fairs K_T and
+// K_Q; fairs the resistance curve; analyses the self-propulsion test by
+// thrust identity; and predicts the ship's speed–power curve by the
+// ITTC-1978 method with the band the fits put about it, with plots of the
+// resistance coefficients against the friction lines and of the
+// open-water curves.
 //
 // The vessel and every measurement are invented for the demonstration.
 //
@@ -285,11 +288,21 @@ A towing tank's whole job on invented data for a 2 m model of a 32 m
   - the tank's one-dimensional blockage correction of every run;
   - the uncertainty budget of the top speed's R_s and P_E (GUM, first
     order; invented instrument figures);
+  - the open-water test of the model propeller reduced per run (J,
+    K_T, 10K_Q, η₀ with n in rev/s, and the blade Reynolds number
+    Re_0.7), and K_T and 10K_Q faired by polynomials in J with their
+    standard errors;
+  - the resistance curve faired (C_TM against the model speed);
+  - the self-propulsion test analysed by thrust identity: per speed
+    K_TM, J_TM, the wake fraction w_TM, the thrust deduction t, η_R, η_H
+    and η_D, with the skin-friction correction F_D applied and computed;
   - delivered power P_D (all shafts) and propeller revolutions by the
-    ITTC-1978 method from invented self-propulsion and open-water tests,
-    with every allowance (ΔC_F, C_A, C_AAS) on every row;
-  - a PNG and an SVG plot of the model's and ship's C_T against the
-    Reynolds number with the friction lines, in -out.
+    ITTC-1978 method from the faired tests, with every allowance (ΔC_F,
+    C_A, C_AAS) on every row, and the speed–power table with its 95 %
+    band from the fits (first order);
+  - PNG and SVG plots of the model's and ship's C_T against the
+    Reynolds number with the friction lines, and of the open-water
+    curves, in -out.
 The figures are estimates for illustration: hull powering and machinery
 selection are for the responsible naval architect and the basin's own
 correlation.

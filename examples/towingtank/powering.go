@@ -6,6 +6,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/font"
@@ -17,6 +18,8 @@ import (
 	"gonum.org/v1/plot/vg/vgimg"
 
 	q "similis.dev/similis/quantity"
+	"similis.dev/similis/quantity/fit"
+	"similis.dev/similis/similarity/fluids"
 	"similis.dev/similis/similarity/ship"
 )
 
@@ -28,36 +31,51 @@ var (
 	dbResistances = []float64{5.170, 10.63, 17.94, 26.77} // N
 )
 
-// Invented self-propulsion test at the resistance runs' speeds (ship
-// self-propulsion point): Taylor wake from thrust identity, thrust
-// deduction and relative rotative efficiency; the catamaran has one
-// propeller per hull, on open shafts.
+// Invented open-water test of the model propeller (D = 1.35 m/16 =
+// 84.4 mm, c_0.7 = 0.45 m/16 = 28.1 mm, c_0.75 = 0.46 m/16), run at
+// n = 45 rev/s over a range of carriage speeds: V_A in m/s, thrust T in
+// N and torque Q in N·m, net of the idle hub values.
 var (
-	spWake = []float64{0.085, 0.083, 0.082, 0.080, 0.078, 0.077, 0.075, 0.074}
-	spT    = []float64{0.072, 0.071, 0.070, 0.070, 0.069, 0.068, 0.067, 0.066}
-	spEtaR = []float64{0.985, 0.985, 0.984, 0.983, 0.982, 0.981, 0.980, 0.980}
+	owRevs = 45.0 // rev/s
+	owRuns = [][3]float64{
+		{0.380, 38.13, 0.4515}, {0.759, 34.74, 0.4295}, {1.139, 31.51, 0.4017}, {1.519, 28.01, 0.3721}, {1.898, 24.06, 0.3427},
+		{2.278, 20.00, 0.3085}, {2.658, 15.94, 0.2740}, {3.038, 11.48, 0.2357}, {3.417, 6.86, 0.1972}, {3.797, 2.06, 0.1562},
+	}
+	modelChord07, modelChord075 = 0.45 / 16, 0.46 / 16 // m
 )
 
-// Invented open-water curve of the model propeller (K_T, K_Q with n in
-// rev/s) and the ship propeller's geometry.
+// Invented self-propulsion test at the ship's self-propulsion point, one
+// propeller per hull on open shafts: model speed V_M (m/s), n (rev/s),
+// each propeller's thrust T (N) and torque Q (N·m), and the towing force
+// F_D (N) the carriage applied (the skin-friction correction, computed
+// beforehand as the program computes it again below).
+var spRuns = [][5]float64{
+	{1.00, 14.64, 1.485, 0.02779, 1.30}, {1.30, 19.65, 2.849, 0.05159, 1.96}, {1.60, 25.18, 5.040, 0.08781, 2.72},
+	{2.00, 33.47, 9.908, 0.16403, 3.88}, {2.40, 42.80, 17.647, 0.28015, 5.20},
+}
+
+// The ship propeller's geometry (invented) and the ship's speeds of the
+// speed–power curve.
 var (
-	openWater = []ship.OpenWaterPoint{
-		{J: 0.2, KT: 0.352, KQ: 0.0520}, {J: 0.4, KT: 0.285, KQ: 0.0455}, {J: 0.6, KT: 0.212, KQ: 0.0380},
-		{J: 0.8, KT: 0.135, KQ: 0.0295}, {J: 1.0, KT: 0.052, KQ: 0.0195},
-	}
 	propeller = ship.PropellerGeometry{
 		Diameter: q.New(1.35, q.Length), Blades: 4, PitchRatio: 0.90,
-		Chord: q.New(0.37, q.Length), ThicknessRatio: 0.04, ModelReynolds: 2.0e5,
+		Chord: q.New(0.46, q.Length), ThicknessRatio: 0.04,
 	}
-	transverseArea = 48.0 // m², the ship's projected area above water
+	transverseArea = 48.0                             // m², the ship's projected area above water
+	shipKnots      = []float64{8, 10, 12, 14, 16, 18} // kn
 )
 
 // Powering holds the second half of the job, for the test.
 type Powering struct {
-	DoubleBody ship.DoubleBodyResult
-	Wave       []float64 // C_W of the resistance runs with the double-body 1 + k
-	Points     []ship.PoweringResult
-	PNG, SVG   string
+	DoubleBody   ship.DoubleBodyResult
+	Wave         []float64 // C_W of the resistance runs with the double-body 1 + k
+	OpenWater    *ship.OpenWaterFit
+	Resistance   *ship.ResistanceFit
+	SkinFriction []ship.SkinFriction // F_D at each self-propulsion speed
+	SpeedPower   *ship.SpeedPower
+	Points       []ship.PoweringResult // the speed–power curve's points
+	PNG, SVG     string                // resistance coefficients
+	OWPNG, OWSVG string                // open-water curves
 }
 
 // doubleBody finds the form factor from the double-body test.
@@ -71,9 +89,20 @@ func doubleBody(test ship.HullTest) (ship.DoubleBodyResult, error) {
 	return ship.FormFactorDoubleBody(re, cv, ship.LineITTC1957)
 }
 
-// powering predicts delivered power and revolutions at every speed by
-// the ITTC-1978 method with the double-body form factor, and plots the
-// coefficients.
+// openWaterTest is the invented open-water test in the tank's water.
+func openWaterTest(tank fluids.State) ship.OpenWaterTest {
+	t := ship.OpenWaterTest{Diameter: q.New(propeller.Diameter.Value()/16, q.Length), Chord: q.New(modelChord07, q.Length), Water: tank}
+	for _, r := range owRuns {
+		t.Runs = append(t.Runs, ship.OpenWaterRun{Speed: q.New(r[0], q.Velocity), RevsPerSecond: owRevs,
+			Thrust: q.New(r[1], q.Force), Torque: q.New(r[2], q.Torque)})
+	}
+	return t
+}
+
+// powering reduces the open-water test, fairs the resistance test,
+// analyses the self-propulsion test by thrust identity and predicts the
+// ship's speed–power curve by the ITTC-1978 method with the double-body
+// form factor, and plots the coefficients and the open-water curves.
 func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size plotSize, dir string) (*Powering, error) {
 	tank := test.Tank
 	nu, rho := tank.KinematicViscosity.Value(), tank.Density.Value()
@@ -87,30 +116,131 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	if out.Wave, err = ship.WaveResistance(rem, ctm, db.FormFactor, ship.LineITTC1957); err != nil {
 		return nil, err
 	}
-	for i := range speeds {
-		in := ship.PoweringInput{
-			Scale: test.Scale, ModelLength: test.ModelLength, ModelWettedArea: test.ModelWettedArea,
-			ModelSpeed: test.Speeds[i], ModelResistance: test.Resistances[i],
-			Tank: test.Tank, Sea: test.Sea, FormFactor: db.FormFactor,
-			TransverseArea: q.New(transverseArea, q.Area),
-			ModelWake:      spWake[i], ThrustDeduction: spT[i], RelativeRotative: spEtaR[i],
-			Propeller: propeller, OpenWater: openWater, Propellers: 2,
+	scale := test.Scale
+	dm := propeller.Diameter.Value() * scale
+
+	// 1. Open-water test.
+	owt := openWaterTest(tank)
+	if out.OpenWater, err = ship.ReduceOpenWater(owt); err != nil {
+		return nil, err
+	}
+	ow := out.OpenWater
+	fmt.Fprintf(w, "\nOpen-water test of the model propeller (invented runs; ITTC 7.5-02-03-02.1): D = %.4g mm, c_0.7 = %.3g mm, n = %g rev/s, fresh water ρ = %.2f kg/m³\n",
+		1e3*dm, 1e3*modelChord07, owRevs, rho)
+	fmt.Fprintf(w, "J = V_A/(nD), K_T = T/(ρn²D⁴), 10K_Q = 10·Q/(ρn²D⁵), η₀ = J·K_T/(2π·K_Q) with n in rev/s; Re_0.7 = c_0.7·√(V_A² + (0.7πnD)²)/ν\n")
+	fmt.Fprintf(w, "%8s %8s %9s | %6s %7s %7s %6s %9s | %8s %8s %6s\n", "V_A m/s", "T N", "Q N·m", "J", "K_T", "10K_Q", "η₀", "Re_0.7", "K_T fair", "10K_Q fr", "η₀ fr")
+	for _, p := range ow.Points {
+		f, _ := ow.At(p.J)
+		e, _ := ow.Eta0(p.J)
+		var run [3]float64
+		for _, r := range owRuns {
+			if math.Abs(r[0]/(owRevs*dm)-p.J) < 1e-12 {
+				run = r
+			}
 		}
-		p, err := ship.ITTC1978(in)
+		fmt.Fprintf(w, "%8.3f %8.2f %9.4f | %6.3f %7.4f %7.4f %6.3f %9.3g | %8.4f %8.4f %6.3f\n", run[0], run[1], run[2], p.J, p.KT, 10*p.KQ, p.Eta0, p.Reynolds, f.KT, 10*f.KQ, e)
+	}
+	for _, c := range []struct {
+		name string
+		f    *fit.Poly
+		k    float64
+	}{{"K_T", ow.KT, 1}, {"10K_Q", ow.KQ, 10}} {
+		a, se, err := c.f.Power()
 		if err != nil {
-			return nil, fmt.Errorf("speed %d: %w", i+1, err)
+			return nil, err
 		}
-		out.Points = append(out.Points, p)
+		var terms []string
+		for i := range a {
+			terms = append(terms, fmt.Sprintf("(%+.5f ± %.5f)·J^%d", c.k*a[i], c.k*se[i], i))
+		}
+		fmt.Fprintf(w, "faired %s = %s; order %d (%s), S = %.2g, %d runs (± standard errors)\n", c.name, strings.Join(terms, " "), c.f.Order,
+			strings.Join(c.f.Notes, "; "), c.k*c.f.S, c.f.N)
+	}
+	jop := 0.6
+	kt06, _ := ow.KT.Predict(jop)
+	kq06, _ := ow.KQ.Predict(jop)
+	fmt.Fprintf(w, "at J = %.1f: K_T = %.4f (95 %% confidence of the mean %.4f … %.4f), 10K_Q = %.4f (%.4f … %.4f)\n", jop,
+		kt06.Y, kt06.Mean[0], kt06.Mean[1], 10*kq06.Y, 10*kq06.Mean[0], 10*kq06.Mean[1])
+	if ow.Warning != "" {
+		fmt.Fprintf(w, "WARNING (open water): %s\n", ow.Warning)
+	} else {
+		fmt.Fprintf(w, "Re_0.7 = %.3g … %.3g, above the usual minimum %.0e (ITTC 7.5-02-03-02.1; from memory)\n", ow.MinReynolds, ow.MaxReynolds, ship.UsualOpenWaterReynolds)
+	}
+	prop := propeller
+	if prop.ModelReynolds, err = ship.PropellerReynolds(q.New(modelChord075, q.Length), q.New(jop*owRevs*dm, q.Velocity), owRevs, q.New(dm, q.Length), 0.75, tank.KinematicViscosity); err != nil {
+		return nil, err
+	}
+
+	// 2. Resistance curve.
+	if out.Resistance, err = ship.FairResistance(test, 0); err != nil {
+		return nil, err
+	}
+	rf := out.Resistance
+	fmt.Fprintf(w, "\nResistance test faired: C_TM against V_M by a polynomial of order %d (%s), S = %.2g×10⁻³ on C_TM\n",
+		rf.CT.Order, strings.Join(rf.CT.Notes, "; "), 1e3*rf.CT.S)
+	if rf.Warning != "" {
+		fmt.Fprintf(w, "WARNING (resistance): %s\n", rf.Warning)
+	}
+
+	// 3. Self-propulsion test.
+	base := ship.PoweringInput{
+		Scale: scale, ModelLength: test.ModelLength, ModelWettedArea: test.ModelWettedArea,
+		Tank: test.Tank, Sea: test.Sea, FormFactor: db.FormFactor,
+		TransverseArea: q.New(transverseArea, q.Area), Propeller: prop, Propellers: 2,
+	}
+	spt := ship.SelfPropulsionTest{Diameter: q.New(dm, q.Length), Water: tank, OpenWater: ow, Resistance: rf, Propellers: 2}
+	for _, r := range spRuns {
+		spt.Runs = append(spt.Runs, ship.SelfPropulsionRun{ModelSpeed: q.New(r[0], q.Velocity), RevsPerSecond: r[1],
+			Thrust: q.New(r[2], q.Force), Torque: q.New(r[3], q.Torque), TowingForce: q.New(r[4], q.Force)})
+		in := base
+		in.ModelSpeed = q.New(r[0], q.Velocity)
+		s, err := ship.SkinFrictionCorrection(in)
+		if err != nil {
+			return nil, err
+		}
+		out.SkinFriction = append(out.SkinFriction, s)
+	}
+	var ships []q.Quantity
+	for _, k := range shipKnots {
+		ships = append(ships, q.New(k*1852.0/3600, q.Velocity))
+	}
+	if out.SpeedPower, err = ship.PredictSpeedPower(ship.SpeedPowerInput{Base: base, SelfPropulsion: spt, ShipSpeeds: ships}); err != nil {
+		return nil, err
+	}
+	sp := out.SpeedPower
+	fmt.Fprintf(w, "\nSelf-propulsion test (invented runs), two propellers, analysed by thrust identity (ITTC 7.5-02-03-01.1 and 01.4):\n")
+	fmt.Fprintf(w, "K_TM → J_TM on the faired K_T; w_TM = 1 − J_TM·nD/V_M; t = (2T + F_D − R_TM)/(2T); η_R = K_Q0/K_QM; η_H = (1 − t)/(1 − w_TM); η_D = η_H·η₀·η_R\n")
+	fmt.Fprintf(w, "F_D = ½ρV_M²S_M[(1 + k)(C_FM − C_FS) − ΔC_F − C_A] with 1 + k = %.3f and C_A from the procedure's formula; R_TM from the faired resistance curve\n", db.FormFactor)
+	fmt.Fprintf(w, "%7s %7s %7s %8s %7s %8s %7s | %6s %6s %6s %7s %6s %6s %6s %6s\n", "V_M m/s", "n rev/s", "T N", "Q N·m", "F_D N", "F_D calc", "R_TM N",
+		"K_TM", "10K_QM", "J_TM", "w_TM", "t", "η_R", "η_H", "η_D")
+	for i, p := range sp.Factors {
+		r := spRuns[i]
+		fmt.Fprintf(w, "%7.2f %7.2f %7.3f %8.5f %7.2f %8.2f %7.3f | %6.4f %6.4f %6.4f %7.4f %6.4f %6.4f %6.4f %6.4f\n", r[0], r[1], r[2], r[3], r[4],
+			out.SkinFriction[i].Force.Value(), p.Resistance, p.KT, 10*p.KQ, p.J, p.Wake, p.ThrustDeduction, p.RelativeRotative, p.EtaH, p.EtaD)
+	}
+	for _, c := range []struct {
+		name string
+		f    *fit.Poly
+	}{{"w_TM", sp.Wake}, {"t", sp.Thrust}, {"η_R", sp.EtaR}} {
+		fmt.Fprintf(w, "%s faired against V_M: order %d (%s), S = %.2g\n", c.name, c.f.Order, strings.Join(c.f.Notes, "; "), c.f.S)
+	}
+
+	// 4. Speed–power curve.
+	out.Points = nil
+	for _, p := range sp.Points {
+		out.Points = append(out.Points, p.PoweringResult)
 	}
 	top := out.Points[len(out.Points)-1]
-	fmt.Fprintf(w, "\nDelivered power by the ITTC-1978 method, double-body form factor 1 + k = %.3f, two propellers (invented self-propulsion and open-water tests):\n", db.FormFactor)
+	fmt.Fprintf(w, "\nDelivered power by the ITTC-1978 method, double-body form factor 1 + k = %.3f, two propellers, from the faired tests:\n", db.FormFactor)
 	fmt.Fprintf(w, "C_TS = (1 + k)·C_FS + ΔC_F + C_A + C_R + C_AAS on S_ship = %.4g m²: roughness allowance ΔC_F from k_S = 150 µm; C_A from the procedure's\n", test.ModelWettedArea.Value()/(test.Scale*test.Scale))
 	fmt.Fprintf(w, "formula (5.68 − 0.6·log₁₀Re_S)·10⁻³, the basin giving none (%.3f×10⁻³ at the top speed); air C_AAS = %.3f×10⁻³ (A_VS = %g m², C_DA = 0.8);\n",
 		top.CorrelationAllowance*1e3, top.AirResistance*1e3, transverseArea)
 	fmt.Fprintf(w, "twin screws on open shafts: the wake is not scaled, w_TS = w_TM (ITTC-1978); each carries half the thrust in K_T/J²; n is each propeller's rate, P_D the sum over both shafts;\n")
-	fmt.Fprintf(w, "propeller D = %g m, Z = %d, P/D = %g, model Re_co = %.3g; C_DM = %.5f, C_DS = %.5f, scale correction ΔK_T = %.4f, ΔK_Q = %.5f\n",
-		propeller.Diameter.Value(), propeller.Blades, propeller.PitchRatio, propeller.ModelReynolds, top.ModelBladeDrag, top.ShipBladeDrag, top.DeltaKT, top.DeltaKQ)
+	fmt.Fprintf(w, "propeller D = %g m, Z = %d, P/D = %g, model Re_co = %.3g (0.75R, the open-water test at J = %.1f); C_DM = %.5f, C_DS = %.5f, scale correction ΔK_T = %.4f, ΔK_Q = %.5f\n",
+		propeller.Diameter.Value(), propeller.Blades, propeller.PitchRatio, prop.ModelReynolds, jop, top.ModelBladeDrag, top.ShipBladeDrag, top.DeltaKT, top.DeltaKQ)
 	fmt.Fprint(w, ship.PoweringTable(out.Points, false))
+	fmt.Fprintln(w)
+	fmt.Fprint(w, sp.Table(false))
 	if size.Skip {
 		fmt.Fprintln(w, "plots: not written (-plot=false)")
 		return out, nil
@@ -118,7 +248,10 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	if out.PNG, out.SVG, err = plotCoefficients(dir, db.FormFactor, out.Points, size); err != nil {
 		return nil, err
 	}
-	fmt.Fprintf(w, "plots: %s, %s (%g × %g in, PNG at %d dpi)\n", out.PNG, out.SVG, size.W, size.H, size.DPI)
+	if out.OWPNG, out.OWSVG, err = plotOpenWater(dir, ow, size); err != nil {
+		return nil, err
+	}
+	fmt.Fprintf(w, "plots: %s, %s, %s, %s (%g × %g in, PNG at %d dpi)\n", out.PNG, out.SVG, out.OWPNG, out.OWSVG, size.W, size.H, size.DPI)
 	return out, nil
 }
 

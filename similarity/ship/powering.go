@@ -71,8 +71,15 @@ type PoweringInput struct {
 	ModelWake, ThrustDeduction, RelativeRotative float64
 	// Propeller and OpenWater (the model's curve, at least three points
 	// in increasing J) describe the propeller.
+	//
+	// OpenWater is a table of the curve, interpolated linearly between
+	// its points: pass measured points only when they are dense, or a
+	// faired table (OpenWaterFit.Table). Faired, when set, is the curve
+	// faired by ReduceOpenWater and is used instead (its polynomials,
+	// within its measured J range); OpenWater must then be empty.
 	Propeller PropellerGeometry
 	OpenWater []OpenWaterPoint
+	Faired    *OpenWaterFit
 	// Propellers is the number of propellers: 1 (single screw) or 2.
 	// With two, each carries half the thrust, and the wake is not scaled
 	// (w_TS = w_TM, the procedure's treatment of twin screws with open
@@ -104,6 +111,9 @@ type PoweringResult struct {
 	ShipSpeed, ShipResistance quantity.Quantity
 	EffectivePower            quantity.Quantity // P_E = R_TS·V_S
 	ShipWake                  float64           // w_TS
+	// ModelWake and ThrustDeduction are the w_TM and t the prediction
+	// used.
+	ModelWake, ThrustDeduction float64
 	// ModelBladeDrag and ShipBladeDrag are C_DM and C_DS, the blade
 	// section drag coefficients of model and ship propeller at 0.75R;
 	// DeltaCD = C_DM − C_DS.
@@ -168,8 +178,9 @@ const PoweringCaution = "Delivered power and propeller revolutions predicted fro
 //	K_T/J² = S·C_TS/(2N·D²(1 − t)(1 − w_TS)²)  → J_TS on the corrected curve
 //	n_S = (1 − w_TS)V_S/(J_TS·D),  P_DS = 2πρ_S·n_S³·D⁵·K_QTS/η_R per propeller
 //
-// The open-water curve is interpolated linearly between measured points;
-// a load outside the curve is an error, not an extrapolation. A point
+// The open-water curve is the faired one (PoweringInput.Faired, from
+// ReduceOpenWater) or a table interpolated linearly between its points;
+// a load outside the curve's J range is an error, not an extrapolation. A point
 // that is not finite (a missing value read as NaN), a correlation factor
 // that is not finite, or a model propeller Reynolds number at which the
 // C_DM formula fails (Re_co ≤ MinBladeReynolds) is refused with a
@@ -253,28 +264,9 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 		return PoweringResult{}, pe("model propeller Reynolds number Re_co", pr.ModelReynolds,
 			fmt.Sprintf("the blade drag formula C_DM = 2(1 + 2t/c)[0.044/Re_co^(1/6) − 5/Re_co^(2/3)] needs Re_co > (5/0.044)² ≈ %.0f (and at most 10⁸)", MinBladeReynolds))
 	}
-	ow := in.OpenWater
-	for i, p := range ow {
-		for _, c := range []struct {
-			name string
-			v    float64
-		}{{"J", p.J}, {"K_T", p.KT}, {"K_Q", p.KQ}} {
-			if math.IsNaN(c.v) || math.IsInf(c.v, 0) {
-				return PoweringResult{}, &Error{Op: "ITTC-1978 prediction", Input: fmt.Sprintf("open-water point %d: %s", i, c.name), Class: quantity.ErrInvalid, Reason: fmt.Sprintf("open-water point %d: %s = %v: not a finite number (a missing value?)", i, c.name, c.v)}
-			}
-		}
-		if !(p.J >= 0 && p.J <= 2) || !(p.KQ > 0 && p.KQ < 1) || !(p.KT > -1 && p.KT < 2) {
-			return PoweringResult{}, &Error{Op: "ITTC-1978 prediction", Input: fmt.Sprintf("open-water point %d: J, K_T, K_Q", i), Class: quantity.ErrInvalid,
-				Reason: fmt.Sprintf("open-water point %d: J = %v, K_T = %v, K_Q = %v: want 0 ≤ J ≤ 2, −1 < K_T < 2, 0 < K_Q < 1", i, p.J, p.KT, p.KQ)}
-		}
-	}
-	if len(ow) < 3 || !slices.IsSortedFunc(ow, func(a, b OpenWaterPoint) int { return cmp.Compare(a.J, b.J) }) {
-		return PoweringResult{}, m("the open-water curve needs at least three points in increasing J")
-	}
-	for i := 1; i < len(ow); i++ {
-		if ow[i].J == ow[i-1].J {
-			return PoweringResult{}, m(fmt.Sprintf("two open-water points at J = %v", ow[i].J))
-		}
+	owKT, owKQ, lo, hi, err := openWaterCurve(in)
+	if err != nil {
+		return PoweringResult{}, err
 	}
 	cp, cn := in.CP, in.CN
 	if cp == 0 {
@@ -291,7 +283,6 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	}
 
 	var r PoweringResult
-	var err error
 	lm, sm, vm := in.ModelLength.Value(), in.ModelWettedArea.Value(), in.ModelSpeed.Value()
 	ls, ss := lm/in.Scale, sm/(in.Scale*in.Scale)
 	vs := vm / math.Sqrt(in.Scale)
@@ -345,14 +336,9 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	r.DeltaKQ = r.DeltaCD * 0.25 * czd
 	r.Load = ss * r.ShipCT / (2 * float64(np) * d * d * (1 - t) * (1 - r.ShipWake) * (1 - r.ShipWake))
 
-	kt := func(j float64) float64 {
-		return interp(ow, j, func(p OpenWaterPoint) float64 { return p.KT }) - r.DeltaKT
-	}
-	kq := func(j float64) float64 {
-		return interp(ow, j, func(p OpenWaterPoint) float64 { return p.KQ }) - r.DeltaKQ
-	}
+	kt := func(j float64) float64 { return owKT(j) - r.DeltaKT }
+	kq := func(j float64) float64 { return owKQ(j) - r.DeltaKQ }
 	f := func(j float64) float64 { return kt(j) - r.Load*j*j }
-	lo, hi := ow[0].J, ow[len(ow)-1].J
 	if f(lo) < 0 || f(hi) > 0 {
 		return PoweringResult{}, m(fmt.Sprintf("the load K_T/J² = %.4f meets the open-water curve outside its measured J = %g … %g", r.Load, lo, hi))
 	}
@@ -361,6 +347,7 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	}
 	r.KT, r.KQ = kt(r.J), kq(r.J)
 	r.Eta0 = r.J * r.KT / (2 * math.Pi * r.KQ)
+	r.ModelWake, r.ThrustDeduction = wm, t
 	r.EtaH = (1 - t) / (1 - r.ShipWake)
 	r.EtaR = etaR
 	r.EtaD = r.Eta0 * r.EtaH * r.EtaR
@@ -395,6 +382,9 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	if pr.ModelReynolds < UsualBladeReynolds {
 		warn = append(warn, fmt.Sprintf("the model propeller's Re_co = %.3g is below %.0g, where the open-water test's blade flow may be partly laminar (ITTC 7.5-02-03-02.1; from memory)", pr.ModelReynolds, UsualBladeReynolds))
 	}
+	if in.Faired != nil && in.Faired.Warning != "" {
+		warn = append(warn, "open-water curve: "+in.Faired.Warning)
+	}
 	r.Warning = strings.Join(warn, "; ")
 	return r, nil
 }
@@ -419,4 +409,48 @@ func interp(ow []OpenWaterPoint, j float64, y func(OpenWaterPoint) float64) floa
 	a, b := ow[i-1], ow[i]
 	s := (j - a.J) / (b.J - a.J)
 	return y(a) + s*(y(b)-y(a))
+}
+
+// openWaterCurve returns the model's open-water K_T(J) and K_Q(J) and
+// their J range: the faired polynomials, or the table checked and
+// interpolated linearly.
+func openWaterCurve(in PoweringInput) (kt, kq func(float64) float64, lo, hi float64, err error) {
+	m := func(r string) error {
+		return &Error{Class: quantity.ErrInvalid, Op: "ITTC-1978 prediction", Input: "open-water curve", Reason: r}
+	}
+	if f := in.Faired; f != nil {
+		if len(in.OpenWater) > 0 {
+			return nil, nil, 0, 0, m("both a faired open-water curve and a table are given: pass one")
+		}
+		if f.KT == nil || f.KQ == nil || !(f.JMin < f.JMax) {
+			return nil, nil, 0, 0, m("the faired open-water curve is empty: make it with ReduceOpenWater")
+		}
+		return f.KT.Eval, f.KQ.Eval, f.JMin, f.JMax, nil
+	}
+	ow := in.OpenWater
+	for i, p := range ow {
+		for _, c := range []struct {
+			name string
+			v    float64
+		}{{"J", p.J}, {"K_T", p.KT}, {"K_Q", p.KQ}} {
+			if math.IsNaN(c.v) || math.IsInf(c.v, 0) {
+				return nil, nil, 0, 0, &Error{Op: "ITTC-1978 prediction", Input: fmt.Sprintf("open-water point %d: %s", i, c.name), Class: quantity.ErrInvalid, Reason: fmt.Sprintf("open-water point %d: %s = %v: not a finite number (a missing value?)", i, c.name, c.v)}
+			}
+		}
+		if !(p.J >= 0 && p.J <= 2) || !(p.KQ > 0 && p.KQ < 1) || !(p.KT > -1 && p.KT < 2) {
+			return nil, nil, 0, 0, &Error{Op: "ITTC-1978 prediction", Input: fmt.Sprintf("open-water point %d: J, K_T, K_Q", i), Class: quantity.ErrInvalid,
+				Reason: fmt.Sprintf("open-water point %d: J = %v, K_T = %v, K_Q = %v: want 0 ≤ J ≤ 2, −1 < K_T < 2, 0 < K_Q < 1", i, p.J, p.KT, p.KQ)}
+		}
+	}
+	if len(ow) < 3 || !slices.IsSortedFunc(ow, func(a, b OpenWaterPoint) int { return cmp.Compare(a.J, b.J) }) {
+		return nil, nil, 0, 0, m("the open-water curve needs at least three points in increasing J")
+	}
+	for i := 1; i < len(ow); i++ {
+		if ow[i].J == ow[i-1].J {
+			return nil, nil, 0, 0, m(fmt.Sprintf("two open-water points at J = %v", ow[i].J))
+		}
+	}
+	kt = func(j float64) float64 { return interp(ow, j, func(p OpenWaterPoint) float64 { return p.KT }) }
+	kq = func(j float64) float64 { return interp(ow, j, func(p OpenWaterPoint) float64 { return p.KQ }) }
+	return kt, kq, ow[0].J, ow[len(ow)-1].J, nil
 }

@@ -1,0 +1,101 @@
+package main
+
+import (
+	"path/filepath"
+	"strconv"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/font"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/plotutil"
+	"gonum.org/v1/plot/text"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+	"gonum.org/v1/plot/vg/vgimg"
+
+	"similis.dev/similis/similarity/ship"
+)
+
+// plotOpenWater draws the open-water curves: the measured K_T, 10K_Q and
+// η₀ of every run as markers, each with its own shape and colour, and
+// the faired curves as lines over the measured J range only (the fit is
+// not extrapolated). The title carries the caution: the curves feed a
+// hull's powering prediction, an estimate.
+func plotOpenWater(dir string, ow *ship.OpenWaterFit, size plotSize) (string, string, error) {
+	pl := plot.New()
+	sub := subText{text.Plain{Fonts: font.DefaultCache}}
+	pl.Legend.TextStyle.Handler = sub
+	pl.X.Label.TextStyle.Handler = sub
+	pl.Title.Text = "Model propeller open-water curves, faired by polynomials in J (invented data)\nCAUTION: powering from these is an estimate for the responsible naval architect"
+	pl.X.Label.Text = "advance ratio J = V_{A}/(nD), n in rev/s"
+	pl.Y.Label.TextStyle.Handler = sub
+	pl.Y.Label.Text = "K_{T}, 10 K_{Q}, η_{0}"
+	pl.Legend.Top = true
+	pl.Legend.Left = false
+	pl.X.Tick.Marker = plot.ConstantTicks(ticks(0, 1.1, 0.1, 0.2))
+	pl.Y.Tick.Marker = plot.ConstantTicks(ticks(0, 1.0, 0.1, 0.2))
+	glyphs := []draw.GlyphDrawer{draw.CircleGlyph{}, draw.TriangleGlyph{}, draw.SquareGlyph{}}
+	dashes := [][]vg.Length{nil, {vg.Points(5), vg.Points(3)}, {vg.Points(1), vg.Points(2)}}
+	series := []struct {
+		name string
+		pt   func(ship.OpenWaterReduced) float64
+		fair func(j float64) float64
+	}{
+		{"K_{T}", func(p ship.OpenWaterReduced) float64 { return p.KT }, ow.KT.Eval},
+		{"10 K_{Q}", func(p ship.OpenWaterReduced) float64 { return 10 * p.KQ }, func(j float64) float64 { return 10 * ow.KQ.Eval(j) }},
+		{"η_{0}", func(p ship.OpenWaterReduced) float64 { return p.Eta0 }, func(j float64) float64 { e, _ := ow.Eta0(j); return e }},
+	}
+	for k, s := range series {
+		var meas, fair plotter.XYs
+		for _, p := range ow.Points {
+			meas = append(meas, plotter.XY{X: p.J, Y: s.pt(p)})
+		}
+		for i := 0; i <= 80; i++ {
+			j := ow.JMin + (ow.JMax-ow.JMin)*float64(i)/80
+			fair = append(fair, plotter.XY{X: j, Y: s.fair(j)})
+		}
+		ln, err := plotter.NewLine(fair)
+		if err != nil {
+			return "", "", err
+		}
+		ln.Color = plotutil.Color(k)
+		ln.Dashes = dashes[k]
+		sc, err := plotter.NewScatter(meas)
+		if err != nil {
+			return "", "", err
+		}
+		sc.GlyphStyle = draw.GlyphStyle{Shape: glyphs[k], Color: ln.Color, Radius: vg.Points(3)}
+		pl.Add(ln, sc)
+		pl.Legend.Add(s.name+" measured, faired", ln, sc)
+	}
+	pl.X.Min, pl.X.Max = 0, 1.1
+	pl.Y.Min, pl.Y.Max = 0, 1.0
+	png := filepath.Join(dir, "towingtank-openwater.png")
+	svg := filepath.Join(dir, "towingtank-openwater.svg")
+	w, h := vg.Length(size.W)*vg.Inch, vg.Length(size.H)*vg.Inch
+	c := vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(size.DPI))
+	pl.Draw(draw.New(c))
+	if err := writeTo(png, vgimg.PngCanvas{Canvas: c}); err != nil {
+		return "", "", err
+	}
+	if err := pl.Save(w, h, svg); err != nil {
+		return "", "", err
+	}
+	return png, svg, nil
+}
+
+// ticks returns ticks from lo to hi every step, labelled every label.
+func ticks(lo, hi, step, label float64) []plot.Tick {
+	var t []plot.Tick
+	n := int((hi-lo)/step + 0.5)
+	every := int(label/step + 0.5)
+	for i := 0; i <= n; i++ {
+		v := lo + step*float64(i)
+		tk := plot.Tick{Value: v}
+		if i%every == 0 {
+			tk.Label = strconv.FormatFloat(v, 'f', 1, 64)
+		}
+		t = append(t, tk)
+	}
+	return t
+}
