@@ -123,9 +123,9 @@ type PumpCurves struct {
 
 // FitPumpCurves fits the Q–H, Q–P and Q–η curves to the reduced points by
 // least squares, each of the order the options' criterion selects
-// (fit.SelectPoly; TopTerm unless chosen). It needs as many distinct flows as the highest order
-// compared plus two; errors are the fit package's, wrapped in an *Error
-// naming the curve.
+// (fit.SelectPoly; TopTerm unless chosen). It needs as many distinct
+// flows as the highest order compared plus two; errors are the fit
+// package's, wrapped in an *Error naming the curve.
 func FitPumpCurves(pts []ReducedPoint, opt CurveOptions) (PumpCurves, error) {
 	const op = "pump curve fit"
 	maxOrder := opt.MaxOrder
