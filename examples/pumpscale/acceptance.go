@@ -190,6 +190,7 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 	for _, n := range ag.Notes {
 		fmt.Fprintf(w, "  note: %s\n", n)
 	}
+	fmt.Fprintln(w, "the verdict is read on the fitted curves; the grade's tolerance factors already allow for the measurement uncertainty of a test of that grade")
 
 	// NPSH3 from the suction series.
 	var s []turbo.SuctionPoint

@@ -71,3 +71,26 @@ func ExampleFindNPSH3() {
 	// reference 38.60 m, 97 % = 37.44 m
 	// NPSH3 = 4.20 m, u = 0.052 m
 }
+
+// One test point taken at 1450 rpm, reduced to the specified 1480 rpm.
+func ExampleReducePoints() {
+	rpm, ls, kw, m := units.MustParse("rpm"), units.MustParse("L/s"), units.MustParse("kW"), units.MustParse("m")
+	pts := []turbo.TestPoint{{Flow: ls.Of(100), Head: m.Of(40), Power: kw.Of(50), Speed: rpm.Of(1450)}}
+	red, err := turbo.ReducePoints(pts, turbo.TestConditions{SpecifiedSpeed: rpm.Of(1480), Density: q.New(998.2, q.Density)})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	r := red[0]
+	fmt.Printf("Q %.2f L/s, H %.2f m, P %.2f kW, η %.1f %%\n", 1e3*r.Flow.Value(), r.Head.Value(), r.Power.Value()/1e3, 100*r.Efficiency)
+	// Output:
+	// Q 102.07 L/s, H 41.67 m, P 53.17 kW, η 78.3 %
+}
+
+// The tolerance factors of grade 2B.
+func ExampleGrade_Tolerance() {
+	t, _ := turbo.Grade2B.Tolerance()
+	fmt.Printf("t_Q ±%g %%, t_H ±%g %%, t_P +%g %%, t_η −%g %%\n", 100*t.FlowPlus, 100*t.HeadPlus, 100*t.PowerPlus, 100*t.EfficiencyMinus)
+	// Output:
+	// t_Q ±8 %, t_H ±5 %, t_P +8 %, t_η −5 %
+}

@@ -58,8 +58,9 @@ const MaxSuctionPoints = 10000
 
 // FindNPSH3 finds NPSH3, the NPSH available at which the pump's head has
 // fallen by 3 % (ISO 9906), from a suction series at constant flow and
-// speed (translate a series at another speed first; ISO 9906 allows a
-// narrower speed band for NPSH than for the curves). What it does:
+// speed (a series at another speed is translated first, NPSH ∝ n²,
+// which ISO 9906 allows for NPSH only within about 80 % to 120 % of the
+// specified speed, from memory). What it does:
 //
 //  1. It sorts the points by NPSHA and averages the heads of points of
 //     equal NPSHA.
