@@ -108,6 +108,7 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 		specRPM, guaranteeQ, guaranteeH, 100*guaranteeEta, guaranteeP, testDensity)
 	fmt.Fprintf(w, "test points reduced to %g rpm by the affinity laws, Q·(n_sp/n), H·(n_sp/n)², P·(n_sp/n)³, η = ρgQH/P unchanged\n", specRPM)
 	fmt.Fprintf(w, "(test speeds accepted within %g %% to %g %% of the specified, ISO 9906, from memory):\n", 100*turbo.MinTestSpeedFraction, 100*turbo.MaxTestSpeedFraction)
+	fmt.Fprintf(w, "  %-30s | %8s | %s\n", "as measured", "", fmt.Sprintf("reduced to %g rpm", specRPM))
 	fmt.Fprintf(w, "  %6s %7s %7s %7s | %8s | %7s %7s %7s %6s\n", "n rpm", "Q L/s", "H m", "P kW", "n_sp/n", "Q L/s", "H m", "P kW", "η %")
 	for i, r := range a.Reduced {
 		s := shopTest[i]
@@ -123,13 +124,35 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 		name, unit string
 		scale      float64
 		f          *fit.Poly
-	}{{"Q–H", "m", 1, a.Curves.Head}, {"Q–P", "kW", 1e-3, a.Curves.Power}, {"Q–η", "%", 100, a.Curves.Efficiency}} {
+		sym        string
+	}{{"Q–H", "m", 1, a.Curves.Head, "H"}, {"Q–P", "kW", 1e-3, a.Curves.Power, "P"}, {"Q–η", "%", 100, a.Curves.Efficiency, "η"}} {
 		p, err := c.f.Predict(qg)
 		if err != nil {
 			return Acceptance{}, err
 		}
 		fmt.Fprintf(w, "  %s: order %d through %d points, residual s = %.3g %s; at Q_G %.2f %s (%.2f … %.2f)\n",
 			c.name, c.f.Order, c.f.N, c.f.S*c.scale, c.unit, p.Y*c.scale, c.unit, p.Mean[0]*c.scale, p.Mean[1]*c.scale)
+		coef, se, err := c.f.Power()
+		if err != nil {
+			return Acceptance{}, err
+		}
+		var eq strings.Builder
+		for k := range coef {
+			v := coef[k] * c.scale
+			switch {
+			case k == 0:
+				fmt.Fprintf(&eq, "%.5g", v)
+			case v < 0:
+				fmt.Fprintf(&eq, " − %.5g", -v)
+			default:
+				fmt.Fprintf(&eq, " + %.5g", v)
+			}
+			fmt.Fprintf(&eq, "(±%.2g)", se[k]*c.scale)
+			if k > 0 {
+				eq.WriteString("·Q" + []string{"", "", "²", "³"}[min(k, 3)])
+			}
+		}
+		fmt.Fprintf(w, "    %s = %s  (%s, Q in m³/s; standard errors in parentheses)\n", c.sym, eq.String(), c.unit)
 	}
 	g := turbo.Guarantee{Flow: ls.Of(guaranteeQ), Head: m.Of(guaranteeH), Efficiency: guaranteeEta, Power: kw.Of(guaranteeP)}
 	for _, gr := range turbo.Grades {

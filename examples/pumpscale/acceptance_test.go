@@ -22,7 +22,7 @@ import (
 //
 // The fitted curves are all of order 2; numpy.polyfit of order 2 on the
 // nine reduced points (Debian python3-numpy 1.24.2, computed once) gives
-// H(Q_G) = 39.200809 m; the line H = 400 s/m²·Q meets it at
+// H = 47.222027 − 0.38971025·Q − 798.22468·Q² and H(Q_G) = 39.200809 m; the line H = 400 s/m²·Q meets it at
 // Q_X = 0.098570047 m³/s (H_X = 39.428019 m), where η = 0.7935936 and
 // P = 47937.74 W; H = H_G = 40 m at Q = 0.094875137 m³/s.
 //
@@ -108,6 +108,7 @@ func TestAcceptanceByHand(t *testing.T) {
 		"  1B    | ±5 %     | ±3 %     | +4 %  | −3 %  | 39.20 in 38.80…41.20 m yes",
 		"NPSH3 = 4.59 m, standard uncertainty 0.034 m",
 		"Q–H: order 2 through 9 points",
+		"H = 47.222(±0.23) − 0.38971(±4.8)·Q − 798.22(±24)·Q²",
 	} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("output lacks %q", want)
