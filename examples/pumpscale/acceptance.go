@@ -55,7 +55,7 @@ var suctionTest = [][2]float64{
 type Acceptance struct {
 	Reduced  []turbo.ReducedPoint
 	Curves   turbo.PumpCurves
-	Verdicts []turbo.Verdict // one per grade, in turbo.Grades order
+	Verdicts []turbo.Verdict // one per grade, in turbo.Grades() order
 	Agreed   turbo.Verdict   // the grade agreed (-grade)
 	NPSH3    turbo.NPSH3Result
 	PNG, SVG string // the plot's files, empty without -out
@@ -63,7 +63,7 @@ type Acceptance struct {
 
 // parseGrade reads a grade's name, "1B".
 func parseGrade(s string) (turbo.Grade, bool) {
-	for _, g := range turbo.Grades {
+	for _, g := range turbo.Grades() {
 		if strings.EqualFold(s, g.String()) {
 			return g, true
 		}
@@ -155,7 +155,7 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 		fmt.Fprintf(w, "    %s = %s  (%s, Q in m³/s; standard errors in parentheses)\n", c.sym, eq.String(), c.unit)
 	}
 	g := turbo.Guarantee{Flow: ls.Of(guaranteeQ), Head: m.Of(guaranteeH), Efficiency: guaranteeEta, Power: kw.Of(guaranteeP)}
-	for _, gr := range turbo.Grades {
+	for _, gr := range turbo.Grades() {
 		v, err := turbo.CheckGuarantee(a.Curves, g, gr)
 		if err != nil {
 			return Acceptance{}, err

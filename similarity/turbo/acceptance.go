@@ -25,8 +25,8 @@ const (
 	Grade3B
 )
 
-// Grades lists the acceptance grades, tightest first.
-var Grades = [...]Grade{Grade1U, Grade1E, Grade1B, Grade2B, Grade2U, Grade3B}
+// Grades returns the acceptance grades, tightest first.
+func Grades() []Grade { return []Grade{Grade1U, Grade1E, Grade1B, Grade2B, Grade2U, Grade3B} }
 
 // String returns the grade's name, "1B".
 func (g Grade) String() string {

@@ -47,7 +47,7 @@ func FuzzAcceptance(f *testing.F) {
 			check("FitPumpCurves", err)
 			if err == nil {
 				g := turbo.Guarantee{Flow: q.New(qv*x, q.VolumeFlowRate), Head: q.New(h, q.Length), Efficiency: eta, Power: q.New(pg, q.Power)}
-				for _, gr := range turbo.Grades {
+				for _, gr := range turbo.Grades() {
 					v, err := turbo.CheckGuarantee(c, g, gr)
 					check("CheckGuarantee", err, v.HeadAtGuaranteeFlow.Y, v.Intersection[0], v.Intersection[1], v.EfficiencyAt.Y,
 						v.PowerAt.Y, v.FlowAtGuaranteeHead, v.EfficiencyMin, v.PowerMax, v.HeadBar[0], v.HeadBar[1], v.FlowBar[0], v.FlowBar[1])

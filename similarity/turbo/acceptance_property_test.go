@@ -39,7 +39,7 @@ func TestGuaranteeOnCurveProperty(t *testing.T) {
 		qg := qmax * rapid.Float64Range(0.55, 0.85).Draw(t, "at")
 		g := turbo.Guarantee{Flow: q.New(qg, q.VolumeFlowRate), Head: q.New(c.Head.Eval(qg), q.Length),
 			Efficiency: c.Efficiency.Eval(qg) * (1 - 1e-9), Power: q.New(c.Power.Eval(qg)*(1+1e-9), q.Power)}
-		for _, gr := range turbo.Grades {
+		for _, gr := range turbo.Grades() {
 			v, err := turbo.CheckGuarantee(c, g, gr)
 			if err != nil {
 				t.Fatal(gr, err)

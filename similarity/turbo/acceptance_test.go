@@ -191,7 +191,7 @@ func TestCheckGuaranteeByHand(t *testing.T) {
 		turbo.Grade2U: {false, false, true, true, false},
 		turbo.Grade3B: {true, true, true, true, true},
 	}
-	for _, gr := range turbo.Grades {
+	for _, gr := range turbo.Grades() {
 		v, err := turbo.CheckGuarantee(c, g, gr)
 		if err != nil {
 			t.Fatal(gr, err)
@@ -227,7 +227,7 @@ func TestGradeTolerances(t *testing.T) {
 		turbo.Grade2U: {0, 0.16, 0, 0.10, 0.16, 0.05},
 		turbo.Grade3B: {0.09, 0.09, 0.07, 0.07, 0.09, 0.07},
 	}
-	for _, g := range turbo.Grades {
+	for _, g := range turbo.Grades() {
 		got, err := g.Tolerance()
 		if err != nil || got != want[g] {
 			t.Errorf("%v: %+v, %v; want %+v", g, got, err, want[g])
