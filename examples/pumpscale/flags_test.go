@@ -134,9 +134,10 @@ func FuzzPumpscaleFlags(f *testing.F) {
 	f.Add(uint8(2), "10000", uint8(3), "240")
 	f.Add(uint8(0), "100", uint8(1), "60")
 	f.Add(uint8(4), "0.1", uint8(2), "50")
-	names := []string{"-nm", "-dm", "-np", "-dp", "-moody"}
+	names := []string{"-nm", "-dm", "-np", "-dp", "-moody", "-grade", "-dpi"}
 	f.Fuzz(func(t *testing.T, i uint8, a string, j uint8, b string) {
-		args := []string{names[int(i)%len(names)], a, names[int(j)%len(names)], b}
+		// No plot: -out "" (the acceptance plot is tested on its own).
+		args := []string{"-out", "", names[int(i)%len(names)], a, names[int(j)%len(names)], b}
 		var out bytes.Buffer
 		err := run(&out, args)
 		if err != nil {

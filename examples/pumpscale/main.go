@@ -64,8 +64,24 @@ efficiency, the prototype's stepped up by Moody's efficiency formula
 best-efficiency point with that gain added at every point; that step-up
 compared with IEC 60193's and Ackeret's; the specific speed in its three
 conventions; the prototype's NPSH3 and suction pressure from the model's
-through the Thoma number; and the NPSH3 uncertainty budget. All data are
-invented; the output ends with the caution that governs any use of it.
+through the Thoma number; and the NPSH3 uncertainty budget.
+
+Then it analyses the acceptance test of a pump as built (a separate
+invented pump specified at 1480 rpm, with invented shop-test readings) to
+ISO 9906:2012: each test point reduced to the specified speed by the
+affinity laws; the Q–H, Q–P and Q–η curves fitted by least squares with
+their order and 95 % intervals; for every acceptance grade (1U, 1E, 1B,
+2B, 2U, 3B) its tolerance factors t_Q, t_H, t_P, t_η (Table 8, from
+memory) and whether the fitted Q–H curve meets the tolerance cross through
+the guarantee point and the efficiency and power, read where the line
+through the origin and the guarantee point meets the Q–H curve, are
+within tolerance; the verdict for the grade agreed (-grade); NPSH3 from a
+suction series by the 3 % head drop on a monotone fairing, with its
+standard uncertainty; and a plot of the Q–H and Q–η curves
+(pumpscale-acceptance.png and .svg in -out).
+
+All data are invented; the output ends with the caution that governs any
+use of it.
 
 Flags:
 `
@@ -99,6 +115,20 @@ func evaluate(w io.Writer, args []string) ([]Row, error) {
 
 // evaluateAll carries the curve and the suction performance.
 func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
+	r, err := evaluateReport(w, args)
+	return r.Rows, r.Suction, err
+}
+
+// Report is everything the program computes, for the tests.
+type Report struct {
+	Rows       []Row
+	Suction    Suction
+	Acceptance Acceptance
+}
+
+// evaluateReport carries the curve and the suction performance and
+// analyses the acceptance test.
+func evaluateReport(w io.Writer, args []string) (Report, error) {
 	fs := flag.NewFlagSet("pumpscale", flag.ContinueOnError)
 	fs.Usage = func() { fmt.Fprint(fs.Output(), about); fs.PrintDefaults() }
 	nm := cli.FloatVar(fs, "nm", 1750, 100, 10000, "rpm", "model speed")
@@ -106,14 +136,31 @@ func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 	np := cli.FloatVar(fs, "np", 1180, 50, 10000, "rpm", "prototype speed")
 	dp := cli.FloatVar(fs, "dp", 24, 2, 240, "in", "prototype impeller diameter")
 	moody := cli.FloatVar(fs, "moody", 0.2, 0.1, 0.3, "", "exponent n of Moody's efficiency step-up, η_p = 1 − (1 − η_m)(D_m/D_p)^n (1/5 or 1/4 in use, common practice)")
+	grade := fs.String("grade", "1B", "acceptance grade agreed for the pump as built: 1U, 1E, 1B, 2B, 2U or 3B")
+	out := fs.String("out", os.TempDir(), "directory for pumpscale-acceptance.png and .svg; empty for no plot")
+	width := cli.FloatVar(fs, "width", 6, 2, 40, "in", "plot width")
+	height := cli.FloatVar(fs, "height", 7, 2, 40, "in", "plot height")
+	dpi := cli.FloatVar(fs, "dpi", 150, 36, 1200, "dots per inch", "PNG resolution")
 	if err := cli.Parse(fs, w, args); err != nil {
-		return nil, Suction{}, err
+		return Report{}, err
+	}
+	if fs.NArg() > 0 {
+		return Report{}, &cli.Error{Program: "pumpscale", Msg: fmt.Sprintf("unexpected argument %s: pumpscale takes flags only", cli.Quote(fs.Arg(0)))}
+	}
+	agreed, ok := parseGrade(*grade)
+	if !ok {
+		return Report{}, &cli.Error{Program: "pumpscale", Msg: fmt.Sprintf("-grade %s: want one of ISO 9906's grades 1U, 1E, 1B, 2B, 2U, 3B", cli.Quote(*grade))}
+	}
+	if *out != "" {
+		if st, err := os.Stat(*out); err != nil || !st.IsDir() {
+			return Report{}, &cli.Error{Program: "pumpscale", Msg: fmt.Sprintf("-out %s: not a directory", cli.Quote(*out))}
+		}
 	}
 	// The efficiency step-ups hold from a model to a larger machine at a
 	// higher Reynolds number: n·D² at least the model's (the prototype's
 	// warmer water only raises its Re further).
 	if *dp < *dm || *np**dp**dp < *nm**dm**dm {
-		return nil, Suction{}, &cli.Error{Program: "pumpscale", Msg: fmt.Sprintf(
+		return Report{}, &cli.Error{Program: "pumpscale", Msg: fmt.Sprintf(
 			"-dp %g in at -np %g rpm against -dm %g in at -nm %g rpm: the prototype must be at least the model's size and its n·D² at least the model's, since the efficiency is stepped up from model to prototype",
 			*dp, *np, *dm, *nm)}
 	}
@@ -122,7 +169,7 @@ func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 		df, nf string
 	}{{*dm, *nm, "-dm", "-nm"}, {*dp, *np, "-dp", "-np"}} {
 		if u := math.Pi * m.d * 0.0254 * m.n / 60; u > maxTipSpeed {
-			return nil, Suction{}, &cli.Error{Program: "pumpscale", Msg: fmt.Sprintf(
+			return Report{}, &cli.Error{Program: "pumpscale", Msg: fmt.Sprintf(
 				"%s %g in at %s %g rpm: an impeller tip speed of %.0f m/s, above the %g m/s this program accepts (centrifugal pump impellers run well below it; from memory)",
 				m.df, m.d, m.nf, m.n, u, maxTipSpeed)}
 		}
@@ -131,7 +178,7 @@ func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 	// Ratios are model/prototype, as everywhere in similis.
 	aff, err := turbo.AffinityLaws(turbo.AffinityScales{RotationalSpeed: *nm / *np, Diameter: *dm / *dp, Density: 1})
 	if err != nil {
-		return nil, Suction{}, err
+		return Report{}, err
 	}
 	in := units.MustParse("in")
 	dModel, dProto := in.Of(*dm), in.Of(*dp)
@@ -150,13 +197,13 @@ func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 	for i, c := range curve {
 		eta, err := units.ParseQuantity(c.eff)
 		if err != nil || !eta.IsDimensionless() {
-			return nil, Suction{}, fmt.Errorf("point %d: efficiency %q: %v", i, c.eff, err)
+			return Report{}, fmt.Errorf("point %d: efficiency %q: %v", i, c.eff, err)
 		}
 		etas[i] = eta.Value()
 	}
 	step, err := turbo.MoodyCurve(etas, turbo.Diameters{Model: dModel, Prototype: dProto}, *moody, turbo.StepUpAtBEP)
 	if err != nil {
-		return nil, Suction{}, err
+		return Report{}, err
 	}
 	var rows []Row
 	fmt.Fprintf(w, "\n%-28s | %-40s | %s\n", "model (US customary)", "prototype (US customary)", "prototype (SI)")
@@ -164,15 +211,15 @@ func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 	for i, c := range curve {
 		Q, err := units.ParseQuantity(c.flow)
 		if err != nil {
-			return nil, Suction{}, fmt.Errorf("point %d: %w", i, err)
+			return Report{}, fmt.Errorf("point %d: %w", i, err)
 		}
 		H, err := units.ParseQuantity(c.head)
 		if err != nil {
-			return nil, Suction{}, fmt.Errorf("point %d: %w", i, err)
+			return Report{}, fmt.Errorf("point %d: %w", i, err)
 		}
 		eta, err := units.ParseQuantity(c.eff)
 		if err != nil || !eta.IsDimensionless() {
-			return nil, Suction{}, fmt.Errorf("point %d: efficiency %q: %v", i, c.eff, err)
+			return Report{}, fmt.Errorf("point %d: efficiency %q: %v", i, c.eff, err)
 		}
 		// Shaft power from the hydraulic power and the efficiency.
 		P := water.Mul(g).Mul(Q).Mul(H).Div(eta)
@@ -194,10 +241,14 @@ func evaluateAll(w io.Writer, args []string) ([]Row, Suction, error) {
 	fmt.Fprintln(w, "power from ρgQH/η_p")
 	suc, err := suction(w, step, etas, rows, *nm, *np, *moody, dModel, dProto)
 	if err != nil {
-		return nil, Suction{}, err
+		return Report{}, err
+	}
+	acc, err := acceptance(w, agreed, *out, *width, *height, *dpi)
+	if err != nil {
+		return Report{}, err
 	}
 	fmt.Fprintln(w, "\nCAUTION:", turbo.PumpCaution)
-	return rows, suc, nil
+	return Report{Rows: rows, Suction: suc, Acceptance: acc}, nil
 }
 
 // Invented suction test of the model at its best-efficiency point: the

@@ -130,5 +130,3 @@ func newStepUp(method string, etaModel []float64, m StepUpMethod) (StepUp, error
 	}
 	return out, nil
 }
-
-func fmtCoef(x float64, unit string) string { return fmt.Sprintf("%.4g %s", x, unit) }
