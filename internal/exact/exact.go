@@ -22,8 +22,14 @@ type Field[T any] interface {
 }
 
 // GCD returns the greatest common divisor of |a| and |b| (0 for two
-// zeros).
+// zeros), for every pair of int64 but (MinInt64, MinInt64) and
+// (MinInt64, 0), whose gcd 2⁶³ an int64 cannot hold. It is the one gcd
+// of the module.
 func GCD(a, b int64) int64 { return gcd(a, b) }
+
+// Uabs returns |a| as a uint64, exact for every int64 (math.MinInt64
+// included). It is the one absolute value of an int64 of the module.
+func Uabs(a int64) uint64 { return uabs(a) }
 
 // Mul64 returns a·b and whether it fits in an int64.
 func Mul64(a, b int64) (int64, bool) { return mul64(a, b) }
@@ -65,14 +71,7 @@ func mul64(a, b int64) (int64, bool) {
 		return 0, true
 	}
 	neg := (a < 0) != (b < 0)
-	ua, ub := uint64(a), uint64(b)
-	if a < 0 {
-		ua = uint64(-a)
-	}
-	if b < 0 {
-		ub = uint64(-b)
-	}
-	hi, lo := bits.Mul64(ua, ub)
+	hi, lo := bits.Mul64(uabs(a), uabs(b))
 	if hi != 0 || lo > math.MaxInt64 {
 		return 0, false
 	}
