@@ -9,6 +9,7 @@ import (
 	"unicode"
 	"unicode/utf8"
 
+	"similis.dev/similis/internal/numlex"
 	"similis.dev/similis/quantity"
 )
 
@@ -343,28 +344,14 @@ func (p *parser) raise(at int, v val, num, den int) (val, error) {
 
 func (p *parser) number() (val, error) {
 	start := p.i
-	j := p.i
-	for j < len(p.s) && (p.s[j] >= '0' && p.s[j] <= '9' || p.s[j] == '.') {
-		j++
-	}
-	if j < len(p.s) && (p.s[j] == 'e' || p.s[j] == 'E') {
-		k := j + 1
-		if k < len(p.s) && (p.s[k] == '+' || p.s[k] == '-') {
-			k++
-		}
-		if k < len(p.s) && p.s[k] >= '0' && p.s[k] <= '9' {
-			for k < len(p.s) && p.s[k] >= '0' && p.s[k] <= '9' {
-				k++
-			}
-			j = k
-		}
-	}
+	n, _ := numlex.Scan(p.s[start:], 0) // never fails without Grouped
+	j := start + n.End
 	text := p.s[start:j]
 	if len(text) > maxNumLen {
 		return val{}, p.fail(start, ErrNumber, "numeric factor too long")
 	}
-	f, err := strconv.ParseFloat(text, 64)
-	if err != nil || f <= 0 || math.IsInf(f, 0) {
+	f, class := numlex.Float(text)
+	if class != numlex.OK || f <= 0 {
 		return val{}, p.fail(start, ErrNumber, fmt.Sprintf("%q is not a positive finite number", text))
 	}
 	p.i = j

@@ -22,7 +22,8 @@ const (
 	Signed Mode = 1 << iota
 	// Grouped reads a value as written on a data sheet: at most one
 	// decimal point, and digits that may be grouped in threes by a thin
-	// space (U+2009) or a narrow no-break space (U+202F). Without it the
+	// space (U+2009) or a narrow no-break space (U+202F), as the SI
+	// Brochure (9th ed., 2019, §5.4.4) writes them ("101 325"). Without it the
 	// run of digits and points is taken whole ("1.2.3"), for the reader to
 	// refuse.
 	Grouped
