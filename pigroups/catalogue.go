@@ -597,7 +597,20 @@ func (m Match) describe(name string) string {
 // recognise matches a group's exponents against the catalogue, best
 // matches (exact before proportional, fewest assumed kinds, lowest
 // power) first.
-func (p *Problem) recognise(exps []quantity.Rat) []Match {
+func (p *Problem) recognise(exps []quantity.Rat) []Match { return p.recogniseIn(nil, exps) }
+
+// matchArena holds the matches of a whole Pi set in one backing array,
+// so that building a set allocates once for them rather than per group.
+type matchArena struct {
+	matches []Match
+	assumed []string        // the Assumed lists of the matches
+	text    strings.Builder // their text: only appended to, so earlier strings stay valid
+}
+
+// recogniseIn is recognise taking the slice from an arena (nil for its
+// own); the result's capacity is its length, so no append reaches the
+// arena's next group.
+func (p *Problem) recogniseIn(ar *matchArena, exps []quantity.Rat) []Match {
 	var termBuf [16]int
 	terms := termBuf[:0]
 	for i, e := range exps {
@@ -617,15 +630,21 @@ func (p *Problem) recognise(exps []quantity.Rat) []Match {
 		}
 	}
 	var out []Match
+	fromArena := false
 	var last *Named
 	for fi := range compiled {
 		f := &compiled[fi]
 		if len(f.terms) != len(terms) || f.named == last || sigOK && f.sigOK && sig != f.sig || !p.sameDims(f, terms) {
 			continue
 		}
-		if m, ok := p.matchForm(f, terms, exps); ok {
+		if m, ok := p.matchForm(ar, f, terms, exps); ok {
 			if out == nil {
-				out = make([]Match, 0, 2)
+				if ar != nil && cap(ar.matches)-len(ar.matches) >= 2 {
+					out = ar.matches[len(ar.matches):len(ar.matches)]
+					fromArena = true
+				} else {
+					out = make([]Match, 0, 2)
+				}
 			}
 			out = append(out, m)
 			last = f.named // one match per named group
@@ -643,7 +662,11 @@ func (p *Problem) recognise(exps []quantity.Rat) []Match {
 		}
 		return absCmp(a.Power, b.Power)
 	})
-	return out
+	if fromArena && len(out) <= cap(ar.matches)-len(ar.matches) {
+		// Still in the arena (more than its room would have moved it).
+		ar.matches = ar.matches[:len(ar.matches)+len(out)]
+	}
+	return out[:len(out):len(out)]
 }
 
 // sameDims reports whether the group's variables and the form's kinds
@@ -679,7 +702,7 @@ func absCmp(a, b quantity.Rat) int {
 // factors, with one common power, and keeps the one that assumes the
 // fewest kinds. The search works on fixed arrays and builds the Match
 // once, at the end.
-func (p *Problem) matchForm(f *compiledForm, terms []int, exps []quantity.Rat) (Match, bool) {
+func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps []quantity.Rat) (Match, bool) {
 	var (
 		used, assumed, bestAssumed [16]bool
 		assign, bestAssign         [16]int // form term → variable
@@ -741,12 +764,34 @@ func (p *Problem) matchForm(f *compiledForm, terms []int, exps []quantity.Rat) (
 		}
 	}
 	if bestN > 0 {
-		m.Assumed = make([]string, 0, bestN)
-	}
-	for k, i := range terms {
-		if bestAssumed[k] {
-			m.Assumed = append(m.Assumed, p.vars[i].Symbol+" as "+f.terms[bestTermOf[k]].kind)
+		// Every "a as speed of sound" of the match in one string, sliced,
+		// in the arena's text when there is one; the list from the arena.
+		var own matchArena
+		if ar == nil {
+			ar = &own
 		}
+		var ends [16]int
+		start := ar.text.Len()
+		for k, i := range terms {
+			if bestAssumed[k] {
+				ar.text.WriteString(p.vars[i].Symbol)
+				ar.text.WriteString(" as ")
+				ar.text.WriteString(f.terms[bestTermOf[k]].kind)
+				ends[k] = ar.text.Len()
+			}
+		}
+		all := ar.text.String()
+		if cap(ar.assumed)-len(ar.assumed) < bestN {
+			ar.assumed = make([]string, 0, max(16, bestN))
+		}
+		m.Assumed = ar.assumed[len(ar.assumed):len(ar.assumed):len(ar.assumed)+bestN]
+		for k := range terms {
+			if bestAssumed[k] {
+				m.Assumed = append(m.Assumed, all[start:ends[k]])
+				start = ends[k]
+			}
+		}
+		ar.assumed = ar.assumed[:len(ar.assumed)+bestN]
 	}
 	if f.proxy >= 0 {
 		m.Proxy = &ProxyUse{Symbol: p.vars[bestAssign[f.proxy]].Symbol, Proxy: *f.form.Proxy}

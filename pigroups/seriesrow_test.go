@@ -82,3 +82,22 @@ func TestSeriesAgreesWithRow(t *testing.T) {
 		}
 	})
 }
+
+// TestPiSetAllocations: building the 12-variable problem and its Pi set
+// allocates a bounded number of objects (59 before the matrices moved to
+// the stack and the matches to one arena per set).
+func TestPiSetAllocations(t *testing.T) {
+	vars := twelveVars()
+	n := testing.AllocsPerRun(50, func() {
+		p, err := pigroups.NewProblem(vars...)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if _, err := p.PiSet("rho", "n", "D"); err != nil {
+			t.Fatal(err)
+		}
+	})
+	if n > 16 {
+		t.Errorf("NewProblem and PiSet: %v allocations, want at most 16", n)
+	}
+}

@@ -49,7 +49,9 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		// Rank 0: every variable is dimensionless and is its own group.
 		return p.trivialSet(s), nil
 	}
-	var order []int
+	cols := make([]int, len(idx), len(p.vars))
+	copy(cols, idx)
+	order := cols[len(idx):]
 	if p.dep >= 0 {
 		order = append(order, p.dep)
 	}
@@ -61,8 +63,15 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 	// One elimination solves every group: RREF of [A_R | A_others] is
 	// [I | A_R⁻¹·A_others] on the independent rows, so the exponents of
 	// the repeating variables in xⱼ's group are −(A_R⁻¹·A_j).
-	aug := p.intColumns(append(slices.Clone(idx), order...))
-	pivots, err := aug.GaussJordan()
+	var rows [quantity.NumBases][]int64
+	var pivBuf [quantity.NumBases]int
+	ic := p.intColumns(cols[:len(idx)+len(order)])
+	nc := len(idx) + len(order)
+	for i := range p.rows {
+		rows[i] = ic[i][:nc:nc]
+	}
+	aug := exact.IntMatrix(rows[:len(p.rows)])
+	pivots, err := aug.GaussJordan(pivBuf[:0])
 	if err != nil {
 		return nil, p.tooLarge(err)
 	}
@@ -72,6 +81,8 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 	n := len(p.vars)
 	cells := make([]quantity.Rat, n*len(order))
 	s.groups = make([]Group, 0, len(order))
+	ar := matchArena{matches: make([]Match, 0, 2*len(order))}
+	ar.text.Grow(256)
 	for k, j := range order {
 		v := cells[k*n : (k+1)*n : (k+1)*n]
 		for i := range v {
@@ -89,7 +100,7 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		if !p.dimensionless(iv) {
 			return nil, &ProblemError{Err: errInternal, Reason: fmt.Sprintf("group %s is not dimensionless", g)}
 		}
-		g.Matches = p.recognise(iv)
+		g.Matches = p.recogniseIn(&ar, iv)
 		s.groups = append(s.groups, g)
 	}
 	return s, nil
@@ -154,7 +165,7 @@ func (p *Problem) dimensionless(v []quantity.Rat) bool {
 	for i := range p.rows {
 		sum := quantity.RatInt(0)
 		for j, x := range v {
-			t, err := p.a[i][j].Mul(x)
+			t, err := quantity.RatInt(p.ai[i][j]).Mul(x)
 			if err != nil {
 				return false
 			}

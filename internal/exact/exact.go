@@ -243,14 +243,15 @@ type IntMatrix [][]int64
 
 // GaussJordan reduces m in place, without fractions, to a form in which
 // each pivot column is zero but for its pivot: row i is replaced by
-// p·row_i − f·row_r and divided by the gcd of its entries. It returns the
-// pivot column of each nonzero row in order; their number is the rank.
+// p·row_i − f·row_r and divided by the gcd of its entries. It appends the
+// pivot column of each nonzero row in order to pivots (nil, or a caller's
+// buffer) and returns them; their number is the rank.
 // The solution of the system in the pivot variables is then
 // x_c = m[r][j]/m[r][c] for the pivot c of row r.
-func (m IntMatrix) GaussJordan() (pivots []int, err error) {
+func (m IntMatrix) GaussJordan(pivots []int) ([]int, error) {
 	rows := len(m)
 	if rows == 0 {
-		return nil, nil
+		return pivots, nil
 	}
 	cols := len(m[0])
 	r := 0
@@ -265,7 +266,13 @@ func (m IntMatrix) GaussJordan() (pivots []int, err error) {
 		if p < 0 {
 			continue
 		}
-		m[r], m[p] = m[p], m[r]
+		if p != r {
+			// Swap the entries, not the row slices: m stores no pointer, so
+			// a caller's stack matrix stays on the stack.
+			for j := range cols {
+				m[r][j], m[p][j] = m[p][j], m[r][j]
+			}
+		}
 		pv := m[r][c]
 		for i := 0; i < rows; i++ {
 			f := m[i][c]

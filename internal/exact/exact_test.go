@@ -64,7 +64,7 @@ func TestGaussJordanAgainstRREF(t *testing.T) {
 				im[r][j], rm[r][j] = v, i(v)
 			}
 		}
-		ip, err := im.GaussJordan()
+		ip, err := im.GaussJordan(nil)
 		if err != nil {
 			t.Fatal(err)
 		}
