@@ -784,7 +784,7 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 		if cap(ar.assumed)-len(ar.assumed) < bestN {
 			ar.assumed = make([]string, 0, max(16, bestN))
 		}
-		m.Assumed = ar.assumed[len(ar.assumed):len(ar.assumed):len(ar.assumed)+bestN]
+		m.Assumed = ar.assumed[len(ar.assumed) : len(ar.assumed) : len(ar.assumed)+bestN]
 		for k := range terms {
 			if bestAssumed[k] {
 				m.Assumed = append(m.Assumed, all[start:ends[k]])

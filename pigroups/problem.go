@@ -218,7 +218,7 @@ func (e *RepeatingError) Is(target error) bool { return classOf(e.Err) == target
 // Problem is a list of variables with its dimensional matrix and rank.
 type Problem struct {
 	vars  []Variable
-	kinds [][]string // candidate kinds of each variable
+	kinds [][]string      // candidate kinds of each variable
 	ai    exact.IntMatrix // the dimensional matrix in sixths (ratMatrix: as Rats)
 	rows  []quantity.Base // base dimensions that appear, in ISO order
 	rank  int
