@@ -146,7 +146,9 @@ type Named struct {
 // Form is one way of writing a named group as a product of kinds of
 // quantity.
 type Form struct {
-	Factors []KindPower
+	// Factors is the product, each factor named by a kind of quantity
+	// ("density") and raised to an exact power.
+	Factors quantity.Product
 	// Proxy, when set, is the factor of this form that stands in for a
 	// reference quantity of the definition (a length squared in place of
 	// the reference area A), so a group of this form is proportional to
@@ -155,28 +157,23 @@ type Form struct {
 }
 
 // Proxy describes a stand-in for a reference quantity: the form's factor
-// Kind^Exp takes the place of the definition's Ref^RefExp.
+// (its Factor: a kind to a power, length^−2) takes the place of the
+// definition's Ref (A^−1).
 type Proxy struct {
-	Kind   string       // "length"
-	Exp    quantity.Rat // −2
-	Ref    string       // "A"
-	RefExp quantity.Rat // −1
-	What   string       // "the reference area"
+	quantity.Factor                 // the stand-in: {Name: "length", Exp: −2}
+	Ref             quantity.Factor // what it stands in for: {Name: "A", Exp: −1}
+	What            string          // "the reference area"
 }
 
-// KindPower is one factor of a named group's definition.
-type KindPower struct {
-	Kind string
-	Exp  quantity.Rat
+func kp(kind string, n, d int64) quantity.Factor {
+	return quantity.Factor{Name: kind, Exp: quantity.MustRat(n, d)}
 }
 
-func kp(kind string, n, d int64) KindPower { return KindPower{kind, quantity.MustRat(n, d)} }
-
-func form(f ...KindPower) Form { return Form{Factors: f} }
+func form(f ...quantity.Factor) Form { return Form{Factors: f} }
 
 // areaProxy is the form with L² standing in for a reference area.
-func areaProxy(f ...KindPower) Form {
-	return Form{Factors: f, Proxy: &Proxy{Kind: "length", Exp: quantity.RatInt(-2), Ref: "A", RefExp: quantity.RatInt(-1), What: "the reference area"}}
+func areaProxy(f ...quantity.Factor) Form {
+	return Form{Factors: f, Proxy: &Proxy{Factor: kp("length", -2, 1), Ref: quantity.Factor{Name: "A", Exp: quantity.RatInt(-1)}, What: "the reference area"}}
 }
 
 var one, two = quantity.RatInt(1), quantity.RatInt(2)
@@ -286,8 +283,8 @@ var catalogue = []Named{
 	}},
 	{Name: "total resistance coefficient", Symbol: "C_T", Coef: two, Definition: "C_T = R/(½·ρ·V²·S), S the wetted surface (ITTC)", Forms: []Form{
 		form(kp("resistance", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("wetted surface", -1, 1)),
-		{Factors: []KindPower{kp("resistance", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)},
-			Proxy: &Proxy{Kind: "length", Exp: quantity.RatInt(-2), Ref: "S", RefExp: quantity.RatInt(-1), What: "the wetted surface"}},
+		{Factors: quantity.Product{kp("resistance", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)},
+			Proxy: &Proxy{Factor: kp("length", -2, 1), Ref: quantity.Factor{Name: "S", Exp: quantity.RatInt(-1)}, What: "the wetted surface"}},
 	}},
 	{Name: "lift coefficient", Symbol: "C_L", Coef: two, Definition: "C_L = F/(½·ρ·V²·A), A the reference area", Forms: []Form{
 		form(kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("area", -1, 1)),
@@ -343,9 +340,10 @@ type compiledForm struct {
 	proxy int // index of the proxy term, or −1
 }
 
+// compiledTerm is a form's factor (a kind to a power) with the kind's
+// dimension resolved.
 type compiledTerm struct {
-	kind     string
-	exp      quantity.Rat
+	quantity.Factor
 	dim      quantity.Dim
 	known    bool
 	explicit bool // must be given explicitly
@@ -359,13 +357,13 @@ var compiled = func() []compiledForm {
 			f := &n.Forms[j]
 			cf := compiledForm{named: n, form: f, sigOK: true, proxy: -1}
 			for k, t := range f.Factors {
-				d, ok := KindDim(t.Kind)
-				cf.terms = append(cf.terms, compiledTerm{kind: t.Kind, exp: t.Exp, dim: d, known: ok, explicit: explicitOnly[t.Kind]})
+				d, ok := KindDim(t.Name)
+				cf.terms = append(cf.terms, compiledTerm{Factor: t, dim: d, known: ok, explicit: explicitOnly[t.Name]})
 				var err error
 				if cf.sig, err = cf.sig.Mul(d); err != nil {
 					cf.sigOK = false
 				}
-				if f.Proxy != nil && cf.proxy < 0 && t.Kind == f.Proxy.Kind && t.Exp == f.Proxy.Exp {
+				if f.Proxy != nil && cf.proxy < 0 && t == f.Proxy.Factor {
 					cf.proxy = k
 				}
 			}
@@ -548,9 +546,9 @@ func (m Match) Equation(name string) string {
 	}
 	if m.Proxy != nil {
 		rhs += "·" + m.Proxy.Symbol + expText(m.Proxy.Exp.Neg(), quantity.Unicode)
-		rhs += "/" + m.Proxy.Ref
-		if !(m.Proxy.RefExp.Num() == -1 && m.Proxy.RefExp.Den() == 1) {
-			rhs += expText(m.Proxy.RefExp.Neg(), quantity.Unicode)
+		rhs += "/" + m.Proxy.Ref.Name
+		if !(m.Proxy.Ref.Exp.Num() == -1 && m.Proxy.Ref.Exp.Den() == 1) {
+			rhs += expText(m.Proxy.Ref.Exp.Neg(), quantity.Unicode)
 		}
 	}
 	return m.Symbol + " = " + rhs
@@ -574,7 +572,7 @@ func (m Match) describe(name string) string {
 	}
 	switch {
 	case m.Proxy != nil:
-		fmt.Fprintf(&sb, "; %s, and %s%s stands in for %s %s: %s", m.Definition, m.Proxy.Symbol, expText(m.Proxy.Exp.Neg(), quantity.Unicode), m.Proxy.What, m.Proxy.Ref, m.Equation(name))
+		fmt.Fprintf(&sb, "; %s, and %s%s stands in for %s %s: %s", m.Definition, m.Proxy.Symbol, expText(m.Proxy.Exp.Neg(), quantity.Unicode), m.Proxy.What, m.Proxy.Ref.Name, m.Equation(name))
 	case m.FactorText() != "":
 		fmt.Fprintf(&sb, "; %s: %s", m.Definition, m.Equation(name))
 		if m.TwoPiPower() != 0 {
@@ -726,11 +724,11 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 			if used[fi] || fp.dim != v.Dim {
 				continue
 			}
-			explicit := slices.Contains(p.kinds[i], fp.kind)
+			explicit := slices.Contains(p.kinds[i], fp.Name)
 			if !explicit && (v.Kind != "" || !fp.known || fp.explicit) {
 				continue
 			}
-			pw, err := exps[i].Div(fp.exp)
+			pw, err := exps[i].Div(fp.Exp)
 			if err != nil || havePower && pw != power {
 				continue
 			}
@@ -749,7 +747,7 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 	}
 	m := Match{Named: *f.named, Power: bestPower}
 	for fi, t := range f.terms {
-		if t.kind != "rotational speed" || !t.exp.IsInt() {
+		if t.Name != "rotational speed" || !t.Exp.IsInt() {
 			continue
 		}
 		// The definition's speed is 2π times a speed held in rev/s when it
@@ -758,9 +756,9 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 		held := p.vars[bestAssign[fi]].Angle == Revolutions
 		switch {
 		case f.named.Revolutions && !held:
-			m.twoPi -= int(t.exp.Num())
+			m.twoPi -= int(t.Exp.Num())
 		case !f.named.Revolutions && held:
-			m.twoPi += int(t.exp.Num())
+			m.twoPi += int(t.Exp.Num())
 		}
 	}
 	if bestN > 0 {
@@ -776,7 +774,7 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 			if bestAssumed[k] {
 				ar.text.WriteString(p.vars[i].Symbol)
 				ar.text.WriteString(" as ")
-				ar.text.WriteString(f.terms[bestTermOf[k]].kind)
+				ar.text.WriteString(f.terms[bestTermOf[k]].Name)
 				ends[k] = ar.text.Len()
 			}
 		}
