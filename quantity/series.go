@@ -33,66 +33,66 @@ type Series struct {
 func NewSeries(v []float64, d Dim) Series { return Series{d, v} }
 
 // Len returns the number of values.
-func (s Series) Len() int { return len(s.v) }
+func (z Series) Len() int { return len(z.v) }
 
 // Dim returns the dimension shared by the values.
-func (s Series) Dim() Dim { return s.d }
+func (z Series) Dim() Dim { return z.d }
 
 // At returns the i-th value as a Quantity. It panics if i is out of range.
-func (s Series) At(i int) Quantity { return Quantity{s.v[i], s.d} }
+func (z Series) At(i int) Quantity { return Quantity{z.v[i], z.d} }
 
 // Values returns the values in the coherent SI unit, as a view of the
 // series' storage: it does not copy, and writing to it changes the series.
-func (s Series) Values() []float64 { return s.v }
+func (z Series) Values() []float64 { return z.v }
 
-// Check returns nil if s has dimension want, and otherwise a
+// Check returns nil if z has dimension want, and otherwise a
 // *DimensionError naming both.
-func (s Series) Check(want Dim) error {
-	if s.d == want {
+func (z Series) Check(want Dim) error {
+	if z.d == want {
 		return nil
 	}
-	return &DimensionError{Op: "check", Left: s.d, Right: want, Binary: true}
+	return &DimensionError{Op: "check", Left: z.d, Right: want, Binary: true}
 }
 
 // Sum returns the sum of the values.
-func (s Series) Sum() Quantity {
+func (z Series) Sum() Quantity {
 	var t float64
-	for _, x := range s.v {
+	for _, x := range z.v {
 		t += x
 	}
-	return Quantity{t, s.d}
+	return Quantity{t, z.d}
 }
 
 // Mean returns the arithmetic mean of the values (NaN for an empty series).
-func (s Series) Mean() Quantity {
-	if len(s.v) == 0 {
-		return Quantity{math.NaN(), s.d}
+func (z Series) Mean() Quantity {
+	if len(z.v) == 0 {
+		return Quantity{math.NaN(), z.d}
 	}
-	q := s.Sum()
-	q.v /= float64(len(s.v))
+	q := z.Sum()
+	q.v /= float64(len(z.v))
 	return q
 }
 
 // Min returns the smallest value (NaN for an empty series).
-func (s Series) Min() Quantity {
+func (z Series) Min() Quantity {
 	m := math.NaN()
-	for i, x := range s.v {
+	for i, x := range z.v {
 		if i == 0 || x < m {
 			m = x
 		}
 	}
-	return Quantity{m, s.d}
+	return Quantity{m, z.d}
 }
 
 // Max returns the largest value (NaN for an empty series).
-func (s Series) Max() Quantity {
+func (z Series) Max() Quantity {
 	m := math.NaN()
-	for i, x := range s.v {
+	for i, x := range z.v {
 		if i == 0 || x > m {
 			m = x
 		}
 	}
-	return Quantity{m, s.d}
+	return Quantity{m, z.d}
 }
 
 // grow returns z's storage resized to n, reusing it when it can.
