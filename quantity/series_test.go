@@ -3,6 +3,7 @@ package quantity_test
 import (
 	"errors"
 	"math"
+	"reflect"
 	"testing"
 
 	"pgregory.net/rapid"
@@ -110,5 +111,24 @@ func TestSeriesNoAllocs(t *testing.T) {
 	})
 	if allocs != 0 {
 		t.Errorf("%v allocations per run, want 0 once the destination has grown", allocs)
+	}
+}
+
+// TestInPlaceVerbs: an in-place Series operation never shares its name
+// with a value method of Quantity, so a verb means one thing (Scale is
+// kept, deprecated, for one caller).
+func TestInPlaceVerbs(t *testing.T) {
+	value := map[string]bool{}
+	qt := reflect.TypeFor[q.Quantity]()
+	for i := range qt.NumMethod() {
+		value[qt.Method(i).Name] = true
+	}
+	st := reflect.TypeFor[*q.Series]()
+	for i := range st.NumMethod() {
+		m := st.Method(i)
+		inPlace := m.Type.NumOut() == 1 && m.Type.Out(0) == st
+		if inPlace && value[m.Name] && m.Name != "Scale" {
+			t.Errorf("(*Series).%s is in place but shares its name with Quantity.%s, a value method", m.Name, m.Name)
+		}
 	}
 }
