@@ -373,6 +373,20 @@ var compiled = func() []compiledForm {
 	return out
 }()
 
+// compiledByLen lists the indices of the compiled forms by their number
+// of factors, in catalogue order, so recognition looks only at forms of
+// the group's length.
+var compiledByLen = func() [][]int {
+	var by [][]int
+	for i, f := range compiled {
+		for len(by) <= len(f.terms) {
+			by = append(by, nil)
+		}
+		by[len(f.terms)] = append(by[len(f.terms)], i)
+	}
+	return by
+}()
+
 // Catalogue returns a copy of the named groups known to recognition.
 func Catalogue() []Named { return slices.Clone(catalogue) }
 
@@ -630,9 +644,12 @@ func (p *Problem) recogniseIn(ar *matchArena, exps []quantity.Rat) []Match {
 	var out []Match
 	fromArena := false
 	var last *Named
-	for fi := range compiled {
+	if len(terms) >= len(compiledByLen) {
+		return nil
+	}
+	for _, fi := range compiledByLen[len(terms)] {
 		f := &compiled[fi]
-		if len(f.terms) != len(terms) || f.named == last || sigOK && f.sigOK && sig != f.sig || !p.sameDims(f, terms) {
+		if f.named == last || sigOK && f.sigOK && sig != f.sig || !p.sameDims(f, terms) {
 			continue
 		}
 		if m, ok := p.matchForm(ar, f, terms, exps); ok {
