@@ -81,7 +81,7 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 	n := len(p.vars)
 	cells := make([]quantity.Rat, n*len(order))
 	s.groups = make([]Group, 0, len(order))
-	ar := matchArena{matches: make([]Match, 0, 2*len(order))}
+	ar := matchArena{matches: make([]Match, 0, len(order)+2)} // most groups match one named group or none
 	ar.text.Grow(256)
 	for k, j := range order {
 		v := cells[k*n : (k+1)*n : (k+1)*n]
