@@ -309,6 +309,9 @@ var ErrNotFinite = errors.New("group value not finite")
 // range check are one pass over the block; a lone factor to the first
 // power is read from its column, not copied.
 func (e *Evaluator) block(g int, cols []quantity.Series, out []float64, lo int) (bad bool) {
+	if fused, bad := e.fusedBlock(g, cols, out, lo); fused {
+		return bad
+	}
 	var x, y []float64
 	if nt := e.num[g]; len(nt) == 1 && nt[0].n == 1 {
 		x = cols[nt[0].v].Values()[lo : lo+len(out)]
@@ -355,6 +358,48 @@ func (e *Evaluator) block(g int, cols []quantity.Series, out []float64, lo int) 
 		}
 	}
 	return m >= 0x7FEFFFFFFFFFFFFF
+}
+
+// fusedBlock evaluates, in one pass with no buffer, the common shapes
+// x/(a·b), x/(a·b²) and x/(a·b·c) with a factor of 1 (Δp/(ρV²),
+// μ/(ρVD)), multiplying as Row does; fused is false for other shapes.
+func (e *Evaluator) fusedBlock(g int, cols []quantity.Series, out []float64, lo int) (fused, bad bool) {
+	nt, dt := e.num[g], e.den[g]
+	if e.factor[g] != 1 || len(nt) != 1 || nt[0].n != 1 || len(dt) < 2 || len(dt) > 3 || dt[0].n != 1 {
+		return false, false
+	}
+	hi := lo + len(out)
+	x := cols[nt[0].v].Values()[lo:hi]
+	a := cols[dt[0].v].Values()[lo:hi]
+	b := cols[dt[1].v].Values()[lo:hi]
+	x, a, b = x[:len(out)], a[:len(out)], b[:len(out)]
+	const abs = 1<<63 - 1
+	var m uint64
+	switch {
+	case len(dt) == 2 && dt[1].n == 1:
+		for i := range out {
+			v := x[i] / (a[i] * b[i])
+			out[i] = v
+			m = max(m, math.Float64bits(v)&abs-1)
+		}
+	case len(dt) == 2 && dt[1].n == 2:
+		for i := range out {
+			v := x[i] / (a[i] * (b[i] * b[i]))
+			out[i] = v
+			m = max(m, math.Float64bits(v)&abs-1)
+		}
+	case len(dt) == 3 && dt[1].n == 1 && dt[2].n == 1:
+		c := cols[dt[2].v].Values()[lo:hi]
+		c = c[:len(out)]
+		for i := range out {
+			v := x[i] / (a[i] * b[i] * c[i])
+			out[i] = v
+			m = max(m, math.Float64bits(v)&abs-1)
+		}
+	default:
+		return false, false
+	}
+	return true, m >= 0x7FEFFFFFFFFFFFFF
 }
 
 // product writes ∏ col^exp over the terms into buf, for rows lo…lo+len(buf).
