@@ -52,7 +52,7 @@ func TestExponentsFromOutside(t *testing.T) {
 		t.Errorf("match %+v", m)
 	}
 	cd := s.Groups()[0].Matches[0]
-	if cd.Proxy == nil || cd.Proxy.Exp != quantity.RatInt(-2) || cd.Proxy.RefExp != quantity.RatInt(-1) {
+	if cd.Proxy == nil || cd.Proxy.Exp != quantity.RatInt(-2) || cd.Proxy.Ref.Exp != quantity.RatInt(-1) {
 		t.Errorf("proxy %+v", cd.Proxy)
 	}
 	g, err := p.NewGroup("Re", map[string]quantity.Rat{"ρ": quantity.RatInt(1), "V": quantity.RatInt(1), "D": quantity.RatInt(1), "μ": quantity.RatInt(-1)})

@@ -146,7 +146,9 @@ type Named struct {
 // Form is one way of writing a named group as a product of kinds of
 // quantity.
 type Form struct {
-	Factors []KindPower
+	// Factors is the product, each factor named by a kind of quantity
+	// ("density") and raised to an exact power.
+	Factors quantity.Product
 	// Proxy, when set, is the factor of this form that stands in for a
 	// reference quantity of the definition (a length squared in place of
 	// the reference area A), so a group of this form is proportional to
@@ -155,28 +157,23 @@ type Form struct {
 }
 
 // Proxy describes a stand-in for a reference quantity: the form's factor
-// Kind^Exp takes the place of the definition's Ref^RefExp.
+// (its Factor: a kind to a power, length^−2) takes the place of the
+// definition's Ref (A^−1).
 type Proxy struct {
-	Kind   string       // "length"
-	Exp    quantity.Rat // −2
-	Ref    string       // "A"
-	RefExp quantity.Rat // −1
-	What   string       // "the reference area"
+	quantity.Factor                 // the stand-in: {Name: "length", Exp: −2}
+	Ref             quantity.Factor // what it stands in for: {Name: "A", Exp: −1}
+	What            string          // "the reference area"
 }
 
-// KindPower is one factor of a named group's definition.
-type KindPower struct {
-	Kind string
-	Exp  quantity.Rat
+func kp(kind string, n, d int64) quantity.Factor {
+	return quantity.Factor{Name: kind, Exp: quantity.MustRat(n, d)}
 }
 
-func kp(kind string, n, d int64) KindPower { return KindPower{kind, quantity.MustRat(n, d)} }
-
-func form(f ...KindPower) Form { return Form{Factors: f} }
+func form(f ...quantity.Factor) Form { return Form{Factors: f} }
 
 // areaProxy is the form with L² standing in for a reference area.
-func areaProxy(f ...KindPower) Form {
-	return Form{Factors: f, Proxy: &Proxy{Kind: "length", Exp: quantity.RatInt(-2), Ref: "A", RefExp: quantity.RatInt(-1), What: "the reference area"}}
+func areaProxy(f ...quantity.Factor) Form {
+	return Form{Factors: f, Proxy: &Proxy{Factor: kp("length", -2, 1), Ref: quantity.Factor{Name: "A", Exp: quantity.RatInt(-1)}, What: "the reference area"}}
 }
 
 var one, two = quantity.RatInt(1), quantity.RatInt(2)
@@ -286,8 +283,8 @@ var catalogue = []Named{
 	}},
 	{Name: "total resistance coefficient", Symbol: "C_T", Coef: two, Definition: "C_T = R/(½·ρ·V²·S), S the wetted surface (ITTC)", Forms: []Form{
 		form(kp("resistance", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("wetted surface", -1, 1)),
-		{Factors: []KindPower{kp("resistance", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)},
-			Proxy: &Proxy{Kind: "length", Exp: quantity.RatInt(-2), Ref: "S", RefExp: quantity.RatInt(-1), What: "the wetted surface"}},
+		{Factors: quantity.Product{kp("resistance", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)},
+			Proxy: &Proxy{Factor: kp("length", -2, 1), Ref: quantity.Factor{Name: "S", Exp: quantity.RatInt(-1)}, What: "the wetted surface"}},
 	}},
 	{Name: "lift coefficient", Symbol: "C_L", Coef: two, Definition: "C_L = F/(½·ρ·V²·A), A the reference area", Forms: []Form{
 		form(kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("area", -1, 1)),
@@ -343,9 +340,10 @@ type compiledForm struct {
 	proxy int // index of the proxy term, or −1
 }
 
+// compiledTerm is a form's factor (a kind to a power) with the kind's
+// dimension resolved.
 type compiledTerm struct {
-	kind     string
-	exp      quantity.Rat
+	quantity.Factor
 	dim      quantity.Dim
 	known    bool
 	explicit bool // must be given explicitly
@@ -359,13 +357,13 @@ var compiled = func() []compiledForm {
 			f := &n.Forms[j]
 			cf := compiledForm{named: n, form: f, sigOK: true, proxy: -1}
 			for k, t := range f.Factors {
-				d, ok := KindDim(t.Kind)
-				cf.terms = append(cf.terms, compiledTerm{kind: t.Kind, exp: t.Exp, dim: d, known: ok, explicit: explicitOnly[t.Kind]})
+				d, ok := KindDim(t.Name)
+				cf.terms = append(cf.terms, compiledTerm{Factor: t, dim: d, known: ok, explicit: explicitOnly[t.Name]})
 				var err error
 				if cf.sig, err = cf.sig.Mul(d); err != nil {
 					cf.sigOK = false
 				}
-				if f.Proxy != nil && cf.proxy < 0 && t.Kind == f.Proxy.Kind && t.Exp == f.Proxy.Exp {
+				if f.Proxy != nil && cf.proxy < 0 && t == f.Proxy.Factor {
 					cf.proxy = k
 				}
 			}
@@ -373,6 +371,20 @@ var compiled = func() []compiledForm {
 		}
 	}
 	return out
+}()
+
+// compiledByLen lists the indices of the compiled forms by their number
+// of factors, in catalogue order, so recognition looks only at forms of
+// the group's length.
+var compiledByLen = func() [][]int {
+	var by [][]int
+	for i, f := range compiled {
+		for len(by) <= len(f.terms) {
+			by = append(by, nil)
+		}
+		by[len(f.terms)] = append(by[len(f.terms)], i)
+	}
+	return by
 }()
 
 // Catalogue returns a copy of the named groups known to recognition.
@@ -548,9 +560,9 @@ func (m Match) Equation(name string) string {
 	}
 	if m.Proxy != nil {
 		rhs += "·" + m.Proxy.Symbol + expText(m.Proxy.Exp.Neg(), quantity.Unicode)
-		rhs += "/" + m.Proxy.Ref
-		if !(m.Proxy.RefExp.Num() == -1 && m.Proxy.RefExp.Den() == 1) {
-			rhs += expText(m.Proxy.RefExp.Neg(), quantity.Unicode)
+		rhs += "/" + m.Proxy.Ref.Name
+		if !(m.Proxy.Ref.Exp.Num() == -1 && m.Proxy.Ref.Exp.Den() == 1) {
+			rhs += expText(m.Proxy.Ref.Exp.Neg(), quantity.Unicode)
 		}
 	}
 	return m.Symbol + " = " + rhs
@@ -574,7 +586,7 @@ func (m Match) describe(name string) string {
 	}
 	switch {
 	case m.Proxy != nil:
-		fmt.Fprintf(&sb, "; %s, and %s%s stands in for %s %s: %s", m.Definition, m.Proxy.Symbol, expText(m.Proxy.Exp.Neg(), quantity.Unicode), m.Proxy.What, m.Proxy.Ref, m.Equation(name))
+		fmt.Fprintf(&sb, "; %s, and %s%s stands in for %s %s: %s", m.Definition, m.Proxy.Symbol, expText(m.Proxy.Exp.Neg(), quantity.Unicode), m.Proxy.What, m.Proxy.Ref.Name, m.Equation(name))
 	case m.FactorText() != "":
 		fmt.Fprintf(&sb, "; %s: %s", m.Definition, m.Equation(name))
 		if m.TwoPiPower() != 0 {
@@ -597,7 +609,20 @@ func (m Match) describe(name string) string {
 // recognise matches a group's exponents against the catalogue, best
 // matches (exact before proportional, fewest assumed kinds, lowest
 // power) first.
-func (p *Problem) recognise(exps []quantity.Rat) []Match {
+func (p *Problem) recognise(exps []quantity.Rat) []Match { return p.recogniseIn(nil, exps) }
+
+// matchArena holds the matches of a whole Pi set in one backing array,
+// so that building a set allocates once for them rather than per group.
+type matchArena struct {
+	matches []Match
+	assumed []string        // the Assumed lists of the matches
+	text    strings.Builder // their text: only appended to, so earlier strings stay valid
+}
+
+// recogniseIn is recognise taking the slice from an arena (nil for its
+// own); the result's capacity is its length, so no append reaches the
+// arena's next group.
+func (p *Problem) recogniseIn(ar *matchArena, exps []quantity.Rat) []Match {
 	var termBuf [16]int
 	terms := termBuf[:0]
 	for i, e := range exps {
@@ -617,15 +642,24 @@ func (p *Problem) recognise(exps []quantity.Rat) []Match {
 		}
 	}
 	var out []Match
+	fromArena := false
 	var last *Named
-	for fi := range compiled {
+	if len(terms) >= len(compiledByLen) {
+		return nil
+	}
+	for _, fi := range compiledByLen[len(terms)] {
 		f := &compiled[fi]
-		if len(f.terms) != len(terms) || f.named == last || sigOK && f.sigOK && sig != f.sig || !p.sameDims(f, terms) {
+		if f.named == last || sigOK && f.sigOK && sig != f.sig || !p.sameDims(f, terms) {
 			continue
 		}
-		if m, ok := p.matchForm(f, terms, exps); ok {
+		if m, ok := p.matchForm(ar, f, terms, exps); ok {
 			if out == nil {
-				out = make([]Match, 0, 2)
+				if ar != nil && cap(ar.matches)-len(ar.matches) >= 2 {
+					out = ar.matches[len(ar.matches):len(ar.matches)]
+					fromArena = true
+				} else {
+					out = make([]Match, 0, 2)
+				}
 			}
 			out = append(out, m)
 			last = f.named // one match per named group
@@ -643,7 +677,11 @@ func (p *Problem) recognise(exps []quantity.Rat) []Match {
 		}
 		return absCmp(a.Power, b.Power)
 	})
-	return out
+	if fromArena && len(out) <= cap(ar.matches)-len(ar.matches) {
+		// Still in the arena (more than its room would have moved it).
+		ar.matches = ar.matches[:len(ar.matches)+len(out)]
+	}
+	return out[:len(out):len(out)]
 }
 
 // sameDims reports whether the group's variables and the form's kinds
@@ -679,7 +717,7 @@ func absCmp(a, b quantity.Rat) int {
 // factors, with one common power, and keeps the one that assumes the
 // fewest kinds. The search works on fixed arrays and builds the Match
 // once, at the end.
-func (p *Problem) matchForm(f *compiledForm, terms []int, exps []quantity.Rat) (Match, bool) {
+func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps []quantity.Rat) (Match, bool) {
 	var (
 		used, assumed, bestAssumed [16]bool
 		assign, bestAssign         [16]int // form term → variable
@@ -703,11 +741,11 @@ func (p *Problem) matchForm(f *compiledForm, terms []int, exps []quantity.Rat) (
 			if used[fi] || fp.dim != v.Dim {
 				continue
 			}
-			explicit := slices.Contains(p.kinds[i], fp.kind)
+			explicit := slices.Contains(p.kinds[i], fp.Name)
 			if !explicit && (v.Kind != "" || !fp.known || fp.explicit) {
 				continue
 			}
-			pw, err := exps[i].Div(fp.exp)
+			pw, err := exps[i].Div(fp.Exp)
 			if err != nil || havePower && pw != power {
 				continue
 			}
@@ -726,7 +764,7 @@ func (p *Problem) matchForm(f *compiledForm, terms []int, exps []quantity.Rat) (
 	}
 	m := Match{Named: *f.named, Power: bestPower}
 	for fi, t := range f.terms {
-		if t.kind != "rotational speed" || !t.exp.IsInt() {
+		if t.Name != "rotational speed" || !t.Exp.IsInt() {
 			continue
 		}
 		// The definition's speed is 2π times a speed held in rev/s when it
@@ -735,18 +773,40 @@ func (p *Problem) matchForm(f *compiledForm, terms []int, exps []quantity.Rat) (
 		held := p.vars[bestAssign[fi]].Angle == Revolutions
 		switch {
 		case f.named.Revolutions && !held:
-			m.twoPi -= int(t.exp.Num())
+			m.twoPi -= int(t.Exp.Num())
 		case !f.named.Revolutions && held:
-			m.twoPi += int(t.exp.Num())
+			m.twoPi += int(t.Exp.Num())
 		}
 	}
 	if bestN > 0 {
-		m.Assumed = make([]string, 0, bestN)
-	}
-	for k, i := range terms {
-		if bestAssumed[k] {
-			m.Assumed = append(m.Assumed, p.vars[i].Symbol+" as "+f.terms[bestTermOf[k]].kind)
+		// Every "a as speed of sound" of the match in one string, sliced,
+		// in the arena's text when there is one; the list from the arena.
+		var own matchArena
+		if ar == nil {
+			ar = &own
 		}
+		var ends [16]int
+		start := ar.text.Len()
+		for k, i := range terms {
+			if bestAssumed[k] {
+				ar.text.WriteString(p.vars[i].Symbol)
+				ar.text.WriteString(" as ")
+				ar.text.WriteString(f.terms[bestTermOf[k]].Name)
+				ends[k] = ar.text.Len()
+			}
+		}
+		all := ar.text.String()
+		if cap(ar.assumed)-len(ar.assumed) < bestN {
+			ar.assumed = make([]string, 0, max(16, bestN))
+		}
+		m.Assumed = ar.assumed[len(ar.assumed) : len(ar.assumed) : len(ar.assumed)+bestN]
+		for k := range terms {
+			if bestAssumed[k] {
+				m.Assumed = append(m.Assumed, all[start:ends[k]])
+				start = ends[k]
+			}
+		}
+		ar.assumed = ar.assumed[:len(ar.assumed)+bestN]
 	}
 	if f.proxy >= 0 {
 		m.Proxy = &ProxyUse{Symbol: p.vars[bestAssign[f.proxy]].Symbol, Proxy: *f.form.Proxy}

@@ -201,33 +201,7 @@ func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
 	for lo := 0; lo < n; lo += evalBlock {
 		hi := min(lo+evalBlock, n)
 		for g := range e.num {
-			out := dst[g][lo:hi]
-			if nt, dt := e.num[g], e.den[g]; len(nt) == 1 && len(dt) == 1 && nt[0].n == 1 && dt[0].n == 1 {
-				// A plain ratio, x/y: one pass.
-				x, y := cols[nt[0].v].Values()[lo:hi], cols[dt[0].v].Values()[lo:hi]
-				for i := range out {
-					out[i] = x[i] / y[i]
-				}
-			} else {
-				num := e.nbuf[:hi-lo]
-				den := e.dbuf[:hi-lo]
-				product(num, cols, e.num[g], lo)
-				if len(e.den[g]) == 0 {
-					copy(out, num)
-				} else {
-					product(den, cols, e.den[g], lo)
-					for i := range out {
-						out[i] = num[i] / den[i]
-					}
-				}
-			}
-			// The factor and the range check, while the block is in cache.
-			if k := e.factor[g]; k != 1 {
-				for i := range out {
-					out[i] *= k
-				}
-			}
-			bad = bad || !allFiniteNonzero(out)
+			bad = e.block(g, cols, dst[g][lo:hi], lo) || bad
 		}
 	}
 	if !bad {
@@ -330,11 +304,134 @@ func (e *Evaluator) rangeError(g, row int) error {
 // finite and nonzero.
 var ErrNotFinite = errors.New("group value not finite")
 
+// block writes group g for rows lo…lo+len(out) into out and reports
+// whether a value is zero or not finite. The division, the factor and the
+// range check are one pass over the block; a lone factor to the first
+// power is read from its column, not copied.
+func (e *Evaluator) block(g int, cols []quantity.Series, out []float64, lo int) (bad bool) {
+	if fused, bad := e.fusedBlock(g, cols, out, lo); fused {
+		return bad
+	}
+	var x, y []float64
+	if nt := e.num[g]; len(nt) == 1 && nt[0].n == 1 {
+		x = cols[nt[0].v].Values()[lo : lo+len(out)]
+	} else {
+		x = e.nbuf[:len(out)]
+		product(x, cols, nt, lo)
+	}
+	switch dt := e.den[g]; {
+	case len(dt) == 0:
+		// x alone, times the factor
+	case len(dt) == 1 && dt[0].n == 1:
+		y = cols[dt[0].v].Values()[lo : lo+len(out)]
+	default:
+		y = e.dbuf[:len(out)]
+		product(y, cols, dt, lo)
+	}
+	// On the bits of |v|, a zero is 0 and a value that is not finite is
+	// at least 0x7FF0…0, so |v|−1 wraps or reaches 0x7FEF…F exactly for
+	// those: a running maximum keeps the loop free of branches.
+	const abs = 1<<63 - 1
+	var m uint64
+	k := e.factor[g]
+	x = x[:len(out)]
+	switch {
+	case y == nil:
+		for i, v := range x {
+			v *= k
+			out[i] = v
+			m = max(m, math.Float64bits(v)&abs-1)
+		}
+	case k == 1:
+		y = y[:len(out)]
+		for i, v := range x {
+			v /= y[i]
+			out[i] = v
+			m = max(m, math.Float64bits(v)&abs-1)
+		}
+	default:
+		y = y[:len(out)]
+		for i, v := range x {
+			v = v / y[i] * k
+			out[i] = v
+			m = max(m, math.Float64bits(v)&abs-1)
+		}
+	}
+	return m >= 0x7FEFFFFFFFFFFFFF
+}
+
+// fusedBlock evaluates, in one pass with no buffer, the common shapes
+// x/(a·b), x/(a·b²) and x/(a·b·c) with a factor of 1 (Δp/(ρV²),
+// μ/(ρVD)), multiplying as Row does; fused is false for other shapes.
+func (e *Evaluator) fusedBlock(g int, cols []quantity.Series, out []float64, lo int) (fused, bad bool) {
+	nt, dt := e.num[g], e.den[g]
+	if e.factor[g] != 1 || len(nt) != 1 || nt[0].n != 1 || len(dt) < 2 || len(dt) > 3 || dt[0].n != 1 {
+		return false, false
+	}
+	hi := lo + len(out)
+	x := cols[nt[0].v].Values()[lo:hi]
+	a := cols[dt[0].v].Values()[lo:hi]
+	b := cols[dt[1].v].Values()[lo:hi]
+	x, a, b = x[:len(out)], a[:len(out)], b[:len(out)]
+	const abs = 1<<63 - 1
+	var m uint64
+	switch {
+	case len(dt) == 2 && dt[1].n == 1:
+		for i := range out {
+			v := x[i] / (a[i] * b[i])
+			out[i] = v
+			m = max(m, math.Float64bits(v)&abs-1)
+		}
+	case len(dt) == 2 && dt[1].n == 2:
+		for i := range out {
+			v := x[i] / (a[i] * (b[i] * b[i]))
+			out[i] = v
+			m = max(m, math.Float64bits(v)&abs-1)
+		}
+	case len(dt) == 3 && dt[1].n == 1 && dt[2].n == 1:
+		c := cols[dt[2].v].Values()[lo:hi]
+		c = c[:len(out)]
+		for i := range out {
+			v := x[i] / (a[i] * b[i] * c[i])
+			out[i] = v
+			m = max(m, math.Float64bits(v)&abs-1)
+		}
+	default:
+		return false, false
+	}
+	return true, m >= 0x7FEFFFFFFFFFFFFF
+}
+
 // product writes ∏ col^exp over the terms into buf, for rows lo…lo+len(buf).
 func product(buf []float64, cols []quantity.Series, terms []evTerm, lo int) {
 	if len(terms) == 0 {
 		for i := range buf {
 			buf[i] = 1
+		}
+		return
+	}
+	if len(terms) >= 2 && terms[0].n == 1 && terms[1].n <= 2 && terms[1].n >= 1 {
+		// The first factors in one pass: ρ·V, ρ·V², ρ·V·D, multiplied in
+		// the order Row multiplies them.
+		a, b := cols[terms[0].v].Values()[lo:lo+len(buf)], cols[terms[1].v].Values()[lo:lo+len(buf)]
+		switch {
+		case terms[1].n == 1 && len(terms) >= 3 && terms[2].n == 1:
+			c := cols[terms[2].v].Values()[lo : lo+len(buf)]
+			for i := range buf {
+				buf[i] = a[i] * b[i] * c[i]
+			}
+			terms = terms[1:]
+		case terms[1].n == 1:
+			for i := range buf {
+				buf[i] = a[i] * b[i]
+			}
+		default:
+			for i := range buf {
+				buf[i] = a[i] * (b[i] * b[i])
+			}
+		}
+		for _, t := range terms[2:] {
+			mulInto(buf, cols[t.v].Values()[lo:lo+len(buf)], t)
 		}
 		return
 	}
@@ -367,23 +464,21 @@ func product(buf []float64, cols []quantity.Series, terms []evTerm, lo int) {
 	}
 }
 
-// allFiniteNonzero reports whether every value of v is finite and not zero.
-// On the bits of |x|, a zero is 0 and a value that is not finite is at
-// least 0x7FF0…0, so |x|−1 wraps or reaches 0x7FEF…F exactly for those;
-// four running maxima keep the loop free of branches and of a long
-// dependency chain.
-func allFiniteNonzero(v []float64) bool {
-	const abs = 1<<63 - 1
-	var m0, m1, m2, m3 uint64
-	i := 0
-	for ; i+4 <= len(v); i += 4 {
-		m0 = max(m0, math.Float64bits(v[i])&abs-1)
-		m1 = max(m1, math.Float64bits(v[i+1])&abs-1)
-		m2 = max(m2, math.Float64bits(v[i+2])&abs-1)
-		m3 = max(m3, math.Float64bits(v[i+3])&abs-1)
+// mulInto multiplies buf by x^t row by row.
+func mulInto(buf, x []float64, t evTerm) {
+	x = x[:len(buf)]
+	switch t.n {
+	case 1:
+		for i, v := range x {
+			buf[i] *= v
+		}
+	case 2:
+		for i, v := range x {
+			buf[i] *= v * v
+		}
+	default:
+		for i, v := range x {
+			buf[i] *= factor(v, t)
+		}
 	}
-	for ; i < len(v); i++ {
-		m0 = max(m0, math.Float64bits(v[i])&abs-1)
-	}
-	return max(m0, m1, m2, m3) < 0x7FEFFFFFFFFFFFFF
 }

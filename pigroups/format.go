@@ -80,7 +80,25 @@ func TeXSymbol(s string) string {
 
 var subDigits = []string{"₀", "₁", "₂", "₃", "₄", "₅", "₆", "₇", "₈", "₉"}
 
+// piNames holds the names of the groups of the largest problem, so that
+// a Pi set names its groups without allocating.
+var piNames = func() []string {
+	names := make([]string, MaxVariables+1)
+	for k := range names {
+		names[k] = writePiName(k)
+	}
+	return names
+}()
+
+// piName returns "Πk": Π₁, Π₁₂.
 func piName(k int) string {
+	if k >= 0 && k < len(piNames) {
+		return piNames[k]
+	}
+	return writePiName(k)
+}
+
+func writePiName(k int) string {
 	var sb strings.Builder
 	sb.WriteString("Π")
 	for _, c := range strconv.Itoa(k) {

@@ -218,9 +218,8 @@ func (e *RepeatingError) Is(target error) bool { return classOf(e.Err) == target
 // Problem is a list of variables with its dimensional matrix and rank.
 type Problem struct {
 	vars  []Variable
-	kinds [][]string // candidate kinds of each variable
-	a     exact.Matrix[quantity.Rat]
-	ai    exact.IntMatrix // the same, as integers, for fast elimination
+	kinds [][]string      // candidate kinds of each variable
+	ai    exact.IntMatrix // the dimensional matrix in sixths (ratMatrix: as Rats)
 	rows  []quantity.Base // base dimensions that appear, in ISO order
 	rank  int
 	dep   int // index of the dependent variable, or −1
@@ -311,7 +310,6 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 			}
 		}
 	}
-	p.a = exact.NewMatrix[quantity.Rat](len(p.rows), len(vars))
 	p.ai = make(exact.IntMatrix, len(p.rows))
 	cells := make([]int64, len(p.rows)*len(vars))
 	for i, b := range p.rows {
@@ -321,10 +319,18 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 			// Held in sixths, as whole numbers: scaling a matrix changes
 			// neither its rank nor its null space, and integers eliminate
 			// faster. Matrix and MatrixTable divide by six.
-			p.a[i][j] = quantity.RatInt(int64(v.Dim.Sixths(b)))
 		}
 	}
-	piv, err := p.ai.Clone().GaussJordan()
+	var rows [quantity.NumBases][]int64
+	var pivBuf [quantity.NumBases]int
+	all := p.intColumns(nil)
+	for i := range p.rows {
+		copy(all[i][:len(vars)], p.ai[i])
+	}
+	for i := range p.rows {
+		rows[i] = all[i][:len(vars):len(vars)]
+	}
+	piv, err := exact.IntMatrix(rows[:len(p.rows)]).GaussJordan(pivBuf[:0])
 	if err != nil {
 		return nil, p.tooLarge(err)
 	}
@@ -477,7 +483,7 @@ func (p *Problem) RankNote() string {
 		names[i] = b.String()
 	}
 	// The nonzero rows of the reduced Aᵀ span the dimensions that occur.
-	at := p.a.Transpose()
+	at := p.ratMatrix().Transpose()
 	piv, err := at.RREF()
 	if err != nil {
 		return ""
@@ -543,14 +549,32 @@ func joinAnd(s []string) string {
 	return strings.Join(s[:len(s)-1], ", ") + " and " + s[len(s)-1]
 }
 
+// intCells is an integer submatrix of a problem held by value, on the
+// stack: a row per base dimension, a column per variable at most.
+type intCells [quantity.NumBases][MaxVariables]int64
+
 // intColumns returns the integer submatrix of the given columns.
-func (p *Problem) intColumns(idx []int) exact.IntMatrix {
-	m := make(exact.IntMatrix, len(p.rows))
-	cells := make([]int64, len(p.rows)*len(idx))
+func (p *Problem) intColumns(idx []int) (c intCells) {
 	for i := range p.rows {
-		m[i] = cells[i*len(idx) : (i+1)*len(idx) : (i+1)*len(idx)]
 		for k, j := range idx {
-			m[i][k] = p.ai[i][j]
+			c[i][k] = p.ai[i][j]
+		}
+	}
+	return c
+}
+
+// The callers view the first columns of an intCells as an exact.IntMatrix
+// with its rows in a local array, written out in each so that both stay
+// on the stack (a helper storing the rows through a pointer would move
+// them to the heap); GaussJordan stores no pointer.
+
+// ratMatrix returns the dimensional matrix, in sixths, as exact
+// rationals; it is built when asked for, off the path of PiSet.
+func (p *Problem) ratMatrix() exact.Matrix[quantity.Rat] {
+	m := exact.NewMatrix[quantity.Rat](len(p.rows), len(p.vars))
+	for i := range m {
+		for j := range m[i] {
+			m[i][j] = quantity.RatInt(p.ai[i][j])
 		}
 	}
 	return m
@@ -561,7 +585,7 @@ func (p *Problem) columns(idx []int) exact.Matrix[quantity.Rat] {
 	m := exact.NewMatrix[quantity.Rat](len(p.rows), len(idx))
 	for i := range p.rows {
 		for k, j := range idx {
-			m[i][k] = p.a[i][j]
+			m[i][k] = quantity.RatInt(p.ai[i][j])
 		}
 	}
 	return m
@@ -607,8 +631,14 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 		e.Hint = fmt.Sprintf("the rank equals the %d variables, so every variable repeats and no group is left", len(p.vars))
 		return nil, e
 	}
-	var e RepeatingError
-	isub := p.intColumns(idx)
+	var uncovered []quantity.Base
+	var rows [quantity.NumBases][]int64
+	var pivBuf [quantity.NumBases]int
+	cells := p.intColumns(idx)
+	for i := range p.rows {
+		rows[i] = cells[i][:len(idx):len(idx)]
+	}
+	isub := exact.IntMatrix(rows[:len(p.rows)])
 	for i, b := range p.rows {
 		covered := false
 		for k := range idx {
@@ -617,15 +647,15 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 			}
 		}
 		if !covered {
-			e.Uncovered = append(e.Uncovered, b)
+			uncovered = append(uncovered, b)
 		}
 	}
-	piv, err := isub.GaussJordan()
+	piv, err := isub.GaussJordan(pivBuf[:0])
 	if err != nil {
 		return nil, p.tooLarge(err)
 	}
-	if len(piv) < len(idx) || len(e.Uncovered) > 0 {
-		e.Set, e.Want = slices.Clone(set), p.rank
+	if len(piv) < len(idx) || len(uncovered) > 0 {
+		e := &RepeatingError{Set: slices.Clone(set), Want: p.rank, Uncovered: uncovered}
 		ns, err := p.columns(idx).NullSpace(quantity.RatInt(1))
 		if err != nil {
 			return nil, p.tooLarge(err)
@@ -641,7 +671,7 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 				e.Combination = p.spell(exps, quantity.ASCII)
 			}
 		}
-		return nil, &e
+		return nil, e
 	}
 	return idx, nil
 }
@@ -722,7 +752,7 @@ func (p *Problem) eachRepeating(f func(idx []int) bool) {
 			j := cand[k]
 			v := make([]quantity.Rat, len(p.rows))
 			for i := range p.rows {
-				v[i] = p.a[i][j]
+				v[i] = quantity.RatInt(p.ai[i][j])
 			}
 			// Reduce v by the current basis.
 			ok := true

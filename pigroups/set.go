@@ -2,6 +2,7 @@ package pigroups
 
 import (
 	"fmt"
+	"math"
 	"slices"
 	"strings"
 
@@ -49,7 +50,9 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		// Rank 0: every variable is dimensionless and is its own group.
 		return p.trivialSet(s), nil
 	}
-	var order []int
+	cols := make([]int, len(idx), len(p.vars))
+	copy(cols, idx)
+	order := cols[len(idx):]
 	if p.dep >= 0 {
 		order = append(order, p.dep)
 	}
@@ -61,8 +64,15 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 	// One elimination solves every group: RREF of [A_R | A_others] is
 	// [I | A_R⁻¹·A_others] on the independent rows, so the exponents of
 	// the repeating variables in xⱼ's group are −(A_R⁻¹·A_j).
-	aug := p.intColumns(append(slices.Clone(idx), order...))
-	pivots, err := aug.GaussJordan()
+	var rows [quantity.NumBases][]int64
+	var pivBuf [quantity.NumBases]int
+	ic := p.intColumns(cols[:len(idx)+len(order)])
+	nc := len(idx) + len(order)
+	for i := range p.rows {
+		rows[i] = ic[i][:nc:nc]
+	}
+	aug := exact.IntMatrix(rows[:len(p.rows)])
+	pivots, err := aug.GaussJordan(pivBuf[:0])
 	if err != nil {
 		return nil, p.tooLarge(err)
 	}
@@ -72,27 +82,76 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 	n := len(p.vars)
 	cells := make([]quantity.Rat, n*len(order))
 	s.groups = make([]Group, 0, len(order))
+	ar := matchArena{matches: make([]Match, 0, len(order)+2)} // most groups match one named group or none
+	ar.text.Grow(256)
 	for k, j := range order {
 		v := cells[k*n : (k+1)*n : (k+1)*n]
-		for i := range v {
-			v[i] = quantity.RatInt(0)
-		}
-		v[j] = quantity.RatInt(1)
-		for r, i := range idx {
-			v[i] = quantity.MustRat(-aug[r][len(idx)+k], aug[r][r])
-		}
-		if _, err := quantity.Coprime(v, v); err != nil {
-			return nil, p.tooLarge(err)
+		if !coprimeGroup(v, j, idx, aug, len(idx)+k) {
+			// The int64 path overflowed: the exact one says by how much.
+			for i := range v {
+				v[i] = quantity.RatInt(0)
+			}
+			v[j] = quantity.RatInt(1)
+			for r, i := range idx {
+				v[i] = quantity.MustRat(-aug[r][len(idx)+k], aug[r][r])
+			}
+			if _, err := quantity.Coprime(v, v); err != nil {
+				return nil, p.tooLarge(err)
+			}
 		}
 		iv := v
 		g := Group{Name: piName(k + 1), Var: j, exps: iv, prob: p}
 		if !p.dimensionless(iv) {
 			return nil, &ProblemError{Err: errInternal, Reason: fmt.Sprintf("group %s is not dimensionless", g)}
 		}
-		g.Matches = p.recognise(iv)
+		g.Matches = p.recogniseIn(&ar, iv)
 		s.groups = append(s.groups, g)
 	}
 	return s, nil
+}
+
+// coprimeGroup writes into v the exponents of the group of variable j,
+// as quantity.Coprime would scale them: x_j = 1 and x_i = −aug[r][col]/aug[r][r]
+// for the repeating variable i of pivot row r, times the least common
+// denominator, divided by the gcd of the results. It works in int64 and
+// reports false on an overflow, leaving the caller to the exact path.
+func coprimeGroup(v []quantity.Rat, j int, idx []int, aug exact.IntMatrix, col int) bool {
+	var num, den [quantity.NumBases]int64
+	l := int64(1)
+	for r := range idx {
+		n, d := -aug[r][col], aug[r][r]
+		if n == math.MinInt64 || d == math.MinInt64 || aug[r][col] == math.MinInt64 {
+			return false
+		}
+		if d < 0 {
+			n, d = -n, -d
+		}
+		if g := exact.GCD(n, d); g > 1 {
+			n, d = n/g, d/g
+		}
+		num[r], den[r] = n, d
+		var ok bool
+		if l, ok = exact.Mul64(l, d/exact.GCD(l, d)); !ok {
+			return false
+		}
+	}
+	g := l
+	for r := range idx {
+		w, ok := exact.Mul64(num[r], l/den[r])
+		if !ok || w == math.MinInt64 {
+			return false
+		}
+		num[r] = w
+		g = exact.GCD(g, w)
+	}
+	for i := range v {
+		v[i] = quantity.Rat{}
+	}
+	v[j] = quantity.RatInt(l / g)
+	for r, i := range idx {
+		v[i] = quantity.RatInt(num[r] / g)
+	}
+	return true
 }
 
 // trivialSet fills s with one group per variable, for a problem of rank
@@ -154,7 +213,7 @@ func (p *Problem) dimensionless(v []quantity.Rat) bool {
 	for i := range p.rows {
 		sum := quantity.RatInt(0)
 		for j, x := range v {
-			t, err := p.a[i][j].Mul(x)
+			t, err := quantity.RatInt(p.ai[i][j]).Mul(x)
 			if err != nil {
 				return false
 			}

@@ -50,8 +50,8 @@ func ExampleSeries() {
 	rho := quantity.NewSeries([]float64{998, 997, 996}, quantity.Density)
 	v := quantity.NewSeries([]float64{1, 2, 3}, quantity.Velocity)
 	var q quantity.Series
-	q.Mul(rho, v) // dynamic pressure ½ρV², no allocation once q has grown
-	q.Mul(q, v)
+	q.SetMul(rho, v) // dynamic pressure ½ρV², no allocation once q has grown
+	q.SetMul(q, v)
 	q.Scale(q, 0.5)
 	fmt.Printf("%.1f\n", q.Values())
 	fmt.Println(q.Dim().SIUnit(), q.Max())
@@ -89,9 +89,9 @@ func ExampleSeries_reynolds() {
 	d := quantity.NewSeries([]float64{0.05, 0.05, 0.05}, quantity.Length)
 	mu := quantity.NewSeries([]float64{1.002e-3, 1.002e-3, 0.890e-3}, quantity.DynamicViscosity)
 	var re quantity.Series
-	re.Mul(rho, v)
-	re.Mul(re, d)
-	re.Div(re, mu) // ρVD/μ
+	re.SetMul(rho, v)
+	re.SetMul(re, d)
+	re.SetDiv(re, mu) // ρVD/μ
 	fmt.Printf("%.0f %v\n", re.Values(), re.Dim().IsDimensionless())
 	// Output:
 	// [24905 49810 112022] true

@@ -3,6 +3,8 @@ package quantity
 import (
 	"strconv"
 	"strings"
+
+	"similis.dev/similis/internal/exact"
 )
 
 // Style selects how a product of powers — a dimension, a unit, a Pi
@@ -206,7 +208,7 @@ func AppendExponent(b []byte, e Rat, style Style) []byte {
 				b = append(b, "⁻"...)
 			}
 			// The magnitude as unsigned, exact for every int64.
-			for _, c := range strconv.FormatUint(uabs(n), 10) {
+			for _, c := range strconv.FormatUint(exact.Uabs(n), 10) {
 				b = append(b, supDigits[c-'0']...)
 			}
 			return b

@@ -102,13 +102,6 @@ func (r Rat) canon() Rat {
 
 func gcd(a, b int64) int64 { return exact.GCD(a, b) }
 
-func uabs(a int64) uint64 {
-	if a < 0 {
-		return uint64(-a)
-	}
-	return uint64(a)
-}
-
 func norm(n, d int64) Rat {
 	if n == 0 {
 		return Rat{}
@@ -231,7 +224,7 @@ func (r Rat) Cmp(s Rat) int {
 // mul128 returns the signed 128-bit product a·b (b > 0) as high (signed)
 // and low words.
 func mul128(a, b int64) (int64, uint64) {
-	hi, lo := bits.Mul64(uabs(a), uint64(b))
+	hi, lo := bits.Mul64(exact.Uabs(a), uint64(b))
 	if a < 0 {
 		lo = ^lo + 1
 		hi = ^hi

@@ -6,19 +6,20 @@ import "math"
 // test data. Element-wise operations check dimensions once per call, never
 // per element.
 //
-// Operations follow the style of math/big: the receiver is the
-// destination, it is also returned, and its storage is reused when it has
-// the capacity, so a loop over data sets allocates nothing once its
-// destinations have grown:
+// Operations are in place and named Set… (SetMul, SetDiv): the receiver
+// is the destination, it is also returned, and its storage is reused when
+// it has the capacity, so a loop over data sets allocates nothing once its
+// destinations have grown. A bare verb (Add, Mul) is always a value method
+// returning a new value, as on Quantity and Rat.
 //
 //	var re quantity.Series
-//	re.Mul(rho, v)
-//	re.Mul(re, d)
-//	re.Div(re, mu) // ρVD/μ
+//	re.SetMul(rho, v)
+//	re.SetMul(re, d)
+//	re.SetDiv(re, mu) // ρVD/μ
 //
 // (see the Series_reynolds example). Write one operation per statement
 // when an operand is the destination itself: in a chain such as
-// re.Mul(rho, v).Mul(re, d), Go does not specify whether the second re is
+// re.SetMul(rho, v).SetMul(re, d), Go does not specify whether the second re is
 // read before or after the first call.
 // Destination and operands may be the same Series. The zero Series is an
 // empty dimensionless series.
@@ -32,66 +33,66 @@ type Series struct {
 func NewSeries(v []float64, d Dim) Series { return Series{d, v} }
 
 // Len returns the number of values.
-func (s Series) Len() int { return len(s.v) }
+func (z Series) Len() int { return len(z.v) }
 
 // Dim returns the dimension shared by the values.
-func (s Series) Dim() Dim { return s.d }
+func (z Series) Dim() Dim { return z.d }
 
 // At returns the i-th value as a Quantity. It panics if i is out of range.
-func (s Series) At(i int) Quantity { return Quantity{s.v[i], s.d} }
+func (z Series) At(i int) Quantity { return Quantity{z.v[i], z.d} }
 
 // Values returns the values in the coherent SI unit, as a view of the
 // series' storage: it does not copy, and writing to it changes the series.
-func (s Series) Values() []float64 { return s.v }
+func (z Series) Values() []float64 { return z.v }
 
-// Check returns nil if s has dimension want, and otherwise a
+// Check returns nil if z has dimension want, and otherwise a
 // *DimensionError naming both.
-func (s Series) Check(want Dim) error {
-	if s.d == want {
+func (z Series) Check(want Dim) error {
+	if z.d == want {
 		return nil
 	}
-	return &DimensionError{Op: "check", Left: s.d, Right: want, Binary: true}
+	return &DimensionError{Op: "check", Left: z.d, Right: want, Binary: true}
 }
 
 // Sum returns the sum of the values.
-func (s Series) Sum() Quantity {
+func (z Series) Sum() Quantity {
 	var t float64
-	for _, x := range s.v {
+	for _, x := range z.v {
 		t += x
 	}
-	return Quantity{t, s.d}
+	return Quantity{t, z.d}
 }
 
 // Mean returns the arithmetic mean of the values (NaN for an empty series).
-func (s Series) Mean() Quantity {
-	if len(s.v) == 0 {
-		return Quantity{math.NaN(), s.d}
+func (z Series) Mean() Quantity {
+	if len(z.v) == 0 {
+		return Quantity{math.NaN(), z.d}
 	}
-	q := s.Sum()
-	q.v /= float64(len(s.v))
+	q := z.Sum()
+	q.v /= float64(len(z.v))
 	return q
 }
 
 // Min returns the smallest value (NaN for an empty series).
-func (s Series) Min() Quantity {
+func (z Series) Min() Quantity {
 	m := math.NaN()
-	for i, x := range s.v {
+	for i, x := range z.v {
 		if i == 0 || x < m {
 			m = x
 		}
 	}
-	return Quantity{m, s.d}
+	return Quantity{m, z.d}
 }
 
 // Max returns the largest value (NaN for an empty series).
-func (s Series) Max() Quantity {
+func (z Series) Max() Quantity {
 	m := math.NaN()
-	for i, x := range s.v {
+	for i, x := range z.v {
 		if i == 0 || x > m {
 			m = x
 		}
 	}
-	return Quantity{m, s.d}
+	return Quantity{m, z.d}
 }
 
 // grow returns z's storage resized to n, reusing it when it can.
@@ -117,9 +118,9 @@ func (z *Series) Set(x Series) *Series {
 	return z
 }
 
-// Add sets z = x + y element-wise and returns z. It panics if the
+// SetAdd sets z = x + y element-wise and returns z. It panics if the
 // dimensions or the lengths differ.
-func (z *Series) Add(x, y Series) *Series {
+func (z *Series) SetAdd(x, y Series) *Series {
 	if x.d != y.d {
 		panicBinary("add", x.d, y.d)
 	}
@@ -133,8 +134,8 @@ func (z *Series) Add(x, y Series) *Series {
 	return z
 }
 
-// Sub sets z = x − y element-wise and returns z.
-func (z *Series) Sub(x, y Series) *Series {
+// SetSub sets z = x − y element-wise and returns z.
+func (z *Series) SetSub(x, y Series) *Series {
 	if x.d != y.d {
 		panicBinary("subtract", x.d, y.d)
 	}
@@ -148,8 +149,8 @@ func (z *Series) Sub(x, y Series) *Series {
 	return z
 }
 
-// Mul sets z = x · y element-wise and returns z.
-func (z *Series) Mul(x, y Series) *Series {
+// SetMul sets z = x · y element-wise and returns z.
+func (z *Series) SetMul(x, y Series) *Series {
 	d, ok := x.d.add(y.d)
 	if !ok {
 		panicOverflow("multiply", x.d, y.d)
@@ -164,8 +165,8 @@ func (z *Series) Mul(x, y Series) *Series {
 	return z
 }
 
-// Div sets z = x / y element-wise and returns z.
-func (z *Series) Div(x, y Series) *Series {
+// SetDiv sets z = x / y element-wise and returns z.
+func (z *Series) SetDiv(x, y Series) *Series {
 	d, ok := x.d.sub(y.d)
 	if !ok {
 		panicOverflow("divide", x.d, y.d)
@@ -180,8 +181,8 @@ func (z *Series) Div(x, y Series) *Series {
 	return z
 }
 
-// AddQ sets z = x + q for every element and returns z.
-func (z *Series) AddQ(x Series, q Quantity) *Series {
+// SetAddQ sets z = x + q for every element and returns z.
+func (z *Series) SetAddQ(x Series, q Quantity) *Series {
 	if x.d != q.d {
 		panicBinary("add", x.d, q.d)
 	}
@@ -193,13 +194,13 @@ func (z *Series) AddQ(x Series, q Quantity) *Series {
 	return z
 }
 
-// SubQ sets z = x − q for every element and returns z.
-func (z *Series) SubQ(x Series, q Quantity) *Series {
-	return z.AddQ(x, q.Neg())
+// SetSubQ sets z = x − q for every element and returns z.
+func (z *Series) SetSubQ(x Series, q Quantity) *Series {
+	return z.SetAddQ(x, q.Neg())
 }
 
-// MulQ sets z = x · q for every element and returns z.
-func (z *Series) MulQ(x Series, q Quantity) *Series {
+// SetMulQ sets z = x · q for every element and returns z.
+func (z *Series) SetMulQ(x Series, q Quantity) *Series {
 	d, ok := x.d.add(q.d)
 	if !ok {
 		panicOverflow("multiply", x.d, q.d)
@@ -212,8 +213,8 @@ func (z *Series) MulQ(x Series, q Quantity) *Series {
 	return z
 }
 
-// DivQ sets z = x / q for every element and returns z.
-func (z *Series) DivQ(x Series, q Quantity) *Series {
+// SetDivQ sets z = x / q for every element and returns z.
+func (z *Series) SetDivQ(x Series, q Quantity) *Series {
 	d, ok := x.d.sub(q.d)
 	if !ok {
 		panicOverflow("divide", x.d, q.d)
@@ -226,8 +227,8 @@ func (z *Series) DivQ(x Series, q Quantity) *Series {
 	return z
 }
 
-// QDiv sets z = q / x for every element and returns z.
-func (z *Series) QDiv(q Quantity, x Series) *Series {
+// SetQDiv sets z = q / x for every element and returns z.
+func (z *Series) SetQDiv(q Quantity, x Series) *Series {
 	d, ok := q.d.sub(x.d)
 	if !ok {
 		panicOverflow("divide", q.d, x.d)
@@ -240,8 +241,8 @@ func (z *Series) QDiv(q Quantity, x Series) *Series {
 	return z
 }
 
-// Scale sets z = f · x for the pure number f and returns z.
-func (z *Series) Scale(x Series, f float64) *Series {
+// SetScale sets z = f · x for the pure number f and returns z.
+func (z *Series) SetScale(x Series, f float64) *Series {
 	v := z.grow(len(x.v))
 	for i, a := range x.v {
 		v[i] = a * f
@@ -250,12 +251,12 @@ func (z *Series) Scale(x Series, f float64) *Series {
 	return z
 }
 
-// Inv sets z = 1/x element-wise and returns z.
-func (z *Series) Inv(x Series) *Series { return z.QDiv(Scalar(1), x) }
+// SetInv sets z = 1/x element-wise and returns z.
+func (z *Series) SetInv(x Series) *Series { return z.SetQDiv(Scalar(1), x) }
 
-// Pow sets z = x^(num/den) element-wise and returns z. It panics if the
+// SetPow sets z = x^(num/den) element-wise and returns z. It panics if the
 // resulting dimension cannot be held.
-func (z *Series) Pow(x Series, num, den int) *Series {
+func (z *Series) SetPow(x Series, num, den int) *Series {
 	d, err := x.d.Pow(num, den)
 	if err != nil {
 		panicErr(err)
@@ -284,8 +285,8 @@ func (z *Series) Pow(x Series, num, den int) *Series {
 	return z
 }
 
-// Sqrt sets z = √x element-wise and returns z.
-func (z *Series) Sqrt(x Series) *Series { return z.Pow(x, 1, 2) }
+// SetSqrt sets z = √x element-wise and returns z.
+func (z *Series) SetSqrt(x Series) *Series { return z.SetPow(x, 1, 2) }
 
 func (z *Series) unary(op string, x Series, f func(float64) float64) *Series {
 	if uint64(x.d) != 0 {
@@ -299,8 +300,8 @@ func (z *Series) unary(op string, x Series, f func(float64) float64) *Series {
 	return z
 }
 
-// Powf sets z = x^p element-wise for a dimensionless x and returns z.
-func (z *Series) Powf(x Series, p float64) *Series {
+// SetPowf sets z = x^p element-wise for a dimensionless x and returns z.
+func (z *Series) SetPowf(x Series, p float64) *Series {
 	if uint64(x.d) != 0 {
 		panicUnary("raise %s to a real power", x.d, mustBeDimensionless)
 	}
@@ -312,15 +313,23 @@ func (z *Series) Powf(x Series, p float64) *Series {
 	return z
 }
 
-// Log10 sets z = log₁₀ x element-wise for a dimensionless x and returns z.
-func (z *Series) Log10(x Series) *Series {
+// SetLog10 sets z = log₁₀ x element-wise for a dimensionless x and returns z.
+func (z *Series) SetLog10(x Series) *Series {
 	return z.unary("take the logarithm of", x, math.Log10)
 }
 
-// Log sets z = ln x element-wise for a dimensionless x and returns z.
-func (z *Series) Log(x Series) *Series { return z.unary("take the logarithm of", x, math.Log) }
+// SetLog sets z = ln x element-wise for a dimensionless x and returns z.
+func (z *Series) SetLog(x Series) *Series { return z.unary("take the logarithm of", x, math.Log) }
 
-// Exp sets z = eˣ element-wise for a dimensionless x and returns z.
-func (z *Series) Exp(x Series) *Series {
+// SetExp sets z = eˣ element-wise for a dimensionless x and returns z.
+func (z *Series) SetExp(x Series) *Series {
 	return z.unary("take the exponential of", x, math.Exp)
 }
+
+// Scale sets z = f · x and returns z.
+//
+// Deprecated: Use SetScale; in-place Series operations are named Set…,
+// so that a verb (Add, Scale) means one thing across the module: a value
+// method returning a new value. Scale stays until its last caller in the
+// module, in similarity, has moved to SetScale.
+func (z *Series) Scale(x Series, f float64) *Series { return z.SetScale(x, f) }

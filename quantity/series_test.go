@@ -3,6 +3,7 @@ package quantity_test
 import (
 	"errors"
 	"math"
+	"reflect"
 	"testing"
 
 	"pgregory.net/rapid"
@@ -33,28 +34,28 @@ func TestSeriesMatchesQuantity(t *testing.T) {
 				}
 			}
 		}
-		check("Add", z.Add(a, c), func(i int) q.Quantity { return a.At(i).Add(c.At(i)) })
-		check("Sub", z.Sub(a, c), func(i int) q.Quantity { return a.At(i).Sub(c.At(i)) })
-		check("Mul", z.Mul(a, b), func(i int) q.Quantity { return a.At(i).Mul(b.At(i)) })
-		check("Div", z.Div(a, b), func(i int) q.Quantity { return a.At(i).Div(b.At(i)) })
-		check("MulQ", z.MulQ(a, k), func(i int) q.Quantity { return a.At(i).Mul(k) })
-		check("DivQ", z.DivQ(a, k), func(i int) q.Quantity { return a.At(i).Div(k) })
-		check("QDiv", z.QDiv(k, a), func(i int) q.Quantity { return k.Div(a.At(i)) })
-		check("AddQ", z.AddQ(b, k), func(i int) q.Quantity { return b.At(i).Add(k) })
-		check("SubQ", z.SubQ(b, k), func(i int) q.Quantity { return b.At(i).Sub(k) })
-		check("Scale", z.Scale(a, f), func(i int) q.Quantity { return a.At(i).Scale(f) })
-		check("Pow", z.Pow(a, 2, 1), func(i int) q.Quantity { return a.At(i).Pow(2, 1) })
-		check("Inv", z.Inv(a), func(i int) q.Quantity { return a.At(i).Inv() })
+		check("Add", z.SetAdd(a, c), func(i int) q.Quantity { return a.At(i).Add(c.At(i)) })
+		check("Sub", z.SetSub(a, c), func(i int) q.Quantity { return a.At(i).Sub(c.At(i)) })
+		check("Mul", z.SetMul(a, b), func(i int) q.Quantity { return a.At(i).Mul(b.At(i)) })
+		check("Div", z.SetDiv(a, b), func(i int) q.Quantity { return a.At(i).Div(b.At(i)) })
+		check("MulQ", z.SetMulQ(a, k), func(i int) q.Quantity { return a.At(i).Mul(k) })
+		check("DivQ", z.SetDivQ(a, k), func(i int) q.Quantity { return a.At(i).Div(k) })
+		check("QDiv", z.SetQDiv(k, a), func(i int) q.Quantity { return k.Div(a.At(i)) })
+		check("AddQ", z.SetAddQ(b, k), func(i int) q.Quantity { return b.At(i).Add(k) })
+		check("SubQ", z.SetSubQ(b, k), func(i int) q.Quantity { return b.At(i).Sub(k) })
+		check("Scale", z.SetScale(a, f), func(i int) q.Quantity { return a.At(i).Scale(f) })
+		check("Pow", z.SetPow(a, 2, 1), func(i int) q.Quantity { return a.At(i).Pow(2, 1) })
+		check("Inv", z.SetInv(a), func(i int) q.Quantity { return a.At(i).Inv() })
 		sq, _ := da.Pow(2, 1)
 		a2 := q.NewSeries(av, sq)
-		check("Sqrt", z.Sqrt(a2), func(i int) q.Quantity { return a2.At(i).Sqrt() })
+		check("Sqrt", z.SetSqrt(a2), func(i int) q.Quantity { return a2.At(i).Sqrt() })
 		r := q.NewSeries(av, q.Dimensionless)
-		check("Powf", z.Powf(r, f), func(i int) q.Quantity { return q.Powf(r.At(i), f) })
-		check("Log10", z.Log10(r), func(i int) q.Quantity { return q.Log10(r.At(i)) })
-		check("Log", z.Log(r), func(i int) q.Quantity { return q.Log(r.At(i)) })
+		check("Powf", z.SetPowf(r, f), func(i int) q.Quantity { return q.Powf(r.At(i), f) })
+		check("Log10", z.SetLog10(r), func(i int) q.Quantity { return q.Log10(r.At(i)) })
+		check("Log", z.SetLog(r), func(i int) q.Quantity { return q.Log(r.At(i)) })
 		var small q.Series
 		small.Scale(q.NewSeries(bv, q.Dimensionless), 1e-3)
-		check("Exp", z.Exp(small), func(i int) q.Quantity { return q.Exp(q.Scalar(bv[i] * 1e-3)) })
+		check("Exp", z.SetExp(small), func(i int) q.Quantity { return q.Exp(q.Scalar(bv[i] * 1e-3)) })
 		var sum q.Quantity = q.New(0, da)
 		for i := range n {
 			sum = sum.Add(a.At(i))
@@ -63,7 +64,7 @@ func TestSeriesMatchesQuantity(t *testing.T) {
 			t.Fatalf("Sum = %v, element-wise %v", a.Sum(), sum)
 		}
 		if da != db {
-			mustPanicRapid(t, func() { z.Add(a, b) })
+			mustPanicRapid(t, func() { z.SetAdd(a, b) })
 		}
 	})
 }
@@ -97,18 +98,37 @@ func TestSeriesStatistics(t *testing.T) {
 			t.Errorf("length mismatch: panic %v", r)
 		}
 	}()
-	c.Add(s, q.NewSeries([]float64{1, 2}, q.Pressure))
+	c.SetAdd(s, q.NewSeries([]float64{1, 2}, q.Pressure))
 }
 
 func TestSeriesNoAllocs(t *testing.T) {
 	a := q.NewSeries(make([]float64, 1000), q.Velocity)
 	b := q.NewSeries(make([]float64, 1000), q.Length)
 	var z q.Series
-	z.Mul(a, b)
+	z.SetMul(a, b)
 	allocs := testing.AllocsPerRun(100, func() {
-		z.Mul(a, b).Div(z, b).MulQ(z, q.Scalar(2)).Scale(z, 0.5)
+		z.SetMul(a, b).SetDiv(z, b).SetMulQ(z, q.Scalar(2)).SetScale(z, 0.5)
 	})
 	if allocs != 0 {
 		t.Errorf("%v allocations per run, want 0 once the destination has grown", allocs)
+	}
+}
+
+// TestInPlaceVerbs: an in-place Series operation never shares its name
+// with a value method of Quantity, so a verb means one thing (Scale is
+// kept, deprecated, for one caller).
+func TestInPlaceVerbs(t *testing.T) {
+	value := map[string]bool{}
+	qt := reflect.TypeFor[q.Quantity]()
+	for i := range qt.NumMethod() {
+		value[qt.Method(i).Name] = true
+	}
+	st := reflect.TypeFor[*q.Series]()
+	for i := range st.NumMethod() {
+		m := st.Method(i)
+		inPlace := m.Type.NumOut() == 1 && m.Type.Out(0) == st
+		if inPlace && value[m.Name] && m.Name != "Scale" {
+			t.Errorf("(*Series).%s is in place but shares its name with Quantity.%s, a value method", m.Name, m.Name)
+		}
 	}
 }

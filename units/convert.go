@@ -8,6 +8,7 @@ import (
 	"strings"
 	"unicode/utf8"
 
+	"similis.dev/similis/internal/numlex"
 	"similis.dev/similis/quantity"
 )
 
@@ -268,18 +269,19 @@ func parseValue(tab symbolTable, s string, parse func(string) (Unit, error)) (Va
 	}
 	t := strings.TrimSpace(s)
 	lead := strings.Index(s, t)
-	text, j, reason := lexNumber(t)
-	if reason != "" {
-		return Value{}, &ValueError{Input: s, Offset: lead + j, Reason: reason}
+	n, lexErr := numlex.Scan(t, numlex.Signed|numlex.Grouped)
+	if lexErr != nil {
+		return Value{}, &ValueError{Input: s, Offset: lead + lexErr.Offset, Reason: lexErr.Reason}
 	}
+	text, j := n.Text, n.End
 	if j > maxNumLen {
 		return Value{}, &ValueError{Input: s, Offset: lead, Reason: "number too long"}
 	}
-	x, err := strconv.ParseFloat(text, 64)
-	if err != nil || math.IsInf(x, 0) {
+	x, class := numlex.Float(text)
+	switch class {
+	case numlex.Malformed, numlex.Overflow:
 		return Value{}, &ValueError{Input: s, Offset: lead, Reason: fmt.Sprintf("%q is not a finite number", t[:j])}
-	}
-	if x == 0 && strings.ContainsAny(strings.SplitN(strings.ToLower(text), "e", 2)[0], "123456789") {
+	case numlex.Underflow:
 		return Value{}, &ValueError{Input: s, Offset: lead, Reason: fmt.Sprintf("%q underflows to zero", t[:j])}
 	}
 	rest := strings.TrimSpace(t[j:])
@@ -386,84 +388,6 @@ func (f *Flag) UnmarshalText(b []byte) error { return f.Set(string(b)) }
 
 // Dim returns the dimension the flag requires.
 func (f *Flag) Dim() quantity.Dim { return f.dim }
-
-// lexNumber reads the number at the start of t: an optional sign, digits
-// with an optional decimal point, and an optional exponent. Digits may be
-// grouped in threes by a thin space (U+2009) or a narrow no-break space
-// (U+202F), as the SI Brochure (9th ed., 2019, §5.4.4) writes them
-// ("101 325"); the groups are checked and the separators removed. It
-// returns the number's text for strconv, the bytes it used, and a reason
-// when the text is malformed.
-func lexNumber(t string) (num string, end int, reason string) {
-	var sb []byte
-	j := 0
-	if j < len(t) && (t[j] == '+' || t[j] == '-') {
-		sb = append(sb, t[j])
-		j++
-	}
-	group := 0       // digits in the current group
-	grouped := false // a separator was seen in this part
-	frac := false
-	digits := 0
-	for j < len(t) {
-		c := t[j]
-		switch {
-		case c >= '0' && c <= '9':
-			sb = append(sb, c)
-			group++
-			digits++
-			j++
-			continue
-		case c == '.' && !frac:
-			if grouped && group != 3 {
-				return "", j, "digits grouped with a thin space must come in groups of three"
-			}
-			sb = append(sb, c)
-			frac, grouped, group = true, false, 0
-			j++
-			continue
-		}
-		r, n := utf8.DecodeRuneInString(t[j:])
-		if r != '\u2009' && r != '\u202f' {
-			break
-		}
-		k := j + n
-		if group == 0 || k >= len(t) || t[k] < '0' || t[k] > '9' {
-			return "", j, "a thin space must stand between two digits"
-		}
-		// Integer part: the first group has one to three digits, the
-		// others three. Fraction: every group but the last has three.
-		if frac || grouped {
-			if group != 3 {
-				return "", j, "digits grouped with a thin space must come in groups of three"
-			}
-		} else if group > 3 {
-			return "", j, "digits grouped with a thin space must come in groups of three"
-		}
-		grouped, group = true, 0
-		j = k
-	}
-	if grouped && !frac && group != 3 {
-		return "", j, "digits grouped with a thin space must come in groups of three"
-	}
-	if digits == 0 {
-		return "", 0, "expected a number"
-	}
-	if j < len(t) && (t[j] == 'e' || t[j] == 'E') {
-		k := j + 1
-		if k < len(t) && (t[k] == '+' || t[k] == '-') {
-			k++
-		}
-		if k < len(t) && t[k] >= '0' && t[k] <= '9' {
-			for k < len(t) && t[k] >= '0' && t[k] <= '9' {
-				k++
-			}
-			sb = append(sb, t[j:k]...)
-			j = k
-		}
-	}
-	return string(sb), j, ""
-}
 
 // reciprocal reports whether a unit expression starts with a number that
 // divides ("1/s", "1 / min"), which is a unit, not a second number.

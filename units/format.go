@@ -128,15 +128,15 @@ func withPrefix(v float64, u Unit) (float64, Unit) {
 		return v, u
 	}
 	for _, x := range t {
-		if x.num < 0 {
+		if x.Exp.Sign() < 0 {
 			return v, u // no prefixes on a quotient: 0.6 W/(m·K), not 600 mW/(m·K)
 		}
 	}
 	first := t[0]
-	if first.num != 1 || first.den != 1 || first.number {
+	if !first.Exp.IsOne() || first.number {
 		return v, u
 	}
-	base := first.sym
+	base := first.Name
 	scale := 1.0
 	if base == "kg" {
 		if len(t) > 1 {
@@ -155,7 +155,7 @@ func withPrefix(v float64, u Unit) (float64, Unit) {
 	if exp != 0 {
 		sym = engPrefixes[exp].ascii + base
 	}
-	t[0].sym = sym
+	t[0].Name = sym
 	nu := u
 	nu.factor = applyPrefix(u.factor/scale, exp)
 	nu.setTerms(t)

@@ -7,6 +7,7 @@ import (
 	"strconv"
 	"strings"
 
+	"similis.dev/similis/internal/numlex"
 	"similis.dev/similis/quantity"
 )
 
@@ -76,10 +77,11 @@ func ParseGauge(s string) (Gauge, error) {
 		return Gauge{}, &ValueError{Input: s[:64] + "…", Reason: "text too long"}
 	}
 	t := strings.TrimSpace(s)
-	text, j, reason := lexNumber(t)
-	if reason != "" {
-		return Gauge{}, &ValueError{Input: s, Offset: j, Reason: reason}
+	n, lexErr := numlex.Scan(t, numlex.Signed|numlex.Grouped)
+	if lexErr != nil {
+		return Gauge{}, &ValueError{Input: s, Offset: lexErr.Offset, Reason: lexErr.Reason}
 	}
+	text, j := n.Text, n.End
 	rest, ok := gaugeSuffix(t[j:])
 	if !ok {
 		return Gauge{}, &ValueError{Input: s, Offset: j, Reason: "no gauge mark: write the unit followed by (g), as in 40 kPa(g), or psig or barg"}

@@ -9,6 +9,7 @@ import (
 	"unicode"
 	"unicode/utf8"
 
+	"similis.dev/similis/internal/numlex"
 	"similis.dev/similis/quantity"
 )
 
@@ -32,11 +33,35 @@ var builtinSpellings = sync.OnceValue(func() []string {
 })
 
 // term is one factor of a unit's spelling: a symbol (with its prefix) or a
-// numeric literal, raised to num/den.
+// numeric literal (Name), raised to an exact power (Exp), in the module's
+// one product of powers.
 type term struct {
-	sym      string
-	num, den int
-	number   bool
+	quantity.Factor
+	number bool
+}
+
+// symTerm returns the term sym¹: a symbol, or a numeric literal.
+func symTerm(sym string, number bool) term {
+	return term{Factor: quantity.Factor{Name: sym, Exp: quantity.RatInt(1)}, number: number}
+}
+
+// expOutOfRange reports whether a symbol's exponent lies outside what
+// Parse accepts: ±MaxExpAbs, denominator at most MaxExpDen.
+func expOutOfRange(e quantity.Rat) bool {
+	return e.Cmp(quantity.RatInt(MaxExpAbs)) > 0 || e.Cmp(quantity.RatInt(-MaxExpAbs)) < 0 || e.Den() > MaxExpDen
+}
+
+// scaleExp returns e·num/den, or ok = false if it leaves the range of
+// expOutOfRange (or of a Rat).
+func scaleExp(e quantity.Rat, num, den int) (quantity.Rat, bool) {
+	r, err := quantity.NewRat(int64(num), int64(den))
+	if err != nil {
+		return quantity.Rat{}, false
+	}
+	if e, err = e.Mul(r); err != nil || expOutOfRange(e) {
+		return e, false
+	}
+	return e, true
 }
 
 type terms []term
@@ -117,8 +142,8 @@ func (p *parser) unit(v val) (Unit, error) {
 	// and its spelling always agree: one symbol to the power one keeps its
 	// role (a bare °C is a scale, a bare Δ°C an interval); anything else
 	// is an interval.
-	if len(t) == 1 && t[0].num == 1 && t[0].den == 1 && !t[0].number {
-		if e, ok := p.tab.lookup(t[0].sym); ok {
+	if len(t) == 1 && t[0].Exp.IsOne() && !t[0].number {
+		if e, ok := p.tab.lookup(t[0].Name); ok {
 			switch {
 			case e.scaleSym:
 				u.temp, u.offset = tempScale, e.u.offset
@@ -234,7 +259,7 @@ func combine(p *parser, at int, a, b val, sign int) (val, error) {
 	}
 	if sign < 0 {
 		for i := b.lo; i < b.hi; i++ {
-			p.terms[i].num = -p.terms[i].num
+			p.terms[i].Exp = p.terms[i].Exp.Neg()
 		}
 	}
 	f := a.factor * b.factor
@@ -331,11 +356,11 @@ func (p *parser) raise(at int, v val, num, den int) (val, error) {
 		return val{}, p.fail(at, ErrExponent, "the exponent of an angle unit is out of range")
 	}
 	for i := v.lo; i < v.hi; i++ {
-		n, d := reduce(p.terms[i].num*num, p.terms[i].den*den)
-		if !p.terms[i].number && (n > MaxExpAbs*d || n < -MaxExpAbs*d || d > MaxExpDen) {
-			return val{}, p.fail(at, ErrExponent, fmt.Sprintf("the exponent of %s would be %s, outside ±%d with denominator at most %d", p.terms[i].sym, ratText(n, d), MaxExpAbs, MaxExpDen))
+		e, ok := scaleExp(p.terms[i].Exp, num, den)
+		if !ok && !p.terms[i].number {
+			return val{}, p.fail(at, ErrExponent, fmt.Sprintf("the exponent of %s would be %s, outside ±%d with denominator at most %d", p.terms[i].Name, e, MaxExpAbs, MaxExpDen))
 		}
-		p.terms[i].num, p.terms[i].den = n, d
+		p.terms[i].Exp = e
 	}
 	out := val{factor: f, dim: d, angle: angle, solid: solid, lo: v.lo, hi: v.hi}
 	return out, nil
@@ -343,28 +368,14 @@ func (p *parser) raise(at int, v val, num, den int) (val, error) {
 
 func (p *parser) number() (val, error) {
 	start := p.i
-	j := p.i
-	for j < len(p.s) && (p.s[j] >= '0' && p.s[j] <= '9' || p.s[j] == '.') {
-		j++
-	}
-	if j < len(p.s) && (p.s[j] == 'e' || p.s[j] == 'E') {
-		k := j + 1
-		if k < len(p.s) && (p.s[k] == '+' || p.s[k] == '-') {
-			k++
-		}
-		if k < len(p.s) && p.s[k] >= '0' && p.s[k] <= '9' {
-			for k < len(p.s) && p.s[k] >= '0' && p.s[k] <= '9' {
-				k++
-			}
-			j = k
-		}
-	}
+	n, _ := numlex.Scan(p.s[start:], 0) // never fails without Grouped
+	j := start + n.End
 	text := p.s[start:j]
 	if len(text) > maxNumLen {
 		return val{}, p.fail(start, ErrNumber, "numeric factor too long")
 	}
-	f, err := strconv.ParseFloat(text, 64)
-	if err != nil || f <= 0 || math.IsInf(f, 0) {
+	f, class := numlex.Float(text)
+	if class != numlex.OK || f <= 0 {
 		return val{}, p.fail(start, ErrNumber, fmt.Sprintf("%q is not a positive finite number", text))
 	}
 	p.i = j
@@ -373,7 +384,7 @@ func (p *parser) number() (val, error) {
 	}
 	v := val{factor: f, lo: len(p.terms), hi: len(p.terms)}
 	if f != 1 {
-		p.terms = append(p.terms, term{sym: strconv.FormatFloat(f, 'g', -1, 64), num: 1, den: 1, number: true})
+		p.terms = append(p.terms, symTerm(strconv.FormatFloat(f, 'g', -1, 64), true))
 		v.hi++
 	}
 	return v, nil
@@ -427,7 +438,7 @@ func (p *parser) symbol() (val, error) {
 	if e.ambiguous != "" {
 		return val{}, &ParseError{Input: p.s, Offset: start, Err: ErrAmbiguous, Symbol: sym, Reason: fmt.Sprintf("%q reads as %s; define it in a Table to say which is meant", sym, e.ambiguous)}
 	}
-	p.terms = append(p.terms, term{sym: e.sym, num: 1, den: 1})
+	p.terms = append(p.terms, symTerm(e.sym, false))
 	v := val{
 		factor: e.u.factor, dim: e.u.dim, angle: int(e.u.angle), solid: int(e.u.solid),
 		lo: len(p.terms) - 1, hi: len(p.terms),

@@ -11,31 +11,40 @@ import (
 	"similis.dev/similis/quantity"
 )
 
-// powTo is pow writing into dst, which may be a caller's stack buffer.
-func (t terms) powTo(dst terms, num, den int) terms {
+// powTo raises t to num/den, writing into dst, which may be a caller's
+// stack buffer. It returns the first symbol term whose exponent would
+// leave what Parse accepts (±MaxExpAbs, denominator at most MaxExpDen),
+// with that exponent, and ok = false.
+func (t terms) powTo(dst terms, num, den int) (_ terms, bad term, ok bool) {
 	out := dst[:0]
 	for _, x := range t {
-		x.num, x.den = reduce(x.num*num, x.den*den)
-		if x.num != 0 {
+		e, ok := scaleExp(x.Exp, num, den)
+		if !ok && !x.number {
+			x.Exp = e
+			return nil, x, false
+		}
+		if x.Exp = e; !e.IsZero() {
 			out = append(out, x)
 		}
 	}
-	return foldNumbers(out)
+	return foldNumbers(out), term{}, true
 }
 
 // mergeTerms is combineTerms reusing a's storage; a must not be used
 // afterwards.
 func mergeTerms(a, b terms, sign int) (terms, error) {
 	for _, x := range b {
-		x.num *= sign
+		if sign < 0 {
+			x.Exp = x.Exp.Neg()
+		}
 		found := false
 		for i := range a {
-			if a[i].sym == x.sym && a[i].number == x.number {
-				n, d := reduce(a[i].num*x.den+x.num*a[i].den, a[i].den*x.den)
-				if !x.number && (n > MaxExpAbs*d || n < -MaxExpAbs*d || d > MaxExpDen) {
-					return nil, fmt.Errorf("the exponent of %s would be %s, outside ±%d with denominator at most %d", x.sym, ratText(n, d), MaxExpAbs, MaxExpDen)
+			if a[i].Name == x.Name && a[i].number == x.number {
+				e, err := a[i].Exp.Add(x.Exp)
+				if !x.number && (err != nil || expOutOfRange(e)) {
+					return nil, fmt.Errorf("the exponent of %s would be %s, outside ±%d with denominator at most %d", x.Name, e, MaxExpAbs, MaxExpDen)
 				}
-				a[i].num, a[i].den = n, d
+				a[i].Exp = e
 				found = true
 				break
 			}
@@ -44,7 +53,7 @@ func mergeTerms(a, b terms, sign int) (terms, error) {
 			a = append(a, x)
 		}
 	}
-	return foldNumbers(slices.DeleteFunc(a, func(x term) bool { return x.num == 0 })), nil
+	return foldNumbers(slices.DeleteFunc(a, func(x term) bool { return x.Exp.IsZero() })), nil
 }
 
 // foldNumbers replaces the numeric factors of t by one literal, their
@@ -53,17 +62,17 @@ func foldNumbers(t terms) terms {
 	n, v := 0, 1.0
 	for _, x := range t {
 		if x.number {
-			f, _ := strconv.ParseFloat(x.sym, 64)
-			v *= math.Pow(f, float64(x.num)/float64(x.den))
+			f, _ := strconv.ParseFloat(x.Name, 64)
+			v *= math.Pow(f, x.Exp.Float())
 			n++
 		}
 	}
-	if n == 0 || n == 1 && t[0].number && t[0].num == 1 && t[0].den == 1 {
+	if n == 0 || n == 1 && t[0].number && t[0].Exp.IsOne() {
 		return t
 	}
 	out := make(terms, 0, len(t)-n+1)
 	if v != 1 {
-		out = append(out, term{sym: strconv.FormatFloat(v, 'g', -1, 64), num: 1, den: 1, number: true})
+		out = append(out, symTerm(strconv.FormatFloat(v, 'g', -1, 64), true))
 	}
 	for _, x := range t {
 		if !x.number {
@@ -85,7 +94,7 @@ func (t terms) spell(style quantity.Style) string {
 	var buf [8]quantity.Factor
 	p := quantity.Product(buf[:0])
 	for _, x := range t {
-		p = append(p, quantity.Factor{Name: spellSymbol(x, style), Exp: quantity.MustRat(int64(x.num), int64(x.den))})
+		p = append(p, quantity.Factor{Name: spellSymbol(x, style), Exp: x.Exp})
 	}
 	return p.Format(style, quantity.Solidus, "")
 }
@@ -95,14 +104,14 @@ func (t terms) spell(style quantity.Style) string {
 // as given.
 func spellSymbol(x term, style quantity.Style) string {
 	if x.number || style == quantity.ASCII {
-		return x.sym
+		return x.Name
 	}
-	e, ok := lookupIn(builtinIndex, x.sym)
+	e, ok := lookupIn(builtinIndex, x.Name)
 	if !ok {
 		if style == quantity.LaTeX {
-			return `\mathrm{` + x.sym + `}`
+			return `\mathrm{` + x.Name + `}`
 		}
-		return x.sym
+		return x.Name
 	}
 	if style == quantity.LaTeX {
 		return e.tex
@@ -238,18 +247,19 @@ func editDistance(a, b string) int {
 // factor it reads; symbols look cannot resolve are skipped.
 func (t terms) holdable(look func(string) (*entry, bool)) error {
 	for _, x := range t {
-		if x.number || (x.num == 1 || x.num == -1) && x.den == 1 {
+		if x.number || x.Exp.IsOne() || x.Exp.Neg().IsOne() {
 			continue // a symbol's own dimension, or its inverse, is always held
 		}
-		e, ok := look(x.sym)
+		e, ok := look(x.Name)
 		if !ok {
 			continue
 		}
-		if _, err := e.u.dim.Pow(x.num, x.den); err != nil {
-			return fmt.Errorf("%s to the power %s has a dimension out of range (exponents are whole sixths within ±21)", x.sym, ratText(x.num, x.den))
+		num, den := int(x.Exp.Num()), int(x.Exp.Den()) // within ±MaxExpAbs, den ≤ MaxExpDen
+		if _, err := e.u.dim.Pow(num, den); err != nil {
+			return fmt.Errorf("%s to the power %s has a dimension out of range (exponents are whole sixths within ±21)", x.Name, x.Exp)
 		}
-		if x.den != 1 && (int(e.u.angle)*x.num%x.den != 0 || int(e.u.solid)*x.num%x.den != 0) {
-			return fmt.Errorf("%s carries an angle, which cannot be raised to the power %s", x.sym, ratText(x.num, x.den))
+		if den != 1 && (int(e.u.angle)*num%den != 0 || int(e.u.solid)*num%den != 0) {
+			return fmt.Errorf("%s carries an angle, which cannot be raised to the power %s", x.Name, x.Exp)
 		}
 	}
 	return nil

@@ -138,7 +138,7 @@ func (u Unit) terms() terms {
 
 // symbolUnit returns u with the single symbol sym as its spelling.
 func symbolUnit(u Unit, sym string) Unit {
-	u.sp = internAs(sym, terms{{sym: sym, num: 1, den: 1}})
+	u.sp = internAs(sym, terms{symTerm(sym, false)})
 	return u
 }
 
@@ -267,13 +267,13 @@ func (u Unit) Pow(num, den int) (Unit, error) {
 		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("%s carries an angle, which cannot be raised to the power %s", u, ratText(num, den))}
 	}
 	var bt [16]term
-	t := u.terms().powTo(bt[:0], num, den)
+	t, bad, ok := u.terms().powTo(bt[:0], num, den)
+	if !ok {
+		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s, outside ±%d with denominator at most %d", bad.Name, bad.Exp, MaxExpAbs, MaxExpDen)}
+	}
 	for _, x := range t {
-		if !x.number && (x.num > MaxExpAbs*x.den || x.num < -MaxExpAbs*x.den || x.den > MaxExpDen) {
-			return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s, outside ±%d with denominator at most %d", x.sym, ratText(x.num, x.den), MaxExpAbs, MaxExpDen)}
-		}
-		if !x.number && 6%x.den != 0 {
-			return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s; a unit's exponents must be whole sixths, as its dimension's are", x.sym, ratText(x.num, x.den))}
+		if !x.number && 6%x.Exp.Den() != 0 {
+			return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s; a unit's exponents must be whole sixths, as its dimension's are", x.Name, x.Exp)}
 		}
 	}
 	if err := t.holdable(builtinLookup); err != nil {
@@ -302,8 +302,8 @@ func withRole(r Unit, t terms, operands ...Unit) Unit {
 			return r
 		}
 	}
-	if len(t) == 1 && t[0].num == 1 && t[0].den == 1 && !t[0].number {
-		if e, ok := lookupIn(builtinIndex, t[0].sym); ok {
+	if len(t) == 1 && t[0].Exp.IsOne() && !t[0].number {
+		if e, ok := lookupIn(builtinIndex, t[0].Name); ok {
 			switch {
 			case e.scaleSym:
 				r.temp, r.offset = tempScale, e.u.offset

@@ -22,8 +22,14 @@ type Field[T any] interface {
 }
 
 // GCD returns the greatest common divisor of |a| and |b| (0 for two
-// zeros).
+// zeros), for every pair of int64 but (MinInt64, MinInt64) and
+// (MinInt64, 0), whose gcd 2⁶³ an int64 cannot hold. It is the one gcd
+// of the module.
 func GCD(a, b int64) int64 { return gcd(a, b) }
+
+// Uabs returns |a| as a uint64, exact for every int64 (math.MinInt64
+// included). It is the one absolute value of an int64 of the module.
+func Uabs(a int64) uint64 { return uabs(a) }
 
 // Mul64 returns a·b and whether it fits in an int64.
 func Mul64(a, b int64) (int64, bool) { return mul64(a, b) }
@@ -65,14 +71,7 @@ func mul64(a, b int64) (int64, bool) {
 		return 0, true
 	}
 	neg := (a < 0) != (b < 0)
-	ua, ub := uint64(a), uint64(b)
-	if a < 0 {
-		ua = uint64(-a)
-	}
-	if b < 0 {
-		ub = uint64(-b)
-	}
-	hi, lo := bits.Mul64(ua, ub)
+	hi, lo := bits.Mul64(uabs(a), uabs(b))
 	if hi != 0 || lo > math.MaxInt64 {
 		return 0, false
 	}
@@ -244,14 +243,15 @@ type IntMatrix [][]int64
 
 // GaussJordan reduces m in place, without fractions, to a form in which
 // each pivot column is zero but for its pivot: row i is replaced by
-// p·row_i − f·row_r and divided by the gcd of its entries. It returns the
-// pivot column of each nonzero row in order; their number is the rank.
+// p·row_i − f·row_r and divided by the gcd of its entries. It appends the
+// pivot column of each nonzero row in order to pivots (nil, or a caller's
+// buffer) and returns them; their number is the rank.
 // The solution of the system in the pivot variables is then
 // x_c = m[r][j]/m[r][c] for the pivot c of row r.
-func (m IntMatrix) GaussJordan() (pivots []int, err error) {
+func (m IntMatrix) GaussJordan(pivots []int) ([]int, error) {
 	rows := len(m)
 	if rows == 0 {
-		return nil, nil
+		return pivots, nil
 	}
 	cols := len(m[0])
 	r := 0
@@ -266,7 +266,13 @@ func (m IntMatrix) GaussJordan() (pivots []int, err error) {
 		if p < 0 {
 			continue
 		}
-		m[r], m[p] = m[p], m[r]
+		if p != r {
+			// Swap the entries, not the row slices: m stores no pointer, so
+			// a caller's stack matrix stays on the stack.
+			for j := range cols {
+				m[r][j], m[p][j] = m[p][j], m[r][j]
+			}
+		}
 		pv := m[r][c]
 		for i := 0; i < rows; i++ {
 			f := m[i][c]

@@ -1,6 +1,8 @@
 package exact_test
 
 import (
+	"math"
+	"math/big"
 	"testing"
 
 	"pgregory.net/rapid"
@@ -62,7 +64,7 @@ func TestGaussJordanAgainstRREF(t *testing.T) {
 				im[r][j], rm[r][j] = v, i(v)
 			}
 		}
-		ip, err := im.GaussJordan()
+		ip, err := im.GaussJordan(nil)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -84,4 +86,32 @@ func TestGaussJordanAgainstRREF(t *testing.T) {
 			}
 		}
 	})
+}
+
+// TestGCDAndUabs: the module's one gcd and absolute value, against
+// math/big for any int64 pair (a gcd of 2⁶³ excepted, which no int64 holds).
+func TestGCDAndUabs(t *testing.T) {
+	rapid.Check(t, func(t *rapid.T) {
+		a := rapid.Int64().Draw(t, "a")
+		b := rapid.Int64().Draw(t, "b")
+		if (a == math.MinInt64 || a == 0) && (b == math.MinInt64 || b == 0) && a != b {
+			return
+		}
+		if a == math.MinInt64 && b == math.MinInt64 {
+			return
+		}
+		want := new(big.Int).GCD(nil, nil, new(big.Int).Abs(big.NewInt(a)), new(big.Int).Abs(big.NewInt(b)))
+		if got := exact.GCD(a, b); big.NewInt(got).Cmp(want) != 0 {
+			t.Fatalf("GCD(%d, %d) = %d, want %v", a, b, got, want)
+		}
+		if got, want := exact.Uabs(a), new(big.Int).Abs(big.NewInt(a)); new(big.Int).SetUint64(got).Cmp(want) != 0 {
+			t.Fatalf("Uabs(%d) = %d, want %v", a, got, want)
+		}
+	})
+	if got := exact.Uabs(math.MinInt64); got != 1<<63 {
+		t.Errorf("Uabs(MinInt64) = %d, want 2⁶³", got)
+	}
+	if got := exact.GCD(0, 0); got != 0 {
+		t.Errorf("GCD(0, 0) = %d, want 0", got)
+	}
 }

@@ -10,6 +10,7 @@ import (
 	"unicode"
 	"unicode/utf8"
 
+	"similis.dev/similis/internal/numlex"
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
 )
@@ -491,10 +492,9 @@ func (p *parser) exactExponent() (quantity.Rat, float64, bool) {
 // decimal reads an unsigned decimal number as an exact rational.
 func (p *parser) decimal() (quantity.Rat, bool) {
 	start := p.i
-	for p.i < len(p.src) && (p.src[p.i] >= '0' && p.src[p.i] <= '9' || p.src[p.i] == '.') {
-		p.i++
-	}
-	text := p.src[start:p.i]
+	num, _ := numlex.Scan(p.src[start:], numlex.NoExponent) // never fails without Grouped
+	text := num.Text
+	p.i = start + num.End
 	if text == "" || text == "." || strings.Count(text, ".") > 1 || len(text) > 24 {
 		p.i = start
 		return quantity.Rat{}, false
@@ -643,35 +643,20 @@ const bracketHelp = "a unit in a formula is written in braces: 9.80665 {m/s^2}, 
 // number reads a number and an optional unit in braces: 9.80665 {m/s^2}.
 func (p *parser) number() (*node, error) {
 	at := p.i
-	j := p.i
-	for j < len(p.src) && (p.src[j] >= '0' && p.src[j] <= '9' || p.src[j] == '.') {
-		j++
-	}
-	if j < len(p.src) && (p.src[j] == 'e' || p.src[j] == 'E') {
-		k := j + 1
-		if k < len(p.src) && (p.src[k] == '+' || p.src[k] == '-') {
-			k++
-		}
-		if k < len(p.src) && p.src[k] >= '0' && p.src[k] <= '9' {
-			for k < len(p.src) && p.src[k] >= '0' && p.src[k] <= '9' {
-				k++
-			}
-			j = k
-		}
-	}
-	text := p.src[at:j]
-	p.i = j
+	num, _ := numlex.Scan(p.src[at:], 0) // never fails without Grouped
+	text := num.Text
+	p.i = at + num.End
 	n, err := p.newNode(kNum, at)
 	if err != nil {
 		return nil, err
 	}
-	x, err := strconv.ParseFloat(text, 64)
-	switch {
-	case errors.Is(err, strconv.ErrRange):
+	x, class := numlex.Float(text)
+	switch class {
+	case numlex.Overflow:
 		return nil, p.failRange(at, "%q is beyond the range of float64: it overflows or underflows", text)
-	case err != nil:
+	case numlex.Malformed:
 		return nil, p.fail(at, "%q is not a number", text)
-	case x == 0 && strings.ContainsAny(strings.SplitN(strings.ToLower(text), "e", 2)[0], "123456789"):
+	case numlex.Underflow:
 		return nil, p.failRange(at, "%q is beyond the range of float64: it underflows to zero", text)
 	}
 	n.val = x
