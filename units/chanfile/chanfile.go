@@ -366,6 +366,7 @@ type Reader struct {
 	unq       []byte      // reused storage for unquoted fields
 	num       []byte      // reused storage for a number with a decimal comma
 	vals      [][]float64 // reused
+	active    []int       // the columns Read fills (all, or those of Select)
 	done      bool
 	off       int64 // bytes of lines read, after a byte-order mark
 }
@@ -907,6 +908,10 @@ func (r *Reader) columns(head []string, line int, unitRow []string, sample [][]b
 	}
 	r.idx = idx
 	n := len(idx)
+	r.active = make([]int, n)
+	for k := range r.active {
+		r.active[k] = k
+	}
 	r.started, r.startX, r.prev = make([]bool, n), make([]float64, n), make([]float64, n)
 	r.labels, r.intern = make([][]string, n), make([]map[string]string, n)
 	// The start of each Timestamp column, from its first sample.
@@ -1224,6 +1229,30 @@ func (r *Reader) Labels(k int) []string {
 	return r.labels[k]
 }
 
+// Select makes Read fill only the columns at idx (in the order of
+// Columns, from 0): the fields of the other columns are split off but
+// never parsed, so a bad value there cannot fail the file, and their
+// Series and Labels stay empty and their Missing counts stop growing.
+// Columns still lists every column. Call it after NewReader, before or
+// between Reads; an index out of range or given twice is an *Error of
+// class quantity.ErrInvalid. Select(nil) reads no column.
+func (r *Reader) Select(idx []int) error {
+	seen := make([]bool, len(r.cols))
+	for _, k := range idx {
+		if k < 0 || k >= len(r.cols) || seen[k] {
+			return &Error{File: r.name, Reason: "select: column index out of range or repeated", class: quantity.ErrInvalid}
+		}
+		seen[k] = true
+	}
+	r.active = r.active[:0]
+	for k, on := range seen { // in the order of Columns
+		if on {
+			r.active = append(r.active, k)
+		}
+	}
+	return nil
+}
+
 // Read reads up to rows rows (4096 if rows is not positive) into dst,
 // one Series per column of Columns in SI (dst is grown to the number of
 // columns and its storage reused), and returns the number of rows read.
@@ -1262,7 +1291,8 @@ func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, 
 			break
 		}
 	fields:
-		for j, i := range r.idx {
+		for _, j := range r.active {
+			i := r.idx[j]
 			f := r.fields[i]
 			col := &r.cols[j]
 			if r.isMissing(f) {
@@ -1313,7 +1343,7 @@ func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, 
 					reason, class = "a number beyond the range of float64", quantity.ErrRange
 				case withUnit(string(f)):
 					reason = "a value with a unit in a data row: the unit belongs in the header"
-				case r.opt.Columns == nil:
+				case r.opt.Columns == nil && len(r.active) == len(r.cols):
 					reason = "not a finite number (to read only the columns you need, name them in Options.Columns)"
 				}
 				err = &Error{File: r.name, Line: r.line, Column: i + 1, Field: short(f), Reason: reason, class: class}

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"maps"
 	"math"
 	"slices"
 	"strings"
@@ -123,6 +124,13 @@ type Options struct {
 	// are its pages checked: its type, its compression and its values
 	// cannot fail the file.
 	Columns []string
+	// Metadata, when writing, is further key-value metadata of the file,
+	// written beside the unit entries (a test's group definitions, the
+	// facility's run number); Reader.Metadata reads it back. A key must
+	// be valid UTF-8, not empty, and not start with UnitKey, whose
+	// entries are the columns' units; a value must be valid UTF-8. It is
+	// not used when reading.
+	Metadata map[string]string
 }
 
 // orderedGroup is a schema group whose columns keep the order given,
@@ -190,6 +198,19 @@ func NewWriter(w io.Writer, name string, cols []chanfile.Column, opt Options) (*
 		g[c.Name] = parquet.Optional(parquet.Leaf(parquet.DoubleType))
 		rank[c.Name] = i
 		opts = append(opts, parquet.KeyValueMetadata(UnitKey+c.Name, u))
+	}
+	keys := slices.Sorted(maps.Keys(opt.Metadata)) // one file for one input
+	for _, k := range keys {
+		v := opt.Metadata[k]
+		switch {
+		case k == "" || !utf8.ValidString(k):
+			return nil, &Error{File: name, Field: k, Reason: "a metadata key that is empty or not valid UTF-8", class: quantity.ErrInvalid}
+		case strings.HasPrefix(k, UnitKey):
+			return nil, &Error{File: name, Field: k, Reason: "a metadata key starting with " + UnitKey + ", the prefix of the columns' units", class: quantity.ErrInvalid}
+		case !utf8.ValidString(v):
+			return nil, &Error{File: name, Field: k, Reason: "a metadata value that is not valid UTF-8", class: quantity.ErrInvalid}
+		}
+		opts = append(opts, parquet.KeyValueMetadata(k, v))
 	}
 	n := opt.RowGroupRows
 	if n <= 0 {
