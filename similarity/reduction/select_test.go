@@ -1,0 +1,154 @@
+package reduction_test
+
+import (
+	"bytes"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"github.com/parquet-go/parquet-go"
+
+	"similis.dev/similis/similarity/reduction"
+	"similis.dev/similis/units/chanfile"
+	"similis.dev/similis/units/chanfile/parquetfile"
+)
+
+// exportWithUnused returns the carriage log with two more columns that
+// no variable, derived channel or point uses: an operator's note (text)
+// and a spare channel with one bad value ("ERR") on data row 100.
+func exportWithUnused(t *testing.T) []byte {
+	t.Helper()
+	b, err := os.ReadFile("testdata/carriage.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var out bytes.Buffer
+	row := 0
+	for _, l := range strings.SplitAfter(string(b), "\n") {
+		if l == "" {
+			continue
+		}
+		l = strings.TrimSuffix(l, "\n")
+		switch {
+		case strings.HasPrefix(l, "#"):
+		case row == 0:
+			l += ",Note,Spare [V]"
+			row++
+		default:
+			cell := "0.5"
+			if row == 100 {
+				cell = "ERR"
+			}
+			l += ",operator A," + cell
+			row++
+		}
+		out.WriteString(l + "\n")
+	}
+	return out.Bytes()
+}
+
+// TestUnusedColumnsNeverParsed: a bad value in a column the spec does not
+// use fails neither the CSV nor the Parquet reduction, whose points are
+// those of the clean file; read whole, the same CSV fails at that value.
+func TestUnusedColumnsNeverParsed(t *testing.T) {
+	dir := t.TempDir()
+	spec := carriageSpec(t)
+	clean, err := spec.Reduce(reduction.File("testdata/carriage.csv", reduction.FileOptions{}))
+	if err != nil {
+		t.Fatal(err)
+	}
+	csvPath := filepath.Join(dir, "export.csv")
+	if err := os.WriteFile(csvPath, exportWithUnused(t), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	// The whole file does not read: the bad value is there.
+	rd, err := chanfile.NewReader(bytes.NewReader(exportWithUnused(t)), csvPath, chanfile.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, _, err := rd.Read(nil, 1<<20); err == nil || !strings.Contains(err.Error(), "ERR") {
+		t.Fatalf("whole file read: %v, want the bad value refused", err)
+	}
+	got, err := spec.Reduce(reduction.File(csvPath, reduction.FileOptions{}))
+	if err != nil {
+		t.Fatalf("CSV with a bad value in an unused column: %v", err)
+	}
+	samePoints(t, "CSV", clean, got)
+
+	// Parquet: the carriage's channels and a BOOLEAN column, a type the
+	// reader does not read.
+	b, _ := os.ReadFile("testdata/carriage.csv")
+	rd, err = chanfile.NewReader(bytes.NewReader(b), "carriage.csv", chanfile.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	data, n, err := rd.Read(nil, 1<<20)
+	if err != nil {
+		t.Fatal(err)
+	}
+	g := parquet.Group{"valve open": parquet.Leaf(parquet.BooleanType)}
+	opts := []parquet.WriterOption{}
+	for _, c := range rd.Columns() {
+		g[c.Name] = parquet.Leaf(parquet.DoubleType)
+		opts = append(opts, parquet.KeyValueMetadata(parquetfile.UnitKey+c.Name, c.Text))
+	}
+	schema := parquet.NewSchema("export", g)
+	var buf bytes.Buffer
+	w := parquet.NewGenericWriter[any](&buf, append(opts, schema)...)
+	rows := make([]parquet.Row, n)
+	fields := schema.Fields() // sorted by name
+	for i := range rows {
+		for j, f := range fields {
+			v := parquet.BooleanValue(i%2 == 0)
+			if k := colIndex(rd.Columns(), f.Name()); k >= 0 {
+				u := rd.Columns()[k].Unit // written in the CSV's unit
+				v = parquet.DoubleValue((data[k].Values()[i] - u.Offset()) / u.Factor())
+			}
+			rows[i] = append(rows[i], v.Level(0, 0, j))
+		}
+	}
+	if _, err := w.WriteRows(rows); err != nil {
+		t.Fatal(err)
+	}
+	if err := w.Close(); err != nil {
+		t.Fatal(err)
+	}
+	pqPath := filepath.Join(dir, "export.parquet")
+	if err := os.WriteFile(pqPath, buf.Bytes(), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	got, err = spec.Reduce(reduction.File(pqPath, reduction.FileOptions{}))
+	if err != nil {
+		t.Fatalf("Parquet with a BOOLEAN column: %v", err)
+	}
+	samePoints(t, "Parquet", clean, got)
+}
+
+func colIndex(cols []chanfile.Column, name string) int {
+	for k, c := range cols {
+		if c.Name == name {
+			return k
+		}
+	}
+	return -1
+}
+
+func samePoints(t *testing.T, what string, want, got *reduction.Result) {
+	t.Helper()
+	if len(got.Points) != len(want.Points) {
+		t.Fatalf("%s: %d points, want %d", what, len(got.Points), len(want.Points))
+	}
+	for i := range want.Points {
+		for g := range want.Points[i].Groups {
+			x, y := want.Points[i].Groups[g], got.Points[i].Groups[g]
+			if !near(x.Value(), y.Value()) || !near(x.U().Value(), y.U().Value()) {
+				t.Errorf("%s point %d group %d: %v, want %v", what, i+1, g+1, y, x)
+			}
+		}
+	}
+}
+
+// near: equal to a few ulps (a unit converted back and forth).
+func near(a, b float64) bool { return math.Abs(a-b) <= 1e-12*math.Abs(a) }
