@@ -2,15 +2,19 @@ package reduction_test
 
 import (
 	"bytes"
+	"errors"
 	"math"
 	"os"
 	"path/filepath"
 	"strings"
 	"testing"
 
+	"github.com/google/go-cmp/cmp"
 	"github.com/parquet-go/parquet-go"
 
+	"similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/reduction"
+	"similis.dev/similis/units"
 	"similis.dev/similis/units/chanfile"
 	"similis.dev/similis/units/chanfile/parquetfile"
 )
@@ -152,3 +156,48 @@ func samePoints(t *testing.T, what string, want, got *reduction.Result) {
 
 // near: equal to a few ulps (a unit converted back and forth).
 func near(a, b float64) bool { return math.Abs(a-b) <= 1e-12*math.Abs(a) }
+
+// TestSaveParquetDefinitions: the points saved as Parquet carry the
+// groups' definitions in the file's metadata, read back in the order of
+// the columns; a malformed entry is refused as ErrParse.
+func TestSaveParquetDefinitions(t *testing.T) {
+	res, err := carriageSpec(t).Reduce(reduction.File("testdata/carriage.csv", reduction.FileOptions{}))
+	if err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(t.TempDir(), "points.parquet")
+	if err := reduction.SavePoints(path, res, reduction.WriteOptions{}); err != nil {
+		t.Fatal(err)
+	}
+	b, _ := os.ReadFile(path)
+	defs, err := reduction.ReadDefinitionsParquet(bytes.NewReader(b), int64(len(b)), path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(res.Groups) < 2 {
+		t.Fatalf("%d groups", len(res.Groups))
+	}
+	if diff := cmp.Diff(res.Groups, defs); diff != "" {
+		t.Errorf("definitions read back (-wrote +read):\n%s", diff)
+	}
+	// The entries as parquetfile reads them.
+	pr, err := parquetfile.NewReader(bytes.NewReader(b), int64(len(b)), path, parquetfile.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	g := res.Groups[1]
+	if got, want := pr.Metadata()[reduction.ParquetKey+g.Column], g.Definition+"\t"+g.Label; got != want {
+		t.Errorf("entry %s = %q, want %q", reduction.ParquetKey+g.Column, got, want)
+	}
+	// A malformed entry.
+	var buf bytes.Buffer
+	w, err := parquetfile.NewWriter(&buf, "p", []chanfile.Column{{Name: "Re", Unit: units.One()}},
+		parquetfile.Options{Metadata: map[string]string{reduction.ParquetKey + "Re": "no tab"}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	w.Close()
+	if _, err := reduction.ReadDefinitionsParquet(bytes.NewReader(buf.Bytes()), int64(buf.Len()), "p"); !errors.Is(err, quantity.ErrParse) {
+		t.Errorf("malformed entry: %v, want ErrParse", err)
+	}
+}

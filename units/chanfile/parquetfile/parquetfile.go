@@ -8,6 +8,7 @@ import (
 	"math"
 	"slices"
 	"strings"
+	"unicode"
 	"unicode/utf8"
 
 	"github.com/parquet-go/parquet-go"
@@ -133,6 +134,24 @@ type Options struct {
 	Metadata map[string]string
 }
 
+// funcOf reports whether a column name is written as a function of a
+// channel, u(F) or n_eff(V): a word and a parenthesis right after it,
+// with no blank. Such a name carries no unit even when its parentheses
+// hold one's symbol (F for farad, V for volt); the unit of the column
+// is the metadata's. "P (kPa)" or "P(kPa" are not such names.
+func funcOf(name string) bool {
+	i := strings.IndexByte(name, '(')
+	if i <= 0 || !strings.HasSuffix(name, ")") || strings.ContainsAny(name, " \t[]") {
+		return false
+	}
+	for k, r := range name[:i] {
+		if !(r == '_' || unicode.IsLetter(r) || k > 0 && unicode.IsDigit(r)) {
+			return false
+		}
+	}
+	return true
+}
+
 // orderedGroup is a schema group whose columns keep the order given,
 // where a plain group sorts them by name.
 type orderedGroup struct {
@@ -192,7 +211,7 @@ func NewWriter(w io.Writer, name string, cols []chanfile.Column, opt Options) (*
 		if back, err := chanfile.ParseHeaderField("x [" + u + "]"); err != nil || !back.Unit.Equal(c.Unit) {
 			return nil, &Error{File: name, Column: i + 1, Field: c.Name, Reason: fmt.Sprintf("the unit %q would not read back", u), class: quantity.ErrInvalid}
 		}
-		if inName, err := chanfile.ParseHeaderField(c.Name); err == nil && (!inName.Unit.Equal(c.Unit) || inName.Gauge) {
+		if inName, err := chanfile.ParseHeaderField(c.Name); err == nil && !funcOf(c.Name) && (!inName.Unit.Equal(c.Unit) || inName.Gauge) {
 			return nil, &Error{File: name, Column: i + 1, Field: c.Name, Reason: fmt.Sprintf("the name carries the unit %q and the column's unit is %q: the reader would refuse the disagreement", inName.Text, u), class: quantity.ErrInvalid}
 		}
 		g[c.Name] = parquet.Optional(parquet.Leaf(parquet.DoubleType))

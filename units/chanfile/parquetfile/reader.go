@@ -343,7 +343,7 @@ func column(f *parquet.File, fd field, opt Options) (chanfile.Column, rcol, erro
 		col.Name = name
 		if err == nil {
 			// A unit in the name too must be the same unit.
-			if inName, nerr := chanfile.ParseHeaderField(name); nerr == nil && (!inName.Unit.Equal(col.Unit) || inName.Gauge != col.Gauge) {
+			if inName, nerr := chanfile.ParseHeaderField(name); nerr == nil && !(hasMeta && funcOf(name)) && (!inName.Unit.Equal(col.Unit) || inName.Gauge != col.Gauge) {
 				class := error(quantity.ErrParse)
 				if hasGiven {
 					class = quantity.ErrInvalid

@@ -122,3 +122,34 @@ func TestMetadataRoundTrip(t *testing.T) {
 		t.Errorf("no metadata: %v, %v", r.Metadata(), err)
 	}
 }
+
+// TestFunctionNames: a column named as a function of a channel, u(F) in
+// N or n_eff(V), writes and reads back with its metadata unit, though F
+// and V are also unit symbols; a name with a unit in brackets or after a
+// blank must still agree with the unit.
+func TestFunctionNames(t *testing.T) {
+	cols := []chanfile.Column{{Name: "u(F)", Unit: units.MustParse("N")}, {Name: "n_eff(V)", Unit: units.One()}}
+	var buf bytes.Buffer
+	w, err := NewWriter(&buf, "f.parquet", cols, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := w.Write([]quantity.Series{quantity.NewSeries([]float64{0.08}, quantity.Force), quantity.NewSeries([]float64{12}, 0)}); err != nil {
+		t.Fatal(err)
+	}
+	if err := w.Close(); err != nil {
+		t.Fatal(err)
+	}
+	got, vals, err := readAll(t, buf.Bytes(), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got[0].Name != "u(F)" || !got[0].Unit.Equal(units.MustParse("N")) || vals[0][0] != 0.08 || vals[1][0] != 12 {
+		t.Errorf("read back %v %v", got, vals)
+	}
+	for _, name := range []string{"P (kPa)", "P [kPa]"} {
+		if _, err := NewWriter(io.Discard, "f.parquet", []chanfile.Column{{Name: name, Unit: units.MustParse("Pa")}}, Options{}); !errors.Is(err, quantity.ErrInvalid) {
+			t.Errorf("%q in Pa: %v, want ErrInvalid", name, err)
+		}
+	}
+}
