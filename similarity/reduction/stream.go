@@ -24,9 +24,9 @@ func (s *Spec) streams() bool {
 
 // tracker finds the windows of a Runs or Spans mode row by row.
 type tracker struct {
-	p    Points
-	wins []window // found, in the order the mode gives them
-	given int     // Runs: the windows ready has returned
+	p     Points
+	wins  []window // found, in the order the mode gives them
+	given int      // Runs: the windows ready has returned
 	// Runs.
 	inRun    bool
 	cur      float64
