@@ -1034,6 +1034,13 @@ func (r *Reader) timeValue(k int, f []byte) (float64, error) {
 
 // number reads a numeric field with the file's decimal mark.
 func (r *Reader) number(f []byte) (float64, error) {
+	point := r.decimal
+	if point == 0 {
+		point = '.'
+	}
+	if x, ok := plainDecimal(f, point); ok {
+		return x, nil
+	}
 	if r.decimal == ',' {
 		if bytes.IndexByte(f, '.') >= 0 {
 			return 0, errDecimalPoint
@@ -1045,6 +1052,51 @@ func (r *Reader) number(f []byte) (float64, error) {
 		f = r.num
 	}
 	return strconv.ParseFloat(string(f), 64)
+}
+
+// pow10 holds the powers of ten a float64 holds exactly.
+var pow10 = [...]float64{1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15}
+
+// plainDecimal reads, in place, the number a data system writes most
+// often: an optional sign, digits, and at most one decimal mark point,
+// with no exponent and at most 15 digits in all. Its digits are then an
+// integer below 2⁵³ and its scale a power of ten, both exact in a
+// float64, so one correctly rounded division gives the correctly rounded
+// value, the very float64 strconv.ParseFloat returns. Any other field
+// reports false and is read by ParseFloat.
+func plainDecimal(f []byte, point byte) (float64, bool) {
+	i, neg := 0, false
+	if len(f) > 0 && (f[0] == '-' || f[0] == '+') {
+		neg, i = f[0] == '-', 1
+	}
+	var mant uint64
+	digits, frac := 0, -1
+	for ; i < len(f); i++ {
+		c := f[i]
+		switch {
+		case c >= '0' && c <= '9':
+			mant = mant*10 + uint64(c-'0')
+			digits++
+			if frac >= 0 {
+				frac++
+			}
+		case c == point && frac < 0:
+			frac = 0
+		default:
+			return 0, false
+		}
+	}
+	if digits == 0 || digits > 15 {
+		return 0, false
+	}
+	x := float64(mant)
+	if frac > 0 {
+		x /= pow10[frac]
+	}
+	if neg {
+		x = -x
+	}
+	return x, true
 }
 
 var errDecimalPoint = errors.New("a '.' in a number of a file whose decimal mark is ','")
@@ -1142,10 +1194,10 @@ func (r *Reader) split(b []byte) error {
 		for {
 			i := bytes.IndexByte(b, r.comma)
 			if i < 0 {
-				r.fields = append(r.fields, bytes.TrimSpace(b))
+				r.fields = append(r.fields, trim(b))
 				return nil
 			}
-			r.fields = append(r.fields, bytes.TrimSpace(b[:i]))
+			r.fields = append(r.fields, trim(b[:i]))
 			b = b[i+1:]
 		}
 	}
@@ -1197,6 +1249,15 @@ func (r *Reader) split(b []byte) error {
 		start = e
 	}
 	return nil
+}
+
+// trim is bytes.TrimSpace, without its work for a field that starts
+// and ends with a printable ASCII byte, as most fields do.
+func trim(f []byte) []byte {
+	if len(f) > 0 && f[0] > ' ' && f[0] < 0x7f && f[len(f)-1] > ' ' && f[len(f)-1] < 0x7f {
+		return f
+	}
+	return bytes.TrimSpace(f)
 }
 
 // Offset returns the number of bytes of the file read so far, after a
