@@ -260,3 +260,42 @@ func BenchmarkCampaign(b *testing.B) {
 }
 
 var _ = quantity.ErrRange
+
+// BenchmarkCampaignScaling reduces a campaign of 100 files of the
+// invented log (2800 rows each) on one core (GOMAXPROCS 1, one worker)
+// and on two (GOMAXPROCS 2, two workers), alternately, five times each
+// per op, and reports the best time of each (one-core-ms, two-core-ms)
+// and their ratio (speedup): the machine may be shared, and the best of
+// alternating runs is the least disturbed.
+func BenchmarkCampaignScaling(b *testing.B) {
+	dir := b.TempDir()
+	var ins []reduction.Input
+	for i := range 100 {
+		p := filepath.Join(dir, fmt.Sprintf("run%03d.csv", i))
+		if err := os.WriteFile(p, carriageCSV(uint64(i+1), fxRows), 0o644); err != nil {
+			b.Fatal(err)
+		}
+		ins = append(ins, reduction.File(p, reduction.FileOptions{}))
+	}
+	spec := carriageSpec(b)
+	defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(0))
+	best := [3]time.Duration{0, time.Duration(math.MaxInt64), time.Duration(math.MaxInt64)}
+	for b.Loop() {
+		for range 5 {
+			for _, cores := range []int{1, 2} {
+				runtime.GOMAXPROCS(cores)
+				runtime.GC()
+				t0 := time.Now()
+				for _, o := range spec.Campaign(ins, cores) {
+					if o.Err != nil {
+						b.Fatal(o.Err)
+					}
+				}
+				best[cores] = min(best[cores], time.Since(t0))
+			}
+		}
+	}
+	b.ReportMetric(float64(best[1])/1e6, "one-core-ms")
+	b.ReportMetric(float64(best[2])/1e6, "two-core-ms")
+	b.ReportMetric(float64(best[1])/float64(best[2]), "speedup")
+}
