@@ -201,3 +201,35 @@ func TestSaveParquetDefinitions(t *testing.T) {
 		t.Errorf("malformed entry: %v, want ErrParse", err)
 	}
 }
+
+// FuzzReadDefinitionsParquet: any metadata entry under ParquetKey is
+// read back as the group it states or refused as ErrParse, never a
+// panic nor a group without a column or a definition.
+func FuzzReadDefinitionsParquet(f *testing.F) {
+	f.Add("Re", "Π₂ = V·L/ν\tRe (Reynolds number)")
+	f.Add("", "x")
+	f.Add("K_T", "\t")
+	f.Fuzz(func(t *testing.T, col, val string) {
+		var buf bytes.Buffer
+		w, err := parquetfile.NewWriter(&buf, "p", []chanfile.Column{{Name: "x", Unit: units.One()}},
+			parquetfile.Options{Metadata: map[string]string{reduction.ParquetKey + col: val}})
+		if err != nil {
+			return // a key or value the writer refuses
+		}
+		if err := w.Close(); err != nil {
+			t.Fatal(err)
+		}
+		gs, err := reduction.ReadDefinitionsParquet(bytes.NewReader(buf.Bytes()), int64(buf.Len()), "p")
+		if err != nil {
+			if !errors.Is(err, quantity.ErrParse) {
+				t.Fatalf("%q=%q: %v, want ErrParse", col, val, err)
+			}
+			return
+		}
+		for _, g := range gs {
+			if g.Column == "" || g.Definition == "" {
+				t.Fatalf("%q=%q: group %+v", col, val, g)
+			}
+		}
+	})
+}
