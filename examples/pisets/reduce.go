@@ -382,18 +382,6 @@ func bindError(sym string, vu units.Unit, c chanfile.Column, file string, err er
 	return msg
 }
 
-// where names a data row for a message: the file's line for a text file
-// (comments, blank lines and the header counted), the row for Parquet.
-func where(file string, row int, parquet bool) string {
-	if parquet {
-		return fmt.Sprintf("%s: row %d", file, row)
-	}
-	if line := lineOfRow(file, row); line > 0 {
-		return fmt.Sprintf("%s:%d", file, line)
-	}
-	return fmt.Sprintf("%s: data row %d", file, row)
-}
-
 // lineOfRow returns the line of a text channel file that holds data row
 // row (1-based), reading the file again as the channel reader does:
 // blank lines and lines starting with '#' skipped, the first other line
@@ -432,24 +420,6 @@ func plural(n int, one, many string) string {
 		return one
 	}
 	return many
-}
-
-func grow(v []float64, n int) []float64 {
-	if cap(v) < n {
-		return make([]float64, n)
-	}
-	return v[:n]
-}
-
-func channelNames(cols []chanfile.Column) string {
-	s := ""
-	for i, c := range cols {
-		if i > 0 {
-			s += ", "
-		}
-		s += c.Name
-	}
-	return s
 }
 
 // exitCode maps an error of the data mode to the command's exit code.
