@@ -1320,7 +1320,8 @@ func (r *Reader) Select(idx []int) error {
 // It returns io.EOF with 0 rows at the end of the file. A gauge column is
 // absolute: its level plus Options.Reference. A Timestamp column is in
 // seconds from its first sample; a Label column's Series is empty (its
-// text is in Labels). A missing value is NaN.
+// text is in Labels). A missing value is NaN. After Select, only the
+// selected columns are parsed and filled; the others' Series are empty.
 func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, error) {
 	if rows <= 0 {
 		rows = 4096

@@ -588,7 +588,8 @@ const batch = 4096
 // seconds from its first sample; a label column's Series is empty, its
 // text is returned by Labels. The Series grow by the rows read, so
 // Read(dst, int(r.NumRows())) takes memory for the rows the file holds,
-// whatever its footer declares.
+// whatever its footer declares. After Select, only the selected columns
+// are decoded and filled; the others' Series are empty.
 func (r *Reader) Read(dst []quantity.Series, rows int) (out []quantity.Series, n int, err error) {
 	if rows <= 0 {
 		rows = 4096
