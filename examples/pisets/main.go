@@ -21,8 +21,11 @@
 // With -data it reduces a channel file instead: every variable is the
 // channel of its name or a derived channel defined by -derive in the
 // formula language of units/formula, and the groups of every row are
-// written as CSV (a header of group names, [1]) with a summary of the
-// reading on standard error:
+// written as CSV (comment lines # with each group's definition, then a
+// header of the groups' columns, [1]: the trade's symbol where a group is
+// exactly one, Re, Fr, K_T, else Π₁, Π₂, …) with a summary of the
+// reading on standard error. Only the channels the variables and -derive
+// use are parsed; a text or bad value in another column is never read:
 //
 //	pisets -data pumploop.csv -baro 1002hPa \
 //	    -derive 'dp = P2 - P1; D = 0.25 {m}; rho = 998.2 {kg/m^3}' \
@@ -54,9 +57,10 @@
 //	-tare A,B          (the dynamometer's)
 //	-format csv|jsonl|json|text|parquet
 //	                   the groups as CSV (the default; text is the same), JSON
-//	                   lines ({"row":1,"Π₁":0.17,"Π₂":0.021}, null when
-//	                   missing; json is the same) or Parquet (with -out;
-//	                   implied by -out x.parquet)
+//	                   lines ({"row":1,"Π₁":0.17,"Re":2.1e5}, keys as the CSV's
+//	                   columns, null when missing; json is the same) or
+//	                   Parquet (with -out; implied by -out x.parquet; the
+//	                   definitions in its metadata, similis.group.<column>)
 //
 // A channel binds to a variable only when its unit converts to the
 // variable's by the rules of units.ConvertUnits: rpm into rad/s or rev/s,
@@ -129,18 +133,25 @@ With -data (input kinds):
   Parquet   when the name ends in .parquet, each column's unit in the file's metadata
   derived   channels defined by -derive in the formula language, as
             'dp = P2 - P1; D = 0.25 {m}' (values in SI, angles in radians)
-Each variable is the channel of its name or a derived channel. A channel binds to
+Each variable is the channel of its name or a derived channel; only those channels
+and the ones -derive reads are parsed, so a text column or a bad value in a column
+nobody uses does not stop the reduction. A channel binds to
 a variable only when its unit converts to the variable's unit: rpm to rad/s or
 rev/s is read, Hz to rad/s is refused (write the channel as (Hz)*rev, or declare
 the variable in Hz).
 
-Output with -data (formats), one line or record per data row, groups in order:
-  csv      (the default) a header Π₁ [1],Π₂ [1],… then the values; NaN
-           where a value is missing (the channel files' missing marker)
-  jsonl    one JSON object per row, {"row":1,"Π₁":0.17,"Π₂":0.021}, null when missing
+Output with -data (formats), one line or record per data row, groups in order,
+each group's column named by the trade's symbol where the group is exactly one
+(Re, Fr, Eu, K_T, …), else Π₁, Π₂, …:
+  csv      (the default) comment lines "# group<TAB>column<TAB>definition<TAB>label",
+           a header such as Π₁ [1],Re [1], then the values; NaN where a value is
+           missing (the channel files' missing marker)
+  jsonl    one JSON object per row, {"row":1,"Π₁":0.17,"Re":2.1e5}, the same keys,
+           null when missing
   json     the same as jsonl
   text     the same as csv (or Parquet with -out x.parquet)
-  parquet  an Apache Parquet file (needs -out), unit 1 on every column
+  parquet  an Apache Parquet file (needs -out), unit 1 on every column, each
+           definition in the file's metadata under similis.group.<column>
 Standard error gets every reading of the header, each group's definition and
 name, the missing values of each channel, and with -fit the power law
 Π₁ = C·Π₂^a·… fitted by least squares on logarithms, with 95 % intervals that

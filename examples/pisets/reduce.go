@@ -270,27 +270,32 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	if opt.points != nil {
 		return reducePoints(spec, opt, rd, parquet, out, log)
 	}
-	outCols := make([]chanfile.Column, len(groups))
-	names := make([]string, len(groups))
-	for g, gr := range groups {
-		outCols[g] = chanfile.Column{Name: gr.Name, Unit: units.One()}
-		names[g] = gr.Name
+	// The columns: the trade's symbol where a group is exactly one (Re,
+	// Fr, K_T), else Π₁, Π₂, …; the definitions travel with the file.
+	defs := spec.Groups()
+	outCols := make([]chanfile.Column, len(defs))
+	names := make([]string, len(defs))
+	for g, gr := range defs {
+		outCols[g] = chanfile.Column{Name: gr.Column, Unit: units.One()}
+		names[g] = gr.Column
 	}
 	var w groupSink
-	var err2 error
 	switch {
 	case opt.jsonl:
 		w = newJSONLines(out, names)
 	case opt.parquet:
-		pw, err := parquetfile.NewWriter(out, "standard output", outCols, parquetfile.Options{})
+		pw, err := parquetfile.NewWriter(out, "standard output", outCols, parquetfile.Options{Metadata: reduction.ParquetMetadata(defs)})
 		if err != nil {
 			return err
 		}
 		w = parquetSink{pw}
 	default:
-		if w, err2 = chanfile.NewWriter(out, "standard output", outCols, chanfile.Options{}); err2 != nil {
-			return err2
+		rw, err := reduction.NewRowsWriter(out, "standard output", defs, reduction.WriteOptions{
+			Notes: []string{fmt.Sprintf("the groups of each data row of %s, in its order", opt.data)}})
+		if err != nil {
+			return err
 		}
+		w = rw
 	}
 	sink := &rowSink{w: w, bar: bar, done: done}
 	if opt.fit {
@@ -318,10 +323,14 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 		}
 	}
 	fmt.Fprintf(log, "pisets: reduced %d rows of %s to %d groups:\n", rows, opt.data, len(groups))
-	for _, g := range groups {
-		fmt.Fprintf(log, "pisets:   %s = %s  (%s)\n", g.Name, g.Format(quantity.Unicode), g.Label())
+	for g, gr := range groups {
+		col := ""
+		if c := defs[g].Column; c != gr.Name {
+			col = "; column " + c
+		}
+		fmt.Fprintf(log, "pisets:   %s = %s  (%s)%s\n", gr.Name, gr.Format(quantity.Unicode), gr.Label(), col)
 	}
-	for _, c := range cols {
+	for _, c := range res.Columns { // the channels read; the others were not parsed
 		for _, rdg := range c.Readings {
 			fmt.Fprintf(log, "pisets: channel %s: %v\n", c.Name, rdg)
 		}
@@ -373,18 +382,6 @@ func bindError(sym string, vu units.Unit, c chanfile.Column, file string, err er
 	return msg
 }
 
-// where names a data row for a message: the file's line for a text file
-// (comments, blank lines and the header counted), the row for Parquet.
-func where(file string, row int, parquet bool) string {
-	if parquet {
-		return fmt.Sprintf("%s: row %d", file, row)
-	}
-	if line := lineOfRow(file, row); line > 0 {
-		return fmt.Sprintf("%s:%d", file, line)
-	}
-	return fmt.Sprintf("%s: data row %d", file, row)
-}
-
 // lineOfRow returns the line of a text channel file that holds data row
 // row (1-based), reading the file again as the channel reader does:
 // blank lines and lines starting with '#' skipped, the first other line
@@ -423,24 +420,6 @@ func plural(n int, one, many string) string {
 		return one
 	}
 	return many
-}
-
-func grow(v []float64, n int) []float64 {
-	if cap(v) < n {
-		return make([]float64, n)
-	}
-	return v[:n]
-}
-
-func channelNames(cols []chanfile.Column) string {
-	s := ""
-	for i, c := range cols {
-		if i > 0 {
-			s += ", "
-		}
-		s += c.Name
-	}
-	return s
 }
 
 // exitCode maps an error of the data mode to the command's exit code.

@@ -36,7 +36,7 @@ func TestReducePumpLoop(t *testing.T) {
 		{180, 2.0, 38.0, 1450}, {160, 2.4, 41.5, 1450}, {140, 2.8, 44.1, 1451},
 		{120, 3.1, math.NaN(), 1450}, {100, 3.4, 47.6, 1449}, {80, 3.6, 48.9, 1450},
 	}
-	lines := strings.Split(strings.TrimSpace(out.String()), "\n")
+	lines := table(out.String())
 	if lines[0] != "Π₁ [1],Π₂ [1]" || len(lines) != len(rows)+1 {
 		t.Fatalf("output:\n%s", out.String())
 	}
@@ -99,7 +99,7 @@ func TestReduceExitCodes(t *testing.T) {
 		}
 	}
 	b, err := os.ReadFile(outFile)
-	if err != nil || !strings.HasPrefix(string(b), "Π₁ [1],Π₂ [1]\n") || strings.Count(string(b), "\n") != 7 {
+	if err != nil || !strings.HasPrefix(string(b), "# the groups of each data row of testdata/pumploop.csv") || table(string(b))[0] != "Π₁ [1],Π₂ [1]" || len(table(string(b))) != 7 {
 		t.Errorf("-out file: %q, %v", b, err)
 	}
 }
@@ -115,7 +115,7 @@ func TestReduceTankRun(t *testing.T) {
 	if code := run(args, &out, &errb); code != 0 {
 		t.Fatalf("exit %d: %s", code, errb.String())
 	}
-	lines := strings.Split(strings.TrimSpace(out.String()), "\n")
+	lines := table(out.String())
 	if len(lines) != 6 || lines[0] != "Π₁ [1],Π₂ [1],Π₃ [1]" {
 		t.Fatalf("output:\n%s", out.String())
 	}
@@ -142,7 +142,7 @@ func TestReduceJSONLines(t *testing.T) {
 	if code := run(append([]string{"-format", "jsonl"}, pumpArgs...), &jsonOut, &errb); code != 0 {
 		t.Fatalf("exit %d: %s", code, errb.String())
 	}
-	csvLines := strings.Split(strings.TrimSpace(csvOut.String()), "\n")[1:]
+	csvLines := table(csvOut.String())[1:]
 	jsonLines := strings.Split(strings.TrimSpace(jsonOut.String()), "\n")
 	if len(jsonLines) != len(csvLines) {
 		t.Fatalf("%d JSON lines, %d CSV rows", len(jsonLines), len(csvLines))
@@ -248,7 +248,7 @@ func TestReduceParquet(t *testing.T) {
 	if len(cols) != 2 || cols[0].Name != "Π₁" || !cols[0].Unit.Equal(units.One()) || cols[1].Missing != 0 || cols[0].Missing != 1 {
 		t.Fatalf("columns %+v", cols)
 	}
-	lines := strings.Split(strings.TrimSpace(csvOut.String()), "\n")[1:]
+	lines := table(csvOut.String())[1:]
 	for i, line := range lines {
 		for g, f := range strings.Split(line, ",") {
 			want := math.NaN()
@@ -306,8 +306,8 @@ func TestReduceParquet(t *testing.T) {
 	}
 	// The knots of the log are stored as knots: a value may move by an ulp
 	// through the unit and back, so compare to 1e-15.
-	a := strings.Split(strings.TrimSpace(fromCSV.String()), "\n")
-	b := strings.Split(strings.TrimSpace(fromPQ.String()), "\n")
+	a := table(fromCSV.String())
+	b := table(fromPQ.String())
 	if len(a) != len(b) || a[0] != b[0] {
 		t.Fatalf("CSV log gives\n%s\nParquet log gives\n%s", fromCSV.String(), fromPQ.String())
 	}
@@ -433,7 +433,7 @@ func TestReduceAngleOfChannel(t *testing.T) {
 		if code := run([]string{"-data", c.file, "Q=m^3/s", "n=" + c.unit, "D=m"}, &out, &errb); code != 0 {
 			t.Fatalf("%s as %s: exit %d: %s", c.file, c.unit, code, errb.String())
 		}
-		lines := strings.Split(strings.TrimSpace(out.String()), "\n")
+		lines := table(out.String())
 		if got, _ := strconv.ParseFloat(lines[1], 64); math.Abs(got/c.want-1) > 1e-12 {
 			t.Errorf("%s as %s: Q/(n·D³) = %v, want %v", c.file, c.unit, got, c.want)
 		}
@@ -453,7 +453,7 @@ func TestReduceAngleOfChannel(t *testing.T) {
 	if strings.Contains(errb.String(), "4π²") || strings.Contains(errb.String(), "2π)") {
 		t.Errorf("n in rev/s: a 2π factor in the labels:\n%s", errb.String())
 	}
-	f := strings.Split(strings.Split(out.String(), "\n")[1], ",")
+	f := strings.Split(table(out.String())[1], ",")
 	n := 1450.0 / 60
 	psi, _ := strconv.ParseFloat(f[0], 64)
 	phi, _ := strconv.ParseFloat(f[1], 64)
@@ -479,8 +479,21 @@ func TestReduceExport(t *testing.T) {
 	if code := run([]string{"-data", path, "-derive", "D = 0.25 {m}", "Q=m^3/s", "n=Hz", "D=m"}, &out, &errb); code != 0 {
 		t.Fatalf("exit %d: %s", code, errb.String())
 	}
-	lines := strings.Split(strings.TrimSpace(out.String()), "\n")
+	lines := table(out.String())
 	if got, _ := strconv.ParseFloat(lines[1], 64); math.Abs(got/(0.05/0.375)-1) > 1e-12 {
 		t.Errorf("Q/(n·D³) = %v (%q), want 0.133333", got, lines[1])
 	}
+}
+
+// table returns the lines of a channel file written by the command, its
+// comment lines (the group definitions) left out: the header row, then
+// one line per data row.
+func table(s string) []string {
+	var out []string
+	for _, l := range strings.Split(strings.TrimSpace(s), "\n") {
+		if !strings.HasPrefix(l, "#") {
+			out = append(out, l)
+		}
+	}
+	return out
 }

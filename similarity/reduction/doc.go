@@ -14,7 +14,11 @@
 // (chanfile.NewSeriesSource). Only the columns the spec needs are asked
 // for (chanfile.Select): the variables', the derived channels' inputs,
 // the label or time channel of the points, the tared, calibrated and
-// Also channels. Values arrive in SI, chunk by chunk.
+// Also channels. Both file readers are chanfile.Selectors: they choose
+// the columns after the header (or schema) is read and before any data
+// row is parsed, so a text column, a bad value or a Parquet column of a
+// type not read, in a column the spec does not use, never fails the
+// file. Values arrive in SI, chunk by chunk.
 //
 // 2. Calibrate samples. A Calibration with Samples set carries its
 // channel sample by sample from the raw reading to the engineering value
@@ -34,8 +38,16 @@
 // its own result, the row-by-row reduction), Runs of a label channel
 // (the run number a carriage logs), Spans of a time channel, or Detected
 // steady windows by a stated moving-window criterion (steady.Detect).
-// Every mode but AllRows holds the file's needed columns in memory
-// (8 bytes a value); AllRows streams in bounded memory.
+// AllRows, Runs and Spans read the file once in bounded memory: the
+// windows of Runs and Spans (and of a zero of either kind) are found row
+// by row, each window's statistics are computed as soon as its last row
+// is read, and only the rows of the windows still open are kept (8 bytes
+// a value and reduced channel: the longest run or span, not the file).
+// Detected judges each sample on the samples around it and reads the
+// needed columns whole (8 bytes a value and column of the file). The
+// result's points and their uncertainty sources stay in memory: one
+// uncertain.Set holds fewer than 65 535 sources, one per reduced channel
+// and point.
 //
 // 5. Reduce each point. Each channel's mean gets its standard
 // uncertainty of the mean, s/√n_eff with n_eff from the window's
@@ -67,9 +79,12 @@
 // (WriteFile: a temporary file in the destination's directory, renamed
 // on success), as CSV, TSV or Parquet; a text file's comment lines carry
 // each point's span and each group's definition, which ReadDefinitions
-// reads back, and the columns carry the trade's symbol where a group is
-// exactly a named one (Re, Fr, K_T). WriteOptions.BOM makes a file a
-// spreadsheet reads as UTF-8. A RowsWriter writes the AllRows groups.
+// reads back, a Parquet file's key-value metadata carries the
+// definitions under ParquetKey + column (ParquetMetadata), which
+// ReadDefinitionsParquet reads back, and the columns carry the trade's
+// symbol where a group is exactly a named one (Re, Fr, K_T).
+// WriteOptions.BOM makes a file a spreadsheet reads as UTF-8. A
+// RowsWriter writes the AllRows groups the same way.
 //
 // One file's reduction is a pure function of its spec and its input, so
 // Spec.Campaign runs many files on every core, one file per worker, with

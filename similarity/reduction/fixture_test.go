@@ -53,34 +53,54 @@ var fxRuns = []struct{ from, to, v, net float64 }{
 
 // carriageRows returns the invented log's rows: t, run, V, F, T_w.
 func carriageRows(seed uint64, rows int) [][5]float64 {
-	r := rand.New(rand.NewPCG(seed, 11))
+	g := newCarriage(seed)
 	out := make([][5]float64, rows)
-	innov := fxSigF * math.Sqrt(1-fxPhi*fxPhi)
-	e := r.NormFloat64() * fxSigF
-	dur := float64(fxRows) / fxRate
 	for i := range out {
-		ti := float64(i) / fxRate
-		tc := math.Mod(ti, dur) // a longer log repeats the cycle
-		v, x, run := 0.0, 0.0, 0.0
-		prevV, prevX, prevEnd := 0.0, 0.0, 2.5
-		for k, rn := range fxRuns {
-			switch {
-			case tc >= rn.from && tc < rn.to:
-				v, x, run = rn.v, rn.net, float64(k+1)
-			case tc >= prevEnd && tc < rn.from:
-				f := (tc - prevEnd) / (rn.from - prevEnd)
-				v, x = prevV+f*(rn.v-prevV), prevX+f*(rn.net-prevX)
-			}
-			prevV, prevX, prevEnd = rn.v, rn.net, rn.to
-		}
-		if tc >= 13.5 {
-			f := math.Max(0, 1-(tc-13.5)/0.5)
-			v, x = 2.0*f, 15.0*f
-		}
-		e = fxPhi*e + innov*r.NormFloat64()
-		out[i] = [5]float64{ti, run, v + fxSigV*r.NormFloat64(), fxOff + x + e, fxTemp + fxSigT*r.NormFloat64()}
+		out[i] = g.next()
 	}
 	return out
+}
+
+// carriage generates the invented log row by row, for a log too long
+// to hold.
+type carriage struct {
+	rate  float64 // samples per second
+	r     *rand.Rand
+	innov float64
+	e     float64
+	i     int
+}
+
+func newCarriage(seed uint64) *carriage {
+	r := rand.New(rand.NewPCG(seed, 11))
+	return &carriage{rate: fxRate, r: r, innov: fxSigF * math.Sqrt(1-fxPhi*fxPhi), e: r.NormFloat64() * fxSigF}
+}
+
+// next returns the next row: t, run, V, F, T_w.
+func (g *carriage) next() [5]float64 {
+	r := g.r
+	dur := float64(fxRows) / fxRate
+	ti := float64(g.i) / g.rate
+	g.i++
+	tc := math.Mod(ti, dur) // a longer log repeats the cycle
+	v, x, run := 0.0, 0.0, 0.0
+	prevV, prevX, prevEnd := 0.0, 0.0, 2.5
+	for k, rn := range fxRuns {
+		switch {
+		case tc >= rn.from && tc < rn.to:
+			v, x, run = rn.v, rn.net, float64(k+1)
+		case tc >= prevEnd && tc < rn.from:
+			f := (tc - prevEnd) / (rn.from - prevEnd)
+			v, x = prevV+f*(rn.v-prevV), prevX+f*(rn.net-prevX)
+		}
+		prevV, prevX, prevEnd = rn.v, rn.net, rn.to
+	}
+	if tc >= 13.5 {
+		f := math.Max(0, 1-(tc-13.5)/0.5)
+		v, x = 2.0*f, 15.0*f
+	}
+	g.e = fxPhi*g.e + g.innov*r.NormFloat64()
+	return [5]float64{ti, run, v + fxSigV*r.NormFloat64(), fxOff + x + g.e, fxTemp + fxSigT*r.NormFloat64()}
 }
 
 // carriageCSV writes the invented log as a channel file.

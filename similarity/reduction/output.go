@@ -8,6 +8,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"slices"
 	"strings"
 
 	"similis.dev/similis/quantity"
@@ -65,8 +66,70 @@ func WriteFile(path string, write func(io.Writer) error) (err error) {
 const DefinitionPrefix = "# group\t"
 
 // ParquetKey is the prefix of the Parquet key-value metadata entry that
-// would carry a group's definition: ParquetKey + column.
+// carries a group's definition: the key is ParquetKey + column, the value
+// the definition and the label separated by a tab ("Π₂ = V·L/ν<TAB>Re
+// (Reynolds number)"); ReadDefinitionsParquet reads them back.
 const ParquetKey = "similis.group."
+
+// ParquetMetadata returns the key-value metadata entries that carry the
+// groups' definitions in a Parquet file (see ParquetKey), for
+// parquetfile.Options.Metadata.
+func ParquetMetadata(groups []Group) map[string]string {
+	if len(groups) == 0 {
+		return nil
+	}
+	m := make(map[string]string, len(groups))
+	for _, g := range groups {
+		m[ParquetKey+g.Column] = oneLine(g.Definition) + "\t" + oneLine(g.Label)
+	}
+	return m
+}
+
+// ReadDefinitionsParquet reads the group definitions a Parquet file of
+// results carries in its key-value metadata (see ParquetKey), in the
+// order of the file's columns (a definition whose column the file lacks
+// last, by name); size is the file's size and name names it in
+// messages. A file that is not Parquet is the parquetfile reader's
+// error; a definition entry that is not well formed is an *Error of
+// class quantity.ErrParse naming its key.
+func ReadDefinitionsParquet(r io.ReaderAt, size int64, name string) ([]Group, error) {
+	pr, err := parquetfile.NewReader(r, size, name, parquetfile.Options{})
+	if err != nil {
+		return nil, wrap(name, err)
+	}
+	defer pr.Close()
+	at := map[string]int{}
+	for i, c := range pr.Columns() {
+		at[c.Name] = i
+	}
+	var out []Group
+	for k, v := range pr.Metadata() {
+		col, ok := strings.CutPrefix(k, ParquetKey)
+		if !ok {
+			continue
+		}
+		def, label, ok := strings.Cut(v, "\t")
+		if !ok || col == "" || def == "" || strings.Contains(label, "\t") {
+			return nil, &Error{File: name, Reason: fmt.Sprintf("group definition %q: want the definition and the label separated by a tab", k), Err: quantity.ErrParse}
+		}
+		out = append(out, Group{Column: col, Name: strings.TrimSpace(strings.SplitN(def, "=", 2)[0]), Definition: def, Label: label})
+	}
+	slices.SortFunc(out, func(a, b Group) int {
+		i, ai := at[a.Column]
+		j, bj := at[b.Column]
+		switch {
+		case ai && bj:
+			return i - j
+		case ai != bj:
+			if ai {
+				return -1
+			}
+			return 1
+		}
+		return strings.Compare(a.Column, b.Column)
+	})
+	return out, nil
+}
 
 func writeHeader(w io.Writer, opt WriteOptions, res *Result, extra []string) error {
 	bw := bufio.NewWriter(w)
@@ -240,11 +303,11 @@ func WritePoints(w io.Writer, res *Result, opt WriteOptions) error {
 }
 
 // WritePointsParquet writes a result's points as a Parquet file with the
-// columns of WritePoints. The group definitions cannot travel in the
-// file's metadata yet: package parquetfile writes only its unit entries.
+// columns of WritePoints; the groups' definitions travel in the file's
+// key-value metadata (ParquetKey), which ReadDefinitionsParquet reads.
 func WritePointsParquet(w io.Writer, res *Result) error {
 	cols, data := pointTable(res)
-	pw, err := parquetfile.NewWriter(w, res.File, cols, parquetfile.Options{})
+	pw, err := parquetfile.NewWriter(w, res.File, cols, parquetfile.Options{Metadata: ParquetMetadata(res.Groups)})
 	if err != nil {
 		return err
 	}

@@ -182,9 +182,12 @@ func (s *Spec) Reduce(in Input) (res *Result, err error) {
 	if err := r.plan(src); err != nil {
 		return nil, setOp(err, "plan")
 	}
-	if s.Points.kind == allRows {
+	switch {
+	case s.Points.kind == allRows:
 		err = r.rows()
-	} else {
+	case s.streams() && !wholeHistory:
+		err = r.stream()
+	default:
 		err = r.points()
 	}
 	if err != nil {
@@ -196,6 +199,10 @@ func (s *Spec) Reduce(in Input) (res *Result, err error) {
 	}
 	return r.res, nil
 }
+
+// wholeHistory makes Reduce read the history whole for every mode, as
+// Detected does; the tests compare the two paths.
+var wholeHistory = false
 
 // setOp sets the Op of an *Error that has none.
 func setOp(err error, op string) error {
@@ -749,10 +756,21 @@ func (r *run) points() error {
 		return setOp(err, "zero")
 	}
 	r.res.Zero = zero
+	return r.finishPoints(ws, func(w window) (steady.Point, error) {
+		return steady.Reduce(r.res.Set, w.tag, chs, w.Window)
+	})
+}
+
+// finishPoints makes each window a point, in order: reduce gives its
+// channels' means (registered in the result's set), which are then
+// tared by the zero, calibrated, and carried into the groups.
+func (r *run) finishPoints(ws []window, reduce func(window) (steady.Point, error)) error {
+	s := r.spec
+	zero := r.res.Zero
 	gev := s.Set.Evaluator()
 	vals := make([]uncertain.Measured, len(r.vars))
 	for _, w := range ws {
-		p, err := steady.Reduce(r.res.Set, w.tag, chs, w.Window)
+		p, err := reduce(w)
 		if err != nil {
 			return r.stepErr(w.tag, err)
 		}

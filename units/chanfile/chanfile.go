@@ -366,6 +366,7 @@ type Reader struct {
 	unq       []byte      // reused storage for unquoted fields
 	num       []byte      // reused storage for a number with a decimal comma
 	vals      [][]float64 // reused
+	active    []int       // the columns Read fills (all, or those of Select)
 	done      bool
 	off       int64 // bytes of lines read, after a byte-order mark
 }
@@ -907,6 +908,10 @@ func (r *Reader) columns(head []string, line int, unitRow []string, sample [][]b
 	}
 	r.idx = idx
 	n := len(idx)
+	r.active = make([]int, n)
+	for k := range r.active {
+		r.active[k] = k
+	}
 	r.started, r.startX, r.prev = make([]bool, n), make([]float64, n), make([]float64, n)
 	r.labels, r.intern = make([][]string, n), make([]map[string]string, n)
 	// The start of each Timestamp column, from its first sample.
@@ -1029,6 +1034,13 @@ func (r *Reader) timeValue(k int, f []byte) (float64, error) {
 
 // number reads a numeric field with the file's decimal mark.
 func (r *Reader) number(f []byte) (float64, error) {
+	point := r.decimal
+	if point == 0 {
+		point = '.'
+	}
+	if x, ok := plainDecimal(f, point); ok {
+		return x, nil
+	}
 	if r.decimal == ',' {
 		if bytes.IndexByte(f, '.') >= 0 {
 			return 0, errDecimalPoint
@@ -1040,6 +1052,51 @@ func (r *Reader) number(f []byte) (float64, error) {
 		f = r.num
 	}
 	return strconv.ParseFloat(string(f), 64)
+}
+
+// pow10 holds the powers of ten a float64 holds exactly.
+var pow10 = [...]float64{1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15}
+
+// plainDecimal reads, in place, the number a data system writes most
+// often: an optional sign, digits, and at most one decimal mark point,
+// with no exponent and at most 15 digits in all. Its digits are then an
+// integer below 2⁵³ and its scale a power of ten, both exact in a
+// float64, so one correctly rounded division gives the correctly rounded
+// value, the very float64 strconv.ParseFloat returns. Any other field
+// reports false and is read by ParseFloat.
+func plainDecimal(f []byte, point byte) (float64, bool) {
+	i, neg := 0, false
+	if len(f) > 0 && (f[0] == '-' || f[0] == '+') {
+		neg, i = f[0] == '-', 1
+	}
+	var mant uint64
+	digits, frac := 0, -1
+	for ; i < len(f); i++ {
+		c := f[i]
+		switch {
+		case c >= '0' && c <= '9':
+			mant = mant*10 + uint64(c-'0')
+			digits++
+			if frac >= 0 {
+				frac++
+			}
+		case c == point && frac < 0:
+			frac = 0
+		default:
+			return 0, false
+		}
+	}
+	if digits == 0 || digits > 15 {
+		return 0, false
+	}
+	x := float64(mant)
+	if frac > 0 {
+		x /= pow10[frac]
+	}
+	if neg {
+		x = -x
+	}
+	return x, true
 }
 
 var errDecimalPoint = errors.New("a '.' in a number of a file whose decimal mark is ','")
@@ -1137,10 +1194,10 @@ func (r *Reader) split(b []byte) error {
 		for {
 			i := bytes.IndexByte(b, r.comma)
 			if i < 0 {
-				r.fields = append(r.fields, bytes.TrimSpace(b))
+				r.fields = append(r.fields, trim(b))
 				return nil
 			}
-			r.fields = append(r.fields, bytes.TrimSpace(b[:i]))
+			r.fields = append(r.fields, trim(b[:i]))
 			b = b[i+1:]
 		}
 	}
@@ -1194,6 +1251,15 @@ func (r *Reader) split(b []byte) error {
 	return nil
 }
 
+// trim is bytes.TrimSpace, without its work for a field that starts
+// and ends with a printable ASCII byte, as most fields do.
+func trim(f []byte) []byte {
+	if len(f) > 0 && f[0] > ' ' && f[0] < 0x7f && f[len(f)-1] > ' ' && f[len(f)-1] < 0x7f {
+		return f
+	}
+	return bytes.TrimSpace(f)
+}
+
 // Offset returns the number of bytes of the file read so far, after a
 // byte-order mark, for a progress display against the file's size. For a
 // file decoded from UTF-16 or a code page it counts the bytes decoded,
@@ -1224,13 +1290,38 @@ func (r *Reader) Labels(k int) []string {
 	return r.labels[k]
 }
 
+// Select makes Read fill only the columns at idx (in the order of
+// Columns, from 0): the fields of the other columns are split off but
+// never parsed, so a bad value there cannot fail the file, and their
+// Series and Labels stay empty and their Missing counts stop growing.
+// Columns still lists every column. Call it after NewReader, before or
+// between Reads; an index out of range or given twice is an *Error of
+// class quantity.ErrInvalid. Select(nil) reads no column.
+func (r *Reader) Select(idx []int) error {
+	seen := make([]bool, len(r.cols))
+	for _, k := range idx {
+		if k < 0 || k >= len(r.cols) || seen[k] {
+			return &Error{File: r.name, Reason: "select: column index out of range or repeated", class: quantity.ErrInvalid}
+		}
+		seen[k] = true
+	}
+	r.active = r.active[:0]
+	for k, on := range seen { // in the order of Columns
+		if on {
+			r.active = append(r.active, k)
+		}
+	}
+	return nil
+}
+
 // Read reads up to rows rows (4096 if rows is not positive) into dst,
 // one Series per column of Columns in SI (dst is grown to the number of
 // columns and its storage reused), and returns the number of rows read.
 // It returns io.EOF with 0 rows at the end of the file. A gauge column is
 // absolute: its level plus Options.Reference. A Timestamp column is in
 // seconds from its first sample; a Label column's Series is empty (its
-// text is in Labels). A missing value is NaN.
+// text is in Labels). A missing value is NaN. After Select, only the
+// selected columns are parsed and filled; the others' Series are empty.
 func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, error) {
 	if rows <= 0 {
 		rows = 4096
@@ -1262,7 +1353,8 @@ func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, 
 			break
 		}
 	fields:
-		for j, i := range r.idx {
+		for _, j := range r.active {
+			i := r.idx[j]
 			f := r.fields[i]
 			col := &r.cols[j]
 			if r.isMissing(f) {
@@ -1313,7 +1405,7 @@ func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, 
 					reason, class = "a number beyond the range of float64", quantity.ErrRange
 				case withUnit(string(f)):
 					reason = "a value with a unit in a data row: the unit belongs in the header"
-				case r.opt.Columns == nil:
+				case r.opt.Columns == nil && len(r.active) == len(r.cols):
 					reason = "not a finite number (to read only the columns you need, name them in Options.Columns)"
 				}
 				err = &Error{File: r.name, Line: r.line, Column: i + 1, Field: short(f), Reason: reason, class: class}

@@ -34,7 +34,9 @@
 // absolute start kept in Column.Start; text (a run tag) is kept as labels
 // (Reader.Labels). Options.Columns names the columns wanted: the others
 // are skipped without parsing, so a bad cell or an unknown unit there
-// cannot fail the file. Options.Aliases renames a column ("Pump speed" to
+// cannot fail the file; Reader.Select does the same for columns chosen
+// after the header is read (Reader is a Selector), before any data row
+// is parsed. Options.Aliases renames a column ("Pump speed" to
 // n), and Options.MissingValues sets the missing markers (#N/A, -9999,
 // ---, the empty field).
 //

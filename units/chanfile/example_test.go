@@ -106,3 +106,33 @@ Zeit;Pump speed;Q;Tag;Comment
 	// Q    number in m3/h: SI [0.0114444 0.0115]
 	// Tag  label ["run 12" "run 12"]
 }
+
+// A harness learns from the header which columns it needs, then asks
+// the reader for those alone: the spare channel's bad value (invented
+// data) is never parsed.
+func ExampleSelect() {
+	const log = `t [s],V [m/s],Spare [V],Operator
+0.0,1.50,0.1,A
+0.5,1.52,ERR,A
+`
+	r, err := chanfile.NewReader(strings.NewReader(log), "run8.csv", chanfile.Options{})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	var idx []int
+	for k, c := range r.Columns() {
+		if c.Name == "V" || c.Name == "t" {
+			idx = append(idx, k)
+		}
+	}
+	src, err := chanfile.Select(r, idx...) // the reader is a Selector
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	s, n, err := src.Read(nil, 0)
+	fmt.Println(n, err, s[0].Values(), s[1].Values())
+	// Output:
+	// 2 <nil> [0 0.5] [1.5 1.52]
+}

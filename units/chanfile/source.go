@@ -22,9 +22,10 @@ type Source interface {
 // Columns still describes every column of the file, but Read fills only
 // dst[k] for k in idx (the others are left empty, of length 0).
 //
-// Neither *Reader nor the Parquet reader implements Selector yet: each
-// converts every column of a row it reads. Select (the function) works
-// with both, delivering only the columns asked for.
+// Both *Reader and the Parquet reader of package parquetfile implement
+// it: the columns are chosen after the header (or the schema) is read
+// and before any data row is parsed, so a column nobody asked for is
+// never converted and its content cannot fail the file.
 type Selector interface {
 	Source
 	Select(idx []int) error

@@ -23,7 +23,12 @@
 // A caller may name the columns it wants (Options.Columns); the others
 // are never decoded, nor their pages checked, so a column of a type or a
 // compression not read, or a damaged one, does not fail the file unless
-// it is asked for. With no names, every column is read.
+// it is asked for. With no names, every column is listed: one the reader
+// cannot read (a type or a unit it does not read) fails the first Read,
+// unless Reader.Select, called after NewReader with the columns a caller
+// found it needs in the schema, leaves it out (Reader is a
+// chanfile.Selector). Select never decodes the columns it leaves out;
+// their pages were checked by NewReader only if they are readable.
 //
 // A column read is flat, not repeated, and one of three kinds (Kind):
 //
@@ -55,7 +60,10 @@
 // A unit stated twice must agree: a unit in the metadata, or in
 // Options.Units, that differs from the unit the column's name carries
 // ("V [kn]" with "m/s") is refused with both named; the metadata and
-// Options.Units together are refused in any case.
+// Options.Units together are refused in any case. A name written as a
+// function of a channel, u(F) or n_eff(V) (a word and a parenthesis with
+// no blank between), carries no unit when the metadata gives one, though
+// F and V are unit symbols too.
 //
 // A null, or a NaN, is a missing value, held as NaN (an empty label) and
 // counted on the column; an infinite value is an error with the row and
@@ -97,7 +105,9 @@
 //
 // Writer writes Series in chosen units as optional DOUBLE columns in the
 // order given (a NaN becomes a null), with zstd compression, row groups of
-// Options.RowGroupRows rows, and the unit metadata. It refuses what Reader
+// Options.RowGroupRows rows, the unit metadata and the further entries
+// of Options.Metadata (a test's group definitions, read back by
+// Reader.Metadata; a key starting with UnitKey is refused). It refuses what Reader
 // would not read back: an infinite value, a value that is not a finite
 // float64 in its column's unit, a name that is not valid UTF-8.
 //

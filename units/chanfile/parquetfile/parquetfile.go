@@ -4,9 +4,11 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"maps"
 	"math"
 	"slices"
 	"strings"
+	"unicode"
 	"unicode/utf8"
 
 	"github.com/parquet-go/parquet-go"
@@ -123,6 +125,31 @@ type Options struct {
 	// are its pages checked: its type, its compression and its values
 	// cannot fail the file.
 	Columns []string
+	// Metadata, when writing, is further key-value metadata of the file,
+	// written beside the unit entries (a test's group definitions, the
+	// facility's run number); Reader.Metadata reads it back. A key must
+	// be valid UTF-8, not empty, and not start with UnitKey, whose
+	// entries are the columns' units; a value must be valid UTF-8. It is
+	// not used when reading.
+	Metadata map[string]string
+}
+
+// funcOf reports whether a column name is written as a function of a
+// channel, u(F) or n_eff(V): a word and a parenthesis right after it,
+// with no blank. Such a name carries no unit even when its parentheses
+// hold one's symbol (F for farad, V for volt); the unit of the column
+// is the metadata's. "P (kPa)" or "P(kPa" are not such names.
+func funcOf(name string) bool {
+	i := strings.IndexByte(name, '(')
+	if i <= 0 || !strings.HasSuffix(name, ")") || strings.ContainsAny(name, " \t[]") {
+		return false
+	}
+	for k, r := range name[:i] {
+		if !(r == '_' || unicode.IsLetter(r) || k > 0 && unicode.IsDigit(r)) {
+			return false
+		}
+	}
+	return true
 }
 
 // orderedGroup is a schema group whose columns keep the order given,
@@ -184,12 +211,25 @@ func NewWriter(w io.Writer, name string, cols []chanfile.Column, opt Options) (*
 		if back, err := chanfile.ParseHeaderField("x [" + u + "]"); err != nil || !back.Unit.Equal(c.Unit) {
 			return nil, &Error{File: name, Column: i + 1, Field: c.Name, Reason: fmt.Sprintf("the unit %q would not read back", u), class: quantity.ErrInvalid}
 		}
-		if inName, err := chanfile.ParseHeaderField(c.Name); err == nil && (!inName.Unit.Equal(c.Unit) || inName.Gauge) {
+		if inName, err := chanfile.ParseHeaderField(c.Name); err == nil && !funcOf(c.Name) && (!inName.Unit.Equal(c.Unit) || inName.Gauge) {
 			return nil, &Error{File: name, Column: i + 1, Field: c.Name, Reason: fmt.Sprintf("the name carries the unit %q and the column's unit is %q: the reader would refuse the disagreement", inName.Text, u), class: quantity.ErrInvalid}
 		}
 		g[c.Name] = parquet.Optional(parquet.Leaf(parquet.DoubleType))
 		rank[c.Name] = i
 		opts = append(opts, parquet.KeyValueMetadata(UnitKey+c.Name, u))
+	}
+	keys := slices.Sorted(maps.Keys(opt.Metadata)) // one file for one input
+	for _, k := range keys {
+		v := opt.Metadata[k]
+		switch {
+		case k == "" || !utf8.ValidString(k):
+			return nil, &Error{File: name, Field: k, Reason: "a metadata key that is empty or not valid UTF-8", class: quantity.ErrInvalid}
+		case strings.HasPrefix(k, UnitKey):
+			return nil, &Error{File: name, Field: k, Reason: "a metadata key starting with " + UnitKey + ", the prefix of the columns' units", class: quantity.ErrInvalid}
+		case !utf8.ValidString(v):
+			return nil, &Error{File: name, Field: k, Reason: "a metadata value that is not valid UTF-8", class: quantity.ErrInvalid}
+		}
+		opts = append(opts, parquet.KeyValueMetadata(k, v))
 	}
 	n := opt.RowGroupRows
 	if n <= 0 {

@@ -86,6 +86,7 @@ type rcol struct {
 	started  bool  // the first sample of a time column is read
 	first    int64 // its ticks
 	origin   Origin
+	bad      *Error // a column the reader cannot read, left for Select
 
 	pages  parquet.Pages // of the current row group, or nil
 	vr     parquet.ValueReader
@@ -110,6 +111,8 @@ type Reader struct {
 	scratch []byte
 	row     int64 // rows read so far
 	done    bool
+	active  []int // the columns Read fills: all, or those of Select
+	meta    map[string]string
 }
 
 // guard turns a panic of the Parquet decoder on a damaged file into an
@@ -231,7 +234,14 @@ func NewReader(r io.ReaderAt, size int64, name string, opt Options) (rd *Reader,
 			if e.Field == "" {
 				e.Field = fd.el.Name
 			}
-			return nil, e
+			if opt.Columns != nil {
+				return nil, e
+			}
+			// Every column asked for: one the reader cannot read fails
+			// the first Read, unless Select leaves it out.
+			rd.cols = append(rd.cols, chanfile.Column{Name: fd.el.Name, Unit: units.One()})
+			rd.rc = append(rd.rc, rcol{at: i + 1, store: kLabel, bad: e})
+			continue
 		}
 		c.at = i + 1
 		if c.store != kTime && c.store != kLabel {
@@ -265,6 +275,18 @@ func NewReader(r io.ReaderAt, size int64, name string, opt Options) (rd *Reader,
 		return nil, &Error{File: name, Reason: "not a readable Parquet file", Err: err}
 	}
 	rd.groups = f.RowGroups()
+	rd.active = make([]int, len(rd.rc))
+	for j := range rd.active {
+		rd.active[j] = j
+	}
+	for _, kv := range f.Metadata().KeyValueMetadata {
+		if !strings.HasPrefix(kv.Key, UnitKey) {
+			if rd.meta == nil {
+				rd.meta = map[string]string{}
+			}
+			rd.meta[kv.Key] = kv.Value
+		}
+	}
 	return rd, nil
 }
 
@@ -321,7 +343,7 @@ func column(f *parquet.File, fd field, opt Options) (chanfile.Column, rcol, erro
 		col.Name = name
 		if err == nil {
 			// A unit in the name too must be the same unit.
-			if inName, nerr := chanfile.ParseHeaderField(name); nerr == nil && (!inName.Unit.Equal(col.Unit) || inName.Gauge != col.Gauge) {
+			if inName, nerr := chanfile.ParseHeaderField(name); nerr == nil && !(hasMeta && funcOf(name)) && (!inName.Unit.Equal(col.Unit) || inName.Gauge != col.Gauge) {
 				class := error(quantity.ErrParse)
 				if hasGiven {
 					class = quantity.ErrInvalid
@@ -480,8 +502,44 @@ func convertedName(ct deprecated.ConvertedType) string {
 
 // Columns returns the channels read, in the order Read returns them;
 // their Missing counts grow as chunks are read. A time column is in s; a
-// label column is dimensionless and holds no numbers.
+// label column is dimensionless and holds no numbers. Without
+// Options.Columns a column the reader cannot read (a type it does not
+// read, no unit) is listed too, as a label column, and its error is
+// returned by the first Read unless Select leaves it out.
 func (r *Reader) Columns() []chanfile.Column { return r.cols }
+
+// Select makes Read fill only the columns at idx (from 0, in the order
+// of Columns): the others are never decoded, so their type and values
+// cannot fail the file, and their Series and Labels stay empty. Columns
+// still lists every column. It must be called before the first Read; an
+// index out of range or given twice, or a call after reading began, is
+// an *Error of class quantity.ErrInvalid. The pages of every readable
+// column were checked by NewReader.
+func (r *Reader) Select(idx []int) error {
+	if r.row > 0 || r.open || r.done || r.group > 0 {
+		return &Error{File: r.name, Reason: "select after reading began", class: quantity.ErrInvalid}
+	}
+	seen := make([]bool, len(r.cols))
+	for _, k := range idx {
+		if k < 0 || k >= len(r.cols) || seen[k] {
+			return &Error{File: r.name, Reason: "select: column index out of range or repeated", class: quantity.ErrInvalid}
+		}
+		seen[k] = true
+	}
+	r.active = r.active[:0]
+	for k, on := range seen {
+		if on {
+			r.active = append(r.active, k)
+		}
+	}
+	return nil
+}
+
+// Metadata returns the file's key-value metadata other than the unit
+// entries (UnitKey + name): what a writer put there with
+// Options.Metadata, or another program's entries. It is nil when there
+// are none; the map is the Reader's, not to be changed.
+func (r *Reader) Metadata() map[string]string { return r.meta }
 
 // Kind returns what column j (from 0, in the order of Columns) holds.
 func (r *Reader) Kind(j int) Kind {
@@ -530,7 +588,8 @@ const batch = 4096
 // seconds from its first sample; a label column's Series is empty, its
 // text is returned by Labels. The Series grow by the rows read, so
 // Read(dst, int(r.NumRows())) takes memory for the rows the file holds,
-// whatever its footer declares.
+// whatever its footer declares. After Select, only the selected columns
+// are decoded and filled; the others' Series are empty.
 func (r *Reader) Read(dst []quantity.Series, rows int) (out []quantity.Series, n int, err error) {
 	if rows <= 0 {
 		rows = 4096
@@ -556,6 +615,12 @@ func (r *Reader) Read(dst []quantity.Series, rows int) (out []quantity.Series, n
 			out, n, err = dst, 0, &Error{File: r.name, Row: r.row + 1, Reason: fmt.Sprintf("a damaged Parquet file (the decoder failed: %v)", p)}
 		}
 	}()
+	for _, j := range r.active {
+		if e := r.rc[j].bad; e != nil && !r.done {
+			r.done = true
+			return dst, 0, e
+		}
+	}
 	for n < rows && !r.done && err == nil {
 		var k int
 		k, err = r.readBatch(min(batch, rows-n), n)
@@ -632,7 +697,7 @@ func (r *Reader) readBatch(k, n int) (read int, err error) {
 			return 0, nil
 		}
 		chunks := r.groups[r.group].ColumnChunks()
-		for j := range r.rc {
+		for _, j := range r.active {
 			c := &r.rc[j]
 			if c.leaf >= len(chunks) {
 				r.done = true
@@ -647,7 +712,7 @@ func (r *Reader) readBatch(k, n int) (read int, err error) {
 	if want <= 0 {
 		// The end of the row group: no column may hold more.
 		var one [1]parquet.Value
-		for j := range r.rc {
+		for _, j := range r.active {
 			c := &r.rc[j]
 			m, err := fill(c, one[:])
 			if err != nil {
@@ -671,7 +736,7 @@ func (r *Reader) readBatch(k, n int) (read int, err error) {
 	// before an error are whole and nothing after it is converted.
 	good := m // the rows every column holds
 	var short error
-	for j := range r.rc {
+	for _, j := range r.active {
 		c := &r.rc[j]
 		if cap(c.buf) < batch {
 			c.buf = make([]parquet.Value, batch)
@@ -692,7 +757,7 @@ func (r *Reader) readBatch(k, n int) (read int, err error) {
 	first := short
 rows:
 	for i := range good {
-		for j := range r.rc {
+		for _, j := range r.active {
 			if err := r.convert(j, r.rc[j].buf[i], r.row+int64(i)+1); err != nil {
 				first, good = err, i
 				break rows
