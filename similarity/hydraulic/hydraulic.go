@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 )
 
 // StructureCaution accompanies every scale-effect check, roughness
@@ -101,10 +102,9 @@ func (c ScaleCheck) String() string {
 // group out of the range of a float64 is a *Error of class quantity.ErrRange. See
 // StructureCaution.
 func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLimits) ([]ScaleCheck, error) {
-	if err := checkInputs("scale-effect check", true,
-		input{"velocity", v, quantity.Velocity}, input{"head", h, quantity.Length}, input{"kinematic viscosity", nu, quantity.KinematicViscosity},
-		input{"density", rho, quantity.Density}, input{"surface tension", sigma, quantity.SurfaceTension}, input{"minimum head", lim.MinHead, quantity.Length},
-	); err != nil {
+	if err := fail("scale-effect check", similarity.CheckInputs(true,
+		similarity.Input{Name: "velocity", Value: v, Dim: quantity.Velocity}, similarity.Input{Name: "head", Value: h, Dim: quantity.Length}, similarity.Input{Name: "kinematic viscosity", Value: nu, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "density", Value: rho, Dim: quantity.Density}, similarity.Input{Name: "surface tension", Value: sigma, Dim: quantity.SurfaceTension}, similarity.Input{Name: "minimum head", Value: lim.MinHead, Dim: quantity.Length})); err != nil {
 		return nil, err
 	}
 	for _, l := range []struct {
@@ -117,7 +117,7 @@ func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLi
 	}
 	re := v.Value() * h.Value() / nu.Value()
 	we := rho.Value() * v.Value() * v.Value() * h.Value() / sigma.Value()
-	if err := checkResults("scale-effect check", true, result{"Reynolds number V·h/ν", re}, result{"Weber number ρV²h/σ", we}); err != nil {
+	if err := fail("scale-effect check", similarity.CheckResults(true, similarity.Result{Name: "Reynolds number V·h/ν", Value: re}, similarity.Result{Name: "Weber number ρV²h/σ", Value: we})); err != nil {
 		return nil, err
 	}
 	return []ScaleCheck{
@@ -130,12 +130,12 @@ func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLi
 // CrestRadiusCheck checks a model's round-crest radius against the
 // limits' MinCrestRadius (zero: any positive radius passes).
 func CrestRadiusCheck(radius quantity.Quantity, lim FreeSurfaceLimits) (ScaleCheck, error) {
-	if err := checkInputs("crest radius check", true, input{"crest radius", radius, quantity.Length}); err != nil {
+	if err := fail("crest radius check", similarity.CheckInputs(true, similarity.Input{Name: "crest radius", Value: radius, Dim: quantity.Length})); err != nil {
 		return ScaleCheck{}, err
 	}
 	lo := 0.0
 	if lim.MinCrestRadius != (quantity.Quantity{}) {
-		if err := checkInputs("crest radius check", false, input{"minimum crest radius", lim.MinCrestRadius, quantity.Length}); err != nil {
+		if err := fail("crest radius check", similarity.CheckInputs(false, similarity.Input{Name: "minimum crest radius", Value: lim.MinCrestRadius, Dim: quantity.Length})); err != nil {
 			return ScaleCheck{}, err
 		}
 		lo = lim.MinCrestRadius.Value()
@@ -162,14 +162,13 @@ type ShieldsInput struct {
 // a model grain's Re* is in the viscous range.
 func Shields(in ShieldsInput) (theta, reStar float64, err error) {
 	tau, rhoS, rho, d, nu := in.BedShearStress, in.GrainDensity, in.WaterDensity, in.GrainDiameter, in.KinematicViscosity
-	g, err := gravityOr("Shields parameter", in.Gravity)
-	if err != nil {
-		return 0, 0, err
+	g, bad := similarity.GravityOr(in.Gravity)
+	if bad != nil {
+		return 0, 0, fail("Shields parameter", bad)
 	}
-	if err := checkInputs("Shields parameter", true,
-		input{"bed shear stress", tau, quantity.Pressure}, input{"grain density", rhoS, quantity.Density}, input{"water density", rho, quantity.Density},
-		input{"grain diameter", d, quantity.Length}, input{"kinematic viscosity", nu, quantity.KinematicViscosity}, input{"gravity", g, quantity.Acceleration},
-	); err != nil {
+	if err := fail("Shields parameter", similarity.CheckInputs(true,
+		similarity.Input{Name: "bed shear stress", Value: tau, Dim: quantity.Pressure}, similarity.Input{Name: "grain density", Value: rhoS, Dim: quantity.Density}, similarity.Input{Name: "water density", Value: rho, Dim: quantity.Density},
+		similarity.Input{Name: "grain diameter", Value: d, Dim: quantity.Length}, similarity.Input{Name: "kinematic viscosity", Value: nu, Dim: quantity.KinematicViscosity}, similarity.Input{Name: "gravity", Value: g, Dim: quantity.Acceleration})); err != nil {
 		return 0, 0, err
 	}
 	if !(rhoS.Value() > rho.Value()) {
@@ -177,7 +176,7 @@ func Shields(in ShieldsInput) (theta, reStar float64, err error) {
 	}
 	theta = tau.Value() / ((rhoS.Value() - rho.Value()) * g.Value() * d.Value())
 	reStar = math.Sqrt(tau.Value()/rho.Value()) * d.Value() / nu.Value()
-	if err := checkResults("Shields parameter", true, result{"Shields parameter θ", theta}, result{"particle Reynolds number Re*", reStar}); err != nil {
+	if err := fail("Shields parameter", similarity.CheckResults(true, similarity.Result{Name: "Shields parameter θ", Value: theta}, similarity.Result{Name: "particle Reynolds number Re*", Value: reStar})); err != nil {
 		return 0, 0, err
 	}
 	return theta, reStar, nil
@@ -223,7 +222,7 @@ func SedimentFor(r SedimentRatios) (SedimentScales, error) {
 	s.Grain = s.Shear / deltaRatio
 	s.ReStar = math.Sqrt(s.Shear) * s.Grain / nuRatio
 	s.Exaggerated = lengthH != lengthV
-	if err := checkResults("sediment scales", true, result{"bed shear ratio", s.Shear}, result{"grain ratio", s.Grain}, result{"particle Reynolds ratio", s.ReStar}); err != nil {
+	if err := fail("sediment scales", similarity.CheckResults(true, similarity.Result{Name: "bed shear ratio", Value: s.Shear}, similarity.Result{Name: "grain ratio", Value: s.Grain}, similarity.Result{Name: "particle Reynolds ratio", Value: s.ReStar})); err != nil {
 		return SedimentScales{}, err
 	}
 	return s, nil
@@ -280,7 +279,7 @@ func ModelManningCheck(protoN, nRatio float64) (ScaleCheck, error) {
 		return ScaleCheck{}, m(fmt.Sprintf("Manning ratio %v: want positive and finite", nRatio))
 	}
 	n := protoN * nRatio
-	if err := checkResults("model roughness check", true, result{"model Manning n", n}); err != nil {
+	if err := fail("model roughness check", similarity.CheckResults(true, similarity.Result{Name: "model Manning n", Value: n})); err != nil {
 		return ScaleCheck{}, err
 	}
 	c := ScaleCheck{Name: "model Manning n", Value: n, Limit: SmoothestModelManning, Unit: "s·m^(−1/3)",

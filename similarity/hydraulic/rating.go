@@ -167,11 +167,11 @@ func FitRating(in RatingInput) (*Rating, error) {
 	if n > fit.MaxRows {
 		return nil, invalid(op, "head", fmt.Sprintf("%d points, more than %d", n, fit.MaxRows))
 	}
-	g, err := gravityOr(op, in.Gravity)
-	if err != nil {
-		return nil, asError(op, "gravity", err)
+	g, bad := similarity.GravityOr(in.Gravity)
+	if bad != nil {
+		return nil, asError(op, "gravity", fail(op, bad))
 	}
-	if err := checkInputs(op, true, input{"crest length", in.CrestLength, quantity.Length}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "crest length", Value: in.CrestLength, Dim: quantity.Length})); err != nil {
 		return nil, asError(op, "crest length", err)
 	}
 	if err := checkRatios(op, "length", in.LengthRatio); err != nil {
@@ -220,8 +220,8 @@ func FitRating(in RatingInput) (*Rating, error) {
 		p := RatingPoint{Head: h, Discharge: q}
 		p.WeirCoefficient = q / (weir * h * math.Sqrt(h))
 		p.Velocity = math.Cbrt(gv * q / b)
-		if err := checkResults(op, true, result{fmt.Sprintf("weir coefficient at point %d", i), p.WeirCoefficient},
-			result{fmt.Sprintf("critical velocity at point %d", i), p.Velocity}); err != nil {
+		if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: fmt.Sprintf("weir coefficient at point %d", i), Value: p.WeirCoefficient},
+			similarity.Result{Name: fmt.Sprintf("critical velocity at point %d", i), Value: p.Velocity})); err != nil {
 			return nil, err
 		}
 		cs, err := FreeSurfaceChecks(quantity.New(p.Velocity, quantity.Velocity), in.Head.At(i), in.KinematicViscosity, in.Density, in.SurfaceTension, lim)
@@ -276,14 +276,14 @@ func FitRating(in RatingInput) (*Rating, error) {
 		r.HeadMin, r.HeadMax = min(r.HeadMin, r.Points[i].Head), max(r.HeadMax, r.Points[i].Head)
 	}
 	r.ProtoC = r.C * math.Pow(r.LengthRatio, r.N) / r.DischargeRatio
-	if err := checkResults(op, true, result{"coefficient C", r.C}, result{"lower bound of C", r.CInterval[0]}, result{"upper bound of C", r.CInterval[1]},
-		result{"weir coefficient C_d", r.WeirCoefficient}, result{"lower bound of C_d", r.WeirCoefficientInterval[0]},
-		result{"upper bound of C_d", r.WeirCoefficientInterval[1]}, result{"prototype coefficient C_p", r.ProtoC},
-		result{"highest head", r.HeadMax}, result{"lowest head", r.HeadMin}); err != nil {
+	if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: "coefficient C", Value: r.C}, similarity.Result{Name: "lower bound of C", Value: r.CInterval[0]}, similarity.Result{Name: "upper bound of C", Value: r.CInterval[1]},
+		similarity.Result{Name: "weir coefficient C_d", Value: r.WeirCoefficient}, similarity.Result{Name: "lower bound of C_d", Value: r.WeirCoefficientInterval[0]},
+		similarity.Result{Name: "upper bound of C_d", Value: r.WeirCoefficientInterval[1]}, similarity.Result{Name: "prototype coefficient C_p", Value: r.ProtoC},
+		similarity.Result{Name: "highest head", Value: r.HeadMax}, similarity.Result{Name: "lowest head", Value: r.HeadMin})); err != nil {
 		return nil, err
 	}
-	if err := checkResults(op, false, result{"exponent n", r.N}, result{"lower bound of n", r.NInterval[0]}, result{"upper bound of n", r.NInterval[1]},
-		result{"standard error of n", r.NStdErr}, result{"standard error of ln C", r.LnCStdErr}, result{"residual standard deviation", r.S}); err != nil {
+	if err := fail(op, similarity.CheckResults(false, similarity.Result{Name: "exponent n", Value: r.N}, similarity.Result{Name: "lower bound of n", Value: r.NInterval[0]}, similarity.Result{Name: "upper bound of n", Value: r.NInterval[1]},
+		similarity.Result{Name: "standard error of n", Value: r.NStdErr}, similarity.Result{Name: "standard error of ln C", Value: r.LnCStdErr}, similarity.Result{Name: "residual standard deviation", Value: r.S})); err != nil {
 		return nil, err
 	}
 	for k, row := range f.Rows {
@@ -339,11 +339,11 @@ func (r *Rating) ProtoHeadRange() (lo, hi float64) {
 }
 
 func (r *Rating) at(op string, h quantity.Quantity, lambdaL, lambdaQ float64, outside bool) (RatingValue, error) {
-	if err := checkInputs(op, true, input{"head", h, quantity.Length}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "head", Value: h, Dim: quantity.Length})); err != nil {
 		return RatingValue{}, asError(op, "head", err)
 	}
 	hm := h.Value() * lambdaL
-	if err := checkResults(op, true, result{"model head", hm}); err != nil {
+	if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: "model head", Value: hm})); err != nil {
 		return RatingValue{}, err
 	}
 	if !outside && (hm < r.HeadMin*(1-1e-12) || hm > r.HeadMax*(1+1e-12)) {
@@ -374,11 +374,11 @@ func (r *Rating) at(op string, h quantity.Quantity, lambdaL, lambdaQ float64, ou
 		v.Band[k] = quantity.New(qv(pr.Mean[k]), quantity.VolumeFlowRate)
 		v.New[k] = quantity.New(qv(pr.New[k]), quantity.VolumeFlowRate)
 	}
-	if err := checkResults(op, true, result{"discharge", v.Discharge.Value()}, result{"lower band", v.Band[0].Value()}, result{"upper band", v.Band[1].Value()},
-		result{"lower prediction bound", v.New[0].Value()}, result{"upper prediction bound", v.New[1].Value()}); err != nil {
+	if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: "discharge", Value: v.Discharge.Value()}, similarity.Result{Name: "lower band", Value: v.Band[0].Value()}, similarity.Result{Name: "upper band", Value: v.Band[1].Value()},
+		similarity.Result{Name: "lower prediction bound", Value: v.New[0].Value()}, similarity.Result{Name: "upper prediction bound", Value: v.New[1].Value()})); err != nil {
 		return RatingValue{}, err
 	}
-	if err := checkResults(op, false, result{"relative uncertainty", v.RelU}); err != nil {
+	if err := fail(op, similarity.CheckResults(false, similarity.Result{Name: "relative uncertainty", Value: v.RelU})); err != nil {
 		return RatingValue{}, err
 	}
 	return v, nil

@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 )
 
 // TankSection is the rectangular cross-section of a towing tank: its
@@ -70,14 +71,13 @@ type BlockageCorrection struct {
 // corrected speed; HullTest.WithBlockage does so for every run.
 func TankBlockage(tank TankSection, ax, v, g quantity.Quantity) (BlockageCorrection, error) {
 	const method = "tank blockage correction"
-	g, err := gravityOr(method, g)
-	if err != nil {
-		return BlockageCorrection{}, err
+	g, bad := similarity.GravityOr(g)
+	if bad != nil {
+		return BlockageCorrection{}, fail(method, bad)
 	}
-	if err := checkInputs(method, true,
-		input{"tank width", tank.Width, quantity.Length}, input{"tank depth", tank.Depth, quantity.Length},
-		input{"model section", ax, quantity.Area}, input{"speed", v, quantity.Velocity},
-	); err != nil {
+	if err := fail(method, similarity.CheckInputs(true,
+		similarity.Input{Name: "tank width", Value: tank.Width, Dim: quantity.Length}, similarity.Input{Name: "tank depth", Value: tank.Depth, Dim: quantity.Length},
+		similarity.Input{Name: "model section", Value: ax, Dim: quantity.Area}, similarity.Input{Name: "speed", Value: v, Dim: quantity.Velocity})); err != nil {
 		return BlockageCorrection{}, err
 	}
 	h := tank.Depth.Value()

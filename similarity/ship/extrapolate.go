@@ -7,6 +7,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/uncertain"
+	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -110,16 +111,15 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 	if len(t.Speeds) == 0 || len(t.Speeds) != len(t.Resistances) {
 		return nil, m(fmt.Sprintf("%d speeds and %d resistances", len(t.Speeds), len(t.Resistances)))
 	}
-	if err := checkInputs("hull extrapolation", true,
-		input{"model length", t.ModelLength, quantity.Length}, input{"model wetted area", t.ModelWettedArea, quantity.Area},
-		input{"tank density", t.Tank.Density, quantity.Density}, input{"tank viscosity", t.Tank.KinematicViscosity, quantity.KinematicViscosity},
-		input{"sea density", t.Sea.Density, quantity.Density}, input{"sea viscosity", t.Sea.KinematicViscosity, quantity.KinematicViscosity},
-	); err != nil {
+	if err := fail("hull extrapolation", similarity.CheckInputs(true,
+		similarity.Input{Name: "model length", Value: t.ModelLength, Dim: quantity.Length}, similarity.Input{Name: "model wetted area", Value: t.ModelWettedArea, Dim: quantity.Area},
+		similarity.Input{Name: "tank density", Value: t.Tank.Density, Dim: quantity.Density}, similarity.Input{Name: "tank viscosity", Value: t.Tank.KinematicViscosity, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "sea density", Value: t.Sea.Density, Dim: quantity.Density}, similarity.Input{Name: "sea viscosity", Value: t.Sea.KinematicViscosity, Dim: quantity.KinematicViscosity})); err != nil {
 		return nil, err
 	}
-	g, err := gravityOr("hull extrapolation", t.Gravity)
-	if err != nil {
-		return nil, err
+	g, bad := similarity.GravityOr(t.Gravity)
+	if bad != nil {
+		return nil, fail("hull extrapolation", bad)
 	}
 	k1 := t.FormFactor
 	if k1 == 0 {

@@ -8,6 +8,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/uncertain"
+	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -193,16 +194,14 @@ func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
 		return HullRunResult{}, m(fmt.Sprintf("scale %v: want model/ship between 0 and 1", r.Scale))
 	}
 	const method = "hull extrapolation with uncertainty"
-	if err := checkInputs(method, true,
-		input{"model length", r.ModelLength.Quantity(), quantity.Length}, input{"model wetted area", r.ModelWettedArea.Quantity(), quantity.Area},
-		input{"model speed", r.ModelSpeed.Quantity(), quantity.Velocity}, input{"model resistance", r.ModelResistance.Quantity(), quantity.Force},
-		input{"tank temperature", r.TankTemperature.Quantity(), quantity.Temperature}, input{"sea temperature", r.SeaTemperature.Quantity(), quantity.Temperature},
-	); err != nil {
+	if err := fail(method, similarity.CheckInputs(true,
+		similarity.Input{Name: "model length", Value: r.ModelLength.Quantity(), Dim: quantity.Length}, similarity.Input{Name: "model wetted area", Value: r.ModelWettedArea.Quantity(), Dim: quantity.Area},
+		similarity.Input{Name: "model speed", Value: r.ModelSpeed.Quantity(), Dim: quantity.Velocity}, similarity.Input{Name: "model resistance", Value: r.ModelResistance.Quantity(), Dim: quantity.Force},
+		similarity.Input{Name: "tank temperature", Value: r.TankTemperature.Quantity(), Dim: quantity.Temperature}, similarity.Input{Name: "sea temperature", Value: r.SeaTemperature.Quantity(), Dim: quantity.Temperature})); err != nil {
 		return HullRunResult{}, err
 	}
-	if err := checkInputs(method, false,
-		input{"form factor", r.FormFactor.Quantity(), quantity.Dimensionless}, input{"allowance", r.Allowance.Quantity(), quantity.Dimensionless},
-	); err != nil {
+	if err := fail(method, similarity.CheckInputs(false,
+		similarity.Input{Name: "form factor", Value: r.FormFactor.Quantity(), Dim: quantity.Dimensionless}, similarity.Input{Name: "allowance", Value: r.Allowance.Quantity(), Dim: quantity.Dimensionless})); err != nil {
 		return HullRunResult{}, err
 	}
 	if r.FormFactor.Value() == 0 && r.FormFactor.Set() == nil {
@@ -211,11 +210,12 @@ func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
 	if k := r.FormFactor.Value(); !(k >= 1 && k <= 2) {
 		return HullRunResult{}, m(fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", k))
 	}
-	g, err := gravityOr("hull run", r.Gravity)
-	if err != nil {
-		return HullRunResult{}, err
+	g, bad := similarity.GravityOr(r.Gravity)
+	if bad != nil {
+		return HullRunResult{}, fail("hull run", bad)
 	}
 	var res HullRunResult
+	var err error
 	if res.TankDensity, res.TankViscosity, err = water(r.Tank, r.TankTemperature); err != nil {
 		return HullRunResult{}, wrap(method, "tank temperature", "tank water", err)
 	}

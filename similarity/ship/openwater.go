@@ -8,6 +8,7 @@ import (
 	"similis.dev/similis/internal/roots"
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
+	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -94,8 +95,8 @@ type OpenWaterFit struct {
 // (PropellerGeometry.ModelReynolds).
 func PropellerReynolds(chord, speed quantity.Quantity, revsPerSecond float64, diameter quantity.Quantity, x float64, nu quantity.Quantity) (float64, error) {
 	const op = "propeller Reynolds number"
-	if err := checkInputs(op, true, input{"chord", chord, quantity.Length}, input{"diameter", diameter, quantity.Length},
-		input{"kinematic viscosity", nu, quantity.KinematicViscosity}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "chord", Value: chord, Dim: quantity.Length}, similarity.Input{Name: "diameter", Value: diameter, Dim: quantity.Length},
+		similarity.Input{Name: "kinematic viscosity", Value: nu, Dim: quantity.KinematicViscosity})); err != nil {
 		return 0, err
 	}
 	if err := speed.CheckNamed("advance speed", quantity.Velocity); err != nil {
@@ -112,7 +113,7 @@ func PropellerReynolds(chord, speed quantity.Quantity, revsPerSecond float64, di
 	}
 	u := x * math.Pi * revsPerSecond * diameter.Value()
 	re := chord.Value() * math.Hypot(speed.Value(), u) / nu.Value()
-	if err := checkResults(op, true, result{"Reynolds number", re}); err != nil {
+	if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: "Reynolds number", Value: re})); err != nil {
 		return 0, err
 	}
 	return re, nil
@@ -132,8 +133,8 @@ const MinOpenWaterRuns = 5
 // stated in Warning.
 func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 	const op = "open-water test"
-	if err := checkInputs(op, true, input{"propeller diameter", t.Diameter, quantity.Length}, input{"chord at 0.7R", t.Chord, quantity.Length},
-		input{"water density", t.Water.Density, quantity.Density}, input{"water viscosity", t.Water.KinematicViscosity, quantity.KinematicViscosity}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "propeller diameter", Value: t.Diameter, Dim: quantity.Length}, similarity.Input{Name: "chord at 0.7R", Value: t.Chord, Dim: quantity.Length},
+		similarity.Input{Name: "water density", Value: t.Water.Density, Dim: quantity.Density}, similarity.Input{Name: "water viscosity", Value: t.Water.KinematicViscosity, Dim: quantity.KinematicViscosity})); err != nil {
 		return nil, err
 	}
 	if len(t.Runs) < MinOpenWaterRuns || len(t.Runs) > fit.MaxRows {
@@ -146,12 +147,12 @@ func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 	f := &OpenWaterFit{MinReynolds: math.Inf(1)}
 	for i, r := range t.Runs {
 		name := fmt.Sprintf("run %d", i)
-		for _, c := range []input{{name + ": advance speed", r.Speed, quantity.Velocity}, {name + ": thrust", r.Thrust, quantity.Force}, {name + ": torque", r.Torque, quantity.Torque}} {
-			if err := c.q.CheckNamed(c.name, c.d); err != nil {
+		for _, c := range []similarity.Input{{Name: name + ": advance speed", Value: r.Speed, Dim: quantity.Velocity}, {Name: name + ": thrust", Value: r.Thrust, Dim: quantity.Force}, {Name: name + ": torque", Value: r.Torque, Dim: quantity.Torque}} {
+			if err := c.Value.CheckNamed(c.Name, c.Dim); err != nil {
 				return nil, err
 			}
-			if v := c.q.Value(); math.IsNaN(v) || math.IsInf(v, 0) {
-				return nil, invalid(op, c.name, fmt.Sprintf("%s = %v: not a finite number (a missing value?)", c.name, v))
+			if v := c.Value.Value(); math.IsNaN(v) || math.IsInf(v, 0) {
+				return nil, invalid(op, c.Name, fmt.Sprintf("%s = %v: not a finite number (a missing value?)", c.Name, v))
 			}
 		}
 		va, n, th, q := r.Speed.Value(), r.RevsPerSecond, r.Thrust.Value(), r.Torque.Value()

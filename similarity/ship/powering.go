@@ -9,6 +9,7 @@ import (
 
 	"similis.dev/similis/internal/roots"
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
 	"similis.dev/similis/units"
 )
@@ -191,13 +192,13 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	if !(in.Scale > 0 && in.Scale < 1) {
 		return PoweringResult{}, m(fmt.Sprintf("scale %v: want model/ship between 0 and 1", in.Scale))
 	}
-	if err := checkInputs("ITTC-1978 prediction", true,
-		input{"model length", in.ModelLength, quantity.Length}, input{"model wetted area", in.ModelWettedArea, quantity.Area},
-		input{"model speed", in.ModelSpeed, quantity.Velocity}, input{"model resistance", in.ModelResistance, quantity.Force},
-		input{"tank density", in.Tank.Density, quantity.Density}, input{"tank viscosity", in.Tank.KinematicViscosity, quantity.KinematicViscosity},
-		input{"sea density", in.Sea.Density, quantity.Density}, input{"sea viscosity", in.Sea.KinematicViscosity, quantity.KinematicViscosity},
-		input{"propeller diameter", in.Propeller.Diameter, quantity.Length}, input{"propeller chord", in.Propeller.Chord, quantity.Length},
-	); err != nil {
+	if err := fail("ITTC-1978 prediction", similarity.CheckInputs(true,
+		similarity.Input{Name: "model length", Value: in.ModelLength, Dim: quantity.Length}, similarity.Input{Name: "model wetted area", Value: in.ModelWettedArea, Dim: quantity.Area},
+		similarity.Input{Name: "model speed", Value: in.ModelSpeed, Dim: quantity.Velocity}, similarity.Input{Name: "model resistance", Value: in.ModelResistance, Dim: quantity.Force},
+		similarity.Input{Name: "tank density", Value: in.Tank.Density, Dim: quantity.Density}, similarity.Input{Name: "tank viscosity", Value: in.Tank.KinematicViscosity, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "sea density", Value: in.Sea.Density, Dim: quantity.Density}, similarity.Input{Name: "sea viscosity", Value: in.Sea.KinematicViscosity, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "propeller diameter", Value: in.Propeller.Diameter, Dim: quantity.Length}, similarity.Input{Name: "propeller chord", Value: in.Propeller.Chord, Dim: quantity.Length},
+	)); err != nil {
 		return PoweringResult{}, err
 	}
 	const method = "ITTC-1978 prediction"
@@ -212,9 +213,9 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 		{&rhoA, "air density", in.AirDensity, quantity.New(1.225, quantity.Density)},
 		{&g, "gravity", in.Gravity, units.StandardGravity()},
 	} {
-		v, err := orDefault(method, d.name, d.given, d.def)
-		if err != nil {
-			return PoweringResult{}, err
+		v, bad := similarity.OrDefault(d.name, d.given, d.def)
+		if bad != nil {
+			return PoweringResult{}, fail(method, bad)
 		}
 		*d.dst = v.Value()
 	}

@@ -7,6 +7,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
+	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -31,8 +32,8 @@ type ResistanceFit struct {
 // the choice is stated in CT.Notes.
 func FairResistance(test HullTest, order int) (*ResistanceFit, error) {
 	const op = "resistance fairing"
-	if err := checkInputs(op, true, input{"model wetted area", test.ModelWettedArea, quantity.Area},
-		input{"tank density", test.Tank.Density, quantity.Density}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "model wetted area", Value: test.ModelWettedArea, Dim: quantity.Area},
+		similarity.Input{Name: "tank density", Value: test.Tank.Density, Dim: quantity.Density})); err != nil {
 		return nil, err
 	}
 	n := len(test.Speeds)
@@ -49,12 +50,12 @@ func FairResistance(test HullTest, order int) (*ResistanceFit, error) {
 	v, ct := make([]float64, n), make([]float64, n)
 	for i := range n {
 		name := fmt.Sprintf("run %d", i)
-		if err := checkInputs(op, true, input{name + ": speed", test.Speeds[i], quantity.Velocity}, input{name + ": resistance", test.Resistances[i], quantity.Force}); err != nil {
+		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: name + ": speed", Value: test.Speeds[i], Dim: quantity.Velocity}, similarity.Input{Name: name + ": resistance", Value: test.Resistances[i], Dim: quantity.Force})); err != nil {
 			return nil, err
 		}
 		v[i] = test.Speeds[i].Value()
 		ct[i] = test.Resistances[i].Value() / (0.5 * r.Density * v[i] * v[i] * r.WettedArea)
-		if err := checkResults(op, true, result{name + ": C_TM", ct[i]}); err != nil {
+		if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: name + ": C_TM", Value: ct[i]})); err != nil {
 			return nil, err
 		}
 	}
@@ -134,11 +135,11 @@ func SkinFrictionCorrection(in PoweringInput) (SkinFriction, error) {
 	if !(in.Scale > 0 && in.Scale < 1) {
 		return SkinFriction{}, invalid(op, "scale", fmt.Sprintf("scale %v: want model/ship between 0 and 1", in.Scale))
 	}
-	if err := checkInputs(op, true,
-		input{"model length", in.ModelLength, quantity.Length}, input{"model wetted area", in.ModelWettedArea, quantity.Area},
-		input{"model speed", in.ModelSpeed, quantity.Velocity},
-		input{"tank density", in.Tank.Density, quantity.Density}, input{"tank viscosity", in.Tank.KinematicViscosity, quantity.KinematicViscosity},
-		input{"sea viscosity", in.Sea.KinematicViscosity, quantity.KinematicViscosity}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true,
+		similarity.Input{Name: "model length", Value: in.ModelLength, Dim: quantity.Length}, similarity.Input{Name: "model wetted area", Value: in.ModelWettedArea, Dim: quantity.Area},
+		similarity.Input{Name: "model speed", Value: in.ModelSpeed, Dim: quantity.Velocity},
+		similarity.Input{Name: "tank density", Value: in.Tank.Density, Dim: quantity.Density}, similarity.Input{Name: "tank viscosity", Value: in.Tank.KinematicViscosity, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "sea viscosity", Value: in.Sea.KinematicViscosity, Dim: quantity.KinematicViscosity})); err != nil {
 		return SkinFriction{}, err
 	}
 	k1 := in.FormFactor
@@ -148,13 +149,14 @@ func SkinFrictionCorrection(in PoweringInput) (SkinFriction, error) {
 	if !(math.Abs(in.CorrelationAllowance) <= 0.005) || (in.ZeroCorrelationAllowance && in.CorrelationAllowance != 0) {
 		return SkinFriction{}, invalid(op, "correlation allowance C_A", fmt.Sprintf("C_A = %v: want a finite value within ±0.005, and zero with ZeroCorrelationAllowance", in.CorrelationAllowance))
 	}
-	ksq, err := orDefault(op, "hull roughness", in.HullRoughness, quantity.New(150e-6, quantity.Length))
-	if err != nil {
-		return SkinFriction{}, err
+	ksq, bad := similarity.OrDefault("hull roughness", in.HullRoughness, quantity.New(150e-6, quantity.Length))
+	if bad != nil {
+		return SkinFriction{}, fail(op, bad)
 	}
 	lm, sm, vm := in.ModelLength.Value(), in.ModelWettedArea.Value(), in.ModelSpeed.Value()
 	ls, vs := lm/in.Scale, vm/math.Sqrt(in.Scale)
 	var s SkinFriction
+	var err error
 	s.ModelReynolds = vm * lm / in.Tank.KinematicViscosity.Value()
 	s.ShipReynolds = vs * ls / in.Sea.KinematicViscosity.Value()
 	if s.ModelCF, err = LineITTC1957.CF(s.ModelReynolds); err != nil {
@@ -172,7 +174,7 @@ func SkinFrictionCorrection(in PoweringInput) (SkinFriction, error) {
 		s.CorrelationAllowance = in.CorrelationAllowance
 	}
 	fd := 0.5 * in.Tank.Density.Value() * vm * vm * sm * (k1*(s.ModelCF-s.ShipCF) - s.RoughnessAllowance - s.CorrelationAllowance)
-	if err := checkResults(op, false, result{"skin-friction correction force", fd}); err != nil {
+	if err := fail(op, similarity.CheckResults(false, similarity.Result{Name: "skin-friction correction force", Value: fd})); err != nil {
 		return SkinFriction{}, err
 	}
 	s.Force = quantity.New(fd, quantity.Force)
@@ -246,7 +248,7 @@ type SelfPropulsionPoint struct {
 // 0.5 < η_R < 1.5 are refused with an *Error naming the run.
 func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) {
 	const op = "self-propulsion analysis"
-	if err := checkInputs(op, true, input{"propeller diameter", t.Diameter, quantity.Length}, input{"water density", t.Water.Density, quantity.Density}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "propeller diameter", Value: t.Diameter, Dim: quantity.Length}, similarity.Input{Name: "water density", Value: t.Water.Density, Dim: quantity.Density})); err != nil {
 		return nil, err
 	}
 	if t.OpenWater == nil || t.OpenWater.KT == nil || t.OpenWater.KQ == nil {
@@ -266,8 +268,8 @@ func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) 
 	out := make([]SelfPropulsionPoint, 0, len(t.Runs))
 	for i, r := range t.Runs {
 		name := fmt.Sprintf("run %d", i)
-		if err := checkInputs(op, true, input{name + ": model speed", r.ModelSpeed, quantity.Velocity},
-			input{name + ": thrust", r.Thrust, quantity.Force}, input{name + ": torque", r.Torque, quantity.Torque}); err != nil {
+		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: name + ": model speed", Value: r.ModelSpeed, Dim: quantity.Velocity},
+			similarity.Input{Name: name + ": thrust", Value: r.Thrust, Dim: quantity.Force}, similarity.Input{Name: name + ": torque", Value: r.Torque, Dim: quantity.Torque})); err != nil {
 			return nil, err
 		}
 		if err := r.TowingForce.CheckNamed(name+": towing force", quantity.Force); err != nil {
@@ -282,7 +284,7 @@ func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) 
 		}
 		p := SelfPropulsionPoint{ModelSpeed: r.ModelSpeed.Value(), RevsPerSecond: n, TowingForce: r.TowingForce.Value()}
 		if r.Resistance != (quantity.Quantity{}) {
-			if err := checkInputs(op, true, input{name + ": resistance", r.Resistance, quantity.Force}); err != nil {
+			if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: name + ": resistance", Value: r.Resistance, Dim: quantity.Force})); err != nil {
 				return nil, err
 			}
 			p.Resistance = r.Resistance.Value()
@@ -299,7 +301,7 @@ func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) 
 		th, q := r.Thrust.Value(), r.Torque.Value()
 		p.KT = th / (rho * n * n * d * d * d * d)
 		p.KQ = q / (rho * n * n * d * d * d * d * d)
-		if err := checkResults(op, true, result{name + ": K_TM", p.KT}, result{name + ": K_QM", p.KQ}); err != nil {
+		if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: name + ": K_TM", Value: p.KT}, similarity.Result{Name: name + ": K_QM", Value: p.KQ})); err != nil {
 			return nil, err
 		}
 		j, err := t.OpenWater.JForKT(p.KT)

@@ -9,6 +9,7 @@ import (
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
 	"similis.dev/similis/quantity/uncertain"
+	"similis.dev/similis/similarity"
 )
 
 // SpeedPowerInput is what a speed–power prediction needs: the ship and
@@ -117,7 +118,7 @@ func PredictSpeedPower(in SpeedPowerInput) (*SpeedPower, error) {
 	vms := make([]float64, len(in.ShipSpeeds))
 	for i, v := range in.ShipSpeeds {
 		name := fmt.Sprintf("ship speed %d", i)
-		if err := checkInputs(op, true, input{name, v, quantity.Velocity}); err != nil {
+		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: name, Value: v, Dim: quantity.Velocity})); err != nil {
 			return nil, err
 		}
 		vm := v.Value() * math.Sqrt(in.Base.Scale)
@@ -192,13 +193,12 @@ func predictChain(base PoweringInput, res *ResistanceFit, ow *OpenWaterFit, facs
 // combined with each fit's covariance.
 func band(pt *SpeedPowerPoint, base PoweringInput, sp SelfPropulsionTest, orders [3]int, facs [3]*fit.Poly, vm, level float64) error {
 	type source struct {
-		p       *fit.Poly
-		eval    func(k int, h float64) (PoweringResult, error)
-		varP    float64
-		varN    float64
-		dof     float64
-		gp, gn  []float64
-		touched bool
+		p      *fit.Poly
+		eval   func(k int, h float64) (PoweringResult, error)
+		varP   float64
+		varN   float64
+		dof    float64
+		gp, gn []float64
 	}
 	chainWith := func(s SelfPropulsionTest) (PoweringResult, error) {
 		_, _, f, err := factors(s, &orders)

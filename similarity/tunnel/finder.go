@@ -6,6 +6,7 @@ import (
 
 	"similis.dev/similis/internal/roots"
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -311,7 +312,7 @@ func (c *Condition) caution(gas fluids.IdealGas, lim Limits) error {
 	}
 	rated, area := lim.RatedLoad, lim.LoadArea
 	if area != (quantity.Quantity{}) {
-		if err := checkInputs("tunnel condition finder", true, input{"load area C·S", area, quantity.Area}); err != nil {
+		if err := fail("tunnel condition finder", similarity.CheckInputs(true, similarity.Input{Name: "load area C·S", Value: area, Dim: quantity.Area})); err != nil {
 			return err
 		}
 		c.Load = c.Q.Mul(area)
@@ -321,7 +322,7 @@ func (c *Condition) caution(gas fluids.IdealGas, lim Limits) error {
 	}
 	switch {
 	case rated != (quantity.Quantity{}):
-		if err := checkInputs("tunnel condition finder", true, input{"rated load", rated, quantity.Force}); err != nil {
+		if err := fail("tunnel condition finder", similarity.CheckInputs(true, similarity.Input{Name: "rated load", Value: rated, Dim: quantity.Force})); err != nil {
 			return err
 		}
 		if area == (quantity.Quantity{}) {

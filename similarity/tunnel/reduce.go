@@ -6,6 +6,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
+	"similis.dev/similis/similarity"
 )
 
 // Reference is the model's reference geometry for its coefficients: the
@@ -27,15 +28,15 @@ type Coefficients struct {
 // and the reference geometry.
 func (a AxisLoads) Coefficients(q quantity.Quantity, ref Reference) (Coefficients, error) {
 	const op = "coefficients"
-	if err := checkInputs(op, true, input{"dynamic pressure", q, quantity.Pressure}, input{"reference area", ref.Area, quantity.Area},
-		input{"span", ref.Span, quantity.Length}, input{"mean aerodynamic chord", ref.Chord, quantity.Length}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "dynamic pressure", Value: q, Dim: quantity.Pressure}, similarity.Input{Name: "reference area", Value: ref.Area, Dim: quantity.Area},
+		similarity.Input{Name: "span", Value: ref.Span, Dim: quantity.Length}, similarity.Input{Name: "mean aerodynamic chord", Value: ref.Chord, Dim: quantity.Length})); err != nil {
 		return Coefficients{}, err
 	}
 	qs := q.Value() * ref.Area.Value()
 	c := Coefficients{CD: a.Drag / qs, CY: a.Side / qs, CL: a.Lift / qs,
 		Cl: a.Roll / (qs * ref.Span.Value()), Cm: a.Pitch / (qs * ref.Chord.Value()), Cn: a.Yaw / (qs * ref.Span.Value())}
-	if err := checkResults(op, false, result{"C_D", c.CD}, result{"C_Y", c.CY}, result{"C_L", c.CL},
-		result{"C_l", c.Cl}, result{"C_m", c.Cm}, result{"C_n", c.Cn}); err != nil {
+	if err := fail(op, similarity.CheckResults(false, similarity.Result{Name: "C_D", Value: c.CD}, similarity.Result{Name: "C_Y", Value: c.CY}, similarity.Result{Name: "C_L", Value: c.CL},
+		similarity.Result{Name: "C_l", Value: c.Cl}, similarity.Result{Name: "C_m", Value: c.Cm}, similarity.Result{Name: "C_n", Value: c.Cn})); err != nil {
 		return Coefficients{}, err
 	}
 	return c, nil

@@ -6,6 +6,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
+	"similis.dev/similis/similarity"
 )
 
 // Grade is an acceptance grade of ISO 9906:2012: 1U, 1E and 1B the
@@ -175,12 +176,12 @@ func CheckGuarantee(c PumpCurves, g Guarantee, grade Grade) (Verdict, error) {
 	if c.Head == nil || c.Power == nil || c.Efficiency == nil {
 		return Verdict{}, invalid(op, "curves", "the Q–H, Q–P and Q–η curves must all be fitted (FitPumpCurves)")
 	}
-	if err := checkInputs(op, true, input{"guarantee flow", g.Flow, quantity.VolumeFlowRate}, input{"guarantee head", g.Head, quantity.Length}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "guarantee flow", Value: g.Flow, Dim: quantity.VolumeFlowRate}, similarity.Input{Name: "guarantee head", Value: g.Head, Dim: quantity.Length})); err != nil {
 		return Verdict{}, err
 	}
 	powerGiven := g.Power != (quantity.Quantity{})
 	if powerGiven {
-		if err := checkInputs(op, true, input{"guarantee power", g.Power, quantity.Power}); err != nil {
+		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "guarantee power", Value: g.Power, Dim: quantity.Power})); err != nil {
 			return Verdict{}, err
 		}
 	}

@@ -6,6 +6,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
+	"similis.dev/similis/similarity"
 )
 
 // The band of test speeds, as fractions of the specified speed, within
@@ -62,22 +63,21 @@ func ReducePoints(pts []TestPoint, c TestConditions) ([]ReducedPoint, error) {
 	if len(pts) == 0 || len(pts) > MaxTestPoints {
 		return nil, invalid(op, "test points", fmt.Sprintf("%d test points: want 1 to %d", len(pts), MaxTestPoints))
 	}
-	if err := checkInputs(op, true, input{"specified speed", c.SpecifiedSpeed, quantity.AngularVelocity}, input{"density", c.Density, quantity.Density}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "specified speed", Value: c.SpecifiedSpeed, Dim: quantity.AngularVelocity}, similarity.Input{Name: "density", Value: c.Density, Dim: quantity.Density})); err != nil {
 		return nil, err
 	}
-	gq, err := gravityOr(op, c.Gravity)
-	if err != nil {
-		return nil, err
+	gq, bad := similarity.GravityOr(c.Gravity)
+	if bad != nil {
+		return nil, fail(op, bad)
 	}
 	rhoG := c.Density.Value() * gq.Value()
 	nsp := c.SpecifiedSpeed.Value()
 	out := make([]ReducedPoint, len(pts))
 	for i, p := range pts {
 		at := fmt.Sprintf("point %d", i)
-		if err := checkInputs(op, true,
-			input{at + ": flow", p.Flow, quantity.VolumeFlowRate}, input{at + ": head", p.Head, quantity.Length},
-			input{at + ": power", p.Power, quantity.Power}, input{at + ": speed", p.Speed, quantity.AngularVelocity},
-		); err != nil {
+		if err := fail(op, similarity.CheckInputs(true,
+			similarity.Input{Name: at + ": flow", Value: p.Flow, Dim: quantity.VolumeFlowRate}, similarity.Input{Name: at + ": head", Value: p.Head, Dim: quantity.Length},
+			similarity.Input{Name: at + ": power", Value: p.Power, Dim: quantity.Power}, similarity.Input{Name: at + ": speed", Value: p.Speed, Dim: quantity.AngularVelocity})); err != nil {
 			return nil, err
 		}
 		frac := p.Speed.Value() / nsp
@@ -88,7 +88,7 @@ func ReducePoints(pts []TestPoint, c TestConditions) ([]ReducedPoint, error) {
 		r := nsp / p.Speed.Value()
 		q, h, pw := p.Flow.Value()*r, p.Head.Value()*r*r, p.Power.Value()*r*r*r
 		eta := rhoG * q * h / pw
-		if err := checkResults(op, true, result{at + ": flow", q}, result{at + ": head", h}, result{at + ": power", pw}, result{at + ": efficiency", eta}); err != nil {
+		if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: at + ": flow", Value: q}, similarity.Result{Name: at + ": head", Value: h}, similarity.Result{Name: at + ": power", Value: pw}, similarity.Result{Name: at + ": efficiency", Value: eta})); err != nil {
 			return nil, err
 		}
 		if eta > 1 {
@@ -141,8 +141,8 @@ func FitPumpCurves(pts []ReducedPoint, opt CurveOptions) (PumpCurves, error) {
 	q := make([]float64, len(pts))
 	h, p, e := make([]float64, len(pts)), make([]float64, len(pts)), make([]float64, len(pts))
 	for i, r := range pts {
-		if err := checkInputs(op, true, input{fmt.Sprintf("point %d: flow", i), r.Flow, quantity.VolumeFlowRate},
-			input{fmt.Sprintf("point %d: head", i), r.Head, quantity.Length}, input{fmt.Sprintf("point %d: power", i), r.Power, quantity.Power}); err != nil {
+		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: fmt.Sprintf("point %d: flow", i), Value: r.Flow, Dim: quantity.VolumeFlowRate},
+			similarity.Input{Name: fmt.Sprintf("point %d: head", i), Value: r.Head, Dim: quantity.Length}, similarity.Input{Name: fmt.Sprintf("point %d: power", i), Value: r.Power, Dim: quantity.Power})); err != nil {
 			return PumpCurves{}, err
 		}
 		if !(r.Efficiency > 0 && r.Efficiency <= 1) {

@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 )
 
 // PumpCaution accompanies every pump or turbine result carried from a
@@ -168,15 +169,14 @@ type NPSHInput struct {
 // is a *Error of class quantity.ErrRange. See PumpCaution.
 func NPSH(in NPSHInput) (quantity.Quantity, error) {
 	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: "NPSH", Reason: r} }
-	if err := checkInputs("NPSH", false,
-		input{"pressure", in.Pressure, quantity.Pressure}, input{"vapour pressure", in.VapourPressure, quantity.Pressure},
-		input{"density", in.Density, quantity.Density}, input{"velocity", in.Velocity, quantity.Velocity},
-	); err != nil {
+	if err := fail("NPSH", similarity.CheckInputs(false,
+		similarity.Input{Name: "pressure", Value: in.Pressure, Dim: quantity.Pressure}, similarity.Input{Name: "vapour pressure", Value: in.VapourPressure, Dim: quantity.Pressure},
+		similarity.Input{Name: "density", Value: in.Density, Dim: quantity.Density}, similarity.Input{Name: "velocity", Value: in.Velocity, Dim: quantity.Velocity})); err != nil {
 		return quantity.Quantity{}, err
 	}
-	gq, err := gravityOr("NPSH", in.Gravity)
-	if err != nil {
-		return quantity.Quantity{}, err
+	gq, bad := similarity.GravityOr(in.Gravity)
+	if bad != nil {
+		return quantity.Quantity{}, fail("NPSH", bad)
 	}
 	g := gq.Value()
 	p, pv, rho, v := in.Pressure.Value(), in.VapourPressure.Value(), in.Density.Value(), in.Velocity.Value()
@@ -184,7 +184,7 @@ func NPSH(in NPSHInput) (quantity.Quantity, error) {
 		return quantity.Quantity{}, m("pressure, vapour pressure and density must be positive (absolute) and finite")
 	}
 	n := (p-pv)/(rho*g) + v*v/(2*g)
-	if err := checkResults("NPSH", false, result{"NPSH", n}); err != nil {
+	if err := fail("NPSH", similarity.CheckResults(false, similarity.Result{Name: "NPSH", Value: n})); err != nil {
 		return quantity.Quantity{}, err
 	}
 	return quantity.New(n, quantity.Length), nil
@@ -212,7 +212,7 @@ func Thoma(h Heads) (float64, error) {
 		return 0, &Error{Class: quantity.ErrInvalid, Op: "Thoma number", Reason: fmt.Sprintf("NPSH %v and head %v: want a finite NPSH and a positive, finite head", npsh, head)}
 	}
 	sigma := npsh.Value() / head.Value()
-	return sigma, checkResults("Thoma number", false, result{"Thoma number σ", sigma})
+	return sigma, fail("Thoma number", similarity.CheckResults(false, similarity.Result{Name: "Thoma number σ", Value: sigma}))
 }
 
 // SuctionPressureFor returns the absolute static pressure the prototype
@@ -221,21 +221,20 @@ func Thoma(h Heads) (float64, error) {
 // prototype's own water temperature. Head, vapour pressure and density
 // must be positive and finite, the velocity finite. See PumpCaution.
 func SuctionPressureFor(sigma float64, head quantity.Quantity, vapour, density, velocity, gravity quantity.Quantity) (quantity.Quantity, error) {
-	if err := checkInputs("suction pressure", true,
-		input{"head", head, quantity.Length}, input{"vapour pressure", vapour, quantity.Pressure},
-		input{"density", density, quantity.Density},
-	); err != nil {
+	if err := fail("suction pressure", similarity.CheckInputs(true,
+		similarity.Input{Name: "head", Value: head, Dim: quantity.Length}, similarity.Input{Name: "vapour pressure", Value: vapour, Dim: quantity.Pressure},
+		similarity.Input{Name: "density", Value: density, Dim: quantity.Density})); err != nil {
 		return quantity.Quantity{}, err
 	}
-	if err := checkInputs("suction pressure", false, input{"velocity", velocity, quantity.Velocity}); err != nil {
+	if err := fail("suction pressure", similarity.CheckInputs(false, similarity.Input{Name: "velocity", Value: velocity, Dim: quantity.Velocity})); err != nil {
 		return quantity.Quantity{}, err
 	}
 	if v := velocity.Value(); math.IsNaN(v) || math.IsInf(v, 0) {
 		return quantity.Quantity{}, &Error{Class: quantity.ErrInvalid, Op: "suction pressure", Reason: "velocity must be finite"}
 	}
-	gq, err := gravityOr("suction pressure", gravity)
-	if err != nil {
-		return quantity.Quantity{}, err
+	gq, bad := similarity.GravityOr(gravity)
+	if bad != nil {
+		return quantity.Quantity{}, fail("suction pressure", bad)
 	}
 	g := gq.Value()
 	if !(sigma >= 0) || math.IsInf(sigma, 0) {
@@ -243,7 +242,7 @@ func SuctionPressureFor(sigma float64, head quantity.Quantity, vapour, density, 
 	}
 	v := velocity.Value()
 	p := vapour.Value() + density.Value()*g*(sigma*head.Value()-v*v/(2*g))
-	if err := checkResults("suction pressure", false, result{"required absolute pressure", p}); err != nil {
+	if err := fail("suction pressure", similarity.CheckResults(false, similarity.Result{Name: "required absolute pressure", Value: p})); err != nil {
 		return quantity.Quantity{}, err
 	}
 	if !(p > 0) {
@@ -330,9 +329,8 @@ func specificSpeedIn(form string, v float64) error {
 // specificSpeeds returns the three forms from n_q, each checked.
 func specificSpeeds(nq float64) (SpecificSpeeds, error) {
 	s := SpecificSpeeds{Dimensionless: nq * dimensionlessPerMetric, Metric: nq, US: nq * usPerMetric}
-	if err := checkResults("specific speed", true,
-		result{"specific speed n_q", s.Metric}, result{"specific speed N_s", s.US}, result{"specific speed Ω_s", s.Dimensionless},
-	); err != nil {
+	if err := fail("specific speed", similarity.CheckResults(true,
+		similarity.Result{Name: "specific speed n_q", Value: s.Metric}, similarity.Result{Name: "specific speed N_s", Value: s.US}, similarity.Result{Name: "specific speed Ω_s", Value: s.Dimensionless})); err != nil {
 		return SpecificSpeeds{}, err
 	}
 	return s, nil

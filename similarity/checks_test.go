@@ -1,0 +1,94 @@
+package similarity_test
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"testing"
+
+	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
+)
+
+// TestSharedChecks checks the shared checks for trade procedures: the
+// fault each finds, its class and the input it names.
+func TestSharedChecks(t *testing.T) {
+	l := func(v float64) quantity.Quantity { return quantity.New(v, quantity.Length) }
+	cases := []struct {
+		name   string
+		f      *similarity.Fault
+		input  string
+		class  error
+		reason string
+	}{
+		{"all good", similarity.CheckInputs(true, similarity.Input{Name: "chord", Value: l(0.1), Dim: quantity.Length}), "", nil, ""},
+		{"wrong dimension", similarity.CheckInputs(true, similarity.Input{Name: "chord", Value: quantity.New(1, quantity.Area), Dim: quantity.Length}), "chord", quantity.ErrDimension, ""},
+		{"zero", similarity.CheckInputs(true, similarity.Input{Name: "chord", Value: l(0), Dim: quantity.Length}), "chord", quantity.ErrInvalid, "chord must be positive and finite"},
+		{"zero allowed", similarity.CheckInputs(false, similarity.Input{Name: "chord", Value: l(0), Dim: quantity.Length}), "", nil, ""},
+		{"infinite", similarity.CheckInputs(true, similarity.Input{Name: "a", Value: l(1), Dim: quantity.Length}, similarity.Input{Name: "b", Value: l(math.Inf(1)), Dim: quantity.Length}), "b", quantity.ErrInvalid, "b must be positive and finite"},
+		{"result NaN", similarity.CheckResults(false, similarity.Result{Name: "C_D", Value: math.NaN()}), "C_D", quantity.ErrRange, "the C_D (NaN) is out of the range of a float64 for these inputs"},
+		{"result zero, positive", similarity.CheckResults(true, similarity.Result{Name: "head", Value: 0}), "head", quantity.ErrRange, "the head (0) is out of the range of a float64 for these inputs"},
+		{"result zero allowed", similarity.CheckResults(false, similarity.Result{Name: "head", Value: 0}), "", nil, ""},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			if c.class == nil {
+				if c.f != nil {
+					t.Fatalf("fault %+v, want none", *c.f)
+				}
+				return
+			}
+			if c.f == nil {
+				t.Fatal("no fault")
+			}
+			if c.f.Input != c.input || c.f.Class != c.class || c.f.Reason != c.reason {
+				t.Errorf("fault %+v, want input %q, class %v, reason %q", *c.f, c.input, c.class, c.reason)
+			}
+			if c.reason == "" {
+				var de *quantity.DimensionError
+				if !errors.As(c.f.Cause(), &de) {
+					t.Errorf("cause %v, want the *quantity.DimensionError", c.f.Cause())
+				}
+			}
+		})
+	}
+}
+
+// TestGravityOr checks the default (g_n = 9.80665 m/s², SI Brochure) and
+// that a given gravity is checked.
+func TestGravityOr(t *testing.T) {
+	g, f := similarity.GravityOr(quantity.Quantity{})
+	if f != nil || g != quantity.New(9.80665, quantity.Acceleration) {
+		t.Errorf("unset: %v, %v; want 9.80665 m/s²", g, f)
+	}
+	if g, f = similarity.GravityOr(quantity.New(9.81, quantity.Acceleration)); f != nil || g.Value() != 9.81 {
+		t.Errorf("given: %v, %v; want 9.81 m/s²", g, f)
+	}
+	if _, f = similarity.GravityOr(quantity.New(-1, quantity.Acceleration)); f == nil || f.Input != "gravity" || f.Class != quantity.ErrInvalid {
+		t.Errorf("negative: %+v; want an ErrInvalid fault naming gravity", f)
+	}
+	if _, f = similarity.OrDefault("roughness", quantity.New(1, quantity.Velocity), quantity.New(1e-4, quantity.Length)); f == nil || f.Class != quantity.ErrDimension {
+		t.Errorf("wrong dimension: %+v; want an ErrDimension fault", f)
+	}
+}
+
+// TestClassOf checks that a wrapped class is found and that an error of
+// none of quantity's classes is given ErrInvalid.
+func TestClassOf(t *testing.T) {
+	for _, c := range []struct {
+		err, want error
+	}{
+		{fmt.Errorf("reading: %w", quantity.ErrParse), quantity.ErrParse},
+		{&quantity.DimensionError{Op: "check"}, quantity.ErrDimension},
+		{errors.New("disk full"), quantity.ErrInvalid},
+		{fmt.Errorf("a: %w", quantity.ErrRange), quantity.ErrRange},
+	} {
+		if got := similarity.ClassOf(c.err); got != c.want {
+			t.Errorf("ClassOf(%v) = %v, want %v", c.err, got, c.want)
+		}
+	}
+	var f *similarity.Fault
+	if f.Cause() != nil {
+		t.Error("a nil Fault has a cause")
+	}
+}
