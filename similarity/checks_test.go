@@ -92,3 +92,16 @@ func TestClassOf(t *testing.T) {
 		t.Error("a nil Fault has a cause")
 	}
 }
+
+// ExampleFormatTable prints a two-column table of numbers, right-aligned.
+func ExampleFormatTable() {
+	fmt.Print(similarity.FormatTable([]string{"V m/s", "R N"}, [][]string{{"1.2", "14.8"}, {"2.25", "61.06"}}, false, true))
+	fmt.Print(similarity.FormatTable([]string{"V m/s", "R N"}, [][]string{{"1.2", "14.8"}}, true, true))
+	// Output:
+	// V m/s    R N
+	//   1.2   14.8
+	//  2.25  61.06
+	// | V m/s | R N |
+	// | ---: | ---: |
+	// | 1.2 | 14.8 |
+}

@@ -317,7 +317,7 @@ func (s *SpeedPower) Table(md bool) string {
 	if md {
 		sb.WriteString("\n")
 	}
-	table(&sb, head, rows, md, true)
+	sb.WriteString(similarity.FormatTable(head, rows, md, true))
 	sb.WriteString("band: " + s.Method + "\n")
 	if s.Warning != "" {
 		sb.WriteString("WARNING (fits): " + s.Warning + "\n")
