@@ -114,3 +114,16 @@ func (f *Fault) Cause() error {
 	}
 	return f.Err
 }
+
+// CheckRatios returns a Fault of class quantity.ErrRange for the first
+// model/prototype ratio that is not positive and finite, named by its
+// Result's Name, or nil when every ratio is usable.
+func CheckRatios(rs ...Result) *Fault {
+	for _, r := range rs {
+		if !(r.Value > 0) || math.IsInf(r.Value, 0) {
+			return &Fault{Input: r.Name, Class: quantity.ErrRange, Reason: "the " + r.Name + " ratio " +
+				strconv.FormatFloat(r.Value, 'g', -1, 64) + " is not positive and finite (a model/prototype ratio)"}
+		}
+	}
+	return nil
+}

@@ -105,3 +105,17 @@ func ExampleFormatTable() {
 	// | ---: | ---: |
 	// | 1.2 | 14.8 |
 }
+
+// TestCheckRatios checks that a ratio not positive and finite is refused
+// with its name, and that usable ratios pass.
+func TestCheckRatios(t *testing.T) {
+	if f := similarity.CheckRatios(similarity.Result{Name: "length", Value: 0.04}, similarity.Result{Name: "time", Value: 0.2}); f != nil {
+		t.Errorf("usable ratios: fault %+v", *f)
+	}
+	for _, v := range []float64{0, -1, math.Inf(1), math.NaN()} {
+		f := similarity.CheckRatios(similarity.Result{Name: "length", Value: 1}, similarity.Result{Name: "discharge", Value: v})
+		if f == nil || f.Input != "discharge" || f.Class != quantity.ErrRange {
+			t.Errorf("discharge ratio %v: fault %+v, want an ErrRange fault naming the discharge", v, f)
+		}
+	}
+}

@@ -174,7 +174,7 @@ func FitRating(in RatingInput) (*Rating, error) {
 	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "crest length", Value: in.CrestLength, Dim: quantity.Length})); err != nil {
 		return nil, asError(op, "crest length", err)
 	}
-	if err := checkRatios(op, "length", in.LengthRatio); err != nil {
+	if err := fail(op, similarity.CheckRatios(similarity.Result{Name: "length", Value: in.LengthRatio})); err != nil {
 		return nil, err
 	}
 	level := in.Level
@@ -200,7 +200,7 @@ func FitRating(in RatingInput) (*Rating, error) {
 	if err != nil {
 		return nil, wrap(op, "length ratio", "the length ratio", err)
 	}
-	if err := checkRatios(op, "discharge", lq.Value, "length", ll.Value); err != nil {
+	if err := fail(op, similarity.CheckRatios(similarity.Result{Name: "discharge", Value: lq.Value}, similarity.Result{Name: "length", Value: ll.Value})); err != nil {
 		return nil, err
 	}
 	b, gv := in.CrestLength.Value(), g.Value()
