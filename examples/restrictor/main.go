@@ -26,6 +26,7 @@ import (
 	"gonum.org/v1/plot/vg"
 
 	"similis.dev/similis/examples/internal/cli"
+	"similis.dev/similis/examples/internal/plotstyle"
 	"similis.dev/similis/pigroups"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/uncertain"
@@ -402,7 +403,7 @@ func buildPlot(r *Result) (*plot.Plot, []*plotter.Scatter, error) {
 		if err != nil {
 			return nil, nil, err
 		}
-		sc.GlyphStyle = marker(k)
+		sc.GlyphStyle = plotstyle.Marker(k)
 		scs = append(scs, sc)
 		lo := slices.MinFunc(pts, func(a, b plotter.XY) int { return cmpF(a.X, b.X) }).X
 		hi := slices.MaxFunc(pts, func(a, b plotter.XY) int { return cmpF(a.X, b.X) }).X
@@ -427,7 +428,7 @@ func buildPlot(r *Result) (*plot.Plot, []*plotter.Scatter, error) {
 			xs, ys = append(xs, p.X), append(ys, p.Y)
 		}
 	}
-	styleAxes(pl, xs, ys)
+	plotstyle.StyleLog(pl, xs, ys)
 	// Room above the data for the legend, so it covers no marker.
 	pl.Y.Max *= math.Pow(pl.Y.Max/pl.Y.Min, 0.3)
 	return pl, scs, nil
@@ -452,10 +453,10 @@ func plotFit(dir string, r *Result, w, h, dpi float64) (string, string, error) {
 	}
 	png := filepath.Join(dir, "restrictor-fit.png")
 	svg := filepath.Join(dir, "restrictor-fit.svg")
-	if err := savePlot(pl, png, w, h, dpi); err != nil {
+	if err := plotstyle.Save(pl, png, w, h, dpi); err != nil {
 		return "", "", err
 	}
-	if err := savePlot(pl, svg, w, h, dpi); err != nil {
+	if err := plotstyle.Save(pl, svg, w, h, dpi); err != nil {
 		return "", "", err
 	}
 	return png, svg, nil

@@ -13,6 +13,7 @@ import (
 	"testing"
 
 	"gonum.org/v1/plot"
+	"similis.dev/similis/examples/internal/plotstyle"
 )
 
 // TestRepeatFindsGroupsByWhatTheyAre: the report finds Eu, Re and L/d by
@@ -125,7 +126,7 @@ func TestPlotReadable(t *testing.T) {
 	if len(scs) != 3 || len(shapes) != 3 {
 		t.Errorf("%d series with %d marker shapes, want 3 and 3", len(scs), len(shapes))
 	}
-	if _, ok := pl.X.Label.TextStyle.Handler.(subscripts); !ok {
+	if _, ok := pl.X.Label.TextStyle.Handler.(plotstyle.Subscripts); !ok {
 		t.Errorf("x label drawn by %T", pl.X.Label.TextStyle.Handler)
 	}
 }

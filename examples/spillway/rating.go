@@ -14,14 +14,13 @@ import (
 	"strings"
 
 	"gonum.org/v1/plot"
-	"gonum.org/v1/plot/font"
 	"gonum.org/v1/plot/plotter"
-	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/vgimg"
 	"gonum.org/v1/plot/vg/vgsvg"
 
+	"similis.dev/similis/examples/internal/plotstyle"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/hydraulic"
 )
@@ -197,7 +196,7 @@ func plotRating(dir string, r *hydraulic.Rating, table []hydraulic.RatingValue, 
 	if err != nil {
 		return "", "", err
 	}
-	fitLine.Color = seriesColor(1)
+	fitLine.Color = plotstyle.SeriesColor(1)
 	fitLine.Width = vg.Points(1.5)
 	pl.Add(fitLine)
 	pl.Legend.Add("fitted rating (range of validity)", fitLine)
@@ -206,7 +205,7 @@ func plotRating(dir string, r *hydraulic.Rating, table []hydraulic.RatingValue, 
 		if err != nil {
 			return "", "", err
 		}
-		ln.Color = seriesColor(1)
+		ln.Color = plotstyle.SeriesColor(1)
 		ln.Dashes = []vg.Length{vg.Points(4), vg.Points(2)}
 		pl.Add(ln)
 		if k == 0 {
@@ -218,7 +217,7 @@ func plotRating(dir string, r *hydraulic.Rating, table []hydraulic.RatingValue, 
 		if err != nil {
 			return "", "", err
 		}
-		ln.Color = seriesColor(2)
+		ln.Color = plotstyle.SeriesColor(2)
 		ln.Dashes = []vg.Length{vg.Points(1), vg.Points(2)}
 		pl.Add(ln)
 		if k == 0 {
@@ -237,15 +236,15 @@ func plotRating(dir string, r *hydraulic.Rating, table []hydraulic.RatingValue, 
 		if err != nil {
 			return "", "", err
 		}
-		sc.GlyphStyle = marker(set.style)
+		sc.GlyphStyle = plotstyle.Marker(set.style)
 		if k == 1 {
-			sc.GlyphStyle.Color = seriesColor(2)
+			sc.GlyphStyle.Color = plotstyle.SeriesColor(2)
 			sc.GlyphStyle.Shape = draw.CrossGlyph{}
 		}
 		pl.Add(sc)
 		pl.Legend.Add(set.label, sc)
 	}
-	styleAxes(pl, xs, ys)
+	plotstyle.StyleLog(pl, xs, ys)
 	pl.Y.Max *= math.Pow(pl.Y.Max/pl.Y.Min, 0.35) // room for the legend above the curve
 	dev, err := deviationPlot(r, scale, t0, t1)
 	if err != nil {
@@ -270,10 +269,10 @@ func deviationPlot(r *hydraulic.Rating, scale, t0, t1 float64) (*plot.Plot, erro
 	pl := plot.New()
 	pl.X.Label.Text = "h_p (m, log scale)"
 	pl.Y.Label.Text = "Q/Q_fit − 1 (%)"
-	h := subscripts{text.Plain{Fonts: font.DefaultCache}}
+	h := plotstyle.New()
 	pl.X.Label.TextStyle.Handler, pl.Y.Label.TextStyle.Handler = h, h
 	pl.X.Tick.Label.Handler, pl.Y.Tick.Label.Handler = h, h
-	pl.X.Scale, pl.X.Tick.Marker = plot.LogScale{}, logTicks{}
+	pl.X.Scale, pl.X.Tick.Marker = plot.LogScale{}, plotstyle.LogTicks{}
 	pl.Y.Tick.Marker = labelledTicks{}
 	lo, hi := r.ProtoHeadRange()
 	var ys []float64
@@ -294,7 +293,7 @@ func deviationPlot(r *hydraulic.Rating, scale, t0, t1 float64) (*plot.Plot, erro
 			if err != nil {
 				return err
 			}
-			ln.Color, ln.Dashes = seriesColor(c), dashes
+			ln.Color, ln.Dashes = plotstyle.SeriesColor(c), dashes
 			pl.Add(ln)
 		}
 		return nil
@@ -303,7 +302,7 @@ func deviationPlot(r *hydraulic.Rating, scale, t0, t1 float64) (*plot.Plot, erro
 	if err != nil {
 		return nil, err
 	}
-	zero.Color = seriesColor(1)
+	zero.Color = plotstyle.SeriesColor(1)
 	pl.Add(zero)
 	dotted := []vg.Length{vg.Points(1), vg.Points(2)}
 	for _, seg := range []struct {
@@ -337,9 +336,9 @@ func deviationPlot(r *hydraulic.Rating, scale, t0, t1 float64) (*plot.Plot, erro
 		if err != nil {
 			return nil, err
 		}
-		sc.GlyphStyle = marker(0)
+		sc.GlyphStyle = plotstyle.Marker(0)
 		if k == 1 {
-			sc.GlyphStyle.Color, sc.GlyphStyle.Shape = seriesColor(2), draw.CrossGlyph{}
+			sc.GlyphStyle.Color, sc.GlyphStyle.Shape = plotstyle.SeriesColor(2), draw.CrossGlyph{}
 		}
 		pl.Add(sc)
 	}

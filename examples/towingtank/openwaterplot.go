@@ -13,6 +13,7 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/vgimg"
 
+	"similis.dev/similis/examples/internal/plotstyle"
 	"similis.dev/similis/similarity/ship"
 )
 
@@ -23,7 +24,7 @@ import (
 // hull's powering prediction, an estimate.
 func plotOpenWater(dir string, ow *ship.OpenWaterFit, size plotSize) (string, string, error) {
 	pl := plot.New()
-	sub := subText{text.Plain{Fonts: font.DefaultCache}}
+	sub := plotstyle.Subscripts{Plain: text.Plain{Fonts: font.DefaultCache}, BracedOnly: true}
 	pl.Legend.TextStyle.Handler = sub
 	pl.X.Label.TextStyle.Handler = sub
 	pl.Title.Text = "Model propeller open-water curves, faired by polynomials in J (invented data)\nCAUTION: powering from these is an estimate for the responsible naval architect"

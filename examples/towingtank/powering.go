@@ -17,6 +17,7 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/vgimg"
 
+	"similis.dev/similis/examples/internal/plotstyle"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
 	"similis.dev/similis/similarity/fluids"
@@ -271,7 +272,7 @@ type plotSize struct {
 func plotCoefficients(dir string, k1 float64, pts []ship.PoweringResult, size plotSize) (string, string, error) {
 	pl := plot.New()
 	// The legend sets "_{…}" as a subscript (C_TM, C_TS).
-	pl.Legend.TextStyle.Handler = subText{text.Plain{Fonts: font.DefaultCache}}
+	pl.Legend.TextStyle.Handler = plotstyle.Subscripts{Plain: text.Plain{Fonts: font.DefaultCache}, BracedOnly: true}
 	pl.Title.Text = "Catamaran (invented data): resistance coefficients and friction lines"
 	pl.X.Label.Text = "Reynolds number Re = VL/ν (log scale)"
 	pl.Y.Label.Text = "C × 10³"
