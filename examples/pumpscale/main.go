@@ -20,7 +20,6 @@
 package main
 
 import (
-	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -34,19 +33,7 @@ import (
 	"similis.dev/similis/units"
 )
 
-func main() {
-	if err := run(os.Stdout, os.Args[1:]); err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return // -h: the usage is printed
-		}
-		fmt.Fprintln(os.Stderr, "pumpscale:", err)
-		var ce *cli.Error
-		if errors.As(err, &ce) {
-			os.Exit(2) // a usage mistake
-		}
-		os.Exit(1)
-	}
-}
+func main() { cli.Main("pumpscale", run) }
 
 // about is the head of the -h text: what the program does and what its
 // output means.

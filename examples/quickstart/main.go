@@ -17,11 +17,9 @@
 package main
 
 import (
-	"errors"
 	"flag"
 	"fmt"
 	"io"
-	"os"
 
 	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
@@ -31,19 +29,7 @@ import (
 
 // The whole-job part is in job.go.
 
-func main() {
-	if err := run(os.Stdout, os.Args[1:]); err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return // -h: the usage is printed
-		}
-		fmt.Fprintln(os.Stderr, "quickstart:", err)
-		var ce *cli.Error
-		if errors.As(err, &ce) {
-			os.Exit(2)
-		}
-		os.Exit(1)
-	}
-}
+func main() { cli.Main("quickstart", run) }
 
 // pipe holds the inputs of one pressure-drop evaluation.
 type pipe struct {

@@ -11,7 +11,6 @@
 package main
 
 import (
-	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -33,30 +32,7 @@ import (
 	"similis.dev/similis/units"
 )
 
-func main() {
-	if err := run(os.Stdout, os.Args[1:]); err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return // -h: the usage is printed
-		}
-		fmt.Fprintln(os.Stderr, "restrictor:", cli.Sanitize(err.Error()))
-		os.Exit(exitCode(err))
-	}
-}
-
-// usageError is a command-line mistake (exit status 2).
-type usageError struct{ msg string }
-
-func (e *usageError) Error() string { return e.msg }
-
-// exitCode is 2 for a usage mistake, 1 for anything else.
-func exitCode(err error) int {
-	var ce *cli.Error
-	var ue *usageError
-	if errors.As(err, &ce) || errors.As(err, &ue) {
-		return 2
-	}
-	return 1
-}
+func main() { cli.Main("restrictor", run) }
 
 const usageText = `restrictor reduces an invented bench test of a flow restrictor (a 6 mm bore,
 12, 24 and 48 mm long, in a glycol coolant): it prints the dimensional matrix,
@@ -266,10 +242,10 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		return nil, err
 	}
 	if fs.NArg() > 0 {
-		return nil, &usageError{fmt.Sprintf("unexpected argument %s: restrictor takes flags only", cli.Quote(fs.Arg(0)))}
+		return nil, &cli.Error{Msg: fmt.Sprintf("unexpected argument %s: restrictor takes flags only", cli.Quote(fs.Arg(0)))}
 	}
 	if st, err := os.Stat(*out); err != nil || !st.IsDir() {
-		return nil, &usageError{fmt.Sprintf("-out %s: not a directory", cli.Quote(*out))}
+		return nil, &cli.Error{Msg: fmt.Sprintf("-out %s: not a directory", cli.Quote(*out))}
 	}
 	p, err := pigroups.NewProblem(
 		pigroups.Dep("dp", q.Pressure).WithKind("pressure difference"),
@@ -281,7 +257,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	}
 	set, err := p.PiSet(strings.Split(*rep, ",")...)
 	if err != nil {
-		return nil, &usageError{fmt.Sprintf("-repeat %s: %s; sets the report can label: %s", cli.Quote(*rep), cli.Sanitize(err.Error()), strings.Join(labelledSets(p), "; "))}
+		return nil, &cli.Error{Msg: fmt.Sprintf("-repeat %s: %s; sets the report can label: %s", cli.Quote(*rep), cli.Sanitize(err.Error()), strings.Join(labelledSets(p), "; "))}
 	}
 	set = set.WithConventional()
 	iEu, iRe, iLD, ok := named(set)
@@ -290,7 +266,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		for _, g := range set.Groups() {
 			gs = append(gs, g.Format(q.Unicode))
 		}
-		return nil, &usageError{fmt.Sprintf("-repeat %s gives %s: the report labels Eu = Δp/(ρ·V²), Re = ρ·V·d/μ and L/d, which this set does not give; sets that do: %s",
+		return nil, &cli.Error{Msg: fmt.Sprintf("-repeat %s gives %s: the report labels Eu = Δp/(ρ·V²), Re = ρ·V·d/μ and L/d, which this set does not give; sets that do: %s",
 			cli.Quote(*rep), strings.Join(gs, ", "), strings.Join(labelledSets(p), "; "))}
 	}
 	fmt.Fprintln(w, "Bench test of a flow restrictor in a coolant loop (invented data)")

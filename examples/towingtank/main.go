@@ -23,7 +23,6 @@
 package main
 
 import (
-	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -38,19 +37,7 @@ import (
 	"similis.dev/similis/units"
 )
 
-func main() {
-	if err := run(os.Stdout, os.Args[1:]); err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return // -h: the usage is printed
-		}
-		fmt.Fprintln(os.Stderr, "towingtank:", err)
-		var ce *cli.Error
-		if errors.As(err, &ce) {
-			os.Exit(2)
-		}
-		os.Exit(1)
-	}
-}
+func main() { cli.Main("towingtank", run) }
 
 // Invented model data: a 2.0 m catamaran model (both demi-hulls), wetted
 // surface 1.62 m², towed at eight speeds.

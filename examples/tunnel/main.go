@@ -26,7 +26,6 @@
 package main
 
 import (
-	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -42,24 +41,7 @@ import (
 	"similis.dev/similis/similarity/tunnel"
 )
 
-func main() {
-	os.Exit(exitCode(run(os.Stdout, os.Args[1:]), os.Stderr))
-}
-
-// exitCode reports err on stderr and returns the exit status: 0 for none
-// or -h, 2 for a usage error, 1 for a plan that cannot be made.
-func exitCode(err error, stderr io.Writer) int {
-	switch {
-	case err == nil || errors.Is(err, flag.ErrHelp):
-		return 0
-	}
-	fmt.Fprintln(stderr, "tunnel:", err)
-	var ce *cli.Error
-	if errors.As(err, &ce) {
-		return 2
-	}
-	return 1
-}
+func main() { cli.Main("tunnel", run) }
 
 // Result collects the key numbers, for the test.
 type Result struct {

@@ -1,8 +1,10 @@
-// Package cli holds what every example command does with its flags: a
-// numeric flag that refuses NaN, ±Inf and values outside the range that
-// the program can use, naming the flag, and an echo of user text that is
-// truncated and has its control bytes escaped, so a pasted megabyte or a
-// terminal escape sequence never comes back whole or raw.
+// Package cli holds what every example command does with its flags and
+// its exit: a numeric flag that refuses NaN, ±Inf and values outside the
+// range that the program can use, naming the flag; an echo of user text
+// that is truncated and has its control bytes escaped, so a pasted
+// megabyte or a terminal escape sequence never comes back whole or raw;
+// and Main, which runs the command and exits with status 2 after a usage
+// mistake and 1 after a failure of the job itself.
 package cli
 
 import (
@@ -11,6 +13,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"os"
 	"strconv"
 	"strings"
 	"unicode/utf8"
@@ -166,3 +169,26 @@ func sanitize(s string) string {
 // Sanitize returns s with control bytes escaped and cut to a bounded
 // length, for a message that must repeat user text.
 func Sanitize(s string) string { return sanitize(s) }
+
+// ExitCode returns the exit status for err, the error of a command's run,
+// and prints err, sanitized, to stderr after the command's name: 0 for
+// no error or -h (flag.ErrHelp: the usage is printed), 2 for a usage
+// mistake (an error that is or wraps a *Error), 1 for a failure of the
+// job itself.
+func ExitCode(stderr io.Writer, name string, err error) int {
+	if err == nil || errors.Is(err, flag.ErrHelp) {
+		return 0
+	}
+	fmt.Fprintln(stderr, name+":", Sanitize(err.Error()))
+	var ce *Error
+	if errors.As(err, &ce) {
+		return 2
+	}
+	return 1
+}
+
+// Main runs an example command: run with standard output and the
+// command-line arguments, then exit with ExitCode's status.
+func Main(name string, run func(w io.Writer, args []string) error) {
+	os.Exit(ExitCode(os.Stderr, name, run(os.Stdout, os.Args[1:])))
+}
