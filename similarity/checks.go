@@ -12,7 +12,8 @@ import (
 // Shared checks for trade procedures. The trade packages (ship, tunnel,
 // turbo, hydraulic) check their inputs and results the same way; the
 // checks below find what is wrong and describe it in a Fault, and each
-// trade puts the Fault into its own error type, naming its procedure.
+// trade reports the Fault as its own error type, which embeds it beside
+// the name of its procedure.
 
 // Input is one quantity a trade procedure takes: its name for messages,
 // its value and the dimension it must have.
@@ -29,18 +30,57 @@ type Result struct {
 	Value float64
 }
 
-// Fault describes what a shared check found wrong: the input or result
-// concerned, the class (one of quantity.ErrDimension, ErrRange, ErrParse,
-// ErrUnknown, ErrInvalid), the reason in words and the cause, if any.
-// It is a description, not an error: a trade procedure returns it as its
-// own error type. When Reason is empty the fault is Err alone, an error
-// complete in itself (the *quantity.DimensionError naming an input of the
-// wrong dimension), which the trade returns unchanged.
+// Fault describes what is wrong with a trade procedure's input or result.
+// It is a description, not an error: a trade's error type embeds it beside
+// the procedure's name, and so takes its fields and its Is and Unwrap
+// methods. When Reason is empty the fault is Err alone, an error complete
+// in itself (the *quantity.DimensionError naming an input of the wrong
+// dimension), which the trade returns unchanged (see Cause).
 type Fault struct {
-	Input  string
-	Reason string
-	Class  error
-	Err    error
+	Input  string // the input or result concerned, if one is
+	Reason string // what was wrong, in words
+	Class  error  // one of quantity.ErrDimension, ErrRange, ErrParse, ErrUnknown, ErrInvalid
+	Err    error  // the error that caused this one, or nil
+}
+
+// Invalid returns a Fault of class quantity.ErrInvalid.
+func Invalid(input, reason string) Fault {
+	return Fault{Input: input, Reason: reason, Class: quantity.ErrInvalid}
+}
+
+// OutOfRange returns a Fault of class quantity.ErrRange.
+func OutOfRange(input, reason string) Fault {
+	return Fault{Input: input, Reason: reason, Class: quantity.ErrRange}
+}
+
+// Caused returns a Fault caused by err, in err's class (ClassOf), so that
+// an error embedding it matches exactly one class.
+func Caused(input, reason string, err error) Fault {
+	return Fault{Input: input, Reason: reason, Class: ClassOf(err), Err: err}
+}
+
+// Message returns the reason, followed by the cause's message when there
+// is a cause: the text after a trade's prefix and procedure.
+func (f Fault) Message() string {
+	if f.Err != nil {
+		return f.Reason + ": " + f.Err.Error()
+	}
+	return f.Reason
+}
+
+// Is reports whether target is the fault's class.
+func (f Fault) Is(target error) bool { return target != nil && target == f.Class }
+
+// Unwrap returns the error that caused the fault, or nil.
+func (f Fault) Unwrap() error { return f.Err }
+
+// Cause returns Err, or nil when f is nil: what a trade returns for a
+// fault that is Err alone or for no fault.
+func (f *Fault) Cause() error {
+	if f == nil {
+		return nil
+	}
+	return f.Err
 }
 
 // CheckInputs checks each input's dimension (a Fault whose Err is the
@@ -105,14 +145,6 @@ func ClassOf(err error) error {
 		}
 	}
 	return quantity.ErrInvalid
-}
-
-// Cause returns the error behind f: Err, or nil when f is nil.
-func (f *Fault) Cause() error {
-	if f == nil {
-		return nil
-	}
-	return f.Err
 }
 
 // CheckRatios returns a Fault of class quantity.ErrRange for the first

@@ -119,3 +119,40 @@ func TestCheckRatios(t *testing.T) {
 		}
 	}
 }
+
+// testError is an error type as a trade writes one, embedding a Fault.
+type testError struct {
+	Op string
+	similarity.Fault
+}
+
+func (e *testError) Error() string { return "trade: " + e.Op + ": " + e.Message() }
+
+// TestFaultEmbedded checks that an error embedding a Fault matches its
+// class and no other, unwraps to its cause, and prints the reason and the
+// cause; and that each constructor gives its class.
+func TestFaultEmbedded(t *testing.T) {
+	cause := fmt.Errorf("reading: %w", quantity.ErrParse)
+	var err error = &testError{Op: "fit", Fault: similarity.Caused("head", "the head column", cause)}
+	if got, want := err.Error(), "trade: fit: the head column: reading: cannot parse"; got != want {
+		t.Errorf("message %q, want %q", got, want)
+	}
+	n := 0
+	for _, c := range []error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid} {
+		if errors.Is(err, c) {
+			n++
+		}
+	}
+	if n != 1 || !errors.Is(err, quantity.ErrParse) || errors.Unwrap(err) != cause {
+		t.Errorf("classes matched %d, ErrParse %v, cause %v", n, errors.Is(err, quantity.ErrParse), errors.Unwrap(err))
+	}
+	if f := similarity.Invalid("x", "bad"); f.Class != quantity.ErrInvalid || f.Message() != "bad" {
+		t.Errorf("Invalid: %+v", f)
+	}
+	if f := similarity.OutOfRange("x", "too big"); f.Class != quantity.ErrRange || f.Input != "x" {
+		t.Errorf("OutOfRange: %+v", f)
+	}
+	if f := similarity.Caused("x", "r", errors.New("disk full")); f.Class != quantity.ErrInvalid {
+		t.Errorf("Caused of a classless error: class %v, want ErrInvalid", f.Class)
+	}
+}

@@ -112,7 +112,7 @@ func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLi
 		v    float64
 	}{{"minimum Reynolds number", lim.MinReynolds}, {"minimum Weber number", lim.MinWeber}} {
 		if !(l.v >= 0) || math.IsInf(l.v, 0) {
-			return nil, &Error{Class: quantity.ErrInvalid, Op: "scale-effect check", Reason: fmt.Sprintf("%s %v: want finite and not negative", l.name, l.v)}
+			return nil, &Error{Op: "scale-effect check", Fault: similarity.Invalid("", fmt.Sprintf("%s %v: want finite and not negative", l.name, l.v))}
 		}
 	}
 	re := v.Value() * h.Value() / nu.Value()
@@ -172,7 +172,7 @@ func Shields(in ShieldsInput) (theta, reStar float64, err error) {
 		return 0, 0, err
 	}
 	if !(rhoS.Value() > rho.Value()) {
-		return 0, 0, &Error{Class: quantity.ErrInvalid, Op: "Shields parameter", Reason: "grains no denser than the water do not settle"}
+		return 0, 0, &Error{Op: "Shields parameter", Fault: similarity.Invalid("", "grains no denser than the water do not settle")}
 	}
 	theta = tau.Value() / ((rhoS.Value() - rho.Value()) * g.Value() * d.Value())
 	reStar = math.Sqrt(tau.Value()/rho.Value()) * d.Value() / nu.Value()
@@ -214,7 +214,7 @@ func SedimentFor(r SedimentRatios) (SedimentScales, error) {
 		v    float64
 	}{{"Horizontal", lengthH}, {"Vertical", lengthV}, {"RelativeDensity", deltaRatio}, {"Viscosity", nuRatio}} {
 		if !(c.v > 0) || math.IsInf(c.v, 0) {
-			return SedimentScales{}, invalid("sediment scales", c.name, fmt.Sprintf("SedimentRatios.%s = %v is not positive and finite", c.name, c.v))
+			return SedimentScales{}, &Error{Op: "sediment scales", Fault: similarity.Invalid(c.name, fmt.Sprintf("SedimentRatios.%s = %v is not positive and finite", c.name, c.v))}
 		}
 	}
 	var s SedimentScales
@@ -244,7 +244,7 @@ const ViscousParticleReynolds = 5.0
 // carries the warning that the grain is in the viscous range.
 func ParticleReynoldsCheck(reStar float64) (ScaleCheck, error) {
 	if !(reStar > 0) || math.IsInf(reStar, 0) {
-		return ScaleCheck{}, &Error{Class: quantity.ErrInvalid, Op: "particle Reynolds check", Reason: fmt.Sprintf("Re* = %v: want positive and finite", reStar)}
+		return ScaleCheck{}, &Error{Op: "particle Reynolds check", Fault: similarity.Invalid("", fmt.Sprintf("Re* = %v: want positive and finite", reStar))}
 	}
 	c := ScaleCheck{Name: "model grain Re* = u*·d/ν", Value: reStar, Limit: ViscousParticleReynolds, Unit: "1",
 		Pass:  reStar >= ViscousParticleReynolds,
@@ -270,7 +270,7 @@ const SmoothestModelManning = 0.009
 // warning that its friction will be too large.
 func ModelManningCheck(protoN, nRatio float64) (ScaleCheck, error) {
 	m := func(r string) error {
-		return &Error{Class: quantity.ErrInvalid, Op: "model roughness check", Reason: r}
+		return &Error{Op: "model roughness check", Fault: similarity.Invalid("", r)}
 	}
 	if !(protoN > 0) || math.IsInf(protoN, 0) {
 		return ScaleCheck{}, m(fmt.Sprintf("prototype Manning n %v: want positive and finite", protoN))

@@ -155,17 +155,17 @@ const BandNote = "the band is the fit's uncertainty alone (the confidence interv
 func FitRating(in RatingInput) (*Rating, error) {
 	const op = "weir rating"
 	if err := in.Head.Check(quantity.Length); err != nil {
-		return nil, wrap(op, "head", "the heads", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("head", "the heads", err)}
 	}
 	if err := in.Discharge.Check(quantity.VolumeFlowRate); err != nil {
-		return nil, wrap(op, "discharge", "the discharges", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("discharge", "the discharges", err)}
 	}
 	n := in.Head.Len()
 	if in.Discharge.Len() != n {
-		return nil, invalid(op, "discharge", fmt.Sprintf("%d heads and %d discharges: want one of each per point", n, in.Discharge.Len()))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("discharge", fmt.Sprintf("%d heads and %d discharges: want one of each per point", n, in.Discharge.Len()))}
 	}
 	if n > fit.MaxRows {
-		return nil, invalid(op, "head", fmt.Sprintf("%d points, more than %d", n, fit.MaxRows))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("head", fmt.Sprintf("%d points, more than %d", n, fit.MaxRows))}
 	}
 	g, bad := similarity.GravityOr(in.Gravity)
 	if bad != nil {
@@ -182,7 +182,7 @@ func FitRating(in RatingInput) (*Rating, error) {
 		level = 0.95
 	}
 	if !(level > 0 && level < 1) {
-		return nil, invalid(op, "level", fmt.Sprintf("confidence level %v: want 0 < level < 1", in.Level))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("level", fmt.Sprintf("confidence level %v: want 0 < level < 1", in.Level))}
 	}
 	lim := in.Limits
 	if lim == (FreeSurfaceLimits{}) {
@@ -190,15 +190,15 @@ func FitRating(in RatingInput) (*Rating, error) {
 	}
 	fr, err := similarity.Froude(similarity.Scales{Length: in.LengthRatio, Density: 1})
 	if err != nil {
-		return nil, wrap(op, "length ratio", "the Froude scales", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("length ratio", "the Froude scales", err)}
 	}
 	lq, err := fr.DerivedRatio(quantity.VolumeFlowRate)
 	if err != nil {
-		return nil, wrap(op, "length ratio", "the discharge ratio", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("length ratio", "the discharge ratio", err)}
 	}
 	ll, err := fr.DerivedRatio(quantity.Length)
 	if err != nil {
-		return nil, wrap(op, "length ratio", "the length ratio", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("length ratio", "the length ratio", err)}
 	}
 	if err := fail(op, similarity.CheckRatios(similarity.Result{Name: "discharge", Value: lq.Value}, similarity.Result{Name: "length", Value: ll.Value})); err != nil {
 		return nil, err
@@ -212,10 +212,10 @@ func FitRating(in RatingInput) (*Rating, error) {
 	for i := range n {
 		h, q := in.Head.At(i).Value(), in.Discharge.At(i).Value()
 		if !(h > 0) || math.IsInf(h, 0) {
-			return nil, invalid(op, "head", fmt.Sprintf("point %d: head %v: want positive and finite", i, h))
+			return nil, &Error{Op: op, Fault: similarity.Invalid("head", fmt.Sprintf("point %d: head %v: want positive and finite", i, h))}
 		}
 		if !(q > 0) || math.IsInf(q, 0) {
-			return nil, invalid(op, "discharge", fmt.Sprintf("point %d: discharge %v: want positive and finite", i, q))
+			return nil, &Error{Op: op, Fault: similarity.Invalid("discharge", fmt.Sprintf("point %d: discharge %v: want positive and finite", i, q))}
 		}
 		p := RatingPoint{Head: h, Discharge: q}
 		p.WeirCoefficient = q / (weir * h * math.Sqrt(h))
@@ -227,9 +227,9 @@ func FitRating(in RatingInput) (*Rating, error) {
 		cs, err := FreeSurfaceChecks(quantity.New(p.Velocity, quantity.Velocity), in.Head.At(i), in.KinematicViscosity, in.Density, in.SurfaceTension, lim)
 		if err != nil {
 			if e, ok := err.(*Error); ok {
-				return nil, &Error{Op: op, Input: e.Input, Class: e.Class, Reason: fmt.Sprintf("point %d: %s", i, e.Reason), Err: e.Err}
+				return nil, &Error{Op: op, Fault: similarity.Fault{Input: e.Input, Reason: fmt.Sprintf("point %d: %s", i, e.Reason), Class: e.Class, Err: e.Err}}
 			}
-			return nil, wrap(op, "", fmt.Sprintf("point %d: the scale-effect checks", i), err)
+			return nil, &Error{Op: op, Fault: similarity.Caused("", fmt.Sprintf("point %d: the scale-effect checks", i), err)}
 		}
 		p.Checks = cs
 		for _, c := range cs {
@@ -247,20 +247,20 @@ func FitRating(in RatingInput) (*Rating, error) {
 	}
 	r.Used = len(used)
 	if r.Used < 3 {
-		return nil, invalid(op, "head", fmt.Sprintf("%d of %d points pass the scale-effect checks: the rating needs at least 3 (%s)", r.Used, n, ExclusionRule))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("head", fmt.Sprintf("%d of %d points pass the scale-effect checks: the rating needs at least 3 (%s)", r.Used, n, ExclusionRule))}
 	}
 	opt := &fit.Options{Level: level}
 	f, err := fit.FitPoly(lnH, lnQ, 1, opt)
 	if err != nil {
-		return nil, wrap(op, "head", "fitting ln Q against ln h", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("head", "fitting ln Q against ln h", err)}
 	}
 	a, se, err := f.Power()
 	if err != nil {
-		return nil, wrap(op, "head", "the rating's coefficients", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("head", "the rating's coefficients", err)}
 	}
 	cd, err := fit.FitPoly(lnH, lnCd, 0, opt)
 	if err != nil {
-		return nil, wrap(op, "head", "fitting the weir coefficient", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("head", "fitting the weir coefficient", err)}
 	}
 	r.fit = f
 	tq := distuv.StudentsT{Mu: 0, Sigma: 1, Nu: float64(f.DoF)}.Quantile(0.5 + level/2)
@@ -347,9 +347,8 @@ func (r *Rating) at(op string, h quantity.Quantity, lambdaL, lambdaQ float64, ou
 		return RatingValue{}, err
 	}
 	if !outside && (hm < r.HeadMin*(1-1e-12) || hm > r.HeadMax*(1+1e-12)) {
-		return RatingValue{}, &Error{Op: op, Input: "head", Class: quantity.ErrRange,
-			Reason: fmt.Sprintf("head %.4g m is outside the range of validity %.4g … %.4g m: an extrapolation (use Extrapolate to make one deliberately)",
-				h.Value(), r.HeadMin/lambdaL, r.HeadMax/lambdaL)}
+		return RatingValue{}, &Error{Op: op, Fault: similarity.OutOfRange("head", fmt.Sprintf("head %.4g m is outside the range of validity %.4g … %.4g m: an extrapolation (use Extrapolate to make one deliberately)",
+			h.Value(), r.HeadMin/lambdaL, r.HeadMax/lambdaL))}
 	}
 	// A head at an end of the range, up to rounding in h·λ_L, is the end.
 	x := math.Log(hm)
@@ -366,7 +365,7 @@ func (r *Rating) at(op string, h quantity.Quantity, lambdaL, lambdaQ float64, ou
 		pr, err = r.fit.Predict(x)
 	}
 	if err != nil {
-		return RatingValue{}, wrap(op, "head", "the rating at this head", err)
+		return RatingValue{}, &Error{Op: op, Fault: similarity.Caused("head", "the rating at this head", err)}
 	}
 	qv := func(lnq float64) float64 { return math.Exp(lnq) / lambdaQ }
 	v := RatingValue{Head: h, Discharge: quantity.New(qv(pr.Y), quantity.VolumeFlowRate), RelU: pr.SE, Level: pr.Level, Extrapolated: pr.Extrapolated}
@@ -398,5 +397,5 @@ func asError(op, input string, err error) error {
 	if e, ok := err.(*Error); ok {
 		return e
 	}
-	return wrap(op, input, "the "+input, err)
+	return &Error{Op: op, Fault: similarity.Caused(input, "the "+input, err)}
 }

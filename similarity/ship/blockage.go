@@ -83,7 +83,7 @@ func TankBlockage(tank TankSection, ax, v, g quantity.Quantity) (BlockageCorrect
 	h := tank.Depth.Value()
 	m := ax.Value() / (tank.Width.Value() * h)
 	if !(m <= 0.1) {
-		return BlockageCorrection{}, &Error{Class: quantity.ErrInvalid, Op: method, Reason: fmt.Sprintf("blockage m = A_x/(b·h) = %.4g: above 0.1 a mean-flow correction is not meaningful; use a larger tank or a smaller model", m)}
+		return BlockageCorrection{}, &Error{Op: method, Fault: similarity.Invalid("", fmt.Sprintf("blockage m = A_x/(b·h) = %.4g: above 0.1 a mean-flow correction is not meaningful; use a larger tank or a smaller model", m))}
 	}
 	// √g·√h rather than √(g·h), and Fh before its square, so that
 	// extreme finite inputs do not overflow an intermediate product.
@@ -95,12 +95,12 @@ func TankBlockage(tank TankSection, ax, v, g quantity.Quantity) (BlockageCorrect
 	fhc := chokingFroude(m)
 	r.ChokingSpeed = quantity.New(fhc*celerity, quantity.Velocity)
 	if !(r.DepthFroude < fhc) {
-		return r, &Error{Class: quantity.ErrInvalid, Op: method, Reason: fmt.Sprintf("depth Froude number %.4g at or above the choking value %.4g (m = %.4g): no steady mean flow past the model", r.DepthFroude, fhc, m)}
+		return r, &Error{Op: method, Fault: similarity.Invalid("", fmt.Sprintf("depth Froude number %.4g at or above the choking value %.4g (m = %.4g): no steady mean flow past the model", r.DepthFroude, fhc, m))}
 	}
 	r.LinearCorrection = m / (1 - m - fh2)
 	s, err := meanFlowRoot(m, fh2)
 	if err != nil {
-		return r, wrap(method, "blockage m", "no mean-flow speed", err)
+		return r, &Error{Op: method, Fault: similarity.Caused("blockage m", "no mean-flow speed", err)}
 	}
 	r.SpeedCorrection = s - 1
 	r.Speed = quantity.New(v.Value()*s, quantity.Velocity)
@@ -109,8 +109,8 @@ func TankBlockage(tank TankSection, ax, v, g quantity.Quantity) (BlockageCorrect
 	r.CTFactor = 1 / (s * s)
 	if !allFinite(r.Blockage, r.DepthFroude, r.LinearCorrection, r.SpeedCorrection, r.Speed.Value(), r.SurfaceDrop.Value(),
 		r.CTFactor, r.ChokingSpeed.Value()) || !(celerity > 0) {
-		return BlockageCorrection{}, &Error{Class: quantity.ErrInvalid, Op: method, Reason: fmt.Sprintf("the correction is not finite for tank %v × %v, section %v, speed %v, g = %v (inputs beyond any tank)",
-			tank.Width, tank.Depth, ax, v, g)}
+		return BlockageCorrection{}, &Error{Op: method, Fault: similarity.Invalid("", fmt.Sprintf("the correction is not finite for tank %v × %v, section %v, speed %v, g = %v (inputs beyond any tank)",
+			tank.Width, tank.Depth, ax, v, g))}
 	}
 	return r, nil
 }

@@ -104,7 +104,9 @@ const HullCaution = "Full-scale resistance and power from a model test are estim
 // ExtrapolateHull carries towed-model resistance to the ship by the
 // ITTC-1957 method (with a form factor if one is given).
 func ExtrapolateHull(t HullTest) (*HullResult, error) {
-	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: "hull extrapolation", Reason: r} }
+	m := func(r string) error {
+		return &Error{Op: "hull extrapolation", Fault: similarity.Invalid("", r)}
+	}
 	if !(t.Scale > 0 && t.Scale < 1) {
 		return nil, m(fmt.Sprintf("scale %v: want model/ship between 0 and 1", t.Scale))
 	}
@@ -159,7 +161,7 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 				if side.ship {
 					where = "ship"
 				}
-				return nil, wrap("hull extrapolation", fmt.Sprintf("run %d, %s", i, where), fmt.Sprintf("run %d, %s", i, where), side.err)
+				return nil, &Error{Op: "hull extrapolation", Fault: similarity.Caused(fmt.Sprintf("run %d, %s", i, where), fmt.Sprintf("run %d, %s", i, where), side.err)}
 			}
 			return nil, err
 		}

@@ -188,7 +188,7 @@ func water(w fluids.Water, T uncertain.Measured) (rho, nu uncertain.Measured, er
 // separate source (ProhaskaResult.FormFactorStdErr is its Type A part).
 func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
 	m := func(s string) error {
-		return &Error{Class: quantity.ErrInvalid, Op: "hull extrapolation with uncertainty", Reason: s}
+		return &Error{Op: "hull extrapolation with uncertainty", Fault: similarity.Invalid("", s)}
 	}
 	if !(r.Scale > 0 && r.Scale < 1) {
 		return HullRunResult{}, m(fmt.Sprintf("scale %v: want model/ship between 0 and 1", r.Scale))
@@ -217,10 +217,10 @@ func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
 	var res HullRunResult
 	var err error
 	if res.TankDensity, res.TankViscosity, err = water(r.Tank, r.TankTemperature); err != nil {
-		return HullRunResult{}, wrap(method, "tank temperature", "tank water", err)
+		return HullRunResult{}, &Error{Op: method, Fault: similarity.Caused("tank temperature", "tank water", err)}
 	}
 	if res.SeaDensity, res.SeaViscosity, err = water(r.Sea, r.SeaTemperature); err != nil {
-		return HullRunResult{}, wrap(method, "sea temperature", "sea water", err)
+		return HullRunResult{}, &Error{Op: method, Fault: similarity.Caused("sea temperature", "sea water", err)}
 	}
 	res, err = hullRun(r, g, res)
 	if err != nil {
@@ -240,7 +240,7 @@ func hullRun(r HullRun, g quantity.Quantity, res HullRunResult) (HullRunResult, 
 	if err != nil {
 		var te *uncertain.TermsError
 		if errors.As(err, &te) {
-			return HullRunResult{}, &Error{Class: quantity.ErrInvalid, Op: "hull extrapolation with uncertainty", Reason: fmt.Sprintf("more than %d sources for one run: combine some before the extrapolation", uncertain.MaxTerms)}
+			return HullRunResult{}, &Error{Op: "hull extrapolation with uncertainty", Fault: similarity.Invalid("", fmt.Sprintf("more than %d sources for one run: combine some before the extrapolation", uncertain.MaxTerms))}
 		}
 		var side *hullSide
 		if errors.As(err, &side) {
@@ -251,7 +251,7 @@ func hullRun(r HullRun, g quantity.Quantity, res HullRunResult) (HullRunResult, 
 	res.Froude, res.ModelCT, res.ModelCF, res.Residual = v.froude, v.ctM, v.cfM, v.residual
 	res.ShipSpeed, res.ShipCF, res.ShipCT, res.ShipResistance, res.EffectivePower = v.vs, v.cfS, v.ctS, v.rs, v.pe
 	if !allFinite(res.ShipResistance.Value(), res.EffectivePower.Value(), res.ShipResistance.U().Value(), res.EffectivePower.U().Value()) {
-		return HullRunResult{}, &Error{Class: quantity.ErrInvalid, Op: "hull extrapolation with uncertainty", Reason: "the ship resistance or its uncertainty is not finite"}
+		return HullRunResult{}, &Error{Op: "hull extrapolation with uncertainty", Fault: similarity.Invalid("", "the ship resistance or its uncertainty is not finite")}
 	}
 	res.Warning = hullWarning("", v.reM.Value(), v.ctM.Value(), v.residual.Value(), v.rs.Value())
 	return res, nil

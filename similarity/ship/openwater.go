@@ -103,13 +103,13 @@ func PropellerReynolds(chord, speed quantity.Quantity, revsPerSecond float64, di
 		return 0, err
 	}
 	if !(speed.Value() >= 0) || math.IsInf(speed.Value(), 0) {
-		return 0, invalid(op, "advance speed", fmt.Sprintf("advance speed %v m/s: want a finite value ≥ 0", speed.Value()))
+		return 0, &Error{Op: op, Fault: similarity.Invalid("advance speed", fmt.Sprintf("advance speed %v m/s: want a finite value ≥ 0", speed.Value()))}
 	}
 	if !(revsPerSecond > 0) || math.IsInf(revsPerSecond, 0) {
-		return 0, invalid(op, "n", fmt.Sprintf("n = %v rev/s: want a positive finite rate of revolution", revsPerSecond))
+		return 0, &Error{Op: op, Fault: similarity.Invalid("n", fmt.Sprintf("n = %v rev/s: want a positive finite rate of revolution", revsPerSecond))}
 	}
 	if !(x > 0 && x <= 1) {
-		return 0, invalid(op, "r/R", fmt.Sprintf("radius fraction r/R = %v: want 0 < r/R ≤ 1", x))
+		return 0, &Error{Op: op, Fault: similarity.Invalid("r/R", fmt.Sprintf("radius fraction r/R = %v: want 0 < r/R ≤ 1", x))}
 	}
 	u := x * math.Pi * revsPerSecond * diameter.Value()
 	re := chord.Value() * math.Hypot(speed.Value(), u) / nu.Value()
@@ -138,10 +138,10 @@ func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 		return nil, err
 	}
 	if len(t.Runs) < MinOpenWaterRuns || len(t.Runs) > fit.MaxRows {
-		return nil, invalid(op, "runs", fmt.Sprintf("%d runs: want %d … %d", len(t.Runs), MinOpenWaterRuns, fit.MaxRows))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("runs", fmt.Sprintf("%d runs: want %d … %d", len(t.Runs), MinOpenWaterRuns, fit.MaxRows))}
 	}
 	if t.Order < 0 || t.Order > 6 {
-		return nil, invalid(op, "order", fmt.Sprintf("polynomial order %d: want 1 … 6, or 0 to choose it", t.Order))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("order", fmt.Sprintf("polynomial order %d: want 1 … 6, or 0 to choose it", t.Order))}
 	}
 	d, rho, nu := t.Diameter.Value(), t.Water.Density.Value(), t.Water.KinematicViscosity
 	f := &OpenWaterFit{MinReynolds: math.Inf(1)}
@@ -152,30 +152,30 @@ func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 				return nil, err
 			}
 			if v := c.Value.Value(); math.IsNaN(v) || math.IsInf(v, 0) {
-				return nil, invalid(op, c.Name, fmt.Sprintf("%s = %v: not a finite number (a missing value?)", c.Name, v))
+				return nil, &Error{Op: op, Fault: similarity.Invalid(c.Name, fmt.Sprintf("%s = %v: not a finite number (a missing value?)", c.Name, v))}
 			}
 		}
 		va, n, th, q := r.Speed.Value(), r.RevsPerSecond, r.Thrust.Value(), r.Torque.Value()
 		if !(n > 0) || math.IsInf(n, 0) {
-			return nil, invalid(op, name+": n", fmt.Sprintf("%s: n = %v rev/s: want a positive finite rate of revolution", name, n))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(name+": n", fmt.Sprintf("%s: n = %v rev/s: want a positive finite rate of revolution", name, n))}
 		}
 		if !(va >= 0) {
-			return nil, invalid(op, name+": advance speed", fmt.Sprintf("%s: V_A = %v m/s: want ≥ 0 (a propeller going astern is not an open-water curve)", name, va))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(name+": advance speed", fmt.Sprintf("%s: V_A = %v m/s: want ≥ 0 (a propeller going astern is not an open-water curve)", name, va))}
 		}
 		if !(q > 0) {
-			return nil, invalid(op, name+": torque", fmt.Sprintf("%s: Q = %v N·m: want a positive torque (at or beyond zero torque the propeller is windmilling)", name, q))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(name+": torque", fmt.Sprintf("%s: Q = %v N·m: want a positive torque (at or beyond zero torque the propeller is windmilling)", name, q))}
 		}
 		re, err := PropellerReynolds(t.Chord, r.Speed, n, t.Diameter, 0.7, nu)
 		if err != nil {
-			return nil, wrap(op, name, name, err)
+			return nil, &Error{Op: op, Fault: similarity.Caused(name, name, err)}
 		}
 		p := OpenWaterReduced{J: va / (n * d), KT: th / (rho * n * n * d * d * d * d), KQ: q / (rho * n * n * d * d * d * d * d), Reynolds: re}
 		p.Eta0 = p.J * p.KT / (2 * math.Pi * p.KQ)
 		if !allFinite(p.J, p.KT, p.KQ, p.Eta0) || !(p.KQ > 0) {
-			return nil, outOfRange(op, name, fmt.Sprintf("%s: the coefficients J = %v, K_T = %v, K_Q = %v are out of the range of a float64", name, p.J, p.KT, p.KQ))
+			return nil, &Error{Op: op, Fault: similarity.OutOfRange(name, fmt.Sprintf("%s: the coefficients J = %v, K_T = %v, K_Q = %v are out of the range of a float64", name, p.J, p.KT, p.KQ))}
 		}
 		if !(p.J <= 2) || !(math.Abs(p.KT) < 2) || !(p.KQ < 1) {
-			return nil, invalid(op, name, fmt.Sprintf("%s: J = %.4g, K_T = %.4g, K_Q = %.4g: want J ≤ 2, |K_T| < 2, K_Q < 1 (a unit slip: n in rev/s, D in m?)", name, p.J, p.KT, p.KQ))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(name, fmt.Sprintf("%s: J = %.4g, K_T = %.4g, K_Q = %.4g: want J ≤ 2, |K_T| < 2, K_Q < 1 (a unit slip: n in rev/s, D in m?)", name, p.J, p.KT, p.KQ))}
 		}
 		f.MinReynolds, f.MaxReynolds = min(f.MinReynolds, re), max(f.MaxReynolds, re)
 		f.Points = append(f.Points, p)
@@ -195,7 +195,7 @@ func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 	}
 	f.JMin, f.JMax = js[0], js[len(js)-1]
 	if !(f.JMax-f.JMin > 0.05) {
-		return nil, invalid(op, "runs", fmt.Sprintf("the runs span J = %.4g … %.4g: too narrow a range to fair a curve", f.JMin, f.JMax))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("runs", fmt.Sprintf("the runs span J = %.4g … %.4g: too narrow a range to fair a curve", f.JMin, f.JMax))}
 	}
 	opt := &fit.Options{Level: t.Level}
 	var err error
@@ -210,11 +210,11 @@ func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 			*c.dst, err = fit.SelectPoly(js, c.y, 4, t.Criterion, opt)
 		}
 		if err != nil {
-			return nil, wrap(op, c.name, "fairing "+c.name+" against J", err)
+			return nil, &Error{Op: op, Fault: similarity.Caused(c.name, "fairing "+c.name+" against J", err)}
 		}
 	}
 	if inc, err := f.KT.Monotone(f.JMin, f.JMax); err != nil || inc {
-		return nil, invalid(op, "K_T", fmt.Sprintf("the faired K_T (order %d) is not decreasing over J = %.4g … %.4g: thrust identity needs one J for each K_T (choose another order, or check the runs)", f.KT.Order, f.JMin, f.JMax))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("K_T", fmt.Sprintf("the faired K_T (order %d) is not decreasing over J = %.4g … %.4g: thrust identity needs one J for each K_T (choose another order, or check the runs)", f.KT.Order, f.JMin, f.JMax))}
 	}
 	var warn []string
 	if f.MinReynolds < UsualOpenWaterReynolds {
@@ -234,7 +234,7 @@ func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 // range (an *Error of class quantity.ErrRange otherwise).
 func (f *OpenWaterFit) At(j float64) (OpenWaterPoint, error) {
 	if !(j >= f.JMin && j <= f.JMax) {
-		return OpenWaterPoint{}, outOfRange("open-water curve", "J", fmt.Sprintf("J = %v is outside the measured J = %.4g … %.4g: the faired curve is not extrapolated", j, f.JMin, f.JMax))
+		return OpenWaterPoint{}, &Error{Op: "open-water curve", Fault: similarity.OutOfRange("J", fmt.Sprintf("J = %v is outside the measured J = %.4g … %.4g: the faired curve is not extrapolated", j, f.JMin, f.JMax))}
 	}
 	return OpenWaterPoint{J: j, KT: f.KT.Eval(j), KQ: f.KQ.Eval(j)}, nil
 }
@@ -247,7 +247,7 @@ func (f *OpenWaterFit) Eta0(j float64) (float64, error) {
 		return 0, err
 	}
 	if !(p.KQ > 0) {
-		return 0, outOfRange("open-water curve", "K_Q", fmt.Sprintf("the faired K_Q at J = %.4g is %v: η₀ is not defined", j, p.KQ))
+		return 0, &Error{Op: "open-water curve", Fault: similarity.OutOfRange("K_Q", fmt.Sprintf("the faired K_Q at J = %.4g is %v: η₀ is not defined", j, p.KQ))}
 	}
 	return j * p.KT / (2 * math.Pi * p.KQ), nil
 }
@@ -261,11 +261,11 @@ func (f *OpenWaterFit) JForKT(kt float64) (float64, error) {
 	g := func(j float64) float64 { return f.KT.Eval(j) - kt }
 	hi, lo := f.KT.Eval(f.JMin), f.KT.Eval(f.JMax)
 	if !(kt <= hi && kt >= lo) {
-		return 0, outOfRange(op, "K_T", fmt.Sprintf("K_T = %.5g is outside the faired open-water K_T = %.5g … %.5g (J = %.4g … %.4g): the curve is not extrapolated", kt, lo, hi, f.JMin, f.JMax))
+		return 0, &Error{Op: op, Fault: similarity.OutOfRange("K_T", fmt.Sprintf("K_T = %.5g is outside the faired open-water K_T = %.5g … %.5g (J = %.4g … %.4g): the curve is not extrapolated", kt, lo, hi, f.JMin, f.JMax))}
 	}
 	j, err := roots.Bisect(g, f.JMin, f.JMax)
 	if err != nil {
-		return 0, wrap(op, "K_T", "no J for this K_T on the faired curve", err)
+		return 0, &Error{Op: op, Fault: similarity.Caused("K_T", "no J for this K_T on the faired curve", err)}
 	}
 	return j, nil
 }
@@ -274,7 +274,7 @@ func (f *OpenWaterFit) JForKT(kt float64) (float64, error) {
 // range (2 ≤ n ≤ 1000), for a printed table or for PoweringInput.OpenWater.
 func (f *OpenWaterFit) Table(n int) ([]OpenWaterPoint, error) {
 	if n < 2 || n > 1000 {
-		return nil, invalid("open-water curve", "points", fmt.Sprintf("%d points: want 2 … 1000", n))
+		return nil, &Error{Op: "open-water curve", Fault: similarity.Invalid("points", fmt.Sprintf("%d points: want 2 … 1000", n))}
 	}
 	out := make([]OpenWaterPoint, n)
 	for i := range n {

@@ -38,13 +38,13 @@ func FairResistance(test HullTest, order int) (*ResistanceFit, error) {
 	}
 	n := len(test.Speeds)
 	if n != len(test.Resistances) {
-		return nil, invalid(op, "runs", fmt.Sprintf("%d speeds and %d resistances", n, len(test.Resistances)))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("runs", fmt.Sprintf("%d speeds and %d resistances", n, len(test.Resistances)))}
 	}
 	if n < 5 || n > fit.MaxRows {
-		return nil, invalid(op, "runs", fmt.Sprintf("%d runs: want 5 … %d to fair a resistance curve", n, fit.MaxRows))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("runs", fmt.Sprintf("%d runs: want 5 … %d to fair a resistance curve", n, fit.MaxRows))}
 	}
 	if order < 0 || order > 6 {
-		return nil, invalid(op, "order", fmt.Sprintf("polynomial order %d: want 1 … 6, or 0 to choose it", order))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("order", fmt.Sprintf("polynomial order %d: want 1 … 6, or 0 to choose it", order))}
 	}
 	r := &ResistanceFit{Density: test.Tank.Density.Value(), WettedArea: test.ModelWettedArea.Value()}
 	v, ct := make([]float64, n), make([]float64, n)
@@ -66,7 +66,7 @@ func FairResistance(test HullTest, order int) (*ResistanceFit, error) {
 		r.CT, err = fit.SelectPoly(v, ct, 5, fit.AICc, nil)
 	}
 	if err != nil {
-		return nil, wrap(op, "C_TM", "fairing C_TM against the model speed", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("C_TM", "fairing C_TM against the model speed", err)}
 	}
 	r.Warning = joinWarnings(outlierNotes(r.CT, "V_M", " m/s", "C_TM"))
 	return r, nil
@@ -82,7 +82,7 @@ func (r *ResistanceFit) At(v quantity.Quantity) (quantity.Quantity, fit.Predicti
 	}
 	p, err := r.CT.Predict(v.Value())
 	if err != nil {
-		return quantity.Quantity{}, fit.Prediction{}, wrap(op, "model speed", fmt.Sprintf("model speed %.4g m/s", v.Value()), err)
+		return quantity.Quantity{}, fit.Prediction{}, &Error{Op: op, Fault: similarity.Caused("model speed", fmt.Sprintf("model speed %.4g m/s", v.Value()), err)}
 	}
 	x := v.Value()
 	return quantity.New(p.Y*0.5*r.Density*x*x*r.WettedArea, quantity.Force), p, nil
@@ -133,7 +133,7 @@ type SkinFriction struct {
 func SkinFrictionCorrection(in PoweringInput) (SkinFriction, error) {
 	const op = "skin-friction correction"
 	if !(in.Scale > 0 && in.Scale < 1) {
-		return SkinFriction{}, invalid(op, "scale", fmt.Sprintf("scale %v: want model/ship between 0 and 1", in.Scale))
+		return SkinFriction{}, &Error{Op: op, Fault: similarity.Invalid("scale", fmt.Sprintf("scale %v: want model/ship between 0 and 1", in.Scale))}
 	}
 	if err := fail(op, similarity.CheckInputs(true,
 		similarity.Input{Name: "model length", Value: in.ModelLength, Dim: quantity.Length}, similarity.Input{Name: "model wetted area", Value: in.ModelWettedArea, Dim: quantity.Area},
@@ -144,10 +144,10 @@ func SkinFrictionCorrection(in PoweringInput) (SkinFriction, error) {
 	}
 	k1 := in.FormFactor
 	if !(k1 >= 1 && k1 <= 2) {
-		return SkinFriction{}, invalid(op, "form factor", fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", k1))
+		return SkinFriction{}, &Error{Op: op, Fault: similarity.Invalid("form factor", fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", k1))}
 	}
 	if !(math.Abs(in.CorrelationAllowance) <= 0.005) || (in.ZeroCorrelationAllowance && in.CorrelationAllowance != 0) {
-		return SkinFriction{}, invalid(op, "correlation allowance C_A", fmt.Sprintf("C_A = %v: want a finite value within ±0.005, and zero with ZeroCorrelationAllowance", in.CorrelationAllowance))
+		return SkinFriction{}, &Error{Op: op, Fault: similarity.Invalid("correlation allowance C_A", fmt.Sprintf("C_A = %v: want a finite value within ±0.005, and zero with ZeroCorrelationAllowance", in.CorrelationAllowance))}
 	}
 	ksq, bad := similarity.OrDefault("hull roughness", in.HullRoughness, quantity.New(150e-6, quantity.Length))
 	if bad != nil {
@@ -160,10 +160,10 @@ func SkinFrictionCorrection(in PoweringInput) (SkinFriction, error) {
 	s.ModelReynolds = vm * lm / in.Tank.KinematicViscosity.Value()
 	s.ShipReynolds = vs * ls / in.Sea.KinematicViscosity.Value()
 	if s.ModelCF, err = LineITTC1957.CF(s.ModelReynolds); err != nil {
-		return SkinFriction{}, wrap(op, "model Reynolds number", "the model's friction coefficient", err)
+		return SkinFriction{}, &Error{Op: op, Fault: similarity.Caused("model Reynolds number", "the model's friction coefficient", err)}
 	}
 	if s.ShipCF, err = LineITTC1957.CF(s.ShipReynolds); err != nil {
-		return SkinFriction{}, wrap(op, "ship Reynolds number", "the ship's friction coefficient", err)
+		return SkinFriction{}, &Error{Op: op, Fault: similarity.Caused("ship Reynolds number", "the ship's friction coefficient", err)}
 	}
 	s.RoughnessAllowance = 0.044*(math.Cbrt(ksq.Value()/ls)-10*math.Pow(s.ShipReynolds, -1.0/3)) + 0.000125
 	switch {
@@ -252,17 +252,17 @@ func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) 
 		return nil, err
 	}
 	if t.OpenWater == nil || t.OpenWater.KT == nil || t.OpenWater.KQ == nil {
-		return nil, invalid(op, "open-water curve", "the analysis needs the faired open-water curve (ReduceOpenWater)")
+		return nil, &Error{Op: op, Fault: similarity.Invalid("open-water curve", "the analysis needs the faired open-water curve (ReduceOpenWater)")}
 	}
 	np := t.Propellers
 	if np == 0 {
 		np = 1
 	}
 	if np != 1 && np != 2 {
-		return nil, invalid(op, "propellers", fmt.Sprintf("%d propellers: want 1 or 2", np))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("propellers", fmt.Sprintf("%d propellers: want 1 or 2", np))}
 	}
 	if len(t.Runs) == 0 || len(t.Runs) > fit.MaxRows {
-		return nil, invalid(op, "runs", fmt.Sprintf("%d runs: want 1 … %d", len(t.Runs), fit.MaxRows))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("runs", fmt.Sprintf("%d runs: want 1 … %d", len(t.Runs), fit.MaxRows))}
 	}
 	d, rho := t.Diameter.Value(), t.Water.Density.Value()
 	out := make([]SelfPropulsionPoint, 0, len(t.Runs))
@@ -276,11 +276,11 @@ func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) 
 			return nil, err
 		}
 		if fd := r.TowingForce.Value(); math.IsNaN(fd) || math.IsInf(fd, 0) {
-			return nil, invalid(op, name+": towing force", fmt.Sprintf("%s: towing force %v N: not a finite number", name, fd))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(name+": towing force", fmt.Sprintf("%s: towing force %v N: not a finite number", name, fd))}
 		}
 		n := r.RevsPerSecond
 		if !(n > 0) || math.IsInf(n, 0) {
-			return nil, invalid(op, name+": n", fmt.Sprintf("%s: n = %v rev/s: want a positive finite rate of revolution", name, n))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(name+": n", fmt.Sprintf("%s: n = %v rev/s: want a positive finite rate of revolution", name, n))}
 		}
 		p := SelfPropulsionPoint{ModelSpeed: r.ModelSpeed.Value(), RevsPerSecond: n, TowingForce: r.TowingForce.Value()}
 		if r.Resistance != (quantity.Quantity{}) {
@@ -290,11 +290,11 @@ func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) 
 			p.Resistance = r.Resistance.Value()
 		} else {
 			if t.Resistance == nil {
-				return nil, invalid(op, name+": resistance", name+": no resistance given and no faired resistance curve")
+				return nil, &Error{Op: op, Fault: similarity.Invalid(name+": resistance", name+": no resistance given and no faired resistance curve")}
 			}
 			rt, _, err := t.Resistance.At(r.ModelSpeed)
 			if err != nil {
-				return nil, wrap(op, name+": resistance", name, err)
+				return nil, &Error{Op: op, Fault: similarity.Caused(name+": resistance", name, err)}
 			}
 			p.Resistance = rt.Value()
 		}
@@ -306,7 +306,7 @@ func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) 
 		}
 		j, err := t.OpenWater.JForKT(p.KT)
 		if err != nil {
-			return nil, wrap(op, name+": K_TM", fmt.Sprintf("%s: thrust identity (K_TM = %.5g)", name, p.KT), err)
+			return nil, &Error{Op: op, Fault: similarity.Caused(name+": K_TM", fmt.Sprintf("%s: thrust identity (K_TM = %.5g)", name, p.KT), err)}
 		}
 		p.J = j
 		p.KQ0 = t.OpenWater.KQ.Eval(j)
@@ -317,11 +317,12 @@ func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) 
 		p.Eta0 = j * p.KT / (2 * math.Pi * p.KQ0)
 		p.EtaD = p.EtaH * p.Eta0 * p.RelativeRotative
 		if !allFinite(p.Wake, p.ThrustDeduction, p.RelativeRotative, p.EtaH, p.Eta0, p.EtaD) {
-			return nil, outOfRange(op, name, name+": the factors are out of the range of a float64")
+			return nil, &Error{Op: op, Fault: similarity.OutOfRange(name, name+": the factors are out of the range of a float64")}
 		}
 		if !(p.Wake >= 0 && p.Wake < 1) || !(p.ThrustDeduction > -0.5 && p.ThrustDeduction < 1) || !(p.RelativeRotative > 0.5 && p.RelativeRotative < 1.5) {
-			return nil, invalid(op, name, fmt.Sprintf("%s: w_TM = %.4g, t = %.4g, η_R = %.4g: not the factors of a propelled hull (want 0 ≤ w_TM < 1, −0.5 < t < 1, 0.5 < η_R < 1.5; a unit slip, or the wrong open-water curve?)",
-				name, p.Wake, p.ThrustDeduction, p.RelativeRotative))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(name, fmt.Sprintf("%s: w_TM = %.4g, t = %.4g, η_R = %.4g: not the factors of a propelled hull (want 0 ≤ w_TM < 1, −0.5 < t < 1, 0.5 < η_R < 1.5; a unit slip, or the wrong open-water curve?)",
+				name, p.Wake, p.ThrustDeduction, p.RelativeRotative))}
+
 		}
 		out = append(out, p)
 	}
