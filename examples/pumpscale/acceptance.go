@@ -5,7 +5,6 @@ import (
 	"image/color"
 	"io"
 	"math"
-	"os"
 	"path/filepath"
 	"strconv"
 	"strings"
@@ -14,9 +13,8 @@ import (
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
-	"gonum.org/v1/plot/vg/vgimg"
-	"gonum.org/v1/plot/vg/vgsvg"
 
+	"similis.dev/similis/examples/internal/plotstyle"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
 	"similis.dev/similis/similarity/turbo"
@@ -349,22 +347,10 @@ func plotAcceptance(dir string, a Acceptance, wIn, hIn, dpi float64) (string, st
 	}
 	png := filepath.Join(dir, "pumpscale-acceptance.png")
 	svg := filepath.Join(dir, "pumpscale-acceptance.svg")
-	w, h := vg.Length(wIn)*vg.Inch, vg.Length(hIn)*vg.Inch
-	draw2 := func(c draw.Canvas) {
-		tiles := draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Points(6), PadTop: vg.Points(2), PadBottom: vg.Points(2), PadLeft: vg.Points(2), PadRight: vg.Points(6)}
-		cs := plot.Align([][]*plot.Plot{{top}, {bottom}}, tiles, c)
-		top.Draw(cs[0][0])
-		bottom.Draw(cs[1][0])
-	}
-	ci := vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(int(math.Round(dpi))))
-	draw2(draw.New(ci))
-	if err := writeTo(png, vgimg.PngCanvas{Canvas: ci}); err != nil {
-		return "", "", err
-	}
-	cs := vgsvg.New(w, h)
-	draw2(draw.New(cs))
-	if err := writeTo(svg, cs); err != nil {
-		return "", "", err
+	for _, path := range []string{png, svg} {
+		if err := plotstyle.SaveStacked([]*plot.Plot{top, bottom}, path, wIn, hIn, dpi); err != nil {
+			return "", "", err
+		}
 	}
 	return png, svg, nil
 }
@@ -397,19 +383,6 @@ func (linearTicks) Ticks(lo, hi float64) []plot.Tick {
 		ts = append(ts, t)
 	}
 	return ts
-}
-
-// writeTo writes a canvas to a new file at path.
-func writeTo(path string, c io.WriterTo) error {
-	f, err := os.Create(path)
-	if err != nil {
-		return err
-	}
-	if _, err := c.WriteTo(f); err != nil {
-		f.Close()
-		return err
-	}
-	return f.Close()
 }
 
 // glyph returns the marker of series k: a distinct shape and colour.

@@ -8,7 +8,6 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"os"
 	"path/filepath"
 	"strconv"
 	"strings"
@@ -17,8 +16,6 @@ import (
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
-	"gonum.org/v1/plot/vg/vgimg"
-	"gonum.org/v1/plot/vg/vgsvg"
 
 	"similis.dev/similis/examples/internal/plotstyle"
 	q "similis.dev/similis/quantity"
@@ -254,7 +251,7 @@ func plotRating(dir string, r *hydraulic.Rating, table []hydraulic.RatingValue, 
 	png := filepath.Join(dir, "spillway-rating.png")
 	svg := filepath.Join(dir, "spillway-rating.svg")
 	for _, path := range []string{png, svg} {
-		if err := saveStacked([]*plot.Plot{pl, dev}, path, width, height, dpi); err != nil {
+		if err := plotstyle.SaveStacked([]*plot.Plot{pl, dev}, path, width, height, dpi); err != nil {
 			return "", "", err
 		}
 	}
@@ -349,30 +346,6 @@ func deviationPlot(r *hydraulic.Rating, scale, t0, t1 float64) (*plot.Plot, erro
 	pad := 0.08 * (yhi - ylo)
 	pl.Y.Min, pl.Y.Max = ylo-pad, yhi+pad
 	return pl, nil
-}
-
-// saveStacked writes the two plots one above the other, their data areas
-// aligned, as a .png (at dpi) or .svg file of the given size in inches.
-func saveStacked(pls []*plot.Plot, path string, wIn, hIn, dpi float64) error {
-	w, h := vg.Length(wIn)*vg.Inch, vg.Length(hIn)*vg.Inch
-	var c vg.CanvasWriterTo
-	if strings.ToLower(filepath.Ext(path)) == ".png" {
-		c = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(int(math.Round(dpi))))}
-	} else {
-		c = vgsvg.New(w, h)
-	}
-	cs := plot.Align([][]*plot.Plot{{pls[0]}, {pls[1]}}, draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Points(4), PadTop: vg.Points(4), PadBottom: vg.Points(4)}, draw.New(c))
-	pls[0].Draw(cs[0][0])
-	pls[1].Draw(cs[1][0])
-	f, err := os.Create(path)
-	if err != nil {
-		return err
-	}
-	if _, err := c.WriteTo(f); err != nil {
-		f.Close()
-		return err
-	}
-	return f.Close()
 }
 
 // labelledTicks labels every tick of a linear axis, at a step of 1, 2 or

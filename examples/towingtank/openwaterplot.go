@@ -11,7 +11,6 @@ import (
 	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
-	"gonum.org/v1/plot/vg/vgimg"
 
 	"similis.dev/similis/examples/internal/plotstyle"
 	"similis.dev/similis/similarity/ship"
@@ -73,14 +72,10 @@ func plotOpenWater(dir string, ow *ship.OpenWaterFit, size plotSize) (string, st
 	pl.Y.Min, pl.Y.Max = 0, 1.0
 	png := filepath.Join(dir, "towingtank-openwater.png")
 	svg := filepath.Join(dir, "towingtank-openwater.svg")
-	w, h := vg.Length(size.W)*vg.Inch, vg.Length(size.H)*vg.Inch
-	c := vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(size.DPI))
-	pl.Draw(draw.New(c))
-	if err := writeTo(png, vgimg.PngCanvas{Canvas: c}); err != nil {
-		return "", "", err
-	}
-	if err := pl.Save(w, h, svg); err != nil {
-		return "", "", err
+	for _, path := range []string{png, svg} {
+		if err := plotstyle.Save(pl, path, size.W, size.H, float64(size.DPI)); err != nil {
+			return "", "", err
+		}
 	}
 	return png, svg, nil
 }

@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"os"
 	"path/filepath"
 	"strings"
 
@@ -15,7 +14,6 @@ import (
 	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
-	"gonum.org/v1/plot/vg/vgimg"
 
 	"similis.dev/similis/examples/internal/plotstyle"
 	q "similis.dev/similis/quantity"
@@ -349,27 +347,10 @@ func plotCoefficients(dir string, k1 float64, pts []ship.PoweringResult, size pl
 	pl.Y.Min, pl.Y.Max = 0, ymax*1.6
 	png := filepath.Join(dir, "towingtank-coefficients.png")
 	svg := filepath.Join(dir, "towingtank-coefficients.svg")
-	w, h := vg.Length(size.W)*vg.Inch, vg.Length(size.H)*vg.Inch
-	c := vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(size.DPI))
-	pl.Draw(draw.New(c))
-	if err := writeTo(png, vgimg.PngCanvas{Canvas: c}); err != nil {
-		return "", "", err
-	}
-	if err := pl.Save(w, h, svg); err != nil {
-		return "", "", err
+	for _, path := range []string{png, svg} {
+		if err := plotstyle.Save(pl, path, size.W, size.H, float64(size.DPI)); err != nil {
+			return "", "", err
+		}
 	}
 	return png, svg, nil
-}
-
-// writeTo writes the canvas to the named file.
-func writeTo(name string, c io.WriterTo) error {
-	f, err := os.Create(name)
-	if err != nil {
-		return err
-	}
-	if _, err := c.WriteTo(f); err != nil {
-		f.Close()
-		return err
-	}
-	return f.Close()
 }

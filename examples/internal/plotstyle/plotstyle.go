@@ -22,6 +22,7 @@ import (
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/vgimg"
+	"gonum.org/v1/plot/vg/vgsvg"
 )
 
 // Subscripts is a text handler that draws "K_T" as K with a lowered,
@@ -237,17 +238,36 @@ func Marker(k int) draw.GlyphStyle {
 // Save writes pl to a .png (at dpi) or .svg file of the given size in
 // inches.
 func Save(pl *plot.Plot, path string, wIn, hIn, dpi float64) error {
+	return SaveStacked([]*plot.Plot{pl}, path, wIn, hIn, dpi)
+}
+
+// SaveStacked writes the plots one above the other, their axes aligned,
+// to a .png (at dpi) or .svg file of the given size in inches.
+func SaveStacked(pls []*plot.Plot, path string, wIn, hIn, dpi float64) error {
 	w, h := vg.Length(wIn)*vg.Inch, vg.Length(hIn)*vg.Inch
-	if strings.ToLower(filepath.Ext(path)) != ".png" {
-		return pl.Save(w, h, path)
+	var c vg.CanvasWriterTo
+	if strings.ToLower(filepath.Ext(path)) == ".png" {
+		c = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(int(math.Round(dpi))))}
+	} else {
+		c = vgsvg.New(w, h)
 	}
-	c := vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(int(math.Round(dpi))))
-	pl.Draw(draw.New(c))
+	if len(pls) == 1 {
+		pls[0].Draw(draw.New(c))
+	} else {
+		rows := make([][]*plot.Plot, len(pls))
+		for i, pl := range pls {
+			rows[i] = []*plot.Plot{pl}
+		}
+		cs := plot.Align(rows, draw.Tiles{Rows: len(pls), Cols: 1, PadY: vg.Points(4), PadTop: vg.Points(4), PadBottom: vg.Points(4)}, draw.New(c))
+		for i, pl := range pls {
+			pl.Draw(cs[i][0])
+		}
+	}
 	f, err := os.Create(path)
 	if err != nil {
 		return err
 	}
-	if _, err := (vgimg.PngCanvas{Canvas: c}).WriteTo(f); err != nil {
+	if _, err := c.WriteTo(f); err != nil {
 		f.Close()
 		return err
 	}
