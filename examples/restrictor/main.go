@@ -11,7 +11,6 @@
 package main
 
 import (
-	"flag"
 	"fmt"
 	"io"
 	"math"
@@ -228,24 +227,17 @@ func labelledSets(p *pigroups.Problem) []string {
 }
 
 func evaluate(w io.Writer, args []string) (*Result, error) {
-	fs := flag.NewFlagSet("restrictor", flag.ContinueOnError)
+	fs := cli.NewFlagSet("restrictor", usageText)
 	out := fs.String("out", os.TempDir(), "directory for restrictor-fit.png and restrictor-fit.svg")
 	rep := fs.String("repeat", "rho,V,d", "repeating set; it must give Eu, Re and L/d")
 	width := cli.FloatVar(fs, "width", 6, 2, 40, "in", "plot width")
 	height := cli.FloatVar(fs, "height", 4, 2, 40, "in", "plot height")
 	dpi := cli.FloatVar(fs, "dpi", 150, 36, 1200, "dots per inch", "PNG resolution")
-	fs.Usage = func() {
-		fmt.Fprint(fs.Output(), usageText)
-		fs.PrintDefaults()
-	}
-	if err := cli.Parse(fs, w, args); err != nil {
+	if err := cli.ParseFlags(fs, w, args); err != nil {
 		return nil, err
 	}
-	if fs.NArg() > 0 {
-		return nil, &cli.Error{Msg: fmt.Sprintf("unexpected argument %s: restrictor takes flags only", cli.Quote(fs.Arg(0)))}
-	}
-	if st, err := os.Stat(*out); err != nil || !st.IsDir() {
-		return nil, &cli.Error{Msg: fmt.Sprintf("-out %s: not a directory", cli.Quote(*out))}
+	if err := cli.Dir("out", *out); err != nil {
+		return nil, err
 	}
 	p, err := pigroups.NewProblem(
 		pigroups.Dep("dp", q.Pressure).WithKind("pressure difference"),

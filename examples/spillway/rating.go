@@ -197,28 +197,25 @@ func plotRating(dir string, r *hydraulic.Rating, table []hydraulic.RatingValue, 
 	fitLine.Width = vg.Points(1.5)
 	pl.Add(fitLine)
 	pl.Legend.Add("fitted rating (range of validity)", fitLine)
-	for k, band := range []plotter.XYs{lower, upper} {
-		ln, err := plotter.NewLine(band)
-		if err != nil {
-			return "", "", err
-		}
-		ln.Color = plotstyle.SeriesColor(1)
-		ln.Dashes = []vg.Length{vg.Points(4), vg.Points(2)}
-		pl.Add(ln)
-		if k == 0 {
-			pl.Legend.Add(fmt.Sprintf("%g %% band of the fit (no scale effects)", r.Level*100), ln)
-		}
-	}
-	for k, ex := range []plotter.XYs{below, above} {
-		ln, err := plotter.NewLine(ex)
-		if err != nil {
-			return "", "", err
-		}
-		ln.Color = plotstyle.SeriesColor(2)
-		ln.Dashes = []vg.Length{vg.Points(1), vg.Points(2)}
-		pl.Add(ln)
-		if k == 0 {
-			pl.Legend.Add("extrapolated", ln)
+	for _, pair := range []struct {
+		lines  [2]plotter.XYs
+		color  int
+		dashes []vg.Length
+		label  string
+	}{
+		{[2]plotter.XYs{lower, upper}, 1, []vg.Length{vg.Points(4), vg.Points(2)}, fmt.Sprintf("%g %% band of the fit (no scale effects)", r.Level*100)},
+		{[2]plotter.XYs{below, above}, 2, []vg.Length{vg.Points(1), vg.Points(2)}, "extrapolated"},
+	} {
+		for k, xy := range pair.lines {
+			ln, err := plotter.NewLine(xy)
+			if err != nil {
+				return "", "", err
+			}
+			ln.Color, ln.Dashes = plotstyle.SeriesColor(pair.color), pair.dashes
+			pl.Add(ln)
+			if k == 0 {
+				pl.Legend.Add(pair.label, ln)
+			}
 		}
 	}
 	for k, set := range []struct {

@@ -23,7 +23,6 @@
 package main
 
 import (
-	"flag"
 	"fmt"
 	"io"
 	"math"
@@ -130,11 +129,7 @@ func run(w io.Writer, args []string) error {
 }
 
 func evaluate(w io.Writer, args []string) (*Outcome, error) {
-	fs := flag.NewFlagSet("towingtank", flag.ContinueOnError)
-	fs.Usage = func() {
-		fmt.Fprint(fs.Output(), usageText)
-		fs.PrintDefaults()
-	}
+	fs := cli.NewFlagSet("towingtank", usageText)
 	scale := cli.FloatVar(fs, "scale", 16, 2, 100, "", "ship length over model length (the model is 2 m)")
 	tankT := cli.FloatVar(fs, "tank", 15, 1, 35, "°C", "tank (fresh) water temperature")
 	seaT := cli.FloatVar(fs, "sea", 15, 0, 35, "°C", "sea water temperature")
@@ -147,11 +142,8 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	plotH := cli.FloatVar(fs, "ploth", 4.5, 2, 30, "in", "plot height")
 	dpi := cli.FloatVar(fs, "dpi", 96, 50, 600, "dots per inch", "PNG resolution")
 	drawPlot := fs.Bool("plot", true, "write the PNG and SVG plots to -out")
-	if err := cli.Parse(fs, w, args); err != nil {
+	if err := cli.ParseFlags(fs, w, args); err != nil {
 		return nil, err
-	}
-	if fs.NArg() > 0 {
-		return nil, &cli.Error{Program: fs.Name(), Msg: "unexpected argument " + cli.Quote(fs.Arg(0)) + ": the program takes flags only"}
 	}
 	size := plotSize{W: *plotW, H: *plotH, DPI: int(*dpi), Skip: !*drawPlot}
 	tank, err := fluids.FreshWater().AtCelsius(*tankT)

@@ -91,6 +91,40 @@ func FloatVar(fs *flag.FlagSet, name string, def, min, max float64, unit, usage 
 	return &f.V
 }
 
+// NewFlagSet returns the flag set of the named command: it returns its
+// errors (flag.ContinueOnError), and its -h prints about, what the
+// program does and what its output means, then the flags.
+func NewFlagSet(name, about string) *flag.FlagSet {
+	fs := flag.NewFlagSet(name, flag.ContinueOnError)
+	fs.Usage = func() {
+		fmt.Fprint(fs.Output(), about)
+		fs.PrintDefaults()
+	}
+	return fs
+}
+
+// ParseFlags parses args as Parse does and refuses an argument left after
+// the flags with a usage error quoting it: the example commands take
+// flags only.
+func ParseFlags(fs *flag.FlagSet, w io.Writer, args []string) error {
+	if err := Parse(fs, w, args); err != nil {
+		return err
+	}
+	if fs.NArg() > 0 {
+		return &Error{Program: fs.Name(), Msg: fmt.Sprintf("unexpected argument %s: %s takes flags only", Quote(fs.Arg(0)), fs.Name())}
+	}
+	return nil
+}
+
+// Dir returns a usage error naming the flag unless path is an existing
+// directory.
+func Dir(flagName, path string) error {
+	if st, err := os.Stat(path); err != nil || !st.IsDir() {
+		return &Error{Msg: fmt.Sprintf("-%s %s: not a directory", flagName, Quote(path))}
+	}
+	return nil
+}
+
 // Parse parses args with fs, which must use flag.ContinueOnError. Usage
 // (for -h) goes to w; an error comes back with every piece of user text
 // in it quoted by Quote, and the flag package's own echo suppressed.

@@ -94,3 +94,25 @@ func TestExitCode(t *testing.T) {
 		}
 	}
 }
+
+// TestParseFlagsAndDir checks that a leftover argument and an -out that
+// is not a directory are usage errors quoting the text, and that -h
+// prints the about text before the flags.
+func TestParseFlagsAndDir(t *testing.T) {
+	fs := NewFlagSet("demo", "Usage: demo [flags]\n")
+	FloatVar(fs, "scale", 2, 1, 10, "", "scale")
+	var ce *Error
+	if err := ParseFlags(fs, io.Discard, []string{"-scale", "3", "extra\x1b"}); !errors.As(err, &ce) || ce.Msg != `unexpected argument "extra\x1b": demo takes flags only` {
+		t.Errorf("leftover argument: %v", err)
+	}
+	var sb strings.Builder
+	if err := ParseFlags(NewFlagSet("demo", "Usage: demo [flags]\n"), &sb, []string{"-h"}); !errors.Is(err, flag.ErrHelp) || !strings.HasPrefix(sb.String(), "Usage: demo [flags]\n") {
+		t.Errorf("-h: %v, printed %q", err, sb.String())
+	}
+	if err := Dir("out", t.TempDir()); err != nil {
+		t.Errorf("a directory refused: %v", err)
+	}
+	if err := Dir("out", "/nonexistent/dir"); !errors.As(err, &ce) || ce.Msg != `-out "/nonexistent/dir": not a directory` {
+		t.Errorf("no directory: %v", err)
+	}
+}
