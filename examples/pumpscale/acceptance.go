@@ -6,7 +6,6 @@ import (
 	"io"
 	"math"
 	"path/filepath"
-	"strconv"
 	"strings"
 
 	"gonum.org/v1/plot"
@@ -343,7 +342,7 @@ func plotAcceptance(dir string, a Acceptance, wIn, hIn, dpi float64) (string, st
 	bottom.Y.Min, bottom.Y.Max = math.Floor(bottom.Y.Min), math.Ceil(bottom.Y.Max)
 	for _, p := range []*plot.Plot{top, bottom} {
 		p.Add(plotter.NewGrid())
-		p.X.Tick.Marker, p.Y.Tick.Marker = linearTicks{}, linearTicks{}
+		p.X.Tick.Marker, p.Y.Tick.Marker = plotstyle.LinearTicks{}, plotstyle.LinearTicks{}
 	}
 	png := filepath.Join(dir, "pumpscale-acceptance.png")
 	svg := filepath.Join(dir, "pumpscale-acceptance.svg")
@@ -353,36 +352,6 @@ func plotAcceptance(dir string, a Acceptance, wIn, hIn, dpi float64) (string, st
 		}
 	}
 	return png, svg, nil
-}
-
-// linearTicks labels a linear axis at a step of 1, 2 or 5 times a power
-// of ten giving four to ten labels, with unlabelled ticks between.
-type linearTicks struct{}
-
-// Ticks returns the ticks for [lo, hi].
-func (linearTicks) Ticks(lo, hi float64) []plot.Tick {
-	if !(hi > lo) || math.IsInf(hi-lo, 0) {
-		return plot.DefaultTicks{}.Ticks(lo, hi)
-	}
-	p := math.Pow(10, math.Floor(math.Log10(hi-lo)))
-	step := p
-	for _, m := range []float64{0.1, 0.2, 0.5, 1, 2, 5} {
-		if (hi-lo)/(m*p) <= 10 {
-			step = m * p
-			break
-		}
-	}
-	prec := max(0, -int(math.Floor(math.Log10(step))))
-	var ts []plot.Tick
-	for i := math.Ceil(lo/step*2) / 2; i*step <= hi+1e-9*step; i += 0.5 {
-		v := i * step
-		t := plot.Tick{Value: v}
-		if i == math.Trunc(i) {
-			t.Label = strconv.FormatFloat(v, 'f', prec, 64)
-		}
-		ts = append(ts, t)
-	}
-	return ts
 }
 
 // glyph returns the marker of series k: a distinct shape and colour.

@@ -9,7 +9,6 @@ import (
 	"io"
 	"math"
 	"path/filepath"
-	"strconv"
 	"strings"
 
 	"gonum.org/v1/plot"
@@ -267,7 +266,7 @@ func deviationPlot(r *hydraulic.Rating, scale, t0, t1 float64) (*plot.Plot, erro
 	pl.X.Label.TextStyle.Handler, pl.Y.Label.TextStyle.Handler = h, h
 	pl.X.Tick.Label.Handler, pl.Y.Tick.Label.Handler = h, h
 	pl.X.Scale, pl.X.Tick.Marker = plot.LogScale{}, plotstyle.LogTicks{}
-	pl.Y.Tick.Marker = labelledTicks{}
+	pl.Y.Tick.Marker = plotstyle.LinearTicks{}
 	lo, hi := r.ProtoHeadRange()
 	var ys []float64
 	band := func(a, b float64, dashes []vg.Length, c int) error {
@@ -343,29 +342,4 @@ func deviationPlot(r *hydraulic.Rating, scale, t0, t1 float64) (*plot.Plot, erro
 	pad := 0.08 * (yhi - ylo)
 	pl.Y.Min, pl.Y.Max = ylo-pad, yhi+pad
 	return pl, nil
-}
-
-// labelledTicks labels every tick of a linear axis, at a step of 1, 2 or
-// 5 times a power of ten that gives at most eight of them.
-type labelledTicks struct{}
-
-// Ticks implements plot.Ticker.
-func (labelledTicks) Ticks(lo, hi float64) []plot.Tick {
-	if !(hi > lo) || math.IsInf(hi-lo, 0) {
-		return plot.DefaultTicks{}.Ticks(lo, hi)
-	}
-	p := math.Pow(10, math.Floor(math.Log10((hi-lo)/8)))
-	step := 10 * p
-	for _, m := range []float64{1, 2, 5} {
-		if (hi-lo)/(m*p) <= 8 {
-			step = m * p
-			break
-		}
-	}
-	var ticks []plot.Tick
-	for v := math.Ceil(lo/step) * step; v <= hi && len(ticks) < 20; v += step {
-		x := math.Round(v/step) * step
-		ticks = append(ticks, plot.Tick{Value: x, Label: strconv.FormatFloat(x, 'g', 4, 64)})
-	}
-	return ticks
 }
