@@ -74,13 +74,23 @@ func (f Fault) Is(target error) bool { return target != nil && target == f.Class
 // Unwrap returns the error that caused the fault, or nil.
 func (f Fault) Unwrap() error { return f.Err }
 
-// Cause returns Err, or nil when f is nil: what a trade returns for a
-// fault that is Err alone or for no fault.
+// Cause returns Err, or nil when f is nil.
 func (f *Fault) Cause() error {
 	if f == nil {
 		return nil
 	}
 	return f.Err
+}
+
+// Fail returns a trade's error for f, a fault found by a shared check in
+// the trade's procedure op: nil for no fault, Err itself for a fault that
+// is Err alone, and otherwise the error newErr makes of op and f (the
+// trade's error type embedding the Fault).
+func Fail[E error](op string, f *Fault, newErr func(op string, f Fault) E) error {
+	if f == nil || f.Reason == "" {
+		return f.Cause()
+	}
+	return newErr(op, *f)
 }
 
 // CheckInputs checks each input's dimension (a Fault whose Err is the

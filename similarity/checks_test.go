@@ -156,3 +156,22 @@ func TestFaultEmbedded(t *testing.T) {
 		t.Errorf("Caused of a classless error: class %v, want ErrInvalid", f.Class)
 	}
 }
+
+// TestFail checks the three outcomes of Fail: no fault, a fault that is
+// its cause alone (returned as it is), and a fault made the trade's error.
+func TestFail(t *testing.T) {
+	newErr := func(op string, f similarity.Fault) *testError { return &testError{Op: op, Fault: f} }
+	if err := similarity.Fail("fit", nil, newErr); err != nil {
+		t.Errorf("no fault: %v", err)
+	}
+	bare := similarity.CheckInputs(true, similarity.Input{Name: "head", Value: quantity.New(1, quantity.Pressure), Dim: quantity.Length})
+	var de *quantity.DimensionError
+	if err := similarity.Fail("fit", bare, newErr); !errors.As(err, &de) || err != bare.Err {
+		t.Errorf("dimension fault: %v (%T), want the *quantity.DimensionError itself", err, err)
+	}
+	f := similarity.Invalid("head", "head must be positive")
+	var te *testError
+	if err := similarity.Fail("fit", &f, newErr); !errors.As(err, &te) || te.Op != "fit" || err.Error() != "trade: fit: head must be positive" {
+		t.Errorf("fault: %v", err)
+	}
+}

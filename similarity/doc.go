@@ -39,8 +39,9 @@
 // takes its default), CheckResults (a finite result) and CheckRatios (a
 // positive finite model/prototype ratio) describe what they find wrong in
 // a Fault, which is not an error: each trade's one error type embeds it
-// beside the name of its procedure (Invalid, OutOfRange and Caused build
-// the others a trade reports); ClassOf gives the class a wrapped error
+// beside the name of its procedure and reports a check's fault through
+// Fail (Invalid, OutOfRange and Caused build the other faults a trade
+// reports); ClassOf gives the class a wrapped error
 // keeps, Solution.RatioValues the ratios a rule's result is built from,
 // and FormatTable the tables of the core's and the trades' reports.
 //

@@ -30,11 +30,8 @@ func (e *Error) Error() string {
 	return s + e.Message()
 }
 
-// fail reports f, a fault found by a shared check of package similarity,
-// as an error of procedure op; nil for no fault.
-func fail(op string, f *similarity.Fault) error {
-	if f == nil || f.Reason == "" {
-		return f.Cause()
-	}
-	return &Error{Op: op, Fault: *f}
-}
+// fail reports a fault found by a shared check as an *Error of op.
+func fail(op string, f *similarity.Fault) error { return similarity.Fail(op, f, newError) }
+
+// newError returns the *Error of procedure op for fault f.
+func newError(op string, f similarity.Fault) *Error { return &Error{Op: op, Fault: f} }
