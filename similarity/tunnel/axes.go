@@ -30,11 +30,8 @@ const (
 
 // String returns "stability axes" or "wind axes".
 func (a Axes) String() string {
-	switch a {
-	case StabilityAxes:
-		return "stability axes"
-	case WindAxes:
-		return "wind axes"
+	if a == StabilityAxes || a == WindAxes {
+		return [...]string{"stability axes", "wind axes"}[a-StabilityAxes]
 	}
 	return fmt.Sprintf("Axes(%d)", uint8(a))
 }

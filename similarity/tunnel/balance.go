@@ -100,11 +100,8 @@ const (
 
 // String returns the form's name as a calibration file writes it.
 func (f Form) String() string {
-	switch f {
-	case LoadsFromReadings:
-		return "loads-from-readings"
-	case ReadingsFromLoads:
-		return "readings-from-loads"
+	if f == LoadsFromReadings || f == ReadingsFromLoads {
+		return [...]string{"loads-from-readings", "readings-from-loads"}[f-LoadsFromReadings]
 	}
 	return fmt.Sprintf("Form(%d)", uint8(f))
 }

@@ -68,11 +68,8 @@ const (
 
 // String names the method.
 func (m StepUpMethod) String() string {
-	switch m {
-	case StepUpAtBEP:
-		return "the best-efficiency-point gain added at every point (common practice; IEC 60193's approach)"
-	case StepUpEachPoint:
-		return "the formula applied at each point"
+	if m == StepUpAtBEP || m == StepUpEachPoint {
+		return [...]string{"the best-efficiency-point gain added at every point (common practice; IEC 60193's approach)", "the formula applied at each point"}[m]
 	}
 	return fmt.Sprintf("StepUpMethod(%d)", uint8(m))
 }
