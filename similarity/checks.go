@@ -39,7 +39,7 @@ type Result struct {
 type Fault struct {
 	Input  string // the input or result concerned, if one is
 	Reason string // what was wrong, in words
-	Class  error  // one of quantity.ErrDimension, ErrRange, ErrParse, ErrUnknown, ErrInvalid
+	Class  error  // one of quantity.ErrDimension, ErrRange, ErrParse, ErrUnknown, ErrInvalid, or ErrConflict
 	Err    error  // the error that caused this one, or nil
 }
 
@@ -143,11 +143,12 @@ func CheckResults(positive bool, rs ...Result) *Fault {
 
 // errorClasses are the classes an error of the module matches, in the
 // order ClassOf tries them.
-var errorClasses = [...]error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid}
+var errorClasses = [...]error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid, ErrConflict}
 
 // ClassOf returns the first of quantity.ErrDimension, ErrRange, ErrParse,
-// ErrUnknown and ErrInvalid that err matches, or quantity.ErrInvalid when
-// it matches none, so that an error wrapping err has exactly one class.
+// ErrUnknown, ErrInvalid and ErrConflict that err matches, or
+// quantity.ErrInvalid when it matches none, so that an error wrapping err
+// has exactly one class.
 func ClassOf(err error) error {
 	for _, c := range errorClasses {
 		if errors.Is(err, c) {

@@ -82,6 +82,7 @@ func TestClassOf(t *testing.T) {
 		{&quantity.DimensionError{Op: "check"}, quantity.ErrDimension},
 		{errors.New("disk full"), quantity.ErrInvalid},
 		{fmt.Errorf("a: %w", quantity.ErrRange), quantity.ErrRange},
+		{fmt.Errorf("plan: %w", similarity.ErrConflict), similarity.ErrConflict},
 	} {
 		if got := similarity.ClassOf(c.err); got != c.want {
 			t.Errorf("ClassOf(%v) = %v, want %v", c.err, got, c.want)
