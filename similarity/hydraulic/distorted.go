@@ -41,7 +41,9 @@ type DistortedScales struct {
 // acceleration), t (time) and Q (volume flow rate); the basis of
 // DerivedRatio is V, x.
 func DistortedFroude(sc DistortedScales) (Distorted, error) {
-	if err := fail("distorted Froude scales", similarity.CheckRatios(similarity.Result{Name: "horizontal length", Value: sc.Horizontal}, similarity.Result{Name: "vertical length", Value: sc.Vertical})); err != nil {
+	if err := fail("distorted Froude scales", similarity.CheckRatios(
+		similarity.Result{Name: "horizontal length", Value: sc.Horizontal},
+		similarity.Result{Name: "vertical length", Value: sc.Vertical})); err != nil {
 		return Distorted{}, err
 	}
 	horizontal, vertical := sc.Horizontal, sc.Vertical
@@ -67,7 +69,11 @@ func DistortedFroude(sc DistortedScales) (Distorted, error) {
 		Slope: vertical / horizontal, Manning: math.Pow(vertical, 2.0/3) / math.Sqrt(horizontal),
 		solution: s,
 	}
-	if err := fail("distorted Froude scales", similarity.CheckRatios(similarity.Result{Name: "area", Value: d.Area}, similarity.Result{Name: "slope", Value: d.Slope}, similarity.Result{Name: "Manning's n", Value: d.Manning}, similarity.Result{Name: "distortion", Value: d.Distortion})); err != nil {
+	if err := fail("distorted Froude scales", similarity.CheckRatios(
+		similarity.Result{Name: "area", Value: d.Area},
+		similarity.Result{Name: "slope", Value: d.Slope},
+		similarity.Result{Name: "Manning's n", Value: d.Manning},
+		similarity.Result{Name: "distortion", Value: d.Distortion})); err != nil {
 		return Distorted{}, err
 	}
 	return d, nil

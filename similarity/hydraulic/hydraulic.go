@@ -103,8 +103,12 @@ func (c ScaleCheck) String() string {
 // StructureCaution.
 func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLimits) ([]ScaleCheck, error) {
 	if err := fail("scale-effect check", similarity.CheckInputs(true,
-		similarity.Input{Name: "velocity", Value: v, Dim: quantity.Velocity}, similarity.Input{Name: "head", Value: h, Dim: quantity.Length}, similarity.Input{Name: "kinematic viscosity", Value: nu, Dim: quantity.KinematicViscosity},
-		similarity.Input{Name: "density", Value: rho, Dim: quantity.Density}, similarity.Input{Name: "surface tension", Value: sigma, Dim: quantity.SurfaceTension}, similarity.Input{Name: "minimum head", Value: lim.MinHead, Dim: quantity.Length})); err != nil {
+		similarity.Input{Name: "velocity", Value: v, Dim: quantity.Velocity},
+		similarity.Input{Name: "head", Value: h, Dim: quantity.Length},
+		similarity.Input{Name: "kinematic viscosity", Value: nu, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "density", Value: rho, Dim: quantity.Density},
+		similarity.Input{Name: "surface tension", Value: sigma, Dim: quantity.SurfaceTension},
+		similarity.Input{Name: "minimum head", Value: lim.MinHead, Dim: quantity.Length})); err != nil {
 		return nil, err
 	}
 	for _, l := range []struct {
@@ -117,7 +121,9 @@ func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLi
 	}
 	re := v.Value() * h.Value() / nu.Value()
 	we := rho.Value() * v.Value() * v.Value() * h.Value() / sigma.Value()
-	if err := fail("scale-effect check", similarity.CheckResults(true, similarity.Result{Name: "Reynolds number V·h/ν", Value: re}, similarity.Result{Name: "Weber number ρV²h/σ", Value: we})); err != nil {
+	if err := fail("scale-effect check", similarity.CheckResults(true,
+		similarity.Result{Name: "Reynolds number V·h/ν", Value: re},
+		similarity.Result{Name: "Weber number ρV²h/σ", Value: we})); err != nil {
 		return nil, err
 	}
 	return []ScaleCheck{
@@ -167,8 +173,12 @@ func Shields(in ShieldsInput) (theta, reStar float64, err error) {
 		return 0, 0, fail("Shields parameter", bad)
 	}
 	if err := fail("Shields parameter", similarity.CheckInputs(true,
-		similarity.Input{Name: "bed shear stress", Value: tau, Dim: quantity.Pressure}, similarity.Input{Name: "grain density", Value: rhoS, Dim: quantity.Density}, similarity.Input{Name: "water density", Value: rho, Dim: quantity.Density},
-		similarity.Input{Name: "grain diameter", Value: d, Dim: quantity.Length}, similarity.Input{Name: "kinematic viscosity", Value: nu, Dim: quantity.KinematicViscosity}, similarity.Input{Name: "gravity", Value: g, Dim: quantity.Acceleration})); err != nil {
+		similarity.Input{Name: "bed shear stress", Value: tau, Dim: quantity.Pressure},
+		similarity.Input{Name: "grain density", Value: rhoS, Dim: quantity.Density},
+		similarity.Input{Name: "water density", Value: rho, Dim: quantity.Density},
+		similarity.Input{Name: "grain diameter", Value: d, Dim: quantity.Length},
+		similarity.Input{Name: "kinematic viscosity", Value: nu, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "gravity", Value: g, Dim: quantity.Acceleration})); err != nil {
 		return 0, 0, err
 	}
 	if !(rhoS.Value() > rho.Value()) {
@@ -176,7 +186,9 @@ func Shields(in ShieldsInput) (theta, reStar float64, err error) {
 	}
 	theta = tau.Value() / ((rhoS.Value() - rho.Value()) * g.Value() * d.Value())
 	reStar = math.Sqrt(tau.Value()/rho.Value()) * d.Value() / nu.Value()
-	if err := fail("Shields parameter", similarity.CheckResults(true, similarity.Result{Name: "Shields parameter θ", Value: theta}, similarity.Result{Name: "particle Reynolds number Re*", Value: reStar})); err != nil {
+	if err := fail("Shields parameter", similarity.CheckResults(true,
+		similarity.Result{Name: "Shields parameter θ", Value: theta},
+		similarity.Result{Name: "particle Reynolds number Re*", Value: reStar})); err != nil {
 		return 0, 0, err
 	}
 	return theta, reStar, nil
@@ -222,7 +234,10 @@ func SedimentFor(r SedimentRatios) (SedimentScales, error) {
 	s.Grain = s.Shear / deltaRatio
 	s.ReStar = math.Sqrt(s.Shear) * s.Grain / nuRatio
 	s.Exaggerated = lengthH != lengthV
-	if err := fail("sediment scales", similarity.CheckResults(true, similarity.Result{Name: "bed shear ratio", Value: s.Shear}, similarity.Result{Name: "grain ratio", Value: s.Grain}, similarity.Result{Name: "particle Reynolds ratio", Value: s.ReStar})); err != nil {
+	if err := fail("sediment scales", similarity.CheckResults(true,
+		similarity.Result{Name: "bed shear ratio", Value: s.Shear},
+		similarity.Result{Name: "grain ratio", Value: s.Grain},
+		similarity.Result{Name: "particle Reynolds ratio", Value: s.ReStar})); err != nil {
 		return SedimentScales{}, err
 	}
 	return s, nil

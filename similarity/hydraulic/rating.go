@@ -200,7 +200,9 @@ func FitRating(in RatingInput) (*Rating, error) {
 	if err != nil {
 		return nil, &Error{Op: op, Fault: similarity.Caused("length ratio", "the length ratio", err)}
 	}
-	if err := fail(op, similarity.CheckRatios(similarity.Result{Name: "discharge", Value: lq.Value}, similarity.Result{Name: "length", Value: ll.Value})); err != nil {
+	if err := fail(op, similarity.CheckRatios(
+		similarity.Result{Name: "discharge", Value: lq.Value},
+		similarity.Result{Name: "length", Value: ll.Value})); err != nil {
 		return nil, err
 	}
 	b, gv := in.CrestLength.Value(), g.Value()
@@ -276,14 +278,25 @@ func FitRating(in RatingInput) (*Rating, error) {
 		r.HeadMin, r.HeadMax = min(r.HeadMin, r.Points[i].Head), max(r.HeadMax, r.Points[i].Head)
 	}
 	r.ProtoC = r.C * math.Pow(r.LengthRatio, r.N) / r.DischargeRatio
-	if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: "coefficient C", Value: r.C}, similarity.Result{Name: "lower bound of C", Value: r.CInterval[0]}, similarity.Result{Name: "upper bound of C", Value: r.CInterval[1]},
-		similarity.Result{Name: "weir coefficient C_d", Value: r.WeirCoefficient}, similarity.Result{Name: "lower bound of C_d", Value: r.WeirCoefficientInterval[0]},
-		similarity.Result{Name: "upper bound of C_d", Value: r.WeirCoefficientInterval[1]}, similarity.Result{Name: "prototype coefficient C_p", Value: r.ProtoC},
-		similarity.Result{Name: "highest head", Value: r.HeadMax}, similarity.Result{Name: "lowest head", Value: r.HeadMin})); err != nil {
+	if err := fail(op, similarity.CheckResults(true,
+		similarity.Result{Name: "coefficient C", Value: r.C},
+		similarity.Result{Name: "lower bound of C", Value: r.CInterval[0]},
+		similarity.Result{Name: "upper bound of C", Value: r.CInterval[1]},
+		similarity.Result{Name: "weir coefficient C_d", Value: r.WeirCoefficient},
+		similarity.Result{Name: "lower bound of C_d", Value: r.WeirCoefficientInterval[0]},
+		similarity.Result{Name: "upper bound of C_d", Value: r.WeirCoefficientInterval[1]},
+		similarity.Result{Name: "prototype coefficient C_p", Value: r.ProtoC},
+		similarity.Result{Name: "highest head", Value: r.HeadMax},
+		similarity.Result{Name: "lowest head", Value: r.HeadMin})); err != nil {
 		return nil, err
 	}
-	if err := fail(op, similarity.CheckResults(false, similarity.Result{Name: "exponent n", Value: r.N}, similarity.Result{Name: "lower bound of n", Value: r.NInterval[0]}, similarity.Result{Name: "upper bound of n", Value: r.NInterval[1]},
-		similarity.Result{Name: "standard error of n", Value: r.NStdErr}, similarity.Result{Name: "standard error of ln C", Value: r.LnCStdErr}, similarity.Result{Name: "residual standard deviation", Value: r.S})); err != nil {
+	if err := fail(op, similarity.CheckResults(false,
+		similarity.Result{Name: "exponent n", Value: r.N},
+		similarity.Result{Name: "lower bound of n", Value: r.NInterval[0]},
+		similarity.Result{Name: "upper bound of n", Value: r.NInterval[1]},
+		similarity.Result{Name: "standard error of n", Value: r.NStdErr},
+		similarity.Result{Name: "standard error of ln C", Value: r.LnCStdErr},
+		similarity.Result{Name: "residual standard deviation", Value: r.S})); err != nil {
 		return nil, err
 	}
 	for k, row := range f.Rows {
@@ -373,8 +386,12 @@ func (r *Rating) at(op string, h quantity.Quantity, lambdaL, lambdaQ float64, ou
 		v.Band[k] = quantity.New(qv(pr.Mean[k]), quantity.VolumeFlowRate)
 		v.New[k] = quantity.New(qv(pr.New[k]), quantity.VolumeFlowRate)
 	}
-	if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: "discharge", Value: v.Discharge.Value()}, similarity.Result{Name: "lower band", Value: v.Band[0].Value()}, similarity.Result{Name: "upper band", Value: v.Band[1].Value()},
-		similarity.Result{Name: "lower prediction bound", Value: v.New[0].Value()}, similarity.Result{Name: "upper prediction bound", Value: v.New[1].Value()})); err != nil {
+	if err := fail(op, similarity.CheckResults(true,
+		similarity.Result{Name: "discharge", Value: v.Discharge.Value()},
+		similarity.Result{Name: "lower band", Value: v.Band[0].Value()},
+		similarity.Result{Name: "upper band", Value: v.Band[1].Value()},
+		similarity.Result{Name: "lower prediction bound", Value: v.New[0].Value()},
+		similarity.Result{Name: "upper prediction bound", Value: v.New[1].Value()})); err != nil {
 		return RatingValue{}, err
 	}
 	if err := fail(op, similarity.CheckResults(false, similarity.Result{Name: "relative uncertainty", Value: v.RelU})); err != nil {

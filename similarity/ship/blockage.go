@@ -76,8 +76,10 @@ func TankBlockage(tank TankSection, ax, v, g quantity.Quantity) (BlockageCorrect
 		return BlockageCorrection{}, fail(method, bad)
 	}
 	if err := fail(method, similarity.CheckInputs(true,
-		similarity.Input{Name: "tank width", Value: tank.Width, Dim: quantity.Length}, similarity.Input{Name: "tank depth", Value: tank.Depth, Dim: quantity.Length},
-		similarity.Input{Name: "model section", Value: ax, Dim: quantity.Area}, similarity.Input{Name: "speed", Value: v, Dim: quantity.Velocity})); err != nil {
+		similarity.Input{Name: "tank width", Value: tank.Width, Dim: quantity.Length},
+		similarity.Input{Name: "tank depth", Value: tank.Depth, Dim: quantity.Length},
+		similarity.Input{Name: "model section", Value: ax, Dim: quantity.Area},
+		similarity.Input{Name: "speed", Value: v, Dim: quantity.Velocity})); err != nil {
 		return BlockageCorrection{}, err
 	}
 	h := tank.Depth.Value()

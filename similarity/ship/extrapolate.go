@@ -114,9 +114,12 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 		return nil, m(fmt.Sprintf("%d speeds and %d resistances", len(t.Speeds), len(t.Resistances)))
 	}
 	if err := fail("hull extrapolation", similarity.CheckInputs(true,
-		similarity.Input{Name: "model length", Value: t.ModelLength, Dim: quantity.Length}, similarity.Input{Name: "model wetted area", Value: t.ModelWettedArea, Dim: quantity.Area},
-		similarity.Input{Name: "tank density", Value: t.Tank.Density, Dim: quantity.Density}, similarity.Input{Name: "tank viscosity", Value: t.Tank.KinematicViscosity, Dim: quantity.KinematicViscosity},
-		similarity.Input{Name: "sea density", Value: t.Sea.Density, Dim: quantity.Density}, similarity.Input{Name: "sea viscosity", Value: t.Sea.KinematicViscosity, Dim: quantity.KinematicViscosity})); err != nil {
+		similarity.Input{Name: "model length", Value: t.ModelLength, Dim: quantity.Length},
+		similarity.Input{Name: "model wetted area", Value: t.ModelWettedArea, Dim: quantity.Area},
+		similarity.Input{Name: "tank density", Value: t.Tank.Density, Dim: quantity.Density},
+		similarity.Input{Name: "tank viscosity", Value: t.Tank.KinematicViscosity, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "sea density", Value: t.Sea.Density, Dim: quantity.Density},
+		similarity.Input{Name: "sea viscosity", Value: t.Sea.KinematicViscosity, Dim: quantity.KinematicViscosity})); err != nil {
 		return nil, err
 	}
 	g, bad := similarity.GravityOr(t.Gravity)

@@ -195,13 +195,17 @@ func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
 	}
 	const method = "hull extrapolation with uncertainty"
 	if err := fail(method, similarity.CheckInputs(true,
-		similarity.Input{Name: "model length", Value: r.ModelLength.Quantity(), Dim: quantity.Length}, similarity.Input{Name: "model wetted area", Value: r.ModelWettedArea.Quantity(), Dim: quantity.Area},
-		similarity.Input{Name: "model speed", Value: r.ModelSpeed.Quantity(), Dim: quantity.Velocity}, similarity.Input{Name: "model resistance", Value: r.ModelResistance.Quantity(), Dim: quantity.Force},
-		similarity.Input{Name: "tank temperature", Value: r.TankTemperature.Quantity(), Dim: quantity.Temperature}, similarity.Input{Name: "sea temperature", Value: r.SeaTemperature.Quantity(), Dim: quantity.Temperature})); err != nil {
+		similarity.Input{Name: "model length", Value: r.ModelLength.Quantity(), Dim: quantity.Length},
+		similarity.Input{Name: "model wetted area", Value: r.ModelWettedArea.Quantity(), Dim: quantity.Area},
+		similarity.Input{Name: "model speed", Value: r.ModelSpeed.Quantity(), Dim: quantity.Velocity},
+		similarity.Input{Name: "model resistance", Value: r.ModelResistance.Quantity(), Dim: quantity.Force},
+		similarity.Input{Name: "tank temperature", Value: r.TankTemperature.Quantity(), Dim: quantity.Temperature},
+		similarity.Input{Name: "sea temperature", Value: r.SeaTemperature.Quantity(), Dim: quantity.Temperature})); err != nil {
 		return HullRunResult{}, err
 	}
 	if err := fail(method, similarity.CheckInputs(false,
-		similarity.Input{Name: "form factor", Value: r.FormFactor.Quantity(), Dim: quantity.Dimensionless}, similarity.Input{Name: "allowance", Value: r.Allowance.Quantity(), Dim: quantity.Dimensionless})); err != nil {
+		similarity.Input{Name: "form factor", Value: r.FormFactor.Quantity(), Dim: quantity.Dimensionless},
+		similarity.Input{Name: "allowance", Value: r.Allowance.Quantity(), Dim: quantity.Dimensionless})); err != nil {
 		return HullRunResult{}, err
 	}
 	if r.FormFactor.Value() == 0 && r.FormFactor.Set() == nil {

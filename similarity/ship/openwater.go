@@ -95,7 +95,9 @@ type OpenWaterFit struct {
 // (PropellerGeometry.ModelReynolds).
 func PropellerReynolds(chord, speed quantity.Quantity, revsPerSecond float64, diameter quantity.Quantity, x float64, nu quantity.Quantity) (float64, error) {
 	const op = "propeller Reynolds number"
-	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "chord", Value: chord, Dim: quantity.Length}, similarity.Input{Name: "diameter", Value: diameter, Dim: quantity.Length},
+	if err := fail(op, similarity.CheckInputs(true,
+		similarity.Input{Name: "chord", Value: chord, Dim: quantity.Length},
+		similarity.Input{Name: "diameter", Value: diameter, Dim: quantity.Length},
 		similarity.Input{Name: "kinematic viscosity", Value: nu, Dim: quantity.KinematicViscosity})); err != nil {
 		return 0, err
 	}
@@ -133,8 +135,11 @@ const MinOpenWaterRuns = 5
 // stated in Warning.
 func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 	const op = "open-water test"
-	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "propeller diameter", Value: t.Diameter, Dim: quantity.Length}, similarity.Input{Name: "chord at 0.7R", Value: t.Chord, Dim: quantity.Length},
-		similarity.Input{Name: "water density", Value: t.Water.Density, Dim: quantity.Density}, similarity.Input{Name: "water viscosity", Value: t.Water.KinematicViscosity, Dim: quantity.KinematicViscosity})); err != nil {
+	if err := fail(op, similarity.CheckInputs(true,
+		similarity.Input{Name: "propeller diameter", Value: t.Diameter, Dim: quantity.Length},
+		similarity.Input{Name: "chord at 0.7R", Value: t.Chord, Dim: quantity.Length},
+		similarity.Input{Name: "water density", Value: t.Water.Density, Dim: quantity.Density},
+		similarity.Input{Name: "water viscosity", Value: t.Water.KinematicViscosity, Dim: quantity.KinematicViscosity})); err != nil {
 		return nil, err
 	}
 	if len(t.Runs) < MinOpenWaterRuns || len(t.Runs) > fit.MaxRows {

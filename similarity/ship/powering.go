@@ -195,11 +195,16 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 		return PoweringResult{}, m(fmt.Sprintf("scale %v: want model/ship between 0 and 1", in.Scale))
 	}
 	if err := fail("ITTC-1978 prediction", similarity.CheckInputs(true,
-		similarity.Input{Name: "model length", Value: in.ModelLength, Dim: quantity.Length}, similarity.Input{Name: "model wetted area", Value: in.ModelWettedArea, Dim: quantity.Area},
-		similarity.Input{Name: "model speed", Value: in.ModelSpeed, Dim: quantity.Velocity}, similarity.Input{Name: "model resistance", Value: in.ModelResistance, Dim: quantity.Force},
-		similarity.Input{Name: "tank density", Value: in.Tank.Density, Dim: quantity.Density}, similarity.Input{Name: "tank viscosity", Value: in.Tank.KinematicViscosity, Dim: quantity.KinematicViscosity},
-		similarity.Input{Name: "sea density", Value: in.Sea.Density, Dim: quantity.Density}, similarity.Input{Name: "sea viscosity", Value: in.Sea.KinematicViscosity, Dim: quantity.KinematicViscosity},
-		similarity.Input{Name: "propeller diameter", Value: in.Propeller.Diameter, Dim: quantity.Length}, similarity.Input{Name: "propeller chord", Value: in.Propeller.Chord, Dim: quantity.Length},
+		similarity.Input{Name: "model length", Value: in.ModelLength, Dim: quantity.Length},
+		similarity.Input{Name: "model wetted area", Value: in.ModelWettedArea, Dim: quantity.Area},
+		similarity.Input{Name: "model speed", Value: in.ModelSpeed, Dim: quantity.Velocity},
+		similarity.Input{Name: "model resistance", Value: in.ModelResistance, Dim: quantity.Force},
+		similarity.Input{Name: "tank density", Value: in.Tank.Density, Dim: quantity.Density},
+		similarity.Input{Name: "tank viscosity", Value: in.Tank.KinematicViscosity, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "sea density", Value: in.Sea.Density, Dim: quantity.Density},
+		similarity.Input{Name: "sea viscosity", Value: in.Sea.KinematicViscosity, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "propeller diameter", Value: in.Propeller.Diameter, Dim: quantity.Length},
+		similarity.Input{Name: "propeller chord", Value: in.Propeller.Chord, Dim: quantity.Length},
 	)); err != nil {
 		return PoweringResult{}, err
 	}

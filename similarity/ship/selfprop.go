@@ -50,7 +50,9 @@ func FairResistance(test HullTest, order int) (*ResistanceFit, error) {
 	v, ct := make([]float64, n), make([]float64, n)
 	for i := range n {
 		name := fmt.Sprintf("run %d", i)
-		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: name + ": speed", Value: test.Speeds[i], Dim: quantity.Velocity}, similarity.Input{Name: name + ": resistance", Value: test.Resistances[i], Dim: quantity.Force})); err != nil {
+		if err := fail(op, similarity.CheckInputs(true,
+			similarity.Input{Name: name + ": speed", Value: test.Speeds[i], Dim: quantity.Velocity},
+			similarity.Input{Name: name + ": resistance", Value: test.Resistances[i], Dim: quantity.Force})); err != nil {
 			return nil, err
 		}
 		v[i] = test.Speeds[i].Value()
@@ -136,9 +138,11 @@ func SkinFrictionCorrection(in PoweringInput) (SkinFriction, error) {
 		return SkinFriction{}, &Error{Op: op, Fault: similarity.Invalid("scale", fmt.Sprintf("scale %v: want model/ship between 0 and 1", in.Scale))}
 	}
 	if err := fail(op, similarity.CheckInputs(true,
-		similarity.Input{Name: "model length", Value: in.ModelLength, Dim: quantity.Length}, similarity.Input{Name: "model wetted area", Value: in.ModelWettedArea, Dim: quantity.Area},
+		similarity.Input{Name: "model length", Value: in.ModelLength, Dim: quantity.Length},
+		similarity.Input{Name: "model wetted area", Value: in.ModelWettedArea, Dim: quantity.Area},
 		similarity.Input{Name: "model speed", Value: in.ModelSpeed, Dim: quantity.Velocity},
-		similarity.Input{Name: "tank density", Value: in.Tank.Density, Dim: quantity.Density}, similarity.Input{Name: "tank viscosity", Value: in.Tank.KinematicViscosity, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "tank density", Value: in.Tank.Density, Dim: quantity.Density},
+		similarity.Input{Name: "tank viscosity", Value: in.Tank.KinematicViscosity, Dim: quantity.KinematicViscosity},
 		similarity.Input{Name: "sea viscosity", Value: in.Sea.KinematicViscosity, Dim: quantity.KinematicViscosity})); err != nil {
 		return SkinFriction{}, err
 	}
@@ -248,7 +252,9 @@ type SelfPropulsionPoint struct {
 // 0.5 < η_R < 1.5 are refused with an *Error naming the run.
 func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) {
 	const op = "self-propulsion analysis"
-	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "propeller diameter", Value: t.Diameter, Dim: quantity.Length}, similarity.Input{Name: "water density", Value: t.Water.Density, Dim: quantity.Density})); err != nil {
+	if err := fail(op, similarity.CheckInputs(true,
+		similarity.Input{Name: "propeller diameter", Value: t.Diameter, Dim: quantity.Length},
+		similarity.Input{Name: "water density", Value: t.Water.Density, Dim: quantity.Density})); err != nil {
 		return nil, err
 	}
 	if t.OpenWater == nil || t.OpenWater.KT == nil || t.OpenWater.KQ == nil {
@@ -269,7 +275,8 @@ func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) 
 	for i, r := range t.Runs {
 		name := fmt.Sprintf("run %d", i)
 		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: name + ": model speed", Value: r.ModelSpeed, Dim: quantity.Velocity},
-			similarity.Input{Name: name + ": thrust", Value: r.Thrust, Dim: quantity.Force}, similarity.Input{Name: name + ": torque", Value: r.Torque, Dim: quantity.Torque})); err != nil {
+			similarity.Input{Name: name + ": thrust", Value: r.Thrust, Dim: quantity.Force},
+			similarity.Input{Name: name + ": torque", Value: r.Torque, Dim: quantity.Torque})); err != nil {
 			return nil, err
 		}
 		if err := r.TowingForce.CheckNamed(name+": towing force", quantity.Force); err != nil {
@@ -301,7 +308,9 @@ func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) 
 		th, q := r.Thrust.Value(), r.Torque.Value()
 		p.KT = th / (rho * n * n * d * d * d * d)
 		p.KQ = q / (rho * n * n * d * d * d * d * d)
-		if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: name + ": K_TM", Value: p.KT}, similarity.Result{Name: name + ": K_QM", Value: p.KQ})); err != nil {
+		if err := fail(op, similarity.CheckResults(true,
+			similarity.Result{Name: name + ": K_TM", Value: p.KT},
+			similarity.Result{Name: name + ": K_QM", Value: p.KQ})); err != nil {
 			return nil, err
 		}
 		j, err := t.OpenWater.JForKT(p.KT)

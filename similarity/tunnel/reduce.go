@@ -28,15 +28,23 @@ type Coefficients struct {
 // and the reference geometry.
 func (a AxisLoads) Coefficients(q quantity.Quantity, ref Reference) (Coefficients, error) {
 	const op = "coefficients"
-	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "dynamic pressure", Value: q, Dim: quantity.Pressure}, similarity.Input{Name: "reference area", Value: ref.Area, Dim: quantity.Area},
-		similarity.Input{Name: "span", Value: ref.Span, Dim: quantity.Length}, similarity.Input{Name: "mean aerodynamic chord", Value: ref.Chord, Dim: quantity.Length})); err != nil {
+	if err := fail(op, similarity.CheckInputs(true,
+		similarity.Input{Name: "dynamic pressure", Value: q, Dim: quantity.Pressure},
+		similarity.Input{Name: "reference area", Value: ref.Area, Dim: quantity.Area},
+		similarity.Input{Name: "span", Value: ref.Span, Dim: quantity.Length},
+		similarity.Input{Name: "mean aerodynamic chord", Value: ref.Chord, Dim: quantity.Length})); err != nil {
 		return Coefficients{}, err
 	}
 	qs := q.Value() * ref.Area.Value()
 	c := Coefficients{CD: a.Drag / qs, CY: a.Side / qs, CL: a.Lift / qs,
 		Cl: a.Roll / (qs * ref.Span.Value()), Cm: a.Pitch / (qs * ref.Chord.Value()), Cn: a.Yaw / (qs * ref.Span.Value())}
-	if err := fail(op, similarity.CheckResults(false, similarity.Result{Name: "C_D", Value: c.CD}, similarity.Result{Name: "C_Y", Value: c.CY}, similarity.Result{Name: "C_L", Value: c.CL},
-		similarity.Result{Name: "C_l", Value: c.Cl}, similarity.Result{Name: "C_m", Value: c.Cm}, similarity.Result{Name: "C_n", Value: c.Cn})); err != nil {
+	if err := fail(op, similarity.CheckResults(false,
+		similarity.Result{Name: "C_D", Value: c.CD},
+		similarity.Result{Name: "C_Y", Value: c.CY},
+		similarity.Result{Name: "C_L", Value: c.CL},
+		similarity.Result{Name: "C_l", Value: c.Cl},
+		similarity.Result{Name: "C_m", Value: c.Cm},
+		similarity.Result{Name: "C_n", Value: c.Cn})); err != nil {
 		return Coefficients{}, err
 	}
 	return c, nil

@@ -176,7 +176,9 @@ func CheckGuarantee(c PumpCurves, g Guarantee, grade Grade) (Verdict, error) {
 	if c.Head == nil || c.Power == nil || c.Efficiency == nil {
 		return Verdict{}, &Error{Op: op, Fault: similarity.Invalid("curves", "the Q–H, Q–P and Q–η curves must all be fitted (FitPumpCurves)")}
 	}
-	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "guarantee flow", Value: g.Flow, Dim: quantity.VolumeFlowRate}, similarity.Input{Name: "guarantee head", Value: g.Head, Dim: quantity.Length})); err != nil {
+	if err := fail(op, similarity.CheckInputs(true,
+		similarity.Input{Name: "guarantee flow", Value: g.Flow, Dim: quantity.VolumeFlowRate},
+		similarity.Input{Name: "guarantee head", Value: g.Head, Dim: quantity.Length})); err != nil {
 		return Verdict{}, err
 	}
 	powerGiven := g.Power != (quantity.Quantity{})

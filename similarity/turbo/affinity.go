@@ -35,7 +35,10 @@ type AffinityScales struct {
 // (specific energy), P (power), N (rotational speed), D (diameter) and
 // rho (density). Efficiency is taken equal; see MoodyStepUp.
 func AffinityLaws(sc AffinityScales) (Affinity, error) {
-	if err := fail("affinity laws", similarity.CheckRatios(similarity.Result{Name: "rotational speed", Value: sc.RotationalSpeed}, similarity.Result{Name: "diameter", Value: sc.Diameter}, similarity.Result{Name: "density", Value: sc.Density})); err != nil {
+	if err := fail("affinity laws", similarity.CheckRatios(
+		similarity.Result{Name: "rotational speed", Value: sc.RotationalSpeed},
+		similarity.Result{Name: "diameter", Value: sc.Diameter},
+		similarity.Result{Name: "density", Value: sc.Density})); err != nil {
 		return Affinity{}, err
 	}
 	speedRatio, diameterRatio, densityRatio := sc.RotationalSpeed, sc.Diameter, sc.Density
@@ -58,7 +61,9 @@ func AffinityLaws(sc AffinityScales) (Affinity, error) {
 	a := Affinity{RotationalSpeed: speedRatio, Diameter: diameterRatio, Density: densityRatio, Flow: v[0], Head: v[1], Power: v[2]}
 	a.Torque = a.Power / a.RotationalSpeed
 	a.Pressure = a.Density * a.Head
-	if err := fail("affinity laws", similarity.CheckRatios(similarity.Result{Name: "torque", Value: a.Torque}, similarity.Result{Name: "pressure", Value: a.Pressure})); err != nil {
+	if err := fail("affinity laws", similarity.CheckRatios(
+		similarity.Result{Name: "torque", Value: a.Torque},
+		similarity.Result{Name: "pressure", Value: a.Pressure})); err != nil {
 		return Affinity{}, err
 	}
 	return a, nil

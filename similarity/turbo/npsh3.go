@@ -96,7 +96,9 @@ func FindNPSH3(series []SuctionPoint, opt NPSH3Options) (NPSH3Result, error) {
 	type pt struct{ x, y float64 }
 	pts := make([]pt, 0, len(series))
 	for i, s := range series {
-		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: fmt.Sprintf("point %d: NPSHA", i), Value: s.NPSHA, Dim: quantity.Length}, similarity.Input{Name: fmt.Sprintf("point %d: head", i), Value: s.Head, Dim: quantity.Length})); err != nil {
+		if err := fail(op, similarity.CheckInputs(true,
+			similarity.Input{Name: fmt.Sprintf("point %d: NPSHA", i), Value: s.NPSHA, Dim: quantity.Length},
+			similarity.Input{Name: fmt.Sprintf("point %d: head", i), Value: s.Head, Dim: quantity.Length})); err != nil {
 			return NPSH3Result{}, err
 		}
 		pts = append(pts, pt{s.NPSHA.Value(), s.Head.Value()})
@@ -216,7 +218,9 @@ func FindNPSH3(series []SuctionPoint, opt NPSH3Options) (NPSH3Result, error) {
 	}
 	uH := math.Sqrt(uHead*uHead+0.97*0.97*uHead*uHead/float64(nref)) / slope
 	u := math.Hypot(uNPSH, uH)
-	if err := fail(op, similarity.CheckResults(false, similarity.Result{Name: "NPSH3", Value: x3}, similarity.Result{Name: "its uncertainty", Value: u})); err != nil {
+	if err := fail(op, similarity.CheckResults(false,
+		similarity.Result{Name: "NPSH3", Value: x3},
+		similarity.Result{Name: "its uncertainty", Value: u})); err != nil {
 		return NPSH3Result{}, err
 	}
 	L := func(v float64) quantity.Quantity { return quantity.New(v, quantity.Length) }

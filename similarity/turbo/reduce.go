@@ -63,7 +63,9 @@ func ReducePoints(pts []TestPoint, c TestConditions) ([]ReducedPoint, error) {
 	if len(pts) == 0 || len(pts) > MaxTestPoints {
 		return nil, &Error{Op: op, Fault: similarity.Invalid("test points", fmt.Sprintf("%d test points: want 1 to %d", len(pts), MaxTestPoints))}
 	}
-	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "specified speed", Value: c.SpecifiedSpeed, Dim: quantity.AngularVelocity}, similarity.Input{Name: "density", Value: c.Density, Dim: quantity.Density})); err != nil {
+	if err := fail(op, similarity.CheckInputs(true,
+		similarity.Input{Name: "specified speed", Value: c.SpecifiedSpeed, Dim: quantity.AngularVelocity},
+		similarity.Input{Name: "density", Value: c.Density, Dim: quantity.Density})); err != nil {
 		return nil, err
 	}
 	gq, bad := similarity.GravityOr(c.Gravity)
@@ -76,8 +78,10 @@ func ReducePoints(pts []TestPoint, c TestConditions) ([]ReducedPoint, error) {
 	for i, p := range pts {
 		at := fmt.Sprintf("point %d", i)
 		if err := fail(op, similarity.CheckInputs(true,
-			similarity.Input{Name: at + ": flow", Value: p.Flow, Dim: quantity.VolumeFlowRate}, similarity.Input{Name: at + ": head", Value: p.Head, Dim: quantity.Length},
-			similarity.Input{Name: at + ": power", Value: p.Power, Dim: quantity.Power}, similarity.Input{Name: at + ": speed", Value: p.Speed, Dim: quantity.AngularVelocity})); err != nil {
+			similarity.Input{Name: at + ": flow", Value: p.Flow, Dim: quantity.VolumeFlowRate},
+			similarity.Input{Name: at + ": head", Value: p.Head, Dim: quantity.Length},
+			similarity.Input{Name: at + ": power", Value: p.Power, Dim: quantity.Power},
+			similarity.Input{Name: at + ": speed", Value: p.Speed, Dim: quantity.AngularVelocity})); err != nil {
 			return nil, err
 		}
 		frac := p.Speed.Value() / nsp
@@ -89,7 +93,11 @@ func ReducePoints(pts []TestPoint, c TestConditions) ([]ReducedPoint, error) {
 		r := nsp / p.Speed.Value()
 		q, h, pw := p.Flow.Value()*r, p.Head.Value()*r*r, p.Power.Value()*r*r*r
 		eta := rhoG * q * h / pw
-		if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: at + ": flow", Value: q}, similarity.Result{Name: at + ": head", Value: h}, similarity.Result{Name: at + ": power", Value: pw}, similarity.Result{Name: at + ": efficiency", Value: eta})); err != nil {
+		if err := fail(op, similarity.CheckResults(true,
+			similarity.Result{Name: at + ": flow", Value: q},
+			similarity.Result{Name: at + ": head", Value: h},
+			similarity.Result{Name: at + ": power", Value: pw},
+			similarity.Result{Name: at + ": efficiency", Value: eta})); err != nil {
 			return nil, err
 		}
 		if eta > 1 {
@@ -143,7 +151,8 @@ func FitPumpCurves(pts []ReducedPoint, opt CurveOptions) (PumpCurves, error) {
 	h, p, e := make([]float64, len(pts)), make([]float64, len(pts)), make([]float64, len(pts))
 	for i, r := range pts {
 		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: fmt.Sprintf("point %d: flow", i), Value: r.Flow, Dim: quantity.VolumeFlowRate},
-			similarity.Input{Name: fmt.Sprintf("point %d: head", i), Value: r.Head, Dim: quantity.Length}, similarity.Input{Name: fmt.Sprintf("point %d: power", i), Value: r.Power, Dim: quantity.Power})); err != nil {
+			similarity.Input{Name: fmt.Sprintf("point %d: head", i), Value: r.Head, Dim: quantity.Length},
+			similarity.Input{Name: fmt.Sprintf("point %d: power", i), Value: r.Power, Dim: quantity.Power})); err != nil {
 			return PumpCurves{}, err
 		}
 		if !(r.Efficiency > 0 && r.Efficiency <= 1) {

@@ -174,8 +174,10 @@ func NPSH(in NPSHInput) (quantity.Quantity, error) {
 		return &Error{Op: "NPSH", Fault: similarity.Invalid("", r)}
 	}
 	if err := fail("NPSH", similarity.CheckInputs(false,
-		similarity.Input{Name: "pressure", Value: in.Pressure, Dim: quantity.Pressure}, similarity.Input{Name: "vapour pressure", Value: in.VapourPressure, Dim: quantity.Pressure},
-		similarity.Input{Name: "density", Value: in.Density, Dim: quantity.Density}, similarity.Input{Name: "velocity", Value: in.Velocity, Dim: quantity.Velocity})); err != nil {
+		similarity.Input{Name: "pressure", Value: in.Pressure, Dim: quantity.Pressure},
+		similarity.Input{Name: "vapour pressure", Value: in.VapourPressure, Dim: quantity.Pressure},
+		similarity.Input{Name: "density", Value: in.Density, Dim: quantity.Density},
+		similarity.Input{Name: "velocity", Value: in.Velocity, Dim: quantity.Velocity})); err != nil {
 		return quantity.Quantity{}, err
 	}
 	gq, bad := similarity.GravityOr(in.Gravity)
@@ -226,7 +228,8 @@ func Thoma(h Heads) (float64, error) {
 // must be positive and finite, the velocity finite. See PumpCaution.
 func SuctionPressureFor(sigma float64, head quantity.Quantity, vapour, density, velocity, gravity quantity.Quantity) (quantity.Quantity, error) {
 	if err := fail("suction pressure", similarity.CheckInputs(true,
-		similarity.Input{Name: "head", Value: head, Dim: quantity.Length}, similarity.Input{Name: "vapour pressure", Value: vapour, Dim: quantity.Pressure},
+		similarity.Input{Name: "head", Value: head, Dim: quantity.Length},
+		similarity.Input{Name: "vapour pressure", Value: vapour, Dim: quantity.Pressure},
 		similarity.Input{Name: "density", Value: density, Dim: quantity.Density})); err != nil {
 		return quantity.Quantity{}, err
 	}
@@ -334,7 +337,9 @@ func specificSpeedIn(form string, v float64) error {
 func specificSpeeds(nq float64) (SpecificSpeeds, error) {
 	s := SpecificSpeeds{Dimensionless: nq * dimensionlessPerMetric, Metric: nq, US: nq * usPerMetric}
 	if err := fail("specific speed", similarity.CheckResults(true,
-		similarity.Result{Name: "specific speed n_q", Value: s.Metric}, similarity.Result{Name: "specific speed N_s", Value: s.US}, similarity.Result{Name: "specific speed Ω_s", Value: s.Dimensionless})); err != nil {
+		similarity.Result{Name: "specific speed n_q", Value: s.Metric},
+		similarity.Result{Name: "specific speed N_s", Value: s.US},
+		similarity.Result{Name: "specific speed Ω_s", Value: s.Dimensionless})); err != nil {
 		return SpecificSpeeds{}, err
 	}
 	return s, nil
