@@ -13,30 +13,45 @@
 //     dimensions), the dimension-checked value Quantity, and Series, one
 //     channel of test data; quantity/uncertain carries a measured value
 //     with its named uncertainty sources (GUM first order with exact
-//     derivatives, budgets, a JCGM 101 Monte Carlo check).
+//     derivatives, budgets, a JCGM 101 Monte Carlo check); quantity/fit
+//     holds the curve fits analyses share (polynomial least squares with
+//     intervals, order selection, fairing, outlier flags, nonlinear least
+//     squares).
 //   - units: the unit table, the unit-expression parser, conversion,
 //     printing and physical constants; units/formula, correlations as
 //     text; units/chanfile and units/chanfile/parquetfile, logged test
-//     channels in CSV/TSV and Parquet files with their units.
+//     channels in CSV/TSV and Parquet files with their units;
+//     units/steady, a logged time history cut into steady points, each
+//     channel's mean with its uncertainty, tared and calibrated.
 //   - pigroups: Buckingham Pi sets from a chosen repeating set, named
 //     groups, evaluation over data and power-law fitting.
 //   - similarity: the similitude core — scale ratios, test plans and
 //     their conflicts, the compromise, transfer of model data, rules of
-//     similitude and reports; similarity/fluids gives water, air and the
+//     similitude and reports, and the checks the trades' procedures share;
+//     similarity/fluids gives water, sea water, air, nitrogen and the
 //     ISO 2533 atmosphere.
 //   - the trades, each over the core and fluids, none importing another:
 //     similarity/ship (towing tank: friction lines, form factor, hull
-//     extrapolation and its uncertainty, blockage, ITTC-1978 powering),
-//     similarity/tunnel (wall corrections, the condition finder),
-//     similarity/turbo (affinity laws, the Moody efficiency step-up, the
-//     IEC 60193, Ackeret and fan step-ups, specific speed, NPSH) and similarity/hydraulic
-//     (distorted Froude, Manning, free-surface limits, sediment).
+//     extrapolation and its uncertainty, blockage, resistance fairing,
+//     open-water reduction, self-propulsion by thrust identity, ITTC-1978
+//     powering, the speed–power curve with its band), similarity/tunnel
+//     (the condition finder, balance reduction, tares, axes, wall
+//     corrections, the polar), similarity/turbo (affinity laws, the Moody
+//     efficiency step-up, the IEC 60193, Ackeret and fan step-ups,
+//     specific speed, the acceptance test against the ISO 9906 grades,
+//     NPSH3, NPSH) and similarity/hydraulic (distorted Froude, Manning,
+//     free-surface limits, sediment, the weir rating).
+//   - similarity/reduction: the data-reduction pipeline as a library,
+//     from raw channels to steady points and their groups, each with its
+//     uncertainty; it may call the core, fluids and the trades.
 //   - internal/exact: algorithms only — exact elimination, rank, null
 //     space, fraction-free integer elimination; internal/dual, dual
 //     numbers for the exact slopes of the fluid correlations;
 //     internal/roots, root bracketing; no type of any appears in an
 //     exported signature.
-//   - examples/...: runnable programs on invented data.
+//   - examples/...: runnable programs on invented data, sharing their
+//     flag handling (examples/internal/cli) and plot style
+//     (examples/internal/plotstyle).
 //
 // # Layers and the one algebra
 //
@@ -45,7 +60,8 @@
 //	examples ──► ship, tunnel, turbo, hydraulic ──► similarity ──► pigroups ──► units ──► quantity
 //	                        │                         │             │          │           │
 //	                        └─────────────────────────┴─────────────┴──────────┴───────────┴──► internal/...
-//	             (similarity/fluids sits below similarity; the trades import it too)
+//	             (similarity/fluids sits below similarity; the trades import it too;
+//	              similarity/reduction sits between the trades and examples)
 //
 // One idea runs through all of them: a product of named factors raised
 // to exact rational powers. Its exponent is quantity.Rat, defined once in

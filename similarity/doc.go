@@ -21,13 +21,29 @@
 //
 //   - similarity/ship: towing tank — friction lines, form factor, hull
 //     extrapolation and its uncertainty, temperature and blockage
-//     corrections, ITTC-1978 powering;
-//   - similarity/tunnel: wind tunnel — wall corrections and the
-//     pressurised or cryogenic tunnel's condition;
+//     corrections, resistance fairing, open-water reduction,
+//     self-propulsion by thrust identity, ITTC-1978 powering and the
+//     speed–power curve with its band;
+//   - similarity/tunnel: wind tunnel — the pressurised or cryogenic
+//     tunnel's condition, balance reduction, tares, axes, wall
+//     corrections and the polar;
 //   - similarity/turbo: pumps, turbines and fans — affinity laws,
-//     efficiency step-ups, specific speed, NPSH;
+//     efficiency step-ups, specific speed, the acceptance test against
+//     the ISO 9906 grades, NPSH3, NPSH;
 //   - similarity/hydraulic: hydraulic models — distorted Froude models,
-//     Manning's n, free-surface scale-effect limits, sediment.
+//     Manning's n, free-surface scale-effect limits, sediment, the weir
+//     rating.
+//
+// Shared checks for trade procedures: CheckInputs (dimension, and a
+// positive finite value), OrDefault and GravityOr (an option left unset
+// takes its default), CheckResults (a finite result) and CheckRatios (a
+// positive finite model/prototype ratio) describe what they find wrong in
+// a Fault, which is not an error: each trade's one error type embeds it
+// beside the name of its procedure and reports a check's fault through
+// Fail (Invalid, OutOfRange and Caused build the other faults a trade
+// reports); ClassOf gives the class a wrapped error
+// keeps, Solution.RatioValues the ratios a rule's result is built from,
+// and FormatTable the tables of the core's and the trades' reports.
 //
 // Every error is a *PlanError: its operation, input, class (quantity.ErrUnknown,
 // ErrRange, ErrDimension, ErrInvalid, or ErrConflict) and cause. A plan has at most MaxRequirements requirements; a

@@ -188,10 +188,14 @@ func (r *Report) solution(s *Solution, o ReportOptions) error {
 	return nil
 }
 
-// table writes rows under a header as aligned text, or as a Markdown
-// table when md is set. With numeric set, every column holds numbers and
-// is right-aligned; otherwise columns are left-aligned.
-func table(sb *strings.Builder, head []string, rows [][]string, md, numeric bool) {
+// FormatTable returns rows under a header as aligned text, one line a
+// row and two spaces between columns, or as a Markdown table when
+// markdown is set. With numeric set every column holds numbers and is
+// right-aligned (in Markdown too); otherwise columns are left-aligned.
+// Widths count runes, so a column of "λ_L" lines up. A trade's printed
+// report and the core's Report write their tables with it.
+func FormatTable(head []string, rows [][]string, markdown, numeric bool) string {
+	var sb strings.Builder
 	w := make([]int, len(head))
 	for i, h := range head {
 		w[i] = len([]rune(h))
@@ -202,7 +206,7 @@ func table(sb *strings.Builder, head []string, rows [][]string, md, numeric bool
 		}
 	}
 	line := func(cells []string) {
-		if md {
+		if markdown {
 			sb.WriteString("| " + strings.Join(cells, " | ") + " |\n")
 			return
 		}
@@ -220,7 +224,7 @@ func table(sb *strings.Builder, head []string, rows [][]string, md, numeric bool
 		sb.WriteString("\n")
 	}
 	line(head)
-	if md {
+	if markdown {
 		sep := make([]string, len(head))
 		for i := range sep {
 			sep[i] = "---"
@@ -233,6 +237,7 @@ func table(sb *strings.Builder, head []string, rows [][]string, md, numeric bool
 	for _, row := range rows {
 		line(row)
 	}
+	return sb.String()
 }
 
 func (r *Report) write(md bool) string {
@@ -248,7 +253,7 @@ func (r *Report) write(md bool) string {
 		} else {
 			sb.WriteString("\nGroups\n")
 		}
-		table(&sb, []string{"group", "definition", "prototype", "model", "status"}, r.groups, md, false)
+		sb.WriteString(FormatTable([]string{"group", "definition", "prototype", "model", "status"}, r.groups, md, false))
 	}
 	if len(r.vars) > 0 {
 		if md {
@@ -256,7 +261,7 @@ func (r *Report) write(md bool) string {
 		} else {
 			sb.WriteString("\nVariables\n")
 		}
-		table(&sb, []string{"variable", "prototype", "model", "ratio model/prototype"}, r.vars, md, false)
+		sb.WriteString(FormatTable([]string{"variable", "prototype", "model", "ratio model/prototype"}, r.vars, md, false))
 	}
 	if len(r.notes) > 0 {
 		sb.WriteString("\n")

@@ -63,6 +63,26 @@ func (s Scales) need(rule string, names ...string) error {
 	return nil
 }
 
+// fixed is one ratio a rule fixes: the variable's symbol and its value.
+type fixed struct {
+	sym   string
+	ratio float64
+}
+
+// solve checks that s gives exactly the ratios the rule needs, then
+// solves the plan over vars that holds the one group (its exponents by
+// symbol) with the fixed ratios, on the given basis.
+func (s Scales) solve(rule string, need []string, vars []pigroups.Variable, group string, exps map[string]int, fix []fixed, basis ...string) (*Solution, error) {
+	if err := s.need(rule, need...); err != nil {
+		return nil, err
+	}
+	pl := NewPlan(pigroups.MustProblem(vars...)).HoldExps(group, exps)
+	for _, f := range fix {
+		pl.Fix(f.sym, f.ratio)
+	}
+	return pl.Basis(basis...).Solve()
+}
+
 // Froude scaling: the Froude number V/√(gL) held, the same gravity, and a
 // density ratio (1 for the same fluid). λ_V = λ_L^(1/2), λ_t = λ_L^(1/2),
 // λ_F = λ_ρ·λ_L³, λ_P = λ_ρ·λ_L^(7/2), λ_Q = λ_L^(5/2). The Reynolds
@@ -95,15 +115,11 @@ func Froude(s Scales) (*Solution, error) {
 // (velocity), L (length), rho (density) and nu (kinematic viscosity); the
 // basis of DerivedRatio is V, L, rho.
 func Reynolds(s Scales) (*Solution, error) {
-	if err := s.need("Reynolds", "Length", "Density", "KinematicViscosity"); err != nil {
-		return nil, err
-	}
-	lengthRatio, nuRatio, densityRatio := s.Length, s.KinematicViscosity, s.Density
-	p := pigroups.MustProblem(
-		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("L", quantity.Length, "length"),
-		pigroups.VarKind("rho", quantity.Density, "density"), pigroups.VarKind("nu", quantity.KinematicViscosity, "kinematic viscosity"))
-	return NewPlan(p).HoldExps("the Reynolds number", map[string]int{"V": 1, "L": 1, "nu": -1}).
-		Fix("L", lengthRatio).Fix("nu", nuRatio).Fix("rho", densityRatio).Basis("V", "L", "rho").Solve()
+	return s.solve("Reynolds", []string{"Length", "Density", "KinematicViscosity"},
+		[]pigroups.Variable{pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("L", quantity.Length, "length"),
+			pigroups.VarKind("rho", quantity.Density, "density"), pigroups.VarKind("nu", quantity.KinematicViscosity, "kinematic viscosity")},
+		"the Reynolds number", map[string]int{"V": 1, "L": 1, "nu": -1},
+		[]fixed{{"L", s.Length}, {"nu", s.KinematicViscosity}, {"rho", s.Density}}, "V", "L", "rho")
 }
 
 // Mach scaling: the Mach number V/a held: λ_V = λ_a, for given length,
@@ -113,15 +129,11 @@ func Reynolds(s Scales) (*Solution, error) {
 // (speed of sound), L (length) and rho (density); the basis of
 // DerivedRatio is V, L, rho.
 func Mach(s Scales) (*Solution, error) {
-	if err := s.need("Mach", "Length", "Density", "SpeedOfSound"); err != nil {
-		return nil, err
-	}
-	lengthRatio, soundRatio, densityRatio := s.Length, s.SpeedOfSound, s.Density
-	p := pigroups.MustProblem(
-		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("a", quantity.Velocity, "speed of sound"),
-		pigroups.VarKind("L", quantity.Length, "length"), pigroups.VarKind("rho", quantity.Density, "density"))
-	return NewPlan(p).HoldExps("the Mach number", map[string]int{"V": 1, "a": -1}).
-		Fix("L", lengthRatio).Fix("a", soundRatio).Fix("rho", densityRatio).Basis("V", "L", "rho").Solve()
+	return s.solve("Mach", []string{"Length", "Density", "SpeedOfSound"},
+		[]pigroups.Variable{pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("a", quantity.Velocity, "speed of sound"),
+			pigroups.VarKind("L", quantity.Length, "length"), pigroups.VarKind("rho", quantity.Density, "density")},
+		"the Mach number", map[string]int{"V": 1, "a": -1},
+		[]fixed{{"L", s.Length}, {"a", s.SpeedOfSound}, {"rho", s.Density}}, "V", "L", "rho")
 }
 
 // Weber scaling: ρV²L/σ held: λ_V = (λ_σ/(λ_ρ·λ_L))^(1/2).
@@ -130,15 +142,11 @@ func Mach(s Scales) (*Solution, error) {
 // (length), rho (density) and sigma (surface tension); the basis of
 // DerivedRatio is V, L, rho.
 func Weber(s Scales) (*Solution, error) {
-	if err := s.need("Weber", "Length", "Density", "SurfaceTension"); err != nil {
-		return nil, err
-	}
-	lengthRatio, densityRatio, tensionRatio := s.Length, s.Density, s.SurfaceTension
-	p := pigroups.MustProblem(
-		pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("L", quantity.Length, "length"),
-		pigroups.VarKind("rho", quantity.Density, "density"), pigroups.VarKind("sigma", quantity.SurfaceTension, "surface tension"))
-	return NewPlan(p).HoldExps("the Weber number", map[string]int{"rho": 1, "V": 2, "L": 1, "sigma": -1}).
-		Fix("L", lengthRatio).Fix("rho", densityRatio).Fix("sigma", tensionRatio).Basis("V", "L", "rho").Solve()
+	return s.solve("Weber", []string{"Length", "Density", "SurfaceTension"},
+		[]pigroups.Variable{pigroups.VarKind("V", quantity.Velocity, "velocity"), pigroups.VarKind("L", quantity.Length, "length"),
+			pigroups.VarKind("rho", quantity.Density, "density"), pigroups.VarKind("sigma", quantity.SurfaceTension, "surface tension")},
+		"the Weber number", map[string]int{"rho": 1, "V": 2, "L": 1, "sigma": -1},
+		[]fixed{{"L", s.Length}, {"rho", s.Density}, {"sigma", s.SurfaceTension}}, "V", "L", "rho")
 }
 
 // Euler scaling: Δp/(ρV²) held (also the cavitation number
@@ -149,15 +157,11 @@ func Weber(s Scales) (*Solution, error) {
 // difference), V (velocity), L (length) and rho (density); the basis of
 // DerivedRatio is V, L, rho.
 func Euler(s Scales) (*Solution, error) {
-	if err := s.need("Euler", "Length", "Density", "Velocity"); err != nil {
-		return nil, err
-	}
-	lengthRatio, densityRatio, velocityRatio := s.Length, s.Density, s.Velocity
-	p := pigroups.MustProblem(
-		pigroups.VarKind("p", quantity.Pressure, "pressure difference"), pigroups.VarKind("V", quantity.Velocity, "velocity"),
-		pigroups.VarKind("L", quantity.Length, "length"), pigroups.VarKind("rho", quantity.Density, "density"))
-	return NewPlan(p).HoldExps("the Euler number", map[string]int{"p": 1, "rho": -1, "V": -2}).
-		Fix("L", lengthRatio).Fix("rho", densityRatio).Fix("V", velocityRatio).Basis("V", "L", "rho").Solve()
+	return s.solve("Euler", []string{"Length", "Density", "Velocity"},
+		[]pigroups.Variable{pigroups.VarKind("p", quantity.Pressure, "pressure difference"), pigroups.VarKind("V", quantity.Velocity, "velocity"),
+			pigroups.VarKind("L", quantity.Length, "length"), pigroups.VarKind("rho", quantity.Density, "density")},
+		"the Euler number", map[string]int{"p": 1, "rho": -1, "V": -2},
+		[]fixed{{"L", s.Length}, {"rho", s.Density}, {"V", s.Velocity}}, "V", "L", "rho")
 }
 
 // Strouhal scaling: fL/V held: λ_f = λ_V/λ_L, for frequencies of vortex
@@ -166,13 +170,9 @@ func Euler(s Scales) (*Solution, error) {
 // the symbols its Ratio takes, are f (frequency), V (velocity) and L
 // (length); the basis of DerivedRatio is V, L.
 func Strouhal(s Scales) (*Solution, error) {
-	if err := s.need("Strouhal", "Length", "Velocity"); err != nil {
-		return nil, err
-	}
-	lengthRatio, velocityRatio := s.Length, s.Velocity
-	p := pigroups.MustProblem(
-		pigroups.VarKind("f", quantity.Frequency, "frequency"), pigroups.VarKind("V", quantity.Velocity, "velocity"),
-		pigroups.VarKind("L", quantity.Length, "length"))
-	return NewPlan(p).HoldExps("the Strouhal number", map[string]int{"f": 1, "L": 1, "V": -1}).
-		Fix("L", lengthRatio).Fix("V", velocityRatio).Basis("V", "L").Solve()
+	return s.solve("Strouhal", []string{"Length", "Velocity"},
+		[]pigroups.Variable{pigroups.VarKind("f", quantity.Frequency, "frequency"), pigroups.VarKind("V", quantity.Velocity, "velocity"),
+			pigroups.VarKind("L", quantity.Length, "length")},
+		"the Strouhal number", map[string]int{"f": 1, "L": 1, "V": -1},
+		[]fixed{{"L", s.Length}, {"V", s.Velocity}}, "V", "L")
 }

@@ -209,6 +209,21 @@ func (s *Solution) Ratio(symbol string) (Ratio, error) {
 	return checked("λ_"+symbol, Ratio{Law: l, Value: l.Eval(s.values)})
 }
 
+// RatioValues returns the values of the ratios of the given variables,
+// in order, as Ratio gives them: a trade builds its rule's result from
+// the named scales with it. The first error from Ratio is returned.
+func (s *Solution) RatioValues(symbols ...string) ([]float64, error) {
+	out := make([]float64, len(symbols))
+	for i, sym := range symbols {
+		r, err := s.Ratio(sym)
+		if err != nil {
+			return nil, err
+		}
+		out[i] = r.Value
+	}
+	return out, nil
+}
+
 // checked returns r, or the zero Ratio and an error when its value
 // overflowed or underflowed.
 func checked(what string, r Ratio) (Ratio, error) {

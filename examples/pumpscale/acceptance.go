@@ -5,18 +5,15 @@ import (
 	"image/color"
 	"io"
 	"math"
-	"os"
 	"path/filepath"
-	"strconv"
 	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
-	"gonum.org/v1/plot/vg/vgimg"
-	"gonum.org/v1/plot/vg/vgsvg"
 
+	"similis.dev/similis/examples/internal/plotstyle"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
 	"similis.dev/similis/similarity/turbo"
@@ -345,71 +342,16 @@ func plotAcceptance(dir string, a Acceptance, wIn, hIn, dpi float64) (string, st
 	bottom.Y.Min, bottom.Y.Max = math.Floor(bottom.Y.Min), math.Ceil(bottom.Y.Max)
 	for _, p := range []*plot.Plot{top, bottom} {
 		p.Add(plotter.NewGrid())
-		p.X.Tick.Marker, p.Y.Tick.Marker = linearTicks{}, linearTicks{}
+		p.X.Tick.Marker, p.Y.Tick.Marker = plotstyle.LinearTicks{}, plotstyle.LinearTicks{}
 	}
 	png := filepath.Join(dir, "pumpscale-acceptance.png")
 	svg := filepath.Join(dir, "pumpscale-acceptance.svg")
-	w, h := vg.Length(wIn)*vg.Inch, vg.Length(hIn)*vg.Inch
-	draw2 := func(c draw.Canvas) {
-		tiles := draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Points(6), PadTop: vg.Points(2), PadBottom: vg.Points(2), PadLeft: vg.Points(2), PadRight: vg.Points(6)}
-		cs := plot.Align([][]*plot.Plot{{top}, {bottom}}, tiles, c)
-		top.Draw(cs[0][0])
-		bottom.Draw(cs[1][0])
-	}
-	ci := vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(int(math.Round(dpi))))
-	draw2(draw.New(ci))
-	if err := writeTo(png, vgimg.PngCanvas{Canvas: ci}); err != nil {
-		return "", "", err
-	}
-	cs := vgsvg.New(w, h)
-	draw2(draw.New(cs))
-	if err := writeTo(svg, cs); err != nil {
-		return "", "", err
+	for _, path := range []string{png, svg} {
+		if err := plotstyle.SaveStacked([]*plot.Plot{top, bottom}, path, wIn, hIn, dpi); err != nil {
+			return "", "", err
+		}
 	}
 	return png, svg, nil
-}
-
-// linearTicks labels a linear axis at a step of 1, 2 or 5 times a power
-// of ten giving four to ten labels, with unlabelled ticks between.
-type linearTicks struct{}
-
-// Ticks returns the ticks for [lo, hi].
-func (linearTicks) Ticks(lo, hi float64) []plot.Tick {
-	if !(hi > lo) || math.IsInf(hi-lo, 0) {
-		return plot.DefaultTicks{}.Ticks(lo, hi)
-	}
-	p := math.Pow(10, math.Floor(math.Log10(hi-lo)))
-	step := p
-	for _, m := range []float64{0.1, 0.2, 0.5, 1, 2, 5} {
-		if (hi-lo)/(m*p) <= 10 {
-			step = m * p
-			break
-		}
-	}
-	prec := max(0, -int(math.Floor(math.Log10(step))))
-	var ts []plot.Tick
-	for i := math.Ceil(lo/step*2) / 2; i*step <= hi+1e-9*step; i += 0.5 {
-		v := i * step
-		t := plot.Tick{Value: v}
-		if i == math.Trunc(i) {
-			t.Label = strconv.FormatFloat(v, 'f', prec, 64)
-		}
-		ts = append(ts, t)
-	}
-	return ts
-}
-
-// writeTo writes a canvas to a new file at path.
-func writeTo(path string, c io.WriterTo) error {
-	f, err := os.Create(path)
-	if err != nil {
-		return err
-	}
-	if _, err := c.WriteTo(f); err != nil {
-		f.Close()
-		return err
-	}
-	return f.Close()
 }
 
 // glyph returns the marker of series k: a distinct shape and colour.

@@ -20,8 +20,6 @@
 package main
 
 import (
-	"errors"
-	"flag"
 	"fmt"
 	"io"
 	"math"
@@ -34,19 +32,7 @@ import (
 	"similis.dev/similis/units"
 )
 
-func main() {
-	if err := run(os.Stdout, os.Args[1:]); err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return // -h: the usage is printed
-		}
-		fmt.Fprintln(os.Stderr, "pumpscale:", err)
-		var ce *cli.Error
-		if errors.As(err, &ce) {
-			os.Exit(2) // a usage mistake
-		}
-		os.Exit(1)
-	}
-}
+func main() { cli.Main("pumpscale", run) }
 
 // about is the head of the -h text: what the program does and what its
 // output means.
@@ -129,8 +115,7 @@ type Report struct {
 // evaluateReport carries the curve and the suction performance and
 // analyses the acceptance test.
 func evaluateReport(w io.Writer, args []string) (Report, error) {
-	fs := flag.NewFlagSet("pumpscale", flag.ContinueOnError)
-	fs.Usage = func() { fmt.Fprint(fs.Output(), about); fs.PrintDefaults() }
+	fs := cli.NewFlagSet("pumpscale", about)
 	nm := cli.FloatVar(fs, "nm", 1750, 100, 10000, "rpm", "model speed")
 	dm := cli.FloatVar(fs, "dm", 10, 2, 60, "in", "model impeller diameter")
 	np := cli.FloatVar(fs, "np", 1180, 50, 10000, "rpm", "prototype speed")
@@ -141,19 +126,16 @@ func evaluateReport(w io.Writer, args []string) (Report, error) {
 	width := cli.FloatVar(fs, "width", 6, 2, 40, "in", "plot width")
 	height := cli.FloatVar(fs, "height", 7, 2, 40, "in", "plot height")
 	dpi := cli.FloatVar(fs, "dpi", 150, 36, 1200, "dots per inch", "PNG resolution")
-	if err := cli.Parse(fs, w, args); err != nil {
+	if err := cli.ParseFlags(fs, w, args); err != nil {
 		return Report{}, err
-	}
-	if fs.NArg() > 0 {
-		return Report{}, &cli.Error{Program: "pumpscale", Msg: fmt.Sprintf("unexpected argument %s: pumpscale takes flags only", cli.Quote(fs.Arg(0)))}
 	}
 	agreed, ok := parseGrade(*grade)
 	if !ok {
 		return Report{}, &cli.Error{Program: "pumpscale", Msg: fmt.Sprintf("-grade %s: want one of ISO 9906's grades 1U, 1E, 1B, 2B, 2U, 3B", cli.Quote(*grade))}
 	}
 	if *out != "" {
-		if st, err := os.Stat(*out); err != nil || !st.IsDir() {
-			return Report{}, &cli.Error{Program: "pumpscale", Msg: fmt.Sprintf("-out %s: not a directory", cli.Quote(*out))}
+		if err := cli.Dir("out", *out); err != nil {
+			return Report{}, err
 		}
 	}
 	// The efficiency step-ups hold from a model to a larger machine at a

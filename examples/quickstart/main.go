@@ -17,11 +17,8 @@
 package main
 
 import (
-	"errors"
-	"flag"
 	"fmt"
 	"io"
-	"os"
 
 	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
@@ -31,19 +28,7 @@ import (
 
 // The whole-job part is in job.go.
 
-func main() {
-	if err := run(os.Stdout, os.Args[1:]); err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return // -h: the usage is printed
-		}
-		fmt.Fprintln(os.Stderr, "quickstart:", err)
-		var ce *cli.Error
-		if errors.As(err, &ce) {
-			os.Exit(2)
-		}
-		os.Exit(1)
-	}
-}
+func main() { cli.Main("quickstart", run) }
 
 // pipe holds the inputs of one pressure-drop evaluation.
 type pipe struct {
@@ -111,21 +96,13 @@ Flags:
 `
 
 func run(w io.Writer, args []string) error {
-	fs := flag.NewFlagSet("quickstart", flag.ContinueOnError)
-	fs.Usage = func() {
-		o := fs.Output()
-		fmt.Fprint(o, usageText)
-		fs.PrintDefaults()
-	}
+	fs := cli.NewFlagSet("quickstart", usageText)
 	v := cli.FloatVar(fs, "v", 2.5, 1e-3, 50, "m/s", "mean water velocity in the rig's pipe")
 	d := cli.FloatVar(fs, "d", 0.08, 1e-3, 5, "m", "pipe bore")
 	l := cli.FloatVar(fs, "l", 40, 0.01, 1e4, "m", "pipe length")
 	scale := cli.FloatVar(fs, "scale", 16, 2, 100, "", "ship length over model length (λ⁻¹) for the 32 m catamaran of parts 3–6")
-	if err := cli.Parse(fs, w, args); err != nil {
+	if err := cli.ParseFlags(fs, w, args); err != nil {
 		return err
-	}
-	if fs.NArg() > 0 {
-		return &cli.Error{Program: fs.Name(), Msg: "unexpected argument " + cli.Quote(fs.Arg(0)) + ": the program takes flags only"}
 	}
 	// Invented data: a water line in a test rig, commercial steel pipe,
 	// fresh water at 20 °C.

@@ -11,8 +11,6 @@
 package main
 
 import (
-	"errors"
-	"flag"
 	"fmt"
 	"io"
 	"math"
@@ -26,36 +24,14 @@ import (
 	"gonum.org/v1/plot/vg"
 
 	"similis.dev/similis/examples/internal/cli"
+	"similis.dev/similis/examples/internal/plotstyle"
 	"similis.dev/similis/pigroups"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/uncertain"
 	"similis.dev/similis/units"
 )
 
-func main() {
-	if err := run(os.Stdout, os.Args[1:]); err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return // -h: the usage is printed
-		}
-		fmt.Fprintln(os.Stderr, "restrictor:", cli.Sanitize(err.Error()))
-		os.Exit(exitCode(err))
-	}
-}
-
-// usageError is a command-line mistake (exit status 2).
-type usageError struct{ msg string }
-
-func (e *usageError) Error() string { return e.msg }
-
-// exitCode is 2 for a usage mistake, 1 for anything else.
-func exitCode(err error) int {
-	var ce *cli.Error
-	var ue *usageError
-	if errors.As(err, &ce) || errors.As(err, &ue) {
-		return 2
-	}
-	return 1
-}
+func main() { cli.Main("restrictor", run) }
 
 const usageText = `restrictor reduces an invented bench test of a flow restrictor (a 6 mm bore,
 12, 24 and 48 mm long, in a glycol coolant): it prints the dimensional matrix,
@@ -251,24 +227,17 @@ func labelledSets(p *pigroups.Problem) []string {
 }
 
 func evaluate(w io.Writer, args []string) (*Result, error) {
-	fs := flag.NewFlagSet("restrictor", flag.ContinueOnError)
+	fs := cli.NewFlagSet("restrictor", usageText)
 	out := fs.String("out", os.TempDir(), "directory for restrictor-fit.png and restrictor-fit.svg")
 	rep := fs.String("repeat", "rho,V,d", "repeating set; it must give Eu, Re and L/d")
 	width := cli.FloatVar(fs, "width", 6, 2, 40, "in", "plot width")
 	height := cli.FloatVar(fs, "height", 4, 2, 40, "in", "plot height")
 	dpi := cli.FloatVar(fs, "dpi", 150, 36, 1200, "dots per inch", "PNG resolution")
-	fs.Usage = func() {
-		fmt.Fprint(fs.Output(), usageText)
-		fs.PrintDefaults()
-	}
-	if err := cli.Parse(fs, w, args); err != nil {
+	if err := cli.ParseFlags(fs, w, args); err != nil {
 		return nil, err
 	}
-	if fs.NArg() > 0 {
-		return nil, &usageError{fmt.Sprintf("unexpected argument %s: restrictor takes flags only", cli.Quote(fs.Arg(0)))}
-	}
-	if st, err := os.Stat(*out); err != nil || !st.IsDir() {
-		return nil, &usageError{fmt.Sprintf("-out %s: not a directory", cli.Quote(*out))}
+	if err := cli.Dir("out", *out); err != nil {
+		return nil, err
 	}
 	p, err := pigroups.NewProblem(
 		pigroups.Dep("dp", q.Pressure).WithKind("pressure difference"),
@@ -280,7 +249,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	}
 	set, err := p.PiSet(strings.Split(*rep, ",")...)
 	if err != nil {
-		return nil, &usageError{fmt.Sprintf("-repeat %s: %s; sets the report can label: %s", cli.Quote(*rep), cli.Sanitize(err.Error()), strings.Join(labelledSets(p), "; "))}
+		return nil, &cli.Error{Msg: fmt.Sprintf("-repeat %s: %s; sets the report can label: %s", cli.Quote(*rep), cli.Sanitize(err.Error()), strings.Join(labelledSets(p), "; "))}
 	}
 	set = set.WithConventional()
 	iEu, iRe, iLD, ok := named(set)
@@ -289,7 +258,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		for _, g := range set.Groups() {
 			gs = append(gs, g.Format(q.Unicode))
 		}
-		return nil, &usageError{fmt.Sprintf("-repeat %s gives %s: the report labels Eu = Δp/(ρ·V²), Re = ρ·V·d/μ and L/d, which this set does not give; sets that do: %s",
+		return nil, &cli.Error{Msg: fmt.Sprintf("-repeat %s gives %s: the report labels Eu = Δp/(ρ·V²), Re = ρ·V·d/μ and L/d, which this set does not give; sets that do: %s",
 			cli.Quote(*rep), strings.Join(gs, ", "), strings.Join(labelledSets(p), "; "))}
 	}
 	fmt.Fprintln(w, "Bench test of a flow restrictor in a coolant loop (invented data)")
@@ -402,7 +371,7 @@ func buildPlot(r *Result) (*plot.Plot, []*plotter.Scatter, error) {
 		if err != nil {
 			return nil, nil, err
 		}
-		sc.GlyphStyle = marker(k)
+		sc.GlyphStyle = plotstyle.Marker(k)
 		scs = append(scs, sc)
 		lo := slices.MinFunc(pts, func(a, b plotter.XY) int { return cmpF(a.X, b.X) }).X
 		hi := slices.MaxFunc(pts, func(a, b plotter.XY) int { return cmpF(a.X, b.X) }).X
@@ -427,7 +396,7 @@ func buildPlot(r *Result) (*plot.Plot, []*plotter.Scatter, error) {
 			xs, ys = append(xs, p.X), append(ys, p.Y)
 		}
 	}
-	styleAxes(pl, xs, ys)
+	plotstyle.StyleLog(pl, xs, ys)
 	// Room above the data for the legend, so it covers no marker.
 	pl.Y.Max *= math.Pow(pl.Y.Max/pl.Y.Min, 0.3)
 	return pl, scs, nil
@@ -452,10 +421,10 @@ func plotFit(dir string, r *Result, w, h, dpi float64) (string, string, error) {
 	}
 	png := filepath.Join(dir, "restrictor-fit.png")
 	svg := filepath.Join(dir, "restrictor-fit.svg")
-	if err := savePlot(pl, png, w, h, dpi); err != nil {
+	if err := plotstyle.Save(pl, png, w, h, dpi); err != nil {
 		return "", "", err
 	}
-	if err := savePlot(pl, svg, w, h, dpi); err != nil {
+	if err := plotstyle.Save(pl, svg, w, h, dpi); err != nil {
 		return "", "", err
 	}
 	return png, svg, nil

@@ -13,6 +13,8 @@ import (
 	"testing"
 
 	"gonum.org/v1/plot"
+	"similis.dev/similis/examples/internal/cli"
+	"similis.dev/similis/examples/internal/plotstyle"
 )
 
 // TestRepeatFindsGroupsByWhatTheyAre: the report finds Eu, Re and L/d by
@@ -35,8 +37,8 @@ func TestRepeatFindsGroupsByWhatTheyAre(t *testing.T) {
 	}
 	var out bytes.Buffer
 	_, err = evaluate(&out, []string{"-out", dir, "-repeat", "mu,V,d"})
-	if err == nil || exitCode(err) != 2 || !strings.Contains(err.Error(), "sets that do: rho,V,d") {
-		t.Errorf("-repeat mu,V,d: %v (exit %d)", err, exitCode(err))
+	if err == nil || cli.ExitCode(io.Discard, "restrictor", err) != 2 || !strings.Contains(err.Error(), "sets that do: rho,V,d") {
+		t.Errorf("-repeat mu,V,d: %v (exit %d)", err, cli.ExitCode(io.Discard, "restrictor", err))
 	}
 	if strings.Contains(out.String(), "Re = 0") {
 		t.Errorf("printed Re = 0:\n%s", out.String())
@@ -125,7 +127,7 @@ func TestPlotReadable(t *testing.T) {
 	if len(scs) != 3 || len(shapes) != 3 {
 		t.Errorf("%d series with %d marker shapes, want 3 and 3", len(scs), len(shapes))
 	}
-	if _, ok := pl.X.Label.TextStyle.Handler.(subscripts); !ok {
+	if _, ok := pl.X.Label.TextStyle.Handler.(plotstyle.Subscripts); !ok {
 		t.Errorf("x label drawn by %T", pl.X.Label.TextStyle.Handler)
 	}
 }
@@ -139,8 +141,8 @@ func TestUsageErrors(t *testing.T) {
 		{"-\x1b[2J"}, {"-out", dir, "extra"}, {"-out", filepath.Join(dir, "none")},
 	} {
 		err := run(io.Discard, args)
-		if err == nil || exitCode(err) != 2 {
-			t.Errorf("%.30q: %v, exit %d; want a usage error", args, err, exitCode(err))
+		if err == nil || cli.ExitCode(io.Discard, "restrictor", err) != 2 {
+			t.Errorf("%.30q: %v, exit %d; want a usage error", args, err, cli.ExitCode(io.Discard, "restrictor", err))
 			continue
 		}
 		if msg := err.Error(); len(msg) > 1000 || strings.Contains(msg, "\x1b") {

@@ -24,8 +24,6 @@
 package main
 
 import (
-	"errors"
-	"flag"
 	"fmt"
 	"io"
 	"math"
@@ -39,19 +37,7 @@ import (
 	"similis.dev/similis/units"
 )
 
-func main() {
-	if err := run(os.Stdout, os.Args[1:]); err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return // -h: the usage is printed
-		}
-		fmt.Fprintln(os.Stderr, "spillway:", err)
-		var ce *cli.Error
-		if errors.As(err, &ce) {
-			os.Exit(2) // a usage mistake
-		}
-		os.Exit(1)
-	}
-}
+func main() { cli.Main("spillway", run) }
 
 // about is the head of the -h text: what the program does and what its
 // output means.
@@ -128,8 +114,7 @@ var record = []float64{3.10, 3.42, 2.95, 3.88, 4.20, 3.61, 3.05, 3.77, 4.41, 3.9
 func run(w io.Writer, args []string) error { _, err := evaluate(w, args); return err }
 
 func evaluate(w io.Writer, args []string) (*Result, error) {
-	fs := flag.NewFlagSet("spillway", flag.ContinueOnError)
-	fs.Usage = func() { fmt.Fprint(fs.Output(), about); fs.PrintDefaults() }
+	fs := cli.NewFlagSet("spillway", about)
 	scale := cli.FloatVar(fs, "scale", 30, 2, 500, "", "length scale x of the 1:x Froude model (prototype length over model length)")
 	qp := cli.FloatVar(fs, "q", 450, 0.1, 1e5, "m³/s", "prototype design discharge")
 	hs := cli.FloatVar(fs, "hscale", 120, 2, 5000, "", "distorted variant of the approach reach: horizontal scale x of 1:x")
@@ -140,15 +125,12 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	width := cli.FloatVar(fs, "width", 6, 2, 40, "in", "plot width")
 	height := cli.FloatVar(fs, "height", 7, 2, 40, "in", "plot height (two panels)")
 	dpi := cli.FloatVar(fs, "dpi", 150, 36, 1200, "dots per inch", "PNG resolution")
-	if err := cli.Parse(fs, w, args); err != nil {
+	if err := cli.ParseFlags(fs, w, args); err != nil {
 		return nil, err
 	}
-	if fs.NArg() > 0 {
-		return nil, &cli.Error{Program: "spillway", Msg: fmt.Sprintf("unexpected argument %s: spillway takes flags only", cli.Quote(fs.Arg(0)))}
-	}
 	if *out != "" {
-		if st, err := os.Stat(*out); err != nil || !st.IsDir() {
-			return nil, &cli.Error{Program: "spillway", Msg: fmt.Sprintf("-out %s: not a directory", cli.Quote(*out))}
+		if err := cli.Dir("out", *out); err != nil {
+			return nil, err
 		}
 	}
 	if *vs > *hs {

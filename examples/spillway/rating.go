@@ -8,20 +8,15 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"os"
 	"path/filepath"
-	"strconv"
 	"strings"
 
 	"gonum.org/v1/plot"
-	"gonum.org/v1/plot/font"
 	"gonum.org/v1/plot/plotter"
-	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
-	"gonum.org/v1/plot/vg/vgimg"
-	"gonum.org/v1/plot/vg/vgsvg"
 
+	"similis.dev/similis/examples/internal/plotstyle"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/hydraulic"
 )
@@ -197,32 +192,29 @@ func plotRating(dir string, r *hydraulic.Rating, table []hydraulic.RatingValue, 
 	if err != nil {
 		return "", "", err
 	}
-	fitLine.Color = seriesColor(1)
+	fitLine.Color = plotstyle.SeriesColor(1)
 	fitLine.Width = vg.Points(1.5)
 	pl.Add(fitLine)
 	pl.Legend.Add("fitted rating (range of validity)", fitLine)
-	for k, band := range []plotter.XYs{lower, upper} {
-		ln, err := plotter.NewLine(band)
-		if err != nil {
-			return "", "", err
-		}
-		ln.Color = seriesColor(1)
-		ln.Dashes = []vg.Length{vg.Points(4), vg.Points(2)}
-		pl.Add(ln)
-		if k == 0 {
-			pl.Legend.Add(fmt.Sprintf("%g %% band of the fit (no scale effects)", r.Level*100), ln)
-		}
-	}
-	for k, ex := range []plotter.XYs{below, above} {
-		ln, err := plotter.NewLine(ex)
-		if err != nil {
-			return "", "", err
-		}
-		ln.Color = seriesColor(2)
-		ln.Dashes = []vg.Length{vg.Points(1), vg.Points(2)}
-		pl.Add(ln)
-		if k == 0 {
-			pl.Legend.Add("extrapolated", ln)
+	for _, pair := range []struct {
+		lines  [2]plotter.XYs
+		color  int
+		dashes []vg.Length
+		label  string
+	}{
+		{[2]plotter.XYs{lower, upper}, 1, []vg.Length{vg.Points(4), vg.Points(2)}, fmt.Sprintf("%g %% band of the fit (no scale effects)", r.Level*100)},
+		{[2]plotter.XYs{below, above}, 2, []vg.Length{vg.Points(1), vg.Points(2)}, "extrapolated"},
+	} {
+		for k, xy := range pair.lines {
+			ln, err := plotter.NewLine(xy)
+			if err != nil {
+				return "", "", err
+			}
+			ln.Color, ln.Dashes = plotstyle.SeriesColor(pair.color), pair.dashes
+			pl.Add(ln)
+			if k == 0 {
+				pl.Legend.Add(pair.label, ln)
+			}
 		}
 	}
 	for k, set := range []struct {
@@ -237,15 +229,15 @@ func plotRating(dir string, r *hydraulic.Rating, table []hydraulic.RatingValue, 
 		if err != nil {
 			return "", "", err
 		}
-		sc.GlyphStyle = marker(set.style)
+		sc.GlyphStyle = plotstyle.Marker(set.style)
 		if k == 1 {
-			sc.GlyphStyle.Color = seriesColor(2)
+			sc.GlyphStyle.Color = plotstyle.SeriesColor(2)
 			sc.GlyphStyle.Shape = draw.CrossGlyph{}
 		}
 		pl.Add(sc)
 		pl.Legend.Add(set.label, sc)
 	}
-	styleAxes(pl, xs, ys)
+	plotstyle.StyleLog(pl, xs, ys)
 	pl.Y.Max *= math.Pow(pl.Y.Max/pl.Y.Min, 0.35) // room for the legend above the curve
 	dev, err := deviationPlot(r, scale, t0, t1)
 	if err != nil {
@@ -255,7 +247,7 @@ func plotRating(dir string, r *hydraulic.Rating, table []hydraulic.RatingValue, 
 	png := filepath.Join(dir, "spillway-rating.png")
 	svg := filepath.Join(dir, "spillway-rating.svg")
 	for _, path := range []string{png, svg} {
-		if err := saveStacked([]*plot.Plot{pl, dev}, path, width, height, dpi); err != nil {
+		if err := plotstyle.SaveStacked([]*plot.Plot{pl, dev}, path, width, height, dpi); err != nil {
 			return "", "", err
 		}
 	}
@@ -270,11 +262,11 @@ func deviationPlot(r *hydraulic.Rating, scale, t0, t1 float64) (*plot.Plot, erro
 	pl := plot.New()
 	pl.X.Label.Text = "h_p (m, log scale)"
 	pl.Y.Label.Text = "Q/Q_fit − 1 (%)"
-	h := subscripts{text.Plain{Fonts: font.DefaultCache}}
+	h := plotstyle.New()
 	pl.X.Label.TextStyle.Handler, pl.Y.Label.TextStyle.Handler = h, h
 	pl.X.Tick.Label.Handler, pl.Y.Tick.Label.Handler = h, h
-	pl.X.Scale, pl.X.Tick.Marker = plot.LogScale{}, logTicks{}
-	pl.Y.Tick.Marker = labelledTicks{}
+	pl.X.Scale, pl.X.Tick.Marker = plot.LogScale{}, plotstyle.LogTicks{}
+	pl.Y.Tick.Marker = plotstyle.LinearTicks{}
 	lo, hi := r.ProtoHeadRange()
 	var ys []float64
 	band := func(a, b float64, dashes []vg.Length, c int) error {
@@ -294,7 +286,7 @@ func deviationPlot(r *hydraulic.Rating, scale, t0, t1 float64) (*plot.Plot, erro
 			if err != nil {
 				return err
 			}
-			ln.Color, ln.Dashes = seriesColor(c), dashes
+			ln.Color, ln.Dashes = plotstyle.SeriesColor(c), dashes
 			pl.Add(ln)
 		}
 		return nil
@@ -303,7 +295,7 @@ func deviationPlot(r *hydraulic.Rating, scale, t0, t1 float64) (*plot.Plot, erro
 	if err != nil {
 		return nil, err
 	}
-	zero.Color = seriesColor(1)
+	zero.Color = plotstyle.SeriesColor(1)
 	pl.Add(zero)
 	dotted := []vg.Length{vg.Points(1), vg.Points(2)}
 	for _, seg := range []struct {
@@ -337,9 +329,9 @@ func deviationPlot(r *hydraulic.Rating, scale, t0, t1 float64) (*plot.Plot, erro
 		if err != nil {
 			return nil, err
 		}
-		sc.GlyphStyle = marker(0)
+		sc.GlyphStyle = plotstyle.Marker(0)
 		if k == 1 {
-			sc.GlyphStyle.Color, sc.GlyphStyle.Shape = seriesColor(2), draw.CrossGlyph{}
+			sc.GlyphStyle.Color, sc.GlyphStyle.Shape = plotstyle.SeriesColor(2), draw.CrossGlyph{}
 		}
 		pl.Add(sc)
 	}
@@ -350,53 +342,4 @@ func deviationPlot(r *hydraulic.Rating, scale, t0, t1 float64) (*plot.Plot, erro
 	pad := 0.08 * (yhi - ylo)
 	pl.Y.Min, pl.Y.Max = ylo-pad, yhi+pad
 	return pl, nil
-}
-
-// saveStacked writes the two plots one above the other, their data areas
-// aligned, as a .png (at dpi) or .svg file of the given size in inches.
-func saveStacked(pls []*plot.Plot, path string, wIn, hIn, dpi float64) error {
-	w, h := vg.Length(wIn)*vg.Inch, vg.Length(hIn)*vg.Inch
-	var c vg.CanvasWriterTo
-	if strings.ToLower(filepath.Ext(path)) == ".png" {
-		c = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(int(math.Round(dpi))))}
-	} else {
-		c = vgsvg.New(w, h)
-	}
-	cs := plot.Align([][]*plot.Plot{{pls[0]}, {pls[1]}}, draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Points(4), PadTop: vg.Points(4), PadBottom: vg.Points(4)}, draw.New(c))
-	pls[0].Draw(cs[0][0])
-	pls[1].Draw(cs[1][0])
-	f, err := os.Create(path)
-	if err != nil {
-		return err
-	}
-	if _, err := c.WriteTo(f); err != nil {
-		f.Close()
-		return err
-	}
-	return f.Close()
-}
-
-// labelledTicks labels every tick of a linear axis, at a step of 1, 2 or
-// 5 times a power of ten that gives at most eight of them.
-type labelledTicks struct{}
-
-// Ticks implements plot.Ticker.
-func (labelledTicks) Ticks(lo, hi float64) []plot.Tick {
-	if !(hi > lo) || math.IsInf(hi-lo, 0) {
-		return plot.DefaultTicks{}.Ticks(lo, hi)
-	}
-	p := math.Pow(10, math.Floor(math.Log10((hi-lo)/8)))
-	step := 10 * p
-	for _, m := range []float64{1, 2, 5} {
-		if (hi-lo)/(m*p) <= 8 {
-			step = m * p
-			break
-		}
-	}
-	var ticks []plot.Tick
-	for v := math.Ceil(lo/step) * step; v <= hi && len(ticks) < 20; v += step {
-		x := math.Round(v/step) * step
-		ticks = append(ticks, plot.Tick{Value: x, Label: strconv.FormatFloat(x, 'g', 4, 64)})
-	}
-	return ticks
 }

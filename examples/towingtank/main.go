@@ -23,8 +23,6 @@
 package main
 
 import (
-	"errors"
-	"flag"
 	"fmt"
 	"io"
 	"math"
@@ -38,19 +36,7 @@ import (
 	"similis.dev/similis/units"
 )
 
-func main() {
-	if err := run(os.Stdout, os.Args[1:]); err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return // -h: the usage is printed
-		}
-		fmt.Fprintln(os.Stderr, "towingtank:", err)
-		var ce *cli.Error
-		if errors.As(err, &ce) {
-			os.Exit(2)
-		}
-		os.Exit(1)
-	}
-}
+func main() { cli.Main("towingtank", run) }
 
 // Invented model data: a 2.0 m catamaran model (both demi-hulls), wetted
 // surface 1.62 m², towed at eight speeds.
@@ -143,11 +129,7 @@ func run(w io.Writer, args []string) error {
 }
 
 func evaluate(w io.Writer, args []string) (*Outcome, error) {
-	fs := flag.NewFlagSet("towingtank", flag.ContinueOnError)
-	fs.Usage = func() {
-		fmt.Fprint(fs.Output(), usageText)
-		fs.PrintDefaults()
-	}
+	fs := cli.NewFlagSet("towingtank", usageText)
 	scale := cli.FloatVar(fs, "scale", 16, 2, 100, "", "ship length over model length (the model is 2 m)")
 	tankT := cli.FloatVar(fs, "tank", 15, 1, 35, "°C", "tank (fresh) water temperature")
 	seaT := cli.FloatVar(fs, "sea", 15, 0, 35, "°C", "sea water temperature")
@@ -160,11 +142,8 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	plotH := cli.FloatVar(fs, "ploth", 4.5, 2, 30, "in", "plot height")
 	dpi := cli.FloatVar(fs, "dpi", 96, 50, 600, "dots per inch", "PNG resolution")
 	drawPlot := fs.Bool("plot", true, "write the PNG and SVG plots to -out")
-	if err := cli.Parse(fs, w, args); err != nil {
+	if err := cli.ParseFlags(fs, w, args); err != nil {
 		return nil, err
-	}
-	if fs.NArg() > 0 {
-		return nil, &cli.Error{Program: fs.Name(), Msg: "unexpected argument " + cli.Quote(fs.Arg(0)) + ": the program takes flags only"}
 	}
 	size := plotSize{W: *plotW, H: *plotH, DPI: int(*dpi), Skip: !*drawPlot}
 	tank, err := fluids.FreshWater().AtCelsius(*tankT)

@@ -15,6 +15,7 @@ import (
 	"github.com/google/go-cmp/cmp"
 
 	"similis.dev/similis/examples/internal/cli"
+	"similis.dev/similis/examples/internal/plotstyle"
 )
 
 func TestRuns(t *testing.T) {
@@ -195,14 +196,14 @@ func TestPlotSize(t *testing.T) {
 func TestSubscriptSegments(t *testing.T) {
 	for _, c := range []struct {
 		in   string
-		want []segment
+		want []plotstyle.Segment
 	}{
-		{"model C_{TM} (measured)", []segment{{"model C", false}, {"TM", true}, {" (measured)", false}}},
-		{"C_{TS}", []segment{{"C", false}, {"TS", true}}},
-		{"Re_x no brace", []segment{{"Re_x no brace", false}}},
-		{"open _{ brace", []segment{{"open _{ brace", false}}},
+		{"model C_{TM} (measured)", []plotstyle.Segment{{Text: "model C", Sub: false}, {Text: "TM", Sub: true}, {Text: " (measured)", Sub: false}}},
+		{"C_{TS}", []plotstyle.Segment{{Text: "C", Sub: false}, {Text: "TS", Sub: true}}},
+		{"Re_x no brace", []plotstyle.Segment{{Text: "Re_x no brace", Sub: false}}},
+		{"open _{ brace", []plotstyle.Segment{{Text: "open _{ brace", Sub: false}}},
 	} {
-		if got := segments(c.in); !cmp.Equal(got, c.want, cmp.AllowUnexported(segment{})) {
+		if got := plotstyle.Segments(c.in, true); !cmp.Equal(got, c.want) {
 			t.Errorf("segments(%q) = %v, want %v", c.in, got, c.want)
 		}
 	}

@@ -17,6 +17,7 @@ import (
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 
+	"similis.dev/similis/examples/internal/plotstyle"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/tunnel"
 )
@@ -246,7 +247,7 @@ func plotPolar(dir string, r *Run, width, height, dpi float64) (png, svg [2]stri
 			if err != nil {
 				return png, svg, err
 			}
-			sc.GlyphStyle = marker([]int{0, 2}[j]) // a filled circle, an open triangle
+			sc.GlyphStyle = plotstyle.Marker([]int{0, 2}[j]) // a filled circle, an open triangle
 			pl.Add(sc)
 			pl.Legend.Add([]string{"in the linear range", "outside it (not fitted)"}[j], sc)
 			for _, p := range set {
@@ -257,7 +258,7 @@ func plotPolar(dir string, r *Run, width, height, dpi float64) (png, svg [2]stri
 		if err != nil {
 			return png, svg, err
 		}
-		ln.Color = seriesColor(1)
+		ln.Color = plotstyle.SeriesColor(1)
 		ln.Dashes = []vg.Length{vg.Points(4), vg.Points(2)}
 		pl.Add(ln)
 		pl.Legend.Add(fits[k], ln)
@@ -266,15 +267,15 @@ func plotPolar(dir string, r *Run, width, height, dpi float64) (png, svg [2]stri
 				xs, ys = append(xs, p.X), append(ys, p.Y)
 			}
 		}
-		styleAxes(pl, xs, ys)
+		plotstyle.StyleLinear(pl, xs, ys)
 		// Room above the data for the legend.
 		pl.Y.Max += 0.3 * (pl.Y.Max - pl.Y.Min)
 		png[k] = filepath.Join(dir, names[k]+".png")
 		svg[k] = filepath.Join(dir, names[k]+".svg")
-		if err := savePlot(pl, png[k], width, height, dpi); err != nil {
+		if err := plotstyle.Save(pl, png[k], width, height, dpi); err != nil {
 			return png, svg, err
 		}
-		if err := savePlot(pl, svg[k], width, height, dpi); err != nil {
+		if err := plotstyle.Save(pl, svg[k], width, height, dpi); err != nil {
 			return png, svg, err
 		}
 	}

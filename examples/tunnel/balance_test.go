@@ -8,6 +8,7 @@ import (
 	"strings"
 	"testing"
 
+	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/similarity/tunnel"
 )
 
@@ -181,10 +182,10 @@ func TestPlotsWritten(t *testing.T) {
 			t.Errorf("%s: %v", r.Run.SVG[k], err)
 		}
 	}
-	if err := run(&bytes.Buffer{}, []string{"-out", "/nonexistent/dir"}); err == nil || exitCode(err, &bytes.Buffer{}) != 2 {
+	if err := run(&bytes.Buffer{}, []string{"-out", "/nonexistent/dir"}); err == nil || cli.ExitCode(&bytes.Buffer{}, "tunnel", err) != 2 {
 		t.Errorf("-out to no directory: %v", err)
 	}
-	if err := run(&bytes.Buffer{}, outDir(t, "-amin", "12", "-amax", "4")); err == nil || exitCode(err, &bytes.Buffer{}) != 2 {
+	if err := run(&bytes.Buffer{}, outDir(t, "-amin", "12", "-amax", "4")); err == nil || cli.ExitCode(&bytes.Buffer{}, "tunnel", err) != 2 {
 		t.Errorf("-amin above -amax: %v", err)
 	}
 }

@@ -26,8 +26,6 @@
 package main
 
 import (
-	"errors"
-	"flag"
 	"fmt"
 	"io"
 	"os"
@@ -42,24 +40,7 @@ import (
 	"similis.dev/similis/similarity/tunnel"
 )
 
-func main() {
-	os.Exit(exitCode(run(os.Stdout, os.Args[1:]), os.Stderr))
-}
-
-// exitCode reports err on stderr and returns the exit status: 0 for none
-// or -h, 2 for a usage error, 1 for a plan that cannot be made.
-func exitCode(err error, stderr io.Writer) int {
-	switch {
-	case err == nil || errors.Is(err, flag.ErrHelp):
-		return 0
-	}
-	fmt.Fprintln(stderr, "tunnel:", err)
-	var ce *cli.Error
-	if errors.As(err, &ce) {
-		return 2
-	}
-	return 1
-}
+func main() { cli.Main("tunnel", run) }
 
 // Result collects the key numbers, for the test.
 type Result struct {
@@ -138,7 +119,7 @@ Flags:
 func run(w io.Writer, args []string) error { _, err := evaluate(w, args); return err }
 
 func evaluate(w io.Writer, args []string) (*Result, error) {
-	fs := flag.NewFlagSet("tunnel", flag.ContinueOnError)
+	fs := cli.NewFlagSet("tunnel", about)
 	alt := cli.FloatVar(fs, "alt", 18000, 0, 32000, "m", "cruise altitude, geometric")
 	mach := cli.FloatVar(fs, "mach", 0.62, 0.1, 0.95, "", "cruise Mach number (wall corrections are refused above 0.8)")
 	chord := cli.FloatVar(fs, "chord", 2.4, 0.1, 20, "m", "mean aerodynamic chord")
@@ -149,18 +130,11 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	width := cli.FloatVar(fs, "width", 6, 2, 40, "in", "plot width")
 	height := cli.FloatVar(fs, "height", 4, 2, 40, "in", "plot height")
 	dpi := cli.FloatVar(fs, "dpi", 150, 36, 1200, "dots per inch", "PNG resolution")
-	fs.Usage = func() {
-		fmt.Fprint(fs.Output(), about)
-		fs.PrintDefaults()
-	}
-	if err := cli.Parse(fs, w, args); err != nil {
+	if err := cli.ParseFlags(fs, w, args); err != nil {
 		return nil, err
 	}
-	if fs.NArg() > 0 {
-		return nil, &cli.Error{Msg: fmt.Sprintf("unexpected argument %s: tunnel takes flags only", cli.Quote(fs.Arg(0)))}
-	}
-	if st, err := os.Stat(*out); err != nil || !st.IsDir() {
-		return nil, &cli.Error{Msg: fmt.Sprintf("-out %s: not a directory", cli.Quote(*out))}
+	if err := cli.Dir("out", *out); err != nil {
+		return nil, err
 	}
 	if !(*alo < *ahi) {
 		return nil, &cli.Error{Msg: fmt.Sprintf("-amin %g must be below -amax %g", *alo, *ahi)}

@@ -9,6 +9,7 @@ import (
 	"strings"
 	"testing"
 
+	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -258,12 +259,12 @@ func TestFlagErrors(t *testing.T) {
 				t.Errorf("-%s %s: %v", f, v, err)
 				continue
 			}
-			if code := exitCode(err, io.Discard); code != 2 {
+			if code := cli.ExitCode(io.Discard, "tunnel", err); code != 2 {
 				t.Errorf("-%s %s: exit %d, want 2", f, v, code)
 			}
 		}
 	}
-	if code := exitCode(run(io.Discard, []string{"-h"}), io.Discard); code != 0 {
+	if code := cli.ExitCode(io.Discard, "tunnel", run(io.Discard, []string{"-h"})); code != 0 {
 		t.Errorf("-h: exit %d", code)
 	}
 }
@@ -280,7 +281,7 @@ func FuzzFlags(f *testing.F) {
 	f.Fuzz(func(t *testing.T, which uint8, v string) {
 		var out bytes.Buffer
 		err := run(&out, []string{"-out", dir, names[int(which)%len(names)], v})
-		if code := exitCode(err, io.Discard); err != nil && code == 0 && !errors.Is(err, flag.ErrHelp) {
+		if code := cli.ExitCode(io.Discard, "tunnel", err); err != nil && code == 0 && !errors.Is(err, flag.ErrHelp) {
 			t.Errorf("error %v with exit 0", err)
 		}
 		if err == nil && (strings.Contains(out.String(), "NaN") || strings.Contains(out.String(), "Inf")) {

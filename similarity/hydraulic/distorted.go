@@ -1,7 +1,6 @@
 package hydraulic
 
 import (
-	"fmt"
 	"math"
 
 	"similis.dev/similis/pigroups"
@@ -42,7 +41,9 @@ type DistortedScales struct {
 // acceleration), t (time) and Q (volume flow rate); the basis of
 // DerivedRatio is V, x.
 func DistortedFroude(sc DistortedScales) (Distorted, error) {
-	if err := checkRatios("distorted Froude scales", "horizontal length", sc.Horizontal, "vertical length", sc.Vertical); err != nil {
+	if err := fail("distorted Froude scales", similarity.CheckRatios(
+		similarity.Result{Name: "horizontal length", Value: sc.Horizontal},
+		similarity.Result{Name: "vertical length", Value: sc.Vertical})); err != nil {
 		return Distorted{}, err
 	}
 	horizontal, vertical := sc.Horizontal, sc.Vertical
@@ -58,7 +59,7 @@ func DistortedFroude(sc DistortedScales) (Distorted, error) {
 	if err != nil {
 		return Distorted{}, err
 	}
-	v, err := ratioValues(s, "V", "t", "Q")
+	v, err := s.RatioValues("V", "t", "Q")
 	if err != nil {
 		return Distorted{}, err
 	}
@@ -68,7 +69,11 @@ func DistortedFroude(sc DistortedScales) (Distorted, error) {
 		Slope: vertical / horizontal, Manning: math.Pow(vertical, 2.0/3) / math.Sqrt(horizontal),
 		solution: s,
 	}
-	if err := checkRatios("distorted Froude scales", "area", d.Area, "slope", d.Slope, "Manning's n", d.Manning, "distortion", d.Distortion); err != nil {
+	if err := fail("distorted Froude scales", similarity.CheckRatios(
+		similarity.Result{Name: "area", Value: d.Area},
+		similarity.Result{Name: "slope", Value: d.Slope},
+		similarity.Result{Name: "Manning's n", Value: d.Manning},
+		similarity.Result{Name: "distortion", Value: d.Distortion})); err != nil {
 		return Distorted{}, err
 	}
 	return d, nil
@@ -81,34 +86,9 @@ func (d Distorted) Solution() *similarity.Solution { return d.solution }
 // undistorted Froude model, λ_n = λ_L^(1/6): from V = R^(2/3)·S^(1/2)/n
 // with λ_V = λ_L^(1/2), λ_R = λ_L and λ_S = 1.
 func ManningRatio(lengthRatio float64) (float64, error) {
-	if err := checkRatios("Manning ratio", "length", lengthRatio); err != nil {
+	if err := fail("Manning ratio", similarity.CheckRatios(similarity.Result{Name: "length", Value: lengthRatio})); err != nil {
 		return 0, err
 	}
 	r := math.Pow(lengthRatio, 1.0/6)
-	return r, checkRatios("Manning ratio", "Manning's n", r)
-}
-
-// ratioValues returns the values of the ratios of the given variables.
-func ratioValues(s *similarity.Solution, syms ...string) ([]float64, error) {
-	out := make([]float64, len(syms))
-	for i, sym := range syms {
-		r, err := s.Ratio(sym)
-		if err != nil {
-			return nil, err
-		}
-		out[i] = r.Value
-	}
-	return out, nil
-}
-
-// checkRatios checks name–value pairs of model/prototype ratios for the
-// rule op: each must be positive and finite, or an *Error of class
-// quantity.ErrRange names it.
-func checkRatios(op string, pairs ...any) error {
-	for i := 0; i+1 < len(pairs); i += 2 {
-		if v := pairs[i+1].(float64); !(v > 0) || math.IsInf(v, 0) {
-			return outOfRange(op, pairs[i].(string), fmt.Sprintf("the %s ratio %v is not positive and finite (a model/prototype ratio)", pairs[i], v))
-		}
-	}
-	return nil
+	return r, fail("Manning ratio", similarity.CheckRatios(similarity.Result{Name: "Manning's n", Value: r}))
 }

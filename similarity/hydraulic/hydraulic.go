@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 )
 
 // StructureCaution accompanies every scale-effect check, roughness
@@ -101,10 +102,13 @@ func (c ScaleCheck) String() string {
 // group out of the range of a float64 is a *Error of class quantity.ErrRange. See
 // StructureCaution.
 func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLimits) ([]ScaleCheck, error) {
-	if err := checkInputs("scale-effect check", true,
-		input{"velocity", v, quantity.Velocity}, input{"head", h, quantity.Length}, input{"kinematic viscosity", nu, quantity.KinematicViscosity},
-		input{"density", rho, quantity.Density}, input{"surface tension", sigma, quantity.SurfaceTension}, input{"minimum head", lim.MinHead, quantity.Length},
-	); err != nil {
+	if err := fail("scale-effect check", similarity.CheckInputs(true,
+		similarity.Input{Name: "velocity", Value: v, Dim: quantity.Velocity},
+		similarity.Input{Name: "head", Value: h, Dim: quantity.Length},
+		similarity.Input{Name: "kinematic viscosity", Value: nu, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "density", Value: rho, Dim: quantity.Density},
+		similarity.Input{Name: "surface tension", Value: sigma, Dim: quantity.SurfaceTension},
+		similarity.Input{Name: "minimum head", Value: lim.MinHead, Dim: quantity.Length})); err != nil {
 		return nil, err
 	}
 	for _, l := range []struct {
@@ -112,12 +116,14 @@ func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLi
 		v    float64
 	}{{"minimum Reynolds number", lim.MinReynolds}, {"minimum Weber number", lim.MinWeber}} {
 		if !(l.v >= 0) || math.IsInf(l.v, 0) {
-			return nil, &Error{Class: quantity.ErrInvalid, Op: "scale-effect check", Reason: fmt.Sprintf("%s %v: want finite and not negative", l.name, l.v)}
+			return nil, &Error{Op: "scale-effect check", Fault: similarity.Invalid("", fmt.Sprintf("%s %v: want finite and not negative", l.name, l.v))}
 		}
 	}
 	re := v.Value() * h.Value() / nu.Value()
 	we := rho.Value() * v.Value() * v.Value() * h.Value() / sigma.Value()
-	if err := checkResults("scale-effect check", true, result{"Reynolds number V·h/ν", re}, result{"Weber number ρV²h/σ", we}); err != nil {
+	if err := fail("scale-effect check", similarity.CheckResults(true,
+		similarity.Result{Name: "Reynolds number V·h/ν", Value: re},
+		similarity.Result{Name: "Weber number ρV²h/σ", Value: we})); err != nil {
 		return nil, err
 	}
 	return []ScaleCheck{
@@ -130,12 +136,12 @@ func FreeSurfaceChecks(v, h, nu, rho, sigma quantity.Quantity, lim FreeSurfaceLi
 // CrestRadiusCheck checks a model's round-crest radius against the
 // limits' MinCrestRadius (zero: any positive radius passes).
 func CrestRadiusCheck(radius quantity.Quantity, lim FreeSurfaceLimits) (ScaleCheck, error) {
-	if err := checkInputs("crest radius check", true, input{"crest radius", radius, quantity.Length}); err != nil {
+	if err := fail("crest radius check", similarity.CheckInputs(true, similarity.Input{Name: "crest radius", Value: radius, Dim: quantity.Length})); err != nil {
 		return ScaleCheck{}, err
 	}
 	lo := 0.0
 	if lim.MinCrestRadius != (quantity.Quantity{}) {
-		if err := checkInputs("crest radius check", false, input{"minimum crest radius", lim.MinCrestRadius, quantity.Length}); err != nil {
+		if err := fail("crest radius check", similarity.CheckInputs(false, similarity.Input{Name: "minimum crest radius", Value: lim.MinCrestRadius, Dim: quantity.Length})); err != nil {
 			return ScaleCheck{}, err
 		}
 		lo = lim.MinCrestRadius.Value()
@@ -162,22 +168,27 @@ type ShieldsInput struct {
 // a model grain's Re* is in the viscous range.
 func Shields(in ShieldsInput) (theta, reStar float64, err error) {
 	tau, rhoS, rho, d, nu := in.BedShearStress, in.GrainDensity, in.WaterDensity, in.GrainDiameter, in.KinematicViscosity
-	g, err := gravityOr("Shields parameter", in.Gravity)
-	if err != nil {
-		return 0, 0, err
+	g, bad := similarity.GravityOr(in.Gravity)
+	if bad != nil {
+		return 0, 0, fail("Shields parameter", bad)
 	}
-	if err := checkInputs("Shields parameter", true,
-		input{"bed shear stress", tau, quantity.Pressure}, input{"grain density", rhoS, quantity.Density}, input{"water density", rho, quantity.Density},
-		input{"grain diameter", d, quantity.Length}, input{"kinematic viscosity", nu, quantity.KinematicViscosity}, input{"gravity", g, quantity.Acceleration},
-	); err != nil {
+	if err := fail("Shields parameter", similarity.CheckInputs(true,
+		similarity.Input{Name: "bed shear stress", Value: tau, Dim: quantity.Pressure},
+		similarity.Input{Name: "grain density", Value: rhoS, Dim: quantity.Density},
+		similarity.Input{Name: "water density", Value: rho, Dim: quantity.Density},
+		similarity.Input{Name: "grain diameter", Value: d, Dim: quantity.Length},
+		similarity.Input{Name: "kinematic viscosity", Value: nu, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "gravity", Value: g, Dim: quantity.Acceleration})); err != nil {
 		return 0, 0, err
 	}
 	if !(rhoS.Value() > rho.Value()) {
-		return 0, 0, &Error{Class: quantity.ErrInvalid, Op: "Shields parameter", Reason: "grains no denser than the water do not settle"}
+		return 0, 0, &Error{Op: "Shields parameter", Fault: similarity.Invalid("", "grains no denser than the water do not settle")}
 	}
 	theta = tau.Value() / ((rhoS.Value() - rho.Value()) * g.Value() * d.Value())
 	reStar = math.Sqrt(tau.Value()/rho.Value()) * d.Value() / nu.Value()
-	if err := checkResults("Shields parameter", true, result{"Shields parameter θ", theta}, result{"particle Reynolds number Re*", reStar}); err != nil {
+	if err := fail("Shields parameter", similarity.CheckResults(true,
+		similarity.Result{Name: "Shields parameter θ", Value: theta},
+		similarity.Result{Name: "particle Reynolds number Re*", Value: reStar})); err != nil {
 		return 0, 0, err
 	}
 	return theta, reStar, nil
@@ -215,7 +226,7 @@ func SedimentFor(r SedimentRatios) (SedimentScales, error) {
 		v    float64
 	}{{"Horizontal", lengthH}, {"Vertical", lengthV}, {"RelativeDensity", deltaRatio}, {"Viscosity", nuRatio}} {
 		if !(c.v > 0) || math.IsInf(c.v, 0) {
-			return SedimentScales{}, invalid("sediment scales", c.name, fmt.Sprintf("SedimentRatios.%s = %v is not positive and finite", c.name, c.v))
+			return SedimentScales{}, &Error{Op: "sediment scales", Fault: similarity.Invalid(c.name, fmt.Sprintf("SedimentRatios.%s = %v is not positive and finite", c.name, c.v))}
 		}
 	}
 	var s SedimentScales
@@ -223,7 +234,10 @@ func SedimentFor(r SedimentRatios) (SedimentScales, error) {
 	s.Grain = s.Shear / deltaRatio
 	s.ReStar = math.Sqrt(s.Shear) * s.Grain / nuRatio
 	s.Exaggerated = lengthH != lengthV
-	if err := checkResults("sediment scales", true, result{"bed shear ratio", s.Shear}, result{"grain ratio", s.Grain}, result{"particle Reynolds ratio", s.ReStar}); err != nil {
+	if err := fail("sediment scales", similarity.CheckResults(true,
+		similarity.Result{Name: "bed shear ratio", Value: s.Shear},
+		similarity.Result{Name: "grain ratio", Value: s.Grain},
+		similarity.Result{Name: "particle Reynolds ratio", Value: s.ReStar})); err != nil {
 		return SedimentScales{}, err
 	}
 	return s, nil
@@ -245,7 +259,7 @@ const ViscousParticleReynolds = 5.0
 // carries the warning that the grain is in the viscous range.
 func ParticleReynoldsCheck(reStar float64) (ScaleCheck, error) {
 	if !(reStar > 0) || math.IsInf(reStar, 0) {
-		return ScaleCheck{}, &Error{Class: quantity.ErrInvalid, Op: "particle Reynolds check", Reason: fmt.Sprintf("Re* = %v: want positive and finite", reStar)}
+		return ScaleCheck{}, &Error{Op: "particle Reynolds check", Fault: similarity.Invalid("", fmt.Sprintf("Re* = %v: want positive and finite", reStar))}
 	}
 	c := ScaleCheck{Name: "model grain Re* = u*·d/ν", Value: reStar, Limit: ViscousParticleReynolds, Unit: "1",
 		Pass:  reStar >= ViscousParticleReynolds,
@@ -271,7 +285,7 @@ const SmoothestModelManning = 0.009
 // warning that its friction will be too large.
 func ModelManningCheck(protoN, nRatio float64) (ScaleCheck, error) {
 	m := func(r string) error {
-		return &Error{Class: quantity.ErrInvalid, Op: "model roughness check", Reason: r}
+		return &Error{Op: "model roughness check", Fault: similarity.Invalid("", r)}
 	}
 	if !(protoN > 0) || math.IsInf(protoN, 0) {
 		return ScaleCheck{}, m(fmt.Sprintf("prototype Manning n %v: want positive and finite", protoN))
@@ -280,7 +294,7 @@ func ModelManningCheck(protoN, nRatio float64) (ScaleCheck, error) {
 		return ScaleCheck{}, m(fmt.Sprintf("Manning ratio %v: want positive and finite", nRatio))
 	}
 	n := protoN * nRatio
-	if err := checkResults("model roughness check", true, result{"model Manning n", n}); err != nil {
+	if err := fail("model roughness check", similarity.CheckResults(true, similarity.Result{Name: "model Manning n", Value: n})); err != nil {
 		return ScaleCheck{}, err
 	}
 	c := ScaleCheck{Name: "model Manning n", Value: n, Limit: SmoothestModelManning, Unit: "s·m^(−1/3)",

@@ -155,26 +155,26 @@ const BandNote = "the band is the fit's uncertainty alone (the confidence interv
 func FitRating(in RatingInput) (*Rating, error) {
 	const op = "weir rating"
 	if err := in.Head.Check(quantity.Length); err != nil {
-		return nil, wrap(op, "head", "the heads", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("head", "the heads", err)}
 	}
 	if err := in.Discharge.Check(quantity.VolumeFlowRate); err != nil {
-		return nil, wrap(op, "discharge", "the discharges", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("discharge", "the discharges", err)}
 	}
 	n := in.Head.Len()
 	if in.Discharge.Len() != n {
-		return nil, invalid(op, "discharge", fmt.Sprintf("%d heads and %d discharges: want one of each per point", n, in.Discharge.Len()))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("discharge", fmt.Sprintf("%d heads and %d discharges: want one of each per point", n, in.Discharge.Len()))}
 	}
 	if n > fit.MaxRows {
-		return nil, invalid(op, "head", fmt.Sprintf("%d points, more than %d", n, fit.MaxRows))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("head", fmt.Sprintf("%d points, more than %d", n, fit.MaxRows))}
 	}
-	g, err := gravityOr(op, in.Gravity)
-	if err != nil {
-		return nil, asError(op, "gravity", err)
+	g, bad := similarity.GravityOr(in.Gravity)
+	if bad != nil {
+		return nil, asError(op, "gravity", fail(op, bad))
 	}
-	if err := checkInputs(op, true, input{"crest length", in.CrestLength, quantity.Length}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "crest length", Value: in.CrestLength, Dim: quantity.Length})); err != nil {
 		return nil, asError(op, "crest length", err)
 	}
-	if err := checkRatios(op, "length", in.LengthRatio); err != nil {
+	if err := fail(op, similarity.CheckRatios(similarity.Result{Name: "length", Value: in.LengthRatio})); err != nil {
 		return nil, err
 	}
 	level := in.Level
@@ -182,7 +182,7 @@ func FitRating(in RatingInput) (*Rating, error) {
 		level = 0.95
 	}
 	if !(level > 0 && level < 1) {
-		return nil, invalid(op, "level", fmt.Sprintf("confidence level %v: want 0 < level < 1", in.Level))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("level", fmt.Sprintf("confidence level %v: want 0 < level < 1", in.Level))}
 	}
 	lim := in.Limits
 	if lim == (FreeSurfaceLimits{}) {
@@ -190,17 +190,19 @@ func FitRating(in RatingInput) (*Rating, error) {
 	}
 	fr, err := similarity.Froude(similarity.Scales{Length: in.LengthRatio, Density: 1})
 	if err != nil {
-		return nil, wrap(op, "length ratio", "the Froude scales", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("length ratio", "the Froude scales", err)}
 	}
 	lq, err := fr.DerivedRatio(quantity.VolumeFlowRate)
 	if err != nil {
-		return nil, wrap(op, "length ratio", "the discharge ratio", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("length ratio", "the discharge ratio", err)}
 	}
 	ll, err := fr.DerivedRatio(quantity.Length)
 	if err != nil {
-		return nil, wrap(op, "length ratio", "the length ratio", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("length ratio", "the length ratio", err)}
 	}
-	if err := checkRatios(op, "discharge", lq.Value, "length", ll.Value); err != nil {
+	if err := fail(op, similarity.CheckRatios(
+		similarity.Result{Name: "discharge", Value: lq.Value},
+		similarity.Result{Name: "length", Value: ll.Value})); err != nil {
 		return nil, err
 	}
 	b, gv := in.CrestLength.Value(), g.Value()
@@ -212,24 +214,24 @@ func FitRating(in RatingInput) (*Rating, error) {
 	for i := range n {
 		h, q := in.Head.At(i).Value(), in.Discharge.At(i).Value()
 		if !(h > 0) || math.IsInf(h, 0) {
-			return nil, invalid(op, "head", fmt.Sprintf("point %d: head %v: want positive and finite", i, h))
+			return nil, &Error{Op: op, Fault: similarity.Invalid("head", fmt.Sprintf("point %d: head %v: want positive and finite", i, h))}
 		}
 		if !(q > 0) || math.IsInf(q, 0) {
-			return nil, invalid(op, "discharge", fmt.Sprintf("point %d: discharge %v: want positive and finite", i, q))
+			return nil, &Error{Op: op, Fault: similarity.Invalid("discharge", fmt.Sprintf("point %d: discharge %v: want positive and finite", i, q))}
 		}
 		p := RatingPoint{Head: h, Discharge: q}
 		p.WeirCoefficient = q / (weir * h * math.Sqrt(h))
 		p.Velocity = math.Cbrt(gv * q / b)
-		if err := checkResults(op, true, result{fmt.Sprintf("weir coefficient at point %d", i), p.WeirCoefficient},
-			result{fmt.Sprintf("critical velocity at point %d", i), p.Velocity}); err != nil {
+		if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: fmt.Sprintf("weir coefficient at point %d", i), Value: p.WeirCoefficient},
+			similarity.Result{Name: fmt.Sprintf("critical velocity at point %d", i), Value: p.Velocity})); err != nil {
 			return nil, err
 		}
 		cs, err := FreeSurfaceChecks(quantity.New(p.Velocity, quantity.Velocity), in.Head.At(i), in.KinematicViscosity, in.Density, in.SurfaceTension, lim)
 		if err != nil {
 			if e, ok := err.(*Error); ok {
-				return nil, &Error{Op: op, Input: e.Input, Class: e.Class, Reason: fmt.Sprintf("point %d: %s", i, e.Reason), Err: e.Err}
+				return nil, &Error{Op: op, Fault: similarity.Fault{Input: e.Input, Reason: fmt.Sprintf("point %d: %s", i, e.Reason), Class: e.Class, Err: e.Err}}
 			}
-			return nil, wrap(op, "", fmt.Sprintf("point %d: the scale-effect checks", i), err)
+			return nil, &Error{Op: op, Fault: similarity.Caused("", fmt.Sprintf("point %d: the scale-effect checks", i), err)}
 		}
 		p.Checks = cs
 		for _, c := range cs {
@@ -247,20 +249,20 @@ func FitRating(in RatingInput) (*Rating, error) {
 	}
 	r.Used = len(used)
 	if r.Used < 3 {
-		return nil, invalid(op, "head", fmt.Sprintf("%d of %d points pass the scale-effect checks: the rating needs at least 3 (%s)", r.Used, n, ExclusionRule))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("head", fmt.Sprintf("%d of %d points pass the scale-effect checks: the rating needs at least 3 (%s)", r.Used, n, ExclusionRule))}
 	}
 	opt := &fit.Options{Level: level}
 	f, err := fit.FitPoly(lnH, lnQ, 1, opt)
 	if err != nil {
-		return nil, wrap(op, "head", "fitting ln Q against ln h", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("head", "fitting ln Q against ln h", err)}
 	}
 	a, se, err := f.Power()
 	if err != nil {
-		return nil, wrap(op, "head", "the rating's coefficients", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("head", "the rating's coefficients", err)}
 	}
 	cd, err := fit.FitPoly(lnH, lnCd, 0, opt)
 	if err != nil {
-		return nil, wrap(op, "head", "fitting the weir coefficient", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("head", "fitting the weir coefficient", err)}
 	}
 	r.fit = f
 	tq := distuv.StudentsT{Mu: 0, Sigma: 1, Nu: float64(f.DoF)}.Quantile(0.5 + level/2)
@@ -276,14 +278,25 @@ func FitRating(in RatingInput) (*Rating, error) {
 		r.HeadMin, r.HeadMax = min(r.HeadMin, r.Points[i].Head), max(r.HeadMax, r.Points[i].Head)
 	}
 	r.ProtoC = r.C * math.Pow(r.LengthRatio, r.N) / r.DischargeRatio
-	if err := checkResults(op, true, result{"coefficient C", r.C}, result{"lower bound of C", r.CInterval[0]}, result{"upper bound of C", r.CInterval[1]},
-		result{"weir coefficient C_d", r.WeirCoefficient}, result{"lower bound of C_d", r.WeirCoefficientInterval[0]},
-		result{"upper bound of C_d", r.WeirCoefficientInterval[1]}, result{"prototype coefficient C_p", r.ProtoC},
-		result{"highest head", r.HeadMax}, result{"lowest head", r.HeadMin}); err != nil {
+	if err := fail(op, similarity.CheckResults(true,
+		similarity.Result{Name: "coefficient C", Value: r.C},
+		similarity.Result{Name: "lower bound of C", Value: r.CInterval[0]},
+		similarity.Result{Name: "upper bound of C", Value: r.CInterval[1]},
+		similarity.Result{Name: "weir coefficient C_d", Value: r.WeirCoefficient},
+		similarity.Result{Name: "lower bound of C_d", Value: r.WeirCoefficientInterval[0]},
+		similarity.Result{Name: "upper bound of C_d", Value: r.WeirCoefficientInterval[1]},
+		similarity.Result{Name: "prototype coefficient C_p", Value: r.ProtoC},
+		similarity.Result{Name: "highest head", Value: r.HeadMax},
+		similarity.Result{Name: "lowest head", Value: r.HeadMin})); err != nil {
 		return nil, err
 	}
-	if err := checkResults(op, false, result{"exponent n", r.N}, result{"lower bound of n", r.NInterval[0]}, result{"upper bound of n", r.NInterval[1]},
-		result{"standard error of n", r.NStdErr}, result{"standard error of ln C", r.LnCStdErr}, result{"residual standard deviation", r.S}); err != nil {
+	if err := fail(op, similarity.CheckResults(false,
+		similarity.Result{Name: "exponent n", Value: r.N},
+		similarity.Result{Name: "lower bound of n", Value: r.NInterval[0]},
+		similarity.Result{Name: "upper bound of n", Value: r.NInterval[1]},
+		similarity.Result{Name: "standard error of n", Value: r.NStdErr},
+		similarity.Result{Name: "standard error of ln C", Value: r.LnCStdErr},
+		similarity.Result{Name: "residual standard deviation", Value: r.S})); err != nil {
 		return nil, err
 	}
 	for k, row := range f.Rows {
@@ -339,17 +352,16 @@ func (r *Rating) ProtoHeadRange() (lo, hi float64) {
 }
 
 func (r *Rating) at(op string, h quantity.Quantity, lambdaL, lambdaQ float64, outside bool) (RatingValue, error) {
-	if err := checkInputs(op, true, input{"head", h, quantity.Length}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "head", Value: h, Dim: quantity.Length})); err != nil {
 		return RatingValue{}, asError(op, "head", err)
 	}
 	hm := h.Value() * lambdaL
-	if err := checkResults(op, true, result{"model head", hm}); err != nil {
+	if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: "model head", Value: hm})); err != nil {
 		return RatingValue{}, err
 	}
 	if !outside && (hm < r.HeadMin*(1-1e-12) || hm > r.HeadMax*(1+1e-12)) {
-		return RatingValue{}, &Error{Op: op, Input: "head", Class: quantity.ErrRange,
-			Reason: fmt.Sprintf("head %.4g m is outside the range of validity %.4g … %.4g m: an extrapolation (use Extrapolate to make one deliberately)",
-				h.Value(), r.HeadMin/lambdaL, r.HeadMax/lambdaL)}
+		return RatingValue{}, &Error{Op: op, Fault: similarity.OutOfRange("head", fmt.Sprintf("head %.4g m is outside the range of validity %.4g … %.4g m: an extrapolation (use Extrapolate to make one deliberately)",
+			h.Value(), r.HeadMin/lambdaL, r.HeadMax/lambdaL))}
 	}
 	// A head at an end of the range, up to rounding in h·λ_L, is the end.
 	x := math.Log(hm)
@@ -366,7 +378,7 @@ func (r *Rating) at(op string, h quantity.Quantity, lambdaL, lambdaQ float64, ou
 		pr, err = r.fit.Predict(x)
 	}
 	if err != nil {
-		return RatingValue{}, wrap(op, "head", "the rating at this head", err)
+		return RatingValue{}, &Error{Op: op, Fault: similarity.Caused("head", "the rating at this head", err)}
 	}
 	qv := func(lnq float64) float64 { return math.Exp(lnq) / lambdaQ }
 	v := RatingValue{Head: h, Discharge: quantity.New(qv(pr.Y), quantity.VolumeFlowRate), RelU: pr.SE, Level: pr.Level, Extrapolated: pr.Extrapolated}
@@ -374,11 +386,15 @@ func (r *Rating) at(op string, h quantity.Quantity, lambdaL, lambdaQ float64, ou
 		v.Band[k] = quantity.New(qv(pr.Mean[k]), quantity.VolumeFlowRate)
 		v.New[k] = quantity.New(qv(pr.New[k]), quantity.VolumeFlowRate)
 	}
-	if err := checkResults(op, true, result{"discharge", v.Discharge.Value()}, result{"lower band", v.Band[0].Value()}, result{"upper band", v.Band[1].Value()},
-		result{"lower prediction bound", v.New[0].Value()}, result{"upper prediction bound", v.New[1].Value()}); err != nil {
+	if err := fail(op, similarity.CheckResults(true,
+		similarity.Result{Name: "discharge", Value: v.Discharge.Value()},
+		similarity.Result{Name: "lower band", Value: v.Band[0].Value()},
+		similarity.Result{Name: "upper band", Value: v.Band[1].Value()},
+		similarity.Result{Name: "lower prediction bound", Value: v.New[0].Value()},
+		similarity.Result{Name: "upper prediction bound", Value: v.New[1].Value()})); err != nil {
 		return RatingValue{}, err
 	}
-	if err := checkResults(op, false, result{"relative uncertainty", v.RelU}); err != nil {
+	if err := fail(op, similarity.CheckResults(false, similarity.Result{Name: "relative uncertainty", Value: v.RelU})); err != nil {
 		return RatingValue{}, err
 	}
 	return v, nil
@@ -398,5 +414,5 @@ func asError(op, input string, err error) error {
 	if e, ok := err.(*Error); ok {
 		return e
 	}
-	return wrap(op, input, "the "+input, err)
+	return &Error{Op: op, Fault: similarity.Caused(input, "the "+input, err)}
 }

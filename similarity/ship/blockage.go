@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 )
 
 // TankSection is the rectangular cross-section of a towing tank: its
@@ -70,20 +71,21 @@ type BlockageCorrection struct {
 // corrected speed; HullTest.WithBlockage does so for every run.
 func TankBlockage(tank TankSection, ax, v, g quantity.Quantity) (BlockageCorrection, error) {
 	const method = "tank blockage correction"
-	g, err := gravityOr(method, g)
-	if err != nil {
-		return BlockageCorrection{}, err
+	g, bad := similarity.GravityOr(g)
+	if bad != nil {
+		return BlockageCorrection{}, fail(method, bad)
 	}
-	if err := checkInputs(method, true,
-		input{"tank width", tank.Width, quantity.Length}, input{"tank depth", tank.Depth, quantity.Length},
-		input{"model section", ax, quantity.Area}, input{"speed", v, quantity.Velocity},
-	); err != nil {
+	if err := fail(method, similarity.CheckInputs(true,
+		similarity.Input{Name: "tank width", Value: tank.Width, Dim: quantity.Length},
+		similarity.Input{Name: "tank depth", Value: tank.Depth, Dim: quantity.Length},
+		similarity.Input{Name: "model section", Value: ax, Dim: quantity.Area},
+		similarity.Input{Name: "speed", Value: v, Dim: quantity.Velocity})); err != nil {
 		return BlockageCorrection{}, err
 	}
 	h := tank.Depth.Value()
 	m := ax.Value() / (tank.Width.Value() * h)
 	if !(m <= 0.1) {
-		return BlockageCorrection{}, &Error{Class: quantity.ErrInvalid, Op: method, Reason: fmt.Sprintf("blockage m = A_x/(b·h) = %.4g: above 0.1 a mean-flow correction is not meaningful; use a larger tank or a smaller model", m)}
+		return BlockageCorrection{}, &Error{Op: method, Fault: similarity.Invalid("", fmt.Sprintf("blockage m = A_x/(b·h) = %.4g: above 0.1 a mean-flow correction is not meaningful; use a larger tank or a smaller model", m))}
 	}
 	// √g·√h rather than √(g·h), and Fh before its square, so that
 	// extreme finite inputs do not overflow an intermediate product.
@@ -95,12 +97,12 @@ func TankBlockage(tank TankSection, ax, v, g quantity.Quantity) (BlockageCorrect
 	fhc := chokingFroude(m)
 	r.ChokingSpeed = quantity.New(fhc*celerity, quantity.Velocity)
 	if !(r.DepthFroude < fhc) {
-		return r, &Error{Class: quantity.ErrInvalid, Op: method, Reason: fmt.Sprintf("depth Froude number %.4g at or above the choking value %.4g (m = %.4g): no steady mean flow past the model", r.DepthFroude, fhc, m)}
+		return r, &Error{Op: method, Fault: similarity.Invalid("", fmt.Sprintf("depth Froude number %.4g at or above the choking value %.4g (m = %.4g): no steady mean flow past the model", r.DepthFroude, fhc, m))}
 	}
 	r.LinearCorrection = m / (1 - m - fh2)
 	s, err := meanFlowRoot(m, fh2)
 	if err != nil {
-		return r, wrap(method, "blockage m", "no mean-flow speed", err)
+		return r, &Error{Op: method, Fault: similarity.Caused("blockage m", "no mean-flow speed", err)}
 	}
 	r.SpeedCorrection = s - 1
 	r.Speed = quantity.New(v.Value()*s, quantity.Velocity)
@@ -109,8 +111,8 @@ func TankBlockage(tank TankSection, ax, v, g quantity.Quantity) (BlockageCorrect
 	r.CTFactor = 1 / (s * s)
 	if !allFinite(r.Blockage, r.DepthFroude, r.LinearCorrection, r.SpeedCorrection, r.Speed.Value(), r.SurfaceDrop.Value(),
 		r.CTFactor, r.ChokingSpeed.Value()) || !(celerity > 0) {
-		return BlockageCorrection{}, &Error{Class: quantity.ErrInvalid, Op: method, Reason: fmt.Sprintf("the correction is not finite for tank %v × %v, section %v, speed %v, g = %v (inputs beyond any tank)",
-			tank.Width, tank.Depth, ax, v, g)}
+		return BlockageCorrection{}, &Error{Op: method, Fault: similarity.Invalid("", fmt.Sprintf("the correction is not finite for tank %v × %v, section %v, speed %v, g = %v (inputs beyond any tank)",
+			tank.Width, tank.Depth, ax, v, g))}
 	}
 	return r, nil
 }

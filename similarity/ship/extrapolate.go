@@ -7,6 +7,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/uncertain"
+	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -103,23 +104,27 @@ const HullCaution = "Full-scale resistance and power from a model test are estim
 // ExtrapolateHull carries towed-model resistance to the ship by the
 // ITTC-1957 method (with a form factor if one is given).
 func ExtrapolateHull(t HullTest) (*HullResult, error) {
-	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: "hull extrapolation", Reason: r} }
+	m := func(r string) error {
+		return &Error{Op: "hull extrapolation", Fault: similarity.Invalid("", r)}
+	}
 	if !(t.Scale > 0 && t.Scale < 1) {
 		return nil, m(fmt.Sprintf("scale %v: want model/ship between 0 and 1", t.Scale))
 	}
 	if len(t.Speeds) == 0 || len(t.Speeds) != len(t.Resistances) {
 		return nil, m(fmt.Sprintf("%d speeds and %d resistances", len(t.Speeds), len(t.Resistances)))
 	}
-	if err := checkInputs("hull extrapolation", true,
-		input{"model length", t.ModelLength, quantity.Length}, input{"model wetted area", t.ModelWettedArea, quantity.Area},
-		input{"tank density", t.Tank.Density, quantity.Density}, input{"tank viscosity", t.Tank.KinematicViscosity, quantity.KinematicViscosity},
-		input{"sea density", t.Sea.Density, quantity.Density}, input{"sea viscosity", t.Sea.KinematicViscosity, quantity.KinematicViscosity},
-	); err != nil {
+	if err := fail("hull extrapolation", similarity.CheckInputs(true,
+		similarity.Input{Name: "model length", Value: t.ModelLength, Dim: quantity.Length},
+		similarity.Input{Name: "model wetted area", Value: t.ModelWettedArea, Dim: quantity.Area},
+		similarity.Input{Name: "tank density", Value: t.Tank.Density, Dim: quantity.Density},
+		similarity.Input{Name: "tank viscosity", Value: t.Tank.KinematicViscosity, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "sea density", Value: t.Sea.Density, Dim: quantity.Density},
+		similarity.Input{Name: "sea viscosity", Value: t.Sea.KinematicViscosity, Dim: quantity.KinematicViscosity})); err != nil {
 		return nil, err
 	}
-	g, err := gravityOr("hull extrapolation", t.Gravity)
-	if err != nil {
-		return nil, err
+	g, bad := similarity.GravityOr(t.Gravity)
+	if bad != nil {
+		return nil, fail("hull extrapolation", bad)
 	}
 	k1 := t.FormFactor
 	if k1 == 0 {
@@ -159,7 +164,7 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 				if side.ship {
 					where = "ship"
 				}
-				return nil, wrap("hull extrapolation", fmt.Sprintf("run %d, %s", i, where), fmt.Sprintf("run %d, %s", i, where), side.err)
+				return nil, &Error{Op: "hull extrapolation", Fault: similarity.Caused(fmt.Sprintf("run %d, %s", i, where), fmt.Sprintf("run %d, %s", i, where), side.err)}
 			}
 			return nil, err
 		}

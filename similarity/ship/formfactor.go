@@ -7,7 +7,7 @@ import (
 	"strings"
 
 	"gonum.org/v1/gonum/stat"
-	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 )
 
 // ProhaskaResult is a form factor found by Prohaska's method.
@@ -65,7 +65,9 @@ func Prohaska(froude, ct, cf []float64, maxFroude float64) (ProhaskaResult, erro
 // ProhaskaWith is Prohaska with the Froude-number exponent chosen or
 // fitted and a warning on laminar runs.
 func ProhaskaWith(froude, ct, cf []float64, o ProhaskaOptions) (ProhaskaResult, error) {
-	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: "Prohaska", Reason: r} }
+	m := func(r string) error {
+		return &Error{Op: "Prohaska", Fault: similarity.Invalid("", r)}
+	}
 	if o.MaxFroude == 0 {
 		o.MaxFroude = 0.2
 	}
@@ -198,7 +200,7 @@ type DoubleBodyResult struct {
 // speed), with C_F from line; at least two runs.
 func FormFactorDoubleBody(re, cv []float64, line FrictionLine) (DoubleBodyResult, error) {
 	m := func(r string) error {
-		return &Error{Class: quantity.ErrInvalid, Op: "double-body form factor", Reason: r}
+		return &Error{Op: "double-body form factor", Fault: similarity.Invalid("", r)}
 	}
 	if len(re) != len(cv) || len(re) < 2 {
 		return DoubleBodyResult{}, m(fmt.Sprintf("%d Reynolds numbers and %d coefficients; at least 2 runs", len(re), len(cv)))
@@ -207,7 +209,7 @@ func FormFactorDoubleBody(re, cv []float64, line FrictionLine) (DoubleBodyResult
 	for i := range re {
 		cf, err := line.CF(re[i])
 		if err != nil {
-			return DoubleBodyResult{}, wrap("double-body form factor", "Reynolds number", fmt.Sprintf("run %d", i+1), err)
+			return DoubleBodyResult{}, &Error{Op: "double-body form factor", Fault: similarity.Caused("Reynolds number", fmt.Sprintf("run %d", i+1), err)}
 		}
 		if !(cv[i] > 0) || math.IsInf(cv[i], 0) {
 			return DoubleBodyResult{}, m(fmt.Sprintf("run %d: C_V = %v is not positive and finite", i+1, cv[i]))
@@ -229,19 +231,19 @@ func FormFactorDoubleBody(re, cv []float64, line FrictionLine) (DoubleBodyResult
 // the viscous part at the same Reynolds number.
 func WaveResistance(re, ct []float64, formFactor float64, line FrictionLine) ([]float64, error) {
 	if len(re) != len(ct) {
-		return nil, &Error{Class: quantity.ErrInvalid, Op: "wave resistance", Reason: fmt.Sprintf("%d Reynolds numbers and %d coefficients", len(re), len(ct))}
+		return nil, &Error{Op: "wave resistance", Fault: similarity.Invalid("", fmt.Sprintf("%d Reynolds numbers and %d coefficients", len(re), len(ct)))}
 	}
 	if !(formFactor >= 1 && formFactor <= 2) {
-		return nil, &Error{Class: quantity.ErrInvalid, Op: "wave resistance", Reason: fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", formFactor)}
+		return nil, &Error{Op: "wave resistance", Fault: similarity.Invalid("", fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", formFactor))}
 	}
 	out := make([]float64, len(re))
 	for i := range re {
 		cf, err := line.CF(re[i])
 		if err != nil {
-			return nil, wrap("wave resistance", "Reynolds number", fmt.Sprintf("run %d", i+1), err)
+			return nil, &Error{Op: "wave resistance", Fault: similarity.Caused("Reynolds number", fmt.Sprintf("run %d", i+1), err)}
 		}
 		if math.IsNaN(ct[i]) || math.IsInf(ct[i], 0) {
-			return nil, &Error{Class: quantity.ErrInvalid, Op: "wave resistance", Reason: fmt.Sprintf("run %d: C_T = %v is not finite", i+1, ct[i])}
+			return nil, &Error{Op: "wave resistance", Fault: similarity.Invalid("", fmt.Sprintf("run %d: C_T = %v is not finite", i+1, ct[i]))}
 		}
 		out[i] = ct[i] - formFactor*cf
 	}
@@ -266,7 +268,7 @@ type TemperatureInput struct {
 func TemperatureCorrection(in TemperatureInput) (float64, error) {
 	ct, reTest, reStd, formFactor, line := in.CT, in.TestReynolds, in.StandardReynolds, in.FormFactor, in.Line
 	if !(formFactor >= 1 && formFactor <= 2) || math.IsNaN(ct) || math.IsInf(ct, 0) {
-		return 0, &Error{Class: quantity.ErrInvalid, Op: "temperature correction", Reason: fmt.Sprintf("C_T = %v and 1 + k = %v: want a finite C_T and 1 ≤ 1 + k ≤ 2", ct, formFactor)}
+		return 0, &Error{Op: "temperature correction", Fault: similarity.Invalid("", fmt.Sprintf("C_T = %v and 1 + k = %v: want a finite C_T and 1 ≤ 1 + k ≤ 2", ct, formFactor))}
 	}
 	cft, err := line.CF(reTest)
 	if err != nil {

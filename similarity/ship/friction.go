@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math"
 
-	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 )
 
 // FrictionLine is a flat-plate friction (or model–ship correlation) line:
@@ -50,10 +50,10 @@ const (
 // laminar or transitional and no line applies; above, no ship is.
 func (l FrictionLine) CF(re float64) (float64, error) {
 	if l == LineKatsui && re < 1e6 {
-		return 0, &Error{Class: quantity.ErrInvalid, Op: l.String() + " line", Reason: fmt.Sprintf("Reynolds number %g is below 10⁶, where the line is not used", re)}
+		return 0, &Error{Op: l.String() + " line", Fault: similarity.Invalid("", fmt.Sprintf("Reynolds number %g is below 10⁶, where the line is not used", re))}
 	}
 	if !(re >= minLineRe && re <= maxLineRe) {
-		return 0, &Error{Class: quantity.ErrInvalid, Op: l.String() + " line", Reason: fmt.Sprintf("Reynolds number %g is outside 10⁵ … 10¹⁰ or not finite", re)}
+		return 0, &Error{Op: l.String() + " line", Fault: similarity.Invalid("", fmt.Sprintf("Reynolds number %g is outside 10⁵ … 10¹⁰ or not finite", re))}
 	}
 	lg := math.Log10(re)
 	switch l {
@@ -69,7 +69,7 @@ func (l FrictionLine) CF(re float64) (float64, error) {
 		a := 0.042612*lg + 0.56725
 		return 0.0066577 / math.Pow(lg-4.3762, a), nil
 	}
-	return 0, &Error{Class: quantity.ErrInvalid, Op: "friction line", Reason: fmt.Sprintf("unknown line %d", uint8(l))}
+	return 0, &Error{Op: "friction line", Fault: similarity.Invalid("", fmt.Sprintf("unknown line %d", uint8(l)))}
 }
 
 // slope returns dC_F/dRe of the line at re, where its value is cf (as

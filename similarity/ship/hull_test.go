@@ -6,11 +6,9 @@ import (
 	"strings"
 	"testing"
 
-	"similis.dev/similis/quantity"
-	"similis.dev/similis/similarity/ship"
-
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/similarity/ship"
 )
 
 // TestITTC1957 checks the correlation line: Re = 10⁷ gives 0.003 exactly
@@ -33,7 +31,7 @@ func TestITTC1957(t *testing.T) {
 	if got, _ := ship.ITTC1957(1e7); math.Abs(got-0.003) > 1e-18 {
 		t.Errorf("C_F(1e7) = %v, want 0.003 exactly", got)
 	}
-	if _, err := ship.ITTC1957(1e4); !errors.As(err, new(*ship.Error)) || !errors.Is(err, quantity.ErrInvalid) {
+	if _, err := ship.ITTC1957(1e4); !errors.As(err, new(*ship.Error)) || !errors.Is(err, q.ErrInvalid) {
 		t.Errorf("laminar Re accepted: %v", err)
 	}
 }
@@ -81,7 +79,7 @@ func TestHullAndProhaska(t *testing.T) {
 	if !strings.Contains(r.Caution, "naval architect") {
 		t.Error("hull result lacks its caution")
 	}
-	if _, err := ship.ExtrapolateHull(ship.HullTest{Scale: 2}); !errors.As(err, new(*ship.Error)) || !errors.Is(err, quantity.ErrInvalid) {
+	if _, err := ship.ExtrapolateHull(ship.HullTest{Scale: 2}); !errors.As(err, new(*ship.Error)) || !errors.Is(err, q.ErrInvalid) {
 		t.Errorf("scale 2 accepted: %v", err)
 	}
 }

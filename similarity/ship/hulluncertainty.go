@@ -8,6 +8,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/uncertain"
+	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -187,22 +188,24 @@ func water(w fluids.Water, T uncertain.Measured) (rho, nu uncertain.Measured, er
 // separate source (ProhaskaResult.FormFactorStdErr is its Type A part).
 func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
 	m := func(s string) error {
-		return &Error{Class: quantity.ErrInvalid, Op: "hull extrapolation with uncertainty", Reason: s}
+		return &Error{Op: "hull extrapolation with uncertainty", Fault: similarity.Invalid("", s)}
 	}
 	if !(r.Scale > 0 && r.Scale < 1) {
 		return HullRunResult{}, m(fmt.Sprintf("scale %v: want model/ship between 0 and 1", r.Scale))
 	}
 	const method = "hull extrapolation with uncertainty"
-	if err := checkInputs(method, true,
-		input{"model length", r.ModelLength.Quantity(), quantity.Length}, input{"model wetted area", r.ModelWettedArea.Quantity(), quantity.Area},
-		input{"model speed", r.ModelSpeed.Quantity(), quantity.Velocity}, input{"model resistance", r.ModelResistance.Quantity(), quantity.Force},
-		input{"tank temperature", r.TankTemperature.Quantity(), quantity.Temperature}, input{"sea temperature", r.SeaTemperature.Quantity(), quantity.Temperature},
-	); err != nil {
+	if err := fail(method, similarity.CheckInputs(true,
+		similarity.Input{Name: "model length", Value: r.ModelLength.Quantity(), Dim: quantity.Length},
+		similarity.Input{Name: "model wetted area", Value: r.ModelWettedArea.Quantity(), Dim: quantity.Area},
+		similarity.Input{Name: "model speed", Value: r.ModelSpeed.Quantity(), Dim: quantity.Velocity},
+		similarity.Input{Name: "model resistance", Value: r.ModelResistance.Quantity(), Dim: quantity.Force},
+		similarity.Input{Name: "tank temperature", Value: r.TankTemperature.Quantity(), Dim: quantity.Temperature},
+		similarity.Input{Name: "sea temperature", Value: r.SeaTemperature.Quantity(), Dim: quantity.Temperature})); err != nil {
 		return HullRunResult{}, err
 	}
-	if err := checkInputs(method, false,
-		input{"form factor", r.FormFactor.Quantity(), quantity.Dimensionless}, input{"allowance", r.Allowance.Quantity(), quantity.Dimensionless},
-	); err != nil {
+	if err := fail(method, similarity.CheckInputs(false,
+		similarity.Input{Name: "form factor", Value: r.FormFactor.Quantity(), Dim: quantity.Dimensionless},
+		similarity.Input{Name: "allowance", Value: r.Allowance.Quantity(), Dim: quantity.Dimensionless})); err != nil {
 		return HullRunResult{}, err
 	}
 	if r.FormFactor.Value() == 0 && r.FormFactor.Set() == nil {
@@ -211,16 +214,17 @@ func ExtrapolateHullRun(r HullRun) (HullRunResult, error) {
 	if k := r.FormFactor.Value(); !(k >= 1 && k <= 2) {
 		return HullRunResult{}, m(fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", k))
 	}
-	g, err := gravityOr("hull run", r.Gravity)
-	if err != nil {
-		return HullRunResult{}, err
+	g, bad := similarity.GravityOr(r.Gravity)
+	if bad != nil {
+		return HullRunResult{}, fail("hull run", bad)
 	}
 	var res HullRunResult
+	var err error
 	if res.TankDensity, res.TankViscosity, err = water(r.Tank, r.TankTemperature); err != nil {
-		return HullRunResult{}, wrap(method, "tank temperature", "tank water", err)
+		return HullRunResult{}, &Error{Op: method, Fault: similarity.Caused("tank temperature", "tank water", err)}
 	}
 	if res.SeaDensity, res.SeaViscosity, err = water(r.Sea, r.SeaTemperature); err != nil {
-		return HullRunResult{}, wrap(method, "sea temperature", "sea water", err)
+		return HullRunResult{}, &Error{Op: method, Fault: similarity.Caused("sea temperature", "sea water", err)}
 	}
 	res, err = hullRun(r, g, res)
 	if err != nil {
@@ -240,7 +244,7 @@ func hullRun(r HullRun, g quantity.Quantity, res HullRunResult) (HullRunResult, 
 	if err != nil {
 		var te *uncertain.TermsError
 		if errors.As(err, &te) {
-			return HullRunResult{}, &Error{Class: quantity.ErrInvalid, Op: "hull extrapolation with uncertainty", Reason: fmt.Sprintf("more than %d sources for one run: combine some before the extrapolation", uncertain.MaxTerms)}
+			return HullRunResult{}, &Error{Op: "hull extrapolation with uncertainty", Fault: similarity.Invalid("", fmt.Sprintf("more than %d sources for one run: combine some before the extrapolation", uncertain.MaxTerms))}
 		}
 		var side *hullSide
 		if errors.As(err, &side) {
@@ -251,7 +255,7 @@ func hullRun(r HullRun, g quantity.Quantity, res HullRunResult) (HullRunResult, 
 	res.Froude, res.ModelCT, res.ModelCF, res.Residual = v.froude, v.ctM, v.cfM, v.residual
 	res.ShipSpeed, res.ShipCF, res.ShipCT, res.ShipResistance, res.EffectivePower = v.vs, v.cfS, v.ctS, v.rs, v.pe
 	if !allFinite(res.ShipResistance.Value(), res.EffectivePower.Value(), res.ShipResistance.U().Value(), res.EffectivePower.U().Value()) {
-		return HullRunResult{}, &Error{Class: quantity.ErrInvalid, Op: "hull extrapolation with uncertainty", Reason: "the ship resistance or its uncertainty is not finite"}
+		return HullRunResult{}, &Error{Op: "hull extrapolation with uncertainty", Fault: similarity.Invalid("", "the ship resistance or its uncertainty is not finite")}
 	}
 	res.Warning = hullWarning("", v.reM.Value(), v.ctM.Value(), v.residual.Value(), v.rs.Value())
 	return res, nil

@@ -8,6 +8,7 @@ import (
 	"similis.dev/similis/internal/roots"
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
+	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -94,25 +95,27 @@ type OpenWaterFit struct {
 // (PropellerGeometry.ModelReynolds).
 func PropellerReynolds(chord, speed quantity.Quantity, revsPerSecond float64, diameter quantity.Quantity, x float64, nu quantity.Quantity) (float64, error) {
 	const op = "propeller Reynolds number"
-	if err := checkInputs(op, true, input{"chord", chord, quantity.Length}, input{"diameter", diameter, quantity.Length},
-		input{"kinematic viscosity", nu, quantity.KinematicViscosity}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true,
+		similarity.Input{Name: "chord", Value: chord, Dim: quantity.Length},
+		similarity.Input{Name: "diameter", Value: diameter, Dim: quantity.Length},
+		similarity.Input{Name: "kinematic viscosity", Value: nu, Dim: quantity.KinematicViscosity})); err != nil {
 		return 0, err
 	}
 	if err := speed.CheckNamed("advance speed", quantity.Velocity); err != nil {
 		return 0, err
 	}
 	if !(speed.Value() >= 0) || math.IsInf(speed.Value(), 0) {
-		return 0, invalid(op, "advance speed", fmt.Sprintf("advance speed %v m/s: want a finite value ≥ 0", speed.Value()))
+		return 0, &Error{Op: op, Fault: similarity.Invalid("advance speed", fmt.Sprintf("advance speed %v m/s: want a finite value ≥ 0", speed.Value()))}
 	}
 	if !(revsPerSecond > 0) || math.IsInf(revsPerSecond, 0) {
-		return 0, invalid(op, "n", fmt.Sprintf("n = %v rev/s: want a positive finite rate of revolution", revsPerSecond))
+		return 0, &Error{Op: op, Fault: similarity.Invalid("n", fmt.Sprintf("n = %v rev/s: want a positive finite rate of revolution", revsPerSecond))}
 	}
 	if !(x > 0 && x <= 1) {
-		return 0, invalid(op, "r/R", fmt.Sprintf("radius fraction r/R = %v: want 0 < r/R ≤ 1", x))
+		return 0, &Error{Op: op, Fault: similarity.Invalid("r/R", fmt.Sprintf("radius fraction r/R = %v: want 0 < r/R ≤ 1", x))}
 	}
 	u := x * math.Pi * revsPerSecond * diameter.Value()
 	re := chord.Value() * math.Hypot(speed.Value(), u) / nu.Value()
-	if err := checkResults(op, true, result{"Reynolds number", re}); err != nil {
+	if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: "Reynolds number", Value: re})); err != nil {
 		return 0, err
 	}
 	return re, nil
@@ -132,49 +135,52 @@ const MinOpenWaterRuns = 5
 // stated in Warning.
 func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 	const op = "open-water test"
-	if err := checkInputs(op, true, input{"propeller diameter", t.Diameter, quantity.Length}, input{"chord at 0.7R", t.Chord, quantity.Length},
-		input{"water density", t.Water.Density, quantity.Density}, input{"water viscosity", t.Water.KinematicViscosity, quantity.KinematicViscosity}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true,
+		similarity.Input{Name: "propeller diameter", Value: t.Diameter, Dim: quantity.Length},
+		similarity.Input{Name: "chord at 0.7R", Value: t.Chord, Dim: quantity.Length},
+		similarity.Input{Name: "water density", Value: t.Water.Density, Dim: quantity.Density},
+		similarity.Input{Name: "water viscosity", Value: t.Water.KinematicViscosity, Dim: quantity.KinematicViscosity})); err != nil {
 		return nil, err
 	}
 	if len(t.Runs) < MinOpenWaterRuns || len(t.Runs) > fit.MaxRows {
-		return nil, invalid(op, "runs", fmt.Sprintf("%d runs: want %d … %d", len(t.Runs), MinOpenWaterRuns, fit.MaxRows))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("runs", fmt.Sprintf("%d runs: want %d … %d", len(t.Runs), MinOpenWaterRuns, fit.MaxRows))}
 	}
 	if t.Order < 0 || t.Order > 6 {
-		return nil, invalid(op, "order", fmt.Sprintf("polynomial order %d: want 1 … 6, or 0 to choose it", t.Order))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("order", fmt.Sprintf("polynomial order %d: want 1 … 6, or 0 to choose it", t.Order))}
 	}
 	d, rho, nu := t.Diameter.Value(), t.Water.Density.Value(), t.Water.KinematicViscosity
 	f := &OpenWaterFit{MinReynolds: math.Inf(1)}
 	for i, r := range t.Runs {
 		name := fmt.Sprintf("run %d", i)
-		for _, c := range []input{{name + ": advance speed", r.Speed, quantity.Velocity}, {name + ": thrust", r.Thrust, quantity.Force}, {name + ": torque", r.Torque, quantity.Torque}} {
-			if err := c.q.CheckNamed(c.name, c.d); err != nil {
+		for _, c := range []similarity.Input{{Name: name + ": advance speed", Value: r.Speed, Dim: quantity.Velocity}, {Name: name + ": thrust", Value: r.Thrust, Dim: quantity.Force}, {Name: name + ": torque", Value: r.Torque, Dim: quantity.Torque}} {
+			if err := c.Value.CheckNamed(c.Name, c.Dim); err != nil {
 				return nil, err
 			}
-			if v := c.q.Value(); math.IsNaN(v) || math.IsInf(v, 0) {
-				return nil, invalid(op, c.name, fmt.Sprintf("%s = %v: not a finite number (a missing value?)", c.name, v))
+			if v := c.Value.Value(); math.IsNaN(v) || math.IsInf(v, 0) {
+				return nil, &Error{Op: op, Fault: similarity.Invalid(c.Name, fmt.Sprintf("%s = %v: not a finite number (a missing value?)", c.Name, v))}
 			}
 		}
 		va, n, th, q := r.Speed.Value(), r.RevsPerSecond, r.Thrust.Value(), r.Torque.Value()
 		if !(n > 0) || math.IsInf(n, 0) {
-			return nil, invalid(op, name+": n", fmt.Sprintf("%s: n = %v rev/s: want a positive finite rate of revolution", name, n))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(name+": n", fmt.Sprintf("%s: n = %v rev/s: want a positive finite rate of revolution", name, n))}
 		}
 		if !(va >= 0) {
-			return nil, invalid(op, name+": advance speed", fmt.Sprintf("%s: V_A = %v m/s: want ≥ 0 (a propeller going astern is not an open-water curve)", name, va))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(name+": advance speed", fmt.Sprintf("%s: V_A = %v m/s: want ≥ 0 (a propeller going astern is not an open-water curve)", name, va))}
 		}
 		if !(q > 0) {
-			return nil, invalid(op, name+": torque", fmt.Sprintf("%s: Q = %v N·m: want a positive torque (at or beyond zero torque the propeller is windmilling)", name, q))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(name+": torque", fmt.Sprintf("%s: Q = %v N·m: want a positive torque (at or beyond zero torque the propeller is windmilling)", name, q))}
 		}
 		re, err := PropellerReynolds(t.Chord, r.Speed, n, t.Diameter, 0.7, nu)
 		if err != nil {
-			return nil, wrap(op, name, name, err)
+			return nil, &Error{Op: op, Fault: similarity.Caused(name, name, err)}
 		}
 		p := OpenWaterReduced{J: va / (n * d), KT: th / (rho * n * n * d * d * d * d), KQ: q / (rho * n * n * d * d * d * d * d), Reynolds: re}
 		p.Eta0 = p.J * p.KT / (2 * math.Pi * p.KQ)
 		if !allFinite(p.J, p.KT, p.KQ, p.Eta0) || !(p.KQ > 0) {
-			return nil, outOfRange(op, name, fmt.Sprintf("%s: the coefficients J = %v, K_T = %v, K_Q = %v are out of the range of a float64", name, p.J, p.KT, p.KQ))
+			return nil, &Error{Op: op, Fault: similarity.OutOfRange(name, fmt.Sprintf("%s: the coefficients J = %v, K_T = %v, K_Q = %v are out of the range of a float64", name, p.J, p.KT, p.KQ))}
 		}
 		if !(p.J <= 2) || !(math.Abs(p.KT) < 2) || !(p.KQ < 1) {
-			return nil, invalid(op, name, fmt.Sprintf("%s: J = %.4g, K_T = %.4g, K_Q = %.4g: want J ≤ 2, |K_T| < 2, K_Q < 1 (a unit slip: n in rev/s, D in m?)", name, p.J, p.KT, p.KQ))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(name, fmt.Sprintf("%s: J = %.4g, K_T = %.4g, K_Q = %.4g: want J ≤ 2, |K_T| < 2, K_Q < 1 (a unit slip: n in rev/s, D in m?)", name, p.J, p.KT, p.KQ))}
 		}
 		f.MinReynolds, f.MaxReynolds = min(f.MinReynolds, re), max(f.MaxReynolds, re)
 		f.Points = append(f.Points, p)
@@ -194,7 +200,7 @@ func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 	}
 	f.JMin, f.JMax = js[0], js[len(js)-1]
 	if !(f.JMax-f.JMin > 0.05) {
-		return nil, invalid(op, "runs", fmt.Sprintf("the runs span J = %.4g … %.4g: too narrow a range to fair a curve", f.JMin, f.JMax))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("runs", fmt.Sprintf("the runs span J = %.4g … %.4g: too narrow a range to fair a curve", f.JMin, f.JMax))}
 	}
 	opt := &fit.Options{Level: t.Level}
 	var err error
@@ -209,11 +215,11 @@ func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 			*c.dst, err = fit.SelectPoly(js, c.y, 4, t.Criterion, opt)
 		}
 		if err != nil {
-			return nil, wrap(op, c.name, "fairing "+c.name+" against J", err)
+			return nil, &Error{Op: op, Fault: similarity.Caused(c.name, "fairing "+c.name+" against J", err)}
 		}
 	}
 	if inc, err := f.KT.Monotone(f.JMin, f.JMax); err != nil || inc {
-		return nil, invalid(op, "K_T", fmt.Sprintf("the faired K_T (order %d) is not decreasing over J = %.4g … %.4g: thrust identity needs one J for each K_T (choose another order, or check the runs)", f.KT.Order, f.JMin, f.JMax))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("K_T", fmt.Sprintf("the faired K_T (order %d) is not decreasing over J = %.4g … %.4g: thrust identity needs one J for each K_T (choose another order, or check the runs)", f.KT.Order, f.JMin, f.JMax))}
 	}
 	var warn []string
 	if f.MinReynolds < UsualOpenWaterReynolds {
@@ -233,7 +239,7 @@ func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 // range (an *Error of class quantity.ErrRange otherwise).
 func (f *OpenWaterFit) At(j float64) (OpenWaterPoint, error) {
 	if !(j >= f.JMin && j <= f.JMax) {
-		return OpenWaterPoint{}, outOfRange("open-water curve", "J", fmt.Sprintf("J = %v is outside the measured J = %.4g … %.4g: the faired curve is not extrapolated", j, f.JMin, f.JMax))
+		return OpenWaterPoint{}, &Error{Op: "open-water curve", Fault: similarity.OutOfRange("J", fmt.Sprintf("J = %v is outside the measured J = %.4g … %.4g: the faired curve is not extrapolated", j, f.JMin, f.JMax))}
 	}
 	return OpenWaterPoint{J: j, KT: f.KT.Eval(j), KQ: f.KQ.Eval(j)}, nil
 }
@@ -246,7 +252,7 @@ func (f *OpenWaterFit) Eta0(j float64) (float64, error) {
 		return 0, err
 	}
 	if !(p.KQ > 0) {
-		return 0, outOfRange("open-water curve", "K_Q", fmt.Sprintf("the faired K_Q at J = %.4g is %v: η₀ is not defined", j, p.KQ))
+		return 0, &Error{Op: "open-water curve", Fault: similarity.OutOfRange("K_Q", fmt.Sprintf("the faired K_Q at J = %.4g is %v: η₀ is not defined", j, p.KQ))}
 	}
 	return j * p.KT / (2 * math.Pi * p.KQ), nil
 }
@@ -260,11 +266,11 @@ func (f *OpenWaterFit) JForKT(kt float64) (float64, error) {
 	g := func(j float64) float64 { return f.KT.Eval(j) - kt }
 	hi, lo := f.KT.Eval(f.JMin), f.KT.Eval(f.JMax)
 	if !(kt <= hi && kt >= lo) {
-		return 0, outOfRange(op, "K_T", fmt.Sprintf("K_T = %.5g is outside the faired open-water K_T = %.5g … %.5g (J = %.4g … %.4g): the curve is not extrapolated", kt, lo, hi, f.JMin, f.JMax))
+		return 0, &Error{Op: op, Fault: similarity.OutOfRange("K_T", fmt.Sprintf("K_T = %.5g is outside the faired open-water K_T = %.5g … %.5g (J = %.4g … %.4g): the curve is not extrapolated", kt, lo, hi, f.JMin, f.JMax))}
 	}
 	j, err := roots.Bisect(g, f.JMin, f.JMax)
 	if err != nil {
-		return 0, wrap(op, "K_T", "no J for this K_T on the faired curve", err)
+		return 0, &Error{Op: op, Fault: similarity.Caused("K_T", "no J for this K_T on the faired curve", err)}
 	}
 	return j, nil
 }
@@ -273,7 +279,7 @@ func (f *OpenWaterFit) JForKT(kt float64) (float64, error) {
 // range (2 ≤ n ≤ 1000), for a printed table or for PoweringInput.OpenWater.
 func (f *OpenWaterFit) Table(n int) ([]OpenWaterPoint, error) {
 	if n < 2 || n > 1000 {
-		return nil, invalid("open-water curve", "points", fmt.Sprintf("%d points: want 2 … 1000", n))
+		return nil, &Error{Op: "open-water curve", Fault: similarity.Invalid("points", fmt.Sprintf("%d points: want 2 … 1000", n))}
 	}
 	out := make([]OpenWaterPoint, n)
 	for i := range n {

@@ -9,6 +9,7 @@ import (
 
 	"similis.dev/similis/internal/roots"
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
 	"similis.dev/similis/units"
 )
@@ -187,17 +188,24 @@ const PoweringCaution = "Delivered power and propeller revolutions predicted fro
 // *Error naming it (Input). A negative ΔC_F (a short hull or a low
 // speed) or C_R is not refused but stated in Warning.
 func ITTC1978(in PoweringInput) (PoweringResult, error) {
-	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: "ITTC-1978 prediction", Reason: r} }
+	m := func(r string) error {
+		return &Error{Op: "ITTC-1978 prediction", Fault: similarity.Invalid("", r)}
+	}
 	if !(in.Scale > 0 && in.Scale < 1) {
 		return PoweringResult{}, m(fmt.Sprintf("scale %v: want model/ship between 0 and 1", in.Scale))
 	}
-	if err := checkInputs("ITTC-1978 prediction", true,
-		input{"model length", in.ModelLength, quantity.Length}, input{"model wetted area", in.ModelWettedArea, quantity.Area},
-		input{"model speed", in.ModelSpeed, quantity.Velocity}, input{"model resistance", in.ModelResistance, quantity.Force},
-		input{"tank density", in.Tank.Density, quantity.Density}, input{"tank viscosity", in.Tank.KinematicViscosity, quantity.KinematicViscosity},
-		input{"sea density", in.Sea.Density, quantity.Density}, input{"sea viscosity", in.Sea.KinematicViscosity, quantity.KinematicViscosity},
-		input{"propeller diameter", in.Propeller.Diameter, quantity.Length}, input{"propeller chord", in.Propeller.Chord, quantity.Length},
-	); err != nil {
+	if err := fail("ITTC-1978 prediction", similarity.CheckInputs(true,
+		similarity.Input{Name: "model length", Value: in.ModelLength, Dim: quantity.Length},
+		similarity.Input{Name: "model wetted area", Value: in.ModelWettedArea, Dim: quantity.Area},
+		similarity.Input{Name: "model speed", Value: in.ModelSpeed, Dim: quantity.Velocity},
+		similarity.Input{Name: "model resistance", Value: in.ModelResistance, Dim: quantity.Force},
+		similarity.Input{Name: "tank density", Value: in.Tank.Density, Dim: quantity.Density},
+		similarity.Input{Name: "tank viscosity", Value: in.Tank.KinematicViscosity, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "sea density", Value: in.Sea.Density, Dim: quantity.Density},
+		similarity.Input{Name: "sea viscosity", Value: in.Sea.KinematicViscosity, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "propeller diameter", Value: in.Propeller.Diameter, Dim: quantity.Length},
+		similarity.Input{Name: "propeller chord", Value: in.Propeller.Chord, Dim: quantity.Length},
+	)); err != nil {
 		return PoweringResult{}, err
 	}
 	const method = "ITTC-1978 prediction"
@@ -212,9 +220,9 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 		{&rhoA, "air density", in.AirDensity, quantity.New(1.225, quantity.Density)},
 		{&g, "gravity", in.Gravity, units.StandardGravity()},
 	} {
-		v, err := orDefault(method, d.name, d.given, d.def)
-		if err != nil {
-			return PoweringResult{}, err
+		v, bad := similarity.OrDefault(d.name, d.given, d.def)
+		if bad != nil {
+			return PoweringResult{}, fail(method, bad)
 		}
 		*d.dst = v.Value()
 	}
@@ -230,7 +238,7 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 		cda = 0.8
 	}
 	pe := func(field string, v float64, reason string) error {
-		return &Error{Op: "ITTC-1978 prediction", Input: field, Class: quantity.ErrInvalid, Reason: fmt.Sprintf("%s = %v: %s", field, v, reason)}
+		return &Error{Op: "ITTC-1978 prediction", Fault: similarity.Invalid(field, fmt.Sprintf("%s = %v: %s", field, v, reason))}
 	}
 	if !(cda > 0 && cda <= 2) {
 		return PoweringResult{}, pe("air drag coefficient C_DA", cda, "want a finite value in 0 … 2")
@@ -343,7 +351,7 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 		return PoweringResult{}, m(fmt.Sprintf("the load K_T/J² = %.4f meets the open-water curve outside its measured J = %g … %g", r.Load, lo, hi))
 	}
 	if r.J, err = roots.Bisect(f, lo, hi); err != nil {
-		return PoweringResult{}, wrap("ITTC-1978 prediction", "open-water curve", "no operating point on the open-water curve", err)
+		return PoweringResult{}, &Error{Op: "ITTC-1978 prediction", Fault: similarity.Caused("open-water curve", "no operating point on the open-water curve", err)}
 	}
 	r.KT, r.KQ = kt(r.J), kq(r.J)
 	r.Eta0 = r.J * r.KT / (2 * math.Pi * r.KQ)
@@ -416,7 +424,7 @@ func interp(ow []OpenWaterPoint, j float64, y func(OpenWaterPoint) float64) floa
 // interpolated linearly.
 func openWaterCurve(in PoweringInput) (kt, kq func(float64) float64, lo, hi float64, err error) {
 	m := func(r string) error {
-		return &Error{Class: quantity.ErrInvalid, Op: "ITTC-1978 prediction", Input: "open-water curve", Reason: r}
+		return &Error{Op: "ITTC-1978 prediction", Fault: similarity.Invalid("open-water curve", r)}
 	}
 	if f := in.Faired; f != nil {
 		if len(in.OpenWater) > 0 {
@@ -434,12 +442,11 @@ func openWaterCurve(in PoweringInput) (kt, kq func(float64) float64, lo, hi floa
 			v    float64
 		}{{"J", p.J}, {"K_T", p.KT}, {"K_Q", p.KQ}} {
 			if math.IsNaN(c.v) || math.IsInf(c.v, 0) {
-				return nil, nil, 0, 0, &Error{Op: "ITTC-1978 prediction", Input: fmt.Sprintf("open-water point %d: %s", i, c.name), Class: quantity.ErrInvalid, Reason: fmt.Sprintf("open-water point %d: %s = %v: not a finite number (a missing value?)", i, c.name, c.v)}
+				return nil, nil, 0, 0, &Error{Op: "ITTC-1978 prediction", Fault: similarity.Invalid(fmt.Sprintf("open-water point %d: %s", i, c.name), fmt.Sprintf("open-water point %d: %s = %v: not a finite number (a missing value?)", i, c.name, c.v))}
 			}
 		}
 		if !(p.J >= 0 && p.J <= 2) || !(p.KQ > 0 && p.KQ < 1) || !(p.KT > -1 && p.KT < 2) {
-			return nil, nil, 0, 0, &Error{Op: "ITTC-1978 prediction", Input: fmt.Sprintf("open-water point %d: J, K_T, K_Q", i), Class: quantity.ErrInvalid,
-				Reason: fmt.Sprintf("open-water point %d: J = %v, K_T = %v, K_Q = %v: want 0 ≤ J ≤ 2, −1 < K_T < 2, 0 < K_Q < 1", i, p.J, p.KT, p.KQ)}
+			return nil, nil, 0, 0, &Error{Op: "ITTC-1978 prediction", Fault: similarity.Invalid(fmt.Sprintf("open-water point %d: J, K_T, K_Q", i), fmt.Sprintf("open-water point %d: J = %v, K_T = %v, K_Q = %v: want 0 ≤ J ≤ 2, −1 < K_T < 2, 0 < K_Q < 1", i, p.J, p.KT, p.KQ))}
 		}
 	}
 	if len(ow) < 3 || !slices.IsSortedFunc(ow, func(a, b OpenWaterPoint) int { return cmp.Compare(a.J, b.J) }) {

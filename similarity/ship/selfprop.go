@@ -7,6 +7,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
+	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -31,30 +32,32 @@ type ResistanceFit struct {
 // the choice is stated in CT.Notes.
 func FairResistance(test HullTest, order int) (*ResistanceFit, error) {
 	const op = "resistance fairing"
-	if err := checkInputs(op, true, input{"model wetted area", test.ModelWettedArea, quantity.Area},
-		input{"tank density", test.Tank.Density, quantity.Density}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "model wetted area", Value: test.ModelWettedArea, Dim: quantity.Area},
+		similarity.Input{Name: "tank density", Value: test.Tank.Density, Dim: quantity.Density})); err != nil {
 		return nil, err
 	}
 	n := len(test.Speeds)
 	if n != len(test.Resistances) {
-		return nil, invalid(op, "runs", fmt.Sprintf("%d speeds and %d resistances", n, len(test.Resistances)))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("runs", fmt.Sprintf("%d speeds and %d resistances", n, len(test.Resistances)))}
 	}
 	if n < 5 || n > fit.MaxRows {
-		return nil, invalid(op, "runs", fmt.Sprintf("%d runs: want 5 … %d to fair a resistance curve", n, fit.MaxRows))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("runs", fmt.Sprintf("%d runs: want 5 … %d to fair a resistance curve", n, fit.MaxRows))}
 	}
 	if order < 0 || order > 6 {
-		return nil, invalid(op, "order", fmt.Sprintf("polynomial order %d: want 1 … 6, or 0 to choose it", order))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("order", fmt.Sprintf("polynomial order %d: want 1 … 6, or 0 to choose it", order))}
 	}
 	r := &ResistanceFit{Density: test.Tank.Density.Value(), WettedArea: test.ModelWettedArea.Value()}
 	v, ct := make([]float64, n), make([]float64, n)
 	for i := range n {
 		name := fmt.Sprintf("run %d", i)
-		if err := checkInputs(op, true, input{name + ": speed", test.Speeds[i], quantity.Velocity}, input{name + ": resistance", test.Resistances[i], quantity.Force}); err != nil {
+		if err := fail(op, similarity.CheckInputs(true,
+			similarity.Input{Name: name + ": speed", Value: test.Speeds[i], Dim: quantity.Velocity},
+			similarity.Input{Name: name + ": resistance", Value: test.Resistances[i], Dim: quantity.Force})); err != nil {
 			return nil, err
 		}
 		v[i] = test.Speeds[i].Value()
 		ct[i] = test.Resistances[i].Value() / (0.5 * r.Density * v[i] * v[i] * r.WettedArea)
-		if err := checkResults(op, true, result{name + ": C_TM", ct[i]}); err != nil {
+		if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: name + ": C_TM", Value: ct[i]})); err != nil {
 			return nil, err
 		}
 	}
@@ -65,7 +68,7 @@ func FairResistance(test HullTest, order int) (*ResistanceFit, error) {
 		r.CT, err = fit.SelectPoly(v, ct, 5, fit.AICc, nil)
 	}
 	if err != nil {
-		return nil, wrap(op, "C_TM", "fairing C_TM against the model speed", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("C_TM", "fairing C_TM against the model speed", err)}
 	}
 	r.Warning = joinWarnings(outlierNotes(r.CT, "V_M", " m/s", "C_TM"))
 	return r, nil
@@ -81,7 +84,7 @@ func (r *ResistanceFit) At(v quantity.Quantity) (quantity.Quantity, fit.Predicti
 	}
 	p, err := r.CT.Predict(v.Value())
 	if err != nil {
-		return quantity.Quantity{}, fit.Prediction{}, wrap(op, "model speed", fmt.Sprintf("model speed %.4g m/s", v.Value()), err)
+		return quantity.Quantity{}, fit.Prediction{}, &Error{Op: op, Fault: similarity.Caused("model speed", fmt.Sprintf("model speed %.4g m/s", v.Value()), err)}
 	}
 	x := v.Value()
 	return quantity.New(p.Y*0.5*r.Density*x*x*r.WettedArea, quantity.Force), p, nil
@@ -132,36 +135,39 @@ type SkinFriction struct {
 func SkinFrictionCorrection(in PoweringInput) (SkinFriction, error) {
 	const op = "skin-friction correction"
 	if !(in.Scale > 0 && in.Scale < 1) {
-		return SkinFriction{}, invalid(op, "scale", fmt.Sprintf("scale %v: want model/ship between 0 and 1", in.Scale))
+		return SkinFriction{}, &Error{Op: op, Fault: similarity.Invalid("scale", fmt.Sprintf("scale %v: want model/ship between 0 and 1", in.Scale))}
 	}
-	if err := checkInputs(op, true,
-		input{"model length", in.ModelLength, quantity.Length}, input{"model wetted area", in.ModelWettedArea, quantity.Area},
-		input{"model speed", in.ModelSpeed, quantity.Velocity},
-		input{"tank density", in.Tank.Density, quantity.Density}, input{"tank viscosity", in.Tank.KinematicViscosity, quantity.KinematicViscosity},
-		input{"sea viscosity", in.Sea.KinematicViscosity, quantity.KinematicViscosity}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true,
+		similarity.Input{Name: "model length", Value: in.ModelLength, Dim: quantity.Length},
+		similarity.Input{Name: "model wetted area", Value: in.ModelWettedArea, Dim: quantity.Area},
+		similarity.Input{Name: "model speed", Value: in.ModelSpeed, Dim: quantity.Velocity},
+		similarity.Input{Name: "tank density", Value: in.Tank.Density, Dim: quantity.Density},
+		similarity.Input{Name: "tank viscosity", Value: in.Tank.KinematicViscosity, Dim: quantity.KinematicViscosity},
+		similarity.Input{Name: "sea viscosity", Value: in.Sea.KinematicViscosity, Dim: quantity.KinematicViscosity})); err != nil {
 		return SkinFriction{}, err
 	}
 	k1 := in.FormFactor
 	if !(k1 >= 1 && k1 <= 2) {
-		return SkinFriction{}, invalid(op, "form factor", fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", k1))
+		return SkinFriction{}, &Error{Op: op, Fault: similarity.Invalid("form factor", fmt.Sprintf("form factor 1 + k = %v is outside 1 … 2", k1))}
 	}
 	if !(math.Abs(in.CorrelationAllowance) <= 0.005) || (in.ZeroCorrelationAllowance && in.CorrelationAllowance != 0) {
-		return SkinFriction{}, invalid(op, "correlation allowance C_A", fmt.Sprintf("C_A = %v: want a finite value within ±0.005, and zero with ZeroCorrelationAllowance", in.CorrelationAllowance))
+		return SkinFriction{}, &Error{Op: op, Fault: similarity.Invalid("correlation allowance C_A", fmt.Sprintf("C_A = %v: want a finite value within ±0.005, and zero with ZeroCorrelationAllowance", in.CorrelationAllowance))}
 	}
-	ksq, err := orDefault(op, "hull roughness", in.HullRoughness, quantity.New(150e-6, quantity.Length))
-	if err != nil {
-		return SkinFriction{}, err
+	ksq, bad := similarity.OrDefault("hull roughness", in.HullRoughness, quantity.New(150e-6, quantity.Length))
+	if bad != nil {
+		return SkinFriction{}, fail(op, bad)
 	}
 	lm, sm, vm := in.ModelLength.Value(), in.ModelWettedArea.Value(), in.ModelSpeed.Value()
 	ls, vs := lm/in.Scale, vm/math.Sqrt(in.Scale)
 	var s SkinFriction
+	var err error
 	s.ModelReynolds = vm * lm / in.Tank.KinematicViscosity.Value()
 	s.ShipReynolds = vs * ls / in.Sea.KinematicViscosity.Value()
 	if s.ModelCF, err = LineITTC1957.CF(s.ModelReynolds); err != nil {
-		return SkinFriction{}, wrap(op, "model Reynolds number", "the model's friction coefficient", err)
+		return SkinFriction{}, &Error{Op: op, Fault: similarity.Caused("model Reynolds number", "the model's friction coefficient", err)}
 	}
 	if s.ShipCF, err = LineITTC1957.CF(s.ShipReynolds); err != nil {
-		return SkinFriction{}, wrap(op, "ship Reynolds number", "the ship's friction coefficient", err)
+		return SkinFriction{}, &Error{Op: op, Fault: similarity.Caused("ship Reynolds number", "the ship's friction coefficient", err)}
 	}
 	s.RoughnessAllowance = 0.044*(math.Cbrt(ksq.Value()/ls)-10*math.Pow(s.ShipReynolds, -1.0/3)) + 0.000125
 	switch {
@@ -172,7 +178,7 @@ func SkinFrictionCorrection(in PoweringInput) (SkinFriction, error) {
 		s.CorrelationAllowance = in.CorrelationAllowance
 	}
 	fd := 0.5 * in.Tank.Density.Value() * vm * vm * sm * (k1*(s.ModelCF-s.ShipCF) - s.RoughnessAllowance - s.CorrelationAllowance)
-	if err := checkResults(op, false, result{"skin-friction correction force", fd}); err != nil {
+	if err := fail(op, similarity.CheckResults(false, similarity.Result{Name: "skin-friction correction force", Value: fd})); err != nil {
 		return SkinFriction{}, err
 	}
 	s.Force = quantity.New(fd, quantity.Force)
@@ -246,65 +252,70 @@ type SelfPropulsionPoint struct {
 // 0.5 < η_R < 1.5 are refused with an *Error naming the run.
 func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) {
 	const op = "self-propulsion analysis"
-	if err := checkInputs(op, true, input{"propeller diameter", t.Diameter, quantity.Length}, input{"water density", t.Water.Density, quantity.Density}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true,
+		similarity.Input{Name: "propeller diameter", Value: t.Diameter, Dim: quantity.Length},
+		similarity.Input{Name: "water density", Value: t.Water.Density, Dim: quantity.Density})); err != nil {
 		return nil, err
 	}
 	if t.OpenWater == nil || t.OpenWater.KT == nil || t.OpenWater.KQ == nil {
-		return nil, invalid(op, "open-water curve", "the analysis needs the faired open-water curve (ReduceOpenWater)")
+		return nil, &Error{Op: op, Fault: similarity.Invalid("open-water curve", "the analysis needs the faired open-water curve (ReduceOpenWater)")}
 	}
 	np := t.Propellers
 	if np == 0 {
 		np = 1
 	}
 	if np != 1 && np != 2 {
-		return nil, invalid(op, "propellers", fmt.Sprintf("%d propellers: want 1 or 2", np))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("propellers", fmt.Sprintf("%d propellers: want 1 or 2", np))}
 	}
 	if len(t.Runs) == 0 || len(t.Runs) > fit.MaxRows {
-		return nil, invalid(op, "runs", fmt.Sprintf("%d runs: want 1 … %d", len(t.Runs), fit.MaxRows))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("runs", fmt.Sprintf("%d runs: want 1 … %d", len(t.Runs), fit.MaxRows))}
 	}
 	d, rho := t.Diameter.Value(), t.Water.Density.Value()
 	out := make([]SelfPropulsionPoint, 0, len(t.Runs))
 	for i, r := range t.Runs {
 		name := fmt.Sprintf("run %d", i)
-		if err := checkInputs(op, true, input{name + ": model speed", r.ModelSpeed, quantity.Velocity},
-			input{name + ": thrust", r.Thrust, quantity.Force}, input{name + ": torque", r.Torque, quantity.Torque}); err != nil {
+		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: name + ": model speed", Value: r.ModelSpeed, Dim: quantity.Velocity},
+			similarity.Input{Name: name + ": thrust", Value: r.Thrust, Dim: quantity.Force},
+			similarity.Input{Name: name + ": torque", Value: r.Torque, Dim: quantity.Torque})); err != nil {
 			return nil, err
 		}
 		if err := r.TowingForce.CheckNamed(name+": towing force", quantity.Force); err != nil {
 			return nil, err
 		}
 		if fd := r.TowingForce.Value(); math.IsNaN(fd) || math.IsInf(fd, 0) {
-			return nil, invalid(op, name+": towing force", fmt.Sprintf("%s: towing force %v N: not a finite number", name, fd))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(name+": towing force", fmt.Sprintf("%s: towing force %v N: not a finite number", name, fd))}
 		}
 		n := r.RevsPerSecond
 		if !(n > 0) || math.IsInf(n, 0) {
-			return nil, invalid(op, name+": n", fmt.Sprintf("%s: n = %v rev/s: want a positive finite rate of revolution", name, n))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(name+": n", fmt.Sprintf("%s: n = %v rev/s: want a positive finite rate of revolution", name, n))}
 		}
 		p := SelfPropulsionPoint{ModelSpeed: r.ModelSpeed.Value(), RevsPerSecond: n, TowingForce: r.TowingForce.Value()}
 		if r.Resistance != (quantity.Quantity{}) {
-			if err := checkInputs(op, true, input{name + ": resistance", r.Resistance, quantity.Force}); err != nil {
+			if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: name + ": resistance", Value: r.Resistance, Dim: quantity.Force})); err != nil {
 				return nil, err
 			}
 			p.Resistance = r.Resistance.Value()
 		} else {
 			if t.Resistance == nil {
-				return nil, invalid(op, name+": resistance", name+": no resistance given and no faired resistance curve")
+				return nil, &Error{Op: op, Fault: similarity.Invalid(name+": resistance", name+": no resistance given and no faired resistance curve")}
 			}
 			rt, _, err := t.Resistance.At(r.ModelSpeed)
 			if err != nil {
-				return nil, wrap(op, name+": resistance", name, err)
+				return nil, &Error{Op: op, Fault: similarity.Caused(name+": resistance", name, err)}
 			}
 			p.Resistance = rt.Value()
 		}
 		th, q := r.Thrust.Value(), r.Torque.Value()
 		p.KT = th / (rho * n * n * d * d * d * d)
 		p.KQ = q / (rho * n * n * d * d * d * d * d)
-		if err := checkResults(op, true, result{name + ": K_TM", p.KT}, result{name + ": K_QM", p.KQ}); err != nil {
+		if err := fail(op, similarity.CheckResults(true,
+			similarity.Result{Name: name + ": K_TM", Value: p.KT},
+			similarity.Result{Name: name + ": K_QM", Value: p.KQ})); err != nil {
 			return nil, err
 		}
 		j, err := t.OpenWater.JForKT(p.KT)
 		if err != nil {
-			return nil, wrap(op, name+": K_TM", fmt.Sprintf("%s: thrust identity (K_TM = %.5g)", name, p.KT), err)
+			return nil, &Error{Op: op, Fault: similarity.Caused(name+": K_TM", fmt.Sprintf("%s: thrust identity (K_TM = %.5g)", name, p.KT), err)}
 		}
 		p.J = j
 		p.KQ0 = t.OpenWater.KQ.Eval(j)
@@ -315,11 +326,12 @@ func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) 
 		p.Eta0 = j * p.KT / (2 * math.Pi * p.KQ0)
 		p.EtaD = p.EtaH * p.Eta0 * p.RelativeRotative
 		if !allFinite(p.Wake, p.ThrustDeduction, p.RelativeRotative, p.EtaH, p.Eta0, p.EtaD) {
-			return nil, outOfRange(op, name, name+": the factors are out of the range of a float64")
+			return nil, &Error{Op: op, Fault: similarity.OutOfRange(name, name+": the factors are out of the range of a float64")}
 		}
 		if !(p.Wake >= 0 && p.Wake < 1) || !(p.ThrustDeduction > -0.5 && p.ThrustDeduction < 1) || !(p.RelativeRotative > 0.5 && p.RelativeRotative < 1.5) {
-			return nil, invalid(op, name, fmt.Sprintf("%s: w_TM = %.4g, t = %.4g, η_R = %.4g: not the factors of a propelled hull (want 0 ≤ w_TM < 1, −0.5 < t < 1, 0.5 < η_R < 1.5; a unit slip, or the wrong open-water curve?)",
-				name, p.Wake, p.ThrustDeduction, p.RelativeRotative))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(name, fmt.Sprintf("%s: w_TM = %.4g, t = %.4g, η_R = %.4g: not the factors of a propelled hull (want 0 ≤ w_TM < 1, −0.5 < t < 1, 0.5 < η_R < 1.5; a unit slip, or the wrong open-water curve?)",
+				name, p.Wake, p.ThrustDeduction, p.RelativeRotative))}
+
 		}
 		out = append(out, p)
 	}

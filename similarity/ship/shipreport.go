@@ -3,6 +3,8 @@ package ship
 import (
 	"fmt"
 	"strings"
+
+	"similis.dev/similis/similarity"
 )
 
 // Table writes the extrapolation as the trade presents it, one row per
@@ -33,7 +35,7 @@ func (r *HullResult) Table(md bool) string {
 	if md {
 		sb.WriteString("\n")
 	}
-	table(&sb, head, rows, md, true)
+	sb.WriteString(similarity.FormatTable(head, rows, md, true))
 	for _, w := range warn {
 		sb.WriteString(w + "\n")
 	}
@@ -72,7 +74,7 @@ func PoweringTable(rs []PoweringResult, md bool) string {
 	if md {
 		sb.WriteString("\n")
 	}
-	table(&sb, head, rows, md, true)
+	sb.WriteString(similarity.FormatTable(head, rows, md, true))
 	if formula {
 		sb.WriteString("C_A from the procedure's formula (5.68 − 0.6·log₁₀Re_S)·10⁻³ where the basin gave none\n")
 	}
@@ -81,53 +83,6 @@ func PoweringTable(rs []PoweringResult, md bool) string {
 	}
 	sb.WriteString("CAUTION: " + PoweringCaution + "\n")
 	return sb.String()
-}
-
-// table writes rows under a header as aligned text, or as a Markdown
-// table when md is set. With numeric set, every column holds numbers and
-// is right-aligned; otherwise columns are left-aligned.
-func table(sb *strings.Builder, head []string, rows [][]string, md, numeric bool) {
-	w := make([]int, len(head))
-	for i, h := range head {
-		w[i] = len([]rune(h))
-	}
-	for _, row := range rows {
-		for i, c := range row {
-			w[i] = max(w[i], len([]rune(c)))
-		}
-	}
-	line := func(cells []string) {
-		if md {
-			sb.WriteString("| " + strings.Join(cells, " | ") + " |\n")
-			return
-		}
-		for i, c := range cells {
-			pad := strings.Repeat(" ", w[i]-len([]rune(c)))
-			if i > 0 {
-				sb.WriteString("  ")
-			}
-			if numeric {
-				sb.WriteString(pad + c)
-			} else {
-				sb.WriteString(c + pad)
-			}
-		}
-		sb.WriteString("\n")
-	}
-	line(head)
-	if md {
-		sep := make([]string, len(head))
-		for i := range sep {
-			sep[i] = "---"
-			if numeric {
-				sep[i] = "---:"
-			}
-		}
-		line(sep)
-	}
-	for _, row := range rows {
-		line(row)
-	}
 }
 
 // fmtCoef formats a coefficient to four significant digits with its unit.

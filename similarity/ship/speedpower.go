@@ -9,6 +9,7 @@ import (
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
 	"similis.dev/similis/quantity/uncertain"
+	"similis.dev/similis/similarity"
 )
 
 // SpeedPowerInput is what a speed–power prediction needs: the ship and
@@ -82,24 +83,24 @@ func PredictSpeedPower(in SpeedPowerInput) (*SpeedPower, error) {
 	b := in.Base
 	if b.ModelSpeed != (quantity.Quantity{}) || b.ModelResistance != (quantity.Quantity{}) || b.ModelWake != 0 || b.ThrustDeduction != 0 ||
 		b.RelativeRotative != 0 || len(b.OpenWater) > 0 || b.Faired != nil {
-		return nil, invalid(op, "base input", "the base input's model speed, resistance, self-propulsion factors and open-water curve come from the tests: leave them unset")
+		return nil, &Error{Op: op, Fault: similarity.Invalid("base input", "the base input's model speed, resistance, self-propulsion factors and open-water curve come from the tests: leave them unset")}
 	}
 	sp := in.SelfPropulsion
 	if sp.OpenWater == nil || sp.Resistance == nil {
-		return nil, invalid(op, "tests", "the prediction needs the faired open-water curve and the faired resistance curve")
+		return nil, &Error{Op: op, Fault: similarity.Invalid("tests", "the prediction needs the faired open-water curve and the faired resistance curve")}
 	}
 	if !(in.Base.Scale > 0 && in.Base.Scale < 1) {
-		return nil, invalid(op, "scale", fmt.Sprintf("scale %v: want model/ship between 0 and 1", in.Base.Scale))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("scale", fmt.Sprintf("scale %v: want model/ship between 0 and 1", in.Base.Scale))}
 	}
 	if len(in.ShipSpeeds) == 0 || len(in.ShipSpeeds) > 1000 {
-		return nil, invalid(op, "ship speeds", fmt.Sprintf("%d ship speeds: want 1 … 1000", len(in.ShipSpeeds)))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("ship speeds", fmt.Sprintf("%d ship speeds: want 1 … 1000", len(in.ShipSpeeds)))}
 	}
 	level := in.Level
 	if level == 0 {
 		level = 0.95
 	}
 	if !(level > 0 && level < 1) {
-		return nil, invalid(op, "level", fmt.Sprintf("coverage probability %v: want 0 < p < 1", level))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("level", fmt.Sprintf("coverage probability %v: want 0 < p < 1", level))}
 	}
 	pts, orders, facs, err := factors(sp, nil)
 	if err != nil {
@@ -117,24 +118,24 @@ func PredictSpeedPower(in SpeedPowerInput) (*SpeedPower, error) {
 	vms := make([]float64, len(in.ShipSpeeds))
 	for i, v := range in.ShipSpeeds {
 		name := fmt.Sprintf("ship speed %d", i)
-		if err := checkInputs(op, true, input{name, v, quantity.Velocity}); err != nil {
+		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: name, Value: v, Dim: quantity.Velocity})); err != nil {
 			return nil, err
 		}
 		vm := v.Value() * math.Sqrt(in.Base.Scale)
 		lo, hi := max(sp.Resistance.CT.XMin, facs[0].XMin), min(sp.Resistance.CT.XMax, facs[0].XMax)
 		if !(vm >= lo && vm <= hi) {
-			return nil, outOfRange(op, name, fmt.Sprintf("%s: %.4g m/s is a model speed of %.4g m/s, outside the tests' common range %.4g … %.4g m/s: not extrapolated", name, v.Value(), vm, lo, hi))
+			return nil, &Error{Op: op, Fault: similarity.OutOfRange(name, fmt.Sprintf("%s: %.4g m/s is a model speed of %.4g m/s, outside the tests' common range %.4g … %.4g m/s: not extrapolated", name, v.Value(), vm, lo, hi))}
 		}
 		vms[i] = vm
 	}
 	for i, vm := range vms {
 		r, err := predictChain(in.Base, sp.Resistance, sp.OpenWater, facs, vm)
 		if err != nil {
-			return nil, wrap(op, fmt.Sprintf("ship speed %d", i), fmt.Sprintf("ship speed %d (%.4g m/s)", i, in.ShipSpeeds[i].Value()), err)
+			return nil, &Error{Op: op, Fault: similarity.Caused(fmt.Sprintf("ship speed %d", i), fmt.Sprintf("ship speed %d (%.4g m/s)", i, in.ShipSpeeds[i].Value()), err)}
 		}
 		pt := SpeedPowerPoint{PoweringResult: r}
 		if err := band(&pt, in.Base, sp, orders, facs, vm, level); err != nil {
-			return nil, wrap(op, fmt.Sprintf("ship speed %d", i), fmt.Sprintf("ship speed %d: the band", i), err)
+			return nil, &Error{Op: op, Fault: similarity.Caused(fmt.Sprintf("ship speed %d", i), fmt.Sprintf("ship speed %d: the band", i), err)}
 		}
 		out.Points = append(out.Points, pt)
 	}
@@ -160,7 +161,7 @@ func factors(sp SelfPropulsionTest, orders *[3]int) ([]SelfPropulsionPoint, [3]i
 		ys[0][i], ys[1][i], ys[2][i] = p.Wake, p.ThrustDeduction, p.RelativeRotative
 	}
 	if len(pts) < 3 {
-		return nil, ord, facs, invalid(op, "runs", fmt.Sprintf("%d self-propulsion runs: want at least 3 to fair the factors against speed", len(pts)))
+		return nil, ord, facs, &Error{Op: op, Fault: similarity.Invalid("runs", fmt.Sprintf("%d self-propulsion runs: want at least 3 to fair the factors against speed", len(pts)))}
 	}
 	for k, name := range []string{"w_TM", "t", "η_R"} {
 		if orders == nil {
@@ -169,7 +170,7 @@ func factors(sp SelfPropulsionTest, orders *[3]int) ([]SelfPropulsionPoint, [3]i
 			facs[k], err = fit.FitPoly(v, ys[k], orders[k], nil)
 		}
 		if err != nil {
-			return nil, ord, facs, wrap(op, name, "fairing "+name+" against the model speed", err)
+			return nil, ord, facs, &Error{Op: op, Fault: similarity.Caused(name, "fairing "+name+" against the model speed", err)}
 		}
 		ord[k] = facs[k].Order
 	}
@@ -192,13 +193,12 @@ func predictChain(base PoweringInput, res *ResistanceFit, ow *OpenWaterFit, facs
 // combined with each fit's covariance.
 func band(pt *SpeedPowerPoint, base PoweringInput, sp SelfPropulsionTest, orders [3]int, facs [3]*fit.Poly, vm, level float64) error {
 	type source struct {
-		p       *fit.Poly
-		eval    func(k int, h float64) (PoweringResult, error)
-		varP    float64
-		varN    float64
-		dof     float64
-		gp, gn  []float64
-		touched bool
+		p      *fit.Poly
+		eval   func(k int, h float64) (PoweringResult, error)
+		varP   float64
+		varN   float64
+		dof    float64
+		gp, gn []float64
 	}
 	chainWith := func(s SelfPropulsionTest) (PoweringResult, error) {
 		_, _, f, err := factors(s, &orders)
@@ -284,7 +284,7 @@ func band(pt *SpeedPowerPoint, base PoweringInput, sp SelfPropulsionTest, orders
 	pt.Power = [2]float64{p - kp*pt.PowerU, p + kp*pt.PowerU}
 	pt.Revs = [2]float64{n - kn*pt.RevsU, n + kn*pt.RevsU}
 	if !allFinite(pt.PowerU, pt.RevsU, pt.Power[0], pt.Power[1], pt.Revs[0], pt.Revs[1]) {
-		return outOfRange("speed–power band", "band", "the band is out of the range of a float64")
+		return &Error{Op: "speed–power band", Fault: similarity.OutOfRange("band", "the band is out of the range of a float64")}
 	}
 	return nil
 }
@@ -317,7 +317,7 @@ func (s *SpeedPower) Table(md bool) string {
 	if md {
 		sb.WriteString("\n")
 	}
-	table(&sb, head, rows, md, true)
+	sb.WriteString(similarity.FormatTable(head, rows, md, true))
 	sb.WriteString("band: " + s.Method + "\n")
 	if s.Warning != "" {
 		sb.WriteString("WARNING (fits): " + s.Warning + "\n")

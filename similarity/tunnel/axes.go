@@ -7,6 +7,7 @@ import (
 	"gonum.org/v1/gonum/mat"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 )
 
 const deg = math.Pi / 180
@@ -29,11 +30,8 @@ const (
 
 // String returns "stability axes" or "wind axes".
 func (a Axes) String() string {
-	switch a {
-	case StabilityAxes:
-		return "stability axes"
-	case WindAxes:
-		return "wind axes"
+	if a == StabilityAxes || a == WindAxes {
+		return [...]string{"stability axes", "wind axes"}[a-StabilityAxes]
 	}
 	return fmt.Sprintf("Axes(%d)", uint8(a))
 }
@@ -71,7 +69,7 @@ func (l Loads) ToStability(alpha float64) (AxisLoads, error) {
 		return AxisLoads{}, err
 	}
 	if !l.finite() {
-		return AxisLoads{}, outOfRange("axis transfer", "loads", "a load is not finite")
+		return AxisLoads{}, &Error{Op: "axis transfer", Fault: similarity.OutOfRange("loads", "a load is not finite")}
 	}
 	s, c := math.Sincos(alpha * deg)
 	return AxisLoads{Axes: StabilityAxes,
@@ -139,7 +137,7 @@ func (l Loads) About(o Offset) (Loads, error) {
 		d[i] = c.q.Value()
 	}
 	if !l.finite() {
-		return Loads{}, outOfRange(op, "loads", "a load is not finite")
+		return Loads{}, &Error{Op: op, Fault: similarity.OutOfRange("loads", "a load is not finite")}
 	}
 	dx, dy, dz := d[0], d[1], d[2]
 	N, A, Y := l[NormalForce], l[AxialForce], l[SideForce]
@@ -147,7 +145,7 @@ func (l Loads) About(o Offset) (Loads, error) {
 	l[PitchingMoment] += dz*A - dx*N
 	l[YawingMoment] += -dx*Y - dy*A
 	if !l.finite() {
-		return Loads{}, outOfRange(op, "moments", "a transferred moment is out of the range of a float64")
+		return Loads{}, &Error{Op: op, Fault: similarity.OutOfRange("moments", "a transferred moment is out of the range of a float64")}
 	}
 	return l, nil
 }
@@ -250,12 +248,12 @@ func (t WeightTare) Loads(a Attitude) Loads {
 func FitWeightTare(points []TarePoint, comps []Component) (WeightTare, error) {
 	const op = "weight tare"
 	if len(points) < 2 || len(points) > MaxTarePoints {
-		return WeightTare{}, invalid(op, "points", fmt.Sprintf("%d wind-off points: want 2 … %d", len(points), MaxTarePoints))
+		return WeightTare{}, &Error{Op: op, Fault: similarity.Invalid("points", fmt.Sprintf("%d wind-off points: want 2 … %d", len(points), MaxTarePoints))}
 	}
 	var has [numComponents]bool
 	for _, c := range comps {
 		if c >= numComponents {
-			return WeightTare{}, invalid(op, "components", "unknown component "+c.String())
+			return WeightTare{}, &Error{Op: op, Fault: similarity.Invalid("components", "unknown component "+c.String())}
 		}
 		has[c] = true
 	}
@@ -263,10 +261,10 @@ func FitWeightTare(points []TarePoint, comps []Component) (WeightTare, error) {
 	num, den := 0.0, 0.0
 	for i, p := range points {
 		if _, _, err := p.Attitude.Angles(); err != nil {
-			return WeightTare{}, wrap(op, fmt.Sprintf("point %d", i+1), fmt.Sprintf("wind-off point %d", i+1), err)
+			return WeightTare{}, &Error{Op: op, Fault: similarity.Caused(fmt.Sprintf("point %d", i+1), fmt.Sprintf("wind-off point %d", i+1), err)}
 		}
 		if !p.Loads.finite() {
-			return WeightTare{}, outOfRange(op, fmt.Sprintf("point %d", i+1), fmt.Sprintf("wind-off point %d: a load is not finite", i+1))
+			return WeightTare{}, &Error{Op: op, Fault: similarity.OutOfRange(fmt.Sprintf("point %d", i+1), fmt.Sprintf("wind-off point %d: a load is not finite", i+1))}
 		}
 		gx, gy, gz := p.Attitude.gravity()
 		for _, t := range [][3]float64{{float64(AxialForce), -gx, 0}, {float64(SideForce), gy, 0}, {float64(NormalForce), -gz, 0}} {
@@ -278,11 +276,11 @@ func FitWeightTare(points []TarePoint, comps []Component) (WeightTare, error) {
 		}
 	}
 	if !(den > 1e-6) {
-		return WeightTare{}, invalid(op, "components", "the measured forces do not see the weight at these attitudes")
+		return WeightTare{}, &Error{Op: op, Fault: similarity.Invalid("components", "the measured forces do not see the weight at these attitudes")}
 	}
 	w := num / den
 	if !(w > 0) || math.IsInf(w, 0) {
-		return WeightTare{}, invalid(op, "weight", fmt.Sprintf("the fitted weight %.4g N is not positive: check the signs of the wind-off loads", w))
+		return WeightTare{}, &Error{Op: op, Fault: similarity.Invalid("weight", fmt.Sprintf("the fitted weight %.4g N is not positive: check the signs of the wind-off loads", w))}
 	}
 	t := WeightTare{Weight: w, Points: len(points)}
 	var fss float64
@@ -334,7 +332,7 @@ func FitWeightTare(points []TarePoint, comps []Component) (WeightTare, error) {
 		}
 		var u mat.Dense
 		if err := u.Solve(a, mat.NewVecDense(len(rhs), rhs)); err != nil {
-			return WeightTare{}, wrap(op, "centre of gravity", "the moments cannot give the centre of gravity", err)
+			return WeightTare{}, &Error{Op: op, Fault: similarity.Caused("centre of gravity", "the moments cannot give the centre of gravity", err)}
 		}
 		for j, k := range keep {
 			t.CG[k] = u.At(j, 0) / w
@@ -342,7 +340,7 @@ func FitWeightTare(points []TarePoint, comps []Component) (WeightTare, error) {
 	}
 	for _, v := range t.CG {
 		if math.IsNaN(v) || math.IsInf(v, 0) {
-			return WeightTare{}, outOfRange(op, "centre of gravity", "the centre of gravity is out of the range of a float64")
+			return WeightTare{}, &Error{Op: op, Fault: similarity.OutOfRange("centre of gravity", "the centre of gravity is out of the range of a float64")}
 		}
 	}
 	if len(rows) > 0 {
@@ -359,7 +357,7 @@ func FitWeightTare(points []TarePoint, comps []Component) (WeightTare, error) {
 		t.MomentRMS = math.Sqrt(mss / float64(len(rows)))
 	}
 	if !allFinite(t.ForceRMS, t.MomentRMS) {
-		return WeightTare{}, outOfRange(op, "residuals", "the residuals of the fit are out of the range of a float64")
+		return WeightTare{}, &Error{Op: op, Fault: similarity.OutOfRange("residuals", "the residuals of the fit are out of the range of a float64")}
 	}
 	return t, nil
 }

@@ -8,6 +8,7 @@ import (
 	"gonum.org/v1/gonum/mat"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 )
 
 // Component is one load an internal strain-gauge balance measures, in
@@ -99,11 +100,8 @@ const (
 
 // String returns the form's name as a calibration file writes it.
 func (f Form) String() string {
-	switch f {
-	case LoadsFromReadings:
-		return "loads-from-readings"
-	case ReadingsFromLoads:
-		return "readings-from-loads"
+	if f == LoadsFromReadings || f == ReadingsFromLoads {
+		return [...]string{"loads-from-readings", "readings-from-loads"}[f-LoadsFromReadings]
 	}
 	return fmt.Sprintf("Form(%d)", uint8(f))
 }
@@ -174,21 +172,21 @@ type Calibration struct {
 func NewCalibration(name string, form Form, readingUnit string, comps []ComponentRange, linear, quadratic [][]float64) (*Calibration, error) {
 	const op = "balance calibration"
 	if form != LoadsFromReadings && form != ReadingsFromLoads {
-		return nil, invalid(op, "form", "the form must be loads-from-readings or readings-from-loads")
+		return nil, &Error{Op: op, Fault: similarity.Invalid("form", "the form must be loads-from-readings or readings-from-loads")}
 	}
 	n := len(comps)
 	if n < 1 || n > MaxComponents {
-		return nil, invalid(op, "components", fmt.Sprintf("%d components: a balance has 1 … %d", n, MaxComponents))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("components", fmt.Sprintf("%d components: a balance has 1 … %d", n, MaxComponents))}
 	}
 	var seen [numComponents]bool
 	c := &Calibration{name: name, form: form, readingUnit: readingUnit, comps: append([]ComponentRange(nil), comps...)}
 	for _, cr := range comps {
 		if cr.Component >= numComponents || seen[cr.Component] {
-			return nil, invalid(op, cr.Component.String(), "component "+cr.Component.String()+" is unknown or given twice")
+			return nil, &Error{Op: op, Fault: similarity.Invalid(cr.Component.String(), "component "+cr.Component.String()+" is unknown or given twice")}
 		}
 		seen[cr.Component] = true
 		if !(cr.Min < cr.Max) || math.IsInf(cr.Min, 0) || math.IsInf(cr.Max, 0) {
-			return nil, invalid(op, cr.Component.String(), fmt.Sprintf("the calibrated range of %v, %g … %g, must be finite with min < max", cr.Component, cr.Min, cr.Max))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(cr.Component.String(), fmt.Sprintf("the calibrated range of %v, %g … %g, must be finite with min < max", cr.Component, cr.Min, cr.Max))}
 		}
 	}
 	nq := n * (n + 1) / 2
@@ -199,17 +197,18 @@ func NewCalibration(name string, form Form, readingUnit string, comps []Componen
 		}
 	}
 	if len(linear) != n || len(quadratic) != n {
-		return nil, invalid(op, "matrix", fmt.Sprintf("the matrix needs %d rows of first- and of second-order terms", n))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("matrix", fmt.Sprintf("the matrix needs %d rows of first- and of second-order terms", n))}
 	}
 	c.lin, c.quad = make([][]float64, n), make([][]float64, n)
 	for i := range n {
 		if len(linear[i]) != n || len(quadratic[i]) != nq {
-			return nil, invalid(op, comps[i].Component.String(), fmt.Sprintf("row %v: want %d first-order and %d second-order terms, have %d and %d",
-				comps[i].Component, n, nq, len(linear[i]), len(quadratic[i])))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(comps[i].Component.String(), fmt.Sprintf("row %v: want %d first-order and %d second-order terms, have %d and %d",
+				comps[i].Component, n, nq, len(linear[i]), len(quadratic[i])))}
+
 		}
 		for _, v := range append(append([]float64(nil), linear[i]...), quadratic[i]...) {
 			if math.IsNaN(v) || math.IsInf(v, 0) {
-				return nil, outOfRange(op, comps[i].Component.String(), fmt.Sprintf("row %v: a term is not finite", comps[i].Component))
+				return nil, &Error{Op: op, Fault: similarity.OutOfRange(comps[i].Component.String(), fmt.Sprintf("row %v: a term is not finite", comps[i].Component))}
 			}
 		}
 		c.lin[i] = append([]float64(nil), linear[i]...)
@@ -222,18 +221,18 @@ func NewCalibration(name string, form Form, readingUnit string, comps []Componen
 	var lu mat.LU
 	lu.Factorize(a)
 	if cond := lu.Cond(); !(cond <= 1e10) {
-		return nil, invalid(op, "matrix", fmt.Sprintf("the first-order matrix is singular or ill-conditioned (condition number %.3g): the components cannot be resolved", cond))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("matrix", fmt.Sprintf("the first-order matrix is singular or ill-conditioned (condition number %.3g): the components cannot be resolved", cond))}
 	}
 	var inv mat.Dense
 	if err := inv.Inverse(a); err != nil {
-		return nil, wrap(op, "matrix", "the first-order matrix cannot be inverted", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("matrix", "the first-order matrix cannot be inverted", err)}
 	}
 	c.inv = make([][]float64, n)
 	for i := range n {
 		c.inv[i] = mat.Row(nil, i, &inv)
 		for _, v := range c.inv[i] {
 			if math.IsNaN(v) || math.IsInf(v, 0) {
-				return nil, outOfRange(op, "matrix", "the inverse of the first-order matrix is not finite")
+				return nil, &Error{Op: op, Fault: similarity.OutOfRange("matrix", "the inverse of the first-order matrix is not finite")}
 			}
 		}
 	}
@@ -315,7 +314,7 @@ func (c *Calibration) invert(op string, y, x []float64) error {
 			return nil
 		}
 	}
-	return outOfRange(op, "readings", fmt.Sprintf("the iteration of the second-order terms did not settle in %d steps: the interactions are too large for these readings", MaxBalanceIterations))
+	return &Error{Op: op, Fault: similarity.OutOfRange("readings", fmt.Sprintf("the iteration of the second-order terms did not settle in %d steps: the interactions are too large for these readings", MaxBalanceIterations))}
 }
 
 // Loads returns the loads at the balance's moment centre for the
@@ -329,11 +328,11 @@ func (c *Calibration) Loads(readings []float64) (Loads, error) {
 	const op = "balance reduction"
 	n := len(c.comps)
 	if len(readings) != n {
-		return Loads{}, invalid(op, "readings", fmt.Sprintf("%d readings for a %d-component balance", len(readings), n))
+		return Loads{}, &Error{Op: op, Fault: similarity.Invalid("readings", fmt.Sprintf("%d readings for a %d-component balance", len(readings), n))}
 	}
 	for i, v := range readings {
 		if math.IsNaN(v) || math.IsInf(v, 0) {
-			return Loads{}, outOfRange(op, c.comps[i].Component.String(), fmt.Sprintf("the %v reading is not finite", c.comps[i].Component))
+			return Loads{}, &Error{Op: op, Fault: similarity.OutOfRange(c.comps[i].Component.String(), fmt.Sprintf("the %v reading is not finite", c.comps[i].Component))}
 		}
 	}
 	var buf [MaxComponents]float64
@@ -346,8 +345,9 @@ func (c *Calibration) Loads(readings []float64) (Loads, error) {
 	var l Loads
 	for i, cr := range c.comps {
 		if !cr.holds(f[i]) {
-			return Loads{}, outOfRange(op, cr.Component.String(), fmt.Sprintf("%v = %.6g %s is outside the calibrated range %g … %g: the calibration does not hold there and the balance may be overloaded",
-				cr.Component, f[i], unitOf(cr.Component), cr.Min, cr.Max))
+			return Loads{}, &Error{Op: op, Fault: similarity.OutOfRange(cr.Component.String(), fmt.Sprintf("%v = %.6g %s is outside the calibrated range %g … %g: the calibration does not hold there and the balance may be overloaded",
+				cr.Component, f[i], unitOf(cr.Component), cr.Min, cr.Max))}
+
 		}
 		l[cr.Component] = f[i]
 	}
@@ -365,7 +365,7 @@ func (c *Calibration) Readings(l Loads) ([]float64, error) {
 	for i, cr := range c.comps {
 		f[i] = l[cr.Component]
 		if !cr.holds(f[i]) {
-			return nil, outOfRange(op, cr.Component.String(), fmt.Sprintf("%v = %.6g %s is outside the calibrated range %g … %g", cr.Component, f[i], unitOf(cr.Component), cr.Min, cr.Max))
+			return nil, &Error{Op: op, Fault: similarity.OutOfRange(cr.Component.String(), fmt.Sprintf("%v = %.6g %s is outside the calibrated range %g … %g", cr.Component, f[i], unitOf(cr.Component), cr.Min, cr.Max))}
 		}
 	}
 	r := make([]float64, n)
@@ -376,7 +376,7 @@ func (c *Calibration) Readings(l Loads) ([]float64, error) {
 	}
 	for i, v := range r {
 		if math.IsNaN(v) || math.IsInf(v, 0) {
-			return nil, outOfRange(op, c.comps[i].Component.String(), "a reading is not finite")
+			return nil, &Error{Op: op, Fault: similarity.OutOfRange(c.comps[i].Component.String(), "a reading is not finite")}
 		}
 	}
 	return r, nil

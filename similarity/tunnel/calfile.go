@@ -10,6 +10,7 @@ import (
 	"unicode/utf8"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 	"similis.dev/similis/units"
 )
 
@@ -66,10 +67,10 @@ func ParseCalibration(r io.Reader) (*Calibration, error) {
 	const op = "balance calibration file"
 	data, err := io.ReadAll(io.LimitReader(r, MaxCalibrationBytes+1))
 	if err != nil {
-		return nil, wrap(op, "file", "cannot read the file", err)
+		return nil, &Error{Op: op, Fault: similarity.Caused("file", "cannot read the file", err)}
 	}
 	perr := func(line int, class error, input, format string, args ...any) *Error {
-		return &Error{Op: op, Line: line, Input: input, Class: class, Reason: fmt.Sprintf(format, args...)}
+		return &Error{Op: op, Line: line, Fault: similarity.Fault{Input: input, Reason: fmt.Sprintf(format, args...), Class: class}}
 	}
 	if len(data) > MaxCalibrationBytes {
 		return nil, perr(0, quantity.ErrRange, "file", "the file is longer than %d bytes", MaxCalibrationBytes)
@@ -157,7 +158,7 @@ func ParseCalibration(r io.Reader) (*Calibration, error) {
 			}
 			u, err := units.Parse(f[1])
 			if err != nil {
-				e := wrap(op, key, "the readings' unit", err)
+				e := &Error{Op: op, Fault: similarity.Caused(key, "the readings' unit", err)}
 				e.Line = ln
 				return nil, e
 			}
@@ -184,7 +185,7 @@ func ParseCalibration(r io.Reader) (*Calibration, error) {
 			}
 			u, err := units.Parse(f[2])
 			if err != nil {
-				e := wrap(op, c.String(), "the unit of "+c.String(), err)
+				e := &Error{Op: op, Fault: similarity.Caused(c.String(), "the unit of "+c.String(), err)}
 				e.Line = ln
 				return nil, e
 			}

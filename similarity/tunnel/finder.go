@@ -6,6 +6,7 @@ import (
 
 	"similis.dev/similis/internal/roots"
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -115,11 +116,11 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 		}
 	}
 	if !(lengthRatio > 0) || math.IsInf(lengthRatio, 0) {
-		return Condition{}, outOfRange("tunnel condition", "length ratio", fmt.Sprintf("length ratio %v is not positive and finite", lengthRatio))
+		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("length ratio", fmt.Sprintf("length ratio %v is not positive and finite", lengthRatio))}
 	}
 	tlo, thi, plo, phi := lim.MinTemperature.Value(), lim.MaxTemperature.Value(), lim.MinPressure.Value(), lim.MaxPressure.Value()
 	if !(tlo > 0 && thi >= tlo && plo > 0 && phi >= plo) || math.IsInf(thi+phi, 0) {
-		return Condition{}, &Error{Op: "tunnel condition", Class: quantity.ErrRange, Reason: "tunnel limits must be positive and finite with minimum ≤ maximum"}
+		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", "tunnel limits must be positive and finite with minimum ≤ maximum")}
 	}
 	for _, c := range []struct {
 		n string
@@ -127,7 +128,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	}{{"prototype speed", protoSpeed.Value()}, {"prototype length", protoLength.Value()}, {"prototype density", proto.Density.Value()},
 		{"prototype viscosity", proto.DynamicViscosity.Value()}, {"prototype speed of sound", proto.SpeedOfSound.Value()}} {
 		if !(c.v > 0) || math.IsInf(c.v, 0) {
-			return Condition{}, &Error{Op: "tunnel condition", Input: c.n, Class: quantity.ErrRange, Reason: fmt.Sprintf("%s %v is not positive and finite (a fluid state without a speed of sound cannot set a Mach number)", c.n, c.v)}
+			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange(c.n, fmt.Sprintf("%s %v is not positive and finite (a fluid state without a speed of sound cannot set a Mach number)", c.n, c.v))}
 		}
 	}
 	if _, err := gas.LowestTemperature(lim.MinPressure); err != nil {
@@ -141,7 +142,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	rep := proto.Density.Value() * protoSpeed.Value() * protoLength.Value() / proto.DynamicViscosity.Value()
 	lm := protoLength.Value() * lengthRatio
 	if !(rep > 0) || math.IsInf(rep, 0) || !(lm > 0) || math.IsInf(lm, 0) {
-		return Condition{}, &Error{Op: "tunnel condition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the full-scale Reynolds number %g and the model length %g m must be positive and finite", rep, lm)}
+		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the full-scale Reynolds number %g and the model length %g m must be positive and finite", rep, lm))}
 	}
 	tminName, tmaxName := "minimum total temperature", "maximum total temperature"
 	// The gas's own range: the static temperature T₀/tr at or above its
@@ -182,13 +183,13 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 			return Condition{}, err
 		}
 		if !(q.Value() > 0) || math.IsInf(q.Value(), 0) {
-			return Condition{}, &Error{Op: "tunnel condition", Class: quantity.ErrRange, Reason: "the maximum dynamic pressure must be positive and finite"}
+			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", "the maximum dynamic pressure must be positive and finite")}
 		}
 		if pq := pr * 2 * q.Value() / (gas.Gamma * ma * ma); pq < phi {
 			phi, pmaxName = pq, "maximum dynamic pressure"
 		}
 		if phi < plo {
-			return Condition{}, &Error{Op: "tunnel condition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the maximum dynamic pressure %.4g Pa allows a total pressure of only %.4g Pa at Mach %.3g, below the minimum total pressure %.4g Pa", q.Value(), phi, ma, plo)}
+			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the maximum dynamic pressure %.4g Pa allows a total pressure of only %.4g Pa at Mach %.3g, below the minimum total pressure %.4g Pa", q.Value(), phi, ma, plo))}
 		}
 	}
 	if mg := lim.CondensationMargin; mg != (quantity.Quantity{}) || gas.Saturation != fluids.NoSaturation {
@@ -199,11 +200,11 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 			}
 		}
 		if gas.Saturation == fluids.NoSaturation {
-			return Condition{}, &Error{Op: "tunnel condition", Class: quantity.ErrRange, Reason: "a condensation margin is checked for a gas with a saturation curve (nitrogen); " + gas.GasName + " has none here"}
+			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", "a condensation margin is checked for a gas with a saturation curve (nitrogen); "+gas.GasName+" has none here")}
 		}
 		m := mg.Value()
 		if !(m >= 0) || math.IsInf(m, 0) {
-			return Condition{}, &Error{Op: "tunnel condition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the condensation margin %v K must be finite and not negative", m)}
+			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the condensation margin %v K must be finite and not negative", m))}
 		}
 		name := "condensation margin"
 		if !given {
@@ -224,7 +225,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 		// positive.
 		if !(margin(tlo) > 0) {
 			if !(margin(thi) > 0) {
-				return Condition{}, &Error{Op: "tunnel condition", Class: quantity.ErrInvalid, Reason: fmt.Sprintf("no total temperature up to %.4g K keeps the static %s gas %.3g K above its condensation temperature", thi, gas.GasName, m)}
+				return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.Invalid("", fmt.Sprintf("no total temperature up to %.4g K keeps the static %s gas %.3g K above its condensation temperature", thi, gas.GasName, m))}
 			}
 			lo, hi := tlo, thi
 			for range 200 {
@@ -244,7 +245,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	T0, p0 := tlo, need0(tlo)
 	switch {
 	case math.IsNaN(p0):
-		return Condition{}, &Error{Op: "tunnel condition", Class: quantity.ErrInvalid, Reason: "no total pressure gives the Reynolds number at the lowest allowed total temperature"}
+		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.Invalid("", "no total pressure gives the Reynolds number at the lowest allowed total temperature")}
 	case p0 > phi:
 		p0 = phi
 		c.Binding = append(c.Binding, pmaxName, tminName)
@@ -258,7 +259,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 		} else {
 			var err error
 			if T0, err = roots.Bisect(func(T0 float64) float64 { return need0(T0) - plo }, tlo, thi); err != nil {
-				return Condition{}, &Error{Op: "tunnel condition", Class: quantity.ErrInvalid, Err: err, Reason: "no total temperature within the limits gives the Reynolds number at the minimum pressure"}
+				return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.Fault{Reason: "no total temperature within the limits gives the Reynolds number at the minimum pressure", Class: quantity.ErrInvalid, Err: err}}
 			}
 			p0 = plo
 			c.Binding = append(c.Binding, "minimum total pressure")
@@ -278,7 +279,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	c.ReynoldsRatio = c.ModelReynolds / rep
 	c.Q = quantity.New(0.5*gas.Gamma*p*ma*ma, quantity.Pressure)
 	if !tunnelFinite(T0, p0, c.Velocity.Value(), c.ModelReynolds, c.ReynoldsRatio, c.Q.Value()) {
-		return Condition{}, &Error{Op: "tunnel condition", Class: quantity.ErrRange, Reason: fmt.Sprintf("the condition is not finite (T₀ = %g K, p₀ = %g Pa, Re_m = %g): the inputs are outside any tunnel's range", T0, p0, c.ModelReynolds)}
+		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the condition is not finite (T₀ = %g K, p₀ = %g Pa, Re_m = %g): the inputs are outside any tunnel's range", T0, p0, c.ModelReynolds))}
 	}
 	c.Achieved = math.Abs(c.ReynoldsRatio-1) < 1e-6
 	if c.Achieved {
@@ -311,21 +312,21 @@ func (c *Condition) caution(gas fluids.IdealGas, lim Limits) error {
 	}
 	rated, area := lim.RatedLoad, lim.LoadArea
 	if area != (quantity.Quantity{}) {
-		if err := checkInputs("tunnel condition finder", true, input{"load area C·S", area, quantity.Area}); err != nil {
+		if err := fail("tunnel condition finder", similarity.CheckInputs(true, similarity.Input{Name: "load area C·S", Value: area, Dim: quantity.Area})); err != nil {
 			return err
 		}
 		c.Load = c.Q.Mul(area)
 		if math.IsInf(c.Load.Value(), 0) {
-			return &Error{Op: "tunnel condition", Class: quantity.ErrRange, Reason: "the load C·S·q is not finite"}
+			return &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", "the load C·S·q is not finite")}
 		}
 	}
 	switch {
 	case rated != (quantity.Quantity{}):
-		if err := checkInputs("tunnel condition finder", true, input{"rated load", rated, quantity.Force}); err != nil {
+		if err := fail("tunnel condition finder", similarity.CheckInputs(true, similarity.Input{Name: "rated load", Value: rated, Dim: quantity.Force})); err != nil {
 			return err
 		}
 		if area == (quantity.Quantity{}) {
-			return &Error{Op: "tunnel condition", Class: quantity.ErrInvalid, Reason: "a rated load needs the load area C·S (the largest force coefficient times the reference area) to compare with"}
+			return &Error{Op: "tunnel condition", Fault: similarity.Invalid("", "a rated load needs the load area C·S (the largest force coefficient times the reference area) to compare with")}
 		}
 		if l, r := c.Load.Value(), rated.Value(); l > r {
 			c.Overloaded = true

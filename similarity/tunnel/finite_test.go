@@ -1,15 +1,12 @@
 package tunnel_test
 
 import (
-	"math"
 	"testing"
 
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/fluids"
 	"similis.dev/similis/similarity/tunnel"
 )
-
-var nan = math.NaN()
 
 // TestFiniteOrError: every entry point returns a finite result or an
 // error for the inputs a fuzzing review found giving NaN or ±Inf.

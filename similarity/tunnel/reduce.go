@@ -6,6 +6,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
+	"similis.dev/similis/similarity"
 )
 
 // Reference is the model's reference geometry for its coefficients: the
@@ -27,15 +28,23 @@ type Coefficients struct {
 // and the reference geometry.
 func (a AxisLoads) Coefficients(q quantity.Quantity, ref Reference) (Coefficients, error) {
 	const op = "coefficients"
-	if err := checkInputs(op, true, input{"dynamic pressure", q, quantity.Pressure}, input{"reference area", ref.Area, quantity.Area},
-		input{"span", ref.Span, quantity.Length}, input{"mean aerodynamic chord", ref.Chord, quantity.Length}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true,
+		similarity.Input{Name: "dynamic pressure", Value: q, Dim: quantity.Pressure},
+		similarity.Input{Name: "reference area", Value: ref.Area, Dim: quantity.Area},
+		similarity.Input{Name: "span", Value: ref.Span, Dim: quantity.Length},
+		similarity.Input{Name: "mean aerodynamic chord", Value: ref.Chord, Dim: quantity.Length})); err != nil {
 		return Coefficients{}, err
 	}
 	qs := q.Value() * ref.Area.Value()
 	c := Coefficients{CD: a.Drag / qs, CY: a.Side / qs, CL: a.Lift / qs,
 		Cl: a.Roll / (qs * ref.Span.Value()), Cm: a.Pitch / (qs * ref.Chord.Value()), Cn: a.Yaw / (qs * ref.Span.Value())}
-	if err := checkResults(op, false, result{"C_D", c.CD}, result{"C_Y", c.CY}, result{"C_L", c.CL},
-		result{"C_l", c.Cl}, result{"C_m", c.Cm}, result{"C_n", c.Cn}); err != nil {
+	if err := fail(op, similarity.CheckResults(false,
+		similarity.Result{Name: "C_D", Value: c.CD},
+		similarity.Result{Name: "C_Y", Value: c.CY},
+		similarity.Result{Name: "C_L", Value: c.CL},
+		similarity.Result{Name: "C_l", Value: c.Cl},
+		similarity.Result{Name: "C_m", Value: c.Cm},
+		similarity.Result{Name: "C_n", Value: c.Cn})); err != nil {
 		return Coefficients{}, err
 	}
 	return c, nil
@@ -94,7 +103,7 @@ type Reduced struct {
 func (r *Reduction) Reduce(p Point) (Reduced, error) {
 	const op = "reduction"
 	if r.Calibration == nil {
-		return Reduced{}, invalid(op, "calibration", "no balance calibration")
+		return Reduced{}, &Error{Op: op, Fault: similarity.Invalid("calibration", "no balance calibration")}
 	}
 	var out Reduced
 	var err error
@@ -106,7 +115,7 @@ func (r *Reduction) Reduce(p Point) (Reduced, error) {
 	}
 	out.Tare = r.Tare.Loads(p.Attitude)
 	if !out.Tare.finite() {
-		return Reduced{}, outOfRange(op, "weight tare", "the weight tare is not finite")
+		return Reduced{}, &Error{Op: op, Fault: similarity.OutOfRange("weight tare", "the weight tare is not finite")}
 	}
 	if out.Aero, err = out.Balance.Sub(out.Tare).About(r.Offset); err != nil {
 		return Reduced{}, err
@@ -166,54 +175,54 @@ type Polar struct {
 func FitPolar(alpha, cl, cd []float64, alphaLo, alphaHi, level float64) (Polar, error) {
 	const op = "polar fit"
 	if len(alpha) != len(cl) || len(alpha) != len(cd) {
-		return Polar{}, invalid(op, "points", fmt.Sprintf("%d angles, %d lift and %d drag coefficients: want one of each per point", len(alpha), len(cl), len(cd)))
+		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("points", fmt.Sprintf("%d angles, %d lift and %d drag coefficients: want one of each per point", len(alpha), len(cl), len(cd)))}
 	}
 	if !(alphaLo < alphaHi) || math.Abs(alphaLo) > maxAngleDeg || math.Abs(alphaHi) > maxAngleDeg {
-		return Polar{}, invalid(op, "alpha range", fmt.Sprintf("the linear range %g … %g° must be finite and increasing", alphaLo, alphaHi))
+		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("alpha range", fmt.Sprintf("the linear range %g … %g° must be finite and increasing", alphaLo, alphaHi))}
 	}
 	if level == 0 {
 		level = 0.95
 	}
 	if !(level > 0 && level < 1) {
-		return Polar{}, invalid(op, "level", fmt.Sprintf("confidence level %g: want 0 < level < 1", level))
+		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("level", fmt.Sprintf("confidence level %g: want 0 < level < 1", level))}
 	}
 	var a, l, l2, d []float64
 	for i := range alpha {
 		if math.IsNaN(alpha[i]) || math.IsInf(alpha[i], 0) || !(math.Abs(cl[i]) <= maxCoefficient) || !(math.Abs(cd[i]) <= maxCoefficient) {
-			return Polar{}, outOfRange(op, fmt.Sprintf("point %d", i+1), fmt.Sprintf("point %d: α, C_L and C_D must be finite and the coefficients within ±%g", i+1, maxCoefficient))
+			return Polar{}, &Error{Op: op, Fault: similarity.OutOfRange(fmt.Sprintf("point %d", i+1), fmt.Sprintf("point %d: α, C_L and C_D must be finite and the coefficients within ±%g", i+1, maxCoefficient))}
 		}
 		if alpha[i] >= alphaLo && alpha[i] <= alphaHi {
 			a, l, l2, d = append(a, alpha[i]), append(l, cl[i]), append(l2, cl[i]*cl[i]), append(d, cd[i])
 		}
 	}
 	if len(a) < 3 {
-		return Polar{}, invalid(op, "points", fmt.Sprintf("%d points in the linear range %g … %g°: want at least 3", len(a), alphaLo, alphaHi))
+		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("points", fmt.Sprintf("%d points in the linear range %g … %g°: want at least 3", len(a), alphaLo, alphaHi))}
 	}
 	opt := &fit.Options{Level: level}
 	p := Polar{AlphaRange: [2]float64{alphaLo, alphaHi}, N: len(a), Level: level}
 	var err error
 	if p.Lift, err = fit.FitPoly(a, l, 1, opt); err != nil {
-		return Polar{}, wrap(op, "lift curve", "the lift curve cannot be fitted", err)
+		return Polar{}, &Error{Op: op, Fault: similarity.Caused("lift curve", "the lift curve cannot be fitted", err)}
 	}
 	if p.Drag, err = fit.FitPoly(l2, d, 1, opt); err != nil {
-		return Polar{}, wrap(op, "drag polar", "the drag polar cannot be fitted", err)
+		return Polar{}, &Error{Op: op, Fault: similarity.Caused("drag polar", "the drag polar cannot be fitted", err)}
 	}
 	// Coefficients of the powers of x with their standard errors; the
 	// t quantile is the fits' own (interval half-width over SE).
 	la, lse, err := p.Lift.Power()
 	if err != nil {
-		return Polar{}, wrap(op, "lift curve", "the lift curve's coefficients", err)
+		return Polar{}, &Error{Op: op, Fault: similarity.Caused("lift curve", "the lift curve's coefficients", err)}
 	}
 	da, dse, err := p.Drag.Power()
 	if err != nil {
-		return Polar{}, wrap(op, "drag polar", "the drag polar's coefficients", err)
+		return Polar{}, &Error{Op: op, Fault: similarity.Caused("drag polar", "the drag polar's coefficients", err)}
 	}
 	tq := tQuantile(p.Lift)
 	p.LiftSlope = estimate(la[1], tq*lse[1])
 	td := tQuantile(p.Drag)
 	p.CD0, p.K = estimate(da[0], td*dse[0]), estimate(da[1], td*dse[1])
 	if !(la[1] != 0) {
-		return Polar{}, invalid(op, "lift curve", "the lift curve has no slope: no zero-lift angle")
+		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("lift curve", "the lift curve has no slope: no zero-lift angle")}
 	}
 	// α₀ = −a₀/a₁; in the fit's scaled variable t = (α − c)/s,
 	// C_L = B₀ + B₁t, so α₀ = c − s·B₀/B₁, and to first order
@@ -224,7 +233,7 @@ func FitPolar(alpha, cl, cd []float64, alphaLo, alphaHi, level float64) (Polar, 
 	p.ZeroLiftAlpha = estimate(a0, tq*math.Sqrt(math.Max(v, 0)))
 	for _, e := range []Estimate{p.LiftSlope, p.ZeroLiftAlpha, p.CD0, p.K} {
 		if !allFinite(e.Value, e.Interval[0], e.Interval[1]) {
-			return Polar{}, outOfRange(op, "polar", "a fitted value or interval is out of the range of a float64")
+			return Polar{}, &Error{Op: op, Fault: similarity.OutOfRange("polar", "a fitted value or interval is out of the range of a float64")}
 		}
 	}
 	return p, nil

@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 )
 
 // MaxWallCorrectionMach is the highest test-section Mach number at which
@@ -123,7 +124,9 @@ type Corrected2D struct {
 // refused.
 func CorrectWalls2D(s Section2D) (Corrected2D, error) {
 	const method = "2-D wall correction"
-	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: method, Reason: r} }
+	m := func(r string) error {
+		return &Error{Op: method, Fault: similarity.Invalid("", r)}
+	}
 	if err := s.Chord.CheckNamed("chord", quantity.Length); err != nil {
 		return Corrected2D{}, err
 	}
@@ -275,7 +278,9 @@ type Corrected3D struct {
 // coefficient beyond ±10 or an angle beyond ±90° is refused.
 func CorrectWalls3D(m Model3D) (Corrected3D, error) {
 	const method = "3-D wall correction"
-	e := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: method, Reason: r} }
+	e := func(r string) error {
+		return &Error{Op: method, Fault: similarity.Invalid("", r)}
+	}
 	for _, c := range []struct {
 		name string
 		q    quantity.Quantity
@@ -350,5 +355,5 @@ func rangeError(method, what string, v, lo, hi float64, instead string) *Error {
 	if instead != "" {
 		s += ": " + instead
 	}
-	return outOfRange(method, what, s)
+	return &Error{Op: method, Fault: similarity.OutOfRange(what, s)}
 }

@@ -6,6 +6,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
+	"similis.dev/similis/similarity"
 )
 
 // Grade is an acceptance grade of ISO 9906:2012: 1U, 1E and 1B the
@@ -79,7 +80,7 @@ func (g Grade) Tolerance() (Tolerance, error) {
 	case Grade3B:
 		return Tolerance{FlowMinus: 0.09, FlowPlus: 0.09, HeadMinus: 0.07, HeadPlus: 0.07, PowerPlus: 0.09, EfficiencyMinus: 0.07}, nil
 	}
-	return Tolerance{}, invalid("acceptance grade", "grade", fmt.Sprintf("grade %d is not one of ISO 9906's 1U, 1E, 1B, 2B, 2U, 3B", uint8(g)))
+	return Tolerance{}, &Error{Op: "acceptance grade", Fault: similarity.Invalid("grade", fmt.Sprintf("grade %d is not one of ISO 9906's 1U, 1E, 1B, 2B, 2U, 3B", uint8(g)))}
 }
 
 // Guarantee is the guarantee point of a pump at its specified speed: the
@@ -173,19 +174,21 @@ func CheckGuarantee(c PumpCurves, g Guarantee, grade Grade) (Verdict, error) {
 		return Verdict{}, err
 	}
 	if c.Head == nil || c.Power == nil || c.Efficiency == nil {
-		return Verdict{}, invalid(op, "curves", "the Q–H, Q–P and Q–η curves must all be fitted (FitPumpCurves)")
+		return Verdict{}, &Error{Op: op, Fault: similarity.Invalid("curves", "the Q–H, Q–P and Q–η curves must all be fitted (FitPumpCurves)")}
 	}
-	if err := checkInputs(op, true, input{"guarantee flow", g.Flow, quantity.VolumeFlowRate}, input{"guarantee head", g.Head, quantity.Length}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true,
+		similarity.Input{Name: "guarantee flow", Value: g.Flow, Dim: quantity.VolumeFlowRate},
+		similarity.Input{Name: "guarantee head", Value: g.Head, Dim: quantity.Length})); err != nil {
 		return Verdict{}, err
 	}
 	powerGiven := g.Power != (quantity.Quantity{})
 	if powerGiven {
-		if err := checkInputs(op, true, input{"guarantee power", g.Power, quantity.Power}); err != nil {
+		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: "guarantee power", Value: g.Power, Dim: quantity.Power})); err != nil {
 			return Verdict{}, err
 		}
 	}
 	if !(g.Efficiency >= 0 && g.Efficiency <= 1) {
-		return Verdict{}, invalid(op, "guarantee efficiency", fmt.Sprintf("guarantee efficiency %v: want 0 (not guaranteed) to 1", g.Efficiency))
+		return Verdict{}, &Error{Op: op, Fault: similarity.Invalid("guarantee efficiency", fmt.Sprintf("guarantee efficiency %v: want 0 (not guaranteed) to 1", g.Efficiency))}
 	}
 	qg, hg := g.Flow.Value(), g.Head.Value()
 	v := Verdict{Grade: grade, Tolerance: t,
@@ -194,7 +197,7 @@ func CheckGuarantee(c PumpCurves, g Guarantee, grade Grade) (Verdict, error) {
 	}
 	hf := c.Head
 	if v.HeadAtGuaranteeFlow, err = hf.Predict(qg); err != nil {
-		return Verdict{}, wrap(op, "guarantee flow", fmt.Sprintf("the guarantee flow %.6g m³/s against the tested range %.6g to %.6g m³/s", qg, hf.XMin, hf.XMax), err)
+		return Verdict{}, &Error{Op: op, Fault: similarity.Caused("guarantee flow", fmt.Sprintf("the guarantee flow %.6g m³/s against the tested range %.6g to %.6g m³/s", qg, hf.XMin, hf.XMax), err)}
 	}
 	hq := v.HeadAtGuaranteeFlow.Y
 	v.MeetsVertical = hq >= v.HeadBar[0] && hq <= v.HeadBar[1]
@@ -213,13 +216,14 @@ func CheckGuarantee(c PumpCurves, g Guarantee, grade Grade) (Verdict, error) {
 		slope := hg / qg
 		qx, ok := rootNearest(func(x float64) float64 { return hf.Eval(x) - slope*x }, hf.XMin, hf.XMax, qg)
 		if !ok {
-			return Verdict{}, outOfRange(op, "intersection", fmt.Sprintf("the line through the origin and the guarantee point (H = %.6g s/m²·Q) does not meet the fitted Q–H curve within the tested range %.6g to %.6g m³/s: the efficiency and power cannot be judged without extrapolating",
-				slope, hf.XMin, hf.XMax))
+			return Verdict{}, &Error{Op: op, Fault: similarity.OutOfRange("intersection", fmt.Sprintf("the line through the origin and the guarantee point (H = %.6g s/m²·Q) does not meet the fitted Q–H curve within the tested range %.6g to %.6g m³/s: the efficiency and power cannot be judged without extrapolating",
+				slope, hf.XMin, hf.XMax))}
+
 		}
 		v.Intersection = [2]float64{qx, hf.Eval(qx)}
 		if v.EfficiencyJudged {
 			if v.EfficiencyAt, err = c.Efficiency.Predict(qx); err != nil {
-				return Verdict{}, wrap(op, "intersection", "the efficiency at the intersection", err)
+				return Verdict{}, &Error{Op: op, Fault: similarity.Caused("intersection", "the efficiency at the intersection", err)}
 			}
 			v.EfficiencyMin = g.Efficiency * (1 - t.EfficiencyMinus)
 			v.EfficiencyMet = v.EfficiencyAt.Y >= v.EfficiencyMin
@@ -227,7 +231,7 @@ func CheckGuarantee(c PumpCurves, g Guarantee, grade Grade) (Verdict, error) {
 		}
 		if v.PowerJudged {
 			if v.PowerAt, err = c.Power.Predict(qx); err != nil {
-				return Verdict{}, wrap(op, "intersection", "the power at the intersection", err)
+				return Verdict{}, &Error{Op: op, Fault: similarity.Caused("intersection", "the power at the intersection", err)}
 			}
 			v.PowerMax = g.Power.Value() * (1 + t.PowerPlus)
 			v.PowerMet = v.PowerAt.Y <= v.PowerMax
@@ -242,7 +246,7 @@ func CheckGuarantee(c PumpCurves, g Guarantee, grade Grade) (Verdict, error) {
 		v.Notes = append(v.Notes, "the pump's power is 10 kW or less, for which ISO 9906 gives wider tolerances than these (not applied here)")
 	}
 	if !finite(hq, v.Intersection[0], v.Intersection[1], v.EfficiencyAt.Y, v.PowerAt.Y, v.FlowAtGuaranteeHead) {
-		return Verdict{}, outOfRange(op, "curves", "a fitted value is not finite")
+		return Verdict{}, &Error{Op: op, Fault: similarity.OutOfRange("curves", "a fitted value is not finite")}
 	}
 	return v, nil
 }

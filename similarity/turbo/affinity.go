@@ -1,9 +1,6 @@
 package turbo
 
 import (
-	"fmt"
-	"math"
-
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
@@ -38,7 +35,10 @@ type AffinityScales struct {
 // (specific energy), P (power), N (rotational speed), D (diameter) and
 // rho (density). Efficiency is taken equal; see MoodyStepUp.
 func AffinityLaws(sc AffinityScales) (Affinity, error) {
-	if err := checkRatios("affinity laws", "rotational speed", sc.RotationalSpeed, "diameter", sc.Diameter, "density", sc.Density); err != nil {
+	if err := fail("affinity laws", similarity.CheckRatios(
+		similarity.Result{Name: "rotational speed", Value: sc.RotationalSpeed},
+		similarity.Result{Name: "diameter", Value: sc.Diameter},
+		similarity.Result{Name: "density", Value: sc.Density})); err != nil {
 		return Affinity{}, err
 	}
 	speedRatio, diameterRatio, densityRatio := sc.RotationalSpeed, sc.Diameter, sc.Density
@@ -54,40 +54,17 @@ func AffinityLaws(sc AffinityScales) (Affinity, error) {
 	if err != nil {
 		return Affinity{}, err
 	}
-	v, err := ratioValues(s, "Q", "gH", "P")
+	v, err := s.RatioValues("Q", "gH", "P")
 	if err != nil {
 		return Affinity{}, err
 	}
 	a := Affinity{RotationalSpeed: speedRatio, Diameter: diameterRatio, Density: densityRatio, Flow: v[0], Head: v[1], Power: v[2]}
 	a.Torque = a.Power / a.RotationalSpeed
 	a.Pressure = a.Density * a.Head
-	if err := checkRatios("affinity laws", "torque", a.Torque, "pressure", a.Pressure); err != nil {
+	if err := fail("affinity laws", similarity.CheckRatios(
+		similarity.Result{Name: "torque", Value: a.Torque},
+		similarity.Result{Name: "pressure", Value: a.Pressure})); err != nil {
 		return Affinity{}, err
 	}
 	return a, nil
-}
-
-// ratioValues returns the values of the ratios of the given variables.
-func ratioValues(s *similarity.Solution, syms ...string) ([]float64, error) {
-	out := make([]float64, len(syms))
-	for i, sym := range syms {
-		r, err := s.Ratio(sym)
-		if err != nil {
-			return nil, err
-		}
-		out[i] = r.Value
-	}
-	return out, nil
-}
-
-// checkRatios checks name–value pairs of model/prototype ratios for the
-// rule op: each must be positive and finite, or an *Error of class
-// quantity.ErrRange names it.
-func checkRatios(op string, pairs ...any) error {
-	for i := 0; i+1 < len(pairs); i += 2 {
-		if v := pairs[i+1].(float64); !(v > 0) || math.IsInf(v, 0) {
-			return outOfRange(op, pairs[i].(string), fmt.Sprintf("the %s ratio %v is not positive and finite (a model/prototype ratio)", pairs[i], v))
-		}
-	}
-	return nil
 }

@@ -7,6 +7,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
+	"similis.dev/similis/similarity"
 )
 
 // SuctionPoint is one point of a suction test: the NPSH available at the
@@ -90,12 +91,14 @@ func FindNPSH3(series []SuctionPoint, opt NPSH3Options) (NPSH3Result, error) {
 		nref = 3
 	}
 	if len(series) > MaxSuctionPoints {
-		return NPSH3Result{}, invalid(op, "series", fmt.Sprintf("%d points: want at most %d", len(series), MaxSuctionPoints))
+		return NPSH3Result{}, &Error{Op: op, Fault: similarity.Invalid("series", fmt.Sprintf("%d points: want at most %d", len(series), MaxSuctionPoints))}
 	}
 	type pt struct{ x, y float64 }
 	pts := make([]pt, 0, len(series))
 	for i, s := range series {
-		if err := checkInputs(op, true, input{fmt.Sprintf("point %d: NPSHA", i), s.NPSHA, quantity.Length}, input{fmt.Sprintf("point %d: head", i), s.Head, quantity.Length}); err != nil {
+		if err := fail(op, similarity.CheckInputs(true,
+			similarity.Input{Name: fmt.Sprintf("point %d: NPSHA", i), Value: s.NPSHA, Dim: quantity.Length},
+			similarity.Input{Name: fmt.Sprintf("point %d: head", i), Value: s.Head, Dim: quantity.Length})); err != nil {
 			return NPSH3Result{}, err
 		}
 		pts = append(pts, pt{s.NPSHA.Value(), s.Head.Value()})
@@ -109,7 +112,7 @@ func FindNPSH3(series []SuctionPoint, opt NPSH3Options) (NPSH3Result, error) {
 		if u.q == (quantity.Quantity{}) {
 			continue
 		}
-		if err := checkInputs(op, true, input{u.name, u.q, quantity.Length}); err != nil {
+		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: u.name, Value: u.q, Dim: quantity.Length})); err != nil {
 			return NPSH3Result{}, err
 		}
 		*u.dst = u.q.Value()
@@ -134,10 +137,10 @@ func FindNPSH3(series []SuctionPoint, opt NPSH3Options) (NPSH3Result, error) {
 		x, y, w = append(x, p.x), append(y, p.y), append(w, 1)
 	}
 	if nref < 1 || nref > len(x)-2 {
-		return NPSH3Result{}, invalid(op, "reference points", fmt.Sprintf("%d reference points from %d distinct NPSHA values: want 1 to %d, leaving two below them", nref, len(x), len(x)-2))
+		return NPSH3Result{}, &Error{Op: op, Fault: similarity.Invalid("reference points", fmt.Sprintf("%d reference points from %d distinct NPSHA values: want 1 to %d, leaving two below them", nref, len(x), len(x)-2))}
 	}
 	if nref < 2 && uHead == 0 {
-		return NPSH3Result{}, invalid(op, "head uncertainty", "one reference point gives no scatter for the head's uncertainty: give HeadU or two or more reference points")
+		return NPSH3Result{}, &Error{Op: op, Fault: similarity.Invalid("head uncertainty", "one reference point gives no scatter for the head's uncertainty: give HeadU or two or more reference points")}
 	}
 	var res NPSH3Result
 	ref := 0.0
@@ -183,18 +186,18 @@ func FindNPSH3(series []SuctionPoint, opt NPSH3Options) (NPSH3Result, error) {
 		}
 	}
 	if yf[0] > target {
-		return NPSH3Result{}, outOfRange(op, "series", fmt.Sprintf("the faired head falls only to %.4g m at the lowest NPSHA %.4g m, above 97 %% of the reference %.4g m (%.4g m): extend the series to lower NPSHA", yf[0], x[0], ref, target))
+		return NPSH3Result{}, &Error{Op: op, Fault: similarity.OutOfRange("series", fmt.Sprintf("the faired head falls only to %.4g m at the lowest NPSHA %.4g m, above 97 %% of the reference %.4g m (%.4g m): extend the series to lower NPSHA", yf[0], x[0], ref, target))}
 	}
 	fair, err := fit.Fair(x, yf)
 	if err != nil {
-		return NPSH3Result{}, wrap(op, "series", "the fairing", err)
+		return NPSH3Result{}, &Error{Op: op, Fault: similarity.Caused("series", "the fairing", err)}
 	}
 	// Bisection for the largest x with fair(x) ≤ target: x[0] is in the
 	// set, x[n−1] (the reference, above target) is not.
 	at := func(v float64) float64 { f, _ := fair.At(v); return f }
 	lo, hi := x[0], x[len(x)-1]
 	if at(hi) <= target {
-		return NPSH3Result{}, outOfRange(op, "series", "the faired head at the highest NPSHA is not above 97 % of the reference")
+		return NPSH3Result{}, &Error{Op: op, Fault: similarity.OutOfRange("series", "the faired head at the highest NPSHA is not above 97 % of the reference")}
 	}
 	for range 200 {
 		m := lo + (hi-lo)/2
@@ -211,11 +214,13 @@ func FindNPSH3(series []SuctionPoint, opt NPSH3Options) (NPSH3Result, error) {
 	k := max(0, min(len(x)-2, sortSearch(x, x3)-1))
 	slope := (yf[k+1] - yf[k]) / (x[k+1] - x[k])
 	if !(slope > 0) || math.IsInf(slope, 0) {
-		return NPSH3Result{}, outOfRange(op, "series", fmt.Sprintf("the faired head does not change with NPSHA between %.4g m and %.4g m, where the 3 %% point lies: its uncertainty is unbounded", x[k], x[k+1]))
+		return NPSH3Result{}, &Error{Op: op, Fault: similarity.OutOfRange("series", fmt.Sprintf("the faired head does not change with NPSHA between %.4g m and %.4g m, where the 3 %% point lies: its uncertainty is unbounded", x[k], x[k+1]))}
 	}
 	uH := math.Sqrt(uHead*uHead+0.97*0.97*uHead*uHead/float64(nref)) / slope
 	u := math.Hypot(uNPSH, uH)
-	if err := checkResults(op, false, result{"NPSH3", x3}, result{"its uncertainty", u}); err != nil {
+	if err := fail(op, similarity.CheckResults(false,
+		similarity.Result{Name: "NPSH3", Value: x3},
+		similarity.Result{Name: "its uncertainty", Value: u})); err != nil {
 		return NPSH3Result{}, err
 	}
 	L := func(v float64) quantity.Quantity { return quantity.New(v, quantity.Length) }

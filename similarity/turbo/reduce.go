@@ -6,6 +6,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
+	"similis.dev/similis/similarity"
 )
 
 // The band of test speeds, as fractions of the specified speed, within
@@ -60,39 +61,47 @@ type TestConditions struct {
 func ReducePoints(pts []TestPoint, c TestConditions) ([]ReducedPoint, error) {
 	const op = "reduction to the specified speed"
 	if len(pts) == 0 || len(pts) > MaxTestPoints {
-		return nil, invalid(op, "test points", fmt.Sprintf("%d test points: want 1 to %d", len(pts), MaxTestPoints))
+		return nil, &Error{Op: op, Fault: similarity.Invalid("test points", fmt.Sprintf("%d test points: want 1 to %d", len(pts), MaxTestPoints))}
 	}
-	if err := checkInputs(op, true, input{"specified speed", c.SpecifiedSpeed, quantity.AngularVelocity}, input{"density", c.Density, quantity.Density}); err != nil {
+	if err := fail(op, similarity.CheckInputs(true,
+		similarity.Input{Name: "specified speed", Value: c.SpecifiedSpeed, Dim: quantity.AngularVelocity},
+		similarity.Input{Name: "density", Value: c.Density, Dim: quantity.Density})); err != nil {
 		return nil, err
 	}
-	gq, err := gravityOr(op, c.Gravity)
-	if err != nil {
-		return nil, err
+	gq, bad := similarity.GravityOr(c.Gravity)
+	if bad != nil {
+		return nil, fail(op, bad)
 	}
 	rhoG := c.Density.Value() * gq.Value()
 	nsp := c.SpecifiedSpeed.Value()
 	out := make([]ReducedPoint, len(pts))
 	for i, p := range pts {
 		at := fmt.Sprintf("point %d", i)
-		if err := checkInputs(op, true,
-			input{at + ": flow", p.Flow, quantity.VolumeFlowRate}, input{at + ": head", p.Head, quantity.Length},
-			input{at + ": power", p.Power, quantity.Power}, input{at + ": speed", p.Speed, quantity.AngularVelocity},
-		); err != nil {
+		if err := fail(op, similarity.CheckInputs(true,
+			similarity.Input{Name: at + ": flow", Value: p.Flow, Dim: quantity.VolumeFlowRate},
+			similarity.Input{Name: at + ": head", Value: p.Head, Dim: quantity.Length},
+			similarity.Input{Name: at + ": power", Value: p.Power, Dim: quantity.Power},
+			similarity.Input{Name: at + ": speed", Value: p.Speed, Dim: quantity.AngularVelocity})); err != nil {
 			return nil, err
 		}
 		frac := p.Speed.Value() / nsp
 		if !(frac >= MinTestSpeedFraction && frac <= MaxTestSpeedFraction) {
-			return nil, outOfRange(op, at+": speed", fmt.Sprintf("%s: test speed %.4g %% of the specified speed, outside the %g %% to %g %% the affinity-law translation is used for (ISO 9906, from memory)",
-				at, 100*frac, 100*MinTestSpeedFraction, 100*MaxTestSpeedFraction))
+			return nil, &Error{Op: op, Fault: similarity.OutOfRange(at+": speed", fmt.Sprintf("%s: test speed %.4g %% of the specified speed, outside the %g %% to %g %% the affinity-law translation is used for (ISO 9906, from memory)",
+				at, 100*frac, 100*MinTestSpeedFraction, 100*MaxTestSpeedFraction))}
+
 		}
 		r := nsp / p.Speed.Value()
 		q, h, pw := p.Flow.Value()*r, p.Head.Value()*r*r, p.Power.Value()*r*r*r
 		eta := rhoG * q * h / pw
-		if err := checkResults(op, true, result{at + ": flow", q}, result{at + ": head", h}, result{at + ": power", pw}, result{at + ": efficiency", eta}); err != nil {
+		if err := fail(op, similarity.CheckResults(true,
+			similarity.Result{Name: at + ": flow", Value: q},
+			similarity.Result{Name: at + ": head", Value: h},
+			similarity.Result{Name: at + ": power", Value: pw},
+			similarity.Result{Name: at + ": efficiency", Value: eta})); err != nil {
 			return nil, err
 		}
 		if eta > 1 {
-			return nil, invalid(op, at+": efficiency", fmt.Sprintf("%s: efficiency ρgQH/P = %.4g is above 1: the flow, head and power readings disagree", at, eta))
+			return nil, &Error{Op: op, Fault: similarity.Invalid(at+": efficiency", fmt.Sprintf("%s: efficiency ρgQH/P = %.4g is above 1: the flow, head and power readings disagree", at, eta))}
 		}
 		out[i] = ReducedPoint{Flow: quantity.New(q, quantity.VolumeFlowRate), Head: quantity.New(h, quantity.Length),
 			Power: quantity.New(pw, quantity.Power), Efficiency: eta, SpeedRatio: r}
@@ -133,20 +142,21 @@ func FitPumpCurves(pts []ReducedPoint, opt CurveOptions) (PumpCurves, error) {
 		maxOrder = 3
 	}
 	if maxOrder < 1 || maxOrder > fit.MaxOrder {
-		return PumpCurves{}, invalid(op, "maximum order", fmt.Sprintf("maximum order %d: want 1 to %d", maxOrder, fit.MaxOrder))
+		return PumpCurves{}, &Error{Op: op, Fault: similarity.Invalid("maximum order", fmt.Sprintf("maximum order %d: want 1 to %d", maxOrder, fit.MaxOrder))}
 	}
 	if len(pts) > MaxTestPoints {
-		return PumpCurves{}, invalid(op, "test points", fmt.Sprintf("%d points: want at most %d", len(pts), MaxTestPoints))
+		return PumpCurves{}, &Error{Op: op, Fault: similarity.Invalid("test points", fmt.Sprintf("%d points: want at most %d", len(pts), MaxTestPoints))}
 	}
 	q := make([]float64, len(pts))
 	h, p, e := make([]float64, len(pts)), make([]float64, len(pts)), make([]float64, len(pts))
 	for i, r := range pts {
-		if err := checkInputs(op, true, input{fmt.Sprintf("point %d: flow", i), r.Flow, quantity.VolumeFlowRate},
-			input{fmt.Sprintf("point %d: head", i), r.Head, quantity.Length}, input{fmt.Sprintf("point %d: power", i), r.Power, quantity.Power}); err != nil {
+		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: fmt.Sprintf("point %d: flow", i), Value: r.Flow, Dim: quantity.VolumeFlowRate},
+			similarity.Input{Name: fmt.Sprintf("point %d: head", i), Value: r.Head, Dim: quantity.Length},
+			similarity.Input{Name: fmt.Sprintf("point %d: power", i), Value: r.Power, Dim: quantity.Power})); err != nil {
 			return PumpCurves{}, err
 		}
 		if !(r.Efficiency > 0 && r.Efficiency <= 1) {
-			return PumpCurves{}, invalid(op, fmt.Sprintf("point %d: efficiency", i), fmt.Sprintf("point %d: efficiency %v is not in (0, 1]", i, r.Efficiency))
+			return PumpCurves{}, &Error{Op: op, Fault: similarity.Invalid(fmt.Sprintf("point %d: efficiency", i), fmt.Sprintf("point %d: efficiency %v is not in (0, 1]", i, r.Efficiency))}
 		}
 		q[i], h[i], p[i], e[i] = r.Flow.Value(), r.Head.Value(), r.Power.Value(), r.Efficiency
 	}
@@ -163,7 +173,7 @@ func FitPumpCurves(pts []ReducedPoint, opt CurveOptions) (PumpCurves, error) {
 	}{{"Q–H curve", h, &c.Head}, {"Q–P curve", p, &c.Power}, {"Q–η curve", e, &c.Efficiency}} {
 		pf, err := fit.SelectPoly(q, f.y, maxOrder, crit, fo)
 		if err != nil {
-			return PumpCurves{}, wrap(op, f.name, "the "+f.name, err)
+			return PumpCurves{}, &Error{Op: op, Fault: similarity.Caused(f.name, "the "+f.name, err)}
 		}
 		*f.dst = pf
 	}

@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 )
 
 // Diameters are a model's and a prototype's impeller or runner diameters
@@ -21,7 +22,9 @@ type Diameters struct {
 // hydraulic machines).
 func MoodyStepUp(etaModel float64, d Diameters, exponent float64) (float64, error) {
 	dModel, dProto := d.Model, d.Prototype
-	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: "Moody step-up", Reason: r} }
+	m := func(r string) error {
+		return &Error{Op: "Moody step-up", Fault: similarity.Invalid("", r)}
+	}
 	if !(etaModel > 0 && etaModel < 1) {
 		return 0, m(fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))
 	}
@@ -65,11 +68,8 @@ const (
 
 // String names the method.
 func (m StepUpMethod) String() string {
-	switch m {
-	case StepUpAtBEP:
-		return "the best-efficiency-point gain added at every point (common practice; IEC 60193's approach)"
-	case StepUpEachPoint:
-		return "the formula applied at each point"
+	if m == StepUpAtBEP || m == StepUpEachPoint {
+		return [...]string{"the best-efficiency-point gain added at every point (common practice; IEC 60193's approach)", "the formula applied at each point"}[m]
 	}
 	return fmt.Sprintf("StepUpMethod(%d)", uint8(m))
 }
@@ -107,7 +107,7 @@ func MoodyCurve(etaModel []float64, d Diameters, exponent float64, method StepUp
 				return StepUp{}, err
 			}
 		default:
-			return StepUp{}, &Error{Class: quantity.ErrInvalid, Op: "Moody step-up", Reason: "unknown " + method.String()}
+			return StepUp{}, &Error{Op: "Moody step-up", Fault: similarity.Invalid("", "unknown "+method.String())}
 		}
 	}
 	return out, nil
@@ -117,12 +117,12 @@ func MoodyCurve(etaModel []float64, d Diameters, exponent float64, method StepUp
 // and 1) and returns its StepUp with the best-efficiency point found.
 func newStepUp(method string, etaModel []float64, m StepUpMethod) (StepUp, error) {
 	if len(etaModel) == 0 {
-		return StepUp{}, &Error{Class: quantity.ErrInvalid, Op: method, Reason: "no efficiency points"}
+		return StepUp{}, &Error{Op: method, Fault: similarity.Invalid("", "no efficiency points")}
 	}
 	out := StepUp{Method: m, Efficiency: make([]float64, len(etaModel))}
 	for i, e := range etaModel {
 		if !(e > 0 && e < 1) {
-			return StepUp{}, &Error{Class: quantity.ErrInvalid, Op: method, Reason: fmt.Sprintf("point %d: model efficiency %v is not between 0 and 1", i, e)}
+			return StepUp{}, &Error{Op: method, Fault: similarity.Invalid("", fmt.Sprintf("point %d: model efficiency %v is not between 0 and 1", i, e))}
 		}
 		if e > etaModel[out.BEP] {
 			out.BEP = i

@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"similis.dev/similis/quantity"
+	"similis.dev/similis/similarity"
 )
 
 // PumpCaution accompanies every pump or turbine result carried from a
@@ -42,7 +43,9 @@ type ReynoldsNumbers struct {
 // efficiency η_M + Δη, and Δη.
 func IECStepUp(etaModel float64, re ReynoldsNumbers) (etaProto, gain float64, err error) {
 	reM, reP := re.Model, re.Prototype
-	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: "IEC 60193 step-up", Reason: r} }
+	m := func(r string) error {
+		return &Error{Op: "IEC 60193 step-up", Fault: similarity.Invalid("", r)}
+	}
 	if !(etaModel > 0 && etaModel < 1) {
 		return 0, 0, m(fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))
 	}
@@ -62,10 +65,10 @@ func IECStepUp(etaModel float64, re ReynoldsNumbers) (etaProto, gain float64, er
 func AckeretStepUp(etaModel float64, re ReynoldsNumbers) (float64, error) {
 	reM, reP := re.Model, re.Prototype
 	if !(etaModel > 0 && etaModel < 1) {
-		return 0, &Error{Class: quantity.ErrInvalid, Op: "Ackeret step-up", Reason: fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel)}
+		return 0, &Error{Op: "Ackeret step-up", Fault: similarity.Invalid("", fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))}
 	}
 	if !(reM > 0 && reP >= reM) || math.IsInf(reP, 0) {
-		return 0, &Error{Class: quantity.ErrInvalid, Op: "Ackeret step-up", Reason: fmt.Sprintf("Reynolds numbers %g (model) and %g (prototype): want 0 < Re_M ≤ Re_P, finite", reM, reP)}
+		return 0, &Error{Op: "Ackeret step-up", Fault: similarity.Invalid("", fmt.Sprintf("Reynolds numbers %g (model) and %g (prototype): want 0 < Re_M ≤ Re_P, finite", reM, reP))}
 	}
 	return 1 - (1-etaModel)*(0.5+0.5*math.Pow(reM/reP, 0.2)), nil
 }
@@ -88,7 +91,7 @@ func AckeretStepUp(etaModel float64, re ReynoldsNumbers) (float64, error) {
 func FanStepUp(etaModel float64, re ReynoldsNumbers) (eta, change float64, err error) {
 	reM, reP := re.Model, re.Prototype
 	m := func(r string) error {
-		return &Error{Class: quantity.ErrInvalid, Op: "fan efficiency conversion", Reason: r}
+		return &Error{Op: "fan efficiency conversion", Fault: similarity.Invalid("", r)}
 	}
 	if !(etaModel > 0 && etaModel < 1) {
 		return 0, 0, m(fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))
@@ -121,7 +124,7 @@ func FanCurve(etaModel []float64, re ReynoldsNumbers) (StepUp, error) {
 	for i, e := range etaModel {
 		out.Efficiency[i] = e + out.Gain
 		if !(out.Efficiency[i] > 0 && out.Efficiency[i] < 1) {
-			return StepUp{}, &Error{Class: quantity.ErrInvalid, Op: "fan efficiency conversion", Reason: fmt.Sprintf("point %d: converted efficiency %v is not between 0 and 1", i, out.Efficiency[i])}
+			return StepUp{}, &Error{Op: "fan efficiency conversion", Fault: similarity.Invalid("", fmt.Sprintf("point %d: converted efficiency %v is not between 0 and 1", i, out.Efficiency[i]))}
 		}
 	}
 	return out, nil
@@ -167,16 +170,19 @@ type NPSHInput struct {
 // pressure (ISO 9906, IEC 60193). A result out of the range of a float64
 // is a *Error of class quantity.ErrRange. See PumpCaution.
 func NPSH(in NPSHInput) (quantity.Quantity, error) {
-	m := func(r string) error { return &Error{Class: quantity.ErrInvalid, Op: "NPSH", Reason: r} }
-	if err := checkInputs("NPSH", false,
-		input{"pressure", in.Pressure, quantity.Pressure}, input{"vapour pressure", in.VapourPressure, quantity.Pressure},
-		input{"density", in.Density, quantity.Density}, input{"velocity", in.Velocity, quantity.Velocity},
-	); err != nil {
+	m := func(r string) error {
+		return &Error{Op: "NPSH", Fault: similarity.Invalid("", r)}
+	}
+	if err := fail("NPSH", similarity.CheckInputs(false,
+		similarity.Input{Name: "pressure", Value: in.Pressure, Dim: quantity.Pressure},
+		similarity.Input{Name: "vapour pressure", Value: in.VapourPressure, Dim: quantity.Pressure},
+		similarity.Input{Name: "density", Value: in.Density, Dim: quantity.Density},
+		similarity.Input{Name: "velocity", Value: in.Velocity, Dim: quantity.Velocity})); err != nil {
 		return quantity.Quantity{}, err
 	}
-	gq, err := gravityOr("NPSH", in.Gravity)
-	if err != nil {
-		return quantity.Quantity{}, err
+	gq, bad := similarity.GravityOr(in.Gravity)
+	if bad != nil {
+		return quantity.Quantity{}, fail("NPSH", bad)
 	}
 	g := gq.Value()
 	p, pv, rho, v := in.Pressure.Value(), in.VapourPressure.Value(), in.Density.Value(), in.Velocity.Value()
@@ -184,7 +190,7 @@ func NPSH(in NPSHInput) (quantity.Quantity, error) {
 		return quantity.Quantity{}, m("pressure, vapour pressure and density must be positive (absolute) and finite")
 	}
 	n := (p-pv)/(rho*g) + v*v/(2*g)
-	if err := checkResults("NPSH", false, result{"NPSH", n}); err != nil {
+	if err := fail("NPSH", similarity.CheckResults(false, similarity.Result{Name: "NPSH", Value: n})); err != nil {
 		return quantity.Quantity{}, err
 	}
 	return quantity.New(n, quantity.Length), nil
@@ -209,10 +215,10 @@ func Thoma(h Heads) (float64, error) {
 		return 0, err
 	}
 	if !(head.Value() > 0) || math.IsInf(head.Value(), 0) || math.IsNaN(npsh.Value()) || math.IsInf(npsh.Value(), 0) {
-		return 0, &Error{Class: quantity.ErrInvalid, Op: "Thoma number", Reason: fmt.Sprintf("NPSH %v and head %v: want a finite NPSH and a positive, finite head", npsh, head)}
+		return 0, &Error{Op: "Thoma number", Fault: similarity.Invalid("", fmt.Sprintf("NPSH %v and head %v: want a finite NPSH and a positive, finite head", npsh, head))}
 	}
 	sigma := npsh.Value() / head.Value()
-	return sigma, checkResults("Thoma number", false, result{"Thoma number σ", sigma})
+	return sigma, fail("Thoma number", similarity.CheckResults(false, similarity.Result{Name: "Thoma number σ", Value: sigma}))
 }
 
 // SuctionPressureFor returns the absolute static pressure the prototype
@@ -221,33 +227,33 @@ func Thoma(h Heads) (float64, error) {
 // prototype's own water temperature. Head, vapour pressure and density
 // must be positive and finite, the velocity finite. See PumpCaution.
 func SuctionPressureFor(sigma float64, head quantity.Quantity, vapour, density, velocity, gravity quantity.Quantity) (quantity.Quantity, error) {
-	if err := checkInputs("suction pressure", true,
-		input{"head", head, quantity.Length}, input{"vapour pressure", vapour, quantity.Pressure},
-		input{"density", density, quantity.Density},
-	); err != nil {
+	if err := fail("suction pressure", similarity.CheckInputs(true,
+		similarity.Input{Name: "head", Value: head, Dim: quantity.Length},
+		similarity.Input{Name: "vapour pressure", Value: vapour, Dim: quantity.Pressure},
+		similarity.Input{Name: "density", Value: density, Dim: quantity.Density})); err != nil {
 		return quantity.Quantity{}, err
 	}
-	if err := checkInputs("suction pressure", false, input{"velocity", velocity, quantity.Velocity}); err != nil {
+	if err := fail("suction pressure", similarity.CheckInputs(false, similarity.Input{Name: "velocity", Value: velocity, Dim: quantity.Velocity})); err != nil {
 		return quantity.Quantity{}, err
 	}
 	if v := velocity.Value(); math.IsNaN(v) || math.IsInf(v, 0) {
-		return quantity.Quantity{}, &Error{Class: quantity.ErrInvalid, Op: "suction pressure", Reason: "velocity must be finite"}
+		return quantity.Quantity{}, &Error{Op: "suction pressure", Fault: similarity.Invalid("", "velocity must be finite")}
 	}
-	gq, err := gravityOr("suction pressure", gravity)
-	if err != nil {
-		return quantity.Quantity{}, err
+	gq, bad := similarity.GravityOr(gravity)
+	if bad != nil {
+		return quantity.Quantity{}, fail("suction pressure", bad)
 	}
 	g := gq.Value()
 	if !(sigma >= 0) || math.IsInf(sigma, 0) {
-		return quantity.Quantity{}, &Error{Class: quantity.ErrInvalid, Op: "suction pressure", Reason: fmt.Sprintf("Thoma number %v", sigma)}
+		return quantity.Quantity{}, &Error{Op: "suction pressure", Fault: similarity.Invalid("", fmt.Sprintf("Thoma number %v", sigma))}
 	}
 	v := velocity.Value()
 	p := vapour.Value() + density.Value()*g*(sigma*head.Value()-v*v/(2*g))
-	if err := checkResults("suction pressure", false, result{"required absolute pressure", p}); err != nil {
+	if err := fail("suction pressure", similarity.CheckResults(false, similarity.Result{Name: "required absolute pressure", Value: p})); err != nil {
 		return quantity.Quantity{}, err
 	}
 	if !(p > 0) {
-		return quantity.Quantity{}, &Error{Class: quantity.ErrInvalid, Op: "suction pressure", Reason: fmt.Sprintf("the required absolute pressure %.4g Pa is not positive", p)}
+		return quantity.Quantity{}, &Error{Op: "suction pressure", Fault: similarity.Invalid("", fmt.Sprintf("the required absolute pressure %.4g Pa is not positive", p))}
 	}
 	return quantity.New(p, quantity.Pressure), nil
 }
@@ -285,7 +291,7 @@ func SpecificSpeedOf(omega, flow, head quantity.Quantity) (SpecificSpeeds, error
 	}
 	w, qv, h := omega.Value(), flow.Value(), head.Value()
 	if !(w > 0 && qv > 0 && h > 0) || math.IsInf(w+qv+h, 0) {
-		return SpecificSpeeds{}, &Error{Class: quantity.ErrInvalid, Op: "specific speed", Reason: "speed, flow and head must be positive and finite"}
+		return SpecificSpeeds{}, &Error{Op: "specific speed", Fault: similarity.Invalid("", "speed, flow and head must be positive and finite")}
 	}
 	return specificSpeeds(w * 60 / (2 * math.Pi) * math.Sqrt(qv) / math.Pow(h, 0.75))
 }
@@ -322,7 +328,7 @@ func SpecificSpeedDimensionless(omega float64) (SpecificSpeeds, error) {
 // specificSpeedIn checks a specific speed given in one form.
 func specificSpeedIn(form string, v float64) error {
 	if !(v > 0) || math.IsInf(v, 0) {
-		return &Error{Class: quantity.ErrInvalid, Op: "specific speed", Reason: fmt.Sprintf("%s = %v: want a positive, finite specific speed", form, v)}
+		return &Error{Op: "specific speed", Fault: similarity.Invalid("", fmt.Sprintf("%s = %v: want a positive, finite specific speed", form, v))}
 	}
 	return nil
 }
@@ -330,9 +336,10 @@ func specificSpeedIn(form string, v float64) error {
 // specificSpeeds returns the three forms from n_q, each checked.
 func specificSpeeds(nq float64) (SpecificSpeeds, error) {
 	s := SpecificSpeeds{Dimensionless: nq * dimensionlessPerMetric, Metric: nq, US: nq * usPerMetric}
-	if err := checkResults("specific speed", true,
-		result{"specific speed n_q", s.Metric}, result{"specific speed N_s", s.US}, result{"specific speed Ω_s", s.Dimensionless},
-	); err != nil {
+	if err := fail("specific speed", similarity.CheckResults(true,
+		similarity.Result{Name: "specific speed n_q", Value: s.Metric},
+		similarity.Result{Name: "specific speed N_s", Value: s.US},
+		similarity.Result{Name: "specific speed Ω_s", Value: s.Dimensionless})); err != nil {
 		return SpecificSpeeds{}, err
 	}
 	return s, nil

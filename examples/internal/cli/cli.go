@@ -1,8 +1,10 @@
-// Package cli holds what every example command does with its flags: a
-// numeric flag that refuses NaN, ±Inf and values outside the range that
-// the program can use, naming the flag, and an echo of user text that is
-// truncated and has its control bytes escaped, so a pasted megabyte or a
-// terminal escape sequence never comes back whole or raw.
+// Package cli holds what every example command does with its flags and
+// its exit: a numeric flag that refuses NaN, ±Inf and values outside the
+// range that the program can use, naming the flag; an echo of user text
+// that is truncated and has its control bytes escaped, so a pasted
+// megabyte or a terminal escape sequence never comes back whole or raw;
+// and Main, which runs the command and exits with status 2 after a usage
+// mistake and 1 after a failure of the job itself.
 package cli
 
 import (
@@ -11,6 +13,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"os"
 	"strconv"
 	"strings"
 	"unicode/utf8"
@@ -86,6 +89,40 @@ func FloatVar(fs *flag.FlagSet, name string, def, min, max float64, unit, usage 
 	f := &Float{V: def, Min: min, Max: max, Unit: unit}
 	fs.Var(f, name, fmt.Sprintf("%s (%s)", usage, f.rangeText()))
 	return &f.V
+}
+
+// NewFlagSet returns the flag set of the named command: it returns its
+// errors (flag.ContinueOnError), and its -h prints about, what the
+// program does and what its output means, then the flags.
+func NewFlagSet(name, about string) *flag.FlagSet {
+	fs := flag.NewFlagSet(name, flag.ContinueOnError)
+	fs.Usage = func() {
+		fmt.Fprint(fs.Output(), about)
+		fs.PrintDefaults()
+	}
+	return fs
+}
+
+// ParseFlags parses args as Parse does and refuses an argument left after
+// the flags with a usage error quoting it: the example commands take
+// flags only.
+func ParseFlags(fs *flag.FlagSet, w io.Writer, args []string) error {
+	if err := Parse(fs, w, args); err != nil {
+		return err
+	}
+	if fs.NArg() > 0 {
+		return &Error{Program: fs.Name(), Msg: fmt.Sprintf("unexpected argument %s: %s takes flags only", Quote(fs.Arg(0)), fs.Name())}
+	}
+	return nil
+}
+
+// Dir returns a usage error naming the flag unless path is an existing
+// directory.
+func Dir(flagName, path string) error {
+	if st, err := os.Stat(path); err != nil || !st.IsDir() {
+		return &Error{Msg: fmt.Sprintf("-%s %s: not a directory", flagName, Quote(path))}
+	}
+	return nil
 }
 
 // Parse parses args with fs, which must use flag.ContinueOnError. Usage
@@ -166,3 +203,26 @@ func sanitize(s string) string {
 // Sanitize returns s with control bytes escaped and cut to a bounded
 // length, for a message that must repeat user text.
 func Sanitize(s string) string { return sanitize(s) }
+
+// ExitCode returns the exit status for err, the error of a command's run,
+// and prints err, sanitized, to stderr after the command's name: 0 for
+// no error or -h (flag.ErrHelp: the usage is printed), 2 for a usage
+// mistake (an error that is or wraps a *Error), 1 for a failure of the
+// job itself.
+func ExitCode(stderr io.Writer, name string, err error) int {
+	if err == nil || errors.Is(err, flag.ErrHelp) {
+		return 0
+	}
+	fmt.Fprintln(stderr, name+":", Sanitize(err.Error()))
+	var ce *Error
+	if errors.As(err, &ce) {
+		return 2
+	}
+	return 1
+}
+
+// Main runs an example command: run with standard output and the
+// command-line arguments, then exit with ExitCode's status.
+func Main(name string, run func(w io.Writer, args []string) error) {
+	os.Exit(ExitCode(os.Stderr, name, run(os.Stdout, os.Args[1:])))
+}

@@ -3,6 +3,7 @@ package cli
 import (
 	"errors"
 	"flag"
+	"fmt"
 	"io"
 	"math"
 	"strings"
@@ -69,5 +70,49 @@ func TestHelp(t *testing.T) {
 	FloatVar(fs, "v", 1, 0, 100, "m/s", "speed")
 	if err := Parse(fs, &b, []string{"-h"}); !errors.Is(err, flag.ErrHelp) || !strings.Contains(b.String(), "speed (0 … 100 m/s)") {
 		t.Fatalf("help: %v\n%s", err, b.String())
+	}
+}
+
+// TestExitCode checks the exit statuses: 0 for success and -h, 2 for a
+// usage mistake (wrapped or not), 1 for a job failure; and that the
+// message printed names the command and has its control bytes escaped.
+func TestExitCode(t *testing.T) {
+	for _, c := range []struct {
+		err    error
+		want   int
+		stderr string
+	}{
+		{nil, 0, ""},
+		{flag.ErrHelp, 0, ""},
+		{&Error{Msg: "-scale 0: want 2 … 200"}, 2, "demo: -scale 0: want 2 … 200\n"},
+		{fmt.Errorf("parsing: %w", &Error{Msg: "bad"}), 2, "demo: parsing: bad\n"},
+		{errors.New("disk full\x1b[2J"), 1, "demo: disk full\\x1b[2J\n"},
+	} {
+		var sb strings.Builder
+		if got := ExitCode(&sb, "demo", c.err); got != c.want || sb.String() != c.stderr {
+			t.Errorf("ExitCode(%v) = %d, printed %q; want %d, %q", c.err, got, sb.String(), c.want, c.stderr)
+		}
+	}
+}
+
+// TestParseFlagsAndDir checks that a leftover argument and an -out that
+// is not a directory are usage errors quoting the text, and that -h
+// prints the about text before the flags.
+func TestParseFlagsAndDir(t *testing.T) {
+	fs := NewFlagSet("demo", "Usage: demo [flags]\n")
+	FloatVar(fs, "scale", 2, 1, 10, "", "scale")
+	var ce *Error
+	if err := ParseFlags(fs, io.Discard, []string{"-scale", "3", "extra\x1b"}); !errors.As(err, &ce) || ce.Msg != `unexpected argument "extra\x1b": demo takes flags only` {
+		t.Errorf("leftover argument: %v", err)
+	}
+	var sb strings.Builder
+	if err := ParseFlags(NewFlagSet("demo", "Usage: demo [flags]\n"), &sb, []string{"-h"}); !errors.Is(err, flag.ErrHelp) || !strings.HasPrefix(sb.String(), "Usage: demo [flags]\n") {
+		t.Errorf("-h: %v, printed %q", err, sb.String())
+	}
+	if err := Dir("out", t.TempDir()); err != nil {
+		t.Errorf("a directory refused: %v", err)
+	}
+	if err := Dir("out", "/nonexistent/dir"); !errors.As(err, &ce) || ce.Msg != `-out "/nonexistent/dir": not a directory` {
+		t.Errorf("no directory: %v", err)
 	}
 }
