@@ -96,11 +96,11 @@ func kernelQuantity(p *pipeQuantities) quantity.Quantity {
 // kernelSeries is kernelFloat written with whole-Series operations.
 func kernelSeries(s *pipeSeries) quantity.Quantity {
 	s.re.SetMul(s.rho, s.v).SetMul(s.re, s.d).SetDiv(s.re, s.mu)
-	s.t.SetDiv(s.eps, s.d).Scale(s.t, 1/3.7)
-	s.u.SetPowf(s.re, 0.9).SetInv(s.u).Scale(s.u, 5.74)
+	s.t.SetDiv(s.eps, s.d).SetScale(s.t, 1/3.7)
+	s.u.SetPowf(s.re, 0.9).SetInv(s.u).SetScale(s.u, 5.74)
 	s.t.SetAdd(s.t, s.u).SetLog10(s.t)
-	s.f.SetMul(s.t, s.t).SetInv(s.f).Scale(s.f, 0.25)
-	s.dp.SetDiv(s.l, s.d).SetMul(s.dp, s.f).SetMul(s.dp, s.rho).SetMul(s.dp, s.v).SetMul(s.dp, s.v).Scale(s.dp, 0.5)
+	s.f.SetMul(s.t, s.t).SetInv(s.f).SetScale(s.f, 0.25)
+	s.dp.SetDiv(s.l, s.d).SetMul(s.dp, s.f).SetMul(s.dp, s.rho).SetMul(s.dp, s.v).SetMul(s.dp, s.v).SetScale(s.dp, 0.5)
 	return s.dp.Sum()
 }
 

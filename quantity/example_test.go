@@ -52,7 +52,7 @@ func ExampleSeries() {
 	var q quantity.Series
 	q.SetMul(rho, v) // dynamic pressure ½ρV², no allocation once q has grown
 	q.SetMul(q, v)
-	q.Scale(q, 0.5)
+	q.SetScale(q, 0.5)
 	fmt.Printf("%.1f\n", q.Values())
 	fmt.Println(q.Dim().SIUnit(), q.Max())
 	// Output:

@@ -326,10 +326,3 @@ func (z *Series) SetExp(x Series) *Series {
 	return z.unary("take the exponential of", x, math.Exp)
 }
 
-// Scale sets z = f · x and returns z.
-//
-// Deprecated: Use SetScale; in-place Series operations are named Set…,
-// so that a verb (Add, Scale) means one thing across the module: a value
-// method returning a new value. Scale stays until its last caller in the
-// module, in similarity, has moved to SetScale.
-func (z *Series) Scale(x Series, f float64) *Series { return z.SetScale(x, f) }

@@ -54,7 +54,7 @@ func TestSeriesMatchesQuantity(t *testing.T) {
 		check("Log10", z.SetLog10(r), func(i int) q.Quantity { return q.Log10(r.At(i)) })
 		check("Log", z.SetLog(r), func(i int) q.Quantity { return q.Log(r.At(i)) })
 		var small q.Series
-		small.Scale(q.NewSeries(bv, q.Dimensionless), 1e-3)
+		small.SetScale(q.NewSeries(bv, q.Dimensionless), 1e-3)
 		check("Exp", z.SetExp(small), func(i int) q.Quantity { return q.Exp(q.Scalar(bv[i] * 1e-3)) })
 		var sum q.Quantity = q.New(0, da)
 		for i := range n {

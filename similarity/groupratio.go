@@ -1,6 +1,7 @@
 package similarity
 
 import (
+	"similis.dev/similis/internal/exact"
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 )
@@ -52,7 +53,7 @@ func (s *Solution) groupRatio(g pigroups.Group) GroupRatio {
 			return GroupRatio{Symbol: g.Format(quantity.Unicode), Ratio: ratio(exps)}
 		}
 		named[i] = x
-		lcm = lcm / gcd(lcm, x.Den()) * x.Den()
+		lcm = lcm / exact.GCD(lcm, x.Den()) * x.Den()
 	}
 	out := GroupRatio{Symbol: m.Symbol, Name: m.Name, Ratio: ratio(named)}
 	if lcm > 1 {
@@ -64,16 +65,6 @@ func (s *Solution) groupRatio(g pigroups.Group) GroupRatio {
 		out.WholeRatio = ratio(whole)
 	}
 	return out
-}
-
-func gcd(a, b int64) int64 {
-	for b != 0 {
-		a, b = b, a%b
-	}
-	if a < 0 {
-		return -a
-	}
-	return a
 }
 
 // FloatingGroups returns the groups of the problem's default Pi set that

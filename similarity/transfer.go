@@ -72,7 +72,7 @@ func (s *Solution) SeriesToPrototype(dst *quantity.Series, m quantity.Series) er
 	if err != nil {
 		return err
 	}
-	dst.Scale(m, 1/r)
+	dst.SetScale(m, 1/r)
 	return nil
 }
 
@@ -86,7 +86,7 @@ func (s *Solution) SeriesToModel(dst *quantity.Series, p quantity.Series) error 
 	if err != nil {
 		return err
 	}
-	dst.Scale(p, r)
+	dst.SetScale(p, r)
 	return nil
 }
 
