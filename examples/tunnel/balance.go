@@ -85,11 +85,14 @@ var windOn = []reading{
 // The run's invented conditions and the model's geometry (the 1:12
 // model: wing 38 m²/144, mean chord 2.4 m/12, span 18.6 m/12).
 const (
-	runQ         = 2750.0 // Pa, uncorrected dynamic pressure
-	runMach      = 0.20
-	modelChord   = 0.2  // m
-	modelSpan    = 1.55 // m
-	mrcAhead     = 0.04 // m: the quarter point of the mean chord ahead of the balance centre
+	runQ       = 2750.0 // Pa, uncorrected dynamic pressure
+	runMach    = 0.20
+	modelChord = 0.2        // m
+	modelSpan  = 1.55       // m
+	mrcAhead   = 0.04       // m: the quarter point of the mean chord ahead of the balance centre
+	modelArea  = 38.0 / 144 // m², the 1:12 model's wing
+	// assumedSlope, dC_L/dα per degree, starts the curvature correction's
+	// iteration (invented); the fitted slope replaces it.
 	assumedSlope = 0.080
 )
 
@@ -103,7 +106,10 @@ type Run struct {
 	// component's calibrated range, and MaxComponent that component.
 	MaxShare     float64
 	MaxComponent tunnel.Component
-	PNG, SVG     [2]string // the lift curve's and the polar's files
+	// Slope is the lift slope, per degree, the curvature correction used:
+	// the one fitted to a first reduction with assumedSlope.
+	Slope    float64
+	PNG, SVG [2]string // the lift curve's and the polar's files
 }
 
 // reduceRun reduces the invented run, prints its tables and the fitted
@@ -143,25 +149,65 @@ func reduceRun(w io.Writer, dir string, alo, ahi, width, height, dpi float64) (*
 	}
 	fmt.Fprintf(w, "; rms residual %.3f N, %.4f N·m\n", t.ForceRMS, t.MomentRMS)
 
-	area := 38.0 / 144
+	// The streamline-curvature correction needs the lift slope: the run is
+	// reduced once with an assumed slope, the polar fitted, and the run
+	// reduced again with the fitted slope, which is the one printed and
+	// used.
+	var table strings.Builder
+	slope := assumedSlope
+	for pass := range 2 {
+		table.Reset()
+		run.Points, run.MaxShare = nil, 0
+		if run.Polar, err = reducePoints(&table, run, cal, comps, slope, alo, ahi); err != nil {
+			return nil, err
+		}
+		if pass == 0 {
+			slope = run.Polar.LiftSlope.Value
+		}
+	}
+	run.Slope = slope
+	fmt.Fprintf(w, "  moments to the quarter point of the mean chord, %.0f mm ahead of the balance centre; S = %.4f m², c̄ = %.2f m, b = %.2f m\n",
+		1e3*mrcAhead, modelArea, modelChord, modelSpan)
+	fmt.Fprintf(w, "  run at q_u = %.0f Pa, Ma %.2f; walls: closed 2.0 × 1.5 m (C = 3.00 m²), K·τ₁ = 0.86, δ = 0.12, τ₂ = 0.12, τ₂,t = 0.55;\n",
+		runQ, runMach)
+	fmt.Fprintf(w, "  the curvature correction's lift slope a = %.4f/° is the fitted one below (the run reduced first with a = %.3f/° assumed, then again with the fitted slope)\n",
+		slope, assumedSlope)
+	fmt.Fprint(w, table.String())
+	p := run.Polar
+	aspect := modelSpan * modelSpan / modelArea
+	fmt.Fprintf(w, "\nPolar fitted to the %d corrected points with %g° ≤ α ≤ %g° (the linear range; 95 %% intervals):\n", p.N, alo, ahi)
+	fmt.Fprintf(w, "  lift slope dC_L/dα = %.4f /° (%.4f … %.4f), zero-lift angle α₀ = %.2f° (%.2f … %.2f)\n",
+		p.LiftSlope.Value, p.LiftSlope.Interval[0], p.LiftSlope.Interval[1], p.ZeroLiftAlpha.Value, p.ZeroLiftAlpha.Interval[0], p.ZeroLiftAlpha.Interval[1])
+	fmt.Fprintf(w, "  parabolic polar C_D = C_D0 + K·C_L²: C_D0 = %.5f (%.5f … %.5f), K = %.4f (%.4f … %.4f); Oswald factor e = 1/(π·A·K) = %.2f at A = b²/S = %.2f\n",
+		p.CD0.Value, p.CD0.Interval[0], p.CD0.Interval[1], p.K.Value, p.K.Interval[0], p.K.Interval[1], 1/(math.Pi*aspect*p.K.Value), aspect)
+	if d := p.LiftSlope.Value - slope; math.Abs(d) > 0.01*slope {
+		fmt.Fprintf(w, "  the curvature correction used a = %.4f/°; the refitted slope differs by %.1f %%: the correction has not settled\n", slope, 100*d/slope)
+	}
+	if run.PNG, run.SVG, err = plotPolar(dir, run, width, height, dpi); err != nil {
+		return nil, err
+	}
+	fmt.Fprintf(w, "  plots (C_L against α, and C_D against C_L; filled circles fitted, open triangles outside the linear range; lines the fits):\n    %s, %s\n    %s, %s\n",
+		run.PNG[0], run.SVG[0], run.PNG[1], run.SVG[1])
+	return run, nil
+}
+
+// reducePoints reduces the wind-on points with the curvature correction's
+// lift slope, writes their table to w and fits the polar.
+func reducePoints(w io.Writer, run *Run, cal *tunnel.Calibration, comps []tunnel.ComponentRange, slope, alo, ahi float64) (tunnel.Polar, error) {
 	red := tunnel.Reduction{
 		Calibration: cal, Tare: run.Tare,
 		Offset:    tunnel.Offset{X: q.New(mrcAhead, q.Length)},
-		Reference: tunnel.Reference{Area: q.New(area, q.Area), Span: q.New(modelSpan, q.Length), Chord: q.New(modelChord, q.Length)},
+		Reference: tunnel.Reference{Area: q.New(modelArea, q.Area), Span: q.New(modelSpan, q.Length), Chord: q.New(modelChord, q.Length)},
 		Walls: tunnel.Model3D{TunnelArea: q.New(3.0, q.Area), ModelVolume: q.New(0.010, q.Volume), ShapeFactor: 0.86, Delta: 0.12,
-			CurvatureFactor: 0.12, LiftSlope: assumedSlope, TailCurvatureFactor: 0.55, TailMomentSlope: -0.025},
+			CurvatureFactor: 0.12, LiftSlope: slope, TailCurvatureFactor: 0.55, TailMomentSlope: -0.025},
 	}
-	fmt.Fprintf(w, "  moments to the quarter point of the mean chord, %.0f mm ahead of the balance centre; S = %.4f m², c̄ = %.2f m, b = %.2f m\n",
-		1e3*mrcAhead, area, modelChord, modelSpan)
-	fmt.Fprintf(w, "  run at q_u = %.0f Pa, Ma %.2f; walls: closed 2.0 × 1.5 m, K·τ₁ = 0.86, δ = 0.12, τ₂ = 0.12 (with a = %.3f/° assumed), τ₂,t = 0.55\n",
-		runQ, runMach, assumedSlope)
 	fmt.Fprintln(w, "\n  pitch     NF       AF       PM   |        uncorrected, q_u         |   corrected for the walls, q")
 	fmt.Fprintln(w, "   (°)     (N)      (N)    (N·m)  |   α (°)    C_L     C_D      C_m  |   α (°)    C_L     C_D     C_m¼")
 	var al, cl, cd []float64
 	for _, r := range windOn {
 		p, err := red.Reduce(tunnel.Point{Readings: r.r[:], Attitude: tunnel.Attitude{Pitch: r.pitch}, DynamicPressure: q.New(runQ, q.Pressure), Mach: runMach})
 		if err != nil {
-			return nil, fmt.Errorf("point at %g°: %w", r.pitch, err)
+			return tunnel.Polar{}, fmt.Errorf("point at %g°: %w", r.pitch, err)
 		}
 		run.Points = append(run.Points, p)
 		for _, c := range comps {
@@ -179,26 +225,7 @@ func reduceRun(w io.Writer, dir string, alo, ahi, width, height, dpi float64) (*
 	fmt.Fprintln(w, "  (NF, AF, PM: balance loads at its centre, weight included; α from the pitch, β = 0; C_m about the quarter chord)")
 	fmt.Fprintf(w, "  largest load of the run: %v at %.0f %% of its calibrated range — the balance's rated loads and the facility's rules govern every run\n",
 		run.MaxComponent, 100*run.MaxShare)
-
-	if run.Polar, err = tunnel.FitPolar(al, cl, cd, alo, ahi, 0.95); err != nil {
-		return nil, err
-	}
-	p := run.Polar
-	aspect := modelSpan * modelSpan / area
-	fmt.Fprintf(w, "\nPolar fitted to the %d corrected points with %g° ≤ α ≤ %g° (the linear range; 95 %% intervals):\n", p.N, alo, ahi)
-	fmt.Fprintf(w, "  lift slope dC_L/dα = %.4f /° (%.4f … %.4f), zero-lift angle α₀ = %.2f° (%.2f … %.2f)\n",
-		p.LiftSlope.Value, p.LiftSlope.Interval[0], p.LiftSlope.Interval[1], p.ZeroLiftAlpha.Value, p.ZeroLiftAlpha.Interval[0], p.ZeroLiftAlpha.Interval[1])
-	fmt.Fprintf(w, "  parabolic polar C_D = C_D0 + K·C_L²: C_D0 = %.5f (%.5f … %.5f), K = %.4f (%.4f … %.4f); Oswald factor e = 1/(π·A·K) = %.2f at A = b²/S = %.2f\n",
-		p.CD0.Value, p.CD0.Interval[0], p.CD0.Interval[1], p.K.Value, p.K.Interval[0], p.K.Interval[1], 1/(math.Pi*aspect*p.K.Value), aspect)
-	if d := p.LiftSlope.Value - assumedSlope; math.Abs(d) > 0.05*assumedSlope {
-		fmt.Fprintf(w, "  the curvature correction assumed a = %.3f/°; the fitted slope differs by %.0f %%: rerun with it\n", assumedSlope, 100*d/assumedSlope)
-	}
-	if run.PNG, run.SVG, err = plotPolar(dir, run, width, height, dpi); err != nil {
-		return nil, err
-	}
-	fmt.Fprintf(w, "  plots (C_L against α, and C_D against C_L; filled circles fitted, open triangles outside the linear range; lines the fits):\n    %s, %s\n    %s, %s\n",
-		run.PNG[0], run.SVG[0], run.PNG[1], run.SVG[1])
-	return run, nil
+	return tunnel.FitPolar(al, cl, cd, alo, ahi, 0.95)
 }
 
 // plotPolar writes the lift curve and the drag polar as PNG and SVG.

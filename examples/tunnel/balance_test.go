@@ -75,7 +75,9 @@ func TestTareByHand(t *testing.T) {
 // C_m,u = m'/(q_u S·0.2). Walls at Ma 0.2 (β² = 0.96): ε_sb =
 // 0.86·0.010/(3^1.5·β³), ε_wb = (S/12)·C_D,u·(1 + 0.4·0.04)/β²,
 // q/q_u = (1 + ε)²(1 − 0.04ε); C_L' = C_L,u/(q/q_u), Δα = 57.3·0.12·(S/3)·C_L',
-// α = 4 + 1.12·Δα, C_L = C_L' − 0.080·0.12·Δα.
+// α = 4 + 1.12·Δα, C_L = C_L' − a·0.12·Δα with a the slope fitted to a
+// first reduction with 0.080/° assumed (printed as 0.0803/°), the run
+// reduced again with it: the refit gives the same slope to 1e-4/°.
 func TestReductionByHand(t *testing.T) {
 	var out bytes.Buffer
 	r, err := evaluate(&out, outDir(t))
@@ -101,11 +103,17 @@ func TestReductionByHand(t *testing.T) {
 		got, want float64
 	}{
 		{"C_L,u", p.Uncorrected.CL, clu}, {"C_D,u", p.Uncorrected.CD, cdu}, {"C_m,u", p.Uncorrected.Cm, cmu},
-		{"α", p.Corrected.Alpha, 4 + 1.12*da}, {"C_L", p.Corrected.CL, clq - 0.080*0.12*da},
+		{"α", p.Corrected.Alpha, 4 + 1.12*da}, {"C_L", p.Corrected.CL, clq - r.Run.Slope*0.12*da},
 	} {
 		if math.Abs(c.got-c.want) > 1e-12 {
 			t.Errorf("%s = %.10g, by hand %.10g", c.name, c.got, c.want)
 		}
+	}
+	if a := r.Run.Slope; a == assumedSlope || math.Abs(a-r.Run.Polar.LiftSlope.Value) > 1e-4 || math.Abs(a-0.0803) > 5e-5 {
+		t.Errorf("curvature slope %v: want the fitted slope (0.0803/°), not the assumed %v; refit %v", a, assumedSlope, r.Run.Polar.LiftSlope.Value)
+	}
+	if !strings.Contains(out.String(), "the curvature correction's lift slope a = 0.0803/° is the fitted one below") {
+		t.Errorf("the curvature slope's line is not printed:\n%s", out.String())
 	}
 	// The printed row at 4°: NF 304.91 N, C_L,u 0.4808, α 4.324°, C_L 0.4756.
 	if !strings.Contains(out.String(), "    4.0   304.91") || !strings.Contains(out.String(), "0.4808") {

@@ -28,6 +28,7 @@ package main
 import (
 	"fmt"
 	"io"
+	"math"
 	"os"
 	"slices"
 	"strings"
@@ -55,6 +56,9 @@ type Result struct {
 	Margin                 q.Quantity // the cryogenic test section's margin to nitrogen condensation
 	Section                tunnel.Corrected2D
 	Model                  tunnel.Corrected3D
+	// ModelSlope is the lift slope, per degree, of the complete model's
+	// curvature correction: the run's fitted slope at the test Mach number.
+	ModelSlope float64
 	// SectionErr and ModelErr are the corrections' refusals (above
 	// Ma 0.8, or a model too large for the section), printed instead.
 	SectionErr, ModelErr error
@@ -76,7 +80,7 @@ const (
 	balanceLimit = 4000.0 // N
 )
 
-const about = `Usage: go run ./examples/tunnel [flags]
+const about = `Usage: tunnel [flags]
 
 tunnel plans wind-tunnel tests of an invented high-altitude survey aircraft.
 
@@ -182,8 +186,8 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		return nil, err
 	}
 	r.Ordinary = ground
-	fmt.Fprintf(w, "ordinary tunnel: total %s; test section at Ma %.2f: static T = %.2f K, p = %.0f Pa, ρ = %.4f kg/m³ (isentropic relations)\n\n",
-		intake, *mach, ground.Temperature.Value(), ground.Pressure.Value(), ground.Density.Value())
+	fmt.Fprintf(w, "ordinary tunnel: total T₀ = %.2f K, p₀ = %.0f Pa (absolute); test section at Ma %.2f: static T = %.2f K, p = %.0f Pa (absolute), ρ = %.4f kg/m³ (isentropic relations)\n\n",
+		intake.Temperature.Value(), intake.Pressure.Value(), *mach, ground.Temperature.Value(), ground.Pressure.Value(), ground.Density.Value())
 	plan := similarity.NewPlan(p).Fix("c", 1 / *scale).
 		Fix("a", ground.SpeedOfSound.Value()/flight.SpeedOfSound.Value()).
 		Fix("rho", ground.Density.Value()/flight.Density.Value()).
@@ -229,19 +233,20 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		name string
 		gas  fluids.IdealGas
 		c    tunnel.Condition
-	}{{"pressurised tunnel (total 280–320 K, ≤ 4 bar)", air, r.Pressurised}, {"cryogenic tunnel (total ≥ 110 K, 1–4.5 bar)", n2, r.Cryogenic}}
+	}{{"pressurised tunnel (total 280–320 K, ≤ 4 bar absolute)", air, r.Pressurised}, {"cryogenic tunnel (total ≥ 110 K, 1–4.5 bar absolute)", n2, r.Cryogenic}}
 	for _, t := range tunnels {
 		fmt.Fprintf(w, "  %s, gas: %s (ideal gas, R = %.2f J/(kg·K), γ = %.1f, Sutherland viscosity):\n", t.name, t.c.Gas, t.gas.R, t.gas.Gamma)
-		fmt.Fprintf(w, "    total T₀ = %.1f K, p₀ = %.3f bar; static T = %.1f K, p = %.3f bar; V = %.1f m/s; Re_m/Re = %.3f — %s (set by: %s)\n",
+		fmt.Fprintf(w, "    total T₀ = %.1f K, p₀ = %.3f bar (absolute); static T = %.1f K, p = %.3f bar (absolute); V = %.1f m/s; Re_m/Re = %.3f — %s (set by: %s)\n",
 			t.c.Total.Temperature.Value(), t.c.Total.Pressure.Value()/1e5,
 			t.c.Temperature.Value(), t.c.Pressure.Value()/1e5, t.c.Velocity.Value(), t.c.ReynoldsRatio, t.c.Note, strings.Join(t.c.Binding, ", "))
 	}
-	fmt.Fprintln(w, "  (limits are total conditions; static = total by the isentropic relations of a perfect gas, γ = 1.4)")
+	fmt.Fprintln(w, "  (limits are total conditions, pressures absolute throughout; static = total by the isentropic relations of a perfect gas, γ = 1.4)")
 	if r.Margin, err = fluids.CondensationMargin(r.Cryogenic.Temperature, r.Cryogenic.Pressure); err != nil {
 		return nil, err
 	}
-	fmt.Fprintf(w, "  condensation: the cryogenic tunnel runs in nitrogen; at the static %.1f K and %.3f bar it stays %.0f K above saturation (Span et al.)\n",
+	fmt.Fprintf(w, "  condensation: the cryogenic tunnel runs in nitrogen; at the free-stream static %.1f K and %.3f bar (absolute) it stays %.0f K above saturation (Span et al.);\n",
 		r.Cryogenic.Temperature.Value(), r.Cryogenic.Pressure.Value()/1e5, r.Margin.Value())
+	fmt.Fprintln(w, "    that margin is the free stream's only: local supersonic expansion over the model lowers the static temperature and reduces it")
 
 	// Loads on the model: q = (γ/2)·p·Ma² at each test section's static
 	// pressure, times C_L and the model's wing area.
@@ -284,26 +289,38 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	// The complete model in the ordinary tunnel's closed 2.0 × 1.5 m
 	// section (invented readings and chart factors); its volume is
 	// 0.010 m³ at 1:12 and scales with the cube of the model's size.
+	// The polar run is reduced first (its text printed below) so that the
+	// complete model's curvature correction can use its fitted lift slope.
+	var runText strings.Builder
+	if r.Run, err = reduceRun(&runText, *out, *alo, *ahi, *width, *height, *dpi); err != nil {
+		return nil, err
+	}
+	// The lift slope at the test Mach number: the run's fitted slope (at
+	// Ma 0.20) raised by the Prandtl–Glauert factor β(0.20)/β(Ma).
+	bRun, bTest := math.Sqrt(1-runMach*runMach), math.Sqrt(1-*mach**mach)
+	r.ModelSlope = r.Run.Polar.LiftSlope.Value * bRun / bTest
+	span := modelSpan * 12 / *scale
 	vol := 0.010 * (12 / *scale) * (12 / *scale) * (12 / *scale)
 	m3 := tunnel.Model3D{WingArea: q.New(area, q.Area), TunnelArea: q.New(3.0, q.Area), ModelVolume: q.New(vol, q.Volume),
 		ShapeFactor: 0.86, Delta: 0.12, Alpha: 3.0, CL: cruiseCL, CD: 0.035, CM: -0.030,
-		CurvatureFactor: 0.12, LiftSlope: 0.085, TailCurvatureFactor: 0.55, TailMomentSlope: -0.025, Mach: *mach}
+		CurvatureFactor: 0.12, LiftSlope: r.ModelSlope, TailCurvatureFactor: 0.55, TailMomentSlope: -0.025, Mach: *mach}
 	fmt.Fprintf(w, "\nComplete model at Ma %.2f in a closed 2.0 × 1.5 m section (invented readings; K·τ₁ = %.2f, δ = %.2f, τ₂ read from the charts):\n",
 		*mach, m3.ShapeFactor, m3.Delta)
+	fmt.Fprintf(w, "  used: test-section cross-section C = %.2f m²; the 1:%g model's reference (wing) area S = %.4f m², span b = %.3f m, volume %.4f m³\n",
+		m3.TunnelArea.Value(), *scale, area, span, vol)
 	if r.Model, r.ModelErr = tunnel.CorrectWalls3D(m3); r.ModelErr != nil {
 		fmt.Fprintf(w, "  not applied: %v\n", r.ModelErr)
 	} else {
 		c3 := r.Model
 		fmt.Fprintf(w, "  ε_sb = %.5f, ε_wb = %.5f (β = %.4f); q = %.4f·q_u; α %.2f° → %.3f°, C_L %.4f → %.4f, C_D %.5f → %.5f (ΔC_D,i = %.5f)\n",
 			c3.SolidBlock, c3.WakeBlock, c3.Beta, c3.DynamicPressureFactor, m3.Alpha, c3.Alpha, m3.CL, c3.CL, m3.CD, c3.CD, c3.DeltaCD)
-		fmt.Fprintf(w, "  of which streamline curvature (τ₂ = %.2f, a = %.3f/°): Δα_sc = %.4f°, ΔC_L = %.5f, ΔC_m¼ = %.5f;\n",
-			m3.CurvatureFactor, m3.LiftSlope, c3.DeltaAlphaCurvature, c3.DeltaCLCurvature, c3.DeltaCMCurvature)
+		fmt.Fprintf(w, "  of which streamline curvature (τ₂ = %.2f, a = %.4f/°: the run's fitted %.4f/° at Ma %.2f × β(%.2f)/β(%.2f), Prandtl–Glauert, an estimate):\n",
+			m3.CurvatureFactor, m3.LiftSlope, r.Run.Polar.LiftSlope.Value, runMach, runMach, *mach)
+		fmt.Fprintf(w, "    Δα_sc = %.4f°, ΔC_L = %.5f, ΔC_m¼ = %.5f;\n", c3.DeltaAlphaCurvature, c3.DeltaCLCurvature, c3.DeltaCMCurvature)
 		fmt.Fprintf(w, "  tail (τ₂,t = %.2f, ∂C_m/∂α_t = %.3f/°): %.4f° more angle than free air, ΔC_m = %.5f; C_m¼ %.4f → %.4f\n",
 			m3.TailCurvatureFactor, m3.TailMomentSlope, c3.TailAngle, c3.DeltaCMTail, m3.CM, c3.CM)
 	}
-	if r.Run, err = reduceRun(w, *out, *alo, *ahi, *width, *height, *dpi); err != nil {
-		return nil, err
-	}
+	fmt.Fprint(w, runText.String())
 	fmt.Fprintln(w, "\nSAFETY (each tunnel's cautions; the facility's safety rules and its responsible engineer govern every run):")
 	var seen []string
 	for _, t := range tunnels {

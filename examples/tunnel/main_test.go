@@ -163,21 +163,35 @@ func TestSectionByHand(t *testing.T) {
 // ε_sb = 0.86·0.010/(3^1.5·β³), ε_wb = S_m/(4·3)·0.035·(1 + 0.4·0.62²)/β²,
 // q/q_u = (1 + ε)²(1 − 0.62²ε), C_L on the corrected q = 0.6/(q/q_u),
 // Δα = 57.3·0.12·(S_m/3)·C_L; streamline curvature τ₂ = 0.12:
-// Δα_sc = 0.12·Δα, ΔC_L = −0.085·Δα_sc, ΔC_m¼ = −0.25·ΔC_L; the tail
-// (τ₂,t = 0.55) meets 0.55·Δα more, ΔC_m,t = 0.025·0.55·Δα.
+// Δα_sc = 0.12·Δα, ΔC_L = −a·Δα_sc, ΔC_m¼ = −0.25·ΔC_L, with a the run's
+// fitted slope at Ma 0.20 times β(0.20)/β(0.62) = √0.96/√(1 − 0.62²)
+// (0.0803 × 1.2488 = 0.1003/°); the tail (τ₂,t = 0.55) meets 0.55·Δα
+// more, ΔC_m,t = 0.025·0.55·Δα. The printed lines name the model's area
+// and span (0.2639 m², 1.550 m) and the section's 3.00 m².
 func TestModelCorrectionsByHand(t *testing.T) {
-	r, err := evaluate(&bytes.Buffer{}, outDir(t))
+	var out bytes.Buffer
+	r, err := evaluate(&out, outDir(t))
 	if err != nil {
 		t.Fatal(err)
 	}
 	m2 := 0.62 * 0.62
 	b2 := 1 - m2
 	sm := 38.0 / 144
+	a := r.Run.Polar.LiftSlope.Value * math.Sqrt(0.96) / math.Sqrt(b2)
+	if math.Abs(r.ModelSlope-a) > 1e-15 || math.Abs(a-0.1003) > 5e-5 {
+		t.Errorf("complete-model slope %v, by hand %v", r.ModelSlope, a)
+	}
+	for _, want := range []string{"reference (wing) area S = 0.2639 m², span b = 1.550 m", "cross-section C = 3.00 m²",
+		"a = 0.1003/°: the run's fitted 0.0803/° at Ma 0.20 × β(0.20)/β(0.62)"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
 	eps := 0.86*0.010/math.Pow(3, 1.5)/(b2*math.Sqrt(b2)) + sm/12*0.035*(1+0.4*m2)/b2
 	f := (1 + eps) * (1 + eps) * (1 - m2*eps)
 	clq := 0.6 / f
 	da := 57.3 * 0.12 * sm / 3 * clq
-	dcl := -0.085 * 0.12 * da
+	dcl := -a * 0.12 * da
 	cm := -0.030/f - 0.25*dcl + 0.025*0.55*da
 	if math.Abs(r.Model.CL-(clq+dcl)) > 1e-14 || math.Abs(r.Model.Alpha-(3+da*1.12)) > 1e-13 || math.Abs(r.Model.CM-cm) > 1e-14 {
 		t.Errorf("model %+v; by hand C_L %v, α %v, C_m %v", r.Model, clq+dcl, 3+da*1.12, cm)
@@ -288,4 +302,46 @@ func FuzzFlags(f *testing.F) {
 			t.Errorf("non-finite number printed:\n%s", out.String())
 		}
 	})
+}
+
+// TestPressuresSayAbsolute: every pressure in bar, the limits and the
+// found conditions, says it is absolute; the ordinary tunnel's p₀ too.
+func TestPressuresSayAbsolute(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, outDir(t)); err != nil {
+		t.Fatal(err)
+	}
+	s := out.String()
+	all := strings.Count(s, " bar")
+	abs := strings.Count(s, " bar absolute") + strings.Count(s, " bar (absolute)")
+	if all == 0 || all != abs {
+		t.Errorf("%d pressures in bar, %d of them marked absolute:\n%s", all, abs, s)
+	}
+	for _, want := range []string{"≤ 4 bar absolute", "1–4.5 bar absolute", "p₀ = 1.496 bar (absolute)", "p₀ = 101325 Pa (absolute)"} {
+		if !strings.Contains(s, want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+}
+
+// TestCondensationIsFreeStream: the margin is said to be the free
+// stream's, reduced by local expansion over the model.
+func TestCondensationIsFreeStream(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, outDir(t)); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"at the free-stream static 193.8 K", "local supersonic expansion over the model lowers the static temperature and reduces it"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+}
+
+// TestUsageHeader: -h begins as the other examples' do.
+func TestUsageHeader(t *testing.T) {
+	var out bytes.Buffer
+	if err := run(&out, []string{"-h"}); !errors.Is(err, flag.ErrHelp) || !strings.HasPrefix(out.String(), "Usage: tunnel [flags]\n") {
+		t.Errorf("-h: %v\n%s", err, out.String())
+	}
 }

@@ -15,7 +15,7 @@ import (
 // certified by.
 type Limits struct {
 	MinTemperature, MaxTemperature quantity.Quantity // total temperature T₀
-	MinPressure, MaxPressure       quantity.Quantity // total pressure p₀
+	MinPressure, MaxPressure       quantity.Quantity // total pressure p₀, absolute
 	// MaxDynamicPressure, if set, is the largest q = (γ/2)·p·Ma² the
 	// balance and the model may see in the test section.
 	MaxDynamicPressure quantity.Quantity
@@ -23,7 +23,9 @@ type Limits struct {
 	// must stay above the gas's condensation temperature at the static
 	// pressure (fluids.IdealGas.LowestTemperature). It applies to a gas
 	// with a saturation curve (fluids.Nitrogen); unset, it is zero there:
-	// the test section is kept a gas, but with no margin.
+	// the test section is kept a gas, but with no margin. The margin is
+	// the free stream's: local supersonic expansion over the model lowers
+	// the static temperature below the free stream's and reduces it.
 	CondensationMargin quantity.Quantity
 	// RatedLoad, if set, is the rated load of the weakest member of the
 	// model's load path (balance, sting, model or support), and LoadArea
@@ -39,7 +41,7 @@ type Limits struct {
 // held Mach number.
 type Condition struct {
 	Total fluids.Total // settling-chamber T₀ and p₀
-	// Temperature and Pressure are the test section's static state.
+	// Temperature and Pressure are the test section's static state (pressures absolute).
 	Temperature, Pressure, Velocity quantity.Quantity
 	Mach                            float64 // held equal to the prototype's
 	ModelReynolds, FullReynolds     float64
@@ -189,7 +191,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 			phi, pmaxName = pq, "maximum dynamic pressure"
 		}
 		if phi < plo {
-			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the maximum dynamic pressure %.4g Pa allows a total pressure of only %.4g Pa at Mach %.3g, below the minimum total pressure %.4g Pa", q.Value(), phi, ma, plo))}
+			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the maximum dynamic pressure %.4g Pa allows a total pressure of only %.4g Pa (absolute) at Mach %.3g, below the minimum total pressure %.4g Pa (absolute)", q.Value(), phi, ma, plo))}
 		}
 	}
 	if mg := lim.CondensationMargin; mg != (quantity.Quantity{}) || gas.Saturation != fluids.NoSaturation {
@@ -249,7 +251,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	case p0 > phi:
 		p0 = phi
 		c.Binding = append(c.Binding, pmaxName, tminName)
-		c.Note = fmt.Sprintf("the Reynolds number needs a total pressure of %.4g Pa even at the lowest allowed total temperature; at the %s it reaches only part of full scale", need0(tlo), pmaxName)
+		c.Note = fmt.Sprintf("the Reynolds number needs a total pressure of %.4g Pa (absolute) even at the lowest allowed total temperature; at the %s it reaches only part of full scale", need0(tlo), pmaxName)
 	case p0 < plo:
 		// Warm the gas until the minimum pressure gives the right Re.
 		if need0(thi) < plo {
@@ -279,7 +281,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	c.ReynoldsRatio = c.ModelReynolds / rep
 	c.Q = quantity.New(0.5*gas.Gamma*p*ma*ma, quantity.Pressure)
 	if !tunnelFinite(T0, p0, c.Velocity.Value(), c.ModelReynolds, c.ReynoldsRatio, c.Q.Value()) {
-		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the condition is not finite (T₀ = %g K, p₀ = %g Pa, Re_m = %g): the inputs are outside any tunnel's range", T0, p0, c.ModelReynolds))}
+		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the condition is not finite (T₀ = %g K, p₀ = %g Pa absolute, Re_m = %g): the inputs are outside any tunnel's range", T0, p0, c.ModelReynolds))}
 	}
 	c.Achieved = math.Abs(c.ReynoldsRatio-1) < 1e-6
 	if c.Achieved {
