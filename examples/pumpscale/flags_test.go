@@ -63,8 +63,9 @@ func TestPumpscaleHelp(t *testing.T) {
 // 0.0504722 m³/s and H = 96 ft = 29.2608 m, 17.316 kW = 23.22 hp (1 hp =
 // 745.69987 W, 550 ft·lbf/s, NIST SP 811); divided by the affinity power
 // ratio (1750/1180)³(10/24)⁵ = 0.040965 it would be 566.8 hp, while the
-// printed prototype power is 549.3 hp, the same flow and head at the
-// stepped-up 86.15 %: 23.22·0.835/0.86150/0.040965 = 549.3.
+// printed prototype power is 547.9 hp, the same flow and head at the
+// stepped-up 86.15 % in the prototype's water at 30 °C (995.65 against
+// 998.2 kg/m³): 23.22·0.835/0.86150/0.040965·995.65/998.2 = 547.9.
 func TestPumpscaleHeaderMatchesPower(t *testing.T) {
 	var out bytes.Buffer
 	if err := run(&out, nil); err != nil {
@@ -85,8 +86,8 @@ func TestPumpscaleHeaderMatchesPower(t *testing.T) {
 	pm := 998.2 * 9.80665 * qm * hm / 0.835 / 745.69987158227022
 	ratio := math.Pow(1750.0/1180, 3) * math.Pow(10.0/24, 5)
 	etaP := 1 - 0.165*math.Pow(10.0/24, 0.2)
-	pp := pm * 0.835 / etaP / ratio
-	if math.Abs(pm-23.22) > 0.005 || math.Abs(ratio-0.040965) > 1e-6 || math.Abs(pp-549.3) > 0.05 {
+	pp := pm * 0.835 / etaP / ratio * 995.65 / 998.2
+	if math.Abs(pm-23.22) > 0.005 || math.Abs(ratio-0.040965) > 1e-6 || math.Abs(pp-547.9) > 0.05 {
 		t.Fatalf("hand figures: %v hp, ratio %v, %v hp", pm, ratio, pp)
 	}
 	row := regexp.MustCompile(`(?m)^\s+800\s+96\.0\s+(\S+)\s+83\.5% \|\s+\S+\s+\S+\s+(\S+)\s+86\.2%`).FindStringSubmatch(s)

@@ -156,22 +156,33 @@ func evaluateReport(w io.Writer, args []string) (Report, error) {
 				m.df, m.d, m.nf, m.n, u, maxTipSpeed)}
 		}
 	}
-	// Ratios prototype/model: the affinity laws run either way.
-	// Ratios are model/prototype, as everywhere in similis.
-	aff, err := turbo.AffinityLaws(turbo.AffinityScales{RotationalSpeed: *nm / *np, Diameter: *dm / *dp, Density: 1})
+	// Each machine's power at its own water's density: the model loop's
+	// at 20 °C, the prototype's service water at 30 °C (the same states
+	// its Reynolds number and suction pressure use).
+	mw, err := fluids.FreshWater().AtCelsius(modelWaterC)
+	if err != nil {
+		return Report{}, err
+	}
+	pw, err := fluids.FreshWater().AtCelsius(protoWaterC)
+	if err != nil {
+		return Report{}, err
+	}
+	// Ratios are model/prototype, as everywhere in similis; the density
+	// ratio is the two waters'.
+	aff, err := turbo.AffinityLaws(turbo.AffinityScales{RotationalSpeed: *nm / *np, Diameter: *dm / *dp, Density: mw.Density.Value() / pw.Density.Value()})
 	if err != nil {
 		return Report{}, err
 	}
 	in := units.MustParse("in")
 	dModel, dProto := in.Of(*dm), in.Of(*dp)
-	water := q.New(998.2, q.Density) // cold water, 20 °C (ITTC 7.5-02-01-03, from memory)
 	g := units.StandardGravity()
 	gpm, ft, hp := units.MustParse("gpm"), units.MustParse("ft"), units.MustParse("hp")
 	ls, m, kw := units.MustParse("L/s"), units.MustParse("m"), units.MustParse("kW")
 	fmt.Fprintln(w, "Pump-family scale-up by the affinity laws (invented model curve)")
 	fmt.Fprintf(w, "model %g in impeller at %g rpm → prototype %g in at %g rpm\n", *dm, *nm, *dp, *np)
 	fmt.Fprintf(w, "ratios model/prototype: flow %.4g (N·D³), head %.4g (N²·D²); the prototype's flow and head are the model's divided by them\n", aff.Flow, aff.Head)
-	fmt.Fprintf(w, "power columns: shaft power ρgQH/η, each machine at its own efficiency, the prototype's stepped up (hp = 550 ft·lbf/s);\n")
+	fmt.Fprintf(w, "power columns: shaft power ρgQH/η, each machine at its own efficiency, the prototype's stepped up (hp = 550 ft·lbf/s),\n")
+	fmt.Fprintf(w, "  and in its own water: model ρ = %.2f kg/m³ (%g °C), prototype ρ = %.2f kg/m³ (%g °C);\n", mw.Density.Value(), modelWaterC, pw.Density.Value(), protoWaterC)
 	fmt.Fprintf(w, "  the affinity power ratio %.4g (ρ·N³·D⁵) holds only at equal efficiencies, so the prototype's power is not the model's divided by it\n", aff.Power)
 	// Efficiencies first: the step-up is taken at the best-efficiency
 	// point and its gain applied along the curve.
@@ -204,12 +215,12 @@ func evaluateReport(w io.Writer, args []string) (Report, error) {
 			return Report{}, fmt.Errorf("point %d: efficiency %q: %v", i, c.eff, err)
 		}
 		// Shaft power from the hydraulic power and the efficiency.
-		P := water.Mul(g).Mul(Q).Mul(H).Div(eta)
+		P := mw.Density.Mul(g).Mul(Q).Mul(H).Div(eta)
 		r := Row{ModelQ: Q, ModelH: H, ModelP: P, ModelEta: eta}
 		r.ProtoQ = Q.Scale(1 / aff.Flow)
 		r.ProtoH = H.Scale(1 / aff.Head)
 		r.ProtoEta = step.Efficiency[i]
-		r.ProtoP = water.Mul(g).Mul(r.ProtoQ).Mul(r.ProtoH).Scale(1 / r.ProtoEta)
+		r.ProtoP = pw.Density.Mul(g).Mul(r.ProtoQ).Mul(r.ProtoH).Scale(1 / r.ProtoEta)
 		rows = append(rows, r)
 		v := func(u units.Unit, x q.Quantity) float64 { f, _ := u.ValueOf(x); return f }
 		fmt.Fprintf(w, "%7.0f %6.1f %6.2f %5.1f%% | %8.0f %7.1f %8.1f %5.1f%% | %8.1f %7.2f %8.1f\n",

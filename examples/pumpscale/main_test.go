@@ -31,19 +31,27 @@ func TestRuns(t *testing.T) {
 // H_p = 96·(1180/1750)²·2.4² ft (common practice affinity laws), η_p =
 // 1 − 0.165·(1/2.4)^0.2 (Moody at the best-efficiency point, 83.5 %), and
 // shaft power ρgQH/η with 1 gpm = 6.30901964e-5 m³/s and 1 ft = 0.3048 m
-// exactly. The 200 gpm part-load point gains the same 2.65 points as the
+// exactly and ρ the prototype's water at 30 °C (995.65 kg/m³, the same
+// water as its Reynolds number and suction pressure), not 998.2 at 20 °C:
+// at 200 gpm, 118 ft and 54.65 % the prototype takes 197.9 kW (198.4 kW
+// at 998.2 kg/m³). The 200 gpm part-load point gains the same 2.65 points as the
 // best-efficiency point, not the 7.7 Moody's formula would give it alone.
 func TestByHand(t *testing.T) {
-	rows, err := evaluate(&bytes.Buffer{}, nil)
+	var out bytes.Buffer
+	rows, err := evaluate(&out, nil)
 	if err != nil {
 		t.Fatal(err)
+	}
+	w30, _ := fluids.FreshWater().AtCelsius(30)
+	if math.Abs(w30.Density.Value()-995.65) > 0.005 {
+		t.Fatalf("water at 30 °C %v kg/m³", w30.Density)
 	}
 	r := rows[3]
 	n, d := 1180.0/1750, 2.4
 	qp := 800 * n * d * d * d * 6.30901964e-5
 	hp := 96 * n * n * d * d * 0.3048
 	eta := 1 - 0.165*math.Pow(1/2.4, 0.2)
-	pp := 998.2 * 9.80665 * qp * hp / eta
+	pp := w30.Density.Value() * 9.80665 * qp * hp / eta
 	got := []float64{r.ProtoQ.Value(), r.ProtoH.Value(), r.ProtoEta, r.ProtoP.Value()}
 	want := []float64{qp, hp, eta, pp}
 	for i := range got {
@@ -54,6 +62,13 @@ func TestByHand(t *testing.T) {
 	gain := 0.165 * (1 - math.Pow(1/2.4, 0.2)) // 0.0265026
 	if math.Abs(gain-0.0265026) > 1e-6 {
 		t.Fatalf("hand gain %v", gain)
+	}
+	q0 := 200 * n * d * d * d * 6.30901964e-5
+	h0 := 118 * n * n * d * d * 0.3048
+	p0 := 995.65 * 9.80665 * q0 * h0 / (0.52 + gain) // 197.9 kW
+	if math.Abs(rows[0].ProtoP.Value()/p0-1) > 1e-5 || !strings.Contains(out.String(), "94.19    197.9\n") ||
+		!strings.Contains(out.String(), "prototype ρ = 995.65 kg/m³ (30 °C)") {
+		t.Errorf("first point P_p = %v W, by hand %.1f kW at 995.65 kg/m³", rows[0].ProtoP, p0/1e3)
 	}
 	for i, m := range []float64{0.52, 0.71, 0.80, 0.835, 0.81, 0.72} {
 		if math.Abs(rows[i].ProtoEta-(m+gain)) > 1e-12 {
