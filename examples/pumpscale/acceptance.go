@@ -68,6 +68,29 @@ func parseGrade(s string) (turbo.Grade, bool) {
 	return 0, false
 }
 
+// roundToUncertainty formats a value and its standard uncertainty as the
+// GUM (JCGM 100, 7.2.6) recommends: the uncertainty to two significant
+// digits, the value rounded to the same decimal place. A zero or
+// non-finite uncertainty leaves the value at five significant digits.
+func roundToUncertainty(v, u float64) (string, string) {
+	if !(u > 0) || math.IsInf(u, 0) || math.IsNaN(v) || math.IsInf(v, 0) {
+		return fmt.Sprintf("%.5g", v), fmt.Sprintf("%.2g", u)
+	}
+	// The decimal place of the uncertainty's second significant digit,
+	// taken after rounding it (0.0996 is 0.10, whose second digit is at
+	// 10⁻²).
+	place := int(math.Floor(math.Log10(u))) - 1
+	ur := math.Round(u/math.Pow10(place)) * math.Pow10(place)
+	place = int(math.Floor(math.Log10(ur))) - 1
+	step := math.Pow10(place)
+	vr, ur := math.Round(v/step)*step, math.Round(u/step)*step
+	if vr == 0 {
+		vr = 0 // no "-0"
+	}
+	d := max(0, -place)
+	return fmt.Sprintf("%.*f", d, vr), fmt.Sprintf("%.*f", d, ur)
+}
+
 // pct formats a one-sided or two-sided tolerance factor.
 func pct(minus, plus float64) string {
 	switch {
@@ -104,7 +127,7 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 	fmt.Fprintf(w, "guarantee at the specified speed %g rpm: Q_G = %g L/s, H_G = %g m, η_G = %g %%, P_G = %g kW (pump power input); water %g kg/m³\n",
 		specRPM, guaranteeQ, guaranteeH, 100*guaranteeEta, guaranteeP, testDensity)
 	fmt.Fprintf(w, "test points reduced to %g rpm by the affinity laws, Q·(n_sp/n), H·(n_sp/n)², P·(n_sp/n)³, η = ρgQH/P unchanged\n", specRPM)
-	fmt.Fprintf(w, "(test speeds accepted within %g %% to %g %% of the specified, ISO 9906, from memory):\n", 100*turbo.MinTestSpeedFraction, 100*turbo.MaxTestSpeedFraction)
+	fmt.Fprintf(w, "(test speeds accepted within %g %% to %g %% of the specified, ISO 9906, from memory: check the band against ISO 9906:2012 and the contract):\n", 100*turbo.MinTestSpeedFraction, 100*turbo.MaxTestSpeedFraction)
 	fmt.Fprintf(w, "  %-30s | %8s | %s\n", "as measured", "", fmt.Sprintf("reduced to %g rpm", specRPM))
 	fmt.Fprintf(w, "  %6s %7s %7s %7s | %8s | %7s %7s %7s %6s\n", "n rpm", "Q L/s", "H m", "P kW", "n_sp/n", "Q L/s", "H m", "P kW", "η %")
 	for i, r := range a.Reduced {
@@ -135,21 +158,21 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 		}
 		var eq strings.Builder
 		for k := range coef {
-			v := coef[k] * c.scale
+			v, u := roundToUncertainty(coef[k]*c.scale, se[k]*c.scale)
 			switch {
 			case k == 0:
-				fmt.Fprintf(&eq, "%.5g", v)
-			case v < 0:
-				fmt.Fprintf(&eq, " − %.5g", -v)
+				eq.WriteString(v)
+			case strings.HasPrefix(v, "-"):
+				eq.WriteString(" − " + v[1:])
 			default:
-				fmt.Fprintf(&eq, " + %.5g", v)
+				eq.WriteString(" + " + v)
 			}
-			fmt.Fprintf(&eq, "(±%.2g)", se[k]*c.scale)
+			fmt.Fprintf(&eq, "(±%s)", u)
 			if k > 0 {
 				eq.WriteString("·Q" + []string{"", "", "²", "³"}[min(k, 3)])
 			}
 		}
-		fmt.Fprintf(w, "    %s = %s  (%s, Q in m³/s; standard errors in parentheses)\n", c.sym, eq.String(), c.unit)
+		fmt.Fprintf(w, "    %s = %s  (%s, Q in m³/s; standard errors in parentheses, each coefficient rounded to its error's second digit, GUM 7.2.6; the checks use the unrounded fit)\n", c.sym, eq.String(), c.unit)
 	}
 	g := turbo.Guarantee{Flow: ls.Of(guaranteeQ), Head: m.Of(guaranteeH), Efficiency: guaranteeEta, Power: kw.Of(guaranteeP)}
 	for _, gr := range turbo.Grades() {
@@ -167,14 +190,19 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 	fmt.Fprintf(w, "cross through (Q_G, H_G), on its vertical bar H_G(1 − t_H … 1 + t_H) at Q_G or its horizontal bar Q_G(1 − t_Q … 1 + t_Q) at H_G;\n")
 	fmt.Fprintf(w, "η and P are read on the fitted curves at Q_X = %.2f L/s (H_X = %.2f m), where the line through the origin and (Q_G, H_G) meets Q–H:\n",
 		1e3*x[0], x[1])
-	fmt.Fprintf(w, "  %-5s | %-8s | %-8s | %-5s | %-5s | %-27s | %-28s | %-19s | %-20s | %s\n", "grade", "t_Q", "t_H", "t_P", "t_η",
+	fmt.Fprintf(w, "  %-5s | %-8s | %-8s | %-5s | %-5s | %-27s | %-33s | %-19s | %-20s | %s\n", "grade", "t_Q", "t_H", "t_P", "t_η",
 		"H(Q_G) on the vertical bar", "Q at H_G on the horiz. bar", "η(Q_X) ≥ η_G(1−t_η)", "P(Q_X) ≤ P_G(1+t_P)", "verdict")
 	for _, v := range a.Verdicts {
 		t := v.Tolerance
 		vert := fmt.Sprintf("%.2f in %.2f…%.2f m %s", v.HeadAtGuaranteeFlow.Y, v.HeadBar[0], v.HeadBar[1], yesNo(v.MeetsVertical))
-		horiz := fmt.Sprintf("none in %.1f…%.1f L/s", 1e3*v.FlowBar[0], 1e3*v.FlowBar[1])
-		if v.MeetsHorizontal {
+		var horiz string
+		switch {
+		case v.MeetsHorizontal:
 			horiz = fmt.Sprintf("%.2f in %.1f…%.1f L/s yes", 1e3*v.FlowAtGuaranteeHead, 1e3*v.FlowBar[0], 1e3*v.FlowBar[1])
+		case v.HeadCrossed:
+			horiz = fmt.Sprintf("%.2f L/s, outside %.1f…%.1f", 1e3*v.HeadCrossing, 1e3*v.FlowBar[0], 1e3*v.FlowBar[1])
+		default:
+			horiz = fmt.Sprintf("H_G not reached in tested %.1f…%.1f L/s", 1e3*a.Curves.Head.XMin, 1e3*a.Curves.Head.XMax)
 		}
 		teta := "0 %"
 		if t.EfficiencyMinus > 0 {
@@ -184,7 +212,7 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 		if v.Met {
 			verdict = "met"
 		}
-		fmt.Fprintf(w, "  %-5s | %-8s | %-8s | %-5s | %-5s | %-27s | %-28s | %5.2f ≥ %5.2f %% %-3s | %5.2f ≤ %5.2f kW %-3s | %s\n",
+		fmt.Fprintf(w, "  %-5s | %-8s | %-8s | %-5s | %-5s | %-27s | %-33s | %5.2f ≥ %5.2f %% %-3s | %5.2f ≤ %5.2f kW %-3s | %s\n",
 			v.Grade, pct(t.FlowMinus, t.FlowPlus), pct(t.HeadMinus, t.HeadPlus), fmt.Sprintf("+%.3g %%", 100*t.PowerPlus), teta,
 			vert, horiz, 100*v.EfficiencyAt.Y, 100*v.EfficiencyMin, yesNo(v.EfficiencyMet), v.PowerAt.Y/1e3, v.PowerMax/1e3, yesNo(v.PowerMet), verdict)
 	}
@@ -199,7 +227,7 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 	if ag.Met {
 		verdict = "MET"
 	}
-	fmt.Fprintf(w, "verdict for the agreed grade %v: %s (flow and head %s; efficiency %.2f %% against at least %.2f %%; power %.2f kW against at most %.2f kW)\n",
+	fmt.Fprintf(w, "verdict for the agreed grade %v: %s, PROVISIONAL (flow and head %s; efficiency %.2f %% against at least %.2f %%; power %.2f kW against at most %.2f kW)\n",
 		ag.Grade, verdict, map[bool]string{true: "within the cross", false: "outside the cross"}[ag.FlowHeadMet],
 		100*ag.EfficiencyAt.Y, 100*ag.EfficiencyMin, ag.PowerAt.Y/1e3, ag.PowerMax/1e3)
 	if len(met) == 0 {
@@ -207,6 +235,8 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 	} else {
 		fmt.Fprintf(w, "grades met: %s\n", strings.Join(met, ", "))
 	}
+	fmt.Fprintln(w, "PROVISIONAL: the verdicts rest on tolerance factors and a test-speed band quoted from memory; check them against ISO 9906:2012")
+	fmt.Fprintln(w, "  Table 8 (and the contract, which may set its own) before a pump is accepted or rejected on them")
 	for _, n := range ag.Notes {
 		fmt.Fprintf(w, "  note: %s\n", n)
 	}
@@ -225,7 +255,7 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 	fmt.Fprintf(w, "  reference head %.3f m (mean of the 3 points of highest NPSHA), 3 %% drop at %.3f m; on the monotone fairing of H against NPSHA\n",
 		n3.ReferenceHead.Value(), n3.DropHead.Value())
 	fmt.Fprintf(w, "  NPSH3 = %.2f m, standard uncertainty %.3f m: from NPSHA %.3f m, from the head %.3f m = √(u_H² + (0.97·u_H)²/3)/slope\n"+
-		"  with u_H = %.3f m and the faired slope %.2f m of head per m of NPSHA\n",
+		"  with u_H = %.3g m and the faired slope %.2f m of head per m of NPSHA\n",
 		n3.NPSH3.Value(), n3.U.Value(), n3.UFromNPSHA.Value(), n3.UFromHead.Value(), n3.HeadU.Value(), n3.Slope)
 	for _, n := range n3.Notes {
 		fmt.Fprintf(w, "  note: %s\n", n)

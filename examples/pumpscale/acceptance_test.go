@@ -103,12 +103,21 @@ func TestAcceptanceByHand(t *testing.T) {
 	near("u", n.U.Value(), 0.034012, 1e-4)
 	for _, want := range []string{
 		"invented shop-test readings",
-		"verdict for the agreed grade 1B: MET",
+		"verdict for the agreed grade 1B: MET, PROVISIONAL",
+		"PROVISIONAL: the verdicts rest on tolerance factors and a test-speed band quoted from memory; check them against ISO 9906:2012\n  Table 8 (and the contract",
+		"before a pump is accepted",
+		"check the band against ISO 9906:2012 and the contract",
 		"grades met: 1B, 2B, 3B",
-		"  1B    | ±5 %     | ±3 %     | +4 %  | −3 %  | 39.20 in 38.80…41.20 m yes",
+		"  1B    | ±5 %     | ±3 %     | +4 %  | −3 %  | 39.20 in 38.80…41.20 m yes  | 94.88 L/s, outside 95.0…105.0 ",
+		"  2B    | ±8 %     | ±5 %     | +8 %  | −5 %  | 39.20 in 38.00…42.00 m yes  | 94.88 in 92.0…108.0 L/s yes",
 		"NPSH3 = 4.59 m, standard uncertainty 0.034 m",
+		"with u_H = 0.0252 m",
+		"the head's standard uncertainty 0.0252 m",
 		"Q–H: order 2 through 9 points",
-		"H = 47.222(±0.23) − 0.38971(±4.8)·Q − 798.22(±24)·Q²",
+		// Each coefficient rounded to the second digit of its standard
+		// error (GUM 7.2.6): 47.222 ± 0.23 → 47.22, −0.38971 ± 4.8 → −0.4,
+		// −798.22 ± 24 → −798.
+		"H = 47.22(±0.23) − 0.4(±4.8)·Q − 798(±24)·Q²",
 	} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("output lacks %q", want)
@@ -141,6 +150,29 @@ func TestAcceptanceFlags(t *testing.T) {
 		var ce *cli.Error
 		if !errors.As(err, &ce) {
 			t.Errorf("%q: %v, want a usage error", args, err)
+		}
+	}
+}
+
+// TestRoundToUncertainty: the uncertainty to two significant digits and
+// the value to the same decimal place (GUM 7.2.6), by hand.
+func TestRoundToUncertainty(t *testing.T) {
+	for _, c := range []struct {
+		v, u       float64
+		wantV, wantU string
+	}{
+		{47.222, 0.2312, "47.22", "0.23"},
+		{-0.38971, 4.81, "-0.4", "4.8"},
+		{-798.22, 24.3, "-798", "24"},
+		{1103.47, 13.2, "1103", "13"},
+		{12345.6, 240, "12350", "240"},
+		{0.0123456, 0.000996, "0.0123", "0.0010"},
+		{-0.00004, 0.0023, "0.0000", "0.0023"},
+		{5, 0, "5", "0"},
+	} {
+		gv, gu := roundToUncertainty(c.v, c.u)
+		if gv != c.wantV || gu != c.wantU {
+			t.Errorf("roundToUncertainty(%v, %v) = %s, %s; want %s, %s", c.v, c.u, gv, gu, c.wantV, c.wantU)
 		}
 	}
 }

@@ -314,10 +314,11 @@ func suction(w io.Writer, step turbo.StepUp, etas []float64, rows []Row, nm, np,
 	if s.ProtoSuction, err = turbo.SuctionPressureFor(s.Sigma, bep.ProtoH, pv, pw.Density, q.New(protoInletMS, q.Velocity), q.Quantity{}); err != nil {
 		return Suction{}, err
 	}
-	fmt.Fprintf(w, "\nAt the best-efficiency point: specific speed N_s = %.0f (rpm, gpm, ft) = n_q %.1f (rpm, m³/s, m) = Ω_s %.3f (rad/s, dimensionless)\n",
+	fmt.Fprintf(w, "\nAt the best-efficiency point: specific speed N_s = %.0f (rpm, gpm, ft) = n_q %.1f (rpm, m³/s, m);\n"+
+		"  dimensionless specific speed Ω_s = ωQ^½/(gH)^¾ = %.3f with ω in rad/s\n",
 		s.SpecificSpeed.US, s.SpecificSpeed.Metric, s.SpecificSpeed.Dimensionless)
 	fmt.Fprintf(w, "step-up compared, Re = D·u/ν with u = πDn (n in rev/s): model %.3g (%g °C), prototype %.3g (%g °C):\n", s.ReModel, modelWaterC, s.ReProto, protoWaterC)
-	iec := fmt.Sprintf("IEC 60193 scalable losses %.1f %% (Δη %.2f points)", 100*s.IEC, 100*s.IECGain)
+	iec := fmt.Sprintf("IEC 60193 scalable losses %.1f %% (Δη %.2f points, an indication: see below)", 100*s.IEC, 100*s.IECGain)
 	if s.IECRefused != "" {
 		iec = "IEC 60193 not applied"
 	}
@@ -326,6 +327,11 @@ func suction(w io.Writer, step turbo.StepUp, etas []float64, rows []Row, nm, np,
 		ack = "Ackeret not applied"
 	}
 	fmt.Fprintf(w, "  Moody's step-up (D^%g) %.1f %%; %s; %s\n", moody, 100*(etas[step.BEP]+step.Gain), iec, ack)
+	if s.IECRefused == "" {
+		fmt.Fprintf(w, "  IEC 60193's scalable-loss formula with Re_ref = %g×10⁶ and V_ref = %.2f (the scalable share of the losses at Re_ref, from memory),\n", turbo.IECReferenceReynolds/1e6, turbo.IECScalableLoss)
+		fmt.Fprintln(w, "  taking the hydraulic efficiency η_h equal to this pump's overall η: the formula's scope is the hydraulic efficiency of turbines,")
+		fmt.Fprintln(w, "  storage pumps and pump-turbines (from memory), so for this pump it is an indication only")
+	}
 	for _, r := range []string{s.IECRefused, s.AckeretRefused} {
 		if r != "" {
 			fmt.Fprintf(w, "  (%s)\n", r)

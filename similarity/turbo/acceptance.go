@@ -51,8 +51,10 @@ type Tolerance struct {
 
 // Tolerance returns the grade's tolerance factors, those of ISO 9906:2012
 // Table 8 for pumps of more than 10 kW shaft power, quoted from memory
-// (the standard itself was not to hand; check them against it before a
-// contract rests on them):
+// (the standard itself was not to hand). A verdict on them is
+// provisional: check the factors against ISO 9906:2012 Table 8, and the
+// contract, which may set its own, before a pump is accepted or rejected
+// on them:
 //
 //	grade   t_Q     t_H     t_P    t_η
 //	1U      +10 %   +6 %    +10 %  ≥ 0 %
@@ -111,6 +113,12 @@ type Verdict struct {
 	// MeetsHorizontal whether there is one.
 	FlowAtGuaranteeHead float64
 	MeetsHorizontal     bool
+	// HeadCrossing is the flow where the fitted Q–H curve has the head
+	// H_G anywhere in the tested range (the crossing nearest Q_G), inside
+	// the horizontal bar or not, and HeadCrossed whether there is one: a
+	// curve that misses the bar may still cross H_G just outside it.
+	HeadCrossing float64
+	HeadCrossed  bool
 	// FlowHeadMet: the fitted Q–H curve meets the cross, on either bar.
 	FlowHeadMet bool
 
@@ -209,6 +217,11 @@ func CheckGuarantee(c PumpCurves, g Guarantee, grade Grade) (Verdict, error) {
 	if lo < hi {
 		v.FlowAtGuaranteeHead, v.MeetsHorizontal = rootNearest(func(x float64) float64 { return hf.Eval(x) - hg }, lo, hi, qg)
 	}
+	if v.MeetsHorizontal {
+		v.HeadCrossing, v.HeadCrossed = v.FlowAtGuaranteeHead, true
+	} else {
+		v.HeadCrossing, v.HeadCrossed = rootNearest(func(x float64) float64 { return hf.Eval(x) - hg }, hf.XMin, hf.XMax, qg)
+	}
 	v.FlowHeadMet = v.MeetsVertical || v.MeetsHorizontal
 	v.Met = v.FlowHeadMet
 	v.EfficiencyJudged, v.PowerJudged = g.Efficiency > 0, powerGiven
@@ -245,7 +258,7 @@ func CheckGuarantee(c PumpCurves, g Guarantee, grade Grade) (Verdict, error) {
 	if pw <= 10e3 {
 		v.Notes = append(v.Notes, "the pump's power is 10 kW or less, for which ISO 9906 gives wider tolerances than these (not applied here)")
 	}
-	if !finite(hq, v.Intersection[0], v.Intersection[1], v.EfficiencyAt.Y, v.PowerAt.Y, v.FlowAtGuaranteeHead) {
+	if !finite(hq, v.Intersection[0], v.Intersection[1], v.EfficiencyAt.Y, v.PowerAt.Y, v.FlowAtGuaranteeHead, v.HeadCrossing) {
 		return Verdict{}, &Error{Op: op, Fault: similarity.OutOfRange("curves", "a fitted value is not finite")}
 	}
 	return v, nil

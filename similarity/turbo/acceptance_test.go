@@ -213,6 +213,12 @@ func TestCheckGuaranteeByHand(t *testing.T) {
 		if v.MeetsHorizontal {
 			near("Q at H_G", v.FlowAtGuaranteeHead, math.Sqrt(7.2/800), 1e-9)
 		}
+		// The crossing of H_G exists whatever the bar: 0.09487 for every
+		// grade, inside 2B's and 3B's bars, outside the others'.
+		if !v.HeadCrossed {
+			t.Errorf("grade %v: no crossing of H_G found", gr)
+		}
+		near("crossing of H_G", v.HeadCrossing, math.Sqrt(7.2/800), 1e-9)
 	}
 }
 

@@ -11,7 +11,8 @@
 //     point (flow, head, power input, speed: TestPoint) to the specified
 //     speed by the affinity laws, Q ∝ n, H ∝ n², P ∝ n³, with the
 //     efficiency ρgQH/P unchanged, for test speeds within 50 % to 120 %
-//     of the specified (ISO 9906, from memory).
+//     of the specified (ISO 9906, from memory: check the band against
+//     ISO 9906:2012 and the contract before a pump is accepted).
 //  2. Fit the curves. FitPumpCurves fits the Q–H, Q–P and Q–η curves by
 //     least squares (quantity/fit), each of the order a stated criterion
 //     selects (TopTerm up to order 3 unless chosen), with the intervals
@@ -27,8 +28,11 @@
 //     diameter and density ratio, solved exactly from the held flow, head
 //     and power coefficients; efficiency is taken equal.
 //  5. Efficiency step-up. The efficiency is not equal: IECStepUp and
-//     IECCurve follow the scalable-loss formula of IEC 60193 (hydraulic
-//     turbines, storage pumps and pump-turbines; 10⁵ ≤ Re_M ≤ Re_P);
+//     IECCurve follow the scalable-loss formula of IEC 60193 (its scope,
+//     from memory: the hydraulic efficiency of turbines, storage pumps
+//     and pump-turbines, 10⁵ ≤ Re_M ≤ Re_P; applied to another pump's
+//     overall efficiency, taken as the hydraulic one, it is an indication
+//     only);
 //     AckeretStepUp Ackeret's formula; MoodyStepUp and MoodyCurve
 //     Moody's diameter formula (exponent 1/5 unless chosen, 0 … 1), at
 //     the best-efficiency point or at each point (StepUpMethod); FanStepUp
@@ -52,7 +56,10 @@
 //     the tolerance cross through the guarantee point, and the efficiency
 //     (and power, where guaranteed) read from the fitted curves where the
 //     straight line through the origin and the guarantee point meets the
-//     Q–H curve must be within its tolerance.
+//     Q–H curve must be within its tolerance. The factors and the speed
+//     band are quoted from memory, so a verdict is provisional: check them
+//     against ISO 9906:2012 Table 8 and the contract before a pump is
+//     accepted or rejected on it.
 //
 // Every error is a *Error naming the procedure and the input, of one
 // class among quantity.ErrDimension, ErrRange and ErrInvalid, with its

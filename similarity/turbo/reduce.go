@@ -12,8 +12,10 @@ import (
 // The band of test speeds, as fractions of the specified speed, within
 // which ReducePoints translates a test point by the affinity laws: ISO
 // 9906:2012 allows a test at 50 % to 120 % of the specified speed for the
-// flow, head and power (from memory; a contract may set a narrower band,
-// and the standard's band for NPSH tests is narrower still).
+// flow, head and power (from memory: check the band against ISO
+// 9906:2012 and the contract before a pump is accepted on a test
+// translated by it; a contract may set a narrower band, and the
+// standard's band for NPSH tests is narrower still).
 const (
 	MinTestSpeedFraction = 0.5
 	MaxTestSpeedFraction = 1.2

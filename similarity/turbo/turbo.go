@@ -36,7 +36,11 @@ type ReynoldsNumbers struct {
 //	δ_ref = (1 − η_M,opt)/((Re_ref/Re_M,opt)^0.16 + (1 − V_ref)/V_ref)
 //	Δη = δ_ref·((Re_ref/Re_M)^0.16 − (Re_ref/Re_P)^0.16)
 //
-// with Re_ref = 7×10⁶ and V_ref = 0.7. The Reynolds numbers are the
+// with Re_ref = 7×10⁶ and V_ref = 0.7 (IECReferenceReynolds,
+// IECScalableLoss). The formula steps up a hydraulic efficiency; given an
+// overall efficiency (a pump's η = ρgQH/P), it takes the hydraulic
+// efficiency equal to it, and outside the standard's scope (another kind
+// of pump) its result is an indication only. The Reynolds numbers are the
 // machines' own as the standard defines them (Re = D·u/ν with u the
 // peripheral speed at the reference diameter D); re.Model is the model's
 // at its test point, re.Prototype the prototype's. It returns the prototype
