@@ -158,7 +158,7 @@ func TestAcceptanceFlags(t *testing.T) {
 // the value to the same decimal place (GUM 7.2.6), by hand.
 func TestRoundToUncertainty(t *testing.T) {
 	for _, c := range []struct {
-		v, u       float64
+		v, u         float64
 		wantV, wantU string
 	}{
 		{47.222, 0.2312, "47.22", "0.23"},
