@@ -368,8 +368,12 @@ func plotAcceptance(dir string, a Acceptance, wIn, hIn, dpi float64) (string, st
 	top.Y.Min, top.Y.Max = 0.75*a.Curves.Head.Eval(hi), 1.15*a.Curves.Head.Eval(lo)
 	top.Legend.Top, top.Legend.Left = false, true
 	top.Legend.YOffs = 0
-	bottom.Legend.Top = false
-	bottom.Y.Min, bottom.Y.Max = math.Floor(bottom.Y.Min), math.Ceil(bottom.Y.Max)
+	// The efficiency legend goes at the top left, in a band added above
+	// the data so that it cannot cover the curve (which rises across the
+	// panel and peaks near its middle).
+	bottom.Legend.Top, bottom.Legend.Left = true, true
+	bottom.Legend.XOffs, bottom.Legend.YOffs = vg.Points(6), -vg.Points(4)
+	bottom.Y.Min, bottom.Y.Max = efficiencyAxis(bottom.Y.Min, bottom.Y.Max)
 	for _, p := range []*plot.Plot{top, bottom} {
 		p.Add(plotter.NewGrid())
 		p.X.Tick.Marker, p.Y.Tick.Marker = plotstyle.LinearTicks{}, plotstyle.LinearTicks{}
@@ -382,6 +386,18 @@ func plotAcceptance(dir string, a Acceptance, wIn, hIn, dpi float64) (string, st
 		}
 	}
 	return png, svg, nil
+}
+
+// legendBand is the share of the efficiency panel's data range added
+// above the data for its legend.
+const legendBand = 0.35
+
+// efficiencyAxis returns the efficiency panel's axis range for data from
+// lo to hi (%): a margin of 5 % of the range below, the legend's band
+// above, rounded out to whole percent.
+func efficiencyAxis(lo, hi float64) (float64, float64) {
+	r := hi - lo
+	return math.Floor(lo - 0.05*r), math.Ceil(hi + legendBand*r)
 }
 
 // glyph returns the marker of series k: a distinct shape and colour.

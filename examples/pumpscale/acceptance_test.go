@@ -176,3 +176,31 @@ func TestRoundToUncertainty(t *testing.T) {
 		}
 	}
 }
+
+// TestEfficiencyLegendClear: the efficiency panel's legend sits at its
+// top left, in the band above the data, so it cannot cover the Q–η curve
+// (it sat at the bottom right and covered it): with the default run's
+// data, 67.40 … 80.08 %, the axis runs 66 … 85 % and the fitted curve's
+// highest point (80.08 %) stays below the top 20 % of the panel (81.2 %).
+func TestEfficiencyLegendClear(t *testing.T) {
+	a, err := acceptance(&bytes.Buffer{}, turbo.Grade1B, "", 6, 7, 150)
+	if err != nil {
+		t.Fatal(err)
+	}
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, r := range a.Reduced {
+		lo, hi = min(lo, 100*r.Efficiency), max(hi, 100*r.Efficiency)
+	}
+	c := a.Curves.Efficiency
+	for i := 0; i <= 100; i++ {
+		x := c.XMin + (c.XMax-c.XMin)*float64(i)/100
+		hi = max(hi, 100*c.Eval(x))
+	}
+	ymin, ymax := efficiencyAxis(lo, hi)
+	if ymin != 66 || ymax != 85 {
+		t.Errorf("axis %v … %v %%, by hand 66 … 85 (data %.2f … %.2f)", ymin, ymax, lo, hi)
+	}
+	if hi > ymax-0.2*(ymax-ymin) {
+		t.Errorf("the curve reaches %.2f %%, into the legend's band above %.2f %%", hi, ymax-0.2*(ymax-ymin))
+	}
+}

@@ -61,7 +61,9 @@ their order and 95 % intervals; for every acceptance grade (1U, 1E, 1B,
 memory) and whether the fitted Q–H curve meets the tolerance cross through
 the guarantee point and the efficiency and power, read where the line
 through the origin and the guarantee point meets the Q–H curve, are
-within tolerance; the verdict for the grade agreed (-grade); NPSH3 from a
+within tolerance; the verdict for the grade agreed (-grade), provisional
+until the factors are checked against ISO 9906:2012 Table 8 and the
+contract; NPSH3 from a
 suction series by the 3 % head drop on a monotone fairing, with its
 standard uncertainty; and a plot of the Q–H and Q–η curves
 (pumpscale-acceptance.png and .svg in -out).
