@@ -140,6 +140,7 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 	}
 	qg := guaranteeQ / 1e3
 	fmt.Fprintf(w, "curves fitted by least squares, the order chosen by the top-term t test (5 %%) up to 3; at Q_G with the 95 %% interval of the mean:\n")
+	fmt.Fprintln(w, "(each coefficient's standard error in parentheses, the coefficient rounded to the error's second digit, GUM 7.2.6; the checks use the unrounded fit)")
 	for _, c := range []struct {
 		name, unit string
 		scale      float64
@@ -172,7 +173,7 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 				eq.WriteString("·Q" + []string{"", "", "²", "³"}[min(k, 3)])
 			}
 		}
-		fmt.Fprintf(w, "    %s = %s  (%s, Q in m³/s; standard errors in parentheses, each coefficient rounded to its error's second digit, GUM 7.2.6; the checks use the unrounded fit)\n", c.sym, eq.String(), c.unit)
+		fmt.Fprintf(w, "    %s = %s  (%s, Q in m³/s)\n", c.sym, eq.String(), c.unit)
 	}
 	g := turbo.Guarantee{Flow: ls.Of(guaranteeQ), Head: m.Of(guaranteeH), Efficiency: guaranteeEta, Power: kw.Of(guaranteeP)}
 	for _, gr := range turbo.Grades() {
