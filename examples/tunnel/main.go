@@ -98,7 +98,12 @@ number -mach, chord -chord) and a model -scale times smaller it prints:
     tunnel against the balance's rated load;
   - wall corrections of a section test and of the complete model at the
     test Mach number (ε = blockage; q/q_u and the corrected coefficients),
-    or why they are refused (above Ma 0.8 they are not applied);
+    or why they are refused (above Ma 0.8 they are not applied); the
+    complete model's streamline-curvature correction takes the polar
+    run's fitted lift slope, raised to the test Mach number by the
+    Prandtl–Glauert factor, and the run's own takes its fitted slope
+    (reduced once with an assumed slope, then again with the fitted);
+    pressures are absolute throughout;
   - the reduction of a polar run on the 1:12 model at q_u = 2750 Pa from a
     six-component internal balance: the calibration (readings from loads,
     first- and second-order terms, inverted by iteration), the weight tare
