@@ -325,4 +325,3 @@ func (z *Series) SetLog(x Series) *Series { return z.unary("take the logarithm o
 func (z *Series) SetExp(x Series) *Series {
 	return z.unary("take the exponential of", x, math.Exp)
 }
-
