@@ -10,6 +10,7 @@ import (
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
 
+	"similis.dev/similis/examples/internal/plotstyle"
 	"similis.dev/similis/pigroups"
 	"similis.dev/similis/quantity"
 )
@@ -115,7 +116,7 @@ func buildPlot(f *fitRows, law *pigroups.PowerLaw, groups []pigroups.Group, data
 	if err != nil {
 		return nil, err
 	}
-	sc.GlyphStyle = marker(0)
+	sc.GlyphStyle = plotstyle.Marker(0)
 	lo, hi := law.Ranges[0][0], law.Ranges[0][1]
 	var line plotter.XYs
 	for i := 0; i <= 40; i++ {
@@ -130,7 +131,7 @@ func buildPlot(f *fitRows, law *pigroups.PowerLaw, groups []pigroups.Group, data
 	if err != nil {
 		return nil, err
 	}
-	ln.Color = seriesColor(1)
+	ln.Color = plotstyle.SeriesColor(1)
 	pl.Add(sc, ln)
 	pl.Legend.Add("reduced rows", sc)
 	pl.Legend.Add("fit", ln)
@@ -138,7 +139,7 @@ func buildPlot(f *fitRows, law *pigroups.PowerLaw, groups []pigroups.Group, data
 	for _, p := range line {
 		xs, ys = append(xs, p.X), append(ys, p.Y)
 	}
-	styleAxes(pl, xs, ys)
+	plotstyle.StyleLog(pl, xs, ys)
 	// Room above the data for the legend, so it covers no marker.
 	pl.Y.Max *= math.Pow(pl.Y.Max/pl.Y.Min, 0.3)
 	return pl, nil
@@ -150,5 +151,5 @@ func plotFit(path string, f *fitRows, law *pigroups.PowerLaw, groups []pigroups.
 	if err != nil {
 		return err
 	}
-	return savePlot(pl, path, size.w, size.h, size.dpi)
+	return plotstyle.Save(pl, path, size.w, size.h, size.dpi)
 }

@@ -10,7 +10,10 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/google/go-cmp/cmp"
 	"gonum.org/v1/plot"
+
+	"similis.dev/similis/examples/internal/plotstyle"
 )
 
 // TestDataErrorNamesFileLine: a row whose group overflows (x/b =
@@ -146,12 +149,14 @@ func TestPlotReadable(t *testing.T) {
 	if !strings.Contains(pl.Y.Label.Text, "ψ_p") {
 		t.Fatalf("y label %q", pl.Y.Label.Text)
 	}
-	segs := segments("ψ_p/(4π²)")
-	if len(segs) != 3 || segs[0].s != "ψ" || !segs[1].sub || segs[1].s != "p" || segs[2].s != "/(4π²)" {
-		t.Errorf("segments of ψ_p/(4π²): %+v", segs)
+	h, ok := pl.Y.Label.TextStyle.Handler.(plotstyle.Subscripts)
+	if !ok {
+		t.Fatalf("y label drawn by %T, which prints the underscore", pl.Y.Label.TextStyle.Handler)
 	}
-	if _, ok := pl.Y.Label.TextStyle.Handler.(subscripts); !ok {
-		t.Errorf("y label drawn by %T, which prints the underscore", pl.Y.Label.TextStyle.Handler)
+	segs := plotstyle.Segments("ψ_p/(4π²)", h.BracedOnly)
+	want := []plotstyle.Segment{{Text: "ψ"}, {Text: "p", Sub: true}, {Text: "/(4π²)"}}
+	if !cmp.Equal(segs, want) {
+		t.Errorf("segments of ψ_p/(4π²): %+v, want %+v", segs, want)
 	}
 }
 

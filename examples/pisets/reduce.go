@@ -2,7 +2,6 @@ package main
 
 import (
 	"bufio"
-	"bytes"
 	"encoding/json"
 	"errors"
 	"fmt"
@@ -303,7 +302,7 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	}
 	in := reduction.Input{Name: opt.data, Source: rd, Rows: sink}
 	if !parquet {
-		in.LineOf = func(row int) int { return lineOfRow(opt.data, row) }
+		in.LineOf = func(row int) int { return reduction.LineOfRow(opt.data, row) }
 	}
 	res, err := spec.Reduce(in)
 	if err != nil {
@@ -382,39 +381,6 @@ func bindError(sym string, vu units.Unit, c chanfile.Column, file string, err er
 	return msg
 }
 
-// lineOfRow returns the line of a text channel file that holds data row
-// row (1-based), reading the file again as the channel reader does:
-// blank lines and lines starting with '#' skipped, the first other line
-// the header; 0 if the file cannot be read or is shorter.
-func lineOfRow(file string, row int) int {
-	f, err := os.Open(file)
-	if err != nil {
-		return 0
-	}
-	defer f.Close()
-	br := bufio.NewReaderSize(f, chanfile.MaxLineLen)
-	if b, err := br.Peek(3); err == nil && string(b) == "\xef\xbb\xbf" {
-		br.Discard(3)
-	}
-	line, data := 0, -1 // data: rows seen, −1 before the header
-	for {
-		b, err := br.ReadSlice('\n')
-		if len(b) == 0 && err != nil {
-			return 0
-		}
-		line++
-		b = bytes.TrimSuffix(bytes.TrimSuffix(b, []byte{'\n'}), []byte{'\r'})
-		if len(b) > 0 && b[0] != '#' {
-			if data++; data == row {
-				return line
-			}
-		}
-		if err != nil && err != bufio.ErrBufferFull {
-			return 0
-		}
-	}
-}
-
 func plural(n int, one, many string) string {
 	if n == 1 {
 		return one
@@ -490,7 +456,7 @@ func reducePoints(spec *reduction.Spec, opt reduceOptions, rd chanfile.Source, p
 	spec.Points, spec.Zero, spec.Tare = *opt.points, opt.zero, opt.tare
 	in := reduction.Input{Name: opt.data, Source: rd}
 	if !parquet {
-		in.LineOf = func(row int) int { return lineOfRow(opt.data, row) }
+		in.LineOf = func(row int) int { return reduction.LineOfRow(opt.data, row) }
 	}
 	res, err := spec.Reduce(in)
 	if err != nil {

@@ -10,10 +10,10 @@ import (
 
 // LineOfRow returns the line of the text channel file at path that holds
 // data row row (from 1), reading the file as chanfile.Reader does: a
-// byte-order mark skipped, blank lines and lines starting with '#'
-// skipped, the first other line the header; 0 if the file cannot be
-// read or is shorter. It reads the file again, so it is for messages,
-// not for a loop.
+// byte-order mark skipped, empty lines and lines starting with '#'
+// skipped (a line of spaces is a row, as it is to the reader), the first
+// other line the header; 0 if the file cannot be read or is shorter.
+// It reads the file again, so it is for messages, not for a loop.
 func LineOfRow(path string, row int) int {
 	f, err := os.Open(path)
 	if err != nil {
@@ -32,7 +32,7 @@ func LineOfRow(path string, row int) int {
 		}
 		line++
 		b = bytes.TrimSuffix(bytes.TrimSuffix(b, []byte{'\n'}), []byte{'\r'})
-		if len(bytes.TrimSpace(b)) > 0 && b[0] != '#' {
+		if len(b) > 0 && b[0] != '#' {
 			if data++; data == row {
 				return line
 			}

@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"iter"
 	"math"
 	"slices"
 	"strings"
@@ -481,6 +482,33 @@ func names(cols []chanfile.Column) string {
 	return sb.String()
 }
 
+// chunks reads the selected columns chunk by chunk into *chunk, applies
+// the sample calibrations to each and yields its number of rows. A failed
+// read or calibration ends it with the error in *errp; the end of the
+// input ends it leaving *errp alone.
+func (r *run) chunks(chunk *[]quantity.Series, errp *error) iter.Seq[int] {
+	return func(yield func(int) bool) {
+		for {
+			c, n, err := r.sel.Read(*chunk, r.spec.ChunkRows)
+			*chunk = c
+			if err == io.EOF {
+				return
+			}
+			if err != nil {
+				*errp = setOp(wrap(r.in.Name, err), "read")
+				return
+			}
+			if err := r.calibrate(c, quantity.Series{}, r.res.Rows); err != nil {
+				*errp = err
+				return
+			}
+			if !yield(n) {
+				return
+			}
+		}
+	}
+}
+
 // calibrate applies the sample calibrations to a chunk of the selected
 // columns; base is the rows read before it.
 func (r *run) calibrate(chunk []quantity.Series, t quantity.Series, base int) error {
@@ -578,22 +606,11 @@ func (r *run) rows() error {
 		gser   = make([]quantity.Series, ng)
 		gbuf   = make([][]float64, ng)
 		err    error
-		n      int
 	)
 	if r.prog != nil {
 		dout = make([][]float64, len(r.prog.Outputs()))
 	}
-	for {
-		chunk, n, err = r.sel.Read(chunk, r.spec.ChunkRows)
-		if err == io.EOF {
-			return nil
-		}
-		if err != nil {
-			return setOp(wrap(r.in.Name, err), "read")
-		}
-		if err := r.calibrate(chunk, quantity.Series{}, r.res.Rows); err != nil {
-			return err
-		}
+	for n := range r.chunks(&chunk, &err) {
 		if r.prog != nil {
 			for o := range dout {
 				dout[o] = grow(dout[o], n)
@@ -650,6 +667,7 @@ func (r *run) rows() error {
 		}
 		r.res.Rows += n
 	}
+	return err
 }
 
 // failingRow finds the first row of the chunk whose groups cannot be
@@ -677,25 +695,16 @@ func (r *run) points() error {
 	hist := make([][]float64, len(r.names))
 	dims := make([]quantity.Dim, len(r.names))
 	var chunk []quantity.Series
-	var t quantity.Series
-	for {
-		var n int
-		var err error
-		chunk, n, err = r.sel.Read(chunk, s.ChunkRows)
-		if err == io.EOF {
-			break
-		}
-		if err != nil {
-			return setOp(wrap(r.in.Name, err), "read")
-		}
-		if err := r.calibrate(chunk, t, r.res.Rows); err != nil {
-			return err
-		}
+	var err error
+	for n := range r.chunks(&chunk, &err) {
 		for k := range hist {
 			hist[k] = append(hist[k], chunk[k].Values()[:n]...)
 			dims[k] = chunk[k].Dim()
 		}
 		r.res.Rows += n
+	}
+	if err != nil {
+		return err
 	}
 	series := map[string]quantity.Series{}
 	for k, name := range r.names {

@@ -3,7 +3,6 @@ package reduction
 import (
 	"errors"
 	"fmt"
-	"io"
 	"math"
 	"slices"
 	"strconv"
@@ -318,20 +317,9 @@ func (r *run) stream() error {
 		}
 		return low
 	}
-	for {
-		var n int
-		var err error
-		chunk, n, err = r.sel.Read(chunk, s.ChunkRows)
-		if err == io.EOF {
-			break
-		}
-		if err != nil {
-			return setOp(wrap(r.in.Name, err), "read")
-		}
+	var err error
+	for n := range r.chunks(&chunk, &err) {
 		base := r.res.Rows
-		if err := r.calibrate(chunk, quantity.Series{}, base); err != nil {
-			return err
-		}
 		if r.prog != nil {
 			for o := range dout {
 				dout[o] = grow(dout[o], n)
@@ -365,6 +353,9 @@ func (r *run) stream() error {
 		if k := low - h.base; k > 0 && (len(h.vals) == 0 || 2*k >= len(h.vals[0])) {
 			h.drop(low)
 		}
+	}
+	if err != nil {
+		return err
 	}
 	// The end of the record: the last windows, then the points in order.
 	if err := pt.finish(r.res.Rows); err != nil {

@@ -2,7 +2,9 @@ package reduction
 
 import (
 	"bytes"
+	"errors"
 	"os"
+	"strings"
 	"testing"
 
 	"github.com/google/go-cmp/cmp"
@@ -166,5 +168,54 @@ func TestStreamStatsEqualSummarize(t *testing.T) {
 	}
 	if n != 12 {
 		t.Errorf("%d channels compared, want 3 points × 4", n)
+	}
+}
+
+// TestReadErrorEveryPath: a malformed row deep in the file (line 1504,
+// past several chunks of 333 rows) stops the reduction on every path —
+// all rows, one pass over Runs, the whole history — with a "read" error
+// of class ErrParse naming the file and the line.
+func TestReadErrorEveryPath(t *testing.T) {
+	b, err := os.ReadFile("testdata/carriage.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	lines := bytes.SplitAfter(b, []byte("\n"))
+	bad := bytes.Join([][]byte{bytes.Join(lines[:1503], nil), []byte("1.0,1,2\n"), bytes.Join(lines[1503:], nil)}, nil)
+	p, err := pigroups.NewProblem(
+		pigroups.Variable{Symbol: "V", Dim: quantity.Velocity, Role: pigroups.Dependent},
+		pigroups.Variable{Symbol: "t", Dim: quantity.Time},
+		pigroups.Variable{Symbol: "L", Dim: quantity.Length},
+	)
+	if err != nil {
+		t.Fatal(err)
+	}
+	set, err := p.PiSet("t", "L")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		name   string
+		points Points
+		whole  bool
+	}{
+		{"all rows", AllRows(), false},
+		{"runs, one pass", Runs("run", 200, 0), false},
+		{"runs, whole history", Runs("run", 200, 0), true},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			wholeHistory = c.whole
+			defer func() { wholeHistory = false }()
+			src, err := chanfile.NewReader(bytes.NewReader(bad), "carriage.csv", chanfile.Options{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			spec := Spec{Points: c.points, Set: set, Derive: "L = 2 {m}", ChunkRows: 333}
+			_, err = spec.Reduce(Input{Name: "carriage.csv", Source: src})
+			var re *Error
+			if !errors.As(err, &re) || re.Op != "read" || !errors.Is(err, quantity.ErrParse) || !strings.Contains(err.Error(), "carriage.csv:1504") {
+				t.Errorf("err = %v; want a read error of class ErrParse at carriage.csv:1504", err)
+			}
+		})
 	}
 }

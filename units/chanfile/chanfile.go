@@ -14,6 +14,7 @@ import (
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
+	"similis.dev/similis/units/chanfile/internal/filebase"
 )
 
 // MaxColumns bounds the number of channels of one file.
@@ -79,12 +80,7 @@ func (e *Error) Error() string {
 	if e.Field != "" {
 		fmt.Fprintf(&sb, "%q: ", e.Field)
 	}
-	sb.WriteString(e.Reason)
-	if e.Err != nil {
-		sb.WriteString(": ")
-		sb.WriteString(e.Err.Error())
-	}
-	return sb.String()
+	return filebase.Finish(&sb, e.Reason, e.Err)
 }
 
 // Unwrap returns the underlying error.
@@ -92,30 +88,7 @@ func (e *Error) Unwrap() error { return e.Err }
 
 // Is reports whether target is the error's class (see Error), when Err
 // has no class of its own; otherwise errors.Is finds the class on Err.
-func (e *Error) Is(target error) bool {
-	if e.Err != nil && classOf(e.Err) != nil {
-		return false
-	}
-	if e.class == nil {
-		return target == quantity.ErrParse
-	}
-	return target == e.class
-}
-
-// classes are the error classes of package quantity.
-var classes = [...]error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid}
-
-// classOf returns the class of package quantity that err matches under
-// errors.Is (ErrDimension, ErrRange, ErrParse, ErrUnknown or ErrInvalid),
-// or nil if it matches none. An error of this package matches exactly one.
-func classOf(err error) error {
-	for _, c := range classes {
-		if errors.Is(err, c) {
-			return c
-		}
-	}
-	return nil
-}
+func (e *Error) Is(target error) bool { return filebase.Is(e.Err, e.class, target) }
 
 // Options adjust how a file is read. The zero value detects the encoding,
 // the delimiter and the decimal mark, reads every column, takes the
@@ -1326,15 +1299,8 @@ func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, 
 	if rows <= 0 {
 		rows = 4096
 	}
-	for len(dst) < len(r.cols) {
-		dst = append(dst, quantity.Series{})
-	}
-	dst = dst[:len(r.cols)]
-	if r.vals == nil {
-		r.vals = make([][]float64, len(r.cols))
-	}
+	dst, r.vals = filebase.Batch(dst, len(r.cols), r.vals)
 	for j := range r.cols {
-		r.vals[j] = dst[j].Values()[:0]
 		r.labels[j] = r.labels[j][:0]
 	}
 	vals := r.vals

@@ -1,7 +1,6 @@
 package parquetfile
 
 import (
-	"errors"
 	"fmt"
 	"io"
 	"maps"
@@ -16,6 +15,7 @@ import (
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
 	"similis.dev/similis/units/chanfile"
+	"similis.dev/similis/units/chanfile/internal/filebase"
 )
 
 // UnitKey is the prefix of the key-value metadata entry that holds a
@@ -66,12 +66,7 @@ func (e *Error) Error() string {
 	if e.Column > 0 || e.Field != "" {
 		sb.WriteString(": ")
 	}
-	sb.WriteString(e.Reason)
-	if e.Err != nil {
-		sb.WriteString(": ")
-		sb.WriteString(e.Err.Error())
-	}
-	return sb.String()
+	return filebase.Finish(&sb, e.Reason, e.Err)
 }
 
 // Unwrap returns the underlying error.
@@ -79,29 +74,7 @@ func (e *Error) Unwrap() error { return e.Err }
 
 // Is reports whether target is the error's class (see Error), when Err
 // has no class of its own; otherwise errors.Is finds the class on Err.
-func (e *Error) Is(target error) bool {
-	if e.Err != nil && classOf(e.Err) != nil {
-		return false
-	}
-	if e.class == nil {
-		return target == quantity.ErrParse
-	}
-	return target == e.class
-}
-
-// classes are the error classes of package quantity.
-var classes = [...]error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid}
-
-// classOf returns the class of package quantity that err matches under
-// errors.Is, or nil if it matches none.
-func classOf(err error) error {
-	for _, c := range classes {
-		if errors.Is(err, c) {
-			return c
-		}
-	}
-	return nil
-}
+func (e *Error) Is(target error) bool { return filebase.Is(e.Err, e.class, target) }
 
 // Options adjust how a file is read and written. The zero value reads
 // units from the metadata or the column names and refuses gauge columns.

@@ -17,6 +17,7 @@ import (
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/units"
 	"similis.dev/similis/units/chanfile"
+	"similis.dev/similis/units/chanfile/internal/filebase"
 )
 
 // Kind is what a column read holds.
@@ -594,15 +595,8 @@ func (r *Reader) Read(dst []quantity.Series, rows int) (out []quantity.Series, n
 	if rows <= 0 {
 		rows = 4096
 	}
-	for len(dst) < len(r.cols) {
-		dst = append(dst, quantity.Series{})
-	}
-	dst = dst[:len(r.cols)]
-	if r.vals == nil {
-		r.vals = make([][]float64, len(r.cols))
-	}
+	dst, r.vals = filebase.Batch(dst, len(r.cols), r.vals)
 	for j := range r.cols {
-		r.vals[j] = dst[j].Values()[:0]
 		r.rc[j].labels = r.rc[j].labels[:0]
 	}
 	defer func() {
@@ -672,7 +666,7 @@ func fill(c *rcol, dst []parquet.Value) (int, error) {
 // closeGroup closes the pages of the row group being read.
 func (r *Reader) closeGroup() error {
 	var err error
-	for j := range r.rc {
+	for j := range r.cols {
 		c := &r.rc[j]
 		if c.pages != nil {
 			if e := c.pages.Close(); e != nil && err == nil {
