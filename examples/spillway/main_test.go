@@ -173,3 +173,32 @@ func TestReportWording(t *testing.T) {
 		}
 	}
 }
+
+// TestCrestHeadSource: the crest head says where it comes from in each
+// case. At -q 2000 the model discharge 2000/30^2.5 = 0.4057 m³/s is
+// beyond the largest measured 0.13467 m³/s: the inverted rating is an
+// extrapolation and is marked so; at -q 30 the low flow, 0.6086 L/s, is
+// below every measurement, and is marked so too.
+func TestCrestHeadSource(t *testing.T) {
+	for _, c := range []struct {
+		q    string
+		want string
+	}{
+		{"2000", "design discharge: model Q = 405.72 L/s"},
+		{"30", "low flow, a tenth of it: model Q = 0.61 L/s"},
+	} {
+		var out bytes.Buffer
+		if err := run(&out, append([]string{"-q", c.q}, noPlot...)); err != nil {
+			t.Fatal(err)
+		}
+		s := out.String()
+		i := strings.Index(s, c.want)
+		if i < 0 {
+			t.Fatalf("-q %s: output lacks %q", c.q, c.want)
+		}
+		line := strings.SplitN(s[i:], "\n", 3)[1]
+		if !strings.Contains(line, "model head h = ") || !strings.Contains(line, "EXTRAPOLATED: the fitted model rating inverted beyond every measurement") {
+			t.Errorf("-q %s: %q", c.q, line)
+		}
+	}
+}
