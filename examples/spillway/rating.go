@@ -63,7 +63,7 @@ func crestHead(r *hydraulic.Rating, qm float64) (float64, string) {
 		if qm >= a.Discharge && qm <= b.Discharge {
 			f := math.Log(qm/a.Discharge) / math.Log(b.Discharge/a.Discharge)
 			h = a.Head * math.Pow(b.Head/a.Head, f)
-			return h, fmt.Sprintf("interpolated log–log between the measured points %d (h = %.3f m, Q = %.2f L/s) and %d (h = %.3f m, Q = %.2f L/s), below the fitted rating's range",
+			return h, fmt.Sprintf("interpolated log–log between the measured points %d (h = %.3f m, Q = %.2f L/s) and %d (h = %.3f m, Q = %.2f L/s), below the fitted rating's range (the rating excludes them for scale effects; they still measure the model's head)",
 				i-1, a.Head, a.Discharge*1000, i, b.Head, b.Discharge*1000)
 		}
 	}

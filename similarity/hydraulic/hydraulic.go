@@ -74,8 +74,10 @@ type ScaleCheck struct {
 	Warning string
 }
 
-// String writes "Re = V·h/ν = 4.2e+04 (limit ≥ 1e+04, common practice):
-// passes" or "… FAILS: scale effects likely" (or the check's Warning).
+// String writes "Re = V·h/ν = 4.20e+04 (limit ≥ 1e+04, common practice):
+// passes" or "… FAILS: scale effects likely" (or the check's Warning);
+// the value has three significant figures, trailing zeros kept, plain
+// from 0.001 to 10⁴ and with an exponent outside it.
 func (c ScaleCheck) String() string {
 	verdict := "passes"
 	if !c.Pass {
