@@ -17,6 +17,7 @@ import (
 	"os"
 	"path/filepath"
 	"slices"
+	"strconv"
 	"strings"
 
 	"gonum.org/v1/plot"
@@ -37,20 +38,26 @@ const usageText = `restrictor reduces an invented bench test of a flow restricto
 12, 24 and 48 mm long, in a glycol coolant): it prints the dimensional matrix,
 the Pi groups of the chosen repeating set, the fifteen rows reduced to
 Eu = Δp/(ρ·V²) (Euler number, V the mean velocity in the bore), Re = ρ·V·d/μ
-(Reynolds number on the bore) and L/d, and the power law Eu = C·Re^a·(L/d)^b
-fitted by least squares on logarithms, with:
-  - 95 % intervals of C and the exponents, the rows taken as a correlated
+(Reynolds number on the bore) and L/d (a table, with the fitted Eu and the
+residual of each row), and the power law Eu = C·Re^a·(L/d)^b fitted by least
+squares on logarithms, with:
+  - 95 % intervals of C and the exponents (and the exponents' standard
+    uncertainties, k = 1), the rows taken as a correlated
     sequence (effective rows n_eff = n(1 − r₁)/(1 + r₁) from the residuals'
     lag-1 autocorrelation r₁, common practice);
-  - a runs test on the residuals' signs (lack of fit) and a warning that Eu
-    and Re share ρ and V (spurious correlation inflates R²);
+  - a runs test on the residuals' signs (lack of fit: too few runs), a
+    caution when the residuals alternate instead (too many runs, or r₁
+    strongly negative), and a warning that Eu and Re share ρ and V
+    (spurious correlation inflates R²);
   - a prediction at a mid-range point, its apparent Darcy friction factor
     f_D = 2·Eu/(L/d) (Darcy–Weisbach; the Fanning factor is f_D/4), and an
     extrapolated point marked as such;
-  - the uncertainty budget of one row (GUM), and
+  - the uncertainty budget of one row (GUM; u is a standard uncertainty,
+    k = 1, U an expanded one), and
   - a log–log plot of Eu against Re, one marker shape per L/d with its fitted
     line, written as restrictor-fit.png and restrictor-fit.svg in -out.
-The repeating set must give Eu, Re and L/d (rho,V,d does); another set is
+The output ends with the fitted ranges of Re and L/d, outside which the law
+is an extrapolation. The repeating set must give Eu, Re and L/d (rho,V,d does); another set is
 refused with the sets that do. Exit status: 0 done, 1 failure, 2 usage.
 
 Flags:
@@ -84,6 +91,7 @@ type Result struct {
 	Set      *pigroups.Set
 	Fit      *pigroups.PowerLaw
 	Groups   [][]float64 // per row: Eu, Re, L/d, whatever the order of the set
+	Velocity []float64   // per row: the mean velocity in the bore, m/s
 	PNG, SVG string
 	Budget   RowBudget
 	DarcyMid float64 // the apparent Darcy friction factor at the mid-range point
@@ -161,11 +169,69 @@ func rowBudget(w io.Writer, set *pigroups.Set, fit *pigroups.PowerLaw, idx [3]in
 	fmt.Fprintf(w, "Δp = P1 − P2 = %.1f kPa, u = %.3f kPa with both transducers calibrated on one dead-weight tester\n",
 		rb.DP.Value()/1e3, rb.DP.U().Value()/1e3)
 	fmt.Fprintf(w, "  (%.3f kPa had each its own standard of the same quality: the shared error cancels in the difference)\n", rb.DPIndependent.U().Value()/1e3)
-	fmt.Fprintf(w, "Re = %.0f ± %.0f, L/d = %.3f ± %.3f\n", rb.Re.Value(), rb.Re.U().Value(), rb.LD.Value(), rb.LD.U().Value())
+	fmt.Fprintf(w, "Re = %s, L/d = %s; u: standard uncertainties, k = 1\n", withU(rb.Re.Value(), rb.Re.U().Value()), withU(rb.LD.Value(), rb.LD.U().Value()))
 	fmt.Fprint(w, rb.Budget)
-	fmt.Fprintf(w, "the fit at this row: Eu = %.4f ± %.4f (fit and inputs)%s\n", rb.EuFit.Value(), rb.EuFit.U().Value(), note(pr))
-	fmt.Fprintf(w, "measured − fitted = %.4f, U(95 %%) = %.4f (the shared ρ, V, d cancel in part)\n", dev.Value.Value(), dev.Expanded.Value())
+	ev, eu := roundPair(rb.EuFit.Value(), rb.EuFit.U().Value())
+	fmt.Fprintf(w, "the fit at this row: Eu = %s (u = %s; standard uncertainty, k = 1, from the fit and the inputs)%s\n", ev, eu, note(pr))
+	dv, du := roundPair(dev.Value.Value(), dev.Expanded.Value())
+	fmt.Fprintf(w, "measured − fitted = %s, expanded uncertainty U(95 %%, k = %.2f) = %s (the shared ρ, V, d cancel in part)\n", dv, dev.K, du)
 	return rb, nil
+}
+
+// printRows prints the bench rows reduced to the groups, with the fitted
+// Eu and the residual, in the order of the readings.
+func printRows(w io.Writer, res *Result, fit *pigroups.PowerLaw) {
+	fmt.Fprintln(w, "  the rows reduced (Eu = Δp/(ρ·V²), Re = ρ·V·d/μ, V = Q/(π·d²/4)); residual = ln(Eu/Eu_fit), about the fraction off the fit:")
+	fmt.Fprintf(w, "  %3s %9s %5s %8s %7s %7s %6s %5s %7s %9s\n", "#", "Q L/min", "L mm", "Δp kPa", "V m/s", "Eu", "Re", "L/d", "Eu_fit", "residual")
+	for i, g := range res.Groups {
+		r := readings[i]
+		pr, err := fit.Predict(g[1], g[2])
+		fitted, resid := "–", "–"
+		if err == nil {
+			fitted, resid = fmt.Sprintf("%.4f", pr.Value), fmt.Sprintf("%+.2f %%", 100*math.Log(g[0]/pr.Value))
+		}
+		fmt.Fprintf(w, "  %3d %9s %5s %8s %7.3f %7.4f %6.0f %5.3g %7s %9s\n", i, strings.Fields(r.flow)[0], strings.Fields(r.length)[0],
+			strings.Fields(r.dp)[0], res.Velocity[i], g[0], g[1], g[2], fitted, resid)
+	}
+}
+
+// alternation remarks on residuals that alternate in sign: too many runs
+// (z ≥ 1.96, the upper tail of a two-sided 5 % test) or a strongly
+// negative lag-1 autocorrelation. The runs test as printed looks for too
+// few runs only, and n_eff is capped at n when r₁ ≤ 0, so neither shows
+// this; it is empty when the residuals do not alternate.
+func alternation(f *pigroups.PowerLaw) string {
+	if !(f.Runs.Z >= 1.96 || f.R1 <= -0.5) {
+		return ""
+	}
+	return fmt.Sprintf("the residuals alternate in sign: %d runs against %.1f expected (z = %+.2f; two-sided, |z| ≥ 1.96 is significant at 5 %%), "+
+		"and r₁ = %.3f; too many runs and a negative autocorrelation are a warning sign too, which neither the one-sided runs test "+
+		"nor n_eff (capped at n) shows: look for their cause (an alternating test order or reading, an instrument that overshoots, "+
+		"a term the law lacks) before trusting the intervals", f.Runs.Runs, f.Runs.Expected, f.Runs.Z, f.R1)
+}
+
+// withU writes a value and its standard uncertainty u rounded together:
+// u to two significant figures, the value to the same decimal place
+// ("10130 (u = 210)").
+func withU(v, u float64) string {
+	a, b := roundPair(v, u)
+	return a + " (u = " + b + ")"
+}
+
+// roundPair rounds u to two significant figures and v to the same
+// decimal place, as a result is quoted with its uncertainty (GUM 7.2.6).
+func roundPair(v, u float64) (string, string) {
+	if !(u > 0) || math.IsInf(u, 0) {
+		return fmt.Sprintf("%.4g", v), fmt.Sprintf("%.2g", u)
+	}
+	e := int(math.Floor(math.Log10(u))) - 1 // the place of u's second figure
+	p := math.Pow(10, float64(e))
+	if math.Round(u/p) >= 100 {
+		e++
+		p *= 10
+	}
+	dec := max(0, -e)
+	return strconv.FormatFloat(math.Round(v/p)*p, 'f', dec, 64), strconv.FormatFloat(math.Round(u/p)*p, 'f', dec, 64)
 }
 
 func note(p pigroups.Prediction) string {
@@ -295,6 +361,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 			return nil, fmt.Errorf("row %d: %w", i, err)
 		}
 		res.Groups = append(res.Groups, []float64{g[iEu], g[iRe], g[iLD]})
+		res.Velocity = append(res.Velocity, v.Value())
 		y = append(y, g[iEu])
 		xs[0] = append(xs[0], g[iRe])
 		xs[1] = append(xs[1], g[iLD])
@@ -308,13 +375,19 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	}
 	res.Fit = fit
 	fmt.Fprintf(w, "\nfit over %d rows: Eu = %.4g · Re^%.4f · (L/d)^%.4f\n", fit.N, fit.C, fit.Exponents[0], fit.Exponents[1])
+	printRows(w, res, fit)
 	fmt.Fprintf(w, "  rows taken as a correlated sequence: residual lag-1 autocorrelation r₁ = %.3f, n_eff = n(1 − r₁)/(1 + r₁) = %.1f of %d (n when r₁ ≤ 0)\n", fit.R1, fit.NEff, fit.N)
 	fmt.Fprintf(w, "  C in [%.4g, %.4g] (95 %%)\n", fit.CInterval[0], fit.CInterval[1])
 	for k, a := range fit.Exponents {
-		fmt.Fprintf(w, "  exponent of %s: %.4f ± %.4f, 95 %% interval [%.4f, %.4f]\n", names[k+1], a, fit.StdErr[k+1], fit.Intervals[k][0], fit.Intervals[k][1])
+		t := (fit.Intervals[k][1] - a) / fit.StdErr[k+1]
+		fmt.Fprintf(w, "  exponent of %s: %.4f, standard uncertainty %.4f (k = 1); 95 %% interval [%.4f, %.4f] (±t·u, t = %.2f, %d degrees of freedom)\n",
+			names[k+1], a, fit.StdErr[k+1], fit.Intervals[k][0], fit.Intervals[k][1], t, fit.DoF)
 	}
 	fmt.Fprintf(w, "  R² = %.4f, residual RMS in ln = %.4f\n", fit.R2, fit.RMS)
 	fmt.Fprintf(w, "  %s\n", fit.Runs)
+	if alt := alternation(fit); alt != "" {
+		fmt.Fprintf(w, "  CAUTION: %s\n", alt)
+	}
 	for _, m := range fit.Warnings {
 		fmt.Fprintf(w, "  WARNING: %s\n", m)
 	}
@@ -341,7 +414,8 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		return nil, err
 	}
 	fmt.Fprintf(w, "\nplots (Eu against Re, log–log, one marker per L/d with its fitted line): %s, %s\n", res.PNG, res.SVG)
-	fmt.Fprintln(w, "\nNote: a correlation is valid only over the range of the data it was fitted to.")
+	fmt.Fprintf(w, "\nNote: a correlation is valid only over the range of the data it was fitted to: here Re %.0f … %.0f and L/d %.3g … %.3g.\n",
+		fit.Ranges[0][0], fit.Ranges[0][1], fit.Ranges[1][0], fit.Ranges[1][1])
 	return res, nil
 }
 

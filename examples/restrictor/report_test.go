@@ -9,6 +9,7 @@ import (
 	"os"
 	"path/filepath"
 	"reflect"
+	"regexp"
 	"strings"
 	"testing"
 
@@ -161,4 +162,63 @@ func FuzzRun(f *testing.F) {
 		args := append(strings.Fields(line), "-out", t.TempDir())
 		_ = run(io.Discard, args)
 	})
+}
+
+// TestReportLines: the printed lines a reader acts on.
+//
+// The rows: row 3 is 6.0 L/min through the 12 mm restrictor, V =
+// (6.0/60000 m³/s)/(π/4·0.006² m²) = 3.5368 m/s, Eu = 26600/(1050·3.5368²)
+// = 2.0252, Re = 1050·3.5368·0.006/0.0022 = 10128, L/d = 12/6 = 2; the
+// range of Re is 10128·2/6 = 3376 to 10128·8/6 = 13504 and of L/d 2 to 8.
+// The exponents' ± is the standard error, said so, with the 95 % interval
+// at t = 2.18 for 12 degrees of freedom (t table, 0.975 quantile:
+// 2.179). The row's Re = 10128 with u ≈ 210 is quoted as 10130 (u = 210),
+// u to two figures and the value to the same place (GUM 7.2.6), and
+// ν_eff, some 7·10⁴, as "> 100". The residuals alternate (13 runs against
+// 8.5, z = +2.44, r₁ = −0.813): the output says so.
+func TestReportLines(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, []string{"-out", t.TempDir()}); err != nil {
+		t.Fatal(err)
+	}
+	s := out.String()
+	for _, want := range []string{
+		"#   Q L/min  L mm   Δp kPa   V m/s      Eu     Re   L/d  Eu_fit  residual",
+		"    3       6.0    12     26.6   3.537  2.0252  10128     2  2.0209   +0.21 %",
+		"   14       8.0    48     65.0   4.716  2.7838  13504     8  2.7886   -0.17 %",
+		"exponent of Re: -0.0977, standard uncertainty 0.0050 (k = 1); 95 % interval [-0.1086, -0.0867] (±t·u, t = 2.18, 12 degrees of freedom)",
+		"CAUTION: the residuals alternate in sign: 13 runs against 8.5 expected (z = +2.44; two-sided, |z| ≥ 1.96 is significant at 5 %), and r₁ = -0.813",
+		"Re = 10130 (u = 210), L/d = 2.0000 (u = 0.0090); u: standard uncertainties, k = 1",
+		"ν_eff > 100, k = 1.96",
+		"the fit at this row: Eu = 2.0209 (u = 0.0099; standard uncertainty, k = 1, from the fit and the inputs)",
+		"Note: a correlation is valid only over the range of the data it was fitted to: here Re 3376 … 13504 and L/d 2 … 8.",
+	} {
+		if !strings.Contains(s, want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+	if n := len(regexp.MustCompile(`(?m)^ +\d+ +\d\.\d +(12|24|48) +\d+\.\d+ +\d\.\d{3} `).FindAllString(s, -1)); n != 15 {
+		t.Errorf("%d row lines, want the 15 rows", n)
+	}
+	for _, bad := range []string{"69701", "± 0.0050", "10128 ± 210", "2.0209 ± 0.0099"} {
+		if strings.Contains(s, bad) {
+			t.Errorf("output still has %q", bad)
+		}
+	}
+}
+
+// TestRoundPair: u to two significant figures, the value to the same
+// decimal place.
+func TestRoundPair(t *testing.T) {
+	for _, c := range []struct {
+		v, u float64
+		a, b string
+	}{
+		{10128.4, 211.7, "10130", "210"}, {2.02087, 0.00987, "2.0209", "0.0099"}, {2, 0.00904, "2.0000", "0.0090"},
+		{0.00434, 0.0526, "0.004", "0.053"}, {5.0, 0.996, "5.0", "1.0"},
+	} {
+		if a, b := roundPair(c.v, c.u); a != c.a || b != c.b {
+			t.Errorf("roundPair(%v, %v) = %s, %s; want %s, %s", c.v, c.u, a, b, c.a, c.b)
+		}
+	}
 }

@@ -60,8 +60,9 @@ func TestSpillwayHelp(t *testing.T) {
 }
 
 // TestSpillwayLabels: the report says which velocity V is and where
-// (critical, at the crest) and that Re and We are both formed with the
-// head h; it ends with the caution deferring to local codes and licensed
+// (critical, for the unit discharge over the crest: at the design
+// discharge q = 0.091287/0.76 = 0.12011 m²/s, V = (9.80665·q)^(1/3) =
+// 1.0561 m/s) and that Re and We are both formed with the head h; it ends with the caution deferring to local codes and licensed
 // engineers.
 func TestSpillwayLabels(t *testing.T) {
 	var out bytes.Buffer
@@ -69,9 +70,9 @@ func TestSpillwayLabels(t *testing.T) {
 		t.Fatal(err)
 	}
 	for _, want := range []string{
-		"V = √(g·y_c) is the critical velocity at the",
+		"V = (g·q)^(1/3) is the critical velocity for the unit discharge q = Q/b over the model crest",
 		"Re = V·h/ν and We = ρV²h/σ are both formed with this V and the length h",
-		"critical velocity V = 0.957 m/s",
+		"critical velocity V = 1.056 m/s",
 		"local codes", "licensed engineers",
 	} {
 		if !strings.Contains(out.String(), want) {

@@ -4,7 +4,8 @@
 // prototype as a Series, a distorted-scale variant for the river reach
 // upstream with the grain size a movable bed would need, and the
 // scale-effect checks at the crest (its radius, and the Reynolds and
-// Weber numbers and the head at the design discharge and at a low flow),
+// Weber numbers and the head at the design discharge and at a low flow,
+// the head from the model's own rating measurements),
 // each limit printed with the publication or practice it rests on. It
 // flags a model Manning n smoother than model materials reach and a
 // movable-bed grain whose particle Reynolds number falls into the viscous
@@ -52,10 +53,15 @@ the smoothest model materials; a distorted variant of the approach reach
 with the movable-bed grain that keeps Shields similarity and its particle
 Reynolds number checked against the viscous range; and the scale-effect
 checks at the crest (crest radius, Reynolds and Weber numbers, head),
-each with its limit, the limit's basis and a verdict. The crest velocity
-V is the critical velocity √(g·y_c) where the flow passes critical depth
-y_c = ⅔h over the crest, h the head over the crest; Re and We are both
-formed with V and h. Then the weir's rating: the invented model
+each with its limit, the limit's basis and a verdict, at the design
+discharge and at a tenth of it. There h, the head over the crest, is
+the model's measured head at that discharge (the fitted rating inverted
+within its range, else interpolated between measured points, as
+printed); the crest velocity V = (g·q)^(1/3) is the
+critical velocity for the unit discharge q = Q/b over the model crest
+(critical depth y_c = V²/g); Re and We are both formed with V and h, here and in
+the rating table. The pressure peak is that of a short record, not a
+design extreme. Then the weir's rating: the invented model
 measurements of head h and discharge Q, each point's weir coefficient
 C_d = Q/((2/3)·√(2g)·b·h^(3/2)) and scale-effect check (a point failing a
 limit is EXCLUDED from the rating, by the rule printed with it); the
@@ -63,8 +69,8 @@ model rating Q = C·h^n fitted in logarithms with its confidence
 intervals, outliers flagged, and its range of validity; and the
 prototype rating (h_p = x·h_m, Q_p = x^(5/2)·Q_m) as a table of
 discharges with the band of the fit's uncertainty (scale effects are
-not in the band), heads outside the range marked EXTRAPOLATED. The
-rating curve is drawn as spillway-rating.png and spillway-rating.svg in
+not in the band) and u_rel, the curve's standard (k = 1) uncertainty;
+heads outside the range are marked EXTRAPOLATED. The rating curve is drawn as spillway-rating.png and spillway-rating.svg in
 -out (log–log, with a lower panel of each point and the band as a
 deviation from the fitted curve in per cent; no plot when -out is
 empty). All data are invented; the output ends with the caution that
@@ -81,6 +87,8 @@ type Result struct {
 	Manning                                              float64
 	ManningCheck                                         hydraulic.ScaleCheck     // the model n against the smoothest materials
 	Checks                                               [][]hydraulic.ScaleCheck // design and low flow
+	CrestHeads                                           []float64                // m, model heads of Checks, from the model rating
+	CrestVelocities                                      []float64                // m/s, V = (g·q)^(1/3) of Checks
 	CrestRadius                                          hydraulic.ScaleCheck
 	Sediment                                             hydraulic.SedimentScales
 	ProtoShearVelocity, ProtoReStar, ModelGrain          float64              // m/s, 1, m
@@ -90,12 +98,10 @@ type Result struct {
 	PNG, SVG                                             string                  // the plot's files, empty when not drawn
 }
 
-// Invented crest hydraulics of the prototype: the head over the crest at
-// the reference discharge, and a low flow at a tenth of the design
-// discharge; the head scales with Q^(2/3) over the free crest.
+// The crest checks are made at the design discharge and at a low flow of
+// a tenth of it, with the model head taken from the model's own rating
+// measurements (crestHead).
 const (
-	refHead      = 4.2   // m, head over the crest at refDischarge
-	refDischarge = 450.0 // m³/s
 	lowFlowShare = 0.1
 	modelWaterC  = 15.0 // °C, the model's water, and the river's (so λ_ν = 1)
 	// crestRadius is the prototype's radius of curvature at the crest.
@@ -183,7 +189,12 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	for i := range record {
 		fmt.Fprintf(w, "  %8.3f %10.2f   %8.3f %10.2f\n", times[i], record[i], r.ProtoTimes.At(i).Value(), r.ProtoPressure.At(i).Value()/1000)
 	}
-	fmt.Fprintf(w, "  prototype mean %.1f kPa(g), peak %.1f kPa(g)\n", r.ProtoPressure.Mean().Value()/1000, r.ProtoPressure.Max().Value()/1000)
+	n := r.ProtoTimes.Len()
+	span := r.ProtoTimes.At(n-1).Value() - r.ProtoTimes.At(0).Value()
+	fmt.Fprintf(w, "  prototype mean %.1f kPa(g), peak %.1f kPa(g): the highest of %d samples over %.1f s at prototype scale, NOT a design extreme:\n",
+		r.ProtoPressure.Mean().Value()/1000, r.ProtoPressure.Max().Value()/1000, n, span)
+	fmt.Fprintf(w, "  the record is far too short for an extreme, and the peak depends on the sampling rate (%g Hz in the model, %.3g Hz at\n", 1/dt, r.TimeRatio/dt)
+	fmt.Fprintln(w, "  prototype scale) and on the transducer's response (bandwidth, tubing), which were not scaled")
 	fmt.Fprintln(w, "  (gauge pressures scale by λ_L; the atmosphere does not, so absolute pressures, and cavitation margins, must not be scaled this way)")
 
 	if r.Manning, err = hydraulic.ManningRatio(1 / *scale); err != nil {
@@ -192,7 +203,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	if r.ManningCheck, err = hydraulic.ModelManningCheck(*protoN, r.Manning); err != nil {
 		return nil, err
 	}
-	fmt.Fprintf(w, "\nroughness: Manning n ratio λ_L^(1/6) = %.4f (a prototype n of %g s·m^(−1/3) needs a model n of %.4f)\n", r.Manning, *protoN, r.ManningCheck.Value)
+	fmt.Fprintf(w, "\nroughness: Manning n ratio λ_L^(1/6) = %.4f (a prototype n of %g s·m^(−1/3) needs a model n of %.3g)\n", r.Manning, *protoN, r.ManningCheck.Value)
 	fmt.Fprintf(w, "  %v\n", r.ManningCheck)
 
 	if r.Distorted, err = hydraulic.DistortedFroude(hydraulic.DistortedScales{Horizontal: 1 / *hs, Vertical: 1 / *vs}); err != nil {
@@ -200,7 +211,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	}
 	d := r.Distorted
 	fmt.Fprintf(w, "\ndistorted variant for the approach reach: horizontal 1:%g, vertical 1:%g (exaggeration %.3g)\n", *hs, *vs, d.Distortion)
-	fmt.Fprintf(w, "  velocity 1:%.4g, time 1:%.4g, discharge 1:%.5g, slope ×%.3g, Manning n ×%.3f\n",
+	fmt.Fprintf(w, "  velocity 1:%.5g, time 1:%.5g, discharge 1:%.5g, slope ×%.3g, Manning n ×%.3f\n",
 		1/d.Velocity, 1/d.Time, 1/d.Discharge, d.Slope, d.Manning)
 	fmt.Fprintf(w, "  design discharge in the distorted model: %.2f L/s\n", *qp*d.Discharge*1000)
 	if math.IsNaN(d.Velocity) {
@@ -236,10 +247,15 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
+	rating, err := fitWeir(*scale, wat.KinematicViscosity, wat.Density, sigma)
+	if err != nil {
+		return nil, err
+	}
 	lim := hydraulic.WeirLimits()
 	fmt.Fprintf(w, "\nscale-effect checks at the crest, model water %g °C (each limit with its basis):\n", modelWaterC)
-	fmt.Fprintln(w, "  h is the head over the crest (upstream water level above crest level); V = √(g·y_c) is the critical velocity at the")
-	fmt.Fprintln(w, "  crest, where the depth is critical, y_c = ⅔h; Re = V·h/ν and We = ρV²h/σ are both formed with this V and the length h")
+	fmt.Fprintln(w, "  h is the head over the crest (upstream water level above crest level), taken from the model's measured rating below;")
+	fmt.Fprintf(w, "  V = (g·q)^(1/3) is the critical velocity for the unit discharge q = Q/b over the model crest (b = %g m), at the critical\n", ratingCrest)
+	fmt.Fprintln(w, "  depth y_c = V²/g; Re = V·h/ν and We = ρV²h/σ are both formed with this V and the length h")
 	rc, err := hydraulic.CrestRadiusCheck(q.New(crestRadius / *scale, q.Length), lim)
 	if err != nil {
 		return nil, err
@@ -250,20 +266,22 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		name  string
 		share float64
 	}{{"design discharge", 1}, {"low flow, a tenth of it", lowFlowShare}} {
-		h := refHead * math.Pow(*qp*c.share/refDischarge, 2.0/3) / *scale
-		yc := 2 * h / 3
-		v := math.Sqrt(9.80665 * yc)
+		qm := r.ModelDischarge * c.share
+		h, src := crestHead(rating, qm)
+		v := criticalVelocity(qm)
 		cs, err := hydraulic.FreeSurfaceChecks(q.New(v, q.Velocity), q.New(h, q.Length), wat.KinematicViscosity, wat.Density, sigma, lim)
 		if err != nil {
 			return nil, err
 		}
 		r.Checks = append(r.Checks, cs)
-		fmt.Fprintf(w, "  %s: model head h = %.3f m, y_c = %.3f m, critical velocity V = %.3f m/s\n", c.name, h, yc, v)
+		r.CrestHeads, r.CrestVelocities = append(r.CrestHeads, h), append(r.CrestVelocities, v)
+		fmt.Fprintf(w, "  %s: model Q = %.2f L/s, q = %s m²/s, critical velocity V = %.3f m/s, y_c = %s m\n", c.name, qm*1000, sig3(qm/ratingCrest), v, sig3(v*v/9.80665))
+		fmt.Fprintf(w, "    model head h = %s m: %s\n", sig3(h), src)
 		for _, ck := range cs {
 			fmt.Fprintf(w, "    %v\n", ck)
 		}
 	}
-	if err := rateWeir(w, r, *scale, wat.KinematicViscosity, wat.Density, sigma, *out, *width, *height, *dpi); err != nil {
+	if err := rateWeir(w, r, rating, *scale, *out, *width, *height, *dpi); err != nil {
 		return nil, err
 	}
 	fmt.Fprintln(w, "\nCAUTION:", hydraulic.StructureCaution)

@@ -9,6 +9,7 @@ import (
 	"io"
 	"math"
 	"path/filepath"
+	"strconv"
 	"strings"
 
 	"gonum.org/v1/plot"
@@ -31,27 +32,61 @@ var (
 
 const ratingCrest = 0.76 // m, the model crest length b_m
 
-// rateWeir fits the model rating, prints it with the scale-effect check
-// of every point, carries it to the prototype, prints the table with its
-// band, and draws the curve into dir (no plot when dir is empty).
-func rateWeir(w io.Writer, res *Result, scale float64, nu, rho, sigma q.Quantity, dir string, width, height, dpi float64) error {
+// fitWeir fits the model rating to the invented measurements, each
+// point checked for scale effects in the model water (nu, rho, sigma).
+func fitWeir(scale float64, nu, rho, sigma q.Quantity) (*hydraulic.Rating, error) {
 	flows := make([]float64, len(ratingFlows))
 	for i, v := range ratingFlows {
 		flows[i] = v / 1000
 	}
-	r, err := hydraulic.FitRating(hydraulic.RatingInput{
+	return hydraulic.FitRating(hydraulic.RatingInput{
 		Head: q.NewSeries(ratingHeads, q.Length), Discharge: q.NewSeries(flows, q.VolumeFlowRate),
 		CrestLength: q.New(ratingCrest, q.Length), LengthRatio: 1 / scale,
 		KinematicViscosity: nu, Density: rho, SurfaceTension: sigma, Limits: hydraulic.WeirLimits(),
 	})
-	if err != nil {
-		return err
+}
+
+// crestHead returns the model head h at the model discharge qm (m³/s)
+// from the model's own measurements, and says where it comes from:
+// the fitted rating Q = C·h^n inverted where that head lies in its range
+// of validity; else, inside the measured discharges, interpolated
+// log–log between the two neighbouring measured points (points the
+// rating excludes still measure the model's head); beyond every
+// measurement, the fitted rating extrapolated, said so.
+func crestHead(r *hydraulic.Rating, qm float64) (float64, string) {
+	h := math.Pow(qm/r.C, 1/r.N)
+	if h >= r.HeadMin*(1-1e-12) && h <= r.HeadMax*(1+1e-12) {
+		return h, fmt.Sprintf("the fitted model rating inverted, h = (Q/C)^(1/n), within its range %.3f … %.3f m", r.HeadMin, r.HeadMax)
 	}
+	for i := 1; i < len(r.Points); i++ {
+		a, b := r.Points[i-1], r.Points[i]
+		if qm >= a.Discharge && qm <= b.Discharge {
+			f := math.Log(qm/a.Discharge) / math.Log(b.Discharge/a.Discharge)
+			h = a.Head * math.Pow(b.Head/a.Head, f)
+			return h, fmt.Sprintf("interpolated log–log between the measured points %d (h = %.3f m, Q = %.2f L/s) and %d (h = %.3f m, Q = %.2f L/s), below the fitted rating's range (the rating excludes them for scale effects; they still measure the model's head)",
+				i-1, a.Head, a.Discharge*1000, i, b.Head, b.Discharge*1000)
+		}
+	}
+	return h, fmt.Sprintf("EXTRAPOLATED: the fitted model rating inverted beyond every measurement (range %.3f … %.3f m)", r.HeadMin, r.HeadMax)
+}
+
+// criticalVelocity is V = (g·q)^(1/3) for the unit discharge q = Q/b
+// over the model crest: the velocity at critical depth y_c = V²/g, the
+// one definition of the crest velocity in both the crest checks and the
+// rating table (as hydraulic.RatingPoint.Velocity).
+func criticalVelocity(qm float64) float64 {
+	return math.Cbrt(9.80665 * qm / ratingCrest)
+}
+
+// rateWeir prints the fitted model rating with the scale-effect check
+// of every point, carries it to the prototype, prints the table with its
+// band, and draws the curve into dir (no plot when dir is empty).
+func rateWeir(w io.Writer, res *Result, r *hydraulic.Rating, scale float64, dir string, width, height, dpi float64) error {
 	res.Rating = r
 	fmt.Fprintf(w, "\nweir rating from the model: INVENTED measurements, crest length b_m = %g m (prototype %.4g m), model water %g °C\n",
 		ratingCrest, ratingCrest*scale, modelWaterC)
-	fmt.Fprintln(w, "  h is the head over the crest; C_d = Q/((2/3)·√(2g)·b·h^(3/2)) at each point; V = (g·q)^(1/3) is the critical velocity")
-	fmt.Fprintln(w, "  for the measured unit discharge q = Q/b, and Re = V·h/ν, We = ρV²h/σ are formed with it and h (limits as at the crest above)")
+	fmt.Fprintln(w, "  h is the head over the crest; C_d = Q/((2/3)·√(2g)·b·h^(3/2)) at each point; V, Re and We are defined as at the crest")
+	fmt.Fprintln(w, "  above (V = (g·q)^(1/3) with the measured q = Q/b), with the same limits")
 	fmt.Fprintf(w, "  exclusion rule: %s\n", hydraulic.ExclusionRule)
 	fmt.Fprintf(w, "  %3s %8s %9s %7s %7s %9s %7s   %s\n", "#", "h_m m", "Q_m L/s", "C_d", "V m/s", "Re", "We", "scale-effect check, fit")
 	for i, p := range r.Points {
@@ -67,8 +102,8 @@ func rateWeir(w io.Writer, res *Result, scale float64, nu, rho, sigma q.Quantity
 				verdict += " influential"
 			}
 		}
-		fmt.Fprintf(w, "  %3d %8.3f %9.2f %7.4f %7.3f %9.3g %7.3g   %s\n", i, p.Head, p.Discharge*1000, p.WeirCoefficient, p.Velocity,
-			p.Checks[0].Value, p.Checks[1].Value, verdict)
+		fmt.Fprintf(w, "  %3d %8.3f %9.2f %7.4f %7.3f %9s %7s   %s\n", i, p.Head, p.Discharge*1000, p.WeirCoefficient, p.Velocity,
+			sig3(p.Checks[0].Value), sig3(p.Checks[1].Value), verdict)
 	}
 	pct := r.Level * 100
 	fmt.Fprintln(w, "  fit: ln Q = ln C + n·ln h by linear least squares on the included points (log–log: a discharge meter's scatter is a")
@@ -92,12 +127,14 @@ func rateWeir(w io.Writer, res *Result, scale float64, nu, rho, sigma q.Quantity
 		fmt.Fprintf(w, "  note: %s\n", n)
 	}
 	lo, hi := r.ProtoHeadRange()
-	fmt.Fprintf(w, "  range of validity: model heads %.3f … %.3f m, prototype %.4g … %.4g m\n", r.HeadMin, r.HeadMax, lo, hi)
+	fmt.Fprintf(w, "  range of validity: model heads %.3f … %.3f m, prototype %.2f … %.2f m\n", r.HeadMin, r.HeadMax, lo, hi)
 
 	fmt.Fprintf(w, "\nprototype rating by Froude similarity, 1:%g: h_p = %g·h_m, Q_p = Q_m/λ_Q with λ_Q = λ_L^(5/2) = 1:%.5g\n", scale, scale, 1/r.DischargeRatio)
 	fmt.Fprintf(w, "  Q_p = %.5g·h_p^%.4f (Q in m³/s, h in m)\n", r.ProtoC, r.N)
 	fmt.Fprintf(w, "  %s\n", hydraulic.BandNote)
-	fmt.Fprintf(w, "  %8s %10s %23s %8s\n", "h_p m", "Q_p m³/s", fmt.Sprintf("%g %% band m³/s", pct), "u_rel")
+	fmt.Fprintf(w, "  u_rel is the standard uncertainty (k = 1) of the curve as a fraction of Q_p; the band is Q_p·exp(±t·u_rel), t = %.3f (Student, %d degrees of freedom, %g %%)\n",
+		r.T, r.DoF, pct)
+	fmt.Fprintf(w, "  %8s %10s %23s %14s\n", "h_p m", "Q_p m³/s", fmt.Sprintf("%g %% band m³/s", pct), "u_rel (k = 1)")
 	for _, h := range tableHeads(lo, hi) {
 		v, err := r.Extrapolate(q.New(h, q.Length))
 		if err != nil {
@@ -106,9 +143,9 @@ func rateWeir(w io.Writer, res *Result, scale float64, nu, rho, sigma q.Quantity
 		res.Table = append(res.Table, v)
 		mark := ""
 		if v.Extrapolated {
-			mark = fmt.Sprintf("  EXTRAPOLATED: outside %.4g … %.4g m, no measurement supports it", lo, hi)
+			mark = fmt.Sprintf("  EXTRAPOLATED: outside %.2f … %.2f m, no measurement supports it", lo, hi)
 		}
-		fmt.Fprintf(w, "  %8.3f %10.4g %11.4g … %-9.4g %7.2f %%%s\n", h, v.Discharge.Value(), v.Band[0].Value(), v.Band[1].Value(), 100*v.RelU, mark)
+		fmt.Fprintf(w, "  %8.2f %10.1f %11.1f … %-9.1f %13.2f %%%s\n", h, v.Discharge.Value(), v.Band[0].Value(), v.Band[1].Value(), 100*v.RelU, mark)
 	}
 	if dir == "" {
 		fmt.Fprintln(w, "  plot: not drawn (-out is empty)")
@@ -342,4 +379,24 @@ func deviationPlot(r *hydraulic.Rating, scale, t0, t1 float64) (*plot.Plot, erro
 	pad := 0.08 * (yhi - ylo)
 	pl.Y.Min, pl.Y.Max = ylo-pad, yhi+pad
 	return pl, nil
+}
+
+// sig3 writes x to three significant figures, trailing zeros kept: plain
+// from 0.001 up to 10⁴, with an exponent outside it, as the scale-effect
+// checks print their values, so that the table's Re and We columns read
+// as the checks above them.
+func sig3(x float64) string {
+	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) {
+		return strconv.FormatFloat(x, 'g', 3, 64)
+	}
+	e := int(math.Floor(math.Log10(math.Abs(x))))
+	p := math.Pow(10, float64(e-2))
+	r := math.Round(x/p) * p
+	if math.Abs(r) >= 1000*p {
+		e++
+	}
+	if e < -3 || e >= 4 {
+		return strconv.FormatFloat(x, 'e', 2, 64)
+	}
+	return strconv.FormatFloat(r, 'f', max(0, 2-e), 64)
 }

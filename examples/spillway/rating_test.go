@@ -90,8 +90,8 @@ func TestRatingByHand(t *testing.T) {
 		"0    0.030      7.38  0.6330   0.457",
 		"Q_p = Q_m/λ_Q with λ_Q = λ_L^(5/2) = 1:4929.5",
 		"scale effects, the measurement's own systematic errors and any change of the structure are not in it",
-		"EXTRAPOLATED: outside 2.25 … 5.4 m",
-		"range of validity: model heads 0.075 … 0.180 m, prototype 2.25 … 5.4 m",
+		"EXTRAPOLATED: outside 2.25 … 5.40 m",
+		"range of validity: model heads 0.075 … 0.180 m, prototype 2.25 … 5.40 m",
 		"plot: not drawn (-out is empty)",
 		"local codes", "licensed engineers",
 	} {

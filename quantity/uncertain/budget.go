@@ -237,9 +237,19 @@ func (b Budget) format(md bool) string {
 	if name == "" {
 		name = "y"
 	}
-	dof := "∞"
-	if !math.IsInf(b.DoF, 1) {
-		dof = fmt.Sprintf("%.1f", b.DoF)
+	// ν_eff: "= ∞"; "> 100" beyond it (k then differs from the normal
+	// distribution's by under 1 %); whole below 100 (GUM G.4.1 truncates
+	// to the next lower integer); one decimal under 10, where k still
+	// changes with it.
+	dof := "= ∞"
+	switch {
+	case math.IsInf(b.DoF, 1):
+	case b.DoF > 100:
+		dof = "> 100"
+	case b.DoF >= 10:
+		dof = fmt.Sprintf("= %.0f", math.Floor(b.DoF))
+	default:
+		dof = fmt.Sprintf("= %.1f", b.DoF)
 	}
 	unit, f := displayUnit(b.Value.Dim(), math.Max(math.Abs(b.Value.Value()), b.U.Value()))
 	if b.Factor > 0 && finite(b.Factor) && b.Unit != "" {
@@ -251,7 +261,7 @@ func (b Budget) format(md bool) string {
 	}
 	y, u := roundPair(b.Value.Value()/f, b.U.Value()/f)
 	_, bigU := roundPair(0, b.Expanded.Value()/f)
-	fmt.Fprintf(&sb, "%s = %s, u_c = %s (%s), ν_eff = %s, k = %.2f, U(%s %%) = %s\n",
+	fmt.Fprintf(&sb, "%s = %s, u_c = %s (%s), ν_eff %s, k = %.2f, U(%s %%) = %s\n",
 		name, withUnit(y, unit), withUnit(u, unit), rel, dof, b.K, strconv.FormatFloat(100*b.Coverage, 'g', 4, 64), withUnit(bigU, unit))
 	_, sys := roundPair(0, b.Systematic.Value()/f)
 	_, rnd := roundPair(0, b.Random.Value()/f)

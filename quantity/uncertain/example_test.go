@@ -52,7 +52,7 @@ func ExampleMeasured_Budget() {
 	b, _ := ct.Budget("C_T", 0.95)
 	fmt.Print(b)
 	// Output:
-	// C_T = 0.004590, u_c = 0.000019 (0.41 %), ν_eff = 61.3, k = 2.00, U(95 %) = 0.000038
+	// C_T = 0.004590, u_c = 0.000019 (0.41 %), ν_eff = 61, k = 2.00, U(95 %) = 0.000038
 	// systematic part 0.000015, random part 0.000012
 	// source                    type       distribution  effect            u(source)                c  contribution  % of u_c²
 	// resistance repeatability  A (ν = 9)  t             random              0.080 N     0.000147 1/N      0.000012       38.3

@@ -156,7 +156,7 @@ func TestBudget(t *testing.T) {
 	near(t, "t(0.975, 9)", coverage(t, 0.95, 9), 2.262, 1e-3)
 	near(t, "t(0.975, ∞)", coverage(t, 0.95, math.Inf(1)), 1.960, 1e-3)
 	near(t, "t(0.995, 4)", coverage(t, 0.99, 4), 4.604, 1e-3) // GUM Table G.2
-	for _, s := range []string{"calibration", "A (ν = 9)", "systematic", "80.0", "ν_eff = 225.0"} {
+	for _, s := range []string{"calibration", "A (ν = 9)", "systematic", "80.0", "ν_eff > 100"} {
 		if !strings.Contains(b.String(), s) || !strings.Contains(b.Markdown(), s) {
 			t.Errorf("budget text lacks %q:\n%s\n%s", s, b.String(), b.Markdown())
 		}

@@ -3,6 +3,7 @@ package hydraulic
 import (
 	"fmt"
 	"math"
+	"strconv"
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
@@ -73,8 +74,10 @@ type ScaleCheck struct {
 	Warning string
 }
 
-// String writes "Re = V·h/ν = 4.2e+04 (limit ≥ 1e+04, common practice):
-// passes" or "… FAILS: scale effects likely" (or the check's Warning).
+// String writes "Re = V·h/ν = 4.20e+04 (limit ≥ 1e+04, common practice):
+// passes" or "… FAILS: scale effects likely" (or the check's Warning);
+// the value has three significant figures, trailing zeros kept, plain
+// from 0.001 to 10⁴ and with an exponent outside it.
 func (c ScaleCheck) String() string {
 	verdict := "passes"
 	if !c.Pass {
@@ -91,7 +94,27 @@ func (c ScaleCheck) String() string {
 	if c.Basis != "" {
 		basis = ", " + c.Basis
 	}
-	return fmt.Sprintf("%s = %.3g%s (limit ≥ %.3g%s%s): %s", c.Name, c.Value, unit, c.Limit, unit, basis, verdict)
+	return fmt.Sprintf("%s = %s%s (limit ≥ %.3g%s%s): %s", c.Name, sig3(c.Value), unit, c.Limit, unit, basis, verdict)
+}
+
+// sig3 writes x to three significant figures, trailing zeros kept: in
+// plain notation from 0.001 up to 10⁴ (0.0300, 85.1, 1170), with an
+// exponent outside it (1.20e+04), so that a column of one quantity reads
+// alike.
+func sig3(x float64) string {
+	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) {
+		return strconv.FormatFloat(x, 'g', 3, 64)
+	}
+	e := int(math.Floor(math.Log10(math.Abs(x))))
+	p := math.Pow(10, float64(e-2))
+	r := math.Round(x/p) * p   // 1172.6 → 1170: three figures also left of the point
+	if math.Abs(r) >= 1000*p { // 999.6 rounds to 1000: one decade up
+		e++
+	}
+	if e < -3 || e >= 4 {
+		return strconv.FormatFloat(x, 'e', 2, 64)
+	}
+	return strconv.FormatFloat(r, 'f', max(0, 2-e), 64)
 }
 
 // FreeSurfaceChecks checks a free-surface model at a characteristic

@@ -134,8 +134,8 @@ func ExampleWeirLimits() {
 	// Output:
 	// Re = V·h/ν = 2.17e+04 (limit ≥ 1e+04, common practice): passes
 	// We = ρV²h/σ = 185 (limit ≥ 100, common practice): passes
-	// head h = 0.045 m (limit ≥ 0.07 m, Erpicum et al. 2016: published criteria for linear weirs ask 0.02–0.07 m; the upper value): FAILS: scale effects likely
-	// crest radius R = 0.02 m (limit ≥ 0.01 m, Castro-Orgaz and Hager 2014, round crests): passes
+	// head h = 0.0450 m (limit ≥ 0.07 m, Erpicum et al. 2016: published criteria for linear weirs ask 0.02–0.07 m; the upper value): FAILS: scale effects likely
+	// crest radius R = 0.0200 m (limit ≥ 0.01 m, Castro-Orgaz and Hager 2014, round crests): passes
 }
 
 // A 1:30 model of a concrete chute (prototype n = 0.014) would need a

@@ -99,6 +99,10 @@ type Rating struct {
 	// freedom.
 	S   float64
 	DoF int
+	// T is the Student t quantile at Level with DoF degrees of freedom:
+	// the coverage factor of the intervals and of RatingValue.Band, whose
+	// RelU is a standard (k = 1) uncertainty.
+	T float64
 	// HeadMin and HeadMax are the model heads of the included points: the
 	// range of validity of the rating, HeadMin/λ_L to HeadMax/λ_L at full
 	// scale.
@@ -272,7 +276,7 @@ func FitRating(in RatingInput) (*Rating, error) {
 	r.NInterval = [2]float64{a[1] - tq*se[1], a[1] + tq*se[1]}
 	r.WeirCoefficient = math.Exp(cd.B[0])
 	r.WeirCoefficientInterval = [2]float64{math.Exp(cd.Intervals[0][0]), math.Exp(cd.Intervals[0][1])}
-	r.S, r.DoF = f.S, f.DoF
+	r.S, r.DoF, r.T = f.S, f.DoF, tq
 	r.HeadMin, r.HeadMax = math.Inf(1), 0
 	for _, i := range used {
 		r.HeadMin, r.HeadMax = min(r.HeadMin, r.Points[i].Head), max(r.HeadMax, r.Points[i].Head)
@@ -318,7 +322,7 @@ func FitRating(in RatingInput) (*Rating, error) {
 			strings.Join(idx, ", "), float64(fit.DefaultOutlierT)))
 	}
 	if !(r.NInterval[0] <= 1.5 && 1.5 <= r.NInterval[1]) {
-		r.Notes = append(r.Notes, fmt.Sprintf("the exponent's interval [%.4g, %.4g] excludes 3/2: C_d varies with the head, so the power law, not C_d, is the rating", r.NInterval[0], r.NInterval[1]))
+		r.Notes = append(r.Notes, fmt.Sprintf("the exponent's interval [%.4f, %.4f] excludes 3/2: C_d varies with the head, so the power law, not C_d, is the rating", r.NInterval[0], r.NInterval[1]))
 	}
 	r.Notes = append(r.Notes, f.Notes...)
 	return r, nil

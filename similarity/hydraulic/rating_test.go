@@ -2,6 +2,7 @@ package hydraulic_test
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"strings"
 	"testing"
@@ -195,6 +196,14 @@ func TestRatingRehbock(t *testing.T) {
 		if want := 0.611 + 0.08*testHeads[i]/p; math.Abs(pt.WeirCoefficient-want) > 1e-12 {
 			t.Errorf("point %d: C_d %v, Rehbock %v", i, pt.WeirCoefficient, want)
 		}
+	}
+	// The note quotes the interval as the fit line does, to four decimals;
+	// T is the t quantile the interval was formed with.
+	if want := fmt.Sprintf("[%.4f, %.4f] excludes 3/2", r.NInterval[0], r.NInterval[1]); !strings.Contains(strings.Join(r.Notes, "\n"), want) {
+		t.Errorf("notes %q lack %q", r.Notes, want)
+	}
+	if tq := (r.NInterval[1] - r.N) / r.NStdErr; math.Abs(r.T/tq-1) > 1e-12 || !(r.T > 1.96) {
+		t.Errorf("T = %v, interval's t = %v", r.T, tq)
 	}
 	if !(r.N > 1.5) || !(r.NInterval[0] > 1.5) || !strings.Contains(strings.Join(r.Notes, "\n"), "excludes 3/2") {
 		t.Errorf("n = %v %v, notes %q", r.N, r.NInterval, r.Notes)
