@@ -58,8 +58,10 @@ type SpeedPower struct {
 	Wake, Thrust, EtaR *fit.Poly
 	Level              float64
 	// Warning, when not empty, names what the fits flag: outlying
-	// runs of the resistance test or of the factors against speed (the
-	// open-water curve's own warning is in every point's Warning).
+	// runs of the resistance test or of the factors against speed; and
+	// every self-propulsion run whose propeller Reynolds number is below
+	// UsualOpenWaterReynolds (the open-water curve's own warning is in
+	// every point's Warning).
 	Warning string
 	// Method states how the band was found, for the report.
 	Method string
@@ -114,10 +116,15 @@ func PredictSpeedPower(in SpeedPowerInput) (*SpeedPower, error) {
 	for k, name := range []string{"w_TM", "t", "η_R"} {
 		warn = append(warn, outlierNotes(facs[k], "V_M", " m/s", name)...)
 	}
+	for _, p := range pts {
+		if p.Warning != "" {
+			warn = append(warn, p.Warning)
+		}
+	}
 	out.Warning = joinWarnings(warn)
 	vms := make([]float64, len(in.ShipSpeeds))
 	for i, v := range in.ShipSpeeds {
-		name := fmt.Sprintf("ship speed %d", i)
+		name := fmt.Sprintf("ship speed %d", i+1)
 		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: name, Value: v, Dim: quantity.Velocity})); err != nil {
 			return nil, err
 		}
@@ -131,11 +138,11 @@ func PredictSpeedPower(in SpeedPowerInput) (*SpeedPower, error) {
 	for i, vm := range vms {
 		r, err := predictChain(in.Base, sp.Resistance, sp.OpenWater, facs, vm)
 		if err != nil {
-			return nil, &Error{Op: op, Fault: similarity.Caused(fmt.Sprintf("ship speed %d", i), fmt.Sprintf("ship speed %d (%.4g m/s)", i, in.ShipSpeeds[i].Value()), err)}
+			return nil, &Error{Op: op, Fault: similarity.Caused(fmt.Sprintf("ship speed %d", i+1), fmt.Sprintf("ship speed %d (%.4g m/s)", i+1, in.ShipSpeeds[i].Value()), err)}
 		}
 		pt := SpeedPowerPoint{PoweringResult: r}
 		if err := band(&pt, in.Base, sp, orders, facs, vm, level); err != nil {
-			return nil, &Error{Op: op, Fault: similarity.Caused(fmt.Sprintf("ship speed %d", i), fmt.Sprintf("ship speed %d: the band", i), err)}
+			return nil, &Error{Op: op, Fault: similarity.Caused(fmt.Sprintf("ship speed %d", i+1), fmt.Sprintf("ship speed %d: the band", i+1), err)}
 		}
 		out.Points = append(out.Points, pt)
 	}
@@ -313,7 +320,11 @@ func (s *SpeedPower) Table(md bool) string {
 		}
 	}
 	var sb strings.Builder
-	sb.WriteString("Speed–power prediction, ITTC-1978 (n per propeller; P_D of all shafts after C_P, C_N)\n")
+	cp, cn := 1.0, 1.0
+	if len(s.Points) > 0 {
+		cp, cn = s.Points[0].CP, s.Points[0].CN
+	}
+	fmt.Fprintf(&sb, "Speed–power prediction, ITTC-1978 (n per propeller; P_D of all shafts; after the correlation factors C_P = %.3g on P_D and C_N = %.3g on n)\n", cp, cn)
 	if md {
 		sb.WriteString("\n")
 	}
