@@ -12,6 +12,8 @@
 // open-water curves.
 //
 // The vessel and every measurement are invented for the demonstration.
+// The model and its propeller are fixed; -scale changes the ship, and
+// the self-propulsion readings are made for its self-propulsion point.
 //
 // Usage:
 //
@@ -255,7 +257,12 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 const usageText = `Usage: towingtank [flags]
 
 A towing tank's whole job on invented data for a 2 m model of a 32 m
-(at 1:16) coastal research catamaran. It prints:
+(at 1:16) coastal research catamaran. The model (hull and propeller,
+D = 84.4 mm) and its readings are fixed; -scale changes the ship: its
+length, its propeller (D_S = D_M·λ) and its speeds, and the
+self-propulsion runs' readings, which are made for the ship's
+self-propulsion point at that scale from the hull's invented w_TM, t
+and η_R. It prints:
   - the resistance test carried to full scale by the ITTC-1957 method,
     without and with a form factor 1 + k from Prohaska's method: per run
     the model's Fn, resistance and coefficients C_Tm, C_Fm, C_R (×10³),

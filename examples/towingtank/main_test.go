@@ -164,7 +164,7 @@ func TestCorrelationAllowanceByHand(t *testing.T) {
 	}
 	nuS := o.Plain.Test.Sea.KinematicViscosity.Value()
 	for i, p := range o.Powering.Points {
-		re := shipKnots[i] * 1852 / 3600 * 32 / nuS
+		re := o.Powering.ShipKnots[i] * 1852 / 3600 * 32 / nuS
 		ca := (5.68 - 0.6*math.Log10(re)) * 1e-3
 		k := o.DoubleBody.FormFactor
 		cts := k*p.ShipCF + p.RoughnessAllowance + ca + p.Residual + p.AirResistance
@@ -339,5 +339,31 @@ func TestBlockageByHand(t *testing.T) {
 	}
 	if want := vp * 4; math.Abs(p.ShipSpeed.Value()/want-1) > 1e-12 {
 		t.Errorf("ship speed %v, want %v", p.ShipSpeed.Value(), want)
+	}
+}
+
+// TestEveryScale: every accepted -scale runs to the end with the same
+// model readings, and the self-propulsion readings made for the scale
+// give back the hull's invented factors (w_TM, t, η_R within the
+// readings' rounding) and a speed–power curve inside the tests' range.
+func TestEveryScale(t *testing.T) {
+	for _, s := range []float64{2, 3, 5, 8, 10, 15, 16, 17, 20, 25, 40, 60, 100} {
+		o, err := evaluate(io.Discard, []string{"-plot=false", "-scale", fmt.Sprint(s)})
+		if err != nil {
+			t.Errorf("-scale %v: %v", s, err)
+			continue
+		}
+		for i, p := range o.Powering.SpeedPower.Factors {
+			f := spFactors[i]
+			if math.Abs(p.Wake-f[0]) > 0.002 || math.Abs(p.ThrustDeduction-f[1]) > 0.002 || math.Abs(p.RelativeRotative-f[2]) > 0.002 {
+				t.Errorf("-scale %v, run %d: w_TM %.4f, t %.4f, η_R %.4f; invented %v", s, i+1, p.Wake, p.ThrustDeduction, p.RelativeRotative, f)
+			}
+		}
+		if n := len(o.Powering.ShipKnots); n < 3 || n > 6 {
+			t.Errorf("-scale %v: %d ship speeds %v", s, n, o.Powering.ShipKnots)
+		}
+		if d := o.Powering.Propeller.Diameter.Value(); math.Abs(d-1.35/16*s) > 1e-12 {
+			t.Errorf("-scale %v: ship propeller D = %v m, want D_M·λ = %v", s, d, 1.35/16*s)
+		}
 	}
 }
