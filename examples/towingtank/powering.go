@@ -290,12 +290,21 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	fmt.Fprintf(w, "\nSelf-propulsion test (invented runs), two propellers, analysed by thrust identity (ITTC 7.5-02-03-01.1 and 01.4):\n")
 	fmt.Fprintf(w, "K_TM → J_TM on the faired K_T; w_TM = 1 − J_TM·nD/V_M; t = (2T + F_D − R_TM)/(2T); η_R = K_Q0/K_QM; η_H = (1 − t)/(1 − w_TM); η_D = η_H·η₀·η_R\n")
 	fmt.Fprintf(w, "F_D = ½ρV_M²S_M[(1 + k)(C_FM − C_FS) − ΔC_F − C_A] with 1 + k = %.3f and C_A from the procedure's formula; R_TM from the faired resistance curve\n", db.FormFactor)
-	fmt.Fprintf(w, "%7s %7s %7s %8s %7s %8s %7s | %6s %6s %6s %7s %6s %6s %6s %6s\n", "V_M m/s", "n rev/s", "T N", "Q N·m", "F_D N", "F_D calc", "R_TM N",
-		"K_TM", "10K_QM", "J_TM", "w_TM", "t", "η_R", "η_H", "η_D")
+	fmt.Fprintf(w, "readings made for the ship's self-propulsion point at 1:%.4g from the hull's invented w_TM, t and η_R; Re_0.7 = c_0.7·√(V_A² + (0.7πnD)²)/ν, V_A = J_TM·nD\n", 1/scale)
+	fmt.Fprintf(w, "%7s %7s %7s %8s %7s %8s %7s | %6s %6s %6s %7s %6s %6s %6s %6s %8s\n", "V_M m/s", "n rev/s", "T N", "Q N·m", "F_D N", "F_D calc", "R_TM N",
+		"K_TM", "10K_QM", "J_TM", "w_TM", "t", "η_R", "η_H", "η_D", "Re_0.7")
 	for i, p := range sp.Factors {
 		r := runs[i]
-		fmt.Fprintf(w, "%7.2f %7.2f %7.3f %8.5f %7.2f %8.2f %7.3f | %6.4f %6.4f %6.4f %7.4f %6.4f %6.4f %6.4f %6.4f\n", r.V, r.N, r.T, r.Q, r.FD,
-			out.SkinFriction[i].Force.Value(), p.Resistance, p.KT, 10*p.KQ, p.J, p.Wake, p.ThrustDeduction, p.RelativeRotative, p.EtaH, p.EtaD)
+		fmt.Fprintf(w, "%7.2f %7.2f %7.3f %8.5f %7.2f %8.2f %7.3f | %6.4f %6.4f %6.4f %7.4f %6.4f %6.4f %6.4f %6.4f %8.2e\n", r.V, r.N, r.T, r.Q, r.FD,
+			out.SkinFriction[i].Force.Value(), p.Resistance, p.KT, 10*p.KQ, p.J, p.Wake, p.ThrustDeduction, p.RelativeRotative, p.EtaH, p.EtaD, p.Reynolds)
+	}
+	seen := map[string]bool{}
+	for _, p := range sp.Factors {
+		if p.Warning != "" {
+			line := "WARNING: " + p.Warning
+			seen[line] = true
+			fmt.Fprintln(w, line)
+		}
 	}
 	for _, c := range []struct {
 		name string
@@ -311,15 +320,22 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	}
 	top := out.Points[len(out.Points)-1]
 	fmt.Fprintf(w, "\nDelivered power by the ITTC-1978 method, double-body form factor 1 + k = %.3f, two propellers, from the faired tests:\n", db.FormFactor)
-	fmt.Fprintf(w, "C_TS = (1 + k)·C_FS + ΔC_F + C_A + C_R + C_AAS on S_ship = %.4g m²: roughness allowance ΔC_F from k_S = 150 µm; C_A from the procedure's\n", test.ModelWettedArea.Value()/(test.Scale*test.Scale))
-	fmt.Fprintf(w, "formula (5.68 − 0.6·log₁₀Re_S)·10⁻³, the basin giving none (%.3f×10⁻³ at the top speed); air C_AAS = %.3f×10⁻³ (A_VS = %g m², C_DA = 0.8);\n",
-		top.CorrelationAllowance*1e3, top.AirResistance*1e3, transverseArea)
-	fmt.Fprintf(w, "twin screws on open shafts: the wake is not scaled, w_TS = w_TM (ITTC-1978); each carries half the thrust in K_T/J²; n is each propeller's rate, P_D the sum over both shafts;\n")
+	fmt.Fprintf(w, "the speed–power result uses this 1 + k = %.3f (the double-body test measures the viscous resistance directly; the basin's choice)\n", db.FormFactor)
+	fmt.Fprintf(w, "with the ITTC-1978 allowances ΔC_F and C_A below; the ITTC-1957 tables above use Prohaska's 1 + k = %.3f and the -ca allowance,\n", test.FormFactor)
+	fmt.Fprintf(w, "which lumps roughness and correlation for that method only; the two form factors' difference is a source in the budget above\n")
+	fmt.Fprintf(w, "C_TS = (1 + k)·C_FS + ΔC_F + C_A + C_R + C_AAS on S_ship = %.4g m²: roughness allowance ΔC_F from k_S = 150 µm; the basin has no\n", test.ModelWettedArea.Value()/(test.Scale*test.Scale))
+	fmt.Fprintf(w, "ITTC-1978 correlation allowance of its own, so C_A is the procedure's formula (5.68 − 0.6·log₁₀Re_S)·10⁻³ (%.3f×10⁻³ at the top speed);\n",
+		top.CorrelationAllowance*1e3)
+	fmt.Fprintf(w, "air C_AAS = %.3f×10⁻³ (A_VS = %.3g m², C_DA = 0.8);\n", top.AirResistance*1e3, transverseArea)
+	fmt.Fprintf(w, "wake: one propeller behind each demihull on an open shaft with a strut, so the procedure's twin-screw rule is applied, w_TS = w_TM\n")
+	fmt.Fprintf(w, "(ITTC 7.5-02-03-01.4, the wake not scaled; from memory): the screw works clear of the thick stern boundary layer that the\n")
+	fmt.Fprintf(w, "single-screw scaling corrects for (the basin may choose otherwise for a catamaran); each propeller carries half the thrust\n")
+	fmt.Fprintf(w, "in K_T/J²; n is each propeller's rate, P_D the sum over both shafts;\n")
 	fmt.Fprintf(w, "propeller D = %g m, Z = %d, P/D = %g, model Re_co = %.3g (0.75R, the open-water test at J = %.1f); C_DM = %.5f, C_DS = %.5f, scale correction ΔK_T = %.4f, ΔK_Q = %.5f\n",
 		propeller.Diameter.Value(), propeller.Blades, propeller.PitchRatio, prop.ModelReynolds, jop, top.ModelBladeDrag, top.ShipBladeDrag, top.DeltaKT, top.DeltaKQ)
-	fmt.Fprint(w, ship.PoweringTable(out.Points, false))
+	printOnce(w, seen, ship.PoweringTable(out.Points, false))
 	fmt.Fprintln(w)
-	fmt.Fprint(w, sp.Table(false))
+	printOnce(w, seen, sp.Table(false))
 	if size.Skip {
 		fmt.Fprintln(w, "plots: not written (-plot=false)")
 		return out, nil
@@ -340,4 +356,20 @@ type plotSize struct {
 	W, H float64
 	DPI  int
 	Skip bool
+}
+
+// printOnce writes text line by line, leaving out a WARNING or CAUTION
+// line already written (the tables of one report repeat them) and
+// remembering the ones it writes.
+func printOnce(w io.Writer, seen map[string]bool, text string) {
+	for _, line := range strings.SplitAfter(text, "\n") {
+		key := strings.TrimSuffix(line, "\n")
+		if strings.HasPrefix(key, "WARNING") || strings.HasPrefix(key, "CAUTION") {
+			if seen[key] {
+				continue
+			}
+			seen[key] = true
+		}
+		fmt.Fprint(w, line)
+	}
 }

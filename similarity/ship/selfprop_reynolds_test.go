@@ -59,8 +59,8 @@ func TestSelfPropulsionReynoldsByHand(t *testing.T) {
 }
 
 // TestSpeedPowerWarnsLowPropellerReynolds: every self-propulsion run
-// below the usual minimum is named in the speed–power warning, runs
-// counted from 1.
+// below the usual minimum carries a warning, runs counted from 1, and
+// the speed–power table prints each once.
 func TestSpeedPowerWarnsLowPropellerReynolds(t *testing.T) {
 	in := speedPowerInput(t, 0)
 	ow := *in.SelfPropulsion.OpenWater
@@ -70,18 +70,20 @@ func TestSpeedPowerWarnsLowPropellerReynolds(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	tb := sp.Table(false)
 	for i, p := range sp.Factors {
 		if !(p.Reynolds > 0 && p.Reynolds < ship.UsualOpenWaterReynolds) {
 			t.Fatalf("run %d: Re_0.7 = %v, want a low one", i+1, p.Reynolds)
 		}
-		if want := fmt.Sprintf("self-propulsion run %d (V_M", i+1); !strings.Contains(sp.Warning, want) {
-			t.Errorf("warning %q lacks %q", sp.Warning, want)
+		want := fmt.Sprintf("WARNING: self-propulsion run %d (V_M", i+1)
+		if !strings.HasPrefix("WARNING: "+p.Warning, want) || strings.Count(tb, want) != 1 {
+			t.Errorf("run %d: warning %q, printed %d times, want %q once", i+1, p.Warning, strings.Count(tb, want), want)
 		}
 	}
-	if strings.Contains(sp.Warning, "run 0") {
-		t.Errorf("warning %q counts runs from 0", sp.Warning)
+	if strings.Contains(tb, "run 0") {
+		t.Errorf("table counts runs from 0:\n%s", tb)
 	}
-	if tb := sp.Table(false); !strings.Contains(tb, "C_P = 1 on P_D and C_N = 1 on n") {
+	if !strings.Contains(tb, "C_P = 1 on P_D and C_N = 1 on n") {
 		t.Errorf("table does not state C_P and C_N:\n%s", tb)
 	}
 }

@@ -58,10 +58,10 @@ type SpeedPower struct {
 	Wake, Thrust, EtaR *fit.Poly
 	Level              float64
 	// Warning, when not empty, names what the fits flag: outlying
-	// runs of the resistance test or of the factors against speed; and
-	// every self-propulsion run whose propeller Reynolds number is below
-	// UsualOpenWaterReynolds (the open-water curve's own warning is in
-	// every point's Warning).
+	// runs of the resistance test or of the factors against speed (a
+	// self-propulsion run's own warning, such as a propeller Reynolds
+	// number below UsualOpenWaterReynolds, is in its Factors entry, and
+	// the open-water curve's in every point's Warning).
 	Warning string
 	// Method states how the band was found, for the report.
 	Method string
@@ -116,11 +116,7 @@ func PredictSpeedPower(in SpeedPowerInput) (*SpeedPower, error) {
 	for k, name := range []string{"w_TM", "t", "η_R"} {
 		warn = append(warn, outlierNotes(facs[k], "V_M", " m/s", name)...)
 	}
-	for _, p := range pts {
-		if p.Warning != "" {
-			warn = append(warn, p.Warning)
-		}
-	}
+
 	out.Warning = joinWarnings(warn)
 	vms := make([]float64, len(in.ShipSpeeds))
 	for i, v := range in.ShipSpeeds {
@@ -299,7 +295,8 @@ func band(pt *SpeedPowerPoint, base PoweringInput, sp SelfPropulsionTest, orders
 // Table writes the speed–power curve as the trade presents it: per
 // speed V_S (kn), P_E (kW), w_TS, t, η_R, η_D, n (rpm) with its band and
 // P_D (kW, all shafts) with its band at Level; then the method of the
-// band, every warning and the caution.
+// band, every warning (the fits', each self-propulsion run's, each
+// speed's) and the caution.
 func (s *SpeedPower) Table(md bool) string {
 	pc := fmt.Sprintf("%.0f %%", 100*s.Level)
 	head := []string{"V_S kn", "P_E kW", "w_TS", "t", "η_R", "η_D", "n rpm", "n " + pc + " rpm", "P_D kW", "P_D " + pc + " kW", "±%"}
@@ -332,6 +329,11 @@ func (s *SpeedPower) Table(md bool) string {
 	sb.WriteString("band: " + s.Method + "\n")
 	if s.Warning != "" {
 		sb.WriteString("WARNING (fits): " + s.Warning + "\n")
+	}
+	for _, f := range s.Factors {
+		if f.Warning != "" {
+			sb.WriteString("WARNING: " + f.Warning + "\n")
+		}
 	}
 	for _, w := range warn {
 		sb.WriteString(w + "\n")
