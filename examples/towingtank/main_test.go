@@ -73,7 +73,7 @@ func TestByHand(t *testing.T) {
 func TestHelp(t *testing.T) {
 	var out bytes.Buffer
 	err := run(&out, []string{"-h"})
-	for _, want := range []string{"Usage", "It prints:", "C_Ts (including the allowance C_A)", "P_D (all shafts)", "naval architect", "thrust identity", "open-water test", "-dpi", "-plotw"} {
+	for _, want := range []string{"Usage", "It prints:", "C_Ts (including the allowance C_A)", "P_D (all shafts)", "naval architect", "thrust identity", "open-water test", "-dpi", "-plotw", "towingtank-coefficients.png/.svg and towingtank-openwater.png/.svg", "-scale changes the ship"} {
 		if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), want) {
 			t.Errorf("-h: %v, lacks %q", err, want)
 		}
