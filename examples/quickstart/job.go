@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"io"
+	"math"
 
 	"similis.dev/similis/pigroups"
 	q "similis.dev/similis/quantity"
@@ -18,18 +19,48 @@ type JobResult struct {
 	Conflict   *similarity.Conflict
 	Compromise *similarity.Compromise
 	NaiveForce q.Quantity // model resistance scaled by λ_F alone
-	// ModelResistance is the invented model reading, from inventedCT.
+	// ModelResistance is the invented model reading, from ModelCT, the
+	// towing-tank test's C_TM at the same Froude number (inventedCT).
 	ModelResistance q.Quantity
+	ModelCT         float64
 	Extrapolate     *ship.HullResult
 }
 
 // The invented 32 m catamaran and its invented model data.
 const (
-	shipLength     = 32.0    // m, waterline
-	shipWettedArea = 414.7   // m²
-	inventedCT     = 10.3e-3 // the model's total resistance coefficient at 15 kn Froude-scaled (invented)
-	allowance      = 0.0004  // C_A (invented, the basin's own in practice)
+	shipLength     = 32.0   // m, waterline
+	shipWettedArea = 414.7  // m²
+	allowance      = 0.0004 // C_A (invented, the basin's own in practice)
 )
+
+// The same vessel's invented resistance test as examples/towingtank
+// prints it: its 2 m model (S = 1.62 m²) towed at these speeds in the
+// same 15 °C fresh water, so that both programs give one C_TM at one
+// Froude number.
+var (
+	tankModelLength, tankModelArea = 2.0, 1.62                                                         // m, m²
+	tankSpeeds                     = []float64{0.50, 0.65, 0.80, 1.00, 1.30, 1.60, 2.00, 2.40}         // m/s
+	tankResistances                = []float64{1.105, 1.778, 2.600, 4.055, 7.270, 12.14, 22.30, 38.10} // N
+)
+
+// inventedCT returns the invented model's C_TM at the Froude number fn:
+// the towing-tank test's C_TM = R/(½ρV²S) interpolated linearly in Fn
+// between its two neighbouring runs (rho the tank water's density).
+func inventedCT(fn, rho float64) (float64, error) {
+	const g = 9.80665
+	ct := func(i int) (float64, float64) {
+		v := tankSpeeds[i]
+		return v / math.Sqrt(g*tankModelLength), tankResistances[i] / (0.5 * rho * v * v * tankModelArea)
+	}
+	for i := 1; i < len(tankSpeeds); i++ {
+		f0, c0 := ct(i - 1)
+		f1, c1 := ct(i)
+		if fn >= f0 && fn <= f1 {
+			return c0 + (fn-f0)/(f1-f0)*(c1-c0), nil
+		}
+	}
+	return 0, fmt.Errorf("the Froude number %.4g is outside the invented resistance test's range", fn)
+}
 
 // wholeJob runs variables → Pi set → conflicting plan → compromise →
 // transfer → extrapolation for an invented 32 m catamaran.
@@ -105,18 +136,26 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	if err != nil {
 		return nil, err
 	}
-	// The invented reading follows the model's size and speed: an
-	// invented C_TM held at the Froude-scaled speed,
-	// R_m = C_TM·½·ρ_tank·V_m²·S_m.
+	// The invented reading follows the model's size and speed: the
+	// towing-tank test's C_TM at the same Froude number, held at the
+	// Froude-scaled speed, R_m = C_TM·½·ρ_tank·V_m²·S_m.
 	lm, sm := shipLength/scale, shipWettedArea/(scale*scale)
-	rm := q.New(inventedCT*0.5*tank.Density.Value()*vm.Value()*vm.Value()*sm, q.Force)
+	fn := vm.Value() / math.Sqrt(9.80665*lm)
+	ctm, err := inventedCT(fn, tank.Density.Value())
+	if err != nil {
+		return nil, err
+	}
+	res.ModelCT = ctm
+	rm := q.New(ctm*0.5*tank.Density.Value()*vm.Value()*vm.Value()*sm, q.Force)
 	res.ModelResistance = rm
 	if res.NaiveForce, err = res.Compromise.Solution.ToPrototype(rm); err != nil {
 		return nil, err
 	}
 	pr := units.Printer{Precision: 4}
-	fmt.Fprintf(w, "  model: L = %s, S = %s, V = %s, R = %s (invented: C_TM = %g×10⁻³ held at the Froude-scaled speed)\n",
-		pr.Format(q.New(lm, q.Length)), pr.Format(q.New(sm, q.Area)), must(pr.FormatIn(vm, units.MustParse("m/s"))), pr.Format(rm), inventedCT*1e3)
+	fmt.Fprintf(w, "  model: L = %s, S = %s, V = %s (Fn = %.4f), R = %#.4g N\n", pr.Format(q.New(lm, q.Length)), pr.Format(q.New(sm, q.Area)),
+		must(pr.FormatIn(vm, units.MustParse("m/s"))), fn, rm.Value())
+	fmt.Fprintf(w, "  (invented: 10³C_TM = %.3f, the towingtank example's invented test of the same vessel at this Froude number,\n", ctm*1e3)
+	fmt.Fprintf(w, "  interpolated linearly in Fn between its runs, held at the Froude-scaled speed)\n")
 	fmt.Fprintf(w, "  → ship %s (λ_F = λ_ρ·λ_L³, ignoring the Reynolds number)\n", must(pr.FormatIn(res.NaiveForce, units.MustParse("kN"))))
 
 	fmt.Fprintln(w, "\n6. The same reading extrapolated by the ITTC-1957 line (Froude's hypothesis)")
@@ -130,13 +169,13 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	}
 	pt := res.Extrapolate.Points[0]
 	fmt.Fprintf(w, "  model Re = %.3g, ship Re = %.3g; no form factor (1 + k = 1), C_A = %g (invented)\n", pt.ModelReynolds, pt.ShipReynolds, allowance)
-	fmt.Fprintf(w, "  C_Tm = %.4f, C_Fm = %.4f, C_R = C_Tm − C_Fm = %.4f; ship C_Fs = %.4f, C_Ts = C_Fs + C_R + C_A = %.4f\n", pt.ModelCT*1e3, pt.ModelCF*1e3, pt.Residual*1e3, pt.ShipCF*1e3, pt.ShipCT*1e3)
-	fmt.Fprintln(w, "  (coefficients × 1000)")
+	fmt.Fprintf(w, "  10³C_TM = %.3f, 10³C_FM = %.3f, 10³C_R = 10³(C_TM − C_FM) = %.3f; ship 10³C_FS = %.3f, 10³C_TS = 10³(C_FS + C_R + C_A) = %.3f\n",
+		pt.ModelCT*1e3, pt.ModelCF*1e3, pt.Residual*1e3, pt.ShipCF*1e3, pt.ShipCT*1e3)
 	if pt.Warning != "" {
 		fmt.Fprintln(w, "  WARNING:", pt.Warning)
 	}
-	fmt.Fprintf(w, "  ship resistance %s, effective power %s — the friction correction the held Froude number cannot give\n",
-		must(pr.FormatIn(pt.ShipResistance, units.MustParse("kN"))), must(pr.FormatIn(pt.EffectivePower, units.MustParse("kW"))))
+	fmt.Fprintf(w, "  ship resistance %.1f kN, effective power %.1f kW — the friction correction the held Froude number cannot give\n",
+		pt.ShipResistance.Value()/1e3, pt.EffectivePower.Value()/1e3)
 	fmt.Fprintln(w, "\nCAUTION:", ship.HullCaution)
 	return res, nil
 }

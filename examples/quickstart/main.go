@@ -83,9 +83,10 @@ similis's main demonstration on invented data. It prints, in order:
  3. a plan holding both the Froude and the Reynolds numbers for a
     1:scale model of a 32 m catamaran, and why it conflicts;
  4. the compromise that holds the Froude number, as a model plan;
- 5. an invented model resistance (from an invented C_TM held at the
-    Froude-scaled speed, so it follows the model's size) carried to full
-    scale by Froude scaling alone;
+ 5. an invented model resistance (the C_TM of the same vessel's
+    invented towing-tank test, examples/towingtank, at the same Froude
+    number, held at the Froude-scaled speed, so it follows the model's
+    size) carried to full scale by Froude scaling alone;
  6. the same reading extrapolated by the ITTC-1957 line, with its
     coefficients (×10³), the ship resistance and effective power, and a
     warning where the model's Reynolds number suggests laminar flow.
@@ -121,8 +122,10 @@ func run(w io.Writer, args []string) error {
 	fmt.Fprintln(w, "similis quickstart — all data below are invented for the demonstration")
 	fmt.Fprintln(w, "\n1. A unit-safe formula: pipe pressure drop on a test rig")
 	pr := units.Printer{Precision: 5}
-	fmt.Fprintf(w, "  ρ = %s, V = %s, D = %s, μ = %s, ε = %s, L = %s (fresh water at 20 °C)\n",
-		pr.Format(p.rho), pr.Format(p.v), pr.Format(p.d), pr.Format(p.mu), pr.Format(p.eps), pr.Format(p.l))
+	// ρ and μ to six significant digits, so that the printed Re can be
+	// checked from the printed values.
+	fmt.Fprintf(w, "  ρ = %.6g kg/m³, V = %s, D = %s, μ = %.6g mPa·s, ε = %s, L = %s (fresh water at 20 °C)\n",
+		p.rho.Value(), pr.Format(p.v), pr.Format(p.d), 1e3*p.mu.Value(), pr.Format(p.eps), pr.Format(p.l))
 	re, f, dp, regime, err := pressureDrop(p)
 	if err != nil {
 		fmt.Fprintln(w, "  refused:", err)

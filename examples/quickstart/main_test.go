@@ -71,10 +71,25 @@ func TestRunBadFlags(t *testing.T) {
 	}
 }
 
+// ctmByHand is the towingtank example's invented C_TM at the Froude
+// number of 15 kn on 32 m, written out: its runs at 1.60 and 2.00 m/s on
+// the 2 m model (12.14 N and 22.30 N, S = 1.62 m², ρ = 999.1026 kg/m³)
+// have Fn = V/√(9.80665·2) = 0.361281 and 0.451601 and
+// C_TM = R/(½ρV²S) = 5.85981×10⁻³ and 6.88890×10⁻³; the ship's
+// Fn = (15·1852/3600)/√(9.80665·32) = 0.435607; linearly in Fn,
+// C_TM = 5.85981 + (0.435607 − 0.361281)/(0.451601 − 0.361281)·1.02909
+// = 6.7067×10⁻³.
+func ctmByHand() float64 {
+	fn := func(v float64) float64 { return v / math.Sqrt(9.80665*2) }
+	ct := func(v, r float64) float64 { return r / (0.5 * 999.1026 * v * v * 1.62) }
+	f := 15 * 1852.0 / 3600 / math.Sqrt(9.80665*32)
+	return ct(1.6, 12.14) + (f-fn(1.6))/(fn(2.0)-fn(1.6))*(ct(2.0, 22.30)-ct(1.6, 12.14))
+}
+
 // TestScaleFollowsReading: at 1:60 the invented reading is the held C_TM
-// on the smaller model, R_m = 10.3e-3·½·999.1026·V_m²·S_m with
+// on the smaller model, R_m = C_TM·½·999.1026·V_m²·S_m with
 // V_m = 15 kn/√60 = 0.99617 m/s and S_m = 414.7/3600 m² (0.5888 N), so
-// Froude scaling gives the same ship force as at 1:16 (130.5 kN, not the
+// Froude scaling gives the same ship force as at 1:16 (84.96 kN, not the
 // 6.8 MN a fixed 30.9 N reading gave); the model's Re = 0.99617·(32/60)/
 // 1.1395e-6 = 4.66×10⁵ (ν of fresh water at 15 °C as package fluids
 // gives it, printed by towingtank) is warned about as possibly laminar.
@@ -89,7 +104,7 @@ func TestScaleFollowsReading(t *testing.T) {
 		t.Fatal(err)
 	}
 	vm := 15 * 1852.0 / 3600 / math.Sqrt(60)
-	rm := 10.3e-3 * 0.5 * 999.1026 * vm * vm * 414.7 / 3600
+	rm := ctmByHand() * 0.5 * 999.1026 * vm * vm * 414.7 / 3600
 	if math.Abs(r60.ModelResistance.Value()/rm-1) > 1e-5 {
 		t.Errorf("1:60 reading %v, by hand %v", r60.ModelResistance, rm)
 	}
@@ -97,7 +112,7 @@ func TestScaleFollowsReading(t *testing.T) {
 		t.Errorf("naive ship force 1:60 %v, 1:16 %v", r60.NaiveForce, r16.NaiveForce)
 	}
 	p := r60.Extrapolate.Points[0]
-	if math.Abs(p.ModelReynolds/(vm*32/60/1.1395e-6)-1) > 1e-4 || !strings.Contains(out.String(), "WARNING: run 0 (from 0; V_m = 0.9962 m/s): the model Reynolds number 4.66e+05 is below 1e+06") {
+	if math.Abs(p.ModelReynolds/(vm*32/60/1.1395e-6)-1) > 1e-4 || !strings.Contains(out.String(), "WARNING: run 1 (V_m = 0.9962 m/s): the model Reynolds number 4.66e+05 is below 1e+06") {
 		t.Errorf("Re_m = %v; output:\n%s", p.ModelReynolds, out.String())
 	}
 }
@@ -112,15 +127,16 @@ func TestWholeJob(t *testing.T) {
 	if r.Set.Len() != 3 || r.Conflict == nil || len(r.Compromise.Held) != 1 {
 		t.Fatalf("set %v, conflict %v, compromise %v", r.Set, r.Conflict, r.Compromise)
 	}
-	// The invented reading: R_m = C_TM·½ρ_m·V_m²·S_m with C_TM = 10.3e-3,
+	// The invented reading: R_m = C_TM·½ρ_m·V_m²·S_m with C_TM the
+	// towingtank example's at this Froude number (ctmByHand, 6.7067e-3),
 	// V_m = 15 kn/4 = 1.929167 m/s, S_m = 414.7/256 m² and fresh water of
-	// 999.1026 kg/m³ (IAPWS-95 at 15 °C, python3-iapws): 31.021 N.
+	// 999.1026 kg/m³ (IAPWS-95 at 15 °C, python3-iapws): 20.199 N.
 	// Froude scaling of force at 1:16: λ_F = λ_ρ·16⁻³ (common practice),
 	// with sea water of 1025.976 kg/m³ (IAPWS-08 at 15 °C, 35.16504 g/kg,
 	// python3-iapws): R_m·4096·1025.976/999.1026.
 	vm := 15 * 1852.0 / 3600 / 4
-	rm := 10.3e-3 * 0.5 * 999.1026 * vm * vm * 414.7 / 256
-	if math.Abs(r.ModelResistance.Value()/rm-1) > 1e-5 || math.Abs(rm-31.021) > 1e-3 {
+	rm := ctmByHand() * 0.5 * 999.1026 * vm * vm * 414.7 / 256
+	if math.Abs(r.ModelResistance.Value()/rm-1) > 1e-5 || math.Abs(rm-20.199) > 1e-3 || math.Abs(r.ModelCT-6.7067e-3) > 1e-7 {
 		t.Errorf("model reading %v, by hand %v", r.ModelResistance, rm)
 	}
 	want := rm * 4096 * 1025.976 / 999.1026
@@ -179,5 +195,37 @@ func TestHelp(t *testing.T) {
 	if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), "Usage") || !strings.Contains(out.String(), "It prints, in order") ||
 		!strings.Contains(out.String(), "naval architect") || !strings.Contains(out.String(), "-scale") {
 		t.Errorf("-h: %v, %q", err, out.String())
+	}
+}
+
+// TestPrintedLines: the printed coefficients say their factor 10³ on the
+// name, use one spelling (C_TM, capital subscripts), and the ship's
+// figures carry one decimal each; the printed μ reproduces the printed
+// Re by hand: 998.207·2.5·0.08/1.00194×10⁻³ = 199 255 → 1.9925×10⁵.
+func TestPrintedLines(t *testing.T) {
+	var out bytes.Buffer
+	if err := run(&out, nil); err != nil {
+		t.Fatal(err)
+	}
+	s := out.String()
+	for _, want := range []string{
+		"ρ = 998.207 kg/m³, V = 2.5 m/s, D = 0.08 m, μ = 1.00194 mPa·s",
+		"Re = 1.9925e+05",
+		"(Fn = 0.4356), R = 20.20 N",
+		"10³C_TM = 6.707, the towingtank example's invented test of the same vessel",
+		"10³C_TM = 6.707, 10³C_FM = 3.655, 10³C_R = 10³(C_TM − C_FM) = 3.051",
+		"ship resistance 67.5 kN, effective power 521.1 kW",
+	} {
+		if !strings.Contains(s, want) {
+			t.Errorf("output lacks %q:\n%s", want, s)
+		}
+	}
+	if re := 998.207 * 2.5 * 0.08 / 1.00194e-3; math.Abs(re-1.9925e5) > 5 {
+		t.Errorf("Re from the printed values %v, printed 1.9925e+05", re)
+	}
+	for _, not := range []string{"C_Tm", "C_Fm", "× 1000", "μ = 0.0010", "run 0"} {
+		if strings.Contains(s, not) {
+			t.Errorf("output has %q", not)
+		}
 	}
 }

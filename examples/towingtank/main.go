@@ -12,6 +12,8 @@
 // open-water curves.
 //
 // The vessel and every measurement are invented for the demonstration.
+// The model and its propeller are fixed; -scale changes the ship, and
+// the self-propulsion readings are made for its self-propulsion point.
 //
 // Usage:
 //
@@ -27,6 +29,7 @@ import (
 	"io"
 	"math"
 	"os"
+	"regexp"
 
 	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
@@ -135,7 +138,7 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	seaT := cli.FloatVar(fs, "sea", 15, 0, 35, "°C", "sea water temperature")
 	ca := cli.FloatVar(fs, "ca", 0.0004, -0.001, 0.002, "", "roughness and correlation allowance C_A of the ITTC-1957 extrapolation")
 	maxFn := cli.FloatVar(fs, "maxfn", 0.2, 0.1, 0.3, "", "highest Froude number used for Prohaska's form factor")
-	dir := fs.String("out", os.TempDir(), "directory for towingtank-coefficients.png and .svg")
+	dir := fs.String("out", os.TempDir(), "directory for the plots towingtank-coefficients.png/.svg and towingtank-openwater.png/.svg")
 	width := cli.FloatVar(fs, "width", 4.5, 1, 30, "m", "towing tank width")
 	depth := cli.FloatVar(fs, "depth", 2.2, 0.5, 15, "m", "towing tank water depth")
 	plotW := cli.FloatVar(fs, "plotw", 7, 3, 30, "in", "plot width")
@@ -186,29 +189,29 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	fmt.Fprintf(w, "tank: fresh water %g °C, ρ = %.2f kg/m³, ν = %.4e m²/s; sea: %g °C, ρ = %.2f kg/m³, ν = %.4e m²/s\n",
 		*tankT, tank.Density.Value(), tank.KinematicViscosity.Value(), *seaT, sea.Density.Value(), sea.KinematicViscosity.Value())
 	fp, db := out.Form, out.DoubleBody
-	fmt.Fprintf(w, "form factor by Prohaska (%d runs at Fn ≤ %g): 1 + k = %.3f, u = %.3f (standard uncertainty of the intercept, Type A, ν = %d), R² = %.3f\n",
+	fmt.Fprintf(w, "form factor by Prohaska (%d runs at Fn ≤ %g): 1 + k = %.3f, u = %.2g (standard uncertainty of the intercept, Type A, ν = %d), R² = %.3f\n",
 		fp.Points, fp.MaxFroude, fp.FormFactor, fp.FormFactorStdErr, fp.Points-2, fp.R2)
 	if fp.Warning != "" {
 		fmt.Fprintf(w, "WARNING (form factor): %s\n", fp.Warning)
 	}
-	fmt.Fprintf(w, "form factor by the double-body test (%d runs): 1 + k = %.3f, u = %.3f (standard uncertainty of the mean, Type A, ν = %d), spread %.3f\n",
+	fmt.Fprintf(w, "form factor by the double-body test (%d runs): 1 + k = %.3f, u = %.2g (standard uncertainty of the mean, Type A, ν = %d), spread %.3f\n",
 		len(db.PerRun), db.FormFactor, db.StdErr, len(db.PerRun)-1, db.Spread)
 	diff := db.FormFactor - fp.FormFactor
 	uc := math.Hypot(db.StdErr, fp.FormFactorStdErr)
 	out.MethodDiff = 0
 	if math.Abs(diff) > 2*uc {
 		out.MethodDiff = diff
-		fmt.Fprintf(w, "WARNING (form factor): double body − Prohaska = %+.3f, %.1f times their combined standard uncertainty %.3f (flagged above 2):\n"+
+		fmt.Fprintf(w, "WARNING (form factor): double body − Prohaska = %+.3f, %.1f times their combined standard uncertainty %.2g (flagged above 2):\n"+
 			"  the methods disagree beyond their scatter; the difference enters the budget below as a source (rectangular, half-width %.3f, u = %.4f)\n",
 			diff, math.Abs(diff)/uc, uc, math.Abs(diff), math.Abs(diff)/math.Sqrt(3))
 	} else {
-		fmt.Fprintf(w, "double body − Prohaska = %+.3f, within twice their combined standard uncertainty %.3f\n", diff, uc)
+		fmt.Fprintf(w, "double body − Prohaska = %+.3f, within twice their combined standard uncertainty %.2g\n", diff, uc)
 	}
 	fmt.Fprintln(w)
 	fmt.Fprintf(w, "ship figures: C_Ts = (1 + k)·C_Fs + C_R + C_A with C_A = %g (the basin's allowance for roughness and correlation), on S_ship = %.4g m²\n",
 		*ca, out.Plain.ShipWettedArea.Value())
-	fmt.Fprintf(w, "%6s %6s %8s %9s %9s %8s | %7s %9s %9s %9s | %9s %9s %9s\n", "Vm m/s", "Fn", "Rm N", "C_Tm×1e3", "C_Fm×1e3", "C_R×1e3",
-		"Vs kn", "C_Ts×1e3", "R_s kN", "P_E kW", "C_Ts×1e3", "R_s kN", "P_E kW")
+	fmt.Fprintf(w, "%6s %6s %8s %9s %9s %8s | %7s %9s %9s %9s | %9s %9s %9s\n", "Vm m/s", "Fn", "Rm N", "C_Tm×10³", "C_Fm×10³", "C_R×10³",
+		"Vs kn", "C_Ts×10³", "R_s kN", "P_E kW", "C_Ts×10³", "R_s kN", "P_E kW")
 	fmt.Fprintf(w, "%62s %29s   %29s\n", "", "ITTC-1957, 1 + k = 1", fmt.Sprintf("with 1 + k = %.3f (Prohaska)", fp.FormFactor))
 	for i, a := range out.Plain.Points {
 		b := out.WithForm.Points[i]
@@ -219,10 +222,21 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 			b.ShipCT*1e3, b.ShipResistance.Value()/1e3, b.EffectivePower.Value()/1e3)
 	}
 	fmt.Fprintf(w, "(C_R is the ITTC-1957 one, C_Tm − C_Fm; with the form factor C_R = C_Tm − (1 + k)·C_Fm)\n")
-	for _, res := range []*ship.HullResult{out.Plain, out.WithForm} {
-		for _, pt := range res.Points {
-			if pt.Warning != "" {
-				fmt.Fprintf(w, "WARNING (1 + k = %.3f): %s\n", res.FormFactor, pt.Warning)
+	// A run's warning is printed once, naming both extrapolations when
+	// they give the same one.
+	for i, a := range out.Plain.Points {
+		b := out.WithForm.Points[i]
+		switch {
+		case a.Warning != "" && a.Warning == b.Warning:
+			fmt.Fprintf(w, "WARNING (1 + k = %.3f and %.3f): %s\n", out.Plain.FormFactor, out.WithForm.FormFactor, a.Warning)
+		default:
+			for _, r := range []struct {
+				k    float64
+				warn string
+			}{{out.Plain.FormFactor, a.Warning}, {out.WithForm.FormFactor, b.Warning}} {
+				if r.warn != "" {
+					fmt.Fprintf(w, "WARNING (1 + k = %.3f): %s\n", r.k, r.warn)
+				}
 			}
 		}
 	}
@@ -236,15 +250,16 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 		return nil, err
 	}
 	fmt.Fprintf(w, "\nUncertainty at the top speed (invented instrument figures; standard uncertainties, first order, GUM):\n")
-	fmt.Fprintf(w, "speed 0.1 %% (rectangular), dynamometer 0.05 N, repeatability 0.06 N (5 repeat runs), tank thermometer 0.2 K,\n")
-	fmt.Fprintf(w, "wetted area 0.5 %%, length 1 mm, u(1 + k) = %.3f (Prohaska fit, ν = %d)", out.Form.FormFactorStdErr, out.Form.Points-2)
+	fmt.Fprintf(w, "speed u = 0.1 %% (rectangular, half-width %.2f %%), dynamometer 0.05 N, repeatability 0.06 N (the standard deviation s of a single run,\n", 0.1*math.Sqrt(3))
+	fmt.Fprintf(w, "from 5 repeat runs, ν = 4: the top speed's figure is one run), tank thermometer 0.2 K, wetted area 0.5 %%, length 1 mm,\n")
+	fmt.Fprintf(w, "u(1 + k) = %.2g (Prohaska fit, ν = %d)", out.Form.FormFactorStdErr, out.Form.Points-2)
 	if out.MethodDiff != 0 {
 		fmt.Fprintf(w, ", the form-factor methods' difference (rectangular, half-width %.3f, u = %.4f)", math.Abs(out.MethodDiff), math.Abs(out.MethodDiff)/math.Sqrt(3))
 	}
 	fmt.Fprintf(w, "; C_A and the sea temperature taken as exact\n\n")
-	fmt.Fprint(w, out.Budget.Resistance.In("kN", 1e3))
+	fmt.Fprint(w, wholeDoF(out.Budget.Resistance.In("kN", 1e3).String()))
 	fmt.Fprintln(w)
-	fmt.Fprint(w, out.Budget.Power.In("kW", 1e3))
+	fmt.Fprint(w, wholeDoF(out.Budget.Power.In("kW", 1e3).String()))
 	if out.Powering, err = powering(w, test, db, size, *dir); err != nil {
 		return nil, err
 	}
@@ -255,7 +270,12 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 const usageText = `Usage: towingtank [flags]
 
 A towing tank's whole job on invented data for a 2 m model of a 32 m
-(at 1:16) coastal research catamaran. It prints:
+(at 1:16) coastal research catamaran. The model (hull and propeller,
+D = 84.4 mm) and its readings are fixed; -scale changes the ship: its
+length, its propeller (D_S = D_M·λ) and its speeds, and the
+self-propulsion runs' readings, which are made for the ship's
+self-propulsion point at that scale from the hull's invented w_TM, t
+and η_R. It prints:
   - the resistance test carried to full scale by the ITTC-1957 method,
     without and with a form factor 1 + k from Prohaska's method: per run
     the model's Fn, resistance and coefficients C_Tm, C_Fm, C_R (×10³),
@@ -329,3 +349,11 @@ func mustFormat(p units.Printer, v q.Quantity, unit string) string {
 	}
 	return s
 }
+
+// effDoF matches the effective degrees of freedom a budget prints.
+var effDoF = regexp.MustCompile(`ν_eff = ([0-9]+)\.[0-9]+`)
+
+// wholeDoF prints a budget's effective degrees of freedom as the whole
+// number below it (GUM G.4.1 truncates ν_eff to the next lower integer),
+// next to uncertainties of two significant digits.
+func wholeDoF(s string) string { return effDoF.ReplaceAllString(s, "ν_eff = $1") }

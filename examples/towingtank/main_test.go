@@ -73,7 +73,7 @@ func TestByHand(t *testing.T) {
 func TestHelp(t *testing.T) {
 	var out bytes.Buffer
 	err := run(&out, []string{"-h"})
-	for _, want := range []string{"Usage", "It prints:", "C_Ts (including the allowance C_A)", "P_D (all shafts)", "naval architect", "thrust identity", "open-water test", "-dpi", "-plotw"} {
+	for _, want := range []string{"Usage", "It prints:", "C_Ts (including the allowance C_A)", "P_D (all shafts)", "naval architect", "thrust identity", "open-water test", "-dpi", "-plotw", "towingtank-coefficients.png/.svg and towingtank-openwater.png/.svg", "-scale changes the ship"} {
 		if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), want) {
 			t.Errorf("-h: %v, lacks %q", err, want)
 		}
@@ -109,11 +109,27 @@ func TestPrintedStatements(t *testing.T) {
 	for _, want := range []string{
 		"ship figures: C_Ts = (1 + k)·C_Fs + C_R + C_A with C_A = 0.0004",
 		"S = 1.62 m² (wetted, both hulls); ship L = 32 m, S = 414.7 m²",
-		"1 + k = 1.131, u = 0.002 (standard uncertainty of the intercept, Type A, ν = 1)",
-		"1 + k = 1.141, u = 0.002 (standard uncertainty of the mean, Type A, ν = 3)",
+		"1 + k = 1.131, u = 0.0023 (standard uncertainty of the intercept, Type A, ν = 1)",
+		"1 + k = 1.141, u = 0.0018 (standard uncertainty of the mean, Type A, ν = 3)",
+		"u(1 + k) = 0.0023 (Prohaska fit, ν = 1)",
 		"WARNING (form factor): double body − Prohaska = +0.010",
 		"form factor method (double body vs Prohaska)",
-		"twin screws on open shafts: the wake is not scaled, w_TS = w_TM",
+		"so the procedure's twin-screw rule is applied, w_TS = w_TM\n(ITTC 7.5-02-03-01.4, the wake not scaled; from memory)",
+		// One form factor and one C_A for the speed–power result, said so.
+		"the speed–power result uses this 1 + k = 1.141",
+		"the ITTC-1957 tables above use Prohaska's 1 + k = 1.131 and the -ca allowance,\nwhich lumps roughness and correlation for that method only",
+		"the basin has no\nITTC-1978 correlation allowance of its own, so C_A is the procedure's formula",
+		// Standard uncertainty and half-width; s of one run.
+		"speed u = 0.1 % (rectangular, half-width 0.17 %)",
+		"repeatability 0.06 N (the standard deviation s of a single run,\nfrom 5 repeat runs, ν = 4",
+		"R_s = 130.80 kN, u_c = 0.43 kN (0.33 %), ν_eff = 31, k = 2.04",
+		"after the correlation factors C_P = 1 on P_D and C_N = 1 on n",
+		"C_Tm×10³  C_Fm×10³  C_R×10³",
+		"K_T   10K_Q    η_O",
+		"lowers C_TS by 1.5 %",
+		"WARNING (1 + k = 1.000 and 1.131): run 1 (V_m = 0.5 m/s): the model Reynolds number 8.78e+05",
+		"WARNING: self-propulsion run 1 (V_M = 1 m/s): the propeller's Re_0.7 = 7.08e+04 is below the usual minimum 2e+05",
+		"WARNING: self-propulsion run 4 (V_M = 2 m/s): the propeller's Re_0.7 = 1.6e+05 is below",
 		"P_D the sum over both shafts",
 		"ΔC_F×10³  C_A×10³",
 		"C_A from the procedure's formula",
@@ -123,6 +139,44 @@ func TestPrintedStatements(t *testing.T) {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("output lacks %q", want)
 		}
+	}
+	// Printed once each; no run numbered from 0; the -ca figure is not
+	// called "none".
+	for _, once := range []string{"WARNING (8.00 kn)", "CAUTION: Delivered power", "model Reynolds number 8.78e+05"} {
+		if n := strings.Count(out.String(), once); n != 1 {
+			t.Errorf("%q printed %d times", once, n)
+		}
+	}
+	for _, not := range []string{"run 0", "from 0", "×1e3", "residual standard deviations from", "the basin giving none", "self-propulsion run 5"} {
+		if strings.Contains(out.String(), not) {
+			t.Errorf("output has %q", not)
+		}
+	}
+}
+
+// TestSelfPropulsionReynoldsByHand: run 1's Re_0.7 by hand,
+// c_0.7·√(V_A² + (0.7πnD)²)/ν with V_A = J_TM·nD, below 2×10⁵; run 5's
+// above it.
+func TestSelfPropulsionReynoldsByHand(t *testing.T) {
+	o, err := evaluate(io.Discard, []string{"-plot=false"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	nu := o.Plain.Test.Tank.KinematicViscosity.Value()
+	d := 1.35 / 16
+	for i, want := range []bool{true, true, true, true, false} {
+		p := o.Powering.SpeedPower.Factors[i]
+		va := p.J * p.RevsPerSecond * d
+		re := 0.45 / 16 * math.Hypot(va, 0.7*math.Pi*p.RevsPerSecond*d) / nu
+		if math.Abs(p.Reynolds-re) > 1e-9*re || (p.Warning != "") != want || (re < 2e5) != want {
+			t.Errorf("run %d: Re_0.7 %v, by hand %v, warning %q", i+1, p.Reynolds, re, p.Warning)
+		}
+	}
+	// Run 1 written out: J_TM = 0.7427, n = 14.64 rev/s, D = 0.084375 m:
+	// V_A = 0.9174 m/s, 0.7πnD = 2.7164 m/s, √(0.8417 + 7.3790) = 2.8672 m/s,
+	// Re_0.7 = 0.028125·2.8672/1.1395×10⁻⁶ ≈ 7.08×10⁴.
+	if re := o.Powering.SpeedPower.Factors[0].Reynolds; math.Abs(re-7.08e4) > 0.01e4 {
+		t.Errorf("run 1: Re_0.7 = %v, by hand 7.08e4", re)
 	}
 }
 
@@ -164,7 +218,7 @@ func TestCorrelationAllowanceByHand(t *testing.T) {
 	}
 	nuS := o.Plain.Test.Sea.KinematicViscosity.Value()
 	for i, p := range o.Powering.Points {
-		re := shipKnots[i] * 1852 / 3600 * 32 / nuS
+		re := o.Powering.ShipKnots[i] * 1852 / 3600 * 32 / nuS
 		ca := (5.68 - 0.6*math.Log10(re)) * 1e-3
 		k := o.DoubleBody.FormFactor
 		cts := k*p.ShipCF + p.RoughnessAllowance + ca + p.Residual + p.AirResistance
@@ -339,5 +393,31 @@ func TestBlockageByHand(t *testing.T) {
 	}
 	if want := vp * 4; math.Abs(p.ShipSpeed.Value()/want-1) > 1e-12 {
 		t.Errorf("ship speed %v, want %v", p.ShipSpeed.Value(), want)
+	}
+}
+
+// TestEveryScale: every accepted -scale runs to the end with the same
+// model readings, and the self-propulsion readings made for the scale
+// give back the hull's invented factors (w_TM, t, η_R within the
+// readings' rounding) and a speed–power curve inside the tests' range.
+func TestEveryScale(t *testing.T) {
+	for _, s := range []float64{2, 3, 5, 8, 10, 15, 16, 17, 20, 25, 40, 60, 100} {
+		o, err := evaluate(io.Discard, []string{"-plot=false", "-scale", fmt.Sprint(s)})
+		if err != nil {
+			t.Errorf("-scale %v: %v", s, err)
+			continue
+		}
+		for i, p := range o.Powering.SpeedPower.Factors {
+			f := spFactors[i]
+			if math.Abs(p.Wake-f[0]) > 0.002 || math.Abs(p.ThrustDeduction-f[1]) > 0.002 || math.Abs(p.RelativeRotative-f[2]) > 0.002 {
+				t.Errorf("-scale %v, run %d: w_TM %.4f, t %.4f, η_R %.4f; invented %v", s, i+1, p.Wake, p.ThrustDeduction, p.RelativeRotative, f)
+			}
+		}
+		if n := len(o.Powering.ShipKnots); n < 3 || n > 6 {
+			t.Errorf("-scale %v: %d ship speeds %v", s, n, o.Powering.ShipKnots)
+		}
+		if d := o.Powering.Propeller.Diameter.Value(); math.Abs(d-1.35/16*s) > 1e-12 {
+			t.Errorf("-scale %v: ship propeller D = %v m, want D_M·λ = %v", s, d, 1.35/16*s)
+		}
 	}
 }

@@ -20,39 +20,122 @@ var (
 	dbResistances = []float64{5.170, 10.63, 17.94, 26.77} // N
 )
 
-// Invented open-water test of the model propeller (D = 1.35 m/16 =
-// 84.4 mm, c_0.7 = 0.45 m/16 = 28.1 mm, c_0.75 = 0.46 m/16), run at
-// n = 45 rev/s over a range of carriage speeds: V_A in m/s, thrust T in
-// N and torque Q in N·m, net of the idle hub values.
+// Invented open-water test of the model propeller (D = 84.375 mm,
+// c_0.7 = 28.125 mm, c_0.75 = 28.75 mm; at 1:16 the ship's 1.35 m
+// propeller with chords 0.45 m and 0.46 m), run at n = 45 rev/s over a
+// range of carriage speeds: V_A in m/s, thrust T in N and torque Q in
+// N·m, net of the idle hub values. The model propeller, like the model
+// hull, is the physical object: -scale changes the ship and its
+// propeller (D_S = D_M/λ), never the model's readings.
 var (
-	owRevs = 45.0 // rev/s
-	owRuns = [][3]float64{
+	modelPropD = 1.35 / 16 // m
+	owRevs     = 45.0      // rev/s
+	owRuns     = [][3]float64{
 		{0.380, 38.13, 0.4515}, {0.759, 34.74, 0.4295}, {1.139, 31.51, 0.4017}, {1.519, 28.01, 0.3721}, {1.898, 24.06, 0.3427},
 		{2.278, 20.00, 0.3085}, {2.658, 15.94, 0.2740}, {3.038, 11.48, 0.2357}, {3.417, 6.86, 0.1972}, {3.797, 2.06, 0.1562},
 	}
 	modelChord07, modelChord075 = 0.45 / 16, 0.46 / 16 // m
 )
 
-// Invented self-propulsion test at the ship's self-propulsion point, one
-// propeller per hull on open shafts: model speed V_M (m/s), n (rev/s),
-// each propeller's thrust T (N) and torque Q (N·m), and the towing force
-// F_D (N) the carriage applied (the skin-friction correction, computed
-// beforehand as the program computes it again below).
-var spRuns = [][5]float64{
-	{1.00, 14.64, 1.485, 0.02779, 1.30}, {1.30, 19.65, 2.849, 0.05159, 1.96}, {1.60, 25.18, 5.040, 0.08781, 2.72},
-	{2.00, 33.47, 9.908, 0.16403, 3.88}, {2.40, 42.80, 17.647, 0.28015, 5.20},
+// Invented self-propulsion test, two propellers (one per demihull, on
+// open shafts), at five model speeds. The hull's invented behaviour is
+// given as its factors, each with its own scatter: the Taylor wake
+// fraction w_TM, the thrust deduction t and η_R. The readings of the
+// test (n, each propeller's T and Q, and the towing force F_D the
+// carriage applied) are made from them for the chosen scale by
+// spReadings, because the self-propulsion point, through F_D, depends
+// on the ship's Reynolds number and so on the scale.
+var (
+	spSpeeds  = []float64{1.00, 1.30, 1.60, 2.00, 2.40} // V_M, m/s
+	spFactors = [][3]float64{                           // w_TM, t, η_R
+		{0.0826, 0.0694, 0.9834}, {0.0794, 0.0747, 0.9827}, {0.0771, 0.0677, 0.9827},
+		{0.0788, 0.0664, 0.9807}, {0.0760, 0.0689, 0.9820},
+	}
+)
+
+// spReading is one self-propulsion run as the carriage's instruments
+// read it: V_M (m/s), n (rev/s), each propeller's T (N) and Q (N·m), and
+// the towing force F_D (N) applied.
+type spReading struct{ V, N, T, Q, FD float64 }
+
+// spReadings makes the self-propulsion runs' readings at the ship's
+// self-propulsion point for the scale in base: F_D as the procedure
+// computes it (rounded to the 0.01 N the carriage sets), each
+// propeller's thrust T = (R_TM − F_D)/(2(1 − t)) with R_TM from the
+// faired resistance curve, J_TM where the faired open-water K_T(J)
+// equals T·J²/(ρV_A²D²) with V_A = (1 − w_TM)V_M, n = V_A/(J_TM·D), and
+// Q = K_Q(J_TM)·ρn²D⁵/η_R; n, T and Q rounded to the instruments'
+// resolution (0.01 rev/s, 1 mN, 0.01 mN·m).
+func spReadings(base ship.PoweringInput, ow *ship.OpenWaterFit, rf *ship.ResistanceFit, rho float64) ([]spReading, []ship.SkinFriction, error) {
+	round := func(x, step float64) float64 { return math.Round(x/step) * step }
+	d := modelPropD
+	var out []spReading
+	var fds []ship.SkinFriction
+	for i, v := range spSpeeds {
+		w, t, er := spFactors[i][0], spFactors[i][1], spFactors[i][2]
+		in := base
+		in.ModelSpeed = q.New(v, q.Velocity)
+		fd, err := ship.SkinFrictionCorrection(in)
+		if err != nil {
+			return nil, nil, err
+		}
+		rt, _, err := rf.At(in.ModelSpeed)
+		if err != nil {
+			return nil, nil, err
+		}
+		r := spReading{V: v, FD: round(fd.Force.Value(), 0.01)}
+		th := (rt.Value() - r.FD) / (2 * (1 - t))
+		va := (1 - w) * v
+		c := th / (rho * va * va * d * d)
+		lo, hi := ow.JMin, ow.JMax
+		g := func(j float64) float64 { return ow.KT.Eval(j) - c*j*j }
+		if !(g(lo) > 0 && g(hi) < 0) {
+			return nil, nil, fmt.Errorf("self-propulsion run %d at scale 1:%.4g: the thrust %.4g N per propeller lies outside the open-water curve", i+1, 1/base.Scale, th)
+		}
+		for range 100 {
+			if m := (lo + hi) / 2; g(m) > 0 {
+				lo = m
+			} else {
+				hi = m
+			}
+		}
+		j := (lo + hi) / 2
+		r.N = round(va/(j*d), 0.01)
+		r.T = round(th, 0.001)
+		r.Q = round(ow.KQ.Eval(j)*rho*r.N*r.N*math.Pow(d, 5)/er, 1e-5)
+		out = append(out, r)
+		fds = append(fds, fd)
+	}
+	return out, fds, nil
 }
 
-// The ship propeller's geometry (invented) and the ship's speeds of the
-// speed–power curve.
+// The ship propeller's geometry (invented; the model propeller's times
+// the scale) and the ship's projected area above water, 48 m² at 1:16
+// and scaled with the ship's length squared.
 var (
-	propeller = ship.PropellerGeometry{
-		Diameter: q.New(1.35, q.Length), Blades: 4, PitchRatio: 0.90,
-		Chord: q.New(0.46, q.Length), ThicknessRatio: 0.04,
-	}
-	transverseArea = 48.0                             // m², the ship's projected area above water
-	shipKnots      = []float64{8, 10, 12, 14, 16, 18} // kn
+	propellerBlades, propellerPitch, propellerThickness = 4, 0.90, 0.04
+	transverseArea16                                    = 48.0 // m², at 1:16
 )
+
+// shipKnots returns the ship speeds of the speed–power curve: round
+// knots inside the self-propulsion test's range of model speeds carried
+// to the ship at equal Froude number, at most six, the step the
+// smallest of 0.5, 1, 2, 5, 10 kn that keeps to six.
+func shipKnots(scale float64) []float64 {
+	toKn := math.Sqrt(scale) * 3600 / 1852
+	lo, hi := spSpeeds[0]*toKn, spSpeeds[len(spSpeeds)-1]*toKn
+	var out []float64
+	for _, step := range []float64{0.5, 1, 2, 5, 10} {
+		a, b := math.Ceil(lo/step), math.Floor(hi/step)
+		if b-a+1 <= 6 {
+			for k := a; k <= b; k++ {
+				out = append(out, k*step)
+			}
+			return out
+		}
+	}
+	return out
+}
 
 // Powering holds the second half of the job, for the test.
 type Powering struct {
@@ -61,6 +144,9 @@ type Powering struct {
 	OpenWater    *ship.OpenWaterFit
 	Resistance   *ship.ResistanceFit
 	SkinFriction []ship.SkinFriction // F_D at each self-propulsion speed
+	Runs         []spReading         // the self-propulsion readings made for the scale
+	ShipKnots    []float64           // the speed–power curve's ship speeds, kn
+	Propeller    ship.PropellerGeometry
 	SpeedPower   *ship.SpeedPower
 	Points       []ship.PoweringResult // the speed–power curve's points
 	PNG, SVG     string                // resistance coefficients
@@ -80,7 +166,7 @@ func doubleBody(test ship.HullTest) (ship.DoubleBodyResult, error) {
 
 // openWaterTest is the invented open-water test in the tank's water.
 func openWaterTest(tank fluids.State) ship.OpenWaterTest {
-	t := ship.OpenWaterTest{Diameter: q.New(propeller.Diameter.Value()/16, q.Length), Chord: q.New(modelChord07, q.Length), Water: tank}
+	t := ship.OpenWaterTest{Diameter: q.New(modelPropD, q.Length), Chord: q.New(modelChord07, q.Length), Water: tank}
 	for _, r := range owRuns {
 		t.Runs = append(t.Runs, ship.OpenWaterRun{Speed: q.New(r[0], q.Velocity), RevsPerSecond: owRevs,
 			Thrust: q.New(r[1], q.Force), Torque: q.New(r[2], q.Torque)})
@@ -106,7 +192,12 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 		return nil, err
 	}
 	scale := test.Scale
-	dm := propeller.Diameter.Value() * scale
+	dm := modelPropD
+	propeller := ship.PropellerGeometry{
+		Diameter: q.New(dm/scale, q.Length), Blades: propellerBlades, PitchRatio: propellerPitch,
+		Chord: q.New(modelChord075/scale, q.Length), ThicknessRatio: propellerThickness,
+	}
+	transverseArea := transverseArea16 * math.Pow(1/(16*scale), 2)
 
 	// 1. Open-water test.
 	owt := openWaterTest(tank)
@@ -178,19 +269,18 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 		TransverseArea: q.New(transverseArea, q.Area), Propeller: prop, Propellers: 2,
 	}
 	spt := ship.SelfPropulsionTest{Diameter: q.New(dm, q.Length), Water: tank, OpenWater: ow, Resistance: rf, Propellers: 2}
-	for _, r := range spRuns {
-		spt.Runs = append(spt.Runs, ship.SelfPropulsionRun{ModelSpeed: q.New(r[0], q.Velocity), RevsPerSecond: r[1],
-			Thrust: q.New(r[2], q.Force), Torque: q.New(r[3], q.Torque), TowingForce: q.New(r[4], q.Force)})
-		in := base
-		in.ModelSpeed = q.New(r[0], q.Velocity)
-		s, err := ship.SkinFrictionCorrection(in)
-		if err != nil {
-			return nil, err
-		}
-		out.SkinFriction = append(out.SkinFriction, s)
+	runs, fds, err := spReadings(base, ow, rf, rho)
+	if err != nil {
+		return nil, err
+	}
+	out.Runs, out.SkinFriction, out.Propeller = runs, fds, prop
+	for _, r := range runs {
+		spt.Runs = append(spt.Runs, ship.SelfPropulsionRun{ModelSpeed: q.New(r.V, q.Velocity), RevsPerSecond: r.N,
+			Thrust: q.New(r.T, q.Force), Torque: q.New(r.Q, q.Torque), TowingForce: q.New(r.FD, q.Force)})
 	}
 	var ships []q.Quantity
-	for _, k := range shipKnots {
+	out.ShipKnots = shipKnots(1 / scale)
+	for _, k := range out.ShipKnots {
 		ships = append(ships, q.New(k*1852.0/3600, q.Velocity))
 	}
 	if out.SpeedPower, err = ship.PredictSpeedPower(ship.SpeedPowerInput{Base: base, SelfPropulsion: spt, ShipSpeeds: ships}); err != nil {
@@ -200,12 +290,21 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	fmt.Fprintf(w, "\nSelf-propulsion test (invented runs), two propellers, analysed by thrust identity (ITTC 7.5-02-03-01.1 and 01.4):\n")
 	fmt.Fprintf(w, "K_TM → J_TM on the faired K_T; w_TM = 1 − J_TM·nD/V_M; t = (2T + F_D − R_TM)/(2T); η_R = K_Q0/K_QM; η_H = (1 − t)/(1 − w_TM); η_D = η_H·η₀·η_R\n")
 	fmt.Fprintf(w, "F_D = ½ρV_M²S_M[(1 + k)(C_FM − C_FS) − ΔC_F − C_A] with 1 + k = %.3f and C_A from the procedure's formula; R_TM from the faired resistance curve\n", db.FormFactor)
-	fmt.Fprintf(w, "%7s %7s %7s %8s %7s %8s %7s | %6s %6s %6s %7s %6s %6s %6s %6s\n", "V_M m/s", "n rev/s", "T N", "Q N·m", "F_D N", "F_D calc", "R_TM N",
-		"K_TM", "10K_QM", "J_TM", "w_TM", "t", "η_R", "η_H", "η_D")
+	fmt.Fprintf(w, "readings made for the ship's self-propulsion point at 1:%.4g from the hull's invented w_TM, t and η_R; Re_0.7 = c_0.7·√(V_A² + (0.7πnD)²)/ν, V_A = J_TM·nD\n", 1/scale)
+	fmt.Fprintf(w, "%7s %7s %7s %8s %7s %8s %7s | %6s %6s %6s %7s %6s %6s %6s %6s %8s\n", "V_M m/s", "n rev/s", "T N", "Q N·m", "F_D N", "F_D calc", "R_TM N",
+		"K_TM", "10K_QM", "J_TM", "w_TM", "t", "η_R", "η_H", "η_D", "Re_0.7")
 	for i, p := range sp.Factors {
-		r := spRuns[i]
-		fmt.Fprintf(w, "%7.2f %7.2f %7.3f %8.5f %7.2f %8.2f %7.3f | %6.4f %6.4f %6.4f %7.4f %6.4f %6.4f %6.4f %6.4f\n", r[0], r[1], r[2], r[3], r[4],
-			out.SkinFriction[i].Force.Value(), p.Resistance, p.KT, 10*p.KQ, p.J, p.Wake, p.ThrustDeduction, p.RelativeRotative, p.EtaH, p.EtaD)
+		r := runs[i]
+		fmt.Fprintf(w, "%7.2f %7.2f %7.3f %8.5f %7.2f %8.2f %7.3f | %6.4f %6.4f %6.4f %7.4f %6.4f %6.4f %6.4f %6.4f %8.2e\n", r.V, r.N, r.T, r.Q, r.FD,
+			out.SkinFriction[i].Force.Value(), p.Resistance, p.KT, 10*p.KQ, p.J, p.Wake, p.ThrustDeduction, p.RelativeRotative, p.EtaH, p.EtaD, p.Reynolds)
+	}
+	seen := map[string]bool{}
+	for _, p := range sp.Factors {
+		if p.Warning != "" {
+			line := "WARNING: " + p.Warning
+			seen[line] = true
+			fmt.Fprintln(w, line)
+		}
 	}
 	for _, c := range []struct {
 		name string
@@ -221,15 +320,22 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	}
 	top := out.Points[len(out.Points)-1]
 	fmt.Fprintf(w, "\nDelivered power by the ITTC-1978 method, double-body form factor 1 + k = %.3f, two propellers, from the faired tests:\n", db.FormFactor)
-	fmt.Fprintf(w, "C_TS = (1 + k)·C_FS + ΔC_F + C_A + C_R + C_AAS on S_ship = %.4g m²: roughness allowance ΔC_F from k_S = 150 µm; C_A from the procedure's\n", test.ModelWettedArea.Value()/(test.Scale*test.Scale))
-	fmt.Fprintf(w, "formula (5.68 − 0.6·log₁₀Re_S)·10⁻³, the basin giving none (%.3f×10⁻³ at the top speed); air C_AAS = %.3f×10⁻³ (A_VS = %g m², C_DA = 0.8);\n",
-		top.CorrelationAllowance*1e3, top.AirResistance*1e3, transverseArea)
-	fmt.Fprintf(w, "twin screws on open shafts: the wake is not scaled, w_TS = w_TM (ITTC-1978); each carries half the thrust in K_T/J²; n is each propeller's rate, P_D the sum over both shafts;\n")
+	fmt.Fprintf(w, "the speed–power result uses this 1 + k = %.3f (the double-body test measures the viscous resistance directly; the basin's choice)\n", db.FormFactor)
+	fmt.Fprintf(w, "with the ITTC-1978 allowances ΔC_F and C_A below; the ITTC-1957 tables above use Prohaska's 1 + k = %.3f and the -ca allowance,\n", test.FormFactor)
+	fmt.Fprintf(w, "which lumps roughness and correlation for that method only; the two form factors' difference is a source in the budget above\n")
+	fmt.Fprintf(w, "C_TS = (1 + k)·C_FS + ΔC_F + C_A + C_R + C_AAS on S_ship = %.4g m²: roughness allowance ΔC_F from k_S = 150 µm; the basin has no\n", test.ModelWettedArea.Value()/(test.Scale*test.Scale))
+	fmt.Fprintf(w, "ITTC-1978 correlation allowance of its own, so C_A is the procedure's formula (5.68 − 0.6·log₁₀Re_S)·10⁻³ (%.3f×10⁻³ at the top speed);\n",
+		top.CorrelationAllowance*1e3)
+	fmt.Fprintf(w, "air C_AAS = %.3f×10⁻³ (A_VS = %.3g m², C_DA = 0.8);\n", top.AirResistance*1e3, transverseArea)
+	fmt.Fprintf(w, "wake: one propeller behind each demihull on an open shaft with a strut, so the procedure's twin-screw rule is applied, w_TS = w_TM\n")
+	fmt.Fprintf(w, "(ITTC 7.5-02-03-01.4, the wake not scaled; from memory): the screw works clear of the thick stern boundary layer that the\n")
+	fmt.Fprintf(w, "single-screw scaling corrects for (the basin may choose otherwise for a catamaran); each propeller carries half the thrust\n")
+	fmt.Fprintf(w, "in K_T/J²; n is each propeller's rate, P_D the sum over both shafts;\n")
 	fmt.Fprintf(w, "propeller D = %g m, Z = %d, P/D = %g, model Re_co = %.3g (0.75R, the open-water test at J = %.1f); C_DM = %.5f, C_DS = %.5f, scale correction ΔK_T = %.4f, ΔK_Q = %.5f\n",
 		propeller.Diameter.Value(), propeller.Blades, propeller.PitchRatio, prop.ModelReynolds, jop, top.ModelBladeDrag, top.ShipBladeDrag, top.DeltaKT, top.DeltaKQ)
-	fmt.Fprint(w, ship.PoweringTable(out.Points, false))
+	printOnce(w, seen, ship.PoweringTable(out.Points, false))
 	fmt.Fprintln(w)
-	fmt.Fprint(w, sp.Table(false))
+	printOnce(w, seen, sp.Table(false))
 	if size.Skip {
 		fmt.Fprintln(w, "plots: not written (-plot=false)")
 		return out, nil
@@ -250,4 +356,20 @@ type plotSize struct {
 	W, H float64
 	DPI  int
 	Skip bool
+}
+
+// printOnce writes text line by line, leaving out a WARNING or CAUTION
+// line already written (the tables of one report repeat them) and
+// remembering the ones it writes.
+func printOnce(w io.Writer, seen map[string]bool, text string) {
+	for _, line := range strings.SplitAfter(text, "\n") {
+		key := strings.TrimSuffix(line, "\n")
+		if strings.HasPrefix(key, "WARNING") || strings.HasPrefix(key, "CAUTION") {
+			if seen[key] {
+				continue
+			}
+			seen[key] = true
+		}
+		fmt.Fprint(w, line)
+	}
 }

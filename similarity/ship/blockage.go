@@ -170,7 +170,7 @@ func (t HullTest) WithBlockage(tank TankSection, ax quantity.Quantity) (HullTest
 	for i, v := range t.Speeds {
 		c, err := TankBlockage(tank, ax, v, t.Gravity)
 		if err != nil {
-			return HullTest{}, nil, fmt.Errorf("run %d: %w", i, err)
+			return HullTest{}, nil, fmt.Errorf("run %d: %w", i+1, err)
 		}
 		corr[i] = c
 		out.Speeds[i] = c.Speed

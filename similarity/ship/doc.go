@@ -54,7 +54,9 @@
 //     curves: J_TM from K_TM on the open-water K_T, w_TM = 1 − J_TM·nD/V_M,
 //     t = (T + F_D − R_TM)/T (T of all propellers), η_R = K_Q0/K_QM, η_H, η_O
 //     and η_D
-//     (7.5-02-03-01.1 and 01.4; from memory).
+//     (7.5-02-03-01.1 and 01.4; from memory), and each run's blade
+//     Reynolds number Re_0.7 with a warning below UsualOpenWaterReynolds
+//     (a laminar model propeller flatters K_Q and η_R).
 //  9. Powering. ITTC1978 predicts the ship's delivered power and
 //     revolutions at one speed from the resistance, the open-water curve
 //     (faired, PoweringInput.Faired, or a table interpolated linearly)

@@ -141,7 +141,7 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 	Ls, Ss := Lm/t.Scale, Sm/(t.Scale*t.Scale)
 	res.ShipLength, res.ShipWettedArea = quantity.New(Ls, quantity.Length), quantity.New(Ss, quantity.Area)
 	for i, v := range t.Speeds {
-		if err := v.CheckNamed(fmt.Sprintf("speed %d", i), quantity.Velocity); err != nil {
+		if err := v.CheckNamed(fmt.Sprintf("speed %d", i+1), quantity.Velocity); err != nil {
 			return nil, err
 		}
 		r := t.Resistances[i]
@@ -149,7 +149,7 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 			return nil, err
 		}
 		if !(v.Value() > 0) || !(r.Value() > 0) || math.IsInf(v.Value(), 0) || math.IsInf(r.Value(), 0) {
-			return nil, m(fmt.Sprintf("run %d: speed and resistance must be positive and finite", i))
+			return nil, m(fmt.Sprintf("run %d: speed and resistance must be positive and finite", i+1))
 		}
 		x := uncertain.Exact
 		hv, err := hullMethod(hullCase{
@@ -164,7 +164,7 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 				if side.ship {
 					where = "ship"
 				}
-				return nil, &Error{Op: "hull extrapolation", Fault: similarity.Caused(fmt.Sprintf("run %d, %s", i, where), fmt.Sprintf("run %d, %s", i, where), side.err)}
+				return nil, &Error{Op: "hull extrapolation", Fault: similarity.Caused(fmt.Sprintf("run %d, %s", i+1, where), fmt.Sprintf("run %d, %s", i+1, where), side.err)}
 			}
 			return nil, err
 		}
@@ -174,9 +174,9 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 			ShipCF: hv.cfS.Value(), ShipCT: hv.ctS.Value(), ShipResistance: hv.rs.Quantity(), EffectivePower: hv.pe.Quantity()}
 		Rs := p.ShipResistance.Value()
 		if !allFinite(Rs, p.EffectivePower.Value(), p.Froude, p.ModelCT) {
-			return nil, m(fmt.Sprintf("run %d: the ship resistance is not finite", i))
+			return nil, m(fmt.Sprintf("run %d: the ship resistance is not finite", i+1))
 		}
-		p.Warning = hullWarning(fmt.Sprintf("run %d (from 0; V_m = %.4g m/s): ", i, v.Value()), p.ModelReynolds, p.ModelCT, p.Residual, Rs)
+		p.Warning = hullWarning(fmt.Sprintf("run %d (V_m = %.4g m/s): ", i+1, v.Value()), p.ModelReynolds, p.ModelCT, p.Residual, Rs)
 		res.Points = append(res.Points, p)
 	}
 	return res, nil

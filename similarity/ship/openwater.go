@@ -82,6 +82,10 @@ type OpenWaterFit struct {
 	JMin, JMax float64            // the fitted J range: no extrapolation
 	// MinReynolds and MaxReynolds are the runs' extreme Re_0.7.
 	MinReynolds, MaxReynolds float64
+	// Chord is the test's model chord c_0.7 in metres and Viscosity the
+	// water's kinematic viscosity in m²/s, kept for the Reynolds numbers
+	// of a self-propulsion test with the same propeller.
+	Chord, Viscosity float64
 	// Warning, when not empty, says why the curve is doubtful (a
 	// Reynolds number below UsualOpenWaterReynolds, an outlier among the
 	// runs); every report that prints the curve prints it.
@@ -149,9 +153,9 @@ func ReduceOpenWater(t OpenWaterTest) (*OpenWaterFit, error) {
 		return nil, &Error{Op: op, Fault: similarity.Invalid("order", fmt.Sprintf("polynomial order %d: want 1 … 6, or 0 to choose it", t.Order))}
 	}
 	d, rho, nu := t.Diameter.Value(), t.Water.Density.Value(), t.Water.KinematicViscosity
-	f := &OpenWaterFit{MinReynolds: math.Inf(1)}
+	f := &OpenWaterFit{MinReynolds: math.Inf(1), Chord: t.Chord.Value(), Viscosity: nu.Value()}
 	for i, r := range t.Runs {
-		name := fmt.Sprintf("run %d", i)
+		name := fmt.Sprintf("run %d", i+1)
 		for _, c := range []similarity.Input{{Name: name + ": advance speed", Value: r.Speed, Dim: quantity.Velocity}, {Name: name + ": thrust", Value: r.Thrust, Dim: quantity.Force}, {Name: name + ": torque", Value: r.Torque, Dim: quantity.Torque}} {
 			if err := c.Value.CheckNamed(c.Name, c.Dim); err != nil {
 				return nil, err
@@ -325,7 +329,8 @@ func outlierNotes(p *fit.Poly, x, unit, y string) []string {
 	var out []string
 	for _, i := range p.Outliers {
 		r := p.Rows[i]
-		out = append(out, fmt.Sprintf("the run at %s = %.4g%s lies %.3g residual standard deviations from the faired %s (an outlier; not dropped)", x, r.X, unit, math.Abs(r.Studentized), y))
+		out = append(out, fmt.Sprintf("the run at %s = %.4g%s has an externally studentised residual of %.3g from the faired %s (its residual %.3g is %.3g times the fit's residual standard deviation S = %.2g; an outlier; not dropped)",
+			x, r.X, unit, math.Abs(r.Studentized), y, r.Residual, math.Abs(r.Residual)/p.S, p.S))
 	}
 	return out
 }

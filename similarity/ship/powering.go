@@ -130,6 +130,9 @@ type PoweringResult struct {
 	Thrust, Torque     quantity.Quantity // per propeller
 	// DeliveredPower is P_D of all propellers (all shafts) after C_P.
 	DeliveredPower quantity.Quantity
+	// CP and CN are the correlation factors applied to P_D and n (1
+	// when the input gave none).
+	CP, CN float64
 	// Warning, when not empty, says why the prediction is doubtful: a
 	// negative roughness allowance ΔC_F or residuary coefficient C_R, a
 	// model Reynolds number where laminar flow is likely, a model
@@ -291,6 +294,7 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	}
 
 	var r PoweringResult
+	r.CP, r.CN = cp, cn
 	lm, sm, vm := in.ModelLength.Value(), in.ModelWettedArea.Value(), in.ModelSpeed.Value()
 	ls, ss := lm/in.Scale, sm/(in.Scale*in.Scale)
 	vs := vm / math.Sqrt(in.Scale)
@@ -381,7 +385,7 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 		warn = append(warn, fmt.Sprintf("the residuary coefficient C_R = %.3f×10⁻³ is negative (the model's C_TM is below (1 + k)·C_FM): check the run and the form factor", r.Residual*1e3))
 	}
 	if r.RoughnessAllowance < 0 {
-		warn = append(warn, fmt.Sprintf("the roughness allowance ΔC_F = %.3f×10⁻³ is negative and lowers C_TS by %.0f %%: its formula is outside its range for a hull this short or this slow (L = %.3g m, Re_S = %.3g); the basin's own allowance should replace it",
+		warn = append(warn, fmt.Sprintf("the roughness allowance ΔC_F = %.3f×10⁻³ is negative and lowers C_TS by %.1f %%: its formula is outside its range for a hull this short or this slow (L = %.3g m, Re_S = %.3g); the basin's own allowance should replace it",
 			r.RoughnessAllowance*1e3, -100*r.RoughnessAllowance/r.ShipCT, ls, r.ShipReynolds))
 	}
 	if r.ModelCT > MaxPlausibleCT {

@@ -49,7 +49,7 @@ func FairResistance(test HullTest, order int) (*ResistanceFit, error) {
 	r := &ResistanceFit{Density: test.Tank.Density.Value(), WettedArea: test.ModelWettedArea.Value()}
 	v, ct := make([]float64, n), make([]float64, n)
 	for i := range n {
-		name := fmt.Sprintf("run %d", i)
+		name := fmt.Sprintf("run %d", i+1)
 		if err := fail(op, similarity.CheckInputs(true,
 			similarity.Input{Name: name + ": speed", Value: test.Speeds[i], Dim: quantity.Velocity},
 			similarity.Input{Name: name + ": resistance", Value: test.Resistances[i], Dim: quantity.Force})); err != nil {
@@ -234,6 +234,15 @@ type SelfPropulsionPoint struct {
 	// efficiency at J_TM and EtaD = η_H·η_O·η_R.
 	Wake, ThrustDeduction, RelativeRotative float64
 	EtaH, Eta0, EtaD                        float64
+	// Reynolds is the run's blade Reynolds number
+	// Re_0.7 = c_0.7·√(V_A² + (0.7πnD)²)/ν with V_A = J_TM·nD, from the
+	// open-water test's chord and the water's viscosity (0 when the
+	// open-water curve carries no chord).
+	Reynolds float64
+	// Warning, when not empty, says why the run is doubtful: a Reynolds
+	// number below UsualOpenWaterReynolds, where the model propeller's
+	// blade flow may be partly laminar (which flatters K_Q and η_R).
+	Warning string
 }
 
 // AnalyseSelfPropulsion analyses each run of a self-propulsion test by
@@ -273,7 +282,7 @@ func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) 
 	d, rho := t.Diameter.Value(), t.Water.Density.Value()
 	out := make([]SelfPropulsionPoint, 0, len(t.Runs))
 	for i, r := range t.Runs {
-		name := fmt.Sprintf("run %d", i)
+		name := fmt.Sprintf("run %d", i+1)
 		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: name + ": model speed", Value: r.ModelSpeed, Dim: quantity.Velocity},
 			similarity.Input{Name: name + ": thrust", Value: r.Thrust, Dim: quantity.Force},
 			similarity.Input{Name: name + ": torque", Value: r.Torque, Dim: quantity.Torque})); err != nil {
@@ -332,6 +341,13 @@ func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) 
 			return nil, &Error{Op: op, Fault: similarity.Invalid(name, fmt.Sprintf("%s: w_TM = %.4g, t = %.4g, η_R = %.4g: not the factors of a propelled hull (want 0 ≤ w_TM < 1, −0.5 < t < 1, 0.5 < η_R < 1.5; a unit slip, or the wrong open-water curve?)",
 				name, p.Wake, p.ThrustDeduction, p.RelativeRotative))}
 
+		}
+		if c, nu := t.OpenWater.Chord, t.OpenWater.Viscosity; c > 0 && nu > 0 {
+			p.Reynolds = c * math.Hypot(j*n*d, 0.7*math.Pi*n*d) / nu
+			if p.Reynolds < UsualOpenWaterReynolds {
+				p.Warning = fmt.Sprintf("self-propulsion %s (V_M = %.4g m/s): the propeller's Re_0.7 = %.3g is below the usual minimum %.0e (ITTC 7.5-02-03-02.1; from memory): the blade flow may be partly laminar, which flatters K_Q and η_R",
+					name, p.ModelSpeed, p.Reynolds, UsualOpenWaterReynolds)
+			}
 		}
 		out = append(out, p)
 	}

@@ -45,12 +45,12 @@ func (r *HullResult) Table(md bool) string {
 
 // PoweringTable writes ITTC-1978 predictions as the trade presents them,
 // one row per speed: V_S (kn), Fn, C_R, ΔC_F, C_A and C_TS (×10³; C_TS
-// includes ΔC_F, C_A and C_AAS), R_TS (kN), P_E (kW), w_TS, J, K_T, K_Q,
+// includes ΔC_F, C_A and C_AAS), R_TS (kN), P_E (kW), w_TS, J, K_T, 10K_Q,
 // η_O, η_H, η_R, η_D, n (rpm) and P_D (kW, all shafts), K_T and K_Q with
-// n in revolutions per second; then the source of C_A, every warning and
+// n in revolutions per second (10K_Q as the other open-water tables print it); then the source of C_A, every warning and
 // the caution. Markdown if md is set.
 func PoweringTable(rs []PoweringResult, md bool) string {
-	head := []string{"V_S kn", "Fn", "C_R×10³", "ΔC_F×10³", "C_A×10³", "C_TS×10³", "R_TS kN", "P_E kW", "w_TS", "J", "K_T", "K_Q", "η_O", "η_H", "η_R", "η_D", "n rpm", "P_D kW"}
+	head := []string{"V_S kn", "Fn", "C_R×10³", "ΔC_F×10³", "C_A×10³", "C_TS×10³", "R_TS kN", "P_E kW", "w_TS", "J", "K_T", "10K_Q", "η_O", "η_H", "η_R", "η_D", "n rpm", "P_D kW"}
 	var rows [][]string
 	var warn []string
 	formula := false
@@ -64,13 +64,13 @@ func PoweringTable(rs []PoweringResult, md bool) string {
 			fmt.Sprintf("%.3f", r.Residual*1e3), fmt.Sprintf("%.3f", r.RoughnessAllowance*1e3), fmt.Sprintf("%.3f", r.CorrelationAllowance*1e3),
 			fmt.Sprintf("%.3f", r.ShipCT*1e3),
 			fmt.Sprintf("%.1f", r.ShipResistance.Value()/1e3), fmt.Sprintf("%.0f", r.EffectivePower.Value()/1e3),
-			fmt.Sprintf("%.3f", r.ShipWake), fmt.Sprintf("%.3f", r.J), fmt.Sprintf("%.4f", r.KT), fmt.Sprintf("%.5f", r.KQ),
+			fmt.Sprintf("%.3f", r.ShipWake), fmt.Sprintf("%.3f", r.J), fmt.Sprintf("%.4f", r.KT), fmt.Sprintf("%.4f", 10*r.KQ),
 			fmt.Sprintf("%.3f", r.Eta0), fmt.Sprintf("%.3f", r.EtaH), fmt.Sprintf("%.3f", r.EtaR), fmt.Sprintf("%.3f", r.EtaD),
 			fmt.Sprintf("%.1f", r.RPM), fmt.Sprintf("%.0f", r.DeliveredPower.Value()/1e3),
 		})
 	}
 	var sb strings.Builder
-	sb.WriteString("ITTC-1978 performance prediction (K_T, K_Q with n in rev/s; C_TS = (1 + k)C_FS + ΔC_F + C_A + C_R + C_AAS; P_D of all shafts)\n")
+	sb.WriteString("ITTC-1978 performance prediction (K_T, 10K_Q with n in rev/s; C_TS = (1 + k)C_FS + ΔC_F + C_A + C_R + C_AAS; P_D of all shafts)\n")
 	if md {
 		sb.WriteString("\n")
 	}

@@ -58,8 +58,10 @@ type SpeedPower struct {
 	Wake, Thrust, EtaR *fit.Poly
 	Level              float64
 	// Warning, when not empty, names what the fits flag: outlying
-	// runs of the resistance test or of the factors against speed (the
-	// open-water curve's own warning is in every point's Warning).
+	// runs of the resistance test or of the factors against speed (a
+	// self-propulsion run's own warning, such as a propeller Reynolds
+	// number below UsualOpenWaterReynolds, is in its Factors entry, and
+	// the open-water curve's in every point's Warning).
 	Warning string
 	// Method states how the band was found, for the report.
 	Method string
@@ -114,10 +116,11 @@ func PredictSpeedPower(in SpeedPowerInput) (*SpeedPower, error) {
 	for k, name := range []string{"w_TM", "t", "η_R"} {
 		warn = append(warn, outlierNotes(facs[k], "V_M", " m/s", name)...)
 	}
+
 	out.Warning = joinWarnings(warn)
 	vms := make([]float64, len(in.ShipSpeeds))
 	for i, v := range in.ShipSpeeds {
-		name := fmt.Sprintf("ship speed %d", i)
+		name := fmt.Sprintf("ship speed %d", i+1)
 		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: name, Value: v, Dim: quantity.Velocity})); err != nil {
 			return nil, err
 		}
@@ -131,11 +134,11 @@ func PredictSpeedPower(in SpeedPowerInput) (*SpeedPower, error) {
 	for i, vm := range vms {
 		r, err := predictChain(in.Base, sp.Resistance, sp.OpenWater, facs, vm)
 		if err != nil {
-			return nil, &Error{Op: op, Fault: similarity.Caused(fmt.Sprintf("ship speed %d", i), fmt.Sprintf("ship speed %d (%.4g m/s)", i, in.ShipSpeeds[i].Value()), err)}
+			return nil, &Error{Op: op, Fault: similarity.Caused(fmt.Sprintf("ship speed %d", i+1), fmt.Sprintf("ship speed %d (%.4g m/s)", i+1, in.ShipSpeeds[i].Value()), err)}
 		}
 		pt := SpeedPowerPoint{PoweringResult: r}
 		if err := band(&pt, in.Base, sp, orders, facs, vm, level); err != nil {
-			return nil, &Error{Op: op, Fault: similarity.Caused(fmt.Sprintf("ship speed %d", i), fmt.Sprintf("ship speed %d: the band", i), err)}
+			return nil, &Error{Op: op, Fault: similarity.Caused(fmt.Sprintf("ship speed %d", i+1), fmt.Sprintf("ship speed %d: the band", i+1), err)}
 		}
 		out.Points = append(out.Points, pt)
 	}
@@ -292,7 +295,8 @@ func band(pt *SpeedPowerPoint, base PoweringInput, sp SelfPropulsionTest, orders
 // Table writes the speed–power curve as the trade presents it: per
 // speed V_S (kn), P_E (kW), w_TS, t, η_R, η_D, n (rpm) with its band and
 // P_D (kW, all shafts) with its band at Level; then the method of the
-// band, every warning and the caution.
+// band, every warning (the fits', each self-propulsion run's, each
+// speed's) and the caution.
 func (s *SpeedPower) Table(md bool) string {
 	pc := fmt.Sprintf("%.0f %%", 100*s.Level)
 	head := []string{"V_S kn", "P_E kW", "w_TS", "t", "η_R", "η_D", "n rpm", "n " + pc + " rpm", "P_D kW", "P_D " + pc + " kW", "±%"}
@@ -313,7 +317,11 @@ func (s *SpeedPower) Table(md bool) string {
 		}
 	}
 	var sb strings.Builder
-	sb.WriteString("Speed–power prediction, ITTC-1978 (n per propeller; P_D of all shafts after C_P, C_N)\n")
+	cp, cn := 1.0, 1.0
+	if len(s.Points) > 0 {
+		cp, cn = s.Points[0].CP, s.Points[0].CN
+	}
+	fmt.Fprintf(&sb, "Speed–power prediction, ITTC-1978 (n per propeller; P_D of all shafts; after the correlation factors C_P = %.3g on P_D and C_N = %.3g on n)\n", cp, cn)
 	if md {
 		sb.WriteString("\n")
 	}
@@ -321,6 +329,11 @@ func (s *SpeedPower) Table(md bool) string {
 	sb.WriteString("band: " + s.Method + "\n")
 	if s.Warning != "" {
 		sb.WriteString("WARNING (fits): " + s.Warning + "\n")
+	}
+	for _, f := range s.Factors {
+		if f.Warning != "" {
+			sb.WriteString("WARNING: " + f.Warning + "\n")
+		}
 	}
 	for _, w := range warn {
 		sb.WriteString(w + "\n")
