@@ -243,3 +243,26 @@ func confine(args []string, dir string) []string {
 	}
 	return args
 }
+
+// TestGroupNamedOnStderr: each recognised group's name and definition go
+// to standard error with the group, so a pump engineer reading ψ_p sees
+// that it is the fan pressure coefficient Δp/(ρn²D²) with n in rev/s,
+// not the head coefficient 2gH/u².
+func TestGroupNamedOnStderr(t *testing.T) {
+	args := []string{"-data", "testdata/pumploop.csv", "-baro", "1002hPa",
+		"-derive", "dp = P2 - P1; D = 0.25 {m}; rho = 998.2 {kg/m^3}",
+		"-dep", "dp", "-repeat", "n,D,rho", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}
+	var out, errb bytes.Buffer
+	if code := run(args, &out, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	for _, want := range []string{
+		"Π₁ = dp/(n²·D²·rho)  (ψ_p/(4π²))",
+		"(fan pressure coefficient; ψ_p = Δp/(ρ·n²·D²), n in revolutions per second",
+		"(flow coefficient; φ = Q/(n·D³)",
+	} {
+		if !strings.Contains(errb.String(), want) {
+			t.Errorf("standard error lacks %q:\n%s", want, errb.String())
+		}
+	}
+}

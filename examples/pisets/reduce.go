@@ -328,6 +328,9 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 			col = "; column " + c
 		}
 		fmt.Fprintf(log, "pisets:   %s = %s  (%s)%s\n", gr.Name, gr.Format(quantity.Unicode), gr.Label(), col)
+		if d := gr.Describe(); d != "" {
+			fmt.Fprintf(log, "pisets:     %s\n", d) // the named group's name and definition
+		}
 	}
 	for _, c := range res.Columns { // the channels read; the others were not parsed
 		for _, rdg := range c.Readings {
