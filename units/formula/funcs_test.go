@@ -335,8 +335,16 @@ func TestConstantsProperty(t *testing.T) {
 		if errO != nil {
 			return
 		}
-		if v, ok := pf.Constant(0); !ok || v != ro[0] || rf[0] != ro[0] {
+		// A statement of constants is folded unless an intermediate is not
+		// finite (left in place so that it is reported per row, as the
+		// package documents: max(1, -1/0) is 1 yet not folded). Whatever
+		// is folded equals the per-row evaluation.
+		v, ok := pf.Constant(0)
+		if ok && v != ro[0] || rf[0] != ro[0] {
 			t.Fatalf("%q: folded %v (%v), row %v", folded, v, ok, ro[0])
+		}
+		if !ok && !strings.ContainsAny(folded, "/^") && !strings.Contains(folded, "exp") && !strings.Contains(folded, "*") {
+			t.Fatalf("%q: a statement of constants with no operation that can overflow is not folded", folded)
 		}
 	})
 }
