@@ -172,3 +172,26 @@ func TestWriterOutputReadsBack(t *testing.T) {
 		}
 	})
 }
+
+// TestWriterRefusesNamesThatSplit: a name holding the delimiter and a line
+// break reads back as more columns than were written; the writer refuses
+// it with an *Error instead of indexing past its columns (a saved rapid
+// input: "\tV\nV" with a tab delimiter).
+func TestWriterRefusesNamesThatSplit(t *testing.T) {
+	for _, tc := range []struct {
+		name  string
+		comma rune
+	}{
+		{"\tV\nV", '\t'},
+		{"a\nb", ','},
+		{"a;b\nc", ';'},
+		{"x y\nz", ' '},
+	} {
+		var buf bytes.Buffer
+		_, err := chanfile.NewWriter(&buf, "rt.csv", []chanfile.Column{{Name: tc.name, Unit: units.MustParse("m")}}, chanfile.Options{Comma: tc.comma})
+		var fe *chanfile.Error
+		if !errors.As(err, &fe) || !errors.Is(err, quantity.ErrInvalid) || classes(err) != 1 {
+			t.Errorf("NewWriter(%q, %q) = %v, want an *Error of class ErrInvalid", tc.name, tc.comma, err)
+		}
+	}
+}

@@ -85,10 +85,13 @@ func NewWriter(w io.Writer, name string, cols []Column, opt Options) (*Writer, e
 	back, err := NewReader(bytes.NewReader(hb.Bytes()), name, Options{Comma: opt.Comma})
 	if err != nil {
 		e := &Error{File: name, Line: 1, Reason: "the header would not read back (" + err.(*Error).Reason + ")", class: quantity.ErrInvalid}
-		if c := err.(*Error).Column; c > 0 {
+		if c := err.(*Error).Column; c > 0 && c <= len(cols) {
 			e.Column, e.Field = c, cols[c-1].Name
 		}
 		return nil, e
+	}
+	if n := len(back.Columns()); n != len(cols) {
+		return nil, &Error{File: name, Line: 1, Reason: fmt.Sprintf("the header would not read back: %d columns read as %d (a name holds the delimiter, a quote or a line break)", len(cols), n), class: quantity.ErrInvalid}
 	}
 	for i, c := range back.Columns() {
 		if c.Name != cols[i].Name || !c.Unit.Equal(cols[i].Unit) {
