@@ -14,7 +14,7 @@ import (
 // respect to a source is Π·Σ a_i·(∂x_i/∂δ)/x_i, with the exponents exact.
 // A source shared by two variables (one calibration for two channels)
 // enters the group once, with its effects summed. It panics with a
-// *uncertain.TermsError if a group would depend on more than
+// *uncertain.Error with Terms set if a group would depend on more than
 // uncertain.MaxTerms sources; use uncertain.Eval to have it as an error.
 func (e *Evaluator) RowMeasured(values []uncertain.Measured, dst []uncertain.Measured) ([]uncertain.Measured, error) {
 	if len(values) != len(e.dims) {
