@@ -51,7 +51,7 @@ func TestErrorsOneType(t *testing.T) {
 	}
 	length := set.MustMeasure(q.New(1, q.Length), set.MustAdd(uncertain.Source{Name: "L", U: q.New(0.01, q.Length)}))
 	asDim := func(err error) bool { var e *q.DimensionError; return errors.As(err, &e) }
-	asUnit := func(err error) bool { var e *units.ParseError; return errors.As(err, &e) }
+	asUnit := func(err error) bool { var e *units.Error; return errors.As(err, &e) }
 	for _, c := range []struct {
 		name  string
 		err   error

@@ -736,8 +736,8 @@ func (p *parser) number() (*node, error) {
 		v, err := units.ParseValue(text + " " + unitText)
 		if err != nil {
 			// The unit's own error, so that the error has one class.
-			var ve *units.ValueError
-			if errors.As(err, &ve) && ve.Err != nil {
+			var ve *units.Error
+			if errors.As(err, &ve) && ve.Op == units.OpParseValue && ve.Err != nil {
 				err = ve.Err
 			}
 			return nil, &Error{Op: OpCompile, Row: -1, Input: p.src, Offset: p.i + 1, Reason: fmt.Sprintf("the unit {%s}", unitText), Err: err, Class: causeClass(err, quantity.ErrParse)}
