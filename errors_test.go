@@ -117,7 +117,7 @@ func TestErrorVocabularyWrapped(t *testing.T) {
 		convErr   *units.Error
 		planErr   *similarity.PlanError
 		rangeErr  *units.Error
-		ratErr    *quantity.RatError
+		ratErr    *quantity.Error
 		defineErr *units.Error
 		valueErr  *units.Error
 	)
