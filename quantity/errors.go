@@ -194,10 +194,10 @@ const overflows = "an exponent overflows"
 const mustBeDimensionless = "the argument must be dimensionless"
 
 // Eval runs a formula and returns its result, turning a panic with a
-// *DimensionError or an *Error (Series of different lengths) raised inside it into a returned error.
-// Any other panic is passed on. It is meant for programs that evaluate
-// formulas their users supply, where a dimension mismatch is an input
-// error rather than a bug.
+// *DimensionError, or with an *Error for Series of different lengths,
+// raised inside it into a returned error. Any other panic is passed on.
+// It is meant for programs that evaluate formulas their users supply,
+// where a dimension mismatch is an input error rather than a bug.
 func Eval(formula func() Quantity) (q Quantity, err error) {
 	defer func() {
 		if r := recover(); r != nil {
@@ -205,6 +205,9 @@ func Eval(formula func() Quantity) (q Quantity, err error) {
 			case *DimensionError:
 				err = e
 			case *Error:
+				if e.Left == e.Right {
+					panic(r) // not a length mismatch: a Must… function's error
+				}
 				err = e
 			default:
 				panic(r)
