@@ -20,8 +20,8 @@ import (
 // keeps exactly one class and its cause. A water temperature out of range
 // reached through a hull run is ErrRange and still a *fluids.RangeError;
 // a channel header's unknown unit is ErrUnknown and still a
-// *units.ParseError; a formula's non-finite row is ErrRange and a
-// *formula.RangeError; a file that is not Parquet is a parse error and a
+// *units.Error; a formula's non-finite row is ErrRange and a
+// *formula.Error; a file that is not Parquet is a parse error and a
 // *parquetfile.Error.
 func TestErrorClassAcrossPackages(t *testing.T) {
 	classes := map[string]error{
@@ -49,8 +49,8 @@ func TestErrorClassAcrossPackages(t *testing.T) {
 
 	var (
 		fluidRange *fluids.RangeError
-		parseErr   *units.ParseError
-		fRange     *formula.RangeError
+		parseErr   *units.Error
+		fRange     *formula.Error
 		pqErr      *parquetfile.Error
 		chanErr    *chanfile.Error
 	)

@@ -112,14 +112,14 @@ func TestErrorVocabularyWrapped(t *testing.T) {
 	}
 	foreign := oset.Groups()
 	var (
-		parseErr  *units.ParseError
+		parseErr  *units.Error
 		dimErr    *quantity.DimensionError
-		convErr   *units.ConversionError
+		convErr   *units.Error
 		planErr   *similarity.PlanError
-		rangeErr  *units.RangeError
-		ratErr    *quantity.RatError
-		defineErr *units.DefineError
-		valueErr  *units.ValueError
+		rangeErr  *units.Error
+		ratErr    *quantity.Error
+		defineErr *units.Error
+		valueErr  *units.Error
 	)
 	cases := []struct {
 		name  string

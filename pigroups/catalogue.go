@@ -107,10 +107,10 @@ func candidateKinds(v Variable) ([]string, error) {
 	}
 	d, ok := KindDim(v.Kind)
 	if !ok {
-		return nil, &ProblemError{Err: ErrUnknownKind, Symbol: v.Symbol, Reason: fmt.Sprintf("kind %q", v.Kind)}
+		return nil, &Error{Op: OpProblem, Kind: ErrUnknownKind, Symbol: v.Symbol, Reason: fmt.Sprintf("kind %q", v.Kind)}
 	}
 	if d != v.Dim {
-		return nil, &ProblemError{Err: ErrKindDimension, Symbol: v.Symbol, Reason: fmt.Sprintf("a %s has dimension %s, the variable %s", v.Kind, d, v.Dim)}
+		return nil, &Error{Op: OpProblem, Kind: ErrKindDimension, Symbol: v.Symbol, Reason: fmt.Sprintf("a %s has dimension %s, the variable %s", v.Kind, d, v.Dim)}
 	}
 	return []string{v.Kind}, nil
 }

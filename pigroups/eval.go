@@ -72,44 +72,6 @@ func (s *Set) Evaluator() *Evaluator {
 	return e
 }
 
-// EvalError reports values that cannot be evaluated: a wrong count, a
-// wrong dimension, or columns of different lengths.
-type EvalError struct {
-	Symbol string
-	Reason string
-	Err    error // a *quantity.DimensionError for a wrong dimension
-}
-
-// Error implements the error interface.
-func (e *EvalError) Error() string {
-	s := "pigroups: evaluate"
-	if e.Symbol != "" {
-		s += fmt.Sprintf(" %q", e.Symbol)
-	}
-	if e.Err != nil && e.Reason == "" {
-		return s + ": " + e.Err.Error()
-	}
-	return s + ": " + e.Reason
-}
-
-// Unwrap returns the dimension error or ErrNotFinite, if either was the
-// problem.
-func (e *EvalError) Unwrap() error { return e.Err }
-
-// Is reports whether target is the error's class: quantity.ErrRange for a
-// value out of range, quantity.ErrInvalid for values that do not fit the
-// set (a wrong count or length); a wrong dimension is matched through
-// Unwrap as quantity.ErrDimension.
-func (e *EvalError) Is(target error) bool {
-	switch e.Err {
-	case nil:
-		return target == quantity.ErrInvalid
-	case ErrNotFinite:
-		return target == quantity.ErrRange
-	}
-	return false
-}
-
 func factor(x float64, t evTerm) float64 {
 	if t.n > 0 {
 		return exact.PowNat(x, t.n)
@@ -121,20 +83,20 @@ func factor(x float64, t evTerm) float64 {
 // order, into dst (which must have room for Len groups) and returns it.
 // A numerator and denominator that overflow apart are evaluated again in
 // logarithms; a group value that is still out of range, or a fractional
-// power of a negative value, is an *EvalError wrapping ErrNotFinite. A
+// power of a negative value, is an *Error of kind ErrNotFinite. A
 // NaN input gives NaN.
 // Dimensions are checked; nothing is allocated.
 func (e *Evaluator) Row(values []quantity.Quantity, dst []float64) ([]float64, error) {
 	if len(values) != len(e.dims) {
-		return nil, &EvalError{Reason: fmt.Sprintf("%d values for %d variables", len(values), len(e.dims))}
+		return nil, &Error{Op: OpEvaluate, Reason: fmt.Sprintf("%d values for %d variables", len(values), len(e.dims))}
 	}
 	for i, q := range values {
 		if err := q.Check(e.dims[i]); err != nil {
-			return nil, &EvalError{Symbol: e.set.prob.vars[i].Symbol, Err: err}
+			return nil, &Error{Op: OpEvaluate, Symbol: e.set.prob.vars[i].Symbol, Err: err}
 		}
 	}
 	if len(dst) < len(e.num) {
-		return nil, &EvalError{Reason: fmt.Sprintf("destination holds %d groups, the set has %d", len(dst), len(e.num))}
+		return nil, &Error{Op: OpEvaluate, Reason: fmt.Sprintf("destination holds %d groups, the set has %d", len(dst), len(e.num))}
 	}
 	for g := range e.num {
 		n, d := 1.0, 1.0
@@ -159,24 +121,24 @@ func (e *Evaluator) Row(values []quantity.Quantity, dst []float64) ([]float64, e
 // checkSeries checks the columns and destinations of Series once.
 func (e *Evaluator) checkSeries(cols []quantity.Series, dst [][]float64) error {
 	if len(cols) != len(e.dims) {
-		return &EvalError{Reason: fmt.Sprintf("%d columns for %d variables", len(cols), len(e.dims))}
+		return &Error{Op: OpEvaluate, Reason: fmt.Sprintf("%d columns for %d variables", len(cols), len(e.dims))}
 	}
 	n := -1
 	for i, c := range cols {
 		if err := c.Check(e.dims[i]); err != nil {
-			return &EvalError{Symbol: e.set.prob.vars[i].Symbol, Err: err}
+			return &Error{Op: OpEvaluate, Symbol: e.set.prob.vars[i].Symbol, Err: err}
 		}
 		if n >= 0 && c.Len() != n {
-			return &EvalError{Symbol: e.set.prob.vars[i].Symbol, Reason: fmt.Sprintf("column of length %d, others %d", c.Len(), n)}
+			return &Error{Op: OpEvaluate, Symbol: e.set.prob.vars[i].Symbol, Reason: fmt.Sprintf("column of length %d, others %d", c.Len(), n)}
 		}
 		n = c.Len()
 	}
 	if len(dst) < len(e.num) {
-		return &EvalError{Reason: fmt.Sprintf("%d destinations for %d groups", len(dst), len(e.num))}
+		return &Error{Op: OpEvaluate, Reason: fmt.Sprintf("%d destinations for %d groups", len(dst), len(e.num))}
 	}
 	for g := range e.num {
 		if len(dst[g]) < n {
-			return &EvalError{Reason: fmt.Sprintf("destination %d holds %d values, the columns %d", g, len(dst[g]), n)}
+			return &Error{Op: OpEvaluate, Reason: fmt.Sprintf("destination %d holds %d values, the columns %d", g, len(dst[g]), n)}
 		}
 	}
 	return nil
@@ -185,7 +147,7 @@ func (e *Evaluator) checkSeries(cols []quantity.Series, dst [][]float64) error {
 // Series evaluates every group over whole columns of data, one Series per
 // variable in variable order, writing group g's values into dst[g], which
 // must have the columns' length. A NaN input (a missing value) gives a
-// NaN group value in its row; a value out of range is an *EvalError
+// NaN group value in its row; a value out of range is an *Error
 // naming the group and the row. Dimensions and lengths are checked once;
 // the work is done in blocks, with no allocation. An Evaluator is not safe
 // for concurrent use by Series; use one per goroutine.
@@ -297,10 +259,10 @@ func (e *Evaluator) rangeError(g, row int) error {
 	if row >= 0 {
 		where = fmt.Sprintf(" at row %d", row)
 	}
-	return &EvalError{Symbol: name, Err: ErrNotFinite, Reason: fmt.Sprintf("%s%s is zero, not finite, or a fractional power of a negative value", name, where)}
+	return &Error{Op: OpEvaluate, Symbol: name, Kind: ErrNotFinite, Reason: fmt.Sprintf("%s%s is zero, not finite, or a fractional power of a negative value", name, where)}
 }
 
-// ErrNotFinite is wrapped by an EvalError for a group value that is not
+// ErrNotFinite is the Kind of an Error for a group value that is not
 // finite and nonzero.
 var ErrNotFinite = errors.New("group value not finite")
 

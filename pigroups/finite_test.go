@@ -31,7 +31,7 @@ func TestEvaluatorOverflowApart(t *testing.T) {
 		t.Errorf("overflowing apart: %v, %v", got, err)
 	}
 	got, err = ev.Row(row(1e300, 1e-300, 1e-10, 1e-10), make([]float64, 1))
-	var ee *pigroups.EvalError
+	var ee *pigroups.Error
 	if !errors.Is(err, pigroups.ErrNotFinite) || !errors.As(err, &ee) || ee.Symbol != "Π₁" {
 		t.Errorf("out of range: %v, %v", got, err)
 	}

@@ -13,44 +13,13 @@ import (
 	"similis.dev/similis/quantity"
 )
 
-// Errors a fit can be refused with; a *FitError wraps one.
+// Errors a fit can be refused with; an *Error of OpFit has one as its Kind.
 var (
 	ErrTooFewRows  = errors.New("too few rows")
 	ErrNonPositive = errors.New("non-positive value")
 	ErrCollinear   = errors.New("collinear groups")
 	ErrFitShape    = errors.New("inconsistent data")
 )
-
-// FitError reports data a power law cannot be fitted to.
-type FitError struct {
-	Err    error
-	Row    int     // the offending row, or −1
-	Group  int     // the offending group (0 for Π₀), or −1
-	Cond   float64 // the condition number, for collinear groups
-	Reason string
-}
-
-// Error implements the error interface.
-func (e *FitError) Error() string {
-	s := "pigroups: fit: " + e.Err.Error()
-	if e.Row >= 0 {
-		s += fmt.Sprintf(" at row %d", e.Row)
-	}
-	if e.Group >= 0 {
-		s += fmt.Sprintf(" in group %d", e.Group)
-	}
-	if e.Reason != "" {
-		s += ": " + e.Reason
-	}
-	return s
-}
-
-// Unwrap returns the kind of problem (one of the Err… values above).
-func (e *FitError) Unwrap() error { return e.Err }
-
-// Is reports whether target is quantity.ErrInvalid, the class of a
-// *FitError.
-func (e *FitError) Is(target error) bool { return target == quantity.ErrInvalid }
 
 // FitOptions adjusts a fit. The zero value is an unweighted fit with 95 %
 // intervals.
@@ -146,20 +115,20 @@ func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error)
 		o.MaxCond = 1e10
 	}
 	if !(o.Level > 0 && o.Level < 1) {
-		return nil, &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("confidence level %v is not between 0 and 1", o.Level)}
+		return nil, &Error{Op: OpFit, Kind: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("confidence level %v is not between 0 and 1", o.Level)}
 	}
 	n, k := len(y), len(x)
 	p := k + 1
 	if n <= p {
-		return nil, &FitError{Err: ErrTooFewRows, Row: -1, Group: -1, Reason: fmt.Sprintf("%d rows for %d coefficients; at least %d are needed for intervals", n, p, p+1)}
+		return nil, &Error{Op: OpFit, Kind: ErrTooFewRows, Row: -1, Group: -1, Reason: fmt.Sprintf("%d rows for %d coefficients; at least %d are needed for intervals", n, p, p+1)}
 	}
 	for j, col := range x {
 		if len(col) != n {
-			return nil, &FitError{Err: ErrFitShape, Row: -1, Group: j + 1, Reason: fmt.Sprintf("%d values, Π₀ has %d", len(col), n)}
+			return nil, &Error{Op: OpFit, Kind: ErrFitShape, Row: -1, Group: j + 1, Reason: fmt.Sprintf("%d values, Π₀ has %d", len(col), n)}
 		}
 	}
 	if o.Weights != nil && len(o.Weights) != n {
-		return nil, &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("%d weights for %d rows", len(o.Weights), n)}
+		return nil, &Error{Op: OpFit, Kind: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("%d weights for %d rows", len(o.Weights), n)}
 	}
 	X := mat.NewDense(n, p, nil)
 	Y := mat.NewVecDense(n, nil)
@@ -169,32 +138,32 @@ func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error)
 		if o.Weights != nil {
 			w = o.Weights[i]
 			if !(w > 0) || math.IsInf(w, 0) {
-				return nil, &FitError{Err: ErrFitShape, Row: i, Group: -1, Reason: fmt.Sprintf("weight %v is not positive and finite", w)}
+				return nil, &Error{Op: OpFit, Kind: ErrFitShape, Row: i, Group: -1, Reason: fmt.Sprintf("weight %v is not positive and finite", w)}
 			}
 		}
 		sw[i] = math.Sqrt(w)
 		if !(y[i] > 0) || math.IsInf(y[i], 0) {
-			return nil, &FitError{Err: ErrNonPositive, Row: i, Group: 0, Reason: fmt.Sprintf("Π₀ = %v; a power law needs positive values", y[i])}
+			return nil, &Error{Op: OpFit, Kind: ErrNonPositive, Row: i, Group: 0, Reason: fmt.Sprintf("Π₀ = %v; a power law needs positive values", y[i])}
 		}
 		Y.SetVec(i, sw[i]*math.Log(y[i]))
 		X.Set(i, 0, sw[i])
 		for j := range k {
 			v := x[j][i]
 			if !(v > 0) || math.IsInf(v, 0) {
-				return nil, &FitError{Err: ErrNonPositive, Row: i, Group: j + 1, Reason: fmt.Sprintf("value %v; a power law needs positive values", v)}
+				return nil, &Error{Op: OpFit, Kind: ErrNonPositive, Row: i, Group: j + 1, Reason: fmt.Sprintf("value %v; a power law needs positive values", v)}
 			}
 			X.Set(i, j+1, sw[i]*math.Log(v))
 		}
 	}
 	cond := mat.Cond(X, 2)
 	if math.IsInf(cond, 0) || math.IsNaN(cond) || cond > o.MaxCond {
-		return nil, &FitError{Err: ErrCollinear, Row: -1, Group: -1, Cond: cond, Reason: fmt.Sprintf("condition number %.3g of the log design matrix exceeds %.3g: some groups are (nearly) powers of one another, or constant", cond, o.MaxCond)}
+		return nil, &Error{Op: OpFit, Kind: ErrCollinear, Row: -1, Group: -1, Cond: cond, Reason: fmt.Sprintf("condition number %.3g of the log design matrix exceeds %.3g: some groups are (nearly) powers of one another, or constant", cond, o.MaxCond)}
 	}
 	var qr mat.QR
 	qr.Factorize(X)
 	var beta mat.VecDense
 	if err := qr.SolveVecTo(&beta, false, Y); err != nil {
-		return nil, &FitError{Err: ErrCollinear, Row: -1, Group: -1, Cond: cond, Reason: err.Error()}
+		return nil, &Error{Op: OpFit, Kind: ErrCollinear, Row: -1, Group: -1, Cond: cond, Reason: "solving the least-squares problem", Err: err}
 	}
 	var fitted mat.VecDense
 	fitted.MulVec(X, &beta)
@@ -222,7 +191,7 @@ func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error)
 	}
 	dof := n - p
 	if nEff-float64(p) < 1 {
-		return nil, &FitError{Err: ErrTooFewRows, Row: -1, Group: -1, Reason: fmt.Sprintf("the residuals' lag-1 autocorrelation %.3f leaves an effective %.1f rows for %d coefficients: no interval can be quoted; log more widely spaced rows", r1, nEff, p)}
+		return nil, &Error{Op: OpFit, Kind: ErrTooFewRows, Row: -1, Group: -1, Reason: fmt.Sprintf("the residuals' lag-1 autocorrelation %.3f leaves an effective %.1f rows for %d coefficients: no interval can be quoted; log more widely spaced rows", r1, nEff, p)}
 	}
 	sigma2 := ssRes / float64(dof)
 	var xtx mat.SymDense
@@ -230,10 +199,10 @@ func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error)
 	var inv mat.SymDense
 	var chol mat.Cholesky
 	if !chol.Factorize(&xtx) {
-		return nil, &FitError{Err: ErrCollinear, Row: -1, Group: -1, Cond: cond, Reason: "XᵀX is not positive definite"}
+		return nil, &Error{Op: OpFit, Kind: ErrCollinear, Row: -1, Group: -1, Cond: cond, Reason: "XᵀX is not positive definite"}
 	}
 	if err := chol.InverseTo(&inv); err != nil {
-		return nil, &FitError{Err: ErrCollinear, Row: -1, Group: -1, Cond: cond, Reason: err.Error()}
+		return nil, &Error{Op: OpFit, Kind: ErrCollinear, Row: -1, Group: -1, Cond: cond, Reason: "inverting XᵀX", Err: err}
 	}
 	inflate := float64(n) / nEff // 1 unless correlated
 	inv.ScaleSym(sigma2*inflate, &inv)
@@ -275,7 +244,7 @@ func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error)
 	}
 	f.RMS = math.Sqrt(ssRes / sumW)
 	if !finiteFit(f) {
-		return nil, &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: "the fitted coefficient or exponents are not finite (the data's logarithms span too wide a range)"}
+		return nil, &Error{Op: OpFit, Kind: ErrFitShape, Row: -1, Group: -1, Reason: "the fitted coefficient or exponents are not finite (the data's logarithms span too wide a range)"}
 	}
 	return f, nil
 }
@@ -403,14 +372,14 @@ func (p Prediction) Note() string { return p.note }
 // Predict returns the fitted Π₀ for groups Π₁ … Π_k.
 func (f *PowerLaw) Predict(groups ...float64) (Prediction, error) {
 	if len(groups) != len(f.Exponents) {
-		return Prediction{}, &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("%d groups for a fit of %d", len(groups), len(f.Exponents))}
+		return Prediction{}, &Error{Op: OpFit, Kind: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("%d groups for a fit of %d", len(groups), len(f.Exponents))}
 	}
 	x0 := mat.NewVecDense(len(groups)+1, nil)
 	x0.SetVec(0, 1)
 	lnY := math.Log(f.C)
 	for j, g := range groups {
 		if !(g > 0) || math.IsInf(g, 0) {
-			return Prediction{}, &FitError{Err: ErrNonPositive, Row: -1, Group: j + 1, Reason: fmt.Sprintf("value %v is not positive and finite", g)}
+			return Prediction{}, &Error{Op: OpFit, Kind: ErrNonPositive, Row: -1, Group: j + 1, Reason: fmt.Sprintf("value %v is not positive and finite", g)}
 		}
 		x0.SetVec(j+1, math.Log(g))
 		lnY += f.Exponents[j] * math.Log(g)
@@ -424,7 +393,7 @@ func (f *PowerLaw) Predict(groups ...float64) (Prediction, error) {
 	}
 	for _, x := range []float64{pr.Value, pr.Mean[0], pr.Mean[1], pr.Individual[0], pr.Individual[1]} {
 		if !(x > 0) || math.IsInf(x, 0) {
-			return Prediction{}, &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("the prediction at %v is out of the range of a float64", groups)}
+			return Prediction{}, &Error{Op: OpFit, Kind: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("the prediction at %v is out of the range of a float64", groups)}
 		}
 	}
 	var parts []string
@@ -469,7 +438,7 @@ func finiteFit(f *PowerLaw) bool {
 // it against the variables' dimensions.
 func (f *PowerLaw) Formula(y string, groups ...Group) (string, error) {
 	if len(groups) != len(f.Exponents) {
-		return "", &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("%d groups for a fit of %d", len(groups), len(f.Exponents))}
+		return "", &Error{Op: OpFit, Kind: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("%d groups for a fit of %d", len(groups), len(f.Exponents))}
 	}
 	var sb strings.Builder
 	sb.WriteString(y)

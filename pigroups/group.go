@@ -64,17 +64,17 @@ var ErrNotExact = errors.New("not exactly a named group")
 // says why.
 func (g Group) Coefficient() (Group, error) {
 	if len(g.Matches) == 0 {
-		return Group{}, &ProblemError{Err: ErrNotExact, Symbol: g.Name, Reason: fmt.Sprintf("%s has no name", g)}
+		return Group{}, &Error{Op: OpProblem, Kind: ErrNotExact, Symbol: g.Name, Reason: fmt.Sprintf("%s has no name", g)}
 	}
 	m := g.Matches[0]
 	if !m.Exact() {
-		return Group{}, &ProblemError{Err: ErrNotExact, Symbol: g.Name, Reason: fmt.Sprintf("%s is %s", g, m.describe(g.Name))}
+		return Group{}, &Error{Op: OpProblem, Kind: ErrNotExact, Symbol: g.Name, Reason: fmt.Sprintf("%s is %s", g, m.describe(g.Name))}
 	}
 	exps := make([]quantity.Rat, len(g.exps))
 	for i, e := range g.exps {
 		x, err := e.Div(m.Power)
 		if err != nil {
-			return Group{}, err
+			return Group{}, &Error{Op: OpProblem, Symbol: g.Name, Reason: "an exponent over the named group's power", Err: err}
 		}
 		exps[i] = x
 	}
@@ -99,7 +99,7 @@ func (g Group) Exponents() []quantity.Rat { return slices.Clone(g.exps) }
 // for the zero Group) is an error wrapping ErrUnknownVariable.
 func (g Group) Exponent(symbol string) (quantity.Rat, error) {
 	if g.prob == nil {
-		return quantity.RatInt(0), &ProblemError{Err: ErrUnknownVariable, Symbol: symbol, Reason: "the zero Group has no variables"}
+		return quantity.RatInt(0), &Error{Op: OpProblem, Kind: ErrUnknownVariable, Symbol: symbol, Reason: "the zero Group has no variables"}
 	}
 	i, err := g.prob.Index(symbol)
 	if err != nil {
@@ -119,10 +119,10 @@ func (g Group) Dim() (quantity.Dim, error) {
 		}
 		p, err := g.prob.vars[i].Dim.Pow(int(e.Num()), int(e.Den()))
 		if err != nil {
-			return quantity.Dimensionless, err
+			return quantity.Dimensionless, &Error{Op: OpProblem, Symbol: g.Name, Reason: "the group's dimension", Err: err}
 		}
 		if d, err = d.Mul(p); err != nil {
-			return quantity.Dimensionless, err
+			return quantity.Dimensionless, &Error{Op: OpProblem, Symbol: g.Name, Reason: "the group's dimension", Err: err}
 		}
 	}
 	return d, nil

@@ -171,7 +171,7 @@ func TestRepeatingErrors(t *testing.T) {
 	}
 	for _, c := range cases {
 		err := p.CheckRepeating(c.set...)
-		var re *pigroups.RepeatingError
+		var re *pigroups.Error
 		if !errors.As(err, &re) || !errors.Is(err, c.err) || !strings.Contains(err.Error(), c.text) {
 			t.Errorf("CheckRepeating(%v) = %v\nwant %v containing %q", c.set, err, c.err, c.text)
 		}

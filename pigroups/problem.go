@@ -86,7 +86,7 @@ func Dep(symbol string, d quantity.Dim) Variable {
 func VarUnit(symbol, unit string) (Variable, error) {
 	u, err := units.Parse(unit)
 	if err != nil {
-		return Variable{}, &ProblemError{Err: err, Symbol: symbol, Reason: "its unit does not parse"}
+		return Variable{}, &Error{Op: OpProblem, Symbol: symbol, Reason: "its unit does not parse", Err: err}
 	}
 	return Variable{Symbol: symbol, Dim: u.Dim()}, nil
 }
@@ -98,7 +98,7 @@ func (v Variable) AsDependent() Variable { v.Role = Dependent; return v }
 func (v Variable) WithKind(kind string) Variable { v.Kind = kind; return v }
 
 // Errors a problem or a repeating set can be refused with; the concrete
-// errors wrap one of them.
+// *Error has one as its Kind.
 var (
 	ErrNoVariables       = errors.New("no variables")
 	ErrDuplicateSymbol   = errors.New("duplicate symbol")
@@ -120,34 +120,6 @@ var (
 	ErrBadAngle          = errors.New("unknown angle measure")
 )
 
-// ProblemError reports a list of variables that cannot form a problem.
-type ProblemError struct {
-	Err    error
-	Symbol string
-	Reason string
-}
-
-// Error implements the error interface.
-func (e *ProblemError) Error() string {
-	s := "pigroups: " + e.Err.Error()
-	if e.Symbol != "" {
-		s += fmt.Sprintf(" %q", e.Symbol)
-	}
-	if e.Reason != "" {
-		s += ": " + e.Reason
-	}
-	return s
-}
-
-// Unwrap returns the kind of problem (one of the Err… values), or the
-// error of the unit or exponent that caused it.
-func (e *ProblemError) Unwrap() error { return e.Err }
-
-// Is reports whether target is the error's class among quantity's
-// (ErrUnknown, ErrRange, ErrDimension, ErrInvalid); an error caused by
-// another (a unit that does not parse) has that error's class.
-func (e *ProblemError) Is(target error) bool { return classOf(e.Err) == target }
-
 // classOf maps the package's kinds of problem to the module's classes.
 func classOf(err error) error {
 	switch err {
@@ -167,53 +139,6 @@ func classOf(err error) error {
 
 // errInternal marks a failed internal consistency check, which is a bug.
 var errInternal = errors.New("internal error")
-
-// RepeatingError reports a repeating set that is refused, and why.
-type RepeatingError struct {
-	Err       error    // one of the ErrRepeating… values
-	Set       []string // the set given
-	Want      int      // the number of repeating variables needed (the rank)
-	Symbol    string   // the offending variable, if one
-	Uncovered []quantity.Base
-	// Combination is the dimensionless product the repeating variables
-	// form among themselves, when they are not independent ("ω·D/V").
-	Combination string
-	// Hint says what to do about it, when there is more to say.
-	Hint string
-}
-
-// Error implements the error interface.
-func (e *RepeatingError) Error() string {
-	var sb strings.Builder
-	fmt.Fprintf(&sb, "pigroups: repeating set {%s}: %v", strings.Join(e.Set, ", "), e.Err)
-	switch {
-	case errors.Is(e.Err, ErrRepeatingCount):
-		fmt.Fprintf(&sb, ": %d given, the rank of the dimensional matrix is %d, so %d are needed", len(e.Set), e.Want, e.Want)
-	case e.Symbol != "" && e.Hint == "":
-		fmt.Fprintf(&sb, ": %q", e.Symbol)
-	}
-	if len(e.Uncovered) > 0 && e.Hint == "" {
-		names := make([]string, len(e.Uncovered))
-		for i, b := range e.Uncovered {
-			names[i] = b.String()
-		}
-		fmt.Fprintf(&sb, "; no repeating variable carries %s", strings.Join(names, ", "))
-	}
-	if e.Combination != "" {
-		fmt.Fprintf(&sb, "; they form the dimensionless group %s among themselves", e.Combination)
-	}
-	if e.Hint != "" {
-		sb.WriteString("; " + e.Hint)
-	}
-	return sb.String()
-}
-
-// Unwrap returns the kind of problem (one of the ErrRepeating… values).
-func (e *RepeatingError) Unwrap() error { return e.Err }
-
-// Is reports whether target is the error's class: quantity.ErrUnknown for
-// an unknown member, quantity.ErrInvalid otherwise.
-func (e *RepeatingError) Is(target error) bool { return classOf(e.Err) == target }
 
 // Problem is a list of variables with its dimensional matrix and rank.
 type Problem struct {
@@ -240,7 +165,7 @@ func (p *Problem) tooLarge(err error) error {
 			}
 		}
 	}
-	return &ProblemError{Err: ErrTooLarge, Reason: fmt.Sprintf("the exponents of the variables %s are too large or too many to eliminate exactly in 64-bit fractions; use fewer variables or smaller exponents", strings.Join(syms, ", "))}
+	return &Error{Op: OpProblem, Kind: ErrTooLarge, Reason: fmt.Sprintf("the exponents of the variables %s are too large or too many to eliminate exactly in 64-bit fractions; use fewer variables or smaller exponents", strings.Join(syms, ", "))}
 }
 
 // MaxVariables bounds the variables of a problem.
@@ -272,27 +197,27 @@ func badSymbol(s string) string {
 // dependent; a kind, if given, must be known and match the dimension.
 func NewProblem(vars ...Variable) (*Problem, error) {
 	if len(vars) == 0 {
-		return nil, &ProblemError{Err: ErrNoVariables}
+		return nil, &Error{Op: OpProblem, Kind: ErrNoVariables}
 	}
 	if len(vars) > MaxVariables {
-		return nil, &ProblemError{Err: ErrTooManyVariables, Reason: fmt.Sprintf("%d variables, at most %d", len(vars), MaxVariables)}
+		return nil, &Error{Op: OpProblem, Kind: ErrTooManyVariables, Reason: fmt.Sprintf("%d variables, at most %d", len(vars), MaxVariables)}
 	}
 	p := &Problem{vars: slices.Clone(vars), dep: -1, kinds: make([][]string, 0, len(vars)), rows: make([]quantity.Base, 0, quantity.NumBases)}
 	for i, v := range vars {
 		if reason := badSymbol(v.Symbol); reason != "" {
-			return nil, &ProblemError{Err: ErrBadSymbol, Symbol: v.Symbol, Reason: fmt.Sprintf("variable %d: %s", i+1, reason)}
+			return nil, &Error{Op: OpProblem, Kind: ErrBadSymbol, Symbol: v.Symbol, Reason: fmt.Sprintf("variable %d: %s", i+1, reason)}
 		}
 		for _, w := range vars[:i] {
 			if w.Symbol == v.Symbol {
-				return nil, &ProblemError{Err: ErrDuplicateSymbol, Symbol: v.Symbol}
+				return nil, &Error{Op: OpProblem, Kind: ErrDuplicateSymbol, Symbol: v.Symbol}
 			}
 		}
 		if v.Angle > Revolutions {
-			return nil, &ProblemError{Err: ErrBadAngle, Symbol: v.Symbol, Reason: fmt.Sprintf("angle measure %v: want Radians or Revolutions", v.Angle)}
+			return nil, &Error{Op: OpProblem, Kind: ErrBadAngle, Symbol: v.Symbol, Reason: fmt.Sprintf("angle measure %v: want Radians or Revolutions", v.Angle)}
 		}
 		if v.Role == Dependent {
 			if p.dep >= 0 {
-				return nil, &ProblemError{Err: ErrTwoDependent, Symbol: v.Symbol, Reason: fmt.Sprintf("%q is dependent already", vars[p.dep].Symbol)}
+				return nil, &Error{Op: OpProblem, Kind: ErrTwoDependent, Symbol: v.Symbol, Reason: fmt.Sprintf("%q is dependent already", vars[p.dep].Symbol)}
 			}
 			p.dep = i
 		}
@@ -384,7 +309,7 @@ func (p *Problem) Matrix() [][]quantity.Rat {
 // the problem is an error wrapping ErrUnknownVariable.
 func (p *Problem) Kinds(i int) ([]string, error) {
 	if i < 0 || i >= len(p.vars) {
-		return nil, &ProblemError{Err: ErrUnknownVariable, Reason: fmt.Sprintf("index %d of a problem of %d variables", i, len(p.vars))}
+		return nil, &Error{Op: OpProblem, Kind: ErrUnknownVariable, Reason: fmt.Sprintf("index %d of a problem of %d variables", i, len(p.vars))}
 	}
 	return slices.Clone(p.kinds[i]), nil
 }
@@ -395,7 +320,7 @@ func (p *Problem) Index(symbol string) (int, error) {
 	if i := p.index(symbol); i >= 0 {
 		return i, nil
 	}
-	return -1, &ProblemError{Err: ErrUnknownVariable, Symbol: symbol, Reason: "not a variable of the problem (" + p.symbols() + ")"}
+	return -1, &Error{Op: OpProblem, Kind: ErrUnknownVariable, Symbol: symbol, Reason: "not a variable of the problem (" + p.symbols() + ")"}
 }
 
 func (p *Problem) symbols() string {
@@ -424,9 +349,9 @@ func (p *Problem) CheckGroup(g Group) error {
 		return nil
 	}
 	if g.Problem() == nil {
-		return &ProblemError{Err: ErrForeignGroup, Reason: "the zero Group belongs to no problem"}
+		return &Error{Op: OpProblem, Kind: ErrForeignGroup, Reason: "the zero Group belongs to no problem"}
 	}
-	return &ProblemError{Err: ErrForeignGroup, Symbol: g.Name, Reason: fmt.Sprintf("%s is a group of the variables %s, not of %s", g, g.prob.symbols(), p.symbols())}
+	return &Error{Op: OpProblem, Kind: ErrForeignGroup, Symbol: g.Name, Reason: fmt.Sprintf("%s is a group of the variables %s, not of %s", g, g.prob.symbols(), p.symbols())}
 }
 
 // NewGroup returns the group ∏ xᵢ^eᵢ of the problem's variables, the
@@ -445,7 +370,7 @@ func (p *Problem) NewGroup(name string, exps map[string]quantity.Rat) (Group, er
 		v[i] = e
 	}
 	if !p.dimensionless(v) {
-		return Group{}, &ProblemError{Err: ErrNotDimensionless, Symbol: name, Reason: p.FormatProduct(v, quantity.Unicode) + " has a dimension"}
+		return Group{}, &Error{Op: OpProblem, Kind: ErrNotDimensionless, Symbol: name, Reason: p.FormatProduct(v, quantity.Unicode) + " has a dimension"}
 	}
 	g := Group{Name: name, Var: -1, exps: v, prob: p}
 	for i, e := range v {
@@ -596,7 +521,7 @@ func (p *Problem) columns(idx []int) exact.Matrix[quantity.Rat] {
 // variables has none, and no set is valid), and it must have exactly Rank
 // members, all known, none dependent, carrying every base dimension that
 // appears, and independent among themselves. The error is a
-// *RepeatingError; when the members are dependent it names the
+// *Error of OpRepeating; when the members are dependent it names the
 // dimensionless group they form.
 func (p *Problem) CheckRepeating(set ...string) error {
 	_, err := p.repeatingIndex(set)
@@ -604,8 +529,8 @@ func (p *Problem) CheckRepeating(set ...string) error {
 }
 
 func (p *Problem) repeatingIndex(set []string) ([]int, error) {
-	fail := func(err error, sym string) *RepeatingError {
-		return &RepeatingError{Err: err, Set: slices.Clone(set), Want: p.rank, Symbol: sym}
+	fail := func(err error, sym string) *Error {
+		return &Error{Op: OpRepeating, Kind: err, Set: slices.Clone(set), Want: p.rank, Symbol: sym}
 	}
 	idx := make([]int, 0, len(set))
 	for _, s := range set {
@@ -655,12 +580,12 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 		return nil, p.tooLarge(err)
 	}
 	if len(piv) < len(idx) || len(uncovered) > 0 {
-		e := &RepeatingError{Set: slices.Clone(set), Want: p.rank, Uncovered: uncovered}
+		e := &Error{Op: OpRepeating, Set: slices.Clone(set), Want: p.rank, Uncovered: uncovered}
 		ns, err := p.columns(idx).NullSpace(quantity.RatInt(1))
 		if err != nil {
 			return nil, p.tooLarge(err)
 		}
-		e.Err = ErrRepeatingSingular
+		e.Kind = ErrRepeatingSingular
 		if len(ns) > 0 {
 			iv, _, err := integers(ns[0])
 			if err == nil {
@@ -694,7 +619,7 @@ func (p *Problem) RepeatingSets() ([][]string, error) {
 	var err error
 	p.EachRepeating(func(set []string) bool {
 		if len(out) == MaxRepeatingSets {
-			err = &ProblemError{Err: ErrTooManySets, Reason: fmt.Sprintf("more than %d valid repeating sets among %d variables of rank %d; use EachRepeating", MaxRepeatingSets, len(p.vars), p.rank)}
+			err = &Error{Op: OpProblem, Kind: ErrTooManySets, Reason: fmt.Sprintf("more than %d valid repeating sets among %d variables of rank %d; use EachRepeating", MaxRepeatingSets, len(p.vars), p.rank)}
 			return false
 		}
 		out = append(out, set)
@@ -817,7 +742,7 @@ func (p *Problem) dependentOnly() error {
 			}
 		}
 		if !others {
-			return &RepeatingError{Err: ErrDependentOnly, Want: p.rank, Symbol: p.vars[p.dep].Symbol, Uncovered: []quantity.Base{b},
+			return &Error{Op: OpRepeating, Kind: ErrDependentOnly, Want: p.rank, Symbol: p.vars[p.dep].Symbol, Uncovered: []quantity.Base{b},
 				Hint: fmt.Sprintf("only the dependent variable %q carries %s, so it cannot appear in any dimensionless group; add the variable that brings %s into the problem (a density or a mass for M, a temperature for Θ)", p.vars[p.dep].Symbol, b, b)}
 		}
 	}
@@ -886,10 +811,10 @@ func (p *Problem) DefaultRepeating() ([]string, error) {
 		if e := p.dependentOnly(); e != nil {
 			return nil, e
 		}
-		return nil, &RepeatingError{Err: ErrNoGroups, Want: p.rank}
+		return nil, &Error{Op: OpRepeating, Kind: ErrNoGroups, Want: p.rank}
 	}
 	if p.NumGroups() == 0 {
-		return nil, &RepeatingError{Err: ErrNoGroups, Want: p.rank, Hint: "the rank equals the number of variables, so no group is left"}
+		return nil, &Error{Op: OpRepeating, Kind: ErrNoGroups, Want: p.rank, Hint: "the rank equals the number of variables, so no group is left"}
 	}
 	slices.Sort(chosen)
 	out := make([]string, len(chosen))

@@ -131,7 +131,7 @@ func TestFitErrors(t *testing.T) {
 	}
 	for _, c := range cases {
 		_, err := pigroups.FitPowerLaw(c.y, c.x, nil)
-		var fe *pigroups.FitError
+		var fe *pigroups.Error
 		if !errors.As(err, &fe) || !errors.Is(err, c.err) {
 			t.Errorf("FitPowerLaw(%v, %v) = %v, want %v", c.y, c.x, err, c.err)
 		}

@@ -43,7 +43,7 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		return nil, err
 	}
 	if p.NumGroups() == 0 {
-		return nil, &RepeatingError{Err: ErrNoGroups, Set: repeating, Want: p.rank}
+		return nil, &Error{Op: OpRepeating, Kind: ErrNoGroups, Set: repeating, Want: p.rank}
 	}
 	s := &Set{prob: p, repeating: idx}
 	if len(idx) == 0 {
@@ -77,7 +77,7 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		return nil, p.tooLarge(err)
 	}
 	if len(pivots) != len(idx) || pivots[len(pivots)-1] != len(idx)-1 {
-		return nil, &ProblemError{Err: errInternal, Reason: fmt.Sprintf("repeating set %v is not independent", s.Repeating())}
+		return nil, &Error{Op: OpProblem, Kind: errInternal, Reason: fmt.Sprintf("repeating set %v is not independent", s.Repeating())}
 	}
 	n := len(p.vars)
 	cells := make([]quantity.Rat, n*len(order))
@@ -102,7 +102,7 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		iv := v
 		g := Group{Name: piName(k + 1), Var: j, exps: iv, prob: p}
 		if !p.dimensionless(iv) {
-			return nil, &ProblemError{Err: errInternal, Reason: fmt.Sprintf("group %s is not dimensionless", g)}
+			return nil, &Error{Op: OpProblem, Kind: errInternal, Reason: fmt.Sprintf("group %s is not dimensionless", g)}
 		}
 		g.Matches = p.recogniseIn(&ar, iv)
 		s.groups = append(s.groups, g)
@@ -318,7 +318,7 @@ func (s *Set) matrix() exact.Matrix[quantity.Rat] {
 // them. target gives an exponent for each variable, in variable order.
 func (s *Set) Express(target []quantity.Rat) (powers []quantity.Rat, ok bool, err error) {
 	if len(target) != len(s.prob.vars) {
-		return nil, false, &ProblemError{Err: ErrUnknownVariable, Reason: fmt.Sprintf("%d exponents for the %d variables %s", len(target), len(s.prob.vars), s.prob.symbols())}
+		return nil, false, &Error{Op: OpProblem, Kind: ErrUnknownVariable, Reason: fmt.Sprintf("%d exponents for the %d variables %s", len(target), len(s.prob.vars), s.prob.symbols())}
 	}
 	powers, ok, err = exact.Solve(s.matrix().Transpose(), []quantity.Rat(target))
 	return powers, ok, s.prob.tooLarge(err)
@@ -331,10 +331,10 @@ func (s *Set) Express(target []quantity.Rat) (powers []quantity.Rat, ok bool, er
 // coprime integers with a positive exponent for the group's variable.
 func (s *Set) Rewrite(k int, powers []quantity.Rat) (*Set, error) {
 	if k < 0 || k >= len(s.groups) || len(powers) != len(s.groups) {
-		return nil, &ProblemError{Err: ErrUnknownVariable, Reason: fmt.Sprintf("rewrite group %d with %d powers of a %d-group set", k, len(powers), len(s.groups))}
+		return nil, &Error{Op: OpProblem, Kind: ErrUnknownVariable, Reason: fmt.Sprintf("rewrite group %d with %d powers of a %d-group set", k, len(powers), len(s.groups))}
 	}
 	if powers[k].IsZero() {
-		return nil, &ProblemError{Err: ErrRepeatingSingular, Symbol: s.groups[k].Name, Reason: "the power of the group itself must be nonzero, or the set would lose a group"}
+		return nil, &Error{Op: OpProblem, Kind: ErrRepeatingSingular, Symbol: s.groups[k].Name, Reason: "the power of the group itself must be nonzero, or the set would lose a group"}
 	}
 	v := make([]quantity.Rat, len(s.prob.vars))
 	for i := range v {

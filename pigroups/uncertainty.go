@@ -14,14 +14,14 @@ import (
 // respect to a source is Π·Σ a_i·(∂x_i/∂δ)/x_i, with the exponents exact.
 // A source shared by two variables (one calibration for two channels)
 // enters the group once, with its effects summed. It panics with a
-// *uncertain.TermsError if a group would depend on more than
+// *uncertain.Error with Terms set if a group would depend on more than
 // uncertain.MaxTerms sources; use uncertain.Eval to have it as an error.
 func (e *Evaluator) RowMeasured(values []uncertain.Measured, dst []uncertain.Measured) ([]uncertain.Measured, error) {
 	if len(values) != len(e.dims) {
-		return nil, &EvalError{Reason: fmt.Sprintf("%d values for %d variables", len(values), len(e.dims))}
+		return nil, &Error{Op: OpEvaluate, Reason: fmt.Sprintf("%d values for %d variables", len(values), len(e.dims))}
 	}
 	if len(dst) < len(e.num) {
-		return nil, &EvalError{Reason: fmt.Sprintf("destination holds %d groups, the set has %d", len(dst), len(e.num))}
+		return nil, &Error{Op: OpEvaluate, Reason: fmt.Sprintf("destination holds %d groups, the set has %d", len(dst), len(e.num))}
 	}
 	if cap(e.qbuf) < len(values) {
 		e.qbuf = make([]quantity.Quantity, len(values))
@@ -38,7 +38,7 @@ func (e *Evaluator) RowMeasured(values []uncertain.Measured, dst []uncertain.Mea
 	}
 	for i, x := range q {
 		if x.Value() == 0 {
-			return nil, &EvalError{Symbol: e.set.prob.vars[i].Symbol, Reason: "a measured value of zero: the sensitivity of a product of powers is not defined there"}
+			return nil, &Error{Op: OpEvaluate, Symbol: e.set.prob.vars[i].Symbol, Reason: "a measured value of zero: the sensitivity of a product of powers is not defined there"}
 		}
 	}
 	c := e.cbuf[:len(values)]
@@ -79,7 +79,7 @@ func (e *Evaluator) SeriesU(cols, u []quantity.Series, shared []SharedSource, ds
 		return err
 	}
 	if len(u) != len(e.dims) {
-		return &EvalError{Reason: fmt.Sprintf("%d uncertainty series for %d variables", len(u), len(e.dims))}
+		return &Error{Op: OpEvaluate, Reason: fmt.Sprintf("%d uncertainty series for %d variables", len(u), len(e.dims))}
 	}
 	n := 0
 	if len(cols) > 0 {
@@ -90,24 +90,24 @@ func (e *Evaluator) SeriesU(cols, u []quantity.Series, shared []SharedSource, ds
 			continue
 		}
 		if err := s.Check(e.dims[i]); err != nil {
-			return &EvalError{Symbol: e.set.prob.vars[i].Symbol, Reason: "uncertainty series", Err: err}
+			return &Error{Op: OpEvaluate, Symbol: e.set.prob.vars[i].Symbol, Reason: "uncertainty series", Err: err}
 		}
 		if s.Len() != n {
-			return &EvalError{Symbol: e.set.prob.vars[i].Symbol, Reason: fmt.Sprintf("uncertainty series of %d rows, data of %d", s.Len(), n)}
+			return &Error{Op: OpEvaluate, Symbol: e.set.prob.vars[i].Symbol, Reason: fmt.Sprintf("uncertainty series of %d rows, data of %d", s.Len(), n)}
 		}
 	}
 	for _, sh := range shared {
 		if len(sh.Rel) != len(e.dims) {
-			return &EvalError{Reason: fmt.Sprintf("shared source %q gives %d relative uncertainties for %d variables", sh.Name, len(sh.Rel), len(e.dims))}
+			return &Error{Op: OpEvaluate, Reason: fmt.Sprintf("shared source %q gives %d relative uncertainties for %d variables", sh.Name, len(sh.Rel), len(e.dims))}
 		}
 	}
 	if len(udst) < len(e.num) {
-		return &EvalError{Reason: fmt.Sprintf("destination holds %d groups, the set has %d", len(udst), len(e.num))}
+		return &Error{Op: OpEvaluate, Reason: fmt.Sprintf("destination holds %d groups, the set has %d", len(udst), len(e.num))}
 	}
 	sh2 := e.shbuf[:0]
 	for g := range e.num {
 		if len(udst[g]) != n {
-			return &EvalError{Reason: fmt.Sprintf("uncertainty destination of group %d holds %d rows, the data %d", g+1, len(udst[g]), n)}
+			return &Error{Op: OpEvaluate, Reason: fmt.Sprintf("uncertainty destination of group %d holds %d rows, the data %d", g+1, len(udst[g]), n)}
 		}
 		// The shared sources give one relative variance per group.
 		var v float64
@@ -278,12 +278,12 @@ func (f *PowerLaw) Measured(set *uncertain.Set, name string) (*MeasuredLaw, erro
 		id, err := set.Add(uncertain.Source{Name: name + ": " + label, U: quantity.Scalar(math.Sqrt(f.cov.At(j, j))),
 			Type: uncertain.TypeA, DoF: float64(f.DoF), Effect: uncertain.Systematic})
 		if err != nil {
-			return nil, err
+			return nil, &Error{Op: OpFit, Row: -1, Group: -1, Reason: "registering the coefficients", Err: err}
 		}
 		ids[j] = id
 		m, err := set.Measure(quantity.Scalar(v), id)
 		if err != nil {
-			return nil, err
+			return nil, &Error{Op: OpFit, Row: -1, Group: -1, Reason: "registering the coefficients", Err: err}
 		}
 		ml.params = append(ml.params, m)
 	}
@@ -292,7 +292,7 @@ func (f *PowerLaw) Measured(set *uncertain.Set, name string) (*MeasuredLaw, erro
 			r := f.cov.At(i, j) / math.Sqrt(f.cov.At(i, i)*f.cov.At(j, j))
 			if r != 0 && !math.IsNaN(r) {
 				if err := set.Correlate(ids[i], ids[j], max(-1, min(1, r))); err != nil {
-					return nil, err
+					return nil, &Error{Op: OpFit, Row: -1, Group: -1, Reason: "correlating the coefficients", Err: err}
 				}
 			}
 		}
@@ -309,7 +309,7 @@ func (f *PowerLaw) Measured(set *uncertain.Set, name string) (*MeasuredLaw, erro
 func (m *MeasuredLaw) Predict(groups ...uncertain.Measured) (uncertain.Measured, Prediction, error) {
 	f := m.Law
 	if len(groups) != len(f.Exponents) {
-		return uncertain.Measured{}, Prediction{}, &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("%d groups for a fit of %d", len(groups), len(f.Exponents))}
+		return uncertain.Measured{}, Prediction{}, &Error{Op: OpFit, Kind: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("%d groups for a fit of %d", len(groups), len(f.Exponents))}
 	}
 	if m.cbuf == nil {
 		m.cbuf = make([]float64, 2*len(groups)+1)
@@ -318,7 +318,7 @@ func (m *MeasuredLaw) Predict(groups ...uncertain.Measured) (uncertain.Measured,
 	vals := m.cbuf[:len(groups)]
 	for k, g := range groups {
 		if err := g.Quantity().Check(quantity.Dimensionless); err != nil {
-			return uncertain.Measured{}, Prediction{}, &FitError{Err: ErrFitShape, Row: -1, Group: k + 1, Reason: err.Error()}
+			return uncertain.Measured{}, Prediction{}, &Error{Op: OpFit, Kind: ErrFitShape, Row: -1, Group: k + 1, Err: err}
 		}
 		vals[k] = g.Value()
 	}
@@ -336,7 +336,7 @@ func (m *MeasuredLaw) Predict(groups ...uncertain.Measured) (uncertain.Measured,
 	}
 	z, err := uncertain.Eval(func() uncertain.Measured { return uncertain.Linear(quantity.Scalar(y), c, x) })
 	if err != nil {
-		return uncertain.Measured{}, Prediction{}, &FitError{Err: ErrFitShape, Row: -1, Group: -1, Reason: "the groups' sources: " + err.Error()}
+		return uncertain.Measured{}, Prediction{}, &Error{Op: OpFit, Kind: ErrFitShape, Row: -1, Group: -1, Reason: "the groups' sources", Err: err}
 	}
 	return z, pr, nil
 }

@@ -187,9 +187,9 @@ func TestParseDimErrors(t *testing.T) {
 	bad := []string{"L^", "L^(1/0)", "L^(1/2", "X", "kg^-", "m⁻", "L^1234", "L^(1/4)", "L^22", "M²² L", "m//s", "L^(a)"}
 	for _, s := range bad {
 		_, err := q.ParseDim(s)
-		var pe *q.ParseError
+		var pe *q.Error
 		if !errors.As(err, &pe) {
-			t.Errorf("ParseDim(%q): err = %v, want *ParseError", s, err)
+			t.Errorf("ParseDim(%q): err = %v, want *Error", s, err)
 		}
 	}
 }

@@ -33,7 +33,7 @@ func (d *Dim) UnmarshalText(b []byte) error {
 // read back as NaN or ±Inf. It implements encoding.TextAppender.
 func (q Quantity) AppendText(b []byte) ([]byte, error) {
 	if math.IsNaN(q.v) || math.IsInf(q.v, 0) {
-		return b, &ParseError{Input: q.String(), Reason: "a value that is not finite has no text form"}
+		return b, &Error{Op: "format", Input: q.String(), Reason: "a value that is not finite has no text form", Class: ErrInvalid}
 	}
 	b = strconv.AppendFloat(b, q.v, 'g', -1, 64)
 	if uint64(q.d) != 0 {
@@ -65,30 +65,30 @@ func (q *Quantity) UnmarshalText(b []byte) error {
 // units or ISO form, or alone one of the special names String writes —
 // N (newton), Pa (pascal), W (watt). A unit text of "N" alone is so the
 // newton, not the ISO symbol of amount of substance (write mol). It
-// reports a *ParseError.
+// reports an *Error of class ErrParse.
 func ParseQuantitySI(s string) (Quantity, error) {
 	if len(s) > maxDimText+64 {
-		return Quantity{}, &ParseError{Input: s[:64] + "…", Offset: 64, Reason: "text too long"}
+		return Quantity{}, parseError(s[:64]+"…", 64, "text too long")
 	}
 	t := strings.TrimSpace(s)
 	lead := strings.Index(s, t)
 	num, rest, _ := strings.Cut(t, " ")
 	if num == "" {
-		return Quantity{}, &ParseError{Input: s, Offset: lead, Reason: "expected a number"}
+		return Quantity{}, parseError(s, lead, "expected a number")
 	}
 	v, err := strconv.ParseFloat(num, 64)
 	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
-		return Quantity{}, &ParseError{Input: s, Offset: lead, Reason: fmt.Sprintf("%q is not a finite number", num)}
+		return Quantity{}, parseError(s, lead, fmt.Sprintf("%q is not a finite number", num))
 	}
 	if v == 0 && strings.ContainsAny(strings.SplitN(strings.ToLower(num), "e", 2)[0], "123456789") {
-		return Quantity{}, &ParseError{Input: s, Offset: lead, Reason: fmt.Sprintf("%q underflows to zero", num)}
+		return Quantity{}, parseError(s, lead, fmt.Sprintf("%q underflows to zero", num))
 	}
 	if d, ok := namedDim(rest); ok {
 		return Quantity{v, d}, nil
 	}
 	d, err := ParseDim(rest)
 	if err != nil {
-		if pe, ok := err.(*ParseError); ok {
+		if pe, ok := err.(*Error); ok {
 			pe.Input, pe.Offset = s, pe.Offset+lead+len(num)+1
 		}
 		return Quantity{}, err

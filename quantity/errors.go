@@ -126,18 +126,44 @@ func (e *DimensionError) Error() string {
 // Is reports whether target is ErrDimension.
 func (e *DimensionError) Is(target error) bool { return target == ErrDimension }
 
-// LengthError reports Series of different lengths combined element-wise.
-type LengthError struct {
-	Op          string // the operation, "add", "multiply", …
-	Left, Right int    // the two lengths
+// Error reports text that does not parse (a dimension, a quantity, an
+// exact exponent), an exact rational operation that cannot be done, or
+// Series of different lengths combined element-wise. It matches exactly
+// one class under errors.Is, in Class: ErrParse, ErrRange or ErrInvalid.
+// A dimension that is wrong is a *DimensionError instead.
+type Error struct {
+	Op     string // "parse", "add", "divide", "scale to integers", …
+	Input  string // the text, or the operands of a rational operation
+	Offset int    // byte offset of the problem within Input, for "parse"
+	Reason string // what is wrong
+	// Left and Right are the two lengths, for Series of different
+	// lengths (ErrInvalid); equal otherwise.
+	Left, Right int
+	Class       error // ErrParse, ErrRange or ErrInvalid
 }
 
-// Is reports whether target is ErrInvalid, the class of a *LengthError.
-func (e *LengthError) Is(target error) bool { return target == ErrInvalid }
+// Is reports whether target is the error's class.
+func (e *Error) Is(target error) bool { return target != nil && target == e.Class }
 
 // Error implements the error interface.
-func (e *LengthError) Error() string {
-	return fmt.Sprintf("cannot %s series of lengths %d and %d", e.Op, e.Left, e.Right)
+func (e *Error) Error() string {
+	switch {
+	case e.Op == "parse":
+		return fmt.Sprintf("parse %q: at offset %d: %s", e.Input, e.Offset, e.Reason)
+	case e.Left != e.Right:
+		return fmt.Sprintf("cannot %s series of lengths %d and %d", e.Op, e.Left, e.Right)
+	}
+	return fmt.Sprintf("quantity: %s %s: %s", e.Op, e.Input, e.Reason)
+}
+
+// parseError is the Error of text s that does not parse at byte at.
+func parseError(s string, at int, reason string) *Error {
+	return &Error{Op: "parse", Input: s, Offset: at, Reason: reason, Class: ErrParse}
+}
+
+// lengthError is the Error of Series of lengths a and b combined by op.
+func lengthError(op string, a, b int) *Error {
+	return &Error{Op: op, Left: a, Right: b, Class: ErrInvalid}
 }
 
 //go:noinline
@@ -160,7 +186,7 @@ func panicErr(err error) { panic(err) }
 
 //go:noinline
 func panicLength(op string, a, b int) {
-	panic(&LengthError{Op: op, Left: a, Right: b})
+	panic(lengthError(op, a, b))
 }
 
 const overflows = "an exponent overflows"
@@ -168,17 +194,20 @@ const overflows = "an exponent overflows"
 const mustBeDimensionless = "the argument must be dimensionless"
 
 // Eval runs a formula and returns its result, turning a panic with a
-// *DimensionError or *LengthError raised inside it into a returned error.
-// Any other panic is passed on. It is meant for programs that evaluate
-// formulas their users supply, where a dimension mismatch is an input
-// error rather than a bug.
+// *DimensionError, or with an *Error for Series of different lengths,
+// raised inside it into a returned error. Any other panic is passed on.
+// It is meant for programs that evaluate formulas their users supply,
+// where a dimension mismatch is an input error rather than a bug.
 func Eval(formula func() Quantity) (q Quantity, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			switch e := r.(type) {
 			case *DimensionError:
 				err = e
-			case *LengthError:
+			case *Error:
+				if e.Left == e.Right {
+					panic(r) // not a length mismatch: a Must… function's error
+				}
 				err = e
 			default:
 				panic(r)

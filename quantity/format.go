@@ -109,22 +109,6 @@ func (q Quantity) Format(f fmt.State, verb rune) {
 	_, _ = f.Write([]byte(s))
 }
 
-// ParseError reports text that does not parse, with the byte offset at
-// which the problem was found.
-type ParseError struct {
-	Input  string // the text given
-	Offset int    // byte offset of the problem within Input
-	Reason string // what is wrong
-}
-
-// Is reports whether target is ErrParse, the class of a *ParseError.
-func (e *ParseError) Is(target error) bool { return target == ErrParse }
-
-// Error implements the error interface.
-func (e *ParseError) Error() string {
-	return fmt.Sprintf("parse %q: at offset %d: %s", e.Input, e.Offset, e.Reason)
-}
-
 // maxDimText bounds the input ParseDim reads.
 const maxDimText = 256
 
@@ -133,10 +117,10 @@ const maxDimText = 256
 // base-unit form ("kg·m⁻¹·s⁻²", "kg m^-1 s^-2"). Factors are separated by
 // spaces, '·' or '*'; exponents are Unicode superscripts or follow '^' as
 // an integer or a parenthesised fraction ("m^(1/2)"). "1" and "" are the
-// dimension one. Repeated factors multiply. It reports a *ParseError.
+// dimension one. Repeated factors multiply. It reports an *Error of class ErrParse.
 func ParseDim(s string) (Dim, error) {
 	if len(s) > maxDimText {
-		return Dim(0), &ParseError{s, maxDimText, "text longer than 256 bytes"}
+		return Dim(0), parseError(s, maxDimText, "text longer than 256 bytes")
 	}
 	t := strings.TrimSpace(s)
 	if t == "" || t == "1" {
@@ -159,12 +143,12 @@ func ParseDim(s string) (Dim, error) {
 			i += n
 		}
 		if i == start {
-			return Dim(0), &ParseError{s, i, fmt.Sprintf("unexpected %q", r)}
+			return Dim(0), parseError(s, i, fmt.Sprintf("unexpected %q", r))
 		}
 		sym := s[start:i]
 		b, ok := lookupBase(sym)
 		if !ok {
-			return Dim(0), &ParseError{s, start, fmt.Sprintf("unknown base symbol %q (want one of L M T I Θ N J or m kg s A K mol cd)", sym)}
+			return Dim(0), parseError(s, start, fmt.Sprintf("unknown base symbol %q (want one of L M T I Θ N J or m kg s A K mol cd)", sym))
 		}
 		num, den := 1, 1
 		if i < len(s) {
@@ -178,10 +162,10 @@ func ParseDim(s string) (Dim, error) {
 		}
 		e, err := DimOf(b, num, den)
 		if err != nil {
-			return Dim(0), &ParseError{s, start, err.(*DimensionError).Detail}
+			return Dim(0), parseError(s, start, err.(*DimensionError).Detail)
 		}
 		if d, err = d.Mul(e); err != nil {
-			return Dim(0), &ParseError{s, start, "exponent of " + b.String() + " overflows"}
+			return Dim(0), parseError(s, start, "exponent of "+b.String()+" overflows")
 		}
 	}
 	return d, nil
@@ -232,14 +216,14 @@ func parseExponent(s string, i int) (num, den, used int, err error) {
 				break
 			}
 			if digits >= 3 {
-				return 0, 0, 0, &ParseError{s, i, "exponent too long"}
+				return 0, 0, 0, parseError(s, i, "exponent too long")
 			}
 			v = v*10 + dv
 			digits++
 			i += n
 		}
 		if digits == 0 {
-			return 0, 0, 0, &ParseError{s, i, "superscript minus without digits"}
+			return 0, 0, 0, parseError(s, i, "superscript minus without digits")
 		}
 		if neg {
 			v = -v
@@ -266,11 +250,11 @@ func parseExponent(s string, i int) (num, den, used int, err error) {
 				return 0, 0, 0, err
 			}
 			if den <= 0 {
-				return 0, 0, 0, &ParseError{s, i, "exponent denominator must be positive"}
+				return 0, 0, 0, parseError(s, i, "exponent denominator must be positive")
 			}
 		}
 		if i >= len(s) || s[i] != ')' {
-			return 0, 0, 0, &ParseError{s, i, "missing ')' after exponent"}
+			return 0, 0, 0, parseError(s, i, "missing ')' after exponent")
 		}
 		i++
 	}
@@ -287,14 +271,14 @@ func parseInt(s string, i int) (int, int, error) {
 	v, digits := 0, 0
 	for i < len(s) && s[i] >= '0' && s[i] <= '9' {
 		if digits >= 3 {
-			return 0, i, &ParseError{s, i, "exponent too long"}
+			return 0, i, parseError(s, i, "exponent too long")
 		}
 		v = v*10 + int(s[i]-'0')
 		digits++
 		i++
 	}
 	if digits == 0 {
-		return 0, start, &ParseError{s, start, "expected an integer exponent"}
+		return 0, start, parseError(s, start, "expected an integer exponent")
 	}
 	if neg {
 		v = -v

@@ -10,28 +10,6 @@ import (
 	"similis.dev/similis/internal/exact"
 )
 
-// RatError reports an exact rational operation that cannot be done, or
-// text ParseRat cannot read.
-type RatError struct {
-	Op     string // "add", "divide", "parse", …
-	Input  string // the operands or the text
-	Reason string
-}
-
-// Error implements the error interface.
-func (e *RatError) Error() string {
-	return fmt.Sprintf("quantity: %s %s: %s", e.Op, e.Input, e.Reason)
-}
-
-// Is reports whether target is the error's class: ErrParse for text
-// ParseRat cannot read, ErrRange otherwise.
-func (e *RatError) Is(target error) bool {
-	if e.Op == "parse" {
-		return target == ErrParse
-	}
-	return target == ErrRange
-}
-
 // Rat is an exact rational number n/d in lowest terms with d > 0: the
 // exponent of a dimension, a Pi group's variable or a scale law's free
 // ratio (3/2 in λ_L^(3/2)). Its zero value is 0. It is comparable: two
@@ -60,10 +38,10 @@ func RatInt(n int64) Rat {
 // wrapping ErrRange.
 func NewRat(n, d int64) (Rat, error) {
 	if d == 0 {
-		return Rat{}, &RatError{Op: "make", Input: fmt.Sprintf("%d/%d", n, d), Reason: "zero denominator"}
+		return Rat{}, &Error{Op: "make", Input: fmt.Sprintf("%d/%d", n, d), Reason: "zero denominator", Class: ErrRange}
 	}
 	if d == math.MinInt64 || n == math.MinInt64 {
-		return Rat{}, &RatError{Op: "make", Input: fmt.Sprintf("%d/%d", n, d), Reason: "out of the range of an int64"}
+		return Rat{}, &Error{Op: "make", Input: fmt.Sprintf("%d/%d", n, d), Reason: "out of the range of an int64", Class: ErrRange}
 	}
 	return norm(n, d), nil
 }
@@ -117,7 +95,7 @@ func norm(n, d int64) Rat {
 }
 
 func overflow(op string, r, s Rat) error {
-	return &RatError{Op: op, Input: r.String() + " and " + s.String(), Reason: "the result does not fit in 64-bit fractions"}
+	return &Error{Op: op, Input: r.String() + " and " + s.String(), Reason: "the result does not fit in 64-bit fractions", Class: ErrRange}
 }
 
 // Add returns r+s, or an error wrapping ErrRange if it does not fit.
@@ -172,7 +150,7 @@ func (r Rat) Mul(s Rat) (Rat, error) {
 // error wrapping ErrRange.
 func (r Rat) Div(s Rat) (Rat, error) {
 	if s.n == 0 {
-		return Rat{}, &RatError{Op: "divide", Input: r.String() + " by 0", Reason: "division by zero"}
+		return Rat{}, &Error{Op: "divide", Input: r.String() + " by 0", Reason: "division by zero", Class: ErrRange}
 	}
 	return r.Mul(norm(s.Den(), s.n))
 }
@@ -265,14 +243,14 @@ func (r *Rat) UnmarshalText(b []byte) error {
 
 // ParseRat reads "n" or "n/d" (an optional sign, decimal digits, no
 // spaces) and returns it in lowest terms: "6/4" is 3/2. It reports a
-// *RatError for anything else.
+// *Error of class ErrParse for anything else.
 func ParseRat(s string) (Rat, error) {
 	bad := func(reason string) (Rat, error) {
 		in := s
 		if len(in) > 64 {
 			in = in[:64] + "…"
 		}
-		return Rat{}, &RatError{Op: "parse", Input: strconv.Quote(in), Reason: reason}
+		return Rat{}, parseError(in, 0, reason)
 	}
 	if len(s) > 41 {
 		return bad("too long for an exact exponent")
@@ -309,24 +287,24 @@ func (d Dim) Exponent(b Base) Rat {
 // v's length and may be v itself) and returns the factor used: {1/2,
 // −1/3, 0} becomes {3, −2, 0} with factor 6. It reports an error wrapping
 // ErrRange if the result does not fit in int64 fractions, and a
-// *LengthError (ErrInvalid) if dst is shorter than v.
+// *Error of class ErrInvalid if dst is shorter than v.
 func Coprime(dst, v []Rat) (Rat, error) {
 	if len(dst) < len(v) {
-		return Rat{}, &LengthError{Op: "scale to integers into", Left: len(dst), Right: len(v)}
+		return Rat{}, lengthError("scale to integers into", len(dst), len(v))
 	}
 	l := int64(1)
 	for _, x := range v {
 		d := x.Den()
 		var ok bool
 		if l, ok = exact.Mul64(l, d/gcd(l, d)); !ok {
-			return Rat{}, &RatError{Op: "scale to integers", Input: fmt.Sprint(v), Reason: "the common denominator does not fit in an int64"}
+			return Rat{}, &Error{Op: "scale to integers", Input: fmt.Sprint(v), Reason: "the common denominator does not fit in an int64", Class: ErrRange}
 		}
 	}
 	g := int64(0)
 	for i, x := range v {
 		n, ok := exact.Mul64(x.n, l/x.Den())
 		if !ok || n == math.MinInt64 {
-			return Rat{}, &RatError{Op: "scale to integers", Input: fmt.Sprint(v), Reason: "a scaled exponent does not fit in an int64"}
+			return Rat{}, &Error{Op: "scale to integers", Input: fmt.Sprint(v), Reason: "a scaled exponent does not fit in an int64", Class: ErrRange}
 		}
 		dst[i] = Rat{n: n}
 		g = gcd(g, n)

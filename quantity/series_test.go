@@ -93,7 +93,7 @@ func TestSeriesStatistics(t *testing.T) {
 		t.Error("Set should copy")
 	}
 	defer func() {
-		var le *q.LengthError
+		var le *q.Error
 		if r := recover(); r == nil || !errors.As(r.(error), &le) || le.Left != 5 || le.Right != 2 {
 			t.Errorf("length mismatch: panic %v", r)
 		}

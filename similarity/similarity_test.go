@@ -389,7 +389,7 @@ func TestLawIsProduct(t *testing.T) {
 
 // TestPlanErrorShape: a *PlanError carries the operation, the input, its
 // class and its cause; Is compares the class and Unwrap returns the
-// cause, kept as an error (a foreign group's *pigroups.ProblemError is
+// cause, kept as an error (a foreign group's *pigroups.Error is
 // reachable with errors.As, not turned into text).
 func TestPlanErrorShape(t *testing.T) {
 	s, err := similarity.Froude(similarity.Scales{Length: 0.04, Density: 1})
@@ -408,7 +408,7 @@ func TestPlanErrorShape(t *testing.T) {
 		t.Fatal(err)
 	}
 	_, err = s.GroupRatio(set.Groups()[0])
-	var prob *pigroups.ProblemError
+	var prob *pigroups.Error
 	if !errors.As(err, &pe) || pe.Op != "GroupRatio" || !errors.As(err, &prob) || !errors.Is(err, similarity.ErrForeignGroup) || !errors.Is(err, q.ErrInvalid) {
 		t.Errorf("GroupRatio of a foreign group: %v", err)
 	}

@@ -27,7 +27,7 @@ var (
 // as an interval, as engineering data sheets mean it (common practice).
 // Δ°C, ΔdegF (ASCII degC_diff) spell temperature differences explicitly.
 //
-// Errors are *ParseError values. Parse never panics and its work is
+// Errors are *Error values of OpParse. Parse never panics and its work is
 // bounded by MaxExprLen and MaxDepth. Results are cached, so parsing the
 // same expression again is a map lookup.
 func Parse(expr string) (Unit, error) {

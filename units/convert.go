@@ -12,7 +12,8 @@ import (
 	"similis.dev/similis/quantity"
 )
 
-// Reasons a conversion is refused; a *ConversionError wraps one.
+// Reasons a conversion is refused; an *Error of OpConvert has one as
+// its Kind.
 var (
 	ErrIncompatible = errors.New("incompatible dimensions")
 	ErrAngle        = errors.New("angle mismatch")
@@ -22,75 +23,14 @@ var (
 	ErrRange = quantity.ErrRange
 )
 
-// RangeError reports a number that is not finite, or a result that would
-// not be: a conversion or a unit's factor that overflows or underflows.
-type RangeError struct {
-	Op     string  // "convert", "multiply units", …
-	Value  float64 // the offending input, if one
-	Reason string
-}
-
-// Error implements the error interface.
-func (e *RangeError) Error() string { return "units: " + e.Op + ": " + e.Reason }
-
-// Is reports whether target is quantity.ErrRange, the class of a
-// *RangeError.
-func (e *RangeError) Is(target error) bool { return target == quantity.ErrRange }
-
 func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
-
-// ConversionError reports a conversion that cannot be made, naming both
-// units with their kinds of quantity, and how to write what was meant.
-type ConversionError struct {
-	From, To Unit
-	// FromDim is the dimension of the source, for a Quantity read in a
-	// unit (From is then the zero Unit).
-	FromDim quantity.Dim
-	Err     error  // ErrIncompatible, ErrAngle or ErrTemperature
-	Reason  string // what is wrong
-	Hint    string // how to write what was meant, if known
-}
-
-func describeUnit(u Unit) string {
-	return fmt.Sprintf("%s (%s)", u.Format(quantity.Unicode), quantity.Describe(u.dim))
-}
-
-// Error implements the error interface.
-func (e *ConversionError) Error() string {
-	from := describeUnit(e.From)
-	if e.From == (Unit{}) {
-		from = "a quantity of " + quantity.Describe(e.FromDim)
-	}
-	s := fmt.Sprintf("units: cannot convert %s to %s", from, describeUnit(e.To))
-	if e.Reason != "" {
-		s += ": " + e.Reason
-	}
-	if e.Hint != "" {
-		s += "; " + e.Hint
-	}
-	return s
-}
-
-// Unwrap returns the kind of problem (ErrIncompatible, ErrAngle or
-// ErrTemperature).
-func (e *ConversionError) Unwrap() error { return e.Err }
-
-// Is reports whether target is the error's class: quantity.ErrDimension
-// for dimensions that differ, quantity.ErrInvalid for an angle or a
-// temperature role that does not match.
-func (e *ConversionError) Is(target error) bool {
-	if e.Err == ErrIncompatible {
-		return target == quantity.ErrDimension
-	}
-	return target == quantity.ErrInvalid
-}
 
 func checkConvert(from, to Unit) error {
 	if from.dim != to.dim {
-		return &ConversionError{From: from, To: to, Err: ErrIncompatible, Reason: "the dimensions differ"}
+		return &Error{Op: OpConvert, From: from, To: to, Kind: ErrIncompatible, Reason: "the dimensions differ"}
 	}
 	if from.angle != to.angle || from.solid != to.solid {
-		e := &ConversionError{From: from, To: to, Err: ErrAngle}
+		e := &Error{Op: OpConvert, From: from, To: to, Kind: ErrAngle}
 		if from.solid != to.solid {
 			e.Reason = "one carries a solid angle (sr) and the other does not"
 			e.Hint = "multiply or divide by sr explicitly if that is meant"
@@ -107,7 +47,7 @@ func checkConvert(from, to Unit) error {
 		return e
 	}
 	if from.temp == tempScale && to.temp == tempInterval || from.temp == tempInterval && to.temp == tempScale {
-		return &ConversionError{From: from, To: to, Err: ErrTemperature,
+		return &Error{Op: OpConvert, From: from, To: to, Kind: ErrTemperature,
 			Reason: "one is a temperature scale (a level) and the other a temperature difference",
 			Hint:   "write both as differences (Δ°C, Δ°F, K) or both as levels (°C, °F, K)"}
 	}
@@ -134,7 +74,7 @@ func ConvertUnits(v float64, from, to Unit) (float64, error) {
 		}
 	}
 	if v-v != 0 { // NaN or ±Inf
-		return 0, &RangeError{Op: "convert", Value: v, Reason: fmt.Sprintf("the value %v is not finite", v)}
+		return 0, &Error{Class: quantity.ErrRange, Op: "convert", Value: v, Reason: fmt.Sprintf("the value %v is not finite", v)}
 	}
 	var x float64
 	switch {
@@ -151,7 +91,7 @@ func ConvertUnits(v float64, from, to Unit) (float64, error) {
 		x = (v*from.factor + from.offset - to.offset) / to.factor
 	}
 	if !finite(x) || x == 0 && v != 0 && from.offset == 0 && to.offset == 0 {
-		return 0, &RangeError{Op: "convert", Value: v, Reason: fmt.Sprintf("%g %s in %s is out of the range of a float64", v, from, to)}
+		return 0, &Error{Class: quantity.ErrRange, Op: "convert", Value: v, Reason: fmt.Sprintf("%g %s in %s is out of the range of a float64", v, from, to)}
 	}
 	return x, nil
 }
@@ -210,7 +150,7 @@ func (v Value) String() string {
 // encoding.TextAppender.
 func (v Value) AppendText(b []byte) ([]byte, error) {
 	if math.IsNaN(v.Number) || math.IsInf(v.Number, 0) {
-		return b, &ValueError{Input: strconv.FormatFloat(v.Number, 'g', -1, 64), Reason: "a value that is not finite has no text form"}
+		return b, &Error{Op: OpFormat, Input: strconv.FormatFloat(v.Number, 'g', -1, 64), Reason: "a value that is not finite has no text form"}
 	}
 	return append(b, v.String()...), nil
 }
@@ -232,32 +172,6 @@ func (v *Value) UnmarshalText(b []byte) error {
 // Set parses s into v, for flag.Value: -speed 12kn.
 func (v *Value) Set(s string) error { return v.UnmarshalText([]byte(s)) }
 
-// ValueError reports text that is not a number followed by a unit.
-type ValueError struct {
-	Input  string
-	Offset int
-	Reason string
-	Err    error // a *ParseError for the unit part, or nil
-}
-
-// Error implements the error interface.
-func (e *ValueError) Error() string {
-	if e.Err != nil {
-		return fmt.Sprintf("units: value %q: %v", e.Input, e.Err)
-	}
-	return fmt.Sprintf("units: value %q: at offset %d: %s", e.Input, e.Offset, e.Reason)
-}
-
-// Unwrap returns the unit's parse error, if that was the problem.
-func (e *ValueError) Unwrap() error { return e.Err }
-
-// Is reports whether target is quantity.ErrParse, the class of a
-// *ValueError whose number or layout is wrong. When the unit is what is
-// wrong (Err is set), the class is the unit's parse error's, matched
-// through Unwrap: ErrUnknown for an unknown symbol, ErrParse otherwise;
-// so every ValueError matches exactly one class.
-func (e *ValueError) Is(target error) bool { return e.Err == nil && target == quantity.ErrParse }
-
 // ParseValue reads a number and a unit expression, with or without a
 // space between them: "12.5 kn", "101.325 kPa", "20 °C", "3.2e-3 Pa·s",
 // "12kn". A number alone is dimensionless.
@@ -265,24 +179,24 @@ func ParseValue(s string) (Value, error) { return parseValue(builtinTable{}, s, 
 
 func parseValue(tab symbolTable, s string, parse func(string) (Unit, error)) (Value, error) {
 	if len(s) > MaxExprLen+maxNumLen {
-		return Value{}, &ValueError{Input: s[:64] + "…", Offset: 0, Reason: "text too long"}
+		return Value{}, &Error{Op: OpParseValue, Input: s[:64] + "…", Offset: 0, Reason: "text too long"}
 	}
 	t := strings.TrimSpace(s)
 	lead := strings.Index(s, t)
 	n, lexErr := numlex.Scan(t, numlex.Signed|numlex.Grouped)
 	if lexErr != nil {
-		return Value{}, &ValueError{Input: s, Offset: lead + lexErr.Offset, Reason: lexErr.Reason}
+		return Value{}, &Error{Op: OpParseValue, Input: s, Offset: lead + lexErr.Offset, Reason: lexErr.Reason}
 	}
 	text, j := n.Text, n.End
 	if j > maxNumLen {
-		return Value{}, &ValueError{Input: s, Offset: lead, Reason: "number too long"}
+		return Value{}, &Error{Op: OpParseValue, Input: s, Offset: lead, Reason: "number too long"}
 	}
 	x, class := numlex.Float(text)
 	switch class {
 	case numlex.Malformed, numlex.Overflow:
-		return Value{}, &ValueError{Input: s, Offset: lead, Reason: fmt.Sprintf("%q is not a finite number", t[:j])}
+		return Value{}, &Error{Op: OpParseValue, Input: s, Offset: lead, Reason: fmt.Sprintf("%q is not a finite number", t[:j])}
 	case numlex.Underflow:
-		return Value{}, &ValueError{Input: s, Offset: lead, Reason: fmt.Sprintf("%q underflows to zero", t[:j])}
+		return Value{}, &Error{Op: OpParseValue, Input: s, Offset: lead, Reason: fmt.Sprintf("%q underflows to zero", t[:j])}
 	}
 	rest := strings.TrimSpace(t[j:])
 	if rest == "" {
@@ -290,22 +204,22 @@ func parseValue(tab symbolTable, s string, parse func(string) (Unit, error)) (Va
 	}
 	if c := rest[0]; (c >= '0' && c <= '9' || c == '.') && !reciprocal(rest) {
 		// 101 325 Pa: a second number, not a unit.
-		return Value{}, &ValueError{Input: s, Offset: lead + len(t) - len(rest), Reason: "a second number after a space: to group digits write a thin space (U+2009) between groups of three, as in 101\u2009325 Pa, or no space at all"}
+		return Value{}, &Error{Op: OpParseValue, Input: s, Offset: lead + len(t) - len(rest), Reason: "a second number after a space: to group digits write a thin space (U+2009) between groups of three, as in 101\u2009325 Pa, or no space at all"}
 	}
 	if r, _ := utf8.DecodeRuneInString(rest); r == '/' || r == '*' || r == '^' {
-		return Value{}, &ValueError{Input: s, Offset: lead + j, Reason: "a unit must follow the number (write 1/s, not /s)"}
+		return Value{}, &Error{Op: OpParseValue, Input: s, Offset: lead + j, Reason: "a unit must follow the number (write 1/s, not /s)"}
 	}
 	if _, gauge := gaugeSuffix(rest); gauge {
 		// 40 kPa(g), 12 psig: a gauge level is not an absolute pressure,
 		// and "kPa (g)" is not kilopascal-gram.
-		return Value{}, &ValueError{Input: s, Err: &ParseError{Input: rest, Err: ErrGauge, Reason: gaugeHelp}}
+		return Value{}, valueUnitError(s, lead+len(t)-len(rest), &Error{Op: OpParse, Input: rest, Kind: ErrGauge, Reason: gaugeHelp})
 	}
 	u, err := parse(rest)
 	if err != nil {
-		return Value{}, &ValueError{Input: s, Err: err}
+		return Value{}, valueUnitError(s, lead+len(t)-len(rest), err)
 	}
 	if pureNumber(u) {
-		return Value{}, &ValueError{Input: s, Offset: lead + len(t) - len(rest), Reason: fmt.Sprintf("the unit %q is a pure number: write the value as one number", rest)}
+		return Value{}, &Error{Op: OpParseValue, Input: s, Offset: lead + len(t) - len(rest), Reason: fmt.Sprintf("the unit %q is a pure number: write the value as one number", rest)}
 	}
 	return Value{Number: x, Unit: u}, nil
 }
@@ -318,6 +232,21 @@ func MustParseValue(s string) Value {
 		panic(err)
 	}
 	return v
+}
+
+// valueUnitError is the error of value text s whose unit, at byte at,
+// does not parse: it carries the unit's error as its cause, and its Kind,
+// Symbol and Suggest, with the Offset in s.
+func valueUnitError(s string, at int, err error) *Error {
+	e := &Error{Op: OpParseValue, Input: s, Offset: at, Err: err}
+	var pe *Error
+	if errors.As(err, &pe) {
+		e.Kind, e.Symbol, e.Suggest = pe.Kind, pe.Symbol, pe.Suggest
+		if pe.Op == OpParse {
+			e.Offset += pe.Offset
+		}
+	}
+	return e
 }
 
 // ParseQuantity reads a number and a unit, as ParseValue does, and returns
@@ -365,14 +294,14 @@ func (f *Flag) Set(s string) error {
 		return err
 	}
 	if v.Unit.dim != f.dim {
-		return &quantity.DimensionError{Op: "check", Name: s, Left: v.Unit.dim, Right: f.dim, Binary: true}
+		return &Error{Op: OpSetFlag, Input: s, Err: &quantity.DimensionError{Op: "check", Name: s, Left: v.Unit.dim, Right: f.dim, Binary: true}}
 	}
 	if f.dim == quantity.Temperature && (!f.diff && v.Unit.IsInterval() || f.diff && v.Unit.IsScale()) {
 		what, want := "a temperature difference", "a temperature level (°C, °F, K)"
 		if f.diff {
 			what, want = "a temperature level", "a temperature difference (Δ°C, Δ°F, K)"
 		}
-		return &ConversionError{From: v.Unit, To: f.Value.Unit, Err: ErrTemperature, Reason: fmt.Sprintf("%q is %s", s, what), Hint: "the flag takes " + want}
+		return &Error{Op: OpConvert, From: v.Unit, To: f.Value.Unit, Kind: ErrTemperature, Reason: fmt.Sprintf("%q is %s", s, what), Hint: "the flag takes " + want}
 	}
 	f.Value = v
 	return nil

@@ -95,21 +95,21 @@ var dialectRefused = map[string]string{
 // default: Parse stays strict.
 func ParseDialect(text string) (Unit, []Reading, error) {
 	if _, gauge := gaugeSuffix(text); gauge {
-		return Unit{}, nil, &ParseError{Input: text, Err: ErrGauge, Reason: gaugeHelp}
+		return Unit{}, nil, &Error{Op: OpParse, Input: text, Kind: ErrGauge, Reason: gaugeHelp}
 	}
 	if text == "C" {
 		// A channel header's [C] is almost always a temperature; the
 		// coulomb is read only when spelled so that it cannot be mistaken.
-		return Unit{}, nil, &ParseError{Input: text, Err: ErrAmbiguous, Symbol: "C", Reason: "a bare C is the coulomb in SI but usually means the degree Celsius in a data file: write °C or degC for a temperature, or A*s for a charge"}
+		return Unit{}, nil, &Error{Op: OpParse, Input: text, Kind: ErrAmbiguous, Symbol: "C", Reason: "a bare C is the coulomb in SI but usually means the degree Celsius in a data file: write °C or degC for a temperature, or A*s for a charge"}
 	}
 	if u, err := Parse(text); err == nil {
 		return u, nil, nil
 	}
 	if len(text) > MaxExprLen {
-		return Unit{}, nil, &ParseError{Input: text[:MaxExprLen] + "…", Offset: MaxExprLen, Err: ErrTooLong, Reason: fmt.Sprintf("longer than %d bytes", MaxExprLen)}
+		return Unit{}, nil, &Error{Op: OpParse, Input: text[:MaxExprLen] + "…", Offset: MaxExprLen, Kind: ErrTooLong, Reason: fmt.Sprintf("longer than %d bytes", MaxExprLen)}
 	}
 	if !utf8.ValidString(text) {
-		return Unit{}, nil, &ParseError{Input: text, Err: ErrSyntax, Reason: "invalid UTF-8"}
+		return Unit{}, nil, &Error{Op: OpParse, Input: text, Kind: ErrSyntax, Reason: "invalid UTF-8"}
 	}
 	if rd, ok := dialectWhole[text]; ok {
 		u, err := Parse(rd.To)
@@ -130,7 +130,7 @@ func ParseDialect(text string) (Unit, []Reading, error) {
 			return Unit{}, nil, err
 		}
 		if u.Dim() != quantity.Pressure {
-			return Unit{}, nil, &ParseError{Input: text, Err: ErrSyntax, Reason: fmt.Sprintf("%q marks an absolute pressure, but %s is not a pressure unit", mark, base)}
+			return Unit{}, nil, &Error{Op: OpParse, Input: text, Kind: ErrSyntax, Reason: fmt.Sprintf("%q marks an absolute pressure, but %s is not a pressure unit", mark, base)}
 		}
 		return u, append(rd, Reading{From: text, To: base, Note: "an absolute pressure"}), nil
 	}
@@ -171,7 +171,7 @@ func ParseDialect(text string) (Unit, []Reading, error) {
 				word = "Nm" + text[j:k]
 			}
 			if why, bad := dialectRefused[word]; bad {
-				return Unit{}, readings, &ParseError{Input: text, Offset: i, Err: ErrAmbiguous, Symbol: word, Reason: fmt.Sprintf("%q %s", word, why)}
+				return Unit{}, readings, &Error{Op: OpParse, Input: text, Offset: i, Kind: ErrAmbiguous, Symbol: word, Reason: fmt.Sprintf("%q %s", word, why)}
 			}
 			to := word
 			if rd, ok := dialectWords[word]; ok {
@@ -218,11 +218,11 @@ func ParseDialect(text string) (Unit, []Reading, error) {
 		// unknown symbol stays unknown, a syntax or exponent error stays
 		// one (ErrParse), so a caller can tell them apart.
 		kind := ErrSyntax
-		var pe *ParseError
-		if errors.As(err, &pe) {
-			kind = pe.Err
+		var pe *Error
+		if errors.As(err, &pe) && pe.Kind != nil {
+			kind = pe.Kind
 		}
-		return Unit{}, readings, &ParseError{Input: text, Err: kind, Reason: fmt.Sprintf("not a unit even as a data sheet writes it (read as %q: %v)", strict, err)}
+		return Unit{}, readings, &Error{Op: OpParse, Input: text, Kind: kind, Reason: fmt.Sprintf("not a unit even as a data sheet writes it (read as %q)", strict), Err: err}
 	}
 	return u, readings, nil
 }

@@ -78,7 +78,7 @@ func (p Printer) Format(q quantity.Quantity) string {
 	return s
 }
 
-// FormatIn returns q expressed in unit u. It reports a *ConversionError
+// FormatIn returns q expressed in unit u. It reports an *Error of OpConvert
 // if the dimensions differ.
 func (p Printer) FormatIn(q quantity.Quantity, u Unit) (string, error) {
 	v, err := u.ValueOf(q)

@@ -16,24 +16,6 @@ import (
 // reference.
 var ErrGauge = errors.New("gauge pressure needs a reference pressure")
 
-// GaugeError reports a gauge pressure used as if it were absolute, or a
-// reference that cannot make it absolute. It matches ErrGauge and
-// quantity.ErrInvalid.
-type GaugeError struct {
-	Input  string // the text or value concerned
-	Reason string
-}
-
-// Error implements the error interface.
-func (e *GaugeError) Error() string {
-	return fmt.Sprintf("units: gauge pressure %q: %s", e.Input, e.Reason)
-}
-
-// Is reports whether target is ErrGauge or quantity.ErrInvalid.
-func (e *GaugeError) Is(target error) bool {
-	return target == ErrGauge || target == quantity.ErrInvalid
-}
-
 const gaugeHelp = "a gauge level is relative to the ambient pressure: read it with ParseGauge and make it absolute with Gauge.Absolute and a barometer reading (or StandardReference, chosen explicitly)"
 
 // Gauge is a gauge pressure: a level read relative to the ambient
@@ -74,24 +56,24 @@ func gaugeSuffix(u string) (string, bool) {
 // sheet is taken to be absolute.
 func ParseGauge(s string) (Gauge, error) {
 	if len(s) > MaxExprLen+maxNumLen {
-		return Gauge{}, &ValueError{Input: s[:64] + "…", Reason: "text too long"}
+		return Gauge{}, &Error{Op: OpParseValue, Input: s[:64] + "…", Reason: "text too long"}
 	}
 	t := strings.TrimSpace(s)
 	n, lexErr := numlex.Scan(t, numlex.Signed|numlex.Grouped)
 	if lexErr != nil {
-		return Gauge{}, &ValueError{Input: s, Offset: lexErr.Offset, Reason: lexErr.Reason}
+		return Gauge{}, &Error{Op: OpParseValue, Input: s, Offset: lexErr.Offset, Reason: lexErr.Reason}
 	}
 	text, j := n.Text, n.End
 	rest, ok := gaugeSuffix(t[j:])
 	if !ok {
-		return Gauge{}, &ValueError{Input: s, Offset: j, Reason: "no gauge mark: write the unit followed by (g), as in 40 kPa(g), or psig or barg"}
+		return Gauge{}, &Error{Op: OpParseValue, Input: s, Offset: j, Reason: "no gauge mark: write the unit followed by (g), as in 40 kPa(g), or psig or barg"}
 	}
 	v, err := ParseValue(text + " " + rest)
 	if err != nil {
 		return Gauge{}, err
 	}
 	if v.Unit.Dim() != quantity.Pressure {
-		return Gauge{}, &ValueError{Input: s, Offset: j, Reason: fmt.Sprintf("a gauge level must be a pressure, not %s", quantity.Describe(v.Unit.Dim()))}
+		return Gauge{}, &Error{Op: OpParseValue, Input: s, Offset: j, Reason: fmt.Sprintf("a gauge level must be a pressure, not %s", quantity.Describe(v.Unit.Dim()))}
 	}
 	return Gauge(v), nil
 }
@@ -115,7 +97,7 @@ func (g Gauge) String() string {
 // is refused.
 func (g Gauge) AppendText(b []byte) ([]byte, error) {
 	if math.IsNaN(g.Number) || math.IsInf(g.Number, 0) {
-		return b, &ValueError{Input: strconv.FormatFloat(g.Number, 'g', -1, 64), Reason: "a value that is not finite has no text form"}
+		return b, &Error{Op: OpFormat, Input: strconv.FormatFloat(g.Number, 'g', -1, 64), Reason: "a value that is not finite has no text form"}
 	}
 	return append(b, g.String()...), nil
 }
@@ -154,10 +136,10 @@ func (g Gauge) Sub(o Gauge) (quantity.Quantity, error) {
 
 func (g Gauge) check() error {
 	if g.Unit.Dim() != quantity.Pressure {
-		return &GaugeError{Input: g.String(), Reason: fmt.Sprintf("the unit of a gauge level must be a pressure, not %s", quantity.Describe(g.Unit.Dim()))}
+		return &Error{Op: OpGauge, Kind: ErrGauge, Input: g.String(), Reason: fmt.Sprintf("the unit of a gauge level must be a pressure, not %s", quantity.Describe(g.Unit.Dim()))}
 	}
 	if math.IsNaN(g.Number) || math.IsInf(g.Number, 0) {
-		return &GaugeError{Input: g.String(), Reason: "the gauge level is not a finite number"}
+		return &Error{Op: OpGauge, Kind: ErrGauge, Input: g.String(), Reason: "the gauge level is not a finite number"}
 	}
 	return nil
 }
@@ -172,14 +154,14 @@ func (g Gauge) Absolute(reference quantity.Quantity) (quantity.Quantity, error) 
 	}
 	r := reference.Value()
 	if reference.Dim() != quantity.Pressure {
-		return quantity.Quantity{}, &GaugeError{Input: g.String(), Reason: fmt.Sprintf("the reference must be an absolute pressure, not %s", quantity.Describe(reference.Dim()))}
+		return quantity.Quantity{}, &Error{Op: OpGauge, Kind: ErrGauge, Input: g.String(), Reason: fmt.Sprintf("the reference must be an absolute pressure, not %s", quantity.Describe(reference.Dim()))}
 	}
 	if !(r > 0) || math.IsInf(r, 0) {
-		return quantity.Quantity{}, &GaugeError{Input: g.String(), Reason: fmt.Sprintf("the reference %g Pa is not a finite positive absolute pressure", r)}
+		return quantity.Quantity{}, &Error{Op: OpGauge, Kind: ErrGauge, Input: g.String(), Reason: fmt.Sprintf("the reference %g Pa is not a finite positive absolute pressure", r)}
 	}
 	p := r + g.Relative().Value()
 	if !(p >= 0) || math.IsInf(p, 0) {
-		return quantity.Quantity{}, &GaugeError{Input: g.String(), Reason: fmt.Sprintf("with the reference %g Pa it is %g Pa absolute, below vacuum: check the sign and the reference", r, p)}
+		return quantity.Quantity{}, &Error{Op: OpGauge, Kind: ErrGauge, Input: g.String(), Reason: fmt.Sprintf("with the reference %g Pa it is %g Pa absolute, below vacuum: check the sign and the reference", r, p)}
 	}
 	return quantity.New(p, quantity.Pressure), nil
 }
@@ -190,13 +172,13 @@ func (g Gauge) Absolute(reference quantity.Quantity) (quantity.Quantity, error) 
 // positive.
 func GaugeOf(p, reference quantity.Quantity, u Unit) (Gauge, error) {
 	if p.Dim() != quantity.Pressure || reference.Dim() != quantity.Pressure || u.Dim() != quantity.Pressure {
-		return Gauge{}, &GaugeError{Input: fmt.Sprint(p), Reason: "the absolute pressure, the reference and the unit must all be pressures"}
+		return Gauge{}, &Error{Op: OpGauge, Kind: ErrGauge, Input: fmt.Sprint(p), Reason: "the absolute pressure, the reference and the unit must all be pressures"}
 	}
 	if r := reference.Value(); !(r > 0) || math.IsInf(r, 0) {
-		return Gauge{}, &GaugeError{Input: fmt.Sprint(p), Reason: fmt.Sprintf("the reference %g Pa is not a finite positive absolute pressure", r)}
+		return Gauge{}, &Error{Op: OpGauge, Kind: ErrGauge, Input: fmt.Sprint(p), Reason: fmt.Sprintf("the reference %g Pa is not a finite positive absolute pressure", r)}
 	}
 	if v := p.Value(); !(v >= 0) || math.IsInf(v, 0) {
-		return Gauge{}, &GaugeError{Input: fmt.Sprint(p), Reason: fmt.Sprintf("the absolute pressure %g Pa is not finite and at or above vacuum", v)}
+		return Gauge{}, &Error{Op: OpGauge, Kind: ErrGauge, Input: fmt.Sprint(p), Reason: fmt.Sprintf("the absolute pressure %g Pa is not finite and at or above vacuum", v)}
 	}
 	x, err := u.ValueOf(quantity.New(p.Value()-reference.Value(), quantity.Pressure))
 	if err != nil {

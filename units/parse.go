@@ -85,8 +85,8 @@ type parser struct {
 	terms terms
 }
 
-func (p *parser) fail(at int, kind error, reason string) *ParseError {
-	return &ParseError{Input: p.s, Offset: at, Err: kind, Reason: reason}
+func (p *parser) fail(at int, kind error, reason string) *Error {
+	return &Error{Op: OpParse, Input: p.s, Offset: at, Kind: kind, Reason: reason}
 }
 
 // parserPool recycles parsers and their term storage.
@@ -94,7 +94,7 @@ var parserPool = sync.Pool{New: func() any { return &parser{terms: make(terms, 0
 
 func parseWith(tab symbolTable, expr string) (Unit, error) {
 	if len(expr) > MaxExprLen {
-		return Unit{}, &ParseError{Input: expr[:MaxExprLen] + "…", Offset: MaxExprLen, Err: ErrTooLong, Reason: fmt.Sprintf("longer than %d bytes", MaxExprLen)}
+		return Unit{}, &Error{Op: OpParse, Input: expr[:MaxExprLen] + "…", Offset: MaxExprLen, Kind: ErrTooLong, Reason: fmt.Sprintf("longer than %d bytes", MaxExprLen)}
 	}
 	if !utf8.ValidString(expr) {
 		i := 0
@@ -105,7 +105,7 @@ func parseWith(tab symbolTable, expr string) (Unit, error) {
 			}
 			i += n
 		}
-		return Unit{}, &ParseError{Input: expr, Offset: i, Err: ErrSyntax, Reason: "invalid UTF-8"}
+		return Unit{}, &Error{Op: OpParse, Input: expr, Offset: i, Kind: ErrSyntax, Reason: "invalid UTF-8"}
 	}
 	p := parserPool.Get().(*parser)
 	defer parserPool.Put(p)
@@ -134,7 +134,9 @@ func (p *parser) unit(v val) (Unit, error) {
 		err = t.holdable(p.tab.lookup)
 	}
 	if err != nil {
-		return Unit{}, p.fail(0, ErrExponent, err.Error())
+		e := p.fail(0, ErrExponent, "")
+		e.Err = err
+		return Unit{}, e
 	}
 	u := Unit{dim: v.dim, factor: v.factor, angle: int8(v.angle), solid: int8(v.solid)}
 	u.setTerms(t)
@@ -436,7 +438,7 @@ func (p *parser) symbol() (val, error) {
 		return val{}, p.unknown(start, sym)
 	}
 	if e.ambiguous != "" {
-		return val{}, &ParseError{Input: p.s, Offset: start, Err: ErrAmbiguous, Symbol: sym, Reason: fmt.Sprintf("%q reads as %s; define it in a Table to say which is meant", sym, e.ambiguous)}
+		return val{}, &Error{Op: OpParse, Input: p.s, Offset: start, Kind: ErrAmbiguous, Symbol: sym, Reason: fmt.Sprintf("%q reads as %s; define it in a Table to say which is meant", sym, e.ambiguous)}
 	}
 	p.terms = append(p.terms, symTerm(e.sym, false))
 	v := val{

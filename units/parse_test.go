@@ -122,9 +122,9 @@ func TestMalformed(t *testing.T) {
 	}
 	for _, c := range cases {
 		_, err := units.Parse(c.expr)
-		var pe *units.ParseError
+		var pe *units.Error
 		if !errors.As(err, &pe) {
-			t.Errorf("Parse(%q): err = %v, want a *ParseError", c.expr, err)
+			t.Errorf("Parse(%q): err = %v, want a *units.Error", c.expr, err)
 			continue
 		}
 		if !errors.Is(err, c.err) || pe.Offset != c.offset {
@@ -145,7 +145,7 @@ func TestUnknownSuggestions(t *testing.T) {
 	}
 	for expr, want := range cases {
 		_, err := units.Parse(expr)
-		var pe *units.ParseError
+		var pe *units.Error
 		if !errors.As(err, &pe) {
 			t.Fatalf("Parse(%q): %v", expr, err)
 		}

@@ -138,7 +138,7 @@ func (u Unit) Format(style quantity.Style) string {
 }
 
 // unknown builds the error for an unknown symbol, with suggestions.
-func (p *parser) unknown(at int, sym string) *ParseError {
+func (p *parser) unknown(at int, sym string) *Error {
 	e := p.fail(at, ErrUnknownSymbol, strconv.Quote(sym))
 	e.Symbol = sym
 	// m2, s2: an exponent written without '^'.

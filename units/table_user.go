@@ -7,43 +7,10 @@ import (
 	"sync"
 	"sync/atomic"
 	"unicode/utf8"
-
-	"similis.dev/similis/quantity"
 )
 
-// ErrDefine is wrapped by every error Table.Define returns.
+// ErrDefine is the Kind of every error Table.Define returns.
 var ErrDefine = errors.New("cannot define unit")
-
-// DefineError reports a user definition that is refused.
-type DefineError struct {
-	Name   string
-	Reason string
-	Err    error // a *ParseError for a defining expression that does not parse
-}
-
-// Error implements the error interface.
-func (e *DefineError) Error() string {
-	if e.Err != nil {
-		return fmt.Sprintf("units: define %q: %v", e.Name, e.Err)
-	}
-	return fmt.Sprintf("units: define %q: %s", e.Name, e.Reason)
-}
-
-// Is reports whether target is quantity.ErrInvalid, the class of a
-// *DefineError refused for its name or its meaning. A definition whose
-// expression does not parse has the class of its parse error instead
-// (quantity.ErrParse, or quantity.ErrUnknown for an unknown symbol),
-// matched through Unwrap, so that every DefineError matches exactly one
-// class.
-func (e *DefineError) Is(target error) bool { return e.Err == nil && target == quantity.ErrInvalid }
-
-// Unwrap returns ErrDefine and the parse error, if any.
-func (e *DefineError) Unwrap() []error {
-	if e.Err != nil {
-		return []error{ErrDefine, e.Err}
-	}
-	return []error{ErrDefine}
-}
 
 // Table is a unit table the caller owns: the built-in units and the
 // caller's own definitions, such as a lab's TR for 12000 BTU/h or a rig's
@@ -83,30 +50,30 @@ func (t *Table) spellings() []string {
 // with or without an SI prefix. User units take no prefixes.
 func (t *Table) Define(name, expr string) error {
 	if name == "" || len(name) > 32 || !utf8.ValidString(name) {
-		return &DefineError{Name: name, Reason: "a name must be 1 to 32 bytes of valid UTF-8", Err: nil}
+		return &Error{Op: OpDefine, Kind: ErrDefine, Input: name, Reason: "a name must be 1 to 32 bytes of valid UTF-8", Err: nil}
 	}
 	for i, r := range name {
 		if i == 0 && !isSymbolStart(r) || i > 0 && !isSymbolRune(r) {
-			return &DefineError{Name: name, Reason: fmt.Sprintf("%q cannot appear in a unit name (letters, digits and _ only, starting with a letter)", r)}
+			return &Error{Op: OpDefine, Kind: ErrDefine, Input: name, Reason: fmt.Sprintf("%q cannot appear in a unit name (letters, digits and _ only, starting with a letter)", r)}
 		}
 		if i == 0 && (r == '%' || r == '′' || r == '″') && len(name) > utf8.RuneLen(r) {
-			return &DefineError{Name: name, Reason: fmt.Sprintf("%q stands alone as a symbol, so a name starting with it could never be read back", r)}
+			return &Error{Op: OpDefine, Kind: ErrDefine, Input: name, Reason: fmt.Sprintf("%q stands alone as a symbol, so a name starting with it could never be read back", r)}
 		}
 	}
 	u, err := parseWith(t, expr)
 	if err != nil {
-		return &DefineError{Name: name, Err: err}
+		return &Error{Op: OpDefine, Kind: ErrDefine, Input: name, Err: err}
 	}
 	if u.temp == tempScale {
-		return &DefineError{Name: name, Reason: "a temperature scale cannot be redefined; define an interval with Δ°C or K"}
+		return &Error{Op: OpDefine, Kind: ErrDefine, Input: name, Reason: "a temperature scale cannot be redefined; define an interval with Δ°C or K"}
 	}
 	t.mu.Lock()
 	defer t.mu.Unlock()
 	if _, ok := t.defs[name]; ok {
-		return &DefineError{Name: name, Reason: "already defined in this table"}
+		return &Error{Op: OpDefine, Kind: ErrDefine, Input: name, Reason: "already defined in this table"}
 	}
 	if e, ok := lookupIn(builtinIndex, name); ok && e.ambiguous == "" {
-		return &DefineError{Name: name, Reason: "already a built-in unit (or a prefixed one)"}
+		return &Error{Op: OpDefine, Kind: ErrDefine, Input: name, Reason: "already a built-in unit (or a prefixed one)"}
 	}
 	u = symbolUnit(u, name)
 	if u.temp != tempInterval {

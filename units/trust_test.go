@@ -52,9 +52,9 @@ func TestValueDigitGroups(t *testing.T) {
 	}
 	for _, c := range bad {
 		_, err := units.ParseValue(c.in)
-		var ve *units.ValueError
+		var ve *units.Error
 		if !errors.As(err, &ve) {
-			t.Errorf("ParseValue(%q) = %v, want a *ValueError", c.in, err)
+			t.Errorf("ParseValue(%q) = %v, want a *units.Error", c.in, err)
 			continue
 		}
 		if ve.Offset != c.offset {
@@ -88,7 +88,7 @@ func TestNumberAfterUnit(t *testing.T) {
 func TestAmbiguousPrefixed(t *testing.T) {
 	for _, sym := range []string{"PS", "kt", "pt", "Pt", "mt", "ct", "at"} {
 		_, err := units.Parse(sym)
-		var pe *units.ParseError
+		var pe *units.Error
 		if !errors.Is(err, units.ErrAmbiguous) || !errors.As(err, &pe) || pe.Symbol != sym {
 			t.Errorf("Parse(%q) = %v, want ErrAmbiguous naming the symbol", sym, err)
 		}

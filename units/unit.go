@@ -208,7 +208,7 @@ func (u Unit) Mul(o Unit) (Unit, error) {
 	u, o = u.norm(), o.norm()
 	d, err := u.dim.Mul(o.dim)
 	if err != nil {
-		return Unit{}, err
+		return Unit{}, &Error{Op: "multiply units", Err: err}
 	}
 	var bt [16]term
 	t, err := mergeTerms(append(bt[:0], u.terms()...), o.terms(), 1)
@@ -216,7 +216,7 @@ func (u Unit) Mul(o Unit) (Unit, error) {
 		err = t.holdable(builtinLookup)
 	}
 	if err != nil {
-		return Unit{}, &RangeError{Op: "multiply units", Reason: err.Error()}
+		return Unit{}, &Error{Class: quantity.ErrRange, Op: "multiply units", Err: err}
 	}
 	return newUnit("multiply units", Unit{dim: d, factor: u.factor * o.factor, angle: u.angle + o.angle, solid: u.solid + o.solid}, t, u, o)
 }
@@ -226,7 +226,7 @@ func (u Unit) Div(o Unit) (Unit, error) {
 	u, o = u.norm(), o.norm()
 	d, err := u.dim.Div(o.dim)
 	if err != nil {
-		return Unit{}, err
+		return Unit{}, &Error{Op: "divide units", Err: err}
 	}
 	var bt [16]term
 	t, err := mergeTerms(append(bt[:0], u.terms()...), o.terms(), -1)
@@ -234,7 +234,7 @@ func (u Unit) Div(o Unit) (Unit, error) {
 		err = t.holdable(builtinLookup)
 	}
 	if err != nil {
-		return Unit{}, &RangeError{Op: "divide units", Reason: err.Error()}
+		return Unit{}, &Error{Class: quantity.ErrRange, Op: "divide units", Err: err}
 	}
 	return newUnit("divide units", Unit{dim: d, factor: u.factor / o.factor, angle: u.angle - o.angle, solid: u.solid - o.solid}, t, u, o)
 }
@@ -247,37 +247,37 @@ const maxPowArg = 1 << 24
 // Pow returns u raised to num/den. Angles must keep whole exponents. The
 // result is one Parse reads back from its String: a power that takes a
 // symbol's exponent outside what Parse accepts (±MaxExpAbs, denominator at
-// most MaxExpDen) is refused with a *RangeError, as Parse refuses
+// most MaxExpDen) is refused with an *Error of class quantity.ErrRange, as Parse refuses
 // "%^62".
 func (u Unit) Pow(num, den int) (Unit, error) {
 	u = u.norm()
 	if den <= 0 {
-		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent %d/%d has a denominator that is not positive", num, den)}
+		return Unit{}, &Error{Class: quantity.ErrRange, Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent %d/%d has a denominator that is not positive", num, den)}
 	}
 	if num > maxPowArg || num < -maxPowArg || den > maxPowArg {
-		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent %d/%d is out of range (a unit's exponents lie within ±%d)", num, den, MaxExpAbs)}
+		return Unit{}, &Error{Class: quantity.ErrRange, Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent %d/%d is out of range (a unit's exponents lie within ±%d)", num, den, MaxExpAbs)}
 	}
 	num, den = reduce(num, den)
 	d, err := u.dim.Pow(num, den)
 	if err != nil {
-		return Unit{}, err
+		return Unit{}, &Error{Op: "raise a unit to a power", Err: err}
 	}
 	a, s := int(u.angle)*num, int(u.solid)*num
 	if a%den != 0 || s%den != 0 {
-		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("%s carries an angle, which cannot be raised to the power %s", u, ratText(num, den))}
+		return Unit{}, &Error{Class: quantity.ErrRange, Op: "raise a unit to a power", Reason: fmt.Sprintf("%s carries an angle, which cannot be raised to the power %s", u, ratText(num, den))}
 	}
 	var bt [16]term
 	t, bad, ok := u.terms().powTo(bt[:0], num, den)
 	if !ok {
-		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s, outside ±%d with denominator at most %d", bad.Name, bad.Exp, MaxExpAbs, MaxExpDen)}
+		return Unit{}, &Error{Class: quantity.ErrRange, Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s, outside ±%d with denominator at most %d", bad.Name, bad.Exp, MaxExpAbs, MaxExpDen)}
 	}
 	for _, x := range t {
 		if !x.number && 6%x.Exp.Den() != 0 {
-			return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s; a unit's exponents must be whole sixths, as its dimension's are", x.Name, x.Exp)}
+			return Unit{}, &Error{Class: quantity.ErrRange, Op: "raise a unit to a power", Reason: fmt.Sprintf("the exponent of %s would be %s; a unit's exponents must be whole sixths, as its dimension's are", x.Name, x.Exp)}
 		}
 	}
 	if err := t.holdable(builtinLookup); err != nil {
-		return Unit{}, &RangeError{Op: "raise a unit to a power", Reason: err.Error()}
+		return Unit{}, &Error{Class: quantity.ErrRange, Op: "raise a unit to a power", Err: err}
 	}
 	return newUnit("raise a unit to a power", Unit{dim: d, factor: math.Pow(u.factor, float64(num)/float64(den)), angle: int8(a / den), solid: int8(s / den)}, t, u)
 }
@@ -318,7 +318,7 @@ func withRole(r Unit, t terms, operands ...Unit) Unit {
 // checkFactor refuses a unit whose factor overflowed or underflowed.
 func checkFactor(op string, u Unit) (Unit, error) {
 	if !finite(u.factor) || u.factor == 0 {
-		return Unit{}, &RangeError{Op: op, Reason: fmt.Sprintf("the factor of %s to SI is out of the range of a float64", u)}
+		return Unit{}, &Error{Class: quantity.ErrRange, Op: op, Reason: fmt.Sprintf("the factor of %s to SI is out of the range of a float64", u)}
 	}
 	return u, nil
 }
@@ -329,14 +329,14 @@ func (u Unit) Of(v float64) quantity.Quantity {
 	return quantity.New(v*u.factor+u.offset, u.dim)
 }
 
-// ValueOf returns q's value in unit u. It reports a *ConversionError if q
+// ValueOf returns q's value in unit u. It reports an *Error of OpConvert if q
 // has another dimension. A Quantity carries no angle: its value is taken in
 // radians (and steradians), as in the SI, so an angular velocity read in
 // rpm is divided by 2π/60.
 func (u Unit) ValueOf(q quantity.Quantity) (float64, error) {
 	u = u.norm()
 	if q.Dim() != u.dim {
-		return 0, &ConversionError{FromDim: q.Dim(), To: u, Err: ErrIncompatible, Reason: "the dimensions differ"}
+		return 0, &Error{Op: OpConvert, FromDim: q.Dim(), To: u, Kind: ErrIncompatible, Reason: "the dimensions differ"}
 	}
 	return (q.Value() - u.offset) / u.factor, nil
 }

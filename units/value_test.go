@@ -47,7 +47,7 @@ func TestParseValue(t *testing.T) {
 		}
 	}
 	_, err := units.ParseValue("12 knots")
-	var pe *units.ParseError
+	var pe *units.Error
 	if !errors.As(err, &pe) || pe.Symbol != "knots" {
 		t.Errorf("ParseValue(12 knots): %v", err)
 	}
@@ -129,7 +129,7 @@ func TestConversionErrors(t *testing.T) {
 	}
 	for _, c := range cases {
 		_, err := units.Convert(1, c.from, c.to)
-		var ce *units.ConversionError
+		var ce *units.Error
 		if !errors.As(err, &ce) || !errors.Is(err, c.err) || !strings.Contains(err.Error(), c.text) {
 			t.Errorf("Convert(%q, %q): %v\nwant %v containing %q", c.from, c.to, err, c.err, c.text)
 		}
@@ -364,7 +364,7 @@ func TestFlagCheckedFromText(t *testing.T) {
 
 // TestPowRoundTrip checks that whatever Unit.Pow returns, Parse reads its
 // String back to the same unit and spelling, and that a power Parse would
-// refuse ("%^62") is refused by Pow, as a RangeError.
+// refuse ("%^62") is refused by Pow, as an *Error of class quantity.ErrRange.
 func TestPowRoundTrip(t *testing.T) {
 	if u, err := units.MustParse("%").Pow(62, 1); !errors.Is(err, quantity.ErrRange) {
 		t.Errorf("%%.Pow(62) = %v, %v; want an ErrRange error (Parse refuses %%^62)", u, err)
@@ -421,9 +421,9 @@ func TestParseDialectErrorClass(t *testing.T) {
 	}
 	for _, c := range cases {
 		_, _, err := units.ParseDialect(c.text)
-		var pe *units.ParseError
+		var pe *units.Error
 		if !errors.Is(err, c.class) || !errors.As(err, &pe) {
-			t.Errorf("ParseDialect(%q): %v, want a *ParseError matching %v", c.text, err, c.class)
+			t.Errorf("ParseDialect(%q): %v, want a *units.Error matching %v", c.text, err, c.class)
 			continue
 		}
 		for _, other := range []error{quantity.ErrParse, quantity.ErrUnknown, quantity.ErrRange, quantity.ErrInvalid, quantity.ErrDimension} {

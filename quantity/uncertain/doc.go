@@ -44,8 +44,8 @@
 // Dimensions are checked exactly as for Quantity: adding a pressure to a
 // velocity panics with a *quantity.DimensionError, and Eval turns the
 // panic into an error. A value depends on at most MaxTerms sources; an
-// operation that would exceed it panics with a *TermsError, which Eval
-// also returns. An operation whose result, or whose derivative with
+// operation that would exceed it panics with an *Error whose Terms is
+// set, which Eval also returns. An operation whose result, or whose derivative with
 // respect to an uncertain operand, is not a finite number — 1/0, the
 // logarithm of 0, √0 with an uncertainty, an overflow — panics with an
 // *Error of class quantity.ErrRange, which Eval returns too; no NaN or

@@ -53,6 +53,7 @@ func TestErrorClasses(t *testing.T) {
 		{"Add: same name", err2(set.Add(uncertain.Source{Name: "u", U: quantity.Scalar(1)})), quantity.ErrInvalid, nil},
 		{"Measure: wrong dimension", err2(set.Measure(quantity.New(1, quantity.Velocity), u)), quantity.ErrInvalid, nil},
 		{"Measure: unknown ID", err2(set.Measure(quantity.Scalar(1), 99)), quantity.ErrInvalid, nil},
+		{"Measure: too many sources", err2(set.Measure(quantity.Scalar(1), make([]uncertain.ID, uncertain.MaxTerms+1)...)), quantity.ErrInvalid, nil},
 		{"Measure: NaN", err2(set.Measure(quantity.Scalar(math.NaN()))), quantity.ErrInvalid, nil},
 		{"Measure: relative overflow", err2(set.Measure(quantity.Scalar(math.MaxFloat64), r2)), quantity.ErrRange, nil},
 		{"Correlate: r = 2", set.Correlate(u, r, 2), quantity.ErrInvalid, nil},
@@ -85,9 +86,8 @@ func TestErrorClasses(t *testing.T) {
 			t.Errorf("%s: %v does not keep its cause %v", c.name, c.err, c.cause)
 		}
 		var ue *uncertain.Error
-		var te *uncertain.TermsError
 		var de *quantity.DimensionError
-		if !errors.As(c.err, &ue) && !errors.As(c.err, &te) && !errors.As(c.err, &de) {
+		if !errors.As(c.err, &ue) && !errors.As(c.err, &de) {
 			t.Errorf("%s: %T is none of the package's error types", c.name, c.err)
 		}
 		if strings.Count(c.err.Error(), "uncertain:") > 1 {

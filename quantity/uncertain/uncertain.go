@@ -1,6 +1,7 @@
 package uncertain
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -104,14 +105,18 @@ type Set struct {
 func NewSet() *Set { return &Set{} }
 
 // Error reports a source, a measurement or an argument given wrongly, or
-// a result that would not be a finite number. Its class under errors.Is is
-// that of Err when Err is set — quantity.ErrRange for a number out of
-// range, or the class of the cause it wraps — and quantity.ErrInvalid
-// otherwise: every Error matches exactly one class.
+// a result that would not be a finite number. Its class under errors.Is
+// is Class when set (quantity.ErrRange for a number out of range), else
+// the class of the cause Err, else quantity.ErrInvalid: every Error
+// matches exactly one class. It is the package's one error type.
 type Error struct {
 	Source string // the source's name, if any
 	Reason string
-	Err    error // the cause, or the class quantity.ErrRange; nil for ErrInvalid
+	// Terms is, for a value that would depend on more than MaxTerms
+	// sources, the number of sources it would depend on; 0 otherwise.
+	Terms int
+	Class error // the class; nil for the cause's class or quantity.ErrInvalid
+	Err   error // the cause, if any
 }
 
 func (e *Error) Error() string {
@@ -121,23 +126,46 @@ func (e *Error) Error() string {
 		fmt.Fprintf(&sb, "source %q: ", e.Source)
 	}
 	sb.WriteString(e.Reason)
-	if e.Err != nil && e.Err != quantity.ErrRange {
+	if e.Err != nil {
 		sb.WriteString(": ")
 		sb.WriteString(strings.TrimPrefix(e.Err.Error(), "uncertain: "))
 	}
 	return sb.String()
 }
 
-// Is reports whether target is quantity.ErrInvalid, the class of an Error
-// without a cause.
-func (e *Error) Is(target error) bool { return e.Err == nil && target == quantity.ErrInvalid }
+// classes are the module's error classes an Error may have.
+var classes = [...]error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid}
+
+// class returns e's one class.
+func (e *Error) class() error {
+	if e.Class != nil {
+		return e.Class
+	}
+	if e.Err != nil {
+		for _, c := range classes {
+			if errors.Is(e.Err, c) {
+				return c
+			}
+		}
+	}
+	return quantity.ErrInvalid
+}
+
+// Is reports whether target is e's class.
+func (e *Error) Is(target error) bool { return target == e.class() }
 
 // Unwrap returns the cause, or nil.
 func (e *Error) Unwrap() error { return e.Err }
 
 // rangeError is an Error of class quantity.ErrRange.
 func rangeError(format string, args ...any) *Error {
-	return &Error{Reason: fmt.Sprintf(format, args...), Err: quantity.ErrRange}
+	return &Error{Reason: fmt.Sprintf(format, args...), Class: quantity.ErrRange}
+}
+
+// termsError is the Error of a value that would depend on n > MaxTerms
+// sources.
+func termsError(n int) *Error {
+	return &Error{Reason: fmt.Sprintf("a value depending on %d or more sources, more than %d", n, MaxTerms), Terms: n}
 }
 
 // finite reports whether x is neither NaN nor ±Inf.
@@ -236,7 +264,7 @@ func (s *Set) Measure(x quantity.Quantity, ids ...ID) (Measured, error) {
 		return Measured{}, &Error{Reason: fmt.Sprintf("value %v: want a finite value", x)}
 	}
 	if len(ids) > MaxTerms {
-		return Measured{}, &TermsError{N: len(ids)}
+		return Measured{}, termsError(len(ids))
 	}
 	for _, id := range ids {
 		if int(id) >= len(s.src) {
@@ -253,7 +281,7 @@ func (s *Set) Measure(x quantity.Quantity, ids ...ID) (Measured, error) {
 			d = src.U.Value()
 		}
 		if !finite(d) {
-			return Measured{}, &Error{Source: src.Name, Reason: fmt.Sprintf("value %v times the relative uncertainty %v overflows", x, src.U.Value()), Err: quantity.ErrRange}
+			return Measured{}, &Error{Source: src.Name, Reason: fmt.Sprintf("value %v times the relative uncertainty %v overflows", x, src.U.Value()), Class: quantity.ErrRange}
 		}
 		// Insert in order of ID; attaching a source twice adds its effect.
 		i := 0
@@ -263,7 +291,7 @@ func (s *Set) Measure(x quantity.Quantity, ids ...ID) (Measured, error) {
 		if i < int(m.n) && m.id[i] == id {
 			m.d[i] += d
 			if !finite(m.d[i]) {
-				return Measured{}, &Error{Source: src.Name, Reason: "attached again, its effect overflows", Err: quantity.ErrRange}
+				return Measured{}, &Error{Source: src.Name, Reason: "attached again, its effect overflows", Class: quantity.ErrRange}
 			}
 			continue
 		}
@@ -283,17 +311,6 @@ func (s *Set) MustMeasure(x quantity.Quantity, ids ...ID) Measured {
 	}
 	return m
 }
-
-// TermsError reports a value that would depend on more than MaxTerms
-// sources.
-type TermsError struct{ N int }
-
-func (e *TermsError) Error() string {
-	return fmt.Sprintf("uncertain: a value depending on %d or more sources, more than %d", e.N, MaxTerms)
-}
-
-// Is reports whether target is quantity.ErrInvalid.
-func (e *TermsError) Is(target error) bool { return target == quantity.ErrInvalid }
 
 // ErrSets is the error of combining values from two different Sets. It
 // is an *Error, of class quantity.ErrInvalid; errors that report two sets
@@ -429,7 +446,7 @@ func mergeTerms(z *Measured, v quantity.Quantity, a float64, x *Measured, b floa
 		}
 		return
 	case x.set != y.set:
-		panic(&setsError{})
+		panic(ErrSets)
 	case x.n == y.n && x.id == y.id:
 		// The same sources, the common case along a chain of operations.
 		z.set, z.n, z.id = x.set, x.n, x.id
@@ -443,7 +460,7 @@ func mergeTerms(z *Measured, v quantity.Quantity, a float64, x *Measured, b floa
 	xn, yn := int(x.n), int(y.n)
 	for i < xn && j < yn {
 		if k == MaxTerms {
-			panic(&TermsError{N: MaxTerms + 1})
+			panic(termsError(MaxTerms + 1))
 		}
 		xi, yj := x.id[i], y.id[j]
 		switch {
@@ -461,7 +478,7 @@ func mergeTerms(z *Measured, v quantity.Quantity, a float64, x *Measured, b floa
 		k++
 	}
 	if k+(xn-i)+(yn-j) > MaxTerms {
-		panic(&TermsError{N: k + (xn - i) + (yn - j)})
+		panic(termsError(k + (xn - i) + (yn - j)))
 	}
 	for ; i < xn; i++ {
 		z.id[k], z.d[k] = x.id[i], a*x.d[i]
@@ -490,13 +507,6 @@ func scale(v quantity.Quantity, a float64, x *Measured) (z Measured) {
 	}
 	return z
 }
-
-// setsError is the panic value for values of two sets; Eval returns it
-// as an error wrapping ErrSets.
-type setsError struct{}
-
-func (*setsError) Error() string { return ErrSets.Error() }
-func (*setsError) Unwrap() error { return ErrSets }
 
 // Domain errors. An operation whose result, or whose derivative with
 // respect to an uncertain operand, is not a finite number at the estimate
@@ -692,7 +702,7 @@ func Sin(m Measured) Measured { return scale(quantity.Sin(m.q), math.Cos(m.q.Val
 func Cos(m Measured) Measured { return scale(quantity.Cos(m.q), -math.Sin(m.q.Value()), &m) }
 
 // Eval runs a formula on Measured values and returns a dimension error,
-// a *TermsError, an error wrapping ErrSets, or an *Error of class
+// or an *Error — ErrSets, one with Terms set, or one of class
 // quantity.ErrRange (a result or a derivative that is not a finite
 // number) as an error instead of a panic. A result whose value or
 // uncertainty terms are not finite (an overflow along the way) is such
@@ -702,10 +712,6 @@ func Eval(formula func() Measured) (m Measured, err error) {
 		if r := recover(); r != nil {
 			switch e := r.(type) {
 			case *quantity.DimensionError:
-				err = e
-			case *TermsError:
-				err = e
-			case *setsError:
 				err = e
 			case *Error:
 				err = e

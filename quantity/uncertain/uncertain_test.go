@@ -267,8 +267,8 @@ func TestRefusals(t *testing.T) {
 		}
 		return sum
 	})
-	var te *uncertain.TermsError
-	if !errors.As(err, &te) {
+	var te *uncertain.Error
+	if !errors.As(err, &te) || te.Terms <= uncertain.MaxTerms || !errors.Is(err, quantity.ErrInvalid) {
 		t.Errorf("%d sources: %v", uncertain.MaxTerms+1, err)
 	}
 }

@@ -152,7 +152,7 @@ func TestFormulaFuncsRowOutOfRange(t *testing.T) {
 	T := quantity.NewSeries([]float64{288.15, 293.15, 323.15}, quantity.Temperature) // 50 °C at row 2
 	V := quantity.NewSeries([]float64{1, 1, 1}, quantity.Velocity)
 	err = p.Evaluator().Series([]quantity.Series{T, V}, [][]float64{make([]float64, 3)})
-	var re *formula.RangeError
+	var re *formula.Error
 	var fe *fluids.RangeError
 	if !errors.As(err, &re) || re.Row != 2 || re.Name != "nu" || !errors.As(err, &fe) || !errors.Is(err, quantity.ErrRange) {
 		t.Fatalf("got %v", err)

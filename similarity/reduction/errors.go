@@ -12,7 +12,7 @@ import (
 // there is one the line of a text file (or the data row), the point and
 // the channel or group concerned. Its class under errors.Is is that of
 // its cause (a *chanfile.Error of the reader, a *steady.Error, a
-// *formula.RangeError, an *uncertain.Error, …) when the cause has one,
+// *formula.Error, an *uncertain.Error, …) when the cause has one,
 // and quantity.ErrInvalid otherwise, so it matches exactly one class.
 type Error struct {
 	// Op is the step that failed: "plan" when the spec does not fit the

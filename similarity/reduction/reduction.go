@@ -548,7 +548,7 @@ func (r *run) derive(chunk []quantity.Series, out [][]float64, n, base int) erro
 		in[k] = chunk[j]
 	}
 	if err := r.ev.Series(in, out); err != nil {
-		var re *formula.RangeError
+		var re *formula.Error
 		if errors.As(err, &re) && re.Row >= 0 {
 			return r.fail(base+re.Row+1, &Error{Op: "derive", Channel: re.Name, Reason: "derived channel", Err: err})
 		}

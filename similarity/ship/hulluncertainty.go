@@ -242,8 +242,8 @@ func hullRun(r HullRun, g quantity.Quantity, res HullRunResult) (HullRunResult, 
 		formFactor: r.FormFactor, allowance: r.Allowance, g: g, line: r.Line,
 	})
 	if err != nil {
-		var te *uncertain.TermsError
-		if errors.As(err, &te) {
+		var te *uncertain.Error
+		if errors.As(err, &te) && te.Terms > 0 {
 			return HullRunResult{}, &Error{Op: "hull extrapolation with uncertainty", Fault: similarity.Invalid("", fmt.Sprintf("more than %d sources for one run: combine some before the extrapolation", uncertain.MaxTerms))}
 		}
 		var side *hullSide

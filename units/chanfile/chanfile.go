@@ -51,7 +51,7 @@ type Column struct {
 // 1; column 0 when the whole line is concerned). It matches exactly one
 // class of package quantity under errors.Is: the class of Err when Err
 // has one (an unknown unit in a header is quantity.ErrUnknown, with the
-// *units.ParseError reachable by errors.As); otherwise quantity.ErrRange
+// *units.Error reachable by errors.As); otherwise quantity.ErrRange
 // for a number outside float64 (a value that overflows or underflows),
 // quantity.ErrInvalid for a bad argument (an option, a series, a column
 // that cannot be written) or a failed read or write of the underlying

@@ -23,7 +23,7 @@ type Check uint8
 
 const (
 	// CheckFinite, the default, refuses a result that is not finite: the
-	// evaluation stops with a *RangeError naming the first row and, in
+	// evaluation stops with an *Error of OpCheck naming the first row and, in
 	// that row, the first statement whose result is not finite, and the
 	// operation that first gave a value that is not finite.
 	CheckFinite Check = iota
@@ -48,57 +48,6 @@ func (c Check) String() string {
 		return "Unchecked"
 	}
 	return "Check(" + strconv.Itoa(int(c)) + ")"
-}
-
-// RangeError reports a result that is not finite, where an Evaluator
-// checks them (CheckFinite): also the error of a function of the library
-// (Options.Funcs) at a row, such as a temperature outside a correlation's
-// range, and a solve whose bracket holds no root. It matches
-// quantity.ErrRange under errors.Is; when a function's error, in Err,
-// has a class of its own, it matches that class instead, through Unwrap.
-type RangeError struct {
-	Input     string  // the formula text
-	Row       int     // the row of the columns given to Series, from 0; −1 for Row, RowQ and Gradient
-	Statement int     // the statement, counting the statements of the text from 0 (the index of Outputs unless Options.Keep chose them)
-	Name      string  // the statement's name, "" for a bare expression
-	Value     float64 // the statement's result: +Inf, −Inf or NaN
-	Wrt       string  // for a derivative from Gradient, the input it is taken with respect to
-	Offset    int     // byte offset in Input of the operation that first gave a value that is not finite
-	Reason    string  // what that operation did: "division by zero", "logarithm of a negative number", …
-	Err       error   // the error of the function that failed, if one did
-}
-
-// Unwrap returns the error of the function that failed, if one did.
-func (e *RangeError) Unwrap() error { return e.Err }
-
-// Error implements the error interface. It counts rows and statements
-// from 1, as a reader does; the fields count from 0.
-func (e *RangeError) Error() string {
-	in := e.Input
-	if len(in) > 80 {
-		in = in[:80] + "…"
-	}
-	where := ""
-	if e.Row >= 0 {
-		where = fmt.Sprintf("row %d, ", e.Row+1)
-	}
-	what := "result"
-	if e.Name != "" {
-		what = e.Name
-	}
-	if e.Wrt != "" {
-		what = fmt.Sprintf("∂%s/∂%s", what, e.Wrt)
-	}
-	if e.Err != nil {
-		return fmt.Sprintf("formula %q: %sstatement %d (counting from 1): %s: at %d: %s", in, where, e.Statement+1, what, e.Offset, e.Reason)
-	}
-	return fmt.Sprintf("formula %q: %sstatement %d (counting from 1): %s is %v, not finite: at %d: %s", in, where, e.Statement+1, what, e.Value, e.Offset, e.Reason)
-}
-
-// Is reports whether target is quantity.ErrRange, the class of a
-// *RangeError whose cause has no class of its own.
-func (e *RangeError) Is(target error) bool {
-	return target == quantity.ErrRange && (e.Err == nil || !ownClass(e.Err))
 }
 
 // SetCheck sets what the evaluator does with a result that is not finite;
@@ -158,9 +107,9 @@ func (e *Evaluator) rowChecked(row int, res []float64) error {
 // registers r holding the row's values: it finds the first operation the
 // result depends on (taking the branch of if that was taken) that gave a
 // value that is not finite from operands that are.
-func (p *Program) rangeError(row, i int, r []float64) *RangeError {
+func (p *Program) rangeError(row, i int, r []float64) *Error {
 	o := p.outputs[i]
-	e := &RangeError{Input: p.src, Row: row, Statement: i, Name: o.name, Value: r[o.slot], Offset: o.pos}
+	e := &Error{Op: OpCheck, Class: quantity.ErrRange, Input: p.src, Row: row, Statement: i, Name: o.name, Value: r[o.slot], Offset: o.pos}
 	nIn := len(p.inputs)
 	if o.slot < nIn {
 		e.Reason = fmt.Sprintf("input %s is %v", p.inputs[o.slot].Name, r[o.slot])
@@ -191,6 +140,9 @@ func (p *Program) rangeError(row, i int, r []float64) *RangeError {
 		}
 		if op.code >= opFunc {
 			e.Reason, e.Err = p.whyCall(op, r)
+			if e.Err != nil {
+				e.Class = funcClass(e.Err)
+			}
 			return e
 		}
 		e.Reason = why(op, r)

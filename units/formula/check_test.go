@@ -27,7 +27,7 @@ func classesOf(err error) []error {
 }
 
 // TestNonFiniteRowRefused: by default a result that is not finite is a
-// *RangeError of class ErrRange naming the statement and the operation
+// *Error (OpCheck) of class ErrRange naming the statement and the operation
 // that gave it, never a number with a nil error.
 func TestNonFiniteRowRefused(t *testing.T) {
 	ins := []formula.Input{in("x", quantity.Dimensionless), in("D", quantity.Length)}
@@ -60,9 +60,9 @@ func TestNonFiniteRowRefused(t *testing.T) {
 			t.Fatalf("%q: %v", c.src, err)
 		}
 		got, err := p.Evaluator().Row([]float64{c.x, c.d}, make([]float64, len(p.Outputs())))
-		var re *formula.RangeError
+		var re *formula.Error
 		if !errors.As(err, &re) {
-			t.Errorf("%q at x = %v: %v, %v; want a *RangeError", c.src, c.x, got, err)
+			t.Errorf("%q at x = %v: %v, %v; want an *Error of OpCheck", c.src, c.x, got, err)
 			continue
 		}
 		if cl := classesOf(err); len(cl) != 1 || cl[0] != quantity.ErrRange {
@@ -74,7 +74,7 @@ func TestNonFiniteRowRefused(t *testing.T) {
 		// The same through RowQ.
 		_, err = p.Evaluator().RowQ([]quantity.Quantity{quantity.New(c.x, quantity.Dimensionless), quantity.New(c.d, quantity.Length)}, make([]quantity.Quantity, len(p.Outputs())))
 		if !errors.As(err, &re) {
-			t.Errorf("%q: RowQ gives %v, want a *RangeError", c.src, err)
+			t.Errorf("%q: RowQ gives %v, want an *Error of OpCheck", c.src, err)
 		}
 	}
 }
@@ -110,7 +110,7 @@ func TestNonFiniteSeriesFirstRowAndStatement(t *testing.T) {
 		}
 		dst := [][]float64{make([]float64, 1000), make([]float64, 1000), make([]float64, 1000)}
 		err := p.Evaluator().Series([]quantity.Series{quantity.NewSeries(x, quantity.Dimensionless)}, dst)
-		var re *formula.RangeError
+		var re *formula.Error
 		if !errors.As(err, &re) || re.Row != c.row || re.Statement != c.stmt || !errors.Is(err, quantity.ErrRange) {
 			t.Errorf("%v: %v; want row %d, statement %d", c.at, err, c.row, c.stmt)
 			continue
@@ -197,7 +197,7 @@ func TestGradientNonFinite(t *testing.T) {
 	ev := p.Evaluator()
 	out, grad := make([]float64, 1), [][]float64{make([]float64, 1)}
 	err = ev.Gradient([]float64{0}, out, grad)
-	var re *formula.RangeError
+	var re *formula.Error
 	if !errors.As(err, &re) || re.Wrt != "x" || re.Name != "s" || !errors.Is(err, quantity.ErrRange) {
 		t.Errorf("%v", err)
 	}

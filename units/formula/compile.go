@@ -118,7 +118,7 @@ func (o Options) Compile(src string, inputs ...Input) (*Program, error) {
 	}
 	for i, in := range inputs {
 		if _, dup := c.names[in.Name]; dup {
-			return nil, &Error{Input: src, Reason: fmt.Sprintf("input %q is given twice", in.Name), cls: quantity.ErrInvalid}
+			return nil, &Error{Op: OpCompile, Row: -1, Input: src, Reason: fmt.Sprintf("input %q is given twice", in.Name), Class: quantity.ErrInvalid}
 		}
 		c.names[in.Name] = i
 		c.dims[i] = in.Dim
@@ -137,7 +137,7 @@ func (o Options) Compile(src string, inputs ...Input) (*Program, error) {
 		}
 		if st.name != "" {
 			if _, exists := c.names[st.name]; exists {
-				return nil, &Error{Input: src, Offset: st.pos, Reason: fmt.Sprintf("%q is already defined", st.name), cls: quantity.ErrInvalid}
+				return nil, &Error{Op: OpCompile, Row: -1, Input: src, Offset: st.pos, Reason: fmt.Sprintf("%q is already defined", st.name), Class: quantity.ErrInvalid}
 			}
 			c.names[st.name] = slot
 		}
@@ -169,7 +169,7 @@ type typ struct {
 }
 
 func (c *compiler) dimErr(at int, format string, a ...any) error {
-	return &Error{Input: c.p.src, Offset: at, Reason: fmt.Sprintf(format, a...), Dimension: true}
+	return &Error{Op: OpCompile, Row: -1, Input: c.p.src, Offset: at, Reason: fmt.Sprintf(format, a...), Dimension: true}
 }
 
 // describe names a dimension with its kind and a unit: "pressure [Pa]".
@@ -248,7 +248,7 @@ func (c *compiler) expr(n *node) (int, typ, error) {
 			return c.out(op{code: opConst, k: math.Pi}, quantity.Dimensionless)
 		}
 		if !ok {
-			return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("unknown name %q: not an input and not assigned before", n.name), cls: quantity.ErrUnknown}
+			return 0, typ{}, &Error{Op: OpCompile, Row: -1, Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("unknown name %q: not an input and not assigned before", n.name), Class: quantity.ErrUnknown}
 		}
 		if !slices.Contains(c.refs, slot) {
 			c.refs = append(c.refs, slot)
@@ -303,9 +303,7 @@ func (c *compiler) expr(n *node) (int, typ, error) {
 			d, err = ta.Div(tb)
 		}
 		if err != nil {
-			e := c.dimErr(n.pos, "%v", err).(*Error)
-			e.Err = err
-			return 0, typ{}, e
+			return 0, typ{}, &Error{Op: OpCompile, Row: -1, Input: c.p.src, Offset: n.pos, Dimension: true, Class: causeClass(err, quantity.ErrDimension), Err: err}
 		}
 		return c.out(op{code: code, a: a, b: b}, d)
 	case kPow:
@@ -350,7 +348,7 @@ func (c *compiler) expr(n *node) (int, typ, error) {
 	case kCall:
 		return c.call(n)
 	}
-	return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: "unknown construct", cls: quantity.ErrInvalid}
+	return 0, typ{}, &Error{Op: OpCompile, Row: -1, Input: c.p.src, Offset: n.pos, Reason: "unknown construct", Class: quantity.ErrInvalid}
 }
 
 func (c *compiler) slotDim(slot int) quantity.Dim {
@@ -379,10 +377,10 @@ func (c *compiler) call(n *node) (int, typ, error) {
 		want = 1
 	}
 	if want == 0 {
-		return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("unknown function %q", n.name), cls: quantity.ErrUnknown}
+		return 0, typ{}, &Error{Op: OpCompile, Row: -1, Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("unknown function %q", n.name), Class: quantity.ErrUnknown}
 	}
 	if len(n.args) != want {
-		return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("%s takes %d arguments, not %d", n.name, want, len(n.args))}
+		return 0, typ{}, &Error{Op: OpCompile, Row: -1, Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("%s takes %d arguments, not %d", n.name, want, len(n.args))}
 	}
 	var slots [3]int
 	var types [3]typ

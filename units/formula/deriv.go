@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"similis.dev/similis/internal/exact"
+	"similis.dev/similis/quantity"
 )
 
 // Gradient evaluates the program for one row of input values, in SI in
@@ -15,7 +16,7 @@ import (
 // uncertainty budget needs. At a point where an operation is not
 // differentiable (abs at 0, min or max at a tie, a branch of if) the
 // derivative of the branch taken is used. A value or a derivative that is
-// not finite is a *RangeError, or marked missing, as the evaluator's Check
+// not finite is an *Error of OpCheck, or marked missing, as the evaluator's Check
 // says; the derivatives of a missing value are not checked.
 func (e *Evaluator) Gradient(in, out []float64, grad [][]float64) error {
 	p := e.p
@@ -64,7 +65,7 @@ func (e *Evaluator) Gradient(in, out []float64, grad [][]float64) error {
 				continue
 			}
 			if e.check != MarkMissing {
-				return &RangeError{Input: p.src, Row: -1, Statement: s, Name: o.name, Value: x, Wrt: p.inputs[j].Name, Offset: o.pos,
+				return &Error{Op: OpCheck, Class: quantity.ErrRange, Input: p.src, Row: -1, Statement: s, Name: o.name, Value: x, Wrt: p.inputs[j].Name, Offset: o.pos,
 					Reason: "the derivative is not finite (a square root, a cube root or a fractional power at zero, asin or acos at ±1, a solve whose equation is flat at its root, or an overflow)"}
 			}
 			g[j] = math.NaN()

@@ -45,7 +45,7 @@
 //
 // A call is checked against those dimensions when the text is compiled.
 // At a row where the function fails (a temperature outside a
-// correlation's range) the Evaluator reports a *RangeError naming the row
+// correlation's range) the Evaluator reports an *Error of OpCheck naming the row
 // and the statement, with the function's error in its Err field. The
 // package keeps no registry of functions: the caller chooses them, and
 // package fluids supplies the fluid properties in this form.
@@ -63,7 +63,7 @@
 // The root is found by Brent's method, in at most 200 evaluations of the
 // equation, to a few units in the last place. A bracket whose ends give
 // the equation one sign, an equation that is not finite in the bracket, or
-// ends that are not in order, is a *RangeError for that row. A solve may
+// ends that are not in order, is an *Error of OpCheck for that row. A solve may
 // not hold another solve. Gradient differentiates the root exactly, by the
 // implicit function theorem.
 //
@@ -93,7 +93,7 @@
 // outside [−1, 1], a fractional power of a negative number — or where the
 // value is beyond the range of float64 (D*D*D at D = 1e200 m, exp(1000)).
 // Such a result is never a number with a nil error: by default an
-// Evaluator stops with a *RangeError (class quantity.ErrRange) naming the
+// Evaluator stops with an *Error of OpCheck (class quantity.ErrRange) naming the
 // first row and, in it, the first statement whose result is not finite,
 // and the operation that gave it. By the explicit option MarkMissing
 // (Evaluator.SetCheck) it instead sets the result to NaN, the mark of a

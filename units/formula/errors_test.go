@@ -24,10 +24,13 @@ func TestErrorsOneClass(t *testing.T) {
 	}
 	row := []float64{1e5, 0, 2}
 	asForm := func(err error) bool { var e *formula.Error; return errors.As(err, &e) }
-	asUnit := func(err error) bool { var e *units.ParseError; return errors.As(err, &e) }
+	asUnit := func(err error) bool { var e *units.Error; return errors.As(err, &e) }
 	asDim := func(err error) bool { var e *quantity.DimensionError; return errors.As(err, &e) }
-	asEval := func(err error) bool { var e *formula.EvalError; return errors.As(err, &e) }
-	asRange := func(err error) bool { var e *formula.RangeError; return errors.As(err, &e) }
+	asEval := func(err error) bool {
+		var e *formula.Error
+		return errors.As(err, &e) && e.Op == formula.OpEvaluate && e.Row == -1
+	}
+	asRange := func(err error) bool { var e *formula.Error; return errors.As(err, &e) && e.Op == formula.OpCheck }
 	cases := []struct {
 		name  string
 		err   error
@@ -49,7 +52,10 @@ func TestErrorsOneClass(t *testing.T) {
 		{"input twice", func() error { _, err := formula.Compile("p", in("p", 0), in("p", 0)); return err }(), quantity.ErrInvalid, nil},
 	}
 	for i := range cases[:13] {
-		cases[i].as = append(cases[i].as, asForm)
+		cases[i].as = append(cases[i].as, func(err error) bool {
+			var e *formula.Error
+			return errors.As(err, &e) && e.Op == formula.OpCompile && e.Row == -1
+		})
 	}
 	ev := prog.Evaluator()
 	_, errCount := ev.Row(row[:2], make([]float64, 1))
@@ -75,6 +81,11 @@ func TestErrorsOneClass(t *testing.T) {
 		{"Gradient not finite", errGrad, quantity.ErrRange, []func(error) bool{asRange}},
 	}...)
 	for _, c := range cases {
+		c.as = append(c.as, asForm) // the package's one error type
+		var fe *formula.Error
+		if errors.As(c.err, &fe) && fe.Err != nil && strings.Contains(fe.Reason, fe.Err.Error()) {
+			t.Errorf("%s: the reason %q repeats the cause as text", c.name, fe.Reason)
+		}
 		for _, err := range []error{c.err, fmt.Errorf("reading run 7: %w", c.err)} {
 			if cl := classesOf(err); len(cl) != 1 || cl[0] != c.class {
 				t.Errorf("%s: %v matches %v, want %v alone", c.name, err, cl, c.class)

@@ -3,38 +3,14 @@ package formula
 import (
 	"fmt"
 	"math"
-	"strings"
 
 	"similis.dev/similis/internal/exact"
 	"similis.dev/similis/quantity"
 )
 
-// EvalError reports values that do not fit a program: a wrong count, a
-// column of another length or dimension. It matches quantity.ErrInvalid,
-// or through Unwrap the dimension error that caused it.
-type EvalError struct {
-	Reason string
-	Err    error
-}
-
-// Error implements the error interface.
-func (e *EvalError) Error() string { return "formula: " + e.Reason }
-
-// Unwrap returns the dimension error, if that was the problem.
-func (e *EvalError) Unwrap() error { return e.Err }
-
-// Is reports whether target is quantity.ErrInvalid (for a wrong count or
-// length; a wrong dimension matches quantity.ErrDimension through Unwrap).
-func (e *EvalError) Is(target error) bool { return e.Err == nil && target == quantity.ErrInvalid }
-
+// evalErr is an OpEvaluate Error of class quantity.ErrInvalid.
 func evalErr(format string, a ...any) error {
-	var cause error
-	for _, x := range a {
-		if err, ok := x.(error); ok {
-			cause = err
-		}
-	}
-	return &EvalError{Reason: fmt.Sprintf(strings.ReplaceAll(format, "%w", "%v"), a...), Err: cause}
+	return &Error{Op: OpEvaluate, Row: -1, Reason: fmt.Sprintf(format, a...), Class: quantity.ErrInvalid}
 }
 
 // block is the number of rows an Evaluator works on at a time.
@@ -85,7 +61,7 @@ func (p *Program) Evaluator() *Evaluator {
 // Row evaluates the program for one row of input values, given in SI in
 // the order of the inputs, and writes the results, in the order of
 // Outputs, into out, which it returns. A result that is not finite is
-// a *RangeError, or marked missing, as the evaluator's Check says; a NaN
+// an *Error of OpCheck, or marked missing, as the evaluator's Check says; a NaN
 // input is a missing value.
 func (e *Evaluator) Row(in []float64, out []float64) ([]float64, error) {
 	p := e.p
@@ -131,7 +107,7 @@ func (e *Evaluator) row(in []float64, out []float64) error {
 }
 
 // RowQ is Row for quantities: each input's dimension is checked (a
-// wrong one is an *EvalError wrapping the *quantity.DimensionError), and
+// wrong one is an *Error of OpEvaluate wrapping the *quantity.DimensionError), and
 // results that are not finite are treated as the evaluator's Check says.
 func (e *Evaluator) RowQ(in []quantity.Quantity, out []quantity.Quantity) ([]quantity.Quantity, error) {
 	p := e.p
@@ -141,7 +117,7 @@ func (e *Evaluator) RowQ(in []quantity.Quantity, out []quantity.Quantity) ([]qua
 	vals := e.in
 	for i, q := range in {
 		if err := q.CheckNamed(p.inputs[i].Name, p.inputs[i].Dim); err != nil {
-			return nil, &EvalError{Reason: fmt.Sprintf("input %q: %v", p.inputs[i].Name, err), Err: err}
+			return nil, &Error{Op: OpEvaluate, Row: -1, Reason: fmt.Sprintf("input %q", p.inputs[i].Name), Class: causeClass(err, quantity.ErrInvalid), Err: err}
 		}
 		vals[i] = q.Value()
 	}
@@ -245,7 +221,7 @@ func scalar(o op, r []float64) float64 {
 // into dst[i], which must have the columns' length. Dimensions and
 // lengths are checked once; the work is done in blocks of rows, without
 // allocating. A NaN in a column is a missing value: the results that use
-// it are NaN. Any other result that is not finite is a *RangeError naming
+// it are NaN. Any other result that is not finite is an *Error of OpCheck naming
 // the first such row and statement, or is marked missing, as the
 // evaluator's Check says; after an error, dst holds the results of the
 // rows before that row.
@@ -257,7 +233,7 @@ func (e *Evaluator) Series(cols []quantity.Series, dst [][]float64) error {
 	n := -1
 	for i, c := range cols {
 		if err := c.Check(p.inputs[i].Dim); err != nil {
-			return evalErr("column %q: %w", p.inputs[i].Name, err)
+			return &Error{Op: OpEvaluate, Row: -1, Reason: fmt.Sprintf("column %q", p.inputs[i].Name), Class: causeClass(err, quantity.ErrInvalid), Err: err}
 		}
 		if n >= 0 && c.Len() != n {
 			return evalErr("column %q has %d values, the others %d", p.inputs[i].Name, c.Len(), n)

@@ -263,8 +263,8 @@ func TestMalformed(t *testing.T) {
 			t.Errorf("%q: %v, want a *formula.Error", c.src, err)
 			continue
 		}
-		if !strings.Contains(fe.Reason, c.want) || fe.Offset != c.offset {
-			t.Errorf("%q: offset %d, %q; want offset %d and %q", c.src, fe.Offset, fe.Reason, c.offset, c.want)
+		if !strings.Contains(fe.Error(), c.want) || fe.Offset != c.offset {
+			t.Errorf("%q: offset %d, %q; want offset %d and %q", c.src, fe.Offset, fe.Error(), c.offset, c.want)
 		}
 		if !errors.Is(err, c.class) {
 			t.Errorf("%q: %v is not of class %v", c.src, err, c.class)

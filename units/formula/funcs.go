@@ -1,7 +1,6 @@
 package formula
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"slices"
@@ -19,7 +18,7 @@ import (
 // result in SI. It must not keep args, and it is called from one goroutine
 // per Evaluator. An argument outside the range where the function is
 // defined (a correlation's temperature range) is an error, which an
-// Evaluator reports with the row and the statement (see RangeError); such
+// Evaluator reports with the row and the statement (see Error, OpCheck); such
 // an error should match quantity.ErrRange under errors.Is. A function is
 // never called with a missing (NaN) argument: its result is then missing.
 // An error, or a result that is not finite, is treated as any result that
@@ -63,7 +62,7 @@ func builtin(name string) bool {
 func (c *compiler) library(fs []Func) error {
 	fs = slices.Clone(fs)
 	bad := func(format string, a ...any) error {
-		return &Error{Input: c.p.src, Reason: fmt.Sprintf(format, a...), cls: quantity.ErrInvalid}
+		return &Error{Op: OpCompile, Row: -1, Input: c.p.src, Reason: fmt.Sprintf(format, a...), Class: quantity.ErrInvalid}
 	}
 	for i := range fs {
 		f := &fs[i]
@@ -101,9 +100,9 @@ func (c *compiler) keep(names []string) error {
 		k := slices.IndexFunc(c.p.outputs, func(o output) bool { return o.name == name && name != "" })
 		switch {
 		case k < 0:
-			return &Error{Input: c.p.src, Reason: fmt.Sprintf("Keep names %q, which no statement assigns", name), cls: quantity.ErrUnknown}
+			return &Error{Op: OpCompile, Row: -1, Input: c.p.src, Reason: fmt.Sprintf("Keep names %q, which no statement assigns", name), Class: quantity.ErrUnknown}
 		case slices.Contains(c.p.kept, k):
-			return &Error{Input: c.p.src, Reason: fmt.Sprintf("Keep names %q twice", name), cls: quantity.ErrInvalid}
+			return &Error{Op: OpCompile, Row: -1, Input: c.p.src, Reason: fmt.Sprintf("Keep names %q twice", name), Class: quantity.ErrInvalid}
 		}
 		c.p.kept = append(c.p.kept, k)
 	}
@@ -124,26 +123,11 @@ type call struct {
 }
 
 // funcClass is the class of a function's error: its own, or ErrRange.
-func funcClass(err error) error {
-	if c := classOf(err); c != quantity.ErrParse || errors.Is(err, quantity.ErrParse) {
-		return c
-	}
-	return quantity.ErrRange
-}
-
-// ownClass reports whether err matches a class other than ErrRange.
-func ownClass(err error) bool {
-	for _, c := range []error{quantity.ErrDimension, quantity.ErrUnknown, quantity.ErrInvalid, quantity.ErrParse} {
-		if errors.Is(err, c) {
-			return true
-		}
-	}
-	return false
-}
+func funcClass(err error) error { return causeClass(err, quantity.ErrRange) }
 
 func (c *compiler) callFunc(n *node, f *Func) (int, typ, error) {
 	if len(n.args) != len(f.Args) {
-		return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("%s takes %d arguments, not %d", f.Name, len(f.Args), len(n.args))}
+		return 0, typ{}, &Error{Op: OpCompile, Row: -1, Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("%s takes %d arguments, not %d", f.Name, len(f.Args), len(n.args))}
 	}
 	slots := make([]int, len(n.args))
 	known := true
@@ -169,10 +153,10 @@ func (c *compiler) callFunc(n *node, f *Func) (int, typ, error) {
 		}
 		v, err := f.Eval(args)
 		if err != nil {
-			return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("%s: %v", f.Name, err), Err: err, cls: funcClass(err)}
+			return 0, typ{}, &Error{Op: OpCompile, Row: -1, Input: c.p.src, Offset: n.pos, Reason: f.Name, Err: err, Class: funcClass(err)}
 		}
 		if !finite(v) {
-			return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("%s gives %v, not a finite number", f.Name, v), cls: quantity.ErrRange}
+			return 0, typ{}, &Error{Op: OpCompile, Row: -1, Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("%s gives %v, not a finite number", f.Name, v), Class: quantity.ErrRange}
 		}
 		return c.out(op{code: opConst, k: v}, f.Result)
 	}
@@ -184,10 +168,10 @@ func (c *compiler) callFunc(n *node, f *Func) (int, typ, error) {
 // solveExpr compiles solve(x, lhs = rhs, lo, hi).
 func (c *compiler) solveExpr(n *node) (int, typ, error) {
 	if c.solve {
-		return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: "a solve inside the equation of a solve", cls: quantity.ErrInvalid}
+		return 0, typ{}, &Error{Op: OpCompile, Row: -1, Input: c.p.src, Offset: n.pos, Reason: "a solve inside the equation of a solve", Class: quantity.ErrInvalid}
 	}
 	if _, exists := c.names[n.name]; exists || n.name == "pi" || n.name == "π" {
-		return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("the unknown %q of solve is already a name: choose another", n.name), cls: quantity.ErrInvalid}
+		return 0, typ{}, &Error{Op: OpCompile, Row: -1, Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("the unknown %q of solve is already a name: choose another", n.name), Class: quantity.ErrInvalid}
 	}
 	k := len(n.args)
 	var ends [2]int
@@ -234,7 +218,7 @@ func (c *compiler) solveExpr(n *node) (int, typ, error) {
 		made[o.dst] = true
 	}
 	if !uses {
-		return 0, typ{}, &Error{Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("the equation of solve does not contain the unknown %q", n.name), cls: quantity.ErrInvalid}
+		return 0, typ{}, &Error{Op: OpCompile, Row: -1, Input: c.p.src, Offset: n.pos, Reason: fmt.Sprintf("the equation of solve does not contain the unknown %q", n.name), Class: quantity.ErrInvalid}
 	}
 	c.p.calls = append(c.p.calls, cl)
 	c.pos = n.pos
@@ -429,7 +413,7 @@ func (p *Program) whyCall(o op, r []float64) (string, error) {
 	if o.code == opFunc {
 		v, err := p.call(o, r, fargs)
 		if err != nil {
-			return fmt.Sprintf("%s: %v", c.fn.Name, err), err
+			return c.fn.Name, err
 		}
 		if math.IsNaN(v) {
 			v, _ = c.fn.Eval(fargs[:len(c.args)])

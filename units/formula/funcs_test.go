@@ -93,7 +93,7 @@ func TestFuncCompileErrors(t *testing.T) {
 	}
 }
 
-// TestFuncOutOfRangeRow: a function's error at a row is a *RangeError
+// TestFuncOutOfRangeRow: a function's error at a row is an *Error (OpCheck)
 // with that row and statement, wrapping the function's error, in Row,
 // Series, and MarkMissing marks it.
 func TestFuncOutOfRangeRow(t *testing.T) {
@@ -105,12 +105,12 @@ func TestFuncOutOfRangeRow(t *testing.T) {
 	col := quantity.NewSeries([]float64{1, 2, 6, 3}, quantity.Length) // 2·6 = 12 m > 10 m at row 2
 	dst := [][]float64{make([]float64, 4), make([]float64, 4)}
 	err = ev.Series([]quantity.Series{col}, dst)
-	var re *formula.RangeError
+	var re *formula.Error
 	if !errors.As(err, &re) || re.Row != 2 || re.Statement != 1 || re.Name != "A" {
 		t.Fatalf("got %v (%#v)", err, re)
 	}
 	var oe *errOutOfRange
-	if !errors.As(err, &oe) || oe.x != 12 || !strings.Contains(err.Error(), "row 3") || !strings.Contains(re.Reason, "sq: x = 12") {
+	if !errors.As(err, &oe) || oe.x != 12 || !strings.Contains(err.Error(), "row 3") || !strings.Contains(err.Error(), "sq: x = 12") {
 		t.Errorf("the cause is lost: %v", err)
 	}
 	if cl := classesOf(err); len(cl) != 1 || cl[0] != quantity.ErrRange {
@@ -190,7 +190,7 @@ func TestSolveColebrook(t *testing.T) {
 	}
 }
 
-// TestSolveRefusals: no root in the bracket is a *RangeError naming the
+// TestSolveRefusals: no root in the bracket is an *Error (OpCheck) naming the
 // row; a bracket of two dimensions, sides of two dimensions, an unknown
 // that is already a name or absent from the equation are refused at
 // compile time.
@@ -202,7 +202,7 @@ func TestSolveRefusals(t *testing.T) {
 	}
 	dst := [][]float64{make([]float64, 3)}
 	err = p.Evaluator().Series([]quantity.Series{quantity.NewSeries([]float64{4, 2, -1}, quantity.Dimensionless), quantity.NewSeries([]float64{1, 1, 1}, quantity.Length)}, dst)
-	var re *formula.RangeError
+	var re *formula.Error
 	if !errors.As(err, &re) || re.Row != 2 || !strings.Contains(re.Reason, "no root is bracketed") {
 		t.Fatalf("got %v", err)
 	}
@@ -271,7 +271,7 @@ func TestKeep(t *testing.T) {
 	}
 	// An intermediate that is not finite is still refused, with its statement.
 	p, _ = formula.Options{Keep: []string{"y"}}.Compile("k = 1/x; y = if(x > 0, k, 0)", in("x", quantity.Dimensionless))
-	var re *formula.RangeError
+	var re *formula.Error
 	if _, err := p.Evaluator().Row([]float64{0}, make([]float64, 1)); !errors.As(err, &re) || re.Name != "k" || re.Statement != 0 {
 		t.Errorf("got %v", err)
 	}

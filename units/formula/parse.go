@@ -22,33 +22,88 @@ const (
 	MaxDepth = 64      // nesting of parentheses and calls
 )
 
-// Error reports a formula that cannot be read or does not compile: the
-// text, the byte offset of the mistake and the reason. It matches exactly
-// one class under errors.Is: quantity.ErrDimension for a dimension
-// mistake, quantity.ErrUnknown for a name or function that is not known,
-// quantity.ErrRange for a text beyond the limits (MaxLen, MaxNodes,
-// MaxDepth) or a number that is not finite, quantity.ErrInvalid for a name
-// defined twice, and quantity.ErrParse for text that cannot be read. When
-// another package's error caused it (a unit that cannot be read, an
-// exponent of a dimension that overflows), Err holds that error, Unwrap
-// returns it and the class is the cause's.
+// Error is the package's one error type. Op says what failed:
+//
+//   - OpCompile: a formula that cannot be read or does not compile — the
+//     text, the byte offset of the mistake and the reason;
+//   - OpEvaluate: values that do not fit a program — a wrong count, a
+//     column of another length or dimension;
+//   - OpCheck: a result that is not finite, where an Evaluator checks them
+//     (CheckFinite), also the error of a function of the library
+//     (Options.Funcs) at a row, such as a temperature outside a
+//     correlation's range, and a solve whose bracket holds no root — the
+//     row, the statement, its value and the operation that first gave a
+//     value that is not finite.
+//
+// It matches exactly one class under errors.Is, in Class, and the class is
+// the cause's when the cause has one: quantity.ErrDimension for a
+// dimension mistake, quantity.ErrUnknown for a name or function that is
+// not known, quantity.ErrRange for a text beyond the limits (MaxLen,
+// MaxNodes, MaxDepth), a number or a result that is not finite,
+// quantity.ErrInvalid for a name defined twice or values that do not fit,
+// and quantity.ErrParse for text that cannot be read. When another
+// package's error caused it (a unit that cannot be read, a function that
+// refused its arguments), Err holds that error and Unwrap returns it.
 type Error struct {
-	Input     string
-	Offset    int
-	Reason    string
-	Dimension bool  // a dimension mistake rather than a syntax one
-	Err       error // the cause, when another package reported it
-
-	cls error // the class, when not ErrParse or ErrDimension
+	Op        string  // OpCompile, OpEvaluate or OpCheck
+	Input     string  // the formula text ("" for OpEvaluate)
+	Offset    int     // byte offset in Input of the mistake, or of the operation that first gave a value that is not finite
+	Reason    string  // what was wrong: "division by zero", "unknown name \"x\"…", …
+	Dimension bool    // a dimension mistake rather than a syntax one (OpCompile)
+	Row       int     // OpCheck: the row of the columns given to Series, from 0; −1 for Row, RowQ, Gradient and the other operations
+	Statement int     // OpCheck: the statement, counting the statements of the text from 0 (the index of Outputs unless Options.Keep chose them)
+	Name      string  // OpCheck: the statement's name, "" for a bare expression
+	Value     float64 // OpCheck: the statement's result: +Inf, −Inf or NaN
+	Wrt       string  // OpCheck: for a derivative from Gradient, the input it is taken with respect to
+	Class     error   // the class; nil for quantity.ErrDimension if Dimension is set, else quantity.ErrParse
+	Err       error   // the cause, when another package reported it
 }
 
-// Error implements the error interface.
+// The operations an Error reports.
+const (
+	OpCompile  = "compile"
+	OpEvaluate = "evaluate"
+	OpCheck    = "check"
+)
+
+// Error implements the error interface. It counts rows and statements
+// from 1, as a reader does; the fields count from 0.
 func (e *Error) Error() string {
 	in := e.Input
 	if len(in) > 80 {
 		in = in[:80] + "…"
 	}
-	return fmt.Sprintf("formula %q: at %d: %s", in, e.Offset, e.Reason)
+	var msg string
+	switch e.Op {
+	case OpEvaluate:
+		msg = "formula: " + e.Reason
+	case OpCheck:
+		where := ""
+		if e.Row >= 0 {
+			where = fmt.Sprintf("row %d, ", e.Row+1)
+		}
+		what := "result"
+		if e.Name != "" {
+			what = e.Name
+		}
+		if e.Wrt != "" {
+			what = fmt.Sprintf("∂%s/∂%s", what, e.Wrt)
+		}
+		if e.Err != nil {
+			msg = fmt.Sprintf("formula %q: %sstatement %d (counting from 1): %s: at %d: %s", in, where, e.Statement+1, what, e.Offset, e.Reason)
+		} else {
+			msg = fmt.Sprintf("formula %q: %sstatement %d (counting from 1): %s is %v, not finite: at %d: %s", in, where, e.Statement+1, what, e.Value, e.Offset, e.Reason)
+		}
+	default:
+		msg = fmt.Sprintf("formula %q: at %d: %s", in, e.Offset, e.Reason)
+	}
+	if e.Err != nil {
+		if e.Reason != "" {
+			msg += ": "
+		}
+		msg += e.Err.Error()
+	}
+	return msg
 }
 
 // Unwrap returns the cause, if another package reported it.
@@ -61,22 +116,23 @@ func (e *Error) Is(target error) bool { return target == e.class() }
 // ErrUnknown, ErrRange, ErrInvalid and ErrParse.
 func (e *Error) class() error {
 	switch {
-	case e.cls != nil:
-		return e.cls
+	case e.Class != nil:
+		return e.Class
 	case e.Dimension:
 		return quantity.ErrDimension
 	}
 	return quantity.ErrParse
 }
 
-// classOf returns the one class of a cause from another package.
-func classOf(err error) error {
-	for _, c := range []error{quantity.ErrDimension, quantity.ErrUnknown, quantity.ErrRange, quantity.ErrInvalid} {
-		if errors.Is(err, c) {
+// causeClass returns the class of cause if it has one of the module's
+// classes, and def otherwise.
+func causeClass(cause, def error) error {
+	for _, c := range []error{quantity.ErrDimension, quantity.ErrUnknown, quantity.ErrRange, quantity.ErrInvalid, quantity.ErrParse} {
+		if errors.Is(cause, c) {
 			return c
 		}
 	}
-	return quantity.ErrParse
+	return def
 }
 
 type kind uint8
@@ -123,21 +179,21 @@ type parser struct {
 }
 
 func (p *parser) fail(at int, format string, a ...any) error {
-	return &Error{Input: p.src, Offset: at, Reason: fmt.Sprintf(format, a...)}
+	return &Error{Op: OpCompile, Row: -1, Input: p.src, Offset: at, Reason: fmt.Sprintf(format, a...)}
 }
 
 // failRange reports text beyond a limit, or a number out of range.
 func (p *parser) failRange(at int, format string, a ...any) error {
-	return &Error{Input: p.src, Offset: at, Reason: fmt.Sprintf(format, a...), cls: quantity.ErrRange}
+	return &Error{Op: OpCompile, Row: -1, Input: p.src, Offset: at, Reason: fmt.Sprintf(format, a...), Class: quantity.ErrRange}
 }
 
 // parseText reads the statements of a formula text.
 func parseText(src string) ([]stmt, error) {
 	if len(src) > MaxLen {
-		return nil, &Error{Input: src[:64], Offset: MaxLen, Reason: fmt.Sprintf("the text is longer than %d bytes", MaxLen), cls: quantity.ErrRange}
+		return nil, &Error{Op: OpCompile, Row: -1, Input: src[:64], Offset: MaxLen, Reason: fmt.Sprintf("the text is longer than %d bytes", MaxLen), Class: quantity.ErrRange}
 	}
 	if !utf8.ValidString(src) {
-		return nil, &Error{Input: strings.ToValidUTF8(src, "\uFFFD"), Offset: 0, Reason: "the text is not valid UTF-8"}
+		return nil, &Error{Op: OpCompile, Row: -1, Input: strings.ToValidUTF8(src, "\uFFFD"), Offset: 0, Reason: "the text is not valid UTF-8"}
 	}
 	p := &parser{src: src}
 	var out []stmt
@@ -680,11 +736,11 @@ func (p *parser) number() (*node, error) {
 		v, err := units.ParseValue(text + " " + unitText)
 		if err != nil {
 			// The unit's own error, so that the error has one class.
-			var ve *units.ValueError
-			if errors.As(err, &ve) && ve.Err != nil {
+			var ve *units.Error
+			if errors.As(err, &ve) && ve.Op == units.OpParseValue && ve.Err != nil {
 				err = ve.Err
 			}
-			return nil, &Error{Input: p.src, Offset: p.i + 1, Reason: fmt.Sprintf("the unit {%s}: %v", unitText, err), Err: err, cls: classOf(err)}
+			return nil, &Error{Op: OpCompile, Row: -1, Input: p.src, Offset: p.i + 1, Reason: fmt.Sprintf("the unit {%s}", unitText), Err: err, Class: causeClass(err, quantity.ErrParse)}
 		}
 		q := v.Quantity()
 		n.val, n.dim = q.Value(), q.Dim()

@@ -30,7 +30,7 @@ const MaxColumns = chanfile.MaxColumns
 // among the file's top-level columns, whichever are read; 0 when the
 // whole file or row is concerned). It matches exactly one class of
 // package quantity under errors.Is: the class of Err when Err has one (an
-// unknown unit is quantity.ErrUnknown, with the *units.ParseError
+// unknown unit is quantity.ErrUnknown, with the *units.Error
 // reachable by errors.As); otherwise quantity.ErrRange for a number
 // outside float64 (an infinite value, an overflow or underflow in SI, an
 // integer not exact as a float64), quantity.ErrInvalid for a bad argument

@@ -200,8 +200,8 @@ func TestErrorsInOneClass(t *testing.T) {
 		class error
 		cause any
 	}{
-		{"unknown unit", foreign(t, []bare{{1}}, UnitKey+"V", "furlongs"), Options{}, quantity.ErrUnknown, new(*units.ParseError)},
-		{"unknown unit in options", foreign(t, []bare{{1}}), Options{Units: map[string]string{"V": "blorps"}}, quantity.ErrUnknown, new(*units.ParseError)},
+		{"unknown unit", foreign(t, []bare{{1}}, UnitKey+"V", "furlongs"), Options{}, quantity.ErrUnknown, new(*units.Error)},
+		{"unknown unit in options", foreign(t, []bare{{1}}), Options{Units: map[string]string{"V": "blorps"}}, quantity.ErrUnknown, new(*units.Error)},
 		{"no unit", foreign(t, []bare{{1}}), Options{}, quantity.ErrParse, new(*chanfile.Error)},
 		{"gauge without reference", foreign(t, []bare{{1}}, UnitKey+"V", "psig"), Options{}, quantity.ErrInvalid, nil},
 		{"options name no column", valid, Options{Units: map[string]string{"W": "m"}}, quantity.ErrInvalid, nil},
