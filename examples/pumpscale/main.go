@@ -196,7 +196,7 @@ func evaluateReport(w io.Writer, args []string) (Report, error) {
 		}
 		etas[i] = eta.Value()
 	}
-	step, err := turbo.MoodyCurve(etas, turbo.Diameters{Model: dModel, Prototype: dProto}, *moody, turbo.StepUpAtBEP)
+	step, err := turbo.MoodyCurve(etas, turbo.Diameters{Model: dModel, Prototype: dProto}, turbo.MoodyStepUpOptions{Exponent: *moody}, turbo.StepUpAtBEP)
 	if err != nil {
 		return Report{}, err
 	}

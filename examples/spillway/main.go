@@ -200,7 +200,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	if r.Manning, err = hydraulic.ManningRatio(1 / *scale); err != nil {
 		return nil, err
 	}
-	if r.ManningCheck, err = hydraulic.ModelManningCheck(*protoN, r.Manning); err != nil {
+	if r.ManningCheck, err = hydraulic.ModelManningCheck(q.New(*protoN, hydraulic.ManningDim), r.Manning); err != nil {
 		return nil, err
 	}
 	fmt.Fprintf(w, "\nroughness: Manning n ratio λ_L^(1/6) = %.4f (a prototype n of %g s·m^(−1/3) needs a model n of %.3g)\n", r.Manning, *protoN, r.ManningCheck.Value)

@@ -301,22 +301,37 @@ func ParticleReynoldsCheck(reStar float64) (ScaleCheck, error) {
 // 0.009 for lucite and 0.010 for glass, from memory).
 const SmoothestModelManning = 0.009
 
+// ManningDim is the dimension of Manning's n, L^(−1/3)·T (s·m^(−1/3) in
+// SI), the dimension ModelManningCheck requires of the prototype's n.
+var ManningDim = func() quantity.Dim {
+	d, err := quantity.ParseDim("T L^(-1/3)")
+	if err != nil {
+		panic(err)
+	}
+	return d
+}()
+
 // ModelManningCheck returns the Manning n a model needs, the prototype's
-// protoN (s·m^(−1/3)) times the roughness ratio nRatio (ManningRatio, or
+// protoN (a Quantity of dimension ManningDim, s·m^(−1/3)) times the
+// dimensionless roughness ratio nRatio (ManningRatio, or
 // Distorted.Manning), checked against SmoothestModelManning: a model that
 // needs a smoother surface than model materials reach fails, with a
-// warning that its friction will be too large.
-func ModelManningCheck(protoN, nRatio float64) (ScaleCheck, error) {
+// warning that its friction will be too large. A protoN of another
+// dimension is an ErrDimension.
+func ModelManningCheck(protoN quantity.Quantity, nRatio float64) (ScaleCheck, error) {
 	m := func(r string) error {
 		return &Error{Op: "model roughness check", Fault: similarity.Invalid("", r)}
 	}
-	if !(protoN > 0) || math.IsInf(protoN, 0) {
-		return ScaleCheck{}, m(fmt.Sprintf("prototype Manning n %v: want positive and finite", protoN))
+	if err := protoN.CheckNamed("prototype Manning n", ManningDim); err != nil {
+		return ScaleCheck{}, err
+	}
+	if pn := protoN.Value(); !(pn > 0) || math.IsInf(pn, 0) {
+		return ScaleCheck{}, m(fmt.Sprintf("prototype Manning n %v s·m^(−1/3): want positive and finite", pn))
 	}
 	if !(nRatio > 0) || math.IsInf(nRatio, 0) {
 		return ScaleCheck{}, m(fmt.Sprintf("Manning ratio %v: want positive and finite", nRatio))
 	}
-	n := protoN * nRatio
+	n := protoN.Value() * nRatio
 	if err := fail("model roughness check", similarity.CheckResults(true, similarity.Result{Name: "model Manning n", Value: n})); err != nil {
 		return ScaleCheck{}, err
 	}

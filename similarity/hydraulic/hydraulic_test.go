@@ -144,7 +144,7 @@ func ExampleWeirLimits() {
 func ExampleModelManningCheck() {
 	r, _ := hydraulic.ManningRatio(1.0 / 30)
 	for _, n := range []float64{0.014, 0.030} {
-		c, err := hydraulic.ModelManningCheck(n, r)
+		c, err := hydraulic.ModelManningCheck(quantity.New(n, hydraulic.ManningDim), r)
 		if err != nil {
 			fmt.Println(err)
 			return

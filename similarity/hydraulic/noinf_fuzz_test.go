@@ -41,7 +41,7 @@ func FuzzHydraulic(f *testing.F) {
 		finite("SedimentFor", err, sd.Shear, sd.Grain, sd.ReStar)
 		pc, err := hydraulic.ParticleReynoldsCheck(e)
 		finite("ParticleReynoldsCheck", err, pc.Value, pc.Limit)
-		mc, err := hydraulic.ModelManningCheck(a, k)
+		mc, err := hydraulic.ModelManningCheck(q.New(a, hydraulic.ManningDim), k)
 		finite("ModelManningCheck", err, mc.Value, mc.Limit)
 		mr, err := hydraulic.ManningRatio(h)
 		finite("ManningRatio", err, mr)

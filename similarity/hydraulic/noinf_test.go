@@ -68,7 +68,7 @@ func TestHydraulicNoSilentInf(t *testing.T) {
 		{"Shields, g = MaxFloat64", shields(1, 1e-3, maxF), q.ErrRange},
 		{"sediment scales, 1e-300 across and 1e300 deep", sediment(tiny, big, 1, 1), q.ErrRange},
 		{"sediment scales, λ_Δ = λ_ν = 1e-300", sediment(1, 1, tiny, tiny), q.ErrRange},
-		{"model Manning n, 1e300 × 1e300", func() error { _, err := hydraulic.ModelManningCheck(big, big); return err }(), q.ErrRange},
+		{"model Manning n, 1e300 × 1e300", func() error { _, err := hydraulic.ModelManningCheck(q.New(big, hydraulic.ManningDim), big); return err }(), q.ErrRange},
 		{"particle Reynolds check of NaN", func() error { _, err := hydraulic.ParticleReynoldsCheck(math.NaN()); return err }(), q.ErrInvalid},
 	} {
 		if c.err == nil {
@@ -96,7 +96,7 @@ func TestModelManningCheck(t *testing.T) {
 	if math.Abs(r-0.567301) > 1e-6 {
 		t.Fatalf("hand ratio %v", r)
 	}
-	c, err := hydraulic.ModelManningCheck(0.014, r)
+	c, err := hydraulic.ModelManningCheck(q.New(0.014, hydraulic.ManningDim), r)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -104,11 +104,11 @@ func TestModelManningCheck(t *testing.T) {
 		!strings.Contains(c.String(), "FAILS: no model material is this smooth") {
 		t.Errorf("1:30, n = 0.014: %+v\n%v", c, c)
 	}
-	if c, err = hydraulic.ModelManningCheck(0.030, r); err != nil || math.Abs(c.Value-0.017019) > 1e-6 || !c.Pass || c.Warning != "" {
+	if c, err = hydraulic.ModelManningCheck(q.New(0.030, hydraulic.ManningDim), r); err != nil || math.Abs(c.Value-0.017019) > 1e-6 || !c.Pass || c.Warning != "" {
 		t.Errorf("1:30, n = 0.030: %+v, %v", c, err)
 	}
 	d := math.Pow(1.0/30, 2.0/3) / math.Sqrt(1.0/120)
-	if c, err = hydraulic.ModelManningCheck(0.014, d); err != nil || math.Abs(c.Value-0.015884) > 1e-6 || !c.Pass {
+	if c, err = hydraulic.ModelManningCheck(q.New(0.014, hydraulic.ManningDim), d); err != nil || math.Abs(c.Value-0.015884) > 1e-6 || !c.Pass {
 		t.Errorf("distorted: %+v, %v (ratio %v)", c, err, d)
 	}
 }
@@ -140,5 +140,18 @@ func TestHydraulicStructureCaution(t *testing.T) {
 				t.Errorf("%s caution lacks %q: %s", name, want, c)
 			}
 		}
+	}
+}
+
+// TestModelManningCheckDimension: the prototype's n is a Quantity of
+// dimension L^(−1/3)·T; a bare length (a roughness height in m, a common
+// mix-up with Manning's n) is an ErrDimension, not a model n.
+func TestModelManningCheckDimension(t *testing.T) {
+	if got := hydraulic.ManningDim.String(); got != "L^(-1/3) T" {
+		t.Errorf("ManningDim = %q, want L^(-1/3) T", got)
+	}
+	_, err := hydraulic.ModelManningCheck(q.New(0.014, q.Length), 0.5673)
+	if !errors.Is(err, q.ErrDimension) || oneClass(err) != q.ErrDimension {
+		t.Errorf("a length as Manning n: %v, want ErrDimension alone", err)
 	}
 }

@@ -22,7 +22,7 @@ func TestFiniteOrError(t *testing.T) {
 			return err
 		}()},
 		{"Moody with NaN exponent", func() error {
-			_, err := turbo.MoodyStepUp(0.8, turbo.Diameters{Model: q.New(0.2, q.Length), Prototype: q.New(1, q.Length)}, nan)
+			_, err := turbo.MoodyStepUp(0.8, turbo.Diameters{Model: q.New(0.2, q.Length), Prototype: q.New(1, q.Length)}, turbo.MoodyStepUpOptions{Exponent: nan})
 			return err
 		}()},
 	}

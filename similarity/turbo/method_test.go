@@ -18,14 +18,14 @@ func TestMoodyCurve(t *testing.T) {
 	dm, dp := q.New(0.25, q.Length), q.New(1.0, q.Length)
 	k := math.Pow(0.25, 0.2) // 0.757858
 	gain := (1 - 0.86) * (1 - k)
-	at, err := turbo.MoodyCurve(etas, turbo.Diameters{Model: dm, Prototype: dp}, 0, turbo.StepUpAtBEP)
+	at, err := turbo.MoodyCurve(etas, turbo.Diameters{Model: dm, Prototype: dp}, turbo.MoodyStepUpOptions{}, turbo.StepUpAtBEP)
 	if err != nil {
 		t.Fatal(err)
 	}
 	if at.BEP != 2 || math.Abs(at.Gain-gain) > 1e-15 {
 		t.Errorf("BEP %d, gain %v; want 2, %v", at.BEP, at.Gain, gain)
 	}
-	each, _ := turbo.MoodyCurve(etas, turbo.Diameters{Model: dm, Prototype: dp}, 0, turbo.StepUpEachPoint)
+	each, _ := turbo.MoodyCurve(etas, turbo.Diameters{Model: dm, Prototype: dp}, turbo.MoodyStepUpOptions{}, turbo.StepUpEachPoint)
 	for i, e := range etas {
 		if math.Abs(at.Efficiency[i]-(e+gain)) > 1e-15 {
 			t.Errorf("at BEP, point %d: %v", i, at.Efficiency[i])
@@ -39,7 +39,7 @@ func TestMoodyCurve(t *testing.T) {
 	if d := each.Efficiency[0] - etas[0]; math.Abs(d-0.5*(1-k)) > 1e-15 || d < 3*gain {
 		t.Errorf("part-load gain %v", d)
 	}
-	if _, err := turbo.MoodyCurve([]float64{0.8, 1.2}, turbo.Diameters{Model: dm, Prototype: dp}, 0, turbo.StepUpAtBEP); err == nil {
+	if _, err := turbo.MoodyCurve([]float64{0.8, 1.2}, turbo.Diameters{Model: dm, Prototype: dp}, turbo.MoodyStepUpOptions{}, turbo.StepUpAtBEP); err == nil {
 		t.Error("efficiency 1.2 accepted")
 	}
 }

@@ -25,7 +25,7 @@ func FuzzRules(f *testing.F) {
 		if af, err := turbo.AffinityLaws(turbo.AffinityScales{RotationalSpeed: a, Diameter: b, Density: c}); err == nil {
 			finite("AffinityLaws", af.Flow, af.Head, af.Power, af.Torque)
 		}
-		if eta, err := turbo.MoodyStepUp(a, turbo.Diameters{Model: q.New(b, q.Length), Prototype: q.New(c, q.Length)}, 0.2); err == nil {
+		if eta, err := turbo.MoodyStepUp(a, turbo.Diameters{Model: q.New(b, q.Length), Prototype: q.New(c, q.Length)}, turbo.MoodyStepUpOptions{Exponent: 0.2}); err == nil {
 			finite("MoodyStepUp", eta)
 		}
 	})

@@ -15,12 +15,21 @@ type Diameters struct {
 	Model, Prototype quantity.Quantity // D_m, D_p
 }
 
+// MoodyStepUpOptions holds the choices of Moody's step-up formula. It is a struct, not
+// a bare number, so that the exponent cannot be passed where the
+// efficiency belongs (both lie in 0 … 1).
+type MoodyStepUpOptions struct {
+	// Exponent is n in (D_m/D_p)^n, within 0 … 1; 1/5 if zero.
+	Exponent float64
+}
+
 // MoodyStepUp carries a model pump or turbine efficiency to the
 // prototype by Moody's formula, η_p = 1 − (1 − η_m)·(D_m/D_p)^n, with
-// n = 1/5 if exponent is zero (L. F. Moody, 1925). It is an estimate;
+// n = opt.Exponent, 1/5 if zero (L. F. Moody, 1925). It is an estimate;
 // acceptance tests follow the applicable standard (IEC 60193 for
 // hydraulic machines).
-func MoodyStepUp(etaModel float64, d Diameters, exponent float64) (float64, error) {
+func MoodyStepUp(etaModel float64, d Diameters, opt MoodyStepUpOptions) (float64, error) {
+	exponent := opt.Exponent
 	dModel, dProto := d.Model, d.Prototype
 	m := func(r string) error {
 		return &Error{Op: "Moody step-up", Fault: similarity.Invalid("", r)}
@@ -88,12 +97,12 @@ type StepUp struct {
 // MoodyCurve steps up a model efficiency curve by Moody's formula (see
 // MoodyStepUp) with the chosen method; the result says which. The
 // efficiencies must lie strictly between 0 and 1.
-func MoodyCurve(etaModel []float64, d Diameters, exponent float64, method StepUpMethod) (StepUp, error) {
+func MoodyCurve(etaModel []float64, d Diameters, opt MoodyStepUpOptions, method StepUpMethod) (StepUp, error) {
 	out, err := newStepUp("Moody step-up", etaModel, method)
 	if err != nil {
 		return StepUp{}, err
 	}
-	bep, err := MoodyStepUp(etaModel[out.BEP], d, exponent)
+	bep, err := MoodyStepUp(etaModel[out.BEP], d, opt)
 	if err != nil {
 		return StepUp{}, err
 	}
@@ -103,7 +112,7 @@ func MoodyCurve(etaModel []float64, d Diameters, exponent float64, method StepUp
 		case StepUpAtBEP:
 			out.Efficiency[i] = e + out.Gain
 		case StepUpEachPoint:
-			if out.Efficiency[i], err = MoodyStepUp(e, d, exponent); err != nil {
+			if out.Efficiency[i], err = MoodyStepUp(e, d, opt); err != nil {
 				return StepUp{}, err
 			}
 		default:
