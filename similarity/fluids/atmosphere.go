@@ -56,7 +56,7 @@ func Geopotential(z quantity.Quantity) (quantity.Quantity, error) {
 		return quantity.Quantity{}, err
 	}
 	if v := z.Value(); !(v > -earthR/2 && v < 10*earthR) {
-		return quantity.Quantity{}, &RangeError{Fluid: "ISO 2533 atmosphere", What: "geometric altitude (m)", Value: v, Lo: -earthR / 2, Hi: 10 * earthR}
+		return quantity.Quantity{}, &RangeError{Fluid: "ISO 2533 atmosphere", What: "geometric altitude", Value: v, Lo: -earthR / 2, Hi: 10 * earthR, Unit: "m"}
 	}
 	return quantity.New(geopotential(z.Value()), quantity.Length), nil
 }
@@ -89,7 +89,7 @@ func StandardAtmosphere(h quantity.Quantity, kind Altitude) (State, error) {
 
 func standardAtmosphere(H float64) (State, error) {
 	if !(H >= -2000 && H <= maxAltGP) {
-		return State{}, &RangeError{Fluid: "ISO 2533 atmosphere", What: "geopotential altitude (m)", Value: H, Lo: -2000, Hi: maxAltGP}
+		return State{}, &RangeError{Fluid: "ISO 2533 atmosphere", What: "geopotential altitude", Value: H, Lo: -2000, Hi: maxAltGP, Unit: "m"}
 	}
 	p := p0
 	var T float64

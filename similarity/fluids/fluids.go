@@ -34,13 +34,23 @@ var ErrRange = quantity.ErrRange
 // RangeError reports a temperature, pressure or altitude out of range.
 type RangeError struct {
 	Fluid, What string
-	Value       float64
-	Lo, Hi      float64
+	// Value is the refused value and Lo … Hi the range it must lie in,
+	// all three in Unit.
+	Value  float64
+	Lo, Hi float64
+	// Unit is the unit of Value, Lo and Hi ("K", "°C", "Pa", "g/kg"),
+	// printed after each; empty for a dimensionless value (a Mach
+	// number, a ratio, a mole fraction).
+	Unit string
 }
 
-// Error implements the error interface.
+// Error implements the error interface: "fluids: fresh water:
+// temperature 45 °C outside 0 … 40 °C".
 func (e *RangeError) Error() string {
-	return fmt.Sprintf("fluids: %s: %s %g outside %g … %g", e.Fluid, e.What, e.Value, e.Lo, e.Hi)
+	if e.Unit == "" {
+		return fmt.Sprintf("fluids: %s: %s %g outside %g … %g", e.Fluid, e.What, e.Value, e.Lo, e.Hi)
+	}
+	return fmt.Sprintf("fluids: %s: %s %g %s outside %g … %g %s", e.Fluid, e.What, e.Value, e.Unit, e.Lo, e.Hi, e.Unit)
 }
 
 // Is reports whether target is quantity.ErrRange, the class of a
@@ -55,10 +65,10 @@ func check(T, p quantity.Quantity) error {
 		return err
 	}
 	if t := T.Value(); !(t > 0) || math.IsInf(t, 0) {
-		return &RangeError{Fluid: "state", What: "thermodynamic temperature (K)", Value: t, Lo: 0, Hi: math.Inf(1)}
+		return &RangeError{Fluid: "state", What: "thermodynamic temperature", Value: t, Lo: 0, Hi: math.Inf(1), Unit: "K"}
 	}
 	if pr := p.Value(); !(pr > 0) || math.IsInf(pr, 0) {
-		return &RangeError{Fluid: "state", What: "absolute pressure (Pa)", Value: pr, Lo: 0, Hi: math.Inf(1)}
+		return &RangeError{Fluid: "state", What: "absolute pressure", Value: pr, Lo: 0, Hi: math.Inf(1), Unit: "Pa"}
 	}
 	return nil
 }
@@ -68,19 +78,19 @@ func check(T, p quantity.Quantity) error {
 func finiteState(fluid string, s State) (State, error) {
 	for _, x := range []quantity.Quantity{s.Density, s.DynamicViscosity, s.KinematicViscosity} {
 		if v := x.Value(); !(v > 0) || math.IsInf(v, 0) {
-			return State{}, &RangeError{Fluid: fluid, What: "state (temperature, pressure) giving " + quantity.Describe(x.Dim()), Value: v, Lo: 0, Hi: math.Inf(1)}
+			return State{}, &RangeError{Fluid: fluid, What: "state (temperature, pressure) giving " + quantity.Describe(x.Dim()), Value: v, Lo: 0, Hi: math.Inf(1), Unit: x.Dim().SIUnit()}
 		}
 	}
 	if v := s.SpeedOfSound.Value(); !(v >= 0) || math.IsInf(v, 0) {
-		return State{}, &RangeError{Fluid: fluid, What: "state giving a speed of sound", Value: v, Lo: 0, Hi: math.Inf(1)}
+		return State{}, &RangeError{Fluid: fluid, What: "state giving a speed of sound", Value: v, Lo: 0, Hi: math.Inf(1), Unit: "m/s"}
 	}
 	return s, nil
 }
 
 // positive checks that a fluid's parameter is positive and finite.
-func positive(fluid, what string, x float64) error {
+func positive(fluid, what, unit string, x float64) error {
 	if !(x > 0) || math.IsInf(x, 0) {
-		return &RangeError{Fluid: fluid, What: what, Value: x, Lo: 0, Hi: math.Inf(1)}
+		return &RangeError{Fluid: fluid, What: what, Value: x, Lo: 0, Hi: math.Inf(1), Unit: unit}
 	}
 	return nil
 }
@@ -99,7 +109,7 @@ func state(T, p, rho, mu, a float64) State {
 // Water is liquid water, fresh (Salinity 0) or sea water (Salinity in
 // g/kg), between 0 and 40 °C at pressures near atmospheric.
 type Water struct {
-	// Salinity in g/kg; 0 for fresh water.
+	// Salinity is the absolute salinity (g/kg); 0 for fresh water.
 	Salinity float64
 }
 
@@ -229,10 +239,10 @@ func (w Water) At(T, p quantity.Quantity) (State, error) {
 	}
 	t := T.Value() - 273.15
 	if !(t >= 0 && t <= 40) {
-		return State{}, &RangeError{Fluid: w.Name(), What: "temperature (°C)", Value: t, Lo: 0, Hi: 40}
+		return State{}, &RangeError{Fluid: w.Name(), What: "temperature", Value: t, Lo: 0, Hi: 40, Unit: "°C"}
 	}
 	if !(w.Salinity >= 0 && w.Salinity <= 45) {
-		return State{}, &RangeError{Fluid: w.Name(), What: "salinity (g/kg)", Value: w.Salinity, Lo: 0, Hi: 45}
+		return State{}, &RangeError{Fluid: w.Name(), What: "salinity", Value: w.Salinity, Lo: 0, Hi: 45, Unit: "g/kg"}
 	}
 	rho, mu := w.properties(t)
 	return state(T.Value(), p.Value(), rho.V, mu.V, 0), nil
@@ -254,18 +264,32 @@ func (w Water) AtCelsius(t float64) (State, error) {
 // LowestTemperature). A zero bound, or NoSaturation, is not checked: a
 // caller's own gas states its own range.
 type IdealGas struct {
+	// GasName names the gas in messages.
 	GasName string
-	R       float64 // specific gas constant, J/(kg·K)
-	Gamma   float64 // ratio of specific heats
-	Beta    float64 // Sutherland's constant β, kg/(m·s·K^(1/2))
-	S       float64 // Sutherland's temperature, K
+	// R is the specific gas constant (J/(kg·K)).
+	R float64
+	// Gamma is the ratio of specific heats c_p/c_v (dimensionless).
+	Gamma float64
+	// Beta is Sutherland's constant β (kg/(m·s·K^(1/2))).
+	Beta float64
+	// S is Sutherland's temperature (K).
+	S float64
 	// KRef, KTemp and KS are Sutherland's law for the thermal
-	// conductivity, k = KRef·(T/KTemp)^(3/2)·(KTemp + KS)/(T + KS), in
-	// W/(m·K), K and K; zero when not modelled.
-	KRef, KTemp, KS float64
-	// MinTemperature and MaxTemperature (K) bound the temperatures at
-	// which the constants are stated; zero leaves a bound unchecked.
-	MinTemperature, MaxTemperature float64
+	// conductivity, k = KRef·(T/KTemp)^(3/2)·(KTemp + KS)/(T + KS);
+	// zero when not modelled.
+	//
+	// KRef is the conductivity at KTemp (W/(m·K)).
+	KRef float64
+	// KTemp is the reference temperature of KRef (K).
+	KTemp float64
+	// KS is Sutherland's temperature for the conductivity (K).
+	KS float64
+	// MinTemperature is the lowest temperature at which the constants
+	// are stated (K); zero leaves it unchecked.
+	MinTemperature float64
+	// MaxTemperature is the highest temperature at which the constants
+	// are stated (K); zero leaves it unchecked.
+	MaxTemperature float64
 	// Saturation is the gas's vapour-pressure curve, checked by At.
 	Saturation SaturationCurve
 }
@@ -332,10 +356,10 @@ func (g IdealGas) At(T, p quantity.Quantity) (State, error) {
 		return State{}, err
 	}
 	if lo := g.condensation(pr); g.Saturation != NoSaturation && !(t > lo) {
-		return State{}, &RangeError{Fluid: g.GasName, What: fmt.Sprintf("temperature (K) at %.6g Pa: at or below the condensation temperature (%s) — not a gas", pr, g.Saturation),
+		return State{}, &RangeError{Fluid: g.GasName, Unit: "K", What: fmt.Sprintf("temperature at %.6g Pa: at or below the condensation temperature (%s) — not a gas", pr, g.Saturation),
 			Value: t, Lo: lo, Hi: g.hi()}
 	}
-	mu, err := g.Viscosity(t)
+	mu, err := g.viscosity(t)
 	if err != nil {
 		return State{}, err
 	}
@@ -354,7 +378,7 @@ func (g IdealGas) LowestTemperature(p quantity.Quantity) (quantity.Quantity, err
 		return quantity.Quantity{}, err
 	}
 	if pr := p.Value(); !(pr > 0) || math.IsInf(pr, 0) {
-		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "absolute pressure (Pa)", Value: pr, Lo: 0, Hi: math.Inf(1)}
+		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "absolute pressure", Value: pr, Lo: 0, Hi: math.Inf(1), Unit: "Pa"}
 	}
 	if err := g.check(); err != nil {
 		return quantity.Quantity{}, err
@@ -391,30 +415,30 @@ func (g IdealGas) hi() float64 {
 // inRange refuses a temperature outside the gas's stated range.
 func (g IdealGas) inRange(t float64) error {
 	if !(t > 0) || math.IsInf(t, 0) || t < g.MinTemperature || t > g.hi() {
-		return &RangeError{Fluid: g.GasName, What: "temperature (K) for the gas's constants", Value: t, Lo: g.MinTemperature, Hi: g.hi()}
+		return &RangeError{Fluid: g.GasName, What: "temperature for the gas's constants", Value: t, Lo: g.MinTemperature, Hi: g.hi(), Unit: "K"}
 	}
 	return nil
 }
 
 // check refuses constants that give no physical gas.
 func (g IdealGas) check() error {
-	if err := positive(g.GasName, "specific gas constant R (J/(kg·K))", g.R); err != nil {
+	if err := positive(g.GasName, "specific gas constant R", "J/(kg·K)", g.R); err != nil {
 		return err
 	}
 	if !(g.Gamma > 1) || math.IsInf(g.Gamma, 0) {
 		return &RangeError{Fluid: g.GasName, What: "ratio of specific heats γ", Value: g.Gamma, Lo: 1, Hi: math.Inf(1)}
 	}
-	if err := positive(g.GasName, "Sutherland's constant β", g.Beta); err != nil {
+	if err := positive(g.GasName, "Sutherland's constant β", "kg/(m·s·K^(1/2))", g.Beta); err != nil {
 		return err
 	}
 	if !(g.S >= 0) || math.IsInf(g.S, 0) {
-		return &RangeError{Fluid: g.GasName, What: "Sutherland's temperature S (K)", Value: g.S, Lo: 0, Hi: math.Inf(1)}
+		return &RangeError{Fluid: g.GasName, What: "Sutherland's temperature S", Value: g.S, Lo: 0, Hi: math.Inf(1), Unit: "K"}
 	}
 	if !(g.MinTemperature >= 0) || math.IsInf(g.MinTemperature, 0) {
-		return &RangeError{Fluid: g.GasName, What: "lowest temperature of the constants (K)", Value: g.MinTemperature, Lo: 0, Hi: math.Inf(1)}
+		return &RangeError{Fluid: g.GasName, What: "lowest temperature of the constants", Value: g.MinTemperature, Lo: 0, Hi: math.Inf(1), Unit: "K"}
 	}
 	if !(g.MaxTemperature >= 0) || math.IsInf(g.MaxTemperature, 0) || (g.MaxTemperature > 0 && g.MaxTemperature <= g.MinTemperature) {
-		return &RangeError{Fluid: g.GasName, What: "highest temperature of the constants (K)", Value: g.MaxTemperature, Lo: g.MinTemperature, Hi: math.Inf(1)}
+		return &RangeError{Fluid: g.GasName, What: "highest temperature of the constants", Value: g.MaxTemperature, Lo: g.MinTemperature, Hi: math.Inf(1), Unit: "K"}
 	}
 	if g.Saturation > NitrogenSaturation {
 		return &RangeError{Fluid: g.GasName, What: "saturation curve", Value: float64(g.Saturation), Lo: 0, Hi: float64(NitrogenSaturation)}
@@ -422,12 +446,25 @@ func (g IdealGas) check() error {
 	return nil
 }
 
-// Viscosity returns Sutherland's μ(T) in Pa·s for T in K. A temperature
-// outside the gas's range (MinTemperature … MaxTemperature), not
-// positive and finite, or constants that give no finite viscosity, is a
-// *RangeError. It does not know the pressure, so it cannot check for
-// condensation: At does.
-func (g IdealGas) Viscosity(T float64) (float64, error) {
+// Viscosity returns Sutherland's dynamic viscosity μ(T) (Pa·s) at the
+// thermodynamic temperature T. A T that is not a temperature is an
+// ErrDimension; a temperature outside the gas's range (MinTemperature …
+// MaxTemperature), not positive and finite, or constants that give no
+// finite viscosity, is a *RangeError. It does not know the pressure, so
+// it cannot check for condensation: At does.
+func (g IdealGas) Viscosity(T quantity.Quantity) (quantity.Quantity, error) {
+	if err := T.CheckNamed("temperature", quantity.Temperature); err != nil {
+		return quantity.Quantity{}, err
+	}
+	mu, err := g.viscosity(T.Value())
+	if err != nil {
+		return quantity.Quantity{}, err
+	}
+	return quantity.New(mu, quantity.DynamicViscosity), nil
+}
+
+// viscosity is Viscosity for T in K, μ in Pa·s.
+func (g IdealGas) viscosity(T float64) (float64, error) {
 	if err := g.check(); err != nil {
 		return 0, err
 	}
@@ -436,7 +473,7 @@ func (g IdealGas) Viscosity(T float64) (float64, error) {
 	}
 	mu := g.Beta * T * math.Sqrt(T) / (T + g.S)
 	if !(mu > 0) || math.IsInf(mu, 0) {
-		return 0, &RangeError{Fluid: g.GasName, What: "temperature (K) giving a finite, positive Sutherland viscosity", Value: T, Lo: 0, Hi: math.Inf(1)}
+		return 0, &RangeError{Fluid: g.GasName, What: "temperature giving a finite, positive Sutherland viscosity", Value: T, Lo: 0, Hi: math.Inf(1), Unit: "K"}
 	}
 	return mu, nil
 }
@@ -464,10 +501,10 @@ func (c Constant) At(T, p quantity.Quantity) (State, error) {
 	if err := c.Viscosity.CheckNamed(c.FluidName+" viscosity", quantity.DynamicViscosity); err != nil {
 		return State{}, err
 	}
-	if err := positive(c.FluidName, "density (kg/m³)", c.Density.Value()); err != nil {
+	if err := positive(c.FluidName, "density", "kg/m³", c.Density.Value()); err != nil {
 		return State{}, err
 	}
-	if err := positive(c.FluidName, "dynamic viscosity (Pa·s)", c.Viscosity.Value()); err != nil {
+	if err := positive(c.FluidName, "dynamic viscosity", "Pa·s", c.Viscosity.Value()); err != nil {
 		return State{}, err
 	}
 	a := 0.0
@@ -476,7 +513,7 @@ func (c Constant) At(T, p quantity.Quantity) (State, error) {
 			return State{}, err
 		}
 		a = c.Sound.Value()
-		if err := positive(c.FluidName, "speed of sound (m/s)", a); err != nil {
+		if err := positive(c.FluidName, "speed of sound", "m/s", a); err != nil {
 			return State{}, err
 		}
 	}

@@ -100,7 +100,7 @@ func TestSutherland(t *testing.T) {
 		{250, 159.6e-7}, {300, 184.6e-7}, {350, 208.2e-7}, {400, 230.1e-7},
 	}
 	for _, c := range cases {
-		if got, err := fluids.Air().Viscosity(c.T); err != nil || math.Abs(got/c.mu-1) > 0.01 {
+		if got, err := fluids.Air().Viscosity(q.New(c.T, q.Temperature)); err != nil || got.Dim() != q.DynamicViscosity || math.Abs(got.Value()/c.mu-1) > 0.01 {
 			t.Errorf("μ(%g K) = %.4g, table %.4g", c.T, got, c.mu)
 		}
 	}

@@ -121,9 +121,9 @@ func FormulaFuncs() []formula.Func {
 				return err
 			}},
 		formula.Func{Name: "mu_air", Args: []quantity.Dim{T}, Result: quantity.DynamicViscosity,
-			Eval: func(a []float64) (float64, error) { return air.Viscosity(a[0]) },
+			Eval: func(a []float64) (float64, error) { return air.viscosity(a[0]) },
 			Deriv: func(a, g []float64) error {
-				m, err := air.Viscosity(a[0])
+				m, err := air.viscosity(a[0])
 				g[0] = m * (1.5/a[0] - 1/(a[0]+air.S))
 				return err
 			}},

@@ -210,5 +210,5 @@ Re = V*L/nu`, formula.Input{Name: "T_w", Dim: quantity.Temperature}, formula.Inp
 	fmt.Println(err)
 	// Output:
 	// ν = 1.14e-06 m²/s, Re = 2.633e+06
-	// formula "L  = 2 {m}\nnu = nu_water(T_w)\nRe = V*L/nu": statement 2 (counting from 1): nu: at 16: nu_water: fluids: fresh water: temperature (°C) 45 outside 0 … 40
+	// formula "L  = 2 {m}\nnu = nu_water(T_w)\nRe = V*L/nu": statement 2 (counting from 1): nu: at 16: nu_water: fluids: fresh water: temperature 45 °C outside 0 … 40 °C
 }

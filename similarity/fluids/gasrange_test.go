@@ -65,14 +65,46 @@ func TestViscosityRefuses(t *testing.T) {
 		{"air at NaN", fluids.Air(), math.NaN()}, {"air at −5 K", fluids.Air(), -5},
 		{"a gas of β = MaxFloat64", fluids.IdealGas{GasName: "x", R: 287, Gamma: 1.4, Beta: math.MaxFloat64, S: 0}, 1e10},
 	} {
-		if mu, err := c.g.Viscosity(c.T); !errors.Is(err, q.ErrRange) {
+		if mu, err := c.g.Viscosity(q.New(c.T, q.Temperature)); !errors.Is(err, q.ErrRange) {
 			t.Errorf("%s: μ = %v, %v", c.name, mu, err)
 		}
 	}
 	// In range, the law as written: μ(273 K) = 1.663e-5 Pa·s for nitrogen
 	// (the constant the law is built on).
-	if mu, err := fluids.Nitrogen().Viscosity(273); err != nil || math.Abs(mu/1.663e-5-1) > 1e-12 {
+	if mu, err := fluids.Nitrogen().Viscosity(q.New(273, q.Temperature)); err != nil || math.Abs(mu.Value()/1.663e-5-1) > 1e-12 {
 		t.Errorf("nitrogen μ(273 K) = %v, %v", mu, err)
+	}
+}
+
+// TestViscosityDimension: the temperature is a Quantity; a pressure, or a
+// bare number taken as a dimensionless Quantity, is an ErrDimension and
+// not a viscosity (273 Pa would otherwise pass as 273 K).
+func TestViscosityDimension(t *testing.T) {
+	for _, T := range []q.Quantity{q.New(273, q.Pressure), q.New(273, q.Dimensionless)} {
+		mu, err := fluids.Nitrogen().Viscosity(T)
+		if !errors.Is(err, q.ErrDimension) || errors.Is(err, q.ErrRange) {
+			t.Errorf("Viscosity(%v) = %v, %v; want ErrDimension alone", T, mu, err)
+		}
+	}
+}
+
+// TestRangeErrorUnit: a refused value prints with its unit after the value
+// and after the range, as a reader checks it against the instrument.
+func TestRangeErrorUnit(t *testing.T) {
+	_, err := fluids.FreshWater().AtCelsius(45)
+	var re *fluids.RangeError
+	if !errors.As(err, &re) || re.Unit != "°C" {
+		t.Fatalf("water at 45 °C: %v (%#v)", err, re)
+	}
+	if got, want := err.Error(), "fluids: fresh water: temperature 45 °C outside 0 … 40 °C"; got != want {
+		t.Errorf("got %q, want %q", got, want)
+	}
+	_, err = fluids.Air().Viscosity(q.New(100, q.Temperature))
+	if !errors.As(err, &re) || re.Unit != "K" || re.Lo != 132.6 || re.Hi != 600 {
+		t.Errorf("air at 100 K: %v", err)
+	}
+	if dimless := (&fluids.RangeError{Fluid: "perfect gas", What: "Mach number", Value: 60, Lo: 0, Hi: 50}).Error(); dimless != "fluids: perfect gas: Mach number 60 outside 0 … 50" {
+		t.Errorf("dimensionless: %q", dimless)
 	}
 }
 
@@ -127,7 +159,7 @@ func FuzzIdealGas(f *testing.F) {
 				t.Errorf("TotalOf: %+v", tot)
 			}
 		}
-		if mu, err := g.Viscosity(T); err == nil && !finite(mu) {
+		if mu, err := g.Viscosity(Tq); err == nil && !finite(mu.Value()) {
 			t.Errorf("Viscosity: %v", mu)
 		}
 		if lo, err := g.LowestTemperature(pq); err == nil && !finite(lo.Value()) {

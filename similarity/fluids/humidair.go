@@ -49,10 +49,10 @@ func (a HumidAir) check(p, T quantity.Quantity) error {
 		return err
 	}
 	if t := T.Value() - 273.15; !(t >= 15 && t <= 27) {
-		return &RangeError{Fluid: "humid air (CIPM-2007)", What: "temperature (°C)", Value: t, Lo: 15, Hi: 27}
+		return &RangeError{Fluid: "humid air (CIPM-2007)", What: "temperature", Value: t, Lo: 15, Hi: 27, Unit: "°C"}
 	}
 	if pr := p.Value(); !(pr >= 60e3 && pr <= 110e3) {
-		return &RangeError{Fluid: "humid air (CIPM-2007)", What: "pressure (Pa)", Value: pr, Lo: 60e3, Hi: 110e3}
+		return &RangeError{Fluid: "humid air (CIPM-2007)", What: "pressure", Value: pr, Lo: 60e3, Hi: 110e3, Unit: "Pa"}
 	}
 	if !(a.CO2 >= 0 && a.CO2 < 0.01) {
 		return &RangeError{Fluid: "humid air (CIPM-2007)", What: "CO₂ mole fraction", Value: a.CO2, Lo: 0, Hi: 0.01}

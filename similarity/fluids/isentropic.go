@@ -64,7 +64,7 @@ func (g IdealGas) TotalOf(s State, ma float64) (Total, error) {
 	}
 	t0, p0 := s.Temperature.Value()*tr, s.Pressure.Value()*pr
 	if math.IsInf(t0, 0) || math.IsInf(p0, 0) {
-		return Total{}, &RangeError{Fluid: g.Name(), What: "static state giving a finite total condition (temperature, K)", Value: s.Temperature.Value(), Lo: 0, Hi: math.MaxFloat64 / tr}
+		return Total{}, &RangeError{Fluid: g.Name(), What: "static temperature giving a finite total condition", Value: s.Temperature.Value(), Lo: 0, Hi: math.MaxFloat64 / tr, Unit: "K"}
 	}
 	return Total{Temperature: s.Temperature.Scale(tr), Pressure: s.Pressure.Scale(pr)}, nil
 }
@@ -78,7 +78,7 @@ func (g IdealGas) DynamicPressure(p quantity.Quantity, ma float64) (quantity.Qua
 		return quantity.Quantity{}, err
 	}
 	if v := p.Value(); !(v > 0) || math.IsInf(v, 0) {
-		return quantity.Quantity{}, &RangeError{Fluid: g.Name(), What: "absolute static pressure (Pa)", Value: v, Lo: 0, Hi: math.Inf(1)}
+		return quantity.Quantity{}, &RangeError{Fluid: g.Name(), What: "absolute static pressure", Value: v, Lo: 0, Hi: math.Inf(1), Unit: "Pa"}
 	}
 	if !(g.Gamma > 1) || math.IsInf(g.Gamma, 0) {
 		return quantity.Quantity{}, &RangeError{Fluid: g.Name(), What: "ratio of specific heats", Value: g.Gamma, Lo: 1, Hi: math.Inf(1)}
@@ -88,7 +88,7 @@ func (g IdealGas) DynamicPressure(p quantity.Quantity, ma float64) (quantity.Qua
 	}
 	q := p.Scale(0.5 * g.Gamma * ma * ma)
 	if math.IsInf(q.Value(), 0) {
-		return quantity.Quantity{}, &RangeError{Fluid: g.Name(), What: "static pressure giving a finite dynamic pressure (Pa)", Value: p.Value(), Lo: 0, Hi: math.MaxFloat64 / (0.5 * g.Gamma * ma * ma)}
+		return quantity.Quantity{}, &RangeError{Fluid: g.Name(), What: "static pressure giving a finite dynamic pressure", Value: p.Value(), Lo: 0, Hi: math.MaxFloat64 / (0.5 * g.Gamma * ma * ma), Unit: "Pa"}
 	}
 	return q, nil
 }

@@ -44,7 +44,7 @@ func NitrogenSaturationPressure(T quantity.Quantity) (quantity.Quantity, error) 
 	}
 	t := T.Value()
 	if !(t >= n2Tt && t <= n2Tc) {
-		return quantity.Quantity{}, &RangeError{Fluid: "nitrogen (saturation)", What: "temperature (K)", Value: t, Lo: n2Tt, Hi: n2Tc}
+		return quantity.Quantity{}, &RangeError{Fluid: "nitrogen (saturation)", What: "temperature", Value: t, Lo: n2Tt, Hi: n2Tc, Unit: "K"}
 	}
 	return quantity.New(n2SatP(t), quantity.Pressure), nil
 }
@@ -64,7 +64,7 @@ func NitrogenSaturationTemperature(p quantity.Quantity) (quantity.Quantity, erro
 	}
 	pr := p.Value()
 	if !(pr >= n2SatP(n2Tt) && pr <= n2SatP(n2Tc)) {
-		return quantity.Quantity{}, &RangeError{Fluid: "nitrogen (saturation)", What: "pressure (Pa)", Value: pr, Lo: n2SatP(n2Tt), Hi: n2SatP(n2Tc)}
+		return quantity.Quantity{}, &RangeError{Fluid: "nitrogen (saturation)", What: "pressure", Value: pr, Lo: n2SatP(n2Tt), Hi: n2SatP(n2Tc), Unit: "Pa"}
 	}
 	return quantity.New(n2SatT(pr), quantity.Temperature), nil
 }

@@ -20,7 +20,7 @@ func (g IdealGas) SpecificHeat() (quantity.Quantity, error) {
 	}
 	cp := g.Gamma * g.R / (g.Gamma - 1)
 	if math.IsInf(cp, 0) {
-		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "constants (R, γ) giving a finite specific heat γR/(γ − 1)", Value: cp, Lo: 0, Hi: math.MaxFloat64}
+		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "constants (R, γ) giving a finite specific heat γR/(γ − 1)", Value: cp, Lo: 0, Hi: math.MaxFloat64, Unit: "J/(kg·K)"}
 	}
 	return quantity.New(cp, quantity.SpecificHeatCapacity), nil
 }
@@ -36,15 +36,15 @@ func (g IdealGas) ThermalConductivity(T quantity.Quantity) (quantity.Quantity, e
 		return quantity.Quantity{}, err
 	}
 	if !(g.KRef > 0 && g.KTemp > 0 && g.KS > 0) {
-		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "thermal conductivity constants (none given)", Value: g.KRef, Lo: 0, Hi: math.Inf(1)}
+		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "thermal conductivity constants (none given)", Value: g.KRef, Lo: 0, Hi: math.Inf(1), Unit: "W/(m·K)"}
 	}
 	t := T.Value()
 	if !(t >= 160 && t <= 2000) {
-		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "temperature for the conductivity law (K)", Value: t, Lo: 160, Hi: 2000}
+		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "temperature for the conductivity law", Value: t, Lo: 160, Hi: 2000, Unit: "K"}
 	}
 	k := g.KRef * math.Pow(t/g.KTemp, 1.5) * (g.KTemp + g.KS) / (t + g.KS)
 	if !(k > 0) || math.IsInf(k, 0) {
-		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "conductivity constants giving a finite conductivity at this temperature (K)", Value: t, Lo: 160, Hi: 2000}
+		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "conductivity constants giving a finite conductivity at this temperature", Value: t, Lo: 160, Hi: 2000, Unit: "K"}
 	}
 	return quantity.New(k, quantity.ThermalConductivity), nil
 }
@@ -59,13 +59,13 @@ func (g IdealGas) Prandtl(T quantity.Quantity) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	mu, err := g.Viscosity(T.Value())
+	mu, err := g.viscosity(T.Value())
 	if err != nil {
 		return 0, err
 	}
 	pr := mu * cp.Value() / k.Value()
 	if !(pr > 0) || math.IsInf(pr, 0) {
-		return 0, &RangeError{Fluid: g.GasName, What: "constants giving a finite Prandtl number at this temperature (K)", Value: T.Value(), Lo: 0, Hi: math.Inf(1)}
+		return 0, &RangeError{Fluid: g.GasName, What: "constants giving a finite Prandtl number at this temperature", Value: T.Value(), Lo: 0, Hi: math.Inf(1), Unit: "K"}
 	}
 	return pr, nil
 }
@@ -81,11 +81,11 @@ func (w Water) ThermalConductivity(T quantity.Quantity) (quantity.Quantity, erro
 		return quantity.Quantity{}, err
 	}
 	if w.Salinity != 0 {
-		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "salinity for the conductivity correlation (fresh water only, g/kg)", Value: w.Salinity, Lo: 0, Hi: 0}
+		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "salinity for the conductivity correlation (fresh water only)", Value: w.Salinity, Lo: 0, Hi: 0, Unit: "g/kg"}
 	}
 	t := T.Value()
 	if !(t >= 274 && t <= 370) {
-		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "temperature for the conductivity correlation (K)", Value: t, Lo: 274, Hi: 370}
+		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "temperature for the conductivity correlation", Value: t, Lo: 274, Hi: 370, Unit: "K"}
 	}
 	ts := t / 298.15
 	return quantity.New(0.6065*(-1.48445+4.12292*ts-1.63866*ts*ts), quantity.ThermalConductivity), nil
@@ -111,12 +111,12 @@ func (w Water) SpecificHeat(T quantity.Quantity) (quantity.Quantity, error) {
 		return quantity.Quantity{}, err
 	}
 	if w.Salinity != 0 {
-		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "salinity for the specific heat (fresh water only, g/kg)", Value: w.Salinity, Lo: 0, Hi: 0}
+		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "salinity for the specific heat (fresh water only)", Value: w.Salinity, Lo: 0, Hi: 0, Unit: "g/kg"}
 	}
 	t := T.Value()
 	n := len(waterCp)
 	if !(t >= waterCp[0][0] && t <= waterCp[n-1][0]) {
-		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "temperature for the specific heat (K)", Value: t, Lo: waterCp[0][0], Hi: waterCp[n-1][0]}
+		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "temperature for the specific heat", Value: t, Lo: waterCp[0][0], Hi: waterCp[n-1][0], Unit: "K"}
 	}
 	i := 1
 	for i < n-1 && waterCp[i][0] < t {

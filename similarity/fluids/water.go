@@ -45,7 +45,7 @@ func vapourPressure(T quantity.Quantity) (dual.Num, error) {
 	}
 	t := T.Value()
 	if !(t >= 273.15 && t <= waterTc) {
-		return dual.Num{}, &RangeError{Fluid: "water (IAPWS-IF97 saturation)", What: "temperature (K)", Value: t, Lo: 273.15, Hi: waterTc}
+		return dual.Num{}, &RangeError{Fluid: "water (IAPWS-IF97 saturation)", What: "temperature", Value: t, Lo: 273.15, Hi: waterTc, Unit: "K"}
 	}
 	const (
 		n1, n2, n3, n4, n5  = 0.11670521452767e4, -0.72421316703206e6, -0.17073846940092e2, 0.12020824702470e5, -0.32325550322333e7
@@ -72,7 +72,7 @@ func SurfaceTension(T quantity.Quantity) (quantity.Quantity, error) {
 	}
 	t := T.Value()
 	if !(t >= 273.16 && t <= waterTc) {
-		return quantity.Quantity{}, &RangeError{Fluid: "water (IAPWS surface tension)", What: "temperature (K)", Value: t, Lo: 273.16, Hi: waterTc}
+		return quantity.Quantity{}, &RangeError{Fluid: "water (IAPWS surface tension)", What: "temperature", Value: t, Lo: 273.16, Hi: waterTc, Unit: "K"}
 	}
 	tau := 1 - t/waterTc
 	return quantity.New(235.8e-3*math.Pow(tau, 1.256)*(1-0.625*tau), quantity.SurfaceTension), nil

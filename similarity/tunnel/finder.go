@@ -159,17 +159,17 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 		thi, tmaxName = gas.MaxTemperature, "highest temperature of the "+gas.GasName+" model"
 	}
 	if !(tlo <= thi) {
-		return Condition{}, &fluids.RangeError{Fluid: gas.GasName, What: fmt.Sprintf("total temperature (K) of the tunnel limits at Mach %.3g (the gas model holds for static temperatures %g … %g K)", ma, gas.MinTemperature, gas.MaxTemperature),
+		return Condition{}, &fluids.RangeError{Fluid: gas.GasName, Unit: "K", What: fmt.Sprintf("total temperature of the tunnel limits at Mach %.3g (the gas model holds for static temperatures %g … %g K)", ma, gas.MinTemperature, gas.MaxTemperature),
 			Value: lim.MaxTemperature.Value(), Lo: tlo, Hi: thi}
 	}
 	// mu is Sutherland's law, NaN outside the gas's range (which the
 	// searches below read as no root).
 	mu := func(T float64) float64 {
-		v, err := gas.Viscosity(T)
+		v, err := gas.Viscosity(quantity.New(T, quantity.Temperature))
 		if err != nil {
 			return math.NaN()
 		}
-		return v
+		return v.Value()
 	}
 	speed := func(T float64) float64 { return ma * math.Sqrt(gas.Gamma*gas.R*T) }
 	// need0 is the total pressure that gives the full-scale Reynolds
