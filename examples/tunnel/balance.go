@@ -136,7 +136,7 @@ func reduceRun(w io.Writer, dir string, alo, ahi, width, height, dpi float64) (*
 		if err != nil {
 			return nil, err
 		}
-		pts = append(pts, tunnel.TarePoint{Attitude: tunnel.Attitude{Pitch: r.pitch}, Loads: l})
+		pts = append(pts, tunnel.TarePoint{Attitude: tunnel.Attitude{PitchDeg: r.pitch}, Loads: l})
 	}
 	if run.Tare, err = tunnel.FitWeightTare(pts, measured); err != nil {
 		return nil, err
@@ -162,7 +162,7 @@ func reduceRun(w io.Writer, dir string, alo, ahi, width, height, dpi float64) (*
 			return nil, err
 		}
 		if pass == 0 {
-			slope = run.Polar.LiftSlope.Value
+			slope = run.Polar.LiftSlopePerDeg.Value
 		}
 	}
 	run.Slope = slope
@@ -177,10 +177,10 @@ func reduceRun(w io.Writer, dir string, alo, ahi, width, height, dpi float64) (*
 	aspect := modelSpan * modelSpan / modelArea
 	fmt.Fprintf(w, "\nPolar fitted to the %d corrected points with %g° ≤ α ≤ %g° (the linear range; 95 %% intervals):\n", p.N, alo, ahi)
 	fmt.Fprintf(w, "  lift slope dC_L/dα = %.4f /° (%.4f … %.4f), zero-lift angle α₀ = %.2f° (%.2f … %.2f)\n",
-		p.LiftSlope.Value, p.LiftSlope.Interval[0], p.LiftSlope.Interval[1], p.ZeroLiftAlpha.Value, p.ZeroLiftAlpha.Interval[0], p.ZeroLiftAlpha.Interval[1])
+		p.LiftSlopePerDeg.Value, p.LiftSlopePerDeg.Interval[0], p.LiftSlopePerDeg.Interval[1], p.ZeroLiftAlphaDeg.Value, p.ZeroLiftAlphaDeg.Interval[0], p.ZeroLiftAlphaDeg.Interval[1])
 	fmt.Fprintf(w, "  parabolic polar C_D = C_D0 + K·C_L²: C_D0 = %.5f (%.5f … %.5f), K = %.4f (%.4f … %.4f); Oswald factor e = 1/(π·A·K) = %.2f at A = b²/S = %.2f\n",
 		p.CD0.Value, p.CD0.Interval[0], p.CD0.Interval[1], p.K.Value, p.K.Interval[0], p.K.Interval[1], 1/(math.Pi*aspect*p.K.Value), aspect)
-	if d := p.LiftSlope.Value - slope; math.Abs(d) > 0.01*slope {
+	if d := p.LiftSlopePerDeg.Value - slope; math.Abs(d) > 0.01*slope {
 		fmt.Fprintf(w, "  the curvature correction used a = %.4f/°; the refitted slope differs by %.1f %%: the correction has not settled\n", slope, 100*d/slope)
 	}
 	if run.PNG, run.SVG, err = plotPolar(dir, run, width, height, dpi); err != nil {
@@ -199,13 +199,13 @@ func reducePoints(w io.Writer, run *Run, cal *tunnel.Calibration, comps []tunnel
 		Offset:    tunnel.Offset{X: q.New(mrcAhead, q.Length)},
 		Reference: tunnel.Reference{Area: q.New(modelArea, q.Area), Span: q.New(modelSpan, q.Length), Chord: q.New(modelChord, q.Length)},
 		Walls: tunnel.Model3D{TunnelArea: q.New(3.0, q.Area), ModelVolume: q.New(0.010, q.Volume), ShapeFactor: 0.86, Delta: 0.12,
-			CurvatureFactor: 0.12, LiftSlope: slope, TailCurvatureFactor: 0.55, TailMomentSlope: -0.025},
+			CurvatureFactor: 0.12, LiftSlopePerDeg: slope, TailCurvatureFactor: 0.55, TailMomentSlopePerDeg: -0.025},
 	}
 	fmt.Fprintln(w, "\n  pitch     NF       AF       PM   |        uncorrected, q_u         |   corrected for the walls, q")
 	fmt.Fprintln(w, "   (°)     (N)      (N)    (N·m)  |   α (°)    C_L     C_D      C_m  |   α (°)    C_L     C_D     C_m¼")
 	var al, cl, cd []float64
 	for _, r := range windOn {
-		p, err := red.Reduce(tunnel.Point{Readings: r.r[:], Attitude: tunnel.Attitude{Pitch: r.pitch}, DynamicPressure: q.New(runQ, q.Pressure), Mach: runMach})
+		p, err := red.Reduce(tunnel.Point{Readings: r.r[:], Attitude: tunnel.Attitude{PitchDeg: r.pitch}, DynamicPressure: q.New(runQ, q.Pressure), Mach: runMach})
 		if err != nil {
 			return tunnel.Polar{}, fmt.Errorf("point at %g°: %w", r.pitch, err)
 		}
@@ -219,8 +219,8 @@ func reducePoints(w io.Writer, run *Run, cal *tunnel.Calibration, comps []tunnel
 		u, c := p.Uncorrected, p.Corrected
 		fmt.Fprintf(w, "  %5.1f %8.2f %8.2f %8.3f  | %6.2f %8.4f %7.4f %8.4f | %6.3f %8.4f %7.4f %8.4f\n",
 			r.pitch, p.Balance[tunnel.NormalForce], p.Balance[tunnel.AxialForce], p.Balance[tunnel.PitchingMoment],
-			p.Alpha, u.CL, u.CD, u.Cm, c.Alpha, c.CL, c.CD, c.CM)
-		al, cl, cd = append(al, c.Alpha), append(cl, c.CL), append(cd, c.CD)
+			p.AlphaDeg, u.CL, u.CD, u.Cm, c.AlphaDeg, c.CL, c.CD, c.CM)
+		al, cl, cd = append(al, c.AlphaDeg), append(cl, c.CL), append(cd, c.CD)
 	}
 	fmt.Fprintln(w, "  (NF, AF, PM: balance loads at its centre, weight included; α from the pitch, β = 0; C_m about the quarter chord)")
 	fmt.Fprintf(w, "  largest load of the run: %v at %.0f %% of its calibrated range — the balance's rated loads and the facility's rules govern every run\n",
@@ -234,9 +234,9 @@ func plotPolar(dir string, r *Run, width, height, dpi float64) (png, svg [2]stri
 	var in, out [2]plotter.XYs
 	for _, pt := range r.Points {
 		c := pt.Corrected
-		xy := [2]plotter.XY{{X: c.Alpha, Y: c.CL}, {X: c.CL, Y: c.CD}}
+		xy := [2]plotter.XY{{X: c.AlphaDeg, Y: c.CL}, {X: c.CL, Y: c.CD}}
 		for k := range 2 {
-			if c.Alpha >= p.AlphaRange[0] && c.Alpha <= p.AlphaRange[1] {
+			if c.AlphaDeg >= p.AlphaRangeDeg[0] && c.AlphaDeg <= p.AlphaRangeDeg[1] {
 				in[k] = append(in[k], xy[k])
 			} else {
 				out[k] = append(out[k], xy[k])
@@ -258,7 +258,7 @@ func plotPolar(dir string, r *Run, width, height, dpi float64) (png, svg [2]stri
 	titles := [2]string{"Lift curve, 1:12 model (invented run), corrected", "Drag polar, 1:12 model (invented run), corrected"}
 	xl := [2]string{"α (degrees, corrected)", "C_L"}
 	yl := [2]string{"C_L", "C_D"}
-	fits := [2]string{fmt.Sprintf("fit: dC_L/dα = %.4f /°", p.LiftSlope.Value), fmt.Sprintf("fit: C_{D0} = %.4f, K = %.4f", p.CD0.Value, p.K.Value)}
+	fits := [2]string{fmt.Sprintf("fit: dC_L/dα = %.4f /°", p.LiftSlopePerDeg.Value), fmt.Sprintf("fit: C_{D0} = %.4f, K = %.4f", p.CD0.Value, p.K.Value)}
 	names := [2]string{"tunnel-lift", "tunnel-polar"}
 	for k := range 2 {
 		pl := plot.New()

@@ -103,14 +103,14 @@ func TestReductionByHand(t *testing.T) {
 		got, want float64
 	}{
 		{"C_L,u", p.Uncorrected.CL, clu}, {"C_D,u", p.Uncorrected.CD, cdu}, {"C_m,u", p.Uncorrected.Cm, cmu},
-		{"α", p.Corrected.Alpha, 4 + 1.12*da}, {"C_L", p.Corrected.CL, clq - r.Run.Slope*0.12*da},
+		{"α", p.Corrected.AlphaDeg, 4 + 1.12*da}, {"C_L", p.Corrected.CL, clq - r.Run.Slope*0.12*da},
 	} {
 		if math.Abs(c.got-c.want) > 1e-12 {
 			t.Errorf("%s = %.10g, by hand %.10g", c.name, c.got, c.want)
 		}
 	}
-	if a := r.Run.Slope; a == assumedSlope || math.Abs(a-r.Run.Polar.LiftSlope.Value) > 1e-4 || math.Abs(a-0.0803) > 5e-5 {
-		t.Errorf("curvature slope %v: want the fitted slope (0.0803/°), not the assumed %v; refit %v", a, assumedSlope, r.Run.Polar.LiftSlope.Value)
+	if a := r.Run.Slope; a == assumedSlope || math.Abs(a-r.Run.Polar.LiftSlopePerDeg.Value) > 1e-4 || math.Abs(a-0.0803) > 5e-5 {
+		t.Errorf("curvature slope %v: want the fitted slope (0.0803/°), not the assumed %v; refit %v", a, assumedSlope, r.Run.Polar.LiftSlopePerDeg.Value)
 	}
 	if !strings.Contains(out.String(), "the curvature correction's lift slope a = 0.0803/° is the fitted one below") {
 		t.Errorf("the curvature slope's line is not printed:\n%s", out.String())
@@ -132,8 +132,8 @@ func TestPolarByHand(t *testing.T) {
 	}
 	var a, l, l2, d []float64
 	for _, p := range r.Run.Points {
-		if c := p.Corrected; c.Alpha >= -5 && c.Alpha <= 11 {
-			a, l, l2, d = append(a, c.Alpha), append(l, c.CL), append(l2, c.CL*c.CL), append(d, c.CD)
+		if c := p.Corrected; c.AlphaDeg >= -5 && c.AlphaDeg <= 11 {
+			a, l, l2, d = append(a, c.AlphaDeg), append(l, c.CL), append(l2, c.CL*c.CL), append(d, c.CD)
 		}
 	}
 	line := func(x, y []float64) (slope, icept float64) {
@@ -152,11 +152,11 @@ func TestPolarByHand(t *testing.T) {
 	slope, icept := line(a, l)
 	k, cd0 := line(l2, d)
 	pol := r.Run.Polar
-	if len(a) != 8 || pol.N != 8 || math.Abs(pol.LiftSlope.Value-slope) > 1e-12 || math.Abs(pol.ZeroLiftAlpha.Value+icept/slope) > 1e-9 ||
+	if len(a) != 8 || pol.N != 8 || math.Abs(pol.LiftSlopePerDeg.Value-slope) > 1e-12 || math.Abs(pol.ZeroLiftAlphaDeg.Value+icept/slope) > 1e-9 ||
 		math.Abs(pol.K.Value-k) > 1e-12 || math.Abs(pol.CD0.Value-cd0) > 1e-12 {
 		t.Errorf("polar %+v; by hand slope %v, α₀ %v, K %v, C_D0 %v", pol, slope, -icept/slope, k, cd0)
 	}
-	for _, e := range []tunnel.Estimate{pol.LiftSlope, pol.ZeroLiftAlpha, pol.CD0, pol.K} {
+	for _, e := range []tunnel.Estimate{pol.LiftSlopePerDeg, pol.ZeroLiftAlphaDeg, pol.CD0, pol.K} {
 		if !(e.Interval[0] < e.Value && e.Value < e.Interval[1]) {
 			t.Errorf("interval %v does not hold %v", e.Interval, e.Value)
 		}

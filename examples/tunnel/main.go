@@ -278,7 +278,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	// A two-dimensional test of the wing's section at the test Mach
 	// number (invented readings).
 	sec := tunnel.Section2D{Chord: q.New(0.30, q.Length), Height: q.New(0.90, q.Length), ShapeFactor: 0.25,
-		Alpha: 6, CL: 0.82, CD: 0.0125, CM: -0.080, Mach: *mach}
+		AlphaDeg: 6, CL: 0.82, CD: 0.0125, CM: -0.080, Mach: *mach}
 	fmt.Fprintf(w, "\nSection test at Ma %.2f, chord 0.30 m wall to wall in a 0.90 m high closed test section (invented readings), wall corrections:\n", *mach)
 	if r.Section, r.SectionErr = tunnel.CorrectWalls2D(sec); r.SectionErr != nil {
 		fmt.Fprintf(w, "  not applied: %v\n", r.SectionErr)
@@ -289,7 +289,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		fmt.Fprintf(w, "  q = %.4f·q_u (1 + (2 − Ma²)ε), V = %.4f·V_u, Ma = %.4f·Ma_u, Re = %.4f·Re_u\n",
 			cs.DynamicPressureFactor, cs.VelocityFactor, cs.MachFactor, cs.ReynoldsFactor)
 		fmt.Fprintf(w, "  α %.2f° → %.3f°, C_l %.4f → %.4f, C_d %.5f → %.5f, C_m¼ %.4f → %.4f\n",
-			sec.Alpha, cs.Alpha, sec.CL, cs.CL, sec.CD, cs.CD, sec.CM, cs.CM)
+			sec.AlphaDeg, cs.AlphaDeg, sec.CL, cs.CL, sec.CD, cs.CD, sec.CM, cs.CM)
 	}
 	// The complete model in the ordinary tunnel's closed 2.0 × 1.5 m
 	// section (invented readings and chart factors); its volume is
@@ -303,12 +303,12 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	// The lift slope at the test Mach number: the run's fitted slope (at
 	// Ma 0.20) raised by the Prandtl–Glauert factor β(0.20)/β(Ma).
 	bRun, bTest := math.Sqrt(1-runMach*runMach), math.Sqrt(1-*mach**mach)
-	r.ModelSlope = r.Run.Polar.LiftSlope.Value * bRun / bTest
+	r.ModelSlope = r.Run.Polar.LiftSlopePerDeg.Value * bRun / bTest
 	span := modelSpan * 12 / *scale
 	vol := 0.010 * (12 / *scale) * (12 / *scale) * (12 / *scale)
 	m3 := tunnel.Model3D{WingArea: q.New(area, q.Area), TunnelArea: q.New(3.0, q.Area), ModelVolume: q.New(vol, q.Volume),
-		ShapeFactor: 0.86, Delta: 0.12, Alpha: 3.0, CL: cruiseCL, CD: 0.035, CM: -0.030,
-		CurvatureFactor: 0.12, LiftSlope: r.ModelSlope, TailCurvatureFactor: 0.55, TailMomentSlope: -0.025, Mach: *mach}
+		ShapeFactor: 0.86, Delta: 0.12, AlphaDeg: 3.0, CL: cruiseCL, CD: 0.035, CM: -0.030,
+		CurvatureFactor: 0.12, LiftSlopePerDeg: r.ModelSlope, TailCurvatureFactor: 0.55, TailMomentSlopePerDeg: -0.025, Mach: *mach}
 	fmt.Fprintf(w, "\nComplete model at Ma %.2f in a closed 2.0 × 1.5 m section (invented readings; K·τ₁ = %.2f, δ = %.2f, τ₂ read from the charts):\n",
 		*mach, m3.ShapeFactor, m3.Delta)
 	fmt.Fprintf(w, "  used: test-section cross-section C = %.2f m²; the 1:%g model's reference (wing) area S = %.4f m², span b = %.3f m, volume %.4f m³\n",
@@ -318,12 +318,12 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	} else {
 		c3 := r.Model
 		fmt.Fprintf(w, "  ε_sb = %.5f, ε_wb = %.5f (β = %.4f); q = %.4f·q_u; α %.2f° → %.3f°, C_L %.4f → %.4f, C_D %.5f → %.5f (ΔC_D,i = %.5f)\n",
-			c3.SolidBlock, c3.WakeBlock, c3.Beta, c3.DynamicPressureFactor, m3.Alpha, c3.Alpha, m3.CL, c3.CL, m3.CD, c3.CD, c3.DeltaCD)
+			c3.SolidBlock, c3.WakeBlock, c3.Beta, c3.DynamicPressureFactor, m3.AlphaDeg, c3.AlphaDeg, m3.CL, c3.CL, m3.CD, c3.CD, c3.DeltaCD)
 		fmt.Fprintf(w, "  of which streamline curvature (τ₂ = %.2f, a = %.4f/°: the run's fitted %.4f/° at Ma %.2f × β(%.2f)/β(%.2f), Prandtl–Glauert, an estimate):\n",
-			m3.CurvatureFactor, m3.LiftSlope, r.Run.Polar.LiftSlope.Value, runMach, runMach, *mach)
-		fmt.Fprintf(w, "    Δα_sc = %.4f°, ΔC_L = %.5f, ΔC_m¼ = %.5f;\n", c3.DeltaAlphaCurvature, c3.DeltaCLCurvature, c3.DeltaCMCurvature)
+			m3.CurvatureFactor, m3.LiftSlopePerDeg, r.Run.Polar.LiftSlopePerDeg.Value, runMach, runMach, *mach)
+		fmt.Fprintf(w, "    Δα_sc = %.4f°, ΔC_L = %.5f, ΔC_m¼ = %.5f;\n", c3.DeltaAlphaCurvatureDeg, c3.DeltaCLCurvature, c3.DeltaCMCurvature)
 		fmt.Fprintf(w, "  tail (τ₂,t = %.2f, ∂C_m/∂α_t = %.3f/°): %.4f° more angle than free air, ΔC_m = %.5f; C_m¼ %.4f → %.4f\n",
-			m3.TailCurvatureFactor, m3.TailMomentSlope, c3.TailAngle, c3.DeltaCMTail, m3.CM, c3.CM)
+			m3.TailCurvatureFactor, m3.TailMomentSlopePerDeg, c3.TailAngleDeg, c3.DeltaCMTail, m3.CM, c3.CM)
 	}
 	fmt.Fprint(w, runText.String())
 	fmt.Fprintln(w, "\nSAFETY (each tunnel's cautions; the facility's safety rules and its responsible engineer govern every run):")

@@ -177,7 +177,7 @@ func TestModelCorrectionsByHand(t *testing.T) {
 	m2 := 0.62 * 0.62
 	b2 := 1 - m2
 	sm := 38.0 / 144
-	a := r.Run.Polar.LiftSlope.Value * math.Sqrt(0.96) / math.Sqrt(b2)
+	a := r.Run.Polar.LiftSlopePerDeg.Value * math.Sqrt(0.96) / math.Sqrt(b2)
 	if math.Abs(r.ModelSlope-a) > 1e-15 || math.Abs(a-0.1003) > 5e-5 {
 		t.Errorf("complete-model slope %v, by hand %v", r.ModelSlope, a)
 	}
@@ -193,7 +193,7 @@ func TestModelCorrectionsByHand(t *testing.T) {
 	da := 57.3 * 0.12 * sm / 3 * clq
 	dcl := -a * 0.12 * da
 	cm := -0.030/f - 0.25*dcl + 0.025*0.55*da
-	if math.Abs(r.Model.CL-(clq+dcl)) > 1e-14 || math.Abs(r.Model.Alpha-(3+da*1.12)) > 1e-13 || math.Abs(r.Model.CM-cm) > 1e-14 {
+	if math.Abs(r.Model.CL-(clq+dcl)) > 1e-14 || math.Abs(r.Model.AlphaDeg-(3+da*1.12)) > 1e-13 || math.Abs(r.Model.CM-cm) > 1e-14 {
 		t.Errorf("model %+v; by hand C_L %v, α %v, C_m %v", r.Model, clq+dcl, 3+da*1.12, cm)
 	}
 }

@@ -43,8 +43,11 @@ func (a Axes) String() string {
 // moment right wing down, pitching moment nose up, yawing moment nose
 // to starboard). Forces in newtons, moments in newton metres.
 type AxisLoads struct {
-	Axes             Axes
+	// Axes names the axis system the loads are resolved in.
+	Axes Axes
+	// Drag, Side and Lift are the forces (N).
 	Drag, Side, Lift float64
+	// Roll, Pitch and Yaw are the moments (N·m).
 	Roll, Pitch, Yaw float64
 }
 
@@ -57,21 +60,21 @@ func checkAngle(op, name string, v float64) error {
 }
 
 // ToStability resolves body-axis loads in stability axes at the angle of
-// attack alpha (degrees): a rotation about y by α,
+// attack alphaDeg (degrees): a rotation about y by α,
 //
 //	D = A·cos α + N·sin α,  L = N·cos α − A·sin α,  Y_s = Y,
 //	l_s = l·cos α + n·sin α,  m_s = m,  n_s = n·cos α − l·sin α,
 //
 // with A, N, Y the axial, normal and side forces and l, m, n the body
 // moments (signs of Component).
-func (l Loads) ToStability(alpha float64) (AxisLoads, error) {
-	if err := checkAngle("axis transfer", "angle of attack (°)", alpha); err != nil {
+func (l Loads) ToStability(alphaDeg float64) (AxisLoads, error) {
+	if err := checkAngle("axis transfer", "angle of attack (°)", alphaDeg); err != nil {
 		return AxisLoads{}, err
 	}
 	if !l.finite() {
 		return AxisLoads{}, &Error{Op: "axis transfer", Fault: similarity.OutOfRange("loads", "a load is not finite")}
 	}
-	s, c := math.Sincos(alpha * deg)
+	s, c := math.Sincos(alphaDeg * deg)
 	return AxisLoads{Axes: StabilityAxes,
 		Drag: l[AxialForce]*c + l[NormalForce]*s, Lift: l[NormalForce]*c - l[AxialForce]*s, Side: l[SideForce],
 		Roll: l[RollingMoment]*c + l[YawingMoment]*s, Pitch: l[PitchingMoment], Yaw: l[YawingMoment]*c - l[RollingMoment]*s,
@@ -79,22 +82,22 @@ func (l Loads) ToStability(alpha float64) (AxisLoads, error) {
 }
 
 // ToWind resolves body-axis loads in wind axes at the angle of attack
-// alpha and sideslip beta (degrees), the wind meeting the model from
+// alphaDeg and sideslip betaDeg (degrees), the wind meeting the model from
 // ahead and from starboard for positive α and β (the wind's components
 // in body axes are V·(cos α·cos β, sin β, sin α·cos β)): the stability
 // axes turned about z by β,
 //
 //	D = D_s·cos β − Y·sin β,  Y_w = Y·cos β + D_s·sin β,  L = L_s,
 //	l_w = l_s·cos β + m·sin β,  m_w = m·cos β − l_s·sin β,  n_w = n_s.
-func (l Loads) ToWind(alpha, beta float64) (AxisLoads, error) {
-	s, err := l.ToStability(alpha)
+func (l Loads) ToWind(alphaDeg, betaDeg float64) (AxisLoads, error) {
+	s, err := l.ToStability(alphaDeg)
 	if err != nil {
 		return AxisLoads{}, err
 	}
-	if err := checkAngle("axis transfer", "sideslip (°)", beta); err != nil {
+	if err := checkAngle("axis transfer", "sideslip (°)", betaDeg); err != nil {
 		return AxisLoads{}, err
 	}
-	sb, cb := math.Sincos(beta * deg)
+	sb, cb := math.Sincos(betaDeg * deg)
 	return AxisLoads{Axes: WindAxes,
 		Drag: s.Drag*cb - s.Side*sb, Side: s.Side*cb + s.Drag*sb, Lift: s.Lift,
 		Roll: s.Roll*cb + s.Pitch*sb, Pitch: s.Pitch*cb - s.Roll*sb, Yaw: s.Yaw,
@@ -151,11 +154,14 @@ func (l Loads) About(o Offset) (Loads, error) {
 }
 
 // Attitude is the model's attitude in the test section: the pitch θ and
-// roll φ of its body axes from the horizontal (degrees, Euler angles in
-// the order yaw, pitch, roll with no yaw), the tunnel's flow horizontal
-// along the test section's axis.
+// roll φ of its body axes from the horizontal (Euler angles in the order
+// yaw, pitch, roll with no yaw), the tunnel's flow horizontal along the
+// test section's axis.
 type Attitude struct {
-	Pitch, Roll float64
+	// PitchDeg is the pitch θ (degrees).
+	PitchDeg float64
+	// RollDeg is the roll φ (degrees).
+	RollDeg float64
 }
 
 // Angles returns the angle of attack α and sideslip β (degrees) the
@@ -163,23 +169,23 @@ type Attitude struct {
 // body axes V·(cos θ, sin φ·sin θ, cos φ·sin θ):
 // tan α = cos φ·tan θ and sin β = sin φ·sin θ. Any flow angularity of
 // the tunnel (upflow, crossflow) is to be added by the caller.
-func (a Attitude) Angles() (alpha, beta float64, err error) {
-	if err := checkAngle("attitude", "pitch (°)", a.Pitch); err != nil {
+func (a Attitude) Angles() (alphaDeg, betaDeg float64, err error) {
+	if err := checkAngle("attitude", "pitch (°)", a.PitchDeg); err != nil {
 		return 0, 0, err
 	}
-	if err := checkAngle("attitude", "roll (°)", a.Roll); err != nil {
+	if err := checkAngle("attitude", "roll (°)", a.RollDeg); err != nil {
 		return 0, 0, err
 	}
-	st, ct := math.Sincos(a.Pitch * deg)
-	sp, cp := math.Sincos(a.Roll * deg)
+	st, ct := math.Sincos(a.PitchDeg * deg)
+	sp, cp := math.Sincos(a.RollDeg * deg)
 	return math.Atan2(cp*st, ct) / deg, math.Asin(math.Max(-1, math.Min(1, sp*st))) / deg, nil
 }
 
 // gravity returns the unit weight vector in body axes at the attitude:
 // (−sin θ, sin φ·cos θ, cos φ·cos θ).
 func (a Attitude) gravity() (gx, gy, gz float64) {
-	st, ct := math.Sincos(a.Pitch * deg)
-	sp, cp := math.Sincos(a.Roll * deg)
+	st, ct := math.Sincos(a.PitchDeg * deg)
+	sp, cp := math.Sincos(a.RollDeg * deg)
 	return -st, sp * ct, cp * ct
 }
 
@@ -189,20 +195,23 @@ func (a Attitude) gravity() (gx, gy, gz float64) {
 // to be subtracted from each wind-on point at its attitude.
 type WeightTare struct {
 	// Weight is the weight carried by the balance (model and any parts
-	// ahead of the balance's gauges), newtons.
+	// ahead of the balance's gauges) (N).
 	Weight float64
 	// CG is the centre of gravity's position from the balance's moment
-	// centre in body axes (x forward, y to starboard, z down), metres;
+	// centre in body axes (x forward, y to starboard, z down) (m);
 	// a coordinate the wind-off attitudes cannot resolve (see
 	// FitWeightTare) is 0 and listed in Unresolved.
 	CG [3]float64
 	// Unresolved names the CG coordinates the points could not fix.
 	Unresolved []string
-	// Points is the number of wind-off attitudes fitted; ForceRMS and
-	// MomentRMS the root-mean-square residuals of the forces (N) and of
-	// the moments (N·m) about the fitted weight.
-	Points              int
-	ForceRMS, MomentRMS float64
+	// Points is the number of wind-off attitudes fitted.
+	Points int
+	// ForceRMS is the root-mean-square residual of the forces about the
+	// fitted weight (N).
+	ForceRMS float64
+	// MomentRMS is the root-mean-square residual of the moments about
+	// the fitted weight (N·m).
+	MomentRMS float64
 }
 
 // TarePoint is one wind-off reading: the attitude and the loads the

@@ -114,12 +114,12 @@ func TestAttitudeAngles(t *testing.T) {
 	for _, tc := range []struct{ pitch, roll, a, b float64 }{
 		{12, 0, 12, 0}, {10, 90, 0, 10}, {10, 45, 7.1071, 7.0530}, {-5, 0, -5, 0},
 	} {
-		a, b, err := tunnel.Attitude{Pitch: tc.pitch, Roll: tc.roll}.Angles()
+		a, b, err := tunnel.Attitude{PitchDeg: tc.pitch, RollDeg: tc.roll}.Angles()
 		if err != nil || math.Abs(a-tc.a) > 1e-4 || math.Abs(b-tc.b) > 1e-4 {
 			t.Errorf("θ %v, φ %v: α %v, β %v, %v; want %v, %v", tc.pitch, tc.roll, a, b, err, tc.a, tc.b)
 		}
 	}
-	if _, _, err := (tunnel.Attitude{Pitch: 200}).Angles(); err == nil {
+	if _, _, err := (tunnel.Attitude{PitchDeg: 200}).Angles(); err == nil {
 		t.Error("pitch 200° accepted")
 	} else {
 		oneClass(t, err)
@@ -146,7 +146,7 @@ func TestWeightTareByHand(t *testing.T) {
 	var pts []tunnel.TarePoint
 	for _, ph := range []float64{0, 30} {
 		for th := -10.0; th <= 20; th += 5 {
-			pts = append(pts, tunnel.TarePoint{Attitude: tunnel.Attitude{Pitch: th, Roll: ph}, Loads: wind(th, ph)})
+			pts = append(pts, tunnel.TarePoint{Attitude: tunnel.Attitude{PitchDeg: th, RollDeg: ph}, Loads: wind(th, ph)})
 		}
 	}
 	all := []tunnel.Component{tunnel.NormalForce, tunnel.AxialForce, tunnel.SideForce, tunnel.RollingMoment, tunnel.PitchingMoment, tunnel.YawingMoment}
@@ -157,7 +157,7 @@ func TestWeightTareByHand(t *testing.T) {
 	if math.Abs(tare.Weight-W) > 1e-12 || math.Abs(tare.CG[0]-x) > 1e-12 || math.Abs(tare.CG[1]-y) > 1e-12 || math.Abs(tare.CG[2]-z) > 1e-12 || len(tare.Unresolved) != 0 {
 		t.Errorf("tare %+v; want W 50 N, CG (0.05, 0.002, −0.01) m", tare)
 	}
-	if d := cmp.Diff(wind(7, 0), tare.Loads(tunnel.Attitude{Pitch: 7}), cmpopts.EquateApprox(0, 1e-12)); d != "" {
+	if d := cmp.Diff(wind(7, 0), tare.Loads(tunnel.Attitude{PitchDeg: 7}), cmpopts.EquateApprox(0, 1e-12)); d != "" {
 		t.Errorf("tare at 7° (-hand +got):\n%s", d)
 	}
 	if l := tare.Loads(tunnel.Attitude{}); math.Abs(l[tunnel.NormalForce]+50) > 1e-12 || math.Abs(l[tunnel.PitchingMoment]+2.5) > 1e-12 {

@@ -121,8 +121,11 @@ const MaxBalanceIterations = 100
 // 10⁻⁹ of the span, the rounding of a load recovered at a limit) are
 // refused.
 type ComponentRange struct {
+	// Component is the load component the range is for.
 	Component Component
-	Min, Max  float64
+	// Min and Max bound the calibrated load (N for a force, N·m for a
+	// moment).
+	Min, Max float64
 }
 
 // holds reports whether the load v lies in the calibrated range, within

@@ -84,7 +84,7 @@ func ExampleFitPolar() {
 		fmt.Println(err)
 		return
 	}
-	fmt.Printf("%d points: dC_L/dα = %.4f /°, α₀ = %.2f°, C_D0 = %.4f, K = %.4f\n", p.N, p.LiftSlope.Value, p.ZeroLiftAlpha.Value, p.CD0.Value, p.K.Value)
+	fmt.Printf("%d points: dC_L/dα = %.4f /°, α₀ = %.2f°, C_D0 = %.4f, K = %.4f\n", p.N, p.LiftSlopePerDeg.Value, p.ZeroLiftAlphaDeg.Value, p.CD0.Value, p.K.Value)
 	// Output:
 	// 8 points: dC_L/dα = 0.0900 /°, α₀ = -1.80°, C_D0 = 0.0210, K = 0.0550
 }
@@ -108,13 +108,13 @@ func ExampleReduction_Reduce() {
 		Reference:   tunnel.Reference{Area: q.New(0.5, q.Area), Span: q.New(2, q.Length), Chord: q.New(0.2, q.Length)},
 		Walls:       tunnel.Model3D{TunnelArea: q.New(6, q.Area), ModelVolume: q.New(0.01, q.Volume), ShapeFactor: 0.9, Delta: 0.12},
 	}
-	p, err := r.Reduce(tunnel.Point{Readings: []float64{0.3, 0.02, 0.05}, Attitude: tunnel.Attitude{Pitch: 4}, DynamicPressure: q.New(1000, q.Pressure)})
+	p, err := r.Reduce(tunnel.Point{Readings: []float64{0.3, 0.02, 0.05}, Attitude: tunnel.Attitude{PitchDeg: 4}, DynamicPressure: q.New(1000, q.Pressure)})
 	if err != nil {
 		fmt.Println(err)
 		return
 	}
 	fmt.Printf("L = %.2f N, D = %.2f N; uncorrected C_L = %.4f, C_D = %.4f\n", p.Wind.Lift, p.Wind.Drag, p.Uncorrected.CL, p.Uncorrected.CD)
-	fmt.Printf("corrected: α = %.3f°, C_L = %.4f, C_D = %.4f, C_m = %.4f\n", p.Corrected.Alpha, p.Corrected.CL, p.Corrected.CD, p.Corrected.CM)
+	fmt.Printf("corrected: α = %.3f°, C_L = %.4f, C_D = %.4f, C_m = %.4f\n", p.Corrected.AlphaDeg, p.Corrected.CL, p.Corrected.CD, p.Corrected.CM)
 	// Output:
 	// L = 319.13 N, D = 22.92 N; uncorrected C_L = 0.6383, C_D = 0.0458
 	// corrected: α = 4.365°, C_L = 0.6363, C_D = 0.0497, C_m = -0.1545

@@ -62,13 +62,13 @@ func FuzzReduce(f *testing.F) {
 			Reference:   tunnel.Reference{Area: q.New(0.5, q.Area), Span: q.New(2, q.Length), Chord: q.New(0.2, q.Length)},
 			Walls:       tunnel.Model3D{TunnelArea: q.New(6, q.Area), ModelVolume: q.New(0.01, q.Volume), ShapeFactor: 0.9, Delta: 0.12},
 		}
-		att := tunnel.Attitude{Pitch: pitch, Roll: roll}
+		att := tunnel.Attitude{PitchDeg: pitch, RollDeg: roll}
 		out, err := red.Reduce(tunnel.Point{Readings: []float64{r0, r1, r2}, Attitude: att, DynamicPressure: q.New(qd, q.Pressure), Mach: mach})
 		if err != nil {
 			oneClass(t, err)
 		} else {
 			cs := out.Corrected
-			for _, v := range []float64{cs.Alpha, cs.CL, cs.CD, cs.CM, out.Uncorrected.Cl, out.Uncorrected.Cn, out.Uncorrected.CY, out.Beta} {
+			for _, v := range []float64{cs.AlphaDeg, cs.CL, cs.CD, cs.CM, out.Uncorrected.Cl, out.Uncorrected.Cn, out.Uncorrected.CY, out.BetaDeg} {
 				if math.IsNaN(v) || math.IsInf(v, 0) {
 					t.Fatalf("non-finite result %+v with a nil error", out)
 				}
@@ -84,7 +84,7 @@ func FuzzReduce(f *testing.F) {
 		if _, err := l.About(tunnel.Offset{X: q.New(dx, q.Length), Z: q.New(qd, q.Length)}); err != nil {
 			oneClass(t, err)
 		}
-		pts := []tunnel.TarePoint{{Attitude: att, Loads: l}, {Attitude: tunnel.Attitude{Pitch: pitch / 2}, Loads: l.Sub(l)}}
+		pts := []tunnel.TarePoint{{Attitude: att, Loads: l}, {Attitude: tunnel.Attitude{PitchDeg: pitch / 2}, Loads: l.Sub(l)}}
 		if tr, err := tunnel.FitWeightTare(pts, []tunnel.Component{tunnel.NormalForce, tunnel.AxialForce, tunnel.PitchingMoment}); err != nil {
 			oneClass(t, err)
 		} else if math.IsNaN(tr.Weight+tr.CG[0]+tr.CG[1]+tr.CG[2]) || math.IsInf(tr.Weight+tr.CG[0]+tr.CG[2], 0) {
@@ -92,7 +92,7 @@ func FuzzReduce(f *testing.F) {
 		}
 		if p, err := tunnel.FitPolar([]float64{pitch, roll, dx, 1}, []float64{r0, r1, r2, 0.1}, []float64{qd, w, mach, 0.02}, -10, 20, 0); err != nil {
 			oneClass(t, err)
-		} else if math.IsNaN(p.LiftSlope.Value + p.ZeroLiftAlpha.Interval[1] + p.K.Interval[0]) {
+		} else if math.IsNaN(p.LiftSlopePerDeg.Value + p.ZeroLiftAlphaDeg.Interval[1] + p.K.Interval[0]) {
 			t.Fatalf("polar %+v", p)
 		}
 	})

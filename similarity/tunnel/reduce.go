@@ -70,7 +70,7 @@ type Reduction struct {
 	Reference Reference
 	// Walls holds the tunnel's and model's geometry and chart factors for
 	// CorrectWalls3D (TunnelArea, ModelVolume, ShapeFactor, Delta, the
-	// curvature factors and LiftSlope); its WingArea is taken from
+	// curvature factors and LiftSlopePerDeg); its WingArea is taken from
 	// Reference.Area and its Alpha, CL, CD, CM and Mach from each point.
 	Walls Model3D
 }
@@ -80,6 +80,8 @@ type Reduction struct {
 // attitude, the uncorrected dynamic pressure q_u and the test section's
 // uncorrected Mach number.
 type Point struct {
+	// Readings are the balance's readings (the calibration's
+	// ReadingUnit), one per component in its order.
 	Readings        []float64
 	Attitude        Attitude
 	DynamicPressure quantity.Quantity
@@ -88,13 +90,13 @@ type Point struct {
 
 // Reduced is one point through every step of the reduction.
 type Reduced struct {
-	Alpha, Beta float64 // from the attitude (degrees), before the wall correction
-	Balance     Loads   // from the calibration, at the balance's moment centre
-	Tare        Loads   // the weight's loads at the point's attitude
-	Aero        Loads   // Balance − Tare, about the moment reference point
-	Wind        AxisLoads
-	Uncorrected Coefficients // on the uncorrected dynamic pressure
-	Corrected   Corrected3D  // corrected for the walls: α, C_L, C_D, C_m on the corrected q
+	AlphaDeg, BetaDeg float64 // from the attitude (degrees), before the wall correction
+	Balance           Loads   // from the calibration, at the balance's moment centre
+	Tare              Loads   // the weight's loads at the point's attitude
+	Aero              Loads   // Balance − Tare, about the moment reference point
+	Wind              AxisLoads
+	Uncorrected       Coefficients // on the uncorrected dynamic pressure
+	Corrected         Corrected3D  // corrected for the walls: α, C_L, C_D, C_m on the corrected q
 }
 
 // Reduce takes one point through the reduction. Each step's error names
@@ -107,7 +109,7 @@ func (r *Reduction) Reduce(p Point) (Reduced, error) {
 	}
 	var out Reduced
 	var err error
-	if out.Alpha, out.Beta, err = p.Attitude.Angles(); err != nil {
+	if out.AlphaDeg, out.BetaDeg, err = p.Attitude.Angles(); err != nil {
 		return Reduced{}, err
 	}
 	if out.Balance, err = r.Calibration.Loads(p.Readings); err != nil {
@@ -120,7 +122,7 @@ func (r *Reduction) Reduce(p Point) (Reduced, error) {
 	if out.Aero, err = out.Balance.Sub(out.Tare).About(r.Offset); err != nil {
 		return Reduced{}, err
 	}
-	if out.Wind, err = out.Aero.ToWind(out.Alpha, out.Beta); err != nil {
+	if out.Wind, err = out.Aero.ToWind(out.AlphaDeg, out.BetaDeg); err != nil {
 		return Reduced{}, err
 	}
 	if out.Uncorrected, err = out.Wind.Coefficients(p.DynamicPressure, r.Reference); err != nil {
@@ -128,7 +130,7 @@ func (r *Reduction) Reduce(p Point) (Reduced, error) {
 	}
 	m := r.Walls
 	m.WingArea = r.Reference.Area
-	m.Alpha, m.CL, m.CD, m.CM, m.Mach = out.Alpha, out.Uncorrected.CL, out.Uncorrected.CD, out.Uncorrected.Cm, p.Mach
+	m.AlphaDeg, m.CL, m.CD, m.CM, m.Mach = out.AlphaDeg, out.Uncorrected.CL, out.Uncorrected.CD, out.Uncorrected.Cm, p.Mach
 	if out.Corrected, err = CorrectWalls3D(m); err != nil {
 		return Reduced{}, err
 	}
@@ -137,7 +139,11 @@ func (r *Reduction) Reduce(p Point) (Reduced, error) {
 
 // Estimate is a fitted value with its confidence interval.
 type Estimate struct {
-	Value    float64
+	// Value is the fitted value, in the unit of what is estimated (per
+	// degree for LiftSlopePerDeg, degrees for ZeroLiftAlphaDeg,
+	// dimensionless for CD0 and K).
+	Value float64
+	// Interval is the confidence interval of Value (same unit).
 	Interval [2]float64
 }
 
@@ -145,14 +151,14 @@ type Estimate struct {
 // coefficients: C_L = a·(α − α₀) over the linear range of the lift curve,
 // and the parabolic polar C_D = C_D0 + K·C_L² over the same points.
 type Polar struct {
-	// AlphaRange is the range of α (degrees) taken as linear; N the
+	// AlphaRangeDeg is the range of α (degrees) taken as linear; N the
 	// number of points in it.
-	AlphaRange [2]float64
-	N          int
-	// LiftSlope is dC_L/dα per degree and ZeroLiftAlpha α₀ in degrees,
+	AlphaRangeDeg [2]float64
+	N             int
+	// LiftSlopePerDeg is dC_L/dα (per degree) and ZeroLiftAlphaDeg α₀ (degrees),
 	// from a straight line C_L = a₀ + a·α; the interval of α₀ = −a₀/a is
 	// first-order (delta method with the covariance of a₀ and a).
-	LiftSlope, ZeroLiftAlpha Estimate
+	LiftSlopePerDeg, ZeroLiftAlphaDeg Estimate
 	// CD0 and K are the polar's C_D at zero lift and its induced-drag
 	// factor, from a straight line of C_D against C_L².
 	CD0, K Estimate
@@ -165,20 +171,20 @@ type Polar struct {
 
 // FitPolar fits the lift curve and the parabolic drag polar to corrected
 // points (α in degrees, C_L, C_D), using the points whose α lies in
-// [alphaLo, alphaHi], the range the engineer judges linear (below the
+// [alphaLoDeg, alphaHiDeg] (degrees), the range the engineer judges linear (below the
 // stall, above any negative stall), with intervals at the confidence
 // level (0.95 if zero). Both fits are straight lines by quantity/fit's
 // FitPoly. The parabolic polar is symmetric about C_L = 0; a cambered
 // wing whose least drag lies at C_L ≠ 0 is fitted only approximately by
 // it (compare the Drag fit's residuals). It needs at least three points
 // in the range with distinct α and distinct C_L².
-func FitPolar(alpha, cl, cd []float64, alphaLo, alphaHi, level float64) (Polar, error) {
+func FitPolar(alphaDeg, cl, cd []float64, alphaLoDeg, alphaHiDeg, level float64) (Polar, error) {
 	const op = "polar fit"
-	if len(alpha) != len(cl) || len(alpha) != len(cd) {
-		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("points", fmt.Sprintf("%d angles, %d lift and %d drag coefficients: want one of each per point", len(alpha), len(cl), len(cd)))}
+	if len(alphaDeg) != len(cl) || len(alphaDeg) != len(cd) {
+		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("points", fmt.Sprintf("%d angles, %d lift and %d drag coefficients: want one of each per point", len(alphaDeg), len(cl), len(cd)))}
 	}
-	if !(alphaLo < alphaHi) || math.Abs(alphaLo) > maxAngleDeg || math.Abs(alphaHi) > maxAngleDeg {
-		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("alpha range", fmt.Sprintf("the linear range %g … %g° must be finite and increasing", alphaLo, alphaHi))}
+	if !(alphaLoDeg < alphaHiDeg) || math.Abs(alphaLoDeg) > maxAngleDeg || math.Abs(alphaHiDeg) > maxAngleDeg {
+		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("alphaDeg range", fmt.Sprintf("the linear range %g … %g° must be finite and increasing", alphaLoDeg, alphaHiDeg))}
 	}
 	if level == 0 {
 		level = 0.95
@@ -187,19 +193,19 @@ func FitPolar(alpha, cl, cd []float64, alphaLo, alphaHi, level float64) (Polar, 
 		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("level", fmt.Sprintf("confidence level %g: want 0 < level < 1", level))}
 	}
 	var a, l, l2, d []float64
-	for i := range alpha {
-		if math.IsNaN(alpha[i]) || math.IsInf(alpha[i], 0) || !(math.Abs(cl[i]) <= maxCoefficient) || !(math.Abs(cd[i]) <= maxCoefficient) {
+	for i := range alphaDeg {
+		if math.IsNaN(alphaDeg[i]) || math.IsInf(alphaDeg[i], 0) || !(math.Abs(cl[i]) <= maxCoefficient) || !(math.Abs(cd[i]) <= maxCoefficient) {
 			return Polar{}, &Error{Op: op, Fault: similarity.OutOfRange(fmt.Sprintf("point %d", i+1), fmt.Sprintf("point %d: α, C_L and C_D must be finite and the coefficients within ±%g", i+1, maxCoefficient))}
 		}
-		if alpha[i] >= alphaLo && alpha[i] <= alphaHi {
-			a, l, l2, d = append(a, alpha[i]), append(l, cl[i]), append(l2, cl[i]*cl[i]), append(d, cd[i])
+		if alphaDeg[i] >= alphaLoDeg && alphaDeg[i] <= alphaHiDeg {
+			a, l, l2, d = append(a, alphaDeg[i]), append(l, cl[i]), append(l2, cl[i]*cl[i]), append(d, cd[i])
 		}
 	}
 	if len(a) < 3 {
-		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("points", fmt.Sprintf("%d points in the linear range %g … %g°: want at least 3", len(a), alphaLo, alphaHi))}
+		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("points", fmt.Sprintf("%d points in the linear range %g … %g°: want at least 3", len(a), alphaLoDeg, alphaHiDeg))}
 	}
 	opt := &fit.Options{Level: level}
-	p := Polar{AlphaRange: [2]float64{alphaLo, alphaHi}, N: len(a), Level: level}
+	p := Polar{AlphaRangeDeg: [2]float64{alphaLoDeg, alphaHiDeg}, N: len(a), Level: level}
 	var err error
 	if p.Lift, err = fit.FitPoly(a, l, 1, opt); err != nil {
 		return Polar{}, &Error{Op: op, Fault: similarity.Caused("lift curve", "the lift curve cannot be fitted", err)}
@@ -218,7 +224,7 @@ func FitPolar(alpha, cl, cd []float64, alphaLo, alphaHi, level float64) (Polar, 
 		return Polar{}, &Error{Op: op, Fault: similarity.Caused("drag polar", "the drag polar's coefficients", err)}
 	}
 	tq := tQuantile(p.Lift)
-	p.LiftSlope = estimate(la[1], tq*lse[1])
+	p.LiftSlopePerDeg = estimate(la[1], tq*lse[1])
 	td := tQuantile(p.Drag)
 	p.CD0, p.K = estimate(da[0], td*dse[0]), estimate(da[1], td*dse[1])
 	if !(la[1] != 0) {
@@ -230,8 +236,8 @@ func FitPolar(alpha, cl, cd []float64, alphaLo, alphaHi, level float64) (Polar, 
 	b0, b1, s := p.Lift.B[0], p.Lift.B[1], p.Lift.Scale
 	a0 := p.Lift.Center - s*b0/b1
 	v := s * s * (p.Lift.Cov(0, 0)/(b1*b1) + b0*b0*p.Lift.Cov(1, 1)/(b1*b1*b1*b1) - 2*b0*p.Lift.Cov(0, 1)/(b1*b1*b1))
-	p.ZeroLiftAlpha = estimate(a0, tq*math.Sqrt(math.Max(v, 0)))
-	for _, e := range []Estimate{p.LiftSlope, p.ZeroLiftAlpha, p.CD0, p.K} {
+	p.ZeroLiftAlphaDeg = estimate(a0, tq*math.Sqrt(math.Max(v, 0)))
+	for _, e := range []Estimate{p.LiftSlopePerDeg, p.ZeroLiftAlphaDeg, p.CD0, p.K} {
 		if !allFinite(e.Value, e.Interval[0], e.Interval[1]) {
 			return Polar{}, &Error{Op: op, Fault: similarity.OutOfRange("polar", "a fitted value or interval is out of the range of a float64")}
 		}

@@ -45,7 +45,7 @@ func TestReduceByHand(t *testing.T) {
 		Reference:   tunnel.Reference{Area: q.New(0.5, q.Area), Span: q.New(2, q.Length), Chord: q.New(0.2, q.Length)},
 		Walls:       tunnel.Model3D{TunnelArea: q.New(6, q.Area), ModelVolume: q.New(0.01, q.Volume), ShapeFactor: 0.9, Delta: 0.12},
 	}
-	out, err := r.Reduce(tunnel.Point{Readings: []float64{0.3, 0.02, 0.05}, Attitude: tunnel.Attitude{Pitch: 4}, DynamicPressure: q.New(1000, q.Pressure)})
+	out, err := r.Reduce(tunnel.Point{Readings: []float64{0.3, 0.02, 0.05}, Attitude: tunnel.Attitude{PitchDeg: 4}, DynamicPressure: q.New(1000, q.Pressure)})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -64,7 +64,7 @@ func TestReduceByHand(t *testing.T) {
 		{"C_m,u", out.Uncorrected.Cm, -0.1549756, 1e-7},
 		{"q/q_u", out.Corrected.DynamicPressureFactor, 1.0031374, 1e-7},
 		{"C_L", out.Corrected.CL, 0.6362632, 1e-7},
-		{"α", out.Corrected.Alpha, 4.364579, 1e-6},
+		{"α", out.Corrected.AlphaDeg, 4.364579, 1e-6},
 		{"C_D", out.Corrected.CD, 0.0497491, 1e-7},
 		{"C_m", out.Corrected.CM, -0.1544909, 1e-7},
 	} {
@@ -100,7 +100,7 @@ func TestFitPolarExact(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if p.N != 15 || math.Abs(p.LiftSlope.Value-0.1) > 1e-12 || math.Abs(p.ZeroLiftAlpha.Value+2) > 1e-10 ||
+	if p.N != 15 || math.Abs(p.LiftSlopePerDeg.Value-0.1) > 1e-12 || math.Abs(p.ZeroLiftAlphaDeg.Value+2) > 1e-10 ||
 		math.Abs(p.CD0.Value-0.02) > 1e-12 || math.Abs(p.K.Value-0.05) > 1e-12 || p.Level != 0.95 {
 		t.Errorf("polar %+v", p)
 	}
@@ -128,13 +128,13 @@ func TestFitPolarIntervals(t *testing.T) {
 		name string
 		e    tunnel.Estimate
 		true float64
-	}{{"slope", p.LiftSlope, 0.095}, {"α₀", p.ZeroLiftAlpha, -1.5}, {"C_D0", p.CD0, 0.018}, {"K", p.K, 0.06}} {
+	}{{"slope", p.LiftSlopePerDeg, 0.095}, {"α₀", p.ZeroLiftAlphaDeg, -1.5}, {"C_D0", p.CD0, 0.018}, {"K", p.K, 0.06}} {
 		if !(c.e.Interval[0] < c.true && c.true < c.e.Interval[1]) {
 			t.Errorf("%s: %v, interval %v does not hold the true %v", c.name, c.e.Value, c.e.Interval, c.true)
 		}
 	}
-	if w := p.LiftSlope.Interval[1] - p.LiftSlope.Interval[0]; !(w > 0 && w < 0.05*0.095) {
-		t.Errorf("slope interval %v: width %v", p.LiftSlope.Interval, w)
+	if w := p.LiftSlopePerDeg.Interval[1] - p.LiftSlopePerDeg.Interval[0]; !(w > 0 && w < 0.05*0.095) {
+		t.Errorf("slope interval %v: width %v", p.LiftSlopePerDeg.Interval, w)
 	}
 }
 

@@ -34,7 +34,7 @@ func ExampleFindCondition() {
 // (1 + 0.4Ma²)/β², and above Ma 0.8 the corrections are refused.
 func ExampleCorrectWalls2D() {
 	s := tunnel.Section2D{Chord: q.New(0.3, q.Length), Height: q.New(0.9, q.Length), ShapeFactor: 0.25,
-		Alpha: 6, CL: 0.82, CD: 0.0125, CM: -0.08, Mach: 0.62}
+		AlphaDeg: 6, CL: 0.82, CD: 0.0125, CM: -0.08, Mach: 0.62}
 	r, err := tunnel.CorrectWalls2D(s)
 	if err != nil {
 		fmt.Println(err)

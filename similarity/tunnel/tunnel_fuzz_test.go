@@ -39,19 +39,19 @@ func FuzzTunnel(f *testing.F) {
 				t.Errorf("finder returned a state the gas refuses: %v", err)
 			}
 		}
-		s := tunnel.Section2D{Chord: q.New(c, q.Length), Height: q.New(h, q.Length), ShapeFactor: margin, Alpha: coef, CL: coef, CD: vol, CM: -coef, Mach: mach}
+		s := tunnel.Section2D{Chord: q.New(c, q.Length), Height: q.New(h, q.Length), ShapeFactor: margin, AlphaDeg: coef, CL: coef, CD: vol, CM: -coef, Mach: mach}
 		if r, err := tunnel.CorrectWalls2D(s); err == nil {
 			if !allFinite(r.Sigma, r.Beta, r.SolidBlock, r.WakeBlock, r.Blockage, r.VelocityFactor, r.MachFactor, r.ReynoldsFactor,
-				r.DynamicPressureFactor, r.Alpha, r.CL, r.CD, r.CM, r.DeltaAlpha, r.ChordToHeight) {
+				r.DynamicPressureFactor, r.AlphaDeg, r.CL, r.CD, r.CM, r.DeltaAlphaDeg, r.ChordToHeight) {
 				t.Errorf("2-D: %+v", r)
 			}
 		}
 		m := tunnel.Model3D{WingArea: q.New(c, q.Area), TunnelArea: q.New(h, q.Area), ModelVolume: q.New(vol, q.Volume), ShapeFactor: margin,
-			Delta: ratio, Alpha: coef, CL: coef, CD: vol, CM: -coef, CurvatureFactor: margin, LiftSlope: ratio, TailCurvatureFactor: margin,
-			TailMomentSlope: -coef, Mach: mach}
+			Delta: ratio, AlphaDeg: coef, CL: coef, CD: vol, CM: -coef, CurvatureFactor: margin, LiftSlopePerDeg: ratio, TailCurvatureFactor: margin,
+			TailMomentSlopePerDeg: -coef, Mach: mach}
 		if r, err := tunnel.CorrectWalls3D(m); err == nil {
-			if !allFinite(r.Beta, r.SolidBlock, r.WakeBlock, r.Blockage, r.DynamicPressureFactor, r.DeltaAlpha, r.DeltaCD, r.DeltaAlphaCurvature,
-				r.DeltaCLCurvature, r.DeltaCMCurvature, r.TailAngle, r.DeltaCMTail, r.Alpha, r.CL, r.CD, r.CM) {
+			if !allFinite(r.Beta, r.SolidBlock, r.WakeBlock, r.Blockage, r.DynamicPressureFactor, r.DeltaAlphaDeg, r.DeltaCD, r.DeltaAlphaCurvatureDeg,
+				r.DeltaCLCurvature, r.DeltaCMCurvature, r.TailAngleDeg, r.DeltaCMTail, r.AlphaDeg, r.CL, r.CD, r.CM) {
 				t.Errorf("3-D: %+v", r)
 			}
 		}

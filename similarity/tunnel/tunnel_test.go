@@ -25,7 +25,7 @@ import (
 // The old corrections ignored the Mach number and gave the Ma = 0 values.
 func TestWallCorrections2DCompressible(t *testing.T) {
 	r, err := tunnel.CorrectWalls2D(tunnel.Section2D{Chord: q.New(0.3, q.Length), Height: q.New(0.9, q.Length),
-		ShapeFactor: 0.25, Alpha: 6, CL: 0.82, CD: 0.0125, CM: -0.08, Mach: 0.62})
+		ShapeFactor: 0.25, AlphaDeg: 6, CL: 0.82, CD: 0.0125, CM: -0.08, Mach: 0.62})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -35,7 +35,7 @@ func TestWallCorrections2DCompressible(t *testing.T) {
 	}{
 		{"σ", r.Sigma, 0.02284630648}, {"β", r.Beta, 0.7846018098}, {"ε_sb", r.SolidBlock, 0.01182518899},
 		{"ε_wb", r.WakeBlock, 0.001952295863}, {"ε", r.Blockage, 0.01377748486}, {"q/q_u", r.DynamicPressureFactor, 1.022258905},
-		{"Ma/Ma_u", r.MachFactor, 1.014836698}, {"Re/Re_u", r.ReynoldsFactor, 1.010070239}, {"α", r.Alpha, 6.132773514},
+		{"Ma/Ma_u", r.MachFactor, 1.014836698}, {"Re/Re_u", r.ReynoldsFactor, 1.010070239}, {"α", r.AlphaDeg, 6.132773514},
 		{"C_l", r.CL, 0.7713156461}, {"C_m¼", r.CM, -0.07106297118}, {"C_d", r.CD, 0.01207394883},
 	} {
 		if math.Abs(c.got-c.want) > 5e-10*math.Max(1, math.Abs(c.want)) {
@@ -52,7 +52,7 @@ func TestWallCorrections2DCompressible(t *testing.T) {
 // q/q_u = (1 + ε)²(1 − Ma²ε).
 func TestWallCorrections3DCompressible(t *testing.T) {
 	r, err := tunnel.CorrectWalls3D(tunnel.Model3D{WingArea: q.New(0.3, q.Area), TunnelArea: q.New(3, q.Area),
-		ModelVolume: q.New(0.012, q.Volume), ShapeFactor: 0.86, Delta: 0.125, Alpha: 4, CL: 0.75, CD: 0.04, Mach: 0.62})
+		ModelVolume: q.New(0.012, q.Volume), ShapeFactor: 0.86, Delta: 0.125, AlphaDeg: 4, CL: 0.75, CD: 0.04, Mach: 0.62})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -61,7 +61,7 @@ func TestWallCorrections3DCompressible(t *testing.T) {
 		got, want float64
 	}{
 		{"ε_sb", r.SolidBlock, 0.004111969631}, {"ε_wb", r.WakeBlock, 0.001874204029}, {"q/q_u", r.DynamicPressureFactor, 1.009679465},
-		{"C_L", r.CL, 0.7428099969}, {"α", r.Alpha, 4.53203766}, {"C_D", r.CD, 0.04651361681},
+		{"C_L", r.CL, 0.7428099969}, {"α", r.AlphaDeg, 4.53203766}, {"C_D", r.CD, 0.04651361681},
 	} {
 		if math.Abs(c.got-c.want) > 5e-10*math.Max(1, math.Abs(c.want)) {
 			t.Errorf("%s = %.10g, by hand %.10g", c.name, c.got, c.want)
@@ -101,7 +101,7 @@ func TestWallCorrectionsIncompressibleUnchanged(t *testing.T) {
 		lam := rapid.Float64Range(0, 1).Draw(t, "Λ")
 		al, cl := rapid.Float64Range(-15, 15).Draw(t, "α"), rapid.Float64Range(-1.5, 2).Draw(t, "C_l")
 		cd, cm := rapid.Float64Range(0.005, 0.1).Draw(t, "C_d"), rapid.Float64Range(-0.2, 0.1).Draw(t, "C_m")
-		r, err := tunnel.CorrectWalls2D(tunnel.Section2D{Chord: q.New(c, q.Length), Height: q.New(h, q.Length), ShapeFactor: lam, Alpha: al, CL: cl, CD: cd, CM: cm})
+		r, err := tunnel.CorrectWalls2D(tunnel.Section2D{Chord: q.New(c, q.Length), Height: q.New(h, q.Length), ShapeFactor: lam, AlphaDeg: al, CL: cl, CD: cd, CM: cm})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -110,9 +110,9 @@ func TestWallCorrectionsIncompressibleUnchanged(t *testing.T) {
 		e := esb + ewb
 		wcl := cl * (1 - sig - 2*e)
 		want := tunnel.Corrected2D{Sigma: sig, Beta: 1, SolidBlock: esb, WakeBlock: ewb, Blockage: e, VelocityFactor: 1 + e, MachFactor: 1 + e,
-			ReynoldsFactor: 1 + e, DynamicPressureFactor: 1 + 2*e, DeltaAlpha: 57.3 * sig / (2 * math.Pi) * (cl + 4*cm),
+			ReynoldsFactor: 1 + e, DynamicPressureFactor: 1 + 2*e, DeltaAlphaDeg: 57.3 * sig / (2 * math.Pi) * (cl + 4*cm),
 			CL: wcl, CM: cm*(1-2*e) + sig*wcl/4, CD: cd * (1 - 3*esb - 2*ewb), ChordToHeight: c / h}
-		want.Alpha = al + want.DeltaAlpha
+		want.AlphaDeg = al + want.DeltaAlphaDeg
 		if r != want {
 			t.Fatalf("2-D at Ma 0:\n got %+v\nwant %+v", r, want)
 		}
@@ -121,7 +121,7 @@ func TestWallCorrectionsIncompressibleUnchanged(t *testing.T) {
 		v := rapid.Float64Range(0, 0.05).Draw(t, "V")
 		k, d := rapid.Float64Range(0, 1.5).Draw(t, "Kτ₁"), rapid.Float64Range(0, 0.3).Draw(t, "δ")
 		m := tunnel.Model3D{WingArea: q.New(s, q.Area), TunnelArea: q.New(3, q.Area), ModelVolume: q.New(v, q.Volume), ShapeFactor: k, Delta: d,
-			Alpha: al, CL: cl, CD: cd, CM: cm, CurvatureFactor: 0.1, LiftSlope: 0.08, TailCurvatureFactor: 0.5, TailMomentSlope: -0.02}
+			AlphaDeg: al, CL: cl, CD: cd, CM: cm, CurvatureFactor: 0.1, LiftSlopePerDeg: 0.08, TailCurvatureFactor: 0.5, TailMomentSlopePerDeg: -0.02}
 		r3, err := tunnel.CorrectWalls3D(m)
 		if err != nil {
 			t.Fatal(err)
@@ -131,13 +131,13 @@ func TestWallCorrectionsIncompressibleUnchanged(t *testing.T) {
 		f := (1 + e3) * (1 + e3)
 		clq := cl / f
 		da := 57.3 * d * s / 3 * clq
-		w3 := tunnel.Corrected3D{Beta: 1, SolidBlock: esb3, WakeBlock: ewb3, Blockage: e3, DynamicPressureFactor: f, DeltaAlpha: da,
-			DeltaCD: d * s / 3 * clq * clq, DeltaAlphaCurvature: 0.1 * da}
-		w3.DeltaCLCurvature = -w3.DeltaAlphaCurvature * 0.08
+		w3 := tunnel.Corrected3D{Beta: 1, SolidBlock: esb3, WakeBlock: ewb3, Blockage: e3, DynamicPressureFactor: f, DeltaAlphaDeg: da,
+			DeltaCD: d * s / 3 * clq * clq, DeltaAlphaCurvatureDeg: 0.1 * da}
+		w3.DeltaCLCurvature = -w3.DeltaAlphaCurvatureDeg * 0.08
 		w3.DeltaCMCurvature = -0.25 * w3.DeltaCLCurvature
-		w3.TailAngle = 0.5 * da
-		w3.DeltaCMTail = 0.02 * w3.TailAngle
-		w3.Alpha = al + da + w3.DeltaAlphaCurvature
+		w3.TailAngleDeg = 0.5 * da
+		w3.DeltaCMTail = 0.02 * w3.TailAngleDeg
+		w3.AlphaDeg = al + da + w3.DeltaAlphaCurvatureDeg
 		w3.CL = clq + w3.DeltaCLCurvature
 		w3.CD = cd/f + w3.DeltaCD
 		w3.CM = cm/f + w3.DeltaCMCurvature + w3.DeltaCMTail
@@ -169,13 +169,13 @@ func TestWallCorrectionsExtremeFinite(t *testing.T) {
 	}{
 		{"2-D: C_l = 1e308, C_m = −1e308", sec(func(s *tunnel.Section2D) { s.CL, s.CM = 1e308, -1e308 })},
 		{"2-D: C_d = 1e300", sec(func(s *tunnel.Section2D) { s.CD = 1e300 })},
-		{"2-D: α = 1e300", sec(func(s *tunnel.Section2D) { s.Alpha = 1e300 })},
+		{"2-D: α = 1e300", sec(func(s *tunnel.Section2D) { s.AlphaDeg = 1e300 })},
 		{"3-D: volume MaxFloat64 in a 1e-10 m² section", mod(func(m *tunnel.Model3D) {
 			m.ModelVolume, m.TunnelArea, m.WingArea = q.New(max, q.Volume), q.New(1e-10, q.Area), q.New(1e-11, q.Area)
 		})},
 		{"3-D: C_L = 1e308, C_m = −1e308", mod(func(m *tunnel.Model3D) { m.CL, m.CM = 1e308, -1e308 })},
 		{"3-D: tail slope 1e308 against C_m −1e308", mod(func(m *tunnel.Model3D) {
-			m.TailCurvatureFactor, m.TailMomentSlope, m.CM = 1, 1e308, -1e308
+			m.TailCurvatureFactor, m.TailMomentSlopePerDeg, m.CM = 1, 1e308, -1e308
 		})},
 	} {
 		if c.err == nil {

@@ -69,10 +69,11 @@ type Section2D struct {
 	// blockage (from the section's thickness distribution; about 0.2 to
 	// 0.3 for common 12 % sections).
 	ShapeFactor float64
-	// Alpha is the geometric angle of attack in degrees; CL, CD and CM
-	// (about the quarter chord) the measured coefficients on the
-	// uncorrected dynamic pressure.
-	Alpha, CL, CD, CM float64
+	// AlphaDeg is the geometric angle of attack (degrees).
+	AlphaDeg float64
+	// CL, CD and CM (about the quarter chord) are the measured
+	// coefficients on the uncorrected dynamic pressure.
+	CL, CD, CM float64
 	// Mach is the test section's uncorrected Mach number, 0 …
 	// MaxWallCorrectionMach; 0 gives the incompressible corrections.
 	Mach float64
@@ -91,9 +92,9 @@ type Corrected2D struct {
 	// equal 1 + ε at Ma = 0).
 	VelocityFactor, MachFactor, ReynoldsFactor float64
 	DynamicPressureFactor                      float64 // q/q_u = 1 + (2 − Ma²)ε
-	Alpha                                      float64 // α = α_u + (57.3σ/(2πβ))(C_lu + 4C_m¼u), degrees
+	AlphaDeg                                   float64 // α = α_u + (57.3σ/(2πβ))(C_lu + 4C_m¼u) (degrees)
 	CL, CD, CM                                 float64 // corrected coefficients
-	DeltaAlpha                                 float64 // α − α_u, degrees
+	DeltaAlphaDeg                              float64 // α − α_u (degrees)
 	ChordToHeight                              float64 // c/h
 }
 
@@ -147,7 +148,7 @@ func CorrectWalls2D(s Section2D) (Corrected2D, error) {
 	if !(s.ShapeFactor >= 0 && s.ShapeFactor < 2) {
 		return Corrected2D{}, m("the shape factor must lie in 0 … 2 and the coefficients be finite")
 	}
-	if err := checkCoefficients(method, bound{"angle of attack (°)", s.Alpha, -maxAlphaDeg, maxAlphaDeg},
+	if err := checkCoefficients(method, bound{"angle of attack (°)", s.AlphaDeg, -maxAlphaDeg, maxAlphaDeg},
 		bound{"C_l", s.CL, -maxCoefficient, maxCoefficient}, bound{"C_d", s.CD, -maxCoefficient, maxCoefficient},
 		bound{"C_m¼", s.CM, -maxCoefficient, maxCoefficient}); err != nil {
 		return Corrected2D{}, err
@@ -171,8 +172,8 @@ func CorrectWalls2D(s Section2D) (Corrected2D, error) {
 	r.MachFactor = 1 + (1+0.2*m2)*r.Blockage
 	r.ReynoldsFactor = 1 + (1-0.7*m2)*r.Blockage
 	r.DynamicPressureFactor = 1 + (2-m2)*r.Blockage
-	r.DeltaAlpha = 57.3 * r.Sigma / (2 * math.Pi * beta) * (s.CL + 4*s.CM)
-	r.Alpha = s.Alpha + r.DeltaAlpha
+	r.DeltaAlphaDeg = 57.3 * r.Sigma / (2 * math.Pi * beta) * (s.CL + 4*s.CM)
+	r.AlphaDeg = s.AlphaDeg + r.DeltaAlphaDeg
 	r.CL = s.CL * (1 - r.Sigma/b2 - (2-m2)*r.Blockage)
 	r.CM = s.CM*(1-(2-m2)*r.Blockage) + r.Sigma*r.CL/(4*b2)
 	r.CD = s.CD * (1 - (3-m2)*r.SolidBlock - (2-m2)*r.WakeBlock)
@@ -195,22 +196,22 @@ type Model3D struct {
 	// (0.125 for a small wing in a closed circular section; from the
 	// charts for the section's shape and the span ratio).
 	Delta float64
-	// Alpha (degrees), CL, CD and CM are the measured, uncorrected
+	// AlphaDeg (degrees), CL, CD and CM are the measured, uncorrected
 	// values, CM about the quarter point of the mean aerodynamic chord:
 	// the curvature correction's moment term is about that point, so a
 	// balance moment about another reference is transferred there first.
-	Alpha, CL, CD, CM float64
+	AlphaDeg, CL, CD, CM float64
 	// CurvatureFactor is τ₂ of the wing's streamline-curvature
 	// correction, read from the compendium's chart at a distance of a
 	// quarter of the mean chord behind the quarter-chord point; zero
-	// leaves the curvature correction out. LiftSlope is the wing's
-	// dC_L/dα per degree, which the lift correction needs.
-	CurvatureFactor, LiftSlope float64
+	// leaves the curvature correction out. LiftSlopePerDeg is the wing's
+	// dC_L/dα (per degree), which the lift correction needs.
+	CurvatureFactor, LiftSlopePerDeg float64
 	// TailCurvatureFactor is τ₂ at the tail's distance behind the wing
-	// and TailMomentSlope the pitching-moment slope per degree of tail
-	// angle, ∂C_m/∂α_t (from tail-on and tail-off runs); zero
-	// TailMomentSlope leaves the tail correction out.
-	TailCurvatureFactor, TailMomentSlope float64
+	// and TailMomentSlopePerDeg the pitching-moment slope ∂C_m/∂α_t (per
+	// degree of tail angle, from tail-on and tail-off runs); zero
+	// TailMomentSlopePerDeg leaves the tail correction out.
+	TailCurvatureFactor, TailMomentSlopePerDeg float64
 	// Mach is the test section's uncorrected Mach number, 0 …
 	// MaxWallCorrectionMach; 0 gives the incompressible corrections. In
 	// compressible flow τ₂ and τ₂,t are read from the charts at the
@@ -227,19 +228,19 @@ type Corrected3D struct {
 	WakeBlock             float64 // ε_wb = (S/4C)·C_Du·(1 + 0.4Ma²)/β²
 	Blockage              float64 // ε = ε_sb + ε_wb
 	DynamicPressureFactor float64 // q/q_u = (1 + ε)²(1 − Ma²ε)
-	DeltaAlpha            float64 // 57.3·δ·(S/C)·C_L, degrees (upwash-free angle)
+	DeltaAlphaDeg         float64 // 57.3·δ·(S/C)·C_L (degrees; upwash-free angle)
 	DeltaCD               float64 // δ·(S/C)·C_L², the induced-drag correction
-	// DeltaAlphaCurvature is the wing's streamline-curvature angle
+	// DeltaAlphaCurvatureDeg is the wing's streamline-curvature angle
 	// correction τ₂·δ·(S/C)·C_L·57.3 (degrees), DeltaCLCurvature the lift
 	// correction −Δα_sc·a and DeltaCMCurvature the quarter-chord moment
 	// correction −0.25·ΔC_L,sc.
-	DeltaAlphaCurvature, DeltaCLCurvature, DeltaCMCurvature float64
-	// TailAngle is the extra angle the tail meets in the tunnel,
+	DeltaAlphaCurvatureDeg, DeltaCLCurvature, DeltaCMCurvature float64
+	// TailAngleDeg is the extra angle the tail meets in the tunnel,
 	// τ₂,t·δ·(S/C)·C_L·57.3 (degrees), and DeltaCMTail the moment
-	// correction −(∂C_m/∂α_t)·TailAngle.
-	TailAngle, DeltaCMTail float64
-	Alpha                  float64 // α = α_u + Δα + Δα_sc
-	CL, CD, CM             float64 // on the corrected dynamic pressure, with the curvature, drag and tail terms; CM about the quarter chord
+	// correction −(∂C_m/∂α_t)·TailAngleDeg.
+	TailAngleDeg, DeltaCMTail float64
+	AlphaDeg                  float64 // α = α_u + Δα + Δα_sc (degrees)
+	CL, CD, CM                float64 // on the corrected dynamic pressure, with the curvature, drag and tail terms; CM about the quarter chord
 }
 
 // CorrectWalls3D applies the classical closed-test-section corrections to
@@ -308,14 +309,14 @@ func CorrectWalls3D(m Model3D) (Corrected3D, error) {
 		!(m.TailCurvatureFactor >= 0 && m.TailCurvatureFactor < 2) {
 		return Corrected3D{}, e("the factors must lie in their ranges (K·τ₁ 0 … 2, δ 0 … 1, τ₂ 0 … 2)")
 	}
-	if err := checkCoefficients(method, bound{"angle of attack (°)", m.Alpha, -maxAlphaDeg, maxAlphaDeg},
+	if err := checkCoefficients(method, bound{"angle of attack (°)", m.AlphaDeg, -maxAlphaDeg, maxAlphaDeg},
 		bound{"C_L", m.CL, -maxCoefficient, maxCoefficient}, bound{"C_D", m.CD, -maxCoefficient, maxCoefficient},
-		bound{"C_m¼", m.CM, -maxCoefficient, maxCoefficient}, bound{"tail moment slope ∂C_m/∂α_t (per degree)", m.TailMomentSlope, -maxSlope, maxSlope},
-		bound{"lift slope dC_L/dα (per degree)", m.LiftSlope, -maxSlope, maxSlope}); err != nil {
+		bound{"C_m¼", m.CM, -maxCoefficient, maxCoefficient}, bound{"tail moment slope ∂C_m/∂α_t (per degree)", m.TailMomentSlopePerDeg, -maxSlope, maxSlope},
+		bound{"lift slope dC_L/dα (per degree)", m.LiftSlopePerDeg, -maxSlope, maxSlope}); err != nil {
 		return Corrected3D{}, err
 	}
-	if m.CurvatureFactor > 0 && !(m.LiftSlope > 0 && m.LiftSlope < 0.2) {
-		return Corrected3D{}, e(fmt.Sprintf("lift slope %v per degree: the curvature correction needs the wing's dC_L/dα, between 0 and 0.2 per degree", m.LiftSlope))
+	if m.CurvatureFactor > 0 && !(m.LiftSlopePerDeg > 0 && m.LiftSlopePerDeg < 0.2) {
+		return Corrected3D{}, e(fmt.Sprintf("lift slope %v per degree: the curvature correction needs the wing's dC_L/dα, between 0 and 0.2 per degree", m.LiftSlopePerDeg))
 	}
 	beta, err := compressibility(method, m.Mach)
 	if err != nil {
@@ -332,14 +333,14 @@ func CorrectWalls3D(m Model3D) (Corrected3D, error) {
 	}
 	r.DynamicPressureFactor = (1 + r.Blockage) * (1 + r.Blockage) * (1 - m2*r.Blockage)
 	clq := m.CL / r.DynamicPressureFactor // on the corrected q
-	r.DeltaAlpha = 57.3 * m.Delta * s / c * clq
+	r.DeltaAlphaDeg = 57.3 * m.Delta * s / c * clq
 	r.DeltaCD = m.Delta * s / c * clq * clq
-	r.DeltaAlphaCurvature = m.CurvatureFactor * r.DeltaAlpha
-	r.DeltaCLCurvature = -r.DeltaAlphaCurvature * m.LiftSlope
+	r.DeltaAlphaCurvatureDeg = m.CurvatureFactor * r.DeltaAlphaDeg
+	r.DeltaCLCurvature = -r.DeltaAlphaCurvatureDeg * m.LiftSlopePerDeg
 	r.DeltaCMCurvature = -0.25 * r.DeltaCLCurvature
-	r.TailAngle = m.TailCurvatureFactor * r.DeltaAlpha
-	r.DeltaCMTail = -m.TailMomentSlope * r.TailAngle
-	r.Alpha = m.Alpha + r.DeltaAlpha + r.DeltaAlphaCurvature
+	r.TailAngleDeg = m.TailCurvatureFactor * r.DeltaAlphaDeg
+	r.DeltaCMTail = -m.TailMomentSlopePerDeg * r.TailAngleDeg
+	r.AlphaDeg = m.AlphaDeg + r.DeltaAlphaDeg + r.DeltaAlphaCurvatureDeg
 	r.CL = clq + r.DeltaCLCurvature
 	r.CD = m.CD/r.DynamicPressureFactor + r.DeltaCD
 	r.CM = m.CM/r.DynamicPressureFactor + r.DeltaCMCurvature + r.DeltaCMTail

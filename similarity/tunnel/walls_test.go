@@ -51,7 +51,7 @@ func TestTunnelFinderLimits(t *testing.T) {
 // ε_wb = 0.3/3.6·0.0125 = 0.0010417, ε = 0.0067532.
 func TestCorrectWalls2D(t *testing.T) {
 	r, err := tunnel.CorrectWalls2D(tunnel.Section2D{Chord: quantity.New(0.3, quantity.Length), Height: quantity.New(0.9, quantity.Length),
-		ShapeFactor: 0.25, Alpha: 6, CL: 0.82, CD: 0.0125, CM: -0.08})
+		ShapeFactor: 0.25, AlphaDeg: 6, CL: 0.82, CD: 0.0125, CM: -0.08})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -64,7 +64,7 @@ func TestCorrectWalls2D(t *testing.T) {
 		got, want float64
 	}{
 		{"σ", r.Sigma, sig}, {"ε_sb", r.SolidBlock, esb}, {"ε_wb", r.WakeBlock, ewb}, {"q/q_u", r.DynamicPressureFactor, 1 + 2*e},
-		{"α", r.Alpha, 6 + 57.3*sig/(2*math.Pi)*(0.82-0.32)}, {"C_l", r.CL, cl},
+		{"α", r.AlphaDeg, 6 + 57.3*sig/(2*math.Pi)*(0.82-0.32)}, {"C_l", r.CL, cl},
 		{"C_m", r.CM, -0.08*(1-2*e) + sig*cl/4}, {"C_d", r.CD, 0.0125 * (1 - 3*esb - 2*ewb)},
 	} {
 		if math.Abs(c.got-c.want) > 1e-15 {
@@ -86,7 +86,7 @@ func TestCorrectWalls2D(t *testing.T) {
 // C_D = 0.04/(1 + ε)² + 0.125·0.1·C_L².
 func TestCorrectWalls3D(t *testing.T) {
 	r, err := tunnel.CorrectWalls3D(tunnel.Model3D{WingArea: quantity.New(0.3, quantity.Area), TunnelArea: quantity.New(3, quantity.Area),
-		ModelVolume: quantity.New(0.012, quantity.Volume), ShapeFactor: 0.86, Delta: 0.125, Alpha: 4, CL: 0.75, CD: 0.04})
+		ModelVolume: quantity.New(0.012, quantity.Volume), ShapeFactor: 0.86, Delta: 0.125, AlphaDeg: 4, CL: 0.75, CD: 0.04})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -99,7 +99,7 @@ func TestCorrectWalls3D(t *testing.T) {
 		got, want float64
 	}{
 		{"ε_sb", r.SolidBlock, esb}, {"q/q_u", r.DynamicPressureFactor, f}, {"C_L", r.CL, cl},
-		{"α", r.Alpha, 4 + 57.3*0.125*0.1*cl}, {"C_D", r.CD, 0.04/f + 0.125*0.1*cl*cl},
+		{"α", r.AlphaDeg, 4 + 57.3*0.125*0.1*cl}, {"C_D", r.CD, 0.04/f + 0.125*0.1*cl*cl},
 	} {
 		if math.Abs(c.got-c.want) > 1e-15 {
 			t.Errorf("%s = %v, by hand %v", c.name, c.got, c.want)
@@ -123,8 +123,8 @@ func TestCorrectWalls3D(t *testing.T) {
 // + 0.0064079 = −0.0416928.
 func TestCorrectWalls3DCurvature(t *testing.T) {
 	m := tunnel.Model3D{WingArea: quantity.New(0.3, quantity.Area), TunnelArea: quantity.New(3, quantity.Area),
-		ModelVolume: quantity.New(0.012, quantity.Volume), ShapeFactor: 0.86, Delta: 0.125, Alpha: 4, CL: 0.75, CD: 0.04, CM: -0.05,
-		CurvatureFactor: 0.15, LiftSlope: 0.08, TailCurvatureFactor: 0.6, TailMomentSlope: -0.02}
+		ModelVolume: quantity.New(0.012, quantity.Volume), ShapeFactor: 0.86, Delta: 0.125, AlphaDeg: 4, CL: 0.75, CD: 0.04, CM: -0.05,
+		CurvatureFactor: 0.15, LiftSlopePerDeg: 0.08, TailCurvatureFactor: 0.6, TailMomentSlopePerDeg: -0.02}
 	r, err := tunnel.CorrectWalls3D(m)
 	if err != nil {
 		t.Fatal(err)
@@ -133,9 +133,9 @@ func TestCorrectWalls3DCurvature(t *testing.T) {
 		name      string
 		got, want float64
 	}{
-		{"Δα", r.DeltaAlpha, 0.5339936}, {"Δα_sc", r.DeltaAlphaCurvature, 0.0800990}, {"ΔC_L,sc", r.DeltaCLCurvature, -0.0064079},
-		{"ΔC_m¼", r.DeltaCMCurvature, 0.0016020}, {"tail angle", r.TailAngle, 0.3203962}, {"ΔC_m,t", r.DeltaCMTail, 0.0064079},
-		{"α", r.Alpha, 4.6140927}, {"C_L", r.CL, 0.7391329}, {"C_m", r.CM, -0.0416928},
+		{"Δα", r.DeltaAlphaDeg, 0.5339936}, {"Δα_sc", r.DeltaAlphaCurvatureDeg, 0.0800990}, {"ΔC_L,sc", r.DeltaCLCurvature, -0.0064079},
+		{"ΔC_m¼", r.DeltaCMCurvature, 0.0016020}, {"tail angle", r.TailAngleDeg, 0.3203962}, {"ΔC_m,t", r.DeltaCMTail, 0.0064079},
+		{"α", r.AlphaDeg, 4.6140927}, {"C_L", r.CL, 0.7391329}, {"C_m", r.CM, -0.0416928},
 	} {
 		if math.Abs(c.got-c.want) > 5e-8 {
 			t.Errorf("%s = %.8f, by hand %.7f", c.name, c.got, c.want)
@@ -143,13 +143,13 @@ func TestCorrectWalls3DCurvature(t *testing.T) {
 	}
 	// Without the factors the curvature and tail terms vanish and C_m is
 	// only referred to the corrected q.
-	m.CurvatureFactor, m.TailMomentSlope = 0, 0
+	m.CurvatureFactor, m.TailMomentSlopePerDeg = 0, 0
 	if r, _ = tunnel.CorrectWalls3D(m); r.DeltaCLCurvature != 0 || r.DeltaCMTail != 0 || r.CM != -0.05/r.DynamicPressureFactor {
 		t.Errorf("without factors: %+v", r)
 	}
 	for _, bad := range []func(*tunnel.Model3D){
-		func(m *tunnel.Model3D) { m.CurvatureFactor, m.LiftSlope = 0.15, 0 },
-		func(m *tunnel.Model3D) { m.CurvatureFactor, m.LiftSlope = 0.15, 5.7 }, // per radian given as per degree
+		func(m *tunnel.Model3D) { m.CurvatureFactor, m.LiftSlopePerDeg = 0.15, 0 },
+		func(m *tunnel.Model3D) { m.CurvatureFactor, m.LiftSlopePerDeg = 0.15, 5.7 }, // per radian given as per degree
 		func(m *tunnel.Model3D) { m.TailCurvatureFactor = -1 },
 		func(m *tunnel.Model3D) { m.CM = math.NaN() },
 	} {
