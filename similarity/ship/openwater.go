@@ -82,10 +82,13 @@ type OpenWaterFit struct {
 	JMin, JMax float64            // the fitted J range: no extrapolation
 	// MinReynolds and MaxReynolds are the runs' extreme Re_0.7.
 	MinReynolds, MaxReynolds float64
-	// Chord is the test's model chord c_0.7 in metres and Viscosity the
-	// water's kinematic viscosity in m²/s, kept for the Reynolds numbers
-	// of a self-propulsion test with the same propeller.
-	Chord, Viscosity float64
+	// Chord and Viscosity are kept for the Reynolds numbers of a
+	// self-propulsion test with the same propeller.
+	//
+	// Chord is the test's model chord c_0.7 (m).
+	Chord float64
+	// Viscosity is the water's kinematic viscosity ν (m²/s).
+	Viscosity float64
 	// Warning, when not empty, says why the curve is doubtful (a
 	// Reynolds number below UsualOpenWaterReynolds, an outlier among the
 	// runs); every report that prints the curve prints it.

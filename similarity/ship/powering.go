@@ -125,9 +125,10 @@ type PoweringResult struct {
 	Eta0, EtaH, EtaR, EtaD        float64 // open-water, hull, relative rotative, propulsive
 	// RevsPerSecond and RPM are the propeller's rate of revolution after
 	// C_N; PropellerSpeed is the same as an angular velocity (2πn).
-	RevsPerSecond, RPM float64
-	PropellerSpeed     quantity.Quantity
-	Thrust, Torque     quantity.Quantity // per propeller
+	RevsPerSecond  float64 // n (rev/s)
+	RPM            float64 // n (rev/min)
+	PropellerSpeed quantity.Quantity
+	Thrust, Torque quantity.Quantity // per propeller
 	// DeliveredPower is P_D of all propellers (all shafts) after C_P.
 	DeliveredPower quantity.Quantity
 	// CP and CN are the correlation factors applied to P_D and n (1

@@ -19,8 +19,10 @@ import (
 // resistance is C_TM·½ρV²S at the test's water and wetted surface.
 type ResistanceFit struct {
 	CT *fit.Poly // C_TM against V_M in m/s
-	// Density and WettedArea are the test's ρ (kg/m³) and S_M (m²).
-	Density, WettedArea float64
+	// Density is the test's water density ρ (kg/m³).
+	Density float64
+	// WettedArea is the model's wetted surface S_M (m²).
+	WettedArea float64
 	// Warning names the runs the fit flags as outliers (not dropped).
 	Warning string
 }
@@ -221,10 +223,10 @@ type SelfPropulsionTest struct {
 
 // SelfPropulsionPoint is one run analysed by thrust identity.
 type SelfPropulsionPoint struct {
-	ModelSpeed    float64 // V_M, m/s
-	RevsPerSecond float64 // n
-	Resistance    float64 // R_TM used, N
-	TowingForce   float64 // F_D, N
+	ModelSpeed    float64 // V_M (m/s)
+	RevsPerSecond float64 // n (rev/s)
+	Resistance    float64 // R_TM used (N)
+	TowingForce   float64 // F_D (N)
 	KT, KQ        float64 // K_TM = T/(ρn²D⁴), K_QM = Q/(ρn²D⁵) behind the hull
 	J             float64 // J_TM, from the open-water K_T equal to K_TM
 	KQ0           float64 // the open-water K_Q at J_TM

@@ -37,14 +37,22 @@ type SpeedPowerInput struct {
 // put about it.
 type SpeedPowerPoint struct {
 	PoweringResult
-	// PowerU and RevsU are the standard uncertainties of P_D (W) and of
-	// n (rev/s) from the fits alone; DoF their effective degrees of
-	// freedom and K the coverage factor (Student's t at Level); Power
-	// and Revs are the intervals ±K·u about the prediction.
-	PowerU, RevsU float64
-	PowerDoF      float64
-	RevsDoF       float64
-	Power, Revs   [2]float64
+	// PowerU and RevsU are the standard uncertainties of P_D and of n
+	// from the fits alone; DoF their effective degrees of freedom and K
+	// the coverage factor (Student's t at Level); Power and Revs are the
+	// intervals ±K·u about the prediction.
+	//
+	// PowerU is the standard uncertainty of P_D (W).
+	PowerU float64
+	// RevsU is the standard uncertainty of n (rev/s).
+	RevsU float64
+	// PowerDoF and RevsDoF are the effective degrees of freedom.
+	PowerDoF float64
+	RevsDoF  float64
+	// Power is the interval of P_D (W).
+	Power [2]float64
+	// Revs is the interval of n (rev/s).
+	Revs [2]float64
 }
 
 // SpeedPower is a speed–power curve with its band.

@@ -103,20 +103,25 @@ type Verdict struct {
 	// The tolerance cross through the guarantee point: the vertical bar
 	// at Q_G from HeadBar[0] to HeadBar[1], the horizontal bar at H_G
 	// from FlowBar[0] to FlowBar[1].
-	HeadBar, FlowBar [2]float64
+	//
+	// HeadBar is the vertical bar's span of head (m).
+	HeadBar [2]float64
+	// FlowBar is the horizontal bar's span of flow (m³/s).
+	FlowBar [2]float64
 	// HeadAtGuaranteeFlow is the fitted head at Q_G, with its intervals;
 	// the curve meets the vertical bar when it lies in HeadBar.
 	HeadAtGuaranteeFlow fit.Prediction
 	MeetsVertical       bool
 	// FlowAtGuaranteeHead is the flow where the fitted Q–H curve has the
 	// head H_G within the horizontal bar (the crossing nearest Q_G), and
-	// MeetsHorizontal whether there is one.
+	// MeetsHorizontal whether there is one (m³/s).
 	FlowAtGuaranteeHead float64
 	MeetsHorizontal     bool
 	// HeadCrossing is the flow where the fitted Q–H curve has the head
 	// H_G anywhere in the tested range (the crossing nearest Q_G), inside
 	// the horizontal bar or not, and HeadCrossed whether there is one: a
-	// curve that misses the bar may still cross H_G just outside it.
+	// curve that misses the bar may still cross H_G just outside it
+	// (m³/s).
 	HeadCrossing float64
 	HeadCrossed  bool
 	// FlowHeadMet: the fitted Q–H curve meets the cross, on either bar.
@@ -124,7 +129,8 @@ type Verdict struct {
 
 	// Intersection is the flow and head where the fitted Q–H curve meets
 	// the straight line through the origin and the guarantee point;
-	// set when the efficiency or the power is guaranteed.
+	// set when the efficiency or the power is guaranteed: the flow
+	// (m³/s) and the head (m).
 	Intersection [2]float64
 	// EfficiencyAt is the fitted efficiency at the intersection's flow,
 	// EfficiencyMin = η_G(1 − t_η), EfficiencyMet whether
@@ -136,7 +142,8 @@ type Verdict struct {
 	// PowerAt is the fitted power at the intersection's flow, PowerMax =
 	// P_G(1 + t_P), PowerMet whether PowerAt.Y ≤ PowerMax; PowerJudged is
 	// false where no power is guaranteed.
-	PowerAt               fit.Prediction
+	PowerAt fit.Prediction
+	// PowerMax is P_G(1 + t_P) (W).
 	PowerMax              float64
 	PowerJudged, PowerMet bool
 

@@ -43,7 +43,7 @@ type NPSH3Result struct {
 	DropHead              quantity.Quantity // 0.97 × ReferenceHead
 	HeadU                 quantity.Quantity // the head reading's standard uncertainty used
 	// Slope is dH/dNPSHA of the fairing across the interval holding the
-	// 3 % point (the secant of its end values).
+	// 3 % point (the secant of its end values) (m/m, dimensionless).
 	Slope float64
 	// Faired is the monotone fairing of head against NPSHA, in m, through
 	// the series made non-decreasing (see FindNPSH3).

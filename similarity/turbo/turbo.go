@@ -268,7 +268,12 @@ func SuctionPressureFor(sigma float64, head quantity.Quantity, vapour, density, 
 // metric n_q = n·Q^½/H^¾ with n in rpm, Q in m³/s and H in m, and the US
 // N_s = n·Q^½/H^¾ with n in rpm, Q in US gallons per minute and H in feet.
 type SpecificSpeeds struct {
-	Dimensionless, Metric, US float64
+	// Dimensionless is Ω_s (dimensionless, ω in rad/s).
+	Dimensionless float64
+	// Metric is n_q (rpm, m³/s, m).
+	Metric float64
+	// US is N_s (rpm, US gpm, ft).
+	US float64
 }
 
 // Exact factors between the conventions: 1 US gallon = 3.785411784 L,
