@@ -21,6 +21,8 @@ const StructureCaution = "A hydraulic model indicates prototype behaviour subjec
 // which its check prints. A laboratory or guideline that names other
 // criteria sets them here.
 type FreeSurfaceLimits struct {
+	// MinReynolds and MinWeber are the smallest Reynolds and Weber
+	// numbers (dimensionless).
 	MinReynolds, MinWeber float64
 	MinHead               quantity.Quantity
 	// MinCrestRadius is the smallest radius of a round crest, for
@@ -64,7 +66,8 @@ func WeirLimits() FreeSurfaceLimits {
 // ScaleCheck is one scale-effect check of a model: a value, its limit,
 // whether it passes, and the limit's basis.
 type ScaleCheck struct {
-	Name         string
+	Name string
+	// Value and Limit are in Unit.
 	Value, Limit float64
 	Unit         string // of Value and Limit, "1" for a number
 	Pass         bool

@@ -45,12 +45,13 @@ const ExclusionRule = "a point whose head, Reynolds or Weber number fails its li
 
 // RatingPoint is one model measurement as FitRating used it.
 type RatingPoint struct {
-	Head, Discharge float64 // model h (m) and Q (m³/s)
+	Head      float64 // model h (m)
+	Discharge float64 // model Q (m³/s)
 	// WeirCoefficient is this point's C_d = Q/((2/3)·√(2g)·b·h^(3/2)).
 	WeirCoefficient float64
 	// Velocity is the critical velocity V = (g·q)^(1/3) for the measured
 	// unit discharge q = Q/b, with which the Reynolds and Weber numbers
-	// are formed (Re = V·h/ν, We = ρV²h/σ).
+	// are formed (Re = V·h/ν, We = ρV²h/σ) (m/s).
 	Velocity float64
 	Checks   []ScaleCheck // FreeSurfaceChecks at V and h
 	// Excluded is set when a check fails (ExclusionRule); Failed names
@@ -84,9 +85,14 @@ type RatingPoint struct {
 type Rating struct {
 	Points []RatingPoint
 	Used   int // included points
-	// C and N are the model's Q = C·h^n in SI (Q in m³/s, h in m, so C
-	// in m^(3−n)/s), with their confidence intervals at Level.
-	C, N                 float64
+	// C and N are the model's Q = C·h^n in SI (Q in m³/s, h in m), with
+	// their confidence intervals at Level.
+	//
+	// C is the coefficient (m^(3−n)/s).
+	C float64
+	// N is the exponent n (dimensionless).
+	N float64
+	// CInterval is the interval of C (m^(3−n)/s); NInterval that of N.
 	CInterval, NInterval [2]float64
 	// NStdErr and LnCStdErr are the standard errors of n and ln C.
 	NStdErr, LnCStdErr float64
@@ -103,19 +109,22 @@ type Rating struct {
 	// the coverage factor of the intervals and of RatingValue.Band, whose
 	// RelU is a standard (k = 1) uncertainty.
 	T float64
-	// HeadMin and HeadMax are the model heads of the included points: the
-	// range of validity of the rating, HeadMin/λ_L to HeadMax/λ_L at full
-	// scale.
+	// HeadMin and HeadMax are the model heads of the included points (m):
+	// the range of validity of the rating, HeadMin/λ_L to HeadMax/λ_L at
+	// full scale.
 	HeadMin, HeadMax float64
 	// LengthRatio λ_L and DischargeRatio λ_Q = λ_L^(5/2), model/prototype,
 	// from similarity.Froude with the same water.
 	LengthRatio, DischargeRatio float64
-	// ProtoC is the prototype's C_p = C·λ_L^n/λ_Q of Q_p = C_p·h_p^n.
+	// ProtoC is the prototype's C_p = C·λ_L^n/λ_Q of Q_p = C_p·h_p^n
+	// (m^(3−n)/s).
 	ProtoC float64
 	// CrestLength is the model crest length b (m).
 	CrestLength float64
-	Level       float64
-	Gravity     float64
+	// Level is the confidence level of the intervals.
+	Level float64
+	// Gravity is the acceleration of gravity g used (m/s²).
+	Gravity float64
 	// Notes says what the numbers above do not: the outliers, a weir
 	// exponent whose interval excludes 3/2.
 	Notes []string
