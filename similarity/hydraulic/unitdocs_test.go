@@ -1,0 +1,70 @@
+package hydraulic_test
+
+import (
+	"go/ast"
+	"go/parser"
+	"go/token"
+	"os"
+	"strings"
+	"testing"
+)
+
+// fieldDocs returns the doc text (the comment above and the one beside)
+// of every field of the package's exported structs, by "Type.Field".
+func fieldDocs(t *testing.T) map[string]string {
+	t.Helper()
+	fs := token.NewFileSet()
+	pkgs, err := parser.ParseDir(fs, ".", func(fi os.FileInfo) bool { return !strings.HasSuffix(fi.Name(), "_test.go") }, parser.ParseComments)
+	if err != nil {
+		t.Fatal(err)
+	}
+	docs := map[string]string{}
+	for _, p := range pkgs {
+		for _, f := range p.Files {
+			ast.Inspect(f, func(n ast.Node) bool {
+				ts, ok := n.(*ast.TypeSpec)
+				if !ok {
+					return true
+				}
+				st, ok := ts.Type.(*ast.StructType)
+				if !ok {
+					return false
+				}
+				for _, fl := range st.Fields.List {
+					for _, nm := range fl.Names {
+						docs[ts.Name.Name+"."+nm.Name] = fl.Doc.Text() + " " + fl.Comment.Text()
+					}
+				}
+				return false
+			})
+		}
+	}
+	return docs
+}
+
+// TestFieldUnitsStated: each dimensional float field states its unit as
+// "(unit)" on its own doc, so that no number in a result is read in the
+// wrong unit.
+func TestFieldUnitsStated(t *testing.T) {
+	docs := fieldDocs(t)
+	for field, unit := range map[string]string{
+		"RatingPoint.Head":      "(m)",
+		"RatingPoint.Discharge": "(m³/s)",
+		"RatingPoint.Velocity":  "(m/s)",
+		"Rating.C":              "(m^(3−n)/s)",
+		"Rating.HeadMin":        "(m)",
+		"Rating.HeadMax":        "(m)",
+		"Rating.ProtoC":         "(m^(3−n)/s)",
+		"Rating.CrestLength":    "(m)",
+		"Rating.Gravity":        "(m/s²)",
+	} {
+		doc, ok := docs[field]
+		if !ok {
+			t.Errorf("%s: no such field", field)
+			continue
+		}
+		if !strings.Contains(doc, unit) {
+			t.Errorf("%s: doc %q does not state %s", field, strings.TrimSpace(doc), unit)
+		}
+	}
+}
