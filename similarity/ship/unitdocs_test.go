@@ -4,7 +4,7 @@ import (
 	"go/ast"
 	"go/parser"
 	"go/token"
-	"os"
+	"path/filepath"
 	"strings"
 	"testing"
 )
@@ -14,30 +14,35 @@ import (
 func fieldDocs(t *testing.T) map[string]string {
 	t.Helper()
 	fs := token.NewFileSet()
-	pkgs, err := parser.ParseDir(fs, ".", func(fi os.FileInfo) bool { return !strings.HasSuffix(fi.Name(), "_test.go") }, parser.ParseComments)
+	names, err := filepath.Glob("*.go")
 	if err != nil {
 		t.Fatal(err)
 	}
 	docs := map[string]string{}
-	for _, p := range pkgs {
-		for _, f := range p.Files {
-			ast.Inspect(f, func(n ast.Node) bool {
-				ts, ok := n.(*ast.TypeSpec)
-				if !ok {
-					return true
-				}
-				st, ok := ts.Type.(*ast.StructType)
-				if !ok {
-					return false
-				}
-				for _, fl := range st.Fields.List {
-					for _, nm := range fl.Names {
-						docs[ts.Name.Name+"."+nm.Name] = fl.Doc.Text() + " " + fl.Comment.Text()
-					}
-				}
-				return false
-			})
+	for _, name := range names {
+		if strings.HasSuffix(name, "_test.go") {
+			continue
 		}
+		f, err := parser.ParseFile(fs, name, nil, parser.ParseComments)
+		if err != nil {
+			t.Fatal(err)
+		}
+		ast.Inspect(f, func(n ast.Node) bool {
+			ts, ok := n.(*ast.TypeSpec)
+			if !ok {
+				return true
+			}
+			st, ok := ts.Type.(*ast.StructType)
+			if !ok {
+				return false
+			}
+			for _, fl := range st.Fields.List {
+				for _, nm := range fl.Names {
+					docs[ts.Name.Name+"."+nm.Name] = fl.Doc.Text() + " " + fl.Comment.Text()
+				}
+			}
+			return false
+		})
 	}
 	return docs
 }
