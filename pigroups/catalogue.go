@@ -703,6 +703,18 @@ func (p *Problem) sameDims(f *compiledForm, terms []int) bool {
 	return true
 }
 
+// ratDiv is a.Div(b), with whole exponents that divide exactly (the
+// usual case of a group's and a form's exponents) taken without the
+// general product's overflow checks.
+func ratDiv(a, b quantity.Rat) (quantity.Rat, error) {
+	if a.IsInt() && b.IsInt() {
+		if n, d := a.Num(), b.Num(); d != 0 && d != -1 && n%d == 0 {
+			return quantity.RatInt(n / d), nil
+		}
+	}
+	return a.Div(b)
+}
+
 func absCmp(a, b quantity.Rat) int {
 	if a.Sign() < 0 {
 		a = a.Neg()
@@ -745,7 +757,7 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 			if !explicit && (v.Kind != "" || !fp.known || fp.explicit) {
 				continue
 			}
-			pw, err := exps[i].Div(fp.Exp)
+			pw, err := ratDiv(exps[i], fp.Exp)
 			if err != nil || havePower && pw != power {
 				continue
 			}

@@ -50,7 +50,15 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		// Rank 0: every variable is dimensionless and is its own group.
 		return p.trivialSet(s), nil
 	}
-	cols := make([]int, len(idx), len(p.vars))
+	// The column order stays on the stack for problems of up to 32
+	// variables; it is not kept.
+	var colBuf [32]int
+	var cols []int
+	if len(p.vars) <= len(colBuf) {
+		cols = colBuf[:len(idx)]
+	} else {
+		cols = make([]int, len(idx), len(p.vars))
+	}
 	copy(cols, idx)
 	order := cols[len(idx):]
 	if p.dep >= 0 {
