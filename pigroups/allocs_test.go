@@ -25,3 +25,19 @@ func TestPiSetAllocs(t *testing.T) {
 		t.Errorf("PiSet: %v allocations, want at most %d", n, most)
 	}
 }
+
+// TestNewProblemAllocs bounds the allocations of a 12-variable problem:
+// the problem with its row lists, its copy of the variables, their
+// candidate kinds and the matrix's cells.
+func TestNewProblemAllocs(t *testing.T) {
+	vars := twelveVars()
+	const most = 4
+	n := testing.AllocsPerRun(50, func() {
+		if _, err := pigroups.NewProblem(vars...); err != nil {
+			t.Fatal(err)
+		}
+	})
+	if n > most {
+		t.Errorf("NewProblem: %v allocations, want at most %d", n, most)
+	}
+}
