@@ -609,20 +609,21 @@ func (m Match) describe(name string) string {
 // recognise matches a group's exponents against the catalogue, best
 // matches (exact before proportional, fewest assumed kinds, lowest
 // power) first.
-func (p *Problem) recognise(exps []quantity.Rat) []Match { return p.recogniseIn(nil, exps) }
+func (p *Problem) recognise(exps []quantity.Rat) []Match { return p.recogniseIn(nil, nil, exps) }
 
-// matchArena holds the matches of a whole Pi set in one backing array,
-// so that building a set allocates once for them rather than per group.
+// matchArena holds the text of the matches of a whole Pi set, so that
+// building a set allocates once for it rather than per group.
 type matchArena struct {
-	matches []Match
 	assumed []string        // the Assumed lists of the matches
 	text    strings.Builder // their text: only appended to, so earlier strings stay valid
 }
 
-// recogniseIn is recognise taking the slice from an arena (nil for its
-// own); the result's capacity is its length, so no append reaches the
-// arena's next group.
-func (p *Problem) recogniseIn(ar *matchArena, exps []quantity.Rat) []Match {
+// recogniseIn is recognise writing the Assumed lists into an arena (nil
+// for their own) and the matches into dst's room when it has room for
+// two (a caller's scratch, which it copies out: a separate parameter, so
+// that a stack array stays on the stack), into a new slice otherwise; the
+// result's capacity is its length.
+func (p *Problem) recogniseIn(ar *matchArena, dst []Match, exps []quantity.Rat) []Match {
 	var termBuf [16]int
 	terms := termBuf[:0]
 	for i, e := range exps {
@@ -642,7 +643,6 @@ func (p *Problem) recogniseIn(ar *matchArena, exps []quantity.Rat) []Match {
 		}
 	}
 	var out []Match
-	fromArena := false
 	var last *Named
 	if len(terms) >= len(compiledByLen) {
 		return nil
@@ -654,9 +654,8 @@ func (p *Problem) recogniseIn(ar *matchArena, exps []quantity.Rat) []Match {
 		}
 		if m, ok := p.matchForm(ar, f, terms, exps); ok {
 			if out == nil {
-				if ar != nil && cap(ar.matches)-len(ar.matches) >= 2 {
-					out = ar.matches[len(ar.matches):len(ar.matches)]
-					fromArena = true
+				if cap(dst) >= 2 {
+					out = dst[:0]
 				} else {
 					out = make([]Match, 0, 2)
 				}
@@ -677,10 +676,6 @@ func (p *Problem) recogniseIn(ar *matchArena, exps []quantity.Rat) []Match {
 		}
 		return absCmp(a.Power, b.Power)
 	})
-	if fromArena && len(out) <= cap(ar.matches)-len(ar.matches) {
-		// Still in the arena (more than its room would have moved it).
-		ar.matches = ar.matches[:len(ar.matches)+len(out)]
-	}
 	return out[:len(out):len(out)]
 }
 
@@ -701,6 +696,18 @@ func (p *Problem) sameDims(f *compiledForm, terms []int) bool {
 		}
 	}
 	return true
+}
+
+// ratDiv is a.Div(b), with whole exponents that divide exactly (the
+// usual case of a group's and a form's exponents) taken without the
+// general product's overflow checks.
+func ratDiv(a, b quantity.Rat) (quantity.Rat, error) {
+	if a.IsInt() && b.IsInt() {
+		if n, d := a.Num(), b.Num(); d != 0 && d != -1 && n%d == 0 {
+			return quantity.RatInt(n / d), nil
+		}
+	}
+	return a.Div(b)
 }
 
 func absCmp(a, b quantity.Rat) int {
@@ -745,7 +752,7 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 			if !explicit && (v.Kind != "" || !fp.known || fp.explicit) {
 				continue
 			}
-			pw, err := exps[i].Div(fp.Exp)
+			pw, err := ratDiv(exps[i], fp.Exp)
 			if err != nil || havePower && pw != power {
 				continue
 			}

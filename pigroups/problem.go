@@ -148,6 +148,11 @@ type Problem struct {
 	rows  []quantity.Base // base dimensions that appear, in ISO order
 	rank  int
 	dep   int // index of the dependent variable, or −1
+
+	// The backing arrays of rows and of ai's row headers, in the
+	// Problem's own allocation.
+	rowBuf [quantity.NumBases]quantity.Base
+	aiBuf  [quantity.NumBases][]int64
 }
 
 // tooLarge reports an overflow of the exact arithmetic as what the user
@@ -202,7 +207,8 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 	if len(vars) > MaxVariables {
 		return nil, &Error{Op: OpProblem, Kind: ErrTooManyVariables, Reason: fmt.Sprintf("%d variables, at most %d", len(vars), MaxVariables)}
 	}
-	p := &Problem{vars: slices.Clone(vars), dep: -1, kinds: make([][]string, 0, len(vars)), rows: make([]quantity.Base, 0, quantity.NumBases)}
+	p := &Problem{vars: slices.Clone(vars), dep: -1, kinds: make([][]string, 0, len(vars))}
+	p.rows = p.rowBuf[:0]
 	for i, v := range vars {
 		if reason := badSymbol(v.Symbol); reason != "" {
 			return nil, &Error{Op: OpProblem, Kind: ErrBadSymbol, Symbol: v.Symbol, Reason: fmt.Sprintf("variable %d: %s", i+1, reason)}
@@ -235,7 +241,7 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 			}
 		}
 	}
-	p.ai = make(exact.IntMatrix, len(p.rows))
+	p.ai = exact.IntMatrix(p.aiBuf[:len(p.rows):len(p.rows)])
 	cells := make([]int64, len(p.rows)*len(vars))
 	for i, b := range p.rows {
 		p.ai[i] = cells[i*len(vars) : (i+1)*len(vars) : (i+1)*len(vars)]

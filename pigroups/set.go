@@ -50,7 +50,15 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		// Rank 0: every variable is dimensionless and is its own group.
 		return p.trivialSet(s), nil
 	}
-	cols := make([]int, len(idx), len(p.vars))
+	// The column order stays on the stack for problems of up to 32
+	// variables; it is not kept.
+	var colBuf [32]int
+	var cols []int
+	if len(p.vars) <= len(colBuf) {
+		cols = colBuf[:len(idx)]
+	} else {
+		cols = make([]int, len(idx), len(p.vars))
+	}
 	copy(cols, idx)
 	order := cols[len(idx):]
 	if p.dep >= 0 {
@@ -82,7 +90,17 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 	n := len(p.vars)
 	cells := make([]quantity.Rat, n*len(order))
 	s.groups = make([]Group, 0, len(order))
-	ar := matchArena{matches: make([]Match, 0, len(order)+2)} // most groups match one named group or none
+	// The matches are gathered on the stack, a group's at a time in
+	// scratch and then all of them in pending, and copied once into a
+	// slice of exactly their number (most groups match one named group
+	// or none); the buffers are not kept.
+	var (
+		scratch [8]Match
+		pendBuf [16]Match
+		cntBuf  [32]int
+	)
+	pending, counts := pendBuf[:0], cntBuf[:0]
+	var ar matchArena
 	ar.text.Grow(256)
 	for k, j := range order {
 		v := cells[k*n : (k+1)*n : (k+1)*n]
@@ -104,8 +122,20 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		if !p.dimensionless(iv) {
 			return nil, &Error{Op: OpProblem, Kind: errInternal, Reason: fmt.Sprintf("group %s is not dimensionless", g)}
 		}
-		g.Matches = p.recogniseIn(&ar, iv)
+		ms := p.recogniseIn(&ar, scratch[:0], iv)
+		pending = append(pending, ms...)
+		counts = append(counts, len(ms))
 		s.groups = append(s.groups, g)
+	}
+	if len(pending) > 0 {
+		all := make([]Match, len(pending))
+		copy(all, pending)
+		for k, c := range counts {
+			if c > 0 { // a group with no name keeps a nil list
+				s.groups[k].Matches = all[:c:c]
+				all = all[c:]
+			}
+		}
 	}
 	return s, nil
 }

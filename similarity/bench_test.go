@@ -60,3 +60,37 @@ func BenchmarkTransfer(b *testing.B) {
 		}
 	})
 }
+
+// BenchmarkToPrototype carries one model force to full scale per call
+// through ToPrototype, against a plain float64 multiply by the same
+// factor.
+func BenchmarkToPrototype(b *testing.B) {
+	s, err := similarity.Froude(similarity.Scales{Length: 1.0 / 30, Density: 1})
+	if err != nil {
+		b.Fatal(err)
+	}
+	f := 27000.0
+	x := 12.5
+	b.Run("float64", func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			sinkF = x * f
+		}
+	})
+	m := q.New(12.5, q.Force)
+	b.Run("quantity", func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			p, err := s.ToPrototype(m)
+			if err != nil {
+				b.Fatal(err)
+			}
+			sinkQ = p
+		}
+	})
+}
+
+var (
+	sinkF float64
+	sinkQ q.Quantity
+)

@@ -21,6 +21,7 @@ type Solution struct {
 	free   []string // free ratios with no value: the plan is underdetermined
 	base   [][]quantity.Rat
 	bases  []quantity.Base
+	cache  *ratioCache // ratio values derived so far; replaced by With
 }
 
 // MaxRequirements bounds the requirements of a plan (held groups, fixed
@@ -47,6 +48,7 @@ func (pl *Plan) Solve() (*Solution, error) {
 		if err := s.deriveBase(); err != nil {
 			return nil, err
 		}
+		s.cache = new(ratioCache)
 		return s, nil
 	}
 	return nil, pl.conflict()
@@ -270,6 +272,7 @@ func (s *Solution) NamedRatio(g pigroups.Group) (GroupRatio, error) {
 // With returns a copy of the solution with values for free ratios.
 func (s *Solution) With(values map[string]float64) (*Solution, error) {
 	c := *s
+	c.cache = new(ratioCache)
 	c.values = make(map[string]float64, len(s.values)+len(values))
 	for k, v := range s.values {
 		c.values[k] = v

@@ -31,7 +31,7 @@ func (s *Solution) ratioFor(d quantity.Dim) (float64, error) {
 // without the scale effect of the floating group, and a caller that
 // prints it should say so.
 func (s *Solution) ToPrototype(q quantity.Quantity) (quantity.Quantity, error) {
-	r, err := s.ratioFor(q.Dim())
+	r, err := s.cachedRatio(q.Dim())
 	if err != nil {
 		return quantity.Quantity{}, err
 	}
@@ -49,7 +49,7 @@ func scaled(q quantity.Quantity, f float64) (quantity.Quantity, error) {
 
 // ToModel carries a prototype quantity to the model: q_m = λ·q_p.
 func (s *Solution) ToModel(q quantity.Quantity) (quantity.Quantity, error) {
-	r, err := s.ratioFor(q.Dim())
+	r, err := s.cachedRatio(q.Dim())
 	if err != nil {
 		return quantity.Quantity{}, err
 	}
@@ -68,7 +68,7 @@ func (s *Solution) SeriesToPrototype(dst *quantity.Series, m quantity.Series) er
 	if dst == nil {
 		return nilDst("series to prototype")
 	}
-	r, err := s.ratioFor(m.Dim())
+	r, err := s.cachedRatio(m.Dim())
 	if err != nil {
 		return err
 	}
@@ -82,7 +82,7 @@ func (s *Solution) SeriesToModel(dst *quantity.Series, p quantity.Series) error 
 	if dst == nil {
 		return nilDst("series to model")
 	}
-	r, err := s.ratioFor(p.Dim())
+	r, err := s.cachedRatio(p.Dim())
 	if err != nil {
 		return err
 	}
@@ -101,6 +101,9 @@ func (s *Solution) VariableToPrototype(symbol string, q quantity.Quantity) (quan
 	}
 	if err := q.CheckNamed(symbol, s.plan.vars[i].Dim); err != nil {
 		return quantity.Quantity{}, err
+	}
+	if r, ok := s.variableRatio(i); ok {
+		return scaled(q, 1/r)
 	}
 	r, err := s.Ratio(symbol)
 	if err != nil {
