@@ -1,7 +1,6 @@
 package pigroups
 
 import (
-	"errors"
 	"fmt"
 	"strings"
 
@@ -127,17 +126,11 @@ func (e *Error) Is(target error) bool {
 }
 
 // classes are the module's error classes.
-var classes = [...]error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid}
-
 // class returns the error's one class: the cause's, the Kind's or
 // quantity.ErrInvalid.
 func (e *Error) class() error {
-	if e.Err != nil {
-		for _, c := range classes {
-			if errors.Is(e.Err, c) {
-				return c
-			}
-		}
+	if c := quantity.ClassOf(e.Err); c != nil {
+		return c
 	}
 	if c := classOf(e.Kind); c != nil {
 		return c

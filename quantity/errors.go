@@ -217,3 +217,19 @@ func Eval(formula func() Quantity) (q Quantity, err error) {
 	}()
 	return formula(), nil
 }
+
+// classes are the module's error classes, in the order ClassOf tries them.
+var classes = [...]error{ErrDimension, ErrRange, ErrParse, ErrUnknown, ErrInvalid}
+
+// ClassOf returns the class of this package that err matches under
+// errors.Is — ErrDimension, ErrRange, ErrParse, ErrUnknown or ErrInvalid —
+// or nil when it matches none. An error type that wraps a cause takes the
+// cause's class with it, so that the wrapper matches exactly one class.
+func ClassOf(err error) error {
+	for _, c := range classes {
+		if errors.Is(err, c) {
+			return c
+		}
+	}
+	return nil
+}

@@ -66,3 +66,23 @@ func TestErrorsOneType(t *testing.T) {
 		}
 	}
 }
+
+// TestClassOf: the one class of an error, through wrapping; nil for an
+// error of no class.
+func TestClassOf(t *testing.T) {
+	_, parseErr := q.ParseDim("L^x")
+	for _, tc := range []struct {
+		err  error
+		want error
+	}{
+		{nil, nil},
+		{errors.New("disk full"), nil},
+		{parseErr, q.ErrParse},
+		{fmt.Errorf("reading: %w", parseErr), q.ErrParse},
+		{q.New(1, q.Length).Check(q.Time), q.ErrDimension},
+	} {
+		if got := q.ClassOf(tc.err); got != tc.want {
+			t.Errorf("ClassOf(%v) = %v, want %v", tc.err, got, tc.want)
+		}
+	}
+}

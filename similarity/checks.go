@@ -141,19 +141,16 @@ func CheckResults(positive bool, rs ...Result) *Fault {
 	return nil
 }
 
-// errorClasses are the classes an error of the module matches, in the
-// order ClassOf tries them.
-var errorClasses = [...]error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid, ErrConflict}
-
 // ClassOf returns the first of quantity.ErrDimension, ErrRange, ErrParse,
 // ErrUnknown, ErrInvalid and ErrConflict that err matches, or
 // quantity.ErrInvalid when it matches none, so that an error wrapping err
 // has exactly one class.
 func ClassOf(err error) error {
-	for _, c := range errorClasses {
-		if errors.Is(err, c) {
-			return c
-		}
+	if errors.Is(err, ErrConflict) {
+		return ErrConflict
+	}
+	if c := quantity.ClassOf(err); c != nil {
+		return c
 	}
 	return quantity.ErrInvalid
 }

@@ -131,11 +131,8 @@ func planError(op, sym string, cause error, reason string) *PlanError {
 		class = quantity.ErrInvalid
 	default:
 		class = quantity.ErrInvalid
-		for _, c := range []error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid} {
-			if errors.Is(cause, c) {
-				class = c
-				break
-			}
+		if c := quantity.ClassOf(cause); c != nil {
+			class = c
 		}
 	}
 	return &PlanError{Op: op, Symbol: sym, Class: class, Reason: reason, Err: cause}

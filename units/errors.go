@@ -170,17 +170,11 @@ func (e *Error) Is(target error) bool {
 }
 
 // classes are the module's error classes.
-var classes = [...]error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid}
-
 // class returns the error's one class: the cause's, Class, or the one
 // its Kind and Op give.
 func (e *Error) class() error {
-	if e.Err != nil {
-		for _, c := range classes {
-			if errors.Is(e.Err, c) {
-				return c
-			}
-		}
+	if c := quantity.ClassOf(e.Err); c != nil {
+		return c
 	}
 	switch {
 	case e.Class != nil:

@@ -1,7 +1,6 @@
 package uncertain
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -134,19 +133,13 @@ func (e *Error) Error() string {
 }
 
 // classes are the module's error classes an Error may have.
-var classes = [...]error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid}
-
 // class returns e's one class.
 func (e *Error) class() error {
 	if e.Class != nil {
 		return e.Class
 	}
-	if e.Err != nil {
-		for _, c := range classes {
-			if errors.Is(e.Err, c) {
-				return c
-			}
-		}
+	if c := quantity.ClassOf(e.Err); c != nil {
+		return c
 	}
 	return quantity.ErrInvalid
 }

@@ -1,7 +1,6 @@
 package reduction
 
 import (
-	"errors"
 	"fmt"
 	"strings"
 
@@ -76,17 +75,7 @@ func (e *Error) Is(target error) bool {
 	return target == quantity.ErrInvalid && classless(e.Err)
 }
 
-var classes = []error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid}
-
 // classless reports whether err has none of the module's classes.
 func classless(err error) bool {
-	if err == nil {
-		return true
-	}
-	for _, c := range classes {
-		if errors.Is(err, c) {
-			return false
-		}
-	}
-	return true
+	return err == nil || quantity.ClassOf(err) == nil
 }

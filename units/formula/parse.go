@@ -127,10 +127,8 @@ func (e *Error) class() error {
 // causeClass returns the class of cause if it has one of the module's
 // classes, and def otherwise.
 func causeClass(cause, def error) error {
-	for _, c := range []error{quantity.ErrDimension, quantity.ErrUnknown, quantity.ErrRange, quantity.ErrInvalid, quantity.ErrParse} {
-		if errors.Is(cause, c) {
-			return c
-		}
+	if c := quantity.ClassOf(cause); c != nil {
+		return c
 	}
 	return def
 }

@@ -1,7 +1,6 @@
 package steady
 
 import (
-	"errors"
 	"fmt"
 	"strings"
 
@@ -98,15 +97,7 @@ func (e *ParseError) Is(target error) bool { return target == quantity.ErrParse 
 
 // classed reports whether err matches one of the module's classes.
 func classed(err error) bool {
-	if err == nil {
-		return false
-	}
-	for _, c := range []error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid} {
-		if errors.Is(err, c) {
-			return true
-		}
-	}
-	return false
+	return quantity.ClassOf(err) != nil
 }
 
 // Unwrap returns the underlying error, or nil.

@@ -4,26 +4,16 @@
 package filebase
 
 import (
-	"errors"
 	"strings"
 
 	"similis.dev/similis/quantity"
 )
 
 // classes are the error classes of package quantity.
-var classes = [...]error{quantity.ErrDimension, quantity.ErrRange, quantity.ErrParse, quantity.ErrUnknown, quantity.ErrInvalid}
-
 // ClassOf returns the class of package quantity that err matches under
 // errors.Is (ErrDimension, ErrRange, ErrParse, ErrUnknown or ErrInvalid),
 // or nil if it matches none.
-func ClassOf(err error) error {
-	for _, c := range classes {
-		if errors.Is(err, c) {
-			return c
-		}
-	}
-	return nil
-}
+func ClassOf(err error) error { return quantity.ClassOf(err) }
 
 // Is is the Is method of a file error whose underlying error is err and
 // whose own class is class (nil meaning quantity.ErrParse): it reports
