@@ -420,14 +420,18 @@ func lackOfFit(x, y, w []float64, sse float64, p int) *LackOfFit {
 	switch {
 	case l.SSPure > 0:
 		l.F = (l.SSLack / float64(l.DFLack)) / (l.SSPure / float64(l.DFPure))
+		if !finite(l.F) {
+			// The pure error is negligible against the lack of fit: the
+			// F ratio overflows and the lack of fit is as certain as it
+			// can be.
+			l.F, l.P = math.MaxFloat64, 0
+			break
+		}
 		l.P = distuv.F{D1: float64(l.DFLack), D2: float64(l.DFPure)}.Survival(l.F)
 	case l.SSLack > 0:
 		l.F, l.P = math.MaxFloat64, 0
 	default:
 		l.F, l.P = 0, 1
-	}
-	if !finite(l.F) {
-		l.F = math.MaxFloat64
 	}
 	return l
 }
