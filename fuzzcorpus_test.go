@@ -19,6 +19,7 @@ var savedInputs = map[string]string{
 	"examples/spillway/testdata/fuzz/FuzzSpillwayFlags/8fbc240f9e9877f4":   "a refused flag's message names the flag even when its value is long (the echo is cut, the name is kept)",
 	"pigroups/testdata/fuzz/FuzzMatrix/8ed01f8052430226":                   "the rank and every group's dimensionlessness agree with exact math/big elimination",
 	"quantity/fit/testdata/fuzz/FuzzFitPoly/3c7571c2fe27f701":              "a fairing evaluated where steps in x overflow gives a finite value or an error, never NaN",
+	"quantity/fit/testdata/fuzz/FuzzFitPoly/48021651a2fc1c46":              "a lack-of-fit test whose pure-error sum of squares overflows is not reported (a note says why), never SSPure = +Inf",
 	"quantity/fit/testdata/fuzz/FuzzFitPoly/7925a30dfc29b6f7":              "a lack-of-fit F ratio that overflows (pure error negligible) is reported as the largest F with P = 0, never P = NaN",
 	"quantity/uncertain/testdata/fuzz/FuzzBudget/561507c236f80ccf":         "a source's share of u_c² that overflows is refused, not printed as NaN or Inf",
 	"similarity/hydraulic/testdata/fuzz/FuzzRules/1a31e76e95560a35":        "a rule's derived ratios are finite and positive, or the rule refuses",

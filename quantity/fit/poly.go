@@ -307,6 +307,12 @@ func fitPoly(op string, x, y []float64, order int, o Options) (*Poly, error) {
 	}
 	f.diagnose(x, y, r, o)
 	f.LackOfFit = lackOfFit(x, y, o.Weights, r.sse, p)
+	if l := f.LackOfFit; l != nil && !(finite(l.SSPure) && finite(l.SSLack)) {
+		// The scatter of the repeat points overflows a float64 when
+		// squared: the test cannot be computed, and says so.
+		f.LackOfFit = nil
+		f.Notes = append(f.Notes, "no lack-of-fit test: the repeat points' sum of squares overflows a float64")
+	}
 	return f, nil
 }
 
