@@ -75,10 +75,21 @@ func (l Loads) ToStability(alphaDeg float64) (AxisLoads, error) {
 		return AxisLoads{}, &Error{Op: "axis transfer", Fault: similarity.OutOfRange("loads", "a load is not finite")}
 	}
 	s, c := math.Sincos(alphaDeg * deg)
-	return AxisLoads{Axes: StabilityAxes,
+	return resolved(AxisLoads{Axes: StabilityAxes,
 		Drag: l[AxialForce]*c + l[NormalForce]*s, Lift: l[NormalForce]*c - l[AxialForce]*s, Side: l[SideForce],
 		Roll: l[RollingMoment]*c + l[YawingMoment]*s, Pitch: l[PitchingMoment], Yaw: l[YawingMoment]*c - l[RollingMoment]*s,
-	}, nil
+	})
+}
+
+// resolved returns a, or an *Error of class quantity.ErrRange when a
+// component overflowed in the rotation (loads near the float64 limit).
+func resolved(a AxisLoads) (AxisLoads, error) {
+	for _, v := range [...]float64{a.Drag, a.Side, a.Lift, a.Roll, a.Pitch, a.Yaw} {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return AxisLoads{}, &Error{Op: "axis transfer", Fault: similarity.OutOfRange("loads", "a load overflows a float64 when resolved in "+a.Axes.String())}
+		}
+	}
+	return a, nil
 }
 
 // ToWind resolves body-axis loads in wind axes at the angle of attack
@@ -98,10 +109,10 @@ func (l Loads) ToWind(alphaDeg, betaDeg float64) (AxisLoads, error) {
 		return AxisLoads{}, err
 	}
 	sb, cb := math.Sincos(betaDeg * deg)
-	return AxisLoads{Axes: WindAxes,
+	return resolved(AxisLoads{Axes: WindAxes,
 		Drag: s.Drag*cb - s.Side*sb, Side: s.Side*cb + s.Drag*sb, Lift: s.Lift,
 		Roll: s.Roll*cb + s.Pitch*sb, Pitch: s.Pitch*cb - s.Roll*sb, Yaw: s.Yaw,
-	}, nil
+	})
 }
 
 // Offset is the position of the model's moment reference point relative
