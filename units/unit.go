@@ -191,12 +191,13 @@ func (u Unit) Equal(o Unit) bool {
 		u.offset == o.offset && sameFactor(u.factor, o.factor)
 }
 
-// sameFactor compares factors to 1e-14 relative (some tens of units in
-// the last place), since the
-// same unit reached by different products (kW·h, 3.6 MJ) may round
-// differently.
+// sameFactor compares factors to 1e-13 relative (some hundreds of units
+// in the last place), since the same unit reached by different products
+// (kW·h, 3.6 MJ) may round differently, and a power of an inexact factor
+// (eV⁻⁹ reached through eV^(3/2) and its square and cube) multiplies the
+// rounding of each step by its exponent.
 func sameFactor(a, b float64) bool {
-	return a == b || math.Abs(a-b) <= 1e-14*math.Max(math.Abs(a), math.Abs(b))
+	return a == b || math.Abs(a-b) <= 1e-13*math.Max(math.Abs(a), math.Abs(b))
 }
 
 // Compatible reports whether values in u convert to values in o.
