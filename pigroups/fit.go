@@ -1,6 +1,7 @@
 package pigroups
 
 import (
+	"cmp"
 	"errors"
 	"fmt"
 	"math"
@@ -305,7 +306,7 @@ func runsTest(resid []float64, fitted *mat.VecDense, sw []float64) RunsTest {
 		idx[i] = i
 	}
 	slices.SortStableFunc(idx, func(a, b int) int {
-		return cmpFloat(fitted.AtVec(a)/sw[a], fitted.AtVec(b)/sw[b])
+		return cmp.Compare(fitted.AtVec(a)/sw[a], fitted.AtVec(b)/sw[b])
 	})
 	var r RunsTest
 	last := 0
@@ -338,16 +339,6 @@ func runsTest(resid []float64, fitted *mat.VecDense, sw []float64) RunsTest {
 	}
 	r.LackOfFit = r.Z < -1.645
 	return r
-}
-
-func cmpFloat(a, b float64) int {
-	switch {
-	case a < b:
-		return -1
-	case a > b:
-		return 1
-	}
-	return 0
 }
 
 // Prediction is the fitted Π₀ at a point, with its confidence interval

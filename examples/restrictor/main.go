@@ -11,6 +11,7 @@
 package main
 
 import (
+	"cmp"
 	"fmt"
 	"io"
 	"math"
@@ -447,8 +448,8 @@ func buildPlot(r *Result) (*plot.Plot, []*plotter.Scatter, error) {
 		}
 		sc.GlyphStyle = plotstyle.Marker(k)
 		scs = append(scs, sc)
-		lo := slices.MinFunc(pts, func(a, b plotter.XY) int { return cmpF(a.X, b.X) }).X
-		hi := slices.MaxFunc(pts, func(a, b plotter.XY) int { return cmpF(a.X, b.X) }).X
+		lo := slices.MinFunc(pts, func(a, b plotter.XY) int { return cmp.Compare(a.X, b.X) }).X
+		hi := slices.MaxFunc(pts, func(a, b plotter.XY) int { return cmp.Compare(a.X, b.X) }).X
 		var line plotter.XYs
 		for i := 0; i <= 20; i++ {
 			re := lo * math.Pow(hi/lo, float64(i)/20)
@@ -474,16 +475,6 @@ func buildPlot(r *Result) (*plot.Plot, []*plotter.Scatter, error) {
 	// Room above the data for the legend, so it covers no marker.
 	pl.Y.Max *= math.Pow(pl.Y.Max/pl.Y.Min, 0.3)
 	return pl, scs, nil
-}
-
-func cmpF(a, b float64) int {
-	switch {
-	case a < b:
-		return -1
-	case a > b:
-		return 1
-	}
-	return 0
 }
 
 // plotFit writes the plot as restrictor-fit.png (at dpi) and

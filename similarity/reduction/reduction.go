@@ -383,6 +383,28 @@ func (r *run) plan(src chanfile.Source) error {
 
 // dimOf returns the dimension of a column as the derived channels see
 // it: a sample-calibrated channel in its engineering unit.
+// reduced returns the channels reduced at each point, each once, of
+// those has knows: the variables', the derived ones, the tared and
+// calibrated ones and Also.
+func (r *run) reduced(has func(string) bool) []string {
+	var reduce []string
+	add := func(n string) {
+		if has(n) && !slices.Contains(reduce, n) {
+			reduce = append(reduce, n)
+		}
+	}
+	for _, b := range r.binds {
+		add(b.name)
+	}
+	for _, n := range slices.Concat(r.res.Derived, r.spec.Tare, r.spec.Also) {
+		add(n)
+	}
+	for _, c := range r.spec.Calibrations {
+		add(c.Channel)
+	}
+	return reduce
+}
+
 func (r *run) dimOf(c chanfile.Column) quantity.Dim {
 	if cal, ok := r.cals[c.Name]; ok && cal.Samples {
 		return cal.Cal.Eng.Dim()
@@ -736,21 +758,7 @@ func (r *run) points() error {
 	}
 	// The channels reduced at each point: the variables', the derived
 	// ones, the tared and calibrated ones and Also, each once.
-	var reduce []string
-	add := func(n string) {
-		if _, ok := series[n]; ok && !slices.Contains(reduce, n) {
-			reduce = append(reduce, n)
-		}
-	}
-	for _, b := range r.binds {
-		add(b.name)
-	}
-	for _, n := range slices.Concat(r.res.Derived, s.Tare, s.Also) {
-		add(n)
-	}
-	for _, c := range s.Calibrations {
-		add(c.Channel)
-	}
+	reduce := r.reduced(func(n string) bool { _, ok := series[n]; return ok })
 	chs := make([]steady.Channel, len(reduce))
 	for i, n := range reduce {
 		x := series[n]

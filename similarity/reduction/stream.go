@@ -263,21 +263,7 @@ func (r *run) stream() error {
 		_, der := derived[n]
 		return sel || der
 	}
-	var reduce []string
-	add := func(n string) {
-		if has(n) && !slices.Contains(reduce, n) {
-			reduce = append(reduce, n)
-		}
-	}
-	for _, b := range r.binds {
-		add(b.name)
-	}
-	for _, n := range slices.Concat(r.res.Derived, s.Tare, s.Also) {
-		add(n)
-	}
-	for _, c := range s.Calibrations {
-		add(c.Channel)
-	}
+	reduce := r.reduced(has)
 	h := &history{names: reduce, dims: make([]quantity.Dim, len(reduce)), vals: make([][]float64, len(reduce))}
 	allIdx := make([]int, len(reduce))
 	for i := range allIdx {
