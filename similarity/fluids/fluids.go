@@ -31,7 +31,9 @@ type Fluid interface {
 // range; every *RangeError matches it.
 var ErrRange = quantity.ErrRange
 
-// RangeError reports a temperature, pressure or altitude out of range.
+// RangeError reports a temperature, pressure or altitude out of range,
+// or a constant of a gas that gives no physical gas. A constant of the
+// wrong dimension is not a RangeError but an ErrDimension.
 type RangeError struct {
 	Fluid, What string
 	// Value is the refused value and Lo … Hi the range it must lie in,
@@ -347,7 +349,8 @@ func (c SaturationCurve) String() string {
 }
 
 // Air returns dry air with the constants of ISO 2533:1975: R = 287.052 87
-// J/(kg·K), γ = 1.4, β = 1.458 × 10⁻⁶ kg/(m·s·K^(1/2)), S = 110.4 K. It
+// J/(kg·K), γ = 1.4, β = 1.458 × 10⁻⁶ kg/(m·s·K^(1/2)), S = 110.4 K; and
+// Sutherland's law for its conductivity (see ThermalConductivity). It
 // is a function, so no caller can change the air (or the standard
 // atmosphere) for another.
 //
@@ -394,7 +397,7 @@ func (g IdealGas) constant(field, what string, x quantity.Quantity, want quantit
 	if x.Dim() == want || optional && x == (quantity.Quantity{}) {
 		return x.Value(), nil
 	}
-	return 0, x.CheckNamed(fmt.Sprintf("%s: IdealGas.%s (%s)", g.GasName, field, what), want)
+	return 0, x.CheckNamed(fmt.Sprintf("fluids: %s: IdealGas.%s (%s)", g.GasName, field, what), want)
 }
 
 // constants checks the gas's constants, their dimensions first and then
