@@ -404,29 +404,33 @@ func (g IdealGas) constant(field, what string, x quantity.Quantity, want quantit
 // that they give a physical gas, and returns them as numbers in SI
 // units.
 func (g IdealGas) constants() (gasConstants, error) {
-	c := gasConstants{gamma: g.Gamma, saturation: g.Saturation}
-	for _, f := range [...]struct {
+	// The fields in the order of gasConstants; v holds their values
+	// (a pointer into c would move c to the heap on every call).
+	fields := [...]struct {
 		field, what string
 		x           quantity.Quantity
 		want        quantity.Dim
 		optional    bool
-		v           *float64
 	}{
-		{"R", "specific gas constant", g.R, quantity.SpecificHeatCapacity, false, &c.r},
-		{"Beta", "Sutherland's constant β", g.Beta, SutherlandConstantDim, false, &c.beta},
-		{"S", "Sutherland's temperature", g.S, quantity.Temperature, false, &c.s},
-		{"KRef", "thermal conductivity at KTemp", g.KRef, quantity.ThermalConductivity, true, &c.kRef},
-		{"KTemp", "reference temperature of the conductivity", g.KTemp, quantity.Temperature, true, &c.kTemp},
-		{"KS", "Sutherland's temperature for the conductivity", g.KS, quantity.Temperature, true, &c.kS},
-		{"MinTemperature", "lowest temperature of the constants", g.MinTemperature, quantity.Temperature, true, &c.tMin},
-		{"MaxTemperature", "highest temperature of the constants", g.MaxTemperature, quantity.Temperature, true, &c.tMax},
-	} {
-		v, err := g.constant(f.field, f.what, f.x, f.want, f.optional)
+		{"R", "specific gas constant", g.R, quantity.SpecificHeatCapacity, false},
+		{"Beta", "Sutherland's constant β", g.Beta, SutherlandConstantDim, false},
+		{"S", "Sutherland's temperature", g.S, quantity.Temperature, false},
+		{"KRef", "thermal conductivity at KTemp", g.KRef, quantity.ThermalConductivity, true},
+		{"KTemp", "reference temperature of the conductivity", g.KTemp, quantity.Temperature, true},
+		{"KS", "Sutherland's temperature for the conductivity", g.KS, quantity.Temperature, true},
+		{"MinTemperature", "lowest temperature of the constants", g.MinTemperature, quantity.Temperature, true},
+		{"MaxTemperature", "highest temperature of the constants", g.MaxTemperature, quantity.Temperature, true},
+	}
+	var v [len(fields)]float64
+	for i, f := range fields {
+		x, err := g.constant(f.field, f.what, f.x, f.want, f.optional)
 		if err != nil {
 			return gasConstants{}, err
 		}
-		*f.v = v
+		v[i] = x
 	}
+	c := gasConstants{r: v[0], gamma: g.Gamma, beta: v[1], s: v[2], kRef: v[3], kTemp: v[4], kS: v[5],
+		tMin: v[6], tMax: v[7], saturation: g.Saturation}
 	if err := positive(g.GasName, "specific gas constant R", "J/(kg·K)", c.r); err != nil {
 		return gasConstants{}, err
 	}

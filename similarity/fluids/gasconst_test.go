@@ -263,3 +263,17 @@ func ExampleIdealGas() {
 	// ρ = 1.8295 kg/m³, μ = 1.465e-05 Pa·s, a = 267.3 m/s
 	// true
 }
+
+// TestGasAtAllocs: checking a gas's constants on every call allocates
+// nothing (a formula evaluates rho_air row by row).
+func TestGasAtAllocs(t *testing.T) {
+	air := fluids.Air()
+	T, p := q.New(288.15, q.Temperature), q.New(101325, q.Pressure)
+	if n := testing.AllocsPerRun(100, func() {
+		if _, err := air.At(T, p); err != nil {
+			t.Fatal(err)
+		}
+	}); n != 0 {
+		t.Errorf("Air().At allocates %v times per call", n)
+	}
+}
