@@ -36,7 +36,7 @@ func TestFiniteOrError(t *testing.T) {
 			return err
 		}()},
 		{"gas with R = 0", func() error {
-			_, err := fluids.IdealGas{GasName: "x", R: 0, Gamma: 1.4, Beta: 1e-6, S: 100}.At(q.New(288, q.Temperature), q.New(1e5, q.Pressure))
+			_, err := fluids.IdealGas{GasName: "x", R: q.New(0, q.SpecificHeatCapacity), Gamma: 1.4, Beta: q.New(1e-6, fluids.SutherlandConstantDim), S: q.New(100, q.Temperature)}.At(q.New(288, q.Temperature), q.New(1e5, q.Pressure))
 			return err
 		}()},
 		{"constant fluid of NaN density", func() error {

@@ -240,7 +240,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		c    tunnel.Condition
 	}{{"pressurised tunnel (total 280–320 K, ≤ 4 bar absolute)", air, r.Pressurised}, {"cryogenic tunnel (total ≥ 110 K, 1–4.5 bar absolute)", n2, r.Cryogenic}}
 	for _, t := range tunnels {
-		fmt.Fprintf(w, "  %s, gas: %s (ideal gas, R = %.2f J/(kg·K), γ = %.1f, Sutherland viscosity):\n", t.name, t.c.Gas, t.gas.R, t.gas.Gamma)
+		fmt.Fprintf(w, "  %s, gas: %s (ideal gas, R = %.2f J/(kg·K), γ = %.1f, Sutherland viscosity):\n", t.name, t.c.Gas, t.gas.R.Value(), t.gas.Gamma)
 		fmt.Fprintf(w, "    total T₀ = %.1f K, p₀ = %.3f bar (absolute); static T = %.1f K, p = %.3f bar (absolute); V = %.1f m/s; Re_m/Re = %.3f — %s (set by: %s)\n",
 			t.c.Total.Temperature.Value(), t.c.Total.Pressure.Value()/1e5,
 			t.c.Temperature.Value(), t.c.Pressure.Value()/1e5, t.c.Velocity.Value(), t.c.ReynoldsRatio, t.c.Note, strings.Join(t.c.Binding, ", "))

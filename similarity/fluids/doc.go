@@ -22,7 +22,17 @@
 // MaxTemperature); nitrogen is checked against its saturation curve (Span
 // et al., 2000), so a state at or below the condensation temperature at
 // its pressure, below the triple point, or above the range, is a
-// *RangeError rather than a density (IdealGas.LowestTemperature).
+// *RangeError rather than a density (IdealGas.LowestTemperature). A
+// gas's dimensional constants (the specific gas constant R, Sutherland's
+// β and S, the conductivity constants, the temperature bounds) are
+// quantity.Quantity values, so a caller's own gas states each in its
+// dimension; a constant of the wrong dimension is refused wherever the
+// gas is used, with an ErrDimension naming the field (IdealGas.R, …) and
+// both dimensions. Only the ratio of specific heats γ, a pure number, is
+// a float64.
+//
+// Every *RangeError states the unit of its value and bounds (Unit), or
+// none for a dimensionless value (a Mach number, a ratio, a fraction).
 //
 // Formulas: FormulaFuncs gives the water, sea-water, air and humid-air
 // properties as functions for package formula (nu_water(T),

@@ -84,6 +84,7 @@ func FormulaFuncs() []formula.Func {
 	fs[4].Eval, fs[4].Deriv = sea(mu, muSlope)
 	fs[5].Eval, fs[5].Deriv = sea(nu, nuSlope)
 	air := Air()
+	airS := air.S.Value() // Sutherland's temperature of air, K
 	return append(fs,
 		formula.Func{Name: "pv_water", Args: []quantity.Dim{T}, Result: p,
 			Eval: func(a []float64) (float64, error) {
@@ -124,7 +125,7 @@ func FormulaFuncs() []formula.Func {
 			Eval: func(a []float64) (float64, error) { return air.viscosity(a[0]) },
 			Deriv: func(a, g []float64) error {
 				m, err := air.viscosity(a[0])
-				g[0] = m * (1.5/a[0] - 1/(a[0]+air.S))
+				g[0] = m * (1.5/a[0] - 1/(a[0]+airS))
 				return err
 			}},
 		formula.Func{Name: "nu_air", Args: []quantity.Dim{T, p}, Result: quantity.KinematicViscosity,
@@ -136,7 +137,7 @@ func FormulaFuncs() []formula.Func {
 				s, err := air.At(quantity.New(a[0], T), quantity.New(a[1], p))
 				n := s.KinematicViscosity.Value()
 				// ν = μ(T)·R·T/p
-				g[0], g[1] = n*(1.5/a[0]-1/(a[0]+air.S)+1/a[0]), -n/a[1]
+				g[0], g[1] = n*(1.5/a[0]-1/(a[0]+airS)+1/a[0]), -n/a[1]
 				return err
 			}},
 		formula.Func{Name: "rho_humid_air", Args: []quantity.Dim{T, p, one}, Result: quantity.Density,

@@ -23,9 +23,10 @@ import (
 // and CondensationMargin says how far above it is.
 func Nitrogen() IdealGas { return nitrogenGas }
 
-var nitrogenGas = IdealGas{GasName: "nitrogen", R: 8.314462618 / 0.0280134, Gamma: 1.4,
-	Beta: 1.663e-5 * (273 + 107) / math.Pow(273, 1.5), S: 107, KRef: 0.0242, KTemp: 273, KS: 150,
-	MinTemperature: n2Tt, MaxTemperature: 600, Saturation: NitrogenSaturation}
+var nitrogenGas = IdealGas{GasName: "nitrogen", R: quantity.New(8.314462618/0.0280134, quantity.SpecificHeatCapacity), Gamma: 1.4,
+	Beta: quantity.New(1.663e-5*(273+107)/math.Pow(273, 1.5), SutherlandConstantDim), S: kelvin(107),
+	KRef: quantity.New(0.0242, quantity.ThermalConductivity), KTemp: kelvin(273), KS: kelvin(150),
+	MinTemperature: kelvin(n2Tt), MaxTemperature: kelvin(600), Saturation: NitrogenSaturation}
 
 // Nitrogen's critical and triple points (Span et al., 2000).
 const (

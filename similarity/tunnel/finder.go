@@ -149,17 +149,20 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	tminName, tmaxName := "minimum total temperature", "maximum total temperature"
 	// The gas's own range: the static temperature T₀/tr at or above its
 	// lowest, the total temperature at or below its highest.
-	if g := gas.MinTemperature * tr; g > tlo {
+	// The gas's constants in SI units (K, J/(kg·K)), their dimensions
+	// checked by LowestTemperature above.
+	gmin, gmax, rgas := gas.MinTemperature.Value(), gas.MaxTemperature.Value(), gas.R.Value()
+	if g := gmin * tr; g > tlo {
 		tlo, tminName = g, "lowest temperature of the "+gas.GasName+" model"
-		for i := 0; i < 8 && tlo/tr < gas.MinTemperature; i++ {
+		for i := 0; i < 8 && tlo/tr < gmin; i++ {
 			tlo = math.Nextafter(tlo, math.Inf(1)) // T₀/tr rounded below the bound
 		}
 	}
-	if gas.MaxTemperature > 0 && gas.MaxTemperature < thi {
-		thi, tmaxName = gas.MaxTemperature, "highest temperature of the "+gas.GasName+" model"
+	if gmax > 0 && gmax < thi {
+		thi, tmaxName = gmax, "highest temperature of the "+gas.GasName+" model"
 	}
 	if !(tlo <= thi) {
-		return Condition{}, &fluids.RangeError{Fluid: gas.GasName, Unit: "K", What: fmt.Sprintf("total temperature of the tunnel limits at Mach %.3g (the gas model holds for static temperatures %g … %g K)", ma, gas.MinTemperature, gas.MaxTemperature),
+		return Condition{}, &fluids.RangeError{Fluid: gas.GasName, Unit: "K", What: fmt.Sprintf("total temperature of the tunnel limits at Mach %.3g (the gas model holds for static temperatures %g … %g K)", ma, gmin, gmax),
 			Value: lim.MaxTemperature.Value(), Lo: tlo, Hi: thi}
 	}
 	// mu is Sutherland's law, NaN outside the gas's range (which the
@@ -171,12 +174,12 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 		}
 		return v.Value()
 	}
-	speed := func(T float64) float64 { return ma * math.Sqrt(gas.Gamma*gas.R*T) }
+	speed := func(T float64) float64 { return ma * math.Sqrt(gas.Gamma*rgas*T) }
 	// need0 is the total pressure that gives the full-scale Reynolds
 	// number at total temperature T0.
 	need0 := func(T0 float64) float64 {
 		T := T0 / tr
-		return pr * rep * mu(T) * gas.R * T / (speed(T) * lm)
+		return pr * rep * mu(T) * rgas * T / (speed(T) * lm)
 	}
 	c := Condition{Mach: ma, FullReynolds: rep, Gas: gas.GasName}
 	pmaxName := "maximum total pressure"
