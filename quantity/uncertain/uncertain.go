@@ -506,8 +506,8 @@ func scale(v quantity.Quantity, a float64, x *Measured) (z Measured) {
 // (a division by zero, the logarithm of a value ≤ 0, the square root of
 // 0 with an uncertainty, an overflow) panics with an *Error of class
 // quantity.ErrRange naming the operation and the operand, as a dimension
-// mismatch panics with a *quantity.DimensionError; Eval returns either as
-// an error. First-order propagation does not hold at such a point: check
+// mismatch panics with a *quantity.Error of class quantity.ErrDimension;
+// Eval returns either as an error. First-order propagation does not hold at such a point: check
 // the model there with MonteCarlo, whose trials are exact values.
 
 //go:noinline
@@ -704,7 +704,10 @@ func Eval(formula func() Measured) (m Measured, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			switch e := r.(type) {
-			case *quantity.DimensionError:
+			case *quantity.Error:
+				if e.Class != quantity.ErrDimension {
+					panic(r)
+				}
 				err = e
 			case *Error:
 				err = e
@@ -734,13 +737,13 @@ func (m *Measured) finite() bool {
 // correlation, a calibration curve — given its value y at m's estimate
 // and its derivative dydx there: the chain rule applied to each of m's
 // sources. The dimensions must agree: y's is dydx's times m's. It panics
-// with a *quantity.DimensionError if they do not, as arithmetic does, and
-// with an *Error of class quantity.ErrRange if y, or dydx where m is
-// uncertain, is not a finite number.
+// with a *quantity.Error of class quantity.ErrDimension if they do not,
+// as arithmetic does, and with an *Error of class quantity.ErrRange if y,
+// or dydx where m is uncertain, is not a finite number.
 func Apply(m Measured, y, dydx quantity.Quantity) Measured {
 	want := dydx.Mul(m.q) // panics on an overflow of exponents
 	if want.Dim() != y.Dim() {
-		panic(&quantity.DimensionError{Op: "check", Name: "Apply: the function's value", Left: y.Dim(), Right: want.Dim(), Binary: true, Detail: "a value y = f(x) has the dimension of dy/dx times x"})
+		panic(&quantity.Error{Op: "check", Name: "Apply: the function's value", Dims: [2]quantity.Dim{y.Dim(), want.Dim()}, Binary: true, Reason: "a value y = f(x) has the dimension of dy/dx times x", Class: quantity.ErrDimension})
 	}
 	if !ok1(y.Value(), dydx.Value(), &m) {
 		panicDomain("Apply: a function value or derivative not finite, at", m.q.Value())
