@@ -207,6 +207,7 @@ func (d Dim) Div(o Dim) (Dim, error) {
 func (d Dim) Inv() (Dim, error) {
 	return Dimensionless.Div(d)
 }
+
 // Pow returns d raised to num/den. It reports an *Error of class
 // ErrDimension when a resulting exponent is not a whole number of sixths
 // or is out of range.
