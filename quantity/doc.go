@@ -28,8 +28,8 @@
 // reported, chosen by where the dimensions come from:
 //
 //   - In code a programmer wrote, a mismatch is a bug. Quantity and Series
-//     arithmetic panics with a *DimensionError whose message names the
-//     operation and both sides with their kinds —
+//     arithmetic panics with an *Error of class ErrDimension whose
+//     message names the operation and both sides with their kinds —
 //     "cannot add pressure, stress [Pa] and velocity [m·s⁻¹]" —
 //     so the bug surfaces on the formula's first run, with a stack trace.
 //   - For values whose dimensions come from input (a file, a user), check
@@ -38,8 +38,11 @@
 //     panic into a returned error.
 //
 // Dim's own methods (Mul, Div, Pow, …) return errors rather than panic.
-// Every *DimensionError matches ErrDimension under errors.Is, and
-// errors.As recovers its fields.
+// The package has one error type, *Error: every error it returns or
+// panics with is one, matching its Class (ErrDimension for a dimension
+// that is wrong) under errors.Is, and errors.As recovers its fields —
+// the operation, the input, the position, the caller's name for the
+// value, the two dimensions and the cause.
 //
 // # The exponent algebra and the error classes
 //

@@ -78,7 +78,9 @@ func ParseQuantitySI(s string) (Quantity, error) {
 	}
 	v, err := strconv.ParseFloat(num, 64)
 	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
-		return Quantity{}, parseError(s, lead, fmt.Sprintf("%q is not a finite number", num))
+		pe := parseError(s, lead, fmt.Sprintf("%q is not a finite number", num))
+		pe.Err = err // the *strconv.NumError, if there is one
+		return Quantity{}, pe
 	}
 	if v == 0 && strings.ContainsAny(strings.SplitN(strings.ToLower(num), "e", 2)[0], "123456789") {
 		return Quantity{}, parseError(s, lead, fmt.Sprintf("%q underflows to zero", num))

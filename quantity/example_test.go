@@ -7,8 +7,9 @@ import (
 	"similis.dev/similis/quantity"
 )
 
-// The error model: a formula bug panics with a *DimensionError at once;
-// values from input are checked first; user formulas run under Eval.
+// The error model: a formula bug panics at once with an *Error of class
+// ErrDimension; values from input are checked first; user formulas run
+// under Eval.
 func Example() {
 	rho := quantity.New(998.2, quantity.Density) // water at 20 °C
 	v := quantity.New(2.0, quantity.Velocity)
@@ -28,8 +29,7 @@ func Example() {
 	_, err := quantity.Eval(func() quantity.Quantity {
 		return quantity.New(101325, quantity.Pressure).Add(v)
 	})
-	var de *quantity.DimensionError
-	fmt.Println(errors.As(err, &de), err)
+	fmt.Println(errors.Is(err, quantity.ErrDimension), err)
 	// Output:
 	// Re = 9.966e+04 (1)
 	// μ: want dynamic viscosity [kg·m⁻¹·s⁻¹], got kinematic viscosity, thermal diffusivity, diffusion coefficient [m²·s⁻¹]

@@ -162,7 +162,7 @@ func ParseDim(s string) (Dim, error) {
 		}
 		e, err := DimOf(b, num, den)
 		if err != nil {
-			return Dim(0), parseError(s, start, err.(*DimensionError).Detail)
+			return Dim(0), parseError(s, start, err.(*Error).Reason)
 		}
 		if d, err = d.Mul(e); err != nil {
 			return Dim(0), parseError(s, start, "exponent of "+b.String()+" overflows")

@@ -294,7 +294,7 @@ func (f *Flag) Set(s string) error {
 		return err
 	}
 	if v.Unit.dim != f.dim {
-		return &Error{Op: OpSetFlag, Input: s, Err: &quantity.DimensionError{Op: "check", Name: s, Left: v.Unit.dim, Right: f.dim, Binary: true}}
+		return &Error{Op: OpSetFlag, Input: s, Err: &quantity.Error{Op: "check", Name: s, Dims: [2]quantity.Dim{v.Unit.dim, f.dim}, Binary: true, Class: quantity.ErrDimension}}
 	}
 	if f.dim == quantity.Temperature && (!f.diff && v.Unit.IsInterval() || f.diff && v.Unit.IsScale()) {
 		what, want := "a temperature difference", "a temperature level (°C, °F, K)"
