@@ -9,7 +9,8 @@
 // Kestin's ratio form above). Sea-water density by the one-atmosphere
 // equation of state EOS-80 (Millero and Poisson, 1981; UNESCO Technical
 // Papers in Marine Science 44, 1983) as published, its practical salinity
-// taken from the absolute salinity in g/kg by the TEOS-10 reference ratio
+// taken from the absolute salinity (Water.Salinity, a mass fraction in
+// kg/kg, as in FormulaFuncs) by the TEOS-10 reference ratio
 // 35/35.16504; sea-water viscosity by the salinity factor of Sharqawy,
 // Lienhard and Zubair (Desalination and Water Treatment 16, 354, 2010) on
 // the fresh-water value. Sea water is at 35.16504 g/kg by default. Tests
