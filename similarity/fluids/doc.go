@@ -32,6 +32,14 @@
 // both dimensions. Only the ratio of specific heats γ, a pure number, is
 // a float64.
 //
+// Near saturation a real gas departs from the ideal one:
+// NitrogenCompressibility estimates nitrogen's compressibility factor Z
+// and its speed of sound from a generalized second-virial correlation,
+// within the correlation's range (T/T_c ≥ 0.7, up to 600 K, a gas at
+// most half as dense as at the critical point), so that a cryogenic
+// tunnel's plan can say how far its ideal-gas density and Reynolds
+// number are off.
+//
 // Every *RangeError states the unit of its value and bounds (Unit), or
 // none for a dimensionless value (a Mach number, a ratio, a fraction).
 //
