@@ -20,8 +20,9 @@ import (
 // 1.075 kJ/(kg·K) between 300 and 600 K, Incropera and DeWitt, Table A.4,
 // from memory). The ideal-gas state is a fair approximation of a
 // cryogenic tunnel's gas only well above saturation — near it the real
-// gas's compressibility factor departs from 1 by a few per cent —
-// and CondensationMargin says how far above it is.
+// gas's compressibility factor departs from 1 by a few per cent, which
+// NitrogenCompressibility estimates — and CondensationMargin says how
+// far above it is.
 func Nitrogen() IdealGas { return nitrogenGas }
 
 var nitrogenGas = IdealGas{GasName: "nitrogen", R: quantity.New(8.314462618/0.0280134, quantity.SpecificHeatCapacity), Gamma: 1.4,

@@ -2,6 +2,7 @@ package fluids_test
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"testing"
 
@@ -82,4 +83,24 @@ func TestNitrogenCompressibilityRange(t *testing.T) {
 	if _, err := fluids.NitrogenCompressibility(q.New(108, q.Pressure), q.New(1e5, q.Pressure)); !errors.Is(err, q.ErrDimension) {
 		t.Errorf("a pressure for the temperature: %v", err)
 	}
+}
+
+// ExampleNitrogenCompressibility: a cryogenic tunnel's static state
+// 31 K above saturation is not an ideal gas; the ideal-gas density
+// p/(R·T) is Z times the real one.
+func ExampleNitrogenCompressibility() {
+	T, p := q.New(108.1, q.Temperature), q.New(1.032e5, q.Pressure)
+	e, err := fluids.NitrogenCompressibility(T, p)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	ideal, _ := fluids.Nitrogen().At(T, p)
+	fmt.Printf("Z = %.4f, ideal-gas ρ = %.4f kg/m³, estimated real ρ = %.4f kg/m³, a_real/a_ideal = %.4f\n",
+		e.Z, ideal.Density.Value(), ideal.Density.Value()/e.Z, e.SoundSpeedRatio)
+	_, err = fluids.NitrogenCompressibility(q.New(80, q.Temperature), q.New(2e4, q.Pressure))
+	fmt.Println(err)
+	// Output:
+	// Z = 0.9835, ideal-gas ρ = 3.2165 kg/m³, estimated real ρ = 3.2704 kg/m³, a_real/a_ideal = 0.9914
+	// fluids: nitrogen (second-virial estimate): temperature (the generalized correlation is used from T/T_c = 0.7) 80 K outside 88.3344 … 600 K
 }
