@@ -36,7 +36,7 @@
 // NitrogenCompressibility estimates nitrogen's compressibility factor Z
 // and its speed of sound from a generalized second-virial correlation,
 // within the correlation's range (T/T_c ≥ 0.7, up to 600 K, a gas at
-// most half as dense as at the critical point), so that a cryogenic
+// most half as dense as at the critical point, Z ≥ 0.9), so that a cryogenic
 // tunnel's plan can say how far its ideal-gas density and Reynolds
 // number are off.
 //

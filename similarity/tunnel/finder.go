@@ -121,8 +121,12 @@ const ColdCaution = "Cryogenic gas, liquid nitrogen and cold model, sting and tu
 // at or above the gas's lowest temperature and above its condensation
 // temperature at the static pressure plus the CondensationMargin (zero
 // when unset), and the total temperature at or below the gas's highest;
-// a found state the gas model refuses is never returned. The returned
-// condition carries its safety Cautions, which defer to the facility's
+// a found state the gas model refuses is never returned. The condition
+// is the ideal gas's; for nitrogen it also carries the real gas's
+// estimated compressibility factor at the static state and the errors
+// of the ideal-gas density and Reynolds number (Z, DensityError,
+// ReynoldsError), with a warning in Note beyond RealGasWarning. The
+// returned condition carries its safety Cautions, which defer to the facility's
 // safety rules and its responsible engineer.
 func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLength quantity.Quantity, lengthRatio float64, lim Limits) (Condition, error) {
 	for _, c := range []struct {
@@ -337,7 +341,7 @@ func tunnelFinite(xs ...float64) bool {
 func (c *Condition) realGas() {
 	e, err := fluids.NitrogenCompressibility(c.Temperature, c.Pressure)
 	if err != nil {
-		c.addNote(fmt.Sprintf("real-gas departure not estimated (%v): the ideal-gas density and Re_m may be off by more than %.1f %%", err, 100*RealGasWarning))
+		c.addNote(fmt.Sprintf("real-gas departure not estimated (%v): near saturation the ideal-gas density and Re_m can be off by several per cent", err))
 		return
 	}
 	c.Z, c.DensityError, c.ReynoldsError = e.Z, e.Z-1, e.Z/e.SoundSpeedRatio-1
