@@ -14,7 +14,7 @@ import (
 // is read in the wrong unit.
 var fieldUnits = map[string]map[string]string{
 	"similarity/fluids": {
-		"Water.Salinity": "(g/kg)",
+		"Water.Salinity": "(kg/kg)", // a dimensionless Quantity, a mass fraction
 	},
 	"similarity/hydraulic": {
 		"RatingPoint.Head":      "(m)",

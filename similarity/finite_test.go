@@ -29,7 +29,7 @@ func TestFiniteOrError(t *testing.T) {
 		err  error
 	}{
 		{"water at NaN °C", func() error { _, err := fluids.FreshWater().AtCelsius(nan); return err }()},
-		{"water of NaN salinity", func() error { _, err := fluids.Water{Salinity: nan}.AtCelsius(15); return err }()},
+		{"water of NaN salinity", func() error { _, err := fluids.Water{Salinity: q.New(nan, q.Dimensionless)}.AtCelsius(15); return err }()},
 		{"air at NaN pressure", func() error { _, err := fluids.Air().At(q.New(288, q.Temperature), q.New(nan, q.Pressure)); return err }()},
 		{"water at negative pressure", func() error {
 			_, err := fluids.FreshWater().At(q.New(288, q.Temperature), q.New(-1, q.Pressure))

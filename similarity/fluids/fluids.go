@@ -40,7 +40,7 @@ type RangeError struct {
 	// all three in Unit.
 	Value  float64
 	Lo, Hi float64
-	// Unit is the unit of Value, Lo and Hi ("K", "°C", "Pa", "g/kg"),
+	// Unit is the unit of Value, Lo and Hi ("K", "°C", "Pa", "kg/kg"),
 	// printed after each; empty for a dimensionless value (a Mach
 	// number, a ratio, a mole fraction).
 	Unit string
@@ -114,26 +114,55 @@ func state(T, p, rho, mu, a float64) State {
 	}
 }
 
-// Water is liquid water, fresh (Salinity 0) or sea water (Salinity in
-// g/kg), between 0 and 40 °C at pressures near atmospheric.
+// Water is liquid water, fresh (Salinity zero) or sea water, between 0
+// and 40 °C at pressures near atmospheric.
 type Water struct {
-	// Salinity is the absolute salinity (g/kg); 0 for fresh water.
-	Salinity float64
+	// Salinity is the absolute salinity S_A as a mass fraction (kg/kg),
+	// a dimensionless Quantity: 35.16504 g/kg is
+	// quantity.New(0.03516504, quantity.Dimensionless), or
+	// units.MustParse("g/kg").Of(35.16504). The zero Quantity is fresh
+	// water. It is
+	// the convention of the S argument of FormulaFuncs' sea-water
+	// functions too; a salinity of another dimension is an
+	// ErrDimension, one outside 0 … 0.045 (45 g/kg) a *RangeError in
+	// kg/kg.
+	Salinity quantity.Quantity
 }
 
 // FreshWater returns the fresh water of a towing tank (salinity 0).
 func FreshWater() Water { return Water{} }
 
 // SeaWater returns sea water at the reference salinity 35.16504 g/kg
-// (TEOS-10).
-func SeaWater() Water { return Water{Salinity: 35.16504} }
+// (TEOS-10), a mass fraction of 0.03516504.
+func SeaWater() Water { return Water{Salinity: quantity.New(seaRefFraction, quantity.Dimensionless)} }
+
+// seaRefFraction is TEOS-10's reference salinity, 35.16504 g/kg, as a
+// mass fraction (kg/kg).
+const seaRefFraction = 0.03516504
 
 // Name implements Fluid.
 func (w Water) Name() string {
-	if w.Salinity == 0 {
+	if w.Salinity == (quantity.Quantity{}) {
 		return "fresh water"
 	}
-	return fmt.Sprintf("sea water (S = %g g/kg)", w.Salinity)
+	return fmt.Sprintf("sea water (S = %g g/kg)", w.Salinity.Value()*1000)
+}
+
+// maxSalinity is the largest absolute salinity the sea-water
+// correlations are used for, as a mass fraction (45 g/kg).
+const maxSalinity = 0.045
+
+// salinity returns the water's absolute salinity as a mass fraction
+// (kg/kg), checked: a dimensionless Quantity in 0 … maxSalinity.
+func (w Water) salinity() (float64, error) {
+	if err := w.Salinity.CheckNamed("fluids: water: Water.Salinity (absolute salinity, a mass fraction in kg/kg)", quantity.Dimensionless); err != nil {
+		return 0, err
+	}
+	s := w.Salinity.Value()
+	if !(s >= 0 && s <= maxSalinity) {
+		return 0, &RangeError{Fluid: w.Name(), What: "absolute salinity S_A as a mass fraction (35.16504 g/kg is 0.03516504 kg/kg)", Value: s, Lo: 0, Hi: maxSalinity, Unit: "kg/kg"}
+	}
+	return s, nil
 }
 
 // The water correlations are written once over dual numbers, so that
@@ -161,8 +190,8 @@ func freshViscosity(t dual.Num) dual.Num {
 // sea water, EOS-80 (Millero and Poisson, 1981; UNESCO Technical Papers
 // in Marine Science 36 and 44), used as published: its own pure-water
 // (SMOW) term, t on the IPTS-68 scale (t₆₈ = 1.00024·t₉₀) and practical
-// salinity S_P. The Salinity of a Water is an absolute salinity in g/kg,
-// read as practical salinity by the reference-composition ratio of
+// salinity S_P. The Salinity of a Water, an absolute salinity (here sa
+// in g/kg, the Salinity's mass fraction times 1000), is read as practical salinity by the reference-composition ratio of
 // TEOS-10, S_P = S_A·35/35.16504. Checked against IAPWS-08 (TEOS-10) to
 // 0.002 % between 0 and 40 °C and 5 to 40 g/kg (see the tests).
 func seaDensity(t90 dual.Num, sa float64) dual.Num {
@@ -218,8 +247,8 @@ func seaViscositySlope(t, s float64) float64 {
 // with respect to t.
 func (w Water) properties(t float64) (rho, mu dual.Num) {
 	x := dual.Var(t)
-	if w.Salinity > 0 {
-		return seaDensity(x, w.Salinity), seaViscosity(x, w.Salinity/1000)
+	if s := w.Salinity.Value(); s > 0 {
+		return seaDensity(x, s*1000), seaViscosity(x, s)
 	}
 	return freshDensity(x), freshViscosity(x)
 }
@@ -249,8 +278,8 @@ func (w Water) At(T, p quantity.Quantity) (State, error) {
 	if !(t >= 0 && t <= 40) {
 		return State{}, &RangeError{Fluid: w.Name(), What: "temperature", Value: t, Lo: 0, Hi: 40, Unit: "°C"}
 	}
-	if !(w.Salinity >= 0 && w.Salinity <= 45) {
-		return State{}, &RangeError{Fluid: w.Name(), What: "salinity", Value: w.Salinity, Lo: 0, Hi: 45, Unit: "g/kg"}
+	if _, err := w.salinity(); err != nil {
+		return State{}, err
 	}
 	rho, mu := w.properties(t)
 	return state(T.Value(), p.Value(), rho.V, mu.V, 0), nil

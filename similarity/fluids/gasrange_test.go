@@ -195,6 +195,11 @@ func FuzzIdealGas(f *testing.F) {
 		if m, err := fluids.CondensationMargin(Tq, pq); err == nil && !finite(m.Value()) {
 			t.Errorf("CondensationMargin: %v", m)
 		}
+		if e, err := fluids.NitrogenCompressibility(Tq, pq); err == nil && (!finite(e.Z, e.SoundSpeedRatio) || !(e.Z > 0 && e.SoundSpeedRatio > 0)) {
+			t.Errorf("NitrogenCompressibility: %+v", e)
+		} else if err != nil && q.ClassOf(err) == nil {
+			t.Errorf("NitrogenCompressibility: unclassed error %v", err)
+		}
 	})
 }
 

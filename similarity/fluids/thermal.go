@@ -86,8 +86,11 @@ func (w Water) ThermalConductivity(T quantity.Quantity) (quantity.Quantity, erro
 	if err := T.CheckNamed("temperature", quantity.Temperature); err != nil {
 		return quantity.Quantity{}, err
 	}
-	if w.Salinity != 0 {
-		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "salinity for the conductivity correlation (fresh water only)", Value: w.Salinity, Lo: 0, Hi: 0, Unit: "g/kg"}
+	if s, err := w.salinity(); err != nil || s != 0 {
+		if err != nil {
+			return quantity.Quantity{}, err
+		}
+		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "absolute salinity (mass fraction) for the conductivity correlation (fresh water only)", Value: s, Lo: 0, Hi: 0, Unit: "kg/kg"}
 	}
 	t := T.Value()
 	if !(t >= 274 && t <= 370) {
@@ -116,8 +119,11 @@ func (w Water) SpecificHeat(T quantity.Quantity) (quantity.Quantity, error) {
 	if err := T.CheckNamed("temperature", quantity.Temperature); err != nil {
 		return quantity.Quantity{}, err
 	}
-	if w.Salinity != 0 {
-		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "salinity for the specific heat (fresh water only)", Value: w.Salinity, Lo: 0, Hi: 0, Unit: "g/kg"}
+	if s, err := w.salinity(); err != nil || s != 0 {
+		if err != nil {
+			return quantity.Quantity{}, err
+		}
+		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "absolute salinity (mass fraction) for the specific heat (fresh water only)", Value: s, Lo: 0, Hi: 0, Unit: "kg/kg"}
 	}
 	t := T.Value()
 	n := len(waterCp)

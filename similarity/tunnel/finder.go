@@ -58,6 +58,22 @@ type Condition struct {
 	Q       quantity.Quantity
 	// Gas is the test gas's name, as the condition was computed for it.
 	Gas string
+	// Z is the estimated compressibility factor p/(ρ·R·T) of a nitrogen
+	// test gas at the static state (fluids.NitrogenCompressibility),
+	// dimensionless; zero when not estimated (another gas, or a state
+	// outside the estimate's range, which Note then says). The
+	// condition itself is the ideal gas's.
+	//
+	// DensityError and ReynoldsError are the relative errors of the
+	// ideal-gas density and model Reynolds number against that
+	// estimate, (ideal − real)/real, dimensionless: Z − 1 for the
+	// density; for Re_m, at the held Mach number, Z·a_ideal/a_real − 1,
+	// since the real speed of sound, and so the test speed, differs too
+	// (the viscosity is the dilute gas's and the total-to-static
+	// relations the perfect gas's in both). A negative ReynoldsError
+	// means the real Re_m is higher than ModelReynolds. When |1 − Z|
+	// exceeds RealGasWarning, Note carries a warning with both.
+	Z, DensityError, ReynoldsError float64
 	// Load is LoadArea·Q, the largest load on the model's load path at
 	// this condition (zero when no LoadArea was given); Overloaded is
 	// set when it exceeds the RatedLoad.
@@ -74,6 +90,11 @@ type Condition struct {
 const Caution = "Pressurised and cryogenic tunnel conditions must stay within the facility's certified operating envelope; " +
 	"pressure vessels are operated to the applicable pressure-equipment code, and every run follows the facility's safety rules " +
 	"under its responsible engineer, whose word overrides any figure computed here."
+
+// RealGasWarning is the departure |1 − Z| of the test gas's estimated
+// compressibility factor from the ideal gas's beyond which the
+// condition's Note warns that its density and Reynolds number are off.
+const RealGasWarning = 0.005
 
 // AsphyxiantCaution is added for a test gas other than air.
 const AsphyxiantCaution = "The test gas is not air: nitrogen or any inert gas vented or leaking into the test hall lowers the oxygen content " +
@@ -100,8 +121,12 @@ const ColdCaution = "Cryogenic gas, liquid nitrogen and cold model, sting and tu
 // at or above the gas's lowest temperature and above its condensation
 // temperature at the static pressure plus the CondensationMargin (zero
 // when unset), and the total temperature at or below the gas's highest;
-// a found state the gas model refuses is never returned. The returned
-// condition carries its safety Cautions, which defer to the facility's
+// a found state the gas model refuses is never returned. The condition
+// is the ideal gas's; for nitrogen it also carries the real gas's
+// estimated compressibility factor at the static state and the errors
+// of the ideal-gas density and Reynolds number (Z, DensityError,
+// ReynoldsError), with a warning in Note beyond RealGasWarning. The
+// returned condition carries its safety Cautions, which defer to the facility's
 // safety rules and its responsible engineer.
 func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLength quantity.Quantity, lengthRatio float64, lim Limits) (Condition, error) {
 	for _, c := range []struct {
@@ -290,6 +315,9 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	if c.Achieved {
 		c.Note = "Mach and Reynolds numbers both held"
 	}
+	if gas.Saturation == fluids.NitrogenSaturation {
+		c.realGas()
+	}
 	if err := c.caution(gas, lim); err != nil {
 		return Condition{}, err
 	}
@@ -304,6 +332,42 @@ func tunnelFinite(xs ...float64) bool {
 		}
 	}
 	return true
+}
+
+// realGas estimates the nitrogen test gas's compressibility at the
+// condition's static state, fills Z, DensityError and ReynoldsError, and
+// adds to Note a warning when the ideal gas is off by more than
+// RealGasWarning, or that the estimate is out of its range.
+func (c *Condition) realGas() {
+	e, err := fluids.NitrogenCompressibility(c.Temperature, c.Pressure)
+	if err != nil {
+		c.addNote(fmt.Sprintf("real-gas departure not estimated (%v): near saturation the ideal-gas density and Re_m can be off by several per cent", err))
+		return
+	}
+	c.Z, c.DensityError, c.ReynoldsError = e.Z, e.Z-1, e.Z/e.SoundSpeedRatio-1
+	if math.Abs(1-e.Z) > RealGasWarning {
+		c.addNote(fmt.Sprintf("WARNING real gas: at the static %.1f K and %.4g bar (absolute) nitrogen's compressibility factor is Z ≈ %.4f "+
+			"(second-virial estimate, generalized correlation): the ideal-gas density is %s and the ideal-gas speed of sound, so the test speed at the held Mach number, %s, "+
+			"so the stated Re_m is %s and the real Re_m/Re is about %.4g; the facility's real-gas data govern the run",
+			c.Temperature.Value(), c.Pressure.Value()/1e5, e.Z, lowHigh(c.DensityError), lowHigh(1/e.SoundSpeedRatio-1), lowHigh(c.ReynoldsError),
+			c.ReynoldsRatio/(1+c.ReynoldsError)))
+	}
+}
+
+// lowHigh says a relative error x as "1.6 % low" or "0.9 % high".
+func lowHigh(x float64) string {
+	if x < 0 {
+		return fmt.Sprintf("%.1f %% low", -100*x)
+	}
+	return fmt.Sprintf("%.1f %% high", 100*x)
+}
+
+// addNote appends s to the condition's Note.
+func (c *Condition) addNote(s string) {
+	if c.Note != "" {
+		c.Note += "; "
+	}
+	c.Note += s
 }
 
 // caution fills the condition's load and safety notes.
