@@ -83,6 +83,9 @@ func NewWriter(w io.Writer, name string, cols []Column, opt Options) (*Writer, e
 	// The header is read back as Reader reads it: the names and units
 	// must come back as given.
 	back, err := NewReader(bytes.NewReader(hb.Bytes()), name, Options{Comma: opt.Comma})
+	if err == nil {
+		err = back.refusal(back.active) // every column must read
+	}
 	if err != nil {
 		e := &Error{File: name, Line: 1, Reason: "the header would not read back (" + err.(*Error).Reason + ")", class: quantity.ErrInvalid}
 		if c := err.(*Error).Column; c > 0 && c <= len(cols) {
