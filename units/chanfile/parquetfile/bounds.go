@@ -432,6 +432,9 @@ func boolRuns(b []byte, limit int64) error {
 			i += int(min(n, int64(len(b))))
 		} else {
 			total += n
+			if total > limit {
+				return fmt.Errorf("booleans whose runs declare more than the page's %d values", limit-64)
+			}
 			var w byte
 			if i < len(b) {
 				w = b[i]

@@ -2,6 +2,7 @@ package parquetfile
 
 import (
 	"bytes"
+	"encoding/binary"
 	"errors"
 	"math"
 	"strings"
@@ -245,8 +246,7 @@ func TestLegacyColumnsRefused(t *testing.T) {
 // true as the byte 0xFF, every run but the last a multiple of 8 values);
 // a run of true written as the byte 1, as the format writes it, the
 // decoder expands to 1 then 7 false, so it is refused rather than read
-// wrong. A run declaring more values than its page is refused before it
-// is allocated.
+// wrong.
 func TestRLEBooleansChecked(t *testing.T) {
 	for _, version := range []int{1, 2} {
 		testRLEBooleans(t, version)
@@ -264,10 +264,17 @@ func TestRLEBooleansChecked(t *testing.T) {
 	}
 }
 
+// rleBoolFile is a file of one BOOLEAN column, RLE-encoded in one
+// uncompressed data page of the version given: 16 true, then false,
+// true, false.
+func rleBoolFile(t tb, version int) []byte {
+	vals := bools(true, true, true, true, true, true, true, true, true, true, true, true, true, true, true, true, false, true, false)
+	return schemaFile(t, []pcol{{"on [1]", parquet.Encoded(parquet.Leaf(parquet.BooleanType), &parquet.RLE), vals}}, parquet.Compression(&parquet.Uncompressed), parquet.DataPageVersion(version))
+}
+
 // testRLEBooleans checks RLE booleans in data pages of a version.
 func testRLEBooleans(t *testing.T, version int) {
-	vals := bools(true, true, true, true, true, true, true, true, true, true, true, true, true, true, true, true, false, true, false)
-	b := schemaFile(t, []pcol{{"on [1]", parquet.Encoded(parquet.Leaf(parquet.BooleanType), &parquet.RLE), vals}}, parquet.Compression(&parquet.Uncompressed), parquet.DataPageVersion(version))
+	b := rleBoolFile(t, version)
 	_, got, err := readAll(t, b, Options{})
 	want := []float64{1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 0, 1, 0}
 	if err != nil || !cmp.Equal(got, [][]float64{want}) {
@@ -294,15 +301,10 @@ func testRLEBooleans(t *testing.T, version int) {
 		{"a run of true as the byte 1", 5, 0x01, "would misread"},
 		{"a run of 15", 4, 0x1E, "would misread"},
 		{"a run value byte 7", 5, 0x07, "damaged"},
-		{"a run of 2³¹", 4, 0x80, "declare more than"},
 	} {
 		bad, err := rewrite(b, func(p *page) []byte {
 			if p.header.DataPageHeader.Valid || p.header.DataPageHeaderV2.Valid {
 				p.body[tc.at] = tc.to
-				if tc.to == 0x80 { // a varint 0x80 0x80 0x80 0x80 0x10: 2³¹ values
-					p.body = append(p.body[:4:4], append([]byte{0x80, 0x80, 0x80, 0x80, 0x10, 0xFF}, p.body[6:]...)...)
-					p.body[0] += 4
-				}
 			}
 			return p.body
 		}, nil)
@@ -312,6 +314,38 @@ func testRLEBooleans(t *testing.T, version int) {
 		_, _, err = readAll(t, bad, Options{})
 		if !errors.Is(err, quantity.ErrParse) || classCount(err) != 1 || !strings.Contains(err.Error(), tc.says) {
 			t.Errorf("version %d: %s: %v, want a refusal saying %q", version, tc.name, err, tc.says)
+		}
+	}
+}
+
+// TestRefusesBooleanRunDeclaringMoreValues: a run of 2³¹−1 booleans in
+// a page of 19, which the decoder would expand into 256 MiB, is refused
+// before it runs; the child process is limited to 1 GiB more than it
+// holds.
+func TestRefusesBooleanRunDeclaringMoreValues(t *testing.T) {
+	if !inChild(t) {
+		return
+	}
+	huge := binary.AppendUvarint(nil, (1<<31-1)<<1)
+	for _, version := range []int{1, 2} {
+		b, err := rewrite(rleBoolFile(t, version), func(p *page) []byte {
+			if !p.header.DataPageHeader.Valid && !p.header.DataPageHeaderV2.Valid {
+				return p.body
+			}
+			// The 4-byte length, then the huge run of 0xFF in place of
+			// the run of 16.
+			runs := append(append(append([]byte{}, huge...), 0xFF), p.body[6:]...)
+			body := binary.LittleEndian.AppendUint32(nil, uint32(len(runs)))
+			body = append(body, runs...)
+			p.header.UncompressedPageSize = int32(len(body))
+			return body
+		}, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		_, _, err = readAll(t, b, Options{})
+		if !errors.Is(err, quantity.ErrParse) || classCount(err) != 1 || !strings.Contains(err.Error(), "booleans whose runs declare more than the page's 19 values") {
+			t.Errorf("version %d: %v", version, err)
 		}
 	}
 }

@@ -345,7 +345,8 @@ func FuzzReader(f *testing.F) {
 	f.Add([]byte("PAR1PAR1"))
 	// Files of every kind read, from another program: DECIMAL, TIMESTAMP,
 	// DATE, STRING, GZIP and ZSTD pages.
-	for _, b := range [][]byte{typedFile(f, parquet.Compression(&parquet.Gzip)), typedFile(f, parquet.Compression(&parquet.Zstd))} {
+	// BOOLEAN, TIME and INT96 columns, and RLE booleans.
+	for _, b := range [][]byte{typedFile(f, parquet.Compression(&parquet.Gzip)), typedFile(f, parquet.Compression(&parquet.Zstd)), legacyFile(f), rleBoolFile(f, 2)} {
 		f.Add(b)
 		f.Add(b[:len(b)*2/3])
 	}
