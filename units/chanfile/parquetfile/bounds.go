@@ -90,35 +90,48 @@ func (c *countReader) ReadByte() (byte, error) {
 // marks (by their index in a row group) and checks
 // that each page fits in its chunk, the chunk in the file, and that no
 // page decodes to more than MaxPageBytes; it reads headers and the first
-// bytes of compressed data, never decompressing.
-func checkPages(r io.ReaderAt, size int64, f *parquet.File, use, optional, boolean []bool) error {
+// bytes of compressed data, never decompressing. A fault of one column
+// is returned in bad, by the column's index, and first is the first such
+// fault met (nil if none); the column is not looked at further. A fault
+// of the file is err.
+func checkPages(r io.ReaderAt, size int64, f *parquet.File, use, optional, boolean []bool) (bad []error, first, err error) {
 	md := f.Metadata()
 	if md.EncryptionAlgorithm.Value != nil {
-		return fmt.Errorf("an encrypted file")
+		return nil, nil, fmt.Errorf("an encrypted file")
+	}
+	bad = make([]error, len(use))
+	fail := func(c int, err error) {
+		bad[c] = err
+		if first == nil {
+			first = err
+		}
 	}
 	var rows int64
 	for g, rg := range md.RowGroups {
 		if rg.NumRows < 0 || rows+rg.NumRows < rows {
-			return fmt.Errorf("row group %d: %d rows", g+1, rg.NumRows)
+			return nil, nil, fmt.Errorf("row group %d: %d rows", g+1, rg.NumRows)
 		}
 		rows += rg.NumRows
 		if len(rg.Columns) != len(use) {
-			return fmt.Errorf("row group %d: %d column chunks, the schema has %d columns", g+1, len(rg.Columns), len(use))
+			return nil, nil, fmt.Errorf("row group %d: %d column chunks, the schema has %d columns", g+1, len(rg.Columns), len(use))
 		}
 		for c, cc := range rg.Columns {
-			if !use[c] {
-				continue // never read: not looked at
+			if !use[c] || bad[c] != nil {
+				continue // never read, or refused: not looked at
 			}
 			where := fmt.Sprintf("row group %d, column %d", g+1, c+1)
 			m := cc.MetaData
 			if cc.FilePath != "" {
-				return fmt.Errorf("%s: data in another file (%q)", where, cc.FilePath)
+				fail(c, fmt.Errorf("%s: data in another file (%q)", where, cc.FilePath))
+				continue
 			}
 			if cc.CryptoMetadata.Value != nil || len(cc.EncryptedColumnMetadata) > 0 {
-				return fmt.Errorf("%s: an encrypted column", where)
+				fail(c, fmt.Errorf("%s: an encrypted column", where))
+				continue
 			}
 			if !readable[m.Codec] {
-				return fmt.Errorf("%s: compression %v is not read (write the file with ZSTD, SNAPPY, GZIP or none)", where, m.Codec)
+				fail(c, fmt.Errorf("%s: compression %v is not read (write the file with ZSTD, SNAPPY, GZIP or none)", where, m.Codec))
+				continue
 			}
 			start := m.DataPageOffset
 			if m.DictionaryPageOffset > 0 && m.DictionaryPageOffset < start {
@@ -126,22 +139,25 @@ func checkPages(r io.ReaderAt, size int64, f *parquet.File, use, optional, boole
 			}
 			end := start + m.TotalCompressedSize
 			if start < 4 || m.TotalCompressedSize <= 0 || end < start || end > size-8 {
-				return fmt.Errorf("%s: a chunk of %d bytes at offset %d, outside the file", where, m.TotalCompressedSize, start)
+				fail(c, fmt.Errorf("%s: a chunk of %d bytes at offset %d, outside the file", where, m.TotalCompressedSize, start))
+				continue
 			}
 			values, err := checkChunk(io.NewSectionReader(r, start, end-start), m.Codec, optional[c], boolean[c])
 			if err != nil {
-				return fmt.Errorf("%s: %w", where, err)
+				fail(c, fmt.Errorf("%s: %w", where, err))
+				continue
 			}
 			// Every row has at least one entry in every column.
 			if values < rg.NumRows {
-				return fmt.Errorf("%s: %d rows declared, %d values in the pages", where, rg.NumRows, values)
+				fail(c, fmt.Errorf("%s: %d rows declared, %d values in the pages", where, rg.NumRows, values))
+				continue
 			}
 		}
 	}
 	if md.NumRows != rows {
-		return fmt.Errorf("the footer declares %d rows, its row groups %d", md.NumRows, rows)
+		return nil, nil, fmt.Errorf("the footer declares %d rows, its row groups %d", md.NumRows, rows)
 	}
-	return nil
+	return bad, first, nil
 }
 
 // checkChunk walks the pages of one column chunk (of a flat column,

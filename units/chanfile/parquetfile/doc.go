@@ -24,11 +24,15 @@
 // are never decoded, nor their pages checked, so a column of a type or a
 // compression not read, or a damaged one, does not fail the file unless
 // it is asked for. With no names, every column is listed: one the reader
-// cannot read (a type or a unit it does not read) fails the first Read,
-// unless Reader.Select, called after NewReader with the columns a caller
-// found it needs in the schema, leaves it out (Reader is a
-// chanfile.Selector). Select never decodes the columns it leaves out;
-// their pages were checked by NewReader only if they are readable.
+// cannot read (a type or a unit it does not read, a gauge column with no
+// reference, pages the check below refuses) carries its error in
+// chanfile.Column.Fault and fails the first Read, unless Reader.Select,
+// called after NewReader with the columns a caller found it needs in the
+// schema, leaves it out (Reader is a chanfile.Selector); selecting it
+// returns its Fault. Select never decodes the columns it leaves out;
+// NewReader checked the pages of every column of a type it reads, and a
+// column whose pages fail the check is listed with its fault rather than
+// failing the file.
 //
 // A column read is flat, not repeated, and one of four kinds (Kind):
 //

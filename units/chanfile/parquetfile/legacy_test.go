@@ -349,3 +349,63 @@ func TestRefusesBooleanRunDeclaringMoreValues(t *testing.T) {
 		}
 	}
 }
+
+// TestPageFaultInUnusedColumn: a column whose pages the pre-check
+// refuses (LZ4 compression; RLE booleans the decoder would misread) no
+// longer fails NewReader when no Options.Columns are given: it is listed
+// with its fault, Select leaves it out or refuses it, and reading every
+// column refuses the file. Named in Options.Columns it fails NewReader
+// as before. On the code before, NewReader refused the file.
+func TestPageFaultInUnusedColumn(t *testing.T) {
+	var v, p []parquet.Value
+	for i := range 19 {
+		v = append(v, parquet.DoubleValue(float64(i)))
+		p = append(p, parquet.DoubleValue(100))
+	}
+	b := schemaFile(t, []pcol{
+		{"V [m/s]", parquet.Leaf(parquet.DoubleType), v},
+		{"P [kPa]", parquet.Compressed(parquet.Leaf(parquet.DoubleType), &parquet.Lz4Raw), p},
+		{"on [1]", parquet.Encoded(parquet.Leaf(parquet.BooleanType), &parquet.RLE), bools(true, true, true, true, true, true, true, true, true, true, true, true, true, true, true, true, false, true, false)},
+	}, parquet.Compression(&parquet.Uncompressed))
+	// The run of 16 true written as the format writes it, the byte 1.
+	b, err := rewrite(b, func(pg *page) []byte {
+		if pg.column == 2 && len(pg.body) > 5 && pg.body[4] == 0x20 && pg.body[5] == 0xFF {
+			pg.body[5] = 0x01
+		}
+		return pg.body
+	}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	open := func() *Reader {
+		r, err := NewReader(bytes.NewReader(b), int64(len(b)), "rig.parquet", Options{})
+		if err != nil {
+			t.Fatalf("NewReader: %v", err)
+		}
+		return r
+	}
+	r := open()
+	cols := r.Columns()
+	for j, says := range map[int]string{1: "compression LZ4_RAW is not read", 2: "would misread"} {
+		var pe *Error
+		if !errors.As(cols[j].Fault, &pe) || pe.Column != j+1 || pe.Field != cols[j].Header || classCount(cols[j].Fault) != 1 || !strings.Contains(cols[j].Fault.Error(), says) {
+			t.Errorf("column %d: fault %v, want one of column %d saying %q", j+1, cols[j].Fault, j+1, says)
+		}
+		if r2 := open(); r2.Select([]int{0, j}) != r2.Columns()[j].Fault {
+			t.Errorf("Select(0, %d): not the column's fault", j)
+		}
+	}
+	if err := r.Select([]int{0}); err != nil {
+		t.Fatal(err)
+	}
+	dst, n, err := r.Read(nil, 100)
+	if err != nil || n != 19 || dst[0].Values()[18] != 18 {
+		t.Errorf("Select(0): %d rows, %v", n, err)
+	}
+	if _, _, err := open().Read(nil, 100); err == nil || !strings.Contains(err.Error(), "LZ4_RAW") {
+		t.Errorf("every column: %v, want the LZ4 column refused", err)
+	}
+	if _, err := NewReader(bytes.NewReader(b), int64(len(b)), "rig.parquet", Options{Columns: []string{"V [m/s]", "on [1]"}}); err == nil || !strings.Contains(err.Error(), "would misread") {
+		t.Errorf("Options.Columns naming the RLE column: %v", err)
+	}
+}

@@ -294,8 +294,22 @@ func NewReader(r io.ReaderAt, size int64, name string, opt Options) (rd *Reader,
 			return nil, &Error{File: name, Field: n, Reason: "Options.Units names a column the file does not have", class: quantity.ErrInvalid}
 		}
 	}
-	if err := checkPages(r, size, f, use, optional, boolean); err != nil {
+	bad, first, err := checkPages(r, size, f, use, optional, boolean)
+	if err != nil {
 		return nil, &Error{File: name, Reason: "not a readable Parquet file", Err: err}
+	}
+	if first != nil && opt.Columns != nil {
+		return nil, &Error{File: name, Reason: "not a readable Parquet file", Err: first}
+	}
+	// Every column asked for: one whose pages fail the check is listed
+	// with its fault, as a column of a type not read is.
+	for j := range rd.rc {
+		c := &rd.rc[j]
+		if c.bad != nil || bad[c.leaf] == nil {
+			continue
+		}
+		c.bad = &Error{File: name, Column: c.at, Field: rd.cols[j].Header, Reason: "not a readable Parquet column", Err: bad[c.leaf]}
+		rd.cols[j] = chanfile.Column{Name: rd.cols[j].Name, Index: c.at, Header: rd.cols[j].Header, Text: rd.cols[j].Text, Fault: c.bad}
 	}
 	rd.groups = f.RowGroups()
 	rd.active = make([]int, len(rd.rc))
