@@ -277,3 +277,18 @@ func TestGarbageColumnNeverChangesSelected(t *testing.T) {
 		}
 	})
 }
+
+// TestWriterRefusesFaultedColumn: a column a reader could not read has
+// no known unit, so a Writer refuses it rather than write it as "[1]".
+func TestWriterRefusesFaultedColumn(t *testing.T) {
+	r, err := chanfile.NewReader(strings.NewReader("t [s],Temp [degF?]\n0,68\n"), "lab.csv", chanfile.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var sb strings.Builder
+	_, err = chanfile.NewWriter(&sb, "out.csv", r.Columns(), chanfile.Options{})
+	var fe *chanfile.Error
+	if !errors.As(err, &fe) || fe.Column != 2 || !errors.Is(err, quantity.ErrInvalid) || classes(err) != 1 || !strings.Contains(err.Error(), "Fault") {
+		t.Errorf("NewWriter: %v, want column 2 refused (ErrInvalid)", err)
+	}
+}

@@ -408,4 +408,9 @@ func TestPageFaultInUnusedColumn(t *testing.T) {
 	if _, err := NewReader(bytes.NewReader(b), int64(len(b)), "rig.parquet", Options{Columns: []string{"V [m/s]", "on [1]"}}); err == nil || !strings.Contains(err.Error(), "would misread") {
 		t.Errorf("Options.Columns naming the RLE column: %v", err)
 	}
+	// A Writer refuses a column that could not be read: its unit is not known.
+	var out bytes.Buffer
+	if _, err := NewWriter(&out, "out.parquet", cols, Options{}); !errors.Is(err, quantity.ErrInvalid) || classCount(err) != 1 || !strings.Contains(err.Error(), "Fault") {
+		t.Errorf("NewWriter of the columns read: %v, want ErrInvalid", err)
+	}
 }
