@@ -42,7 +42,8 @@ type Column struct {
 	// clock times without a date it has no date (year 0).
 	Start time.Time
 	// Index is the column's place in the file, from 1, and Header its
-	// header field as written (both zero for a column given to a Writer).
+	// header field as written (in a Parquet file, its name in the
+	// schema); both are zero for a column given to a Writer.
 	Index  int
 	Header string
 	// Fault, when not nil, is why the column cannot be read: its header
