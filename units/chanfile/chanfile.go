@@ -1302,7 +1302,9 @@ func (r *Reader) Offset() int64 {
 }
 
 // Columns returns the columns read, in the file's order or that of
-// Options.Columns; their Missing counts grow as chunks are read.
+// Options.Columns; their Missing counts grow as chunks are read. Without
+// Options.Columns a column that cannot be read is listed too, with its
+// Column.Fault.
 func (r *Reader) Columns() []Column { return r.cols }
 
 // Format returns how the file is read: its encoding, delimiter, decimal
