@@ -49,9 +49,10 @@
 // that error; so does selecting two columns of one channel name. When
 // every column is read, with no Options.Columns and no Select, the
 // first Read refuses the file as NewReader did before, and says how to
-// leave the column out. Whole-file faults still fail NewReader: an
-// encoding, delimiter or decimal mark that cannot be told, a line too
-// long, a row of the wrong number of fields.
+// leave the column out. A fault of the whole file still fails it
+// whatever is selected: bytes that are not text in the encoding read, a
+// decimal mark that cannot be told, a line longer than MaxLineLen, a row
+// of another number of fields than the header, a quoted field left open.
 //
 // Values are read into quantity.Series in SI, chunk by chunk, so a file of
 // any length reduces in bounded memory. An empty field, NA, NaN, #N/A or the
