@@ -40,6 +40,20 @@
 // n), and Options.MissingValues sets the missing markers (#N/A, -9999,
 // ---, the empty field).
 //
+// A column whose header cannot be read (a unit the dialect does not
+// read, as "Temp [degF?]", a name with no unit, a malformed field, a
+// gauge channel with no reference, dates of no stated order) does not
+// fail NewReader: Reader.Columns lists it with its header as written
+// and its Column.Fault, an *Error naming the line, the column and the
+// fix. Selecting it (Options.Columns, Reader.Select, Select) returns
+// that error; so does selecting two columns of one channel name. When
+// every column is read, with no Options.Columns and no Select, the
+// first Read refuses the file as NewReader did before, and says how to
+// leave the column out. A fault of the whole file still fails it
+// whatever is selected: bytes that are not text in the encoding read, a
+// decimal mark that cannot be told, a line longer than MaxLineLen, a row
+// of another number of fields than the header, a quoted field left open.
+//
 // Values are read into quantity.Series in SI, chunk by chunk, so a file of
 // any length reduces in bounded memory. An empty field, NA, NaN, #N/A or the
 // Options' missing markers is a missing value: it is held as NaN and

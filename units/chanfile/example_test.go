@@ -136,3 +136,38 @@ func ExampleSelect() {
 	// Output:
 	// 2 <nil> [0 0.5] [1.5 1.52]
 }
+
+// A logger export (invented data) whose spare channel has a unit the
+// dialect does not read: the file still opens, the column is listed with
+// its fault, and the harness reads the others.
+func ExampleReader_Select() {
+	const log = `t [s];V [m/s];Temp [degF?]
+0;1,50;68
+0,5;1,52;69
+`
+	r, err := chanfile.NewReader(strings.NewReader(log), "run9.csv", chanfile.Options{})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	var idx []int
+	for k, c := range r.Columns() {
+		if c.Fault != nil {
+			fmt.Printf("not read: column %d %q\n", c.Index, c.Header)
+			continue
+		}
+		idx = append(idx, k)
+	}
+	if err := r.Select(idx); err != nil {
+		fmt.Println(err)
+		return
+	}
+	s, n, err := r.Read(nil, 0)
+	fmt.Println(n, err, s[0].Values(), s[1].Values())
+	// Selected, the column is refused with its fault.
+	fmt.Println(r.Select([]int{2}))
+	// Output:
+	// not read: column 3 "Temp [degF?]"
+	// 2 <nil> [0 0.5] [1.5 1.52]
+	// chanfile: run9.csv:1:3: "Temp [degF?]": not a unit: units: "degF?": at offset 0: syntax error: not a unit even as a data sheet writes it (read as "degF?"): units: "degF?": at offset 4: syntax error: unexpected '?' (missing operator?)
+}

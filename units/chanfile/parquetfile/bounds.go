@@ -90,35 +90,48 @@ func (c *countReader) ReadByte() (byte, error) {
 // marks (by their index in a row group) and checks
 // that each page fits in its chunk, the chunk in the file, and that no
 // page decodes to more than MaxPageBytes; it reads headers and the first
-// bytes of compressed data, never decompressing.
-func checkPages(r io.ReaderAt, size int64, f *parquet.File, use, optional []bool) error {
+// bytes of compressed data, never decompressing. A fault of one column
+// is returned in bad, by the column's index, and first is the first such
+// fault met (nil if none); the column is not looked at further. A fault
+// of the file is err.
+func checkPages(r io.ReaderAt, size int64, f *parquet.File, use, optional, boolean []bool) (bad []error, first, err error) {
 	md := f.Metadata()
 	if md.EncryptionAlgorithm.Value != nil {
-		return fmt.Errorf("an encrypted file")
+		return nil, nil, fmt.Errorf("an encrypted file")
+	}
+	bad = make([]error, len(use))
+	fail := func(c int, err error) {
+		bad[c] = err
+		if first == nil {
+			first = err
+		}
 	}
 	var rows int64
 	for g, rg := range md.RowGroups {
 		if rg.NumRows < 0 || rows+rg.NumRows < rows {
-			return fmt.Errorf("row group %d: %d rows", g+1, rg.NumRows)
+			return nil, nil, fmt.Errorf("row group %d: %d rows", g+1, rg.NumRows)
 		}
 		rows += rg.NumRows
 		if len(rg.Columns) != len(use) {
-			return fmt.Errorf("row group %d: %d column chunks, the schema has %d columns", g+1, len(rg.Columns), len(use))
+			return nil, nil, fmt.Errorf("row group %d: %d column chunks, the schema has %d columns", g+1, len(rg.Columns), len(use))
 		}
 		for c, cc := range rg.Columns {
-			if !use[c] {
-				continue // never read: not looked at
+			if !use[c] || bad[c] != nil {
+				continue // never read, or refused: not looked at
 			}
 			where := fmt.Sprintf("row group %d, column %d", g+1, c+1)
 			m := cc.MetaData
 			if cc.FilePath != "" {
-				return fmt.Errorf("%s: data in another file (%q)", where, cc.FilePath)
+				fail(c, fmt.Errorf("%s: data in another file (%q)", where, cc.FilePath))
+				continue
 			}
 			if cc.CryptoMetadata.Value != nil || len(cc.EncryptedColumnMetadata) > 0 {
-				return fmt.Errorf("%s: an encrypted column", where)
+				fail(c, fmt.Errorf("%s: an encrypted column", where))
+				continue
 			}
 			if !readable[m.Codec] {
-				return fmt.Errorf("%s: compression %v is not read (write the file with ZSTD, SNAPPY, GZIP or none)", where, m.Codec)
+				fail(c, fmt.Errorf("%s: compression %v is not read (write the file with ZSTD, SNAPPY, GZIP or none)", where, m.Codec))
+				continue
 			}
 			start := m.DataPageOffset
 			if m.DictionaryPageOffset > 0 && m.DictionaryPageOffset < start {
@@ -126,28 +139,31 @@ func checkPages(r io.ReaderAt, size int64, f *parquet.File, use, optional []bool
 			}
 			end := start + m.TotalCompressedSize
 			if start < 4 || m.TotalCompressedSize <= 0 || end < start || end > size-8 {
-				return fmt.Errorf("%s: a chunk of %d bytes at offset %d, outside the file", where, m.TotalCompressedSize, start)
+				fail(c, fmt.Errorf("%s: a chunk of %d bytes at offset %d, outside the file", where, m.TotalCompressedSize, start))
+				continue
 			}
-			values, err := checkChunk(io.NewSectionReader(r, start, end-start), m.Codec, optional[c])
+			values, err := checkChunk(io.NewSectionReader(r, start, end-start), m.Codec, optional[c], boolean[c])
 			if err != nil {
-				return fmt.Errorf("%s: %w", where, err)
+				fail(c, fmt.Errorf("%s: %w", where, err))
+				continue
 			}
 			// Every row has at least one entry in every column.
 			if values < rg.NumRows {
-				return fmt.Errorf("%s: %d rows declared, %d values in the pages", where, rg.NumRows, values)
+				fail(c, fmt.Errorf("%s: %d rows declared, %d values in the pages", where, rg.NumRows, values))
+				continue
 			}
 		}
 	}
 	if md.NumRows != rows {
-		return fmt.Errorf("the footer declares %d rows, its row groups %d", md.NumRows, rows)
+		return nil, nil, fmt.Errorf("the footer declares %d rows, its row groups %d", md.NumRows, rows)
 	}
-	return nil
+	return bad, first, nil
 }
 
 // checkChunk walks the pages of one column chunk (of a flat column,
 // optional or not) and returns the number of values its data pages
 // declare.
-func checkChunk(sr *io.SectionReader, codec format.CompressionCodec, optional bool) (int64, error) {
+func checkChunk(sr *io.SectionReader, codec format.CompressionCodec, optional, boolean bool) (int64, error) {
 	size := sr.Size()
 	cr := &countReader{r: bufio.NewReaderSize(sr, maxPageHeader)}
 	var proto thrift.CompactProtocol
@@ -242,7 +258,7 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec, optional bo
 				return 0, fmt.Errorf("page %d: decompresses to as much as %d bytes (at most %d read)", page, out, int64(MaxPageBytes))
 			}
 		}
-		if err := checkEncoded(sr, &h, codec, body, comp, values, optional); err != nil {
+		if err := checkEncoded(sr, &h, codec, body, comp, values, optional, boolean); err != nil {
 			return 0, fmt.Errorf("page %d: %v", page, err)
 		}
 		if _, err := cr.r.Discard(int(comp)); err != nil {
@@ -262,7 +278,7 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec, optional bo
 // page does not bound (RLE and BIT_PACKED for numbers, DELTA_BYTE_ARRAY)
 // are refused. The page is decompressed here only when it holds such
 // counts (levels, dictionary indices, delta encodings).
-func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.CompressionCodec, body, comp, values int64, optional bool) error {
+func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.CompressionCodec, body, comp, values int64, optional, boolean bool) error {
 	var enc format.Encoding
 	switch {
 	case h.DictionaryPageHeader.Valid:
@@ -282,6 +298,10 @@ func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.Compr
 	case format.Plain, format.ByteStreamSplit:
 	//lint:ignore SA1019 files written by older writers still use the deprecated PLAIN_DICTIONARY code, and are read
 	case format.PlainDictionary, format.RLEDictionary, format.DeltaBinaryPacked, format.DeltaLengthByteArray:
+	case format.RLE:
+		if !boolean {
+			return fmt.Errorf("values of encoding RLE are not read but for a BOOLEAN column")
+		}
 	default:
 		return fmt.Errorf("values of encoding %v are not read (PLAIN, dictionary, DELTA_BINARY_PACKED, DELTA_LENGTH_BYTE_ARRAY and BYTE_STREAM_SPLIT are)", enc)
 	}
@@ -353,6 +373,16 @@ func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.Compr
 			return fmt.Errorf("dictionary indices of %d bits", data[0])
 		}
 		return hybridRuns(data[1:], int64(data[0]), limit, "dictionary indices")
+	case format.RLE:
+		// Booleans: a 4-byte length, then runs of 1-bit values.
+		if len(data) < 4 {
+			return fmt.Errorf("RLE booleans cut short")
+		}
+		n := int64(binary.LittleEndian.Uint32(data))
+		if n > int64(len(data)-4) {
+			return fmt.Errorf("RLE booleans of %d bytes in a page of %d", n, len(data))
+		}
+		return boolRuns(data[4:4+n], limit)
 	case format.DeltaBinaryPacked, format.DeltaLengthByteArray:
 		// Block size, miniblocks per block, then the value count.
 		p := data
@@ -390,6 +420,52 @@ func hybridRuns(b []byte, width, limit int64, what string) error {
 		}
 		if total > limit {
 			return fmt.Errorf("%s whose runs declare more than the page's %d values", what, limit-64)
+		}
+	}
+	return nil
+}
+
+// boolRuns walks the runs of RLE-encoded booleans and refuses them if
+// they declare more than limit values, or if the decoder would misread
+// them. The decoder expands a repeated run into whole bytes, each a copy
+// of the run's value byte: that is the run's values only when the byte
+// is 0x00 or 0xFF, or the run is of one value; and only a run that is
+// the last, or of a multiple of 8 values, leaves the next run on the
+// byte it starts on. A file whose runs are otherwise (a run of true
+// written as the byte 1, as the format writes it) is refused rather than
+// read wrong.
+func boolRuns(b []byte, limit int64) error {
+	var total int64
+	for i := 0; i < len(b); {
+		u, k := binary.Uvarint(b[i:])
+		if k <= 0 {
+			return nil // the decoder refuses it
+		}
+		i += k
+		n := int64(min(u>>1, 1<<40))
+		if u&1 != 0 { // n groups of 8 bit-packed values, n bytes
+			total += 8 * n
+			i += int(min(n, int64(len(b))))
+		} else {
+			total += n
+			if total > limit {
+				return fmt.Errorf("booleans whose runs declare more than the page's %d values", limit-64)
+			}
+			var w byte
+			if i < len(b) {
+				w = b[i]
+				i++
+			}
+			last := i >= len(b)
+			if w > 1 && w != 0xFF {
+				return fmt.Errorf("a run of booleans of value byte 0x%02X: a damaged page", w)
+			}
+			if w == 1 && n > 1 || n%8 != 0 && !last {
+				return fmt.Errorf("RLE booleans in runs the decoder would misread (a run of %d of value byte 0x%02X): write the column PLAIN", n, w)
+			}
+		}
+		if total > limit {
+			return fmt.Errorf("booleans whose runs declare more than the page's %d values", limit-64)
 		}
 	}
 	return nil
