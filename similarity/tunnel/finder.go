@@ -296,6 +296,23 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	return c, nil
 }
 
+// overloadRemedy says what can lower an overload at the condition. The
+// found condition is the least total pressure that holds the Reynolds
+// number at the coldest allowed gas, so a lower total pressure always
+// gives up Reynolds number; at the tunnel's minimum total pressure it is
+// not available at all.
+func (c *Condition) overloadRemedy() string {
+	for _, b := range c.Binding {
+		if b != "minimum total pressure" {
+			continue
+		}
+		return "the tunnel is at its minimum total pressure already, so q cannot be lowered there; use a smaller model, " +
+			"test at a lower lift coefficient, or use a stronger balance (a lower total pressure would also lose the Reynolds number)"
+	}
+	return "use a smaller model, test at a lower lift coefficient, or use a stronger balance; a lower total pressure " +
+		"(a dynamic-pressure limit) also lowers the load but gives up part of the Reynolds number"
+}
+
 // tunnelFinite reports whether every value is a finite number.
 func tunnelFinite(xs ...float64) bool {
 	for _, x := range xs {
@@ -336,7 +353,7 @@ func (c *Condition) caution(gas fluids.IdealGas, lim Limits) error {
 		if l, r := c.Load.Value(), rated.Value(); l > r {
 			c.Overloaded = true
 			c.Cautions = append(c.Cautions, fmt.Sprintf("OVERLOAD: the load C·S·q = %.4g N at q = %.4g Pa exceeds the rated %.4g N of the balance, sting or model by %.0f %%; "+
-				"do not run this condition: lower the total pressure (a dynamic-pressure limit) or use a stronger balance, as the responsible engineer decides.", l, c.Q.Value(), r, 100*(l/r-1)))
+				"do not run this condition: %s, as the responsible engineer decides.", l, c.Q.Value(), r, 100*(l/r-1), c.overloadRemedy()))
 		} else {
 			c.Cautions = append(c.Cautions, fmt.Sprintf("load: C·S·q = %.4g N at q = %.4g Pa is %.0f %% of the rated %.4g N; gusts, starting loads and stall buffet add to it.", l, c.Q.Value(), 100*l/r, r))
 		}
