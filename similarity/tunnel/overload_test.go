@@ -59,6 +59,9 @@ func TestOverloadAdvice(t *testing.T) {
 				t.Errorf("%s: overload caution %q lacks %q", tc.name, over, w)
 			}
 		}
+		if !strings.Contains(over, " kPa exceeds") || strings.Contains(over, "e+0") {
+			t.Errorf("%s: overload caution %q: want q in kPa in plain figures", tc.name, over)
+		}
 		if strings.Contains(over, tc.mustNot) {
 			t.Errorf("%s: overload caution %q says %q", tc.name, over, tc.mustNot)
 		}

@@ -126,7 +126,7 @@ func TestSig(t *testing.T) {
 	}{
 		{0.39900, 2, "0.40"},           // 0.6 × 700 Pa × 0.00095 m² = 0.399 N
 		{4.21875, 4, "4.219"},          // 84.375 mm × 50
-		{31534.2, 4, "31530"},          // a pressure in Pa
+		{31534.2, 4, "31534"},          // a pressure in Pa
 		{0.1 / 4929.5, 3, "0.0000203"}, // 2.0286e-5 m³/s
 		{0.00202860, 3, "0.00203"},
 		{-1.6049, 3, "-1.60"},
@@ -136,7 +136,10 @@ func TestSig(t *testing.T) {
 		{1.23e-7, 3, "1.23e-07"},
 		{6.02e23, 3, "6.02e+23"},
 		{1, 1, "1"},
-		{5768.4, 3, "5770"},
+		{5768.4, 3, "5768"},
+		{113.4, 2, "113"},
+		{0.0100, 2, "0.010"},
+		{9.96, 2, "10"},
 	} {
 		if got := Sig(tc.x, tc.n); got != tc.want {
 			t.Errorf("Sig(%v, %d) = %q, want %q", tc.x, tc.n, got, tc.want)
@@ -180,5 +183,12 @@ func TestDirNotWritable(t *testing.T) {
 	}
 	if err := Dir("out", d); err == nil || !strings.Contains(err.Error(), "not writable") {
 		t.Errorf("read-only directory: %v, want not writable", err)
+	}
+}
+
+func TestExitCodeNoDoubledPrefix(t *testing.T) {
+	var sb strings.Builder
+	if c := ExitCode(&sb, "tunnel", errors.New("tunnel: polar fit: 2 points")); c != 1 || sb.String() != "tunnel: polar fit: 2 points\n" {
+		t.Errorf("got %d, %q; want 1 and the name once", c, sb.String())
 	}
 }
