@@ -64,10 +64,10 @@ func PoweringTable(rs []PoweringResult, md bool) string {
 			fmt.Sprintf("%.2f", r.ShipSpeed.Value()*3600/1852), fmt.Sprintf("%.3f", r.Froude),
 			fmt.Sprintf("%.3f", r.Residual*1e3), fmt.Sprintf("%.3f", r.RoughnessAllowance*1e3), fmt.Sprintf("%.3f", r.CorrelationAllowance*1e3),
 			fmt.Sprintf("%.3f", r.ShipCT*1e3),
-			sig4(r.ShipResistance.Value()/1e3), sig4(r.EffectivePower.Value()/1e3),
+			sig4(r.ShipResistance.Value() / 1e3), sig4(r.EffectivePower.Value() / 1e3),
 			fmt.Sprintf("%.3f", r.ShipWake), fmt.Sprintf("%.3f", r.J), fmt.Sprintf("%.4f", r.KT), fmt.Sprintf("%.4f", 10*r.KQ),
 			fmt.Sprintf("%.3f", r.Eta0), fmt.Sprintf("%.3f", r.EtaH), fmt.Sprintf("%.3f", r.EtaR), fmt.Sprintf("%.3f", r.EtaD),
-			fmt.Sprintf("%.1f", r.RPM), sig4(r.DeliveredPower.Value()/1e3),
+			fmt.Sprintf("%.1f", r.RPM), sig4(r.DeliveredPower.Value() / 1e3),
 		})
 	}
 	var sb strings.Builder
