@@ -270,14 +270,14 @@ const (
 
 // Suction is the cavitation scaling, for the test.
 type Suction struct {
-	Sigma                 float64
-	ProtoNPSH3            q.Quantity
-	ProtoSuction          q.Quantity // absolute pressure needed at the flange
+	Sigma        float64
+	ProtoNPSH3   q.Quantity
+	ProtoSuction q.Quantity // absolute pressure needed at the flange
 	// FlangeBore is the prototype's suction-flange bore (m) and
 	// FlangeVelocity the mean velocity Q/(π·d²/4) there at the BEP (m/s).
 	FlangeBore, FlangeVelocity float64
-	ReModel, ReProto      float64
-	IEC, IECGain, Ackeret float64
+	ReModel, ReProto           float64
+	IEC, IECGain, Ackeret      float64
 	// IECRefused and AckeretRefused say why a comparison was not made
 	// (a Reynolds number outside the formula's range); empty when it was.
 	IECRefused, AckeretRefused string
