@@ -14,7 +14,7 @@
 //
 // Usage:
 //
-//	go run ./examples/pumpscale [-nm 1750] [-dm 10] [-np 1180] [-dp 24] [-moody 0.2]
+//	go run ./examples/pumpscale [-nm 1750] [-dm 10] [-np 1180] [-dp 24] [-flange 0] [-moody 0.2]
 //
 // A bad flag value exits with status 2, naming the flag.
 package main
