@@ -58,7 +58,9 @@ pipe); and the NPSH3 uncertainty budget.
 The prototype must be at least the model's size (-dp ≥ -dm) with n·D² at
 least the model's (-np·-dp² ≥ -nm·-dm²): the efficiency step-ups hold
 from a model to a larger machine at a higher Reynolds number. A flag
-outside that, or an impeller tip speed above 150 m/s, exits with status 2.
+outside that, an impeller tip speed above 150 m/s, or a -flange bore so
+small that no positive pressure at the flange gives the NPSH3, exits with
+status 2.
 
 Then it analyses the acceptance test of a pump as built (a separate
 invented pump specified at 1480 rpm, with invented shop-test readings) to
@@ -189,12 +191,6 @@ func evaluateReport(w io.Writer, args []string) (Report, error) {
 	g := units.StandardGravity()
 	gpm, ft, hp := units.MustParse("gpm"), units.MustParse("ft"), units.MustParse("hp")
 	ls, m, kw := units.MustParse("L/s"), units.MustParse("m"), units.MustParse("kW")
-	fmt.Fprintln(w, "Pump-family scale-up by the affinity laws (invented model curve)")
-	fmt.Fprintf(w, "model %g in impeller at %g rpm → prototype %g in at %g rpm\n", *dm, *nm, *dp, *np)
-	fmt.Fprintf(w, "ratios model/prototype: flow %.4g (N·D³), head %.4g (N²·D²); the prototype's flow and head are the model's divided by them\n", aff.Flow, aff.Head)
-	fmt.Fprintf(w, "power columns: shaft power ρgQH/η, each machine at its own efficiency, the prototype's stepped up (hp = 550 ft·lbf/s),\n")
-	fmt.Fprintf(w, "  and in its own water: model ρ = %.2f kg/m³ (%g °C), prototype ρ = %.2f kg/m³ (%g °C);\n", mw.Density.Value(), modelWaterC, pw.Density.Value(), protoWaterC)
-	fmt.Fprintf(w, "  the affinity power ratio %.4g (ρ·N³·D⁵) holds only at equal efficiencies, so the prototype's power is not the model's divided by it\n", aff.Power)
 	// Efficiencies first: the step-up is taken at the best-efficiency
 	// point and its gain applied along the curve.
 	etas := make([]float64, len(curve))
@@ -209,6 +205,19 @@ func evaluateReport(w io.Writer, args []string) (Report, error) {
 	if err != nil {
 		return Report{}, err
 	}
+	flangeIn := *flange
+	if flangeIn == 0 {
+		flangeIn = suctionPipeD / 0.0254 * *dp / *dm
+	}
+	if err := flangeHolds(curve[step.BEP].flow, aff, flangeIn); err != nil {
+		return Report{}, err
+	}
+	fmt.Fprintln(w, "Pump-family scale-up by the affinity laws (invented model curve)")
+	fmt.Fprintf(w, "model %g in impeller at %g rpm → prototype %g in at %g rpm\n", *dm, *nm, *dp, *np)
+	fmt.Fprintf(w, "ratios model/prototype: flow %.4g (N·D³), head %.4g (N²·D²); the prototype's flow and head are the model's divided by them\n", aff.Flow, aff.Head)
+	fmt.Fprintf(w, "power columns: shaft power ρgQH/η, each machine at its own efficiency, the prototype's stepped up (hp = 550 ft·lbf/s),\n")
+	fmt.Fprintf(w, "  and in its own water: model ρ = %.2f kg/m³ (%g °C), prototype ρ = %.2f kg/m³ (%g °C);\n", mw.Density.Value(), modelWaterC, pw.Density.Value(), protoWaterC)
+	fmt.Fprintf(w, "  the affinity power ratio %.4g (ρ·N³·D⁵) holds only at equal efficiencies, so the prototype's power is not the model's divided by it\n", aff.Power)
 	var rows []Row
 	fmt.Fprintf(w, "\n%-28s | %-40s | %s\n", "model (US customary)", "prototype (US customary)", "prototype (SI)")
 	fmt.Fprintf(w, "%7s %6s %6s %6s | %8s %7s %8s %6s | %8s %7s %8s\n", "Q gpm", "H ft", "P hp", "η", "Q gpm", "H ft", "P hp", "η", "Q L/s", "H m", "P kW")
@@ -243,10 +252,6 @@ func evaluateReport(w io.Writer, args []string) (Report, error) {
 	fmt.Fprintf(w, "(%.1f %% → %.1f %%), and its gain of %.2f points added at every point (common practice, as IEC 60193 does);\n",
 		100*etas[step.BEP], 100*(etas[step.BEP]+step.Gain), 100*step.Gain)
 	fmt.Fprintln(w, "power from ρgQH/η_p")
-	flangeIn := *flange
-	if flangeIn == 0 {
-		flangeIn = suctionPipeD / 0.0254 * *dp / *dm
-	}
 	suc, err := suction(w, step, etas, rows, *nm, *np, *moody, dModel, dProto, flangeIn, *flange == 0)
 	if err != nil {
 		return Report{}, err
@@ -267,6 +272,30 @@ const (
 	modelWaterC = 20.0 // °C
 	protoWaterC = 30.0 // °C
 )
+
+// flangeHolds returns a usage error naming -flange when the prototype's
+// flange velocity V = Q/(π·d²/4) at the best-efficiency flow leaves no
+// positive absolute pressure at the flange for NPSH3: V²/(2g) must stay
+// below NPSH3 = σ·H_p (p_v only adds to it), with the smallest bore that
+// keeps it so.
+func flangeHolds(bepFlow string, aff turbo.Affinity, flangeIn float64) error {
+	qm, err := units.ParseQuantity(bepFlow)
+	if err != nil {
+		return err
+	}
+	qp := qm.Value() / aff.Flow
+	npsh := modelNPSH3 * 0.3048 / aff.Head // σ·H_p = NPSH3_m·H_p/H_m
+	d := flangeIn * 0.0254
+	v := qp / (math.Pi / 4 * d * d)
+	vmax := math.Sqrt(2 * 9.80665 * npsh)
+	if v < vmax {
+		return nil
+	}
+	dmin := math.Sqrt(4*qp/(math.Pi*vmax)) / 0.0254
+	return &cli.Error{Program: "pumpscale", Msg: fmt.Sprintf(
+		"-flange %g in: V = Q/(π·d²/4) = %s m/s at the BEP flow %s L/s leaves no positive flange pressure (V²/2g must stay below NPSH3 = %s m): give -flange above %.1f in (0: similar to the model's)",
+		flangeIn, cli.Sig(v, 3), cli.Sig(qp*1e3, 4), cli.Sig(npsh, 3), math.Ceil(dmin*10)/10)}
+}
 
 // Suction is the cavitation scaling, for the test.
 type Suction struct {

@@ -8,6 +8,7 @@ import (
 	"strings"
 	"testing"
 
+	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/fluids"
 )
@@ -251,5 +252,25 @@ func TestPooledWording(t *testing.T) {
 	}
 	if w := "the heads at NPSHA 8 and 10 m were pooled into their mean, because the head rose as NPSHA fell (monotone fairing)"; !strings.Contains(out.String(), w) {
 		t.Errorf("report lacks %q", w)
+	}
+}
+
+// TestFlangeTooSmall: a 1 in bore would pass the BEP flow 470.5 L/s at
+// V = 0.4705/(π/4·0.0254²) = 928 m/s; V²/2g must stay below NPSH3 =
+// 9.58 m, i.e. V < √(2·9.80665·9.58) = 13.71 m/s, a bore above
+// √(4·0.4705/(π·13.71)) = 0.2090 m = 8.23 in. It is a usage error naming
+// -flange and the bore, before the report.
+func TestFlangeTooSmall(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, []string{"-out", "", "-flange", "1"})
+	var ce *cli.Error
+	if !errors.As(err, &ce) || !strings.Contains(err.Error(), "-flange 1 in: V = Q/(π·d²/4) = 928 m/s") ||
+		!strings.Contains(err.Error(), "give -flange above 8.3 in") || out.Len() != 0 {
+		t.Errorf("got %v after printing %d bytes", err, out.Len())
+	}
+	var stderr strings.Builder
+	cli.ExitCode(&stderr, "pumpscale", err)
+	if strings.Contains(stderr.String(), "…") {
+		t.Errorf("the message is cut: %q", stderr.String())
 	}
 }
