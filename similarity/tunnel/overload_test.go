@@ -67,3 +67,16 @@ func TestOverloadAdvice(t *testing.T) {
 		}
 	}
 }
+
+// TestFitPolarTooFewSaysNearest: a range holding two points names the
+// nearest points outside it, the ones a wider range takes in first.
+func TestFitPolarTooFewSaysNearest(t *testing.T) {
+	al := []float64{-4.138, 10.671, 12.733, 14.759, 16.725}
+	cl := []float64{-0.2, 0.98, 1.07, 1.11, 1.06}
+	cd := []float64{0.025, 0.079, 0.11, 0.135, 0.149}
+	_, err := tunnel.FitPolar(al, cl, cd, 12, 16, 0.95)
+	want := "2 points in the linear range 12 … 16°: want at least 3; the nearest points outside it are at 10.671° below and 16.725° above"
+	if err == nil || !strings.Contains(err.Error(), want) {
+		t.Errorf("got %v, want %q", err, want)
+	}
+}
