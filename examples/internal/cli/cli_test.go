@@ -7,6 +7,7 @@ import (
 	"io"
 	"math"
 	"os"
+	"strconv"
 	"strings"
 	"testing"
 )
@@ -191,4 +192,26 @@ func TestExitCodeNoDoubledPrefix(t *testing.T) {
 	if c := ExitCode(&sb, "tunnel", errors.New("tunnel: polar fit: 2 points")); c != 1 || sb.String() != "tunnel: polar fit: 2 points\n" {
 		t.Errorf("got %d, %q; want 1 and the name once", c, sb.String())
 	}
+}
+
+// FuzzSig: Sig's text reads back as x to within half a unit of its n-th
+// significant figure, and a non-zero x never prints as zero.
+func FuzzSig(f *testing.F) {
+	f.Add(0.39904, 4)
+	f.Add(31534.2, 4)
+	f.Add(-2.0286e-5, 3)
+	f.Add(9.96, 2)
+	f.Fuzz(func(t *testing.T, x float64, n int) {
+		if math.IsNaN(x) || math.IsInf(x, 0) || x == 0 || n < 1 || n > 17 {
+			return
+		}
+		s := Sig(x, n)
+		v, err := strconv.ParseFloat(s, 64)
+		if err != nil || v == 0 {
+			t.Fatalf("Sig(%v, %d) = %q: %v", x, n, s, err)
+		}
+		if rel := math.Abs(v/x - 1); rel > 0.5*math.Pow(10, float64(1-n))*1.000001+1e-15 {
+			t.Fatalf("Sig(%v, %d) = %q, off by %g", x, n, s, rel)
+		}
+	})
 }
