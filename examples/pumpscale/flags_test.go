@@ -49,7 +49,9 @@ func TestPumpscaleHelp(t *testing.T) {
 		t.Fatal("-h: no ErrHelp")
 	}
 	for _, want := range []string{"Carries an invented model-pump test curve", "shaft power ρgQH/η", "not the friction diagram",
-		"caution", "-nm", "(100 … 10000 rpm)", "-dm", "-np", "-dp", "-moody", "(0.1 … 0.3)"} {
+		"caution", "-nm", "(100 … 10000 rpm)", "-dm", "-np", "-dp", "-moody", "(0.1 … 0.3)",
+		"prototype impeller diameter; at least -dm, with -np·-dp² at least -nm·-dm²", "(-dp ≥ -dm) with n·D² at",
+		"-flange", "geometrically similar to the model's 6 in suction pipe"} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("-h lacks %q:\n%s", want, out.String())
 		}

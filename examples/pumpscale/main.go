@@ -14,7 +14,7 @@
 //
 // Usage:
 //
-//	go run ./examples/pumpscale [-nm 1750] [-dm 10] [-np 1180] [-dp 24] [-moody 0.2]
+//	go run ./examples/pumpscale [-nm 1750] [-dm 10] [-np 1180] [-dp 24] [-flange 0] [-moody 0.2]
 //
 // A bad flag value exits with status 2, naming the flag.
 package main
@@ -49,8 +49,18 @@ efficiency, the prototype's stepped up by Moody's efficiency formula
 (1925, the diameter step-up, not the friction diagram) at the
 best-efficiency point with that gain added at every point; that step-up
 compared with IEC 60193's and Ackeret's; the specific speed in its three
-conventions; the prototype's NPSH3 and suction pressure from the model's
-through the Thoma number; and the NPSH3 uncertainty budget.
+conventions; the prototype's NPSH3 from the model's through the Thoma
+number, and the absolute pressure at its suction flange for it, with the
+flange velocity Q/(π·d²/4) at the best-efficiency flow (the bore d from
+-flange, by default geometrically similar to the model's 6 in suction
+pipe); and the NPSH3 uncertainty budget.
+
+The prototype must be at least the model's size (-dp ≥ -dm) with n·D² at
+least the model's (-np·-dp² ≥ -nm·-dm²): the efficiency step-ups hold
+from a model to a larger machine at a higher Reynolds number. A flag
+outside that, an impeller tip speed above 150 m/s, or a -flange bore so
+small that no positive pressure at the flange gives the NPSH3, exits with
+status 2.
 
 Then it analyses the acceptance test of a pump as built (a separate
 invented pump specified at 1480 rpm, with invented shop-test readings) to
@@ -121,7 +131,8 @@ func evaluateReport(w io.Writer, args []string) (Report, error) {
 	nm := cli.FloatVar(fs, "nm", 1750, 100, 10000, "rpm", "model speed")
 	dm := cli.FloatVar(fs, "dm", 10, 2, 60, "in", "model impeller diameter")
 	np := cli.FloatVar(fs, "np", 1180, 50, 10000, "rpm", "prototype speed")
-	dp := cli.FloatVar(fs, "dp", 24, 2, 240, "in", "prototype impeller diameter")
+	dp := cli.FloatVar(fs, "dp", 24, 2, 240, "in", "prototype impeller diameter; at least -dm, with -np·-dp² at least -nm·-dm² (the efficiency is stepped up from model to prototype)")
+	flange := cli.FloatVar(fs, "flange", 0, 0, 400, "in", "prototype suction-flange bore, for the flange velocity V = Q/(π·d²/4) at the BEP; 0: geometrically similar to the model's 6 in suction pipe, 6·-dp/-dm")
 	moody := cli.FloatVar(fs, "moody", 0.2, 0.1, 0.3, "", "exponent n of Moody's efficiency step-up, η_p = 1 − (1 − η_m)(D_m/D_p)^n (1/5 or 1/4 in use, common practice)")
 	grade := fs.String("grade", "1B", "acceptance grade agreed for the pump as built: 1U, 1E, 1B, 2B, 2U or 3B")
 	out := fs.String("out", os.TempDir(), "directory for pumpscale-acceptance.png and .svg; empty for no plot")
@@ -180,12 +191,6 @@ func evaluateReport(w io.Writer, args []string) (Report, error) {
 	g := units.StandardGravity()
 	gpm, ft, hp := units.MustParse("gpm"), units.MustParse("ft"), units.MustParse("hp")
 	ls, m, kw := units.MustParse("L/s"), units.MustParse("m"), units.MustParse("kW")
-	fmt.Fprintln(w, "Pump-family scale-up by the affinity laws (invented model curve)")
-	fmt.Fprintf(w, "model %g in impeller at %g rpm → prototype %g in at %g rpm\n", *dm, *nm, *dp, *np)
-	fmt.Fprintf(w, "ratios model/prototype: flow %.4g (N·D³), head %.4g (N²·D²); the prototype's flow and head are the model's divided by them\n", aff.Flow, aff.Head)
-	fmt.Fprintf(w, "power columns: shaft power ρgQH/η, each machine at its own efficiency, the prototype's stepped up (hp = 550 ft·lbf/s),\n")
-	fmt.Fprintf(w, "  and in its own water: model ρ = %.2f kg/m³ (%g °C), prototype ρ = %.2f kg/m³ (%g °C);\n", mw.Density.Value(), modelWaterC, pw.Density.Value(), protoWaterC)
-	fmt.Fprintf(w, "  the affinity power ratio %.4g (ρ·N³·D⁵) holds only at equal efficiencies, so the prototype's power is not the model's divided by it\n", aff.Power)
 	// Efficiencies first: the step-up is taken at the best-efficiency
 	// point and its gain applied along the curve.
 	etas := make([]float64, len(curve))
@@ -200,6 +205,19 @@ func evaluateReport(w io.Writer, args []string) (Report, error) {
 	if err != nil {
 		return Report{}, err
 	}
+	flangeIn := *flange
+	if flangeIn == 0 {
+		flangeIn = suctionPipeD / 0.0254 * *dp / *dm
+	}
+	if err := flangeHolds(curve[step.BEP].flow, aff, flangeIn); err != nil {
+		return Report{}, err
+	}
+	fmt.Fprintln(w, "Pump-family scale-up by the affinity laws (invented model curve)")
+	fmt.Fprintf(w, "model %g in impeller at %g rpm → prototype %g in at %g rpm\n", *dm, *nm, *dp, *np)
+	fmt.Fprintf(w, "ratios model/prototype: flow %.4g (N·D³), head %.4g (N²·D²); the prototype's flow and head are the model's divided by them\n", aff.Flow, aff.Head)
+	fmt.Fprintf(w, "power columns: shaft power ρgQH/η, each machine at its own efficiency, the prototype's stepped up (hp = 550 ft·lbf/s),\n")
+	fmt.Fprintf(w, "  and in its own water: model ρ = %.2f kg/m³ (%g °C), prototype ρ = %.2f kg/m³ (%g °C);\n", mw.Density.Value(), modelWaterC, pw.Density.Value(), protoWaterC)
+	fmt.Fprintf(w, "  the affinity power ratio %.4g (ρ·N³·D⁵) holds only at equal efficiencies, so the prototype's power is not the model's divided by it\n", aff.Power)
 	var rows []Row
 	fmt.Fprintf(w, "\n%-28s | %-40s | %s\n", "model (US customary)", "prototype (US customary)", "prototype (SI)")
 	fmt.Fprintf(w, "%7s %6s %6s %6s | %8s %7s %8s %6s | %8s %7s %8s\n", "Q gpm", "H ft", "P hp", "η", "Q gpm", "H ft", "P hp", "η", "Q L/s", "H m", "P kW")
@@ -234,7 +252,7 @@ func evaluateReport(w io.Writer, args []string) (Report, error) {
 	fmt.Fprintf(w, "(%.1f %% → %.1f %%), and its gain of %.2f points added at every point (common practice, as IEC 60193 does);\n",
 		100*etas[step.BEP], 100*(etas[step.BEP]+step.Gain), 100*step.Gain)
 	fmt.Fprintln(w, "power from ρgQH/η_p")
-	suc, err := suction(w, step, etas, rows, *nm, *np, *moody, dModel, dProto)
+	suc, err := suction(w, step, etas, rows, *nm, *np, *moody, dModel, dProto, flangeIn, *flange == 0)
 	if err != nil {
 		return Report{}, err
 	}
@@ -250,19 +268,45 @@ func evaluateReport(w io.Writer, args []string) (Report, error) {
 // NPSH at 3 % head drop, and the water temperatures of the model loop and
 // of the prototype's service.
 const (
-	modelNPSH3   = 12.0 // ft
-	modelWaterC  = 20.0 // °C
-	protoWaterC  = 30.0 // °C
-	protoInletMS = 3.2  // m/s, mean velocity at the prototype's suction flange
+	modelNPSH3  = 12.0 // ft
+	modelWaterC = 20.0 // °C
+	protoWaterC = 30.0 // °C
 )
+
+// flangeHolds returns a usage error naming -flange when the prototype's
+// flange velocity V = Q/(π·d²/4) at the best-efficiency flow leaves no
+// positive absolute pressure at the flange for NPSH3: V²/(2g) must stay
+// below NPSH3 = σ·H_p (p_v only adds to it), with the smallest bore that
+// keeps it so.
+func flangeHolds(bepFlow string, aff turbo.Affinity, flangeIn float64) error {
+	qm, err := units.ParseQuantity(bepFlow)
+	if err != nil {
+		return err
+	}
+	qp := qm.Value() / aff.Flow
+	npsh := modelNPSH3 * 0.3048 / aff.Head // σ·H_p = NPSH3_m·H_p/H_m
+	d := flangeIn * 0.0254
+	v := qp / (math.Pi / 4 * d * d)
+	vmax := math.Sqrt(2 * 9.80665 * npsh)
+	if v < vmax {
+		return nil
+	}
+	dmin := math.Sqrt(4*qp/(math.Pi*vmax)) / 0.0254
+	return &cli.Error{Program: "pumpscale", Msg: fmt.Sprintf(
+		"-flange %g in: V = Q/(π·d²/4) = %s m/s at the BEP flow %s L/s leaves no positive flange pressure (V²/2g must stay below NPSH3 = %s m): give -flange above %.1f in (0: similar to the model's)",
+		flangeIn, cli.Sig(v, 3), cli.Sig(qp*1e3, 4), cli.Sig(npsh, 3), math.Ceil(dmin*10)/10)}
+}
 
 // Suction is the cavitation scaling, for the test.
 type Suction struct {
-	Sigma                 float64
-	ProtoNPSH3            q.Quantity
-	ProtoSuction          q.Quantity // absolute pressure needed at the flange
-	ReModel, ReProto      float64
-	IEC, IECGain, Ackeret float64
+	Sigma        float64
+	ProtoNPSH3   q.Quantity
+	ProtoSuction q.Quantity // absolute pressure needed at the flange
+	// FlangeBore is the prototype's suction-flange bore (m) and
+	// FlangeVelocity the mean velocity Q/(π·d²/4) there at the BEP (m/s).
+	FlangeBore, FlangeVelocity float64
+	ReModel, ReProto           float64
+	IEC, IECGain, Ackeret      float64
 	// IECRefused and AckeretRefused say why a comparison was not made
 	// (a Reynolds number outside the formula's range); empty when it was.
 	IECRefused, AckeretRefused string
@@ -273,7 +317,7 @@ type Suction struct {
 // suction compares the step-up methods at the best-efficiency point and
 // carries the model's NPSH3 to the prototype at its own water
 // temperature through the Thoma number.
-func suction(w io.Writer, step turbo.StepUp, etas []float64, rows []Row, nm, np, moody float64, dModel, dProto q.Quantity) (Suction, error) {
+func suction(w io.Writer, step turbo.StepUp, etas []float64, rows []Row, nm, np, moody float64, dModel, dProto q.Quantity, flangeIn float64, similar bool) (Suction, error) {
 	var s Suction
 	bep := rows[step.BEP]
 	rpm := units.MustParse("rpm")
@@ -313,7 +357,9 @@ func suction(w io.Writer, step turbo.StepUp, etas []float64, rows []Row, nm, np,
 	if err != nil {
 		return Suction{}, err
 	}
-	if s.ProtoSuction, err = turbo.SuctionPressureFor(s.Sigma, bep.ProtoH, pv, pw.Density, q.New(protoInletMS, q.Velocity), q.Quantity{}); err != nil {
+	s.FlangeBore = flangeIn * 0.0254
+	s.FlangeVelocity = bep.ProtoQ.Value() / (math.Pi / 4 * s.FlangeBore * s.FlangeBore)
+	if s.ProtoSuction, err = turbo.SuctionPressureFor(s.Sigma, bep.ProtoH, pv, pw.Density, q.New(s.FlangeVelocity, q.Velocity), q.Quantity{}); err != nil {
 		return Suction{}, err
 	}
 	fmt.Fprintf(w, "\nAt the best-efficiency point: specific speed N_s = %.0f (rpm, gpm, ft) = n_q %.1f (rpm, m³/s, m);\n"+
@@ -340,8 +386,14 @@ func suction(w io.Writer, step turbo.StepUp, etas []float64, rows []Row, nm, np,
 		}
 	}
 	fmt.Fprintf(w, "cavitation (invented model NPSH3 = %.1f ft at the BEP): Thoma σ = NPSH3/H = %.4f held at the prototype:\n", modelNPSH3, s.Sigma)
-	fmt.Fprintf(w, "  prototype NPSH3 = σ·H_p = %.1f ft (%.2f m); at %g °C (p_v = %.0f Pa, IAPWS-IF97) and %.1f m/s at the flange\n",
-		s.ProtoNPSH3.Value()/0.3048, s.ProtoNPSH3.Value(), protoWaterC, pv.Value(), protoInletMS)
+	bore := "-flange"
+	if similar {
+		bore = "geometrically similar to the model's 6 in suction pipe: 6 in × D_p/D_m; -flange gives another"
+	}
+	fmt.Fprintf(w, "  prototype NPSH3 = σ·H_p = %.1f ft (%.2f m); at %g °C (p_v = %.0f Pa, IAPWS-IF97) and V = Q/(π·d²/4) = %s m/s at the flange\n"+
+		"  (Q = %s L/s at the BEP, suction-flange bore d = %s in, %s)\n",
+		s.ProtoNPSH3.Value()/0.3048, s.ProtoNPSH3.Value(), protoWaterC, pv.Value(), cli.Sig(s.FlangeVelocity, 3),
+		cli.Sig(bep.ProtoQ.Value()*1e3, 4), cli.Sig(flangeIn, 3), bore)
 	fmt.Fprintf(w, "  at %.1f kPa absolute at the flange the prototype runs at NPSH3 (3 %% head drop); the available NPSH must exceed it\n",
 		s.ProtoSuction.Value()/1e3)
 	fmt.Fprintln(w, "  by the margin the applicable standard or the purchaser requires")

@@ -5,6 +5,7 @@ import (
 	"io"
 	"math"
 
+	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/pigroups"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
@@ -174,8 +175,11 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	if pt.Warning != "" {
 		fmt.Fprintln(w, "  WARNING:", pt.Warning)
 	}
-	fmt.Fprintf(w, "  ship resistance %.1f kN, effective power %.1f kW — the friction correction the held Froude number cannot give\n",
-		pt.ShipResistance.Value()/1e3, pt.EffectivePower.Value()/1e3)
+	kn, _ := units.MustParse("kn").ValueOf(pt.ShipSpeed)
+	fmt.Fprintf(w, "  ship: L = %.4g m, S = %.4g m² (wetted), V = %.4g kn = %s m/s, sea water at 15 °C, ρ = %s kg/m³\n",
+		shipLength, shipWettedArea, kn, cli.Sig(pt.ShipSpeed.Value(), 4), cli.Sig(sea.Density.Value(), 6))
+	fmt.Fprintf(w, "  ship resistance R = C_TS·½ρV²S = %s kN, effective power P_E = R·V = %s kW — the friction correction the held Froude number cannot give\n",
+		cli.Sig(pt.ShipResistance.Value()/1e3, 3), cli.Sig(pt.EffectivePower.Value()/1e3, 4))
 	fmt.Fprintln(w, "\nCAUTION:", ship.HullCaution)
 	return res, nil
 }

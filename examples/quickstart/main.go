@@ -88,7 +88,8 @@ similis's main demonstration on invented data. It prints, in order:
     number, held at the Froude-scaled speed, so it follows the model's
     size) carried to full scale by Froude scaling alone;
  6. the same reading extrapolated by the ITTC-1957 line, with its
-    coefficients (×10³), the ship resistance and effective power, and a
+    coefficients (×10³), the ship's length, wetted surface, speed and
+    water, the ship resistance and effective power, and a
     warning where the model's Reynolds number suggests laminar flow.
 Full-scale figures are estimates for illustration, not a design:
 hull powering is for the responsible naval architect.

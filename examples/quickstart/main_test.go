@@ -214,7 +214,7 @@ func TestPrintedLines(t *testing.T) {
 		"(Fn = 0.4356), R = 20.20 N",
 		"10³C_TM = 6.707, the towingtank example's invented test of the same vessel",
 		"10³C_TM = 6.707, 10³C_FM = 3.655, 10³C_R = 10³(C_TM − C_FM) = 3.051",
-		"ship resistance 67.5 kN, effective power 521.1 kW",
+		"ship resistance R = C_TS·½ρV²S = 67.5 kN, effective power P_E = R·V = 521.1 kW",
 	} {
 		if !strings.Contains(s, want) {
 			t.Errorf("output lacks %q:\n%s", want, s)
@@ -227,5 +227,26 @@ func TestPrintedLines(t *testing.T) {
 		if strings.Contains(s, not) {
 			t.Errorf("output has %q", not)
 		}
+	}
+}
+
+// TestShipFiguresStated: the ship's resistance comes with the figures it
+// is made from: S = 414.7 m² and V = 15 kn = 15·1852/3600 = 7.7167 m/s,
+// and by hand R = C_TS·½ρV²S = 5.331×10⁻³·½·1025.97·7.7167²·414.7 =
+// 67.5 kN, P_E = R·V = 67.5·7.7167 = 521 kW.
+func TestShipFiguresStated(t *testing.T) {
+	var out bytes.Buffer
+	if err := run(&out, nil); err != nil {
+		t.Fatal(err)
+	}
+	want := "  ship: L = 32 m, S = 414.7 m² (wetted), V = 15 kn = 7.717 m/s, sea water at 15 °C, ρ = 1025.97 kg/m³\n" +
+		"  ship resistance R = C_TS·½ρV²S = 67.5 kN"
+	if !strings.Contains(out.String(), want) {
+		t.Errorf("output lacks %q", want)
+	}
+	v := 15 * 1852.0 / 3600
+	r := 5.331e-3 * 0.5 * 1025.97 * v * v * 414.7
+	if math.Abs(r/1e3-67.5) > 0.05 || math.Abs(r*v/1e3-521.1) > 0.5 {
+		t.Errorf("by hand R = %v N, P_E = %v W", r, r*v)
 	}
 }

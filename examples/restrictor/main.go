@@ -37,7 +37,8 @@ func main() { cli.Main("restrictor", run) }
 
 const usageText = `restrictor reduces an invented bench test of a flow restrictor (a 6 mm bore,
 12, 24 and 48 mm long, in a glycol coolant): it prints the dimensional matrix,
-the Pi groups of the chosen repeating set, the fifteen rows reduced to
+the Pi groups of the chosen repeating set, the coolant's state (temperature,
+ρ, μ and ν, the same for every row), the fifteen rows reduced to
 Eu = Δp/(ρ·V²) (Euler number, V the mean velocity in the bore), Re = ρ·V·d/μ
 (Reynolds number on the bore) and L/d (a table, with the fitted Eu and the
 residual of each row), and the power law Eu = C·Re^a·(L/d)^b fitted by least
@@ -82,6 +83,8 @@ var readings = []reading{
 }
 
 const (
+	coolant   = "50/50 glycol–water coolant" // by volume
+	coolantC  = 40.0                         // °C, the loop's temperature
 	density   = "1050 kg/m^3"
 	viscosity = "2.2 mPa*s"
 	bore      = "6 mm"
@@ -336,6 +339,8 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	rho, _ := units.ParseQuantity(density)
 	mu, _ := units.ParseQuantity(viscosity)
 	d, _ := units.ParseQuantity(bore)
+	fmt.Fprintf(w, "fluid state (every row): %s at %g °C, ρ = %s kg/m³, μ = %s mPa·s (ν = μ/ρ = %s mm²/s; invented round figures); bore d = %s mm\n",
+		coolant, coolantC, cli.Sig(rho.Value(), 4), cli.Sig(mu.Value()*1e3, 3), cli.Sig(mu.Value()/rho.Value()*1e6, 3), cli.Sig(d.Value()*1e3, 3))
 	area := d.Pow(2, 1).Scale(math.Pi / 4)
 	ev := set.Evaluator()
 	res := &Result{Set: set}

@@ -168,7 +168,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	r.ModelDischarge = *qp * qr
 	ls := units.MustParse("L/s")
 	qm, _ := ls.ValueOf(q.New(r.ModelDischarge, q.VolumeFlowRate))
-	fmt.Fprintf(w, "\ndesign discharge %g m³/s → model %.2f L/s\n", *qp, qm)
+	fmt.Fprintf(w, "\ndesign discharge %g m³/s → model %s L/s\n", *qp, cli.Sig(qm, 4))
 
 	// The measured record: times and pressures carried to prototype.
 	dt := 1.0 / 20
@@ -213,7 +213,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	fmt.Fprintf(w, "\ndistorted variant for the approach reach: horizontal 1:%g, vertical 1:%g (exaggeration %.3g)\n", *hs, *vs, d.Distortion)
 	fmt.Fprintf(w, "  velocity 1:%.5g, time 1:%.5g, discharge 1:%.5g, slope ×%.3g, Manning n ×%.3f\n",
 		1/d.Velocity, 1/d.Time, 1/d.Discharge, d.Slope, d.Manning)
-	fmt.Fprintf(w, "  design discharge in the distorted model: %.2f L/s\n", *qp*d.Discharge*1000)
+	fmt.Fprintf(w, "  design discharge in the distorted model: %s L/s\n", cli.Sig(*qp*d.Discharge*1000, 4))
 	if math.IsNaN(d.Velocity) {
 		return nil, fmt.Errorf("distorted ratios undefined")
 	}
@@ -275,7 +275,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		}
 		r.Checks = append(r.Checks, cs)
 		r.CrestHeads, r.CrestVelocities = append(r.CrestHeads, h), append(r.CrestVelocities, v)
-		fmt.Fprintf(w, "  %s: model Q = %.2f L/s, q = %s m²/s, critical velocity V = %.3f m/s, y_c = %s m\n", c.name, qm*1000, sig3(qm/ratingCrest), v, sig3(v*v/9.80665))
+		fmt.Fprintf(w, "  %s: model Q = %s L/s, q = %s m²/s, critical velocity V = %s m/s, y_c = %s m\n", c.name, cli.Sig(qm*1000, 4), sig3(qm/ratingCrest), cli.Sig(v, 4), sig3(v*v/9.80665))
 		fmt.Fprintf(w, "    model head h = %s m: %s\n", sig3(h), src)
 		for _, ck := range cs {
 			fmt.Fprintf(w, "    %v\n", ck)

@@ -25,11 +25,14 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"math"
 	"os"
 	"regexp"
+	"slices"
+	"strings"
 
 	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
@@ -65,6 +68,10 @@ type Outcome struct {
 	// speeds.
 	Blockage []ship.BlockageCorrection
 	Blocked  *ship.HullResult
+	// Choked marks the runs at or above the choking speed, which have no
+	// correction (their Blockage holds Fh and the choking speed only) and
+	// no row in Blocked, which holds the other runs in order.
+	Choked []bool
 	// DoubleBody is the double-body form factor; MethodDiff its
 	// difference from Prohaska's when that is flagged (else zero).
 	DoubleBody ship.DoubleBodyResult
@@ -137,7 +144,7 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	tankT := cli.FloatVar(fs, "tank", 15, 1, 35, "°C", "tank (fresh) water temperature")
 	seaT := cli.FloatVar(fs, "sea", 15, 0, 35, "°C", "sea water temperature")
 	ca := cli.FloatVar(fs, "ca", 0.0004, -0.001, 0.002, "", "roughness and correlation allowance C_A of the ITTC-1957 extrapolation")
-	maxFn := cli.FloatVar(fs, "maxfn", 0.2, 0.1, 0.3, "", "highest Froude number used for Prohaska's form factor")
+	maxFn := cli.FloatVar(fs, "maxfn", 0.2, 0.1, 0.3, "", fmt.Sprintf("highest Froude number used for Prohaska's form factor; at least 3 runs must be at or below it (%.3f or more with these runs)", lowestMaxFn()))
 	dir := fs.String("out", os.TempDir(), "directory for the plots towingtank-coefficients.png/.svg and towingtank-openwater.png/.svg")
 	width := cli.FloatVar(fs, "width", 4.5, 1, 30, "m", "towing tank width")
 	depth := cli.FloatVar(fs, "depth", 2.2, 0.5, 15, "m", "towing tank water depth")
@@ -149,6 +156,14 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 		return nil, err
 	}
 	size := plotSize{W: *plotW, H: *plotH, DPI: int(*dpi), Skip: !*drawPlot}
+	if *drawPlot {
+		if err := cli.Dir("out", *dir); err != nil {
+			return nil, err
+		}
+	}
+	if err := maxFroudeHolds(*maxFn); err != nil {
+		return nil, err
+	}
 	tank, err := fluids.FreshWater().AtCelsius(*tankT)
 	if err != nil {
 		return nil, err
@@ -169,17 +184,17 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	}
 	out := &Outcome{}
 	if out.Plain, err = ship.ExtrapolateHull(test); err != nil {
-		return nil, err
+		return nil, doing("extrapolating the resistance test", err)
 	}
 	if out.Form, err = ship.ProhaskaFromTest(test, *maxFn); err != nil {
-		return nil, err
+		return nil, doing("finding the form factor by Prohaska's method", err)
 	}
 	test.FormFactor = out.Form.FormFactor
 	if out.WithForm, err = ship.ExtrapolateHull(test); err != nil {
-		return nil, err
+		return nil, doing("extrapolating the resistance test with the form factor", err)
 	}
 	if out.DoubleBody, err = doubleBody(test); err != nil {
-		return nil, err
+		return nil, doing("analysing the double-body test", err)
 	}
 	kn := units.MustParse("kn")
 	p := units.Printer{Precision: 4}
@@ -216,10 +231,10 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	for i, a := range out.Plain.Points {
 		b := out.WithForm.Points[i]
 		vs, _ := kn.ValueOf(a.ShipSpeed)
-		fmt.Fprintf(w, "%6.2f %6.3f %8.3f %9.3f %9.3f %8.3f | %7.2f %9.3f %9.2f %9.1f | %9.3f %9.2f %9.1f\n",
+		fmt.Fprintf(w, "%6.2f %6.3f %8.3f %9.3f %9.3f %8.3f | %7.2f %9.3f %9s %9s | %9.3f %9s %9s\n",
 			speeds[i], a.Froude, resistances[i], a.ModelCT*1e3, a.ModelCF*1e3, a.Residual*1e3,
-			vs, a.ShipCT*1e3, a.ShipResistance.Value()/1e3, a.EffectivePower.Value()/1e3,
-			b.ShipCT*1e3, b.ShipResistance.Value()/1e3, b.EffectivePower.Value()/1e3)
+			vs, a.ShipCT*1e3, cli.Sig(a.ShipResistance.Value()/1e3, 4), cli.Sig(a.EffectivePower.Value()/1e3, 4),
+			b.ShipCT*1e3, cli.Sig(b.ShipResistance.Value()/1e3, 4), cli.Sig(b.EffectivePower.Value()/1e3, 4))
 	}
 	fmt.Fprintf(w, "(C_R is the ITTC-1957 one, C_Tm − C_Fm; with the form factor C_R = C_Tm − (1 + k)·C_Fm)\n")
 	// A run's warning is printed once, naming both extrapolations when
@@ -244,10 +259,10 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	fmt.Fprintf(w, "\nat the top speed, with the form factor: R = %s, P_E = %s\n",
 		mustFormat(p, top.ShipResistance, "kN"), mustFormat(p, top.EffectivePower, "kW"))
 	if err := blockage(w, out, test, *width, *depth); err != nil {
-		return nil, err
+		return nil, doing("the tank blockage correction", err)
 	}
 	if out.Budget, err = topBudget(*scale, *tankT, *seaT, *ca, out.Form, out.MethodDiff); err != nil {
-		return nil, err
+		return nil, doing("the top speed's uncertainty budget", err)
 	}
 	fmt.Fprintf(w, "\nUncertainty at the top speed (invented instrument figures; standard uncertainties, first order, GUM):\n")
 	fmt.Fprintf(w, "speed u = 0.1 %% (rectangular, half-width %.2f %%), dynamometer 0.05 N, repeatability 0.06 N (the standard deviation s of a single run,\n", 0.1*math.Sqrt(3))
@@ -261,7 +276,7 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	fmt.Fprintln(w)
 	fmt.Fprint(w, wholeDoF(out.Budget.Power.In("kW", 1e3).String()))
 	if out.Powering, err = powering(w, test, db, size, *dir); err != nil {
-		return nil, err
+		return nil, doing("the powering prediction", err)
 	}
 	fmt.Fprintln(w, "\nCAUTION:", ship.HullCaution)
 	return out, nil
@@ -284,7 +299,8 @@ and η_R. It prints:
   - the form factor again from a double-body test, each with its standard
     uncertainty and degrees of freedom, and a warning when the two differ
     by more than twice their combined standard uncertainty;
-  - the tank's one-dimensional blockage correction of every run;
+  - the tank's one-dimensional blockage correction of every run (a run
+    at or above the tank's choking speed is marked "choked" and has none);
   - the uncertainty budget of the top speed's R_s and P_E (GUM, first
     order; invented instrument figures);
   - the open-water test of the model propeller reduced per run (J,
@@ -306,40 +322,136 @@ The figures are estimates for illustration: hull powering and machinery
 selection are for the responsible naval architect and the basin's own
 correlation.
 
+Exit status 2 for a bad flag, an -out that is not a writable directory
+(with plots on), or a -maxfn that leaves fewer than 3 runs (the message
+names the lowest that would do); 1 for a failure of the job itself.
+
 Flags:
 `
 
 // blockage prints the tank's mean-flow blockage correction of every run
 // and what it does to the ship's resistance with the form factor. The
 // tables above are on the measured speeds; the basin decides whether to
-// apply the correction, and says so in its report.
+// apply the correction, and says so in its report. A run at or above the
+// choking speed has no correction: its row says so, the fix is named
+// once, and the other runs are corrected.
 func blockage(w io.Writer, out *Outcome, test ship.HullTest, width, depth float64) error {
 	sec := ship.TankSection{Width: q.New(width, q.Length), Depth: q.New(depth, q.Length)}
-	blocked, corr, err := test.WithBlockage(sec, q.New(modelSection, q.Area))
-	if err != nil {
-		return err
+	ax := q.New(modelSection, q.Area)
+	out.Blockage = make([]ship.BlockageCorrection, len(test.Speeds))
+	out.Choked = make([]bool, len(test.Speeds))
+	blocked := test
+	blocked.Speeds, blocked.Resistances = nil, nil
+	var kept []int
+	for i, v := range test.Speeds {
+		c, err := ship.TankBlockage(sec, ax, v, test.Gravity)
+		out.Blockage[i] = c
+		if err != nil {
+			if c.ChokingSpeed.Value() > 0 && c.DepthFroude > 0 && v.Value() >= c.ChokingSpeed.Value() {
+				out.Choked[i] = true
+				continue
+			}
+			return fmt.Errorf("run %d: %w", i+1, err)
+		}
+		kept = append(kept, i)
+		blocked.Speeds = append(blocked.Speeds, c.Speed)
+		blocked.Resistances = append(blocked.Resistances, test.Resistances[i])
 	}
-	if out.Blocked, err = ship.ExtrapolateHull(blocked); err != nil {
-		return err
+	out.Blocked = nil
+	if len(kept) > 0 {
+		var err error
+		if out.Blocked, err = ship.ExtrapolateHull(blocked); err != nil {
+			return err
+		}
 	}
-	out.Blockage = corr
-	fmt.Fprintf(w, "\nTank blockage, one-dimensional mean flow (tank %g m × %g m, model A_x = %g m², m = %.4g; choking at %.2f m/s);\n",
-		width, depth, modelSection, corr[0].Blockage, corr[0].ChokingSpeed.Value())
+	c0 := out.Blockage[0]
+	fmt.Fprintf(w, "\nTank blockage, one-dimensional mean flow (tank %g m × %g m, model A_x = %g m², m = %.4g; choking at %s m/s);\n",
+		width, depth, modelSection, c0.Blockage, cli.Sig(c0.ChokingSpeed.Value(), 3))
 	fmt.Fprintf(w, "not applied in the tables above; with it, each resistance belongs to the corrected speed V' = V·(1 + ΔV/V) (ship figures with 1 + k):\n")
 	fmt.Fprintf(w, "%6s %6s %9s %9s %8s %8s | %7s %9s %9s\n", "Vm m/s", "Fh", "ΔV/V %", "linear %", "V' m/s", "Δh mm", "Vs kn", "R_s kN", "P_E kW")
 	legend := fmt.Sprintf("columns: Vm the carriage speed; Fh = Vm/√(g·h) the depth Froude number; ΔV/V the speed correction from the full\n" +
 		"one-dimensional equations (the one applied); linear its linearisation m/(1 − m − Fh²); V' = Vm·(1 + ΔV/V); Δh the mean fall\n" +
 		"of the free surface beside the model; Vs, R_s, P_E the ship's speed, resistance and effective power at V' with 1 + k and C_A\n")
 	kn := units.MustParse("kn")
-	for i, c := range corr {
-		b := out.Blocked.Points[i]
+	choked := 0
+	for i, c := range out.Blockage {
+		if out.Choked[i] {
+			choked++
+			fmt.Fprintf(w, "%6.2f %6.3f   choked: Fh at or above the choking value %.4g (%s m/s); no steady mean flow past the model, no correction\n",
+				speeds[i], c.DepthFroude, c.DepthFroude*c.ChokingSpeed.Value()/speeds[i], cli.Sig(c.ChokingSpeed.Value(), 3))
+			continue
+		}
+		b := out.Blocked.Points[slices.Index(kept, i)]
 		vs, _ := kn.ValueOf(b.ShipSpeed)
-		fmt.Fprintf(w, "%6.2f %6.3f %9.3f %9.3f %8.4f %8.2f | %7.2f %9.2f %9.1f\n", speeds[i], c.DepthFroude, 100*c.SpeedCorrection, 100*c.LinearCorrection,
-			c.Speed.Value(), 1e3*c.SurfaceDrop.Value(), vs, b.ShipResistance.Value()/1e3, b.EffectivePower.Value()/1e3)
+		fmt.Fprintf(w, "%6.2f %6.3f %9.3f %9.3f %8.4f %8s | %7.2f %9s %9s\n", speeds[i], c.DepthFroude, 100*c.SpeedCorrection, 100*c.LinearCorrection,
+			c.Speed.Value(), cli.Sig(1e3*c.SurfaceDrop.Value(), 3), vs, cli.Sig(b.ShipResistance.Value()/1e3, 4), cli.Sig(b.EffectivePower.Value()/1e3, 4))
+	}
+	if choked > 0 {
+		fmt.Fprintf(w, "%d of the %d runs are at or above the choking speed %s m/s of this tank: a wider or deeper tank (-width, -depth) raises it\n",
+			choked, len(out.Blockage), cli.Sig(c0.ChokingSpeed.Value(), 3))
 	}
 	fmt.Fprintf(w, "(the ship speed follows V' at equal Froude number; published methods (ITTC 7.5-02-02-01 §3.6.3) add wave terms to this mean-flow term)\n")
 	fmt.Fprint(w, legend)
 	return nil
+}
+
+// runFroude returns the runs' Fn = V/√(g_n·L), lowest first.
+func runFroude() []float64 {
+	var fns []float64
+	for _, v := range speeds {
+		fns = append(fns, v/math.Sqrt(gn*modelLength))
+	}
+	slices.Sort(fns)
+	return fns
+}
+
+// lowestMaxFn is the lowest -maxfn that takes in three runs: the
+// third-lowest run's Fn rounded up to three decimals.
+func lowestMaxFn() float64 { return math.Ceil(runFroude()[2]*1000) / 1000 }
+
+// maxFroudeHolds returns a usage error naming -maxfn unless at least
+// three runs have Fn at or below it, as Prohaska's method needs, with
+// the lowest -maxfn that would do.
+func maxFroudeHolds(maxFn float64) error {
+	fns := runFroude()
+	n := 0
+	for _, fn := range fns {
+		if fn <= maxFn {
+			n++
+		}
+	}
+	if n >= 3 {
+		return nil
+	}
+	return &cli.Error{Msg: fmt.Sprintf("-maxfn %g: Prohaska's form factor needs at least 3 runs at Fn ≤ -maxfn, and %d are (the runs' Fn from %.3f up): raise -maxfn to at least %.3f (the third-lowest run's Fn)",
+		maxFn, n, fns[0], lowestMaxFn())}
+}
+
+// gn is the standard acceleration of gravity, m/s² (the tests' gravity).
+const gn = 9.80665
+
+// jobError is a failure of the job: what the command was doing, then the
+// library's reason without the package's name, which means nothing to
+// the reader; the library's error stays its cause.
+type jobError struct {
+	doing string
+	err   error
+}
+
+func (e *jobError) Error() string {
+	return e.doing + ": " + strings.TrimPrefix(e.err.Error(), "ship: ")
+}
+
+func (e *jobError) Unwrap() error { return e.err }
+
+// doing wraps err, if any, with what the command was doing; a usage
+// error is returned as it is.
+func doing(what string, err error) error {
+	var ce *cli.Error
+	if err == nil || errors.As(err, &ce) {
+		return err
+	}
+	return &jobError{doing: what, err: err}
 }
 
 func mustFormat(p units.Printer, v q.Quantity, unit string) string {

@@ -421,3 +421,95 @@ func TestEveryScale(t *testing.T) {
 		}
 	}
 }
+
+// TestMaxFnTooLow: -maxfn 0.1 leaves no run for Prohaska's method (the
+// lowest is 0.50/√(9.80665·2) = 0.113); the third-lowest run's Fn is
+// 0.80/√(9.80665·2) = 0.18064, so the fix is -maxfn 0.181 or more. It is
+// a usage error printed before any report, with no package prefix.
+func TestMaxFnTooLow(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, []string{"-plot=false", "-maxfn", "0.1"})
+	var ce *cli.Error
+	if !errors.As(err, &ce) || !strings.Contains(err.Error(), "-maxfn 0.1") ||
+		!strings.Contains(err.Error(), "raise -maxfn to at least 0.181 (the third-lowest run's Fn)") || strings.Contains(err.Error(), "ship:") {
+		t.Errorf("got %v", err)
+	}
+	if out.Len() != 0 {
+		t.Errorf("printed before the usage error: %q", out.String())
+	}
+	if err := run(io.Discard, []string{"-plot=false", "-maxfn", "0.181"}); err != nil {
+		t.Errorf("-maxfn 0.181: %v", err)
+	}
+	var help bytes.Buffer
+	if err := run(&help, []string{"-h"}); !errors.Is(err, flag.ErrHelp) || !strings.Contains(help.String(), "(0.181 or more with these runs)") ||
+		!strings.Contains(help.String(), "a -maxfn that leaves fewer than 3 runs") {
+		t.Errorf("-h does not say how low -maxfn may go: %v", err)
+	}
+}
+
+// TestChokedRunsMarked: in a 1 m × 0.5 m tank m = 0.03/0.5 = 0.06, the
+// choking Fh = x^(3/2) with x = 2·cos((arccos(m − 1) − 2π)/3) is 0.70578,
+// i.e. 0.70578·√(9.80665·0.5) = 1.563 m/s; the runs at 1.60 m/s (Fh =
+// 1.6/2.2144 = 0.7226), 2.00 and 2.40 m/s are choked. Their rows say so,
+// the fix is named once, and the report goes on to its caution.
+func TestChokedRunsMarked(t *testing.T) {
+	var out bytes.Buffer
+	o, err := evaluate(&out, []string{"-plot=false", "-width", "1", "-depth", "0.5"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := out.String()
+	for _, w := range []string{"  1.60  0.723   choked: ", "  2.00  0.903   choked: ", "  2.40  1.084   choked: ", "choking value 0.7058 (1.56 m/s)",
+		"3 of the 8 runs are at or above the choking speed 1.56 m/s of this tank: a wider or deeper tank (-width, -depth) raises it"} {
+		if !strings.Contains(s, w) {
+			t.Errorf("report lacks %q", w)
+		}
+	}
+	if n := strings.Count(s, "wider or deeper tank"); n != 1 {
+		t.Errorf("the fix is named %d times, want once", n)
+	}
+	if !strings.Contains(s, "CAUTION: Full-scale resistance") || len(o.Blocked.Points) != 5 || !o.Choked[5] || o.Choked[4] {
+		t.Errorf("the report stopped, or the choked runs are wrong: %v", o.Choked)
+	}
+}
+
+// TestOutRefusedFirst: an -out that is not a directory is a usage error
+// naming -out, before the report is printed.
+func TestOutRefusedFirst(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, []string{"-out", "/nonexistent/dir"})
+	var ce *cli.Error
+	if !errors.As(err, &ce) || !strings.Contains(err.Error(), `-out "/nonexistent/dir": not a directory`) || out.Len() != 0 {
+		t.Errorf("got %v after printing %d bytes", err, out.Len())
+	}
+}
+
+// TestSmallShipFigures: at 1:4 the resistances and powers keep four
+// significant figures. The top run with the form factor: R = 2.424 kN
+// (the line below the table) at V_s = 2.40·√4 = 4.80 m/s, so P_E =
+// 2.4243·4.80 = 11.64 kW; the slowest run's ship speed is 0.50·2 =
+// 1.00 m/s, so its P_E in kW equals its R_s in kN (0.06369).
+func TestSmallShipFigures(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, []string{"-plot=false", "-scale", "4", "-sea", "0", "-tank", "35"}); err != nil {
+		t.Fatal(err)
+	}
+	s := out.String()
+	for _, w := range []string{"|     7.897     2.424     11.64\n", "|     4.780   0.06369   0.06369\n", "R = 2.424 kN"} {
+		if !strings.Contains(s, w) {
+			t.Errorf("report lacks %q", w)
+		}
+	}
+	// The ITTC-1978 and speed–power tables: no power rounded to a whole
+	// kilowatt (P_D at 4 kn is about 1.1 kW).
+	if strings.Contains(s, "   1       1 … 1  ") || !strings.Contains(s, "   1.119  1.111 … 1.128") {
+		t.Errorf("speed–power table without significant figures:\n%s", s)
+	}
+	out.Reset()
+	if _, err := evaluate(&out, []string{"-plot=false", "-scale", "50"}); err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(out.String(), "propeller D = 4.219 m,") { // 84.375 mm × 50 = 4.21875 m
+		t.Errorf("propeller diameter not to four figures")
+	}
+}

@@ -6,6 +6,7 @@ import (
 	"math"
 	"strings"
 
+	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
 	"similis.dev/similis/similarity/fluids"
@@ -331,8 +332,8 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	fmt.Fprintf(w, "(ITTC 7.5-02-03-01.4, the wake not scaled; from memory): the screw works clear of the thick stern boundary layer that the\n")
 	fmt.Fprintf(w, "single-screw scaling corrects for (the basin may choose otherwise for a catamaran); each propeller carries half the thrust\n")
 	fmt.Fprintf(w, "in K_T/J²; n is each propeller's rate, P_D the sum over both shafts;\n")
-	fmt.Fprintf(w, "propeller D = %g m, Z = %d, P/D = %g, model Re_co = %.3g (0.75R, the open-water test at J = %.1f); C_DM = %.5f, C_DS = %.5f, scale correction ΔK_T = %.4f, ΔK_Q = %.5f\n",
-		propeller.Diameter.Value(), propeller.Blades, propeller.PitchRatio, prop.ModelReynolds, jop, top.ModelBladeDrag, top.ShipBladeDrag, top.DeltaKT, top.DeltaKQ)
+	fmt.Fprintf(w, "propeller D = %s m, Z = %d, P/D = %g, model Re_co = %.3g (0.75R, the open-water test at J = %.1f); C_DM = %.5f, C_DS = %.5f, scale correction ΔK_T = %.4f, ΔK_Q = %.5f\n",
+		cli.Sig(propeller.Diameter.Value(), 4), propeller.Blades, propeller.PitchRatio, prop.ModelReynolds, jop, top.ModelBladeDrag, top.ShipBladeDrag, top.DeltaKT, top.DeltaKQ)
 	printOnce(w, seen, ship.PoweringTable(out.Points, false))
 	fmt.Fprintln(w)
 	printOnce(w, seen, sp.Table(false))

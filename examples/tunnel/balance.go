@@ -11,12 +11,14 @@ import (
 	"io"
 	"math"
 	"path/filepath"
+	"slices"
 	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 
+	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/examples/internal/plotstyle"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/tunnel"
@@ -225,7 +227,53 @@ func reducePoints(w io.Writer, run *Run, cal *tunnel.Calibration, comps []tunnel
 	fmt.Fprintln(w, "  (NF, AF, PM: balance loads at its centre, weight included; α from the pitch, β = 0; C_m about the quarter chord)")
 	fmt.Fprintf(w, "  largest load of the run: %v at %.0f %% of its calibrated range — the balance's rated loads and the facility's rules govern every run\n",
 		run.MaxComponent, 100*run.MaxShare)
+	if err := rangeHolds(al, alo, ahi); err != nil {
+		return tunnel.Polar{}, err
+	}
 	return tunnel.FitPolar(al, cl, cd, alo, ahi, 0.95)
+}
+
+// rangeHolds returns a usage error naming -amin and -amax unless at
+// least three corrected angles lie in alo … ahi (the polar's fit needs
+// three), with the bounds that would take in three: -amax raised to the
+// third angle from -amin up, or -amin lowered to the third from -amax
+// down, rounded outward to the table's three decimals.
+func rangeHolds(alpha []float64, alo, ahi float64) error {
+	var in []string
+	var above, below []float64
+	for _, a := range alpha {
+		switch {
+		case a >= alo && a <= ahi:
+			in = append(in, fmt.Sprintf("%.3f°", a))
+		case a > ahi:
+			above = append(above, a)
+		default:
+			below = append(below, a)
+		}
+	}
+	if len(in) >= 3 {
+		return nil
+	}
+	slices.Sort(above)
+	slices.Sort(below)
+	need := 3 - len(in)
+	var fixes []string
+	if len(above) >= need {
+		fixes = append(fixes, fmt.Sprintf("raise -amax to at least %.3f", math.Ceil(above[need-1]*1000)/1000))
+	}
+	if len(below) >= need {
+		fixes = append(fixes, fmt.Sprintf("lower -amin to at most %.3f", math.Floor(below[len(below)-need]*1000)/1000))
+	}
+	if len(fixes) == 0 {
+		fixes = append(fixes, "widen the range")
+	}
+	got := "none lies in it"
+	if len(in) > 0 {
+		got = fmt.Sprintf("%d lie in it (%s)", len(in), strings.Join(in, ", "))
+	}
+	sorted := slices.Sorted(slices.Values(alpha))
+	return &cli.Error{Msg: fmt.Sprintf("-amin %g -amax %g: the polar fit needs at least 3 corrected angles in the linear range, and %s: %s "+
+		"(the run's corrected α run from %.3f° to %.3f°)", alo, ahi, got, strings.Join(fixes, ", or "), sorted[0], sorted[len(sorted)-1])}
 }
 
 // plotPolar writes the lift curve and the drag polar as PNG and SVG.

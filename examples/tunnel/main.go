@@ -26,6 +26,7 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"math"
@@ -94,8 +95,8 @@ number -mach, chord -chord) and a model -scale times smaller it prints:
     (limits are total conditions; static = total by the isentropic
     relations), Re_m/Re (1 when both hold), and the gas each is computed for;
   - the nitrogen test section's margin above condensation (kelvin);
-  - the model's dynamic pressure q = (γ/2)·p·Ma² and lift C_L·q·S_m in each
-    tunnel against the balance's rated load;
+  - the model's dynamic pressure q = (γ/2)·p·Ma² (kPa) and lift C_L·q·S_m
+    (N) in each tunnel against the balance's rated load;
   - wall corrections of a section test and of the complete model at the
     test Mach number (ε = blockage; q/q_u and the corrected coefficients),
     or why they are refused (above Ma 0.8 they are not applied); the
@@ -115,12 +116,15 @@ number -mach, chord -chord) and a model -scale times smaller it prints:
     degrees): lift slope dC_L/dα and zero-lift angle α₀, C_D0 and K of
     C_D = C_D0 + K·C_L², each with its 95 % interval; plots of C_L against
     α and of C_D against C_L written to -out as PNG and SVG;
-  - the safety cautions of each tunnel. The aircraft, tunnels, balance and
+  - the safety cautions of each tunnel, the ordinary one's load included
+    (an OVERLOAD line says what would lower it). The aircraft, tunnels, balance and
     readings are invented; the facility's safety rules, the balance's rated
     loads and the responsible engineer govern any real run.
 
-Exit status 2 for a bad flag or -out that is not a directory, 1 when the
-plan cannot be made.
+Exit status 2 for a bad flag, an -out that is not a writable directory,
+or an -amin … -amax range that holds fewer than 3 of the run's corrected
+angles (the message names the bounds that would do); 1 when the plan
+cannot be made.
 
 Flags:
 `
@@ -148,12 +152,21 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	if !(*alo < *ahi) {
 		return nil, &cli.Error{Msg: fmt.Sprintf("-amin %g must be below -amax %g", *alo, *ahi)}
 	}
+	// The polar run is reduced before anything is printed, so that a
+	// linear range the run cannot fill is refused as a usage error; its
+	// text is printed below, after the complete model's corrections.
+	var runText strings.Builder
+	r := &Result{Chord: *chord}
+	var err error
+	if r.Run, err = reduceRun(&runText, *out, *alo, *ahi, *width, *height, *dpi); err != nil {
+		return nil, err
+	}
 	flight, err := fluids.StandardAtmosphere(q.New(*alt, q.Length), fluids.Geometric)
 	if err != nil {
 		return nil, err
 	}
 	gp, _ := fluids.Geopotential(q.New(*alt, q.Length))
-	r := &Result{Flight: flight, Chord: *chord}
+	r.Flight = flight
 	r.Speed = *mach * flight.SpeedOfSound.Value()
 	r.ReFlight = flight.Density.Value() * r.Speed * *chord / flight.DynamicViscosity.Value()
 
@@ -255,8 +268,8 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 
 	// Loads on the model: q = (γ/2)·p·Ma² at each test section's static
 	// pressure, times C_L and the model's wing area.
-	fmt.Fprintf(w, "\nModel loads at C_L = %.1f (wing %.0f m² full scale, %.4f m² model; balance rated normal force %.1f kN, invented):\n",
-		cruiseCL, wingArea, area, balanceLimit/1e3)
+	fmt.Fprintf(w, "\nModel loads at C_L = %.1f (wing %.0f m² full scale, %s m² model; balance rated normal force %s N, invented):\n",
+		cruiseCL, wingArea, cli.Sig(area, 4), cli.Sig(balanceLimit, 4))
 	r.Loads = nil
 	for _, t := range []struct {
 		name string
@@ -268,12 +281,12 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 			return nil, err
 		}
 		lift := cruiseCL * dq.Value() * area
-		verdict := fmt.Sprintf("%.0f %% of the balance's rating", 100*lift/balanceLimit)
+		verdict := fmt.Sprintf("%s %% of the balance's rating", cli.Sig(100*lift/balanceLimit, 2))
 		if lift > balanceLimit {
-			verdict = fmt.Sprintf("EXCEEDS the balance's rating by %.0f %%: do not run", 100*(lift/balanceLimit-1))
+			verdict = fmt.Sprintf("EXCEEDS the balance's rating by %s %%: do not run (see SAFETY)", cli.Sig(100*(lift/balanceLimit-1), 2))
 		}
 		r.Loads = append(r.Loads, Load{Name: t.name, Q: dq.Value(), Lift: lift})
-		fmt.Fprintf(w, "  %-20s q = %6.2f kPa, lift = %5.2f kN — %s\n", t.name+":", dq.Value()/1e3, lift/1e3, verdict)
+		fmt.Fprintf(w, "  %-20s q = %6s kPa, lift = %6s N — %s\n", t.name+":", cli.Sig(dq.Value()/1e3, 4), cli.Sig(lift, 4), verdict)
 	}
 	// A two-dimensional test of the wing's section at the test Mach
 	// number (invented readings).
@@ -281,7 +294,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		AlphaDeg: 6, CL: 0.82, CD: 0.0125, CM: -0.080, Mach: *mach}
 	fmt.Fprintf(w, "\nSection test at Ma %.2f, chord 0.30 m wall to wall in a 0.90 m high closed test section (invented readings), wall corrections:\n", *mach)
 	if r.Section, r.SectionErr = tunnel.CorrectWalls2D(sec); r.SectionErr != nil {
-		fmt.Fprintf(w, "  not applied: %v\n", r.SectionErr)
+		fmt.Fprintf(w, "  not applied: %s\n", libText(r.SectionErr))
 	} else {
 		cs := r.Section
 		fmt.Fprintf(w, "  σ = %.5f, β = √(1 − Ma²) = %.4f; ε_sb = Λσ/β³ = %.5f (Λ = %.2f), ε_wb = %.5f (×(1 + 0.4Ma²)/β²)\n",
@@ -296,10 +309,6 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	// 0.010 m³ at 1:12 and scales with the cube of the model's size.
 	// The polar run is reduced first (its text printed below) so that the
 	// complete model's curvature correction can use its fitted lift slope.
-	var runText strings.Builder
-	if r.Run, err = reduceRun(&runText, *out, *alo, *ahi, *width, *height, *dpi); err != nil {
-		return nil, err
-	}
 	// The lift slope at the test Mach number: the run's fitted slope (at
 	// Ma 0.20) raised by the Prandtl–Glauert factor β(0.20)/β(Ma).
 	bRun, bTest := math.Sqrt(1-runMach*runMach), math.Sqrt(1-*mach**mach)
@@ -311,10 +320,10 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		CurvatureFactor: 0.12, LiftSlopePerDeg: r.ModelSlope, TailCurvatureFactor: 0.55, TailMomentSlopePerDeg: -0.025, Mach: *mach}
 	fmt.Fprintf(w, "\nComplete model at Ma %.2f in a closed 2.0 × 1.5 m section (invented readings; K·τ₁ = %.2f, δ = %.2f, τ₂ read from the charts):\n",
 		*mach, m3.ShapeFactor, m3.Delta)
-	fmt.Fprintf(w, "  used: test-section cross-section C = %.2f m²; the 1:%g model's reference (wing) area S = %.4f m², span b = %.3f m, volume %.4f m³\n",
-		m3.TunnelArea.Value(), *scale, area, span, vol)
+	fmt.Fprintf(w, "  used: test-section cross-section C = %.2f m²; the 1:%g model's reference (wing) area S = %s m², span b = %s m, volume %s m³\n",
+		m3.TunnelArea.Value(), *scale, cli.Sig(area, 4), cli.Sig(span, 4), cli.Sig(vol, 3))
 	if r.Model, r.ModelErr = tunnel.CorrectWalls3D(m3); r.ModelErr != nil {
-		fmt.Fprintf(w, "  not applied: %v\n", r.ModelErr)
+		fmt.Fprintf(w, "  not applied: %s\n", libText(r.ModelErr))
 	} else {
 		c3 := r.Model
 		fmt.Fprintf(w, "  ε_sb = %.5f, ε_wb = %.5f (β = %.4f); q = %.4f·q_u; α %.2f° → %.3f°, C_L %.4f → %.4f, C_D %.5f → %.5f (ΔC_D,i = %.5f)\n",
@@ -327,6 +336,20 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	}
 	fmt.Fprint(w, runText.String())
 	fmt.Fprintln(w, "\nSAFETY (each tunnel's cautions; the facility's safety rules and its responsible engineer govern every run):")
+	// The ordinary tunnel runs at atmospheric total pressure: its q is
+	// set by the Mach number alone, and only the model's size, the test
+	// lift coefficient or the balance can change the load.
+	o := r.Loads[0]
+	fmt.Fprintln(w, "  ordinary tunnel (atmospheric intake, total 288.15 K and 101.325 kPa absolute):")
+	if o.Lift > balanceLimit {
+		fmt.Fprintf(w, "    - OVERLOAD: the load C·S·q = %s N at q = %s kPa exceeds the rated %s N of the balance, sting or model by %s %%; "+
+			"do not run this condition: the intake is at atmospheric pressure, so q is set by the Mach number; use a smaller model (a larger -scale), "+
+			"test at a lower lift coefficient, or use a stronger balance, as the responsible engineer decides.\n",
+			cli.Sig(o.Lift, 4), cli.Sig(o.Q/1e3, 4), cli.Sig(balanceLimit, 4), cli.Sig(100*(o.Lift/balanceLimit-1), 2))
+	} else {
+		fmt.Fprintf(w, "    - load: C·S·q = %s N at q = %s kPa is %s %% of the rated %s N; gusts, starting loads and stall buffet add to it.\n",
+			cli.Sig(o.Lift, 4), cli.Sig(o.Q/1e3, 4), cli.Sig(100*o.Lift/balanceLimit, 2), cli.Sig(balanceLimit, 4))
+	}
 	var seen []string
 	for _, t := range tunnels {
 		fmt.Fprintf(w, "  %s:\n", t.name)
@@ -340,6 +363,16 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		}
 	}
 	return r, nil
+}
+
+// libText is a library error as the report prints it: what was refused
+// and why, without the package's name, which means nothing to the reader.
+func libText(err error) string {
+	var te *tunnel.Error
+	if errors.As(err, &te) {
+		return te.Op + ": " + te.Message()
+	}
+	return err.Error()
 }
 
 // firstWords returns the start of a caution already printed in full.

@@ -345,3 +345,93 @@ func TestUsageHeader(t *testing.T) {
 		t.Errorf("-h: %v\n%s", err, out.String())
 	}
 }
+
+// safety returns the SAFETY block of a report.
+func safety(t *testing.T, report string) string {
+	t.Helper()
+	_, s, ok := strings.Cut(report, "\nSAFETY")
+	if !ok {
+		t.Fatalf("no SAFETY block in %q", report)
+	}
+	return s
+}
+
+// TestOrdinaryOverloadInSafety: an overloaded ordinary tunnel gets its
+// own OVERLOAD line in the SAFETY block. At sea level, Ma 0.3, 1:4: the
+// static p = 95192 Pa (101325 Pa through the isentropic ratio
+// (1 + 0.2·0.09)^-3.5), q = 0.7·95192·0.09 = 5997 Pa, S_m = 38/16 =
+// 2.375 m², lift = 0.6·5997·2.375 = 8546 N, 114 % over the 4000 N.
+func TestOrdinaryOverloadInSafety(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, outDir(t, "-alt", "0", "-mach", "0.3", "-scale", "4")); err != nil {
+		t.Fatal(err)
+	}
+	s := safety(t, out.String())
+	_, ord, ok := strings.Cut(s, "  ordinary tunnel (atmospheric intake")
+	ord, _, _ = strings.Cut(ord, "  pressurised tunnel")
+	want := "    - OVERLOAD: the load C·S·q = 8546 N at q = 5.997 kPa exceeds the rated 4000 N of the balance, sting or model by 114 %"
+	if !ok || !strings.Contains(ord, want) || !strings.Contains(ord, "smaller model (a larger -scale)") {
+		t.Errorf("ordinary tunnel in SAFETY: %q, want %q", ord, want)
+	}
+}
+
+// TestCryogenicOverloadAdvice: at Ma 0.85 the cryogenic tunnel is at its
+// minimum total pressure (1 bar), so the advice must not be to lower it.
+func TestCryogenicOverloadAdvice(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, outDir(t, "-mach", "0.85")); err != nil {
+		t.Fatal(err)
+	}
+	_, cryo, _ := strings.Cut(safety(t, out.String()), "  cryogenic tunnel")
+	if !strings.Contains(cryo, "OVERLOAD") || !strings.Contains(cryo, "at its minimum total pressure already") ||
+		strings.Contains(cryo, "lower the total pressure") || strings.Contains(cryo, "e+0") {
+		t.Errorf("cryogenic overload: %q", cryo)
+	}
+}
+
+// TestLinearRangeTooNarrow: -amin 12 -amax 16 takes in 2 corrected angles
+// (12.733°, 14.759°); the next are 16.725° above and 10.671° below. It is
+// a usage error naming both flags and the bounds that would do, printed
+// before any report, with the command's name once.
+func TestLinearRangeTooNarrow(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, outDir(t, "-amin", "12", "-amax", "16"))
+	var ce *cli.Error
+	if !errors.As(err, &ce) {
+		t.Fatalf("got %v, want a usage error", err)
+	}
+	for _, w := range []string{"-amin 12 -amax 16", "2 lie in it (12.733°, 14.759°)", "raise -amax to at least 16.725", "lower -amin to at most 10.671"} {
+		if !strings.Contains(err.Error(), w) {
+			t.Errorf("%q lacks %q", err, w)
+		}
+	}
+	if out.Len() != 0 {
+		t.Errorf("printed before the usage error: %q", out.String())
+	}
+	var stderr strings.Builder
+	if code := cli.ExitCode(&stderr, "tunnel", err); code != 2 || strings.Contains(stderr.String(), "tunnel: tunnel:") {
+		t.Errorf("exit %d, %q", code, stderr.String())
+	}
+}
+
+// TestSmallModelFigures: at 32 km, Ma 0.1, 1:200 the loads are printed
+// with significant figures in one unit: static p = 100619 Pa, q =
+// 0.7·100619·0.01 = 704.3 Pa, S_m = 38/200² = 0.00095 m², lift =
+// 0.6·704.3·0.00095 = 0.4015 N, 0.010 % of 4000 N.
+func TestSmallModelFigures(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, outDir(t, "-alt", "32000", "-mach", "0.1", "-scale", "200")); err != nil {
+		t.Fatal(err)
+	}
+	s := out.String()
+	for _, w := range []string{"0.0009500 m² model",
+		"ordinary tunnel:     q = 0.7043 kPa, lift = 0.4015 N — 0.010 % of the balance's rating",
+		"- load: C·S·q = 0.4015 N at q = 0.7043 kPa is 0.010 % of the rated 4000 N"} {
+		if !strings.Contains(s, w) {
+			t.Errorf("report lacks %q", w)
+		}
+	}
+	if strings.Contains(safety(t, s), " Pa ") || strings.Contains(s, "0.00 kN") || strings.Contains(s, "applied: tunnel: ") {
+		t.Errorf("a pressure in Pa in SAFETY, a load printed as 0.00 kN or a package prefix in the report")
+	}
+}

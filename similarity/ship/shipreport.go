@@ -2,6 +2,7 @@ package ship
 
 import (
 	"fmt"
+	"math"
 	"strings"
 
 	"similis.dev/similis/similarity"
@@ -63,10 +64,10 @@ func PoweringTable(rs []PoweringResult, md bool) string {
 			fmt.Sprintf("%.2f", r.ShipSpeed.Value()*3600/1852), fmt.Sprintf("%.3f", r.Froude),
 			fmt.Sprintf("%.3f", r.Residual*1e3), fmt.Sprintf("%.3f", r.RoughnessAllowance*1e3), fmt.Sprintf("%.3f", r.CorrelationAllowance*1e3),
 			fmt.Sprintf("%.3f", r.ShipCT*1e3),
-			fmt.Sprintf("%.1f", r.ShipResistance.Value()/1e3), fmt.Sprintf("%.0f", r.EffectivePower.Value()/1e3),
+			sig4(r.ShipResistance.Value() / 1e3), sig4(r.EffectivePower.Value() / 1e3),
 			fmt.Sprintf("%.3f", r.ShipWake), fmt.Sprintf("%.3f", r.J), fmt.Sprintf("%.4f", r.KT), fmt.Sprintf("%.4f", 10*r.KQ),
 			fmt.Sprintf("%.3f", r.Eta0), fmt.Sprintf("%.3f", r.EtaH), fmt.Sprintf("%.3f", r.EtaR), fmt.Sprintf("%.3f", r.EtaD),
-			fmt.Sprintf("%.1f", r.RPM), fmt.Sprintf("%.0f", r.DeliveredPower.Value()/1e3),
+			fmt.Sprintf("%.1f", r.RPM), sig4(r.DeliveredPower.Value() / 1e3),
 		})
 	}
 	var sb strings.Builder
@@ -84,6 +85,19 @@ func PoweringTable(rs []PoweringResult, md bool) string {
 	sb.WriteString("CAUTION: " + PoweringCaution + "\n")
 	return sb.String()
 }
+
+// sigDecimals is the number of decimals that shows x to n significant
+// figures, none when x has n digits before the point: the tables print
+// a resistance or a power of a small ship as 0.3184 kW, never as 0.
+func sigDecimals(x float64, n int) int {
+	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) {
+		return 0
+	}
+	return min(max(0, n-1-int(math.Floor(math.Log10(math.Abs(x))))), 12)
+}
+
+// sig4 formats x to four significant figures (see sigDecimals).
+func sig4(x float64) string { return fmt.Sprintf("%.*f", sigDecimals(x, 4), x) }
 
 // fmtCoef formats a coefficient to four significant digits with its unit.
 func fmtCoef(x float64, unit string) string { return fmt.Sprintf("%.4g %s", x, unit) }

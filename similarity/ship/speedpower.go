@@ -314,10 +314,10 @@ func (s *SpeedPower) Table(md bool) string {
 		vk := p.ShipSpeed.Value() * 3600 / 1852
 		pd := p.DeliveredPower.Value()
 		rows = append(rows, []string{
-			fmt.Sprintf("%.2f", vk), fmt.Sprintf("%.0f", p.EffectivePower.Value()/1e3),
+			fmt.Sprintf("%.2f", vk), sig4(p.EffectivePower.Value() / 1e3),
 			fmt.Sprintf("%.3f", p.ShipWake), fmt.Sprintf("%.3f", p.ThrustDeduction), fmt.Sprintf("%.3f", p.EtaR), fmt.Sprintf("%.3f", p.EtaD),
 			fmt.Sprintf("%.1f", p.RPM), fmt.Sprintf("%.1f … %.1f", 60*p.Revs[0], 60*p.Revs[1]),
-			fmt.Sprintf("%.0f", pd/1e3), fmt.Sprintf("%.0f … %.0f", p.Power[0]/1e3, p.Power[1]/1e3),
+			sig4(pd / 1e3), fmt.Sprintf("%.*f … %.*f", sigDecimals(pd/1e3, 4), p.Power[0]/1e3, sigDecimals(pd/1e3, 4), p.Power[1]/1e3),
 			fmt.Sprintf("%.1f", 100*(p.Power[1]-pd)/pd),
 		})
 		if p.Warning != "" {

@@ -324,6 +324,34 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	return c, nil
 }
 
+// plainSig writes x with at least n significant figures in plain
+// decimals (a whole number when it has n digits before the point), for
+// the load notes: plainSig(4993.2, 4) is 4993, plainSig(0.39904, 4)
+// 0.3990, plainSig(113.4, 2) 113, plainSig(0.0100, 2) 0.010.
+func plainSig(x float64, n int) string {
+	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) {
+		return fmt.Sprint(x)
+	}
+	return fmt.Sprintf("%.*f", max(0, n-1-int(math.Floor(math.Log10(math.Abs(x))))), x)
+}
+
+// overloadRemedy says what can lower an overload at the condition. The
+// found condition is the least total pressure that holds the Reynolds
+// number at the coldest allowed gas, so a lower total pressure always
+// gives up Reynolds number; at the tunnel's minimum total pressure it is
+// not available at all.
+func (c *Condition) overloadRemedy() string {
+	for _, b := range c.Binding {
+		if b != "minimum total pressure" {
+			continue
+		}
+		return "the tunnel is at its minimum total pressure already, so q cannot be lowered there; use a smaller model, " +
+			"test at a lower lift coefficient, or use a stronger balance (a lower total pressure would also lose the Reynolds number)"
+	}
+	return "use a smaller model, test at a lower lift coefficient, or use a stronger balance; a lower total pressure " +
+		"(a dynamic-pressure limit) also lowers the load but gives up part of the Reynolds number"
+}
+
 // tunnelFinite reports whether every value is a finite number.
 func tunnelFinite(xs ...float64) bool {
 	for _, x := range xs {
@@ -399,13 +427,13 @@ func (c *Condition) caution(gas fluids.IdealGas, lim Limits) error {
 		}
 		if l, r := c.Load.Value(), rated.Value(); l > r {
 			c.Overloaded = true
-			c.Cautions = append(c.Cautions, fmt.Sprintf("OVERLOAD: the load C·S·q = %.4g N at q = %.4g Pa exceeds the rated %.4g N of the balance, sting or model by %.0f %%; "+
-				"do not run this condition: lower the total pressure (a dynamic-pressure limit) or use a stronger balance, as the responsible engineer decides.", l, c.Q.Value(), r, 100*(l/r-1)))
+			c.Cautions = append(c.Cautions, fmt.Sprintf("OVERLOAD: the load C·S·q = %s N at q = %s kPa exceeds the rated %s N of the balance, sting or model by %s %%; "+
+				"do not run this condition: %s, as the responsible engineer decides.", plainSig(l, 4), plainSig(c.Q.Value()/1e3, 4), plainSig(r, 4), plainSig(100*(l/r-1), 2), c.overloadRemedy()))
 		} else {
-			c.Cautions = append(c.Cautions, fmt.Sprintf("load: C·S·q = %.4g N at q = %.4g Pa is %.0f %% of the rated %.4g N; gusts, starting loads and stall buffet add to it.", l, c.Q.Value(), 100*l/r, r))
+			c.Cautions = append(c.Cautions, fmt.Sprintf("load: C·S·q = %s N at q = %s kPa is %s %% of the rated %s N; gusts, starting loads and stall buffet add to it.", plainSig(l, 4), plainSig(c.Q.Value()/1e3, 4), plainSig(100*l/r, 2), plainSig(r, 4)))
 		}
 	default:
-		c.Cautions = append(c.Cautions, fmt.Sprintf("load: no rated load given — check the model, sting and balance against their ratings at q = %.4g Pa before running.", c.Q.Value()))
+		c.Cautions = append(c.Cautions, fmt.Sprintf("load: no rated load given — check the model, sting and balance against their ratings at q = %s kPa before running.", plainSig(c.Q.Value()/1e3, 4)))
 	}
 	return nil
 }

@@ -3,6 +3,7 @@ package tunnel
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
@@ -147,6 +148,31 @@ type Estimate struct {
 	Interval [2]float64
 }
 
+// nearestOutside names the nearest angles below and above the linear
+// range, the ones a wider range would take in first.
+func nearestOutside(alphaDeg []float64, lo, hi float64) string {
+	below, above := math.Inf(-1), math.Inf(1)
+	for _, x := range alphaDeg {
+		if x < lo && x > below {
+			below = x
+		}
+		if x > hi && x < above {
+			above = x
+		}
+	}
+	var parts []string
+	if !math.IsInf(below, 0) {
+		parts = append(parts, fmt.Sprintf("%.3f° below", below))
+	}
+	if !math.IsInf(above, 0) {
+		parts = append(parts, fmt.Sprintf("%.3f° above", above))
+	}
+	if len(parts) == 0 {
+		return ""
+	}
+	return "; the nearest points outside it are at " + strings.Join(parts, " and ")
+}
+
 // Polar is a model's lift curve and drag polar fitted to corrected
 // coefficients: C_L = a·(α − α₀) over the linear range of the lift curve,
 // and the parabolic polar C_D = C_D0 + K·C_L² over the same points.
@@ -202,7 +228,7 @@ func FitPolar(alphaDeg, cl, cd []float64, alphaLoDeg, alphaHiDeg, level float64)
 		}
 	}
 	if len(a) < 3 {
-		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("points", fmt.Sprintf("%d points in the linear range %g … %g°: want at least 3", len(a), alphaLoDeg, alphaHiDeg))}
+		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("points", fmt.Sprintf("%d points in the linear range %g … %g°: want at least 3%s", len(a), alphaLoDeg, alphaHiDeg, nearestOutside(alphaDeg, alphaLoDeg, alphaHiDeg)))}
 	}
 	opt := &fit.Options{Level: level}
 	p := Polar{AlphaRangeDeg: [2]float64{alphaLoDeg, alphaHiDeg}, N: len(a), Level: level}

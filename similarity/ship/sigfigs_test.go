@@ -1,0 +1,39 @@
+package ship
+
+import (
+	"strings"
+	"testing"
+)
+
+// TestSig4 checks that the tables' resistances and powers keep four
+// significant figures: a small ship's 0.31842 kW is not printed as 0.
+func TestSig4(t *testing.T) {
+	for _, tc := range []struct {
+		x    float64
+		want string
+	}{
+		{0.31842, "0.3184"}, {1.2345678, "1.235"}, {24.2431, "24.24"}, {521.14, "521.1"}, {1234.6, "1235"}, {56789.2, "56789"}, {0, "0"},
+	} {
+		if got := sig4(tc.x); got != tc.want {
+			t.Errorf("sig4(%v) = %q, want %q", tc.x, got, tc.want)
+		}
+	}
+}
+
+// TestProhaskaTooFewRunsSaysLimit: with the limit below the runs the
+// message names the limit that would take in three. The third-lowest Fn
+// is 0.18064 (0.80 m/s on a 2 m model: 0.80/√(9.80665·2)), rounded up
+// to 0.181.
+func TestProhaskaTooFewRunsSaysLimit(t *testing.T) {
+	fn := []float64{0.11290, 0.14677, 0.18064, 0.22580}
+	ct := []float64{5.49e-3, 5.23e-3, 5.05e-3, 5.04e-3}
+	cf := []float64{4.38e-3, 4.14e-3, 3.97e-3, 3.80e-3}
+	_, err := Prohaska(fn, ct, cf, 0.1)
+	if err == nil || !strings.Contains(err.Error(), "0 runs at Fn ≤ 0.1; at least 3 are needed: raise the limit to at least 0.181 (the third-lowest run's Fn)") {
+		t.Errorf("got %v", err)
+	}
+	_, err = Prohaska(fn[:2], ct[:2], cf[:2], 0.3)
+	if err == nil || !strings.Contains(err.Error(), "only 2 of the runs") {
+		t.Errorf("two runs: %v", err)
+	}
+}
