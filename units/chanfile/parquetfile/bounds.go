@@ -400,18 +400,30 @@ func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.Compr
 	return nil
 }
 
+// runHeader reads the header of the run at b[*i] of an RLE/bit-packed
+// hybrid stream, moving *i past it: the run's count n (of values, or of
+// groups of 8 when packed, capped at 2⁴⁰ so sums cannot overflow) and
+// whether it is bit-packed. It reports false for a header that does not
+// decode.
+func runHeader(b []byte, i *int) (n int64, packed bool, ok bool) {
+	u, k := binary.Uvarint(b[*i:])
+	if k <= 0 {
+		return 0, false, false
+	}
+	*i += k
+	return int64(min(u>>1, 1<<40)), u&1 != 0, true
+}
+
 // hybridRuns walks the runs of an RLE/bit-packed hybrid stream of
 // width-bit values and refuses it if they declare more than limit values.
 func hybridRuns(b []byte, width, limit int64, what string) error {
 	var total int64
 	for i := 0; i < len(b); {
-		u, k := binary.Uvarint(b[i:])
-		if k <= 0 {
+		n, packed, ok := runHeader(b, &i)
+		if !ok {
 			return nil // the decoder refuses it
 		}
-		i += k
-		n := int64(min(u>>1, 1<<40))
-		if u&1 != 0 { // n groups of 8 bit-packed values
+		if packed { // n groups of 8 bit-packed values
 			total += 8 * n
 			i += int(min(n*width, int64(len(b))))
 		} else { // n repeats of one value
@@ -437,13 +449,11 @@ func hybridRuns(b []byte, width, limit int64, what string) error {
 func boolRuns(b []byte, limit int64) error {
 	var total int64
 	for i := 0; i < len(b); {
-		u, k := binary.Uvarint(b[i:])
-		if k <= 0 {
+		n, packed, ok := runHeader(b, &i)
+		if !ok {
 			return nil // the decoder refuses it
 		}
-		i += k
-		n := int64(min(u>>1, 1<<40))
-		if u&1 != 0 { // n groups of 8 bit-packed values, n bytes
+		if packed { // n groups of 8 bit-packed values, n bytes
 			total += 8 * n
 			i += int(min(n, int64(len(b))))
 		} else {
