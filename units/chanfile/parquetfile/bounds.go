@@ -59,7 +59,7 @@ func checkFooter(r io.ReaderAt, size int64) error {
 		return err
 	}
 	if k, err := thriftCheck(footer, maxDecodedFooter); err != nil {
-		return fmt.Errorf("the footer: %v", err)
+		return fmt.Errorf("the footer: %w", err)
 	} else if k != len(footer) {
 		return fmt.Errorf("the footer: %d bytes after its end", len(footer)-k)
 	}
@@ -173,11 +173,11 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec, optional, b
 		// no string or list longer than that.
 		peek, _ := cr.r.Peek(int(min(size-cr.n, maxPageHeader)))
 		if _, err := thriftCheck(peek, 1<<20); err != nil {
-			return 0, fmt.Errorf("page %d: a damaged page header: %v", page, err)
+			return 0, fmt.Errorf("page %d: a damaged page header: %w", page, err)
 		}
 		var h format.PageHeader
 		if err := thrift.NewDecoder(proto.NewReader(io.LimitReader(cr, maxPageHeader))).Decode(&h); err != nil {
-			return 0, fmt.Errorf("page %d: a damaged page header: %v", page, err)
+			return 0, fmt.Errorf("page %d: a damaged page header: %w", page, err)
 		}
 		comp, unc := int64(h.CompressedPageSize), int64(h.UncompressedPageSize)
 		if comp < 0 || unc < 0 || comp > MaxPageBytes || unc > MaxPageBytes {
@@ -221,7 +221,7 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec, optional, b
 				// The block starts with its decoded length, a varint.
 				var head [binary.MaxVarintLen64]byte
 				if _, err := sr.ReadAt(head[:min(n, int64(len(head)))], data); err != nil {
-					return 0, fmt.Errorf("page %d: %v", page, err)
+					return 0, fmt.Errorf("page %d: %w", page, err)
 				}
 				u, k := binary.Uvarint(head[:min(n, int64(len(head)))])
 				if k <= 0 {
@@ -252,17 +252,17 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec, optional, b
 				}
 			}
 			if err != nil {
-				return 0, fmt.Errorf("page %d: %v", page, err)
+				return 0, fmt.Errorf("page %d: %w", page, err)
 			}
 			if out > MaxPageBytes {
 				return 0, fmt.Errorf("page %d: decompresses to as much as %d bytes (at most %d read)", page, out, int64(MaxPageBytes))
 			}
 		}
 		if err := checkEncoded(sr, &h, codec, body, comp, values, optional, boolean); err != nil {
-			return 0, fmt.Errorf("page %d: %v", page, err)
+			return 0, fmt.Errorf("page %d: %w", page, err)
 		}
 		if _, err := cr.r.Discard(int(comp)); err != nil {
-			return 0, fmt.Errorf("page %d: %v", page, err)
+			return 0, fmt.Errorf("page %d: %w", page, err)
 		}
 		cr.n += comp
 	}
@@ -324,7 +324,7 @@ func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.Compr
 	if h.DataPageHeader.Valid {
 		d, err := decode(raw)
 		if err != nil {
-			return fmt.Errorf("a damaged compressed page: %v", err)
+			return fmt.Errorf("a damaged compressed page: %w", err)
 		}
 		if optional {
 			if e := h.DataPageHeader.V.DefinitionLevelEncoding; e != format.RLE {
@@ -358,7 +358,7 @@ func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.Compr
 		if !v.IsCompressed.Valid || v.IsCompressed.V {
 			d, err := decode(data)
 			if err != nil {
-				return fmt.Errorf("a damaged compressed page: %v", err)
+				return fmt.Errorf("a damaged compressed page: %w", err)
 			}
 			data = d
 		}
@@ -487,11 +487,11 @@ func boolRuns(b []byte, limit int64) error {
 func gzipSize(r io.Reader, limit int64) (int64, error) {
 	z, err := gzip.NewReader(r)
 	if err != nil {
-		return 0, fmt.Errorf("a damaged gzip stream: %v", err)
+		return 0, fmt.Errorf("a damaged gzip stream: %w", err)
 	}
 	n, err := io.Copy(io.Discard, io.LimitReader(z, limit+1))
 	if err != nil {
-		return n, fmt.Errorf("a damaged gzip stream: %v", err)
+		return n, fmt.Errorf("a damaged gzip stream: %w", err)
 	}
 	return n, nil
 }
