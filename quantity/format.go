@@ -2,6 +2,7 @@ package quantity
 
 import (
 	"fmt"
+	"math"
 	"strconv"
 	"strings"
 	"unicode/utf8"
@@ -130,7 +131,7 @@ func (q Quantity) Format(f fmt.State, verb rune) {
 	}
 	unit := q.d.unitText(f.Flag('#'))
 	s := q.text(unit, b, prec)
-	if f.Flag('+') && q.v >= 0 {
+	if f.Flag('+') && !math.Signbit(q.v) && !math.IsNaN(q.v) { // -0 has its sign already
 		s = "+" + s
 	}
 	if w, ok := f.Width(); ok {

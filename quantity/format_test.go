@@ -165,6 +165,9 @@ func TestFormatNamedUnit(t *testing.T) {
 		{"%16v|", "  0.0010016 Pa·s|"},
 		{"%+.2g", "+0.001 Pa·s"},
 	}
+	if got := fmt.Sprintf("%+v", q.New(math.Copysign(0, -1), q.Pressure)); got != "-0 Pa" {
+		t.Errorf("%%+v of -0 Pa = %q, want \"-0 Pa\"", got)
+	}
 	for _, c := range cases {
 		if got := fmt.Sprintf(c.format, mu); got != c.want {
 			t.Errorf("Sprintf(%q) = %q, want %q", c.format, got, c.want)
