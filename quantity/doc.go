@@ -15,12 +15,14 @@
 // # Text
 //
 // A Quantity prints (String, %v, MarshalText) its value and its coherent SI
-// unit: N, Pa or W where the dimension is exactly that of the newton, the
-// pascal or the watt, the SI base-unit form otherwise ("138434.1 N",
-// "1.225 kg·m⁻³"); ParseQuantitySI reads every such text back to the same
-// bits. Energy keeps base units, since torque shares its dimension. To
-// print in any other unit, with prefixes or a chosen precision, use the
-// units package's Printer.
+// unit: one of a fixed set of twelve names — N, Pa, W, N·m, Pa·s, N/m,
+// N/m³, W/m², W/(m·K), W/(m²·K), J/K, J/(kg·K) — where the dimension is
+// exactly that unit's, the SI base-unit form otherwise ("138434.1 N",
+// "0.0010016 Pa·s", "1.225 kg·m⁻³", "2 s⁻¹"); ParseQuantitySI reads every
+// such text back to the same bits. Energy and torque share a dimension
+// and print N·m, right for both (1 J = 1 N·m), where J would misname a
+// torque. To print in any other unit, with prefixes or a chosen
+// precision, use the units package's Printer.
 //
 // # Error model
 //

@@ -34,8 +34,9 @@ var (
 
 // Describe names a dimension for a message: its kinds of quantity, if any
 // are known, and its coherent SI unit as a Quantity's String writes it —
-// the special name N, Pa or W where the dimension is exactly theirs, the
-// base-unit form otherwise: "pressure, stress [Pa]", "density [kg·m⁻³]".
+// a name of String's fixed set (N, Pa, W, N·m, Pa·s, …) where the
+// dimension is exactly its, the base-unit form otherwise:
+// "pressure, stress [Pa]", "dynamic viscosity [Pa·s]", "density [kg·m⁻³]".
 func Describe(d Dim) string {
 	if name := KindName(d); name != "" {
 		return name + " [" + d.unitText(false) + "]"

@@ -75,7 +75,7 @@ func TestMismatchMessages(t *testing.T) {
 func TestCheckAndEval(t *testing.T) {
 	nu := q.New(1.0e-6, q.KinematicViscosity) // a kinematic viscosity given where μ belongs
 	err := nu.CheckNamed("μ", q.DynamicViscosity)
-	want := "μ: want dynamic viscosity [kg·m⁻¹·s⁻¹], got kinematic viscosity, thermal diffusivity, diffusion coefficient [m²·s⁻¹]"
+	want := "μ: want dynamic viscosity [Pa·s], got kinematic viscosity, thermal diffusivity, diffusion coefficient [m²·s⁻¹]"
 	if err == nil || err.Error() != want {
 		t.Errorf("Check: %v\nwant %s", err, want)
 	}
