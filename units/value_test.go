@@ -435,3 +435,27 @@ func TestParseDialectErrorClass(t *testing.T) {
 		}
 	}
 }
+
+// TestNegativeZeroKept: a number read from text is the number written, so
+// "-0 m" reads as −0 (IEEE 754 negative zero), not +0; a unit with an
+// offset (°C) adds it, and −0 °C is 273.15 K.
+func TestNegativeZeroKept(t *testing.T) {
+	for _, c := range []struct {
+		text    string
+		wantNeg bool
+		want    float64
+	}{
+		{"-0 m", true, 0},
+		{"-0 kPa", true, 0},
+		{"0 m", false, 0},
+		{"-0 °C", false, 273.15},
+	} {
+		q, err := units.ParseQuantity(c.text)
+		if err != nil {
+			t.Fatalf("%q: %v", c.text, err)
+		}
+		if q.Value() != c.want || math.Signbit(q.Value()) != c.wantNeg {
+			t.Errorf("%q: value %v (sign bit %v), want %v (sign bit %v)", c.text, q.Value(), math.Signbit(q.Value()), c.want, c.wantNeg)
+		}
+	}
+}
