@@ -71,6 +71,17 @@
 // 0), or one whose value in SI overflows or underflows (1e308 in km) is
 // an error matching quantity.ErrRange, never ±Inf or 0.
 //
+// ReadAll reads a file small enough to hold in memory whole (a steady
+// test of a few minutes, a zero file) into one Series per column and the
+// text of its label columns, refusing a file of more rows than the bound
+// it is given; its Whole feeds package steady directly (steady.Runs,
+// steady.TimeWindows, steady.Points; see the fromFile example there).
+// Package similarity/reduction runs the whole pipeline of a test on any
+// Source — choosing the columns, finding and reducing the steady points
+// in bounded memory, the zero, the calibrations and the dimensionless
+// groups with their uncertainty — and is the place to start for a file
+// of any length.
+//
 // Writer writes Series back in chosen units with a header Reader reads
 // back, and numbers in the shortest form that reads back to the same
 // float64. A missing value is written as MissingText ("NaN"), so that a
