@@ -17,9 +17,10 @@ type Whole struct {
 	// is in Labels), and so is that of a column a Selector was told not
 	// to read.
 	Series []quantity.Series
-	// Labels holds the text of each Label column, one string a row (""
-	// for a missing one); nil for a column of another kind, or when the
-	// source does not give labels (see ReadAll).
+	// Labels holds the text of each label column, one string a row (""
+	// for a missing one): the column's Labels from the source (see
+	// ReadAll), nil for a column of another kind or a source without
+	// labels.
 	Labels [][]string
 	// Rows is the number of rows read.
 	Rows int
@@ -75,7 +76,11 @@ func ReadAll(src Source, maxRows int) (Whole, error) {
 		// maxRows rows from a longer one.
 		var n int
 		var err error
-		dst, n, err = src.Read(dst, min(4096, maxRows-rows+1))
+		want := 4096
+		if maxRows-rows < want {
+			want = maxRows - rows + 1
+		}
+		dst, n, err = src.Read(dst, want)
 		if err == io.EOF {
 			break
 		}
@@ -100,14 +105,7 @@ func ReadAll(src Source, maxRows int) (Whole, error) {
 	}
 	w := Whole{Columns: append([]Column(nil), src.Columns()...), Series: make([]quantity.Series, len(cols)), Labels: labels, Rows: rows}
 	for k, c := range w.Columns {
-		v := vals[k]
-		if c.Kind == Label {
-			v = nil
-		}
-		w.Series[k] = quantity.NewSeries(v, c.Unit.Dim())
-		if labels != nil && c.Kind != Label {
-			labels[k] = nil
-		}
+		w.Series[k] = quantity.NewSeries(vals[k], c.Unit.Dim())
 	}
 	return w, nil
 }

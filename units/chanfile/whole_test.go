@@ -3,6 +3,7 @@ package chanfile_test
 import (
 	"errors"
 	"fmt"
+	"io"
 	"math"
 	"strings"
 	"testing"
@@ -186,5 +187,75 @@ func TestReadAll(t *testing.T) {
 				t.Errorf("Index of no channel = %d, want -1", k)
 			}
 		})
+	}
+}
+
+// FuzzReadAll: on any text and bound, ReadAll returns an error of one
+// class, or at most maxRows rows, each column's Series and labels either
+// empty or one value a row, and the same rows as reading chunk by chunk.
+func FuzzReadAll(f *testing.F) {
+	f.Add("t;tag;H\ns;-;m\n0;A;1,5\n1;;\n2;B;1,7\n", 3)
+	f.Add("t;tag;H\ns;-;m\n0;A;1,5\n1;;\n2;B;1,7\n", 2)
+	f.Add(longLog(5000), 4097)
+	f.Add("t [s],V [m/s]\n0,1\n1,x\n", 10)
+	f.Add("x [m]\n", 0)
+	f.Fuzz(func(t *testing.T, s string, maxRows int) {
+		open := func() *chanfile.Reader {
+			r, err := chanfile.NewReader(strings.NewReader(s), "f.csv", chanfile.Options{})
+			if err != nil {
+				return nil
+			}
+			return r
+		}
+		r := open()
+		if r == nil {
+			return
+		}
+		w, err := chanfile.ReadAll(r, maxRows)
+		// The rows chunk by chunk, up to maxRows + 1, for comparison.
+		rows, cerr := 0, error(nil)
+		r2 := open()
+		var dst []quantity.Series
+		for rows <= maxRows {
+			var n int
+			dst, n, cerr = r2.Read(dst, 7)
+			if cerr != nil {
+				break
+			}
+			rows += n
+		}
+		if err != nil {
+			if classes(err) != 1 {
+				t.Fatalf("ReadAll: error %v of %d classes", err, classes(err))
+			}
+			if maxRows >= 1 && rows <= maxRows && cerr == io.EOF {
+				t.Fatalf("ReadAll: %v, but the file reads to its end in %d rows", err, rows)
+			}
+			return
+		}
+		if w.Rows > maxRows || w.Rows != rows || cerr != io.EOF {
+			t.Fatalf("ReadAll: %d rows of at most %d; chunk by chunk %d rows, then %v", w.Rows, maxRows, rows, cerr)
+		}
+		for k, c := range w.Columns {
+			if n := w.Series[k].Len(); n != 0 && n != w.Rows {
+				t.Fatalf("column %s: %d values of %d rows", c.Name, n, w.Rows)
+			}
+			if n := len(w.Labels[k]); n != 0 && n != w.Rows {
+				t.Fatalf("column %s: %d labels of %d rows", c.Name, n, w.Rows)
+			}
+		}
+	})
+}
+
+// TestReadAllLargeBound: a bound of math.MaxInt reads a file whole (the
+// rows asked of the source do not overflow).
+func TestReadAllLargeBound(t *testing.T) {
+	r, err := chanfile.NewReader(strings.NewReader(longLog(5000)), "lab.csv", chanfile.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	w, err := chanfile.ReadAll(r, math.MaxInt)
+	if err != nil || w.Rows != 5000 {
+		t.Fatalf("ReadAll: %d rows, %v; want 5000 rows", w.Rows, err)
 	}
 }
