@@ -1459,8 +1459,8 @@ func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, 
 					reason = perr.Error() + ": set Options.Decimal if the file's decimal mark is '.'"
 				case withUnit(string(f)):
 					reason = "a value with a unit in a data row: the unit belongs in the header"
-				case text:
-					reason = fmt.Sprintf("not a finite number but text: if it marks a missing value, set Options.Missing = %s (or list it in Options.MissingValues)", strconv.Quote(short(f)))
+				case text && len(f) <= 64:
+					reason = fmt.Sprintf("not a finite number but text: if it marks a missing value, set Options.Missing = %s (or list it in Options.MissingValues)", strconv.Quote(string(f)))
 					if all {
 						reason += "; to read only the columns you need, name them in Options.Columns"
 					}

@@ -77,6 +77,13 @@ func TestUnitsRowMessages(t *testing.T) {
 			want: []string{`Options.Missing = "n/a"`, "Options.Columns"},
 		},
 		{
+			name: "a long text is not offered as a marker",
+			text: "t,H\ns,m\n0,1.5\n1," + strings.Repeat("x", 70) + "\n",
+			line: 4, col: 2, class: quantity.ErrParse,
+			want: []string{"not a finite number", "Options.Columns"},
+			not:  []string{"Options.Missing"},
+		},
+		{
 			name: "a decimal point is still the decimal mark's fault",
 			text: "t;H\ns;m\n0;1,5\n1;1.5e3\n",
 			opt:  chanfile.Options{Decimal: ','},
