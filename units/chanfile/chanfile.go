@@ -898,7 +898,7 @@ func (r *Reader) column(s headSpec, i, line int, unitRow bool, sample []string) 
 		return c, 1, 0, -2, &Error{File: r.name, Line: line, Column: i + 1, Field: s.field, Reason: reason, Err: err, class: class}
 	}
 	if layout == slashUnread {
-		reason := fmt.Sprintf("dates such as %q may be day/month or month/day: set Options.SlashDates to chanfile.DayFirst or chanfile.MonthFirst (or name the columns to read in Options.Columns)", short([]byte(sample[0])))
+		reason := fmt.Sprintf("dates such as %q may be day/month or month/day: set Options.SlashDates to chanfile.DayFirst or chanfile.MonthFirst", short([]byte(sample[0])))
 		if r.opt.SlashDates != SlashRefused {
 			reason = fmt.Sprintf("dates such as %q are not all in one form read with Options.SlashDates (a four-digit year, then an optional clock time hh:mm or hh:mm:ss)", short([]byte(sample[0])))
 		}

@@ -145,6 +145,9 @@ func TestUnitsRowMessages(t *testing.T) {
 					t.Errorf("%v: does not say %q", err, w)
 				}
 			}
+			if n := strings.Count(err.Error(), "Options.Columns"); n > 1 {
+				t.Errorf("%v: names Options.Columns %d times", err, n)
+			}
 			for _, w := range tt.not {
 				if strings.Contains(err.Error(), w) {
 					t.Errorf("%v: says %q", err, w)
