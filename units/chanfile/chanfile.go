@@ -352,6 +352,7 @@ type Reader struct {
 	active    []int       // the columns Read fills (all, or those of Select)
 	checked   bool        // the active columns can be read together (see refusal)
 	headLine  int         // the line of the header
+	unitLine  int         // the line of the units row, if any
 	done      bool
 	off       int64 // bytes of lines read, after a byte-order mark
 }
@@ -404,6 +405,7 @@ func NewReader(r io.Reader, name string, opt Options) (*Reader, error) {
 			}
 			skip = 2
 			rd.format.UnitsRow = true
+			rd.unitLine = rd.line
 			rd.format.Readings = append(rd.format.Readings, units.Reading{From: fmt.Sprintf("line %d", rd.line), To: "the units of the columns", Note: "no field is a number or a time and some are units"})
 		} else {
 			rd.pend = append(rd.pend[:0], rd.raw...)
@@ -885,7 +887,10 @@ func (r *Reader) column(s headSpec, i, line int, unitRow bool, sample []string) 
 	}
 	physical := c.Text != "" && unitErr == nil && c.Unit.Dim() != units.One().Dim()
 	kind, layout := r.kind(s.name, physical, sample)
-	if kind == Timestamp && layout < 0 && c.Text != "" && !(unitErr == nil && c.Unit.Dim() == quantity.Time && c.Unit.Factor() == 1 && !c.Gauge) {
+	// "-" is no unit: times and text under it are read as under an
+	// empty unit (an exporter writes "-" for a column with no unit).
+	noUnit := c.Text == "" || c.Text == "-"
+	if kind == Timestamp && layout == -1 && !noUnit && !(unitErr == nil && c.Unit.Dim() == quantity.Time && c.Unit.Factor() == 1 && !c.Gauge) {
 		kind, layout = Number, -2 // an epoch in ms or days: a number in its unit
 	}
 	fail := func(reason string, err, class error) (Column, float64, float64, int, *Error) {
@@ -893,7 +898,7 @@ func (r *Reader) column(s headSpec, i, line int, unitRow bool, sample []string) 
 		return c, 1, 0, -2, &Error{File: r.name, Line: line, Column: i + 1, Field: s.field, Reason: reason, Err: err, class: class}
 	}
 	if layout == slashUnread {
-		reason := fmt.Sprintf("dates such as %q may be day/month or month/day: set Options.SlashDates to chanfile.DayFirst or chanfile.MonthFirst (or name the columns to read in Options.Columns)", short([]byte(sample[0])))
+		reason := fmt.Sprintf("dates such as %q may be day/month or month/day: set Options.SlashDates to chanfile.DayFirst or chanfile.MonthFirst", short([]byte(sample[0])))
 		if r.opt.SlashDates != SlashRefused {
 			reason = fmt.Sprintf("dates such as %q are not all in one form read with Options.SlashDates (a four-digit year, then an optional clock time hh:mm or hh:mm:ss)", short([]byte(sample[0])))
 		}
@@ -911,6 +916,9 @@ func (r *Reader) column(s headSpec, i, line int, unitRow bool, sample []string) 
 	switch c.Kind {
 	case Number:
 		if c.Text == "" {
+			if unitRow {
+				return fail(fmt.Sprintf("no unit for the channel in the units row (line %d): write its unit there, or 1 or - for a dimensionless one", r.unitLine), nil, nil)
+			}
 			return fail(fmt.Sprintf("no unit for the channel: write %q for a dimensionless one", c.Name+" [1]"), nil, nil)
 		}
 		if unitErr != nil {
@@ -1443,14 +1451,20 @@ func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, 
 			x, perr := r.number(f)
 			if perr != nil || math.IsInf(x, 0) || math.IsNaN(x) {
 				reason, class := "not a finite number", error(nil)
-				switch {
-				case perr == errDecimalPoint:
-					reason = perr.Error() + ": set Options.Decimal if the file's decimal mark is '.'"
+				all := r.opt.Columns == nil && len(r.active) == len(r.cols)
+				switch text := textCell(f); {
 				case errors.Is(perr, strconv.ErrRange):
 					reason, class = "a number beyond the range of float64", quantity.ErrRange
+				case perr == errDecimalPoint && !text:
+					reason = perr.Error() + ": set Options.Decimal if the file's decimal mark is '.'"
 				case withUnit(string(f)):
 					reason = "a value with a unit in a data row: the unit belongs in the header"
-				case r.opt.Columns == nil && len(r.active) == len(r.cols):
+				case text && len(f) <= 64:
+					reason = fmt.Sprintf("not a finite number but text: if it marks a missing value, set Options.Missing = %s (or list it in Options.MissingValues)", strconv.Quote(string(f)))
+					if all {
+						reason += "; to read only the columns you need, name them in Options.Columns"
+					}
+				case all:
 					reason = "not a finite number (to read only the columns you need, name them in Options.Columns)"
 				}
 				err = &Error{File: r.name, Line: r.line, Column: i + 1, Field: short(f), Reason: reason, class: class}
@@ -1528,6 +1542,26 @@ func nonzero(f []byte) bool {
 // numStart reports whether c can start a number; a missing marker that
 // does not (NA, NaN) is looked up only for fields that do not.
 func numStart(c byte) bool { return c >= '0' && c <= '9' || c == '-' || c == '+' || c == '.' }
+
+// textCell reports whether a field of a number column is text, as a
+// marker of a missing value is ("n.a.", "n/a", "ERR"): it has a letter
+// and is not a number with either decimal mark (1.5e3, inf).
+func textCell(f []byte) bool {
+	if bytes.IndexFunc(f, func(c rune) bool { return c >= 'a' && c <= 'z' || c >= 'A' && c <= 'Z' }) < 0 {
+		return false
+	}
+	if _, err := strconv.ParseFloat(string(f), 64); err == nil || errors.Is(err, strconv.ErrRange) {
+		return false
+	}
+	if i := bytes.IndexByte(f, ','); i >= 0 {
+		g := bytes.Clone(f)
+		g[i] = '.'
+		if _, err := strconv.ParseFloat(string(g), 64); err == nil || errors.Is(err, strconv.ErrRange) {
+			return false
+		}
+	}
+	return true
+}
 
 // withUnit reports whether a field is a number and a unit (12 kn, 160
 // m3/h, 12kn), strict or as a data sheet writes it.

@@ -375,6 +375,9 @@ func FuzzReader(f *testing.F) {
 		"t [s],Flow [furlongs/fortnight],C,V [m/s],V [kn]\n0,1,2,3,4\n",
 		"t;Day;P1;[m/s]\n[s];;psig;\n0;03/04/2026;1;2\n",
 		"t [s],Flow (m3/h)),x\n0,1,a\n",
+		"time;H\n-;m\n04/03/2026 10:00:00;1,5\n",
+		"unix,tag,H\n-,-,\n1700000000,A,1.5\n",
+		"t;H\ns;m\n0;1,5\n1;n.a.\n",
 	} {
 		f.Add(s, uint8(0), true)
 		f.Add(s, uint8(0), false)

@@ -96,6 +96,17 @@ func (s *selected) Read(dst []quantity.Series, rows int) ([]quantity.Series, int
 	return dst, n, nil
 }
 
+// Labels returns the labels of the selected column k for the rows of
+// the last chunk Read returned, as the source's Labels method gives them
+// (nil when the source has none or the column is not a Label column).
+func (s *selected) Labels(k int) []string {
+	l, ok := s.src.(labeler)
+	if !ok || k < 0 || k >= len(s.idx) {
+		return nil
+	}
+	return l.Labels(s.idx[k])
+}
+
 // SeriesSource is a Source over channels held in memory, read chunk by
 // chunk like a file. Read returns views of the Series given (no copy),
 // so the caller must not change them while the source is read.

@@ -18,6 +18,11 @@
 // package units, and the readings are kept on the Column, as in package
 // chanfile.
 //
+// A Reader is a chanfile.Source and a chanfile.Selector: chanfile.ReadAll
+// reads a small file whole (labels included, up to a bound of rows), and
+// package similarity/reduction reduces a file of any length chunk by
+// chunk.
+//
 // # What is read
 //
 // A caller may name the columns it wants (Options.Columns); the others
