@@ -414,3 +414,30 @@ func TestPageFaultInUnusedColumn(t *testing.T) {
 		t.Errorf("NewWriter of the columns read: %v, want ErrInvalid", err)
 	}
 }
+
+// TestColumnKindFilled: Columns fills chanfile.Column.Kind as its doc
+// promises, in step with Reader.Kind — timestamps for TIMESTAMP and
+// INT96, numbers for a time of day (seconds since midnight), a BOOLEAN
+// (0/1) and a DOUBLE.
+func TestColumnKindFilled(t *testing.T) {
+	b := legacyFile(t)
+	r, err := NewReader(bytes.NewReader(b), int64(len(b)), "t.parquet", Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := map[string]string{}
+	for j, c := range r.Columns() {
+		got[c.Name] = c.Kind.String() + " / " + r.Kind(j).String()
+	}
+	want := map[string]string{
+		"valve":    "number / number",
+		"clock_ms": "number / time of day",
+		"clock_us": "number / time of day",
+		"clock_ns": "number / time of day",
+		"ts96":     "timestamp / time",
+		"V":        "number / number",
+	}
+	if d := cmp.Diff(want, got); d != "" {
+		t.Errorf("Column.Kind / Reader.Kind (-want +got):\n%s", d)
+	}
+}

@@ -282,6 +282,7 @@ func NewReader(r io.ReaderAt, size int64, name string, opt Options) (rd *Reader,
 		use[c.leaf] = true
 		optional[c.leaf] = fd.el.RepetitionType.Valid && fd.el.RepetitionType.V == format.Optional
 		boolean[c.leaf] = c.store == kBool
+		col.Kind = chanfileKind(c.store)
 		rd.cols = append(rd.cols, col)
 		rd.rc = append(rd.rc, c)
 	}
@@ -651,6 +652,19 @@ func (r *Reader) Select(idx []int) error {
 // Options.Metadata, or another program's entries. It is nil when there
 // are none; the map is the Reader's, not to be changed.
 func (r *Reader) Metadata() map[string]string { return r.meta }
+
+// chanfileKind is the chanfile.Kind a column of the given store fills in
+// Columns: timestamps for TIMESTAMP, DATE and INT96 columns, labels for
+// strings, numbers otherwise (a time of day is a number of seconds).
+func chanfileKind(s store) chanfile.Kind {
+	switch s {
+	case kTime, kInt96:
+		return chanfile.Timestamp
+	case kLabel:
+		return chanfile.Label
+	}
+	return chanfile.Number
+}
 
 // Kind returns what column j (from 0, in the order of Columns) holds.
 func (r *Reader) Kind(j int) Kind {
