@@ -196,7 +196,7 @@ func NewCalibration(name string, form Form, readingUnit string, comps []Componen
 		}
 		seen[cr.Component] = true
 		if !(cr.Min < cr.Max) || math.IsInf(cr.Min, 0) || math.IsInf(cr.Max, 0) {
-			return nil, &Error{Op: op, Fault: similarity.Invalid(cr.Component.String(), fmt.Sprintf("the calibrated range of %v, %g … %g, must be finite with min < max", cr.Component, cr.Min, cr.Max))}
+			return nil, &Error{Op: op, Fault: similarity.Invalid(cr.Component.String(), fmt.Sprintf("the calibrated range of %v, %s … %s, must be finite with min < max", cr.Component, sig(cr.Min, 6), sig(cr.Max, 6)))}
 		}
 	}
 	nq := n * (n + 1) / 2
@@ -355,8 +355,8 @@ func (c *Calibration) Loads(readings []float64) (Loads, error) {
 	var l Loads
 	for i, cr := range c.comps {
 		if !cr.holds(f[i]) {
-			return Loads{}, &Error{Op: op, Fault: similarity.OutOfRange(cr.Component.String(), fmt.Sprintf("%v = %.6g %s is outside the calibrated range %g … %g: the calibration does not hold there and the balance may be overloaded",
-				cr.Component, f[i], unitOf(cr.Component), cr.Min, cr.Max))}
+			return Loads{}, &Error{Op: op, Fault: similarity.OutOfRange(cr.Component.String(), fmt.Sprintf("%v = %.6g %s is outside the calibrated range %s … %s: the calibration does not hold there and the balance may be overloaded",
+				cr.Component, f[i], unitOf(cr.Component), sig(cr.Min, 6), sig(cr.Max, 6)))}
 
 		}
 		l[cr.Component] = f[i]
@@ -375,7 +375,7 @@ func (c *Calibration) Readings(l Loads) ([]float64, error) {
 	for i, cr := range c.comps {
 		f[i] = l[cr.Component]
 		if !cr.holds(f[i]) {
-			return nil, &Error{Op: op, Fault: similarity.OutOfRange(cr.Component.String(), fmt.Sprintf("%v = %.6g %s is outside the calibrated range %g … %g", cr.Component, f[i], unitOf(cr.Component), cr.Min, cr.Max))}
+			return nil, &Error{Op: op, Fault: similarity.OutOfRange(cr.Component.String(), fmt.Sprintf("%v = %.6g %s is outside the calibrated range %s … %s", cr.Component, f[i], unitOf(cr.Component), sig(cr.Min, 6), sig(cr.Max, 6)))}
 		}
 	}
 	r := make([]float64, n)

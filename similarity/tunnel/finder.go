@@ -143,7 +143,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 		}
 	}
 	if !(lengthRatio > 0) || math.IsInf(lengthRatio, 0) {
-		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("length ratio", fmt.Sprintf("length ratio %v is not positive and finite", lengthRatio))}
+		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("length ratio", fmt.Sprintf("length ratio %.4g is not positive and finite", lengthRatio))}
 	}
 	tlo, thi, plo, phi := lim.MinTemperature.Value(), lim.MaxTemperature.Value(), lim.MinPressure.Value(), lim.MaxPressure.Value()
 	if !(tlo > 0 && thi >= tlo && plo > 0 && phi >= plo) || math.IsInf(thi+phi, 0) {
@@ -155,7 +155,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	}{{"prototype speed", protoSpeed.Value()}, {"prototype length", protoLength.Value()}, {"prototype density", proto.Density.Value()},
 		{"prototype viscosity", proto.DynamicViscosity.Value()}, {"prototype speed of sound", proto.SpeedOfSound.Value()}} {
 		if !(c.v > 0) || math.IsInf(c.v, 0) {
-			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange(c.n, fmt.Sprintf("%s %v is not positive and finite (a fluid state without a speed of sound cannot set a Mach number)", c.n, c.v))}
+			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange(c.n, fmt.Sprintf("%s %.4g is not positive and finite (a fluid state without a speed of sound cannot set a Mach number)", c.n, c.v))}
 		}
 	}
 	if _, err := gas.LowestTemperature(lim.MinPressure); err != nil {
@@ -169,7 +169,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	rep := proto.Density.Value() * protoSpeed.Value() * protoLength.Value() / proto.DynamicViscosity.Value()
 	lm := protoLength.Value() * lengthRatio
 	if !(rep > 0) || math.IsInf(rep, 0) || !(lm > 0) || math.IsInf(lm, 0) {
-		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the full-scale Reynolds number %g and the model length %g m must be positive and finite", rep, lm))}
+		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the full-scale Reynolds number %.4g and the model length %.4g m must be positive and finite", rep, lm))}
 	}
 	tminName, tmaxName := "minimum total temperature", "maximum total temperature"
 	// The gas's own range: the static temperature T₀/tr at or above its
@@ -187,7 +187,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 		thi, tmaxName = gmax, "highest temperature of the "+gas.GasName+" model"
 	}
 	if !(tlo <= thi) {
-		return Condition{}, &fluids.RangeError{Fluid: gas.GasName, Unit: "K", What: fmt.Sprintf("total temperature of the tunnel limits at Mach %.3g (the gas model holds for static temperatures %g … %g K)", ma, gmin, gmax),
+		return Condition{}, &fluids.RangeError{Fluid: gas.GasName, Unit: "K", What: fmt.Sprintf("total temperature of the tunnel limits at Mach %.3g (the gas model holds for static temperatures %.4g … %.4g K)", ma, gmin, gmax),
 			Value: lim.MaxTemperature.Value(), Lo: tlo, Hi: thi}
 	}
 	// mu is Sutherland's law, NaN outside the gas's range (which the
@@ -234,7 +234,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 		}
 		m := mg.Value()
 		if !(m >= 0) || math.IsInf(m, 0) {
-			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the condensation margin %v K must be finite and not negative", m))}
+			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the condensation margin %.4g K must be finite and not negative", m))}
 		}
 		name := "condensation margin"
 		if !given {
@@ -279,7 +279,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	case p0 > phi:
 		p0 = phi
 		c.Binding = append(c.Binding, pmaxName, tminName)
-		c.Note = fmt.Sprintf("the Reynolds number needs a total pressure of %.4g Pa (absolute) even at the lowest allowed total temperature; at the %s it reaches only part of full scale", need0(tlo), pmaxName)
+		c.Note = fmt.Sprintf("the Reynolds number needs a total pressure of %s bar (absolute) even at the lowest allowed total temperature; at the %s it reaches only part of full scale", sig(need0(tlo)/1e5, 3), pmaxName)
 	case p0 < plo:
 		// Warm the gas until the minimum pressure gives the right Re.
 		if need0(thi) < plo {
@@ -309,7 +309,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	c.ReynoldsRatio = c.ModelReynolds / rep
 	c.Q = quantity.New(0.5*gas.Gamma*p*ma*ma, quantity.Pressure)
 	if !tunnelFinite(T0, p0, c.Velocity.Value(), c.ModelReynolds, c.ReynoldsRatio, c.Q.Value()) {
-		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the condition is not finite (T₀ = %g K, p₀ = %g Pa absolute, Re_m = %g): the inputs are outside any tunnel's range", T0, p0, c.ModelReynolds))}
+		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the condition is not finite (T₀ = %.4g K, p₀ = %.4g Pa absolute, Re_m = %.4g): the inputs are outside any tunnel's range", T0, p0, c.ModelReynolds))}
 	}
 	c.Achieved = math.Abs(c.ReynoldsRatio-1) < 1e-6
 	if c.Achieved {
