@@ -123,8 +123,9 @@ number -mach, chord -chord) and a model -scale times smaller it prints:
 
 Exit status 2 for a bad flag, an -out that is not a writable directory,
 or an -amin … -amax range that holds fewer than 3 of the run's corrected
-angles (the message names the bounds that would do); 1 when the plan
-cannot be made.
+angles (the message names the bounds that would do) or lies past the
+stall (its fitted lift slope is not positive; the message names a linear
+range found from the run's points); 1 when the plan cannot be made.
 
 Flags:
 `

@@ -11,6 +11,7 @@ import (
 
 	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/similarity/tunnel"
 )
 
 // outDir returns the arguments with -out set to a fresh temporary
@@ -433,5 +434,30 @@ func TestSmallModelFigures(t *testing.T) {
 	}
 	if strings.Contains(safety(t, s), " Pa ") || strings.Contains(s, "0.00 kN") || strings.Contains(s, "applied: tunnel: ") {
 		t.Errorf("a pressure in Pa in SAFETY, a load printed as 0.00 kN or a package prefix in the report")
+	}
+}
+
+// TestMachAboveWallRange: at -mach 0.95 both wall corrections are
+// refused for the Mach number (above 0.8), the 3-D one too, although
+// the lift slope it would take, the run's 0.0803/° raised by
+// √(1 − 0.2²)/√(1 − 0.95²) = 0.97980/0.31225, is 0.252/°, above the
+// 0.2/° the curvature correction takes (by hand): the Mach number is the
+// reason, not the slope.
+func TestMachAboveWallRange(t *testing.T) {
+	var out bytes.Buffer
+	r, err := evaluate(&out, outDir(t, "-mach", "0.95"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if a := 0.0803 * math.Sqrt(1-0.04) / math.Sqrt(1-0.95*0.95); math.Abs(r.ModelSlope-a) > 5e-4 || !(a > 0.2) {
+		t.Errorf("model slope %v, by hand %v", r.ModelSlope, a)
+	}
+	const want = "  not applied: 3-D wall correction: test-section Mach number 0.95 outside 0 … 0.8: "
+	if !strings.Contains(out.String(), want) || strings.Contains(out.String(), "lift slope 0.25") {
+		t.Errorf("output lacks %q:\n%s", want, out.String())
+	}
+	var te *tunnel.Error
+	if !errors.As(r.ModelErr, &te) || te.Input != "test-section Mach number" {
+		t.Errorf("ModelErr = %v", r.ModelErr)
 	}
 }
