@@ -129,7 +129,7 @@ func reduceRun(w io.Writer, dir string, alo, ahi, width, height, dpi float64) (*
 	for _, c := range comps {
 		measured = append(measured, c.Component)
 	}
-	fmt.Fprintln(w, "\nBalance reduction of a polar run on the 1:12 model (the readings, the balance and its calibration are invented):")
+	fmt.Fprintln(w, "\nBalance reduction of a polar run on the 1:12 model of the 2.4 m-chord design, whatever -chord and -scale say (the readings, the balance and its calibration are invented):")
 	fmt.Fprintf(w, "  balance: %v\n", cal)
 	fmt.Fprintln(w, "  the calibration gives readings from loads with first- and second-order terms; the loads are recovered by iteration")
 	fmt.Fprintln(w, "  body axes: x forward, y to starboard, z down; NF positive up, AF positive aft, PM positive nose up; readings from the unloaded zero")

@@ -46,17 +46,21 @@ func main() { cli.Main("tunnel", run) }
 
 // Result collects the key numbers, for the test.
 type Result struct {
-	Flight                 fluids.State
-	Speed, Chord           float64
-	ReFlight, ReOrdinary   float64
-	OrdinarySpeed          float64
-	Ordinary               fluids.State // the ordinary tunnel's static test-section state
-	Pressurised, Cryogenic tunnel.Condition
-	Compromise             *similarity.Compromise
-	Loads                  []Load
-	Margin                 q.Quantity // the cryogenic test section's margin to nitrogen condensation
-	Section                tunnel.Corrected2D
-	Model                  tunnel.Corrected3D
+	Flight       fluids.State
+	Speed, Chord float64
+	// WingArea (m²) and Span (m) are the full-scale aircraft's, sized by
+	// the chord at the fixed aspect ratio; ModelArea (m²) is the
+	// model's wing area at the scale.
+	WingArea, Span, ModelArea float64
+	ReFlight, ReOrdinary      float64
+	OrdinarySpeed             float64
+	Ordinary                  fluids.State // the ordinary tunnel's static test-section state
+	Pressurised, Cryogenic    tunnel.Condition
+	Compromise                *similarity.Compromise
+	Loads                     []Load
+	Margin                    q.Quantity // the cryogenic test section's margin to nitrogen condensation
+	Section                   tunnel.Corrected2D
+	Model                     tunnel.Corrected3D
 	// ModelSlope is the lift slope, per degree, of the complete model's
 	// curvature correction: the run's fitted slope at the test Mach number.
 	ModelSlope float64
@@ -73,10 +77,15 @@ type Load struct {
 	Q, Lift float64 // Pa, N
 }
 
-// Invented model data: the aircraft's wing area, the cruise lift
-// coefficient and the balance's rated normal force.
+// Invented model data: the aircraft's wing area and span at its design
+// mean chord, the cruise lift coefficient and the balance's rated normal
+// force. -chord sizes the whole aircraft: the wing area scales with the
+// square of the chord and the span with the chord, so the aspect ratio
+// b²/S stays 18.6²/38 = 9.10.
 const (
-	wingArea     = 38.0   // m², full scale
+	designChord  = 2.4    // m, the mean aerodynamic chord of the design
+	wingArea     = 38.0   // m², full scale at designChord
+	wingSpan     = 18.6   // m, full scale at designChord
 	cruiseCL     = 0.6    // lift coefficient C_L = L/(q·S)
 	balanceLimit = 4000.0 // N
 )
@@ -86,7 +95,13 @@ const about = `Usage: tunnel [flags]
 tunnel plans wind-tunnel tests of an invented high-altitude survey aircraft.
 
 For the cruise condition (ISO 2533 atmosphere at the altitude -alt, Mach
-number -mach, chord -chord) and a model -scale times smaller it prints:
+number -mach, mean aerodynamic chord -chord) and a model -scale times
+smaller it prints the following. -chord sizes the whole aircraft: its wing
+area and span scale with the chord at the fixed aspect ratio b²/S = 9.10
+(38 m² and 18.6 m at the design's 2.4 m), the model's volume with its
+cube; the invented polar run below stays on the 1:12 model of the 2.4 m
+design whatever -chord and -scale say (its lift slope, a property of the
+shape, carries over).
   - the flight state and full-scale Reynolds number Re = ρVc/μ;
   - an ordinary tunnel at atmospheric intake with the Mach number held:
     its static test-section state and the model Reynolds number it reaches;
@@ -136,7 +151,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	fs := cli.NewFlagSet("tunnel", about)
 	alt := cli.FloatVar(fs, "alt", 18000, 0, 32000, "m", "cruise altitude, geometric")
 	mach := cli.FloatVar(fs, "mach", 0.62, 0.1, 0.95, "", "cruise Mach number (wall corrections are refused above 0.8)")
-	chord := cli.FloatVar(fs, "chord", 2.4, 0.1, 20, "m", "mean aerodynamic chord")
+	chord := cli.FloatVar(fs, "chord", 2.4, 0.1, 20, "m", "mean aerodynamic chord; sizes the aircraft (wing area ∝ c², span ∝ c, aspect ratio fixed)")
 	scale := cli.FloatVar(fs, "scale", 12, 2, 200, "", "aircraft size over model size")
 	alo := cli.FloatVar(fs, "amin", -5, -30, 30, "°", "lowest corrected α of the polar's linear range")
 	ahi := cli.FloatVar(fs, "amax", 11, -30, 30, "°", "highest corrected α of the polar's linear range")
@@ -174,7 +189,11 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	fmt.Fprintln(w, "Wind-tunnel plan for an invented high-altitude survey aircraft")
 	fmt.Fprintf(w, "cruise: %.0f m (geopotential %.0f m), ISO 2533: T = %.2f K, p = %.0f Pa, ρ = %.5f kg/m³, a = %.2f m/s\n",
 		*alt, gp.Value(), flight.Temperature.Value(), flight.Pressure.Value(), flight.Density.Value(), flight.SpeedOfSound.Value())
-	fmt.Fprintf(w, "Ma = %.2f, V = %.1f m/s, chord %.2f m: Re = %.3e\n\n", *mach, r.Speed, *chord, r.ReFlight)
+	size := *chord / designChord // the aircraft's size against the design's
+	r.WingArea, r.Span = wingArea*size*size, wingSpan*size
+	fmt.Fprintf(w, "Ma = %.2f, V = %.1f m/s, chord %.2f m: Re = %.3e\n", *mach, r.Speed, *chord, r.ReFlight)
+	fmt.Fprintf(w, "aircraft sized by the chord at a fixed aspect ratio b²/S = %.2f: wing area S = %s m², span b = %s m (design: 38 m², 18.6 m at c = 2.4 m)\n\n",
+		r.Span*r.Span/r.WingArea, cli.Sig(r.WingArea, 4), cli.Sig(r.Span, 4))
 
 	// The plan: V, a, c, ρ, μ with the Mach number first, the Reynolds
 	// number second; an ordinary tunnel at sea-level air fixes a, ρ, μ.
@@ -234,7 +253,8 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	L := q.New(*chord, q.Length)
 	// The model's load path: the balance's rated normal force against
 	// C_L·S_m·q at each found condition.
-	area := wingArea / (*scale * *scale)
+	area := r.WingArea / (*scale * *scale)
+	r.ModelArea = area
 	rated, loadArea := q.New(balanceLimit, q.Force), q.New(cruiseCL*area, q.Area)
 	pressurised := tunnel.Limits{MinTemperature: q.New(280, q.Temperature), MaxTemperature: q.New(320, q.Temperature),
 		MinPressure: q.New(2e4, q.Pressure), MaxPressure: q.New(4e5, q.Pressure), RatedLoad: rated, LoadArea: loadArea}
@@ -252,7 +272,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		name string
 		gas  fluids.IdealGas
 		c    tunnel.Condition
-	}{{"pressurised tunnel (total 280–320 K, ≤ 4 bar absolute)", air, r.Pressurised}, {"cryogenic tunnel (total ≥ 110 K, 1–4.5 bar absolute)", n2, r.Cryogenic}}
+	}{{"pressurised tunnel (" + limitsText(pressurised) + ")", air, r.Pressurised}, {"cryogenic tunnel (" + limitsText(cryo) + ")", n2, r.Cryogenic}}
 	for _, t := range tunnels {
 		fmt.Fprintf(w, "  %s, gas: %s (ideal gas, R = %.2f J/(kg·K), γ = %.1f, Sutherland viscosity):\n", t.name, t.c.Gas, t.gas.R.Value(), t.gas.Gamma)
 		fmt.Fprintf(w, "    total T₀ = %.1f K, p₀ = %.3f bar (absolute); static T = %.1f K, p = %.3f bar (absolute); V = %.1f m/s; Re_m/Re = %.3f — %s (set by: %s)\n",
@@ -269,8 +289,8 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 
 	// Loads on the model: q = (γ/2)·p·Ma² at each test section's static
 	// pressure, times C_L and the model's wing area.
-	fmt.Fprintf(w, "\nModel loads at C_L = %.1f (wing %.0f m² full scale, %s m² model; balance rated normal force %s N, invented):\n",
-		cruiseCL, wingArea, cli.Sig(area, 4), cli.Sig(balanceLimit, 4))
+	fmt.Fprintf(w, "\nModel loads at C_L = %.1f (wing %s m² full scale, %s m² model; balance rated normal force %s N, invented):\n",
+		cruiseCL, cli.Sig(r.WingArea, 4), cli.Sig(area, 4), cli.Sig(balanceLimit, 4))
 	r.Loads = nil
 	for _, t := range []struct {
 		name string
@@ -298,8 +318,8 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		fmt.Fprintf(w, "  not applied: %s\n", libText(r.SectionErr))
 	} else {
 		cs := r.Section
-		fmt.Fprintf(w, "  σ = %.5f, β = √(1 − Ma²) = %.4f; ε_sb = Λσ/β³ = %.5f (Λ = %.2f), ε_wb = %.5f (×(1 + 0.4Ma²)/β²)\n",
-			cs.Sigma, cs.Beta, cs.SolidBlock, sec.ShapeFactor, cs.WakeBlock)
+		fmt.Fprintf(w, "  σ = %s, β = √(1 − Ma²) = %.4f; ε_sb = Λσ/β³ = %s (Λ = %.2f), ε_wb = %s (×(1 + 0.4Ma²)/β²)\n",
+			cli.Sig(cs.Sigma, 4), cs.Beta, cli.Sig(cs.SolidBlock, 3), sec.ShapeFactor, cli.Sig(cs.WakeBlock, 3))
 		fmt.Fprintf(w, "  q = %.4f·q_u (1 + (2 − Ma²)ε), V = %.4f·V_u, Ma = %.4f·Ma_u, Re = %.4f·Re_u\n",
 			cs.DynamicPressureFactor, cs.VelocityFactor, cs.MachFactor, cs.ReynoldsFactor)
 		fmt.Fprintf(w, "  α %.2f° → %.3f°, C_l %.4f → %.4f, C_d %.5f → %.5f, C_m¼ %.4f → %.4f\n",
@@ -314,8 +334,9 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	// Ma 0.20) raised by the Prandtl–Glauert factor β(0.20)/β(Ma).
 	bRun, bTest := math.Sqrt(1-runMach*runMach), math.Sqrt(1-*mach**mach)
 	r.ModelSlope = r.Run.Polar.LiftSlopePerDeg.Value * bRun / bTest
-	span := modelSpan * 12 / *scale
-	vol := 0.010 * (12 / *scale) * (12 / *scale) * (12 / *scale)
+	span := r.Span / *scale
+	k := 12 * size / *scale // against the run's 1:12 model of the design
+	vol := 0.010 * k * k * k
 	m3 := tunnel.Model3D{WingArea: q.New(area, q.Area), TunnelArea: q.New(3.0, q.Area), ModelVolume: q.New(vol, q.Volume),
 		ShapeFactor: 0.86, Delta: 0.12, AlphaDeg: 3.0, CL: cruiseCL, CD: 0.035, CM: -0.030,
 		CurvatureFactor: 0.12, LiftSlopePerDeg: r.ModelSlope, TailCurvatureFactor: 0.55, TailMomentSlopePerDeg: -0.025, Mach: *mach}
@@ -327,13 +348,13 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		fmt.Fprintf(w, "  not applied: %s\n", libText(r.ModelErr))
 	} else {
 		c3 := r.Model
-		fmt.Fprintf(w, "  ε_sb = %.5f, ε_wb = %.5f (β = %.4f); q = %.4f·q_u; α %.2f° → %.3f°, C_L %.4f → %.4f, C_D %.5f → %.5f (ΔC_D,i = %.5f)\n",
-			c3.SolidBlock, c3.WakeBlock, c3.Beta, c3.DynamicPressureFactor, m3.AlphaDeg, c3.AlphaDeg, m3.CL, c3.CL, m3.CD, c3.CD, c3.DeltaCD)
+		fmt.Fprintf(w, "  ε_sb = %s, ε_wb = %s (β = %.4f); q = %.4f·q_u; α %.2f° → %.3f°, C_L %.4f → %.4f, C_D %.5f → %.5f (ΔC_D,i = %s)\n",
+			cli.Sig(c3.SolidBlock, 3), cli.Sig(c3.WakeBlock, 3), c3.Beta, c3.DynamicPressureFactor, m3.AlphaDeg, c3.AlphaDeg, m3.CL, c3.CL, m3.CD, c3.CD, cli.Sig(c3.DeltaCD, 3))
 		fmt.Fprintf(w, "  of which streamline curvature (τ₂ = %.2f, a = %.4f/°: the run's fitted %.4f/° at Ma %.2f × β(%.2f)/β(%.2f), Prandtl–Glauert, an estimate):\n",
 			m3.CurvatureFactor, m3.LiftSlopePerDeg, r.Run.Polar.LiftSlopePerDeg.Value, runMach, runMach, *mach)
-		fmt.Fprintf(w, "    Δα_sc = %.4f°, ΔC_L = %.5f, ΔC_m¼ = %.5f;\n", c3.DeltaAlphaCurvatureDeg, c3.DeltaCLCurvature, c3.DeltaCMCurvature)
-		fmt.Fprintf(w, "  tail (τ₂,t = %.2f, ∂C_m/∂α_t = %.3f/°): %.4f° more angle than free air, ΔC_m = %.5f; C_m¼ %.4f → %.4f\n",
-			m3.TailCurvatureFactor, m3.TailMomentSlopePerDeg, c3.TailAngleDeg, c3.DeltaCMTail, m3.CM, c3.CM)
+		fmt.Fprintf(w, "    Δα_sc = %s°, ΔC_L = %s, ΔC_m¼ = %s;\n", cli.Sig(c3.DeltaAlphaCurvatureDeg, 3), cli.Sig(c3.DeltaCLCurvature, 3), cli.Sig(c3.DeltaCMCurvature, 3))
+		fmt.Fprintf(w, "  tail (τ₂,t = %.2f, ∂C_m/∂α_t = %.3f/°): %s° more angle than free air, ΔC_m = %s; C_m¼ %.4f → %.4f\n",
+			m3.TailCurvatureFactor, m3.TailMomentSlopePerDeg, cli.Sig(c3.TailAngleDeg, 3), cli.Sig(c3.DeltaCMTail, 3), m3.CM, c3.CM)
 	}
 	fmt.Fprint(w, runText.String())
 	fmt.Fprintln(w, "\nSAFETY (each tunnel's cautions; the facility's safety rules and its responsible engineer govern every run):")
@@ -374,6 +395,13 @@ func libText(err error) string {
 		return te.Op + ": " + te.Message()
 	}
 	return err.Error()
+}
+
+// limitsText states a tunnel's limits as the finder uses them: total
+// temperature and total pressure (absolute), minimum to maximum.
+func limitsText(l tunnel.Limits) string {
+	return fmt.Sprintf("total %.4g–%.4g K, %.4g–%.4g bar absolute", l.MinTemperature.Value(), l.MaxTemperature.Value(),
+		l.MinPressure.Value()/1e5, l.MaxPressure.Value()/1e5)
 }
 
 // firstWords returns the start of a caution already printed in full.
