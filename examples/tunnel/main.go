@@ -32,6 +32,7 @@ import (
 	"math"
 	"os"
 	"slices"
+	"strconv"
 	"strings"
 
 	"similis.dev/similis/examples/internal/cli"
@@ -96,12 +97,7 @@ tunnel plans wind-tunnel tests of an invented high-altitude survey aircraft.
 
 For the cruise condition (ISO 2533 atmosphere at the altitude -alt, Mach
 number -mach, mean aerodynamic chord -chord) and a model -scale times
-smaller it prints the following. -chord sizes the whole aircraft: its wing
-area and span scale with the chord at the fixed aspect ratio b²/S = 9.10
-(38 m² and 18.6 m at the design's 2.4 m), the model's volume with its
-cube; the invented polar run below stays on the 1:12 model of the 2.4 m
-design whatever -chord and -scale say (its lift slope, a property of the
-shape, carries over).
+smaller it prints:
   - the flight state and full-scale Reynolds number Re = ρVc/μ;
   - an ordinary tunnel at atmospheric intake with the Mach number held:
     its static test-section state and the model Reynolds number it reaches;
@@ -109,6 +105,8 @@ shape, carries over).
     cryogenic nitrogen tunnel need to hold both Mach and Reynolds numbers
     (limits are total conditions; static = total by the isentropic
     relations), Re_m/Re (1 when both hold), and the gas each is computed for;
+    each tunnel's header gives the limits of total temperature and total
+    pressure (absolute) the search keeps to;
   - the nitrogen test section's margin above condensation (kelvin);
   - the model's dynamic pressure q = (γ/2)·p·Ma² (kPa) and lift C_L·q·S_m
     (N) in each tunnel against the balance's rated load;
@@ -135,6 +133,12 @@ shape, carries over).
     (an OVERLOAD line says what would lower it). The aircraft, tunnels, balance and
     readings are invented; the facility's safety rules, the balance's rated
     loads and the responsible engineer govern any real run.
+
+-chord sizes the whole aircraft: its wing area and span scale with the
+chord at the fixed aspect ratio b²/S = 9.10 (38 m² and 18.6 m at the
+design's 2.4 m), the model's volume with its cube. The invented polar run
+stays on the 1:12 model of the 2.4 m design whatever -chord and -scale
+say (its lift slope, a property of the shape, carries over).
 
 Exit status 2 for a bad flag, an -out that is not a writable directory,
 or an -amin … -amax range that holds fewer than 3 of the run's corrected
@@ -319,7 +323,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	} else {
 		cs := r.Section
 		fmt.Fprintf(w, "  σ = %s, β = √(1 − Ma²) = %.4f; ε_sb = Λσ/β³ = %s (Λ = %.2f), ε_wb = %s (×(1 + 0.4Ma²)/β²)\n",
-			cli.Sig(cs.Sigma, 4), cs.Beta, cli.Sig(cs.SolidBlock, 3), sec.ShapeFactor, cli.Sig(cs.WakeBlock, 3))
+			cli.Sig(cs.Sigma, 4), cs.Beta, fig(cs.SolidBlock), sec.ShapeFactor, fig(cs.WakeBlock))
 		fmt.Fprintf(w, "  q = %.4f·q_u (1 + (2 − Ma²)ε), V = %.4f·V_u, Ma = %.4f·Ma_u, Re = %.4f·Re_u\n",
 			cs.DynamicPressureFactor, cs.VelocityFactor, cs.MachFactor, cs.ReynoldsFactor)
 		fmt.Fprintf(w, "  α %.2f° → %.3f°, C_l %.4f → %.4f, C_d %.5f → %.5f, C_m¼ %.4f → %.4f\n",
@@ -349,12 +353,12 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	} else {
 		c3 := r.Model
 		fmt.Fprintf(w, "  ε_sb = %s, ε_wb = %s (β = %.4f); q = %.4f·q_u; α %.2f° → %.3f°, C_L %.4f → %.4f, C_D %.5f → %.5f (ΔC_D,i = %s)\n",
-			cli.Sig(c3.SolidBlock, 3), cli.Sig(c3.WakeBlock, 3), c3.Beta, c3.DynamicPressureFactor, m3.AlphaDeg, c3.AlphaDeg, m3.CL, c3.CL, m3.CD, c3.CD, cli.Sig(c3.DeltaCD, 3))
+			fig(c3.SolidBlock), fig(c3.WakeBlock), c3.Beta, c3.DynamicPressureFactor, m3.AlphaDeg, c3.AlphaDeg, m3.CL, c3.CL, m3.CD, c3.CD, fig(c3.DeltaCD))
 		fmt.Fprintf(w, "  of which streamline curvature (τ₂ = %.2f, a = %.4f/°: the run's fitted %.4f/° at Ma %.2f × β(%.2f)/β(%.2f), Prandtl–Glauert, an estimate):\n",
 			m3.CurvatureFactor, m3.LiftSlopePerDeg, r.Run.Polar.LiftSlopePerDeg.Value, runMach, runMach, *mach)
-		fmt.Fprintf(w, "    Δα_sc = %s°, ΔC_L = %s, ΔC_m¼ = %s;\n", cli.Sig(c3.DeltaAlphaCurvatureDeg, 3), cli.Sig(c3.DeltaCLCurvature, 3), cli.Sig(c3.DeltaCMCurvature, 3))
+		fmt.Fprintf(w, "    Δα_sc = %s°, ΔC_L = %s, ΔC_m¼ = %s;\n", fig(c3.DeltaAlphaCurvatureDeg), fig(c3.DeltaCLCurvature), fig(c3.DeltaCMCurvature))
 		fmt.Fprintf(w, "  tail (τ₂,t = %.2f, ∂C_m/∂α_t = %.3f/°): %s° more angle than free air, ΔC_m = %s; C_m¼ %.4f → %.4f\n",
-			m3.TailCurvatureFactor, m3.TailMomentSlopePerDeg, cli.Sig(c3.TailAngleDeg, 3), cli.Sig(c3.DeltaCMTail, 3), m3.CM, c3.CM)
+			m3.TailCurvatureFactor, m3.TailMomentSlopePerDeg, fig(c3.TailAngleDeg), fig(c3.DeltaCMTail), m3.CM, c3.CM)
 	}
 	fmt.Fprint(w, runText.String())
 	fmt.Fprintln(w, "\nSAFETY (each tunnel's cautions; the facility's safety rules and its responsible engineer govern every run):")
@@ -395,6 +399,16 @@ func libText(err error) string {
 		return te.Op + ": " + te.Message()
 	}
 	return err.Error()
+}
+
+// fig formats a small correction to 3 significant figures, below 0.001
+// in powers of ten (7.40e-07), so that none rounds to nothing and the
+// figures of one line read alike.
+func fig(x float64) string {
+	if x != 0 && math.Abs(x) < 1e-3 {
+		return strconv.FormatFloat(x, 'e', 2, 64)
+	}
+	return cli.Sig(x, 3)
 }
 
 // limitsText states a tunnel's limits as the finder uses them: total
