@@ -271,6 +271,14 @@ func evaluateReport(w io.Writer, args []string) (Report, error) {
 			fmt.Fprintln(w, "  and its efficiency the test's (Moody's efficiency formula depends on size only);")
 		}
 		fmt.Fprintln(w, "  the prototype's curve, specific speed and NPSH3 come from the test and are those the tested model gives")
+		switch {
+		case *dp < testDiaIn:
+			fmt.Fprintf(w, "  NOTE: the prototype (%g in) is smaller than the tested model: its efficiency is the test's stepped down,\n"+
+				"  outside what the step-up formulas rest on (a larger machine at a higher Reynolds number)\n", *dp)
+		case *np**dp**dp < testRPM*testDiaIn*testDiaIn:
+			fmt.Fprintf(w, "  NOTE: the prototype (%g in at %g rpm) runs at a lower n·D² than the tested model, so at a lower Reynolds number:\n"+
+				"  Moody's efficiency formula, by diameter alone, still steps it up, outside what the step-ups rest on\n", *dp, *np)
+		}
 	} else {
 		fmt.Fprintf(w, "the invented test was taken on this model (%g in at %g rpm); another -dm or -nm carries it by the affinity laws\n", testDiaIn, testRPM)
 	}

@@ -54,6 +54,7 @@ func TestModelFlagsCarryTheTest(t *testing.T) {
 		" 0.09143  0.01541 ", "45.7% |",
 		"the invented test was taken on a 10 in impeller at 1750 rpm (the tested model); the model here, 2 in at 100 rpm, was not tested",
 		"specific speed N_s = 1614 (rpm, gpm, ft)",
+		"NOTE: the prototype (2 in) is smaller than the tested model: its efficiency is the test's stepped down",
 	} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("report lacks %q", want)
