@@ -13,7 +13,7 @@ import (
 // model × x. At 1:2 by hand: prototype crest radius 0.03·2 = 0.06 m,
 // crest length 0.76·2 = 1.52 m, design discharge 0.091287·2^2.5 =
 // 0.51640 m³/s; the model's design head is the default's, (Q/C)^(1/n) =
-// 0.1401 m. It checked a 0.9/2 = 0.45 m model radius beside the 0.76 m
+// 0.1401 m; the prototype's rating table reads in significant figures. It checked a 0.9/2 = 0.45 m model radius beside the 0.76 m
 // crest and the rating measured on the 1:30 model.
 func TestModelFixedAcrossScales(t *testing.T) {
 	var def, two bytes.Buffer
@@ -38,12 +38,20 @@ func TestModelFixedAcrossScales(t *testing.T) {
 	if qp := qm * math.Pow(2, 2.5); math.Abs(qp-0.51640) > 5e-6 {
 		t.Fatalf("hand prototype discharge %v", qp)
 	}
+	// The rating table of the small prototype keeps four figures: at
+	// h_p = 0.150 m, Q_p = 1.9641·(0.150/2)^1.5612·2^2.5 = 0.1947 m³/s
+	// (the model rating's printed C and n); it printed "0.2 … 0.2".
+	if qp := 1.9641 * math.Pow(0.075, 1.5612) * math.Pow(2, 2.5); math.Abs(qp-0.1947) > 1e-4 {
+		t.Fatalf("hand Q_p %v", qp)
+	}
 	for _, want := range []string{
 		"the model is fixed (crest radius 0.03 m, crest length 0.76 m, its measured rating below); the prototype is the model × 2",
 		"design discharge 0.5164 m³/s → model 91.29 L/s",
 		"crest: model radius 0.03 m, the prototype's 0.0600 m at 1:2",
 		"crest radius R = 0.0300 m",
 		"crest length b_m = 0.76 m (prototype 1.52 m)",
+		"range of validity: model heads 0.075 … 0.180 m, prototype 0.150 … 0.360 m",
+		"     0.150     0.1947      0.1924 … 0.1971 ",
 	} {
 		if !strings.Contains(two.String(), want) {
 			t.Errorf("-scale 2 report lacks %q", want)
