@@ -67,7 +67,7 @@ func TestByHand(t *testing.T) {
 	q0 := 200 * n * d * d * d * 6.30901964e-5
 	h0 := 118 * n * n * d * d * 0.3048
 	p0 := 995.65 * 9.80665 * q0 * h0 / (0.52 + gain) // 197.9 kW
-	if math.Abs(rows[0].ProtoP.Value()/p0-1) > 1e-5 || !strings.Contains(out.String(), "94.19    197.9\n") ||
+	if math.Abs(rows[0].ProtoP.Value()/p0-1) > 1e-5 || !strings.Contains(out.String(), "94.19     197.9\n") ||
 		!strings.Contains(out.String(), "prototype ρ = 995.65 kg/m³ (30 °C)") {
 		t.Errorf("first point P_p = %v W, by hand %.1f kW at 995.65 kg/m³", rows[0].ProtoP, p0/1e3)
 	}
