@@ -473,13 +473,13 @@ func TestChokedRunsMarked(t *testing.T) {
 	}
 }
 
-// TestOutRefusedFirst: an -out that is not a directory is a usage error
+// TestOutRefusedFirst: an -out that does not exist is a usage error
 // naming -out, before the report is printed.
 func TestOutRefusedFirst(t *testing.T) {
 	var out bytes.Buffer
 	err := run(&out, []string{"-out", "/nonexistent/dir"})
 	var ce *cli.Error
-	if !errors.As(err, &ce) || !strings.Contains(err.Error(), `-out "/nonexistent/dir": not a directory`) || out.Len() != 0 {
+	if !errors.As(err, &ce) || !strings.Contains(err.Error(), `-out "/nonexistent/dir": the directory does not exist; create it or pass another`) || out.Len() != 0 {
 		t.Errorf("got %v after printing %d bytes", err, out.Len())
 	}
 }
