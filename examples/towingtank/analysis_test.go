@@ -45,7 +45,7 @@ func TestOpenWaterByHand(t *testing.T) {
 	}
 	for _, want := range []string{
 		"   0.380    38.13    0.4515 |  0.100  0.3719  0.5219  0.114  2.06e+05",
-		"faired K_T = (+0.40041 ± 0.00100)·J^0",
+		"faired K_T = 0.40041(±0.00100) − 0.28161(±0.00416)·J − 0.09872(±0.00368)·J²;",
 		"order 2 chosen by next term not significant at 5 %",
 		"above the usual minimum 2e+05",
 		"towingtank-openwater.png",
@@ -143,5 +143,37 @@ func TestSpeedPowerBand(t *testing.T) {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("output lacks %q", want)
 		}
+	}
+}
+
+// TestFairedPolynomialReads: the faired curves print as sums with their
+// operators (no J^0, no juxtaposed terms), and each S has two
+// significant figures, trailing zero kept (0.0010 beside 0.00085).
+func TestFairedPolynomialReads(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, []string{"-plot=false"}); err != nil {
+		t.Fatal(err)
+	}
+	s := out.String()
+	for _, want := range []string{
+		"faired K_T = 0.40041(±0.00100) − 0.28161(±0.00416)·J − 0.09872(±0.00368)·J²; order 2",
+		"faired 10K_Q = 0.54893(±0.00117) − 0.24601(±0.00489)·J − 0.12292(±0.00433)·J²; order 2",
+		"S = 0.00085, 10 runs", "S = 0.0010, 10 runs",
+		"η_R faired against V_M: order 0 (order 0 chosen by next term not significant at 5 % among orders 0 … 2), S = 0.0010\n",
+		"residual standard deviation S = 0.0010; an outlier",
+	} {
+		if !strings.Contains(s, want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+	for _, not := range []string{"J^", ")·J^0", "S = 0.001,", "S = 0.001\n", "S = 0.001;"} {
+		if strings.Contains(s, not) {
+			t.Errorf("output has %q", not)
+		}
+	}
+	// A negative constant and higher powers: −1 + 2J − 3J³ + 0.5J⁴ (×10).
+	got := polyText([]float64{-0.1, 0.2, 0, -0.3, 0.05}, []float64{0.01, 0.02, 0.03, 0.04, 0.005}, 10)
+	if want := "−1.00000(±0.10000) + 2.00000(±0.20000)·J + 0.00000(±0.30000)·J² − 3.00000(±0.40000)·J³ + 0.50000(±0.05000)·J⁴"; got != want {
+		t.Errorf("polyText = %q, want %q", got, want)
 	}
 }

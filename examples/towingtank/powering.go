@@ -230,12 +230,8 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 		if err != nil {
 			return nil, err
 		}
-		var terms []string
-		for i := range a {
-			terms = append(terms, fmt.Sprintf("(%+.5f ± %.5f)·J^%d", c.k*a[i], c.k*se[i], i))
-		}
-		fmt.Fprintf(w, "faired %s = %s; order %d (%s), S = %.2g, %d runs (± standard errors)\n", c.name, strings.Join(terms, " "), c.f.Order,
-			strings.Join(c.f.Notes, "; "), c.k*c.f.S, c.f.N)
+		fmt.Fprintf(w, "faired %s = %s; order %d (%s), S = %s, %d runs (± standard errors)\n", c.name, polyText(a, se, c.k), c.f.Order,
+			strings.Join(c.f.Notes, "; "), cli.Sig(c.k*c.f.S, 2), c.f.N)
 	}
 	jop := 0.6
 	kt06, _ := ow.KT.Predict(jop)
@@ -257,8 +253,8 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 		return nil, err
 	}
 	rf := out.Resistance
-	fmt.Fprintf(w, "\nResistance test faired: C_TM against V_M by a polynomial of order %d (%s), S = %.2g×10⁻³ on C_TM\n",
-		rf.CT.Order, strings.Join(rf.CT.Notes, "; "), 1e3*rf.CT.S)
+	fmt.Fprintf(w, "\nResistance test faired: C_TM against V_M by a polynomial of order %d (%s), S = %s×10⁻³ on C_TM\n",
+		rf.CT.Order, strings.Join(rf.CT.Notes, "; "), cli.Sig(1e3*rf.CT.S, 2))
 	if rf.Warning != "" {
 		fmt.Fprintf(w, "WARNING (resistance): %s\n", rf.Warning)
 	}
@@ -311,7 +307,7 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 		name string
 		f    *fit.Poly
 	}{{"w_TM", sp.Wake}, {"t", sp.Thrust}, {"η_R", sp.EtaR}} {
-		fmt.Fprintf(w, "%s faired against V_M: order %d (%s), S = %.2g\n", c.name, c.f.Order, strings.Join(c.f.Notes, "; "), c.f.S)
+		fmt.Fprintf(w, "%s faired against V_M: order %d (%s), S = %s\n", c.name, c.f.Order, strings.Join(c.f.Notes, "; "), cli.Sig(c.f.S, 2))
 	}
 
 	// 4. Speed–power curve.
@@ -349,6 +345,46 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	}
 	fmt.Fprintf(w, "plots: %s, %s, %s, %s (%g × %g in, PNG at %d dpi)\n", out.PNG, out.SVG, out.OWPNG, out.OWSVG, size.W, size.H, size.DPI)
 	return out, nil
+}
+
+// polyText writes the polynomial with coefficients k·a[i] and standard
+// errors k·se[i] as a sum the way it is read: the constant first, each
+// term with its sign as the operator, J and its powers as superscripts,
+// every standard error in parentheses after its coefficient, all to five
+// decimals: 0.40041(±0.00100) − 0.28161(±0.00416)·J − 0.09872(±0.00368)·J².
+func polyText(a, se []float64, k float64) string {
+	var sb strings.Builder
+	for i := range a {
+		c := k * a[i]
+		switch {
+		case i == 0 && c < 0:
+			sb.WriteString("−")
+		case i > 0 && c < 0:
+			sb.WriteString(" − ")
+		case i > 0:
+			sb.WriteString(" + ")
+		}
+		fmt.Fprintf(&sb, "%.5f(±%.5f)", math.Abs(c), k*se[i])
+		switch i {
+		case 0:
+		case 1:
+			sb.WriteString("·J")
+		default:
+			sb.WriteString("·J" + superscript(i))
+		}
+	}
+	return sb.String()
+}
+
+// superscript writes the whole number n ≥ 0 in superscript digits.
+func superscript(n int) string {
+	const digits = "⁰¹²³⁴⁵⁶⁷⁸⁹"
+	r := []rune(digits)
+	var out []rune
+	for _, d := range fmt.Sprint(n) {
+		out = append(out, r[d-'0'])
+	}
+	return string(out)
 }
 
 // plotSize is the plot's size in inches and the PNG's resolution; Skip

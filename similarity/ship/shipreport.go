@@ -97,7 +97,12 @@ func sigDecimals(x float64, n int) int {
 }
 
 // sig4 formats x to four significant figures (see sigDecimals).
-func sig4(x float64) string { return fmt.Sprintf("%.*f", sigDecimals(x, 4), x) }
+func sig4(x float64) string { return sigN(x, 4) }
+
+// sigN formats x to n significant figures, trailing zeros kept, so that
+// one quantity printed twice has one digit count: 0.001 to two figures
+// is 0.0010, beside 0.0032 (see sigDecimals).
+func sigN(x float64, n int) string { return fmt.Sprintf("%.*f", sigDecimals(x, n), x) }
 
 // fmtCoef formats a coefficient to four significant digits with its unit.
 func fmtCoef(x float64, unit string) string { return fmt.Sprintf("%.4g %s", x, unit) }

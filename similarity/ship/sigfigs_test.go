@@ -20,6 +20,19 @@ func TestSig4(t *testing.T) {
 	}
 }
 
+// TestSigNKeepsZeros: a figure to two significant digits keeps its
+// trailing zero, so the fits' S = 0.001 prints 0.0010 beside 0.0032.
+func TestSigNKeepsZeros(t *testing.T) {
+	for _, tc := range []struct {
+		x    float64
+		want string
+	}{{0.001, "0.0010"}, {0.0032, "0.0032"}, {0.00085, "0.00085"}, {0.026, "0.026"}, {1.0, "1.0"}} {
+		if got := sigN(tc.x, 2); got != tc.want {
+			t.Errorf("sigN(%v, 2) = %q, want %q", tc.x, got, tc.want)
+		}
+	}
+}
+
 // TestProhaskaTooFewRunsSaysLimit: with the limit below the runs the
 // message names the limit that would take in three. The third-lowest Fn
 // is 0.18064 (0.80 m/s on a 2 m model: 0.80/√(9.80665·2)), rounded up
