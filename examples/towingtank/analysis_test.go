@@ -177,3 +177,30 @@ func TestFairedPolynomialReads(t *testing.T) {
 		t.Errorf("polyText = %q, want %q", got, want)
 	}
 }
+
+// TestNegativeCorrelationAllowanceWarned: at 1:100 the ship is 200 m
+// long and its top speed 45 kn = 23.15 m/s, so by hand Re_S =
+// 23.15·200/1.1902e-6 = 3.89×10⁹ (ν of sea water at 15 °C as the report
+// prints it) and the procedure's C_A = (5.68 − 0.6·log₁₀3.89e9)·10⁻³ =
+// (5.68 − 5.754)·10⁻³ = −0.074×10⁻³: warned about like a negative ΔC_F.
+func TestNegativeCorrelationAllowanceWarned(t *testing.T) {
+	var out bytes.Buffer
+	o, err := evaluate(&out, []string{"-scale", "100", "-plot=false"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	top := o.Powering.Points[len(o.Powering.Points)-1]
+	re := 45 * 1852.0 / 3600 * 200 / 1.1902e-6
+	if ca := (5.68 - 0.6*math.Log10(re)) * 1e-3; math.Abs(top.CorrelationAllowance-ca) > 2e-7 || math.Abs(ca*1e3+0.074) > 0.001 {
+		t.Errorf("C_A = %v, by hand %v", top.CorrelationAllowance, ca)
+	}
+	for _, want := range []string{
+		"(-0.074×10⁻³ at the top speed, negative: the formula used beyond its range, see the WARNING below the table)",
+		"WARNING (45.00 kn): the correlation allowance C_A = -0.074×10⁻³ from the procedure's formula (5.68 − 0.6·log₁₀Re_S)·10⁻³ is negative",
+		"the ship Reynolds number Re_S = 3.89e+09 is above 2.93e+09, where the formula changes sign, so it is used beyond its range (L = 200 m)",
+	} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+}

@@ -321,8 +321,12 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	fmt.Fprintf(w, "with the ITTC-1978 allowances ΔC_F and C_A below; the ITTC-1957 tables above use Prohaska's 1 + k = %.3f and the -ca allowance,\n", test.FormFactor)
 	fmt.Fprintf(w, "which lumps roughness and correlation for that method only; the two form factors' difference is a source in the budget above\n")
 	fmt.Fprintf(w, "C_TS = (1 + k)·C_FS + ΔC_F + C_A + C_R + C_AAS on S_ship = %.4g m²: roughness allowance ΔC_F from k_S = 150 µm; the basin has no\n", test.ModelWettedArea.Value()/(test.Scale*test.Scale))
-	fmt.Fprintf(w, "ITTC-1978 correlation allowance of its own, so C_A is the procedure's formula (5.68 − 0.6·log₁₀Re_S)·10⁻³ (%.3f×10⁻³ at the top speed);\n",
-		top.CorrelationAllowance*1e3)
+	caNote := ""
+	if top.CorrelationAllowance < 0 {
+		caNote = ", negative: the formula used beyond its range, see the WARNING below the table"
+	}
+	fmt.Fprintf(w, "ITTC-1978 correlation allowance of its own, so C_A is the procedure's formula (5.68 − 0.6·log₁₀Re_S)·10⁻³ (%.3f×10⁻³ at the top speed%s);\n",
+		top.CorrelationAllowance*1e3, caNote)
 	fmt.Fprintf(w, "air C_AAS = %.3f×10⁻³ (A_VS = %.3g m², C_DA = 0.8);\n", top.AirResistance*1e3, transverseArea)
 	fmt.Fprintf(w, "wake: one propeller behind each demihull on an open shaft with a strut, so the procedure's twin-screw rule is applied, w_TS = w_TM\n")
 	fmt.Fprintf(w, "(ITTC 7.5-02-03-01.4, the wake not scaled; from memory): the screw works clear of the thick stern boundary layer that the\n")
