@@ -250,3 +250,44 @@ func TestShipFiguresStated(t *testing.T) {
 		t.Errorf("by hand R = %v N, P_E = %v W", r, r*v)
 	}
 }
+
+// TestPipeLineDigits: the pipe line gives f and Δp to three significant
+// figures whatever the regime, Δp with an SI prefix by magnitude. By
+// hand, laminar (-d 0.001 -v 0.001 -l 0.01): Re = 998.207·0.001·0.001/
+// 1.00194e-3 = 0.99627, f = 64/Re = 64.24, Δp = f·(L/D)·ρV²/2 =
+// 64.24·10·998.207·1e-6/2 = 0.3206 Pa; by default f = 0.0193 and Δp =
+// 30 042 Pa = 30.0 kPa. With -d 0.001 the relative roughness is
+// ε/D = 4.5e-5/0.001 = 0.045, above the Swamee–Jain range's 1e-2, and
+// the note names that bound with the value.
+func TestPipeLineDigits(t *testing.T) {
+	re := 998.207 * 0.001 * 0.001 / 1.00194e-3
+	f := 64 / re
+	if dp := f * 10 * 998.207 * 1e-6 / 2; math.Abs(f-64.24) > 0.005 || math.Abs(dp-0.3206) > 0.0001 {
+		t.Fatalf("by hand f = %v, Δp = %v", f, dp)
+	}
+	for _, c := range []struct {
+		args      []string
+		want, not string
+	}{
+		{nil, "f = 0.0193   Δp = 30.0 kPa\n", "30042"},
+		{[]string{"-d", "0.001", "-v", "0.001", "-l", "0.01"}, "(laminar, f = 64/Re)   f = 64.2   Δp = 0.321 Pa\n", "64.2395"},
+		{[]string{"-d", "0.001", "-v", "50", "-l", "10000"}, "(EXTRAPOLATED: ε/D = 0.045 above 1e-2; the formula was fitted for 5000 ≤ Re ≤ 1e8 and 1e-6 ≤ ε/D ≤ 1e-2))   f = 0.0690", "outside 5000"},
+		{[]string{"-v", "0.055"}, "(EXTRAPOLATED: Re = 4384 below 5000;", "ε/D ="},
+	} {
+		var out bytes.Buffer
+		if err := run(&out, c.args); err != nil {
+			t.Fatal(err)
+		}
+		if s := out.String(); !strings.Contains(s, c.want) || strings.Contains(s, c.not) {
+			t.Errorf("%v: output lacks %q or has %q:\n%s", c.args, c.want, c.not, s[:min(len(s), 600)])
+		}
+	}
+	for _, c := range []struct {
+		v    float64
+		want string
+	}{{30042, "30.0 kPa"}, {0.32062, "0.321 Pa"}, {8.6136e11, "861 GPa"}, {999.96, "1.00 kPa"}, {0.00012345, "0.123 mPa"}} {
+		if got := siSig(c.v, "Pa", 3); got != c.want {
+			t.Errorf("siSig(%v) = %q, want %q", c.v, got, c.want)
+		}
+	}
+}
