@@ -125,14 +125,21 @@ similis's main demonstration on invented data. It prints, in order:
  3. a plan holding both the Froude and the Reynolds numbers for a
     1:scale model of a 32 m catamaran, and why it conflicts;
  4. the compromise that holds the Froude number, as a model plan;
- 5. an invented model resistance (the C_TM of the same vessel's
-    invented towing-tank test, examples/towingtank, at the same Froude
-    number, held at the Froude-scaled speed, so it follows the model's
-    size) carried to full scale by Froude scaling alone;
+ 5. an invented model resistance at the Froude-scaled speed, carried
+    to full scale by Froude scaling alone. The reading is made for the
+    model that -scale gives: the same vessel's invented towing-tank
+    test (examples/towingtank, a 2 m model in 15 °C fresh water) fixes
+    the residuary coefficient C_R = C_TM − C_FM at this Froude number,
+    and by Froude's hypothesis C_R is the same for a model of any size,
+    so the model reads C_TM = C_FM(Re_m) + C_R with its own ITTC-1957
+    C_FM. A smaller model has the larger C_FM, and Froude scaling alone
+    then predicts a heavier ship;
  6. the same reading extrapolated by the ITTC-1957 line, with its
     coefficients (×10³), the ship's length, wetted surface, speed and
     water, the ship resistance and effective power, and a
     warning where the model's Reynolds number suggests laminar flow.
+    Since the reading holds C_R, the extrapolated ship figures are the
+    same at every -scale: the line removes what the model's size adds.
 Full-scale figures are estimates for illustration, not a design:
 hull powering is for the responsible naval architect.
 
