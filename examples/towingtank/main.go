@@ -32,6 +32,7 @@ import (
 	"os"
 	"regexp"
 	"slices"
+	"strconv"
 	"strings"
 
 	"similis.dev/similis/examples/internal/cli"
@@ -197,7 +198,6 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 		return nil, doing("analysing the double-body test", err)
 	}
 	kn := units.MustParse("kn")
-	p := units.Printer{Precision: 4}
 	fmt.Fprintf(w, "Towing-tank extrapolation, 1:%g model of a coastal research catamaran (invented data)\n", *scale)
 	fmt.Fprintf(w, "model L = %.3g m, S = %.3g m² (wetted, both hulls); ship L = %.4g m, S = %.4g m²\n", modelLength, modelArea,
 		out.Plain.ShipLength.Value(), out.Plain.ShipWettedArea.Value())
@@ -225,16 +225,23 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	fmt.Fprintln(w)
 	fmt.Fprintf(w, "ship figures: C_Ts = (1 + k)·C_Fs + C_R + C_A with C_A = %g (the basin's allowance for roughness and correlation), on S_ship = %.4g m²\n",
 		*ca, out.Plain.ShipWettedArea.Value())
+	var rAll, pAll []float64
+	for _, res := range []*ship.HullResult{out.Plain, out.WithForm} {
+		for _, a := range res.Points {
+			rAll, pAll = append(rAll, a.ShipResistance.Value()), append(pAll, a.EffectivePower.Value())
+		}
+	}
+	rc, pc := siColumn(rAll, "N"), siColumn(pAll, "W")
 	fmt.Fprintf(w, "%6s %6s %8s %9s %9s %8s | %7s %9s %9s %9s | %9s %9s %9s\n", "Vm m/s", "Fn", "Rm N", "C_Tm×10³", "C_Fm×10³", "C_R×10³",
-		"Vs kn", "C_Ts×10³", "R_s kN", "P_E kW", "C_Ts×10³", "R_s kN", "P_E kW")
+		"Vs kn", "C_Ts×10³", "R_s "+rc.unit, "P_E "+pc.unit, "C_Ts×10³", "R_s "+rc.unit, "P_E "+pc.unit)
 	fmt.Fprintf(w, "%62s %29s   %29s\n", "", "ITTC-1957, 1 + k = 1", fmt.Sprintf("with 1 + k = %.3f (Prohaska)", fp.FormFactor))
 	for i, a := range out.Plain.Points {
 		b := out.WithForm.Points[i]
 		vs, _ := kn.ValueOf(a.ShipSpeed)
 		fmt.Fprintf(w, "%6.2f %6.3f %8.3f %9.3f %9.3f %8.3f | %7.2f %9.3f %9s %9s | %9.3f %9s %9s\n",
 			speeds[i], a.Froude, resistances[i], a.ModelCT*1e3, a.ModelCF*1e3, a.Residual*1e3,
-			vs, a.ShipCT*1e3, cli.Sig(a.ShipResistance.Value()/1e3, 4), cli.Sig(a.EffectivePower.Value()/1e3, 4),
-			b.ShipCT*1e3, cli.Sig(b.ShipResistance.Value()/1e3, 4), cli.Sig(b.EffectivePower.Value()/1e3, 4))
+			vs, a.ShipCT*1e3, rc.cell(a.ShipResistance.Value()), pc.cell(a.EffectivePower.Value()),
+			b.ShipCT*1e3, rc.cell(b.ShipResistance.Value()), pc.cell(b.EffectivePower.Value()))
 	}
 	fmt.Fprintf(w, "(C_R is the ITTC-1957 one, C_Tm − C_Fm; with the form factor C_R = C_Tm − (1 + k)·C_Fm)\n")
 	// A run's warning is printed once, naming both extrapolations when
@@ -257,7 +264,7 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	}
 	top := out.WithForm.Points[len(out.WithForm.Points)-1]
 	fmt.Fprintf(w, "\nat the top speed, with the form factor: R = %s, P_E = %s\n",
-		mustFormat(p, top.ShipResistance, "kN"), mustFormat(p, top.EffectivePower, "kW"))
+		siSig(top.ShipResistance.Value(), "N", 4), siSig(top.EffectivePower.Value(), "W", 4))
 	if err := blockage(w, out, test, *width, *depth); err != nil {
 		return nil, doing("the tank blockage correction", err)
 	}
@@ -272,9 +279,11 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 		fmt.Fprintf(w, ", the form-factor methods' difference (rectangular, half-width %.3f, u = %.4f)", math.Abs(out.MethodDiff), math.Abs(out.MethodDiff)/math.Sqrt(3))
 	}
 	fmt.Fprintf(w, "; C_A and the sea temperature taken as exact\n\n")
-	fmt.Fprint(w, wholeDoF(out.Budget.Resistance.In("kN", 1e3).String()))
+	bc := siColumn([]float64{out.Budget.Result.ShipResistance.Value()}, "N")
+	fmt.Fprint(w, wholeDoF(out.Budget.Resistance.In(bc.unit, bc.scale).String()))
 	fmt.Fprintln(w)
-	fmt.Fprint(w, wholeDoF(out.Budget.Power.In("kW", 1e3).String()))
+	bc = siColumn([]float64{out.Budget.Result.EffectivePower.Value()}, "W")
+	fmt.Fprint(w, wholeDoF(out.Budget.Power.In(bc.unit, bc.scale).String()))
 	if out.Powering, err = powering(w, test, db, size, *dir); err != nil {
 		return nil, doing("the powering prediction", err)
 	}
@@ -368,7 +377,14 @@ func blockage(w io.Writer, out *Outcome, test ship.HullTest, width, depth float6
 	fmt.Fprintf(w, "\nTank blockage, one-dimensional mean flow (tank %g m × %g m, model A_x = %g m², m = %.4g; choking at %s m/s);\n",
 		width, depth, modelSection, c0.Blockage, cli.Sig(c0.ChokingSpeed.Value(), 3))
 	fmt.Fprintf(w, "not applied in the tables above; with it, each resistance belongs to the corrected speed V' = V·(1 + ΔV/V) (ship figures with 1 + k):\n")
-	fmt.Fprintf(w, "%6s %6s %9s %9s %8s %8s | %7s %9s %9s\n", "Vm m/s", "Fh", "ΔV/V %", "linear %", "V' m/s", "Δh mm", "Vs kn", "R_s kN", "P_E kW")
+	var rAll, pAll []float64
+	if out.Blocked != nil {
+		for _, b := range out.Blocked.Points {
+			rAll, pAll = append(rAll, b.ShipResistance.Value()), append(pAll, b.EffectivePower.Value())
+		}
+	}
+	rc, pc := siColumn(rAll, "N"), siColumn(pAll, "W")
+	fmt.Fprintf(w, "%6s %6s %9s %9s %8s %8s | %7s %9s %9s\n", "Vm m/s", "Fh", "ΔV/V %", "linear %", "V' m/s", "Δh mm", "Vs kn", "R_s "+rc.unit, "P_E "+pc.unit)
 	legend := fmt.Sprintf("columns: Vm the carriage speed; Fh = Vm/√(g·h) the depth Froude number; ΔV/V the speed correction from the full\n" +
 		"one-dimensional equations (the one applied); linear its linearisation m/(1 − m − Fh²); V' = Vm·(1 + ΔV/V); Δh the mean fall\n" +
 		"of the free surface beside the model; Vs, R_s, P_E the ship's speed, resistance and effective power at V' with 1 + k and C_A\n")
@@ -384,7 +400,7 @@ func blockage(w io.Writer, out *Outcome, test ship.HullTest, width, depth float6
 		b := out.Blocked.Points[slices.Index(kept, i)]
 		vs, _ := kn.ValueOf(b.ShipSpeed)
 		fmt.Fprintf(w, "%6.2f %6.3f %9.3f %9.3f %8.4f %8s | %7.2f %9s %9s\n", speeds[i], c.DepthFroude, 100*c.SpeedCorrection, 100*c.LinearCorrection,
-			c.Speed.Value(), cli.Sig(1e3*c.SurfaceDrop.Value(), 3), vs, cli.Sig(b.ShipResistance.Value()/1e3, 4), cli.Sig(b.EffectivePower.Value()/1e3, 4))
+			c.Speed.Value(), cli.Sig(1e3*c.SurfaceDrop.Value(), 3), vs, rc.cell(b.ShipResistance.Value()), pc.cell(b.EffectivePower.Value()))
 	}
 	if choked > 0 {
 		fmt.Fprintf(w, "%d of the %d runs are at or above the choking speed %s m/s of this tank: a wider or deeper tank (-width, -depth) raises it\n",
@@ -454,12 +470,50 @@ func doing(what string, err error) error {
 	return &jobError{doing: what, err: err}
 }
 
-func mustFormat(p units.Printer, v q.Quantity, unit string) string {
-	s, err := p.FormatIn(v, units.MustParse(unit))
-	if err != nil {
-		return v.String()
+// column is a table column of a force or a power in one unit: the base
+// unit with the SI prefix its largest value calls for.
+type column struct {
+	unit  string  // the prefixed unit, for the header
+	scale float64 // the prefix's factor
+}
+
+// siColumn chooses the SI prefix of a column of forces or powers from
+// its largest magnitude, rounded to four significant figures: the prefix
+// that leaves that value between 10 and 9999 in the prefixed unit, so
+// that four significant figures never pad a whole number with zeros
+// (milli for a column below 1, and at most mega, the ship trade's range).
+// Every value of the column is printed in that unit, so that the header
+// names it once and truthfully: a column up to 29 076 kN is in MN
+// (29.08), one up to 1618 W stays in W (124.1 … 1618), one up to
+// 1297 kW stays in kW.
+func siColumn(vals []float64, base string) column {
+	big := 0.0
+	for _, v := range vals {
+		if r, err := strconv.ParseFloat(strconv.FormatFloat(v, 'e', 3, 64), 64); err == nil && !math.IsInf(r, 0) {
+			big = max(big, math.Abs(r))
+		}
 	}
-	return s
+	e := 0
+	switch {
+	case big > 0 && big < 1:
+		e = -3
+	case big >= 1:
+		e = max(0, min(6, 3*int(math.Floor(math.Log10(big/10)/3))))
+	}
+	return column{unit: siPrefixes[e] + base, scale: math.Pow(10, float64(e))}
+}
+
+// siPrefixes are the SI prefixes the reports use, by exponent.
+var siPrefixes = map[int]string{-3: "m", 0: "", 3: "k", 6: "M"}
+
+// cell writes v in the column's unit to four significant figures.
+func (c column) cell(v float64) string { return cli.Sig(v/c.scale, 4) }
+
+// siSig writes v in unit base with the SI prefix its magnitude calls for
+// and n significant figures: 2.908e7 N to four figures is 29.08 MN.
+func siSig(v float64, base string, n int) string {
+	c := siColumn([]float64{v}, base)
+	return cli.Sig(v/c.scale, n) + " " + c.unit
 }
 
 // effDoF matches the effective degrees of freedom a budget prints.

@@ -485,17 +485,19 @@ func TestOutRefusedFirst(t *testing.T) {
 }
 
 // TestSmallShipFigures: at 1:4 the resistances and powers keep four
-// significant figures. The top run with the form factor: R = 2.424 kN
-// (the line below the table) at V_s = 2.40·√4 = 4.80 m/s, so P_E =
-// 2.4243·4.80 = 11.64 kW; the slowest run's ship speed is 0.50·2 =
-// 1.00 m/s, so its P_E in kW equals its R_s in kN (0.06369).
+// significant figures, each column in the unit its largest value calls
+// for (R_s in N up to 2424 N, P_E in kW up to 11.64 kW). The top run
+// with the form factor: R = 2424 N (the line below the table) at V_s =
+// 2.40·√4 = 4.80 m/s, so P_E = 2424.3·4.80 = 11.64 kW; the slowest
+// run's ship speed is 0.50·2 = 1.00 m/s, so its P_E in W equals its R_s
+// in N (63.69 N, 0.06369 kW).
 func TestSmallShipFigures(t *testing.T) {
 	var out bytes.Buffer
 	if _, err := evaluate(&out, []string{"-plot=false", "-scale", "4", "-sea", "0", "-tank", "35"}); err != nil {
 		t.Fatal(err)
 	}
 	s := out.String()
-	for _, w := range []string{"|     7.897     2.424     11.64\n", "|     4.780   0.06369   0.06369\n", "R = 2.424 kN"} {
+	for _, w := range []string{"|     7.897      2424     11.64\n", "|     4.780     63.69   0.06369\n", "R = 2424 N, P_E = 11.64 kW", "R_s N    P_E kW |"} {
 		if !strings.Contains(s, w) {
 			t.Errorf("report lacks %q", w)
 		}
@@ -511,5 +513,52 @@ func TestSmallShipFigures(t *testing.T) {
 	}
 	if !strings.Contains(out.String(), "propeller D = 4.219 m,") { // 84.375 mm × 50 = 4.21875 m
 		t.Errorf("propeller diameter not to four figures")
+	}
+}
+
+// TestFiguresInPrefixedUnits: forces and powers carry the SI prefix
+// their size calls for, each table column in one unit named in its
+// header. By hand at 1:100 the top run with the form factor has
+// C_Ts = 6.074×10⁻³ on S_s = 1.62·100² = 16 200 m² at V_s = 2.40·10 =
+// 24 m/s in sea water of 1025.97 kg/m³: R = 6.074e-3·½·1025.97·24²·
+// 16 200 = 2.9075×10⁷ N = 29.08 MN and P_E = R·V = 697.8 MW. At 1:2 the
+// ship's P_D at 3 kn is 124.1 W, its R_TS 40.12 N, in columns of N and W.
+func TestFiguresInPrefixedUnits(t *testing.T) {
+	r := 6.074e-3 * 0.5 * 1025.97 * 24 * 24 * 16200
+	if math.Abs(r/29.08e6-1) > 5e-4 || math.Abs(r*24/697.8e6-1) > 5e-4 {
+		t.Fatalf("by hand R = %v N, P_E = %v W", r, r*24)
+	}
+	for _, c := range []struct {
+		scale string
+		want  []string
+	}{
+		{"100", []string{
+			"at the top speed, with the form factor: R = 29.08 MN, P_E = 697.8 MW\n",
+			"C_Ts×10³    R_s MN    P_E MW |  C_Ts×10³    R_s MN    P_E MW\n",
+			"|     6.074     29.08     697.8\n",
+			"R_s = 29.08 MN, u_c = 0.12 MN",
+			"R_TS MN  P_E MW", "P_D MW\n", "   1052\n",
+			"P_D MW    P_D 95 % MW", "1052    1039 … 1064",
+		}},
+		{"2", []string{
+			"R_TS N  P_E W", "P_D W\n", "5.067   40.12  61.92", "  124.1\n",
+			"P_D W     P_D 95 % W", "124.1  123.2 … 124.9",
+		}},
+	} {
+		var out bytes.Buffer
+		if _, err := evaluate(&out, []string{"-plot=false", "-scale", c.scale}); err != nil {
+			t.Fatal(err)
+		}
+		s := out.String()
+		for _, w := range c.want {
+			if !strings.Contains(s, w) {
+				t.Errorf("-scale %s: report lacks %q", c.scale, w)
+			}
+		}
+		for _, not := range []string{"e+04 kN", "e+05 kW", "0.1241", "29076", "1051866"} {
+			if strings.Contains(s, not) {
+				t.Errorf("-scale %s: report has %q", c.scale, not)
+			}
+		}
 	}
 }

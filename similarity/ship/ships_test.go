@@ -88,7 +88,10 @@ func TestITTC1978NegativeCorrelationAllowanceWarned(t *testing.T) {
 			t.Errorf("warning lacks %q: %q", s, r.Warning)
 		}
 	}
-	if tab := ship.PoweringTable([]ship.PoweringResult{r}, false); !strings.Contains(tab, "WARNING (46.65 kn): ") || !strings.Contains(tab, "C_A = -0.084×10⁻³") {
+	// The 200 m ship's figures take the prefix their size calls for:
+	// R_TS = C_TS·½ρV²S in MN, not tens of thousands of kN.
+	if tab := ship.PoweringTable([]ship.PoweringResult{r}, false); !strings.Contains(tab, "WARNING (46.65 kn): ") || !strings.Contains(tab, "C_A = -0.084×10⁻³") ||
+		!strings.Contains(tab, "R_TS MN") || !strings.Contains(tab, "P_D MW") || !strings.Contains(tab, fmt.Sprintf(" %.4g ", r.ShipResistance.Value()/1e6)) {
 		t.Errorf("table:\n%s", tab)
 	}
 	in.CorrelationAllowance = -0.0001
