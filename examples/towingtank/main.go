@@ -77,6 +77,9 @@ type Outcome struct {
 	// difference from Prohaska's when that is flagged (else zero).
 	DoubleBody ship.DoubleBodyResult
 	MethodDiff float64
+	// Readings are the invented tests' readings made for the tank
+	// temperature (readingsAt).
+	Readings readings
 }
 
 // Budgets are the uncertainty budgets of the top-speed run at full scale.
@@ -92,7 +95,7 @@ type Budgets struct {
 // and the Prohaska form factors, added as a source: rectangular, with
 // half-width |Δ| about the Prohaska value, so that the other method's
 // value lies at its edge.
-func topBudget(scale, tankT, seaT, ca float64, form ship.ProhaskaResult, methodDiff float64) (Budgets, error) {
+func topBudget(scale, tankT, seaT, ca float64, form ship.ProhaskaResult, methodDiff float64, rd readings) (Budgets, error) {
 	set := uncertain.NewSet()
 	src := func(s uncertain.Source) uncertain.ID { return set.MustAdd(s) }
 	sys, rnd := uncertain.Systematic, uncertain.Random
@@ -113,7 +116,7 @@ func topBudget(scale, tankT, seaT, ca float64, form ship.ProhaskaResult, methodD
 		ModelLength:     set.MustMeasure(q.New(modelLength, q.Length), length),
 		ModelWettedArea: set.MustMeasure(q.New(modelArea, q.Area), area),
 		ModelSpeed:      set.MustMeasure(q.New(speeds[last], q.Velocity), speed),
-		ModelResistance: set.MustMeasure(q.New(resistances[last], q.Force), dyn, rep),
+		ModelResistance: set.MustMeasure(q.New(rd.Resistances[last], q.Force), dyn, rep),
 		TankTemperature: set.MustMeasure(q.New(tankT+273.15, q.Temperature), therm),
 		SeaTemperature:  uncertain.Exact(q.New(seaT+273.15, q.Temperature)),
 		Tank:            fluids.FreshWater(), Sea: fluids.SeaWater(),
@@ -173,6 +176,10 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	if err != nil {
 		return nil, err
 	}
+	rd, err := readingsAt(tank)
+	if err != nil {
+		return nil, doing("making the readings for the tank temperature", err)
+	}
 	test := ship.HullTest{
 		Scale: 1 / *scale, ModelLength: q.New(modelLength, q.Length), ModelWettedArea: q.New(modelArea, q.Area),
 		Tank:      tank,
@@ -181,9 +188,9 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	}
 	for i := range speeds {
 		test.Speeds = append(test.Speeds, q.New(speeds[i], q.Velocity))
-		test.Resistances = append(test.Resistances, q.New(resistances[i], q.Force))
+		test.Resistances = append(test.Resistances, q.New(rd.Resistances[i], q.Force))
 	}
-	out := &Outcome{}
+	out := &Outcome{Readings: rd}
 	if out.Plain, err = ship.ExtrapolateHull(test); err != nil {
 		return nil, doing("extrapolating the resistance test", err)
 	}
@@ -194,7 +201,7 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	if out.WithForm, err = ship.ExtrapolateHull(test); err != nil {
 		return nil, doing("extrapolating the resistance test with the form factor", err)
 	}
-	if out.DoubleBody, err = doubleBody(test); err != nil {
+	if out.DoubleBody, err = doubleBody(test, rd.DoubleBody); err != nil {
 		return nil, doing("analysing the double-body test", err)
 	}
 	kn := units.MustParse("kn")
@@ -203,6 +210,13 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 		out.Plain.ShipLength.Value(), out.Plain.ShipWettedArea.Value())
 	fmt.Fprintf(w, "tank: fresh water %g °C, ρ = %.2f kg/m³, ν = %.4e m²/s; sea: %g °C, ρ = %.2f kg/m³, ν = %.4e m²/s\n",
 		*tankT, tank.Density.Value(), tank.KinematicViscosity.Value(), *seaT, sea.Density.Value(), sea.KinematicViscosity.Value())
+	if *tankT == recordTemperature {
+		fmt.Fprintf(w, "readings: the invented record, taken in the tank at %g °C\n", recordTemperature)
+	} else {
+		fmt.Fprintf(w, "readings: re-made for %g °C from the invented record taken at %g °C, each resistance run holding its C_W = C_Tm − %g·C_Fm\n"+
+			"  (the invented hull's 1 + k), each double-body run its C_V/C_F, each open-water run its K_T and K_Q (see -h)\n",
+			*tankT, recordTemperature, hullFormFactor)
+	}
 	fp, db := out.Form, out.DoubleBody
 	fmt.Fprintf(w, "form factor by Prohaska (%d runs at Fn ≤ %g): 1 + k = %.3f, u = %.2g (standard uncertainty of the intercept, Type A, ν = %d), R² = %.3f\n",
 		fp.Points, fp.MaxFroude, fp.FormFactor, fp.FormFactorStdErr, fp.Points-2, fp.R2)
@@ -239,7 +253,7 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 		b := out.WithForm.Points[i]
 		vs, _ := kn.ValueOf(a.ShipSpeed)
 		fmt.Fprintf(w, "%6.2f %6.3f %8.3f %9.3f %9.3f %8.3f | %7.2f %9.3f %9s %9s | %9.3f %9s %9s\n",
-			speeds[i], a.Froude, resistances[i], a.ModelCT*1e3, a.ModelCF*1e3, a.Residual*1e3,
+			speeds[i], a.Froude, rd.Resistances[i], a.ModelCT*1e3, a.ModelCF*1e3, a.Residual*1e3,
 			vs, a.ShipCT*1e3, rc.cell(a.ShipResistance.Value()), pc.cell(a.EffectivePower.Value()),
 			b.ShipCT*1e3, rc.cell(b.ShipResistance.Value()), pc.cell(b.EffectivePower.Value()))
 	}
@@ -268,7 +282,7 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	if err := blockage(w, out, test, *width, *depth); err != nil {
 		return nil, doing("the tank blockage correction", err)
 	}
-	if out.Budget, err = topBudget(*scale, *tankT, *seaT, *ca, out.Form, out.MethodDiff); err != nil {
+	if out.Budget, err = topBudget(*scale, *tankT, *seaT, *ca, out.Form, out.MethodDiff, rd); err != nil {
 		return nil, doing("the top speed's uncertainty budget", err)
 	}
 	fmt.Fprintf(w, "\nUncertainty at the top speed (invented instrument figures; standard uncertainties, first order, GUM):\n")
@@ -284,7 +298,7 @@ func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	fmt.Fprintln(w)
 	bc = siColumn([]float64{out.Budget.Result.EffectivePower.Value()}, "W")
 	fmt.Fprint(w, wholeDoF(out.Budget.Power.In(bc.unit, bc.scale).String()))
-	if out.Powering, err = powering(w, test, db, size, *dir); err != nil {
+	if out.Powering, err = powering(w, test, db, rd, size, *dir); err != nil {
 		return nil, doing("the powering prediction", err)
 	}
 	fmt.Fprintln(w, "\nCAUTION:", ship.HullCaution)
@@ -327,6 +341,16 @@ and η_R. It prints:
   - PNG and SVG plots of the model's and ship's C_T against the
     Reynolds number with the friction lines, and of the open-water
     curves, in -out.
+The invented readings were recorded in the tank at 15 °C. -tank makes
+them for another tank temperature, consistently: each resistance run
+keeps its wave-making part C_W = C_Tm − (1 + k)·C_Fm, with the invented
+hull's 1 + k = 1.13 and the ITTC-1957 C_Fm, and reads C_Tm = (1 + k)·C_Fm
++ C_W at the new viscosity; each double-body run keeps its C_V/C_F; each
+open-water run keeps its K_T and K_Q (the propeller's small Reynolds-
+number effect neglected), so thrust and torque go with the density. So
+both form factors come out nearly the same at every -tank (Prohaska's
+within its fit's scatter), and so do the ship figures with the form
+factor. -sea changes only the ship's water.
 The figures are estimates for illustration: hull powering and machinery
 selection are for the responsible naval architect and the basin's own
 correlation.

@@ -9,6 +9,7 @@ import (
 	"io"
 	"math"
 	"os"
+	"slices"
 	"strings"
 	"testing"
 
@@ -73,7 +74,7 @@ func TestByHand(t *testing.T) {
 func TestHelp(t *testing.T) {
 	var out bytes.Buffer
 	err := run(&out, []string{"-h"})
-	for _, want := range []string{"Usage", "It prints:", "C_Ts (including the allowance C_A)", "P_D (all shafts)", "naval architect", "thrust identity", "open-water test", "-dpi", "-plotw", "towingtank-coefficients.png/.svg and towingtank-openwater.png/.svg", "-scale changes the ship"} {
+	for _, want := range []string{"Usage", "It prints:", "C_Ts (including the allowance C_A)", "P_D (all shafts)", "naval architect", "thrust identity", "open-water test", "-dpi", "-plotw", "towingtank-coefficients.png/.svg and towingtank-openwater.png/.svg", "-scale changes the ship", "The invented readings were recorded in the tank at 15 °C. -tank makes\nthem for another tank temperature, consistently", "-sea changes only the ship's water"} {
 		if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), want) {
 			t.Errorf("-h: %v, lacks %q", err, want)
 		}
@@ -486,25 +487,25 @@ func TestOutRefusedFirst(t *testing.T) {
 
 // TestSmallShipFigures: at 1:4 the resistances and powers keep four
 // significant figures, each column in the unit its largest value calls
-// for (R_s in N up to 2424 N, P_E in kW up to 11.64 kW). The top run
-// with the form factor: R = 2424 N (the line below the table) at V_s =
-// 2.40·√4 = 4.80 m/s, so P_E = 2424.3·4.80 = 11.64 kW; the slowest
-// run's ship speed is 0.50·2 = 1.00 m/s, so its P_E in W equals its R_s
-// in N (63.69 N, 0.06369 kW).
+// for (R_s in N up to 2336 N, P_E in kW up to 11.21 kW). The top run
+// with the form factor: R = 2336 N (the line below the table) at V_s =
+// 2.40·√4 = 4.80 m/s, so P_E = 2336·4.80 = 11.21 kW; the slowest run's
+// ship speed is 0.50·2 = 1.00 m/s, so its P_E in W equals its R_s in N
+// (57.99 N, 0.05799 kW).
 func TestSmallShipFigures(t *testing.T) {
 	var out bytes.Buffer
 	if _, err := evaluate(&out, []string{"-plot=false", "-scale", "4", "-sea", "0", "-tank", "35"}); err != nil {
 		t.Fatal(err)
 	}
 	s := out.String()
-	for _, w := range []string{"|     7.897      2424     11.64\n", "|     4.780     63.69   0.06369\n", "R = 2424 N, P_E = 11.64 kW", "R_s N    P_E kW |"} {
+	for _, w := range []string{"|     7.608      2336     11.21\n", "|     4.353     57.99   0.05799\n", "R = 2336 N, P_E = 11.21 kW", "R_s N    P_E kW |"} {
 		if !strings.Contains(s, w) {
 			t.Errorf("report lacks %q", w)
 		}
 	}
 	// The ITTC-1978 and speed–power tables: no power rounded to a whole
-	// kilowatt (P_D at 4 kn is about 1.1 kW).
-	if strings.Contains(s, "   1       1 … 1  ") || !strings.Contains(s, "   1.119  1.111 … 1.128") {
+	// kilowatt (P_D at 4 kn is about 1.0 kW).
+	if strings.Contains(s, "   1       1 … 1  ") || !strings.Contains(s, "   1.039  1.032 … 1.047") {
 		t.Errorf("speed–power table without significant figures:\n%s", s)
 	}
 	out.Reset()
@@ -560,5 +561,66 @@ func TestFiguresInPrefixedUnits(t *testing.T) {
 				t.Errorf("-scale %s: report has %q", c.scale, not)
 			}
 		}
+	}
+}
+
+// TestTankTemperatureRemakesReadings: -tank re-makes the invented
+// readings for the tank's water, holding each run's wave part, so the
+// form factors do not drift with the temperature (they moved from 1.028
+// at 1 °C to 1.253 at 35 °C while the readings in N stayed fixed). By
+// hand, the top run (2.40 m/s) recorded 38.10 N at 15 °C (ρ = 999.1026
+// kg/m³, ν = 1.1385e-3/999.1026 m²/s): C_TM = 38.10/(½·999.1026·2.4²·
+// 1.62) = 8.1735×10⁻³, Re = 2.4·2/ν = 4.2123×10⁶, C_F = 0.075/(log₁₀Re
+// − 2)² = 3.5069×10⁻³, C_W = C_TM − 1.13·C_F = 4.2106×10⁻³; at 35 °C in
+// the tank's water the report prints, C_TM = C_W + 1.13·C_F(2.4·2/ν₃₅)
+// and R = C_TM·½ρ₃₅·2.4²·1.62 = 36.433 N.
+func TestTankTemperatureRemakesReadings(t *testing.T) {
+	cf := func(re float64) float64 { return 0.075 / math.Pow(math.Log10(re)-2, 2) }
+	nu15 := 1.1385e-3 / 999.1026
+	ct15 := 38.10 / (0.5 * 999.1026 * 2.4 * 2.4 * 1.62)
+	cw := ct15 - 1.13*cf(4.8/nu15)
+	if math.Abs(ct15-8.1735e-3) > 1e-7 || math.Abs(cf(4.8/nu15)-3.5069e-3) > 1e-7 || math.Abs(cw-4.2106e-3) > 1e-7 {
+		t.Fatalf("by hand C_TM %v, C_F %v, C_W %v", ct15, cf(4.8/nu15), cw)
+	}
+	form := map[string][2]float64{}
+	top := map[string]float64{}
+	for _, tank := range []string{"1", "15", "25", "35"} {
+		var out bytes.Buffer
+		o, err := evaluate(&out, []string{"-plot=false", "-tank", tank})
+		if err != nil {
+			t.Fatal(err)
+		}
+		form[tank] = [2]float64{o.Form.FormFactor, o.DoubleBody.FormFactor}
+		top[tank] = o.WithForm.Points[7].ShipResistance.Value()
+		s := out.String()
+		if tank == "15" {
+			if !slices.Equal(o.Readings.Resistances, resistances) || !slices.Equal(o.Readings.DoubleBody, dbResistances) || !slices.Equal(o.Readings.OpenWater, owRuns) ||
+				!strings.Contains(s, "readings: the invented record, taken in the tank at 15 °C\n") {
+				t.Errorf("at 15 °C the readings are not the record: %v", o.Readings)
+			}
+			continue
+		}
+		if !strings.Contains(s, "readings: re-made for "+tank+" °C from the invented record taken at 15 °C, each resistance run holding its C_W = C_Tm − 1.13·C_Fm") {
+			t.Errorf("-tank %s: the report does not say the readings are re-made", tank)
+		}
+		if tank == "35" {
+			rho, nu := o.Plain.Test.Tank.Density.Value(), o.Plain.Test.Tank.KinematicViscosity.Value()
+			if math.Abs(rho-994.03) > 0.005 || math.Abs(nu/7.2344e-7-1) > 1e-4 {
+				t.Errorf("35 °C water ρ %v ν %v, the report prints 994.03 and 7.2344e-07", rho, nu)
+			}
+			r := (cw + 1.13*cf(4.8/nu)) * 0.5 * rho * 2.4 * 2.4 * 1.62
+			if math.Abs(r-36.433) > 0.0006 || math.Abs(o.Readings.Resistances[7]-r) > 0.0006 || !strings.Contains(s, "  2.40  0.542   36.433 ") {
+				t.Errorf("35 °C top reading %v, by hand %v", o.Readings.Resistances[7], r)
+			}
+		}
+	}
+	for tank, f := range form {
+		if math.Abs(f[0]-form["15"][0]) > 0.003 || math.Abs(f[1]-form["15"][1]) > 0.002 {
+			t.Errorf("-tank %s: 1 + k = %.4f (Prohaska), %.4f (double body); at 15 °C %.4f, %.4f", tank, f[0], f[1], form["15"][0], form["15"][1])
+		}
+	}
+	// The sea stays at 15 °C: the ship with the form factor hardly moves.
+	if math.Abs(top["25"]/top["15"]-1) > 0.002 {
+		t.Errorf("top-speed ship resistance at -tank 25 %v, at 15 %v", top["25"], top["15"])
 	}
 }

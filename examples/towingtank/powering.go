@@ -154,21 +154,23 @@ type Powering struct {
 	OWPNG, OWSVG string                // open-water curves
 }
 
-// doubleBody finds the form factor from the double-body test.
-func doubleBody(test ship.HullTest) (ship.DoubleBodyResult, error) {
+// doubleBody finds the form factor from the double-body test's
+// resistances dbR at dbSpeeds.
+func doubleBody(test ship.HullTest, dbR []float64) (ship.DoubleBodyResult, error) {
 	nu, rho := test.Tank.KinematicViscosity.Value(), test.Tank.Density.Value()
 	var re, cv []float64
 	for i, v := range dbSpeeds {
 		re = append(re, v*modelLength/nu)
-		cv = append(cv, dbResistances[i]/(0.5*rho*v*v*2*modelArea))
+		cv = append(cv, dbR[i]/(0.5*rho*v*v*2*modelArea))
 	}
 	return ship.FormFactorDoubleBody(re, cv, ship.LineITTC1957)
 }
 
-// openWaterTest is the invented open-water test in the tank's water.
-func openWaterTest(tank fluids.State) ship.OpenWaterTest {
+// openWaterTest is the invented open-water test in the tank's water,
+// with its runs' readings.
+func openWaterTest(tank fluids.State, runs [][3]float64) ship.OpenWaterTest {
 	t := ship.OpenWaterTest{Diameter: q.New(modelPropD, q.Length), Chord: q.New(modelChord07, q.Length), Water: tank}
-	for _, r := range owRuns {
+	for _, r := range runs {
 		t.Runs = append(t.Runs, ship.OpenWaterRun{Speed: q.New(r[0], q.Velocity), RevsPerSecond: owRevs,
 			Thrust: q.New(r[1], q.Force), Torque: q.New(r[2], q.Torque)})
 	}
@@ -179,7 +181,7 @@ func openWaterTest(tank fluids.State) ship.OpenWaterTest {
 // analyses the self-propulsion test by thrust identity and predicts the
 // ship's speed–power curve by the ITTC-1978 method with the double-body
 // form factor, and plots the coefficients and the open-water curves.
-func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size plotSize, dir string) (*Powering, error) {
+func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, rd readings, size plotSize, dir string) (*Powering, error) {
 	tank := test.Tank
 	nu, rho := tank.KinematicViscosity.Value(), tank.Density.Value()
 	out := &Powering{DoubleBody: db}
@@ -187,7 +189,7 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	var rem, ctm []float64
 	for i, v := range speeds {
 		rem = append(rem, v*modelLength/nu)
-		ctm = append(ctm, resistances[i]/(0.5*rho*v*v*modelArea))
+		ctm = append(ctm, rd.Resistances[i]/(0.5*rho*v*v*modelArea))
 	}
 	if out.Wave, err = ship.WaveResistance(rem, ctm, db.FormFactor, ship.LineITTC1957); err != nil {
 		return nil, err
@@ -201,7 +203,7 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	transverseArea := transverseArea16 * math.Pow(1/(16*scale), 2)
 
 	// 1. Open-water test.
-	owt := openWaterTest(tank)
+	owt := openWaterTest(tank, rd.OpenWater)
 	if out.OpenWater, err = ship.ReduceOpenWater(owt); err != nil {
 		return nil, err
 	}
@@ -214,7 +216,7 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 		f, _ := ow.At(p.J)
 		e, _ := ow.Eta0(p.J)
 		var run [3]float64
-		for _, r := range owRuns {
+		for _, r := range rd.OpenWater {
 			if math.Abs(r[0]/(owRevs*dm)-p.J) < 1e-12 {
 				run = r
 			}
