@@ -14,6 +14,8 @@
 // The vessel and every measurement are invented for the demonstration.
 // The model and its propeller are fixed; -scale changes the ship, and
 // the self-propulsion readings are made for its self-propulsion point.
+// The readings were recorded at 15 °C; -tank re-makes them for another
+// tank temperature, each run keeping its wave-making part (readingsAt).
 //
 // Usage:
 //
@@ -145,7 +147,7 @@ func run(w io.Writer, args []string) error {
 func evaluate(w io.Writer, args []string) (*Outcome, error) {
 	fs := cli.NewFlagSet("towingtank", usageText)
 	scale := cli.FloatVar(fs, "scale", 16, 2, 100, "", "ship length over model length (the model is 2 m)")
-	tankT := cli.FloatVar(fs, "tank", 15, 1, 35, "°C", "tank (fresh) water temperature")
+	tankT := cli.FloatVar(fs, "tank", 15, 1, 35, "°C", "tank (fresh) water temperature; the invented readings are made for it")
 	seaT := cli.FloatVar(fs, "sea", 15, 0, 35, "°C", "sea water temperature")
 	ca := cli.FloatVar(fs, "ca", 0.0004, -0.001, 0.002, "", "roughness and correlation allowance C_A of the ITTC-1957 extrapolation")
 	maxFn := cli.FloatVar(fs, "maxfn", 0.2, 0.1, 0.3, "", fmt.Sprintf("highest Froude number used for Prohaska's form factor; at least 3 runs must be at or below it (%.3f or more with these runs)", lowestMaxFn()))
@@ -309,7 +311,8 @@ const usageText = `Usage: towingtank [flags]
 
 A towing tank's whole job on invented data for a 2 m model of a 32 m
 (at 1:16) coastal research catamaran. The model (hull and propeller,
-D = 84.4 mm) and its readings are fixed; -scale changes the ship: its
+D = 84.4 mm) is fixed, and -scale leaves its tests' readings alone;
+-scale changes the ship: its
 length, its propeller (D_S = D_M·λ) and its speeds, and the
 self-propulsion runs' readings, which are made for the ship's
 self-propulsion point at that scale from the hull's invented w_TM, t
@@ -350,7 +353,10 @@ open-water run keeps its K_T and K_Q (the propeller's small Reynolds-
 number effect neglected), so thrust and torque go with the density. So
 both form factors come out nearly the same at every -tank (Prohaska's
 within its fit's scatter), and so do the ship figures with the form
-factor. -sea changes only the ship's water.
+factor at one -sea. -sea changes only the ship's water.
+Forces and powers are printed to four significant figures, each table
+column in the unit (N, kN or MN; W, kW or MW) that leaves its largest
+value between 10 and 9999, named in the column's header.
 The figures are estimates for illustration: hull powering and machinery
 selection are for the responsible naval architect and the basin's own
 correlation.
