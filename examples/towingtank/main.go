@@ -311,12 +311,11 @@ const usageText = `Usage: towingtank [flags]
 
 A towing tank's whole job on invented data for a 2 m model of a 32 m
 (at 1:16) coastal research catamaran. The model (hull and propeller,
-D = 84.4 mm) is fixed, and -scale leaves its tests' readings alone;
--scale changes the ship: its
-length, its propeller (D_S = D_M·λ) and its speeds, and the
-self-propulsion runs' readings, which are made for the ship's
-self-propulsion point at that scale from the hull's invented w_TM, t
-and η_R. It prints:
+D = 84.4 mm) is fixed. -scale changes the ship: its length, its
+propeller (D_S = D_M·λ) and its speeds, and the self-propulsion runs'
+readings, which are made for the ship's self-propulsion point at that
+scale from the hull's invented w_TM, t and η_R; the resistance,
+double-body and open-water readings stay as recorded. It prints:
   - the resistance test carried to full scale by the ITTC-1957 method,
     without and with a form factor 1 + k from Prohaska's method: per run
     the model's Fn, resistance and coefficients C_Tm, C_Fm, C_R (×10³),
