@@ -12,6 +12,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	iofs "io/fs"
 	"math"
 	"os"
 	"strconv"
@@ -119,10 +120,25 @@ func ParseFlags(fs *flag.FlagSet, w io.Writer, args []string) error {
 // Dir returns a usage error naming the flag unless path is an existing
 // directory that a file can be written in (it is checked by creating
 // and removing an empty temporary file), so that a command can refuse
-// its output directory before it prints its report.
+// its output directory before it prints its report. The message tells a
+// missing directory (create it or pass another) from a path that names
+// a file (not a directory) and from one that cannot be written in.
 func Dir(flagName, path string) error {
-	if st, err := os.Stat(path); err != nil || !st.IsDir() {
-		return &Error{Msg: fmt.Sprintf("-%s %s: not a directory", flagName, Quote(path))}
+	st, err := os.Stat(path)
+	switch {
+	case path == "":
+		return &Error{Msg: fmt.Sprintf("-%s %s: no directory given; pass an existing directory", flagName, Quote(path))}
+	case errors.Is(err, iofs.ErrNotExist):
+		return &Error{Msg: fmt.Sprintf("-%s %s: the directory does not exist; create it or pass another", flagName, Quote(path))}
+	case err != nil:
+		var pe *iofs.PathError
+		reason := err
+		if errors.As(err, &pe) {
+			reason = pe.Err // the path is quoted above, not repeated raw
+		}
+		return &Error{Msg: fmt.Sprintf("-%s %s: cannot be examined (%v); pass a directory you can read and write", flagName, Quote(path), reason)}
+	case !st.IsDir():
+		return &Error{Msg: fmt.Sprintf("-%s %s: not a directory (a file of that name exists); pass a directory", flagName, Quote(path))}
 	}
 	f, err := os.CreateTemp(path, ".write-check-*")
 	if err != nil {

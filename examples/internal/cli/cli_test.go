@@ -7,6 +7,7 @@ import (
 	"io"
 	"math"
 	"os"
+	"path/filepath"
 	"strconv"
 	"strings"
 	"testing"
@@ -114,8 +115,31 @@ func TestParseFlagsAndDir(t *testing.T) {
 	if err := Dir("out", t.TempDir()); err != nil {
 		t.Errorf("a directory refused: %v", err)
 	}
-	if err := Dir("out", "/nonexistent/dir"); !errors.As(err, &ce) || ce.Msg != `-out "/nonexistent/dir": not a directory` {
+	if err := Dir("out", "/nonexistent/dir"); !errors.As(err, &ce) || ce.Msg != `-out "/nonexistent/dir": the directory does not exist; create it or pass another` {
 		t.Errorf("no directory: %v", err)
+	}
+}
+
+// TestDirSaysWhy: a missing directory is said not to exist (create it or
+// pass another), a file is "not a directory", and an empty path is said
+// to be no directory; each is a usage error naming the flag.
+func TestDirSaysWhy(t *testing.T) {
+	d := t.TempDir()
+	file := filepath.Join(d, "plots.txt")
+	if err := os.WriteFile(file, nil, 0o600); err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct{ path, want, not string }{
+		{filepath.Join(d, "missing"), "the directory does not exist; create it or pass another", "not a directory"},
+		{filepath.Join(d, "missing", "deeper"), "the directory does not exist; create it or pass another", "not a directory"},
+		{file, "not a directory (a file of that name exists)", "does not exist"},
+		{"", "no directory given", "not a directory"},
+	} {
+		err := Dir("out", c.path)
+		var ce *Error
+		if !errors.As(err, &ce) || !strings.HasPrefix(ce.Msg, "-out "+Quote(c.path)+": ") || !strings.Contains(ce.Msg, c.want) || strings.Contains(ce.Msg, c.not) {
+			t.Errorf("Dir(%q) = %v, want a usage error saying %q", c.path, err, c.want)
+		}
 	}
 }
 
