@@ -46,18 +46,18 @@ func TestByHand(t *testing.T) {
 	rhoM := o.Plain.Test.Tank.Density.Value()
 	nuS := o.Plain.Test.Sea.KinematicViscosity.Value()
 	rhoS := o.Plain.Test.Sea.Density.Value()
-	Vm, Lm, Sm, R := 1.00, 2.0, 1.62, 4.055
-	fn := Vm / math.Sqrt(9.80665*Lm)
+	vM, Lm, Sm, R := 1.00, 2.0, 1.62, 4.055
+	fn := vM / math.Sqrt(9.80665*Lm)
 	cf := func(re float64) float64 { d := math.Log10(re) - 2; return 0.075 / (d * d) }
-	ctm := R / (0.5 * rhoM * Vm * Vm * Sm)
-	cfm := cf(Vm * Lm / nuM)
+	ctm := R / (0.5 * rhoM * vM * vM * Sm)
+	cfm := cf(vM * Lm / nuM)
 	cr := ctm - cfm
-	Vs := Vm * 4 // √16
-	cfs := cf(Vs * 32 / nuS)
+	vS := vM * 4 // √16
+	cfs := cf(vS * 32 / nuS)
 	cts := cfs + cr + 0.0004
-	Rs := cts * 0.5 * rhoS * Vs * Vs * Sm * 256
+	Rs := cts * 0.5 * rhoS * vS * vS * Sm * 256
 	got := []float64{p.Froude, p.ModelCT, p.ModelCF, p.ShipSpeed.Value(), p.ShipResistance.Value(), p.EffectivePower.Value()}
-	want := []float64{fn, ctm, cfm, Vs, Rs, Rs * Vs}
+	want := []float64{fn, ctm, cfm, vS, Rs, Rs * vS}
 	for i := range got {
 		if math.Abs(got[i]/want[i]-1) > 1e-12 {
 			t.Errorf("quantity %d: %v, by hand %v", i, got[i], want[i])
