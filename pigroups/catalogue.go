@@ -101,18 +101,20 @@ func inferKinds(d quantity.Dim) []string {
 	return out
 }
 
-func candidateKinds(v Variable) ([]string, error) {
+// checkKind checks a variable's kind, if it has one: known, and of the
+// variable's dimension.
+func checkKind(v Variable) error {
 	if v.Kind == "" {
-		return inferKinds(v.Dim), nil // shared, never modified
+		return nil
 	}
 	d, ok := KindDim(v.Kind)
 	if !ok {
-		return nil, &Error{Op: OpProblem, Kind: ErrUnknownKind, Symbol: v.Symbol, Reason: fmt.Sprintf("kind %q", v.Kind)}
+		return &Error{Op: OpProblem, Kind: ErrUnknownKind, Symbol: v.Symbol, Reason: fmt.Sprintf("kind %q", v.Kind)}
 	}
 	if d != v.Dim {
-		return nil, &Error{Op: OpProblem, Kind: ErrKindDimension, Symbol: v.Symbol, Reason: fmt.Sprintf("a %s has dimension %s, the variable %s", v.Kind, d, v.Dim)}
+		return &Error{Op: OpProblem, Kind: ErrKindDimension, Symbol: v.Symbol, Reason: fmt.Sprintf("a %s has dimension %s, the variable %s", v.Kind, d, v.Dim)}
 	}
-	return []string{v.Kind}, nil
+	return nil
 }
 
 // Named is a named dimensionless group of the trade, defined by the kinds
@@ -743,12 +745,12 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 			return
 		}
 		i := terms[k]
-		v := p.vars[i]
+		v := &p.vars[i]
 		for fi, fp := range f.terms {
 			if used[fi] || fp.dim != v.Dim {
 				continue
 			}
-			explicit := slices.Contains(p.kinds[i], fp.Name)
+			explicit := slices.Contains(v.kinds, fp.Name)
 			if !explicit && (v.Kind != "" || !fp.known || fp.explicit) {
 				continue
 			}

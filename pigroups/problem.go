@@ -3,6 +3,7 @@ package pigroups
 import (
 	"errors"
 	"fmt"
+	"math"
 	"slices"
 	"strings"
 	"unicode"
@@ -142,17 +143,27 @@ var errInternal = errors.New("internal error")
 
 // Problem is a list of variables with its dimensional matrix and rank.
 type Problem struct {
-	vars  []Variable
-	kinds [][]string      // candidate kinds of each variable
-	ai    exact.IntMatrix // the dimensional matrix in sixths (ratMatrix: as Rats)
-	rows  []quantity.Base // base dimensions that appear, in ISO order
-	rank  int
-	dep   int // index of the dependent variable, or −1
+	vars []varInfo
+	rows []quantity.Base // base dimensions that appear, in ISO order
+	rank int
+	dep  int // index of the dependent variable, or −1
 
-	// The backing arrays of rows and of ai's row headers, in the
-	// Problem's own allocation.
+	// The backing array of rows, in the Problem's own allocation.
 	rowBuf [quantity.NumBases]quantity.Base
-	aiBuf  [quantity.NumBases][]int64
+}
+
+// varInfo is a variable with what the problem derives from it once: its
+// candidate kinds and its column of the dimensional matrix, so that a
+// problem is two allocations, itself and its variables.
+type varInfo struct {
+	Variable
+	kinds []string // candidate kinds; one[:] for a kind given explicitly
+	one   [1]string
+	// six holds the exponent of each base dimension of the problem's
+	// rows (row i is rows[i]) in sixths, as whole numbers: scaling a
+	// matrix changes neither its rank nor its null space, and integers
+	// eliminate faster. Matrix and MatrixTable divide by six.
+	six [quantity.NumBases]int64
 }
 
 // tooLarge reports an overflow of the exact arithmetic as what the user
@@ -207,7 +218,7 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 	if len(vars) > MaxVariables {
 		return nil, &Error{Op: OpProblem, Kind: ErrTooManyVariables, Reason: fmt.Sprintf("%d variables, at most %d", len(vars), MaxVariables)}
 	}
-	p := &Problem{vars: slices.Clone(vars), dep: -1, kinds: make([][]string, 0, len(vars))}
+	p := &Problem{vars: make([]varInfo, len(vars)), dep: -1}
 	p.rows = p.rowBuf[:0]
 	for i, v := range vars {
 		if reason := badSymbol(v.Symbol); reason != "" {
@@ -227,11 +238,17 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 			}
 			p.dep = i
 		}
-		ks, err := candidateKinds(v)
-		if err != nil {
+		if err := checkKind(v); err != nil {
 			return nil, err
 		}
-		p.kinds = append(p.kinds, ks)
+		vi := &p.vars[i]
+		vi.Variable = v
+		if v.Kind == "" {
+			vi.kinds = inferKinds(v.Dim) // shared, never modified
+		} else {
+			vi.one[0] = v.Kind
+			vi.kinds = vi.one[:]
+		}
 	}
 	for b := quantity.Base(0); b < quantity.NumBases; b++ {
 		for _, v := range vars {
@@ -241,32 +258,70 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 			}
 		}
 	}
-	p.ai = exact.IntMatrix(p.aiBuf[:len(p.rows):len(p.rows)])
-	cells := make([]int64, len(p.rows)*len(vars))
-	for i, b := range p.rows {
-		p.ai[i] = cells[i*len(vars) : (i+1)*len(vars) : (i+1)*len(vars)]
-		for j, v := range vars {
-			p.ai[i][j] = int64(v.Dim.Sixths(b))
-			// Held in sixths, as whole numbers: scaling a matrix changes
-			// neither its rank nor its null space, and integers eliminate
-			// faster. Matrix and MatrixTable divide by six.
+	for j := range p.vars {
+		for i, b := range p.rows {
+			p.vars[j].six[i] = int64(p.vars[j].Dim.Sixths(b))
 		}
 	}
-	var rows [quantity.NumBases][]int64
-	var pivBuf [quantity.NumBases]int
-	all := p.intColumns(nil)
-	for i := range p.rows {
-		copy(all[i][:len(vars)], p.ai[i])
-	}
-	for i := range p.rows {
-		rows[i] = all[i][:len(vars):len(vars)]
-	}
-	piv, err := exact.IntMatrix(rows[:len(p.rows)]).GaussJordan(pivBuf[:0])
+	rank, err := p.matrixRank()
 	if err != nil {
 		return nil, p.tooLarge(err)
 	}
-	p.rank = len(piv)
+	p.rank = rank
 	return p, nil
+}
+
+// matrixRank returns the rank of the dimensional matrix. The variables'
+// columns are reduced one at a time against the independent ones kept so
+// far, fraction-free on vectors of at most NumBases entries, each kept
+// column zero at the earlier ones' pivots, until as many are kept as
+// there are rows.
+func (p *Problem) matrixRank() (int, error) {
+	var (
+		basis [quantity.NumBases][quantity.NumBases]int64
+		pivot [quantity.NumBases]int
+	)
+	nr, r := len(p.rows), 0
+	for j := range p.vars {
+		if r == nr {
+			break
+		}
+		v := p.vars[j].six
+		for b := range r {
+			c := v[pivot[b]]
+			if c == 0 {
+				continue
+			}
+			pv := basis[b][pivot[b]]
+			g := int64(0)
+			for i := range nr {
+				x, ok1 := exact.Mul64(pv, v[i])
+				y, ok2 := exact.Mul64(c, basis[b][i])
+				if !ok1 || !ok2 || y == math.MinInt64 {
+					return 0, exact.ErrOverflow
+				}
+				d, ok := exact.Add64(x, -y)
+				if !ok || d == math.MinInt64 {
+					return 0, exact.ErrOverflow
+				}
+				v[i] = d
+				g = exact.GCD(g, d)
+			}
+			if g > 1 {
+				for i := range nr {
+					v[i] /= g
+				}
+			}
+		}
+		for i := range nr {
+			if v[i] != 0 {
+				basis[r], pivot[r] = v, i
+				r++
+				break
+			}
+		}
+	}
+	return r, nil
 }
 
 // MustProblem is like NewProblem but panics on error; for variables
@@ -283,7 +338,13 @@ func MustProblem(vars ...Variable) *Problem {
 func (p *Problem) DependentIndex() int { return p.dep }
 
 // Variables returns a copy of the variables.
-func (p *Problem) Variables() []Variable { return slices.Clone(p.vars) }
+func (p *Problem) Variables() []Variable {
+	out := make([]Variable, len(p.vars))
+	for i, v := range p.vars {
+		out[i] = v.Variable
+	}
+	return out
+}
 
 // Rank returns the rank of the dimensional matrix, found by exact
 // rational elimination: the number of repeating variables a Pi set needs.
@@ -317,7 +378,7 @@ func (p *Problem) Kinds(i int) ([]string, error) {
 	if i < 0 || i >= len(p.vars) {
 		return nil, &Error{Op: OpProblem, Kind: ErrUnknownVariable, Reason: fmt.Sprintf("index %d of a problem of %d variables", i, len(p.vars))}
 	}
-	return slices.Clone(p.kinds[i]), nil
+	return slices.Clone(p.vars[i].kinds), nil
 }
 
 // Index returns the index of the variable with the given symbol, or an
@@ -345,7 +406,7 @@ func (p *Problem) Owns(g Group) bool {
 	if gp == p {
 		return true
 	}
-	return gp != nil && slices.EqualFunc(gp.vars, p.vars, func(a, b Variable) bool { return a.Symbol == b.Symbol && a.Dim == b.Dim })
+	return gp != nil && slices.EqualFunc(gp.vars, p.vars, func(a, b varInfo) bool { return a.Symbol == b.Symbol && a.Dim == b.Dim })
 }
 
 // CheckGroup returns nil if p owns g, and otherwise an error wrapping
@@ -488,7 +549,7 @@ type intCells [quantity.NumBases][MaxVariables]int64
 func (p *Problem) intColumns(idx []int) (c intCells) {
 	for i := range p.rows {
 		for k, j := range idx {
-			c[i][k] = p.ai[i][j]
+			c[i][k] = p.vars[j].six[i]
 		}
 	}
 	return c
@@ -505,7 +566,7 @@ func (p *Problem) ratMatrix() exact.Matrix[quantity.Rat] {
 	m := exact.NewMatrix[quantity.Rat](len(p.rows), len(p.vars))
 	for i := range m {
 		for j := range m[i] {
-			m[i][j] = quantity.RatInt(p.ai[i][j])
+			m[i][j] = quantity.RatInt(p.vars[j].six[i])
 		}
 	}
 	return m
@@ -516,7 +577,7 @@ func (p *Problem) columns(idx []int) exact.Matrix[quantity.Rat] {
 	m := exact.NewMatrix[quantity.Rat](len(p.rows), len(idx))
 	for i := range p.rows {
 		for k, j := range idx {
-			m[i][k] = quantity.RatInt(p.ai[i][j])
+			m[i][k] = quantity.RatInt(p.vars[j].six[i])
 		}
 	}
 	return m
@@ -535,32 +596,9 @@ func (p *Problem) CheckRepeating(set ...string) error {
 }
 
 func (p *Problem) repeatingIndex(set []string) ([]int, error) {
-	fail := func(err error, sym string) *Error {
-		return &Error{Op: OpRepeating, Kind: err, Set: slices.Clone(set), Want: p.rank, Symbol: sym}
-	}
-	idx := make([]int, 0, len(set))
-	for _, s := range set {
-		i := p.index(s)
-		if i < 0 {
-			return nil, fail(ErrRepeatingUnknown, s)
-		}
-		if slices.Contains(idx, i) {
-			e := fail(ErrRepeatingCount, s)
-			e.Hint = fmt.Sprintf("%q is given twice", s)
-			return nil, e
-		}
-		if i == p.dep {
-			return nil, fail(ErrRepeatingDep, s)
-		}
-		idx = append(idx, i)
-	}
-	if len(idx) != p.rank {
-		return nil, fail(ErrRepeatingCount, "")
-	}
-	if p.NumGroups() == 0 {
-		e := fail(ErrNoGroups, "")
-		e.Hint = fmt.Sprintf("the rank equals the %d variables, so every variable repeats and no group is left", len(p.vars))
-		return nil, e
+	idx, err := p.repeatingMembers(make([]int, 0, len(set)), set)
+	if err != nil {
+		return nil, err
 	}
 	var uncovered []quantity.Base
 	var rows [quantity.NumBases][]int64
@@ -602,6 +640,40 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 				e.Combination = p.spell(exps, quantity.ASCII)
 			}
 		}
+		return nil, e
+	}
+	return idx, nil
+}
+
+// repeatingMembers appends to dst the indices of a repeating set's
+// members, checking all that CheckRepeating does but that they carry every
+// base dimension and are independent.
+func (p *Problem) repeatingMembers(dst []int, set []string) ([]int, error) {
+	fail := func(err error, sym string) *Error {
+		return &Error{Op: OpRepeating, Kind: err, Set: slices.Clone(set), Want: p.rank, Symbol: sym}
+	}
+	idx := dst
+	for _, s := range set {
+		i := p.index(s)
+		if i < 0 {
+			return nil, fail(ErrRepeatingUnknown, s)
+		}
+		if slices.Contains(idx, i) {
+			e := fail(ErrRepeatingCount, s)
+			e.Hint = fmt.Sprintf("%q is given twice", s)
+			return nil, e
+		}
+		if i == p.dep {
+			return nil, fail(ErrRepeatingDep, s)
+		}
+		idx = append(idx, i)
+	}
+	if len(idx) != p.rank {
+		return nil, fail(ErrRepeatingCount, "")
+	}
+	if p.NumGroups() == 0 {
+		e := fail(ErrNoGroups, "")
+		e.Hint = fmt.Sprintf("the rank equals the %d variables, so every variable repeats and no group is left", len(p.vars))
 		return nil, e
 	}
 	return idx, nil
@@ -683,7 +755,7 @@ func (p *Problem) eachRepeating(f func(idx []int) bool) {
 			j := cand[k]
 			v := make([]quantity.Rat, len(p.rows))
 			for i := range p.rows {
-				v[i] = quantity.RatInt(p.ai[i][j])
+				v[i] = quantity.RatInt(p.vars[j].six[i])
 			}
 			// Reduce v by the current basis.
 			ok := true
@@ -742,7 +814,7 @@ func (p *Problem) dependentOnly() error {
 	for i, b := range p.rows {
 		others := false
 		for j := range p.vars {
-			if j != p.dep && p.ai[i][j] != 0 {
+			if j != p.dep && p.vars[j].six[i] != 0 {
 				others = true
 				break
 			}
@@ -764,7 +836,7 @@ var preference = map[string]int{
 
 func (p *Problem) prefRank(i int) int {
 	best := 50
-	for _, k := range p.kinds[i] {
+	for _, k := range p.vars[i].kinds {
 		if r, ok := preference[k]; ok && r < best {
 			best = r
 		}
