@@ -622,8 +622,8 @@ type matchArena struct {
 
 // recogniseIn is recognise writing the Assumed lists into an arena (nil
 // for their own) and the matches into dst's room when it has room for
-// two (a caller's scratch, which it copies out: a separate parameter, so
-// that a stack array stays on the stack), into a new slice otherwise; the
+// two (the free part of a caller's stack buffer: a separate parameter, so
+// that the array stays on the stack), into a new slice otherwise; the
 // result's capacity is its length.
 func (p *Problem) recogniseIn(ar *matchArena, dst []Match, exps []quantity.Rat) []Match {
 	var termBuf [16]int
@@ -666,6 +666,9 @@ func (p *Problem) recogniseIn(ar *matchArena, dst []Match, exps []quantity.Rat) 
 			last = f.named // one match per named group
 		}
 	}
+	if len(out) < 2 {
+		return out[:len(out):len(out)]
+	}
 	slices.SortStableFunc(out, func(a, b Match) int {
 		if a.Exact() != b.Exact() {
 			if a.Exact() {
@@ -705,7 +708,14 @@ func (p *Problem) sameDims(f *compiledForm, terms []int) bool {
 // general product's overflow checks.
 func ratDiv(a, b quantity.Rat) (quantity.Rat, error) {
 	if a.IsInt() && b.IsInt() {
-		if n, d := a.Num(), b.Num(); d != 0 && d != -1 && n%d == 0 {
+		n, d := a.Num(), b.Num()
+		switch d {
+		case 1:
+			return a, nil
+		case -1:
+			return a.Neg(), nil // exact: no Rat holds math.MinInt64
+		}
+		if d != 0 && n%d == 0 {
 			return quantity.RatInt(n / d), nil
 		}
 	}
@@ -750,7 +760,7 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 			if used[fi] || fp.dim != v.Dim {
 				continue
 			}
-			explicit := slices.Contains(v.kinds, fp.Name)
+			explicit := v.hasKind(fp.Name)
 			if !explicit && (v.Kind != "" || !fp.known || fp.explicit) {
 				continue
 			}

@@ -152,19 +152,30 @@ type Problem struct {
 	rowBuf [quantity.NumBases]quantity.Base
 }
 
-// varInfo is a variable with what the problem derives from it once: its
-// candidate kinds and its column of the dimensional matrix, so that a
-// problem is two allocations, itself and its variables.
+// varInfo is a variable with the candidate kinds its dimension can mean,
+// found once, so that a problem is two allocations: itself and its
+// variables.
 type varInfo struct {
 	Variable
-	kinds []string // candidate kinds; one[:] for a kind given explicitly
-	one   [1]string
-	// six holds the exponent of each base dimension of the problem's
-	// rows (row i is rows[i]) in sixths, as whole numbers: scaling a
-	// matrix changes neither its rank nor its null space, and integers
-	// eliminate faster. Matrix and MatrixTable divide by six.
-	six [quantity.NumBases]int64
+	// inferred are the kinds Dim can mean, for a variable without a
+	// Kind (shared, never modified); nil when Kind is given.
+	inferred []string
 }
+
+// hasKind reports whether k is one of the variable's candidate kinds.
+func (v *varInfo) hasKind(k string) bool {
+	if v.Kind != "" {
+		return v.Kind == k
+	}
+	return slices.Contains(v.inferred, k)
+}
+
+// sixth returns entry (i, j) of the dimensional matrix in sixths: the
+// exponent of base dimension rows[i] in variable j's dimension, as a
+// whole number. Scaling a matrix changes neither its rank nor its null
+// space, and integers eliminate faster; Matrix and MatrixTable divide by
+// six.
+func (p *Problem) sixth(i, j int) int64 { return int64(p.vars[j].Dim.Sixths(p.rows[i])) }
 
 // tooLarge reports an overflow of the exact arithmetic as what the user
 // did: the variables' exponents are too large (or too many) for 64-bit
@@ -241,13 +252,9 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 		if err := checkKind(v); err != nil {
 			return nil, err
 		}
-		vi := &p.vars[i]
-		vi.Variable = v
+		p.vars[i].Variable = v
 		if v.Kind == "" {
-			vi.kinds = inferKinds(v.Dim) // shared, never modified
-		} else {
-			vi.one[0] = v.Kind
-			vi.kinds = vi.one[:]
+			p.vars[i].inferred = inferKinds(v.Dim)
 		}
 	}
 	for b := quantity.Base(0); b < quantity.NumBases; b++ {
@@ -256,11 +263,6 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 				p.rows = append(p.rows, b)
 				break
 			}
-		}
-	}
-	for j := range p.vars {
-		for i, b := range p.rows {
-			p.vars[j].six[i] = int64(p.vars[j].Dim.Sixths(b))
 		}
 	}
 	rank, err := p.matrixRank()
@@ -286,7 +288,10 @@ func (p *Problem) matrixRank() (int, error) {
 		if r == nr {
 			break
 		}
-		v := p.vars[j].six
+		var v [quantity.NumBases]int64
+		for i := range nr {
+			v[i] = p.sixth(i, j)
+		}
 		for b := range r {
 			c := v[pivot[b]]
 			if c == 0 {
@@ -378,7 +383,10 @@ func (p *Problem) Kinds(i int) ([]string, error) {
 	if i < 0 || i >= len(p.vars) {
 		return nil, &Error{Op: OpProblem, Kind: ErrUnknownVariable, Reason: fmt.Sprintf("index %d of a problem of %d variables", i, len(p.vars))}
 	}
-	return slices.Clone(p.vars[i].kinds), nil
+	if k := p.vars[i].Kind; k != "" {
+		return []string{k}, nil
+	}
+	return slices.Clone(p.vars[i].inferred), nil
 }
 
 // Index returns the index of the variable with the given symbol, or an
@@ -549,7 +557,7 @@ type intCells [quantity.NumBases][MaxVariables]int64
 func (p *Problem) intColumns(idx []int) (c intCells) {
 	for i := range p.rows {
 		for k, j := range idx {
-			c[i][k] = p.vars[j].six[i]
+			c[i][k] = p.sixth(i, j)
 		}
 	}
 	return c
@@ -566,7 +574,7 @@ func (p *Problem) ratMatrix() exact.Matrix[quantity.Rat] {
 	m := exact.NewMatrix[quantity.Rat](len(p.rows), len(p.vars))
 	for i := range m {
 		for j := range m[i] {
-			m[i][j] = quantity.RatInt(p.vars[j].six[i])
+			m[i][j] = quantity.RatInt(p.sixth(i, j))
 		}
 	}
 	return m
@@ -577,7 +585,7 @@ func (p *Problem) columns(idx []int) exact.Matrix[quantity.Rat] {
 	m := exact.NewMatrix[quantity.Rat](len(p.rows), len(idx))
 	for i := range p.rows {
 		for k, j := range idx {
-			m[i][k] = quantity.RatInt(p.vars[j].six[i])
+			m[i][k] = quantity.RatInt(p.sixth(i, j))
 		}
 	}
 	return m
@@ -755,7 +763,7 @@ func (p *Problem) eachRepeating(f func(idx []int) bool) {
 			j := cand[k]
 			v := make([]quantity.Rat, len(p.rows))
 			for i := range p.rows {
-				v[i] = quantity.RatInt(p.vars[j].six[i])
+				v[i] = quantity.RatInt(p.sixth(i, j))
 			}
 			// Reduce v by the current basis.
 			ok := true
@@ -814,7 +822,7 @@ func (p *Problem) dependentOnly() error {
 	for i, b := range p.rows {
 		others := false
 		for j := range p.vars {
-			if j != p.dep && p.vars[j].six[i] != 0 {
+			if j != p.dep && p.sixth(i, j) != 0 {
 				others = true
 				break
 			}
@@ -836,7 +844,11 @@ var preference = map[string]int{
 
 func (p *Problem) prefRank(i int) int {
 	best := 50
-	for _, k := range p.vars[i].kinds {
+	ks := p.vars[i].inferred
+	if k := p.vars[i].Kind; k != "" {
+		ks = []string{k}
+	}
+	for _, k := range ks {
 		if r, ok := preference[k]; ok && r < best {
 			best = r
 		}

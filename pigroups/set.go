@@ -99,12 +99,10 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 	n := len(p.vars)
 	cells := make([]quantity.Rat, n*len(order))
 	s.groups = make([]Group, 0, len(order))
-	// The matches are gathered on the stack, a group's at a time in
-	// scratch and then all of them in pending, and copied once into a
-	// slice of exactly their number (most groups match one named group
-	// or none); the buffers are not kept.
+	// The matches are gathered on the stack in pending and copied once
+	// into a slice of exactly their number (most groups match one named
+	// group or none); the buffers are not kept.
 	var (
-		scratch [8]Match
 		pendBuf [16]Match
 		cntBuf  [32]int
 	)
@@ -129,8 +127,20 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		// v solves A·v = 0 exactly by construction: the property tests
 		// check every group's dimension, not this path.
 		g := Group{Name: piName(k + 1), Var: j, exps: v, prob: p}
-		ms := p.recogniseIn(&ar, scratch[:0], v)
-		pending = append(pending, ms...)
+		// A group's matches are written straight after those before it
+		// while there is room, and copied when recognition needed a
+		// slice of its own.
+		n := len(pending)
+		var room []Match
+		if n < len(pendBuf) { // pending is still pendBuf
+			room = pendBuf[n:n]
+		}
+		ms := p.recogniseIn(&ar, room, v)
+		if len(ms) > 0 && n < len(pendBuf) && &ms[0] == &pendBuf[n] {
+			pending = pending[:n+len(ms)]
+		} else {
+			pending = append(pending, ms...)
+		}
 		counts = append(counts, len(ms))
 		s.groups = append(s.groups, g)
 	}
@@ -255,7 +265,7 @@ func (p *Problem) dimensionless(v []quantity.Rat) bool {
 		for i := range p.rows {
 			var sum int64
 			for j, x := range v {
-				sum += p.vars[j].six[i] * x.Num()
+				sum += p.sixth(i, j) * x.Num()
 			}
 			if sum != 0 {
 				return false
@@ -266,7 +276,7 @@ func (p *Problem) dimensionless(v []quantity.Rat) bool {
 	for i := range p.rows {
 		sum := quantity.RatInt(0)
 		for j, x := range v {
-			t, err := quantity.RatInt(p.vars[j].six[i]).Mul(x)
+			t, err := quantity.RatInt(p.sixth(i, j)).Mul(x)
 			if err != nil {
 				return false
 			}
