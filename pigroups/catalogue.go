@@ -455,12 +455,7 @@ func (m Match) FactorText() string {
 func factorText(c quantity.Rat, k int) string {
 	n, d := c.Num(), c.Den()
 	piNum, piDen := "", ""
-	piPow := func(a int) string {
-		if a == 1 {
-			return "π"
-		}
-		return "π" + expText(quantity.RatInt(int64(a)), quantity.Unicode)
-	}
+	piPow := func(a int) string { return powerText("π", quantity.RatInt(int64(a))) }
 	if k > 0 {
 		n <<= k
 		piNum = piPow(k)
@@ -495,7 +490,7 @@ func (m Match) Label() string {
 	}
 	k := factorText(c, m.TwoPiPower())
 	if k == "" {
-		return powerLabel(m.Symbol, m.Power)
+		return powerText(m.Symbol, m.Power)
 	}
 	ci, _ := quantity.RatInt(1).Div(c)
 	ki := factorText(ci, -m.TwoPiPower()) // 1/k
@@ -517,7 +512,7 @@ func (m Match) Label() string {
 		}
 		return k + "/" + m.Symbol
 	}
-	return powerLabel("("+first+")", m.Power)
+	return powerText("("+first+")", m.Power)
 }
 
 func parenFactor(s string) string {
@@ -527,22 +522,6 @@ func parenFactor(s string) string {
 	return s
 }
 
-// powerLabel writes sym to an exact power: "Re", "1/Re", "Fr²",
-// "Re^(1/2)".
-func powerLabel(sym string, p quantity.Rat) string {
-	switch {
-	case p.Num() == 1 && p.Den() == 1:
-		return sym
-	case p.Num() == -1 && p.Den() == 1:
-		return "1/" + sym
-	case p.IsInt() && p.Num() > 0:
-		return sym + expText(p, quantity.Unicode)
-	case p.IsInt():
-		return "1/" + sym + expText(p.Neg(), quantity.Unicode)
-	}
-	return sym + "^(" + p.String() + ")"
-}
-
 // Equation writes the named group in terms of a group called name:
 // "Re = Π₃", "Fr = Π₂^(1/2)", "K_T = 4π²·Π₁", "C_D = 2·Π₁·L²/A".
 func (m Match) Equation(name string) string {
@@ -550,7 +529,7 @@ func (m Match) Equation(name string) string {
 	if err != nil {
 		inv = quantity.RatInt(1)
 	}
-	g := powerLabel(name, inv)
+	g := powerText(name, inv)
 	k := m.FactorText()
 	rhs := g
 	if k != "" {
@@ -561,11 +540,8 @@ func (m Match) Equation(name string) string {
 		}
 	}
 	if m.Proxy != nil {
-		rhs += "·" + m.Proxy.Symbol + expText(m.Proxy.Exp.Neg(), quantity.Unicode)
-		rhs += "/" + m.Proxy.Ref.Name
-		if !(m.Proxy.Ref.Exp.Num() == -1 && m.Proxy.Ref.Exp.Den() == 1) {
-			rhs += expText(m.Proxy.Ref.Exp.Neg(), quantity.Unicode)
-		}
+		// The stand-in out, the reference quantity in: ·L²/A.
+		rhs += "·" + quantity.Product{{Name: m.Proxy.Symbol, Exp: m.Proxy.Exp.Neg()}, m.Proxy.Ref}.Format(quantity.Unicode, quantity.Fraction, "")
 	}
 	return m.Symbol + " = " + rhs
 }
@@ -588,7 +564,7 @@ func (m Match) describe(name string) string {
 	}
 	switch {
 	case m.Proxy != nil:
-		fmt.Fprintf(&sb, "; %s, and %s%s stands in for %s %s: %s", m.Definition, m.Proxy.Symbol, expText(m.Proxy.Exp.Neg(), quantity.Unicode), m.Proxy.What, m.Proxy.Ref.Name, m.Equation(name))
+		fmt.Fprintf(&sb, "; %s, and %s stands in for %s %s: %s", m.Definition, powerText(m.Proxy.Symbol, m.Proxy.Exp.Neg()), m.Proxy.What, m.Proxy.Ref.Name, m.Equation(name))
 	case m.FactorText() != "":
 		fmt.Fprintf(&sb, "; %s: %s", m.Definition, m.Equation(name))
 		if m.TwoPiPower() != 0 {

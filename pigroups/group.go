@@ -128,6 +128,19 @@ func (g Group) Dim() (quantity.Dim, error) {
 	return d, nil
 }
 
+// Product returns the group as a product of powers of its variables,
+// each factor named by the variable's symbol, in variable order, with the
+// exact exponents and none that is zero: {ρ 1, V 1, D 1, μ −1} for
+// ρ·V·D/μ. Format writes this product, after the group's numerical
+// factor (Factor) when it has one; NewGroup reads it back. The zero Group
+// is the empty product.
+func (g Group) Product() quantity.Product {
+	if g.prob == nil {
+		return nil
+	}
+	return g.prob.product(g.exps, quantity.Unicode)
+}
+
 // String writes the group in plain text: "mu/(rho*V*D)".
 func (g Group) String() string { return g.Format(quantity.ASCII) }
 
@@ -137,7 +150,7 @@ func (g Group) Format(style quantity.Style) string {
 	if g.prob == nil {
 		return "(no group)"
 	}
-	body := g.prob.FormatProduct(g.exps, style)
+	body := g.prob.product(g.exps, style).Format(style, quantity.Fraction, "")
 	k := g.factorText()
 	if k == "" {
 		return body

@@ -429,20 +429,21 @@ func (p *Problem) CheckGroup(g Group) error {
 	return &Error{Op: OpProblem, Kind: ErrForeignGroup, Symbol: g.Name, Reason: fmt.Sprintf("%s is a group of the variables %s, not of %s", g, g.prob.symbols(), p.symbols())}
 }
 
-// NewGroup returns the group ∏ xᵢ^eᵢ of the problem's variables, the
-// exponents given by symbol, recognised against the catalogue; the
-// symbols must be the problem's and the product dimensionless.
-func (p *Problem) NewGroup(name string, exps map[string]quantity.Rat) (Group, error) {
+// NewGroup returns the group a product of powers of the problem's
+// variables names — the factors' names are the variables' symbols, as
+// Group.Product writes them — recognised against the catalogue. The
+// symbols must be the problem's and the product dimensionless; a symbol
+// given twice has its exponents added, as in any product.
+func (p *Problem) NewGroup(name string, prod quantity.Product) (Group, error) {
 	v := make([]quantity.Rat, len(p.vars))
-	for i := range v {
-		v[i] = quantity.RatInt(0)
-	}
-	for sym, e := range exps {
-		i, err := p.Index(sym)
+	for _, f := range prod {
+		i, err := p.Index(f.Name)
 		if err != nil {
 			return Group{}, err
 		}
-		v[i] = e
+		if v[i], err = v[i].Add(f.Exp); err != nil {
+			return Group{}, p.tooLarge(err)
+		}
 	}
 	if !p.dimensionless(v) {
 		return Group{}, &Error{Op: OpProblem, Kind: ErrNotDimensionless, Symbol: name, Reason: p.FormatProduct(v, quantity.Unicode) + " has a dimension"}
@@ -641,11 +642,11 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 		if len(ns) > 0 {
 			iv, _, err := integers(ns[0])
 			if err == nil {
-				exps := make(map[int]quantity.Rat)
+				exps := make([]quantity.Rat, len(p.vars))
 				for k, j := range idx {
 					exps[j] = iv[k]
 				}
-				e.Combination = p.spell(exps, quantity.ASCII)
+				e.Combination = p.FormatProduct(exps, quantity.ASCII)
 			}
 		}
 		return nil, e

@@ -176,11 +176,7 @@ func TestPiSetManyMatches(t *testing.T) {
 	}
 	total := 0
 	for _, g := range s.Groups() {
-		exps := map[string]q.Rat{}
-		for i, e := range g.Exponents() {
-			exps[vars[i].Symbol] = e
-		}
-		alone, err := p.NewGroup(g.Name, exps)
+		alone, err := p.NewGroup(g.Name, g.Product())
 		if err != nil {
 			t.Fatal(err)
 		}
