@@ -85,19 +85,46 @@ func KindDim(name string) (quantity.Dim, bool) {
 // diffusivity or diffusion coefficient), none when no kind is known.
 func InferKinds(d quantity.Dim) []string { return slices.Clone(inferKinds(d)) }
 
-var inferCache sync.Map // quantity.Dim → []string, read-only once stored
+// inferKnown holds the inferred kinds of every dimension a kind of
+// package quantity or of the trade has, found once: a plain map, read
+// only, so that a problem's variables find theirs without locking.
+var inferKnown = func() map[quantity.Dim][]string {
+	m := make(map[quantity.Dim][]string)
+	for _, k := range quantity.Kinds() {
+		m[k.Dim] = nil
+	}
+	for _, d := range tradeKinds {
+		m[d] = nil
+	}
+	for d := range m {
+		m[d] = kindsOf(d)
+	}
+	return m
+}()
+
+var inferCache sync.Map // other dimensions: quantity.Dim → []string, read-only once stored
 
 func inferKinds(d quantity.Dim) []string {
+	if ks, ok := inferKnown[d]; ok {
+		return ks
+	}
 	if v, ok := inferCache.Load(d); ok {
 		return v.([]string)
 	}
+	out := kindsOf(d)
+	inferCache.Store(d, out)
+	return out
+}
+
+// kindsOf returns the kinds of package quantity a dimension can mean,
+// synonyms left out.
+func kindsOf(d quantity.Dim) []string {
 	var out []string
 	for _, n := range quantity.KindNames(d) {
 		if !synonyms[n] {
 			out = append(out, n)
 		}
 	}
-	inferCache.Store(d, out)
 	return out
 }
 

@@ -212,6 +212,9 @@ func badSymbol(s string) string {
 		return "the symbol is not valid UTF-8"
 	}
 	for _, r := range s {
+		if r < utf8.RuneSelf && r > ' ' && r != 0x7f && !strings.ContainsRune("*/^()=,@", r) {
+			continue // printable ASCII that is no operator, the usual case
+		}
 		if unicode.IsSpace(r) || unicode.IsControl(r) || strings.ContainsRune("*/^()·=,@", r) {
 			return fmt.Sprintf("the symbol may not contain %q (spaces, control characters and the operators * / ^ ( ) · = , @)", r)
 		}
