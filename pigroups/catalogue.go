@@ -416,6 +416,41 @@ var compiledByLen = func() [][]int {
 	return by
 }()
 
+// sigKey selects the compiled forms a group can match: its number of
+// factors and the product of their dimensions.
+type sigKey struct {
+	n   int
+	sig quantity.Dim
+}
+
+// compiledBySig lists, for each number of factors and signature, the
+// indices of the compiled forms a group of that signature can match: the
+// forms with that signature and those whose signature overflowed, in
+// catalogue order, so that recognition looks at those alone.
+// compiledUnsig lists the latter alone, by number of factors, for a
+// signature no form has.
+var compiledBySig, compiledUnsig = func() (map[sigKey][]int, [][]int) {
+	m := make(map[sigKey][]int)
+	unsig := make([][]int, len(compiledByLen))
+	for n, forms := range compiledByLen {
+		for _, i := range forms {
+			if f := &compiled[i]; f.sigOK {
+				m[sigKey{n, f.sig}] = nil
+			} else {
+				unsig[n] = append(unsig[n], i)
+			}
+		}
+	}
+	for k := range m {
+		for _, i := range compiledByLen[k.n] {
+			if f := &compiled[i]; !f.sigOK || f.sig == k.sig {
+				m[k] = append(m[k], i)
+			}
+		}
+	}
+	return m, unsig
+}()
+
 // Catalogue returns a copy of the named groups known to recognition.
 func Catalogue() []Named { return slices.Clone(catalogue) }
 
@@ -652,7 +687,14 @@ func (p *Problem) recogniseIn(ar *matchArena, dst []Match, exps []quantity.Rat) 
 	if len(terms) >= len(compiledByLen) {
 		return nil
 	}
-	for _, fi := range compiledByLen[len(terms)] {
+	forms := compiledByLen[len(terms)]
+	if sigOK {
+		var ok bool
+		if forms, ok = compiledBySig[sigKey{len(terms), sig}]; !ok {
+			forms = compiledUnsig[len(terms)] // a signature no form has
+		}
+	}
+	for _, fi := range forms {
 		f := &compiled[fi]
 		if f.named == last || sigOK && f.sigOK && sig != f.sig || !p.sameDims(f, terms) {
 			continue
