@@ -649,7 +649,10 @@ func (m Match) describe(name string) string {
 // recognise matches a group's exponents against the catalogue, best
 // matches (exact before proportional, fewest assumed kinds, lowest
 // power) first.
-func (p *Problem) recognise(exps []quantity.Rat) []Match { return p.recogniseIn(nil, nil, exps) }
+func (p *Problem) recognise(exps []quantity.Rat) []Match {
+	out := p.recogniseIn(nil, nil, 2, exps)
+	return out[:len(out):len(out)]
+}
 
 // matchArena holds the text of the matches of a whole Pi set, so that
 // building a set allocates once for it rather than per group.
@@ -659,11 +662,12 @@ type matchArena struct {
 }
 
 // recogniseIn is recognise writing the Assumed lists into an arena (nil
-// for their own) and the matches into dst's room when it has room for
-// two (the free part of a caller's stack buffer: a separate parameter, so
-// that the array stays on the stack), into a new slice otherwise; the
-// result's capacity is its length.
-func (p *Problem) recogniseIn(ar *matchArena, dst []Match, exps []quantity.Rat) []Match {
+// for their own) and the matches into the room of spare, which has
+// length zero (a block of matches the caller shares between groups),
+// while they fit, and otherwise into a new block of capacity at least
+// hint. The result keeps the room after the matches, for the next group;
+// it is nil when nothing matches.
+func (p *Problem) recogniseIn(ar *matchArena, spare []Match, hint int, exps []quantity.Rat) []Match {
 	var termBuf [16]int
 	terms := termBuf[:0]
 	for i, e := range exps {
@@ -701,18 +705,20 @@ func (p *Problem) recogniseIn(ar *matchArena, dst []Match, exps []quantity.Rat) 
 		}
 		if m, ok := p.matchForm(ar, f, terms, exps); ok {
 			if out == nil {
-				if cap(dst) >= 2 {
-					out = dst[:0]
-				} else {
-					out = make([]Match, 0, 2)
-				}
+				out = spare[:0]
+			}
+			if len(out) == cap(out) {
+				// A new block, the group's matches so far moved to its start.
+				grown := make([]Match, len(out), max(hint, 2*len(out)+1))
+				copy(grown, out)
+				out = grown
 			}
 			out = append(out, m)
 			last = f.named // one match per named group
 		}
 	}
 	if len(out) < 2 {
-		return out[:len(out):len(out)]
+		return out
 	}
 	slices.SortStableFunc(out, func(a, b Match) int {
 		if a.Exact() != b.Exact() {
@@ -726,7 +732,7 @@ func (p *Problem) recogniseIn(ar *matchArena, dst []Match, exps []quantity.Rat) 
 		}
 		return absCmp(a.Power, b.Power)
 	})
-	return out[:len(out):len(out)]
+	return out
 }
 
 // sameDims reports whether the group's variables and the form's kinds
@@ -846,8 +852,12 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 		// Every "a as speed of sound" of the match in one string, sliced,
 		// in the arena's text when there is one; the list from the arena.
 		var own matchArena
-		if ar == nil {
+		shared := ar != nil
+		if !shared {
 			ar = &own
+		}
+		if shared && ar.text.Cap() == 0 {
+			ar.text.Grow(256) // room for a set's worth, at its first
 		}
 		var ends [16]int
 		start := ar.text.Len()

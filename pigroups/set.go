@@ -99,16 +99,12 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 	n := len(p.vars)
 	cells := make([]quantity.Rat, n*len(order))
 	s.groups = make([]Group, 0, len(order))
-	// The matches are gathered on the stack in pending and copied once
-	// into a slice of exactly their number (most groups match one named
-	// group or none); the buffers are not kept.
-	var (
-		pendBuf [16]Match
-		cntBuf  [32]int
-	)
-	pending, counts := pendBuf[:0], cntBuf[:0]
+	// The matches of all the groups share one block, allocated at the
+	// first match with room for one per group left (most groups match
+	// one named group or none), each group's a capped piece of it; a
+	// group that does not fit starts a new block.
+	var spare []Match
 	var ar matchArena
-	ar.text.Grow(256)
 	for k, j := range order {
 		v := cells[k*n : (k+1)*n : (k+1)*n]
 		if !coprimeGroup(v, j, idx, aug, len(idx)+k) {
@@ -127,32 +123,11 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 		// v solves A·v = 0 exactly by construction: the property tests
 		// check every group's dimension, not this path.
 		g := Group{Name: piName(k + 1), Var: j, exps: v, prob: p}
-		// A group's matches are written straight after those before it
-		// while there is room, and copied when recognition needed a
-		// slice of its own.
-		n := len(pending)
-		var room []Match
-		if n < len(pendBuf) { // pending is still pendBuf
-			room = pendBuf[n:n]
+		if ms := p.recogniseIn(&ar, spare, len(order)-k, v); len(ms) > 0 {
+			g.Matches = ms[:len(ms):len(ms)] // a group with no name keeps a nil list
+			spare = ms[len(ms):]
 		}
-		ms := p.recogniseIn(&ar, room, v)
-		if len(ms) > 0 && n < len(pendBuf) && &ms[0] == &pendBuf[n] {
-			pending = pending[:n+len(ms)]
-		} else {
-			pending = append(pending, ms...)
-		}
-		counts = append(counts, len(ms))
 		s.groups = append(s.groups, g)
-	}
-	if len(pending) > 0 {
-		all := make([]Match, len(pending))
-		copy(all, pending)
-		for k, c := range counts {
-			if c > 0 { // a group with no name keeps a nil list
-				s.groups[k].Matches = all[:c:c]
-				all = all[c:]
-			}
-		}
 	}
 	return s, nil
 }
