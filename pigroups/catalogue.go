@@ -510,14 +510,26 @@ func (m Match) FactorText() string {
 	if c.IsZero() {
 		c = quantity.RatInt(1)
 	}
-	return factorText(c, m.TwoPiPower())
+	return factorText(c, m.TwoPiPower(), quantity.Unicode)
 }
 
-// factorText writes c·(2π)^k exactly: "2", "4π²", "1/(2π)"; "" for 1.
-func factorText(c quantity.Rat, k int) string {
+// factorText writes c·(2π)^k exactly in a style: "2", "4π²", "1/(2π)"
+// in Unicode, "4*pi^2" and "1/(2*pi)" in formula text (quantity.ASCII),
+// `4\pi^{2}` in LaTeX; "" for 1. The power of π is a one-factor
+// quantity.Product, written against the number.
+func factorText(c quantity.Rat, k int, style quantity.Style) string {
 	n, d := c.Num(), c.Den()
 	piNum, piDen := "", ""
-	piPow := func(a int) string { return powerText("π", quantity.RatInt(int64(a))) }
+	pi, sep := "π", ""
+	switch style {
+	case quantity.ASCII:
+		pi, sep = "pi", "*"
+	case quantity.LaTeX:
+		pi = `\pi`
+	}
+	piPow := func(a int) string {
+		return sep + quantity.Product{{Name: pi, Exp: quantity.RatInt(int64(a))}}.Format(style, quantity.Inline, "")
+	}
 	if k > 0 {
 		n <<= k
 		piNum = piPow(k)
@@ -550,13 +562,13 @@ func (m Match) Label() string {
 	if c.IsZero() {
 		c = quantity.RatInt(1)
 	}
-	k := factorText(c, m.TwoPiPower())
+	k := factorText(c, m.TwoPiPower(), quantity.Unicode)
 	if k == "" {
 		return powerText(m.Symbol, m.Power)
 	}
 	ci, _ := quantity.RatInt(1).Div(c)
-	ki := factorText(ci, -m.TwoPiPower()) // 1/k
-	var first string                      // the group to the power one: Named/k
+	ki := factorText(ci, -m.TwoPiPower(), quantity.Unicode) // 1/k
+	var first string                                        // the group to the power one: Named/k
 	switch {
 	case !strings.Contains(k, "/"):
 		first = m.Symbol + "/" + parenFactor(k)

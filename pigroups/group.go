@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"regexp"
 	"slices"
 	"strings"
 
@@ -42,11 +41,11 @@ func (g Group) Factor() float64 {
 	return g.coef.Float() * math.Pow(2*math.Pi, float64(g.twoPi))
 }
 
-func (g Group) factorText() string {
+func (g Group) factorText(style quantity.Style) string {
 	if g.coef.IsZero() {
 		return ""
 	}
-	return factorText(g.coef, g.twoPi)
+	return factorText(g.coef, g.twoPi, style)
 }
 
 // ErrNotExact is wrapped by the error of Coefficient for a group that is
@@ -151,19 +150,15 @@ func (g Group) Format(style quantity.Style) string {
 		return "(no group)"
 	}
 	body := g.prob.product(g.exps, style).Format(style, quantity.Fraction, "")
-	k := g.factorText()
+	k := g.factorText(style)
 	if k == "" {
 		return body
 	}
 	sep := "·"
 	switch style {
 	case quantity.ASCII:
-		// Formula text: 4*pi^2, (1/(2*pi)).
-		k = digitPi.ReplaceAllString(k, "$1*π")
-		k = strings.NewReplacer("π", "pi", "²", "^2", "³", "^3").Replace(k)
-		sep = "*"
+		sep = "*" // formula text: 4*pi^2*…, (1/(2*pi))*…
 	case quantity.LaTeX:
-		k = strings.NewReplacer("π", `\pi`, "²", "^{2}", "³", "^{3}").Replace(k)
 		sep = " "
 	}
 	if strings.Contains(k, "/") {
@@ -171,10 +166,6 @@ func (g Group) Format(style quantity.Style) string {
 	}
 	return k + sep + body
 }
-
-// digitPi finds a number written against π, which formula text writes
-// with a product sign.
-var digitPi = regexp.MustCompile(`(\d)π`)
 
 // Label returns what the group's value is, in terms of the named group
 // it is recognised as: "Re", "1/Re", "Fr²", "C_D/2", "K_T/(4π²)", "∝C_D"
