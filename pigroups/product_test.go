@@ -134,3 +134,28 @@ func TestNewGroupProduct(t *testing.T) {
 		t.Errorf("the zero Group's product: %v", zero.Product())
 	}
 }
+
+// TestFactorSpelling: a coefficient's numerical factor is written in each
+// style before its product. By hand, with ω in rad/s and n = ω/(2π) in
+// rev/s: K_T = T/(ρ·n²·D⁴) = 4π²·T/(ρ·ω²·D⁴), and Re_n = ρ·n·D²/μ =
+// (1/(2π))·ρ·ω·D²/μ.
+func TestFactorSpelling(t *testing.T) {
+	p := pigroups.MustProblem(pigroups.Dep("T", q.Force), pigroups.Var("ρ", q.Density), pigroups.Var("ω", q.AngularVelocity),
+		pigroups.Var("D", q.Length), pigroups.Var("V", q.Velocity), pigroups.Var("μ", q.DynamicViscosity))
+	s, err := p.PiSet("ρ", "ω", "D")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var got []string
+	for _, g := range s.WithCoefficients().Groups() {
+		got = append(got, g.Label(), g.Format(q.Unicode), g.Format(q.ASCII), g.Format(q.LaTeX))
+	}
+	want := []string{
+		"K_T", "4π²·T/(ρ·ω²·D⁴)", "4*pi^2*T/(ρ*ω^2*D^4)", `4\pi^{2} \frac{T}{\rho\cdot \omega^{2}\cdot D^{4}}`,
+		"St", "ω·D/V", "ω*D/V", `\frac{\omega\cdot D}{V}`,
+		"Re_n", "(1/(2π))·ρ·ω·D²/μ", "(1/(2*pi))*ρ*ω*D^2/μ", `(1/(2\pi)) \frac{\rho\cdot \omega\cdot D^{2}}{\mu}`,
+	}
+	if diff := cmp.Diff(want, got); diff != "" {
+		t.Errorf("coefficients (-want +got):\n%s", diff)
+	}
+}
