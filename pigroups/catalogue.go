@@ -819,7 +819,8 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 		}
 		i := terms[k]
 		v := &p.vars[i]
-		for fi, fp := range f.terms {
+		for fi := range f.terms {
+			fp := &f.terms[fi]
 			if used[fi] || fp.dim != v.Dim {
 				continue
 			}
