@@ -276,20 +276,36 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 	return p, nil
 }
 
-// matrixRank returns the rank of the dimensional matrix. The variables'
-// columns are reduced one at a time against the independent ones kept so
-// far, fraction-free on vectors of at most NumBases entries, each kept
-// column zero at the earlier ones' pivots, until as many are kept as
-// there are rows.
+// matrixRank returns the rank of the dimensional matrix.
 func (p *Problem) matrixRank() (int, error) {
+	var buf [quantity.NumBases]int
+	sel, err := p.independent(nil, buf[:0])
+	return len(sel), err
+}
+
+// independent appends to dst the columns of the dimensional matrix that
+// are independent of those before them, taken in the given order (every
+// variable's, in variable order, for nil): the greedy choice of a basis.
+// Each column is reduced against the ones kept so far, fraction-free on
+// vectors of at most NumBases entries, each kept column zero at the
+// earlier ones' pivots, until as many are kept as there are rows.
+func (p *Problem) independent(order []int, dst []int) ([]int, error) {
 	var (
 		basis [quantity.NumBases][quantity.NumBases]int64
 		pivot [quantity.NumBases]int
 	)
+	n := len(p.vars)
+	if order != nil {
+		n = len(order)
+	}
 	nr, r := len(p.rows), 0
-	for j := range p.vars {
+	for k := range n {
 		if r == nr {
 			break
+		}
+		j := k
+		if order != nil {
+			j = order[k]
 		}
 		var v [quantity.NumBases]int64
 		for i := range nr {
@@ -306,11 +322,11 @@ func (p *Problem) matrixRank() (int, error) {
 				x, ok1 := exact.Mul64(pv, v[i])
 				y, ok2 := exact.Mul64(c, basis[b][i])
 				if !ok1 || !ok2 || y == math.MinInt64 {
-					return 0, exact.ErrOverflow
+					return nil, exact.ErrOverflow
 				}
 				d, ok := exact.Add64(x, -y)
 				if !ok || d == math.MinInt64 {
-					return 0, exact.ErrOverflow
+					return nil, exact.ErrOverflow
 				}
 				v[i] = d
 				g = exact.GCD(g, d)
@@ -325,11 +341,12 @@ func (p *Problem) matrixRank() (int, error) {
 			if v[i] != 0 {
 				basis[r], pivot[r] = v, i
 				r++
+				dst = append(dst, j)
 				break
 			}
 		}
 	}
-	return r, nil
+	return dst, nil
 }
 
 // MustProblem is like NewProblem but panics on error; for variables
@@ -884,19 +901,9 @@ func (p *Problem) DefaultRepeating() ([]string, error) {
 		}
 		return a - b
 	})
-	var chosen []int
-	for _, j := range cand {
-		if len(chosen) == p.rank {
-			break
-		}
-		trial := append(slices.Clone(chosen), j)
-		r, err := p.columns(trial).Rank()
-		if err != nil {
-			return nil, p.tooLarge(err)
-		}
-		if r == len(trial) {
-			chosen = trial
-		}
+	chosen, err := p.independent(cand, nil)
+	if err != nil {
+		return nil, p.tooLarge(err)
 	}
 	if p.rank == 0 {
 		return []string{}, nil // every variable is dimensionless: no repeating set is needed
