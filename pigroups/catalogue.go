@@ -85,28 +85,53 @@ func KindDim(name string) (quantity.Dim, bool) {
 // diffusivity or diffusion coefficient), none when no kind is known.
 func InferKinds(d quantity.Dim) []string { return slices.Clone(inferKinds(d)) }
 
+// inferSlot is one entry of inferKnown.
+type inferSlot struct {
+	d     quantity.Dim
+	kinds []string
+	used  bool
+}
+
 // inferKnown holds the inferred kinds of every dimension a kind of
-// package quantity or of the trade has, found once: a plain map, read
-// only, so that a problem's variables find theirs without locking.
-var inferKnown = func() map[quantity.Dim][]string {
-	m := make(map[quantity.Dim][]string)
+// package quantity or of the trade has, found once, in an open-addressed
+// table read without locking or hashing a map key: a problem's variables
+// each look theirs up.
+var inferKnown = func() *[512]inferSlot {
+	var t [512]inferSlot
+	n := 0
+	add := func(d quantity.Dim) {
+		if n++; n > len(t)/2 {
+			panic("pigroups: more kinds' dimensions than inferKnown holds at half load")
+		}
+		for h := inferHash(d); ; h = (h + 1) % len(t) {
+			if !t[h].used {
+				t[h] = inferSlot{d: d, kinds: kindsOf(d), used: true}
+				return
+			}
+			if t[h].d == d {
+				return
+			}
+		}
+	}
 	for _, k := range quantity.Kinds() {
-		m[k.Dim] = nil
+		add(k.Dim)
 	}
 	for _, d := range tradeKinds {
-		m[d] = nil
+		add(d)
 	}
-	for d := range m {
-		m[d] = kindsOf(d)
-	}
-	return m
+	return &t
 }()
+
+// inferHash places a dimension in inferKnown (Fibonacci hashing).
+func inferHash(d quantity.Dim) int { return int(uint64(d) * 0x9E3779B97F4A7C15 >> (64 - 9)) }
 
 var inferCache sync.Map // other dimensions: quantity.Dim → []string, read-only once stored
 
 func inferKinds(d quantity.Dim) []string {
-	if ks, ok := inferKnown[d]; ok {
-		return ks
+	for h := inferHash(d); inferKnown[h].used; h = (h + 1) % len(inferKnown) {
+		if inferKnown[h].d == d {
+			return inferKnown[h].kinds
+		}
 	}
 	if v, ok := inferCache.Load(d); ok {
 		return v.([]string)

@@ -212,7 +212,7 @@ func badSymbol(s string) string {
 		return "the symbol is not valid UTF-8"
 	}
 	for _, r := range s {
-		if r < utf8.RuneSelf && r > ' ' && r != 0x7f && !strings.ContainsRune("*/^()=,@", r) {
+		if r < utf8.RuneSelf && r > ' ' && r != 0x7f && !asciiOperator[r] {
 			continue // printable ASCII that is no operator, the usual case
 		}
 		if unicode.IsSpace(r) || unicode.IsControl(r) || strings.ContainsRune("*/^()·=,@", r) {
@@ -221,6 +221,9 @@ func badSymbol(s string) string {
 	}
 	return ""
 }
+
+// asciiOperator marks the ASCII operators a symbol may not contain.
+var asciiOperator = [utf8.RuneSelf]bool{'*': true, '/': true, '^': true, '(': true, ')': true, '=': true, ',': true, '@': true}
 
 // NewProblem checks the variables and builds the dimensional matrix.
 // Symbols must be distinct and non-empty; at most one variable may be

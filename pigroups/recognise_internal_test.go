@@ -110,3 +110,26 @@ func TestRecogniseBySignature(t *testing.T) {
 		t.Errorf("%d cases checked", checked)
 	}
 }
+
+// TestInferKindsTable: the table of known dimensions gives every
+// dimension the kinds package quantity names for it, synonyms left out,
+// as does the cache for any other dimension.
+func TestInferKindsTable(t *testing.T) {
+	var dims []quantity.Dim
+	for _, k := range quantity.Kinds() {
+		dims = append(dims, k.Dim)
+	}
+	for _, d := range tradeKinds {
+		dims = append(dims, d)
+	}
+	for a := -3; a <= 3; a++ {
+		for b := -2; b <= 2; b++ {
+			dims = append(dims, quantity.MustDim(a, b, a-b, 0, b, 0, 0))
+		}
+	}
+	for _, d := range dims {
+		if diff := cmp.Diff(kindsOf(d), inferKinds(d)); diff != "" {
+			t.Errorf("%v (-kindsOf +inferKinds):\n%s", d, diff)
+		}
+	}
+}
