@@ -392,6 +392,9 @@ type compiledForm struct {
 	sig   quantity.Dim
 	sigOK bool
 	proxy int // index of the proxy term, or −1
+	// distinct is true when no two terms have the same dimension: a
+	// group's variables then have one assignment to the terms at most.
+	distinct bool
 }
 
 // compiledTerm is a form's factor (a kind to a power) with the kind's
@@ -421,6 +424,15 @@ var compiled = func() []compiledForm {
 					cf.proxy = k
 				}
 			}
+			cf.distinct = !slices.ContainsFunc(cf.terms, func(a compiledTerm) bool {
+				n := 0
+				for _, b := range cf.terms {
+					if b.dim == a.dim {
+						n++
+					}
+				}
+				return n > 1
+			})
 			out = append(out, cf)
 		}
 	}
@@ -866,7 +878,35 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 			used[fi] = false
 		}
 	}
-	rec(0, quantity.Rat{}, false, 0)
+	if f.distinct {
+		// Each variable has the one term of its dimension (sameDims
+		// found them all): no search, one pass.
+		n, have := 0, false
+		for k, i := range terms {
+			v := &p.vars[i]
+			fi := slices.IndexFunc(f.terms, func(t compiledTerm) bool { return t.dim == v.Dim })
+			if fi < 0 {
+				return Match{}, false
+			}
+			fp := &f.terms[fi]
+			explicit := v.hasKind(fp.Name)
+			if !explicit && (v.Kind != "" || !fp.known || fp.explicit) {
+				return Match{}, false
+			}
+			pw, err := ratDiv(exps[i], fp.Exp)
+			if err != nil || have && pw != bestPower {
+				return Match{}, false
+			}
+			bestPower, have = pw, true
+			bestAssign[fi], bestTermOf[k], bestAssumed[k] = i, fi, !explicit
+			if !explicit {
+				n++
+			}
+		}
+		bestN = n
+	} else {
+		rec(0, quantity.Rat{}, false, 0)
+	}
 	if bestN < 0 {
 		return Match{}, false
 	}

@@ -6,12 +6,15 @@ import (
 	"testing"
 
 	"github.com/google/go-cmp/cmp"
+	"pgregory.net/rapid"
 
 	"similis.dev/similis/quantity"
 )
 
 // recogniseScan is recognition looking at every form of the group's
-// length, as it did before forms were indexed by signature.
+// length, as it did before forms were indexed by signature, and matching
+// each by the search over assignments, as it did before forms with
+// distinct dimensions were matched in one pass.
 func (p *Problem) recogniseScan(exps []quantity.Rat) []string {
 	var terms []int
 	for i, e := range exps {
@@ -25,11 +28,12 @@ func (p *Problem) recogniseScan(exps []quantity.Rat) []string {
 	var out []Match
 	var last *Named
 	for _, fi := range compiledByLen[len(terms)] {
-		f := &compiled[fi]
-		if f.named == last || !p.sameDims(f, terms) {
+		f := compiled[fi]
+		f.distinct = false
+		if f.named == last || !p.sameDims(&f, terms) {
 			continue
 		}
-		if m, ok := p.matchForm(nil, f, terms, exps); ok {
+		if m, ok := p.matchForm(nil, &f, terms, exps); ok {
 			out = append(out, m)
 			last = f.named
 		}
@@ -132,4 +136,53 @@ func TestInferKindsTable(t *testing.T) {
 			t.Errorf("%v (-kindsOf +inferKinds):\n%s", d, diff)
 		}
 	}
+}
+
+// TestRecogniseRandom: recognition of a catalogue form written in
+// variables in a random order, each of the form's kind given or inferred
+// from its dimension, held in rad/s or rev/s, raised to a random power,
+// finds what the scan by search finds.
+func TestRecogniseRandom(t *testing.T) {
+	rapid.Check(t, func(t *rapid.T) {
+		f := compiled[rapid.IntRange(0, len(compiled)-1).Draw(t, "form")]
+		order := rapid.Permutation(slices.Collect(func(yield func(int) bool) {
+			for k := range f.terms {
+				if !yield(k) {
+					return
+				}
+			}
+		})).Draw(t, "order")
+		pw := quantity.MustRat(int64(rapid.SampledFrom([]int{-2, -1, 1, 2, 3}).Draw(t, "num")), int64(rapid.IntRange(1, 2).Draw(t, "den")))
+		var vars []Variable
+		var exps []quantity.Rat
+		for i, k := range order {
+			term := f.terms[k]
+			if !term.known {
+				return
+			}
+			v := Var(fmt.Sprintf("x%d", i), term.dim)
+			if rapid.Bool().Draw(t, "given") {
+				v = v.WithKind(term.Name)
+			}
+			if rapid.Bool().Draw(t, "rev") {
+				v = v.InRevolutions()
+			}
+			e, err := term.Exp.Mul(pw)
+			if err != nil {
+				t.Fatal(err)
+			}
+			vars, exps = append(vars, v), append(exps, e)
+		}
+		p, err := NewProblem(vars...)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var got []string
+		for _, m := range p.recognise(exps) {
+			got = append(got, m.Describe())
+		}
+		if diff := cmp.Diff(p.recogniseScan(exps), got); diff != "" {
+			t.Fatalf("%v of %v (-scan +index):\n%s", exps, vars, diff)
+		}
+	})
 }
