@@ -460,33 +460,69 @@ type sigKey struct {
 	sig quantity.Dim
 }
 
+// sigSlot is one entry of compiledBySig.
+type sigSlot struct {
+	key   sigKey
+	forms []int
+	used  bool
+}
+
 // compiledBySig lists, for each number of factors and signature, the
 // indices of the compiled forms a group of that signature can match: the
 // forms with that signature and those whose signature overflowed, in
-// catalogue order, so that recognition looks at those alone.
-// compiledUnsig lists the latter alone, by number of factors, for a
-// signature no form has.
-var compiledBySig, compiledUnsig = func() (map[sigKey][]int, [][]int) {
-	m := make(map[sigKey][]int)
+// catalogue order, so that recognition looks at those alone. It is an
+// open-addressed table, read without hashing a map key. compiledUnsig
+// lists the latter alone, by number of factors, for a signature no form
+// has.
+var compiledBySig, compiledUnsig = func() (*[256]sigSlot, [][]int) {
+	var t [256]sigSlot
 	unsig := make([][]int, len(compiledByLen))
+	var keys []sigKey
 	for n, forms := range compiledByLen {
 		for _, i := range forms {
 			if f := &compiled[i]; f.sigOK {
-				m[sigKey{n, f.sig}] = nil
+				if k := (sigKey{n, f.sig}); !slices.Contains(keys, k) {
+					keys = append(keys, k)
+				}
 			} else {
 				unsig[n] = append(unsig[n], i)
 			}
 		}
 	}
-	for k := range m {
+	if len(keys) > len(t)/2 {
+		panic("pigroups: more form signatures than compiledBySig holds at half load")
+	}
+	for _, k := range keys {
+		h := sigHash(k)
+		for t[h].used {
+			h = (h + 1) % len(t)
+		}
+		t[h] = sigSlot{key: k, used: true}
 		for _, i := range compiledByLen[k.n] {
 			if f := &compiled[i]; !f.sigOK || f.sig == k.sig {
-				m[k] = append(m[k], i)
+				t[h].forms = append(t[h].forms, i)
 			}
 		}
 	}
-	return m, unsig
+	return &t, unsig
 }()
+
+// sigHash places a key in compiledBySig (Fibonacci hashing).
+func sigHash(k sigKey) int {
+	return int((uint64(k.sig) + uint64(k.n)<<58) * 0x9E3779B97F4A7C15 >> (64 - 8))
+}
+
+// formsFor returns the compiled forms a group of n factors and signature
+// sig can match.
+func formsFor(n int, sig quantity.Dim) []int {
+	k := sigKey{n, sig}
+	for h := sigHash(k); compiledBySig[h].used; h = (h + 1) % len(compiledBySig) {
+		if compiledBySig[h].key == k {
+			return compiledBySig[h].forms
+		}
+	}
+	return compiledUnsig[n]
+}
 
 // Catalogue returns a copy of the named groups known to recognition.
 func Catalogue() []Named { return slices.Clone(catalogue) }
@@ -742,10 +778,7 @@ func (p *Problem) recogniseIn(ar *matchArena, spare []Match, hint int, exps []qu
 	}
 	forms := compiledByLen[len(terms)]
 	if sigOK {
-		var ok bool
-		if forms, ok = compiledBySig[sigKey{len(terms), sig}]; !ok {
-			forms = compiledUnsig[len(terms)] // a signature no form has
-		}
+		forms = formsFor(len(terms), sig)
 	}
 	for _, fi := range forms {
 		f := &compiled[fi]
