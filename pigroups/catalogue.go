@@ -83,7 +83,7 @@ func KindDim(name string) (quantity.Dim, bool) {
 // variable given without a kind: one name when that is unambiguous
 // (density), several when it is not (L² T⁻¹: kinematic viscosity, thermal
 // diffusivity or diffusion coefficient), none when no kind is known.
-func InferKinds(d quantity.Dim) []string { return slices.Clone(inferKinds(d)) }
+func InferKinds(d quantity.Dim) []string { return slices.Clone(*inferKinds(d)) }
 
 // inferSlot is one entry of inferKnown.
 type inferSlot struct {
@@ -125,20 +125,22 @@ var inferKnown = func() *[512]inferSlot {
 // inferHash places a dimension in inferKnown (Fibonacci hashing).
 func inferHash(d quantity.Dim) int { return int(uint64(d) * 0x9E3779B97F4A7C15 >> (64 - 9)) }
 
-var inferCache sync.Map // other dimensions: quantity.Dim → []string, read-only once stored
+var inferCache sync.Map // other dimensions: quantity.Dim → *[]string, read-only once stored
 
-func inferKinds(d quantity.Dim) []string {
+// inferKinds returns the kinds a dimension can mean, shared and never
+// modified: a pointer, so that a problem's variables hold one word each.
+func inferKinds(d quantity.Dim) *[]string {
 	for h := inferHash(d); inferKnown[h].used; h = (h + 1) % len(inferKnown) {
 		if inferKnown[h].d == d {
-			return inferKnown[h].kinds
+			return &inferKnown[h].kinds
 		}
 	}
 	if v, ok := inferCache.Load(d); ok {
-		return v.([]string)
+		return v.(*[]string)
 	}
 	out := kindsOf(d)
-	inferCache.Store(d, out)
-	return out
+	v, _ := inferCache.LoadOrStore(d, &out)
+	return v.(*[]string)
 }
 
 // kindsOf returns the kinds of package quantity a dimension can mean,

@@ -159,7 +159,7 @@ type varInfo struct {
 	Variable
 	// inferred are the kinds Dim can mean, for a variable without a
 	// Kind (shared, never modified); nil when Kind is given.
-	inferred []string
+	inferred *[]string
 }
 
 // hasKind reports whether k is one of the variable's candidate kinds.
@@ -167,7 +167,7 @@ func (v *varInfo) hasKind(k string) bool {
 	if v.Kind != "" {
 		return v.Kind == k
 	}
-	return slices.Contains(v.inferred, k)
+	return v.inferred != nil && slices.Contains(*v.inferred, k)
 }
 
 // sixth returns entry (i, j) of the dimensional matrix in sixths: the
@@ -409,7 +409,7 @@ func (p *Problem) Kinds(i int) ([]string, error) {
 	if k := p.vars[i].Kind; k != "" {
 		return []string{k}, nil
 	}
-	return slices.Clone(p.vars[i].inferred), nil
+	return slices.Clone(*p.vars[i].inferred), nil
 }
 
 // Index returns the index of the variable with the given symbol, or an
@@ -868,9 +868,11 @@ var preference = map[string]int{
 
 func (p *Problem) prefRank(i int) int {
 	best := 50
-	ks := p.vars[i].inferred
+	var ks []string
 	if k := p.vars[i].Kind; k != "" {
 		ks = []string{k}
+	} else {
+		ks = *p.vars[i].inferred
 	}
 	for _, k := range ks {
 		if r, ok := preference[k]; ok && r < best {

@@ -132,7 +132,7 @@ func TestInferKindsTable(t *testing.T) {
 		}
 	}
 	for _, d := range dims {
-		if diff := cmp.Diff(kindsOf(d), inferKinds(d)); diff != "" {
+		if diff := cmp.Diff(kindsOf(d), *inferKinds(d)); diff != "" {
 			t.Errorf("%v (-kindsOf +inferKinds):\n%s", d, diff)
 		}
 	}
