@@ -23,9 +23,14 @@ type Group struct {
 	// first; empty when it has no name.
 	Matches []Match
 	prob    *Problem
-	// coef·(2π)^twoPi is a numerical factor the group carries (a
-	// coefficient's ½ or its rev/s conversion, see Coefficient); the zero
-	// coef means 1, as for every group of a Pi set.
+	// factor is the numerical factor the group carries (a coefficient's
+	// ½ or its rev/s conversion, see Coefficient); nil means 1, as for
+	// every group of a Pi set, which then holds a word for it.
+	factor *groupFactor
+}
+
+// groupFactor is the numerical factor coef·(2π)^twoPi of a coefficient.
+type groupFactor struct {
 	coef  quantity.Rat
 	twoPi int
 }
@@ -35,17 +40,17 @@ type Group struct {
 // written as C_D = 2·F/(ρ·V²·A), 4π² for K_T with a rotational speed held
 // in rad/s.
 func (g Group) Factor() float64 {
-	if g.coef.IsZero() {
+	if g.factor == nil {
 		return 1
 	}
-	return g.coef.Float() * math.Pow(2*math.Pi, float64(g.twoPi))
+	return g.factor.coef.Float() * math.Pow(2*math.Pi, float64(g.factor.twoPi))
 }
 
 func (g Group) factorText(style quantity.Style) string {
-	if g.coef.IsZero() {
+	if g.factor == nil {
 		return ""
 	}
-	return factorText(g.coef, g.twoPi, style)
+	return factorText(g.factor.coef, g.factor.twoPi, style)
 }
 
 // ErrNotExact is wrapped by the error of Coefficient for a group that is
@@ -81,7 +86,7 @@ func (g Group) Coefficient() (Group, error) {
 	if c.IsZero() {
 		c = quantity.RatInt(1)
 	}
-	out := Group{Name: m.Symbol, Var: g.Var, exps: exps, prob: g.prob, coef: c, twoPi: m.TwoPiPower()}
+	out := Group{Name: m.Symbol, Var: g.Var, exps: exps, prob: g.prob, factor: &groupFactor{coef: c, twoPi: m.TwoPiPower()}}
 	out.Matches = g.prob.recognise(exps)
 	return out, nil
 }
@@ -176,7 +181,7 @@ func (g Group) Label() string {
 		return g.Name
 	}
 	m := g.Matches[0]
-	if !g.coef.IsZero() && m.Exact() && m.Power.Num() == 1 && m.Power.Den() == 1 && g.coef == m.Coef && g.twoPi == m.TwoPiPower() {
+	if f := g.factor; f != nil && m.Exact() && m.Power.Num() == 1 && m.Power.Den() == 1 && f.coef == m.Coef && f.twoPi == m.TwoPiPower() {
 		return m.Symbol
 	}
 	return m.Label()
@@ -190,7 +195,7 @@ func (g Group) Describe() string {
 		return ""
 	}
 	m := g.Matches[0]
-	if l := g.Label(); !g.coef.IsZero() && l == m.Symbol {
+	if l := g.Label(); g.factor != nil && l == m.Symbol {
 		return l + " (" + m.Name + "; " + m.Definition + ")"
 	}
 	return m.describe(g.Name)
