@@ -55,7 +55,7 @@ func TestExponentsFromOutside(t *testing.T) {
 	if cd.Proxy == nil || cd.Proxy.Exp != quantity.RatInt(-2) || cd.Proxy.Ref.Exp != quantity.RatInt(-1) {
 		t.Errorf("proxy %+v", cd.Proxy)
 	}
-	g, err := p.NewGroup("Re", map[string]quantity.Rat{"ρ": quantity.RatInt(1), "V": quantity.RatInt(1), "D": quantity.RatInt(1), "μ": quantity.RatInt(-1)})
+	g, err := p.NewGroup("Re", quantity.Product{{Name: "ρ", Exp: quantity.RatInt(1)}, {Name: "V", Exp: quantity.RatInt(1)}, {Name: "D", Exp: quantity.RatInt(1)}, {Name: "μ", Exp: quantity.RatInt(-1)}})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -83,36 +83,92 @@ func KindDim(name string) (quantity.Dim, bool) {
 // variable given without a kind: one name when that is unambiguous
 // (density), several when it is not (L² T⁻¹: kinematic viscosity, thermal
 // diffusivity or diffusion coefficient), none when no kind is known.
-func InferKinds(d quantity.Dim) []string { return slices.Clone(inferKinds(d)) }
+func InferKinds(d quantity.Dim) []string { return slices.Clone(*inferKinds(d)) }
 
-var inferCache sync.Map // quantity.Dim → []string, read-only once stored
+// inferSlot is one entry of inferKnown.
+type inferSlot struct {
+	d     quantity.Dim
+	kinds []string
+	used  bool
+}
 
-func inferKinds(d quantity.Dim) []string {
-	if v, ok := inferCache.Load(d); ok {
-		return v.([]string)
+// inferKnown holds the inferred kinds of every dimension a kind of
+// package quantity or of the trade has, found once, in an open-addressed
+// table read without locking or hashing a map key: a problem's variables
+// each look theirs up.
+var inferKnown = func() *[512]inferSlot {
+	var t [512]inferSlot
+	n := 0
+	add := func(d quantity.Dim) {
+		if n++; n > len(t)/2 {
+			panic("pigroups: more kinds' dimensions than inferKnown holds at half load")
+		}
+		for h := inferHash(d); ; h = (h + 1) % len(t) {
+			if !t[h].used {
+				t[h] = inferSlot{d: d, kinds: kindsOf(d), used: true}
+				return
+			}
+			if t[h].d == d {
+				return
+			}
+		}
 	}
+	for _, k := range quantity.Kinds() {
+		add(k.Dim)
+	}
+	for _, d := range tradeKinds {
+		add(d)
+	}
+	return &t
+}()
+
+// inferHash places a dimension in inferKnown (Fibonacci hashing).
+func inferHash(d quantity.Dim) int { return int(uint64(d) * 0x9E3779B97F4A7C15 >> (64 - 9)) }
+
+var inferCache sync.Map // other dimensions: quantity.Dim → *[]string, read-only once stored
+
+// inferKinds returns the kinds a dimension can mean, shared and never
+// modified: a pointer, so that a problem's variables hold one word each.
+func inferKinds(d quantity.Dim) *[]string {
+	for h := inferHash(d); inferKnown[h].used; h = (h + 1) % len(inferKnown) {
+		if inferKnown[h].d == d {
+			return &inferKnown[h].kinds
+		}
+	}
+	if v, ok := inferCache.Load(d); ok {
+		return v.(*[]string)
+	}
+	out := kindsOf(d)
+	v, _ := inferCache.LoadOrStore(d, &out)
+	return v.(*[]string)
+}
+
+// kindsOf returns the kinds of package quantity a dimension can mean,
+// synonyms left out.
+func kindsOf(d quantity.Dim) []string {
 	var out []string
 	for _, n := range quantity.KindNames(d) {
 		if !synonyms[n] {
 			out = append(out, n)
 		}
 	}
-	inferCache.Store(d, out)
 	return out
 }
 
-func candidateKinds(v Variable) ([]string, error) {
+// checkKind checks a variable's kind, if it has one: known, and of the
+// variable's dimension.
+func checkKind(v Variable) error {
 	if v.Kind == "" {
-		return inferKinds(v.Dim), nil // shared, never modified
+		return nil
 	}
 	d, ok := KindDim(v.Kind)
 	if !ok {
-		return nil, &Error{Op: OpProblem, Kind: ErrUnknownKind, Symbol: v.Symbol, Reason: fmt.Sprintf("kind %q", v.Kind)}
+		return &Error{Op: OpProblem, Kind: ErrUnknownKind, Symbol: v.Symbol, Reason: fmt.Sprintf("kind %q", v.Kind)}
 	}
 	if d != v.Dim {
-		return nil, &Error{Op: OpProblem, Kind: ErrKindDimension, Symbol: v.Symbol, Reason: fmt.Sprintf("a %s has dimension %s, the variable %s", v.Kind, d, v.Dim)}
+		return &Error{Op: OpProblem, Kind: ErrKindDimension, Symbol: v.Symbol, Reason: fmt.Sprintf("a %s has dimension %s, the variable %s", v.Kind, d, v.Dim)}
 	}
-	return []string{v.Kind}, nil
+	return nil
 }
 
 // Named is a named dimensionless group of the trade, defined by the kinds
@@ -338,6 +394,9 @@ type compiledForm struct {
 	sig   quantity.Dim
 	sigOK bool
 	proxy int // index of the proxy term, or −1
+	// distinct is true when no two terms have the same dimension: a
+	// group's variables then have one assignment to the terms at most.
+	distinct bool
 }
 
 // compiledTerm is a form's factor (a kind to a power) with the kind's
@@ -367,6 +426,15 @@ var compiled = func() []compiledForm {
 					cf.proxy = k
 				}
 			}
+			cf.distinct = !slices.ContainsFunc(cf.terms, func(a compiledTerm) bool {
+				n := 0
+				for _, b := range cf.terms {
+					if b.dim == a.dim {
+						n++
+					}
+				}
+				return n > 1
+			})
 			out = append(out, cf)
 		}
 	}
@@ -386,6 +454,77 @@ var compiledByLen = func() [][]int {
 	}
 	return by
 }()
+
+// sigKey selects the compiled forms a group can match: its number of
+// factors and the product of their dimensions.
+type sigKey struct {
+	n   int
+	sig quantity.Dim
+}
+
+// sigSlot is one entry of compiledBySig.
+type sigSlot struct {
+	key   sigKey
+	forms []int
+	used  bool
+}
+
+// compiledBySig lists, for each number of factors and signature, the
+// indices of the compiled forms a group of that signature can match: the
+// forms with that signature and those whose signature overflowed, in
+// catalogue order, so that recognition looks at those alone. It is an
+// open-addressed table, read without hashing a map key. compiledUnsig
+// lists the latter alone, by number of factors, for a signature no form
+// has.
+var compiledBySig, compiledUnsig = func() (*[256]sigSlot, [][]int) {
+	var t [256]sigSlot
+	unsig := make([][]int, len(compiledByLen))
+	var keys []sigKey
+	for n, forms := range compiledByLen {
+		for _, i := range forms {
+			if f := &compiled[i]; f.sigOK {
+				if k := (sigKey{n, f.sig}); !slices.Contains(keys, k) {
+					keys = append(keys, k)
+				}
+			} else {
+				unsig[n] = append(unsig[n], i)
+			}
+		}
+	}
+	if len(keys) > len(t)/2 {
+		panic("pigroups: more form signatures than compiledBySig holds at half load")
+	}
+	for _, k := range keys {
+		h := sigHash(k)
+		for t[h].used {
+			h = (h + 1) % len(t)
+		}
+		t[h] = sigSlot{key: k, used: true}
+		for _, i := range compiledByLen[k.n] {
+			if f := &compiled[i]; !f.sigOK || f.sig == k.sig {
+				t[h].forms = append(t[h].forms, i)
+			}
+		}
+	}
+	return &t, unsig
+}()
+
+// sigHash places a key in compiledBySig (Fibonacci hashing).
+func sigHash(k sigKey) int {
+	return int((uint64(k.sig) + uint64(k.n)<<58) * 0x9E3779B97F4A7C15 >> (64 - 8))
+}
+
+// formsFor returns the compiled forms a group of n factors and signature
+// sig can match.
+func formsFor(n int, sig quantity.Dim) []int {
+	k := sigKey{n, sig}
+	for h := sigHash(k); compiledBySig[h].used; h = (h + 1) % len(compiledBySig) {
+		if compiledBySig[h].key == k {
+			return compiledBySig[h].forms
+		}
+	}
+	return compiledUnsig[n]
+}
 
 // Catalogue returns a copy of the named groups known to recognition.
 func Catalogue() []Named { return slices.Clone(catalogue) }
@@ -446,18 +585,25 @@ func (m Match) FactorText() string {
 	if c.IsZero() {
 		c = quantity.RatInt(1)
 	}
-	return factorText(c, m.TwoPiPower())
+	return factorText(c, m.TwoPiPower(), quantity.Unicode)
 }
 
-// factorText writes c·(2π)^k exactly: "2", "4π²", "1/(2π)"; "" for 1.
-func factorText(c quantity.Rat, k int) string {
+// factorText writes c·(2π)^k exactly in a style: "2", "4π²", "1/(2π)"
+// in Unicode, "4*pi^2" and "1/(2*pi)" in formula text (quantity.ASCII),
+// `4\pi^{2}` in LaTeX; "" for 1. The power of π is a one-factor
+// quantity.Product, written against the number.
+func factorText(c quantity.Rat, k int, style quantity.Style) string {
 	n, d := c.Num(), c.Den()
 	piNum, piDen := "", ""
+	pi, sep := "π", ""
+	switch style {
+	case quantity.ASCII:
+		pi, sep = "pi", "*"
+	case quantity.LaTeX:
+		pi = `\pi`
+	}
 	piPow := func(a int) string {
-		if a == 1 {
-			return "π"
-		}
-		return "π" + expText(quantity.RatInt(int64(a)), quantity.Unicode)
+		return sep + quantity.Product{{Name: pi, Exp: quantity.RatInt(int64(a))}}.Format(style, quantity.Inline, "")
 	}
 	if k > 0 {
 		n <<= k
@@ -491,13 +637,13 @@ func (m Match) Label() string {
 	if c.IsZero() {
 		c = quantity.RatInt(1)
 	}
-	k := factorText(c, m.TwoPiPower())
+	k := factorText(c, m.TwoPiPower(), quantity.Unicode)
 	if k == "" {
-		return powerLabel(m.Symbol, m.Power)
+		return powerText(m.Symbol, m.Power)
 	}
 	ci, _ := quantity.RatInt(1).Div(c)
-	ki := factorText(ci, -m.TwoPiPower()) // 1/k
-	var first string                      // the group to the power one: Named/k
+	ki := factorText(ci, -m.TwoPiPower(), quantity.Unicode) // 1/k
+	var first string                                        // the group to the power one: Named/k
 	switch {
 	case !strings.Contains(k, "/"):
 		first = m.Symbol + "/" + parenFactor(k)
@@ -515,7 +661,7 @@ func (m Match) Label() string {
 		}
 		return k + "/" + m.Symbol
 	}
-	return powerLabel("("+first+")", m.Power)
+	return powerText("("+first+")", m.Power)
 }
 
 func parenFactor(s string) string {
@@ -525,22 +671,6 @@ func parenFactor(s string) string {
 	return s
 }
 
-// powerLabel writes sym to an exact power: "Re", "1/Re", "Fr²",
-// "Re^(1/2)".
-func powerLabel(sym string, p quantity.Rat) string {
-	switch {
-	case p.Num() == 1 && p.Den() == 1:
-		return sym
-	case p.Num() == -1 && p.Den() == 1:
-		return "1/" + sym
-	case p.IsInt() && p.Num() > 0:
-		return sym + expText(p, quantity.Unicode)
-	case p.IsInt():
-		return "1/" + sym + expText(p.Neg(), quantity.Unicode)
-	}
-	return sym + "^(" + p.String() + ")"
-}
-
 // Equation writes the named group in terms of a group called name:
 // "Re = Π₃", "Fr = Π₂^(1/2)", "K_T = 4π²·Π₁", "C_D = 2·Π₁·L²/A".
 func (m Match) Equation(name string) string {
@@ -548,7 +678,7 @@ func (m Match) Equation(name string) string {
 	if err != nil {
 		inv = quantity.RatInt(1)
 	}
-	g := powerLabel(name, inv)
+	g := powerText(name, inv)
 	k := m.FactorText()
 	rhs := g
 	if k != "" {
@@ -559,11 +689,8 @@ func (m Match) Equation(name string) string {
 		}
 	}
 	if m.Proxy != nil {
-		rhs += "·" + m.Proxy.Symbol + expText(m.Proxy.Exp.Neg(), quantity.Unicode)
-		rhs += "/" + m.Proxy.Ref.Name
-		if !(m.Proxy.Ref.Exp.Num() == -1 && m.Proxy.Ref.Exp.Den() == 1) {
-			rhs += expText(m.Proxy.Ref.Exp.Neg(), quantity.Unicode)
-		}
+		// The stand-in out, the reference quantity in: ·L²/A.
+		rhs += "·" + quantity.Product{{Name: m.Proxy.Symbol, Exp: m.Proxy.Exp.Neg()}, m.Proxy.Ref}.Format(quantity.Unicode, quantity.Fraction, "")
 	}
 	return m.Symbol + " = " + rhs
 }
@@ -586,7 +713,7 @@ func (m Match) describe(name string) string {
 	}
 	switch {
 	case m.Proxy != nil:
-		fmt.Fprintf(&sb, "; %s, and %s%s stands in for %s %s: %s", m.Definition, m.Proxy.Symbol, expText(m.Proxy.Exp.Neg(), quantity.Unicode), m.Proxy.What, m.Proxy.Ref.Name, m.Equation(name))
+		fmt.Fprintf(&sb, "; %s, and %s stands in for %s %s: %s", m.Definition, powerText(m.Proxy.Symbol, m.Proxy.Exp.Neg()), m.Proxy.What, m.Proxy.Ref.Name, m.Equation(name))
 	case m.FactorText() != "":
 		fmt.Fprintf(&sb, "; %s: %s", m.Definition, m.Equation(name))
 		if m.TwoPiPower() != 0 {
@@ -609,7 +736,10 @@ func (m Match) describe(name string) string {
 // recognise matches a group's exponents against the catalogue, best
 // matches (exact before proportional, fewest assumed kinds, lowest
 // power) first.
-func (p *Problem) recognise(exps []quantity.Rat) []Match { return p.recogniseIn(nil, nil, exps) }
+func (p *Problem) recognise(exps []quantity.Rat) []Match {
+	out := p.recogniseIn(nil, nil, 2, exps)
+	return out[:len(out):len(out)]
+}
 
 // matchArena holds the text of the matches of a whole Pi set, so that
 // building a set allocates once for it rather than per group.
@@ -619,11 +749,12 @@ type matchArena struct {
 }
 
 // recogniseIn is recognise writing the Assumed lists into an arena (nil
-// for their own) and the matches into dst's room when it has room for
-// two (a caller's scratch, which it copies out: a separate parameter, so
-// that a stack array stays on the stack), into a new slice otherwise; the
-// result's capacity is its length.
-func (p *Problem) recogniseIn(ar *matchArena, dst []Match, exps []quantity.Rat) []Match {
+// for their own) and the matches into the room of spare, which has
+// length zero (a block of matches the caller shares between groups),
+// while they fit, and otherwise into a new block of capacity at least
+// hint. The result keeps the room after the matches, for the next group;
+// it is nil when nothing matches.
+func (p *Problem) recogniseIn(ar *matchArena, spare []Match, hint int, exps []quantity.Rat) []Match {
 	var termBuf [16]int
 	terms := termBuf[:0]
 	for i, e := range exps {
@@ -647,22 +778,31 @@ func (p *Problem) recogniseIn(ar *matchArena, dst []Match, exps []quantity.Rat) 
 	if len(terms) >= len(compiledByLen) {
 		return nil
 	}
-	for _, fi := range compiledByLen[len(terms)] {
+	forms := compiledByLen[len(terms)]
+	if sigOK {
+		forms = formsFor(len(terms), sig)
+	}
+	for _, fi := range forms {
 		f := &compiled[fi]
 		if f.named == last || sigOK && f.sigOK && sig != f.sig || !p.sameDims(f, terms) {
 			continue
 		}
 		if m, ok := p.matchForm(ar, f, terms, exps); ok {
 			if out == nil {
-				if cap(dst) >= 2 {
-					out = dst[:0]
-				} else {
-					out = make([]Match, 0, 2)
-				}
+				out = spare[:0]
+			}
+			if len(out) == cap(out) {
+				// A new block, the group's matches so far moved to its start.
+				grown := make([]Match, len(out), max(hint, 2*len(out)+1))
+				copy(grown, out)
+				out = grown
 			}
 			out = append(out, m)
 			last = f.named // one match per named group
 		}
+	}
+	if len(out) < 2 {
+		return out
 	}
 	slices.SortStableFunc(out, func(a, b Match) int {
 		if a.Exact() != b.Exact() {
@@ -676,7 +816,7 @@ func (p *Problem) recogniseIn(ar *matchArena, dst []Match, exps []quantity.Rat) 
 		}
 		return absCmp(a.Power, b.Power)
 	})
-	return out[:len(out):len(out)]
+	return out
 }
 
 // sameDims reports whether the group's variables and the form's kinds
@@ -703,7 +843,14 @@ func (p *Problem) sameDims(f *compiledForm, terms []int) bool {
 // general product's overflow checks.
 func ratDiv(a, b quantity.Rat) (quantity.Rat, error) {
 	if a.IsInt() && b.IsInt() {
-		if n, d := a.Num(), b.Num(); d != 0 && d != -1 && n%d == 0 {
+		n, d := a.Num(), b.Num()
+		switch d {
+		case 1:
+			return a, nil
+		case -1:
+			return a.Neg(), nil // exact: no Rat holds math.MinInt64
+		}
+		if d != 0 && n%d == 0 {
 			return quantity.RatInt(n / d), nil
 		}
 	}
@@ -743,12 +890,13 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 			return
 		}
 		i := terms[k]
-		v := p.vars[i]
-		for fi, fp := range f.terms {
+		v := &p.vars[i]
+		for fi := range f.terms {
+			fp := &f.terms[fi]
 			if used[fi] || fp.dim != v.Dim {
 				continue
 			}
-			explicit := slices.Contains(p.kinds[i], fp.Name)
+			explicit := v.hasKind(fp.Name)
 			if !explicit && (v.Kind != "" || !fp.known || fp.explicit) {
 				continue
 			}
@@ -765,7 +913,35 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 			used[fi] = false
 		}
 	}
-	rec(0, quantity.Rat{}, false, 0)
+	if f.distinct {
+		// Each variable has the one term of its dimension (sameDims
+		// found them all): no search, one pass.
+		n, have := 0, false
+		for k, i := range terms {
+			v := &p.vars[i]
+			fi := slices.IndexFunc(f.terms, func(t compiledTerm) bool { return t.dim == v.Dim })
+			if fi < 0 {
+				return Match{}, false
+			}
+			fp := &f.terms[fi]
+			explicit := v.hasKind(fp.Name)
+			if !explicit && (v.Kind != "" || !fp.known || fp.explicit) {
+				return Match{}, false
+			}
+			pw, err := ratDiv(exps[i], fp.Exp)
+			if err != nil || have && pw != bestPower {
+				return Match{}, false
+			}
+			bestPower, have = pw, true
+			bestAssign[fi], bestTermOf[k], bestAssumed[k] = i, fi, !explicit
+			if !explicit {
+				n++
+			}
+		}
+		bestN = n
+	} else {
+		rec(0, quantity.Rat{}, false, 0)
+	}
 	if bestN < 0 {
 		return Match{}, false
 	}
@@ -789,8 +965,12 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 		// Every "a as speed of sound" of the match in one string, sliced,
 		// in the arena's text when there is one; the list from the arena.
 		var own matchArena
-		if ar == nil {
+		shared := ar != nil
+		if !shared {
 			ar = &own
+		}
+		if shared && ar.text.Cap() == 0 {
+			ar.text.Grow(256) // room for a set's worth, at its first
 		}
 		var ends [16]int
 		start := ar.text.Len()

@@ -14,6 +14,9 @@
 // independent; CheckRepeating names the dimensionless group the members
 // form when they are not. Each non-repeating variable gives one group,
 // scaled to coprime integer exponents with its own exponent positive.
+// A group is a quantity.Product of its variables' symbols
+// (Group.Product), the one product of powers of the module: it is what
+// Format writes, and what Problem.NewGroup reads.
 //
 // # Names
 //

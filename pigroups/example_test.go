@@ -79,3 +79,37 @@ func ExampleFitPowerLaw() {
 	// Output:
 	// Nu = 0.031·Re^0.790, exponent 95% CI [0.778, 0.802], R² = 0.9999
 }
+
+// A group is a product of powers of its variables: Product gives it as a
+// quantity.Product, which Format writes, and NewGroup reads back.
+func ExampleGroup_Product() {
+	p := pigroups.MustProblem(
+		pigroups.Dep("Δp", quantity.Pressure),
+		pigroups.Var("ρ", quantity.Density),
+		pigroups.Var("V", quantity.Velocity),
+		pigroups.Var("D", quantity.Length),
+		pigroups.Var("μ", quantity.DynamicViscosity),
+	)
+	s, err := p.PiSet("ρ", "V", "D")
+	if err != nil {
+		panic(err)
+	}
+	re := s.Groups()[1].Conventional()
+	prod := re.Product()
+	for _, f := range prod {
+		fmt.Printf("%s^%v\n", f.Name, f.Exp)
+	}
+	fmt.Println(prod.Format(quantity.Unicode, quantity.Fraction, ""), "=", re.Format(quantity.Unicode), "=", re.Label())
+	back, err := p.NewGroup("Re", prod)
+	if err != nil {
+		panic(err)
+	}
+	fmt.Println(back, back.Label())
+	// Output:
+	// ρ^1
+	// V^1
+	// D^1
+	// μ^-1
+	// ρ·V·D/μ = ρ·V·D/μ = Re
+	// ρ*V*D/μ Re
+}

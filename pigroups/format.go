@@ -14,7 +14,22 @@ import (
 // Greek symbols as quantity.LaTeX commands. Exponents beyond the variables are
 // ignored.
 func (p *Problem) FormatProduct(exps []quantity.Rat, style quantity.Style) string {
-	prod := make(quantity.Product, 0, len(exps))
+	return p.product(exps, style).Format(style, quantity.Fraction, "")
+}
+
+// product returns ∏ xᵢ^eᵢ of the problem's variables as a quantity.Product
+// in variable order, zero exponents left out, each factor named by its
+// variable's symbol as the style writes it (TeXSymbol for quantity.LaTeX).
+// It is the one representation a group and a product of variables are
+// spelled through.
+func (p *Problem) product(exps []quantity.Rat, style quantity.Style) quantity.Product {
+	n := 0
+	for i, e := range exps {
+		if i < len(p.vars) && !e.IsZero() {
+			n++
+		}
+	}
+	prod := make(quantity.Product, 0, n)
 	for i, e := range exps {
 		if i < len(p.vars) && !e.IsZero() {
 			name := p.vars[i].Symbol
@@ -24,26 +39,18 @@ func (p *Problem) FormatProduct(exps []quantity.Rat, style quantity.Style) strin
 			prod = append(prod, quantity.Factor{Name: name, Exp: e})
 		}
 	}
-	return prod.Format(style, quantity.Fraction, "")
+	return prod
 }
 
-// spell writes ∏ xᵢ^eᵢ given by variable index, as FormatProduct does.
-func (p *Problem) spell(exps map[int]quantity.Rat, style quantity.Style) string {
-	v := make([]quantity.Rat, len(p.vars))
-	for i, e := range exps {
-		if i >= 0 && i < len(v) {
-			v[i] = e
-		}
+// powerText writes a name to an exact power as a one-factor
+// quantity.Product: "Re", "1/Re", "Fr²", "1/Re²", "Re^(1/2)", and a
+// negative fractional power inline, "Re^(-1/2)".
+func powerText(name string, e quantity.Rat) string {
+	layout := quantity.Fraction
+	if !e.IsInt() {
+		layout = quantity.Inline
 	}
-	return p.FormatProduct(v, style)
-}
-
-// expText writes an exponent after a symbol, "" for 1.
-func expText(e quantity.Rat, style quantity.Style) string {
-	if e.IsOne() {
-		return ""
-	}
-	return string(quantity.AppendExponent(nil, e, style))
+	return quantity.Product{{Name: name, Exp: e}}.Format(quantity.Unicode, layout, "")
 }
 
 var greekTeX = map[rune]string{

@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"regexp"
 	"slices"
 	"strings"
 
@@ -24,9 +23,14 @@ type Group struct {
 	// first; empty when it has no name.
 	Matches []Match
 	prob    *Problem
-	// coef·(2π)^twoPi is a numerical factor the group carries (a
-	// coefficient's ½ or its rev/s conversion, see Coefficient); the zero
-	// coef means 1, as for every group of a Pi set.
+	// factor is the numerical factor the group carries (a coefficient's
+	// ½ or its rev/s conversion, see Coefficient); nil means 1, as for
+	// every group of a Pi set, which then holds a word for it.
+	factor *groupFactor
+}
+
+// groupFactor is the numerical factor coef·(2π)^twoPi of a coefficient.
+type groupFactor struct {
 	coef  quantity.Rat
 	twoPi int
 }
@@ -36,17 +40,17 @@ type Group struct {
 // written as C_D = 2·F/(ρ·V²·A), 4π² for K_T with a rotational speed held
 // in rad/s.
 func (g Group) Factor() float64 {
-	if g.coef.IsZero() {
+	if g.factor == nil {
 		return 1
 	}
-	return g.coef.Float() * math.Pow(2*math.Pi, float64(g.twoPi))
+	return g.factor.coef.Float() * math.Pow(2*math.Pi, float64(g.factor.twoPi))
 }
 
-func (g Group) factorText() string {
-	if g.coef.IsZero() {
+func (g Group) factorText(style quantity.Style) string {
+	if g.factor == nil {
 		return ""
 	}
-	return factorText(g.coef, g.twoPi)
+	return factorText(g.factor.coef, g.factor.twoPi, style)
 }
 
 // ErrNotExact is wrapped by the error of Coefficient for a group that is
@@ -82,7 +86,7 @@ func (g Group) Coefficient() (Group, error) {
 	if c.IsZero() {
 		c = quantity.RatInt(1)
 	}
-	out := Group{Name: m.Symbol, Var: g.Var, exps: exps, prob: g.prob, coef: c, twoPi: m.TwoPiPower()}
+	out := Group{Name: m.Symbol, Var: g.Var, exps: exps, prob: g.prob, factor: &groupFactor{coef: c, twoPi: m.TwoPiPower()}}
 	out.Matches = g.prob.recognise(exps)
 	return out, nil
 }
@@ -128,6 +132,19 @@ func (g Group) Dim() (quantity.Dim, error) {
 	return d, nil
 }
 
+// Product returns the group as a product of powers of its variables,
+// each factor named by the variable's symbol, in variable order, with the
+// exact exponents and none that is zero: {ρ 1, V 1, D 1, μ −1} for
+// ρ·V·D/μ. Format writes this product, after the group's numerical
+// factor (Factor) when it has one; NewGroup reads it back. The zero Group
+// is the empty product.
+func (g Group) Product() quantity.Product {
+	if g.prob == nil {
+		return nil
+	}
+	return g.prob.product(g.exps, quantity.Unicode)
+}
+
 // String writes the group in plain text: "mu/(rho*V*D)".
 func (g Group) String() string { return g.Format(quantity.ASCII) }
 
@@ -137,20 +154,16 @@ func (g Group) Format(style quantity.Style) string {
 	if g.prob == nil {
 		return "(no group)"
 	}
-	body := g.prob.FormatProduct(g.exps, style)
-	k := g.factorText()
+	body := g.prob.product(g.exps, style).Format(style, quantity.Fraction, "")
+	k := g.factorText(style)
 	if k == "" {
 		return body
 	}
 	sep := "·"
 	switch style {
 	case quantity.ASCII:
-		// Formula text: 4*pi^2, (1/(2*pi)).
-		k = digitPi.ReplaceAllString(k, "$1*π")
-		k = strings.NewReplacer("π", "pi", "²", "^2", "³", "^3").Replace(k)
-		sep = "*"
+		sep = "*" // formula text: 4*pi^2*…, (1/(2*pi))*…
 	case quantity.LaTeX:
-		k = strings.NewReplacer("π", `\pi`, "²", "^{2}", "³", "^{3}").Replace(k)
 		sep = " "
 	}
 	if strings.Contains(k, "/") {
@@ -158,10 +171,6 @@ func (g Group) Format(style quantity.Style) string {
 	}
 	return k + sep + body
 }
-
-// digitPi finds a number written against π, which formula text writes
-// with a product sign.
-var digitPi = regexp.MustCompile(`(\d)π`)
 
 // Label returns what the group's value is, in terms of the named group
 // it is recognised as: "Re", "1/Re", "Fr²", "C_D/2", "K_T/(4π²)", "∝C_D"
@@ -172,7 +181,7 @@ func (g Group) Label() string {
 		return g.Name
 	}
 	m := g.Matches[0]
-	if !g.coef.IsZero() && m.Exact() && m.Power.Num() == 1 && m.Power.Den() == 1 && g.coef == m.Coef && g.twoPi == m.TwoPiPower() {
+	if f := g.factor; f != nil && m.Exact() && m.Power.Num() == 1 && m.Power.Den() == 1 && f.coef == m.Coef && f.twoPi == m.TwoPiPower() {
 		return m.Symbol
 	}
 	return m.Label()
@@ -186,7 +195,7 @@ func (g Group) Describe() string {
 		return ""
 	}
 	m := g.Matches[0]
-	if l := g.Label(); !g.coef.IsZero() && l == m.Symbol {
+	if l := g.Label(); g.factor != nil && l == m.Symbol {
 		return l + " (" + m.Name + "; " + m.Definition + ")"
 	}
 	return m.describe(g.Name)

@@ -3,6 +3,7 @@ package pigroups
 import (
 	"errors"
 	"fmt"
+	"math"
 	"slices"
 	"strings"
 	"unicode"
@@ -142,18 +143,39 @@ var errInternal = errors.New("internal error")
 
 // Problem is a list of variables with its dimensional matrix and rank.
 type Problem struct {
-	vars  []Variable
-	kinds [][]string      // candidate kinds of each variable
-	ai    exact.IntMatrix // the dimensional matrix in sixths (ratMatrix: as Rats)
-	rows  []quantity.Base // base dimensions that appear, in ISO order
-	rank  int
-	dep   int // index of the dependent variable, or −1
+	vars []varInfo
+	rows []quantity.Base // base dimensions that appear, in ISO order
+	rank int
+	dep  int // index of the dependent variable, or −1
 
-	// The backing arrays of rows and of ai's row headers, in the
-	// Problem's own allocation.
+	// The backing array of rows, in the Problem's own allocation.
 	rowBuf [quantity.NumBases]quantity.Base
-	aiBuf  [quantity.NumBases][]int64
 }
+
+// varInfo is a variable with the candidate kinds its dimension can mean,
+// found once, so that a problem is two allocations: itself and its
+// variables.
+type varInfo struct {
+	Variable
+	// inferred are the kinds Dim can mean, for a variable without a
+	// Kind (shared, never modified); nil when Kind is given.
+	inferred *[]string
+}
+
+// hasKind reports whether k is one of the variable's candidate kinds.
+func (v *varInfo) hasKind(k string) bool {
+	if v.Kind != "" {
+		return v.Kind == k
+	}
+	return v.inferred != nil && slices.Contains(*v.inferred, k)
+}
+
+// sixth returns entry (i, j) of the dimensional matrix in sixths: the
+// exponent of base dimension rows[i] in variable j's dimension, as a
+// whole number. Scaling a matrix changes neither its rank nor its null
+// space, and integers eliminate faster; Matrix and MatrixTable divide by
+// six.
+func (p *Problem) sixth(i, j int) int64 { return int64(p.vars[j].Dim.Sixths(p.rows[i])) }
 
 // tooLarge reports an overflow of the exact arithmetic as what the user
 // did: the variables' exponents are too large (or too many) for 64-bit
@@ -190,12 +212,18 @@ func badSymbol(s string) string {
 		return "the symbol is not valid UTF-8"
 	}
 	for _, r := range s {
+		if r < utf8.RuneSelf && r > ' ' && r != 0x7f && !asciiOperator[r] {
+			continue // printable ASCII that is no operator, the usual case
+		}
 		if unicode.IsSpace(r) || unicode.IsControl(r) || strings.ContainsRune("*/^()·=,@", r) {
 			return fmt.Sprintf("the symbol may not contain %q (spaces, control characters and the operators * / ^ ( ) · = , @)", r)
 		}
 	}
 	return ""
 }
+
+// asciiOperator marks the ASCII operators a symbol may not contain.
+var asciiOperator = [utf8.RuneSelf]bool{'*': true, '/': true, '^': true, '(': true, ')': true, '=': true, ',': true, '@': true}
 
 // NewProblem checks the variables and builds the dimensional matrix.
 // Symbols must be distinct and non-empty; at most one variable may be
@@ -207,7 +235,7 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 	if len(vars) > MaxVariables {
 		return nil, &Error{Op: OpProblem, Kind: ErrTooManyVariables, Reason: fmt.Sprintf("%d variables, at most %d", len(vars), MaxVariables)}
 	}
-	p := &Problem{vars: slices.Clone(vars), dep: -1, kinds: make([][]string, 0, len(vars))}
+	p := &Problem{vars: make([]varInfo, len(vars)), dep: -1}
 	p.rows = p.rowBuf[:0]
 	for i, v := range vars {
 		if reason := badSymbol(v.Symbol); reason != "" {
@@ -227,11 +255,13 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 			}
 			p.dep = i
 		}
-		ks, err := candidateKinds(v)
-		if err != nil {
+		if err := checkKind(v); err != nil {
 			return nil, err
 		}
-		p.kinds = append(p.kinds, ks)
+		p.vars[i].Variable = v
+		if v.Kind == "" {
+			p.vars[i].inferred = inferKinds(v.Dim)
+		}
 	}
 	for b := quantity.Base(0); b < quantity.NumBases; b++ {
 		for _, v := range vars {
@@ -241,32 +271,85 @@ func NewProblem(vars ...Variable) (*Problem, error) {
 			}
 		}
 	}
-	p.ai = exact.IntMatrix(p.aiBuf[:len(p.rows):len(p.rows)])
-	cells := make([]int64, len(p.rows)*len(vars))
-	for i, b := range p.rows {
-		p.ai[i] = cells[i*len(vars) : (i+1)*len(vars) : (i+1)*len(vars)]
-		for j, v := range vars {
-			p.ai[i][j] = int64(v.Dim.Sixths(b))
-			// Held in sixths, as whole numbers: scaling a matrix changes
-			// neither its rank nor its null space, and integers eliminate
-			// faster. Matrix and MatrixTable divide by six.
-		}
-	}
-	var rows [quantity.NumBases][]int64
-	var pivBuf [quantity.NumBases]int
-	all := p.intColumns(nil)
-	for i := range p.rows {
-		copy(all[i][:len(vars)], p.ai[i])
-	}
-	for i := range p.rows {
-		rows[i] = all[i][:len(vars):len(vars)]
-	}
-	piv, err := exact.IntMatrix(rows[:len(p.rows)]).GaussJordan(pivBuf[:0])
+	rank, err := p.matrixRank()
 	if err != nil {
 		return nil, p.tooLarge(err)
 	}
-	p.rank = len(piv)
+	p.rank = rank
 	return p, nil
+}
+
+// matrixRank returns the rank of the dimensional matrix.
+func (p *Problem) matrixRank() (int, error) {
+	var buf [quantity.NumBases]int
+	sel, err := p.independent(nil, buf[:0])
+	return len(sel), err
+}
+
+// independent appends to dst the columns of the dimensional matrix that
+// are independent of those before them, taken in the given order (every
+// variable's, in variable order, for nil): the greedy choice of a basis.
+// Each column is reduced against the ones kept so far, fraction-free on
+// vectors of at most NumBases entries, each kept column zero at the
+// earlier ones' pivots, until as many are kept as there are rows.
+func (p *Problem) independent(order []int, dst []int) ([]int, error) {
+	var (
+		basis [quantity.NumBases][quantity.NumBases]int64
+		pivot [quantity.NumBases]int
+	)
+	n := len(p.vars)
+	if order != nil {
+		n = len(order)
+	}
+	nr, r := len(p.rows), 0
+	for k := range n {
+		if r == nr {
+			break
+		}
+		j := k
+		if order != nil {
+			j = order[k]
+		}
+		var v [quantity.NumBases]int64
+		for i := range nr {
+			v[i] = p.sixth(i, j)
+		}
+		for b := range r {
+			c := v[pivot[b]]
+			if c == 0 {
+				continue
+			}
+			pv := basis[b][pivot[b]]
+			g := int64(0)
+			for i := range nr {
+				x, ok1 := exact.Mul64(pv, v[i])
+				y, ok2 := exact.Mul64(c, basis[b][i])
+				if !ok1 || !ok2 || y == math.MinInt64 {
+					return nil, exact.ErrOverflow
+				}
+				d, ok := exact.Add64(x, -y)
+				if !ok || d == math.MinInt64 {
+					return nil, exact.ErrOverflow
+				}
+				v[i] = d
+				g = exact.GCD(g, d)
+			}
+			if g > 1 {
+				for i := range nr {
+					v[i] /= g
+				}
+			}
+		}
+		for i := range nr {
+			if v[i] != 0 {
+				basis[r], pivot[r] = v, i
+				r++
+				dst = append(dst, j)
+				break
+			}
+		}
+	}
+	return dst, nil
 }
 
 // MustProblem is like NewProblem but panics on error; for variables
@@ -283,7 +366,13 @@ func MustProblem(vars ...Variable) *Problem {
 func (p *Problem) DependentIndex() int { return p.dep }
 
 // Variables returns a copy of the variables.
-func (p *Problem) Variables() []Variable { return slices.Clone(p.vars) }
+func (p *Problem) Variables() []Variable {
+	out := make([]Variable, len(p.vars))
+	for i, v := range p.vars {
+		out[i] = v.Variable
+	}
+	return out
+}
 
 // Rank returns the rank of the dimensional matrix, found by exact
 // rational elimination: the number of repeating variables a Pi set needs.
@@ -317,7 +406,10 @@ func (p *Problem) Kinds(i int) ([]string, error) {
 	if i < 0 || i >= len(p.vars) {
 		return nil, &Error{Op: OpProblem, Kind: ErrUnknownVariable, Reason: fmt.Sprintf("index %d of a problem of %d variables", i, len(p.vars))}
 	}
-	return slices.Clone(p.kinds[i]), nil
+	if k := p.vars[i].Kind; k != "" {
+		return []string{k}, nil
+	}
+	return slices.Clone(*p.vars[i].inferred), nil
 }
 
 // Index returns the index of the variable with the given symbol, or an
@@ -345,7 +437,7 @@ func (p *Problem) Owns(g Group) bool {
 	if gp == p {
 		return true
 	}
-	return gp != nil && slices.EqualFunc(gp.vars, p.vars, func(a, b Variable) bool { return a.Symbol == b.Symbol && a.Dim == b.Dim })
+	return gp != nil && slices.EqualFunc(gp.vars, p.vars, func(a, b varInfo) bool { return a.Symbol == b.Symbol && a.Dim == b.Dim })
 }
 
 // CheckGroup returns nil if p owns g, and otherwise an error wrapping
@@ -360,20 +452,21 @@ func (p *Problem) CheckGroup(g Group) error {
 	return &Error{Op: OpProblem, Kind: ErrForeignGroup, Symbol: g.Name, Reason: fmt.Sprintf("%s is a group of the variables %s, not of %s", g, g.prob.symbols(), p.symbols())}
 }
 
-// NewGroup returns the group ∏ xᵢ^eᵢ of the problem's variables, the
-// exponents given by symbol, recognised against the catalogue; the
-// symbols must be the problem's and the product dimensionless.
-func (p *Problem) NewGroup(name string, exps map[string]quantity.Rat) (Group, error) {
+// NewGroup returns the group a product of powers of the problem's
+// variables names — the factors' names are the variables' symbols, as
+// Group.Product writes them — recognised against the catalogue. The
+// symbols must be the problem's and the product dimensionless; a symbol
+// given twice has its exponents added, as in any product.
+func (p *Problem) NewGroup(name string, prod quantity.Product) (Group, error) {
 	v := make([]quantity.Rat, len(p.vars))
-	for i := range v {
-		v[i] = quantity.RatInt(0)
-	}
-	for sym, e := range exps {
-		i, err := p.Index(sym)
+	for _, f := range prod {
+		i, err := p.Index(f.Name)
 		if err != nil {
 			return Group{}, err
 		}
-		v[i] = e
+		if v[i], err = v[i].Add(f.Exp); err != nil {
+			return Group{}, p.tooLarge(err)
+		}
 	}
 	if !p.dimensionless(v) {
 		return Group{}, &Error{Op: OpProblem, Kind: ErrNotDimensionless, Symbol: name, Reason: p.FormatProduct(v, quantity.Unicode) + " has a dimension"}
@@ -488,7 +581,7 @@ type intCells [quantity.NumBases][MaxVariables]int64
 func (p *Problem) intColumns(idx []int) (c intCells) {
 	for i := range p.rows {
 		for k, j := range idx {
-			c[i][k] = p.ai[i][j]
+			c[i][k] = p.sixth(i, j)
 		}
 	}
 	return c
@@ -505,7 +598,7 @@ func (p *Problem) ratMatrix() exact.Matrix[quantity.Rat] {
 	m := exact.NewMatrix[quantity.Rat](len(p.rows), len(p.vars))
 	for i := range m {
 		for j := range m[i] {
-			m[i][j] = quantity.RatInt(p.ai[i][j])
+			m[i][j] = quantity.RatInt(p.sixth(i, j))
 		}
 	}
 	return m
@@ -516,7 +609,7 @@ func (p *Problem) columns(idx []int) exact.Matrix[quantity.Rat] {
 	m := exact.NewMatrix[quantity.Rat](len(p.rows), len(idx))
 	for i := range p.rows {
 		for k, j := range idx {
-			m[i][k] = quantity.RatInt(p.ai[i][j])
+			m[i][k] = quantity.RatInt(p.sixth(i, j))
 		}
 	}
 	return m
@@ -535,32 +628,9 @@ func (p *Problem) CheckRepeating(set ...string) error {
 }
 
 func (p *Problem) repeatingIndex(set []string) ([]int, error) {
-	fail := func(err error, sym string) *Error {
-		return &Error{Op: OpRepeating, Kind: err, Set: slices.Clone(set), Want: p.rank, Symbol: sym}
-	}
-	idx := make([]int, 0, len(set))
-	for _, s := range set {
-		i := p.index(s)
-		if i < 0 {
-			return nil, fail(ErrRepeatingUnknown, s)
-		}
-		if slices.Contains(idx, i) {
-			e := fail(ErrRepeatingCount, s)
-			e.Hint = fmt.Sprintf("%q is given twice", s)
-			return nil, e
-		}
-		if i == p.dep {
-			return nil, fail(ErrRepeatingDep, s)
-		}
-		idx = append(idx, i)
-	}
-	if len(idx) != p.rank {
-		return nil, fail(ErrRepeatingCount, "")
-	}
-	if p.NumGroups() == 0 {
-		e := fail(ErrNoGroups, "")
-		e.Hint = fmt.Sprintf("the rank equals the %d variables, so every variable repeats and no group is left", len(p.vars))
-		return nil, e
+	idx, err := p.repeatingMembers(make([]int, 0, len(set)), set)
+	if err != nil {
+		return nil, err
 	}
 	var uncovered []quantity.Base
 	var rows [quantity.NumBases][]int64
@@ -595,13 +665,47 @@ func (p *Problem) repeatingIndex(set []string) ([]int, error) {
 		if len(ns) > 0 {
 			iv, _, err := integers(ns[0])
 			if err == nil {
-				exps := make(map[int]quantity.Rat)
+				exps := make([]quantity.Rat, len(p.vars))
 				for k, j := range idx {
 					exps[j] = iv[k]
 				}
-				e.Combination = p.spell(exps, quantity.ASCII)
+				e.Combination = p.FormatProduct(exps, quantity.ASCII)
 			}
 		}
+		return nil, e
+	}
+	return idx, nil
+}
+
+// repeatingMembers appends to dst the indices of a repeating set's
+// members, checking all that CheckRepeating does but that they carry every
+// base dimension and are independent.
+func (p *Problem) repeatingMembers(dst []int, set []string) ([]int, error) {
+	fail := func(err error, sym string) *Error {
+		return &Error{Op: OpRepeating, Kind: err, Set: slices.Clone(set), Want: p.rank, Symbol: sym}
+	}
+	idx := dst
+	for _, s := range set {
+		i := p.index(s)
+		if i < 0 {
+			return nil, fail(ErrRepeatingUnknown, s)
+		}
+		if slices.Contains(idx, i) {
+			e := fail(ErrRepeatingCount, s)
+			e.Hint = fmt.Sprintf("%q is given twice", s)
+			return nil, e
+		}
+		if i == p.dep {
+			return nil, fail(ErrRepeatingDep, s)
+		}
+		idx = append(idx, i)
+	}
+	if len(idx) != p.rank {
+		return nil, fail(ErrRepeatingCount, "")
+	}
+	if p.NumGroups() == 0 {
+		e := fail(ErrNoGroups, "")
+		e.Hint = fmt.Sprintf("the rank equals the %d variables, so every variable repeats and no group is left", len(p.vars))
 		return nil, e
 	}
 	return idx, nil
@@ -683,7 +787,7 @@ func (p *Problem) eachRepeating(f func(idx []int) bool) {
 			j := cand[k]
 			v := make([]quantity.Rat, len(p.rows))
 			for i := range p.rows {
-				v[i] = quantity.RatInt(p.ai[i][j])
+				v[i] = quantity.RatInt(p.sixth(i, j))
 			}
 			// Reduce v by the current basis.
 			ok := true
@@ -742,7 +846,7 @@ func (p *Problem) dependentOnly() error {
 	for i, b := range p.rows {
 		others := false
 		for j := range p.vars {
-			if j != p.dep && p.ai[i][j] != 0 {
+			if j != p.dep && p.sixth(i, j) != 0 {
 				others = true
 				break
 			}
@@ -764,7 +868,13 @@ var preference = map[string]int{
 
 func (p *Problem) prefRank(i int) int {
 	best := 50
-	for _, k := range p.kinds[i] {
+	var ks []string
+	if k := p.vars[i].Kind; k != "" {
+		ks = []string{k}
+	} else {
+		ks = *p.vars[i].inferred
+	}
+	for _, k := range ks {
 		if r, ok := preference[k]; ok && r < best {
 			best = r
 		}
@@ -796,19 +906,9 @@ func (p *Problem) DefaultRepeating() ([]string, error) {
 		}
 		return a - b
 	})
-	var chosen []int
-	for _, j := range cand {
-		if len(chosen) == p.rank {
-			break
-		}
-		trial := append(slices.Clone(chosen), j)
-		r, err := p.columns(trial).Rank()
-		if err != nil {
-			return nil, p.tooLarge(err)
-		}
-		if r == len(trial) {
-			chosen = trial
-		}
+	chosen, err := p.independent(cand, nil)
+	if err != nil {
+		return nil, p.tooLarge(err)
 	}
 	if p.rank == 0 {
 		return []string{}, nil // every variable is dimensionless: no repeating set is needed

@@ -318,3 +318,26 @@ func cmpInts(a, b []int) int {
 	}
 	return len(a) - len(b)
 }
+
+// TestPiSetRefusesAsCheckRepeating: PiSet checks a repeating set's
+// independence by the elimination that solves its groups, and refuses
+// exactly the sets CheckRepeating refuses, with the same error —
+// dependent members, a base dimension none carries, the dependent
+// variable, a wrong count — on random dimensional matrices and random
+// candidate sets.
+func TestPiSetRefusesAsCheckRepeating(t *testing.T) {
+	rapid.Check(t, func(t *rapid.T) {
+		p := randomProblem(t)
+		vars := p.Variables()
+		size := rapid.IntRange(0, min(len(vars), p.Rank()+1)).Draw(t, "size")
+		set := make([]string, size)
+		for k := range set {
+			set[k] = vars[rapid.IntRange(0, len(vars)-1).Draw(t, "member")].Symbol
+		}
+		want := p.CheckRepeating(set...)
+		_, got := p.PiSet(set...)
+		if (got == nil) != (want == nil) || got != nil && got.Error() != want.Error() {
+			t.Fatalf("PiSet(%v) = %v, CheckRepeating = %v", set, got, want)
+		}
+	})
+}

@@ -152,3 +152,40 @@ func TestLabelFollowsAngleMeasure(t *testing.T) {
 		t.Errorf("angle measure 7: %v", err)
 	}
 }
+
+// TestPiSetManyMatches: a set whose groups have more matches than the
+// first block PiSet holds them in (one per group, twenty viscosities each
+// μₖ/(ρ·V·D) a 1/Re, and Δp/(ρ·V²) with four names) gives every group
+// the matches it has on its own, in the same order.
+func TestPiSetManyMatches(t *testing.T) {
+	vars := []pigroups.Variable{pigroups.Dep("dp", q.Pressure), pigroups.Var("rho", q.Density), pigroups.Var("V", q.Velocity), pigroups.Var("D", q.Length)}
+	for k := range 20 {
+		vars = append(vars, pigroups.Var(fmt.Sprintf("mu%d", k), q.DynamicViscosity))
+	}
+	p := pigroups.MustProblem(vars...)
+	s, err := p.PiSet("rho", "V", "D")
+	if err != nil {
+		t.Fatal(err)
+	}
+	describe := func(ms []pigroups.Match) []string {
+		var out []string
+		for _, m := range ms {
+			out = append(out, m.Describe())
+		}
+		return out
+	}
+	total := 0
+	for _, g := range s.Groups() {
+		alone, err := p.NewGroup(g.Name, g.Product())
+		if err != nil {
+			t.Fatal(err)
+		}
+		if diff := cmp.Diff(describe(alone.Matches), describe(g.Matches)); diff != "" {
+			t.Errorf("%s: matches in the set differ from its own (-own +set):\n%s", g, diff)
+		}
+		total += len(g.Matches)
+	}
+	if total <= s.Len() {
+		t.Errorf("%d matches in all: the test needs more than the %d of PiSet's first block", total, s.Len())
+	}
+}

@@ -29,6 +29,9 @@ type Set struct {
 	prob      *Problem
 	repeating []int
 	groups    []Group
+	// repBuf backs repeating for the set PiSet builds, in the set's own
+	// allocation (a repeating set has at most NumBases members).
+	repBuf [quantity.NumBases]int
 }
 
 // PiSet builds the Pi set for a repeating set (validated as
@@ -38,14 +41,15 @@ type Set struct {
 // variable's group comes first, then the others in variable order; each
 // is checked to be dimensionless.
 func (p *Problem) PiSet(repeating ...string) (*Set, error) {
-	idx, err := p.repeatingIndex(repeating)
+	s := &Set{prob: p}
+	// The members are checked here and their independence by the
+	// elimination below, which solves the groups too; a set it finds
+	// dependent goes through CheckRepeating's checks for their error.
+	idx, err := p.repeatingMembers(s.repBuf[:0], repeating)
 	if err != nil {
 		return nil, err
 	}
-	if p.NumGroups() == 0 {
-		return nil, &Error{Op: OpRepeating, Kind: ErrNoGroups, Set: repeating, Want: p.rank}
-	}
-	s := &Set{prob: p, repeating: idx}
+	s.repeating = idx
 	if len(idx) == 0 {
 		// Rank 0: every variable is dimensionless and is its own group.
 		return p.trivialSet(s), nil
@@ -81,27 +85,26 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 	}
 	aug := exact.IntMatrix(rows[:len(p.rows)])
 	pivots, err := aug.GaussJordan(pivBuf[:0])
-	if err != nil {
-		return nil, p.tooLarge(err)
-	}
-	if len(pivots) != len(idx) || pivots[len(pivots)-1] != len(idx)-1 {
+	if err != nil || len(pivots) != len(idx) || pivots[len(pivots)-1] != len(idx)-1 {
+		// The repeating columns are dependent (a pivot past them), or the
+		// elimination overflowed: CheckRepeating's error says which.
+		if _, cerr := p.repeatingIndex(repeating); cerr != nil {
+			return nil, cerr
+		}
+		if err != nil {
+			return nil, p.tooLarge(err)
+		}
 		return nil, &Error{Op: OpProblem, Kind: errInternal, Reason: fmt.Sprintf("repeating set %v is not independent", s.Repeating())}
 	}
 	n := len(p.vars)
 	cells := make([]quantity.Rat, n*len(order))
 	s.groups = make([]Group, 0, len(order))
-	// The matches are gathered on the stack, a group's at a time in
-	// scratch and then all of them in pending, and copied once into a
-	// slice of exactly their number (most groups match one named group
-	// or none); the buffers are not kept.
-	var (
-		scratch [8]Match
-		pendBuf [16]Match
-		cntBuf  [32]int
-	)
-	pending, counts := pendBuf[:0], cntBuf[:0]
+	// The matches of all the groups share one block, allocated at the
+	// first match with room for one per group left (most groups match
+	// one named group or none), each group's a capped piece of it; a
+	// group that does not fit starts a new block.
+	var spare []Match
 	var ar matchArena
-	ar.text.Grow(256)
 	for k, j := range order {
 		v := cells[k*n : (k+1)*n : (k+1)*n]
 		if !coprimeGroup(v, j, idx, aug, len(idx)+k) {
@@ -117,34 +120,26 @@ func (p *Problem) PiSet(repeating ...string) (*Set, error) {
 				return nil, p.tooLarge(err)
 			}
 		}
-		iv := v
-		g := Group{Name: piName(k + 1), Var: j, exps: iv, prob: p}
-		if !p.dimensionless(iv) {
-			return nil, &Error{Op: OpProblem, Kind: errInternal, Reason: fmt.Sprintf("group %s is not dimensionless", g)}
+		// v solves A·v = 0 exactly by construction: the property tests
+		// check every group's dimension, not this path.
+		g := Group{Name: piName(k + 1), Var: j, exps: v, prob: p}
+		if ms := p.recogniseIn(&ar, spare, len(order)-k, v); len(ms) > 0 {
+			g.Matches = ms[:len(ms):len(ms)] // a group with no name keeps a nil list
+			spare = ms[len(ms):]
 		}
-		ms := p.recogniseIn(&ar, scratch[:0], iv)
-		pending = append(pending, ms...)
-		counts = append(counts, len(ms))
 		s.groups = append(s.groups, g)
-	}
-	if len(pending) > 0 {
-		all := make([]Match, len(pending))
-		copy(all, pending)
-		for k, c := range counts {
-			if c > 0 { // a group with no name keeps a nil list
-				s.groups[k].Matches = all[:c:c]
-				all = all[c:]
-			}
-		}
 	}
 	return s, nil
 }
 
-// coprimeGroup writes into v the exponents of the group of variable j,
-// as quantity.Coprime would scale them: x_j = 1 and x_i = −aug[r][col]/aug[r][r]
-// for the repeating variable i of pivot row r, times the least common
-// denominator, divided by the gcd of the results. It works in int64 and
-// reports false on an overflow, leaving the caller to the exact path.
+// coprimeGroup writes into v, which is zero on entry, the exponents of
+// the group of variable j, as quantity.Coprime would scale them: x_j = 1
+// and x_i = −aug[r][col]/aug[r][r] for the repeating variable i of pivot
+// row r, times the least common denominator, divided by the gcd of the
+// results. It works in int64, dividing only where a denominator or a
+// gcd is not one (a 64-bit division costs tens of cycles, and most of
+// them are one), and reports false on an overflow, leaving the caller to
+// the exact path.
 func coprimeGroup(v []quantity.Rat, j int, idx []int, aug exact.IntMatrix, col int) bool {
 	var num, den [quantity.NumBases]int64
 	l := int64(1)
@@ -156,30 +151,43 @@ func coprimeGroup(v []quantity.Rat, j int, idx []int, aug exact.IntMatrix, col i
 		if d < 0 {
 			n, d = -n, -d
 		}
-		if g := exact.GCD(n, d); g > 1 {
-			n, d = n/g, d/g
+		if d != 1 {
+			if g := exact.GCD(n, d); g > 1 {
+				n, d = n/g, d/g
+			}
 		}
 		num[r], den[r] = n, d
-		var ok bool
-		if l, ok = exact.Mul64(l, d/exact.GCD(l, d)); !ok {
-			return false
+		if d != 1 && d != l {
+			var ok bool
+			if l == 1 {
+				l = d
+			} else if l, ok = exact.Mul64(l, d/exact.GCD(l, d)); !ok {
+				return false
+			}
 		}
 	}
 	g := l
 	for r := range idx {
-		w, ok := exact.Mul64(num[r], l/den[r])
-		if !ok || w == math.MinInt64 {
-			return false
+		if den[r] != l {
+			w, ok := exact.Mul64(num[r], l/den[r])
+			if !ok || w == math.MinInt64 {
+				return false
+			}
+			num[r] = w
 		}
-		num[r] = w
-		g = exact.GCD(g, w)
+		if g != 1 {
+			g = exact.GCD(g, num[r])
+		}
 	}
-	for i := range v {
-		v[i] = quantity.Rat{}
+	if g != 1 {
+		l /= g
+		for r := range idx {
+			num[r] /= g
+		}
 	}
-	v[j] = quantity.RatInt(l / g)
+	v[j] = quantity.RatInt(l)
 	for r, i := range idx {
-		v[i] = quantity.RatInt(num[r] / g)
+		v[i] = quantity.RatInt(num[r])
 	}
 	return true
 }
@@ -229,10 +237,10 @@ func (p *Problem) dimensionless(v []quantity.Rat) bool {
 		// Small integer exponents against the integer matrix (sixths): a
 		// plain dot product, which cannot overflow (|aᵢⱼ| ≤ 128, at most
 		// 64 terms of at most 2⁴⁰ each).
-		for _, row := range p.ai {
+		for i := range p.rows {
 			var sum int64
 			for j, x := range v {
-				sum += row[j] * x.Num()
+				sum += p.sixth(i, j) * x.Num()
 			}
 			if sum != 0 {
 				return false
@@ -243,7 +251,7 @@ func (p *Problem) dimensionless(v []quantity.Rat) bool {
 	for i := range p.rows {
 		sum := quantity.RatInt(0)
 		for j, x := range v {
-			t, err := quantity.RatInt(p.ai[i][j]).Mul(x)
+			t, err := quantity.RatInt(p.sixth(i, j)).Mul(x)
 			if err != nil {
 				return false
 			}

@@ -193,7 +193,7 @@ func (pl *Plan) HoldExps(label string, exps map[string]int) *Plan {
 	if pl.err != nil {
 		return pl // Solve reports the first mistake
 	}
-	m := make(map[string]quantity.Rat, len(exps))
+	m := make(quantity.Product, 0, len(exps))
 	for s, e := range exps {
 		if pl.index(s) < 0 {
 			return pl.failErr(unknownVar("hold "+label, s, pl.vars))
@@ -202,7 +202,7 @@ func (pl *Plan) HoldExps(label string, exps map[string]int) *Plan {
 		if err != nil {
 			return pl.failErr(planError("HoldExps", label, err, fmt.Sprintf("hold %s: the exponent of %s", label, s)))
 		}
-		m[s] = r
+		m = append(m, quantity.Factor{Name: s, Exp: r})
 	}
 	g, err := pl.prob.NewGroup(label, m)
 	if err != nil {

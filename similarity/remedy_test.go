@@ -34,14 +34,14 @@ func shipProblem() *pigroups.Problem {
 func TestRemedyStatesNamedGroup(t *testing.T) {
 	p := shipProblem()
 	h := q.MustRat(1, 2)
-	frForms := []map[string]q.Rat{
-		{"V": q.RatInt(2), "g": q.RatInt(-1), "L": q.RatInt(-1)}, // Fr²
-		{"V": q.RatInt(-2), "g": q.RatInt(1), "L": q.RatInt(1)},  // L·g/V² = 1/Fr²
-		{"V": q.RatInt(1), "g": h.Neg(), "L": h.Neg()},           // Fr
+	frForms := []q.Product{
+		{{Name: "V", Exp: q.RatInt(2)}, {Name: "g", Exp: q.RatInt(-1)}, {Name: "L", Exp: q.RatInt(-1)}}, // Fr²
+		{{Name: "V", Exp: q.RatInt(-2)}, {Name: "g", Exp: q.RatInt(1)}, {Name: "L", Exp: q.RatInt(1)}},  // L·g/V² = 1/Fr²
+		{{Name: "V", Exp: q.RatInt(1)}, {Name: "g", Exp: h.Neg()}, {Name: "L", Exp: h.Neg()}},           // Fr
 	}
-	reForms := []map[string]q.Rat{
-		{"rho": q.RatInt(1), "V": q.RatInt(1), "L": q.RatInt(1), "mu": q.RatInt(-1)},   // Re
-		{"rho": q.RatInt(-1), "V": q.RatInt(-1), "L": q.RatInt(-1), "mu": q.RatInt(1)}, // 1/Re
+	reForms := []q.Product{
+		{{Name: "rho", Exp: q.RatInt(1)}, {Name: "V", Exp: q.RatInt(1)}, {Name: "L", Exp: q.RatInt(1)}, {Name: "mu", Exp: q.RatInt(-1)}},   // Re
+		{{Name: "rho", Exp: q.RatInt(-1)}, {Name: "V", Exp: q.RatInt(-1)}, {Name: "L", Exp: q.RatInt(-1)}, {Name: "mu", Exp: q.RatInt(1)}}, // 1/Re
 	}
 	for k := range frForms {
 		fr, err := p.NewGroup("Πa", frForms[k])
@@ -124,7 +124,7 @@ func TestForeignGroupRefused(t *testing.T) {
 
 func mustGroup(t *testing.T, p *pigroups.Problem, v, g, l string) pigroups.Group {
 	t.Helper()
-	gr, err := p.NewGroup("Fr²", map[string]q.Rat{v: q.RatInt(2), g: q.RatInt(-1), l: q.RatInt(-1)})
+	gr, err := p.NewGroup("Fr²", q.Product{{Name: v, Exp: q.RatInt(2)}, {Name: g, Exp: q.RatInt(-1)}, {Name: l, Exp: q.RatInt(-1)}})
 	if err != nil {
 		t.Fatal(err)
 	}
