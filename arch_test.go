@@ -350,3 +350,106 @@ func TestSentinelsUnique(t *testing.T) {
 		}
 	}
 }
+
+// allowedDeps is DEVELOPERS.md's list of third-party modules with where
+// each may be imported: by package directory (a prefix ending in "/"
+// covers the subtree) and whether only test files may import it. An
+// import of a module not listed, or from a directory not listed, fails
+// TestDependenciesWhereListed, so the guide's list cannot drift from the
+// code.
+var allowedDeps = []struct {
+	module   string
+	dirs     []string
+	testOnly bool
+}{
+	{"gonum.org/v1/gonum", []string{"quantity/fit", "quantity/uncertain", "pigroups", "similarity/ship", "similarity/tunnel", "similarity/hydraulic"}, false},
+	{"github.com/parquet-go/parquet-go", []string{"units/chanfile/parquetfile"}, false},
+	{"github.com/parquet-go/parquet-go", []string{"similarity/reduction", "examples/pisets"}, true},
+	{"github.com/klauspost/compress", []string{"units/chanfile/parquetfile"}, false},
+	{"gonum.org/v1/plot", []string{"examples/"}, false},
+	{"github.com/schollz/progressbar/v3", []string{"examples/pisets"}, false},
+	{"golang.org/x/term", []string{"examples/pisets"}, false},
+	{"github.com/google/go-cmp", []string{"", "examples/", "internal/", "quantity/", "units/", "pigroups/", "similarity/", "quantity", "units", "pigroups", "similarity"}, true},
+	{"pgregory.net/rapid", []string{"", "examples/", "internal/", "quantity/", "units/", "pigroups/", "similarity/", "quantity", "units", "pigroups", "similarity"}, true},
+}
+
+// depAllowed reports whether a file in dir (a test file or not) may
+// import the third-party package ip.
+func depAllowed(dir, ip string, test bool) bool {
+	for _, a := range allowedDeps {
+		if ip != a.module && !strings.HasPrefix(ip, a.module+"/") {
+			continue
+		}
+		if a.testOnly && !test {
+			continue
+		}
+		for _, d := range a.dirs {
+			if dir == d || strings.HasSuffix(d, "/") && strings.HasPrefix(dir, d) || dir == "." && d == "" {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// TestDependenciesWhereListed fails on a third-party import that
+// DEVELOPERS.md's dependency list (allowedDeps) does not allow where it
+// stands: a new module, a module used in a new package, or a test-only
+// module imported by library code.
+func TestDependenciesWhereListed(t *testing.T) {
+	fset := token.NewFileSet()
+	err := filepath.WalkDir(".", func(path string, d fs.DirEntry, err error) error {
+		if err != nil {
+			return err
+		}
+		if d.IsDir() && (strings.HasPrefix(d.Name(), ".") && path != "." || d.Name() == "testdata") {
+			return filepath.SkipDir
+		}
+		if d.IsDir() || !strings.HasSuffix(path, ".go") {
+			return nil
+		}
+		f, err := parser.ParseFile(fset, path, nil, parser.ImportsOnly)
+		if err != nil {
+			return err
+		}
+		dir := filepath.ToSlash(filepath.Dir(path))
+		for _, imp := range f.Imports {
+			ip, _ := strconv.Unquote(imp.Path.Value)
+			first, _, _ := strings.Cut(ip, "/")
+			if !strings.Contains(first, ".") || strings.HasPrefix(ip, module+"/") || ip == module {
+				continue // the standard library, or the module itself
+			}
+			if !depAllowed(dir, ip, strings.HasSuffix(path, "_test.go")) {
+				t.Errorf("%s imports %s, which DEVELOPERS.md's dependency list does not allow there", path, ip)
+			}
+		}
+		return nil
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+}
+
+// TestDependencyRuleCatches shows the rule can fail: a library file may
+// not import a test-only module, and plot is for the examples alone.
+func TestDependencyRuleCatches(t *testing.T) {
+	for _, c := range []struct {
+		dir, ip string
+		test    bool
+		want    bool
+	}{
+		{"quantity", "pgregory.net/rapid", false, false},
+		{"quantity", "pgregory.net/rapid", true, true},
+		{"similarity/ship", "gonum.org/v1/plot/plotter", false, false},
+		{"examples/towingtank", "gonum.org/v1/plot/plotter", false, true},
+		{"units", "github.com/parquet-go/parquet-go", false, false},
+		{"similarity/reduction", "github.com/parquet-go/parquet-go", false, false},
+		{"similarity/reduction", "github.com/parquet-go/parquet-go", true, true},
+		{".", "github.com/google/go-cmp/cmp", true, true},
+		{"units", "example.com/new/module", false, false},
+	} {
+		if got := depAllowed(c.dir, c.ip, c.test); got != c.want {
+			t.Errorf("depAllowed(%q, %q, test=%v) = %v, want %v", c.dir, c.ip, c.test, got, c.want)
+		}
+	}
+}

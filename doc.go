@@ -77,15 +77,16 @@
 // # Error model
 //
 // A dimension mismatch never yields a number. In formulas a programmer
-// wrote, quantity arithmetic panics with a *quantity.DimensionError naming
-// the operation and both sides, so the bug shows on the first run. Values
-// and text that come from input are checked by functions that return
-// errors (Quantity.Check, quantity.Eval, units.Parse); parsing user text
-// never panics, and its work is bounded. Every error is a typed error of
-// the package that returned it (errors.As) and matches one class of the
-// module under errors.Is: quantity.ErrDimension, ErrRange, ErrParse,
-// ErrUnknown, ErrInvalid, or similarity.ErrConflict. Every number
-// returned is finite, or the call returns an error.
+// wrote, quantity arithmetic panics with a *quantity.Error of class
+// quantity.ErrDimension naming the operation and both sides, so the bug
+// shows on the first run. Values and text that come from input are checked
+// by functions that return errors (Quantity.Check, quantity.Eval,
+// units.Parse); parsing user text never panics, and its work is bounded.
+// Every error is a typed error of the package that returned it (errors.As)
+// and matches one class of the module under errors.Is:
+// quantity.ErrDimension, ErrRange, ErrParse, ErrUnknown, ErrInvalid, or
+// similarity.ErrConflict. Every number returned is finite, or the call
+// returns an error.
 //
 // # Where to start
 //

@@ -113,7 +113,7 @@ func TestErrorVocabularyWrapped(t *testing.T) {
 	foreign := oset.Groups()
 	var (
 		parseErr  *units.Error
-		dimErr    *quantity.DimensionError
+		dimErr    *quantity.Error
 		convErr   *units.Error
 		planErr   *similarity.PlanError
 		rangeErr  *units.Error
@@ -181,6 +181,8 @@ func TestErrorVocabularyWrapped(t *testing.T) {
 		}
 		if !errors.As(c.err, c.inner) {
 			t.Errorf("%s: errors.As does not reach %T in %v (%T)", c.name, c.inner, c.err, c.err)
+		} else if qe, ok := c.inner.(**quantity.Error); ok && c.class == "dimension" && (*qe).Class != quantity.ErrDimension {
+			t.Errorf("%s: the *quantity.Error reached is of class %v, want ErrDimension", c.name, (*qe).Class)
 		}
 	}
 }

@@ -14,15 +14,7 @@ import (
 // is read in the wrong unit.
 var fieldUnits = map[string]map[string]string{
 	"similarity/fluids": {
-		"IdealGas.R":              "(J/(kg·K))",
-		"IdealGas.Beta":           "(kg/(m·s·K^(1/2)))",
-		"IdealGas.S":              "(K)",
-		"IdealGas.KRef":           "(W/(m·K))",
-		"IdealGas.KTemp":          "(K)",
-		"IdealGas.KS":             "(K)",
-		"IdealGas.MinTemperature": "(K)",
-		"IdealGas.MaxTemperature": "(K)",
-		"Water.Salinity":          "(g/kg)",
+		"Water.Salinity": "(kg/kg)", // a dimensionless Quantity, a mass fraction
 	},
 	"similarity/hydraulic": {
 		"RatingPoint.Head":      "(m)",

@@ -50,7 +50,7 @@ func TestErrorsOneType(t *testing.T) {
 		t.Fatal(err)
 	}
 	length := set.MustMeasure(q.New(1, q.Length), set.MustAdd(uncertain.Source{Name: "L", U: q.New(0.01, q.Length)}))
-	asDim := func(err error) bool { var e *q.DimensionError; return errors.As(err, &e) }
+	asDim := func(err error) bool { var e *q.Error; return errors.As(err, &e) && e.Class == q.ErrDimension }
 	asUnit := func(err error) bool { var e *units.Error; return errors.As(err, &e) }
 	for _, c := range []struct {
 		name  string

@@ -60,7 +60,7 @@ const (
 // exactly as whole numbers of sixths (so L^(1/2), T^(1/3) and M^(5/6) are
 // exact), over −21⅓ … 21⅙. An operation whose result would fall outside
 // that range, or whose exponent is not a whole number of sixths, reports
-// a *DimensionError; nothing wraps.
+// an *Error of class ErrDimension; nothing wraps.
 //
 // Dim is a small comparable value: == compares dimensions and a Dim can be
 // a map key. The zero Dim is dimensionless (dimension one).
@@ -124,7 +124,7 @@ func (d Dim) sub(o Dim) (Dim, bool) {
 // DimOf returns the dimension of base b raised to num/den.
 func DimOf(b Base, num, den int) (Dim, error) {
 	if b >= NumBases {
-		return Dim(0), &DimensionError{Op: "build a dimension", Detail: "base " + strconv.Itoa(int(b)) + " does not exist"}
+		return Dim(0), &Error{Op: "build a dimension", Reason: "base " + strconv.Itoa(int(b)) + " does not exist", Class: ErrDimension}
 	}
 	s, err := sixths(num, den)
 	if err != nil {
@@ -136,7 +136,8 @@ func DimOf(b Base, num, den int) (Dim, error) {
 }
 
 // NewDim returns the dimension L^l M^m T^t I^i Θ^th N^n J^j with whole
-// exponents. It reports a *DimensionError if an exponent is out of range.
+// exponents. It reports an *Error of class ErrDimension if an exponent is
+// out of range.
 func NewDim(l, m, t, i, th, n, j int) (Dim, error) {
 	var e [NumBases]int8
 	for k, x := range [NumBases]int{l, m, t, i, th, n, j} {
@@ -161,14 +162,14 @@ func MustDim(l, m, t, i, th, n, j int) Dim {
 
 func sixths(num, den int) (int8, error) {
 	if den == 0 {
-		return 0, &DimensionError{Op: "build a dimension", Detail: "exponent " + strconv.Itoa(num) + "/0 has a zero denominator"}
+		return 0, &Error{Op: "build a dimension", Reason: "exponent " + strconv.Itoa(num) + "/0 has a zero denominator", Class: ErrDimension}
 	}
 	if (num*expDen)%den != 0 || num > 1<<20 || num < -(1<<20) {
-		return 0, &DimensionError{Op: "build a dimension", Detail: "exponent " + ratText(num, den) + " is not a whole number of sixths"}
+		return 0, &Error{Op: "build a dimension", Reason: "exponent " + ratText(num, den) + " is not a whole number of sixths", Class: ErrDimension}
 	}
 	s := num * expDen / den
 	if s > maxExpSixths || s < minExpSixths {
-		return 0, &DimensionError{Op: "build a dimension", Detail: "exponent " + ratText(num, den) + " is outside −21⅓ … 21⅙"}
+		return 0, &Error{Op: "build a dimension", Reason: "exponent " + ratText(num, den) + " is outside −21⅓ … 21⅙", Class: ErrDimension}
 	}
 	return int8(s), nil
 }
@@ -188,7 +189,7 @@ func (d Dim) IsDimensionless() bool { return d == 0 }
 func (d Dim) Mul(o Dim) (Dim, error) {
 	r, ok := d.add(o)
 	if !ok {
-		return Dim(0), &DimensionError{Op: "multiply", Left: d, Right: o, Binary: true, Detail: "an exponent overflows"}
+		return Dim(0), &Error{Op: "multiply", Dims: [2]Dim{d, o}, Binary: true, Reason: "an exponent overflows", Class: ErrDimension}
 	}
 	return r, nil
 }
@@ -197,7 +198,7 @@ func (d Dim) Mul(o Dim) (Dim, error) {
 func (d Dim) Div(o Dim) (Dim, error) {
 	r, ok := d.sub(o)
 	if !ok {
-		return Dim(0), &DimensionError{Op: "divide", Left: d, Right: o, Binary: true, Detail: "an exponent overflows"}
+		return Dim(0), &Error{Op: "divide", Dims: [2]Dim{d, o}, Binary: true, Reason: "an exponent overflows", Class: ErrDimension}
 	}
 	return r, nil
 }
@@ -207,11 +208,12 @@ func (d Dim) Inv() (Dim, error) {
 	return Dimensionless.Div(d)
 }
 
-// Pow returns d raised to num/den. It reports a *DimensionError when a
-// resulting exponent is not a whole number of sixths or is out of range.
+// Pow returns d raised to num/den. It reports an *Error of class
+// ErrDimension when a resulting exponent is not a whole number of sixths
+// or is out of range.
 func (d Dim) Pow(num, den int) (Dim, error) {
 	if den == 0 {
-		return Dim(0), &DimensionError{Op: "raise %s to a power", Left: d, Detail: "exponent " + strconv.Itoa(num) + "/0 has a zero denominator"}
+		return Dim(0), &Error{Op: "raise %s to a power", Dims: [2]Dim{d}, Reason: "exponent " + strconv.Itoa(num) + "/0 has a zero denominator", Class: ErrDimension}
 	}
 	if num == den {
 		return d, nil
@@ -221,11 +223,11 @@ func (d Dim) Pow(num, den int) (Dim, error) {
 	for b, v := range in {
 		e := int64(v) * int64(num)
 		if e%int64(den) != 0 {
-			return Dim(0), &DimensionError{Op: "raise %s to the power " + ratText(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " would not be a whole number of sixths"}
+			return Dim(0), &Error{Op: "raise %s to the power " + ratText(num, den), Dims: [2]Dim{d}, Reason: "the exponent of " + Base(b).String() + " would not be a whole number of sixths", Class: ErrDimension}
 		}
 		e /= int64(den)
 		if e > maxExpSixths || e < minExpSixths {
-			return Dim(0), &DimensionError{Op: "raise %s to the power " + ratText(num, den), Left: d, Detail: "the exponent of " + Base(b).String() + " overflows"}
+			return Dim(0), &Error{Op: "raise %s to the power " + ratText(num, den), Dims: [2]Dim{d}, Reason: "the exponent of " + Base(b).String() + " overflows", Class: ErrDimension}
 		}
 		out[b] = int8(e)
 	}

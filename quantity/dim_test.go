@@ -245,7 +245,9 @@ func TestDimProperties(t *testing.T) {
 }
 
 // TestDimOverflowProperty checks against plain integer arithmetic that a
-// product overflows exactly when some exponent leaves −128…127 sixths.
+// product or a quotient overflows exactly when some exponent leaves
+// −128…127 sixths, for Dim.Mul and Dim.Div (an error) and for
+// Quantity.Mul and Quantity.Div (a panic at that operation).
 func TestDimOverflowProperty(t *testing.T) {
 	rapid.Check(t, func(t *rapid.T) {
 		var ea, eb [q.NumBases]int
@@ -257,11 +259,27 @@ func TestDimOverflowProperty(t *testing.T) {
 			db, _ := q.DimOf(q.Base(k), eb[k], 6)
 			a, b = mul(a, da), mul(b, db)
 		}
-		wantOK := true
+		wantOK, wantDivOK := true, true
 		for k := range ea {
 			if s := ea[k] + eb[k]; s < -128 || s > 127 {
 				wantOK = false
 			}
+			if s := ea[k] - eb[k]; s < -128 || s > 127 {
+				wantDivOK = false
+			}
+		}
+		qa, qb := q.New(2, a), q.New(4, b)
+		if got := panics(func() { qa.Mul(qb) }); got == wantOK {
+			t.Fatalf("Quantity %v·%v: panic = %v, want %v", a, b, got, !wantOK)
+		}
+		if got := panics(func() { qa.Div(qb) }); got == wantDivOK {
+			t.Fatalf("Quantity %v/%v: panic = %v, want %v", a, b, got, !wantDivOK)
+		}
+		if _, err := a.Div(b); (err == nil) != wantDivOK {
+			t.Fatalf("%v/%v: err = %v, want ok = %v", a, b, err, wantDivOK)
+		}
+		if wantOK && qa.Mul(qb) != q.New(8, mul(a, b)) {
+			t.Fatalf("Quantity %v·%v = %v", a, b, qa.Mul(qb))
 		}
 		d, err := a.Mul(b)
 		if (err == nil) != wantOK {
@@ -275,6 +293,16 @@ func TestDimOverflowProperty(t *testing.T) {
 			}
 		}
 	})
+}
+
+// panics reports whether f panics with an *Error of class ErrDimension.
+func panics(f func()) (p bool) {
+	defer func() {
+		e, ok := recover().(*q.Error)
+		p = ok && e.Class == q.ErrDimension
+	}()
+	f()
+	return false
 }
 
 func FuzzParseDim(f *testing.F) {

@@ -15,12 +15,14 @@
 // # Text
 //
 // A Quantity prints (String, %v, MarshalText) its value and its coherent SI
-// unit: N, Pa or W where the dimension is exactly that of the newton, the
-// pascal or the watt, the SI base-unit form otherwise ("138434.1 N",
-// "1.225 kg·m⁻³"); ParseQuantitySI reads every such text back to the same
-// bits. Energy keeps base units, since torque shares its dimension. To
-// print in any other unit, with prefixes or a chosen precision, use the
-// units package's Printer.
+// unit: one of a fixed set of twelve names — N, Pa, W, N·m, Pa·s, N/m,
+// N/m³, W/m², W/(m·K), W/(m²·K), J/K, J/(kg·K) — where the dimension is
+// exactly that unit's, the SI base-unit form otherwise ("138434.1 N",
+// "0.0010016 Pa·s", "1.225 kg·m⁻³", "2 s⁻¹"); ParseQuantitySI reads every
+// such text back to the same bits. Energy and torque share a dimension
+// and print N·m, right for both (1 J = 1 N·m), where J would misname a
+// torque. To print in any other unit, with prefixes or a chosen
+// precision, use the units package's Printer.
 //
 // # Error model
 //
@@ -28,8 +30,8 @@
 // reported, chosen by where the dimensions come from:
 //
 //   - In code a programmer wrote, a mismatch is a bug. Quantity and Series
-//     arithmetic panics with a *DimensionError whose message names the
-//     operation and both sides with their kinds —
+//     arithmetic panics with an *Error of class ErrDimension whose
+//     message names the operation and both sides with their kinds —
 //     "cannot add pressure, stress [Pa] and velocity [m·s⁻¹]" —
 //     so the bug surfaces on the formula's first run, with a stack trace.
 //   - For values whose dimensions come from input (a file, a user), check
@@ -38,8 +40,11 @@
 //     panic into a returned error.
 //
 // Dim's own methods (Mul, Div, Pow, …) return errors rather than panic.
-// Every *DimensionError matches ErrDimension under errors.Is, and
-// errors.As recovers its fields.
+// The package has one error type, *Error: every error it returns or
+// panics with is one, matching its Class (ErrDimension for a dimension
+// that is wrong) under errors.Is, and errors.As recovers its fields —
+// the operation, the input, the position, the caller's name for the
+// value, the two dimensions and the cause.
 //
 // # The exponent algebra and the error classes
 //

@@ -27,8 +27,9 @@ func (d *Dim) UnmarshalText(b []byte) error {
 
 // AppendText appends the text form of q, as String writes it, to b: the
 // shortest decimal that reads back to the same float64, a space, and the
-// unit (N, Pa or W where the dimension is exactly theirs, else the SI
-// base-unit form: "101325 Pa", "1.225 kg·m⁻³"). A value that is
+// unit (a name of String's fixed set where the dimension is exactly its,
+// else the SI base-unit form: "101325 Pa", "0.0010016 Pa·s",
+// "1.225 kg·m⁻³"). A value that is
 // not finite is refused, since no number written in a data file should
 // read back as NaN or ±Inf. It implements encoding.TextAppender.
 func (q Quantity) AppendText(b []byte) ([]byte, error) {
@@ -62,10 +63,13 @@ func (q *Quantity) UnmarshalText(b []byte) error {
 
 // ParseQuantitySI reads a quantity written as String and MarshalText
 // write it: a finite number and, after a space, a dimension in SI base
-// units or ISO form, or alone one of the special names String writes —
-// N (newton), Pa (pascal), W (watt). A unit text of "N" alone is so the
-// newton, not the ISO symbol of amount of substance (write mol). It
-// reports an *Error of class ErrParse.
+// units or ISO form, or alone one of the unit names String or ASCII
+// writes — N, Pa, W, N·m, Pa·s, N/m, N/m³, W/m², W/(m·K), W/(m²·K), J/K,
+// J/(kg·K), or their ASCII spellings N*m, Pa*s, N/m^3, W/m^2, W/(m*K),
+// W/(m^2*K), J/(kg*K). A unit text of "N" alone is so the newton, not the
+// ISO symbol of amount of substance (write mol), and "N·m" the newton
+// metre, not amount of substance times length. It reports an *Error of
+// class ErrParse.
 func ParseQuantitySI(s string) (Quantity, error) {
 	if len(s) > maxDimText+64 {
 		return Quantity{}, parseError(s[:64]+"…", 64, "text too long")
@@ -78,7 +82,9 @@ func ParseQuantitySI(s string) (Quantity, error) {
 	}
 	v, err := strconv.ParseFloat(num, 64)
 	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
-		return Quantity{}, parseError(s, lead, fmt.Sprintf("%q is not a finite number", num))
+		pe := parseError(s, lead, fmt.Sprintf("%q is not a finite number", num))
+		pe.Err = err // the *strconv.NumError, if there is one
+		return Quantity{}, pe
 	}
 	if v == 0 && strings.ContainsAny(strings.SplitN(strings.ToLower(num), "e", 2)[0], "123456789") {
 		return Quantity{}, parseError(s, lead, fmt.Sprintf("%q underflows to zero", num))

@@ -7,8 +7,9 @@ import (
 	"similis.dev/similis/quantity"
 )
 
-// The error model: a formula bug panics with a *DimensionError at once;
-// values from input are checked first; user formulas run under Eval.
+// The error model: a formula bug panics at once with an *Error of class
+// ErrDimension; values from input are checked first; user formulas run
+// under Eval.
 func Example() {
 	rho := quantity.New(998.2, quantity.Density) // water at 20 °C
 	v := quantity.New(2.0, quantity.Velocity)
@@ -28,11 +29,10 @@ func Example() {
 	_, err := quantity.Eval(func() quantity.Quantity {
 		return quantity.New(101325, quantity.Pressure).Add(v)
 	})
-	var de *quantity.DimensionError
-	fmt.Println(errors.As(err, &de), err)
+	fmt.Println(errors.Is(err, quantity.ErrDimension), err)
 	// Output:
 	// Re = 9.966e+04 (1)
-	// μ: want dynamic viscosity [kg·m⁻¹·s⁻¹], got kinematic viscosity, thermal diffusivity, diffusion coefficient [m²·s⁻¹]
+	// μ: want dynamic viscosity [Pa·s], got kinematic viscosity, thermal diffusivity, diffusion coefficient [m²·s⁻¹]
 	// true cannot add pressure, stress [Pa] and velocity [m·s⁻¹]
 }
 
@@ -68,16 +68,21 @@ func ExampleQuantity_Format() {
 }
 
 // A force, a pressure and a power print with the SI special names N, Pa
-// and W, and read back to the same bits; energy keeps base units, since
-// torque shares its dimension. For other units, see the units package's
+// and W, a dynamic viscosity and a specific heat capacity with the SI's
+// compounds of them, and each reads back to the same bits; energy and
+// torque share a dimension and print N·m, right for both. A frequency is
+// not guessed to be in Hz. For other units, see the units package's
 // Printer.
 func ExampleQuantity_String() {
 	r := quantity.New(138434.1, quantity.Force)
 	fmt.Println(r, quantity.New(101325, quantity.Pressure), quantity.New(2.5e6, quantity.Power), quantity.New(12, quantity.Energy))
-	back, err := quantity.ParseQuantitySI(r.String())
-	fmt.Println(back == r, err)
+	mu := quantity.New(0.0010016, quantity.DynamicViscosity)
+	fmt.Println(mu, quantity.New(4186, quantity.SpecificHeatCapacity), quantity.New(50, quantity.Frequency))
+	back, err := quantity.ParseQuantitySI(mu.String())
+	fmt.Println(back == mu, err)
 	// Output:
-	// 138434.1 N 101325 Pa 2.5e+06 W 12 kg·m²·s⁻²
+	// 138434.1 N 101325 Pa 2.5e+06 W 12 N·m
+	// 0.0010016 Pa·s 4186 J/(kg·K) 50 s⁻¹
 	// true <nil>
 }
 

@@ -2,45 +2,82 @@ package quantity
 
 import (
 	"fmt"
+	"math"
 	"strconv"
 	"strings"
 	"unicode/utf8"
 )
 
-// String returns the value and its coherent SI unit: the special name
-// where the dimension is exactly that of one without ambiguity — N for a
-// force, Pa for a pressure or stress, W for a power ("138434.1 N",
-// "101325 Pa") — and the SI base-unit form otherwise ("1.225 kg·m⁻³").
-// A dimensionless quantity is its number alone. ParseQuantitySI, and so
-// UnmarshalText, reads every form String writes back to the same bits.
-// Other units, prefixes and the joule are the units package's job
-// (units.Printer).
+// String returns the value and its coherent SI unit. Twelve dimensions
+// are written with a unit of special name or a compound of one — N, Pa,
+// W, N·m, Pa·s, N/m, N/m³, W/m², W/(m·K), W/(m²·K), J/K and J/(kg·K),
+// each for exactly its dimension ("138434.1 N", "101325 Pa",
+// "0.0010016 Pa·s", "4186 J/(kg·K)") — and every other in the SI
+// base-unit form ("1.225 kg·m⁻³"; "2 s⁻¹", since a dimension cannot tell
+// a frequency in Hz from an angular velocity in rad/s). A dimensionless
+// quantity is its number alone.
+//
+// The one dimension shared by named quantities whose units take
+// different names is L² M T⁻², energy and torque: it is written N·m,
+// which is the unit of a moment of force and, since 1 J = 1 N·m by the
+// joule's definition, a correct spelling of an energy too, where J would
+// misname a torque (SI Brochure, 8th ed. (2006), Table 3, "J = N m", and
+// Table 4, "moment of force: newton metre, N m"). Print an energy in
+// joules with units.Printer and its Prefer map.
+//
+// ParseQuantitySI, and so UnmarshalText, reads every form String writes
+// back to the same bits and dimension. Other units and prefixes are the
+// units package's job (units.Printer).
 func (q Quantity) String() string {
 	return q.text(q.d.unitText(false), 'g', -1)
 }
 
 // ASCII returns the value and its unit in ASCII, for logs and CSV:
-// "1.225 kg m^-3", "101325 Pa".
+// "1.225 kg m^-3", "101325 Pa", "0.0010016 Pa*s".
 func (q Quantity) ASCII() string {
 	return q.text(q.d.unitText(true), 'g', -1)
 }
 
-// namedUnits are the SI coherent units with special names that a
-// Quantity's text uses for exactly their dimension (SI Brochure, 9th ed.
-// (2019), Table 4): the newton, the pascal and the watt. The joule is
-// left out on purpose: energy shares its dimension with torque, whose
-// unit is the newton metre and never the joule (SI Brochure, 9th ed.,
-// Table 4, note on the unit of torque), so "12 J" could misname a torque.
+// namedUnits is the fixed set of units a Quantity's text names, each for
+// exactly its dimension: the coherent derived units with special names of
+// mechanics — the newton, the pascal, the watt — and the coherent
+// compounds of them that the SI Brochure gives as examples for the
+// quantities of fluids and heat-transfer work (SI Brochure, 8th ed.
+// (2006), Tables 3 and 4: Pa s, N m, N/m, W/m², J/K, J/(kg K), W/(m K));
+// W/(m²·K) for a heat transfer coefficient and N/m³ for a specific weight
+// follow the same pattern (common practice). Nothing else is named: no
+// hertz, becquerel, radian or steradian (a dimension cannot tell a
+// frequency from an angular velocity), no katal, no electrical unit, and
+// no J or T alone, which ParseDim reads as the ISO symbols of luminous
+// intensity and time. Each Unicode spelling is the one units.Unit.Format
+// writes and each ASCII spelling the one units.Unit.String writes, so the
+// units package reads both back to the same dimension with factor one.
 var namedUnits = [...]struct {
-	name string
-	d    Dim
-}{{"N", Force}, {"Pa", Pressure}, {"W", Power}}
+	name, ascii string
+	d           Dim
+}{
+	{"N", "N", Force},
+	{"Pa", "Pa", Pressure},
+	{"W", "W", Power},
+	{"N·m", "N*m", Torque}, // also energy and work: see String
+	{"Pa·s", "Pa*s", DynamicViscosity},
+	{"N/m", "N/m", SurfaceTension},
+	{"N/m³", "N/m^3", SpecificWeight},
+	{"W/m²", "W/m^2", HeatFluxDensity},
+	{"W/(m·K)", "W/(m*K)", ThermalConductivity},
+	{"W/(m²·K)", "W/(m^2*K)", HeatTransferCoefficient},
+	{"J/K", "J/K", HeatCapacity},
+	{"J/(kg·K)", "J/(kg*K)", SpecificHeatCapacity},
+}
 
 // unitText returns the unit a Quantity of dimension d is written in: a
-// special name from namedUnits, or the SI base-unit form.
+// name from namedUnits, or the SI base-unit form.
 func (d Dim) unitText(ascii bool) string {
 	for _, n := range namedUnits {
 		if n.d == d {
+			if ascii {
+				return n.ascii
+			}
 			return n.name
 		}
 	}
@@ -50,10 +87,10 @@ func (d Dim) unitText(ascii bool) string {
 	return d.SIUnit()
 }
 
-// namedDim returns the dimension of a special unit name String writes.
+// namedDim returns the dimension of a unit name String or ASCII writes.
 func namedDim(s string) (Dim, bool) {
 	for _, n := range namedUnits {
-		if n.name == s {
+		if n.name == s || n.ascii == s {
 			return n.d, true
 		}
 	}
@@ -70,9 +107,10 @@ func (q Quantity) text(unit string, verb byte, prec int) string {
 
 // Format implements fmt.Formatter. The verbs %v, %s, %g, %G, %e, %E and %f
 // format the number as strconv does, honouring precision (%.4g), followed
-// by the unit String writes (N, Pa, W, or the SI base-unit form); width pads the whole text, to the left unless
-// the '-' flag is given; the '#' flag selects the ASCII unit form and '+'
-// forces a sign. %v and %s without precision equal String.
+// by the unit String writes (a name from its fixed set, or the SI
+// base-unit form); width pads the whole text, counted in runes, to the
+// left unless the '-' flag is given; the '#' flag selects the ASCII unit
+// form and '+' forces a sign. %v and %s without precision equal String.
 func (q Quantity) Format(f fmt.State, verb rune) {
 	var b byte
 	switch verb {
@@ -93,7 +131,7 @@ func (q Quantity) Format(f fmt.State, verb rune) {
 	}
 	unit := q.d.unitText(f.Flag('#'))
 	s := q.text(unit, b, prec)
-	if f.Flag('+') && q.v >= 0 {
+	if f.Flag('+') && !math.Signbit(q.v) && !math.IsNaN(q.v) { // -0 has its sign already
 		s = "+" + s
 	}
 	if w, ok := f.Width(); ok {
@@ -162,7 +200,7 @@ func ParseDim(s string) (Dim, error) {
 		}
 		e, err := DimOf(b, num, den)
 		if err != nil {
-			return Dim(0), parseError(s, start, err.(*DimensionError).Detail)
+			return Dim(0), parseError(s, start, err.(*Error).Reason)
 		}
 		if d, err = d.Mul(e); err != nil {
 			return Dim(0), parseError(s, start, "exponent of "+b.String()+" overflows")

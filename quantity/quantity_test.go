@@ -23,14 +23,15 @@ func TestQuantitySize(t *testing.T) {
 	}
 }
 
-// mustPanic runs f and returns the *DimensionError it panics with.
-func mustPanic(t *testing.T, f func()) (e *q.DimensionError) {
+// mustPanic runs f and returns the *Error of class ErrDimension it panics
+// with.
+func mustPanic(t *testing.T, f func()) (e *q.Error) {
 	t.Helper()
 	defer func() {
 		r := recover()
 		var ok bool
-		if e, ok = r.(*q.DimensionError); !ok {
-			t.Fatalf("panic value %v (%T), want *DimensionError", r, r)
+		if e, ok = r.(*q.Error); !ok || e.Class != q.ErrDimension {
+			t.Fatalf("panic value %v (%T), want an *Error of class ErrDimension", r, r)
 		}
 	}()
 	f()
@@ -74,12 +75,12 @@ func TestMismatchMessages(t *testing.T) {
 func TestCheckAndEval(t *testing.T) {
 	nu := q.New(1.0e-6, q.KinematicViscosity) // a kinematic viscosity given where μ belongs
 	err := nu.CheckNamed("μ", q.DynamicViscosity)
-	want := "μ: want dynamic viscosity [kg·m⁻¹·s⁻¹], got kinematic viscosity, thermal diffusivity, diffusion coefficient [m²·s⁻¹]"
+	want := "μ: want dynamic viscosity [Pa·s], got kinematic viscosity, thermal diffusivity, diffusion coefficient [m²·s⁻¹]"
 	if err == nil || err.Error() != want {
 		t.Errorf("Check: %v\nwant %s", err, want)
 	}
-	var de *q.DimensionError
-	if !errors.As(err, &de) || de.Left != q.KinematicViscosity || de.Right != q.DynamicViscosity {
+	var de *q.Error
+	if !errors.As(err, &de) || de.Dims != [2]q.Dim{q.KinematicViscosity, q.DynamicViscosity} || de.Name != "μ" || de.Class != q.ErrDimension {
 		t.Errorf("errors.As: %+v", de)
 	}
 	if err := q.New(1e-3, q.DynamicViscosity).Check(q.DynamicViscosity); err != nil {
@@ -96,8 +97,8 @@ func TestCheckAndEval(t *testing.T) {
 		t.Error("ρVD/ν came out dimensionless")
 	}
 	_, err = q.Eval(func() q.Quantity { return q.Log10(rho.Mul(v).Mul(d).Div(nu)) })
-	if !errors.As(err, &de) {
-		t.Errorf("Eval: err = %v, want *DimensionError", err)
+	if !errors.As(err, &de) || !errors.Is(err, q.ErrDimension) {
+		t.Errorf("Eval: err = %v, want an *Error of class ErrDimension", err)
 	}
 	defer func() {
 		if r := recover(); r != "other" {
@@ -184,8 +185,8 @@ func TestQuantityProperties(t *testing.T) {
 		}
 		if da != db {
 			e := mustPanicRapid(t, func() { a.Add(b) })
-			if e.Left != da || e.Right != db {
-				t.Fatalf("mismatch error names %v and %v", e.Left, e.Right)
+			if e.Dims != [2]q.Dim{da, db} || !e.Binary {
+				t.Fatalf("mismatch error names %v", e.Dims)
 			}
 			mustPanicRapid(t, func() { a.Sub(b) })
 			mustPanicRapid(t, func() { a.Cmp(b) })
@@ -193,12 +194,12 @@ func TestQuantityProperties(t *testing.T) {
 	})
 }
 
-func mustPanicRapid(t *rapid.T, f func()) (e *q.DimensionError) {
+func mustPanicRapid(t *rapid.T, f func()) (e *q.Error) {
 	defer func() {
 		r := recover()
 		var ok bool
-		if e, ok = r.(*q.DimensionError); !ok {
-			t.Fatalf("panic value %v, want *DimensionError", r)
+		if e, ok = r.(*q.Error); !ok || e.Class != q.ErrDimension {
+			t.Fatalf("panic value %v, want an *Error of class ErrDimension", r)
 		}
 	}()
 	f()

@@ -45,13 +45,13 @@ func (z Series) At(i int) Quantity { return Quantity{z.v[i], z.d} }
 // series' storage: it does not copy, and writing to it changes the series.
 func (z Series) Values() []float64 { return z.v }
 
-// Check returns nil if z has dimension want, and otherwise a
-// *DimensionError naming both.
+// Check returns nil if z has dimension want, and otherwise an *Error of
+// class ErrDimension naming both.
 func (z Series) Check(want Dim) error {
 	if z.d == want {
 		return nil
 	}
-	return &DimensionError{Op: "check", Left: z.d, Right: want, Binary: true}
+	return &Error{Op: "check", Dims: [2]Dim{z.d, want}, Binary: true, Class: ErrDimension}
 }
 
 // Sum returns the sum of the values.

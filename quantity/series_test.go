@@ -94,7 +94,7 @@ func TestSeriesStatistics(t *testing.T) {
 	}
 	defer func() {
 		var le *q.Error
-		if r := recover(); r == nil || !errors.As(r.(error), &le) || le.Left != 5 || le.Right != 2 {
+		if r := recover(); r == nil || !errors.As(r.(error), &le) || le.Lengths != [2]int{5, 2} || !errors.Is(le, q.ErrInvalid) {
 			t.Errorf("length mismatch: panic %v", r)
 		}
 	}()

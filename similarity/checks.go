@@ -34,8 +34,9 @@ type Result struct {
 // It is a description, not an error: a trade's error type embeds it beside
 // the procedure's name, and so takes its fields and its Is and Unwrap
 // methods. When Reason is empty the fault is Err alone, an error complete
-// in itself (the *quantity.DimensionError naming an input of the wrong
-// dimension), which the trade returns unchanged (see Cause).
+// in itself (the *quantity.Error of class quantity.ErrDimension naming an
+// input of the wrong dimension), which the trade returns unchanged (see
+// Cause).
 type Fault struct {
 	Input  string // the input or result concerned, if one is
 	Reason string // what was wrong, in words
@@ -94,9 +95,10 @@ func Fail[E error](op string, f *Fault, newErr func(op string, f Fault) E) error
 }
 
 // CheckInputs checks each input's dimension (a Fault whose Err is the
-// *quantity.DimensionError naming it) and, when positive is set, that its
-// value is positive and finite (a Fault of class quantity.ErrInvalid
-// naming it). It returns the first fault, or nil.
+// *quantity.Error of class quantity.ErrDimension naming it) and, when
+// positive is set, that its value is positive and finite (a Fault of
+// class quantity.ErrInvalid naming it). It returns the first fault, or
+// nil.
 func CheckInputs(positive bool, in ...Input) *Fault {
 	for _, c := range in {
 		if err := c.Value.CheckNamed(c.Name, c.Dim); err != nil {

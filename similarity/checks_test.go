@@ -45,9 +45,9 @@ func TestSharedChecks(t *testing.T) {
 				t.Errorf("fault %+v, want input %q, class %v, reason %q", *c.f, c.input, c.class, c.reason)
 			}
 			if c.reason == "" {
-				var de *quantity.DimensionError
-				if !errors.As(c.f.Cause(), &de) {
-					t.Errorf("cause %v, want the *quantity.DimensionError", c.f.Cause())
+				var de *quantity.Error
+				if !errors.As(c.f.Cause(), &de) || de.Class != quantity.ErrDimension {
+					t.Errorf("cause %v, want the *quantity.Error of class ErrDimension", c.f.Cause())
 				}
 			}
 		})
@@ -79,7 +79,7 @@ func TestClassOf(t *testing.T) {
 		err, want error
 	}{
 		{fmt.Errorf("reading: %w", quantity.ErrParse), quantity.ErrParse},
-		{&quantity.DimensionError{Op: "check"}, quantity.ErrDimension},
+		{&quantity.Error{Op: "check", Class: quantity.ErrDimension}, quantity.ErrDimension},
 		{errors.New("disk full"), quantity.ErrInvalid},
 		{fmt.Errorf("a: %w", quantity.ErrRange), quantity.ErrRange},
 		{fmt.Errorf("plan: %w", similarity.ErrConflict), similarity.ErrConflict},
@@ -166,9 +166,9 @@ func TestFail(t *testing.T) {
 		t.Errorf("no fault: %v", err)
 	}
 	bare := similarity.CheckInputs(true, similarity.Input{Name: "head", Value: quantity.New(1, quantity.Pressure), Dim: quantity.Length})
-	var de *quantity.DimensionError
-	if err := similarity.Fail("fit", bare, newErr); !errors.As(err, &de) || err != bare.Err {
-		t.Errorf("dimension fault: %v (%T), want the *quantity.DimensionError itself", err, err)
+	var de *quantity.Error
+	if err := similarity.Fail("fit", bare, newErr); !errors.As(err, &de) || de.Class != quantity.ErrDimension || err != bare.Err {
+		t.Errorf("dimension fault: %v (%T), want the *quantity.Error of class ErrDimension itself", err, err)
 	}
 	f := similarity.Invalid("head", "head must be positive")
 	var te *testError

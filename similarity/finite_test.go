@@ -29,14 +29,14 @@ func TestFiniteOrError(t *testing.T) {
 		err  error
 	}{
 		{"water at NaN °C", func() error { _, err := fluids.FreshWater().AtCelsius(nan); return err }()},
-		{"water of NaN salinity", func() error { _, err := fluids.Water{Salinity: nan}.AtCelsius(15); return err }()},
+		{"water of NaN salinity", func() error { _, err := fluids.Water{Salinity: q.New(nan, q.Dimensionless)}.AtCelsius(15); return err }()},
 		{"air at NaN pressure", func() error { _, err := fluids.Air().At(q.New(288, q.Temperature), q.New(nan, q.Pressure)); return err }()},
 		{"water at negative pressure", func() error {
 			_, err := fluids.FreshWater().At(q.New(288, q.Temperature), q.New(-1, q.Pressure))
 			return err
 		}()},
 		{"gas with R = 0", func() error {
-			_, err := fluids.IdealGas{GasName: "x", R: 0, Gamma: 1.4, Beta: 1e-6, S: 100}.At(q.New(288, q.Temperature), q.New(1e5, q.Pressure))
+			_, err := fluids.IdealGas{GasName: "x", R: q.New(0, q.SpecificHeatCapacity), Gamma: 1.4, Beta: q.New(1e-6, fluids.SutherlandConstantDim), S: q.New(100, q.Temperature)}.At(q.New(288, q.Temperature), q.New(1e5, q.Pressure))
 			return err
 		}()},
 		{"constant fluid of NaN density", func() error {

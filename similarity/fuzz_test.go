@@ -100,7 +100,7 @@ func FuzzRules(f *testing.F) {
 		solved("Euler", s, err)
 		s, err = similarity.Strouhal(similarity.Scales{Length: a, Velocity: b})
 		solved("Strouhal", s, err)
-		for _, fl := range []fluids.Fluid{fluids.FreshWater(), fluids.SeaWater(), fluids.Water{Salinity: c}, fluids.Air(),
+		for _, fl := range []fluids.Fluid{fluids.FreshWater(), fluids.SeaWater(), fluids.Water{Salinity: q.New(c, q.Dimensionless)}, fluids.Air(),
 			fluids.Constant{FluidName: "oil", Density: q.New(c, q.Density), Viscosity: q.New(b, q.DynamicViscosity)}} {
 			st, err := fl.At(q.New(a, q.Temperature), q.New(b, q.Pressure))
 			if err != nil {

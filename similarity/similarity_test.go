@@ -413,3 +413,32 @@ func TestPlanErrorShape(t *testing.T) {
 		t.Errorf("GroupRatio of a foreign group: %v", err)
 	}
 }
+
+// TestZeroRatioString checks that the zero Ratio returned beside an
+// error prints as no ratio, not as the ratio one (its Value is 0), and
+// that a true ratio of one still prints "1".
+func TestZeroRatioString(t *testing.T) {
+	s, err := similarity.Reynolds(similarity.Scales{Length: 0.1, Density: 1, KinematicViscosity: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := s.Ratio("p") // the Reynolds rule has no pressure variable
+	if err == nil {
+		t.Fatalf("Ratio(\"p\") = %v with no error", r)
+	}
+	for _, tc := range []struct {
+		r    similarity.Ratio
+		want string
+	}{
+		{r, "(no ratio)"},
+		{similarity.Ratio{}, "(no ratio)"},
+		{similarity.Ratio{Value: 1}, "1"},
+	} {
+		if got := tc.r.String(); got != tc.want {
+			t.Errorf("%+v.String() = %q, want %q", tc.r, got, tc.want)
+		}
+	}
+	if v, _ := s.Ratio("V"); v.String() != v.Law.String()+" = 10" {
+		t.Errorf("λ_V = %q, want its law = 10 (V_m/V_p = λ_ν/λ_L = 1/0.1)", v.String())
+	}
+}

@@ -184,9 +184,15 @@ type Ratio struct {
 	Value float64
 }
 
-// String writes "law = value", or "1" for a ratio of one.
+// String writes "law = value", or "1" for a ratio of one. The zero
+// Ratio, which Solution.Ratio and DerivedRatio return beside an error,
+// is no ratio at all: it writes "(no ratio)", never a value that could
+// be read as a ratio.
 func (r Ratio) String() string {
 	if r.Law.IsOne() {
+		if r.Value == 0 {
+			return "(no ratio)"
+		}
 		return "1"
 	}
 	if math.IsNaN(r.Value) {

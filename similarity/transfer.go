@@ -117,8 +117,19 @@ func (s *Solution) VariableToPrototype(symbol string, q quantity.Quantity) (quan
 
 // SetPoints turns a prototype operating point, given by variable symbol,
 // into model set points in the units chosen by symbol ("kn", "rpm",
-// "L/s"); variables without a unit are given in SI. Every variable of the
-// operating point must have a known ratio.
+// "L/s"). A variable without a chosen unit is given in its coherent SI
+// unit, the one quantity.Quantity.String writes: a special name or a
+// compound of one where its dimension has one (Pa·s for a dynamic
+// viscosity, N·m for a torque, W for a power; units.DerivedUnit), else
+// SI base units (m/s). Every variable of the operating point must have a
+// known ratio.
+//
+// Each Value's Number is the model value as computed, at full precision
+// (8.5 m/s at a ratio of 0.2 is 1.7000000000000002 m/s), so that a
+// program reading it gets the number computed, unrounded. Round for an
+// operator when printing: units.Value formats with a precision applied
+// to the number and the unit kept, so fmt.Printf("%.4g", v) writes
+// "1.7 m/s" and "0.001002 Pa·s".
 func (s *Solution) SetPoints(prototype map[string]quantity.Quantity, unitOf map[string]string) (map[string]units.Value, error) {
 	out := make(map[string]units.Value, len(prototype))
 	for sym, q := range prototype {
@@ -140,7 +151,10 @@ func (s *Solution) SetPoints(prototype map[string]quantity.Quantity, unitOf map[
 		if err != nil {
 			return nil, err
 		}
-		u := units.BaseUnit(m.Dim())
+		u, ok := units.DerivedUnit(m.Dim())
+		if !ok {
+			u = units.BaseUnit(m.Dim())
+		}
 		if name, ok := unitOf[sym]; ok {
 			var err error
 			if u, err = units.Parse(name); err != nil {

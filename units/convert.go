@@ -113,7 +113,9 @@ func Convert(v float64, from, to string) (float64, error) {
 // Value is a number and a unit: a quantity value as written on a data
 // sheet ("12.5 kn"). Its text form is the number, a space and the unit's
 // spelling; it implements encoding.TextMarshaler and TextUnmarshaler
-// (and so JSON through text), and flag.Value.
+// (and so JSON through text), flag.Value, and fmt.Formatter, so that
+// fmt.Sprintf("%.4g", v) rounds the number for a reader and keeps the
+// unit ("1.7 m/s").
 type Value struct {
 	Number float64
 	Unit   Unit
@@ -131,17 +133,85 @@ func (v Value) In(u Unit) (Value, error) {
 	return Value{x, u}, nil
 }
 
-// String returns "12.5 kn" in Unicode spelling.
+// String returns "12.5 kn" in Unicode spelling: the shortest decimal
+// that reads back to the same float64, a space and the unit. ParseValue
+// reads it back to the same number and unit.
 func (v Value) String() string {
-	n := strconv.FormatFloat(v.Number, 'g', -1, 64)
-	if u := v.Unit.String(); u == "1" {
-		return n
+	return string(v.appendText(nil, 'g', -1, quantity.Unicode))
+}
+
+// appendText appends the number, formatted by strconv with verb and prec,
+// a space and the unit in style to b; a dimensionless value is its number
+// alone, and a unit that starts with a number is parenthesised.
+func (v Value) appendText(b []byte, verb byte, prec int, style quantity.Style) []byte {
+	b = strconv.AppendFloat(b, v.Number, verb, prec, 64)
+	if v.Unit.String() == "1" {
+		return b
 	}
-	u := v.Unit.Format(quantity.Unicode)
+	u := v.Unit.Format(style)
+	b = append(b, ' ')
 	if c := u[0]; c >= '0' && c <= '9' || c == '.' {
-		u = "(" + u + ")" // a scaled unit, as in 3 (0.5·s): not a second number
+		// A scaled unit, as in 3 (0.5·s): not a second number.
+		b = append(b, '(')
+		b = append(b, u...)
+		return append(b, ')')
 	}
-	return n + " " + u
+	return append(b, u...)
+}
+
+// Format implements fmt.Formatter, as quantity.Quantity's Format does.
+// The verbs %v, %s, %g, %G, %e, %E, %f and %F format the number as
+// strconv does, honouring precision ("%.4g" writes four significant
+// digits, "%.2f" two decimals), followed by a space and the unit, which
+// no precision touches; %v and %s without precision equal String, and so
+// read back through ParseValue to the same number and unit. %q writes the
+// %v text as a Go string literal. Width pads the whole text, counted in
+// runes, to the left unless the '-' flag is given; the '#' flag writes the
+// unit in ASCII (as Unit.String does) and '+' forces a sign. Other verbs
+// write "%!d(units.Value=12.5 kn)".
+//
+// Format rounds only the text: a Value keeps the number it was given.
+func (v Value) Format(f fmt.State, verb rune) {
+	var b byte
+	switch verb {
+	case 'v', 's', 'q':
+		b = 'g'
+	case 'g', 'G', 'e', 'E', 'f', 'F':
+		b = byte(verb)
+	default:
+		fmt.Fprintf(f, "%%!%c(units.Value=%s)", verb, v.String())
+		return
+	}
+	prec, ok := f.Precision()
+	if !ok {
+		prec = -1
+		if b == 'f' || b == 'F' || b == 'e' || b == 'E' {
+			prec = 6
+		}
+	}
+	style := quantity.Unicode
+	if f.Flag('#') {
+		style = quantity.ASCII
+	}
+	var buf [64]byte
+	s := buf[:0]
+	if f.Flag('+') && !math.Signbit(v.Number) && !math.IsNaN(v.Number) {
+		s = append(s, '+')
+	}
+	s = v.appendText(s, b, prec, style)
+	if verb == 'q' {
+		s = strconv.AppendQuote(nil, string(s))
+	}
+	if w, ok := f.Width(); ok {
+		if n := w - utf8.RuneCount(s); n > 0 {
+			if f.Flag('-') {
+				s = append(s, strings.Repeat(" ", n)...)
+			} else {
+				s = append([]byte(strings.Repeat(" ", n)), s...)
+			}
+		}
+	}
+	_, _ = f.Write(s)
 }
 
 // AppendText appends v as String writes it to b: the shortest decimal
@@ -294,7 +364,7 @@ func (f *Flag) Set(s string) error {
 		return err
 	}
 	if v.Unit.dim != f.dim {
-		return &Error{Op: OpSetFlag, Input: s, Err: &quantity.DimensionError{Op: "check", Name: s, Left: v.Unit.dim, Right: f.dim, Binary: true}}
+		return &Error{Op: OpSetFlag, Input: s, Err: &quantity.Error{Op: "check", Name: s, Dims: [2]quantity.Dim{v.Unit.dim, f.dim}, Binary: true, Class: quantity.ErrDimension}}
 	}
 	if f.dim == quantity.Temperature && (!f.diff && v.Unit.IsInterval() || f.diff && v.Unit.IsScale()) {
 		what, want := "a temperature difference", "a temperature level (°C, °F, K)"

@@ -6,7 +6,12 @@
 // converts numbers between them; Unit.Of and Unit.ValueOf carry values to
 // and from quantity.Quantity; ParseValue and ParseQuantity read "12.5 kn";
 // Printer writes quantities in chosen or conventional units, with SI
-// prefixes on request, in Unicode, ASCII or LaTeX.
+// prefixes on request, in Unicode, ASCII or LaTeX; a Value prints through
+// fmt with a precision applied to its number and its unit kept
+// (fmt.Sprintf("%.4g", v) is "1.7 m/s"). By default a dimension prints in
+// the unit DerivedUnit gives — the same as quantity.Quantity.String
+// names (Pa·s, N·m, J/(kg·K), …) and the electrical units besides — or in
+// SI base units.
 //
 // # Grammar
 //

@@ -8,13 +8,19 @@ import (
 	"similis.dev/similis/quantity"
 )
 
-// derived lists the SI unit a quantity of a known kind is printed in.
-// Where kinds share a dimension (energy and torque), the first kind's unit
-// is used; Printer.Prefer chooses another (N·m for torque).
+// derived lists the SI unit a quantity of a known dimension is printed
+// in by default; where a spelling would give one dimension two units, the
+// first listed wins.
 var derived = func() map[quantity.Dim]Unit {
 	m := make(map[quantity.Dim]Unit)
-	for _, s := range []string{"N", "Pa", "J", "W", "C", "V", "F", "ohm", "S", "Wb", "T", "H", "kat",
-		"Pa*s", "N/m", "W/m^2", "W/(m*K)", "W/(m^2*K)", "J/(kg*K)", "J/K", "J/kg", "J/(mol*K)", "W/(m^2*K^4)", "J*s", "m^3/(kg*s^2)"} {
+	for _, s := range []string{
+		// The twelve quantity.Quantity.String names, in the same spelling.
+		"N", "Pa", "W", "N*m", "Pa*s", "N/m", "N/m^3", "W/m^2", "W/(m*K)", "W/(m^2*K)", "J/K", "J/(kg*K)",
+		// Beyond them: the electrical special names, the specific energy of
+		// pump and turbine work (IEC 60193 writes E = gH in J/kg), and the
+		// units of the constants.
+		"C", "V", "F", "ohm", "S", "Wb", "T", "H",
+		"J/kg", "J/(mol*K)", "W/(m^2*K^4)", "m^3/(kg*s^2)"} {
 		u := MustParse(s)
 		if _, ok := m[u.dim]; !ok {
 			m[u.dim] = u
@@ -26,8 +32,16 @@ var derived = func() map[quantity.Dim]Unit {
 // DerivedUnit returns the SI unit with a special name (or the coherent
 // compound of them) in which a quantity of dimension d is printed by
 // default: Pa for pressure, W for power, Pa·s for dynamic viscosity,
-// W/(m·K) for thermal conductivity. It reports false for dimensions
-// printed in base units (velocity, density).
+// W/(m·K) for thermal conductivity. For every dimension that
+// quantity.Quantity.String names it gives that same unit — so energy and
+// torque, which share a dimension, get N·m, right for both (1 J = 1 N·m),
+// where J would misname a torque; Printer.Prefer prints an energy in J.
+// Beyond those it names the electrical units (C, V, F, Ω, S, Wb, T, H),
+// J/kg for specific energy, J/(mol·K), W/(m²·K⁴) and m³/(kg·s²). It never
+// guesses an angle or a count: a frequency or an angular velocity (s⁻¹),
+// an angular momentum and a molar flow have no derived unit, and it
+// reports false for them as for the dimensions printed in base units
+// (velocity, density).
 func DerivedUnit(d quantity.Dim) (Unit, bool) {
 	u, ok := derived[d]
 	return u, ok
@@ -61,7 +75,8 @@ type Printer struct {
 	// needed to read the value back exactly.
 	Precision int
 	// Prefer maps a dimension to the unit to print it in, overriding
-	// DerivedUnit (for example N·m for a torque).
+	// DerivedUnit (for example J for an energy, which DerivedUnit prints
+	// N·m, the unit it shares with a torque).
 	Prefer map[quantity.Dim]Unit
 }
 

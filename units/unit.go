@@ -325,8 +325,12 @@ func checkFactor(op string, u Unit) (Unit, error) {
 }
 
 // Of returns the quantity of value v in unit u: v·factor + offset in SI.
+// A unit without an offset adds none, so −0 stays −0 as written.
 func (u Unit) Of(v float64) quantity.Quantity {
 	u = u.norm()
+	if u.offset == 0 {
+		return quantity.New(v*u.factor, u.dim)
+	}
 	return quantity.New(v*u.factor+u.offset, u.dim)
 }
 

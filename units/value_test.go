@@ -239,8 +239,10 @@ func TestPrinter(t *testing.T) {
 		{units.Printer{}, quantity.New(1.8e-5, quantity.DynamicViscosity), "1.8e-05 Pa·s"},
 		{units.Printer{Prefix: true}, quantity.New(1.8e-5, quantity.DynamicViscosity), "18 µPa·s"},
 		{units.Printer{Prefix: true, Precision: 3}, quantity.New(745699.87, quantity.Power), "746 kW"},
-		{units.Printer{}, torque, "12.5 J"},
-		{units.Printer{Prefer: map[quantity.Dim]units.Unit{quantity.Torque: units.MustParse("N·m")}}, torque, "12.5 N·m"},
+		{units.Printer{}, torque, "12.5 N·m"}, // energy and torque share N·m (SI Brochure, 8th ed. (2006), Table 4: moment of force N m)
+		{units.Printer{Prefer: map[quantity.Dim]units.Unit{quantity.Energy: units.MustParse("J")}}, quantity.New(12.5, quantity.Energy), "12.5 J"},
+		{units.Printer{Prefix: true}, quantity.New(2500, quantity.Torque), "2.5 kN·m"},
+		{units.Printer{}, quantity.New(50, quantity.Frequency), "50 1/s"},
 		{units.Printer{Style: quantity.LaTeX}, quantity.New(0.025, quantity.ThermalConductivity), `0.025\,\mathrm{W}/(\mathrm{m}\cdot \mathrm{K})`},
 		{units.Printer{Style: quantity.LaTeX, Precision: 3}, quantity.New(1.5e-5, quantity.KinematicViscosity), `1.5\times 10^{-5}\,\mathrm{m}^{2}/\mathrm{s}`},
 		{units.Printer{Prefix: true}, quantity.New(1500, quantity.Mass), "1.5 Mg"},
@@ -430,6 +432,30 @@ func TestParseDialectErrorClass(t *testing.T) {
 			if other != c.class && errors.Is(err, other) {
 				t.Errorf("ParseDialect(%q): %v also matches %v", c.text, err, other)
 			}
+		}
+	}
+}
+
+// TestNegativeZeroKept: a number read from text is the number written, so
+// "-0 m" reads as −0 (IEEE 754 negative zero), not +0; a unit with an
+// offset (°C) adds it, and −0 °C is 273.15 K.
+func TestNegativeZeroKept(t *testing.T) {
+	for _, c := range []struct {
+		text    string
+		wantNeg bool
+		want    float64
+	}{
+		{"-0 m", true, 0},
+		{"-0 kPa", true, 0},
+		{"0 m", false, 0},
+		{"-0 °C", false, 273.15},
+	} {
+		q, err := units.ParseQuantity(c.text)
+		if err != nil {
+			t.Fatalf("%q: %v", c.text, err)
+		}
+		if q.Value() != c.want || math.Signbit(q.Value()) != c.wantNeg {
+			t.Errorf("%q: value %v (sign bit %v), want %v (sign bit %v)", c.text, q.Value(), math.Signbit(q.Value()), c.want, c.wantNeg)
 		}
 	}
 }

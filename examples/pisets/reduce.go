@@ -25,6 +25,9 @@ import (
 	"similis.dev/similis/units/steady"
 )
 
+// gaugeHelp ends the message of a gauge channel read without a reference.
+const gaugeHelp = "is a gauge pressure: give -baro with the barometer reading (as -baro 1002hPa), or -std-atm to use 101325 Pa as an explicit choice"
+
 // dataError is a problem in the data file (exit 1), as opposed to a
 // usage error (exit 2).
 type dataError struct{ err error }
@@ -200,7 +203,6 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	var rd channelSource
 	var bar progress
 	var done func(rows int) int64 // rows or bytes read so far
-	const gaugeHelp = "is a gauge pressure: give -baro with the barometer reading (as -baro 1002hPa), or -std-atm to use 101325 Pa as an explicit choice"
 	parquet := strings.HasSuffix(strings.ToLower(opt.data), ".parquet")
 	if parquet {
 		st, err := f.Stat()
@@ -239,8 +241,8 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	vars := r.problem.Variables()
 	for i, v := range vars {
 		for _, c := range cols {
-			if c.Name != v.Symbol {
-				continue
+			if c.Name != v.Symbol || c.Fault != nil {
+				continue // a column that cannot be read fails when selected
 			}
 			if d := c.Unit.Dim(); d != v.Dim {
 				return &usageError{fmt.Sprintf("variable %s is %s, but channel %q of %s is %s", v.Symbol, quantity.Describe(v.Dim), v.Symbol, opt.data, quantity.Describe(d))}
@@ -439,6 +441,14 @@ func (s *rowSink) Write(g []quantity.Series) error {
 // file is a usage error (exit 2), anything else bad data (exit 1); a
 // derived value that is not finite names the flag that counts it.
 func libError(err error) error {
+	var fe *chanfile.Error
+	if errors.Is(err, units.ErrGauge) && errors.As(err, &fe) {
+		return &usageError{fmt.Sprintf("%s:%d:%d: %q %s", fe.File, fe.Line, fe.Column, fe.Field, gaugeHelp)}
+	}
+	var pe *parquetfile.Error
+	if errors.Is(err, units.ErrGauge) && errors.As(err, &pe) {
+		return &usageError{fmt.Sprintf("%s: column %d %q %s", pe.File, pe.Column, pe.Field, gaugeHelp)}
+	}
 	var re *reduction.Error
 	if errors.As(err, &re) {
 		if re.Op == "plan" {

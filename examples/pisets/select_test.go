@@ -22,7 +22,7 @@ var tankArgs = []string{"-derive", "R = R_T; L = 4.0 {m}; rho = 999.1 {kg/m^3}; 
 // TestDataUnusedColumns: the invented tank log with an operator's note
 // and a spare channel holding one bad value ("ERR") reduces as the clean
 // log does, since no variable or derived channel uses them; the same for
-// a Parquet log with a column of a type the reader does not read.
+// a Parquet log with a column of a type the reader does not read (JSON).
 func TestDataUnusedColumns(t *testing.T) {
 	dir := t.TempDir()
 	var clean, errb bytes.Buffer
@@ -67,9 +67,10 @@ func TestDataUnusedColumns(t *testing.T) {
 		t.Errorf("the summary speaks of a channel not read:\n%s", errb.String())
 	}
 
-	// Parquet: V, R_T and T_w as DOUBLE with their units, and a BOOLEAN.
+	// Parquet: V, R_T and T_w as DOUBLE with their units, and a JSON
+	// column, a logical type the reader does not read.
 	g := parquet.Group{"V": parquet.Leaf(parquet.DoubleType), "R_T": parquet.Leaf(parquet.DoubleType),
-		"T_w": parquet.Leaf(parquet.DoubleType), "valve open": parquet.Leaf(parquet.BooleanType)}
+		"T_w": parquet.Leaf(parquet.DoubleType), "valve log": parquet.JSON()}
 	schema := parquet.NewSchema("tank", g)
 	var buf bytes.Buffer
 	w := parquet.NewGenericWriter[any](&buf, schema,
@@ -83,7 +84,7 @@ func TestDataUnusedColumns(t *testing.T) {
 		if _, err := fmtSscan(f, &v, &r, &tw); err != nil {
 			t.Fatal(err)
 		}
-		vals := map[string]parquet.Value{"V": parquet.DoubleValue(v), "R_T": parquet.DoubleValue(r), "T_w": parquet.DoubleValue(tw), "valve open": parquet.BooleanValue(true)}
+		vals := map[string]parquet.Value{"V": parquet.DoubleValue(v), "R_T": parquet.DoubleValue(r), "T_w": parquet.DoubleValue(tw), "valve log": parquet.ByteArrayValue([]byte(`{"valve":"open"}`))}
 		var row parquet.Row
 		for j, fd := range schema.Fields() {
 			row = append(row, vals[fd.Name()].Level(0, 0, j))
@@ -96,6 +97,19 @@ func TestDataUnusedColumns(t *testing.T) {
 	if err := w.Close(); err != nil {
 		t.Fatal(err)
 	}
+	// The reader lists the JSON column with its Fault: it is a column
+	// the reader cannot read, in a position no variable uses.
+	pr, err := parquetfile.NewReader(bytes.NewReader(buf.Bytes()), int64(buf.Len()), "tank.parquet", parquetfile.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	unread := false
+	for _, c := range pr.Columns() {
+		unread = unread || c.Name == "valve log" && c.Fault != nil
+	}
+	if !unread {
+		t.Fatalf("the reader reads the JSON column or does not list it: choose a type it does not read")
+	}
 	pq := filepath.Join(dir, "tank.parquet")
 	if err := os.WriteFile(pq, buf.Bytes(), 0o644); err != nil {
 		t.Fatal(err)
@@ -103,7 +117,7 @@ func TestDataUnusedColumns(t *testing.T) {
 	out.Reset()
 	errb.Reset()
 	if code := run(append([]string{"-data", pq}, tankArgs...), &out, &errb); code != 0 {
-		t.Fatalf("Parquet log with a BOOLEAN column: exit %d: %s", code, errb.String())
+		t.Fatalf("Parquet log with a JSON column: exit %d: %s", code, errb.String())
 	}
 	if d := cmp.Diff(table(clean.String()), table(out.String())); d != "" {
 		t.Errorf("groups (-clean CSV +Parquet):\n%s", d)

@@ -266,7 +266,7 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 		for _, p := range n3.Pooled {
 			ps = append(ps, fmt.Sprintf("%g", p))
 		}
-		fmt.Fprintf(w, "  heads pooled into their mean to keep the faired head from rising as NPSHA falls, at NPSHA %s m\n", strings.Join(ps, ", "))
+		fmt.Fprintf(w, "  the heads at NPSHA %s m were pooled into their mean, because the head rose as NPSHA fell (monotone fairing)\n", andList(ps))
 	}
 	if out != "" {
 		if a.PNG, a.SVG, err = plotAcceptance(out, a, wIn, hIn, dpi); err != nil {
@@ -275,6 +275,14 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 		fmt.Fprintf(w, "plot of the reduced points, fitted Q–H and Q–η curves, tolerance cross and line through the origin: %s and %s\n", a.PNG, a.SVG)
 	}
 	return a, nil
+}
+
+// andList joins items as "a", "a and b" or "a, b and c".
+func andList(items []string) string {
+	if len(items) < 2 {
+		return strings.Join(items, "")
+	}
+	return strings.Join(items[:len(items)-1], ", ") + " and " + items[len(items)-1]
 }
 
 // plotAcceptance draws the Q–H panel (reduced points, fitted curve, the

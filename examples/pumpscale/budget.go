@@ -89,12 +89,15 @@ func npshBudget(w io.Writer, bepFlow q.Quantity, headRatio float64) (NPSHBudget,
 		return NPSHBudget{}, err
 	}
 	out.Budget = out.Budget.In("m", 1)
+	if out.Proto.Value() < 0.1 { // a small prototype's NPSH3 reads in mm
+		out.Budget = out.Budget.In("mm", 1e-3)
+	}
 	fmt.Fprintf(w, "\nNPSH3 with its uncertainty (invented suction readings and instrument figures; standard uncertainties, first order, GUM):\n")
-	fmt.Fprintf(w, "  model: suction %.2f kPa gauge + barometer %.1f kPa absolute − p_v(%g °C) %.0f Pa, over ρg, + V²/2g at %g gpm in a %.1f in pipe\n",
-		suctionGauge/1e3, barometer/1e3, modelWaterC, pv.Value(), gpmOf(bepFlow), suctionPipeD/0.0254)
+	fmt.Fprintf(w, "  tested model (%g in at %g rpm): suction %.2f kPa gauge + barometer %.1f kPa absolute − p_v(%g °C) %.0f Pa, over ρg, + V²/2g at %g gpm in a %.1f in pipe\n",
+		testDiaIn, testRPM, suctionGauge/1e3, barometer/1e3, modelWaterC, pv.Value(), gpmOf(bepFlow), suctionPipeD/0.0254)
 	fmt.Fprintf(w, "  = %.3f m (%.2f ft), u = %.3f m; the gauge reading is relative to the day's barometer, which is a source of its own\n",
 		out.Model.Value(), out.Model.Value()/0.3048, out.Model.U().Value())
-	fmt.Fprintf(w, "  prototype NPSH3 = model NPSH3·H_p/H_m (the head reading cancels in σ·H_p):\n\n")
+	fmt.Fprintf(w, "  prototype NPSH3 = tested model's NPSH3·H_p/H_t (the head reading cancels in σ·H_p):\n\n")
 	fmt.Fprint(w, out.Budget)
 	return out, nil
 }

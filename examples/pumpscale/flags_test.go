@@ -49,7 +49,9 @@ func TestPumpscaleHelp(t *testing.T) {
 		t.Fatal("-h: no ErrHelp")
 	}
 	for _, want := range []string{"Carries an invented model-pump test curve", "shaft power ρgQH/η", "not the friction diagram",
-		"caution", "-nm", "(100 … 10000 rpm)", "-dm", "-np", "-dp", "-moody", "(0.1 … 0.3)"} {
+		"caution", "-nm", "(100 … 10000 rpm)", "-dm", "-np", "-dp", "-moody", "(0.1 … 0.3)",
+		"prototype impeller diameter; at least -dm, with -np·-dp² at least -nm·-dm²", "(-dp ≥ -dm) with n·D² at",
+		"-flange", "geometrically similar to the tested model's 6 in suction pipe"} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("-h lacks %q:\n%s", want, out.String())
 		}
@@ -90,7 +92,7 @@ func TestPumpscaleHeaderMatchesPower(t *testing.T) {
 	if math.Abs(pm-23.22) > 0.005 || math.Abs(ratio-0.040965) > 1e-6 || math.Abs(pp-547.9) > 0.05 {
 		t.Fatalf("hand figures: %v hp, ratio %v, %v hp", pm, ratio, pp)
 	}
-	row := regexp.MustCompile(`(?m)^\s+800\s+96\.0\s+(\S+)\s+83\.5% \|\s+\S+\s+\S+\s+(\S+)\s+86\.2%`).FindStringSubmatch(s)
+	row := regexp.MustCompile(`(?m)^\s+800\.0\s+96\.00\s+(\S+)\s+83\.5% \|\s+\S+\s+\S+\s+(\S+)\s+86\.2%`).FindStringSubmatch(s)
 	if row == nil {
 		t.Fatalf("no 800 gpm row in\n%s", s)
 	}

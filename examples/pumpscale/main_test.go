@@ -8,6 +8,7 @@ import (
 	"strings"
 	"testing"
 
+	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/fluids"
 )
@@ -66,7 +67,7 @@ func TestByHand(t *testing.T) {
 	q0 := 200 * n * d * d * d * 6.30901964e-5
 	h0 := 118 * n * n * d * d * 0.3048
 	p0 := 995.65 * 9.80665 * q0 * h0 / (0.52 + gain) // 197.9 kW
-	if math.Abs(rows[0].ProtoP.Value()/p0-1) > 1e-5 || !strings.Contains(out.String(), "94.19    197.9\n") ||
+	if math.Abs(rows[0].ProtoP.Value()/p0-1) > 1e-5 || !strings.Contains(out.String(), "94.19     197.9\n") ||
 		!strings.Contains(out.String(), "prototype ρ = 995.65 kg/m³ (30 °C)") {
 		t.Errorf("first point P_p = %v W, by hand %.1f kW at 995.65 kg/m³", rows[0].ProtoP, p0/1e3)
 	}
@@ -91,7 +92,10 @@ func TestHelp(t *testing.T) {
 // water at 20 °C and 24 in at 1180 rpm at 30 °C, with the package's own
 // water viscosities; σ = 12/96 = 0.125; prototype NPSH3 = 0.125·H_p with
 // H_p = 96 ft/(N²D² ratio); and p = p_v(30 °C) + ρg(NPSH3 − V²/(2g)) with
-// V = 3.2 m/s (p_v from IAPWS-IF97: 4246.69 Pa, python3-iapws).
+// V = Q_p/(π·d²/4) at the BEP: Q_p = 800 gpm·(1180/1750)·(24/10)³ =
+// 7457 gpm = 0.4705 m³/s through the default bore d = 6 in·24/10 =
+// 14.4 in = 0.36576 m, V = 4.478 m/s (p_v from IAPWS-IF97: 4246.69 Pa,
+// python3-iapws).
 func TestSuctionByHand(t *testing.T) {
 	_, s, err := evaluateAll(&bytes.Buffer{}, nil)
 	if err != nil {
@@ -116,7 +120,13 @@ func TestSuctionByHand(t *testing.T) {
 	if math.Abs(s.ProtoNPSH3.Value()-npsh) > 1e-9*npsh {
 		t.Errorf("prototype NPSH3 %v m, by hand %v", s.ProtoNPSH3.Value(), npsh)
 	}
-	p := 4246.69 + w30.Density.Value()*9.80665*(npsh-3.2*3.2/(2*9.80665))
+	qp := 800 * 3.785411784e-3 / 60 * (1180.0 / 1750) * math.Pow(24.0/10, 3)
+	d := 14.4 * 0.0254
+	v := qp / (math.Pi / 4 * d * d)
+	if math.Abs(v-4.478) > 0.001 || math.Abs(s.FlangeVelocity-v) > 1e-9*v {
+		t.Errorf("flange velocity %v m/s, by hand %v (about 4.478)", s.FlangeVelocity, v)
+	}
+	p := 4246.69 + w30.Density.Value()*9.80665*(npsh-v*v/(2*9.80665))
 	if math.Abs(s.ProtoSuction.Value()-p) > 0.01 {
 		t.Errorf("suction pressure %v Pa, by hand %v", s.ProtoSuction.Value(), p)
 	}
@@ -206,5 +216,61 @@ func TestStepUpBasisPrinted(t *testing.T) {
 	}
 	if strings.Contains(out.String(), "(rad/s, dimensionless)") {
 		t.Error("the old Ω_s label is still printed")
+	}
+}
+
+// TestFlangeVelocityFollowsFlow: the flange velocity is Q/(π·d²/4), not
+// a fixed figure. At -dp 100 -np 200, Q_p = 800 gpm·(200/1750)·(100/10)³
+// = 91429 gpm = 5768 L/s and the default bore is 6·100/10 = 60 in =
+// 1.524 m: V = 5.768/1.8241 = 3.162 m/s; with -flange 48 (1.2192 m),
+// V = 5.768/1.1675 = 4.941 m/s. Each line states the bore.
+func TestFlangeVelocityFollowsFlow(t *testing.T) {
+	for _, c := range []struct {
+		args []string
+		want string
+	}{
+		{nil, "V = Q/(π·d²/4) = 4.48 m/s at the flange"},
+		{[]string{"-dp", "100", "-np", "200"}, "V = Q/(π·d²/4) = 3.16 m/s at the flange"},
+		{[]string{"-dp", "100", "-np", "200", "-flange", "48"}, "V = Q/(π·d²/4) = 4.94 m/s at the flange"},
+	} {
+		var out bytes.Buffer
+		if _, err := evaluate(&out, append([]string{"-out", ""}, c.args...)); err != nil {
+			t.Fatal(err)
+		}
+		if !strings.Contains(out.String(), c.want) || !strings.Contains(out.String(), "suction-flange bore d = ") {
+			t.Errorf("%v: report lacks %q", c.args, c.want)
+		}
+	}
+}
+
+// TestPooledWording: the monotone fairing's pooling is said in plain
+// words, naming the NPSHA values and why.
+func TestPooledWording(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, []string{"-out", ""}); err != nil {
+		t.Fatal(err)
+	}
+	if w := "the heads at NPSHA 8 and 10 m were pooled into their mean, because the head rose as NPSHA fell (monotone fairing)"; !strings.Contains(out.String(), w) {
+		t.Errorf("report lacks %q", w)
+	}
+}
+
+// TestFlangeTooSmall: a 1 in bore would pass the BEP flow 470.5 L/s at
+// V = 0.4705/(π/4·0.0254²) = 928 m/s; V²/2g must stay below NPSH3 =
+// 9.58 m, i.e. V < √(2·9.80665·9.58) = 13.71 m/s, a bore above
+// √(4·0.4705/(π·13.71)) = 0.2090 m = 8.23 in. It is a usage error naming
+// -flange and the bore, before the report.
+func TestFlangeTooSmall(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, []string{"-out", "", "-flange", "1"})
+	var ce *cli.Error
+	if !errors.As(err, &ce) || !strings.Contains(err.Error(), "-flange 1 in: V = Q/(π·d²/4) = 928 m/s") ||
+		!strings.Contains(err.Error(), "give -flange above 8.3 in") || out.Len() != 0 {
+		t.Errorf("got %v after printing %d bytes", err, out.Len())
+	}
+	var stderr strings.Builder
+	cli.ExitCode(&stderr, "pumpscale", err)
+	if strings.Contains(stderr.String(), "…") {
+		t.Errorf("the message is cut: %q", stderr.String())
 	}
 }

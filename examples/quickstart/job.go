@@ -5,6 +5,7 @@ import (
 	"io"
 	"math"
 
+	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/pigroups"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
@@ -19,10 +20,14 @@ type JobResult struct {
 	Conflict   *similarity.Conflict
 	Compromise *similarity.Compromise
 	NaiveForce q.Quantity // model resistance scaled by λ_F alone
-	// ModelResistance is the invented model reading, from ModelCT, the
-	// towing-tank test's C_TM at the same Froude number (inventedCT).
+	// ModelResistance is the invented model reading, R_m =
+	// ModelCT·½ρV_m²S_m, with ModelCT = C_FM(Re_m) + Residual: the
+	// towing-tank test's residuary coefficient C_R at the same Froude
+	// number (inventedCR), held for a model of any size, on the ITTC-1957
+	// line at this model's Reynolds number (Froude's hypothesis).
 	ModelResistance q.Quantity
 	ModelCT         float64
+	Residual        float64
 	Extrapolate     *ship.HullResult
 }
 
@@ -43,23 +48,37 @@ var (
 	tankResistances                = []float64{1.105, 1.778, 2.600, 4.055, 7.270, 12.14, 22.30, 38.10} // N
 )
 
-// inventedCT returns the invented model's C_TM at the Froude number fn:
-// the towing-tank test's C_TM = R/(½ρV²S) interpolated linearly in Fn
-// between its two neighbouring runs (rho the tank water's density).
-func inventedCT(fn, rho float64) (float64, error) {
+// inventedCR returns the invented test's residuary coefficient C_R at
+// the Froude number fn, with the C_TM and C_F it comes from: the towing-tank
+// test's C_TM = R/(½ρV²S) interpolated linearly in Fn between its two
+// neighbouring runs, less the ITTC-1957 C_F of its 2 m model at the
+// speed of that Froude number, V = Fn·√(g·L), in the tank's water (rho
+// its density, nu its kinematic viscosity). C_R is quoted to 10⁻⁷ (four
+// decimals of 10³C_R) as the invented test's record gives it, and the
+// C_TM returned is C_F + C_R.
+func inventedCR(fn, rho, nu float64) (cr, ct, cf float64, err error) {
 	const g = 9.80665
-	ct := func(i int) (float64, float64) {
+	ctAt := func(i int) (float64, float64) {
 		v := tankSpeeds[i]
 		return v / math.Sqrt(g*tankModelLength), tankResistances[i] / (0.5 * rho * v * v * tankModelArea)
 	}
 	for i := 1; i < len(tankSpeeds); i++ {
-		f0, c0 := ct(i - 1)
-		f1, c1 := ct(i)
+		f0, c0 := ctAt(i - 1)
+		f1, c1 := ctAt(i)
 		if fn >= f0 && fn <= f1 {
-			return c0 + (fn-f0)/(f1-f0)*(c1-c0), nil
+			ct = c0 + (fn-f0)/(f1-f0)*(c1-c0)
+			cf, err := ship.LineITTC1957.CF(fn * math.Sqrt(g*tankModelLength) * tankModelLength / nu)
+			if err != nil {
+				return 0, 0, 0, err
+			}
+			// The record quotes 10³C_R to four decimals; C_TM is
+			// C_F + C_R, within 5×10⁻⁸ of the interpolated value, so
+			// that the printed sums add up.
+			cr = math.Round((ct-cf)*1e7) / 1e7
+			return cr, cf + cr, cf, nil
 		}
 	}
-	return 0, fmt.Errorf("the Froude number %.4g is outside the invented resistance test's range", fn)
+	return 0, 0, 0, fmt.Errorf("the Froude number %.4g is outside the invented resistance test's range", fn)
 }
 
 // wholeJob runs variables → Pi set → conflicting plan → compromise →
@@ -136,27 +155,40 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	if err != nil {
 		return nil, err
 	}
-	// The invented reading follows the model's size and speed: the
-	// towing-tank test's C_TM at the same Froude number, held at the
-	// Froude-scaled speed, R_m = C_TM·½·ρ_tank·V_m²·S_m.
+	// The invented reading follows the model's size and speed by
+	// Froude's hypothesis: the residuary coefficient C_R of the
+	// towing-tank test at this Froude number is held, and the model's
+	// own frictional coefficient is added, C_TM = C_FM(Re_m) + C_R, so
+	// R_m = C_TM·½·ρ_tank·V_m²·S_m.
 	lm, sm := shipLength/scale, shipWettedArea/(scale*scale)
 	fn := vm.Value() / math.Sqrt(9.80665*lm)
-	ctm, err := inventedCT(fn, tank.Density.Value())
+	nuTank := tank.KinematicViscosity.Value()
+	cr, ctTank, cfTank, err := inventedCR(fn, tank.Density.Value(), nuTank)
 	if err != nil {
 		return nil, err
 	}
-	res.ModelCT = ctm
+	rem := vm.Value() * lm / nuTank
+	cfm, err := ship.LineITTC1957.CF(rem)
+	if err != nil {
+		return nil, err
+	}
+	ctm := cfm + cr
+	res.ModelCT, res.Residual = ctm, cr
 	rm := q.New(ctm*0.5*tank.Density.Value()*vm.Value()*vm.Value()*sm, q.Force)
 	res.ModelResistance = rm
 	if res.NaiveForce, err = res.Compromise.Solution.ToPrototype(rm); err != nil {
 		return nil, err
 	}
 	pr := units.Printer{Precision: 4}
-	fmt.Fprintf(w, "  model: L = %s, S = %s, V = %s (Fn = %.4f), R = %#.4g N\n", pr.Format(q.New(lm, q.Length)), pr.Format(q.New(sm, q.Area)),
-		must(pr.FormatIn(vm, units.MustParse("m/s"))), fn, rm.Value())
-	fmt.Fprintf(w, "  (invented: 10³C_TM = %.3f, the towingtank example's invented test of the same vessel at this Froude number,\n", ctm*1e3)
-	fmt.Fprintf(w, "  interpolated linearly in Fn between its runs, held at the Froude-scaled speed)\n")
-	fmt.Fprintf(w, "  → ship %s (λ_F = λ_ρ·λ_L³, ignoring the Reynolds number)\n", must(pr.FormatIn(res.NaiveForce, units.MustParse("kN"))))
+	fmt.Fprintf(w, "  model: L = %s, S = %s, V = %s (Fn = %.4f), R = %s\n", pr.Format(q.New(lm, q.Length)), pr.Format(q.New(sm, q.Area)),
+		must(pr.FormatIn(vm, units.MustParse("m/s"))), fn, siSig(rm.Value(), "N", 4))
+	fmt.Fprintf(w, "  (invented: the towingtank example's test of the same vessel, on its 2 m model at this Froude number, gives 10³C_TM = %.4f\n", ctTank*1e3)
+	fmt.Fprintf(w, "  (linear in Fn between its runs) and 10³C_R = 10³(C_TM − C_FM) = %.4f − %.4f = %.4f; Froude's hypothesis holds C_R for a model\n",
+		ctTank*1e3, cfTank*1e3, cr*1e3)
+	fmt.Fprintf(w, "  of any size, so this model reads 10³C_TM = 10³(C_FM + C_R) = %.4f + %.4f = %.4f, with its own ITTC-1957 C_FM at Re = %.3g)\n",
+		cfm*1e3, cr*1e3, ctm*1e3, rem)
+	fmt.Fprintf(w, "  → ship %s (λ_F = λ_ρ·λ_L³, ignoring the Reynolds number: a smaller model, with its larger C_FM, predicts a heavier ship)\n",
+		siSig(res.NaiveForce.Value(), "N", 4))
 
 	fmt.Fprintln(w, "\n6. The same reading extrapolated by the ITTC-1957 line (Froude's hypothesis)")
 	res.Extrapolate, err = ship.ExtrapolateHull(ship.HullTest{
@@ -174,8 +206,11 @@ func wholeJob(w io.Writer, scale float64) (*JobResult, error) {
 	if pt.Warning != "" {
 		fmt.Fprintln(w, "  WARNING:", pt.Warning)
 	}
-	fmt.Fprintf(w, "  ship resistance %.1f kN, effective power %.1f kW — the friction correction the held Froude number cannot give\n",
-		pt.ShipResistance.Value()/1e3, pt.EffectivePower.Value()/1e3)
+	kn, _ := units.MustParse("kn").ValueOf(pt.ShipSpeed)
+	fmt.Fprintf(w, "  ship: L = %.4g m, S = %.4g m² (wetted), V = %.4g kn = %s m/s, sea water at 15 °C, ρ = %s kg/m³\n",
+		shipLength, shipWettedArea, kn, cli.Sig(pt.ShipSpeed.Value(), 4), cli.Sig(sea.Density.Value(), 6))
+	fmt.Fprintf(w, "  ship resistance R = C_TS·½ρV²S = %s, effective power P_E = R·V = %s — the friction correction the held Froude number cannot give\n",
+		siSig(pt.ShipResistance.Value(), "N", 3), siSig(pt.EffectivePower.Value(), "W", 3))
 	fmt.Fprintln(w, "\nCAUTION:", ship.HullCaution)
 	return res, nil
 }

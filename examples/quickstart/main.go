@@ -19,6 +19,9 @@ package main
 import (
 	"fmt"
 	"io"
+	"math"
+	"strconv"
+	"strings"
 
 	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
@@ -65,12 +68,51 @@ func pressureDrop(p pipe) (re, f, dp q.Quantity, regime string, err error) {
 		lg := q.Log10(rel.Scale(1 / 3.7).Add(q.Powf(re, 0.9).Inv().Scale(5.74)))
 		f = lg.Mul(lg).Inv().Scale(0.25)
 		regime = "turbulent, Swamee–Jain"
-		if r < 5000 || r > 1e8 || rel.Value() < 1e-6 || rel.Value() > 1e-2 {
-			regime += " (EXTRAPOLATED outside 5000 ≤ Re ≤ 1e8, 1e-6 ≤ ε/D ≤ 1e-2)"
+		if out := swameeJainOutside(r, rel.Value()); out != "" {
+			regime += " (EXTRAPOLATED: " + out + "; the formula was fitted for 5000 ≤ Re ≤ 1e8 and 1e-6 ≤ ε/D ≤ 1e-2)"
 		}
 	}
 	dp = f.Mul(p.l.Div(p.d)).Mul(p.rho).Mul(p.v).Mul(p.v).Scale(0.5)
 	return re, f, dp, regime, nil
+}
+
+// swameeJainOutside names each bound of the Swamee–Jain formula's range
+// that the Reynolds number re or the relative roughness rel fails, with
+// its value ("ε/D = 0.045 above 1e-2"), or returns "" inside it.
+func swameeJainOutside(re, rel float64) string {
+	var out []string
+	switch {
+	case re < 5000:
+		out = append(out, fmt.Sprintf("Re = %s below 5000", cli.Sig(re, 3)))
+	case re > 1e8:
+		out = append(out, fmt.Sprintf("Re = %.3g above 1e8", re))
+	}
+	switch {
+	case rel < 1e-6:
+		out = append(out, fmt.Sprintf("ε/D = %.2g below 1e-6", rel))
+	case rel > 1e-2:
+		out = append(out, fmt.Sprintf("ε/D = %s above 1e-2", cli.Sig(rel, 2)))
+	}
+	return strings.Join(out, ", ")
+}
+
+// siSig writes v in unit with an SI prefix chosen by its magnitude (the
+// number, rounded to n significant figures, in [1, 1000) where a prefix
+// from milli to giga allows) and n significant figures, trailing zeros
+// kept: 30042 Pa to three figures is 30.0 kPa, 0.32062 Pa is 0.321 Pa
+// (no prefix below 1 for a value under a unit: milli only below 0.001).
+func siSig(v float64, unit string, n int) string {
+	if v == 0 || math.IsNaN(v) || math.IsInf(v, 0) {
+		return cli.Sig(v, n) + " " + unit
+	}
+	r, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'e', n-1, 64), 64)
+	e := int(math.Floor(math.Log10(math.Abs(r))/3)) * 3
+	if e < 0 && math.Abs(r) >= 1e-3 {
+		e = 0
+	}
+	e = max(-3, min(e, 9))
+	prefix := map[int]string{-3: "m", 0: "", 3: "k", 6: "M", 9: "G"}[e]
+	return cli.Sig(v/math.Pow(10, float64(e)), n) + " " + prefix + unit
 }
 
 const usageText = `Usage: quickstart [flags]
@@ -83,13 +125,21 @@ similis's main demonstration on invented data. It prints, in order:
  3. a plan holding both the Froude and the Reynolds numbers for a
     1:scale model of a 32 m catamaran, and why it conflicts;
  4. the compromise that holds the Froude number, as a model plan;
- 5. an invented model resistance (the C_TM of the same vessel's
-    invented towing-tank test, examples/towingtank, at the same Froude
-    number, held at the Froude-scaled speed, so it follows the model's
-    size) carried to full scale by Froude scaling alone;
+ 5. an invented model resistance at the Froude-scaled speed, carried
+    to full scale by Froude scaling alone. The reading is made for the
+    model that -scale gives: the same vessel's invented towing-tank
+    test (examples/towingtank, a 2 m model in 15 °C fresh water) fixes
+    the residuary coefficient C_R = C_TM − C_FM at this Froude number,
+    and by Froude's hypothesis C_R is the same for a model of any size,
+    so the model reads C_TM = C_FM(Re_m) + C_R with its own ITTC-1957
+    C_FM. A smaller model has the larger C_FM, and Froude scaling alone
+    then predicts a heavier ship;
  6. the same reading extrapolated by the ITTC-1957 line, with its
-    coefficients (×10³), the ship resistance and effective power, and a
+    coefficients (×10³), the ship's length, wetted surface, speed and
+    water, the ship resistance and effective power, and a
     warning where the model's Reynolds number suggests laminar flow.
+    Since the reading holds C_R, the extrapolated ship figures are the
+    same at every -scale: the line removes what the model's size adds.
 Full-scale figures are estimates for illustration, not a design:
 hull powering is for the responsible naval architect.
 
@@ -130,7 +180,7 @@ func run(w io.Writer, args []string) error {
 	if err != nil {
 		fmt.Fprintln(w, "  refused:", err)
 	} else {
-		fmt.Fprintf(w, "  Re = %.5g (%s)   f = %.4f   Δp = %s\n", re.Value(), regime, f.Value(), pr.Format(dp))
+		fmt.Fprintf(w, "  Re = %.5g (%s)   f = %s   Δp = %s\n", re.Value(), regime, cli.Sig(f.Value(), 3), siSig(dp.Value(), "Pa", 3))
 	}
 
 	// The classic slip: the data sheet gives ν (m²/s) and it goes in where μ

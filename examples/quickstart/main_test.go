@@ -86,34 +86,78 @@ func ctmByHand() float64 {
 	return ct(1.6, 12.14) + (f-fn(1.6))/(fn(2.0)-fn(1.6))*(ct(2.0, 22.30)-ct(1.6, 12.14))
 }
 
-// TestScaleFollowsReading: at 1:60 the invented reading is the held C_TM
-// on the smaller model, R_m = C_TM·½·999.1026·V_m²·S_m with
-// V_m = 15 kn/√60 = 0.99617 m/s and S_m = 414.7/3600 m² (0.5888 N), so
-// Froude scaling gives the same ship force as at 1:16 (84.96 kN, not the
-// 6.8 MN a fixed 30.9 N reading gave); the model's Re = 0.99617·(32/60)/
-// 1.1395e-6 = 4.66×10⁵ (ν of fresh water at 15 °C as package fluids
-// gives it, printed by towingtank) is warned about as possibly laminar.
+// cfITTC is the ITTC-1957 line, C_F = 0.075/(log₁₀Re − 2)², written
+// out for the hand calculations.
+func cfITTC(re float64) float64 { return 0.075 / math.Pow(math.Log10(re)-2, 2) }
+
+// nuTank is the kinematic viscosity of the tank's fresh water at 15 °C,
+// μ/ρ = 1.1385×10⁻³/999.1026 m²/s as the report prints μ and ρ (IAPWS
+// 2008 and IAPWS-95, python3-iapws).
+const nuTank = 1.1385e-3 / 999.1026
+
+// TestScaleFollowsReading: the invented reading holds the residuary
+// coefficient of the towing-tank test (Froude's hypothesis), so it
+// follows the model's size. By hand: the 2 m tank model at the ship's
+// Fn runs at 15 kn/4 = 1.929167 m/s, Re = 1.929167·2/1.13952e-6 =
+// 3.3859×10⁶, C_F = 0.075/(6.52968 − 2)² = 3.6553×10⁻³, so C_R =
+// 6.7067 − 3.6553 = 3.0513×10⁻³ (the record's four decimals of 10³C_R:
+// 6.70668 − 3.65534 = 3.05134). At 1:60 the model is 32/60 = 0.53333 m
+// long at V_m = 15 kn/√60 = 0.99617 m/s: Re_m = 4.6624×10⁵, C_FM =
+// 0.075/(5.66861 − 2)² = 5.5726×10⁻³, C_TM = 8.624×10⁻³, and R_m =
+// C_TM·½·999.1026·V_m²·414.7/3600 = 0.4925 N; at 1:100 C_FM =
+// 6.7398×10⁻³ and C_TM = 9.791×10⁻³. Froude scaling alone then makes
+// the ship heavier as the model gets smaller (109.2 kN at 1:60, 84.96 kN
+// at 1:16), while the ITTC-1957 extrapolation gives one ship at every
+// scale: C_TS = C_FS + C_R + C_A whatever the model. The model's Re at
+// 1:60 is warned about as possibly laminar.
 func TestScaleFollowsReading(t *testing.T) {
-	var out bytes.Buffer
-	r60, err := wholeJob(&out, 60)
-	if err != nil {
-		t.Fatal(err)
+	cr := math.Round((ctmByHand()-cfITTC(15*1852.0/3600/4*2/nuTank))*1e7) / 1e7
+	if math.Abs(cr-3.0513e-3) > 1e-12 {
+		t.Fatalf("C_R by hand %v", cr)
 	}
-	r16, err := wholeJob(&bytes.Buffer{}, 16)
-	if err != nil {
-		t.Fatal(err)
+	results := map[float64]*JobResult{}
+	outs := map[float64]string{}
+	for _, scale := range []float64{16, 60, 100} {
+		var out bytes.Buffer
+		r, err := wholeJob(&out, scale)
+		if err != nil {
+			t.Fatal(err)
+		}
+		results[scale], outs[scale] = r, out.String()
+		vm, lm, sm := 15*1852.0/3600/math.Sqrt(scale), 32/scale, 414.7/(scale*scale)
+		ct := cfITTC(vm*lm/nuTank) + cr
+		rm := ct * 0.5 * 999.1026 * vm * vm * sm
+		if math.Abs(r.ModelCT/ct-1) > 1e-4 || math.Abs(r.ModelResistance.Value()/rm-1) > 1e-4 || math.Abs(r.Residual/cr-1) > 1e-4 {
+			t.Errorf("1:%g: C_TM %v, R_m %v; by hand %v, %v", scale, r.ModelCT, r.ModelResistance, ct, rm)
+		}
+		if p := r.Extrapolate.Points[0]; math.Abs(p.Residual/cr-1) > 1e-4 {
+			t.Errorf("1:%g: the extrapolation's C_R %v, held %v", scale, p.Residual, cr)
+		}
 	}
-	vm := 15 * 1852.0 / 3600 / math.Sqrt(60)
-	rm := ctmByHand() * 0.5 * 999.1026 * vm * vm * 414.7 / 3600
-	if math.Abs(r60.ModelResistance.Value()/rm-1) > 1e-5 {
-		t.Errorf("1:60 reading %v, by hand %v", r60.ModelResistance, rm)
+	if math.Abs(results[60].ModelResistance.Value()-0.4925) > 1e-4 || math.Abs(results[60].ModelCT-8.624e-3) > 1e-6 || math.Abs(results[100].ModelCT-9.791e-3) > 1e-6 {
+		t.Errorf("1:60 R_m %v, C_TM %v; 1:100 C_TM %v", results[60].ModelResistance, results[60].ModelCT, results[100].ModelCT)
 	}
-	if math.Abs(r60.NaiveForce.Value()/r16.NaiveForce.Value()-1) > 1e-9 || r60.NaiveForce.Value() > 2e5 {
-		t.Errorf("naive ship force 1:60 %v, 1:16 %v", r60.NaiveForce, r16.NaiveForce)
+	if !(results[100].NaiveForce.Value() > results[60].NaiveForce.Value() && results[60].NaiveForce.Value() > results[16].NaiveForce.Value()) {
+		t.Errorf("naive ship forces 1:16 %v, 1:60 %v, 1:100 %v: not heavier for a smaller model", results[16].NaiveForce, results[60].NaiveForce, results[100].NaiveForce)
 	}
-	p := r60.Extrapolate.Points[0]
-	if math.Abs(p.ModelReynolds/(vm*32/60/1.1395e-6)-1) > 1e-4 || !strings.Contains(out.String(), "WARNING: run 1 (V_m = 0.9962 m/s): the model Reynolds number 4.66e+05 is below 1e+06") {
-		t.Errorf("Re_m = %v; output:\n%s", p.ModelReynolds, out.String())
+	for _, scale := range []float64{60, 100} {
+		a, b := results[scale].Extrapolate.Points[0].ShipResistance.Value(), results[16].Extrapolate.Points[0].ShipResistance.Value()
+		if math.Abs(a/b-1) > 1e-9 {
+			t.Errorf("extrapolated ship resistance 1:%g %v, 1:16 %v: C_R is held, so they agree", scale, a, b)
+		}
+	}
+	for _, want := range []string{
+		"10³C_TM = 10³(C_FM + C_R) = 5.5726 + 3.0513 = 8.6239, with its own ITTC-1957 C_FM at Re = 4.66e+05)",
+		"R = 0.4925 N", "→ ship 109.2 kN",
+		"WARNING: run 1 (V_m = 0.9962 m/s): the model Reynolds number 4.66e+05 is below 1e+06",
+		"ship resistance R = C_TS·½ρV²S = 67.5 kN",
+	} {
+		if !strings.Contains(outs[60], want) {
+			t.Errorf("1:60 output lacks %q:\n%s", want, outs[60])
+		}
+	}
+	if want := "10³C_TM = 9.791, 10³C_FM = 6.740, 10³C_R = 10³(C_TM − C_FM) = 3.051;"; !strings.Contains(outs[100], want) {
+		t.Errorf("1:100 output lacks %q", want)
 	}
 }
 
@@ -193,7 +237,8 @@ func TestHelp(t *testing.T) {
 	var out bytes.Buffer
 	err := run(&out, []string{"-h"})
 	if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), "Usage") || !strings.Contains(out.String(), "It prints, in order") ||
-		!strings.Contains(out.String(), "naval architect") || !strings.Contains(out.String(), "-scale") {
+		!strings.Contains(out.String(), "naval architect") || !strings.Contains(out.String(), "-scale") ||
+		!strings.Contains(out.String(), "by Froude's hypothesis C_R is the same for a model of any size") || strings.Contains(out.String(), "held at the Froude-scaled speed") {
 		t.Errorf("-h: %v, %q", err, out.String())
 	}
 }
@@ -212,9 +257,10 @@ func TestPrintedLines(t *testing.T) {
 		"ρ = 998.207 kg/m³, V = 2.5 m/s, D = 0.08 m, μ = 1.00194 mPa·s",
 		"Re = 1.9925e+05",
 		"(Fn = 0.4356), R = 20.20 N",
-		"10³C_TM = 6.707, the towingtank example's invented test of the same vessel",
+		"on its 2 m model at this Froude number, gives 10³C_TM = 6.7066\n",
+		"Froude's hypothesis holds C_R for a model\n",
 		"10³C_TM = 6.707, 10³C_FM = 3.655, 10³C_R = 10³(C_TM − C_FM) = 3.051",
-		"ship resistance 67.5 kN, effective power 521.1 kW",
+		"ship resistance R = C_TS·½ρV²S = 67.5 kN, effective power P_E = R·V = 521 kW",
 	} {
 		if !strings.Contains(s, want) {
 			t.Errorf("output lacks %q:\n%s", want, s)
@@ -226,6 +272,68 @@ func TestPrintedLines(t *testing.T) {
 	for _, not := range []string{"C_Tm", "C_Fm", "× 1000", "μ = 0.0010", "run 0"} {
 		if strings.Contains(s, not) {
 			t.Errorf("output has %q", not)
+		}
+	}
+}
+
+// TestShipFiguresStated: the ship's resistance comes with the figures it
+// is made from: S = 414.7 m² and V = 15 kn = 15·1852/3600 = 7.7167 m/s,
+// and by hand R = C_TS·½ρV²S = 5.331×10⁻³·½·1025.97·7.7167²·414.7 =
+// 67.5 kN, P_E = R·V = 67.5·7.7167 = 521 kW.
+func TestShipFiguresStated(t *testing.T) {
+	var out bytes.Buffer
+	if err := run(&out, nil); err != nil {
+		t.Fatal(err)
+	}
+	want := "  ship: L = 32 m, S = 414.7 m² (wetted), V = 15 kn = 7.717 m/s, sea water at 15 °C, ρ = 1025.97 kg/m³\n" +
+		"  ship resistance R = C_TS·½ρV²S = 67.5 kN"
+	if !strings.Contains(out.String(), want) {
+		t.Errorf("output lacks %q", want)
+	}
+	v := 15 * 1852.0 / 3600
+	r := 5.331e-3 * 0.5 * 1025.97 * v * v * 414.7
+	if math.Abs(r/1e3-67.5) > 0.05 || math.Abs(r*v/1e3-521.1) > 0.5 {
+		t.Errorf("by hand R = %v N, P_E = %v W", r, r*v)
+	}
+}
+
+// TestPipeLineDigits: the pipe line gives f and Δp to three significant
+// figures whatever the regime, Δp with an SI prefix by magnitude. By
+// hand, laminar (-d 0.001 -v 0.001 -l 0.01): Re = 998.207·0.001·0.001/
+// 1.00194e-3 = 0.99627, f = 64/Re = 64.24, Δp = f·(L/D)·ρV²/2 =
+// 64.24·10·998.207·1e-6/2 = 0.3206 Pa; by default f = 0.0193 and Δp =
+// 30 042 Pa = 30.0 kPa. With -d 0.001 the relative roughness is
+// ε/D = 4.5e-5/0.001 = 0.045, above the Swamee–Jain range's 1e-2, and
+// the note names that bound with the value.
+func TestPipeLineDigits(t *testing.T) {
+	re := 998.207 * 0.001 * 0.001 / 1.00194e-3
+	f := 64 / re
+	if dp := f * 10 * 998.207 * 1e-6 / 2; math.Abs(f-64.24) > 0.005 || math.Abs(dp-0.3206) > 0.0001 {
+		t.Fatalf("by hand f = %v, Δp = %v", f, dp)
+	}
+	for _, c := range []struct {
+		args      []string
+		want, not string
+	}{
+		{nil, "f = 0.0193   Δp = 30.0 kPa\n", "30042"},
+		{[]string{"-d", "0.001", "-v", "0.001", "-l", "0.01"}, "(laminar, f = 64/Re)   f = 64.2   Δp = 0.321 Pa\n", "64.2395"},
+		{[]string{"-d", "0.001", "-v", "50", "-l", "10000"}, "(EXTRAPOLATED: ε/D = 0.045 above 1e-2; the formula was fitted for 5000 ≤ Re ≤ 1e8 and 1e-6 ≤ ε/D ≤ 1e-2))   f = 0.0690", "outside 5000"},
+		{[]string{"-v", "0.055"}, "(EXTRAPOLATED: Re = 4384 below 5000;", "ε/D ="},
+	} {
+		var out bytes.Buffer
+		if err := run(&out, c.args); err != nil {
+			t.Fatal(err)
+		}
+		if s := out.String(); !strings.Contains(s, c.want) || strings.Contains(s, c.not) {
+			t.Errorf("%v: output lacks %q or has %q:\n%s", c.args, c.want, c.not, s[:min(len(s), 600)])
+		}
+	}
+	for _, c := range []struct {
+		v    float64
+		want string
+	}{{30042, "30.0 kPa"}, {0.32062, "0.321 Pa"}, {8.6136e11, "861 GPa"}, {999.96, "1.00 kPa"}, {0.00012345, "0.123 mPa"}} {
+		if got := siSig(c.v, "Pa", 3); got != c.want {
+			t.Errorf("siSig(%v) = %q, want %q", c.v, got, c.want)
 		}
 	}
 }

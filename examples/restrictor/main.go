@@ -37,7 +37,8 @@ func main() { cli.Main("restrictor", run) }
 
 const usageText = `restrictor reduces an invented bench test of a flow restrictor (a 6 mm bore,
 12, 24 and 48 mm long, in a glycol coolant): it prints the dimensional matrix,
-the Pi groups of the chosen repeating set, the fifteen rows reduced to
+the Pi groups of the chosen repeating set, the coolant's state (temperature,
+ρ, μ and ν, the same for every row), the fifteen rows reduced to
 Eu = Δp/(ρ·V²) (Euler number, V the mean velocity in the bore), Re = ρ·V·d/μ
 (Reynolds number on the bore) and L/d (a table, with the fitted Eu and the
 residual of each row), and the power law Eu = C·Re^a·(L/d)^b fitted by least
@@ -82,6 +83,8 @@ var readings = []reading{
 }
 
 const (
+	coolant   = "50/50 glycol–water coolant" // by volume
+	coolantC  = 40.0                         // °C, the loop's temperature
 	density   = "1050 kg/m^3"
 	viscosity = "2.2 mPa*s"
 	bore      = "6 mm"
@@ -104,6 +107,8 @@ type RowBudget struct {
 	Eu, Re, LD        uncertain.Measured
 	EuFit, Deviation  uncertain.Measured // the fit at the row, and measured − fitted
 	Budget            uncertain.Budget   // of Eu
+	ReBudget          uncertain.Budget   // of Re, every source it uses
+	LDBudget          uncertain.Budget   // of L/d
 }
 
 // rowBudget works out the uncertainty of the row at 6.0 L/min through the
@@ -170,13 +175,44 @@ func rowBudget(w io.Writer, set *pigroups.Set, fit *pigroups.PowerLaw, idx [3]in
 	fmt.Fprintf(w, "Δp = P1 − P2 = %.1f kPa, u = %.3f kPa with both transducers calibrated on one dead-weight tester\n",
 		rb.DP.Value()/1e3, rb.DP.U().Value()/1e3)
 	fmt.Fprintf(w, "  (%.3f kPa had each its own standard of the same quality: the shared error cancels in the difference)\n", rb.DPIndependent.U().Value()/1e3)
-	fmt.Fprintf(w, "Re = %s, L/d = %s; u: standard uncertainties, k = 1\n", withU(rb.Re.Value(), rb.Re.U().Value()), withU(rb.LD.Value(), rb.LD.U().Value()))
+	if rb.ReBudget, err = rb.Re.Budget("Re", 0.95); err != nil {
+		return RowBudget{}, err
+	}
+	if rb.LDBudget, err = rb.LD.Budget("L/d", 0.95); err != nil {
+		return RowBudget{}, err
+	}
+	fmt.Fprintf(w, "Re = %s, L/d = %s; u: standard uncertainties, k = 1, each the root sum of squares of its sources'\n", withU(rb.Re.Value(), rb.Re.U().Value()), withU(rb.LD.Value(), rb.LD.U().Value()))
+	indep := "these sources are independent"
+	if rb.ReBudget.Correlated || rb.LDBudget.Correlated {
+		indep = "with the correlations between them"
+	}
+	fmt.Fprintf(w, "  contributions |c|·u as a share of the value (%s):\n", indep)
+	for _, b := range []struct {
+		name string
+		b    uncertain.Budget
+	}{{"Re = ρVd/μ = 4ρQ/(πμd)", rb.ReBudget}, {"L/d", rb.LDBudget}} {
+		fmt.Fprintf(w, "  %s: u/value = %.2f %% from %s\n", b.name, 100*b.b.U.Value()/math.Abs(b.b.Value.Value()), sourceShares(b.b))
+	}
+	fmt.Fprintln(w, "the budget of Eu = Δp/(ρV²) (the viscosity and the caliper do not enter it):")
 	fmt.Fprint(w, rb.Budget)
 	ev, eu := roundPair(rb.EuFit.Value(), rb.EuFit.U().Value())
 	fmt.Fprintf(w, "the fit at this row: Eu = %s (u = %s; standard uncertainty, k = 1, from the fit and the inputs)%s\n", ev, eu, note(pr))
 	dv, du := roundPair(dev.Value.Value(), dev.Expanded.Value())
 	fmt.Fprintf(w, "measured − fitted = %s, expanded uncertainty U(95 %%, k = %.2f) = %s (the shared ρ, V, d cancel in part)\n", dv, dev.K, du)
 	return rb, nil
+}
+
+// sourceShares lists a budget's sources with their contributions as
+// a share of the value, largest first ("viscosity (coolant data)
+// 2.00 %, flow meter 0.50 %"), the sources of zero contribution left out.
+func sourceShares(b uncertain.Budget) string {
+	var parts []string
+	for _, l := range b.Lines {
+		if c := l.Contribution.Value(); c > 0 {
+			parts = append(parts, fmt.Sprintf("%s %.2f %%", l.Source.Name, 100*c/math.Abs(b.Value.Value())))
+		}
+	}
+	return strings.Join(parts, ", ")
 }
 
 // printRows prints the bench rows reduced to the groups, with the fitted
@@ -336,6 +372,8 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	rho, _ := units.ParseQuantity(density)
 	mu, _ := units.ParseQuantity(viscosity)
 	d, _ := units.ParseQuantity(bore)
+	fmt.Fprintf(w, "fluid state (every row): %s at %g °C, ρ = %s kg/m³, μ = %s mPa·s (ν = μ/ρ = %s mm²/s; invented round figures); bore d = %s mm\n",
+		coolant, coolantC, cli.Sig(rho.Value(), 4), cli.Sig(mu.Value()*1e3, 3), cli.Sig(mu.Value()/rho.Value()*1e6, 3), cli.Sig(d.Value()*1e3, 3))
 	area := d.Pow(2, 1).Scale(math.Pi / 4)
 	ev := set.Evaluator()
 	res := &Result{Set: set}

@@ -102,3 +102,21 @@ func TestRowBudgetByHand(t *testing.T) {
 		}
 	}
 }
+
+// TestFluidStatePrinted: Eu and Re depend on the coolant's ρ and μ, so
+// the report states the fluid's state once, before the rows: ρ = 1050
+// kg/m³, μ = 2.2 mPa·s, ν = 2.2e-3/1050 = 2.095e-6 m²/s = 2.10 mm²/s;
+// with them row 0 (2.0 L/min through 6 mm: V = 3.333e-5/2.827e-5 =
+// 1.179 m/s) has Re = 1050·1.179·0.006/0.0022 = 3376, as printed.
+func TestFluidStatePrinted(t *testing.T) {
+	var out bytes.Buffer
+	if err := run(&out, []string{"-out", t.TempDir()}); err != nil {
+		t.Fatal(err)
+	}
+	s := out.String()
+	want := "fluid state (every row): 50/50 glycol–water coolant at 40 °C, ρ = 1050 kg/m³, μ = 2.20 mPa·s (ν = μ/ρ = 2.10 mm²/s; invented round figures); bore d = 6.00 mm"
+	i := strings.Index(s, want)
+	if i < 0 || i > strings.Index(s, "fit over") || !strings.Contains(s, "   3376 ") {
+		t.Errorf("report lacks %q before the fit", want)
+	}
+}

@@ -222,3 +222,42 @@ func TestRoundPair(t *testing.T) {
 		}
 	}
 }
+
+// TestReBudgetListsEverySource: the Re of the 6.0 L/min row has its u
+// from four independent relative sources, each printed, and their root
+// sum of squares is the printed u: Re = 4ρQ/(πμd) = 4·1050·1e-4/
+// (π·2.2e-3·6e-3) = 10128, with u/Re = √(2.00² + 0.50² + 0.20² +
+// (0.01/6·100)²) % = √(4 + 0.25 + 0.04 + 0.0278) % = 2.078 %, u = 210.5
+// (viscosity 2 %, flow meter 0.5 %, density 0.2 %, bore 0.01 mm of
+// 6 mm). L/d = 12/6 = 2 with u/(L/d) = √((0.05/12)² + (0.01/6)²) =
+// √(0.417² + 0.167²) % = 0.449 %, u = 0.0090 (caliper 0.05 mm of 12 mm). It printed "Re = 10130
+// (u = 210)" with no viscosity anywhere, the Eu table's sources giving
+// about 0.56 %.
+func TestReBudgetListsEverySource(t *testing.T) {
+	var out bytes.Buffer
+	r, err := evaluate(&out, []string{"-out", t.TempDir()})
+	if err != nil {
+		t.Fatal(err)
+	}
+	re := 4 * 1050 * 1e-4 / (math.Pi * 2.2e-3 * 6e-3)
+	rel := math.Sqrt(2*2+0.5*0.5+0.2*0.2+math.Pow(100*0.01/6, 2)) / 100
+	if math.Abs(re-10128) > 0.5 || math.Abs(re*rel-210.5) > 0.1 {
+		t.Fatalf("hand Re %v, u %v", re, re*rel)
+	}
+	if b := r.Budget.ReBudget; math.Abs(b.Value.Value()/re-1) > 1e-12 || math.Abs(b.U.Value()/(re*rel)-1) > 1e-9 || len(b.Lines) < 4 {
+		t.Errorf("Re budget %v ± %v, %d lines; by hand %v ± %v", b.Value, b.U, len(b.Lines), re, re*rel)
+	}
+	ld := math.Hypot(0.05/12, 0.01/6)
+	if got := r.Budget.LDBudget.U.Value(); math.Abs(got/(2*ld)-1) > 1e-9 {
+		t.Errorf("u(L/d) = %v, by hand %v", got, 2*ld)
+	}
+	for _, want := range []string{
+		"Re = ρVd/μ = 4ρQ/(πμd): u/value = 2.08 % from viscosity (coolant data) 2.00 %, flow meter 0.50 %, density (coolant data) 0.20 %, bore (gauge pin) 0.17 %",
+		"L/d: u/value = 0.45 % from length (caliper) 0.42 %, bore (gauge pin) 0.17 %",
+		"the budget of Eu = Δp/(ρV²) (the viscosity and the caliper do not enter it):",
+	} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("report lacks %q", want)
+		}
+	}
+}

@@ -19,7 +19,7 @@
 //
 // Usage:
 //
-//	go run ./examples/spillway [-scale 30] [-q 450] [-hscale 120] [-vscale 30] [-n 0.014] [-d50 1] [-out DIR] [-width IN] [-height IN] [-dpi N]
+//	go run ./examples/spillway [-scale 30] [-q 0] [-hscale 120] [-vscale 30] [-n 0.014] [-d50 1] [-out DIR] [-width IN] [-height IN] [-dpi N]
 //
 // A bad flag value exits with status 2, naming the flag.
 package main
@@ -29,6 +29,7 @@ import (
 	"io"
 	"math"
 	"os"
+	"strconv"
 
 	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
@@ -44,14 +45,22 @@ func main() { cli.Main("spillway", run) }
 // output means.
 const about = `Usage: spillway [flags]
 
-Plans a Froude-scale model of an invented river-intake spillway and
-prints, in order: the model/prototype scale ratios (1:x means the model's
+Plans a Froude-scale model of an invented river-intake spillway. The
+model is fixed: its crest radius (0.03 m), crest length (0.76 m), design
+discharge (91.29 L/s) and measured rating are the model's whatever -scale
+says, and the prototype is the model × -scale (lengths × x, discharges
+× x^(5/2)); -q gives another prototype design discharge. It prints, in
+order: the model/prototype scale ratios (1:x means the model's
 value is the prototype's divided by x); the model discharge for the
 design discharge; an invented model record of chute-floor gauge pressure
 carried to the prototype; the Manning n the model needs, checked against
 the smoothest model materials; a distorted variant of the approach reach
-with the movable-bed grain that keeps Shields similarity and its particle
-Reynolds number checked against the viscous range; and the scale-effect
+(the prototype river's reach, 5 m deep at a slope of 2×10⁻⁴, which
+-scale does not change) with its exaggeration checked against common
+practice (at most 10 for river models) and the movable-bed grain that
+keeps Shields similarity, named by its size class (ISO 14688-1: sand,
+gravel, cobbles, boulders) and its particle Reynolds number checked
+against the viscous range; and the scale-effect
 checks at the crest (crest radius, Reynolds and Weber numbers, head),
 each with its limit, the limit's basis and a verdict, at the design
 discharge and at a tenth of it. There h, the head over the crest, is
@@ -93,6 +102,8 @@ type Result struct {
 	Sediment                                             hydraulic.SedimentScales
 	ProtoShearVelocity, ProtoReStar, ModelGrain          float64              // m/s, 1, m
 	ReStarCheck                                          hydraulic.ScaleCheck // the model grain's Re*
+	ModelGrainClass                                      string               // the model grain's ISO 14688-1 size class
+	DistortionCheck                                      hydraulic.ScaleCheck // the exaggeration against common practice
 	Rating                                               *hydraulic.Rating
 	Table                                                []hydraulic.RatingValue // the prototype rating table
 	PNG, SVG                                             string                  // the plot's files, empty when not drawn
@@ -104,8 +115,12 @@ type Result struct {
 const (
 	lowFlowShare = 0.1
 	modelWaterC  = 15.0 // °C, the model's water, and the river's (so λ_ν = 1)
-	// crestRadius is the prototype's radius of curvature at the crest.
-	crestRadius = 0.9 // m
+	// modelCrestRadius is the model's radius of curvature at the crest
+	// (0.9 m at the prototype of the default 1:30).
+	modelCrestRadius = 0.03 // m
+	// modelDesignQ is the model's design discharge (m³/s): 450 m³/s at
+	// the prototype of the default 1:30, 91.29 L/s.
+	modelDesignQ = 450 / 4929.503017546495 // 30^(5/2)
 	// The approach reach of the river (invented): flow depth and bed slope
 	// at the design discharge, for the bed shear velocity u* = √(g·h·S)
 	// (wide channel, hydraulic radius ≈ depth).
@@ -121,12 +136,12 @@ func run(w io.Writer, args []string) error { _, err := evaluate(w, args); return
 
 func evaluate(w io.Writer, args []string) (*Result, error) {
 	fs := cli.NewFlagSet("spillway", about)
-	scale := cli.FloatVar(fs, "scale", 30, 2, 500, "", "length scale x of the 1:x Froude model (prototype length over model length)")
-	qp := cli.FloatVar(fs, "q", 450, 0.1, 1e5, "m³/s", "prototype design discharge")
+	scale := cli.FloatVar(fs, "scale", 30, 2, 500, "", "length scale x of the 1:x Froude model (prototype length over model length); the model is fixed, the prototype is the model × x")
+	qp := cli.FloatVar(fs, "q", 0, 0, 1e5, "m³/s", "prototype design discharge; 0: the model's design discharge of 91.29 L/s carried at -scale (450 m³/s at 1:30)")
 	hs := cli.FloatVar(fs, "hscale", 120, 2, 5000, "", "distorted variant of the approach reach: horizontal scale x of 1:x")
 	vs := cli.FloatVar(fs, "vscale", 30, 2, 500, "", "distorted variant: vertical scale x of 1:x, at most -hscale")
 	protoN := cli.FloatVar(fs, "n", 0.014, 0.008, 0.2, "s·m^(−1/3)", "prototype Manning n of the chute (0.014: concrete cast in forms, common practice)")
-	d50 := cli.FloatVar(fs, "d50", 1, 0.0625, 100, "mm", "median grain size of the approach reach's bed (sand to gravel; finer grains are silt, which can be cohesive)")
+	d50 := cli.FloatVar(fs, "d50", 1, 0.063, 100, "mm", "median grain size of the approach reach's bed (sand to gravel; finer grains are silt, which can be cohesive)")
 	out := fs.String("out", os.TempDir(), "directory for spillway-rating.png and spillway-rating.svg; empty: no plot")
 	width := cli.FloatVar(fs, "width", 6, 2, 40, "in", "plot width")
 	height := cli.FloatVar(fs, "height", 7, 2, 40, "in", "plot height (two panels)")
@@ -142,6 +157,12 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	if *vs > *hs {
 		return nil, &cli.Error{Program: "spillway", Msg: fmt.Sprintf("-vscale %g exceeds -hscale %g: a distorted model exaggerates the vertical, so its vertical scale must not be the larger", *vs, *hs)}
 	}
+	qText := fmt.Sprintf("%g", *qp)
+	if *qp == 0 {
+		*qp = modelDesignQ * math.Pow(*scale, 2.5)
+		r4, _ := strconv.ParseFloat(strconv.FormatFloat(*qp, 'e', 3, 64), 64) // four figures
+		qText = strconv.FormatFloat(r4, 'f', -1, 64)
+	}
 	s, err := similarity.Froude(similarity.Scales{Length: 1 / *scale, Density: 1})
 	if err != nil {
 		return nil, err
@@ -151,7 +172,9 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		x, _ := s.DerivedRatio(d)
 		return x, x.Value
 	}
-	fmt.Fprintf(w, "1:%g Froude model of an invented river-intake spillway\n\n", *scale)
+	fmt.Fprintf(w, "1:%g Froude model of an invented river-intake spillway\n", *scale)
+	fmt.Fprintf(w, "the model is fixed (crest radius %g m, crest length %g m, its measured rating below); the prototype is the model × %g\n\n",
+		modelCrestRadius, ratingCrest, *scale)
 	fmt.Fprintln(w, "scale ratios, model/prototype:")
 	for _, c := range []struct {
 		name string
@@ -168,7 +191,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	r.ModelDischarge = *qp * qr
 	ls := units.MustParse("L/s")
 	qm, _ := ls.ValueOf(q.New(r.ModelDischarge, q.VolumeFlowRate))
-	fmt.Fprintf(w, "\ndesign discharge %g m³/s → model %.2f L/s\n", *qp, qm)
+	fmt.Fprintf(w, "\ndesign discharge %s m³/s → model %s L/s\n", qText, cli.Sig(qm, 4))
 
 	// The measured record: times and pressures carried to prototype.
 	dt := 1.0 / 20
@@ -211,17 +234,21 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	}
 	d := r.Distorted
 	fmt.Fprintf(w, "\ndistorted variant for the approach reach: horizontal 1:%g, vertical 1:%g (exaggeration %.3g)\n", *hs, *vs, d.Distortion)
+	if r.DistortionCheck, err = hydraulic.DistortionCheck(d); err != nil {
+		return nil, err
+	}
+	fmt.Fprintf(w, "  %v\n", r.DistortionCheck)
 	fmt.Fprintf(w, "  velocity 1:%.5g, time 1:%.5g, discharge 1:%.5g, slope ×%.3g, Manning n ×%.3f\n",
 		1/d.Velocity, 1/d.Time, 1/d.Discharge, d.Slope, d.Manning)
-	fmt.Fprintf(w, "  design discharge in the distorted model: %.2f L/s\n", *qp*d.Discharge*1000)
+	fmt.Fprintf(w, "  design discharge in the distorted model: %s L/s\n", cli.Sig(*qp*d.Discharge*1000, 4))
 	if math.IsNaN(d.Velocity) {
 		return nil, fmt.Errorf("distorted ratios undefined")
 	}
 	if r.Sediment, err = hydraulic.SedimentFor(hydraulic.SedimentRatios{Horizontal: 1 / *hs, Vertical: 1 / *vs, RelativeDensity: 1, Viscosity: 1}); err != nil {
 		return nil, err
 	}
-	fmt.Fprintf(w, "  movable bed (Shields similarity, the same water): bed shear u*² ratio %.4g; with the prototype's sand the grains\n", r.Sediment.Shear)
-	fmt.Fprintf(w, "  must be %.3g of the prototype's size (a lighter material allows larger ones), and Re* falls to %.3g of the prototype's\n",
+	fmt.Fprintf(w, "  movable bed (Shields similarity, the same water): bed shear u*² ratio %.4g; with the prototype's bed material the grains\n", r.Sediment.Shear)
+	fmt.Fprintf(w, "  must be %.3g times the prototype's size (a lighter material allows larger ones), and Re* is %.3g times the prototype's\n",
 		r.Sediment.Grain, r.Sediment.ReStar)
 	river, err := fluids.FreshWater().AtCelsius(modelWaterC)
 	if err != nil {
@@ -233,9 +260,14 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	if r.ReStarCheck, err = hydraulic.ParticleReynoldsCheck(r.ProtoReStar * r.Sediment.ReStar); err != nil {
 		return nil, err
 	}
-	fmt.Fprintf(w, "  prototype (invented reach: depth %g m, slope %g): u* = √(g·h·S) = %.4f m/s, d50 = %g mm, Re* = u*·d/ν = %.3g\n",
-		reachDepth, reachSlope, r.ProtoShearVelocity, *d50, r.ProtoReStar)
-	fmt.Fprintf(w, "  model sand d50 = %.3g mm\n    %v\n", r.ModelGrain*1000, r.ReStarCheck)
+	fmt.Fprintf(w, "  prototype (invented reach: depth %g m, slope %g): u* = √(g·h·S) = %.4f m/s, d50 = %g mm (%s), Re* = u*·d/ν = %.3g\n",
+		reachDepth, reachSlope, r.ProtoShearVelocity, *d50, hydraulic.GrainClass(*d50/1000), r.ProtoReStar)
+	r.ModelGrainClass = hydraulic.GrainClass(r.ModelGrain)
+	fmt.Fprintf(w, "  model grain size d50 = %s mm (%s, by the size classes of ISO 14688-1, from memory: sand 0.063–2 mm, gravel 2–63 mm,\n"+
+		"  cobbles 63–200 mm, boulders above 200 mm)\n    %v\n", cli.Sig(r.ModelGrain*1000, 3), r.ModelGrainClass, r.ReStarCheck)
+	if r.ModelGrainClass == "silt" || r.ModelGrainClass == "clay" {
+		fmt.Fprintf(w, "    WARNING: a %s-sized grain can be cohesive, and Shields similarity does not hold for a cohesive bed (common practice: a coarser, lighter material)\n", r.ModelGrainClass)
+	}
 
 	// Scale effects at the crest: critical depth 2/3 of the head and the
 	// critical velocity √(g·y_c), in the model's water.
@@ -256,12 +288,12 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	fmt.Fprintln(w, "  h is the head over the crest (upstream water level above crest level), taken from the model's measured rating below;")
 	fmt.Fprintf(w, "  V = (g·q)^(1/3) is the critical velocity for the unit discharge q = Q/b over the model crest (b = %g m), at the critical\n", ratingCrest)
 	fmt.Fprintln(w, "  depth y_c = V²/g; Re = V·h/ν and We = ρV²h/σ are both formed with this V and the length h")
-	rc, err := hydraulic.CrestRadiusCheck(q.New(crestRadius / *scale, q.Length), lim)
+	rc, err := hydraulic.CrestRadiusCheck(q.New(modelCrestRadius, q.Length), lim)
 	if err != nil {
 		return nil, err
 	}
 	r.CrestRadius = rc
-	fmt.Fprintf(w, "  crest: prototype radius %g m\n    %v\n", crestRadius, rc)
+	fmt.Fprintf(w, "  crest: model radius %g m, the prototype's %s m at 1:%g\n    %v\n", modelCrestRadius, cli.Sig(modelCrestRadius**scale, 3), *scale, rc)
 	for _, c := range []struct {
 		name  string
 		share float64
@@ -275,7 +307,7 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		}
 		r.Checks = append(r.Checks, cs)
 		r.CrestHeads, r.CrestVelocities = append(r.CrestHeads, h), append(r.CrestVelocities, v)
-		fmt.Fprintf(w, "  %s: model Q = %.2f L/s, q = %s m²/s, critical velocity V = %.3f m/s, y_c = %s m\n", c.name, qm*1000, sig3(qm/ratingCrest), v, sig3(v*v/9.80665))
+		fmt.Fprintf(w, "  %s: model Q = %s L/s, q = %s m²/s, critical velocity V = %s m/s, y_c = %s m\n", c.name, cli.Sig(qm*1000, 4), sig3(qm/ratingCrest), cli.Sig(v, 4), sig3(v*v/9.80665))
 		fmt.Fprintf(w, "    model head h = %s m: %s\n", sig3(h), src)
 		for _, ck := range cs {
 			fmt.Fprintf(w, "    %v\n", ck)

@@ -112,7 +112,7 @@ func TestScaleChecksByHand(t *testing.T) {
 		t.Errorf("crest V %v, rating V %v", v, p)
 	}
 	for _, want := range []string{
-		"low flow, a tenth of it: model Q = 9.13 L/s, q = 0.0120 m²/s, critical velocity V = 0.490 m/s, y_c = 0.0245 m",
+		"low flow, a tenth of it: model Q = 9.129 L/s, q = 0.0120 m²/s, critical velocity V = 0.4902 m/s, y_c = 0.0245 m",
 		"model head h = 0.0341 m: interpolated log–log between the measured points 0 (h = 0.030 m, Q = 7.38 L/s) and 1 (h = 0.045 m, Q = 14.38 L/s)",
 		"We = ρV²h/σ = 112 (limit ≥ 100, common practice): passes",
 		"model head h = 0.140 m: the fitted model rating inverted, h = (Q/C)^(1/n), within its range 0.075 … 0.180 m",
@@ -184,8 +184,8 @@ func TestCrestHeadSource(t *testing.T) {
 		q    string
 		want string
 	}{
-		{"2000", "design discharge: model Q = 405.72 L/s"},
-		{"30", "low flow, a tenth of it: model Q = 0.61 L/s"},
+		{"2000", "design discharge: model Q = 405.7 L/s"},
+		{"30", "low flow, a tenth of it: model Q = 0.6086 L/s"},
 	} {
 		var out bytes.Buffer
 		if err := run(&out, append([]string{"-q", c.q}, noPlot...)); err != nil {
@@ -200,5 +200,27 @@ func TestCrestHeadSource(t *testing.T) {
 		if !strings.Contains(line, "model head h = ") || !strings.Contains(line, "EXTRAPOLATED: the fitted model rating inverted beyond every measurement") {
 			t.Errorf("-q %s: %q", c.q, line)
 		}
+	}
+}
+
+// TestSmallDischargeFigures: at -q 0.1 m³/s the model discharges are
+// printed with significant figures, none as 0.00: λ_Q = 30^-2.5 =
+// 1/4929.5, so 0.1/4929.5 m³/s = 0.02029 L/s, a tenth of it 0.002029 L/s;
+// the distorted model's λ_Q = 1/(120·30^1.5) = 1/19718, so 0.1/19718 m³/s
+// = 0.005072 L/s.
+func TestSmallDischargeFigures(t *testing.T) {
+	var out bytes.Buffer
+	if err := run(&out, []string{"-out", "", "-q", "0.1"}); err != nil {
+		t.Fatal(err)
+	}
+	s := out.String()
+	for _, w := range []string{"design discharge 0.1 m³/s → model 0.02029 L/s", "design discharge: model Q = 0.02029 L/s",
+		"low flow, a tenth of it: model Q = 0.002029 L/s", "design discharge in the distorted model: 0.005072 L/s"} {
+		if !strings.Contains(s, w) {
+			t.Errorf("report lacks %q", w)
+		}
+	}
+	if strings.Contains(s, "0.00 L/s") {
+		t.Error("a discharge printed as 0.00 L/s")
 	}
 }

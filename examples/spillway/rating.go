@@ -17,6 +17,7 @@ import (
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
+	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/examples/internal/plotstyle"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/hydraulic"
@@ -127,7 +128,7 @@ func rateWeir(w io.Writer, res *Result, r *hydraulic.Rating, scale float64, dir 
 		fmt.Fprintf(w, "  note: %s\n", n)
 	}
 	lo, hi := r.ProtoHeadRange()
-	fmt.Fprintf(w, "  range of validity: model heads %.3f … %.3f m, prototype %.2f … %.2f m\n", r.HeadMin, r.HeadMax, lo, hi)
+	fmt.Fprintf(w, "  range of validity: model heads %.3f … %.3f m, prototype %s … %s m\n", r.HeadMin, r.HeadMax, cli.Sig(lo, 3), cli.Sig(hi, 3))
 
 	fmt.Fprintf(w, "\nprototype rating by Froude similarity, 1:%g: h_p = %g·h_m, Q_p = Q_m/λ_Q with λ_Q = λ_L^(5/2) = 1:%.5g\n", scale, scale, 1/r.DischargeRatio)
 	fmt.Fprintf(w, "  Q_p = %.5g·h_p^%.4f (Q in m³/s, h in m)\n", r.ProtoC, r.N)
@@ -143,9 +144,11 @@ func rateWeir(w io.Writer, res *Result, r *hydraulic.Rating, scale float64, dir 
 		res.Table = append(res.Table, v)
 		mark := ""
 		if v.Extrapolated {
-			mark = fmt.Sprintf("  EXTRAPOLATED: outside %.2f … %.2f m, no measurement supports it", lo, hi)
+			mark = fmt.Sprintf("  EXTRAPOLATED: outside %s … %s m, no measurement supports it", cli.Sig(lo, 3), cli.Sig(hi, 3))
 		}
-		fmt.Fprintf(w, "  %8.2f %10.1f %11.1f … %-9.1f %13.2f %%%s\n", h, v.Discharge.Value(), v.Band[0].Value(), v.Band[1].Value(), 100*v.RelU, mark)
+		// Heads to three significant figures, discharges to four: a small
+		// prototype's table does not round to nothing.
+		fmt.Fprintf(w, "  %8s %10s %11s … %-9s %13.2f %%%s\n", cli.Sig(h, 3), cli.Sig(v.Discharge.Value(), 4), cli.Sig(v.Band[0].Value(), 4), cli.Sig(v.Band[1].Value(), 4), 100*v.RelU, mark)
 	}
 	if dir == "" {
 		fmt.Fprintln(w, "  plot: not drawn (-out is empty)")

@@ -45,7 +45,7 @@ func TestOpenWaterByHand(t *testing.T) {
 	}
 	for _, want := range []string{
 		"   0.380    38.13    0.4515 |  0.100  0.3719  0.5219  0.114  2.06e+05",
-		"faired K_T = (+0.40041 ± 0.00100)·J^0",
+		"faired K_T = 0.40041(±0.00100) − 0.28161(±0.00416)·J − 0.09872(±0.00368)·J²;",
 		"order 2 chosen by next term not significant at 5 %",
 		"above the usual minimum 2e+05",
 		"towingtank-openwater.png",
@@ -140,6 +140,65 @@ func TestSpeedPowerBand(t *testing.T) {
 		prev = pd
 	}
 	for _, want := range []string{"Speed–power prediction, ITTC-1978", "P_D 95 % kW", "band from the fits alone", "18.00    1161", "WARNING (fits): the run at V_M = 1.3 m/s has an externally studentised residual of 4.41 from the faired t (its residual 0.00529 is 1.66 times the fit's residual standard deviation S = 0.0032"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+}
+
+// TestFairedPolynomialReads: the faired curves print as sums with their
+// operators (no J^0, no juxtaposed terms), and each S has two
+// significant figures, trailing zero kept (0.0010 beside 0.00085).
+func TestFairedPolynomialReads(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, []string{"-plot=false"}); err != nil {
+		t.Fatal(err)
+	}
+	s := out.String()
+	for _, want := range []string{
+		"faired K_T = 0.40041(±0.00100) − 0.28161(±0.00416)·J − 0.09872(±0.00368)·J²; order 2",
+		"faired 10K_Q = 0.54893(±0.00117) − 0.24601(±0.00489)·J − 0.12292(±0.00433)·J²; order 2",
+		"S = 0.00085, 10 runs", "S = 0.0010, 10 runs",
+		"η_R faired against V_M: order 0 (order 0 chosen by next term not significant at 5 % among orders 0 … 2), S = 0.0010\n",
+		"residual standard deviation S = 0.0010; an outlier",
+	} {
+		if !strings.Contains(s, want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+	for _, not := range []string{"J^", ")·J^0", "S = 0.001,", "S = 0.001\n", "S = 0.001;"} {
+		if strings.Contains(s, not) {
+			t.Errorf("output has %q", not)
+		}
+	}
+	// A negative constant and higher powers: −1 + 2J − 3J³ + 0.5J⁴ (×10).
+	got := polyText([]float64{-0.1, 0.2, 0, -0.3, 0.05}, []float64{0.01, 0.02, 0.03, 0.04, 0.005}, 10)
+	if want := "−1.00000(±0.10000) + 2.00000(±0.20000)·J + 0.00000(±0.30000)·J² − 3.00000(±0.40000)·J³ + 0.50000(±0.05000)·J⁴"; got != want {
+		t.Errorf("polyText = %q, want %q", got, want)
+	}
+}
+
+// TestNegativeCorrelationAllowanceWarned: at 1:100 the ship is 200 m
+// long and its top speed 45 kn = 23.15 m/s, so by hand Re_S =
+// 23.15·200/1.1902e-6 = 3.89×10⁹ (ν of sea water at 15 °C as the report
+// prints it) and the procedure's C_A = (5.68 − 0.6·log₁₀3.89e9)·10⁻³ =
+// (5.68 − 5.754)·10⁻³ = −0.074×10⁻³: warned about like a negative ΔC_F.
+func TestNegativeCorrelationAllowanceWarned(t *testing.T) {
+	var out bytes.Buffer
+	o, err := evaluate(&out, []string{"-scale", "100", "-plot=false"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	top := o.Powering.Points[len(o.Powering.Points)-1]
+	re := 45 * 1852.0 / 3600 * 200 / 1.1902e-6
+	if ca := (5.68 - 0.6*math.Log10(re)) * 1e-3; math.Abs(top.CorrelationAllowance-ca) > 2e-7 || math.Abs(ca*1e3+0.074) > 0.001 {
+		t.Errorf("C_A = %v, by hand %v", top.CorrelationAllowance, ca)
+	}
+	for _, want := range []string{
+		"(-0.074×10⁻³ at the top speed, negative: the formula used beyond its range, see the WARNING below the table)",
+		"WARNING (45.00 kn): the correlation allowance C_A = -0.074×10⁻³ from the procedure's formula (5.68 − 0.6·log₁₀Re_S)·10⁻³ is negative",
+		"the ship Reynolds number Re_S = 3.89e+09 is above 2.93e+09, where the formula changes sign, so it is used beyond its range (L = 200 m)",
+	} {
 		if !strings.Contains(out.String(), want) {
 			t.Errorf("output lacks %q", want)
 		}

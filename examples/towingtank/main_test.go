@@ -9,6 +9,7 @@ import (
 	"io"
 	"math"
 	"os"
+	"slices"
 	"strings"
 	"testing"
 
@@ -73,7 +74,7 @@ func TestByHand(t *testing.T) {
 func TestHelp(t *testing.T) {
 	var out bytes.Buffer
 	err := run(&out, []string{"-h"})
-	for _, want := range []string{"Usage", "It prints:", "C_Ts (including the allowance C_A)", "P_D (all shafts)", "naval architect", "thrust identity", "open-water test", "-dpi", "-plotw", "towingtank-coefficients.png/.svg and towingtank-openwater.png/.svg", "-scale changes the ship"} {
+	for _, want := range []string{"Usage", "It prints:", "C_Ts (including the allowance C_A)", "P_D (all shafts)", "naval architect", "thrust identity", "open-water test", "-dpi", "-plotw", "towingtank-coefficients.png/.svg and towingtank-openwater.png/.svg", "-scale changes the ship", "The invented readings were recorded in the tank at 15 °C. -tank makes\nthem for another tank temperature, consistently", "-sea changes only the ship's water"} {
 		if !errors.Is(err, flag.ErrHelp) || !strings.Contains(out.String(), want) {
 			t.Errorf("-h: %v, lacks %q", err, want)
 		}
@@ -419,5 +420,207 @@ func TestEveryScale(t *testing.T) {
 		if d := o.Powering.Propeller.Diameter.Value(); math.Abs(d-1.35/16*s) > 1e-12 {
 			t.Errorf("-scale %v: ship propeller D = %v m, want D_M·λ = %v", s, d, 1.35/16*s)
 		}
+	}
+}
+
+// TestMaxFnTooLow: -maxfn 0.1 leaves no run for Prohaska's method (the
+// lowest is 0.50/√(9.80665·2) = 0.113); the third-lowest run's Fn is
+// 0.80/√(9.80665·2) = 0.18064, so the fix is -maxfn 0.181 or more. It is
+// a usage error printed before any report, with no package prefix.
+func TestMaxFnTooLow(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, []string{"-plot=false", "-maxfn", "0.1"})
+	var ce *cli.Error
+	if !errors.As(err, &ce) || !strings.Contains(err.Error(), "-maxfn 0.1") ||
+		!strings.Contains(err.Error(), "raise -maxfn to at least 0.181 (the third-lowest run's Fn)") || strings.Contains(err.Error(), "ship:") {
+		t.Errorf("got %v", err)
+	}
+	if out.Len() != 0 {
+		t.Errorf("printed before the usage error: %q", out.String())
+	}
+	if err := run(io.Discard, []string{"-plot=false", "-maxfn", "0.181"}); err != nil {
+		t.Errorf("-maxfn 0.181: %v", err)
+	}
+	var help bytes.Buffer
+	if err := run(&help, []string{"-h"}); !errors.Is(err, flag.ErrHelp) || !strings.Contains(help.String(), "(0.181 or more with these runs)") ||
+		!strings.Contains(help.String(), "a -maxfn that leaves fewer than 3 runs") {
+		t.Errorf("-h does not say how low -maxfn may go: %v", err)
+	}
+}
+
+// TestChokedRunsMarked: in a 1 m × 0.5 m tank m = 0.03/0.5 = 0.06, the
+// choking Fh = x^(3/2) with x = 2·cos((arccos(m − 1) − 2π)/3) is 0.70578,
+// i.e. 0.70578·√(9.80665·0.5) = 1.563 m/s; the runs at 1.60 m/s (Fh =
+// 1.6/2.2144 = 0.7226), 2.00 and 2.40 m/s are choked. Their rows say so,
+// the fix is named once, and the report goes on to its caution.
+func TestChokedRunsMarked(t *testing.T) {
+	var out bytes.Buffer
+	o, err := evaluate(&out, []string{"-plot=false", "-width", "1", "-depth", "0.5"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := out.String()
+	for _, w := range []string{"  1.60  0.723   choked: ", "  2.00  0.903   choked: ", "  2.40  1.084   choked: ", "choking value 0.7058 (1.56 m/s)",
+		"3 of the 8 runs are at or above the choking speed 1.56 m/s of this tank: a wider or deeper tank (-width, -depth) raises it"} {
+		if !strings.Contains(s, w) {
+			t.Errorf("report lacks %q", w)
+		}
+	}
+	if n := strings.Count(s, "wider or deeper tank"); n != 1 {
+		t.Errorf("the fix is named %d times, want once", n)
+	}
+	if !strings.Contains(s, "CAUTION: Full-scale resistance") || len(o.Blocked.Points) != 5 || !o.Choked[5] || o.Choked[4] {
+		t.Errorf("the report stopped, or the choked runs are wrong: %v", o.Choked)
+	}
+}
+
+// TestOutRefusedFirst: an -out that does not exist is a usage error
+// naming -out, before the report is printed.
+func TestOutRefusedFirst(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, []string{"-out", "/nonexistent/dir"})
+	var ce *cli.Error
+	if !errors.As(err, &ce) || !strings.Contains(err.Error(), `-out "/nonexistent/dir": the directory does not exist; create it or pass another`) || out.Len() != 0 {
+		t.Errorf("got %v after printing %d bytes", err, out.Len())
+	}
+}
+
+// TestSmallShipFigures: at 1:4 the resistances and powers keep four
+// significant figures, each column in the unit its largest value calls
+// for (R_s in N up to 2336 N, P_E in kW up to 11.21 kW). The top run
+// with the form factor: R = 2336 N (the line below the table) at V_s =
+// 2.40·√4 = 4.80 m/s, so P_E = 2336·4.80 = 11.21 kW; the slowest run's
+// ship speed is 0.50·2 = 1.00 m/s, so its P_E in W equals its R_s in N
+// (57.99 N, 0.05799 kW).
+func TestSmallShipFigures(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, []string{"-plot=false", "-scale", "4", "-sea", "0", "-tank", "35"}); err != nil {
+		t.Fatal(err)
+	}
+	s := out.String()
+	for _, w := range []string{"|     7.608      2336     11.21\n", "|     4.353     57.99   0.05799\n", "R = 2336 N, P_E = 11.21 kW", "R_s N    P_E kW |"} {
+		if !strings.Contains(s, w) {
+			t.Errorf("report lacks %q", w)
+		}
+	}
+	// The ITTC-1978 and speed–power tables: no power rounded to a whole
+	// kilowatt (P_D at 4 kn is about 1.0 kW).
+	if strings.Contains(s, "   1       1 … 1  ") || !strings.Contains(s, "   1.039  1.032 … 1.047") {
+		t.Errorf("speed–power table without significant figures:\n%s", s)
+	}
+	out.Reset()
+	if _, err := evaluate(&out, []string{"-plot=false", "-scale", "50"}); err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(out.String(), "propeller D = 4.219 m,") { // 84.375 mm × 50 = 4.21875 m
+		t.Errorf("propeller diameter not to four figures")
+	}
+}
+
+// TestFiguresInPrefixedUnits: forces and powers carry the SI prefix
+// their size calls for, each table column in one unit named in its
+// header. By hand at 1:100 the top run with the form factor has
+// C_Ts = 6.074×10⁻³ on S_s = 1.62·100² = 16 200 m² at V_s = 2.40·10 =
+// 24 m/s in sea water of 1025.97 kg/m³: R = 6.074e-3·½·1025.97·24²·
+// 16 200 = 2.9075×10⁷ N = 29.08 MN and P_E = R·V = 697.8 MW. At 1:2 the
+// ship's P_D at 3 kn is 124.1 W, its R_TS 40.12 N, in columns of N and W.
+func TestFiguresInPrefixedUnits(t *testing.T) {
+	r := 6.074e-3 * 0.5 * 1025.97 * 24 * 24 * 16200
+	if math.Abs(r/29.08e6-1) > 5e-4 || math.Abs(r*24/697.8e6-1) > 5e-4 {
+		t.Fatalf("by hand R = %v N, P_E = %v W", r, r*24)
+	}
+	for _, c := range []struct {
+		scale string
+		want  []string
+	}{
+		{"100", []string{
+			"at the top speed, with the form factor: R = 29.08 MN, P_E = 697.8 MW\n",
+			"C_Ts×10³    R_s MN    P_E MW |  C_Ts×10³    R_s MN    P_E MW\n",
+			"|     6.074     29.08     697.8\n",
+			"R_s = 29.08 MN, u_c = 0.12 MN",
+			"R_TS MN  P_E MW", "P_D MW\n", "   1052\n",
+			"P_D MW    P_D 95 % MW", "1052    1039 … 1064",
+		}},
+		{"2", []string{
+			"R_TS N  P_E W", "P_D W\n", "5.067   40.12  61.92", "  124.1\n",
+			"P_D W     P_D 95 % W", "124.1  123.2 … 124.9",
+		}},
+	} {
+		var out bytes.Buffer
+		if _, err := evaluate(&out, []string{"-plot=false", "-scale", c.scale}); err != nil {
+			t.Fatal(err)
+		}
+		s := out.String()
+		for _, w := range c.want {
+			if !strings.Contains(s, w) {
+				t.Errorf("-scale %s: report lacks %q", c.scale, w)
+			}
+		}
+		for _, not := range []string{"e+04 kN", "e+05 kW", "0.1241", "29076", "1051866"} {
+			if strings.Contains(s, not) {
+				t.Errorf("-scale %s: report has %q", c.scale, not)
+			}
+		}
+	}
+}
+
+// TestTankTemperatureRemakesReadings: -tank re-makes the invented
+// readings for the tank's water, holding each run's wave part, so the
+// form factors do not drift with the temperature (they moved from 1.028
+// at 1 °C to 1.253 at 35 °C while the readings in N stayed fixed). By
+// hand, the top run (2.40 m/s) recorded 38.10 N at 15 °C (ρ = 999.1026
+// kg/m³, ν = 1.1385e-3/999.1026 m²/s): C_TM = 38.10/(½·999.1026·2.4²·
+// 1.62) = 8.1735×10⁻³, Re = 2.4·2/ν = 4.2123×10⁶, C_F = 0.075/(log₁₀Re
+// − 2)² = 3.5069×10⁻³, C_W = C_TM − 1.13·C_F = 4.2106×10⁻³; at 35 °C in
+// the tank's water the report prints, C_TM = C_W + 1.13·C_F(2.4·2/ν₃₅)
+// and R = C_TM·½ρ₃₅·2.4²·1.62 = 36.433 N.
+func TestTankTemperatureRemakesReadings(t *testing.T) {
+	cf := func(re float64) float64 { return 0.075 / math.Pow(math.Log10(re)-2, 2) }
+	nu15 := 1.1385e-3 / 999.1026
+	ct15 := 38.10 / (0.5 * 999.1026 * 2.4 * 2.4 * 1.62)
+	cw := ct15 - 1.13*cf(4.8/nu15)
+	if math.Abs(ct15-8.1735e-3) > 1e-7 || math.Abs(cf(4.8/nu15)-3.5069e-3) > 1e-7 || math.Abs(cw-4.2106e-3) > 1e-7 {
+		t.Fatalf("by hand C_TM %v, C_F %v, C_W %v", ct15, cf(4.8/nu15), cw)
+	}
+	form := map[string][2]float64{}
+	top := map[string]float64{}
+	for _, tank := range []string{"1", "15", "25", "35"} {
+		var out bytes.Buffer
+		o, err := evaluate(&out, []string{"-plot=false", "-tank", tank})
+		if err != nil {
+			t.Fatal(err)
+		}
+		form[tank] = [2]float64{o.Form.FormFactor, o.DoubleBody.FormFactor}
+		top[tank] = o.WithForm.Points[7].ShipResistance.Value()
+		s := out.String()
+		if tank == "15" {
+			if !slices.Equal(o.Readings.Resistances, resistances) || !slices.Equal(o.Readings.DoubleBody, dbResistances) || !slices.Equal(o.Readings.OpenWater, owRuns) ||
+				!strings.Contains(s, "readings: the invented record, taken in the tank at 15 °C\n") {
+				t.Errorf("at 15 °C the readings are not the record: %v", o.Readings)
+			}
+			continue
+		}
+		if !strings.Contains(s, "readings: re-made for "+tank+" °C from the invented record taken at 15 °C, each resistance run holding its C_W = C_Tm − 1.13·C_Fm") {
+			t.Errorf("-tank %s: the report does not say the readings are re-made", tank)
+		}
+		if tank == "35" {
+			rho, nu := o.Plain.Test.Tank.Density.Value(), o.Plain.Test.Tank.KinematicViscosity.Value()
+			if math.Abs(rho-994.03) > 0.005 || math.Abs(nu/7.2344e-7-1) > 1e-4 {
+				t.Errorf("35 °C water ρ %v ν %v, the report prints 994.03 and 7.2344e-07", rho, nu)
+			}
+			r := (cw + 1.13*cf(4.8/nu)) * 0.5 * rho * 2.4 * 2.4 * 1.62
+			if math.Abs(r-36.433) > 0.0006 || math.Abs(o.Readings.Resistances[7]-r) > 0.0006 || !strings.Contains(s, "  2.40  0.542   36.433 ") {
+				t.Errorf("35 °C top reading %v, by hand %v", o.Readings.Resistances[7], r)
+			}
+		}
+	}
+	for tank, f := range form {
+		if math.Abs(f[0]-form["15"][0]) > 0.003 || math.Abs(f[1]-form["15"][1]) > 0.002 {
+			t.Errorf("-tank %s: 1 + k = %.4f (Prohaska), %.4f (double body); at 15 °C %.4f, %.4f", tank, f[0], f[1], form["15"][0], form["15"][1])
+		}
+	}
+	// The sea stays at 15 °C: the ship with the form factor hardly moves.
+	if math.Abs(top["25"]/top["15"]-1) > 0.002 {
+		t.Errorf("top-speed ship resistance at -tank 25 %v, at 15 %v", top["25"], top["15"])
 	}
 }

@@ -6,6 +6,7 @@ import (
 	"math"
 	"strings"
 
+	"similis.dev/similis/examples/internal/cli"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
 	"similis.dev/similis/similarity/fluids"
@@ -153,21 +154,23 @@ type Powering struct {
 	OWPNG, OWSVG string                // open-water curves
 }
 
-// doubleBody finds the form factor from the double-body test.
-func doubleBody(test ship.HullTest) (ship.DoubleBodyResult, error) {
+// doubleBody finds the form factor from the double-body test's
+// resistances dbR at dbSpeeds.
+func doubleBody(test ship.HullTest, dbR []float64) (ship.DoubleBodyResult, error) {
 	nu, rho := test.Tank.KinematicViscosity.Value(), test.Tank.Density.Value()
 	var re, cv []float64
 	for i, v := range dbSpeeds {
 		re = append(re, v*modelLength/nu)
-		cv = append(cv, dbResistances[i]/(0.5*rho*v*v*2*modelArea))
+		cv = append(cv, dbR[i]/(0.5*rho*v*v*2*modelArea))
 	}
 	return ship.FormFactorDoubleBody(re, cv, ship.LineITTC1957)
 }
 
-// openWaterTest is the invented open-water test in the tank's water.
-func openWaterTest(tank fluids.State) ship.OpenWaterTest {
+// openWaterTest is the invented open-water test in the tank's water,
+// with its runs' readings.
+func openWaterTest(tank fluids.State, runs [][3]float64) ship.OpenWaterTest {
 	t := ship.OpenWaterTest{Diameter: q.New(modelPropD, q.Length), Chord: q.New(modelChord07, q.Length), Water: tank}
-	for _, r := range owRuns {
+	for _, r := range runs {
 		t.Runs = append(t.Runs, ship.OpenWaterRun{Speed: q.New(r[0], q.Velocity), RevsPerSecond: owRevs,
 			Thrust: q.New(r[1], q.Force), Torque: q.New(r[2], q.Torque)})
 	}
@@ -178,7 +181,7 @@ func openWaterTest(tank fluids.State) ship.OpenWaterTest {
 // analyses the self-propulsion test by thrust identity and predicts the
 // ship's speed–power curve by the ITTC-1978 method with the double-body
 // form factor, and plots the coefficients and the open-water curves.
-func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size plotSize, dir string) (*Powering, error) {
+func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, rd readings, size plotSize, dir string) (*Powering, error) {
 	tank := test.Tank
 	nu, rho := tank.KinematicViscosity.Value(), tank.Density.Value()
 	out := &Powering{DoubleBody: db}
@@ -186,7 +189,7 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	var rem, ctm []float64
 	for i, v := range speeds {
 		rem = append(rem, v*modelLength/nu)
-		ctm = append(ctm, resistances[i]/(0.5*rho*v*v*modelArea))
+		ctm = append(ctm, rd.Resistances[i]/(0.5*rho*v*v*modelArea))
 	}
 	if out.Wave, err = ship.WaveResistance(rem, ctm, db.FormFactor, ship.LineITTC1957); err != nil {
 		return nil, err
@@ -200,7 +203,7 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	transverseArea := transverseArea16 * math.Pow(1/(16*scale), 2)
 
 	// 1. Open-water test.
-	owt := openWaterTest(tank)
+	owt := openWaterTest(tank, rd.OpenWater)
 	if out.OpenWater, err = ship.ReduceOpenWater(owt); err != nil {
 		return nil, err
 	}
@@ -213,7 +216,7 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 		f, _ := ow.At(p.J)
 		e, _ := ow.Eta0(p.J)
 		var run [3]float64
-		for _, r := range owRuns {
+		for _, r := range rd.OpenWater {
 			if math.Abs(r[0]/(owRevs*dm)-p.J) < 1e-12 {
 				run = r
 			}
@@ -229,12 +232,8 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 		if err != nil {
 			return nil, err
 		}
-		var terms []string
-		for i := range a {
-			terms = append(terms, fmt.Sprintf("(%+.5f ± %.5f)·J^%d", c.k*a[i], c.k*se[i], i))
-		}
-		fmt.Fprintf(w, "faired %s = %s; order %d (%s), S = %.2g, %d runs (± standard errors)\n", c.name, strings.Join(terms, " "), c.f.Order,
-			strings.Join(c.f.Notes, "; "), c.k*c.f.S, c.f.N)
+		fmt.Fprintf(w, "faired %s = %s; order %d (%s), S = %s, %d runs (± standard errors)\n", c.name, polyText(a, se, c.k), c.f.Order,
+			strings.Join(c.f.Notes, "; "), cli.Sig(c.k*c.f.S, 2), c.f.N)
 	}
 	jop := 0.6
 	kt06, _ := ow.KT.Predict(jop)
@@ -256,8 +255,8 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 		return nil, err
 	}
 	rf := out.Resistance
-	fmt.Fprintf(w, "\nResistance test faired: C_TM against V_M by a polynomial of order %d (%s), S = %.2g×10⁻³ on C_TM\n",
-		rf.CT.Order, strings.Join(rf.CT.Notes, "; "), 1e3*rf.CT.S)
+	fmt.Fprintf(w, "\nResistance test faired: C_TM against V_M by a polynomial of order %d (%s), S = %s×10⁻³ on C_TM\n",
+		rf.CT.Order, strings.Join(rf.CT.Notes, "; "), cli.Sig(1e3*rf.CT.S, 2))
 	if rf.Warning != "" {
 		fmt.Fprintf(w, "WARNING (resistance): %s\n", rf.Warning)
 	}
@@ -310,7 +309,7 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 		name string
 		f    *fit.Poly
 	}{{"w_TM", sp.Wake}, {"t", sp.Thrust}, {"η_R", sp.EtaR}} {
-		fmt.Fprintf(w, "%s faired against V_M: order %d (%s), S = %.2g\n", c.name, c.f.Order, strings.Join(c.f.Notes, "; "), c.f.S)
+		fmt.Fprintf(w, "%s faired against V_M: order %d (%s), S = %s\n", c.name, c.f.Order, strings.Join(c.f.Notes, "; "), cli.Sig(c.f.S, 2))
 	}
 
 	// 4. Speed–power curve.
@@ -324,15 +323,19 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	fmt.Fprintf(w, "with the ITTC-1978 allowances ΔC_F and C_A below; the ITTC-1957 tables above use Prohaska's 1 + k = %.3f and the -ca allowance,\n", test.FormFactor)
 	fmt.Fprintf(w, "which lumps roughness and correlation for that method only; the two form factors' difference is a source in the budget above\n")
 	fmt.Fprintf(w, "C_TS = (1 + k)·C_FS + ΔC_F + C_A + C_R + C_AAS on S_ship = %.4g m²: roughness allowance ΔC_F from k_S = 150 µm; the basin has no\n", test.ModelWettedArea.Value()/(test.Scale*test.Scale))
-	fmt.Fprintf(w, "ITTC-1978 correlation allowance of its own, so C_A is the procedure's formula (5.68 − 0.6·log₁₀Re_S)·10⁻³ (%.3f×10⁻³ at the top speed);\n",
-		top.CorrelationAllowance*1e3)
+	caNote := ""
+	if top.CorrelationAllowance < 0 {
+		caNote = ", negative: the formula used beyond its range, see the WARNING below the table"
+	}
+	fmt.Fprintf(w, "ITTC-1978 correlation allowance of its own, so C_A is the procedure's formula (5.68 − 0.6·log₁₀Re_S)·10⁻³ (%.3f×10⁻³ at the top speed%s);\n",
+		top.CorrelationAllowance*1e3, caNote)
 	fmt.Fprintf(w, "air C_AAS = %.3f×10⁻³ (A_VS = %.3g m², C_DA = 0.8);\n", top.AirResistance*1e3, transverseArea)
 	fmt.Fprintf(w, "wake: one propeller behind each demihull on an open shaft with a strut, so the procedure's twin-screw rule is applied, w_TS = w_TM\n")
 	fmt.Fprintf(w, "(ITTC 7.5-02-03-01.4, the wake not scaled; from memory): the screw works clear of the thick stern boundary layer that the\n")
 	fmt.Fprintf(w, "single-screw scaling corrects for (the basin may choose otherwise for a catamaran); each propeller carries half the thrust\n")
 	fmt.Fprintf(w, "in K_T/J²; n is each propeller's rate, P_D the sum over both shafts;\n")
-	fmt.Fprintf(w, "propeller D = %g m, Z = %d, P/D = %g, model Re_co = %.3g (0.75R, the open-water test at J = %.1f); C_DM = %.5f, C_DS = %.5f, scale correction ΔK_T = %.4f, ΔK_Q = %.5f\n",
-		propeller.Diameter.Value(), propeller.Blades, propeller.PitchRatio, prop.ModelReynolds, jop, top.ModelBladeDrag, top.ShipBladeDrag, top.DeltaKT, top.DeltaKQ)
+	fmt.Fprintf(w, "propeller D = %s m, Z = %d, P/D = %g, model Re_co = %.3g (0.75R, the open-water test at J = %.1f); C_DM = %.5f, C_DS = %.5f, scale correction ΔK_T = %.4f, ΔK_Q = %.5f\n",
+		cli.Sig(propeller.Diameter.Value(), 4), propeller.Blades, propeller.PitchRatio, prop.ModelReynolds, jop, top.ModelBladeDrag, top.ShipBladeDrag, top.DeltaKT, top.DeltaKQ)
 	printOnce(w, seen, ship.PoweringTable(out.Points, false))
 	fmt.Fprintln(w)
 	printOnce(w, seen, sp.Table(false))
@@ -348,6 +351,46 @@ func powering(w io.Writer, test ship.HullTest, db ship.DoubleBodyResult, size pl
 	}
 	fmt.Fprintf(w, "plots: %s, %s, %s, %s (%g × %g in, PNG at %d dpi)\n", out.PNG, out.SVG, out.OWPNG, out.OWSVG, size.W, size.H, size.DPI)
 	return out, nil
+}
+
+// polyText writes the polynomial with coefficients k·a[i] and standard
+// errors k·se[i] as a sum the way it is read: the constant first, each
+// term with its sign as the operator, J and its powers as superscripts,
+// every standard error in parentheses after its coefficient, all to five
+// decimals: 0.40041(±0.00100) − 0.28161(±0.00416)·J − 0.09872(±0.00368)·J².
+func polyText(a, se []float64, k float64) string {
+	var sb strings.Builder
+	for i := range a {
+		c := k * a[i]
+		switch {
+		case i == 0 && c < 0:
+			sb.WriteString("−")
+		case i > 0 && c < 0:
+			sb.WriteString(" − ")
+		case i > 0:
+			sb.WriteString(" + ")
+		}
+		fmt.Fprintf(&sb, "%.5f(±%.5f)", math.Abs(c), k*se[i])
+		switch i {
+		case 0:
+		case 1:
+			sb.WriteString("·J")
+		default:
+			sb.WriteString("·J" + superscript(i))
+		}
+	}
+	return sb.String()
+}
+
+// superscript writes the whole number n ≥ 0 in superscript digits.
+func superscript(n int) string {
+	const digits = "⁰¹²³⁴⁵⁶⁷⁸⁹"
+	r := []rune(digits)
+	var out []rune
+	for _, d := range fmt.Sprint(n) {
+		out = append(out, r[d-'0'])
+	}
+	return string(out)
 }
 
 // plotSize is the plot's size in inches and the PNG's resolution; Skip

@@ -7,16 +7,20 @@ package main
 // plots.
 
 import (
+	"cmp"
 	"fmt"
 	"io"
 	"math"
 	"path/filepath"
+	"slices"
+	"strconv"
 	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 
+	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/examples/internal/plotstyle"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/tunnel"
@@ -125,7 +129,7 @@ func reduceRun(w io.Writer, dir string, alo, ahi, width, height, dpi float64) (*
 	for _, c := range comps {
 		measured = append(measured, c.Component)
 	}
-	fmt.Fprintln(w, "\nBalance reduction of a polar run on the 1:12 model (the readings, the balance and its calibration are invented):")
+	fmt.Fprintln(w, "\nBalance reduction of a polar run on the 1:12 model of the 2.4 m-chord design, whatever -chord and -scale say (the readings, the balance and its calibration are invented):")
 	fmt.Fprintf(w, "  balance: %v\n", cal)
 	fmt.Fprintln(w, "  the calibration gives readings from loads with first- and second-order terms; the loads are recovered by iteration")
 	fmt.Fprintln(w, "  body axes: x forward, y to starboard, z down; NF positive up, AF positive aft, PM positive nose up; readings from the unloaded zero")
@@ -160,6 +164,11 @@ func reduceRun(w io.Writer, dir string, alo, ahi, width, height, dpi float64) (*
 		run.Points, run.MaxShare = nil, 0
 		if run.Polar, err = reducePoints(&table, run, cal, comps, slope, alo, ahi); err != nil {
 			return nil, err
+		}
+		// A range whose fitted slope is not positive lies past the stall:
+		// no linear range, and no slope the curvature correction can use.
+		if a := run.Polar.LiftSlopePerDeg.Value; !(a > 0) {
+			return nil, pastStall(run.Points, alo, ahi, a)
 		}
 		if pass == 0 {
 			slope = run.Polar.LiftSlopePerDeg.Value
@@ -207,7 +216,7 @@ func reducePoints(w io.Writer, run *Run, cal *tunnel.Calibration, comps []tunnel
 	for _, r := range windOn {
 		p, err := red.Reduce(tunnel.Point{Readings: r.r[:], Attitude: tunnel.Attitude{PitchDeg: r.pitch}, DynamicPressure: q.New(runQ, q.Pressure), Mach: runMach})
 		if err != nil {
-			return tunnel.Polar{}, fmt.Errorf("point at %g°: %w", r.pitch, err)
+			return tunnel.Polar{}, &pointError{pitch: r.pitch, err: err}
 		}
 		run.Points = append(run.Points, p)
 		for _, c := range comps {
@@ -225,7 +234,151 @@ func reducePoints(w io.Writer, run *Run, cal *tunnel.Calibration, comps []tunnel
 	fmt.Fprintln(w, "  (NF, AF, PM: balance loads at its centre, weight included; α from the pitch, β = 0; C_m about the quarter chord)")
 	fmt.Fprintf(w, "  largest load of the run: %v at %.0f %% of its calibrated range — the balance's rated loads and the facility's rules govern every run\n",
 		run.MaxComponent, 100*run.MaxShare)
+	if err := rangeHolds(al, alo, ahi); err != nil {
+		return tunnel.Polar{}, err
+	}
 	return tunnel.FitPolar(al, cl, cd, alo, ahi, 0.95)
+}
+
+// rangeHolds returns a usage error naming -amin and -amax unless at
+// least three corrected angles lie in alo … ahi (the polar's fit needs
+// three), with the bounds that would take in three: -amax raised to the
+// third angle from -amin up, or -amin lowered to the third from -amax
+// down, rounded outward to the table's three decimals.
+func rangeHolds(alpha []float64, alo, ahi float64) error {
+	var in []string
+	var above, below []float64
+	for _, a := range alpha {
+		switch {
+		case a >= alo && a <= ahi:
+			in = append(in, fmt.Sprintf("%.3f°", a))
+		case a > ahi:
+			above = append(above, a)
+		default:
+			below = append(below, a)
+		}
+	}
+	if len(in) >= 3 {
+		return nil
+	}
+	slices.Sort(above)
+	slices.Sort(below)
+	need := 3 - len(in)
+	var fixes []string
+	if len(above) >= need {
+		fixes = append(fixes, fmt.Sprintf("raise -amax to at least %.3f", math.Ceil(above[need-1]*1000)/1000))
+	}
+	if len(below) >= need {
+		fixes = append(fixes, fmt.Sprintf("lower -amin to at most %.3f", math.Floor(below[len(below)-need]*1000)/1000))
+	}
+	if len(fixes) == 0 {
+		fixes = append(fixes, "widen the range")
+	}
+	got := "none lies in it"
+	if len(in) > 0 {
+		got = fmt.Sprintf("%d lie in it (%s)", len(in), strings.Join(in, ", "))
+	}
+	sorted := slices.Sorted(slices.Values(alpha))
+	return &cli.Error{Msg: fmt.Sprintf("-amin %g -amax %g: the polar fit needs at least 3 corrected angles in the linear range, and %s: %s "+
+		"(the run's corrected α run from %.3f° to %.3f°)", alo, ahi, got, strings.Join(fixes, ", or "), sorted[0], sorted[len(sorted)-1])}
+}
+
+// pointError is a wind-on point the reduction refused: the point's
+// pitch and the library's error, printed without the package's name
+// (the command's name already stands before it).
+type pointError struct {
+	pitch float64
+	err   error
+}
+
+func (e *pointError) Error() string { return fmt.Sprintf("point at %g°: %s", e.pitch, libText(e.err)) }
+func (e *pointError) Unwrap() error { return e.err }
+
+// pastStall returns the usage error of an -amin … -amax range whose
+// fitted lift slope a is not positive: the range lies past the stall. It
+// names a range that is linear by the run's own points: the longest run
+// of neighbouring corrected points (in α order) between which the slope
+// ΔC_L/Δα stays at or above ¾ of the median of all neighbour slopes,
+// its ends rounded outward to whole degrees unless that would take in
+// the next point.
+func pastStall(pts []tunnel.Reduced, alo, ahi, a float64) error {
+	msg := fmt.Sprintf("-amin %g -amax %g is past stall (fitted lift slope %s per degree, not positive)", alo, ahi, cli.Sig(a, 3))
+	if lo, hi, med, ok := linearRange(pts); ok {
+		msg += fmt.Sprintf("; choose the linear range, e.g. -amin %s -amax %s (corrected α %.3f° … %.3f°, where the slope between neighbouring points stays ≥ ¾ of its median, %s/°)",
+			lo.flag, hi.flag, lo.alpha, hi.alpha, cli.Sig(med, 3))
+	} else {
+		msg += "; the run has no 3 neighbouring points whose lift rises steadily: check the readings"
+	}
+	return &cli.Error{Msg: msg}
+}
+
+// rangeEnd is one end of a suggested linear range: the corrected α of
+// its last point and the flag value that takes it in.
+type rangeEnd struct {
+	alpha float64
+	flag  string
+}
+
+// linearRange finds the linear stretch of the run's corrected lift curve
+// (see pastStall): its two ends and the median neighbour slope (per
+// degree), ok false when no stretch of at least 3 points has a positive
+// median slope.
+func linearRange(pts []tunnel.Reduced) (lo, hi rangeEnd, median float64, ok bool) {
+	type pt struct{ a, cl float64 }
+	var p []pt
+	for _, r := range pts {
+		p = append(p, pt{r.Corrected.AlphaDeg, r.Corrected.CL})
+	}
+	slices.SortFunc(p, func(x, y pt) int { return cmp.Compare(x.a, y.a) })
+	var s []float64
+	for i := 1; i < len(p); i++ {
+		if d := p[i].a - p[i-1].a; d > 0 {
+			s = append(s, (p[i].cl-p[i-1].cl)/d)
+		} else {
+			s = append(s, math.NaN()) // two points at one angle: no slope
+		}
+	}
+	sorted := slices.Sorted(slices.Values(slices.DeleteFunc(slices.Clone(s), math.IsNaN)))
+	if len(sorted) < 2 {
+		return lo, hi, 0, false
+	}
+	n := len(sorted)
+	median = 0.5 * (sorted[(n-1)/2] + sorted[n/2])
+	if !(median > 0) {
+		return lo, hi, median, false
+	}
+	// The longest run of segments i … j-1 with every slope ≥ ¾·median;
+	// segment i joins points i and i+1.
+	bi, bj := 0, 0
+	for i := 0; i < len(s); {
+		if !(s[i] >= 0.75*median) {
+			i++
+			continue
+		}
+		j := i
+		for j < len(s) && s[j] >= 0.75*median {
+			j++
+		}
+		if j-i > bj-bi {
+			bi, bj = i, j
+		}
+		i = j
+	}
+	if bj-bi < 2 { // fewer than 3 points
+		return lo, hi, median, false
+	}
+	first, last := bi, bj // point indices
+	lo.alpha, hi.alpha = p[first].a, p[last].a
+	lf := math.Floor(lo.alpha)
+	if first > 0 && lf <= p[first-1].a || lf < -30 {
+		lf = math.Floor(lo.alpha*1000) / 1000
+	}
+	hf := math.Ceil(hi.alpha)
+	if last < len(p)-1 && hf >= p[last+1].a || hf > 30 {
+		hf = math.Ceil(hi.alpha*1000) / 1000
+	}
+	lo.flag, hi.flag = strconv.FormatFloat(lf, 'f', -1, 64), strconv.FormatFloat(hf, 'f', -1, 64)
+	return lo, hi, median, true
 }
 
 // plotPolar writes the lift curve and the drag polar as PNG and SVG.

@@ -2,13 +2,18 @@ package main
 
 import (
 	"bytes"
+	"errors"
 	"image/png"
+	"io"
 	"math"
 	"os"
+	"regexp"
+	"strconv"
 	"strings"
 	"testing"
 
 	"similis.dev/similis/examples/internal/cli"
+	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/tunnel"
 )
 
@@ -195,5 +200,71 @@ func TestPlotsWritten(t *testing.T) {
 	}
 	if err := run(&bytes.Buffer{}, outDir(t, "-amin", "12", "-amax", "4")); err == nil || cli.ExitCode(&bytes.Buffer{}, "tunnel", err) != 2 {
 		t.Errorf("-amin above -amax: %v", err)
+	}
+}
+
+// TestPastStallRange: -amin 12 -amax 30 takes in only the corrected
+// points past the stall (from the default table: α 12.733°, 14.759°,
+// 16.725° with C_L 1.0751, 1.1133, 1.0633). By hand, their least-squares
+// slope is Σ(α − ᾱ)(C_L − C̄_L)/Σ(α − ᾱ)² with ᾱ = 14.739, C̄_L = 1.0839:
+// −0.022671/7.9686 = −0.00285 per degree (table rounding: ±0.00005), not
+// positive. The slopes between neighbouring points of the table are
+// 0.0789, 0.0815, 0.0810, 0.0792, 0.0800, 0.0813, 0.0797, 0.0435,
+// 0.0189, −0.0254 per degree, median (0.0792 + 0.0797)/2 = 0.0795; ¾ of
+// it is 0.0596, which every slope up to α = 10.671° passes and the one
+// to 12.733° (0.0435) fails: the linear points run from −4.138° to
+// 10.671°, whole degrees outward −5 … 11 (11 < 12.733). The range is a
+// usage error (exit 2) naming the flags, the slope and that range, in
+// full (not cut), without a doubled "tunnel:" or a point's name.
+func TestPastStallRange(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, outDir(t, "-amin", "12", "-amax", "30"))
+	var stderr bytes.Buffer
+	if code := cli.ExitCode(&stderr, "tunnel", err); code != 2 {
+		t.Fatalf("exit %d, want 2: %v", code, err)
+	}
+	if out.Len() != 0 {
+		t.Errorf("the report was printed before the refusal:\n%s", out.String())
+	}
+	msg := stderr.String()
+	for _, want := range []string{"-amin 12 -amax 30 is past stall", "choose the linear range, e.g. -amin -5 -amax 11", "-4.138° … 10.671°", "0.0795/°"} {
+		if !strings.Contains(msg, want) {
+			t.Errorf("message lacks %q:\n%s", want, msg)
+		}
+	}
+	for _, bad := range []string{"tunnel: tunnel", "point at", "bytes)", "0028332"} {
+		if strings.Contains(msg, bad) {
+			t.Errorf("message has %q:\n%s", bad, msg)
+		}
+	}
+	m := regexp.MustCompile(`fitted lift slope (\S+) per degree`).FindStringSubmatch(msg)
+	if m == nil {
+		t.Fatalf("no slope in %q", msg)
+	}
+	a, perr := strconv.ParseFloat(m[1], 64)
+	if perr != nil || math.Abs(a-(-0.022671/7.9686)) > 5e-5 {
+		t.Errorf("slope %q, by hand -0.00285", m[1])
+	}
+	// The suggested range runs.
+	if err := run(io.Discard, outDir(t, "-amin", "-5", "-amax", "11")); err != nil {
+		t.Errorf("the suggested range: %v", err)
+	}
+}
+
+// TestPointErrorPrefix: a point the reduction refuses is named with the
+// library's reason once, after the command's name only: no
+// "tunnel: point at 4°: tunnel: …".
+func TestPointErrorPrefix(t *testing.T) {
+	_, lerr := tunnel.CorrectWalls3D(tunnel.Model3D{WingArea: q.New(0.26, q.Area), TunnelArea: q.New(3, q.Area),
+		ModelVolume: q.New(0.01, q.Volume), Mach: 0.95})
+	err := &pointError{pitch: 4, err: lerr}
+	var stderr bytes.Buffer
+	cli.ExitCode(&stderr, "tunnel", err)
+	if got := stderr.String(); !strings.HasPrefix(got, "tunnel: point at 4°: 3-D wall correction: ") || strings.Count(got, "tunnel:") != 1 {
+		t.Errorf("printed %q", got)
+	}
+	var te *tunnel.Error
+	if !errors.As(err, &te) {
+		t.Error("the library's error is not kept")
 	}
 }

@@ -6,11 +6,13 @@ import (
 	"flag"
 	"io"
 	"math"
+	"regexp"
 	"strings"
 	"testing"
 
 	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/similarity/tunnel"
 )
 
 // outDir returns the arguments with -out set to a fresh temporary
@@ -317,7 +319,7 @@ func TestPressuresSayAbsolute(t *testing.T) {
 	if all == 0 || all != abs {
 		t.Errorf("%d pressures in bar, %d of them marked absolute:\n%s", all, abs, s)
 	}
-	for _, want := range []string{"≤ 4 bar absolute", "1–4.5 bar absolute", "p₀ = 1.496 bar (absolute)", "p₀ = 101325 Pa (absolute)"} {
+	for _, want := range []string{"0.2–4 bar absolute", "1–4.5 bar absolute", "p₀ = 1.496 bar (absolute)", "p₀ = 101325 Pa (absolute)"} {
 		if !strings.Contains(s, want) {
 			t.Errorf("output lacks %q", want)
 		}
@@ -343,5 +345,225 @@ func TestUsageHeader(t *testing.T) {
 	var out bytes.Buffer
 	if err := run(&out, []string{"-h"}); !errors.Is(err, flag.ErrHelp) || !strings.HasPrefix(out.String(), "Usage: tunnel [flags]\n") {
 		t.Errorf("-h: %v\n%s", err, out.String())
+	}
+}
+
+// safety returns the SAFETY block of a report.
+func safety(t *testing.T, report string) string {
+	t.Helper()
+	_, s, ok := strings.Cut(report, "\nSAFETY")
+	if !ok {
+		t.Fatalf("no SAFETY block in %q", report)
+	}
+	return s
+}
+
+// TestOrdinaryOverloadInSafety: an overloaded ordinary tunnel gets its
+// own OVERLOAD line in the SAFETY block. At sea level, Ma 0.3, 1:4: the
+// static p = 95192 Pa (101325 Pa through the isentropic ratio
+// (1 + 0.2·0.09)^-3.5), q = 0.7·95192·0.09 = 5997 Pa, S_m = 38/16 =
+// 2.375 m², lift = 0.6·5997·2.375 = 8546 N, 114 % over the 4000 N.
+func TestOrdinaryOverloadInSafety(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, outDir(t, "-alt", "0", "-mach", "0.3", "-scale", "4")); err != nil {
+		t.Fatal(err)
+	}
+	s := safety(t, out.String())
+	_, ord, ok := strings.Cut(s, "  ordinary tunnel (atmospheric intake")
+	ord, _, _ = strings.Cut(ord, "  pressurised tunnel")
+	want := "    - OVERLOAD: the load C·S·q = 8546 N at q = 5.997 kPa exceeds the rated 4000 N of the balance, sting or model by 114 %"
+	if !ok || !strings.Contains(ord, want) || !strings.Contains(ord, "smaller model (a larger -scale)") {
+		t.Errorf("ordinary tunnel in SAFETY: %q, want %q", ord, want)
+	}
+}
+
+// TestCryogenicOverloadAdvice: at Ma 0.85 the cryogenic tunnel is at its
+// minimum total pressure (1 bar), so the advice must not be to lower it.
+func TestCryogenicOverloadAdvice(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, outDir(t, "-mach", "0.85")); err != nil {
+		t.Fatal(err)
+	}
+	_, cryo, _ := strings.Cut(safety(t, out.String()), "  cryogenic tunnel")
+	if !strings.Contains(cryo, "OVERLOAD") || !strings.Contains(cryo, "at its minimum total pressure already") ||
+		strings.Contains(cryo, "lower the total pressure") || strings.Contains(cryo, "e+0") {
+		t.Errorf("cryogenic overload: %q", cryo)
+	}
+}
+
+// TestLinearRangeTooNarrow: -amin 12 -amax 16 takes in 2 corrected angles
+// (12.733°, 14.759°); the next are 16.725° above and 10.671° below. It is
+// a usage error naming both flags and the bounds that would do, printed
+// before any report, with the command's name once.
+func TestLinearRangeTooNarrow(t *testing.T) {
+	var out bytes.Buffer
+	err := run(&out, outDir(t, "-amin", "12", "-amax", "16"))
+	var ce *cli.Error
+	if !errors.As(err, &ce) {
+		t.Fatalf("got %v, want a usage error", err)
+	}
+	for _, w := range []string{"-amin 12 -amax 16", "2 lie in it (12.733°, 14.759°)", "raise -amax to at least 16.725", "lower -amin to at most 10.671"} {
+		if !strings.Contains(err.Error(), w) {
+			t.Errorf("%q lacks %q", err, w)
+		}
+	}
+	if out.Len() != 0 {
+		t.Errorf("printed before the usage error: %q", out.String())
+	}
+	var stderr strings.Builder
+	if code := cli.ExitCode(&stderr, "tunnel", err); code != 2 || strings.Contains(stderr.String(), "tunnel: tunnel:") {
+		t.Errorf("exit %d, %q", code, stderr.String())
+	}
+}
+
+// TestSmallModelFigures: at 32 km, Ma 0.1, 1:200 the loads are printed
+// with significant figures in one unit: static p = 100619 Pa, q =
+// 0.7·100619·0.01 = 704.3 Pa, S_m = 38/200² = 0.00095 m², lift =
+// 0.6·704.3·0.00095 = 0.4015 N, 0.010 % of 4000 N.
+func TestSmallModelFigures(t *testing.T) {
+	var out bytes.Buffer
+	if _, err := evaluate(&out, outDir(t, "-alt", "32000", "-mach", "0.1", "-scale", "200")); err != nil {
+		t.Fatal(err)
+	}
+	s := out.String()
+	for _, w := range []string{"0.0009500 m² model",
+		"ordinary tunnel:     q = 0.7043 kPa, lift = 0.4015 N — 0.010 % of the balance's rating",
+		"- load: C·S·q = 0.4015 N at q = 0.7043 kPa is 0.010 % of the rated 4000 N"} {
+		if !strings.Contains(s, w) {
+			t.Errorf("report lacks %q", w)
+		}
+	}
+	if strings.Contains(safety(t, s), " Pa ") || strings.Contains(s, "0.00 kN") || strings.Contains(s, "applied: tunnel: ") {
+		t.Errorf("a pressure in Pa in SAFETY, a load printed as 0.00 kN or a package prefix in the report")
+	}
+}
+
+// TestMachAboveWallRange: at -mach 0.95 both wall corrections are
+// refused for the Mach number (above 0.8), the 3-D one too, although
+// the lift slope it would take, the run's 0.0803/° raised by
+// √(1 − 0.2²)/√(1 − 0.95²) = 0.97980/0.31225, is 0.252/°, above the
+// 0.2/° the curvature correction takes (by hand): the Mach number is the
+// reason, not the slope.
+func TestMachAboveWallRange(t *testing.T) {
+	var out bytes.Buffer
+	r, err := evaluate(&out, outDir(t, "-mach", "0.95"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if a := 0.0803 * math.Sqrt(1-0.04) / math.Sqrt(1-0.95*0.95); math.Abs(r.ModelSlope-a) > 5e-4 || !(a > 0.2) {
+		t.Errorf("model slope %v, by hand %v", r.ModelSlope, a)
+	}
+	const want = "  not applied: 3-D wall correction: test-section Mach number 0.95 outside 0 … 0.8: "
+	if !strings.Contains(out.String(), want) || strings.Contains(out.String(), "lift slope 0.25") {
+		t.Errorf("output lacks %q:\n%s", want, out.String())
+	}
+	var te *tunnel.Error
+	if !errors.As(r.ModelErr, &te) || te.Input != "test-section Mach number" {
+		t.Errorf("ModelErr = %v", r.ModelErr)
+	}
+}
+
+// TestChordSizesAircraft: -chord 20 sizes the whole aircraft at the
+// design's aspect ratio. By hand: the wing area scales with the square
+// of the chord, S = 38·(20/2.4)² = 38·69.444 = 2638.9 m², the span with
+// the chord, b = 18.6·20/2.4 = 155.0 m, so b²/S = 24025/2638.9 = 9.104 =
+// 18.6²/38, unchanged; the 1:12 model's wing is 2638.9/144 = 18.33 m²,
+// S/C = 18.33/3 = 6.11, which the complete model's correction refuses
+// (above 0.2), and its lift C_L·q·S_m = 0.6·q·18.33 m².
+func TestChordSizesAircraft(t *testing.T) {
+	var out bytes.Buffer
+	r, err := evaluate(&out, outDir(t, "-chord", "20"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(r.WingArea-2638.9) > 0.05 || math.Abs(r.Span-155.0) > 1e-9 || math.Abs(r.Span*r.Span/r.WingArea-18.6*18.6/38) > 1e-9 {
+		t.Errorf("S = %v m², b = %v m", r.WingArea, r.Span)
+	}
+	if math.Abs(r.ModelArea-2638.9/144) > 1e-3 {
+		t.Errorf("model wing %v m², by hand 18.33", r.ModelArea)
+	}
+	if o := r.Loads[0]; math.Abs(o.Lift/(0.6*o.Q*18.326)-1) > 1e-4 {
+		t.Errorf("ordinary-tunnel lift %v N at q = %v Pa, by hand 0.6·q·18.326 m²", o.Lift, o.Q)
+	}
+	for _, want := range []string{"fixed aspect ratio b²/S = 9.10: wing area S = 2639 m², span b = 155.0 m",
+		"wing 2639 m² full scale, 18.33 m² model", "not applied: 3-D wall correction: S/C = 6.11"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q", want)
+		}
+	}
+	var h bytes.Buffer
+	_ = run(&h, []string{"-h"})
+	if !strings.Contains(h.String(), "-chord sizes the whole aircraft") || !strings.Contains(h.String(), "aspect ratio") {
+		t.Errorf("-h does not say what -chord changes:\n%s", h.String())
+	}
+}
+
+// TestSmallCorrectionsHaveFigures: at -scale 200 the complete model's
+// corrections are small but not zero and print with significant figures.
+// By hand (β = √(1 − 0.62²) = 0.78460, β² = 0.61560, β³ = 0.48300; the
+// model's volume 0.010·(12/200)³ = 2.16e-6 m³ and wing 38/200² =
+// 0.00095 m²; C = 3 m², C^1.5 = 5.1962):
+// ε_sb = 0.86·2.16e-6/5.1962/0.48300 = 7.40e-7 and
+// ε_wb = (0.00095/12)·0.035·(1 + 0.4·0.3844)/0.61560 = 5.19e-6.
+func TestSmallCorrectionsHaveFigures(t *testing.T) {
+	var out bytes.Buffer
+	r, err := evaluate(&out, outDir(t, "-scale", "200"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	b := math.Sqrt(1 - 0.62*0.62)
+	esb, ewb := 0.86*2.16e-6/math.Pow(3, 1.5)/(b*b*b), 0.00095/12*0.035*(1+0.4*0.62*0.62)/(b*b)
+	if math.Abs(r.Model.SolidBlock/esb-1) > 1e-9 || math.Abs(r.Model.WakeBlock/ewb-1) > 1e-9 {
+		t.Errorf("ε_sb = %v, ε_wb = %v; by hand %v, %v", r.Model.SolidBlock, r.Model.WakeBlock, esb, ewb)
+	}
+	s := out.String()
+	if want := "ε_sb = 7.40e-07, ε_wb = 5.19e-06"; !strings.Contains(s, want) {
+		t.Errorf("output lacks %q", want)
+	}
+	i, j := strings.Index(s, "Complete model"), strings.Index(s, "Balance reduction")
+	if i < 0 || j < i {
+		t.Fatal("no complete-model section")
+	}
+	if m := regexp.MustCompile(`= -?0\.0+[;,) °]`).FindString(s[i:j]); m != "" {
+		t.Errorf("a correction rounds to nothing: %q", m)
+	}
+}
+
+// TestReviewCommandsNumbers: under the commands a reader tries, no
+// number prints with more than 7 decimals (no 17-digit floats), the
+// pressure notes are in the bar of their lines, and each tunnel's header
+// states the limits the finder used (the pressurised tunnel's 0.2 bar
+// minimum included; at -alt 32000 it runs at that minimum).
+func TestReviewCommandsNumbers(t *testing.T) {
+	long := regexp.MustCompile(`[0-9]\.[0-9]{8,}`)
+	for _, args := range [][]string{nil, {"-mach", "0.95"}, {"-chord", "20"}, {"-scale", "200"}, {"-alt", "0"}, {"-alt", "32000"}, {"-amin", "12", "-amax", "30"}} {
+		var out bytes.Buffer
+		err := run(&out, outDir(t, args...))
+		var stderr bytes.Buffer
+		cli.ExitCode(&stderr, "tunnel", err)
+		s := out.String() + stderr.String()
+		if m := long.FindString(s); m != "" {
+			t.Errorf("%v: long number %q", args, m)
+		}
+		if strings.Contains(s, "e+05 Pa") || strings.Contains(s, "e+06 Pa") {
+			t.Errorf("%v: a pressure in Pa with an exponent", args)
+		}
+	}
+	var out bytes.Buffer
+	if err := run(&out, outDir(t, "-alt", "0")); err != nil {
+		t.Fatal(err)
+	}
+	// By hand (see TestFinderNoteInBar in the tunnel package): p₀ = 1.3804e6 Pa = 13.8 bar.
+	if !strings.Contains(out.String(), "needs a total pressure of 13.8 bar (absolute)") {
+		t.Error("-alt 0: the pressure note is not 13.8 bar")
+	}
+	out.Reset()
+	if err := run(&out, outDir(t, "-alt", "32000")); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"pressurised tunnel (total 280–320 K, 0.2–4 bar absolute)", "p₀ = 0.200 bar (absolute)", "cryogenic tunnel (total 110–320 K, 1–4.5 bar absolute)"} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("-alt 32000: output lacks %q", want)
+		}
 	}
 }

@@ -42,21 +42,21 @@
 // m/Pa).
 //
 // Dimensions are checked exactly as for Quantity: adding a pressure to a
-// velocity panics with a *quantity.DimensionError, and Eval turns the
-// panic into an error. A value depends on at most MaxTerms sources; an
-// operation that would exceed it panics with an *Error whose Terms is
-// set, which Eval also returns. An operation whose result, or whose derivative with
-// respect to an uncertain operand, is not a finite number — 1/0, the
-// logarithm of 0, √0 with an uncertainty, an overflow — panics with an
-// *Error of class quantity.ErrRange, which Eval returns too; no NaN or
-// infinite value comes out of Eval, Budget or MonteCarlo with a nil
-// error. Every error of the package matches exactly one of the module's
-// classes under errors.Is (quantity.ErrDimension, ErrRange or
-// ErrInvalid), with its cause kept for errors.As. Operations do not
-// allocate. A Measured is a value of
-// about 200 bytes; in a loop over many rows the in-place forms
-// (z.SetMul(x, y), z.SetAdd(x, y), …) write into a destination through
-// pointers and copy nothing, with results identical to the value forms.
+// velocity panics with a *quantity.Error of class quantity.ErrDimension,
+// and Eval turns the panic into an error. A value depends on at most
+// MaxTerms sources; an operation that would exceed it panics with an
+// *Error whose Terms is set, which Eval also returns. An operation whose
+// result, or whose derivative with respect to an uncertain operand, is not
+// a finite number — 1/0, the logarithm of 0, √0 with an uncertainty, an
+// overflow — panics with an *Error of class quantity.ErrRange, which Eval
+// returns too; no NaN or infinite value comes out of Eval, Budget or
+// MonteCarlo with a nil error. Every error of the package matches exactly
+// one of the module's classes under errors.Is (quantity.ErrDimension,
+// ErrRange or ErrInvalid), with its cause kept for errors.As. Operations
+// do not allocate. A Measured is a value of about 200 bytes; in a loop
+// over many rows the in-place forms (z.SetMul(x, y), z.SetAdd(x, y), …)
+// write into a destination through pointers and copy nothing, with results
+// identical to the value forms.
 //
 // First-order propagation is exact for a model linear in its inputs and
 // an approximation otherwise; where the model is strongly nonlinear

@@ -188,7 +188,7 @@ func MonteCarlo(inputs []Measured, model func(x []Measured) Measured, trials int
 			dim = y.Dim()
 		} else if y.Dim() != dim {
 			return MonteCarloResult{}, &Error{Reason: fmt.Sprintf("trial %d: the model gives %s, trial 1 gave %s", t+1, quantity.Describe(y.Dim()), quantity.Describe(dim)),
-				Err: &quantity.DimensionError{Op: "check", Name: "MonteCarlo: the model's value", Left: y.Dim(), Right: dim, Binary: true}}
+				Err: &quantity.Error{Op: "check", Name: "MonteCarlo: the model's value", Dims: [2]quantity.Dim{y.Dim(), dim}, Binary: true, Class: quantity.ErrDimension}}
 		}
 		v := y.Value()
 		ys[t] = v

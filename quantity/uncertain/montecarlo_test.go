@@ -102,12 +102,12 @@ func TestMonteCarloErrorsWrapCause(t *testing.T) {
 		t.Errorf("log of a value ≤ 0 on a trial: %v", err)
 	}
 	// A model whose dimension is wrong on the trial values keeps the
-	// *quantity.DimensionError.
+	// *quantity.Error of class quantity.ErrDimension.
 	_, err = uncertain.MonteCarlo(in, func(x []uncertain.Measured) uncertain.Measured {
 		return x[0].Add(uncertain.Exact(quantity.New(1, quantity.Length)))
 	}, 1000, 0.95, 1)
-	var de *quantity.DimensionError
-	if !errors.As(err, &de) || classes(err) != 1 {
+	var de *quantity.Error
+	if !errors.As(err, &de) || de.Class != quantity.ErrDimension || classes(err) != 1 {
 		t.Errorf("dimension error in the model: %v", err)
 	}
 }

@@ -484,11 +484,11 @@ func mergeTerms(z *Measured, v quantity.Quantity, a float64, x *Measured, b floa
 	z.n = uint8(k)
 }
 
-// clearFrom zeroes the terms from z.n up to old, so that a reused
+// clearFrom zeroes the terms from m.n up to old, so that a reused
 // Measured compares equal to a fresh one with the same terms.
-func (z *Measured) clearFrom(old uint8) {
-	for i := z.n; i < old; i++ {
-		z.id[i], z.d[i] = 0, 0
+func (m *Measured) clearFrom(old uint8) {
+	for i := m.n; i < old; i++ {
+		m.id[i], m.d[i] = 0, 0
 	}
 }
 
@@ -506,8 +506,8 @@ func scale(v quantity.Quantity, a float64, x *Measured) (z Measured) {
 // (a division by zero, the logarithm of a value ≤ 0, the square root of
 // 0 with an uncertainty, an overflow) panics with an *Error of class
 // quantity.ErrRange naming the operation and the operand, as a dimension
-// mismatch panics with a *quantity.DimensionError; Eval returns either as
-// an error. First-order propagation does not hold at such a point: check
+// mismatch panics with a *quantity.Error of class quantity.ErrDimension;
+// Eval returns either as an error. First-order propagation does not hold at such a point: check
 // the model there with MonteCarlo, whose trials are exact values.
 
 //go:noinline
@@ -704,7 +704,10 @@ func Eval(formula func() Measured) (m Measured, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			switch e := r.(type) {
-			case *quantity.DimensionError:
+			case *quantity.Error:
+				if e.Class != quantity.ErrDimension {
+					panic(r)
+				}
 				err = e
 			case *Error:
 				err = e
@@ -734,13 +737,13 @@ func (m *Measured) finite() bool {
 // correlation, a calibration curve — given its value y at m's estimate
 // and its derivative dydx there: the chain rule applied to each of m's
 // sources. The dimensions must agree: y's is dydx's times m's. It panics
-// with a *quantity.DimensionError if they do not, as arithmetic does, and
-// with an *Error of class quantity.ErrRange if y, or dydx where m is
-// uncertain, is not a finite number.
+// with a *quantity.Error of class quantity.ErrDimension if they do not,
+// as arithmetic does, and with an *Error of class quantity.ErrRange if y,
+// or dydx where m is uncertain, is not a finite number.
 func Apply(m Measured, y, dydx quantity.Quantity) Measured {
 	want := dydx.Mul(m.q) // panics on an overflow of exponents
 	if want.Dim() != y.Dim() {
-		panic(&quantity.DimensionError{Op: "check", Name: "Apply: the function's value", Left: y.Dim(), Right: want.Dim(), Binary: true, Detail: "a value y = f(x) has the dimension of dy/dx times x"})
+		panic(&quantity.Error{Op: "check", Name: "Apply: the function's value", Dims: [2]quantity.Dim{y.Dim(), want.Dim()}, Binary: true, Reason: "a value y = f(x) has the dimension of dy/dx times x", Class: quantity.ErrDimension})
 	}
 	if !ok1(y.Value(), dydx.Value(), &m) {
 		panicDomain("Apply: a function value or derivative not finite, at", m.q.Value())
@@ -779,129 +782,129 @@ func Linear(y quantity.Quantity, c []float64, x []Measured) Measured {
 // pointers, so no value is copied; z may be one of the operands. They
 // panic as the value forms do.
 
-// into sets *z to a·x + b·y with the value v, as combine, writing in
-// place unless z is an operand.
-func (z *Measured) into(v quantity.Quantity, a float64, x *Measured, b float64, y *Measured) *Measured {
-	if z == x || z == y {
-		*z = combine(v, a, x, b, y)
-		return z
+// into sets *m to a·x + b·y with the value v, as combine, writing in
+// place unless m is an operand.
+func (m *Measured) into(v quantity.Quantity, a float64, x *Measured, b float64, y *Measured) *Measured {
+	if m == x || m == y {
+		*m = combine(v, a, x, b, y)
+		return m
 	}
 	if x.n != 0 && y.n != 0 && (x.set != y.set || x.n != y.n || x.id != y.id) {
-		mergeInto(z, v, a, x, b, y)
-		return z
+		mergeInto(m, v, a, x, b, y)
+		return m
 	}
 	// No merge: one operand exact, or both on the same sources.
-	old := z.n
+	old := m.n
 	src := x
 	if x.n == 0 {
 		src = y
 	}
-	z.q, z.set, z.n, z.id = v, src.set, src.n, src.id
+	m.q, m.set, m.n, m.id = v, src.set, src.n, src.id
 	switch {
 	case y.n == 0:
 		for i := 0; i < int(x.n); i++ {
-			z.d[i] = a * x.d[i]
+			m.d[i] = a * x.d[i]
 		}
 	case x.n == 0:
 		for i := 0; i < int(y.n); i++ {
-			z.d[i] = b * y.d[i]
+			m.d[i] = b * y.d[i]
 		}
 	default:
 		for i := 0; i < int(x.n); i++ {
-			z.d[i] = a*x.d[i] + b*y.d[i]
+			m.d[i] = a*x.d[i] + b*y.d[i]
 		}
 	}
-	z.clearFrom(old)
-	return z
+	m.clearFrom(old)
+	return m
 }
 
-// scaleInto sets *z to a·x with the value v; z may be x.
-func (z *Measured) scaleInto(v quantity.Quantity, a float64, x *Measured) *Measured {
-	old := z.n
-	z.q, z.set, z.n = v, x.set, x.n
-	if z != x {
-		z.id = x.id
+// scaleInto sets *m to a·x with the value v; m may be x.
+func (m *Measured) scaleInto(v quantity.Quantity, a float64, x *Measured) *Measured {
+	old := m.n
+	m.q, m.set, m.n = v, x.set, x.n
+	if m != x {
+		m.id = x.id
 	}
 	for i := 0; i < int(x.n); i++ {
-		z.d[i] = a * x.d[i]
+		m.d[i] = a * x.d[i]
 	}
-	z.clearFrom(old)
-	return z
+	m.clearFrom(old)
+	return m
 }
 
-// SetAdd sets z to x + y and returns z.
-func (z *Measured) SetAdd(x, y *Measured) *Measured {
+// SetAdd sets m to x + y and returns m.
+func (m *Measured) SetAdd(x, y *Measured) *Measured {
 	v := x.q.Add(y.q)
 	if !finite(v.Value()) {
 		panicDomain("sum with", y.q.Value())
 	}
-	return z.into(v, 1, x, 1, y)
+	return m.into(v, 1, x, 1, y)
 }
 
-// SetSub sets z to x − y and returns z.
-func (z *Measured) SetSub(x, y *Measured) *Measured {
+// SetSub sets m to x − y and returns m.
+func (m *Measured) SetSub(x, y *Measured) *Measured {
 	v := x.q.Sub(y.q)
 	if !finite(v.Value()) {
 		panicDomain("difference with", y.q.Value())
 	}
-	return z.into(v, 1, x, -1, y)
+	return m.into(v, 1, x, -1, y)
 }
 
-// SetMul sets z to x·y and returns z.
-func (z *Measured) SetMul(x, y *Measured) *Measured {
+// SetMul sets m to x·y and returns m.
+func (m *Measured) SetMul(x, y *Measured) *Measured {
 	v := x.q.Mul(y.q)
 	if !finite(v.Value()) {
 		panicDomain("product with", y.q.Value())
 	}
-	return z.into(v, y.q.Value(), x, x.q.Value(), y)
+	return m.into(v, y.q.Value(), x, x.q.Value(), y)
 }
 
-// SetDiv sets z to x/y and returns z.
-func (z *Measured) SetDiv(x, y *Measured) *Measured {
+// SetDiv sets m to x/y and returns m.
+func (m *Measured) SetDiv(x, y *Measured) *Measured {
 	w := y.q.Value()
 	v := x.q.Div(y.q)
 	a, b := 1/w, -x.q.Value()/(w*w)
 	if w == 0 || !ok2(v.Value(), a, x, b, y) {
 		panicDomain("quotient by", w)
 	}
-	return z.into(v, a, x, b, y)
+	return m.into(v, a, x, b, y)
 }
 
-// SetScale sets z to f·x and returns z.
-func (z *Measured) SetScale(x *Measured, f float64) *Measured {
+// SetScale sets m to f·x and returns m.
+func (m *Measured) SetScale(x *Measured, f float64) *Measured {
 	v := x.q.Scale(f)
 	if !ok1(v.Value(), f, x) {
 		panicDomain("product with", f)
 	}
-	return z.scaleInto(v, f, x)
+	return m.scaleInto(v, f, x)
 }
 
-// SetInv sets z to 1/x and returns z.
-func (z *Measured) SetInv(x *Measured) *Measured {
+// SetInv sets m to 1/x and returns m.
+func (m *Measured) SetInv(x *Measured) *Measured {
 	w := x.q.Value()
 	v := x.q.Inv()
 	if w == 0 || !ok1(v.Value(), -1/(w*w), x) {
 		panicDomain("inverse of", w)
 	}
-	return z.scaleInto(v, -1/(w*w), x)
+	return m.scaleInto(v, -1/(w*w), x)
 }
 
-// SetPowf sets z to x^p for a dimensionless x and returns z.
-func (z *Measured) SetPowf(x *Measured, p float64) *Measured {
+// SetPowf sets m to x^p for a dimensionless x and returns m.
+func (m *Measured) SetPowf(x *Measured, p float64) *Measured {
 	v := quantity.Powf(x.q, p)
 	a := powDeriv(p, x.q.Value(), v.Value())
 	if !ok1(v.Value(), a, x) {
 		panicDomain(fmt.Sprintf("power %v of", p), x.q.Value())
 	}
-	return z.scaleInto(v, a, x)
+	return m.scaleInto(v, a, x)
 }
 
-// SetLog10 sets z to log₁₀ x for a dimensionless x > 0 and returns z.
-func (z *Measured) SetLog10(x *Measured) *Measured {
+// SetLog10 sets m to log₁₀ x for a dimensionless x > 0 and returns m.
+func (m *Measured) SetLog10(x *Measured) *Measured {
 	v := quantity.Log10(x.q)
 	a := 1 / (x.q.Value() * math.Ln10)
 	if !ok1(v.Value(), a, x) {
 		panicDomain("logarithm of", x.q.Value())
 	}
-	return z.scaleInto(v, a, x)
+	return m.scaleInto(v, a, x)
 }

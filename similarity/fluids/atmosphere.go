@@ -82,7 +82,7 @@ func StandardAtmosphere(h quantity.Quantity, kind Altitude) (State, error) {
 	case GeopotentialAlt:
 		H = h.Value()
 	default:
-		return State{}, &RangeError{Fluid: "ISO 2533 atmosphere", What: "kind of altitude (Geometric or GeopotentialAlt)", Value: float64(kind), Lo: 1, Hi: 2}
+		return State{}, &RangeError{Fluid: "ISO 2533 atmosphere", What: "kind of altitude (Geometric or GeopotentialAlt)", Value: float64(kind), Lo: 1, Hi: 2, Unit: unitOne}
 	}
 	return standardAtmosphere(H)
 }

@@ -31,14 +31,16 @@ type Fluid interface {
 // range; every *RangeError matches it.
 var ErrRange = quantity.ErrRange
 
-// RangeError reports a temperature, pressure or altitude out of range.
+// RangeError reports a temperature, pressure or altitude out of range,
+// or a constant of a gas that gives no physical gas. A constant of the
+// wrong dimension is not a RangeError but an ErrDimension.
 type RangeError struct {
 	Fluid, What string
 	// Value is the refused value and Lo … Hi the range it must lie in,
 	// all three in Unit.
 	Value  float64
 	Lo, Hi float64
-	// Unit is the unit of Value, Lo and Hi ("K", "°C", "Pa", "g/kg"),
+	// Unit is the unit of Value, Lo and Hi ("K", "°C", "Pa", "kg/kg"),
 	// printed after each; empty for a dimensionless value (a Mach
 	// number, a ratio, a mole fraction).
 	Unit string
@@ -52,6 +54,12 @@ func (e *RangeError) Error() string {
 	}
 	return fmt.Sprintf("fluids: %s: %s %g %s outside %g … %g %s", e.Fluid, e.What, e.Value, e.Unit, e.Lo, e.Hi, e.Unit)
 }
+
+// unitOne is the Unit of a *RangeError for a dimensionless value (a
+// Mach number, a ratio, a fraction, a choice among constants): no unit
+// is printed. Every RangeError the package builds sets Unit, to a unit
+// or to unitOne, so that none leaves it out by mistake.
+const unitOne = ""
 
 // Is reports whether target is quantity.ErrRange, the class of a
 // *RangeError.
@@ -106,26 +114,55 @@ func state(T, p, rho, mu, a float64) State {
 	}
 }
 
-// Water is liquid water, fresh (Salinity 0) or sea water (Salinity in
-// g/kg), between 0 and 40 °C at pressures near atmospheric.
+// Water is liquid water, fresh (Salinity zero) or sea water, between 0
+// and 40 °C at pressures near atmospheric.
 type Water struct {
-	// Salinity is the absolute salinity (g/kg); 0 for fresh water.
-	Salinity float64
+	// Salinity is the absolute salinity S_A as a mass fraction (kg/kg),
+	// a dimensionless Quantity: 35.16504 g/kg is
+	// quantity.New(0.03516504, quantity.Dimensionless), or
+	// units.MustParse("g/kg").Of(35.16504). The zero Quantity is fresh
+	// water. It is
+	// the convention of the S argument of FormulaFuncs' sea-water
+	// functions too; a salinity of another dimension is an
+	// ErrDimension, one outside 0 … 0.045 (45 g/kg) a *RangeError in
+	// kg/kg.
+	Salinity quantity.Quantity
 }
 
 // FreshWater returns the fresh water of a towing tank (salinity 0).
 func FreshWater() Water { return Water{} }
 
 // SeaWater returns sea water at the reference salinity 35.16504 g/kg
-// (TEOS-10).
-func SeaWater() Water { return Water{Salinity: 35.16504} }
+// (TEOS-10), a mass fraction of 0.03516504.
+func SeaWater() Water { return Water{Salinity: quantity.New(seaRefFraction, quantity.Dimensionless)} }
+
+// seaRefFraction is TEOS-10's reference salinity, 35.16504 g/kg, as a
+// mass fraction (kg/kg).
+const seaRefFraction = 0.03516504
 
 // Name implements Fluid.
 func (w Water) Name() string {
-	if w.Salinity == 0 {
+	if w.Salinity == (quantity.Quantity{}) {
 		return "fresh water"
 	}
-	return fmt.Sprintf("sea water (S = %g g/kg)", w.Salinity)
+	return fmt.Sprintf("sea water (S = %g g/kg)", w.Salinity.Value()*1000)
+}
+
+// maxSalinity is the largest absolute salinity the sea-water
+// correlations are used for, as a mass fraction (45 g/kg).
+const maxSalinity = 0.045
+
+// salinity returns the water's absolute salinity as a mass fraction
+// (kg/kg), checked: a dimensionless Quantity in 0 … maxSalinity.
+func (w Water) salinity() (float64, error) {
+	if err := w.Salinity.CheckNamed("fluids: water: Water.Salinity (absolute salinity, a mass fraction in kg/kg)", quantity.Dimensionless); err != nil {
+		return 0, err
+	}
+	s := w.Salinity.Value()
+	if !(s >= 0 && s <= maxSalinity) {
+		return 0, &RangeError{Fluid: w.Name(), What: "absolute salinity S_A as a mass fraction (35.16504 g/kg is 0.03516504 kg/kg)", Value: s, Lo: 0, Hi: maxSalinity, Unit: "kg/kg"}
+	}
+	return s, nil
 }
 
 // The water correlations are written once over dual numbers, so that
@@ -153,8 +190,8 @@ func freshViscosity(t dual.Num) dual.Num {
 // sea water, EOS-80 (Millero and Poisson, 1981; UNESCO Technical Papers
 // in Marine Science 36 and 44), used as published: its own pure-water
 // (SMOW) term, t on the IPTS-68 scale (t₆₈ = 1.00024·t₉₀) and practical
-// salinity S_P. The Salinity of a Water is an absolute salinity in g/kg,
-// read as practical salinity by the reference-composition ratio of
+// salinity S_P. The Salinity of a Water, an absolute salinity (here sa
+// in g/kg, the Salinity's mass fraction times 1000), is read as practical salinity by the reference-composition ratio of
 // TEOS-10, S_P = S_A·35/35.16504. Checked against IAPWS-08 (TEOS-10) to
 // 0.002 % between 0 and 40 °C and 5 to 40 g/kg (see the tests).
 func seaDensity(t90 dual.Num, sa float64) dual.Num {
@@ -210,8 +247,8 @@ func seaViscositySlope(t, s float64) float64 {
 // with respect to t.
 func (w Water) properties(t float64) (rho, mu dual.Num) {
 	x := dual.Var(t)
-	if w.Salinity > 0 {
-		return seaDensity(x, w.Salinity), seaViscosity(x, w.Salinity/1000)
+	if s := w.Salinity.Value(); s > 0 {
+		return seaDensity(x, s*1000), seaViscosity(x, s)
 	}
 	return freshDensity(x), freshViscosity(x)
 }
@@ -241,8 +278,8 @@ func (w Water) At(T, p quantity.Quantity) (State, error) {
 	if !(t >= 0 && t <= 40) {
 		return State{}, &RangeError{Fluid: w.Name(), What: "temperature", Value: t, Lo: 0, Hi: 40, Unit: "°C"}
 	}
-	if !(w.Salinity >= 0 && w.Salinity <= 45) {
-		return State{}, &RangeError{Fluid: w.Name(), What: "salinity", Value: w.Salinity, Lo: 0, Hi: 45, Unit: "g/kg"}
+	if _, err := w.salinity(); err != nil {
+		return State{}, err
 	}
 	rho, mu := w.properties(t)
 	return state(T.Value(), p.Value(), rho.V, mu.V, 0), nil
@@ -257,42 +294,63 @@ func (w Water) AtCelsius(t float64) (State, error) {
 // IdealGas is a gas with ρ = p/(R·T), Sutherland's viscosity law
 // μ = β·T^(3/2)/(T + S) and speed of sound a = √(γ·R·T).
 //
+// Every dimensional constant is a quantity.Quantity, checked where the
+// gas is used: a constant of the wrong dimension (a dimensionless 287
+// for R, a β given as a viscosity) is refused with an ErrDimension
+// naming the field and both dimensions, never read as a number in an
+// assumed unit. Build them with quantity.New, or parse them with package
+// units: quantity.New(287.05287, quantity.SpecificHeatCapacity),
+// quantity.New(1.458e-6, SutherlandConstantDim),
+// quantity.New(110.4, quantity.Temperature).
+//
 // The model holds only for a gas: At and Viscosity refuse, with a
 // *RangeError, a temperature below MinTemperature or above
 // MaxTemperature, and At refuses a state at or below the condensation
 // temperature the gas's saturation curve gives at its pressure (see
-// LowestTemperature). A zero bound, or NoSaturation, is not checked: a
-// caller's own gas states its own range.
+// LowestTemperature). A bound left zero (the zero Quantity, or 0 K), or
+// NoSaturation, is not checked: a caller's own gas states its own range.
 type IdealGas struct {
 	// GasName names the gas in messages.
 	GasName string
-	// R is the specific gas constant (J/(kg·K)).
-	R float64
-	// Gamma is the ratio of specific heats c_p/c_v (dimensionless).
+	// R is the specific gas constant, of the dimension of a specific
+	// heat capacity, J/(kg·K).
+	R quantity.Quantity
+	// Gamma is the ratio of specific heats c_p/c_v, dimensionless.
 	Gamma float64
-	// Beta is Sutherland's constant β (kg/(m·s·K^(1/2))).
-	Beta float64
-	// S is Sutherland's temperature (K).
-	S float64
+	// Beta is Sutherland's constant β, of dimension
+	// SutherlandConstantDim, kg/(m·s·K^(1/2)).
+	Beta quantity.Quantity
+	// S is Sutherland's temperature, a thermodynamic temperature (K);
+	// required, 0 K included (write quantity.New(0,
+	// quantity.Temperature)).
+	S quantity.Quantity
 	// KRef, KTemp and KS are Sutherland's law for the thermal
 	// conductivity, k = KRef·(T/KTemp)^(3/2)·(KTemp + KS)/(T + KS);
-	// zero when not modelled.
+	// the zero Quantity when not modelled.
 	//
-	// KRef is the conductivity at KTemp (W/(m·K)).
-	KRef float64
-	// KTemp is the reference temperature of KRef (K).
-	KTemp float64
-	// KS is Sutherland's temperature for the conductivity (K).
-	KS float64
-	// MinTemperature is the lowest temperature at which the constants
-	// are stated (K); zero leaves it unchecked.
-	MinTemperature float64
-	// MaxTemperature is the highest temperature at which the constants
-	// are stated (K); zero leaves it unchecked.
-	MaxTemperature float64
+	// KRef is the conductivity at KTemp, a thermal conductivity
+	// (W/(m·K)).
+	KRef quantity.Quantity
+	// KTemp is the reference temperature of KRef, a thermodynamic
+	// temperature (K).
+	KTemp quantity.Quantity
+	// KS is Sutherland's temperature for the conductivity, a
+	// thermodynamic temperature (K).
+	KS quantity.Quantity
+	// MinTemperature is the lowest thermodynamic temperature at which
+	// the constants are stated (K); zero leaves it unchecked.
+	MinTemperature quantity.Quantity
+	// MaxTemperature is the highest thermodynamic temperature at which
+	// the constants are stated (K); zero leaves it unchecked.
+	MaxTemperature quantity.Quantity
 	// Saturation is the gas's vapour-pressure curve, checked by At.
 	Saturation SaturationCurve
 }
+
+// SutherlandConstantDim is the dimension of Sutherland's constant β,
+// kg/(m·s·K^(1/2)): a dynamic viscosity per square root of a
+// thermodynamic temperature, M L⁻¹ T⁻¹ Θ^(−1/2).
+const SutherlandConstantDim quantity.Dim = quantity.DynamicViscosity - quantity.Temperature/2
 
 // SaturationCurve names the vapour-pressure curve of a gas that can
 // condense at the temperatures of a test.
@@ -320,7 +378,8 @@ func (c SaturationCurve) String() string {
 }
 
 // Air returns dry air with the constants of ISO 2533:1975: R = 287.052 87
-// J/(kg·K), γ = 1.4, β = 1.458 × 10⁻⁶ kg/(m·s·K^(1/2)), S = 110.4 K. It
+// J/(kg·K), γ = 1.4, β = 1.458 × 10⁻⁶ kg/(m·s·K^(1/2)), S = 110.4 K; and
+// Sutherland's law for its conductivity (see ThermalConductivity). It
 // is a function, so no caller can change the air (or the standard
 // atmosphere) for another.
 //
@@ -335,35 +394,124 @@ func (c SaturationCurve) String() string {
 // falls to about 1.376, and the speed of sound is about 1 % high.
 func Air() IdealGas { return isoAir }
 
-var isoAir = IdealGas{GasName: "air", R: 287.05287, Gamma: 1.4, Beta: 1.458e-6, S: 110.4, KRef: 0.0241, KTemp: 273, KS: 194,
-	MinTemperature: 132.6, MaxTemperature: 600}
+var isoAir = IdealGas{GasName: "air", R: quantity.New(287.05287, quantity.SpecificHeatCapacity), Gamma: 1.4,
+	Beta: quantity.New(1.458e-6, SutherlandConstantDim), S: kelvin(110.4),
+	KRef: quantity.New(0.0241, quantity.ThermalConductivity), KTemp: kelvin(273), KS: kelvin(194),
+	MinTemperature: kelvin(132.6), MaxTemperature: kelvin(600)}
+
+// kelvin is the thermodynamic temperature t K.
+func kelvin(t float64) quantity.Quantity { return quantity.New(t, quantity.Temperature) }
 
 // Name implements Fluid.
 func (g IdealGas) Name() string { return g.GasName }
 
+// gasConstants are the constants of an IdealGas, checked, as numbers in
+// the coherent SI units: r J/(kg·K), beta kg/(m·s·K^(1/2)), s, kTemp,
+// kS, tMin and tMax K, kRef W/(m·K).
+type gasConstants struct {
+	r, gamma, beta, s float64
+	// kRef, kTemp and kS are zero when the conductivity is not modelled.
+	kRef, kTemp, kS float64
+	// tMin is 0 and tMax +Inf where the gas states no bound.
+	tMin, tMax float64
+	saturation SaturationCurve
+}
+
+// constant returns the value, in the coherent SI unit, of the gas's
+// constant x held in field, which must have dimension want; an optional
+// constant may be the zero Quantity (not given, read as 0). A wrong
+// dimension is an ErrDimension naming the gas, the field and both
+// dimensions.
+func (g IdealGas) constant(field, what string, x quantity.Quantity, want quantity.Dim, optional bool) (float64, error) {
+	if x.Dim() == want || optional && x == (quantity.Quantity{}) {
+		return x.Value(), nil
+	}
+	return 0, x.CheckNamed(fmt.Sprintf("fluids: %s: IdealGas.%s (%s)", g.GasName, field, what), want)
+}
+
+// constants checks the gas's constants, their dimensions first and then
+// that they give a physical gas, and returns them as numbers in SI
+// units.
+func (g IdealGas) constants() (gasConstants, error) {
+	// The fields in the order of gasConstants; v holds their values
+	// (a pointer into c would move c to the heap on every call).
+	fields := [...]struct {
+		field, what string
+		x           quantity.Quantity
+		want        quantity.Dim
+		optional    bool
+	}{
+		{"R", "specific gas constant", g.R, quantity.SpecificHeatCapacity, false},
+		{"Beta", "Sutherland's constant β", g.Beta, SutherlandConstantDim, false},
+		{"S", "Sutherland's temperature", g.S, quantity.Temperature, false},
+		{"KRef", "thermal conductivity at KTemp", g.KRef, quantity.ThermalConductivity, true},
+		{"KTemp", "reference temperature of the conductivity", g.KTemp, quantity.Temperature, true},
+		{"KS", "Sutherland's temperature for the conductivity", g.KS, quantity.Temperature, true},
+		{"MinTemperature", "lowest temperature of the constants", g.MinTemperature, quantity.Temperature, true},
+		{"MaxTemperature", "highest temperature of the constants", g.MaxTemperature, quantity.Temperature, true},
+	}
+	var v [len(fields)]float64
+	for i, f := range fields {
+		x, err := g.constant(f.field, f.what, f.x, f.want, f.optional)
+		if err != nil {
+			return gasConstants{}, err
+		}
+		v[i] = x
+	}
+	c := gasConstants{r: v[0], gamma: g.Gamma, beta: v[1], s: v[2], kRef: v[3], kTemp: v[4], kS: v[5],
+		tMin: v[6], tMax: v[7], saturation: g.Saturation}
+	if err := positive(g.GasName, "specific gas constant R", "J/(kg·K)", c.r); err != nil {
+		return gasConstants{}, err
+	}
+	if !(c.gamma > 1) || math.IsInf(c.gamma, 0) {
+		return gasConstants{}, &RangeError{Fluid: g.GasName, What: "ratio of specific heats γ", Value: c.gamma, Lo: 1, Hi: math.Inf(1), Unit: unitOne}
+	}
+	if err := positive(g.GasName, "Sutherland's constant β", "kg/(m·s·K^(1/2))", c.beta); err != nil {
+		return gasConstants{}, err
+	}
+	if !(c.s >= 0) || math.IsInf(c.s, 0) {
+		return gasConstants{}, &RangeError{Fluid: g.GasName, What: "Sutherland's temperature S", Value: c.s, Lo: 0, Hi: math.Inf(1), Unit: "K"}
+	}
+	if !(c.tMin >= 0) || math.IsInf(c.tMin, 0) {
+		return gasConstants{}, &RangeError{Fluid: g.GasName, What: "lowest temperature of the constants", Value: c.tMin, Lo: 0, Hi: math.Inf(1), Unit: "K"}
+	}
+	if !(c.tMax >= 0) || math.IsInf(c.tMax, 0) || (c.tMax > 0 && c.tMax <= c.tMin) {
+		return gasConstants{}, &RangeError{Fluid: g.GasName, What: "highest temperature of the constants", Value: c.tMax, Lo: c.tMin, Hi: math.Inf(1), Unit: "K"}
+	}
+	if c.tMax == 0 {
+		c.tMax = math.Inf(1)
+	}
+	if g.Saturation > NitrogenSaturation {
+		return gasConstants{}, &RangeError{Fluid: g.GasName, What: "saturation curve", Value: float64(g.Saturation), Lo: 0, Hi: float64(NitrogenSaturation), Unit: unitOne}
+	}
+	return c, nil
+}
+
 // At implements Fluid. A state outside the gas's temperature range, or
 // at or below its condensation temperature at p (LowestTemperature), is
-// a *RangeError: no density is given for a liquid or a solid.
+// a *RangeError: no density is given for a liquid or a solid. A constant
+// of the wrong dimension is an ErrDimension naming its field.
 func (g IdealGas) At(T, p quantity.Quantity) (State, error) {
 	if err := check(T, p); err != nil {
 		return State{}, err
 	}
 	t, pr := T.Value(), p.Value()
-	if err := g.check(); err != nil {
-		return State{}, err
-	}
-	if err := g.inRange(t); err != nil {
-		return State{}, err
-	}
-	if lo := g.condensation(pr); g.Saturation != NoSaturation && !(t > lo) {
-		return State{}, &RangeError{Fluid: g.GasName, Unit: "K", What: fmt.Sprintf("temperature at %.6g Pa: at or below the condensation temperature (%s) — not a gas", pr, g.Saturation),
-			Value: t, Lo: lo, Hi: g.hi()}
-	}
-	mu, err := g.viscosity(t)
+	c, err := g.constants()
 	if err != nil {
 		return State{}, err
 	}
-	return finiteState(g.GasName, state(t, pr, pr/(g.R*t), mu, math.Sqrt(g.Gamma*g.R*t)))
+	if err := g.inRange(c, t); err != nil {
+		return State{}, err
+	}
+	if lo := c.condensation(pr); c.saturation != NoSaturation && !(t > lo) {
+		return State{}, &RangeError{Fluid: g.GasName, Unit: "K", What: fmt.Sprintf("temperature at %.6g Pa: at or below the condensation temperature (%s) — not a gas", pr, c.saturation),
+			Value: t, Lo: lo, Hi: c.tMax}
+	}
+	mu, err := g.sutherland(c, t)
+	if err != nil {
+		return State{}, err
+	}
+	return finiteState(g.GasName, state(t, pr, pr/(c.r*t), mu, math.Sqrt(c.gamma*c.r*t)))
 }
 
 // LowestTemperature returns the lowest temperature at which the gas is
@@ -380,16 +528,18 @@ func (g IdealGas) LowestTemperature(p quantity.Quantity) (quantity.Quantity, err
 	if pr := p.Value(); !(pr > 0) || math.IsInf(pr, 0) {
 		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "absolute pressure", Value: pr, Lo: 0, Hi: math.Inf(1), Unit: "Pa"}
 	}
-	if err := g.check(); err != nil {
+	c, err := g.constants()
+	if err != nil {
 		return quantity.Quantity{}, err
 	}
-	return quantity.New(g.condensation(p.Value()), quantity.Temperature), nil
+	return kelvin(c.condensation(p.Value())), nil
 }
 
-// condensation is LowestTemperature for a checked gas and pressure.
-func (g IdealGas) condensation(p float64) float64 {
-	t := g.MinTemperature
-	if g.Saturation == NitrogenSaturation {
+// condensation is LowestTemperature in K for checked constants and a
+// pressure p in Pa.
+func (c gasConstants) condensation(p float64) float64 {
+	t := c.tMin
+	if c.saturation == NitrogenSaturation {
 		var ts float64
 		switch {
 		case p < n2SatP(n2Tt):
@@ -404,54 +554,21 @@ func (g IdealGas) condensation(p float64) float64 {
 	return t
 }
 
-// hi is the upper temperature bound, +Inf when not stated.
-func (g IdealGas) hi() float64 {
-	if g.MaxTemperature > 0 {
-		return g.MaxTemperature
-	}
-	return math.Inf(1)
-}
-
-// inRange refuses a temperature outside the gas's stated range.
-func (g IdealGas) inRange(t float64) error {
-	if !(t > 0) || math.IsInf(t, 0) || t < g.MinTemperature || t > g.hi() {
-		return &RangeError{Fluid: g.GasName, What: "temperature for the gas's constants", Value: t, Lo: g.MinTemperature, Hi: g.hi(), Unit: "K"}
-	}
-	return nil
-}
-
-// check refuses constants that give no physical gas.
-func (g IdealGas) check() error {
-	if err := positive(g.GasName, "specific gas constant R", "J/(kg·K)", g.R); err != nil {
-		return err
-	}
-	if !(g.Gamma > 1) || math.IsInf(g.Gamma, 0) {
-		return &RangeError{Fluid: g.GasName, What: "ratio of specific heats γ", Value: g.Gamma, Lo: 1, Hi: math.Inf(1)}
-	}
-	if err := positive(g.GasName, "Sutherland's constant β", "kg/(m·s·K^(1/2))", g.Beta); err != nil {
-		return err
-	}
-	if !(g.S >= 0) || math.IsInf(g.S, 0) {
-		return &RangeError{Fluid: g.GasName, What: "Sutherland's temperature S", Value: g.S, Lo: 0, Hi: math.Inf(1), Unit: "K"}
-	}
-	if !(g.MinTemperature >= 0) || math.IsInf(g.MinTemperature, 0) {
-		return &RangeError{Fluid: g.GasName, What: "lowest temperature of the constants", Value: g.MinTemperature, Lo: 0, Hi: math.Inf(1), Unit: "K"}
-	}
-	if !(g.MaxTemperature >= 0) || math.IsInf(g.MaxTemperature, 0) || (g.MaxTemperature > 0 && g.MaxTemperature <= g.MinTemperature) {
-		return &RangeError{Fluid: g.GasName, What: "highest temperature of the constants", Value: g.MaxTemperature, Lo: g.MinTemperature, Hi: math.Inf(1), Unit: "K"}
-	}
-	if g.Saturation > NitrogenSaturation {
-		return &RangeError{Fluid: g.GasName, What: "saturation curve", Value: float64(g.Saturation), Lo: 0, Hi: float64(NitrogenSaturation)}
+// inRange refuses a temperature t (K) outside the gas's stated range.
+func (g IdealGas) inRange(c gasConstants, t float64) error {
+	if !(t > 0) || math.IsInf(t, 0) || t < c.tMin || t > c.tMax {
+		return &RangeError{Fluid: g.GasName, What: "temperature for the gas's constants", Value: t, Lo: c.tMin, Hi: c.tMax, Unit: "K"}
 	}
 	return nil
 }
 
 // Viscosity returns Sutherland's dynamic viscosity μ(T) (Pa·s) at the
-// thermodynamic temperature T. A T that is not a temperature is an
-// ErrDimension; a temperature outside the gas's range (MinTemperature …
-// MaxTemperature), not positive and finite, or constants that give no
-// finite viscosity, is a *RangeError. It does not know the pressure, so
-// it cannot check for condensation: At does.
+// thermodynamic temperature T. A T that is not a temperature, or a
+// constant of the wrong dimension, is an ErrDimension; a temperature
+// outside the gas's range (MinTemperature … MaxTemperature), not
+// positive and finite, or constants that give no finite viscosity, is a
+// *RangeError. It does not know the pressure, so it cannot check for
+// condensation: At does.
 func (g IdealGas) Viscosity(T quantity.Quantity) (quantity.Quantity, error) {
 	if err := T.CheckNamed("temperature", quantity.Temperature); err != nil {
 		return quantity.Quantity{}, err
@@ -465,13 +582,20 @@ func (g IdealGas) Viscosity(T quantity.Quantity) (quantity.Quantity, error) {
 
 // viscosity is Viscosity for T in K, μ in Pa·s.
 func (g IdealGas) viscosity(T float64) (float64, error) {
-	if err := g.check(); err != nil {
+	c, err := g.constants()
+	if err != nil {
 		return 0, err
 	}
-	if err := g.inRange(T); err != nil {
+	return g.sutherland(c, T)
+}
+
+// sutherland is Sutherland's law for checked constants, T in K, μ in
+// Pa·s, in the gas's range.
+func (g IdealGas) sutherland(c gasConstants, T float64) (float64, error) {
+	if err := g.inRange(c, T); err != nil {
 		return 0, err
 	}
-	mu := g.Beta * T * math.Sqrt(T) / (T + g.S)
+	mu := c.beta * T * math.Sqrt(T) / (T + c.s)
 	if !(mu > 0) || math.IsInf(mu, 0) {
 		return 0, &RangeError{Fluid: g.GasName, What: "temperature giving a finite, positive Sutherland viscosity", Value: T, Lo: 0, Hi: math.Inf(1), Unit: "K"}
 	}

@@ -12,16 +12,17 @@ import (
 // for the formula language, to give to formula.Options.Funcs, so that a
 // derived channel can read nu = nu_water(T_w). Arguments and results are
 // in SI: a temperature in kelvins (a formula's 20{°C} or a channel in °C
-// is converted), a pressure in pascals, a salinity as a mass fraction
-// (35.16504 g/kg is 0.03516504, written 35.16504 {g/kg}), a relative
-// humidity as a fraction, 0 … 1.
+// is converted), a pressure in pascals, an absolute salinity S as a
+// mass fraction in kg/kg, the convention of Water.Salinity (35.16504
+// g/kg is 0.03516504, written 35.16504 {g/kg}; a bare 35 is 35 kg/kg
+// and refused), a relative humidity as a fraction, 0 … 1.
 //
 //	rho_water(T)          density of fresh water, kg/m³ (Water.At), 0 … 40 °C
 //	mu_water(T)           its dynamic viscosity, Pa·s
 //	nu_water(T)           its kinematic viscosity, m²/s
 //	pv_water(T)           vapour pressure of water, Pa (VapourPressure, IAPWS-IF97), 0 … 373.946 °C
 //	sigma_water(T)        surface tension of water against air, N/m (SurfaceTension, IAPWS), 0.01 … 373.946 °C
-//	rho_sea(T, S)         density of sea water of absolute salinity S, kg/m³, 0 … 40 °C, 0 … 45 g/kg
+//	rho_sea(T, S)         density of sea water of absolute salinity S (kg/kg), kg/m³, 0 … 40 °C, S 0 … 0.045 kg/kg (45 g/kg)
 //	mu_sea(T, S)          its dynamic viscosity, Pa·s
 //	nu_sea(T, S)          its kinematic viscosity, m²/s
 //	rho_air(T, p)         density of dry air as an ideal gas, kg/m³ (Air().At)
@@ -30,7 +31,8 @@ import (
 //	rho_humid_air(T, p, RH) density of moist air (HumidAir{}.Density, CIPM-2007), kg/m³, 15 … 27 °C, 600 … 1100 hPa
 //
 // A value outside a function's range is the package's *RangeError, which
-// a formula Evaluator reports with its row and statement. Every function
+// a formula Evaluator reports with its row and statement; a salinity's
+// states its value and range in kg/kg. Every function
 // but rho_humid_air gives its exact partial derivatives (Func.Deriv), so
 // formula's Gradient carries the uncertainty of a thermometer into ν; a
 // program calling rho_humid_air has no Gradient.
@@ -50,11 +52,11 @@ func FormulaFuncs() []formula.Func {
 	}
 	sea := func(prop func(rho, mu dual.Num) dual.Num, slope func(t, s float64) float64) (func([]float64) (float64, error), func(a, g []float64) error) {
 		eval := func(a []float64) (float64, error) {
-			x, err := waterProp(Water{Salinity: a[1] * 1000}, a[0], prop)
+			x, err := waterProp(Water{Salinity: quantity.New(a[1], one)}, a[0], prop)
 			return x.V, err
 		}
 		deriv := func(a, g []float64) error {
-			x, err := waterProp(Water{Salinity: a[1] * 1000}, a[0], prop)
+			x, err := waterProp(Water{Salinity: quantity.New(a[1], one)}, a[0], prop)
 			g[0], g[1] = x.D, slope(a[0]-273.15, a[1])
 			return err
 		}
@@ -66,7 +68,7 @@ func FormulaFuncs() []formula.Func {
 	rhoSlope := func(t, s float64) float64 { return seaDensitySlope(t, s*1000) * 1000 }
 	muSlope := seaViscositySlope
 	nuSlope := func(t, s float64) float64 {
-		r, m := (Water{Salinity: s * 1000}).properties(t)
+		r, m := (Water{Salinity: quantity.New(s, one)}).properties(t)
 		return muSlope(t, s)/r.V - m.V/(r.V*r.V)*rhoSlope(t, s)
 	}
 	fs := []formula.Func{
@@ -84,6 +86,7 @@ func FormulaFuncs() []formula.Func {
 	fs[4].Eval, fs[4].Deriv = sea(mu, muSlope)
 	fs[5].Eval, fs[5].Deriv = sea(nu, nuSlope)
 	air := Air()
+	airS := air.S.Value() // Sutherland's temperature of air, K
 	return append(fs,
 		formula.Func{Name: "pv_water", Args: []quantity.Dim{T}, Result: p,
 			Eval: func(a []float64) (float64, error) {
@@ -124,7 +127,7 @@ func FormulaFuncs() []formula.Func {
 			Eval: func(a []float64) (float64, error) { return air.viscosity(a[0]) },
 			Deriv: func(a, g []float64) error {
 				m, err := air.viscosity(a[0])
-				g[0] = m * (1.5/a[0] - 1/(a[0]+air.S))
+				g[0] = m * (1.5/a[0] - 1/(a[0]+airS))
 				return err
 			}},
 		formula.Func{Name: "nu_air", Args: []quantity.Dim{T, p}, Result: quantity.KinematicViscosity,
@@ -136,7 +139,7 @@ func FormulaFuncs() []formula.Func {
 				s, err := air.At(quantity.New(a[0], T), quantity.New(a[1], p))
 				n := s.KinematicViscosity.Value()
 				// ν = μ(T)·R·T/p
-				g[0], g[1] = n*(1.5/a[0]-1/(a[0]+air.S)+1/a[0]), -n/a[1]
+				g[0], g[1] = n*(1.5/a[0]-1/(a[0]+airS)+1/a[0]), -n/a[1]
 				return err
 			}},
 		formula.Func{Name: "rho_humid_air", Args: []quantity.Dim{T, p, one}, Result: quantity.Density,

@@ -63,7 +63,7 @@ func TestViscosityRefuses(t *testing.T) {
 	}{
 		{"nitrogen at 50 K", fluids.Nitrogen(), 50}, {"air at 100 K", fluids.Air(), 100}, {"air at 1e300 K", fluids.Air(), 1e300},
 		{"air at NaN", fluids.Air(), math.NaN()}, {"air at −5 K", fluids.Air(), -5},
-		{"a gas of β = MaxFloat64", fluids.IdealGas{GasName: "x", R: 287, Gamma: 1.4, Beta: math.MaxFloat64, S: 0}, 1e10},
+		{"a gas of β = MaxFloat64", fluids.IdealGas{GasName: "x", R: q.New(287, q.SpecificHeatCapacity), Gamma: 1.4, Beta: q.New(math.MaxFloat64, fluids.SutherlandConstantDim), S: q.New(0, q.Temperature)}, 1e10},
 	} {
 		if mu, err := c.g.Viscosity(q.New(c.T, q.Temperature)); !errors.Is(err, q.ErrRange) {
 			t.Errorf("%s: μ = %v, %v", c.name, mu, err)
@@ -111,7 +111,7 @@ func TestRangeErrorUnit(t *testing.T) {
 // TestGasFunctionsFinite: extreme finite inputs that overflowed to ±Inf
 // with a nil error are refused.
 func TestGasFunctionsFinite(t *testing.T) {
-	big := fluids.IdealGas{GasName: "x", R: 1e300, Gamma: 1 + 1e-15, Beta: 1e-6, S: 100}
+	big := fluids.IdealGas{GasName: "x", R: q.New(1e300, q.SpecificHeatCapacity), Gamma: 1 + 1e-15, Beta: q.New(1e-6, fluids.SutherlandConstantDim), S: q.New(100, q.Temperature)}
 	if cp, err := big.SpecificHeat(); err == nil {
 		t.Errorf("c_p = %v with nil error", cp)
 	}
@@ -143,13 +143,21 @@ func FuzzIdealGas(f *testing.F) {
 	f.Add(5e-324, 5e-324, 5e-324, 1e308, 5e-324, 1e308, 1e-300, uint8(3))
 	f.Fuzz(func(t *testing.T, T, p, R, gamma, beta, S, ma float64, which uint8) {
 		var g fluids.IdealGas
-		switch which % 3 {
+		switch which % 4 {
 		case 0:
 			g = fluids.Air()
 		case 1:
 			g = fluids.Nitrogen()
+		case 2:
+			g = fluids.IdealGas{GasName: "fuzz", R: q.New(R, q.SpecificHeatCapacity), Gamma: gamma,
+				Beta: q.New(beta, fluids.SutherlandConstantDim), S: q.New(S, q.Temperature),
+				KRef: q.New(beta, q.ThermalConductivity), KTemp: q.New(S, q.Temperature), KS: q.New(R, q.Temperature)}
 		default:
-			g = fluids.IdealGas{GasName: "fuzz", R: R, Gamma: gamma, Beta: beta, S: S, KRef: beta, KTemp: S, KS: R}
+			// Constants of the wrong dimensions: each call must refuse.
+			g = fluids.IdealGas{GasName: "fuzz", R: q.Scalar(R), Gamma: gamma, Beta: q.New(beta, q.DynamicViscosity), S: q.Scalar(S)}
+		}
+		if which%4 == 3 {
+			wrongDimensionRefused(t, g)
 		}
 		Tq, pq := q.New(T, q.Temperature), q.New(p, q.Pressure)
 		if s, err := g.At(Tq, pq); err == nil && !finite(s.Density.Value(), s.DynamicViscosity.Value(), s.KinematicViscosity.Value(), s.SpeedOfSound.Value()) {
@@ -187,5 +195,34 @@ func FuzzIdealGas(f *testing.F) {
 		if m, err := fluids.CondensationMargin(Tq, pq); err == nil && !finite(m.Value()) {
 			t.Errorf("CondensationMargin: %v", m)
 		}
+		if e, err := fluids.NitrogenCompressibility(Tq, pq); err == nil && (!finite(e.Z, e.SoundSpeedRatio) || !(e.Z > 0 && e.SoundSpeedRatio > 0)) {
+			t.Errorf("NitrogenCompressibility: %+v", e)
+		} else if err != nil && q.ClassOf(err) == nil {
+			t.Errorf("NitrogenCompressibility: unclassed error %v", err)
+		}
 	})
+}
+
+// wrongDimensionRefused checks that every method of a gas with a
+// constant of the wrong dimension refuses, at a state that is otherwise
+// good, with an ErrDimension alone.
+func wrongDimensionRefused(t *testing.T, g fluids.IdealGas) {
+	t.Helper()
+	T, p := q.New(288.15, q.Temperature), q.New(101325, q.Pressure)
+	s := fluids.State{Temperature: T, Pressure: p}
+	errs := map[string]error{}
+	_, errs["At"] = g.At(T, p)
+	_, errs["Viscosity"] = g.Viscosity(T)
+	_, errs["LowestTemperature"] = g.LowestTemperature(p)
+	_, errs["StaticAt"] = g.StaticAt(fluids.Total{Temperature: T, Pressure: p}, 0.5)
+	_, errs["TotalOf"] = g.TotalOf(s, 0.5)
+	_, errs["DynamicPressure"] = g.DynamicPressure(p, 0.5)
+	_, errs["SpecificHeat"] = g.SpecificHeat()
+	_, errs["ThermalConductivity"] = g.ThermalConductivity(T)
+	_, errs["Prandtl"] = g.Prandtl(T)
+	for name, err := range errs {
+		if !errors.Is(err, q.ErrDimension) || q.ClassOf(err) != q.ErrDimension {
+			t.Errorf("%s of %+v: %v; want an ErrDimension alone", name, g, err)
+		}
+	}
 }

@@ -37,7 +37,7 @@ func (a HumidAir) MoleFraction(p, T quantity.Quantity, rh float64) (float64, err
 		return 0, err
 	}
 	if !(rh >= 0 && rh <= 1) {
-		return 0, &RangeError{Fluid: "humid air (CIPM-2007)", What: "relative humidity", Value: rh, Lo: 0, Hi: 1}
+		return 0, &RangeError{Fluid: "humid air (CIPM-2007)", What: "relative humidity", Value: rh, Lo: 0, Hi: 1, Unit: unitOne}
 	}
 	t := T.Value() - 273.15
 	f := 1.00062 + 3.14e-8*p.Value() + 5.6e-7*t*t
@@ -55,7 +55,7 @@ func (a HumidAir) check(p, T quantity.Quantity) error {
 		return &RangeError{Fluid: "humid air (CIPM-2007)", What: "pressure", Value: pr, Lo: 60e3, Hi: 110e3, Unit: "Pa"}
 	}
 	if !(a.CO2 >= 0 && a.CO2 < 0.01) {
-		return &RangeError{Fluid: "humid air (CIPM-2007)", What: "CO₂ mole fraction", Value: a.CO2, Lo: 0, Hi: 0.01}
+		return &RangeError{Fluid: "humid air (CIPM-2007)", What: "CO₂ mole fraction", Value: a.CO2, Lo: 0, Hi: 0.01, Unit: unitOne}
 	}
 	return nil
 }
@@ -68,7 +68,7 @@ func (a HumidAir) DensityMole(p, T quantity.Quantity, xv float64) (quantity.Quan
 		return quantity.Quantity{}, err
 	}
 	if !(xv >= 0 && xv < 0.05) {
-		return quantity.Quantity{}, &RangeError{Fluid: "humid air (CIPM-2007)", What: "water-vapour mole fraction", Value: xv, Lo: 0, Hi: 0.05}
+		return quantity.Quantity{}, &RangeError{Fluid: "humid air (CIPM-2007)", What: "water-vapour mole fraction", Value: xv, Lo: 0, Hi: 0.05, Unit: unitOne}
 	}
 	co2 := a.CO2
 	if co2 == 0 {

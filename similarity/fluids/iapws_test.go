@@ -4,6 +4,7 @@ import (
 	"math"
 	"testing"
 
+	"similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/fluids"
 )
 
@@ -32,7 +33,7 @@ func TestSeaWaterAgainstIAPWS08(t *testing.T) {
 		{40, 40, 1021.5318},
 	}
 	for _, c := range cases {
-		s, err := fluids.Water{Salinity: c.sa}.AtCelsius(c.t)
+		s, err := fluids.Water{Salinity: quantity.New(c.sa/1000, quantity.Dimensionless)}.AtCelsius(c.t)
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -15,10 +15,11 @@ import (
 // 0.5 % of the reference equation of state for air between 250 and
 // 350 K at one atmosphere; it rises above that).
 func (g IdealGas) SpecificHeat() (quantity.Quantity, error) {
-	if err := g.check(); err != nil {
+	c, err := g.constants()
+	if err != nil {
 		return quantity.Quantity{}, err
 	}
-	cp := g.Gamma * g.R / (g.Gamma - 1)
+	cp := c.gamma * c.r / (c.gamma - 1)
 	if math.IsInf(cp, 0) {
 		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "constants (R, γ) giving a finite specific heat γR/(γ − 1)", Value: cp, Lo: 0, Hi: math.MaxFloat64, Unit: "J/(kg·K)"}
 	}
@@ -29,20 +30,25 @@ func (g IdealGas) SpecificHeat() (quantity.Quantity, error) {
 // Sutherland's law with the constants of F. M. White, Viscous Fluid Flow
 // (Table 1-3; air k₀ = 0.0241 W/(m·K), S = 194 K; nitrogen 0.0242,
 // 150 K; quoted from memory), stated there to within a few per cent from
-// 160 to 2000 K; outside that range, or for a gas without the constants,
-// a *RangeError.
+// 160 to 2000 K; outside that range, or for a gas without the constants
+// (KRef, KTemp, KS), a *RangeError. A constant of the wrong dimension is
+// an ErrDimension naming its field.
 func (g IdealGas) ThermalConductivity(T quantity.Quantity) (quantity.Quantity, error) {
 	if err := T.CheckNamed("temperature", quantity.Temperature); err != nil {
 		return quantity.Quantity{}, err
 	}
-	if !(g.KRef > 0 && g.KTemp > 0 && g.KS > 0) {
-		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "thermal conductivity constants (none given)", Value: g.KRef, Lo: 0, Hi: math.Inf(1), Unit: "W/(m·K)"}
+	c, err := g.constants()
+	if err != nil {
+		return quantity.Quantity{}, err
+	}
+	if !(c.kRef > 0 && c.kTemp > 0 && c.kS > 0) {
+		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "thermal conductivity constants (none given)", Value: c.kRef, Lo: 0, Hi: math.Inf(1), Unit: "W/(m·K)"}
 	}
 	t := T.Value()
 	if !(t >= 160 && t <= 2000) {
 		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "temperature for the conductivity law", Value: t, Lo: 160, Hi: 2000, Unit: "K"}
 	}
-	k := g.KRef * math.Pow(t/g.KTemp, 1.5) * (g.KTemp + g.KS) / (t + g.KS)
+	k := c.kRef * math.Pow(t/c.kTemp, 1.5) * (c.kTemp + c.kS) / (t + c.kS)
 	if !(k > 0) || math.IsInf(k, 0) {
 		return quantity.Quantity{}, &RangeError{Fluid: g.GasName, What: "conductivity constants giving a finite conductivity at this temperature", Value: t, Lo: 160, Hi: 2000, Unit: "K"}
 	}
@@ -80,8 +86,11 @@ func (w Water) ThermalConductivity(T quantity.Quantity) (quantity.Quantity, erro
 	if err := T.CheckNamed("temperature", quantity.Temperature); err != nil {
 		return quantity.Quantity{}, err
 	}
-	if w.Salinity != 0 {
-		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "salinity for the conductivity correlation (fresh water only)", Value: w.Salinity, Lo: 0, Hi: 0, Unit: "g/kg"}
+	if s, err := w.salinity(); err != nil || s != 0 {
+		if err != nil {
+			return quantity.Quantity{}, err
+		}
+		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "absolute salinity (mass fraction) for the conductivity correlation (fresh water only)", Value: s, Lo: 0, Hi: 0, Unit: "kg/kg"}
 	}
 	t := T.Value()
 	if !(t >= 274 && t <= 370) {
@@ -110,8 +119,11 @@ func (w Water) SpecificHeat(T quantity.Quantity) (quantity.Quantity, error) {
 	if err := T.CheckNamed("temperature", quantity.Temperature); err != nil {
 		return quantity.Quantity{}, err
 	}
-	if w.Salinity != 0 {
-		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "salinity for the specific heat (fresh water only)", Value: w.Salinity, Lo: 0, Hi: 0, Unit: "g/kg"}
+	if s, err := w.salinity(); err != nil || s != 0 {
+		if err != nil {
+			return quantity.Quantity{}, err
+		}
+		return quantity.Quantity{}, &RangeError{Fluid: w.Name(), What: "absolute salinity (mass fraction) for the specific heat (fresh water only)", Value: s, Lo: 0, Hi: 0, Unit: "kg/kg"}
 	}
 	t := T.Value()
 	n := len(waterCp)

@@ -4,10 +4,13 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"strings"
 	"testing"
 
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/similarity/fluids"
+	"similis.dev/similis/units"
+	"similis.dev/similis/units/formula"
 )
 
 // TestVapourPressureAndSurfaceTension against values computed once with
@@ -251,5 +254,51 @@ func TestVapourPressureSlope(t *testing.T) {
 	}
 	if _, _, err := fluids.VapourPressureSlope(q.New(700, q.Temperature)); !errors.Is(err, q.ErrRange) {
 		t.Errorf("700 K: %v", err)
+	}
+}
+
+// TestSalinityIsAMassFraction: Water.Salinity and the S argument of
+// FormulaFuncs' sea-water functions share one convention, the mass
+// fraction in kg/kg: the reference salinity 35.16504 g/kg (TEOS-10) is
+// 0.03516504 in both, and gives SeaWater's density. A salinity written
+// as 35 (g/kg read as kg/kg) or of another dimension is refused, the
+// range stated in kg/kg.
+func TestSalinityIsAMassFraction(t *testing.T) {
+	ref, err := fluids.SeaWater().AtCelsius(15)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, s := range []q.Quantity{
+		q.New(0.03516504, q.Dimensionless),
+		units.MustParse("g/kg").Of(35.16504),
+	} {
+		st, err := fluids.Water{Salinity: s}.AtCelsius(15)
+		if err != nil || math.Abs(st.Density.Value()/ref.Density.Value()-1) > 1e-12 {
+			t.Errorf("Salinity %v: ρ = %v, %v; SeaWater %v", s, st.Density, err, ref.Density)
+		}
+	}
+	fs := map[string]formula.Func{}
+	for _, f := range fluids.FormulaFuncs() {
+		fs[f.Name] = f
+	}
+	rho, err := fs["rho_sea"].Eval([]float64{288.15, 0.03516504})
+	if err != nil || math.Abs(rho/ref.Density.Value()-1) > 1e-12 {
+		t.Errorf("rho_sea(288.15 K, 0.03516504) = %v, %v; SeaWater %v", rho, err, ref.Density)
+	}
+	var re *fluids.RangeError
+	_, err = fluids.Water{Salinity: q.New(35, q.Dimensionless)}.AtCelsius(15)
+	if !errors.As(err, &re) || re.Unit != "kg/kg" || re.Hi != 0.045 || !errors.Is(err, q.ErrRange) {
+		t.Errorf("salinity 35 kg/kg: %v", err)
+	}
+	_, err = fs["rho_sea"].Eval([]float64{288.15, 35})
+	if !errors.As(err, &re) || !strings.Contains(err.Error(), "35 kg/kg outside 0 … 0.045 kg/kg") {
+		t.Errorf("rho_sea(T, 35): %v", err)
+	}
+	_, err = fluids.Water{Salinity: q.New(35, q.Density)}.AtCelsius(15)
+	if !errors.Is(err, q.ErrDimension) || !strings.Contains(err.Error(), "Water.Salinity") {
+		t.Errorf("salinity as a density: %v", err)
+	}
+	if _, err := fluids.SeaWater().SpecificHeat(q.New(288.15, q.Temperature)); !errors.As(err, &re) || re.Unit != "kg/kg" {
+		t.Errorf("sea water's specific heat: %v", err)
 	}
 }

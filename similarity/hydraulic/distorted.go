@@ -1,6 +1,7 @@
 package hydraulic
 
 import (
+	"fmt"
 	"math"
 
 	"similis.dev/similis/pigroups"
@@ -91,4 +92,30 @@ func ManningRatio(lengthRatio float64) (float64, error) {
 	}
 	r := math.Pow(lengthRatio, 1.0/6)
 	return r, fail("Manning ratio", similarity.CheckRatios(similarity.Result{Name: "Manning's n", Value: r}))
+}
+
+// MaxCommonDistortion is the largest vertical exaggeration λ_z/λ_x that
+// common practice accepts for a distorted river model: river models are
+// seldom distorted more than 5 to 10 times (common practice), since
+// beyond it the flow's vertical structure (secondary currents,
+// separation, the steepened side slopes of a movable bed) departs from
+// the prototype's.
+const MaxCommonDistortion = 10.0
+
+// DistortionCheck checks a distorted model's vertical exaggeration
+// (Distorted.Distortion) against MaxCommonDistortion, an upper limit: a
+// model beyond it fails with a warning that its flow's vertical structure
+// is not the prototype's. The exaggeration must be at least 1 and finite.
+func DistortionCheck(d Distorted) (ScaleCheck, error) {
+	x := d.Distortion
+	if !(x >= 1) || math.IsInf(x, 0) {
+		return ScaleCheck{}, &Error{Op: "distortion check", Fault: similarity.Invalid("", fmt.Sprintf("exaggeration %.4g: want at least 1 and finite (the vertical scale at most the horizontal's 1:x)", x))}
+	}
+	c := ScaleCheck{Name: "vertical exaggeration λ_z/λ_x", Value: x, Limit: MaxCommonDistortion, Unit: "1", Upper: true,
+		Pass:  x <= MaxCommonDistortion,
+		Basis: "common practice for river models, seldom distorted more than 5 to 10 times"}
+	if !c.Pass {
+		c.Warning = "distortion beyond common practice: secondary currents, separation and side slopes (steepened by the exaggeration) are not the prototype's, so velocities, scour and deposition read from this model are unreliable"
+	}
+	return c, nil
 }

@@ -5,6 +5,7 @@ import (
 	"go/ast"
 	"go/parser"
 	"go/token"
+	"math"
 	"slices"
 	"strings"
 	"testing"
@@ -53,5 +54,49 @@ func TestDistortedFroudeDocumentsVariables(t *testing.T) {
 	}
 	if !cmp.Equal(r, similarity.Ratio{}) {
 		t.Errorf("Ratio(\"nope\") = %+v beside its error, want the zero Ratio", r)
+	}
+}
+
+// TestDistortionCheck: the exaggeration λ_z/λ_x against the 10 of common
+// practice for river models, an upper limit: 1:120 across and 1:30 deep
+// is 4 (passes), 1:5000 and 1:2 is 2500 (fails, with the warning), and
+// exactly 10 passes.
+func TestDistortionCheck(t *testing.T) {
+	for _, c := range []struct {
+		h, v float64
+		pass bool
+		want string
+	}{
+		{120, 30, true, "vertical exaggeration λ_z/λ_x = 4.00 (limit ≤ 10, common practice for river models, seldom distorted more than 5 to 10 times): passes"},
+		{1000, 100, true, "= 10.0 (limit ≤ 10"},
+		{5000, 2, false, "= 2500 (limit ≤ 10, common practice for river models, seldom distorted more than 5 to 10 times): FAILS: distortion beyond common practice"},
+	} {
+		d, err := hydraulic.DistortedFroude(hydraulic.DistortedScales{Horizontal: 1 / c.h, Vertical: 1 / c.v})
+		if err != nil {
+			t.Fatal(err)
+		}
+		ck, err := hydraulic.DistortionCheck(d)
+		if err != nil || ck.Pass != c.pass || !ck.Upper || !strings.Contains(ck.String(), c.want) {
+			t.Errorf("1:%g, 1:%g: %v, %v; want %q", c.h, c.v, ck, err, c.want)
+		}
+	}
+	if _, err := hydraulic.DistortionCheck(hydraulic.Distorted{Distortion: 0.5}); !errors.Is(err, q.ErrInvalid) {
+		t.Errorf("exaggeration 0.5: %v", err)
+	}
+}
+
+// TestGrainClass: the ISO 14688-1 size bands (from memory), a boundary in
+// the coarser class: 0.133 mm sand, 1250 mm boulders.
+func TestGrainClass(t *testing.T) {
+	for _, c := range []struct {
+		mm   float64
+		want string
+	}{
+		{0.001, "clay"}, {0.002, "silt"}, {0.0083, "silt"}, {0.063, "sand"}, {0.133, "sand"}, {1, "sand"}, {2, "gravel"},
+		{62.9, "gravel"}, {63, "cobbles"}, {199, "cobbles"}, {200, "boulders"}, {1250, "boulders"}, {0, ""}, {math.Inf(1), ""}, {math.NaN(), ""},
+	} {
+		if got := hydraulic.GrainClass(c.mm / 1000); got != c.want {
+			t.Errorf("%v mm: %q, want %q", c.mm, got, c.want)
+		}
 	}
 }

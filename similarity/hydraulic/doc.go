@@ -8,7 +8,9 @@
 //  1. Scales. The core's similarity.Froude gives the ratios of an
 //     undistorted model (λ_V = λ_L^(1/2), λ_Q = λ_L^(5/2));
 //     DistortedFroude those of a distorted one from its horizontal and
-//     vertical length ratios (DistortedScales).
+//     vertical length ratios (DistortedScales), and DistortionCheck
+//     checks its exaggeration against common practice
+//     (MaxCommonDistortion).
 //  2. Roughness. ManningRatio gives Manning's n of an undistorted model,
 //     λ_n = λ_L^(1/6); ModelManningCheck checks the n the model needs
 //     against the smoothest model materials (SmoothestModelManning).
@@ -16,7 +18,8 @@
 //     and particle Reynolds number of a bed (ShieldsInput); SedimentFor
 //     the bed-shear, grain and Re* ratios (SedimentRatios);
 //     ParticleReynoldsCheck whether a model grain stays out of the
-//     viscous range (Re* ≥ ViscousParticleReynolds).
+//     viscous range (Re* ≥ ViscousParticleReynolds); GrainClass names a
+//     grain's size class (sand, gravel, cobbles, boulders …).
 //  4. Scale effects. FreeSurfaceChecks checks that viscosity and surface
 //     tension stay negligible in the model (Reynolds and Weber numbers,
 //     the head over a crest) against FreeSurfaceLimits, whose limits

@@ -72,13 +72,17 @@ type ScaleCheck struct {
 	Unit         string // of Value and Limit, "1" for a number
 	Pass         bool
 	Basis        string // where the limit comes from
+	// Upper says the limit is a maximum: the check passes at Value ≤
+	// Limit (an exaggeration, say) rather than Value ≥ Limit.
+	Upper bool
 	// Warning says what a failed check means for the model; empty for a
 	// check that passes, or when the general "scale effects likely" says it.
 	Warning string
 }
 
 // String writes "Re = V·h/ν = 4.20e+04 (limit ≥ 1e+04, common practice):
-// passes" or "… FAILS: scale effects likely" (or the check's Warning);
+// passes" or "… FAILS: scale effects likely" (or the check's Warning),
+// "limit ≤" for an Upper limit;
 // the value has three significant figures, trailing zeros kept, plain
 // from 0.001 to 10⁴ and with an exponent outside it.
 func (c ScaleCheck) String() string {
@@ -97,7 +101,11 @@ func (c ScaleCheck) String() string {
 	if c.Basis != "" {
 		basis = ", " + c.Basis
 	}
-	return fmt.Sprintf("%s = %s%s (limit ≥ %.3g%s%s): %s", c.Name, sig3(c.Value), unit, c.Limit, unit, basis, verdict)
+	rel := "≥"
+	if c.Upper {
+		rel = "≤"
+	}
+	return fmt.Sprintf("%s = %s%s (limit %s %.3g%s%s): %s", c.Name, sig3(c.Value), unit, rel, c.Limit, unit, basis, verdict)
 }
 
 // sig3 writes x to three significant figures, trailing zeros kept: in
@@ -294,6 +302,29 @@ func ParticleReynoldsCheck(reStar float64) (ScaleCheck, error) {
 		c.Warning = "the grain is in the viscous range; its threshold of motion departs from the prototype's (a coarser, lighter grain raises Re*)"
 	}
 	return c, nil
+}
+
+// GrainClass names the size class of a grain of diameter d (m) by the
+// bands of ISO 14688-1 (from memory): clay below 0.002 mm, silt 0.002 to
+// 0.063 mm, sand 0.063 to 2 mm, gravel 2 to 63 mm, cobbles 63 to 200 mm,
+// boulders above 200 mm (a grain on a boundary is in the coarser class).
+// A d that is not positive and finite gives "".
+func GrainClass(d float64) string {
+	switch {
+	case !(d > 0) || math.IsInf(d, 0):
+		return ""
+	case d < 0.002e-3:
+		return "clay"
+	case d < 0.063e-3:
+		return "silt"
+	case d < 2e-3:
+		return "sand"
+	case d < 63e-3:
+		return "gravel"
+	case d < 200e-3:
+		return "cobbles"
+	}
+	return "boulders"
 }
 
 // SmoothestModelManning is about the smallest Manning n, in s·m^(−1/3),

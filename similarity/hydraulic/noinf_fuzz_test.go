@@ -47,5 +47,8 @@ func FuzzHydraulic(f *testing.F) {
 		finite("ManningRatio", err, mr)
 		dist, err := hydraulic.DistortedFroude(hydraulic.DistortedScales{Horizontal: a, Vertical: h})
 		finite("DistortedFroude", err, dist.Distortion, dist.Velocity, dist.Time, dist.Discharge, dist.Area, dist.Slope, dist.Manning)
+		dc, err := hydraulic.DistortionCheck(hydraulic.Distorted{Distortion: v})
+		finite("DistortionCheck", err, dc.Value, dc.Limit)
+		_ = hydraulic.GrainClass(h)
 	})
 }

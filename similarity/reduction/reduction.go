@@ -311,6 +311,11 @@ func (r *run) plan(src chanfile.Source) error {
 		idents := identifiers(s.Derive)
 		for _, c := range cols {
 			if idents[c.Name] || !isIdentifier(c.Name) && strings.Contains(s.Derive, c.Name) {
+				if c.Fault != nil {
+					// A column the source cannot read has no unit to
+					// compile against: its fault, not a dimension error.
+					return wrap(r.in.Name, c.Fault)
+				}
 				inputs = append(inputs, formula.Input{Name: c.Name, Dim: r.dimOf(c)})
 			}
 		}

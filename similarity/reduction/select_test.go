@@ -54,8 +54,9 @@ func exportWithUnused(t *testing.T) []byte {
 }
 
 // TestUnusedColumnsNeverParsed: a bad value in a column the spec does not
-// use fails neither the CSV nor the Parquet reduction, whose points are
-// those of the clean file; read whole, the same CSV fails at that value.
+// use fails neither the CSV reduction, nor the Parquet one with a column
+// the reader does not read (JSON); the points are those of the clean
+// file. Read whole, the same CSV fails at that value.
 func TestUnusedColumnsNeverParsed(t *testing.T) {
 	dir := t.TempDir()
 	spec := carriageSpec(t)
@@ -81,8 +82,8 @@ func TestUnusedColumnsNeverParsed(t *testing.T) {
 	}
 	samePoints(t, "CSV", clean, got)
 
-	// Parquet: the carriage's channels and a BOOLEAN column, a type the
-	// reader does not read.
+	// Parquet: the carriage's channels and a JSON column, a logical type
+	// the reader does not read (it lists the column with its Fault).
 	b, _ := os.ReadFile("testdata/carriage.csv")
 	rd, err = chanfile.NewReader(bytes.NewReader(b), "carriage.csv", chanfile.Options{})
 	if err != nil {
@@ -92,7 +93,7 @@ func TestUnusedColumnsNeverParsed(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	g := parquet.Group{"valve open": parquet.Leaf(parquet.BooleanType)}
+	g := parquet.Group{"valve log": parquet.JSON()}
 	opts := []parquet.WriterOption{}
 	for _, c := range rd.Columns() {
 		g[c.Name] = parquet.Leaf(parquet.DoubleType)
@@ -105,7 +106,7 @@ func TestUnusedColumnsNeverParsed(t *testing.T) {
 	fields := schema.Fields() // sorted by name
 	for i := range rows {
 		for j, f := range fields {
-			v := parquet.BooleanValue(i%2 == 0)
+			v := parquet.ByteArrayValue([]byte(`{"valve":"open"}`))
 			if k := colIndex(rd.Columns(), f.Name()); k >= 0 {
 				u := rd.Columns()[k].Unit // written in the CSV's unit
 				v = parquet.DoubleValue((data[k].Values()[i] - u.Offset()) / u.Factor())
@@ -119,15 +120,37 @@ func TestUnusedColumnsNeverParsed(t *testing.T) {
 	if err := w.Close(); err != nil {
 		t.Fatal(err)
 	}
+	if err := unreadColumn(buf.Bytes(), "valve log"); err != nil {
+		t.Fatal(err)
+	}
 	pqPath := filepath.Join(dir, "export.parquet")
 	if err := os.WriteFile(pqPath, buf.Bytes(), 0o644); err != nil {
 		t.Fatal(err)
 	}
 	got, err = spec.Reduce(reduction.File(pqPath, reduction.FileOptions{}))
 	if err != nil {
-		t.Fatalf("Parquet with a BOOLEAN column: %v", err)
+		t.Fatalf("Parquet with a JSON column: %v", err)
 	}
 	samePoints(t, "Parquet", clean, got)
+}
+
+// unreadColumn returns nil if the Parquet file b lists the column name
+// with a Fault (a column the reader does not read), and otherwise an
+// error saying why not: the test then no longer tests what it says.
+func unreadColumn(b []byte, name string) error {
+	r, err := parquetfile.NewReader(bytes.NewReader(b), int64(len(b)), "export.parquet", parquetfile.Options{})
+	if err != nil {
+		return err
+	}
+	for _, c := range r.Columns() {
+		if c.Name == name || c.Header == name {
+			if c.Fault == nil {
+				return errors.New("column " + name + " is read: choose a type the reader does not read")
+			}
+			return nil
+		}
+	}
+	return errors.New("no column " + name)
 }
 
 func colIndex(cols []chanfile.Column, name string) int {

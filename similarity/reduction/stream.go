@@ -420,7 +420,7 @@ func pointOf(set *uncertain.Set, tag string, w steady.Window, names []string, di
 		lim := lims[k]
 		if lim.Dim() != dims[k] {
 			return steady.Point{}, &steady.Error{Op: op, Channel: name, Row: -1, Reason: "drift limit",
-				Err: &quantity.DimensionError{Op: "check", Name: name + " drift limit", Left: lim.Dim(), Right: dims[k], Binary: true}}
+				Err: &quantity.Error{Op: "check", Name: name + " drift limit", Dims: [2]quantity.Dim{lim.Dim(), dims[k]}, Binary: true, Class: quantity.ErrDimension}}
 		}
 		if !(lim.Value() > 0) || math.IsInf(lim.Value(), 0) {
 			return steady.Point{}, &steady.Error{Op: op, Channel: name, Row: -1, Reason: fmt.Sprintf("drift limit %v: want a finite value > 0", lim)}

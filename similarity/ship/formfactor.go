@@ -62,6 +62,23 @@ func Prohaska(froude, ct, cf []float64, maxFroude float64) (ProhaskaResult, erro
 	return ProhaskaWith(froude, ct, cf, ProhaskaOptions{MaxFroude: maxFroude})
 }
 
+// thirdFroude says how high the Froude-number limit must be to take in
+// three usable runs (the third-lowest Fn, rounded up to three decimals),
+// or that the runs have fewer than three usable ones.
+func thirdFroude(froude, ct, cf []float64) string {
+	var fns []float64
+	for i, fn := range froude {
+		if fn > 0 && cf[i] > 0 && ct[i] > 0 {
+			fns = append(fns, fn)
+		}
+	}
+	if len(fns) < 3 {
+		return fmt.Sprintf(", and only %d of the runs have positive Fn, C_T and C_F", len(fns))
+	}
+	slices.Sort(fns)
+	return fmt.Sprintf(": raise the limit to at least %.3f (the third-lowest run's Fn)", math.Ceil(fns[2]*1000)/1000)
+}
+
 // ProhaskaWith is Prohaska with the Froude-number exponent chosen or
 // fitted and a warning on laminar runs.
 func ProhaskaWith(froude, ct, cf []float64, o ProhaskaOptions) (ProhaskaResult, error) {
@@ -87,7 +104,7 @@ func ProhaskaWith(froude, ct, cf []float64, o ProhaskaOptions) (ProhaskaResult, 
 		}
 	}
 	if len(runs) < 3 {
-		return ProhaskaResult{}, m(fmt.Sprintf("%d runs at Fn ≤ %g; at least 3 are needed", len(runs), o.MaxFroude))
+		return ProhaskaResult{}, m(fmt.Sprintf("%d runs at Fn ≤ %g; at least 3 are needed%s", len(runs), o.MaxFroude, thirdFroude(froude, ct, cf)))
 	}
 	line := func(n float64) (x, y []float64) {
 		for _, i := range runs {

@@ -133,7 +133,7 @@ func TestHullTable(t *testing.T) {
 	}
 	p := res.Points[1]
 	txt, md := res.Table(false), res.Table(true)
-	for _, want := range []string{"Schoenherr", fmt.Sprintf("%.3f", p.ModelCT*1e3), fmt.Sprintf("%.2f", p.ShipResistance.Value()/1e3), "CAUTION:"} {
+	for _, want := range []string{"Schoenherr", fmt.Sprintf("%.3f", p.ModelCT*1e3), fmt.Sprintf("%.1f", p.ShipResistance.Value()/1e3), "R_TS kN", "P_E kW", "CAUTION:"} {
 		if !strings.Contains(txt, want) || !strings.Contains(md, want) {
 			t.Errorf("table lacks %q:\n%s", want, txt)
 		}

@@ -332,8 +332,8 @@ func outlierNotes(p *fit.Poly, x, unit, y string) []string {
 	var out []string
 	for _, i := range p.Outliers {
 		r := p.Rows[i]
-		out = append(out, fmt.Sprintf("the run at %s = %.4g%s has an externally studentised residual of %.3g from the faired %s (its residual %.3g is %.3g times the fit's residual standard deviation S = %.2g; an outlier; not dropped)",
-			x, r.X, unit, math.Abs(r.Studentized), y, r.Residual, math.Abs(r.Residual)/p.S, p.S))
+		out = append(out, fmt.Sprintf("the run at %s = %.4g%s has an externally studentised residual of %.3g from the faired %s (its residual %.3g is %.3g times the fit's residual standard deviation S = %s; an outlier; not dropped)",
+			x, r.X, unit, math.Abs(r.Studentized), y, r.Residual, math.Abs(r.Residual)/p.S, sigN(p.S, 2)))
 	}
 	return out
 }

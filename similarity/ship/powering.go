@@ -135,7 +135,8 @@ type PoweringResult struct {
 	// when the input gave none).
 	CP, CN float64
 	// Warning, when not empty, says why the prediction is doubtful: a
-	// negative roughness allowance ΔC_F or residuary coefficient C_R, a
+	// negative roughness allowance ΔC_F, residuary coefficient C_R or
+	// correlation allowance C_A from the procedure's formula, a
 	// model Reynolds number where laminar flow is likely, a model
 	// propeller Reynolds number below the open-water test's usual
 	// minimum. Every report that prints the result prints it.
@@ -158,10 +159,17 @@ const UsualBladeReynolds = 2e5
 // CorrelationAllowanceITTC returns the correlation allowance of the
 // revised ITTC-1978 procedure, C_A = (5.68 − 0.6·log₁₀Re_S)·10⁻³, at the
 // ship's Reynolds number (ITTC 7.5-02-03-01.4, 2017 revision; from
-// memory).
+// memory). It is negative above Re_S = 10^(5.68/0.6) ≈ 2.9×10⁹, beyond
+// the formula's range; ITTC1978 warns when it applies it there.
 func CorrelationAllowanceITTC(shipReynolds float64) float64 {
 	return (5.68 - 0.6*math.Log10(shipReynolds)) * 1e-3
 }
+
+// correlationFormulaLimit is the ship Reynolds number above which
+// CorrelationAllowanceITTC is negative, 10^(5.68/0.6) ≈ 2.9×10⁹: a long,
+// fast ship beyond the formula's range. ITTC1978 warns when it applies
+// the formula there.
+var correlationFormulaLimit = math.Pow(10, 5.68/0.6)
 
 // PoweringCaution is printed with every powering prediction.
 const PoweringCaution = "Delivered power and propeller revolutions predicted from model tests by the ITTC-1978 method are estimates; " +
@@ -388,6 +396,11 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	if r.RoughnessAllowance < 0 {
 		warn = append(warn, fmt.Sprintf("the roughness allowance ΔC_F = %.3f×10⁻³ is negative and lowers C_TS by %.1f %%: its formula is outside its range for a hull this short or this slow (L = %.3g m, Re_S = %.3g); the basin's own allowance should replace it",
 			r.RoughnessAllowance*1e3, -100*r.RoughnessAllowance/r.ShipCT, ls, r.ShipReynolds))
+	}
+	if r.CorrelationFromFormula && r.CorrelationAllowance < 0 {
+		warn = append(warn, fmt.Sprintf("the correlation allowance C_A = %.3f×10⁻³ from the procedure's formula (5.68 − 0.6·log₁₀Re_S)·10⁻³ is negative and lowers C_TS by %.1f %%: "+
+			"the ship Reynolds number Re_S = %.3g is above %.3g, where the formula changes sign, so it is used beyond its range (L = %.3g m); the basin's own allowance should replace it",
+			r.CorrelationAllowance*1e3, -100*r.CorrelationAllowance/r.ShipCT, r.ShipReynolds, correlationFormulaLimit, ls))
 	}
 	if r.ModelCT > MaxPlausibleCT {
 		warn = append(warn, implausibleCT(r.ModelCT))

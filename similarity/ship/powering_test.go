@@ -158,7 +158,7 @@ func TestPoweringTable(t *testing.T) {
 	}
 	txt := ship.PoweringTable([]ship.PoweringResult{r}, false)
 	md := ship.PoweringTable([]ship.PoweringResult{r}, true)
-	for _, want := range []string{"16.66", "390.9", "3351", "0.283", "0.603", "98.6", "4691", "CAUTION:", "n in rev/s"} {
+	for _, want := range []string{"16.66", "390.9", "3351", "0.283", "0.603", "98.6", "4691", "R_TS kN", "P_E kW", "P_D kW", "CAUTION:", "n in rev/s"} {
 		if !strings.Contains(txt, want) || !strings.Contains(md, want) {
 			t.Errorf("table lacks %q:\n%s\n%s", want, txt, md)
 		}

@@ -104,8 +104,8 @@ func TestOutlierNoteLabel(t *testing.T) {
 		t.Fatal("no outlier flagged")
 	}
 	row := ow.KT.Rows[ow.KT.Outliers[0]]
-	want := fmt.Sprintf("has an externally studentised residual of %.3g from the faired K_T (its residual %.3g is %.3g times the fit's residual standard deviation S = %.2g",
-		math.Abs(row.Studentized), row.Residual, math.Abs(row.Residual)/ow.KT.S, ow.KT.S)
+	want := fmt.Sprintf("has an externally studentised residual of %.3g from the faired K_T (its residual %.3g is %.3g times the fit's residual standard deviation S = ",
+		math.Abs(row.Studentized), row.Residual, math.Abs(row.Residual)/ow.KT.S)
 	if !strings.Contains(ow.Warning, want) {
 		t.Errorf("warning %q\nlacks %q", ow.Warning, want)
 	}

@@ -61,6 +61,45 @@ func TestITTC1978NegativeRoughnessAllowanceWarned(t *testing.T) {
 	}
 }
 
+// TestITTC1978NegativeCorrelationAllowanceWarned: a 200 m ship (1:100)
+// at V_S = 2.4·10 = 24 m/s has, by hand, Re_S = 24·200/1.1892e-6 =
+// 4.036×10⁹ and C_A = (5.68 − 0.6·log₁₀4.036e9)·10⁻³ = (5.68 − 5.7636)
+// ·10⁻³ = −0.084×10⁻³, above the sign change at 10^(5.68/0.6) =
+// 2.93×10⁹: the formula's C_A goes in with a warning naming Re_S, as a
+// negative ΔC_F does; a basin's own negative C_A is its choice and is
+// not warned about.
+func TestITTC1978NegativeCorrelationAllowanceWarned(t *testing.T) {
+	in := slowShortInput()
+	in.Scale = 1.0 / 100
+	in.ModelSpeed, in.ModelResistance = quantity.New(2.4, quantity.Velocity), quantity.New(38.1, quantity.Force)
+	in.TransverseArea = quantity.New(48*(100.0/16)*(100.0/16), quantity.Area)
+	in.Propeller.Diameter, in.Propeller.Chord = quantity.New(8.4375, quantity.Length), quantity.New(2.3125, quantity.Length)
+	r, err := ship.ITTC1978(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := (5.68 - 0.6*math.Log10(r.ShipReynolds)) * 1e-3
+	if !r.CorrelationFromFormula || math.Abs(r.CorrelationAllowance-want) > 1e-15 || math.Abs(r.ShipReynolds/4.036e9-1) > 0.002 || math.Abs(want*1e3+0.084) > 0.001 {
+		t.Errorf("C_A = %v at Re_S = %v, by hand %v (≈ −0.084e-3 at 4.036e9)", r.CorrelationAllowance, r.ShipReynolds, want)
+	}
+	for _, s := range []string{"the correlation allowance C_A = -0.084×10⁻³ from the procedure's formula", "is negative and lowers C_TS by",
+		"Re_S = 4.04e+09 is above 2.93e+09", "used beyond its range (L = 200 m)"} {
+		if !strings.Contains(r.Warning, s) {
+			t.Errorf("warning lacks %q: %q", s, r.Warning)
+		}
+	}
+	// The 200 m ship's figures take the prefix their size calls for:
+	// R_TS = C_TS·½ρV²S in MN, not tens of thousands of kN.
+	if tab := ship.PoweringTable([]ship.PoweringResult{r}, false); !strings.Contains(tab, "WARNING (46.65 kn): ") || !strings.Contains(tab, "C_A = -0.084×10⁻³") ||
+		!strings.Contains(tab, "R_TS MN") || !strings.Contains(tab, "P_D MW") || !strings.Contains(tab, fmt.Sprintf(" %.4g ", r.ShipResistance.Value()/1e6)) {
+		t.Errorf("table:\n%s", tab)
+	}
+	in.CorrelationAllowance = -0.0001
+	if r, err := ship.ITTC1978(in); err != nil || strings.Contains(r.Warning, "correlation allowance") {
+		t.Errorf("the basin's own C_A: %v, %q", err, r.Warning)
+	}
+}
+
 // TestITTC1978NegativeResidualWarned: a model resistance below
 // (1 + k)·C_FM gives a negative C_R, which goes in with a warning.
 func TestITTC1978NegativeResidualWarned(t *testing.T) {

@@ -301,23 +301,31 @@ func band(pt *SpeedPowerPoint, base PoweringInput, sp SelfPropulsionTest, orders
 }
 
 // Table writes the speed–power curve as the trade presents it: per
-// speed V_S (kn), P_E (kW), w_TS, t, η_R, η_D, n (rpm) with its band and
-// P_D (kW, all shafts) with its band at Level; then the method of the
+// speed V_S (kn), P_E, w_TS, t, η_R, η_D, n (rpm) with its band and P_D
+// (all shafts) with its band at Level, P_E and P_D to four significant
+// figures, each in the unit with the SI prefix its column's largest
+// value calls for (W, kW or MW, named in the header); then the method of the
 // band, every warning (the fits', each self-propulsion run's, each
 // speed's) and the caution.
 func (s *SpeedPower) Table(md bool) string {
 	pc := fmt.Sprintf("%.0f %%", 100*s.Level)
-	head := []string{"V_S kn", "P_E kW", "w_TS", "t", "η_R", "η_D", "n rpm", "n " + pc + " rpm", "P_D kW", "P_D " + pc + " kW", "±%"}
+	var pes, pds []float64
+	for _, p := range s.Points {
+		pes, pds = append(pes, p.EffectivePower.Value()), append(pds, max(p.DeliveredPower.Value(), p.Power[1]))
+	}
+	ec, dc := siColumn(pes, "W"), siColumn(pds, "W")
+	head := []string{"V_S kn", "P_E " + ec.unit, "w_TS", "t", "η_R", "η_D", "n rpm", "n " + pc + " rpm", "P_D " + dc.unit, "P_D " + pc + " " + dc.unit, "±%"}
 	var rows [][]string
 	var warn []string
 	for _, p := range s.Points {
 		vk := p.ShipSpeed.Value() * 3600 / 1852
 		pd := p.DeliveredPower.Value()
+		d := dc.decimals(pd)
 		rows = append(rows, []string{
-			fmt.Sprintf("%.2f", vk), fmt.Sprintf("%.0f", p.EffectivePower.Value()/1e3),
+			fmt.Sprintf("%.2f", vk), ec.cell(p.EffectivePower.Value()),
 			fmt.Sprintf("%.3f", p.ShipWake), fmt.Sprintf("%.3f", p.ThrustDeduction), fmt.Sprintf("%.3f", p.EtaR), fmt.Sprintf("%.3f", p.EtaD),
 			fmt.Sprintf("%.1f", p.RPM), fmt.Sprintf("%.1f … %.1f", 60*p.Revs[0], 60*p.Revs[1]),
-			fmt.Sprintf("%.0f", pd/1e3), fmt.Sprintf("%.0f … %.0f", p.Power[0]/1e3, p.Power[1]/1e3),
+			dc.cell(pd), fmt.Sprintf("%.*f … %.*f", d, p.Power[0]/dc.scale, d, p.Power[1]/dc.scale),
 			fmt.Sprintf("%.1f", 100*(p.Power[1]-pd)/pd),
 		})
 		if p.Warning != "" {

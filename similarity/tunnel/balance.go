@@ -144,12 +144,19 @@ func (cr ComponentRange) holds(v float64) bool {
 // with x the readings and y the loads (LoadsFromReadings), or x the loads
 // and y the readings (ReadingsFromLoads). The second-order columns run
 // over the pairs j ≤ k in the order (1,1), (1,2), …, (1,n), (2,2), …,
-// (n,n): n(n+1)/2 of them. This is the linear-plus-quadratic model of
-// internal balance calibration; the absolute-value terms that some
-// calibrations add for loads of either sign are not modelled (the
-// recommended practice for internal balances, AIAA R-091-2003, describes
-// both the model and the iterative use of the readings-from-loads form;
-// from memory).
+// (n,n): n(n+1)/2 of them. This is the linear-plus-quadratic part of the
+// calibration model of AIAA R-091-2003 (Recommended Practice:
+// Calibration and Use of Internal Strain-Gage Balances with Application
+// to Wind Tunnel Testing), §3.1.1, whose full model for six components
+// has 96 terms, with absolute-value and third-order terms besides the
+// linear and quadratic ones (its two-component worked example leaves
+// them out just as this type does). The absolute-value and third-order
+// terms are not modelled here. The practice's iterative method fits the
+// readings as functions of the loads and recovers the loads from the
+// readings by iteration during the test (the ReadingsFromLoads form; the
+// method as NASA Ames' balance papers describe it, e.g. N. Ulbrich,
+// Improved Regression Analysis of Temperature-Dependent Strain-Gage
+// Balance Calibration Data).
 //
 // Loads are in SI (N, N·m) and readings in ReadingUnit (mV/V, say),
 // as given; the readings are referred to the balance's unloaded zero.
@@ -189,7 +196,7 @@ func NewCalibration(name string, form Form, readingUnit string, comps []Componen
 		}
 		seen[cr.Component] = true
 		if !(cr.Min < cr.Max) || math.IsInf(cr.Min, 0) || math.IsInf(cr.Max, 0) {
-			return nil, &Error{Op: op, Fault: similarity.Invalid(cr.Component.String(), fmt.Sprintf("the calibrated range of %v, %g … %g, must be finite with min < max", cr.Component, cr.Min, cr.Max))}
+			return nil, &Error{Op: op, Fault: similarity.Invalid(cr.Component.String(), fmt.Sprintf("the calibrated range of %v, %s … %s, must be finite with min < max", cr.Component, sig(cr.Min, 6), sig(cr.Max, 6)))}
 		}
 	}
 	nq := n * (n + 1) / 2
@@ -348,8 +355,8 @@ func (c *Calibration) Loads(readings []float64) (Loads, error) {
 	var l Loads
 	for i, cr := range c.comps {
 		if !cr.holds(f[i]) {
-			return Loads{}, &Error{Op: op, Fault: similarity.OutOfRange(cr.Component.String(), fmt.Sprintf("%v = %.6g %s is outside the calibrated range %g … %g: the calibration does not hold there and the balance may be overloaded",
-				cr.Component, f[i], unitOf(cr.Component), cr.Min, cr.Max))}
+			return Loads{}, &Error{Op: op, Fault: similarity.OutOfRange(cr.Component.String(), fmt.Sprintf("%v = %.6g %s is outside the calibrated range %s … %s: the calibration does not hold there and the balance may be overloaded",
+				cr.Component, f[i], unitOf(cr.Component), sig(cr.Min, 6), sig(cr.Max, 6)))}
 
 		}
 		l[cr.Component] = f[i]
@@ -368,7 +375,7 @@ func (c *Calibration) Readings(l Loads) ([]float64, error) {
 	for i, cr := range c.comps {
 		f[i] = l[cr.Component]
 		if !cr.holds(f[i]) {
-			return nil, &Error{Op: op, Fault: similarity.OutOfRange(cr.Component.String(), fmt.Sprintf("%v = %.6g %s is outside the calibrated range %g … %g", cr.Component, f[i], unitOf(cr.Component), cr.Min, cr.Max))}
+			return nil, &Error{Op: op, Fault: similarity.OutOfRange(cr.Component.String(), fmt.Sprintf("%v = %.6g %s is outside the calibrated range %s … %s", cr.Component, f[i], unitOf(cr.Component), sig(cr.Min, 6), sig(cr.Max, 6)))}
 		}
 	}
 	r := make([]float64, n)

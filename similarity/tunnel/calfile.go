@@ -199,7 +199,7 @@ func ParseCalibration(r io.Reader) (*Calibration, error) {
 			}
 			k := u.Factor()
 			if !(lo < hi) || math.IsInf(lo*k, 0) || math.IsInf(hi*k, 0) {
-				return nil, perr(ln, quantity.ErrRange, c.String(), "the range of %v, %g … %g, must be finite with min < max", c, lo, hi)
+				return nil, perr(ln, quantity.ErrRange, c.String(), "the range of %v, %s … %s, must be finite with min < max", c, sig(lo, 6), sig(hi, 6))
 			}
 			comps = append(comps, ComponentRange{Component: c, Min: lo * k, Max: hi * k})
 			factors = append(factors, k)

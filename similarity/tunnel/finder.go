@@ -58,6 +58,22 @@ type Condition struct {
 	Q       quantity.Quantity
 	// Gas is the test gas's name, as the condition was computed for it.
 	Gas string
+	// Z is the estimated compressibility factor p/(ρ·R·T) of a nitrogen
+	// test gas at the static state (fluids.NitrogenCompressibility),
+	// dimensionless; zero when not estimated (another gas, or a state
+	// outside the estimate's range, which Note then says). The
+	// condition itself is the ideal gas's.
+	//
+	// DensityError and ReynoldsError are the relative errors of the
+	// ideal-gas density and model Reynolds number against that
+	// estimate, (ideal − real)/real, dimensionless: Z − 1 for the
+	// density; for Re_m, at the held Mach number, Z·a_ideal/a_real − 1,
+	// since the real speed of sound, and so the test speed, differs too
+	// (the viscosity is the dilute gas's and the total-to-static
+	// relations the perfect gas's in both). A negative ReynoldsError
+	// means the real Re_m is higher than ModelReynolds. When |1 − Z|
+	// exceeds RealGasWarning, Note carries a warning with both.
+	Z, DensityError, ReynoldsError float64
 	// Load is LoadArea·Q, the largest load on the model's load path at
 	// this condition (zero when no LoadArea was given); Overloaded is
 	// set when it exceeds the RatedLoad.
@@ -74,6 +90,11 @@ type Condition struct {
 const Caution = "Pressurised and cryogenic tunnel conditions must stay within the facility's certified operating envelope; " +
 	"pressure vessels are operated to the applicable pressure-equipment code, and every run follows the facility's safety rules " +
 	"under its responsible engineer, whose word overrides any figure computed here."
+
+// RealGasWarning is the departure |1 − Z| of the test gas's estimated
+// compressibility factor from the ideal gas's beyond which the
+// condition's Note warns that its density and Reynolds number are off.
+const RealGasWarning = 0.005
 
 // AsphyxiantCaution is added for a test gas other than air.
 const AsphyxiantCaution = "The test gas is not air: nitrogen or any inert gas vented or leaking into the test hall lowers the oxygen content " +
@@ -100,8 +121,12 @@ const ColdCaution = "Cryogenic gas, liquid nitrogen and cold model, sting and tu
 // at or above the gas's lowest temperature and above its condensation
 // temperature at the static pressure plus the CondensationMargin (zero
 // when unset), and the total temperature at or below the gas's highest;
-// a found state the gas model refuses is never returned. The returned
-// condition carries its safety Cautions, which defer to the facility's
+// a found state the gas model refuses is never returned. The condition
+// is the ideal gas's; for nitrogen it also carries the real gas's
+// estimated compressibility factor at the static state and the errors
+// of the ideal-gas density and Reynolds number (Z, DensityError,
+// ReynoldsError), with a warning in Note beyond RealGasWarning. The
+// returned condition carries its safety Cautions, which defer to the facility's
 // safety rules and its responsible engineer.
 func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLength quantity.Quantity, lengthRatio float64, lim Limits) (Condition, error) {
 	for _, c := range []struct {
@@ -118,7 +143,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 		}
 	}
 	if !(lengthRatio > 0) || math.IsInf(lengthRatio, 0) {
-		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("length ratio", fmt.Sprintf("length ratio %v is not positive and finite", lengthRatio))}
+		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("length ratio", fmt.Sprintf("length ratio %.4g is not positive and finite", lengthRatio))}
 	}
 	tlo, thi, plo, phi := lim.MinTemperature.Value(), lim.MaxTemperature.Value(), lim.MinPressure.Value(), lim.MaxPressure.Value()
 	if !(tlo > 0 && thi >= tlo && plo > 0 && phi >= plo) || math.IsInf(thi+phi, 0) {
@@ -130,7 +155,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	}{{"prototype speed", protoSpeed.Value()}, {"prototype length", protoLength.Value()}, {"prototype density", proto.Density.Value()},
 		{"prototype viscosity", proto.DynamicViscosity.Value()}, {"prototype speed of sound", proto.SpeedOfSound.Value()}} {
 		if !(c.v > 0) || math.IsInf(c.v, 0) {
-			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange(c.n, fmt.Sprintf("%s %v is not positive and finite (a fluid state without a speed of sound cannot set a Mach number)", c.n, c.v))}
+			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange(c.n, fmt.Sprintf("%s %.4g is not positive and finite (a fluid state without a speed of sound cannot set a Mach number)", c.n, c.v))}
 		}
 	}
 	if _, err := gas.LowestTemperature(lim.MinPressure); err != nil {
@@ -144,22 +169,25 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	rep := proto.Density.Value() * protoSpeed.Value() * protoLength.Value() / proto.DynamicViscosity.Value()
 	lm := protoLength.Value() * lengthRatio
 	if !(rep > 0) || math.IsInf(rep, 0) || !(lm > 0) || math.IsInf(lm, 0) {
-		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the full-scale Reynolds number %g and the model length %g m must be positive and finite", rep, lm))}
+		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the full-scale Reynolds number %.4g and the model length %.4g m must be positive and finite", rep, lm))}
 	}
 	tminName, tmaxName := "minimum total temperature", "maximum total temperature"
 	// The gas's own range: the static temperature T₀/tr at or above its
 	// lowest, the total temperature at or below its highest.
-	if g := gas.MinTemperature * tr; g > tlo {
+	// The gas's constants in SI units (K, J/(kg·K)), their dimensions
+	// checked by LowestTemperature above.
+	gmin, gmax, rgas := gas.MinTemperature.Value(), gas.MaxTemperature.Value(), gas.R.Value()
+	if g := gmin * tr; g > tlo {
 		tlo, tminName = g, "lowest temperature of the "+gas.GasName+" model"
-		for i := 0; i < 8 && tlo/tr < gas.MinTemperature; i++ {
+		for i := 0; i < 8 && tlo/tr < gmin; i++ {
 			tlo = math.Nextafter(tlo, math.Inf(1)) // T₀/tr rounded below the bound
 		}
 	}
-	if gas.MaxTemperature > 0 && gas.MaxTemperature < thi {
-		thi, tmaxName = gas.MaxTemperature, "highest temperature of the "+gas.GasName+" model"
+	if gmax > 0 && gmax < thi {
+		thi, tmaxName = gmax, "highest temperature of the "+gas.GasName+" model"
 	}
 	if !(tlo <= thi) {
-		return Condition{}, &fluids.RangeError{Fluid: gas.GasName, Unit: "K", What: fmt.Sprintf("total temperature of the tunnel limits at Mach %.3g (the gas model holds for static temperatures %g … %g K)", ma, gas.MinTemperature, gas.MaxTemperature),
+		return Condition{}, &fluids.RangeError{Fluid: gas.GasName, Unit: "K", What: fmt.Sprintf("total temperature of the tunnel limits at Mach %.3g (the gas model holds for static temperatures %.4g … %.4g K)", ma, gmin, gmax),
 			Value: lim.MaxTemperature.Value(), Lo: tlo, Hi: thi}
 	}
 	// mu is Sutherland's law, NaN outside the gas's range (which the
@@ -171,12 +199,12 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 		}
 		return v.Value()
 	}
-	speed := func(T float64) float64 { return ma * math.Sqrt(gas.Gamma*gas.R*T) }
+	speed := func(T float64) float64 { return ma * math.Sqrt(gas.Gamma*rgas*T) }
 	// need0 is the total pressure that gives the full-scale Reynolds
 	// number at total temperature T0.
 	need0 := func(T0 float64) float64 {
 		T := T0 / tr
-		return pr * rep * mu(T) * gas.R * T / (speed(T) * lm)
+		return pr * rep * mu(T) * rgas * T / (speed(T) * lm)
 	}
 	c := Condition{Mach: ma, FullReynolds: rep, Gas: gas.GasName}
 	pmaxName := "maximum total pressure"
@@ -206,7 +234,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 		}
 		m := mg.Value()
 		if !(m >= 0) || math.IsInf(m, 0) {
-			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the condensation margin %v K must be finite and not negative", m))}
+			return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the condensation margin %.4g K must be finite and not negative", m))}
 		}
 		name := "condensation margin"
 		if !given {
@@ -251,7 +279,7 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	case p0 > phi:
 		p0 = phi
 		c.Binding = append(c.Binding, pmaxName, tminName)
-		c.Note = fmt.Sprintf("the Reynolds number needs a total pressure of %.4g Pa (absolute) even at the lowest allowed total temperature; at the %s it reaches only part of full scale", need0(tlo), pmaxName)
+		c.Note = fmt.Sprintf("the Reynolds number needs a total pressure of %s bar (absolute) even at the lowest allowed total temperature; at the %s it reaches only part of full scale", sig(need0(tlo)/1e5, 3), pmaxName)
 	case p0 < plo:
 		// Warm the gas until the minimum pressure gives the right Re.
 		if need0(thi) < plo {
@@ -281,16 +309,47 @@ func FindCondition(gas fluids.IdealGas, proto fluids.State, protoSpeed, protoLen
 	c.ReynoldsRatio = c.ModelReynolds / rep
 	c.Q = quantity.New(0.5*gas.Gamma*p*ma*ma, quantity.Pressure)
 	if !tunnelFinite(T0, p0, c.Velocity.Value(), c.ModelReynolds, c.ReynoldsRatio, c.Q.Value()) {
-		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the condition is not finite (T₀ = %g K, p₀ = %g Pa absolute, Re_m = %g): the inputs are outside any tunnel's range", T0, p0, c.ModelReynolds))}
+		return Condition{}, &Error{Op: "tunnel condition", Fault: similarity.OutOfRange("", fmt.Sprintf("the condition is not finite (T₀ = %.4g K, p₀ = %.4g Pa absolute, Re_m = %.4g): the inputs are outside any tunnel's range", T0, p0, c.ModelReynolds))}
 	}
 	c.Achieved = math.Abs(c.ReynoldsRatio-1) < 1e-6
 	if c.Achieved {
 		c.Note = "Mach and Reynolds numbers both held"
 	}
+	if gas.Saturation == fluids.NitrogenSaturation {
+		c.realGas()
+	}
 	if err := c.caution(gas, lim); err != nil {
 		return Condition{}, err
 	}
 	return c, nil
+}
+
+// plainSig writes x with at least n significant figures in plain
+// decimals (a whole number when it has n digits before the point), for
+// the load notes: plainSig(4993.2, 4) is 4993, plainSig(0.39904, 4)
+// 0.3990, plainSig(113.4, 2) 113, plainSig(0.0100, 2) 0.010.
+func plainSig(x float64, n int) string {
+	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) {
+		return fmt.Sprint(x)
+	}
+	return fmt.Sprintf("%.*f", max(0, n-1-int(math.Floor(math.Log10(math.Abs(x))))), x)
+}
+
+// overloadRemedy says what can lower an overload at the condition. The
+// found condition is the least total pressure that holds the Reynolds
+// number at the coldest allowed gas, so a lower total pressure always
+// gives up Reynolds number; at the tunnel's minimum total pressure it is
+// not available at all.
+func (c *Condition) overloadRemedy() string {
+	for _, b := range c.Binding {
+		if b != "minimum total pressure" {
+			continue
+		}
+		return "the tunnel is at its minimum total pressure already, so q cannot be lowered there; use a smaller model, " +
+			"test at a lower lift coefficient, or use a stronger balance (a lower total pressure would also lose the Reynolds number)"
+	}
+	return "use a smaller model, test at a lower lift coefficient, or use a stronger balance; a lower total pressure " +
+		"(a dynamic-pressure limit) also lowers the load but gives up part of the Reynolds number"
 }
 
 // tunnelFinite reports whether every value is a finite number.
@@ -301,6 +360,42 @@ func tunnelFinite(xs ...float64) bool {
 		}
 	}
 	return true
+}
+
+// realGas estimates the nitrogen test gas's compressibility at the
+// condition's static state, fills Z, DensityError and ReynoldsError, and
+// adds to Note a warning when the ideal gas is off by more than
+// RealGasWarning, or that the estimate is out of its range.
+func (c *Condition) realGas() {
+	e, err := fluids.NitrogenCompressibility(c.Temperature, c.Pressure)
+	if err != nil {
+		c.addNote(fmt.Sprintf("real-gas departure not estimated (%v): near saturation the ideal-gas density and Re_m can be off by several per cent", err))
+		return
+	}
+	c.Z, c.DensityError, c.ReynoldsError = e.Z, e.Z-1, e.Z/e.SoundSpeedRatio-1
+	if math.Abs(1-e.Z) > RealGasWarning {
+		c.addNote(fmt.Sprintf("WARNING real gas: at the static %.1f K and %.4g bar (absolute) nitrogen's compressibility factor is Z ≈ %.4f "+
+			"(second-virial estimate, generalized correlation): the ideal-gas density is %s and the ideal-gas speed of sound, so the test speed at the held Mach number, %s, "+
+			"so the stated Re_m is %s and the real Re_m/Re is about %.4g; the facility's real-gas data govern the run",
+			c.Temperature.Value(), c.Pressure.Value()/1e5, e.Z, lowHigh(c.DensityError), lowHigh(1/e.SoundSpeedRatio-1), lowHigh(c.ReynoldsError),
+			c.ReynoldsRatio/(1+c.ReynoldsError)))
+	}
+}
+
+// lowHigh says a relative error x as "1.6 % low" or "0.9 % high".
+func lowHigh(x float64) string {
+	if x < 0 {
+		return fmt.Sprintf("%.1f %% low", -100*x)
+	}
+	return fmt.Sprintf("%.1f %% high", 100*x)
+}
+
+// addNote appends s to the condition's Note.
+func (c *Condition) addNote(s string) {
+	if c.Note != "" {
+		c.Note += "; "
+	}
+	c.Note += s
 }
 
 // caution fills the condition's load and safety notes.
@@ -332,13 +427,13 @@ func (c *Condition) caution(gas fluids.IdealGas, lim Limits) error {
 		}
 		if l, r := c.Load.Value(), rated.Value(); l > r {
 			c.Overloaded = true
-			c.Cautions = append(c.Cautions, fmt.Sprintf("OVERLOAD: the load C·S·q = %.4g N at q = %.4g Pa exceeds the rated %.4g N of the balance, sting or model by %.0f %%; "+
-				"do not run this condition: lower the total pressure (a dynamic-pressure limit) or use a stronger balance, as the responsible engineer decides.", l, c.Q.Value(), r, 100*(l/r-1)))
+			c.Cautions = append(c.Cautions, fmt.Sprintf("OVERLOAD: the load C·S·q = %s N at q = %s kPa exceeds the rated %s N of the balance, sting or model by %s %%; "+
+				"do not run this condition: %s, as the responsible engineer decides.", plainSig(l, 4), plainSig(c.Q.Value()/1e3, 4), plainSig(r, 4), plainSig(100*(l/r-1), 2), c.overloadRemedy()))
 		} else {
-			c.Cautions = append(c.Cautions, fmt.Sprintf("load: C·S·q = %.4g N at q = %.4g Pa is %.0f %% of the rated %.4g N; gusts, starting loads and stall buffet add to it.", l, c.Q.Value(), 100*l/r, r))
+			c.Cautions = append(c.Cautions, fmt.Sprintf("load: C·S·q = %s N at q = %s kPa is %s %% of the rated %s N; gusts, starting loads and stall buffet add to it.", plainSig(l, 4), plainSig(c.Q.Value()/1e3, 4), plainSig(100*l/r, 2), plainSig(r, 4)))
 		}
 	default:
-		c.Cautions = append(c.Cautions, fmt.Sprintf("load: no rated load given — check the model, sting and balance against their ratings at q = %.4g Pa before running.", c.Q.Value()))
+		c.Cautions = append(c.Cautions, fmt.Sprintf("load: no rated load given — check the model, sting and balance against their ratings at q = %s kPa before running.", plainSig(c.Q.Value()/1e3, 4)))
 	}
 	return nil
 }

@@ -3,6 +3,7 @@ package tunnel
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
@@ -101,9 +102,22 @@ type Reduced struct {
 
 // Reduce takes one point through the reduction. Each step's error names
 // its step: a reading beyond the calibration, an attitude beyond ±180°,
-// a coefficient or a blockage out of the wall corrections' range.
+// a coefficient or a blockage out of the wall corrections' range. A
+// Walls.LiftSlopePerDeg the curvature correction cannot use (not in
+// 0 … 0.2 per degree, as from a fit past the stall) is refused before
+// the point is read, naming Walls.LiftSlopePerDeg: it is the same for
+// every point.
 func (r *Reduction) Reduce(p Point) (Reduced, error) {
 	const op = "reduction"
+	// The lift slope is the wing's, the same for every point: a slope
+	// the curvature correction cannot use is the reduction's fault, not
+	// the first point's.
+	if w := r.Walls; w.CurvatureFactor > 0 && !(w.LiftSlopePerDeg > 0 && w.LiftSlopePerDeg < 0.2) {
+		e := slopeError(op, w.LiftSlopePerDeg)
+		e.Input = "Walls.LiftSlopePerDeg"
+		e.Reason += " (Walls.LiftSlopePerDeg, the same for every point)"
+		return Reduced{}, e
+	}
 	if r.Calibration == nil {
 		return Reduced{}, &Error{Op: op, Fault: similarity.Invalid("calibration", "no balance calibration")}
 	}
@@ -147,6 +161,31 @@ type Estimate struct {
 	Interval [2]float64
 }
 
+// nearestOutside names the nearest angles below and above the linear
+// range, the ones a wider range would take in first.
+func nearestOutside(alphaDeg []float64, lo, hi float64) string {
+	below, above := math.Inf(-1), math.Inf(1)
+	for _, x := range alphaDeg {
+		if x < lo && x > below {
+			below = x
+		}
+		if x > hi && x < above {
+			above = x
+		}
+	}
+	var parts []string
+	if !math.IsInf(below, 0) {
+		parts = append(parts, fmt.Sprintf("%.3f° below", below))
+	}
+	if !math.IsInf(above, 0) {
+		parts = append(parts, fmt.Sprintf("%.3f° above", above))
+	}
+	if len(parts) == 0 {
+		return ""
+	}
+	return "; the nearest points outside it are at " + strings.Join(parts, " and ")
+}
+
 // Polar is a model's lift curve and drag polar fitted to corrected
 // coefficients: C_L = a·(α − α₀) over the linear range of the lift curve,
 // and the parabolic polar C_D = C_D0 + K·C_L² over the same points.
@@ -184,13 +223,13 @@ func FitPolar(alphaDeg, cl, cd []float64, alphaLoDeg, alphaHiDeg, level float64)
 		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("points", fmt.Sprintf("%d angles, %d lift and %d drag coefficients: want one of each per point", len(alphaDeg), len(cl), len(cd)))}
 	}
 	if !(alphaLoDeg < alphaHiDeg) || math.Abs(alphaLoDeg) > maxAngleDeg || math.Abs(alphaHiDeg) > maxAngleDeg {
-		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("alphaDeg range", fmt.Sprintf("the linear range %g … %g° must be finite and increasing", alphaLoDeg, alphaHiDeg))}
+		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("alphaDeg range", fmt.Sprintf("the linear range %s … %s° must be finite and increasing", sig(alphaLoDeg, 6), sig(alphaHiDeg, 6)))}
 	}
 	if level == 0 {
 		level = 0.95
 	}
 	if !(level > 0 && level < 1) {
-		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("level", fmt.Sprintf("confidence level %g: want 0 < level < 1", level))}
+		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("level", fmt.Sprintf("confidence level %s: want 0 < level < 1", sig(level, 6)))}
 	}
 	var a, l, l2, d []float64
 	for i := range alphaDeg {
@@ -202,7 +241,7 @@ func FitPolar(alphaDeg, cl, cd []float64, alphaLoDeg, alphaHiDeg, level float64)
 		}
 	}
 	if len(a) < 3 {
-		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("points", fmt.Sprintf("%d points in the linear range %g … %g°: want at least 3", len(a), alphaLoDeg, alphaHiDeg))}
+		return Polar{}, &Error{Op: op, Fault: similarity.Invalid("points", fmt.Sprintf("%d points in the linear range %s … %s°: want at least 3%s", len(a), sig(alphaLoDeg, 6), sig(alphaHiDeg, 6), nearestOutside(alphaDeg, alphaLoDeg, alphaHiDeg)))}
 	}
 	opt := &fit.Options{Level: level}
 	p := Polar{AlphaRangeDeg: [2]float64{alphaLoDeg, alphaHiDeg}, N: len(a), Level: level}

@@ -3,6 +3,7 @@ package tunnel
 import (
 	"fmt"
 	"math"
+	"strconv"
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/similarity"
@@ -143,18 +144,20 @@ func CorrectWalls2D(s Section2D) (Corrected2D, error) {
 		return Corrected2D{}, m(fmt.Sprintf("c/h = %.3g: above 0.4 the classical corrections do not hold; use a smaller model or a wall-pressure method", ch))
 	}
 	if !(ch > 0) {
-		return Corrected2D{}, m(fmt.Sprintf("c/h = %g: a chord that small against the height is no model", ch))
+		return Corrected2D{}, m(fmt.Sprintf("c/h = %.3g: a chord that small against the height is no model", ch))
 	}
 	if !(s.ShapeFactor >= 0 && s.ShapeFactor < 2) {
 		return Corrected2D{}, m("the shape factor must lie in 0 … 2 and the coefficients be finite")
 	}
+	// The Mach number first: above MaxWallCorrectionMach no correction
+	// holds, whatever the other inputs say.
+	beta, err := compressibility(method, s.Mach)
+	if err != nil {
+		return Corrected2D{}, err
+	}
 	if err := checkCoefficients(method, bound{"angle of attack (°)", s.AlphaDeg, -maxAlphaDeg, maxAlphaDeg},
 		bound{"C_l", s.CL, -maxCoefficient, maxCoefficient}, bound{"C_d", s.CD, -maxCoefficient, maxCoefficient},
 		bound{"C_m¼", s.CM, -maxCoefficient, maxCoefficient}); err != nil {
-		return Corrected2D{}, err
-	}
-	beta, err := compressibility(method, s.Mach)
-	if err != nil {
 		return Corrected2D{}, err
 	}
 	m2, b2 := s.Mach*s.Mach, beta*beta
@@ -303,11 +306,18 @@ func CorrectWalls3D(m Model3D) (Corrected3D, error) {
 		return Corrected3D{}, e(fmt.Sprintf("S/C = %.3g: above 0.2 the classical corrections do not hold; use a smaller model", sc))
 	}
 	if !(sc > 0) {
-		return Corrected3D{}, e(fmt.Sprintf("S/C = %g: a wing that small against the section is no model", sc))
+		return Corrected3D{}, e(fmt.Sprintf("S/C = %.3g: a wing that small against the section is no model", sc))
 	}
 	if !(m.ShapeFactor >= 0 && m.ShapeFactor < 2) || !(m.Delta >= 0 && m.Delta < 1) || !(m.CurvatureFactor >= 0 && m.CurvatureFactor < 2) ||
 		!(m.TailCurvatureFactor >= 0 && m.TailCurvatureFactor < 2) {
 		return Corrected3D{}, e("the factors must lie in their ranges (K·τ₁ 0 … 2, δ 0 … 1, τ₂ 0 … 2)")
+	}
+	// The Mach number first: above MaxWallCorrectionMach no correction
+	// holds, and a lift slope raised to such a Mach number by the
+	// Prandtl–Glauert factor is no reason to give instead.
+	beta, err := compressibility(method, m.Mach)
+	if err != nil {
+		return Corrected3D{}, err
 	}
 	if err := checkCoefficients(method, bound{"angle of attack (°)", m.AlphaDeg, -maxAlphaDeg, maxAlphaDeg},
 		bound{"C_L", m.CL, -maxCoefficient, maxCoefficient}, bound{"C_D", m.CD, -maxCoefficient, maxCoefficient},
@@ -316,11 +326,7 @@ func CorrectWalls3D(m Model3D) (Corrected3D, error) {
 		return Corrected3D{}, err
 	}
 	if m.CurvatureFactor > 0 && !(m.LiftSlopePerDeg > 0 && m.LiftSlopePerDeg < 0.2) {
-		return Corrected3D{}, e(fmt.Sprintf("lift slope %v per degree: the curvature correction needs the wing's dC_L/dα, between 0 and 0.2 per degree", m.LiftSlopePerDeg))
-	}
-	beta, err := compressibility(method, m.Mach)
-	if err != nil {
-		return Corrected3D{}, err
+		return Corrected3D{}, slopeError(method, m.LiftSlopePerDeg)
 	}
 	m2, b2 := m.Mach*m.Mach, beta*beta
 	var r Corrected3D
@@ -352,9 +358,45 @@ func CorrectWalls3D(m Model3D) (Corrected3D, error) {
 // a blockage above MaxBlockage, a coefficient no model shows), with what
 // to do instead if anything: an *Error of class quantity.ErrRange.
 func rangeError(method, what string, v, lo, hi float64, instead string) *Error {
-	s := fmt.Sprintf("%s %g outside %g … %g", what, v, lo, hi)
+	s := fmt.Sprintf("%s %s outside %s … %s", what, sigOutside(v, lo, hi), sig(lo, 6), sig(hi, 6))
 	if instead != "" {
 		s += ": " + instead
 	}
 	return &Error{Op: method, Fault: similarity.OutOfRange(what, s)}
+}
+
+// slopeError reports a lift slope the streamline-curvature correction
+// cannot use: the wing's dC_L/dα in the linear range of its lift curve,
+// above 0 and below 0.2 per degree (a thin wing's 2π per radian is
+// 0.11 per degree). A slope at or below zero is a lift curve past the
+// stall. It is an *Error of class quantity.ErrRange naming
+// LiftSlopePerDeg.
+func slopeError(method string, slope float64) *Error {
+	why := "the curvature correction needs the wing's dC_L/dα in the linear range of its lift curve, above 0 and below 0.2 per degree"
+	if slope <= 0 {
+		why += "; a slope at or below zero is a lift curve past the stall"
+	}
+	return &Error{Op: method, Fault: similarity.OutOfRange("LiftSlopePerDeg",
+		fmt.Sprintf("lift slope %s per degree: %s", sigOutside(slope, 0, 0.2), why))}
+}
+
+// sig formats x to n significant figures ('g' form): sig(0.25202992727, 4)
+// is 0.252.
+func sig(x float64, n int) string { return strconv.FormatFloat(x, 'g', n, 64) }
+
+// sigOutside formats a value v that lies outside lo … hi (or is NaN)
+// with the fewest significant figures, from 3 up to 17, at which the
+// printed value still lies outside: 0.95 as 0.95, 0.80001 as 0.80001,
+// not 0.8. A value inside the range is printed to 3 figures.
+func sigOutside(v, lo, hi float64) string {
+	if math.IsNaN(v) || math.IsInf(v, 0) || (v >= lo && v <= hi) {
+		return sig(v, 3)
+	}
+	for n := 3; n < 17; n++ {
+		s := sig(v, n)
+		if r, err := strconv.ParseFloat(s, 64); err == nil && (r < lo || r > hi) {
+			return s
+		}
+	}
+	return sig(v, 17)
 }

@@ -203,7 +203,7 @@ func CheckGuarantee(c PumpCurves, g Guarantee, grade Grade) (Verdict, error) {
 		}
 	}
 	if !(g.Efficiency >= 0 && g.Efficiency <= 1) {
-		return Verdict{}, &Error{Op: op, Fault: similarity.Invalid("guarantee efficiency", fmt.Sprintf("guarantee efficiency %v: want 0 (not guaranteed) to 1", g.Efficiency))}
+		return Verdict{}, &Error{Op: op, Fault: similarity.Invalid("guarantee efficiency", fmt.Sprintf("guarantee efficiency %.4g: want 0 (not guaranteed) to 1", g.Efficiency))}
 	}
 	qg, hg := g.Flow.Value(), g.Head.Value()
 	v := Verdict{Grade: grade, Tolerance: t,

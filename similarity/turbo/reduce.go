@@ -158,7 +158,7 @@ func FitPumpCurves(pts []ReducedPoint, opt CurveOptions) (PumpCurves, error) {
 			return PumpCurves{}, err
 		}
 		if !(r.Efficiency > 0 && r.Efficiency <= 1) {
-			return PumpCurves{}, &Error{Op: op, Fault: similarity.Invalid(fmt.Sprintf("point %d: efficiency", i), fmt.Sprintf("point %d: efficiency %v is not in (0, 1]", i, r.Efficiency))}
+			return PumpCurves{}, &Error{Op: op, Fault: similarity.Invalid(fmt.Sprintf("point %d: efficiency", i), fmt.Sprintf("point %d: efficiency %.4g is not in (0, 1]", i, r.Efficiency))}
 		}
 		q[i], h[i], p[i], e[i] = r.Flow.Value(), r.Head.Value(), r.Power.Value(), r.Efficiency
 	}

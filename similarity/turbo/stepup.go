@@ -35,7 +35,7 @@ func MoodyStepUp(etaModel float64, d Diameters, opt MoodyStepUpOptions) (float64
 		return &Error{Op: "Moody step-up", Fault: similarity.Invalid("", r)}
 	}
 	if !(etaModel > 0 && etaModel < 1) {
-		return 0, m(fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))
+		return 0, m(fmt.Sprintf("model efficiency %.4g is not between 0 and 1", etaModel))
 	}
 	if err := dModel.CheckNamed("model diameter", quantity.Length); err != nil {
 		return 0, err
@@ -50,7 +50,7 @@ func MoodyStepUp(etaModel float64, d Diameters, opt MoodyStepUpOptions) (float64
 		exponent = 0.2
 	}
 	if !(exponent >= 0 && exponent <= 1) {
-		return 0, m(fmt.Sprintf("exponent %v is outside 0 … 1", exponent))
+		return 0, m(fmt.Sprintf("exponent %.4g is outside 0 … 1", exponent))
 	}
 	eta := 1 - (1-etaModel)*math.Pow(dModel.Value()/dProto.Value(), exponent)
 	if !(eta > 0 && eta < 1) {
@@ -131,7 +131,7 @@ func newStepUp(method string, etaModel []float64, m StepUpMethod) (StepUp, error
 	out := StepUp{Method: m, Efficiency: make([]float64, len(etaModel))}
 	for i, e := range etaModel {
 		if !(e > 0 && e < 1) {
-			return StepUp{}, &Error{Op: method, Fault: similarity.Invalid("", fmt.Sprintf("point %d: model efficiency %v is not between 0 and 1", i, e))}
+			return StepUp{}, &Error{Op: method, Fault: similarity.Invalid("", fmt.Sprintf("point %d: model efficiency %.4g is not between 0 and 1", i, e))}
 		}
 		if e > etaModel[out.BEP] {
 			out.BEP = i

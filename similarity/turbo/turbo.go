@@ -23,6 +23,11 @@ const (
 	IECScalableLoss      = 0.7
 )
 
+// IECMinReynolds is the least model Reynolds number IECStepUp accepts
+// (10⁵, this package's bound: the formula is for model tests at
+// Reynolds numbers well above it).
+const IECMinReynolds = 1e5
+
 // ReynoldsNumbers are a model's and a prototype's Reynolds numbers on one
 // definition, named so that one cannot be given for the other.
 type ReynoldsNumbers struct {
@@ -51,10 +56,15 @@ func IECStepUp(etaModel float64, re ReynoldsNumbers) (etaProto, gain float64, er
 		return &Error{Op: "IEC 60193 step-up", Fault: similarity.Invalid("", r)}
 	}
 	if !(etaModel > 0 && etaModel < 1) {
-		return 0, 0, m(fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))
+		return 0, 0, m(fmt.Sprintf("model efficiency %.4g is not between 0 and 1", etaModel))
 	}
-	if !(reM >= 1e5 && reP >= reM) || math.IsInf(reP, 0) {
-		return 0, 0, m(fmt.Sprintf("Reynolds numbers %g (model) and %g (prototype): want 10⁵ ≤ Re_M ≤ Re_P, finite", reM, reP))
+	switch {
+	case math.IsNaN(reM) || math.IsNaN(reP) || math.IsInf(reM, 0) || math.IsInf(reP, 0):
+		return 0, 0, m(fmt.Sprintf("Reynolds numbers %.3g (model) and %.3g (prototype): want finite", reM, reP))
+	case reM < IECMinReynolds:
+		return 0, 0, m(fmt.Sprintf("model Reynolds number Re_M = %.3g is below 10⁵ (want 10⁵ ≤ Re_M ≤ Re_P)", reM))
+	case reP < reM:
+		return 0, 0, m(fmt.Sprintf("prototype Reynolds number Re_P = %.3g is below the model's Re_M = %.3g (want 10⁵ ≤ Re_M ≤ Re_P)", reP, reM))
 	}
 	const v = IECScalableLoss
 	r := func(re float64) float64 { return math.Pow(IECReferenceReynolds/re, 0.16) }
@@ -69,10 +79,10 @@ func IECStepUp(etaModel float64, re ReynoldsNumbers) (etaProto, gain float64, er
 func AckeretStepUp(etaModel float64, re ReynoldsNumbers) (float64, error) {
 	reM, reP := re.Model, re.Prototype
 	if !(etaModel > 0 && etaModel < 1) {
-		return 0, &Error{Op: "Ackeret step-up", Fault: similarity.Invalid("", fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))}
+		return 0, &Error{Op: "Ackeret step-up", Fault: similarity.Invalid("", fmt.Sprintf("model efficiency %.4g is not between 0 and 1", etaModel))}
 	}
 	if !(reM > 0 && reP >= reM) || math.IsInf(reP, 0) {
-		return 0, &Error{Op: "Ackeret step-up", Fault: similarity.Invalid("", fmt.Sprintf("Reynolds numbers %g (model) and %g (prototype): want 0 < Re_M ≤ Re_P, finite", reM, reP))}
+		return 0, &Error{Op: "Ackeret step-up", Fault: similarity.Invalid("", fmt.Sprintf("Reynolds numbers %.3g (model) and %.3g (prototype): want 0 < Re_M ≤ Re_P, finite", reM, reP))}
 	}
 	return 1 - (1-etaModel)*(0.5+0.5*math.Pow(reM/reP, 0.2)), nil
 }
@@ -98,10 +108,10 @@ func FanStepUp(etaModel float64, re ReynoldsNumbers) (eta, change float64, err e
 		return &Error{Op: "fan efficiency conversion", Fault: similarity.Invalid("", r)}
 	}
 	if !(etaModel > 0 && etaModel < 1) {
-		return 0, 0, m(fmt.Sprintf("model efficiency %v is not between 0 and 1", etaModel))
+		return 0, 0, m(fmt.Sprintf("model efficiency %.4g is not between 0 and 1", etaModel))
 	}
 	if !(reM > 0 && reP > 0) || math.IsInf(reM, 0) || math.IsInf(reP, 0) {
-		return 0, 0, m(fmt.Sprintf("Reynolds numbers %g and %g: want positive and finite", reM, reP))
+		return 0, 0, m(fmt.Sprintf("Reynolds numbers %.3g and %.3g: want positive and finite", reM, reP))
 	}
 	full := (1 - etaModel) * (0.5 - 0.5*math.Pow(reM/reP, 0.2)) // Ackeret's change, η_P − η_M
 	change = full
@@ -109,7 +119,7 @@ func FanStepUp(etaModel float64, re ReynoldsNumbers) (eta, change float64, err e
 		change = full / 2
 	}
 	if eta = etaModel + change; !(eta > 0) {
-		return 0, 0, m(fmt.Sprintf("converted efficiency %.4g from η = %v at Re %g → %g: the Reynolds numbers are too far apart for the formula", eta, etaModel, reM, reP))
+		return 0, 0, m(fmt.Sprintf("converted efficiency %.4g from η = %.4g at Re %.3g → %.3g: the Reynolds numbers are too far apart for the formula", eta, etaModel, reM, reP))
 	}
 	return eta, change, nil
 }
@@ -128,7 +138,7 @@ func FanCurve(etaModel []float64, re ReynoldsNumbers) (StepUp, error) {
 	for i, e := range etaModel {
 		out.Efficiency[i] = e + out.Gain
 		if !(out.Efficiency[i] > 0 && out.Efficiency[i] < 1) {
-			return StepUp{}, &Error{Op: "fan efficiency conversion", Fault: similarity.Invalid("", fmt.Sprintf("point %d: converted efficiency %v is not between 0 and 1", i, out.Efficiency[i]))}
+			return StepUp{}, &Error{Op: "fan efficiency conversion", Fault: similarity.Invalid("", fmt.Sprintf("point %d: converted efficiency %.4g is not between 0 and 1", i, out.Efficiency[i]))}
 		}
 	}
 	return out, nil
@@ -219,7 +229,7 @@ func Thoma(h Heads) (float64, error) {
 		return 0, err
 	}
 	if !(head.Value() > 0) || math.IsInf(head.Value(), 0) || math.IsNaN(npsh.Value()) || math.IsInf(npsh.Value(), 0) {
-		return 0, &Error{Op: "Thoma number", Fault: similarity.Invalid("", fmt.Sprintf("NPSH %v and head %v: want a finite NPSH and a positive, finite head", npsh, head))}
+		return 0, &Error{Op: "Thoma number", Fault: similarity.Invalid("", fmt.Sprintf("NPSH %.4g m and head %.4g m: want a finite NPSH and a positive, finite head", npsh.Value(), head.Value()))}
 	}
 	sigma := npsh.Value() / head.Value()
 	return sigma, fail("Thoma number", similarity.CheckResults(false, similarity.Result{Name: "Thoma number σ", Value: sigma}))
@@ -249,7 +259,7 @@ func SuctionPressureFor(sigma float64, head quantity.Quantity, vapour, density, 
 	}
 	g := gq.Value()
 	if !(sigma >= 0) || math.IsInf(sigma, 0) {
-		return quantity.Quantity{}, &Error{Op: "suction pressure", Fault: similarity.Invalid("", fmt.Sprintf("Thoma number %v", sigma))}
+		return quantity.Quantity{}, &Error{Op: "suction pressure", Fault: similarity.Invalid("", fmt.Sprintf("Thoma number %.4g: want a finite number at least 0", sigma))}
 	}
 	v := velocity.Value()
 	p := vapour.Value() + density.Value()*g*(sigma*head.Value()-v*v/(2*g))
@@ -337,7 +347,7 @@ func SpecificSpeedDimensionless(omega float64) (SpecificSpeeds, error) {
 // specificSpeedIn checks a specific speed given in one form.
 func specificSpeedIn(form string, v float64) error {
 	if !(v > 0) || math.IsInf(v, 0) {
-		return &Error{Op: "specific speed", Fault: similarity.Invalid("", fmt.Sprintf("%s = %v: want a positive, finite specific speed", form, v))}
+		return &Error{Op: "specific speed", Fault: similarity.Invalid("", fmt.Sprintf("%s = %.4g: want a positive, finite specific speed", form, v))}
 	}
 	return nil
 }

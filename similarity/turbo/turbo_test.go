@@ -4,6 +4,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"regexp"
+	"strings"
 	"testing"
 
 	"pgregory.net/rapid"
@@ -214,4 +216,32 @@ func ExampleFanStepUp() {
 	fmt.Printf("larger: η = %.4f (%+.4f); smaller: η = %.4f (%+.4f)\n", up, gain, down, loss)
 	// Output:
 	// larger: η = 0.8342 (+0.0142); smaller: η = 0.8028 (-0.0172)
+}
+
+// TestRefusalsReadable: a refused step-up names the bound it fails with
+// the figures to a few significant digits, never a float's 17 (it printed
+// "Reynolds numbers 13461.831767260132 (model) and 16874.42626183415
+// (prototype)").
+func TestRefusalsReadable(t *testing.T) {
+	_, _, iecLow := turbo.IECStepUp(0.835, turbo.ReynoldsNumbers{Model: 13461.831767260132, Prototype: 16874.42626183415})
+	_, _, iecDown := turbo.IECStepUp(0.835, turbo.ReynoldsNumbers{Model: 2.345678912e6, Prototype: 1.23456789e6})
+	_, ackeret := turbo.AckeretStepUp(0.835, turbo.ReynoldsNumbers{Model: 2.345678912e6, Prototype: 1.23456789e6})
+	_, _, fan := turbo.FanStepUp(0.123456789, turbo.ReynoldsNumbers{Model: -1.23456789, Prototype: 3})
+	_, moody := turbo.MoodyStepUp(1.000000001, turbo.Diameters{Model: quantity.New(1, quantity.Length), Prototype: quantity.New(2, quantity.Length)}, turbo.MoodyStepUpOptions{})
+	_, thoma := turbo.Thoma(turbo.Heads{NPSH: quantity.New(3.14159265358979, quantity.Length), Head: quantity.New(-2.718281828459045, quantity.Length)})
+	for _, c := range []struct {
+		err  error
+		want string
+	}{
+		{iecLow, "model Reynolds number Re_M = 1.35e+04 is below 10⁵"},
+		{iecDown, "prototype Reynolds number Re_P = 1.23e+06 is below the model's Re_M = 2.35e+06"},
+		{ackeret, "Reynolds numbers 2.35e+06 (model) and 1.23e+06 (prototype)"},
+		{fan, "Reynolds numbers -1.23 and 3: want positive and finite"},
+		{moody, "model efficiency 1 is not between 0 and 1"},
+		{thoma, "NPSH 3.142 m and head -2.718 m"},
+	} {
+		if c.err == nil || !strings.Contains(c.err.Error(), c.want) || regexp.MustCompile(`\d{7,}`).MatchString(c.err.Error()) {
+			t.Errorf("%v, want %q and no long float", c.err, c.want)
+		}
+	}
 }

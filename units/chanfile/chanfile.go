@@ -42,9 +42,19 @@ type Column struct {
 	// clock times without a date it has no date (year 0).
 	Start time.Time
 	// Index is the column's place in the file, from 1, and Header its
-	// header field as written (both zero for a column given to a Writer).
+	// header field as written (in a Parquet file, its name in the
+	// schema); both are zero for a column given to a Writer.
 	Index  int
 	Header string
+	// Fault, when not nil, is why the column cannot be read: its header
+	// (a unit the dialect does not read, no unit, a malformed field) or
+	// its first values (dates of no stated order). The column is listed
+	// so that the others can be read: a reader returns Fault (an *Error
+	// of its package naming the column and where) when the column is
+	// selected or when every column is read, never otherwise. Name,
+	// Header and Text are as far as they were read; Unit and Kind say
+	// nothing.
+	Fault error
 }
 
 // Error reports a problem in a file, with the line and column (both from
@@ -340,6 +350,9 @@ type Reader struct {
 	num       []byte      // reused storage for a number with a decimal comma
 	vals      [][]float64 // reused
 	active    []int       // the columns Read fills (all, or those of Select)
+	checked   bool        // the active columns can be read together (see refusal)
+	headLine  int         // the line of the header
+	unitLine  int         // the line of the units row, if any
 	done      bool
 	off       int64 // bytes of lines read, after a byte-order mark
 }
@@ -392,6 +405,7 @@ func NewReader(r io.Reader, name string, opt Options) (*Reader, error) {
 			}
 			skip = 2
 			rd.format.UnitsRow = true
+			rd.unitLine = rd.line
 			rd.format.Readings = append(rd.format.Readings, units.Reading{From: fmt.Sprintf("line %d", rd.line), To: "the units of the columns", Note: "no field is a number or a time and some are units"})
 		} else {
 			rd.pend = append(rd.pend[:0], rd.raw...)
@@ -731,18 +745,23 @@ func (r *Reader) isUnitsRow() bool {
 	return units > 0
 }
 
+// headSpec is a header field split into a channel name and a unit text.
+type headSpec struct {
+	field, name, unit string
+	err               error
+	aliased           bool
+}
+
 // columns sets up the columns to read from the header, the units row
-// (nil if none) and the sampled data lines.
+// (nil if none) and the sampled data lines. Without Options.Columns every
+// column of the file is listed, and one that cannot be read keeps its
+// fault in Column.Fault, returned only when it is read (see refusal);
+// with Options.Columns a fault in a column named there fails at once.
 func (r *Reader) columns(head []string, line int, unitRow []string, sample [][]byte) error {
-	type spec struct {
-		field, name, unit string
-		err               error
-		aliased           bool
-	}
-	specs := make([]spec, len(head))
+	specs := make([]headSpec, len(head))
 	for i, h := range head {
 		f := strings.TrimSpace(strings.TrimPrefix(h, "\ufeff"))
-		s := spec{field: f}
+		s := headSpec{field: f}
 		if unitRow != nil {
 			s.name, s.unit = f, unitCell(unitRow[i])
 			if !utf8.ValidString(f) {
@@ -802,78 +821,12 @@ func (r *Reader) columns(head []string, line int, unitRow []string, sample [][]b
 			}
 		}
 	}
-	seen := map[string]int{}
+	r.headLine = line
 	for k, i := range idx {
-		s := specs[i]
-		if s.err != nil {
-			e := s.err.(*Error)
-			e.File, e.Line, e.Column = r.name, line, i+1
-			return e
+		c, mul, add, layout, err := r.column(specs[i], i, line, unitRow != nil, samples[k])
+		if err != nil {
+			c.Fault = err
 		}
-		c := Column{Name: s.name, Text: s.unit, Index: i + 1, Header: s.field}
-		unitErr := error(nil)
-		if c.Text != "" {
-			unitErr = parseUnit(&c)
-		}
-		if unitErr != nil && unitRow == nil && slashed(s.field) {
-			// "dp/dx": a name with a slash, not quantity/unit.
-			c.Text, unitErr = "", nil
-			if !s.aliased {
-				c.Name = s.field
-			}
-		}
-		physical := c.Text != "" && unitErr == nil && c.Unit.Dim() != units.One().Dim()
-		kind, layout := r.kind(s.name, physical, samples[k])
-		if kind == Timestamp && layout < 0 && c.Text != "" && !(unitErr == nil && c.Unit.Dim() == quantity.Time && c.Unit.Factor() == 1 && !c.Gauge) {
-			kind, layout = Number, -2 // an epoch in ms or days: a number in its unit
-		}
-		if layout == slashUnread {
-			reason := fmt.Sprintf("dates such as %q may be day/month or month/day: set Options.SlashDates to chanfile.DayFirst or chanfile.MonthFirst (or name the columns to read in Options.Columns)", short([]byte(samples[k][0])))
-			if r.opt.SlashDates != SlashRefused {
-				reason = fmt.Sprintf("dates such as %q are not all in one form read with Options.SlashDates (a four-digit year, then an optional clock time hh:mm or hh:mm:ss)", short([]byte(samples[k][0])))
-			}
-			return &Error{File: r.name, Line: line, Column: i + 1, Field: s.field, Reason: reason, class: quantity.ErrInvalid}
-		}
-		c.Kind = kind
-		if c.Kind != Number && unitErr != nil {
-			// "Run tag": no unit, the whole field is the name.
-			c.Unit, c.Readings, c.Gauge = units.One(), nil, false
-			if unitRow == nil && !s.aliased && !strings.HasSuffix(s.field, "]") && !strings.HasSuffix(s.field, ")") {
-				c.Name = s.field
-			}
-		}
-		mul, add := 1.0, 0.0
-		switch c.Kind {
-		case Number:
-			if c.Text == "" {
-				return &Error{File: r.name, Line: line, Column: i + 1, Field: s.field, Reason: fmt.Sprintf("no unit for the channel: write %q for a dimensionless one", c.Name+" [1]")}
-			}
-			if unitErr != nil {
-				return &Error{File: r.name, Line: line, Column: i + 1, Field: s.field, Reason: "not a unit", Err: unitErr}
-			}
-			// Unit.Of is x·factor + offset; the reader applies the same.
-			mul, add = c.Unit.Factor(), c.Unit.Offset()
-			if c.Gauge {
-				ref := r.opt.Reference
-				if ref.Dim() != quantity.Pressure || !(ref.Value() > 0) || math.IsInf(ref.Value(), 0) {
-					return &Error{File: r.name, Line: line, Column: i + 1, Field: s.field, Reason: "a gauge pressure channel needs the absolute ambient pressure it was read against: set Options.Reference to the barometer reading (or units.StandardReference(), chosen explicitly)", Err: units.ErrGauge, class: quantity.ErrInvalid}
-				}
-				add += ref.Value()
-				c.Unit = units.MustParse("Pa")
-			}
-		case Timestamp:
-			c.Unit = units.MustParse("s")
-			c.Readings = []units.Reading{r.timeReading(layout, samples[k][0])}
-		case Label:
-			c.Unit = units.One()
-			if len(samples[k]) > 0 {
-				c.Readings = append(c.Readings, units.Reading{From: samples[k][0], To: "a label", Note: "the column's first values are text, neither numbers nor times"})
-			}
-		}
-		if j, dup := seen[c.Name]; dup {
-			return &Error{File: r.name, Line: line, Column: i + 1, Field: s.field, Reason: fmt.Sprintf("channel %q is also column %d", c.Name, j+1)}
-		}
-		seen[c.Name] = i
 		r.cols = append(r.cols, c)
 		r.mul = append(r.mul, mul)
 		r.add = append(r.add, add)
@@ -889,12 +842,124 @@ func (r *Reader) columns(head []string, line int, unitRow []string, sample [][]b
 	r.labels, r.intern = make([][]string, n), make([]map[string]string, n)
 	// The start of each Timestamp column, from its first sample.
 	for k := range r.cols {
-		if r.cols[k].Kind == Timestamp {
+		if r.cols[k].Kind == Timestamp && r.cols[k].Fault == nil {
 			if _, err := r.timeValue(k, []byte(samples[k][0])); err != nil {
-				return &Error{File: r.name, Line: line, Column: idx[k] + 1, Field: short([]byte(samples[k][0])), Reason: err.Error()}
+				r.cols[k].Fault = &Error{File: r.name, Line: line, Column: idx[k] + 1, Field: short([]byte(samples[k][0])), Reason: err.Error()}
 			}
 			r.prev[k] = 0
 		}
+	}
+	if r.opt.Columns != nil {
+		// The columns were named: a fault in one fails the file now.
+		if err := r.refusal(r.active); err != nil {
+			return err
+		}
+		r.checked = true
+	}
+	return nil
+}
+
+// column sets up the column of header field s (column i of the file,
+// from 0) from its sampled fields. It returns the column, SI = x·mul +
+// add, the layout of a Timestamp column, and the column's fault if it
+// cannot be read; the column is then listed as far as it was read.
+func (r *Reader) column(s headSpec, i, line int, unitRow bool, sample []string) (c Column, mul, add float64, layout int, fault *Error) {
+	c = Column{Name: s.name, Text: s.unit, Index: i + 1, Header: s.field}
+	mul, layout = 1, -2
+	if c.Name == "" {
+		c.Name = s.field
+	}
+	if s.err != nil {
+		e := s.err.(*Error)
+		e.File, e.Line, e.Column = r.name, line, i+1
+		return c, mul, add, layout, e
+	}
+	unitErr := error(nil)
+	if c.Text != "" {
+		unitErr = parseUnit(&c)
+	}
+	if unitErr != nil && !unitRow && slashed(s.field) {
+		// "dp/dx": a name with a slash, not quantity/unit.
+		c.Text, unitErr = "", nil
+		if !s.aliased {
+			c.Name = s.field
+		}
+	}
+	physical := c.Text != "" && unitErr == nil && c.Unit.Dim() != units.One().Dim()
+	kind, layout := r.kind(s.name, physical, sample)
+	// "-" is no unit: times and text under it are read as under an
+	// empty unit (an exporter writes "-" for a column with no unit).
+	noUnit := c.Text == "" || c.Text == "-"
+	if kind == Timestamp && layout == -1 && !noUnit && !(unitErr == nil && c.Unit.Dim() == quantity.Time && c.Unit.Factor() == 1 && !c.Gauge) {
+		kind, layout = Number, -2 // an epoch in ms or days: a number in its unit
+	}
+	fail := func(reason string, err, class error) (Column, float64, float64, int, *Error) {
+		c.Unit, c.Readings, c.Gauge = units.Unit{}, nil, false
+		return c, 1, 0, -2, &Error{File: r.name, Line: line, Column: i + 1, Field: s.field, Reason: reason, Err: err, class: class}
+	}
+	if layout == slashUnread {
+		reason := fmt.Sprintf("dates such as %q may be day/month or month/day: set Options.SlashDates to chanfile.DayFirst or chanfile.MonthFirst", short([]byte(sample[0])))
+		if r.opt.SlashDates != SlashRefused {
+			reason = fmt.Sprintf("dates such as %q are not all in one form read with Options.SlashDates (a four-digit year, then an optional clock time hh:mm or hh:mm:ss)", short([]byte(sample[0])))
+		}
+		c.Kind = Timestamp
+		return fail(reason, nil, quantity.ErrInvalid)
+	}
+	c.Kind = kind
+	if c.Kind != Number && unitErr != nil {
+		// "Run tag": no unit, the whole field is the name.
+		c.Unit, c.Readings, c.Gauge = units.One(), nil, false
+		if !unitRow && !s.aliased && !strings.HasSuffix(s.field, "]") && !strings.HasSuffix(s.field, ")") {
+			c.Name = s.field
+		}
+	}
+	switch c.Kind {
+	case Number:
+		if c.Text == "" {
+			if unitRow {
+				return fail(fmt.Sprintf("no unit for the channel in the units row (line %d): write its unit there, or 1 or - for a dimensionless one", r.unitLine), nil, nil)
+			}
+			return fail(fmt.Sprintf("no unit for the channel: write %q for a dimensionless one", c.Name+" [1]"), nil, nil)
+		}
+		if unitErr != nil {
+			return fail("not a unit", unitErr, nil)
+		}
+		// Unit.Of is x·factor + offset; the reader applies the same.
+		mul, add = c.Unit.Factor(), c.Unit.Offset()
+		if c.Gauge {
+			ref := r.opt.Reference
+			if ref.Dim() != quantity.Pressure || !(ref.Value() > 0) || math.IsInf(ref.Value(), 0) {
+				return fail("a gauge pressure channel needs the absolute ambient pressure it was read against: set Options.Reference to the barometer reading (or units.StandardReference(), chosen explicitly)", units.ErrGauge, quantity.ErrInvalid)
+			}
+			add += ref.Value()
+			c.Unit = units.MustParse("Pa")
+		}
+	case Timestamp:
+		c.Unit = units.MustParse("s")
+		c.Readings = []units.Reading{r.timeReading(layout, sample[0])}
+	case Label:
+		c.Unit = units.One()
+		if len(sample) > 0 {
+			c.Readings = append(c.Readings, units.Reading{From: sample[0], To: "a label", Note: "the column's first values are text, neither numbers nor times"})
+		}
+	}
+	return c, mul, add, layout, nil
+}
+
+// refusal returns why the columns at ks (in Columns' order) cannot be
+// read together, or nil: the first of them with a Fault, or the first
+// whose channel name an earlier one has.
+func (r *Reader) refusal(ks []int) error {
+	seen := make(map[string]int, len(ks))
+	for _, k := range ks {
+		c := &r.cols[k]
+		if c.Fault != nil {
+			return c.Fault
+		}
+		if j, dup := seen[c.Name]; dup {
+			return &Error{File: r.name, Line: r.headLine, Column: c.Index, Field: c.Header, Reason: fmt.Sprintf("channel %q is also column %d: rename one with Options.Aliases", c.Name, j)}
+		}
+		seen[c.Name] = c.Index
 	}
 	return nil
 }
@@ -1245,7 +1310,9 @@ func (r *Reader) Offset() int64 {
 }
 
 // Columns returns the columns read, in the file's order or that of
-// Options.Columns; their Missing counts grow as chunks are read.
+// Options.Columns; their Missing counts grow as chunks are read. Without
+// Options.Columns a column that cannot be read is listed too, with its
+// Column.Fault.
 func (r *Reader) Columns() []Column { return r.cols }
 
 // Format returns how the file is read: its encoding, delimiter, decimal
@@ -1269,7 +1336,10 @@ func (r *Reader) Labels(k int) []string {
 // Series and Labels stay empty and their Missing counts stop growing.
 // Columns still lists every column. Call it after NewReader, before or
 // between Reads; an index out of range or given twice is an *Error of
-// class quantity.ErrInvalid. Select(nil) reads no column.
+// class quantity.ErrInvalid. Selecting a column whose header cannot be
+// read returns its Column.Fault, and selecting two columns of one
+// channel name the error saying so; the selection is then unchanged.
+// Select(nil) reads no column.
 func (r *Reader) Select(idx []int) error {
 	seen := make([]bool, len(r.cols))
 	for _, k := range idx {
@@ -1278,12 +1348,16 @@ func (r *Reader) Select(idx []int) error {
 		}
 		seen[k] = true
 	}
-	r.active = r.active[:0]
+	var active []int
 	for k, on := range seen { // in the order of Columns
 		if on {
-			r.active = append(r.active, k)
+			active = append(active, k)
 		}
 	}
+	if err := r.refusal(active); err != nil {
+		return err
+	}
+	r.active, r.checked = active, true
 	return nil
 }
 
@@ -1295,6 +1369,10 @@ func (r *Reader) Select(idx []int) error {
 // seconds from its first sample; a Label column's Series is empty (its
 // text is in Labels). A missing value is NaN. After Select, only the
 // selected columns are parsed and filled; the others' Series are empty.
+// When every column is read (no Options.Columns, no Select), the first
+// Read refuses a file with a column that cannot be read (its
+// Column.Fault) or two columns of one channel name, as NewReader
+// refused it before columns could be selected after the header.
 func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, error) {
 	if rows <= 0 {
 		rows = 4096
@@ -1306,6 +1384,15 @@ func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, 
 	vals := r.vals
 	n := 0
 	var err error
+	if !r.checked && !r.done {
+		// Every column is read: one that cannot be fails the file.
+		r.checked = true
+		if e := r.refusal(r.active); e != nil {
+			fe := *e.(*Error)
+			fe.Reason += " (to read only the columns you need, name them in Options.Columns or choose them with Reader.Select)"
+			err, r.done = &fe, true
+		}
+	}
 	for n < rows && !r.done {
 		var ok bool
 		ok, err = r.next()
@@ -1364,14 +1451,20 @@ func (r *Reader) Read(dst []quantity.Series, rows int) ([]quantity.Series, int, 
 			x, perr := r.number(f)
 			if perr != nil || math.IsInf(x, 0) || math.IsNaN(x) {
 				reason, class := "not a finite number", error(nil)
-				switch {
-				case perr == errDecimalPoint:
-					reason = perr.Error() + ": set Options.Decimal if the file's decimal mark is '.'"
+				all := r.opt.Columns == nil && len(r.active) == len(r.cols)
+				switch text := textCell(f); {
 				case errors.Is(perr, strconv.ErrRange):
 					reason, class = "a number beyond the range of float64", quantity.ErrRange
+				case perr == errDecimalPoint && !text:
+					reason = perr.Error() + ": set Options.Decimal if the file's decimal mark is '.'"
 				case withUnit(string(f)):
 					reason = "a value with a unit in a data row: the unit belongs in the header"
-				case r.opt.Columns == nil && len(r.active) == len(r.cols):
+				case text && len(f) <= 64:
+					reason = fmt.Sprintf("not a finite number but text: if it marks a missing value, set Options.Missing = %s (or list it in Options.MissingValues)", strconv.Quote(string(f)))
+					if all {
+						reason += "; to read only the columns you need, name them in Options.Columns"
+					}
+				case all:
 					reason = "not a finite number (to read only the columns you need, name them in Options.Columns)"
 				}
 				err = &Error{File: r.name, Line: r.line, Column: i + 1, Field: short(f), Reason: reason, class: class}
@@ -1449,6 +1542,26 @@ func nonzero(f []byte) bool {
 // numStart reports whether c can start a number; a missing marker that
 // does not (NA, NaN) is looked up only for fields that do not.
 func numStart(c byte) bool { return c >= '0' && c <= '9' || c == '-' || c == '+' || c == '.' }
+
+// textCell reports whether a field of a number column is text, as a
+// marker of a missing value is ("n.a.", "n/a", "ERR"): it has a letter
+// and is not a number with either decimal mark (1.5e3, inf).
+func textCell(f []byte) bool {
+	if bytes.IndexFunc(f, func(c rune) bool { return c >= 'a' && c <= 'z' || c >= 'A' && c <= 'Z' }) < 0 {
+		return false
+	}
+	if _, err := strconv.ParseFloat(string(f), 64); err == nil || errors.Is(err, strconv.ErrRange) {
+		return false
+	}
+	if i := bytes.IndexByte(f, ','); i >= 0 {
+		g := bytes.Clone(f)
+		g[i] = '.'
+		if _, err := strconv.ParseFloat(string(g), 64); err == nil || errors.Is(err, strconv.ErrRange) {
+			return false
+		}
+	}
+	return true
+}
 
 // withUnit reports whether a field is a number and a unit (12 kn, 160
 // m3/h, 12kn), strict or as a data sheet writes it.

@@ -5,6 +5,7 @@ import (
 	"errors"
 	"io"
 	"math"
+	"slices"
 	"strings"
 	"testing"
 
@@ -358,18 +359,30 @@ func FuzzHeaderField(f *testing.F) {
 }
 
 func FuzzReader(f *testing.F) {
-	f.Add(pumpLog, uint8(0))
-	f.Add("a [m],b [m]\n1,2\n3\n", uint8(0))
-	f.Add("V [kn]\n12 kn\n", uint8(0))
-	f.Add("x [m]\n\"1\"\n,\n", uint8(0))
-	f.Add("L [km]\n1e308\n1e-400\n", uint8(0))
-	f.Add("Zeit;V\n;[kn]\n2026-03-04 10:00:00,5;1,5\n", uint8(0))
-	f.Add("t[s] V[kn]\n0 1\n", uint8(0))
-	f.Add("Time\tTag\n10:00\tA\n09:00\tB\n", uint8(0))
-	f.Add("T [\xb0C]\n1\n", uint8(4))
-	f.Add("\xff\xfeV\x00 \x00[\x00m\x00]\x00\n\x001\x00", uint8(0))
-	f.Add("\x00V\x00 \x00[\x00m\x00]\x00\n\x001", uint8(3))
-	f.Fuzz(func(t *testing.T, s string, o uint8) {
+	f.Add(pumpLog, uint8(0), false)
+	f.Add("a [m],b [m]\n1,2\n3\n", uint8(0), false)
+	f.Add("V [kn]\n12 kn\n", uint8(0), false)
+	f.Add("x [m]\n\"1\"\n,\n", uint8(0), false)
+	f.Add("L [km]\n1e308\n1e-400\n", uint8(0), false)
+	f.Add("Zeit;V\n;[kn]\n2026-03-04 10:00:00,5;1,5\n", uint8(0), false)
+	f.Add("t[s] V[kn]\n0 1\n", uint8(0), false)
+	f.Add("Time\tTag\n10:00\tA\n09:00\tB\n", uint8(0), false)
+	f.Add("T [\xb0C]\n1\n", uint8(4), false)
+	f.Add("\xff\xfeV\x00 \x00[\x00m\x00]\x00\n\x001\x00", uint8(0), false)
+	f.Add("\x00V\x00 \x00[\x00m\x00]\x00\n\x001", uint8(3), false)
+	for _, s := range []string{
+		"t [s],Temp [degF?],V [kn]\n0,68,1\n1,69,2\n",
+		"t [s],Flow [furlongs/fortnight],C,V [m/s],V [kn]\n0,1,2,3,4\n",
+		"t;Day;P1;[m/s]\n[s];;psig;\n0;03/04/2026;1;2\n",
+		"t [s],Flow (m3/h)),x\n0,1,a\n",
+		"time;H\n-;m\n04/03/2026 10:00:00;1,5\n",
+		"unix,tag,H\n-,-,\n1700000000,A,1.5\n",
+		"t;H\ns;m\n0;1,5\n1;n.a.\n",
+	} {
+		f.Add(s, uint8(0), true)
+		f.Add(s, uint8(0), false)
+	}
+	f.Fuzz(func(t *testing.T, s string, o uint8, sel bool) {
 		// o picks the encoding (low 3 bits), the delimiter and the decimal mark.
 		opt := chanfile.Options{Reference: units.StandardReference(), Encoding: chanfile.Encoding(o % 6)}
 		opt.Comma = []rune{0, ',', ';', ' '}[o>>3%4]
@@ -384,6 +397,37 @@ func FuzzReader(f *testing.F) {
 			}
 			return
 		}
+		// A column that cannot be read has a fault of one class, at
+		// the header's line, and selecting it is refused with it.
+		faultLine := 0
+		var readable []int
+		names := map[string]bool{}
+		for k, c := range r.Columns() {
+			if c.Fault == nil {
+				if !names[c.Name] {
+					readable = append(readable, k)
+				}
+				names[c.Name] = true
+				continue
+			}
+			var fe *chanfile.Error
+			if !errors.As(c.Fault, &fe) || classes(c.Fault) != 1 || fe.Line < 1 || fe.Column != c.Index || opt.Columns != nil {
+				t.Fatalf("column %d: fault %v (%+v)", k+1, c.Fault, fe)
+			}
+			faultLine = fe.Line
+			if sel {
+				if err := r.Select([]int{k}); err != c.Fault {
+					t.Fatalf("Select(%d) = %v, want its fault %v", k, err, c.Fault)
+				}
+			}
+		}
+		if sel {
+			// The columns without a fault, one of each name, always read
+			// past the header.
+			if err := r.Select(readable); err != nil {
+				t.Fatalf("Select(%v), the readable columns: %v", readable, err)
+			}
+		}
 		var dst []quantity.Series
 		rows := 0
 		for range 1 << 20 {
@@ -394,6 +438,12 @@ func FuzzReader(f *testing.F) {
 				break
 			}
 			for j, c := range r.Columns() {
+				if sel && !slices.Contains(readable, j) {
+					if dst[j].Len() != 0 {
+						t.Fatalf("unselected column %d: %d values", j, dst[j].Len())
+					}
+					continue
+				}
 				if c.Kind == chanfile.Label {
 					if dst[j].Len() != 0 || len(r.Labels(j)) != n {
 						t.Fatalf("label column %d: %d values, %d labels for %d rows", j, dst[j].Len(), len(r.Labels(j)), n)
@@ -412,6 +462,10 @@ func FuzzReader(f *testing.F) {
 		}
 		if err != io.EOF && classes(err) != 1 {
 			t.Fatalf("error %v is neither io.EOF nor of one error class", err)
+		}
+		var fe *chanfile.Error
+		if sel && errors.As(err, &fe) && faultLine > 0 && fe.Line == faultLine {
+			t.Fatalf("with the readable columns selected: %v, at the header's line", err)
 		}
 		if rows > len(s) {
 			t.Fatalf("%d rows from %d bytes", rows, len(s))

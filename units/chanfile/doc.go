@@ -22,7 +22,12 @@
 // the decimal mark ('.' or ','), and reports each choice as a Reading of
 // Reader.Format; an option overrides it. The units may follow each name
 // ("V [kn]", "V (kn)", "Q m3/h", or the quantity/unit heading "V/kn" of
-// ISO 80000-1) or stand in a row under the names ("[kn]", "kn", "-"). The
+// ISO 80000-1) or stand in a row under the names ("[kn]", "kn", "-"). In
+// a units row a column of numbers needs its unit, or 1 or "-" when it is
+// dimensionless; a timestamp or label column takes an empty cell or
+// "-", which an exporter writes for "no unit": under either, the
+// column's values tell whether it holds numbers, times or text. The
+// same holds for "[-]" in a header field. The
 // file may be UTF-8, with or without a byte-order mark, or UTF-16 with
 // one; a file in an 8-bit code page (0xB0 for °) is refused with the
 // option that reads it (Options.Encoding = Windows1252 or Latin1).
@@ -40,15 +45,42 @@
 // n), and Options.MissingValues sets the missing markers (#N/A, -9999,
 // ---, the empty field).
 //
+// A column whose header cannot be read (a unit the dialect does not
+// read, as "Temp [degF?]", a name with no unit, a malformed field, a
+// gauge channel with no reference, dates of no stated order) does not
+// fail NewReader: Reader.Columns lists it with its header as written
+// and its Column.Fault, an *Error naming the line, the column and the
+// fix. Selecting it (Options.Columns, Reader.Select, Select) returns
+// that error; so does selecting two columns of one channel name. When
+// every column is read, with no Options.Columns and no Select, the
+// first Read refuses the file as NewReader did before, and says how to
+// leave the column out. A fault of the whole file still fails it
+// whatever is selected: bytes that are not text in the encoding read, a
+// decimal mark that cannot be told, a line longer than MaxLineLen, a row
+// of another number of fields than the header, a quoted field left open.
+//
 // Values are read into quantity.Series in SI, chunk by chunk, so a file of
 // any length reduces in bounded memory. An empty field, NA, NaN, #N/A or the
 // Options' missing markers is a missing value: it is held as NaN and
 // counted per column, never dropped. Every other field that is not a
-// finite number is an error that names the file, line and column. A
+// finite number is an error that names the file, line and column; one
+// that is text ("n.a.", "ERR") names the option that would read it as
+// missing (Options.Missing = "n.a."). A
 // number read is the number written: one beyond the range of float64
 // (1e999), a nonzero one too small for it (1e-400, which would read as
 // 0), or one whose value in SI overflows or underflows (1e308 in km) is
 // an error matching quantity.ErrRange, never ±Inf or 0.
+//
+// ReadAll reads a file small enough to hold in memory whole (a steady
+// test of a few minutes, a zero file) into one Series per column and the
+// text of its label columns, refusing a file of more rows than the bound
+// it is given; its Whole feeds package steady directly (steady.Runs,
+// steady.TimeWindows, steady.Points; see the fromFile example there).
+// Package similarity/reduction runs the whole pipeline of a test on any
+// Source — choosing the columns, finding and reducing the steady points
+// in bounded memory, the zero, the calibrations and the dimensionless
+// groups with their uncertainty — and is the place to start for a file
+// of any length.
 //
 // Writer writes Series back in chosen units with a header Reader reads
 // back, and numbers in the shortest form that reads back to the same

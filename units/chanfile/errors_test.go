@@ -81,7 +81,11 @@ func TestErrorsInOneClass(t *testing.T) {
 			}
 		}
 	}
-	if _, err := chanfile.NewReader(strings.NewReader("P1 psig\n1\n"), "f.csv", chanfile.Options{}); !errors.Is(err, units.ErrGauge) {
+	r, err := chanfile.NewReader(strings.NewReader("P1 psig\n1\n"), "f.csv", chanfile.Options{})
+	if err == nil {
+		_, _, err = r.Read(nil, 0)
+	}
+	if !errors.Is(err, units.ErrGauge) {
 		t.Errorf("gauge without reference: %v does not match units.ErrGauge", err)
 	}
 }

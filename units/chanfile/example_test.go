@@ -136,3 +136,74 @@ func ExampleSelect() {
 	// Output:
 	// 2 <nil> [0 0.5] [1.5 1.52]
 }
+
+// A logger export (invented data) whose spare channel has a unit the
+// dialect does not read: the file still opens, the column is listed with
+// its fault, and the harness reads the others.
+func ExampleReader_Select() {
+	const log = `t [s];V [m/s];Temp [degF?]
+0;1,50;68
+0,5;1,52;69
+`
+	r, err := chanfile.NewReader(strings.NewReader(log), "run9.csv", chanfile.Options{})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	var idx []int
+	for k, c := range r.Columns() {
+		if c.Fault != nil {
+			fmt.Printf("not read: column %d %q\n", c.Index, c.Header)
+			continue
+		}
+		idx = append(idx, k)
+	}
+	if err := r.Select(idx); err != nil {
+		fmt.Println(err)
+		return
+	}
+	s, n, err := r.Read(nil, 0)
+	fmt.Println(n, err, s[0].Values(), s[1].Values())
+	// Selected, the column is refused with its fault.
+	fmt.Println(r.Select([]int{2}))
+	// Output:
+	// not read: column 3 "Temp [degF?]"
+	// 2 <nil> [0 0.5] [1.5 1.52]
+	// chanfile: run9.csv:1:3: "Temp [degF?]": not a unit: units: "degF?": at offset 0: syntax error: not a unit even as a data sheet writes it (read as "degF?"): units: "degF?": at offset 4: syntax error: unexpected '?' (missing operator?)
+}
+
+// A short file read whole: every channel as one Series in SI, with the
+// text of its label column (36 m3/h is 0.01 m3/s), ready for package steady (see the fromFile
+// example of package steady). The bound refuses a file longer than
+// expected instead of filling memory.
+func ExampleReadAll() {
+	const log = `# invented pump-loop log
+t;tag;Q;H
+s;-;m3/h;m
+0;A;36,0;12,5
+1;A;36,0;
+2;B;72,0;12,1
+`
+	r, err := chanfile.NewReader(strings.NewReader(log), "loop.csv", chanfile.Options{})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	w, err := chanfile.ReadAll(r, 1000)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	for k, c := range w.Columns {
+		fmt.Printf("%-3s %-9v %.4g %q (missing %d)\n", c.Name, c.Kind, w.Series[k].Values(), w.Labels[k], c.Missing)
+	}
+	r, _ = chanfile.NewReader(strings.NewReader(log), "loop.csv", chanfile.Options{})
+	_, err = chanfile.ReadAll(r, 2)
+	fmt.Println(err)
+	// Output:
+	// t   number    [0 1 2] [] (missing 0)
+	// tag label     [] ["A" "A" "B"] (missing 0)
+	// Q   number    [0.01 0.01 0.02] [] (missing 0)
+	// H   number    [12.5 NaN 12.1] [] (missing 1)
+	// chanfile: loop.csv:6: ReadAll: more than 2 rows, the bound given: read a longer file chunk by chunk with Read, or reduce it with package similarity/reduction, which works in bounded memory
+}

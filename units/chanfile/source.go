@@ -36,7 +36,8 @@ type Selector interface {
 // a Selector it is asked to read only those columns; otherwise src reads
 // every column and the others are dropped after each chunk. An index
 // outside src's columns, or one given twice, is an *Error of class
-// quantity.ErrInvalid.
+// quantity.ErrInvalid; a column whose Fault is set returns that fault,
+// and so does a Selector's own refusal (two columns of one name).
 func Select(src Source, idx ...int) (Source, error) {
 	cols := src.Columns()
 	seen := make(map[int]bool, len(idx))
@@ -45,6 +46,11 @@ func Select(src Source, idx ...int) (Source, error) {
 			return nil, &Error{Reason: "select: column index out of range or repeated", class: quantity.ErrInvalid}
 		}
 		seen[k] = true
+	}
+	for _, k := range idx {
+		if cols[k].Fault != nil {
+			return nil, cols[k].Fault
+		}
 	}
 	s := &selected{src: src, idx: append([]int(nil), idx...)}
 	if sel, ok := src.(Selector); ok {
@@ -88,6 +94,17 @@ func (s *selected) Read(dst []quantity.Series, rows int) ([]quantity.Series, int
 		dst[i] = s.full[k]
 	}
 	return dst, n, nil
+}
+
+// Labels returns the labels of the selected column k for the rows of
+// the last chunk Read returned, as the source's Labels method gives them
+// (nil when the source has none or the column is not a Label column).
+func (s *selected) Labels(k int) []string {
+	l, ok := s.src.(labeler)
+	if !ok || k < 0 || k >= len(s.idx) {
+		return nil
+	}
+	return l.Labels(s.idx[k])
 }
 
 // SeriesSource is a Source over channels held in memory, read chunk by

@@ -40,7 +40,8 @@ type Writer struct {
 
 // NewWriter writes the header for cols to w; name is the file's name for
 // messages. Each column's Name and Unit are used; a column must not be a
-// gauge column (values are written as read, absolute). A name the header
+// gauge column (values are written as read, absolute), nor one with a
+// Fault (a column a reader could not read). A name the header
 // cannot carry so that Reader reads it back (a newline, a first name
 // starting with '#', leading or trailing space, a duplicate, invalid
 // UTF-8, a field longer than MaxFieldLen) is refused, as is a number of
@@ -67,6 +68,9 @@ func NewWriter(w io.Writer, name string, cols []Column, opt Options) (*Writer, e
 		if c.Gauge {
 			return nil, &Error{File: name, Line: 1, Column: i + 1, Field: c.Name, Reason: "a gauge column: the reader made it absolute; write it with Gauge false and its pressure unit", class: quantity.ErrInvalid}
 		}
+		if c.Fault != nil {
+			return nil, &Error{File: name, Line: 1, Column: i + 1, Field: c.Name, Reason: "a column a reader could not read (its Fault is set): its unit is not known", class: quantity.ErrInvalid}
+		}
 		u := c.Unit.String()
 		if c.Unit.Equal(units.One()) {
 			u = "1"
@@ -83,6 +87,9 @@ func NewWriter(w io.Writer, name string, cols []Column, opt Options) (*Writer, e
 	// The header is read back as Reader reads it: the names and units
 	// must come back as given.
 	back, err := NewReader(bytes.NewReader(hb.Bytes()), name, Options{Comma: opt.Comma})
+	if err == nil {
+		err = back.refusal(back.active) // every column must read
+	}
 	if err != nil {
 		e := &Error{File: name, Line: 1, Reason: "the header would not read back (" + err.(*Error).Reason + ")", class: quantity.ErrInvalid}
 		if c := err.(*Error).Column; c > 0 && c <= len(cols) {

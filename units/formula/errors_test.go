@@ -25,7 +25,10 @@ func TestErrorsOneClass(t *testing.T) {
 	row := []float64{1e5, 0, 2}
 	asForm := func(err error) bool { var e *formula.Error; return errors.As(err, &e) }
 	asUnit := func(err error) bool { var e *units.Error; return errors.As(err, &e) }
-	asDim := func(err error) bool { var e *quantity.DimensionError; return errors.As(err, &e) }
+	asDim := func(err error) bool {
+		var e *quantity.Error
+		return errors.As(err, &e) && e.Class == quantity.ErrDimension
+	}
 	asEval := func(err error) bool {
 		var e *formula.Error
 		return errors.As(err, &e) && e.Op == formula.OpEvaluate && e.Row == -1

@@ -107,8 +107,9 @@ func (e *Evaluator) row(in []float64, out []float64) error {
 }
 
 // RowQ is Row for quantities: each input's dimension is checked (a
-// wrong one is an *Error of OpEvaluate wrapping the *quantity.DimensionError), and
-// results that are not finite are treated as the evaluator's Check says.
+// wrong one is an *Error of OpEvaluate wrapping the *quantity.Error of
+// class quantity.ErrDimension), and results that are not finite are
+// treated as the evaluator's Check says.
 func (e *Evaluator) RowQ(in []quantity.Quantity, out []quantity.Quantity) ([]quantity.Quantity, error) {
 	p := e.p
 	if len(in) != len(p.inputs) || len(out) < len(p.kept) {

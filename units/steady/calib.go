@@ -121,7 +121,7 @@ func (c *Calibration) Apply(dst *quantity.Series, raw quantity.Series, channel s
 	}
 	if raw.Dim() != c.Raw.Dim() {
 		return &Error{Op: "calibrate", Channel: channel, Row: -1, Reason: "calibration " + strconv.Quote(c.Name),
-			Err: &quantity.DimensionError{Op: "check", Name: channel, Left: raw.Dim(), Right: c.Raw.Dim(), Binary: true}}
+			Err: &quantity.Error{Op: "check", Name: channel, Dims: [2]quantity.Dim{raw.Dim(), c.Raw.Dim()}, Binary: true, Class: quantity.ErrDimension}}
 	}
 	rf, ro := c.Raw.Factor(), c.Raw.Offset()
 	v := raw.Values()
@@ -195,7 +195,7 @@ func (c *Calibration) Measured(set *uncertain.Set, channel string, x uncertain.M
 	}
 	if x.Dim() != c.Raw.Dim() {
 		return uncertain.Measured{}, &Error{Op: op, Channel: channel, Row: -1, Reason: "calibration " + strconv.Quote(c.Name),
-			Err: &quantity.DimensionError{Op: "check", Name: channel, Left: x.Dim(), Right: c.Raw.Dim(), Binary: true}}
+			Err: &quantity.Error{Op: "check", Name: channel, Dims: [2]quantity.Dim{x.Dim(), c.Raw.Dim()}, Binary: true, Class: quantity.ErrDimension}}
 	}
 	y, slope, err := c.Eval(x.Quantity())
 	if err != nil {
@@ -257,7 +257,7 @@ func (c *Calibration) AddSource(set *uncertain.Set, p Point, channel string) (Po
 		}
 		if v.Mean.Dim() != c.Eng.Dim() {
 			return Point{}, &Error{Op: op, Channel: channel, Row: -1, Reason: "calibration " + strconv.Quote(c.Name),
-				Err: &quantity.DimensionError{Op: "check", Name: channel, Left: v.Mean.Dim(), Right: c.Eng.Dim(), Binary: true}}
+				Err: &quantity.Error{Op: "check", Name: channel, Dims: [2]quantity.Dim{v.Mean.Dim(), c.Eng.Dim()}, Binary: true, Class: quantity.ErrDimension}}
 		}
 		id, err := c.sourceIn(set)
 		if err != nil {

@@ -5,6 +5,23 @@
 // on quantity.Series and knows nothing of dimensionless groups; the
 // channels come from a reader such as package chanfile.
 //
+// A log small enough to hold in memory is read whole with
+// chanfile.ReadAll, whose Series go straight into Runs, TimeWindows and
+// Points (see the fromFile example):
+//
+//	w, err := chanfile.ReadAll(r, 1_000_000) // r: a *chanfile.Reader
+//	var ws []steady.Window
+//	for _, run := range steady.Runs(w.Series[w.Index("run")]) {
+//		ws = append(ws, run.Window)
+//	}
+//	chs := []steady.Channel{{Name: "V", Data: w.Series[w.Index("V")], DriftLimit: lim}}
+//	pts, err := steady.Points(set, chs, ws)
+//
+// Package similarity/reduction runs the whole procedure below on a file
+// of any length, chunk by chunk in bounded memory, and carries the
+// points on to the dimensionless groups: start there for a test's
+// reduction, and use this package for a step of it on its own.
+//
 // The procedure, in order:
 //
 // 1. Read the history and bring each channel to the unit its calibration

@@ -155,6 +155,7 @@ func ExampleDetect() {
 	// the ramp's first row (1.095 Pa): its halves differ by 0.095/5 =
 	// 0.019 Pa, within 0.02 Pa, so it is steady; row 56's differ by
 	// (0.095 + 0.190)/5 = 0.057 Pa.
+
 	// Output:
 	// rows 5 to 55
 	// rows 84 to 134

@@ -66,7 +66,7 @@ func Reduce(set *uncertain.Set, tag string, chs []Channel, w Window) (Point, err
 		lim := ch.DriftLimit
 		if lim.Dim() != ch.Data.Dim() {
 			return Point{}, &Error{Op: op, Channel: ch.Name, Row: -1, Reason: "drift limit",
-				Err: &quantity.DimensionError{Op: "check", Name: ch.Name + " drift limit", Left: lim.Dim(), Right: ch.Data.Dim(), Binary: true}}
+				Err: &quantity.Error{Op: "check", Name: ch.Name + " drift limit", Dims: [2]quantity.Dim{lim.Dim(), ch.Data.Dim()}, Binary: true, Class: quantity.ErrDimension}}
 		}
 		if !(lim.Value() > 0) || math.IsInf(lim.Value(), 0) {
 			return Point{}, invalid(op, ch.Name, -1, "drift limit %v: want a finite value > 0", lim)
@@ -130,7 +130,7 @@ func Tare(p, zero Point) (Point, error) {
 		}
 		if z.Mean.Dim() != v.Mean.Dim() {
 			return Point{}, &Error{Op: op, Channel: v.Name, Row: -1, Reason: "the zero",
-				Err: &quantity.DimensionError{Op: "check", Name: v.Name + " zero", Left: z.Mean.Dim(), Right: v.Mean.Dim(), Binary: true}}
+				Err: &quantity.Error{Op: "check", Name: v.Name + " zero", Dims: [2]quantity.Dim{z.Mean.Dim(), v.Mean.Dim()}, Binary: true, Class: quantity.ErrDimension}}
 		}
 		m, err := uncertain.Eval(func() uncertain.Measured { return v.Mean.Sub(z.Mean) })
 		if err != nil {

@@ -159,10 +159,10 @@ func Detect(c Criterion) ([]Window, error) {
 			return nil, invalid(op, ch.Name, -1, "%d samples, the first channel %d", ch.Data.Len(), n)
 		case ch.SD.Dim() != d:
 			return nil, &Error{Op: op, Channel: ch.Name, Row: -1, Reason: "the SD tolerance",
-				Err: &quantity.DimensionError{Op: "check", Name: ch.Name + " SD tolerance", Left: ch.SD.Dim(), Right: d, Binary: true}}
+				Err: &quantity.Error{Op: "check", Name: ch.Name + " SD tolerance", Dims: [2]quantity.Dim{ch.SD.Dim(), d}, Binary: true, Class: quantity.ErrDimension}}
 		case ch.Change.Dim() != d:
 			return nil, &Error{Op: op, Channel: ch.Name, Row: -1, Reason: "the change tolerance",
-				Err: &quantity.DimensionError{Op: "check", Name: ch.Name + " change tolerance", Left: ch.Change.Dim(), Right: d, Binary: true}}
+				Err: &quantity.Error{Op: "check", Name: ch.Name + " change tolerance", Dims: [2]quantity.Dim{ch.Change.Dim(), d}, Binary: true, Class: quantity.ErrDimension}}
 		case !(ch.SD.Value() > 0) || !(ch.Change.Value() > 0) || !finite(ch.SD.Value()) || !finite(ch.Change.Value()):
 			return nil, invalid(op, ch.Name, -1, "tolerances %v and %v: want finite values > 0", ch.SD, ch.Change)
 		}

@@ -12,6 +12,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	iofs "io/fs"
 	"math"
 	"os"
 	"strconv"
@@ -117,12 +118,62 @@ func ParseFlags(fs *flag.FlagSet, w io.Writer, args []string) error {
 }
 
 // Dir returns a usage error naming the flag unless path is an existing
-// directory.
+// directory that a file can be written in (it is checked by creating
+// and removing an empty temporary file), so that a command can refuse
+// its output directory before it prints its report. The message tells a
+// missing directory (create it or pass another) from a path that names
+// a file (not a directory) and from one that cannot be written in.
 func Dir(flagName, path string) error {
-	if st, err := os.Stat(path); err != nil || !st.IsDir() {
-		return &Error{Msg: fmt.Sprintf("-%s %s: not a directory", flagName, Quote(path))}
+	st, err := os.Stat(path)
+	switch {
+	case path == "":
+		return &Error{Msg: fmt.Sprintf("-%s %s: no directory given; pass an existing directory", flagName, Quote(path))}
+	case errors.Is(err, iofs.ErrNotExist):
+		return &Error{Msg: fmt.Sprintf("-%s %s: the directory does not exist; create it or pass another", flagName, Quote(path))}
+	case err != nil:
+		var pe *iofs.PathError
+		reason := err
+		if errors.As(err, &pe) {
+			reason = pe.Err // the path is quoted above, not repeated raw
+		}
+		return &Error{Msg: fmt.Sprintf("-%s %s: cannot be examined (%v); pass a directory you can read and write", flagName, Quote(path), reason)}
+	case !st.IsDir():
+		return &Error{Msg: fmt.Sprintf("-%s %s: not a directory (a file of that name exists); pass a directory", flagName, Quote(path))}
 	}
+	f, err := os.CreateTemp(path, ".write-check-*")
+	if err != nil {
+		return &Error{Msg: fmt.Sprintf("-%s %s: the directory is not writable; give a directory you can write in", flagName, Quote(path))}
+	}
+	name := f.Name()
+	f.Close()
+	os.Remove(name)
 	return nil
+}
+
+// Sig formats x with n significant figures (n from 1 to 17), trailing
+// zeros kept, in plain decimal notation for 1e-5 ≤ |x| < 1e9 and in
+// e-notation outside it; the digits before the decimal point are never
+// rounded away, so a whole number keeps them all: Sig(0.39904, 4) is
+// "0.3990", Sig(4.21875, 4) "4.219", Sig(31534.2, 4) "31534",
+// Sig(0.0020287, 3) "0.00203", Sig(113.4, 2) "113". A value never
+// rounds to a printed zero unless it is zero; NaN and ±Inf print as
+// strconv prints them.
+func Sig(x float64, n int) string {
+	n = max(1, min(n, 17))
+	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) {
+		return strconv.FormatFloat(x, 'g', -1, 64)
+	}
+	e := strconv.FormatFloat(x, 'e', n-1, 64)
+	i := strings.LastIndexByte(e, 'e')
+	exp, err := strconv.Atoi(e[i+1:])
+	if err != nil || exp < -5 || exp >= 9 {
+		return e
+	}
+	if exp >= n-1 {
+		return strconv.FormatFloat(x, 'f', 0, 64)
+	}
+	v, _ := strconv.ParseFloat(e, 64) // x rounded to n figures
+	return strconv.FormatFloat(v, 'f', max(0, n-1-exp), 64)
 }
 
 // Parse parses args with fs, which must use flag.ContinueOnError. Usage
@@ -213,7 +264,9 @@ func ExitCode(stderr io.Writer, name string, err error) int {
 	if err == nil || errors.Is(err, flag.ErrHelp) {
 		return 0
 	}
-	fmt.Fprintln(stderr, name+":", Sanitize(err.Error()))
+	// A library error that already starts with the command's name (the
+	// tunnel package's errors in the tunnel command) is not prefixed twice.
+	fmt.Fprintln(stderr, name+":", strings.TrimPrefix(Sanitize(err.Error()), name+": "))
 	var ce *Error
 	if errors.As(err, &ce) {
 		return 2

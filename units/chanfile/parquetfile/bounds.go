@@ -59,7 +59,7 @@ func checkFooter(r io.ReaderAt, size int64) error {
 		return err
 	}
 	if k, err := thriftCheck(footer, maxDecodedFooter); err != nil {
-		return fmt.Errorf("the footer: %v", err)
+		return fmt.Errorf("the footer: %w", err)
 	} else if k != len(footer) {
 		return fmt.Errorf("the footer: %d bytes after its end", len(footer)-k)
 	}
@@ -90,35 +90,48 @@ func (c *countReader) ReadByte() (byte, error) {
 // marks (by their index in a row group) and checks
 // that each page fits in its chunk, the chunk in the file, and that no
 // page decodes to more than MaxPageBytes; it reads headers and the first
-// bytes of compressed data, never decompressing.
-func checkPages(r io.ReaderAt, size int64, f *parquet.File, use, optional []bool) error {
+// bytes of compressed data, never decompressing. A fault of one column
+// is returned in bad, by the column's index, and first is the first such
+// fault met (nil if none); the column is not looked at further. A fault
+// of the file is err.
+func checkPages(r io.ReaderAt, size int64, f *parquet.File, use, optional, boolean []bool) (bad []error, first, err error) {
 	md := f.Metadata()
 	if md.EncryptionAlgorithm.Value != nil {
-		return fmt.Errorf("an encrypted file")
+		return nil, nil, fmt.Errorf("an encrypted file")
+	}
+	bad = make([]error, len(use))
+	fail := func(c int, err error) {
+		bad[c] = err
+		if first == nil {
+			first = err
+		}
 	}
 	var rows int64
 	for g, rg := range md.RowGroups {
 		if rg.NumRows < 0 || rows+rg.NumRows < rows {
-			return fmt.Errorf("row group %d: %d rows", g+1, rg.NumRows)
+			return nil, nil, fmt.Errorf("row group %d: %d rows", g+1, rg.NumRows)
 		}
 		rows += rg.NumRows
 		if len(rg.Columns) != len(use) {
-			return fmt.Errorf("row group %d: %d column chunks, the schema has %d columns", g+1, len(rg.Columns), len(use))
+			return nil, nil, fmt.Errorf("row group %d: %d column chunks, the schema has %d columns", g+1, len(rg.Columns), len(use))
 		}
 		for c, cc := range rg.Columns {
-			if !use[c] {
-				continue // never read: not looked at
+			if !use[c] || bad[c] != nil {
+				continue // never read, or refused: not looked at
 			}
 			where := fmt.Sprintf("row group %d, column %d", g+1, c+1)
 			m := cc.MetaData
 			if cc.FilePath != "" {
-				return fmt.Errorf("%s: data in another file (%q)", where, cc.FilePath)
+				fail(c, fmt.Errorf("%s: data in another file (%q)", where, cc.FilePath))
+				continue
 			}
 			if cc.CryptoMetadata.Value != nil || len(cc.EncryptedColumnMetadata) > 0 {
-				return fmt.Errorf("%s: an encrypted column", where)
+				fail(c, fmt.Errorf("%s: an encrypted column", where))
+				continue
 			}
 			if !readable[m.Codec] {
-				return fmt.Errorf("%s: compression %v is not read (write the file with ZSTD, SNAPPY, GZIP or none)", where, m.Codec)
+				fail(c, fmt.Errorf("%s: compression %v is not read (write the file with ZSTD, SNAPPY, GZIP or none)", where, m.Codec))
+				continue
 			}
 			start := m.DataPageOffset
 			if m.DictionaryPageOffset > 0 && m.DictionaryPageOffset < start {
@@ -126,28 +139,31 @@ func checkPages(r io.ReaderAt, size int64, f *parquet.File, use, optional []bool
 			}
 			end := start + m.TotalCompressedSize
 			if start < 4 || m.TotalCompressedSize <= 0 || end < start || end > size-8 {
-				return fmt.Errorf("%s: a chunk of %d bytes at offset %d, outside the file", where, m.TotalCompressedSize, start)
+				fail(c, fmt.Errorf("%s: a chunk of %d bytes at offset %d, outside the file", where, m.TotalCompressedSize, start))
+				continue
 			}
-			values, err := checkChunk(io.NewSectionReader(r, start, end-start), m.Codec, optional[c])
+			values, err := checkChunk(io.NewSectionReader(r, start, end-start), m.Codec, optional[c], boolean[c])
 			if err != nil {
-				return fmt.Errorf("%s: %w", where, err)
+				fail(c, fmt.Errorf("%s: %w", where, err))
+				continue
 			}
 			// Every row has at least one entry in every column.
 			if values < rg.NumRows {
-				return fmt.Errorf("%s: %d rows declared, %d values in the pages", where, rg.NumRows, values)
+				fail(c, fmt.Errorf("%s: %d rows declared, %d values in the pages", where, rg.NumRows, values))
+				continue
 			}
 		}
 	}
 	if md.NumRows != rows {
-		return fmt.Errorf("the footer declares %d rows, its row groups %d", md.NumRows, rows)
+		return nil, nil, fmt.Errorf("the footer declares %d rows, its row groups %d", md.NumRows, rows)
 	}
-	return nil
+	return bad, first, nil
 }
 
 // checkChunk walks the pages of one column chunk (of a flat column,
 // optional or not) and returns the number of values its data pages
 // declare.
-func checkChunk(sr *io.SectionReader, codec format.CompressionCodec, optional bool) (int64, error) {
+func checkChunk(sr *io.SectionReader, codec format.CompressionCodec, optional, boolean bool) (int64, error) {
 	size := sr.Size()
 	cr := &countReader{r: bufio.NewReaderSize(sr, maxPageHeader)}
 	var proto thrift.CompactProtocol
@@ -157,11 +173,11 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec, optional bo
 		// no string or list longer than that.
 		peek, _ := cr.r.Peek(int(min(size-cr.n, maxPageHeader)))
 		if _, err := thriftCheck(peek, 1<<20); err != nil {
-			return 0, fmt.Errorf("page %d: a damaged page header: %v", page, err)
+			return 0, fmt.Errorf("page %d: a damaged page header: %w", page, err)
 		}
 		var h format.PageHeader
 		if err := thrift.NewDecoder(proto.NewReader(io.LimitReader(cr, maxPageHeader))).Decode(&h); err != nil {
-			return 0, fmt.Errorf("page %d: a damaged page header: %v", page, err)
+			return 0, fmt.Errorf("page %d: a damaged page header: %w", page, err)
 		}
 		comp, unc := int64(h.CompressedPageSize), int64(h.UncompressedPageSize)
 		if comp < 0 || unc < 0 || comp > MaxPageBytes || unc > MaxPageBytes {
@@ -205,7 +221,7 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec, optional bo
 				// The block starts with its decoded length, a varint.
 				var head [binary.MaxVarintLen64]byte
 				if _, err := sr.ReadAt(head[:min(n, int64(len(head)))], data); err != nil {
-					return 0, fmt.Errorf("page %d: %v", page, err)
+					return 0, fmt.Errorf("page %d: %w", page, err)
 				}
 				u, k := binary.Uvarint(head[:min(n, int64(len(head)))])
 				if k <= 0 {
@@ -236,17 +252,17 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec, optional bo
 				}
 			}
 			if err != nil {
-				return 0, fmt.Errorf("page %d: %v", page, err)
+				return 0, fmt.Errorf("page %d: %w", page, err)
 			}
 			if out > MaxPageBytes {
 				return 0, fmt.Errorf("page %d: decompresses to as much as %d bytes (at most %d read)", page, out, int64(MaxPageBytes))
 			}
 		}
-		if err := checkEncoded(sr, &h, codec, body, comp, values, optional); err != nil {
-			return 0, fmt.Errorf("page %d: %v", page, err)
+		if err := checkEncoded(sr, &h, codec, body, comp, values, optional, boolean); err != nil {
+			return 0, fmt.Errorf("page %d: %w", page, err)
 		}
 		if _, err := cr.r.Discard(int(comp)); err != nil {
-			return 0, fmt.Errorf("page %d: %v", page, err)
+			return 0, fmt.Errorf("page %d: %w", page, err)
 		}
 		cr.n += comp
 	}
@@ -262,7 +278,7 @@ func checkChunk(sr *io.SectionReader, codec format.CompressionCodec, optional bo
 // page does not bound (RLE and BIT_PACKED for numbers, DELTA_BYTE_ARRAY)
 // are refused. The page is decompressed here only when it holds such
 // counts (levels, dictionary indices, delta encodings).
-func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.CompressionCodec, body, comp, values int64, optional bool) error {
+func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.CompressionCodec, body, comp, values int64, optional, boolean bool) error {
 	var enc format.Encoding
 	switch {
 	case h.DictionaryPageHeader.Valid:
@@ -282,6 +298,10 @@ func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.Compr
 	case format.Plain, format.ByteStreamSplit:
 	//lint:ignore SA1019 files written by older writers still use the deprecated PLAIN_DICTIONARY code, and are read
 	case format.PlainDictionary, format.RLEDictionary, format.DeltaBinaryPacked, format.DeltaLengthByteArray:
+	case format.RLE:
+		if !boolean {
+			return fmt.Errorf("values of encoding RLE are not read but for a BOOLEAN column")
+		}
 	default:
 		return fmt.Errorf("values of encoding %v are not read (PLAIN, dictionary, DELTA_BINARY_PACKED, DELTA_LENGTH_BYTE_ARRAY and BYTE_STREAM_SPLIT are)", enc)
 	}
@@ -304,7 +324,7 @@ func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.Compr
 	if h.DataPageHeader.Valid {
 		d, err := decode(raw)
 		if err != nil {
-			return fmt.Errorf("a damaged compressed page: %v", err)
+			return fmt.Errorf("a damaged compressed page: %w", err)
 		}
 		if optional {
 			if e := h.DataPageHeader.V.DefinitionLevelEncoding; e != format.RLE {
@@ -338,7 +358,7 @@ func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.Compr
 		if !v.IsCompressed.Valid || v.IsCompressed.V {
 			d, err := decode(data)
 			if err != nil {
-				return fmt.Errorf("a damaged compressed page: %v", err)
+				return fmt.Errorf("a damaged compressed page: %w", err)
 			}
 			data = d
 		}
@@ -353,6 +373,16 @@ func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.Compr
 			return fmt.Errorf("dictionary indices of %d bits", data[0])
 		}
 		return hybridRuns(data[1:], int64(data[0]), limit, "dictionary indices")
+	case format.RLE:
+		// Booleans: a 4-byte length, then runs of 1-bit values.
+		if len(data) < 4 {
+			return fmt.Errorf("RLE booleans cut short")
+		}
+		n := int64(binary.LittleEndian.Uint32(data))
+		if n > int64(len(data)-4) {
+			return fmt.Errorf("RLE booleans of %d bytes in a page of %d", n, len(data))
+		}
+		return boolRuns(data[4:4+n], limit)
 	case format.DeltaBinaryPacked, format.DeltaLengthByteArray:
 		// Block size, miniblocks per block, then the value count.
 		p := data
@@ -370,18 +400,30 @@ func checkEncoded(sr *io.SectionReader, h *format.PageHeader, codec format.Compr
 	return nil
 }
 
+// runHeader reads the header of the run at b[*i] of an RLE/bit-packed
+// hybrid stream, moving *i past it: the run's count n (of values, or of
+// groups of 8 when packed, capped at 2⁴⁰ so sums cannot overflow) and
+// whether it is bit-packed. It reports false for a header that does not
+// decode.
+func runHeader(b []byte, i *int) (n int64, packed bool, ok bool) {
+	u, k := binary.Uvarint(b[*i:])
+	if k <= 0 {
+		return 0, false, false
+	}
+	*i += k
+	return int64(min(u>>1, 1<<40)), u&1 != 0, true
+}
+
 // hybridRuns walks the runs of an RLE/bit-packed hybrid stream of
 // width-bit values and refuses it if they declare more than limit values.
 func hybridRuns(b []byte, width, limit int64, what string) error {
 	var total int64
 	for i := 0; i < len(b); {
-		u, k := binary.Uvarint(b[i:])
-		if k <= 0 {
+		n, packed, ok := runHeader(b, &i)
+		if !ok {
 			return nil // the decoder refuses it
 		}
-		i += k
-		n := int64(min(u>>1, 1<<40))
-		if u&1 != 0 { // n groups of 8 bit-packed values
+		if packed { // n groups of 8 bit-packed values
 			total += 8 * n
 			i += int(min(n*width, int64(len(b))))
 		} else { // n repeats of one value
@@ -395,17 +437,61 @@ func hybridRuns(b []byte, width, limit int64, what string) error {
 	return nil
 }
 
+// boolRuns walks the runs of RLE-encoded booleans and refuses them if
+// they declare more than limit values, or if the decoder would misread
+// them. The decoder expands a repeated run into whole bytes, each a copy
+// of the run's value byte: that is the run's values only when the byte
+// is 0x00 or 0xFF, or the run is of one value; and only a run that is
+// the last, or of a multiple of 8 values, leaves the next run on the
+// byte it starts on. A file whose runs are otherwise (a run of true
+// written as the byte 1, as the format writes it) is refused rather than
+// read wrong.
+func boolRuns(b []byte, limit int64) error {
+	var total int64
+	for i := 0; i < len(b); {
+		n, packed, ok := runHeader(b, &i)
+		if !ok {
+			return nil // the decoder refuses it
+		}
+		if packed { // n groups of 8 bit-packed values, n bytes
+			total += 8 * n
+			i += int(min(n, int64(len(b))))
+		} else {
+			total += n
+			if total > limit {
+				return fmt.Errorf("booleans whose runs declare more than the page's %d values", limit-64)
+			}
+			var w byte
+			if i < len(b) {
+				w = b[i]
+				i++
+			}
+			last := i >= len(b)
+			if w > 1 && w != 0xFF {
+				return fmt.Errorf("a run of booleans of value byte 0x%02X: a damaged page", w)
+			}
+			if w == 1 && n > 1 || n%8 != 0 && !last {
+				return fmt.Errorf("RLE booleans in runs the decoder would misread (a run of %d of value byte 0x%02X): write the column PLAIN", n, w)
+			}
+		}
+		if total > limit {
+			return fmt.Errorf("booleans whose runs declare more than the page's %d values", limit-64)
+		}
+	}
+	return nil
+}
+
 // gzipSize inflates the gzip stream of r (all its members, as the
 // decoder does) into nothing and returns the bytes it inflates to, at
 // most limit+1: memory stays that of one inflater, whatever the stream.
 func gzipSize(r io.Reader, limit int64) (int64, error) {
 	z, err := gzip.NewReader(r)
 	if err != nil {
-		return 0, fmt.Errorf("a damaged gzip stream: %v", err)
+		return 0, fmt.Errorf("a damaged gzip stream: %w", err)
 	}
 	n, err := io.Copy(io.Discard, io.LimitReader(z, limit+1))
 	if err != nil {
-		return n, fmt.Errorf("a damaged gzip stream: %v", err)
+		return n, fmt.Errorf("a damaged gzip stream: %w", err)
 	}
 	return n, nil
 }

@@ -18,19 +18,28 @@
 // package units, and the readings are kept on the Column, as in package
 // chanfile.
 //
+// A Reader is a chanfile.Source and a chanfile.Selector: chanfile.ReadAll
+// reads a small file whole (labels included, up to a bound of rows), and
+// package similarity/reduction reduces a file of any length chunk by
+// chunk.
+//
 // # What is read
 //
 // A caller may name the columns it wants (Options.Columns); the others
 // are never decoded, nor their pages checked, so a column of a type or a
 // compression not read, or a damaged one, does not fail the file unless
 // it is asked for. With no names, every column is listed: one the reader
-// cannot read (a type or a unit it does not read) fails the first Read,
-// unless Reader.Select, called after NewReader with the columns a caller
-// found it needs in the schema, leaves it out (Reader is a
-// chanfile.Selector). Select never decodes the columns it leaves out;
-// their pages were checked by NewReader only if they are readable.
+// cannot read (a type or a unit it does not read, a gauge column with no
+// reference, pages the check below refuses) carries its error in
+// chanfile.Column.Fault and fails the first Read, unless Reader.Select,
+// called after NewReader with the columns a caller found it needs in the
+// schema, leaves it out (Reader is a chanfile.Selector); selecting it
+// returns its Fault. Select never decodes the columns it leaves out;
+// NewReader checked the pages of every column of a type it reads, and a
+// column whose pages fail the check is listed with its fault rather than
+// failing the file.
 //
-// A column read is flat, not repeated, and one of three kinds (Kind):
+// A column read is flat, not repeated, and one of four kinds (Kind):
 //
 //   - Number: DOUBLE, FLOAT, INT32 or INT64, with a plain integer
 //     logical or converted type or none, or a DECIMAL stored as INT32,
@@ -40,22 +49,41 @@
 //     12.345 as the literal 12.345 is), then to SI by its unit, which
 //     comes from the metadata, Options.Units or the name as for any
 //     number. An integer beyond ±2⁵³ is refused, since it would not be
-//     exact; a DECIMAL is rounded as said.
+//     exact; a DECIMAL is rounded as said. A BOOLEAN is a number too,
+//     1 for true and 0 for false, dimensionless (unit one, stated in a
+//     Reading), so that a logged state (a valve open, a carriage
+//     running) reads as the 0/1 channel a text export writes and its
+//     mean over a window is the fraction of the window it was true. Its
+//     name may carry the unit one ("valve [1]"); another unit in
+//     brackets or parentheses, or in the metadata, is refused.
 //   - Time: a TIMESTAMP (MILLIS, MICROS or NANOS; adjusted to UTC or
-//     not) or a DATE, read as seconds (unit s) from the column's first
-//     sample, exact to one rounding of the tick count; Reader.Origin
-//     keeps that sample's instant and says whether the file stores it in
-//     UTC or as a wall-clock reading of no stated zone. Instants more
-//     than 2⁵³ ticks from the first are refused (ErrRange). A unit given
-//     to a time column is refused, not applied.
+//     not), a DATE, or a legacy INT96 timestamp, read as seconds (unit
+//     s) from the column's first sample, exact to one rounding of the
+//     tick count; Reader.Origin keeps that sample's instant and says
+//     whether the file stores it in UTC or as a wall-clock reading of no
+//     stated zone. An INT96 is 8 bytes of nanoseconds within the day and
+//     4 of the Julian day number (2440588 is 1970-01-01), both
+//     little-endian, as the older writers define it; it states no zone
+//     (writers differ), so its Origin is not marked UTC, and nanoseconds
+//     outside one day are refused (ErrRange). Instants more than 2⁵³
+//     ticks from the first (for INT96, 2⁵³ ns, about 104 days) are
+//     refused (ErrRange). A unit given to a time column is refused, not
+//     applied.
+//   - TimeOfDay: a TIME (MILLIS in an INT32, MICROS or NANOS in an
+//     INT64, or the older TIME_MILLIS and TIME_MICROS, adjusted to UTC)
+//     read as seconds since midnight (unit s), with no date and no
+//     Origin; a Reading states it. A value outside 0 to 24 h is refused
+//     (ErrRange).
 //   - Label: a STRING, UTF8 or ENUM, read as text by Reader.Labels, one
 //     string a row; the column's Series from Read is empty. A label that
 //     is not valid UTF-8 is refused.
 //
-// Refused, with the column named: BOOLEAN, INT96, a BYTE_ARRAY or
-// FIXED_LEN_BYTE_ARRAY with no logical type, JSON, BSON, UUID, TIME,
-// INTERVAL and the other logical types, nested groups and repeated
-// columns: their stored bytes are not a value in a unit.
+// Refused, with the column named: a BYTE_ARRAY or FIXED_LEN_BYTE_ARRAY
+// with no logical type, JSON, BSON, UUID, INTERVAL and the other
+// logical types, nested groups and repeated columns: their stored bytes
+// are not a value in a unit. Such a column, or one with no unit or a
+// gauge column with no reference, is listed by Reader.Columns with its
+// error in chanfile.Column.Fault when Options.Columns is not given.
 //
 // A unit stated twice must agree: a unit in the metadata, or in
 // Options.Units, that differs from the unit the column's name carries
@@ -92,7 +120,14 @@
 // DELTA_LENGTH_BYTE_ARRAY header, may not declare more values than the
 // page; numbers encoded RLE or BIT_PACKED (defined for booleans only) and
 // DELTA_BYTE_ARRAY, whose decoded size the page does not bound, are
-// refused. The rows the footer and the row groups declare must agree with
+// refused. Booleans encoded RLE are read when their runs declare no more
+// values than the page and are runs the decoder reads right: it expands
+// a repeated run into whole bytes, each a copy of the run's value byte,
+// so a run of true written as the byte 1 (as the format writes it,
+// where the Parquet library used here writes 0xFF), or a run that is
+// not the last and not a multiple of 8 values, would be misread, and
+// is refused with a message rather than read wrong; booleans written
+// PLAIN are always read. The rows the footer and the row groups declare must agree with
 // each other and with the values of the pages, so NumRows is no larger
 // than what the pages hold; and Read takes memory for the rows it reads,
 // never for the rows it is asked for. Pages compressed with ZSTD, SNAPPY

@@ -55,6 +55,19 @@ func pageBases(t tb) [][]byte {
 	return [][]byte{b, raw, snappy, validFile(t), gz, typedFile(t, parquet.Compression(&parquet.Gzip)), typedFile(t, parquet.Compression(&parquet.Zstd))}
 }
 
+// legacyBases are further files FuzzPages mutates, picked by a which of
+// 0xE0 or more so that the saved inputs keep their base: BOOLEAN, TIME
+// and INT96 columns in data pages of version 1 and 2 (the second zstd),
+// and RLE booleans in pages of either version.
+func legacyBases(t tb) [][]byte {
+	return [][]byte{
+		legacyFile(t, parquet.DataPageVersion(1)),
+		legacyFile(t, parquet.DataPageVersion(2), parquet.Compression(&parquet.Zstd)),
+		rleBoolFile(t, 1),
+		rleBoolFile(t, 2),
+	}
+}
+
 // mutate rewrites base with the bytes of data written over the body of
 // one page (chosen by sel) from offset off, and one field of that page's
 // header (chosen by field) set to val; the checksums are made to agree,
@@ -114,7 +127,7 @@ func mutate(base []byte, sel, off uint16, data []byte, field uint8, val int32) [
 // that are finite or NaN (missing), and exactly the rows the file
 // declares when read to its end.
 func FuzzPages(f *testing.F) {
-	bases := pageBases(f)
+	bases, legacy := pageBases(f), legacyBases(f)
 	f.Add(uint8(0), uint16(0), uint16(0), []byte{}, uint8(0), int32(0))
 	f.Add(uint8(0), uint16(1), uint16(5), []byte{0xff, 0xff, 0xff, 0x7f}, uint8(0), int32(0))
 	f.Add(uint8(1), uint16(2), uint16(6), []byte{0, 0, 0, 0, 0x0f, 0, 0, 0}, uint8(0), int32(0)) // a frame content size
@@ -124,17 +137,27 @@ func FuzzPages(f *testing.F) {
 	f.Add(uint8(0), uint16(3), uint16(0), []byte{}, uint8(2), int32(1<<24))
 	f.Add(uint8(3), uint16(1), uint16(0), []byte{}, uint8(3), int32(-1))
 	f.Add(uint8(2), uint16(4), uint16(9), []byte{1, 2, 3}, uint8(5), int32(8))
-	f.Add(uint8(4), uint16(1), uint16(0), []byte{}, uint8(1), int32(4))                  // a gzip page declaring less than it inflates to
-	f.Add(uint8(4), uint16(2), uint16(12), []byte{0xff, 0x00, 0x13}, uint8(0), int32(0)) // a damaged deflate stream
-	f.Add(uint8(5), uint16(5), uint16(30), []byte{0x7f, 0xff}, uint8(0), int32(0))       // a DECIMAL page (gzip)
-	f.Add(uint8(6), uint16(9), uint16(20), []byte{0x80}, uint8(0), int32(0))             // a timestamp page (zstd)
-	f.Add(uint8(6), uint16(17), uint16(8), []byte{0xff, 0xfe}, uint8(2), int32(3))       // a label page
-	f.Add(uint8(5), uint16(3), uint16(0), []byte{}, uint8(1), int32(2))                  // a gzip page declaring less
+	f.Add(uint8(4), uint16(1), uint16(0), []byte{}, uint8(1), int32(4))                                // a gzip page declaring less than it inflates to
+	f.Add(uint8(4), uint16(2), uint16(12), []byte{0xff, 0x00, 0x13}, uint8(0), int32(0))               // a damaged deflate stream
+	f.Add(uint8(5), uint16(5), uint16(30), []byte{0x7f, 0xff}, uint8(0), int32(0))                     // a DECIMAL page (gzip)
+	f.Add(uint8(6), uint16(9), uint16(20), []byte{0x80}, uint8(0), int32(0))                           // a timestamp page (zstd)
+	f.Add(uint8(6), uint16(17), uint16(8), []byte{0xff, 0xfe}, uint8(2), int32(3))                     // a label page
+	f.Add(uint8(5), uint16(3), uint16(0), []byte{}, uint8(1), int32(2))                                // a gzip page declaring less
+	f.Add(uint8(0xE0), uint16(0), uint16(3), []byte{0x7f}, uint8(0), int32(0))                         // a BOOLEAN page
+	f.Add(uint8(0xE1), uint16(1), uint16(2), []byte{0xff, 0xff}, uint8(0), int32(0))                   // a TIME page (zstd)
+	f.Add(uint8(0xE0), uint16(4), uint16(7), []byte{0xff, 0xff, 0xff, 0x7f}, uint8(2), int32(9))       // an INT96 page
+	f.Add(uint8(0xE2), uint16(0), uint16(5), []byte{0x01}, uint8(0), int32(0))                         // a run of true as the byte 1
+	f.Add(uint8(0xE3), uint16(0), uint16(4), []byte{0xfe, 0xff, 0xff, 0xff, 0x0f}, uint8(0), int32(0)) // a huge run
+	f.Add(uint8(0xE2), uint16(0), uint16(0), []byte{}, uint8(5), int32(3))                             // booleans BIT_PACKED
 	f.Fuzz(func(t *testing.T, which uint8, sel, off uint16, data []byte, field uint8, val int32) {
 		if len(data) > 64 {
 			data = data[:64]
 		}
-		b := mutate(bases[int(which)%len(bases)], sel, off, data, field, val)
+		base := bases[int(which)%len(bases)]
+		if which >= 0xE0 {
+			base = legacy[int(which-0xE0)%len(legacy)]
+		}
+		b := mutate(base, sel, off, data, field, val)
 		var before, after runtime.MemStats
 		runtime.ReadMemStats(&before)
 		r, err := NewReader(bytes.NewReader(b), int64(len(b)), "f.parquet", Options{})

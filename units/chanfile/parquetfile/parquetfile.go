@@ -151,9 +151,10 @@ type Writer struct {
 // NewWriter starts a Parquet file on w with one optional DOUBLE column
 // per entry of cols, in that order, each holding values in the column's
 // Unit; name is the file's name for messages. A column must have a name
-// that is valid UTF-8 (a name Reader reads back), a unit, and not be a
-// gauge column; a name that carries a unit ("V [kn]") must carry the
-// column's unit, which Reader checks against the metadata.
+// that is valid UTF-8 (a name Reader reads back), a unit, and be neither
+// a gauge column nor one with a Fault (a column a reader could not
+// read); a name that carries a unit ("V [kn]") must carry the column's
+// unit, which Reader checks against the metadata.
 func NewWriter(w io.Writer, name string, cols []chanfile.Column, opt Options) (*Writer, error) {
 	if len(cols) == 0 {
 		return nil, &Error{File: name, Reason: "no columns", class: quantity.ErrInvalid}
@@ -176,6 +177,9 @@ func NewWriter(w io.Writer, name string, cols []chanfile.Column, opt Options) (*
 		}
 		if c.Gauge {
 			return nil, &Error{File: name, Column: i + 1, Field: c.Name, Reason: "a gauge column: the reader made it absolute; write it with Gauge false and its pressure unit", class: quantity.ErrInvalid}
+		}
+		if c.Fault != nil {
+			return nil, &Error{File: name, Column: i + 1, Field: c.Name, Reason: "a column a reader could not read (its Fault is set): its unit is not known", class: quantity.ErrInvalid}
 		}
 		u := c.Unit.String()
 		if c.Unit.Equal(units.One()) {

@@ -234,8 +234,8 @@ func TestForeignFiles(t *testing.T) {
 	type blob struct {
 		S []byte `parquet:"S [m]"`
 	}
-	type flag struct {
-		B bool `parquet:"B [1]"`
+	type fixed4 struct {
+		F [4]byte `parquet:"F [m]"`
 	}
 	type js struct {
 		J string `parquet:"J [1],json"`
@@ -250,7 +250,7 @@ func TestForeignFiles(t *testing.T) {
 		class error
 	}{
 		{"bytes", foreign(t, []blob{{[]byte("a")}}), "physical type BYTE_ARRAY with no logical type", quantity.ErrParse},
-		{"boolean", foreign(t, []flag{{true}}), "physical type BOOLEAN", quantity.ErrParse},
+		{"fixed bytes", foreign(t, []fixed4{{}}), "physical type FIXED_LEN_BYTE_ARRAY with no logical type", quantity.ErrParse},
 		{"json", foreign(t, []js{{"{}"}}), "logical type JSON stored as BYTE_ARRAY: not read", quantity.ErrParse},
 		{"repeated", foreign(t, []rep{{[]float64{1}}}), "repeated", quantity.ErrParse},
 		{"bad unit", foreign(t, []bare{{1}}, UnitKey+"V", "furlongs"), "not a unit", quantity.ErrUnknown},
@@ -345,7 +345,8 @@ func FuzzReader(f *testing.F) {
 	f.Add([]byte("PAR1PAR1"))
 	// Files of every kind read, from another program: DECIMAL, TIMESTAMP,
 	// DATE, STRING, GZIP and ZSTD pages.
-	for _, b := range [][]byte{typedFile(f, parquet.Compression(&parquet.Gzip)), typedFile(f, parquet.Compression(&parquet.Zstd))} {
+	// BOOLEAN, TIME and INT96 columns, and RLE booleans.
+	for _, b := range [][]byte{typedFile(f, parquet.Compression(&parquet.Gzip)), typedFile(f, parquet.Compression(&parquet.Zstd)), legacyFile(f), rleBoolFile(f, 2)} {
 		f.Add(b)
 		f.Add(b[:len(b)*2/3])
 	}

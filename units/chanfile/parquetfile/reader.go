@@ -25,18 +25,23 @@ type Kind uint8
 
 const (
 	// Number is a column of values in its unit (DOUBLE, FLOAT, an
-	// integer or a DECIMAL), read in SI.
+	// integer or a DECIMAL), read in SI, or a BOOLEAN, read as 1 for
+	// true and 0 for false (unit one).
 	Number Kind = iota
-	// Time is a column of instants (a TIMESTAMP or a DATE), read as
-	// seconds from the column's first sample; Reader.Origin gives the
-	// instant of that sample.
+	// Time is a column of instants (a TIMESTAMP, a DATE or a legacy
+	// INT96 timestamp), read as seconds from the column's first sample;
+	// Reader.Origin gives the instant of that sample.
 	Time
 	// Label is a column of text (STRING, UTF8 or ENUM), read by
 	// Reader.Labels; its Series from Read is empty.
 	Label
+	// TimeOfDay is a column of clock times (a TIME), read as seconds
+	// since midnight (unit s), not from the first sample; it has no
+	// Origin, since a TIME has no date.
+	TimeOfDay
 )
 
-// String returns "number", "time" or "label".
+// String returns "number", "time", "label" or "time of day".
 func (k Kind) String() string {
 	switch k {
 	case Number:
@@ -45,6 +50,8 @@ func (k Kind) String() string {
 		return "time"
 	case Label:
 		return "label"
+	case TimeOfDay:
+		return "time of day"
 	}
 	return "Kind(" + strconv.Itoa(int(k)) + ")"
 }
@@ -73,6 +80,9 @@ const (
 	kDecimal // an unscaled integer (INT32, INT64 or big-endian bytes) × 10^−scale
 	kTime    // an integer count of ticks from 1970-01-01T00:00:00
 	kLabel
+	kBool  // a BOOLEAN, read as 1 or 0
+	kClock // a TIME: an integer count of ticks from midnight
+	kInt96 // a legacy INT96 timestamp: nanoseconds of the day and a Julian day
 )
 
 // rcol is the reading state of one column.
@@ -82,10 +92,12 @@ type rcol struct {
 	store    store
 	mul, add float64 // SI = x·mul + add
 	scale    int32   // of a decimal
-	tick     int64   // of a time column: ticks per second; 0 for days
+	tick     int64   // of a time or clock column: ticks per second; 0 for days
 	utc      bool
-	started  bool  // the first sample of a time column is read
-	first    int64 // its ticks
+	typ      string // of a clock column: its type as the file names it
+	started  bool   // the first sample of a time column is read
+	first    int64  // its ticks (an INT96: its nanoseconds of the day)
+	firstDay int64  // an INT96: the Julian day of the first sample
 	origin   Origin
 	bad      *Error // a column the reader cannot read, left for Select
 
@@ -224,7 +236,7 @@ func NewReader(r io.ReaderAt, size int64, name string, opt Options) (rd *Reader,
 	if len(pick) > MaxColumns {
 		return nil, &Error{File: name, Reason: fmt.Sprintf("%d columns, more than %d", len(pick), MaxColumns)}
 	}
-	use, optional := make([]bool, leaves), make([]bool, leaves)
+	use, optional, boolean := make([]bool, leaves), make([]bool, leaves), make([]bool, leaves)
 	rd = &Reader{name: name, file: f}
 	for _, i := range pick {
 		fd := fields[i]
@@ -238,28 +250,39 @@ func NewReader(r io.ReaderAt, size int64, name string, opt Options) (rd *Reader,
 			if opt.Columns != nil {
 				return nil, e
 			}
-			// Every column asked for: one the reader cannot read fails
-			// the first Read, unless Select leaves it out.
-			rd.cols = append(rd.cols, chanfile.Column{Name: fd.el.Name, Unit: units.One()})
+			// Every column asked for: one the reader cannot read is
+			// listed with its fault, returned by the first Read unless
+			// Select leaves it out; it is never decoded.
+			rd.cols = append(rd.cols, chanfile.Column{Name: fd.el.Name, Index: i + 1, Header: fd.el.Name, Fault: e})
 			rd.rc = append(rd.rc, rcol{at: i + 1, store: kLabel, bad: e})
 			continue
 		}
 		c.at = i + 1
-		if c.store != kTime && c.store != kLabel {
-			c.mul, c.add = col.Unit.Factor(), col.Unit.Offset()
-		} else {
+		col.Index, col.Header = i+1, fd.el.Name
+		switch c.store {
+		case kTime, kLabel, kClock, kInt96, kBool:
 			c.mul = 1
+		default:
+			c.mul, c.add = col.Unit.Factor(), col.Unit.Offset()
 		}
 		if col.Gauge {
 			ref := opt.Reference
 			if ref.Dim() != quantity.Pressure || !(ref.Value() > 0) || math.IsInf(ref.Value(), 0) {
-				return nil, &Error{File: name, Column: i + 1, Field: fd.el.Name, Reason: "a gauge pressure column needs the absolute ambient pressure it was read against: set Options.Reference to the barometer reading (or units.StandardReference(), chosen explicitly)", Err: units.ErrGauge, class: quantity.ErrInvalid}
+				e := &Error{File: name, Column: i + 1, Field: fd.el.Name, Reason: "a gauge pressure column needs the absolute ambient pressure it was read against: set Options.Reference to the barometer reading (or units.StandardReference(), chosen explicitly)", Err: units.ErrGauge, class: quantity.ErrInvalid}
+				if opt.Columns != nil {
+					return nil, e
+				}
+				rd.cols = append(rd.cols, chanfile.Column{Name: col.Name, Index: i + 1, Header: fd.el.Name, Text: col.Text, Fault: e})
+				rd.rc = append(rd.rc, rcol{at: i + 1, store: kLabel, bad: e})
+				continue
 			}
 			c.add += ref.Value()
 			col.Unit = units.MustParse("Pa")
 		}
 		use[c.leaf] = true
 		optional[c.leaf] = fd.el.RepetitionType.Valid && fd.el.RepetitionType.V == format.Optional
+		boolean[c.leaf] = c.store == kBool
+		col.Kind = chanfileKind(c.store)
 		rd.cols = append(rd.cols, col)
 		rd.rc = append(rd.rc, c)
 	}
@@ -272,8 +295,22 @@ func NewReader(r io.ReaderAt, size int64, name string, opt Options) (rd *Reader,
 			return nil, &Error{File: name, Field: n, Reason: "Options.Units names a column the file does not have", class: quantity.ErrInvalid}
 		}
 	}
-	if err := checkPages(r, size, f, use, optional); err != nil {
+	bad, first, err := checkPages(r, size, f, use, optional, boolean)
+	if err != nil {
 		return nil, &Error{File: name, Reason: "not a readable Parquet file", Err: err}
+	}
+	if first != nil && opt.Columns != nil {
+		return nil, &Error{File: name, Reason: "not a readable Parquet file", Err: first}
+	}
+	// Every column asked for: one whose pages fail the check is listed
+	// with its fault, as a column of a type not read is.
+	for j := range rd.rc {
+		c := &rd.rc[j]
+		if c.bad != nil || bad[c.leaf] == nil {
+			continue
+		}
+		c.bad = &Error{File: name, Column: c.at, Field: rd.cols[j].Header, Reason: "not a readable Parquet column", Err: bad[c.leaf]}
+		rd.cols[j] = chanfile.Column{Name: rd.cols[j].Name, Index: c.at, Header: rd.cols[j].Header, Text: rd.cols[j].Text, Fault: c.bad}
 	}
 	rd.groups = f.RowGroups()
 	rd.active = make([]int, len(rd.rc))
@@ -310,12 +347,43 @@ func column(f *parquet.File, fd field, opt Options) (chanfile.Column, rcol, erro
 	}
 	meta, hasMeta := f.Lookup(UnitKey + name)
 	given, hasGiven := opt.Units[name]
-	if c.store == kTime || c.store == kLabel {
+	if c.store == kTime || c.store == kLabel || c.store == kClock || c.store == kInt96 || c.store == kBool {
 		what := "an instant, read in s from the column's first sample"
 		col := chanfile.Column{Name: name, Unit: units.MustParse("s"), Text: "s"}
-		if c.store == kLabel {
+		switch c.store {
+		case kLabel:
 			what = "text"
 			col = chanfile.Column{Name: name, Unit: units.One()}
+		case kInt96:
+			col.Readings = []units.Reading{{From: "INT96", To: "time in s from the first sample", Note: "a legacy timestamp: nanoseconds of the day and a Julian day (2440588 is 1970-01-01); the file states no time zone"}}
+		case kClock:
+			what = "a time of day, read in s since midnight"
+			zone := "of no stated zone"
+			if c.utc {
+				zone = "in UTC"
+			}
+			col.Readings = []units.Reading{{From: c.typ, To: "time of day in s since midnight", Note: "a clock time " + zone + ", with no date"}}
+		case kBool:
+			what = "true or false, read as 1 or 0"
+			col = chanfile.Column{Name: name, Unit: units.One(), Text: "1", Readings: []units.Reading{{From: "BOOLEAN", To: "1 for true, 0 for false", Note: "a dimensionless state channel: its mean over a window is the fraction of the window it was true"}}}
+			// A name may carry the unit one ("valve [1]"); another unit
+			// in brackets or parentheses contradicts the column's type.
+			// A name such as "valve A" is a name, not a unit.
+			if inName, err := chanfile.ParseHeaderField(name); err == nil && !funcOf(name) {
+				switch {
+				case inName.Unit.Equal(units.One()) && !inName.Gauge:
+					col.Name = inName.Name
+				case strings.HasSuffix(name, "]") || strings.HasSuffix(name, ")"):
+					return chanfile.Column{}, c, &Error{Reason: fmt.Sprintf("the column's name gives the unit %q to a BOOLEAN column, read as 1 or 0 (unit one)", inName.Text)}
+				}
+			}
+			// The unit one, stated once, agrees.
+			switch {
+			case hasMeta && hasGiven:
+				return chanfile.Column{}, c, &Error{Reason: fmt.Sprintf("the file gives the unit %q and Options.Units gives %q: give one", meta, given), class: quantity.ErrInvalid}
+			case hasMeta && (meta == "1" || meta == "-"), hasGiven && (given == "1" || given == "-"):
+				hasMeta, hasGiven = false, false
+			}
 		}
 		switch {
 		case hasMeta:
@@ -371,7 +439,7 @@ func column(f *parquet.File, fd field, opt Options) (chanfile.Column, rcol, erro
 func classify(el *format.SchemaElement, c *rcol) error {
 	phys := el.Type.V
 	bad := func(what string) error {
-		return &Error{Reason: fmt.Sprintf("a column of %s stored as %v: not read (numbers, decimals, timestamps, dates and strings are)", what, phys)}
+		return &Error{Reason: fmt.Sprintf("a column of %s stored as %v: not read (numbers, decimals, booleans, timestamps, dates, times of day and strings are)", what, phys)}
 	}
 	decimal := func(scale, precision int32) error {
 		switch phys {
@@ -394,6 +462,10 @@ func classify(el *format.SchemaElement, c *rcol) error {
 			return bad(what)
 		}
 		c.store, c.tick, c.utc = kTime, tick, utc
+		return nil
+	}
+	clock := func(tick int64, utc bool, what string) error {
+		c.store, c.tick, c.utc, c.typ = kClock, tick, utc, what
 		return nil
 	}
 	label := func(what string) error {
@@ -445,6 +517,22 @@ func classify(el *format.SchemaElement, c *rcol) error {
 		}
 		c.store = kTime
 		return nil
+	case *format.TimeType:
+		// MILLIS in an INT32, MICROS and NANOS in an INT64.
+		var tick int64
+		stored := format.Int64
+		switch lt.Unit.Value.(type) {
+		case *format.MilliSeconds:
+			tick, stored = 1e3, format.Int32
+		case *format.MicroSeconds:
+			tick = 1e6
+		case *format.NanoSeconds:
+			tick = 1e9
+		}
+		if tick == 0 || phys != stored {
+			return bad(lt.String())
+		}
+		return clock(tick, lt.IsAdjustedToUTC, lt.String())
 	case *format.StringType, *format.EnumType:
 		return label(el.LogicalType.String())
 	default:
@@ -466,6 +554,17 @@ func classify(el *format.SchemaElement, c *rcol) error {
 			return timestamp(1e3, true, "TIMESTAMP_MILLIS")
 		case deprecated.TimestampMicros:
 			return timestamp(1e6, true, "TIMESTAMP_MICROS")
+		case deprecated.TimeMillis, deprecated.TimeMicros:
+			// As TIME(MILLIS) in an INT32 and TIME(MICROS) in an INT64,
+			// adjusted to UTC (the format's reading of these older types).
+			tick, stored := int64(1e3), format.Int32
+			if ct == deprecated.TimeMicros {
+				tick, stored = 1e6, format.Int64
+			}
+			if phys != stored {
+				return bad(convertedName(ct))
+			}
+			return clock(tick, true, convertedName(ct))
 		case deprecated.Int8, deprecated.Int16, deprecated.Int32, deprecated.Int64:
 			return integer(true, convertedName(ct))
 		case deprecated.Uint8, deprecated.Uint16, deprecated.Uint32, deprecated.Uint64:
@@ -483,8 +582,12 @@ func classify(el *format.SchemaElement, c *rcol) error {
 		c.store = kInt32
 	case format.Int64:
 		c.store = kInt64
+	case format.Boolean:
+		c.store = kBool
+	case format.Int96:
+		c.store = kInt96 // the legacy timestamp: no other INT96 is written
 	default:
-		return &Error{Reason: fmt.Sprintf("a column of physical type %v with no logical type: a channel file holds numbers (DOUBLE, FLOAT, INT32, INT64, DECIMAL), instants (TIMESTAMP, DATE) or text (STRING)", phys)}
+		return &Error{Reason: fmt.Sprintf("a column of physical type %v with no logical type: a channel file holds numbers (DOUBLE, FLOAT, INT32, INT64, DECIMAL, BOOLEAN), instants (TIMESTAMP, DATE, INT96), times of day (TIME) or text (STRING)", phys)}
 	}
 	return nil
 }
@@ -505,8 +608,9 @@ func convertedName(ct deprecated.ConvertedType) string {
 // their Missing counts grow as chunks are read. A time column is in s; a
 // label column is dimensionless and holds no numbers. Without
 // Options.Columns a column the reader cannot read (a type it does not
-// read, no unit) is listed too, as a label column, and its error is
-// returned by the first Read unless Select leaves it out.
+// read, no unit, a gauge column with no reference) is listed too, with
+// its error in Column.Fault, which the first Read returns unless Select
+// leaves the column out; selecting it returns that error.
 func (r *Reader) Columns() []chanfile.Column { return r.cols }
 
 // Select makes Read fill only the columns at idx (from 0, in the order
@@ -514,8 +618,10 @@ func (r *Reader) Columns() []chanfile.Column { return r.cols }
 // cannot fail the file, and their Series and Labels stay empty. Columns
 // still lists every column. It must be called before the first Read; an
 // index out of range or given twice, or a call after reading began, is
-// an *Error of class quantity.ErrInvalid. The pages of every readable
-// column were checked by NewReader.
+// an *Error of class quantity.ErrInvalid, and a column the reader
+// cannot read returns its Column.Fault; the selection is then
+// unchanged. The pages of every readable column were checked by
+// NewReader.
 func (r *Reader) Select(idx []int) error {
 	if r.row > 0 || r.open || r.done || r.group > 0 {
 		return &Error{File: r.name, Reason: "select after reading began", class: quantity.ErrInvalid}
@@ -526,6 +632,11 @@ func (r *Reader) Select(idx []int) error {
 			return &Error{File: r.name, Reason: "select: column index out of range or repeated", class: quantity.ErrInvalid}
 		}
 		seen[k] = true
+	}
+	for _, k := range idx {
+		if e := r.rc[k].bad; e != nil {
+			return e
+		}
 	}
 	r.active = r.active[:0]
 	for k, on := range seen {
@@ -542,13 +653,28 @@ func (r *Reader) Select(idx []int) error {
 // are none; the map is the Reader's, not to be changed.
 func (r *Reader) Metadata() map[string]string { return r.meta }
 
+// chanfileKind is the chanfile.Kind a column of the given store fills in
+// Columns: timestamps for TIMESTAMP, DATE and INT96 columns, labels for
+// strings, numbers otherwise (a time of day is a number of seconds).
+func chanfileKind(s store) chanfile.Kind {
+	switch s {
+	case kTime, kInt96:
+		return chanfile.Timestamp
+	case kLabel:
+		return chanfile.Label
+	}
+	return chanfile.Number
+}
+
 // Kind returns what column j (from 0, in the order of Columns) holds.
 func (r *Reader) Kind(j int) Kind {
 	switch r.rc[j].store {
-	case kTime:
+	case kTime, kInt96:
 		return Time
 	case kLabel:
 		return Label
+	case kClock:
+		return TimeOfDay
 	}
 	return Number
 }
@@ -558,7 +684,7 @@ func (r *Reader) Kind(j int) Kind {
 // kind, or before a sample of it has been read.
 func (r *Reader) Origin(j int) (Origin, bool) {
 	c := &r.rc[j]
-	return c.origin, c.store == kTime && c.started
+	return c.origin, (c.store == kTime || c.store == kInt96) && c.started
 }
 
 // Labels returns the text of label column j (from 0) for the rows of the
@@ -839,6 +965,28 @@ func (r *Reader) convert(j int, v parquet.Value, row int64) error {
 		}
 		*vals = append(*vals, x)
 		return nil
+	case kInt96:
+		return r.int96(j, v, row)
+	case kClock:
+		var t int64
+		if c.tick == 1e3 {
+			t = int64(v.Int32())
+		} else {
+			t = v.Int64()
+		}
+		// A time of day: from midnight to the end of the day (24:00).
+		if t < 0 || t > 86400*c.tick {
+			return r.rangeError(j, row, fmt.Sprintf("a time of day of %d ticks of 1/%d s, outside 0 to 24 h", t, c.tick))
+		}
+		*vals = append(*vals, float64(t)/float64(c.tick)) // exact ticks, one rounding
+		return nil
+	case kBool:
+		if v.Boolean() {
+			*vals = append(*vals, 1)
+		} else {
+			*vals = append(*vals, 0)
+		}
+		return nil
 	case kDouble:
 		x = v.Double()
 	case kFloat:
@@ -880,6 +1028,40 @@ func (r *Reader) convert(j int, v parquet.Value, row int64) error {
 		return r.rangeError(j, row, fmt.Sprintf("%v %s is beyond the range of float64 in SI units", x, r.cols[j].Text))
 	}
 	*vals = append(*vals, si)
+	return nil
+}
+
+// unixJulianDay is the Julian day number of 1970-01-01, the day of
+// Unix time 0 (the Julian day beginning at its noon; an INT96 timestamp
+// counts nanoseconds from the midnight that starts this day).
+const unixJulianDay = 2440588
+
+// int96 appends the legacy INT96 timestamp v of column j (at row), 8
+// bytes of nanoseconds within the day and 4 of the Julian day, both
+// little-endian, as seconds from the column's first sample.
+func (r *Reader) int96(j int, v parquet.Value, row int64) error {
+	c := &r.rc[j]
+	w := v.Int96()
+	ns := int64(w[1])<<32 | int64(w[0])
+	day := int64(int32(w[2]))
+	const dayNs = 86400 * int64(time.Second)
+	if ns < 0 || ns >= dayNs {
+		return r.rangeError(j, row, fmt.Sprintf("an INT96 timestamp of %d ns within its day, outside one day: a damaged value", uint64(ns)))
+	}
+	if !c.started {
+		c.started, c.first, c.firstDay = true, ns, day
+		c.origin = Origin{Time: time.Unix((day-unixJulianDay)*86400, ns).UTC()}
+	}
+	// At most 2⁵³ ns (about 104 days) from the first sample.
+	dd := day - c.firstDay
+	var d int64
+	if dd <= 105 && dd >= -105 {
+		d = dd*dayNs + ns - c.first
+	}
+	if dd > 105 || dd < -105 || d > 1<<53 || d < -(1<<53) {
+		return r.rangeError(j, row, fmt.Sprintf("an instant %d days from the first sample's, more than 2⁵³ ns: not exact in float64 seconds", dd))
+	}
+	r.vals[j] = append(r.vals[j], float64(d)/1e9) // one rounding: the nearest float64
 	return nil
 }
 

@@ -17,14 +17,14 @@ import (
 var _ chanfile.Selector = (*Reader)(nil)
 
 // withUnused is a file with a column of a type the reader does not read
-// (BOOLEAN) between two channels.
+// (BYTE_ARRAY with no logical type) between two channels.
 func withUnused(t *testing.T) []byte {
 	type row struct {
-		V    float64 `parquet:"V [m/s]"`
-		Flag bool    `parquet:"valve open"`
-		F    float64 `parquet:"F [N]"`
+		V   float64 `parquet:"V [m/s]"`
+		Raw []byte  `parquet:"raw frame"`
+		F   float64 `parquet:"F [N]"`
 	}
-	return foreign(t, []row{{1.5, true, 10}, {1.6, false, 11}})
+	return foreign(t, []row{{1.5, []byte{1}, 10}, {1.6, []byte{2}, 11}})
 }
 
 // TestSelectUnreadableColumn: a column of an unsupported type fails the
@@ -40,10 +40,10 @@ func TestSelectUnreadableColumn(t *testing.T) {
 		return r
 	}
 	var pe *Error
-	if _, _, err := open().Read(nil, 10); !errors.As(err, &pe) || pe.Column != 2 || !strings.Contains(err.Error(), "BOOLEAN") || !errors.Is(err, quantity.ErrParse) {
-		t.Fatalf("every column: err = %v, want the BOOLEAN column 2 refused (ErrParse)", err)
+	if _, _, err := open().Read(nil, 10); !errors.As(err, &pe) || pe.Column != 2 || !strings.Contains(err.Error(), "BYTE_ARRAY") || !errors.Is(err, quantity.ErrParse) {
+		t.Fatalf("every column: err = %v, want the BYTE_ARRAY column 2 refused (ErrParse)", err)
 	}
-	if cols := open().Columns(); len(cols) != 3 || cols[1].Name != "valve open" {
+	if cols := open().Columns(); len(cols) != 3 || cols[1].Name != "raw frame" || cols[1].Fault == nil {
 		t.Fatalf("columns %v, want 3 with the unreadable one listed", cols)
 	}
 	src, err := chanfile.Select(open(), 2, 0)
@@ -60,9 +60,13 @@ func TestSelectUnreadableColumn(t *testing.T) {
 	if _, _, err := src.Read(dst, 10); err != io.EOF {
 		t.Errorf("end: %v, want io.EOF", err)
 	}
-	// Named at construction the column is refused at once, as before.
-	if _, err := NewReader(bytes.NewReader(b), int64(len(b)), "u.parquet", Options{Columns: []string{"valve open"}}); err == nil {
-		t.Error("Options.Columns naming the BOOLEAN column: no error")
+	// Named at construction the column is refused at once, as before;
+	// selected, it is refused with its fault.
+	if _, err := NewReader(bytes.NewReader(b), int64(len(b)), "u.parquet", Options{Columns: []string{"raw frame"}}); err == nil {
+		t.Error("Options.Columns naming the BYTE_ARRAY column: no error")
+	}
+	if r := open(); r.Select([]int{0, 1}) != r.Columns()[1].Fault {
+		t.Error("Select of the BYTE_ARRAY column: not its fault")
 	}
 	// Select after reading began, and bad indices.
 	r := open()

@@ -9,7 +9,6 @@ import (
 	"similis.dev/similis/quantity"
 )
 
-// classes are the error classes of package quantity.
 // ClassOf returns the class of package quantity that err matches under
 // errors.Is (ErrDimension, ErrRange, ErrParse, ErrUnknown or ErrInvalid),
 // or nil if it matches none.
