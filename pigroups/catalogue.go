@@ -163,12 +163,39 @@ func checkKind(v Variable) error {
 	}
 	d, ok := KindDim(v.Kind)
 	if !ok {
-		return &Error{Op: OpProblem, Kind: ErrUnknownKind, Symbol: v.Symbol, Reason: fmt.Sprintf("kind %q", v.Kind)}
+		return &Error{Op: OpProblem, Kind: ErrUnknownKind, Symbol: v.Symbol, Reason: fmt.Sprintf("kind %q", v.Kind),
+			Hint: unknownKindHint(v.Dim)}
 	}
 	if d != v.Dim {
 		return &Error{Op: OpProblem, Kind: ErrKindDimension, Symbol: v.Symbol, Reason: fmt.Sprintf("a %s has dimension %s, the variable %s", v.Kind, d, v.Dim)}
 	}
 	return nil
+}
+
+// KindsOfDim returns every kind of quantity known to pigroups with
+// dimension d: those InferKinds gives, then the trade's kinds of that
+// dimension a variable must be given explicitly (resistance, mean free
+// path, …), each once.
+func KindsOfDim(d quantity.Dim) []string {
+	out := InferKinds(d)
+	var more []string
+	for k, kd := range tradeKinds {
+		if kd == d && !slices.Contains(out, k) {
+			more = append(more, k)
+		}
+	}
+	slices.Sort(more)
+	return append(out, more...)
+}
+
+// unknownKindHint names the known kinds of a variable's dimension and the
+// fix, for an unknown kind.
+func unknownKindHint(d quantity.Dim) string {
+	known := KindsOfDim(d)
+	if len(known) == 0 {
+		return fmt.Sprintf("no kind of dimension %s is known; leave the kind out, and the variable is taken by its dimension alone", d)
+	}
+	return fmt.Sprintf("the kinds known for dimension %s are %s; give one of them, or leave the kind out to take it from the dimension", d, strings.Join(known, ", "))
 }
 
 // Named is a named dimensionless group of the trade, defined by the kinds

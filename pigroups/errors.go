@@ -79,6 +79,9 @@ func (e *Error) Error() string {
 		if e.Reason != "" {
 			sb.WriteString(": " + e.Reason)
 		}
+		if e.Hint != "" {
+			sb.WriteString("; " + e.Hint)
+		}
 	case OpRepeating:
 		fmt.Fprintf(&sb, " repeating set {%s}: %v", strings.Join(e.Set, ", "), e.Kind)
 		switch {
@@ -109,6 +112,9 @@ func (e *Error) Error() string {
 		}
 		if e.Reason != "" {
 			sb.WriteString(": " + e.Reason)
+		}
+		if e.Hint != "" {
+			sb.WriteString("; " + e.Hint)
 		}
 	}
 	if e.Err != nil {

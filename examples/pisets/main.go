@@ -448,6 +448,16 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 		return nil, &usageError{fmt.Sprintf("-dep %s is not among the variables", cli.Quote(dep))}
 	}
 	p, err := pigroups.NewProblem(vars...)
+	var pe *pigroups.Error
+	if errors.Is(err, pigroups.ErrUnknownKind) && errors.As(err, &pe) {
+		// The fix in this command's syntax: the spec without its @kind.
+		for i, v := range vars {
+			if v.Symbol == pe.Symbol {
+				unit, _, _ := strings.Cut(specs[i], "@")
+				return nil, &usageError{fmt.Sprintf("%v: write %s, without the @kind", err, cli.Quote(unit))}
+			}
+		}
+	}
 	if err != nil {
 		return nil, err
 	}
