@@ -113,13 +113,19 @@ channel file to those groups row by row.
 
 usage: pisets [-dep symbol] [-repeat a,b,c] [-format text|json] [-sets] symbol=unit[@kind] ...
        pisets -data file [-derive text] [-baro p | -std-atm] [-out file] [-format csv|jsonl|json|parquet]
-              [-fit [-plot fit.png]] [-dep symbol] [-repeat a,b,c] symbol=unit ...
+              [-fit [-plot fit.png]] [-dep symbol] [-repeat a,b,c] symbol=unit[@kind] ...
 
 Each variable is symbol=unit, with an optional @kind ("dp=kPa@pressure difference");
 the unit gives its dimension. A rotational speed declared in rad/s is held in
 radians; one in rev/s or rpm, or a rotational frequency in Hz or 1/s (ISO 80000-3),
 is held in revolutions, and a group's label says which: with n in rad/s
-T/(ρ·n²·D⁴) is K_T/(4π²), with n in rev/s it is K_T itself.
+T/(ρ·n²·D⁴) is K_T/(4π²), with n in rev/s it is K_T itself. A speed declared
+in turns (rpm, rev/s, rad/s) is a rotational speed n, so V/(n·D) is the advance
+coefficient J; one in Hz or 1/s is a frequency f, so f·D/V is the Strouhal number
+(add "@rotational speed" to read it as n). A force with no kind over ρ·V²·L² is
+labelled ∝C_D (∝C_T for a hull's resistance): add @resistance for C_T, or @drag
+for C_D alone. Every group with a rotational speed states its definition and n's
+measure (ψ_p = Δp/(ρ·n²·D²), n in revolutions per second).
 
 Output without -data:
   text  the variables, the dimensional matrix and its rank, the repeating set,
@@ -431,6 +437,12 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 		am, err := angleMeasure(u)
 		if err != nil {
 			return nil, &usageError{fmt.Sprintf("variable %s: %v", cli.Quote(spec), err)}
+		}
+		if plane, _ := u.Angle(); kind == "" && plane != 0 && u.Dim() == quantity.AngularVelocity {
+			// A speed counted in rev, rpm or rad turns: a rotational
+			// speed n (V/(n·D) is the advance coefficient J), where a
+			// frequency in Hz or 1/s is a frequency f (f·L/V is St).
+			kind = "rotational speed"
 		}
 		v := pigroups.Variable{Symbol: sym, Dim: u.Dim(), Kind: kind, Angle: am}
 		r.units = append(r.units, u)
