@@ -37,6 +37,9 @@ type Error struct {
 	// condition number, for collinear groups.
 	Row, Group int
 	Cond       float64
+	// Groups lists, for ErrCollinear, the groups (1 for Π₁, …) that vary
+	// together or the one that is constant.
+	Groups []int
 
 	// OpRepeating: the set given, the number of repeating variables
 	// needed (the rank) and the base dimensions no member carries.

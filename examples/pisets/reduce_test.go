@@ -497,3 +497,27 @@ func table(s string) []string {
 	}
 	return out
 }
+
+// TestFitCollinearTank: one model towed at five speeds in the invented
+// tank log, L, ρ and g given as constants: 1/Re and 1/Fr² follow V alone,
+// so the fit refuses with the two groups named and what separates them
+// (exit 1, bad data for a fit), not with a coefficient out of range.
+func TestFitCollinearTank(t *testing.T) {
+	args := []string{"-data", "testdata/tankrun.csv", "-fluids",
+		"-derive", "L = 4.0 {m}; rho = 999.1 {kg/m^3}; nu = nu_water(T_w); g = 9.80665 {m/s^2}",
+		"-dep", "R_T", "-fit", "R_T=N", "V=m/s", "L=m", "rho=kg/m^3", "nu=m^2/s", "g=m/s^2"}
+	var out, errb bytes.Buffer
+	code := run(args, &out, &errb)
+	msg := errb.String()
+	if code != 1 {
+		t.Fatalf("exit %d, want 1: %s", code, msg)
+	}
+	for _, want := range []string{"-fit: pigroups: fit: collinear groups: Π₂ and Π₃ vary together", "Π₃ ∝ Π₂^1.99", "varying V moves them together; vary L, nu or g as well"} {
+		if !strings.Contains(msg, want) {
+			t.Errorf("standard error lacks %q:\n%s", want, msg)
+		}
+	}
+	if strings.Contains(msg, "span too wide") {
+		t.Errorf("the old reason is given:\n%s", msg)
+	}
+}
