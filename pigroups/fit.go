@@ -347,6 +347,19 @@ func collinear(X *mat.Dense, sw []float64, k int, o *FitOptions) error {
 			c[j] = v.At(j, k-1) / scale[j]
 		}
 	}
+	if len(in) < 2 {
+		// Cannot be for unit columns of a few groups; for many, name the
+		// next largest too, so that a relation is written.
+		second := -1
+		for j := range k {
+			if j != in[0] && (second < 0 || math.Abs(v.At(j, k-1)) > math.Abs(v.At(second, k-1))) {
+				second = j
+			}
+		}
+		c[second] = v.At(second, k-1) / scale[second]
+		in = append(in, second)
+		slices.Sort(in)
+	}
 	pv := in[len(in)-1] // the group written in terms of the others
 	var names []string
 	var rel strings.Builder
