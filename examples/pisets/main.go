@@ -34,7 +34,9 @@
 //	-data FILE         a channel file to reduce (CSV; TSV if it ends in .tsv;
 //	                   Parquet, units in its metadata, if it ends in .parquet)
 //	-derive TEXT       derived channels, as 'dp = P2 - P1'
-//	-baro P            the ambient pressure gauge channels were read against
+//	-baro P            the ambient pressure gauge channels were read against;
+//	                   not needed where they enter only as differences
+//	                   (dp = P2 - P1), where it cancels
 //	-std-atm           use 101325 Pa for it, an explicit choice
 //	-out FILE          write the groups there instead of standard output
 //	-fit               fit the dependent group as a power law of the others
@@ -144,7 +146,11 @@ and the ones -derive reads are parsed, so a text column or a bad value in a colu
 nobody uses does not stop the reduction. A channel binds to
 a variable only when its unit converts to the variable's unit: rpm to rad/s or
 rev/s is read, Hz to rad/s is refused (write the channel as (Hz)*rev, or declare
-the variable in Hz).
+the variable in Hz). A gauge channel (psig, barg) is absolute only with -baro or
+-std-atm; without either, gauge channels may enter only through derived channels
+in which the ambient cancels (dp = P2 - P1, all read against the one ambient;
+checked on the file's first rows and said on standard error), and such a derived
+channel is a pressure difference.
 
 Output with -data (formats), one line or record per data row, groups in order,
 each group's column named by the trade's symbol where the group is exactly one
@@ -188,7 +194,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 	var ro reduceOptions
 	fs.StringVar(&ro.data, "data", "", "a channel file to reduce (CSV; TSV if .tsv; Parquet if .parquet)")
 	fs.StringVar(&ro.derive, "derive", "", "formula text defining derived channels, as 'dp = P1 - P2; D = 0.25 {m}'")
-	fs.StringVar(&ro.baro, "baro", "", "the absolute ambient pressure gauge channels were read against, as 1002hPa")
+	fs.StringVar(&ro.baro, "baro", "", "the absolute ambient pressure gauge channels were read against, as 1002hPa; not needed where gauge channels enter only as differences (dp = P2 - P1)")
 	fs.BoolVar(&ro.stdAtm, "std-atm", false, "read gauge channels against the standard atmosphere (101325 Pa), an explicit choice")
 	fs.BoolVar(&ro.fit, "fit", false, "with -data: fit the dependent group as a power law of the others, with 95 % intervals")
 	fs.StringVar(&ro.plot, "plot", "", "with -data -fit and two groups: draw the rows and the fit to a .png or .svg file")
