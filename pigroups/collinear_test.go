@@ -82,3 +82,24 @@ func TestFitCorrelatedGroupsAccepted(t *testing.T) {
 		t.Errorf("exponents %v, want 0.5 and 0.25", f.Exponents)
 	}
 }
+
+// TestFitCollinearThree: Π₃ = Π₁·Π₂ exactly over rows where Π₁ and Π₂
+// vary independently: the three vary together, and the relation is
+// written with every one of them.
+func TestFitCollinearThree(t *testing.T) {
+	a := []float64{1, 2, 3, 4, 5, 6, 7}
+	b := []float64{5, 1, 4, 2, 7, 3, 6}
+	var c, y []float64
+	for i := range a {
+		c = append(c, a[i]*b[i])
+		y = append(y, float64(i+1))
+	}
+	_, err := pigroups.FitPowerLaw(y, [][]float64{a, b, c}, nil)
+	var fe *pigroups.Error
+	if !errors.As(err, &fe) || !errors.Is(err, pigroups.ErrCollinear) || len(fe.Groups) != 3 {
+		t.Fatalf("err = %v, want ErrCollinear naming 3 groups", err)
+	}
+	if msg := err.Error(); !strings.Contains(msg, "Π₁, Π₂ and Π₃ vary together") || strings.Contains(msg, "(·") || strings.Contains(msg, "NaN") || strings.Contains(msg, "Inf") {
+		t.Errorf("%q", msg)
+	}
+}

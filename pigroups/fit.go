@@ -360,16 +360,24 @@ func collinear(X *mat.Dense, sw []float64, k int, o *FitOptions) error {
 		in = append(in, second)
 		slices.Sort(in)
 	}
-	pv := in[len(in)-1] // the group written in terms of the others
+	// The group written in terms of the others: the last of those with a
+	// large weight, so that its power in the relation is finite.
+	pv := in[0]
+	for _, j := range in {
+		if math.Abs(v.At(j, k-1)) >= 0.5*big {
+			pv = j
+		}
+	}
 	var names []string
 	var rel strings.Builder
 	fmt.Fprintf(&rel, "%s ∝ ", fitName(o.Names, pv+1))
-	for i, j := range in {
+	written := 0
+	for _, j := range in {
 		names = append(names, fitName(o.Names, j+1))
 		if j == pv {
 			continue
 		}
-		if i > 0 {
+		if written++; written > 1 {
 			rel.WriteString("·")
 		}
 		fmt.Fprintf(&rel, "%s^%.3g", fitName(o.Names, j+1), -c[j]/c[pv])
