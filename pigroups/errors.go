@@ -34,7 +34,9 @@ type Error struct {
 	Reason string // what was wrong, in words
 
 	// OpFit: the offending row and group (0 for Π₀), or −1; the
-	// condition number, for collinear groups.
+	// condition number, for collinear groups: of the groups' centred,
+	// scaled logarithms (FitOptions.MaxCollinear), +Inf for a constant
+	// group, or of the log design matrix (FitOptions.MaxCond).
 	Row, Group int
 	Cond       float64
 	// Groups lists, for ErrCollinear, the groups (1 for Π₁, …) that vary

@@ -119,7 +119,10 @@ type PowerLaw struct {
 // FitPowerLaw fits Π₀ = C·∏ Πₖ^aₖ to measured rows: y holds Π₀ and x[k]
 // holds Πₖ₊₁, each with one value per row. All values must be positive.
 // Standard errors use the residual variance; intervals use Student's t
-// with N − k − 1 degrees of freedom.
+// with N − k − 1 degrees of freedom. Groups that cannot be told apart
+// over the rows — one constant, or some nearly powers of one another
+// (FitOptions.MaxCollinear) — are refused with ErrCollinear, the groups
+// named in the error's Groups and text.
 func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error) {
 	var o FitOptions
 	if opt != nil {
