@@ -31,6 +31,7 @@ var tradeKinds = map[string]quantity.Dim{
 	"specific energy":             quantity.SpecificEnergy,
 	"force":                       quantity.Force,
 	"resistance":                  quantity.Force, // a hull's or body's total resistance (drag) in the towing-tank sense
+	"drag":                        quantity.Force, // the drag of a body in a stream: C_D, not C_L nor C_T
 	"wetted surface":              quantity.Area,
 	"torque":                      quantity.Torque,
 	"power":                       quantity.Power,
@@ -57,7 +58,7 @@ var tradeKinds = map[string]quantity.Dim{
 // a length is not assumed to be a mean free path, nor a velocity a speed
 // of sound, nor a pressure a bulk modulus.
 var explicitOnly = map[string]bool{"mean free path": true, "speed of sound": true, "bulk modulus": true, "Coriolis parameter": true, "buoyancy": true,
-	"resistance": true, "wetted surface": true}
+	"resistance": true, "wetted surface": true, "drag": true}
 
 // synonyms are kinds of package quantity left out of inference because a
 // preferred name covers them.
@@ -163,12 +164,39 @@ func checkKind(v Variable) error {
 	}
 	d, ok := KindDim(v.Kind)
 	if !ok {
-		return &Error{Op: OpProblem, Kind: ErrUnknownKind, Symbol: v.Symbol, Reason: fmt.Sprintf("kind %q", v.Kind)}
+		return &Error{Op: OpProblem, Kind: ErrUnknownKind, Symbol: v.Symbol, Reason: fmt.Sprintf("kind %q", v.Kind),
+			Hint: unknownKindHint(v.Dim)}
 	}
 	if d != v.Dim {
 		return &Error{Op: OpProblem, Kind: ErrKindDimension, Symbol: v.Symbol, Reason: fmt.Sprintf("a %s has dimension %s, the variable %s", v.Kind, d, v.Dim)}
 	}
 	return nil
+}
+
+// KindsOfDim returns every kind of quantity known to pigroups with
+// dimension d: those InferKinds gives, then the trade's kinds of that
+// dimension a variable must be given explicitly (resistance, mean free
+// path, …), each once.
+func KindsOfDim(d quantity.Dim) []string {
+	out := InferKinds(d)
+	var more []string
+	for k, kd := range tradeKinds {
+		if kd == d && !slices.Contains(out, k) {
+			more = append(more, k)
+		}
+	}
+	slices.Sort(more)
+	return append(out, more...)
+}
+
+// unknownKindHint names the known kinds of a variable's dimension and the
+// fix, for an unknown kind.
+func unknownKindHint(d quantity.Dim) string {
+	known := KindsOfDim(d)
+	if len(known) == 0 {
+		return fmt.Sprintf("no kind of dimension %s is known; leave the kind out, and the variable is taken by its dimension alone", d)
+	}
+	return fmt.Sprintf("the kinds known for dimension %s are %s; give one of them, or leave the kind out to take it from the dimension", d, strings.Join(known, ", "))
 }
 
 // Named is a named dimensionless group of the trade, defined by the kinds
@@ -197,6 +225,24 @@ type Named struct {
 	// group matches a form when its variables' kinds match with all
 	// exponents one common power of the form's.
 	Forms []Form
+	// Alternative, when set, is the named group the same product is when
+	// one of its variables has a narrower kind than the one inferred (a
+	// force that is a hull's resistance gives C_T, not C_D); a match of a
+	// form with a stand-in (only proportional) says both when that
+	// variable was given no kind.
+	Alternative *Alternative
+}
+
+// Alternative is another named group a product of a form is, for a
+// variable of a narrower kind.
+type Alternative struct {
+	Of     string // the form's kind the variable is inferred as ("force")
+	Kind   string // the narrower kind ("resistance")
+	Symbol string // the other group's symbol ("C_T")
+	When   string // when it applies ("a hull's resistance")
+	// Exact, when set, applies the alternative to every form; otherwise
+	// only to a form with a stand-in, which is only proportional anyway.
+	Exact bool
 }
 
 // Form is one way of writing a named group as a product of kinds of
@@ -268,7 +314,7 @@ var catalogue = []Named{
 	}},
 	{Name: "Strouhal number", Symbol: "St", Coef: one, Definition: "St = f·L/V, f in cycles per second (ISO 80000-11)", Forms: []Form{
 		form(kp("frequency", 1, 1), kp("length", 1, 1), kp("velocity", -1, 1)),
-	}},
+	}, Alternative: &Alternative{Of: "frequency", Kind: "rotational speed", Symbol: "J", When: "a propeller's or rotor's speed of rotation", Exact: true}},
 	{Name: "Cauchy number", Symbol: "Ca", Coef: one, Definition: "Ca = ρ·V²/K", Forms: []Form{
 		form(kp("density", 1, 1), kp("velocity", 2, 1), kp("bulk modulus", -1, 1)),
 	}},
@@ -336,7 +382,9 @@ var catalogue = []Named{
 	{Name: "drag coefficient", Symbol: "C_D", Coef: two, Definition: "C_D = F/(½·ρ·V²·A), A the reference area", Forms: []Form{
 		form(kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("area", -1, 1)),
 		areaProxy(kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)),
-	}},
+		form(kp("drag", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("area", -1, 1)),
+		areaProxy(kp("drag", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)),
+	}, Alternative: &Alternative{Of: "force", Kind: "resistance", Symbol: "C_T", When: "a hull's resistance"}},
 	{Name: "total resistance coefficient", Symbol: "C_T", Coef: two, Definition: "C_T = R/(½·ρ·V²·S), S the wetted surface (ITTC)", Forms: []Form{
 		form(kp("resistance", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("wetted surface", -1, 1)),
 		{Factors: quantity.Product{kp("resistance", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)},
@@ -346,7 +394,7 @@ var catalogue = []Named{
 		form(kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("area", -1, 1)),
 		areaProxy(kp("force", 1, 1), kp("density", -1, 1), kp("velocity", -2, 1), kp("length", -2, 1)),
 	}},
-	{Name: "advance ratio", Symbol: "J", Coef: one, Revolutions: true, Definition: "J = V/(n·D), n in revolutions per second", Forms: []Form{
+	{Name: "advance coefficient", Symbol: "J", Coef: one, Revolutions: true, Definition: "J = V/(n·D), n in revolutions per second (also called the advance ratio)", Forms: []Form{
 		form(kp("velocity", 1, 1), kp("rotational speed", -1, 1), kp("length", -1, 1)),
 	}},
 	{Name: "thrust coefficient", Symbol: "K_T", Coef: one, Revolutions: true, Definition: "K_T = T/(ρ·n²·D⁴), n in revolutions per second", Forms: []Form{
@@ -369,7 +417,7 @@ var catalogue = []Named{
 		form(kp("specific energy", 1, 1), kp("rotational speed", -2, 1), kp("length", -2, 1)),
 		form(kp("gravitational acceleration", 1, 1), kp("length", 1, 1), kp("rotational speed", -2, 1), kp("length", -2, 1)),
 	}},
-	{Name: "fan pressure coefficient", Symbol: "ψ_p", Coef: one, Revolutions: true, Definition: "ψ_p = Δp/(ρ·n²·D²), n in revolutions per second", Forms: []Form{
+	{Name: "pressure coefficient of a pump or fan", Symbol: "ψ_p", Coef: one, Revolutions: true, Definition: "ψ_p = Δp/(ρ·n²·D²), n in revolutions per second (ψ_p = ψ for Δp = ρ·g·H; fan practice also writes 2·Δp/(ρ·u²) with u = π·D·n, which is (2/π²)·ψ_p: common practice)", Forms: []Form{
 		form(kp("pressure difference", 1, 1), kp("density", -1, 1), kp("rotational speed", -2, 1), kp("length", -2, 1)),
 	}},
 	{Name: "machine Reynolds number", Symbol: "Re_n", Coef: one, Revolutions: true, Definition: "Re_n = ρ·n·D²/μ = n·D²/ν, n in revolutions per second", Forms: []Form{
@@ -548,6 +596,22 @@ type Match struct {
 	// twoPi is the power of 2π between the definition's measure of a
 	// rotational speed and the measure its variables hold (see Angle).
 	twoPi int
+	// alt is set when the named group's Alternative applies too: the
+	// variable it concerns was given no kind.
+	alt bool
+}
+
+// AlsoText returns what the group is for a narrower kind of one of its
+// variables, when that variable was given no kind and the named group
+// has an Alternative: "∝C_T for a hull's resistance"; "" otherwise.
+func (m Match) AlsoText() string {
+	if !m.alt || m.Proxy == nil {
+		return ""
+	}
+	a := m.Alternative
+	o := m
+	o.Symbol, o.alt = a.Symbol, false
+	return o.Label() + " for " + a.When
 }
 
 // ProxyUse is a variable that stands in for a reference quantity in a
@@ -630,6 +694,13 @@ func factorText(c quantity.Rat, k int, style quantity.Style) string {
 // "1/Re", "Fr²", "C_D/2", "K_T/(4π²)", and "∝C_D" when a stand-in makes
 // it only proportional.
 func (m Match) Label() string {
+	if t := m.AlsoText(); t != "" {
+		return m.label() + " (" + t + ")"
+	}
+	return m.label()
+}
+
+func (m Match) label() string {
 	if m.Proxy != nil {
 		return "∝" + m.Symbol
 	}
@@ -662,6 +733,19 @@ func (m Match) Label() string {
 		return k + "/" + m.Symbol
 	}
 	return powerText("("+first+")", m.Power)
+}
+
+// rotational reports whether the named group's definition holds a
+// rotational speed, whose measure (rev/s or rad/s) the definition states.
+func (m Match) rotational() bool {
+	for _, f := range m.Forms {
+		for _, t := range f.Factors {
+			if t.Name == "rotational speed" {
+				return true
+			}
+		}
+	}
+	return false
 }
 
 func parenFactor(s string) string {
@@ -725,6 +809,23 @@ func (m Match) describe(name string) string {
 		}
 	case !(m.Power.Num() == 1 && m.Power.Den() == 1):
 		sb.WriteString("; conventional form " + m.Symbol)
+		if m.rotational() {
+			sb.WriteString("; " + m.Definition)
+		}
+	case m.rotational():
+		// The definition carries the measure of the speed: said always.
+		sb.WriteString("; " + m.Definition)
+	}
+	if m.alt {
+		a := m.Alternative
+		what := a.Symbol
+		if t := m.AlsoText(); t != "" {
+			what = strings.TrimSuffix(t, " for "+a.When)
+		}
+		fmt.Fprintf(&sb, "; for %s (give the %s the kind %s) the group is read as %s", a.When, a.Of, a.Kind, what)
+		if i := slices.IndexFunc(catalogue, func(n Named) bool { return n.Symbol == a.Symbol }); i >= 0 {
+			fmt.Fprintf(&sb, ", the %s, %s", catalogue[i].Name, catalogue[i].Definition)
+		}
 	}
 	if len(m.Assumed) > 0 {
 		sb.WriteString("; taking " + strings.Join(m.Assumed, ", "))
@@ -946,6 +1047,15 @@ func (p *Problem) matchForm(ar *matchArena, f *compiledForm, terms []int, exps [
 		return Match{}, false
 	}
 	m := Match{Named: *f.named, Power: bestPower}
+	if a := f.named.Alternative; a != nil && (f.proxy >= 0 || a.Exact) {
+		// Without Exact only for a stand-in: an area of a form need not
+		// be the wetted surface the other group is defined on.
+		for fi, t := range f.terms {
+			if t.Name == a.Of && p.vars[bestAssign[fi]].Kind == "" {
+				m.alt = true
+			}
+		}
+	}
 	for fi, t := range f.terms {
 		if t.Name != "rotational speed" || !t.Exp.IsInt() {
 			continue

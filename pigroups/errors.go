@@ -34,9 +34,14 @@ type Error struct {
 	Reason string // what was wrong, in words
 
 	// OpFit: the offending row and group (0 for Π₀), or −1; the
-	// condition number, for collinear groups.
+	// condition number, for collinear groups: of the groups' centred,
+	// scaled logarithms (FitOptions.MaxCollinear), +Inf for a constant
+	// group, or of the log design matrix (FitOptions.MaxCond).
 	Row, Group int
 	Cond       float64
+	// Groups lists, for ErrCollinear, the groups (1 for Π₁, …) that vary
+	// together or the one that is constant.
+	Groups []int
 
 	// OpRepeating: the set given, the number of repeating variables
 	// needed (the rank) and the base dimensions no member carries.
@@ -79,6 +84,9 @@ func (e *Error) Error() string {
 		if e.Reason != "" {
 			sb.WriteString(": " + e.Reason)
 		}
+		if e.Hint != "" {
+			sb.WriteString("; " + e.Hint)
+		}
 	case OpRepeating:
 		fmt.Fprintf(&sb, " repeating set {%s}: %v", strings.Join(e.Set, ", "), e.Kind)
 		switch {
@@ -109,6 +117,9 @@ func (e *Error) Error() string {
 		}
 		if e.Reason != "" {
 			sb.WriteString(": " + e.Reason)
+		}
+		if e.Hint != "" {
+			sb.WriteString("; " + e.Hint)
 		}
 	}
 	if e.Err != nil {

@@ -32,6 +32,14 @@ type FitOptions struct {
 	// MaxCond is the largest condition number of the design matrix
 	// accepted, 1e10 if zero.
 	MaxCond float64
+	// MaxCollinear is the largest condition number accepted of the
+	// groups' logarithms Π₁ … Π_k, each centred on its mean and scaled to
+	// unit length: DefaultMaxCollinear if zero. It measures how nearly the
+	// groups vary together over the rows whatever their size, so a group
+	// that is nearly a power of others is refused with the groups named,
+	// where the unscaled MaxCond would pass it and the exponents come out
+	// meaningless.
+	MaxCollinear float64
 	// Names, if given, name Π₀, Π₁ … Π_k in notes ("Eu", "Re", "L/d");
 	// by default they are Π₀ … Π_k.
 	Names []string
@@ -48,6 +56,14 @@ type FitOptions struct {
 	// physics and inflates R² (spurious correlation).
 	Groups []Group
 }
+
+// DefaultMaxCollinear is the default FitOptions.MaxCollinear. For two
+// groups whose logarithms correlate with coefficient r the condition
+// number is √((1 + |r|)/(1 − |r|)), so 100 refuses |r| > 0.9998, where
+// the exponents' standard errors are some 50 times those of independent
+// groups. Common practice reads a condition index of the scaled design
+// above 30 as strong dependence and above 100 as severe (from memory).
+const DefaultMaxCollinear = 100
 
 // SharedVariables returns the symbols of the variables a and b both
 // contain, in variable order; nil when they share none or belong to
@@ -103,7 +119,10 @@ type PowerLaw struct {
 // FitPowerLaw fits Π₀ = C·∏ Πₖ^aₖ to measured rows: y holds Π₀ and x[k]
 // holds Πₖ₊₁, each with one value per row. All values must be positive.
 // Standard errors use the residual variance; intervals use Student's t
-// with N − k − 1 degrees of freedom.
+// with N − k − 1 degrees of freedom. Groups that cannot be told apart
+// over the rows — one constant, or some nearly powers of one another
+// (FitOptions.MaxCollinear) — are refused with ErrCollinear, the groups
+// named in the error's Groups and text.
 func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error) {
 	var o FitOptions
 	if opt != nil {
@@ -155,6 +174,9 @@ func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error)
 			}
 			X.Set(i, j+1, sw[i]*math.Log(v))
 		}
+	}
+	if err := collinear(X, sw, k, &o); err != nil {
+		return nil, err
 	}
 	cond := mat.Cond(X, 2)
 	if math.IsInf(cond, 0) || math.IsNaN(cond) || cond > o.MaxCond {
@@ -248,6 +270,173 @@ func FitPowerLaw(y []float64, x [][]float64, opt *FitOptions) (*PowerLaw, error)
 		return nil, &Error{Op: OpFit, Kind: ErrFitShape, Row: -1, Group: -1, Reason: "the fitted coefficient or exponents are not finite (the data's logarithms span too wide a range)"}
 	}
 	return f, nil
+}
+
+// collinear refuses groups Π₁ … Π_k (columns 1 … k of the weighted log
+// design X) of which one is constant over the rows, or which vary
+// together: the condition number of their logarithms, centred and scaled
+// to unit length, above o.MaxCollinear. The error names the groups, the
+// power law they follow among themselves, and, with o.Groups, the
+// variables that move them together and those that would separate them.
+func collinear(X *mat.Dense, sw []float64, k int, o *FitOptions) error {
+	n, _ := X.Dims()
+	maxC := o.MaxCollinear
+	if maxC == 0 {
+		maxC = DefaultMaxCollinear
+	}
+	if !(maxC >= 1) {
+		return &Error{Op: OpFit, Kind: ErrFitShape, Row: -1, Group: -1, Reason: fmt.Sprintf("MaxCollinear %v is not at least 1", maxC)}
+	}
+	sumW := 0.0
+	for i := range n {
+		sumW += sw[i] * sw[i]
+	}
+	Z := mat.NewDense(n, k, nil)
+	scale := make([]float64, k)
+	for j := range k {
+		mean, big := 0.0, 1.0
+		for i := range n {
+			l := X.At(i, j+1) / sw[i]
+			mean += sw[i] * sw[i] * l
+			big = max(big, math.Abs(l))
+		}
+		mean /= sumW
+		ss := 0.0
+		for i := range n {
+			z := X.At(i, j+1) - sw[i]*mean
+			Z.Set(i, j, z)
+			ss += z * z
+		}
+		s := math.Sqrt(ss)
+		if !(s > 1e-12*big*math.Sqrt(sumW)) {
+			name := fitName(o.Names, j+1)
+			return &Error{Op: OpFit, Kind: ErrCollinear, Row: -1, Group: j + 1, Cond: math.Inf(1), Groups: []int{j + 1},
+				Reason: fmt.Sprintf("%s is constant over these rows: its exponent cannot be fitted", name),
+				Hint:   "vary it over the rows, or fit without it"}
+		}
+		scale[j] = s
+		for i := range n {
+			Z.Set(i, j, Z.At(i, j)/s)
+		}
+	}
+	if k < 2 {
+		return nil
+	}
+	var svd mat.SVD
+	if !svd.Factorize(Z, mat.SVDThin) {
+		return &Error{Op: OpFit, Kind: ErrCollinear, Row: -1, Group: -1, Cond: math.Inf(1), Reason: "the groups' logarithms cannot be decomposed (SVD failed)"}
+	}
+	sv := svd.Values(nil)
+	kappa := math.Inf(1)
+	if sv[k-1] > 0 {
+		kappa = sv[0] / sv[k-1]
+	}
+	if kappa <= maxC {
+		return nil
+	}
+	var v mat.Dense
+	svd.VTo(&v)
+	// The near-null direction: Σ c_j·ln Π_j is nearly constant over the
+	// rows, c_j its weight on the unscaled logarithm of group j.
+	big := 0.0
+	for j := range k {
+		big = max(big, math.Abs(v.At(j, k-1)))
+	}
+	var in []int
+	c := make([]float64, k)
+	for j := range k {
+		if math.Abs(v.At(j, k-1)) >= 0.1*big {
+			in = append(in, j)
+			c[j] = v.At(j, k-1) / scale[j]
+		}
+	}
+	if len(in) < 2 {
+		// Cannot be for unit columns of a few groups; for many, name the
+		// next largest too, so that a relation is written.
+		second := -1
+		for j := range k {
+			if j != in[0] && (second < 0 || math.Abs(v.At(j, k-1)) > math.Abs(v.At(second, k-1))) {
+				second = j
+			}
+		}
+		c[second] = v.At(second, k-1) / scale[second]
+		in = append(in, second)
+		slices.Sort(in)
+	}
+	// The group written in terms of the others: the last of those with a
+	// large weight, so that its power in the relation is finite.
+	pv := in[0]
+	for _, j := range in {
+		if math.Abs(v.At(j, k-1)) >= 0.5*big {
+			pv = j
+		}
+	}
+	var names []string
+	var rel strings.Builder
+	fmt.Fprintf(&rel, "%s ∝ ", fitName(o.Names, pv+1))
+	written := 0
+	for _, j := range in {
+		names = append(names, fitName(o.Names, j+1))
+		if j == pv {
+			continue
+		}
+		if written++; written > 1 {
+			rel.WriteString("·")
+		}
+		fmt.Fprintf(&rel, "%s^%.3g", fitName(o.Names, j+1), -c[j]/c[pv])
+	}
+	groups := make([]int, len(in))
+	for i, j := range in {
+		groups[i] = j + 1
+	}
+	together := strings.Join(names[:len(names)-1], ", ") + " and " + names[len(names)-1]
+	e := &Error{Op: OpFit, Kind: ErrCollinear, Row: -1, Group: -1, Cond: kappa, Groups: groups,
+		Reason: fmt.Sprintf("%s vary together over these rows (%s; the condition number of their centred, scaled logarithms is %.3g, above %.3g): the fit cannot tell their exponents apart", together, rel.String(), kappa, maxC)}
+	e.Hint = "vary what separates them, or fit fewer groups"
+	if len(o.Groups) == k+1 && o.Groups[0].prob != nil {
+		// A variable x moves Σ c_j·ln Π_j by Σ c_j·e_j(x)·ln x: along the
+		// rows' direction (no change) it moves the groups together; off
+		// it, it separates them.
+		var move, sep []string
+		for vi, vr := range o.Groups[0].prob.vars {
+			t, mag := 0.0, 0.0
+			for _, j := range in {
+				g := o.Groups[j+1]
+				if g.prob != o.Groups[0].prob {
+					return e
+				}
+				x := g.exps[vi].Float() * c[j]
+				t += x
+				mag += math.Abs(x)
+			}
+			switch {
+			case mag == 0:
+			case math.Abs(t) <= 0.02*mag:
+				move = append(move, vr.Symbol)
+			default:
+				sep = append(sep, vr.Symbol)
+			}
+		}
+		var h strings.Builder
+		if len(move) > 0 {
+			fmt.Fprintf(&h, "varying %s moves them together; ", orList(move, "and"))
+		}
+		if len(sep) > 0 {
+			fmt.Fprintf(&h, "vary %s as well (a variable held constant over the rows cannot separate them), or fit one of them alone", orList(sep, "or"))
+		} else {
+			h.WriteString("fit one of them alone")
+		}
+		e.Hint = h.String()
+	}
+	return e
+}
+
+// orList writes "a", "a or b", "a, b or c".
+func orList(xs []string, conj string) string {
+	if len(xs) == 1 {
+		return xs[0]
+	}
+	return strings.Join(xs[:len(xs)-1], ", ") + " " + conj + " " + xs[len(xs)-1]
 }
 
 func fitName(names []string, j int) string {

@@ -246,23 +246,83 @@ func confine(args []string, dir string) []string {
 
 // TestGroupNamedOnStderr: each recognised group's name and definition go
 // to standard error with the group, so a pump engineer reading ψ_p sees
-// that it is the fan pressure coefficient Δp/(ρn²D²) with n in rev/s,
-// not the head coefficient 2gH/u².
+// that it is the pressure coefficient Δp/(ρn²D²) of a pump or fan with n
+// in rev/s, not the head coefficient 2gH/u²; the definition, with n's
+// measure, is printed whether n is held in rad/s or in rev/s.
 func TestGroupNamedOnStderr(t *testing.T) {
-	args := []string{"-data", "testdata/pumploop.csv", "-baro", "1002hPa",
-		"-derive", "dp = P2 - P1; D = 0.25 {m}; rho = 998.2 {kg/m^3}",
-		"-dep", "dp", "-repeat", "n,D,rho", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}
-	var out, errb bytes.Buffer
-	if code := run(args, &out, &errb); code != 0 {
-		t.Fatalf("exit %d: %s", code, errb.String())
-	}
-	for _, want := range []string{
-		"Π₁ = dp/(n²·D²·rho)  (ψ_p/(4π²))",
-		"(fan pressure coefficient; ψ_p = Δp/(ρ·n²·D²), n in revolutions per second",
-		"(flow coefficient; φ = Q/(n·D³)",
+	for _, c := range []struct {
+		n    string
+		want []string
+	}{
+		{"n=rad/s", []string{
+			"Π₁ = dp/(n²·D²·rho)  (ψ_p/(4π²))",
+			"(pressure coefficient of a pump or fan; ψ_p = Δp/(ρ·n²·D²), n in revolutions per second",
+			"(flow coefficient; φ = Q/(n·D³)",
+		}},
+		{"n=rev/s", []string{
+			"Π₁ = dp/(n²·D²·rho)  (ψ_p)",
+			"ψ_p (pressure coefficient of a pump or fan; ψ_p = Δp/(ρ·n²·D²), n in revolutions per second",
+			"φ (flow coefficient; φ = Q/(n·D³), n in revolutions per second)",
+		}},
 	} {
-		if !strings.Contains(errb.String(), want) {
-			t.Errorf("standard error lacks %q:\n%s", want, errb.String())
+		args := []string{"-data", "testdata/pumploop.csv", "-baro", "1002hPa",
+			"-derive", "dp = P2 - P1; D = 0.25 {m}; rho = 998.2 {kg/m^3}",
+			"-dep", "dp", "-repeat", "n,D,rho", "dp=Pa", "Q=m^3/s", c.n, "D=m", "rho=kg/m^3"}
+		var out, errb bytes.Buffer
+		if code := run(args, &out, &errb); code != 0 {
+			t.Fatalf("%s: exit %d: %s", c.n, code, errb.String())
+		}
+		for _, want := range c.want {
+			if !strings.Contains(errb.String(), want) {
+				t.Errorf("%s: standard error lacks %q:\n%s", c.n, want, errb.String())
+			}
+		}
+		if strings.Contains(errb.String(), "fan pressure coefficient") {
+			t.Errorf("%s: ψ_p of a pump loop named for fans alone:\n%s", c.n, errb.String())
+		}
+	}
+}
+
+// TestRotationalSpeedLabels: a speed declared with a unit of turns (rpm,
+// rev/s, rad/s) is a rotational speed n, so V/(n·D) beside a thrust
+// coefficient is the advance coefficient J (J/(2π) with n in rad/s: V/(ω·D)
+// = V/(2π·n·D)); one in Hz is a frequency f, and V/(f·D) is 1/St, the
+// label naming J for a speed of rotation.
+func TestRotationalSpeedLabels(t *testing.T) {
+	for _, c := range []struct{ unit, kind, label, not string }{
+		{"rpm", "rotational speed", "Π₂ = V/(n·D)   J (advance coefficient; J = V/(n·D), n in revolutions per second", "St"},
+		{"rev/s", "rotational speed", "Π₂ = V/(n·D)   J (advance coefficient;", "St"},
+		{"rad/s", "rotational speed", "Π₂ = V/(n·D)   J/(2π) (advance coefficient;", "St"},
+		{"Hz", "frequency", "Π₂ = V/(n·D)   1/St (Strouhal number; conventional form St; for a propeller's or rotor's speed of rotation (give the frequency the kind rotational speed) the group is read as J", "Π₂ = V/(n·D)   J"},
+	} {
+		var out, errb bytes.Buffer
+		if code := run([]string{"-dep", "T", "-repeat", "rho,n,D", "T=N", "rho=kg/m^3", "n=" + c.unit, "D=m", "V=m/s"}, &out, &errb); code != 0 {
+			t.Fatalf("%s: exit %d: %s", c.unit, code, errb.String())
+		}
+		o := out.String()
+		if !strings.Contains(o, c.label) || !strings.Contains(o, c.kind) || strings.Contains(o, c.label[:strings.Index(c.label, "(")]+c.not) {
+			t.Errorf("n=%s: want %q and kind %q, not %q:\n%s", c.unit, c.label, c.kind, c.not, o)
+		}
+	}
+}
+
+// TestForceLabels: a plain force over ρV²L² is ∝C_D and, for a hull's
+// resistance, ∝C_T, and the label says both; a force of the kind
+// resistance is ∝C_T and one of the kind force or drag ∝C_D alone, as the
+// towing-tank example (kind resistance) labels it.
+func TestForceLabels(t *testing.T) {
+	for _, c := range []struct{ spec, label string }{
+		{"R=N", "Π₁ = R/(rho·V²·L²)   ∝C_D (∝C_T for a hull's resistance) (proportional to the drag coefficient;"},
+		{"R=N@resistance", "Π₁ = R/(rho·V²·L²)   ∝C_T (proportional to the total resistance coefficient;"},
+		{"R=N@force", "Π₁ = R/(rho·V²·L²)   ∝C_D (proportional to the drag coefficient;"},
+		{"R=N@drag", "Π₁ = R/(rho·V²·L²)   ∝C_D (proportional to the drag coefficient;"},
+	} {
+		var out, errb bytes.Buffer
+		if code := run([]string{"-dep", "R", "-repeat", "rho,V,L", c.spec, "rho=kg/m^3", "V=m/s", "L=m", "nu=m^2/s"}, &out, &errb); code != 0 {
+			t.Fatalf("%s: exit %d: %s", c.spec, code, errb.String())
+		}
+		if !strings.Contains(out.String(), c.label) {
+			t.Errorf("%s: want %q:\n%s", c.spec, c.label, out.String())
 		}
 	}
 }

@@ -34,7 +34,9 @@
 //	-data FILE         a channel file to reduce (CSV; TSV if it ends in .tsv;
 //	                   Parquet, units in its metadata, if it ends in .parquet)
 //	-derive TEXT       derived channels, as 'dp = P2 - P1'
-//	-baro P            the ambient pressure gauge channels were read against
+//	-baro P            the ambient pressure gauge channels were read against;
+//	                   not needed where they enter only as differences
+//	                   (dp = P2 - P1), where it cancels
 //	-std-atm           use 101325 Pa for it, an explicit choice
 //	-out FILE          write the groups there instead of standard output
 //	-fit               fit the dependent group as a power law of the others
@@ -113,13 +115,19 @@ channel file to those groups row by row.
 
 usage: pisets [-dep symbol] [-repeat a,b,c] [-format text|json] [-sets] symbol=unit[@kind] ...
        pisets -data file [-derive text] [-baro p | -std-atm] [-out file] [-format csv|jsonl|json|parquet]
-              [-fit [-plot fit.png]] [-dep symbol] [-repeat a,b,c] symbol=unit ...
+              [-fit [-plot fit.png]] [-dep symbol] [-repeat a,b,c] symbol=unit[@kind] ...
 
 Each variable is symbol=unit, with an optional @kind ("dp=kPa@pressure difference");
 the unit gives its dimension. A rotational speed declared in rad/s is held in
 radians; one in rev/s or rpm, or a rotational frequency in Hz or 1/s (ISO 80000-3),
 is held in revolutions, and a group's label says which: with n in rad/s
-T/(ρ·n²·D⁴) is K_T/(4π²), with n in rev/s it is K_T itself.
+T/(ρ·n²·D⁴) is K_T/(4π²), with n in rev/s it is K_T itself. A speed declared
+in turns (rpm, rev/s, rad/s) is a rotational speed n, so V/(n·D) is the advance
+coefficient J; one in Hz or 1/s is a frequency f, so f·D/V is the Strouhal number
+(add "@rotational speed" to read it as n). A force with no kind over ρ·V²·L² is
+labelled ∝C_D (∝C_T for a hull's resistance): add @resistance for C_T, or @drag
+for C_D alone. Every group with a rotational speed states its definition and n's
+measure (ψ_p = Δp/(ρ·n²·D²), n in revolutions per second).
 
 Output without -data:
   text  the variables, the dimensional matrix and its rank, the repeating set,
@@ -138,7 +146,11 @@ and the ones -derive reads are parsed, so a text column or a bad value in a colu
 nobody uses does not stop the reduction. A channel binds to
 a variable only when its unit converts to the variable's unit: rpm to rad/s or
 rev/s is read, Hz to rad/s is refused (write the channel as (Hz)*rev, or declare
-the variable in Hz).
+the variable in Hz). A gauge channel (psig, barg) is absolute only with -baro or
+-std-atm; without either, gauge channels may enter only through derived channels
+in which the ambient cancels (dp = P2 - P1, all read against the one ambient;
+checked on the file's first rows and said on standard error), and such a derived
+channel is a pressure difference.
 
 Output with -data (formats), one line or record per data row, groups in order,
 each group's column named by the trade's symbol where the group is exactly one
@@ -182,7 +194,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 	var ro reduceOptions
 	fs.StringVar(&ro.data, "data", "", "a channel file to reduce (CSV; TSV if .tsv; Parquet if .parquet)")
 	fs.StringVar(&ro.derive, "derive", "", "formula text defining derived channels, as 'dp = P1 - P2; D = 0.25 {m}'")
-	fs.StringVar(&ro.baro, "baro", "", "the absolute ambient pressure gauge channels were read against, as 1002hPa")
+	fs.StringVar(&ro.baro, "baro", "", "the absolute ambient pressure gauge channels were read against, as 1002hPa; not needed where gauge channels enter only as differences (dp = P2 - P1)")
 	fs.BoolVar(&ro.stdAtm, "std-atm", false, "read gauge channels against the standard atmosphere (101325 Pa), an explicit choice")
 	fs.BoolVar(&ro.fit, "fit", false, "with -data: fit the dependent group as a power law of the others, with 95 % intervals")
 	fs.StringVar(&ro.plot, "plot", "", "with -data -fit and two groups: draw the rows and the fit to a .png or .svg file")
@@ -432,6 +444,12 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 		if err != nil {
 			return nil, &usageError{fmt.Sprintf("variable %s: %v", cli.Quote(spec), err)}
 		}
+		if plane, _ := u.Angle(); kind == "" && plane != 0 && u.Dim() == quantity.AngularVelocity {
+			// A speed counted in rev, rpm or rad turns: a rotational
+			// speed n (V/(n·D) is the advance coefficient J), where a
+			// frequency in Hz or 1/s is a frequency f (f·L/V is St).
+			kind = "rotational speed"
+		}
 		v := pigroups.Variable{Symbol: sym, Dim: u.Dim(), Kind: kind, Angle: am}
 		r.units = append(r.units, u)
 		if sym == dep {
@@ -448,6 +466,16 @@ func build(specs []string, dep, rep string, listSets bool) (*Report, error) {
 		return nil, &usageError{fmt.Sprintf("-dep %s is not among the variables", cli.Quote(dep))}
 	}
 	p, err := pigroups.NewProblem(vars...)
+	var pe *pigroups.Error
+	if errors.Is(err, pigroups.ErrUnknownKind) && errors.As(err, &pe) {
+		// The fix in this command's syntax: the spec without its @kind.
+		for i, v := range vars {
+			if v.Symbol == pe.Symbol {
+				unit, _, _ := strings.Cut(specs[i], "@")
+				return nil, &usageError{fmt.Sprintf("%v: write %s, without the @kind", err, cli.Quote(unit))}
+			}
+		}
+	}
 	if err != nil {
 		return nil, err
 	}

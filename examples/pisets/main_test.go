@@ -131,3 +131,19 @@ func TestHostileInput(t *testing.T) {
 		}
 	}
 }
+
+// TestUnknownKind: an unknown @kind is a usage error that lists the kinds
+// known for the variable's dimension and shows the spec without it.
+func TestUnknownKind(t *testing.T) {
+	var out, errb bytes.Buffer
+	code := run([]string{"-dep", "H", "H=m@head", "g=m/s^2", "n=rev/s", "D=m", "Q=m^3/s"}, &out, &errb)
+	msg := errb.String()
+	if code != 2 {
+		t.Fatalf("exit %d, want 2: %s", code, msg)
+	}
+	for _, want := range []string{`kind "head"`, "the kinds known for dimension L are length, mean free path", `write "H=m", without the @kind`} {
+		if !strings.Contains(msg, want) {
+			t.Errorf("%q lacks %q", msg, want)
+		}
+	}
+}

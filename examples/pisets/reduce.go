@@ -8,6 +8,7 @@ import (
 	"io"
 	"math"
 	"os"
+	"slices"
 	"strconv"
 	"strings"
 	"time"
@@ -22,6 +23,7 @@ import (
 	"similis.dev/similis/units"
 	"similis.dev/similis/units/chanfile"
 	"similis.dev/similis/units/chanfile/parquetfile"
+	"similis.dev/similis/units/formula"
 	"similis.dev/similis/units/steady"
 )
 
@@ -200,6 +202,24 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	case opt.stdAtm:
 		ro.Reference = units.StandardReference()
 	}
+	// Without a reference, gauge channels that enter the variables only
+	// through differences, where the ambient cancels, are read against a
+	// provisional one; any other use of them is refused below, as before.
+	var note string
+	help := gaugeHelp
+	if ro.Reference.Dim() != quantity.Pressure && opt.points == nil {
+		n, why := cancelledGauges(f, opt, r, ro)
+		switch {
+		case n != "":
+			note = n
+			ro.Reference = units.StandardReference()
+		case why != "":
+			help += "; without it gauge channels may enter only as differences such as P2 - P1, where the ambient cancels, and here " + why
+		}
+		if _, err := f.Seek(0, io.SeekStart); err != nil {
+			return &usageError{fmt.Sprintf("-data: %v", err)}
+		}
+	}
 	var rd channelSource
 	var bar progress
 	var done func(rows int) int64 // rows or bytes read so far
@@ -212,7 +232,7 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 		pr, err := parquetfile.NewReader(f, st.Size(), opt.data, parquetfile.Options{Reference: ro.Reference})
 		var pe *parquetfile.Error
 		if errors.Is(err, units.ErrGauge) && errors.As(err, &pe) {
-			return &usageError{fmt.Sprintf("%s: column %d %q %s", pe.File, pe.Column, pe.Field, gaugeHelp)}
+			return &usageError{fmt.Sprintf("%s: column %d %q %s", pe.File, pe.Column, pe.Field, help)}
 		}
 		if err != nil {
 			return &dataError{err}
@@ -224,7 +244,7 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 		cr, err := chanfile.NewReader(f, opt.data, ro)
 		var fe *chanfile.Error
 		if errors.Is(err, units.ErrGauge) && errors.As(err, &fe) {
-			return &usageError{fmt.Sprintf("%s:%d:%d: %q %s", fe.File, fe.Line, fe.Column, fe.Field, gaugeHelp)}
+			return &usageError{fmt.Sprintf("%s:%d:%d: %q %s", fe.File, fe.Line, fe.Column, fe.Field, help)}
 		}
 		if err != nil {
 			return &dataError{err}
@@ -311,7 +331,7 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 		if sink.err != nil {
 			return sink.err
 		}
-		return libError(err)
+		return libError(err, help)
 	}
 	bar.finish()
 	if err := w.Flush(); err != nil {
@@ -338,12 +358,15 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 		for _, rdg := range c.Readings {
 			fmt.Fprintf(log, "pisets: channel %s: %v\n", c.Name, rdg)
 		}
-		if c.Gauge {
+		if c.Gauge && note == "" {
 			fmt.Fprintf(log, "pisets: channel %s: gauge (%s) read as absolute with the reference %g Pa\n", c.Name, c.Text, ro.Reference.Value())
 		}
 		if c.Missing > 0 {
 			fmt.Fprintf(log, "pisets: channel %s: %d missing %s (NaN group fields in those rows)\n", c.Name, c.Missing, plural(c.Missing, "value", "values"))
 		}
+	}
+	if note != "" {
+		fmt.Fprintln(log, note)
 	}
 	for _, v := range res.Derived {
 		if c := res.Nonfinite[v]; c > 0 {
@@ -364,6 +387,50 @@ func reduce(r *Report, opt reduceOptions, out, log io.Writer) error {
 	}
 	fmt.Fprintln(log, "pisets: reduced test data only; a rating, an acceptance test or a design follows its standard and the engineer responsible")
 	return nil
+}
+
+// cancelledGauges reports whether the file's gauge channels may be read
+// without the ambient pressure (see gaugeCancels): the line that says so
+// when they may, why not when they may not; both are empty for a file
+// with no gauge channel, or one the check cannot open (the reading
+// proper then reports it).
+func cancelledGauges(f *os.File, opt reduceOptions, r *Report, ro chanfile.Options) (note, why string) {
+	ro.Reference = units.StandardReference()
+	var rd selectSource
+	if strings.HasSuffix(strings.ToLower(opt.data), ".parquet") {
+		st, err := f.Stat()
+		if err != nil {
+			return "", ""
+		}
+		pr, err := parquetfile.NewReader(f, st.Size(), opt.data, parquetfile.Options{Reference: ro.Reference})
+		if err != nil {
+			return "", ""
+		}
+		defer pr.Close()
+		rd = pr
+	} else {
+		cr, err := chanfile.NewReader(f, opt.data, ro)
+		if err != nil {
+			return "", ""
+		}
+		rd = cr
+	}
+	if !slices.ContainsFunc(rd.Columns(), func(c chanfile.Column) bool { return c.Gauge }) {
+		return "", ""
+	}
+	var vars []string
+	for _, v := range r.problem.Variables() {
+		vars = append(vars, v.Symbol)
+	}
+	var funcs []formula.Func
+	if opt.fluids {
+		funcs = fluids.FormulaFuncs()
+	}
+	gauges, derived, rows, why := gaugeCancels(rd, vars, opt.derive, funcs)
+	if why != "" {
+		return "", why
+	}
+	return gaugeNote(gauges, derived, rows), ""
 }
 
 // bindError explains why channel c cannot be read as variable sym
@@ -440,14 +507,14 @@ func (s *rowSink) Write(g []quantity.Series) error {
 // libError sorts an error of the reduction: a spec that does not fit the
 // file is a usage error (exit 2), anything else bad data (exit 1); a
 // derived value that is not finite names the flag that counts it.
-func libError(err error) error {
+func libError(err error, help string) error {
 	var fe *chanfile.Error
 	if errors.Is(err, units.ErrGauge) && errors.As(err, &fe) {
-		return &usageError{fmt.Sprintf("%s:%d:%d: %q %s", fe.File, fe.Line, fe.Column, fe.Field, gaugeHelp)}
+		return &usageError{fmt.Sprintf("%s:%d:%d: %q %s", fe.File, fe.Line, fe.Column, fe.Field, help)}
 	}
 	var pe *parquetfile.Error
 	if errors.Is(err, units.ErrGauge) && errors.As(err, &pe) {
-		return &usageError{fmt.Sprintf("%s: column %d %q %s", pe.File, pe.Column, pe.Field, gaugeHelp)}
+		return &usageError{fmt.Sprintf("%s: column %d %q %s", pe.File, pe.Column, pe.Field, help)}
 	}
 	var re *reduction.Error
 	if errors.As(err, &re) {
@@ -473,7 +540,7 @@ func reducePoints(spec *reduction.Spec, opt reduceOptions, rd chanfile.Source, p
 	}
 	res, err := spec.Reduce(in)
 	if err != nil {
-		return libError(err)
+		return libError(err, gaugeHelp)
 	}
 	if opt.parquet {
 		err = reduction.WritePointsParquet(out, res)

@@ -82,7 +82,7 @@ func TestReduceExitCodes(t *testing.T) {
 		{append([]string{"-out", outFile}, pumpArgs...), 0, ""},
 		{[]string{"-data", bad, "Q=m^3/s", "n=rad/s", "D=m"}, 2, "variable D is neither a channel"},
 		{[]string{"-data", bad, "-derive", "D = 0.25 {m}", "Q=m^3/s", "n=rad/s", "D=m"}, 1, "bad.csv:3:1: \"160 m3/h\": a value with a unit in a data row"},
-		{[]string{"-data", "testdata/pumploop.csv", "-derive", "dp = P2 - P1", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "give -baro"},
+		{[]string{"-data", "testdata/pumploop.csv", "-derive", "dp = P2; D = 0.25 {m}; rho = 998 {kg/m^3}", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "give -baro"},
 		{[]string{"-data", "testdata/pumploop.csv", "-std-atm", "-derive", "dp = P2 - P1 + Q", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "cannot add pressure"},
 		{[]string{"-data", "testdata/pumploop.csv", "-std-atm", "-derive", "dp = P2; D = 0.25 {m}; rho = 998 {kg/m^3}", "dp=Pa*s", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "variable dp is dynamic viscosity"},
 		{[]string{"-data", "testdata/pumploop.csv", "-baro", "12kn", "dp=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}, 2, "want an absolute pressure"},
@@ -496,4 +496,87 @@ func table(s string) []string {
 		}
 	}
 	return out
+}
+
+// TestFitCollinearTank: one model towed at five speeds in the invented
+// tank log, L, ρ and g given as constants: 1/Re and 1/Fr² follow V alone,
+// so the fit refuses with the two groups named and what separates them
+// (exit 1, bad data for a fit), not with a coefficient out of range.
+func TestFitCollinearTank(t *testing.T) {
+	args := []string{"-data", "testdata/tankrun.csv", "-fluids",
+		"-derive", "L = 4.0 {m}; rho = 999.1 {kg/m^3}; nu = nu_water(T_w); g = 9.80665 {m/s^2}",
+		"-dep", "R_T", "-fit", "R_T=N", "V=m/s", "L=m", "rho=kg/m^3", "nu=m^2/s", "g=m/s^2"}
+	var out, errb bytes.Buffer
+	code := run(args, &out, &errb)
+	msg := errb.String()
+	if code != 1 {
+		t.Fatalf("exit %d, want 1: %s", code, msg)
+	}
+	for _, want := range []string{"-fit: pigroups: fit: collinear groups: Π₂ and Π₃ vary together", "Π₃ ∝ Π₂^1.99", "varying V moves them together; vary L, nu or g as well"} {
+		if !strings.Contains(msg, want) {
+			t.Errorf("standard error lacks %q:\n%s", want, msg)
+		}
+	}
+	if strings.Contains(msg, "span too wide") {
+		t.Errorf("the old reason is given:\n%s", msg)
+	}
+}
+
+// TestReduceGaugeDifference: the pump loop's suction and discharge
+// pressures are gauge readings against the one test-cell ambient, so
+// dp = P2 − P1 does not depend on it and needs no -baro: the groups are
+// those read with -baro 1002hPa, to rounding, and standard error says why
+// no reference was needed and that dp is a pressure difference. By hand
+// for the first row: dp = (38 − 2) psi = 36·6894.757 Pa, whatever the
+// ambient. A gauge channel used alone (as a variable, or in a derived
+// channel that moves with the ambient) still needs -baro.
+func TestReduceGaugeDifference(t *testing.T) {
+	noBaro := slices.Clone(pumpArgs)
+	i := slices.Index(noBaro, "-baro")
+	noBaro = slices.Delete(noBaro, i, i+2)
+	var out, errb, ref, referr bytes.Buffer
+	if code := run(noBaro, &out, &errb); code != 0 {
+		t.Fatalf("without -baro: exit %d: %s", code, errb.String())
+	}
+	if code := run(pumpArgs, &ref, &referr); code != 0 {
+		t.Fatalf("with -baro: exit %d: %s", code, referr.String())
+	}
+	got, want := table(out.String()), table(ref.String())
+	if len(got) != len(want) {
+		t.Fatalf("%d rows without -baro, %d with", len(got), len(want))
+	}
+	for r := range got {
+		g, w := strings.Split(got[r], ","), strings.Split(want[r], ",")
+		for k := range g {
+			a, _ := strconv.ParseFloat(g[k], 64)
+			b, _ := strconv.ParseFloat(w[k], 64)
+			if !(math.Abs(a-b) <= 1e-9*math.Abs(b)) && !(math.IsNaN(a) && math.IsNaN(b)) {
+				t.Errorf("row %d group %d: %v without -baro, %v with", r+1, k+1, a, b)
+			}
+		}
+	}
+	n := 1450.0 / 60 * 2 * math.Pi
+	if psi, _ := strconv.ParseFloat(strings.Split(got[1], ",")[0], 64); math.Abs(psi/(36*6894.757293168361/(998.2*n*n*0.0625))-1) > 1e-9 {
+		t.Errorf("first row: Π₁ = %v", psi)
+	}
+	for _, want := range []string{"gauge channels P1, P2 enter only dp, in which the ambient pressure cancels", "read without -baro", "a pressure difference"} {
+		if !strings.Contains(errb.String(), want) {
+			t.Errorf("standard error lacks %q:\n%s", want, errb.String())
+		}
+	}
+	if strings.Contains(errb.String(), "read as absolute with the reference") {
+		t.Errorf("a reference is claimed:\n%s", errb.String())
+	}
+	for _, c := range []struct {
+		derive, dep, says string
+	}{
+		{"D = 0.25 {m}; rho = 998.2 {kg/m^3}", "P2", "variable P2 is the gauge channel itself"},
+		{"dp = P2 - 0.5*P1; D = 0.25 {m}; rho = 998.2 {kg/m^3}", "dp", "the derived dp changes with the ambient pressure"},
+	} {
+		errb.Reset()
+		args := []string{"-data", "testdata/pumploop.csv", "-derive", c.derive, "-dep", c.dep, "-repeat", "n,D,rho", c.dep + "=Pa", "Q=m^3/s", "n=rad/s", "D=m", "rho=kg/m^3"}
+		if code := run(args, &bytes.Buffer{}, &errb); code != 2 || !strings.Contains(errb.String(), "give -baro") || !strings.Contains(errb.String(), c.says) {
+			t.Errorf("%s: exit %d, %q; want 2, give -baro, %q", c.derive, code, errb.String(), c.says)
+		}
+	}
 }
