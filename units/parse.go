@@ -83,6 +83,13 @@ type parser struct {
 	// order; each val owns a contiguous range of it, so products and
 	// quotients join ranges and powers scale them, without allocating.
 	terms terms
+	// overflow is 1 + the offset of the first product or quotient whose
+	// dimension left the range a Dim holds, or 0. Reading goes on (the
+	// running dimension is then a placeholder), and the unit's dimension
+	// is summed from its final terms: a spelling read left to right may
+	// pass through more than a Dim holds and come back, as
+	// W^(20/3)·Pa·s/(m^(20/3)·K^(20/3)) does in its time exponent.
+	overflow int
 }
 
 func (p *parser) fail(at int, kind error, reason string) *Error {
@@ -130,6 +137,13 @@ func parseWith(tab symbolTable, expr string) (Unit, error) {
 
 func (p *parser) unit(v val) (Unit, error) {
 	t, err := mergeTerms(p.terms[v.lo:v.lo], p.terms[v.lo:v.hi], 1)
+	if p.overflow > 0 {
+		d, ok := termsDim(t, p.tab.lookup)
+		if err != nil || !ok {
+			return Unit{}, p.fail(p.overflow-1, ErrExponent, "an exponent of the dimension overflows")
+		}
+		v.dim = d
+	}
 	if err == nil {
 		err = t.holdable(p.tab.lookup)
 	}
@@ -155,6 +169,41 @@ func (p *parser) unit(v val) (Unit, error) {
 		}
 	}
 	return u, nil
+}
+
+// termsDim sums the dimension of a unit from its merged terms, exactly:
+// Σ exponent × the symbol's exponents, per base, in sixths. It reports
+// false when a symbol is not in the table or the sum is not a dimension
+// a Dim holds.
+func termsDim(t terms, look func(string) (*entry, bool)) (quantity.Dim, bool) {
+	var sum [quantity.NumBases]int64 // in sixths, times lcm(1…MaxExpDen) = 27720
+	for _, x := range t {
+		if x.number {
+			continue
+		}
+		e, ok := look(x.Name)
+		if !ok || 27720%x.Exp.Den() != 0 {
+			return 0, false
+		}
+		scale := x.Exp.Num() * (27720 / x.Exp.Den())
+		for b := range quantity.NumBases {
+			sum[b] += int64(e.u.dim.Sixths(quantity.Base(b))) * scale
+		}
+	}
+	d := quantity.Dimensionless
+	for b := range quantity.NumBases {
+		if sum[b]%27720 != 0 {
+			return 0, false
+		}
+		db, err := quantity.DimOf(quantity.Base(b), int(sum[b]/27720), 6)
+		if err != nil {
+			return 0, false
+		}
+		if d, err = d.Mul(db); err != nil {
+			return 0, false
+		}
+	}
+	return d, true
 }
 
 func (p *parser) peekRune() rune {
@@ -257,7 +306,10 @@ func combine(p *parser, at int, a, b val, sign int) (val, error) {
 		d, err = a.dim.Div(b.dim)
 	}
 	if err != nil {
-		return val{}, p.fail(at, ErrExponent, "an exponent of the dimension overflows")
+		if p.overflow == 0 {
+			p.overflow = at + 1
+		}
+		d = 0
 	}
 	if sign < 0 {
 		for i := b.lo; i < b.hi; i++ {

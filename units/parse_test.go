@@ -294,3 +294,45 @@ func TestSpellingsDoNotAccumulate(t *testing.T) {
 		t.Errorf("Parse(kg/s) after many spellings: %v, %v", u, err)
 	}
 }
+
+// TestIntermediateOverflowRead: a spelling read left to right may pass
+// through a dimension a Dim cannot hold and come back (the time exponent
+// of W^(20/3)·Pa is −22, beyond ±21, and ·s brings it to −21); the unit
+// is read by its final terms. A unit whose final dimension is out of
+// range is still refused, at the operator where it first overflowed.
+func TestIntermediateOverflowRead(t *testing.T) {
+	for _, c := range []struct {
+		text string
+		want string // the dimension, or "" for a refusal
+	}{
+		// W^(20/3)·Pa·s/(m^(20/3)·K^(20/3)) = (W/(m·K))^(20/3)·Pa·s:
+		// L (2−1)·20/3 − 1 = 17/3, M 20/3 + 1 = 23/3, T −20 − 1 = −21,
+		// Θ −20/3 (W = kg·m²·s⁻³, Pa·s = kg·m⁻¹·s⁻¹).
+		{"W^(20/3)*Pa*s/(m^(20/3)*K^(20/3))", "L^(17/3) M^(23/3) T⁻²¹ Θ^(-20/3)"},
+		{"s^-20*s^-2*s^3", "T⁻¹⁹"},
+		{"m^20*m^20", ""},
+		{"s^-20*s^-2", ""},
+	} {
+		u, err := units.Parse(c.text)
+		if c.want == "" {
+			if !errors.Is(err, units.ErrExponent) {
+				t.Errorf("Parse(%q) = %v, %v; want a bad-exponent error", c.text, u, err)
+			}
+			continue
+		}
+		if err != nil {
+			t.Errorf("Parse(%q): %v", c.text, err)
+			continue
+		}
+		if got := u.Dim().String(); got != c.want {
+			t.Errorf("Parse(%q) has dimension %s, want %s", c.text, got, c.want)
+		}
+		back, err := units.Parse(u.String())
+		if err != nil || !back.Equal(u) {
+			t.Errorf("Parse(%q).String() = %q reads back as %v, %v", c.text, u, back, err)
+		}
+	}
+	if u, err := units.MustParse("m").Pow(-64, 3); err == nil {
+		t.Errorf("m.Pow(-64, 3) = %q; want refused (its spelling 1/m^(64/3) cannot be read: +64/3 is not held)", u)
+	}
+}

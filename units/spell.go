@@ -255,7 +255,10 @@ func (t terms) holdable(look func(string) (*entry, bool)) error {
 			continue
 		}
 		num, den := int(x.Exp.Num()), int(x.Exp.Den()) // within ±MaxExpAbs, den ≤ MaxExpDen
-		if _, err := e.u.dim.Pow(num, den); err != nil {
+		// A negative power is spelled as a denominator, 1/m^(64/3), which
+		// is read as the positive power inverted: both must be held (a
+		// dimension's exponents reach −128 sixths but only +127).
+		if _, err := e.u.dim.Pow(max(num, -num), den); err != nil {
 			return fmt.Errorf("%s to the power %s has a dimension out of range (exponents are whole sixths within ±21)", x.Name, x.Exp)
 		}
 		if den != 1 && (int(e.u.angle)*num%den != 0 || int(e.u.solid)*num%den != 0) {
