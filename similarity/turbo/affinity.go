@@ -35,7 +35,15 @@ type AffinityScales struct {
 // rotational speed, diameter and density ratios of sc, from the held coefficients solved exactly (Q/(ND³),
 // gH/(N²D²), P/(ρN³D⁵)), over the variables Q (volume flow rate), gH
 // (specific energy), P (power), N (rotational speed), D (diameter) and
-// rho (density). Efficiency is taken equal; see MoodyStepUp.
+// rho (density). Efficiency is taken equal, so Power is the power ratio
+// at equal efficiency.
+//
+// A prototype point with an efficiency step-up is found thus (and
+// PrototypePointOf does it): the flow and head keep their affinity
+// values, Q_P = Q_M/Flow and H_P = H_M/Head; the efficiency is stepped up
+// by one of the formulas (MoodyStepUp, IECStepUp, AckeretStepUp,
+// FanStepUp) to η_P; and the power input is computed from them,
+// P_P = ρ_P·g·Q_P·H_P/η_P, not divided by Power. See PumpCaution.
 func AffinityLaws(sc AffinityScales) (Affinity, error) {
 	for _, r := range [...]struct {
 		field, input, same string

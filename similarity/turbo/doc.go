@@ -26,7 +26,8 @@
 //  4. Carry to the prototype: affinity laws. AffinityLaws gives the flow,
 //     head, power, torque and pressure ratios for a rotational-speed,
 //     diameter and density ratio, solved exactly from the held flow, head
-//     and power coefficients; efficiency is taken equal.
+//     and power coefficients; efficiency is taken equal (so the power
+//     ratio holds at equal efficiency only).
 //  5. Efficiency step-up. The efficiency is not equal: IECStepUp and
 //     IECCurve follow the scalable-loss formula of IEC 60193 (its scope,
 //     from memory: the hydraulic efficiency of turbines, storage pumps
@@ -38,7 +39,11 @@
 //     the best-efficiency point or at each point (StepUpMethod); FanStepUp
 //     and FanCurve the fan standards' conversion between sizes (half
 //     Ackeret's gain for a larger fan, the full loss for a smaller). Each
-//     returns the prototype efficiency and the gain applied.
+//     returns the prototype efficiency and the gain applied. The
+//     prototype point is then: Q_P = Q_M/λ_Q and H_P = H_M/λ_H (the
+//     affinity values, unchanged by the step-up), η_P from the step-up,
+//     and P_P = ρ_P·g·Q_P·H_P/η_P; PrototypePointOf returns the four with
+//     the step-up named.
 //  6. Specific speed. SpecificSpeedOf gives n_q (metric), N_s (US) and
 //     the dimensionless Ω_s at the best-efficiency point;
 //     SpecificSpeedMetric, SpecificSpeedUS and SpecificSpeedDimensionless
