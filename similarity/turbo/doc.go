@@ -2,10 +2,14 @@
 // performance from a model to a prototype, in the order of the procedure.
 // Every ratio is model/prototype; model and prototype values that could
 // be swapped come in named pairs (ReynoldsNumbers, Diameters,
-// AffinityScales). Every result carries PumpCaution: guaranteed
+// AffinityScales). PumpCaution goes with every result: guaranteed
 // performance comes from the acceptance test to the applicable standard,
 // and the installation is designed to the local codes and checked by
-// licensed engineers.
+// licensed engineers. PrototypePoint and Verdict carry it in their
+// Caution field (and Verdict.Table prints it); the other results (the
+// ratios of Affinity, the efficiencies of the step-up functions and of
+// StepUp, SpecificSpeeds, NPSH, the Thoma number, ReducedPoint,
+// PumpCurves, NPSH3Result) are bare values: print PumpCaution with them.
 //
 //  1. Reduce the test points. ReducePoints translates each measured
 //     point (flow, head, power input, speed: TestPoint) to the specified
@@ -64,7 +68,9 @@
 //     Q–H curve must be within its tolerance. The factors and the speed
 //     band are quoted from memory, so a verdict is provisional: check them
 //     against ISO 9906:2012 Table 8 and the contract before a pump is
-//     accepted or rejected on it.
+//     accepted or rejected on it. Every Verdict says so itself, its first
+//     note being ProvisionalNote, and Verdict.Table prints the checks,
+//     the notes and the caution.
 //
 // Every error is a *Error naming the procedure and the input, of one
 // class among quantity.ErrDimension, ErrRange and ErrInvalid, with its

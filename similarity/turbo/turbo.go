@@ -9,8 +9,10 @@ import (
 )
 
 // PumpCaution accompanies every pump or turbine result carried from a
-// model to a prototype (step-ups, NPSH and Thoma number, specific speed):
-// print it with them.
+// model to a prototype (step-ups, NPSH and Thoma number, specific speed)
+// and every acceptance verdict. PrototypePoint and Verdict carry it in
+// their Caution field; with the bare values the other functions return,
+// print it yourself.
 const PumpCaution = "Pump and turbine performance scaled from a model test is an estimate subject to scale effects; " +
 	"guaranteed performance comes from the acceptance test to the applicable standard (ISO 9906, IEC 60193), and the " +
 	"installation, its suction conditions and its pressure parts are designed to the applicable local codes and checked by licensed engineers."
