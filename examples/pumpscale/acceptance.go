@@ -239,6 +239,9 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 	fmt.Fprintln(w, "PROVISIONAL: the verdicts rest on tolerance factors and a test-speed band quoted from memory; check them against ISO 9906:2012")
 	fmt.Fprintln(w, "  Table 8 (and the contract, which may set its own) before a pump is accepted or rejected on them")
 	for _, n := range ag.Notes {
+		if n == turbo.ProvisionalNote {
+			continue // said above, for every grade
+		}
 		fmt.Fprintf(w, "  note: %s\n", n)
 	}
 	fmt.Fprintln(w, "the verdict is read on the fitted curves; the grade's tolerance factors already allow for the measurement uncertainty of a test of that grade")

@@ -123,6 +123,11 @@ func TestAcceptanceByHand(t *testing.T) {
 			t.Errorf("output lacks %q", want)
 		}
 	}
+	// The verdict's own PROVISIONAL note is printed once, in the
+	// paragraph above the notes, not again among them.
+	if c := strings.Count(out.String(), "PROVISIONAL:"); c != 1 {
+		t.Errorf("PROVISIONAL: printed %d times, want once", c)
+	}
 	for _, f := range []string{a.PNG, a.SVG} {
 		if st, err := os.Stat(f); err != nil || st.Size() == 0 {
 			t.Errorf("plot %s: %v", f, err)

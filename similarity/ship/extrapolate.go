@@ -34,7 +34,9 @@ type HullTest struct {
 	Speeds, Resistances []quantity.Quantity
 	// Tank and Sea are the states of the waters of model and ship (from
 	// package fluids, or a fluids.State of the caller's own); their
-	// density and kinematic viscosity are used.
+	// density and kinematic viscosity are used. Both are required: a
+	// zero State is refused, the field named
+	// (fluids.FreshWater().AtCelsius(15) gives a tank's water at 15 °C).
 	Tank, Sea fluids.State
 	// FormFactor is 1 + k. Zero means no form factor, 1 + k = 1 (the
 	// original ITTC-1957 method), exactly as HullRun treats it. See
@@ -113,7 +115,10 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 	if len(t.Speeds) == 0 || len(t.Speeds) != len(t.Resistances) {
 		return nil, m(fmt.Sprintf("%d speeds and %d resistances", len(t.Speeds), len(t.Resistances)))
 	}
-	if err := fail("hull extrapolation", similarity.CheckInputs(true,
+	if err := watersSet("hull extrapolation", "HullTest", t.Tank, t.Sea); err != nil {
+		return nil, err
+	}
+	if err := failNamed("hull extrapolation", similarity.CheckInputs(true,
 		similarity.Input{Name: "model length", Value: t.ModelLength, Dim: quantity.Length},
 		similarity.Input{Name: "model wetted area", Value: t.ModelWettedArea, Dim: quantity.Area},
 		similarity.Input{Name: "tank density", Value: t.Tank.Density, Dim: quantity.Density},
@@ -141,11 +146,10 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 	Ls, Ss := Lm/t.Scale, Sm/(t.Scale*t.Scale)
 	res.ShipLength, res.ShipWettedArea = quantity.New(Ls, quantity.Length), quantity.New(Ss, quantity.Area)
 	for i, v := range t.Speeds {
-		if err := v.CheckNamed(fmt.Sprintf("speed %d", i+1), quantity.Velocity); err != nil {
-			return nil, err
-		}
 		r := t.Resistances[i]
-		if err := r.CheckNamed(fmt.Sprintf("resistance %d", i), quantity.Force); err != nil {
+		if err := failNamed("hull extrapolation", similarity.CheckInputs(false,
+			similarity.Input{Name: fmt.Sprintf("speed %d", i+1), Value: v, Dim: quantity.Velocity},
+			similarity.Input{Name: fmt.Sprintf("resistance %d", i+1), Value: r, Dim: quantity.Force})); err != nil {
 			return nil, err
 		}
 		if !(v.Value() > 0) || !(r.Value() > 0) || math.IsInf(v.Value(), 0) || math.IsInf(r.Value(), 0) {
@@ -180,4 +184,23 @@ func ExtrapolateHull(t HullTest) (*HullResult, error) {
 		res.Points = append(res.Points, p)
 	}
 	return res, nil
+}
+
+// watersSet refuses a tank or sea water state left unset (the zero
+// fluids.State) in the input struct typ of procedure op, naming the field
+// and the fix.
+func watersSet(op, typ string, tank, sea fluids.State) error {
+	for _, w := range [...]struct {
+		field, fix string
+		st         fluids.State
+	}{
+		{"Tank", "tank water's state, e.g. fluids.FreshWater().AtCelsius(15)", tank},
+		{"Sea", "sea water's state, e.g. fluids.SeaWater().AtCelsius(15)", sea},
+	} {
+		if w.st == (fluids.State{}) {
+			f := typ + "." + w.field
+			return &Error{Op: op, Fault: similarity.Invalid(f, f+" is not set: give the "+w.fix)}
+		}
+	}
+	return nil
 }

@@ -83,3 +83,50 @@ func TestHullAndProhaska(t *testing.T) {
 		t.Errorf("scale 2 accepted: %v", err)
 	}
 }
+
+// TestHullTestUnsetAndWrongInputsNamed: an unset HullTest.Tank or .Sea
+// says so and names the fix, and a resistance of the wrong dimension is
+// refused with the procedure's prefix and its run's number (1-based, as
+// the speeds are), each in exactly one class.
+func TestHullTestUnsetAndWrongInputsNamed(t *testing.T) {
+	tank := fluids.State{Density: q.New(999.1, q.Density), KinematicViscosity: q.New(1.1386e-6, q.KinematicViscosity)}
+	sea := fluids.State{Density: q.New(1026.0, q.Density), KinematicViscosity: q.New(1.1892e-6, q.KinematicViscosity)}
+	base := ship.HullTest{Scale: 1.0 / 16, ModelLength: q.New(2.5, q.Length), ModelWettedArea: q.New(1.9, q.Area),
+		Speeds: []q.Quantity{q.New(1.5, q.Velocity)}, Resistances: []q.Quantity{q.New(12, q.Force)}, Tank: tank, Sea: sea}
+	noTank, noSea, kg := base, base, base
+	noTank.Tank, noSea.Sea = fluids.State{}, fluids.State{}
+	kg.Resistances = []q.Quantity{q.New(1.2, q.Mass)}
+	cases := []struct {
+		name  string
+		test  ship.HullTest
+		want  string
+		class error
+	}{
+		{"unset tank", noTank, "ship: hull extrapolation: HullTest.Tank is not set: give the tank water's state, e.g. fluids.FreshWater().AtCelsius(15)", q.ErrInvalid},
+		{"unset sea", noSea, "ship: hull extrapolation: HullTest.Sea is not set: give the sea water's state, e.g. fluids.SeaWater().AtCelsius(15)", q.ErrInvalid},
+		{"resistance in kg", kg, "ship: hull extrapolation: resistance 1: want force", q.ErrDimension},
+	}
+	for _, c := range cases {
+		_, err := ship.ExtrapolateHull(c.test)
+		if err == nil || !strings.HasPrefix(err.Error(), c.want) || !errors.As(err, new(*ship.Error)) {
+			t.Errorf("%s: %v, want an *ship.Error beginning %q", c.name, err, c.want)
+			continue
+		}
+		n := 0
+		for _, cl := range []error{q.ErrDimension, q.ErrRange, q.ErrParse, q.ErrUnknown, q.ErrInvalid} {
+			if errors.Is(err, cl) {
+				n++
+			}
+		}
+		if !errors.Is(err, c.class) || n != 1 {
+			t.Errorf("%s: %v: want class %v alone", c.name, err, c.class)
+		}
+	}
+	if _, err := ship.ExtrapolateHull(base); err != nil {
+		t.Errorf("the complete test: %v", err)
+	}
+	const want = "ship: ITTC-1978 prediction: PoweringInput.Tank is not set: give the tank water's state"
+	if _, err := ship.ITTC1978(ship.PoweringInput{Scale: 1.0 / 16, Sea: sea}); err == nil || !strings.HasPrefix(err.Error(), want) || !errors.Is(err, q.ErrInvalid) {
+		t.Errorf("ITTC-1978 with no tank water: %v, want %q", err, want)
+	}
+}

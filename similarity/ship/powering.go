@@ -44,7 +44,8 @@ type PoweringInput struct {
 	// ModelLength (waterline), ModelWettedArea, ModelSpeed and
 	// ModelResistance are the resistance test's at this speed.
 	ModelLength, ModelWettedArea, ModelSpeed, ModelResistance quantity.Quantity
-	// Tank and Sea are the waters' states (density, kinematic viscosity).
+	// Tank and Sea are the waters' states (density, kinematic viscosity),
+	// both required: a zero State is refused, the field named.
 	Tank, Sea fluids.State
 	// FormFactor is 1 + k, required (1 … 2; 1 for none). Zero is refused:
 	// the prediction has no default form factor.
@@ -206,7 +207,10 @@ func ITTC1978(in PoweringInput) (PoweringResult, error) {
 	if !(in.Scale > 0 && in.Scale < 1) {
 		return PoweringResult{}, m(fmt.Sprintf("scale %v: want model/ship between 0 and 1", in.Scale))
 	}
-	if err := fail("ITTC-1978 prediction", similarity.CheckInputs(true,
+	if err := watersSet("ITTC-1978 prediction", "PoweringInput", in.Tank, in.Sea); err != nil {
+		return PoweringResult{}, err
+	}
+	if err := failNamed("ITTC-1978 prediction", similarity.CheckInputs(true,
 		similarity.Input{Name: "model length", Value: in.ModelLength, Dim: quantity.Length},
 		similarity.Input{Name: "model wetted area", Value: in.ModelWettedArea, Dim: quantity.Area},
 		similarity.Input{Name: "model speed", Value: in.ModelSpeed, Dim: quantity.Velocity},

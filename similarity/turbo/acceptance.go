@@ -3,6 +3,7 @@ package turbo
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
@@ -149,10 +150,19 @@ type Verdict struct {
 
 	// Met is the verdict: every guaranteed quantity within its tolerance.
 	Met bool
-	// Notes says what the numbers above do not: a bar partly outside the
-	// tested range, a small pump whose grade tolerances are wider.
+	// Notes says what the numbers above do not: first, always,
+	// ProvisionalNote; then a bar partly outside the tested range, a
+	// small pump whose grade tolerances are wider.
 	Notes []string
+	// Caution is PumpCaution.
+	Caution string
 }
+
+// ProvisionalNote is the first of every Verdict's Notes: the tolerance
+// factors of Grade.Tolerance and the test-speed band of ReducePoints are
+// quoted from memory.
+const ProvisionalNote = "PROVISIONAL: the verdict rests on tolerance factors and a test-speed band quoted from memory; " +
+	"check them against ISO 9906:2012 Table 8 (and the contract, which may set its own) before a pump is accepted or rejected on it"
 
 // CheckGuarantee judges the guarantee point g against the grade, on the
 // curves fitted to the test points reduced to the specified speed, by the
@@ -206,7 +216,7 @@ func CheckGuarantee(c PumpCurves, g Guarantee, grade Grade) (Verdict, error) {
 		return Verdict{}, &Error{Op: op, Fault: similarity.Invalid("guarantee efficiency", fmt.Sprintf("guarantee efficiency %.4g: want 0 (not guaranteed) to 1", g.Efficiency))}
 	}
 	qg, hg := g.Flow.Value(), g.Head.Value()
-	v := Verdict{Grade: grade, Tolerance: t,
+	v := Verdict{Grade: grade, Tolerance: t, Notes: []string{ProvisionalNote}, Caution: PumpCaution,
 		HeadBar: [2]float64{hg * (1 - t.HeadMinus), hg * (1 + t.HeadPlus)},
 		FlowBar: [2]float64{qg * (1 - t.FlowMinus), qg * (1 + t.FlowPlus)},
 	}
@@ -321,4 +331,85 @@ func rootNearest(f func(float64) float64, lo, hi, x0 float64) (float64, bool) {
 		a, fa = b, fb
 	}
 	return best, found
+}
+
+// String returns v.Table(false).
+func (v Verdict) String() string { return v.Table(false) }
+
+// Table writes the verdict as a test report presents it: a line with the
+// grade, its tolerance factors and the verdict, marked PROVISIONAL; one
+// row per check (the head at Q_G on the vertical bar, the flow at H_G on
+// the horizontal bar, and the efficiency and power at Q_X where they are
+// guaranteed) with the fitted value, the tolerance and whether it is met,
+// flows in m³/s, heads in m and powers in kW to four significant
+// figures; then the notes and the caution. Markdown if md is set.
+func (v Verdict) Table(md bool) string {
+	t := v.Tolerance
+	yes := func(b bool) string {
+		if b {
+			return "yes"
+		}
+		return "NO"
+	}
+	band := func(minus, plus float64) string {
+		switch minus {
+		case plus:
+			return fmt.Sprintf("±%.3g %%", 100*plus)
+		case 0:
+			return fmt.Sprintf("+%.3g %%", 100*plus)
+		}
+		return fmt.Sprintf("−%.3g/+%.3g %%", 100*minus, 100*plus)
+	}
+	verdict := "NOT MET"
+	if v.Met {
+		verdict = "MET"
+	}
+	var sb strings.Builder
+	teta := "0 %"
+	if t.EfficiencyMinus != 0 {
+		teta = fmt.Sprintf("−%.3g %%", 100*t.EfficiencyMinus)
+	}
+	fmt.Fprintf(&sb, "Acceptance check, grade %v (t_Q %s, t_H %s, t_P +%.3g %%, t_η %s): %s, PROVISIONAL\n",
+		v.Grade, band(t.FlowMinus, t.FlowPlus), band(t.HeadMinus, t.HeadPlus), 100*t.PowerPlus, teta, verdict)
+	if md {
+		sb.WriteString("\n")
+	}
+	horiz := []string{"Q at H_G (horizontal bar)", "none in the bar", fmt.Sprintf("%.4g … %.4g m³/s", v.FlowBar[0], v.FlowBar[1]), yes(v.MeetsHorizontal)}
+	switch {
+	case v.MeetsHorizontal:
+		horiz[1] = fmt.Sprintf("%.4g m³/s", v.FlowAtGuaranteeHead)
+	case v.HeadCrossed:
+		horiz[1] = fmt.Sprintf("%.4g m³/s (outside)", v.HeadCrossing)
+	}
+	rows := [][]string{
+		{"H at Q_G (vertical bar)", fmt.Sprintf("%.4g m", v.HeadAtGuaranteeFlow.Y), fmt.Sprintf("%.4g … %.4g m", v.HeadBar[0], v.HeadBar[1]), yes(v.MeetsVertical)},
+		horiz,
+	}
+	if v.EfficiencyJudged || v.PowerJudged {
+		at := fmt.Sprintf(" at Q_X = %.4g m³/s", v.Intersection[0])
+		if v.EfficiencyJudged {
+			rows = append(rows, []string{"η" + at, fmt.Sprintf("%.4f", v.EfficiencyAt.Y), fmt.Sprintf("≥ %.4f", v.EfficiencyMin), yes(v.EfficiencyMet)})
+		}
+		if v.PowerJudged {
+			rows = append(rows, []string{"P" + at, fmt.Sprintf("%.4g kW", v.PowerAt.Y/1e3), fmt.Sprintf("≤ %.4g kW", v.PowerMax/1e3), yes(v.PowerMet)})
+		}
+	}
+	for _, l := range strings.SplitAfter(similarity.FormatTable([]string{"check", "fitted", "tolerance", "met"}, rows, md, false), "\n") {
+		if l != "" {
+			sb.WriteString(strings.TrimRight(l, " \n") + "\n") // no padding after the last column
+		}
+	}
+	for _, n := range v.Notes {
+		if strings.HasPrefix(n, "PROVISIONAL") {
+			sb.WriteString(n + "\n")
+			continue
+		}
+		sb.WriteString("NOTE: " + n + "\n")
+	}
+	c := v.Caution
+	if c == "" {
+		c = PumpCaution
+	}
+	sb.WriteString("CAUTION: " + c + "\n")
+	return sb.String()
 }

@@ -22,7 +22,9 @@ type Affinity struct {
 
 // AffinityScales are the model/prototype ratios the affinity laws take,
 // by name so that one cannot be given for another. Each must be positive
-// and finite; Density is 1 for the same fluid.
+// and finite, and each is required: a ratio left zero is not taken as 1
+// but refused, the error naming the field and the value that means
+// "the same" (Density: 1 for the same fluid).
 type AffinityScales struct {
 	RotationalSpeed float64 // λ_N, the ratio of shaft speeds
 	Diameter        float64 // λ_D, the ratio of impeller or rotor diameters
@@ -33,8 +35,29 @@ type AffinityScales struct {
 // rotational speed, diameter and density ratios of sc, from the held coefficients solved exactly (Q/(ND³),
 // gH/(N²D²), P/(ρN³D⁵)), over the variables Q (volume flow rate), gH
 // (specific energy), P (power), N (rotational speed), D (diameter) and
-// rho (density). Efficiency is taken equal; see MoodyStepUp.
+// rho (density). Efficiency is taken equal, so Power is the power ratio
+// at equal efficiency.
+//
+// A prototype point with an efficiency step-up is found thus (and
+// PrototypePointOf does it): the flow and head keep their affinity
+// values, Q_P = Q_M/Flow and H_P = H_M/Head; the efficiency is stepped up
+// by one of the formulas (MoodyStepUp, IECStepUp, AckeretStepUp,
+// FanStepUp) to η_P; and the power input is computed from them,
+// P_P = ρ_P·g·Q_P·H_P/η_P, not divided by Power. See PumpCaution.
 func AffinityLaws(sc AffinityScales) (Affinity, error) {
+	for _, r := range [...]struct {
+		field, input, same string
+		v                  float64
+	}{
+		{"RotationalSpeed", "rotational speed", "n_m/n_p: 1 for the same speed", sc.RotationalSpeed},
+		{"Diameter", "diameter", "D_m/D_p: 1 for the same size", sc.Diameter},
+		{"Density", "density", "ρ_m/ρ_p: 1 for the same fluid", sc.Density},
+	} {
+		if r.v == 0 {
+			return Affinity{}, &Error{Op: "affinity laws", Fault: similarity.Invalid(r.input,
+				"AffinityScales."+r.field+" is not set (0): give the model/prototype "+r.input+" ratio "+r.same)}
+		}
+	}
 	if err := fail("affinity laws", similarity.CheckRatios(
 		similarity.Result{Name: "rotational speed", Value: sc.RotationalSpeed},
 		similarity.Result{Name: "diameter", Value: sc.Diameter},

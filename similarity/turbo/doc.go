@@ -2,10 +2,14 @@
 // performance from a model to a prototype, in the order of the procedure.
 // Every ratio is model/prototype; model and prototype values that could
 // be swapped come in named pairs (ReynoldsNumbers, Diameters,
-// AffinityScales). Every result carries PumpCaution: guaranteed
+// AffinityScales). PumpCaution goes with every result: guaranteed
 // performance comes from the acceptance test to the applicable standard,
 // and the installation is designed to the local codes and checked by
-// licensed engineers.
+// licensed engineers. PrototypePoint and Verdict carry it in their
+// Caution field (and Verdict.Table prints it); the other results (the
+// ratios of Affinity, the efficiencies of the step-up functions and of
+// StepUp, SpecificSpeeds, NPSH, the Thoma number, ReducedPoint,
+// PumpCurves, NPSH3Result) are bare values: print PumpCaution with them.
 //
 //  1. Reduce the test points. ReducePoints translates each measured
 //     point (flow, head, power input, speed: TestPoint) to the specified
@@ -26,7 +30,8 @@
 //  4. Carry to the prototype: affinity laws. AffinityLaws gives the flow,
 //     head, power, torque and pressure ratios for a rotational-speed,
 //     diameter and density ratio, solved exactly from the held flow, head
-//     and power coefficients; efficiency is taken equal.
+//     and power coefficients; efficiency is taken equal (so the power
+//     ratio holds at equal efficiency only).
 //  5. Efficiency step-up. The efficiency is not equal: IECStepUp and
 //     IECCurve follow the scalable-loss formula of IEC 60193 (its scope,
 //     from memory: the hydraulic efficiency of turbines, storage pumps
@@ -38,7 +43,11 @@
 //     the best-efficiency point or at each point (StepUpMethod); FanStepUp
 //     and FanCurve the fan standards' conversion between sizes (half
 //     Ackeret's gain for a larger fan, the full loss for a smaller). Each
-//     returns the prototype efficiency and the gain applied.
+//     returns the prototype efficiency and the gain applied. The
+//     prototype point is then: Q_P = Q_M/λ_Q and H_P = H_M/λ_H (the
+//     affinity values, unchanged by the step-up), η_P from the step-up,
+//     and P_P = ρ_P·g·Q_P·H_P/η_P; PrototypePointOf returns the four with
+//     the step-up named.
 //  6. Specific speed. SpecificSpeedOf gives n_q (metric), N_s (US) and
 //     the dimensionless Ω_s at the best-efficiency point;
 //     SpecificSpeedMetric, SpecificSpeedUS and SpecificSpeedDimensionless
@@ -59,7 +68,9 @@
 //     Q–H curve must be within its tolerance. The factors and the speed
 //     band are quoted from memory, so a verdict is provisional: check them
 //     against ISO 9906:2012 Table 8 and the contract before a pump is
-//     accepted or rejected on it.
+//     accepted or rejected on it. Every Verdict says so itself, its first
+//     note being ProvisionalNote, and Verdict.Table prints the checks,
+//     the notes and the caution.
 //
 // Every error is a *Error naming the procedure and the input, of one
 // class among quantity.ErrDimension, ErrRange and ErrInvalid, with its

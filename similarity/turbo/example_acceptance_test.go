@@ -42,11 +42,19 @@ func ExampleCheckGuarantee() {
 	fmt.Printf("H(Q_G) = %.2f m, bar %.2f … %.2f m: %v\n", v.HeadAtGuaranteeFlow.Y, v.HeadBar[0], v.HeadBar[1], v.MeetsVertical)
 	fmt.Printf("η at Q_X = %.1f L/s: %.3f ≥ %.3f: %v\n", 1e3*v.Intersection[0], v.EfficiencyAt.Y, v.EfficiencyMin, v.EfficiencyMet)
 	fmt.Println("grade", v.Grade, "met:", v.Met)
+	fmt.Print(v.Table(false))
 	// Output:
 	// Q–H order 2, Q–η order 3
 	// H(Q_G) = 38.61 m, bar 37.05 … 40.95 m: true
 	// η at Q_X = 99.3 L/s: 0.800 ≥ 0.760: true
 	// grade 2B met: true
+	// Acceptance check, grade 2B (t_Q ±8 %, t_H ±5 %, t_P +8 %, t_η −5 %): MET, PROVISIONAL
+	// check                      fitted        tolerance           met
+	// H at Q_G (vertical bar)    38.61 m       37.05 … 40.95 m     yes
+	// Q at H_G (horizontal bar)  0.09772 m³/s  0.092 … 0.108 m³/s  yes
+	// η at Q_X = 0.09931 m³/s    0.8001        ≥ 0.7600            yes
+	// PROVISIONAL: the verdict rests on tolerance factors and a test-speed band quoted from memory; check them against ISO 9906:2012 Table 8 (and the contract, which may set its own) before a pump is accepted or rejected on it
+	// CAUTION: Pump and turbine performance scaled from a model test is an estimate subject to scale effects; guaranteed performance comes from the acceptance test to the applicable standard (ISO 9906, IEC 60193), and the installation, its suction conditions and its pressure parts are designed to the applicable local codes and checked by licensed engineers.
 }
 
 // NPSH3 from a suction series at constant flow: the head at high NPSHA

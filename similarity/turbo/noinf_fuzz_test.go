@@ -56,5 +56,10 @@ func FuzzTurbo(f *testing.F) {
 			ss, err := conv(d)
 			finite(name, err, ss.Metric, ss.US, ss.Dimensionless)
 		}
+		pp, err := turbo.PrototypePointOf(turbo.PrototypeInput{Affinity: turbo.Affinity{Flow: b, Head: c},
+			Model:   turbo.ModelPoint{Flow: q.New(d, q.VolumeFlowRate), Head: q.New(h, q.Length), Efficiency: a},
+			StepUp:  turbo.StepUpApplied{Method: "fuzzed", Efficiency: math.Abs(v)},
+			Density: q.New(k, q.Density), Gravity: q.New(e, q.Acceleration)})
+		finite("PrototypePointOf", err, pp.Flow.Value(), pp.Head.Value(), pp.Power.Value(), pp.Efficiency, pp.Gain)
 	})
 }

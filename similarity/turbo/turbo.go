@@ -9,8 +9,10 @@ import (
 )
 
 // PumpCaution accompanies every pump or turbine result carried from a
-// model to a prototype (step-ups, NPSH and Thoma number, specific speed):
-// print it with them.
+// model to a prototype (step-ups, NPSH and Thoma number, specific speed)
+// and every acceptance verdict. PrototypePoint and Verdict carry it in
+// their Caution field; with the bare values the other functions return,
+// print it yourself.
 const PumpCaution = "Pump and turbine performance scaled from a model test is an estimate subject to scale effects; " +
 	"guaranteed performance comes from the acceptance test to the applicable standard (ISO 9906, IEC 60193), and the " +
 	"installation, its suction conditions and its pressure parts are designed to the applicable local codes and checked by licensed engineers."
@@ -277,13 +279,26 @@ func SuctionPressureFor(sigma float64, head quantity.Quantity, vapour, density, 
 // per eye): the dimensionless Ω_s = ω·Q^½/(gH)^¾ with ω in rad/s, the
 // metric n_q = n·Q^½/H^¾ with n in rpm, Q in m³/s and H in m, and the US
 // N_s = n·Q^½/H^¾ with n in rpm, Q in US gallons per minute and H in feet.
+//
+// The fields are bare numbers because a specific speed's "unit" is a
+// convention, not a unit a value can carry; String prints each with its
+// convention.
 type SpecificSpeeds struct {
-	// Dimensionless is Ω_s (dimensionless, ω in rad/s).
+	// Dimensionless is Ω_s = ω·Q^½/(gH)^¾ (dimensionless, ω in rad/s, Q in m³/s, gH in J/kg).
 	Dimensionless float64
-	// Metric is n_q (rpm, m³/s, m).
+	// Metric is n_q = n·Q^½/H^¾ (rpm, m³/s, m), with n in rpm, Q in m³/s and H in m.
 	Metric float64
-	// US is N_s (rpm, US gpm, ft).
+	// US is N_s = n·Q^½/H^¾ (rpm, US gpm, ft), with n in rpm, Q in US gallons per minute and H in feet.
 	US float64
+}
+
+// String prints the three specific speeds to four significant figures,
+// each with its convention:
+//
+//	n_q = 28.83 (n in rpm, Q in m³/s, H in m); N_s = 1489 (n in rpm, Q in US gpm, H in ft); Ω_s = 0.5448 (dimensionless: ω in rad/s, Q in m³/s, gH in J/kg)
+func (s SpecificSpeeds) String() string {
+	return fmt.Sprintf("n_q = %.4g (n in rpm, Q in m³/s, H in m); N_s = %.4g (n in rpm, Q in US gpm, H in ft); Ω_s = %.4g (dimensionless: ω in rad/s, Q in m³/s, gH in J/kg)",
+		s.Metric, s.US, s.Dimensionless)
 }
 
 // Exact factors between the conventions: 1 US gallon = 3.785411784 L,
