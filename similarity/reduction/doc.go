@@ -38,6 +38,12 @@
 // its own result, the row-by-row reduction), Runs of a label channel
 // (the run number a carriage logs), Spans of a time channel, or Detected
 // steady windows by a stated moving-window criterion (steady.Detect).
+// Every channel the spec reads must hold numbers: a text column (a
+// chanfile.Label, as a run tag "Lauf 1" or an operator's note) named as
+// the run label, a variable or any other channel is refused before any
+// row is read, with an *Error of Op "plan" naming the column; a run
+// label must be logged as a number. A text column the spec does not
+// name is never read.
 // AllRows, Runs and Spans read the file once in bounded memory: the
 // windows of Runs and Spans (and of a zero of either kind) are found row
 // by row, each window's statistics are computed as soon as its last row
