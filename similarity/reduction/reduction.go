@@ -824,7 +824,7 @@ func (r *run) finishPoints(ws []window, reduce func(window) (steady.Point, error
 			return r.stepErr(w.tag, err)
 		}
 		if zero != nil {
-			if p, err = steady.Tare(p, *zero); err != nil {
+			if p, err = steady.Tare(p, *zero, s.Tare...); err != nil {
 				return r.stepErr(w.tag, err)
 			}
 		}
