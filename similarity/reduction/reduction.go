@@ -56,6 +56,12 @@ type Spec struct {
 	// gives a zero file instead. The zero's mean is subtracted from the
 	// channels of Tare at each point.
 	Zero *Points
+	// Tare names the channels the zero is subtracted from: those whose
+	// transducers read an offset at rest (a force, a torque, a pressure
+	// difference). A temperature must not be tared: an absolute
+	// temperature has no offset, and a zero subtracted from it leaves a
+	// meaningless difference; the zero is reduced over these channels
+	// only, and every other channel keeps its value untared.
 	Tare []string
 	// Calibrations are applied to their channels.
 	Calibrations []Calibration
