@@ -6,6 +6,39 @@
 // the channel-file layer and reduces with packages steady, formula and
 // pigroups, knowing no file format of its own.
 //
+// A harness reduces a towing-carriage log — a run number (0 at rest and
+// between runs), the time t, the speed V, the resistance F and the water
+// temperature T_w — to the drag groups of each run with their
+// uncertainty in these steps (each err to be checked):
+//
+//	problem, err := pigroups.NewProblem(
+//		pigroups.Variable{Symbol: "F", Dim: quantity.Force, Role: pigroups.Dependent},
+//		pigroups.Variable{Symbol: "rho", Dim: quantity.Density},
+//		pigroups.Variable{Symbol: "V", Dim: quantity.Velocity},
+//		pigroups.Variable{Symbol: "L", Dim: quantity.Length},
+//		pigroups.Variable{Symbol: "nu", Dim: quantity.KinematicViscosity},
+//	)
+//	set, err := problem.PiSet("rho", "V", "L") // the repeating variables
+//	rest := steady.Span{From: quantity.New(0.5, quantity.Time), To: quantity.New(2, quantity.Time)}
+//	zero := reduction.Spans("t", rest) // the carriage at rest: the zero
+//	spec := &reduction.Spec{
+//		Derive: "rho = rho_water(T_w); nu = nu_water(T_w); L = 2 {m}",
+//		Funcs:  fluids.FormulaFuncs(),
+//		Points: reduction.Runs("run", 200, 0), // runs of 200 samples or more, but not label 0
+//		Zero:   &zero,
+//		Tare:   []string{"F"}, // the channels to tare: never a temperature
+//		Also:   []string{"T_w"},
+//		Set:    set.WithConventional(), // Re, C_T, … where a group is one
+//	}
+//	res, err := spec.Reduce(reduction.File("carriage.csv", reduction.FileOptions{}))
+//	for _, p := range res.Points {
+//		f, _ := p.Value("F") // f.Mean: the tared resistance with its uncertainty
+//		for g, m := range p.Groups {
+//			fmt.Println(p.Tag, f.Mean, res.Groups[g].Column, m) // "run 1 … Re …"
+//		}
+//	}
+//	err = reduction.SavePoints(filepath.Join(dir, "points.csv"), res, reduction.WriteOptions{})
+//
 // The procedure, in order, as Spec.Reduce runs it on one file:
 //
 // 1. Read the channels. An Input gives a chanfile.Source: a CSV or TSV
@@ -38,6 +71,12 @@
 // its own result, the row-by-row reduction), Runs of a label channel
 // (the run number a carriage logs), Spans of a time channel, or Detected
 // steady windows by a stated moving-window criterion (steady.Detect).
+// Every channel the spec reads must hold numbers: a text column (a
+// chanfile.Label, as a run tag "Lauf 1" or an operator's note) named as
+// the run label, a variable or any other channel is refused before any
+// row is read, with an *Error of Op "plan" naming the column; a run
+// label must be logged as a number. A text column the spec does not
+// name is never read.
 // AllRows, Runs and Spans read the file once in bounded memory: the
 // windows of Runs and Spans (and of a zero of either kind) are found row
 // by row, each window's statistics are computed as soon as its last row

@@ -52,19 +52,27 @@ func AllRows() Points { return Points{} }
 // Runs makes each run of equal value of the label channel a point (a run
 // number logged by the carriage), dropping the runs whose label is one of
 // except (0 for "between runs") and those shorter than minLen samples.
-// A point is tagged "run <label>".
+// A point is tagged "run <label>". The label channel must hold numbers:
+// a column of text run tags ("Lauf 1", a chanfile.Label column) is
+// refused by Reduce with an *Error of Op "plan" naming the column; log
+// the run number as a number, or find the points with Spans or Detected.
 func Runs(label string, minLen int, except ...float64) Points {
 	return Points{kind: labelRuns, channel: label, minLen: minLen, except: slices.Clone(except)}
 }
 
 // Run makes the run (or runs) of the label channel whose label is one of
 // labels the points: a zero window logged under its own label, say.
+// Reduce refuses a Run with no label given, and, as for Runs, a label
+// channel of text.
 func Run(label string, minLen int, labels ...float64) Points {
-	return Points{kind: labelRuns, channel: label, minLen: minLen, only: slices.Clone(labels)}
+	// Never nil: a Run with no label is refused by Reduce, not taken for
+	// Runs.
+	return Points{kind: labelRuns, channel: label, minLen: minLen, only: append([]float64{}, labels...)}
 }
 
 // Spans makes each time span of the time channel a point, tagged
-// "span 1", "span 2", … (see steady.TimeWindows).
+// "span 1", "span 2", … (see steady.TimeWindows). Reduce refuses Spans
+// with no span given.
 func Spans(time string, spans ...steady.Span) Points {
 	return Points{kind: timeSpans, channel: time, spans: slices.Clone(spans)}
 }
@@ -88,6 +96,18 @@ func (p Points) String() string {
 		return "detected steady windows"
 	}
 	return "all rows"
+}
+
+// check refuses a mode that can find no point whatever the file holds:
+// Spans with no span, Run with no label. what is "points" or "zero".
+func (p Points) check(what string) *Error {
+	switch {
+	case p.kind == timeSpans && len(p.spans) == 0:
+		return &Error{Op: "plan", Channel: p.channel, Reason: what + ": Spans of " + p.channel + " with no spans given: give at least one steady.Span"}
+	case p.kind == labelRuns && p.only != nil && len(p.only) == 0:
+		return &Error{Op: "plan", Channel: p.channel, Reason: what + ": Run of " + p.channel + " with no labels given: give the labels of the runs wanted, or use Runs for every run"}
+	}
+	return nil
 }
 
 // channels returns the channels the mode reads.

@@ -56,6 +56,12 @@ type Spec struct {
 	// gives a zero file instead. The zero's mean is subtracted from the
 	// channels of Tare at each point.
 	Zero *Points
+	// Tare names the channels the zero is subtracted from: those whose
+	// transducers read an offset at rest (a force, a torque, a pressure
+	// difference). A temperature must not be tared: an absolute
+	// temperature has no offset, and a zero subtracted from it leaves a
+	// meaningless difference; the zero is reduced over these channels
+	// only, and every other channel keeps its value untared.
 	Tare []string
 	// Calibrations are applied to their channels.
 	Calibrations []Calibration
@@ -359,6 +365,19 @@ func (r *run) plan(src chanfile.Source) error {
 			want[v.Symbol] = true
 		}
 	}
+	if err := s.Points.check("points"); err != nil {
+		return r.fail(0, err)
+	}
+	if s.Zero != nil {
+		if err := s.Zero.check("zero"); err != nil {
+			return r.fail(0, err)
+		}
+	}
+	for _, c := range cols {
+		if want[c.Name] && c.Kind == chanfile.Label && c.Fault == nil {
+			return r.fail(0, &Error{Channel: c.Name, Reason: textReason(s, c.Name)})
+		}
+	}
 	var idx []int
 	r.idx = map[string]int{}
 	for i, c := range cols { // file order
@@ -386,8 +405,20 @@ func (r *run) plan(src chanfile.Source) error {
 	return r.bind(cols, byName)
 }
 
-// dimOf returns the dimension of a column as the derived channels see
-// it: a sample-calibrated channel in its engineering unit.
+// textReason says why a text (label) column the spec reads is refused,
+// and what to do instead.
+func textReason(s *Spec, name string) string {
+	runs := func(p *Points) bool { return p != nil && p.kind == labelRuns && p.channel == name }
+	if runs(&s.Points) || runs(s.Zero) {
+		return "a column of text is the run label: Runs and Run need a numeric run label " +
+			"(log the run number as a number, or write a numeric column of it), " +
+			"or find the points with Spans of the time channel or Detected"
+	}
+	return "a column of text, which the spec reads as numbers (as a variable, a derived " +
+		"channel's input, a tared, calibrated or Also channel, or the time or steadiness " +
+		"channel of the points): leave it out of the spec"
+}
+
 // reduced returns the channels reduced at each point, each once, of
 // those has knows: the variables', the derived ones, the tared and
 // calibrated ones and Also.
@@ -410,6 +441,8 @@ func (r *run) reduced(has func(string) bool) []string {
 	return reduce
 }
 
+// dimOf returns the dimension of a column as the derived channels see
+// it: a sample-calibrated channel in its engineering unit.
 func (r *run) dimOf(c chanfile.Column) quantity.Dim {
 	if cal, ok := r.cals[c.Name]; ok && cal.Samples {
 		return cal.Cal.Eng.Dim()
@@ -797,7 +830,7 @@ func (r *run) finishPoints(ws []window, reduce func(window) (steady.Point, error
 			return r.stepErr(w.tag, err)
 		}
 		if zero != nil {
-			if p, err = steady.Tare(p, *zero); err != nil {
+			if p, err = steady.Tare(p, *zero, s.Tare...); err != nil {
 				return r.stepErr(w.tag, err)
 			}
 		}

@@ -160,6 +160,8 @@ func (t *tracker) finish(rows int) error {
 		if j-i < steady.MinSamples {
 			return &steady.Error{Op: opTime, Row: -1, Reason: fmt.Sprintf("span %d: from %v to %v: %d samples, want at least %d", k+1, s.From, s.To, max(j-i, 0), steady.MinSamples)}
 		}
+		// A span that runs to the last row closes here: ready returns it.
+		t.start[k], t.end[k] = i, j
 		t.wins = append(t.wins, window{Window: steady.Window{Start: i, End: j}, tag: "span " + strconv.Itoa(k+1)})
 	}
 	return nil
@@ -427,6 +429,12 @@ func pointOf(set *uncertain.Set, tag string, w steady.Window, names []string, di
 		}
 		if ws.err != nil && k == firstBad(ws) {
 			return steady.Point{}, ws.err
+		}
+		if k >= len(ws.stats) {
+			// Every window is summarized before its point is made; a
+			// window that was not is a fault of this package, reported
+			// rather than a panic.
+			return steady.Point{}, &steady.Error{Op: op, Channel: name, Row: -1, Reason: fmt.Sprintf("window [%d, %d) was not summarized", w.Start, w.End)}
 		}
 		st := ws.stats[k]
 		src := uncertain.Source{

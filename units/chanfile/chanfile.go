@@ -25,6 +25,12 @@ const MaxFieldLen = 1024
 
 // Column is one channel of a file: its name, its unit as read and the
 // readings the dialect made of the unit text.
+//
+// Unit is the unit the values are read in; Unit.String spells it in the
+// module's ASCII notation (a header written "°C" prints "degC", "m3/h"
+// prints "m^3/h"), and Text keeps the unit as the header wrote it. The
+// Unit of a Timestamp column is s; that of a Label column is 1 (units.One)
+// and means nothing: its Kind says the column holds text.
 type Column struct {
 	Name     string
 	Unit     units.Unit
@@ -76,16 +82,28 @@ type Error struct {
 	class  error // the class when Err has none; nil means quantity.ErrParse
 }
 
-// Error implements the error interface: "loop.csv:14:3: …".
+// Error implements the error interface: "loop.csv:14:3: …" for a
+// line and column, "loop.csv: column 3: …" for a column with no line
+// and "loop.csv: …" for the whole file or an argument (a line 0 is not
+// printed).
 func (e *Error) Error() string {
 	var sb strings.Builder
 	sb.WriteString("chanfile: ")
-	if e.File != "" || e.Line > 0 {
+	switch {
+	case e.Line > 0:
 		fmt.Fprintf(&sb, "%s:%d", e.File, e.Line)
 		if e.Column > 0 {
 			fmt.Fprintf(&sb, ":%d", e.Column)
 		}
 		sb.WriteString(": ")
+	case e.File != "":
+		sb.WriteString(e.File)
+		if e.Column > 0 {
+			fmt.Fprintf(&sb, ": column %d", e.Column)
+		}
+		sb.WriteString(": ")
+	case e.Column > 0:
+		fmt.Fprintf(&sb, "column %d: ", e.Column)
 	}
 	if e.Field != "" {
 		fmt.Fprintf(&sb, "%q: ", e.Field)

@@ -74,8 +74,19 @@
 // ReadAll reads a file small enough to hold in memory whole (a steady
 // test of a few minutes, a zero file) into one Series per column and the
 // text of its label columns, refusing a file of more rows than the bound
-// it is given; its Whole feeds package steady directly (steady.Runs,
-// steady.TimeWindows, steady.Points; see the fromFile example there).
+// it is given. Whole.Channel gives a column of numbers by name for
+// package steady (steady.Runs, steady.TimeWindows, steady.Channel) and
+// refuses a text column, whose Series is empty; the text of a run tag
+// logged as text is in Whole.Labels, and steady.TextRuns finds its runs:
+//
+//	f, err := os.Open("rig.csv")
+//	// handle err; defer f.Close()
+//	r, err := chanfile.NewReader(f, "rig.csv", chanfile.Options{})
+//	w, err := chanfile.ReadAll(r, 1_000_000) // refuses a longer file
+//	q, err := w.Channel("Q")                 // numbers, in SI (m³/s)
+//	runs := steady.TextRuns(w.Labels[w.Index("Bemerkung")]) // a text run tag
+//
+// The package doc of steady carries this on to the steady points.
 // Package similarity/reduction runs the whole pipeline of a test on any
 // Source — choosing the columns, finding and reducing the steady points
 // in bounded memory, the zero, the calibrations and the dimensionless

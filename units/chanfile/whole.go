@@ -37,6 +37,30 @@ func (w Whole) Index(name string) int {
 	return -1
 }
 
+// Channel returns the values of the channel name, in SI, for package
+// steady (steady.Runs, steady.Channel.Data, steady.TimeWindows). It
+// refuses, with an *Error of class quantity.ErrInvalid naming the
+// channel, a name no column has and a column that holds no numbers: a
+// text (Label) column, whose text is in Labels (steady.TextRuns finds
+// its runs), and a column a Selector was told not to read. A column
+// that could not be read returns its Column.Fault.
+func (w Whole) Channel(name string) (quantity.Series, error) {
+	k := w.Index(name)
+	if k < 0 {
+		return quantity.Series{}, &Error{Reason: fmt.Sprintf("Whole.Channel: no channel %q", name), class: quantity.ErrInvalid}
+	}
+	c := w.Columns[k]
+	switch {
+	case c.Fault != nil:
+		return quantity.Series{}, c.Fault
+	case c.Kind == Label:
+		return quantity.Series{}, &Error{Column: c.Index, Reason: fmt.Sprintf("Whole.Channel: %q is a column of text: its text is in Whole.Labels (steady.TextRuns finds the runs of a text run tag)", name), class: quantity.ErrInvalid}
+	case k >= len(w.Series) || w.Series[k].Len() != w.Rows:
+		return quantity.Series{}, &Error{Column: c.Index, Reason: fmt.Sprintf("Whole.Channel: %q was not read (not selected)", name), class: quantity.ErrInvalid}
+	}
+	return w.Series[k], nil
+}
+
 // labeler is a Source that gives the text of its Label columns, as
 // *Reader and the Parquet reader of package parquetfile do.
 type labeler interface {

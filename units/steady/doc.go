@@ -6,16 +6,42 @@
 // channels come from a reader such as package chanfile.
 //
 // A log small enough to hold in memory is read whole with
-// chanfile.ReadAll, whose Series go straight into Runs, TimeWindows and
-// Points (see the fromFile example):
+// chanfile.ReadAll; its numeric channels (chanfile.Whole.Channel) go
+// into Runs, TimeWindows and Points. The steps, for a carriage log with
+// a run number (0 at rest and between runs, 9 for the zero), a speed V
+// and a force F (errors to be checked at each step):
 //
-//	w, err := chanfile.ReadAll(r, 1_000_000) // r: a *chanfile.Reader
-//	var ws []steady.Window
-//	for _, run := range steady.Runs(w.Series[w.Index("run")]) {
-//		ws = append(ws, run.Window)
+//	f, err := os.Open("carriage.csv")
+//	r, err := chanfile.NewReader(f, "carriage.csv", chanfile.Options{})
+//	w, err := chanfile.ReadAll(r, 1_000_000) // the whole file, at most 10⁶ rows
+//	run, err := w.Channel("run") // a column of numbers; text tags: TextRuns(w.Labels[k])
+//	v, err := w.Channel("V")
+//	fx, err := w.Channel("F")
+//	var ws []steady.Window // the points' windows
+//	var zw steady.Window   // the zero's
+//	for _, r := range steady.Runs(run) { // Runs drops nothing: choose here
+//		switch {
+//		case r.Label == 9:
+//			zw = r.Window
+//		case r.Label == 0 || r.Len() < 200: // between runs, or too short
+//		default:
+//			ws = append(ws, r.Window)
+//		}
 //	}
-//	chs := []steady.Channel{{Name: "V", Data: w.Series[w.Index("V")], DriftLimit: lim}}
-//	pts, err := steady.Points(set, chs, ws)
+//	set := uncertain.NewSet() // holds the sources of every point
+//	chs := []steady.Channel{ // a point drifting beyond the limit is flagged
+//		{Name: "V", Data: v, DriftLimit: quantity.New(0.01, quantity.Velocity)},
+//		{Name: "F", Data: fx, DriftLimit: quantity.New(0.5, quantity.Force)},
+//	}
+//	zero, err := steady.Reduce(set, "zero", chs, zw)
+//	pts, err := steady.Points(set, chs, ws) // refuses an empty ws
+//	for i := range pts {
+//		pts[i], err = steady.Tare(pts[i], zero, "F") // the force only
+//	}
+//	fv, _ := pts[0].Value("F") // fv.Mean: the tared force, with its uncertainty
+//
+// Tare the channels whose transducers read an offset at rest (a force,
+// a torque, a pressure difference), never a temperature.
 //
 // Package similarity/reduction runs the whole procedure below on a file
 // of any length, chunk by chunk in bounded memory, and carries the
@@ -70,9 +96,10 @@
 //
 // 4. Subtract the zero. A zero (tare) is reduced like a point, with
 // Reduce, from a window of the same history or from the whole of a zero
-// file read the same way; Tare subtracts its mean from the point's,
-// channel by channel, and the zero's Type A uncertainty combines with
-// the point's.
+// file read the same way; Tare subtracts its mean from the point's for
+// each channel named (the force, torque or pressure channels that read an
+// offset at rest; never a temperature, which Tare refuses unless named),
+// and the zero's Type A uncertainty combines with the point's.
 //
 // 5. Calibrate the means. A calibration of tared readings (a
 // dynamometer's bridge output to a force) is applied to the tared mean

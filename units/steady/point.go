@@ -3,6 +3,7 @@ package steady
 import (
 	"fmt"
 	"math"
+	"slices"
 
 	"similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/uncertain"
@@ -96,8 +97,14 @@ func Reduce(set *uncertain.Set, tag string, chs []Channel, w Window) (Point, err
 }
 
 // Points reduces the channels over each window in turn, tagging the
-// points "point 1", "point 2", … (see Reduce).
+// points "point 1", "point 2", … (see Reduce). An empty list of windows
+// is an *Error (class quantity.ErrInvalid): nothing was found to reduce —
+// the runs of a text column, say, whose Series from chanfile is empty
+// (use TextRuns on its labels), or runs all dropped by the caller.
 func Points(set *uncertain.Set, chs []Channel, ws []Window) ([]Point, error) {
+	if len(ws) == 0 {
+		return nil, invalid("points", "", -1, "no windows to reduce (Runs of an empty or text channel finds none: a text run tag is read with TextRuns)")
+	}
 	out := make([]Point, 0, len(ws))
 	for i, w := range ws {
 		p, err := Reduce(set, fmt.Sprintf("point %d", i+1), chs, w)
@@ -109,21 +116,46 @@ func Points(set *uncertain.Set, chs []Channel, ws []Window) ([]Point, error) {
 	return out, nil
 }
 
-// Tare returns p with the zero's mean subtracted from each channel that
-// zero holds: a zero window of the same history, or the whole of a zero
-// file, reduced with Reduce. The result's uncertainty combines the
-// point's and the zero's Type A sources (uncertain.Measured.Sub). A
-// channel of p the zero does not hold keeps its value untared, and a
-// channel tared already is refused, as is a zero channel of another
-// dimension.
-func Tare(p, zero Point) (Point, error) {
+// Tare returns p with the zero's mean subtracted from the channels
+// named, or, when none is named, from each channel of p the zero holds:
+// a zero window of the same history, or the whole of a zero file,
+// reduced with Reduce. The result's uncertainty combines the point's and
+// the zero's Type A sources (uncertain.Measured.Sub).
+//
+// Name the channels to tare — the force, torque and pressure channels
+// whose transducers read an offset at rest — or reduce the zero with
+// only those. A temperature must not be tared: an absolute temperature
+// has no offset to remove, and a zero of the water temperature
+// subtracted from the point's leaves a meaningless difference (0.17 K).
+// So when no channel is named, a temperature channel (quantity.
+// Temperature) that the zero holds is refused with an *Error naming it;
+// naming it explicitly tares it (a temperature difference logged with
+// an offset). A channel named that p or the zero does not hold, a
+// channel named twice, a channel tared already and a zero channel of
+// another dimension are refused. A channel of p not tared keeps its
+// value and Tared false.
+func Tare(p, zero Point, channels ...string) (Point, error) {
 	const op = "tare"
 	out := p
 	out.Values = append([]Value(nil), p.Values...)
+	for k, n := range channels {
+		if slices.Contains(channels[:k], n) {
+			return Point{}, invalid(op, n, -1, "channel named twice")
+		}
+		if _, ok := p.Value(n); !ok {
+			return Point{}, invalid(op, n, -1, "point %q has no such channel", p.Tag)
+		}
+		if _, ok := zero.Value(n); !ok {
+			return Point{}, invalid(op, n, -1, "the zero %q has no such channel: reduce the zero with every channel to tare", zero.Tag)
+		}
+	}
 	for i, v := range out.Values {
 		z, ok := zero.Value(v.Name)
-		if !ok {
+		if !ok || len(channels) > 0 && !slices.Contains(channels, v.Name) {
 			continue
+		}
+		if len(channels) == 0 && v.Mean.Dim() == quantity.Temperature {
+			return Point{}, invalid(op, v.Name, -1, "a temperature is not tared: name the channels to tare (Tare(p, zero, \"F\")) or reduce the zero without %s", v.Name)
 		}
 		if v.Tared {
 			return Point{}, invalid(op, v.Name, -1, "point %q is tared already", p.Tag)

@@ -17,7 +17,10 @@ type Run struct {
 // maximal span of consecutive samples whose labels are equal. A sample
 // whose label is NaN (missing) belongs to no run. The caller keeps the
 // runs it wants (a label of 0 for "between runs", say) and those long
-// enough; Runs drops nothing.
+// enough; Runs drops nothing. label is a channel of numbers: the Series
+// chanfile gives a text column (a Label column, "Lauf 1") is empty and
+// has no run — read its text with TextRuns (chanfile.Whole.Channel
+// refuses such a column rather than return it empty).
 func Runs(label quantity.Series) []Run {
 	v := label.Values()
 	var out []Run
@@ -31,6 +34,33 @@ func Runs(label quantity.Series) []Run {
 			j++
 		}
 		out = append(out, Run{Window{i, j}, v[i]})
+		i = j
+	}
+	return out
+}
+
+// TextRun is a window over which a text label channel holds one value.
+type TextRun struct {
+	Window
+	Label string
+}
+
+// TextRuns returns the runs of equal text in labels, in order, as Runs
+// does for numbers: for a run tag logged as text ("Lauf 1", "zero"), the
+// labels of a chanfile Label column (chanfile.Whole.Labels). An empty
+// label (a missing one) belongs to no run; TextRuns drops nothing else.
+func TextRuns(labels []string) []TextRun {
+	var out []TextRun
+	for i := 0; i < len(labels); {
+		if labels[i] == "" {
+			i++
+			continue
+		}
+		j := i + 1
+		for j < len(labels) && labels[j] == labels[i] {
+			j++
+		}
+		out = append(out, TextRun{Window{i, j}, labels[i]})
 		i = j
 	}
 	return out
