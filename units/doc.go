@@ -51,6 +51,10 @@
 //
 // # Tables
 //
+// The built-in table is fixed and safe for concurrent readers. A Table
+// the caller owns adds definitions at run time (Define("TR",
+// "12000 BTU/h")) and is safe for concurrent use.
+//
 // # Bounds
 //
 // Parsing reads at most MaxExprLen (512) bytes and MaxDepth (16) nested
@@ -60,10 +64,6 @@
 // so a long-running program that reads ever new spellings keeps only
 // those in use and never meets a limit. Conversions and unit algebra
 // return a finite result or an error wrapping ErrRange.
-//
-// The built-in table is fixed and safe for concurrent readers. A Table
-// the caller owns adds definitions at run time (Define("TR",
-// "12000 BTU/h")) and is safe for concurrent use.
 //
 // # Data-sheet spellings
 //

@@ -58,9 +58,9 @@ func ExamplePrinter() {
 	fmt.Println(p.Format(quantity.New(0.6, quantity.ThermalConductivity)))
 	// Output:
 	// 101.3 kPa
-	// 18 µPa·s
-	// 1 hp
-	// 0.6\,\mathrm{W}/(\mathrm{m}\cdot \mathrm{K})
+	// 18.00 µPa·s
+	// 1.000 hp
+	// 0.6000\,\mathrm{W}/(\mathrm{m}\cdot \mathrm{K})
 }
 
 func ExampleTable_Define() {

@@ -72,7 +72,11 @@ type Printer struct {
 	// it is.
 	Prefix bool
 	// Precision is the number of significant digits; 0 means as many as
-	// needed to read the value back exactly.
+	// needed to read the value back exactly. The digits are all written,
+	// trailing zeros included (21.90 m at 4), so that a column of values
+	// of one precision lines up; the form is fixed, or e-notation where
+	// the exponent is below −4 or at least Precision (1.200e+05 Pa at 4),
+	// as %g chooses.
 	Precision int
 	// Prefer maps a dimension to the unit to print it in, overriding
 	// DerivedUnit (for example J for an energy, which DerivedUnit prints
@@ -103,11 +107,10 @@ func (p Printer) FormatIn(q quantity.Quantity, u Unit) (string, error) {
 	if p.Prefix && u.offset == 0 {
 		v, u = withPrefix(v, u)
 	}
-	prec := -1
+	num := strconv.FormatFloat(v, 'g', -1, 64)
 	if p.Precision > 0 {
-		prec = p.Precision
+		num = significant(v, p.Precision)
 	}
-	num := strconv.FormatFloat(v, 'g', prec, 64)
 	if p.Style == quantity.LaTeX {
 		if m, e, ok := strings.Cut(num, "e"); ok {
 			exp, _ := strconv.Atoi(e)
@@ -122,6 +125,21 @@ func (p Printer) FormatIn(q quantity.Quantity, u Unit) (string, error) {
 		sep = `\,`
 	}
 	return num + sep + u.Format(p.Style), nil
+}
+
+// significant writes v to prec significant digits, keeping trailing
+// zeros: %#g's digits, in %g's choice of fixed or e-notation (the choice
+// made on the exponent after rounding, so 9.9996 at 4 is 10.00).
+func significant(v float64, prec int) string {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return strconv.FormatFloat(v, 'g', -1, 64)
+	}
+	e := strconv.FormatFloat(v, 'e', prec-1, 64)
+	exp, _ := strconv.Atoi(e[strings.IndexByte(e, 'e')+1:])
+	if exp < -4 || exp >= prec {
+		return e
+	}
+	return strconv.FormatFloat(v, 'f', prec-1-exp, 64)
 }
 
 var engPrefixes = func() map[int]prefix {

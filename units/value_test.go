@@ -223,6 +223,33 @@ func TestUserTable(t *testing.T) {
 	}
 }
 
+// TestPrinterPrecisionProperty: at any Precision the printed number has
+// exactly that many significant digits, trailing zeros kept, and reads
+// back through ParseQuantity to within half a unit of its last digit.
+func TestPrinterPrecisionProperty(t *testing.T) {
+	rapid.Check(t, func(t *rapid.T) {
+		prec := rapid.IntRange(1, 17).Draw(t, "precision")
+		v := rapid.Float64Range(1, 10).Draw(t, "mantissa") * math.Pow10(rapid.IntRange(-30, 30).Draw(t, "exponent"))
+		if rapid.Bool().Draw(t, "negative") {
+			v = -v
+		}
+		s := units.Printer{Precision: prec}.Format(quantity.New(v, quantity.Pressure))
+		num, _, _ := strings.Cut(s, " ")
+		mant, _, _ := strings.Cut(num, "e")
+		digits := strings.TrimLeft(strings.NewReplacer("-", "", ".", "").Replace(mant), "0")
+		if len(digits) != prec {
+			t.Fatalf("%v at precision %d: %q has %d significant digits", v, prec, s, len(digits))
+		}
+		q, err := units.ParseQuantity(s)
+		if err != nil {
+			t.Fatalf("%q does not read back: %v", s, err)
+		}
+		if got := q.Value(); math.Abs(got-v) > 0.5*math.Pow10(1-prec)*math.Abs(v)*(1+1e-9) {
+			t.Fatalf("%v at precision %d: %q reads back as %v", v, prec, s, got)
+		}
+	})
+}
+
 func TestPrinter(t *testing.T) {
 	atm := units.StandardAtmosphere()
 	torque := quantity.New(12.5, quantity.Torque)
@@ -244,7 +271,17 @@ func TestPrinter(t *testing.T) {
 		{units.Printer{Prefix: true}, quantity.New(2500, quantity.Torque), "2.5 kN·m"},
 		{units.Printer{}, quantity.New(50, quantity.Frequency), "50 1/s"},
 		{units.Printer{Style: quantity.LaTeX}, quantity.New(0.025, quantity.ThermalConductivity), `0.025\,\mathrm{W}/(\mathrm{m}\cdot \mathrm{K})`},
-		{units.Printer{Style: quantity.LaTeX, Precision: 3}, quantity.New(1.5e-5, quantity.KinematicViscosity), `1.5\times 10^{-5}\,\mathrm{m}^{2}/\mathrm{s}`},
+		{units.Printer{Style: quantity.LaTeX, Precision: 3}, quantity.New(1.5e-5, quantity.KinematicViscosity), `1.50\times 10^{-5}\,\mathrm{m}^{2}/\mathrm{s}`},
+		// A precision keeps significant trailing zeros, so that a column
+		// of values to four significant digits lines up.
+		{units.Printer{Precision: 4}, quantity.New(21.9, quantity.Length), "21.90 m"},
+		{units.Printer{Precision: 4}, quantity.New(19.77, quantity.Length), "19.77 m"},
+		{units.Printer{Precision: 4}, quantity.New(3, quantity.Length), "3.000 m"},
+		{units.Printer{Precision: 4}, quantity.New(0.0005, quantity.Length), "0.0005000 m"},
+		{units.Printer{Precision: 4}, quantity.New(9.99996, quantity.Length), "10.00 m"}, // rounds into the next decade
+		{units.Printer{Precision: 4}, quantity.New(120000, quantity.Pressure), "1.200e+05 Pa"},
+		{units.Printer{Precision: 3}, quantity.New(0, quantity.Pressure), "0.00 Pa"},
+		{units.Printer{Prefix: true, Precision: 4}, quantity.New(2000, quantity.Force), "2.000 kN"},
 		{units.Printer{Prefix: true}, quantity.New(1500, quantity.Mass), "1.5 Mg"},
 		{units.Printer{}, quantity.Scalar(0.25), "0.25"},
 	}

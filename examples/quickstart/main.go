@@ -171,9 +171,10 @@ func run(w io.Writer, args []string) error {
 	}
 	fmt.Fprintln(w, "similis quickstart — all data below are invented for the demonstration")
 	fmt.Fprintln(w, "\n1. A unit-safe formula: pipe pressure drop on a test rig")
-	pr := units.Printer{Precision: 5}
-	// ρ and μ to six significant digits, so that the printed Re can be
-	// checked from the printed values.
+	// The inputs echoed as given (shortest digits that read back
+	// exactly), ρ and μ to six significant digits, so that the printed
+	// Re can be checked from the printed values.
+	pr := units.Printer{}
 	fmt.Fprintf(w, "  ρ = %.6g kg/m³, V = %s, D = %s, μ = %.6g mPa·s, ε = %s, L = %s (fresh water at 20 °C)\n",
 		p.rho.Value(), pr.Format(p.v), pr.Format(p.d), 1e3*p.mu.Value(), pr.Format(p.eps), pr.Format(p.l))
 	re, f, dp, regime, err := pressureDrop(p)

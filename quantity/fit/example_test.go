@@ -149,11 +149,11 @@ func ExamplePoly_Measured() {
 	// Q = 0.02466 m³/s ± 0.00011 m³/s (the fit alone: ± 9.9e-05 m³/s)
 	// Q = 0.02466 m³/s, u_c = 0.00011 m³/s (0.44 %), ν_eff = 6.9, k = 2.37, U(95 %) = 0.00025 m³/s
 	// systematic part 0.000099 m³/s, random part 0.000042 m³/s
-	// source         type       distribution  effect         u(source)                 c  contribution (m³/s)  % of u_c²
-	// meter fit: B0  A (ν = 5)  t             systematic  0.00011 m³/s              1.00              0.00011      105.6
-	// meter fit: B1  A (ν = 5)  t             systematic  0.00011 m³/s             0.429             0.000047       19.6
-	// Δp transducer  B          normal        random            2.0 Pa  2.09e-05 m³/s/Pa             0.000042       15.2
-	// meter fit: B2  A (ν = 5)  t             systematic  0.00019 m³/s             0.184             0.000036       11.0
+	// source         type       distribution  effect         u(source)                  c  contribution (m³/s)  % of u_c²
+	// meter fit: B0  A (ν = 5)  t             systematic  0.00011 m³/s               1.00              0.00011      105.6
+	// meter fit: B1  A (ν = 5)  t             systematic  0.00011 m³/s              0.429             0.000047       19.6
+	// Δp transducer  B          normal        random            2.0 Pa  2.09×10⁻⁵ m³/s/Pa             0.000042       15.2
+	// meter fit: B2  A (ν = 5)  t             systematic  0.00019 m³/s              0.184             0.000036       11.0
 	// correlated sources: u_c includes their covariance; ν_eff takes each correlated group as one term with its smallest ν (approximate)
 }
 

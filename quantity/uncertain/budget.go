@@ -260,11 +260,14 @@ func (b Budget) format(md bool) string {
 		rel = sig(100*b.U.Value()/math.Abs(v), 2) + " %"
 	}
 	y, u := roundPair(b.Value.Value()/f, b.U.Value()/f)
-	_, bigU := roundPair(0, b.Expanded.Value()/f)
+	// U and the two parts in the notation of y and u where they can be.
+	ref := math.Max(math.Abs(b.Value.Value()), b.U.Value()) / f
+	bigU := sideText(ref, b.Expanded.Value()/f)
+	headSci := sciFor(ref, b.U.Value()/f)
 	fmt.Fprintf(&sb, "%s = %s, u_c = %s (%s), ν_eff %s, k = %.2f, U(%s %%) = %s\n",
 		name, withUnit(y, unit), withUnit(u, unit), rel, dof, b.K, strconv.FormatFloat(100*b.Coverage, 'g', 4, 64), withUnit(bigU, unit))
-	_, sys := roundPair(0, b.Systematic.Value()/f)
-	_, rnd := roundPair(0, b.Random.Value()/f)
+	sys := sideText(ref, b.Systematic.Value()/f)
+	rnd := sideText(ref, b.Random.Value()/f)
 	fmt.Fprintf(&sb, "systematic part %s, random part %s\n", withUnit(sys, unit), withUnit(rnd, unit))
 	contrib := "contribution"
 	if unit != "" {
@@ -273,7 +276,14 @@ func (b Budget) format(md bool) string {
 	head := []string{"source", "type", "distribution", "effect", "u(source)", "c", contrib, "% of u_c²"}
 	rows := [][]string{}
 	for _, l := range b.Lines {
-		u := withUnit(sig(l.Source.U.Value(), 2), unitName(l.Source.U.Dim()))
+		// A source in the result's dimension in the headline's notation,
+		// any other in its own.
+		su := math.Abs(l.Source.U.Value())
+		sci := sciFor(su, su)
+		if l.Source.U.Dim() == b.Value.Dim() {
+			sci = headSci
+		}
+		u := withUnit(sigIn(l.Source.U.Value(), 2, sci), unitName(l.Source.U.Dim()))
 		if l.Source.Relative {
 			u = sig(100*l.Source.U.Value(), 2) + " % of value"
 		}
@@ -291,7 +301,7 @@ func (b Budget) format(md bool) string {
 			c = withUnit(sigFrom(l.Sensitivity.Value()/f, 3, -4), sensitivityUnit(unit, b.Value.Dim(), f, xd))
 		}
 		rows = append(rows, []string{l.Source.Name, typ, dist, l.Source.Effect.String(), u, c,
-			sig(l.Contribution.Value()/f, 2), fmt.Sprintf("%.1f", l.Percent)})
+			sigIn(l.Contribution.Value()/f, 2, headSci), fmt.Sprintf("%.1f", l.Percent)})
 	}
 	if md {
 		sb.WriteString("\n| " + strings.Join(head, " | ") + " |\n|")

@@ -39,7 +39,12 @@
 // one (N, Pa, W, Pa·s; N·m for energy and torque alike) and a decimal
 // prefix for a large or small value (138.43 kN ± 0.83 kN); sensitivity
 // coefficients in the unit of the result per unit of the source (N/K,
-// m/Pa).
+// m/Pa). Numbers are written in powers of ten when the larger of |x| and
+// u, in the unit shown, is below 10⁻³ or at least 10⁶, or when u is below
+// 10⁻⁶ (1.7938×10⁻⁵ ± 1.5×10⁻⁸), with the same rounding. Where u exceeds
+// |x| the estimate keeps two significant digits of its own rather than
+// rounding to 0, and Measured.String adds "(u exceeds the value)":
+// 1.2×10⁹ ± 1.7×10¹¹ (u exceeds the value).
 //
 // Dimensions are checked exactly as for Quantity: adding a pressure to a
 // velocity panics with a *quantity.Error of class quantity.ErrDimension,

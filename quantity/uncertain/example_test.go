@@ -54,12 +54,12 @@ func ExampleMeasured_Budget() {
 	// Output:
 	// C_T = 0.004590, u_c = 0.000019 (0.41 %), ν_eff = 61, k = 2.00, U(95 %) = 0.000038
 	// systematic part 0.000015, random part 0.000012
-	// source                    type       distribution  effect            u(source)                c  contribution  % of u_c²
-	// resistance repeatability  A (ν = 9)  t             random              0.080 N     0.000147 1/N      0.000012       38.3
-	// carriage speed            B          rectangular   systematic  0.10 % of value         -0.00918     0.0000092       23.3
-	// wetted area               B          normal        systematic  0.20 % of value         -0.00459     0.0000092       23.3
-	// dynamometer calibration   B          normal        systematic          0.050 N     0.000147 1/N     0.0000074       15.0
-	// density (temperature)     B          normal        systematic       0.10 kg/m³  -4.59e-06 m³/kg    0.00000046        0.1
+	// source                    type       distribution  effect            u(source)                 c  contribution  % of u_c²
+	// resistance repeatability  A (ν = 9)  t             random              0.080 N      0.000147 1/N      0.000012       38.3
+	// carriage speed            B          rectangular   systematic  0.10 % of value          -0.00918     0.0000092       23.3
+	// wetted area               B          normal        systematic  0.20 % of value          -0.00459     0.0000092       23.3
+	// dynamometer calibration   B          normal        systematic          0.050 N      0.000147 1/N     0.0000074       15.0
+	// density (temperature)     B          normal        systematic       0.10 kg/m³  -4.59×10⁻⁶ m³/kg    0.00000046        0.1
 }
 
 // A Monte Carlo check of a first-order result (JCGM 101:2008): the

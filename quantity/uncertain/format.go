@@ -99,36 +99,153 @@ func withUnit(num, unit string) string {
 	return num + " " + unit
 }
 
-// roundPair writes an estimate y and its uncertainty u as GUM §7.2.6
-// states them: u to two significant digits, y to the same decimal place.
-// Fixed notation is used unless the numbers are very large or very
-// small. A zero or non-finite u leaves y in full and u as "0" (or as it
-// is).
+// Report numbers follow JCGM 100:2008 (GUM) §7.2.6: a standard
+// uncertainty is stated to two significant digits and the estimate to
+// the same decimal place. Numbers are written in fixed notation, or in
+// powers of ten (1.7938×10⁻⁵, 1.7×10¹¹) when the larger of |y| and u, in
+// the unit shown, is below sciBelow or at least sciFrom, or when u itself
+// is below sciTiny (a fixed form would need more than seven decimals).
+const (
+	sciBelow = 1e-3
+	sciFrom  = 1e6
+	sciTiny  = 1e-6
+)
+
+// sciFor reports whether an uncertainty u beside numbers of magnitude up
+// to ref is written in powers of ten.
+func sciFor(ref, u float64) bool {
+	return ref != 0 && finite(ref) && (ref < sciBelow || ref >= sciFrom) ||
+		u != 0 && finite(u) && u < sciTiny
+}
+
+// roundPair writes an estimate y and its standard uncertainty u for a
+// report (GUM §7.2.6), in the notation sciFor chooses for them. Where u
+// exceeds |y|, rounding y to u's decimal place could leave no digit of
+// it (1.228×10⁹ ± 1.71×10¹¹ would read 0 ± 1.7×10¹¹), so y then keeps
+// two significant digits of its own: it is written as 0 only when it is
+// 0. A zero or non-finite u leaves y in full and u as "0" (or as it is).
 func roundPair(y, u float64) (string, string) {
 	if u == 0 || !finite(u) || !finite(y) {
-		us := strconv.FormatFloat(u, 'g', -1, 64)
-		return strconv.FormatFloat(y, 'g', -1, 64), us
+		return exactText(y), strconv.FormatFloat(u, 'g', -1, 64)
 	}
-	e := int(math.Floor(math.Log10(u)))
-	if math.Round(u/math.Pow(10, float64(e-1))) >= 100 {
-		e++ // 0.0996 rounds to 0.10
-	}
-	dec := 1 - e
-	ay := math.Abs(y)
-	switch {
-	case dec >= 0 && dec <= 12 && ay < 1e15:
-		return noNegZero(strconv.FormatFloat(y, 'f', dec, 64)), strconv.FormatFloat(u, 'f', dec, 64)
-	case dec < 0 && dec > -15 && ay < 1e15:
-		step := math.Pow(10, float64(-dec))
-		return noNegZero(strconv.FormatFloat(math.Round(y/step)*step, 'f', 0, 64)),
-			strconv.FormatFloat(math.Round(u/step)*step, 'f', 0, 64)
-	}
-	ey := e
-	if ay > 0 {
-		ey = int(math.Floor(math.Log10(ay)))
-	}
-	return noNegZero(strconv.FormatFloat(y, 'e', max(ey-e+1, 0), 64)), strconv.FormatFloat(u, 'e', 1, 64)
+	sci := sciFor(math.Max(math.Abs(y), u), u)
+	us, p := uncText(u, sci)
+	return estText(y, u, p, sci), us
 }
+
+// sideText writes an uncertainty x reported beside a value of magnitude
+// ref (an expanded uncertainty, a part of u) to two significant digits,
+// in the notation sciFor chooses for it there.
+func sideText(ref, x float64) string {
+	if x == 0 || !finite(x) {
+		return strconv.FormatFloat(x, 'g', -1, 64)
+	}
+	s, _ := uncText(x, sciFor(math.Max(ref, x), x))
+	return s
+}
+
+// exactText writes an exact y in full: its shortest decimal that reads
+// back as y, in powers of ten beyond the fixed range.
+func exactText(y float64) string {
+	if !finite(y) {
+		return strconv.FormatFloat(y, 'g', -1, 64)
+	}
+	if sciFor(math.Abs(y), 0) {
+		return pow10Text(strconv.FormatFloat(y, 'e', -1, 64))
+	}
+	return strconv.FormatFloat(y, 'f', -1, 64)
+}
+
+// uncText writes u (> 0, finite) to two significant digits and returns
+// the exponent p of its last digit: 0.0123 is "0.012" with p = −3,
+// 0.0996 is "0.10" with p = −2, 1.71×10¹¹ is "1.7×10¹¹" with p = 10.
+func uncText(u float64, sci bool) (string, int) {
+	e := strconv.FormatFloat(u, 'e', 1, 64) // rounds exactly: 9.96e-02 → 1.0e-01
+	x, _ := strconv.Atoi(e[strings.IndexByte(e, 'e')+1:])
+	p := x - 1
+	if sci {
+		return pow10Text(e), p
+	}
+	return fixedAt(u, p), p
+}
+
+// estText writes an estimate y beside an uncertainty u whose last digit
+// is at 10^p: to that place, or to two significant digits of its own when
+// u exceeds |y| and that is finer.
+func estText(y, u float64, p int, sci bool) string {
+	if ay := math.Abs(y); ay > 0 && u > ay {
+		// The exponent of y's leading digit, read off its shortest
+		// decimal so that no logarithm's rounding can shift it.
+		e := strconv.FormatFloat(ay, 'e', -1, 64)
+		x, _ := strconv.Atoi(e[strings.IndexByte(e, 'e')+1:])
+		p = min(p, x-1)
+	}
+	return roundedAt(y, p, sci)
+}
+
+// roundedAt writes x rounded to the decimal place 10^p, in powers of ten
+// when sci is set.
+func roundedAt(x float64, p int, sci bool) string {
+	if !sci {
+		return fixedAt(x, p)
+	}
+	if x == 0 {
+		return "0"
+	}
+	e := strconv.FormatFloat(math.Abs(x), 'e', -1, 64)
+	ex, _ := strconv.Atoi(e[strings.IndexByte(e, 'e')+1:])
+	if ex < p {
+		// x lies below the place kept: it rounds to 0 or to ±10^p.
+		r := math.Round(x / math.Pow10(p))
+		if r == 0 || !finite(r) {
+			return "0"
+		}
+		x, ex = r*math.Pow10(p), p
+	}
+	s := strconv.FormatFloat(x, 'e', ex-p, 64)
+	if y, _ := strconv.Atoi(s[strings.IndexByte(s, 'e')+1:]); y > ex {
+		// Rounding carried into the next power (9.96×10⁻³ → 1.0×10⁻²):
+		// one more decimal keeps the last digit at 10^p.
+		s = strconv.FormatFloat(x, 'e', y-p, 64)
+	}
+	return noNegZero(pow10Text(s))
+}
+
+// fixedAt writes x rounded to the decimal place 10^p in fixed notation.
+func fixedAt(x float64, p int) string {
+	if p < 0 {
+		return noNegZero(strconv.FormatFloat(x, 'f', -p, 64))
+	}
+	step := math.Pow10(p)
+	return noNegZero(strconv.FormatFloat(math.Round(x/step)*step, 'f', 0, 64))
+}
+
+// pow10Text rewrites a number strconv wrote in e-notation ("1.7938e-05")
+// in powers of ten ("1.7938×10⁻⁵"); a zero exponent leaves the mantissa
+// alone, and a number without an exponent is returned as it is.
+func pow10Text(s string) string {
+	m, e, ok := strings.Cut(s, "e")
+	if !ok {
+		return s
+	}
+	x, err := strconv.Atoi(e)
+	if err != nil || x == 0 {
+		return m
+	}
+	var b strings.Builder
+	b.WriteString(m)
+	b.WriteString("×10")
+	if x < 0 {
+		b.WriteString("⁻")
+		x = -x
+	}
+	for _, d := range strconv.Itoa(x) {
+		b.WriteString(superDigits[d-'0'])
+	}
+	return b.String()
+}
+
+var superDigits = [10]string{"⁰", "¹", "²", "³", "⁴", "⁵", "⁶", "⁷", "⁸", "⁹"}
 
 // noNegZero drops the sign of a number that rounds to zero.
 func noNegZero(s string) string {
@@ -139,8 +256,17 @@ func noNegZero(s string) string {
 }
 
 // sig writes x to n significant digits, in fixed notation unless it is
-// very large or very small.
+// very large or very small, then in powers of ten.
 func sig(x float64, n int) string { return sigFrom(x, n, -9) }
+
+// sigIn writes x to n significant digits in powers of ten when sci is
+// set, else as sig does.
+func sigIn(x float64, n int, sci bool) string {
+	if sci && x != 0 && finite(x) {
+		return pow10Text(strconv.FormatFloat(x, 'e', n-1, 64))
+	}
+	return sig(x, n)
+}
 
 // sigFrom is sig with e-notation from 10^minExp down.
 func sigFrom(x float64, n, minExp int) string {
@@ -149,7 +275,7 @@ func sigFrom(x float64, n, minExp int) string {
 	}
 	e := int(math.Floor(math.Log10(math.Abs(x))))
 	if e < minExp || e >= 9 {
-		return strconv.FormatFloat(x, 'e', n-1, 64)
+		return pow10Text(strconv.FormatFloat(x, 'e', n-1, 64))
 	}
 	return strconv.FormatFloat(x, 'f', max(n-1-e, 0), 64)
 }

@@ -28,12 +28,22 @@ type MonteCarloResult struct {
 // String formats the result as "Monte Carlo, 200000 trials: y = 1.153 m/s,
 // u = 0.013 m/s, 95 % interval [1.128, 1.177] m/s": u to two significant
 // digits and the estimate and the interval's ends to the same decimal
-// place (GUM §7.2.6), in SI units named as Measured.String names them.
+// place (GUM §7.2.6), in SI units named as Measured.String names them and
+// in powers of ten where Measured.String would use them.
 func (r MonteCarloResult) String() string {
 	unit, f := displayUnit(r.Mean.Dim(), math.Max(math.Abs(r.Mean.Value()), r.U.Value()))
-	y, u := roundPair(r.Mean.Value()/f, r.U.Value()/f)
-	lo, _ := roundPair(r.Low.Value()/f, r.U.Value()/f)
-	hi, _ := roundPair(r.High.Value()/f, r.U.Value()/f)
+	mean, su, low, high := r.Mean.Value()/f, r.U.Value()/f, r.Low.Value()/f, r.High.Value()/f
+	y, u := roundPair(mean, su)
+	lo, hi := exactText(low), exactText(high)
+	if su > 0 && finite(su) && finite(mean) && finite(low) && finite(high) {
+		// The interval's ends to u's decimal place, in the notation of
+		// the whole line.
+		sci := sciFor(max(math.Abs(mean), su, math.Abs(low), math.Abs(high)), su)
+		var p int
+		u, p = uncText(su, sci)
+		y = estText(mean, su, p, sci)
+		lo, hi = roundedAt(low, p, sci), roundedAt(high, p, sci)
+	}
 	return fmt.Sprintf("Monte Carlo, %d trials: y = %s, u = %s, %s %% interval %s",
 		r.Trials, withUnit(y, unit), withUnit(u, unit), strconv.FormatFloat(100*r.Coverage, 'g', 4, 64), withUnit("["+lo+", "+hi+"]", unit))
 }

@@ -395,18 +395,34 @@ func (m Measured) variance(e int) float64 {
 
 // String formats the value as "1.234 m/s ± 0.012 m/s": the standard
 // uncertainty to two significant digits and the estimate to the same
-// decimal place (GUM §7.2.6), in SI units with the derived unit's name
-// where the dimension has one (N, Pa, W, Pa·s; N·m for energy and torque
-// alike), and a decimal prefix on a named unit for a large or small value
-// (138.43 kN). An exact value is written in full: "9.80665 m/s² ± 0".
+// decimal place (JCGM 100:2008, §7.2.6), in SI units with the derived
+// unit's name where the dimension has one (N, Pa, W, Pa·s; N·m for energy
+// and torque alike), and a decimal prefix on a named unit for a large or
+// small value (138.43 kN).
+//
+// The numbers are written in powers of ten when the larger of |x| and u,
+// in the unit shown, is below 10⁻³ or at least 10⁶, or when u is below
+// 10⁻⁶: "1.7938×10⁻⁵ ± 1.5×10⁻⁸". Where u exceeds |x| the estimate keeps
+// two significant digits of its own, so that it never reads as 0 unless
+// it is 0, and the text says so: "1.2×10⁹ m³/s ± 1.7×10¹¹ m³/s (u exceeds
+// the value)". An exact value is written in full: "9.80665 m/s² ± 0".
 func (m Measured) String() string {
-	unit, f := displayUnit(m.q.Dim(), math.Max(math.Abs(m.q.Value()), m.U().Value()))
-	y, u := roundPair(m.q.Value()/f, m.U().Value()/f)
-	if u == "0" {
-		return withUnit(y, unit) + " ± 0"
+	y, u := m.q.Value(), m.U().Value()
+	unit, f := displayUnit(m.q.Dim(), math.Max(math.Abs(y), u))
+	ys, us := roundPair(y/f, u/f)
+	if us == "0" {
+		return withUnit(ys, unit) + " ± 0"
 	}
-	return withUnit(y, unit) + " ± " + withUnit(u, unit)
+	s := withUnit(ys, unit) + " ± " + withUnit(us, unit)
+	if u > math.Abs(y) {
+		s += " " + overNote
+	}
+	return s
 }
+
+// overNote marks a value whose standard uncertainty exceeds its
+// magnitude.
+const overNote = "(u exceeds the value)"
 
 // combine returns the terms of a·x + b·y: the chain rule for a result
 // whose partial derivatives are a with respect to x and b to y.
