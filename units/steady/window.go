@@ -22,10 +22,18 @@ type Run struct {
 // has no run — read its text with TextRuns (chanfile.Whole.Channel
 // refuses such a column rather than return it empty).
 func Runs(label quantity.Series) []Run {
-	v := label.Values()
 	var out []Run
+	equalRuns(label.Values(), func(x float64) bool { return x != x }, func(w Window, x float64) {
+		out = append(out, Run{w, x})
+	})
+	return out
+}
+
+// equalRuns calls emit for each maximal span of consecutive equal values
+// of v, in order, skipping the values that are missing.
+func equalRuns[T comparable](v []T, missing func(T) bool, emit func(Window, T)) {
 	for i := 0; i < len(v); {
-		if math.IsNaN(v[i]) {
+		if missing(v[i]) {
 			i++
 			continue
 		}
@@ -33,10 +41,9 @@ func Runs(label quantity.Series) []Run {
 		for j < len(v) && v[j] == v[i] {
 			j++
 		}
-		out = append(out, Run{Window{i, j}, v[i]})
+		emit(Window{i, j}, v[i])
 		i = j
 	}
-	return out
 }
 
 // TextRun is a window over which a text label channel holds one value.
@@ -51,18 +58,9 @@ type TextRun struct {
 // label (a missing one) belongs to no run; TextRuns drops nothing else.
 func TextRuns(labels []string) []TextRun {
 	var out []TextRun
-	for i := 0; i < len(labels); {
-		if labels[i] == "" {
-			i++
-			continue
-		}
-		j := i + 1
-		for j < len(labels) && labels[j] == labels[i] {
-			j++
-		}
-		out = append(out, TextRun{Window{i, j}, labels[i]})
-		i = j
-	}
+	equalRuns(labels, func(l string) bool { return l == "" }, func(w Window, l string) {
+		out = append(out, TextRun{w, l})
+	})
 	return out
 }
 
