@@ -228,8 +228,8 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 		return nil, err
 	}
 	r.Ordinary = ground
-	fmt.Fprintf(w, "ordinary tunnel: total T₀ = %.2f K, p₀ = %.0f Pa (absolute); test section at Ma %.2f: static T = %.2f K, p = %.0f Pa (absolute), ρ = %.4f kg/m³ (isentropic relations)\n\n",
-		intake.Temperature.Value(), intake.Pressure.Value(), *mach, ground.Temperature.Value(), ground.Pressure.Value(), ground.Density.Value())
+	fmt.Fprintf(w, "ordinary tunnel: total T₀ = %.2f K, p₀ = %.5f bar (absolute); test section at Ma %.2f: static T = %.2f K, p = %.5f bar (absolute), ρ = %.4f kg/m³ (isentropic relations)\n\n",
+		intake.Temperature.Value(), intake.Pressure.Value()/1e5, *mach, ground.Temperature.Value(), ground.Pressure.Value()/1e5, ground.Density.Value())
 	plan := similarity.NewPlan(p).Fix("c", 1 / *scale).
 		Fix("a", ground.SpeedOfSound.Value()/flight.SpeedOfSound.Value()).
 		Fix("rho", ground.Density.Value()/flight.Density.Value()).
