@@ -280,8 +280,11 @@ func indexOf(ps []Point, tag string) int {
 // mean, u(name), the standard uncertainty of the mean, and n_eff(name),
 // the effective number of independent samples; then each group, named
 // by the trade's symbol where it is one, and u(group). Means are in the
-// unit the channel was read in (SI for a derived channel). What it
-// writes, chanfile.Reader reads back.
+// unit the channel was read in (SI for a derived channel). Numbers are
+// written with the shortest digits that read back to the same float64
+// (20.228875000000016, say), on purpose: a file loses nothing, and a
+// report rounds when it prints (uncertain.Measured.String, or %.4g of a
+// units.Value). What it writes, chanfile.Reader reads back.
 func WritePoints(w io.Writer, res *Result, opt WriteOptions) error {
 	var extra []string
 	extra = append(extra, fmt.Sprintf("reduced from %s: %d steady points, each channel's mean with the standard uncertainty of the mean, u = s/sqrt(n_eff)", res.File, len(res.Points)))
