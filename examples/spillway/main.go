@@ -121,6 +121,10 @@ const (
 	// modelDesignQ is the model's design discharge (m³/s): 450 m³/s at
 	// the prototype of the default 1:30, 91.29 L/s.
 	modelDesignQ = 450 / 4929.503017546495 // 30^(5/2)
+	// minProtoQ is the smallest prototype design discharge -q accepts
+	// (m³/s): below it the model's flow is too small to measure, and its
+	// Weber and Reynolds numbers leave every check's range.
+	minProtoQ = 0.01
 	// The approach reach of the river (invented): flow depth and bed slope
 	// at the design discharge, for the bed shear velocity u* = √(g·h·S)
 	// (wide channel, hydraulic radius ≈ depth).
@@ -137,7 +141,7 @@ func run(w io.Writer, args []string) error { _, err := evaluate(w, args); return
 func evaluate(w io.Writer, args []string) (*Result, error) {
 	fs := cli.NewFlagSet("spillway", about)
 	scale := cli.FloatVar(fs, "scale", 30, 2, 500, "", "length scale x of the 1:x Froude model (prototype length over model length); the model is fixed, the prototype is the model × x")
-	qp := cli.FloatVar(fs, "q", 0, 0, 1e5, "m³/s", "prototype design discharge; 0: the model's design discharge of 91.29 L/s carried at -scale (450 m³/s at 1:30)")
+	qp := cli.FloatVar(fs, "q", 0, 0, 1e5, "m³/s", "prototype design discharge, at least 0.01; 0: the model's design discharge of 91.29 L/s carried at -scale (450 m³/s at 1:30)")
 	hs := cli.FloatVar(fs, "hscale", 120, 2, 5000, "", "distorted variant of the approach reach: horizontal scale x of 1:x")
 	vs := cli.FloatVar(fs, "vscale", 30, 2, 500, "", "distorted variant: vertical scale x of 1:x, at most -hscale")
 	protoN := cli.FloatVar(fs, "n", 0.014, 0.008, 0.2, "s·m^(−1/3)", "prototype Manning n of the chute (0.014: concrete cast in forms, common practice)")
@@ -156,6 +160,9 @@ func evaluate(w io.Writer, args []string) (*Result, error) {
 	}
 	if *vs > *hs {
 		return nil, &cli.Error{Program: "spillway", Msg: fmt.Sprintf("-vscale %g exceeds -hscale %g: a distorted model exaggerates the vertical, so its vertical scale must not be the larger", *vs, *hs)}
+	}
+	if *qp != 0 && *qp < minProtoQ {
+		return nil, &cli.Error{Program: "spillway", Msg: fmt.Sprintf("-q %g: a prototype design discharge below %g m³/s is not a spillway's (its model flow would be too small to measure or to scale); give at least %g, or 0 for the model's design discharge carried at -scale", *qp, minProtoQ, minProtoQ)}
 	}
 	qText := fmt.Sprintf("%g", *qp)
 	if *qp == 0 {
