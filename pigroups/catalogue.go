@@ -6,7 +6,6 @@ import (
 	"slices"
 	"strconv"
 	"strings"
-	"sync"
 
 	"similis.dev/similis/quantity"
 )
@@ -126,7 +125,8 @@ var inferKnown = func() *[512]inferSlot {
 // inferHash places a dimension in inferKnown (Fibonacci hashing).
 func inferHash(d quantity.Dim) int { return int(uint64(d) * 0x9E3779B97F4A7C15 >> (64 - 9)) }
 
-var inferCache sync.Map // other dimensions: quantity.Dim → *[]string, read-only once stored
+// noKinds is the shared empty list of a dimension no kind has.
+var noKinds []string
 
 // inferKinds returns the kinds a dimension can mean, shared and never
 // modified: a pointer, so that a problem's variables hold one word each.
@@ -136,12 +136,13 @@ func inferKinds(d quantity.Dim) *[]string {
 			return &inferKnown[h].kinds
 		}
 	}
-	if v, ok := inferCache.Load(d); ok {
-		return v.(*[]string)
+	// Every dimension a kind has is in inferKnown, so another has none;
+	// nothing is kept per dimension a caller passes, so memory does not
+	// grow with the input.
+	if out := kindsOf(d); len(out) > 0 {
+		return &out
 	}
-	out := kindsOf(d)
-	v, _ := inferCache.LoadOrStore(d, &out)
-	return v.(*[]string)
+	return &noKinds
 }
 
 // kindsOf returns the kinds of package quantity a dimension can mean,

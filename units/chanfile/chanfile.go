@@ -987,6 +987,13 @@ func (r *Reader) refusal(ks []int) error {
 // seconds since 1970).
 func (r *Reader) kind(name string, physical bool, sample []string) (Kind, int) {
 	if len(sample) == 0 {
+		if name == "" {
+			// An unnamed column with no values: the empty field after a
+			// row-ending delimiter ("t [s];F [N];"), which many exports
+			// write. It is read as an empty text column, not refused
+			// for want of a unit.
+			return Label, -2
+		}
 		return Number, -2
 	}
 	nums := 0
