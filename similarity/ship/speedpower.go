@@ -38,9 +38,10 @@ type SpeedPowerInput struct {
 type SpeedPowerPoint struct {
 	PoweringResult
 	// PowerU and RevsU are the standard uncertainties of P_D and of n
-	// from the fits alone; DoF their effective degrees of freedom and K
-	// the coverage factor (Student's t at Level); Power and Revs are the
-	// intervals ±K·u about the prediction.
+	// from the fits alone and DoF their effective degrees of freedom;
+	// Power and Revs are the intervals ±k·u about the prediction, with k
+	// the coverage factor uncertain.CoverageFactor(Level, DoF) (Student's
+	// t), which is not stored.
 	//
 	// PowerU is the standard uncertainty of P_D (W).
 	PowerU float64

@@ -136,6 +136,9 @@ func FindNPSH3(series []SuctionPoint, opt NPSH3Options) (NPSH3Result, error) {
 		}
 		x, y, w = append(x, p.x), append(y, p.y), append(w, 1)
 	}
+	if len(x) < 3 {
+		return NPSH3Result{}, &Error{Op: op, Fault: similarity.Invalid("series", fmt.Sprintf("%d distinct NPSHA values: want at least 3 (a reference point and two below it): add points at lower NPSHA", len(x)))}
+	}
 	if nref < 1 || nref > len(x)-2 {
 		return NPSH3Result{}, &Error{Op: op, Fault: similarity.Invalid("reference points", fmt.Sprintf("%d reference points from %d distinct NPSHA values: want 1 to %d, leaving two below them", nref, len(x), len(x)-2))}
 	}
