@@ -3,6 +3,7 @@ package tunnel
 import (
 	"fmt"
 	"math"
+	"strconv"
 
 	"similis.dev/similis/internal/roots"
 	"similis.dev/similis/quantity"
@@ -332,7 +333,16 @@ func plainSig(x float64, n int) string {
 	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) {
 		return fmt.Sprint(x)
 	}
-	return fmt.Sprintf("%.*f", max(0, n-1-int(math.Floor(math.Log10(math.Abs(x))))), x)
+	// Round to n figures first, so that a value rounding up across a
+	// decade (0.99996 to 4 figures) takes the decimals of its new decade:
+	// 1.000, not 1.0000.
+	// Whole numbers are written whole, unrounded.
+	r, _ := strconv.ParseFloat(strconv.FormatFloat(x, 'e', n-1, 64), 64)
+	d := n - 1 - int(math.Floor(math.Log10(math.Abs(r))))
+	if d <= 0 {
+		return fmt.Sprintf("%.0f", x)
+	}
+	return fmt.Sprintf("%.*f", d, r)
 }
 
 // overloadRemedy says what can lower an overload at the condition. The
