@@ -6,6 +6,7 @@ import (
 	"math"
 	"strconv"
 	"strings"
+	"unicode"
 
 	"similis.dev/similis/internal/numlex"
 	"similis.dev/similis/quantity"
@@ -59,21 +60,22 @@ func ParseGauge(s string) (Gauge, error) {
 		return Gauge{}, &Error{Op: OpParseValue, Input: s[:64] + "…", Reason: "text too long"}
 	}
 	t := strings.TrimSpace(s)
+	lead := len(s) - len(strings.TrimLeftFunc(s, unicode.IsSpace)) // offsets are into s, as Input is
 	n, lexErr := numlex.Scan(t, numlex.Signed|numlex.Grouped)
 	if lexErr != nil {
-		return Gauge{}, &Error{Op: OpParseValue, Input: s, Offset: lexErr.Offset, Reason: lexErr.Reason}
+		return Gauge{}, &Error{Op: OpParseValue, Input: s, Offset: lead + lexErr.Offset, Reason: lexErr.Reason}
 	}
 	text, j := n.Text, n.End
 	rest, ok := gaugeSuffix(t[j:])
 	if !ok {
-		return Gauge{}, &Error{Op: OpParseValue, Input: s, Offset: j, Reason: "no gauge mark: write the unit followed by (g), as in 40 kPa(g), or psig or barg"}
+		return Gauge{}, &Error{Op: OpParseValue, Input: s, Offset: lead + j, Reason: "no gauge mark: write the unit followed by (g), as in 40 kPa(g), or psig or barg"}
 	}
 	v, err := ParseValue(text + " " + rest)
 	if err != nil {
 		return Gauge{}, err
 	}
 	if v.Unit.Dim() != quantity.Pressure {
-		return Gauge{}, &Error{Op: OpParseValue, Input: s, Offset: j, Reason: fmt.Sprintf("a gauge level must be a pressure, not %s", quantity.Describe(v.Unit.Dim()))}
+		return Gauge{}, &Error{Op: OpParseValue, Input: s, Offset: lead + j, Reason: fmt.Sprintf("a gauge level must be a pressure, not %s", quantity.Describe(v.Unit.Dim()))}
 	}
 	return Gauge(v), nil
 }

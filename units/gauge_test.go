@@ -190,3 +190,20 @@ func FuzzGauge(f *testing.F) {
 		}
 	})
 }
+
+// TestGaugeOffsetIntoInput: an error's offset counts in the text as given
+// (its Input), leading spaces included: in " 40 kPa" the unit, which lacks
+// the gauge mark, follows the number at byte 3 of the input (after " 40"),
+// as counted by hand.
+func TestGaugeOffsetIntoInput(t *testing.T) {
+	for _, c := range []struct {
+		in   string
+		want int
+	}{{"40 kPa", 2}, {" 40 kPa", 3}, {"  40 kPa", 4}} {
+		_, err := units.ParseGauge(c.in)
+		var e *units.Error
+		if !errors.As(err, &e) || e.Offset != c.want {
+			t.Errorf("ParseGauge(%q): %v; want the offset %d", c.in, err, c.want)
+		}
+	}
+}
