@@ -356,11 +356,9 @@ func ModelManningCheck(protoN quantity.Quantity, nRatio float64) (ScaleCheck, er
 	m := func(r string) error {
 		return &Error{Op: "model roughness check", Fault: similarity.Invalid("", r)}
 	}
-	if err := protoN.CheckNamed("prototype Manning n", ManningDim); err != nil {
+	if err := fail("model roughness check", similarity.CheckInputs(true,
+		similarity.Input{Name: "prototype Manning n", Value: protoN, Dim: ManningDim})); err != nil {
 		return ScaleCheck{}, err
-	}
-	if pn := protoN.Value(); !(pn > 0) || math.IsInf(pn, 0) {
-		return ScaleCheck{}, m(fmt.Sprintf("prototype Manning n %v s·m^(−1/3): want positive and finite", pn))
 	}
 	if !(nRatio > 0) || math.IsInf(nRatio, 0) {
 		return ScaleCheck{}, m(fmt.Sprintf("Manning ratio %v: want positive and finite", nRatio))

@@ -129,16 +129,12 @@ func CorrectWalls2D(s Section2D) (Corrected2D, error) {
 	m := func(r string) error {
 		return &Error{Op: method, Fault: similarity.Invalid("", r)}
 	}
-	if err := s.Chord.CheckNamed("chord", quantity.Length); err != nil {
-		return Corrected2D{}, err
-	}
-	if err := s.Height.CheckNamed("test-section height", quantity.Length); err != nil {
+	if err := fail(method, similarity.CheckInputs(true,
+		similarity.Input{Name: "chord", Value: s.Chord, Dim: quantity.Length},
+		similarity.Input{Name: "test-section height", Value: s.Height, Dim: quantity.Length})); err != nil {
 		return Corrected2D{}, err
 	}
 	c, h := s.Chord.Value(), s.Height.Value()
-	if !(c > 0 && h > 0) || math.IsInf(c, 0) || math.IsInf(h, 0) {
-		return Corrected2D{}, m("chord and height must be positive and finite")
-	}
 	ch := c / h
 	if ch > 0.4 {
 		return Corrected2D{}, m(fmt.Sprintf("c/h = %.3g: above 0.4 the classical corrections do not hold; use a smaller model or a wall-pressure method", ch))

@@ -103,20 +103,16 @@ func FindNPSH3(series []SuctionPoint, opt NPSH3Options) (NPSH3Result, error) {
 		}
 		pts = append(pts, pt{s.NPSHA.Value(), s.Head.Value()})
 	}
-	var uNPSH, uHead float64
-	for _, u := range []struct {
-		name string
-		q    quantity.Quantity
-		dst  *float64
-	}{{"NPSHA uncertainty", opt.NPSHU, &uNPSH}, {"head uncertainty", opt.HeadU, &uHead}} {
-		if u.q == (quantity.Quantity{}) {
-			continue
-		}
-		if err := fail(op, similarity.CheckInputs(true, similarity.Input{Name: u.name, Value: u.q, Dim: quantity.Length})); err != nil {
-			return NPSH3Result{}, err
-		}
-		*u.dst = u.q.Value()
+	zero := quantity.New(0, quantity.Length)
+	uNPSHq, bad := similarity.OrDefault("NPSHA uncertainty", opt.NPSHU, zero)
+	if bad != nil {
+		return NPSH3Result{}, fail(op, bad)
 	}
+	uHeadq, bad := similarity.OrDefault("head uncertainty", opt.HeadU, zero)
+	if bad != nil {
+		return NPSH3Result{}, fail(op, bad)
+	}
+	uNPSH, uHead := uNPSHq.Value(), uHeadq.Value()
 	slices.SortStableFunc(pts, func(a, b pt) int {
 		switch {
 		case a.x < b.x:

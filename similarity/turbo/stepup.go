@@ -37,14 +37,10 @@ func MoodyStepUp(etaModel float64, d Diameters, opt MoodyStepUpOptions) (float64
 	if !(etaModel > 0 && etaModel < 1) {
 		return 0, m(fmt.Sprintf("model efficiency %.4g is not between 0 and 1", etaModel))
 	}
-	if err := dModel.CheckNamed("model diameter", quantity.Length); err != nil {
+	if err := fail("Moody step-up", similarity.CheckInputs(true,
+		similarity.Input{Name: "model diameter", Value: dModel, Dim: quantity.Length},
+		similarity.Input{Name: "prototype diameter", Value: dProto, Dim: quantity.Length})); err != nil {
 		return 0, err
-	}
-	if err := dProto.CheckNamed("prototype diameter", quantity.Length); err != nil {
-		return 0, err
-	}
-	if !(dModel.Value() > 0) || !(dProto.Value() > 0) || math.IsInf(dModel.Value()+dProto.Value(), 0) {
-		return 0, m("diameters must be positive and finite")
 	}
 	if exponent == 0 {
 		exponent = 0.2

@@ -186,13 +186,13 @@ type NPSHInput struct {
 // pressure (ISO 9906, IEC 60193). A result out of the range of a float64
 // is a *Error of class quantity.ErrRange. See PumpCaution.
 func NPSH(in NPSHInput) (quantity.Quantity, error) {
-	m := func(r string) error {
-		return &Error{Op: "NPSH", Fault: similarity.Invalid("", r)}
-	}
-	if err := fail("NPSH", similarity.CheckInputs(false,
+	if err := fail("NPSH", similarity.CheckInputs(true,
 		similarity.Input{Name: "pressure", Value: in.Pressure, Dim: quantity.Pressure},
 		similarity.Input{Name: "vapour pressure", Value: in.VapourPressure, Dim: quantity.Pressure},
-		similarity.Input{Name: "density", Value: in.Density, Dim: quantity.Density},
+		similarity.Input{Name: "density", Value: in.Density, Dim: quantity.Density})); err != nil {
+		return quantity.Quantity{}, err
+	}
+	if err := fail("NPSH", similarity.CheckInputs(false,
 		similarity.Input{Name: "velocity", Value: in.Velocity, Dim: quantity.Velocity})); err != nil {
 		return quantity.Quantity{}, err
 	}
@@ -202,8 +202,8 @@ func NPSH(in NPSHInput) (quantity.Quantity, error) {
 	}
 	g := gq.Value()
 	p, pv, rho, v := in.Pressure.Value(), in.VapourPressure.Value(), in.Density.Value(), in.Velocity.Value()
-	if !(p > 0) || !(pv > 0) || !(rho > 0) || math.IsInf(p+pv+rho+v, 0) || math.IsNaN(v) {
-		return quantity.Quantity{}, m("pressure, vapour pressure and density must be positive (absolute) and finite")
+	if math.IsInf(v, 0) || math.IsNaN(v) {
+		return quantity.Quantity{}, &Error{Op: "NPSH", Fault: similarity.Invalid("velocity", "velocity must be finite")}
 	}
 	n := (p-pv)/(rho*g) + v*v/(2*g)
 	if err := fail("NPSH", similarity.CheckResults(false, similarity.Result{Name: "NPSH", Value: n})); err != nil {
@@ -314,19 +314,13 @@ var (
 // a rotational speed and a frequency share a dimension, so a bare
 // quantity.New(1450/60, …) in rev/s would be read as rad/s, 2π too small.
 func SpecificSpeedOf(omega, flow, head quantity.Quantity) (SpecificSpeeds, error) {
-	if err := omega.CheckNamed("rotational speed", quantity.AngularVelocity); err != nil {
-		return SpecificSpeeds{}, err
-	}
-	if err := flow.CheckNamed("flow", quantity.VolumeFlowRate); err != nil {
-		return SpecificSpeeds{}, err
-	}
-	if err := head.CheckNamed("head", quantity.Length); err != nil {
+	if err := fail("specific speed", similarity.CheckInputs(true,
+		similarity.Input{Name: "rotational speed", Value: omega, Dim: quantity.AngularVelocity},
+		similarity.Input{Name: "flow", Value: flow, Dim: quantity.VolumeFlowRate},
+		similarity.Input{Name: "head", Value: head, Dim: quantity.Length})); err != nil {
 		return SpecificSpeeds{}, err
 	}
 	w, qv, h := omega.Value(), flow.Value(), head.Value()
-	if !(w > 0 && qv > 0 && h > 0) || math.IsInf(w+qv+h, 0) {
-		return SpecificSpeeds{}, &Error{Op: "specific speed", Fault: similarity.Invalid("", "speed, flow and head must be positive and finite")}
-	}
 	return specificSpeeds(w * 60 / (2 * math.Pi) * math.Sqrt(qv) / math.Pow(h, 0.75))
 }
 
