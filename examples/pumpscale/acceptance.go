@@ -13,6 +13,7 @@ import (
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
+	"similis.dev/similis/examples/internal/cli"
 	"similis.dev/similis/examples/internal/plotstyle"
 	q "similis.dev/similis/quantity"
 	"similis.dev/similis/quantity/fit"
@@ -66,29 +67,6 @@ func parseGrade(s string) (turbo.Grade, bool) {
 		}
 	}
 	return 0, false
-}
-
-// roundToUncertainty formats a value and its standard uncertainty as the
-// GUM (JCGM 100, 7.2.6) recommends: the uncertainty to two significant
-// digits, the value rounded to the same decimal place. A zero or
-// non-finite uncertainty leaves the value at five significant digits.
-func roundToUncertainty(v, u float64) (string, string) {
-	if !(u > 0) || math.IsInf(u, 0) || math.IsNaN(v) || math.IsInf(v, 0) {
-		return fmt.Sprintf("%.5g", v), fmt.Sprintf("%.2g", u)
-	}
-	// The decimal place of the uncertainty's second significant digit,
-	// taken after rounding it (0.0996 is 0.10, whose second digit is at
-	// 10⁻²).
-	place := int(math.Floor(math.Log10(u))) - 1
-	ur := math.Round(u/math.Pow10(place)) * math.Pow10(place)
-	place = int(math.Floor(math.Log10(ur))) - 1
-	step := math.Pow10(place)
-	vr, ur := math.Round(v/step)*step, math.Round(u/step)*step
-	if vr == 0 {
-		vr = 0 // no "-0"
-	}
-	d := max(0, -place)
-	return fmt.Sprintf("%.*f", d, vr), fmt.Sprintf("%.*f", d, ur)
 }
 
 // pct formats a one-sided or two-sided tolerance factor.
@@ -159,7 +137,7 @@ func acceptance(w io.Writer, agreed turbo.Grade, out string, wIn, hIn, dpi float
 		}
 		var eq strings.Builder
 		for k := range coef {
-			v, u := roundToUncertainty(coef[k]*c.scale, se[k]*c.scale)
+			v, u := cli.RoundToUncertainty(coef[k]*c.scale, se[k]*c.scale, 5)
 			switch {
 			case k == 0:
 				eq.WriteString(v)

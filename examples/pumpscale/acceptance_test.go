@@ -175,9 +175,9 @@ func TestRoundToUncertainty(t *testing.T) {
 		{-0.00004, 0.0023, "0.0000", "0.0023"},
 		{5, 0, "5", "0"},
 	} {
-		gv, gu := roundToUncertainty(c.v, c.u)
+		gv, gu := cli.RoundToUncertainty(c.v, c.u, 5)
 		if gv != c.wantV || gu != c.wantU {
-			t.Errorf("roundToUncertainty(%v, %v) = %s, %s; want %s, %s", c.v, c.u, gv, gu, c.wantV, c.wantU)
+			t.Errorf("cli.RoundToUncertainty(%v, %v, 5) = %s, %s; want %s, %s", c.v, c.u, gv, gu, c.wantV, c.wantU)
 		}
 	}
 }

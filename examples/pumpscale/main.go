@@ -496,23 +496,9 @@ func times10(x float64) string {
 	if m >= 9.995 { // rounds to 10.0
 		m, e = m/10, e+1
 	}
-	exp := superscript(e)
+	exp := cli.Superscript(e)
 	if math.Abs(m-1) < 5e-4 {
 		return "10" + exp
 	}
 	return fmt.Sprintf("%.3g×10%s", m, exp)
-}
-
-// superscript writes an integer in superscript digits.
-func superscript(n int) string {
-	const digits = "⁰¹²³⁴⁵⁶⁷⁸⁹"
-	d := []rune(digits)
-	s := ""
-	if n < 0 {
-		s, n = "⁻", -n
-	}
-	for _, c := range fmt.Sprint(n) {
-		s += string(d[c-'0'])
-	}
-	return s
 }

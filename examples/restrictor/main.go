@@ -18,7 +18,6 @@ import (
 	"os"
 	"path/filepath"
 	"slices"
-	"strconv"
 	"strings"
 
 	"gonum.org/v1/plot"
@@ -195,9 +194,9 @@ func rowBudget(w io.Writer, set *pigroups.Set, fit *pigroups.PowerLaw, idx [3]in
 	}
 	fmt.Fprintln(w, "the budget of Eu = Δp/(ρV²) (the viscosity and the caliper do not enter it):")
 	fmt.Fprint(w, rb.Budget)
-	ev, eu := roundPair(rb.EuFit.Value(), rb.EuFit.U().Value())
+	ev, eu := cli.RoundToUncertainty(rb.EuFit.Value(), rb.EuFit.U().Value(), 4)
 	fmt.Fprintf(w, "the fit at this row: Eu = %s (u = %s; standard uncertainty, k = 1, from the fit and the inputs)%s\n", ev, eu, note(pr))
-	dv, du := roundPair(dev.Value.Value(), dev.Expanded.Value())
+	dv, du := cli.RoundToUncertainty(dev.Value.Value(), dev.Expanded.Value(), 4)
 	fmt.Fprintf(w, "measured − fitted = %s, expanded uncertainty U(95 %%, k = %.2f) = %s (the shared ρ, V, d cancel in part)\n", dv, dev.K, du)
 	return rb, nil
 }
@@ -251,24 +250,8 @@ func alternation(f *pigroups.PowerLaw) string {
 // u to two significant figures, the value to the same decimal place
 // ("10130 (u = 210)").
 func withU(v, u float64) string {
-	a, b := roundPair(v, u)
+	a, b := cli.RoundToUncertainty(v, u, 4)
 	return a + " (u = " + b + ")"
-}
-
-// roundPair rounds u to two significant figures and v to the same
-// decimal place, as a result is quoted with its uncertainty (GUM 7.2.6).
-func roundPair(v, u float64) (string, string) {
-	if !(u > 0) || math.IsInf(u, 0) {
-		return fmt.Sprintf("%.4g", v), fmt.Sprintf("%.2g", u)
-	}
-	e := int(math.Floor(math.Log10(u))) - 1 // the place of u's second figure
-	p := math.Pow(10, float64(e))
-	if math.Round(u/p) >= 100 {
-		e++
-		p *= 10
-	}
-	dec := max(0, -e)
-	return strconv.FormatFloat(math.Round(v/p)*p, 'f', dec, 64), strconv.FormatFloat(math.Round(u/p)*p, 'f', dec, 64)
 }
 
 func note(p pigroups.Prediction) string {

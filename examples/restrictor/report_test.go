@@ -217,8 +217,8 @@ func TestRoundPair(t *testing.T) {
 		{10128.4, 211.7, "10130", "210"}, {2.02087, 0.00987, "2.0209", "0.0099"}, {2, 0.00904, "2.0000", "0.0090"},
 		{0.00434, 0.0526, "0.004", "0.053"}, {5.0, 0.996, "5.0", "1.0"},
 	} {
-		if a, b := roundPair(c.v, c.u); a != c.a || b != c.b {
-			t.Errorf("roundPair(%v, %v) = %s, %s; want %s, %s", c.v, c.u, a, b, c.a, c.b)
+		if a, b := cli.RoundToUncertainty(c.v, c.u, 4); a != c.a || b != c.b {
+			t.Errorf("cli.RoundToUncertainty(%v, %v, 4) = %s, %s; want %s, %s", c.v, c.u, a, b, c.a, c.b)
 		}
 	}
 }

@@ -376,21 +376,10 @@ func polyText(a, se []float64, k float64) string {
 		case 1:
 			sb.WriteString("·J")
 		default:
-			sb.WriteString("·J" + superscript(i))
+			sb.WriteString("·J" + cli.Superscript(i))
 		}
 	}
 	return sb.String()
-}
-
-// superscript writes the whole number n ≥ 0 in superscript digits.
-func superscript(n int) string {
-	const digits = "⁰¹²³⁴⁵⁶⁷⁸⁹"
-	r := []rune(digits)
-	var out []rune
-	for _, d := range fmt.Sprint(n) {
-		out = append(out, r[d-'0'])
-	}
-	return string(out)
 }
 
 // plotSize is the plot's size in inches and the PNG's resolution; Skip
