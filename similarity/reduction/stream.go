@@ -420,9 +420,8 @@ func pointOf(set *uncertain.Set, tag string, w steady.Window, names []string, di
 	p := steady.Point{Tag: tag, Window: w, Values: make([]steady.Value, 0, len(names))}
 	for k, name := range names {
 		lim := lims[k]
-		if lim.Dim() != dims[k] {
-			return steady.Point{}, &steady.Error{Op: op, Channel: name, Row: -1, Reason: "drift limit",
-				Err: &quantity.Error{Op: "check", Name: name + " drift limit", Dims: [2]quantity.Dim{lim.Dim(), dims[k]}, Binary: true, Class: quantity.ErrDimension}}
+		if err := lim.CheckNamed(name+" drift limit", dims[k]); err != nil {
+			return steady.Point{}, &steady.Error{Op: op, Channel: name, Row: -1, Reason: "drift limit", Err: err}
 		}
 		if !(lim.Value() > 0) || math.IsInf(lim.Value(), 0) {
 			return steady.Point{}, &steady.Error{Op: op, Channel: name, Row: -1, Reason: fmt.Sprintf("drift limit %v: want a finite value > 0", lim)}

@@ -120,12 +120,17 @@ func PropellerReynolds(chord, speed quantity.Quantity, revsPerSecond float64, di
 	if !(x > 0 && x <= 1) {
 		return 0, &Error{Op: op, Fault: similarity.Invalid("r/R", fmt.Sprintf("radius fraction r/R = %v: want 0 < r/R ≤ 1", x))}
 	}
-	u := x * math.Pi * revsPerSecond * diameter.Value()
-	re := chord.Value() * math.Hypot(speed.Value(), u) / nu.Value()
+	re := bladeReynolds(chord.Value(), speed.Value(), revsPerSecond, diameter.Value(), x, nu.Value())
 	if err := fail(op, similarity.CheckResults(true, similarity.Result{Name: "Reynolds number", Value: re})); err != nil {
 		return 0, err
 	}
 	return re, nil
+}
+
+// bladeReynolds is PropellerReynolds' Re_x = c_x·√(V_A² + (xπnD)²)/ν
+// on plain SI values (n in rev/s), unchecked.
+func bladeReynolds(chord, speed, revsPerSecond, diameter, x, nu float64) float64 {
+	return chord * math.Hypot(speed, x*math.Pi*revsPerSecond*diameter) / nu
 }
 
 // MinOpenWaterRuns is the fewest runs ReduceOpenWater takes.

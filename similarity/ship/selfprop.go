@@ -345,7 +345,7 @@ func AnalyseSelfPropulsion(t SelfPropulsionTest) ([]SelfPropulsionPoint, error) 
 
 		}
 		if c, nu := t.OpenWater.Chord, t.OpenWater.Viscosity; c > 0 && nu > 0 {
-			p.Reynolds = c * math.Hypot(j*n*d, 0.7*math.Pi*n*d) / nu
+			p.Reynolds = bladeReynolds(c, j*n*d, n, d, 0.7, nu)
 			if p.Reynolds < UsualOpenWaterReynolds {
 				p.Warning = fmt.Sprintf("self-propulsion %s (V_M = %.4g m/s): the propeller's Re_0.7 = %.3g is below the usual minimum %.0e (ITTC 7.5-02-03-02.1; from memory): the blade flow may be partly laminar, which flatters K_Q and η_R",
 					name, p.ModelSpeed, p.Reynolds, UsualOpenWaterReynolds)
