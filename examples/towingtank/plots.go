@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"math"
 	"path/filepath"
-	"strconv"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/font"
@@ -34,8 +33,7 @@ func plotOpenWater(dir string, ow *ship.OpenWaterFit, size plotSize) (string, st
 	pl.Y.Label.Text = "K_{T}, 10 K_{Q}, η_{0}"
 	pl.Legend.Top = true
 	pl.Legend.Left = false
-	pl.X.Tick.Marker = plot.ConstantTicks(ticks(0, 1.1, 0.1, 0.2))
-	pl.Y.Tick.Marker = plot.ConstantTicks(ticks(0, 1.0, 0.1, 0.2))
+	pl.X.Tick.Marker, pl.Y.Tick.Marker = plotstyle.LinearTicks{}, plotstyle.LinearTicks{}
 	glyphs := []draw.GlyphDrawer{draw.CircleGlyph{}, draw.TriangleGlyph{}, draw.SquareGlyph{}}
 	dashes := [][]vg.Length{nil, {vg.Points(5), vg.Points(3)}, {vg.Points(1), vg.Points(2)}}
 	series := []struct {
@@ -80,22 +78,6 @@ func plotOpenWater(dir string, ow *ship.OpenWaterFit, size plotSize) (string, st
 		}
 	}
 	return png, svg, nil
-}
-
-// ticks returns ticks from lo to hi every step, labelled every label.
-func ticks(lo, hi, step, label float64) []plot.Tick {
-	var t []plot.Tick
-	n := int((hi-lo)/step + 0.5)
-	every := int(label/step + 0.5)
-	for i := 0; i <= n; i++ {
-		v := lo + step*float64(i)
-		tk := plot.Tick{Value: v}
-		if i%every == 0 {
-			tk.Label = strconv.FormatFloat(v, 'f', 1, 64)
-		}
-		t = append(t, tk)
-	}
-	return t
 }
 
 // plotCoefficients draws the model's and the ship's total resistance
